@@ -1,0 +1,206 @@
+import {
+  buildCurve,
+  COMPOUNDINGS,
+  CURVE_DAY_COUNTS,
+  EXTRAPOLATIONS,
+  forwardOn,
+  isCompounding,
+  isCurveDayCount,
+  isExtrapolation,
+  isIsoDate,
+  addTenor,
+  parseTenor,
+  zeroOn,
+  type Compounding,
+  type CoreError,
+  type CurveDayCount,
+  type Extrapolation,
+} from '../core/index.ts';
+
+export interface CommandResult {
+  readonly stdout: string;
+  readonly stderr: string;
+  readonly status: 0 | 1 | 2;
+}
+
+interface Options {
+  file: string;
+  at: string[] | null;
+  forward: [string, string][];
+  compounding: Compounding;
+  dayCount: CurveDayCount | null;
+  extrapolate: Extrapolation | null;
+  skipInvalid: boolean;
+}
+
+const USAGE =
+  'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid]\n' +
+  '  FILE is a workspace JSON document or NDJSON, or - for standard input; dates are YYYY-MM-DD or tenors (3M, 2Y) from settlement\n';
+
+const usage = (message: string): CommandResult => ({ stdout: '', stderr: `curve: ${message}\n${USAGE}`, status: 2 });
+
+const isPoint = (s: string): boolean => isIsoDate(s) || parseTenor(s) !== null;
+
+function parseArgs(args: readonly string[]): Options | string {
+  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false };
+  const files: string[] = [];
+  for (let i = 0; i < args.length; i++) {
+    const arg = args[i]!;
+    const eq = arg.startsWith('--') ? arg.indexOf('=') : -1;
+    const name = eq > 0 ? arg.slice(0, eq) : arg;
+    const takesValue = ['--at', '--forward', '--compounding', '--day-count', '--extrapolate'].includes(name);
+    let value: string | undefined;
+    if (takesValue) {
+      value = eq > 0 ? arg.slice(eq + 1) : args[++i];
+      if (value === undefined) return `${name} needs a value`;
+    }
+    switch (name) {
+      case '--at': {
+        const items = value!.split(',').map((s) => s.trim());
+        const bad = items.find((s) => !isPoint(s));
+        if (bad !== undefined) return `--at: "${bad}" is neither a date YYYY-MM-DD nor a tenor such as 3M or 2Y`;
+        opts.at = [...(opts.at ?? []), ...items];
+        break;
+      }
+      case '--forward': {
+        for (const pair of value!.split(',')) {
+          const parts = pair.split(':').map((s) => s.trim());
+          if (parts.length !== 2 || !isPoint(parts[0]!) || !isPoint(parts[1]!)) {
+            return `--forward: "${pair}" must be START:END, each a date YYYY-MM-DD or a tenor (1Y:2Y)`;
+          }
+          opts.forward.push([parts[0]!, parts[1]!]);
+        }
+        break;
+      }
+      case '--compounding':
+        if (!isCompounding(value)) return `--compounding must be one of ${COMPOUNDINGS.join(', ')}, not "${value}"`;
+        opts.compounding = value;
+        break;
+      case '--day-count':
+        if (!isCurveDayCount(value)) {
+          const why = value === 'ACT/ACT-ICMA' || value === '30E/360-ISDA' ? `${value} needs an instrument and cannot serve a query; ` : '';
+          return `--day-count: ${why}must be one of ${CURVE_DAY_COUNTS.join(', ')}, not "${value}"`;
+        }
+        opts.dayCount = value;
+        break;
+      case '--extrapolate':
+        if (!isExtrapolation(value)) return `--extrapolate must be one of ${EXTRAPOLATIONS.join(', ')}, not "${value}"`;
+        opts.extrapolate = value;
+        break;
+      case '--skip-invalid':
+        if (eq > 0) return '--skip-invalid takes no value';
+        opts.skipInvalid = true;
+        break;
+      default:
+        if (arg.startsWith('--') || (arg.startsWith('-') && arg !== '-')) return `unknown option ${arg}`;
+        files.push(arg);
+    }
+  }
+  if (files.length !== 1) return files.length === 0 ? 'give one FILE (or - for standard input)' : `give one FILE, not ${files.length}`;
+  opts.file = files[0]!;
+  return opts;
+}
+
+/** Splits input into documents: one JSON value, or NDJSON lines. Each entry is parsed or an error text. */
+function splitDocuments(text: string): ({ doc: unknown } | { error: string })[] {
+  try {
+    return [{ doc: JSON.parse(text) }];
+  } catch {
+    // not a single value: NDJSON
+  }
+  const docs = text.split(/\r?\n/).filter((line) => line.trim() !== '');
+  if (docs.length === 0) return [{ error: 'the input is empty; give a workspace JSON document' }];
+  return docs.map((line) => {
+    try {
+      return { doc: JSON.parse(line) };
+    } catch (e) {
+      const shown = line.length > 80 ? `${line.slice(0, 80)}...` : line;
+      return { error: `not valid JSON (${(e as Error).message}): ${shown}` };
+    }
+  });
+}
+
+/** Resolves a date or tenor against a settlement date. */
+const resolve = (point: string, settlement: string): string => {
+  const tenor = parseTenor(point);
+  return tenor ? addTenor(settlement, tenor) : point;
+};
+
+/** Runs one document; returns its output object and whether it built. */
+function runDocument(index: number, doc: unknown, opts: Options): { out: object; errors: readonly CoreError[] } {
+  const build = buildCurve(doc, { skipInvalid: opts.skipInvalid, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
+  const failed = (errors: readonly CoreError[]) => ({ out: { index, errors }, errors });
+  if (!build.curve || build.errors.length > 0) return failed(build.errors);
+  const curve = build.curve;
+  const settlement = curve.settlement;
+  const dc = opts.dayCount ?? curve.dayCount;
+  const errors: CoreError[] = [];
+  const dates = opts.at ? opts.at.map((p) => resolve(p, settlement)) : curve.pillars.map((p) => p.date);
+  const points = dates.flatMap((date, i) => {
+    const z = zeroOn(curve, date, opts.compounding, dc, opts.at ? `--at[${i}]` : `quotes[${curve.pillars[i]!.quote}]`);
+    if (!z.ok) {
+      errors.push(...z.errors);
+      return [];
+    }
+    const v = z.value;
+    return [{ date, t: v.t, discount: v.discount, zero: v.zero, ...(v.extrapolated ? { extrapolated: true } : {}) }];
+  });
+  const forwards = opts.forward.flatMap(([s, e], i) => {
+    const f = forwardOn(curve, resolve(s, settlement), resolve(e, settlement), opts.compounding, dc, `--forward[${i}]`);
+    if (!f.ok) {
+      errors.push(...f.errors);
+      return [];
+    }
+    const v = f.value;
+    return [{ start: v.start, end: v.end, tau: v.tau, rate: v.rate, ...(v.extrapolated ? { extrapolated: true } : {}) }];
+  });
+  const quotes = build.repricing.map((r) => ({ index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError }));
+  const numbersFinite = [...points.flatMap((p) => [p.t, p.discount, p.zero]), ...forwards.flatMap((f) => [f.tau, f.rate]), ...quotes.flatMap((q) => [q.t, q.repricingError])].every(Number.isFinite);
+  if (!numbersFinite) {
+    errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });
+  }
+  if (errors.length > 0) return failed(errors);
+  return {
+    out: {
+      index,
+      settlement,
+      interpolation: curve.interpolation,
+      curveDayCount: curve.dayCount,
+      compounding: opts.compounding,
+      rateDayCount: dc,
+      extrapolation: curve.extrapolation,
+      quotes,
+      points,
+      forwards,
+      warnings: build.warnings,
+    },
+    errors: [],
+  };
+}
+
+/** The whole command, pure apart from reading the input through `read`. */
+export function runCurveCommand(args: readonly string[], read: (file: string) => string): CommandResult {
+  const opts = parseArgs(args);
+  if (typeof opts === 'string') return usage(opts);
+  let text: string;
+  try {
+    text = read(opts.file);
+  } catch (e) {
+    return usage(`cannot read ${opts.file}: ${(e as Error).message}`);
+  }
+  let stdout = '';
+  let stderr = '';
+  let anyFailed = false;
+  splitDocuments(text).forEach((entry, index) => {
+    const { out, errors } =
+      'error' in entry
+        ? { out: { index, errors: [{ path: '', quote: null, code: 'invalid-json', message: entry.error }] }, errors: [{ path: '', quote: null, code: 'invalid-json' as const, message: entry.error }] }
+        : runDocument(index, entry.doc, opts);
+    stdout += JSON.stringify(out) + '\n';
+    if (errors.length > 0) {
+      anyFailed = true;
+      for (const e of errors) stderr += `document ${index}: ${e.path ? e.path + ': ' : ''}${e.code}: ${e.message}\n`;
+    }
+  });
+  return { stdout, stderr, status: anyFailed ? 1 : 0 };
+}

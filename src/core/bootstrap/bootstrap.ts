@@ -1,0 +1,207 @@
+import { curveFromNodes, type Curve, type Extrapolation, type Pillar } from '../curve/curve.ts';
+import { INTERPOLATORS } from '../interpolation/registry.ts';
+import type { InterpolationId } from '../interpolation/types.ts';
+import { presentValue, type Instrument, type QuoteUnit } from '../instruments/instrument.ts';
+import { MAX_SWEEPS, NODE_TOLERANCE, PRICE_ACCEPTANCE, RATE_ACCEPTANCE } from '../numeric/tolerance.ts';
+import { coreError, type CoreError, type CoreWarning } from '../result.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { CurveDayCount } from '../time/dayCount.ts';
+import { solveNode } from './solve.ts';
+
+/** How one quote came back on the built curve. */
+export interface Repricing {
+  readonly index: number;
+  readonly kind: Instrument['kind'];
+  readonly maturity: IsoDate;
+  readonly t: number;
+  readonly unit: QuoteUnit;
+  readonly field: string;
+  readonly market: number;
+  readonly model: number;
+  /** Model quote minus market quote, in `unit`. */
+  readonly repricingError: number;
+}
+
+export interface BootstrapOutcome {
+  readonly curve: Curve | null;
+  readonly errors: readonly CoreError[];
+  readonly warnings: readonly CoreWarning[];
+  /** One entry per instrument, in the order given. Empty when the bootstrap failed. */
+  readonly repricing: readonly Repricing[];
+  /** Gauss-Seidel sweeps used (0 for local methods). */
+  readonly sweeps: number;
+}
+
+export interface BootstrapSettings {
+  readonly settlement: IsoDate;
+  readonly dayCount: CurveDayCount;
+  readonly interpolation: InterpolationId;
+  readonly extrapolation: Extrapolation;
+}
+
+export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? PRICE_ACCEPTANCE : RATE_ACCEPTANCE);
+
+const pct = (x: number): string => `${(100 * x).toFixed(4)}%`;
+
+/**
+ * Bootstraps a curve through instruments that are already sorted by pillar time, strictly
+ * increasing (duplicates are refused before this). Each instrument sets the node at its maturity.
+ *
+ * Local methods (log-linear-discount, linear-zero): one pass, node k solved with nodes 0..k.
+ * Global methods (cubic-zero, monotone-convex[-positive]): start from a log-linear pass, then
+ * Gauss-Seidel sweeps re-solving every pillar on the full curve until the largest node change is
+ * at most NODE_TOLERANCE and every quote reprices within its acceptance bound, at most MAX_SWEEPS.
+ * Single-flow instruments at their own pillar (deposits, bills, zeros) are set in closed form.
+ */
+export function bootstrapInstruments(settings: BootstrapSettings, instruments: readonly Instrument[]): BootstrapOutcome {
+  const n = instruments.length;
+  const spec = INTERPOLATORS[settings.interpolation];
+  const ts = new Float64Array(n + 1);
+  const ys = new Float64Array(n + 1);
+  instruments.forEach((ins, k) => (ts[k + 1] = ins.t));
+  const failed = (errors: CoreError[]): BootstrapOutcome => ({ curve: null, errors, warnings: [], repricing: [], sweeps: 0 });
+  const closedForm = instruments.map((ins) => ins.times.length === 1 && ins.times[0] === ins.t);
+
+  const solveFailure = (ins: Instrument, reason: 'non-positive-discount' | 'no-solution'): CoreError =>
+    coreError(
+      reason,
+      `quotes[${ins.index}].${ins.field}`,
+      reason === 'non-positive-discount'
+        ? `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): ${ins.field} ${ins.market} implies a discount factor <= 0 at ${ins.maturity}; check the quote's value and unit`
+        : `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): no discount factor at ${ins.maturity} reprices ${ins.field} ${ins.market}; check the quote`,
+      ins.index,
+    );
+
+  /** Solves node k with the interpolation built on nodes 0..m (m = k for local, n for global). */
+  const solveAt = (k: number, m: number, build: typeof spec.build, x0: number): CoreError | number => {
+    const ins = instruments[k - 1]!;
+    if (closedForm[k - 1]) {
+      const df = ins.target / ins.amounts[0]!;
+      if (!(df > 0) || !Number.isFinite(df)) return solveFailure(ins, 'non-positive-discount');
+      return Math.log(df);
+    }
+    const tv = ts.subarray(0, m + 1);
+    const yv = ys.subarray(0, m + 1);
+    const outcome = solveNode((x) => {
+      yv[k] = x;
+      const interp = build(tv, yv);
+      return presentValue(ins, (t) => interp.lnDiscount(t)) - ins.target;
+    }, x0);
+    if (!outcome.ok) return solveFailure(ins, outcome.reason);
+    return outcome.x;
+  };
+
+  const guess = (k: number): number => {
+    if (k === 1) {
+      const ins = instruments[0]!;
+      const rate = ins.unit === 'rate' ? ins.market : 0.03;
+      return -rate * ins.t;
+    }
+    const fwd = k >= 2 && ts[k - 1]! > ts[k - 2]! ? -(ys[k - 1]! - ys[k - 2]!) / (ts[k - 1]! - ts[k - 2]!) : 0.03;
+    return ys[k - 1]! - fwd * (ts[k]! - ts[k - 1]!);
+  };
+
+  // Pass 1: local bootstrap (log-linear for the global methods' starting point).
+  const localBuild = spec.global ? INTERPOLATORS['log-linear-discount'].build : spec.build;
+  for (let k = 1; k <= n; k++) {
+    const x = solveAt(k, k, localBuild, guess(k));
+    if (typeof x !== 'number') return failed([x]);
+    ys[k] = x;
+  }
+
+  const reprice = (lnDiscountAt: (t: number) => number): Repricing[] =>
+    instruments.map((ins) => {
+      const model = ins.modelQuote(lnDiscountAt);
+      return {
+        index: ins.index,
+        kind: ins.kind,
+        maturity: ins.maturity,
+        t: ins.t,
+        unit: ins.unit,
+        field: ins.field,
+        market: ins.market,
+        model,
+        repricingError: model - ins.market,
+      };
+    });
+  const worst = (rows: Repricing[]): { row: Repricing; ratio: number } | null => {
+    let out: { row: Repricing; ratio: number } | null = null;
+    for (const row of rows) {
+      const ratio = Number.isFinite(row.repricingError) ? Math.abs(row.repricingError) / acceptanceBound(row.unit) : Infinity;
+      if (!out || ratio > out.ratio) out = { row, ratio };
+    }
+    return out;
+  };
+
+  let sweeps = 0;
+  if (spec.global) {
+    let converged = false;
+    while (sweeps < MAX_SWEEPS) {
+      sweeps++;
+      let maxChange = 0;
+      for (let k = 1; k <= n; k++) {
+        if (closedForm[k - 1]) continue;
+        const before = ys[k]!;
+        const x = solveAt(k, n, spec.build, before);
+        if (typeof x !== 'number') return failed([x]);
+        ys[k] = x;
+        maxChange = Math.max(maxChange, Math.abs(Math.expm1(x - before)));
+      }
+      if (maxChange <= NODE_TOLERANCE) {
+        const interp = spec.build(ts, ys);
+        const w = worst(reprice((t) => interp.lnDiscount(t)));
+        if (!w || w.ratio <= 1) {
+          converged = true;
+          break;
+        }
+      }
+    }
+    if (!converged) {
+      const interp = spec.build(ts, ys);
+      const w = worst(reprice((t) => interp.lnDiscount(t)))!;
+      return failed([
+        coreError(
+          'not-converged',
+          `quotes[${w.row.index}].${w.row.field}`,
+          `${settings.interpolation}: no consistent curve after ${MAX_SWEEPS} sweeps; the worst quote is quotes[${w.row.index}] (${w.row.kind} ${w.row.maturity}), off by ${w.row.repricingError} in ${w.row.unit}; try log-linear-discount or check the quotes`,
+          w.row.index,
+        ),
+      ]);
+    }
+  }
+
+  const interp = spec.build(ts, ys);
+  const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
+  const curve = curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, interp);
+  const repricing = reprice(curve.lnDiscountAt);
+  const w = worst(repricing);
+  if (w && w.ratio > 1) {
+    return failed([
+      coreError(
+        'no-solution',
+        `quotes[${w.row.index}].${w.row.field}`,
+        `quotes[${w.row.index}] (${w.row.kind} ${w.row.maturity}) reprices off by ${w.row.repricingError} in ${w.row.unit}, beyond the acceptance bound ${acceptanceBound(w.row.unit)}`,
+        w.row.index,
+      ),
+    ]);
+  }
+
+  const warnings: CoreWarning[] = [];
+  const errors: CoreError[] = [];
+  for (let k = 1; k <= n; k++) {
+    const d = -(ys[k]! - ys[k - 1]!) / (ts[k]! - ts[k - 1]!);
+    if (d >= 0) continue;
+    const ins = instruments[k - 1]!;
+    const from = k === 1 ? settings.settlement : instruments[k - 2]!.maturity;
+    const what = `the forward from ${from} to ${ins.maturity} is ${pct(d)} (cont, ${settings.dayCount})`;
+    if (settings.interpolation === 'monotone-convex-positive') {
+      errors.push(
+        coreError('no-solution', `quotes[${ins.index}]`, `monotone-convex-positive needs positive forwards, but ${what}; use monotone-convex for a market with negative forwards`, ins.index),
+      );
+    } else {
+      warnings.push({ path: `quotes[${ins.index}]`, quote: ins.index, code: 'negative-forward', message: `negative forward: ${what}` });
+    }
+  }
+  if (errors.length > 0) return failed(errors);
+  return { curve, errors: [], warnings, repricing, sweeps };
+}

@@ -1,0 +1,162 @@
+import type { Curve, Extrapolation } from '../curve/curve.ts';
+import { compileBill } from '../instruments/bill.ts';
+import { compileBond } from '../instruments/bond.ts';
+import { compileDeposit } from '../instruments/deposit.ts';
+import type { Instrument } from '../instruments/instrument.ts';
+import { compileSwap } from '../instruments/swap.ts';
+import { compileZero } from '../instruments/zero.ts';
+import type { InterpolationId } from '../interpolation/types.ts';
+import { coreError, type CoreError, type CoreWarning } from '../result.ts';
+import { curveTime, type CurveDayCount } from '../time/dayCount.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { Quote, Workspace } from '../workspace/types.ts';
+import { validateWorkspace } from '../workspace/validate.ts';
+import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
+
+/** Why a quote of the document is not a node of the curve. */
+export interface LeftOut {
+  readonly index: number;
+  readonly reason: 'disabled' | 'invalid';
+  readonly message: string;
+}
+
+export interface CurveBuild {
+  readonly curve: Curve | null;
+  readonly errors: readonly CoreError[];
+  readonly warnings: readonly CoreWarning[];
+  /** Repricing of every quote that is a node, in document order. */
+  readonly repricing: readonly Repricing[];
+  readonly leftOut: readonly LeftOut[];
+  /** The validated workspace (null when the document itself is unusable). */
+  readonly workspace: Workspace | null;
+}
+
+export interface BuildOptions {
+  /** Build from the valid quotes, listing the invalid ones as warnings (default false: strict). */
+  readonly skipInvalid?: boolean;
+  /** Overrides the document's `curve.interpolation`. */
+  readonly interpolation?: InterpolationId;
+  /** Overrides the document's `curve.extrapolation`. */
+  readonly extrapolation?: Extrapolation;
+}
+
+/** Compiles one validated quote against a settlement date and curve day count. */
+export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCount): Instrument {
+  const time = (d: IsoDate): number => curveTime(dayCount, settlement, d);
+  const t = time(q.maturity);
+  switch (q.kind) {
+    case 'deposit':
+      return compileDeposit(q, settlement, t);
+    case 'bill':
+      return compileBill(q, settlement, t);
+    case 'zero':
+      return compileZero(q, settlement, t);
+    case 'bond':
+      return compileBond(q, settlement, t, time);
+    case 'swap':
+      return compileSwap(q, settlement, t, time);
+  }
+}
+
+/**
+ * A market compiled once (schedules, times, sorting, duplicate check) so that moved quotes
+ * rebuild without recompiling: see `rebuildMarket`.
+ */
+export interface CompiledMarket {
+  readonly settlement: IsoDate;
+  readonly dayCount: CurveDayCount;
+  /** Enabled, valid instruments sorted by pillar time. */
+  readonly instruments: readonly Instrument[];
+  readonly errors: readonly CoreError[];
+  /** Quotes dropped as duplicates (when skipping invalid quotes). */
+  readonly duplicates: readonly CoreError[];
+}
+
+export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quotes: readonly Quote[], skipDuplicates: boolean): CompiledMarket {
+  const compiled = quotes.filter((q) => q.enabled).map((q) => compileQuote(q, settlement, dayCount));
+  compiled.sort((a, b) => a.t - b.t || a.index - b.index);
+  const instruments: Instrument[] = [];
+  const errors: CoreError[] = [];
+  const duplicates: CoreError[] = [];
+  for (const ins of compiled) {
+    const prev = instruments[instruments.length - 1];
+    if (prev && ins.t === prev.t) {
+      const e = coreError(
+        'duplicate-pillar',
+        `quotes[${ins.index}].${ins.quote.tenor !== null ? 'tenor' : 'maturity'}`,
+        `quotes[${ins.index}] (${ins.kind} ${ins.maturity}) and quotes[${prev.index}] (${prev.kind} ${prev.maturity}) fall on the same point of the curve (t = ${ins.t} years on ${dayCount}); switch one off or remove it`,
+        ins.index,
+      );
+      (skipDuplicates ? duplicates : errors).push(e);
+      continue;
+    }
+    if (ins.t <= 0) {
+      errors.push(coreError('before-settlement', `quotes[${ins.index}].maturity`, `quotes[${ins.index}]: maturity ${ins.maturity} is at t = 0 on ${dayCount}; it must be after settlement`, ins.index));
+      continue;
+    }
+    instruments.push(ins);
+  }
+  return { settlement, dayCount, instruments, errors, duplicates };
+}
+
+/**
+ * Validates a parsed workspace document and bootstraps its curve. Returns the curve (or null),
+ * the errors, the warnings and the quotes left out; never throws on bad input.
+ */
+export function buildCurve(doc: unknown, options: BuildOptions = {}): CurveBuild {
+  const validation = validateWorkspace(doc);
+  const ws = validation.workspace;
+  const empty = { curve: null, repricing: [], leftOut: [], warnings: [] };
+  if (!ws) return { ...empty, errors: validation.errors, workspace: null };
+  const skip = options.skipInvalid === true;
+  if (validation.errors.length > 0 && !skip) return { ...empty, errors: validation.errors, workspace: ws };
+  return buildFromWorkspace(ws, options, validation.errors);
+}
+
+/** Builds a validated workspace; `invalid` are the per-quote validation errors being skipped. */
+export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, invalid: readonly CoreError[] = []): CurveBuild {
+  const skip = options.skipInvalid === true;
+  const warnings: CoreWarning[] = [];
+  const leftOut: LeftOut[] = [];
+  const skipped = new Set<number>();
+  for (const e of invalid) {
+    warnings.push({ path: e.path, quote: e.quote, code: 'skipped', message: `skipped: ${e.message}` });
+    if (e.quote !== null && !skipped.has(e.quote)) {
+      skipped.add(e.quote);
+      leftOut.push({ index: e.quote, reason: 'invalid', message: e.message });
+    }
+  }
+  for (const q of ws.quotes) {
+    if (!q.enabled) leftOut.push({ index: q.index, reason: 'disabled', message: `quotes[${q.index}] is switched off` });
+  }
+  const settings = {
+    settlement: ws.settlement,
+    dayCount: ws.curve.dayCount,
+    interpolation: options.interpolation ?? ws.curve.interpolation,
+    extrapolation: options.extrapolation ?? ws.curve.extrapolation,
+  };
+  const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, skip);
+  for (const e of market.duplicates) {
+    warnings.push({ path: e.path, quote: e.quote, code: 'skipped', message: `skipped: ${e.message}` });
+    leftOut.push({ index: e.quote!, reason: 'invalid', message: e.message });
+  }
+  const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws };
+  if (market.errors.length > 0) return { ...base, curve: null, errors: market.errors, warnings, repricing: [] };
+  if (market.instruments.length === 0) {
+    return {
+      ...base,
+      curve: null,
+      errors: [coreError('schema', 'quotes', 'no enabled, valid quote to build a curve from; add at least one quote')],
+      warnings,
+      repricing: [],
+    };
+  }
+  const outcome = bootstrapInstruments(settings, market.instruments);
+  return {
+    ...base,
+    curve: outcome.curve,
+    errors: outcome.errors,
+    warnings: [...warnings, ...outcome.warnings],
+    repricing: [...outcome.repricing].sort((a, b) => a.index - b.index),
+  };
+}

@@ -1,0 +1,21 @@
+/** The calculation core's only public entry. Pure TypeScript: no DOM, no globals, deterministic. */
+export * from './result.ts';
+export * from './numeric/tolerance.ts';
+export * from './time/date.ts';
+export * from './time/tenor.ts';
+export * from './time/dayCount.ts';
+export * from './time/schedule.ts';
+export * from './rates/compounding.ts';
+export * from './interpolation/types.ts';
+export { INTERPOLATORS } from './interpolation/registry.ts';
+export * from './curve/curve.ts';
+export * from './curve/query.ts';
+export type { Instrument, QuoteUnit } from './instruments/instrument.ts';
+export { presentValue } from './instruments/instrument.ts';
+export * from './instruments/bill.ts';
+export * from './instruments/bond.ts';
+export * from './instruments/swap.ts';
+export * from './workspace/types.ts';
+export * from './workspace/validate.ts';
+export * from './bootstrap/bootstrap.ts';
+export * from './bootstrap/build.ts';

@@ -1,0 +1,72 @@
+import { addMonths, daysBetween, isLeapYear, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
+import type { BillQuote } from '../workspace/types.ts';
+import type { Instrument } from './instrument.ts';
+
+/**
+ * Discount bill. Bank discount yield d on actual days over 360:
+ *   price = 100 (1 - d days / 360),  DF(T) = price / 100.
+ * Source: US Treasury, "Treasury Bills" price and discount-rate formulas (TreasuryDirect).
+ */
+export function billPriceFromDiscountYield(d: number, days: number): number {
+  return 100 * (1 - (d * days) / 360);
+}
+export function billDiscountYieldFromPrice(price: number, days: number): number {
+  return ((100 - price) / 100) * (360 / days);
+}
+
+/**
+ * Days in the year used by the investment rate: 366 when the twelve months after the issue
+ * (here the settlement) date contain 29 February, else 365 (US Treasury).
+ */
+export function billYearBasis(settlement: IsoDate): number {
+  const oneYear = addMonths(settlement, 12);
+  const s = parseIsoDate(settlement)!;
+  for (const y of [s.y, s.y + 1]) {
+    if (!isLeapYear(y)) continue;
+    const feb29 = serialFromIso(`${y}-02-29`);
+    if (feb29 > serialFromIso(settlement) && feb29 <= serialFromIso(oneYear)) return 366;
+  }
+  return 365;
+}
+
+/**
+ * Investment rate (coupon-equivalent, bond-equivalent yield) of a bill, decimal per year, on the
+ * US Treasury's published formulas, with r days to maturity and y = 365 or 366 (billYearBasis):
+ *   r <= y/2 (not more than a half-year):  i = (100 - P) / P x y / r
+ *   r >  y/2:  i = [-2r/y + 2 sqrt((r/y)^2 - (2r/y - 1)(1 - 100/P))] / (2r/y - 1)
+ * Source: US Treasury (TreasuryDirect), "Treasury Bills: investment rate" formulas.
+ */
+export function billInvestmentYield(price: number, settlement: IsoDate, maturity: IsoDate): number {
+  const r = daysBetween(settlement, maturity);
+  const y = billYearBasis(settlement);
+  if (r <= y / 2) return ((100 - price) / price) * (y / r);
+  const a = r / y;
+  const b = 2 * a - 1;
+  return (-2 * a + 2 * Math.sqrt(a * a - b * (1 - 100 / price))) / b;
+}
+
+export function compileBill(q: BillQuote, settlement: IsoDate, t: number): Instrument {
+  const days = daysBetween(settlement, q.maturity);
+  const times = Float64Array.of(t);
+  const amounts = Float64Array.of(100);
+  const byYield = q.discountYield !== null;
+  const make = (value: number): Instrument => ({
+    quote: q,
+    index: q.index,
+    kind: 'bill',
+    maturity: q.maturity,
+    t,
+    unit: byYield ? 'rate' : 'price',
+    field: byYield ? 'discountYield' : 'price',
+    market: value,
+    times,
+    amounts,
+    target: byYield ? billPriceFromDiscountYield(value, days) : value,
+    modelQuote: (lnDiscountAt) => {
+      const df = Math.exp(lnDiscountAt(t));
+      return byYield ? (-Math.expm1(lnDiscountAt(t)) * 360) / days : 100 * df;
+    },
+    requote: make,
+  });
+  return make(byYield ? q.discountYield! : q.price!);
+}

@@ -1,0 +1,125 @@
+import { yearFraction, type DayCount, type DayCountContext } from '../time/dayCount.ts';
+import type { IsoDate } from '../time/date.ts';
+import { backwardSchedule } from '../time/schedule.ts';
+import type { BondQuote } from '../workspace/types.ts';
+import type { Instrument } from './instrument.ts';
+
+/**
+ * A fixed-coupon bond's cash flows after settlement, per 100 face.
+ *
+ * Schedule backward from maturity every 12/frequency months (eom as flagged); the period holding
+ * settlement is regular, its start the last coupon date on or before settlement (a coupon paid on
+ * the settlement date is excluded). Every coupon is the regular 100 c / f whatever the day count;
+ * the day count sets accrued interest = 100 c x yearFraction(dayCount, previous, settlement), with
+ * ACT/ACT-ICMA's reference period the coupon period (ICMA Rule 251).
+ */
+export interface BondSchedule {
+  readonly previous: IsoDate;
+  readonly dates: readonly IsoDate[];
+  /** Cash flow per 100 face at each date (coupon, plus 100 at maturity). */
+  readonly amounts: readonly number[];
+  /** Accrued interest per 100 face at settlement. */
+  readonly accrued: number;
+  /** Fraction of the current coupon period from settlement to the next coupon, in (0, 1]. */
+  readonly w: number;
+  readonly frequency: number;
+  readonly coupon: number;
+}
+
+export interface BondTerms {
+  readonly maturity: IsoDate;
+  readonly coupon: number;
+  readonly frequency: number;
+  readonly dayCount: DayCount;
+  readonly eom: boolean;
+}
+
+export function bondSchedule(terms: BondTerms, settlement: IsoDate): BondSchedule {
+  const { maturity, coupon, frequency, dayCount, eom } = terms;
+  const { dates, previous } = backwardSchedule(settlement, maturity, frequency, eom);
+  const next = dates[0]!;
+  const ctx: DayCountContext = { termination: maturity, eom, refStart: previous, refEnd: next, frequency };
+  const accrued = 100 * coupon * yearFraction(dayCount, previous, settlement, ctx);
+  // w: the ICMA exponent of the first flow, the fraction of the coupon period still to run.
+  const w = yearFraction(dayCount, settlement, next, ctx) / yearFraction(dayCount, previous, next, ctx);
+  const c = (100 * coupon) / frequency;
+  const amounts = dates.map((_, i) => (i === dates.length - 1 ? c + 100 : c));
+  return { previous, dates, amounts, accrued, w, frequency, coupon };
+}
+
+/**
+ * Dirty price per 100 from a yield y (decimal, compounded f times a year) by the ICMA convention:
+ *   P = sum_k CF_k (1 + y/f)^-(w + k),  k = 0, 1, ..., N-1.
+ * Returns the price and dP/dy.
+ */
+export function bondDirtyFromYield(s: BondSchedule, y: number): { price: number; dPdy: number; d2Pdy2: number } {
+  const f = s.frequency;
+  const lnV = -Math.log1p(y / f);
+  let price = 0;
+  let dPdy = 0;
+  let d2 = 0;
+  for (let k = 0; k < s.amounts.length; k++) {
+    const e = s.w + k;
+    const pv = s.amounts[k]! * Math.exp(e * lnV);
+    price += pv;
+    dPdy -= (e / f) * pv / (1 + y / f);
+    d2 += ((e * (e + 1)) / (f * f)) * pv / ((1 + y / f) * (1 + y / f));
+  }
+  return { price, dPdy, d2Pdy2: d2 };
+}
+
+/**
+ * The ICMA yield (decimal, compounded f times a year) whose dirty price equals `dirty` per 100:
+ * Newton from the coupon rate, safeguarded by bisection on (-f, 10); null when none exists
+ * (the price is not positive, or not reachable with a yield above -f).
+ */
+export function bondYieldFromDirty(s: BondSchedule, dirty: number): number | null {
+  if (!(dirty > 0) || !Number.isFinite(dirty)) return null;
+  let lo = -s.frequency * (1 - 1e-9);
+  let hi = 10;
+  if (bondDirtyFromYield(s, hi).price > dirty) return null;
+  let y = s.coupon;
+  for (let iter = 0; iter < 200; iter++) {
+    const { price, dPdy } = bondDirtyFromYield(s, y);
+    const r = price - dirty;
+    if (r === 0) return y;
+    if (r > 0) lo = y;
+    else hi = y;
+    let next = y - r / dPdy;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - y) <= 1e-17 + 1e-16 * Math.abs(y)) return next;
+    y = next;
+  }
+  return y;
+}
+
+export function compileBond(q: BondQuote, settlement: IsoDate, t: number, time: (d: IsoDate) => number): Instrument {
+  const s = bondSchedule(q, settlement);
+  const times = Float64Array.from(s.dates, time);
+  const amounts = Float64Array.from(s.amounts);
+  const byYield = q.yield !== null;
+  const model = (lnDiscountAt: (t: number) => number): number => {
+    let pv = 0;
+    for (let j = 0; j < times.length; j++) pv += amounts[j]! * Math.exp(lnDiscountAt(times[j]!));
+    return pv;
+  };
+  const make = (value: number): Instrument => ({
+    quote: q,
+    index: q.index,
+    kind: 'bond',
+    maturity: q.maturity,
+    t,
+    unit: byYield ? 'rate' : 'price',
+    field: byYield ? 'yield' : 'cleanPrice',
+    market: value,
+    times,
+    amounts,
+    target: byYield ? bondDirtyFromYield(s, value).price : value + s.accrued,
+    modelQuote: (lnDiscountAt) => {
+      const dirty = model(lnDiscountAt);
+      return byYield ? (bondYieldFromDirty(s, dirty) ?? Number.NaN) : dirty - s.accrued;
+    },
+    requote: make,
+  });
+  return make(byYield ? q.yield! : q.cleanPrice!);
+}

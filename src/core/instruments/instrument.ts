@@ -1,0 +1,42 @@
+import type { IsoDate } from '../time/date.ts';
+import type { Quote, QuoteKind } from '../workspace/types.ts';
+
+/** The unit of a quote and of its repricing error: `price` per 100 face, or `rate` as a decimal. */
+export type QuoteUnit = 'price' | 'rate';
+
+/**
+ * A quote compiled against a settlement date and curve axis: fixed cash flows whose present value
+ * on the curve must equal a target. Every kind fits this form:
+ *   deposit  (1 + r tau) at T, target 1            bill, zero  100 at T, target the price
+ *   bond     coupons and 100 at their dates, target the dirty price per 100
+ *   swap     S tau_i at each T_i and 1 at T_n, target 1   (S A + DF(T_n) = 1)
+ * `times` are on the curve's axis, ascending, the last equal to the pillar time `t`.
+ */
+export interface Instrument {
+  readonly quote: Quote;
+  readonly index: number;
+  readonly kind: QuoteKind;
+  readonly maturity: IsoDate;
+  /** Pillar time: years from settlement to maturity on the curve's axis. */
+  readonly t: number;
+  readonly unit: QuoteUnit;
+  /** Name of the quoted field (`rate`, `price`, `cleanPrice`, `yield`, `discountYield`). */
+  readonly field: string;
+  /** The market quote in `unit`. */
+  readonly market: number;
+  readonly times: Float64Array;
+  readonly amounts: Float64Array;
+  readonly target: number;
+  /** The model quote in `unit` given ln DF on the curve's axis. */
+  modelQuote(lnDiscountAt: (t: number) => number): number;
+  /** The same instrument with another market quote value (schedules are kept). */
+  requote(value: number): Instrument;
+}
+
+/** Present value of an instrument's flows on a curve. */
+export function presentValue(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
+  let pv = 0;
+  const { times, amounts } = instrument;
+  for (let j = 0; j < times.length; j++) pv += amounts[j]! * Math.exp(lnDiscountAt(times[j]!));
+  return pv;
+}

@@ -1,0 +1,55 @@
+import { segmentIndex, type Interpolation } from './types.ts';
+
+/**
+ * `cubic-zero`: a natural cubic spline (second derivative zero at both ends) through the
+ * continuously compounded zero rates, knots at t = 0 and every pillar, with z(0) := z(t_1).
+ * f(t) = z(t) + t z'(t). Spline by the standard tridiagonal system for the knot second
+ * derivatives (e.g. Burden and Faires, "Numerical Analysis", natural cubic spline algorithm;
+ * cited from memory).
+ */
+export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
+  const n = ts.length - 1;
+  const t = Float64Array.from(ts);
+  const z = new Float64Array(n + 1);
+  for (let i = 1; i <= n; i++) z[i] = -lnDfs[i]! / t[i]!;
+  z[0] = z[1]!;
+  // Second derivatives M_0 = M_n = 0; Thomas algorithm on the interior equations
+  // h_(i-1) M_(i-1) + 2 (h_(i-1) + h_i) M_i + h_i M_(i+1) = 6 [(z_(i+1)-z_i)/h_i - (z_i-z_(i-1))/h_(i-1)].
+  const M = new Float64Array(n + 1);
+  if (n >= 2) {
+    const c = new Float64Array(n + 1);
+    const d = new Float64Array(n + 1);
+    for (let i = 1; i < n; i++) {
+      const h0 = t[i]! - t[i - 1]!;
+      const h1 = t[i + 1]! - t[i]!;
+      const rhs = 6 * ((z[i + 1]! - z[i]!) / h1 - (z[i]! - z[i - 1]!) / h0);
+      const diag = 2 * (h0 + h1) - (i > 1 ? h0 * c[i - 1]! : 0);
+      c[i] = h1 / diag;
+      d[i] = (rhs - (i > 1 ? h0 * d[i - 1]! : 0)) / diag;
+    }
+    for (let i = n - 1; i >= 1; i--) M[i] = d[i]! - c[i]! * M[i + 1]!;
+  }
+  // On segment i, with h = t_i - t_(i-1), a = (t_i - x)/h, b = (x - t_(i-1))/h:
+  // z = a z_(i-1) + b z_i + ((a^3 - a) M_(i-1) + (b^3 - b) M_i) h^2 / 6.
+  const zeroAndSlope = (x: number, i: number): [number, number] => {
+    const h = t[i]! - t[i - 1]!;
+    const a = (t[i]! - x) / h;
+    const b = 1 - a;
+    const zi = a * z[i - 1]! + b * z[i]! + ((a * a * a - a) * M[i - 1]! + (b * b * b - b) * M[i]!) * (h * h) / 6;
+    const slope = (z[i]! - z[i - 1]!) / h + (-(3 * a * a - 1) * M[i - 1]! + (3 * b * b - 1) * M[i]!) * h / 6;
+    return [zi, slope];
+  };
+  return {
+    lnDiscount(x) {
+      if (x >= t[n]!) {
+        const [zn, sn] = zeroAndSlope(t[n]!, n);
+        return -(zn + sn * (x - t[n]!)) * x; // only at x = t_n in normal use
+      }
+      return -zeroAndSlope(x, segmentIndex(t, n, x))[0] * x;
+    },
+    forward(x) {
+      const [zi, s] = zeroAndSlope(x, Math.min(segmentIndex(t, n, x), n));
+      return zi + x * s;
+    },
+  };
+}

@@ -1,0 +1,19 @@
+import { interpolatorCubicZero } from './cubicZero.ts';
+import { interpolatorLinearZero } from './linearZero.ts';
+import { interpolatorLogLinearDiscount } from './logLinearDiscount.ts';
+import { interpolatorMonotoneConvex, interpolatorMonotoneConvexPositive } from './monotoneConvex.ts';
+import type { InterpolationId, InterpolatorSpec } from './types.ts';
+
+/** Every interpolation method the engine offers, by identifier. */
+export const INTERPOLATORS: Readonly<Record<InterpolationId, InterpolatorSpec>> = {
+  'linear-zero': { id: 'linear-zero', build: interpolatorLinearZero, global: false, label: 'Linear zero' },
+  'log-linear-discount': { id: 'log-linear-discount', build: interpolatorLogLinearDiscount, global: false, label: 'Log-linear discount' },
+  'cubic-zero': { id: 'cubic-zero', build: interpolatorCubicZero, global: true, label: 'Cubic zero (natural)' },
+  'monotone-convex': { id: 'monotone-convex', build: interpolatorMonotoneConvex, global: true, label: 'Monotone convex' },
+  'monotone-convex-positive': {
+    id: 'monotone-convex-positive',
+    build: interpolatorMonotoneConvexPositive,
+    global: true,
+    label: 'Monotone convex (positive)',
+  },
+};

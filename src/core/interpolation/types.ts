@@ -1,0 +1,46 @@
+/**
+ * An interpolation of the discount curve on the curve's time axis t (years under the curve's day
+ * count from settlement). Nodes are (t_0 = 0, lnDF_0 = 0), (t_1, lnDF_1), ..., (t_n, lnDF_n) with
+ * t strictly increasing. Evaluation is valid for 0 <= t <= t_n; the curve handles beyond.
+ */
+export interface Interpolation {
+  /** ln of the discount factor at t. */
+  lnDiscount(t: number): number;
+  /** Instantaneous forward f(t) = -d lnDF/dt, continuously compounded per year; right-continuous at nodes. */
+  forward(t: number): number;
+}
+
+export const INTERPOLATIONS = ['linear-zero', 'log-linear-discount', 'cubic-zero', 'monotone-convex', 'monotone-convex-positive'] as const;
+export type InterpolationId = (typeof INTERPOLATIONS)[number];
+
+export const isInterpolation = (x: unknown): x is InterpolationId =>
+  typeof x === 'string' && (INTERPOLATIONS as readonly string[]).includes(x);
+
+/**
+ * Builds an interpolation from node arrays (index 0 is t = 0, lnDF = 0). The arrays are read at
+ * construction only.
+ */
+export type InterpolatorFactory = (ts: ArrayLike<number>, lnDfs: ArrayLike<number>) => Interpolation;
+
+export interface InterpolatorSpec {
+  readonly id: InterpolationId;
+  readonly build: InterpolatorFactory;
+  /** True when moving one node moves the curve beyond its own two segments (needs sweeps). */
+  readonly global: boolean;
+  readonly label: string;
+}
+
+/**
+ * Index i of the segment [t_(i-1), t_i) holding t, for 1 <= i <= n (t at or past t_n gives n);
+ * right-continuous: t = t_i lies in segment i + 1.
+ */
+export function segmentIndex(ts: ArrayLike<number>, n: number, t: number): number {
+  let lo = 1;
+  let hi = n;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (t < ts[mid]!) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}

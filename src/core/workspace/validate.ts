@@ -1,0 +1,288 @@
+import { isExtrapolation, EXTRAPOLATIONS } from '../curve/curve.ts';
+import { INTERPOLATIONS, isInterpolation } from '../interpolation/types.ts';
+import { COMPOUNDINGS, isCompounding, type Compounding } from '../rates/compounding.ts';
+import { coreError, type CoreError } from '../result.ts';
+import { compareIso, isMonthEnd, parseIsoDate, type IsoDate } from '../time/date.ts';
+import { CURVE_DAY_COUNTS, DAY_COUNTS, isCurveDayCount, isDayCount, type DayCount } from '../time/dayCount.ts';
+import { addTenor, formatTenor, parseTenor } from '../time/tenor.ts';
+import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
+
+export const WORKSPACE_FORMAT = 'tenorscope-workspace';
+export const WORKSPACE_VERSION = 1;
+/** Top-level keys the workbench owns; the engine passes them through. */
+export const RESERVED_KEYS = ['scenarios', 'strategy', 'snapshots', 'view', 'note'] as const;
+const TOP_KEYS = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
+/** `curve.fit` is reserved for the parametric fits; only `none` is accepted by this engine version. */
+const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit'];
+
+/** Ranges (inclusive unless stated), decimals: rates -0.10..1.0; coupons 0..0.5; prices (0, 1000]. */
+export const RATE_MIN = -0.1;
+export const RATE_MAX = 1.0;
+export const COUPON_MAX = 0.5;
+export const PRICE_MAX = 1000;
+export const FREQUENCIES = [1, 2, 4, 12] as const;
+
+/** Fields each kind accepts besides `kind`, `tenor`, `maturity` and `enabled`. */
+const KIND_FIELDS: Readonly<Record<Quote['kind'], readonly string[]>> = {
+  deposit: ['rate', 'dayCount'],
+  bill: ['discountYield', 'price'],
+  zero: ['price', 'rate', 'compounding', 'dayCount'],
+  bond: ['coupon', 'frequency', 'cleanPrice', 'yield', 'dayCount', 'eom'],
+  swap: ['rate', 'frequency', 'dayCount', 'eom'],
+};
+
+export interface ValidationOutcome {
+  /** Null when the document as a whole is unusable (bad format, version, settlement or curve settings). */
+  readonly workspace: Workspace | null;
+  /** Document-level errors (fatal) and per-quote errors (their quotes are left out of `workspace.quotes`). */
+  readonly errors: readonly CoreError[];
+}
+
+const typeName = (v: unknown): string => (v === null ? 'null' : Array.isArray(v) ? 'an array' : typeof v === 'string' ? `the text "${String(v).slice(0, 40)}"` : typeof v);
+const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const listOf = (xs: readonly unknown[]): string => xs.map((x) => String(x)).join(', ');
+
+/**
+ * Validates a parsed workspace document (`{"format": "tenorscope-workspace", "version": 1, ...}`).
+ * Every error names its path and says what would be valid. Unknown fields are refused with
+ * their path (a misspelt `cleanprice` is caught). Quote errors do not stop the others being
+ * checked, so a caller may build from the valid quotes (`--skip-invalid`).
+ */
+export function validateWorkspace(doc: unknown): ValidationOutcome {
+  const errors: CoreError[] = [];
+  if (!isPlainObject(doc)) {
+    return { workspace: null, errors: [coreError('schema', '', `a workspace document must be a JSON object, not ${typeName(doc)}`)] };
+  }
+  for (const key of Object.keys(doc)) {
+    if (!TOP_KEYS.includes(key)) errors.push(coreError('schema', key, `unknown field "${key}"; a workspace has ${listOf(TOP_KEYS)}`));
+  }
+  if (doc.format !== WORKSPACE_FORMAT) {
+    errors.push(coreError('schema', 'format', `format must be "${WORKSPACE_FORMAT}", not ${typeName(doc.format)}`));
+  }
+  if (typeof doc.version !== 'number' || !Number.isInteger(doc.version) || doc.version < 1) {
+    errors.push(coreError('schema', 'version', `version must be the integer ${WORKSPACE_VERSION}, not ${typeName(doc.version)}`));
+  } else if (doc.version > WORKSPACE_VERSION) {
+    errors.push(
+      coreError('unsupported-version', 'version', `version ${doc.version} is newer than this engine reads (${WORKSPACE_VERSION}); open it with a newer Tenorscope`),
+    );
+  }
+  const settlement = checkDate(doc.settlement, 'settlement', errors);
+  const curve = checkCurve(doc.curve, errors);
+  if (!Array.isArray(doc.quotes)) {
+    errors.push(coreError('schema', 'quotes', `quotes must be an array of quote objects, not ${typeName(doc.quotes)}`));
+  }
+  if (errors.length > 0 || settlement === null || curve === null || !Array.isArray(doc.quotes)) return { workspace: null, errors };
+
+  const quotes: Quote[] = [];
+  doc.quotes.forEach((raw, index) => {
+    const quoteErrors: CoreError[] = [];
+    const q = checkQuote(raw, index, settlement, quoteErrors);
+    if (q && quoteErrors.length === 0) quotes.push(q);
+    errors.push(...quoteErrors);
+  });
+  const reserved: Record<string, unknown> = {};
+  for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
+  return { workspace: { settlement, curve, quotes, quoteCount: doc.quotes.length, reserved }, errors };
+}
+
+function checkDate(v: unknown, path: string, errors: CoreError[], quote: number | null = null): IsoDate | null {
+  if (typeof v === 'string' && parseIsoDate(v)) return v;
+  errors.push(coreError('schema', path, `${path} must be a calendar date YYYY-MM-DD (for example 2027-03-10), not ${typeName(v)}`, quote));
+  return null;
+}
+
+function checkCurve(v: unknown, errors: CoreError[]): CurveSettings | null {
+  if (v === undefined) return DEFAULT_CURVE;
+  if (!isPlainObject(v)) {
+    errors.push(coreError('schema', 'curve', `curve must be an object such as {"dayCount": "ACT/365F", "interpolation": "monotone-convex"}, not ${typeName(v)}`));
+    return null;
+  }
+  const before = errors.length;
+  for (const key of Object.keys(v)) {
+    if (!CURVE_KEYS.includes(key)) errors.push(coreError('schema', `curve.${key}`, `unknown field "curve.${key}"; curve has ${listOf(CURVE_KEYS)}`));
+  }
+  const dayCount = v.dayCount ?? DEFAULT_CURVE.dayCount;
+  if (!isCurveDayCount(dayCount)) {
+    const why = dayCount === 'ACT/ACT-ICMA' || dayCount === '30E/360-ISDA' ? `${String(dayCount)} needs an instrument and cannot be the curve's axis; ` : '';
+    errors.push(coreError('unknown-identifier', 'curve.dayCount', `${why}curve.dayCount must be one of ${listOf(CURVE_DAY_COUNTS)}, not ${typeName(dayCount)}`));
+  }
+  const interpolation = v.interpolation ?? DEFAULT_CURVE.interpolation;
+  if (!isInterpolation(interpolation)) {
+    errors.push(coreError('unknown-identifier', 'curve.interpolation', `curve.interpolation must be one of ${listOf(INTERPOLATIONS)}, not ${typeName(interpolation)}`));
+  }
+  const extrapolation = v.extrapolation ?? DEFAULT_CURVE.extrapolation;
+  if (!isExtrapolation(extrapolation)) {
+    errors.push(coreError('unknown-identifier', 'curve.extrapolation', `curve.extrapolation must be one of ${listOf(EXTRAPOLATIONS)}, not ${typeName(extrapolation)}`));
+  }
+  if (v.fit !== undefined && v.fit !== 'none') {
+    errors.push(coreError('unknown-identifier', 'curve.fit', `curve.fit must be "none" in this version, not ${typeName(v.fit)}`));
+  }
+  if (errors.length > before) return null;
+  return { dayCount, interpolation, extrapolation } as CurveSettings;
+}
+
+interface FieldReader {
+  number(field: string, min: number, max: number, what: string, minExclusive?: boolean): number | null | undefined;
+  dayCount(field: string, fallback: DayCount): DayCount | null;
+}
+
+function fieldReader(raw: Record<string, unknown>, index: number, errors: CoreError[]): FieldReader {
+  const path = (f: string): string => `quotes[${index}].${f}`;
+  return {
+    number(field, min, max, what, minExclusive = false) {
+      const v = raw[field];
+      if (v === undefined) return undefined;
+      if (typeof v !== 'number' || !Number.isFinite(v)) {
+        errors.push(coreError('schema', path(field), `${path(field)}: must be a number ${what}, not ${typeName(v)}`, index));
+        return null;
+      }
+      if ((minExclusive ? v <= min : v < min) || v > max) {
+        const hint = field !== 'cleanPrice' && field !== 'price' && max <= RATE_MAX && v > 1 && v <= 100 ? ' (rates are decimals: 0.05 = 5%)' : '';
+        errors.push(coreError('range', path(field), `${path(field)}: must be a number ${what}, not ${v}${hint}`, index));
+        return null;
+      }
+      return v;
+    },
+    dayCount(field, fallback) {
+      const v = raw[field] ?? fallback;
+      if (isDayCount(v)) return v;
+      errors.push(coreError('unknown-identifier', path(field), `${path(field)}: must be one of ${listOf(DAY_COUNTS)}, not ${typeName(v)}`, index));
+      return null;
+    },
+  };
+}
+
+const RATE_TEXT = `from ${RATE_MIN} to ${RATE_MAX}`;
+
+function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: CoreError[]): Quote | null {
+  const base = `quotes[${index}]`;
+  if (!isPlainObject(raw)) {
+    errors.push(coreError('schema', base, `${base}: a quote must be an object such as {"kind": "deposit", "tenor": "3M", "rate": 0.031}, not ${typeName(raw)}`, index));
+    return null;
+  }
+  const kind = raw.kind;
+  if (typeof kind !== 'string' || !(QUOTE_KINDS as readonly string[]).includes(kind)) {
+    errors.push(coreError('unknown-identifier', `${base}.kind`, `${base}.kind: must be one of ${listOf(QUOTE_KINDS)}, not ${typeName(kind)}`, index));
+    return null;
+  }
+  const k = kind as Quote['kind'];
+  const allowed = ['kind', 'tenor', 'maturity', 'enabled', ...KIND_FIELDS[k]];
+  for (const key of Object.keys(raw)) {
+    if (!allowed.includes(key)) {
+      errors.push(coreError('schema', `${base}.${key}`, `${base}.${key}: unknown field for a ${k}; a ${k} takes ${listOf(allowed)}`, index));
+    }
+  }
+  // Maturity: exactly one of tenor and maturity.
+  let maturity: IsoDate | null = null;
+  let tenor: string | null = null;
+  const hasTenor = raw.tenor !== undefined;
+  const hasMaturity = raw.maturity !== undefined;
+  if (hasTenor === hasMaturity) {
+    errors.push(coreError('schema', base, `${base}: give exactly one of tenor (such as "5Y") and maturity (a date YYYY-MM-DD)`, index));
+  } else if (hasTenor) {
+    const parsed = typeof raw.tenor === 'string' ? parseTenor(raw.tenor) : null;
+    if (!parsed || raw.tenor !== (raw.tenor as string).trim()) {
+      errors.push(coreError('schema', `${base}.tenor`, `${base}.tenor: must be a tenor nD, nW, nM or nY with n >= 1 (such as "3M"), not ${typeName(raw.tenor)}`, index));
+    } else {
+      tenor = formatTenor(parsed);
+      maturity = addTenor(settlement, parsed, 1, false);
+    }
+  } else {
+    maturity = checkDate(raw.maturity, `${base}.maturity`, errors, index);
+  }
+  if (maturity !== null && compareIso(maturity, settlement) <= 0) {
+    errors.push(coreError('before-settlement', `${base}.${hasTenor ? 'tenor' : 'maturity'}`, `${base}: maturity ${maturity} must be after the settlement date ${settlement}`, index));
+    maturity = null;
+  }
+  let enabled = true;
+  if (raw.enabled !== undefined) {
+    if (typeof raw.enabled !== 'boolean') errors.push(coreError('schema', `${base}.enabled`, `${base}.enabled: must be true or false, not ${typeName(raw.enabled)}`, index));
+    else enabled = raw.enabled;
+  }
+  const read = fieldReader(raw, index, errors);
+  const required = <T>(v: T | null | undefined, field: string, what: string): T | null => {
+    if (v === undefined) errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: required, a number ${what}`, index));
+    return v ?? null;
+  };
+  const oneOf = (a: string, b: string): void => {
+    if ((raw[a] === undefined) === (raw[b] === undefined)) {
+      errors.push(coreError('schema', base, `${base}: a ${k} takes exactly one of ${a} and ${b}`, index));
+    }
+  };
+  const frequency = (): number | null => {
+    const v = raw.frequency;
+    if (v === undefined) return k === 'bond' ? 2 : 1;
+    if (typeof v === 'number' && (FREQUENCIES as readonly number[]).includes(v)) return v;
+    errors.push(coreError(typeof v === 'number' ? 'range' : 'schema', `${base}.frequency`, `${base}.frequency: must be one of ${listOf(FREQUENCIES)} payments a year, not ${typeName(v)}`, index));
+    return null;
+  };
+  const eom = (fallback: boolean): boolean | null => {
+    if (raw.eom === undefined) return fallback;
+    if (typeof raw.eom === 'boolean') return raw.eom;
+    errors.push(coreError('schema', `${base}.eom`, `${base}.eom: must be true or false, not ${typeName(raw.eom)}`, index));
+    return null;
+  };
+  const priceWhat = `above 0 up to ${PRICE_MAX} (per 100 face)`;
+  const common = { index, maturity: maturity ?? settlement, tenor, enabled };
+  const before = errors.length;
+  let quote: Quote | null = null;
+  switch (k) {
+    case 'deposit': {
+      const rate = required(read.number('rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT);
+      const dayCount = read.dayCount('dayCount', 'ACT/360');
+      if (rate !== null && dayCount) quote = { kind: 'deposit', ...common, rate, dayCount };
+      break;
+    }
+    case 'bill': {
+      oneOf('discountYield', 'price');
+      const discountYield = read.number('discountYield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
+      const price = read.number('price', 0, PRICE_MAX, priceWhat, true) ?? null;
+      quote = { kind: 'bill', ...common, discountYield, price };
+      break;
+    }
+    case 'zero': {
+      oneOf('price', 'rate');
+      const price = read.number('price', 0, PRICE_MAX, priceWhat, true) ?? null;
+      const rate = read.number('rate', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
+      if (raw.rate === undefined && (raw.compounding !== undefined || raw.dayCount !== undefined)) {
+        errors.push(coreError('schema', base, `${base}: compounding and dayCount go with a rate; a zero quoted by price takes neither`, index));
+      }
+      let compounding: Compounding = 'annual';
+      if (raw.compounding !== undefined) {
+        if (isCompounding(raw.compounding)) compounding = raw.compounding;
+        else errors.push(coreError('unknown-identifier', `${base}.compounding`, `${base}.compounding: must be one of ${listOf(COMPOUNDINGS)}, not ${typeName(raw.compounding)}`, index));
+      }
+      const dayCount = read.dayCount('dayCount', 'ACT/365F');
+      if (dayCount === 'ACT/ACT-ICMA') {
+        errors.push(coreError('unknown-identifier', `${base}.dayCount`, `${base}.dayCount: ACT/ACT-ICMA needs a coupon period, which a zero has not; use one of ${listOf(DAY_COUNTS.filter((d) => d !== 'ACT/ACT-ICMA'))}`, index));
+      }
+      if (dayCount) quote = { kind: 'zero', ...common, price, rate, compounding, dayCount };
+      break;
+    }
+    case 'bond': {
+      const coupon = required(read.number('coupon', 0, COUPON_MAX, `from 0 to ${COUPON_MAX}`), 'coupon', `from 0 to ${COUPON_MAX}`);
+      const freq = frequency();
+      oneOf('cleanPrice', 'yield');
+      const cleanPrice = read.number('cleanPrice', 0, PRICE_MAX, priceWhat, true) ?? null;
+      const y = read.number('yield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
+      const dayCount = read.dayCount('dayCount', 'ACT/ACT-ICMA');
+      const endOfMonth = eom(maturity !== null && isMonthEnd(parseIsoDate(maturity)!));
+      if (coupon !== null && freq !== null && dayCount && endOfMonth !== null) {
+        quote = { kind: 'bond', ...common, coupon, frequency: freq, cleanPrice, yield: y, dayCount, eom: endOfMonth };
+      }
+      break;
+    }
+    case 'swap': {
+      const rate = required(read.number('rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT);
+      const freq = frequency();
+      const dayCount = read.dayCount('dayCount', '30/360');
+      const endOfMonth = eom(false);
+      if (rate !== null && freq !== null && dayCount && endOfMonth !== null) {
+        quote = { kind: 'swap', ...common, rate, frequency: freq, dayCount, eom: endOfMonth };
+      }
+      break;
+    }
+  }
+  if (errors.length > before || maturity === null) return null;
+  return quote;
+}
