@@ -1,0 +1,126 @@
+// The calculation core (src/core) is pure: it imports nothing but itself, knows nothing of the
+// page, and never reads the clock or a random source, so the same inputs give the same curve in
+// the browser, the CLI and the tests. This file enforces that by scanning the source text.
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { checkCoreFile, lex, importsOf, type Finding } from './helpers/source-scan.ts';
+
+const repo = fileURLToPath(new URL('..', import.meta.url));
+const coreRoot = path.join(repo, 'src', 'core');
+const SOURCE = /\.(?:[cm]?[jt]sx?)$/;
+
+function sourceFiles(dir: string): string[] {
+  return readdirSync(dir, { withFileTypes: true, recursive: true })
+    .filter((e) => e.isFile() && SOURCE.test(e.name) && !e.name.endsWith('.d.ts'))
+    .map((e) => path.join(e.parentPath, e.name))
+    .sort();
+}
+
+const describeFindings = (findings: readonly Finding[]): string =>
+  findings.map((f) => `${path.relative(repo, f.file)}:${f.line}: ${f.detail}`).join('\n');
+
+/** Checks a sample as if it were the file src/core/curve/sample.ts. */
+const check = (sample: string): Finding[] =>
+  checkCoreFile(path.join(coreRoot, 'curve', 'sample.ts'), sample, { root: coreRoot });
+const rulesBroken = (sample: string): string[] => check(sample).map((f) => f.detail);
+
+describe('src/core stays a pure calculation core', () => {
+  const files = sourceFiles(coreRoot);
+
+  it('has source files to check', () => {
+    expect(files.length).toBeGreaterThan(0);
+  });
+
+  it('imports nothing outside src/core and touches no page, clock or random source', () => {
+    const findings = files.flatMap((file) => checkCoreFile(file, readFileSync(file, 'utf8'), { root: coreRoot }));
+    expect(findings, `forbidden use in src/core:\n${describeFindings(findings)}`).toEqual([]);
+  });
+});
+
+describe('source scanner self-check', () => {
+  it('detects a forbidden import in a sample string', () => {
+    expect(rulesBroken("import { useState } from 'react';")).toEqual(["imports UI/state package 'react'"]);
+  });
+
+  it('detects every forbidden package and every import form', () => {
+    const sample = [
+      "import { createRoot } from 'react-dom/client';",
+      "import type { StoreApi } from 'zustand';",
+      "export { scaleLinear } from 'd3-scale';",
+      "import 'd3-shape';",
+      "const lib = await import('decimal.js');",
+      "const fs = require('node:fs');",
+      "import { x } from '../../cli/curveCommand.ts';",
+      'const dynamic = await import(name);',
+    ].join('\n');
+    expect(check(sample).map((f) => `${f.line}: ${f.detail}`)).toEqual([
+      "1: imports UI/state package 'react-dom/client'",
+      "2: imports UI/state package 'zustand'",
+      "3: imports UI/state package 'd3-scale'",
+      "4: imports UI/state package 'd3-shape'",
+      `5: imports 'decimal.js' from outside ${coreRoot}`,
+      `6: imports 'node:fs' from outside ${coreRoot}`,
+      `7: imports '../../cli/curveCommand.ts', which resolves outside ${coreRoot}`,
+      '8: import or require whose module is not a string literal (cannot be checked)',
+    ]);
+  });
+
+  it('accepts imports that stay inside src/core', () => {
+    expect(rulesBroken("import { a } from './a.ts';\nimport type { B } from '../time/date.ts';")).toEqual([]);
+    expect(rulesBroken("export * from '../index.ts';")).toEqual([]);
+  });
+
+  it('detects each forbidden global', () => {
+    const sample = [
+      'const w = window.innerWidth;',
+      'document.title = "x";',
+      "localStorage.setItem('k', 'v');",
+      'const t = Date.now();',
+      'const d = new Date(2024, 0, 1);',
+      'const r = Math.random();',
+      'const p = performance.now();',
+      'const g = globalThis.window;',
+    ].join('\n');
+    expect(rulesBroken(sample)).toEqual([
+      'uses window',
+      'uses document',
+      'uses localStorage',
+      'uses Date.now',
+      'uses new Date',
+      'uses Math.random',
+      'uses performance.',
+      'uses window',
+    ]);
+  });
+
+  it('ignores comments, prose in strings and regular expressions, and unrelated property names', () => {
+    const sample = [
+      "// import React from 'react'; new Date()",
+      '/* window.document; Math.random() */',
+      "const message = 'open the document in a new window';",
+      'const t = `the document ${count} of the window`;',
+      "const re = /window|document|import x from 'react'/;",
+      'const source = quote.document;',
+      'interface Options {',
+      '  window?: number;',
+      '}',
+      'const o = { document: 1, window: 2 };',
+      'const url = "http://example.invalid/x"; const y = 1;',
+    ].join('\n');
+    expect(rulesBroken(sample)).toEqual([]);
+  });
+
+  it('still scans the code inside template literal expressions', () => {
+    expect(rulesBroken('const s = `now ${Date.now()} and ${`${window.name}`}`;')).toEqual(['uses Date.now', 'uses window']);
+  });
+
+  it('keeps line numbers and lengths when it strips comments and blanks literals', () => {
+    const source = "/* a\nb */ import x from './x.ts'; // c\nconst s = 'q';";
+    const lexed = lex(source);
+    expect(lexed.code).toHaveLength(source.length);
+    expect(lexed.code.split('\n')).toHaveLength(3);
+    expect(importsOf(lexed).map((r) => r.specifier)).toEqual(['./x.ts']);
+    expect(check("\n\nimport React from 'react';")[0]?.line).toBe(3);
+  });
+});
