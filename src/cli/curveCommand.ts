@@ -199,7 +199,10 @@ export function runCurveCommand(args: readonly string[], read: (file: string) =>
     stdout += JSON.stringify(out) + '\n';
     if (errors.length > 0) {
       anyFailed = true;
-      for (const e of errors) stderr += `document ${index}: ${e.path ? e.path + ': ' : ''}${e.code}: ${e.message}\n`;
+      for (const e of errors) {
+        const where = e.path && !e.message.startsWith(e.path) ? `${e.path}: ` : '';
+        stderr += `document ${index}: ${where}${e.message} [${e.code}]\n`;
+      }
     }
   });
   return { stdout, stderr, status: anyFailed ? 1 : 0 };

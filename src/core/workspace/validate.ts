@@ -137,7 +137,7 @@ function fieldReader(raw: Record<string, unknown>, index: number, errors: CoreEr
         return null;
       }
       if ((minExclusive ? v <= min : v < min) || v > max) {
-        const hint = field !== 'cleanPrice' && field !== 'price' && max <= RATE_MAX && v > 1 && v <= 100 ? ' (rates are decimals: 0.05 = 5%)' : '';
+        const hint = RATE_FIELDS.includes(field) && v > 1 ? '; rates are decimals: 0.05 = 5%' : '';
         errors.push(coreError('range', path(field), `${path(field)}: must be a number ${what}, not ${v}${hint}`, index));
         return null;
       }
@@ -153,6 +153,8 @@ function fieldReader(raw: Record<string, unknown>, index: number, errors: CoreEr
 }
 
 const RATE_TEXT = `from ${RATE_MIN} to ${RATE_MAX}`;
+/** Fields holding a decimal rate, whose values above 1 get the hint that rates are decimals. */
+const RATE_FIELDS = ['rate', 'discountYield', 'yield', 'coupon'];
 
 function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: CoreError[]): Quote | null {
   const base = `quotes[${index}]`;
