@@ -1,0 +1,42 @@
+// Loads the built app in Chromium: the page has its title and React rendered into #root.
+import type { Page } from 'playwright-core';
+import { diagnostics, launchBrowser, newPage, screenshot, serveDist, type TestBrowser } from './harness.ts';
+
+let browser: TestBrowser | undefined;
+let server: Awaited<ReturnType<typeof serveDist>> | undefined;
+let page: Page;
+
+beforeAll(async () => {
+  server = await serveDist();
+  browser = await launchBrowser();
+  page = await newPage(browser);
+  await page.goto(server.url, { waitUntil: 'load' });
+  // React renders after the module script runs; wait for #root to get content.
+  await page.waitForFunction(() => (document.querySelector('#root')?.childElementCount ?? 0) > 0, undefined, {
+    timeout: 20_000,
+  }).catch(() => undefined); // the assertions below report what is missing
+  await screenshot(page, 'smoke-home');
+});
+
+afterAll(async () => {
+  await page?.close();
+  await browser?.close();
+  await server?.close();
+});
+
+describe('built app smoke test', () => {
+  it('has the title Tenorscope', async () => {
+    expect(await page.title()).toBe('Tenorscope');
+  });
+
+  it('renders content into #root', async () => {
+    const root = page.locator('#root');
+    expect(await root.count()).toBe(1);
+    expect(await root.evaluate((el) => el.childElementCount)).toBeGreaterThan(0);
+    expect((await root.innerText()).trim()).not.toBe('');
+  });
+
+  it('loads without page errors, console errors, failed or off-machine requests', () => {
+    expect(diagnostics(page)).toEqual({ pageErrors: [], consoleErrors: [], failedRequests: [], blockedRequests: [] });
+  });
+});
