@@ -71,10 +71,10 @@ export async function launchBrowser(): Promise<TestBrowser> {
     const cause = error instanceof Error ? error.message : String(error);
     throw new BrowserLaunchError(
       `Chromium at ${CHROMIUM_PATH} failed to start.\n` +
-        `  args: ${CHROMIUM_ARGS.join(' ')} --user-data-dir=${userDataDir}\n` +
-        `  cause: ${firstLines(cause, 12)}\n` +
         `  Check that \`${CHROMIUM_PATH} --headless --no-sandbox --dump-dom about:blank\` works; ` +
-        `reinstall as root with: ${CHROMIUM_INSTALL}`,
+        `reinstall as root with: ${CHROMIUM_INSTALL}\n` +
+        `  args: ${CHROMIUM_ARGS.join(' ')} --user-data-dir=${userDataDir}\n` +
+        `  cause: ${firstLines(cause, 12)}`,
       { cause: error },
     );
   }

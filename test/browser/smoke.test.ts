@@ -31,9 +31,9 @@ describe('built app smoke test', () => {
 
   it('renders content into #root', async () => {
     const root = page.locator('#root');
-    expect(await root.count()).toBe(1);
-    expect(await root.evaluate((el) => el.childElementCount)).toBeGreaterThan(0);
-    expect((await root.innerText()).trim()).not.toBe('');
+    expect(await root.count(), 'index.html has one #root').toBe(1);
+    expect(await root.evaluate((el) => el.childElementCount), '#root has rendered elements').toBeGreaterThan(0);
+    expect((await root.innerText()).trim(), '#root shows text').not.toBe('');
   });
 
   it('loads without page errors, console errors, failed or off-machine requests', () => {
