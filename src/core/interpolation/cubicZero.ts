@@ -1,4 +1,4 @@
-import { segmentIndex, type Interpolation } from './types.ts';
+import { copyNodes, segmentIndex, type Interpolation } from './types.ts';
 
 /**
  * `cubic-zero`: a natural cubic spline (second derivative zero at both ends) through the
@@ -9,7 +9,7 @@ import { segmentIndex, type Interpolation } from './types.ts';
  */
 export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
   const n = ts.length - 1;
-  const t = Float64Array.from(ts);
+  const t = copyNodes(ts);
   const z = new Float64Array(n + 1);
   for (let i = 1; i <= n; i++) z[i] = -lnDfs[i]! / t[i]!;
   z[0] = z[1]!;

@@ -1,4 +1,4 @@
-import { segmentIndex, type Interpolation } from './types.ts';
+import { copyNodes, segmentIndex, type Interpolation } from './types.ts';
 
 /**
  * `monotone-convex` and `monotone-convex-positive`: P. S. Hagan and G. West, "Interpolation
@@ -18,8 +18,8 @@ import { segmentIndex, type Interpolation } from './types.ts';
 export function monotoneConvexFactory(positive: boolean) {
   return function interpolatorMonotoneConvex(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
     const n = ts.length - 1;
-    const t = Float64Array.from(ts);
-    const y = Float64Array.from(lnDfs);
+    const t = copyNodes(ts);
+    const y = copyNodes(lnDfs);
     const d = new Float64Array(n + 1); // d[i] for segment i, 1..n
     for (let i = 1; i <= n; i++) d[i] = -(y[i]! - y[i - 1]!) / (t[i]! - t[i - 1]!);
     const f = new Float64Array(n + 1);

@@ -44,3 +44,15 @@ export function segmentIndex(ts: ArrayLike<number>, n: number, t: number): numbe
   }
   return lo;
 }
+
+/**
+ * A private copy of node values as a Float64Array. Performance: `Float64Array.from` walks the
+ * iterator protocol and is many times slower than a typed-array slice; interpolations are built
+ * once per solver step in the bootstrap, so the copy is on the hot path.
+ */
+export function copyNodes(xs: ArrayLike<number>): Float64Array {
+  if (xs instanceof Float64Array) return xs.slice();
+  const out = new Float64Array(xs.length);
+  for (let i = 0; i < xs.length; i++) out[i] = xs[i]!;
+  return out;
+}
