@@ -47,8 +47,8 @@ export function billInvestmentYield(price: number, settlement: IsoDate, maturity
 
 export function compileBill(q: BillQuote, settlement: IsoDate, t: number): Instrument {
   const days = daysBetween(settlement, q.maturity);
-  const times = Float64Array.of(t);
-  const amounts = Float64Array.of(100);
+  const times = new Float64Array([t]);
+  const amounts = new Float64Array([100]);
   const byYield = q.discountYield !== null;
   const make = (value: number): Instrument => ({
     quote: q,

@@ -95,8 +95,12 @@ export function bondYieldFromDirty(s: BondSchedule, dirty: number): number | nul
 
 export function compileBond(q: BondQuote, settlement: IsoDate, t: number, time: (d: IsoDate) => number): Instrument {
   const s = bondSchedule(q, settlement);
-  const times = Float64Array.from(s.dates, time);
-  const amounts = Float64Array.from(s.amounts);
+  const times = new Float64Array(s.dates.length);
+  const amounts = new Float64Array(s.dates.length);
+  for (let j = 0; j < times.length; j++) {
+    times[j] = time(s.dates[j]!);
+    amounts[j] = s.amounts[j]!;
+  }
   const byYield = q.yield !== null;
   const model = (lnDiscountAt: (t: number) => number): number => {
     let pv = 0;

@@ -9,7 +9,7 @@ import type { Instrument } from './instrument.ts';
  */
 export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number): Instrument {
   const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-  const times = Float64Array.of(t);
+  const times = new Float64Array([t]);
   const make = (rate: number): Instrument => ({
     quote: q,
     index: q.index,
@@ -20,7 +20,7 @@ export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number):
     field: 'rate',
     market: rate,
     times,
-    amounts: Float64Array.of(1 + rate * tau),
+    amounts: new Float64Array([1 + rate * tau]),
     target: 1,
     modelQuote: (lnDiscountAt) => Math.expm1(-lnDiscountAt(t)) / tau,
     requote: make,

@@ -35,11 +35,16 @@ export function fixedLegPeriods(start: IsoDate, end: IsoDate, frequency: number,
  */
 export function compileSwap(q: SwapQuote, settlement: IsoDate, t: number, time: (d: IsoDate) => number): Instrument {
   const periods = fixedLegPeriods(settlement, q.maturity, q.frequency, q.dayCount, q.eom);
-  const times = Float64Array.from(periods, (p) => time(p.end));
-  const taus = Float64Array.from(periods, (p) => p.tau);
-  const n = times.length;
+  const n = periods.length;
+  const times = new Float64Array(n);
+  const taus = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    times[j] = time(periods[j]!.end);
+    taus[j] = periods[j]!.tau;
+  }
   const make = (rate: number): Instrument => {
-    const amounts = Float64Array.from(taus, (tau) => rate * tau);
+    const amounts = new Float64Array(n);
+    for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
     amounts[n - 1] = amounts[n - 1]! + 1;
     return {
       quote: q,

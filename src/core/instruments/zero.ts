@@ -10,8 +10,8 @@ import type { Instrument } from './instrument.ts';
  */
 export function compileZero(q: ZeroQuote, settlement: IsoDate, t: number): Instrument {
   const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-  const times = Float64Array.of(t);
-  const amounts = Float64Array.of(100);
+  const times = new Float64Array([t]);
+  const amounts = new Float64Array([100]);
   const byRate = q.rate !== null;
   const make = (value: number): Instrument => ({
     quote: q,

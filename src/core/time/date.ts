@@ -14,20 +14,28 @@ export interface CivilDate {
   readonly d: number; // 1..31
 }
 
-const ISO_RE = /^(\d{4})-(\d{2})-(\d{2})$/;
-
 export const isLeapYear = (y: number): boolean => (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
 
 const MONTH_DAYS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 export const daysInMonth = (y: number, m: number): number => (m === 2 && isLeapYear(y) ? 29 : MONTH_DAYS[m - 1]!);
 
+/** The number written by the characters [from, to) of text, or -1 when one is not a digit. */
+function digits(text: string, from: number, to: number): number {
+  let n = 0;
+  for (let i = from; i < to; i++) {
+    const c = text.charCodeAt(i) - 48;
+    if (c < 0 || c > 9) return -1;
+    n = n * 10 + c;
+  }
+  return n;
+}
+
 /** Parses `YYYY-MM-DD` (years 1900..2999); null when the text is not a real calendar date. */
 export function parseIsoDate(text: string): CivilDate | null {
-  const match = ISO_RE.exec(text);
-  if (!match) return null;
-  const y = Number(match[1]);
-  const m = Number(match[2]);
-  const d = Number(match[3]);
+  if (typeof text !== 'string' || text.length !== 10 || text.charCodeAt(4) !== 45 || text.charCodeAt(7) !== 45) return null;
+  const y = digits(text, 0, 4);
+  const m = digits(text, 5, 7);
+  const d = digits(text, 8, 10);
   if (y < 1900 || y > 2999 || m < 1 || m > 12 || d < 1 || d > daysInMonth(y, m)) return null;
   return { y, m, d };
 }
