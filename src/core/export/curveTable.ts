@@ -1,0 +1,107 @@
+import type { Curve } from '../curve/curve.ts';
+import { discountOn, forwardOn, parYieldOn, zeroOn } from '../curve/query.ts';
+import { COMPOUNDING_LABEL, type Compounding } from '../rates/compounding.ts';
+import type { CoreError } from '../result.ts';
+import type { CurveDayCount } from '../time/dayCount.ts';
+import type { IsoDate } from '../time/date.ts';
+import { addTenor, parseTenor } from '../time/tenor.ts';
+import { toCsv, type CsvCell } from './csv.ts';
+
+export interface CurveTableConventions {
+  readonly zeroCompounding: Compounding;
+  readonly zeroDayCount: CurveDayCount;
+  /** Par yields: coupons `parFrequency` times a year, ACT/ACT-ICMA accrual, compounded at that frequency. */
+  readonly parFrequency: 1 | 2 | 4 | 12;
+  /** Forwards over [date, date + forwardTenor]. */
+  readonly forwardTenor: string;
+  readonly forwardCompounding: Compounding;
+  readonly forwardDayCount: CurveDayCount;
+}
+
+export const defaultTableConventions = (curve: Curve): CurveTableConventions => ({
+  zeroCompounding: 'continuous',
+  zeroDayCount: curve.dayCount,
+  parFrequency: 2,
+  forwardTenor: '3M',
+  forwardCompounding: 'simple',
+  forwardDayCount: 'ACT/360',
+});
+
+/** One row of the curve table. Rates are decimals per year in the table's conventions; null where the curve cannot answer. */
+export interface CurveTableRow {
+  readonly label: string;
+  readonly date: IsoDate;
+  /** Years from settlement on the curve's axis. */
+  readonly t: number;
+  readonly discount: number | null;
+  readonly zero: number | null;
+  readonly par: number | null;
+  readonly forward: number | null;
+  readonly extrapolated: boolean;
+  readonly errors: readonly CoreError[];
+}
+
+const PAR_LABEL: Record<number, Compounding> = { 1: 'annual', 2: 'semiannual', 4: 'quarterly', 12: 'monthly' };
+
+/** Column headers with each rate's compounding and day count, such as "zero (cont, ACT/365F)". */
+export function curveTableHeaders(curve: Curve, conv: CurveTableConventions): string[] {
+  return [
+    'date',
+    `t (years, ${curve.dayCount})`,
+    'discount factor',
+    `zero (${COMPOUNDING_LABEL[conv.zeroCompounding]}, ${conv.zeroDayCount})`,
+    `par (${COMPOUNDING_LABEL[PAR_LABEL[conv.parFrequency]!]}, ACT/ACT-ICMA)`,
+    `forward ${conv.forwardTenor} (${COMPOUNDING_LABEL[conv.forwardCompounding]}, ${conv.forwardDayCount})`,
+  ];
+}
+
+/**
+ * The curve table at the given points: tenors from settlement ("5Y") or dates. Defaults to the
+ * curve's pillar dates. Each value is the engine's query (discountOn, zeroOn, parYieldOn, forwardOn).
+ */
+export function curveTable(curve: Curve, conv: CurveTableConventions, points?: readonly string[]): CurveTableRow[] {
+  const wanted = points ?? curve.pillars.map((p) => p.date);
+  return wanted.flatMap((label) => {
+    const tenor = parseTenor(label);
+    const date = tenor ? addTenor(curve.settlement, tenor) : label;
+    if (!tenor && !/^\d{4}-\d{2}-\d{2}$/.test(label)) return [];
+    const errors: CoreError[] = [];
+    const take = <T>(r: { ok: true; value: T } | { ok: false; errors: readonly CoreError[] }): T | null => {
+      if (r.ok) return r.value;
+      errors.push(...r.errors);
+      return null;
+    };
+    const df = take(discountOn(curve, date));
+    const zero = take(zeroOn(curve, date, conv.zeroCompounding, conv.zeroDayCount));
+    const par = take(parYieldOn(curve, date, conv.parFrequency));
+    const fwdTenor = parseTenor(conv.forwardTenor);
+    const fwd = fwdTenor ? take(forwardOn(curve, date, addTenor(date, fwdTenor), conv.forwardCompounding, conv.forwardDayCount)) : null;
+    return [
+      {
+        label,
+        date,
+        t: curve.time(date),
+        discount: df?.discount ?? null,
+        zero: zero?.zero ?? null,
+        par: par?.rate ?? null,
+        forward: fwd?.rate ?? null,
+        extrapolated: df?.extrapolated === true,
+        errors,
+      },
+    ];
+  });
+}
+
+/**
+ * The curve table as CSV. First row: the conventions (settlement, curve day count, interpolation);
+ * second row: column headers carrying each rate's compounding and day count; then one row per point,
+ * numbers at full double precision, empty cells where the curve cannot answer.
+ */
+export function curveTableCsv(curve: Curve, conv: CurveTableConventions, points?: readonly string[]): string {
+  const rows: CsvCell[][] = [
+    [`settlement ${curve.settlement}`, `curve day count ${curve.dayCount}`, `interpolation ${curve.interpolation}`, `extrapolation ${curve.extrapolation}`, 'rates are decimals per year'],
+    curveTableHeaders(curve, conv),
+  ];
+  for (const r of curveTable(curve, conv, points)) rows.push([r.date, r.t, r.discount, r.zero, r.par, r.forward]);
+  return toCsv(rows);
+}

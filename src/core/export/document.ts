@@ -1,0 +1,102 @@
+import type { Scenario } from '../analysis/scenarioShape.ts';
+import type { Snapshot } from '../analysis/scenarioSnapshots.ts';
+import { coreError, type CoreError } from '../result.ts';
+import type { Workspace } from '../workspace/types.ts';
+import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
+import { validateNote, validateScenarios, validateSnapshots, validateView, type ViewValue } from './documentKeys.ts';
+import { LIMITS } from './limits.ts';
+
+/** A workspace document after validation: the document itself (unchanged) and what was read from it. */
+export interface CheckedDocument {
+  /** The document exactly as given (after migration), to store, share or save. */
+  readonly document: Record<string, unknown>;
+  readonly workspace: Workspace;
+  readonly scenarios: readonly Scenario[];
+  readonly snapshots: readonly Snapshot[];
+  readonly note: string;
+  readonly view: Readonly<Record<string, ViewValue>>;
+  /** Errors of single quotes: the document is kept (the quotes show their errors where they are typed). */
+  readonly quoteErrors: readonly CoreError[];
+}
+
+export type DocumentOutcome = { readonly ok: true; readonly value: CheckedDocument } | { readonly ok: false; readonly errors: readonly CoreError[] };
+
+/** A step that rewrites a document of `from` version into version `from + 1`. */
+export interface DocumentMigration {
+  readonly from: number;
+  migrate(doc: Record<string, unknown>): Record<string, unknown>;
+}
+
+/** Migrations of older document versions, oldest first. Version 1 is the first published, so none yet. */
+export const DOCUMENT_MIGRATIONS: readonly DocumentMigration[] = [];
+
+const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/** Applies migrations from the document's version up to the current one; leaves other documents alone. */
+export function migrateDocument(doc: Record<string, unknown>, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): Record<string, unknown> {
+  let out = doc;
+  for (let guard = 0; guard < 100 && typeof out.version === 'number' && out.version < WORKSPACE_VERSION; guard++) {
+    const step = migrations.find((m) => m.from === out.version);
+    if (!step) break;
+    out = step.migrate(out);
+  }
+  return out;
+}
+
+/**
+ * Validates a workspace document read from untrusted input (a link or a file): caps first (quotes,
+ * scenarios, note, snapshots: LIMITS), then the engine's schema (validateWorkspace), then each
+ * reserved key this module owns. Document-level errors refuse the document; errors of single
+ * quotes are returned beside it. `strategy` is checked for size only; its owner validates it.
+ */
+export function validateDocument(raw: unknown, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): DocumentOutcome {
+  if (!isObj(raw)) return { ok: false, errors: [coreError('schema', '', 'a workspace document must be a JSON object')] };
+  if (raw.format !== WORKSPACE_FORMAT) {
+    return { ok: false, errors: [coreError('schema', 'format', `this is not a workspace document: format must be "${WORKSPACE_FORMAT}"`)] };
+  }
+  const doc = migrateDocument(raw, migrations);
+  if (Array.isArray(doc.quotes) && doc.quotes.length > LIMITS.quotes) {
+    return { ok: false, errors: [coreError('range', 'quotes', `${doc.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`)] };
+  }
+  const errors: CoreError[] = [];
+  const core = validateWorkspace(doc);
+  if (!core.workspace) return { ok: false, errors: core.errors };
+  const s = validateScenarios(doc.scenarios);
+  const n = validateNote(doc.note);
+  const v = validateView(doc.view);
+  const snaps = validateSnapshots(doc.snapshots);
+  errors.push(...s.errors, ...n.errors, ...v.errors, ...snaps.errors);
+  if (doc.strategy !== undefined) {
+    const size = isObj(doc.strategy) ? JSON.stringify(doc.strategy).length : -1;
+    if (size < 0 || size > LIMITS.strategyJson) errors.push(coreError('range', 'strategy', `strategy must be an object of at most ${LIMITS.strategyJson} characters of JSON`));
+  }
+  if (errors.length > 0) return { ok: false, errors };
+  return {
+    ok: true,
+    value: { document: doc, workspace: core.workspace, scenarios: s.scenarios, snapshots: snaps.snapshots, note: n.note, view: v.view, quoteErrors: core.errors },
+  };
+}
+
+/** Longest file read as a workspace (characters). */
+export const MAX_FILE_CHARS = 4_000_000;
+
+/** Parses and validates the text of a workspace file. Never throws. */
+export function parseDocumentText(text: string): DocumentOutcome {
+  if (text.length > MAX_FILE_CHARS) return { ok: false, errors: [coreError('range', '', `the file has ${text.length} characters; a workspace file is at most ${MAX_FILE_CHARS}`)] };
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(text);
+  } catch (e) {
+    return { ok: false, errors: [coreError('invalid-json', '', `the file is not valid JSON (${e instanceof Error ? e.message.slice(0, 120) : 'parse error'}); choose a workspace file saved by this app`)] };
+  }
+  return validateDocument(parsed);
+}
+
+/** The document as a file: pretty JSON with a final newline. */
+export const serialiseDocument = (doc: Record<string, unknown>): string => JSON.stringify(doc, null, 2) + '\n';
+
+/** What a link carries: the whole document except snapshots. */
+export function linkDocument(doc: Record<string, unknown>): Record<string, unknown> {
+  const { snapshots: _snapshots, ...rest } = doc;
+  return rest;
+}
