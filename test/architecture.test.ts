@@ -90,6 +90,7 @@ describe('source scanner self-check', () => {
       'const r = Math.random();',
       'const p = performance.now();',
       'const g = globalThis.window;',
+      'const { document } = saved;',
     ].join('\n');
     expect(rulesBroken(sample)).toEqual([
       'uses window',
@@ -100,6 +101,7 @@ describe('source scanner self-check', () => {
       'uses Math.random',
       'uses performance.',
       'uses window',
+      'uses document',
     ]);
   });
 
@@ -113,6 +115,7 @@ describe('source scanner self-check', () => {
       'const source = quote.document;',
       'interface Options {',
       '  window?: number;',
+      '  readonly document: Record<string, unknown>;',
       '}',
       'const o = { document: 1, window: 2 };',
       'const url = "http://example.invalid/x"; const y = 1;',

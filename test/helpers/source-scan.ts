@@ -208,7 +208,8 @@ function isPropertyName(code: string, index: number, length: number): boolean {
     return !(member && ['globalThis', 'self', 'global'].includes(member[1] ?? ''));
   }
   const after = code.slice(index + length);
-  return /^\s*\??\s*:/.test(after) && /(?:^|[{,;]|\n)\s*$/.test(before);
+  const declaring = /(?:^|[{,;]|\n)\s*(?:(?:readonly|public|private|protected|static|declare|abstract|override)\s+)*$/;
+  return /^\s*\??\s*:/.test(after) && declaring.test(before);
 }
 
 export interface CoreRules {
