@@ -1,0 +1,133 @@
+// Engine benchmark (`npm run bench:engine`; outside `npm test`). Builds the committed, invented
+// 40-quote market (test/fixtures/market40) and prints each figure against its target; exits 1 on
+// a miss. Targets from the engine issue, section 9:
+//   rebuild with unchanged instruments and moved quotes, log-linear      median <= 50 us
+//   10,000 shifted rebuilds, log-linear                                  total  <= 0.5 s
+//   cold build from a parsed document (buildCurve)                       median <= 150 us
+//   monotone-convex rebuild                                              median <= 10 x log-linear
+//   cubic-zero rebuild                                                   median <= 1 ms
+//   command-line batch, marginal time per document (parse and print)     <= 200 us
+// Medians are over >= 1,000 timed runs after a warm-up, except the command-line figure, which is
+// the median over repeated batch pairs of (T(2N) - T(N)) / N with N = 500 documents (so every
+// pair times 1,500 documents).
+import { readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import {
+  bootstrapInstruments,
+  buildCurve,
+  compileMarket,
+  validateWorkspace,
+  type BootstrapSettings,
+  type InterpolationId,
+  type Instrument,
+} from '../../src/core/index.ts';
+import { runCurveCommand } from '../../src/cli/curveCommand.ts';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const text = readFileSync(join(here, '..', 'fixtures', 'market40', 'market40.json'), 'utf8');
+const doc = JSON.parse(text) as Record<string, unknown>;
+
+const now = (): number => Number(process.hrtime.bigint()) / 1e3; // microseconds
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m]! : 0.5 * (s[m - 1]! + s[m]!);
+}
+
+/** Median time of f in microseconds over `runs` timed calls after `warm` untimed ones. */
+function timeMedian(f: (i: number) => void, runs: number, warm: number): number {
+  for (let i = 0; i < warm; i++) f(i);
+  const xs: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = now();
+    f(i);
+    xs.push(now() - t0);
+  }
+  return median(xs);
+}
+
+const validation = validateWorkspace(doc);
+const ws = validation.workspace;
+if (!ws || validation.errors.length > 0) throw new Error(`market40 fixture does not validate: ${JSON.stringify(validation.errors)}`);
+const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false);
+if (market.errors.length > 0 || market.instruments.length !== 40) throw new Error('market40 fixture does not compile to 40 instruments');
+const base = market.instruments;
+
+/** Moved quotes: every quote shifted by +-0.5 bp (rates) or +-0.05 (prices), alternating by run. */
+function shifted(i: number): Instrument[] {
+  const s = i % 2 === 0 ? 1 : -1;
+  return base.map((ins) => ins.requote(ins.market + s * (ins.unit === 'rate' ? 0.00005 : 0.05)));
+}
+// Pre-built shifted quote sets so that the timed region is the rebuild alone.
+const quoteSets = [shifted(0), shifted(1)];
+
+let failures = 0;
+const rebuild = (interpolation: InterpolationId) => {
+  const settings: BootstrapSettings = { settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation, extrapolation: 'none' };
+  return (i: number): void => {
+    const out = bootstrapInstruments(settings, quoteSets[i % 2]!);
+    if (!out.curve) failures++;
+  };
+};
+
+const rows: { figure: string; value: string; target: string; pass: boolean }[] = [];
+const us = (x: number): string => `${x.toFixed(1)} us`;
+
+const logLinear = timeMedian(rebuild('log-linear-discount'), 2000, 300);
+rows.push({ figure: 'rebuild, moved quotes, log-linear (median of 2000)', value: us(logLinear), target: '<= 50 us', pass: logLinear <= 50 });
+
+{
+  const f = rebuild('log-linear-discount');
+  const t0 = now();
+  for (let i = 0; i < 10000; i++) f(i);
+  const total = (now() - t0) / 1e6;
+  rows.push({ figure: '10,000 shifted rebuilds, log-linear (total)', value: `${total.toFixed(3)} s`, target: '<= 0.5 s', pass: total <= 0.5 });
+}
+
+const cold = timeMedian(() => {
+  const b = buildCurve(doc);
+  if (!b.curve) failures++;
+}, 1000, 200);
+rows.push({ figure: 'cold build from a parsed document, buildCurve (median of 1000)', value: us(cold), target: '<= 150 us', pass: cold <= 150 });
+
+const mc = timeMedian(rebuild('monotone-convex'), 1000, 100);
+rows.push({ figure: 'rebuild, moved quotes, monotone-convex (median of 1000)', value: `${us(mc)} = ${(mc / logLinear).toFixed(1)} x log-linear`, target: '<= 10 x log-linear', pass: mc <= 10 * logLinear });
+
+const cubic = timeMedian(rebuild('cubic-zero'), 1000, 100);
+rows.push({ figure: 'rebuild, moved quotes, cubic-zero (median of 1000)', value: us(cubic), target: '<= 1000 us', pass: cubic <= 1000 });
+
+{
+  const N = 500;
+  const line = JSON.stringify(doc);
+  const batch = (count: number): string => Array.from({ length: count }, () => line).join('\n') + '\n';
+  const small = batch(N);
+  const large = batch(2 * N);
+  const run = (input: string): number => {
+    const t0 = now();
+    const r = runCurveCommand(['-'], () => input);
+    const t = now() - t0;
+    if (r.status !== 0) failures++;
+    return t;
+  };
+  run(small); // warm-up
+  run(large);
+  const marginals: number[] = [];
+  for (let rep = 0; rep < 9; rep++) marginals.push((run(large) - run(small)) / N);
+  const marginal = median(marginals);
+  rows.push({ figure: `CLI batch, marginal time per document (N = ${N} vs ${2 * N}, median of 9 pairs)`, value: us(marginal), target: '<= 200 us', pass: marginal <= 200 });
+}
+
+if (failures > 0) rows.push({ figure: 'builds that failed during timing', value: String(failures), target: '0', pass: false });
+
+const w1 = Math.max(...rows.map((r) => r.figure.length), 6);
+const w2 = Math.max(...rows.map((r) => r.value.length), 6);
+const w3 = Math.max(...rows.map((r) => r.target.length), 6);
+const line = (a: string, b: string, c: string, d: string): string => `${a.padEnd(w1)}  ${b.padEnd(w2)}  ${c.padEnd(w3)}  ${d}`;
+console.log(`engine benchmark, market40 fixture (40 quotes), Node ${process.version}`);
+console.log(line('figure', 'value', 'target', 'pass'));
+for (const r of rows) console.log(line(r.figure, r.value, r.target, r.pass ? 'pass' : 'MISS'));
+const missed = rows.filter((r) => !r.pass).length;
+console.log(missed === 0 ? 'all targets met' : `${missed} target(s) missed`);
+process.exitCode = missed === 0 ? 0 : 1;
