@@ -1,0 +1,134 @@
+import { discountOn } from '../curve/query.ts';
+import { compareIso, type IsoDate } from '../time/date.ts';
+import { addTenor, parseTenor } from '../time/tenor.ts';
+import { shiftedCurve } from './horizonCurve.ts';
+import { brentRoot } from './rollSolve.ts';
+import { constantRateSpec, shiftedSpec, type RollView } from './rollViews.ts';
+import { bondPriceFromYieldOn, bondYieldFromPriceOn, parBondOn } from './strategyBonds.ts';
+import { bondAtHorizon, strategyGrowths, TERM_STRATEGY_IDS, type RollContext, type StrategyId, type TermStrategyId } from './strategyValues.ts';
+
+/**
+ * Break-evens of the roll-versus-term analysis. Every root is found with Brent's method
+ * (rollSolve.ts) on a stated bracket; a break-even with no root in its bracket is null (the
+ * strategies do not cross there), never a silent NaN.
+ */
+
+/** Brackets: roll rates (decimal, simple) and shifts (bp). */
+export const ROLL_RATE_BRACKET: readonly [number, number] = [-0.5, 1.5];
+export const SHIFT_BRACKET_BP: readonly [number, number] = [-3000, 3000];
+/** Maturities of the break-even curve, from settlement; only those after the horizon and on the curve are used. */
+export const BREAK_EVEN_TENORS = ['1Y', '2Y', '3Y', '4Y', '5Y', '7Y', '10Y', '15Y', '20Y', '30Y'] as const;
+
+export interface BreakEvenPoint {
+  readonly tenor: string;
+  readonly maturity: IsoDate;
+  /** The par bond's yield today: ICMA, decimal, compounded `frequency` times a year, ACT/ACT-ICMA. */
+  readonly yield: number;
+  readonly frequency: number;
+  /** The rise of that yield over the horizon (bp, same compounding) the carry absorbs; null when none in the bracket. */
+  readonly riseBp: number | null;
+}
+
+export interface RollBreakEvens {
+  /**
+   * r*: the constant rate for roll legs 2..n (leg 1 fixed at today's spot), decimal, simple on the
+   * roll day count, at which rolling ends equal to each term alternative. The bond's coupons are
+   * reinvested at r* as well; the riding bond is sold on the chosen view's horizon curve.
+   */
+  readonly rollRate: Readonly<Record<TermStrategyId, number | null>>;
+  /**
+   * The parallel shift (bp) of the chosen view (every rate set after today, simple on the roll day
+   * count, and the horizon curve's zero rates, continuous) at which rolling ends equal to each
+   * term alternative. Against forwards realised it is 0 for all three.
+   */
+  readonly shiftBp: Readonly<Record<TermStrategyId, number | null>>;
+  /**
+   * The parallel rise (bp) of the chosen view's horizon curve (zero rates, continuous, curve clock)
+   * at which riding ends equal to each other strategy under the chosen view: how far the curve
+   * can rise before riding's advantage is gone (negative: it is behind and needs a fall).
+   */
+  readonly ridingRiseBp: Readonly<Record<Exclude<StrategyId, 'riding'>, number | null>>;
+  /** For each maturity, the yield rise the carry can absorb (see breakEvenCurve). */
+  readonly curve: readonly BreakEvenPoint[];
+}
+
+export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEvens {
+  const growths = (rv: RollView) => strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, rv);
+  const rollRate = {} as Record<TermStrategyId, number | null>;
+  const shiftBp = {} as Record<TermStrategyId, number | null>;
+  for (const id of TERM_STRATEGY_IDS) {
+    const rr = brentRoot(
+      (r) => {
+        const g = growths(ctx.view(constantRateSpec(chosen.spec, r)));
+        return g.roll - g[id];
+      },
+      ROLL_RATE_BRACKET[0],
+      ROLL_RATE_BRACKET[1],
+      1e-15,
+    );
+    rollRate[id] = rr ? rr.x : null;
+    const sr = brentRoot(
+      (s) => {
+        const g = growths(ctx.view(shiftedSpec(chosen.spec, s)));
+        return g.roll - g[id];
+      },
+      SHIFT_BRACKET_BP[0],
+      SHIFT_BRACKET_BP[1],
+      1e-10,
+    );
+    shiftBp[id] = sr ? sr.x : null;
+  }
+  const base = growths(chosen);
+  const ridingRiseBp = {} as Record<Exclude<StrategyId, 'riding'>, number | null>;
+  for (const other of ['roll', 'zero', 'bond'] as const) {
+    const target = base[other];
+    const rr = brentRoot(
+      (d) => {
+        const moved: RollView = { ...chosen, horizonCurve: shiftedCurve(chosen.horizonCurve, d) };
+        const v = bondAtHorizon(ctx.riding, ctx.horizon, moved);
+        return (v.coupons + v.price) / 100 - target;
+      },
+      SHIFT_BRACKET_BP[0],
+      SHIFT_BRACKET_BP[1],
+      1e-10,
+    );
+    ridingRiseBp[other] = rr ? rr.x : null;
+  }
+  return { rollRate, shiftBp, ridingRiseBp, curve: breakEvenCurve(ctx) };
+}
+
+/**
+ * Break-even curve: for each maturity M after the horizon H, the par bond of M (coupon = today's
+ * par yield, the riding frequency) is bought today, its coupons up to H reinvested at today's
+ * forwards (growth DF(p)/DF(H)), and sold at H at its own yield y_M + d (ICMA). d* is the rise at
+ * which it ends equal to the zero-coupon lock-in to H (growth 1/DF(H)):
+ *   sum_{p <= H} CF_p DF(p)/DF(H) + P_H(y_M + d*) = 100 / DF(H).
+ * It is the yield rise the bond's carry over financing to H can absorb (the break-even yield
+ * change of Tuckman and Serrat, "Fixed Income Securities", carry and roll-down; cited from memory),
+ * and equals the bond's forward yield at H minus its yield today.
+ */
+export function breakEvenCurve(ctx: RollContext): BreakEvenPoint[] {
+  const { curve, horizon } = ctx;
+  const frequency = ctx.strategy.ridingFrequency;
+  const lnH = curve.lnDiscountAt(curve.time(horizon));
+  const out: BreakEvenPoint[] = [];
+  for (const tenorText of BREAK_EVEN_TENORS) {
+    const tenor = parseTenor(tenorText)!;
+    const maturity = addTenor(curve.settlement, tenor);
+    if (compareIso(maturity, horizon) <= 0) continue;
+    const d = discountOn(curve, maturity);
+    if (!d.ok || d.value.extrapolated) continue;
+    const bond = parBondOn(curve, maturity, frequency, 'maturity');
+    if (!bond.ok) continue;
+    const y = bondYieldFromPriceOn(bond.value, curve.settlement, 100);
+    if (!y.ok) continue;
+    let coupons = 0;
+    for (const f of bond.value.flows) {
+      if (compareIso(f.date, horizon) <= 0) coupons += f.amount * Math.exp(curve.lnDiscountAt(curve.time(f.date)) - lnH);
+    }
+    const target = 100 / Math.exp(lnH);
+    const root = brentRoot((dy) => coupons + bondPriceFromYieldOn(bond.value, horizon, y.value + dy) - target, -0.5, 1, 1e-15);
+    out.push({ tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root ? root.x * 10000 : null });
+  }
+  return out;
+}

@@ -1,0 +1,84 @@
+import { COMPOUNDING_LABEL, type Compounding } from '../rates/compounding.ts';
+import type { DayCount } from '../time/dayCount.ts';
+import type { RollBreakEvens } from './rollBreakEven.ts';
+import { formatMoney, MONEY_UNIT, type Money } from './strategyMoney.ts';
+import type { StrategyId, TermStrategyId } from './strategyValues.ts';
+import type { StrategyDescription, ViewOutcome } from './rollVsTerm.ts';
+
+/**
+ * Text for the roll-versus-term panel and the printed summary: every rate with its compounding and
+ * day count, money with its unit. Pure formatting of values the analysis computed.
+ */
+
+/** The tag of a rate convention: "simple, ACT/360", "ann, ACT/365F". */
+export const rateTag = (c: Compounding, dc: DayCount): string => `${COMPOUNDING_LABEL[c]}, ${dc}`;
+
+/** The tag of an ICMA bond yield paid f times a year: "s.a., ACT/ACT-ICMA". */
+export const yieldTag = (frequency: number): string =>
+  `${COMPOUNDING_LABEL[frequency === 1 ? 'annual' : frequency === 2 ? 'semiannual' : frequency === 4 ? 'quarterly' : 'monthly']}, ACT/ACT-ICMA`;
+
+/** Annualised returns of the analysis: annual compounding on ACT/365F. */
+export const RETURN_TAG = rateTag('annual', 'ACT/365F');
+
+/** A decimal rate as a percentage: formatRate(0.041234) = "4.123 %". Non-finite values read "n/a". */
+export const formatRate = (r: number, digits = 3): string => (Number.isFinite(r) ? `${(r * 100).toFixed(digits)} %` : 'n/a');
+
+/** Basis points with a sign: "+12.3 bp", "-4.0 bp", "0.0 bp". */
+export function formatBp(bp: number, digits = 1): string {
+  if (!Number.isFinite(bp)) return 'n/a';
+  const t = Math.abs(bp).toFixed(digits);
+  const zero = Number(t) === 0;
+  return `${zero ? '' : bp > 0 ? '+' : '-'}${t} bp`;
+}
+
+/** Money with its unit: "¤ 1,234,567.89". */
+export const formatAmount = (m: Money): string => `${MONEY_UNIT} ${formatMoney(m)}`;
+
+export interface SummaryInput {
+  readonly view: ViewOutcome;
+  readonly strategies: readonly StrategyDescription[];
+  readonly breakEvens: RollBreakEvens;
+  readonly horizon: string;
+  readonly rollTenor: string;
+  readonly rollDayCount: DayCount;
+  readonly legCount: number;
+}
+
+/**
+ * The result sentence: which strategy ends ahead under the chosen view and by how much (money and
+ * bp a year, annual ACT/365F), and the break-even roll rate (simple on the roll day count) against
+ * the strategy it is compared with.
+ */
+export function rollSentence(input: SummaryInput): string {
+  const { view, strategies, breakEvens } = input;
+  const label = (id: StrategyId): string => strategies.find((s) => s.id === id)?.phrase ?? id;
+  const outcome = (id: StrategyId) => view.strategies.find((s) => s.id === id)!;
+  const roll = outcome('roll');
+  const spread = Math.max(...view.strategies.map((s) => s.growth)) - Math.min(...view.strategies.map((s) => s.growth));
+  const rTag = rateTag('simple', input.rollDayCount);
+  const legsText = input.legCount > 2 ? `legs 2 to ${input.legCount}` : input.legCount === 2 ? 'leg 2' : null;
+  const rStar = (id: TermStrategyId): string => {
+    const r = breakEvens.rollRate[id];
+    if (legsText === null) return `With a single roll leg the roll is fixed today at its spot rate; there is no break-even roll rate.`;
+    return r === null
+      ? `No constant roll rate between ${formatRate(-0.5, 0)} and ${formatRate(1.5, 0)} makes rolling match ${label(id)}.`
+      : `Rolling matches ${label(id)} if ${legsText} earn ${formatRate(r)} (${rTag}).`;
+  };
+  if (spread <= 1e-12) {
+    return `Under ${view.phrase} every strategy ends at ${formatAmount(roll.terminal)} on ${input.horizon}: this is the baseline, what today's forwards imply. ${rStar('zero')}`;
+  }
+  if (view.best === 'roll') {
+    let rival: TermStrategyId = 'zero';
+    for (const id of ['bond', 'riding'] as const) if (outcome(id).growth > outcome(rival).growth) rival = id;
+    const r = outcome(rival);
+    return (
+      `Under ${view.phrase}, ${label('roll')} ends ahead at ${formatAmount(roll.terminal)} on ${input.horizon}, ` +
+      `${formatAmount(r.vsRoll.negated())} (${formatBp(-r.vsRollBp)} a year, ${RETURN_TAG}) more than ${label(rival)}. ${rStar(rival)}`
+    );
+  }
+  const best = outcome(view.best);
+  return (
+    `Under ${view.phrase}, ${label(view.best)} ends ahead at ${formatAmount(best.terminal)} on ${input.horizon}, ` +
+    `${formatAmount(best.vsRoll)} (${formatBp(best.vsRollBp)} a year, ${RETURN_TAG}) more than ${label('roll')}. ${rStar(view.best as TermStrategyId)}`
+  );
+}
