@@ -1,0 +1,260 @@
+import { bootstrapInstruments, type BootstrapSettings } from '../bootstrap/bootstrap.ts';
+import { curveFromPillars, type Curve } from '../curve/curve.ts';
+import { presentValue, type Instrument } from '../instruments/instrument.ts';
+import { periodsPerYear, rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
+import { coreError, fail, ok, type Result } from '../result.ts';
+import { compareIso, type IsoDate } from '../time/date.ts';
+import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
+import { addTenor, formatTenor, type Tenor } from '../time/tenor.ts';
+import { luFactor, luInverse } from './luDecomposition.ts';
+import { nodePartials } from './nodePartials.ts';
+import { quoteYieldOf, requoteAtYield, type QuoteYield } from './quoteYield.ts';
+
+/** One forward of the sensitivity map: the rate over [start, end] in the map's compounding and day count. */
+export interface ForwardRow {
+  readonly start: IsoDate;
+  readonly end: IsoDate;
+  /** Years from settlement to start and end on the curve's axis. */
+  readonly tStart: number;
+  readonly tEnd: number;
+  /** Year fraction of [start, end] under the map's day count. */
+  readonly tau: number;
+  /** Forward rate, decimal per year, in the map's compounding and day count. */
+  readonly rate: number;
+  readonly extrapolated: boolean;
+}
+
+/** One quote of the map (a column), in the curve's pillar order. */
+export interface SensitivityColumn {
+  /** Index of the quote in the workspace document. */
+  readonly index: number;
+  readonly kind: Instrument['kind'];
+  readonly maturity: IsoDate;
+  readonly field: string;
+  /** The yield the quote is moved through (its own yield; see quoteYield.ts). */
+  readonly yieldLabel: string;
+}
+
+export interface ForwardSensitivityMap {
+  readonly rows: readonly ForwardRow[];
+  readonly columns: readonly SensitivityColumn[];
+  /** dF_r / dq_k in bp of forward per bp of the quote's own yield, row-major (rows x columns). */
+  readonly values: Float64Array;
+  readonly compounding: Compounding;
+  readonly dayCount: CurveDayCount;
+}
+
+/** A bump of 1 bp, as a decimal. */
+export const ONE_BP = 1e-4;
+
+/**
+ * The forwards of one tenor whose starts step from settlement by `step` (settlement + k x step,
+ * counted from settlement, never chained), each running one tenor from its start, for as long as
+ * the end is on or before the curve's last pillar. Rates in compounding c and day count dc.
+ */
+export function forwardRows(curve: Curve, tenor: Tenor, step: Tenor, c: Compounding, dc: CurveDayCount): Result<ForwardRow[]> {
+  const last = curve.pillars[curve.pillars.length - 1];
+  if (!last) return fail(coreError('schema', 'curve', 'the curve has no pillars; add quotes first'));
+  const rows: ForwardRow[] = [];
+  for (let k = 0; k <= 2000; k++) {
+    const start = addTenor(curve.settlement, step, k);
+    const end = addTenor(start, tenor);
+    if (compareIso(end, last.date) > 0) break;
+    const tau = queryYearFraction(dc, start, end);
+    if (!(tau > 0)) return fail(coreError('empty-period', 'tenor', `a ${formatTenor(tenor)} forward from ${start} is an empty period on ${dc}; choose a longer tenor`));
+    const tStart = curve.time(start);
+    const tEnd = curve.time(end);
+    const L = curve.lnDiscountAt(tEnd) - (tStart > 0 ? curve.lnDiscountAt(tStart) : 0);
+    rows.push({ start, end, tStart, tEnd, tau, rate: rateFromLnDiscount(L, c, tau), extrapolated: false });
+  }
+  if (rows.length === 0) {
+    return fail(coreError('beyond-curve', 'tenor', `a ${formatTenor(tenor)} forward from settlement ends after the curve's last pillar ${last.date}; choose a shorter tenor`));
+  }
+  return ok(rows);
+}
+
+/** dF/dL for F = rateFromLnDiscount(L, c, tau), L = ln DF(end) - ln DF(start). */
+function dRateDLn(L: number, c: Compounding, tau: number): number {
+  if (c === 'continuous') return -1 / tau;
+  if (c === 'simple') return -Math.exp(-L) / tau;
+  return -Math.exp(-L / (periodsPerYear(c) * tau)) / tau;
+}
+
+const columnsOf = (instruments: readonly Instrument[], yields: readonly QuoteYield[]): SensitivityColumn[] =>
+  instruments.map((ins, k) => ({ index: ins.index, kind: ins.kind, maturity: ins.maturity, field: ins.field, yieldLabel: yields[k]!.label }));
+
+/**
+ * The Jacobian dq/dx of the quotes' own yields q_i with respect to the curve's nodes
+ * x_j = ln DF(T_j), by the implicit-function rule on each quote's pricing equation
+ * G_i(q_i, x) = PV_i(flows(q_i); x) - target_i(q_i) = 0:
+ *   dq_i/dx_j = -(dG_i/dx_j) / (dG_i/dq_i),  dG_i/dx_j = sum_f a_f DF(t_f) d lnDF(t_f)/dx_j,
+ * with dG_i/dq_i by a central difference of +-1e-7 in the own yield on the fixed curve (exact for
+ * the kinds whose flows or target are linear in the quote). Row-major, n x n, instruments in
+ * pillar order. Also returns the node partials at the extra times asked for.
+ */
+export function quoteNodeJacobian(
+  curve: Curve,
+  instruments: readonly Instrument[],
+  extraTimes: readonly number[] = [],
+): { jacobian: Float64Array; yields: QuoteYield[]; extraPartials: Float64Array } {
+  const n = instruments.length;
+  const index = new Map<number, number>();
+  const times: number[] = [];
+  const slot = (t: number): number => {
+    let k = index.get(t);
+    if (k === undefined) {
+      k = times.length;
+      index.set(t, k);
+      times.push(t);
+    }
+    return k;
+  };
+  const flowSlots = instruments.map((ins) => Array.from(ins.times, slot));
+  const extraSlots = extraTimes.map(slot);
+  const partials = nodePartials(curve, times);
+  const ln = curve.lnDiscountAt;
+  const yields = instruments.map((ins) => quoteYieldOf(ins, curve.settlement));
+  const jacobian = new Float64Array(n * n);
+  const delta = 1e-7;
+  instruments.forEach((ins, i) => {
+    const qy = yields[i]!;
+    const y0 = qy.toYield(ins.market);
+    const g = (y: number): number => {
+      const moved = requoteAtYield(ins, qy, y);
+      return presentValue(moved, ln) - moved.target;
+    };
+    const dGdq = (g(y0 + delta) - g(y0 - delta)) / (2 * delta);
+    const slots = flowSlots[i]!;
+    for (let f = 0; f < slots.length; f++) {
+      const w = ins.amounts[f]! * Math.exp(ln(ins.times[f]!));
+      const row = slots[f]! * n;
+      for (let j = 0; j < n; j++) jacobian[i * n + j] = jacobian[i * n + j]! - (w * partials[row + j]!) / dGdq;
+    }
+  });
+  const extraPartials = new Float64Array(extraSlots.length * n);
+  extraSlots.forEach((s, k) => extraPartials.set(partials.subarray(s * n, s * n + n), k * n));
+  return { jacobian, yields, extraPartials };
+}
+
+/**
+ * Sensitivity of each forward to each quote, in bp per bp, computed analytically from the
+ * bootstrap: dF/dq = dF/dx (dq/dx)^-1 (implicit-function theorem on the exact bootstrap, whose
+ * nodes x reprice every quote). A price quote is moved through its own yield (quoteYield.ts).
+ * `curve` must be the bootstrap of `instruments` (sorted by pillar time, as the bootstrap takes
+ * them). Cost: 2n interpolation builds, one n x n LU, rows x n^2 multiply-adds.
+ */
+export function forwardSensitivities(
+  curve: Curve,
+  instruments: readonly Instrument[],
+  rows: readonly ForwardRow[],
+  c: Compounding,
+  dc: CurveDayCount,
+): Result<ForwardSensitivityMap> {
+  const n = instruments.length;
+  if (n !== curve.pillars.length) {
+    return fail(coreError('schema', 'quotes', `the curve has ${curve.pillars.length} pillars but ${n} quotes were given; pass the quotes the curve was built from`));
+  }
+  const extra = rows.flatMap((r) => [r.tStart, r.tEnd]);
+  const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, extra);
+  const lu = luFactor(jacobian, n);
+  if (!lu) return fail(coreError('no-solution', 'quotes', 'the quotes do not determine the curve nodes one to one (a singular Jacobian); check for quotes that repeat the same information'));
+  const inv = luInverse(lu);
+  const values = new Float64Array(rows.length * n);
+  const g = new Float64Array(n);
+  rows.forEach((r, i) => {
+    const L = curve.lnDiscountAt(r.tEnd) - (r.tStart > 0 ? curve.lnDiscountAt(r.tStart) : 0);
+    const d = dRateDLn(L, c, r.tau);
+    for (let j = 0; j < n; j++) g[j] = d * (extraPartials[(2 * i + 1) * n + j]! - extraPartials[2 * i * n + j]!);
+    for (let j = 0; j < n; j++) {
+      const gj = g[j]!;
+      if (gj === 0) continue;
+      for (let k = 0; k < n; k++) values[i * n + k] = values[i * n + k]! + gj * inv[j * n + k]!;
+    }
+  });
+  return ok({ rows, columns: columnsOf(instruments, yields), values, compounding: c, dayCount: dc });
+}
+
+/** Rebuilds the curve with quote k moved by dy (decimal) through its own yield. */
+function rebuildBumped(settings: BootstrapSettings, instruments: readonly Instrument[], yields: readonly QuoteYield[], k: number, dy: number): Result<Curve> {
+  const moved = instruments.map((ins, i) => (i === k ? requoteAtYield(ins, yields[i]!, yields[i]!.toYield(ins.market) + dy) : ins));
+  const out = bootstrapInstruments(settings, moved);
+  if (!out.curve) return { ok: false, errors: out.errors };
+  return ok(out.curve);
+}
+
+/**
+ * The same map by brute force: each quote moved by +-bumpBp through its own yield, the curve
+ * rebuilt, the forwards recomputed, central difference. The check on `forwardSensitivities`.
+ */
+export function bumpedForwardSensitivities(
+  settings: BootstrapSettings,
+  instruments: readonly Instrument[],
+  rows: readonly ForwardRow[],
+  c: Compounding,
+  bumpBp = 1,
+): Result<Float64Array> {
+  const n = instruments.length;
+  const yields = instruments.map((ins) => quoteYieldOf(ins, settings.settlement));
+  const values = new Float64Array(rows.length * n);
+  const h = bumpBp * ONE_BP;
+  const rate = (curve: Curve, r: ForwardRow): number =>
+    rateFromLnDiscount(curve.lnDiscountAt(r.tEnd) - (r.tStart > 0 ? curve.lnDiscountAt(r.tStart) : 0), c, r.tau);
+  for (let k = 0; k < n; k++) {
+    const up = rebuildBumped(settings, instruments, yields, k, h);
+    if (!up.ok) return up;
+    const down = rebuildBumped(settings, instruments, yields, k, -h);
+    if (!down.ok) return down;
+    rows.forEach((r, i) => (values[i * n + k] = (rate(up.value, r) - rate(down.value, r)) / (2 * h)));
+  }
+  return ok(values);
+}
+
+/**
+ * d(model own yield of quote i) / d(market own yield of quote k) by rebuilding the curve with
+ * each quote moved by +-bumpBp; for an exact bootstrap this is the identity. Row-major n x n.
+ */
+export function modelQuoteJacobian(settings: BootstrapSettings, instruments: readonly Instrument[], bumpBp = 1): Result<Float64Array> {
+  const n = instruments.length;
+  const yields = instruments.map((ins) => quoteYieldOf(ins, settings.settlement));
+  const h = bumpBp * ONE_BP;
+  const out = new Float64Array(n * n);
+  const model = (curve: Curve, i: number): number => yields[i]!.toYield(instruments[i]!.modelQuote(curve.lnDiscountAt));
+  for (let k = 0; k < n; k++) {
+    const up = rebuildBumped(settings, instruments, yields, k, h);
+    if (!up.ok) return up;
+    const down = rebuildBumped(settings, instruments, yields, k, -h);
+    if (!down.ok) return down;
+    for (let i = 0; i < n; i++) out[i * n + k] = (model(up.value, i) - model(down.value, i)) / (2 * h);
+  }
+  return ok(out);
+}
+
+/**
+ * d(model own yield of quote i)/dx_j read directly off each quote's model-quote formula with the
+ * nodes moved by +-1e-6 (no pricing equation, no implicit function): an independent route to
+ * dq/dx, so that (this) x (quoteNodeJacobian)^-1 = identity is a real check.
+ */
+export function modelYieldNodeJacobian(curve: Curve, instruments: readonly Instrument[]): Float64Array {
+  const n = instruments.length;
+  const yields = instruments.map((ins) => quoteYieldOf(ins, curve.settlement));
+  const out = new Float64Array(n * n);
+  const base = curve.pillars.map((p) => Math.log(p.discount));
+  const h = 1e-6;
+  const curveAt = (j: number, dx: number): Curve => {
+    const pillars = curve.pillars.map((p, k) => (k === j ? { ...p, discount: Math.exp(base[k]! + dx) } : p));
+    return curveFromPillarsLike(curve, pillars);
+  };
+  for (let j = 0; j < n; j++) {
+    const up = curveAt(j, h);
+    const down = curveAt(j, -h);
+    for (let i = 0; i < n; i++) {
+      const qy = yields[i]!;
+      const ins = instruments[i]!;
+      out[i * n + j] = (qy.toYield(ins.modelQuote(up.lnDiscountAt)) - qy.toYield(ins.modelQuote(down.lnDiscountAt))) / (2 * h);
+    }
+  }
+  return out;
+}
+
+const curveFromPillarsLike = (curve: Curve, pillars: Curve['pillars']): Curve =>
+  curveFromPillars(curve.settlement, curve.dayCount, curve.interpolation, curve.extrapolation, pillars);

@@ -1,0 +1,44 @@
+import { bootstrapInstruments, type BootstrapSettings } from '../bootstrap/bootstrap.ts';
+import type { Instrument } from '../instruments/instrument.ts';
+import { ok, type Result } from '../result.ts';
+import type { Flow } from './keyRates.ts';
+import { quoteYieldOf, requoteAtYield } from './quoteYield.ts';
+import { ONE_BP } from './forwardSensitivity.ts';
+
+export interface QuoteDv01 {
+  /** Index of the quote in the workspace document. */
+  readonly index: number;
+  readonly kind: Instrument['kind'];
+  readonly maturity: string;
+  /** The yield the quote is moved through. */
+  readonly yieldLabel: string;
+  /** -(P(q + 1bp) - P(q - 1bp)) / 2: price per 100 face per bp of the quote's own yield. */
+  readonly dv01: number;
+}
+
+/**
+ * DV01 of a set of flows to each input quote: each quote moved by +-1 bp through its own yield
+ * (quoteYield.ts), the curve rebuilt with the same settings, the dirty price recomputed; central
+ * difference, per 100 face per bp. Positive when a rise in the quote lowers the price.
+ */
+export function quoteDv01s(settings: BootstrapSettings, instruments: readonly Instrument[], flows: readonly Flow[]): Result<QuoteDv01[]> {
+  const yields = instruments.map((ins) => quoteYieldOf(ins, settings.settlement));
+  const out: QuoteDv01[] = [];
+  for (let k = 0; k < instruments.length; k++) {
+    const price = (dy: number): Result<number> => {
+      const moved = instruments.map((ins, i) => (i === k ? requoteAtYield(ins, yields[i]!, yields[i]!.toYield(ins.market) + dy) : ins));
+      const built = bootstrapInstruments(settings, moved);
+      if (!built.curve) return { ok: false, errors: built.errors };
+      let p = 0;
+      for (const f of flows) p += f.amount * Math.exp(built.curve.lnDiscountAt(f.t));
+      return ok(p);
+    };
+    const up = price(ONE_BP);
+    if (!up.ok) return up;
+    const down = price(-ONE_BP);
+    if (!down.ok) return down;
+    const ins = instruments[k]!;
+    out.push({ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: yields[k]!.label, dv01: -(up.value - down.value) / 2 });
+  }
+  return ok(out);
+}

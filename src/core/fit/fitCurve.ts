@@ -1,0 +1,333 @@
+import { quoteYieldOf, type QuoteYield } from '../analytics/quoteYield.ts';
+import { compileQuote } from '../bootstrap/build.ts';
+import type { Curve, Pillar } from '../curve/curve.ts';
+import { bondDirtyFromYield, bondSchedule } from '../instruments/bond.ts';
+import { presentValue, type Instrument } from '../instruments/instrument.ts';
+import { coreError, fail, ok, type Result } from '../result.ts';
+import { curveTime } from '../time/dayCount.ts';
+import type { Workspace } from '../workspace/types.ts';
+import { levenbergMarquardt, type LmResult } from './levenbergMarquardt.ts';
+import {
+  betaCount,
+  FIT_MODEL_LABEL,
+  parameterCount,
+  parametricForward,
+  parametricLnDiscount,
+  paramsFromVector,
+  projectParams,
+  TAU_MAX,
+  TAU_MIN,
+  TAU_RATIO_MIN,
+  type FitModel,
+  type ParametricParams,
+} from './parametricForm.ts';
+
+/** What the fit minimises: yield errors (default) or price errors scaled to yield. */
+export const FIT_ERRORS = ['yield', 'price'] as const;
+export type FitErrors = (typeof FIT_ERRORS)[number];
+
+export interface FitOptions {
+  readonly model: FitModel;
+  /** `yield`: model minus market own yield; `price`: (market - model price) / (modified duration x dirty price). */
+  readonly errors?: FitErrors;
+  /** Weight per quote (by its index in the document), >= 0; default 1. Weight 0 leaves a quote out. */
+  readonly weights?: Readonly<Record<number, number>>;
+  /** Quotes (by index) left out of the objective; they still get residuals. */
+  readonly exclude?: readonly number[];
+  /** Svensson: tau2 >= ratio x tau1 (default TAU_RATIO_MIN). */
+  readonly tauRatio?: number;
+  /** Levenberg-Marquardt iterations at most (default 200). */
+  readonly maxIterations?: number;
+}
+
+/** A quote against the fitted curve. Yields in decimals of the quote's own yield; prices per 100 face. */
+export interface FitResidual {
+  readonly index: number;
+  readonly kind: Instrument['kind'];
+  readonly maturity: string;
+  /** Years on the curve's axis. */
+  readonly t: number;
+  readonly field: string;
+  readonly yieldLabel: string;
+  readonly included: boolean;
+  readonly weight: number;
+  readonly marketYield: number;
+  readonly modelYield: number;
+  /** Model minus market own yield, in bp. Positive: the market trades above the model price (rich). */
+  readonly residualBp: number;
+  /** Market and model price per 100 face (bonds dirty; deposits and swaps per 100 notional of their flows). */
+  readonly marketPrice: number;
+  readonly modelPrice: number;
+  /** Model minus market price per 100 face. */
+  readonly residualPrice: number;
+}
+
+/** A bond on the rich/cheap list. */
+export interface RichCheapEntry {
+  readonly index: number;
+  readonly maturity: string;
+  /** Coupon, decimal per year. */
+  readonly coupon: number;
+  readonly included: boolean;
+  /** Model minus market yield, bp (positive: rich). */
+  readonly residualBp: number;
+  /** Market minus model price per 100 face (positive: rich). */
+  readonly richnessPrice: number;
+  readonly verdict: 'rich' | 'cheap';
+}
+
+export interface FitResult {
+  readonly model: FitModel;
+  readonly errors: FitErrors;
+  readonly params: ParametricParams;
+  /** The fitted curve (lnDF = -y(t) t); flat-forward past the last included maturity like any curve. */
+  readonly curve: Curve;
+  readonly converged: boolean;
+  readonly iterations: number;
+  /** Why the refinement stopped (see LmResult). */
+  readonly stopReason: LmResult['reason'];
+  /** Weighted root-mean-square of the included residuals in the fitted measure, bp. */
+  readonly rmsBp: number;
+  /** Parameters that ended on a bound, e.g. "tau1 = 30 (upper bound)". */
+  readonly atBounds: readonly string[];
+  /** One sentence for the user: converged or not, and what to try. */
+  readonly report: string;
+  readonly residuals: readonly FitResidual[];
+  /** Bonds from richest to cheapest by residual price. */
+  readonly richCheap: readonly RichCheapEntry[];
+}
+
+interface Observation {
+  readonly ins: Instrument;
+  readonly qy: QuoteYield;
+  readonly weight: number;
+  readonly included: boolean;
+  readonly marketYield: number;
+  /** Dollar duration -dP/dy at the market yield, per unit of target (for price errors). */
+  readonly dollarDuration: number;
+  /** Scale from the instrument's target to per 100 face. */
+  readonly per100: number;
+}
+
+/** Flat continuously compounded yield of flows at a price, and its dollar duration sum a t e^(-c t). */
+function flatDollarDuration(ins: Instrument): number {
+  let c = 0;
+  for (let iter = 0; iter < 100; iter++) {
+    let p = 0;
+    let dp = 0;
+    for (let j = 0; j < ins.times.length; j++) {
+      const v = ins.amounts[j]! * Math.exp(-c * ins.times[j]!);
+      p += v;
+      dp += ins.times[j]! * v;
+    }
+    const step = (p - ins.target) / dp;
+    c += step;
+    if (Math.abs(step) < 1e-15) break;
+  }
+  let dd = 0;
+  for (let j = 0; j < ins.times.length; j++) dd += ins.times[j]! * ins.amounts[j]! * Math.exp(-c * ins.times[j]!);
+  return dd;
+}
+
+function observe(ws: Workspace, options: FitOptions): Observation[] {
+  const exclude = new Set(options.exclude ?? []);
+  return ws.quotes
+    .filter((q) => q.enabled)
+    .map((q) => {
+      const ins = compileQuote(q, ws.settlement, ws.curve.dayCount);
+      const qy = quoteYieldOf(ins, ws.settlement);
+      const w = options.weights?.[q.index] ?? 1;
+      const weight = Number.isFinite(w) && w > 0 ? w : 0;
+      const marketYield = qy.toYield(ins.market);
+      const dollarDuration = q.kind === 'bond' ? -bondDirtyFromYield(bondSchedule(q, ws.settlement), marketYield).dPdy : flatDollarDuration(ins);
+      const per100 = q.kind === 'deposit' || q.kind === 'swap' ? 100 : 1;
+      return { ins, qy, weight, included: weight > 0 && !exclude.has(q.index) && ins.t > 0, marketYield, dollarDuration, per100 };
+    })
+    .sort((a, b) => a.ins.t - b.ins.t || a.ins.index - b.ins.index);
+}
+
+/** A curve object on the parametric form; past `lastT` flat-forward as every curve. */
+function parametricCurve(ws: Workspace, p: ParametricParams, obs: readonly Observation[]): Curve {
+  const ln = (t: number): number => parametricLnDiscount(p, t);
+  const pillars: Pillar[] = [];
+  for (const o of obs) {
+    if (!o.included) continue;
+    const prev = pillars[pillars.length - 1];
+    if (prev && prev.t === o.ins.t) continue;
+    pillars.push({ date: o.ins.maturity, t: o.ins.t, discount: Math.exp(ln(o.ins.t)), quote: o.ins.index });
+  }
+  const lastT = pillars[pillars.length - 1]?.t ?? 0;
+  const lastLn = ln(lastT);
+  const lastF = parametricForward(p, lastT);
+  return {
+    settlement: ws.settlement,
+    dayCount: ws.curve.dayCount,
+    interpolation: ws.curve.interpolation,
+    extrapolation: ws.curve.extrapolation,
+    pillars,
+    lastT,
+    lnDiscountAt: (t) => (t <= lastT ? ln(t) : lastLn - lastF * (t - lastT)),
+    forwardAt: (t) => parametricForward(p, Math.min(t, lastT)),
+    time: (date) => curveTime(ws.curve.dayCount, ws.settlement, date),
+  };
+}
+
+
+/** The fitted-measure residual of one observation (decimal yield), NaN when the model has none. */
+function fittedResidual(o: Observation, errors: FitErrors, ln: (t: number) => number): number {
+  if (errors === 'yield') return o.qy.toYield(o.ins.modelQuote(ln)) - o.marketYield;
+  return (o.ins.target - presentValue(o.ins, ln)) / o.dollarDuration;
+}
+
+const logGrid = (lo: number, hi: number, count: number): number[] =>
+  Array.from({ length: count }, (_, i) => lo * Math.pow(hi / lo, i / (count - 1)));
+
+/**
+ * Fits Nelson-Siegel or Svensson to a workspace's enabled quotes by weighted least squares.
+ *
+ * 1. Profile over tau: on a log grid of tau (Svensson: pairs with tau2 >= ratio x tau1) the betas
+ *    are found by linear least squares steps (Gauss-Newton on the betas alone, which is exact in
+ *    one step for zero-rate quotes), keeping the grid point with the least weighted sum of squares.
+ * 2. Refine all parameters together by Levenberg-Marquardt (levenbergMarquardt.ts) from the best
+ *    grid points, inside the bounds (b in [-1, 1], 0.05 <= tau <= 30, tau2 >= ratio x tau1).
+ *
+ * Returns an error value when fewer quotes are included than the model has parameters; a fit
+ * that does not converge comes back with `converged: false` and a report saying what to try.
+ */
+export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> {
+  const model = options.model;
+  const errors = options.errors ?? 'yield';
+  const ratio = options.tauRatio ?? TAU_RATIO_MIN;
+  const label = FIT_MODEL_LABEL[model];
+  const obs = observe(ws, options);
+  const used = obs.filter((o) => o.included);
+  const np = parameterCount(model);
+  if (used.length < np) {
+    return fail(
+      coreError(
+        'no-solution',
+        'curve.fit',
+        `a ${label} fit has ${np} parameters and needs at least ${np} included quotes; ${used.length} ${used.length === 1 ? 'is' : 'are'} included: include more quotes or choose ${model === 'svensson' ? 'Nelson-Siegel' : 'the exact bootstrap'}`,
+      ),
+    );
+  }
+  const sqrtW = used.map((o) => Math.sqrt(o.weight));
+  const m = used.length;
+  const residualOf = (v: Float64Array, out: Float64Array): boolean => {
+    const p = paramsFromVector(model, v);
+    const ln = (t: number): number => parametricLnDiscount(p, t);
+    for (let i = 0; i < m; i++) {
+      const r = fittedResidual(used[i]!, errors, ln);
+      if (!Number.isFinite(r)) return false;
+      out[i] = sqrtW[i]! * r;
+    }
+    return true;
+  };
+  const project = (v: Float64Array): void => projectParams(model, v, ratio);
+  const nb = betaCount(model);
+
+  // 1. Profile over the taus.
+  const first = used[0]!;
+  const last = used[used.length - 1]!;
+  const betas0 = [last.marketYield, first.marketYield - last.marketYield, 0, 0].slice(0, nb);
+  const grid = logGrid(TAU_MIN, TAU_MAX, model === 'nelson-siegel' ? 25 : 12);
+  const tauSets: number[][] = model === 'nelson-siegel' ? grid.map((t) => [t]) : grid.flatMap((t1) => grid.filter((t2) => t2 >= ratio * t1).map((t2) => [t1, t2]));
+  const candidates: { v: Float64Array; ssr: number }[] = [];
+  for (const taus of tauSets) {
+    const betaResidual = (b: Float64Array, out: Float64Array): boolean => residualOf(Float64Array.from([...b, ...taus]), out);
+    const fitB = levenbergMarquardt(betaResidual, betas0, m, {
+      maxIterations: 4,
+      project: (b) => {
+        for (let i = 0; i < b.length; i++) b[i] = Math.min(1, Math.max(-1, b[i]!));
+      },
+    });
+    if (Number.isFinite(fitB.ssr)) candidates.push({ v: Float64Array.from([...fitB.x, ...taus]), ssr: fitB.ssr });
+  }
+  candidates.sort((a, b) => a.ssr - b.ssr);
+  if (candidates.length === 0) {
+    return fail(coreError('not-converged', 'curve.fit', `the ${label} fit found no starting point with finite errors; check the quotes for extreme values`));
+  }
+
+  // 2. Refine from the best few grid points.
+  let best: LmResult | null = null;
+  for (const c of candidates.slice(0, 3)) {
+    const r = levenbergMarquardt(residualOf, c.v, m, { project, maxIterations: options.maxIterations ?? 200 });
+    if (!Number.isFinite(r.ssr)) continue;
+    if (!best || (r.converged && !best.converged) || (r.converged === best.converged && r.ssr < best.ssr)) best = r;
+  }
+  if (!best) return fail(coreError('not-converged', 'curve.fit', `the ${label} fit broke down (non-finite errors); check the quotes for extreme values`));
+
+  const params = paramsFromVector(model, best.x);
+  const curve = parametricCurve(ws, params, obs);
+  const lnFit = (t: number): number => parametricLnDiscount(params, t);
+  const residuals: FitResidual[] = obs.map((o) => {
+    const modelYield = o.qy.toYield(o.ins.modelQuote(lnFit));
+    const modelPv = presentValue(o.ins, lnFit);
+    return {
+      index: o.ins.index,
+      kind: o.ins.kind,
+      maturity: o.ins.maturity,
+      t: o.ins.t,
+      field: o.ins.field,
+      yieldLabel: o.qy.label,
+      included: o.included,
+      weight: o.weight,
+      marketYield: o.marketYield,
+      modelYield,
+      residualBp: (modelYield - o.marketYield) * 1e4,
+      marketPrice: o.ins.target * o.per100,
+      modelPrice: modelPv * o.per100,
+      residualPrice: (modelPv - o.ins.target) * o.per100,
+    };
+  });
+  const wsum = used.reduce((s, o) => s + o.weight, 0);
+  const rmsBp = Math.sqrt(best.ssr / wsum) * 1e4;
+  const atBounds: string[] = [];
+  const names = model === 'nelson-siegel' ? ['b0', 'b1', 'b2', 'tau1'] : ['b0', 'b1', 'b2', 'b3', 'tau1', 'tau2'];
+  names.forEach((name, i) => {
+    const v = best.x[i]!;
+    if (name.startsWith('tau')) {
+      if (v <= TAU_MIN * (1 + 1e-12)) atBounds.push(`${name} = ${TAU_MIN} years (lower bound)`);
+      if (v >= TAU_MAX * (1 - 1e-12)) atBounds.push(`${name} = ${TAU_MAX} years (upper bound)`);
+    } else if (Math.abs(v) >= 1 - 1e-12) atBounds.push(`${name} = ${v} (bound +-1)`);
+  });
+  if (model === 'svensson' && params.tau2 !== null && params.tau2 <= ratio * params.tau1 * (1 + 1e-9)) {
+    atBounds.push(`tau2 = ${ratio} x tau1 (the ratio bound)`);
+  }
+  const worst = residuals.filter((r) => r.included).reduce((a, b) => (Math.abs(b.residualBp) > Math.abs(a.residualBp) ? b : a));
+  const report = best.converged
+    ? `${label} fit converged after ${best.iterations} iterations; weighted RMS error ${rmsBp.toFixed(2)} bp; largest residual quotes[${worst.index}] ${worst.residualBp.toFixed(2)} bp` +
+      (atBounds.length > 0 ? `; on a bound: ${atBounds.join(', ')}` : '')
+    : `${label} fit did not converge (${best.reason} after ${best.iterations} iterations); weighted RMS error ${rmsBp.toFixed(2)} bp, largest residual quotes[${worst.index}] ${worst.residualBp.toFixed(2)} bp; ` +
+      `try ${model === 'svensson' ? 'Nelson-Siegel, ' : ''}excluding quotes[${worst.index}] or lowering its weight, or check that quote`;
+  const richCheap: RichCheapEntry[] = residuals
+    .filter((r) => r.kind === 'bond')
+    .map((r) => {
+      const q = obs.find((o) => o.ins.index === r.index)!.ins.quote;
+      const richnessPrice = -r.residualPrice;
+      return {
+        index: r.index,
+        maturity: r.maturity,
+        coupon: q.kind === 'bond' ? q.coupon : 0,
+        included: r.included,
+        residualBp: r.residualBp,
+        richnessPrice,
+        verdict: richnessPrice >= 0 ? ('rich' as const) : ('cheap' as const),
+      };
+    })
+    .sort((a, b) => b.richnessPrice - a.richnessPrice);
+  return ok({
+    model,
+    errors,
+    params,
+    curve,
+    converged: best.converged,
+    iterations: best.iterations,
+    stopReason: best.reason,
+    rmsBp,
+    atBounds,
+    report,
+    residuals,
+    richCheap,
+  });
+}
