@@ -1,0 +1,56 @@
+import { Caution } from '../components/Caution.tsx';
+import { StorageBanner, StorageStatusText } from '../components/StorageBanner.tsx';
+import { CurvesPanel } from '../features/curves/CurvesPanel.tsx';
+import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
+import { SettingsBar } from '../features/settings/SettingsBar.tsx';
+import { useCurveBuild } from '../hooks/useCurveBuild.ts';
+import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';
+import { useAppStore } from '../state/store.ts';
+import { EXTENSIONS } from './extensions.tsx';
+import { TablesPanel } from './TablesPanel.tsx';
+
+/** The workbench: quotes in, zero and forward curves side by side, every number readable. */
+export function App() {
+  useUndoShortcuts();
+  const result = useCurveBuild();
+  const canUndo = useAppStore((s) => s.past.length > 0);
+  const canRedo = useAppStore((s) => s.future.length > 0);
+  const { undo, redo, resetToDemo } = useAppStore.getState();
+  const Roll = EXTENSIONS.rollPanel;
+  return (
+    <div className="app">
+      <header className="top">
+        <h1>Tenorscope</h1>
+        <span className="subtitle">yield-curve workbench</span>
+        <div className="top-actions">
+          <StorageStatusText />
+          <button type="button" onClick={undo} disabled={!canUndo} aria-keyshortcuts="Control+Z Meta+Z" title="Undo (Ctrl+Z)">
+            Undo
+          </button>
+          <button type="button" onClick={redo} disabled={!canRedo} aria-keyshortcuts="Control+Shift+Z Control+Y Meta+Shift+Z" title="Redo (Ctrl+Shift+Z or Ctrl+Y)">
+            Redo
+          </button>
+          <button type="button" onClick={resetToDemo} title="Replace the workspace with the built-in demo (undoable)">
+            Reset to demo
+          </button>
+        </div>
+      </header>
+      <Caution />
+      <StorageBanner />
+      <SettingsBar />
+      <main className="workbench">
+        <QuoteSheet result={result} />
+        <div className="right">
+          <CurvesPanel result={result} />
+          <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
+            {Roll ? <Roll result={result} /> : <p className="muted small">Roll versus term: panel slot (not installed in this build).</p>}
+          </section>
+        </div>
+      </main>
+      <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
+      <footer className="foot">
+        <Caution />
+      </footer>
+    </div>
+  );
+}

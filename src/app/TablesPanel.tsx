@@ -1,0 +1,66 @@
+import { useRef, type KeyboardEvent, type ReactNode } from 'react';
+import { ForwardGridTable } from '../features/tables/ForwardGridTable.tsx';
+import { ForwardStripTable } from '../features/tables/ForwardStripTable.tsx';
+import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
+import { QuoteCheckTable } from '../features/tables/QuoteCheckTable.tsx';
+import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
+import { useAppStore } from '../state/store.ts';
+
+interface TabDef {
+  readonly id: string;
+  readonly label: string;
+  readonly render: (props: { result: WorkbenchBuild }) => ReactNode;
+}
+
+const needCurve = (f: (r: WorkbenchBuild) => ReactNode) => ({ result }: { result: WorkbenchBuild }) =>
+  result.build.curve ? f(result) : <p className="empty">No curve: {result.fatal}</p>;
+
+const BASE_TABS: readonly TabDef[] = [
+  { id: 'key-maturities', label: 'Key maturities', render: needCurve((r) => <KeyMaturitiesTable curve={r.build.curve!} />) },
+  { id: 'forward-strip', label: 'Forward strip', render: needCurve((r) => <ForwardStripTable curve={r.build.curve!} />) },
+  { id: 'forward-grid', label: 'Forward grid', render: needCurve((r) => <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} />) },
+  { id: 'quote-check', label: 'Quote check', render: ({ result }) => <QuoteCheckTable result={result} /> },
+];
+
+/** Tables under the charts, as tabs; other features add theirs through EXTENSIONS.tabs. */
+export function TablesPanel({ result, extraTabs }: { result: WorkbenchBuild; extraTabs: readonly TabDef[] }) {
+  const active = useAppStore((s) => s.activeTab);
+  const setActiveTab = useAppStore((s) => s.setActiveTab);
+  const tabs = [...BASE_TABS, ...extraTabs];
+  const current = tabs.find((t) => t.id === active) ?? tabs[0]!;
+  const listRef = useRef<HTMLDivElement>(null);
+  const onKeyDown = (e: KeyboardEvent<HTMLDivElement>): void => {
+    const i = tabs.findIndex((t) => t.id === current.id);
+    const next = e.key === 'ArrowRight' ? (i + 1) % tabs.length : e.key === 'ArrowLeft' ? (i - 1 + tabs.length) % tabs.length : -1;
+    if (next < 0) return;
+    e.preventDefault();
+    setActiveTab(tabs[next]!.id);
+    listRef.current?.querySelectorAll<HTMLButtonElement>('[role="tab"]')[next]?.focus();
+  };
+  return (
+    <section className="panel tables" aria-label="Tables">
+      <div role="tablist" aria-label="Tables" ref={listRef} onKeyDown={onKeyDown}>
+        {tabs.map((t) => (
+          <button
+            key={t.id}
+            type="button"
+            role="tab"
+            id={`tab-${t.id}`}
+            aria-selected={t.id === current.id}
+            aria-controls={`tabpanel-${t.id}`}
+            tabIndex={t.id === current.id ? 0 : -1}
+            onClick={() => setActiveTab(t.id)}
+          >
+            {t.label}
+          </button>
+        ))}
+        <span className="tab-slot muted small" data-slot="feature-tabs">
+          {extraTabs.length === 0 ? 'More sections (scenarios, fits, risk, print) plug in here.' : ''}
+        </span>
+      </div>
+      <div role="tabpanel" id={`tabpanel-${current.id}`} aria-labelledby={`tab-${current.id}`} className="tabpanel">
+        {current.render({ result })}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,20 @@
+import type { ReactNode } from 'react';
+import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
+
+/**
+ * Wiring point for the panels other features add to the workbench. Each takes the base build
+ * as a prop and reads or writes its own key of the workspace document through the store
+ * (`useAppStore`, `setReserved('strategy' | 'scenarios' | 'snapshots' | 'view' | 'note', value)`).
+ *
+ * - `rollPanel`: the "Roll versus term" panel, shown in the slot beside the charts.
+ * - `tabs`: extra sections in the tab strip under the charts (scenarios, fits, risk, print...).
+ */
+export interface WorkbenchExtensions {
+  readonly rollPanel: ((props: { result: WorkbenchBuild }) => ReactNode) | null;
+  readonly tabs: readonly { readonly id: string; readonly label: string; readonly render: (props: { result: WorkbenchBuild }) => ReactNode }[];
+}
+
+export const EXTENSIONS: WorkbenchExtensions = {
+  rollPanel: null,
+  tabs: [],
+};

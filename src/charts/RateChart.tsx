@@ -1,0 +1,230 @@
+import { memo, useId, useMemo, type KeyboardEvent, type PointerEvent } from 'react';
+import { scaleLinear } from 'd3-scale';
+import { curveLinear, line } from 'd3-shape';
+import type { MaturityAxis } from '../core/input/index.ts';
+import type { SamplePoint } from '../hooks/useCurveSeries.ts';
+import { hoverStore, useHoverX } from './hover.ts';
+import { maturityScale, maturityTicks } from './maturityScale.ts';
+import { PALETTE } from './palette.ts';
+
+export interface ChartLine {
+  readonly id: string;
+  readonly label: string;
+  /** Compounding and day count of the line's rates, e.g. "cont, ACT/365F". */
+  readonly tag: string;
+  readonly colour: string;
+  readonly dash?: string;
+  readonly width?: number;
+  readonly points: readonly SamplePoint[];
+}
+
+export interface ChartMarker {
+  readonly x: number;
+  readonly y: number;
+  readonly label: string;
+}
+
+export interface RateChartProps {
+  /** Accessible name, e.g. "Zero curve". */
+  readonly name: string;
+  readonly description: string;
+  readonly lines: readonly ChartLine[];
+  readonly markers?: readonly ChartMarker[];
+  readonly pillars?: readonly { readonly x: number; readonly date: string }[];
+  readonly xMax: number;
+  readonly lastT: number;
+  readonly axis: MaturityAxis;
+  readonly xLabel: string;
+  readonly yLabel: string;
+}
+
+const W = 540;
+const H = 300;
+const M = { left: 54, right: 14, top: 14, bottom: 42 };
+
+const yTickText = (v: number): string => `${(v * 100).toFixed(2).replace(/0$/, '')}%`.replace('-', '\u2212');
+
+/** Index of the sample nearest x (points sorted by x). */
+export function nearestIndex(points: readonly SamplePoint[], x: number): number {
+  let lo = 0;
+  let hi = points.length - 1;
+  if (hi < 0) return -1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (points[mid]!.x < x) lo = mid + 1;
+    else hi = mid;
+  }
+  if (lo > 0 && Math.abs(points[lo - 1]!.x - x) <= Math.abs(points[lo]!.x - x)) return lo - 1;
+  return lo;
+}
+
+/**
+ * A rate chart: the core's curve sampled on a fine grid, joined by straight segments
+ * (curveLinear; never a display smoothing), drawn by React from d3-scale and d3-shape. The stretch
+ * past the last pillar (flat-forward extrapolation) is dashed. The crosshair follows the shared
+ * hover position, so both charts show the same maturity.
+ */
+export const RateChart = memo(function RateChart(props: RateChartProps) {
+  const { name, description, lines, markers = [], pillars = [], xMax, axis, xLabel, yLabel } = props;
+  const descId = useId();
+  const x = useMemo(() => maturityScale(axis, xMax, [M.left, W - M.right]), [axis, xMax]);
+  const y = useMemo(() => {
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const l of lines) for (const p of l.points) if (Number.isFinite(p.y)) ((lo = Math.min(lo, p.y)), (hi = Math.max(hi, p.y)));
+    for (const m of markers) ((lo = Math.min(lo, m.y)), (hi = Math.max(hi, m.y)));
+    if (!Number.isFinite(lo)) ((lo = 0), (hi = 0.05));
+    const pad = Math.max((hi - lo) * 0.08, 0.0005);
+    return scaleLinear().domain([lo - pad, hi + pad]).range([H - M.bottom, M.top]).nice(6);
+  }, [lines, markers]);
+  const paths = useMemo(() => {
+    const gen = line<SamplePoint>()
+      .x((p) => x(p.x))
+      .y((p) => y(p.y))
+      .defined((p) => Number.isFinite(p.y))
+      .curve(curveLinear);
+    return lines.map((l) => {
+      const inside = l.points.filter((p) => !p.extrapolated);
+      const firstOut = l.points.findIndex((p) => p.extrapolated);
+      const outside = firstOut < 0 ? [] : l.points.slice(Math.max(0, firstOut - 1));
+      return { l, solid: gen(inside) ?? '', dashed: outside.length > 1 ? (gen(outside) ?? '') : '' };
+    });
+  }, [lines, x, y]);
+  const xTicks = maturityTicks(axis, xMax);
+  const yTicks = y.ticks(6);
+
+  const toX = (e: PointerEvent<SVGSVGElement>): number => {
+    const box = e.currentTarget.getBoundingClientRect();
+    const px = ((e.clientX - box.left) / Math.max(1, box.width)) * W;
+    return Math.min(xMax, Math.max(0, x.invert(px)));
+  };
+  const onKeyDown = (e: KeyboardEvent<SVGSVGElement>): void => {
+    const pts = lines[0]?.points ?? [];
+    if (pts.length === 0) return;
+    const cur = hoverStore.get();
+    const i = cur === null ? -1 : nearestIndex(pts, cur);
+    const step = e.shiftKey ? 10 : 1;
+    let next: number | null = null;
+    if (e.key === 'ArrowRight') next = Math.min(pts.length - 1, i + step);
+    else if (e.key === 'ArrowLeft') next = Math.max(0, i < 0 ? 0 : i - step);
+    else if (e.key === 'Home') next = 0;
+    else if (e.key === 'End') next = pts.length - 1;
+    else if (e.key === 'Escape') {
+      hoverStore.set(null);
+      return;
+    } else return;
+    e.preventDefault();
+    hoverStore.set(pts[next]!.x);
+  };
+
+  return (
+    <figure className="chart">
+      <svg
+        role="img"
+        aria-label={name}
+        aria-describedby={descId}
+        viewBox={`0 0 ${W} ${H}`}
+        tabIndex={0}
+        onPointerMove={(e) => hoverStore.set(toX(e))}
+        onPointerLeave={() => hoverStore.set(null)}
+        onKeyDown={onKeyDown}
+        onBlur={() => hoverStore.set(null)}
+      >
+        <g className="grid">
+          {yTicks.map((v) => (
+            <line key={`gy${v}`} x1={M.left} x2={W - M.right} y1={y(v)} y2={y(v)} stroke={PALETTE.grid} />
+          ))}
+          {xTicks.map((v) => (
+            <line key={`gx${v}`} y1={M.top} y2={H - M.bottom} x1={x(v)} x2={x(v)} stroke={PALETTE.grid} />
+          ))}
+        </g>
+        {props.lastT < xMax && (
+          <rect x={x(props.lastT)} y={M.top} width={Math.max(0, W - M.right - x(props.lastT))} height={H - M.top - M.bottom} fill="#f4f5f7">
+            <title>Past the last pillar: flat-forward extrapolation</title>
+          </rect>
+        )}
+        <g className="axis" fontSize="11" fill={PALETTE.axis}>
+          <line x1={M.left} x2={W - M.right} y1={H - M.bottom} y2={H - M.bottom} stroke={PALETTE.axis} />
+          <line x1={M.left} x2={M.left} y1={M.top} y2={H - M.bottom} stroke={PALETTE.axis} />
+          {xTicks.map((v) => (
+            <text key={`tx${v}`} x={x(v)} y={H - M.bottom + 15} textAnchor="middle">
+              {v}
+            </text>
+          ))}
+          {yTicks.map((v) => (
+            <text key={`ty${v}`} x={M.left - 6} y={y(v) + 4} textAnchor="end">
+              {yTickText(v)}
+            </text>
+          ))}
+          <text x={(M.left + W - M.right) / 2} y={H - 6} textAnchor="middle">
+            {xLabel}
+          </text>
+          <text transform={`translate(13 ${(M.top + H - M.bottom) / 2}) rotate(-90)`} textAnchor="middle">
+            {yLabel}
+          </text>
+        </g>
+        {pillars.map((p) => (
+          <line key={`p${p.date}`} x1={x(p.x)} x2={x(p.x)} y1={H - M.bottom} y2={H - M.bottom - 7} stroke={PALETTE.pillar} strokeWidth={1.5}>
+            <title>{`Pillar ${p.date}`}</title>
+          </line>
+        ))}
+        {paths.map(({ l, solid, dashed }) => (
+          <g key={l.id} data-series={l.id}>
+            <path d={solid} fill="none" stroke={l.colour} strokeWidth={l.width ?? 2} strokeDasharray={l.dash} strokeLinejoin="round" />
+            {dashed && <path d={dashed} fill="none" stroke={l.colour} strokeWidth={l.width ?? 2} strokeDasharray="5 4" opacity={0.8} data-extrapolated="true" />}
+          </g>
+        ))}
+        {markers.map((m, i) => (
+          <circle key={`m${i}`} cx={x(m.x)} cy={y(m.y)} r={3.2} fill="#fff" stroke={PALETTE.marker} strokeWidth={1.5}>
+            <title>{m.label}</title>
+          </circle>
+        ))}
+        <Crosshair lines={lines} x={x} y={y} />
+      </svg>
+      <figcaption id={descId} className="chart-caption">
+        <span className="sr-only">{description} </span>
+        <Readout lines={lines} />
+      </figcaption>
+    </figure>
+  );
+});
+
+function Crosshair({ lines, x, y }: { lines: readonly ChartLine[]; x: (v: number) => number; y: (v: number) => number }) {
+  const hx = useHoverX();
+  if (hx === null) return null;
+  const px = x(hx);
+  return (
+    <g className="crosshair" pointerEvents="none">
+      <line x1={px} x2={px} y1={M.top} y2={H - M.bottom} stroke={PALETTE.crosshair} strokeDasharray="3 3" />
+      {lines.map((l) => {
+        const i = nearestIndex(l.points, hx);
+        const p = l.points[i];
+        if (!p || Math.abs(p.x - hx) > 0.6) return null;
+        return <circle key={l.id} cx={x(p.x)} cy={y(p.y)} r={3.5} fill={l.colour} stroke="#fff" />;
+      })}
+    </g>
+  );
+}
+
+/** The values under the crosshair, as text (also what a keyboard or screen-reader user reads). */
+function Readout({ lines }: { lines: readonly ChartLine[] }) {
+  const hx = useHoverX();
+  if (hx === null) return <span className="readout muted">Point at a chart, or focus it and use the arrow keys, to read values.</span>;
+  const first = lines[0]?.points[nearestIndex(lines[0]?.points ?? [], hx)];
+  return (
+    <span className="readout" aria-live="polite">
+      <strong>{first ? `${first.x.toFixed(2)}y (${first.date})` : `${hx.toFixed(2)}y`}</strong>
+      {lines.map((l) => {
+        const p = l.points[nearestIndex(l.points, hx)];
+        if (!p || Math.abs(p.x - hx) > 0.6) return null;
+        return (
+          <span key={l.id} className="readout-item">
+            <span className="swatch" style={{ background: l.colour }} aria-hidden="true" />
+            {l.label} {(p.y * 100).toFixed(4).replace('-', '\u2212')}% <span className="tag">{l.tag}</span>
+            {p.extrapolated ? ' (extrapolated)' : ''}
+          </span>
+        );
+      })}
+    </span>
+  );
+}

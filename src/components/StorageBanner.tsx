@@ -1,0 +1,53 @@
+import { useAppStore } from '../state/store.ts';
+import { resolveConflict } from '../state/persistence.ts';
+
+/** Where the work is kept, and anything the user must decide about it. */
+export function StorageBanner() {
+  const storage = useAppStore((s) => s.storage);
+  const setStorage = useAppStore((s) => s.setStorage);
+  return (
+    <>
+      {storage.corruptReason && (
+        <div className="banner warn" role="alert">
+          The saved workspace could not be read ({storage.corruptReason}), so the demo was opened instead.
+          {storage.corruptCopyKey && <> A copy of the unreadable entry is kept in this browser under &ldquo;{storage.corruptCopyKey}&rdquo;.</>}{' '}
+          <button type="button" className="linklike" onClick={() => setStorage({ corruptReason: null })}>
+            Dismiss
+          </button>
+        </div>
+      )}
+      {storage.otherTab && storage.state !== 'paused' && (
+        <div className="banner warn" role="alert">
+          This workspace is also open in another tab. Edits in either tab are saved; the other tab is told and asks before it saves over them.
+        </div>
+      )}
+      {storage.state === 'paused' && (
+        <div className="banner warn" role="alert">
+          Another tab saved a different version of this workspace. Saving here is paused so neither is overwritten.{' '}
+          <button type="button" onClick={() => resolveConflict('load')}>
+            Load the other tab&rsquo;s version
+          </button>{' '}
+          <button type="button" onClick={() => resolveConflict('keep')}>
+            Keep this tab&rsquo;s version and save it
+          </button>
+        </div>
+      )}
+      {storage.state === 'memory' && (
+        <div className="banner warn" role="alert">
+          {storage.message ?? 'The browser would not store the workspace.'} Your work continues in this page, but it is not saved: export or copy it before closing.
+        </div>
+      )}
+    </>
+  );
+}
+
+export function StorageStatusText() {
+  const storage = useAppStore((s) => s.storage);
+  const text =
+    storage.state === 'saved' ? (storage.savedAt ? 'Saved in this browser' : 'Not edited yet') : storage.state === 'pending' ? 'Saving…' : storage.state === 'paused' ? 'Saving paused' : 'Not saved (memory only)';
+  return (
+    <span className={`save-state ${storage.state}`} role="status" aria-live="polite">
+      {text}
+    </span>
+  );
+}

@@ -1,0 +1,143 @@
+import type { QuoteKind } from '../workspace/types.ts';
+import {
+  parseCouponText,
+  parseDayCountText,
+  parseFrequencyText,
+  parseKindText,
+  parseMaturityText,
+  parsePriceText,
+  parseRateText,
+  type CellParse,
+  type QuoteUnitMode,
+} from './quoteText.ts';
+
+/**
+ * One row of the quote sheet, every cell kept exactly as typed. `rate` holds a rate or yield
+ * (deposit rate, bill discount yield, zero rate, bond yield, swap rate); `price` a price per 100
+ * face (bill, zero, bond clean price). A row gives one of the two.
+ */
+export interface QuoteRow {
+  /** Stable identity of the row in the sheet (not part of the quote). */
+  readonly id: string;
+  readonly enabled: boolean;
+  readonly kind: string;
+  readonly maturity: string;
+  readonly rate: string;
+  readonly price: string;
+  readonly coupon: string;
+  readonly frequency: string;
+  readonly dayCount: string;
+}
+
+/** The text columns of the sheet, in display (and header-less paste) order. */
+export const QUOTE_COLUMNS = ['kind', 'maturity', 'rate', 'price', 'coupon', 'frequency', 'dayCount'] as const;
+export type QuoteColumn = (typeof QUOTE_COLUMNS)[number];
+
+export const QUOTE_COLUMN_LABEL: Readonly<Record<QuoteColumn, string>> = {
+  kind: 'Kind',
+  maturity: 'Maturity',
+  rate: 'Rate / yield',
+  price: 'Price',
+  coupon: 'Coupon',
+  frequency: 'Freq',
+  dayCount: 'Day count',
+};
+
+export type RowText = Omit<QuoteRow, 'id' | 'enabled'>;
+export const EMPTY_ROW_TEXT: RowText = { kind: '', maturity: '', rate: '', price: '', coupon: '', frequency: '', dayCount: '' };
+
+export interface CellIssue {
+  readonly severity: 'error' | 'warning';
+  readonly message: string;
+}
+export type RowIssues = Partial<Record<QuoteColumn, CellIssue>>;
+
+export interface RowParse {
+  /** The engine's quote object (rates as decimals), or null when a cell is wrong or the row is blank. */
+  readonly quote: Record<string, unknown> | null;
+  readonly issues: RowIssues;
+  /** True when every text cell is empty (a fresh row): neither a quote nor an error. */
+  readonly blank: boolean;
+}
+
+export const isBlankRow = (row: RowText): boolean => QUOTE_COLUMNS.every((c) => row[c].trim() === '');
+
+/** Which fields each kind takes from the sheet's columns, and what the rate and price columns mean. */
+const RATE_FIELD: Readonly<Record<QuoteKind, string>> = { deposit: 'rate', bill: 'discountYield', zero: 'rate', bond: 'yield', swap: 'rate' };
+const PRICE_FIELD: Readonly<Record<QuoteKind, string | null>> = { deposit: null, bill: 'price', zero: 'price', bond: 'cleanPrice', swap: null };
+const RATE_WHAT: Readonly<Record<QuoteKind, string>> = { deposit: 'deposit rate', bill: 'discount yield', zero: 'zero rate', bond: 'yield', swap: 'swap rate' };
+
+/**
+ * Parses one sheet row into the engine's quote object, exactly (decimal.js), with a message on
+ * each wrong cell saying what would be valid. The row's `enabled` flag is carried over.
+ */
+export function parseRow(row: QuoteRow, mode: QuoteUnitMode): RowParse {
+  if (isBlankRow(row)) return { quote: null, issues: {}, blank: true };
+  const issues: { -readonly [K in QuoteColumn]?: CellIssue } = {};
+  const error = (c: QuoteColumn, message: string): void => {
+    issues[c] = { severity: 'error', message };
+  };
+  const take = <T>(c: QuoteColumn, p: CellParse<T>): T | null => {
+    if (p.ok) {
+      if (p.warning) issues[c] = { severity: 'warning', message: p.warning };
+      return p.value;
+    }
+    error(c, p.message);
+    return null;
+  };
+  const kindParse = parseKindText(row.kind);
+  const maturity = take('maturity', parseMaturityText(row.maturity));
+  if (!kindParse.ok) {
+    error('kind', kindParse.message);
+    return { quote: null, issues, blank: false };
+  }
+  const kind = kindParse.value;
+  const quote: Record<string, unknown> = { kind };
+  if (maturity) Object.assign(quote, maturity);
+  if (!row.enabled) quote.enabled = false;
+
+  const hasRate = row.rate.trim() !== '';
+  const hasPrice = row.price.trim() !== '';
+  const priceField = PRICE_FIELD[kind];
+  const refuse = (c: QuoteColumn, what: string): void => error(c, `a ${kind} takes no ${what}; clear this cell`);
+
+  if (priceField === null) {
+    if (hasPrice) refuse('price', 'price');
+    const rate = take('rate', parseRateText(row.rate, mode, RATE_WHAT[kind]));
+    if (rate !== null) quote[RATE_FIELD[kind]] = rate;
+  } else if (hasRate && hasPrice) {
+    const both = `give either the ${RATE_WHAT[kind]} or the price, not both; clear one of the two cells`;
+    error('rate', both);
+    error('price', both);
+  } else if (hasPrice) {
+    const price = take('price', parsePriceText(row.price));
+    if (price !== null) quote[priceField] = price;
+  } else if (hasRate) {
+    const rate = take('rate', parseRateText(row.rate, mode, RATE_WHAT[kind]));
+    if (rate !== null) quote[RATE_FIELD[kind]] = rate;
+  } else {
+    error(kind === 'bond' ? 'price' : 'rate', `a ${kind} needs a ${RATE_WHAT[kind]} (Rate / yield) or a price per 100 (Price)`);
+  }
+
+  if (kind === 'bond') {
+    const coupon = take('coupon', parseCouponText(row.coupon, mode));
+    if (coupon !== null) quote.coupon = coupon;
+  } else if (row.coupon.trim() !== '') refuse('coupon', 'coupon');
+
+  if (row.frequency.trim() !== '') {
+    if (kind === 'bond' || kind === 'swap') {
+      const f = take('frequency', parseFrequencyText(row.frequency));
+      if (f !== null) quote.frequency = f;
+    } else refuse('frequency', 'payment frequency');
+  }
+  if (row.dayCount.trim() !== '') {
+    if (kind === 'bill') refuse('dayCount', 'day count (a bill is quoted on ACT/360 by definition)');
+    else if (kind === 'zero' && !hasRate) refuse('dayCount', 'day count when quoted by price');
+    else {
+      const dc = take('dayCount', parseDayCountText(row.dayCount));
+      if (dc !== null) quote.dayCount = dc;
+    }
+  }
+  const failed = Object.values(issues).some((i) => i?.severity === 'error');
+  return { quote: failed ? null : quote, issues, blank: false };
+}

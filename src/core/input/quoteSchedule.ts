@@ -1,0 +1,72 @@
+import type { Curve } from '../curve/curve.ts';
+import { bondSchedule } from '../instruments/bond.ts';
+import { fixedLegPeriods } from '../instruments/swap.ts';
+import { yearFraction } from '../time/dayCount.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { BondQuote, SwapQuote } from '../workspace/types.ts';
+import { Decimal } from './decimalText.ts';
+
+/** One period of a bond's or swap fixed leg's schedule, for reconciling against another source. */
+export interface ScheduleRow {
+  readonly start: IsoDate;
+  readonly end: IsoDate;
+  /** Year fraction of the period under the instrument's day count. */
+  readonly yearFraction: number;
+  /** Cash flow per 100 face (bond: coupon, plus 100 at maturity; swap: fixed coupon, plus 100 at the end). */
+  readonly cashFlow: number;
+  /** Discount factor on the curve at the payment date, and the flow's present value per 100. */
+  readonly discount: number | null;
+  readonly presentValue: number | null;
+  /** Years from settlement on the curve's axis. */
+  readonly t: number | null;
+}
+
+export interface QuoteSchedule {
+  readonly rows: readonly ScheduleRow[];
+  /** Accrued interest per 100 face at settlement (bonds); 0 for swaps. */
+  readonly accrued: number;
+  readonly note: string;
+}
+
+const df = (curve: Curve | null, date: IsoDate): { discount: number | null; t: number | null } => {
+  if (!curve) return { discount: null, t: null };
+  const t = curve.time(date);
+  return { discount: Math.exp(curve.lnDiscountAt(t)), t };
+};
+
+/** Cash amount per 100 face, exact to the cent's thousandth for display (decimal.js rounding, half-even). */
+const money = (x: number): number => new Decimal(x).toDecimalPlaces(10, Decimal.ROUND_HALF_EVEN).toNumber();
+
+/**
+ * A bond's schedule after settlement (bondSchedule): every coupon is the regular 100 c / f; the
+ * year fraction column is the period's fraction under the bond's day count (ACT/ACT-ICMA: days over
+ * frequency x days of the coupon period, ICMA Rule 251), which sets accrued interest.
+ */
+export function bondScheduleRows(q: BondQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const s = bondSchedule(q, settlement);
+  let start = s.previous;
+  const rows = s.dates.map((end, i) => {
+    const ctx = { termination: q.maturity, eom: q.eom, refStart: start, refEnd: end, frequency: q.frequency };
+    const yf = yearFraction(q.dayCount, start, end, ctx);
+    const cashFlow = money(s.amounts[i]!);
+    const { discount, t } = df(curve, end);
+    const row: ScheduleRow = { start, end, yearFraction: yf, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t };
+    start = end;
+    return row;
+  });
+  return { rows, accrued: s.accrued, note: `first period starts on the last coupon date ${s.previous}; accrued interest ${s.accrued.toFixed(6)} per 100 face` };
+}
+
+/**
+ * A par swap's fixed leg (fixedLegPeriods): coupon 100 S tau_i per 100 notional, plus 100 at the
+ * end standing for the floating leg's value in a single-curve par swap (S A + DF(T_n) = 1).
+ */
+export function swapScheduleRows(q: SwapQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const periods = fixedLegPeriods(settlement, q.maturity, q.frequency, q.dayCount, q.eom);
+  const rows = periods.map((p, i) => {
+    const cashFlow = money(100 * q.rate * p.tau + (i === periods.length - 1 ? 100 : 0));
+    const { discount, t } = df(curve, p.end);
+    return { start: p.start, end: p.end, yearFraction: p.tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t };
+  });
+  return { rows, accrued: 0, note: 'fixed leg per 100 notional; the final 100 stands for the floating leg (single-curve par swap)' };
+}

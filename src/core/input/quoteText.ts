@@ -1,0 +1,180 @@
+import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../workspace/validate.ts';
+import { QUOTE_KINDS, type QuoteKind } from '../workspace/types.ts';
+import { DAY_COUNTS, type DayCount } from '../time/dayCount.ts';
+import { parseIsoDate, type IsoDate } from '../time/date.ts';
+import { formatTenor, parseTenor } from '../time/tenor.ts';
+import { Decimal, exactDecimal, nearestDouble, normaliseNumberText } from './decimalText.ts';
+
+/**
+ * How a bare number typed into a rate, yield or coupon cell is read: `percent` (3.25 is 3.25 %),
+ * `decimal` (0.0325 is 3.25 %) or `bp` (325 is 3.25 %). A number with its own `%` or `bp` suffix is
+ * read by the suffix whatever the mode.
+ */
+export const QUOTE_UNIT_MODES = ['percent', 'decimal', 'bp'] as const;
+export type QuoteUnitMode = (typeof QUOTE_UNIT_MODES)[number];
+export const isQuoteUnitMode = (x: unknown): x is QuoteUnitMode => x === 'percent' || x === 'decimal' || x === 'bp';
+
+export const QUOTE_UNIT_LABEL: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
+
+/** A parsed cell: a value, or a message saying what is wrong and what would be valid. */
+export type CellParse<T> =
+  | { readonly ok: true; readonly value: T; readonly warning?: string }
+  | { readonly ok: false; readonly message: string };
+
+const good = <T>(value: T): CellParse<T> => ({ ok: true, value });
+const bad = <T>(message: string): CellParse<T> => ({ ok: false, message });
+
+const SCALE: Readonly<Record<QuoteUnitMode, number>> = { percent: 100, decimal: 1, bp: 10000 };
+
+/** Percent text of a decimal rate bound, exact: -0.1 -> "-10%". */
+const pctText = (x: number): string => `${new Decimal(x).times(100).toFixed()}%`;
+
+/** A rate's reading: the decimal value and the exact decimal typed with its unit. */
+export interface RateReading {
+  /** Decimal per year (0.0325 = 3.25 %), the double nearest the exact value typed. */
+  readonly rate: number;
+  /** The exact number typed, before scaling. */
+  readonly typed: Decimal;
+  /** Which unit it was read in: from a suffix, or from the mode when bare. */
+  readonly unit: QuoteUnitMode;
+  /** True when the text had no `%` or `bp` suffix. */
+  readonly bare: boolean;
+}
+
+/**
+ * Reads a rate typed as `3.25%`, `325bp` (or `bps`), or a bare number in the given mode, with
+ * a Unicode minus accepted. Exact: the text is an exact decimal scaled by 100 or 10,000 and
+ * rounded once to float64. Not a range check; see `parseRateText`.
+ */
+export function readRate(text: string, mode: QuoteUnitMode): CellParse<RateReading> {
+  let s = normaliseNumberText(text);
+  if (s === '') return bad('empty');
+  let unit: QuoteUnitMode = mode;
+  let bare = true;
+  const lower = s.toLowerCase();
+  if (lower.endsWith('%')) {
+    unit = 'percent';
+    bare = false;
+    s = s.slice(0, -1);
+  } else if (lower.endsWith('bps') || lower.endsWith('bp')) {
+    unit = 'bp';
+    bare = false;
+    s = s.slice(0, lower.endsWith('bps') ? -3 : -2);
+  }
+  const d = exactDecimal(s);
+  if (!d) return bad(`"${text.trim()}" is not a number; type a rate such as 3.25%, 325bp or ${mode === 'decimal' ? '0.0325' : mode === 'bp' ? '325' : '3.25'}`);
+  return good({ rate: nearestDouble(d, SCALE[unit]), typed: d, unit, bare });
+}
+
+/**
+ * Reads and range-checks a rate, yield or coupon cell. `what` names the field ("rate", "coupon").
+ * In decimal mode a bare value above 1 in size is out of range and the message asks "did you mean %?".
+ */
+export function parseRateText(text: string, mode: QuoteUnitMode, what: string, min = RATE_MIN, max = RATE_MAX): CellParse<number> {
+  const r = readRate(text, mode);
+  if (!r.ok) return r.message === 'empty' ? bad(`${what} is required; type a rate such as 3.25%`) : r;
+  const { rate, typed, bare } = r.value;
+  if (mode === 'decimal' && bare && typed.abs().gt(1)) {
+    return bad(`${typed.toFixed()} in decimal mode is ${typed.times(100).toFixed()}%: did you mean ${typed.toFixed()}%? Type ${typed.toFixed()}% or ${typed.div(100).toFixed()}, or switch the unit to %`);
+  }
+  if (!(rate >= min && rate <= max)) {
+    return bad(`${what} ${pctText(rate)} is out of range; a ${what} must be from ${pctText(min)} to ${pctText(max)}`);
+  }
+  return good(rate);
+}
+
+export const parseCouponText = (text: string, mode: QuoteUnitMode): CellParse<number> => parseRateText(text, mode, 'coupon', 0, COUPON_MAX);
+
+/**
+ * Reads a price per 100 face: a decimal number (`99.875`), or points and 32nds as bond desks
+ * quote them (`99-28` is 99 28/32; `99-28+` adds half a 32nd; `99-283` adds 3/8 of a 32nd;
+ * common practice for US Treasury prices). Exact, rounded once. Range (0, 1000].
+ */
+export function parsePriceText(text: string): CellParse<number> {
+  const s = normaliseNumberText(text);
+  if (s === '') return bad('price is required; type a price per 100 face such as 99.875 or 99-28');
+  let d = exactDecimal(s);
+  const m32 = /^(\d+)-(\d{2})(\+|[0-7])?$/.exec(s);
+  if (!d && m32) {
+    const thirtySeconds = Number(m32[2]);
+    if (thirtySeconds < 32) {
+      const extra = m32[3] === undefined ? new Decimal(0) : m32[3] === '+' ? new Decimal(0.5) : new Decimal(Number(m32[3])).div(8);
+      d = new Decimal(m32[1]!).plus(new Decimal(thirtySeconds).plus(extra).div(32));
+    }
+  }
+  if (!d) return bad(`"${text.trim()}" is not a price; type a price per 100 face such as 99.875, or points-32nds such as 99-28`);
+  const price = d.toNumber();
+  if (!(price > 0 && price <= PRICE_MAX)) return bad(`price ${d.toFixed()} is out of range; a price per 100 face must be above 0 and at most ${PRICE_MAX}`);
+  return good(price);
+}
+
+/** A maturity: a tenor from settlement (`3M`, `10y`) or a calendar date `YYYY-MM-DD`. */
+export type MaturityText = { readonly tenor: string } | { readonly maturity: IsoDate };
+
+export function parseMaturityText(text: string): CellParse<MaturityText> {
+  const s = text.trim();
+  if (s === '') return bad('maturity is required; type a tenor such as 3M or 10Y, or a date YYYY-MM-DD');
+  const tenor = parseTenor(s);
+  if (tenor) return good({ tenor: formatTenor(tenor) });
+  if (parseIsoDate(s)) return good({ maturity: s });
+  const hint = /^\d{4}-\d{2}-\d{2}$/.test(s) ? ' (that date does not exist)' : '';
+  return bad(`"${s}" is not a maturity${hint}; type a tenor such as 6M, 2Y or 30Y, or a date YYYY-MM-DD such as 2031-11-15`);
+}
+
+const KIND_ALIASES: Readonly<Record<string, QuoteKind>> = { depo: 'deposit', deposits: 'deposit', bills: 'bill', zeros: 'zero', bonds: 'bond', swaps: 'swap', irs: 'swap', strip: 'zero' };
+
+/** A quote kind, case-insensitive (`Deposit`, `BOND`); a few plain plurals and short forms too. */
+export function parseKindText(text: string): CellParse<QuoteKind> {
+  const s = text.trim().toLowerCase();
+  if (s === '') return bad(`kind is required; type one of ${QUOTE_KINDS.join(', ')}`);
+  if ((QUOTE_KINDS as readonly string[]).includes(s)) return good(s as QuoteKind);
+  const alias = KIND_ALIASES[s];
+  if (alias) return good(alias);
+  return bad(`"${text.trim()}" is not a quote kind; type one of ${QUOTE_KINDS.join(', ')}`);
+}
+
+const FREQUENCY_WORDS: Readonly<Record<string, number>> = {
+  annual: 1, annually: 1, a: 1, '1y': 1, '12m': 1,
+  semiannual: 2, 'semi-annual': 2, semiannually: 2, s: 2, sa: 2, '6m': 2,
+  quarterly: 4, q: 4, '3m': 4,
+  monthly: 12, m: 12, '1m': 12,
+};
+
+/** Payments a year: 1, 2, 4 or 12, or a word (annual, semiannual, quarterly, monthly) or period (6M). */
+export function parseFrequencyText(text: string): CellParse<number> {
+  const s = text.trim().toLowerCase();
+  const n = /^\d+$/.test(s) ? Number(s) : FREQUENCY_WORDS[s];
+  if (n !== undefined && (FREQUENCIES as readonly number[]).includes(n)) return good(n);
+  return bad(`"${text.trim()}" is not a payment frequency; type 1, 2, 4 or 12 payments a year (or annual, semiannual, quarterly, monthly)`);
+}
+
+const DAY_COUNT_ALIASES: Readonly<Record<string, DayCount>> = {
+  'A/360': 'ACT/360', 'ACTUAL/360': 'ACT/360',
+  'A/365F': 'ACT/365F', 'ACT/365FIXED': 'ACT/365F', 'ACTUAL/365FIXED': 'ACT/365F', 'ACT/365(FIXED)': 'ACT/365F',
+  '30/360BONDBASIS': '30/360', 'BONDBASIS': '30/360',
+  '30E/360EUROBOND': '30E/360', 'EUROBONDBASIS': '30E/360',
+  'ACT/ACTISDA': 'ACT/ACT-ISDA', 'ACT/ACTICMA': 'ACT/ACT-ICMA', 'ACT/ACT(ISDA)': 'ACT/ACT-ISDA', 'ACT/ACT(ICMA)': 'ACT/ACT-ICMA',
+};
+
+/** A day count, case- and space-insensitive (`act/360`, `ACT/365 Fixed`); ambiguous names are refused. */
+export function parseDayCountText(text: string): CellParse<DayCount> {
+  const s = text.trim().toUpperCase().replace(/\s+/g, '');
+  const exact = DAY_COUNTS.find((d) => d.toUpperCase() === s);
+  if (exact) return good(exact);
+  const alias = DAY_COUNT_ALIASES[s];
+  if (alias) return good(alias);
+  const why = s === 'ACT/ACT' ? ' ("ACT/ACT" is ambiguous: say ACT/ACT-ISDA or ACT/ACT-ICMA)' : s === 'ACT/365' ? ' ("ACT/365" is ambiguous: say ACT/365F)' : '';
+  return bad(`"${text.trim()}" is not a day count${why}; type one of ${DAY_COUNTS.join(', ')}`);
+}
+
+/**
+ * Re-writes a bare number typed in one unit mode so it keeps its value in another (exact:
+ * "3.25" in percent is "0.0325" in decimal and "325" in bp). Text with a `%` or `bp` suffix, and
+ * text that is not a number, is returned unchanged.
+ */
+export function rewriteBareRate(text: string, from: QuoteUnitMode, to: QuoteUnitMode): string {
+  if (from === to) return text;
+  const r = readRate(text, from);
+  if (!r.ok || !r.value.bare) return text;
+  return r.value.typed.times(SCALE[to]).div(SCALE[from]).toFixed();
+}

@@ -1,0 +1,256 @@
+import { memo, useCallback, useRef, type ClipboardEvent, type KeyboardEvent } from 'react';
+import {
+  looksLikeTable,
+  QUOTE_COLUMN_LABEL,
+  QUOTE_COLUMNS,
+  QUOTE_UNIT_MODES,
+  type QuoteColumn,
+  type QuoteRow,
+  type QuoteUnitMode,
+  type RowIssues,
+} from '../../core/input/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useAppStore } from '../../state/store.ts';
+
+const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
+const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
+  kind: 'deposit',
+  maturity: '3M or date',
+  rate: '',
+  price: '99.50',
+  coupon: '',
+  frequency: '',
+  dayCount: '',
+};
+
+const issuesEqual = (a: RowIssues, b: RowIssues): boolean =>
+  QUOTE_COLUMNS.every((c) => a[c]?.message === b[c]?.message && a[c]?.severity === b[c]?.severity);
+
+interface RowViewProps {
+  readonly row: QuoteRow;
+  readonly index: number;
+  readonly issues: RowIssues;
+  readonly unit: QuoteUnitMode;
+  readonly selected: boolean;
+  readonly inCurve: boolean;
+}
+
+/** Moves focus to the same column of another row. */
+function focusCell(grid: HTMLElement | null, row: number, column: string): void {
+  const el = grid?.querySelector<HTMLInputElement>(`input[data-row="${row}"][data-col="${column}"]`);
+  el?.focus();
+  el?.select();
+}
+
+const QuoteRowView = memo(
+  function QuoteRowView({ row, index, issues, unit, selected, inCurve }: RowViewProps) {
+    const setCell = useAppStore((s) => s.setCell);
+    const setRowEnabled = useAppStore((s) => s.setRowEnabled);
+    const deleteRow = useAppStore((s) => s.deleteRow);
+    const addRow = useAppStore((s) => s.addRow);
+    const endEdit = useAppStore((s) => s.endEdit);
+    const selectRow = useAppStore((s) => s.selectRow);
+    const n = index + 1;
+    const messages = QUOTE_COLUMNS.flatMap((c) => (issues[c] ? [{ c, ...issues[c] }] : []));
+    const msgId = `row-msg-${row.id}`;
+    const status = messages.some((m) => m.severity === 'error') ? 'error' : !row.enabled ? 'off' : inCurve ? 'ok' : 'idle';
+    return (
+      <>
+        <tr role="row" aria-rowindex={n + 1} className={`sheet-row ${status}${selected ? ' selected' : ''}`} aria-selected={selected}>
+          <td role="gridcell" className="rownum">
+            <button type="button" className="linklike" onClick={() => selectRow(row.id)} aria-label={`Row ${n}: show details`} title="Show repricing and schedule">
+              {n}
+            </button>
+          </td>
+          <td role="gridcell" className="on">
+            <input type="checkbox" checked={row.enabled} aria-label={`Row ${n} in the curve`} onChange={(e) => setRowEnabled(row.id, e.target.checked)} />
+          </td>
+          {QUOTE_COLUMNS.map((c) => {
+            const issue = issues[c];
+            return (
+              <td role="gridcell" key={c} className={`cell ${c}${issue ? ` ${issue.severity}` : ''}`}>
+                <input
+                  type="text"
+                  value={row[c]}
+                  data-row={index}
+                  data-col={c}
+                  spellCheck={false}
+                  autoComplete="off"
+                  placeholder={c === 'rate' || c === 'coupon' ? UNIT_TEXT[unit] : PLACEHOLDER[c]}
+                  aria-label={`Row ${n} ${QUOTE_COLUMN_LABEL[c]}`}
+                  aria-invalid={issue?.severity === 'error' ? true : undefined}
+                  aria-describedby={issue ? msgId : undefined}
+                  title={issue?.message}
+                  onChange={(e) => setCell(row.id, c, e.target.value)}
+                  onBlur={endEdit}
+                />
+              </td>
+            );
+          })}
+          <td role="gridcell" className="actions">
+            <button type="button" className="icon" aria-label={`Insert a row after row ${n}`} title="Insert row below" onClick={() => addRow(row.id)}>
+              +
+            </button>
+            <button type="button" className="icon" aria-label={`Delete row ${n}`} title="Delete row" onClick={() => deleteRow(row.id)}>
+              ×
+            </button>
+          </td>
+        </tr>
+        {messages.length > 0 && (
+          <tr role="row" className={`sheet-message ${status}`}>
+            <td role="gridcell" colSpan={QUOTE_COLUMNS.length + 3} id={msgId}>
+              {messages.map((m) => (
+                <span key={m.c} className={`msg ${m.severity}`}>
+                  <strong>{QUOTE_COLUMN_LABEL[m.c]}:</strong> {m.message}
+                </span>
+              ))}
+            </td>
+          </tr>
+        )}
+      </>
+    );
+  },
+  (a, b) => a.row === b.row && a.index === b.index && a.unit === b.unit && a.selected === b.selected && a.inCurve === b.inCurve && issuesEqual(a.issues, b.issues),
+);
+
+/**
+ * The quote sheet: a grid whose cells keep the text as typed. Paste a block (tab-separated or
+ * CSV) on any cell: with a header row it replaces the sheet, without one it fills from the
+ * focused cell.
+ */
+export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
+  const rows = useAppStore((s) => s.workspace.quotes);
+  const unit = useAppStore((s) => s.workspace.quoteUnit);
+  const selectedRowId = useAppStore((s) => s.selectedRowId);
+  const notice = useAppStore((s) => s.pasteNotice);
+  const { setQuoteUnit, addRow, sortByMaturity, pasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
+  const gridRef = useRef<HTMLTableElement>(null);
+
+  const inCurve = new Set<number>();
+  if (result.build.curve) for (const p of result.build.curve.pillars) inCurve.add(result.conversion.rowOfQuote[p.quote] ?? -1);
+
+  const onPaste = useCallback(
+    (e: ClipboardEvent<HTMLElement>) => {
+      const text = e.clipboardData.getData('text/plain');
+      if (!looksLikeTable(text)) return;
+      e.preventDefault();
+      const el = e.target as HTMLElement;
+      const row = el.dataset?.row;
+      const col = el.dataset?.col as QuoteColumn | undefined;
+      pasteText(text, row !== undefined && col ? { row: Number(row), column: col } : null);
+    },
+    [pasteText],
+  );
+
+  const onKeyDown = (e: KeyboardEvent<HTMLTableElement>): void => {
+    const el = e.target as HTMLElement;
+    if (el.tagName !== 'INPUT' || el.dataset.row === undefined) return;
+    const r = Number(el.dataset.row);
+    const c = el.dataset.col!;
+    if (e.key === 'ArrowDown' || (e.key === 'Enter' && !e.shiftKey)) {
+      e.preventDefault();
+      if (r + 1 >= rows.length && e.key === 'Enter') {
+        addRow(null);
+        requestAnimationFrame(() => focusCell(gridRef.current, r + 1, c));
+      } else focusCell(gridRef.current, r + 1, c);
+    } else if (e.key === 'ArrowUp' || (e.key === 'Enter' && e.shiftKey)) {
+      e.preventDefault();
+      focusCell(gridRef.current, r - 1, c);
+    }
+  };
+
+  const nodes = result.build.curve?.pillars.length ?? 0;
+  const leftOut = result.invalidCount;
+  return (
+    <section className="panel sheet-panel" aria-labelledby="sheet-title">
+      <div className="panel-head">
+        <h2 id="sheet-title">Quotes</h2>
+        <fieldset className="segmented" aria-describedby="unit-help">
+          <legend>Unit of bare numbers</legend>
+          {QUOTE_UNIT_MODES.map((m) => (
+            <label key={m} className={unit === m ? 'on' : ''}>
+              <input type="radio" name="quote-unit" value={m} checked={unit === m} onChange={() => setQuoteUnit(m)} />
+              {UNIT_TEXT[m]}
+            </label>
+          ))}
+        </fieldset>
+        <span id="unit-help" className="sr-only">
+          How a rate, yield or coupon typed without % or bp is read. Switching re-writes bare numbers so their values stay the same.
+        </span>
+        <button type="button" onClick={() => focusLater(gridRef.current, rows.length, addRow(null))}>
+          Add row
+        </button>
+        <button type="button" onClick={sortByMaturity}>
+          Sort by maturity
+        </button>
+      </div>
+      <p className="sheet-status" role="status" aria-live="polite">
+        <strong>{nodes}</strong> {nodes === 1 ? 'quote' : 'quotes'} in the curve
+        {leftOut > 0 && (
+          <span className="left-out">
+            {' '}
+            · <strong>{leftOut}</strong> {leftOut === 1 ? 'row' : 'rows'} left out with errors
+          </span>
+        )}
+        {result.disabledCount > 0 && <span> · {result.disabledCount} switched off</span>}
+        {result.conversion.blankRows > 0 && <span> · {result.conversion.blankRows} empty</span>}
+      </p>
+      {notice && (
+        <div className="notice" role="status">
+          {notice.mode === 'replaced' && <>Pasted {notice.rows} rows with a header; they replace the sheet.</>}
+          {notice.mode === 'appended' && <>Pasted {notice.rows} rows, appended to the sheet.</>}
+          {notice.mode === 'filled' && <>Pasted {notice.rows} rows from the focused cell.</>}
+          {notice.ignoredColumns.length > 0 && <> Ignored columns: {notice.ignoredColumns.join(', ')}.</>}{' '}
+          {notice.mode === 'replaced' && (
+            <button type="button" onClick={appendInstead}>
+              Append instead
+            </button>
+          )}{' '}
+          <button type="button" onClick={() => useAppStore.getState().undo()}>
+            Undo paste
+          </button>{' '}
+          <button type="button" className="linklike" onClick={dismissPasteNotice} aria-label="Dismiss paste notice">
+            Dismiss
+          </button>
+        </div>
+      )}
+      <div className="sheet-scroll">
+        <table role="grid" aria-label="Quotes" aria-describedby="sheet-help" className="sheet" ref={gridRef} onPaste={onPaste} onKeyDown={onKeyDown} aria-rowcount={rows.length + 1}>
+          <thead>
+            <tr role="row" aria-rowindex={1}>
+              <th role="columnheader" scope="col" className="rownum">
+                #
+              </th>
+              <th role="columnheader" scope="col" className="on">
+                On
+              </th>
+              {QUOTE_COLUMNS.map((c) => (
+                <th role="columnheader" scope="col" key={c} className={c}>
+                  {QUOTE_COLUMN_LABEL[c]}
+                  {(c === 'rate' || c === 'coupon') && <span className="unit"> ({UNIT_TEXT[unit]})</span>}
+                  {c === 'price' && <span className="unit"> (per 100)</span>}
+                </th>
+              ))}
+              <th role="columnheader" scope="col" className="actions">
+                <span className="sr-only">Row actions</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((row, i) => (
+              <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} />
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <p id="sheet-help" className="help">
+        Paste rows from a spreadsheet or CSV onto any cell. A header row (kind, maturity, rate, price, coupon, frequency, day count) replaces the sheet; rows without a header
+        fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y or 2031-11-15; prices per 100 (99.875 or 99-28).
+      </p>
+    </section>
+  );
+}
+
+function focusLater(grid: HTMLElement | null, row: number, _id: string): void {
+  requestAnimationFrame(() => focusCell(grid, row, 'kind'));
+}

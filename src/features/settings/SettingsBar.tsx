@@ -1,0 +1,140 @@
+import {
+  COMPOUNDINGS,
+  CURVE_DAY_COUNTS,
+  EXTRAPOLATIONS,
+  INTERPOLATIONS,
+  INTERPOLATORS,
+  isIsoDate,
+  type Compounding,
+  type CurveDayCount,
+  type Extrapolation,
+  type InterpolationId,
+} from '../../core/index.ts';
+import { FORWARD_TENORS, type ForwardTenor, type MaturityAxis } from '../../core/input/index.ts';
+import { rateTag } from '../../components/format.ts';
+import { useAppStore } from '../../state/store.ts';
+
+const COMPOUNDING_TEXT: Readonly<Record<Compounding, string>> = {
+  simple: 'Simple',
+  annual: 'Annual',
+  semiannual: 'Semiannual',
+  quarterly: 'Quarterly',
+  monthly: 'Monthly',
+  continuous: 'Continuous',
+};
+const EXTRAPOLATION_TEXT: Readonly<Record<Extrapolation, string>> = { none: 'None (stop at last pillar)', 'flat-forward': 'Flat forward' };
+
+/** Curve and display settings. One display setting re-expresses every rate on screen. */
+export function SettingsBar() {
+  const settlement = useAppStore((s) => s.workspace.settlement);
+  const curve = useAppStore((s) => s.workspace.curve);
+  const display = useAppStore((s) => s.workspace.display);
+  const { setSettlement, setCurve, setDisplay } = useAppStore.getState();
+  const badDate = !isIsoDate(settlement);
+  return (
+    <section className="settings" aria-label="Settings">
+      <fieldset>
+        <legend>Curve</legend>
+        <label>
+          Settlement
+          <input type="date" value={isIsoDate(settlement) ? settlement : ''} aria-invalid={badDate || undefined} onChange={(e) => setSettlement(e.target.value)} />
+        </label>
+        <label>
+          Curve day count
+          <select value={curve.dayCount} onChange={(e) => setCurve({ dayCount: e.target.value as CurveDayCount })}>
+            {CURVE_DAY_COUNTS.map((d) => (
+              <option key={d}>{d}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Interpolation
+          <select value={curve.interpolation} onChange={(e) => setCurve({ interpolation: e.target.value as InterpolationId })}>
+            {INTERPOLATIONS.map((m) => (
+              <option key={m} value={m}>
+                {INTERPOLATORS[m].label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Extrapolation
+          <select value={curve.extrapolation} onChange={(e) => setCurve({ extrapolation: e.target.value as Extrapolation })}>
+            {EXTRAPOLATIONS.map((x) => (
+              <option key={x} value={x}>
+                {EXTRAPOLATION_TEXT[x]}
+              </option>
+            ))}
+          </select>
+        </label>
+      </fieldset>
+      <fieldset>
+        <legend>
+          Show rates as <span className="tag">{rateTag(display.compounding, display.dayCount)}</span>
+        </legend>
+        <label>
+          Compounding
+          <select value={display.compounding} onChange={(e) => setDisplay({ compounding: e.target.value as Compounding })}>
+            {COMPOUNDINGS.map((c) => (
+              <option key={c} value={c}>
+                {COMPOUNDING_TEXT[c]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Rate day count
+          <select value={display.dayCount} onChange={(e) => setDisplay({ dayCount: e.target.value as CurveDayCount })}>
+            {CURVE_DAY_COUNTS.map((d) => (
+              <option key={d}>{d}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Forward tenor
+          <select value={display.forwardTenor} onChange={(e) => setDisplay({ forwardTenor: e.target.value as ForwardTenor })}>
+            {FORWARD_TENORS.map((t) => (
+              <option key={t}>{t}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Par coupons
+          <select value={display.parFrequency} onChange={(e) => setDisplay({ parFrequency: Number(e.target.value) })}>
+            <option value={1}>Annual</option>
+            <option value={2}>Semiannual</option>
+            <option value={4}>Quarterly</option>
+            <option value={12}>Monthly</option>
+          </select>
+        </label>
+      </fieldset>
+      <fieldset>
+        <legend>Charts</legend>
+        <label>
+          Maturity axis
+          <select value={display.axis} onChange={(e) => setDisplay({ axis: e.target.value as MaturityAxis })}>
+            <option value="linear">Linear (years)</option>
+            <option value="sqrt">Square-root spaced</option>
+          </select>
+        </label>
+        <label className="check">
+          <input type="checkbox" checked={display.showPar} onChange={(e) => setDisplay({ showPar: e.target.checked })} />
+          Par yields
+        </label>
+        <label className="check">
+          <input type="checkbox" checked={display.showInstantaneous} onChange={(e) => setDisplay({ showInstantaneous: e.target.checked })} />
+          Instantaneous forwards
+        </label>
+        <label className="check">
+          <input type="checkbox" checked={display.showMethodOverlay} onChange={(e) => setDisplay({ showMethodOverlay: e.target.checked })} />
+          Compare methods
+        </label>
+      </fieldset>
+      {badDate && (
+        <p className="field-error" role="alert">
+          Settlement must be a calendar date (YYYY-MM-DD, for example 2026-12-15); no curve until it is one.
+        </p>
+      )}
+    </section>
+  );
+}

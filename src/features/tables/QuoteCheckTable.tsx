@@ -1,0 +1,144 @@
+import { useMemo } from 'react';
+import type { Curve, Quote, Repricing } from '../../core/index.ts';
+import { bondScheduleRows, swapScheduleRows, type QuoteSchedule } from '../../core/input/index.ts';
+import { num, pct } from '../../components/format.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useAppStore } from '../../state/store.ts';
+
+/** The quoted convention of a validated quote, as a tag. */
+export function quoteTag(q: Quote, field: string): string {
+  switch (q.kind) {
+    case 'deposit':
+      return `simple, ${q.dayCount}`;
+    case 'bill':
+      return field === 'price' ? 'per 100' : 'discount, ACT/360';
+    case 'zero':
+      return field === 'price' ? 'per 100' : `${q.compounding === 'continuous' ? 'cont' : q.compounding}, ${q.dayCount}`;
+    case 'bond':
+      return field === 'cleanPrice' ? 'clean, per 100' : `${q.frequency}/yr, ${q.dayCount}`;
+    case 'swap':
+      return `${q.frequency}/yr, ${q.dayCount}`;
+  }
+}
+
+const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? num(v, 6) : pct(v, 6));
+/** Repricing error: bp for a rate quote, per 100 face for a price quote. */
+const showError = (r: Repricing): string => (r.unit === 'price' ? `${num(r.repricingError, 10)} per 100` : `${num(r.repricingError * 1e4, 6)} bp`);
+
+/** Every quote against the curve: implied quote, repricing error, pillar date, t; a schedule for bonds and swaps. */
+export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
+  const rows = useAppStore((s) => s.workspace.quotes);
+  const selectedRowId = useAppStore((s) => s.selectedRowId);
+  const selectRow = useAppStore((s) => s.selectRow);
+  const { build, conversion } = result;
+  const byRow = new Map<number, Repricing>();
+  for (const r of build.repricing) {
+    const row = conversion.rowOfQuote[r.index];
+    if (row !== undefined) byRow.set(row, r);
+  }
+  const quoteByIndex = new Map<number, Quote>((build.workspace?.quotes ?? []).map((q) => [q.index, q]));
+  const leftOut = new Map(build.leftOut.map((l) => [l.index, l]));
+  const selectedIndex = rows.findIndex((r) => r.id === selectedRowId);
+  return (
+    <div className="quote-check">
+      <div className="scroll-y">
+        <table className="data" aria-label="Quote check">
+          <caption>Each quote repriced on the built curve; choose a bond or swap row to see its schedule.</caption>
+          <thead>
+            <tr>
+              <th scope="col">Row</th>
+              <th scope="col">Kind</th>
+              <th scope="col">Pillar date</th>
+              <th scope="col">t (years, {build.curve?.dayCount ?? ''})</th>
+              <th scope="col">Quoted as</th>
+              <th scope="col">Market</th>
+              <th scope="col">Implied by curve</th>
+              <th scope="col">Repricing error</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((row, i) => {
+              const rep = byRow.get(i);
+              const qi = conversion.rowOfQuote.indexOf(i);
+              const q = qi >= 0 ? quoteByIndex.get(qi) : undefined;
+              const lo = qi >= 0 ? leftOut.get(qi) : undefined;
+              const status = !rep ? (lo ? lo.message.replace(/quotes\[\d+\]/, `row ${i + 1}`) : conversion.rows[i]?.blank ? 'empty row' : 'not in the curve: fix the marked cells') : null;
+              return (
+                <tr key={row.id} className={row.id === selectedRowId ? 'selected' : ''}>
+                  <th scope="row">
+                    <button type="button" className="linklike" onClick={() => selectRow(row.id)} aria-pressed={row.id === selectedRowId}>
+                      {i + 1}
+                    </button>
+                  </th>
+                  <td>{q?.kind ?? row.kind}</td>
+                  {rep && q ? (
+                    <>
+                      <td>{rep.maturity}</td>
+                      <td className="n">{num(rep.t, 6)}</td>
+                      <td>
+                        {rep.field} <span className="tag">{quoteTag(q, rep.field)}</span>
+                      </td>
+                      <td className="n">{showQuote(rep, rep.market)}</td>
+                      <td className="n">{showQuote(rep, rep.model)}</td>
+                      <td className="n">{showError(rep)}</td>
+                    </>
+                  ) : (
+                    <td colSpan={6} className="muted">
+                      {status}
+                    </td>
+                  )}
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      {selectedIndex >= 0 && <ScheduleView rowNumber={selectedIndex + 1} quote={quoteByIndex.get(conversion.rowOfQuote.indexOf(selectedIndex))} curve={build.curve} settlement={build.workspace?.settlement ?? ''} />}
+    </div>
+  );
+}
+
+function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: number; quote: Quote | undefined; curve: Curve | null; settlement: string }) {
+  const schedule: QuoteSchedule | null = useMemo(() => {
+    if (!quote) return null;
+    if (quote.kind === 'bond') return bondScheduleRows(quote, settlement, curve);
+    if (quote.kind === 'swap') return swapScheduleRows(quote, settlement, curve);
+    return null;
+  }, [quote, curve, settlement]);
+  if (!quote) return <p className="muted">Row {rowNumber} is not a valid quote yet.</p>;
+  if (!schedule) return <p className="muted">Row {rowNumber} is a {quote.kind}: a single flow at {quote.maturity}, no schedule.</p>;
+  const dc = quote.kind === 'bond' || quote.kind === 'swap' ? quote.dayCount : '';
+  return (
+    <div className="schedule">
+      <table className="data" aria-label={`Schedule of row ${rowNumber}`}>
+        <caption>
+          Row {rowNumber}: {quote.kind} maturing {quote.maturity}, {schedule.note}
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">Period start</th>
+            <th scope="col">Payment date</th>
+            <th scope="col">Year fraction ({dc})</th>
+            <th scope="col">Cash flow (per 100)</th>
+            <th scope="col">t (years)</th>
+            <th scope="col">Discount factor</th>
+            <th scope="col">Present value (per 100)</th>
+          </tr>
+        </thead>
+        <tbody>
+          {schedule.rows.map((r) => (
+            <tr key={r.end}>
+              <td>{r.start}</td>
+              <td>{r.end}</td>
+              <td className="n">{num(r.yearFraction, 8)}</td>
+              <td className="n">{num(r.cashFlow, 6)}</td>
+              <td className="n">{num(r.t, 6)}</td>
+              <td className="n">{num(r.discount, 8)}</td>
+              <td className="n">{num(r.presentValue, 6)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

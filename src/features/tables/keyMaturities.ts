@@ -1,0 +1,41 @@
+import { addTenor, discountOn, forwardOn, parseTenor, parYieldOn, zeroOn, type Curve } from '../../core/index.ts';
+import type { DisplaySettings } from '../../core/input/index.ts';
+
+export const KEY_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'] as const;
+
+export interface KeyMaturityRow {
+  readonly tenor: string;
+  readonly date: string;
+  readonly t: number | null;
+  readonly discount: number | null;
+  readonly zero: number | null;
+  readonly par: number | null;
+  readonly forward: number | null;
+  readonly extrapolated: boolean;
+  /** Why a value is missing (beyond the curve without extrapolation). */
+  readonly note: string | null;
+}
+
+/** The key-maturity table, every value read from the core's queries. */
+export function keyMaturityRows(curve: Curve, display: DisplaySettings): KeyMaturityRow[] {
+  const fwdTenor = parseTenor(display.forwardTenor)!;
+  return KEY_TENORS.map((tenor) => {
+    const date = addTenor(curve.settlement, parseTenor(tenor)!);
+    const d = discountOn(curve, date);
+    const z = zeroOn(curve, date, display.compounding, display.dayCount);
+    const p = parYieldOn(curve, date, display.parFrequency);
+    const f = forwardOn(curve, date, addTenor(date, fwdTenor), display.compounding, display.dayCount);
+    const note = !d.ok ? d.errors[0]!.message : !f.ok ? f.errors[0]!.message : null;
+    return {
+      tenor,
+      date,
+      t: d.ok ? d.value.t : null,
+      discount: d.ok ? d.value.discount : null,
+      zero: z.ok ? z.value.zero : null,
+      par: p.ok ? p.value.rate : null,
+      forward: f.ok ? f.value.rate : null,
+      extrapolated: (d.ok && d.value.extrapolated) || (f.ok && f.value.extrapolated),
+      note,
+    };
+  });
+}

@@ -1,0 +1,53 @@
+import { useEffect, useState } from 'react';
+import { buildCurve, INTERPOLATIONS, type InterpolationId } from '../core/index.ts';
+import type { DisplaySettings } from '../core/input/index.ts';
+import { chartEndDate, forwardSeries, sampleDates, ZERO_SAMPLES, type SamplePoint } from './useCurveSeries.ts';
+
+export interface MethodForwards {
+  readonly method: InterpolationId;
+  readonly points: readonly SamplePoint[];
+  /** Why the method gave no curve on these quotes, when it did not. */
+  readonly error: string | null;
+}
+
+type Idle = (cb: () => void) => () => void;
+/** Runs work when the browser is idle (requestIdleCallback), or on the next task where it has none. */
+export const whenIdle: Idle = (cb) => {
+  const w = globalThis as typeof globalThis & { requestIdleCallback?: (cb: () => void, o?: { timeout: number }) => number; cancelIdleCallback?: (h: number) => void };
+  if (w.requestIdleCallback && w.cancelIdleCallback) {
+    const h = w.requestIdleCallback(cb, { timeout: 500 });
+    return () => w.cancelIdleCallback!(h);
+  }
+  const h = setTimeout(cb, 0);
+  return () => clearTimeout(h);
+};
+
+/**
+ * Forwards of every interpolation method on the same quotes, built one method per idle slot so
+ * the edit that triggered them paints first; results fill in progressively.
+ */
+export function useMethodOverlay(doc: Record<string, unknown> | null, display: DisplaySettings, enabled: boolean): readonly MethodForwards[] {
+  const [state, setState] = useState<{ key: unknown; rows: MethodForwards[] }>({ key: null, rows: [] });
+  useEffect(() => {
+    if (!enabled || !doc) return;
+    let cancel: (() => void) | null = null;
+    let k = 0;
+    const rows: MethodForwards[] = [];
+    const key = {};
+    setState({ key, rows: [] });
+    const step = (): void => {
+      const method = INTERPOLATIONS[k++];
+      if (!method) return;
+      const b = buildCurve(doc, { skipInvalid: true, interpolation: method });
+      if (b.curve) {
+        const dates = sampleDates(b.curve.settlement, chartEndDate(b.curve), ZERO_SAMPLES);
+        rows.push({ method, points: forwardSeries(b.curve, display, dates), error: null });
+      } else rows.push({ method, points: [], error: b.errors[0]?.message ?? 'no curve' });
+      setState({ key, rows: [...rows] });
+      cancel = whenIdle(step);
+    };
+    cancel = whenIdle(step);
+    return () => cancel?.();
+  }, [doc, display, enabled]);
+  return enabled ? state.rows : [];
+}

@@ -1,0 +1,166 @@
+import type { StateCreator } from 'zustand';
+import {
+  EMPTY_ROW_TEXT,
+  QUOTE_COLUMNS,
+  readPastedBlock,
+  rewriteBareRate,
+  type DisplaySettings,
+  type QuoteColumn,
+  type QuoteRow,
+  type QuoteUnitMode,
+  type RowText,
+  type WorkbenchDocument,
+} from '../../core/input/index.ts';
+import type { AppState } from '../appState.ts';
+import { demoWorkspace } from '../demoWorkspace.ts';
+import { makeRowId } from '../ids.ts';
+import { maturitySortKey } from '../maturitySort.ts';
+
+/** Keys of the document that other panels own; the workbench stores and undoes them untouched. */
+export type ReservedKey = 'strategy' | 'scenarios' | 'snapshots' | 'view' | 'note';
+
+export interface PasteTarget {
+  /** Row index of the focused cell (rows past the end are appended). */
+  readonly row: number;
+  readonly column: QuoteColumn;
+}
+
+export interface WorkspaceSlice {
+  workspace: WorkbenchDocument;
+  setCell(rowId: string, column: QuoteColumn, text: string): void;
+  setRowEnabled(rowId: string, enabled: boolean): void;
+  /** Adds an empty row after the given row (at the end when null); returns its id. */
+  addRow(afterRowId?: string | null): string;
+  deleteRow(rowId: string): void;
+  sortByMaturity(): void;
+  setSettlement(text: string): void;
+  setCurve(patch: Partial<WorkbenchDocument['curve']>): void;
+  setDisplay(patch: Partial<DisplaySettings>): void;
+  /** Switches how bare numbers are read; bare rate and coupon texts are re-written so their values stay the same. */
+  setQuoteUnit(mode: QuoteUnitMode): void;
+  /**
+   * Pastes a block. With a header row it replaces the sheet (the notice offers to append
+   * instead); without one it fills from the target cell in column order.
+   */
+  pasteText(text: string, target: PasteTarget | null): void;
+  /** Turns the last replacing paste into an append (one undo step either way). */
+  appendInstead(): void;
+  setReserved(key: ReservedKey, value: unknown): void;
+  /** Replaces the whole document (reset to demo, import) as one undoable step. */
+  replaceWorkspace(doc: WorkbenchDocument, label: string): void;
+  resetToDemo(): void;
+}
+
+const newRow = (text: Partial<RowText> = {}): QuoteRow => ({ id: makeRowId(), enabled: true, ...EMPTY_ROW_TEXT, ...text });
+
+export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice> = (set, get) => {
+  const ws = (): WorkbenchDocument => get().workspace;
+  const withQuotes = (quotes: readonly QuoteRow[]): WorkbenchDocument => ({ ...ws(), quotes });
+  const mapRow = (rowId: string, f: (r: QuoteRow) => QuoteRow): readonly QuoteRow[] => ws().quotes.map((r) => (r.id === rowId ? f(r) : r));
+  return {
+    workspace: demoWorkspace(makeRowId),
+    setCell(rowId, column, text) {
+      const row = ws().quotes.find((r) => r.id === rowId);
+      if (!row || row[column] === text) return;
+      get().commit(withQuotes(mapRow(rowId, (r) => ({ ...r, [column]: text }))), `edit ${column}`, `cell:${rowId}:${column}`);
+    },
+    setRowEnabled(rowId, enabled) {
+      get().commit(withQuotes(mapRow(rowId, (r) => ({ ...r, enabled }))), enabled ? 'switch row on' : 'switch row off');
+    },
+    addRow(afterRowId = null) {
+      const row = newRow();
+      const quotes = [...ws().quotes];
+      const at = afterRowId === null ? -1 : quotes.findIndex((r) => r.id === afterRowId);
+      if (at < 0) quotes.push(row);
+      else quotes.splice(at + 1, 0, row);
+      get().commit(withQuotes(quotes), 'add row');
+      return row.id;
+    },
+    deleteRow(rowId) {
+      const quotes = ws().quotes.filter((r) => r.id !== rowId);
+      if (quotes.length === ws().quotes.length) return;
+      get().commit(withQuotes(quotes), 'delete row');
+      if (get().selectedRowId === rowId) set({ selectedRowId: null });
+    },
+    sortByMaturity() {
+      const settlement = ws().settlement;
+      const keyed = ws().quotes.map((r, i) => ({ r, i, k: maturitySortKey(r.maturity, settlement) }));
+      keyed.sort((a, b) => a.k - b.k || a.i - b.i);
+      if (keyed.every((x, i) => x.i === i)) return;
+      get().commit(withQuotes(keyed.map((x) => x.r)), 'sort by maturity');
+    },
+    setSettlement(text) {
+      if (text === ws().settlement) return;
+      get().commit({ ...ws(), settlement: text }, 'settlement date', 'settlement');
+    },
+    setCurve(patch) {
+      get().commit({ ...ws(), curve: { ...ws().curve, ...patch } }, 'curve settings');
+    },
+    setDisplay(patch) {
+      get().commit({ ...ws(), display: { ...ws().display, ...patch } }, 'display settings');
+    },
+    setQuoteUnit(mode) {
+      const from = ws().quoteUnit;
+      if (from === mode) return;
+      const quotes = ws().quotes.map((r) => {
+        const rate = rewriteBareRate(r.rate, from, mode);
+        const coupon = rewriteBareRate(r.coupon, from, mode);
+        return rate === r.rate && coupon === r.coupon ? r : { ...r, rate, coupon };
+      });
+      get().commit({ ...ws(), quoteUnit: mode, quotes }, 'quote unit');
+    },
+    pasteText(text, target) {
+      const block = readPastedBlock(text);
+      if (block.header) {
+        const before = ws().quotes;
+        const pasted = block.rows;
+        get().commit(withQuotes(pasted.map((r) => newRow(r))), 'paste (replace sheet)');
+        set({ pasteNotice: { mode: 'replaced', rows: pasted.length, ignoredColumns: block.ignored, before, pasted } });
+        return;
+      }
+      if (block.cells.length === 0) return;
+      const quotes = [...ws().quotes];
+      const startRow = target ? Math.max(0, target.row) : quotes.length;
+      const startCol = target ? QUOTE_COLUMNS.indexOf(target.column) : 0;
+      block.cells.forEach((cells, i) => {
+        const at = startRow + i;
+        const base = quotes[at] ?? newRow();
+        const patch: Partial<Record<QuoteColumn, string>> = {};
+        cells.forEach((value, j) => {
+          const col = QUOTE_COLUMNS[startCol + j];
+          if (col) patch[col] = value;
+        });
+        const row = { ...base, ...patch };
+        if (at < quotes.length) quotes[at] = row;
+        else quotes.push(row);
+      });
+      get().commit(withQuotes(quotes), 'paste');
+      set({ pasteNotice: { mode: 'filled', rows: block.cells.length, ignoredColumns: [] } });
+    },
+    appendInstead() {
+      const notice = get().pasteNotice;
+      if (!notice || notice.mode !== 'replaced' || !notice.before || !notice.pasted) return;
+      const quotes = [...notice.before, ...notice.pasted.map((r) => newRow(r))];
+      // Replace the paste's own undo step: the result is one step from the sheet before the paste.
+      const s = get();
+      const prior = s.past[s.past.length - 1];
+      if (prior && prior.quotes === notice.before) {
+        set({ workspace: { ...ws(), quotes }, future: [] });
+      } else get().commit(withQuotes(quotes), 'paste (append)');
+      set({ pasteNotice: { mode: 'appended', rows: notice.pasted.length, ignoredColumns: notice.ignoredColumns } });
+    },
+    setReserved(key, value) {
+      const next = { ...ws() } as Record<string, unknown>;
+      if (value === undefined) delete next[key];
+      else next[key] = value;
+      get().commit(next as unknown as WorkbenchDocument, key);
+    },
+    replaceWorkspace(doc, label) {
+      get().commit(doc, label);
+      set({ selectedRowId: null, pasteNotice: null });
+    },
+    resetToDemo() {
+      get().replaceWorkspace(demoWorkspace(makeRowId), 'reset to demo');
+    },
+  };
+};
