@@ -52,12 +52,24 @@ export interface RollBreakEvens {
   readonly curve: readonly BreakEvenPoint[];
 }
 
+/**
+ * Brent's root of f on [a, b], or null when f does not change sign there or barely depends on its
+ * argument (|f(a) - f(b)| <= 1e-13: e.g. a single roll leg, fixed today, against the zero).
+ */
+function crossing(f: (x: number) => number, a: number, b: number, xTol: number): number | null {
+  const fa = f(a);
+  const fb = f(b);
+  if (!(Math.abs(fa - fb) > 1e-13)) return null;
+  const root = brentRoot(f, a, b, xTol);
+  return root ? root.x : null;
+}
+
 export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEvens {
   const growths = (rv: RollView) => strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, rv);
   const rollRate = {} as Record<TermStrategyId, number | null>;
   const shiftBp = {} as Record<TermStrategyId, number | null>;
   for (const id of TERM_STRATEGY_IDS) {
-    const rr = brentRoot(
+    rollRate[id] = crossing(
       (r) => {
         const g = growths(ctx.view(constantRateSpec(chosen.spec, r)));
         return g.roll - g[id];
@@ -66,8 +78,7 @@ export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEve
       ROLL_RATE_BRACKET[1],
       1e-15,
     );
-    rollRate[id] = rr ? rr.x : null;
-    const sr = brentRoot(
+    shiftBp[id] = crossing(
       (s) => {
         const g = growths(ctx.view(shiftedSpec(chosen.spec, s)));
         return g.roll - g[id];
@@ -76,13 +87,12 @@ export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEve
       SHIFT_BRACKET_BP[1],
       1e-10,
     );
-    shiftBp[id] = sr ? sr.x : null;
   }
   const base = growths(chosen);
   const ridingRiseBp = {} as Record<Exclude<StrategyId, 'riding'>, number | null>;
   for (const other of ['roll', 'zero', 'bond'] as const) {
     const target = base[other];
-    const rr = brentRoot(
+    ridingRiseBp[other] = crossing(
       (d) => {
         const moved: RollView = { ...chosen, horizonCurve: shiftedCurve(chosen.horizonCurve, d) };
         const v = bondAtHorizon(ctx.riding, ctx.horizon, moved);
@@ -92,7 +102,6 @@ export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEve
       SHIFT_BRACKET_BP[1],
       1e-10,
     );
-    ridingRiseBp[other] = rr ? rr.x : null;
   }
   return { rollRate, shiftBp, ridingRiseBp, curve: breakEvenCurve(ctx) };
 }
@@ -127,8 +136,8 @@ export function breakEvenCurve(ctx: RollContext): BreakEvenPoint[] {
       if (compareIso(f.date, horizon) <= 0) coupons += f.amount * Math.exp(curve.lnDiscountAt(curve.time(f.date)) - lnH);
     }
     const target = 100 / Math.exp(lnH);
-    const root = brentRoot((dy) => coupons + bondPriceFromYieldOn(bond.value, horizon, y.value + dy) - target, -0.5, 1, 1e-15);
-    out.push({ tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root ? root.x * 10000 : null });
+    const root = crossing((dy) => coupons + bondPriceFromYieldOn(bond.value, horizon, y.value + dy) - target, -0.5, 1, 1e-15);
+    out.push({ tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root === null ? null : root * 10000 });
   }
   return out;
 }

@@ -175,12 +175,12 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
   if (!dfM.ok) errors.push(...dfM.errors);
   const spot = spotRollRate(curve, tenor, strategy.rollDayCount);
   if (!spot.ok) errors.push(...spot.errors);
-  const legsR = rollLegs(curve, tenor, H, strategy.rollDayCount);
-  if (!legsR.ok) errors.push(...legsR.errors);
-  const bondR = parBondOn(curve, H, strategy.bondFrequency, 'strategy.horizon');
-  if (!bondR.ok) errors.push(...bondR.errors);
-  const ridingR = parBondOn(curve, M, strategy.ridingFrequency, 'strategy.ridingMaturity');
-  if (!ridingR.ok) errors.push(...ridingR.errors);
+  const legsR = dfH.ok ? rollLegs(curve, tenor, H, strategy.rollDayCount) : dfH;
+  if (!legsR.ok && dfH.ok) errors.push(...legsR.errors);
+  const bondR = dfH.ok ? parBondOn(curve, H, strategy.bondFrequency, 'strategy.horizon') : dfH;
+  if (!bondR.ok && dfH.ok) errors.push(...bondR.errors);
+  const ridingR = dfM.ok ? parBondOn(curve, M, strategy.ridingFrequency, 'strategy.ridingMaturity') : dfM;
+  if (!ridingR.ok && dfM.ok) errors.push(...ridingR.errors);
   if (errors.length > 0 || !dfH.ok || !spot.ok || !legsR.ok || !bondR.ok || !ridingR.ok) return fail(...dedupe(errors));
   if (dfH.value.extrapolated) warnings.push({ path: 'strategy.horizon', quote: null, code: 'extrapolated', message: `strategy.horizon: ${H} is beyond the last pillar; its discount factor is extrapolated flat-forward` });
   if (dfM.ok && dfM.value.extrapolated) warnings.push({ path: 'strategy.ridingMaturity', quote: null, code: 'extrapolated', message: `strategy.ridingMaturity: ${M} is beyond the last pillar; the riding bond is priced on the flat-forward extrapolation` });

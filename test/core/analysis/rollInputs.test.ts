@@ -1,0 +1,113 @@
+// The `strategy` key of the workspace document: defaults, path-named errors a user can act on,
+// money parsing and cent rounding, and analysis errors for inputs that do not fit the curve.
+import { buildCurve } from '../../../src/core/index.ts';
+import {
+  analyseRollVsTerm,
+  DEFAULT_STRATEGY,
+  formatMoney,
+  formatMoneySigned,
+  MoneyDecimal,
+  moneyTimes,
+  parseMoney,
+  validateStrategy,
+} from '../../../src/core/analysis/rollVsTerm.ts';
+
+const curve = buildCurve(
+  {
+    format: 'tenorscope-workspace',
+    version: 1,
+    settlement: '2026-12-01',
+    curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' },
+    quotes: [
+      { kind: 'deposit', tenor: '3M', rate: 0.032 },
+      { kind: 'swap', tenor: '1Y', rate: 0.034 },
+      { kind: 'swap', tenor: '2Y', rate: 0.036 },
+      { kind: 'swap', tenor: '5Y', rate: 0.039 },
+    ],
+  },
+  {},
+).curve!;
+
+describe('validateStrategy', () => {
+  it('gives the documented defaults for a missing strategy and for missing fields', () => {
+    expect(validateStrategy(undefined)).toEqual({ strategy: DEFAULT_STRATEGY, errors: [] });
+    expect(validateStrategy({})).toEqual({ strategy: DEFAULT_STRATEGY, errors: [] });
+    expect(DEFAULT_STRATEGY.rollDayCount).toBe('ACT/360');
+  });
+
+  it('keeps valid fields as given', () => {
+    const raw = { amount: '250000.50', horizon: '2028-06-30', rollTenor: '6M', rollDayCount: 'ACT/365F', view: 'scenario:Bear steepener', path: { fill: 'typed', legs: [0.03, 0.031] }, shiftBp: -25 };
+    const { strategy, errors } = validateStrategy(raw);
+    expect(errors).toEqual([]);
+    expect(strategy).toMatchObject({ amount: '250000.50', horizon: '2028-06-30', rollTenor: '6M', rollDayCount: 'ACT/365F', view: 'scenario:Bear steepener', shiftBp: -25 });
+    expect(strategy.path.legs).toEqual([0.03, 0.031]);
+  });
+
+  it('names the path of every bad field, says what would be valid, and falls back to the default', () => {
+    const { strategy, errors } = validateStrategy({ amount: '1,000,000', horizon: 'two years', rollTenor: '2M', rollDayCount: 'ACT/ACT-ICMA', bondFrequency: 3, shiftBp: 5000, path: { fill: 'wiggle', constant: 4.5, legs: [0.03, 'x'] }, colour: 'red' });
+    const byPath = Object.fromEntries(errors.map((e) => [e.path, e.message]));
+    expect(Object.keys(byPath).sort()).toEqual(
+      ['strategy.amount', 'strategy.bondFrequency', 'strategy.colour', 'strategy.horizon', 'strategy.path.constant', 'strategy.path.fill', 'strategy.path.legs[1]', 'strategy.rollDayCount', 'strategy.rollTenor', 'strategy.shiftBp'].sort(),
+    );
+    expect(byPath['strategy.amount']).toMatch(/^strategy\.amount: .*leave out thousands separators/);
+    expect(byPath['strategy.horizon']).toMatch(/^strategy\.horizon: must be a tenor such as "2Y"/);
+    expect(byPath['strategy.rollTenor']).toContain('1M, 3M, 6M, 1Y');
+    expect(byPath['strategy.path.constant']).toContain('rates are decimals: 0.05 = 5%');
+    expect(byPath['strategy.path.legs[1]']).toContain('leg 3');
+    expect(strategy.amount).toBe(DEFAULT_STRATEGY.amount);
+    expect(strategy.rollTenor).toBe(DEFAULT_STRATEGY.rollTenor);
+    expect(strategy.path.legs).toEqual([]);
+  });
+
+  it('refuses a strategy that is not an object', () => {
+    const { errors } = validateStrategy([1, 2]);
+    expect(errors).toHaveLength(1);
+    expect(errors[0]!.path).toBe('strategy');
+  });
+});
+
+describe('money', () => {
+  it('parses typed amounts exactly and refuses separators, signs and zero', () => {
+    const m = parseMoney('1000000.10');
+    expect(m.ok && m.value.toFixed()).toBe('1000000.1');
+    for (const bad of ['1,000', '-5', '0', '', '1e6', '12.1234567']) expect(parseMoney(bad).ok, bad).toBe(false);
+  });
+
+  it('rounds to cents half away from zero only for display (common practice for cash display)', () => {
+    expect(formatMoney(new MoneyDecimal('1234567.005'))).toBe('1,234,567.01');
+    expect(formatMoney(new MoneyDecimal('-0.004'))).toBe('0.00');
+    expect(formatMoney(new MoneyDecimal('-1234.565'))).toBe('-1,234.57');
+    expect(formatMoneySigned(new MoneyDecimal('12'))).toBe('+12.00');
+    // 0.1 + 0.2 in decimal is exactly 0.3: no float residue reaches the cents
+    expect(new MoneyDecimal('0.1').plus('0.2').toFixed()).toBe('0.3');
+    expect(moneyTimes(new MoneyDecimal('1000000'), 1.5).toFixed()).toBe('1500000');
+  });
+});
+
+describe('analyseRollVsTerm input errors', () => {
+  it('says when the horizon is beyond the curve', () => {
+    const r = analyseRollVsTerm(curve, { ...DEFAULT_STRATEGY, horizon: '7Y', ridingMaturity: '8Y' });
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.errors.map((e) => e.path)).toContain('strategy.horizon');
+    expect(r.errors.find((e) => e.path === 'strategy.horizon')!.message).toMatch(/beyond the curve's last pillar.*flat-forward/);
+  });
+
+  it('says when the riding bond does not mature after the horizon', () => {
+    const r = analyseRollVsTerm(curve, { ...DEFAULT_STRATEGY, horizon: '2Y', ridingMaturity: '1Y' });
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.errors[0]!.path).toBe('strategy.ridingMaturity');
+    expect(r.errors[0]!.message).toContain('must mature after the horizon');
+  });
+
+  it('warns when typed legs are fewer than the horizon needs and fills the rest from forwards', () => {
+    const r = analyseRollVsTerm(curve, { ...DEFAULT_STRATEGY, horizon: '1Y', view: 'path', path: { ...DEFAULT_STRATEGY.path, fill: 'typed', legs: [0.05] } });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const path = r.value.views.find((v) => v.id === 'path')!;
+    expect(path.legRates[1]).toBeCloseTo(0.05, 15);
+    expect(path.legRates[2]).toBeCloseTo(r.value.legs[2]!.forward, 12);
+    expect(r.value.warnings.map((w) => w.path)).toContain('strategy.path.legs');
+  });
+});
