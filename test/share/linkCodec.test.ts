@@ -20,6 +20,16 @@ describe('encodeWorkspaceLink / decodeWorkspaceLink', () => {
     expect(fragment).toMatch(/^ws1\.[A-Za-z0-9_-]+$/);
   });
 
+  it('the same market as the workbench saves it (cells as typed) also fits in 2,000 characters', async () => {
+    const workbench = JSON.parse(readFileSync(new URL('../fixtures/share/workbench40.json', import.meta.url), 'utf8')) as Record<string, unknown>;
+    const fragment = await encodeWorkspaceLink(workbench);
+    console.info(`link fragment of test/fixtures/share/workbench40.json: ${fragment.length} characters`);
+    expect(fragment.length).toBeLessThanOrEqual(2000);
+    const outcome = await decodeWorkspaceLink(fragment);
+    expect(outcome.ok && outcome.checked.document).toEqual(workbench);
+    expect(outcome.ok && outcome.checked.workspace?.quotes.length).toBe(40);
+  });
+
   it('decodes the fixture to the identical document, from this build without a notice', async () => {
     const outcome = await decodeWorkspaceLink('#' + (await encodeWorkspaceLink(fixture)));
     expect(outcome.ok).toBe(true);
@@ -111,6 +121,25 @@ const workspace = fc
   )
   .map((d) => d as Record<string, unknown>);
 
+const cell = fc.string({ maxLength: 64 });
+const row = fc.record({ id: fc.string({ minLength: 1, maxLength: 20 }), enabled: fc.boolean(), kind: cell, maturity: cell, rate: cell, price: cell, coupon: cell, frequency: cell, dayCount: cell });
+const workbenchDoc = fc
+  .record(
+    {
+      format: fc.constant('tenorscope-workbench'),
+      version: fc.constant(1),
+      settlement: fc.string({ maxLength: 40 }),
+      curve: fc.record({ dayCount: fc.string({ maxLength: 12 }), interpolation: fc.constantFrom('monotone-convex', 'linear-zero'), extrapolation: fc.constantFrom('none', 'flat-forward') }),
+      quoteUnit: fc.constantFrom('percent', 'decimal'),
+      quotes: fc.array(row, { maxLength: 40 }),
+      display: fc.record({ compounding: fc.constantFrom('continuous', 'annual'), showPar: fc.boolean(), parFrequency: fc.constantFrom(1, 2) }),
+      scenarios: fc.uniqueArray(scenario, { maxLength: 4, selector: (s) => s.id }),
+      note: fc.string({ maxLength: 300 }),
+    },
+    { requiredKeys: ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display'] },
+  )
+  .map((d) => d as Record<string, unknown>);
+
 describe('property: random workspaces encode to a link and decode to the identical document (fast-check)', () => {
   it('round-trips', async () => {
     await fc.assert(
@@ -121,6 +150,16 @@ describe('property: random workspaces encode to a link and decode to the identic
         expect(JSON.stringify(outcome.checked.document)).toBe(JSON.stringify(doc));
       }),
       { numRuns: 150 },
+    );
+  });
+  it('round-trips workbench documents with arbitrary typed cells', async () => {
+    await fc.assert(
+      fc.asyncProperty(workbenchDoc, async (doc) => {
+        const outcome = await decodeWorkspaceLink(await encodeWorkspaceLink(doc));
+        if (!outcome.ok) throw new Error(outcome.message);
+        expect(outcome.checked.document).toEqual(doc);
+      }),
+      { numRuns: 100 },
     );
   });
 });

@@ -5,12 +5,15 @@ import type { Workspace } from '../workspace/types.ts';
 import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
 import { validateNote, validateScenarios, validateSnapshots, validateView, type ViewValue } from './documentKeys.ts';
 import { LIMITS } from './limits.ts';
+import { checkWorkbenchShape } from './workbenchShape.ts';
+import { WORKBENCH_FORMAT } from '../input/index.ts';
 
 /** A workspace document after validation: the document itself (unchanged) and what was read from it. */
 export interface CheckedDocument {
   /** The document exactly as given (after migration), to store, share or save. */
   readonly document: Record<string, unknown>;
-  readonly workspace: Workspace;
+  /** The engine's view of it; null when a workbench document's typed settlement or settings do not validate yet. */
+  readonly workspace: Workspace | null;
   readonly scenarios: readonly Scenario[];
   readonly snapshots: readonly Snapshot[];
   readonly note: string;
@@ -51,16 +54,24 @@ export function migrateDocument(doc: Record<string, unknown>, migrations: readon
  */
 export function validateDocument(raw: unknown, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): DocumentOutcome {
   if (!isObj(raw)) return { ok: false, errors: [coreError('schema', '', 'a workspace document must be a JSON object')] };
-  if (raw.format !== WORKSPACE_FORMAT) {
-    return { ok: false, errors: [coreError('schema', 'format', `this is not a workspace document: format must be "${WORKSPACE_FORMAT}"`)] };
+  if (raw.format !== WORKSPACE_FORMAT && raw.format !== WORKBENCH_FORMAT) {
+    return { ok: false, errors: [coreError('schema', 'format', `this is not a workspace document: format must be "${WORKBENCH_FORMAT}" or "${WORKSPACE_FORMAT}"`)] };
   }
-  const doc = migrateDocument(raw, migrations);
+  const doc = raw.format === WORKSPACE_FORMAT ? migrateDocument(raw, migrations) : raw;
   if (Array.isArray(doc.quotes) && doc.quotes.length > LIMITS.quotes) {
     return { ok: false, errors: [coreError('range', 'quotes', `${doc.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`)] };
   }
   const errors: CoreError[] = [];
-  const core = validateWorkspace(doc);
-  if (!core.workspace) return { ok: false, errors: core.errors };
+  let core: { workspace: Workspace | null; errors: readonly CoreError[] };
+  if (doc.format === WORKBENCH_FORMAT) {
+    if (doc.version !== 1) return { ok: false, errors: [coreError('unsupported-version', 'version', `workbench document version ${String(doc.version).slice(0, 10)} is not one this build reads (1)`)] };
+    const shape = checkWorkbenchShape(doc);
+    if (!shape.engineDoc) return { ok: false, errors: shape.errors };
+    core = validateWorkspace(shape.engineDoc);
+  } else {
+    core = validateWorkspace(doc);
+    if (!core.workspace) return { ok: false, errors: core.errors };
+  }
   const s = validateScenarios(doc.scenarios);
   const n = validateNote(doc.note);
   const v = validateView(doc.view);

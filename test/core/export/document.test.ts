@@ -70,6 +70,25 @@ describe('validateDocument(doc)', () => {
   });
 });
 
+describe('validateDocument(workbench document)', () => {
+  const workbench = JSON.parse(readFileSync(new URL('../../fixtures/share/workbench40.json', import.meta.url), 'utf8')) as Record<string, unknown>;
+  const rows = workbench.quotes as Record<string, unknown>[];
+  it('accepts the cells as typed and gives the engine workspace they convert to', () => {
+    const r = validateDocument(workbench);
+    expect(r.ok && r.value.workspace?.quotes.length).toBe(40);
+  });
+  it('keeps a document whose typed settlement is not a date yet (the sheet shows it)', () => {
+    const r = validateDocument({ ...workbench, settlement: '2026-11-3' });
+    expect(r.ok && r.value.workspace).toBeNull();
+  });
+  it('refuses long cells, unknown cells and unknown keys', () => {
+    expect(paths({ ...workbench, quotes: [{ ...rows[0], rate: '1'.repeat(65) }] })).toEqual(['quotes[0].rate']);
+    expect(paths({ ...workbench, quotes: [{ ...rows[0], formula: '=1' }] })).toEqual(['quotes[0].formula']);
+    expect(paths({ ...workbench, extra: 1 })).toEqual(['extra']);
+    expect(paths({ ...workbench, version: 3 })).toEqual(['version']);
+  });
+});
+
 describe('files', () => {
   it('parseDocumentText(serialiseDocument(doc)) gives the same document', () => {
     const r = parseDocumentText(serialiseDocument(fixture));

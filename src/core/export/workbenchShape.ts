@@ -1,0 +1,50 @@
+import { QUOTE_COLUMNS, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../input/index.ts';
+import { coreError, type CoreError } from '../result.ts';
+import { RESERVED_KEYS } from '../workspace/validate.ts';
+import { LIMITS } from './limits.ts';
+
+const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', ...RESERVED_KEYS];
+const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
+/** Characters of one typed cell, a row id, a setting value. */
+export const CELL_MAX = 64;
+
+const shortText = (v: unknown, max = CELL_MAX): boolean => typeof v === 'string' && v.length <= max;
+const flatSettings = (v: unknown): boolean =>
+  isObj(v) && Object.keys(v).length <= 20 && Object.values(v).every((x) => shortText(x, 40) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x)));
+
+/**
+ * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
+ * read from untrusted input, strictly: known keys only, at most LIMITS.quotes rows, every cell
+ * text of at most CELL_MAX characters, settings flat and short. The cells' meaning is the
+ * workbench's business: a typed cell may be wrong and is shown as such, not refused here.
+ * Returns the engine document it converts to (for scenarios), or errors.
+ */
+export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: CoreError[]; engineDoc: Record<string, unknown> | null } {
+  const errors: CoreError[] = [];
+  for (const k of Object.keys(raw)) if (!TOP.includes(k)) errors.push(coreError('schema', k.slice(0, 40), `unknown field "${k.slice(0, 40)}"; a workbench document has ${TOP.join(', ')}`));
+  if (raw.format !== WORKBENCH_FORMAT) errors.push(coreError('schema', 'format', `format must be "${WORKBENCH_FORMAT}"`));
+  if (!shortText(raw.settlement, 40)) errors.push(coreError('schema', 'settlement', 'settlement must be text (a date YYYY-MM-DD)'));
+  if (!flatSettings(raw.curve)) errors.push(coreError('schema', 'curve', 'curve must be an object of short settings'));
+  if (!flatSettings(raw.display)) errors.push(coreError('schema', 'display', 'display must be an object of short settings'));
+  if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));
+  if (!Array.isArray(raw.quotes)) errors.push(coreError('schema', 'quotes', 'quotes must be a list of rows'));
+  else if (raw.quotes.length > LIMITS.quotes) errors.push(coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`));
+  else {
+    raw.quotes.forEach((row, i) => {
+      const path = `quotes[${i}]`;
+      if (!isObj(row)) {
+        errors.push(coreError('schema', path, `${path}: must be a row object`, i));
+        return;
+      }
+      for (const k of Object.keys(row)) if (!ROW_KEYS.includes(k)) errors.push(coreError('schema', `${path}.${k.slice(0, 40)}`, `${path}: unknown cell "${k.slice(0, 40)}"; a row has ${ROW_KEYS.join(', ')}`, i));
+      if (!shortText(row.id) || typeof row.enabled !== 'boolean') errors.push(coreError('schema', path, `${path}: needs a text id and enabled true or false`, i));
+      for (const c of QUOTE_COLUMNS) if (!shortText(row[c])) errors.push(coreError('schema', `${path}.${c}`, `${path}.${c}: must be text of at most ${CELL_MAX} characters`, i));
+    });
+  }
+  if (errors.length > 0) return { errors, engineDoc: null };
+  let n = 0;
+  const read = readWorkbenchDocument(raw, () => `link-row-${n++}`);
+  if (!read.doc) return { errors: [coreError('schema', '', read.problem ?? 'not a workbench document')], engineDoc: null };
+  return { errors, engineDoc: toEngineDocument(read.doc as WorkbenchDocument).doc };
+}
