@@ -60,7 +60,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const ys = new Float64Array(n + 1);
   instruments.forEach((ins, k) => (ts[k + 1] = ins.t));
   const failed = (errors: CoreError[]): BootstrapOutcome => ({ curve: null, errors, warnings: [], repricing: [], sweeps: 0 });
-  const closedForm = instruments.map((ins) => ins.times.length === 1 && ins.times[0] === ins.t);
+  const closedForm = instruments.map((ins) => ins.closedFormLn !== null && ins.times.length === 1 && ins.times[0] === ins.t);
 
   const solveFailure = (ins: Instrument, reason: 'non-positive-discount' | 'no-solution'): CoreError =>
     coreError(
@@ -76,9 +76,9 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const solveAt = (k: number, m: number, build: typeof spec.build, x0: number): CoreError | number => {
     const ins = instruments[k - 1]!;
     if (closedForm[k - 1]) {
-      const df = ins.target / ins.amounts[0]!;
-      if (!(df > 0) || !Number.isFinite(df)) return solveFailure(ins, 'non-positive-discount');
-      return Math.log(df);
+      const x = ins.closedFormLn!;
+      if (!Number.isFinite(x)) return solveFailure(ins, 'non-positive-discount');
+      return x;
     }
     const tv = ts.subarray(0, m + 1);
     const yv = ys.subarray(0, m + 1);
@@ -251,7 +251,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     const what = `the forward from ${from} to ${ins.maturity} is ${pct(d)} (cont, ${settings.dayCount})`;
     if (settings.interpolation === 'monotone-convex-positive') {
       errors.push(
-        coreError('no-solution', `quotes[${ins.index}]`, `monotone-convex-positive needs positive forwards, but ${what}; use monotone-convex for a market with negative forwards`, ins.index),
+        coreError('no-solution', `quotes[${ins.index}]`, `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): monotone-convex-positive needs positive forwards, but ${what}; use monotone-convex for a market with negative forwards`, ins.index),
       );
     } else {
       warnings.push({ path: `quotes[${ins.index}]`, quote: ins.index, code: 'negative-forward', message: `negative forward: ${what}` });

@@ -31,6 +31,7 @@ export function solveNode(residual: (x: number) => number, x0: number): SolveOut
   let neg = fx < 0 ? x : Number.NaN; // a point with residual < 0
   let pos = fx > 0 ? x : Number.NaN; // a point with residual > 0
   const h = 1e-7;
+  let stride = 1;
   let xPrev = x + h;
   let fPrev = r(xPrev);
   if (fPrev < 0) neg = Number.isNaN(neg) || xPrev > neg ? xPrev : neg;
@@ -39,14 +40,15 @@ export function solveNode(residual: (x: number) => number, x0: number): SolveOut
     const bracketed = !Number.isNaN(neg) && !Number.isNaN(pos);
     const slope = (fx - fPrev) / (x - xPrev);
     let next = x - fx / slope;
-    if (!Number.isFinite(next)) next = bracketed ? 0.5 * (neg + pos) : x - Math.sign(fx);
+    if (!Number.isFinite(next)) next = bracketed ? 0.5 * (neg + pos) : x - Math.sign(fx) * stride;
     if (bracketed) {
       const lo = Math.min(neg, pos);
       const hi = Math.max(neg, pos);
       if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
     } else {
-      // Walk toward a sign change at most one unit of ln DF at a time.
-      if (Math.abs(next - x) > 1) next = x + Math.sign(next - x);
+      // Walk toward a sign change, the longest stride doubling each time (1, 2, 4, ... units of ln DF).
+      if (Math.abs(next - x) > stride) next = x + Math.sign(next - x) * stride;
+      stride *= 2;
       if (next < X_MIN) return { ok: false, reason: 'non-positive-discount', evaluations };
       if (next > X_MAX) return { ok: false, reason: 'no-solution', evaluations };
     }

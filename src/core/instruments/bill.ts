@@ -62,6 +62,7 @@ export function compileBill(q: BillQuote, settlement: IsoDate, t: number): Instr
     times,
     amounts,
     target: byYield ? billPriceFromDiscountYield(value, days) : value,
+    closedFormLn: byYield ? (value * days < 360 ? Math.log1p((-value * days) / 360) : Number.NaN) : Math.log(value / 100),
     modelQuote: (lnDiscountAt) => {
       const df = Math.exp(lnDiscountAt(t));
       return byYield ? (-Math.expm1(lnDiscountAt(t)) * 360) / days : 100 * df;

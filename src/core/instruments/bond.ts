@@ -119,6 +119,7 @@ export function compileBond(q: BondQuote, settlement: IsoDate, t: number, time: 
     times,
     amounts,
     target: byYield ? bondDirtyFromYield(s, value).price : value + s.accrued,
+    closedFormLn: null,
     modelQuote: (lnDiscountAt) => {
       const dirty = model(lnDiscountAt);
       return byYield ? (bondYieldFromDirty(s, dirty) ?? Number.NaN) : dirty - s.accrued;

@@ -22,6 +22,7 @@ export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number):
     times,
     amounts: new Float64Array([1 + rate * tau]),
     target: 1,
+    closedFormLn: 1 + rate * tau > 0 ? -Math.log1p(rate * tau) : Number.NaN,
     modelQuote: (lnDiscountAt) => Math.expm1(-lnDiscountAt(t)) / tau,
     requote: make,
   });

@@ -27,6 +27,12 @@ export interface Instrument {
   readonly times: Float64Array;
   readonly amounts: Float64Array;
   readonly target: number;
+  /**
+   * For a single flow at the pillar (deposit, bill, zero): ln DF at the pillar in closed form,
+   * computed without the rounding of forming DF first (log1p), so short tenors keep full precision
+   * in rate; NaN when the quote implies DF <= 0. Null for instruments with several flows.
+   */
+  readonly closedFormLn: number | null;
   /** The model quote in `unit` given ln DF on the curve's axis. */
   modelQuote(lnDiscountAt: (t: number) => number): number;
   /** The same instrument with another market quote value (schedules are kept). */

@@ -58,6 +58,7 @@ export function compileSwap(q: SwapQuote, settlement: IsoDate, t: number, time: 
       times,
       amounts,
       target: 1,
+      closedFormLn: null,
       modelQuote: (lnDiscountAt) => {
         let annuity = 0;
         for (let j = 0; j < n; j++) annuity += taus[j]! * Math.exp(lnDiscountAt(times[j]!));

@@ -25,6 +25,7 @@ export function compileZero(q: ZeroQuote, settlement: IsoDate, t: number): Instr
     times,
     amounts,
     target: byRate ? 100 * Math.exp(lnDiscountFromRate(value, q.compounding, tau)) : value,
+    closedFormLn: byRate ? lnDiscountFromRate(value, q.compounding, tau) : Math.log(value / 100),
     modelQuote: (lnDiscountAt) =>
       byRate ? rateFromLnDiscount(lnDiscountAt(t), q.compounding, tau) : 100 * Math.exp(lnDiscountAt(t)),
     requote: make,

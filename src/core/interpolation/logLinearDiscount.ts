@@ -1,4 +1,4 @@
-import { segmentIndex, type Interpolation } from './types.ts';
+import { copyNodes, segmentIndex, type Interpolation } from './types.ts';
 
 /**
  * `log-linear-discount`: ln DF linear in t between nodes, DF(0) = 1; the instantaneous forward is
@@ -7,13 +7,13 @@ import { segmentIndex, type Interpolation } from './types.ts';
  */
 export function interpolatorLogLinearDiscount(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
   const n = ts.length - 1;
-  const t = Float64Array.from(ts);
-  const y = Float64Array.from(lnDfs);
+  const t = copyNodes(ts);
+  const y = copyNodes(lnDfs);
   const forwardOf = (i: number): number => -(y[i]! - y[i - 1]!) / (t[i]! - t[i - 1]!);
   return {
     lnDiscount(x) {
-      const i = segmentIndex(t, n, x);
       if (x >= t[n]!) return y[n]! - forwardOf(n) * (x - t[n]!);
+      const i = segmentIndex(t, n, x);
       return y[i - 1]! - forwardOf(i) * (x - t[i - 1]!);
     },
     forward(x) {
