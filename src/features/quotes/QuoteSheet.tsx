@@ -13,12 +13,13 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
+/** Hints shown in a fresh (blank) row only, so they are never mistaken for values. */
 const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
-  kind: 'deposit',
-  maturity: '3M or date',
-  rate: '',
-  price: '99.50',
-  coupon: '',
+  kind: 'kind',
+  maturity: '5Y / date',
+  rate: 'rate',
+  price: 'or price',
+  coupon: 'bonds',
   frequency: '',
   dayCount: '',
 };
@@ -51,6 +52,7 @@ const QuoteRowView = memo(
     const endEdit = useAppStore((s) => s.endEdit);
     const selectRow = useAppStore((s) => s.selectRow);
     const n = index + 1;
+    const blank = QUOTE_COLUMNS.every((c) => row[c] === '');
     const messages = QUOTE_COLUMNS.flatMap((c) => (issues[c] ? [{ c, ...issues[c] }] : []));
     const msgId = `row-msg-${row.id}`;
     const status = messages.some((m) => m.severity === 'error') ? 'error' : !row.enabled ? 'off' : inCurve ? 'ok' : 'idle';
@@ -76,7 +78,7 @@ const QuoteRowView = memo(
                   data-col={c}
                   spellCheck={false}
                   autoComplete="off"
-                  placeholder={c === 'rate' || c === 'coupon' ? UNIT_TEXT[unit] : PLACEHOLDER[c]}
+                  placeholder={blank ? PLACEHOLDER[c] : undefined}
                   aria-label={`Row ${n} ${QUOTE_COLUMN_LABEL[c]}`}
                   aria-invalid={issue?.severity === 'error' ? true : undefined}
                   aria-describedby={issue ? msgId : undefined}
@@ -216,6 +218,14 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
       )}
       <div className="sheet-scroll">
         <table role="grid" aria-label="Quotes" aria-describedby="sheet-help" className="sheet" ref={gridRef} onPaste={onPaste} onKeyDown={onKeyDown} aria-rowcount={rows.length + 1}>
+          <colgroup>
+            <col className="w-rownum" />
+            <col className="w-on" />
+            {QUOTE_COLUMNS.map((c) => (
+              <col key={c} className={`w-${c}`} />
+            ))}
+            <col className="w-actions" />
+          </colgroup>
           <thead>
             <tr role="row" aria-rowindex={1}>
               <th role="columnheader" scope="col" className="rownum">

@@ -34,14 +34,14 @@ export function KeyMaturitiesTable({ curve }: { curve: Curve }) {
       </thead>
       <tbody>
         {rows.map((r) => (
-          <tr key={r.tenor} data-tenor={r.tenor} className={r.extrapolated ? 'extrapolated' : ''} title={r.note ?? undefined}>
+          <tr key={r.tenor} data-tenor={r.tenor} title={r.note ?? undefined}>
             <th scope="row">{r.tenor}</th>
             <td>{r.date}</td>
             <td className="n">{num(r.t, 4)}</td>
             <td className="n" data-field="discount">{num(r.discount, 8)}</td>
             <td className="n" data-field="zero">{pct(r.zero)}</td>
             <td className="n" data-field="par">{pct(r.par)}</td>
-            <td className="n" data-field="forward">
+            <td className={`n${r.extrapolated ? ' extrapolated' : ''}`} data-field="forward">
               {pct(r.forward)}
               {r.extrapolated ? '*' : ''}
             </td>

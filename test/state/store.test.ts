@@ -1,0 +1,117 @@
+// The store's actions: every edit undoable, typing in one cell is one step, the history capped at
+// HISTORY_CAP, paste replacing (or appending) and filling, unit switches keeping values.
+import { useAppStore } from '../../src/state/store.ts';
+import { HISTORY_CAP } from '../../src/state/slices/historySlice.ts';
+
+const initial = useAppStore.getInitialState();
+beforeEach(() => useAppStore.setState(initial, true));
+const s = () => useAppStore.getState();
+
+describe('history', () => {
+  it('setCell then undo and redo restores each state', () => {
+    const id = s().workspace.quotes[0]!.id;
+    const before = s().workspace;
+    s().setCell(id, 'rate', '4.5');
+    expect(s().workspace.quotes[0]!.rate).toBe('4.5');
+    s().undo();
+    expect(s().workspace).toBe(before);
+    s().redo();
+    expect(s().workspace.quotes[0]!.rate).toBe('4.5');
+  });
+
+  it('keystrokes in one cell merge into one undo step until the cell loses focus', () => {
+    const id = s().workspace.quotes[0]!.id;
+    s().setCell(id, 'rate', '4');
+    s().setCell(id, 'rate', '4.');
+    s().setCell(id, 'rate', '4.5');
+    expect(s().past).toHaveLength(1);
+    s().endEdit();
+    s().setCell(id, 'rate', '4.55');
+    expect(s().past).toHaveLength(2);
+  });
+
+  it(`keeps at most ${HISTORY_CAP} steps`, () => {
+    const id = s().workspace.quotes[0]!.id;
+    for (let i = 0; i < HISTORY_CAP + 25; i++) s().setRowEnabled(id, i % 2 === 0 ? false : true);
+    expect(s().past).toHaveLength(HISTORY_CAP);
+  });
+
+  it('a new edit after undo clears redo', () => {
+    const id = s().workspace.quotes[0]!.id;
+    s().setRowEnabled(id, false);
+    s().undo();
+    expect(s().future).toHaveLength(1);
+    s().addRow(null);
+    expect(s().future).toHaveLength(0);
+  });
+});
+
+describe('rows', () => {
+  it('addRow, deleteRow and setRowEnabled change the sheet', () => {
+    const n = s().workspace.quotes.length;
+    const id = s().addRow(s().workspace.quotes[0]!.id);
+    expect(s().workspace.quotes[1]!.id).toBe(id);
+    s().deleteRow(id);
+    expect(s().workspace.quotes).toHaveLength(n);
+    s().setRowEnabled(s().workspace.quotes[2]!.id, false);
+    expect(s().workspace.quotes[2]!.enabled).toBe(false);
+  });
+
+  it('sortByMaturity orders tenors and dates by their dates, unreadable maturities last', () => {
+    const q = s().workspace.quotes;
+    s().setCell(q[0]!.id, 'maturity', '40Y');
+    s().setCell(q[1]!.id, 'maturity', 'soon');
+    s().sortByMaturity();
+    const sorted = s().workspace.quotes.map((r) => r.maturity);
+    expect(sorted[sorted.length - 1]).toBe('soon');
+    expect(sorted[sorted.length - 2]).toBe('40Y');
+    expect(sorted[0]).toBe('2M'); // rows 1W and 1M were re-typed above
+  });
+});
+
+describe('paste', () => {
+  it('a block with a header replaces the sheet; appendInstead appends it to the old sheet as one step', () => {
+    const old = s().workspace.quotes;
+    s().pasteText('kind\ttenor\trate\ndeposit\t3M\t4.1\nswap\t5Y\t3.9', null);
+    expect(s().workspace.quotes.map((r) => [r.kind, r.maturity, r.rate])).toEqual([
+      ['deposit', '3M', '4.1'],
+      ['swap', '5Y', '3.9'],
+    ]);
+    expect(s().pasteNotice?.mode).toBe('replaced');
+    s().appendInstead();
+    expect(s().workspace.quotes).toHaveLength(old.length + 2);
+    expect(s().workspace.quotes.slice(0, old.length)).toEqual(old);
+    s().undo();
+    expect(s().workspace.quotes).toBe(old);
+  });
+
+  it('a block without a header fills from the target cell in column order, adding rows past the end', () => {
+    const n = s().workspace.quotes.length;
+    s().pasteText(`4.5\t\n4.6`, { row: n - 1, column: 'rate' });
+    expect(s().workspace.quotes[n - 1]!.rate).toBe('4.5');
+    expect(s().workspace.quotes[n]!.rate).toBe('4.6');
+    expect(s().workspace.quotes[n]!.kind).toBe('');
+  });
+});
+
+describe('setQuoteUnit', () => {
+  it('switching percent to bp re-writes bare numbers so values stay the same, and is undoable', () => {
+    const id = s().workspace.quotes[0]!.id;
+    s().setCell(id, 'rate', '4.28');
+    s().endEdit();
+    s().setQuoteUnit('bp');
+    expect(s().workspace.quotes[0]!.rate).toBe('428');
+    expect(s().workspace.quoteUnit).toBe('bp');
+    s().undo();
+    expect(s().workspace.quotes[0]!.rate).toBe('4.28');
+  });
+});
+
+describe('setReserved', () => {
+  it('stores other panels\u2019 keys in the document, undoably', () => {
+    s().setReserved('note', 'committee draft');
+    expect(s().workspace.note).toBe('committee draft');
+    s().undo();
+    expect(s().workspace.note).toBeUndefined();
+  });
+});
