@@ -1,5 +1,10 @@
 import {
+  analyzeBond,
   buildCurve,
+  DAY_COUNTS,
+  isDayCount,
+  type BondInput,
+  type DayCount,
   COMPOUNDINGS,
   CURVE_DAY_COUNTS,
   EXTRAPOLATIONS,
@@ -31,24 +36,36 @@ interface Options {
   dayCount: CurveDayCount | null;
   extrapolate: Extrapolation | null;
   skipInvalid: boolean;
+  bonds: BondSpec[];
+}
+
+/** One `--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]`, maturity still a date or tenor. */
+interface BondSpec {
+  readonly maturity: string;
+  readonly coupon: number;
+  readonly frequency: number;
+  readonly dayCount: DayCount;
+  readonly cleanPrice?: number;
+  readonly yield?: number;
 }
 
 const USAGE =
-  'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid]\n' +
-  '  FILE is a workspace JSON document or NDJSON, or - for standard input; dates are YYYY-MM-DD or tenors (3M, 2Y) from settlement\n';
+  'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid] [--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]]...\n' +
+  '  FILE is a workspace JSON document or NDJSON, or - for standard input; dates are YYYY-MM-DD or tenors (3M, 2Y) from settlement\n' +
+  '  --bond (repeatable) adds bond analytics off the curve: coupon and yield are decimals, price=P is clean per 100 face\n';
 
 const usage = (message: string): CommandResult => ({ stdout: '', stderr: `curve: ${message}\n${USAGE}`, status: 2 });
 
 const isPoint = (s: string): boolean => isIsoDate(s) || parseTenor(s) !== null;
 
 function parseArgs(args: readonly string[]): Options | string {
-  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false };
+  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, bonds: [] };
   const files: string[] = [];
   for (let i = 0; i < args.length; i++) {
     const arg = args[i]!;
     const eq = arg.startsWith('--') ? arg.indexOf('=') : -1;
     const name = eq > 0 ? arg.slice(0, eq) : arg;
-    const takesValue = ['--at', '--forward', '--compounding', '--day-count', '--extrapolate'].includes(name);
+    const takesValue = ['--at', '--forward', '--compounding', '--day-count', '--extrapolate', '--bond'].includes(name);
     let value: string | undefined;
     if (takesValue) {
       value = eq > 0 ? arg.slice(eq + 1) : args[++i];
@@ -87,6 +104,12 @@ function parseArgs(args: readonly string[]): Options | string {
         if (!isExtrapolation(value)) return `--extrapolate must be one of ${EXTRAPOLATIONS.join(', ')}, not "${value}"`;
         opts.extrapolate = value;
         break;
+      case '--bond': {
+        const spec = parseBond(value!);
+        if (typeof spec === 'string') return `--bond "${value}": ${spec}`;
+        opts.bonds.push(spec);
+        break;
+      }
       case '--skip-invalid':
         if (eq > 0) return '--skip-invalid takes no value';
         opts.skipInvalid = true;
@@ -99,6 +122,24 @@ function parseArgs(args: readonly string[]): Options | string {
   if (files.length !== 1) return files.length === 0 ? 'give one FILE (or - for standard input)' : `give one FILE, not ${files.length}`;
   opts.file = files[0]!;
   return opts;
+}
+
+const NUMBER_RE = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/** Parses MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]; a message on bad syntax. */
+function parseBond(text: string): BondSpec | string {
+  const parts = text.split(',').map((s) => s.trim());
+  if (parts.length < 4 || parts.length > 5) return 'must be MATURITY,COUPON,FREQUENCY,DAYCOUNT with an optional ,price=P or ,yield=Y (for example 2034-05-15,0.04,2,ACT/ACT-ICMA,price=101.25)';
+  const [maturity, coupon, frequency, dayCount, quote] = parts as [string, string, string, string, string | undefined];
+  if (!isPoint(maturity)) return `maturity "${maturity}" is neither a date YYYY-MM-DD nor a tenor such as 10Y`;
+  if (!NUMBER_RE.test(coupon)) return `coupon "${coupon}" must be a decimal number (0.04 = 4%)`;
+  if (!/^\d+$/.test(frequency)) return `frequency "${frequency}" must be a whole number of payments a year (1, 2, 4 or 12)`;
+  if (!isDayCount(dayCount)) return `day count "${dayCount}" must be one of ${DAY_COUNTS.join(', ')}`;
+  const spec = { maturity, coupon: Number(coupon), frequency: Number(frequency), dayCount };
+  if (quote === undefined) return spec;
+  const m = /^(price|yield)=(.*)$/.exec(quote);
+  if (!m || !NUMBER_RE.test(m[2]!)) return `"${quote}" must be price=P (clean, per 100 face) or yield=Y (a decimal)`;
+  return m[1] === 'price' ? { ...spec, cleanPrice: Number(m[2]) } : { ...spec, yield: Number(m[2]) };
 }
 
 /** Splits input into documents: one JSON value, or NDJSON lines. Each entry is parsed or an error text. */
@@ -154,8 +195,51 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
     const v = f.value;
     return [{ start: v.start, end: v.end, tau: v.tau, rate: v.rate, ...(v.extrapolated ? { extrapolated: true } : {}) }];
   });
+  const bonds = opts.bonds.flatMap((b, i) => {
+    const input: BondInput = { ...b, maturity: resolve(b.maturity, settlement) };
+    const a = analyzeBond(curve, input, undefined, `--bond[${i}]`);
+    if (!a.ok) {
+      errors.push(...a.errors);
+      return [];
+    }
+    const v = a.value;
+    const m = v.market;
+    return [
+      {
+        maturity: v.bond.maturity,
+        coupon: v.bond.coupon,
+        frequency: v.bond.frequency,
+        dayCount: v.bond.dayCount,
+        yieldConvention: `ICMA, compounded ${v.bond.frequency}/yr, accrual ${v.bond.dayCount}`,
+        modelCleanPrice: v.modelCleanPrice,
+        modelDirtyPrice: v.modelDirtyPrice,
+        accrued: v.accrued,
+        yield: v.yield,
+        macaulayDuration: v.macaulayDuration,
+        modifiedDuration: v.modifiedDuration,
+        convexity: v.convexity,
+        dv01: v.dv01,
+        effectiveDuration: v.effectiveDuration,
+        keyRateDurations: Object.fromEntries(v.keyRateDurations.map((k) => [k.tenor, k.duration])),
+        keyRateShift: `tent shifts of the cont zero (${curve.dayCount}) at the keys, central differences at +-${v.keyRateBumpBp} bp and +-${v.keyRateBumpBp / 2} bp, Richardson-combined`,
+        ...(m
+          ? {
+              zSpread: m.zSpread,
+              zSpreadConvention: `cont, ${curve.dayCount}`,
+              ...(m.given === 'price' ? { yieldFromPrice: m.yield } : { priceFromYield: m.cleanPrice }),
+              marketDirtyPrice: m.dirtyPrice,
+              marketMacaulayDuration: m.macaulayDuration,
+              marketModifiedDuration: m.modifiedDuration,
+              marketConvexity: m.convexity,
+              marketDv01: m.dv01,
+            }
+          : {}),
+      },
+    ];
+  });
+  const bondNumbers = bonds.flatMap((b) => Object.values(b).flatMap((x) => (typeof x === 'number' ? [x] : typeof x === 'object' ? Object.values(x) : [])));
   const quotes = build.repricing.map((r) => ({ index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError }));
-  const numbersFinite = [...points.flatMap((p) => [p.t, p.discount, p.zero]), ...forwards.flatMap((f) => [f.tau, f.rate]), ...quotes.flatMap((q) => [q.t, q.repricingError])].every(Number.isFinite);
+  const numbersFinite = [...points.flatMap((p) => [p.t, p.discount, p.zero]), ...forwards.flatMap((f) => [f.tau, f.rate]), ...quotes.flatMap((q) => [q.t, q.repricingError]), ...bondNumbers].every(Number.isFinite);
   if (!numbersFinite) {
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });
   }
@@ -172,6 +256,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
       quotes,
       points,
       forwards,
+      ...(opts.bonds.length > 0 ? { bonds } : {}),
       warnings: build.warnings,
     },
     errors: [],
