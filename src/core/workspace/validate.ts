@@ -224,6 +224,12 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
     errors.push(coreError('schema', `${base}.eom`, `${base}.eom: must be true or false, not ${typeName(raw.eom)}`, index));
     return null;
   };
+  /** ACT/ACT-ICMA needs a coupon period: refused for deposits and zeros, which have none. */
+  const noCouponPeriod = (dc: DayCount | null, what: string): DayCount | null => {
+    if (dc !== 'ACT/ACT-ICMA') return dc;
+    errors.push(coreError('unknown-identifier', `${base}.dayCount`, `${base}.dayCount: ACT/ACT-ICMA needs a coupon period, which a ${what} has not; use one of ${listOf(DAY_COUNTS.filter((d) => d !== 'ACT/ACT-ICMA'))}`, index));
+    return null;
+  };
   const priceWhat = `above 0 up to ${PRICE_MAX} (per 100 face)`;
   const common = { index, maturity: maturity ?? settlement, tenor, enabled };
   const before = errors.length;
@@ -231,7 +237,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
   switch (k) {
     case 'deposit': {
       const rate = required(read.number('rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT);
-      const dayCount = read.dayCount('dayCount', 'ACT/360');
+      const dayCount = noCouponPeriod(read.dayCount('dayCount', 'ACT/360'), 'deposit');
       if (rate !== null && dayCount) quote = { kind: 'deposit', ...common, rate, dayCount };
       break;
     }
@@ -254,10 +260,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
         if (isCompounding(raw.compounding)) compounding = raw.compounding;
         else errors.push(coreError('unknown-identifier', `${base}.compounding`, `${base}.compounding: must be one of ${listOf(COMPOUNDINGS)}, not ${typeName(raw.compounding)}`, index));
       }
-      const dayCount = read.dayCount('dayCount', 'ACT/365F');
-      if (dayCount === 'ACT/ACT-ICMA') {
-        errors.push(coreError('unknown-identifier', `${base}.dayCount`, `${base}.dayCount: ACT/ACT-ICMA needs a coupon period, which a zero has not; use one of ${listOf(DAY_COUNTS.filter((d) => d !== 'ACT/ACT-ICMA'))}`, index));
-      }
+      const dayCount = noCouponPeriod(read.dayCount('dayCount', 'ACT/365F'), 'zero');
       if (dayCount) quote = { kind: 'zero', ...common, price, rate, compounding, dayCount };
       break;
     }
