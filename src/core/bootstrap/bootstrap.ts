@@ -7,6 +7,7 @@ import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { solveNode } from './solve.ts';
+import { solveLinear } from '../numeric/linearSolve.ts';
 
 /** How one quote came back on the built curve. */
 export interface Repricing {
@@ -188,29 +189,100 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     return out;
   };
 
+  /**
+   * Fallback for the global methods when Gauss-Seidel cannot go on: a damped Newton iteration on
+   * all nodes not set in closed form at once, residual_k = (PV_k - target_k) / target_k, with a
+   * forward-difference Jacobian and step halving until the largest residual falls. Needed because
+   * one node alone may have no solution: with cubic-zero and two pillars a month apart, a bond's
+   * present value is not monotone in its own node (the spline swings the earlier coupons the other
+   * way), so the per-node solve fails although the joint system has a root. Returns true when
+   * the nodes moved by at most NODE_TOLERANCE in the last step.
+   */
+  const jointNewton = (): boolean => {
+    const free: number[] = [];
+    for (let k = 1; k <= n; k++) if (!closedForm[k - 1]) free.push(k);
+    const m = free.length;
+    if (m === 0) return true;
+    const residuals = (out: Float64Array): number => {
+      const interp = spec.build(ts, ys);
+      const ln = (t: number): number => interp.lnDiscount(t);
+      let worstAbs = 0;
+      for (let i = 0; i < m; i++) {
+        const ins = instruments[free[i]! - 1]!;
+        const r = (presentValue(ins, ln) - ins.target) / Math.abs(ins.target);
+        out[i] = r;
+        worstAbs = Math.max(worstAbs, Number.isFinite(r) ? Math.abs(r) : Infinity);
+      }
+      return worstAbs;
+    };
+    const f0 = new Float64Array(m);
+    const f1 = new Float64Array(m);
+    const y0 = new Float64Array(m);
+    const h = 1e-7;
+    for (let iter = 0; iter < 60; iter++) {
+      const norm0 = residuals(f0);
+      if (!Number.isFinite(norm0)) return false;
+      const jac = new Float64Array(m * m);
+      for (let c = 0; c < m; c++) {
+        const k = free[c]!;
+        const keep = ys[k]!;
+        ys[k] = keep + h;
+        residuals(f1);
+        ys[k] = keep;
+        for (let r = 0; r < m; r++) jac[r * m + c] = (f1[r]! - f0[r]!) / h;
+      }
+      const rhs = Float64Array.from(f0, (v) => -v);
+      const dx = solveLinear(jac, rhs, m);
+      if (!dx) return false;
+      for (let i = 0; i < m; i++) y0[i] = ys[free[i]!]!;
+      let lambda = 1;
+      let maxStep = 0;
+      for (let tries = 0; tries < 40; tries++) {
+        maxStep = 0;
+        for (let i = 0; i < m; i++) {
+          ys[free[i]!] = y0[i]! + lambda * dx[i]!;
+          maxStep = Math.max(maxStep, Math.abs(lambda * dx[i]!));
+        }
+        const norm = residuals(f1);
+        if (Number.isFinite(norm) && (norm < norm0 || maxStep <= NODE_TOLERANCE)) break;
+        lambda *= 0.5;
+      }
+      if (maxStep <= NODE_TOLERANCE) return true;
+    }
+    return false;
+  };
+
   let sweeps = 0;
   if (spec.global) {
     let converged = false;
-    while (sweeps < MAX_SWEEPS) {
+    let sweepFailure: CoreError | null = null;
+    const accepted = (): boolean => {
+      const interp = spec.build(ts, ys);
+      const w = worst(reprice((t) => interp.lnDiscount(t)));
+      return !w || w.ratio <= 1;
+    };
+    sweepsLoop: while (sweeps < MAX_SWEEPS) {
       sweeps++;
       let maxChange = 0;
       for (let k = 1; k <= n; k++) {
         if (closedForm[k - 1]) continue;
         const before = ys[k]!;
         const x = solveAt(k, n, spec.build, before);
-        if (typeof x !== 'number') return failed([x]);
+        if (typeof x !== 'number') {
+          sweepFailure = x; // one node alone has no solution: try all nodes at once below
+          ys[k] = before;
+          break sweepsLoop;
+        }
         ys[k] = x;
         maxChange = Math.max(maxChange, Math.abs(Math.expm1(x - before)));
       }
-      if (maxChange <= NODE_TOLERANCE) {
-        const interp = spec.build(ts, ys);
-        const w = worst(reprice((t) => interp.lnDiscount(t)));
-        if (!w || w.ratio <= 1) {
-          converged = true;
-          break;
-        }
+      if (maxChange <= NODE_TOLERANCE && accepted()) {
+        converged = true;
+        break;
       }
     }
+    if (!converged && jointNewton() && accepted()) converged = true;
+    if (!converged && sweepFailure) return failed([sweepFailure]);
     if (!converged) {
       const interp = spec.build(ts, ys);
       const w = worst(reprice((t) => interp.lnDiscount(t)))!;
