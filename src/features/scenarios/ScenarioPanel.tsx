@@ -1,0 +1,83 @@
+import { useMemo } from 'react';
+import { applyScenario, KEY_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/analysis/scenarios.ts';
+import { validateScenarios } from '../../core/export/exports.ts';
+import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
+import { describeShape, SPACE_LABEL } from './describeShape.ts';
+import { ScenarioForm } from './ScenarioForm.tsx';
+import { ScenarioShapeChart } from './ScenarioShapeChart.tsx';
+import { ScenarioTable } from './ScenarioTable.tsx';
+
+export interface ScenarioPanelProps {
+  /** The document's `scenarios` value as stored (validated here). */
+  readonly value: unknown;
+  /** Writes the document's `scenarios` (for example `setReserved('scenarios', next)`). */
+  readonly onChange: (next: Scenario[]) => void;
+  /** The validated engine workspace and its base curve (null when there is no curve). */
+  readonly workspace: Workspace | null;
+  readonly base: Curve | null;
+  readonly buildOptions?: BuildOptions;
+  readonly conventions: EffectConventions;
+  readonly tenors?: readonly string[];
+}
+
+export const effectConventionsText = (c: EffectConventions): string =>
+  `zero ${COMPOUNDING_LABEL[c.zeroCompounding]}, ${c.zeroDayCount}; forward ${c.forwardTenor} ${COMPOUNDING_LABEL[c.forwardCompounding]}, ${c.forwardDayCount}`;
+
+/** Scenarios: the list with each shape beside its effect on forwards, a form to add one, and the table of changes. */
+export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = KEY_TENORS }: ScenarioPanelProps) {
+  const { scenarios, errors } = useMemo(() => validateScenarios(value), [value]);
+  const applied = useMemo(
+    () =>
+      scenarios.map((s, i) => {
+        if (!workspace || !base) return { s, result: null, error: 'no base curve' };
+        const r = applyScenario(s, workspace, base, buildOptions, `scenarios[${i}]`);
+        if (!r.ok) return { s, result: null, error: r.errors[0]?.message ?? 'no curve' };
+        const xMax = Math.min(Math.max(base.lastT, 1), 50);
+        return {
+          s,
+          result: {
+            rows: scenarioEffects(base, r.value.curve, tenors, conventions),
+            samples: shapeSamples(r.value.shift, base, r.value.curve, xMax, 150),
+            nodes: [...r.value.shift.nodes.filter((n) => n.role !== 'all'), ...r.value.shift.marks],
+          },
+          error: null,
+        };
+      }),
+    [scenarios, workspace, base, buildOptions, conventions, tenors],
+  );
+  const remove = (id: string): void => onChange(scenarios.filter((s) => s.id !== id));
+  return (
+    <section className="scenario-panel" aria-label="Scenarios">
+      {errors.length > 0 && (
+        <div className="banner" role="alert">
+          Some saved scenarios could not be read and are not shown: {errors.slice(0, 3).map((e) => e.message).join('; ')}
+        </div>
+      )}
+      <ScenarioForm usedIds={scenarios.map((s) => s.id)} onAdd={(s) => onChange([...scenarios, s])} disabled={scenarios.length >= 50} />
+      {scenarios.length === 0 ? (
+        <p className="muted">No scenarios yet. Add one above: a parallel shift, a steepener or flattener, a butterfly or key-rate bumps.</p>
+      ) : (
+        <>
+          <ul className="scenario-list">
+            {applied.map(({ s, result, error }) => (
+              <li key={s.id}>
+                <div className="scenario-head">
+                  <strong>{s.name}</strong> <span className="muted">{describeShape(s.shape)}; moves the {SPACE_LABEL[s.space]}</span>{' '}
+                  <button type="button" onClick={() => remove(s.id)} aria-label={`Remove scenario ${s.name}`}>
+                    Remove
+                  </button>
+                </div>
+                {error ? <p className="field-error">{error}</p> : result && <ScenarioShapeChart name={s.name} samples={result.samples} nodes={result.nodes} />}
+              </li>
+            ))}
+          </ul>
+          <ScenarioTable
+            tenors={tenors}
+            conventions={effectConventionsText(conventions)}
+            columns={applied.map(({ s, result, error }) => ({ id: s.id, name: s.name, rows: result?.rows ?? null, ...(error ? { error } : {}) }))}
+          />
+        </>
+      )}
+    </section>
+  );
+}

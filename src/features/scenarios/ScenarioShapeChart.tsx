@@ -1,0 +1,45 @@
+import type { ShapeSample } from '../../core/analysis/scenarios.ts';
+
+export interface ScenarioShapeChartProps {
+  readonly name: string;
+  readonly samples: readonly ShapeSample[];
+  /** Nodes of the shape (maturity label, t, bp) and zero marks such as the pivot. */
+  readonly nodes: readonly { readonly label: string; readonly t: number; readonly bp: number }[];
+}
+
+const W = 260;
+const H = 120;
+const M = { left: 34, right: 6, top: 8, bottom: 18 };
+
+/** A scenario's shape Delta(t) (solid) beside the change it makes to the instantaneous forward (dashed), both in bp. */
+export function ScenarioShapeChart({ name, samples, nodes }: ScenarioShapeChartProps) {
+  const xs = samples.map((s) => s.t);
+  const xMax = Math.max(1, ...xs);
+  const vals = samples.flatMap((s) => [s.shiftBp, s.forwardBp]).filter(Number.isFinite);
+  const lo = Math.min(0, ...vals);
+  const hi = Math.max(0, ...vals);
+  const span = hi - lo || 1;
+  const sx = (t: number): number => M.left + ((W - M.left - M.right) * t) / xMax;
+  const sy = (v: number): number => H - M.bottom - ((H - M.top - M.bottom) * (v - lo)) / span;
+  const path = (f: (s: ShapeSample) => number): string =>
+    samples.filter((s) => Number.isFinite(f(s))).map((s) => `${sx(s.t).toFixed(1)},${sy(f(s)).toFixed(1)}`).join(' ');
+  return (
+    <figure className="scenario-shape">
+      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`${name}: shift in bp by maturity (solid) and change of the instantaneous forward in bp (dashed)`}>
+        <line x1={M.left} x2={W - M.right} y1={sy(0)} y2={sy(0)} stroke="#d9dde3" />
+        <text x={M.left - 3} y={sy(hi) + 3} fontSize={8} textAnchor="end">{hi.toFixed(0)}</text>
+        <text x={M.left - 3} y={sy(lo) + 3} fontSize={8} textAnchor="end">{lo.toFixed(0)}</text>
+        <text x={M.left - 3} y={sy(0) + 3} fontSize={8} textAnchor="end">0</text>
+        <text x={W - M.right} y={H - 4} fontSize={8} textAnchor="end" fill="#7a818c">years · bp</text>
+        <polyline fill="none" stroke="#8a5a00" strokeDasharray="3 2" strokeWidth={1} points={path((s) => s.forwardBp)} />
+        <polyline fill="none" stroke="#1d5fa6" strokeWidth={1.6} points={path((s) => s.shiftBp)} />
+        {nodes.filter((n) => n.t <= xMax).map((n, i) => (
+          <g key={i}>
+            <circle cx={sx(n.t)} cy={sy(n.bp)} r={2.4} fill="#1d5fa6" />
+            <text x={sx(n.t)} y={H - M.bottom + 10} fontSize={8} textAnchor="middle">{n.label}</text>
+          </g>
+        ))}
+      </svg>
+    </figure>
+  );
+}

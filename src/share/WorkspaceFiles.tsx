@@ -1,0 +1,73 @@
+import { useRef, useState, type ChangeEvent } from 'react';
+import { curveTableCsv, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/export/exports.ts';
+import type { Curve } from '../core/index.ts';
+
+export interface WorkspaceFilesProps {
+  /** The workspace document as saved (snapshots included). */
+  readonly document: Record<string, unknown>;
+  /** The base curve for the CSV table; null disables the export. */
+  readonly curve: Curve | null;
+  readonly conventions: CurveTableConventions | null;
+  /** Points of the CSV table (tenors or dates); default: the curve's pillar dates. */
+  readonly points?: readonly string[];
+  /** Called with a validated document read from a file (validated like a link). */
+  readonly onOpen: (checked: CheckedDocument) => void;
+  /** Base of the downloaded file names. */
+  readonly fileName?: string;
+}
+
+function download(name: string, type: string, text: string): void {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 0);
+}
+
+/** Save and open the workspace as a JSON file; export the curve table as CSV. */
+export function WorkspaceFiles({ document: doc, curve, conventions, points, onOpen, fileName = 'tenorscope-workspace' }: WorkspaceFilesProps) {
+  const input = useRef<HTMLInputElement>(null);
+  const [message, setMessage] = useState<string | null>(null);
+  const open = async (e: ChangeEvent<HTMLInputElement>): Promise<void> => {
+    const file = e.target.files?.[0];
+    e.target.value = '';
+    if (!file) return;
+    let text: string;
+    try {
+      text = await file.text();
+    } catch {
+      setMessage(`${file.name} could not be read. Your workspace has not been changed.`);
+      return;
+    }
+    const r = parseDocumentText(text);
+    if (!r.ok) {
+      const first = r.errors.slice(0, 3).map((x) => x.message).join('; ');
+      setMessage(`${file.name} was not opened: ${first}${r.errors.length > 3 ? ` (and ${r.errors.length - 3} more)` : ''}. Your workspace has not been changed.`);
+      return;
+    }
+    setMessage(null);
+    onOpen(r.value);
+  };
+  return (
+    <div className="workspace-files">
+      <button type="button" onClick={() => download(`${fileName}.json`, 'application/json', serialiseDocument(doc))}>
+        Save workspace file
+      </button>
+      <button type="button" onClick={() => input.current?.click()}>
+        Open workspace file
+      </button>
+      <input ref={input} type="file" accept=".json,application/json" hidden onChange={(e) => void open(e)} aria-label="Workspace file to open" />
+      <button type="button" disabled={!curve || !conventions} onClick={() => curve && conventions && download(`${fileName}-curve.csv`, 'text/csv', curveTableCsv(curve, conventions, points))}>
+        Export curve table (CSV)
+      </button>
+      {message && (
+        <p className="field-error" role="alert">
+          {message}
+        </p>
+      )}
+    </div>
+  );
+}
