@@ -1,7 +1,7 @@
 import type { Curve } from '../curve/curve.ts';
 import { forwardOn } from '../curve/query.ts';
 import { coreError, fail, ok, type CoreWarning, type Result } from '../result.ts';
-import { compareIso, type IsoDate } from '../time/date.ts';
+import { compareIso, daysBetween, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
 import { addTenor, parseTenor, type Tenor } from '../time/tenor.ts';
 import { curveSeenAtHorizon, impliedCurveAtHorizon, shiftedCurve } from './horizonCurve.ts';
@@ -29,6 +29,8 @@ export interface RollLeg {
   readonly index: number;
   readonly start: IsoDate;
   readonly end: IsoDate;
+  /** Actual days in the leg. */
+  readonly days: number;
   /** Year fraction on the roll day count. */
   readonly tau: number;
   /** True for a final leg cut short at the horizon (or a single leg shorter than the tenor). */
@@ -47,7 +49,7 @@ export function rollLegs(curve: Curve, tenor: Tenor, horizon: IsoDate, dayCount:
     const end = compareIso(full, horizon) > 0 ? horizon : full;
     const f = forwardOn(curve, start, end, 'simple', dayCount, `strategy.horizon`);
     if (!f.ok) return f;
-    legs.push({ index: k, start, end, tau: f.value.tau, short: end !== full, forward: f.value.rate });
+    legs.push({ index: k, start, end, days: daysBetween(start, end), tau: f.value.tau, short: end !== full, forward: f.value.rate });
     start = end;
   }
   return ok(legs);

@@ -114,6 +114,8 @@ export interface RollAnalysis {
   readonly amount: Money;
   readonly rollTenor: string;
   readonly rollDayCount: StrategyInputs['rollDayCount'];
+  /** The curve's day count (its clock: horizon-curve shifts are continuous zero rates on it). */
+  readonly curveDayCount: Curve['dayCount'];
   readonly legs: readonly RollLeg[];
   /** Today's spot rate for the roll tenor, decimal, simple on the roll day count. */
   readonly spotRollRate: number;
@@ -127,6 +129,8 @@ export interface RollAnalysis {
   /** Index of the chosen view in `views`. */
   readonly chosen: number;
   readonly breakEvens: RollBreakEvens;
+  /** Money after each roll leg under the chosen view (amount x product of leg growths), unrounded. */
+  readonly rollValues: readonly Money[];
   /** Growth of the amount over time under the chosen view. */
   readonly growth: readonly GrowthSeries[];
   readonly warnings: readonly CoreWarning[];
@@ -239,6 +243,7 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
     amount,
     rollTenor: strategy.rollTenor,
     rollDayCount: strategy.rollDayCount,
+    curveDayCount: curve.dayCount,
     legs,
     spotRollRate: spot.value,
     strategies: [
@@ -255,6 +260,7 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
     chosen,
     breakEvens,
     growth,
+    rollValues: rollValuesOf(amount, chosenView),
     warnings,
   });
 }
@@ -300,6 +306,11 @@ function ridingSplit(ctx: RollContext, rv: RollView, amount: Money): RidingSplit
     rollDown: per100(p0 - py),
     curveChange: per100(price - p0),
   };
+}
+
+function rollValuesOf(amount: Money, rv: RollView): Money[] {
+  let v = amount;
+  return rv.legGrowth.map((g) => (v = moneyTimes(v, g)));
 }
 
 function growthSeries(ctx: RollContext, rv: RollView, outcome: ViewOutcome, amount: Money, years: number): GrowthSeries[] {

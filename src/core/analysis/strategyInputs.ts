@@ -2,7 +2,7 @@ import { coreError, type CoreError } from '../result.ts';
 import { isIsoDate } from '../time/date.ts';
 import { CURVE_DAY_COUNTS, isCurveDayCount, type CurveDayCount } from '../time/dayCount.ts';
 import { parseTenor } from '../time/tenor.ts';
-import { parseMoney } from './strategyMoney.ts';
+import { MoneyDecimal, parseMoney } from './strategyMoney.ts';
 
 /**
  * Inputs of the roll-versus-term analysis, kept in the workspace document under the top-level
@@ -214,4 +214,43 @@ function checkPath(raw: unknown, errors: CoreError[]): RatePath {
     }
   }
   return { fill, constant, rampFrom, rampTo, legs };
+}
+
+export type TextParse<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly message: string };
+
+/**
+ * A rate typed in percent ("4.25" or "4.25 %") as a decimal (0.0425), exact in decimal before
+ * the one conversion to float64; from PATH_RATE_MIN to PATH_RATE_MAX.
+ */
+export function parsePercentText(text: string): TextParse<number> {
+  const t = text.trim().replace(/\s*%$/, '');
+  if (!/^-?\d{1,3}(\.\d{1,6})?$/.test(t)) return { ok: false, message: `type a rate in percent such as 4.25 (meaning 4.25 %), not "${text.slice(0, 20)}"` };
+  const value = new MoneyDecimal(t).div(100).toNumber();
+  if (value < PATH_RATE_MIN || value > PATH_RATE_MAX) return { ok: false, message: `a rate from ${PATH_RATE_MIN * 100} % to ${PATH_RATE_MAX * 100} %, not ${t} %` };
+  return { ok: true, value };
+}
+
+/** A decimal rate as percent text for an input: 0.0425 -> "4.25" (up to 6 decimals, no trailing zeros). */
+export const percentText = (rate: number): string => new MoneyDecimal(rate).times(100).toDecimalPlaces(6).toFixed();
+
+/** Basis points typed as a number ("-25", "12.5"), from -SHIFT_BP_MAX to SHIFT_BP_MAX. */
+export function parseBpText(text: string): TextParse<number> {
+  const t = text.trim().replace(/\s*bp$/i, '');
+  if (!/^[-+]?\d{1,4}(\.\d{1,4})?$/.test(t)) return { ok: false, message: `type basis points such as 50 or -25, not "${text.slice(0, 20)}"` };
+  const value = Number(t);
+  if (Math.abs(value) > SHIFT_BP_MAX) return { ok: false, message: `from -${SHIFT_BP_MAX} to ${SHIFT_BP_MAX} bp, not ${t}` };
+  return { ok: true, value };
+}
+
+/** Checks a horizon or maturity text (tenor or date) for an input field. */
+export function parseHorizonText(text: string): TextParse<string> {
+  const t = text.trim().toUpperCase();
+  if (isHorizonText(t)) return { ok: true, value: t };
+  return { ok: false, message: `type a tenor such as 2Y or 18M, or a date YYYY-MM-DD, not "${text.slice(0, 20)}"` };
+}
+
+/** Checks an amount text for an input field (see parseMoney). */
+export function parseAmountText(text: string): TextParse<string> {
+  const m = parseMoney(text);
+  return m.ok ? { ok: true, value: text.trim() } : { ok: false, message: m.message };
 }

@@ -1,0 +1,122 @@
+import { useId, useMemo } from 'react';
+import type { Curve } from '../../core/index.ts';
+import {
+  analyseRollVsTerm,
+  BASE_VIEWS,
+  formatRate,
+  rateTag,
+  rollSentence,
+  type StrategyInputs,
+  type StrategyViewId,
+} from '../../core/analysis/rollVsTerm.ts';
+import { RollGrowthChart } from './RollGrowthChart.tsx';
+import { RollInputs } from './RollInputs.tsx';
+import { BreakEvenTables, RidingSplitTable, RollLegsTable, RollResultsTable } from './RollTables.tsx';
+import './roll.css';
+
+export interface RollPanelProps {
+  /** Today's curve (null while there is none: the panel says so and keeps its inputs). */
+  readonly curve: Curve | null;
+  /** The validated `strategy` of the workspace document (validateStrategy(doc.strategy).strategy). */
+  readonly strategy: StrategyInputs;
+  /** Called with the whole next strategy when the user changes an input (write it back to the document). */
+  readonly onStrategyChange: (next: StrategyInputs) => void;
+  /** Named scenario curves offered as views (the curve moves to each today, then stays unchanged). */
+  readonly scenarioViews?: readonly { readonly name: string; readonly curve: Curve }[];
+  /** Errors from validating the document's `strategy` (shown above the inputs). */
+  readonly documentErrors?: readonly { readonly path: string; readonly message: string }[];
+  /** Overrides the heading's convention note; by default the panel states its own conventions. */
+  readonly rateTag?: string;
+}
+
+const BASE_LABEL: Record<(typeof BASE_VIEWS)[number], string> = {
+  forwards: 'Forwards realised',
+  unchanged: 'Curve unchanged',
+  path: 'Your path',
+  shift: 'Parallel shift of the forwards',
+};
+
+const CAUTION = 'An analysis aid, not investment advice. Forwards are what today\u2019s prices imply, not forecasts. Verify against official sources and your own policies.';
+
+/**
+ * Roll versus term: rolling a money-market instrument against locking in term to the horizon, under
+ * the forwards and the user's views. Everything shown is computed by the core
+ * (analyseRollVsTerm); the panel only lays it out.
+ */
+const NO_SCENARIOS: RollPanelProps['scenarioViews'] = [];
+const NO_ERRORS: RollPanelProps['documentErrors'] = [];
+
+export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = NO_SCENARIOS!, documentErrors = NO_ERRORS!, rateTag: tagOverride }: RollPanelProps) {
+  const headingId = useId();
+  const result = useMemo(() => (curve ? analyseRollVsTerm(curve, strategy, scenarioViews) : null), [curve, strategy, scenarioViews]);
+  const views: { id: StrategyViewId; label: string }[] = [
+    ...BASE_VIEWS.map((id) => ({ id, label: id === 'shift' ? `Forwards ${strategy.shiftBp >= 0 ? '+' : ''}${strategy.shiftBp} bp` : BASE_LABEL[id] })),
+    ...scenarioViews.map((s) => ({ id: `scenario:${s.name}` as StrategyViewId, label: `Scenario: ${s.name}` })),
+  ];
+  const fieldErrors: Record<string, string> = {};
+  if (result && !result.ok) for (const e of result.errors) fieldErrors[e.path] ??= e.message;
+  const analysis = result && result.ok ? result.value : null;
+  const conventions = tagOverride ?? `roll legs ${rateTag('simple', strategy.rollDayCount)}; returns ann, ACT/365F`;
+  return (
+    <section className="roll-panel" aria-labelledby={headingId}>
+      <header className="roll-head">
+        <h2 id={headingId}>Roll versus term</h2>
+        <span className="muted small">{conventions}</span>
+      </header>
+      <p className="roll-caution" role="note">
+        <strong>Caution.</strong> {CAUTION}
+      </p>
+      {documentErrors.length > 0 ? (
+        <ul className="roll-errors" role="alert" aria-label="Problems in the saved strategy">
+          {documentErrors.map((e) => (
+            <li key={e.path + e.message}>{e.message} (the default is used until it is corrected)</li>
+          ))}
+        </ul>
+      ) : null}
+      <RollInputs strategy={strategy} onChange={onStrategyChange} views={views} errors={fieldErrors} />
+      {!curve ? (
+        <p className="roll-empty" role="status">
+          No curve yet: enter valid quotes and the comparison appears here. Your inputs are kept.
+        </p>
+      ) : null}
+      {result && !result.ok ? (
+        <ul className="roll-errors" role="alert" aria-label="Why there is no comparison">
+          {result.errors.map((e) => (
+            <li key={e.path + e.message}>{e.message}</li>
+          ))}
+        </ul>
+      ) : null}
+      {analysis ? (
+        <>
+          <p className="roll-sentence" role="status" aria-live="polite">
+            {rollSentence({
+              view: analysis.views[analysis.chosen]!,
+              strategies: analysis.strategies,
+              breakEvens: analysis.breakEvens,
+              horizon: analysis.horizon,
+              rollTenor: analysis.rollTenor,
+              rollDayCount: analysis.rollDayCount,
+              legCount: analysis.legs.length,
+            })}
+          </p>
+          <p className="muted small roll-facts">
+            Settlement {analysis.settlement}, horizon {analysis.horizon} ({analysis.years.toFixed(4)} years, ACT/365F). Today&rsquo;s {analysis.rollTenor} spot {formatRate(analysis.spotRollRate)}{' '}
+            <span className="tag">{rateTag('simple', analysis.rollDayCount)}</span>. Under forwards realised every strategy ends equal: that is what forward rates mean, and it is the baseline.
+          </p>
+          {analysis.warnings.length > 0 ? (
+            <ul className="roll-warnings" aria-label="Notes">
+              {analysis.warnings.map((w) => (
+                <li key={w.path + w.message}>{w.message}</li>
+              ))}
+            </ul>
+          ) : null}
+          <RollGrowthChart series={analysis.growth} strategies={analysis.strategies} viewLabel={analysis.views[analysis.chosen]!.label} horizon={analysis.horizon} />
+          <RollResultsTable analysis={analysis} />
+          <RidingSplitTable analysis={analysis} />
+          <BreakEvenTables analysis={analysis} />
+          <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} />
+        </>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,231 @@
+import {
+  formatBp,
+  formatMoney,
+  formatMoneySigned,
+  formatRate,
+  MONEY_UNIT,
+  parsePercentText,
+  percentText,
+  rateTag,
+  RETURN_TAG,
+  yieldTag,
+  type RollAnalysis,
+  type StrategyInputs,
+} from '../../core/analysis/rollVsTerm.ts';
+import { RollField } from './RollField.tsx';
+
+/** The roll legs: dates, year fractions, today's forwards, the chosen view's rates and the money after each leg. */
+export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analysis: RollAnalysis; strategy: StrategyInputs; onStrategyChange: (next: StrategyInputs) => void }) {
+  const tag = rateTag('simple', analysis.rollDayCount);
+  const chosen = analysis.views[analysis.chosen]!;
+  const path = analysis.views.find((v) => v.id === 'path')!;
+  const editing = chosen.id === 'path';
+  const setLeg = (k: number, rate: number) => {
+    const legs = path.legRates.slice(1).map((r, i) => (i === k - 1 ? rate : r));
+    onStrategyChange({ ...strategy, path: { ...strategy.path, fill: 'typed', legs } });
+  };
+  return (
+    <div className="roll-scroll">
+      <table className="roll-table roll-legs">
+        <caption>
+          Roll legs of {analysis.rollTenor} to {analysis.horizon}{' '}
+          <span className="muted small">
+            rates in % <span className="tag">{tag}</span>; leg 1 is bought today at the spot rate
+            {editing ? '; type a rate to set your path leg by leg' : ''}
+          </span>
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">Leg</th>
+            <th scope="col">Start</th>
+            <th scope="col">End</th>
+            <th scope="col" className="num">Days</th>
+            <th scope="col" className="num">Year fraction ({analysis.rollDayCount})</th>
+            <th scope="col" className="num">Today&rsquo;s forward (%, {tag})</th>
+            <th scope="col" className="num">
+              {chosen.label} (%, {tag})
+            </th>
+            <th scope="col" className="num">Value after leg ({MONEY_UNIT})</th>
+          </tr>
+        </thead>
+        <tbody>
+          {analysis.legs.map((leg, k) => (
+            <tr key={leg.index}>
+              <th scope="row">
+                {leg.index}
+                {leg.short ? <span className="muted small"> short</span> : null}
+              </th>
+              <td>{leg.start}</td>
+              <td>{leg.end}</td>
+              <td className="num">{leg.days}</td>
+              <td className="num">{leg.tau.toFixed(6)}</td>
+              <td className="num">{formatRate(leg.forward, 4)}</td>
+              <td className="num">
+                {editing && k > 0 ? (
+                  <RollField label={`Leg ${leg.index} rate`} text={percentText(chosen.legRates[k]!)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="5.5em" />
+                ) : (
+                  formatRate(chosen.legRates[k]!, 4)
+                )}
+              </td>
+              <td className="num">{formatMoney(analysis.rollValues[k]!)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** Strategies by views: terminal value, annualised return and the difference against rolling. */
+export function RollResultsTable({ analysis }: { analysis: RollAnalysis }) {
+  return (
+    <div className="roll-scroll">
+      <table className="roll-table roll-results">
+        <caption>
+          Strategies by views, at {analysis.horizon}{' '}
+          <span className="muted small">
+            value in {MONEY_UNIT}; return in % <span className="tag">{RETURN_TAG}</span>; against rolling in {MONEY_UNIT} and bp a year
+          </span>
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">Strategy</th>
+            {analysis.views.map((v, i) => (
+              <th key={v.id} scope="col" className={`num${i === analysis.chosen ? ' chosen' : ''}`} title={v.description}>
+                {v.label}
+                {i === analysis.chosen ? <span className="muted small"> (chosen)</span> : null}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {analysis.strategies.map((s) => (
+            <tr key={s.id}>
+              <th scope="row">
+                {s.label}
+                <span className="roll-detail">{s.detail}</span>
+              </th>
+              {analysis.views.map((v, i) => {
+                const o = v.strategies.find((x) => x.id === s.id)!;
+                return (
+                  <td key={v.id} className={`num${i === analysis.chosen ? ' chosen' : ''}${v.best === s.id && v.id !== 'forwards' ? ' best' : ''}`}>
+                    <span className="roll-value">{formatMoney(o.terminal)}</span>
+                    <span className="roll-sub">{formatRate(o.annualReturn)}</span>
+                    {s.id === 'roll' ? null : (
+                      <span className="roll-sub">
+                        {formatMoneySigned(o.vsRoll)} · {formatBp(o.vsRollBp)}
+                      </span>
+                    )}
+                  </td>
+                );
+              })}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** The riding bond's horizon return split under the chosen view. */
+export function RidingSplitTable({ analysis }: { analysis: RollAnalysis }) {
+  const v = analysis.views[analysis.chosen]!;
+  const r = v.riding;
+  const rows: [string, string][] = [
+    ['Carry (coupons, their reinvestment, and the price at an unchanged own yield)', formatMoneySigned(r.carry)],
+    ['Roll-down (ageing along today\u2019s curve, unchanged by time to maturity)', formatMoneySigned(r.rollDown)],
+    [`Curve change (${v.label} against an unchanged curve)`, formatMoneySigned(r.curveChange)],
+    ['Total gain over the amount', formatMoneySigned(r.carry.plus(r.rollDown).plus(r.curveChange))],
+  ];
+  return (
+    <table className="roll-table roll-split">
+      <caption>
+        Riding the {analysis.ridingBond.maturity} bond under {v.label}{' '}
+        <span className="muted small">
+          in {MONEY_UNIT}; yield today {formatRate(analysis.ridingYield)} <span className="tag">{yieldTag(analysis.ridingBond.frequency)}</span>; horizon price {r.horizonPrice.toFixed(4)} per 100 face (dirty)
+        </span>
+      </caption>
+      <tbody>
+        {rows.map(([k, val]) => (
+          <tr key={k}>
+            <th scope="row">{k}</th>
+            <td className="num">{val}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+/** Break-even roll rates, shifts and the riding bond's cushion, and the break-even curve. */
+export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
+  const b = analysis.breakEvens;
+  const v = analysis.views[analysis.chosen]!;
+  const tag = rateTag('simple', analysis.rollDayCount);
+  const showShift = v.id !== 'forwards';
+  const label = (id: string) => analysis.strategies.find((s) => s.id === id)?.label ?? id;
+  const n = analysis.legs.length;
+  return (
+    <div className="roll-breakevens">
+      <table className="roll-table">
+        <caption>
+          Break-evens under {v.label}{' '}
+          <span className="muted small">
+            r*: constant rate for legs 2{n > 2 ? `\u2013${n}` : ''} (leg 1 at today&rsquo;s spot {formatRate(analysis.spotRollRate)}), % <span className="tag">{tag}</span>, found by Brent&rsquo;s method
+          </span>
+        </caption>
+        <thead>
+          <tr>
+            <th scope="col">Rolling against</th>
+            <th scope="col" className="num">r* (%, {tag})</th>
+            {showShift ? <th scope="col" className="num">Parallel shift of the view (bp)</th> : null}
+          </tr>
+        </thead>
+        <tbody>
+          {(['zero', 'bond', 'riding'] as const).map((id) => (
+            <tr key={id}>
+              <th scope="row">{label(id)}</th>
+              <td className="num">{b.rollRate[id] === null ? 'none (single leg or no crossing)' : formatRate(b.rollRate[id])}</td>
+              {showShift ? <td className="num">{b.shiftBp[id] === null ? 'none' : formatBp(b.shiftBp[id])}</td> : null}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="small">
+        Riding the {analysis.ridingBond.maturity} bond: the horizon curve can rise in parallel by{' '}
+        <strong>{b.ridingRiseBp.roll === null ? 'n/a' : formatBp(b.ridingRiseBp.roll)}</strong> (zero rates, <span className="tag">cont, {analysis.curveDayCount}</span>) before it falls behind rolling, and by{' '}
+        {b.ridingRiseBp.zero === null ? 'n/a' : formatBp(b.ridingRiseBp.zero)} before it falls behind the zero to the horizon.
+        {b.ridingRiseBp.roll !== null && b.ridingRiseBp.roll < 0 ? ' A negative figure means it is already behind and needs the curve to fall.' : ''}
+      </p>
+      {b.curve.length > 0 ? (
+        <table className="roll-table">
+          <caption>
+            Break-even curve{' '}
+            <span className="muted small">
+              for each maturity, the rise in its par bond&rsquo;s yield by {analysis.horizon} that its carry over the zero to the horizon absorbs (coupons reinvested at today&rsquo;s forwards)
+            </span>
+          </caption>
+          <thead>
+            <tr>
+              <th scope="col">Maturity</th>
+              <th scope="col" className="num">Yield today (%, {yieldTag(b.curve[0]!.frequency)})</th>
+              <th scope="col" className="num">Break-even rise (bp)</th>
+            </tr>
+          </thead>
+          <tbody>
+            {b.curve.map((p) => (
+              <tr key={p.tenor}>
+                <th scope="row">
+                  {p.tenor} <span className="muted small">{p.maturity}</span>
+                </th>
+                <td className="num">{formatRate(p.yield)}</td>
+                <td className="num">{p.riseBp === null ? 'none' : formatBp(p.riseBp)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : null}
+    </div>
+  );
+}
+
