@@ -1,0 +1,83 @@
+import { useMemo, useState } from 'react';
+import { parseReferenceCsv, referenceConvention, referenceDifferences } from '../../core/analysis/scenarios.ts';
+import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
+import { formatBp, formatPct } from '../scenarios/formatChange.ts';
+
+/**
+ * Reference curve: paste or open a CSV of discount factors or zero rates by date from another
+ * source and see our curve's difference in bp by date. Held in the panel only (not saved).
+ */
+export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
+  const [text, setText] = useState('');
+  const [compounding, setCompounding] = useState<Compounding>('continuous');
+  const [dayCount, setDayCount] = useState<CurveDayCount>('ACT/365F');
+  const parsed = useMemo(() => (text.trim() === '' ? null : parseReferenceCsv(text, compounding, dayCount)), [text, compounding, dayCount]);
+  const rows = parsed?.reference && curve ? referenceDifferences(curve, parsed.reference) : [];
+  return (
+    <section className="reference-panel" aria-label="Reference curve">
+      <div className="settings">
+        <label>
+          Reference CSV (date,discount or date,zero)
+          <textarea value={text} onChange={(e) => setText(e.target.value)} rows={4} cols={36} spellCheck={false} placeholder={'date,discount\n2027-11-30,0.9672'} />
+        </label>
+        <label>
+          Open a CSV file
+          <input
+            type="file"
+            accept=".csv,text/csv"
+            onChange={(e) => {
+              const f = e.target.files?.[0];
+              if (f) void f.text().then(setText, () => setText(''));
+            }}
+          />
+        </label>
+        <label>
+          Rates in
+          <select value={compounding} onChange={(e) => setCompounding(e.target.value as Compounding)}>
+            {COMPOUNDINGS.map((c) => (
+              <option key={c}>{c}</option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Day count
+          <select value={dayCount} onChange={(e) => setDayCount(e.target.value as CurveDayCount)}>
+            {CURVE_DAY_COUNTS.map((d) => (
+              <option key={d}>{d}</option>
+            ))}
+          </select>
+        </label>
+      </div>
+      {parsed && parsed.errors.length > 0 && (
+        <ul className="field-error" role="alert">
+          {parsed.errors.slice(0, 8).map((e, i) => (
+            <li key={i}>{e.message}</li>
+          ))}
+        </ul>
+      )}
+      {rows.length > 0 && parsed?.reference && (
+        <table className="data" aria-label="Difference from the reference curve">
+          <caption className="small muted">Zero rates ({referenceConvention(parsed.reference)}); difference = ours − reference, bp</caption>
+          <thead>
+            <tr>
+              <th>Date</th>
+              <th>Reference</th>
+              <th>Ours</th>
+              <th>Difference</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.date}>
+                <th scope="row">{r.date}</th>
+                <td className="num">{formatPct(r.referenceZero)}</td>
+                <td className="num">{formatPct(r.zero)}</td>
+                <td className="num">{r.note ?? formatBp(r.differenceBp)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,125 @@
+import { useMemo, useState } from 'react';
+import { compareCurves, KEY_TENORS, rebuildSnapshot, takeSnapshot, type CompareBy, type Snapshot } from '../../core/analysis/scenarios.ts';
+import { validateSnapshots } from '../../core/export/exports.ts';
+import { COMPOUNDING_LABEL, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
+import { formatBp, formatPct } from '../scenarios/formatChange.ts';
+
+export interface SnapshotPanelProps {
+  /** The document's `snapshots` value as stored (validated here). */
+  readonly value: unknown;
+  readonly onChange: (next: Snapshot[]) => void;
+  /** The engine document of the current inputs (what a snapshot freezes); null when there is none. */
+  readonly currentDocument: Record<string, unknown> | null;
+  readonly current: Curve | null;
+  /** The time now as ISO 8601 with its offset, for the snapshot's label (the UI owns the clock). */
+  readonly now: () => string;
+  readonly compounding: Compounding;
+  readonly dayCount: CurveDayCount;
+  readonly tenors?: readonly string[];
+}
+
+/** Snapshots: freeze the inputs under a name, rebuild them, and difference the current curve against one. */
+export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = KEY_TENORS }: SnapshotPanelProps) {
+  const { snapshots, errors } = useMemo(() => validateSnapshots(value), [value]);
+  const [name, setName] = useState('');
+  const [chosen, setChosen] = useState(0);
+  const [by, setBy] = useState<CompareBy>('time');
+  const rebuilt = useMemo(() => snapshots.map((s) => rebuildSnapshot(s)), [snapshots]);
+  const pick = Math.min(chosen, snapshots.length - 1);
+  const other = pick >= 0 ? rebuilt[pick]?.build.curve ?? null : null;
+  const rows = current && other ? compareCurves(current, other, tenors, by, compounding, dayCount) : [];
+  const tag = `${COMPOUNDING_LABEL[compounding]}, ${dayCount}`;
+  const take = (): void => {
+    if (!currentDocument) return;
+    onChange([...snapshots, takeSnapshot(currentDocument, name.trim() || `Snapshot ${snapshots.length + 1}`, now())]);
+    setName('');
+  };
+  return (
+    <section className="snapshot-panel" aria-label="Snapshots">
+      {errors.length > 0 && (
+        <div className="banner" role="alert">
+          Some saved snapshots could not be read: {errors.slice(0, 3).map((e) => e.message).join('; ')}
+        </div>
+      )}
+      <div className="settings">
+        <label>
+          Snapshot name
+          <input value={name} onChange={(e) => setName(e.target.value)} maxLength={80} placeholder="Last week's close" />
+        </label>
+        <button type="button" onClick={take} disabled={!currentDocument || snapshots.length >= 20}>
+          Take snapshot
+        </button>
+        <span className="muted small">Keeps the quotes, settings and settlement; the curve is rebuilt from them, never stored.</span>
+      </div>
+      {snapshots.length === 0 ? (
+        <p className="muted">No snapshots yet.</p>
+      ) : (
+        <>
+          <ul className="snapshot-list">
+            {snapshots.map((s, i) => {
+              const r = rebuilt[i]!;
+              return (
+                <li key={`${s.name}-${i}`}>
+                  <label>
+                    <input type="radio" name="snapshot-compare" checked={i === pick} onChange={() => setChosen(i)} /> <strong>{s.name}</strong>
+                  </label>{' '}
+                  <span className="muted small">
+                    taken {s.takenAt}, settlement {s.settlement}
+                  </span>{' '}
+                  {!r.build.curve ? (
+                    <span className="field-error">does not build: {r.build.errors[0]?.message}</span>
+                  ) : r.changed ? (
+                    <span className="warn" role="status">
+                      this build rebuilds it differently (curve hash {s.curveHash} then, {r.hash} now)
+                    </span>
+                  ) : (
+                    <span className="muted small">rebuilds the same (hash {r.hash})</span>
+                  )}{' '}
+                  <button type="button" onClick={() => onChange(snapshots.filter((_, k) => k !== i))} aria-label={`Remove snapshot ${s.name}`}>
+                    Remove
+                  </button>
+                </li>
+              );
+            })}
+          </ul>
+          <fieldset className="segmented">
+            <legend>Line up by</legend>
+            <label className={by === 'time' ? 'on' : ''}>
+              <input type="radio" name="snapshot-by" checked={by === 'time'} onChange={() => setBy('time')} /> time to maturity
+            </label>
+            <label className={by === 'date' ? 'on' : ''}>
+              <input type="radio" name="snapshot-by" checked={by === 'date'} onChange={() => setBy('date')} /> calendar date
+            </label>
+          </fieldset>
+          {rows.length > 0 && (
+            <table className="data" aria-label="Current curve against the snapshot">
+              <caption className="small muted">Zero rates ({tag}); difference = current − snapshot, bp</caption>
+              <thead>
+                <tr>
+                  <th>Tenor</th>
+                  <th>Date</th>
+                  <th>Current</th>
+                  <th>Snapshot date</th>
+                  <th>Snapshot</th>
+                  <th>Difference</th>
+                </tr>
+              </thead>
+              <tbody>
+                {rows.map((r) => (
+                  <tr key={r.tenor}>
+                    <th scope="row">{r.tenor}</th>
+                    <td>{r.date}</td>
+                    <td className="num">{formatPct(r.zero)}</td>
+                    <td>{r.otherDate}</td>
+                    <td className="num">{formatPct(r.otherZero)}</td>
+                    <td className="num">{formatBp(r.differenceBp)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+        </>
+      )}
+    </section>
+  );
+}
