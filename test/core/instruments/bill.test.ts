@@ -61,7 +61,7 @@ describe('the year basis of the investment rate: 366 when the following year hol
     ['2027-02-28', 365, 'the year after ends 2028-02-28, before 29 February'],
     ['2028-02-29', 365, 'issued on 29 February: the year after does not hold another'],
     ['2027-12-01', 366, '29 Feb 2028 falls in the year after'],
-  ] as const)('%s -> %i (%s)', (settlement, y) => {
+  ] as [string, number, string][])('%s -> %i (%s)', (settlement, y) => {
     expect(billYearBasis(settlement)).toBe(y);
   });
 });
