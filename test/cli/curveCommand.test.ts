@@ -1,0 +1,140 @@
+import { describe, expect, it } from 'vitest';
+import { runCurveCommand } from '../../src/cli/curveCommand.ts';
+import { buildCurve, discountOn, forwardOn, zeroOn } from '../../src/core/index.ts';
+import { expectClose } from '../helpers/asserts.ts';
+
+// The command-line contract of the engine issue, section 8. Documents are invented test data.
+const doc = {
+  format: 'tenorscope-workspace',
+  version: 1,
+  settlement: '2027-03-10',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  quotes: [
+    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
+    { kind: 'bill', maturity: '2027-09-09', discountYield: 0.0285 },
+    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
+    { kind: 'swap', tenor: '5Y', rate: 0.0342 },
+  ],
+};
+const bad = { ...doc, quotes: [...doc.quotes, { kind: 'swap', tenor: '7Y', rate: 3.5 }] };
+const run = (input: string, ...args: string[]) => runCurveCommand(['-', ...args], () => input);
+const parseLines = (s: string) => s.trim().split('\n').map((l) => JSON.parse(l) as Record<string, any>);
+
+describe('one document', () => {
+  it('prints one compact line with the contract fields, exit 0, nothing on standard error', () => {
+    const r = run(JSON.stringify(doc, null, 2)); // a whole pretty-printed document is one document
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe('');
+    expect(r.stdout.endsWith('\n')).toBe(true);
+    const [o] = parseLines(r.stdout);
+    expect(r.stdout.trim().split('\n')).toHaveLength(1);
+    expect(Object.keys(o!)).toEqual(['index', 'settlement', 'interpolation', 'curveDayCount', 'compounding', 'rateDayCount', 'extrapolation', 'quotes', 'points', 'forwards', 'warnings']);
+    expect(o).toMatchObject({ index: 0, settlement: '2027-03-10', interpolation: 'monotone-convex', curveDayCount: 'ACT/365F', compounding: 'continuous', rateDayCount: 'ACT/365F', extrapolation: 'none', forwards: [], warnings: [] });
+    expect(o!.quotes.map((q: any) => q.index)).toEqual([0, 1, 2, 3]);
+    for (const q of o!.quotes) expect(Math.abs(q.repricingError)).toBeLessThanOrEqual(q.unit === 'price' ? 1e-11 : 1e-14);
+    // Without --at: one point per pillar, in date order.
+    expect(o!.points.map((p: any) => p.date)).toEqual(['2027-06-10', '2027-09-09', '2029-03-10', '2032-03-10']);
+  });
+  it('numbers are full float64: the printed discount factor is the core value to the last bit', () => {
+    const [o] = parseLines(run(JSON.stringify(doc), '--at', '2028-01-31').stdout);
+    const curve = buildCurve(doc).curve!;
+    const df = discountOn(curve, '2028-01-31');
+    const z = zeroOn(curve, '2028-01-31', 'continuous', 'ACT/365F');
+    if (!df.ok || !z.ok) throw new Error('query failed');
+    expect(o!.points[0].discount).toBe(df.value.discount);
+    expect(o!.points[0].zero).toBe(z.value.zero);
+  });
+  it('--at and --forward take tenors from settlement and echo resolved ISO dates, in the order asked', () => {
+    const r = run(JSON.stringify(doc), '--at', '2Y,2027-06-10,6M', '--forward', '1Y:2Y,2028-03-10:2030-03-10', '--compounding', 'semiannual', '--day-count', '30/360');
+    expect(r.status).toBe(0);
+    const [o] = parseLines(r.stdout);
+    expect(o!.points.map((p: any) => p.date)).toEqual(['2029-03-10', '2027-06-10', '2027-09-10']);
+    expect(o!.forwards.map((f: any) => [f.start, f.end])).toEqual([
+      ['2028-03-10', '2029-03-10'],
+      ['2028-03-10', '2030-03-10'],
+    ]);
+    expect(o).toMatchObject({ compounding: 'semiannual', rateDayCount: '30/360' });
+    const curve = buildCurve(doc).curve!;
+    const f = forwardOn(curve, '2028-03-10', '2029-03-10', 'semiannual', '30/360');
+    if (!f.ok) throw new Error('query failed');
+    expect(o!.forwards[0].rate).toBe(f.value.rate);
+    expectClose(o!.forwards[0].tau, 1, 0, '30/360 year from the 10th to the 10th');
+  });
+  it('a date beyond the curve fails the document with beyond-curve at its --at path (exit 1)', () => {
+    const r = run(JSON.stringify(doc), '--at', '40Y');
+    expect(r.status).toBe(1);
+    const [o] = parseLines(r.stdout);
+    expect(o!.errors[0]).toMatchObject({ path: '--at[0]', code: 'beyond-curve' });
+    // One human line per error, prefixed "document N:" (the contract fixes only the prefix).
+    expect(r.stderr).toMatch(/^document 0: .*--at\[0\].*beyond-curve/);
+  });
+  it('--extrapolate flat-forward lets it through, marked extrapolated', () => {
+    const r = run(JSON.stringify(doc), '--at', '40Y', '--extrapolate', 'flat-forward');
+    expect(r.status).toBe(0);
+    const [o] = parseLines(r.stdout);
+    expect(o!.extrapolation).toBe('flat-forward');
+    expect(o!.points[0]).toMatchObject({ date: '2067-03-10', extrapolated: true });
+  });
+});
+
+describe('NDJSON batch', () => {
+  it('one output line per input line, in input order; a failing document does not stop the others; exit 1', () => {
+    const input = [JSON.stringify(doc), '', JSON.stringify(bad), '{"format":', JSON.stringify({ ...doc, settlement: '2027-04-01' })].join('\n') + '\n';
+    const r = run(input);
+    expect(r.status).toBe(1);
+    const lines = parseLines(r.stdout);
+    expect(lines.map((l) => l.index)).toEqual([0, 1, 2, 3]); // the blank line is not a document
+    expect(lines[0]!.errors).toBeUndefined();
+    expect(lines[1]!.errors[0]).toMatchObject({ path: 'quotes[4].rate', quote: 4, code: 'range' });
+    expect(lines[2]!.errors[0]).toMatchObject({ code: 'invalid-json' });
+    expect(lines[3]!.settlement).toBe('2027-04-01');
+    const err = r.stderr.trim().split('\n');
+    expect(err[0]).toMatch(/^document 1: .*quotes\[4\]\.rate.*rates are decimals/);
+    expect(err[0]).toMatch(/range/);
+    expect(err[1]).toMatch(/^document 2: .*invalid-json/);
+  });
+  it('every document built: exit 0', () => {
+    const r = run(`${JSON.stringify(doc)}\n${JSON.stringify(doc)}\n`);
+    expect(r.status).toBe(0);
+    expect(parseLines(r.stdout).map((l) => l.index)).toEqual([0, 1]);
+  });
+});
+
+describe('--skip-invalid', () => {
+  it('strict by default; with the flag the valid quotes build and the skipped one is listed under warnings', () => {
+    expect(run(JSON.stringify(bad)).status).toBe(1);
+    const r = run(JSON.stringify(bad), '--skip-invalid');
+    expect(r.status).toBe(0);
+    const [o] = parseLines(r.stdout);
+    expect(o!.quotes.map((q: any) => q.index)).toEqual([0, 1, 2, 3]);
+    expect(o!.warnings).toEqual([expect.objectContaining({ path: 'quotes[4].rate', quote: 4, code: 'skipped' })]);
+  });
+});
+
+describe('usage errors: exit 2 with nothing on standard output', () => {
+  const cases: [string, string[]][] = [
+    ['an unknown option', ['-', '--colour']],
+    ['a bad compounding', ['-', '--compounding', 'weekly']],
+    ['a day count that needs an instrument', ['-', '--day-count', 'ACT/ACT-ICMA']],
+    ['a bad --at value', ['-', '--at', 'tomorrow']],
+    ['a bad --forward pair', ['-', '--forward', '1Y-2Y']],
+    ['no file', []],
+    ['two files', ['a.json', 'b.json']],
+  ];
+  for (const [what, args] of cases) {
+    it(what, () => {
+      const r = runCurveCommand(args, () => JSON.stringify(doc));
+      expect(r.status).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr).toMatch(/usage:/);
+    });
+  }
+  it('an unreadable file', () => {
+    const r = runCurveCommand(['missing.json'], () => {
+      throw new Error('ENOENT: no such file');
+    });
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toMatch(/cannot read missing\.json/);
+  });
+});
