@@ -31,3 +31,4 @@ export * from './analytics/quoteDv01.ts';
 export * from './analytics/forwardSensitivity.ts';
 export * from './analytics/sensitivityMap.ts';
 export { nodePartials } from './analytics/nodePartials.ts';
+export { luFactor, luSolve, luInverse, type LuFactors } from './analytics/luDecomposition.ts';

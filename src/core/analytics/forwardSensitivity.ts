@@ -88,8 +88,9 @@ const columnsOf = (instruments: readonly Instrument[], yields: readonly QuoteYie
  * x_j = ln DF(T_j), by the implicit-function rule on each quote's pricing equation
  * G_i(q_i, x) = PV_i(flows(q_i); x) - target_i(q_i) = 0:
  *   dq_i/dx_j = -(dG_i/dx_j) / (dG_i/dq_i),  dG_i/dx_j = sum_f a_f DF(t_f) d lnDF(t_f)/dx_j,
- * with dG_i/dq_i by a central difference of +-1e-7 in the own yield on the fixed curve (exact for
- * the kinds whose flows or target are linear in the quote). Row-major, n x n, instruments in
+ * with dG_i/dq_i from central differences of +-1e-4 and +-5e-5 in the own yield on the fixed curve,
+ * Richardson-combined (truncation O(h^4), about 1e-13 relative; exact for the kinds whose flows
+ * or target are linear in the quote). Row-major, n x n, instruments in
  * pillar order. Also returns the node partials at the extra times asked for.
  */
 export function quoteNodeJacobian(
@@ -115,7 +116,7 @@ export function quoteNodeJacobian(
   const ln = curve.lnDiscountAt;
   const yields = instruments.map((ins) => quoteYieldOf(ins, curve.settlement));
   const jacobian = new Float64Array(n * n);
-  const delta = 1e-7;
+  const delta = 1e-4;
   instruments.forEach((ins, i) => {
     const qy = yields[i]!;
     const y0 = qy.toYield(ins.market);
@@ -123,7 +124,9 @@ export function quoteNodeJacobian(
       const moved = requoteAtYield(ins, qy, y);
       return presentValue(moved, ln) - moved.target;
     };
-    const dGdq = (g(y0 + delta) - g(y0 - delta)) / (2 * delta);
+    const d1 = (g(y0 + delta) - g(y0 - delta)) / (2 * delta);
+    const d2 = (g(y0 + delta / 2) - g(y0 - delta / 2)) / delta;
+    const dGdq = (4 * d2 - d1) / 3;
     const slots = flowSlots[i]!;
     for (let f = 0; f < slots.length; f++) {
       const w = ins.amounts[f]! * Math.exp(ln(ins.times[f]!));
@@ -231,7 +234,8 @@ export function modelQuoteJacobian(settings: BootstrapSettings, instruments: rea
 
 /**
  * d(model own yield of quote i)/dx_j read directly off each quote's model-quote formula with the
- * nodes moved by +-1e-6 (no pricing equation, no implicit function): an independent route to
+ * nodes moved by +-1e-5 (monotone convex: +-1e-7 and +-5e-8, Richardson-combined) (no pricing
+ * equation, no implicit function): an independent route to
  * dq/dx, so that (this) x (quoteNodeJacobian)^-1 = identity is a real check.
  */
 export function modelYieldNodeJacobian(curve: Curve, instruments: readonly Instrument[]): Float64Array {
@@ -239,19 +243,22 @@ export function modelYieldNodeJacobian(curve: Curve, instruments: readonly Instr
   const yields = instruments.map((ins) => quoteYieldOf(ins, curve.settlement));
   const out = new Float64Array(n * n);
   const base = curve.pillars.map((p) => Math.log(p.discount));
-  const h = 1e-6;
+  const linear = curve.interpolation === 'log-linear-discount' || curve.interpolation === 'linear-zero' || curve.interpolation === 'cubic-zero';
+  const h = linear ? 1e-5 : 1e-7;
   const curveAt = (j: number, dx: number): Curve => {
     const pillars = curve.pillars.map((p, k) => (k === j ? { ...p, discount: Math.exp(base[k]! + dx) } : p));
     return curveFromPillarsLike(curve, pillars);
   };
+  const quoteAt = (c: Curve, i: number): number => yields[i]!.toYield(instruments[i]!.modelQuote(c.lnDiscountAt));
+  const central = (j: number, step: number): Float64Array => {
+    const up = curveAt(j, step);
+    const down = curveAt(j, -step);
+    return Float64Array.from(instruments, (_, i) => (quoteAt(up, i) - quoteAt(down, i)) / (2 * step));
+  };
   for (let j = 0; j < n; j++) {
-    const up = curveAt(j, h);
-    const down = curveAt(j, -h);
-    for (let i = 0; i < n; i++) {
-      const qy = yields[i]!;
-      const ins = instruments[i]!;
-      out[i * n + j] = (qy.toYield(ins.modelQuote(up.lnDiscountAt)) - qy.toYield(ins.modelQuote(down.lnDiscountAt))) / (2 * h);
-    }
+    const a = central(j, h);
+    const b = linear ? a : central(j, h / 2);
+    for (let i = 0; i < n; i++) out[i * n + j] = linear ? a[i]! : (4 * b[i]! - a[i]!) / 3;
   }
   return out;
 }
