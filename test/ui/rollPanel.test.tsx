@@ -137,6 +137,18 @@ describe('RollPanel', () => {
     expect(screen.queryByRole('alert', { name: /Why there is no comparison/ })).not.toBeInTheDocument();
   });
 
+  it('offers scenario curves as views, in both readings, and shows their columns', async () => {
+    const user = userEvent.setup();
+    render(<RollPanel curve={curve} strategy={DEFAULT_STRATEGY} onStrategyChange={() => undefined} scenarioViews={[{ name: 'Same as today', curve }]} />);
+    const select = screen.getByRole('combobox', { name: /Chosen view/ });
+    expect(within(select).getAllByRole('option').map((o) => o.textContent)).toContain('Scenario: Same as today, its forwards');
+    const table = screen.getByRole('table', { name: /Strategies by views/ });
+    expect(within(table).getByRole('columnheader', { name: /^Same as today$/ })).toBeInTheDocument();
+    expect(within(table).getByRole('columnheader', { name: /Same as today \(its forwards\)/ })).toBeInTheDocument();
+    await user.selectOptions(select, 'scenario-fwd:Same as today');
+    expect(screen.getByText(/every strategy ends at ¤/)).toBeInTheDocument();
+  });
+
   it('keeps its inputs and says so when there is no curve', () => {
     render(<Harness initial={DEFAULT_STRATEGY} withCurve={false} />);
     expect(screen.getByText(/No curve yet/)).toBeInTheDocument();

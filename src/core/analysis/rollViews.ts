@@ -244,6 +244,23 @@ export function scenarioView(name: string, scenario: Curve, horizon: IsoDate, te
 }
 
 /**
+ * A scenario's forwards as the alternative reading of a scenario: the curve moves to the scenario
+ * curve just after today's purchases, and then the scenario's own forwards are realised: money
+ * placed at any date after today earns the scenario's forward to its end (growth DF_s(from)/DF_s(to)),
+ * and the horizon curve is the scenario's implied curve DF_s(T)/DF_s(H).
+ */
+export function scenarioForwardsView(name: string, scenario: Curve, horizon: IsoDate): ViewSpec {
+  return {
+    id: `scenario-fwd:${name}`,
+    label: `${name} (its forwards)`,
+    phrase: `the forwards of the scenario "${name}"`,
+    description: `The curve moves to the scenario "${name}" today and its forwards are then realised.`,
+    stubGrowth: forwardGrowth(scenario, 0),
+    horizonCurve: impliedCurveAtHorizon(scenario, horizon),
+  };
+}
+
+/**
  * A view moved in parallel by shiftBp: every rate set after today up by s = shiftBp/10000
  * (growth + s tau, simple on the roll day count) and the horizon curve's zero rates up by s
  * (continuous, curve clock). shiftedSpec(forwardsView, s) is shiftView(s).

@@ -14,6 +14,7 @@ import {
   pathRates,
   pathView,
   rollLegs,
+  scenarioForwardsView,
   scenarioView,
   shiftView,
   spotRollRate,
@@ -217,7 +218,7 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
       warnings.push({ path: `scenario:${sc.name}`, quote: null, code: 'skipped', message: `scenario "${sc.name}": ${bm.errors.map((e) => e.message).join('; ')}` });
       continue;
     }
-    specs.push(v.value);
+    specs.push(v.value, scenarioForwardsView(sc.name, sc.curve, H));
   }
   let chosen = specs.findIndex((s) => s.id === strategy.view);
   if (chosen < 0) {

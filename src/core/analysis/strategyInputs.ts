@@ -26,13 +26,17 @@ export type PathFill = (typeof PATH_FILLS)[number];
 
 /**
  * The views of the future the analysis offers. A scenario view is `scenario:NAME`, NAME the name
- * of a scenario curve handed to the analysis.
+ * of a scenario curve handed to the analysis (the curve moves to it today, then stays unchanged by
+ * time to maturity); `scenario-fwd:NAME` is its alternative reading, the scenario's forwards realised.
  */
 export const BASE_VIEWS = ['forwards', 'unchanged', 'path', 'shift'] as const;
 export type BaseView = (typeof BASE_VIEWS)[number];
-export type StrategyViewId = BaseView | `scenario:${string}`;
+export type StrategyViewId = BaseView | `scenario:${string}` | `scenario-fwd:${string}`;
 export const isStrategyViewId = (x: unknown): x is StrategyViewId =>
-  typeof x === 'string' && ((BASE_VIEWS as readonly string[]).includes(x) || (x.startsWith('scenario:') && x.length > 'scenario:'.length));
+  typeof x === 'string' &&
+  ((BASE_VIEWS as readonly string[]).includes(x) ||
+    (x.startsWith('scenario:') && x.length > 'scenario:'.length) ||
+    (x.startsWith('scenario-fwd:') && x.length > 'scenario-fwd:'.length));
 
 /**
  * The user's short-rate path for the roll legs after the first (leg 1 is always today's spot,
@@ -156,7 +160,7 @@ export function validateStrategy(raw: unknown): StrategyValidation {
   );
   const ridingFrequency = pick('ridingFrequency', d.ridingFrequency, freq);
   const view = pick('view', d.view, (v) =>
-    isStrategyViewId(v) ? null : `!must be one of ${BASE_VIEWS.join(', ')} or "scenario:NAME", not ${show(v)}`,
+    isStrategyViewId(v) ? null : `!must be one of ${BASE_VIEWS.join(', ')} or "scenario:NAME" or "scenario-fwd:NAME", not ${show(v)}`,
   );
   const shiftBp = pick('shiftBp', d.shiftBp, (v) =>
     typeof v === 'number' && Number.isFinite(v) && Math.abs(v) <= SHIFT_BP_MAX ? null : `must be a number of basis points from -${SHIFT_BP_MAX} to ${SHIFT_BP_MAX}, not ${show(v)}`,

@@ -51,7 +51,10 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
   const result = useMemo(() => (curve ? analyseRollVsTerm(curve, strategy, scenarioViews) : null), [curve, strategy, scenarioViews]);
   const views: { id: StrategyViewId; label: string }[] = [
     ...BASE_VIEWS.map((id) => ({ id, label: id === 'shift' ? `Forwards ${strategy.shiftBp >= 0 ? '+' : ''}${strategy.shiftBp} bp` : BASE_LABEL[id] })),
-    ...scenarioViews.map((s) => ({ id: `scenario:${s.name}` as StrategyViewId, label: `Scenario: ${s.name}` })),
+    ...scenarioViews.flatMap((s) => [
+      { id: `scenario:${s.name}` as StrategyViewId, label: `Scenario: ${s.name}` },
+      { id: `scenario-fwd:${s.name}` as StrategyViewId, label: `Scenario: ${s.name}, its forwards` },
+    ]),
   ];
   const fieldErrors: Record<string, string> = {};
   if (result && !result.ok) for (const e of result.errors) fieldErrors[e.path] ??= e.message;

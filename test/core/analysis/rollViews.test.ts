@@ -69,6 +69,15 @@ describe('views', () => {
     for (const id of ['roll', 'zero', 'bond', 'riding']) expectClose(growth(a, 'scenario:Same', id), growth(a, 'unchanged', id), 1e-15, 'definition: the curve moves to the scenario and stays unchanged');
   });
 
+  it("a scenario's forwards reading: on today's curve it is forwards realised, where every strategy ends equal", () => {
+    const a = run({ view: 'scenario-fwd:Same' }, [{ name: 'Same', curve }]);
+    expect(a.views.map((v) => v.id)).toEqual(['forwards', 'unchanged', 'path', 'shift', 'scenario:Same', 'scenario-fwd:Same']);
+    for (const id of ['roll', 'zero', 'bond', 'riding']) {
+      expectClose(growth(a, 'scenario-fwd:Same', id), growth(a, 'forwards', id), 1e-15, 'definition: the scenario forwards on an unmoved curve are today\'s forwards');
+      expectClose(growth(a, 'scenario-fwd:Same', id), growth(a, 'scenario-fwd:Same', 'roll'), 1e-12, 'forwards-realised identity on the scenario curve');
+    }
+  });
+
   it('a scenario 100 bp higher lifts rolling and sinks the riding bond against the unchanged view', () => {
     const a = run({ view: 'scenario:Up 100' }, [{ name: 'Up 100', curve: shiftedCurve(curve, 100) }]);
     expect(growth(a, 'scenario:Up 100', 'roll')).toBeGreaterThan(growth(a, 'unchanged', 'roll'));
