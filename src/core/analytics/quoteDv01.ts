@@ -38,7 +38,7 @@ export function quoteDv01s(settings: BootstrapSettings, instruments: readonly In
     const down = price(-ONE_BP);
     if (!down.ok) return down;
     const ins = instruments[k]!;
-    out.push({ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: yields[k]!.label, dv01: -(up.value - down.value) / 2 });
+    out.push({ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: yields[k]!.label, dv01: (down.value - up.value) / 2 + 0 });
   }
   return ok(out);
 }
