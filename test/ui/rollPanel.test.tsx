@@ -29,12 +29,15 @@ const curve: Curve = buildCurve(
   {},
 ).curve!;
 
-function Harness({ initial, onChange, withCurve = true }: { initial: StrategyInputs; onChange?: (s: StrategyInputs) => void; withCurve?: boolean }) {
+const NONE: { name: string; curve: Curve }[] = [];
+
+function Harness({ initial, onChange, withCurve = true, scenarios = NONE }: { initial: StrategyInputs; onChange?: (s: StrategyInputs) => void; withCurve?: boolean; scenarios?: { name: string; curve: Curve }[] }) {
   const [strategy, setStrategy] = useState(initial);
   return (
     <RollPanel
       curve={withCurve ? curve : null}
       strategy={strategy}
+      scenarioViews={scenarios}
       onStrategyChange={(next) => {
         onChange?.(next);
         setStrategy(next);
@@ -139,7 +142,7 @@ describe('RollPanel', () => {
 
   it('offers scenario curves as views, in both readings, and shows their columns', async () => {
     const user = userEvent.setup();
-    render(<RollPanel curve={curve} strategy={DEFAULT_STRATEGY} onStrategyChange={() => undefined} scenarioViews={[{ name: 'Same as today', curve }]} />);
+    render(<Harness initial={DEFAULT_STRATEGY} scenarios={[{ name: 'Same as today', curve }]} />);
     const select = screen.getByRole('combobox', { name: /Chosen view/ });
     expect(within(select).getAllByRole('option').map((o) => o.textContent)).toContain('Scenario: Same as today, its forwards');
     const table = screen.getByRole('table', { name: /Strategies by views/ });
