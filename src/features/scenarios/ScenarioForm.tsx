@@ -74,11 +74,15 @@ export function ScenarioForm({ usedIds, onAdd, disabled = false }: ScenarioFormP
     setD((x) => ({ ...x, name: '' }));
   };
   const field = (key: keyof Draft, label: string, hint: string) => (
-    <label>
-      {label}
-      <input value={d[key]} onChange={(e) => set({ [key]: e.target.value } as Partial<Draft>)} size={6} aria-describedby={`${uid}-${key}`} />
-      <span id={`${uid}-${key}`} className="sr-only">{hint}</span>
-    </label>
+    <>
+      <label title={hint}>
+        {label}
+        <input value={d[key]} onChange={(e) => set({ [key]: e.target.value } as Partial<Draft>)} size={6} aria-describedby={`${uid}-${key}`} />
+      </label>
+      <span id={`${uid}-${key}`} className="sr-only">
+        {hint}
+      </span>
+    </>
   );
   return (
     <form className="scenario-form settings" onSubmit={submit} aria-label="New scenario">
