@@ -24,6 +24,7 @@ import {
   type ViewSpec,
 } from './rollViews.ts';
 import { curveSeenAtHorizon } from './horizonCurve.ts';
+import { yieldTag } from './rollSummary.ts';
 import { rollBreakEvens, type RollBreakEvens } from './rollBreakEven.ts';
 
 /**
@@ -250,8 +251,8 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
     strategies: [
       { id: 'roll', label: `Roll ${strategy.rollTenor}`, phrase: `rolling ${strategy.rollTenor}`, detail: `${legs.length} leg${legs.length === 1 ? '' : 's'} of ${strategy.rollTenor}${legs[legs.length - 1]?.short ? ', the last short' : ''}, simple ${strategy.rollDayCount}` },
       { id: 'zero', label: 'Zero to horizon', phrase: 'the zero to the horizon', detail: `zero-coupon to ${H}` },
-      { id: 'bond', label: 'Par bond to horizon', phrase: 'the par bond to the horizon', detail: `coupon ${pct(bondR.value.coupon)} paid ${strategy.bondFrequency}x a year, coupons reinvested` },
-      { id: 'riding', label: `Ride ${strategy.ridingMaturity} bond`, phrase: `riding the ${strategy.ridingMaturity} bond`, detail: `par bond to ${M}, coupon ${pct(ridingR.value.coupon)} paid ${strategy.ridingFrequency}x a year, sold at the horizon` },
+      { id: 'bond', label: 'Par bond to horizon', phrase: 'the par bond to the horizon', detail: `coupon ${pct(bondR.value.coupon)} (${yieldTag(strategy.bondFrequency)}) paid ${strategy.bondFrequency}x a year, coupons reinvested` },
+      { id: 'riding', label: `Ride ${strategy.ridingMaturity} bond`, phrase: `riding the ${strategy.ridingMaturity} bond`, detail: `par bond to ${M}, coupon ${pct(ridingR.value.coupon)} (${yieldTag(strategy.ridingFrequency)}) paid ${strategy.ridingFrequency}x a year, sold at the horizon` },
     ],
     bond: bondR.value,
     ridingBond: ridingR.value,

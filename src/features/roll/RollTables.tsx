@@ -178,7 +178,7 @@ export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
           <tr>
             <th scope="col">Rolling against</th>
             <th scope="col" className="num">r* (%, {tag})</th>
-            {showShift ? <th scope="col" className="num">Parallel shift of the view (bp)</th> : null}
+            {showShift ? <th scope="col" className="num">Parallel shift of the view (bp on every rate set after today)</th> : null}
           </tr>
         </thead>
         <tbody>
@@ -209,7 +209,7 @@ export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
             <tr>
               <th scope="col">Maturity</th>
               <th scope="col" className="num">Yield today (%, {yieldTag(b.curve[0]!.frequency)})</th>
-              <th scope="col" className="num">Break-even rise (bp)</th>
+              <th scope="col" className="num">Break-even rise (bp of that yield)</th>
             </tr>
           </thead>
           <tbody>
