@@ -4,7 +4,7 @@
 // forward rates mean: "if forwards are realised, every bond earns the same return over a period,
 // the short rate" (Tuckman and Serrat, "Fixed Income Securities", chapter on returns; cited from
 // memory). Checked as a property over random curves bootstrapped from random deposit, zero and
-// swap quotes, random settlement dates, horizons, roll tenors and bond frequencies.
+// swap quotes on random curve day counts and interpolations, random settlement dates, horizons, roll tenors and bond frequencies.
 import fc from 'fast-check';
 import { buildCurve, INTERPOLATIONS, type Curve } from '../../../src/core/index.ts';
 import {
@@ -26,6 +26,7 @@ const marketArb = fc.record({
   m: fc.integer({ min: 1, max: 12 }),
   d: fc.integer({ min: 1, max: 28 }),
   interpolation: fc.constantFrom(...INTERPOLATIONS),
+  dayCount: fc.constantFrom('ACT/365F', 'ACT/360', '30/360', 'ACT/ACT-ISDA'),
   depo: fc.array(fc.double({ min: -0.005, max: 0.08, noNaN: true }), { minLength: 3, maxLength: 3 }),
   long: fc.array(
     fc.record({ rate: fc.double({ min: -0.005, max: 0.08, noNaN: true }), kind: fc.constantFrom('swap', 'zero') }),
@@ -49,7 +50,7 @@ function curveOf(market: Market): Curve | null {
     format: 'tenorscope-workspace',
     version: 1,
     settlement: isoOf(market.y, market.m, market.d),
-    curve: { dayCount: 'ACT/365F', interpolation: market.interpolation, extrapolation: 'none' },
+    curve: { dayCount: market.dayCount, interpolation: market.interpolation, extrapolation: 'none' },
     quotes,
   };
   return buildCurve(doc, {}).curve;
