@@ -1,0 +1,90 @@
+import { useMemo, useState, type ReactNode } from 'react';
+import { applyScenario } from '../../core/analysis/scenarios.ts';
+import { validateScenarios, workspaceHash, type CurveTableConventions } from '../../core/export/exports.ts';
+import { COMPOUNDING_LABEL } from '../../core/index.ts';
+import { curveSeries } from '../../hooks/useCurveSeries.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useAppStore } from '../../state/store.ts';
+import { BUILD_ID } from '../../share/buildId.ts';
+import { PrintChart, type PrintSeries } from './PrintChart.tsx';
+import { printKeyRows, printScenarios, scenarioConventionsText } from './printData.ts';
+import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
+import { PrintSummary } from './PrintSummary.tsx';
+
+const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
+
+/**
+ * The printed summary wired to the workbench: preview on screen, "Print summary" prints it alone.
+ * `rollResult` is the roll-versus-term result line, when the workbench passes one.
+ */
+export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
+  const doc = useAppStore((s) => s.workspace);
+  const [title, setTitle] = useState('Yield-curve summary');
+  const curve = result.build.curve;
+  const ws = result.build.workspace;
+  const display = doc.display;
+  const props = useMemo(() => {
+    if (!curve || !ws) return null;
+    const conv: CurveTableConventions = {
+      zeroCompounding: display.compounding,
+      zeroDayCount: display.dayCount,
+      parFrequency: ([1, 2, 4, 12] as const).find((f) => f === display.parFrequency) ?? 2,
+      forwardTenor: display.forwardTenor,
+      forwardCompounding: display.compounding,
+      forwardDayCount: display.dayCount,
+    };
+    const { scenarios } = validateScenarios(doc.scenarios);
+    const moved = scenarios.slice(0, 4).flatMap((s) => {
+      const r = applyScenario(s, ws, curve, { skipInvalid: true });
+      return r.ok ? [{ name: s.name, curve: r.value.curve }] : [];
+    });
+    const series = (kind: 'zero' | 'forward'): PrintSeries[] =>
+      [{ name: 'Base', curve }, ...moved].map((c, i) => ({
+        label: c.name,
+        colour: COLOURS[i % COLOURS.length]!,
+        ...(i > 0 ? { dash: '4 2' } : {}),
+        points: curveSeries(c.curve, display, [])[kind].map((p) => ({ x: p.x, y: p.y })),
+      }));
+    const xMax = curveSeries(curve, display, []).xMax;
+    const tag = `${COMPOUNDING_LABEL[display.compounding]}, ${display.dayCount}`;
+    return {
+      keyRows: printKeyRows(curve, conv),
+      conventions: conv,
+      scenarios: printScenarios(scenarios, ws, curve, conv, { skipInvalid: true }),
+      scenarioConventions: scenarioConventionsText(conv),
+      zeroChart: <PrintChart title="Zero rates" tag={tag} series={series('zero')} xMax={xMax} />,
+      forwardChart: <PrintChart title={`${display.forwardTenor} forwards`} tag={tag} series={series('forward')} xMax={xMax} />,
+    };
+  }, [curve, ws, display, doc.scenarios]);
+  if (!props || !curve || !ws) return <p className="empty">No curve to print: {result.fatal}</p>;
+  const { snapshots: _s, ...linked } = doc as unknown as Record<string, unknown>;
+  const summary = (
+    <PrintSummary
+      title={title}
+      note={typeof doc.note === 'string' ? doc.note : ''}
+      settlement={ws.settlement}
+      curveDayCount={ws.curve.dayCount}
+      interpolation={ws.curve.interpolation}
+      extrapolation={ws.curve.extrapolation}
+      rollResult={rollResult}
+      producedAt={new Date()}
+      buildId={BUILD_ID}
+      workspaceHash={workspaceHash(linked)}
+      {...props}
+    />
+  );
+  return (
+    <section className="print-tab" aria-label="Print">
+      <div className="settings">
+        <label>
+          Title
+          <input value={title} onChange={(e) => setTitle(e.target.value)} maxLength={80} />
+        </label>
+        <PrintSummaryButton />
+        <span className="muted small">One page, A4 or US Letter, portrait. The first four scenarios are printed.</span>
+      </div>
+      <div className="print-preview">{summary}</div>
+      <PrintRoot>{summary}</PrintRoot>
+    </section>
+  );
+}

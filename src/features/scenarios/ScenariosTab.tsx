@@ -1,0 +1,24 @@
+import { useMemo } from 'react';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useAppStore } from '../../state/store.ts';
+import { ScenarioPanel } from './ScenarioPanel.tsx';
+
+/** The scenario panel wired to the workbench store: reads and writes the document's `scenarios`. */
+export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
+  const value = useAppStore((s) => s.workspace.scenarios);
+  const display = useAppStore((s) => s.workspace.display);
+  const conventions = useMemo(
+    () => ({ zeroCompounding: display.compounding, zeroDayCount: display.dayCount, forwardTenor: display.forwardTenor, forwardCompounding: display.compounding, forwardDayCount: display.dayCount }),
+    [display],
+  );
+  return (
+    <ScenarioPanel
+      value={value}
+      onChange={(next) => useAppStore.getState().setReserved('scenarios', next)}
+      workspace={result.build.workspace}
+      base={result.build.curve}
+      buildOptions={{ skipInvalid: true }}
+      conventions={conventions}
+    />
+  );
+}

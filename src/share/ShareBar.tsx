@@ -1,0 +1,38 @@
+import { useState } from 'react';
+import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/input/index.ts';
+import { defaultTableConventions } from '../core/export/exports.ts';
+import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
+import { makeRowId } from '../state/ids.ts';
+import { useAppStore } from '../state/store.ts';
+import { CopyLinkButton, LinkNotice } from './CopyLinkButton.tsx';
+import { WorkspaceFiles } from './WorkspaceFiles.tsx';
+
+/** Copy link, save/open the workspace file and export the curve CSV, wired to the workbench store. */
+export function ShareBar({ result }: { result: WorkbenchBuild }) {
+  const doc = useAppStore((s) => s.workspace) as unknown as Record<string, unknown>;
+  const [message, setMessage] = useState<string | null>(null);
+  const curve = result.build.curve;
+  return (
+    <div className="share-bar">
+      <CopyLinkButton document={doc} />
+      <WorkspaceFiles
+        document={doc}
+        curve={curve}
+        conventions={curve ? defaultTableConventions(curve) : null}
+        onOpen={(checked) => {
+          if (checked.document.format !== WORKBENCH_FORMAT) {
+            setMessage('This file is an engine workspace document (format "tenorscope-workspace"); open it with the curve command, or paste its quotes into the sheet.');
+            return;
+          }
+          const read = readWorkbenchDocument(checked.document, makeRowId);
+          if (!read.doc) setMessage(`The file was not opened: ${read.problem ?? 'not a workspace'}. Your workspace has not been changed.`);
+          else {
+            useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open workspace file');
+            setMessage(null);
+          }
+        }}
+      />
+      <LinkNotice message={message} onDismiss={() => setMessage(null)} />
+    </div>
+  );
+}
