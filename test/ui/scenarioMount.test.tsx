@@ -10,6 +10,9 @@ import { PrintTab } from '../../src/features/print/PrintTab.tsx';
 import { ScenariosTab } from '../../src/features/scenarios/ScenariosTab.tsx';
 import { SnapshotsTab } from '../../src/features/snapshots/SnapshotsTab.tsx';
 import { useAppStore } from '../../src/state/store.ts';
+import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { useScenarioOverlay } from '../../src/features/scenarios/useScenarioOverlay.ts';
+import { act } from '@testing-library/react';
 
 const initial = useAppStore.getInitialState();
 const tabs = EXTENSIONS.tabs as unknown as { id: string; label: string; render: (p: { result: never }) => unknown }[];
@@ -69,5 +72,16 @@ describe('scenario, snapshot and print tabs mounted in the workbench', () => {
     expect(page.textContent).toContain('not investment advice');
     expect(page.textContent).toContain('Key maturities');
     expect(screen.getByRole('button', { name: 'Print summary' })).toBeInTheDocument();
+  });
+
+  it('useScenarioOverlay gives one dashed line per scenario for each chart, labelled with its name', () => {
+    function Probe() {
+      const o = useScenarioOverlay(useCurveBuild());
+      return <p data-testid="overlay">{o.zero.map((l) => `${l.label}|${l.dash}|${l.points.length > 10}`).join(';')}</p>;
+    }
+    render(<Probe />);
+    expect(screen.getByTestId('overlay').textContent).toBe('');
+    act(() => useAppStore.getState().setReserved('scenarios', [{ id: 'a', name: 'Up 5', space: 'quotes', shape: { kind: 'parallel', bp: 5 } }]));
+    expect(screen.getByTestId('overlay').textContent).toBe('Up 5 (zero)|5 3|true');
   });
 });

@@ -3,6 +3,8 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { ScenarioPanel } from './ScenarioPanel.tsx';
 
+const BUILD = { skipInvalid: true } as const;
+
 /** The scenario panel wired to the workbench store: reads and writes the document's `scenarios`. */
 export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
   const value = useAppStore((s) => s.workspace.scenarios);
@@ -17,7 +19,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
       onChange={(next) => useAppStore.getState().setReserved('scenarios', next)}
       workspace={result.build.workspace}
       base={result.build.curve}
-      buildOptions={{ skipInvalid: true }}
+      buildOptions={BUILD}
       conventions={conventions}
     />
   );
