@@ -1,4 +1,4 @@
-import { copyNodes, segmentIndex, type Interpolation } from './types.ts';
+import { copyNodes, segmentIndex, zeros, type Interpolation } from './types.ts';
 
 /**
  * `cubic-zero`: a natural cubic spline (second derivative zero at both ends) through the
@@ -10,15 +10,15 @@ import { copyNodes, segmentIndex, type Interpolation } from './types.ts';
 export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
   const n = ts.length - 1;
   const t = copyNodes(ts);
-  const z = new Float64Array(n + 1);
+  const z = zeros(n + 1);
   for (let i = 1; i <= n; i++) z[i] = -lnDfs[i]! / t[i]!;
   z[0] = z[1]!;
   // Second derivatives M_0 = M_n = 0; Thomas algorithm on the interior equations
   // h_(i-1) M_(i-1) + 2 (h_(i-1) + h_i) M_i + h_i M_(i+1) = 6 [(z_(i+1)-z_i)/h_i - (z_i-z_(i-1))/h_(i-1)].
-  const M = new Float64Array(n + 1);
+  const M = zeros(n + 1);
   if (n >= 2) {
-    const c = new Float64Array(n + 1);
-    const d = new Float64Array(n + 1);
+    const c = zeros(n + 1);
+    const d = zeros(n + 1);
     for (let i = 1; i < n; i++) {
       const h0 = t[i]! - t[i - 1]!;
       const h1 = t[i + 1]! - t[i]!;

@@ -1,4 +1,4 @@
-import { copyNodes, segmentIndex, type Interpolation } from './types.ts';
+import { copyNodes, segmentIndex, zeros, type Interpolation } from './types.ts';
 
 /**
  * `monotone-convex` and `monotone-convex-positive`: P. S. Hagan and G. West, "Interpolation
@@ -20,9 +20,9 @@ export function monotoneConvexFactory(positive: boolean) {
     const n = ts.length - 1;
     const t = copyNodes(ts);
     const y = copyNodes(lnDfs);
-    const d = new Float64Array(n + 1); // d[i] for segment i, 1..n
+    const d = zeros(n + 1); // d[i] for segment i, 1..n
     for (let i = 1; i <= n; i++) d[i] = -(y[i]! - y[i - 1]!) / (t[i]! - t[i - 1]!);
-    const f = new Float64Array(n + 1);
+    const f = zeros(n + 1);
     if (n === 1) {
       f[0] = d[1]!;
       f[1] = d[1]!;
