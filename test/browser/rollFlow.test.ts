@@ -1,8 +1,9 @@
 // The roll-versus-term panel in Chromium, whole flow: it renders with its sentence, chart and
 // tables; a new horizon recomputes; the forwards view shows the baseline where every strategy
 // ends equal; a bad amount is kept as typed with a message; nothing errors in the page.
-// The workbench had not mounted the panel when this was written, so the test builds a tiny
-// harness page of its own (test/browser/rollHarness/) with vite and serves it from loopback.
+// The workbench had not mounted the panel when this was written, so the test builds harness pages
+// of its own (test/browser/rollHarness/) with vite and serves them from loopback: the panel alone,
+// and the whole workbench with the panel mounted in its slot as src/app/extensions.tsx would.
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -25,7 +26,13 @@ beforeAll(async () => {
     base: './',
     plugins: [react()],
     logLevel: 'error',
-    build: { outDir, emptyOutDir: true, target: 'es2022' },
+    define: { __BUILD_ID__: JSON.stringify('roll-harness') },
+    build: {
+      outDir,
+      emptyOutDir: true,
+      target: 'es2022',
+      rollupOptions: { input: { panel: path.join(REPO_ROOT, 'test', 'browser', 'rollHarness', 'index.html'), app: path.join(REPO_ROOT, 'test', 'browser', 'rollHarness', 'app.html') } },
+    },
   });
   server = await serveDirectory(outDir);
   browser = await launchBrowser();
@@ -82,5 +89,37 @@ describe('roll versus term in the browser', () => {
 
   it('loads and runs without page errors, console errors, failed or off-machine requests', () => {
     expect(diagnostics(page)).toEqual({ pageErrors: [], consoleErrors: [], failedRequests: [], blockedRequests: [] });
+  });
+});
+
+describe('roll versus term inside the workbench', () => {
+  let app: Page;
+  beforeAll(async () => {
+    app = await newPage(browser!, { viewport: { width: 1400, height: 1600 } });
+    await app.goto(`${server!.url}app.html`, { waitUntil: 'load' });
+    await app.locator('section.roll-panel').waitFor({ timeout: 20_000 });
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('shows the comparison on the demo curve beside the charts', async () => {
+    expect(await app.locator('section.roll-panel .roll-sentence').innerText()).toMatch(/^Under an unchanged curve, /);
+    expect(await app.locator('[data-slot="roll-versus-term"] section.roll-panel').count()).toBe(1);
+    await screenshot(app, 'roll-panel-in-workbench');
+  });
+
+  it('rolls 6M after the roll tenor changes, and undo brings back 3M', async () => {
+    const panel = app.locator('section.roll-panel');
+    await panel.getByRole('combobox', { name: /Roll tenor/ }).selectOption('6M');
+    await panel.getByRole('table', { name: /Roll legs of 6M/ }).waitFor();
+    expect(await panel.getByRole('table', { name: /Roll legs of 6M/ }).locator('tbody tr').count()).toBe(4);
+    await app.getByRole('button', { name: 'Undo' }).click();
+    await panel.getByRole('table', { name: /Roll legs of 3M/ }).waitFor();
+    expect(await panel.getByRole('combobox', { name: /Roll tenor/ }).inputValue()).toBe('3M');
+  });
+
+  it('runs without page errors, console errors, failed or off-machine requests', () => {
+    expect(diagnostics(app)).toEqual({ pageErrors: [], consoleErrors: [], failedRequests: [], blockedRequests: [] });
   });
 });
