@@ -1,0 +1,177 @@
+import { useMemo, useState } from 'react';
+import {
+  FIT_MODEL_LABEL,
+  fitCurve,
+  TAU_MAX,
+  TAU_MIN,
+  TAU_RATIO_MIN,
+  type FitErrors,
+  type FitModel,
+  type Repricing,
+  type Workspace,
+} from '../../core/index.ts';
+import { num, pct } from '../../components/format.ts';
+import { RichCheapTable } from './RichCheapTable.tsx';
+
+export interface FitPanelProps {
+  /** The validated workspace whose enabled quotes are fitted (null: nothing to fit yet). */
+  readonly workspace: Workspace | null;
+  /** The exact bootstrap's repricing, shown beside the fit's residuals (optional). */
+  readonly repricing?: readonly Repricing[];
+  /** `curve.fit`: the parametric model, or 'none' for no fit. Controlled when onModelChange is given. */
+  readonly model?: FitModel | 'none';
+  readonly onModelChange?: (model: FitModel | 'none') => void;
+  /** Quote indices left out of the fit, and per-quote weights (controlled when their callbacks are given). */
+  readonly exclude?: readonly number[];
+  readonly onExcludeChange?: (exclude: number[]) => void;
+  readonly weights?: Readonly<Record<number, number>>;
+  readonly onWeightsChange?: (weights: Record<number, number>) => void;
+}
+
+/** Controlled when `set` is given, else local state seeded from the prop. */
+function useMaybeControlled<T>(value: T | undefined, set: ((v: T) => void) | undefined, fallback: T): [T, (v: T) => void] {
+  const [local, setLocal] = useState<T>(value ?? fallback);
+  if (set) return [value ?? fallback, set];
+  return [local, setLocal];
+}
+
+/**
+ * The smooth fit beside the exact bootstrap: choose Nelson-Siegel or Svensson and yield or price
+ * errors, switch quotes in or out and weight them; shows the parameters with their units, the
+ * convergence report, every quote's residual in bp and per 100 face, and the rich/cheap list.
+ */
+export function FitPanel(props: FitPanelProps) {
+  const [model, setModel] = useMaybeControlled<FitModel | 'none'>(props.model, props.onModelChange, 'nelson-siegel');
+  const [exclude, setExclude] = useMaybeControlled<readonly number[]>(props.exclude, props.onExcludeChange as ((v: readonly number[]) => void) | undefined, []);
+  const [weights, setWeights] = useMaybeControlled<Readonly<Record<number, number>>>(props.weights, props.onWeightsChange as ((v: Readonly<Record<number, number>>) => void) | undefined, {});
+  const [errors, setErrors] = useState<FitErrors>('yield');
+  const [weightText, setWeightText] = useState<Record<number, string>>({});
+  const ws = props.workspace;
+  const result = useMemo(() => (ws && model !== 'none' ? fitCurve(ws, { model, errors, exclude, weights }) : null), [ws, model, errors, exclude, weights]);
+  const zeroTag = ws ? `cont, ${ws.curve.dayCount}` : 'cont';
+  const repricingByIndex = new Map((props.repricing ?? []).map((r) => [r.index, r]));
+
+  const toggle = (index: number, included: boolean): void => setExclude(included ? exclude.filter((i) => i !== index) : [...exclude, index]);
+  const typeWeight = (index: number, text: string): void => {
+    setWeightText({ ...weightText, [index]: text });
+    const w = Number(text);
+    if (text.trim() !== '' && Number.isFinite(w) && w >= 0) setWeights({ ...weights, [index]: w });
+  };
+  const weightError = (index: number): string | null => {
+    const text = weightText[index];
+    if (text === undefined) return null;
+    const w = Number(text);
+    return text.trim() === '' || !Number.isFinite(w) || w < 0 ? `quotes[${index}] weight: type a number 0 or above (0 leaves the quote out); "${text}" is kept but not used` : null;
+  };
+
+  return (
+    <section className="panel fit-panel" aria-label="Smooth fit">
+      <h2>Smooth fit</h2>
+      <div className="controls">
+        <label>
+          Model{' '}
+          <select value={model} onChange={(e) => setModel(e.target.value as FitModel | 'none')}>
+            <option value="none">None (exact bootstrap only)</option>
+            <option value="nelson-siegel">Nelson-Siegel</option>
+            <option value="svensson">Svensson</option>
+          </select>
+        </label>{' '}
+        <label>
+          Errors{' '}
+          <select value={errors} onChange={(e) => setErrors(e.target.value as FitErrors)}>
+            <option value="yield">Yield errors</option>
+            <option value="price">Price errors scaled to yield (ΔP / (modified duration × dirty price))</option>
+          </select>
+        </label>
+      </div>
+      <p className="muted">
+        Zero rate y(t) <span className="tag">{zeroTag}</span>, DF = e^(−y t); bounds {TAU_MIN} ≤ τ ≤ {TAU_MAX} years
+        {model === 'svensson' ? `, τ2 ≥ ${TAU_RATIO_MIN} × τ1` : ''}; b0 may be negative.
+      </p>
+      {!ws && <p role="status">No valid workspace to fit yet.</p>}
+      {ws && model === 'none' && <p role="status">No fit chosen: the exact bootstrap is the curve.</p>}
+      {result && !result.ok && (
+        <p role="alert" className="error">
+          {result.errors.map((e) => e.message).join('; ')}
+        </p>
+      )}
+      {result && result.ok && (
+        <>
+          <p role="status" className={result.value.converged ? undefined : 'warning'}>
+            {result.value.report}
+          </p>
+          <table className="data" aria-label="Fitted parameters">
+            <caption>{FIT_MODEL_LABEL[result.value.model]} parameters</caption>
+            <tbody>
+              <tr><th scope="row">b0, level <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b0)}</td></tr>
+              <tr><th scope="row">b1, slope <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b1)}</td></tr>
+              <tr><th scope="row">b2, curvature <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b2)}</td></tr>
+              {result.value.params.tau2 !== null && (
+                <tr><th scope="row">b3, second hump <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b3)}</td></tr>
+              )}
+              <tr><th scope="row">τ1 (years)</th><td className="n">{num(result.value.params.tau1, 4)}</td></tr>
+              {result.value.params.tau2 !== null && (
+                <tr><th scope="row">τ2 (years)</th><td className="n">{num(result.value.params.tau2, 4)}</td></tr>
+              )}
+              <tr><th scope="row">Weighted RMS error (bp)</th><td className="n">{num(result.value.rmsBp, 2)}</td></tr>
+            </tbody>
+          </table>
+          <table className="data" aria-label="Fit residuals">
+            <caption>Each quote against the fit (residual = model minus market); the exact bootstrap's repricing error beside it</caption>
+            <thead>
+              <tr>
+                <th scope="col">Quote</th>
+                <th scope="col">In fit</th>
+                <th scope="col">Weight</th>
+                <th scope="col">Maturity</th>
+                <th scope="col">Yield measured</th>
+                <th scope="col">Market yield (%)</th>
+                <th scope="col">Model yield (%)</th>
+                <th scope="col">Residual (bp)</th>
+                <th scope="col">Residual (per 100 face)</th>
+                <th scope="col">Bootstrap repricing error</th>
+              </tr>
+            </thead>
+            <tbody>
+              {result.value.residuals.map((r) => {
+                const rep = repricingByIndex.get(r.index);
+                const err = weightError(r.index);
+                return (
+                  <tr key={r.index} data-quote={r.index}>
+                    <th scope="row">quotes[{r.index}] {r.kind}</th>
+                    <td>
+                      <input type="checkbox" aria-label={`include quotes[${r.index}] in the fit`} checked={!exclude.includes(r.index)} onChange={(e) => toggle(r.index, e.target.checked)} />
+                    </td>
+                    <td>
+                      <input
+                        type="text"
+                        inputMode="decimal"
+                        size={4}
+                        aria-label={`weight of quotes[${r.index}]`}
+                        aria-invalid={err ? true : undefined}
+                        title={err ?? undefined}
+                        value={weightText[r.index] ?? String(weights[r.index] ?? 1)}
+                        onChange={(e) => typeWeight(r.index, e.target.value)}
+                      />
+                    </td>
+                    <td>{r.maturity}</td>
+                    <td>{r.yieldLabel}</td>
+                    <td className="n">{pct(r.marketYield)}</td>
+                    <td className="n">{pct(r.modelYield)}</td>
+                    <td className="n" data-field="residual-bp">{num(r.residualBp, 2)}</td>
+                    <td className="n" data-field="residual-price">{num(r.residualPrice, 4)}</td>
+                    <td className="n">{rep ? `${rep.repricingError.toExponential(1)} (${rep.unit === 'price' ? 'per 100 face' : 'decimal rate'})` : '\u2014'}</td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+          {Object.keys(weightText).map((k) => weightError(Number(k))).filter((m): m is string => m !== null).map((m) => (
+            <p key={m} role="alert" className="error">{m}</p>
+          ))}
+          <RichCheapTable entries={result.value.richCheap} yieldTag="ICMA yield at each bond's coupon frequency" />
+        </>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,42 @@
+import type { RichCheapEntry } from '../../core/index.ts';
+import { num, pct } from '../../components/format.ts';
+
+/**
+ * Bonds against the fitted curve, richest first. Rich: the market price is above the model price
+ * (the market yield below the model yield).
+ */
+export function RichCheapTable({ entries, yieldTag }: { entries: readonly RichCheapEntry[]; yieldTag: string }) {
+  if (entries.length === 0) return <p className="muted">No bond quotes to rank: rich and cheap apply to bonds.</p>;
+  return (
+    <table className="data" aria-label="Rich and cheap bonds">
+      <caption>
+        Bonds by richness to the fit (market minus model price); yields <span className="tag">{yieldTag}</span>
+      </caption>
+      <thead>
+        <tr>
+          <th scope="col">Quote</th>
+          <th scope="col">Maturity</th>
+          <th scope="col">Coupon (% per year)</th>
+          <th scope="col">Market minus model (per 100 face)</th>
+          <th scope="col">Model minus market yield (bp)</th>
+          <th scope="col">Reading</th>
+        </tr>
+      </thead>
+      <tbody>
+        {entries.map((e) => (
+          <tr key={e.index} data-quote={e.index} className={e.included ? undefined : 'muted'}>
+            <th scope="row">quotes[{e.index}]</th>
+            <td>{e.maturity}</td>
+            <td className="n">{pct(e.coupon, 3)}</td>
+            <td className="n" data-field="richness">{num(e.richnessPrice, 4)}</td>
+            <td className="n" data-field="residual-bp">{num(e.residualBp, 2)}</td>
+            <td data-field="verdict">
+              {e.verdict}
+              {e.included ? '' : ' (left out of the fit)'}
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}

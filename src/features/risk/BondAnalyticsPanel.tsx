@@ -1,0 +1,165 @@
+import { useMemo, useState } from 'react';
+import {
+  addTenor,
+  analyzeBond,
+  bootstrapInstruments,
+  compileMarket,
+  DAY_COUNTS,
+  DEFAULT_KEY_TENORS,
+  isIsoDate,
+  parseTenor,
+  quoteDv01s,
+  type BondInput,
+  type Curve,
+  type DayCount,
+  type Workspace,
+} from '../../core/index.ts';
+import { couponTag, num, pct } from '../../components/format.ts';
+
+export interface BondAnalyticsPanelProps {
+  /** The bootstrapped curve the bond is priced on (null: no curve yet). */
+  readonly curve: Curve | null;
+  /** The workspace the curve was built from, for the DV01 to each input quote (optional). */
+  readonly workspace?: Workspace | null;
+  /** The bond form's starting values (percent texts as typed). */
+  readonly initial?: Partial<BondForm>;
+}
+
+/** The bond as typed: maturity a date or tenor, coupon and yield in percent, price clean per 100. */
+export interface BondForm {
+  maturity: string;
+  coupon: string;
+  frequency: string;
+  dayCount: DayCount;
+  quoteKind: 'none' | 'price' | 'yield';
+  quote: string;
+}
+
+const DEFAULT_FORM: BondForm = { maturity: '10Y', coupon: '4', frequency: '2', dayCount: 'ACT/ACT-ICMA', quoteKind: 'none', quote: '' };
+
+/** Reads the form into a bond; a message naming the field when a text is not a number or date. */
+function readForm(f: BondForm, settlement: string): BondInput | string {
+  const tenor = parseTenor(f.maturity);
+  const maturity = tenor ? addTenor(settlement, tenor) : f.maturity.trim();
+  if (!tenor && !isIsoDate(maturity)) return `Maturity: type a date YYYY-MM-DD or a tenor such as 10Y, not "${f.maturity}"`;
+  const coupon = Number(f.coupon);
+  if (f.coupon.trim() === '' || !Number.isFinite(coupon)) return `Coupon: type a percent per year such as 4.25, not "${f.coupon}"`;
+  const base = { maturity, coupon: coupon / 100, frequency: Number(f.frequency), dayCount: f.dayCount };
+  if (f.quoteKind === 'none') return base;
+  const q = Number(f.quote);
+  if (f.quote.trim() === '' || !Number.isFinite(q)) {
+    return f.quoteKind === 'price' ? `Market clean price: type a price per 100 face such as 101.25, not "${f.quote}"` : `Market yield: type a percent such as 4.10, not "${f.quote}"`;
+  }
+  return f.quoteKind === 'price' ? { ...base, cleanPrice: q } : { ...base, yield: q / 100 };
+}
+
+/**
+ * A bond the user enters, valued on the curve: model prices, yield, durations, convexity, DV01,
+ * key-rate durations on a stated grid and bump, z-spread and risk at a market quote when given,
+ * and the DV01 to each input quote. Every figure carries its unit.
+ */
+export function BondAnalyticsPanel({ curve, workspace = null, initial }: BondAnalyticsPanelProps) {
+  const [form, setForm] = useState<BondForm>({ ...DEFAULT_FORM, ...initial });
+  const set = (patch: Partial<BondForm>): void => setForm({ ...form, ...patch });
+  const input = useMemo(() => (curve ? readForm(form, curve.settlement) : null), [curve, form]);
+  const result = useMemo(() => (curve && input && typeof input !== 'string' ? analyzeBond(curve, input) : null), [curve, input]);
+  const perQuote = useMemo(() => {
+    if (!curve || !workspace || !result || !result.ok) return null;
+    const market = compileMarket(workspace.settlement, workspace.curve.dayCount, workspace.quotes, true);
+    if (market.errors.length > 0 || market.instruments.length !== curve.pillars.length) return null;
+    const settings = { settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation };
+    if (!bootstrapInstruments(settings, market.instruments).curve) return null;
+    return quoteDv01s(settings, market.instruments, result.value.flows);
+  }, [curve, workspace, result]);
+
+  const yTag = result && result.ok ? couponTag(result.value.bond.frequency, `ICMA, accrual ${result.value.bond.dayCount}`) : '';
+  const zTag = curve ? `cont, ${curve.dayCount}` : '';
+  return (
+    <section className="panel bond-panel" aria-label="Bond on the curve">
+      <h2>Bond on the curve</h2>
+      <form className="controls" onSubmit={(e) => e.preventDefault()}>
+        <label>Maturity (date or tenor) <input value={form.maturity} onChange={(e) => set({ maturity: e.target.value })} /></label>{' '}
+        <label>Coupon (% per year) <input inputMode="decimal" size={6} value={form.coupon} onChange={(e) => set({ coupon: e.target.value })} /></label>{' '}
+        <label>
+          Payments a year{' '}
+          <select value={form.frequency} onChange={(e) => set({ frequency: e.target.value })}>
+            {['1', '2', '4', '12'].map((f) => <option key={f} value={f}>{f}</option>)}
+          </select>
+        </label>{' '}
+        <label>
+          Day count{' '}
+          <select value={form.dayCount} onChange={(e) => set({ dayCount: e.target.value as DayCount })}>
+            {DAY_COUNTS.map((d) => <option key={d} value={d}>{d}</option>)}
+          </select>
+        </label>{' '}
+        <label>
+          Market quote{' '}
+          <select value={form.quoteKind} onChange={(e) => set({ quoteKind: e.target.value as BondForm['quoteKind'] })}>
+            <option value="none">none</option>
+            <option value="price">clean price (per 100 face)</option>
+            <option value="yield">yield (%)</option>
+          </select>
+        </label>{' '}
+        {form.quoteKind !== 'none' && (
+          <label>{form.quoteKind === 'price' ? 'Clean price (per 100 face)' : 'Yield (%)'} <input inputMode="decimal" size={8} value={form.quote} onChange={(e) => set({ quote: e.target.value })} /></label>
+        )}
+      </form>
+      {!curve && <p role="status">No curve yet: the bond is valued once the quotes build a curve.</p>}
+      {typeof input === 'string' && <p role="alert" className="error">{input}</p>}
+      {result && !result.ok && <p role="alert" className="error">{result.errors.map((e) => e.message).join('; ')}</p>}
+      {result && result.ok && (
+        <>
+          <table className="data" aria-label="Bond analytics">
+            <thead>
+              <tr><th scope="col">Figure</th><th scope="col">On the curve</th>{result.value.market && <th scope="col">At the market {result.value.market.given}</th>}<th scope="col">Unit</th></tr>
+            </thead>
+            <tbody>
+              <Row label="Clean price" model={num(result.value.modelCleanPrice, 4)} market={result.value.market && num(result.value.market.cleanPrice, 4)} unit="per 100 face" />
+              <Row label="Dirty price" model={num(result.value.modelDirtyPrice, 4)} market={result.value.market && num(result.value.market.dirtyPrice, 4)} unit="per 100 face" />
+              <Row label="Accrued interest" model={num(result.value.accrued, 4)} market={result.value.market && num(result.value.accrued, 4)} unit={`per 100 face, ${result.value.bond.dayCount}`} />
+              <Row label="Yield to maturity" model={pct(result.value.yield)} market={result.value.market && pct(result.value.market.yield)} unit={yTag} />
+              <Row label="Modified duration −(1/P) dP/dy" model={num(result.value.modifiedDuration, 4)} market={result.value.market && num(result.value.market.modifiedDuration, 4)} unit="years" />
+              <Row label="Macaulay duration (1 + y/f) × modified" model={num(result.value.macaulayDuration, 4)} market={result.value.market && num(result.value.market.macaulayDuration, 4)} unit="years" />
+              <Row label="Convexity (1/P) d²P/dy²" model={num(result.value.convexity, 3)} market={result.value.market && num(result.value.market.convexity, 3)} unit="years²" />
+              <Row label="DV01 −dP/dy × 1e−4" model={num(result.value.dv01, 5)} market={result.value.market && num(result.value.market.dv01, 5)} unit="per 100 face per bp of yield" />
+              <Row label="Effective duration (parallel zero shift)" model={num(result.value.effectiveDuration, 4)} market={result.value.market && '\u2014'} unit={`years, shift of the ${zTag} zero`} />
+              {result.value.market && <Row label="Z-spread" model={num(0, 2)} market={num(result.value.market.zSpread * 1e4, 2)} unit={`bp, ${zTag}`} />}
+            </tbody>
+          </table>
+          <table className="data" aria-label="Key-rate durations">
+            <caption>
+              Key-rate durations: tent-shaped shifts of the continuously compounded zero <span className="tag">{zTag}</span> at keys {DEFAULT_KEY_TENORS.join(', ')} (flat before the first and after the last,
+              so the tents add up to a parallel shift); central differences at ±{result.value.keyRateBumpBp} bp and ±{result.value.keyRateBumpBp / 2} bp, Richardson-combined. Sum{' '}
+              {num(result.value.keyRateDurations.reduce((s, k) => s + k.duration, 0), 4)} years = effective duration.
+            </caption>
+            <thead><tr>{result.value.keyRateDurations.map((k) => <th key={k.tenor} scope="col">{k.tenor}</th>)}</tr></thead>
+            <tbody><tr>{result.value.keyRateDurations.map((k) => <td key={k.tenor} className="n" data-key={k.tenor}>{num(k.duration, 4)}</td>)}</tr></tbody>
+            <tfoot><tr><td colSpan={result.value.keyRateDurations.length} className="muted">years per unit of the zero shift</td></tr></tfoot>
+          </table>
+          {perQuote && perQuote.ok && (
+            <table className="data" aria-label="DV01 to each quote">
+              <caption>DV01 to each input quote: each quote moved by ±1 bp through its own yield and the curve rebuilt (per 100 face per bp)</caption>
+              <thead><tr><th scope="col">Quote</th><th scope="col">Maturity</th><th scope="col">Moved through</th><th scope="col">DV01 (per 100 face per bp)</th></tr></thead>
+              <tbody>
+                {perQuote.value.map((q) => (
+                  <tr key={q.index} data-quote={q.index}><th scope="row">quotes[{q.index}] {q.kind}</th><td>{q.maturity}</td><td>{q.yieldLabel}</td><td className="n">{num(q.dv01, 5)}</td></tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+        </>
+      )}
+    </section>
+  );
+}
+
+function Row({ label, model, market, unit }: { label: string; model: string; market: string | null; unit: string }) {
+  return (
+    <tr>
+      <th scope="row">{label}</th>
+      <td className="n">{model}</td>
+      {market !== null && <td className="n">{market}</td>}
+      <td className="unit">{unit}</td>
+    </tr>
+  );
+}

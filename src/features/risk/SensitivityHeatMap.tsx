@@ -1,0 +1,114 @@
+import { useMemo, useState } from 'react';
+import { INTERPOLATIONS, INTERPOLATORS, parseTenor, sensitivityMapFor, type InterpolationId, type Workspace } from '../../core/index.ts';
+import { num, pct, rateTag } from '../../components/format.ts';
+
+export interface SensitivityHeatMapProps {
+  /** The validated workspace whose enabled quotes build the curve (null: nothing yet). */
+  readonly workspace: Workspace | null;
+  /** Starting interpolation (default the workspace's); the user can switch it here. */
+  readonly interpolation?: InterpolationId;
+  /** Forward tenor and the step between forward starts (defaults 3M and 1Y). */
+  readonly tenor?: string;
+  readonly step?: string;
+}
+
+const TENORS = ['1M', '3M', '6M', '1Y'];
+const STEPS = ['3M', '6M', '1Y', '2Y'];
+
+/** Diverging colour for a sensitivity in bp per bp: blue for positive, orange for negative, white at 0. */
+function cellColour(v: number, scale: number): string {
+  const a = Math.min(1, Math.abs(v) / (scale || 1));
+  const [r, g, b] = v >= 0 ? [49, 110, 180] : [214, 120, 40];
+  const mix = (c: number): number => Math.round(255 + (c - 255) * a * 0.85);
+  return `rgb(${mix(r)}, ${mix(g)}, ${mix(b)})`;
+}
+
+/**
+ * Which quote drives each forward: rows are forwards of one tenor starting every step, columns the
+ * quotes in maturity order, each cell dF/dq in bp of forward per bp of the quote's own yield
+ * (computed from the bootstrap). Switching the interpolation shows which methods keep a quote's
+ * influence local.
+ */
+export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', step = '1Y' }: SensitivityHeatMapProps) {
+  const [method, setMethod] = useState<InterpolationId>(interpolation ?? workspace?.curve.interpolation ?? 'monotone-convex');
+  const [fwdTenor, setFwdTenor] = useState(tenor);
+  const [fwdStep, setFwdStep] = useState(step);
+  const out = useMemo(() => {
+    if (!workspace) return null;
+    const t = parseTenor(fwdTenor);
+    const s = parseTenor(fwdStep);
+    if (!t || !s) return null;
+    return sensitivityMapFor(workspace, { interpolation: method, tenor: t, step: s, compounding: 'simple' });
+  }, [workspace, method, fwdTenor, fwdStep]);
+  const scale = useMemo(() => {
+    if (!out || !out.ok) return 1;
+    let m = 0;
+    for (const v of out.value.map.values) m = Math.max(m, Math.abs(v));
+    return m;
+  }, [out]);
+
+  return (
+    <section className="panel sensitivity-panel" aria-label="Which quote drives each forward">
+      <h2>Which quote drives each forward</h2>
+      <div className="controls">
+        <label>
+          Interpolation{' '}
+          <select value={method} onChange={(e) => setMethod(e.target.value as InterpolationId)}>
+            {INTERPOLATIONS.map((id) => <option key={id} value={id}>{INTERPOLATORS[id].label}</option>)}
+          </select>
+        </label>{' '}
+        <label>
+          Forward tenor{' '}
+          <select value={fwdTenor} onChange={(e) => setFwdTenor(e.target.value)}>
+            {TENORS.map((t) => <option key={t} value={t}>{t}</option>)}
+          </select>
+        </label>{' '}
+        <label>
+          Starts every{' '}
+          <select value={fwdStep} onChange={(e) => setFwdStep(e.target.value)}>
+            {STEPS.map((t) => <option key={t} value={t}>{t}</option>)}
+          </select>
+        </label>
+      </div>
+      {!workspace && <p role="status">No valid workspace yet.</p>}
+      {out && !out.ok && <p role="alert" className="error">{out.errors.map((e) => e.message).join('; ')}</p>}
+      {out && out.ok && (
+        <div className="heatmap-scroll">
+          <table className="data heatmap" aria-label="Forward sensitivities">
+            <caption>
+              dF/dq in bp of forward per bp of quote (a price quote moved through its own yield); forwards <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span>, computed
+              from the bootstrap (dF/dnodes × (dq/dnodes)⁻¹). Blue: the forward rises with the quote; orange: it falls.
+            </caption>
+            <thead>
+              <tr>
+                <th scope="col">Forward</th>
+                <th scope="col">Rate <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span></th>
+                {out.value.map.columns.map((c) => (
+                  <th key={c.index} scope="col" title={`quotes[${c.index}] ${c.kind} ${c.maturity}, moved through its ${c.yieldLabel}`}>
+                    {c.kind} {c.maturity}
+                  </th>
+                ))}
+              </tr>
+            </thead>
+            <tbody>
+              {out.value.map.rows.map((r, i) => (
+                <tr key={r.start} data-start={r.start}>
+                  <th scope="row">{r.start} → {r.end}</th>
+                  <td className="n">{pct(r.rate)}</td>
+                  {out.value.map.columns.map((c, k) => {
+                    const v = out.value.map.values[i * out.value.map.columns.length + k]!;
+                    return (
+                      <td key={c.index} className="n cell" style={{ background: cellColour(v, scale) }} data-quote={c.index} aria-label={`${r.start} forward to quotes[${c.index}]: ${num(v, 3)} bp per bp`}>
+                        {num(v, 2)}
+                      </td>
+                    );
+                  })}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,68 @@
+// @vitest-environment jsdom
+// The smooth-fit panel: model choice, the convergence report, residuals in bp and per 100 face,
+// include/exclude and weights, the rich/cheap table. The figures are the core's (test/core/fit);
+// here the panel must show them with their units and keep what the user types.
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { fitCurve, validateWorkspace } from '../../src/core/index.ts';
+import { FitPanel } from '../../src/features/fit/FitPanel.tsx';
+
+// Invented demo market.
+const ws = validateWorkspace({
+  format: 'tenorscope-workspace',
+  version: 1,
+  settlement: '2027-03-10',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  quotes: [
+    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
+    { kind: 'deposit', tenor: '6M', rate: 0.0291 },
+    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
+    { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, cleanPrice: 99.6 },
+    { kind: 'bond', maturity: '2034-05-15', coupon: 0.04, frequency: 2, cleanPrice: 103.1 },
+    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
+    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
+  ],
+}).workspace!;
+
+describe('FitPanel', () => {
+  it('shows a Nelson-Siegel fit: report, parameters with units, residuals in bp and per 100 face, bonds ranked rich to cheap', () => {
+    render(<FitPanel workspace={ws} />);
+    const panel = screen.getByRole('region', { name: 'Smooth fit' });
+    expect(within(panel).getByRole('status')).toHaveTextContent(/Nelson-Siegel fit converged/);
+    const params = within(panel).getByRole('table', { name: 'Fitted parameters' });
+    expect(params).toHaveTextContent('τ1 (years)');
+    expect(params).toHaveTextContent('cont, ACT/365F');
+    const residuals = within(panel).getByRole('table', { name: 'Fit residuals' });
+    expect(within(residuals).getAllByRole('row')).toHaveLength(1 + ws.quotes.length);
+    expect(residuals).toHaveTextContent('Residual (bp)');
+    expect(residuals).toHaveTextContent('Residual (per 100 face)');
+    const expected = fitCurve(ws, { model: 'nelson-siegel' });
+    if (!expected.ok) throw new Error('fit');
+    const rc = within(panel).getByRole('table', { name: 'Rich and cheap bonds' });
+    const order = within(rc).getAllByRole('row').slice(1).map((r) => r.getAttribute('data-quote'));
+    expect(order).toEqual(expected.value.richCheap.map((e) => String(e.index)));
+  });
+
+  it('excludes a quote when its box is cleared, and keeps a bad weight as typed with a message', async () => {
+    const user = userEvent.setup();
+    render(<FitPanel workspace={ws} />);
+    await user.click(screen.getByRole('checkbox', { name: 'include quotes[4] in the fit' }));
+    expect(screen.getByRole('checkbox', { name: 'include quotes[4] in the fit' })).not.toBeChecked();
+    expect(within(screen.getByRole('table', { name: 'Rich and cheap bonds' })).getByText(/left out of the fit/)).toBeInTheDocument();
+    const weight = screen.getByRole('textbox', { name: 'weight of quotes[2]' });
+    await user.clear(weight);
+    await user.type(weight, 'abc');
+    expect(weight).toHaveValue('abc');
+    expect(screen.getByRole('alert')).toHaveTextContent('quotes[2] weight: type a number 0 or above');
+  });
+
+  it('switches to Svensson and to no fit', async () => {
+    const user = userEvent.setup();
+    render(<FitPanel workspace={ws} />);
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Model' }), 'svensson');
+    expect(screen.getByRole('status')).toHaveTextContent(/Svensson fit/);
+    expect(screen.getByRole('table', { name: 'Fitted parameters' })).toHaveTextContent('τ2 (years)');
+    await user.selectOptions(screen.getByRole('combobox', { name: 'Model' }), 'none');
+    expect(screen.getByRole('status')).toHaveTextContent('No fit chosen');
+  });
+});

@@ -1,0 +1,66 @@
+// @vitest-environment jsdom
+// The bond panel: every figure with its unit, the key-rate grid and bump stated, z-spread at a
+// market price, the DV01 to each quote, and a typing mistake kept with a message.
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { analyzeBond, buildCurve } from '../../src/core/index.ts';
+import { num } from '../../src/components/format.ts';
+import { BondAnalyticsPanel } from '../../src/features/risk/BondAnalyticsPanel.tsx';
+
+// Invented demo market.
+const doc = {
+  format: 'tenorscope-workspace',
+  version: 1,
+  settlement: '2027-03-10',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  quotes: [
+    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
+    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
+    { kind: 'swap', tenor: '5Y', rate: 0.0335 },
+    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
+    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
+  ],
+};
+const build = buildCurve(doc);
+const curve = build.curve!;
+
+describe('BondAnalyticsPanel', () => {
+  it('shows the core figures with units, the key-rate grid and its bump, and the DV01 per quote', () => {
+    render(<BondAnalyticsPanel curve={curve} workspace={build.workspace} initial={{ maturity: '2034-05-15', coupon: '4', quoteKind: 'price', quote: '101.25' }} />);
+    const table = screen.getByRole('table', { name: 'Bond analytics' });
+    const expected = analyzeBond(curve, { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA', cleanPrice: 101.25 });
+    if (!expected.ok) throw new Error('analytics');
+    const row = (label: RegExp) => within(table).getByRole('row', { name: label });
+    expect(row(/^Modified duration/)).toHaveTextContent(num(expected.value.modifiedDuration, 4));
+    expect(row(/^Modified duration/)).toHaveTextContent('years');
+    expect(row(/^Convexity/)).toHaveTextContent('years²');
+    expect(row(/^DV01/)).toHaveTextContent('per 100 face per bp of yield');
+    expect(row(/^Z-spread/)).toHaveTextContent(num(expected.value.market!.zSpread * 1e4, 2));
+    expect(row(/^Z-spread/)).toHaveTextContent('bp, cont, ACT/365F');
+    expect(row(/^Yield to maturity/)).toHaveTextContent('s.a., ICMA, accrual ACT/ACT-ICMA');
+    const krd = screen.getByRole('table', { name: 'Key-rate durations' });
+    expect(krd).toHaveTextContent('3M, 6M, 1Y, 2Y, 3Y, 5Y, 7Y, 10Y, 20Y, 30Y');
+    expect(krd).toHaveTextContent('±1 bp');
+    const dv = screen.getByRole('table', { name: 'DV01 to each quote' });
+    expect(within(dv).getAllByRole('row')).toHaveLength(1 + doc.quotes.length);
+  });
+
+  it('keeps a bad coupon as typed and says what to type', async () => {
+    const user = userEvent.setup();
+    render(<BondAnalyticsPanel curve={curve} />);
+    const coupon = screen.getByRole('textbox', { name: 'Coupon (% per year)' });
+    await user.clear(coupon);
+    await user.type(coupon, '4,5');
+    expect(coupon).toHaveValue('4,5');
+    expect(screen.getByRole('alert')).toHaveTextContent('Coupon: type a percent per year such as 4.25, not "4,5"');
+  });
+
+  it('refuses a bond beyond the curve with the core\'s message', async () => {
+    const user = userEvent.setup();
+    render(<BondAnalyticsPanel curve={curve} />);
+    const maturity = screen.getByRole('textbox', { name: 'Maturity (date or tenor)' });
+    await user.clear(maturity);
+    await user.type(maturity, '40Y');
+    expect(screen.getByRole('alert')).toHaveTextContent(/beyond the curve's last pillar/);
+  });
+});
