@@ -63,4 +63,24 @@ describe('PrintSummary printed by Chromium (page.pdf)', () => {
     expect(await page.locator('.print-summary').innerText()).toContain('and 1 more not shown');
     await page.close();
   });
+
+  for (const format of ['A4', 'Letter'] as const) {
+    it(`prints one ${format} page from the workbench's Print section (summary alone, demo market, three scenarios, longest note)`, async () => {
+      const page = await newPage(browser!);
+      await page.goto(`${server!.url}app.html?demo=print`, { waitUntil: 'load' });
+      await page.getByRole('button', { name: 'Print summary' }).waitFor();
+      await page.evaluate(() => document.body.classList.add('print-summary-only'));
+      const pdf = path.join(OUT, `workbench-${format}.pdf`);
+      writeFileSync(pdf, await page.pdf({ format, printBackground: true }));
+      execFileSync('pdftoppm', ['-png', '-r', '70', '-f', '1', '-l', '1', '-singlefile', pdf, path.join(OUT, `workbench-${format}`)]);
+      expect(pagesOf(pdf)).toBe(1);
+      const text = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
+      expect(text).toContain('note cut at 600 characters');
+      expect(text).toContain('Caution.');
+      expect(text).not.toContain('Quotes');
+      expect(diagnostics(page).pageErrors).toEqual([]);
+      await page.close();
+    });
+  }
 });
+

@@ -20,7 +20,7 @@ export async function buildHarness(): Promise<string> {
       outDir: HARNESS_OUT,
       emptyOutDir: true,
       target: 'es2022',
-      rollupOptions: { input: { print: path.join(here, 'print.html'), share: path.join(here, 'share.html') } },
+      rollupOptions: { input: { print: path.join(here, 'print.html'), share: path.join(here, 'share.html'), app: path.join(here, 'app.html') } },
     },
   });
   return HARNESS_OUT;
