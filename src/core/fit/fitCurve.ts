@@ -189,7 +189,7 @@ const logGrid = (lo: number, hi: number, count: number): number[] =>
  *    are found by linear least squares steps (Gauss-Newton on the betas alone, which is exact in
  *    one step for zero-rate quotes), keeping the grid point with the least weighted sum of squares.
  * 2. Refine all parameters together by Levenberg-Marquardt (levenbergMarquardt.ts) from the best
- *    grid points, inside the bounds (b in [-1, 1], 0.05 <= tau <= 30, tau2 >= ratio x tau1).
+ *    grid points (the best two), inside the bounds (b in [-1, 1], 0.05 <= tau <= 30, tau2 >= ratio x tau1).
  *
  * Returns an error value when fewer quotes are included than the model has parameters; a fit
  * that does not converge comes back with `converged: false` and a report saying what to try.
@@ -250,7 +250,7 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
 
   // 2. Refine from the best few grid points.
   let best: LmResult | null = null;
-  for (const c of candidates.slice(0, 3)) {
+  for (const c of candidates.slice(0, 2)) {
     const r = levenbergMarquardt(residualOf, c.v, m, { project, maxIterations: options.maxIterations ?? 200 });
     if (!Number.isFinite(r.ssr)) continue;
     if (!best || (r.converged && !best.converged) || (r.converged === best.converged && r.ssr < best.ssr)) best = r;
