@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/input/index.ts';
-import { defaultTableConventions } from '../core/export/exports.ts';
+import { tableConventionsFromDisplay } from '../features/print/printData.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';
 import { useAppStore } from '../state/store.ts';
@@ -18,7 +18,7 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
       <WorkspaceFiles
         document={doc}
         curve={curve}
-        conventions={curve ? defaultTableConventions(curve) : null}
+        conventions={curve ? tableConventionsFromDisplay((doc as unknown as WorkbenchDocument).display) : null}
         onOpen={(checked) => {
           if (checked.document.format !== WORKBENCH_FORMAT) {
             setMessage('This file is an engine workspace document (format "tenorscope-workspace"); open it with the curve command, or paste its quotes into the sheet.');

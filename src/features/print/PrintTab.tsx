@@ -1,13 +1,13 @@
 import { useMemo, useState, type ReactNode } from 'react';
 import { applyScenario } from '../../core/analysis/scenarios.ts';
-import { validateScenarios, workspaceHash, type CurveTableConventions } from '../../core/export/exports.ts';
+import { validateScenarios, workspaceHash } from '../../core/export/exports.ts';
 import { COMPOUNDING_LABEL } from '../../core/index.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { BUILD_ID } from '../../share/buildId.ts';
 import { PrintChart, type PrintSeries } from './PrintChart.tsx';
-import { printKeyRows, printScenarios, scenarioConventionsText } from './printData.ts';
+import { printKeyRows, printScenarios, scenarioConventionsText, tableConventionsFromDisplay } from './printData.ts';
 import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
 import { PrintSummary } from './PrintSummary.tsx';
 
@@ -25,14 +25,7 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
   const display = doc.display;
   const props = useMemo(() => {
     if (!curve || !ws) return null;
-    const conv: CurveTableConventions = {
-      zeroCompounding: display.compounding,
-      zeroDayCount: display.dayCount,
-      parFrequency: ([1, 2, 4, 12] as const).find((f) => f === display.parFrequency) ?? 2,
-      forwardTenor: display.forwardTenor,
-      forwardCompounding: display.compounding,
-      forwardDayCount: display.dayCount,
-    };
+    const conv = tableConventionsFromDisplay(display);
     const { scenarios } = validateScenarios(doc.scenarios);
     const moved = scenarios.slice(0, 4).flatMap((s) => {
       const r = applyScenario(s, ws, curve, { skipInvalid: true });

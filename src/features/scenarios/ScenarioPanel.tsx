@@ -67,7 +67,7 @@ export function ScenarioPanel({ value, onChange, workspace, base, buildOptions =
                     Remove
                   </button>
                 </div>
-                {error ? <p className="field-error">{error}</p> : result && <ScenarioShapeChart name={s.name} samples={result.samples} nodes={result.nodes} />}
+                {error ? <p className="field-error">{error}</p> : result && <ScenarioShapeChart name={s.name} samples={result.samples} nodes={result.nodes} moves={s.space === 'zero' ? `zero rates (cont, ${base?.dayCount ?? ''})` : 'each quote in its own convention'} dayCount={base?.dayCount ?? ''} />}
               </li>
             ))}
           </ul>

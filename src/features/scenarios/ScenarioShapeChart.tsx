@@ -5,6 +5,10 @@ export interface ScenarioShapeChartProps {
   readonly samples: readonly ShapeSample[];
   /** Nodes of the shape (maturity label, t, bp) and zero marks such as the pivot. */
   readonly nodes: readonly { readonly label: string; readonly t: number; readonly bp: number }[];
+  /** What the shift moves, for the caption: "zero rates (cont, ACT/365F)" or "each quote in its own convention". */
+  readonly moves: string;
+  /** The curve's day count (the time axis and the forward's clock). */
+  readonly dayCount: string;
 }
 
 const W = 260;
@@ -12,7 +16,7 @@ const H = 120;
 const M = { left: 34, right: 6, top: 8, bottom: 18 };
 
 /** A scenario's shape Delta(t) (solid) beside the change it makes to the instantaneous forward (dashed), both in bp. */
-export function ScenarioShapeChart({ name, samples, nodes }: ScenarioShapeChartProps) {
+export function ScenarioShapeChart({ name, samples, nodes, moves, dayCount }: ScenarioShapeChartProps) {
   const xs = samples.map((s) => s.t);
   const xMax = Math.max(1, ...xs);
   const vals = samples.flatMap((s) => [s.shiftBp, s.forwardBp]).filter(Number.isFinite);
@@ -40,6 +44,9 @@ export function ScenarioShapeChart({ name, samples, nodes }: ScenarioShapeChartP
           </g>
         ))}
       </svg>
+      <figcaption className="small muted">
+        Solid: shift, bp, of {moves}. Dashed: change of the instantaneous forward, bp (cont, {dayCount}). Years on {dayCount}.
+      </figcaption>
     </figure>
   );
 }
