@@ -2,6 +2,7 @@ import { describe, it, expect } from 'vitest';
 import * as formula from '@formulajs/formulajs';
 import {
   analyzeBond,
+  billPriceFromDiscountYield,
   bondDirtyFromYield,
   bondSchedule,
   bondYieldFromDirty,
@@ -104,6 +105,14 @@ describe('outside oracle: @formulajs/formulajs (spreadsheet PV, RATE, XNPV, XIRR
     expectClose(-(formula.PV(0.05, 6, 40, 1000) as number), 949.243, 5e-4, 'Bodie-Kane-Marcus 8% 3-year at 10%: 949.243');
     expectClose(formula.XNPV(0.09, flows, dates) as number, 2086.65, 5e-3, 'Microsoft XNPV example: 2086.65');
     expectClose(formula.XIRR(flows, dates, 0.1) as number, 0.373362535, 5e-9, 'Microsoft XIRR example: 0.373362535');
+  });
+  it('is not used for bills: its TBILLPRICE counts 30/360 days where the published formula counts actual days', () => {
+    // Microsoft's TBILLPRICE example: settlement 2008-03-31, maturity 2008-06-01 (62 actual days),
+    // discount 9%: 98.45 = 100 (1 - 0.09 x 62 / 360). The package gives 98.475 (61 days, 30/360).
+    const settle = new Date(2008, 2, 31); // local dates: the package reads local calendar fields
+    const maturity = new Date(2008, 5, 1);
+    expectClose(billPriceFromDiscountYield(0.09, 62), 98.45, 5e-3, 'Microsoft TBILLPRICE example: 98.45');
+    expectClose(formula.TBILLPRICE(settle, maturity, 0.09) as number, 100 * (1 - (0.09 * 61) / 360), 1e-9, 'the package counts DAYS360 = 61 days');
   });
   it.each([
     { coupon: 0.08, years: 3, frequency: 2, y: 0.1 },
