@@ -1,0 +1,65 @@
+import { describe, expect, it } from 'vitest';
+import { runCurveCommand } from '../../src/cli/curveCommand.ts';
+import { analyzeBond, buildCurve } from '../../src/core/index.ts';
+import { expectClose } from '../helpers/asserts.ts';
+
+// `--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]` (repeatable) adds a `bonds` array:
+// the figures must be the core's analyzeBond, and a mistake must be a usage error or a document
+// error a user can act on. Documents are invented test data.
+const doc = {
+  format: 'tenorscope-workspace',
+  version: 1,
+  settlement: '2027-03-10',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  quotes: [
+    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
+    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
+    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
+    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
+  ],
+};
+const run = (...args: string[]) => runCurveCommand(['-', ...args], () => JSON.stringify(doc));
+
+describe('curve --bond', () => {
+  it('adds one bonds[] entry per --bond with the model figures, key rates by tenor and the market fields', () => {
+    const r = run('--bond', '2034-05-15,0.04,2,ACT/ACT-ICMA,price=101.25', '--bond', '10Y,0.035,1,30/360,yield=0.036', '--bond', '2032-01-31,0.02,4,ACT/360');
+    expect(r.status).toBe(0);
+    const o = JSON.parse(r.stdout) as { bonds: Record<string, any>[] };
+    expect(o.bonds).toHaveLength(3);
+    const curve = buildCurve(doc).curve!;
+    const a = analyzeBond(curve, { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA', cleanPrice: 101.25 });
+    if (!a.ok) throw new Error('analytics');
+    const [b0, b1, b2] = o.bonds as [Record<string, any>, Record<string, any>, Record<string, any>];
+    for (const k of ['modelCleanPrice', 'modelDirtyPrice', 'accrued', 'yield', 'macaulayDuration', 'modifiedDuration', 'convexity', 'dv01'] as const) {
+      expectClose(b0[k], a.value[k], 0, `analyzeBond ${k}`);
+    }
+    expect(Object.keys(b0.keyRateDurations)).toEqual(['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y']);
+    expectClose(b0.zSpread, a.value.market!.zSpread, 0, 'analyzeBond market.zSpread');
+    expectClose(b0.yieldFromPrice, a.value.market!.yield, 0, 'yield from the clean price');
+    expectClose(b0.marketModifiedDuration, a.value.market!.modifiedDuration, 0, 'duration at the market yield');
+    expect(b1.maturity).toBe('2037-03-10'); // the tenor resolved from settlement
+    expect(typeof b1.priceFromYield).toBe('number');
+    expect(b1.yieldFromPrice).toBeUndefined();
+    expect(b2.zSpread).toBeUndefined();
+    expect(b0.yieldConvention).toBe('ICMA, compounded 2/yr, accrual ACT/ACT-ICMA');
+    expect(b0.zSpreadConvention).toBe('cont, ACT/365F');
+  });
+  it('leaves the output without bonds when no --bond is given', () => {
+    const o = JSON.parse(run().stdout) as Record<string, unknown>;
+    expect('bonds' in o).toBe(false);
+  });
+  it('refuses malformed --bond text as a usage error (exit 2, nothing on standard output)', () => {
+    for (const bad of ['2034-05-15,0.04,2', '2034-05-15,4%,2,ACT/ACT-ICMA', '2034-05-15,0.04,2,ACT/ACT', '2034-05-15,0.04,2,ACT/ACT-ICMA,clean=101']) {
+      const r = run('--bond', bad);
+      expect(r.status, bad).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr).toMatch(/--bond/);
+    }
+  });
+  it('reports a bond the curve cannot value as a document error naming --bond[i] (exit 1)', () => {
+    const r = run('--bond', '2034-05-15,0.04,2,ACT/ACT-ICMA', '--bond', '2070-01-01,0.04,2,ACT/ACT-ICMA');
+    expect(r.status).toBe(1);
+    const o = JSON.parse(r.stdout) as { errors: { path: string; code: string }[] };
+    expect(o.errors[0]).toMatchObject({ path: '--bond[1].maturity', code: 'beyond-curve' });
+  });
+});
