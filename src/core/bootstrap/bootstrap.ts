@@ -276,7 +276,15 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
         ys[k] = x;
         maxChange = Math.max(maxChange, Math.abs(Math.expm1(x - before)));
       }
-      if (maxChange <= NODE_TOLERANCE && accepted()) {
+      // Fix: the sweeps used to stall at a node change of a few ulps above NODE_TOLERANCE (seen:
+      // 1.11e-15 on every sweep for cubic-zero on an ordinary 40-quote market), because each node
+      // solve itself stops within NODE_TOLERANCE of its root, so successive sweeps move a node by
+      // rounding noise; they then ran all MAX_SWEEPS and ended in not-converged. A change within
+      // the rounding floor of ln DF (8 ulps of the largest |ln DF|) now counts as no change.
+      let largest = 1;
+      for (let k = 1; k <= n; k++) largest = Math.max(largest, Math.abs(ys[k]!));
+      const floor = NODE_TOLERANCE + 8 * Number.EPSILON * largest;
+      if (maxChange <= floor && accepted()) {
         converged = true;
         break;
       }
