@@ -99,28 +99,29 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const segSlope = new Float64Array(maxFlows);
 
   /**
-   * Solves node k of a local interpolation (one built on nodes 0..k only). Performance: instead of
-   * rebuilding the interpolation for every solver evaluation, it is built twice, at x0 and x0 + 1.
-   * For the local methods ln DF at a time t in the last segment (t_(k-1), t_k] is affine in the
-   * node value y_k (log-linear-discount: y_(k-1) + (y_k - y_(k-1)) w; linear-zero:
-   * -t ((1 - w) z_(k-1) + w z_k) with z_k = -y_k / t_k), and flows at or before t_(k-1) do not
-   * depend on y_k at all; so lnDF(t; x) = lnDF(t; x0) + (x - x0) [lnDF(t; x0 + 1) - lnDF(t; x0)]
-   * exactly in real arithmetic. The final curve is rebuilt from the solved nodes and every quote is
+   * Solves node k on an interpolation built on nodes 0..m whose ln DF is affine in each node
+   * (spec.affine: linear-zero, log-linear-discount, cubic-zero). Performance: instead of
+   * rebuilding the interpolation for every solver evaluation, it is built twice, at x0 and x0 + 1:
+   * lnDF(t; x) = lnDF(t; x0) + (x - x0) [lnDF(t; x0 + 1) - lnDF(t; x0)] exactly in real arithmetic
+   * (log-linear-discount: y_(k-1) + (y_k - y_(k-1)) w; linear-zero: -t ((1 - w) z_(k-1) + w z_k)
+   * with z_k = -y_k / t_k; cubic-zero: a natural spline is linear in its knot values). With
+   * `local` (nodes 0..k of a local method) flows at or before t_(k-1) do not depend on y_k at all
+   * and are summed once. The final curve is rebuilt from the solved nodes and every quote is
    * repriced on it, so a rounding difference could only surface as a failed acceptance check.
    */
-  const solveLocalAt = (k: number, build: typeof spec.build, x0: number): CoreError | number => {
+  const solveAffineAt = (k: number, m: number, build: typeof spec.build, x0: number, local: boolean): CoreError | number => {
     const ins = instruments[k - 1]!;
-    if (closedForm[k - 1]) return solveAt(k, k, build, x0);
-    const tv = ts.subarray(0, k + 1);
-    const yv = ys.subarray(0, k + 1);
-    const tPrev = ts[k - 1]!;
+    if (closedForm[k - 1]) return solveAt(k, m, build, x0);
+    const tv = ts.subarray(0, m + 1);
+    const yv = ys.subarray(0, m + 1);
+    const tPrev = local ? ts[k - 1]! : -Infinity;
     const { times, amounts } = ins;
     // Every value at x0 is read before the node moves to x0 + 1: an interpolation may read the
     // node arrays by reference.
     yv[k] = x0;
     const a = build(tv, yv);
     let fixed = 0;
-    let m = 0;
+    let count = 0;
     let first = times.length; // index of the first flow after t_(k-1); flows are in time order
     for (let j = 0; j < times.length; j++) {
       const tj = times[j]!;
@@ -128,19 +129,20 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
       if (tj <= tPrev) {
         fixed += amounts[j]! * Math.exp(lnA);
       } else {
-        if (m === 0) first = j;
-        segAmount[m] = amounts[j]!;
-        segLn[m] = lnA;
-        m++;
+        if (count === 0) first = j;
+        segAmount[count] = amounts[j]!;
+        segLn[count] = lnA;
+        count++;
       }
     }
     yv[k] = x0 + 1;
     const b = build(tv, yv);
-    for (let j = 0; j < m; j++) segSlope[j] = b.lnDiscount(times[first + j]!) - segLn[j]!;
+    for (let j = 0; j < count; j++) segSlope[j] = b.lnDiscount(times[first + j]!) - segLn[j]!;
+    yv[k] = x0;
     const outcome = solveNode((x) => {
       const dx = x - x0;
       let pv = fixed;
-      for (let j = 0; j < m; j++) pv += segAmount[j]! * Math.exp(segLn[j]! + segSlope[j]! * dx);
+      for (let j = 0; j < count; j++) pv += segAmount[j]! * Math.exp(segLn[j]! + segSlope[j]! * dx);
       return pv - ins.target;
     }, x0);
     if (!outcome.ok) return solveFailure(ins, outcome.reason);
@@ -160,7 +162,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   // Pass 1: local bootstrap (log-linear for the global methods' starting point).
   const localBuild = spec.global ? INTERPOLATORS['log-linear-discount'].build : spec.build;
   for (let k = 1; k <= n; k++) {
-    const x = solveLocalAt(k, localBuild, guess(k));
+    const x = solveAffineAt(k, k, localBuild, guess(k), true);
     if (typeof x !== 'number') return failed([x]);
     ys[k] = x;
   }
@@ -267,7 +269,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
       for (let k = 1; k <= n; k++) {
         if (closedForm[k - 1]) continue;
         const before = ys[k]!;
-        const x = solveAt(k, n, spec.build, before);
+        const x = spec.affine ? solveAffineAt(k, n, spec.build, before, false) : solveAt(k, n, spec.build, before);
         if (typeof x !== 'number') {
           sweepFailure = x; // one node alone has no solution: try all nodes at once below
           ys[k] = before;

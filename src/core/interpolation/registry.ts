@@ -6,9 +6,9 @@ import type { InterpolationId, InterpolatorSpec } from './types.ts';
 
 /** Every interpolation method the engine offers, by identifier. */
 export const INTERPOLATORS: Readonly<Record<InterpolationId, InterpolatorSpec>> = {
-  'linear-zero': { id: 'linear-zero', build: interpolatorLinearZero, global: false, label: 'Linear zero' },
-  'log-linear-discount': { id: 'log-linear-discount', build: interpolatorLogLinearDiscount, global: false, label: 'Log-linear discount' },
-  'cubic-zero': { id: 'cubic-zero', build: interpolatorCubicZero, global: true, label: 'Cubic zero (natural)' },
+  'linear-zero': { id: 'linear-zero', build: interpolatorLinearZero, global: false, affine: true, label: 'Linear zero' },
+  'log-linear-discount': { id: 'log-linear-discount', build: interpolatorLogLinearDiscount, global: false, affine: true, label: 'Log-linear discount' },
+  'cubic-zero': { id: 'cubic-zero', build: interpolatorCubicZero, global: true, affine: true, label: 'Cubic zero (natural)' },
   'monotone-convex': { id: 'monotone-convex', build: interpolatorMonotoneConvex, global: true, label: 'Monotone convex' },
   'monotone-convex-positive': {
     id: 'monotone-convex-positive',

@@ -27,6 +27,12 @@ export interface InterpolatorSpec {
   readonly build: InterpolatorFactory;
   /** True when moving one node moves the curve beyond its own two segments (needs sweeps). */
   readonly global: boolean;
+  /**
+   * True when ln DF at any fixed t is an affine function of each node's ln DF (linear-zero,
+   * log-linear-discount, and cubic-zero, whose spline is linear in the zero rates): the bootstrap
+   * then solves a node from two builds instead of one build per solver step.
+   */
+  readonly affine?: boolean;
   readonly label: string;
 }
 
