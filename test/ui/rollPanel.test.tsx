@@ -4,6 +4,7 @@
 // figures themselves are the core's (tested in test/core/analysis); here the panel must show them.
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import axe from 'axe-core';
 import { useState } from 'react';
 import { buildCurve, type Curve } from '../../src/core/index.ts';
 import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, type StrategyInputs } from '../../src/core/analysis/rollVsTerm.ts';
@@ -156,5 +157,11 @@ describe('RollPanel', () => {
     render(<Harness initial={DEFAULT_STRATEGY} withCurve={false} />);
     expect(screen.getByText(/No curve yet/)).toBeInTheDocument();
     expect(screen.getByRole('textbox', { name: /Amount/ })).toHaveValue('1000000');
+  });
+
+  it('has no accessibility violations found by axe-core (WCAG 2 A and AA rules; colour contrast needs a real renderer)', async () => {
+    const { container } = render(<Harness initial={{ ...DEFAULT_STRATEGY, view: 'path' }} />);
+    const result = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
+    expect(result.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
   });
 });
