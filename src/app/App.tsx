@@ -45,9 +45,9 @@ export function App() {
           <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
             {Roll ? <Roll result={result} /> : <p className="muted small">Roll versus term: panel slot (not installed in this build).</p>}
           </section>
+          <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
         </div>
       </main>
-      <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
       <footer className="foot">
         <Caution />
       </footer>

@@ -82,7 +82,8 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
       .x((p) => x(p.x))
       .y((p) => y(p.y))
       .defined((p) => Number.isFinite(p.y))
-      .curve(curveLinear);
+      .curve(curveLinear)
+      .digits(2);
     return lines.map((l) => {
       const inside = l.points.filter((p) => !p.extrapolated);
       const firstOut = l.points.findIndex((p) => p.extrapolated);

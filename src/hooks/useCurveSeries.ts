@@ -1,17 +1,17 @@
 import { useMemo } from 'react';
+import { addDays, daysBetween, parseTenor, type Curve, type Repricing } from '../core/index.ts';
 import {
-  addDays,
-  addTenor,
-  daysBetween,
-  forwardOn,
-  instantaneousForwardOn,
-  parseTenor,
-  parYieldOn,
-  zeroOn,
-  type Curve,
-  type Repricing,
-} from '../core/index.ts';
-import type { DisplaySettings } from '../core/input/index.ts';
+  forwardSamples,
+  instantaneousSamples,
+  parGrid,
+  parSamples,
+  sampleGrid,
+  zeroSamples,
+  type DisplaySettings,
+  type ParGrid,
+  type SampleGrid,
+  type Samples,
+} from '../core/input/index.ts';
 
 /** One sample of a curve for a chart: x in years on the curve's axis, y a decimal rate. */
 export interface SamplePoint {
@@ -34,8 +34,8 @@ export interface CurveSeries {
 }
 
 /** Samples on each chart: fine enough that straight segments between them follow the model. */
-export const ZERO_SAMPLES = 360;
-export const PAR_SAMPLES = 120;
+export const ZERO_SAMPLES = 400;
+export const PAR_SAMPLES = 160;
 
 /** The end of the drawn maturity range: the last pillar, or further when the curve extrapolates. */
 export function chartEndDate(curve: Curve): string {
@@ -45,64 +45,58 @@ export function chartEndDate(curve: Curve): string {
   return addDays(last, Math.max(365, Math.round(span * 0.12)));
 }
 
-/** Evenly spaced sample dates from settlement to `end` (n + 1 of them, distinct). */
-export function sampleDates(settlement: string, end: string, n: number): string[] {
-  const days = daysBetween(settlement, end);
-  const out: string[] = [];
-  let prev = -1;
-  for (let k = 0; k <= n; k++) {
-    const d = Math.round((k * days) / n);
-    if (d === prev) continue;
-    prev = d;
-    out.push(addDays(settlement, d));
+/** Grids depend on dates and conventions only, not on the quotes: kept across edits. */
+const grids = new Map<string, SampleGrid | ParGrid>();
+function cached<T extends SampleGrid | ParGrid>(key: string, make: () => T): T {
+  let g = grids.get(key) as T | undefined;
+  if (!g) {
+    if (grids.size > 24) grids.clear();
+    g = make();
+    grids.set(key, g);
   }
-  return out;
+  return g;
 }
 
-/** Forward of the chosen tenor starting at each sample date, in the display convention. */
-export function forwardSeries(curve: Curve, display: DisplaySettings, dates: readonly string[]): SamplePoint[] {
-  const tenor = parseTenor(display.forwardTenor)!;
-  const out: SamplePoint[] = [];
-  for (const d of dates) {
-    const f = forwardOn(curve, d, addTenor(d, tenor), display.compounding, display.dayCount);
-    if (f.ok) out.push({ date: d, x: curve.time(d), y: f.value.rate, extrapolated: f.value.extrapolated });
-  }
-  return out;
+export function sampleGridFor(curve: Curve, display: DisplaySettings): SampleGrid {
+  const end = chartEndDate(curve);
+  return cached(`z|${curve.settlement}|${end}|${curve.dayCount}|${display.dayCount}|${display.forwardTenor}`, () =>
+    sampleGrid(curve.settlement, end, ZERO_SAMPLES, curve.dayCount, display.dayCount, parseTenor(display.forwardTenor)!),
+  );
 }
+
+export const points = (s: Samples): SamplePoint[] => s.dates.map((date, i) => ({ date, x: s.x[i]!, y: s.y[i]!, extrapolated: s.extrapolated[i]! }));
+
+/** Forwards of the chosen tenor starting at each sample date, in the display convention. */
+export const forwardSeries = (curve: Curve, display: DisplaySettings): SamplePoint[] => points(forwardSamples(curve, sampleGridFor(curve, display), display.compounding));
 
 /** Samples every line of both charts from the core's curve. */
 export function curveSeries(curve: Curve, display: DisplaySettings, repricing: readonly Repricing[]): CurveSeries {
   const end = chartEndDate(curve);
-  const dates = sampleDates(curve.settlement, end, ZERO_SAMPLES);
-  const zero: SamplePoint[] = [];
-  for (const d of dates) {
-    const z = zeroOn(curve, d, display.compounding, display.dayCount);
-    if (z.ok) zero.push({ date: d, x: z.value.t, y: z.value.zero, extrapolated: z.value.extrapolated });
-  }
-  const par: SamplePoint[] = [];
+  const grid = sampleGridFor(curve, display);
+  let par: SamplePoint[] = [];
+  let markers: CurveSeries['markers'] = [];
   if (display.showPar) {
-    for (const d of sampleDates(curve.settlement, end, PAR_SAMPLES).slice(1)) {
-      const p = parYieldOn(curve, d, display.parFrequency);
-      if (p.ok) par.push({ date: d, x: curve.time(d), y: p.value.rate, extrapolated: p.value.extrapolated });
-    }
+    const pg = cached(`p|${curve.settlement}|${end}|${curve.dayCount}|${display.parFrequency}`, () => parGrid(curve.settlement, end, PAR_SAMPLES, curve.dayCount, display.parFrequency));
+    par = points(parSamples(curve, pg));
+    // Marker grid: one par bond per quote maturity (cached by the set of maturities).
+    const mats = repricing.map((r) => r.maturity);
+    const key = `m|${curve.settlement}|${curve.dayCount}|${display.parFrequency}|${mats.join(',')}`;
+    const mg = cached(key, () => {
+      const legs = mats.map((m) => parGrid(curve.settlement, m, 1, curve.dayCount, display.parFrequency));
+      return { dates: mats, t: Float64Array.from(legs, (g) => g.t[g.t.length - 1] ?? 0), legs: legs.map((g) => g.legs[g.legs.length - 1]!) };
+    });
+    const ms = parSamples(curve, mg);
+    const byDate = new Map(ms.dates.map((d, i) => [d, ms.y[i]!]));
+    markers = repricing.flatMap((r) => {
+      const y = byDate.get(r.maturity);
+      return y === undefined ? [] : [{ date: r.maturity, x: r.t, y, extrapolated: false, quote: r.index, kind: r.kind }];
+    });
   }
-  const forward = forwardSeries(curve, display, dates);
-  const instantaneous: SamplePoint[] = [];
-  if (display.showInstantaneous) {
-    for (const d of dates) {
-      const f = instantaneousForwardOn(curve, d);
-      if (f.ok) instantaneous.push({ date: d, x: f.value.t, y: f.value.forward, extrapolated: f.value.extrapolated });
-    }
-  }
-  const markers = repricing.flatMap((r) => {
-    const p = parYieldOn(curve, r.maturity, display.parFrequency);
-    return p.ok ? [{ date: r.maturity, x: r.t, y: p.value.rate, extrapolated: false, quote: r.index, kind: r.kind }] : [];
-  });
   return {
-    zero,
+    zero: points(zeroSamples(curve, grid, display.compounding)),
     par,
-    forward,
-    instantaneous,
+    forward: points(forwardSamples(curve, grid, display.compounding)),
+    instantaneous: display.showInstantaneous ? points(instantaneousSamples(curve, grid)) : [],
     markers,
     pillars: curve.pillars.map((p) => ({ x: p.t, date: p.date })),
     xMax: curve.time(end),

@@ -1,7 +1,7 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { buildCurve, INTERPOLATIONS, type InterpolationId } from '../core/index.ts';
 import type { DisplaySettings } from '../core/input/index.ts';
-import { chartEndDate, forwardSeries, sampleDates, ZERO_SAMPLES, type SamplePoint } from './useCurveSeries.ts';
+import { forwardSeries, type SamplePoint } from './useCurveSeries.ts';
 
 export interface MethodForwards {
   readonly method: InterpolationId;
@@ -26,8 +26,11 @@ export const whenIdle: Idle = (cb) => {
  * Forwards of every interpolation method on the same quotes, built one method per idle slot so
  * the edit that triggered them paints first; results fill in progressively.
  */
-export function useMethodOverlay(doc: Record<string, unknown> | null, display: DisplaySettings, enabled: boolean): readonly MethodForwards[] {
+export function useMethodOverlay(doc: Record<string, unknown> | null, displayAll: DisplaySettings, enabled: boolean): readonly MethodForwards[] {
   const [state, setState] = useState<{ key: unknown; rows: MethodForwards[] }>({ key: null, rows: [] });
+  // Only what the forwards depend on: an axis or checkbox change does not rebuild them.
+  const { compounding, dayCount, forwardTenor } = displayAll;
+  const display = useMemo(() => ({ ...displayAll, compounding, dayCount, forwardTenor }), [compounding, dayCount, forwardTenor]); // eslint-disable-line
   useEffect(() => {
     if (!enabled || !doc) return;
     let cancel: (() => void) | null = null;
@@ -40,8 +43,7 @@ export function useMethodOverlay(doc: Record<string, unknown> | null, display: D
       if (!method) return;
       const b = buildCurve(doc, { skipInvalid: true, interpolation: method });
       if (b.curve) {
-        const dates = sampleDates(b.curve.settlement, chartEndDate(b.curve), ZERO_SAMPLES);
-        rows.push({ method, points: forwardSeries(b.curve, display, dates), error: null });
+        rows.push({ method, points: forwardSeries(b.curve, display), error: null });
       } else rows.push({ method, points: [], error: b.errors[0]?.message ?? 'no curve' });
       setState({ key, rows: [...rows] });
       cancel = whenIdle(step);

@@ -9,3 +9,4 @@ export * from './quoteRow.ts';
 export * from './pasteTable.ts';
 export * from './workbenchDocument.ts';
 export * from './quoteSchedule.ts';
+export * from './curveSampler.ts';

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import {
   COMPOUNDINGS,
   CURVE_DAY_COUNTS,
@@ -25,7 +26,7 @@ const COMPOUNDING_TEXT: Readonly<Record<Compounding, string>> = {
 const EXTRAPOLATION_TEXT: Readonly<Record<Extrapolation, string>> = { none: 'None (stop at last pillar)', 'flat-forward': 'Flat forward' };
 
 /** Curve and display settings. One display setting re-expresses every rate on screen. */
-export function SettingsBar() {
+export const SettingsBar = memo(function SettingsBar() {
   const settlement = useAppStore((s) => s.workspace.settlement);
   const curve = useAppStore((s) => s.workspace.curve);
   const display = useAppStore((s) => s.workspace.display);
@@ -137,4 +138,4 @@ export function SettingsBar() {
       )}
     </section>
   );
-}
+});

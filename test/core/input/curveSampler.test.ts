@@ -1,0 +1,70 @@
+// The chart sampler against the core's own queries (zeroOn, forwardOn, parYieldOn,
+// instantaneousForwardOn) as the oracle: at every sample the same value to within a few ulps.
+import { addTenor, buildCurve, forwardOn, instantaneousForwardOn, parseTenor, parYieldOn, zeroOn, type Compounding } from '../../../src/core/index.ts';
+import { forwardSamples, instantaneousSamples, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples } from '../../../src/core/input/index.ts';
+import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
+import { expectClose } from '../../helpers/asserts.ts';
+
+let n = 0;
+const demo = demoWorkspace(() => `s${n++}`);
+const ORACLE = 'the core query at the same date (src/core/curve/query.ts)';
+
+describe.each(['none', 'flat-forward'] as const)('samplers on the demo curve, extrapolation %s', (extrapolation) => {
+  const curve = buildCurve(toEngineDocument({ ...demo, curve: { ...demo.curve, extrapolation } }).doc).curve!;
+  const end = '2060-06-15';
+  const grid = sampleGrid(curve.settlement, end, 120, curve.dayCount, 'ACT/360', parseTenor('6M')!);
+
+  it.each(['continuous', 'annual', 'simple'] as Compounding[])('zeroSamples agrees with zeroOn (%s, ACT/360)', (c) => {
+    const s = zeroSamples(curve, grid, c);
+    expect(s.dates.length).toBeGreaterThan(50);
+    s.dates.forEach((d, i) => {
+      const z = zeroOn(curve, d, c, 'ACT/360');
+      expect(z.ok, d).toBe(true);
+      if (z.ok) {
+        expectClose(s.y[i]!, z.value.zero, 1e-15, ORACLE);
+        expect(s.extrapolated[i]).toBe(z.value.extrapolated);
+      }
+    });
+    // Every grid date the query refuses is left out, none that it accepts.
+    const accepted = grid.dates.filter((d) => d !== curve.settlement && zeroOn(curve, d, c, 'ACT/360').ok);
+    expect(s.dates).toEqual(accepted);
+  });
+
+  it('forwardSamples agrees with forwardOn over 6M periods', () => {
+    const s = forwardSamples(curve, grid, 'quarterly');
+    s.dates.forEach((d, i) => {
+      const f = forwardOn(curve, d, addTenor(d, parseTenor('6M')!), 'quarterly', 'ACT/360');
+      expect(f.ok, d).toBe(true);
+      if (f.ok) expectClose(s.y[i]!, f.value.rate, 1e-15, ORACLE);
+    });
+  });
+
+  it('parSamples agrees with parYieldOn (semiannual)', () => {
+    const pg = parGrid(curve.settlement, end, 60, curve.dayCount, 2);
+    const s = parSamples(curve, pg);
+    expect(s.dates.length).toBeGreaterThan(20);
+    s.dates.forEach((d, i) => {
+      const p = parYieldOn(curve, d, 2);
+      expect(p.ok, d).toBe(true);
+      if (p.ok) expectClose(s.y[i]!, p.value.rate, 1e-15, ORACLE);
+    });
+  });
+
+  it('instantaneousSamples agrees with instantaneousForwardOn', () => {
+    const s = instantaneousSamples(curve, grid);
+    s.dates.forEach((d, i) => {
+      const f = instantaneousForwardOn(curve, d);
+      if (f.ok) expect(s.y[i]).toBe(f.value.forward);
+    });
+  });
+});
+
+describe('sampleDays', () => {
+  it('is ascending, distinct, from 0 to the end, and densest at the short end', () => {
+    const d = sampleDays(11000, 400);
+    expect(d[0]).toBe(0);
+    expect(d[d.length - 1]).toBe(11000);
+    for (let i = 1; i < d.length; i++) expect(d[i]!).toBeGreaterThan(d[i - 1]!);
+    expect(d[1]!).toBeLessThanOrEqual(14);
+  });
+});

@@ -1,0 +1,36 @@
+// The fast rebuild (re-quoted compiled instruments) must give exactly what a full buildCurve
+// gives for the same document: same pillars, same discount factors, same repricing.
+import { buildCurve } from '../../src/core/index.ts';
+import { toEngineDocument } from '../../src/core/input/index.ts';
+import { buildWithReuse } from '../../src/hooks/useCurveBuild.ts';
+import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
+
+let n = 0;
+const demo = demoWorkspace(() => `u${n++}`);
+const withRate = (row: number, rate: string) => ({ ...demo, quotes: demo.quotes.map((q, i) => (i === row ? { ...q, rate } : q)) });
+
+describe('buildWithReuse', () => {
+  it.each(['monotone-convex', 'log-linear-discount', 'cubic-zero'] as const)('after a value edit equals a full buildCurve (%s)', (interpolation) => {
+    const base = { ...demo, curve: { ...demo.curve, interpolation } };
+    buildWithReuse(toEngineDocument(base).doc); // primes the cache
+    for (const [row, rate] of [[3, '4.55'], [15, '4.31'], [0, '\u22120.10']] as const) {
+      const doc = toEngineDocument({ ...withRate(row, rate), curve: base.curve }).doc;
+      const fast = buildWithReuse(doc);
+      const full = buildCurve(doc, { skipInvalid: true });
+      expect(fast.errors).toEqual(full.errors);
+      expect(fast.curve!.pillars).toEqual(full.curve!.pillars);
+      expect(fast.repricing).toEqual(full.repricing);
+      expect(fast.leftOut).toEqual(full.leftOut);
+      expect(fast.workspace!.quotes).toEqual(full.workspace!.quotes);
+      for (const t of [0.1, 1.7, 9.3, 29.9, 33]) expect(fast.curve!.lnDiscountAt(t)).toBe(full.curve!.lnDiscountAt(t));
+    }
+  });
+
+  it('a change of maturity or kind takes the full build', () => {
+    const doc1 = toEngineDocument(demo).doc;
+    buildWithReuse(doc1);
+    const moved = { ...demo, quotes: demo.quotes.map((q, i) => (i === 2 ? { ...q, maturity: '10W' } : q)) };
+    const doc2 = toEngineDocument(moved).doc;
+    expect(buildWithReuse(doc2).curve!.pillars).toEqual(buildCurve(doc2, { skipInvalid: true }).curve!.pillars);
+  });
+});
