@@ -16,6 +16,7 @@ import {
   type StrategyInputs,
 } from '../../../src/core/analysis/rollVsTerm.ts';
 import { rateFromLnDiscount } from '../../../src/core/rates/compounding.ts';
+import Decimal from 'decimal.js';
 import { expectClose } from '../../helpers/asserts.ts';
 
 const FABOZZI = 'Fabozzi, "Bond Markets, Analysis and Strategies", total return example (values from memory)';
@@ -145,5 +146,42 @@ describe('Tuckman and Serrat: carry and roll-down of a bond under an unchanged c
     expectClose(split.curveChange.toNumber(), 0, 1e-9, `${TUCKMAN}: an unchanged curve has no curve change`);
     const riding = r.value.views.find((v) => v.id === 'unchanged')!.strategies.find((s) => s.id === 'riding')!;
     expectClose(riding.terminal.toNumber(), 100 + carry + rollDown, 1e-9, `${TUCKMAN}: total = amount + carry + roll-down`);
+  });
+});
+
+describe('money-market break-even: rolling 3M into 3M against a 6M deposit (common practice, decimal.js as oracle)', () => {
+  // The rate the second 3M deposit must earn for two 3M deposits to match one 6M deposit, all
+  // simple ACT/360: r* = ((1 + r6 d6/360) / (1 + r3 d3/360) - 1) x 360 / (d6 - d3). Money-market
+  // forward arithmetic (common practice); the expected value is computed here in decimal.js, apart
+  // from the engine, from the two quoted rates and the day counts.
+  const S = '2026-03-16';
+  const curve = buildCurve(
+    {
+      format: 'tenorscope-workspace',
+      version: 1,
+      settlement: S,
+      curve: { dayCount: 'ACT/360', interpolation: 'linear-zero', extrapolation: 'none' },
+      quotes: [
+        { kind: 'deposit', tenor: '3M', rate: 0.0425 },
+        { kind: 'deposit', tenor: '6M', rate: 0.0445 },
+        { kind: 'deposit', tenor: '1Y', rate: 0.046 },
+      ],
+    },
+    {},
+  ).curve!;
+
+  it('matches ((1 + r6 d6/360)/(1 + r3 d3/360) - 1) 360/(d6 - d3)', () => {
+    const r = analyseRollVsTerm(curve, { ...DEFAULT_STRATEGY, horizon: '6M', rollTenor: '3M', rollDayCount: 'ACT/360', ridingMaturity: '1Y', view: 'unchanged' });
+    if (!r.ok) throw new Error(JSON.stringify(r.errors));
+    const d3 = 92; // 2026-03-16 to 2026-06-16
+    const d6 = 184; // 2026-03-16 to 2026-09-16
+    expect(r.value.legs.map((l) => l.days)).toEqual([d3, d6 - d3]);
+    const D = Decimal.clone({ precision: 40 });
+    const g6 = new D(1).plus(new D('0.0445').times(d6).div(360));
+    const g3 = new D(1).plus(new D('0.0425').times(d3).div(360));
+    const expected = g6.div(g3).minus(1).times(360).div(d6 - d3).toNumber();
+    expectClose(r.value.breakEvens.rollRate.zero!, expected, 1e-13, 'money-market forward, common practice; decimal.js oracle');
+    // leg 1 earns the 3M deposit rate itself
+    expectClose(r.value.legs[0]!.forward, 0.0425, 1e-15, 'leg 1 at the quoted 3M deposit rate (simple ACT/360)');
   });
 });
