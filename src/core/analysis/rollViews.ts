@@ -3,7 +3,7 @@ import { forwardOn } from '../curve/query.ts';
 import { coreError, fail, ok, type CoreWarning, type Result } from '../result.ts';
 import { compareIso, daysBetween, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
-import { addTenor, parseTenor, type Tenor } from '../time/tenor.ts';
+import { addTenor, type Tenor } from '../time/tenor.ts';
 import { curveSeenAtHorizon, impliedCurveAtHorizon, shiftedCurve } from './horizonCurve.ts';
 import type { RatePath, StrategyViewId } from './strategyInputs.ts';
 
@@ -275,4 +275,3 @@ export function constantRateSpec(spec: ViewSpec, r: number): ViewSpec {
   return { ...spec, stubGrowth: (_k, _from, _to, tau) => 1 + r * tau };
 }
 
-export const parseRollTenor = (text: string): Tenor => parseTenor(text) ?? { n: 3, unit: 'M' };

@@ -310,11 +310,16 @@ function ridingSplit(ctx: RollContext, rv: RollView, amount: Money): RidingSplit
   };
 }
 
+/** Money after each roll leg: V_k = V_{k-1} x (1 + r_k tau_k), V_0 = the amount (decimal.js products, unrounded). */
 function rollValuesOf(amount: Money, rv: RollView): Money[] {
   let v = amount;
   return rv.legGrowth.map((g) => (v = moneyTimes(v, g)));
 }
 
+/**
+ * Points to draw (float64, money): rolling as the value after each leg at its end date; each term
+ * strategy as A g^(t/T) on 49 points, its constant annualised pace; t in years ACT/365F.
+ */
 function growthSeries(ctx: RollContext, rv: RollView, outcome: ViewOutcome, amount: Money, years: number): GrowthSeries[] {
   const A = amount.toNumber();
   const S = ctx.curve.settlement;
