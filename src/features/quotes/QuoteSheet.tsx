@@ -13,6 +13,9 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
+/** Short column headings (the full names label the cells). */
+const HEADER_TEXT: Readonly<Record<QuoteColumn, string>> = { kind: 'Kind', maturity: 'Maturity', rate: 'Rate', price: 'Price', coupon: 'Cpn', frequency: 'Freq', dayCount: 'Day count' };
+
 /** Hints shown in a fresh (blank) row only, so they are never mistaken for values. */
 const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
   kind: 'kind',
@@ -235,10 +238,10 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
                 On
               </th>
               {QUOTE_COLUMNS.map((c) => (
-                <th role="columnheader" scope="col" key={c} className={c}>
-                  {QUOTE_COLUMN_LABEL[c]}
+                <th role="columnheader" scope="col" key={c} className={c} title={QUOTE_COLUMN_LABEL[c]}>
+                  {HEADER_TEXT[c]}
                   {(c === 'rate' || c === 'coupon') && <span className="unit"> ({UNIT_TEXT[unit]})</span>}
-                  {c === 'price' && <span className="unit"> (per 100)</span>}
+                  
                 </th>
               ))}
               <th role="columnheader" scope="col" className="actions">
