@@ -31,25 +31,30 @@ export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<nu
   }
   // On segment i, with h = t_i - t_(i-1), a = (t_i - x)/h, b = (x - t_(i-1))/h:
   // z = a z_(i-1) + b z_i + ((a^3 - a) M_(i-1) + (b^3 - b) M_i) h^2 / 6.
+  // Performance: zeroAndSlope writes into this pair instead of allocating one per call; callers
+  // read it at once.
+  const pair: [number, number] = [0, 0];
   const zeroAndSlope = (x: number, i: number): [number, number] => {
     const h = t[i]! - t[i - 1]!;
     const a = (t[i]! - x) / h;
     const b = 1 - a;
     const zi = a * z[i - 1]! + b * z[i]! + ((a * a * a - a) * M[i - 1]! + (b * b * b - b) * M[i]!) * (h * h) / 6;
     const slope = (z[i]! - z[i - 1]!) / h + (-(3 * a * a - 1) * M[i - 1]! + (3 * b * b - 1) * M[i]!) * h / 6;
-    return [zi, slope];
+    pair[0] = zi;
+    pair[1] = slope;
+    return pair;
   };
   return {
     lnDiscount(x) {
       if (x >= t[n]!) {
-        const [zn, sn] = zeroAndSlope(t[n]!, n);
-        return -(zn + sn * (x - t[n]!)) * x; // only at x = t_n in normal use
+        const p = zeroAndSlope(t[n]!, n);
+        return -(p[0] + p[1] * (x - t[n]!)) * x; // only at x = t_n in normal use
       }
       return -zeroAndSlope(x, segmentIndex(t, n, x))[0] * x;
     },
     forward(x) {
-      const [zi, s] = zeroAndSlope(x, Math.min(segmentIndex(t, n, x), n));
-      return zi + x * s;
+      const p = zeroAndSlope(x, Math.min(segmentIndex(t, n, x), n));
+      return p[0] + x * p[1];
     },
   };
 }

@@ -40,44 +40,52 @@ export function monotoneConvexFactory(positive: boolean) {
       f[n] = collar(f[n]!, 2 * d[n]!);
     }
 
+    // Performance: gAndIntegral writes into this pair instead of allocating one per call (it runs
+    // for every flow at every solver step of the bootstrap); callers read it at once.
+    const pair: [number, number] = [0, 0];
+    const out = (g: number, G: number): [number, number] => {
+      pair[0] = g;
+      pair[1] = G;
+      return pair;
+    };
     /** g(x) and its integral G(x) = int_0^x g on segment i. */
     const gAndIntegral = (i: number, x: number): [number, number] => {
       const g0 = f[i - 1]! - d[i]!;
       const g1 = f[i]! - d[i]!;
-      if (g0 === 0 && g1 === 0) return [0, 0];
+      if (g0 === 0 && g1 === 0) return out(0, 0);
       // Region (i): g0, g1 of opposite signs within a factor of 2.
       if ((g0 < 0 && -0.5 * g0 <= g1 && g1 <= -2 * g0) || (g0 > 0 && -0.5 * g0 >= g1 && g1 >= -2 * g0)) {
         const g = g0 * (1 - 4 * x + 3 * x * x) + g1 * (-2 * x + 3 * x * x);
         const G = g0 * (x - 2 * x * x + x * x * x) + g1 * (-x * x + x * x * x);
-        return [g, G];
+        return out(g, G);
       }
       // Region (ii): flat at g0, then a quadratic rise to g1.
       if ((g0 < 0 && g1 > -2 * g0) || (g0 > 0 && g1 < -2 * g0)) {
         const eta = (g1 + 2 * g0) / (g1 - g0);
-        if (x <= eta) return [g0, g0 * x];
+        if (x <= eta) return out(g0, g0 * x);
         const u = (x - eta) / (1 - eta);
-        return [g0 + (g1 - g0) * u * u, g0 * x + ((g1 - g0) * (x - eta) * u * u) / 3];
+        return out(g0 + (g1 - g0) * u * u, g0 * x + ((g1 - g0) * (x - eta) * u * u) / 3);
       }
       // Region (iii): a quadratic from g0, then flat at g1.
       if ((g0 > 0 && 0 > g1 && g1 > -0.5 * g0) || (g0 < 0 && 0 < g1 && g1 < -0.5 * g0)) {
         const eta = (3 * g1) / (g1 - g0);
         if (x < eta) {
           const u = (eta - x) / eta;
-          return [g1 + (g0 - g1) * u * u, g1 * x + ((g0 - g1) * eta * (1 - u * u * u)) / 3];
+          return out(g1 + (g0 - g1) * u * u, g1 * x + ((g0 - g1) * eta * (1 - u * u * u)) / 3);
         }
-        return [g1, g1 * x + ((g0 - g1) * eta) / 3];
+        return out(g1, g1 * x + ((g0 - g1) * eta) / 3);
       }
       // Region (iv): g0 and g1 of the same sign (or one of them zero).
       const eta = g1 / (g1 + g0);
       const A = (-g0 * g1) / (g0 + g1);
       if (x < eta) {
         const u = (eta - x) / eta;
-        return [A + (g0 - A) * u * u, A * x + ((g0 - A) * eta * (1 - u * u * u)) / 3];
+        return out(A + (g0 - A) * u * u, A * x + ((g0 - A) * eta * (1 - u * u * u)) / 3);
       }
       const base = A * x + ((g0 - A) * eta) / 3;
-      if (eta >= 1) return [A, base];
+      if (eta >= 1) return out(A, base);
       const u = (x - eta) / (1 - eta);
-      return [A + (g1 - A) * u * u, base + ((g1 - A) * (x - eta) * u * u) / 3];
+      return out(A + (g1 - A) * u * u, base + ((g1 - A) * (x - eta) * u * u) / 3);
     };
 
     return {
