@@ -83,10 +83,26 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     }
     const tv = ts.subarray(0, m + 1);
     const yv = ys.subarray(0, m + 1);
+    const { times, amounts } = ins;
+    // Performance: with a locality (monotone convex on the full curve) the flows at or before
+    // t_(k - locality) do not move with node k: they are summed once, not at every solver step.
+    let fixed = 0;
+    let first = 0;
+    if (m === n && spec.locality !== undefined && k - spec.locality >= 1) {
+      const tFixed = ts[k - spec.locality]!;
+      yv[k] = x0;
+      const interp = build(tv, yv);
+      while (first < times.length && times[first]! <= tFixed) {
+        fixed += amounts[first]! * Math.exp(interp.lnDiscount(times[first]!));
+        first++;
+      }
+    }
     const outcome = solveNode((x) => {
       yv[k] = x;
       const interp = build(tv, yv);
-      return presentValue(ins, (t) => interp.lnDiscount(t)) - ins.target;
+      let pv = fixed;
+      for (let j = first; j < times.length; j++) pv += amounts[j]! * Math.exp(interp.lnDiscount(times[j]!));
+      return pv - ins.target;
     }, x0);
     if (!outcome.ok) return solveFailure(ins, outcome.reason);
     return outcome.x;
@@ -97,6 +113,15 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const segAmount = new Float64Array(maxFlows);
   const segLn = new Float64Array(maxFlows);
   const segSlope = new Float64Array(maxFlows);
+  // Slopes of ln DF in each node for that node's own flows, kept across the cubic-zero sweeps.
+  const slopeOffset = new Int32Array(n + 1);
+  let totalFlows = 0;
+  for (let k = 1; k <= n; k++) {
+    slopeOffset[k] = totalFlows;
+    totalFlows += instruments[k - 1]!.times.length;
+  }
+  const slopeCache = new Float64Array(spec.global && spec.affine ? totalFlows : 0);
+  const slopeReady = new Uint8Array(n + 1);
 
   /**
    * Solves node k on an interpolation built on nodes 0..m whose ln DF is affine in each node
@@ -135,10 +160,21 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
         count++;
       }
     }
-    yv[k] = x0 + 1;
-    const b = build(tv, yv);
-    for (let j = 0; j < count; j++) segSlope[j] = b.lnDiscount(times[first + j]!) - segLn[j]!;
-    yv[k] = x0;
+    // On the full curve (local = false) the slopes depend on the knot times only, not on the node
+    // values, so they are computed in the first sweep and kept for the later ones.
+    const cached = !local && slopeReady[k] === 1;
+    if (cached) {
+      for (let j = 0; j < count; j++) segSlope[j] = slopeCache[slopeOffset[k]! + j]!;
+    } else {
+      yv[k] = x0 + 1;
+      const b = build(tv, yv);
+      for (let j = 0; j < count; j++) segSlope[j] = b.lnDiscount(times[first + j]!) - segLn[j]!;
+      yv[k] = x0;
+      if (!local) {
+        for (let j = 0; j < count; j++) slopeCache[slopeOffset[k]! + j] = segSlope[j]!;
+        slopeReady[k] = 1;
+      }
+    }
     const outcome = solveNode((x) => {
       const dx = x - x0;
       let pv = fixed;

@@ -9,11 +9,12 @@ export const INTERPOLATORS: Readonly<Record<InterpolationId, InterpolatorSpec>> 
   'linear-zero': { id: 'linear-zero', build: interpolatorLinearZero, global: false, affine: true, label: 'Linear zero' },
   'log-linear-discount': { id: 'log-linear-discount', build: interpolatorLogLinearDiscount, global: false, affine: true, label: 'Log-linear discount' },
   'cubic-zero': { id: 'cubic-zero', build: interpolatorCubicZero, global: true, affine: true, label: 'Cubic zero (natural)' },
-  'monotone-convex': { id: 'monotone-convex', build: interpolatorMonotoneConvex, global: true, label: 'Monotone convex' },
+  'monotone-convex': { id: 'monotone-convex', build: interpolatorMonotoneConvex, global: true, locality: 2, label: 'Monotone convex' },
   'monotone-convex-positive': {
     id: 'monotone-convex-positive',
     build: interpolatorMonotoneConvexPositive,
     global: true,
+    locality: 2,
     label: 'Monotone convex (positive)',
   },
 };

@@ -33,6 +33,13 @@ export interface InterpolatorSpec {
    * then solves a node from two builds instead of one build per solver step.
    */
   readonly affine?: boolean;
+  /**
+   * Set when ln DF at or before t_(k - locality) does not depend on node k, with the
+   * interpolation built on all nodes (monotone convex: 2, since node k moves d_k and d_(k+1), so
+   * the node forwards f_(k-1)..f_(k+1), so segments k-1..k+2 only). The bootstrap then sums those
+   * flows once per node solve.
+   */
+  readonly locality?: number;
   readonly label: string;
 }
 
