@@ -66,6 +66,8 @@ export interface ViewSpec {
   /** Growth of 1 placed at `from` until `to` inside leg k (0-based), from after today. */
   readonly stubGrowth: (k: number, from: IsoDate, to: IsoDate, tau: number) => number;
   readonly horizonCurve: Curve;
+  /** The rates of legs 2..n when the view sets them directly (index k for leg k+1; index 0 unused), reported as given instead of (growth - 1)/tau. */
+  readonly exactRates?: readonly number[];
 }
 
 /** A view applied to a roll schedule: the rates of every leg and the money-market growth to the horizon. */
@@ -91,7 +93,8 @@ const lnDf = (curve: Curve, date: IsoDate): number => (date === curve.settlement
 export function applyView(curve: Curve, legs: readonly RollLeg[], dayCount: CurveDayCount, spec: ViewSpec): RollView {
   const n = legs.length;
   const legGrowth = legs.map((leg, k) => (k === 0 ? Math.exp(-lnDf(curve, leg.end)) : spec.stubGrowth(k, leg.start, leg.end, leg.tau)));
-  const legRates = legs.map((leg, k) => (k === 0 ? leg.forward : leg.tau > 0 ? (legGrowth[k]! - 1) / leg.tau : 0));
+  const exact = spec.exactRates;
+  const legRates = legs.map((leg, k) => (k === 0 ? leg.forward : exact?.[k] !== undefined ? exact[k]! : leg.tau > 0 ? (legGrowth[k]! - 1) / leg.tau : 0));
   // suffix[k] = product of legGrowth[k..n-1]
   const suffix = new Float64Array(n + 1);
   suffix[n] = 1;
@@ -219,6 +222,7 @@ export function pathView(curve: Curve, horizon: IsoDate, legs: readonly RollLeg[
     description: 'Each leg after the first earns the rate of your path; the horizon curve is the implied curve moved by as much as your last rate differs from its forward.',
     stubGrowth: (k, _from, _to, tau) => 1 + (k === 0 ? legs[0]!.forward : rates[k]!) * tau,
     horizonCurve: shiftedCurve(impliedCurveAtHorizon(curve, horizon), lastMove * 10000),
+    exactRates: rates,
   };
 }
 
@@ -267,11 +271,13 @@ export function scenarioForwardsView(name: string, scenario: Curve, horizon: Iso
  */
 export function shiftedSpec(spec: ViewSpec, shiftBp: number): ViewSpec {
   const s = shiftBp / 10000;
-  return { ...spec, stubGrowth: (k, from, to, tau) => spec.stubGrowth(k, from, to, tau) + s * tau, horizonCurve: shiftedCurve(spec.horizonCurve, shiftBp) };
+  const { exactRates: _unused, ...rest } = spec;
+  return { ...rest, stubGrowth: (k, from, to, tau) => spec.stubGrowth(k, from, to, tau) + s * tau, horizonCurve: shiftedCurve(spec.horizonCurve, shiftBp) };
 }
 
 /** A constant roll rate r (decimal, simple, roll day count) for every rate set after today; the horizon curve kept from `spec`. */
 export function constantRateSpec(spec: ViewSpec, r: number): ViewSpec {
-  return { ...spec, stubGrowth: (_k, _from, _to, tau) => 1 + r * tau };
+  const { exactRates: _unused, ...rest } = spec;
+  return { ...rest, stubGrowth: (_k, _from, _to, tau) => 1 + r * tau };
 }
 
