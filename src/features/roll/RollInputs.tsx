@@ -24,10 +24,12 @@ export interface RollInputsProps {
   readonly views: readonly { readonly id: StrategyViewId; readonly label: string }[];
   /** Analysis errors by path (`strategy.horizon` ...), shown beside their field. */
   readonly errors: Readonly<Record<string, string>>;
+  /** The view actually shown (the saved one may name a scenario that is gone). */
+  readonly shownView?: StrategyViewId;
 }
 
 /** The strategy inputs: money, horizon, roll instrument, term alternatives, the chosen view. */
-export function RollInputs({ strategy, onChange, views, errors }: RollInputsProps) {
+export function RollInputs({ strategy, onChange, views, errors, shownView }: RollInputsProps) {
   const set = (patch: Partial<StrategyInputs>) => onChange({ ...strategy, ...patch });
   const setPath = (patch: Partial<StrategyInputs['path']>) => onChange({ ...strategy, path: { ...strategy.path, ...patch } });
   const rollTag = `%, simple ${strategy.rollDayCount}`;
@@ -51,7 +53,7 @@ export function RollInputs({ strategy, onChange, views, errors }: RollInputsProp
       </fieldset>
       <fieldset>
         <legend>View</legend>
-        <RollSelect label="Chosen view" value={strategy.view} options={views.map((v) => ({ value: v.id, label: v.label }))} onChange={(view) => set({ view })} />
+        <RollSelect label="Chosen view" value={shownView ?? strategy.view} options={views.map((v) => ({ value: v.id, label: v.label }))} onChange={(view) => set({ view })} />
         <RollField label="Parallel shift" unit="bp on the forwards" text={String(strategy.shiftBp)} parse={parseBpText} onCommit={(shiftBp) => set({ shiftBp })} width="5em" />
         <RollSelect label="Your path from" value={strategy.path.fill} options={PATH_FILLS.map((f) => ({ value: f, label: FILL_LABEL[f] }))} onChange={(fill) => setPath({ fill })} />
         {strategy.path.fill === 'constant' ? (

@@ -76,7 +76,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
           ))}
         </ul>
       ) : null}
-      <RollInputs strategy={strategy} onChange={onStrategyChange} views={views} errors={fieldErrors} />
+      <RollInputs strategy={strategy} onChange={onStrategyChange} views={views} errors={fieldErrors} {...(analysis ? { shownView: analysis.views[analysis.chosen]!.id } : {})} />
       {!curve ? (
         <p className="roll-empty" role="status">
           No curve yet: enter valid quotes and the comparison appears here. Your inputs are kept.
