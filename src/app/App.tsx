@@ -39,13 +39,15 @@ export function App() {
       <StorageBanner />
       <SettingsBar />
       <main className="workbench">
-        <QuoteSheet result={result} />
+        <div className="left">
+          <QuoteSheet result={result} />
+          <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
+        </div>
         <div className="right">
           <CurvesPanel result={result} />
           <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
             {Roll ? <Roll result={result} /> : <p className="muted small">Roll versus term: panel slot (not installed in this build).</p>}
           </section>
-          <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
         </div>
       </main>
       <footer className="foot">

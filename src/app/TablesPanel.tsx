@@ -5,12 +5,9 @@ import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
 import { QuoteCheckTable } from '../features/tables/QuoteCheckTable.tsx';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { useAppStore } from '../state/store.ts';
+import type { WorkbenchTab } from './extensions.tsx';
 
-interface TabDef {
-  readonly id: string;
-  readonly label: string;
-  readonly render: (props: { result: WorkbenchBuild }) => ReactNode;
-}
+type TabDef = WorkbenchTab;
 
 const needCurve = (f: (r: WorkbenchBuild) => ReactNode) => ({ result }: { result: WorkbenchBuild }) =>
   result.build.curve ? f(result) : <p className="empty">No curve: {result.fatal}</p>;

@@ -19,7 +19,9 @@ export function KeyMaturitiesTable({ curve }: { curve: Curve }) {
         <tr>
           <th scope="col">Tenor</th>
           <th scope="col">Date</th>
-          <th scope="col">t (years, {curve.dayCount})</th>
+          <th scope="col">
+            t (years) <span className="tag">{curve.dayCount}</span>
+          </th>
           <th scope="col">Discount factor</th>
           <th scope="col">
             Zero rate <span className="tag">{tag}</span>
@@ -28,7 +30,7 @@ export function KeyMaturitiesTable({ curve }: { curve: Curve }) {
             Par yield <span className="tag">{couponTag(display.parFrequency, 'ACT/ACT-ICMA')}</span>
           </th>
           <th scope="col">
-            {display.forwardTenor} forward from date <span className="tag">{tag}</span>
+            {display.forwardTenor} forward starting then <span className="tag">{tag}</span>
           </th>
         </tr>
       </thead>
