@@ -49,3 +49,21 @@ describe('solveLinear (Gaussian elimination with partial pivoting)', () => {
     expect(solveLinear(Float64Array.from([1, 2, 2, 4]), Float64Array.from([1, 2]), 2)).toBeNull();
   });
 });
+
+describe('global sweeps stop at the rounding floor (regression)', () => {
+  // The invented 40-quote benchmark market: cubic-zero's sweeps used to reach a node change of
+  // 1.11e-15 (5 ulps of ln DF) and stay there, running all 100 sweeps.
+  it('cubic-zero and monotone-convex converge in a handful of sweeps on market40', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { validateWorkspace, compileMarket, bootstrapInstruments } = await import('../../../src/core/index.ts');
+    const doc = JSON.parse(readFileSync(new URL('../../fixtures/market40/market40.json', import.meta.url), 'utf8'));
+    const ws = validateWorkspace(doc).workspace!;
+    const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false);
+    for (const interpolation of ['cubic-zero', 'monotone-convex'] as const) {
+      const out = bootstrapInstruments({ settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation, extrapolation: 'none' }, market.instruments);
+      expect(out.errors).toEqual([]);
+      expect(out.sweeps).toBeLessThanOrEqual(10);
+      for (const r of out.repricing) expect(Math.abs(r.repricingError)).toBeLessThanOrEqual(r.unit === 'price' ? 1e-11 : 1e-14);
+    }
+  });
+});
