@@ -4,7 +4,7 @@ import { addTenor, parseTenor } from '../time/tenor.ts';
 import { shiftedCurve } from './horizonCurve.ts';
 import { brentRoot } from './rollSolve.ts';
 import { constantRateSpec, shiftedSpec, type RollView } from './rollViews.ts';
-import { bondPriceFromYieldOn, bondYieldFromPriceOn, parBondOn } from './strategyBonds.ts';
+import { bondPricerOn, bondYieldFromPriceOn, parBondOn } from './strategyBonds.ts';
 import { bondAtHorizon, strategyGrowths, TERM_STRATEGY_IDS, type RollContext, type StrategyId, type TermStrategyId } from './strategyValues.ts';
 
 /**
@@ -136,7 +136,8 @@ export function breakEvenCurve(ctx: RollContext): BreakEvenPoint[] {
       if (compareIso(f.date, horizon) <= 0) coupons += f.amount * Math.exp(curve.lnDiscountAt(curve.time(f.date)) - lnH);
     }
     const target = 100 / Math.exp(lnH);
-    const root = crossing((dy) => coupons + bondPriceFromYieldOn(bond.value, horizon, y.value + dy) - target, -0.5, 1, 1e-15);
+    const price = bondPricerOn(bond.value, horizon);
+    const root = crossing((dy) => coupons + price(y.value + dy) - target, -0.5, 1, 1e-15);
     out.push({ tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root === null ? null : root * 10000 });
   }
   return out;

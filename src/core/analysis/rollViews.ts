@@ -87,7 +87,24 @@ export interface RollView {
   readonly spec: ViewSpec;
 }
 
-const lnDf = (curve: Curve, date: IsoDate): number => (date === curve.settlement ? 0 : curve.lnDiscountAt(curve.time(date)));
+/**
+ * ln DF of a curve at a date, memoised per curve object (curves are immutable, so the memo changes
+ * no result; it spares re-reading the same leg dates in every solver step).
+ */
+const lnMemo = new WeakMap<Curve, Map<IsoDate, number>>();
+function lnDf(curve: Curve, date: IsoDate): number {
+  let memo = lnMemo.get(curve);
+  if (!memo) {
+    memo = new Map();
+    lnMemo.set(curve, memo);
+  }
+  let v = memo.get(date);
+  if (v === undefined) {
+    v = date === curve.settlement ? 0 : curve.lnDiscountAt(curve.time(date));
+    memo.set(date, v);
+  }
+  return v;
+}
 
 /** Applies a view to the legs. Leg 1 grows at today's spot, DF(S)/DF(e_1) = 1 + r_1 tau_1. */
 export function applyView(curve: Curve, legs: readonly RollLeg[], dayCount: CurveDayCount, spec: ViewSpec): RollView {

@@ -63,15 +63,25 @@ function icmaFraction(bond: TermBond, date: IsoDate): number {
  * memory); common practice.
  */
 export function bondPriceFromYieldOn(bond: TermBond, date: IsoDate, y: number): number {
+  return bondPricerOn(bond, date)(y);
+}
+
+/**
+ * bondPriceFromYieldOn with the schedule work done once: returns y -> dirty price per 100 on
+ * `date` (same formula), for solvers that price one bond at many yields.
+ */
+export function bondPricerOn(bond: TermBond, date: IsoDate): (y: number) => number {
   const after = bond.flows.filter((f) => compareIso(f.date, date) > 0);
-  if (after.length === 0) return 0;
+  if (after.length === 0) return () => 0;
   const w = icmaFraction(bond, date);
-  const lnV = -Math.log1p(y / bond.frequency);
-  let price = 0;
-  after.forEach((f, k) => {
-    price += f.amount * Math.exp((w + k) * lnV);
-  });
-  return price;
+  const amounts = Float64Array.from(after, (f) => f.amount);
+  const f = bond.frequency;
+  return (y) => {
+    const lnV = -Math.log1p(y / f);
+    let price = 0;
+    for (let k = 0; k < amounts.length; k++) price += amounts[k]! * Math.exp((w + k) * lnV);
+    return price;
+  };
 }
 
 /**
@@ -79,7 +89,8 @@ export function bondPriceFromYieldOn(bond: TermBond, date: IsoDate, y: number): 
  * `date` are worth `dirty` per 100; Brent's method on (-0.9 f, 2). Fails when there is none.
  */
 export function bondYieldFromPriceOn(bond: TermBond, date: IsoDate, dirty: number, path = 'yield'): Result<number> {
-  const root = brentRoot((y) => bondPriceFromYieldOn(bond, date, y) - dirty, -0.9 * bond.frequency, 2, 1e-15);
+  const price = bondPricerOn(bond, date);
+  const root = brentRoot((y) => price(y) - dirty, -0.9 * bond.frequency, 2, 1e-15);
   if (root === null) {
     return fail({ path, quote: null, code: 'no-solution', message: `${path}: no yield between -90 % and 200 % prices the bond at ${dirty} per 100 on ${date}` });
   }
