@@ -32,9 +32,10 @@ beforeEach(() => {
   localStorage.clear();
 });
 
-describe('scenario, snapshot and print tabs mounted in the workbench', () => {
+// Limit for a hung render, not a speed check: the full App renders slowly under a parallel suite.
+describe('scenario, snapshot and print tabs mounted in the workbench', { timeout: 30_000 }, () => {
   it('adds a scenario into the document and shows its changes', async () => {
-    const user = userEvent.setup();
+    const user = userEvent.setup({ delay: null });
     render(<App />);
     await user.click(screen.getByRole('tab', { name: 'Scenarios' }));
     await user.type(screen.getByLabelText('Name'), 'Up 10');
@@ -49,7 +50,7 @@ describe('scenario, snapshot and print tabs mounted in the workbench', () => {
   });
 
   it('takes a snapshot that rebuilds the same and differs by 0 bp', async () => {
-    const user = userEvent.setup();
+    const user = userEvent.setup({ delay: null });
     render(<App />);
     await user.click(screen.getByRole('tab', { name: 'Snapshots' }));
     await user.type(screen.getByLabelText('Snapshot name'), 'Close');
@@ -62,7 +63,7 @@ describe('scenario, snapshot and print tabs mounted in the workbench', () => {
   });
 
   it('previews the printed summary with the caution and the build id', async () => {
-    const user = userEvent.setup();
+    const user = userEvent.setup({ delay: null });
     render(<App />);
     await user.click(screen.getByRole('tab', { name: 'Print' }));
     // The on-screen preview and the print root (hidden on screen by the print CSS, which jsdom does not apply).

@@ -31,7 +31,7 @@ function Harness({ initial, onChange }: { initial: unknown; onChange?: (s: Scena
 
 describe('ScenarioPanel', () => {
   it('adds a parallel scenario and shows +25.00 bp zero changes at every key maturity', async () => {
-    const user = userEvent.setup();
+    const user = userEvent.setup({ delay: null });
     const changes: Scenario[][] = [];
     render(<Harness initial={undefined} onChange={(s) => changes.push(s)} />);
     await user.type(screen.getByLabelText('Name'), 'Up 25');
@@ -44,7 +44,7 @@ describe('ScenarioPanel', () => {
   });
 
   it('adds a steepener in quote space with a fresh id and its pivot on the chart', async () => {
-    const user = userEvent.setup();
+    const user = userEvent.setup({ delay: null });
     const changes: Scenario[][] = [];
     render(<Harness initial={[{ id: 's1', name: 'A', space: 'zero', shape: { kind: 'parallel', bp: 1 } }]} onChange={(s) => changes.push(s)} />);
     await user.selectOptions(screen.getByLabelText('Shape'), 'twist');
@@ -58,7 +58,7 @@ describe('ScenarioPanel', () => {
   });
 
   it('says what is wrong with a typed shift instead of adding it', async () => {
-    const user = userEvent.setup();
+    const user = userEvent.setup({ delay: null });
     const changes: Scenario[][] = [];
     render(<Harness initial={[]} onChange={(s) => changes.push(s)} />);
     const bp = screen.getByLabelText('Shift (bp)');
@@ -77,7 +77,7 @@ describe('ScenarioPanel', () => {
   });
 
   it('removes a scenario', async () => {
-    const user = userEvent.setup();
+    const user = userEvent.setup({ delay: null });
     const changes: Scenario[][] = [];
     render(<Harness initial={[{ id: 's1', name: 'A', space: 'zero', shape: { kind: 'parallel', bp: 1 } }]} onChange={(s) => changes.push(s)} />);
     await user.click(screen.getByRole('button', { name: 'Remove scenario A' }));
