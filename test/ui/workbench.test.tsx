@@ -10,6 +10,9 @@ import { toEngineDocument } from '../../src/core/input/index.ts';
 import { startPersistence, STORAGE_KEY } from '../../src/state/persistence.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
+// A limit for a hung render, not a speed check: the whole App renders slowly in jsdom under a parallel suite.
+vi.setConfig({ testTimeout: 30_000 });
+
 const initial = useAppStore.getInitialState();
 let stopPersistence: (() => void) | null = null;
 beforeEach(() => {
