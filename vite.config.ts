@@ -13,6 +13,10 @@ export default defineConfig({
     globals: true,
     environment: 'node',
     setupFiles: ['test/setup.ts'],
+    // Whole-app component tests render the workbench in jsdom; on a loaded 2-core machine they take
+    // seconds. This is a hang guard, not a speed check (speed is measured by the benchmarks).
+    testTimeout: 60_000,
+    hookTimeout: 60_000,
     include: ['test/**/*.test.ts', 'test/**/*.test.tsx'],
     exclude: ['test/browser/**', 'node_modules/**'],
   },
