@@ -30,8 +30,8 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
         <caption>
           Roll legs of {analysis.rollTenor} to {analysis.horizon}{' '}
           <span className="muted small">
-            rates in % <span className="tag">{tag}</span>; leg 1 is bought today at the spot rate
-            {editing ? '; type a rate to set your path leg by leg' : ''}
+            rates in % <span className="tag">{tag}</span>; leg 1 is bought today at the spot rate; type a rate in
+            the &ldquo;Your path&rdquo; column to set your path leg by leg
           </span>
         </caption>
         <thead>
@@ -42,8 +42,13 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
             <th scope="col" className="num">Days</th>
             <th scope="col" className="num">Year fraction ({analysis.rollDayCount})</th>
             <th scope="col" className="num">Today&rsquo;s forward (%, {tag})</th>
+            {editing ? null : (
+              <th scope="col" className="num">
+                {chosen.label} (%, {tag})
+              </th>
+            )}
             <th scope="col" className="num">
-              {chosen.label} (%, {tag})
+              Your path (%, {tag}; type to set)
             </th>
             <th scope="col" className="num">Value after leg ({MONEY_UNIT})</th>
           </tr>
@@ -60,11 +65,12 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
               <td className="num">{leg.days}</td>
               <td className="num">{leg.tau.toFixed(6)}</td>
               <td className="num">{formatRate(leg.forward, 4)}</td>
+              {editing ? null : <td className="num">{formatRate(chosen.legRates[k]!, 4)}</td>}
               <td className="num">
-                {editing && k > 0 ? (
-                  <RollField label={`Leg ${leg.index} rate`} text={percentText(chosen.legRates[k]!)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="5.5em" />
+                {k > 0 ? (
+                  <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="5.5em" />
                 ) : (
-                  formatRate(chosen.legRates[k]!, 4)
+                  <span title="bought today">{formatRate(path.legRates[k]!, 4)}</span>
                 )}
               </td>
               <td className="num">{formatMoney(analysis.rollValues[k]!)}</td>
