@@ -4,6 +4,7 @@
 // here the panel must show them with their units and keep what the user types.
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import axe from 'axe-core';
 import { fitCurve, validateWorkspace } from '../../src/core/index.ts';
 import { FitPanel } from '../../src/features/fit/FitPanel.tsx';
 
@@ -64,5 +65,10 @@ describe('FitPanel', () => {
     expect(screen.getByRole('table', { name: 'Fitted parameters' })).toHaveTextContent('τ2 (years)');
     await user.selectOptions(screen.getByRole('combobox', { name: 'Model' }), 'none');
     expect(screen.getByRole('status')).toHaveTextContent('No fit chosen');
+  });
+  it('has no accessibility violations found by axe-core (WCAG 2 A and AA rules; colour contrast needs a real renderer)', async () => {
+    const { container } = render(<FitPanel workspace={ws} />);
+    const result = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
+    expect(result.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
   });
 });

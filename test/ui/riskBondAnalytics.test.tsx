@@ -3,6 +3,7 @@
 // market price, the DV01 to each quote, and a typing mistake kept with a message.
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import axe from 'axe-core';
 import { analyzeBond, buildCurve } from '../../src/core/index.ts';
 import { num } from '../../src/components/format.ts';
 import { BondAnalyticsPanel } from '../../src/features/risk/BondAnalyticsPanel.tsx';
@@ -62,5 +63,10 @@ describe('BondAnalyticsPanel', () => {
     await user.clear(maturity);
     await user.type(maturity, '40Y');
     expect(screen.getByRole('alert')).toHaveTextContent(/beyond the curve's last pillar/);
+  });
+  it('has no accessibility violations found by axe-core (WCAG 2 A and AA rules; colour contrast needs a real renderer)', async () => {
+    const { container } = render(<BondAnalyticsPanel curve={curve} workspace={build.workspace} initial={{ quoteKind: 'yield', quote: '4.1' }} />);
+    const result = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
+    expect(result.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
   });
 });

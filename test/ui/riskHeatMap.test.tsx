@@ -3,6 +3,7 @@
 // core's values, and the interpolation selectable (log-linear keeps a short quote's influence local).
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import axe from 'axe-core';
 import { sensitivityMapFor, validateWorkspace } from '../../src/core/index.ts';
 import { SensitivityHeatMap } from '../../src/features/risk/SensitivityHeatMap.tsx';
 
@@ -49,5 +50,10 @@ describe('SensitivityHeatMap', () => {
     render(<SensitivityHeatMap workspace={short} />);
     await user.selectOptions(screen.getByRole('combobox', { name: 'Forward tenor' }), '1Y');
     expect(screen.getByRole('alert')).toHaveTextContent(/choose a shorter tenor/);
+  });
+  it('has no accessibility violations found by axe-core (WCAG 2 A and AA rules; colour contrast needs a real renderer)', async () => {
+    const { container } = render(<SensitivityHeatMap workspace={ws} />);
+    const result = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
+    expect(result.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
   });
 });
