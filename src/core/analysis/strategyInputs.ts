@@ -234,8 +234,8 @@ export function parsePercentText(text: string): TextParse<number> {
   return { ok: true, value };
 }
 
-/** A decimal rate as percent text for an input: 0.0425 -> "4.25" (up to 6 decimals, no trailing zeros). */
-export const percentText = (rate: number): string => new MoneyDecimal(rate).times(100).toDecimalPlaces(6).toFixed();
+/** A decimal rate as percent text for an input: 0.0425 -> "4.25" (up to `digits` decimals, default 6, no trailing zeros). */
+export const percentText = (rate: number, digits = 6): string => new MoneyDecimal(rate).times(100).toDecimalPlaces(digits).toFixed();
 
 /** Basis points typed as a number ("-25", "12.5"), from -SHIFT_BP_MAX to SHIFT_BP_MAX. */
 export function parseBpText(text: string): TextParse<number> {

@@ -68,7 +68,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
               {editing ? null : <td className="num">{formatRate(chosen.legRates[k]!, 4)}</td>}
               <td className="num">
                 {k > 0 ? (
-                  <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="5.5em" />
+                  <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!, 4)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="6em" />
                 ) : (
                   <span title="bought today">{formatRate(path.legRates[k]!, 4)}</span>
                 )}
