@@ -39,12 +39,12 @@ export function App() {
       <StorageBanner />
       <SettingsBar />
       <main className="workbench">
-        <div className="left">
+        <div className="row row-top">
           <QuoteSheet result={result} />
-          <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
-        </div>
-        <div className="right">
           <CurvesPanel result={result} />
+        </div>
+        <div className="row row-bottom">
+          <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
           <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
             {Roll ? <Roll result={result} /> : <p className="muted small">Roll versus term: panel slot (not installed in this build).</p>}
           </section>

@@ -135,6 +135,32 @@ describe('the workbench in Chromium', () => {
     await screenshot(page, 'workbench-methods-sqrt');
   });
 
+  it('shows the schedule of a swap and the forward grid', async () => {
+    await page.getByRole('tab', { name: 'Quote check' }).click();
+    await page.getByRole('table', { name: 'Quote check' }).getByRole('button', { name: '9', exact: true }).click();
+    const schedule = page.getByRole('table', { name: 'Schedule of row 9' });
+    expect(await schedule.locator('tbody tr').count()).toBe(10); // a 10Y annual fixed leg
+    await screenshot(page, 'workbench-quote-check');
+    await page.getByRole('tab', { name: 'Forward grid' }).click();
+    expect(await page.getByRole('table', { name: 'Forward grid' }).locator('td[data-cell="5Yx5Y"]').innerText()).toMatch(/^\d\.\d{4}%$/);
+    await screenshot(page, 'workbench-forward-grid');
+  });
+
+  it('a second tab on the same workspace is detected and warned about in both', async () => {
+    const second = await page.context().newPage();
+    await second.goto(server!.url, { waitUntil: 'load' });
+    await second.getByRole('grid', { name: /Quotes/ }).waitFor();
+    await second.getByText(/also open in another tab/).waitFor({ timeout: 10_000 });
+    await page.getByText(/also open in another tab/).waitFor({ timeout: 10_000 });
+    // An edit in the second tab is saved; the first tab pauses instead of overwriting it.
+    await second.getByRole('textbox', { name: 'Row 1 Rate / yield' }).fill('3.91');
+    await page.getByText(/Another tab saved a different version/).waitFor({ timeout: 10_000 });
+    await screenshot(page, 'workbench-two-tabs');
+    await page.getByRole('button', { name: /Load the other tab/ }).click();
+    expect(await page.getByRole('textbox', { name: 'Row 1 Rate / yield' }).inputValue()).toBe('3.91');
+    await second.close();
+  });
+
   it('ran without page errors, console errors or failed requests', () => {
     expect(diagnostics(page)).toEqual({ pageErrors: [], consoleErrors: [], failedRequests: [], blockedRequests: [] });
   });

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import type { Curve, Quote, Repricing } from '../../core/index.ts';
 import { bondScheduleRows, swapScheduleRows, type QuoteSchedule } from '../../core/input/index.ts';
-import { num, pct } from '../../components/format.ts';
+import { couponTag, num, pct } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 
@@ -15,15 +15,17 @@ export function quoteTag(q: Quote, field: string): string {
     case 'zero':
       return field === 'price' ? 'per 100' : `${q.compounding === 'continuous' ? 'cont' : q.compounding}, ${q.dayCount}`;
     case 'bond':
-      return field === 'cleanPrice' ? 'clean, per 100' : `${q.frequency}/yr, ${q.dayCount}`;
+      return field === 'cleanPrice' ? 'clean, per 100' : couponTag(q.frequency, q.dayCount);
     case 'swap':
-      return `${q.frequency}/yr, ${q.dayCount}`;
+      return couponTag(q.frequency, q.dayCount);
   }
 }
 
 const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? num(v, 6) : pct(v, 6));
 /** Repricing error: bp for a rate quote, per 100 face for a price quote. */
-const showError = (r: Repricing): string => (r.unit === 'price' ? `${num(r.repricingError, 10)} per 100` : `${num(r.repricingError * 1e4, 6)} bp`);
+const small = (x: number, unit: string): string =>
+  !Number.isFinite(x) ? '\u2014' : x === 0 ? `0 ${unit}` : Math.abs(x) < 1e-4 ? `${x.toExponential(1).replace('-', '\u2212').replace('e\u2212', 'e-')} ${unit}` : `${num(x, 6)} ${unit}`;
+const showError = (r: Repricing): string => (r.unit === 'price' ? small(r.repricingError, 'per 100') : small(r.repricingError * 1e4, 'bp'));
 
 /** Every quote against the curve: implied quote, repricing error, pillar date, t; a schedule for bonds and swaps. */
 export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
