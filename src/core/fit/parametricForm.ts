@@ -76,10 +76,10 @@ export function projectParams(model: FitModel, v: Float64Array, ratio = TAU_RATI
     let t1 = v[4]!;
     let t2 = clampTau(v[5]!);
     if (t2 < ratio * t1) {
-      // Move both to the ratio line, keeping their geometric mean, inside the box.
-      const g = Math.sqrt(t1 * t2);
-      t1 = g / Math.sqrt(ratio);
-      t2 = g * Math.sqrt(ratio);
+      // The nearest point of the line tau2 = ratio x tau1 (Euclidean projection), inside the box.
+      const s = (t1 + ratio * t2) / (1 + ratio * ratio);
+      t1 = s;
+      t2 = ratio * s;
       if (t1 < TAU_MIN) {
         t1 = TAU_MIN;
         t2 = ratio * TAU_MIN;

@@ -61,7 +61,7 @@ describe('projectParams keeps the fit inside its bounds', () => {
     const v = Float64Array.from([0.03, -0.01, 0.01, 0.02, 4, 5]);
     projectParams('svensson', v);
     expectClose(v[5]! / v[4]!, 1.5, 1e-12, 'ratio bound tau2 / tau1 = 1.5');
-    expectClose(Math.sqrt(v[4]! * v[5]!), Math.sqrt(20), 1e-12, 'projection keeps the geometric mean of the taus');
+    expectClose(v[4]!, (4 + 1.5 * 5) / (1 + 1.5 * 1.5), 1e-12, 'Euclidean projection onto tau2 = 1.5 tau1: tau1 = (a + 1.5 b) / (1 + 1.5^2)');
     const w = Float64Array.from([-0.02, 0, 0, 0.01]);
     projectParams('nelson-siegel', w);
     expectClose(w[3]!, TAU_MIN, 0, 'tau below 0.05 is set to 0.05');
