@@ -7,7 +7,8 @@ import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { EXTENSIONS } from '../../src/app/extensions.tsx';
-import { RollSlot } from '../../src/features/roll/RollSlot.tsx';
+import { RollResultLine, RollSlot } from '../../src/features/roll/RollSlot.tsx';
+import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
 const initial = useAppStore.getInitialState();
@@ -56,5 +57,14 @@ describe('roll panel mounted in the workbench', () => {
     const problems = within(rollRegion()).getByRole('alert', { name: /Problems in the saved strategy/ });
     expect(problems).toHaveTextContent(/strategy\.horizon: must be a tenor such as "2Y"/);
     expect(within(rollRegion()).getByText(/^Under an unchanged curve, /)).toBeInTheDocument();
+  });
+
+  it('gives the printed summary the same result sentence as the panel', () => {
+    const result = deriveBuild(useAppStore.getState().workspace);
+    const { container } = render(<RollResultLine result={result} />);
+    const line = container.querySelector('.roll-result-line')!;
+    expect(line.textContent).toMatch(/^Under an unchanged curve, .* \(simple, ACT\/360\)\.$/);
+    render(<App />);
+    expect(rollRegion().querySelector('.roll-sentence')!.textContent).toBe(line.textContent);
   });
 });
