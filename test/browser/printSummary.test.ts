@@ -36,6 +36,10 @@ async function printed(query: string, format: 'A4' | 'Letter', name: string): Pr
   await page.waitForFunction(() => document.body.dataset.ready === 'true', undefined, { timeout: 20_000 });
   const pdf = path.join(OUT, `${name}.pdf`);
   writeFileSync(pdf, await page.pdf({ format, printBackground: true }));
+  await page.emulateMedia({ media: 'print' });
+  // Nothing clipped: the page box holds its whole content.
+  const fits = await page.locator('.print-summary').evaluate((el) => el.scrollHeight <= el.clientHeight && el.scrollWidth <= el.clientWidth);
+  expect(fits, 'the summary overflows its page box (content would be clipped)').toBe(true);
   execFileSync('pdftoppm', ['-png', '-r', '70', '-f', '1', '-l', '1', '-singlefile', pdf, path.join(OUT, name)]);
   return { page, pdf, pages: pagesOf(pdf) };
 }
@@ -57,6 +61,15 @@ describe('PrintSummary printed by Chromium (page.pdf)', () => {
     });
   }
 
+  for (const format of ['A4', 'Letter'] as const) {
+    it(`fits the widest 600-character note (W x 600) on one ${format} page without clipping`, async () => {
+      const { page, pages } = await printed('scenarios=4&note=wide', format, `summary-wide-${format}`);
+      expect(pages).toBe(1);
+      expect(await page.locator('.ps-cut').isVisible()).toBe(true);
+      await page.close();
+    });
+  }
+
   it('prints four scenarios and counts the fifth ("and 1 more not shown"), still on one page', async () => {
     const { page, pages } = await printed('scenarios=5&note=longest', 'Letter', 'summary-five-scenarios');
     expect(pages).toBe(1);
@@ -74,7 +87,7 @@ describe('PrintSummary printed by Chromium (page.pdf)', () => {
       writeFileSync(pdf, await page.pdf({ format, printBackground: true }));
       execFileSync('pdftoppm', ['-png', '-r', '70', '-f', '1', '-l', '1', '-singlefile', pdf, path.join(OUT, `workbench-${format}`)]);
       expect(pagesOf(pdf)).toBe(1);
-      const text = execFileSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' });
+      const text = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
       expect(text).toContain('note cut at 600 characters');
       expect(text).toContain('Caution.');
       expect(text).not.toContain('Quotes');

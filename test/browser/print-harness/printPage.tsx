@@ -17,7 +17,9 @@ const extra: Scenario[] = [
 const base = FIXTURE.scenarios as Scenario[];
 const count = Number(params.get('scenarios') ?? '3');
 const scenarios = [...base, ...extra].slice(0, count);
-const doc = { ...FIXTURE, scenarios, note: params.get('note') === 'longest' ? LONGEST_NOTE : FIXTURE.note };
+const noteParam = params.get('note');
+// 'wide': the longest note in the widest letter, to check that even the widest 600 printed characters fit.
+const doc = { ...FIXTURE, scenarios, note: noteParam === 'longest' ? LONGEST_NOTE : noteParam === 'wide' ? 'W'.repeat(2000) : FIXTURE.note };
 const checked = validateDocument(doc);
 if (!checked.ok || !checked.value.workspace) throw new Error('harness document does not validate');
 const ws = checked.value.workspace;
