@@ -88,14 +88,30 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     // t_(k - locality) do not move with node k: they are summed once, not at every solver step.
     let fixed = 0;
     let first = 0;
-    if (m === n && spec.locality !== undefined && k - spec.locality >= 1) {
-      const tFixed = ts[k - spec.locality]!;
+    let f0: number | undefined;
+    if (m === n) {
+      // A sweep: x0 is the node's current value. One build at x0 gives the residual there, the
+      // fixed part (with a locality) and the sensitivity of the flow at the node itself,
+      // a_last DF(t_k), a lower bound on dPV/dy_k in normal markets.
+      const tFixed = spec.locality !== undefined && k - spec.locality >= 1 ? ts[k - spec.locality]! : -Infinity;
       yv[k] = x0;
       const interp = build(tv, yv);
-      while (first < times.length && times[first]! <= tFixed) {
-        fixed += amounts[first]! * Math.exp(interp.lnDiscount(times[first]!));
-        first++;
+      let moving = 0;
+      for (let j = 0; j < times.length; j++) {
+        const pv = amounts[j]! * Math.exp(interp.lnDiscount(times[j]!));
+        if (times[j]! <= tFixed) {
+          fixed += pv;
+          first = j + 1;
+        } else {
+          moving += pv;
+        }
       }
+      const lastPv = amounts[times.length - 1]! * Math.exp(interp.lnDiscount(times[times.length - 1]!));
+      // Performance: in the later sweeps most nodes are already solved; when a Newton step from
+      // x0 (with a quarter of that sensitivity as the slope) would move the node by at most
+      // NODE_TOLERANCE, x0 is the solution and no further build is needed.
+      f0 = fixed + moving - ins.target;
+      if (Math.abs(f0) <= 0.25 * NODE_TOLERANCE * lastPv) return x0;
     }
     const outcome = solveNode((x) => {
       yv[k] = x;
@@ -103,7 +119,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
       let pv = fixed;
       for (let j = first; j < times.length; j++) pv += amounts[j]! * Math.exp(interp.lnDiscount(times[j]!));
       return pv - ins.target;
-    }, x0);
+    }, x0, f0);
     if (!outcome.ok) return solveFailure(ins, outcome.reason);
     return outcome.x;
   };

@@ -19,14 +19,15 @@ const X_MAX = 700;
  * No root with a positive discount factor: `non-positive-discount` (the residual stays positive
  * as DF goes to 0); none with a finite one: `no-solution`.
  */
-export function solveNode(residual: (x: number) => number, x0: number): SolveOutcome {
+export function solveNode(residual: (x: number) => number, x0: number, f0?: number): SolveOutcome {
   let evaluations = 0;
   const r = (x: number): number => {
     evaluations++;
     return residual(x);
   };
   let x = x0;
-  let fx = r(x);
+  // f0: the residual at x0 when the caller already has it (saves one evaluation).
+  let fx = f0 !== undefined && Number.isFinite(f0) ? f0 : r(x);
   if (fx === 0) return { ok: true, x, evaluations };
   let neg = fx < 0 ? x : Number.NaN; // a point with residual < 0
   let pos = fx > 0 ? x : Number.NaN; // a point with residual > 0
