@@ -1,7 +1,7 @@
 import { billDiscountYieldFromPrice, billPriceFromDiscountYield } from '../instruments/bill.ts';
 import { bondDirtyFromYield, bondSchedule, bondYieldFromDirty } from '../instruments/bond.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts';
+import { COMPOUNDING_LABEL, lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import { daysBetween, type IsoDate } from '../time/date.ts';
 
@@ -12,7 +12,8 @@ import { daysBetween, type IsoDate } from '../time/date.ts';
  *   bill by price: its bank discount yield, actual days / 360 (US Treasury formula);
  *   zero by price: its zero rate in the quote's compounding and day count (defaults annual, ACT/365F).
  * All yields are decimals per year. `toYield` maps a market value in the quote's unit to its own
- * yield, `fromYield` back; both are exact inverses (to rounding). `label` names the yield.
+ * yield, `fromYield` back; both are exact inverses (to rounding). `label` names the yield with its
+ * compounding and day count.
  */
 export interface QuoteYield {
   toYield(value: number): number;
@@ -22,16 +23,36 @@ export interface QuoteYield {
 
 const IDENTITY = (label: string): QuoteYield => ({ toYield: (v) => v, fromYield: (y) => y, label });
 
+const PER_YEAR: Readonly<Record<number, string>> = { 1: 'ann', 2: 's.a.', 4: 'qtr', 12: 'mthly' };
+
+/** The name and convention of a quote's own yield, e.g. "swap rate (ann, 30/360)". */
+export function quoteYieldLabel(ins: Instrument): string {
+  const q = ins.quote;
+  switch (q.kind) {
+    case 'deposit':
+      return `deposit rate (simple, ${q.dayCount})`;
+    case 'bill':
+      return 'discount yield (ACT/360)';
+    case 'zero':
+      return `zero rate (${COMPOUNDING_LABEL[q.compounding]}, ${q.dayCount})`;
+    case 'bond':
+      return `ICMA yield (${PER_YEAR[q.frequency] ?? `${q.frequency}/yr`}, ${q.dayCount})`;
+    case 'swap':
+      return `swap rate (${PER_YEAR[q.frequency] ?? `${q.frequency}/yr`}, ${q.dayCount})`;
+  }
+}
+
 export function quoteYieldOf(ins: Instrument, settlement: IsoDate): QuoteYield {
   const q = ins.quote;
-  if (ins.unit === 'rate') return IDENTITY(ins.field);
+  const label = quoteYieldLabel(ins);
+  if (ins.unit === 'rate') return IDENTITY(label);
   switch (q.kind) {
     case 'bond': {
       const s = bondSchedule(q, settlement);
       return {
         toYield: (clean) => bondYieldFromDirty(s, clean + s.accrued) ?? Number.NaN,
         fromYield: (y) => bondDirtyFromYield(s, y).price - s.accrued,
-        label: `ICMA yield (${q.frequency}/yr)`,
+        label,
       };
     }
     case 'bill': {
@@ -39,7 +60,7 @@ export function quoteYieldOf(ins: Instrument, settlement: IsoDate): QuoteYield {
       return {
         toYield: (p) => billDiscountYieldFromPrice(p, days),
         fromYield: (d) => billPriceFromDiscountYield(d, days),
-        label: 'discount yield (ACT/360)',
+        label,
       };
     }
     case 'zero': {
@@ -47,11 +68,11 @@ export function quoteYieldOf(ins: Instrument, settlement: IsoDate): QuoteYield {
       return {
         toYield: (p) => rateFromLnDiscount(Math.log(p / 100), q.compounding, tau),
         fromYield: (r) => 100 * Math.exp(lnDiscountFromRate(r, q.compounding, tau)),
-        label: `zero rate (${q.compounding}, ${q.dayCount})`,
+        label,
       };
     }
     default:
-      return IDENTITY(ins.field);
+      return IDENTITY(label);
   }
 }
 

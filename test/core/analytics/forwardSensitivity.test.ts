@@ -138,7 +138,8 @@ describe('sensitivityMapFor', () => {
     expect(map.rows[1]!.start).toBe('2029-03-10');
     expect(map.rows[1]!.end).toBe('2029-09-10');
     expect(map.values.length).toBe(map.rows.length * map.columns.length);
-    expect(map.columns[3]!.yieldLabel).toMatch(/zero rate/);
+    expect(map.columns[3]!.yieldLabel).toBe('zero rate (ann, ACT/365F)'); // a zero quoted by price moves through its annual rate
+    expect(map.columns[6]!.yieldLabel).toBe('swap rate (ann, 30/360)');
   });
   it('refuses a tenor longer than the curve, saying so', () => {
     const out = sensitivityMapFor(ws, { tenor: { n: 40, unit: 'Y' } });
