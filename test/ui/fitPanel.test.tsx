@@ -5,7 +5,7 @@
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import axe from 'axe-core';
-import { fitCurve, validateWorkspace } from '../../src/core/index.ts';
+import { buildFromWorkspace, fitCurve, validateWorkspace } from '../../src/core/index.ts';
 import { FitPanel } from '../../src/features/fit/FitPanel.tsx';
 
 // Invented demo market.
@@ -55,6 +55,15 @@ describe('FitPanel', () => {
     await user.type(weight, 'abc');
     expect(weight).toHaveValue('abc');
     expect(screen.getByRole('alert')).toHaveTextContent('quotes[2] weight: type a number 0 or above');
+  });
+
+  it('draws the fitted zero curve with the exact bootstrap on one chart, each line with its tag', () => {
+    const boot = buildFromWorkspace(ws);
+    render(<FitPanel workspace={ws} bootstrap={boot.curve} repricing={boot.repricing} />);
+    expect(screen.getByRole('img', { name: 'Zero curve, Nelson-Siegel fit and exact bootstrap, cont, ACT/365F' })).toBeInTheDocument();
+    const residuals = screen.getByRole('table', { name: 'Fit residuals' });
+    expect(residuals).toHaveTextContent('(decimal rate)');
+    expect(residuals).toHaveTextContent('(per 100 face)');
   });
 
   it('switches to Svensson and to no fit', async () => {

@@ -11,6 +11,11 @@ import {
   type Workspace,
 } from '../../core/index.ts';
 import { num, pct } from '../../components/format.ts';
+import { sampleGrid, zeroSamples } from '../../core/input/index.ts';
+import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
+import { PALETTE } from '../../charts/palette.ts';
+import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
+import type { Curve } from '../../core/index.ts';
 import { RichCheapTable } from './RichCheapTable.tsx';
 
 export interface FitPanelProps {
@@ -18,6 +23,8 @@ export interface FitPanelProps {
   readonly workspace: Workspace | null;
   /** The exact bootstrap's repricing, shown beside the fit's residuals (optional). */
   readonly repricing?: readonly Repricing[];
+  /** The exact bootstrap's curve, drawn with the fit on one zero chart (optional). */
+  readonly bootstrap?: Curve | null;
   /** `curve.fit`: the parametric model, or 'none' for no fit. Controlled when onModelChange is given. */
   readonly model?: FitModel | 'none';
   readonly onModelChange?: (model: FitModel | 'none') => void;
@@ -100,6 +107,7 @@ export function FitPanel(props: FitPanelProps) {
           <p role="status" className={result.value.converged ? undefined : 'warning'}>
             {result.value.report}
           </p>
+          <FitChart fit={result.value.curve} bootstrap={props.bootstrap ?? null} label={FIT_MODEL_LABEL[result.value.model]} />
           <table className="data" aria-label="Fitted parameters">
             <caption>{FIT_MODEL_LABEL[result.value.model]} parameters</caption>
             <tbody>
@@ -173,5 +181,41 @@ export function FitPanel(props: FitPanelProps) {
         </>
       )}
     </section>
+  );
+}
+
+const points = (curve: Curve, grid: ReturnType<typeof sampleGrid>): SamplePoint[] => {
+  const s = zeroSamples(curve, grid, 'continuous');
+  return Array.from(s.x, (x, i) => ({ date: s.dates[i]!, x, y: s.y[i]!, extrapolated: s.extrapolated[i]! }));
+};
+
+/** The fitted zero curve and, when given, the bootstrap's, continuously compounded on the curve's day count. */
+function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | null; label: string }) {
+  const chart = useMemo(() => {
+    const last = [fit.pillars[fit.pillars.length - 1], bootstrap?.pillars[bootstrap.pillars.length - 1]].filter((p) => p !== undefined).sort((a, b) => b!.t - a!.t)[0];
+    if (!last) return null;
+    const grid = sampleGrid(fit.settlement, last.date, 160, fit.dayCount, fit.dayCount, { n: 3, unit: 'M' });
+    const tag = `cont, ${fit.dayCount}`;
+    const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, colour: PALETTE.forward, width: 2.2, points: points(fit, grid) }];
+    if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, colour: PALETTE.zero, dash: '5 3', points: points(bootstrap, grid) });
+    return { lines, xMax: last.t, lastT: Math.max(fit.lastT, bootstrap?.lastT ?? 0), tag };
+  }, [fit, bootstrap, label]);
+  if (!chart) return null;
+  return (
+    <div className="chart-box">
+      <h3>
+        Zero curve: {label} fit{bootstrap ? ' and the exact bootstrap' : ''} <span className="tag">{chart.tag}</span>
+      </h3>
+      <RateChart
+        name={`Zero curve, ${label} fit${bootstrap ? ' and exact bootstrap' : ''}, ${chart.tag}`}
+        description={`Fitted zero rates${bootstrap ? ' (solid) against the exact bootstrap (dashed)' : ''} by maturity.`}
+        lines={chart.lines}
+        xMax={chart.xMax}
+        lastT={chart.lastT}
+        axis="linear"
+        xLabel={`Maturity (years from settlement, ${fit.dayCount})`}
+        yLabel={`Zero rate (%, ${chart.tag})`}
+      />
+    </div>
   );
 }
