@@ -236,7 +236,7 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
   for (const taus of tauSets) {
     const betaResidual = (b: Float64Array, out: Float64Array): boolean => residualOf(Float64Array.from([...b, ...taus]), out);
     const fitB = levenbergMarquardt(betaResidual, betas0, m, {
-      maxIterations: 4,
+      maxIterations: 2,
       project: (b) => {
         for (let i = 0; i < b.length; i++) b[i] = Math.min(1, Math.max(-1, b[i]!));
       },
