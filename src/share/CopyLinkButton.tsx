@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { encodeWorkspaceLink } from './linkCodec.ts';
+import '../features/scenarios/scenarios.css';
 
 export interface CopyLinkButtonProps {
   /** The workspace document to share (snapshots are left out of the link). */

@@ -10,6 +10,7 @@ import { PrintChart, type PrintSeries } from './PrintChart.tsx';
 import { printKeyRows, printScenarios, scenarioConventionsText, tableConventionsFromDisplay } from './printData.ts';
 import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
 import { PrintSummary } from './PrintSummary.tsx';
+import '../scenarios/scenarios.css';
 
 const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
 

@@ -6,6 +6,7 @@ import { describeShape, SPACE_LABEL } from './describeShape.ts';
 import { ScenarioForm } from './ScenarioForm.tsx';
 import { ScenarioShapeChart } from './ScenarioShapeChart.tsx';
 import { ScenarioTable } from './ScenarioTable.tsx';
+import './scenarios.css';
 
 export interface ScenarioPanelProps {
   /** The document's `scenarios` value as stored (validated here). */

@@ -13,7 +13,7 @@ export interface ScenarioShapeChartProps {
 
 const W = 260;
 const H = 120;
-const M = { left: 34, right: 6, top: 8, bottom: 18 };
+const M = { left: 34, right: 10, top: 8, bottom: 22 };
 
 /** A scenario's shape Delta(t) (solid) beside the change it makes to the instantaneous forward (dashed), both in bp. */
 export function ScenarioShapeChart({ name, samples, nodes, moves, dayCount }: ScenarioShapeChartProps) {
@@ -34,7 +34,10 @@ export function ScenarioShapeChart({ name, samples, nodes, moves, dayCount }: Sc
         <text x={M.left - 3} y={sy(hi) + 3} fontSize={8} textAnchor="end">{hi.toFixed(0)}</text>
         <text x={M.left - 3} y={sy(lo) + 3} fontSize={8} textAnchor="end">{lo.toFixed(0)}</text>
         <text x={M.left - 3} y={sy(0) + 3} fontSize={8} textAnchor="end">0</text>
-        <text x={W - M.right} y={H - 4} fontSize={8} textAnchor="end" fill="#7a818c">years · bp</text>
+        <text x={W - M.right} y={M.top + 2} fontSize={8} textAnchor="end" fill="#7a818c">bp</text>
+        {[0, 5, 10, 20, 30, 40, 50].filter((x) => x <= xMax).map((x) => (
+          <text key={`x${x}`} x={sx(x)} y={H - 1} fontSize={7} textAnchor="middle" fill="#7a818c">{x}y</text>
+        ))}
         <polyline fill="none" stroke="#8a5a00" strokeDasharray="3 2" strokeWidth={1} points={path((s) => s.forwardBp)} />
         <polyline fill="none" stroke="#1d5fa6" strokeWidth={1.6} points={path((s) => s.shiftBp)} />
         {nodes.filter((n) => n.t <= xMax).map((n, i) => (

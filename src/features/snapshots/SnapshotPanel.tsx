@@ -3,6 +3,7 @@ import { compareCurves, KEY_TENORS, rebuildSnapshot, takeSnapshot, type CompareB
 import { validateSnapshots } from '../../core/export/exports.ts';
 import { COMPOUNDING_LABEL, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
 import { formatBp, formatPct } from '../scenarios/formatChange.ts';
+import '../scenarios/scenarios.css';
 
 export interface SnapshotPanelProps {
   /** The document's `snapshots` value as stored (validated here). */
