@@ -1,9 +1,11 @@
+import { memo } from 'react';
 import { Caution } from '../components/Caution.tsx';
 import { StorageBanner, StorageStatusText } from '../components/StorageBanner.tsx';
 import { CurvesPanel } from '../features/curves/CurvesPanel.tsx';
 import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
 import { SettingsBar } from '../features/settings/SettingsBar.tsx';
-import { useCurveBuild } from '../hooks/useCurveBuild.ts';
+import { useCurveBuild, type WorkbenchBuild } from '../hooks/useCurveBuild.ts';
+import { useSettledValue } from '../hooks/useSettledValue.ts';
 import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';
 import { useAppStore } from '../state/store.ts';
 import { EXTENSIONS } from './extensions.tsx';
@@ -16,7 +18,9 @@ export function App() {
   const canUndo = useAppStore((s) => s.past.length > 0);
   const canRedo = useAppStore((s) => s.future.length > 0);
   const { undo, redo, resetToDemo } = useAppStore.getState();
-  const Roll = EXTENSIONS.rollPanel;
+  // Panels beyond the base curve, charts and tables follow the build once typing pauses, so a
+  // keystroke paints the sheet, charts and tables first (see useSettledValue).
+  const deferred = useSettledValue(result);
   return (
     <div className="app">
       <header className="top">
@@ -41,12 +45,12 @@ export function App() {
       <main className="workbench">
         <div className="row row-top">
           <QuoteSheet result={result} />
-          <CurvesPanel result={result} />
+          <CurvesPanel result={result} deferredResult={deferred} />
         </div>
         <div className="row row-bottom">
-          <TablesPanel result={result} extraTabs={EXTENSIONS.tabs} />
+          <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
           <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
-            {Roll ? <Roll result={result} /> : <p className="muted small">Roll versus term: panel slot (not installed in this build).</p>}
+            <RollHost result={deferred} />
           </section>
         </div>
       </main>
@@ -56,3 +60,9 @@ export function App() {
     </div>
   );
 }
+
+/** The roll-versus-term slot: re-renders only when its (deferred) build changes. */
+const RollHost = memo(function RollHost({ result }: { result: WorkbenchBuild }) {
+  const Roll = EXTENSIONS.rollPanel;
+  return Roll ? <Roll result={result} /> : <p className="muted small">Roll versus term: panel slot (not installed in this build).</p>;
+});

@@ -19,8 +19,8 @@ const BASE_TABS: readonly TabDef[] = [
   { id: 'quote-check', label: 'Quote check', render: ({ result }) => <QuoteCheckTable result={result} /> },
 ];
 
-/** Tables under the charts, as tabs; other features add theirs through EXTENSIONS.tabs. */
-export function TablesPanel({ result, extraTabs }: { result: WorkbenchBuild; extraTabs: readonly TabDef[] }) {
+/** Tables under the charts, as tabs; other features' sections (EXTENSIONS.tabs) get the deferred build. */
+export function TablesPanel({ result, deferredResult = result, extraTabs }: { result: WorkbenchBuild; deferredResult?: WorkbenchBuild; extraTabs: readonly TabDef[] }) {
   const active = useAppStore((s) => s.activeTab);
   const setActiveTab = useAppStore((s) => s.setActiveTab);
   const tabs = [...BASE_TABS, ...extraTabs];
@@ -56,7 +56,7 @@ export function TablesPanel({ result, extraTabs }: { result: WorkbenchBuild; ext
         </span>
       </div>
       <div role="tabpanel" id={`tabpanel-${current.id}`} aria-labelledby={`tab-${current.id}`} className="tabpanel">
-        {current.render({ result })}
+        {current.render({ result: BASE_TABS.includes(current) ? result : deferredResult })}
       </div>
     </section>
   );

@@ -5,14 +5,17 @@ import { couponTag, rateTag } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useCurveSeries } from '../../hooks/useCurveSeries.ts';
 import { useMethodOverlay } from '../../hooks/useMethodOverlay.ts';
+import { useScenarioOverlay } from '../scenarios/useScenarioOverlay.ts';
 import { useAppStore } from '../../state/store.ts';
 
 /** The zero and forward charts side by side on a shared maturity axis. */
-export function CurvesPanel({ result }: { result: WorkbenchBuild }) {
+export function CurvesPanel({ result, deferredResult = result }: { result: WorkbenchBuild; deferredResult?: WorkbenchBuild }) {
   const display = useAppStore((s) => s.workspace.display);
   const curve = result.build.curve;
   const series = useCurveSeries(curve, display, result.build.repricing);
   const overlay = useMethodOverlay(curve ? result.conversion.doc : null, display, display.showMethodOverlay);
+  // The document's scenarios drawn over the base curve (scenarios feature), from the deferred build.
+  const scenarioLines = useScenarioOverlay(deferredResult);
   if (!curve || !series) {
     return (
       <section className="panel charts-panel" aria-label="Charts">
@@ -36,6 +39,8 @@ export function CurvesPanel({ result }: { result: WorkbenchBuild }) {
   }
   fwdLines.unshift({ id: 'forward', label: display.showMethodOverlay ? `${fwdLabel} (${INTERPOLATORS[curve.interpolation].label})` : fwdLabel, tag, colour: PALETTE.forward, points: series.forward, width: 2.2 });
   if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `cont, ${curve.dayCount} (curve clock)`, colour: PALETTE.instantaneous, dash: '2 2', width: 1.5, points: series.instantaneous });
+  zeroLines.push(...scenarioLines.zero);
+  fwdLines.push(...scenarioLines.forward);
   const pending = display.showMethodOverlay ? 5 - overlay.length : 0;
   const markers = display.showPar ? series.markers.map((m) => ({ x: m.x, y: m.y, label: `Quote row ${(result.conversion.rowOfQuote[m.quote] ?? 0) + 1}: ${m.kind} ${m.date}` })) : [];
   return (
