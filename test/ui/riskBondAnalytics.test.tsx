@@ -46,14 +46,16 @@ describe('BondAnalyticsPanel', () => {
     expect(within(dv).getAllByRole('row')).toHaveLength(1 + doc.quotes.length);
   });
 
-  it('keeps a bad coupon as typed and says what to type', async () => {
+  it('keeps a bad coupon as typed, says what to type, and hands every edit to onFormChange', async () => {
     const user = userEvent.setup();
-    render(<BondAnalyticsPanel curve={curve} />);
+    const seen: string[] = [];
+    render(<BondAnalyticsPanel curve={curve} onFormChange={(f) => seen.push(f.coupon)} />);
     const coupon = screen.getByRole('textbox', { name: 'Coupon (% per year)' });
     await user.clear(coupon);
     await user.type(coupon, '4,5');
     expect(coupon).toHaveValue('4,5');
     expect(screen.getByRole('alert')).toHaveTextContent('Coupon: type a percent per year such as 4.25, not "4,5"');
+    expect(seen[seen.length - 1]).toBe('4,5');
   });
 
   it('refuses a bond beyond the curve with the core\'s message', async () => {

@@ -23,6 +23,8 @@ export interface BondAnalyticsPanelProps {
   readonly workspace?: Workspace | null;
   /** The bond form's starting values (percent texts as typed). */
   readonly initial?: Partial<BondForm>;
+  /** Called with the whole form on every edit, so the workbench can keep what was typed. */
+  readonly onFormChange?: (form: BondForm) => void;
 }
 
 /** The bond as typed: maturity a date or tenor, coupon and yield in percent, price clean per 100. */
@@ -58,9 +60,13 @@ function readForm(f: BondForm, settlement: string): BondInput | string {
  * key-rate durations on a stated grid and bump, z-spread and risk at a market quote when given,
  * and the DV01 to each input quote. Every figure carries its unit.
  */
-export function BondAnalyticsPanel({ curve, workspace = null, initial }: BondAnalyticsPanelProps) {
+export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormChange }: BondAnalyticsPanelProps) {
   const [form, setForm] = useState<BondForm>({ ...DEFAULT_FORM, ...initial });
-  const set = (patch: Partial<BondForm>): void => setForm({ ...form, ...patch });
+  const set = (patch: Partial<BondForm>): void => {
+    const next = { ...form, ...patch };
+    setForm(next);
+    onFormChange?.(next);
+  };
   const input = useMemo(() => (curve ? readForm(form, curve.settlement) : null), [curve, form]);
   const result = useMemo(() => (curve && input && typeof input !== 'string' ? analyzeBond(curve, input) : null), [curve, input]);
   const perQuote = useMemo(() => {

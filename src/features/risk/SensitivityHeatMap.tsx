@@ -10,6 +10,8 @@ export interface SensitivityHeatMapProps {
   /** Forward tenor and the step between forward starts (defaults 3M and 1Y). */
   readonly tenor?: string;
   readonly step?: string;
+  /** Called when the user changes the interpolation, tenor or step (to keep the choice in the workspace view). */
+  readonly onSettingsChange?: (settings: { interpolation: InterpolationId; tenor: string; step: string }) => void;
 }
 
 const TENORS = ['1M', '3M', '6M', '1Y'];
@@ -29,10 +31,23 @@ function cellColour(v: number, scale: number): string {
  * (computed from the bootstrap). Switching the interpolation shows which methods keep a quote's
  * influence local.
  */
-export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', step = '1Y' }: SensitivityHeatMapProps) {
-  const [method, setMethod] = useState<InterpolationId>(interpolation ?? workspace?.curve.interpolation ?? 'monotone-convex');
-  const [fwdTenor, setFwdTenor] = useState(tenor);
-  const [fwdStep, setFwdStep] = useState(step);
+export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', step = '1Y', onSettingsChange }: SensitivityHeatMapProps) {
+  const [method, setMethodState] = useState<InterpolationId>(interpolation ?? workspace?.curve.interpolation ?? 'monotone-convex');
+  const [fwdTenor, setTenorState] = useState(tenor);
+  const [fwdStep, setStepState] = useState(step);
+  const report = (next: { interpolation: InterpolationId; tenor: string; step: string }): void => onSettingsChange?.(next);
+  const setMethod = (m: InterpolationId): void => {
+    setMethodState(m);
+    report({ interpolation: m, tenor: fwdTenor, step: fwdStep });
+  };
+  const setFwdTenor = (t: string): void => {
+    setTenorState(t);
+    report({ interpolation: method, tenor: t, step: fwdStep });
+  };
+  const setFwdStep = (t: string): void => {
+    setStepState(t);
+    report({ interpolation: method, tenor: fwdTenor, step: t });
+  };
   const out = useMemo(() => {
     if (!workspace) return null;
     const t = parseTenor(fwdTenor);
