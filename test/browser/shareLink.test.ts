@@ -74,4 +74,46 @@ describe('shared link in Chromium', () => {
     expect(diagnostics(page).pageErrors).toEqual([]);
     await page.close();
   });
+
+  it('in the workbench: a scenario added in its section comes back from the copied link in a fresh context', async () => {
+    const page = await open(`${server!.url}app.html`);
+    await page.getByRole('tab', { name: 'Scenarios' }).click();
+    await page.getByLabel('Name').fill('Bull flattener');
+    await page.getByLabel('Shape').selectOption('twist');
+    await page.getByLabel('Spread change (bp)').fill('-15');
+    await page.getByRole('button', { name: 'Add scenario' }).click();
+    await page.locator('[data-cell="s1:10Y:forward"]').waitFor();
+    const before = await cells(page);
+    await page.getByRole('button', { name: 'Copy link' }).click();
+    await page.getByRole('status').filter({ hasText: 'Link copied' }).waitFor();
+    const url = await page.evaluate(() => navigator.clipboard.readText());
+    expect(url).toMatch(/app\.html#ws1\./);
+    await page.close();
+
+    const fresh = await open(url);
+    await fresh.getByRole('tab', { name: 'Scenarios' }).click();
+    await fresh.locator('[data-cell="s1:10Y:forward"]').waitFor();
+    expect(await cells(fresh)).toEqual(before);
+    expect(await fresh.evaluate(() => window.location.hash)).toBe('');
+    expect(diagnostics(fresh).pageErrors).toEqual([]);
+    await fresh.close();
+  });
+
+  it('in the workbench: a damaged link leaves the autosaved workspace as it was', async () => {
+    const page = await open(`${server!.url}app.html`);
+    await page.getByRole('tab', { name: 'Scenarios' }).click();
+    await page.getByLabel('Name').fill('Mine');
+    await page.getByRole('button', { name: 'Add scenario' }).click();
+    await page.waitForFunction(() => (localStorage.getItem('tenorscope.workspace') ?? '').includes('"Mine"'), undefined, { timeout: 10_000 });
+    const saved = await page.evaluate(() => localStorage.getItem('tenorscope.workspace'));
+    await page.goto(`${server!.url}app.html#ws1.AAAAAAAAAAAAAAAAAAAAAAAA`, { waitUntil: 'load' });
+    await page.reload({ waitUntil: 'load' });
+    await page.getByText('Your saved workspace has not been changed.').waitFor();
+    await page.waitForTimeout(500);
+    expect(await page.evaluate(() => localStorage.getItem('tenorscope.workspace'))).toBe(saved);
+    await page.getByRole('tab', { name: 'Scenarios' }).click();
+    await page.getByRole('button', { name: 'Remove scenario Mine' }).waitFor();
+    await page.close();
+  });
 });
+
