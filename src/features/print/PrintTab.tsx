@@ -8,6 +8,7 @@ import { useAppStore } from '../../state/store.ts';
 import { BUILD_ID } from '../../share/buildId.ts';
 import { PrintChart, type PrintSeries } from './PrintChart.tsx';
 import { printKeyRows, printScenarios, scenarioConventionsText, tableConventionsFromDisplay } from './printData.ts';
+import { NoteEditor } from './NoteEditor.tsx';
 import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
 import { PrintSummary } from './PrintSummary.tsx';
 import '../scenarios/scenarios.css';
@@ -77,6 +78,15 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
         <PrintSummaryButton />
         <span className="muted small">One page, A4 or US Letter, portrait. The first four scenarios are printed.</span>
       </div>
+      <NoteEditor
+        value={typeof doc.note === 'string' ? doc.note : ''}
+        onChange={(text) => {
+          const s = useAppStore.getState();
+          // One undo step per stretch of typing (merge key 'note'), ended when the field loses focus.
+          s.commit({ ...s.workspace, note: text }, 'edit note', 'note');
+        }}
+        onDone={() => useAppStore.getState().endEdit()}
+      />
       <div className="print-preview">{summary}</div>
       <PrintRoot>{summary}</PrintRoot>
     </section>
