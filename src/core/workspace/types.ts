@@ -3,6 +3,7 @@ import type { CurveDayCount, DayCount } from '../time/dayCount.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import type { Extrapolation } from '../curve/curve.ts';
+import type { FitModel } from '../fit/parametricForm.ts';
 
 /** Quote kinds the engine bootstraps from. */
 export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap'] as const;
@@ -62,6 +63,8 @@ export interface CurveSettings {
   readonly dayCount: CurveDayCount;
   readonly interpolation: InterpolationId;
   readonly extrapolation: Extrapolation;
+  /** The parametric fit shown beside the exact bootstrap; 'none' for none. */
+  readonly fit: 'none' | FitModel;
 }
 
 /** A validated workspace: what the engine builds from. Reserved keys are passed through untouched. */
@@ -76,4 +79,4 @@ export interface Workspace {
   readonly reserved: Readonly<Record<string, unknown>>;
 }
 
-export const DEFAULT_CURVE: CurveSettings = { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' };
+export const DEFAULT_CURVE: CurveSettings = { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none', fit: 'none' };

@@ -1,4 +1,5 @@
 import { isExtrapolation, EXTRAPOLATIONS } from '../curve/curve.ts';
+import { FIT_MODELS, isFitModel } from '../fit/parametricForm.ts';
 import { INTERPOLATIONS, isInterpolation } from '../interpolation/types.ts';
 import { COMPOUNDINGS, isCompounding, type Compounding } from '../rates/compounding.ts';
 import { coreError, type CoreError } from '../result.ts';
@@ -12,7 +13,7 @@ export const WORKSPACE_VERSION = 1;
 /** Top-level keys the workbench owns; the engine passes them through. */
 export const RESERVED_KEYS = ['scenarios', 'strategy', 'snapshots', 'view', 'note'] as const;
 const TOP_KEYS = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
-/** `curve.fit` is reserved for the parametric fits; only `none` is accepted by this engine version. */
+/** `curve.fit`: none (the exact bootstrap only), nelson-siegel or svensson (src/core/fit). */
 const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit'];
 
 /** Ranges (inclusive unless stated), decimals: rates -0.10..1.0; coupons 0..0.5; prices (0, 1000]. */
@@ -114,11 +115,12 @@ function checkCurve(v: unknown, errors: CoreError[]): CurveSettings | null {
   if (!isExtrapolation(extrapolation)) {
     errors.push(coreError('unknown-identifier', 'curve.extrapolation', `curve.extrapolation must be one of ${listOf(EXTRAPOLATIONS)}, not ${typeName(extrapolation)}`));
   }
-  if (v.fit !== undefined && v.fit !== 'none') {
-    errors.push(coreError('unknown-identifier', 'curve.fit', `curve.fit must be "none" in this version, not ${typeName(v.fit)}`));
+  const fit = v.fit ?? DEFAULT_CURVE.fit;
+  if (fit !== 'none' && !isFitModel(fit)) {
+    errors.push(coreError('unknown-identifier', 'curve.fit', `curve.fit must be one of none, ${listOf(FIT_MODELS)}, not ${typeName(fit)}`));
   }
   if (errors.length > before) return null;
-  return { dayCount, interpolation, extrapolation } as CurveSettings;
+  return { dayCount, interpolation, extrapolation, fit } as CurveSettings;
 }
 
 interface FieldReader {

@@ -66,7 +66,7 @@ describe('document-level errors', () => {
   });
   it('defaults: ACT/365F axis, monotone-convex, no extrapolation', () => {
     const v = validateWorkspace({ format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10', quotes: good });
-    expect(v.workspace!.curve).toEqual({ dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' });
+    expect(v.workspace!.curve).toEqual({ dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none', fit: 'none' });
   });
 });
 
