@@ -10,11 +10,15 @@ import { WorkspaceFiles } from './WorkspaceFiles.tsx';
 /** Copy link, save/open the workspace file and export the curve CSV, wired to the workbench store. */
 export function ShareBar({ result }: { result: WorkbenchBuild }) {
   const doc = useAppStore((s) => s.workspace) as unknown as Record<string, unknown>;
+  const activeTab = useAppStore((s) => s.activeTab);
+  // The link also says which section is open (the document's `view`), so the colleague sees the same.
+  const view = typeof doc.view === 'object' && doc.view !== null && !Array.isArray(doc.view) ? (doc.view as Record<string, unknown>) : {};
+  const linked = { ...doc, view: { ...view, tab: activeTab } };
   const [message, setMessage] = useState<string | null>(null);
   const curve = result.build.curve;
   return (
     <div className="share-bar">
-      <CopyLinkButton document={doc} />
+      <CopyLinkButton document={linked} />
       <WorkspaceFiles
         document={doc}
         curve={curve}

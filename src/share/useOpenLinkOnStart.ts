@@ -33,6 +33,8 @@ export function useOpenLinkOnStart(): { message: string | null; dismiss: () => v
         return;
       }
       useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open link');
+      const tab = outcome.checked.view.tab;
+      if (typeof tab === 'string') useAppStore.getState().setActiveTab(tab);
       setMessage(outcome.notice);
     });
     return () => {
