@@ -27,6 +27,15 @@ const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
   dayCount: '',
 };
 
+/** The engine's default for an empty frequency or day-count cell of a kind (src/core/workspace/types.ts), shown faintly. */
+const DEFAULTS: Readonly<Record<string, Partial<Record<QuoteColumn, string>>>> = {
+  deposit: { dayCount: 'ACT/360' },
+  zero: { dayCount: 'ACT/365F' },
+  bond: { frequency: '2', dayCount: 'ACT/ACT-ICMA' },
+  swap: { frequency: '1', dayCount: '30/360' },
+};
+const defaultFor = (kind: string, c: QuoteColumn): string | undefined => DEFAULTS[kind.trim().toLowerCase()]?.[c];
+
 const issuesEqual = (a: RowIssues, b: RowIssues): boolean =>
   QUOTE_COLUMNS.every((c) => a[c]?.message === b[c]?.message && a[c]?.severity === b[c]?.severity);
 
@@ -81,7 +90,7 @@ const QuoteRowView = memo(
                   data-col={c}
                   spellCheck={false}
                   autoComplete="off"
-                  placeholder={blank ? PLACEHOLDER[c] : undefined}
+                  placeholder={blank ? PLACEHOLDER[c] : defaultFor(row.kind, c)}
                   aria-label={`Row ${n} ${QUOTE_COLUMN_LABEL[c]}`}
                   aria-invalid={issue?.severity === 'error' ? true : undefined}
                   aria-describedby={issue ? msgId : undefined}
