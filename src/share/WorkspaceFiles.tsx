@@ -1,5 +1,5 @@
 import { useRef, useState, type ChangeEvent } from 'react';
-import { curveTableCsv, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/export/exports.ts';
+import { curveTableCsv, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/export/exports.ts';
 import type { Curve } from '../core/index.ts';
 
 export interface WorkspaceFilesProps {
@@ -35,6 +35,10 @@ export function WorkspaceFiles({ document: doc, curve, conventions, points, onOp
     const file = e.target.files?.[0];
     e.target.value = '';
     if (!file) return;
+    if (file.size > 4 * MAX_FILE_CHARS) {
+      setMessage(`${file.name} is ${(file.size / 1e6).toFixed(1)} MB, far more than a workspace file; it was not opened. Your workspace has not been changed.`);
+      return;
+    }
     let text: string;
     try {
       text = await file.text();

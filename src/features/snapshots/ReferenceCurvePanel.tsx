@@ -9,6 +9,7 @@ import { formatBp, formatPct } from '../scenarios/formatChange.ts';
  */
 export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
   const [text, setText] = useState('');
+  const [fileError, setFileError] = useState<string | null>(null);
   const [compounding, setCompounding] = useState<Compounding>('continuous');
   const [dayCount, setDayCount] = useState<CurveDayCount>('ACT/365F');
   const parsed = useMemo(() => (text.trim() === '' ? null : parseReferenceCsv(text, compounding, dayCount)), [text, compounding, dayCount]);
@@ -27,7 +28,13 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
             accept=".csv,text/csv"
             onChange={(e) => {
               const f = e.target.files?.[0];
-              if (f) void f.text().then(setText, () => setText(''));
+              if (!f) return;
+              if (f.size > 2_000_000) {
+                setFileError(`${f.name} is ${(f.size / 1e6).toFixed(1)} MB; a reference curve file is at most 2 MB (${2000} rows).`);
+                return;
+              }
+              setFileError(null);
+              void f.text().then(setText, () => setFileError(`${f.name} could not be read.`));
             }}
           />
         </label>
@@ -48,6 +55,11 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
           </select>
         </label>
       </div>
+      {fileError && (
+        <p className="field-error" role="alert">
+          {fileError}
+        </p>
+      )}
       {parsed && parsed.errors.length > 0 && (
         <ul className="field-error" role="alert">
           {parsed.errors.slice(0, 8).map((e, i) => (
