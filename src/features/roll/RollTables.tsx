@@ -30,7 +30,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
         <caption>
           Roll legs of {analysis.rollTenor} to {analysis.horizon}{' '}
           <span className="muted small">
-            rates in % <span className="tag">{tag}</span>; leg 1 is bought today at the spot rate; type a rate in
+            every rate in % <span className="tag">{tag}</span>, year fractions {analysis.rollDayCount}; leg 1 is bought today at the spot rate; type a rate in
             the &ldquo;Your path&rdquo; column to set your path leg by leg
           </span>
         </caption>
@@ -40,15 +40,15 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
             <th scope="col">Start</th>
             <th scope="col">End</th>
             <th scope="col" className="num">Days</th>
-            <th scope="col" className="num">Year fraction ({analysis.rollDayCount})</th>
-            <th scope="col" className="num">Today&rsquo;s forward (%, {tag})</th>
+            <th scope="col" className="num">Year fraction</th>
+            <th scope="col" className="num">Today&rsquo;s forward (%)</th>
             {editing ? null : (
               <th scope="col" className="num">
-                {chosen.label} (%, {tag})
+                {chosen.label} (%)
               </th>
             )}
             <th scope="col" className="num">
-              Your path (%, {tag}; type to set)
+              Your path (%, type to set)
             </th>
             <th scope="col" className="num">Value after leg ({MONEY_UNIT})</th>
           </tr>
