@@ -7,6 +7,9 @@ export type SolveOutcome =
 /** ln DF beyond these bounds means a discount factor that float64 cannot tell from 0 or infinity. */
 const X_MIN = -700;
 const X_MAX = 700;
+// Performance: module-local copies of the imported limits (see interpolation/types.ts, "hot paths").
+const TOL = NODE_TOLERANCE;
+const MAX_EVALS = MAX_SOLVER_EVALUATIONS;
 
 /**
  * Solves residual(x) = 0 for a node x = ln DF, where the residual is present value minus target
@@ -21,23 +24,25 @@ const X_MAX = 700;
  */
 export function solveNode(residual: (x: number) => number, x0: number, f0?: number): SolveOutcome {
   let evaluations = 0;
-  const r = (x: number): number => {
-    evaluations++;
-    return residual(x);
-  };
   let x = x0;
   // f0: the residual at x0 when the caller already has it (saves one evaluation).
-  let fx = f0 !== undefined && Number.isFinite(f0) ? f0 : r(x);
+  let fx: number;
+  if (f0 !== undefined && Number.isFinite(f0)) fx = f0;
+  else {
+    evaluations++;
+    fx = residual(x);
+  }
   if (fx === 0) return { ok: true, x, evaluations };
   let neg = fx < 0 ? x : Number.NaN; // a point with residual < 0
   let pos = fx > 0 ? x : Number.NaN; // a point with residual > 0
   const h = 1e-7;
   let stride = 1;
   let xPrev = x + h;
-  let fPrev = r(xPrev);
+  evaluations++;
+  let fPrev = residual(xPrev);
   if (fPrev < 0) neg = Number.isNaN(neg) || xPrev > neg ? xPrev : neg;
   if (fPrev > 0) pos = Number.isNaN(pos) || xPrev < pos ? xPrev : pos;
-  while (evaluations < MAX_SOLVER_EVALUATIONS) {
+  while (evaluations < MAX_EVALS) {
     const bracketed = !Number.isNaN(neg) && !Number.isNaN(pos);
     const slope = (fx - fPrev) / (x - xPrev);
     let next = x - fx / slope;
@@ -53,17 +58,18 @@ export function solveNode(residual: (x: number) => number, x0: number, f0?: numb
       if (next < X_MIN) return { ok: false, reason: 'non-positive-discount', evaluations };
       if (next > X_MAX) return { ok: false, reason: 'no-solution', evaluations };
     }
-    const fNext = r(next);
+    evaluations++;
+    const fNext = residual(next);
     if (!Number.isFinite(fNext)) return { ok: false, reason: 'no-solution', evaluations };
     const step = Math.abs(next - x);
     xPrev = x;
     fPrev = fx;
     x = next;
     fx = fNext;
-    if (fx === 0 || step <= NODE_TOLERANCE) return { ok: true, x, evaluations };
+    if (fx === 0 || step <= TOL) return { ok: true, x, evaluations };
     if (fx < 0) neg = x;
     else pos = x;
-    if (!Number.isNaN(neg) && !Number.isNaN(pos) && Math.abs(neg - pos) <= NODE_TOLERANCE) return { ok: true, x, evaluations };
+    if (!Number.isNaN(neg) && !Number.isNaN(pos) && Math.abs(neg - pos) <= TOL) return { ok: true, x, evaluations };
   }
   return { ok: false, reason: 'no-solution', evaluations };
 }

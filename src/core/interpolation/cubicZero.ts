@@ -1,5 +1,23 @@
 import { copyNodes, segmentIndex, zeros, type Interpolation } from './types.ts';
 
+// Performance: module-local bindings and a module-level helper (see types.ts, "hot paths").
+const findSegment = segmentIndex;
+const copy = copyNodes;
+const zeroArray = zeros;
+
+/**
+ * z and z' at x on segment i, written into `out`: with h = t_i - t_(i-1), a = (t_i - x)/h,
+ * b = (x - t_(i-1))/h, z = a z_(i-1) + b z_i + ((a^3 - a) M_(i-1) + (b^3 - b) M_i) h^2 / 6.
+ */
+function splineAt(t: readonly number[], z: readonly number[], M: readonly number[], x: number, i: number, out: [number, number]): [number, number] {
+  const h = t[i]! - t[i - 1]!;
+  const a = (t[i]! - x) / h;
+  const b = 1 - a;
+  out[0] = a * z[i - 1]! + b * z[i]! + ((a * a * a - a) * M[i - 1]! + (b * b * b - b) * M[i]!) * (h * h) / 6;
+  out[1] = (z[i]! - z[i - 1]!) / h + (-(3 * a * a - 1) * M[i - 1]! + (3 * b * b - 1) * M[i]!) * h / 6;
+  return out;
+}
+
 /**
  * `cubic-zero`: a natural cubic spline (second derivative zero at both ends) through the
  * continuously compounded zero rates, knots at t = 0 and every pillar, with z(0) := z(t_1).
@@ -9,16 +27,16 @@ import { copyNodes, segmentIndex, zeros, type Interpolation } from './types.ts';
  */
 export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
   const n = ts.length - 1;
-  const t = copyNodes(ts);
-  const z = zeros(n + 1);
+  const t = copy(ts);
+  const z = zeroArray(n + 1);
   for (let i = 1; i <= n; i++) z[i] = -lnDfs[i]! / t[i]!;
   z[0] = z[1]!;
   // Second derivatives M_0 = M_n = 0; Thomas algorithm on the interior equations
   // h_(i-1) M_(i-1) + 2 (h_(i-1) + h_i) M_i + h_i M_(i+1) = 6 [(z_(i+1)-z_i)/h_i - (z_i-z_(i-1))/h_(i-1)].
-  const M = zeros(n + 1);
+  const M = zeroArray(n + 1);
   if (n >= 2) {
-    const c = zeros(n + 1);
-    const d = zeros(n + 1);
+    const c = zeroArray(n + 1);
+    const d = zeroArray(n + 1);
     for (let i = 1; i < n; i++) {
       const h0 = t[i]! - t[i - 1]!;
       const h1 = t[i + 1]! - t[i]!;
@@ -29,31 +47,18 @@ export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<nu
     }
     for (let i = n - 1; i >= 1; i--) M[i] = d[i]! - c[i]! * M[i + 1]!;
   }
-  // On segment i, with h = t_i - t_(i-1), a = (t_i - x)/h, b = (x - t_(i-1))/h:
-  // z = a z_(i-1) + b z_i + ((a^3 - a) M_(i-1) + (b^3 - b) M_i) h^2 / 6.
-  // Performance: zeroAndSlope writes into this pair instead of allocating one per call; callers
-  // read it at once.
+  // A reused pair: no array is allocated per evaluation; callers read it at once.
   const pair: [number, number] = [0, 0];
-  const zeroAndSlope = (x: number, i: number): [number, number] => {
-    const h = t[i]! - t[i - 1]!;
-    const a = (t[i]! - x) / h;
-    const b = 1 - a;
-    const zi = a * z[i - 1]! + b * z[i]! + ((a * a * a - a) * M[i - 1]! + (b * b * b - b) * M[i]!) * (h * h) / 6;
-    const slope = (z[i]! - z[i - 1]!) / h + (-(3 * a * a - 1) * M[i - 1]! + (3 * b * b - 1) * M[i]!) * h / 6;
-    pair[0] = zi;
-    pair[1] = slope;
-    return pair;
-  };
   return {
     lnDiscount(x) {
       if (x >= t[n]!) {
-        const p = zeroAndSlope(t[n]!, n);
+        const p = splineAt(t, z, M, t[n]!, n, pair);
         return -(p[0] + p[1] * (x - t[n]!)) * x; // only at x = t_n in normal use
       }
-      return -zeroAndSlope(x, segmentIndex(t, n, x))[0] * x;
+      return -splineAt(t, z, M, x, findSegment(t, n, x), pair)[0] * x;
     },
     forward(x) {
-      const p = zeroAndSlope(x, Math.min(segmentIndex(t, n, x), n));
+      const p = splineAt(t, z, M, x, Math.min(findSegment(t, n, x), n), pair);
       return p[0] + x * p[1];
     },
   };

@@ -58,6 +58,15 @@ export function segmentIndex(ts: ArrayLike<number>, n: number, t: number): numbe
   return lo;
 }
 
+/*
+ * Hot paths. The interpolations are built once or twice per node solve in the bootstrap and
+ * evaluated for every cash flow, so their files avoid two costs that the command-line runner's
+ * TypeScript transform (tsx: CommonJS output with keepNames) adds to otherwise cheap code: a
+ * property lookup for every call of an imported function (so they bind it to a module-local
+ * constant once) and a name-setting call for every closure created (so their helpers live at
+ * module level and take the arrays as arguments).
+ */
+
 /**
  * A private copy of node values. Performance: a plain array of doubles, not a Float64Array:
  * allocating a small typed array costs several hundred nanoseconds in Node 20 (measured), against
