@@ -76,7 +76,7 @@ try {
     );
   });
   // Diagnostics only: HIDE=".charts" measures the page with those parts not rendered.
-  if (process.env.HIDE) await page.addStyleTag({ content: `${process.env.HIDE} { display: none !important; }` });
+  if (process.env.HIDE) await page.evaluate((sel) => document.querySelectorAll<HTMLElement>(sel).forEach((el) => el.style.setProperty('display', 'none', 'important')), process.env.HIDE);
   const profile = process.env.PROFILE === '1';
   const cdp = profile ? await page.context().newCDPSession(page) : null;
   if (cdp) {
@@ -84,6 +84,11 @@ try {
     await cdp.send('Profiler.setSamplingInterval', { interval: 100 });
     await cdp.send('Profiler.start');
   }
+  // Diagnostics only: TRACE=1 sums the renderer's main-thread work by trace event over the edits.
+  const trace = process.env.TRACE === '1';
+  if (trace) await browser.browser.startTracing(page, { categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline'] });
+  // Diagnostics only: PLAIN=1 types into a plain input outside React instead (the page's floor).
+  if (process.env.PLAIN === '1') await page.evaluate(() => { const el = document.createElement('input'); el.id = 'plain'; el.setAttribute('aria-label', 'Row 20 Rate / yield'); document.body.prepend(el); document.querySelector<HTMLElement>('[role=grid]')!.querySelectorAll('input').forEach((i) => i.removeAttribute('aria-label')); });
   const cell = page.getByRole('textbox', { name: 'Row 20 Rate / yield' });
   await cell.click();
   await page.keyboard.press('End');
@@ -92,6 +97,14 @@ try {
     await page.waitForTimeout(30);
   }
   await page.waitForTimeout(200);
+  if (trace) {
+    const buf = await browser.browser.stopTracing();
+    const events = (JSON.parse(buf.toString()) as { traceEvents: { name: string; ph: string; dur?: number; tid: number; ts: number }[] }).traceEvents;
+    const main = events.find((e) => e.name === 'EventDispatch')?.tid;
+    const sum = new Map<string, number>();
+    for (const e of events) if (e.ph === 'X' && e.dur && e.tid === main) sum.set(e.name, (sum.get(e.name) ?? 0) + e.dur);
+    console.log([...sum].sort((a, b) => b[1] - a[1]).slice(0, 18).map(([k, v]) => `${(v / 1000 / EDITS).toFixed(2)} ms/edit  ${k}`).join('\n'));
+  }
   if (cdp) {
     type Node = { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; hitCount?: number; children?: number[] };
     const { profile: p } = (await cdp.send('Profiler.stop')) as { profile: { nodes: Node[] } };

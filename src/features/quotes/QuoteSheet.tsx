@@ -55,13 +55,47 @@ function focusCell(grid: HTMLElement | null, row: number, column: string): void 
   el?.select();
 }
 
+interface SheetCellProps {
+  readonly rowId: string;
+  readonly column: QuoteColumn;
+  readonly index: number;
+  readonly value: string;
+  readonly severity: 'error' | 'warning' | null;
+  readonly message: string | null;
+  readonly placeholder: string | undefined;
+  readonly msgId: string;
+}
+
+/** One text cell; memoised so a keystroke re-renders the cell typed in, not its whole row. */
+const SheetCell = memo(function SheetCell({ rowId, column: c, index, value, severity, message, placeholder, msgId }: SheetCellProps) {
+  const setCell = useAppStore((s) => s.setCell);
+  const endEdit = useAppStore((s) => s.endEdit);
+  return (
+    <td role="gridcell" className={`cell ${c}${severity ? ` ${severity}` : ''}`}>
+      <input
+        type="text"
+        value={value}
+        data-row={index}
+        data-col={c}
+        spellCheck={false}
+        autoComplete="off"
+        placeholder={placeholder}
+        aria-label={`Row ${index + 1} ${QUOTE_COLUMN_LABEL[c]}`}
+        aria-invalid={severity === 'error' ? true : undefined}
+        aria-describedby={message ? msgId : undefined}
+        title={message ?? undefined}
+        onChange={(e) => setCell(rowId, c, e.target.value)}
+        onBlur={endEdit}
+      />
+    </td>
+  );
+});
+
 const QuoteRowView = memo(
   function QuoteRowView({ row, index, issues, unit, selected, inCurve }: RowViewProps) {
-    const setCell = useAppStore((s) => s.setCell);
     const setRowEnabled = useAppStore((s) => s.setRowEnabled);
     const deleteRow = useAppStore((s) => s.deleteRow);
     const addRow = useAppStore((s) => s.addRow);
-    const endEdit = useAppStore((s) => s.endEdit);
     const selectRow = useAppStore((s) => s.selectRow);
     const n = index + 1;
     const blank = QUOTE_COLUMNS.every((c) => row[c] === '');
@@ -79,28 +113,19 @@ const QuoteRowView = memo(
           <td role="gridcell" className="on">
             <input type="checkbox" checked={row.enabled} aria-label={`Row ${n} in the curve`} onChange={(e) => setRowEnabled(row.id, e.target.checked)} />
           </td>
-          {QUOTE_COLUMNS.map((c) => {
-            const issue = issues[c];
-            return (
-              <td role="gridcell" key={c} className={`cell ${c}${issue ? ` ${issue.severity}` : ''}`}>
-                <input
-                  type="text"
-                  value={row[c]}
-                  data-row={index}
-                  data-col={c}
-                  spellCheck={false}
-                  autoComplete="off"
-                  placeholder={blank ? PLACEHOLDER[c] : defaultFor(row.kind, c)}
-                  aria-label={`Row ${n} ${QUOTE_COLUMN_LABEL[c]}`}
-                  aria-invalid={issue?.severity === 'error' ? true : undefined}
-                  aria-describedby={issue ? msgId : undefined}
-                  title={issue?.message}
-                  onChange={(e) => setCell(row.id, c, e.target.value)}
-                  onBlur={endEdit}
-                />
-              </td>
-            );
-          })}
+          {QUOTE_COLUMNS.map((c) => (
+            <SheetCell
+              key={c}
+              rowId={row.id}
+              column={c}
+              index={index}
+              value={row[c]}
+              severity={issues[c]?.severity ?? null}
+              message={issues[c]?.message ?? null}
+              placeholder={blank ? PLACEHOLDER[c] : defaultFor(row.kind, c)}
+              msgId={msgId}
+            />
+          ))}
           <td role="gridcell" className="actions">
             <button type="button" className="icon" aria-label={`Insert a row after row ${n}`} title="Insert row below" onClick={() => addRow(row.id)}>
               +
