@@ -1,7 +1,7 @@
 import { memo, useId, useMemo, type KeyboardEvent, type PointerEvent } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, line } from 'd3-shape';
-import type { MaturityAxis } from '../core/input/index.ts';
+import type { MaturityAxis } from '../core/index.ts';
 import type { SamplePoint } from '../hooks/useCurveSeries.ts';
 import { hoverStore, useHoverX } from './hover.ts';
 import { maturityScale, maturityTicks } from './maturityScale.ts';

@@ -1,5 +1,5 @@
 import { scaleLinear, scaleSqrt, type ScaleContinuousNumeric } from 'd3-scale';
-import type { MaturityAxis } from '../core/input/index.ts';
+import type { MaturityAxis } from '../core/index.ts';
 
 /** The shared maturity axis: linear in years, or square-root spaced so the short end can be read. */
 export function maturityScale(axis: MaturityAxis, xMax: number, range: [number, number]): ScaleContinuousNumeric<number, number> {

@@ -32,3 +32,4 @@ export * from './analytics/forwardSensitivity.ts';
 export * from './analytics/sensitivityMap.ts';
 export { nodePartials } from './analytics/nodePartials.ts';
 export { luFactor, luSolve, luInverse, type LuFactors } from './analytics/luDecomposition.ts';
+export * from './input/index.ts';

@@ -10,7 +10,7 @@ import {
   type RowIssues,
   type RowParse,
   type WorkbenchDocument,
-} from '../core/input/index.ts';
+} from '../core/index.ts';
 import { useAppStore } from '../state/store.ts';
 import { compiledInstruments } from './compiledInstruments.ts';
 

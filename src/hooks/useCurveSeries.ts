@@ -11,7 +11,7 @@ import {
   type ParGrid,
   type SampleGrid,
   type Samples,
-} from '../core/input/index.ts';
+} from '../core/index.ts';
 
 /** One sample of a curve for a chart: x in years on the curve's axis, y a decimal rate. */
 export interface SamplePoint {

@@ -1,6 +1,6 @@
 import { useEffect, useMemo, useState } from 'react';
 import { buildCurve, INTERPOLATIONS, type InterpolationId } from '../core/index.ts';
-import type { DisplaySettings } from '../core/input/index.ts';
+import type { DisplaySettings } from '../core/index.ts';
 import { forwardSeries, type SamplePoint } from './useCurveSeries.ts';
 
 export interface MethodForwards {

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/input/index.ts';
+import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/index.ts';
 import { tableConventionsFromDisplay } from '../features/print/printData.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';

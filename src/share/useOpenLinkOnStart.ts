@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/input/index.ts';
+import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/index.ts';
 import { makeRowId } from '../state/ids.ts';
 import { useAppStore } from '../state/store.ts';
 import { decodeWorkspaceLink } from './linkCodec.ts';

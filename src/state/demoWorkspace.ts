@@ -1,4 +1,4 @@
-import { DEFAULT_DISPLAY, WORKBENCH_FORMAT, WORKBENCH_VERSION, type QuoteRow, type RowText, type WorkbenchDocument } from '../core/input/index.ts';
+import { DEFAULT_DISPLAY, WORKBENCH_FORMAT, WORKBENCH_VERSION, type QuoteRow, type RowText, type WorkbenchDocument } from '../core/index.ts';
 
 /**
  * The built-in demo: an invented market (not any real market's prices) settling on Tuesday

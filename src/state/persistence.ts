@@ -1,4 +1,4 @@
-import { readWorkbenchDocument, type WorkbenchDocument } from '../core/input/index.ts';
+import { readWorkbenchDocument, type WorkbenchDocument } from '../core/index.ts';
 import { makeRowId } from './ids.ts';
 import { useAppStore } from './store.ts';
 

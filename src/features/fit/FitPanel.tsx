@@ -11,7 +11,7 @@ import {
   type Workspace,
 } from '../../core/index.ts';
 import { num, pct } from '../../components/format.ts';
-import { sampleGrid, zeroSamples } from '../../core/input/index.ts';
+import { sampleGrid, zeroSamples } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
 import { PALETTE } from '../../charts/palette.ts';
 import type { SamplePoint } from '../../hooks/useCurveSeries.ts';

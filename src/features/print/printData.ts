@@ -3,7 +3,7 @@ import { curveTable, type CurveTableConventions, type CurveTableRow } from '../.
 import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from '../scenarios/describeShape.ts';
 import type { PrintScenario } from './PrintSummary.tsx';
-import type { DisplaySettings } from '../../core/input/index.ts';
+import type { DisplaySettings } from '../../core/index.ts';
 
 /** The table conventions of the workbench's display settings: zero and forward in the display compounding and day count. */
 export const tableConventionsFromDisplay = (display: DisplaySettings): CurveTableConventions => ({

@@ -8,7 +8,7 @@ import {
   type QuoteRow,
   type QuoteUnitMode,
   type RowIssues,
-} from '../../core/input/index.ts';
+} from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 

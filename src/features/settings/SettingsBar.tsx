@@ -11,7 +11,7 @@ import {
   type Extrapolation,
   type InterpolationId,
 } from '../../core/index.ts';
-import { FORWARD_TENORS, type ForwardTenor, type MaturityAxis } from '../../core/input/index.ts';
+import { FORWARD_TENORS, type ForwardTenor, type MaturityAxis } from '../../core/index.ts';
 import { rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
 

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import type { Curve, Quote, Repricing } from '../../core/index.ts';
-import { bondScheduleRows, swapScheduleRows, type QuoteSchedule } from '../../core/input/index.ts';
+import { bondScheduleRows, swapScheduleRows, type QuoteSchedule } from '../../core/index.ts';
 import { couponTag, num, pct } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';

@@ -1,5 +1,5 @@
 import { addTenor, discountOn, forwardOn, parseTenor, parYieldOn, zeroOn, type Curve } from '../../core/index.ts';
-import type { DisplaySettings } from '../../core/input/index.ts';
+import type { DisplaySettings } from '../../core/index.ts';
 
 export const KEY_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'] as const;
 

@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand';
-import type { WorkbenchDocument } from '../../core/input/index.ts';
+import type { WorkbenchDocument } from '../../core/index.ts';
 import type { AppState } from '../appState.ts';
 
 /** Undo history is capped at this many steps. */

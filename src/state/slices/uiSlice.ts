@@ -1,5 +1,5 @@
 import type { StateCreator } from 'zustand';
-import type { QuoteRow, RowText } from '../../core/input/index.ts';
+import type { QuoteRow, RowText } from '../../core/index.ts';
 import type { AppState } from '../appState.ts';
 
 /** What the last paste did, so the user can choose to append instead. */

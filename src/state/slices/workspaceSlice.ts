@@ -10,7 +10,7 @@ import {
   type QuoteUnitMode,
   type RowText,
   type WorkbenchDocument,
-} from '../../core/input/index.ts';
+} from '../../core/index.ts';
 import type { AppState } from '../appState.ts';
 import { demoWorkspace } from '../demoWorkspace.ts';
 import { makeRowId } from '../ids.ts';
