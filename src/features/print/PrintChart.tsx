@@ -33,7 +33,7 @@ export function PrintChart({ title, tag, series, xMax }: PrintChartProps) {
   return (
     <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`${title} (${tag})`}>
       <text x={M.left} y={12} fontSize={10} fontWeight={600}>{title}</text>
-      <text x={M.left} y={22} fontSize={8} fill="#7a818c">{tag}; years on the curve's day count</text>
+      <text x={M.left} y={22} fontSize={8} fill="#5f6671">{tag}; years on the curve's day count</text>
       {yTicks.map((y, i) => (
         <g key={i}>
           <line x1={M.left} x2={W - M.right} y1={sy(y)} y2={sy(y)} stroke="#eceef1" />
@@ -43,7 +43,7 @@ export function PrintChart({ title, tag, series, xMax }: PrintChartProps) {
       {xTicks.map((x) => (
         <text key={x} x={sx(x)} y={H - M.bottom + 10} fontSize={7.5} textAnchor="middle">{x}</text>
       ))}
-      <text x={W - M.right} y={H - 4} fontSize={7.5} textAnchor="end" fill="#7a818c">years</text>
+      <text x={W - M.right} y={H - 4} fontSize={7.5} textAnchor="end" fill="#5f6671">years</text>
       {series.map((s, i) => (
         <polyline key={i} fill="none" stroke={s.colour} strokeWidth={1.3} strokeDasharray={s.dash} points={s.points.filter((p) => Number.isFinite(p.y)).map((p) => `${sx(p.x).toFixed(1)},${sy(p.y).toFixed(1)}`).join(' ')} />
       ))}

@@ -34,9 +34,9 @@ export function ScenarioShapeChart({ name, samples, nodes, moves, dayCount }: Sc
         <text x={M.left - 3} y={sy(hi) + 3} fontSize={8} textAnchor="end">{hi.toFixed(0)}</text>
         <text x={M.left - 3} y={sy(lo) + 3} fontSize={8} textAnchor="end">{lo.toFixed(0)}</text>
         <text x={M.left - 3} y={sy(0) + 3} fontSize={8} textAnchor="end">0</text>
-        <text x={W - M.right} y={M.top + 2} fontSize={8} textAnchor="end" fill="#7a818c">bp</text>
+        <text x={W - M.right} y={M.top + 2} fontSize={8} textAnchor="end" fill="#5f6671">bp</text>
         {[0, 5, 10, 20, 30, 40, 50].filter((x) => x <= xMax).map((x) => (
-          <text key={`x${x}`} x={sx(x)} y={H - 1} fontSize={7} textAnchor="middle" fill="#7a818c">{x}y</text>
+          <text key={`x${x}`} x={sx(x)} y={H - 1} fontSize={7} textAnchor="middle" fill="#5f6671">{x}y</text>
         ))}
         <polyline fill="none" stroke="#8a5a00" strokeDasharray="3 2" strokeWidth={1} points={path((s) => s.forwardBp)} />
         <polyline fill="none" stroke="#1d5fa6" strokeWidth={1.6} points={path((s) => s.shiftBp)} />

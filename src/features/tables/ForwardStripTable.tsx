@@ -11,7 +11,7 @@ export function ForwardStripTable({ curve }: { curve: Curve }) {
   const tag = rateTag(display.compounding, display.dayCount);
   if (!strip.ok) return <p className="field-error">{strip.errors[0]?.message}</p>;
   return (
-    <div className="scroll-y">
+    <div className="scroll-y" tabIndex={0} role="region" aria-label="Forward strip (scrolls)">
       <table className="data" aria-label="Forward strip">
         <caption>
           {display.forwardTenor} forward strip to {horizon} ({strip.value.length} periods) <span className="tag">{tag}</span>

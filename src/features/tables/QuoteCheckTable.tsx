@@ -43,7 +43,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
   const selectedIndex = rows.findIndex((r) => r.id === selectedRowId);
   return (
     <div className="quote-check">
-      <div className="scroll-y">
+      <div className="scroll-y" tabIndex={0} role="region" aria-label="Quote check (scrolls)">
         <table className="data" aria-label="Quote check">
           <caption>Each quote repriced on the built curve; choose a bond or swap row to see its schedule.</caption>
           <thead>
