@@ -8,6 +8,9 @@ import { useCurveBuild, type WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { useSettledValue } from '../hooks/useSettledValue.ts';
 import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';
 import { useAppStore } from '../state/store.ts';
+import { LinkNotice } from '../share/CopyLinkButton.tsx';
+import { ShareBar } from '../share/ShareBar.tsx';
+import { useOpenLinkOnStart } from '../share/useOpenLinkOnStart.ts';
 import { EXTENSIONS } from './extensions.tsx';
 import { TablesPanel } from './TablesPanel.tsx';
 
@@ -15,6 +18,7 @@ import { TablesPanel } from './TablesPanel.tsx';
 export function App() {
   useUndoShortcuts();
   const result = useCurveBuild();
+  const link = useOpenLinkOnStart();
   const canUndo = useAppStore((s) => s.past.length > 0);
   const canRedo = useAppStore((s) => s.future.length > 0);
   const { undo, redo, resetToDemo } = useAppStore.getState();
@@ -28,6 +32,7 @@ export function App() {
         <span className="subtitle">yield-curve workbench</span>
         <div className="top-actions">
           <StorageStatusText />
+          <ShareBar result={result} />
           <button type="button" onClick={undo} disabled={!canUndo} aria-keyshortcuts="Control+Z Meta+Z" title="Undo (Ctrl+Z)">
             Undo
           </button>
@@ -41,6 +46,7 @@ export function App() {
       </header>
       <Caution />
       <StorageBanner />
+      <LinkNotice message={link.message} onDismiss={link.dismiss} />
       <SettingsBar />
       <main className="workbench">
         <div className="row row-top">

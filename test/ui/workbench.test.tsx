@@ -85,7 +85,7 @@ describe('paste', () => {
     paste(cell(1, 'Rate / yield'), '4.11\n4.22');
     expect(cell(1, 'Rate / yield')).toHaveValue('4.11');
     expect(cell(2, 'Rate / yield')).toHaveValue('4.22');
-    expect(cell(3, 'Rate / yield')).toHaveValue('4.37');
+    expect(cell(3, 'Rate / yield')).toHaveValue('4.360');
   });
 });
 
@@ -110,7 +110,7 @@ describe('units', () => {
   it('switching to decimal re-writes bare numbers; a bare 3.25 then asks "did you mean %?"', () => {
     render(<App />);
     fireEvent.click(screen.getByRole('radio', { name: 'decimal' }));
-    expect(cell(1, 'Rate / yield')).toHaveValue('0.0428');
+    expect(cell(1, 'Rate / yield')).toHaveValue('0.04455');
     fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '3.25' } });
     expect(cell(1, 'Rate / yield')).toHaveAccessibleDescription(/did you mean 3.25%\?/);
     fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '325bp' } });
@@ -168,11 +168,11 @@ describe('undo and redo', () => {
     fireEvent.change(input, { target: { value: '5.5' } });
     fireEvent.blur(input);
     fireEvent.keyDown(input, { key: 'z', ctrlKey: true });
-    expect(cell(1, 'Rate / yield')).toHaveValue('4.28');
+    expect(cell(1, 'Rate / yield')).toHaveValue('4.455');
     fireEvent.keyDown(input, { key: 'Z', ctrlKey: true, shiftKey: true });
     expect(cell(1, 'Rate / yield')).toHaveValue('5.5');
     fireEvent.keyDown(input, { key: 'z', metaKey: true });
-    expect(cell(1, 'Rate / yield')).toHaveValue('4.28');
+    expect(cell(1, 'Rate / yield')).toHaveValue('4.455');
     fireEvent.keyDown(document.body, { key: 'y', ctrlKey: true });
     expect(cell(1, 'Rate / yield')).toHaveValue('5.5');
   });
