@@ -33,3 +33,5 @@ export * from './analytics/sensitivityMap.ts';
 export { nodePartials } from './analytics/nodePartials.ts';
 export { luFactor, luSolve, luInverse, type LuFactors } from './analytics/luDecomposition.ts';
 export * from './input/index.ts';
+export * from './analysis/scenarios.ts';
+export * from './export/exports.ts';

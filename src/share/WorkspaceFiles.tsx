@@ -1,5 +1,5 @@
 import { useRef, useState, type ChangeEvent } from 'react';
-import { curveTableCsv, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/export/exports.ts';
+import { curveTableCsv, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
 import type { Curve } from '../core/index.ts';
 
 export interface WorkspaceFilesProps {

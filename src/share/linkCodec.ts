@@ -1,4 +1,4 @@
-import { linkDocument, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/export/exports.ts';
+import { linkDocument, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/index.ts';
 import { decodeBase64Url, encodeBase64Url } from './base64url.ts';
 import { BUILD_ID } from './buildId.ts';
 import { deflateRaw, inflateRawCapped } from './compression.ts';

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { LIMITS } from '../../core/export/exports.ts';
+import { LIMITS } from '../../core/index.ts';
 import { PRINT_NOTE_CHARS } from './PrintSummary.tsx';
 
 export interface NoteEditorProps {

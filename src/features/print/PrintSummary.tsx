@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import type { EffectRow } from '../../core/analysis/scenarios.ts';
-import type { CurveTableConventions, CurveTableRow } from '../../core/export/exports.ts';
+import type { EffectRow } from '../../core/index.ts';
+import type { CurveTableConventions, CurveTableRow } from '../../core/index.ts';
 import { COMPOUNDING_LABEL } from '../../core/index.ts';
 import { CAUTION_TEXT } from '../../components/Caution.tsx';
 import { formatBp, formatPct } from '../scenarios/formatChange.ts';

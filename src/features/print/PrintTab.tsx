@@ -1,6 +1,6 @@
 import { useMemo, useState, type ReactNode } from 'react';
-import { applyScenario } from '../../core/analysis/scenarios.ts';
-import { validateScenarios, workspaceHash } from '../../core/export/exports.ts';
+import { applyScenario } from '../../core/index.ts';
+import { validateScenarios, workspaceHash } from '../../core/index.ts';
 import { COMPOUNDING_LABEL } from '../../core/index.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';

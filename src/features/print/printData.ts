@@ -1,5 +1,5 @@
-import { applyScenario, KEY_TENORS, scenarioEffects, type Scenario } from '../../core/analysis/scenarios.ts';
-import { curveTable, type CurveTableConventions, type CurveTableRow } from '../../core/export/exports.ts';
+import { applyScenario, KEY_TENORS, scenarioEffects, type Scenario } from '../../core/index.ts';
+import { curveTable, type CurveTableConventions, type CurveTableRow } from '../../core/index.ts';
 import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from '../scenarios/describeShape.ts';
 import type { PrintScenario } from './PrintSummary.tsx';

@@ -1,6 +1,6 @@
 import { useId, useState, type FormEvent } from 'react';
-import { SCENARIO_KINDS, type Scenario, type ScenarioKind, type ScenarioSpace } from '../../core/analysis/scenarios.ts';
-import { validateScenarios } from '../../core/export/exports.ts';
+import { SCENARIO_KINDS, type Scenario, type ScenarioKind, type ScenarioSpace } from '../../core/index.ts';
+import { validateScenarios } from '../../core/index.ts';
 
 const KIND_LABEL: Record<ScenarioKind, string> = { parallel: 'Parallel', twist: 'Steepener / flattener', butterfly: 'Butterfly', 'key-rate': 'Key-rate bumps' };
 

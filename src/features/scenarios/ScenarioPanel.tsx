@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
-import { applyScenario, KEY_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/analysis/scenarios.ts';
-import { validateScenarios } from '../../core/export/exports.ts';
+import { applyScenario, KEY_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/index.ts';
+import { validateScenarios } from '../../core/index.ts';
 import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from './describeShape.ts';
 import { ScenarioForm } from './ScenarioForm.tsx';

@@ -1,4 +1,4 @@
-import type { ShapeSample } from '../../core/analysis/scenarios.ts';
+import type { ShapeSample } from '../../core/index.ts';
 
 export interface ScenarioShapeChartProps {
   readonly name: string;

@@ -1,4 +1,4 @@
-import type { EffectRow } from '../../core/analysis/scenarios.ts';
+import type { EffectRow } from '../../core/index.ts';
 import { formatBp } from './formatChange.ts';
 
 export interface ScenarioTableProps {

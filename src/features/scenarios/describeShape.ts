@@ -1,4 +1,4 @@
-import type { ScenarioShape } from '../../core/analysis/scenarios.ts';
+import type { ScenarioShape } from '../../core/index.ts';
 
 const bpText = (x: number): string => `${x > 0 ? '+' : x < 0 ? '\u2212' : ''}${Math.abs(x)} bp`;
 

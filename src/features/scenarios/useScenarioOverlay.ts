@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
-import { applyScenario } from '../../core/analysis/scenarios.ts';
-import { validateScenarios } from '../../core/export/exports.ts';
+import { applyScenario } from '../../core/index.ts';
+import { validateScenarios } from '../../core/index.ts';
 import { COMPOUNDING_LABEL } from '../../core/index.ts';
 import type { ChartLine } from '../../charts/RateChart.tsx';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';

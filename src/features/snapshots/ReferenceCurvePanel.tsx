@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { parseReferenceCsv, referenceConvention, referenceDifferences } from '../../core/analysis/scenarios.ts';
+import { parseReferenceCsv, referenceConvention, referenceDifferences } from '../../core/index.ts';
 import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
 import { formatBp, formatPct } from '../scenarios/formatChange.ts';
 

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
-import { compareCurves, KEY_TENORS, rebuildSnapshot, takeSnapshot, type CompareBy, type Snapshot } from '../../core/analysis/scenarios.ts';
-import { validateSnapshots } from '../../core/export/exports.ts';
+import { compareCurves, KEY_TENORS, rebuildSnapshot, takeSnapshot, type CompareBy, type Snapshot } from '../../core/index.ts';
+import { validateSnapshots } from '../../core/index.ts';
 import { COMPOUNDING_LABEL, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
 import { formatBp, formatPct } from '../scenarios/formatChange.ts';
 import '../scenarios/scenarios.css';
