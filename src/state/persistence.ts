@@ -2,6 +2,9 @@ import { readWorkbenchDocument, type WorkbenchDocument } from '../core/index.ts'
 import { makeRowId } from './ids.ts';
 import { useAppStore } from './store.ts';
 
+/** Undo and redo steps kept with the saved workspace (each way), so both survive a reload. */
+export const SAVED_HISTORY_CAP = 50;
+
 /** Where the workspace is kept in the browser (localStorage). */
 export const STORAGE_KEY = 'tenorscope.workspace';
 /** Unreadable saved entries are copied under this prefix plus a time stamp before anything replaces them. */
@@ -17,6 +20,8 @@ interface SavedEntry {
   readonly writer: string;
   readonly savedAt: number;
   readonly workspace: WorkbenchDocument;
+  /** The newest undo steps (oldest first) and redo steps (next redo last), at most SAVED_HISTORY_CAP each. */
+  readonly history?: { readonly past: readonly unknown[]; readonly future: readonly unknown[] };
 }
 
 type Message = { type: 'hello' | 'here' | 'bye'; tab: string } | { type: 'saved'; tab: string; stamp: string };
@@ -112,11 +117,29 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     return { entry: entry as SavedEntry, doc, problem };
   };
 
+  /** The saved undo/redo steps, or none if any step is unreadable (the workspace itself still loads). */
+  const readHistory = (entry: SavedEntry): { past: WorkbenchDocument[]; future: WorkbenchDocument[] } => {
+    const h = entry.history;
+    if (!h || !Array.isArray(h.past) || !Array.isArray(h.future)) return { past: [], future: [] };
+    const read = (list: readonly unknown[]): WorkbenchDocument[] | null => {
+      const out: WorkbenchDocument[] = [];
+      for (const item of list.slice(-SAVED_HISTORY_CAP)) {
+        const { doc } = readWorkbenchDocument(item, makeRowId);
+        if (!doc) return null;
+        out.push(doc);
+      }
+      return out;
+    };
+    const past = read(h.past);
+    const future = read(h.future);
+    return past && future ? { past, future } : { past: [], future: [] };
+  };
+
   // 1. Restore.
   const raw = readRaw();
   const first = parseEntry(raw);
   if (first.doc && first.entry) {
-    store.setState({ workspace: first.doc, past: [], future: [], lastEditKey: null });
+    store.setState({ workspace: first.doc, ...readHistory(first.entry), lastEditKey: null });
     lastSeen = first.entry.stamp;
     setStorage({ state: 'saved', savedAt: first.entry.savedAt });
   } else if (raw !== null) {
@@ -143,9 +166,18 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     }
     const stamp = `${tabId}:${++revision}`;
     const savedAt = now();
-    const entry: SavedEntry = { app: 'tenorscope', stamp, writer: tabId, savedAt, workspace: store.getState().workspace };
+    const state = store.getState();
+    const history = { past: state.past.slice(-SAVED_HISTORY_CAP), future: state.future.slice(-SAVED_HISTORY_CAP) };
+    const entry: SavedEntry = { app: 'tenorscope', stamp, writer: tabId, savedAt, workspace: state.workspace, history };
     try {
-      storage.setItem(STORAGE_KEY, JSON.stringify(entry));
+      try {
+        storage.setItem(STORAGE_KEY, JSON.stringify(entry));
+      } catch (e) {
+        // Storage too full for the history: the workspace itself comes first.
+        if (!isQuotaError(e)) throw e;
+        const { history: _dropped, ...bare } = entry;
+        storage.setItem(STORAGE_KEY, JSON.stringify(bare));
+      }
     } catch (e) {
       const message = isQuotaError(e) ? 'Browser storage is full (quota exceeded).' : `The browser refused to store the workspace (${e instanceof Error ? e.message : String(e)}).`;
       setStorage({ state: 'memory', message });

@@ -1,7 +1,7 @@
 // Autosave and restore against a storage double: saved within 300 ms of an edit and on page
 // hide, restored on start, a full quota reported with the work kept in memory, an unreadable
 // entry copied aside, and another tab's save never silently overwritten.
-import { flushSave, resolveConflict, startPersistence, STORAGE_KEY, UNREADABLE_PREFIX, type PersistenceDeps } from '../../src/state/persistence.ts';
+import { flushSave, resolveConflict, SAVED_HISTORY_CAP, startPersistence, STORAGE_KEY, UNREADABLE_PREFIX, type PersistenceDeps } from '../../src/state/persistence.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
 const initial = useAppStore.getInitialState();
@@ -68,6 +68,30 @@ describe('startPersistence', () => {
     expect(s().workspace.quotes[0]!.rate).not.toBe('4.99');
     start(storage, undefined, 'tabB');
     expect(s().workspace.quotes[0]!.rate).toBe('4.99');
+    // The undo step was saved with it (issue 7: undo and redo survive a reload).
+    expect(s().past).toHaveLength(1);
+    s().undo();
+    expect(s().workspace.quotes[0]!.rate).not.toBe('4.99');
+    s().redo();
+    expect(s().workspace.quotes[0]!.rate).toBe('4.99');
+  });
+
+  it('keeps at most SAVED_HISTORY_CAP undo steps, and drops a damaged history but not the workspace', () => {
+    const storage = new MemoryStorage();
+    start(storage);
+    for (let i = 0; i < SAVED_HISTORY_CAP + 10; i++) {
+      s().setCell(s().workspace.quotes[0]!.id, 'rate', `4.${i}`);
+      s().endEdit();
+    }
+    vi.advanceTimersByTime(300);
+    const saved = JSON.parse(storage.getItem(STORAGE_KEY)!);
+    expect(saved.history.past).toHaveLength(SAVED_HISTORY_CAP);
+    stop!();
+    useAppStore.setState(initial, true);
+    saved.history.past[3] = { nonsense: true };
+    storage.setItem(STORAGE_KEY, JSON.stringify(saved));
+    start(storage, undefined, 'tabB');
+    expect(s().workspace.quotes[0]!.rate).toBe(`4.${SAVED_HISTORY_CAP + 9}`);
     expect(s().past).toHaveLength(0);
   });
 
