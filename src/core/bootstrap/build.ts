@@ -7,8 +7,8 @@ import { compileSwap } from '../instruments/swap.ts';
 import { compileZero } from '../instruments/zero.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
-import { curveTime, type CurveDayCount } from '../time/dayCount.ts';
-import type { IsoDate } from '../time/date.ts';
+import { curveTimeCivil, type CurveDayCount } from '../time/dayCount.ts';
+import { parseIsoDate, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, Workspace } from '../workspace/types.ts';
 import { validateWorkspace } from '../workspace/validate.ts';
 import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
@@ -42,8 +42,17 @@ export interface BuildOptions {
 
 /** Compiles one validated quote against a settlement date and curve day count. */
 export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCount): Instrument {
-  const time = (d: IsoDate): number => curveTime(dayCount, settlement, d);
-  const t = time(q.maturity);
+  const s = parseIsoDate(settlement);
+  if (!s) throw new RangeError(`not an ISO date: ${settlement}`); // programming error: the workspace is validated
+  return compileQuoteCivil(q, settlement, s, dayCount);
+}
+
+/** compileQuote with the settlement date already parsed (performance: once per market). */
+function compileQuoteCivil(q: Quote, settlement: IsoDate, s: CivilDate, dayCount: CurveDayCount): Instrument {
+  const m = parseIsoDate(q.maturity);
+  if (!m) throw new RangeError(`not an ISO date: ${q.maturity}`);
+  const t = curveTimeCivil(dayCount, s, m);
+  const time = (d: CivilDate): number => curveTimeCivil(dayCount, s, d);
   switch (q.kind) {
     case 'deposit':
       return compileDeposit(q, settlement, t);
@@ -52,9 +61,9 @@ export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCo
     case 'zero':
       return compileZero(q, settlement, t);
     case 'bond':
-      return compileBond(q, settlement, t, time);
+      return compileBond(q, s, m, t, time);
     case 'swap':
-      return compileSwap(q, settlement, t, time);
+      return compileSwap(q, s, m, t, time);
   }
 }
 
@@ -73,7 +82,10 @@ export interface CompiledMarket {
 }
 
 export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quotes: readonly Quote[], skipDuplicates: boolean): CompiledMarket {
-  const compiled = quotes.filter((q) => q.enabled).map((q) => compileQuote(q, settlement, dayCount));
+  const s = parseIsoDate(settlement);
+  if (!s) throw new RangeError(`not an ISO date: ${settlement}`); // programming error: the workspace is validated
+  const compiled: Instrument[] = [];
+  for (const q of quotes) if (q.enabled) compiled.push(compileQuoteCivil(q, settlement, s, dayCount));
   compiled.sort((a, b) => a.t - b.t || a.index - b.index);
   const instruments: Instrument[] = [];
   const errors: CoreError[] = [];

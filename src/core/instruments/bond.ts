@@ -1,6 +1,6 @@
-import { yearFraction, type DayCount, type DayCountContext } from '../time/dayCount.ts';
-import type { IsoDate } from '../time/date.ts';
-import { backwardSchedule } from '../time/schedule.ts';
+import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
+import { isoFromCivil, parseIsoDate, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { BondQuote } from '../workspace/types.ts';
 import type { Instrument } from './instrument.ts';
 
@@ -35,13 +35,33 @@ export interface BondTerms {
 }
 
 export function bondSchedule(terms: BondTerms, settlement: IsoDate): BondSchedule {
-  const { maturity, coupon, frequency, dayCount, eom } = terms;
-  const { dates, previous } = backwardSchedule(settlement, maturity, frequency, eom);
+  const s = parseIsoDate(settlement);
+  const m = parseIsoDate(terms.maturity);
+  if (!s || !m) throw new RangeError(`not an ISO date: ${s ? terms.maturity : settlement}`);
+  const c = bondScheduleCivil(terms, s, m);
+  const last = c.dates.length - 1;
+  const dates = c.dates.map((d, i) => (i === last ? terms.maturity : isoFromCivil(d)));
+  return { previous: isoFromCivil(c.previous), dates, amounts: c.amounts, accrued: c.accrued, w: c.w, frequency: c.frequency, coupon: c.coupon };
+}
+
+/** What pricing from a yield needs of a schedule (bondDirtyFromYield, bondYieldFromDirty). */
+export type YieldSchedule = Pick<BondSchedule, 'amounts' | 'w' | 'frequency' | 'coupon'>;
+
+/** `bondSchedule` on civil dates (performance: no ISO text per coupon date); same rules and units. */
+export function bondScheduleCivil(
+  terms: BondTerms,
+  settlement: CivilDate,
+  maturity: CivilDate,
+): YieldSchedule & { readonly dates: readonly CivilDate[]; readonly previous: CivilDate; readonly accrued: number } {
+  const { coupon, frequency, dayCount, eom } = terms;
+  const { dates, previous } = backwardScheduleCivil(settlement, maturity, frequency, eom);
   const next = dates[0]!;
-  const ctx: DayCountContext = { termination: maturity, eom, refStart: previous, refEnd: next, frequency };
-  const accrued = 100 * coupon * yearFraction(dayCount, previous, settlement, ctx);
+  // ICMA reference period: the coupon period (previous, next); 30E/360-ISDA: termination the maturity.
+  const refDays = serialFromCivil(next) - serialFromCivil(previous);
+  const yf = (a: CivilDate, b: CivilDate): number => yearFractionCivil(dayCount, a, b, eom, sameCivil(b, maturity), refDays, frequency);
+  const accrued = 100 * coupon * yf(previous, settlement);
   // w: the ICMA exponent of the first flow, the fraction of the coupon period still to run.
-  const w = yearFraction(dayCount, settlement, next, ctx) / yearFraction(dayCount, previous, next, ctx);
+  const w = yf(settlement, next) / yf(previous, next);
   const c = (100 * coupon) / frequency;
   const amounts = dates.map((_, i) => (i === dates.length - 1 ? c + 100 : c));
   return { previous, dates, amounts, accrued, w, frequency, coupon };
@@ -52,7 +72,7 @@ export function bondSchedule(terms: BondTerms, settlement: IsoDate): BondSchedul
  *   P = sum_k CF_k (1 + y/f)^-(w + k),  k = 0, 1, ..., N-1.
  * Returns the price and dP/dy.
  */
-export function bondDirtyFromYield(s: BondSchedule, y: number): { price: number; dPdy: number; d2Pdy2: number } {
+export function bondDirtyFromYield(s: YieldSchedule, y: number): { price: number; dPdy: number; d2Pdy2: number } {
   const f = s.frequency;
   const lnV = -Math.log1p(y / f);
   let price = 0;
@@ -73,7 +93,7 @@ export function bondDirtyFromYield(s: BondSchedule, y: number): { price: number;
  * Newton from the coupon rate, safeguarded by bisection on (-f, 10); null when none exists
  * (the price is not positive, or not reachable with a yield above -f).
  */
-export function bondYieldFromDirty(s: BondSchedule, dirty: number): number | null {
+export function bondYieldFromDirty(s: YieldSchedule, dirty: number): number | null {
   if (!(dirty > 0) || !Number.isFinite(dirty)) return null;
   let lo = -s.frequency * (1 - 1e-9);
   let hi = 10;
@@ -93,8 +113,8 @@ export function bondYieldFromDirty(s: BondSchedule, dirty: number): number | nul
   return y;
 }
 
-export function compileBond(q: BondQuote, settlement: IsoDate, t: number, time: (d: IsoDate) => number): Instrument {
-  const s = bondSchedule(q, settlement);
+export function compileBond(q: BondQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
+  const s = bondScheduleCivil(q, settlement, maturity);
   const times = new Float64Array(s.dates.length);
   const amounts = new Float64Array(s.dates.length);
   for (let j = 0; j < times.length; j++) {

@@ -103,4 +103,7 @@ export const addMonths = (date: IsoDate, months: number, eom = false): IsoDate =
   return isoFromCivil(addMonthsCivil(c, months, eom));
 };
 
+/** True when two civil dates are the same day. */
+export const sameCivil = (a: CivilDate, b: CivilDate): boolean => a.y === b.y && a.m === b.m && a.d === b.d;
+
 export const compareIso = (a: IsoDate, b: IsoDate): number => (a < b ? -1 : a > b ? 1 : 0);

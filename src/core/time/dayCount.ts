@@ -53,6 +53,9 @@ function actActIsda(a: CivilDate, b: CivilDate): number {
   return endA / (isLeapYear(a.y) ? 366 : 365) + (b.y - a.y - 1) + startB / (isLeapYear(b.y) ? 366 : 365);
 }
 
+const NO_CONTEXT: DayCountContext = {};
+const EOM_CONTEXT: DayCountContext = { eom: true };
+
 /**
  * Year fraction from d1 to d2 under a day count, in years. d2 before d1 gives the negative of
  * the fraction from d2 to d1 for the actual-day conventions; the 30/360 family is evaluated by
@@ -62,10 +65,46 @@ function actActIsda(a: CivilDate, b: CivilDate): number {
  * fraction = days(d1, d2) / (frequency x days(refStart, refEnd)). Without them it is an error of
  * the caller (a RangeError), never a silent value.
  */
-export function yearFraction(dayCount: DayCount, d1: IsoDate, d2: IsoDate, ctx: DayCountContext = {}): number {
+export function yearFraction(dayCount: DayCount, d1: IsoDate, d2: IsoDate, ctx: DayCountContext = NO_CONTEXT): number {
   const a = parseIsoDate(d1);
   const b = parseIsoDate(d2);
   if (!a || !b) throw new RangeError(`yearFraction: not ISO dates: ${d1}, ${d2}`);
+  switch (dayCount) {
+    case '30E/360-ISDA': {
+      if (ctx.termination === undefined) throw new RangeError('30E/360-ISDA needs the termination date');
+      return yearFractionCivil(dayCount, a, b, false, d2 === ctx.termination, 0, 0);
+    }
+    case 'ACT/ACT-ICMA': {
+      const { refStart, refEnd, frequency } = ctx;
+      if (refStart === undefined || refEnd === undefined || frequency === undefined) {
+        throw new RangeError('ACT/ACT-ICMA needs the reference period and frequency');
+      }
+      return yearFractionCivil(dayCount, a, b, false, false, daysBetween(refStart, refEnd), frequency);
+    }
+    default:
+      return yearFractionCivil(dayCount, a, b, ctx.eom === true, false, 0, 0);
+  }
+}
+
+/**
+ * `yearFraction` on civil dates already parsed, with its context spelled out (performance: schedules
+ * and curve times are computed on civil dates without formatting or re-parsing ISO strings, and
+ * without a context object per call). Same formulas and sources as `yearFraction`, in years.
+ * - `eom`: 30/360-US end-of-February rules;
+ * - `bIsTermination`: 30E/360-ISDA, b is the instrument's termination date;
+ * - `refDays`, `frequency`: ACT/ACT-ICMA, actual days of the regular reference period and the
+ *   coupon frequency per year (fraction = days(a, b) / (frequency x refDays)).
+ * The caller checks that the context a day count needs is present.
+ */
+export function yearFractionCivil(
+  dayCount: DayCount,
+  a: CivilDate,
+  b: CivilDate,
+  eom: boolean,
+  bIsTermination: boolean,
+  refDays: number,
+  frequency: number,
+): number {
   switch (dayCount) {
     case 'ACT/360':
       return (serialFromCivil(b) - serialFromCivil(a)) / 360;
@@ -86,9 +125,8 @@ export function yearFraction(dayCount: DayCount, d1: IsoDate, d2: IsoDate, ctx: 
     case '30E/360-ISDA': {
       // 4.16(h): D1 = 30 if the last day of February or the 31st; D2 = 30 if the 31st, or the last
       // day of February unless D2 is the termination date.
-      if (ctx.termination === undefined) throw new RangeError('30E/360-ISDA needs the termination date');
       const D1 = a.d === 31 || isLastOfFebruary(a) ? 30 : a.d;
-      const D2 = b.d === 31 || (isLastOfFebruary(b) && d2 !== ctx.termination) ? 30 : b.d;
+      const D2 = b.d === 31 || (isLastOfFebruary(b) && !bIsTermination) ? 30 : b.d;
       return thirty360(a, b, D1, D2);
     }
     case '30/360-US': {
@@ -96,7 +134,7 @@ export function yearFraction(dayCount: DayCount, d1: IsoDate, d2: IsoDate, ctx: 
       // (3) D2 = 31 and D1 >= 30: D2 = 30; (4) D1 = 31: D1 = 30. Rules 1-2 only with eom.
       let D1 = a.d;
       let D2 = b.d;
-      if (ctx.eom) {
+      if (eom) {
         if (isLastOfFebruary(a) && isLastOfFebruary(b)) D2 = 30;
         if (isLastOfFebruary(a)) D1 = 30;
       }
@@ -104,23 +142,23 @@ export function yearFraction(dayCount: DayCount, d1: IsoDate, d2: IsoDate, ctx: 
       if (D1 === 31) D1 = 30;
       return thirty360(a, b, D1, D2);
     }
-    case 'ACT/ACT-ICMA': {
-      const { refStart, refEnd, frequency } = ctx;
-      if (refStart === undefined || refEnd === undefined || frequency === undefined) {
-        throw new RangeError('ACT/ACT-ICMA needs the reference period and frequency');
-      }
-      return daysBetween(d1, d2) / (frequency * daysBetween(refStart, refEnd));
-    }
+    case 'ACT/ACT-ICMA':
+      return (serialFromCivil(b) - serialFromCivil(a)) / (frequency * refDays);
   }
 }
+
+/** `curveTime` on civil dates already parsed (years under the curve day count; see curveTime). */
+export const curveTimeCivil = (dayCount: CurveDayCount, settlement: CivilDate, date: CivilDate): number =>
+  yearFractionCivil(dayCount, settlement, date, true, false, 0, 0);
 
 /**
  * The curve's clock: year fraction from settlement under a curve day count. The 30/360-US
  * end-of-February rules always apply to curve queries.
  */
 export const curveTime = (dayCount: CurveDayCount, settlement: IsoDate, date: IsoDate): number =>
-  yearFraction(dayCount, settlement, date, { eom: true });
+  yearFraction(dayCount, settlement, date, EOM_CONTEXT);
 
 /** Year fraction under a query (curve) day count between two dates. */
 export const queryYearFraction = (dayCount: CurveDayCount, d1: IsoDate, d2: IsoDate): number =>
-  yearFraction(dayCount, d1, d2, { eom: true });
+  yearFraction(dayCount, d1, d2, EOM_CONTEXT);
+

@@ -1,4 +1,4 @@
-import { addMonths, compareIso, type IsoDate } from './date.ts';
+import { addMonthsCivil, isoFromCivil, parseIsoDate, type CivilDate, type IsoDate } from './date.ts';
 
 /**
  * Coupon dates generated backward from an end date: end - k x (12/frequency) months for
@@ -12,17 +12,39 @@ export interface BackwardSchedule {
   readonly previous: IsoDate;
 }
 
-/** Generates a backward schedule from `end` (which must be after `start`). frequency: 1, 2, 4 or 12 per year. */
-export function backwardSchedule(start: IsoDate, end: IsoDate, frequency: number, eom: boolean): BackwardSchedule {
+/** The same schedule on civil dates (see backwardSchedule). */
+export interface CivilBackwardSchedule {
+  readonly dates: readonly CivilDate[];
+  readonly previous: CivilDate;
+}
+
+/** Day order of two civil dates: negative, zero or positive as a is before, on or after b. */
+const compareCivil = (a: CivilDate, b: CivilDate): number => a.y - b.y || a.m - b.m || a.d - b.d;
+
+/**
+ * `backwardSchedule` on civil dates (performance: no ISO text formatted or parsed per date).
+ * `end` must be after `start`; frequency: 1, 2, 4 or 12 per year.
+ */
+export function backwardScheduleCivil(start: CivilDate, end: CivilDate, frequency: number, eom: boolean): CivilBackwardSchedule {
   const step = 12 / frequency;
-  const dates: IsoDate[] = [];
+  const dates: CivilDate[] = [];
   let k = 0;
   let date = end;
-  while (compareIso(date, start) > 0) {
+  while (compareCivil(date, start) > 0) {
     dates.push(date);
     k += 1;
-    date = addMonths(end, -k * step, eom);
+    date = addMonthsCivil(end, -k * step, eom);
   }
   dates.reverse();
   return { dates, previous: date };
+}
+
+/** Generates a backward schedule from `end` (which must be after `start`). frequency: 1, 2, 4 or 12 per year. */
+export function backwardSchedule(start: IsoDate, end: IsoDate, frequency: number, eom: boolean): BackwardSchedule {
+  const s = parseIsoDate(start);
+  const e = parseIsoDate(end);
+  if (!s || !e) throw new RangeError(`not an ISO date: ${s ? end : start}`);
+  const civil = backwardScheduleCivil(s, e, frequency, eom);
+  const dates = civil.dates.map((d, i) => (i === civil.dates.length - 1 ? end : isoFromCivil(d)));
+  return { dates, previous: isoFromCivil(civil.previous) };
 }
