@@ -47,27 +47,49 @@ export function billInvestmentYield(price: number, settlement: IsoDate, maturity
 
 export function compileBill(q: BillQuote, settlement: IsoDate, t: number): Instrument {
   const days = daysBetween(settlement, q.maturity);
-  const times = new Float64Array([t]);
-  const amounts = new Float64Array([100]);
-  const byYield = q.discountYield !== null;
-  const make = (value: number): Instrument => ({
-    quote: q,
-    index: q.index,
-    kind: 'bill',
-    maturity: q.maturity,
-    t,
-    unit: byYield ? 'rate' : 'price',
-    field: byYield ? 'discountYield' : 'price',
-    market: value,
-    times,
-    amounts,
-    target: byYield ? billPriceFromDiscountYield(value, days) : value,
-    closedFormLn: byYield ? (value * days < 360 ? Math.log1p((-value * days) / 360) : Number.NaN) : Math.log(value / 100),
-    modelQuote: (lnDiscountAt) => {
-      const df = Math.exp(lnDiscountAt(t));
-      return byYield ? (-Math.expm1(lnDiscountAt(t)) * 360) / days : 100 * df;
-    },
-    requote: make,
-  });
-  return make(byYield ? q.discountYield! : q.price!);
+  return new BillInstrument(q, t, new Float64Array([t]), new Float64Array([100]), days, q.discountYield !== null ? q.discountYield : q.price!);
+}
+
+/** A compiled bill. Performance: a class, so that a requote creates no closures. */
+class BillInstrument implements Instrument {
+  declare readonly quote: BillQuote;
+  declare readonly index: number;
+  declare readonly kind: 'bill';
+  declare readonly maturity: IsoDate;
+  declare readonly t: number;
+  declare readonly unit: 'rate' | 'price';
+  declare readonly field: 'discountYield' | 'price';
+  declare readonly market: number;
+  declare readonly times: Float64Array;
+  declare readonly amounts: Float64Array;
+  declare readonly target: number;
+  declare readonly closedFormLn: number;
+  /** Actual days from settlement to maturity. */
+  declare readonly days: number;
+
+  constructor(q: BillQuote, t: number, times: Float64Array, amounts: Float64Array, days: number, value: number) {
+    const byYield = q.discountYield !== null;
+    this.quote = q;
+    this.index = q.index;
+    this.kind = 'bill';
+    this.maturity = q.maturity;
+    this.t = t;
+    this.unit = byYield ? 'rate' : 'price';
+    this.field = byYield ? 'discountYield' : 'price';
+    this.market = value;
+    this.times = times;
+    this.amounts = amounts;
+    this.target = byYield ? billPriceFromDiscountYield(value, days) : value;
+    this.closedFormLn = byYield ? (value * days < 360 ? Math.log1p((-value * days) / 360) : Number.NaN) : Math.log(value / 100);
+    this.days = days;
+  }
+
+  modelQuote(lnDiscountAt: (t: number) => number): number {
+    const df = Math.exp(lnDiscountAt(this.t));
+    return this.unit === 'rate' ? (-Math.expm1(lnDiscountAt(this.t)) * 360) / this.days : 100 * df;
+  }
+
+  requote(value: number): Instrument {
+    return new BillInstrument(this.quote, this.t, this.times, this.amounts, this.days, value);
+  }
 }

@@ -121,30 +121,58 @@ export function compileBond(q: BondQuote, settlement: CivilDate, maturity: Civil
     times[j] = time(s.dates[j]!);
     amounts[j] = s.amounts[j]!;
   }
-  const byYield = q.yield !== null;
-  const model = (lnDiscountAt: (t: number) => number): number => {
-    let pv = 0;
-    for (let j = 0; j < times.length; j++) pv += amounts[j]! * Math.exp(lnDiscountAt(times[j]!));
-    return pv;
-  };
-  const make = (value: number): Instrument => ({
-    quote: q,
-    index: q.index,
-    kind: 'bond',
-    maturity: q.maturity,
-    t,
-    unit: byYield ? 'rate' : 'price',
-    field: byYield ? 'yield' : 'cleanPrice',
-    market: value,
-    times,
-    amounts,
-    target: byYield ? bondDirtyFromYield(s, value).price : value + s.accrued,
-    closedFormLn: null,
-    modelQuote: (lnDiscountAt) => {
-      const dirty = model(lnDiscountAt);
-      return byYield ? (bondYieldFromDirty(s, dirty) ?? Number.NaN) : dirty - s.accrued;
-    },
-    requote: make,
-  });
-  return make(byYield ? q.yield! : q.cleanPrice!);
+  const accrued = s.accrued;
+  const yieldSchedule: YieldSchedule = { amounts: s.amounts, w: s.w, frequency: s.frequency, coupon: s.coupon };
+  return new BondInstrument(q, t, times, amounts, yieldSchedule, accrued, q.yield !== null ? q.yield : q.cleanPrice!);
+}
+
+/**
+ * A compiled bond. Performance: a class, so that a requote creates one object and no closures
+ * (the command-line runner's transform adds a name-setting call to every closure).
+ */
+class BondInstrument implements Instrument {
+  declare readonly quote: BondQuote;
+  declare readonly index: number;
+  declare readonly kind: 'bond';
+  declare readonly maturity: IsoDate;
+  declare readonly t: number;
+  declare readonly unit: 'rate' | 'price';
+  declare readonly field: 'yield' | 'cleanPrice';
+  declare readonly market: number;
+  declare readonly times: Float64Array;
+  declare readonly amounts: Float64Array;
+  declare readonly target: number;
+  declare readonly closedFormLn: null;
+  /** The schedule's yield terms and the accrued interest per 100 face at settlement. */
+  declare readonly schedule: YieldSchedule;
+  declare readonly accrued: number;
+
+  constructor(q: BondQuote, t: number, times: Float64Array, amounts: Float64Array, schedule: YieldSchedule, accrued: number, value: number) {
+    const byYield = q.yield !== null;
+    this.quote = q;
+    this.index = q.index;
+    this.kind = 'bond';
+    this.maturity = q.maturity;
+    this.t = t;
+    this.unit = byYield ? 'rate' : 'price';
+    this.field = byYield ? 'yield' : 'cleanPrice';
+    this.market = value;
+    this.times = times;
+    this.amounts = amounts;
+    this.target = byYield ? bondDirtyFromYield(schedule, value).price : value + accrued;
+    this.closedFormLn = null;
+    this.schedule = schedule;
+    this.accrued = accrued;
+  }
+
+  modelQuote(lnDiscountAt: (t: number) => number): number {
+    const { times, amounts } = this;
+    let dirty = 0;
+    for (let j = 0; j < times.length; j++) dirty += amounts[j]! * Math.exp(lnDiscountAt(times[j]!));
+    return this.unit === 'rate' ? (bondYieldFromDirty(this.schedule, dirty) ?? Number.NaN) : dirty - this.accrued;
+  }
+
+  requote(value: number): Instrument {
+    return new BondInstrument(this.quote, this.t, this.times, this.amounts, this.schedule, this.accrued, value);
+  }
 }

@@ -9,22 +9,47 @@ import type { Instrument } from './instrument.ts';
  */
 export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number): Instrument {
   const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-  const times = new Float64Array([t]);
-  const make = (rate: number): Instrument => ({
-    quote: q,
-    index: q.index,
-    kind: 'deposit',
-    maturity: q.maturity,
-    t,
-    unit: 'rate',
-    field: 'rate',
-    market: rate,
-    times,
-    amounts: new Float64Array([1 + rate * tau]),
-    target: 1,
-    closedFormLn: 1 + rate * tau > 0 ? -Math.log1p(rate * tau) : Number.NaN,
-    modelQuote: (lnDiscountAt) => Math.expm1(-lnDiscountAt(t)) / tau,
-    requote: make,
-  });
-  return make(q.rate);
+  return new DepositInstrument(q, t, new Float64Array([t]), tau, q.rate);
+}
+
+/** A compiled deposit. Performance: a class, so that a requote creates no closures. */
+class DepositInstrument implements Instrument {
+  declare readonly quote: DepositQuote;
+  declare readonly index: number;
+  declare readonly kind: 'deposit';
+  declare readonly maturity: IsoDate;
+  declare readonly t: number;
+  declare readonly unit: 'rate';
+  declare readonly field: 'rate';
+  declare readonly market: number;
+  declare readonly times: Float64Array;
+  declare readonly amounts: Float64Array;
+  declare readonly target: number;
+  declare readonly closedFormLn: number;
+  /** Year fraction of the deposit under its day count. */
+  declare readonly tau: number;
+
+  constructor(q: DepositQuote, t: number, times: Float64Array, tau: number, rate: number) {
+    this.quote = q;
+    this.index = q.index;
+    this.kind = 'deposit';
+    this.maturity = q.maturity;
+    this.t = t;
+    this.unit = 'rate';
+    this.field = 'rate';
+    this.market = rate;
+    this.times = times;
+    this.amounts = new Float64Array([1 + rate * tau]);
+    this.target = 1;
+    this.closedFormLn = 1 + rate * tau > 0 ? -Math.log1p(rate * tau) : Number.NaN;
+    this.tau = tau;
+  }
+
+  modelQuote(lnDiscountAt: (t: number) => number): number {
+    return Math.expm1(-lnDiscountAt(this.t)) / this.tau;
+  }
+
+  requote(value: number): Instrument {
+    return new DepositInstrument(this.quote, this.t, this.times, this.tau, value);
+  }
 }

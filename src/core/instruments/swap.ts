@@ -57,30 +57,58 @@ export function compileSwap(q: SwapQuote, settlement: CivilDate, maturity: Civil
     times[j] = time(leg.dates[j]!);
     taus[j] = leg.taus[j]!;
   }
-  const make = (rate: number): Instrument => {
+  return new SwapInstrument(q, t, times, taus, q.rate);
+}
+
+/**
+ * A compiled swap. Performance: a class, so that a requote creates one object and one array, with
+ * no closures (the command-line runner's transform adds a name-setting call to every closure).
+ */
+class SwapInstrument implements Instrument {
+  declare readonly quote: SwapQuote;
+  declare readonly index: number;
+  declare readonly kind: 'swap';
+  declare readonly maturity: IsoDate;
+  declare readonly t: number;
+  declare readonly unit: 'rate';
+  declare readonly field: 'rate';
+  declare readonly market: number;
+  declare readonly times: Float64Array;
+  declare readonly amounts: Float64Array;
+  declare readonly target: number;
+  declare readonly closedFormLn: null;
+  /** Accrual year fractions tau_i of the fixed periods. */
+  declare readonly taus: Float64Array;
+
+  constructor(q: SwapQuote, t: number, times: Float64Array, taus: Float64Array, rate: number) {
+    const n = taus.length;
     const amounts = new Float64Array(n);
     for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
     amounts[n - 1] = amounts[n - 1]! + 1;
-    return {
-      quote: q,
-      index: q.index,
-      kind: 'swap',
-      maturity: q.maturity,
-      t,
-      unit: 'rate',
-      field: 'rate',
-      market: rate,
-      times,
-      amounts,
-      target: 1,
-      closedFormLn: null,
-      modelQuote: (lnDiscountAt) => {
-        let annuity = 0;
-        for (let j = 0; j < n; j++) annuity += taus[j]! * Math.exp(lnDiscountAt(times[j]!));
-        return -Math.expm1(lnDiscountAt(times[n - 1]!)) / annuity;
-      },
-      requote: make,
-    };
-  };
-  return make(q.rate);
+    this.quote = q;
+    this.index = q.index;
+    this.kind = 'swap';
+    this.maturity = q.maturity;
+    this.t = t;
+    this.unit = 'rate';
+    this.field = 'rate';
+    this.market = rate;
+    this.times = times;
+    this.amounts = amounts;
+    this.target = 1;
+    this.closedFormLn = null;
+    this.taus = taus;
+  }
+
+  modelQuote(lnDiscountAt: (t: number) => number): number {
+    const { times, taus } = this;
+    const n = taus.length;
+    let annuity = 0;
+    for (let j = 0; j < n; j++) annuity += taus[j]! * Math.exp(lnDiscountAt(times[j]!));
+    return -Math.expm1(lnDiscountAt(times[n - 1]!)) / annuity;
+  }
+
+  requote(value: number): Instrument {
+    return new SwapInstrument(this.quote, this.t, this.times, this.taus, value);
+  }
 }
