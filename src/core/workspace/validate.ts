@@ -123,35 +123,63 @@ function checkCurve(v: unknown, errors: CoreError[]): CurveSettings | null {
   return { dayCount, interpolation, extrapolation, fit } as CurveSettings;
 }
 
-interface FieldReader {
-  number(field: string, min: number, max: number, what: string, minExclusive?: boolean): number | null | undefined;
-  dayCount(field: string, fallback: DayCount): DayCount | null;
+// Performance: the readers below are module-level functions taking the quote's context as
+// arguments, not closures made per quote (the command-line runner's transform adds a
+// name-setting call to every closure created). `base` is the quote's path, `quotes[index]`.
+
+function readNumber(raw: Record<string, unknown>, base: string, index: number, errors: CoreError[], field: string, min: number, max: number, what: string, minExclusive = false): number | null | undefined {
+  const v = raw[field];
+  if (v === undefined) return undefined;
+  if (typeof v !== 'number' || !Number.isFinite(v)) {
+    errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: must be a number ${what}, not ${typeName(v)}`, index));
+    return null;
+  }
+  if ((minExclusive ? v <= min : v < min) || v > max) {
+    const hint = RATE_FIELDS.includes(field) && v > 1 ? '; rates are decimals: 0.05 = 5%' : '';
+    errors.push(coreError('range', `${base}.${field}`, `${base}.${field}: must be a number ${what}, not ${v}${hint}`, index));
+    return null;
+  }
+  return v;
 }
 
-function fieldReader(raw: Record<string, unknown>, index: number, errors: CoreError[]): FieldReader {
-  const path = (f: string): string => `quotes[${index}].${f}`;
-  return {
-    number(field, min, max, what, minExclusive = false) {
-      const v = raw[field];
-      if (v === undefined) return undefined;
-      if (typeof v !== 'number' || !Number.isFinite(v)) {
-        errors.push(coreError('schema', path(field), `${path(field)}: must be a number ${what}, not ${typeName(v)}`, index));
-        return null;
-      }
-      if ((minExclusive ? v <= min : v < min) || v > max) {
-        const hint = RATE_FIELDS.includes(field) && v > 1 ? '; rates are decimals: 0.05 = 5%' : '';
-        errors.push(coreError('range', path(field), `${path(field)}: must be a number ${what}, not ${v}${hint}`, index));
-        return null;
-      }
-      return v;
-    },
-    dayCount(field, fallback) {
-      const v = raw[field] ?? fallback;
-      if (isDayCount(v)) return v;
-      errors.push(coreError('unknown-identifier', path(field), `${path(field)}: must be one of ${listOf(DAY_COUNTS)}, not ${typeName(v)}`, index));
-      return null;
-    },
-  };
+function readDayCount(raw: Record<string, unknown>, base: string, index: number, errors: CoreError[], field: string, fallback: DayCount): DayCount | null {
+  const v = raw[field] ?? fallback;
+  if (isDayCount(v)) return v;
+  errors.push(coreError('unknown-identifier', `${base}.${field}`, `${base}.${field}: must be one of ${listOf(DAY_COUNTS)}, not ${typeName(v)}`, index));
+  return null;
+}
+
+function required<T>(v: T | null | undefined, field: string, what: string, base: string, index: number, errors: CoreError[]): T | null {
+  if (v === undefined) errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: required, a number ${what}`, index));
+  return v ?? null;
+}
+
+function oneOf(raw: Record<string, unknown>, k: Quote['kind'], base: string, index: number, errors: CoreError[], a: string, b: string): void {
+  if ((raw[a] === undefined) === (raw[b] === undefined)) {
+    errors.push(coreError('schema', base, `${base}: a ${k} takes exactly one of ${a} and ${b}`, index));
+  }
+}
+
+function readFrequency(raw: Record<string, unknown>, k: Quote['kind'], base: string, index: number, errors: CoreError[]): number | null {
+  const v = raw.frequency;
+  if (v === undefined) return k === 'bond' ? 2 : 1;
+  if (typeof v === 'number' && (FREQUENCIES as readonly number[]).includes(v)) return v;
+  errors.push(coreError(typeof v === 'number' ? 'range' : 'schema', `${base}.frequency`, `${base}.frequency: must be one of ${listOf(FREQUENCIES)} payments a year, not ${typeName(v)}`, index));
+  return null;
+}
+
+function readEom(raw: Record<string, unknown>, base: string, index: number, errors: CoreError[], fallback: boolean): boolean | null {
+  if (raw.eom === undefined) return fallback;
+  if (typeof raw.eom === 'boolean') return raw.eom;
+  errors.push(coreError('schema', `${base}.eom`, `${base}.eom: must be true or false, not ${typeName(raw.eom)}`, index));
+  return null;
+}
+
+/** ACT/ACT-ICMA needs a coupon period: refused for deposits and zeros, which have none. */
+function noCouponPeriod(dc: DayCount | null, what: string, base: string, index: number, errors: CoreError[]): DayCount | null {
+  if (dc !== 'ACT/ACT-ICMA') return dc;
+  errors.push(coreError('unknown-identifier', `${base}.dayCount`, `${base}.dayCount: ACT/ACT-ICMA needs a coupon period, which a ${what} has not; use one of ${listOf(DAY_COUNTS.filter((d) => d !== 'ACT/ACT-ICMA'))}`, index));
+  return null;
 }
 
 const RATE_TEXT = `from ${RATE_MIN} to ${RATE_MAX}`;
@@ -203,57 +231,28 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
     if (typeof raw.enabled !== 'boolean') errors.push(coreError('schema', `${base}.enabled`, `${base}.enabled: must be true or false, not ${typeName(raw.enabled)}`, index));
     else enabled = raw.enabled;
   }
-  const read = fieldReader(raw, index, errors);
-  const required = <T>(v: T | null | undefined, field: string, what: string): T | null => {
-    if (v === undefined) errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: required, a number ${what}`, index));
-    return v ?? null;
-  };
-  const oneOf = (a: string, b: string): void => {
-    if ((raw[a] === undefined) === (raw[b] === undefined)) {
-      errors.push(coreError('schema', base, `${base}: a ${k} takes exactly one of ${a} and ${b}`, index));
-    }
-  };
-  const frequency = (): number | null => {
-    const v = raw.frequency;
-    if (v === undefined) return k === 'bond' ? 2 : 1;
-    if (typeof v === 'number' && (FREQUENCIES as readonly number[]).includes(v)) return v;
-    errors.push(coreError(typeof v === 'number' ? 'range' : 'schema', `${base}.frequency`, `${base}.frequency: must be one of ${listOf(FREQUENCIES)} payments a year, not ${typeName(v)}`, index));
-    return null;
-  };
-  const eom = (fallback: boolean): boolean | null => {
-    if (raw.eom === undefined) return fallback;
-    if (typeof raw.eom === 'boolean') return raw.eom;
-    errors.push(coreError('schema', `${base}.eom`, `${base}.eom: must be true or false, not ${typeName(raw.eom)}`, index));
-    return null;
-  };
-  /** ACT/ACT-ICMA needs a coupon period: refused for deposits and zeros, which have none. */
-  const noCouponPeriod = (dc: DayCount | null, what: string): DayCount | null => {
-    if (dc !== 'ACT/ACT-ICMA') return dc;
-    errors.push(coreError('unknown-identifier', `${base}.dayCount`, `${base}.dayCount: ACT/ACT-ICMA needs a coupon period, which a ${what} has not; use one of ${listOf(DAY_COUNTS.filter((d) => d !== 'ACT/ACT-ICMA'))}`, index));
-    return null;
-  };
   const priceWhat = `above 0 up to ${PRICE_MAX} (per 100 face)`;
   const common = { index, maturity: maturity ?? settlement, tenor, enabled };
   const before = errors.length;
   let quote: Quote | null = null;
   switch (k) {
     case 'deposit': {
-      const rate = required(read.number('rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT);
-      const dayCount = noCouponPeriod(read.dayCount('dayCount', 'ACT/360'), 'deposit');
+      const rate = required(readNumber(raw, base, index, errors, 'rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT, base, index, errors);
+      const dayCount = noCouponPeriod(readDayCount(raw, base, index, errors, 'dayCount', 'ACT/360'), 'deposit', base, index, errors);
       if (rate !== null && dayCount) quote = { kind: 'deposit', ...common, rate, dayCount };
       break;
     }
     case 'bill': {
-      oneOf('discountYield', 'price');
-      const discountYield = read.number('discountYield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
-      const price = read.number('price', 0, PRICE_MAX, priceWhat, true) ?? null;
+      oneOf(raw, k, base, index, errors, 'discountYield', 'price');
+      const discountYield = readNumber(raw, base, index, errors, 'discountYield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
+      const price = readNumber(raw, base, index, errors, 'price', 0, PRICE_MAX, priceWhat, true) ?? null;
       quote = { kind: 'bill', ...common, discountYield, price };
       break;
     }
     case 'zero': {
-      oneOf('price', 'rate');
-      const price = read.number('price', 0, PRICE_MAX, priceWhat, true) ?? null;
-      const rate = read.number('rate', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
+      oneOf(raw, k, base, index, errors, 'price', 'rate');
+      const price = readNumber(raw, base, index, errors, 'price', 0, PRICE_MAX, priceWhat, true) ?? null;
+      const rate = readNumber(raw, base, index, errors, 'rate', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
       if (raw.rate === undefined && (raw.compounding !== undefined || raw.dayCount !== undefined)) {
         errors.push(coreError('schema', base, `${base}: compounding and dayCount go with a rate; a zero quoted by price takes neither`, index));
       }
@@ -262,28 +261,28 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
         if (isCompounding(raw.compounding)) compounding = raw.compounding;
         else errors.push(coreError('unknown-identifier', `${base}.compounding`, `${base}.compounding: must be one of ${listOf(COMPOUNDINGS)}, not ${typeName(raw.compounding)}`, index));
       }
-      const dayCount = noCouponPeriod(read.dayCount('dayCount', 'ACT/365F'), 'zero');
+      const dayCount = noCouponPeriod(readDayCount(raw, base, index, errors, 'dayCount', 'ACT/365F'), 'zero', base, index, errors);
       if (dayCount) quote = { kind: 'zero', ...common, price, rate, compounding, dayCount };
       break;
     }
     case 'bond': {
-      const coupon = required(read.number('coupon', 0, COUPON_MAX, `from 0 to ${COUPON_MAX}`), 'coupon', `from 0 to ${COUPON_MAX}`);
-      const freq = frequency();
-      oneOf('cleanPrice', 'yield');
-      const cleanPrice = read.number('cleanPrice', 0, PRICE_MAX, priceWhat, true) ?? null;
-      const y = read.number('yield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
-      const dayCount = read.dayCount('dayCount', 'ACT/ACT-ICMA');
-      const endOfMonth = eom(maturity !== null && isMonthEnd(parseIsoDate(maturity)!));
+      const coupon = required(readNumber(raw, base, index, errors, 'coupon', 0, COUPON_MAX, `from 0 to ${COUPON_MAX}`), 'coupon', `from 0 to ${COUPON_MAX}`, base, index, errors);
+      const freq = readFrequency(raw, k, base, index, errors);
+      oneOf(raw, k, base, index, errors, 'cleanPrice', 'yield');
+      const cleanPrice = readNumber(raw, base, index, errors, 'cleanPrice', 0, PRICE_MAX, priceWhat, true) ?? null;
+      const y = readNumber(raw, base, index, errors, 'yield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
+      const dayCount = readDayCount(raw, base, index, errors, 'dayCount', 'ACT/ACT-ICMA');
+      const endOfMonth = readEom(raw, base, index, errors, maturity !== null && isMonthEnd(parseIsoDate(maturity)!));
       if (coupon !== null && freq !== null && dayCount && endOfMonth !== null) {
         quote = { kind: 'bond', ...common, coupon, frequency: freq, cleanPrice, yield: y, dayCount, eom: endOfMonth };
       }
       break;
     }
     case 'swap': {
-      const rate = required(read.number('rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT);
-      const freq = frequency();
-      const dayCount = read.dayCount('dayCount', '30/360');
-      const endOfMonth = eom(false);
+      const rate = required(readNumber(raw, base, index, errors, 'rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT, base, index, errors);
+      const freq = readFrequency(raw, k, base, index, errors);
+      const dayCount = readDayCount(raw, base, index, errors, 'dayCount', '30/360');
+      const endOfMonth = readEom(raw, base, index, errors, false);
       if (rate !== null && freq !== null && dayCount && endOfMonth !== null) {
         quote = { kind: 'swap', ...common, rate, frequency: freq, dayCount, eom: endOfMonth };
       }
