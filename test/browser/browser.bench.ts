@@ -65,10 +65,25 @@ const watchFirstChart = (rows: number | null): void => {
   observer.observe(document, { subtree: true, childList: true, attributes: true });
 };
 
+/** Navigation-start-relative times seen by the page: scripts parsed (DOMContentLoaded), chart in the DOM, chart painted. */
+const phases: { dcl: number[]; inDom: number[] } = { dcl: [], inDom: [] };
 async function firstChartMs(page: Page): Promise<number> {
   await page.waitForFunction(() => performance.getEntriesByName('chart-painted').length > 0, undefined, { timeout: 20_000 });
-  return page.evaluate(() => performance.getEntriesByName('chart-painted')[0]!.startTime);
+  const t = await page.evaluate(() => ({
+    painted: performance.getEntriesByName('chart-painted')[0]!.startTime,
+    inDom: performance.getEntriesByName('chart-in-dom')[0]!.startTime,
+    dcl: (performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming | undefined)?.domContentLoadedEventEnd ?? Number.NaN,
+  }));
+  phases.dcl.push(t.dcl);
+  phases.inDom.push(t.inDom);
+  return t.painted;
 }
+const phaseLine = (label: string): string => {
+  const line = `(diagnostic) ${label}: DOMContentLoaded median ${quantile(phases.dcl, 0.5).toFixed(1)} ms, chart in the DOM median ${quantile(phases.inDom, 0.5).toFixed(1)} ms`;
+  phases.dcl.length = 0;
+  phases.inDom.length = 0;
+  return line;
+};
 
 const server = await serveDist();
 const browser = await launchBrowser();
@@ -103,12 +118,15 @@ try {
         dt.setData('text/plain', text);
         performance.mark('paste-start');
         document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
+        performance.mark('paste-handled'); // the paste handler and any synchronous render have run
         for (let f = 0; f < 600; f++) {
           await new Promise<void>((r) => requestAnimationFrame(() => { const ch = new MessageChannel(); ch.port1.onmessage = () => r(); ch.port2.postMessage(0); }));
           const now = path();
           if (now !== null && now !== before) break;
         }
         performance.mark('paste-painted');
+        (window as unknown as { __handled: number[] }).__handled ??= [];
+        (window as unknown as { __handled: number[] }).__handled.push(performance.measure('paste-sync', 'paste-start', 'paste-handled').duration);
         return performance.measure('paste', 'paste-start', 'paste-painted').duration;
       }, fiveHundredRows(i % 2 === 0 ? 10 : -10));
       const count = await page.getByText(/quotes in the curve/).innerText();
@@ -117,6 +135,8 @@ try {
       await page.waitForTimeout(300);
     }
     rows.push({ what: 'paste 500 rows to redrawn charts', target: 100, samples });
+    const handled = (await page.evaluate(() => (window as unknown as { __handled: number[] }).__handled)).slice(2);
+    console.log(`(diagnostic) 500-row paste, dispatch to end of the synchronous handler: median ${quantile(handled, 0.5).toFixed(1)} ms`);
     await page.close();
   }
 
@@ -162,6 +182,7 @@ try {
       if (i >= 1) samples.push(ms);
     }
     rows.push({ what: 'open a shared link to the first drawn chart (cold cache)', target: 300, samples });
+    console.log(phaseLine('shared link, cold cache'));
   }
   // Diagnostics only (not a target): the same link in a profile that has opened the app before.
   {
@@ -181,6 +202,8 @@ try {
       await page.close();
     }
     await context.close();
+    phases.dcl.length = 0;
+    phases.inDom.length = 0;
     console.log(`(diagnostic) shared link, app cached by an earlier visit: median ${quantile(warm, 0.5).toFixed(1)} ms, p95 ${quantile(warm, 0.95).toFixed(1)} ms over ${warm.length} runs`);
   }
 
@@ -192,6 +215,7 @@ try {
       if (i >= 1) samples.push(ms);
     }
     rows.push({ what: 'cold load to the first drawn chart', target: 1000, samples });
+    console.log(phaseLine('cold load'));
   }
 } finally {
   await browser.close();
