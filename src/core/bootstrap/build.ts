@@ -7,7 +7,7 @@ import { compileSwap } from '../instruments/swap.ts';
 import { compileZero } from '../instruments/zero.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
-import { curveTimeCivil, type CurveDayCount } from '../time/dayCount.ts';
+import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { parseIsoDate, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, Workspace } from '../workspace/types.ts';
 import { validateWorkspace } from '../workspace/validate.ts';
@@ -44,15 +44,14 @@ export interface BuildOptions {
 export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCount): Instrument {
   const s = parseIsoDate(settlement);
   if (!s) throw new RangeError(`not an ISO date: ${settlement}`); // programming error: the workspace is validated
-  return compileQuoteCivil(q, settlement, s, dayCount);
+  return compileQuoteCivil(q, settlement, curveClock(dayCount, s), s);
 }
 
-/** compileQuote with the settlement date already parsed (performance: once per market). */
-function compileQuoteCivil(q: Quote, settlement: IsoDate, s: CivilDate, dayCount: CurveDayCount): Instrument {
+/** compileQuote with the settlement date parsed and the curve clock made once per market (performance). */
+function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate): Instrument {
   const m = parseIsoDate(q.maturity);
   if (!m) throw new RangeError(`not an ISO date: ${q.maturity}`);
-  const t = curveTimeCivil(dayCount, s, m);
-  const time = (d: CivilDate): number => curveTimeCivil(dayCount, s, d);
+  const t = time(m);
   switch (q.kind) {
     case 'deposit':
       return compileDeposit(q, settlement, t);
@@ -84,8 +83,9 @@ export interface CompiledMarket {
 export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quotes: readonly Quote[], skipDuplicates: boolean): CompiledMarket {
   const s = parseIsoDate(settlement);
   if (!s) throw new RangeError(`not an ISO date: ${settlement}`); // programming error: the workspace is validated
+  const time = curveClock(dayCount, s);
   const compiled: Instrument[] = [];
-  for (const q of quotes) if (q.enabled) compiled.push(compileQuoteCivil(q, settlement, s, dayCount));
+  for (const q of quotes) if (q.enabled) compiled.push(compileQuoteCivil(q, settlement, time, s));
   compiled.sort((a, b) => a.t - b.t || a.index - b.index);
   const instruments: Instrument[] = [];
   const errors: CoreError[] = [];

@@ -47,7 +47,7 @@ export function billInvestmentYield(price: number, settlement: IsoDate, maturity
 
 export function compileBill(q: BillQuote, settlement: IsoDate, t: number): Instrument {
   const days = daysBetween(settlement, q.maturity);
-  return new BillInstrument(q, t, new Float64Array([t]), new Float64Array([100]), days, q.discountYield !== null ? q.discountYield : q.price!);
+  return new BillInstrument(q, t, new Float64Array([t]), [100], days, q.discountYield !== null ? q.discountYield : q.price!);
 }
 
 /** A compiled bill. Performance: a class, so that a requote creates no closures. */
@@ -61,13 +61,13 @@ class BillInstrument implements Instrument {
   declare readonly field: 'discountYield' | 'price';
   declare readonly market: number;
   declare readonly times: Float64Array;
-  declare readonly amounts: Float64Array;
+  declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: number;
   /** Actual days from settlement to maturity. */
   declare readonly days: number;
 
-  constructor(q: BillQuote, t: number, times: Float64Array, amounts: Float64Array, days: number, value: number) {
+  constructor(q: BillQuote, t: number, times: Float64Array, amounts: number[], days: number, value: number) {
     const byYield = q.discountYield !== null;
     this.quote = q;
     this.index = q.index;

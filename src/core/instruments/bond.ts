@@ -116,7 +116,7 @@ export function bondYieldFromDirty(s: YieldSchedule, dirty: number): number | nu
 export function compileBond(q: BondQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
   const s = bondScheduleCivil(q, settlement, maturity);
   const times = new Float64Array(s.dates.length);
-  const amounts = new Float64Array(s.dates.length);
+  const amounts = new Array<number>(s.dates.length);
   for (let j = 0; j < times.length; j++) {
     times[j] = time(s.dates[j]!);
     amounts[j] = s.amounts[j]!;
@@ -140,14 +140,14 @@ class BondInstrument implements Instrument {
   declare readonly field: 'yield' | 'cleanPrice';
   declare readonly market: number;
   declare readonly times: Float64Array;
-  declare readonly amounts: Float64Array;
+  declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: null;
   /** The schedule's yield terms and the accrued interest per 100 face at settlement. */
   declare readonly schedule: YieldSchedule;
   declare readonly accrued: number;
 
-  constructor(q: BondQuote, t: number, times: Float64Array, amounts: Float64Array, schedule: YieldSchedule, accrued: number, value: number) {
+  constructor(q: BondQuote, t: number, times: Float64Array, amounts: number[], schedule: YieldSchedule, accrued: number, value: number) {
     const byYield = q.yield !== null;
     this.quote = q;
     this.index = q.index;

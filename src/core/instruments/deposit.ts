@@ -23,7 +23,7 @@ class DepositInstrument implements Instrument {
   declare readonly field: 'rate';
   declare readonly market: number;
   declare readonly times: Float64Array;
-  declare readonly amounts: Float64Array;
+  declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: number;
   /** Year fraction of the deposit under its day count. */
@@ -39,7 +39,7 @@ class DepositInstrument implements Instrument {
     this.field = 'rate';
     this.market = rate;
     this.times = times;
-    this.amounts = new Float64Array([1 + rate * tau]);
+    this.amounts = [1 + rate * tau];
     this.target = 1;
     this.closedFormLn = 1 + rate * tau > 0 ? -Math.log1p(rate * tau) : Number.NaN;
     this.tau = tau;

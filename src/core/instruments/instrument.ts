@@ -25,7 +25,13 @@ export interface Instrument {
   /** The market quote in `unit`. */
   readonly market: number;
   readonly times: Float64Array;
-  readonly amounts: Float64Array;
+  /**
+   * Cash flow at each time, in the instrument's unit of present value (per 100 face, or per 1 of
+   * notional). Performance: a plain array of doubles in the compiled instruments, not a
+   * Float64Array, since a requote allocates one and a small typed array costs several hundred
+   * nanoseconds to allocate in Node 20 (see interpolation/types.ts, copyNodes).
+   */
+  readonly amounts: ArrayLike<number>;
   readonly target: number;
   /**
    * For a single flow at the pillar (deposit, bill, zero): ln DF at the pillar in closed form,

@@ -38,7 +38,8 @@ export function fixedLegCivil(start: CivilDate, end: CivilDate, frequency: numbe
     const date = dates[i]!;
     const from = i === 0 ? start : dates[i - 1]!;
     const refStart = i === 0 ? previous : from;
-    taus[i] = yearFractionCivil(dayCount, from, date, eom, sameCivil(date, end), serialFromCivil(date) - serialFromCivil(refStart), frequency);
+    const refDays = dayCount === 'ACT/ACT-ICMA' ? serialFromCivil(date) - serialFromCivil(refStart) : 0;
+    taus[i] = yearFractionCivil(dayCount, from, date, eom, sameCivil(date, end), refDays, frequency);
   }
   return { dates, taus };
 }
@@ -74,7 +75,7 @@ class SwapInstrument implements Instrument {
   declare readonly field: 'rate';
   declare readonly market: number;
   declare readonly times: Float64Array;
-  declare readonly amounts: Float64Array;
+  declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: null;
   /** Accrual year fractions tau_i of the fixed periods. */
@@ -82,7 +83,7 @@ class SwapInstrument implements Instrument {
 
   constructor(q: SwapQuote, t: number, times: Float64Array, taus: Float64Array, rate: number) {
     const n = taus.length;
-    const amounts = new Float64Array(n);
+    const amounts = new Array<number>(n);
     for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
     amounts[n - 1] = amounts[n - 1]! + 1;
     this.quote = q;

@@ -10,7 +10,7 @@ import type { Instrument } from './instrument.ts';
  */
 export function compileZero(q: ZeroQuote, settlement: IsoDate, t: number): Instrument {
   const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-  return new ZeroInstrument(q, t, new Float64Array([t]), new Float64Array([100]), tau, q.rate !== null ? q.rate : q.price!);
+  return new ZeroInstrument(q, t, new Float64Array([t]), [100], tau, q.rate !== null ? q.rate : q.price!);
 }
 
 /** A compiled zero-coupon bond. Performance: a class, so that a requote creates no closures. */
@@ -24,13 +24,13 @@ class ZeroInstrument implements Instrument {
   declare readonly field: 'rate' | 'price';
   declare readonly market: number;
   declare readonly times: Float64Array;
-  declare readonly amounts: Float64Array;
+  declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: number;
   /** Year fraction from settlement to maturity under the quote's day count. */
   declare readonly tau: number;
 
-  constructor(q: ZeroQuote, t: number, times: Float64Array, amounts: Float64Array, tau: number, value: number) {
+  constructor(q: ZeroQuote, t: number, times: Float64Array, amounts: number[], tau: number, value: number) {
     const byRate = q.rate !== null;
     this.quote = q;
     this.index = q.index;
