@@ -55,8 +55,10 @@ beforeAll(async () => {
   await page.goto(server.url, { waitUntil: 'load' });
   await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
   // The user never touches the mouse from here on: no page.click, no locator.click/fill.
-  page.mouse.click = () => Promise.reject(new Error('mouse used in the keyboard-only test'));
-  page.mouse.down = page.mouse.click;
+  const refuse = (): Promise<never> => Promise.reject(new Error('mouse used in the keyboard-only test'));
+  page.mouse.click = refuse;
+  page.mouse.down = refuse;
+  page.mouse.dblclick = refuse;
 });
 
 afterAll(async () => {
