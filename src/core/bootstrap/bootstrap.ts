@@ -81,8 +81,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
       if (!Number.isFinite(x)) return solveFailure(ins, 'non-positive-discount');
       return x;
     }
-    const tv = ts.subarray(0, m + 1);
-    const yv = ys.subarray(0, m + 1);
+    const nodes = m + 1; // nodes 0..m (performance: no subarray view per solve)
     const { times, amounts } = ins;
     // Performance: with a locality (monotone convex on the full curve) the flows at or before
     // t_(k - locality) do not move with node k: they are summed once, not at every solver step.
@@ -94,8 +93,8 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
       // fixed part (with a locality) and the sensitivity of the flow at the node itself,
       // a_last DF(t_k), a lower bound on dPV/dy_k in normal markets.
       const tFixed = spec.locality !== undefined && k - spec.locality >= 1 ? ts[k - spec.locality]! : -Infinity;
-      yv[k] = x0;
-      const interp = build(tv, yv);
+      ys[k] = x0;
+      const interp = build(ts, ys, nodes);
       let moving = 0;
       for (let j = 0; j < times.length; j++) {
         const pv = amounts[j]! * Math.exp(interp.lnDiscount(times[j]!));
@@ -114,8 +113,8 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
       if (Math.abs(f0) <= 0.25 * NODE_TOLERANCE * lastPv) return x0;
     }
     const outcome = solveNode((x) => {
-      yv[k] = x;
-      const interp = build(tv, yv);
+      ys[k] = x;
+      const interp = build(ts, ys, nodes);
       let pv = fixed;
       for (let j = first; j < times.length; j++) pv += amounts[j]! * Math.exp(interp.lnDiscount(times[j]!));
       return pv - ins.target;
@@ -153,14 +152,13 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const solveAffineAt = (k: number, m: number, build: typeof spec.build, x0: number, local: boolean): CoreError | number => {
     const ins = instruments[k - 1]!;
     if (closedForm[k - 1]) return solveAt(k, m, build, x0);
-    const tv = ts.subarray(0, m + 1);
-    const yv = ys.subarray(0, m + 1);
+    const nodes = m + 1; // nodes 0..m (performance: no subarray view per solve)
     const tPrev = local ? ts[k - 1]! : -Infinity;
     const { times, amounts } = ins;
     // Every value at x0 is read before the node moves to x0 + 1: an interpolation may read the
     // node arrays by reference.
-    yv[k] = x0;
-    const a = build(tv, yv);
+    ys[k] = x0;
+    const a = build(ts, ys, nodes);
     let fixed = 0;
     let count = 0;
     let first = times.length; // index of the first flow after t_(k-1); flows are in time order
@@ -182,10 +180,10 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     if (cached) {
       for (let j = 0; j < count; j++) segSlope[j] = slopeCache[slopeOffset[k]! + j]!;
     } else {
-      yv[k] = x0 + 1;
-      const b = build(tv, yv);
+      ys[k] = x0 + 1;
+      const b = build(ts, ys, nodes);
       for (let j = 0; j < count; j++) segSlope[j] = b.lnDiscount(times[first + j]!) - segLn[j]!;
-      yv[k] = x0;
+      ys[k] = x0;
       if (!local) {
         for (let j = 0; j < count; j++) slopeCache[slopeOffset[k]! + j] = segSlope[j]!;
         slopeReady[k] = 1;

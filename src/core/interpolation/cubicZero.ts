@@ -25,9 +25,9 @@ function splineAt(t: readonly number[], z: readonly number[], M: readonly number
  * derivatives (e.g. Burden and Faires, "Numerical Analysis", natural cubic spline algorithm;
  * cited from memory).
  */
-export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
-  const n = ts.length - 1;
-  const t = copy(ts);
+export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
+  const n = (count ?? ts.length) - 1;
+  const t = copy(ts, n + 1);
   const z = zeroArray(n + 1);
   for (let i = 1; i <= n; i++) z[i] = -lnDfs[i]! / t[i]!;
   z[0] = z[1]!;

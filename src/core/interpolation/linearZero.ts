@@ -15,10 +15,10 @@ const zeroAt = (t: readonly number[], y: readonly number[], x: number, i: number
  * `linear-zero`: the continuously compounded zero rate z(t) = -lnDF(t)/t is linear in t between
  * pillars and flat at z(t_1) before the first pillar. f(t) = z(t) + t z'(t). Common practice.
  */
-export function interpolatorLinearZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
-  const n = ts.length - 1;
-  const t = copy(ts);
-  const y = copy(lnDfs);
+export function interpolatorLinearZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
+  const n = (count ?? ts.length) - 1;
+  const t = copy(ts, n + 1);
+  const y = copy(lnDfs, n + 1);
   return {
     lnDiscount(x) {
       if (x === t[n]!) return y[n]!;

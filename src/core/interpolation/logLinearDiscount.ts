@@ -12,10 +12,10 @@ const discrete = (t: readonly number[], y: readonly number[], i: number): number
  * flat on each segment at the discrete forward d_i = -(lnDF_i - lnDF_(i-1)) / (t_i - t_(i-1)).
  * Common practice (piecewise flat forwards).
  */
-export function interpolatorLogLinearDiscount(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
-  const n = ts.length - 1;
-  const t = copy(ts);
-  const y = copy(lnDfs);
+export function interpolatorLogLinearDiscount(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
+  const n = (count ?? ts.length) - 1;
+  const t = copy(ts, n + 1);
+  const y = copy(lnDfs, n + 1);
   return {
     lnDiscount(x) {
       if (x >= t[n]!) return y[n]! - discrete(t, y, n) * (x - t[n]!);

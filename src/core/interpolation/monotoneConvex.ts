@@ -72,10 +72,10 @@ function segmentShape(f: readonly number[], d: readonly number[], i: number, x: 
  * (the paper's positivity collar); the bootstrap refuses it when a discrete forward is negative.
  */
 export function monotoneConvexFactory(positive: boolean) {
-  return function interpolatorMonotoneConvex(ts: ArrayLike<number>, lnDfs: ArrayLike<number>): Interpolation {
-    const n = ts.length - 1;
-    const t = copy(ts);
-    const y = copy(lnDfs);
+  return function interpolatorMonotoneConvex(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
+    const n = (count ?? ts.length) - 1;
+    const t = copy(ts, n + 1);
+    const y = copy(lnDfs, n + 1);
     const d = zeroArray(n + 1); // d[i] for segment i, 1..n
     for (let i = 1; i <= n; i++) d[i] = -(y[i]! - y[i - 1]!) / (t[i]! - t[i - 1]!);
     const f = zeroArray(n + 1);

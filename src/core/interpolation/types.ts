@@ -18,9 +18,10 @@ export const isInterpolation = (x: unknown): x is InterpolationId =>
 
 /**
  * Builds an interpolation from node arrays (index 0 is t = 0, lnDF = 0). The arrays are read at
- * construction only.
+ * construction only. `count`: use the first `count` nodes only (default all); performance: the
+ * bootstrap builds on a prefix of its node arrays without making a view of them per build.
  */
-export type InterpolatorFactory = (ts: ArrayLike<number>, lnDfs: ArrayLike<number>) => Interpolation;
+export type InterpolatorFactory = (ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number) => Interpolation;
 
 export interface InterpolatorSpec {
   readonly id: InterpolationId;
@@ -73,8 +74,7 @@ export function segmentIndex(ts: ArrayLike<number>, n: number, t: number): numbe
  * under a hundred for a plain array, and interpolations are built once or twice per node solve
  * in the bootstrap, so the copy is on the hot path. The values stay float64 either way.
  */
-export function copyNodes(xs: ArrayLike<number>): number[] {
-  const n = xs.length;
+export function copyNodes(xs: ArrayLike<number>, n: number = xs.length): number[] {
   const out = new Array<number>(n);
   for (let i = 0; i < n; i++) out[i] = xs[i]!;
   return out;
