@@ -60,18 +60,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const ts = new Float64Array(n + 1);
   const ys = new Float64Array(n + 1);
   instruments.forEach((ins, k) => (ts[k + 1] = ins.t));
-  const failed = (errors: CoreError[]): BootstrapOutcome => ({ curve: null, errors, warnings: [], repricing: [], sweeps: 0 });
   const closedForm = instruments.map((ins) => ins.closedFormLn !== null && ins.times.length === 1 && ins.times[0] === ins.t);
-
-  const solveFailure = (ins: Instrument, reason: 'non-positive-discount' | 'no-solution'): CoreError =>
-    coreError(
-      reason,
-      `quotes[${ins.index}].${ins.field}`,
-      reason === 'non-positive-discount'
-        ? `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): ${ins.field} ${ins.market} implies a discount factor <= 0 at ${ins.maturity}; check the quote's value and unit`
-        : `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): no discount factor at ${ins.maturity} reprices ${ins.field} ${ins.market}; check the quote`,
-      ins.index,
-    );
 
   /** Solves node k with the interpolation built on nodes 0..m (m = k for local, n for global). */
   const solveAt = (k: number, m: number, build: typeof spec.build, x0: number): CoreError | number => {
@@ -199,47 +188,13 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     return outcome.x;
   };
 
-  const guess = (k: number): number => {
-    if (k === 1) {
-      const ins = instruments[0]!;
-      const rate = ins.unit === 'rate' ? ins.market : 0.03;
-      return -rate * ins.t;
-    }
-    const fwd = k >= 2 && ts[k - 1]! > ts[k - 2]! ? -(ys[k - 1]! - ys[k - 2]!) / (ts[k - 1]! - ts[k - 2]!) : 0.03;
-    return ys[k - 1]! - fwd * (ts[k]! - ts[k - 1]!);
-  };
-
   // Pass 1: local bootstrap (log-linear for the global methods' starting point).
   const localBuild = spec.global ? INTERPOLATORS['log-linear-discount'].build : spec.build;
   for (let k = 1; k <= n; k++) {
-    const x = solveAffineAt(k, k, localBuild, guess(k), true);
+    const x = solveAffineAt(k, k, localBuild, guess(instruments, ts, ys, k), true);
     if (typeof x !== 'number') return failed([x]);
     ys[k] = x;
   }
-
-  const reprice = (lnDiscountAt: (t: number) => number): Repricing[] =>
-    instruments.map((ins) => {
-      const model = ins.modelQuote(lnDiscountAt);
-      return {
-        index: ins.index,
-        kind: ins.kind,
-        maturity: ins.maturity,
-        t: ins.t,
-        unit: ins.unit,
-        field: ins.field,
-        market: ins.market,
-        model,
-        repricingError: model - ins.market,
-      };
-    });
-  const worst = (rows: Repricing[]): { row: Repricing; ratio: number } | null => {
-    let out: { row: Repricing; ratio: number } | null = null;
-    for (const row of rows) {
-      const ratio = Number.isFinite(row.repricingError) ? Math.abs(row.repricingError) / acceptanceBound(row.unit) : Infinity;
-      if (!out || ratio > out.ratio) out = { row, ratio };
-    }
-    return out;
-  };
 
   /**
    * Fallback for the global methods when Gauss-Seidel cannot go on: a damped Newton iteration on
@@ -310,7 +265,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     let sweepFailure: CoreError | null = null;
     const accepted = (): boolean => {
       const interp = spec.build(ts, ys);
-      const w = worst(reprice((t) => interp.lnDiscount(t)));
+      const w = worst(reprice(instruments, (t) => interp.lnDiscount(t)));
       return !w || w.ratio <= 1;
     };
     sweepsLoop: while (sweeps < MAX_SWEEPS) {
@@ -345,7 +300,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     if (!converged && sweepFailure) return failed([sweepFailure]);
     if (!converged) {
       const interp = spec.build(ts, ys);
-      const w = worst(reprice((t) => interp.lnDiscount(t)))!;
+      const w = worst(reprice(instruments, (t) => interp.lnDiscount(t)))!;
       return failed([
         coreError(
           'not-converged',
@@ -360,7 +315,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const interp = spec.build(ts, ys);
   const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
   const curve = curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, interp);
-  const repricing = reprice(curve.lnDiscountAt);
+  const repricing = reprice(instruments, curve.lnDiscountAt);
   const w = worst(repricing);
   if (w && w.ratio > 1) {
     return failed([
@@ -391,4 +346,67 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   }
   if (errors.length > 0) return failed(errors);
   return { curve, errors: [], warnings, repricing, sweeps };
+}
+
+// Performance: helpers of bootstrapInstruments at module level, not closures made per call (the
+// command-line runner's transform adds a name-setting call to every closure created).
+
+function failed(errors: CoreError[]): BootstrapOutcome {
+  return { curve: null, errors, warnings: [], repricing: [], sweeps: 0 };
+}
+
+function solveFailure(ins: Instrument, reason: 'non-positive-discount' | 'no-solution'): CoreError {
+  return coreError(
+    reason,
+    `quotes[${ins.index}].${ins.field}`,
+    reason === 'non-positive-discount'
+      ? `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): ${ins.field} ${ins.market} implies a discount factor <= 0 at ${ins.maturity}; check the quote's value and unit`
+      : `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): no discount factor at ${ins.maturity} reprices ${ins.field} ${ins.market}; check the quote`,
+    ins.index,
+  );
+}
+
+/** Starting value of node k: the previous segment's discrete forward carried on (3% at first). */
+function guess(instruments: readonly Instrument[], ts: Float64Array, ys: Float64Array, k: number): number {
+  if (k === 1) {
+    const ins = instruments[0]!;
+    const rate = ins.unit === 'rate' ? ins.market : 0.03;
+    return -rate * ins.t;
+  }
+  const fwd = k >= 2 && ts[k - 1]! > ts[k - 2]! ? -(ys[k - 1]! - ys[k - 2]!) / (ts[k - 1]! - ts[k - 2]!) : 0.03;
+  return ys[k - 1]! - fwd * (ts[k]! - ts[k - 1]!);
+}
+
+function reprice(instruments: readonly Instrument[], lnDiscountAt: (t: number) => number): Repricing[] {
+  const rows = new Array<Repricing>(instruments.length);
+  for (let i = 0; i < instruments.length; i++) {
+    const ins = instruments[i]!;
+    const model = ins.modelQuote(lnDiscountAt);
+    rows[i] = {
+      index: ins.index,
+      kind: ins.kind,
+      maturity: ins.maturity,
+      t: ins.t,
+      unit: ins.unit,
+      field: ins.field,
+      market: ins.market,
+      model,
+      repricingError: model - ins.market,
+    };
+  }
+  return rows;
+}
+
+/** The row with the largest repricing error relative to its acceptance bound (the first on ties). */
+function worst(rows: Repricing[]): { row: Repricing; ratio: number } | null {
+  let best: Repricing | null = null;
+  let bestRatio = 0;
+  for (const row of rows) {
+    const ratio = Number.isFinite(row.repricingError) ? Math.abs(row.repricingError) / acceptanceBound(row.unit) : Infinity;
+    if (best === null || ratio > bestRatio) {
+      best = row;
+      bestRatio = ratio;
+    }
+  }
+  return best === null ? null : { row: best, ratio: bestRatio };
 }
