@@ -1,8 +1,11 @@
-// The only startup code that touches the page: restore the saved workspace, keep saving it, render.
+// The only startup code that touches the page: restore the saved workspace, keep saving it,
+// open a workspace link in the address (before the first render, so the first chart drawn is
+// the link's), render.
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { App } from './app/App.tsx';
 import { installFeaturePanels } from './app/installFeaturePanels.tsx';
+import { openLinkBeforeRender } from './share/useOpenLinkOnStart.ts';
 import { startPersistence } from './state/persistence.ts';
 import './styles/base.css';
 import './styles/workbench.css';
@@ -13,8 +16,12 @@ if (!container) throw new Error('Tenorscope: index.html has no #root element');
 installFeaturePanels();
 startPersistence();
 
-createRoot(container).render(
-  <StrictMode>
-    <App />
-  </StrictMode>,
-);
+const render = (): void => {
+  createRoot(container).render(
+    <StrictMode>
+      <App />
+    </StrictMode>,
+  );
+};
+
+void openLinkBeforeRender().then(render, render);
