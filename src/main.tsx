@@ -4,7 +4,7 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { App } from './app/App.tsx';
-import { installFeaturePanels } from './app/installFeaturePanels.tsx';
+import { installFeaturePanels, preloadFeaturePanels } from './app/installFeaturePanels.tsx';
 import { openLinkBeforeRender } from './share/useOpenLinkOnStart.ts';
 import { startPersistence } from './state/persistence.ts';
 import './styles/base.css';
@@ -13,7 +13,8 @@ import './styles/workbench.css';
 const container = document.getElementById('root');
 if (!container) throw new Error('Tenorscope: index.html has no #root element');
 
-installFeaturePanels();
+// The feature panels' code is fetched when a panel first shows, or once the first chart is up.
+void installFeaturePanels({ preload: false });
 startPersistence();
 
 const render = (): void => {
@@ -22,6 +23,8 @@ const render = (): void => {
       <App />
     </StrictMode>,
   );
+  // After the first chart: fetch the other panels' code while the user reads it.
+  setTimeout(() => void preloadFeaturePanels().catch(() => undefined), 500);
 };
 
 void openLinkBeforeRender().then(render, render);

@@ -1,30 +1,110 @@
-import { FitPanel } from '../features/fit/FitPanel.tsx';
-import { PrintTab } from '../features/print/PrintTab.tsx';
-import { BondAnalyticsPanel } from '../features/risk/BondAnalyticsPanel.tsx';
-import { SensitivityHeatMap } from '../features/risk/SensitivityHeatMap.tsx';
-import { RollResultLine, RollSlot } from '../features/roll/RollSlot.tsx';
-import { ScenariosTab } from '../features/scenarios/ScenariosTab.tsx';
-import { SnapshotsTab } from '../features/snapshots/SnapshotsTab.tsx';
+import { useEffect, useState, type ComponentType, type ReactNode } from 'react';
+import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { EXTENSIONS } from './extensions.tsx';
 
-/** Puts the feature panels into the workbench's slots (once; the entry point calls it before rendering). */
-export function installFeaturePanels(): void {
-  if (EXTENSIONS.rollPanel !== null || EXTENSIONS.tabs.length > 0) return;
-  EXTENSIONS.rollPanel = RollSlot;
-  EXTENSIONS.tabs.push(
-    { id: 'scenarios', label: 'Scenarios', render: ({ result }) => <ScenariosTab result={result} /> },
-    { id: 'snapshots', label: 'Snapshots', render: ({ result }) => <SnapshotsTab result={result} /> },
-    { id: 'fit', label: 'Smooth fit', render: ({ result }) => <FitPanel workspace={result.build.workspace} repricing={result.build.repricing} /> },
-    {
-      id: 'risk',
-      label: 'Bond and sensitivities',
-      render: ({ result }) => (
+type PanelProps = { result: WorkbenchBuild };
+
+/** A feature panel whose code is fetched on first use (its own chunk), so the first load parses less. */
+interface DeferredPanel {
+  readonly Panel: (props: PanelProps) => ReactNode;
+  /** Fetches the panel's code; resolves when it can render at once (rejects if it cannot be fetched). */
+  readonly preload: () => Promise<void>;
+}
+
+function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProps>>): DeferredPanel {
+  let loaded: ComponentType<PanelProps> | null = null;
+  let pending: Promise<void> | null = null;
+  const preload = (): Promise<void> => {
+    pending ??= load().then(
+      (component) => {
+        loaded = component;
+      },
+      (error: unknown) => {
+        pending = null; // a later mount tries again
+        throw error;
+      },
+    );
+    return pending;
+  };
+  function Panel(props: PanelProps): ReactNode {
+    // Renders the panel itself as soon as its code is there: placeholder -> panel once, before the
+    // panel has any state of its own, so nothing typed into it is lost.
+    const [component, setComponent] = useState<{ C: ComponentType<PanelProps> } | null>(() => (loaded ? { C: loaded } : null));
+    const [failed, setFailed] = useState(false);
+    useEffect(() => {
+      if (component) return;
+      let live = true;
+      preload().then(
+        () => {
+          if (live && loaded) setComponent({ C: loaded });
+        },
+        () => {
+          if (live) setFailed(true);
+        },
+      );
+      return () => {
+        live = false;
+      };
+    }, [component]);
+    if (component) return <component.C {...props} />;
+    return (
+      <p className="muted small" role="status">
+        {failed ? `The ${name} section could not be loaded (the connection may have dropped). Reload the page to try again; your workspace is saved.` : `Loading the ${name} section…`}
+      </p>
+    );
+  }
+  Panel.displayName = `Deferred(${name})`;
+  return { Panel, preload };
+}
+
+const roll = deferredPanel('roll versus term', () => import('../features/roll/RollSlot.tsx').then((m) => m.RollSlot));
+const scenarios = deferredPanel('scenarios', () => import('../features/scenarios/ScenariosTab.tsx').then((m) => m.ScenariosTab));
+const snapshots = deferredPanel('snapshots', () => import('../features/snapshots/SnapshotsTab.tsx').then((m) => m.SnapshotsTab));
+const fit = deferredPanel('smooth fit', () =>
+  import('../features/fit/FitPanel.tsx').then(({ FitPanel }) => ({ result }: PanelProps) => <FitPanel workspace={result.build.workspace} repricing={result.build.repricing} />),
+);
+const risk = deferredPanel('bond and sensitivities', () =>
+  Promise.all([import('../features/risk/BondAnalyticsPanel.tsx'), import('../features/risk/SensitivityHeatMap.tsx')]).then(
+    ([{ BondAnalyticsPanel }, { SensitivityHeatMap }]) =>
+      ({ result }: PanelProps) => (
         <div className="stack">
           <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} />
           <SensitivityHeatMap workspace={result.build.workspace} />
         </div>
       ),
-    },
-    { id: 'print', label: 'Print', render: ({ result }) => <PrintTab result={result} rollResult={<RollResultLine result={result} />} /> },
-  );
+  ),
+);
+const print = deferredPanel('print', () =>
+  Promise.all([import('../features/print/PrintTab.tsx'), import('../features/roll/RollSlot.tsx')]).then(
+    ([{ PrintTab }, { RollResultLine }]) =>
+      ({ result }: PanelProps) => <PrintTab result={result} rollResult={<RollResultLine result={result} />} />,
+  ),
+);
+const ALL = [roll, scenarios, snapshots, fit, risk, print];
+
+/** Fetches every feature panel's code; resolves when all can render at once. */
+export function preloadFeaturePanels(): Promise<void> {
+  return Promise.all(ALL.map((p) => p.preload())).then(() => undefined);
+}
+
+/**
+ * Puts the feature panels into the workbench's slots (once; the entry point calls it before
+ * rendering). Each panel's code is its own chunk, fetched when the panel first shows (with a
+ * short "Loading..." status in its place) or by preloadFeaturePanels(). With `preload` (the
+ * default) it starts fetching them all now and resolves when they are ready, so a test can await
+ * it and see every panel at once; the entry point passes false and preloads once the first chart
+ * is up.
+ */
+export function installFeaturePanels(options: { preload?: boolean } = {}): Promise<void> {
+  if (EXTENSIONS.rollPanel === null && EXTENSIONS.tabs.length === 0) {
+    EXTENSIONS.rollPanel = roll.Panel;
+    EXTENSIONS.tabs.push(
+      { id: 'scenarios', label: 'Scenarios', render: ({ result }) => <scenarios.Panel result={result} /> },
+      { id: 'snapshots', label: 'Snapshots', render: ({ result }) => <snapshots.Panel result={result} /> },
+      { id: 'fit', label: 'Smooth fit', render: ({ result }) => <fit.Panel result={result} /> },
+      { id: 'risk', label: 'Bond and sensitivities', render: ({ result }) => <risk.Panel result={result} /> },
+      { id: 'print', label: 'Print', render: ({ result }) => <print.Panel result={result} /> },
+    );
+  }
+  return options.preload === false ? Promise.resolve() : preloadFeaturePanels();
 }
