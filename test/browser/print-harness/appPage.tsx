@@ -5,8 +5,6 @@ import { createRoot } from 'react-dom/client';
 import { App } from '../../../src/app/App.tsx';
 import { installFeaturePanels } from '../../../src/app/installFeaturePanels.tsx';
 import { useCurveBuild } from '../../../src/hooks/useCurveBuild.ts';
-import { LinkNotice } from '../../../src/share/CopyLinkButton.tsx';
-import { ShareBar } from '../../../src/share/ShareBar.tsx';
 import { useOpenLinkOnStart } from '../../../src/share/useOpenLinkOnStart.ts';
 import { startPersistence } from '../../../src/state/persistence.ts';
 import { useAppStore } from '../../../src/state/store.ts';
@@ -28,8 +26,6 @@ function Sharing() {
   const link = useOpenLinkOnStart();
   return (
     <div className="share-harness">
-      <ShareBar result={result} />
-      <LinkNotice message={link.message} onDismiss={link.dismiss} />
     </div>
   );
 }
