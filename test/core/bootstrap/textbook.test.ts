@@ -44,7 +44,7 @@ const r5 = -Math.log((101.6 - 6 * Math.exp(-r2 * 0.5) - 6 * Math.exp(-r3) - 6 * 
 const hand = [r1, r2, r3, r4, r5];
 
 describe('Hull bootstrap of zero rates from zero-coupon and coupon bond prices', () => {
-  it('the hand bootstrap itself matches the book (a check on the transcription of the table)', () => {
+  it('the hand bootstrap itself matches the book (a check on how the table was copied)', () => {
     hand.forEach((r, i) => expectClose(r, book[i]!, 5e-6, HULL));
   });
   for (const interpolation of INTERPOLATIONS) {
