@@ -1,6 +1,6 @@
 import { curveFromNodes, type Curve, type Extrapolation, type Pillar } from '../curve/curve.ts';
 import { INTERPOLATORS } from '../interpolation/registry.ts';
-import type { InterpolationId } from '../interpolation/types.ts';
+import { segmentNear, zeros, type InterpolationId, type InterpolatorSpec } from '../interpolation/types.ts';
 import { presentValue, type Instrument, type QuoteUnit } from '../instruments/instrument.ts';
 import { MAX_SWEEPS, NODE_TOLERANCE, PRICE_ACCEPTANCE, RATE_ACCEPTANCE } from '../numeric/tolerance.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
@@ -8,6 +8,9 @@ import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { solveNode } from './solve.ts';
 import { solveLinear } from '../numeric/linearSolve.ts';
+
+// Performance: a module-local binding (see interpolation/types.ts, "hot paths").
+const huntSegment = segmentNear;
 
 /** How one quote came back on the built curve. */
 export interface Repricing {
@@ -57,9 +60,12 @@ const pct = (x: number): string => `${(100 * x).toFixed(4)}%`;
 export function bootstrapInstruments(settings: BootstrapSettings, instruments: readonly Instrument[]): BootstrapOutcome {
   const n = instruments.length;
   const spec = INTERPOLATORS[settings.interpolation];
-  const ts = new Float64Array(n + 1);
-  const ys = new Float64Array(n + 1);
-  instruments.forEach((ins, k) => (ts[k + 1] = ins.t));
+  // Performance: plain arrays of doubles throughout, not typed arrays: a typed array above 64
+  // bytes gets a backing store outside the JavaScript heap, which costs far more to allocate and
+  // to collect than the arithmetic of a log-linear rebuild (measured in Node 20).
+  const ts = zeros(n + 1);
+  const ys = zeros(n + 1);
+  for (let k = 0; k < n; k++) ts[k + 1] = instruments[k]!.t;
   const closedForm = instruments.map((ins) => ins.closedFormLn !== null && ins.times.length === 1 && ins.times[0] === ins.t);
 
   /** Solves node k with the interpolation built on nodes 0..m (m = k for local, n for global). */
@@ -112,20 +118,32 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     return outcome.x;
   };
 
-  // Scratch space for the local pass: the flows of one instrument that fall in its own last segment.
-  const maxFlows = instruments.reduce((m, ins) => Math.max(m, ins.times.length), 0);
-  const segAmount = new Float64Array(maxFlows);
-  const segLn = new Float64Array(maxFlows);
-  const segSlope = new Float64Array(maxFlows);
-  // Slopes of ln DF in each node for that node's own flows, kept across the cubic-zero sweeps.
-  const slopeOffset = new Int32Array(n + 1);
+  const localSpec = spec.global ? INTERPOLATORS['log-linear-discount'] : spec;
+  // flowOffset[k]: where node k's flows start in a table of every instrument's flows.
+  const flowOffset = zeros(n + 1);
   let totalFlows = 0;
+  let maxFlows = 0;
   for (let k = 1; k <= n; k++) {
-    slopeOffset[k] = totalFlows;
-    totalFlows += instruments[k - 1]!.times.length;
+    const count = instruments[k - 1]!.times.length;
+    flowOffset[k] = totalFlows;
+    totalFlows += count;
+    maxFlows = Math.max(maxFlows, count);
   }
-  const slopeCache = new Float64Array(spec.global && spec.affine ? totalFlows : 0);
-  const slopeReady = new Uint8Array(n + 1);
+  // The curve at every instrument's flow times (ln DF and DF; node k's from flowOffset[k]), read
+  // by Instrument.quoteFromFlows.
+  const flowLn = zeros(totalFlows);
+  const flowDf = zeros(totalFlows);
+  // A local method's model quote of each node, taken as the pass leaves it (see solveBySegments).
+  const passModel = zeros(localSpec.segmentLn && !spec.global ? n : 0);
+  // Scratch space of solveAffineAt: the flows of one instrument that fall in its own last segment
+  // (performance: allocated only when that solver runs).
+  const affineScratch = spec.affine === true && (spec.global || !localSpec.segmentLn) ? maxFlows : 0;
+  const segAmount = zeros(affineScratch);
+  const segLn = zeros(affineScratch);
+  const segSlope = zeros(affineScratch);
+  // Slopes of ln DF in each node for that node's own flows, kept across the cubic-zero sweeps.
+  const slopeCache = zeros(spec.global && spec.affine ? totalFlows : 0);
+  const slopeReady = zeros(spec.global && spec.affine ? n + 1 : 0);
 
   /**
    * Solves node k on an interpolation built on nodes 0..m whose ln DF is affine in each node
@@ -167,14 +185,14 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     // values, so they are computed in the first sweep and kept for the later ones.
     const cached = !local && slopeReady[k] === 1;
     if (cached) {
-      for (let j = 0; j < count; j++) segSlope[j] = slopeCache[slopeOffset[k]! + j]!;
+      for (let j = 0; j < count; j++) segSlope[j] = slopeCache[flowOffset[k]! + j]!;
     } else {
       ys[k] = x0 + 1;
       const b = build(ts, ys, nodes);
       for (let j = 0; j < count; j++) segSlope[j] = b.lnDiscount(times[first + j]!) - segLn[j]!;
       ys[k] = x0;
       if (!local) {
-        for (let j = 0; j < count; j++) slopeCache[slopeOffset[k]! + j] = segSlope[j]!;
+        for (let j = 0; j < count; j++) slopeCache[flowOffset[k]! + j] = segSlope[j]!;
         slopeReady[k] = 1;
       }
     }
@@ -188,12 +206,20 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     return outcome.x;
   };
 
-  // Pass 1: local bootstrap (log-linear for the global methods' starting point).
-  const localBuild = spec.global ? INTERPOLATORS['log-linear-discount'].build : spec.build;
+  // Pass 1: local bootstrap (log-linear for the global methods' starting point). With a local
+  // method's segment formula, solveBySegments leaves the curve's values at node k's flows in flowLn
+  // and flowDf; no later node moves them, so they are the finished curve's and node k's model
+  // quote is taken from them at once, without reading the curve again.
   for (let k = 1; k <= n; k++) {
-    const x = solveAffineAt(k, k, localBuild, guess(instruments, ts, ys, k), true);
+    const x0 = guess(instruments, ts, ys, k);
+    const x = localSpec.segmentLn
+      ? solveBySegments(instruments, closedForm[k - 1]!, ts, ys, k, k, localSpec.segmentLn, 1, false, x0, flowLn, flowDf, flowOffset)
+      : localSpec.affine
+        ? solveAffineAt(k, k, localSpec.build, x0, true)
+        : solveAt(k, k, localSpec.build, x0);
     if (typeof x !== 'number') return failed([x]);
     ys[k] = x;
+    if (passModel.length > 0) passModel[k - 1] = instruments[k - 1]!.quoteFromFlows(flowLn, flowDf, flowOffset[k]!);
   }
 
   /**
@@ -260,27 +286,43 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   };
 
   let sweeps = 0;
+  // A global method's repricing on its final nodes, found when the sweeps stop.
+  let sweepRows: Repricing[] | null = null;
   if (spec.global) {
     let converged = false;
     let sweepFailure: CoreError | null = null;
-    const accepted = (): boolean => {
-      const interp = spec.build(ts, ys);
-      const w = worst(reprice(instruments, (t) => interp.lnDiscount(t)));
-      return !w || w.ratio <= 1;
+    // The repricing on the nodes as they stand, when every quote passes (else null). `exact`:
+    // the flow table already holds the curve's values (a sweep that moved no node, so every value
+    // it recorded was taken on the final nodes), so the curve is not read again.
+    const accepted = (exact: boolean): Repricing[] | null => {
+      let rows: Repricing[];
+      if (exact) rows = repricingRows(instruments, modelsFromTable(instruments, flowLn, flowDf, flowOffset));
+      else {
+        const interp = spec.build(ts, ys);
+        rows = reprice(instruments, (t) => interp.lnDiscount(t), flowLn, flowDf, flowOffset);
+      }
+      const w = worst(rows);
+      return !w || w.ratio <= 1 ? rows : null;
     };
     sweepsLoop: while (sweeps < MAX_SWEEPS) {
       sweeps++;
       let maxChange = 0;
+      let moved = false;
       for (let k = 1; k <= n; k++) {
         if (closedForm[k - 1]) continue;
         const before = ys[k]!;
-        const x = spec.affine ? solveAffineAt(k, n, spec.build, before, false) : solveAt(k, n, spec.build, before);
+        const x = spec.segmentLn
+          ? solveBySegments(instruments, false, ts, ys, k, n, spec.segmentLn, spec.locality ?? n, true, before, flowLn, flowDf, flowOffset)
+          : spec.affine
+            ? solveAffineAt(k, n, spec.build, before, false)
+            : solveAt(k, n, spec.build, before);
         if (typeof x !== 'number') {
           sweepFailure = x; // one node alone has no solution: try all nodes at once below
           ys[k] = before;
           break sweepsLoop;
         }
         ys[k] = x;
+        if (x !== before) moved = true;
         maxChange = Math.max(maxChange, Math.abs(Math.expm1(x - before)));
       }
       // Fix: the sweeps used to stall at a node change of a few ulps above NODE_TOLERANCE (seen:
@@ -291,16 +333,22 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
       let largest = 1;
       for (let k = 1; k <= n; k++) largest = Math.max(largest, Math.abs(ys[k]!));
       const floor = NODE_TOLERANCE + 8 * Number.EPSILON * largest;
-      if (maxChange <= floor && accepted()) {
-        converged = true;
-        break;
+      if (maxChange <= floor) {
+        sweepRows = accepted(spec.segmentLn !== undefined && !moved);
+        if (sweepRows) {
+          converged = true;
+          break;
+        }
       }
     }
-    if (!converged && jointNewton() && accepted()) converged = true;
+    if (!converged && jointNewton()) {
+      sweepRows = accepted(false);
+      converged = sweepRows !== null;
+    }
     if (!converged && sweepFailure) return failed([sweepFailure]);
     if (!converged) {
       const interp = spec.build(ts, ys);
-      const w = worst(reprice(instruments, (t) => interp.lnDiscount(t)))!;
+      const w = worst(reprice(instruments, (t) => interp.lnDiscount(t), flowLn, flowDf, flowOffset))!;
       return failed([
         coreError(
           'not-converged',
@@ -315,7 +363,10 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const interp = spec.build(ts, ys);
   const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
   const curve = curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, interp);
-  const repricing = reprice(instruments, curve.lnDiscountAt);
+  // A local method's pass took each model quote from the curve's own values at the flows, and a
+  // global method's sweeps repriced on the final nodes (bit for bit what curve.lnDiscountAt gives
+  // there: the same segment formula on the same nodes, y_k exactly at a pillar; a test checks it).
+  const repricing = passModel.length > 0 ? repricingRows(instruments, passModel) : (sweepRows ?? reprice(instruments, curve.lnDiscountAt, flowLn, flowDf, flowOffset));
   const w = worst(repricing);
   if (w && w.ratio > 1) {
     return failed([
@@ -351,6 +402,133 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
 // Performance: helpers of bootstrapInstruments at module level, not closures made per call (the
 // command-line runner's transform adds a name-setting call to every closure created).
 
+type SegmentLn = NonNullable<InterpolatorSpec['segmentLn']>;
+
+/**
+ * Solves node k on the interpolation over nodes 0..m with the method's segment formula
+ * (`segmentLn`, the arithmetic of its `lnDiscount`), building no interpolation per solver step:
+ * m = k in the one pass of a local method, m = n in a sweep of a global one. Flows before
+ * t_(k - locality) sit on segments that node k does not touch (locality 1 for a local method,
+ * 2 for monotone convex), so they are summed once; each solver step re-evaluates only the later
+ * flows, and a flow at the pillar itself at y_k exactly, as `lnDiscount` gives there. In a
+ * `sweep` a node whose residual at its current value x0 is already below what a Newton step
+ * could resolve is returned as it is, without solving.
+ *
+ * The flow table from flowOffset[k] is left holding ln DF and DF at each of the instrument's flows
+ * on the curve as solved. Performance: swaps (and bonds) of one schedule pay on the same dates, so
+ * a fixed flow at the very time of a flow of the donor (the latest earlier instrument with the
+ * same first payment time, node j) takes that flow's values from the table instead of another
+ * exp, when no node solved since then can have moved them: nodes j + 1.. move the curve from
+ * t_(j + 1 - locality) on, so flows before that time are still exact. The same number, found by a
+ * merge walk of the two ascending time lists.
+ */
+function solveBySegments(
+  instruments: readonly Instrument[],
+  closedForm: boolean,
+  ts: number[],
+  ys: number[],
+  k: number,
+  m: number,
+  segmentLn: SegmentLn,
+  locality: number,
+  sweep: boolean,
+  x0: number,
+  flowLn: number[],
+  flowDf: number[],
+  flowOffset: readonly number[],
+): CoreError | number {
+  const ins = instruments[k - 1]!;
+  const { times, amounts, target } = ins;
+  const offset = flowOffset[k]!;
+  if (closedForm) {
+    const x = ins.closedFormLn!;
+    if (!Number.isFinite(x)) return solveFailure(ins, 'non-positive-discount');
+    flowLn[offset] = x;
+    flowDf[offset] = Math.exp(x);
+    return x;
+  }
+  const tFrom = ts[Math.max(k - locality, 0)]!;
+  const tk = ts[k]!;
+  // The donor: the latest earlier instrument whose first flow is at the same time, and the time
+  // before which its table values are still exact.
+  let donor = k - 1;
+  while (donor >= 1 && instruments[donor - 1]!.times[0] !== times[0]) donor--;
+  const donorTimes = donor >= 1 ? instruments[donor - 1]!.times : null;
+  const donorOffset = donor >= 1 ? flowOffset[donor]! : 0;
+  const donorValidBefore = donor >= 1 ? ts[Math.max(donor + 1 - locality, 0)]! : 0;
+  let d = 0;
+  let fixed = 0;
+  let first = times.length;
+  let segment = 1;
+  for (let j = 0; j < times.length; j++) {
+    const tj = times[j]!;
+    if (tj >= tFrom) {
+      first = j;
+      break;
+    }
+    if (donorTimes !== null && tj < donorValidBefore) {
+      while (d < donorTimes.length && donorTimes[d]! < tj) d++;
+      if (d < donorTimes.length && donorTimes[d] === tj) {
+        flowLn[offset + j] = flowLn[donorOffset + d]!;
+        const df = flowDf[donorOffset + d]!;
+        flowDf[offset + j] = df;
+        fixed += amounts[j]! * df;
+        continue;
+      }
+    }
+    segment = huntSegment(ts, m, tj, segment);
+    const ln = segmentLn(ts, ys, m, segment, tj);
+    const df = Math.exp(ln);
+    flowLn[offset + j] = ln;
+    flowDf[offset + j] = df;
+    fixed += amounts[j]! * df;
+  }
+  const firstSegment = first < times.length ? huntSegment(ts, m, times[first]!, segment) : segment;
+  const residual = (x: number): number => {
+    ys[k] = x;
+    let pv = fixed;
+    let seg = firstSegment;
+    for (let j = first; j < times.length; j++) {
+      const tj = times[j]!;
+      if (tj >= tk) {
+        pv += amounts[j]! * Math.exp(x);
+        continue;
+      }
+      seg = huntSegment(ts, m, tj, seg);
+      pv += amounts[j]! * Math.exp(segmentLn(ts, ys, m, seg, tj));
+    }
+    return pv - target;
+  };
+  let x = x0;
+  let f0: number | undefined;
+  let solved = false;
+  if (sweep) {
+    // When a Newton step from x0 (with a quarter of the sensitivity of the flow at the node
+    // itself, a_last DF(t_k), as the slope) would move the node by at most NODE_TOLERANCE, x0 is
+    // the solution.
+    f0 = residual(x0);
+    solved = Math.abs(f0) <= 0.25 * NODE_TOLERANCE * amounts[times.length - 1]! * Math.exp(x0);
+  }
+  if (!solved) {
+    const outcome = solveNode(residual, x0, f0);
+    if (!outcome.ok) return solveFailure(ins, outcome.reason);
+    x = outcome.x;
+  }
+  ys[k] = x;
+  let seg = firstSegment;
+  for (let j = first; j < times.length; j++) {
+    const tj = times[j]!;
+    let ln = x;
+    if (tj < tk) {
+      seg = huntSegment(ts, m, tj, seg);
+      ln = segmentLn(ts, ys, m, seg, tj);
+    }
+    flowLn[offset + j] = ln;
+    flowDf[offset + j] = Math.exp(ln);
+  }
+  return x;
+}
+
 function failed(errors: CoreError[]): BootstrapOutcome {
   return { curve: null, errors, warnings: [], repricing: [], sweeps: 0 };
 }
@@ -367,7 +545,7 @@ function solveFailure(ins: Instrument, reason: 'non-positive-discount' | 'no-sol
 }
 
 /** Starting value of node k: the previous segment's discrete forward carried on (3% at first). */
-function guess(instruments: readonly Instrument[], ts: Float64Array, ys: Float64Array, k: number): number {
+function guess(instruments: readonly Instrument[], ts: readonly number[], ys: readonly number[], k: number): number {
   if (k === 1) {
     const ins = instruments[0]!;
     const rate = ins.unit === 'rate' ? ins.market : 0.03;
@@ -377,11 +555,33 @@ function guess(instruments: readonly Instrument[], ts: Float64Array, ys: Float64
   return ys[k - 1]! - fwd * (ts[k]! - ts[k - 1]!);
 }
 
-function reprice(instruments: readonly Instrument[], lnDiscountAt: (t: number) => number): Repricing[] {
+/** Every quote's model quote on a curve: the flow table filled from the curve, then read. */
+function reprice(instruments: readonly Instrument[], lnDiscountAt: (t: number) => number, flowLn: number[], flowDf: number[], flowOffset: readonly number[]): Repricing[] {
+  for (let i = 0; i < instruments.length; i++) {
+    const { times } = instruments[i]!;
+    const offset = flowOffset[i + 1]!;
+    for (let j = 0; j < times.length; j++) {
+      const ln = lnDiscountAt(times[j]!);
+      flowLn[offset + j] = ln;
+      flowDf[offset + j] = Math.exp(ln);
+    }
+  }
+  return repricingRows(instruments, modelsFromTable(instruments, flowLn, flowDf, flowOffset));
+}
+
+/** Every quote's model quote from the flow table (Instrument.quoteFromFlows). */
+function modelsFromTable(instruments: readonly Instrument[], flowLn: readonly number[], flowDf: readonly number[], flowOffset: readonly number[]): number[] {
+  const models = new Array<number>(instruments.length);
+  for (let i = 0; i < instruments.length; i++) models[i] = instruments[i]!.quoteFromFlows(flowLn, flowDf, flowOffset[i + 1]!);
+  return models;
+}
+
+/** The repricing rows of instruments given their model quotes. */
+function repricingRows(instruments: readonly Instrument[], models: readonly number[]): Repricing[] {
   const rows = new Array<Repricing>(instruments.length);
   for (let i = 0; i < instruments.length; i++) {
     const ins = instruments[i]!;
-    const model = ins.modelQuote(lnDiscountAt);
+    const model = models[i]!;
     rows[i] = {
       index: ins.index,
       kind: ins.kind,

@@ -1,6 +1,6 @@
 import { addMonths, daysBetween, isLeapYear, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
 import type { BillQuote } from '../workspace/types.ts';
-import type { Instrument } from './instrument.ts';
+import { quoteOnCurve, type Instrument } from './instrument.ts';
 
 /**
  * Discount bill. Bank discount yield d on actual days over 360:
@@ -47,7 +47,7 @@ export function billInvestmentYield(price: number, settlement: IsoDate, maturity
 
 export function compileBill(q: BillQuote, settlement: IsoDate, t: number): Instrument {
   const days = daysBetween(settlement, q.maturity);
-  return new BillInstrument(q, t, new Float64Array([t]), [100], days, q.discountYield !== null ? q.discountYield : q.price!);
+  return new BillInstrument(q, t, [t], [100], days, q.discountYield !== null ? q.discountYield : q.price!);
 }
 
 /** A compiled bill. Performance: a class, so that a requote creates no closures. */
@@ -60,14 +60,14 @@ class BillInstrument implements Instrument {
   declare readonly unit: 'rate' | 'price';
   declare readonly field: 'discountYield' | 'price';
   declare readonly market: number;
-  declare readonly times: Float64Array;
+  declare readonly times: readonly number[];
   declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: number;
   /** Actual days from settlement to maturity. */
   declare readonly days: number;
 
-  constructor(q: BillQuote, t: number, times: Float64Array, amounts: number[], days: number, value: number) {
+  constructor(q: BillQuote, t: number, times: readonly number[], amounts: number[], days: number, value: number) {
     const byYield = q.discountYield !== null;
     this.quote = q;
     this.index = q.index;
@@ -85,8 +85,12 @@ class BillInstrument implements Instrument {
   }
 
   modelQuote(lnDiscountAt: (t: number) => number): number {
-    const df = Math.exp(lnDiscountAt(this.t));
-    return this.unit === 'rate' ? (-Math.expm1(lnDiscountAt(this.t)) * 360) / this.days : 100 * df;
+    return quoteOnCurve(this, lnDiscountAt);
+  }
+
+  /** The discount yield (1 - DF) 360 / days, or the price 100 DF per 100 face. */
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return this.unit === 'rate' ? (-Math.expm1(ln[offset]!) * 360) / this.days : 100 * df[offset]!;
   }
 
   requote(value: number): Instrument {

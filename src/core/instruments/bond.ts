@@ -2,7 +2,7 @@ import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { isoFromCivil, parseIsoDate, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { BondQuote } from '../workspace/types.ts';
-import type { Instrument } from './instrument.ts';
+import { quoteOnCurve, type Instrument } from './instrument.ts';
 
 /**
  * A fixed-coupon bond's cash flows after settlement, per 100 face.
@@ -115,7 +115,7 @@ export function bondYieldFromDirty(s: YieldSchedule, dirty: number): number | nu
 
 export function compileBond(q: BondQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
   const s = bondScheduleCivil(q, settlement, maturity);
-  const times = new Float64Array(s.dates.length);
+  const times = new Array<number>(s.dates.length); // plain doubles (see Instrument.times)
   const amounts = new Array<number>(s.dates.length);
   for (let j = 0; j < times.length; j++) {
     times[j] = time(s.dates[j]!);
@@ -139,7 +139,7 @@ class BondInstrument implements Instrument {
   declare readonly unit: 'rate' | 'price';
   declare readonly field: 'yield' | 'cleanPrice';
   declare readonly market: number;
-  declare readonly times: Float64Array;
+  declare readonly times: readonly number[];
   declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: null;
@@ -147,7 +147,7 @@ class BondInstrument implements Instrument {
   declare readonly schedule: YieldSchedule;
   declare readonly accrued: number;
 
-  constructor(q: BondQuote, t: number, times: Float64Array, amounts: number[], schedule: YieldSchedule, accrued: number, value: number) {
+  constructor(q: BondQuote, t: number, times: readonly number[], amounts: number[], schedule: YieldSchedule, accrued: number, value: number) {
     const byYield = q.yield !== null;
     this.quote = q;
     this.index = q.index;
@@ -166,9 +166,14 @@ class BondInstrument implements Instrument {
   }
 
   modelQuote(lnDiscountAt: (t: number) => number): number {
-    const { times, amounts } = this;
+    return quoteOnCurve(this, lnDiscountAt);
+  }
+
+  /** The clean price (dirty sum CF DF minus accrued, per 100 face), or the ICMA yield of the dirty price. */
+  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    const { amounts } = this;
     let dirty = 0;
-    for (let j = 0; j < times.length; j++) dirty += amounts[j]! * Math.exp(lnDiscountAt(times[j]!));
+    for (let j = 0; j < amounts.length; j++) dirty += amounts[j]! * df[offset + j]!;
     return this.unit === 'rate' ? (bondYieldFromDirty(this.schedule, dirty) ?? Number.NaN) : dirty - this.accrued;
   }
 

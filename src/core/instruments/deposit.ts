@@ -1,7 +1,7 @@
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { DepositQuote } from '../workspace/types.ts';
-import type { Instrument } from './instrument.ts';
+import { quoteOnCurve, type Instrument } from './instrument.ts';
 
 /**
  * Money-market deposit from settlement to maturity at a simple rate r on its day count
@@ -9,7 +9,7 @@ import type { Instrument } from './instrument.ts';
  */
 export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number): Instrument {
   const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-  return new DepositInstrument(q, t, new Float64Array([t]), tau, q.rate);
+  return new DepositInstrument(q, t, [t], tau, q.rate);
 }
 
 /** A compiled deposit. Performance: a class, so that a requote creates no closures. */
@@ -22,14 +22,14 @@ class DepositInstrument implements Instrument {
   declare readonly unit: 'rate';
   declare readonly field: 'rate';
   declare readonly market: number;
-  declare readonly times: Float64Array;
+  declare readonly times: readonly number[];
   declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: number;
   /** Year fraction of the deposit under its day count. */
   declare readonly tau: number;
 
-  constructor(q: DepositQuote, t: number, times: Float64Array, tau: number, rate: number) {
+  constructor(q: DepositQuote, t: number, times: readonly number[], tau: number, rate: number) {
     this.quote = q;
     this.index = q.index;
     this.kind = 'deposit';
@@ -46,7 +46,12 @@ class DepositInstrument implements Instrument {
   }
 
   modelQuote(lnDiscountAt: (t: number) => number): number {
-    return Math.expm1(-lnDiscountAt(this.t)) / this.tau;
+    return quoteOnCurve(this, lnDiscountAt);
+  }
+
+  /** The simple rate on the deposit's day count, expm1(-ln DF) / tau (full precision for short tenors). */
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return Math.expm1(-ln[offset]!) / this.tau;
   }
 
   requote(value: number): Instrument {

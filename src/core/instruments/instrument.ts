@@ -24,12 +24,17 @@ export interface Instrument {
   readonly field: string;
   /** The market quote in `unit`. */
   readonly market: number;
-  readonly times: Float64Array;
+  /**
+   * Flow times in years on the curve's axis, ascending, the last at `t`. Performance: a plain
+   * array of doubles, not a Float64Array: a typed array above 64 bytes gets a backing store
+   * outside the JavaScript heap, which costs several hundred nanoseconds to allocate in Node 20
+   * (see interpolation/types.ts, copyNodes), and a market compiles one or two per quote.
+   */
+  readonly times: readonly number[];
   /**
    * Cash flow at each time, in the instrument's unit of present value (per 100 face, or per 1 of
-   * notional). Performance: a plain array of doubles in the compiled instruments, not a
-   * Float64Array, since a requote allocates one and a small typed array costs several hundred
-   * nanoseconds to allocate in Node 20 (see interpolation/types.ts, copyNodes).
+   * notional). A plain array of doubles in the compiled instruments, for the same reason (a
+   * requote allocates one).
    */
   readonly amounts: ArrayLike<number>;
   readonly target: number;
@@ -39,10 +44,33 @@ export interface Instrument {
    * in rate; NaN when the quote implies DF <= 0. Null for instruments with several flows.
    */
   readonly closedFormLn: number | null;
-  /** The model quote in `unit` given ln DF on the curve's axis. */
+  /** The model quote in `unit` given ln DF on the curve's axis (quoteOnCurve). */
   modelQuote(lnDiscountAt: (t: number) => number): number;
+  /**
+   * The model quote in `unit` from the curve's values at the instrument's own flow times:
+   * ln DF at `times[j]` in `ln[offset + j]` and DF = exp of it in `df[offset + j]`. The one
+   * formula of each kind; `modelQuote` reads the curve into these arrays and calls it.
+   */
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
   /** The same instrument with another market quote value (schedules are kept). */
   requote(value: number): Instrument;
+}
+
+/**
+ * The model quote of an instrument on a curve given by ln DF on its axis: the curve read at the
+ * instrument's flow times, then `quoteFromFlows`. Every kind's `modelQuote` is this.
+ */
+export function quoteOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
+  const { times } = instrument;
+  const n = times.length;
+  // Plain arrays of doubles: cheaper to allocate than small typed arrays (see copyNodes).
+  const ln = new Array<number>(n);
+  const df = new Array<number>(n);
+  for (let j = 0; j < n; j++) {
+    ln[j] = lnDiscountAt(times[j]!);
+    df[j] = Math.exp(ln[j]!);
+  }
+  return instrument.quoteFromFlows(ln, df, 0);
 }
 
 /** Present value of an instrument's flows on a curve. */

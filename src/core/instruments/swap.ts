@@ -2,7 +2,7 @@ import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { isoFromCivil, parseIsoDate, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { SwapQuote } from '../workspace/types.ts';
-import type { Instrument } from './instrument.ts';
+import { quoteOnCurve, type Instrument } from './instrument.ts';
 
 /** One accrual period of a fixed leg. */
 export interface FixedPeriod {
@@ -52,8 +52,9 @@ export function fixedLegCivil(start: CivilDate, end: CivilDate, frequency: numbe
 export function compileSwap(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
   const leg = fixedLegCivil(settlement, maturity, q.frequency, q.dayCount, q.eom);
   const n = leg.dates.length;
-  const times = new Float64Array(n);
-  const taus = new Float64Array(n);
+  // Plain arrays of doubles (see Instrument.times).
+  const times = new Array<number>(n);
+  const taus = new Array<number>(n);
   for (let j = 0; j < n; j++) {
     times[j] = time(leg.dates[j]!);
     taus[j] = leg.taus[j]!;
@@ -74,14 +75,14 @@ class SwapInstrument implements Instrument {
   declare readonly unit: 'rate';
   declare readonly field: 'rate';
   declare readonly market: number;
-  declare readonly times: Float64Array;
+  declare readonly times: readonly number[];
   declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: null;
   /** Accrual year fractions tau_i of the fixed periods. */
-  declare readonly taus: Float64Array;
+  declare readonly taus: readonly number[];
 
-  constructor(q: SwapQuote, t: number, times: Float64Array, taus: Float64Array, rate: number) {
+  constructor(q: SwapQuote, t: number, times: readonly number[], taus: readonly number[], rate: number) {
     const n = taus.length;
     const amounts = new Array<number>(n);
     for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
@@ -102,11 +103,16 @@ class SwapInstrument implements Instrument {
   }
 
   modelQuote(lnDiscountAt: (t: number) => number): number {
-    const { times, taus } = this;
+    return quoteOnCurve(this, lnDiscountAt);
+  }
+
+  /** The par rate (1 - DF(T_n)) / sum tau_i DF(T_i), with 1 - DF(T_n) as -expm1(ln DF(T_n)). */
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    const { taus } = this;
     const n = taus.length;
     let annuity = 0;
-    for (let j = 0; j < n; j++) annuity += taus[j]! * Math.exp(lnDiscountAt(times[j]!));
-    return -Math.expm1(lnDiscountAt(times[n - 1]!)) / annuity;
+    for (let j = 0; j < n; j++) annuity += taus[j]! * df[offset + j]!;
+    return -Math.expm1(ln[offset + n - 1]!) / annuity;
   }
 
   requote(value: number): Instrument {

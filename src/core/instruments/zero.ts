@@ -2,7 +2,7 @@ import { lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts'
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { ZeroQuote } from '../workspace/types.ts';
-import type { Instrument } from './instrument.ts';
+import { quoteOnCurve, type Instrument } from './instrument.ts';
 
 /**
  * Zero-coupon bond: price per 100 face (DF = price/100), or a zero rate r in its compounding and
@@ -10,7 +10,7 @@ import type { Instrument } from './instrument.ts';
  */
 export function compileZero(q: ZeroQuote, settlement: IsoDate, t: number): Instrument {
   const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-  return new ZeroInstrument(q, t, new Float64Array([t]), [100], tau, q.rate !== null ? q.rate : q.price!);
+  return new ZeroInstrument(q, t, [t], [100], tau, q.rate !== null ? q.rate : q.price!);
 }
 
 /** A compiled zero-coupon bond. Performance: a class, so that a requote creates no closures. */
@@ -23,14 +23,14 @@ class ZeroInstrument implements Instrument {
   declare readonly unit: 'rate' | 'price';
   declare readonly field: 'rate' | 'price';
   declare readonly market: number;
-  declare readonly times: Float64Array;
+  declare readonly times: readonly number[];
   declare readonly amounts: number[];
   declare readonly target: number;
   declare readonly closedFormLn: number;
   /** Year fraction from settlement to maturity under the quote's day count. */
   declare readonly tau: number;
 
-  constructor(q: ZeroQuote, t: number, times: Float64Array, amounts: number[], tau: number, value: number) {
+  constructor(q: ZeroQuote, t: number, times: readonly number[], amounts: number[], tau: number, value: number) {
     const byRate = q.rate !== null;
     this.quote = q;
     this.index = q.index;
@@ -48,7 +48,12 @@ class ZeroInstrument implements Instrument {
   }
 
   modelQuote(lnDiscountAt: (t: number) => number): number {
-    return this.unit === 'rate' ? rateFromLnDiscount(lnDiscountAt(this.t), this.quote.compounding, this.tau) : 100 * Math.exp(lnDiscountAt(this.t));
+    return quoteOnCurve(this, lnDiscountAt);
+  }
+
+  /** The zero rate in the quote's compounding and day count, or the price 100 DF per 100 face. */
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return this.unit === 'rate' ? rateFromLnDiscount(ln[offset]!, this.quote.compounding, this.tau) : 100 * df[offset]!;
   }
 
   requote(value: number): Instrument {

@@ -1,7 +1,8 @@
-import { copyNodes, segmentIndex, zeros, type Interpolation } from './types.ts';
+import { copyNodes, segmentIndex, segmentNear, zeros, type Interpolation } from './types.ts';
 
 // Performance: module-local bindings and module-level helpers (see types.ts, "hot paths").
 const findSegment = segmentIndex;
+const huntSegment = segmentNear;
 const copy = copyNodes;
 const zeroArray = zeros;
 /** The positivity collar: v bounded to [0, max(hi, 0)]. */
@@ -14,12 +15,10 @@ const setPair = (pair: [number, number], g: number, G: number): [number, number]
 };
 
 /**
- * g(x) and its integral G(x) = int_0^x g on segment i (x in [0, 1]), written into `pair`:
+ * g(x) and its integral G(x) = int_0^x g on a segment (x in [0, 1]), written into `pair`:
  * g0 = f_(i-1) - d_i, g1 = f_i - d_i, the four regions of Hagan and West (2006).
  */
-function segmentShape(f: readonly number[], d: readonly number[], i: number, x: number, pair: [number, number]): [number, number] {
-  const g0 = f[i - 1]! - d[i]!;
-  const g1 = f[i]! - d[i]!;
+function segmentShape(g0: number, g1: number, x: number, pair: [number, number]): [number, number] {
   if (g0 === 0 && g1 === 0) return setPair(pair, 0, 0);
   // Region (i): g0, g1 of opposite signs within a factor of 2.
   if ((g0 < 0 && -0.5 * g0 <= g1 && g1 <= -2 * g0) || (g0 > 0 && -0.5 * g0 >= g1 && g1 >= -2 * g0)) {
@@ -77,40 +76,24 @@ export function monotoneConvexFactory(positive: boolean) {
     const t = copy(ts, n + 1);
     const y = copy(lnDfs, n + 1);
     const d = zeroArray(n + 1); // d[i] for segment i, 1..n
-    for (let i = 1; i <= n; i++) d[i] = -(y[i]! - y[i - 1]!) / (t[i]! - t[i - 1]!);
+    for (let i = 1; i <= n; i++) d[i] = discreteAt(t, y, i);
     const f = zeroArray(n + 1);
-    if (n === 1) {
-      f[0] = d[1]!;
-      f[1] = d[1]!;
-    } else {
-      for (let i = 1; i < n; i++) {
-        f[i] = ((t[i]! - t[i - 1]!) * d[i + 1]! + (t[i + 1]! - t[i]!) * d[i]!) / (t[i + 1]! - t[i - 1]!);
-      }
-      f[0] = d[1]! - 0.5 * (f[1]! - d[1]!);
-      f[n] = d[n]! - 0.5 * (f[n - 1]! - d[n]!);
-    }
-    if (positive) {
-      f[0] = collar(f[0]!, 2 * d[1]!);
-      for (let i = 1; i < n; i++) f[i] = collar(f[i]!, 2 * Math.min(d[i]!, d[i + 1]!));
-      f[n] = collar(f[n]!, 2 * d[n]!);
-    }
-
+    for (let i = 0; i <= n; i++) f[i] = nodeForward(t, y, n, i, positive);
     // A reused pair: no array is allocated per evaluation; callers read it at once.
     const pair: [number, number] = [0, 0];
+    let hint = 1; // the segment of the last lookup (see segmentNear)
 
     return {
       lnDiscount(x) {
         if (x >= t[n]!) return y[n]! - f[n]! * (x - t[n]!);
-        const i = findSegment(t, n, x);
-        const h = t[i]! - t[i - 1]!;
-        const u = (x - t[i - 1]!) / h;
-        return y[i - 1]! - h * (d[i]! * u + segmentShape(f, d, i, u, pair)[1]);
+        hint = huntSegment(t, n, x, hint);
+        return segmentLnFrom(t, y, hint, x, d[hint]!, f[hint - 1]!, f[hint]!, pair);
       },
       forward(x) {
         if (x >= t[n]!) return f[n]!;
         const i = findSegment(t, n, x);
         const u = (x - t[i - 1]!) / (t[i]! - t[i - 1]!);
-        return d[i]! + segmentShape(f, d, i, u, pair)[0];
+        return d[i]! + segmentShape(f[i - 1]! - d[i]!, f[i]! - d[i]!, u, pair)[0];
       },
     };
   };
@@ -118,3 +101,57 @@ export function monotoneConvexFactory(positive: boolean) {
 
 export const interpolatorMonotoneConvex = monotoneConvexFactory(false);
 export const interpolatorMonotoneConvexPositive = monotoneConvexFactory(true);
+
+/**
+ * ln DF at x on segment i (t_(i-1) <= x < t_i) of the monotone convex curve on nodes 0..n,
+ * straight from the node arrays (nodes i - 3..i + 1 at most: f_(i-1) and f_i need d_(i-1)..d_(i+1),
+ * an end f_0 or f_n needs d_1, d_2 or d_(n-1), d_n), with the arithmetic of the built
+ * interpolation's lnDiscount, so the two agree bit for bit. The bootstrap's sweeps use it to
+ * re-solve one node without rebuilding the whole interpolation at every solver step.
+ */
+export function monotoneConvexSegmentLn(t: ArrayLike<number>, y: ArrayLike<number>, n: number, i: number, x: number): number {
+  return segmentLnFrom(t, y, i, x, discreteAt(t, y, i), nodeForward(t, y, n, i - 1, false), nodeForward(t, y, n, i, false), [0, 0]);
+}
+
+/** monotoneConvexSegmentLn for monotone-convex-positive (node forwards collared). */
+export function monotoneConvexPositiveSegmentLn(t: ArrayLike<number>, y: ArrayLike<number>, n: number, i: number, x: number): number {
+  return segmentLnFrom(t, y, i, x, discreteAt(t, y, i), nodeForward(t, y, n, i - 1, true), nodeForward(t, y, n, i, true), [0, 0]);
+}
+
+/** The discrete forward of segment i, d_i = -(y_i - y_(i-1)) / (t_i - t_(i-1)). */
+function discreteAt(t: ArrayLike<number>, y: ArrayLike<number>, i: number): number {
+  return -(y[i]! - y[i - 1]!) / (t[i]! - t[i - 1]!);
+}
+
+/** f_i for 0 < i < n: [(t_i - t_(i-1)) d_(i+1) + (t_(i+1) - t_i) d_i] / (t_(i+1) - t_(i-1)). */
+function innerForward(t: ArrayLike<number>, y: ArrayLike<number>, i: number): number {
+  return ((t[i]! - t[i - 1]!) * discreteAt(t, y, i + 1) + (t[i + 1]! - t[i]!) * discreteAt(t, y, i)) / (t[i + 1]! - t[i - 1]!);
+}
+
+/**
+ * The node forward f_i of the curve on nodes 0..n (ends f_0 = d_1 - (f_1 - d_1)/2 and
+ * f_n = d_n - (f_(n-1) - d_n)/2; f_0 = f_1 = d_1 with one segment), with the positivity collar
+ * when `positive`. One formula for the build and for the segment function.
+ */
+function nodeForward(t: ArrayLike<number>, y: ArrayLike<number>, n: number, i: number, positive: boolean): number {
+  let fi: number;
+  if (n === 1) fi = discreteAt(t, y, 1);
+  else if (i === 0) {
+    const d1 = discreteAt(t, y, 1);
+    fi = d1 - 0.5 * (innerForward(t, y, 1) - d1);
+  } else if (i === n) {
+    const dn = discreteAt(t, y, n);
+    fi = dn - 0.5 * (innerForward(t, y, n - 1) - dn);
+  } else fi = innerForward(t, y, i);
+  if (!positive) return fi;
+  if (i === 0) return collar(fi, 2 * discreteAt(t, y, 1));
+  if (i === n) return collar(fi, 2 * discreteAt(t, y, n));
+  return collar(fi, 2 * Math.min(discreteAt(t, y, i), discreteAt(t, y, i + 1)));
+}
+
+/** ln DF at x on segment i: y_(i-1) - h (d_i u + G(u)), u = (x - t_(i-1)) / h. */
+function segmentLnFrom(t: ArrayLike<number>, y: ArrayLike<number>, i: number, x: number, di: number, fPrev: number, fi: number, pair: [number, number]): number {
+  const h = t[i]! - t[i - 1]!;
+  const u = (x - t[i - 1]!) / h;
+  return y[i - 1]! - h * (di * u + segmentShape(fPrev - di, fi - di, u, pair)[1]);
+}

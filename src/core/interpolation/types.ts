@@ -41,6 +41,14 @@ export interface InterpolatorSpec {
    * flows once per node solve.
    */
   readonly locality?: number;
+  /**
+   * ln DF at x on segment i (t_(i-1) <= x < t_i) of the interpolation on nodes 0..n, straight from
+   * the node arrays and reading only nodes near i (up to i for the local methods; within
+   * `locality` of node i otherwise), with the same arithmetic as the built interpolation's
+   * `lnDiscount`, bit for bit. The bootstrap uses it to solve a node without building an
+   * interpolation at every solver step.
+   */
+  readonly segmentLn?: (ts: ArrayLike<number>, lnDfs: ArrayLike<number>, n: number, i: number, x: number) => number;
   readonly label: string;
 }
 
@@ -57,6 +65,21 @@ export function segmentIndex(ts: ArrayLike<number>, n: number, t: number): numbe
     else lo = mid + 1;
   }
   return lo;
+}
+
+/**
+ * `segmentIndex` starting from a guess: the segment `hint` or the one after it when t lies there,
+ * else a binary search. Same result as `segmentIndex` for every t (hint in 1..n). Performance:
+ * cash flows are read in ascending time, so the segment of the last lookup, or the next, almost
+ * always holds the next flow ("hunt" in Press et al., "Numerical Recipes", section 3.1; cited
+ * from memory).
+ */
+export function segmentNear(ts: ArrayLike<number>, n: number, t: number, hint: number): number {
+  if (hint >= 1 && hint <= n && t >= ts[hint - 1]!) {
+    if (hint === n || t < ts[hint]!) return hint;
+    if (hint + 1 === n || t < ts[hint + 1]!) return hint + 1;
+  }
+  return segmentIndex(ts, n, t);
 }
 
 /*

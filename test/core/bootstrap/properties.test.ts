@@ -4,6 +4,9 @@ import {
   addDays,
   addTenor,
   bondDirtyFromYield,
+  bootstrapInstruments,
+  compileMarket,
+  validateWorkspace,
   bondSchedule,
   buildCurve,
   COMPOUNDINGS,
@@ -125,6 +128,28 @@ describe('every quote reprices within the acceptance bounds, for every interpola
           }
         }),
         params(interpolation === 'cubic-zero' || interpolation.startsWith('monotone') ? 40 : 80),
+      );
+    }, SLOW);
+  }
+});
+
+describe('the repricing reported is the built curve\'s own, bit for bit', () => {
+  // The local methods reprice from the values their one pass left at every cash flow, not by
+  // reading the finished curve again (bootstrap.ts, solveLocal): this holds only if those values
+  // are exactly what curve.lnDiscountAt gives at the same times. Checked with toBe, not a tolerance.
+  for (const interpolation of INTERPOLATIONS) {
+    it(`${interpolation}: every model quote equals modelQuote(curve.lnDiscountAt)`, () => {
+      fc.assert(
+        fc.property(marketArb(), (m) => {
+          const ws = validateWorkspace(docOf(m, interpolation)).workspace!;
+          const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false);
+          const out = bootstrapInstruments({ settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation, extrapolation: 'none' }, market.instruments);
+          if (!out.curve) return; // monotone-convex-positive refuses negative forwards (by contract)
+          market.instruments.forEach((ins, i) => {
+            expect(out.repricing[i]!.model, `quotes[${ins.index}] ${ins.kind}`).toBe(ins.modelQuote(out.curve!.lnDiscountAt));
+          });
+        }),
+        params(interpolation === 'cubic-zero' || interpolation.startsWith('monotone') ? 20 : 100),
       );
     }, SLOW);
   }

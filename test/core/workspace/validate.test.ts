@@ -169,6 +169,7 @@ describe('build-time errors', () => {
       target: 97,
       closedFormLn: null,
       modelQuote: (ln: (t: number) => number) => 100 * Math.exp(ln(1)) + 1e-6,
+      quoteFromFlows: (_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number) => 100 * df[offset]! + 1e-6,
     } as unknown as Instrument;
     const ins = { ...base, requote: () => ins } as Instrument;
     const out = bootstrapInstruments({ settlement: '2027-03-10', dayCount: 'ACT/365F', interpolation: 'cubic-zero', extrapolation: 'none' }, [ins]);
