@@ -1,4 +1,4 @@
-// Sensitivity-map benchmark (run: `TZ=America/Los_Angeles npx tsx test/bench/fit.bench.ts`; outside
+// Sensitivity-map benchmark (run: `npm run bench:engine`, bundled by esbuild; outside
 // `npm test`). On the committed, invented 40-quote market (test/fixtures/market40) it times the
 // whole forward-sensitivity map a user asks for in the workbench: compile the quotes, bootstrap,
 // the forwards (3M every 1Y, simple, ACT/365F) and every forward's sensitivity to every quote
@@ -8,12 +8,13 @@
 // Also printed, without a target: a Nelson-Siegel and a Svensson fit of the same market, and bond
 // analytics with key-rate durations. Medians over >= 200 timed runs after a warm-up. Exits 1 on a miss.
 import { readFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import { analyzeBond, buildCurve, fitCurve, sensitivityMapFor, validateWorkspace, type InterpolationId } from '../../src/core/index.ts';
+import { machineReferenceLine } from './machineReference.ts';
 
-const here = dirname(fileURLToPath(import.meta.url));
-const doc = JSON.parse(readFileSync(join(here, '..', 'fixtures', 'market40', 'market40.json'), 'utf8')) as Record<string, unknown>;
+// npm scripts run at the repository root; the bench itself runs bundled (test/tools/run-ts.mjs).
+const fixtures = join(process.cwd(), 'test', 'fixtures');
+const doc = JSON.parse(readFileSync(join(fixtures, 'market40', 'market40.json'), 'utf8')) as Record<string, unknown>;
 const ws = validateWorkspace(doc).workspace;
 if (!ws) throw new Error('market40 does not validate');
 
@@ -50,4 +51,5 @@ for (const model of ['nelson-siegel', 'svensson'] as const) {
 const curve = buildCurve(doc).curve!;
 const bond = { maturity: '2036-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA' as const, cleanPrice: 101 };
 report('bond analytics with 10 key rates', timeMedian(() => void analyzeBond(curve, bond), 500, 50), null);
+console.log(machineReferenceLine());
 if (failed) process.exitCode = 1;
