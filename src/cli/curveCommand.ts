@@ -176,25 +176,34 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
   const settlement = curve.settlement;
   const dc = opts.dayCount ?? curve.dayCount;
   const errors: CoreError[] = [];
+  // Performance: plain loops, not flatMap and spreads (measured: they cost more than the
+  // bootstrap itself in a batch).
+  let finite = true;
   const dates = opts.at ? opts.at.map((p) => resolve(p, settlement)) : curve.pillars.map((p) => p.date);
-  const points = dates.flatMap((date, i) => {
+  const points: object[] = [];
+  for (let i = 0; i < dates.length; i++) {
+    const date = dates[i]!;
     const z = zeroOn(curve, date, opts.compounding, dc, opts.at ? `--at[${i}]` : `quotes[${curve.pillars[i]!.quote}]`);
     if (!z.ok) {
       errors.push(...z.errors);
-      return [];
+      continue;
     }
     const v = z.value;
-    return [{ date, t: v.t, discount: v.discount, zero: v.zero, ...(v.extrapolated ? { extrapolated: true } : {}) }];
-  });
-  const forwards = opts.forward.flatMap(([s, e], i) => {
+    finite &&= Number.isFinite(v.t) && Number.isFinite(v.discount) && Number.isFinite(v.zero);
+    points.push(v.extrapolated ? { date, t: v.t, discount: v.discount, zero: v.zero, extrapolated: true } : { date, t: v.t, discount: v.discount, zero: v.zero });
+  }
+  const forwards: object[] = [];
+  for (let i = 0; i < opts.forward.length; i++) {
+    const [s, e] = opts.forward[i]!;
     const f = forwardOn(curve, resolve(s, settlement), resolve(e, settlement), opts.compounding, dc, `--forward[${i}]`);
     if (!f.ok) {
       errors.push(...f.errors);
-      return [];
+      continue;
     }
     const v = f.value;
-    return [{ start: v.start, end: v.end, tau: v.tau, rate: v.rate, ...(v.extrapolated ? { extrapolated: true } : {}) }];
-  });
+    finite &&= Number.isFinite(v.tau) && Number.isFinite(v.rate);
+    forwards.push({ start: v.start, end: v.end, tau: v.tau, rate: v.rate, ...(v.extrapolated ? { extrapolated: true } : {}) });
+  }
   const bonds = opts.bonds.flatMap((b, i) => {
     const input: BondInput = { ...b, maturity: resolve(b.maturity, settlement) };
     const a = analyzeBond(curve, input, undefined, `--bond[${i}]`);
@@ -237,10 +246,17 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
       },
     ];
   });
-  const bondNumbers = bonds.flatMap((b) => Object.values(b).flatMap((x) => (typeof x === 'number' ? [x] : typeof x === 'object' ? Object.values(x) : [])));
-  const quotes = build.repricing.map((r) => ({ index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError }));
-  const numbersFinite = [...points.flatMap((p) => [p.t, p.discount, p.zero]), ...forwards.flatMap((f) => [f.tau, f.rate]), ...quotes.flatMap((q) => [q.t, q.repricingError]), ...bondNumbers].every(Number.isFinite);
-  if (!numbersFinite) {
+  for (const b of bonds) {
+    for (const x of Object.values(b)) {
+      if (typeof x === 'number') finite &&= Number.isFinite(x);
+      else if (typeof x === 'object') finite &&= Object.values(x as Record<string, number>).every(Number.isFinite);
+    }
+  }
+  const quotes = build.repricing.map((r) => {
+    finite &&= Number.isFinite(r.t) && Number.isFinite(r.repricingError);
+    return { index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError };
+  });
+  if (!finite) {
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });
   }
   if (errors.length > 0) return failed(errors);
