@@ -6,29 +6,13 @@ import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import axe from 'axe-core';
 import { useState } from 'react';
-import { buildCurve, type Curve } from '../../src/core/index.ts';
+import type { Curve } from '../../src/core/index.ts';
 import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, type StrategyInputs } from '../../src/core/analysis/rollVsTerm.ts';
 import { RollPanel } from '../../src/features/roll/RollPanel.tsx';
+import { rollMarketCurve } from '../helpers/rollMarket.ts';
 
-const curve: Curve = buildCurve(
-  {
-    format: 'tenorscope-workspace',
-    version: 1,
-    settlement: '2026-12-01',
-    curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' },
-    quotes: [
-      { kind: 'deposit', tenor: '1M', rate: 0.031 },
-      { kind: 'deposit', tenor: '3M', rate: 0.032 },
-      { kind: 'deposit', tenor: '6M', rate: 0.0335 },
-      { kind: 'swap', tenor: '1Y', rate: 0.034 },
-      { kind: 'swap', tenor: '2Y', rate: 0.036 },
-      { kind: 'swap', tenor: '3Y', rate: 0.0375 },
-      { kind: 'swap', tenor: '5Y', rate: 0.039 },
-      { kind: 'swap', tenor: '10Y', rate: 0.042 },
-    ],
-  },
-  {},
-).curve!;
+// The invented roll test market (test/helpers/rollMarket.ts), all eight quotes.
+const curve: Curve = rollMarketCurve();
 
 const NONE: { name: string; curve: Curve }[] = [];
 

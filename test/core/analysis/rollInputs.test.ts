@@ -1,6 +1,5 @@
 // The `strategy` key of the workspace document: defaults, path-named errors a user can act on,
 // money parsing and cent rounding, and analysis errors for inputs that do not fit the curve.
-import { buildCurve } from '../../../src/core/index.ts';
 import {
   analyseRollVsTerm,
   DEFAULT_STRATEGY,
@@ -11,22 +10,10 @@ import {
   parseMoney,
   validateStrategy,
 } from '../../../src/core/analysis/rollVsTerm.ts';
+import { rollMarketCurve } from '../../helpers/rollMarket.ts';
 
-const curve = buildCurve(
-  {
-    format: 'tenorscope-workspace',
-    version: 1,
-    settlement: '2026-12-01',
-    curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' },
-    quotes: [
-      { kind: 'deposit', tenor: '3M', rate: 0.032 },
-      { kind: 'swap', tenor: '1Y', rate: 0.034 },
-      { kind: 'swap', tenor: '2Y', rate: 0.036 },
-      { kind: 'swap', tenor: '5Y', rate: 0.039 },
-    ],
-  },
-  {},
-).curve!;
+// Four quotes of the invented roll test market (test/helpers/rollMarket.ts).
+const curve = rollMarketCurve(['3M', '1Y', '2Y', '5Y']);
 
 describe('validateStrategy', () => {
   it('gives the documented defaults for a missing strategy and for missing fields', () => {
