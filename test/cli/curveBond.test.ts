@@ -2,22 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { runCurveCommand } from '../../src/cli/curveCommand.ts';
 import { analyzeBond, buildCurve } from '../../src/core/index.ts';
 import { expectClose } from '../helpers/asserts.ts';
+import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
 
 // `--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]` (repeatable) adds a `bonds` array:
 // the figures must be the core's analyzeBond, and a mistake must be a usage error or a document
 // error a user can act on. Documents are invented test data.
-const doc = {
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
-    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
-    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
-  ],
-};
+const { depo3M, bond2029, swap10Y, swap30Y } = INVENTED_2027; // test/helpers/markets.ts
+const doc = workspaceDoc([depo3M, bond2029, swap10Y, swap30Y], { interpolation: 'monotone-convex' });
 const run = (...args: string[]) => runCurveCommand(['-', ...args], () => JSON.stringify(doc));
 
 describe('curve --bond', () => {

@@ -2,20 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { runCurveCommand } from '../../src/cli/curveCommand.ts';
 import { buildCurve, discountOn, forwardOn, zeroOn } from '../../src/core/index.ts';
 import { expectClose } from '../helpers/asserts.ts';
+import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
 
 // The command-line contract of the engine issue, section 8. Documents are invented test data.
-const doc = {
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'bill', maturity: '2027-09-09', discountYield: 0.0285 },
-    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
-    { kind: 'swap', tenor: '5Y', rate: 0.0342 },
-  ],
-};
+// Quotes of the invented 2027 market (test/helpers/markets.ts) and an invented 5Y swap.
+const { depo3M, bill6M, bond2029 } = INVENTED_2027;
+const doc = workspaceDoc([depo3M, bill6M, bond2029, { kind: 'swap', tenor: '5Y', rate: 0.0342 }], { settlement: '2027-03-10', interpolation: 'monotone-convex' });
 const bad = { ...doc, quotes: [...doc.quotes, { kind: 'swap', tenor: '7Y', rate: 3.5 }] };
 const run = (input: string, ...args: string[]) => runCurveCommand(['-', ...args], () => input);
 const parseLines = (s: string) => s.trim().split('\n').map((l) => JSON.parse(l) as Record<string, any>);

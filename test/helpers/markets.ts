@@ -14,13 +14,14 @@ export interface DocOptions {
   readonly extrapolation?: string;
 }
 
-export interface WorkspaceDoc {
+// A type alias, not an interface, so that it converts to Record<string, unknown> as a literal did.
+export type WorkspaceDoc = {
   format: 'tenorscope-workspace';
   version: 1;
   settlement: string;
   curve: { dayCount: string; interpolation: string; extrapolation?: string };
   quotes: Quote[];
-}
+};
 
 /** Settlement date of the invented 2027 market below. */
 export const INVENTED_2027_SETTLEMENT = '2027-03-10';
@@ -41,3 +42,38 @@ export function workspaceDoc(quotes: readonly Quote[], options: DocOptions = {})
     quotes: quotes.map((q) => ({ ...q })),
   };
 }
+
+/**
+ * An invented market settling 2027-03-10 (test and demo data), by quote. Some instruments come
+ * twice, quoted two ways (the 1Y zero by price and by rate, the 2031 bond by yield and by price).
+ */
+export const INVENTED_2027 = {
+  depo1M: { kind: 'deposit', tenor: '1M', rate: 0.0281 },
+  depo3M: { kind: 'deposit', tenor: '3M', rate: 0.0287 },
+  depo6M: { kind: 'deposit', tenor: '6M', rate: 0.0291 },
+  bill6M: { kind: 'bill', maturity: '2027-09-09', discountYield: 0.0285 },
+  zero1Y: { kind: 'zero', tenor: '1Y', price: 97.12 },
+  zero1YRate: { kind: 'zero', tenor: '1Y', rate: 0.029 },
+  bond2029: { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
+  bond2031Yield: { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0331 },
+  bond2031Price: { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, cleanPrice: 99.6 },
+  bond2034: { kind: 'bond', maturity: '2034-05-15', coupon: 0.04, frequency: 2, cleanPrice: 103.1 },
+  swap2Y: { kind: 'swap', tenor: '2Y', rate: 0.031 },
+  swap5Y: { kind: 'swap', tenor: '5Y', rate: 0.0335 },
+  swap7Y: { kind: 'swap', tenor: '7Y', rate: 0.0342 },
+  swap10Y: { kind: 'swap', tenor: '10Y', rate: 0.0351 },
+  swap30Y: { kind: 'swap', tenor: '30Y', rate: 0.0366 },
+} as const satisfies Record<string, Quote>;
+
+/** The invented 2027 market with every quote kind, price and rate quotes (nine quotes). */
+export const INVENTED_2027_EVERY_KIND: readonly Quote[] = [
+  INVENTED_2027.depo1M,
+  INVENTED_2027.depo3M,
+  INVENTED_2027.bill6M,
+  INVENTED_2027.zero1Y,
+  INVENTED_2027.bond2029,
+  INVENTED_2027.bond2031Yield,
+  INVENTED_2027.swap7Y,
+  INVENTED_2027.swap10Y,
+  INVENTED_2027.swap30Y,
+];

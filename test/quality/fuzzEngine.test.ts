@@ -5,20 +5,19 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { buildCurve, validateWorkspace, zeroOn } from '../../src/core/index.ts';
 import { runCurveCommand } from '../../src/cli/curveCommand.ts';
+import { workspaceDoc } from '../helpers/markets.ts';
 
-const base = {
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
+// The valid starting document: invented test quotes, settlement 2027-03-10, ACT/365F, monotone-convex.
+const base = workspaceDoc(
+  [
     { kind: 'deposit', tenor: '3M', rate: 0.031 },
     { kind: 'bill', maturity: '2027-09-09', discountYield: 0.03 },
     { kind: 'zero', tenor: '1Y', price: 96.9 },
     { kind: 'bond', maturity: '2031-06-15', coupon: 0.04, frequency: 2, cleanPrice: 101.25 },
     { kind: 'swap', tenor: '10Y', rate: 0.0375 },
   ],
-};
+  { settlement: '2027-03-10', interpolation: 'monotone-convex' },
+);
 
 /** Every number reachable in a value. */
 function numbers(v: unknown, out: number[] = []): number[] {

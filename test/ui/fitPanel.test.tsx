@@ -7,23 +7,11 @@ import userEvent from '@testing-library/user-event';
 import axe from 'axe-core';
 import { buildFromWorkspace, fitCurve, validateWorkspace } from '../../src/core/index.ts';
 import { FitPanel } from '../../src/features/fit/FitPanel.tsx';
+import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
 
 // Invented demo market.
-const ws = validateWorkspace({
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'deposit', tenor: '6M', rate: 0.0291 },
-    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
-    { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, cleanPrice: 99.6 },
-    { kind: 'bond', maturity: '2034-05-15', coupon: 0.04, frequency: 2, cleanPrice: 103.1 },
-    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
-    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
-  ],
-}).workspace!;
+const { depo3M, depo6M, bond2029, bond2031Price, bond2034, swap10Y, swap30Y } = INVENTED_2027; // test/helpers/markets.ts
+const ws = validateWorkspace(workspaceDoc([depo3M, depo6M, bond2029, bond2031Price, bond2034, swap10Y, swap30Y], { interpolation: 'monotone-convex' })).workspace!;
 
 describe('FitPanel', () => {
   it('shows a Nelson-Siegel fit: report, parameters with units, residuals in bp and per 100 face, bonds ranked rich to cheap', () => {

@@ -7,21 +7,11 @@ import axe from 'axe-core';
 import { analyzeBond, buildCurve } from '../../src/core/index.ts';
 import { num } from '../../src/components/format.ts';
 import { BondAnalyticsPanel } from '../../src/features/risk/BondAnalyticsPanel.tsx';
+import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
 
 // Invented demo market.
-const doc = {
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
-    { kind: 'swap', tenor: '5Y', rate: 0.0335 },
-    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
-    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
-  ],
-};
+const { depo3M, bond2029, swap5Y, swap10Y, swap30Y } = INVENTED_2027; // test/helpers/markets.ts
+const doc = workspaceDoc([depo3M, bond2029, swap5Y, swap10Y, swap30Y], { interpolation: 'monotone-convex' });
 const build = buildCurve(doc);
 const curve = build.curve!;
 

@@ -6,21 +6,11 @@ import userEvent from '@testing-library/user-event';
 import axe from 'axe-core';
 import { sensitivityMapFor, validateWorkspace } from '../../src/core/index.ts';
 import { SensitivityHeatMap } from '../../src/features/risk/SensitivityHeatMap.tsx';
+import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
 
 // Invented demo market.
-const ws = validateWorkspace({
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'cubic-zero' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'zero', tenor: '1Y', rate: 0.029 },
-    { kind: 'swap', tenor: '2Y', rate: 0.031 },
-    { kind: 'swap', tenor: '5Y', rate: 0.0335 },
-    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
-  ],
-}).workspace!;
+const { depo3M, zero1YRate, swap2Y, swap5Y, swap10Y } = INVENTED_2027; // test/helpers/markets.ts
+const ws = validateWorkspace(workspaceDoc([depo3M, zero1YRate, swap2Y, swap5Y, swap10Y], { interpolation: 'cubic-zero' })).workspace!;
 
 describe('SensitivityHeatMap', () => {
   it('shows forwards by quotes in bp per bp, and a log-linear curve keeps the 10Y quote out of the 1Y forward', async () => {

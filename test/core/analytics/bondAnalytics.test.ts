@@ -13,6 +13,7 @@ import {
   type Curve,
 } from '../../../src/core/index.ts';
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
+import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts';
 
 const SETTLEMENT = '2027-03-10';
 /** A flat continuously compounded curve at r0 on ACT/365F (log-linear nodes reproduce -r0 t exactly). */
@@ -24,23 +25,7 @@ function flatCurve(r0: number): Curve {
   return curveFromPillars(SETTLEMENT, 'ACT/365F', 'log-linear-discount', 'flat-forward', pillars);
 }
 // An invented market (demo data) for the curve-shape checks.
-const market = {
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: SETTLEMENT,
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', tenor: '1M', rate: 0.0281 },
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'bill', maturity: '2027-09-09', discountYield: 0.0285 },
-    { kind: 'zero', tenor: '1Y', price: 97.12 },
-    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
-    { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0331 },
-    { kind: 'swap', tenor: '7Y', rate: 0.0342 },
-    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
-    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
-  ],
-};
+const market = workspaceDoc(INVENTED_2027_EVERY_KIND, { settlement: SETTLEMENT, interpolation: 'monotone-convex' }); // test/helpers/markets.ts
 
 describe('yield-based price, duration and convexity against a textbook worked example', () => {
   // F. J. Fabozzi, "Bond Markets, Analysis, and Strategies", chapter on price volatility: a 9%

@@ -17,25 +17,10 @@ import {
   type InterpolationId,
 } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
+import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts';
 
 // An invented market (demo data): every quote kind, price and rate quotes.
-const doc = {
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'log-linear-discount' },
-  quotes: [
-    { kind: 'deposit', tenor: '1M', rate: 0.0281 },
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'bill', maturity: '2027-09-09', discountYield: 0.0285 },
-    { kind: 'zero', tenor: '1Y', price: 97.12 },
-    { kind: 'bond', maturity: '2029-03-10', coupon: 0.031, frequency: 2, cleanPrice: 100.2 },
-    { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0331 },
-    { kind: 'swap', tenor: '7Y', rate: 0.0342 },
-    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
-    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
-  ],
-};
+const doc = workspaceDoc(INVENTED_2027_EVERY_KIND, { interpolation: 'log-linear-discount' }); // test/helpers/markets.ts
 const ws = validateWorkspace(doc).workspace!;
 const instruments = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false).instruments;
 const settingsFor = (interpolation: InterpolationId) => ({ settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation, extrapolation: 'none' as const });

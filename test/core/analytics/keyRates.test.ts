@@ -2,22 +2,11 @@ import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { analyzeBond, buildCurve, tentWeight } from '../../../src/core/index.ts';
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
+import { INVENTED_2027, workspaceDoc } from '../../helpers/markets.ts';
 
 // Invented demo market; the properties hold for any curve.
-const market = {
-  format: 'tenorscope-workspace',
-  version: 1,
-  settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'flat-forward' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
-    { kind: 'zero', tenor: '1Y', price: 97.12 },
-    { kind: 'swap', tenor: '2Y', rate: 0.031 },
-    { kind: 'swap', tenor: '5Y', rate: 0.0335 },
-    { kind: 'swap', tenor: '10Y', rate: 0.0351 },
-    { kind: 'swap', tenor: '30Y', rate: 0.0366 },
-  ],
-};
+const { depo3M, zero1Y, swap2Y, swap5Y, swap10Y, swap30Y } = INVENTED_2027; // test/helpers/markets.ts
+const market = workspaceDoc([depo3M, zero1Y, swap2Y, swap5Y, swap10Y, swap30Y], { interpolation: 'monotone-convex', extrapolation: 'flat-forward' });
 const curve = buildCurve(market).curve!;
 
 describe('tentWeight', () => {
