@@ -1,4 +1,4 @@
-import { memo, useCallback, useRef, type ClipboardEvent, type KeyboardEvent } from 'react';
+import { memo, useCallback, useMemo, useRef, useState, type ClipboardEvent, type FocusEvent, type KeyboardEvent } from 'react';
 import {
   looksLikeTable,
   QUOTE_COLUMN_LABEL,
@@ -11,6 +11,7 @@ import {
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { useRowWindow, WINDOW_FROM_ROWS } from './useRowWindow.ts';
 
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
 /** Short column headings (the full names label the cells). */
@@ -48,11 +49,13 @@ interface RowViewProps {
   readonly inCurve: boolean;
 }
 
-/** Moves focus to the same column of another row. */
+/** Moves focus to the same column of another row, scrolling the sheet by no more than it takes to show it. */
 function focusCell(grid: HTMLElement | null, row: number, column: string): void {
   const el = grid?.querySelector<HTMLInputElement>(`input[data-row="${row}"][data-col="${column}"]`);
-  el?.focus();
-  el?.select();
+  if (!el) return;
+  el.focus({ preventScroll: true });
+  el.scrollIntoView?.({ block: 'nearest', inline: 'nearest' });
+  el.select();
 }
 
 interface SheetCellProps {
@@ -104,7 +107,7 @@ const QuoteRowView = memo(
     const status = messages.some((m) => m.severity === 'error') ? 'error' : !row.enabled ? 'off' : inCurve ? 'ok' : 'idle';
     return (
       <>
-        <tr role="row" aria-rowindex={n + 1} className={`sheet-row ${status}${selected ? ' selected' : ''}`} aria-selected={selected}>
+        <tr role="row" aria-rowindex={n + 1} className={`sheet-row ${status}${selected ? ' selected' : ''}`} aria-selected={selected} data-row-key={row.id} data-row-index={index}>
           <td role="gridcell" className="rownum">
             <button type="button" className="linklike" onClick={() => selectRow(row.id)} aria-label={`Row ${n}: show details`} title="Show repricing and schedule">
               {n}
@@ -136,7 +139,7 @@ const QuoteRowView = memo(
           </td>
         </tr>
         {messages.length > 0 && (
-          <tr role="row" className={`sheet-message ${status}`}>
+          <tr role="row" className={`sheet-message ${status}`} data-message-for={row.id}>
             <td role="gridcell" colSpan={QUOTE_COLUMNS.length + 3} id={msgId}>
               {messages.map((m) => (
                 <span key={m.c} className={`msg ${m.severity}`}>
@@ -164,6 +167,20 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const notice = useAppStore((s) => s.pasteNotice);
   const { setQuoteUnit, addRow, sortByMaturity, pasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
   const gridRef = useRef<HTMLTableElement>(null);
+  const scrollRef = useRef<HTMLDivElement>(null);
+  // The row holding the focus, kept rendered in a windowed sheet (tracked only when windowed).
+  const [focusedRow, setFocusedRow] = useState<number | null>(null);
+  const rowInfo = useMemo(
+    () => rows.map((row, i) => ({ key: row.id, hasMessage: QUOTE_COLUMNS.some((c) => result.rowIssues[i]?.[c] !== undefined) })),
+    [rows, result.rowIssues],
+  );
+  const { parts, reveal } = useRowWindow(scrollRef, rowInfo, focusedRow);
+  const moveTo = (row: number, column: string): void => reveal(row, () => focusCell(gridRef.current, row, column));
+  const onFocus = (e: FocusEvent<HTMLTableElement>): void => {
+    if (rows.length <= WINDOW_FROM_ROWS) return;
+    const r = (e.target as HTMLElement).dataset?.row;
+    setFocusedRow(r === undefined ? null : Number(r));
+  };
 
   const inCurve = new Set<number>();
   if (result.build.curve) for (const p of result.build.curve.pillars) inCurve.add(result.conversion.rowOfQuote[p.quote] ?? -1);
@@ -190,11 +207,11 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
       e.preventDefault();
       if (r + 1 >= rows.length && e.key === 'Enter') {
         addRow(null);
-        requestAnimationFrame(() => focusCell(gridRef.current, r + 1, c));
-      } else focusCell(gridRef.current, r + 1, c);
+        requestAnimationFrame(() => moveTo(r + 1, c));
+      } else if (r + 1 < rows.length) moveTo(r + 1, c);
     } else if (e.key === 'ArrowUp' || (e.key === 'Enter' && e.shiftKey)) {
       e.preventDefault();
-      focusCell(gridRef.current, r - 1, c);
+      if (r > 0) moveTo(r - 1, c);
     }
   };
 
@@ -216,7 +233,13 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         <span id="unit-help" className="sr-only">
           How a rate, yield or coupon typed without % or bp is read. Switching re-writes bare numbers so their values stay the same.
         </span>
-        <button type="button" onClick={() => focusLater(gridRef.current, rows.length, addRow(null))}>
+        <button
+          type="button"
+          onClick={() => {
+            addRow(null);
+            requestAnimationFrame(() => moveTo(rows.length, 'kind'));
+          }}
+        >
           Add row
         </button>
         <button type="button" onClick={sortByMaturity}>
@@ -253,8 +276,18 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
           </button>
         </div>
       )}
-      <div className="sheet-scroll">
-        <table role="grid" aria-label="Quotes" aria-describedby="sheet-help" className="sheet" ref={gridRef} onPaste={onPaste} onKeyDown={onKeyDown} aria-rowcount={rows.length + 1}>
+      <div className="sheet-scroll" ref={scrollRef}>
+        <table
+          role="grid"
+          aria-label="Quotes"
+          aria-describedby="sheet-help"
+          className="sheet"
+          ref={gridRef}
+          onPaste={onPaste}
+          onKeyDown={onKeyDown}
+          onFocus={onFocus}
+          aria-rowcount={rows.length + 1}
+        >
           <colgroup>
             <col className="w-rownum" />
             <col className="w-on" />
@@ -284,9 +317,19 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
             </tr>
           </thead>
           <tbody>
-            {rows.map((row, i) => (
-              <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} />
-            ))}
+            {/* One flat list of keyed children, so a row keeps its DOM (and the focus) when gaps come and go. */}
+            {parts.flatMap((part) =>
+              part.kind === 'gap'
+                ? [
+                    <tr key={part.key} className="sheet-gap" aria-hidden="true">
+                      <td colSpan={QUOTE_COLUMNS.length + 3} style={{ height: `${part.heightPx}px` }} />
+                    </tr>,
+                  ]
+                : rows.slice(part.from, part.to).map((row, k) => {
+                    const i = part.from + k;
+                    return <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} />;
+                  }),
+            )}
           </tbody>
         </table>
       </div>
@@ -298,6 +341,3 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   );
 }
 
-function focusLater(grid: HTMLElement | null, row: number, _id: string): void {
-  requestAnimationFrame(() => focusCell(grid, row, 'kind'));
-}
