@@ -5,12 +5,11 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { diagnostics, launchBrowser, newPage, REPO_ROOT, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, openWorkbench, REPO_ROOT, type BuiltApp } from './harness.ts';
 
 const AXE_SOURCE = readFileSync(path.join(REPO_ROOT, 'node_modules', 'axe-core', 'axe.min.js'), 'utf8');
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
+let app: BuiltApp | undefined;
 let page: Page;
 
 interface Finding {
@@ -43,17 +42,12 @@ async function expectClean(view: string): Promise<void> {
 }
 
 beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-  page = await newPage(browser, { viewport: { width: 1600, height: 1000 } });
-  await page.goto(server.url, { waitUntil: 'load' });
-  await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
+  app = await openWorkbench({ viewport: { width: 1600, height: 1000 } });
+  page = app.page;
 });
 
 afterAll(async () => {
-  await page?.close();
-  await browser?.close();
-  await server?.close();
+  await app?.close();
 });
 
 describe('axe-core in Chromium: no serious or critical violations', () => {

@@ -1,6 +1,8 @@
-// The harness itself: pages report what went wrong in them, and screenshots are real PNGs.
+// The harness itself: pages report what went wrong in them, screenshots are real PNGs, and
+// openBuiltApp() leaves nothing open when a step fails.
 import { readFile, rm } from 'node:fs/promises';
-import { diagnostics, launchBrowser, newPage, screenshot, type TestBrowser } from './harness.ts';
+import type { Page } from 'playwright-core';
+import { diagnostics, launchBrowser, newPage, openBuiltApp, screenshot, type TestBrowser } from './harness.ts';
 
 let browser: TestBrowser | undefined;
 
@@ -50,5 +52,18 @@ describe('browser harness', () => {
     expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
     await rm(file);
     await page.close();
+  });
+
+  it('openBuiltApp closes the page and stops the server when a step before the load fails', async () => {
+    let seen: { page: Page; url: string } | undefined;
+    const failing = openBuiltApp({
+      beforeLoad: async (page, url) => {
+        seen = { page, url };
+        throw new Error('step failed');
+      },
+    });
+    await expect(failing).rejects.toThrow('step failed');
+    expect(seen?.page.isClosed()).toBe(true);
+    await expect(fetch(seen!.url)).rejects.toThrow(); // nothing listens there any more
   });
 });

@@ -106,6 +106,57 @@ export async function serveDist(): Promise<StaticServer> {
   return serveDirectory(DIST_DIR);
 }
 
+export interface BuiltApp {
+  readonly server: StaticServer;
+  readonly browser: TestBrowser;
+  /** The page opened on the app with newPage(), after its load event. */
+  readonly page: Page;
+  /** Closes the page, the browser and the server, in that order. */
+  close(): Promise<void>;
+}
+
+export interface OpenAppOptions extends NewPageOptions {
+  /** Runs on the new page before it loads the app (permissions, init scripts); url is the server's. */
+  readonly beforeLoad?: (page: Page, url: string) => Promise<unknown>;
+}
+
+/**
+ * Serves the built app (serveDist), launches Chromium (launchBrowser), opens a newPage() and loads
+ * the app in it (waitUntil 'load'). If any step fails, what was opened is closed and the error rethrown.
+ */
+export async function openBuiltApp(options: OpenAppOptions = {}): Promise<BuiltApp> {
+  const server = await serveDist();
+  let browser: TestBrowser | undefined;
+  let page: Page | undefined;
+  const close = async (): Promise<void> => {
+    await page?.close();
+    await browser?.close();
+    await server.close();
+  };
+  try {
+    browser = await launchBrowser();
+    page = await newPage(browser, options);
+    await options.beforeLoad?.(page, server.url);
+    await page.goto(server.url, { waitUntil: 'load' });
+  } catch (error) {
+    await close().catch(() => undefined);
+    throw error;
+  }
+  return { server, browser, page, close };
+}
+
+/** openBuiltApp(), then waits (up to 20 s) for the workbench's quote sheet: the app has mounted. */
+export async function openWorkbench(options: OpenAppOptions = {}): Promise<BuiltApp> {
+  const app = await openBuiltApp(options);
+  try {
+    await app.page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
+  } catch (error) {
+    await app.close().catch(() => undefined);
+    throw error;
+  }
+  return app;
+}
+
 export interface PageDiagnostics {
   /** Uncaught exceptions in the page. */
   readonly pageErrors: string[];

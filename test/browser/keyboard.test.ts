@@ -3,7 +3,7 @@
 // Paste quotes, edit a cell, change the interpolation method, add a scenario, copy a link,
 // open the Print section and print. The quotes are invented test data.
 import type { Page } from 'playwright-core';
-import { diagnostics, launchBrowser, newPage, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, openWorkbench, type BuiltApp } from './harness.ts';
 
 const PASTE = [
   'Type\tTenor\tRate\tCoupon\tClean price\tFrequency\tDay count',
@@ -14,8 +14,7 @@ const PASTE = [
   'swap\t10Y\t3.80\t\t\t1\t30/360',
 ].join('\n');
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
+let app: BuiltApp | undefined;
 let page: Page;
 
 /** What has keyboard focus: role or tag, and its accessible name as the tests use it. */
@@ -48,12 +47,11 @@ const zeroPath = (): Promise<string | null> =>
   page.evaluate(() => document.querySelector('svg[aria-label^="Zero curve"] [data-series="zero"] path')?.getAttribute('d') ?? null);
 
 beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-  page = await newPage(browser, { viewport: { width: 1600, height: 1000 } });
-  await page.context().grantPermissions(['clipboard-read', 'clipboard-write'], { origin: new URL(server.url).origin });
-  await page.goto(server.url, { waitUntil: 'load' });
-  await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
+  app = await openWorkbench({
+    viewport: { width: 1600, height: 1000 },
+    beforeLoad: (p, url) => p.context().grantPermissions(['clipboard-read', 'clipboard-write'], { origin: new URL(url).origin }),
+  });
+  page = app.page;
   // The user never touches the mouse from here on: no page.click, no locator.click/fill.
   const refuse = (): Promise<never> => Promise.reject(new Error('mouse used in the keyboard-only test'));
   page.mouse.click = refuse;
@@ -62,9 +60,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await page?.close();
-  await browser?.close();
-  await server?.close();
+  await app?.close();
 });
 
 describe('keyboard only', () => {
@@ -128,7 +124,7 @@ describe('keyboard only', () => {
     await page.keyboard.press('Space');
     await page.getByText(/Link copied/).waitFor({ timeout: 10_000 });
     const copied = await page.evaluate(() => navigator.clipboard.readText());
-    expect(copied.startsWith(`${server!.url.replace(/\/$/, '')}/#ws1.`) || copied.startsWith(`${server!.url}#ws1.`)).toBe(true);
+    expect(copied.startsWith(`${app!.server.url.replace(/\/$/, '')}/#ws1.`) || copied.startsWith(`${app!.server.url}#ws1.`)).toBe(true);
   });
 
   it('opens the Print section and prints with Enter', async () => {

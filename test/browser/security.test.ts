@@ -7,7 +7,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
-import { DIST_DIR, REPO_ROOT, diagnostics, launchBrowser, newPage, serveDist, type TestBrowser } from './harness.ts';
+import { DIST_DIR, REPO_ROOT, diagnostics, openBuiltApp, type BuiltApp } from './harness.ts';
 
 const html = readFileSync(path.join(DIST_DIR, 'index.html'), 'utf8');
 const jsFiles = readdirSync(path.join(DIST_DIR, 'assets')).filter((f) => f.endsWith('.js'));
@@ -32,27 +32,25 @@ describe('Content-Security-Policy of the production index.html', () => {
 });
 
 describe('the app under its policy in Chromium', () => {
-  let browser: TestBrowser | undefined;
-  let server: Awaited<ReturnType<typeof serveDist>> | undefined;
+  let app: BuiltApp | undefined;
   let page: Page;
   beforeAll(async () => {
-    server = await serveDist();
-    browser = await launchBrowser();
-    page = await newPage(browser);
-    await page.addInitScript(() => {
-      (window as unknown as { __violations: string[] }).__violations = [];
-      document.addEventListener('securitypolicyviolation', (e) =>
-        (window as unknown as { __violations: string[] }).__violations.push(`${e.violatedDirective} ${e.blockedURI}`),
-      );
+    app = await openBuiltApp({
+      // Records every policy violation from the first script on.
+      beforeLoad: (p) =>
+        p.addInitScript(() => {
+          (window as unknown as { __violations: string[] }).__violations = [];
+          document.addEventListener('securitypolicyviolation', (e) =>
+            (window as unknown as { __violations: string[] }).__violations.push(`${e.violatedDirective} ${e.blockedURI}`),
+          );
+        }),
     });
-    await page.goto(server.url, { waitUntil: 'load' });
+    page = app.page;
     await page.waitForSelector('svg[role="img"]', { timeout: 30_000 });
     await page.waitForTimeout(500);
   });
   afterAll(async () => {
-    await page?.close();
-    await browser?.close();
-    await server?.close();
+    await app?.close();
   });
   it('draws the charts with no policy violation and no console error', async () => {
     expect(await page.evaluate(() => (window as unknown as { __violations: string[] }).__violations)).toEqual([]);

@@ -1,16 +1,13 @@
 // Loads the built app in Chromium: the page has its title and React rendered into #root.
 import type { Page } from 'playwright-core';
-import { diagnostics, launchBrowser, newPage, screenshot, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, openBuiltApp, screenshot, type BuiltApp } from './harness.ts';
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
+let app: BuiltApp | undefined;
 let page: Page;
 
 beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-  page = await newPage(browser);
-  await page.goto(server.url, { waitUntil: 'load' });
+  app = await openBuiltApp();
+  page = app.page;
   // React renders after the module script runs; wait for #root to get content.
   await page.waitForFunction(() => (document.querySelector('#root')?.childElementCount ?? 0) > 0, undefined, {
     timeout: 20_000,
@@ -19,9 +16,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await page?.close();
-  await browser?.close();
-  await server?.close();
+  await app?.close();
 });
 
 describe('built app smoke test', () => {

@@ -6,7 +6,7 @@ import type { Page } from 'playwright-core';
 import { addTenor, buildCurve, discountOn, forwardOn, parseTenor, parYieldOn, zeroOn, type Curve } from '../../src/core/index.ts';
 import { readPastedBlock, toEngineDocument, type QuoteRow } from '../../src/core/input/index.ts';
 import { DEMO_SETTLEMENT } from '../../src/state/demoWorkspace.ts';
-import { diagnostics, launchBrowser, newPage, screenshot, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, openWorkbench, screenshot, type BuiltApp } from './harness.ts';
 
 /** An invented block of quotes (test data), as a spreadsheet would put it on the clipboard. */
 const PASTE = [
@@ -24,8 +24,7 @@ const PASTE = [
   'swap\t30Y\t3.95\t\t\t1\t30/360',
 ].join('\n');
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
+let app: BuiltApp | undefined;
 let page: Page;
 
 const paths = async (): Promise<{ zero: string | null; forward: string | null }> =>
@@ -67,17 +66,12 @@ function expectedKeyTable(): Record<string, Record<string, string>> {
 }
 
 beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-  page = await newPage(browser, { viewport: { width: 1600, height: 1000 } });
-  await page.goto(server.url, { waitUntil: 'load' });
-  await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
+  app = await openWorkbench({ viewport: { width: 1600, height: 1000 } });
+  page = app.page;
 });
 
 afterAll(async () => {
-  await page?.close();
-  await browser?.close();
-  await server?.close();
+  await app?.close();
 });
 
 describe('the workbench in Chromium', () => {
@@ -148,7 +142,7 @@ describe('the workbench in Chromium', () => {
 
   it('a second tab on the same workspace is detected and warned about in both', async () => {
     const second = await page.context().newPage();
-    await second.goto(server!.url, { waitUntil: 'load' });
+    await second.goto(app!.server.url, { waitUntil: 'load' });
     await second.getByRole('grid', { name: /Quotes/ }).waitFor();
     await second.getByText(/also open in another tab/).waitFor({ timeout: 10_000 });
     await page.getByText(/also open in another tab/).waitFor({ timeout: 10_000 });
