@@ -1,6 +1,7 @@
 import { addMonths, daysBetween, isLeapYear, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
 import type { BillQuote } from '../workspace/types.ts';
-import { quoteOnCurve, type Instrument } from './instrument.ts';
+import type { Instrument } from './instrument.ts';
+import { SingleFlowInstrument } from './singleFlow.ts';
 
 /**
  * Discount bill. Bank discount yield d on actual days over 360:
@@ -50,42 +51,25 @@ export function compileBill(q: BillQuote, settlement: IsoDate, t: number): Instr
   return new BillInstrument(q, t, [t], [100], days, q.discountYield !== null ? q.discountYield : q.price!);
 }
 
-/** A compiled bill. Performance: a class, so that a requote creates no closures. */
-class BillInstrument implements Instrument {
-  declare readonly quote: BillQuote;
-  declare readonly index: number;
-  declare readonly kind: 'bill';
-  declare readonly maturity: IsoDate;
-  declare readonly t: number;
-  declare readonly unit: 'rate' | 'price';
-  declare readonly field: 'discountYield' | 'price';
-  declare readonly market: number;
-  declare readonly times: readonly number[];
-  declare readonly amounts: number[];
-  declare readonly target: number;
-  declare readonly closedFormLn: number;
+/** A compiled bill: 100 at maturity against its price. */
+class BillInstrument extends SingleFlowInstrument<BillQuote> {
   /** Actual days from settlement to maturity. */
   declare readonly days: number;
 
-  constructor(q: BillQuote, t: number, times: readonly number[], amounts: number[], days: number, value: number) {
+  constructor(q: BillQuote, t: number, times: readonly number[], amounts: readonly number[], days: number, value: number) {
     const byYield = q.discountYield !== null;
-    this.quote = q;
-    this.index = q.index;
-    this.kind = 'bill';
-    this.maturity = q.maturity;
-    this.t = t;
-    this.unit = byYield ? 'rate' : 'price';
-    this.field = byYield ? 'discountYield' : 'price';
-    this.market = value;
-    this.times = times;
-    this.amounts = amounts;
-    this.target = byYield ? billPriceFromDiscountYield(value, days) : value;
-    this.closedFormLn = byYield ? (value * days < 360 ? Math.log1p((-value * days) / 360) : Number.NaN) : Math.log(value / 100);
+    super(
+      q,
+      t,
+      times,
+      byYield ? 'rate' : 'price',
+      byYield ? 'discountYield' : 'price',
+      value,
+      amounts,
+      byYield ? billPriceFromDiscountYield(value, days) : value,
+      byYield ? (value * days < 360 ? Math.log1p((-value * days) / 360) : Number.NaN) : Math.log(value / 100),
+    );
     this.days = days;
-  }
-
-  modelQuote(lnDiscountAt: (t: number) => number): number {
-    return quoteOnCurve(this, lnDiscountAt);
   }
 
   /** The discount yield (1 - DF) 360 / days, or the price 100 DF per 100 face. */

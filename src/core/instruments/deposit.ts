@@ -1,7 +1,8 @@
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { DepositQuote } from '../workspace/types.ts';
-import { quoteOnCurve, type Instrument } from './instrument.ts';
+import type { Instrument } from './instrument.ts';
+import { SingleFlowInstrument } from './singleFlow.ts';
 
 /**
  * Money-market deposit from settlement to maturity at a simple rate r on its day count
@@ -12,41 +13,14 @@ export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number):
   return new DepositInstrument(q, t, [t], tau, q.rate);
 }
 
-/** A compiled deposit. Performance: a class, so that a requote creates no closures. */
-class DepositInstrument implements Instrument {
-  declare readonly quote: DepositQuote;
-  declare readonly index: number;
-  declare readonly kind: 'deposit';
-  declare readonly maturity: IsoDate;
-  declare readonly t: number;
-  declare readonly unit: 'rate';
-  declare readonly field: 'rate';
-  declare readonly market: number;
-  declare readonly times: readonly number[];
-  declare readonly amounts: number[];
-  declare readonly target: number;
-  declare readonly closedFormLn: number;
+/** A compiled deposit: 1 + r tau at the end against 1 now. */
+class DepositInstrument extends SingleFlowInstrument<DepositQuote> {
   /** Year fraction of the deposit under its day count. */
   declare readonly tau: number;
 
   constructor(q: DepositQuote, t: number, times: readonly number[], tau: number, rate: number) {
-    this.quote = q;
-    this.index = q.index;
-    this.kind = 'deposit';
-    this.maturity = q.maturity;
-    this.t = t;
-    this.unit = 'rate';
-    this.field = 'rate';
-    this.market = rate;
-    this.times = times;
-    this.amounts = [1 + rate * tau];
-    this.target = 1;
-    this.closedFormLn = 1 + rate * tau > 0 ? -Math.log1p(rate * tau) : Number.NaN;
+    super(q, t, times, 'rate', 'rate', rate, [1 + rate * tau], 1, 1 + rate * tau > 0 ? -Math.log1p(rate * tau) : Number.NaN);
     this.tau = tau;
-  }
-
-  modelQuote(lnDiscountAt: (t: number) => number): number {
-    return quoteOnCurve(this, lnDiscountAt);
   }
 
   /** The simple rate on the deposit's day count, expm1(-ln DF) / tau (full precision for short tenors). */
