@@ -32,6 +32,16 @@ const KIND_FIELDS: Readonly<Record<Quote['kind'], readonly string[]>> = {
   swap: ['rate', 'frequency', 'dayCount', 'eom'],
 };
 
+/** Every field a quote of each kind may carry (performance: made once, not per quote). */
+const allowedFor = (k: Quote['kind']): readonly string[] => ['kind', 'tenor', 'maturity', 'enabled', ...KIND_FIELDS[k]];
+const KIND_ALLOWED: Readonly<Record<Quote['kind'], readonly string[]>> = {
+  deposit: allowedFor('deposit'),
+  bill: allowedFor('bill'),
+  zero: allowedFor('zero'),
+  bond: allowedFor('bond'),
+  swap: allowedFor('swap'),
+};
+
 export interface ValidationOutcome {
   /** Null when the document as a whole is unusable (bad format, version, settlement or curve settings). */
   readonly workspace: Workspace | null;
@@ -183,6 +193,8 @@ function noCouponPeriod(dc: DayCount | null, what: string, base: string, index: 
 }
 
 const RATE_TEXT = `from ${RATE_MIN} to ${RATE_MAX}`;
+const PRICE_TEXT = `above 0 up to ${PRICE_MAX} (per 100 face)`;
+const COUPON_TEXT = `from 0 to ${COUPON_MAX}`;
 /** Fields holding a decimal rate, whose values above 1 get the hint that rates are decimals. */
 const RATE_FIELDS = ['rate', 'discountYield', 'yield', 'coupon'];
 
@@ -198,7 +210,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
     return null;
   }
   const k = kind as Quote['kind'];
-  const allowed = ['kind', 'tenor', 'maturity', 'enabled', ...KIND_FIELDS[k]];
+  const allowed = KIND_ALLOWED[k];
   for (const key of Object.keys(raw)) {
     if (!allowed.includes(key)) {
       errors.push(coreError('schema', `${base}.${key}`, `${base}.${key}: unknown field for a ${k}; a ${k} takes ${listOf(allowed)}`, index));
@@ -231,7 +243,6 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
     if (typeof raw.enabled !== 'boolean') errors.push(coreError('schema', `${base}.enabled`, `${base}.enabled: must be true or false, not ${typeName(raw.enabled)}`, index));
     else enabled = raw.enabled;
   }
-  const priceWhat = `above 0 up to ${PRICE_MAX} (per 100 face)`;
   const common = { index, maturity: maturity ?? settlement, tenor, enabled };
   const before = errors.length;
   let quote: Quote | null = null;
@@ -245,13 +256,13 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
     case 'bill': {
       oneOf(raw, k, base, index, errors, 'discountYield', 'price');
       const discountYield = readNumber(raw, base, index, errors, 'discountYield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
-      const price = readNumber(raw, base, index, errors, 'price', 0, PRICE_MAX, priceWhat, true) ?? null;
+      const price = readNumber(raw, base, index, errors, 'price', 0, PRICE_MAX, PRICE_TEXT, true) ?? null;
       quote = { kind: 'bill', ...common, discountYield, price };
       break;
     }
     case 'zero': {
       oneOf(raw, k, base, index, errors, 'price', 'rate');
-      const price = readNumber(raw, base, index, errors, 'price', 0, PRICE_MAX, priceWhat, true) ?? null;
+      const price = readNumber(raw, base, index, errors, 'price', 0, PRICE_MAX, PRICE_TEXT, true) ?? null;
       const rate = readNumber(raw, base, index, errors, 'rate', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
       if (raw.rate === undefined && (raw.compounding !== undefined || raw.dayCount !== undefined)) {
         errors.push(coreError('schema', base, `${base}: compounding and dayCount go with a rate; a zero quoted by price takes neither`, index));
@@ -266,10 +277,10 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
       break;
     }
     case 'bond': {
-      const coupon = required(readNumber(raw, base, index, errors, 'coupon', 0, COUPON_MAX, `from 0 to ${COUPON_MAX}`), 'coupon', `from 0 to ${COUPON_MAX}`, base, index, errors);
+      const coupon = required(readNumber(raw, base, index, errors, 'coupon', 0, COUPON_MAX, COUPON_TEXT), 'coupon', COUPON_TEXT, base, index, errors);
       const freq = readFrequency(raw, k, base, index, errors);
       oneOf(raw, k, base, index, errors, 'cleanPrice', 'yield');
-      const cleanPrice = readNumber(raw, base, index, errors, 'cleanPrice', 0, PRICE_MAX, priceWhat, true) ?? null;
+      const cleanPrice = readNumber(raw, base, index, errors, 'cleanPrice', 0, PRICE_MAX, PRICE_TEXT, true) ?? null;
       const y = readNumber(raw, base, index, errors, 'yield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
       const dayCount = readDayCount(raw, base, index, errors, 'dayCount', 'ACT/ACT-ICMA');
       const endOfMonth = readEom(raw, base, index, errors, maturity !== null && isMonthEnd(parseIsoDate(maturity)!));
