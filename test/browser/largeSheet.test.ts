@@ -3,7 +3,7 @@
 // arrow keys and typing reach any row; the focused row stays while the view scrolls away; the
 // grid keeps announcing its full size (aria-rowcount) and each row its place (aria-rowindex).
 import type { Page } from 'playwright-core';
-import { diagnostics, launchBrowser, newPage, screenshot, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, openWorkbench, screenshot, type BuiltApp } from './harness.ts';
 
 /** 500 invented swap quotes on monthly maturities (test data), with a header, as a spreadsheet pastes them. */
 const maturityOf = (i: number): string => {
@@ -20,19 +20,15 @@ function fiveHundredRows(): string {
   return lines.join('\n');
 }
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
+let app: BuiltApp | undefined;
 let page: Page;
 
 const renderedRows = (): Promise<number[]> =>
   page.evaluate(() => [...document.querySelectorAll<HTMLElement>('table[aria-label="Quotes"] tr[data-row-index]')].map((tr) => Number(tr.dataset.rowIndex)));
 
 beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-  page = await newPage(browser, { viewport: { width: 1600, height: 1000 } });
-  await page.goto(server.url, { waitUntil: 'load' });
-  await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
+  app = await openWorkbench({ viewport: { width: 1600, height: 1000 } });
+  page = app.page;
   await page.getByRole('textbox', { name: 'Row 1 Kind' }).focus();
   await page.evaluate((text) => {
     const dt = new DataTransfer();
@@ -43,9 +39,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  await page?.close();
-  await browser?.close();
-  await server?.close();
+  await app?.close();
 });
 
 describe('a 500-row sheet in Chromium', () => {
