@@ -48,16 +48,17 @@ export function App() {
       <StorageBanner />
       <LinkNotice message={link.message} onDismiss={link.dismiss} />
       <SettingsBar />
+      {/* Two columns: the quotes with roll versus term under them; the charts with the tables under them. */}
       <main className="workbench">
-        <div className="row row-top">
+        <div className="left">
           <QuoteSheet result={result} />
-          <CurvesPanel result={result} deferredResult={deferred} />
-        </div>
-        <div className="row row-bottom">
-          <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
           <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
             <RollHost result={deferred} />
           </section>
+        </div>
+        <div className="right">
+          <CurvesPanel result={result} deferredResult={deferred} />
+          <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
         </div>
       </main>
       <footer className="foot">

@@ -39,7 +39,7 @@ export interface RateChartProps {
 }
 
 const W = 540;
-const H = 300;
+const H = 380;
 const M = { left: 54, right: 14, top: 14, bottom: 42 };
 
 const yTickText = (v: number): string => `${(v * 100).toFixed(2).replace(/0$/, '')}%`.replace('-', '\u2212');
