@@ -48,18 +48,18 @@ export function App() {
       <StorageBanner />
       <LinkNotice message={link.message} onDismiss={link.dismiss} />
       <SettingsBar />
-      {/* Two columns: the quotes with roll versus term under them; the charts with the tables under them. */}
+      {/* The quotes beside the charts and tables (one first screen); roll versus term across both below. */}
       <main className="workbench">
         <div className="left">
           <QuoteSheet result={result} />
-          <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
-            <RollHost result={deferred} />
-          </section>
         </div>
         <div className="right">
           <CurvesPanel result={result} deferredResult={deferred} />
           <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
         </div>
+        <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
+          <RollHost result={deferred} />
+        </section>
       </main>
       <footer className="foot">
         <Caution />

@@ -1,3 +1,5 @@
+import { scaleLinear } from 'd3-scale';
+
 /** A plain line chart for the printed page: series of (t, rate) points, straight segments, axes with units. */
 export interface PrintSeries {
   readonly label: string;
@@ -13,31 +15,46 @@ export interface PrintChartProps {
   readonly tag: string;
   readonly series: readonly PrintSeries[];
   readonly xMax: number;
+  /** Time of the last pillar: the stretch after it (extrapolated) is shaded. */
+  readonly lastT?: number;
+}
+
+/** Decimals that show a tick step (in percent) exactly: 0.25 -> 2, 0.1 -> 1, 1 -> 0 (at most 3). */
+function decimalsOf(step: number): number {
+  for (let d = 0; d < 3; d++) {
+    const scaled = step * 10 ** d;
+    if (Math.abs(scaled - Math.round(scaled)) < 1e-6) return d;
+  }
+  return 3;
 }
 
 const W = 340;
 const H = 230;
 const M = { left: 40, right: 8, top: 26, bottom: 26 };
 
-export function PrintChart({ title, tag, series, xMax }: PrintChartProps) {
+export function PrintChart({ title, tag, series, xMax, lastT }: PrintChartProps) {
   const ys = series.flatMap((s) => s.points.map((p) => p.y)).filter(Number.isFinite);
   const lo = ys.length ? Math.min(...ys) : 0;
   const hi = ys.length ? Math.max(...ys) : 0.01;
   const pad = Math.max((hi - lo) * 0.08, 0.0005);
-  const y0 = lo - pad;
-  const y1 = hi + pad;
-  const sx = (x: number): number => M.left + ((W - M.left - M.right) * x) / (xMax || 1);
-  const sy = (y: number): number => H - M.bottom - ((H - M.top - M.bottom) * (y - y0)) / (y1 - y0 || 1);
-  const yTicks = Array.from({ length: 5 }, (_, i) => y0 + ((y1 - y0) * i) / 4);
-  const xTicks = [0, 5, 10, 15, 20, 25, 30, 40, 50].filter((x) => x <= xMax);
+  // Rounded tick values (d3's nice steps: 0.1 %, 0.2 %, 0.25 %, ...), the range widened to reach them.
+  const yScale = scaleLinear().domain([lo - pad, hi + pad]).range([H - M.bottom, M.top]).nice(5);
+  const xScale = scaleLinear().domain([0, xMax || 1]).range([M.left, W - M.right]);
+  const sx = (x: number): number => xScale(x);
+  const sy = (y: number): number => yScale(y);
+  const yTicks = yScale.ticks(5);
+  const yDigits = decimalsOf(100 * ((yTicks[1] ?? 1) - (yTicks[0] ?? 0)));
+  const xTicks = xScale.ticks(6).filter((x) => x <= xMax);
+  const shade = lastT !== undefined && lastT < xMax ? { x: sx(lastT), w: sx(xMax) - sx(lastT) } : null;
   return (
     <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`${title} (${tag})`}>
       <text x={M.left} y={12} fontSize={10} fontWeight={600}>{title}</text>
-      <text x={M.left} y={22} fontSize={8} fill="#5f6671">{tag}; years on the curve's day count</text>
+      <text x={M.left} y={22} fontSize={8} fill="#5f6671">{tag}; years on the curve's day count{shade ? '; shaded: past the last pillar' : ''}</text>
+      {shade && <rect x={shade.x} y={M.top} width={shade.w} height={H - M.top - M.bottom} fill="#f1f2f4" />}
       {yTicks.map((y, i) => (
         <g key={i}>
           <line x1={M.left} x2={W - M.right} y1={sy(y)} y2={sy(y)} stroke="#eceef1" />
-          <text x={M.left - 3} y={sy(y) + 3} fontSize={7.5} textAnchor="end">{(100 * y).toFixed(2)}%</text>
+          <text x={M.left - 3} y={sy(y) + 3} fontSize={7.5} textAnchor="end">{(100 * y).toFixed(yDigits)}%</text>
         </g>
       ))}
       {xTicks.map((x) => (

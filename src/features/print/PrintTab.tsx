@@ -40,15 +40,15 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
         ...(i > 0 ? { dash: '4 2' } : {}),
         points: curveSeries(c.curve, display, [])[kind].map((p) => ({ x: p.x, y: p.y })),
       }));
-    const xMax = curveSeries(curve, display, []).xMax;
+    const { xMax, lastT } = curveSeries(curve, display, []);
     const tag = `${COMPOUNDING_LABEL[display.compounding]}, ${display.dayCount}`;
     return {
       keyRows: printKeyRows(curve, conv),
       conventions: conv,
       scenarios: printScenarios(scenarios, ws, curve, conv, { skipInvalid: true }),
       scenarioConventions: scenarioConventionsText(conv),
-      zeroChart: <PrintChart title="Zero rates" tag={tag} series={series('zero')} xMax={xMax} />,
-      forwardChart: <PrintChart title={`${display.forwardTenor} forwards`} tag={tag} series={series('forward')} xMax={xMax} />,
+      zeroChart: <PrintChart title="Zero rates" tag={tag} series={series('zero')} xMax={xMax} lastT={lastT} />,
+      forwardChart: <PrintChart title={`${display.forwardTenor} forwards`} tag={tag} series={series('forward')} xMax={xMax} lastT={lastT} />,
     };
   }, [curve, ws, display, doc.scenarios]);
   if (!props || !curve || !ws) return <p className="empty">No curve to print: {result.fatal}</p>;

@@ -113,11 +113,18 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
               ))}
             </ul>
           ) : null}
-          <RollGrowthChart series={analysis.growth} strategies={analysis.strategies} viewLabel={analysis.views[analysis.chosen]!.label} horizon={analysis.horizon} />
-          <RollResultsTable analysis={analysis} />
-          <RidingSplitTable analysis={analysis} />
-          <BreakEvenTables analysis={analysis} />
-          <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} />
+          {/* Two columns when the panel is wide: the growth and the results; how riding splits, the break-evens and the legs. */}
+          <div className="roll-body">
+            <div className="roll-main">
+              <RollGrowthChart series={analysis.growth} strategies={analysis.strategies} viewLabel={analysis.views[analysis.chosen]!.label} horizon={analysis.horizon} />
+              <RollResultsTable analysis={analysis} />
+            </div>
+            <div className="roll-side">
+              <RidingSplitTable analysis={analysis} />
+              <BreakEvenTables analysis={analysis} />
+              <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} />
+            </div>
+          </div>
         </>
       ) : null}
     </section>
