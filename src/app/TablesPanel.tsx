@@ -1,4 +1,4 @@
-import { useRef, type KeyboardEvent, type ReactNode } from 'react';
+import { useDeferredValue, useRef, type KeyboardEvent, type ReactNode } from 'react';
 import { ForwardGridTable } from '../features/tables/ForwardGridTable.tsx';
 import { ForwardStripTable } from '../features/tables/ForwardStripTable.tsx';
 import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
@@ -22,6 +22,11 @@ const BASE_TABS: readonly TabDef[] = [
 /** Tables under the charts, as tabs; other features' sections (EXTENSIONS.tabs) get the deferred build. */
 export function TablesPanel({ result, deferredResult = result, extraTabs }: { result: WorkbenchBuild; deferredResult?: WorkbenchBuild; extraTabs: readonly TabDef[] }) {
   const active = useAppStore((s) => s.activeTab);
+  // The open section's content is first rendered right after the app's first render, in a
+  // deferred render of its own (React's useDeferredValue with an initial value), so opening the
+  // app or a link draws the sheet and the charts without waiting for the tables. Every later
+  // render shows the content at once (the value is true from then on).
+  const contentReady = useDeferredValue(true, false);
   const setActiveTab = useAppStore((s) => s.setActiveTab);
   const tabs = [...BASE_TABS, ...extraTabs];
   const current = tabs.find((t) => t.id === active) ?? tabs[0]!;
@@ -56,7 +61,7 @@ export function TablesPanel({ result, deferredResult = result, extraTabs }: { re
         </span>
       </div>
       <div role="tabpanel" id={`tabpanel-${current.id}`} aria-labelledby={`tab-${current.id}`} className="tabpanel">
-        {current.render({ result: BASE_TABS.includes(current) ? result : deferredResult })}
+        {contentReady ? current.render({ result: BASE_TABS.includes(current) ? result : deferredResult }) : <p className="muted small">Preparing the tables…</p>}
       </div>
     </section>
   );
