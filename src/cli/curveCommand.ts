@@ -142,23 +142,34 @@ function parseBond(text: string): BondSpec | string {
   return m[1] === 'price' ? { ...spec, cleanPrice: Number(m[2]) } : { ...spec, yield: Number(m[2]) };
 }
 
-/** Splits input into documents: one JSON value, or NDJSON lines. Each entry is parsed or an error text. */
-function splitDocuments(text: string): ({ doc: unknown } | { error: string })[] {
+type Entry = { doc: unknown } | { error: string };
+
+/**
+ * Splits input into documents: one JSON value, or NDJSON lines (each parsed only when its turn
+ * comes, so a long batch never holds every parsed document at once). Each entry is parsed or an
+ * error text.
+ */
+function splitDocuments(text: string): { readonly count: number; readonly entry: (i: number) => Entry } {
   try {
-    return [{ doc: JSON.parse(text) }];
+    const doc: unknown = JSON.parse(text);
+    return { count: 1, entry: () => ({ doc }) };
   } catch {
     // not a single value: NDJSON
   }
-  const docs = text.split(/\r?\n/).filter((line) => line.trim() !== '');
-  if (docs.length === 0) return [{ error: 'the input is empty; give a workspace JSON document' }];
-  return docs.map((line) => {
-    try {
-      return { doc: JSON.parse(line) };
-    } catch (e) {
-      const shown = line.length > 80 ? `${line.slice(0, 80)}...` : line;
-      return { error: `not valid JSON (${(e as Error).message}): ${shown}` };
-    }
-  });
+  const lines = text.split(/\r?\n/).filter((line) => line.trim() !== '');
+  if (lines.length === 0) return { count: 1, entry: () => ({ error: 'the input is empty; give a workspace JSON document' }) };
+  return {
+    count: lines.length,
+    entry: (i) => {
+      const line = lines[i]!;
+      try {
+        return { doc: JSON.parse(line) };
+      } catch (e) {
+        const shown = line.length > 80 ? `${line.slice(0, 80)}...` : line;
+        return { error: `not valid JSON (${(e as Error).message}): ${shown}` };
+      }
+    },
+  };
 }
 
 /** Resolves a date or tenor against a settlement date. */
@@ -292,7 +303,9 @@ export function runCurveCommand(args: readonly string[], read: (file: string) =>
   let stdout = '';
   let stderr = '';
   let anyFailed = false;
-  splitDocuments(text).forEach((entry, index) => {
+  const documents = splitDocuments(text);
+  for (let index = 0; index < documents.count; index++) {
+    const entry = documents.entry(index);
     const { out, errors } =
       'error' in entry
         ? { out: { index, errors: [{ path: '', quote: null, code: 'invalid-json', message: entry.error }] }, errors: [{ path: '', quote: null, code: 'invalid-json' as const, message: entry.error }] }
@@ -305,6 +318,6 @@ export function runCurveCommand(args: readonly string[], read: (file: string) =>
         stderr += `document ${index}: ${where}${e.message} [${e.code}]\n`;
       }
     }
-  });
+  }
   return { stdout, stderr, status: anyFailed ? 1 : 0 };
 }
