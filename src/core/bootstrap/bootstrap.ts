@@ -133,8 +133,6 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   // by Instrument.quoteFromFlows.
   const flowLn = zeros(totalFlows);
   const flowDf = zeros(totalFlows);
-  // A local method's model quote of each node, taken as the pass leaves it (see solveBySegments).
-  const passModel = zeros(localSpec.segmentLn && !spec.global ? n : 0);
   // Scratch space of solveAffineAt: the flows of one instrument that fall in its own last segment
   // (performance: allocated only when that solver runs).
   const affineScratch = spec.affine === true && (spec.global || !localSpec.segmentLn) ? maxFlows : 0;
@@ -208,8 +206,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
 
   // Pass 1: local bootstrap (log-linear for the global methods' starting point). With a local
   // method's segment formula, solveBySegments leaves the curve's values at node k's flows in flowLn
-  // and flowDf; no later node moves them, so they are the finished curve's and node k's model
-  // quote is taken from them at once, without reading the curve again.
+  // and flowDf; no later node moves them, so after the pass the table is the finished curve's.
   for (let k = 1; k <= n; k++) {
     const x0 = guess(instruments, ts, ys, k);
     const x = localSpec.segmentLn
@@ -219,7 +216,6 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
         : solveAt(k, k, localSpec.build, x0);
     if (typeof x !== 'number') return failed([x]);
     ys[k] = x;
-    if (passModel.length > 0) passModel[k - 1] = instruments[k - 1]!.quoteFromFlows(flowLn, flowDf, flowOffset[k]!);
   }
 
   /**
@@ -363,10 +359,12 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const interp = spec.build(ts, ys);
   const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
   const curve = curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, interp);
-  // A local method's pass took each model quote from the curve's own values at the flows, and a
-  // global method's sweeps repriced on the final nodes (bit for bit what curve.lnDiscountAt gives
-  // there: the same segment formula on the same nodes, y_k exactly at a pillar; a test checks it).
-  const repricing = passModel.length > 0 ? repricingRows(instruments, passModel) : (sweepRows ?? reprice(instruments, curve.lnDiscountAt, flowLn, flowDf, flowOffset));
+  // A local method's pass left the curve's own values at every flow in the table, and a global
+  // method's sweeps repriced on the final nodes (bit for bit what curve.lnDiscountAt gives there:
+  // the same segment formula on the same nodes, y_k exactly at a pillar; a test checks it).
+  const tableIsCurve = !spec.global && localSpec.segmentLn !== undefined;
+  const repricing =
+    sweepRows ?? (tableIsCurve ? repricingRows(instruments, modelsFromTable(instruments, flowLn, flowDf, flowOffset)) : reprice(instruments, curve.lnDiscountAt, flowLn, flowDf, flowOffset));
   const w = worst(repricing);
   if (w && w.ratio > 1) {
     return failed([

@@ -37,6 +37,11 @@ const DEFAULTS: Readonly<Record<string, Partial<Record<QuoteColumn, string>>>> =
 };
 const defaultFor = (kind: string, c: QuoteColumn): string | undefined => DEFAULTS[kind.trim().toLowerCase()]?.[c];
 
+/** A row's messages, one per cell with an issue, in column order (shown on a line under the row). */
+const rowMessages = (issues: RowIssues) => QUOTE_COLUMNS.flatMap((c) => (issues[c] ? [{ c, ...issues[c] }] : []));
+/** Whether the row has that message line (it changes the row's height in a windowed sheet). */
+const hasMessages = (issues: RowIssues): boolean => QUOTE_COLUMNS.some((c) => Boolean(issues[c]));
+
 const issuesEqual = (a: RowIssues, b: RowIssues): boolean =>
   QUOTE_COLUMNS.every((c) => a[c]?.message === b[c]?.message && a[c]?.severity === b[c]?.severity);
 
@@ -102,7 +107,7 @@ const QuoteRowView = memo(
     const selectRow = useAppStore((s) => s.selectRow);
     const n = index + 1;
     const blank = QUOTE_COLUMNS.every((c) => row[c] === '');
-    const messages = QUOTE_COLUMNS.flatMap((c) => (issues[c] ? [{ c, ...issues[c] }] : []));
+    const messages = rowMessages(issues);
     const msgId = `row-msg-${row.id}`;
     const status = messages.some((m) => m.severity === 'error') ? 'error' : !row.enabled ? 'off' : inCurve ? 'ok' : 'idle';
     return (
@@ -171,7 +176,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   // The row holding the focus, kept rendered in a windowed sheet (tracked only when windowed).
   const [focusedRow, setFocusedRow] = useState<number | null>(null);
   const rowInfo = useMemo(
-    () => rows.map((row, i) => ({ key: row.id, hasMessage: QUOTE_COLUMNS.some((c) => result.rowIssues[i]?.[c] !== undefined) })),
+    () => rows.map((row, i) => ({ key: row.id, hasMessage: hasMessages(result.rowIssues[i] ?? {}) })),
     [rows, result.rowIssues],
   );
   const { parts, reveal } = useRowWindow(scrollRef, rowInfo, focusedRow);
