@@ -1,9 +1,15 @@
 import type { Curve } from '../curve/curve.ts';
-import { fixedLegPeriods } from '../instruments/swap.ts';
+import { fixedLegCivil } from '../instruments/swap.ts';
 import { rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
-import { addDays, daysBetween, type IsoDate } from '../time/date.ts';
-import { curveTime, queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
-import { addTenor, type Tenor } from '../time/tenor.ts';
+import { civilFromSerial, daysBetween, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { curveClock, queryYearFractionCivil, type CurveDayCount } from '../time/dayCount.ts';
+import { addTenorCivil, type Tenor } from '../time/tenor.ts';
+
+function civilOf(date: IsoDate): CivilDate {
+  const c = parseIsoDate(date);
+  if (!c) throw new RangeError(`not an ISO date: ${date}`); // programming error: grids are made from a built curve's dates
+  return c;
+}
 
 /**
  * Chart sampling of a curve on a fixed grid of dates, fast enough for every keystroke: the dates,
@@ -48,20 +54,29 @@ export function sampleDays(totalDays: number, n: number): number[] {
 }
 
 export function sampleGrid(settlement: IsoDate, end: IsoDate, n: number, curveDayCount: CurveDayCount, displayDayCount: CurveDayCount, forwardTenor: Tenor): SampleGrid {
+  // Civil dates and day serials throughout (performance: no ISO text parsed per point; the
+  // dates are written once for the points' labels). The clocks are those of curveTime and
+  // queryYearFraction on the same dates.
+  const s = civilOf(settlement);
+  const s0 = serialFromCivil(s);
   const days = sampleDays(daysBetween(settlement, end), n);
-  const dates = days.map((d) => addDays(settlement, d));
-  const len = dates.length;
+  const len = days.length;
+  const curveClockOf = curveClock(curveDayCount, s);
+  const displayClockOf = curveClock(displayDayCount, s);
+  const dates = new Array<IsoDate>(len);
   const t = new Float64Array(len);
   const tauZero = new Float64Array(len);
   const endT = new Float64Array(len);
   const tauForward = new Float64Array(len);
-  dates.forEach((d, i) => {
-    t[i] = curveTime(curveDayCount, settlement, d);
-    tauZero[i] = queryYearFraction(displayDayCount, settlement, d);
-    const e = addTenor(d, forwardTenor);
-    endT[i] = curveTime(curveDayCount, settlement, e);
-    tauForward[i] = queryYearFraction(displayDayCount, d, e);
-  });
+  for (let i = 0; i < len; i++) {
+    const d = civilFromSerial(s0 + days[i]!);
+    const e = addTenorCivil(d, forwardTenor);
+    dates[i] = isoFromCivil(d);
+    t[i] = curveClockOf(d);
+    tauZero[i] = displayClockOf(d);
+    endT[i] = curveClockOf(e);
+    tauForward[i] = queryYearFractionCivil(displayDayCount, d, e);
+  }
   return { settlement, dates, t, tauZero, endT, tauForward };
 }
 
@@ -86,7 +101,7 @@ function collect(n: number, f: (i: number, push: (date: IsoDate, x: number, y: n
     ex.push(e);
   };
   for (let i = 0; i < n; i++) f(i, push);
-  return { dates, x: Float64Array.from(x), y: Float64Array.from(y), extrapolated: ex };
+  return { dates, x: new Float64Array(x), y: new Float64Array(y), extrapolated: ex };
 }
 
 /** Zero rates in compounding c on the grid's display day count (settlement itself is skipped: no period). */
@@ -127,13 +142,30 @@ export interface ParGrid {
 }
 
 export function parGrid(settlement: IsoDate, end: IsoDate, n: number, curveDayCount: CurveDayCount, frequency: number): ParGrid {
+  // Civil dates throughout (performance: 160 par bonds of up to a hundred coupons each; see sampleGrid).
+  const s = civilOf(settlement);
+  const s0 = serialFromCivil(s);
+  const clock = curveClock(curveDayCount, s);
   const days = sampleDays(daysBetween(settlement, end), n).filter((d) => d > 0);
-  const dates = days.map((d) => addDays(settlement, d));
-  const legs = dates.map((d) => {
-    const periods = fixedLegPeriods(settlement, d, frequency, 'ACT/ACT-ICMA', false);
-    return { times: Float64Array.from(periods, (p) => curveTime(curveDayCount, settlement, p.end)), accruals: Float64Array.from(periods, (p) => p.tau) };
-  });
-  return { dates, t: Float64Array.from(dates, (d) => curveTime(curveDayCount, settlement, d)), legs };
+  const len = days.length;
+  const dates = new Array<IsoDate>(len);
+  const t = new Float64Array(len);
+  const legs = new Array<ParGrid['legs'][number]>(len);
+  for (let i = 0; i < len; i++) {
+    const d = civilFromSerial(s0 + days[i]!);
+    const leg = fixedLegCivil(s, d, frequency, 'ACT/ACT-ICMA', false);
+    const m = leg.dates.length;
+    const times = new Float64Array(m);
+    const accruals = new Float64Array(m);
+    for (let j = 0; j < m; j++) {
+      times[j] = clock(leg.dates[j]!);
+      accruals[j] = leg.taus[j]!;
+    }
+    dates[i] = isoFromCivil(d);
+    t[i] = clock(d);
+    legs[i] = { times, accruals };
+  }
+  return { dates, t, legs };
 }
 
 /** Par yields (coupon rate paid at the grid's frequency, ACT/ACT-ICMA accrual) at each grid maturity. */

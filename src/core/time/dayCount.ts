@@ -176,3 +176,7 @@ export const curveTime = (dayCount: CurveDayCount, settlement: IsoDate, date: Is
 export const queryYearFraction = (dayCount: CurveDayCount, d1: IsoDate, d2: IsoDate): number =>
   yearFraction(dayCount, d1, d2, EOM_CONTEXT);
 
+/** `queryYearFraction` on civil dates already parsed (years under the day count). */
+export const queryYearFractionCivil = (dayCount: CurveDayCount, d1: CivilDate, d2: CivilDate): number =>
+  yearFractionCivil(dayCount, d1, d2, true, false, 0, 0);
+

@@ -1,4 +1,4 @@
-import { addDays, addMonths, type IsoDate } from './date.ts';
+import { addDays, addMonths, addMonthsCivil, civilFromSerial, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
 
 /** A tenor `nD`, `nW`, `nM` or `nY` with a whole n >= 1. */
 export interface Tenor {
@@ -34,6 +34,20 @@ export function addTenor(anchor: IsoDate, tenor: Tenor, k = 1, eom = false): Iso
       return addMonths(anchor, k * tenor.n, eom);
     case 'Y':
       return addMonths(anchor, 12 * k * tenor.n, eom);
+  }
+}
+
+/** `addTenor` on a civil date already parsed (same rules). */
+export function addTenorCivil(anchor: CivilDate, tenor: Tenor, k = 1, eom = false): CivilDate {
+  switch (tenor.unit) {
+    case 'D':
+      return civilFromSerial(serialFromCivil(anchor) + k * tenor.n);
+    case 'W':
+      return civilFromSerial(serialFromCivil(anchor) + 7 * k * tenor.n);
+    case 'M':
+      return addMonthsCivil(anchor, k * tenor.n, eom);
+    case 'Y':
+      return addMonthsCivil(anchor, 12 * k * tenor.n, eom);
   }
 }
 

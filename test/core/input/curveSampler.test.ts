@@ -1,6 +1,6 @@
 // The chart sampler against the core's own queries (zeroOn, forwardOn, parYieldOn,
 // instantaneousForwardOn) as the oracle: at every sample the same value to within a few ulps.
-import { addTenor, buildCurve, forwardOn, instantaneousForwardOn, parseTenor, parYieldOn, zeroOn, type Compounding } from '../../../src/core/index.ts';
+import { addTenor, buildCurve, curveTime, queryYearFraction, forwardOn, instantaneousForwardOn, parseTenor, parYieldOn, zeroOn, type Compounding } from '../../../src/core/index.ts';
 import { forwardSamples, instantaneousSamples, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples } from '../../../src/core/input/index.ts';
 import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
 import { expectClose } from '../../helpers/asserts.ts';
@@ -9,10 +9,28 @@ let n = 0;
 const demo = demoWorkspace(() => `s${n++}`);
 const ORACLE = 'the core query at the same date (src/core/curve/query.ts)';
 
-describe.each(['none', 'flat-forward'] as const)('samplers on the demo curve, extrapolation %s', (extrapolation) => {
-  const curve = buildCurve(toEngineDocument({ ...demo, curve: { ...demo.curve, extrapolation } }).doc).curve!;
+// The grids work on civil dates and day serials; the queries parse ISO text: the curve clocks
+// 30/360-US (month-end rules) and ACT/ACT-ISDA (leap years) check the two paths agree.
+describe.each([
+  ['none', 'ACT/365F'],
+  ['flat-forward', 'ACT/365F'],
+  ['flat-forward', '30/360-US'],
+  ['none', 'ACT/ACT-ISDA'],
+] as const)('samplers on the demo curve, extrapolation %s, curve day count %s', (extrapolation, dayCount) => {
+  const curve = buildCurve(toEngineDocument({ ...demo, curve: { ...demo.curve, extrapolation, dayCount } }).doc).curve!;
   const end = '2060-06-15';
   const grid = sampleGrid(curve.settlement, end, 120, curve.dayCount, 'ACT/360', parseTenor('6M')!);
+
+  it('puts each grid date on the curve clock as curveTime does, and the display fractions as queryYearFraction', () => {
+    expect(curve.dayCount).toBe(dayCount);
+    grid.dates.forEach((d, i) => {
+      expect(grid.t[i]).toBe(curveTime(dayCount, curve.settlement, d));
+      expect(grid.tauZero[i]).toBe(queryYearFraction('ACT/360', curve.settlement, d));
+      const e = addTenor(d, parseTenor('6M')!);
+      expect(grid.endT[i]).toBe(curveTime(dayCount, curve.settlement, e));
+      expect(grid.tauForward[i]).toBe(queryYearFraction('ACT/360', d, e));
+    });
+  });
 
   it.each(['continuous', 'annual', 'simple'] as Compounding[])('zeroSamples agrees with zeroOn (%s, ACT/360)', (c) => {
     const s = zeroSamples(curve, grid, c);
