@@ -3,6 +3,7 @@ import { addDays, daysBetween, parseTenor, type Curve, type Repricing } from '..
 import {
   forwardSamples,
   instantaneousSamples,
+  parBondsGrid,
   parGrid,
   parSamples,
   sampleGrid,
@@ -33,9 +34,8 @@ export interface CurveSeries {
   readonly lastT: number;
 }
 
-/** Samples on each chart: fine enough that straight segments between them follow the model. */
+/** Samples on each chart: fine enough that straight segments between them follow the model (par yields: every month, see parGrid). */
 export const ZERO_SAMPLES = 400;
-export const PAR_SAMPLES = 160;
 
 /** The end of the drawn maturity range: the last pillar, or further when the curve extrapolates. */
 export function chartEndDate(curve: Curve): string {
@@ -76,15 +76,12 @@ export function curveSeries(curve: Curve, display: DisplaySettings, repricing: r
   let par: SamplePoint[] = [];
   let markers: CurveSeries['markers'] = [];
   if (display.showPar) {
-    const pg = cached(`p|${curve.settlement}|${end}|${curve.dayCount}|${display.parFrequency}`, () => parGrid(curve.settlement, end, PAR_SAMPLES, curve.dayCount, display.parFrequency));
+    const pg = cached(`p|${curve.settlement}|${end}|${curve.dayCount}|${display.parFrequency}`, () => parGrid(curve.settlement, end, curve.dayCount, display.parFrequency));
     par = points(parSamples(curve, pg));
     // Marker grid: one par bond per quote maturity (cached by the set of maturities).
     const mats = repricing.map((r) => r.maturity);
     const key = `m|${curve.settlement}|${curve.dayCount}|${display.parFrequency}|${mats.join(',')}`;
-    const mg = cached(key, () => {
-      const legs = mats.map((m) => parGrid(curve.settlement, m, 1, curve.dayCount, display.parFrequency));
-      return { dates: mats, t: Float64Array.from(legs, (g) => g.t[g.t.length - 1] ?? 0), legs: legs.map((g) => g.legs[g.legs.length - 1]!) };
-    });
+    const mg = cached(key, () => parBondsGrid(curve.settlement, mats, curve.dayCount, display.parFrequency));
     const ms = parSamples(curve, mg);
     const byDate = new Map(ms.dates.map((d, i) => [d, ms.y[i]!]));
     markers = repricing.flatMap((r) => {

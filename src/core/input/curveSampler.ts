@@ -1,8 +1,8 @@
 import type { Curve } from '../curve/curve.ts';
 import { fixedLegCivil } from '../instruments/swap.ts';
 import { rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
-import { civilFromSerial, daysBetween, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
-import { curveClock, queryYearFractionCivil, type CurveDayCount } from '../time/dayCount.ts';
+import { addMonthsCivil, civilFromSerial, daysBetween, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { curveClock, queryYearFractionCivil, yearFractionCivil, type CurveDayCount } from '../time/dayCount.ts';
 import { addTenorCivil, type Tenor } from '../time/tenor.ts';
 
 function civilOf(date: IsoDate): CivilDate {
@@ -21,6 +21,7 @@ function civilOf(date: IsoDate): CivilDate {
  *   forward   F = rateFromLnDiscount(ln DF(E) - ln DF(S), c, tau(dc, S, E))             (forwardOn)
  *   par       c = (1 - DF(T)) / sum_i a_i DF(t_i), a_i the ACT/ACT-ICMA accrual fractions
  *             of a bond issued at settlement with coupons backward from T               (parYieldOn)
+ *             (par bonds share their coupon dates along a monthly ladder: see parGrid)
  * Points past the last pillar are flagged `extrapolated`; with extrapolation `none` they are
  * dropped, as the queries refuse them.
  */
@@ -134,48 +135,115 @@ export function instantaneousSamples(curve: Curve, grid: SampleGrid): Samples {
   });
 }
 
-/** Coupon times and accrual fractions of par bonds maturing at each grid date (computed once per grid). */
+/**
+ * Par bonds for the par-yield line, as chains of coupons (computed once per grid). Node k is a
+ * coupon at t[k] years (curve clock) with ACT/ACT-ICMA accrual accrual[k]; the bond maturing at
+ * node k pays the coupons of the bond maturing at node prev[k] (-1: none, node k is its first
+ * coupon) and then node k's. A node's chain only reaches earlier nodes. The bonds drawn are the
+ * nodes in `shown` (ascending maturities), dated `dates`.
+ */
 export interface ParGrid {
-  readonly dates: readonly IsoDate[];
   readonly t: Float64Array;
-  readonly legs: readonly { readonly times: Float64Array; readonly accruals: Float64Array }[];
+  readonly accrual: Float64Array;
+  readonly prev: Int32Array;
+  readonly shown: Int32Array;
+  readonly dates: readonly IsoDate[];
 }
 
-export function parGrid(settlement: IsoDate, end: IsoDate, n: number, curveDayCount: CurveDayCount, frequency: number): ParGrid {
-  // Civil dates throughout (performance: 160 par bonds of up to a hundred coupons each; see sampleGrid).
-  const s = civilOf(settlement);
-  const s0 = serialFromCivil(s);
-  const clock = curveClock(curveDayCount, s);
-  const days = sampleDays(daysBetween(settlement, end), n).filter((d) => d > 0);
-  const len = days.length;
-  const dates = new Array<IsoDate>(len);
-  const t = new Float64Array(len);
-  const legs = new Array<ParGrid['legs'][number]>(len);
-  for (let i = 0; i < len; i++) {
-    const d = civilFromSerial(s0 + days[i]!);
-    const leg = fixedLegCivil(s, d, frequency, 'ACT/ACT-ICMA', false);
-    const m = leg.dates.length;
-    const times = new Float64Array(m);
-    const accruals = new Float64Array(m);
-    for (let j = 0; j < m; j++) {
-      times[j] = clock(leg.dates[j]!);
-      accruals[j] = leg.taus[j]!;
-    }
-    dates[i] = isoFromCivil(d);
-    t[i] = clock(d);
-    legs[i] = { times, accruals };
+interface ParNodes {
+  readonly t: number[];
+  readonly accrual: number[];
+  readonly prev: number[];
+  readonly shown: number[];
+  readonly dates: IsoDate[];
+}
+const parNodes = (): ParNodes => ({ t: [], accrual: [], prev: [], shown: [], dates: [] });
+const parGridOf = (n: ParNodes): ParGrid => ({ t: new Float64Array(n.t), accrual: new Float64Array(n.accrual), prev: Int32Array.from(n.prev), shown: Int32Array.from(n.shown), dates: n.dates });
+
+/** Appends one par bond issued at settlement with its own chain: its coupons (fixedLegCivil, ACT/ACT-ICMA, no end-of-month rule), its maturity shown. */
+function appendBond(out: ParNodes, s: CivilDate, maturity: CivilDate, frequency: number, clock: (d: CivilDate) => number): void {
+  const leg = fixedLegCivil(s, maturity, frequency, 'ACT/ACT-ICMA', false);
+  let prev = -1;
+  for (let j = 0; j < leg.dates.length; j++) {
+    out.t.push(clock(leg.dates[j]!));
+    out.accrual.push(leg.taus[j]!);
+    out.prev.push(prev);
+    prev = out.t.length - 1;
   }
-  return { dates, t, legs };
+  if (prev < 0) return; // no coupon after settlement: no bond
+  out.shown.push(prev);
+  out.dates.push(isoFromCivil(maturity));
 }
 
-/** Par yields (coupon rate paid at the grid's frequency, ACT/ACT-ICMA accrual) at each grid maturity. */
+/** Par bonds maturing on the given dates (after settlement), each with its own coupons (the quote markers). */
+export function parBondsGrid(settlement: IsoDate, maturities: readonly IsoDate[], curveDayCount: CurveDayCount, frequency: number): ParGrid {
+  const s = civilOf(settlement);
+  const clock = curveClock(curveDayCount, s);
+  const out = parNodes();
+  for (const m of maturities) appendBond(out, s, civilOf(m), frequency, clock);
+  return parGridOf(out);
+}
+
+/**
+ * Par bonds maturing every whole month from settlement up to `end`, and at `end`. Performance:
+ * they share one ladder of monthly coupon dates. A bond maturing M months out has its coupons,
+ * counted back from maturity, M - step, M - 2 step, ... months out (step = 12 / frequency), the
+ * first a stub from settlement; so it pays the coupons of the bond maturing M - step months out
+ * and one more, and each monthly date is discounted once (about 12 per year of curve instead of
+ * a schedule per bond). The ladder's dates are settlement + M months (the day clipped to the
+ * month's end, as addMonths does); a bond whose maturity day is clipped would count its coupons
+ * back from the clipped day, so those maturities are not drawn (settlement on the 29th to 31st
+ * only). The accruals are those of fixedLegCivil on the same dates, so each par yield equals the
+ * one of a bond with its own schedule (parYieldOn), term for term.
+ */
+export function parGrid(settlement: IsoDate, end: IsoDate, curveDayCount: CurveDayCount, frequency: number): ParGrid {
+  const s = civilOf(settlement);
+  const e = civilOf(end);
+  const clock = curveClock(curveDayCount, s);
+  const out = parNodes();
+  const step = 12 / frequency;
+  if (!Number.isInteger(step)) throw new RangeError(`parGrid: a coupon frequency of 1, 2, 4 or 12 a year, not ${frequency}`); // programming error: display settings are validated
+  const eSerial = serialFromCivil(e);
+  let lastShown = -1;
+  for (let M = 1; ; M++) {
+    const d = addMonthsCivil(s, M);
+    const dSerial = serialFromCivil(d);
+    if (dSerial > eSerial) break;
+    const first = M <= step;
+    const before = addMonthsCivil(s, M - step);
+    const from = first ? s : before;
+    out.t.push(clock(d));
+    out.accrual.push(yearFractionCivil('ACT/ACT-ICMA', from, d, false, false, dSerial - serialFromCivil(before), frequency));
+    out.prev.push(first ? -1 : M - 1 - step);
+    if (d.d === s.d) {
+      out.shown.push(M - 1);
+      out.dates.push(isoFromCivil(d));
+      lastShown = dSerial;
+    }
+  }
+  if (lastShown !== eSerial) appendBond(out, s, e, frequency, clock);
+  return parGridOf(out);
+}
+
+/** Par yields (coupon rate paid at the grid's frequency, ACT/ACT-ICMA accrual) at each bond drawn: (1 - DF(T)) / sum_i a_i DF(t_i). */
 export function parSamples(curve: Curve, grid: ParGrid): Samples {
-  return collect(grid.dates.length, (i, push) => {
-    const T = grid.t[i]!;
+  const n = grid.t.length;
+  // Annuities summed along each chain, first coupon first (the order of parYieldOn's sum).
+  const annuity = new Float64Array(n);
+  const ln = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const t = grid.t[k]!;
+    if (!usable(curve, t)) continue; // no drawn bond's chain holds it (see below)
+    const l = curve.lnDiscountAt(t);
+    const p = grid.prev[k]!;
+    ln[k] = l;
+    annuity[k] = (p < 0 ? 0 : annuity[p]!) + grid.accrual[k]! * Math.exp(l);
+  }
+  return collect(grid.shown.length, (i, push) => {
+    const k = grid.shown[i]!;
+    const T = grid.t[k]!;
+    // A bond past the usable range is not drawn; one within it has all its coupons within it.
     if (!usable(curve, T)) return;
-    const { times, accruals } = grid.legs[i]!;
-    let annuity = 0;
-    for (let j = 0; j < times.length; j++) annuity += accruals[j]! * Math.exp(curve.lnDiscountAt(times[j]!));
-    push(grid.dates[i]!, T, -Math.expm1(curve.lnDiscountAt(T)) / annuity, T > curve.lastT);
+    push(grid.dates[i]!, T, -Math.expm1(ln[k]!) / annuity[k]!, T > curve.lastT);
   });
 }

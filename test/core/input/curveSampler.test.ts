@@ -1,7 +1,7 @@
 // The chart sampler against the core's own queries (zeroOn, forwardOn, parYieldOn,
 // instantaneousForwardOn) as the oracle: at every sample the same value to within a few ulps.
 import { addTenor, buildCurve, curveTime, queryYearFraction, forwardOn, instantaneousForwardOn, parseTenor, parYieldOn, zeroOn, type Compounding } from '../../../src/core/index.ts';
-import { forwardSamples, instantaneousSamples, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples } from '../../../src/core/input/index.ts';
+import { forwardSamples, instantaneousSamples, parBondsGrid, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples } from '../../../src/core/input/index.ts';
 import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
@@ -57,13 +57,23 @@ describe.each([
     });
   });
 
-  it('parSamples agrees with parYieldOn (semiannual)', () => {
-    const pg = parGrid(curve.settlement, end, 60, curve.dayCount, 2);
+  it.each([1, 2, 4, 12])('parSamples on the monthly ladder agrees with parYieldOn (%i coupons a year)', (frequency) => {
+    const pg = parGrid(curve.settlement, end, curve.dayCount, frequency);
     const s = parSamples(curve, pg);
     expect(s.dates.length).toBeGreaterThan(20);
     s.dates.forEach((d, i) => {
-      const p = parYieldOn(curve, d, 2);
+      const p = parYieldOn(curve, d, frequency);
       expect(p.ok, d).toBe(true);
+      if (p.ok) expectClose(s.y[i]!, p.value.rate, 1e-15, ORACLE);
+    });
+  });
+
+  it('parBondsGrid (the quote markers) agrees with parYieldOn at arbitrary maturities', () => {
+    const mats = ['2027-03-17', '2031-02-28', '2044-12-31', '2056-07-09'];
+    const s = parSamples(curve, parBondsGrid(curve.settlement, mats, curve.dayCount, 2));
+    expect(s.dates).toEqual(mats.filter((d) => parYieldOn(curve, d, 2).ok));
+    s.dates.forEach((d, i) => {
+      const p = parYieldOn(curve, d, 2);
       if (p.ok) expectClose(s.y[i]!, p.value.rate, 1e-15, ORACLE);
     });
   });
@@ -84,5 +94,35 @@ describe('sampleDays', () => {
     expect(d[d.length - 1]).toBe(11000);
     for (let i = 1; i < d.length; i++) expect(d[i]!).toBeGreaterThan(d[i - 1]!);
     expect(d[1]!).toBeLessThanOrEqual(14);
+  });
+});
+
+// The par ladder shares coupon dates between bonds; from a settlement on the 29th to the 31st a
+// maturity in a shorter month is clipped and counts its coupons back from the clipped day, so it
+// is left out. Every bond drawn must still be exactly the bond parYieldOn prices.
+describe.each(['2026-12-29', '2026-12-30', '2027-01-31', '2027-08-31'])('par ladder from a settlement on %s', (settlement) => {
+  const curve = buildCurve(toEngineDocument({ ...demo, settlement }).doc).curve!;
+  const end = addTenor(settlement, parseTenor('30Y')!);
+  const grid = parGrid(settlement, end, curve.dayCount, 2);
+  const s = parSamples(curve, grid);
+
+  it('draws each whole month whose day is the settlement day, and the end date', () => {
+    const day = Number(settlement.slice(8));
+    const expected: string[] = [];
+    for (let m = 1; m <= 360; m++) {
+      const d = addTenor(settlement, parseTenor('1M')!, m);
+      if (Number(d.slice(8)) === day && d <= end && (d <= curve.pillars.at(-1)!.date || curve.extrapolation === 'flat-forward')) expected.push(d);
+    }
+    if (expected.at(-1) !== end && (end <= curve.pillars.at(-1)!.date || curve.extrapolation === 'flat-forward')) expected.push(end);
+    expect(s.dates).toEqual(expected);
+    expect(s.dates.length).toBeGreaterThan(day === 31 ? 200 : 300);
+  });
+
+  it('agrees with parYieldOn at every bond drawn', () => {
+    s.dates.forEach((d, i) => {
+      const p = parYieldOn(curve, d, 2);
+      expect(p.ok, d).toBe(true);
+      if (p.ok) expectClose(s.y[i]!, p.value.rate, 1e-15, ORACLE);
+    });
   });
 });
