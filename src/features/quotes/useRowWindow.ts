@@ -1,12 +1,12 @@
 import { useCallback, useEffect, useLayoutEffect, useRef, useState, type RefObject } from 'react';
 
 /** At or below this many rows the sheet renders every row; above it, only the rows in view. */
-export const WINDOW_FROM_ROWS = 60;
+export const WINDOW_FROM_ROWS = 30;
 /** Estimated heights (CSS pixels) of a sheet row and of a row's message line, until measured. */
 const ROW_ESTIMATE_PX = 26;
 const MESSAGE_ESTIMATE_PX = 19;
 /** Rows rendered beyond the visible part, above and below, so scrolling and Tab find them ready. */
-const OVERSCAN_PX = 360;
+const OVERSCAN_PX = 160;
 
 /** A run of consecutive rows to render, or a gap of rows left out (rendered as one spacer). */
 export type WindowPart = { readonly kind: 'rows'; readonly from: number; readonly to: number } | { readonly kind: 'gap'; readonly heightPx: number; readonly key: string };
