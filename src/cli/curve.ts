@@ -13,7 +13,7 @@ function readInput(file: string): string {
   return file === '-' ? readFileSync(0, 'utf8') : readFileSync(file, 'utf8');
 }
 
-const result = runCurveCommand(process.argv.slice(2), readInput);
-if (result.stdout) process.stdout.write(result.stdout);
+// Standard output streams as the documents are built (see runCurveCommand); errors follow at the end.
+const result = runCurveCommand(process.argv.slice(2), readInput, (text) => process.stdout.write(text));
 if (result.stderr) process.stderr.write(result.stderr);
 process.exitCode = result.status;

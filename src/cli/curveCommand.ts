@@ -290,8 +290,16 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
   };
 }
 
-/** The whole command, pure apart from reading the input through `read`. */
-export function runCurveCommand(args: readonly string[], read: (file: string) => string): CommandResult {
+/** Standard output is handed to `write` in pieces of about this many characters (see runCurveCommand). */
+export const OUTPUT_CHUNK_CHARS = 1 << 16;
+
+/**
+ * The whole command, pure apart from reading the input through `read` and, when given, writing
+ * standard output through `write`. Without `write` the output is returned in `stdout`; with it, the
+ * output lines go to `write` in order, in pieces of about OUTPUT_CHUNK_CHARS as the documents are
+ * built, and `stdout` is empty: a large batch never holds all of its output in memory.
+ */
+export function runCurveCommand(args: readonly string[], read: (file: string) => string, write?: (text: string) => void): CommandResult {
   const opts = parseArgs(args);
   if (typeof opts === 'string') return usage(opts);
   let text: string;
@@ -311,6 +319,10 @@ export function runCurveCommand(args: readonly string[], read: (file: string) =>
         ? { out: { index, errors: [{ path: '', quote: null, code: 'invalid-json', message: entry.error }] }, errors: [{ path: '', quote: null, code: 'invalid-json' as const, message: entry.error }] }
         : runDocument(index, entry.doc, opts);
     stdout += JSON.stringify(out) + '\n';
+    if (write && stdout.length >= OUTPUT_CHUNK_CHARS) {
+      write(stdout);
+      stdout = '';
+    }
     if (errors.length > 0) {
       anyFailed = true;
       for (const e of errors) {
@@ -318,6 +330,10 @@ export function runCurveCommand(args: readonly string[], read: (file: string) =>
         stderr += `document ${index}: ${where}${e.message} [${e.code}]\n`;
       }
     }
+  }
+  if (write && stdout !== '') {
+    write(stdout);
+    stdout = '';
   }
   return { stdout, stderr, status: anyFailed ? 1 : 0 };
 }

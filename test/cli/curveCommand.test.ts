@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runCurveCommand } from '../../src/cli/curveCommand.ts';
+import { OUTPUT_CHUNK_CHARS, runCurveCommand } from '../../src/cli/curveCommand.ts';
 import { buildCurve, discountOn, forwardOn, zeroOn } from '../../src/core/index.ts';
 import { expectClose } from '../helpers/asserts.ts';
 import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
@@ -89,6 +89,31 @@ describe('NDJSON batch', () => {
     const r = run(`${JSON.stringify(doc)}\n${JSON.stringify(doc)}\n`);
     expect(r.status).toBe(0);
     expect(parseLines(r.stdout).map((l) => l.index)).toEqual([0, 1]);
+  });
+});
+
+describe('streamed standard output', () => {
+  it('a batch handed to a writer comes out in order, in pieces of at least OUTPUT_CHUNK_CHARS (the last may be shorter), byte for byte the collected output; stdout is then empty', () => {
+    const lines = Array.from({ length: 400 }, (_, i) => JSON.stringify(i === 7 ? bad : doc));
+    const input = lines.join('\n') + '\n';
+    const collected = run(input);
+    const pieces: string[] = [];
+    const streamed = runCurveCommand(['-'], () => input, (text) => pieces.push(text));
+    expect(streamed.stdout).toBe('');
+    expect(streamed.stderr).toBe(collected.stderr);
+    expect(streamed.status).toBe(1);
+    expect(pieces.join('')).toBe(collected.stdout);
+    expect(collected.stdout.length).toBeGreaterThan(3 * OUTPUT_CHUNK_CHARS);
+    expect(pieces.length).toBeGreaterThan(2);
+    for (const p of pieces.slice(0, -1)) expect(p.length).toBeGreaterThanOrEqual(OUTPUT_CHUNK_CHARS);
+    expect(pieces.at(-1)!.length).toBeLessThanOrEqual(OUTPUT_CHUNK_CHARS + 20_000);
+    for (const p of pieces) expect(p.endsWith('\n')).toBe(true); // whole lines only
+  });
+  it('a usage error writes nothing', () => {
+    const pieces: string[] = [];
+    const r = runCurveCommand(['--nope'], () => '', (text) => pieces.push(text));
+    expect(r.status).toBe(2);
+    expect(pieces).toEqual([]);
   });
 });
 
