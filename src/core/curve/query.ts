@@ -119,7 +119,8 @@ export function forwardParRateOn(curve: Curve, start: IsoDate, end: IsoDate, fre
   if (!e.ok) return e;
   let annuity = 0;
   for (const p of fixedLegPeriods(start, end, frequency, dc, eom)) annuity += p.tau * Math.exp(curve.lnDiscountAt(curve.time(p.end)));
-  return ok({ rate: (Math.exp(s.value.ln) - Math.exp(e.value.ln)) / annuity, annuity, extrapolated: s.value.extrapolated || e.value.extrapolated });
+  // DF(S) - DF(E) as DF(S) (1 - DF(E)/DF(S)) with expm1: no cancellation for a short period.
+  return ok({ rate: (Math.exp(s.value.ln) * -Math.expm1(e.value.ln - s.value.ln)) / annuity, annuity, extrapolated: s.value.extrapolated || e.value.extrapolated });
 }
 
 /**

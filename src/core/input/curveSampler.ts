@@ -185,7 +185,8 @@ export function parBondsGrid(settlement: IsoDate, maturities: readonly IsoDate[]
 }
 
 /**
- * Par bonds maturing every whole month from settlement up to `end`, and at `end`. Performance:
+ * Par bonds maturing every whole month from settlement up to `end`, and at `end` (with a few
+ * shorter than a month, so the line starts near settlement). Performance:
  * they share one ladder of monthly coupon dates. A bond maturing M months out has its coupons,
  * counted back from maturity, M - step, M - 2 step, ... months out (step = 12 / frequency), the
  * first a stub from settlement; so it pays the coupons of the bond maturing M - step months out
@@ -203,7 +204,14 @@ export function parGrid(settlement: IsoDate, end: IsoDate, curveDayCount: CurveD
   const out = parNodes();
   const step = 12 / frequency;
   if (!Number.isInteger(step)) throw new RangeError(`parGrid: a coupon frequency of 1, 2, 4 or 12 a year, not ${frequency}`); // programming error: display settings are validated
+  const s0 = serialFromCivil(s);
   const eSerial = serialFromCivil(e);
+  // Bonds shorter than a month (one coupon each), so the line starts near settlement as the zero line does.
+  const firstMonth = serialFromCivil(addMonthsCivil(s, 1)) - s0;
+  for (const d of sampleDays(Math.min(firstMonth, eSerial - s0), 8)) {
+    if (d > 0 && d < firstMonth && s0 + d < eSerial) appendBond(out, s, civilFromSerial(s0 + d), frequency, clock);
+  }
+  const base = out.t.length; // the node of month M is base + M - 1
   let lastShown = -1;
   for (let M = 1; ; M++) {
     const d = addMonthsCivil(s, M);
@@ -214,9 +222,9 @@ export function parGrid(settlement: IsoDate, end: IsoDate, curveDayCount: CurveD
     const from = first ? s : before;
     out.t.push(clock(d));
     out.accrual.push(yearFractionCivil('ACT/ACT-ICMA', from, d, false, false, dSerial - serialFromCivil(before), frequency));
-    out.prev.push(first ? -1 : M - 1 - step);
+    out.prev.push(first ? -1 : base + M - 1 - step);
     if (d.d === s.d) {
-      out.shown.push(M - 1);
+      out.shown.push(base + M - 1);
       out.dates.push(isoFromCivil(d));
       lastShown = dSerial;
     }

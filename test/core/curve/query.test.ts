@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import {
   addTenor,
   buildCurve,
+  curveFromPillars,
+  daysBetween,
   COMPOUNDINGS,
   CURVE_DAY_COUNTS,
   discountOn,
@@ -117,5 +119,29 @@ describe('extrapolation beyond the last pillar', () => {
     const b = value(discountOn(flat, '2070-01-01'));
     expectClose(Math.log(b.discount / a.discount), -flat.forwardAt(last) * (b.t - a.t), 1e-13, 'ln DF falls linearly at the last forward');
     expect(value(discountOn(flat, '2057-03-10')).extrapolated).toBe(false);
+  });
+});
+
+describe('par rates over short periods keep their precision', () => {
+  // A flat curve: ln DF(t) = -r t (continuous r, ACT/365F clock), log-linear between two pillars.
+  // A bond maturing d days out has one coupon, a stub from settlement of ACT/ACT-ICMA fraction
+  // a = d / (f x days of its notional period), so its par coupon is c = (1 - DF) / (a DF) =
+  // expm1(r d/365) / a in closed form (the par-yield definition above). Formed as 1 - DF, the
+  // numerator would lose about 1e-16 / (1 - DF) of its value to cancellation, a few parts in
+  // 1e13 for a day or two; the query keeps it to a few ulps.
+  const r = 0.04;
+  const far = '2037-03-10';
+  const flat = curveFromPillars(settlement, 'ACT/365F', 'log-linear-discount', 'none', [
+    { date: '2027-09-10', t: 184 / 365, discount: Math.exp((-r * 184) / 365), quote: 0 },
+    { date: far, t: 3653 / 365, discount: Math.exp((-r * 3653) / 365), quote: 1 },
+  ]);
+  it.each([1, 2, 3, 7])('a %i-day semiannual par bond: expm1(r d/365) / a, to 1e-14 relative (closed form)', (d) => {
+    const maturity = addTenor(settlement, parseTenor(`${d}D`)!);
+    // The notional period: six months back from the maturity (ACT/ACT-ICMA reference period).
+    const refDays = daysBetween(addTenor(maturity, parseTenor('6M')!, -1), maturity);
+    const a = d / (2 * refDays);
+    const exact = Math.expm1((r * d) / 365) / a;
+    const got = value(parYieldOn(flat, maturity, 2)).rate;
+    expect(Math.abs(got - exact) / exact).toBeLessThan(1e-14);
   });
 });
