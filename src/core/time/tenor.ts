@@ -1,4 +1,4 @@
-import { addDays, addMonths, addMonthsCivil, civilFromSerial, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
+import { addMonthsCivil, civilFromSerial, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
 
 /** A tenor `nD`, `nW`, `nM` or `nY` with a whole n >= 1. */
 export interface Tenor {
@@ -25,16 +25,9 @@ export const tenorMonths = (t: Tenor): number | null => (t.unit === 'M' ? t.n : 
  * (31 Jan + 2 x 1M is 31 Mar, not 28 Mar). Month ends follow `addMonths`.
  */
 export function addTenor(anchor: IsoDate, tenor: Tenor, k = 1, eom = false): IsoDate {
-  switch (tenor.unit) {
-    case 'D':
-      return addDays(anchor, k * tenor.n);
-    case 'W':
-      return addDays(anchor, 7 * k * tenor.n);
-    case 'M':
-      return addMonths(anchor, k * tenor.n, eom);
-    case 'Y':
-      return addMonths(anchor, 12 * k * tenor.n, eom);
-  }
+  const c = parseIsoDate(anchor);
+  if (!c) throw new RangeError(`not an ISO date: ${anchor}`); // programming error: inputs are validated at the boundary
+  return isoFromCivil(addTenorCivil(c, tenor, k, eom));
 }
 
 /** `addTenor` on a civil date already parsed (same rules). */
