@@ -11,6 +11,26 @@ interface DeferredPanel {
   readonly preload: () => Promise<void>;
 }
 
+/**
+ * Runs `then` after the next frame is painted (a task posted from an animation frame callback runs
+ * after that frame's paint); without animation frames (a page in the background, a test DOM) after
+ * a timer. Returns a cancel function.
+ */
+function afterNextPaint(then: () => void): () => void {
+  let timer: ReturnType<typeof setTimeout> | null = null;
+  if (typeof requestAnimationFrame !== 'function' || document.visibilityState === 'hidden') {
+    timer = setTimeout(then, 0);
+    return () => clearTimeout(timer!);
+  }
+  const frame = requestAnimationFrame(() => {
+    timer = setTimeout(then, 0);
+  });
+  return () => {
+    cancelAnimationFrame(frame);
+    if (timer !== null) clearTimeout(timer);
+  };
+}
+
 function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProps>>): DeferredPanel {
   let loaded: ComponentType<PanelProps> | null = null;
   let pending: Promise<void> | null = null;
@@ -34,16 +54,22 @@ function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProp
     useEffect(() => {
       if (component) return;
       let live = true;
-      preload().then(
-        () => {
-          if (live && loaded) setComponent({ C: loaded });
-        },
-        () => {
-          if (live) setFailed(true);
-        },
+      // Fetched once the frame that shows the placeholder is painted: a chunk and its stylesheet
+      // arriving while the first frame is laid out would compete with it (the fetch began during
+      // the first frame's rendering in a trace of a link being opened).
+      const cancel = afterNextPaint(() =>
+        preload().then(
+          () => {
+            if (live && loaded) setComponent({ C: loaded });
+          },
+          () => {
+            if (live) setFailed(true);
+          },
+        ),
       );
       return () => {
         live = false;
+        cancel();
       };
     }, [component]);
     if (component) return <component.C {...props} />;
