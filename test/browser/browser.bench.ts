@@ -12,6 +12,7 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import type { BrowserContext, Page } from 'playwright-core';
+import { machineReferenceLine } from '../bench/machineReference.ts';
 import { launchBrowser, newPage, serveDist } from './harness.ts';
 
 const RUNS = Number(process.env.RUNS ?? 15);
@@ -99,6 +100,7 @@ const phaseLine = (label: string): string => {
   return line;
 };
 
+const referenceBefore = machineReferenceLine();
 const server = await serveDist();
 const browser = await launchBrowser();
 const rows: Row[] = [];
@@ -245,4 +247,7 @@ for (const r of rows) {
   const runs = r.what.startsWith('one-cell') ? '75' : String(r.samples.length);
   console.log(`${pad(r.what, 60)} ${pad(runs, 5)} ${pad(median.toFixed(2), 10)} ${pad(p95.toFixed(2), 10)} ${pad(`<= ${r.target}`, 10)} ${ok ? 'met' : 'NOT MET'}${ok && p95 > r.target ? ' (p95 above target)' : ''}`);
 }
+// The same reference loop as the engine benchmarks, before and after (the host's speed can change during a run).
+console.log(`${referenceBefore} (before the runs)`);
+console.log(`${machineReferenceLine()} (after the runs)`);
 process.exit(failed ? 1 : 0);
