@@ -56,7 +56,7 @@ function structureKey(doc: Record<string, unknown>): string {
 interface FastCache {
   readonly key: string;
   readonly build: CurveBuild;
-  /** Enabled, valid instruments sorted by pillar, as compiled from the document (see compileMarket). */
+  /** Enabled, valid instruments sorted by pillar, as buildCurve compiled them (CurveBuild.instruments). */
   readonly instruments: readonly Instrument[];
 }
 let fast: FastCache | null = null;
@@ -92,6 +92,7 @@ export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
         repricing: [...outcome.repricing].sort((a, b) => a.index - b.index),
         leftOut: prev.leftOut,
         workspace: { ...ws, quotes },
+        instruments,
       };
       fast = { key, build, instruments };
       return build;
@@ -100,7 +101,7 @@ export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
   const build = buildCurve(doc, { skipInvalid: true });
   fast = null;
   if (build.curve && build.workspace) {
-    // Instruments in pillar order, one per pillar (the engine's own compile of the same document).
+    // Instruments in pillar order, one per pillar (as buildCurve compiled them).
     const instruments = compiledInstruments(build);
     if (instruments) fast = { key, build, instruments };
   }

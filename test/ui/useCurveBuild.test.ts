@@ -26,6 +26,17 @@ describe('buildWithReuse', () => {
     }
   });
 
+  it("reuses buildCurve's own compiled instruments: one per pillar, in pillar order, with duplicates and switched-off rows left out", () => {
+    const dup = { ...demo, quotes: [...demo.quotes, { ...demo.quotes[3]!, id: 'dup' }].map((q, i) => (i === 5 ? { ...q, enabled: false } : q)) };
+    const full = buildCurve(toEngineDocument(dup).doc, { skipInvalid: true });
+    expect(full.curve).not.toBeNull();
+    expect(full.instruments.map((ins) => ins.index)).toEqual(full.curve!.pillars.map((p) => p.quote));
+    expect(full.instruments.map((ins) => ins.t)).toEqual(full.curve!.pillars.map((p) => p.t));
+    expect(full.leftOut.map((l) => l.index)).toEqual([5, demo.quotes.length]); // the switched-off row and the duplicate
+    // A failed build carries none.
+    expect(buildCurve({ ...toEngineDocument(demo).doc, settlement: 'soon' }).instruments).toEqual([]);
+  });
+
   it('a change of maturity or kind takes the full build', () => {
     const doc1 = toEngineDocument(demo).doc;
     buildWithReuse(doc1);

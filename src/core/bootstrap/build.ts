@@ -29,6 +29,12 @@ export interface CurveBuild {
   readonly leftOut: readonly LeftOut[];
   /** The validated workspace (null when the document itself is unusable). */
   readonly workspace: Workspace | null;
+  /**
+   * The compiled instruments the curve was bootstrapped from, one per pillar in pillar order
+   * (empty without a curve). Performance: a caller that re-quotes them (Instrument.requote) and
+   * bootstraps again does not compile the market a second time.
+   */
+  readonly instruments: readonly Instrument[];
 }
 
 export interface BuildOptions {
@@ -118,7 +124,7 @@ export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quot
 export function buildCurve(doc: unknown, options: BuildOptions = {}): CurveBuild {
   const validation = validateWorkspace(doc);
   const ws = validation.workspace;
-  const empty = { curve: null, repricing: [], leftOut: [], warnings: [] };
+  const empty = { curve: null, repricing: [], leftOut: [], warnings: [], instruments: [] };
   if (!ws) return { ...empty, errors: validation.errors, workspace: null };
   const skip = options.skipInvalid === true;
   if (validation.errors.length > 0 && !skip) return { ...empty, errors: validation.errors, workspace: ws };
@@ -152,7 +158,7 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     warnings.push({ path: e.path, quote: e.quote, code: 'skipped', message: `skipped: ${e.message}` });
     leftOut.push({ index: e.quote!, reason: 'invalid', message: e.message });
   }
-  const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws };
+  const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws, instruments: [] };
   if (market.errors.length > 0) return { ...base, curve: null, errors: market.errors, warnings, repricing: [] };
   if (market.instruments.length === 0) {
     return {
@@ -166,6 +172,7 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
   const outcome = bootstrapInstruments(settings, market.instruments);
   return {
     ...base,
+    instruments: outcome.curve ? market.instruments : [],
     curve: outcome.curve,
     errors: outcome.errors,
     warnings: [...warnings, ...outcome.warnings],
