@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { bootstrapInstruments, buildCurve, type CurveBuild, type Instrument, type Quote } from '../core/index.ts';
+import { bootstrapInstruments, buildCurve, type CurveBuild, type Quote } from '../core/index.ts';
 import {
   parseRow,
   rowIssuesFromEngine,
@@ -53,11 +53,10 @@ function structureKey(doc: Record<string, unknown>): string {
   return JSON.stringify([doc.settlement, doc.curve, shapes]);
 }
 
+/** The last build, kept only when its instruments match its pillars one for one (see compiledInstruments). */
 interface FastCache {
   readonly key: string;
   readonly build: CurveBuild;
-  /** Enabled, valid instruments sorted by pillar, as buildCurve compiled them (CurveBuild.instruments). */
-  readonly instruments: readonly Instrument[];
 }
 let fast: FastCache | null = null;
 
@@ -79,7 +78,7 @@ export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
       return { ...q, ...patch } as Quote;
     };
     const quotes = ws.quotes.map(valueOf);
-    const instruments = fast.instruments.map((ins) => {
+    const instruments = prev.instruments.map((ins) => {
       const raw = (doc.quotes as Record<string, unknown>[])[ins.index]!;
       return ins.requote(raw[ins.field] as number);
     });
@@ -94,17 +93,13 @@ export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
         workspace: { ...ws, quotes },
         instruments,
       };
-      fast = { key, build, instruments };
+      fast = { key, build };
       return build;
     }
   }
   const build = buildCurve(doc, { skipInvalid: true });
   fast = null;
-  if (build.curve && build.workspace) {
-    // Instruments in pillar order, one per pillar (as buildCurve compiled them).
-    const instruments = compiledInstruments(build);
-    if (instruments) fast = { key, build, instruments };
-  }
+  if (compiledInstruments(build)) fast = { key, build };
   return build;
 }
 

@@ -8,7 +8,7 @@ import { compileZero } from '../instruments/zero.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
-import { parseIsoDate, type CivilDate, type IsoDate } from '../time/date.ts';
+import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, Workspace } from '../workspace/types.ts';
 import { validateWorkspace } from '../workspace/validate.ts';
 import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
@@ -48,15 +48,13 @@ export interface BuildOptions {
 
 /** Compiles one validated quote against a settlement date and curve day count. */
 export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCount): Instrument {
-  const s = parseIsoDate(settlement);
-  if (!s) throw new RangeError(`not an ISO date: ${settlement}`); // programming error: the workspace is validated
+  const s = civilFromIso(settlement); // the workspace is validated
   return compileQuoteCivil(q, settlement, curveClock(dayCount, s), s);
 }
 
 /** compileQuote with the settlement date parsed and the curve clock made once per market (performance). */
 function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate): Instrument {
-  const m = parseIsoDate(q.maturity);
-  if (!m) throw new RangeError(`not an ISO date: ${q.maturity}`);
+  const m = civilFromIso(q.maturity);
   const t = time(m);
   switch (q.kind) {
     case 'deposit':
@@ -87,8 +85,7 @@ export interface CompiledMarket {
 }
 
 export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quotes: readonly Quote[], skipDuplicates: boolean): CompiledMarket {
-  const s = parseIsoDate(settlement);
-  if (!s) throw new RangeError(`not an ISO date: ${settlement}`); // programming error: the workspace is validated
+  const s = civilFromIso(settlement); // the workspace is validated
   const time = curveClock(dayCount, s);
   const compiled: Instrument[] = [];
   for (const q of quotes) if (q.enabled) compiled.push(compileQuoteCivil(q, settlement, time, s));

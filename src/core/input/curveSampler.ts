@@ -1,15 +1,9 @@
 import type { Curve } from '../curve/curve.ts';
 import { fixedLegCivil } from '../instruments/swap.ts';
 import { rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
-import { addMonthsCivil, civilFromSerial, daysBetween, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { addMonthsCivil, civilFromIso, civilFromSerial, daysBetween, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { curveClock, queryYearFractionCivil, yearFractionCivil, type CurveDayCount } from '../time/dayCount.ts';
 import { addTenorCivil, type Tenor } from '../time/tenor.ts';
-
-function civilOf(date: IsoDate): CivilDate {
-  const c = parseIsoDate(date);
-  if (!c) throw new RangeError(`not an ISO date: ${date}`); // programming error: grids are made from a built curve's dates
-  return c;
-}
 
 /**
  * Chart sampling of a curve on a fixed grid of dates, fast enough for every keystroke: the dates,
@@ -58,7 +52,7 @@ export function sampleGrid(settlement: IsoDate, end: IsoDate, n: number, curveDa
   // Civil dates and day serials throughout (performance: no ISO text parsed per point; the
   // dates are written once for the points' labels). The clocks are those of curveTime and
   // queryYearFraction on the same dates.
-  const s = civilOf(settlement);
+  const s = civilFromIso(settlement);
   const s0 = serialFromCivil(s);
   const days = sampleDays(daysBetween(settlement, end), n);
   const len = days.length;
@@ -177,10 +171,10 @@ function appendBond(out: ParNodes, s: CivilDate, maturity: CivilDate, frequency:
 
 /** Par bonds maturing on the given dates (after settlement), each with its own coupons (the quote markers). */
 export function parBondsGrid(settlement: IsoDate, maturities: readonly IsoDate[], curveDayCount: CurveDayCount, frequency: number): ParGrid {
-  const s = civilOf(settlement);
+  const s = civilFromIso(settlement);
   const clock = curveClock(curveDayCount, s);
   const out = parNodes();
-  for (const m of maturities) appendBond(out, s, civilOf(m), frequency, clock);
+  for (const m of maturities) appendBond(out, s, civilFromIso(m), frequency, clock);
   return parGridOf(out);
 }
 
@@ -198,8 +192,8 @@ export function parBondsGrid(settlement: IsoDate, maturities: readonly IsoDate[]
  * one of a bond with its own schedule (parYieldOn), term for term.
  */
 export function parGrid(settlement: IsoDate, end: IsoDate, curveDayCount: CurveDayCount, frequency: number): ParGrid {
-  const s = civilOf(settlement);
-  const e = civilOf(end);
+  const s = civilFromIso(settlement);
+  const e = civilFromIso(end);
   const clock = curveClock(curveDayCount, s);
   const out = parNodes();
   const step = 12 / frequency;

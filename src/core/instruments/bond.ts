@@ -1,5 +1,5 @@
 import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
-import { isoFromCivil, parseIsoDate, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { isoFromCivil, civilFromIso, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { BondQuote } from '../workspace/types.ts';
 import { quoteOnCurve, type Instrument } from './instrument.ts';
@@ -35,10 +35,7 @@ export interface BondTerms {
 }
 
 export function bondSchedule(terms: BondTerms, settlement: IsoDate): BondSchedule {
-  const s = parseIsoDate(settlement);
-  const m = parseIsoDate(terms.maturity);
-  if (!s || !m) throw new RangeError(`not an ISO date: ${s ? terms.maturity : settlement}`);
-  const c = bondScheduleCivil(terms, s, m);
+  const c = bondScheduleCivil(terms, civilFromIso(settlement), civilFromIso(terms.maturity));
   const last = c.dates.length - 1;
   const dates = c.dates.map((d, i) => (i === last ? terms.maturity : isoFromCivil(d)));
   return { previous: isoFromCivil(c.previous), dates, amounts: c.amounts, accrued: c.accrued, w: c.w, frequency: c.frequency, coupon: c.coupon };

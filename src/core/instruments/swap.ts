@@ -1,5 +1,5 @@
 import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
-import { isoFromCivil, parseIsoDate, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { isoFromCivil, civilFromIso, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { SwapQuote } from '../workspace/types.ts';
 import { quoteOnCurve, type Instrument } from './instrument.ts';
@@ -19,10 +19,7 @@ export interface FixedPeriod {
  * reference; 30E/360-ISDA takes `end` as the termination date.
  */
 export function fixedLegPeriods(start: IsoDate, end: IsoDate, frequency: number, dayCount: DayCount, eom: boolean): FixedPeriod[] {
-  const s = parseIsoDate(start);
-  const e = parseIsoDate(end);
-  if (!s || !e) throw new RangeError(`not an ISO date: ${s ? end : start}`);
-  const { dates, taus } = fixedLegCivil(s, e, frequency, dayCount, eom);
+  const { dates, taus } = fixedLegCivil(civilFromIso(start), civilFromIso(end), frequency, dayCount, eom);
   return dates.map((date, i) => ({ start: i === 0 ? start : isoFromCivil(dates[i - 1]!), end: i === dates.length - 1 ? end : isoFromCivil(date), tau: taus[i]! }));
 }
 

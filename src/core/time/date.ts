@@ -68,12 +68,15 @@ export function civilFromSerial(serial: number): CivilDate {
 const pad = (n: number, w: number): string => String(n).padStart(w, '0');
 export const isoFromCivil = ({ y, m, d }: CivilDate): IsoDate => `${pad(y, 4)}-${pad(m, 2)}-${pad(d, 2)}`;
 
-/** Serial of a valid ISO date (callers validate first with parseIsoDate or isIsoDate). */
-export function serialFromIso(date: IsoDate): number {
+/** The civil date of a valid ISO date (callers validate first with parseIsoDate or isIsoDate). */
+export function civilFromIso(date: IsoDate): CivilDate {
   const c = parseIsoDate(date);
   if (!c) throw new RangeError(`not an ISO date: ${date}`); // programming error: inputs are validated at the boundary
-  return serialFromCivil(c);
+  return c;
 }
+
+/** Serial of a valid ISO date (callers validate first with parseIsoDate or isIsoDate). */
+export const serialFromIso = (date: IsoDate): number => serialFromCivil(civilFromIso(date));
 export const isoFromSerial = (serial: number): IsoDate => isoFromCivil(civilFromSerial(serial));
 
 /** Actual days from d1 to d2 (negative when d2 is earlier). */
@@ -97,11 +100,7 @@ export function addMonthsCivil(anchor: CivilDate, months: number, eom = false): 
   return { y, m, d };
 }
 
-export const addMonths = (date: IsoDate, months: number, eom = false): IsoDate => {
-  const c = parseIsoDate(date);
-  if (!c) throw new RangeError(`not an ISO date: ${date}`);
-  return isoFromCivil(addMonthsCivil(c, months, eom));
-};
+export const addMonths = (date: IsoDate, months: number, eom = false): IsoDate => isoFromCivil(addMonthsCivil(civilFromIso(date), months, eom));
 
 /** True when two civil dates are the same day. */
 export const sameCivil = (a: CivilDate, b: CivilDate): boolean => a.y === b.y && a.m === b.m && a.d === b.d;

@@ -149,7 +149,7 @@ export function yearFractionCivil(
 
 /**
  * The curve's clock from one settlement date as a function of civil dates, years under the curve
- * day count (the same values as curveTimeCivil). Performance: made once per market; the
+ * day count (the same values as curveTime). Performance: made once per market; the
  * actual-day conventions subtract the settlement's day serial computed once.
  */
 export function curveClock(dayCount: CurveDayCount, settlement: CivilDate): (date: CivilDate) => number {
@@ -158,12 +158,8 @@ export function curveClock(dayCount: CurveDayCount, settlement: CivilDate): (dat
     const basis = dayCount === 'ACT/360' ? 360 : 365;
     return (date) => (serialFromCivil(date) - s0) / basis;
   }
-  return (date) => yearFractionCivil(dayCount, settlement, date, true, false, 0, 0);
+  return (date) => queryYearFractionCivil(dayCount, settlement, date);
 }
-
-/** `curveTime` on civil dates already parsed (years under the curve day count; see curveTime). */
-export const curveTimeCivil = (dayCount: CurveDayCount, settlement: CivilDate, date: CivilDate): number =>
-  yearFractionCivil(dayCount, settlement, date, true, false, 0, 0);
 
 /**
  * The curve's clock: year fraction from settlement under a curve day count. The 30/360-US

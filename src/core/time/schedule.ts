@@ -1,4 +1,4 @@
-import { addMonthsCivil, isoFromCivil, parseIsoDate, type CivilDate, type IsoDate } from './date.ts';
+import { addMonthsCivil, isoFromCivil, civilFromIso, type CivilDate, type IsoDate } from './date.ts';
 
 /**
  * Coupon dates generated backward from an end date: end - k x (12/frequency) months for
@@ -41,10 +41,7 @@ export function backwardScheduleCivil(start: CivilDate, end: CivilDate, frequenc
 
 /** Generates a backward schedule from `end` (which must be after `start`). frequency: 1, 2, 4 or 12 per year. */
 export function backwardSchedule(start: IsoDate, end: IsoDate, frequency: number, eom: boolean): BackwardSchedule {
-  const s = parseIsoDate(start);
-  const e = parseIsoDate(end);
-  if (!s || !e) throw new RangeError(`not an ISO date: ${s ? end : start}`);
-  const civil = backwardScheduleCivil(s, e, frequency, eom);
+  const civil = backwardScheduleCivil(civilFromIso(start), civilFromIso(end), frequency, eom);
   const dates = civil.dates.map((d, i) => (i === civil.dates.length - 1 ? end : isoFromCivil(d)));
   return { dates, previous: isoFromCivil(civil.previous) };
 }

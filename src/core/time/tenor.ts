@@ -1,4 +1,4 @@
-import { addMonthsCivil, civilFromSerial, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
+import { addMonthsCivil, civilFromIso, civilFromSerial, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
 
 /** A tenor `nD`, `nW`, `nM` or `nY` with a whole n >= 1. */
 export interface Tenor {
@@ -25,9 +25,7 @@ export const tenorMonths = (t: Tenor): number | null => (t.unit === 'M' ? t.n : 
  * (31 Jan + 2 x 1M is 31 Mar, not 28 Mar). Month ends follow `addMonths`.
  */
 export function addTenor(anchor: IsoDate, tenor: Tenor, k = 1, eom = false): IsoDate {
-  const c = parseIsoDate(anchor);
-  if (!c) throw new RangeError(`not an ISO date: ${anchor}`); // programming error: inputs are validated at the boundary
-  return isoFromCivil(addTenorCivil(c, tenor, k, eom));
+  return isoFromCivil(addTenorCivil(civilFromIso(anchor), tenor, k, eom));
 }
 
 /** `addTenor` on a civil date already parsed (same rules). */
