@@ -15,7 +15,7 @@ import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import type { BrowserContext, Page } from 'playwright-core';
 import { machineReferenceLine } from '../bench/machineReference.ts';
-import { detachedOpener, type ProbeTimes } from './detachedOpen.ts';
+import { detachedOpener, PROBE_PAINTED_LINE, probeScript, type ProbeTimes } from './detachedOpen.ts';
 import { launchBrowser, newPage, serveDist } from './harness.ts';
 
 const RUNS = Number(process.env.RUNS ?? 15);
@@ -49,47 +49,15 @@ function fiveHundredRows(shiftBp: number): string {
 
 const SEVEN_ROWS = ['Type\tTenor\tRate\tCoupon\tClean price\tFrequency\tDay count', 'deposit\t3M\t3.95\t\t\t\tACT/360', 'deposit\t6M\t4.00\t\t\t\tACT/360', 'swap\t2Y\t3.80\t\t\t1\t30/360', 'swap\t5Y\t3.60\t\t\t1\t30/360', 'swap\t10Y\t3.80\t\t\t1\t30/360', 'swap\t20Y\t4.00\t\t\t1\t30/360', 'swap\t30Y\t3.90\t\t\t1\t30/360'].join('\n');
 
-/** What the page prints (console) once the first chart is painted: the harness waits for it without running a script in the page. */
-const PAINTED = 'tenorscope-bench: chart painted';
-
-/**
- * Installed before the app's scripts: marks the first paint after the zero curve is drawn (and,
- * with a row count, only once the sheet has exactly that many rows), then says so on the console.
- * The harness listens for that line instead of polling the page, so no harness script runs on the
- * page's main thread while it loads (a polling script cost the measured load about 6 ms of main
- * thread in a trace).
- */
-const watchFirstChart = ([rows, painted]: [number | null, string]): void => {
-  const drawn = (): boolean => {
-    if (!document.querySelector('svg[aria-label^="Zero curve"] [data-series="zero"] path[d]')) return false;
-    if (rows === null) return true;
-    return document.querySelector(`input[aria-label="Row ${rows} Kind"]`) !== null && document.querySelector(`input[aria-label="Row ${rows + 1} Kind"]`) === null;
-  };
-  const observer = new MutationObserver(() => {
-    if (!drawn()) return;
-    observer.disconnect();
-    performance.mark('chart-in-dom');
-    requestAnimationFrame(() => {
-      const ch = new MessageChannel();
-      ch.port1.onmessage = () => {
-        performance.mark('chart-painted');
-        console.log(painted);
-      };
-      ch.port2.postMessage(0);
-    });
-  });
-  observer.observe(document, { subtree: true, childList: true, attributes: true });
-};
-
 /** Navigation-start-relative times seen by the page: scripts parsed (DOMContentLoaded), chart in the DOM, chart painted. */
 const phases: { dcl: number[]; inDom: number[] } = { dcl: [], inDom: [] };
 async function firstChartMs(page: Page, url: string): Promise<number> {
-  const painted = page.waitForEvent('console', { predicate: (m) => m.text() === PAINTED, timeout: 20_000 });
+  const painted = page.waitForEvent('console', { predicate: (m) => m.text() === PROBE_PAINTED_LINE, timeout: 20_000 });
   await page.goto(url, { waitUntil: 'commit' });
   await painted;
   const t = await page.evaluate(() => ({
-    painted: performance.getEntriesByName('chart-painted')[0]!.startTime,
-    inDom: performance.getEntriesByName('chart-in-dom')[0]!.startTime,
+    painted: performance.getEntriesByName('probe-painted')[0]!.startTime,
+    inDom: performance.getEntriesByName('probe-in-dom')[0]!.startTime,
     dcl: (performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming | undefined)?.domContentLoadedEventEnd ?? Number.NaN,
   }));
   phases.dcl.push(t.dcl);
@@ -117,7 +85,8 @@ async function detachedRuns(fragment: string, rowsExpected: number | null, label
     await opener.close();
   }
   const med = (f: (t: ProbeTimes) => number): string => quantile(got.map(f), 0.5).toFixed(1);
-  console.log(`(diagnostic) ${label}, no automation client: DOMContentLoaded median ${med((t) => t.domContentLoaded)} ms, chart in the DOM median ${med((t) => t.inDom)} ms`);
+  const mark = (name: string) => (t: ProbeTimes): number => t.marks[name] ?? Number.NaN;
+  console.log(`(diagnostic) ${label}, no automation client: medians: HTML received ${med(mark('html-received'))} ms, scripts received ${med(mark('scripts-received'))} ms, DOMContentLoaded ${med((t) => t.domContentLoaded)} ms, chart in the DOM ${med((t) => t.inDom)} ms`);
   return got.map((t) => t.painted);
 }
 
@@ -202,7 +171,7 @@ try {
     const context: BrowserContext = await browser.browser.newContext({ viewport: { width: 1600, height: 1000 }, locale: 'en-US', timezoneId: 'America/Los_Angeles' });
     try {
       await context.addInitScript(NAME_SHIM);
-      await context.addInitScript(watchFirstChart, [rowsExpected, PAINTED] as [number | null, string]);
+      await context.addInitScript({ content: probeScript(rowsExpected, 'console') });
       const page = await context.newPage();
       return await firstChartMs(page, url);
     } finally {
@@ -227,7 +196,7 @@ try {
   {
     const context: BrowserContext = await browser.browser.newContext({ viewport: { width: 1600, height: 1000 }, locale: 'en-US', timezoneId: 'America/Los_Angeles' });
     await context.addInitScript(NAME_SHIM);
-    await context.addInitScript(watchFirstChart, [7, PAINTED] as [number | null, string]);
+    await context.addInitScript({ content: probeScript(7, 'console') });
     const warm: number[] = [];
     for (let i = 0; i < RUNS + 1; i++) {
       const page = await context.newPage();

@@ -36,7 +36,7 @@ async function isFile(file: string): Promise<boolean> {
   }
 }
 
-function send(res: ServerResponse, status: number, type: string, body: string | Buffer, head: boolean): void {
+export function send(res: ServerResponse, status: number, type: string, body: string | Buffer, head = false): void {
   res.writeHead(status, {
     'content-type': type,
     'content-length': Buffer.byteLength(body),
@@ -69,8 +69,15 @@ async function resolveFile(root: string, rawUrl: string): Promise<string | null>
   return null;
 }
 
+export interface ServeOptions {
+  /** Answers a request before the files do (the benchmark's probe routes); returns true when it has. */
+  readonly intercept?: (url: URL, res: ServerResponse) => boolean;
+  /** Rewrites an HTML file as it is served (the benchmark puts its probe script into index.html). */
+  readonly rewriteHtml?: (html: string) => string;
+}
+
 /** Serves `root` on 127.0.0.1 at a free port until close() is called. */
-export async function serveDirectory(root: string): Promise<StaticServer> {
+export async function serveDirectory(root: string, options: ServeOptions = {}): Promise<StaticServer> {
   const absRoot = path.resolve(root);
   const server = createServer((req: IncomingMessage, res: ServerResponse) => {
     const head = req.method === 'HEAD';
@@ -78,14 +85,17 @@ export async function serveDirectory(root: string): Promise<StaticServer> {
       send(res, 405, 'text/plain; charset=utf-8', 'method not allowed\n', head);
       return;
     }
+    if (options.intercept?.(new URL(req.url ?? '/', 'http://localhost'), res)) return;
     resolveFile(absRoot, req.url ?? '/')
       .then(async (file) => {
         if (file === null) {
           send(res, 404, 'text/plain; charset=utf-8', 'not found\n', head);
           return;
         }
-        const type = TYPES[path.extname(file).toLowerCase()] ?? 'application/octet-stream';
-        send(res, 200, type, await readFile(file), head);
+        const ext = path.extname(file).toLowerCase();
+        const type = TYPES[ext] ?? 'application/octet-stream';
+        const body = await readFile(file);
+        send(res, 200, type, ext === '.html' && options.rewriteHtml ? options.rewriteHtml(body.toString('utf8')) : body, head);
       })
       .catch((error: unknown) => {
         send(res, 500, 'text/plain; charset=utf-8', `server error: ${String(error)}\n`, head);
