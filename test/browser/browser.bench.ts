@@ -179,19 +179,22 @@ try {
     }
   };
 
+  /** Diagnostics only: RUNS loads (after one warm-up) in fresh Playwright contexts, printed, not judged. */
+  const playwrightRuns = async (rowsExpected: number | null, url: string, label: string): Promise<void> => {
+    const samples: number[] = [];
+    for (let i = 0; i < RUNS + 1; i++) {
+      const ms = await fresh(rowsExpected, url);
+      if (i >= 1) samples.push(ms);
+    }
+    console.log(`(diagnostic) ${label}: median ${quantile(samples, 0.5).toFixed(1)} ms, p95 ${quantile(samples, 0.95).toFixed(1)} ms over ${samples.length} runs`);
+    console.log(phaseLine(label));
+  };
+
   // 3. Open the shared link in a fresh profile, no automation client attached.
   const fragment = link.slice(link.indexOf('#'));
   rows.push({ what: 'open a shared link to the first drawn chart (cold cache)', target: 300, samples: await detachedRuns(fragment, 7, 'shared link, cold cache') });
   // Diagnostics only: the same opens driven through Playwright (DevTools protocol attached).
-  {
-    const samples: number[] = [];
-    for (let i = 0; i < RUNS + 1; i++) {
-      const ms = await fresh(7, link);
-      if (i >= 1) samples.push(ms);
-    }
-    console.log(`(diagnostic) shared link, cold cache, through Playwright: median ${quantile(samples, 0.5).toFixed(1)} ms, p95 ${quantile(samples, 0.95).toFixed(1)} ms over ${samples.length} runs`);
-    console.log(phaseLine('shared link, cold cache, through Playwright'));
-  }
+  await playwrightRuns(7, link, 'shared link, cold cache, through Playwright');
   // Diagnostics only (not a target): the same link in a profile that has opened the app before.
   {
     const context: BrowserContext = await browser.browser.newContext({ viewport: { width: 1600, height: 1000 }, locale: 'en-US', timezoneId: 'America/Los_Angeles' });
@@ -216,15 +219,7 @@ try {
 
   // 4. Cold load, no automation client attached; the Playwright-driven figure as a diagnostic.
   rows.push({ what: 'cold load to the first drawn chart', target: 1000, samples: await detachedRuns('', null, 'cold load') });
-  {
-    const samples: number[] = [];
-    for (let i = 0; i < RUNS + 1; i++) {
-      const ms = await fresh(null, server.url);
-      if (i >= 1) samples.push(ms);
-    }
-    console.log(`(diagnostic) cold load, through Playwright: median ${quantile(samples, 0.5).toFixed(1)} ms, p95 ${quantile(samples, 0.95).toFixed(1)} ms over ${samples.length} runs`);
-    console.log(phaseLine('cold load, through Playwright'));
-  }
+  await playwrightRuns(null, server.url, 'cold load, through Playwright');
 } finally {
   await browser.close();
   await server.close();

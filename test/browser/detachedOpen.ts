@@ -57,14 +57,15 @@ export function probeScript(rows: number | null, report: 'beacon' | 'console'): 
   const beacon = () => {
     const nav = performance.getEntriesByType('navigation')[0];
     const scripts = performance.getEntriesByType('resource').filter((r) => /[.]js$/.test(r.name) && !r.name.includes('__probe'));
-    const marks = performance.getEntriesByType('mark').filter((m) => !m.name.startsWith('probe-')).map((m) => m.name + ':' + m.startTime.toFixed(2));
-    marks.push('html-received:' + (nav ? nav.responseEnd.toFixed(2) : 'NaN'), 'scripts-received:' + Math.max(...scripts.map((r) => r.responseEnd)).toFixed(2));
+    const marks = Object.fromEntries(performance.getEntriesByType('mark').filter((m) => !m.name.startsWith('probe-')).map((m) => [m.name, m.startTime]));
+    marks['html-received'] = nav ? nav.responseEnd : null;
+    marks['scripts-received'] = Math.max(...scripts.map((r) => r.responseEnd));
     const q = new URLSearchParams({
       painted: performance.getEntriesByName('probe-painted')[0].startTime.toFixed(2),
       inDom: performance.getEntriesByName('probe-in-dom')[0].startTime.toFixed(2),
       dcl: String(nav ? nav.domContentLoadedEventEnd : NaN),
       viewport: innerWidth + 'x' + innerHeight,
-      marks: marks.join(','),
+      marks: JSON.stringify(marks),
     });
     new Image().src = '/__probe-report?' + q.toString();
   };
@@ -106,8 +107,8 @@ export async function detachedOpener(options: { settleMs?: number; timeoutMs?: n
     intercept: (url, res) => {
       if (url.pathname === '/__probe-report') {
         const q = url.searchParams;
-        const marks = (q.get('marks') ?? '').split(',').filter(Boolean).map((kv): [string, number] => [kv.slice(0, kv.lastIndexOf(':')), Number(kv.slice(kv.lastIndexOf(':') + 1))]);
-        waiting?.({ painted: Number(q.get('painted')), inDom: Number(q.get('inDom')), domContentLoaded: Number(q.get('dcl')), viewport: q.get('viewport') ?? '?', marks: Object.fromEntries(marks) });
+        const marks = JSON.parse(q.get('marks') ?? '{}') as Record<string, number | null>;
+        waiting?.({ painted: Number(q.get('painted')), inDom: Number(q.get('inDom')), domContentLoaded: Number(q.get('dcl')), viewport: q.get('viewport') ?? '?', marks: Object.fromEntries(Object.entries(marks).map(([k, v]) => [k, v ?? Number.NaN])) });
         send(res, 204, 'text/plain', '');
       } else if (url.pathname === '/__probe.js') {
         send(res, 200, 'text/javascript; charset=utf-8', probe);
