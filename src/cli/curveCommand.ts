@@ -21,6 +21,7 @@ import {
   type CurveDayCount,
   type Extrapolation,
 } from '../core/index.ts';
+import { builtDocumentLine, type ForwardOut, type PointOut, type QuoteOut } from './documentLine.ts';
 
 export interface CommandResult {
   readonly stdout: string;
@@ -178,10 +179,13 @@ const resolve = (point: string, settlement: string): string => {
   return tenor ? addTenor(settlement, tenor) : point;
 };
 
-/** Runs one document; returns its output object and whether it built. */
-function runDocument(index: number, doc: unknown, opts: Options): { out: object; errors: readonly CoreError[] } {
+/** The output line of a document that failed (without its newline). */
+const failedLine = (index: number, errors: readonly CoreError[]): string => JSON.stringify({ index, errors });
+
+/** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
+function runDocument(index: number, doc: unknown, opts: Options): { line: string; errors: readonly CoreError[] } {
   const build = buildCurve(doc, { skipInvalid: opts.skipInvalid, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
-  const failed = (errors: readonly CoreError[]) => ({ out: { index, errors }, errors });
+  const failed = (errors: readonly CoreError[]) => ({ line: failedLine(index, errors), errors });
   if (!build.curve || build.errors.length > 0) return failed(build.errors);
   const curve = build.curve;
   const settlement = curve.settlement;
@@ -191,7 +195,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
   // bootstrap itself in a batch).
   let finite = true;
   const dates = opts.at ? opts.at.map((p) => resolve(p, settlement)) : curve.pillars.map((p) => p.date);
-  const points: object[] = [];
+  const points: PointOut[] = [];
   for (let i = 0; i < dates.length; i++) {
     const date = dates[i]!;
     const z = zeroOn(curve, date, opts.compounding, dc, opts.at ? `--at[${i}]` : `quotes[${curve.pillars[i]!.quote}]`);
@@ -203,7 +207,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
     finite &&= Number.isFinite(v.t) && Number.isFinite(v.discount) && Number.isFinite(v.zero);
     points.push(v.extrapolated ? { date, t: v.t, discount: v.discount, zero: v.zero, extrapolated: true } : { date, t: v.t, discount: v.discount, zero: v.zero });
   }
-  const forwards: object[] = [];
+  const forwards: ForwardOut[] = [];
   for (let i = 0; i < opts.forward.length; i++) {
     const [s, e] = opts.forward[i]!;
     const f = forwardOn(curve, resolve(s, settlement), resolve(e, settlement), opts.compounding, dc, `--forward[${i}]`);
@@ -213,7 +217,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
     }
     const v = f.value;
     finite &&= Number.isFinite(v.tau) && Number.isFinite(v.rate);
-    forwards.push({ start: v.start, end: v.end, tau: v.tau, rate: v.rate, ...(v.extrapolated ? { extrapolated: true } : {}) });
+    forwards.push(v.extrapolated ? { start: v.start, end: v.end, tau: v.tau, rate: v.rate, extrapolated: true } : { start: v.start, end: v.end, tau: v.tau, rate: v.rate });
   }
   const bonds = opts.bonds.flatMap((b, i) => {
     const input: BondInput = { ...b, maturity: resolve(b.maturity, settlement) };
@@ -263,7 +267,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
       else if (typeof x === 'object') finite &&= Object.values(x as Record<string, number>).every(Number.isFinite);
     }
   }
-  const quotes = build.repricing.map((r) => {
+  const quotes = build.repricing.map((r): QuoteOut => {
     finite &&= Number.isFinite(r.t) && Number.isFinite(r.repricingError);
     return { index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError };
   });
@@ -272,7 +276,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
   }
   if (errors.length > 0) return failed(errors);
   return {
-    out: {
+    line: builtDocumentLine({
       index,
       settlement,
       interpolation: curve.interpolation,
@@ -285,7 +289,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { out: object;
       forwards,
       ...(opts.bonds.length > 0 ? { bonds } : {}),
       warnings: build.warnings,
-    },
+    }),
     errors: [],
   };
 }
@@ -314,11 +318,15 @@ export function runCurveCommand(args: readonly string[], read: (file: string) =>
   const documents = splitDocuments(text);
   for (let index = 0; index < documents.count; index++) {
     const entry = documents.entry(index);
-    const { out, errors } =
-      'error' in entry
-        ? { out: { index, errors: [{ path: '', quote: null, code: 'invalid-json', message: entry.error }] }, errors: [{ path: '', quote: null, code: 'invalid-json' as const, message: entry.error }] }
-        : runDocument(index, entry.doc, opts);
-    stdout += JSON.stringify(out) + '\n';
+    let line: string;
+    let errors: readonly CoreError[];
+    if ('error' in entry) {
+      errors = [{ path: '', quote: null, code: 'invalid-json', message: entry.error }];
+      line = failedLine(index, errors);
+    } else {
+      ({ line, errors } = runDocument(index, entry.doc, opts));
+    }
+    stdout += line + '\n';
     if (write && stdout.length >= OUTPUT_CHUNK_CHARS) {
       write(stdout);
       stdout = '';

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { OUTPUT_CHUNK_CHARS, runCurveCommand } from '../../src/cli/curveCommand.ts';
 import { buildCurve, discountOn, forwardOn, zeroOn } from '../../src/core/index.ts';
@@ -114,6 +115,54 @@ describe('streamed standard output', () => {
     const r = runCurveCommand(['--nope'], () => '', (text) => pieces.push(text));
     expect(r.status).toBe(2);
     expect(pieces).toEqual([]);
+  });
+});
+
+describe('output text', () => {
+  // The built documents' lines are written field by field (src/cli/documentLine.ts, tested on its
+  // own against JSON.stringify in documentLine.test.ts). Here, end to end: each line is the
+  // platform's canonical JSON text of its own value (shortest numbers, no spaces, escaped strings).
+  const tenor = fc.oneof(
+    fc.integer({ min: 1, max: 6 }).map((n) => `${n}Y`),
+    fc.integer({ min: 1, max: 66 }).map((n) => `${n}M`),
+    fc.integer({ min: 1, max: 60 }).map((n) => `${n}D`),
+  );
+  const options = fc.record({
+    at: fc.array(tenor, { maxLength: 4 }),
+    forward: fc.array(fc.tuple(fc.integer({ min: 1, max: 48 }), fc.integer({ min: 1, max: 24 })).map(([a, b]) => [`${a}M`, `${a + b}M`] as const), { maxLength: 3 }),
+    compounding: fc.constantFrom('continuous', 'simple', 'annual', 'semiannual', 'quarterly', 'monthly'),
+    dayCount: fc.constantFrom('ACT/360', 'ACT/365F', '30/360', '30E/360', '30/360-US', 'ACT/ACT-ISDA'),
+    extrapolate: fc.constantFrom('none', 'flat-forward'),
+    bond: fc.boolean(),
+  });
+  it('every line of a built document is exactly JSON.stringify of its parsed value (random shifts, dates, forwards, extrapolation, bonds, skipped quotes)', () => {
+    const seen = { built: 0, extrapolatedPoints: 0, extrapolatedForwards: 0, bonds: 0, warnings: 0 };
+    fc.assert(
+      fc.property(fc.double({ min: -0.02, max: 0.02, noNaN: true }), fc.boolean(), options, (shift, skip, o) => {
+        const market = { ...(skip ? bad : doc), quotes: (skip ? bad : doc).quotes.map((q: any) => ('rate' in q && q.rate < 1 ? { ...q, rate: q.rate + shift } : q)) };
+        const args = ['--compounding', o.compounding, '--day-count', o.dayCount, '--extrapolate', o.extrapolate];
+        if (o.at.length > 0) args.push('--at', o.at.join(','));
+        if (o.forward.length > 0) args.push('--forward', o.forward.map(([a, b]) => `${a}:${b}`).join(','));
+        if (o.bond) args.push('--bond', '2030-06-15,0.035,2,ACT/ACT-ICMA,price=99.5');
+        if (skip) args.push('--skip-invalid');
+        const r = run(JSON.stringify(market), ...args);
+        for (const line of r.stdout.trim().split('\n')) {
+          const value = JSON.parse(line) as Record<string, unknown>;
+          if (!('errors' in value)) {
+            seen.built++;
+            if ((value.points as { extrapolated?: true }[]).some((p) => p.extrapolated)) seen.extrapolatedPoints++;
+            if ((value.forwards as { extrapolated?: true }[]).some((f) => f.extrapolated)) seen.extrapolatedForwards++;
+            if ('bonds' in value) seen.bonds++;
+            if ((value.warnings as unknown[]).length > 0) seen.warnings++;
+          }
+          expect(line).toBe(JSON.stringify(value));
+        }
+      }),
+      { seed: 11, numRuns: 300 },
+    );
+    // Most runs build, and every optional part of a line is exercised, so the check is not only of error lines.
+    expect(seen.built).toBeGreaterThan(150);
+    for (const part of ['extrapolatedPoints', 'extrapolatedForwards', 'bonds', 'warnings'] as const) expect(seen[part], part).toBeGreaterThan(10);
   });
 });
 

@@ -1,0 +1,77 @@
+import type { CoreWarning, IsoDate } from '../core/index.ts';
+
+/** One `points` entry of a built document: t in years on the curve's day count, zero in the asked compounding and day count. */
+export interface PointOut {
+  readonly date: IsoDate;
+  readonly t: number;
+  readonly discount: number;
+  readonly zero: number;
+  readonly extrapolated?: true;
+}
+
+/** One `forwards` entry: tau in years on the asked day count, rate in the asked compounding and day count. */
+export interface ForwardOut {
+  readonly start: IsoDate;
+  readonly end: IsoDate;
+  readonly tau: number;
+  readonly rate: number;
+  readonly extrapolated?: true;
+}
+
+/** One `quotes` entry: t in years on the curve's day count; repricingError in `unit` (price per 100, or rate). */
+export interface QuoteOut {
+  readonly index: number;
+  readonly kind: string;
+  readonly maturity: IsoDate;
+  readonly t: number;
+  readonly unit: string;
+  readonly repricingError: number;
+}
+
+/** A built document's output record, fields in the contract's order. */
+export interface BuiltDocument {
+  readonly index: number;
+  readonly settlement: IsoDate;
+  readonly interpolation: string;
+  readonly curveDayCount: string;
+  readonly compounding: string;
+  readonly rateDayCount: string;
+  readonly extrapolation: string;
+  readonly quotes: readonly QuoteOut[];
+  readonly points: readonly PointOut[];
+  readonly forwards: readonly ForwardOut[];
+  readonly bonds?: readonly object[];
+  readonly warnings: readonly CoreWarning[];
+}
+
+/**
+ * The compact JSON text of a built document: exactly `JSON.stringify(doc)` (checked by the
+ * command's tests over random markets and options), written field by field.
+ *
+ * Why by hand: a document is about 9 KB, mostly 170 doubles and 120 short strings, and Node 20's
+ * JSON.stringify took about 40 us for it, a fifth of the command's time per document; this takes
+ * about 16 us. The numbers are formatted by the same shortest round-trip conversion that
+ * JSON.stringify uses (the caller has checked them finite). The strings written without escaping
+ * are ISO dates the engine validated or resolved (digits and hyphens) and identifiers from the
+ * engine's fixed lists; everything else (warnings, bond analytics) goes through JSON.stringify.
+ */
+export function builtDocumentLine(o: BuiltDocument): string {
+  let s = `{"index":${o.index},"settlement":"${o.settlement}","interpolation":"${o.interpolation}","curveDayCount":"${o.curveDayCount}","compounding":"${o.compounding}","rateDayCount":"${o.rateDayCount}","extrapolation":"${o.extrapolation}","quotes":[`;
+  for (let i = 0; i < o.quotes.length; i++) {
+    const q = o.quotes[i]!;
+    s += `${i === 0 ? '' : ','}{"index":${q.index},"kind":"${q.kind}","maturity":"${q.maturity}","t":${q.t},"unit":"${q.unit}","repricingError":${q.repricingError}}`;
+  }
+  s += '],"points":[';
+  for (let i = 0; i < o.points.length; i++) {
+    const p = o.points[i]!;
+    s += `${i === 0 ? '' : ','}{"date":"${p.date}","t":${p.t},"discount":${p.discount},"zero":${p.zero}${p.extrapolated ? ',"extrapolated":true' : ''}}`;
+  }
+  s += '],"forwards":[';
+  for (let i = 0; i < o.forwards.length; i++) {
+    const f = o.forwards[i]!;
+    s += `${i === 0 ? '' : ','}{"start":"${f.start}","end":"${f.end}","tau":${f.tau},"rate":${f.rate}${f.extrapolated ? ',"extrapolated":true' : ''}}`;
+  }
+  s += ']';
+  if (o.bonds !== undefined) s += `,"bonds":${JSON.stringify(o.bonds)}`;
+  return `${s},"warnings":${o.warnings.length === 0 ? '[]' : JSON.stringify(o.warnings)}}`;
+}
