@@ -66,7 +66,9 @@ export function civilFromSerial(serial: number): CivilDate {
 }
 
 const pad = (n: number, w: number): string => String(n).padStart(w, '0');
-export const isoFromCivil = ({ y, m, d }: CivilDate): IsoDate => `${pad(y, 4)}-${pad(m, 2)}-${pad(d, 2)}`;
+/** Two digits for a month or day (performance: no padStart on the common path). */
+const two = (n: number): string => (n < 10 ? `0${n}` : `${n}`);
+export const isoFromCivil = ({ y, m, d }: CivilDate): IsoDate => `${y >= 1000 && y <= 9999 ? y : pad(y, 4)}-${two(m)}-${two(d)}`;
 
 /** The civil date of a valid ISO date (callers validate first with parseIsoDate or isIsoDate). */
 export function civilFromIso(date: IsoDate): CivilDate {

@@ -3,9 +3,9 @@ import { FIT_MODELS, isFitModel } from '../fit/parametricForm.ts';
 import { INTERPOLATIONS, isInterpolation } from '../interpolation/types.ts';
 import { COMPOUNDINGS, isCompounding, type Compounding } from '../rates/compounding.ts';
 import { coreError, type CoreError } from '../result.ts';
-import { compareIso, isMonthEnd, parseIsoDate, type IsoDate } from '../time/date.ts';
+import { compareIso, isMonthEnd, isoFromCivil, parseIsoDate, type CivilDate, type IsoDate } from '../time/date.ts';
 import { CURVE_DAY_COUNTS, DAY_COUNTS, isCurveDayCount, isDayCount, type DayCount } from '../time/dayCount.ts';
-import { addTenor, formatTenor, parseTenor } from '../time/tenor.ts';
+import { addTenorCivil, formatTenor, parseTenor } from '../time/tenor.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
@@ -32,9 +32,9 @@ const KIND_FIELDS: Readonly<Record<Quote['kind'], readonly string[]>> = {
   swap: ['rate', 'frequency', 'dayCount', 'eom'],
 };
 
-/** Every field a quote of each kind may carry (performance: made once, not per quote). */
-const allowedFor = (k: Quote['kind']): readonly string[] => ['kind', 'tenor', 'maturity', 'enabled', ...KIND_FIELDS[k]];
-const KIND_ALLOWED: Readonly<Record<Quote['kind'], readonly string[]>> = {
+/** Every field a quote of each kind may carry (performance: made once, not per quote; a set, not a list to search). */
+const allowedFor = (k: Quote['kind']): ReadonlySet<string> => new Set(['kind', 'tenor', 'maturity', 'enabled', ...KIND_FIELDS[k]]);
+const KIND_ALLOWED: Readonly<Record<Quote['kind'], ReadonlySet<string>>> = {
   deposit: allowedFor('deposit'),
   bill: allowedFor('bill'),
   zero: allowedFor('zero'),
@@ -85,12 +85,12 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   if (errors.length > 0 || settlement === null || curve === null || !Array.isArray(doc.quotes)) return { workspace: null, errors };
 
   const quotes: Quote[] = [];
-  doc.quotes.forEach((raw, index) => {
-    const quoteErrors: CoreError[] = [];
-    const q = checkQuote(raw, index, settlement, quoteErrors);
-    if (q && quoteErrors.length === 0) quotes.push(q);
-    errors.push(...quoteErrors);
-  });
+  const settlementCivil = parseIsoDate(settlement)!; // checked above
+  for (let index = 0; index < doc.quotes.length; index++) {
+    const before = errors.length;
+    const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors);
+    if (q && errors.length === before) quotes.push(q);
+  }
   const reserved: Record<string, unknown> = {};
   for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
   return { workspace: { settlement, curve, quotes, quoteCount: doc.quotes.length, reserved }, errors };
@@ -198,7 +198,7 @@ const COUPON_TEXT = `from 0 to ${COUPON_MAX}`;
 /** Fields holding a decimal rate, whose values above 1 get the hint that rates are decimals. */
 const RATE_FIELDS = ['rate', 'discountYield', 'yield', 'coupon'];
 
-function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: CoreError[]): Quote | null {
+function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlementCivil: CivilDate, errors: CoreError[]): Quote | null {
   const base = `quotes[${index}]`;
   if (!isPlainObject(raw)) {
     errors.push(coreError('schema', base, `${base}: a quote must be an object such as {"kind": "deposit", "tenor": "3M", "rate": 0.031}, not ${typeName(raw)}`, index));
@@ -212,8 +212,8 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
   const k = kind as Quote['kind'];
   const allowed = KIND_ALLOWED[k];
   for (const key of Object.keys(raw)) {
-    if (!allowed.includes(key)) {
-      errors.push(coreError('schema', `${base}.${key}`, `${base}.${key}: unknown field for a ${k}; a ${k} takes ${listOf(allowed)}`, index));
+    if (!allowed.has(key)) {
+      errors.push(coreError('schema', `${base}.${key}`, `${base}.${key}: unknown field for a ${k}; a ${k} takes ${listOf([...allowed])}`, index));
     }
   }
   // Maturity: exactly one of tenor and maturity.
@@ -229,7 +229,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
       errors.push(coreError('schema', `${base}.tenor`, `${base}.tenor: must be a tenor nD, nW, nM or nY with n >= 1 (such as "3M"), not ${typeName(raw.tenor)}`, index));
     } else {
       tenor = formatTenor(parsed);
-      maturity = addTenor(settlement, parsed, 1, false);
+      maturity = isoFromCivil(addTenorCivil(settlementCivil, parsed, 1, false));
     }
   } else {
     maturity = checkDate(raw.maturity, `${base}.maturity`, errors, index);
@@ -243,21 +243,23 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
     if (typeof raw.enabled !== 'boolean') errors.push(coreError('schema', `${base}.enabled`, `${base}.enabled: must be true or false, not ${typeName(raw.enabled)}`, index));
     else enabled = raw.enabled;
   }
-  const common = { index, maturity: maturity ?? settlement, tenor, enabled };
+  // Performance: the quote objects below spell out their common fields (index, maturity, tenor,
+  // enabled) rather than spreading a shared object; a spread per quote cost a third of validation.
+  const m = maturity ?? settlement;
   const before = errors.length;
   let quote: Quote | null = null;
   switch (k) {
     case 'deposit': {
       const rate = required(readNumber(raw, base, index, errors, 'rate', RATE_MIN, RATE_MAX, RATE_TEXT), 'rate', RATE_TEXT, base, index, errors);
       const dayCount = noCouponPeriod(readDayCount(raw, base, index, errors, 'dayCount', 'ACT/360'), 'deposit', base, index, errors);
-      if (rate !== null && dayCount) quote = { kind: 'deposit', ...common, rate, dayCount };
+      if (rate !== null && dayCount) quote = { kind: 'deposit', index, maturity: m, tenor, enabled, rate, dayCount };
       break;
     }
     case 'bill': {
       oneOf(raw, k, base, index, errors, 'discountYield', 'price');
       const discountYield = readNumber(raw, base, index, errors, 'discountYield', RATE_MIN, RATE_MAX, RATE_TEXT) ?? null;
       const price = readNumber(raw, base, index, errors, 'price', 0, PRICE_MAX, PRICE_TEXT, true) ?? null;
-      quote = { kind: 'bill', ...common, discountYield, price };
+      quote = { kind: 'bill', index, maturity: m, tenor, enabled, discountYield, price };
       break;
     }
     case 'zero': {
@@ -273,7 +275,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
         else errors.push(coreError('unknown-identifier', `${base}.compounding`, `${base}.compounding: must be one of ${listOf(COMPOUNDINGS)}, not ${typeName(raw.compounding)}`, index));
       }
       const dayCount = noCouponPeriod(readDayCount(raw, base, index, errors, 'dayCount', 'ACT/365F'), 'zero', base, index, errors);
-      if (dayCount) quote = { kind: 'zero', ...common, price, rate, compounding, dayCount };
+      if (dayCount) quote = { kind: 'zero', index, maturity: m, tenor, enabled, price, rate, compounding, dayCount };
       break;
     }
     case 'bond': {
@@ -285,7 +287,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
       const dayCount = readDayCount(raw, base, index, errors, 'dayCount', 'ACT/ACT-ICMA');
       const endOfMonth = readEom(raw, base, index, errors, maturity !== null && isMonthEnd(parseIsoDate(maturity)!));
       if (coupon !== null && freq !== null && dayCount && endOfMonth !== null) {
-        quote = { kind: 'bond', ...common, coupon, frequency: freq, cleanPrice, yield: y, dayCount, eom: endOfMonth };
+        quote = { kind: 'bond', index, maturity: m, tenor, enabled, coupon, frequency: freq, cleanPrice, yield: y, dayCount, eom: endOfMonth };
       }
       break;
     }
@@ -295,7 +297,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, errors: Co
       const dayCount = readDayCount(raw, base, index, errors, 'dayCount', '30/360');
       const endOfMonth = readEom(raw, base, index, errors, false);
       if (rate !== null && freq !== null && dayCount && endOfMonth !== null) {
-        quote = { kind: 'swap', ...common, rate, frequency: freq, dayCount, eom: endOfMonth };
+        quote = { kind: 'swap', index, maturity: m, tenor, enabled, rate, frequency: freq, dayCount, eom: endOfMonth };
       }
       break;
     }
