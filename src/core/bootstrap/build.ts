@@ -3,13 +3,13 @@ import { compileBill } from '../instruments/bill.ts';
 import { compileBond } from '../instruments/bond.ts';
 import { compileDeposit } from '../instruments/deposit.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { compileSwap } from '../instruments/swap.ts';
+import { compileSwap, SwapLegs } from '../instruments/swap.ts';
 import { compileZero } from '../instruments/zero.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
-import type { Quote, Workspace } from '../workspace/types.ts';
+import type { Quote, SwapQuote, Workspace } from '../workspace/types.ts';
 import { validateWorkspace } from '../workspace/validate.ts';
 import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
 
@@ -52,9 +52,11 @@ export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCo
   return compileQuoteCivil(q, settlement, curveClock(dayCount, s), s);
 }
 
-/** compileQuote with the settlement date parsed and the curve clock made once per market (performance). */
-function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate): Instrument {
-  const m = civilFromIso(q.maturity);
+/**
+ * compileQuote with the settlement date parsed and the curve clock made once per market
+ * (performance); `m` is the quote's maturity parsed, `legs` the market's shared swap legs.
+ */
+function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate, m = civilFromIso(q.maturity), legs?: SwapLegs): Instrument {
   const t = time(m);
   switch (q.kind) {
     case 'deposit':
@@ -66,7 +68,7 @@ function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) =
     case 'bond':
       return compileBond(q, s, m, t, time);
     case 'swap':
-      return compileSwap(q, s, m, t, time);
+      return compileSwap(q, s, m, t, time, legs);
   }
 }
 
@@ -87,9 +89,19 @@ export interface CompiledMarket {
 export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quotes: readonly Quote[], skipDuplicates: boolean): CompiledMarket {
   const s = civilFromIso(settlement); // the workspace is validated
   const time = curveClock(dayCount, s);
+  const enabled = quotes.filter((q) => q.enabled);
+  const maturities = enabled.map((q) => civilFromIso(q.maturity));
+  const swaps: [SwapQuote, CivilDate][] = [];
+  for (let i = 0; i < enabled.length; i++) {
+    const q = enabled[i]!;
+    if (q.kind === 'swap') swaps.push([q, maturities[i]!]);
+  }
+  const legs = new SwapLegs(s, time, swaps);
   const compiled: Instrument[] = [];
-  for (const q of quotes) if (q.enabled) compiled.push(compileQuoteCivil(q, settlement, time, s));
-  compiled.sort((a, b) => a.t - b.t || a.index - b.index);
+  for (let i = 0; i < enabled.length; i++) compiled.push(compileQuoteCivil(enabled[i]!, settlement, time, s, maturities[i]!, legs));
+  // Documents usually list their quotes by maturity: sort only when they are not in order.
+  const byTime = (a: Instrument, b: Instrument) => a.t - b.t || a.index - b.index;
+  if (!compiled.every((ins, i) => i === 0 || byTime(compiled[i - 1]!, ins) < 0)) compiled.sort(byTime);
   const instruments: Instrument[] = [];
   const errors: CoreError[] = [];
   const duplicates: CoreError[] = [];

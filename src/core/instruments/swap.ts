@@ -1,5 +1,5 @@
 import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
-import { isoFromCivil, civilFromIso, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { isoFromCivil, civilFromIso, isMonthEnd, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { SwapQuote } from '../workspace/types.ts';
 import { quoteOnCurve, type Instrument } from './instrument.ts';
@@ -41,21 +41,93 @@ export function fixedLegCivil(start: CivilDate, end: CivilDate, frequency: numbe
   return { dates, taus };
 }
 
+/** A fixed leg as the bootstrap uses it: payment times on the curve's clock and accrual year fractions. */
+interface TimedLeg {
+  readonly dates: readonly CivilDate[];
+  readonly times: number[];
+  readonly taus: number[];
+}
+
+/** The fixed leg of a swap from settlement to maturity, timed on the curve's clock. */
+function timedLeg(settlement: CivilDate, maturity: CivilDate, q: SwapQuote, time: (d: CivilDate) => number): TimedLeg {
+  const { dates, taus } = fixedLegCivil(settlement, maturity, q.frequency, q.dayCount, q.eom);
+  // Plain arrays of doubles (see Instrument.times).
+  const times = new Array<number>(dates.length);
+  for (let j = 0; j < dates.length; j++) times[j] = time(dates[j]!);
+  return { dates, times, taus };
+}
+
+/**
+ * The fixed legs of one market's swaps, generated once per family (performance: a par-swap
+ * ladder to 30Y otherwise generates, dates and year-fractions its longest schedule again for
+ * every shorter swap).
+ *
+ * A family is the swaps with the same frequency, day count and `eom` flag; its longest swap's leg
+ * is generated as usual. A shorter swap of the family takes the longest leg's first periods when
+ * its maturity M is a date of that leg and carries the same day of month as the longest maturity
+ * E (and, with `eom`, is a month end exactly when E is one). Then M - k steps is
+ * E - (J + k) steps for every k (addMonths depends on its anchor only through the month, the day
+ * and the month-end flag), so the dates, the notional previous date and every year fraction but
+ * the last coincide. The last period's year fraction is computed afresh, as the termination date
+ * can change it (30E/360-ISDA). Any other swap, and a swap of one period, generates its own leg.
+ */
+export class SwapLegs {
+  private readonly longest = new Map<string, CivilDate>();
+  private readonly legs = new Map<string, TimedLeg>();
+
+  /** `swaps`: the market's swap quotes with their maturities already parsed. */
+  constructor(
+    private readonly settlement: CivilDate,
+    private readonly time: (d: CivilDate) => number,
+    swaps: readonly (readonly [SwapQuote, CivilDate])[],
+  ) {
+    for (const [q, maturity] of swaps) {
+      const key = familyKey(q);
+      const e = this.longest.get(key);
+      if (e === undefined || serialFromCivil(maturity) > serialFromCivil(e)) this.longest.set(key, maturity);
+    }
+  }
+
+  /** The timed fixed leg of `q` maturing on `maturity` (fresh arrays the caller may keep). */
+  leg(q: SwapQuote, maturity: CivilDate): { times: number[]; taus: number[] } {
+    const key = familyKey(q);
+    const e = this.longest.get(key);
+    if (e === undefined) return timedLeg(this.settlement, maturity, q, this.time);
+    let longest = this.legs.get(key);
+    if (longest === undefined) {
+      longest = timedLeg(this.settlement, e, q, this.time);
+      this.legs.set(key, longest);
+    }
+    const step = 12 / q.frequency;
+    const months = e.y * 12 + e.m - (maturity.y * 12 + maturity.m);
+    const i = longest.dates.length - 1 - months / step;
+    const shares =
+      maturity.d === e.d &&
+      (!q.eom || isMonthEnd(maturity) === isMonthEnd(e)) &&
+      Number.isInteger(i) &&
+      i >= 1 &&
+      sameCivil(longest.dates[i]!, maturity);
+    if (!shares) return timedLeg(this.settlement, maturity, q, this.time);
+    const times = longest.times.slice(0, i + 1);
+    const taus = longest.taus.slice(0, i + 1);
+    // The last period, a regular one (i >= 1), with the maturity as termination date.
+    const from = longest.dates[i - 1]!;
+    const refDays = q.dayCount === 'ACT/ACT-ICMA' ? serialFromCivil(maturity) - serialFromCivil(from) : 0;
+    taus[i] = yearFractionCivil(q.dayCount, from, maturity, q.eom, true, refDays, q.frequency);
+    return { times, taus };
+  }
+}
+
+const familyKey = (q: SwapQuote): string => `${q.frequency} ${q.dayCount} ${q.eom}`;
+
 /**
  * Single-curve par swap from settlement, the curve both discounting and projecting:
  *   S = (1 - DF(T_n)) / sum_i tau_i DF(T_i).
  * Exact for overnight-indexed swaps; an approximation for term-index swaps (README).
+ * `legs`: the market's shared fixed legs (see SwapLegs); without it the leg is generated here.
  */
-export function compileSwap(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
-  const leg = fixedLegCivil(settlement, maturity, q.frequency, q.dayCount, q.eom);
-  const n = leg.dates.length;
-  // Plain arrays of doubles (see Instrument.times).
-  const times = new Array<number>(n);
-  const taus = new Array<number>(n);
-  for (let j = 0; j < n; j++) {
-    times[j] = time(leg.dates[j]!);
-    taus[j] = leg.taus[j]!;
-  }
+export function compileSwap(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number, legs?: SwapLegs): Instrument {
+  const { times, taus } = legs ? legs.leg(q, maturity) : timedLeg(settlement, maturity, q, time);
   return new SwapInstrument(q, t, times, taus, q.rate);
 }
 
