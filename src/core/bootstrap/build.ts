@@ -179,12 +179,17 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     };
   }
   const outcome = bootstrapInstruments(settings, market.instruments);
+  // Performance: the result spelled out, no spreads; repricing (in pillar order) is sorted into
+  // document order only when the two differ.
+  const byIndex = (a: Repricing, b: Repricing) => a.index - b.index;
+  const repricing = outcome.repricing.every((r, i) => i === 0 || outcome.repricing[i - 1]!.index < r.index) ? outcome.repricing : [...outcome.repricing].sort(byIndex);
   return {
-    ...base,
+    leftOut: base.leftOut,
+    workspace: ws,
     instruments: outcome.curve ? market.instruments : [],
     curve: outcome.curve,
     errors: outcome.errors,
-    warnings: [...warnings, ...outcome.warnings],
-    repricing: [...outcome.repricing].sort((a, b) => a.index - b.index),
+    warnings: outcome.warnings.length === 0 ? warnings : [...warnings, ...outcome.warnings],
+    repricing,
   };
 }

@@ -1,5 +1,5 @@
-import type { IsoDate } from '../time/date.ts';
-import { curveTime, type CurveDayCount } from '../time/dayCount.ts';
+import { civilFromIso, type IsoDate } from '../time/date.ts';
+import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { INTERPOLATORS } from '../interpolation/registry.ts';
 import type { Interpolation, InterpolationId } from '../interpolation/types.ts';
 
@@ -68,6 +68,8 @@ export function curveFromNodes(
   const lastT = last ? last.t : 0;
   const lastLn = last ? interp.lnDiscount(lastT) : 0;
   const lastForward = last ? interp.forward(lastT) : 0;
+  // The curve's clock from the settlement date parsed once (the same values as curveTime).
+  const clock = curveClock(dayCount, civilFromIso(settlement));
   return {
     settlement,
     dayCount,
@@ -77,6 +79,6 @@ export function curveFromNodes(
     lastT,
     lnDiscountAt: (t) => (t <= lastT ? interp.lnDiscount(t) : lastLn - lastForward * (t - lastT)),
     forwardAt: (t) => (t < lastT ? interp.forward(t) : lastForward),
-    time: (date) => curveTime(dayCount, settlement, date),
+    time: (date) => clock(civilFromIso(date)),
   };
 }

@@ -64,7 +64,8 @@ export function zeroOn(curve: Curve, date: IsoDate, c: Compounding, dc: CurveDay
   const r = lnDiscountOn(curve, date, path);
   if (!r.ok) return r;
   const { t, ln, extrapolated } = r.value;
-  const tau = queryYearFraction(dc, curve.settlement, date);
+  // In the curve's own day count tau is t: the same year fraction from settlement (curveTime).
+  const tau = dc === curve.dayCount ? t : queryYearFraction(dc, curve.settlement, date);
   let zero: number;
   if (date === curve.settlement) {
     zero = rateLimitFromInstantaneous(curve.forwardAt(0) * clockRatio(curve, dc), c);

@@ -1,5 +1,5 @@
 import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
-import { isoFromCivil, civilFromIso, isMonthEnd, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { compareCivil, isoFromCivil, civilFromIso, isMonthEnd, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { SwapQuote } from '../workspace/types.ts';
 import { quoteOnCurve, type Instrument } from './instrument.ts';
@@ -58,9 +58,9 @@ function timedLeg(settlement: CivilDate, maturity: CivilDate, q: SwapQuote, time
 }
 
 /**
- * The fixed legs of one market's swaps, generated once per family (performance: a par-swap
- * ladder to 30Y otherwise generates, dates and year-fractions its longest schedule again for
- * every shorter swap).
+ * The fixed legs of one market's swaps, generated once per family (performance: in a par-swap
+ * ladder to 30Y each shorter swap would otherwise date and year-fraction again the first periods
+ * of the longest one).
  *
  * A family is the swaps with the same frequency, day count and `eom` flag; its longest swap's leg
  * is generated as usual. A shorter swap of the family takes the longest leg's first periods when
@@ -72,8 +72,8 @@ function timedLeg(settlement: CivilDate, maturity: CivilDate, q: SwapQuote, time
  * can change it (30E/360-ISDA). Any other swap, and a swap of one period, generates its own leg.
  */
 export class SwapLegs {
-  private readonly longest = new Map<string, CivilDate>();
-  private readonly legs = new Map<string, TimedLeg>();
+  /** The families met so far (a market has one or two: a short list, no map). */
+  private readonly families: Family[] = [];
 
   /** `swaps`: the market's swap quotes with their maturities already parsed. */
   constructor(
@@ -82,22 +82,24 @@ export class SwapLegs {
     swaps: readonly (readonly [SwapQuote, CivilDate])[],
   ) {
     for (const [q, maturity] of swaps) {
-      const key = familyKey(q);
-      const e = this.longest.get(key);
-      if (e === undefined || serialFromCivil(maturity) > serialFromCivil(e)) this.longest.set(key, maturity);
+      const f = this.family(q);
+      if (f === undefined) this.families.push({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom, longest: maturity, leg: null });
+      else if (compareCivil(maturity, f.longest) > 0) f.longest = maturity;
     }
+  }
+
+  private family(q: SwapQuote): Family | undefined {
+    for (const f of this.families) if (f.frequency === q.frequency && f.dayCount === q.dayCount && f.eom === q.eom) return f;
+    return undefined;
   }
 
   /** The timed fixed leg of `q` maturing on `maturity` (fresh arrays the caller may keep). */
   leg(q: SwapQuote, maturity: CivilDate): { times: number[]; taus: number[] } {
-    const key = familyKey(q);
-    const e = this.longest.get(key);
-    if (e === undefined) return timedLeg(this.settlement, maturity, q, this.time);
-    let longest = this.legs.get(key);
-    if (longest === undefined) {
-      longest = timedLeg(this.settlement, e, q, this.time);
-      this.legs.set(key, longest);
-    }
+    const f = this.family(q);
+    if (f === undefined) return timedLeg(this.settlement, maturity, q, this.time);
+    const e = f.longest;
+    f.leg ??= timedLeg(this.settlement, e, q, this.time);
+    const longest = f.leg;
     const step = 12 / q.frequency;
     const months = e.y * 12 + e.m - (maturity.y * 12 + maturity.m);
     const i = longest.dates.length - 1 - months / step;
@@ -118,7 +120,15 @@ export class SwapLegs {
   }
 }
 
-const familyKey = (q: SwapQuote): string => `${q.frequency} ${q.dayCount} ${q.eom}`;
+interface Family {
+  readonly frequency: number;
+  readonly dayCount: DayCount;
+  readonly eom: boolean;
+  /** The family's latest maturity. */
+  longest: CivilDate;
+  /** The leg to that maturity, generated when first needed. */
+  leg: TimedLeg | null;
+}
 
 /**
  * Single-curve par swap from settlement, the curve both discounting and projecting:

@@ -104,6 +104,9 @@ export function addMonthsCivil(anchor: CivilDate, months: number, eom = false): 
 
 export const addMonths = (date: IsoDate, months: number, eom = false): IsoDate => isoFromCivil(addMonthsCivil(civilFromIso(date), months, eom));
 
+/** Day order of two civil dates: negative, zero or positive as a is before, on or after b. */
+export const compareCivil = (a: CivilDate, b: CivilDate): number => a.y - b.y || a.m - b.m || a.d - b.d;
+
 /** True when two civil dates are the same day. */
 export const sameCivil = (a: CivilDate, b: CivilDate): boolean => a.y === b.y && a.m === b.m && a.d === b.d;
 

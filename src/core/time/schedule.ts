@@ -1,4 +1,4 @@
-import { addMonthsCivil, isoFromCivil, civilFromIso, type CivilDate, type IsoDate } from './date.ts';
+import { addMonthsCivil, compareCivil, isoFromCivil, civilFromIso, type CivilDate, type IsoDate } from './date.ts';
 
 /**
  * Coupon dates generated backward from an end date: end - k x (12/frequency) months for
@@ -18,8 +18,6 @@ export interface CivilBackwardSchedule {
   readonly previous: CivilDate;
 }
 
-/** Day order of two civil dates: negative, zero or positive as a is before, on or after b. */
-const compareCivil = (a: CivilDate, b: CivilDate): number => a.y - b.y || a.m - b.m || a.d - b.d;
 
 /**
  * `backwardSchedule` on civil dates (performance: no ISO text formatted or parsed per date).

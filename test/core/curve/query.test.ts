@@ -1,8 +1,10 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   addTenor,
   buildCurve,
   curveFromPillars,
+  curveTime,
   daysBetween,
   COMPOUNDINGS,
   CURVE_DAY_COUNTS,
@@ -13,9 +15,12 @@ import {
   impliedDiscountOn,
   instantaneousForwardOn,
   INTERPOLATIONS,
+  isoFromSerial,
   lnDiscountFromRate,
   parseTenor,
   parYieldOn,
+  queryYearFraction,
+  serialFromIso,
   zeroOn,
   type Curve,
 } from '../../../src/core/index.ts';
@@ -143,5 +148,24 @@ describe('par rates over short periods keep their precision', () => {
     const exact = Math.expm1((r * d) / 365) / a;
     const got = value(parYieldOn(flat, maturity, 2)).rate;
     expect(Math.abs(got - exact) / exact).toBeLessThan(1e-14);
+  });
+});
+
+describe('the curve clock', () => {
+  // Definition (engine conventions 2.3): t = yearFraction(curve.dayCount, settlement, date), the
+  // 30/360-US end-of-February rules applied. curve.time reads it from a clock made once per curve;
+  // the oracle is curveTime, the definition called directly.
+  it('curve.time(date) is curveTime(dayCount, settlement, date) to the last bit, and so is the query year fraction, for every curve day count', () => {
+    const day = fc.integer({ min: serialFromIso('1990-01-01'), max: serialFromIso('2120-12-31') }).map(isoFromSerial);
+    fc.assert(
+      fc.property(day, fc.integer({ min: 0, max: 40 * 366 }), fc.constantFrom(...CURVE_DAY_COUNTS), (s, days, dc) => {
+        const date = isoFromSerial(serialFromIso(s) + days);
+        const pillar = isoFromSerial(serialFromIso(s) + 30);
+        const curve = curveFromPillars(s, dc, 'log-linear-discount', 'flat-forward', [{ date: pillar, t: curveTime(dc, s, pillar), discount: 0.999, quote: 0 }]);
+        expect(curve.time(date)).toBe(curveTime(dc, s, date));
+        expect(queryYearFraction(dc, s, date)).toBe(curveTime(dc, s, date));
+      }),
+      { seed: 9, numRuns: 4000 },
+    );
   });
 });
