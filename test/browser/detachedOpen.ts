@@ -18,7 +18,7 @@
 // reports on the console instead.
 // Nothing else differs from a user opening the link: same build, same files, same Chromium.
 import { spawn } from 'node:child_process';
-import { mkdtemp, rm } from 'node:fs/promises';
+import { mkdtemp, readlink, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { CHROMIUM_ARGS, CHROMIUM_PATH, DIST_DIR } from './harness.ts';
@@ -151,9 +151,22 @@ export async function detachedOpener(options: { settleMs?: number; timeoutMs?: n
           child.kill('SIGKILL');
         }
         await exited;
+        await removeSingletonDir(profile);
         await rm(profile, { recursive: true, force: true, maxRetries: 10, retryDelay: 100 });
       }
     },
     close: () => server.close(),
   };
+}
+
+/**
+ * Chromium keeps its single-instance socket in a directory of its own under the temporary
+ * directory (org.chromium.Chromium.XXXXXX), linked from the profile as SingletonSocket, and removes
+ * it only on a clean exit. A browser ended by SIGKILL leaves it behind: removed here.
+ */
+async function removeSingletonDir(profile: string): Promise<void> {
+  const socket = await readlink(path.join(profile, 'SingletonSocket')).catch(() => null);
+  if (socket === null) return;
+  const dir = path.dirname(socket);
+  if (path.dirname(dir) === tmpdir() && path.basename(dir).startsWith('org.chromium.')) await rm(dir, { recursive: true, force: true });
 }
