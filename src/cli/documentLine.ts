@@ -1,4 +1,4 @@
-import type { CoreWarning, IsoDate } from '../core/index.ts';
+import type { Compounding, CoreWarning, CurveDayCount, Extrapolation, InterpolationId, IsoDate, Quote, QuoteUnit } from '../core/index.ts';
 
 /** One `points` entry of a built document: t in years on the curve's day count, zero in the asked compounding and day count. */
 export interface PointOut {
@@ -21,22 +21,25 @@ export interface ForwardOut {
 /** One `quotes` entry: t in years on the curve's day count; repricingError in `unit` (price per 100, or rate). */
 export interface QuoteOut {
   readonly index: number;
-  readonly kind: string;
+  readonly kind: Quote['kind'];
   readonly maturity: IsoDate;
   readonly t: number;
-  readonly unit: string;
+  readonly unit: QuoteUnit;
   readonly repricingError: number;
 }
 
-/** A built document's output record, fields in the contract's order. */
+/**
+ * A built document's output record, fields in the contract's order. Its text fields are typed as
+ * ISO dates and the engine's identifiers: the strings builtDocumentLine writes without escaping.
+ */
 export interface BuiltDocument {
   readonly index: number;
   readonly settlement: IsoDate;
-  readonly interpolation: string;
-  readonly curveDayCount: string;
-  readonly compounding: string;
-  readonly rateDayCount: string;
-  readonly extrapolation: string;
+  readonly interpolation: InterpolationId;
+  readonly curveDayCount: CurveDayCount;
+  readonly compounding: Compounding;
+  readonly rateDayCount: CurveDayCount;
+  readonly extrapolation: Extrapolation;
   readonly quotes: readonly QuoteOut[];
   readonly points: readonly PointOut[];
   readonly forwards: readonly ForwardOut[];
