@@ -41,3 +41,27 @@ describe('Print section note', { timeout: 30_000 }, () => {
     expect(screen.getByText(/2,000 \/ 2,000 characters; the printed page shows the first 600/)).toBeInTheDocument();
   });
 });
+
+describe('Print section title', { timeout: 30_000 }, () => {
+  it('keeps the typed title in the document view, one undo step, and in the encoded link', async () => {
+    const user = userEvent.setup({ delay: null });
+    render(<App />);
+    await user.click(screen.getByRole('tab', { name: 'Print' }));
+    const box = screen.getByRole('textbox', { name: 'Title' });
+    await user.clear(box);
+    await user.type(box, 'Committee, March');
+    await user.tab();
+    const view = useAppStore.getState().workspace.view as Record<string, unknown>;
+    expect(view.printTitle).toBe('Committee, March');
+    expect(screen.getAllByRole('heading', { name: 'Committee, March' }).length).toBeGreaterThan(0);
+    // The link and the file carry the whole document, view included: decode what the link writes.
+    const { encodeWorkspaceLink, decodeWorkspaceLink } = await import('../../src/share/linkCodec.ts');
+    const link = await encodeWorkspaceLink(useAppStore.getState().workspace as unknown as Record<string, unknown>);
+    const back = await decodeWorkspaceLink(link);
+    expect(back.ok && back.checked.view.printTitle).toBe('Committee, March');
+    // Clearing and typing is one stretch of typing: one Undo brings back the default title.
+    await user.click(screen.getByRole('button', { name: 'Undo' }));
+    expect((useAppStore.getState().workspace.view as Record<string, unknown> | undefined)?.printTitle).toBeUndefined();
+    expect((screen.getByRole('textbox', { name: 'Title' }) as HTMLInputElement).value).toBe('Yield-curve summary');
+  });
+});

@@ -173,7 +173,9 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
   const H = h.value;
   const M = m.value;
   if (compareIso(M, H) <= 0) {
-    errors.push(coreError('range', 'strategy.ridingMaturity', `strategy.ridingMaturity: the riding bond must mature after the horizon ${H}, not on ${M}; choose a longer maturity such as "5Y"`));
+    // A suggestion past the horizon: whole years from settlement to the horizon, plus two.
+    const longer = `${Math.ceil(yearFraction('ACT/365F', S, H)) + 2}Y`;
+    errors.push(coreError('range', 'strategy.ridingMaturity', `strategy.ridingMaturity: the riding bond must mature after the horizon ${H}, not on ${M}; choose a longer maturity such as "${longer}"`));
   }
   const dfH = discountOn(curve, H, 'strategy.horizon');
   if (!dfH.ok) errors.push(...dfH.errors);

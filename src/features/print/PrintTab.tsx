@@ -1,4 +1,4 @@
-import { useMemo, useState, type ReactNode } from 'react';
+import { useMemo, type ReactNode } from 'react';
 import { applyScenario } from '../../core/index.ts';
 import { validateScenarios, workspaceHash } from '../../core/index.ts';
 import { COMPOUNDING_LABEL } from '../../core/index.ts';
@@ -13,6 +13,23 @@ import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
 import { PrintSummary } from './PrintSummary.tsx';
 import '../scenarios/scenarios.css';
 
+/** The printed page's heading when the workspace names none. */
+export const DEFAULT_PRINT_TITLE = 'Yield-curve summary';
+export const PRINT_TITLE_CHARS = 80;
+
+/** The print title lives in the document's `view` (so it is saved, undone, shared in the link and in files). */
+function printTitleOf(view: unknown): string {
+  const t = typeof view === 'object' && view !== null && !Array.isArray(view) ? (view as Record<string, unknown>).printTitle : undefined;
+  return typeof t === 'string' ? t : DEFAULT_PRINT_TITLE;
+}
+
+function setPrintTitle(text: string): void {
+  const s = useAppStore.getState();
+  const view = typeof s.workspace.view === 'object' && s.workspace.view !== null && !Array.isArray(s.workspace.view) ? s.workspace.view : {};
+  // One undo step per stretch of typing (merge key 'print-title'), ended when the field loses focus.
+  s.commit({ ...s.workspace, view: { ...view, printTitle: text.slice(0, PRINT_TITLE_CHARS) } }, 'edit print title', 'print-title');
+}
+
 const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
 
 /**
@@ -21,7 +38,7 @@ const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
  */
 export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
   const doc = useAppStore((s) => s.workspace);
-  const [title, setTitle] = useState('Yield-curve summary');
+  const title = printTitleOf(doc.view);
   const curve = result.build.curve;
   const ws = result.build.workspace;
   const display = doc.display;
@@ -73,7 +90,7 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
       <div className="settings">
         <label>
           Title
-          <input value={title} onChange={(e) => setTitle(e.target.value)} maxLength={80} />
+          <input value={title} onChange={(e) => setPrintTitle(e.target.value)} onBlur={() => useAppStore.getState().endEdit()} maxLength={PRINT_TITLE_CHARS} />
         </label>
         <PrintSummaryButton />
         <span className="muted small">One page, A4 or US Letter, portrait. The first four scenarios are printed.</span>

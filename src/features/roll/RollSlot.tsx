@@ -1,3 +1,4 @@
+import { rollWords } from './rollWords.ts';
 import { useCallback, useMemo } from 'react';
 import { applyScenario } from '../../core/analysis/scenarios.ts';
 import { analyseRollVsTerm, rollSentence, validateStrategy, type StrategyInputs } from '../../core/analysis/rollVsTerm.ts';
@@ -52,7 +53,7 @@ export function RollResultLine({ result }: { result: WorkbenchBuild }) {
   const text = useMemo(() => {
     if (!curve) return null;
     const r = analyseRollVsTerm(curve, strategy, scenarios);
-    if (!r.ok) return `No comparison: ${r.errors[0]?.message ?? 'the inputs do not fit the curve'}`;
+    if (!r.ok) return `No comparison: ${r.errors[0] ? rollWords(r.errors[0].message) : 'the inputs do not fit the curve'}`;
     const a = r.value;
     return rollSentence({ view: a.views[a.chosen]!, strategies: a.strategies, breakEvens: a.breakEvens, horizon: a.horizon, rollTenor: a.rollTenor, rollDayCount: a.rollDayCount, legCount: a.legs.length });
   }, [curve, strategy, scenarios]);
