@@ -10,6 +10,7 @@ export * from './interpolation/types.ts';
 export { INTERPOLATORS } from './interpolation/registry.ts';
 export * from './curve/curve.ts';
 export * from './curve/query.ts';
+export * from './curve/forwardBetween.ts';
 export type { Instrument, QuoteUnit } from './instruments/instrument.ts';
 export { presentValue } from './instruments/instrument.ts';
 export * from './instruments/bill.ts';

@@ -10,7 +10,8 @@ import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssue
 export const WORKBENCH_FORMAT = 'tenorscope-workbench';
 export const WORKBENCH_VERSION = 1;
 
-export const FORWARD_TENORS = ['1M', '3M', '6M', '1Y'] as const;
+/** Forward tenors the charts and tables offer: one day to ten years. */
+export const FORWARD_TENORS = ['1D', '1W', '2W', '1M', '2M', '3M', '6M', '9M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y'] as const;
 export type ForwardTenor = (typeof FORWARD_TENORS)[number];
 export const MATURITY_AXES = ['linear', 'sqrt'] as const;
 export type MaturityAxis = (typeof MATURITY_AXES)[number];
@@ -158,7 +159,7 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string): { doc
     return row as unknown as QuoteRow;
   });
   const pick = <T>(v: unknown, ok: (x: unknown) => x is T, fallback: T): T => (ok(v) ? v : fallback);
-  const isTenor = (x: unknown): x is DisplaySettings['forwardTenor'] => typeof x === 'string' && (['1M', '3M', '6M', '1Y'] as readonly string[]).includes(x);
+  const isTenor = (x: unknown): x is DisplaySettings['forwardTenor'] => typeof x === 'string' && (FORWARD_TENORS as readonly string[]).includes(x);
   const isAxis = (x: unknown): x is MaturityAxis => x === 'linear' || x === 'sqrt';
   const isFreq = (x: unknown): x is number => typeof x === 'number' && (FREQUENCIES as readonly number[]).includes(x);
   const isBool = (x: unknown): x is boolean => typeof x === 'boolean';

@@ -5,6 +5,7 @@ import { COMPOUNDING_LABEL } from '../../core/index.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { setViewValues, viewText } from '../../state/viewValues.ts';
 import { BUILD_ID } from '../../share/buildId.ts';
 import { PrintChart, type PrintSeries } from './PrintChart.tsx';
 import { printKeyRows, printScenarios, scenarioConventionsText, tableConventionsFromDisplay } from './printData.ts';
@@ -17,18 +18,9 @@ import '../scenarios/scenarios.css';
 export const DEFAULT_PRINT_TITLE = 'Yield-curve summary';
 export const PRINT_TITLE_CHARS = 80;
 
-/** The print title lives in the document's `view` (so it is saved, undone, shared in the link and in files). */
-function printTitleOf(view: unknown): string {
-  const t = typeof view === 'object' && view !== null && !Array.isArray(view) ? (view as Record<string, unknown>).printTitle : undefined;
-  return typeof t === 'string' ? t : DEFAULT_PRINT_TITLE;
-}
-
-function setPrintTitle(text: string): void {
-  const s = useAppStore.getState();
-  const view = typeof s.workspace.view === 'object' && s.workspace.view !== null && !Array.isArray(s.workspace.view) ? s.workspace.view : {};
+const setPrintTitle = (text: string): void =>
   // One undo step per stretch of typing (merge key 'print-title'), ended when the field loses focus.
-  s.commit({ ...s.workspace, view: { ...view, printTitle: text.slice(0, PRINT_TITLE_CHARS) } }, 'edit print title', 'print-title');
-}
+  setViewValues({ printTitle: text.slice(0, PRINT_TITLE_CHARS) }, 'edit print title', 'print-title');
 
 const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
 
@@ -38,7 +30,8 @@ const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
  */
 export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
   const doc = useAppStore((s) => s.workspace);
-  const title = printTitleOf(doc.view);
+  // The print title lives in the document's view: saved, undone, shared in the link and in files.
+  const title = viewText(doc, 'printTitle', DEFAULT_PRINT_TITLE);
   const curve = result.build.curve;
   const ws = result.build.workspace;
   const display = doc.display;

@@ -1,10 +1,23 @@
 import { useMemo, useState } from 'react';
+import { setViewValues, viewText } from '../../state/viewValues.ts';
 import { addTenor, forwardOn, forwardParRateOn, parseTenor, type Curve, type DayCount, type Workspace } from '../../core/index.ts';
 import { couponTag, pct, rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
 
-const STARTS = ['1Y', '2Y', '5Y', '10Y'] as const;
-const TENORS = ['1Y', '2Y', '5Y', '10Y'] as const;
+const DEFAULT_STARTS = ['1Y', '2Y', '5Y', '10Y'];
+const DEFAULT_TENORS = ['1Y', '2Y', '5Y', '10Y'];
+/** At most this many starts and tenors (a grid of 12 by 12 forwards). */
+export const GRID_AXIS_MAX = 12;
+
+/** Reads a typed axis ("1Y, 2Y 5y") as tenors: each must be a tenor such as 6M or 2Y, at most GRID_AXIS_MAX. */
+export function readGridAxis(text: string, name: string): { tenors: string[]; error: string | null } {
+  const parts = text.split(/[\s,;]+/).filter((p) => p !== '').map((p) => p.toUpperCase());
+  const bad = parts.filter((p) => parseTenor(p) === null);
+  if (parts.length === 0) return { tenors: [], error: `${name}: type at least one tenor such as 1Y` };
+  if (bad.length > 0) return { tenors: [], error: `${name}: "${bad[0]!.slice(0, 12)}" is not a tenor; use forms such as 1M, 6M, 2Y, separated by commas or spaces` };
+  if (parts.length > GRID_AXIS_MAX) return { tenors: [], error: `${name}: at most ${GRID_AXIS_MAX} tenors, not ${parts.length}` };
+  return { tenors: parts, error: null };
+}
 
 /** The swap fixed-leg convention of the workspace: its first swap quote's, else annual 30/360 (common practice). */
 export function swapConvention(ws: Workspace | null): { frequency: number; dayCount: DayCount; eom: boolean } {
@@ -14,8 +27,17 @@ export function swapConvention(ws: Workspace | null): { frequency: number; dayCo
 
 /** Forward-starting par swap rates (start x tenor, as desks read 1y1y, 5y5y), or forward zero rates. */
 export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace: Workspace | null }) {
-  const display = useAppStore((s) => s.workspace.display);
+  const doc = useAppStore((s) => s.workspace);
+  const display = doc.display;
   const [mode, setMode] = useState<'par' | 'zero'>('par');
+  // The axes as typed, kept in the document's view (saved, undone, shared); the last valid reading is drawn.
+  const startsText = viewText(doc, 'gridStarts', DEFAULT_STARTS.join(', '));
+  const tenorsText = viewText(doc, 'gridTenors', DEFAULT_TENORS.join(', '));
+  const startsRead = readGridAxis(startsText, 'Starts');
+  const tenorsRead = readGridAxis(tenorsText, 'Tenors');
+  const STARTS = startsRead.error === null ? startsRead.tenors : DEFAULT_STARTS;
+  const TENORS = tenorsRead.error === null ? tenorsRead.tenors : DEFAULT_TENORS;
+  const axisKey = `${STARTS.join()}|${TENORS.join()}`;
   const conv = swapConvention(workspace);
   const grid = useMemo(
     () =>
@@ -27,7 +49,7 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
           return r.ok ? { rate: r.value.rate, extrapolated: r.value.extrapolated, note: null } : { rate: null, extrapolated: false, note: r.errors[0]?.message ?? '' };
         });
       }),
-    [curve, mode, conv.frequency, conv.dayCount, conv.eom, display],
+    [curve, mode, conv.frequency, conv.dayCount, conv.eom, display, axisKey],
   );
   const tag = mode === 'par' ? couponTag(conv.frequency, conv.dayCount) : rateTag(display.compounding, display.dayCount);
   return (
@@ -43,6 +65,22 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
           Forward zero rates
         </label>
       </fieldset>
+      <div className="grid-axes">
+        <label>
+          Starts (from settlement)
+          <input value={startsText} size={22} spellCheck={false} aria-invalid={startsRead.error ? true : undefined} onChange={(e) => setViewValues({ gridStarts: e.target.value.slice(0, 120) }, 'forward grid starts', 'grid-starts')} onBlur={() => useAppStore.getState().endEdit()} />
+        </label>
+        <label>
+          Tenors
+          <input value={tenorsText} size={22} spellCheck={false} aria-invalid={tenorsRead.error ? true : undefined} onChange={(e) => setViewValues({ gridTenors: e.target.value.slice(0, 120) }, 'forward grid tenors', 'grid-tenors')} onBlur={() => useAppStore.getState().endEdit()} />
+        </label>
+        {[startsRead.error, tenorsRead.error].filter((m) => m !== null).map((m) => (
+          <span key={m} className="field-error" role="alert">
+            {m} (the grid keeps the standard axes until then)
+          </span>
+        ))}
+      </div>
+      <div className="scroll-x" tabIndex={0} role="region" aria-label="Forward grid (scrolls sideways)">
       <table className="data grid4" aria-label="Forward grid">
         <caption>
           {mode === 'par' ? 'Forward par rates on the swap fixed-leg convention' : 'Forward zero rates'} <span className="tag">{tag}</span>; rows start, columns tenor
@@ -71,6 +109,7 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
           ))}
         </tbody>
       </table>
+      </div>
     </div>
   );
 }

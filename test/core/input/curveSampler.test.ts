@@ -1,7 +1,7 @@
 // The chart sampler against the core's own queries (zeroOn, forwardOn, parYieldOn,
 // instantaneousForwardOn) as the oracle: at every sample the same value to within a few ulps.
 import { addTenor, buildCurve, curveTime, queryYearFraction, forwardOn, instantaneousForwardOn, parseTenor, parYieldOn, zeroOn, type Compounding } from '../../../src/core/index.ts';
-import { forwardSamples, instantaneousSamples, parBondsGrid, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples } from '../../../src/core/input/index.ts';
+import { forwardSamples, instantaneousSamples, parBondsGrid, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples , readWorkbenchDocument, FORWARD_TENORS } from '../../../src/core/input/index.ts';
 import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
@@ -129,5 +129,27 @@ describe.each(['2026-12-29', '2026-12-30', '2027-01-31', '2027-08-31'])('par lad
       expect(p.ok, d).toBe(true);
       if (p.ok) expectClose(s.y[i]!, p.value.rate, 1e-15, ORACLE);
     });
+  });
+});
+
+// The forward tenors the workbench offers run from one day to ten years: the chart's forward
+// samples for the shortest and the longest agree with the query, and the document keeps them.
+describe.each(['1D', '10Y'] as const)('forward samples for the %s tenor on the demo curve', (tenorText) => {
+  const curve = buildCurve(toEngineDocument({ ...demo, curve: { ...demo.curve, extrapolation: 'flat-forward' } }).doc).curve!;
+  const tenor = parseTenor(tenorText)!;
+  const grid = sampleGrid(curve.settlement, '2056-12-15', 120, curve.dayCount, 'ACT/365F', tenor);
+  it('forwardSamples agrees with forwardOn over the tenor', () => {
+    const s = forwardSamples(curve, grid, 'continuous');
+    expect(s.dates.length).toBeGreaterThan(100);
+    s.dates.forEach((d, i) => {
+      const f = forwardOn(curve, d, addTenor(d, tenor), 'continuous', 'ACT/365F');
+      expect(f.ok, d).toBe(true);
+      if (f.ok) expectClose(s.y[i]!, f.value.rate, 1e-15, ORACLE);
+    });
+  });
+  it('is one of the forward tenors a saved document keeps', () => {
+    const back = readWorkbenchDocument({ ...demo, display: { ...demo.display, forwardTenor: tenorText } }, () => 'r');
+    expect(back.doc?.display.forwardTenor).toBe(tenorText);
+    expect(FORWARD_TENORS).toContain(tenorText);
   });
 });
