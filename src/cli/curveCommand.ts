@@ -14,10 +14,13 @@ import {
   isExtrapolation,
   isIsoDate,
   addTenor,
+  atInputRows,
+  engineFromAnyDocument,
   parseTenor,
   zeroOn,
   type Compounding,
   type CoreError,
+  type CoreWarning,
   type CurveDayCount,
   type Extrapolation,
 } from '../core/index.ts';
@@ -183,9 +186,17 @@ const resolve = (point: string, settlement: string): string => {
 const failedLine = (index: number, errors: readonly CoreError[]): string => JSON.stringify({ index, errors });
 
 /** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
-function runDocument(index: number, doc: unknown, opts: Options): { line: string; errors: readonly CoreError[] } {
-  const build = buildCurve(doc, { skipInvalid: opts.skipInvalid, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
+/** A wrong row of a workbench document, left out under --skip-invalid, as the engine words a skipped quote. */
+const skippedRow = (e: CoreError): CoreWarning => ({ path: e.path, quote: e.quote, code: 'skipped', message: `${e.message}; left out` });
+
+function runDocument(index: number, input: unknown, opts: Options): { line: string; errors: readonly CoreError[] } {
+  // A workbench document (quote cells as typed) is read as the workbench reads it; engine
+  // positions in messages are re-pointed at its rows.
+  const read = engineFromAnyDocument(input);
   const failed = (errors: readonly CoreError[]) => ({ line: failedLine(index, errors), errors });
+  if (read.errors.length > 0 && !opts.skipInvalid) return failed(read.errors);
+  const built = buildCurve(read.doc, { skipInvalid: opts.skipInvalid, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
+  const build = read.rowOfQuote === null ? built : { ...built, errors: atInputRows(built.errors, read.rowOfQuote), warnings: [...read.errors.map(skippedRow), ...atInputRows(built.warnings, read.rowOfQuote)] };
   if (!build.curve || build.errors.length > 0) return failed(build.errors);
   const curve = build.curve;
   const settlement = curve.settlement;
@@ -269,7 +280,7 @@ function runDocument(index: number, doc: unknown, opts: Options): { line: string
   }
   const quotes = build.repricing.map((r): QuoteOut => {
     finite &&= Number.isFinite(r.t) && Number.isFinite(r.repricingError);
-    return { index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError };
+    return { index: read.rowOfQuote === null ? r.index : (read.rowOfQuote[r.index] ?? r.index), kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError };
   });
   if (!finite) {
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });

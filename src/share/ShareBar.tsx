@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/index.ts';
+import { readWorkbenchDocument, WORKBENCH_FORMAT, workbenchFromEngine, type WorkbenchDocument } from '../core/index.ts';
 import { tableConventionsFromDisplay } from '../features/print/printData.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';
@@ -25,7 +25,13 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
         conventions={curve ? tableConventionsFromDisplay((doc as unknown as WorkbenchDocument).display) : null}
         onOpen={(checked) => {
           if (checked.document.format !== WORKBENCH_FORMAT) {
-            setMessage('This file is an engine workspace document (format "tenorscope-workspace"); open it with the curve command, or paste its quotes into the sheet.');
+            // An engine document (the curve command's input): its quotes become sheet rows, exactly, or it is refused with the reason.
+            const wb = workbenchFromEngine(checked.document, makeRowId);
+            if (!wb.ok) setMessage(`The file was not opened: ${wb.errors.slice(0, 3).map((e) => e.message).join(' ')}${wb.errors.length > 3 ? ` (and ${wb.errors.length - 3} more)` : ''} Your workspace has not been changed.`);
+            else {
+              useAppStore.getState().replaceWorkspace(wb.value, 'open workspace file');
+              setMessage('Opened an engine workspace file: its rates are shown as decimals (switch the unit to percent to see them in %). Undo brings back your workspace.');
+            }
             return;
           }
           const read = readWorkbenchDocument(checked.document, makeRowId);

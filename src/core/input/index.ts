@@ -10,3 +10,4 @@ export * from './pasteTable.ts';
 export * from './workbenchDocument.ts';
 export * from './quoteSchedule.ts';
 export * from './curveSampler.ts';
+export * from './documentBridge.ts';

@@ -1,0 +1,121 @@
+import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
+import { validateWorkspace, RESERVED_KEYS } from '../workspace/validate.ts';
+import type { Quote } from '../workspace/types.ts';
+import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from './quoteRow.ts';
+import { DEFAULT_DISPLAY, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
+
+/**
+ * The two document formats, each readable where the other is written: the workbench's
+ * `tenorscope-workbench` (quote cells as typed) and the engine's `tenorscope-workspace` (quotes as
+ * numbers, read by the `curve` command). Both conversions are exact or refused: an engine number
+ * becomes its shortest round-trip text in the sheet's decimal unit, so it parses back to the same
+ * double; a field the sheet cannot hold is an error naming the quote and field, never dropped.
+ */
+
+const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/** The engine field written into each sheet column (the sheet's rate column holds a rate, a discount yield or a yield). */
+const COLUMN_FIELDS: Readonly<Record<(typeof QUOTE_COLUMNS)[number], readonly string[]>> = {
+  kind: ['kind'],
+  maturity: ['tenor', 'maturity'],
+  rate: ['rate', 'discountYield', 'yield'],
+  price: ['price', 'cleanPrice'],
+  coupon: ['coupon'],
+  frequency: ['frequency'],
+  dayCount: ['dayCount'],
+};
+const cellText = (v: unknown): string => (typeof v === 'string' ? v : typeof v === 'number' && Number.isFinite(v) ? String(v) : '');
+
+/** The engine's reading of one quote, without its position: what must survive a conversion unchanged. */
+const meaning = (q: Quote): string => {
+  const { index: _index, ...rest } = q;
+  return JSON.stringify(rest);
+};
+
+/**
+ * An engine document as a workbench document: quotes as rows of text in the decimal unit, the
+ * curve settings, display defaults and the reserved keys as given. Refused, with one error per
+ * problem, when the engine refuses the document, or when a quote carries a field the sheet has no
+ * column for with a value other than the one the sheet's row implies (a zero's `compounding`, an
+ * `eom` flag): the converted document is validated again and every quote must read the same.
+ */
+export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<WorkbenchDocument> {
+  const first = validateWorkspace(raw);
+  if (!first.workspace || first.errors.length > 0) return fail(...first.errors);
+  const doc = raw as Record<string, unknown>;
+  const rawQuotes = doc.quotes as readonly Record<string, unknown>[];
+  const quotes: QuoteRow[] = rawQuotes.map((q) => {
+    const row: Record<string, unknown> = { id: makeId(), enabled: q.enabled !== false };
+    for (const c of QUOTE_COLUMNS) row[c] = cellText(COLUMN_FIELDS[c].map((f) => q[f]).find((v) => v !== undefined));
+    return row as unknown as QuoteRow;
+  });
+  const ws = first.workspace;
+  const out: Record<string, unknown> = {
+    format: WORKBENCH_FORMAT,
+    version: WORKBENCH_VERSION,
+    settlement: ws.settlement,
+    curve: { dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation },
+    quoteUnit: 'decimal',
+    quotes,
+    display: DEFAULT_DISPLAY,
+  };
+  for (const key of RESERVED_KEYS) if (doc[key] !== undefined) out[key] = doc[key];
+  const wb = out as unknown as WorkbenchDocument;
+  const again = validateWorkspace(toEngineDocument(wb).doc);
+  const errors: CoreError[] = [];
+  if (ws.curve.fit !== 'none') errors.push(coreError('schema', 'curve.fit', `curve.fit "${ws.curve.fit}" has no place in the workbench document; choose the fit in the workbench's fit section instead, or remove curve.fit from the file`));
+  const back = again.workspace?.quotes ?? [];
+  if (back.length !== ws.quotes.length) errors.push(coreError('schema', 'quotes', `the sheet read ${back.length} of the file's ${ws.quotes.length} quotes; open it with the curve command instead`));
+  else
+    ws.quotes.forEach((q, i) => {
+      if (meaning(q) === meaning(back[i]!)) return;
+      const extra = Object.keys(rawQuotes[i]!).filter((k) => !Object.values(COLUMN_FIELDS).some((fs) => fs.includes(k)) && k !== 'enabled');
+      const what = extra.length > 0 ? `its ${extra.join(', ')} (${extra.map((k) => JSON.stringify(rawQuotes[i]![k])).join(', ')}) has no column in the sheet` : 'the sheet would read it differently';
+      errors.push(coreError('schema', `quotes[${i}]`, `quotes[${i}] (a ${q.kind} maturing ${q.maturity}): ${what}; the file was not opened, so nothing would change silently. Open it with the curve command, or remove the field if its default is what you mean.`, i));
+    });
+  return errors.length > 0 ? fail(...errors) : ok(wb);
+}
+
+/**
+ * A document of either format as the engine's document (what the `curve` command builds). A
+ * workbench document is read as the workbench reads it; each row with a wrong cell is an error
+ * naming the row (counted from 1) and column, and is left out of the engine document.
+ */
+export interface AnyDocumentReading {
+  readonly doc: unknown;
+  /** Wrong rows of a workbench document (empty for an engine document). */
+  readonly errors: readonly CoreError[];
+  /**
+   * For a workbench document, rowOfQuote[i] is the input row of the engine document's quotes[i];
+   * null for an engine document (its positions are the input's own).
+   */
+  readonly rowOfQuote: readonly number[] | null;
+}
+
+export function engineFromAnyDocument(raw: unknown): AnyDocumentReading {
+  if (!isObj(raw) || raw.format !== WORKBENCH_FORMAT) return { doc: raw, errors: [], rowOfQuote: null };
+  let n = 0;
+  const read = readWorkbenchDocument(raw, () => `r${n++}`);
+  if (!read.doc) return { doc: raw, errors: [coreError('schema', '', `this workbench document cannot be read: ${read.problem ?? 'unknown problem'}`)], rowOfQuote: null };
+  const conv = toEngineDocument(read.doc);
+  const errors: CoreError[] = [];
+  conv.rows.forEach((row, i) => {
+    for (const c of QUOTE_COLUMNS) {
+      const issue = row.issues[c];
+      if (issue?.severity === 'error') errors.push(coreError('schema', `quotes[${i}].${c}`, `row ${i + 1}, ${QUOTE_COLUMN_LABEL[c]}: ${issue.message}`, i));
+    }
+  });
+  return { doc: conv.doc, errors, rowOfQuote: conv.rowOfQuote };
+}
+
+/**
+ * Engine errors or warnings about the converted document, re-pointed at the input's rows:
+ * `quotes[i]` in the path and message, and the quote index, become the row's position.
+ */
+export function atInputRows<T extends { readonly path: string; readonly quote: number | null; readonly message: string }>(items: readonly T[], rowOfQuote: readonly number[] | null): T[] {
+  if (rowOfQuote === null) return items as T[];
+  const row = (i: number): number => rowOfQuote[i] ?? i;
+  const repoint = (text: string): string => text.replace(/quotes\[(\d+)\]/g, (_, q: string) => `quotes[${row(Number(q))}]`);
+  return items.map((e) => ({ ...e, path: repoint(e.path), message: repoint(e.message), quote: e.quote === null ? null : row(e.quote) }));
+}
+

@@ -1,0 +1,104 @@
+// The workbench's document and the engine's document, each read where the other is written: the
+// conversions are exact (the same curve to the last bit) or refused with the quote and field named.
+// Oracle: the engine's own build of the original document (buildCurve), which other tests hold to
+// published sources; here only the identity of the two paths is claimed.
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { buildCurve, engineFromAnyDocument, toEngineDocument, workbenchFromEngine, type Curve } from '../../../src/core/index.ts';
+import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
+
+const fixture = (p: string) => JSON.parse(readFileSync(new URL(`../../fixtures/${p}`, import.meta.url), 'utf8')) as Record<string, unknown>;
+const README_DOC = {
+  format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' },
+  quotes: [
+    { kind: 'deposit', tenor: '3M', rate: 0.031, dayCount: 'ACT/360' },
+    { kind: 'bill', maturity: '2027-09-09', discountYield: 0.03 },
+    { kind: 'zero', tenor: '6M', price: 98.4 },
+    { kind: 'bond', maturity: '2031-06-15', coupon: 0.04, frequency: 2, cleanPrice: 101.25 },
+    { kind: 'swap', tenor: '5Y', rate: 0.0375, frequency: 1, dayCount: '30/360' },
+  ],
+};
+
+const sameCurve = (a: Curve, b: Curve) => {
+  expect(b.pillars.map((p) => p.date)).toEqual(a.pillars.map((p) => p.date));
+  for (const p of a.pillars) expect(b.lnDiscountAt(p.t)).toBe(a.lnDiscountAt(p.t));
+  for (let t = 0.01; t < a.pillars[a.pillars.length - 1]!.t; t += 0.37) expect(b.forwardAt(t)).toBe(a.forwardAt(t));
+};
+
+let n = 0;
+const id = () => `b${n++}`;
+
+describe('workbenchFromEngine(engine document)', () => {
+  it.each([
+    ['the README example', README_DOC],
+    ['the 40-quote market fixture', fixture('market40/market40.json')],
+  ])('opens %s in the sheet and builds the same curve to the last bit', (_name, doc) => {
+    const wb = workbenchFromEngine(doc, id);
+    if (!wb.ok) throw new Error(JSON.stringify(wb.errors));
+    expect(wb.value.quoteUnit).toBe('decimal');
+    const direct = buildCurve(doc);
+    const viaSheet = buildCurve(toEngineDocument(wb.value).doc);
+    expect(viaSheet.errors).toEqual(direct.errors);
+    sameCurve(direct.curve!, viaSheet.curve!);
+  });
+
+  it('refuses a zero quoted in a compounding the sheet has no column for, naming the quote and field', () => {
+    const doc = { ...README_DOC, quotes: [...README_DOC.quotes, { kind: 'zero', tenor: '2Y', rate: 0.033, compounding: 'continuous' }] };
+    const wb = workbenchFromEngine(doc, id);
+    expect(wb.ok).toBe(false);
+    if (wb.ok) return;
+    expect(wb.errors).toHaveLength(1);
+    expect(wb.errors[0]!.path).toBe('quotes[5]');
+    expect(wb.errors[0]!.message).toMatch(/quotes\[5\] \(a zero maturing 2029-03-10\): its compounding \("continuous"\) has no column in the sheet; the file was not opened/);
+  });
+
+  it('refuses the shared-workspace fixture, whose zeros quote semiannual rates, and names each such zero', () => {
+    const wb = workbenchFromEngine(fixture('share/workspace40.json'), id);
+    expect(wb.ok).toBe(false);
+    if (wb.ok) return;
+    expect(wb.errors.length).toBeGreaterThan(0);
+    for (const e of wb.errors) expect(e.message).toMatch(/\(a zero maturing \d{4}-\d\d-\d\d\): its compounding \("semiannual"\) has no column in the sheet/);
+  });
+
+  it('keeps a field whose value is what the sheet implies (eom false on a swap, annual compounding on a zero)', () => {
+    const doc = { ...README_DOC, quotes: [...README_DOC.quotes, { kind: 'swap', tenor: '7Y', rate: 0.038, eom: false }, { kind: 'zero', tenor: '2Y', rate: 0.033, compounding: 'annual' }] };
+    expect(workbenchFromEngine(doc, id).ok).toBe(true);
+  });
+
+  it('passes on the engine\'s own refusal', () => {
+    const wb = workbenchFromEngine({ ...README_DOC, curve: { dayCount: 'ACT/999' } }, id);
+    expect(wb.ok).toBe(false);
+    if (!wb.ok) expect(wb.errors[0]!.code).toBe('unknown-identifier');
+  });
+});
+
+describe('engineFromAnyDocument(document)', () => {
+  it('hands an engine document through unchanged', () => {
+    expect(engineFromAnyDocument(README_DOC)).toEqual({ doc: README_DOC, errors: [], rowOfQuote: null });
+  });
+
+  it('reads the workbench demo as the workbench does: the same curve', () => {
+    const demo = demoWorkspace(id);
+    const { doc, errors } = engineFromAnyDocument(JSON.parse(JSON.stringify(demo)));
+    expect(errors).toEqual([]);
+    sameCurve(buildCurve(toEngineDocument(demo).doc).curve!, buildCurve(doc).curve!);
+  });
+
+  it('names each wrong cell by row (from 1) and column', () => {
+    const demo = demoWorkspace(id);
+    const quotes = demo.quotes.map((q, i) => (i === 2 ? { ...q, rate: 'abc' } : q));
+    const { errors } = engineFromAnyDocument({ ...demo, quotes });
+    expect(errors).toHaveLength(1);
+    expect(errors[0]!.path).toBe('quotes[2].rate');
+    expect(errors[0]!.message).toMatch(/^row 3, Rate \/ yield: /);
+  });
+
+  it('round-trips the sheet: workbench -> engine -> workbench -> engine builds the same curve', () => {
+    const demo = demoWorkspace(id);
+    const once = engineFromAnyDocument(demo).doc;
+    const wb = workbenchFromEngine(once, id);
+    if (!wb.ok) throw new Error(JSON.stringify(wb.errors));
+    sameCurve(buildCurve(once).curve!, buildCurve(toEngineDocument(wb.value).doc).curve!);
+  });
+});
