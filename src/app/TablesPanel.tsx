@@ -1,4 +1,5 @@
 import { useDeferredValue, useRef, type KeyboardEvent, type ReactNode } from 'react';
+import { CurveTableExport } from '../features/tables/CurveTableExport.tsx';
 import { ForwardCalculator } from '../features/tables/ForwardCalculator.tsx';
 import { ForwardGridTable } from '../features/tables/ForwardGridTable.tsx';
 import { ForwardStripTable } from '../features/tables/ForwardStripTable.tsx';
@@ -14,7 +15,16 @@ const needCurve = (f: (r: WorkbenchBuild) => ReactNode) => ({ result }: { result
   result.build.curve ? f(result) : <p className="empty">No curve: {result.fatal}</p>;
 
 const BASE_TABS: readonly TabDef[] = [
-  { id: 'key-maturities', label: 'Key maturities', render: needCurve((r) => <KeyMaturitiesTable curve={r.build.curve!} />) },
+  {
+    id: 'key-maturities',
+    label: 'Key maturities',
+    render: needCurve((r) => (
+      <>
+        <KeyMaturitiesTable curve={r.build.curve!} />
+        <CurveTableExport curve={r.build.curve!} />
+      </>
+    )),
+  },
   { id: 'forward-strip', label: 'Forward strip', render: needCurve((r) => <ForwardStripTable curve={r.build.curve!} />) },
   { id: 'forward-grid', label: 'Forward grid', render: needCurve((r) => <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} />) },
   { id: 'forward-calculator', label: 'Forward calculator', render: needCurve((r) => <ForwardCalculator curve={r.build.curve!} />) },

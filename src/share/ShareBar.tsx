@@ -6,6 +6,7 @@ import { makeRowId } from '../state/ids.ts';
 import { useAppStore } from '../state/store.ts';
 import { CopyLinkButton, LinkNotice } from './CopyLinkButton.tsx';
 import { WorkspaceFiles } from './WorkspaceFiles.tsx';
+import { safeFileName } from '../components/download.ts';
 
 /** Copy link, save/open the workspace file and export the curve CSV, wired to the workbench store. */
 export function ShareBar({ result }: { result: WorkbenchBuild }) {
@@ -21,6 +22,7 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
       <CopyLinkButton document={linked} />
       <WorkspaceFiles
         document={doc}
+        fileName={`tenorscope-workspace-${safeFileName(String(doc.settlement ?? ''))}`}
         curve={curve}
         conventions={curve ? tableConventionsFromDisplay((doc as unknown as WorkbenchDocument).display) : null}
         onOpen={(checked) => {

@@ -1,6 +1,7 @@
 import { useRef, useState, type ChangeEvent } from 'react';
 import { curveTableCsv, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
 import type { Curve } from '../core/index.ts';
+import { download } from '../components/download.ts';
 
 export interface WorkspaceFilesProps {
   /** The workspace document as saved (snapshots included). */
@@ -14,17 +15,6 @@ export interface WorkspaceFilesProps {
   readonly onOpen: (checked: CheckedDocument) => void;
   /** Base of the downloaded file names. */
   readonly fileName?: string;
-}
-
-function download(name: string, type: string, text: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = name;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 0);
 }
 
 /** Save and open the workspace as a JSON file; export the curve table as CSV. */

@@ -354,3 +354,4 @@ export * from './rollViews.ts';
 export * from './rollSolve.ts';
 export * from './rollBreakEven.ts';
 export * from './rollSummary.ts';
+export * from './rollCsv.ts';

@@ -52,7 +52,34 @@ export function curveTableHeaders(curve: Curve, conv: CurveTableConventions): st
     `zero (${COMPOUNDING_LABEL[conv.zeroCompounding]}, ${conv.zeroDayCount})`,
     `par (${COMPOUNDING_LABEL[PAR_LABEL[conv.parFrequency]!]}, ACT/ACT-ICMA)`,
     `forward ${conv.forwardTenor} (${COMPOUNDING_LABEL[conv.forwardCompounding]}, ${conv.forwardDayCount})`,
+    'extrapolated (past the last pillar)',
   ];
+}
+
+/** Grids the curve table can be written on. */
+export const CURVE_TABLE_GRIDS = ['pillars', 'monthly', 'quarterly', 'yearly', 'dates'] as const;
+export type CurveTableGrid = (typeof CURVE_TABLE_GRIDS)[number];
+/** At most this many points in one table (a monthly grid of 100 years). */
+export const CURVE_TABLE_MAX_POINTS = 1200;
+
+/**
+ * The points of a curve table: the pillar dates; settlement plus every whole month, quarter or
+ * year up to the first such date on or after the last pillar (so the grid covers the curve; that
+ * last point may be extrapolated); or the user's own tenors and dates (`dates`, kept in the order
+ * given). Dates are unadjusted, month ends clipped (addTenor).
+ */
+export function curveTablePoints(curve: Curve, grid: CurveTableGrid, own: readonly string[] = []): string[] {
+  if (grid === 'pillars') return curve.pillars.map((p) => p.date);
+  if (grid === 'dates') return own.slice(0, CURVE_TABLE_MAX_POINTS);
+  const last = curve.pillars[curve.pillars.length - 1]?.date ?? curve.settlement;
+  const step = grid === 'monthly' ? { n: 1, unit: 'M' as const } : grid === 'quarterly' ? { n: 3, unit: 'M' as const } : { n: 1, unit: 'Y' as const };
+  const out: string[] = [];
+  for (let k = 1; k <= CURVE_TABLE_MAX_POINTS; k++) {
+    const d = addTenor(curve.settlement, step, k);
+    out.push(d);
+    if (d >= last) break;
+  }
+  return out;
 }
 
 /**
@@ -95,13 +122,14 @@ export function curveTable(curve: Curve, conv: CurveTableConventions, points?: r
 /**
  * The curve table as CSV. First row: the conventions (settlement, curve day count, interpolation);
  * second row: column headers carrying each rate's compounding and day count; then one row per point,
- * numbers at full double precision, empty cells where the curve cannot answer.
+ * numbers at full double precision, empty cells where the curve cannot answer, and `yes` in the
+ * last column for a point past the last pillar (its values come from the extrapolation).
  */
 export function curveTableCsv(curve: Curve, conv: CurveTableConventions, points?: readonly string[]): string {
   const rows: CsvCell[][] = [
     [`settlement ${curve.settlement}`, `curve day count ${curve.dayCount}`, `interpolation ${curve.interpolation}`, `extrapolation ${curve.extrapolation}`, 'rates are decimals per year'],
     curveTableHeaders(curve, conv),
   ];
-  for (const r of curveTable(curve, conv, points)) rows.push([r.date, r.t, r.discount, r.zero, r.par, r.forward]);
+  for (const r of curveTable(curve, conv, points)) rows.push([r.date, r.t, r.discount, r.zero, r.par, r.forward, r.extrapolated ? 'yes' : '']);
   return toCsv(rows);
 }

@@ -4,11 +4,14 @@ import {
   analyseRollVsTerm,
   BASE_VIEWS,
   formatRate,
+  MONEY_UNIT,
   rateTag,
+  rollTablesCsv,
   rollSentence,
   type StrategyInputs,
   type StrategyViewId,
 } from '../../core/analysis/rollVsTerm.ts';
+import { download, safeFileName } from '../../components/download.ts';
 import { RollGrowthChart } from './RollGrowthChart.tsx';
 import { rollWords } from './rollWords.ts';
 import { RollInputs } from './RollInputs.tsx';
@@ -114,6 +117,11 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
               ))}
             </ul>
           ) : null}
+          <p className="roll-export">
+            <button type="button" onClick={() => download(`tenorscope-roll-${safeFileName(analysis.settlement)}-to-${safeFileName(analysis.horizon)}.csv`, 'text/csv', rollTablesCsv(analysis, MONEY_UNIT))}>
+              Export these tables (CSV)
+            </button>
+          </p>
           {/* Two columns when the panel is wide: the growth and the results; how riding splits, the break-evens and the legs. */}
           <div className="roll-body">
             <div className="roll-main">

@@ -1,7 +1,7 @@
 // CSV writing and reading, formula-injection escaping and the curve table export.
 import { readFileSync } from 'node:fs';
-import { buildCurve } from '../../../src/core/index.ts';
-import { csvCell, curveTableCsv, defaultTableConventions, parseCsv, toCsv } from '../../../src/core/export/exports.ts';
+import { addTenor, buildCurve } from '../../../src/core/index.ts';
+import { csvCell, curveTableCsv, curveTablePoints, defaultTableConventions, parseCsv, toCsv, type CurveTableGrid } from '../../../src/core/export/exports.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 describe('csvCell(cell): formula injection (OWASP "CSV Injection", cited from memory)', () => {
@@ -40,7 +40,7 @@ describe('curveTableCsv(curve, conventions)', () => {
   const { rows } = parseCsv(csv);
 
   it('carries the compounding and day count of every rate in the header', () => {
-    expect(rows[1]).toEqual(['date', 't (years, ACT/365F)', 'discount factor', 'zero (cont, ACT/365F)', 'par (s.a., ACT/ACT-ICMA)', 'forward 3M (simple, ACT/360)']);
+    expect(rows[1]).toEqual(['date', 't (years, ACT/365F)', 'discount factor', 'zero (cont, ACT/365F)', 'par (s.a., ACT/ACT-ICMA)', 'forward 3M (simple, ACT/360)', 'extrapolated (past the last pillar)']);
     expect(rows[0]![0]).toBe('settlement 2026-11-30');
   });
   it('writes full-precision numbers that read back to the curve values', () => {
@@ -53,4 +53,28 @@ describe('curveTableCsv(curve, conventions)', () => {
     expect(rows[4]![0]).toBe('2099-01-01');
     expect(rows[4]![3]).not.toBe('');
   });
+  it('flags the points past the last pillar, and only those', () => {
+    expect(rows.slice(2).map((r) => r[6])).toEqual(['', '', 'yes']);
+  });
+});
+
+describe('curveTablePoints(curve, grid)', () => {
+  const doc = JSON.parse(readFileSync(new URL('../../fixtures/share/workspace40.json', import.meta.url), 'utf8')) as Record<string, unknown>;
+  const curve = buildCurve(doc).curve!;
+  const last = curve.pillars[curve.pillars.length - 1]!.date;
+  it('pillars: the pillar dates', () => {
+    expect(curvePointsOf('pillars')).toEqual(curve.pillars.map((p) => p.date));
+  });
+  it.each([['monthly', 1], ['quarterly', 3], ['yearly', 12]] as const)('%s: settlement plus whole steps counted from settlement, up to the first on or after the last pillar', (grid, months) => {
+    const pts = curvePointsOf(grid);
+    pts.forEach((d, k) => expect(d).toBe(addTenor(curve.settlement, { n: months, unit: 'M' }, k + 1)));
+    expect(pts[pts.length - 1]! >= last).toBe(true);
+    expect(pts[pts.length - 2]! < last).toBe(true);
+  });
+  it('dates: the user\'s own points in their order', () => {
+    expect(curvePointsOf('dates', ['10Y', '2030-01-31', '1M'])).toEqual(['10Y', '2030-01-31', '1M']);
+  });
+  function curvePointsOf(grid: CurveTableGrid, own?: string[]) {
+    return curveTablePoints(curve, grid, own);
+  }
 });
