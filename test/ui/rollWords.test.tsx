@@ -43,3 +43,22 @@ describe('RollPanel messages', () => {
     expect(screen.getByRole('region', { name: /Roll versus term/ })).not.toHaveTextContent(/strategy\./);
   });
 });
+
+describe('RollPanel currency', () => {
+  it('shows the typed ISO 4217 code with every amount instead of the generic sign, and refuses a malformed one', async () => {
+    const user = userEvent.setup();
+    render(<Harness initial={DEFAULT_STRATEGY} />);
+    const panel = screen.getByRole('region', { name: /Roll versus term/ });
+    expect(panel).toHaveTextContent('¤');
+    const currency = screen.getByRole('textbox', { name: /Currency/ });
+    await user.type(currency, 'eur{Enter}');
+    expect(currency).toHaveValue('EUR');
+    expect(panel).not.toHaveTextContent('¤');
+    expect(screen.getByRole('status', { name: '' })).toHaveTextContent(/ends ahead at EUR [\d,]+\.\d\d on /);
+    expect(screen.getByRole('table', { name: /Strategies by views/ })).toHaveTextContent('value in EUR');
+    expect(screen.getByRole('textbox', { name: /Amount/ }).closest('label')).toHaveTextContent('(EUR)');
+    await user.clear(currency);
+    await user.type(currency, 'EURO{Enter}');
+    expect(screen.getByRole('alert')).toHaveTextContent(/three letters such as USD/);
+  });
+});

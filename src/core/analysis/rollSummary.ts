@@ -31,8 +31,11 @@ export function formatBp(bp: number, digits = 1): string {
   return `${zero ? '' : bp > 0 ? '+' : '-'}${t} bp`;
 }
 
-/** Money with its unit: "¤ 1,234,567.89". */
-export const formatAmount = (m: Money): string => `${MONEY_UNIT} ${formatMoney(m)}`;
+/** The unit shown with money: the strategy's ISO 4217 currency code, or the generic sign MONEY_UNIT when it names none. */
+export const moneyUnitOf = (currency: string): string => (currency === '' ? MONEY_UNIT : currency);
+
+/** Money with its unit: "USD 1,234,567.89", or "¤ 1,234,567.89" without a currency. */
+export const formatAmount = (m: Money, unit: string = MONEY_UNIT): string => `${unit} ${formatMoney(m)}`;
 
 export interface SummaryInput {
   readonly view: ViewOutcome;
@@ -42,6 +45,8 @@ export interface SummaryInput {
   readonly rollTenor: string;
   readonly rollDayCount: DayCount;
   readonly legCount: number;
+  /** The unit shown with money (moneyUnitOf the strategy's currency); the generic sign by default. */
+  readonly moneyUnit?: string;
 }
 
 /**
@@ -51,6 +56,7 @@ export interface SummaryInput {
  */
 export function rollSentence(input: SummaryInput): string {
   const { view, strategies, breakEvens } = input;
+  const amount = (m: Money): string => formatAmount(m, input.moneyUnit ?? MONEY_UNIT);
   const label = (id: StrategyId): string => strategies.find((s) => s.id === id)?.phrase ?? id;
   const outcome = (id: StrategyId) => view.strategies.find((s) => s.id === id)!;
   const roll = outcome('roll');
@@ -65,20 +71,20 @@ export function rollSentence(input: SummaryInput): string {
       : `Rolling matches ${label(id)} if ${legsText} earn ${formatRate(r)} (${rTag}).`;
   };
   if (spread <= 1e-12) {
-    return `Under ${view.phrase} every strategy ends at ${formatAmount(roll.terminal)} on ${input.horizon}: this is the baseline, what today's forwards imply. ${rStar('zero')}`;
+    return `Under ${view.phrase} every strategy ends at ${amount(roll.terminal)} on ${input.horizon}: this is the baseline, what today's forwards imply. ${rStar('zero')}`;
   }
   if (view.best === 'roll') {
     let rival: TermStrategyId = 'zero';
     for (const id of ['bond', 'riding'] as const) if (outcome(id).growth > outcome(rival).growth) rival = id;
     const r = outcome(rival);
     return (
-      `Under ${view.phrase}, ${label('roll')} ends ahead at ${formatAmount(roll.terminal)} on ${input.horizon}, ` +
-      `${formatAmount(r.vsRoll.negated())} (${formatBp(-r.vsRollBp)} a year, ${RETURN_TAG}) more than ${label(rival)}. ${rStar(rival)}`
+      `Under ${view.phrase}, ${label('roll')} ends ahead at ${amount(roll.terminal)} on ${input.horizon}, ` +
+      `${amount(r.vsRoll.negated())} (${formatBp(-r.vsRollBp)} a year, ${RETURN_TAG}) more than ${label(rival)}. ${rStar(rival)}`
     );
   }
   const best = outcome(view.best);
   return (
-    `Under ${view.phrase}, ${label(view.best)} ends ahead at ${formatAmount(best.terminal)} on ${input.horizon}, ` +
-    `${formatAmount(best.vsRoll)} (${formatBp(best.vsRollBp)} a year, ${RETURN_TAG}) more than ${label('roll')}. ${rStar(view.best as TermStrategyId)}`
+    `Under ${view.phrase}, ${label(view.best)} ends ahead at ${amount(best.terminal)} on ${input.horizon}, ` +
+    `${amount(best.vsRoll)} (${formatBp(best.vsRollBp)} a year, ${RETURN_TAG}) more than ${label('roll')}. ${rStar(view.best as TermStrategyId)}`
   );
 }

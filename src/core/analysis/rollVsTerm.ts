@@ -24,7 +24,7 @@ import {
   type ViewSpec,
 } from './rollViews.ts';
 import { curveSeenAtHorizon } from './horizonCurve.ts';
-import { yieldTag } from './rollSummary.ts';
+import { moneyUnitOf, yieldTag } from './rollSummary.ts';
 import { rollBreakEvens, type RollBreakEvens } from './rollBreakEven.ts';
 
 /**
@@ -114,6 +114,8 @@ export interface RollAnalysis {
   /** Years from settlement to the horizon, ACT/365F. */
   readonly years: number;
   readonly amount: Money;
+  /** The unit shown with money: the strategy's ISO 4217 currency code, or the generic sign (moneyUnitOf). */
+  readonly moneyUnit: string;
   readonly rollTenor: string;
   readonly rollDayCount: StrategyInputs['rollDayCount'];
   /** The curve's day count (its clock: horizon-curve shifts are continuous zero rates on it). */
@@ -245,6 +247,7 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
     horizon: H,
     years,
     amount,
+    moneyUnit: moneyUnitOf(strategy.currency),
     rollTenor: strategy.rollTenor,
     rollDayCount: strategy.rollDayCount,
     curveDayCount: curve.dayCount,

@@ -75,6 +75,8 @@ export interface StrategyInputs {
   readonly path: RatePath;
   /** The parallel shift of the forward path for the `shift` view, basis points (100 bp = 0.01). */
   readonly shiftBp: number;
+  /** The amount's currency: an ISO 4217 alphabetic code such as "USD", or "" for none (a generic money sign is shown). */
+  readonly currency: string;
 }
 
 /** Defaults, used for every field the document leaves out. */
@@ -89,7 +91,11 @@ export const DEFAULT_STRATEGY: StrategyInputs = {
   view: 'unchanged',
   path: { fill: 'forwards', constant: 0.03, rampFrom: 0.03, rampTo: 0.04, legs: [] },
   shiftBp: 100,
+  currency: '',
 };
+
+/** ISO 4217 alphabetic codes are three capital Latin letters (the standard's form; the list of codes itself is not checked). */
+export const isCurrencyCode = (v: unknown): v is string => typeof v === 'string' && /^[A-Z]{3}$/.test(v);
 
 /** Bounds: path rates -0.10..1.0 (decimals); shift -1000..1000 bp; at most 400 typed legs. */
 export const PATH_RATE_MIN = -0.1;
@@ -97,7 +103,7 @@ export const PATH_RATE_MAX = 1.0;
 export const SHIFT_BP_MAX = 1000;
 export const MAX_TYPED_LEGS = 400;
 
-const STRATEGY_KEYS = ['amount', 'horizon', 'rollTenor', 'rollDayCount', 'bondFrequency', 'ridingMaturity', 'ridingFrequency', 'view', 'path', 'shiftBp'];
+const STRATEGY_KEYS = ['amount', 'horizon', 'rollTenor', 'rollDayCount', 'bondFrequency', 'ridingMaturity', 'ridingFrequency', 'view', 'path', 'shiftBp', 'currency'];
 const PATH_KEYS = ['fill', 'constant', 'rampFrom', 'rampTo', 'legs'];
 
 const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
@@ -165,8 +171,9 @@ export function validateStrategy(raw: unknown): StrategyValidation {
   const shiftBp = pick('shiftBp', d.shiftBp, (v) =>
     typeof v === 'number' && Number.isFinite(v) && Math.abs(v) <= SHIFT_BP_MAX ? null : `must be a number of basis points from -${SHIFT_BP_MAX} to ${SHIFT_BP_MAX}, not ${show(v)}`,
   );
+  const currency = pick('currency', d.currency, (v) => (v === '' || isCurrencyCode(v) ? null : `must be an ISO 4217 code of three capital letters such as "USD" or "EUR", or "" for none, not ${show(v)}`));
   const path = checkPath(raw.path, errors);
-  return { strategy: { amount, horizon, rollTenor, rollDayCount, bondFrequency, ridingMaturity, ridingFrequency, view, path, shiftBp }, errors };
+  return { strategy: { amount, horizon, rollTenor, rollDayCount, bondFrequency, ridingMaturity, ridingFrequency, view, path, shiftBp, currency }, errors };
 }
 
 const rateWhy = (v: unknown): string | null => {
@@ -221,6 +228,12 @@ function checkPath(raw: unknown, errors: CoreError[]): RatePath {
 }
 
 export type TextParse<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly message: string };
+
+/** A typed currency: empty for none, else three letters read in capitals ("usd" is USD). */
+export function parseCurrencyText(text: string): TextParse<string> {
+  const t = text.trim().toUpperCase();
+  return t === '' || isCurrencyCode(t) ? { ok: true, value: t } : { ok: false, message: 'an ISO 4217 code is three letters such as USD, EUR or GBP; leave it empty for none' };
+}
 
 /**
  * A rate typed in percent ("4.25" or "4.25 %") as a decimal (0.0425), exact in decimal before

@@ -2,7 +2,6 @@ import { scaleLinear } from 'd3-scale';
 import { curveLinear, curveStepAfter, line } from 'd3-shape';
 import { useId } from 'react';
 import type { GrowthSeries, StrategyDescription, StrategyId } from '../../core/analysis/rollVsTerm.ts';
-import { MONEY_UNIT } from '../../core/analysis/rollVsTerm.ts';
 
 /** Colours and dashes per strategy: told apart by dash as well as colour, so they survive a grey print. */
 export const ROLL_STYLE: Readonly<Record<StrategyId, { colour: string; dash: string; width: number }>> = {
@@ -18,6 +17,8 @@ const M = { top: 10, right: 14, bottom: 34, left: 78 };
 const moneyTick = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
 
 export interface RollGrowthChartProps {
+  /** The unit shown with money (the currency code or the generic sign). */
+  readonly unit: string;
   readonly series: readonly GrowthSeries[];
   readonly strategies: readonly StrategyDescription[];
   readonly viewLabel: string;
@@ -29,7 +30,7 @@ export interface RollGrowthChartProps {
  * end), the term strategies as lines at their constant annualised return (only their end points
  * are values; the line shows the pace). Drawn with d3-scale and d3-shape, rendered by React.
  */
-export function RollGrowthChart({ series, strategies, viewLabel, horizon }: RollGrowthChartProps) {
+export function RollGrowthChart({ unit, series, strategies, viewLabel, horizon }: RollGrowthChartProps) {
   const id = useId();
   const all = series.flatMap((s) => s.points);
   const xMax = Math.max(...all.map((p) => p.t), 1e-6);
@@ -44,7 +45,7 @@ export function RollGrowthChart({ series, strategies, viewLabel, horizon }: Roll
     <figure className="roll-chart">
       <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby={`${id}-t ${id}-d`} preserveAspectRatio="xMidYMid meet">
         <title id={`${id}-t`}>{`Growth of the amount to ${horizon} under ${viewLabel}`}</title>
-        <desc id={`${id}-d`}>{`Value in ${MONEY_UNIT} against years from settlement (ACT/365F). At the horizon: ${finals}.`}</desc>
+        <desc id={`${id}-d`}>{`Value in ${unit} against years from settlement (ACT/365F). At the horizon: ${finals}.`}</desc>
         <g className="roll-grid">
           {y.ticks(5).map((v) => (
             <g key={v}>
@@ -67,7 +68,7 @@ export function RollGrowthChart({ series, strategies, viewLabel, horizon }: Roll
           Years from settlement (ACT/365F)
         </text>
         <text className="roll-axis-label" transform={`translate(12 ${(M.top + H - M.bottom) / 2}) rotate(-90)`} textAnchor="middle">
-          {`Value (${MONEY_UNIT})`}
+          {`Value (${unit})`}
         </text>
         {series.map((s) => {
           const st = ROLL_STYLE[s.id];

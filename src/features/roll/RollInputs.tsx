@@ -1,6 +1,7 @@
 import { CURVE_DAY_COUNTS } from '../../core/index.ts';
 import {
-  MONEY_UNIT,
+  moneyUnitOf,
+  parseCurrencyText,
   parseAmountText,
   parseBpText,
   parseHorizonText,
@@ -37,7 +38,8 @@ export function RollInputs({ strategy, onChange, views, errors, shownView }: Rol
     <div className="roll-inputs">
       <fieldset>
         <legend>Money and horizon</legend>
-        <RollField label="Amount" unit={MONEY_UNIT} text={strategy.amount} parse={parseAmountText} onCommit={(amount) => set({ amount })} width="9em" error={errors['strategy.amount'] ?? null} />
+        <RollField label="Amount" unit={moneyUnitOf(strategy.currency)} text={strategy.amount} parse={parseAmountText} onCommit={(amount) => set({ amount })} width="9em" error={errors['strategy.amount'] ?? null} />
+        <RollField label="Currency" unit="ISO 4217 code, optional" text={strategy.currency} parse={parseCurrencyText} onCommit={(currency) => set({ currency })} width="4em" error={errors['strategy.currency'] ?? null} />
         <RollField label="Horizon" unit="tenor or date" text={strategy.horizon} parse={parseHorizonText} onCommit={(horizon) => set({ horizon })} width="7em" error={errors['strategy.horizon'] ?? null} />
       </fieldset>
       <fieldset>

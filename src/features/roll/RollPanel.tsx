@@ -4,7 +4,6 @@ import {
   analyseRollVsTerm,
   BASE_VIEWS,
   formatRate,
-  MONEY_UNIT,
   rateTag,
   rollTablesCsv,
   rollSentence,
@@ -104,6 +103,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
               rollTenor: analysis.rollTenor,
               rollDayCount: analysis.rollDayCount,
               legCount: analysis.legs.length,
+              moneyUnit: analysis.moneyUnit,
             })}
           </p>
           <p className="muted small roll-facts">
@@ -118,14 +118,14 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
             </ul>
           ) : null}
           <p className="roll-export">
-            <button type="button" onClick={() => download(`tenorscope-roll-${safeFileName(analysis.settlement)}-to-${safeFileName(analysis.horizon)}.csv`, 'text/csv', rollTablesCsv(analysis, MONEY_UNIT))}>
+            <button type="button" onClick={() => download(`tenorscope-roll-${safeFileName(analysis.settlement)}-to-${safeFileName(analysis.horizon)}.csv`, 'text/csv', rollTablesCsv(analysis, analysis.moneyUnit))}>
               Export these tables (CSV)
             </button>
           </p>
           {/* Two columns when the panel is wide: the growth and the results; how riding splits, the break-evens and the legs. */}
           <div className="roll-body">
             <div className="roll-main">
-              <RollGrowthChart series={analysis.growth} strategies={analysis.strategies} viewLabel={analysis.views[analysis.chosen]!.label} horizon={analysis.horizon} />
+              <RollGrowthChart unit={analysis.moneyUnit} series={analysis.growth} strategies={analysis.strategies} viewLabel={analysis.views[analysis.chosen]!.label} horizon={analysis.horizon} />
               <RollResultsTable analysis={analysis} />
             </div>
             <div className="roll-side">

@@ -55,7 +55,7 @@ export function RollResultLine({ result }: { result: WorkbenchBuild }) {
     const r = analyseRollVsTerm(curve, strategy, scenarios);
     if (!r.ok) return `No comparison: ${r.errors[0] ? rollWords(r.errors[0].message) : 'the inputs do not fit the curve'}`;
     const a = r.value;
-    return rollSentence({ view: a.views[a.chosen]!, strategies: a.strategies, breakEvens: a.breakEvens, horizon: a.horizon, rollTenor: a.rollTenor, rollDayCount: a.rollDayCount, legCount: a.legs.length });
+    return rollSentence({ view: a.views[a.chosen]!, strategies: a.strategies, breakEvens: a.breakEvens, horizon: a.horizon, rollTenor: a.rollTenor, rollDayCount: a.rollDayCount, legCount: a.legs.length, moneyUnit: a.moneyUnit });
   }, [curve, strategy, scenarios]);
   return text === null ? null : <span className="roll-result-line">{text}</span>;
 }

@@ -3,7 +3,6 @@ import {
   formatMoney,
   formatMoneySigned,
   formatRate,
-  MONEY_UNIT,
   parsePercentText,
   percentText,
   rateTag,
@@ -50,7 +49,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
             <th scope="col" className="num">
               Your path (%, type to set)
             </th>
-            <th scope="col" className="num">Value after leg ({MONEY_UNIT})</th>
+            <th scope="col" className="num">Value after leg ({analysis.moneyUnit})</th>
           </tr>
         </thead>
         <tbody>
@@ -90,7 +89,7 @@ export function RollResultsTable({ analysis }: { analysis: RollAnalysis }) {
         <caption>
           Strategies by views, at {analysis.horizon}{' '}
           <span className="muted small">
-            value in {MONEY_UNIT}; return in % <span className="tag">{RETURN_TAG}</span>; against rolling in {MONEY_UNIT} and bp a year
+            value in {analysis.moneyUnit}; return in % <span className="tag">{RETURN_TAG}</span>; against rolling in {analysis.moneyUnit} and bp a year
           </span>
         </caption>
         <thead>
@@ -148,7 +147,7 @@ export function RidingSplitTable({ analysis }: { analysis: RollAnalysis }) {
       <caption>
         Riding the {analysis.ridingBond.maturity} bond under {v.label}{' '}
         <span className="muted small">
-          in {MONEY_UNIT}; yield today {formatRate(analysis.ridingYield)} <span className="tag">{yieldTag(analysis.ridingBond.frequency)}</span>; horizon price {r.horizonPrice.toFixed(4)} per 100 face (dirty)
+          in {analysis.moneyUnit}; yield today {formatRate(analysis.ridingYield)} <span className="tag">{yieldTag(analysis.ridingBond.frequency)}</span>; horizon price {r.horizonPrice.toFixed(4)} per 100 face (dirty)
         </span>
       </caption>
       <tbody>

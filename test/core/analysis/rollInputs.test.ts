@@ -98,3 +98,14 @@ describe('analyseRollVsTerm input errors', () => {
     expect(r.value.warnings.map((w) => w.path)).toContain('strategy.path.legs');
   });
 });
+
+describe('validateStrategy currency', () => {
+  it('takes an ISO 4217 code of three capitals or "" for none, and names what is valid otherwise', () => {
+    expect(validateStrategy({ currency: 'GBP' }).strategy.currency).toBe('GBP');
+    expect(validateStrategy({}).strategy.currency).toBe('');
+    const bad = validateStrategy({ currency: 'gbp' });
+    expect(bad.strategy.currency).toBe('');
+    expect(bad.errors[0]).toMatchObject({ path: 'strategy.currency' });
+    expect(bad.errors[0]!.message).toMatch(/ISO 4217 code of three capital letters/);
+  });
+});
