@@ -53,18 +53,15 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
       <div className="scroll-x" tabIndex={0} role="region" aria-label="Forward calculator (scrolls sideways)">
         <table className="data" aria-label="Forward calculator">
           <caption>
-            Forwards between any two dates <span className="tag">{tag}</span>; year fractions {display.dayCount}; discount factors per unit paid on the date
+            Forwards between two dates <span className="tag">{tag}</span>
           </caption>
           <thead>
             <tr>
-              <th scope="col">#</th>
               <th scope="col">Start</th>
               <th scope="col">End</th>
-              <th scope="col">Start date</th>
-              <th scope="col">End date</th>
               <th scope="col">Year fraction ({display.dayCount})</th>
-              <th scope="col">DF(start)</th>
-              <th scope="col">DF(end)</th>
+              <th scope="col">DF start</th>
+              <th scope="col">DF end</th>
               <th scope="col">
                 Forward <span className="tag">{tag}</span>
               </th>
@@ -76,17 +73,16 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
           <tbody>
             {rows.map((r, i) => (
               <tr key={i}>
-                <td className="n">{i + 1}</td>
                 <td>
-                  <input aria-label={`Start of forward ${i + 1}`} aria-describedby={`${id}-help`} value={starts[i]} size={10} spellCheck={false} onChange={(e) => edit(i, 'start', e.target.value)} onBlur={endEdit} />
+                  <input aria-label={`Start of forward ${i + 1}`} aria-describedby={`${id}-help`} value={starts[i]} size={8} spellCheck={false} onChange={(e) => edit(i, 'start', e.target.value)} onBlur={endEdit} />
+                  {r.ok ? <span className="resolved-date">{r.value.start}</span> : null}
                 </td>
                 <td>
-                  <input aria-label={`End of forward ${i + 1}`} aria-describedby={`${id}-help`} value={ends[i]} size={10} spellCheck={false} onChange={(e) => edit(i, 'end', e.target.value)} onBlur={endEdit} />
+                  <input aria-label={`End of forward ${i + 1}`} aria-describedby={`${id}-help`} value={ends[i]} size={8} spellCheck={false} onChange={(e) => edit(i, 'end', e.target.value)} onBlur={endEdit} />
+                  {r.ok ? <span className="resolved-date">{r.value.end}</span> : null}
                 </td>
                 {r.ok ? (
                   <>
-                    <td>{r.value.start}</td>
-                    <td>{r.value.end}</td>
                     <td className="n">{num(r.value.tau, 6)}</td>
                     <td className="n">{num(r.value.dfStart, 8)}</td>
                     <td className="n">{num(r.value.dfEnd, 8)}</td>
@@ -96,13 +92,13 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
                     </td>
                   </>
                 ) : (
-                  <td colSpan={6} className="field-error" role="alert">
+                  <td colSpan={4} className="field-error wrap" role="alert">
                     {r.errors[0]?.message}
                   </td>
                 )}
                 <td>
-                  <button type="button" onClick={() => remove(i)} aria-label={`Remove forward ${i + 1}`} disabled={n <= 1}>
-                    Remove
+                  <button type="button" className="icon" onClick={() => remove(i)} aria-label={`Remove forward ${i + 1}`} title="Remove this row" disabled={n <= 1}>
+                    ×
                   </button>
                 </td>
               </tr>
