@@ -1,6 +1,7 @@
 import {
   analyzeBond,
   buildCurve,
+  documentCapErrors,
   DAY_COUNTS,
   isDayCount,
   type BondInput,
@@ -184,6 +185,8 @@ const failedLine = (index: number, errors: readonly CoreError[]): string => JSON
 
 /** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
 function runDocument(index: number, doc: unknown, opts: Options): { line: string; errors: readonly CoreError[] } {
+  const capped = documentCapErrors(doc);
+  if (capped.length > 0) return { line: failedLine(index, capped), errors: capped };
   const build = buildCurve(doc, { skipInvalid: opts.skipInvalid, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
   const failed = (errors: readonly CoreError[]) => ({ line: failedLine(index, errors), errors });
   if (!build.curve || build.errors.length > 0) return failed(build.errors);

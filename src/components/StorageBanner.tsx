@@ -16,6 +16,15 @@ export function StorageBanner() {
           </button>
         </div>
       )}
+      {storage.restoreNotes.length > 0 && (
+        <div className="banner warn" role="alert">
+          The saved workspace was not restored exactly as saved: {storage.restoreNotes.join('; ')}.
+          {storage.keptCopyKey && <> The whole saved entry is kept in this browser under &ldquo;{storage.keptCopyKey}&rdquo;.</>}{' '}
+          <button type="button" className="linklike" onClick={() => setStorage({ restoreNotes: [] })}>
+            Dismiss
+          </button>
+        </div>
+      )}
       {storage.otherTab && storage.state !== 'paused' && (
         <div className="banner warn" role="alert">
           This workspace is also open in another tab. Edits in either tab are saved; the other tab is told and asks before it saves over them.

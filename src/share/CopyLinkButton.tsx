@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { encodeWorkspaceLink } from './linkCodec.ts';
+import { encodeWorkspaceLinkChecked } from './linkCodec.ts';
 import '../features/scenarios/scenarios.css';
 
 export interface CopyLinkButtonProps {
@@ -20,7 +20,13 @@ export function CopyLinkButton({ document: doc, baseUrl, writeText, onCopied }: 
   const [status, setStatus] = useState<{ text: string; error: boolean } | null>(null);
   const copy = async (): Promise<void> => {
     try {
-      const url = `${baseUrl ?? pageAddress()}#${await encodeWorkspaceLink(doc)}`;
+      // A workspace too large for a link the app would open again gets no link, and is told why.
+      const encoded = await encodeWorkspaceLinkChecked(doc);
+      if (!encoded.ok) {
+        setStatus({ text: `No link: ${encoded.message}.`, error: true });
+        return;
+      }
+      const url = `${baseUrl ?? pageAddress()}#${encoded.fragment}`;
       const write = writeText ?? ((t: string) => navigator.clipboard.writeText(t));
       try {
         await write(url);

@@ -39,6 +39,31 @@ export async function encodeWorkspaceLink(doc: Record<string, unknown>, buildId:
   return `${LINK_PREFIX}${LINK_VERSION}.${encodeBase64Url(packed)}`;
 }
 
+/** A link for a document, or why the document does not fit one (said before any link is made). */
+export type LinkEncoding = { readonly ok: true; readonly fragment: string } | { readonly ok: false; readonly message: string };
+
+/**
+ * Encodes a document as a link fragment only when the app will open it again: within the fragment
+ * cap (MAX_FRAGMENT_CHARS) and the inflated cap (MAX_INFLATED_BYTES). A workspace within the
+ * document caps (LIMITS) always inflates to less than the inflated cap; whether it fits the fragment
+ * depends on how well its text compresses, so a workspace that does not fit is told to use a file.
+ */
+export async function encodeWorkspaceLinkChecked(doc: Record<string, unknown>, buildId: string = BUILD_ID): Promise<LinkEncoding> {
+  const json = JSON.stringify({ b: buildId, d: linkDocument(doc) });
+  const bytes = new TextEncoder().encode(json).length;
+  if (bytes > MAX_INFLATED_BYTES) {
+    return { ok: false, message: `this workspace is ${(bytes / 1024).toFixed(0)} KB of text, more than the ${MAX_INFLATED_BYTES / 1024} KB a link may hold; save a workspace file instead` };
+  }
+  const fragment = await encodeWorkspaceLink(doc, buildId);
+  if (fragment.length > MAX_FRAGMENT_CHARS) {
+    return {
+      ok: false,
+      message: `this workspace needs a link of ${fragment.length.toLocaleString('en-US')} characters, more than the ${MAX_FRAGMENT_CHARS.toLocaleString('en-US')} a link may have; save a workspace file instead`,
+    };
+  }
+  return { ok: true, fragment };
+}
+
 /** Older link formats and how to read them; none has been published before version 1. */
 const LINK_MIGRATIONS: Readonly<Record<number, (envelope: unknown) => unknown>> = {};
 
@@ -102,7 +127,11 @@ async function decode(fragment: string, currentBuild: string, migrations: readon
     checked: checked.value,
     buildId: b,
     sameBuild,
-    notice: sameBuild ? null : `This link was made with build ${b}; this is build ${currentBuild}. The inputs are the same, but the numbers may differ slightly if the methods changed.`,
+    notice: checked.value.unknowns.length > 0
+      ? `This link${sameBuild ? '' : ` was made with build ${b} (this is build ${currentBuild}) and`} uses ${checked.value.unknowns.length === 1 ? 'a setting' : `${checked.value.unknowns.length} settings`} this build does not know, so it is open read-only; nothing was put in their place.`
+      : sameBuild
+        ? null
+        : `This link was made with build ${b}; this is build ${currentBuild}. The inputs are the same, but the numbers may differ slightly if the methods changed.`,
   };
 }
 
