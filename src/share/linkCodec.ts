@@ -1,7 +1,7 @@
 import { linkDocument, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/index.ts';
 import { decodeBase64Url, encodeBase64Url } from './base64url.ts';
 import { BUILD_ID } from './buildId.ts';
-import { deflateRaw, inflateRawCapped } from './compression.ts';
+import { deflateRaw, inflateRawCapped, type InflateOutcome } from './compression.ts';
 
 /**
  * A shareable link carries the workspace document (without snapshots) in the URL fragment:
@@ -71,17 +71,24 @@ const LINK_MIGRATIONS: Readonly<Record<number, (envelope: unknown) => unknown>> 
  * Decodes a link fragment (with or without the leading #) into a validated document. Untrusted
  * input: the fragment length, the decompressed size, every collection and string are capped, the
  * document is validated like a file and migrated from older versions. Never throws; a failure
- * is a message for the user. Nothing here renders or runs what the link holds.
+ * is a message for the user. Nothing here renders or runs what the link holds. `inflate` is the
+ * platform's streaming inflater; a test may pass an equivalent (the link fuzzer uses Node's zlib,
+ * which runs its thousands of cases in seconds).
  */
-export async function decodeWorkspaceLink(fragment: string, currentBuild: string = BUILD_ID, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): Promise<LinkOutcome> {
+export async function decodeWorkspaceLink(
+  fragment: string,
+  currentBuild: string = BUILD_ID,
+  migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS,
+  inflate: (bytes: Uint8Array, cap: number) => Promise<InflateOutcome> = inflateRawCapped,
+): Promise<LinkOutcome> {
   try {
-    return await decode(fragment, currentBuild, migrations);
+    return await decode(fragment, currentBuild, migrations, inflate);
   } catch {
     return failure('damaged', 'This link could not be read: it is damaged or incomplete. Ask for the link again.');
   }
 }
 
-async function decode(fragment: string, currentBuild: string, migrations: readonly DocumentMigration[]): Promise<LinkOutcome> {
+async function decode(fragment: string, currentBuild: string, migrations: readonly DocumentMigration[], inflate: (bytes: Uint8Array, cap: number) => Promise<InflateOutcome>): Promise<LinkOutcome> {
   if (typeof fragment !== 'string') return failure('not-a-link', 'This is not a workspace link.');
   const text = fragment.startsWith('#') ? fragment.slice(1) : fragment;
   if (text === '') return failure('none', 'There is no workspace in this address.');
@@ -95,7 +102,7 @@ async function decode(fragment: string, currentBuild: string, migrations: readon
   if (version < 1) return failure('not-a-link', `Link format ${version} does not exist; check that the whole link was copied.`);
   const bytes = decodeBase64Url(head[2]!);
   if (!bytes || bytes.length === 0) return failure('damaged', 'This link is damaged: it holds characters a link cannot contain, or nothing. Check that the whole link was copied.');
-  const inflated = await inflateRawCapped(bytes, MAX_INFLATED_BYTES);
+  const inflated = await inflate(bytes, MAX_INFLATED_BYTES);
   if (!inflated.ok) {
     return inflated.reason === 'too-large'
       ? failure('too-large', `This link expands to more than ${MAX_INFLATED_BYTES / 1024 / 1024} MB, more than any workspace needs, so it was not opened.`)

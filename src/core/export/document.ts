@@ -72,7 +72,7 @@ export function validateDocument(raw: unknown, migrations: readonly DocumentMigr
   const errors: CoreError[] = [];
   let core: { workspace: Workspace | null; errors: readonly CoreError[] };
   if (doc.format === WORKBENCH_FORMAT) {
-    if (doc.version !== 1) return { ok: false, errors: [coreError('unsupported-version', 'version', `workbench document version ${String(doc.version).slice(0, 10)} is not one this build reads (1)`)] };
+    if (doc.version !== 1) return { ok: false, errors: [coreError('unsupported-version', 'version', `workbench document version ${typeof doc.version === 'number' || typeof doc.version === 'string' ? String(doc.version).slice(0, 10) : doc.version === null ? 'null' : Array.isArray(doc.version) ? '(a list)' : `(${typeof doc.version})`} is not one this build reads (1)`)] };
     const shape = checkWorkbenchShape(doc);
     if (!shape.engineDoc) return { ok: false, errors: shape.errors };
     core = validateWorkspace(shape.engineDoc);
