@@ -52,8 +52,10 @@ export function StorageBanner() {
 
 export function StorageStatusText() {
   const storage = useAppStore((s) => s.storage);
-  const text =
-    storage.state === 'saved' ? (storage.savedAt ? 'Saved in this browser' : 'Not edited yet') : storage.state === 'pending' ? 'Saving…' : storage.state === 'paused' ? 'Saving paused' : 'Not saved (memory only)';
+  const readOnly = useAppStore((s) => s.readOnly !== null);
+  const text = readOnly
+    ? 'Read-only: not saved'
+    : storage.state === 'saved' ? (storage.savedAt ? 'Saved in this browser' : 'Not edited yet') : storage.state === 'pending' ? 'Saving…' : storage.state === 'paused' ? 'Saving paused' : 'Not saved (memory only)';
   return (
     <span className={`save-state ${storage.state}`} role="status" aria-live="polite">
       {text}
