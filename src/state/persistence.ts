@@ -1,4 +1,4 @@
-import { readWorkbenchDocument, type WorkbenchDocument } from '../core/index.ts';
+import { depthProblem, readWorkbenchDocument, type WorkbenchDocument } from '../core/index.ts';
 import { demoWorkspace } from './demoWorkspace.ts';
 import { makeRowId } from './ids.ts';
 import { checkRestoredWorkspace } from './restoreCheck.ts';
@@ -128,6 +128,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     const read = (list: readonly unknown[]): WorkbenchDocument[] | null => {
       const out: WorkbenchDocument[] = [];
       for (const item of list.slice(-SAVED_HISTORY_CAP)) {
+        if (depthProblem(item)) return null; // the caps every way in shares (LIMITS.depth)
         const { doc } = readWorkbenchDocument(item, makeRowId);
         if (!doc) return null;
         out.push(doc);

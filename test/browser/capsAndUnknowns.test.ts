@@ -4,6 +4,8 @@
 // 600-row paste keeps the first 500 rows and says 100 were left out, and the workspace the app then
 // saves (file and link) opens again. Invented data.
 import { readFile } from 'node:fs/promises';
+import { deflateRawSync } from 'node:zlib';
+import { encodeBase64Url } from '../../src/share/base64url.ts';
 import type { Page } from 'playwright-core';
 import { encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
@@ -66,6 +68,25 @@ describe('read-only opening and one set of caps', () => {
     await banner.waitFor({ state: 'detached' });
     expect(await page.getByLabel('Interpolation').inputValue()).toBe('log-linear-discount');
     await page.waitForFunction((k) => JSON.parse(localStorage.getItem(k) ?? 'null')?.workspace?.curve?.interpolation === 'log-linear-discount', KEY, { timeout: 5000 });
+    expect(diagnostics(page).pageErrors).toEqual([]);
+    await page.close();
+  });
+
+  it('a short link whose strategy nests 3,000 deep is refused with a message; the page stays up and the print view draws', async () => {
+    let n = 0;
+    const doc = JSON.stringify({ b: 'another-build', d: { ...demoWorkspace(() => `d${n++}`), quotes: [], strategy: '@deep' } });
+    const text = doc.replace('"@deep"', '{"a":'.repeat(3000) + '1' + '}'.repeat(3000));
+    const fragment = `ws1.${encodeBase64Url(new Uint8Array(deflateRawSync(Buffer.from(text, 'utf8'))))}`;
+    expect(fragment.length).toBeLessThan(1000); // a few hundred characters
+    const page = await newPage(browser!);
+    await open(page, `${server!.url}#${fragment}`);
+    const alert = page.getByRole('alert').filter({ hasText: 'nests lists and objects more than 16 deep' });
+    await alert.waitFor({ timeout: 10_000 });
+    expect(await alert.innerText()).toContain('Your saved workspace has not been changed.');
+    expect(await rowCount(page)).toBe(19);
+    await page.getByRole('tab', { name: 'Print' }).click();
+    await page.locator('.ps-trace dd').nth(2).waitFor({ timeout: 10_000 });
+    expect(await page.locator('.ps-trace dd').nth(2).innerText()).toMatch(/^[0-9a-f]{8}$/);
     expect(diagnostics(page).pageErrors).toEqual([]);
     await page.close();
   });
