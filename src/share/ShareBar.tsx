@@ -36,6 +36,7 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
             useAppStore.getState().openReadOnly(read.doc, unknowns, 'file');
             setMessage(null);
           } else {
+            useAppStore.getState().closeReadOnly(); // a read-only document on screen gives way to the file
             useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open workspace file');
             setMessage(null);
           }

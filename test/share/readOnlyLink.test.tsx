@@ -60,3 +60,18 @@ describe('a link with an interpolation this build does not know', () => {
     expect(useAppStore.getState().workspace).toBe(before);
   });
 });
+
+describe('a good link while a read-only document is shown', () => {
+  it('opens: the read-only document gives way, and undo goes back to the workspace from before it', async () => {
+    const mine = useAppStore.getState().workspace;
+    const doc = { ...(foreign as Record<string, unknown>) };
+    useAppStore.getState().openReadOnly(doc as never, [{ path: 'curve.interpolation', value: '"cubic-tension"', supported: [], fallback: 'monotone-convex', unknownName: false }], 'saved');
+    window.history.replaceState(null, '', `/#${await encodeWorkspaceLink(workbenchJson as unknown as Record<string, unknown>)}`);
+    render(<Probe />);
+    await waitFor(() => expect(useAppStore.getState().readOnly).toBeNull());
+    expect(useAppStore.getState().workspace.curve.interpolation).toBe(workbenchJson.curve.interpolation);
+    expect(useAppStore.getState().workspace.quotes).toHaveLength(40);
+    act(() => useAppStore.getState().undo());
+    expect(useAppStore.getState().workspace).toBe(mine);
+  });
+});
