@@ -121,10 +121,11 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     return { entry: entry as SavedEntry, doc, problem };
   };
 
-  /** The saved undo/redo steps, or none if any step is unreadable (the workspace itself still loads). */
-  const readHistory = (entry: SavedEntry): { past: WorkbenchDocument[]; future: WorkbenchDocument[] } => {
+  /** The saved undo/redo steps, or none if any step is unreadable (the workspace itself still loads; `lost` says so). */
+  const readHistory = (entry: SavedEntry): { past: WorkbenchDocument[]; future: WorkbenchDocument[]; lost?: true } => {
     const h = entry.history;
-    if (!h || !Array.isArray(h.past) || !Array.isArray(h.future)) return { past: [], future: [] };
+    if (!h) return { past: [], future: [] };
+    if (!Array.isArray(h.past) || !Array.isArray(h.future)) return { past: [], future: [], lost: true };
     const read = (list: readonly unknown[]): WorkbenchDocument[] | null => {
       const out: WorkbenchDocument[] = [];
       for (const item of list.slice(-SAVED_HISTORY_CAP)) {
@@ -137,7 +138,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     };
     const past = read(h.past);
     const future = read(h.future);
-    return past && future ? { past, future } : { past: [], future: [] };
+    return past && future ? { past, future } : { past: [], future: [], lost: true };
   };
 
   // 1. Restore (checked against the caps every way in shares; see restoreCheck.ts).
@@ -145,8 +146,10 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
   const first = parseEntry(raw);
   const check = first.entry ? checkRestoredWorkspace(first.entry.workspace) : null;
   if (first.entry && check?.doc) {
-    if (check.unknowns.length === 0 && check.notes.length === 0) {
-      store.setState({ workspace: check.doc, ...readHistory(first.entry), lastEditKey: null });
+    const history = readHistory(first.entry);
+    const notes = history.lost ? [...check.notes, 'a step of the saved undo history could not be read, so undo starts afresh'] : check.notes;
+    if (check.unknowns.length === 0 && notes.length === 0) {
+      store.setState({ workspace: check.doc, past: history.past, future: history.future, lastEditKey: null });
     } else {
       // Not restored exactly as saved: the whole entry is kept aside first, and the user is told.
       const keptKey = `${KEPT_PREFIX}${first.entry.stamp}`;
@@ -157,8 +160,8 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
         kept = null;
       }
       if (check.unknowns.length > 0) store.getState().openReadOnly(check.doc, check.unknowns, 'saved', demoWorkspace(makeRowId));
-      else store.setState({ workspace: check.doc, past: [], future: [], lastEditKey: null });
-      setStorage({ restoreNotes: check.notes, keptCopyKey: kept });
+      else store.setState({ workspace: check.doc, past: check.notes.length === 0 ? history.past : [], future: check.notes.length === 0 ? history.future : [], lastEditKey: null });
+      setStorage({ restoreNotes: notes, keptCopyKey: kept });
     }
     lastSeen = first.entry.stamp;
     setStorage({ state: 'saved', savedAt: first.entry.savedAt });

@@ -166,4 +166,16 @@ describe('restoring the saved entry', () => {
     vi.advanceTimersByTime(1000);
     expect(storage.getItem(STORAGE_KEY)).toBe(raw);
   });
+
+  it('a saved undo history with a step that cannot be read: the workspace opens, and the lost history is said and kept', () => {
+    const storage = new MemoryStorage();
+    const ws = demoWorkspace(() => 'h');
+    const raw = JSON.stringify({ app: 'tenorscope', stamp: 'old:9', writer: 'old', savedAt: 5, workspace: ws, history: { past: [ws, { nonsense: true }], future: [] } });
+    storage.setItem(STORAGE_KEY, raw);
+    start(storage);
+    expect(s().workspace.quotes).toHaveLength(19);
+    expect(s().past).toHaveLength(0);
+    expect(s().storage.restoreNotes).toEqual(['a step of the saved undo history could not be read, so undo starts afresh']);
+    expect(storage.getItem(`${KEPT_PREFIX}old:9`)).toBe(raw);
+  });
 });
