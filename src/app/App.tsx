@@ -1,5 +1,6 @@
 import { memo } from 'react';
 import { Caution } from '../components/Caution.tsx';
+import { ReadOnlyBanner } from '../components/ReadOnlyBanner.tsx';
 import { StorageBanner, StorageStatusText } from '../components/StorageBanner.tsx';
 import { CurvesPanel } from '../features/curves/CurvesPanel.tsx';
 import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
@@ -19,8 +20,12 @@ export function App() {
   useUndoShortcuts();
   const result = useCurveBuild();
   const link = useOpenLinkOnStart();
-  const canUndo = useAppStore((s) => s.past.length > 0);
-  const canRedo = useAppStore((s) => s.future.length > 0);
+  const readOnly = useAppStore((s) => s.readOnly);
+  const canUndo = useAppStore((s) => s.past.length > 0 && s.readOnly === null);
+  const canRedo = useAppStore((s) => s.future.length > 0 && s.readOnly === null);
+  // A read-only document whose display settings (or quote unit) this build does not know: the
+  // charts and tables are not drawn in a guessed convention.
+  const undrawable = readOnly?.unknowns.filter((u) => u.path.startsWith('display.') || u.path === 'quoteUnit') ?? [];
   const { undo, redo, resetToDemo } = useAppStore.getState();
   // Panels beyond the base curve, charts and tables follow the build once typing pauses, so a
   // keystroke paints the sheet, charts and tables first (see useSettledValue).
@@ -39,7 +44,7 @@ export function App() {
           <button type="button" onClick={redo} disabled={!canRedo} aria-keyshortcuts="Control+Shift+Z Control+Y Meta+Shift+Z" title="Redo (Ctrl+Shift+Z or Ctrl+Y)">
             Redo
           </button>
-          <button type="button" onClick={resetToDemo} title="Replace the workspace with the built-in demo (undoable)">
+          <button type="button" onClick={resetToDemo} disabled={readOnly !== null} title="Replace the workspace with the built-in demo (undoable)">
             Reset to demo
           </button>
         </div>
@@ -47,19 +52,31 @@ export function App() {
       <Caution />
       <StorageBanner />
       <LinkNotice message={link.message} onDismiss={link.dismiss} />
+      <ReadOnlyBanner />
       <SettingsBar />
       {/* The quotes beside the charts and tables (one first screen); roll versus term across both below. */}
       <main className="workbench">
         <div className="left">
           <QuoteSheet result={result} />
         </div>
-        <div className="right">
-          <CurvesPanel result={result} deferredResult={deferred} />
-          <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
-        </div>
-        <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
-          <RollHost result={deferred} />
-        </section>
+        {undrawable.length > 0 ? (
+          <div className="right">
+            <p className="panel empty">
+              Charts and tables are not drawn: they follow {undrawable.map((u) => `${u.path} (${u.value})`).join(', ')}, which this build does not know. Make an editable copy to choose a
+              convention this build has.
+            </p>
+          </div>
+        ) : (
+          <>
+            <div className="right">
+              <CurvesPanel result={result} deferredResult={deferred} />
+              <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
+            </div>
+            <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
+              <RollHost result={deferred} />
+            </section>
+          </>
+        )}
       </main>
       <footer className="foot">
         <Caution />

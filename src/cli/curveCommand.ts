@@ -1,6 +1,7 @@
 import {
   analyzeBond,
   buildCurve,
+  documentCapErrors,
   DAY_COUNTS,
   isDayCount,
   type BondInput,
@@ -185,11 +186,13 @@ const resolve = (point: string, settlement: string): string => {
 /** The output line of a document that failed (without its newline). */
 const failedLine = (index: number, errors: readonly CoreError[]): string => JSON.stringify({ index, errors });
 
-/** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
 /** A wrong row of a workbench document, left out under --skip-invalid, as the engine words a skipped quote. */
 const skippedRow = (e: CoreError): CoreWarning => ({ path: e.path, quote: e.quote, code: 'skipped', message: `${e.message}; left out` });
 
+/** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
 function runDocument(index: number, input: unknown, opts: Options): { line: string; errors: readonly CoreError[] } {
+  const capped = documentCapErrors(input);
+  if (capped.length > 0) return { line: failedLine(index, capped), errors: capped };
   // A workbench document (quote cells as typed) is read as the workbench reads it; engine
   // positions in messages are re-pointed at its rows.
   const read = engineFromAnyDocument(input);

@@ -16,6 +16,15 @@ export function StorageBanner() {
           </button>
         </div>
       )}
+      {storage.restoreNotes.length > 0 && (
+        <div className="banner warn" role="alert">
+          The saved workspace was not restored exactly as saved: {storage.restoreNotes.join('; ')}.
+          {storage.keptCopyKey && <> The whole saved entry is kept in this browser under &ldquo;{storage.keptCopyKey}&rdquo;.</>}{' '}
+          <button type="button" className="linklike" onClick={() => setStorage({ restoreNotes: [] })}>
+            Dismiss
+          </button>
+        </div>
+      )}
       {storage.otherTab && storage.state !== 'paused' && (
         <div className="banner warn" role="alert">
           This workspace is also open in another tab. Edits in either tab are saved; the other tab is told and asks before it saves over them.
@@ -43,8 +52,10 @@ export function StorageBanner() {
 
 export function StorageStatusText() {
   const storage = useAppStore((s) => s.storage);
-  const text =
-    storage.state === 'saved' ? (storage.savedAt ? 'Saved in this browser' : 'Not edited yet') : storage.state === 'pending' ? 'Saving…' : storage.state === 'paused' ? 'Saving paused' : 'Not saved (memory only)';
+  const readOnly = useAppStore((s) => s.readOnly !== null);
+  const text = readOnly
+    ? 'Read-only: not saved'
+    : storage.state === 'saved' ? (storage.savedAt ? 'Saved in this browser' : 'Not edited yet') : storage.state === 'pending' ? 'Saving…' : storage.state === 'paused' ? 'Saving paused' : 'Not saved (memory only)';
   return (
     <span className={`save-state ${storage.state}`} role="status" aria-live="polite">
       {text}

@@ -1,7 +1,9 @@
 import { useMemo } from 'react';
 import { bootstrapInstruments, buildCurve, type CurveBuild, type Quote } from '../core/index.ts';
 import {
+  isQuoteUnitMode,
   parseRow,
+  QUOTE_UNIT_MODES,
   rowIssuesFromEngine,
   toEngineDocument,
   type EngineConversion,
@@ -105,6 +107,14 @@ export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
 
 /** Builds the curve from the document's inputs (engine document, then buildCurve with skipInvalid). */
 export function deriveBuild(ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve'>, interpolation?: WorkbenchDocument['curve']['interpolation']): WorkbenchBuild {
+  if (!isQuoteUnitMode(ws.quoteUnit)) {
+    // A read-only document from another build (see the store's readOnly): its quote unit is not one
+    // this build reads, so no cell is read with a guessed unit and there is no curve.
+    const conversion = toEngineDocument({ ...ws, quotes: [] });
+    const build = buildCurve(conversion.doc, { skipInvalid: true });
+    const fatal = `the quote unit ${JSON.stringify(String(ws.quoteUnit)).slice(0, 40)} is not one this build reads (${QUOTE_UNIT_MODES.join(', ')}), so the quotes are not read`;
+    return { conversion, build, rowIssues: [], invalidCount: 0, disabledCount: 0, fatal };
+  }
   const conversion = toEngineDocument(ws, parseRowCached);
   const build = interpolation ? buildCurve(conversion.doc, { skipInvalid: true, interpolation }) : buildWithReuse(conversion.doc);
   const fromEngine = rowIssuesFromEngine(

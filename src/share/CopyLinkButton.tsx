@@ -1,5 +1,5 @@
-import { useState } from 'react';
-import { encodeWorkspaceLink } from './linkCodec.ts';
+import { useEffect, useState } from 'react';
+import { encodeWorkspaceLinkChecked, MAX_FRAGMENT_CHARS } from './linkCodec.ts';
 import '../features/scenarios/scenarios.css';
 
 export interface CopyLinkButtonProps {
@@ -15,12 +15,49 @@ export interface CopyLinkButtonProps {
 
 const pageAddress = (): string => window.location.href.split('#')[0]!;
 
-/** Puts a link holding the whole workspace on the clipboard. Its accessible name is "Copy link". */
+/**
+ * JSON at most this long always makes a link within MAX_FRAGMENT_CHARS (raw DEFLATE adds at most
+ * 5 bytes per 65,535-byte stored block, base64 makes 4 characters of 3 bytes), so it needs no trial.
+ */
+const SURELY_FITS_CHARS = Math.floor((MAX_FRAGMENT_CHARS - 16) * 0.74);
+/** A larger workspace is tried this long after its last change (encoding costs milliseconds). */
+const CHECK_DELAY_MS = 400;
+
+/**
+ * Puts a link holding the whole workspace on the clipboard. Its accessible name is "Copy link".
+ * A workspace too large for a link the app would open again is found before the user asks (tried
+ * shortly after each change) and said next to the button; the button then makes no link.
+ */
 export function CopyLinkButton({ document: doc, baseUrl, writeText, onCopied }: CopyLinkButtonProps) {
   const [status, setStatus] = useState<{ text: string; error: boolean } | null>(null);
+  const [tooLarge, setTooLarge] = useState<string | null>(null);
+  useEffect(() => {
+    let live = true;
+    // The document's UTF-8 size bounds the link's envelope from above (snapshots are left out of a link).
+    if (new TextEncoder().encode(JSON.stringify(doc)).length <= SURELY_FITS_CHARS) {
+      setTooLarge(null);
+      return;
+    }
+    const timer = setTimeout(() => {
+      void encodeWorkspaceLinkChecked(doc).then(
+        (r) => live && setTooLarge(r.ok ? null : r.message),
+        () => undefined,
+      );
+    }, CHECK_DELAY_MS);
+    return () => {
+      live = false;
+      clearTimeout(timer);
+    };
+  }, [doc]);
   const copy = async (): Promise<void> => {
     try {
-      const url = `${baseUrl ?? pageAddress()}#${await encodeWorkspaceLink(doc)}`;
+      // A workspace too large for a link the app would open again gets no link, and is told why.
+      const encoded = await encodeWorkspaceLinkChecked(doc);
+      if (!encoded.ok) {
+        setStatus({ text: `No link: ${encoded.message}.`, error: true });
+        return;
+      }
+      const url = `${baseUrl ?? pageAddress()}#${encoded.fragment}`;
       const write = writeText ?? ((t: string) => navigator.clipboard.writeText(t));
       try {
         await write(url);
@@ -38,8 +75,8 @@ export function CopyLinkButton({ document: doc, baseUrl, writeText, onCopied }: 
       <button type="button" onClick={() => void copy()} title="Copy a link that opens this workspace (quotes, settings, scenarios, note; not snapshots)">
         Copy link
       </button>
-      <span role="status" aria-live="polite" className={status?.error ? 'copy-link-status error' : 'copy-link-status'}>
-        {status?.text ?? ''}
+      <span role="status" aria-live="polite" className={status?.error || (tooLarge && !status) ? 'copy-link-status error' : 'copy-link-status'}>
+        {status?.text ?? (tooLarge ? `Too large for a link: ${tooLarge}.` : '')}
       </span>
     </span>
   );

@@ -36,9 +36,15 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
             }
             return;
           }
-          const read = readWorkbenchDocument(checked.document, makeRowId);
+          const unknowns = checked.unknowns;
+          const read = readWorkbenchDocument(checked.document, makeRowId, { keepUnknown: unknowns.length > 0 });
           if (!read.doc) setMessage(`The file was not opened: ${read.problem ?? 'not a workspace'}. Your workspace has not been changed.`);
-          else {
+          else if (unknowns.length > 0) {
+            // Settings this build does not know: shown as they are, read-only (see ReadOnlyBanner).
+            useAppStore.getState().openReadOnly(read.doc, unknowns, 'file');
+            setMessage(null);
+          } else {
+            useAppStore.getState().closeReadOnly(); // a read-only document on screen gives way to the file
             useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open workspace file');
             setMessage(null);
           }

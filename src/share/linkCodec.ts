@@ -1,7 +1,7 @@
 import { linkDocument, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/index.ts';
 import { decodeBase64Url, encodeBase64Url } from './base64url.ts';
 import { BUILD_ID } from './buildId.ts';
-import { deflateRaw, inflateRawCapped } from './compression.ts';
+import { deflateRaw, inflateRawCapped, type InflateOutcome } from './compression.ts';
 
 /**
  * A shareable link carries the workspace document (without snapshots) in the URL fragment:
@@ -39,6 +39,31 @@ export async function encodeWorkspaceLink(doc: Record<string, unknown>, buildId:
   return `${LINK_PREFIX}${LINK_VERSION}.${encodeBase64Url(packed)}`;
 }
 
+/** A link for a document, or why the document does not fit one (said before any link is made). */
+export type LinkEncoding = { readonly ok: true; readonly fragment: string } | { readonly ok: false; readonly message: string };
+
+/**
+ * Encodes a document as a link fragment only when the app will open it again: within the fragment
+ * cap (MAX_FRAGMENT_CHARS) and the inflated cap (MAX_INFLATED_BYTES). A workspace within the
+ * document caps (LIMITS) always inflates to less than the inflated cap; whether it fits the fragment
+ * depends on how well its text compresses, so a workspace that does not fit is told to use a file.
+ */
+export async function encodeWorkspaceLinkChecked(doc: Record<string, unknown>, buildId: string = BUILD_ID): Promise<LinkEncoding> {
+  const json = JSON.stringify({ b: buildId, d: linkDocument(doc) });
+  const bytes = new TextEncoder().encode(json).length;
+  if (bytes > MAX_INFLATED_BYTES) {
+    return { ok: false, message: `this workspace is ${(bytes / 1024).toFixed(0)} KB of text, more than the ${MAX_INFLATED_BYTES / 1024} KB a link may hold; save a workspace file instead` };
+  }
+  const fragment = await encodeWorkspaceLink(doc, buildId);
+  if (fragment.length > MAX_FRAGMENT_CHARS) {
+    return {
+      ok: false,
+      message: `this workspace needs a link of ${fragment.length.toLocaleString('en-US')} characters, more than the ${MAX_FRAGMENT_CHARS.toLocaleString('en-US')} a link may have; save a workspace file instead`,
+    };
+  }
+  return { ok: true, fragment };
+}
+
 /** Older link formats and how to read them; none has been published before version 1. */
 const LINK_MIGRATIONS: Readonly<Record<number, (envelope: unknown) => unknown>> = {};
 
@@ -46,17 +71,24 @@ const LINK_MIGRATIONS: Readonly<Record<number, (envelope: unknown) => unknown>> 
  * Decodes a link fragment (with or without the leading #) into a validated document. Untrusted
  * input: the fragment length, the decompressed size, every collection and string are capped, the
  * document is validated like a file and migrated from older versions. Never throws; a failure
- * is a message for the user. Nothing here renders or runs what the link holds.
+ * is a message for the user. Nothing here renders or runs what the link holds. `inflate` is the
+ * platform's streaming inflater; a test may pass an equivalent (the link fuzzer uses Node's zlib,
+ * which runs its thousands of cases in seconds).
  */
-export async function decodeWorkspaceLink(fragment: string, currentBuild: string = BUILD_ID, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): Promise<LinkOutcome> {
+export async function decodeWorkspaceLink(
+  fragment: string,
+  currentBuild: string = BUILD_ID,
+  migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS,
+  inflate: (bytes: Uint8Array, cap: number) => Promise<InflateOutcome> = inflateRawCapped,
+): Promise<LinkOutcome> {
   try {
-    return await decode(fragment, currentBuild, migrations);
+    return await decode(fragment, currentBuild, migrations, inflate);
   } catch {
     return failure('damaged', 'This link could not be read: it is damaged or incomplete. Ask for the link again.');
   }
 }
 
-async function decode(fragment: string, currentBuild: string, migrations: readonly DocumentMigration[]): Promise<LinkOutcome> {
+async function decode(fragment: string, currentBuild: string, migrations: readonly DocumentMigration[], inflate: (bytes: Uint8Array, cap: number) => Promise<InflateOutcome>): Promise<LinkOutcome> {
   if (typeof fragment !== 'string') return failure('not-a-link', 'This is not a workspace link.');
   const text = fragment.startsWith('#') ? fragment.slice(1) : fragment;
   if (text === '') return failure('none', 'There is no workspace in this address.');
@@ -70,7 +102,7 @@ async function decode(fragment: string, currentBuild: string, migrations: readon
   if (version < 1) return failure('not-a-link', `Link format ${version} does not exist; check that the whole link was copied.`);
   const bytes = decodeBase64Url(head[2]!);
   if (!bytes || bytes.length === 0) return failure('damaged', 'This link is damaged: it holds characters a link cannot contain, or nothing. Check that the whole link was copied.');
-  const inflated = await inflateRawCapped(bytes, MAX_INFLATED_BYTES);
+  const inflated = await inflate(bytes, MAX_INFLATED_BYTES);
   if (!inflated.ok) {
     return inflated.reason === 'too-large'
       ? failure('too-large', `This link expands to more than ${MAX_INFLATED_BYTES / 1024 / 1024} MB, more than any workspace needs, so it was not opened.`)
@@ -102,7 +134,11 @@ async function decode(fragment: string, currentBuild: string, migrations: readon
     checked: checked.value,
     buildId: b,
     sameBuild,
-    notice: sameBuild ? null : `This link was made with build ${b}; this is build ${currentBuild}. The inputs are the same, but the numbers may differ slightly if the methods changed.`,
+    notice: checked.value.unknowns.length > 0
+      ? `This link${sameBuild ? '' : ` was made with build ${b} (this is build ${currentBuild}) and`} uses ${checked.value.unknowns.length === 1 ? 'a setting' : `${checked.value.unknowns.length} settings`} this build does not know, so it is open read-only; nothing was put in their place.`
+      : sameBuild
+        ? null
+        : `This link was made with build ${b}; this is build ${currentBuild}. The inputs are the same, but the numbers may differ slightly if the methods changed.`,
   };
 }
 

@@ -20,9 +20,16 @@ function applyLinkOutcome(outcome: LinkOutcome): string | null {
   if (outcome.checked.document.format !== WORKBENCH_FORMAT) {
     return 'This link holds an engine workspace document, which the workbench does not open. Your saved workspace has not been changed.';
   }
-  const read = readWorkbenchDocument(outcome.checked.document, makeRowId);
+  const unknowns = outcome.checked.unknowns;
+  const read = readWorkbenchDocument(outcome.checked.document, makeRowId, { keepUnknown: unknowns.length > 0 });
   if (!read.doc) return `This link could not be opened: ${read.problem ?? 'not a workspace'}. Your saved workspace has not been changed.`;
-  useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open link');
+  // Settings this build does not know: shown as they are, read-only, never replaced by defaults.
+  if (unknowns.length > 0) useAppStore.getState().openReadOnly(read.doc, unknowns, 'link');
+  else {
+    // A read-only document on screen (the saved one, from another build) gives way to the link.
+    useAppStore.getState().closeReadOnly();
+    useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open link');
+  }
   const tab = outcome.checked.view.tab;
   if (typeof tab === 'string') useAppStore.getState().setActiveTab(tab);
   return outcome.notice;

@@ -1,5 +1,7 @@
-import { readWorkbenchDocument, type WorkbenchDocument } from '../core/index.ts';
+import { depthProblem, readWorkbenchDocument, type WorkbenchDocument } from '../core/index.ts';
+import { demoWorkspace } from './demoWorkspace.ts';
 import { makeRowId } from './ids.ts';
+import { checkRestoredWorkspace } from './restoreCheck.ts';
 import { useAppStore } from './store.ts';
 
 /** Undo and redo steps kept with the saved workspace (each way), so both survive a reload. */
@@ -9,6 +11,8 @@ export const SAVED_HISTORY_CAP = 50;
 export const STORAGE_KEY = 'tenorscope.workspace';
 /** Unreadable saved entries are copied under this prefix plus a time stamp before anything replaces them. */
 export const UNREADABLE_PREFIX = 'tenorscope.workspace.unreadable.';
+/** A saved entry not restored exactly as saved (over a cap, rows that were not rows, unknown settings) is kept whole under this prefix plus its stamp. */
+export const KEPT_PREFIX = 'tenorscope.workspace.kept.';
 export const CHANNEL_NAME = 'tenorscope.workspace';
 /** An edit is saved this long after the last change (well within the 300 ms promised). */
 export const SAVE_DELAY_MS = 200;
@@ -117,13 +121,15 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     return { entry: entry as SavedEntry, doc, problem };
   };
 
-  /** The saved undo/redo steps, or none if any step is unreadable (the workspace itself still loads). */
-  const readHistory = (entry: SavedEntry): { past: WorkbenchDocument[]; future: WorkbenchDocument[] } => {
+  /** The saved undo/redo steps, or none if any step is unreadable (the workspace itself still loads; `lost` says so). */
+  const readHistory = (entry: SavedEntry): { past: WorkbenchDocument[]; future: WorkbenchDocument[]; lost?: true } => {
     const h = entry.history;
-    if (!h || !Array.isArray(h.past) || !Array.isArray(h.future)) return { past: [], future: [] };
+    if (!h) return { past: [], future: [] };
+    if (!Array.isArray(h.past) || !Array.isArray(h.future)) return { past: [], future: [], lost: true };
     const read = (list: readonly unknown[]): WorkbenchDocument[] | null => {
       const out: WorkbenchDocument[] = [];
       for (const item of list.slice(-SAVED_HISTORY_CAP)) {
+        if (depthProblem(item)) return null; // the caps every way in shares (LIMITS.depth)
         const { doc } = readWorkbenchDocument(item, makeRowId);
         if (!doc) return null;
         out.push(doc);
@@ -132,14 +138,31 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     };
     const past = read(h.past);
     const future = read(h.future);
-    return past && future ? { past, future } : { past: [], future: [] };
+    return past && future ? { past, future } : { past: [], future: [], lost: true };
   };
 
-  // 1. Restore.
+  // 1. Restore (checked against the caps every way in shares; see restoreCheck.ts).
   const raw = readRaw();
   const first = parseEntry(raw);
-  if (first.doc && first.entry) {
-    store.setState({ workspace: first.doc, ...readHistory(first.entry), lastEditKey: null });
+  const check = first.entry ? checkRestoredWorkspace(first.entry.workspace) : null;
+  if (first.entry && check?.doc) {
+    const history = readHistory(first.entry);
+    const notes = history.lost ? [...check.notes, 'a step of the saved undo history could not be read, so undo starts afresh'] : check.notes;
+    if (check.unknowns.length === 0 && notes.length === 0) {
+      store.setState({ workspace: check.doc, past: history.past, future: history.future, lastEditKey: null });
+    } else {
+      // Not restored exactly as saved: the whole entry is kept aside first, and the user is told.
+      const keptKey = `${KEPT_PREFIX}${first.entry.stamp}`;
+      let kept: string | null = keptKey;
+      try {
+        if (storage?.getItem(keptKey) !== raw) storage?.setItem(keptKey, raw!);
+      } catch {
+        kept = null;
+      }
+      if (check.unknowns.length > 0) store.getState().openReadOnly(check.doc, check.unknowns, 'saved', demoWorkspace(makeRowId));
+      else store.setState({ workspace: check.doc, past: check.notes.length === 0 ? history.past : [], future: check.notes.length === 0 ? history.future : [], lastEditKey: null });
+      setStorage({ restoreNotes: notes, keptCopyKey: kept });
+    }
     lastSeen = first.entry.stamp;
     setStorage({ state: 'saved', savedAt: first.entry.savedAt });
   } else if (raw !== null) {
@@ -150,14 +173,15 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): () => v
     } catch {
       kept = null;
     }
-    setStorage({ corruptReason: first.problem ?? 'unknown problem', corruptCopyKey: kept });
+    setStorage({ corruptReason: first.problem ?? check?.problem ?? 'unknown problem', corruptCopyKey: kept });
   }
   if (!storage) setStorage({ state: 'memory', message: 'This browser gives the page no storage.' });
 
   // 2. Save.
   const save = (): void => {
     timer = null;
-    if (!storage || paused) return;
+    // A read-only document (settings this build does not know) is never written over the saved one.
+    if (!storage || paused || store.getState().readOnly) return;
     const current = parseEntry(readRaw()).entry;
     if (current && current.writer !== tabId && current.stamp !== lastSeen) {
       paused = true;

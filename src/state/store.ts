@@ -1,6 +1,7 @@
 import { create } from 'zustand';
 import type { AppState } from './appState.ts';
 import { createHistorySlice } from './slices/historySlice.ts';
+import { createReadOnlySlice } from './slices/readOnlySlice.ts';
 import { createUiSlice } from './slices/uiSlice.ts';
 import { createWorkspaceSlice } from './slices/workspaceSlice.ts';
 
@@ -13,6 +14,7 @@ export const useAppStore = create<AppState>()((...a) => ({
   ...createWorkspaceSlice(...a),
   ...createHistorySlice(...a),
   ...createUiSlice(...a),
+  ...createReadOnlySlice(...a),
 }));
 
 export type { AppState };

@@ -4,9 +4,9 @@ import { coreError, type CoreError } from '../result.ts';
 import type { Workspace } from '../workspace/types.ts';
 import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
 import { validateNote, validateScenarios, validateSnapshots, validateView, type ViewValue } from './documentKeys.ts';
-import { LIMITS } from './limits.ts';
+import { depthProblem, LIMITS } from './limits.ts';
 import { checkWorkbenchShape } from './workbenchShape.ts';
-import { WORKBENCH_FORMAT } from '../input/index.ts';
+import { unknownSettings, WORKBENCH_FORMAT, type UnknownSetting } from '../input/index.ts';
 
 /** A workspace document after validation: the document itself (unchanged) and what was read from it. */
 export interface CheckedDocument {
@@ -20,6 +20,12 @@ export interface CheckedDocument {
   readonly view: Readonly<Record<string, ViewValue>>;
   /** Errors of single quotes: the document is kept (the quotes show their errors where they are typed). */
   readonly quoteErrors: readonly CoreError[];
+  /**
+   * Settings of a workbench document this build does not know (another build's interpolation,
+   * day count...): the document is valid but must open read-only, never with defaults put in
+   * their place. Empty for an engine document (the engine refuses unknown identifiers).
+   */
+  readonly unknowns: readonly UnknownSetting[];
 }
 
 export type DocumentOutcome = { readonly ok: true; readonly value: CheckedDocument } | { readonly ok: false; readonly errors: readonly CoreError[] };
@@ -47,13 +53,15 @@ export function migrateDocument(doc: Record<string, unknown>, migrations: readon
 }
 
 /**
- * Validates a workspace document read from untrusted input (a link or a file): caps first (quotes,
- * scenarios, note, snapshots: LIMITS), then the engine's schema (validateWorkspace), then each
+ * Validates a workspace document read from untrusted input (a link or a file): caps first (nesting
+ * depth, quotes, scenarios, note, snapshots: LIMITS), then the engine's schema (validateWorkspace), then each
  * reserved key this module owns. Document-level errors refuse the document; errors of single
  * quotes are returned beside it. `strategy` is checked for size only; its owner validates it.
  */
 export function validateDocument(raw: unknown, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): DocumentOutcome {
   if (!isObj(raw)) return { ok: false, errors: [coreError('schema', '', 'a workspace document must be a JSON object')] };
+  const deep = depthProblem(raw);
+  if (deep) return { ok: false, errors: [coreError('range', '', deep)] };
   if (raw.format !== WORKSPACE_FORMAT && raw.format !== WORKBENCH_FORMAT) {
     return { ok: false, errors: [coreError('schema', 'format', `this is not a workspace document: format must be "${WORKBENCH_FORMAT}" or "${WORKSPACE_FORMAT}"`)] };
   }
@@ -64,7 +72,7 @@ export function validateDocument(raw: unknown, migrations: readonly DocumentMigr
   const errors: CoreError[] = [];
   let core: { workspace: Workspace | null; errors: readonly CoreError[] };
   if (doc.format === WORKBENCH_FORMAT) {
-    if (doc.version !== 1) return { ok: false, errors: [coreError('unsupported-version', 'version', `workbench document version ${String(doc.version).slice(0, 10)} is not one this build reads (1)`)] };
+    if (doc.version !== 1) return { ok: false, errors: [coreError('unsupported-version', 'version', `workbench document version ${typeof doc.version === 'number' || typeof doc.version === 'string' ? String(doc.version).slice(0, 10) : doc.version === null ? 'null' : Array.isArray(doc.version) ? '(a list)' : `(${typeof doc.version})`} is not one this build reads (1)`)] };
     const shape = checkWorkbenchShape(doc);
     if (!shape.engineDoc) return { ok: false, errors: shape.errors };
     core = validateWorkspace(shape.engineDoc);
@@ -84,8 +92,30 @@ export function validateDocument(raw: unknown, migrations: readonly DocumentMigr
   if (errors.length > 0) return { ok: false, errors };
   return {
     ok: true,
-    value: { document: doc, workspace: core.workspace, scenarios: s.scenarios, snapshots: snaps.snapshots, note: n.note, view: v.view, quoteErrors: core.errors },
+    value: {
+      document: doc,
+      workspace: core.workspace,
+      scenarios: s.scenarios,
+      snapshots: snaps.snapshots,
+      note: n.note,
+      view: v.view,
+      quoteErrors: core.errors,
+      unknowns: doc.format === WORKBENCH_FORMAT ? unknownSettings(doc) : [],
+    },
   };
+}
+
+/**
+ * The caps every way in shares, for a parsed document from the command line (which validates
+ * the rest itself): nesting depth and quote count (LIMITS). Empty when the document is within them.
+ */
+export function documentCapErrors(raw: unknown): CoreError[] {
+  const deep = depthProblem(raw);
+  if (deep) return [coreError('range', '', deep)];
+  if (isObj(raw) && Array.isArray(raw.quotes) && raw.quotes.length > LIMITS.quotes) {
+    return [coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`)];
+  }
+  return [];
 }
 
 /** Longest file read as a workspace (characters). */

@@ -30,15 +30,43 @@ export function fnv1a64(text: string): string {
   return h.toString(16).padStart(16, '0');
 }
 
-/** JSON with object keys sorted at every level, so equal documents give equal text. */
+/**
+ * JSON with object keys sorted at every level, so equal documents give equal text. Built with an
+ * explicit stack, not recursion: a structure nested thousands deep (a crafted link) cannot
+ * overflow the call stack. Same text as JSON.stringify with sorted keys: undefined object values
+ * are left out, undefined list entries and other values JSON cannot write become null.
+ */
 export function canonicalJson(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map((v) => canonicalJson(v === undefined ? null : v)).join(',')}]`;
-  if (value !== null && typeof value === 'object') {
-    const obj = value as Record<string, unknown>;
-    const keys = Object.keys(obj).filter((k) => obj[k] !== undefined).sort();
-    return `{${keys.map((k) => `${JSON.stringify(k)}:${canonicalJson(obj[k])}`).join(',')}}`;
+  const out: string[] = [];
+  // Each entry is either text to write as is, or a value still to write.
+  const stack: ({ text: string } | { value: unknown })[] = [{ value }];
+  while (stack.length > 0) {
+    const item = stack.pop()!;
+    if ('text' in item) {
+      out.push(item.text);
+      continue;
+    }
+    const v = item.value;
+    if (Array.isArray(v)) {
+      const parts: ({ text: string } | { value: unknown })[] = [{ text: '[' }];
+      v.forEach((x, i) => {
+        if (i > 0) parts.push({ text: ',' });
+        parts.push({ value: x === undefined ? null : x });
+      });
+      parts.push({ text: ']' });
+      for (let i = parts.length - 1; i >= 0; i--) stack.push(parts[i]!);
+    } else if (v !== null && typeof v === 'object') {
+      const obj = v as Record<string, unknown>;
+      const keys = Object.keys(obj).filter((k) => obj[k] !== undefined).sort();
+      const parts: ({ text: string } | { value: unknown })[] = [{ text: '{' }];
+      keys.forEach((k, i) => {
+        parts.push({ text: `${i > 0 ? ',' : ''}${JSON.stringify(k)}:` }, { value: obj[k] });
+      });
+      parts.push({ text: '}' });
+      for (let i = parts.length - 1; i >= 0; i--) stack.push(parts[i]!);
+    } else out.push(JSON.stringify(v) ?? 'null');
   }
-  return JSON.stringify(value) ?? 'null';
+  return out.join('');
 }
 
 /** The short workspace hash printed on the summary page: first 8 hex digits of FNV-1a 64 of the canonical document. */

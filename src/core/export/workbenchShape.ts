@@ -6,12 +6,12 @@ import { LIMITS } from './limits.ts';
 const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', ...RESERVED_KEYS];
 const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
-/** Characters of one typed cell, a row id, a setting value. */
-export const CELL_MAX = 64;
+/** Characters of one typed cell or row id (LIMITS.cell). */
+export const CELL_MAX = LIMITS.cell;
 
-const shortText = (v: unknown, max = CELL_MAX): boolean => typeof v === 'string' && v.length <= max;
+const shortText = (v: unknown, max: number = CELL_MAX): boolean => typeof v === 'string' && v.length <= max;
 const flatSettings = (v: unknown): boolean =>
-  isObj(v) && Object.keys(v).length <= 20 && Object.values(v).every((x) => shortText(x, 40) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x)));
+  isObj(v) && Object.keys(v).length <= 20 && Object.values(v).every((x) => shortText(x, LIMITS.setting) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x)));
 
 /**
  * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
@@ -24,7 +24,7 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   const errors: CoreError[] = [];
   for (const k of Object.keys(raw)) if (!TOP.includes(k)) errors.push(coreError('schema', k.slice(0, 40), `unknown field "${k.slice(0, 40)}"; a workbench document has ${TOP.join(', ')}`));
   if (raw.format !== WORKBENCH_FORMAT) errors.push(coreError('schema', 'format', `format must be "${WORKBENCH_FORMAT}"`));
-  if (!shortText(raw.settlement, 40)) errors.push(coreError('schema', 'settlement', 'settlement must be text (a date YYYY-MM-DD)'));
+  if (!shortText(raw.settlement, LIMITS.setting)) errors.push(coreError('schema', 'settlement', 'settlement must be text (a date YYYY-MM-DD)'));
   if (!flatSettings(raw.curve)) errors.push(coreError('schema', 'curve', 'curve must be an object of short settings'));
   if (!flatSettings(raw.display)) errors.push(coreError('schema', 'display', 'display must be an object of short settings'));
   if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));

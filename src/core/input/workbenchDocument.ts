@@ -4,7 +4,7 @@ import { INTERPOLATIONS, isInterpolation, type InterpolationId } from '../interp
 import { EXTRAPOLATIONS, isExtrapolation, type Extrapolation } from '../curve/curve.ts';
 import { FREQUENCIES, RESERVED_KEYS, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
 import type { CoreError } from '../result.ts';
-import { isQuoteUnitMode, type QuoteUnitMode } from './quoteText.ts';
+import { isQuoteUnitMode, QUOTE_UNIT_MODES, type QuoteUnitMode } from './quoteText.ts';
 import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssues, type RowParse } from './quoteRow.ts';
 
 export const WORKBENCH_FORMAT = 'tenorscope-workbench';
@@ -137,37 +137,170 @@ export function rowIssuesFromEngine(errors: readonly Pick<CoreError, 'path' | 'q
 
 const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const str = (v: unknown): string => (typeof v === 'string' ? v : typeof v === 'number' ? String(v) : '');
+const shown = (v: unknown): string => (typeof v === 'string' ? `"${v.slice(0, 40)}"` : v === null ? 'null' : Array.isArray(v) ? 'a list' : typeof v === 'object' ? 'an object' : String(v).slice(0, 40));
+
+/** A setting whose value (or name) this build does not know. */
+export interface UnknownSetting {
+  /** Where it is, such as `curve.interpolation` or `display.smoothing` (an unknown name). */
+  readonly path: string;
+  /** The value as found, shown as text (`"cubic-tension"`). */
+  readonly value: string;
+  /** What this build supports there: the values, or for an unknown name the names it knows. */
+  readonly supported: readonly string[];
+  /** What this build would use instead (the default), or null: an unknown name is left out. */
+  readonly fallback: string | number | boolean | null;
+  /** True when the name itself is unknown (the value is then left out of a copy). */
+  readonly unknownName: boolean;
+}
+
+const FORWARD_TENOR_TEXT: readonly string[] = FORWARD_TENORS;
+const SETTINGS: Readonly<Record<'curve' | 'display', Readonly<Record<string, { values: readonly (string | number | boolean)[]; fallback: string | number | boolean }>>>> = {
+  curve: {
+    dayCount: { values: CURVE_DAY_COUNTS, fallback: 'ACT/365F' },
+    interpolation: { values: INTERPOLATIONS, fallback: 'monotone-convex' },
+    extrapolation: { values: EXTRAPOLATIONS, fallback: 'none' },
+  },
+  display: {
+    compounding: { values: COMPOUNDINGS, fallback: DEFAULT_DISPLAY.compounding },
+    dayCount: { values: CURVE_DAY_COUNTS, fallback: DEFAULT_DISPLAY.dayCount },
+    forwardTenor: { values: FORWARD_TENOR_TEXT, fallback: DEFAULT_DISPLAY.forwardTenor },
+    axis: { values: MATURITY_AXES, fallback: DEFAULT_DISPLAY.axis },
+    parFrequency: { values: FREQUENCIES, fallback: DEFAULT_DISPLAY.parFrequency },
+    showPar: { values: [true, false], fallback: DEFAULT_DISPLAY.showPar },
+    showInstantaneous: { values: [true, false], fallback: DEFAULT_DISPLAY.showInstantaneous },
+    showMethodOverlay: { values: [true, false], fallback: DEFAULT_DISPLAY.showMethodOverlay },
+  },
+};
+
+/**
+ * The settings of a workbench document this build does not know: a value outside its list (an
+ * interpolation, day count, compounding... from another build) or a setting name it does not
+ * have. A missing setting is not unknown: it takes its documented default. Such a document is
+ * opened read-only, never with a substitute written back (see the store's read-only state).
+ */
+export function unknownSettings(raw: unknown): UnknownSetting[] {
+  if (!isObj(raw)) return [];
+  const out: UnknownSetting[] = [];
+  if (raw.quoteUnit !== undefined && !isQuoteUnitMode(raw.quoteUnit)) {
+    out.push({ path: 'quoteUnit', value: shown(raw.quoteUnit), supported: QUOTE_UNIT_MODES, fallback: 'percent', unknownName: false });
+  }
+  for (const group of ['curve', 'display'] as const) {
+    const v = raw[group];
+    if (!isObj(v)) continue;
+    const known = SETTINGS[group];
+    for (const [k, x] of Object.entries(v)) {
+      const spec = known[k];
+      const path = `${group}.${k.slice(0, 40)}`;
+      if (!spec) out.push({ path, value: shown(x), supported: Object.keys(known), fallback: null, unknownName: true });
+      else if (!spec.values.includes(x as never)) out.push({ path, value: shown(x), supported: spec.values.map(String), fallback: spec.fallback, unknownName: false });
+    }
+  }
+  return out;
+}
+
+/**
+ * The document with each unknown setting replaced by the given choice (by path; a missing choice
+ * takes the setting's fallback) and each unknown name left out: the editable copy the user asks
+ * for, every replacement shown to them first. The original is not changed.
+ */
+export function replaceUnknownSettings(raw: Record<string, unknown>, choices: Readonly<Record<string, string | number | boolean>> = {}): Record<string, unknown> {
+  const out: Record<string, unknown> = { ...raw };
+  for (const u of unknownSettings(raw)) {
+    const choice = choices[u.path] ?? u.fallback;
+    if (u.path === 'quoteUnit') {
+      out.quoteUnit = choice;
+      continue;
+    }
+    const [group, key] = u.path.split('.') as ['curve' | 'display', string];
+    const next = { ...(out[group] as Record<string, unknown>) };
+    if (u.unknownName || choice === null) delete next[key];
+    else next[key] = choice;
+    out[group] = next;
+  }
+  return out;
+}
+
+export interface ReadWorkbenchOptions {
+  /** Keep unknown setting values as they are (a read-only opening) instead of the defaults. */
+  readonly keepUnknown?: boolean;
+}
+
+export interface ReadWorkbench {
+  readonly doc: WorkbenchDocument | null;
+  readonly problem: string | null;
+  /**
+   * What was not read as it stood, each with where it was: quote list entries that are not rows
+   * (left out), cells that are not text (read as empty), `enabled` flags that are not true or
+   * false (read as on). Empty when everything was read as given.
+   */
+  readonly changes: readonly string[];
+}
+
+/** "1, 4 and 7" (row numbers as the user counts them), at most `max` listed. */
+const listNumbers = (xs: readonly number[], max = 10): string => {
+  const shownXs = xs.slice(0, max).map((x) => String(x + 1));
+  const more = xs.length > max ? ` and ${xs.length - max} more` : '';
+  if (shownXs.length === 1) return shownXs[0]! + more;
+  return more ? shownXs.join(', ') + more : `${shownXs.slice(0, -1).join(', ')} and ${shownXs[shownXs.length - 1]}`;
+};
 
 /**
  * Reads a saved workbench document back (from storage or a file). Never throws: a document that
- * cannot be read gives null and a reason; fields with unknown values fall back to defaults.
+ * cannot be read gives null and a reason. Fields with unknown values fall back to defaults unless
+ * `keepUnknown` (callers check `unknownSettings` first and open such a document read-only).
+ * Whatever was not read as it stood is listed in `changes`, so the caller can say so.
  * `makeId` supplies row ids for rows saved without one.
  */
-export function readWorkbenchDocument(raw: unknown, makeId: () => string): { doc: WorkbenchDocument | null; problem: string | null } {
-  if (!isObj(raw)) return { doc: null, problem: 'the saved entry is not a workspace object' };
-  if (raw.format !== WORKBENCH_FORMAT) return { doc: null, problem: `the saved entry's format is ${JSON.stringify(raw.format)}, not "${WORKBENCH_FORMAT}"` };
-  if (raw.version !== WORKBENCH_VERSION) return { doc: null, problem: `the saved entry is version ${JSON.stringify(raw.version)}; this build reads version ${WORKBENCH_VERSION}` };
-  if (!Array.isArray(raw.quotes)) return { doc: null, problem: 'the saved entry has no quote list' };
+export function readWorkbenchDocument(raw: unknown, makeId: () => string, options: ReadWorkbenchOptions = {}): ReadWorkbench {
+  if (!isObj(raw)) return { doc: null, problem: 'the saved entry is not a workspace object', changes: [] };
+  if (raw.format !== WORKBENCH_FORMAT) return { doc: null, problem: `the saved entry's format is ${JSON.stringify(raw.format)}, not "${WORKBENCH_FORMAT}"`, changes: [] };
+  if (raw.version !== WORKBENCH_VERSION) return { doc: null, problem: `the saved entry is version ${JSON.stringify(raw.version)}; this build reads version ${WORKBENCH_VERSION}`, changes: [] };
+  if (!Array.isArray(raw.quotes)) return { doc: null, problem: 'the saved entry has no quote list', changes: [] };
   const curve = isObj(raw.curve) ? raw.curve : {};
   const display = isObj(raw.display) ? raw.display : {};
   const seen = new Set<string>();
-  const quotes: QuoteRow[] = raw.quotes.filter(isObj).map((q) => {
-    let id = typeof q.id === 'string' && q.id !== '' && !seen.has(q.id) ? q.id : makeId();
+  const notRows: number[] = [];
+  const badCells: string[] = [];
+  const badFlags: number[] = [];
+  const quotes: QuoteRow[] = [];
+  raw.quotes.forEach((q, i) => {
+    if (!isObj(q)) {
+      notRows.push(i);
+      return;
+    }
+    const id = typeof q.id === 'string' && q.id !== '' && !seen.has(q.id) ? q.id : makeId();
     seen.add(id);
+    if (q.enabled !== undefined && typeof q.enabled !== 'boolean') badFlags.push(i);
     const row = { id, enabled: q.enabled !== false } as Record<string, unknown>;
-    for (const c of QUOTE_COLUMNS) row[c] = str(q[c]);
-    return row as unknown as QuoteRow;
+    for (const c of QUOTE_COLUMNS) {
+      const v = q[c];
+      if (v !== undefined && typeof v !== 'string' && typeof v !== 'number') badCells.push(`quotes[${i}].${c} (${shown(v)})`);
+      row[c] = str(v);
+    }
+    quotes.push(row as unknown as QuoteRow);
   });
-  const pick = <T>(v: unknown, ok: (x: unknown) => x is T, fallback: T): T => (ok(v) ? v : fallback);
-  const isTenor = (x: unknown): x is DisplaySettings['forwardTenor'] => typeof x === 'string' && (FORWARD_TENORS as readonly string[]).includes(x);
+  const changes: string[] = [];
+  if (notRows.length > 0) {
+    changes.push(
+      `${notRows.length} ${notRows.length === 1 ? 'entry' : 'entries'} of the saved quote list ${notRows.length === 1 ? 'is' : 'are'} not a row and ${notRows.length === 1 ? 'was' : 'were'} left out (entry ${listNumbers(notRows)} of ${raw.quotes.length})`,
+    );
+  }
+  if (badCells.length > 0) changes.push(`${badCells.length} ${badCells.length === 1 ? 'cell is' : 'cells are'} not text and ${badCells.length === 1 ? 'was' : 'were'} read as empty: ${badCells.slice(0, 5).join(', ')}${badCells.length > 5 ? ` and ${badCells.length - 5} more` : ''}`);
+  if (badFlags.length > 0) changes.push(`the on/off flag of saved row ${listNumbers(badFlags)} is not true or false and was read as on`);
+  const keep = options.keepUnknown === true;
+  const pick = <T>(v: unknown, ok: (x: unknown) => x is T, fallback: T): T => (ok(v) ? v : keep && v !== undefined ? (v as T) : fallback);
+  const isTenor = (x: unknown): x is DisplaySettings['forwardTenor'] => typeof x === 'string' && FORWARD_TENOR_TEXT.includes(x);
   const isAxis = (x: unknown): x is MaturityAxis => x === 'linear' || x === 'sqrt';
   const isFreq = (x: unknown): x is number => typeof x === 'number' && (FREQUENCIES as readonly number[]).includes(x);
   const isBool = (x: unknown): x is boolean => typeof x === 'boolean';
+  const extra = (group: Record<string, unknown>, known: Readonly<Record<string, unknown>>): Record<string, unknown> =>
+    keep ? Object.fromEntries(Object.entries(group).filter(([k]) => !(k in known))) : {};
   const doc: Record<string, unknown> = {
     format: WORKBENCH_FORMAT,
     version: WORKBENCH_VERSION,
     settlement: str(raw.settlement),
     curve: {
+      ...extra(curve, SETTINGS.curve),
       dayCount: pick(curve.dayCount, isCurveDayCount, 'ACT/365F'),
       interpolation: pick(curve.interpolation, isInterpolation, 'monotone-convex'),
       extrapolation: pick(curve.extrapolation, isExtrapolation, 'none'),
@@ -175,6 +308,7 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string): { doc
     quoteUnit: pick(raw.quoteUnit, isQuoteUnitMode, 'percent'),
     quotes,
     display: {
+      ...extra(display, SETTINGS.display),
       compounding: pick(display.compounding, isCompounding, DEFAULT_DISPLAY.compounding),
       dayCount: pick(display.dayCount, isCurveDayCount, DEFAULT_DISPLAY.dayCount),
       forwardTenor: pick(display.forwardTenor, isTenor, DEFAULT_DISPLAY.forwardTenor),
@@ -186,7 +320,7 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string): { doc
     },
   };
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];
-  return { doc: doc as unknown as WorkbenchDocument, problem: null };
+  return { doc: doc as unknown as WorkbenchDocument, problem: null, changes };
 }
 
 export { COMPOUNDINGS, CURVE_DAY_COUNTS, INTERPOLATIONS, EXTRAPOLATIONS };

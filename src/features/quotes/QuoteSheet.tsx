@@ -1,5 +1,7 @@
 import { memo, useCallback, useMemo, useRef, useState, type ClipboardEvent, type FocusEvent, type KeyboardEvent } from 'react';
 import {
+  LIMITS,
+  rowsLeftOutMessage,
   looksLikeTable,
   QUOTE_COLUMN_LABEL,
   QUOTE_COLUMNS,
@@ -78,11 +80,14 @@ interface SheetCellProps {
 const SheetCell = memo(function SheetCell({ rowId, column: c, index, value, severity, message, placeholder, msgId }: SheetCellProps) {
   const setCell = useAppStore((s) => s.setCell);
   const endEdit = useAppStore((s) => s.endEdit);
+  const readOnly = useAppStore((s) => s.readOnly !== null);
   return (
     <td role="gridcell" className={`cell ${c}${severity ? ` ${severity}` : ''}`}>
       <input
         type="text"
         value={value}
+        maxLength={LIMITS.cell}
+        readOnly={readOnly}
         data-row={index}
         data-col={c}
         spellCheck={false}
@@ -170,6 +175,8 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const unit = useAppStore((s) => s.workspace.quoteUnit);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
   const notice = useAppStore((s) => s.pasteNotice);
+  const readOnly = useAppStore((s) => s.readOnly !== null);
+  const full = rows.length >= LIMITS.quotes;
   const { setQuoteUnit, addRow, sortByMaturity, pasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
   const gridRef = useRef<HTMLTableElement>(null);
   const scrollRef = useRef<HTMLDivElement>(null);
@@ -240,6 +247,8 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         </span>
         <button
           type="button"
+          disabled={full || readOnly}
+          title={full ? `The sheet holds at most ${LIMITS.quotes} quotes, the most a workspace may hold` : undefined}
           onClick={() => {
             addRow(null);
             requestAnimationFrame(() => moveTo(rows.length, 'kind'));
@@ -261,13 +270,21 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         )}
         {result.disabledCount > 0 && <span> · {result.disabledCount} switched off</span>}
         {result.conversion.blankRows > 0 && <span> · {result.conversion.blankRows} empty</span>}
+        {full && <span> · the sheet is full: a workspace holds at most {LIMITS.quotes} quotes</span>}
       </p>
       {notice && (
         <div className="notice" role="status">
           {notice.mode === 'replaced' && <>Pasted {notice.rows} rows with a header; they replace the sheet.</>}
           {notice.mode === 'appended' && <>Pasted {notice.rows} rows, appended to the sheet.</>}
           {notice.mode === 'filled' && <>Pasted {notice.rows} rows from the focused cell.</>}
-          {notice.ignoredColumns.length > 0 && <> Ignored columns: {notice.ignoredColumns.join(', ')}.</>}{' '}
+          {notice.ignoredColumns.length > 0 && <> Ignored columns: {notice.ignoredColumns.join(', ')}.</>}
+          {(notice.leftOut ?? 0) > 0 && <strong className="left-out"> {rowsLeftOutMessage(notice.leftOut ?? 0)}</strong>}
+          {(notice.clippedCells ?? 0) > 0 && (
+            <strong className="left-out">
+              {' '}
+              {notice.clippedCells} {notice.clippedCells === 1 ? 'cell was' : 'cells were'} longer than {LIMITS.cell} characters and cut to that length.
+            </strong>
+          )}{' '}
           {notice.mode === 'replaced' && (
             <button type="button" onClick={appendInstead}>
               Append instead

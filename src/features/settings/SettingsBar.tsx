@@ -25,16 +25,27 @@ const COMPOUNDING_TEXT: Readonly<Record<Compounding, string>> = {
 };
 const EXTRAPOLATION_TEXT: Readonly<Record<Extrapolation, string>> = { none: 'None (stop at last pillar)', 'flat-forward': 'Flat forward' };
 
-/** Curve and display settings. One display setting re-expresses every rate on screen. */
+/** An option for a value this build does not know (a read-only document from another build), so the control shows it rather than its first entry. */
+function unknownOption(known: readonly (string | number)[], value: unknown) {
+  return known.includes(value as never) ? null : (
+    <option value={String(value)} disabled>
+      {String(value)} (not in this build)
+    </option>
+  );
+}
+
+/** Curve and display settings. One display setting re-expresses every rate on screen; all are off while the document is read-only. */
 export const SettingsBar = memo(function SettingsBar() {
   const settlement = useAppStore((s) => s.workspace.settlement);
   const curve = useAppStore((s) => s.workspace.curve);
   const display = useAppStore((s) => s.workspace.display);
+  const readOnly = useAppStore((s) => s.readOnly !== null);
   const { setSettlement, setCurve, setDisplay } = useAppStore.getState();
   const badDate = !isIsoDate(settlement);
+  const knownTag = (COMPOUNDINGS as readonly string[]).includes(display.compounding) && (CURVE_DAY_COUNTS as readonly string[]).includes(display.dayCount);
   return (
     <section className="settings" aria-label="Settings">
-      <fieldset>
+      <fieldset disabled={readOnly}>
         <legend>Curve</legend>
         <label>
           Settlement
@@ -43,6 +54,7 @@ export const SettingsBar = memo(function SettingsBar() {
         <label>
           Curve day count
           <select value={curve.dayCount} onChange={(e) => setCurve({ dayCount: e.target.value as CurveDayCount })}>
+            {unknownOption(CURVE_DAY_COUNTS, curve.dayCount)}
             {CURVE_DAY_COUNTS.map((d) => (
               <option key={d}>{d}</option>
             ))}
@@ -51,6 +63,7 @@ export const SettingsBar = memo(function SettingsBar() {
         <label>
           Interpolation
           <select value={curve.interpolation} onChange={(e) => setCurve({ interpolation: e.target.value as InterpolationId })}>
+            {unknownOption(INTERPOLATIONS, curve.interpolation)}
             {INTERPOLATIONS.map((m) => (
               <option key={m} value={m}>
                 {INTERPOLATORS[m].label}
@@ -61,6 +74,7 @@ export const SettingsBar = memo(function SettingsBar() {
         <label>
           Extrapolation
           <select value={curve.extrapolation} onChange={(e) => setCurve({ extrapolation: e.target.value as Extrapolation })}>
+            {unknownOption(EXTRAPOLATIONS, curve.extrapolation)}
             {EXTRAPOLATIONS.map((x) => (
               <option key={x} value={x}>
                 {EXTRAPOLATION_TEXT[x]}
@@ -69,13 +83,14 @@ export const SettingsBar = memo(function SettingsBar() {
           </select>
         </label>
       </fieldset>
-      <fieldset>
+      <fieldset disabled={readOnly}>
         <legend>
-          Show rates as <span className="tag">{rateTag(display.compounding, display.dayCount)}</span>
+          Show rates as <span className="tag">{knownTag ? rateTag(display.compounding, display.dayCount) : `${String(display.compounding)}, ${String(display.dayCount)}`}</span>
         </legend>
         <label>
           Compounding
           <select value={display.compounding} onChange={(e) => setDisplay({ compounding: e.target.value as Compounding })}>
+            {unknownOption(COMPOUNDINGS, display.compounding)}
             {COMPOUNDINGS.map((c) => (
               <option key={c} value={c}>
                 {COMPOUNDING_TEXT[c]}
@@ -86,6 +101,7 @@ export const SettingsBar = memo(function SettingsBar() {
         <label>
           Rate day count
           <select value={display.dayCount} onChange={(e) => setDisplay({ dayCount: e.target.value as CurveDayCount })}>
+            {unknownOption(CURVE_DAY_COUNTS, display.dayCount)}
             {CURVE_DAY_COUNTS.map((d) => (
               <option key={d}>{d}</option>
             ))}
@@ -94,6 +110,7 @@ export const SettingsBar = memo(function SettingsBar() {
         <label>
           Forward tenor
           <select value={display.forwardTenor} onChange={(e) => setDisplay({ forwardTenor: e.target.value as ForwardTenor })}>
+            {unknownOption(FORWARD_TENORS, display.forwardTenor)}
             {FORWARD_TENORS.map((t) => (
               <option key={t}>{t}</option>
             ))}
@@ -102,6 +119,7 @@ export const SettingsBar = memo(function SettingsBar() {
         <label>
           Par coupons
           <select value={display.parFrequency} onChange={(e) => setDisplay({ parFrequency: Number(e.target.value) })}>
+            {unknownOption([1, 2, 4, 12], display.parFrequency)}
             <option value={1}>Annual</option>
             <option value={2}>Semiannual</option>
             <option value={4}>Quarterly</option>
@@ -109,11 +127,12 @@ export const SettingsBar = memo(function SettingsBar() {
           </select>
         </label>
       </fieldset>
-      <fieldset>
+      <fieldset disabled={readOnly}>
         <legend>Charts</legend>
         <label>
           Maturity axis
           <select value={display.axis} onChange={(e) => setDisplay({ axis: e.target.value as MaturityAxis })}>
+            {unknownOption(['linear', 'sqrt'], display.axis)}
             <option value="linear">Linear (years)</option>
             <option value="sqrt">Square-root spaced</option>
           </select>

@@ -14,7 +14,7 @@ export interface HistorySlice {
   lastEditKey: string | null;
   /** A short description of the last edit, for the undo button's label. */
   lastEditLabel: string | null;
-  /** Replaces the document as one undoable step (merged with the previous step when `mergeKey` matches). */
+  /** Replaces the document as one undoable step (merged with the previous step when `mergeKey` matches); refused while read-only. */
   commit(next: WorkbenchDocument, label: string, mergeKey?: string | null): void;
   /** Ends a run of merged edits (a cell lost focus). */
   endEdit(): void;
@@ -29,7 +29,8 @@ export const createHistorySlice: StateCreator<AppState, [], [], HistorySlice> = 
   lastEditLabel: null,
   commit(next, label, mergeKey = null) {
     const s = get();
-    if (next === s.workspace) return;
+    // A read-only document (settings this build does not know) takes no edit of any kind.
+    if (next === s.workspace || s.readOnly) return;
     if (mergeKey !== null && mergeKey === s.lastEditKey && s.past.length > 0) {
       set({ workspace: next, future: [], lastEditLabel: label });
       return;
@@ -42,12 +43,14 @@ export const createHistorySlice: StateCreator<AppState, [], [], HistorySlice> = 
   },
   undo() {
     const s = get();
+    if (s.readOnly) return;
     const prev = s.past[s.past.length - 1];
     if (!prev) return;
     set({ workspace: prev, past: s.past.slice(0, -1), future: [...s.future, s.workspace], lastEditKey: null, lastEditLabel: null, pasteNotice: null });
   },
   redo() {
     const s = get();
+    if (s.readOnly) return;
     const next = s.future[s.future.length - 1];
     if (!next) return;
     set({ workspace: next, past: [...s.past, s.workspace], future: s.future.slice(0, -1), lastEditKey: null, lastEditLabel: null });

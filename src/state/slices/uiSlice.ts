@@ -10,6 +10,10 @@ export interface PasteNotice {
   /** For a replace: the quotes before it and the pasted rows, to append instead. */
   readonly before?: readonly QuoteRow[];
   readonly pasted?: readonly RowText[];
+  /** Rows of the paste left out at the quote cap (LIMITS.quotes): the first rows were kept. */
+  readonly leftOut?: number;
+  /** Pasted cells longer than LIMITS.cell characters, cut to that length. */
+  readonly clippedCells?: number;
 }
 
 /** Where the workspace is kept and what went wrong keeping it. */
@@ -23,6 +27,10 @@ export interface StorageStatus {
   readonly corruptCopyKey: string | null;
   readonly corruptReason: string | null;
   readonly savedAt: number | null;
+  /** What was not restored exactly as saved (rows over the cap, entries that were not rows...), each with where. */
+  readonly restoreNotes: readonly string[];
+  /** The full saved entry is kept in the browser under this key (when restoreNotes or a read-only opening). */
+  readonly keptCopyKey: string | null;
 }
 
 export type TabId = string;
@@ -39,7 +47,16 @@ export interface UiSlice {
   setStorage(patch: Partial<StorageStatus>): void;
 }
 
-export const INITIAL_STORAGE: StorageStatus = { state: 'saved', message: null, otherTab: false, corruptCopyKey: null, corruptReason: null, savedAt: null };
+export const INITIAL_STORAGE: StorageStatus = {
+  state: 'saved',
+  message: null,
+  otherTab: false,
+  corruptCopyKey: null,
+  corruptReason: null,
+  savedAt: null,
+  restoreNotes: [],
+  keptCopyKey: null,
+};
 
 export const createUiSlice: StateCreator<AppState, [], [], UiSlice> = (set) => ({
   activeTab: 'key-maturities',

@@ -1,6 +1,8 @@
 import type { StateCreator } from 'zustand';
 import {
+  capRows,
   EMPTY_ROW_TEXT,
+  LIMITS,
   QUOTE_COLUMNS,
   readPastedBlock,
   rewriteBareRate,
@@ -29,7 +31,7 @@ export interface WorkspaceSlice {
   workspace: WorkbenchDocument;
   setCell(rowId: string, column: QuoteColumn, text: string): void;
   setRowEnabled(rowId: string, enabled: boolean): void;
-  /** Adds an empty row after the given row (at the end when null); returns its id. */
+  /** Adds an empty row after the given row (at the end when null); returns its id ('' when the sheet is full or read-only). */
   addRow(afterRowId?: string | null): string;
   deleteRow(rowId: string): void;
   sortByMaturity(): void;
@@ -53,6 +55,20 @@ export interface WorkspaceSlice {
 
 const newRow = (text: Partial<RowText> = {}): QuoteRow => ({ id: makeRowId(), enabled: true, ...EMPTY_ROW_TEXT, ...text });
 
+/** Cell text within LIMITS.cell (the sheet's inputs stop typing there; a pasted cell beyond it is cut and counted). */
+const capCell = (text: string): string => (text.length > LIMITS.cell ? text.slice(0, LIMITS.cell) : text);
+const capRowText = (r: Partial<RowText>, count: () => void): Partial<RowText> => {
+  let out: Record<string, string> | null = null;
+  for (const [k, v] of Object.entries(r)) {
+    if (typeof v === 'string' && v.length > LIMITS.cell) {
+      out ??= { ...(r as Record<string, string>) };
+      out[k] = capCell(v);
+      count();
+    }
+  }
+  return (out ?? r) as Partial<RowText>;
+};
+
 export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice> = (set, get) => {
   const ws = (): WorkbenchDocument => get().workspace;
   const withQuotes = (quotes: readonly QuoteRow[]): WorkbenchDocument => ({ ...ws(), quotes });
@@ -61,6 +77,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     workspace: demoWorkspace(makeRowId),
     setCell(rowId, column, text) {
       const row = ws().quotes.find((r) => r.id === rowId);
+      text = capCell(text);
       if (!row || row[column] === text) return;
       get().commit(withQuotes(mapRow(rowId, (r) => ({ ...r, [column]: text }))), `edit ${column}`, `cell:${rowId}:${column}`);
     },
@@ -68,6 +85,8 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       get().commit(withQuotes(mapRow(rowId, (r) => ({ ...r, enabled }))), enabled ? 'switch row on' : 'switch row off');
     },
     addRow(afterRowId = null) {
+      // The sheet holds at most LIMITS.quotes rows (the Add row control says so and is disabled there).
+      if (ws().quotes.length >= LIMITS.quotes || get().readOnly) return '';
       const row = newRow();
       const quotes = [...ws().quotes];
       const at = afterRowId === null ? -1 : quotes.findIndex((r) => r.id === afterRowId);
@@ -90,6 +109,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       get().commit(withQuotes(keyed.map((x) => x.r)), 'sort by maturity');
     },
     setSettlement(text) {
+      text = text.length > LIMITS.setting ? text.slice(0, LIMITS.setting) : text;
       if (text === ws().settlement) return;
       get().commit({ ...ws(), settlement: text }, 'settlement date', 'settlement');
     },
@@ -110,44 +130,58 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       get().commit({ ...ws(), quoteUnit: mode, quotes }, 'quote unit');
     },
     pasteText(text, target) {
+      if (get().readOnly) return;
       const block = readPastedBlock(text);
+      let clippedCells = 0;
+      const clipped = (): void => {
+        clippedCells++;
+      };
       if (block.header) {
         const before = ws().quotes;
-        const pasted = block.rows;
+        // The first rows up to the cap are kept; the notice says how many were left out.
+        const { rows: kept, leftOut } = capRows(block.rows);
+        const pasted = kept.map((r) => capRowText(r, clipped) as RowText);
         get().commit(withQuotes(pasted.map((r) => newRow(r))), 'paste (replace sheet)');
-        set({ pasteNotice: { mode: 'replaced', rows: pasted.length, ignoredColumns: block.ignored, before, pasted } });
+        set({ pasteNotice: { mode: 'replaced', rows: pasted.length, ignoredColumns: block.ignored, before, pasted, leftOut, clippedCells } });
         return;
       }
       if (block.cells.length === 0) return;
       const quotes = [...ws().quotes];
       const startRow = target ? Math.max(0, target.row) : quotes.length;
       const startCol = target ? QUOTE_COLUMNS.indexOf(target.column) : 0;
-      block.cells.forEach((cells, i) => {
+      // Rows past the cap are not added (a sheet already over it, from an older build, keeps its rows).
+      const lastRow = Math.max(LIMITS.quotes, quotes.length);
+      const { rows: cells, leftOut } = capRows(block.cells, LIMITS.quotes - Math.max(0, lastRow - startRow));
+      cells.forEach((rowCells, i) => {
         const at = startRow + i;
         const base = quotes[at] ?? newRow();
         const patch: Partial<Record<QuoteColumn, string>> = {};
-        cells.forEach((value, j) => {
+        rowCells.forEach((value, j) => {
           const col = QUOTE_COLUMNS[startCol + j];
-          if (col) patch[col] = value;
+          if (col) {
+            if (value.length > LIMITS.cell) clippedCells++;
+            patch[col] = capCell(value);
+          }
         });
         const row = { ...base, ...patch };
         if (at < quotes.length) quotes[at] = row;
         else quotes.push(row);
       });
-      get().commit(withQuotes(quotes), 'paste');
-      set({ pasteNotice: { mode: 'filled', rows: block.cells.length, ignoredColumns: [] } });
+      if (cells.length > 0) get().commit(withQuotes(quotes), 'paste');
+      set({ pasteNotice: { mode: 'filled', rows: cells.length, ignoredColumns: [], leftOut, clippedCells } });
     },
     appendInstead() {
       const notice = get().pasteNotice;
-      if (!notice || notice.mode !== 'replaced' || !notice.before || !notice.pasted) return;
-      const quotes = [...notice.before, ...notice.pasted.map((r) => newRow(r))];
+      if (!notice || notice.mode !== 'replaced' || !notice.before || !notice.pasted || get().readOnly) return;
+      const { rows: appended, leftOut } = capRows(notice.pasted, notice.before.length);
+      const quotes = [...notice.before, ...appended.map((r) => newRow(r))];
       // Replace the paste's own undo step: the result is one step from the sheet before the paste.
       const s = get();
       const prior = s.past[s.past.length - 1];
       if (prior && prior.quotes === notice.before) {
         set({ workspace: { ...ws(), quotes }, future: [] });
       } else get().commit(withQuotes(quotes), 'paste (append)');
-      set({ pasteNotice: { mode: 'appended', rows: notice.pasted.length, ignoredColumns: notice.ignoredColumns } });
+      set({ pasteNotice: { mode: 'appended', rows: appended.length, ignoredColumns: notice.ignoredColumns, leftOut: leftOut + (notice.leftOut ?? 0), clippedCells: notice.clippedCells ?? 0 } });
     },
     setReserved(key, value) {
       const next = { ...ws() } as Record<string, unknown>;

@@ -1,0 +1,181 @@
+// Nothing lost, nothing silently changed, in the store and its saved entry: one row cap for typing,
+// adding and paste (the first rows kept, the rest counted); a document naming settings this build
+// does not know opens read-only (no edit, no undo, no save over the user's own workspace) until the
+// user makes an editable copy with choices they saw; a saved entry not restored exactly as saved
+// (entries that are not rows, rows over the cap, unknown settings) says what and where and is kept
+// whole. Invented documents only.
+import { LIMITS, unknownSettings, type WorkbenchDocument } from '../../src/core/index.ts';
+import { KEPT_PREFIX, startPersistence, STORAGE_KEY, type PersistenceDeps } from '../../src/state/persistence.ts';
+import { useAppStore } from '../../src/state/store.ts';
+import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
+
+const initial = useAppStore.getInitialState();
+const s = () => useAppStore.getState();
+
+class MemoryStorage {
+  map = new Map<string, string>();
+  getItem(k: string): string | null {
+    return this.map.get(k) ?? null;
+  }
+  setItem(k: string, v: string): void {
+    this.map.set(k, v);
+  }
+}
+let stop: (() => void) | null = null;
+const start = (storage: MemoryStorage, tabId = 'tabA'): void => {
+  const deps: PersistenceDeps = { storage, openChannel: null, target: null, now: () => 1_000, tabId };
+  stop = startPersistence(deps);
+};
+const entry = (workspace: unknown, stamp = 'old:7'): string => JSON.stringify({ app: 'tenorscope', stamp, writer: 'old', savedAt: 5, workspace });
+
+beforeEach(() => {
+  vi.useFakeTimers();
+  useAppStore.setState(initial, true);
+});
+afterEach(() => {
+  stop?.();
+  stop = null;
+  vi.useRealTimers();
+});
+
+/** A tab-separated block with a header and `n` swap rows. */
+const block = (n: number): string => ['Kind\tTenor\tRate', ...Array.from({ length: n }, (_, i) => `swap\t${1 + (i % 30)}Y\t${(3 + i / 1000).toFixed(3)}`)].join('\n');
+
+describe('one row cap for every way in', () => {
+  it('a 600-row paste with a header keeps the first 500 rows and says 100 were left out', () => {
+    s().pasteText(block(600), null);
+    expect(s().workspace.quotes).toHaveLength(LIMITS.quotes);
+    expect(s().workspace.quotes[499]!.maturity).toBe(`${1 + (499 % 30)}Y`);
+    expect(s().pasteNotice).toMatchObject({ mode: 'replaced', rows: 500, leftOut: 100 });
+    // "Append instead" respects the cap too: the sheet before (19 demo rows) plus the first 481 of the 600 (119 left out).
+    s().appendInstead();
+    expect(s().workspace.quotes).toHaveLength(LIMITS.quotes);
+    expect(s().pasteNotice).toMatchObject({ mode: 'appended', rows: 481, leftOut: 119 });
+  });
+
+  it('a block without a header fills from the focused cell up to the cap and counts the rest', () => {
+    s().pasteText(block(600), null);
+    const rows = Array.from({ length: 30 }, (_, i) => `bond\t2031-06-15\t\t99.5\t${i}`).join('\n');
+    s().pasteText(rows, { row: 480, column: 'kind' });
+    expect(s().workspace.quotes).toHaveLength(LIMITS.quotes);
+    expect(s().workspace.quotes[499]!.kind).toBe('bond');
+    expect(s().pasteNotice).toMatchObject({ mode: 'filled', rows: 20, leftOut: 10 });
+  });
+
+  it('a full sheet adds no row; a typed or pasted cell stops at the cell cap', () => {
+    s().pasteText(block(500), null);
+    const before = s().workspace;
+    expect(s().addRow(null)).toBe('');
+    expect(s().workspace).toBe(before);
+    const id = s().workspace.quotes[0]!.id;
+    s().setCell(id, 'rate', '1'.repeat(LIMITS.cell + 10));
+    expect(s().workspace.quotes[0]!.rate).toHaveLength(LIMITS.cell);
+    s().pasteText(`${'x'.repeat(100)}\t5Y`, { row: 1, column: 'kind' });
+    expect(s().workspace.quotes[1]!.kind).toHaveLength(LIMITS.cell);
+    expect(s().pasteNotice).toMatchObject({ clippedCells: 1 });
+  });
+});
+
+describe('a document with settings this build does not know', () => {
+  const foreign = (): WorkbenchDocument => {
+    const d = demoWorkspace(() => `f${Math.random()}`) as unknown as Record<string, unknown>;
+    return { ...d, curve: { ...(d.curve as object), interpolation: 'cubic-tension' } } as unknown as WorkbenchDocument;
+  };
+
+  it('is shown as it is, read-only: no edit, no undo, no save; an editable copy takes the shown choice and is one undo step', () => {
+    const storage = new MemoryStorage();
+    start(storage);
+    const id0 = s().workspace.quotes[0]!.id;
+    s().setCell(id0, 'rate', '4.01');
+    vi.advanceTimersByTime(300);
+    const mine = storage.getItem(STORAGE_KEY);
+    const myWorkspace = s().workspace;
+    const doc = foreign();
+    s().openReadOnly(doc, unknownSettings(doc), 'link');
+    expect(s().readOnly?.unknowns.map((u) => u.path)).toEqual(['curve.interpolation']);
+    expect(s().workspace.curve.interpolation).toBe('cubic-tension');
+    const shown = s().workspace;
+    s().setCell(shown.quotes[0]!.id, 'rate', '9.99');
+    s().setCurve({ interpolation: 'linear-zero' });
+    s().pasteText(block(3), null);
+    s().addRow(null);
+    s().setReserved('note', 'changed');
+    s().undo();
+    s().resetToDemo();
+    expect(s().workspace).toBe(shown);
+    vi.advanceTimersByTime(1000);
+    expect(storage.getItem(STORAGE_KEY)).toBe(mine); // nothing written over the user's own workspace
+    s().makeEditableCopy({ 'curve.interpolation': 'log-linear-discount' });
+    expect(s().readOnly).toBeNull();
+    expect(s().workspace.curve.interpolation).toBe('log-linear-discount');
+    expect(s().workspace.quotes.map((q) => q.rate)).toEqual(shown.quotes.map((q) => q.rate));
+    s().undo();
+    expect(s().workspace).toBe(myWorkspace);
+  });
+
+  it('can be closed, bringing back the workspace and history from before', () => {
+    const id0 = s().workspace.quotes[0]!.id;
+    s().setCell(id0, 'rate', '4.02');
+    const mine = s().workspace;
+    const doc = foreign();
+    s().openReadOnly(doc, unknownSettings(doc), 'file');
+    s().closeReadOnly();
+    expect(s().workspace).toBe(mine);
+    expect(s().past).toHaveLength(1);
+  });
+});
+
+describe('restoring the saved entry', () => {
+  it('entries of the quote list that are not rows are counted and placed, and the entry is kept whole', () => {
+    const storage = new MemoryStorage();
+    const ws = demoWorkspace((() => { let n = 0; return () => `d${n++}`; })()) as unknown as Record<string, unknown>;
+    const quotes = [...(ws.quotes as unknown[])];
+    quotes.splice(2, 0, 'swap 5Y 3.1');
+    quotes.splice(5, 0, null);
+    const raw = entry({ ...ws, quotes });
+    storage.setItem(STORAGE_KEY, raw);
+    start(storage);
+    expect(s().workspace.quotes).toHaveLength(19);
+    expect(s().storage.restoreNotes).toEqual(['2 entries of the saved quote list are not a row and were left out (entry 3 and 6 of 21)']);
+    expect(s().storage.keptCopyKey).toBe(`${KEPT_PREFIX}old:7`);
+    expect(storage.getItem(`${KEPT_PREFIX}old:7`)).toBe(raw);
+  });
+
+  it('a 600-row workspace saved by an older build opens with its first 500 rows, says so, and keeps the entry whole', () => {
+    const storage = new MemoryStorage();
+    const ws = demoWorkspace(() => 'x') as unknown as Record<string, unknown>;
+    const rows = Array.from({ length: 600 }, (_, i) => ({ id: `r${i}`, enabled: true, kind: 'swap', maturity: `${1 + (i % 30)}Y`, rate: '3.1', price: '', coupon: '', frequency: '', dayCount: '' }));
+    const raw = entry({ ...ws, quotes: rows });
+    storage.setItem(STORAGE_KEY, raw);
+    start(storage);
+    expect(s().workspace.quotes).toHaveLength(500);
+    expect(s().workspace.quotes[499]!.id).toBe('r499');
+    expect(s().storage.restoreNotes[0]).toBe('the saved workspace has 600 quotes, more than the 500 a workspace may hold: the first 500 are open and 100 were left out');
+    expect(storage.getItem(s().storage.keptCopyKey!)).toBe(raw);
+  });
+
+  it('a saved entry naming an interpolation this build does not know opens read-only and is not overwritten', () => {
+    const storage = new MemoryStorage();
+    const ws = demoWorkspace(() => 'y') as unknown as Record<string, unknown>;
+    const raw = entry({ ...ws, curve: { ...(ws.curve as object), interpolation: 'cubic-tension' } });
+    storage.setItem(STORAGE_KEY, raw);
+    start(storage);
+    expect(s().readOnly).toMatchObject({ source: 'saved' });
+    expect(s().workspace.curve.interpolation).toBe('cubic-tension');
+    s().setCell(s().workspace.quotes[0]!.id, 'rate', '1');
+    vi.advanceTimersByTime(1000);
+    expect(storage.getItem(STORAGE_KEY)).toBe(raw);
+  });
+
+  it('a saved undo history with a step that cannot be read: the workspace opens, and the lost history is said and kept', () => {
+    const storage = new MemoryStorage();
+    const ws = demoWorkspace(() => 'h');
+    const raw = JSON.stringify({ app: 'tenorscope', stamp: 'old:9', writer: 'old', savedAt: 5, workspace: ws, history: { past: [ws, { nonsense: true }], future: [] } });
+    storage.setItem(STORAGE_KEY, raw);
+    start(storage);
+    expect(s().workspace.quotes).toHaveLength(19);
+    expect(s().past).toHaveLength(0);
+    expect(s().storage.restoreNotes).toEqual(['a step of the saved undo history could not be read, so undo starts afresh']);
+    expect(storage.getItem(`${KEPT_PREFIX}old:9`)).toBe(raw);
+  });
+});
