@@ -12,6 +12,7 @@ import {
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { useRowWindow, WINDOW_FROM_ROWS } from './useRowWindow.ts';
+import { PastePreview } from './PastePreview.tsx';
 
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
 /** Short column headings (the full names label the cells). */
@@ -170,7 +171,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const unit = useAppStore((s) => s.workspace.quoteUnit);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
   const notice = useAppStore((s) => s.pasteNotice);
-  const { setQuoteUnit, addRow, sortByMaturity, pasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
+  const { setQuoteUnit, addRow, sortByMaturity, previewPasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
   const gridRef = useRef<HTMLTableElement>(null);
   const scrollRef = useRef<HTMLDivElement>(null);
   // The row holding the focus, kept rendered in a windowed sheet (tracked only when windowed).
@@ -198,9 +199,9 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
       const el = e.target as HTMLElement;
       const row = el.dataset?.row;
       const col = el.dataset?.col as QuoteColumn | undefined;
-      pasteText(text, row !== undefined && col ? { row: Number(row), column: col } : null);
+      previewPasteText(text, row !== undefined && col ? { row: Number(row), column: col } : null);
     },
-    [pasteText],
+    [previewPasteText],
   );
 
   const onKeyDown = (e: KeyboardEvent<HTMLTableElement>): void => {
@@ -262,8 +263,10 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         {result.disabledCount > 0 && <span> · {result.disabledCount} switched off</span>}
         {result.conversion.blankRows > 0 && <span> · {result.conversion.blankRows} empty</span>}
       </p>
+      <PastePreview />
       {notice && (
         <div className="notice" role="status">
+          {notice.mode === 'refused' && <>Nothing was pasted: {notice.message}.</>}
           {notice.mode === 'replaced' && <>Pasted {notice.rows} rows with a header; they replace the sheet.</>}
           {notice.mode === 'appended' && <>Pasted {notice.rows} rows, appended to the sheet.</>}
           {notice.mode === 'filled' && <>Pasted {notice.rows} rows from the focused cell.</>}
@@ -273,9 +276,11 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
               Append instead
             </button>
           )}{' '}
-          <button type="button" onClick={() => useAppStore.getState().undo()}>
-            Undo paste
-          </button>{' '}
+          {notice.mode !== 'refused' && (
+            <button type="button" onClick={() => useAppStore.getState().undo()}>
+              Undo paste
+            </button>
+          )}{' '}
           <button type="button" className="linklike" onClick={dismissPasteNotice} aria-label="Dismiss paste notice">
             Dismiss
           </button>
@@ -339,8 +344,8 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         </table>
       </div>
       <p id="sheet-help" className="help">
-        Paste rows from a spreadsheet or CSV onto any cell. A header row (kind, maturity, rate, price, coupon, frequency, day count) replaces the sheet; rows without a header
-        fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y or 2031-11-15; prices per 100 (99.875 or 99-28).
+        Paste rows from a spreadsheet or CSV onto any cell. A header row (kind or type, maturity or tenor, rate or yield, price or px, coupon or cpn, frequency, day count) shows
+        how each column is read before you replace or append to the sheet; rows without a header fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y or 2031-11-15; prices per 100 (99.875 or 99-28).
       </p>
     </section>
   );

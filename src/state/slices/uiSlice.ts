@@ -1,15 +1,23 @@
 import type { StateCreator } from 'zustand';
-import type { QuoteRow, RowText } from '../../core/index.ts';
+import type { PastedBlock, PastePreview, QuoteRow, RowText } from '../../core/index.ts';
 import type { AppState } from '../appState.ts';
 
 /** What the last paste did, so the user can choose to append instead. */
 export interface PasteNotice {
-  readonly mode: 'replaced' | 'filled' | 'appended';
+  /** refused: a header paste that would have left no quote (or too many rows) did nothing; `message` says why. */
+  readonly mode: 'replaced' | 'filled' | 'appended' | 'refused';
+  readonly message?: string;
   readonly rows: number;
   readonly ignoredColumns: readonly string[];
   /** For a replace: the quotes before it and the pasted rows, to append instead. */
   readonly before?: readonly QuoteRow[];
   readonly pasted?: readonly RowText[];
+}
+
+/** A header paste waiting for the user's choice, with how each column was read. */
+export interface PendingPaste {
+  readonly block: PastedBlock;
+  readonly preview: PastePreview & { readonly appendRefusal: string | null };
 }
 
 /** Where the workspace is kept and what went wrong keeping it. */
@@ -32,10 +40,13 @@ export interface UiSlice {
   /** The sheet row whose schedule and repricing details are open. */
   selectedRowId: string | null;
   pasteNotice: PasteNotice | null;
+  /** A header paste shown as a column-mapping preview; nothing is replaced until the user confirms. */
+  pendingPaste: PendingPaste | null;
   storage: StorageStatus;
   setActiveTab(tab: TabId): void;
   selectRow(id: string | null): void;
   dismissPasteNotice(): void;
+  cancelPaste(): void;
   setStorage(patch: Partial<StorageStatus>): void;
 }
 
@@ -45,9 +56,11 @@ export const createUiSlice: StateCreator<AppState, [], [], UiSlice> = (set) => (
   activeTab: 'key-maturities',
   selectedRowId: null,
   pasteNotice: null,
+  pendingPaste: null,
   storage: INITIAL_STORAGE,
   setActiveTab: (tab) => set({ activeTab: tab }),
   selectRow: (id) => set({ selectedRowId: id }),
   dismissPasteNotice: () => set({ pasteNotice: null }),
+  cancelPaste: () => set({ pendingPaste: null }),
   setStorage: (patch) => set((s) => ({ storage: { ...s.storage, ...patch } })),
 });

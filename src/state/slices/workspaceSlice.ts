@@ -1,8 +1,11 @@
 import type { StateCreator } from 'zustand';
 import {
   EMPTY_ROW_TEXT,
+  pasteQuoteCap,
+  previewPaste,
   QUOTE_COLUMNS,
   readPastedBlock,
+  type PastedBlock,
   rewriteBareRate,
   type DisplaySettings,
   type QuoteColumn,
@@ -43,6 +46,13 @@ export interface WorkspaceSlice {
    * instead); without one it fills from the target cell in column order.
    */
   pasteText(text: string, target: PasteTarget | null): void;
+  /**
+   * The sheet's paste: a block with a header is shown as a column-mapping preview (`pendingPaste`)
+   * and nothing changes until `confirmPaste`; a block without one fills from the target cell.
+   */
+  previewPasteText(text: string, target: PasteTarget | null): void;
+  /** Applies the previewed paste: replacing the sheet (refused when it would leave no quote) or appended. */
+  confirmPaste(how: 'replace' | 'append'): void;
   /** Turns the last replacing paste into an append (one undo step either way). */
   appendInstead(): void;
   setReserved(key: ReservedKey, value: unknown): void;
@@ -57,6 +67,50 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
   const ws = (): WorkbenchDocument => get().workspace;
   const withQuotes = (quotes: readonly QuoteRow[]): WorkbenchDocument => ({ ...ws(), quotes });
   const mapRow = (rowId: string, f: (r: QuoteRow) => QuoteRow): readonly QuoteRow[] => ws().quotes.map((r) => (r.id === rowId ? f(r) : r));
+  /** A header paste: replaces the sheet or appends to it, unless the preview refuses (no quote, over the cap). */
+  const applyHeaderPaste = (block: PastedBlock, how: 'replace' | 'append'): void => {
+    const before = ws().quotes;
+    const preview = previewPaste(block, ws().quoteUnit, before.length);
+    const refusal = how === 'replace' ? preview.refusal : preview.appendRefusal;
+    if (refusal) {
+      set({ pasteNotice: { mode: 'refused', rows: block.rows.length, ignoredColumns: block.ignored, message: refusal } });
+      return;
+    }
+    const pasted = block.rows;
+    if (how === 'replace') {
+      get().commit(withQuotes(pasted.map((r) => newRow(r))), 'paste (replace sheet)');
+      set({ pasteNotice: { mode: 'replaced', rows: pasted.length, ignoredColumns: block.ignored, before, pasted } });
+    } else {
+      get().commit(withQuotes([...before, ...pasted.map((r) => newRow(r))]), 'paste (append)');
+      set({ pasteNotice: { mode: 'appended', rows: pasted.length, ignoredColumns: block.ignored } });
+    }
+  };
+  /** A header-less paste: fills from the target cell in column order, adding rows past the end. */
+  const fillFrom = (block: PastedBlock, target: PasteTarget | null): void => {
+    if (block.cells.length === 0) return;
+    const quotes = [...ws().quotes];
+    const startRow = target ? Math.max(0, target.row) : quotes.length;
+    const startCol = target ? QUOTE_COLUMNS.indexOf(target.column) : 0;
+    block.cells.forEach((cells, i) => {
+      const at = startRow + i;
+      const base = quotes[at] ?? newRow();
+      const patch: Partial<Record<QuoteColumn, string>> = {};
+      cells.forEach((value, j) => {
+        const col = QUOTE_COLUMNS[startCol + j];
+        if (col) patch[col] = value;
+      });
+      const row = { ...base, ...patch };
+      if (at < quotes.length) quotes[at] = row;
+      else quotes.push(row);
+    });
+    const cap = pasteQuoteCap();
+    if (quotes.length > cap) {
+      set({ pasteNotice: { mode: 'refused', rows: block.cells.length, ignoredColumns: [], message: `the paste would make ${quotes.length} rows; the sheet holds at most ${cap} quotes. Paste fewer rows` } });
+      return;
+    }
+    get().commit(withQuotes(quotes), 'paste');
+    set({ pasteNotice: { mode: 'filled', rows: block.cells.length, ignoredColumns: [] } });
+  };
   return {
     workspace: demoWorkspace(makeRowId),
     setCell(rowId, column, text) {
@@ -111,31 +165,23 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     pasteText(text, target) {
       const block = readPastedBlock(text);
-      if (block.header) {
-        const before = ws().quotes;
-        const pasted = block.rows;
-        get().commit(withQuotes(pasted.map((r) => newRow(r))), 'paste (replace sheet)');
-        set({ pasteNotice: { mode: 'replaced', rows: pasted.length, ignoredColumns: block.ignored, before, pasted } });
+      if (block.header) applyHeaderPaste(block, 'replace');
+      else fillFrom(block, target);
+    },
+    previewPasteText(text, target) {
+      const block = readPastedBlock(text);
+      if (!block.header) {
+        set({ pendingPaste: null });
+        fillFrom(block, target);
         return;
       }
-      if (block.cells.length === 0) return;
-      const quotes = [...ws().quotes];
-      const startRow = target ? Math.max(0, target.row) : quotes.length;
-      const startCol = target ? QUOTE_COLUMNS.indexOf(target.column) : 0;
-      block.cells.forEach((cells, i) => {
-        const at = startRow + i;
-        const base = quotes[at] ?? newRow();
-        const patch: Partial<Record<QuoteColumn, string>> = {};
-        cells.forEach((value, j) => {
-          const col = QUOTE_COLUMNS[startCol + j];
-          if (col) patch[col] = value;
-        });
-        const row = { ...base, ...patch };
-        if (at < quotes.length) quotes[at] = row;
-        else quotes.push(row);
-      });
-      get().commit(withQuotes(quotes), 'paste');
-      set({ pasteNotice: { mode: 'filled', rows: block.cells.length, ignoredColumns: [] } });
+      set({ pendingPaste: { block, preview: previewPaste(block, ws().quoteUnit, ws().quotes.length) } });
+    },
+    confirmPaste(how) {
+      const pending = get().pendingPaste;
+      if (!pending) return;
+      set({ pendingPaste: null });
+      applyHeaderPaste(pending.block, how);
     },
     appendInstead() {
       const notice = get().pasteNotice;
@@ -145,7 +191,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       const s = get();
       const prior = s.past[s.past.length - 1];
       if (prior && prior.quotes === notice.before) {
-        set({ workspace: { ...ws(), quotes }, future: [] });
+        set({ workspace: { ...ws(), quotes }, future: [], lastEditKey: null });
       } else get().commit(withQuotes(quotes), 'paste (append)');
       set({ pasteNotice: { mode: 'appended', rows: notice.pasted.length, ignoredColumns: notice.ignoredColumns } });
     },
@@ -157,7 +203,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     replaceWorkspace(doc, label) {
       get().commit(doc, label);
-      set({ selectedRowId: null, pasteNotice: null });
+      set({ selectedRowId: null, pasteNotice: null, pendingPaste: null });
     },
     resetToDemo() {
       get().replaceWorkspace(demoWorkspace(makeRowId), 'reset to demo');
