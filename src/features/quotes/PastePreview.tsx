@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { QUOTE_COLUMN_LABEL } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 
@@ -11,10 +12,23 @@ const SEPARATOR_TEXT: Readonly<Record<string, string>> = { '\t': 'tabs', ',': 'c
 export function PastePreview() {
   const pending = useAppStore((s) => s.pendingPaste);
   const { confirmPaste, cancelPaste } = useAppStore.getState();
+  const ref = useRef<HTMLElement>(null);
+  // The choice is the next step: focus its first enabled button (Enter replaces, Escape cancels).
+  useEffect(() => {
+    ref.current?.querySelector<HTMLButtonElement>('.paste-actions button:not(:disabled)')?.focus();
+  }, [pending]);
   if (!pending) return null;
   const { block, preview } = pending;
   return (
-    <section className="notice paste-preview" role="region" aria-labelledby="paste-preview-title">
+    <section
+      ref={ref}
+      className="notice paste-preview"
+      role="region"
+      aria-labelledby="paste-preview-title"
+      onKeyDown={(e) => {
+        if (e.key === 'Escape') cancelPaste();
+      }}
+    >
       <h3 id="paste-preview-title" className="paste-preview-title">
         Paste preview: {preview.rows} {preview.rows === 1 ? 'row' : 'rows'} split on {SEPARATOR_TEXT[block.separator]}; {preview.quotes} read as quotes
         {preview.withErrors > 0 && <>, {preview.withErrors} with cells to fix</>}. Nothing has changed yet.
