@@ -67,8 +67,36 @@ export function readRate(text: string, mode: QuoteUnitMode): CellParse<RateReadi
 }
 
 /**
+ * A hint when a bare number is implausible for the unit it is read in, in both directions (the
+ * value is kept; the hint says what it would be in the other reading):
+ * - percent mode, 0 < |x| < 0.1: probably a decimal (0.0315 is 0.0315 %; did you mean 3.15 %?);
+ * - percent mode, |x| >= 100: probably basis points (345 is 345 %; did you mean 3.45 %?);
+ * - bp mode, 0 < |x| < 1: probably a decimal (0.0325 bp; did you mean 3.25 %?).
+ * Thresholds: rates on this sheet's instruments have stayed between about -1 % and 20 % in the
+ * major currencies (from memory of published central-bank and market series), so 0.1 % as a bare
+ * percent and 100 % are where a unit slip is likelier than the value.
+ */
+export function rateUnitHint(typed: Decimal, mode: QuoteUnitMode, what: string): string | null {
+  const a = typed.abs();
+  if (a.isZero()) return null;
+  const x = typed.toFixed();
+  if (mode === 'percent' && a.lt(0.1)) {
+    return `${x} in % mode is a ${what} of ${x}%: did you mean ${typed.times(100).toFixed()}%? If so type ${typed.times(100).toFixed()}, or switch the unit to decimal`;
+  }
+  if (mode === 'percent' && a.gte(100)) {
+    return `${x} in % mode is ${x}%: did you mean ${typed.div(100).toFixed()}%? If so type ${typed.div(100).toFixed()}, or ${x}bp, or switch the unit to bp`;
+  }
+  if (mode === 'bp' && a.lt(1)) {
+    return `${x} in bp mode is ${x}bp (${typed.div(100).toFixed()}%): did you mean ${typed.times(100).toFixed()}%? If so type ${typed.times(10000).toFixed()}, or switch the unit to decimal`;
+  }
+  return null;
+}
+
+/**
  * Reads and range-checks a rate, yield or coupon cell. `what` names the field ("rate", "coupon").
  * In decimal mode a bare value above 1 in size is out of range and the message asks "did you mean %?".
+ * A bare value implausible for the mode's unit gets the hint of `rateUnitHint` (as the message
+ * when the value is out of range, as a warning when it is kept).
  */
 export function parseRateText(text: string, mode: QuoteUnitMode, what: string, min = RATE_MIN, max = RATE_MAX): CellParse<number> {
   const r = readRate(text, mode);
@@ -77,10 +105,12 @@ export function parseRateText(text: string, mode: QuoteUnitMode, what: string, m
   if (mode === 'decimal' && bare && typed.abs().gt(1)) {
     return bad(`${typed.toFixed()} in decimal mode is ${typed.times(100).toFixed()}%: did you mean ${typed.toFixed()}%? Type ${typed.toFixed()}% or ${typed.div(100).toFixed()}, or switch the unit to %`);
   }
+  const hint = bare ? rateUnitHint(typed, mode, what) : null;
   if (!(rate >= min && rate <= max)) {
-    return bad(`${what} ${pctText(rate)} is out of range; a ${what} must be from ${pctText(min)} to ${pctText(max)}`);
+    const range = `${what} ${pctText(rate)} is out of range; a ${what} must be from ${pctText(min)} to ${pctText(max)}`;
+    return bad(hint ? `${range}. ${hint}` : range);
   }
-  return good(rate);
+  return hint ? { ok: true, value: rate, warning: hint } : good(rate);
 }
 
 export const parseCouponText = (text: string, mode: QuoteUnitMode): CellParse<number> => parseRateText(text, mode, 'coupon', 0, COUPON_MAX);
