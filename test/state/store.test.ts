@@ -146,6 +146,29 @@ describe('setQuoteUnit', () => {
   });
 });
 
+describe('setConventions', () => {
+  it('switching the date order re-writes numeric dates so each keeps its date, undoably', () => {
+    const id = s().workspace.quotes[0]!.id;
+    s().setCell(id, 'maturity', '11/12/2027');
+    s().endEdit();
+    s().setConventions({ dateOrder: 'dmy' });
+    expect(s().workspace.display.dateOrder).toBe('dmy');
+    expect(s().workspace.quotes[0]!.maturity).toBe('12/11/2027');
+    s().undo();
+    expect(s().workspace.quotes[0]!.maturity).toBe('11/12/2027');
+  });
+  it('a unit switch with the decimal comma keeps values and the comma: 4,28 % is 428 bp, 0,0428 decimal', () => {
+    const id = s().workspace.quotes[0]!.id;
+    s().setConventions({ decimalMark: ',' });
+    s().setCell(id, 'rate', '4,28');
+    s().endEdit();
+    s().setQuoteUnit('decimal');
+    expect(s().workspace.quotes[0]!.rate).toBe('0,0428');
+    s().setQuoteUnit('bp');
+    expect(s().workspace.quotes[0]!.rate).toBe('428');
+  });
+});
+
 describe('setReserved', () => {
   it('stores other panels\u2019 keys in the document, undoably', () => {
     s().setReserved('note', 'committee draft');

@@ -10,3 +10,5 @@ export * from './pasteTable.ts';
 export * from './workbenchDocument.ts';
 export * from './quoteSchedule.ts';
 export * from './curveSampler.ts';
+export * from './dateText.ts';
+export * from './conventions.ts';

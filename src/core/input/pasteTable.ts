@@ -2,6 +2,7 @@ import { dsvFormat } from 'd3-dsv';
 import { LIMITS } from '../export/limits.ts';
 import { QUOTE_COLUMNS, parseRow, type QuoteColumn, type RowText } from './quoteRow.ts';
 import type { QuoteUnitMode } from './quoteText.ts';
+import { DEFAULT_CONVENTIONS, type InputConventions } from './conventions.ts';
 
 /** The delimiters a pasted block or a dropped file may use: tab (spreadsheets), comma (CSV), semicolon (CSV where the comma is the decimal mark). */
 export const PASTE_DELIMITERS = ['\t', ',', ';'] as const;
@@ -80,7 +81,7 @@ export function looksLikePrices(values: readonly string[]): boolean {
   const priceLike = filled.filter((v) => {
     const s = v.trim();
     if (/^\d+-\d{2}[+0-7]?$/.test(s)) return true;
-    const n = Number(s.replace(/,/g, ''));
+    const n = Number(s.replace(/^(\d+),(\d+)$/, '$1.$2').replace(/,/g, ''));
     return /^[+]?\d/.test(s) && Number.isFinite(n) && n >= 20 && n <= 200;
   }).length;
   return priceLike * 2 > filled.length;
@@ -180,11 +181,16 @@ export interface PastePreview {
  * sheet with no quote or with more than the quote cap. `existing` is the number of rows already
  * in the sheet (for an append, which must also stay under the cap).
  */
-export function previewPaste(block: PastedBlock, mode: QuoteUnitMode, existing = 0): PastePreview & { appendRefusal: string | null } {
+export function previewPaste(
+  block: PastedBlock,
+  mode: QuoteUnitMode,
+  existing = 0,
+  conventions: InputConventions = DEFAULT_CONVENTIONS,
+): PastePreview & { appendRefusal: string | null } {
   let quotes = 0;
   let withErrors = 0;
   block.rows.forEach((r, i) => {
-    const p = parseRow({ id: String(i), enabled: true, ...r }, mode);
+    const p = parseRow({ id: String(i), enabled: true, ...r }, mode, conventions);
     if (p.quote) quotes++;
     else if (!p.blank) withErrors++;
   });

@@ -1,7 +1,8 @@
 import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../workspace/validate.ts';
 import { QUOTE_KINDS, type QuoteKind } from '../workspace/types.ts';
 import { DAY_COUNTS, type DayCount } from '../time/dayCount.ts';
-import { parseIsoDate, type IsoDate } from '../time/date.ts';
+import type { IsoDate } from '../time/date.ts';
+import { parseDateText, type DateOrder } from './dateText.ts';
 import { formatTenor, parseTenor } from '../time/tenor.ts';
 import { Decimal, exactDecimal, nearestDouble, normaliseNumberText } from './decimalText.ts';
 
@@ -20,6 +21,9 @@ export const QUOTE_UNIT_LABEL: Readonly<Record<QuoteUnitMode, string>> = { perce
 export type CellParse<T> =
   | { readonly ok: true; readonly value: T; readonly warning?: string }
   | { readonly ok: false; readonly message: string };
+
+/** A hint for a number written with a decimal comma while the sheet reads a decimal point. */
+const commaHint = (s: string): string => (/^[+-]?\d+,\d+(%|bps?)?$/i.test(s) ? ` (to type a decimal comma, set the decimal mark to comma in the settings)` : '');
 
 const good = <T>(value: T): CellParse<T> => ({ ok: true, value });
 const bad = <T>(message: string): CellParse<T> => ({ ok: false, message });
@@ -62,7 +66,7 @@ export function readRate(text: string, mode: QuoteUnitMode): CellParse<RateReadi
     s = s.slice(0, lower.endsWith('bps') ? -3 : -2);
   }
   const d = exactDecimal(s);
-  if (!d) return bad(`"${text.trim()}" is not a number; type a rate such as 3.25%, 325bp or ${mode === 'decimal' ? '0.0325' : mode === 'bp' ? '325' : '3.25'}`);
+  if (!d) return bad(`"${text.trim()}" is not a number; type a rate such as 3.25%, 325bp or ${mode === 'decimal' ? '0.0325' : mode === 'bp' ? '325' : '3.25'}${commaHint(s)}`);
   return good({ rate: nearestDouble(d, SCALE[unit]), typed: d, unit, bare });
 }
 
@@ -132,23 +136,40 @@ export function parsePriceText(text: string): CellParse<number> {
       d = new Decimal(m32[1]!).plus(new Decimal(thirtySeconds).plus(extra).div(32));
     }
   }
-  if (!d) return bad(`"${text.trim()}" is not a price; type a price per 100 face such as 99.875, or points-32nds such as 99-28`);
+  if (!d) return bad(`"${text.trim()}" is not a price; type a price per 100 face such as 99.875, or points-32nds such as 99-28${commaHint(s)}`);
   const price = d.toNumber();
   if (!(price > 0 && price <= PRICE_MAX)) return bad(`price ${d.toFixed()} is out of range; a price per 100 face must be above 0 and at most ${PRICE_MAX}`);
   return good(price);
 }
 
-/** A maturity: a tenor from settlement (`3M`, `10y`) or a calendar date `YYYY-MM-DD`. */
+/** A maturity: a tenor from settlement (`3M`, `10y`) or a calendar date, kept as ISO `YYYY-MM-DD`. */
 export type MaturityText = { readonly tenor: string } | { readonly maturity: IsoDate };
 
-export function parseMaturityText(text: string): CellParse<MaturityText> {
+/**
+ * Money-market terms counted from the trade date with business-day calendars: overnight,
+ * tom-next, spot-next. The engine counts every maturity from settlement and has no business-day
+ * calendar yet, so these are refused with what is supported.
+ */
+const CALENDAR_TERMS: Readonly<Record<string, string>> = { ON: 'overnight', TN: 'tom-next', SN: 'spot-next' };
+
+/**
+ * A maturity: a tenor (`6M`, `10Y`) or a date as people type it (`2031-11-15`, `15-Nov-2031`,
+ * `15 Nov 31`, `Nov 15 2031`, or `11/15/2031` / `15/11/2031` by `dateOrder`; see `parseDateText`).
+ */
+export function parseMaturityText(text: string, dateOrder: DateOrder = 'mdy'): CellParse<MaturityText> {
   const s = text.trim();
-  if (s === '') return bad('maturity is required; type a tenor such as 3M or 10Y, or a date YYYY-MM-DD');
+  if (s === '') return bad('maturity is required; type a tenor such as 3M or 10Y, or a date such as 2031-11-15');
   const tenor = parseTenor(s);
   if (tenor) return good({ tenor: formatTenor(tenor) });
-  if (parseIsoDate(s)) return good({ maturity: s });
-  const hint = /^\d{4}-\d{2}-\d{2}$/.test(s) ? ' (that date does not exist)' : '';
-  return bad(`"${s}" is not a maturity${hint}; type a tenor such as 6M, 2Y or 30Y, or a date YYYY-MM-DD such as 2031-11-15`);
+  const term = CALENDAR_TERMS[s.toUpperCase().replace(/[\s/.\-]/g, '')];
+  if (term) {
+    return bad(`"${s}" (${term}) is not supported yet: it starts before settlement and needs business-day calendars. Type a tenor from settlement such as 1D, 1W or 1M, or a date`);
+  }
+  const date = parseDateText(s, dateOrder);
+  if (date?.ok) return good({ maturity: date.date });
+  const valid = `type a tenor such as 6M, 2Y or 30Y, or a date YYYY-MM-DD such as 2031-11-15 (also 15-Nov-2031 or ${dateOrder === 'mdy' ? '11/15/2031' : '15/11/2031'})`;
+  if (date) return bad(`${date.message}; ${valid}`);
+  return bad(`"${s}" is not a maturity; ${valid}`);
 }
 
 const KIND_ALIASES: Readonly<Record<string, QuoteKind>> = { depo: 'deposit', deposits: 'deposit', bills: 'bill', zeros: 'zero', bonds: 'bond', swaps: 'swap', irs: 'swap', strip: 'zero' };

@@ -1,6 +1,12 @@
 import { memo, useCallback, useMemo, useRef, useState, type ClipboardEvent, type FocusEvent, type KeyboardEvent } from 'react';
 import {
+  DATE_ORDER_LABEL,
+  DATE_ORDERS,
+  DECIMAL_MARK_LABEL,
+  DECIMAL_MARKS,
   looksLikeTable,
+  type DateOrder,
+  type DecimalMark,
   QUOTE_COLUMN_LABEL,
   QUOTE_COLUMNS,
   QUOTE_UNIT_MODES,
@@ -169,9 +175,11 @@ const QuoteRowView = memo(
 export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const rows = useAppStore((s) => s.workspace.quotes);
   const unit = useAppStore((s) => s.workspace.quoteUnit);
+  const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
+  const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
   const notice = useAppStore((s) => s.pasteNotice);
-  const { setQuoteUnit, addRow, sortByMaturity, previewPasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
+  const { setQuoteUnit, setConventions, addRow, sortByMaturity, previewPasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
   const gridRef = useRef<HTMLTableElement>(null);
   const scrollRef = useRef<HTMLDivElement>(null);
   // The row holding the focus, kept rendered in a windowed sheet (tracked only when windowed).
@@ -239,6 +247,26 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         <span id="unit-help" className="sr-only">
           How a rate, yield or coupon typed without % or bp is read. Switching re-writes bare numbers so their values stay the same.
         </span>
+        <label className="sheet-setting">
+          Dates
+          <select value={dateOrder} onChange={(e) => setConventions({ dateOrder: e.target.value as DateOrder })} title="How 11/12/2027 is read; numeric dates in the sheet are re-written to keep their dates">
+            {DATE_ORDERS.map((o) => (
+              <option key={o} value={o}>
+                {DATE_ORDER_LABEL[o]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="sheet-setting">
+          Decimal mark
+          <select value={decimalMark} onChange={(e) => setConventions({ decimalMark: e.target.value as DecimalMark })}>
+            {DECIMAL_MARKS.map((m) => (
+              <option key={m} value={m}>
+                {DECIMAL_MARK_LABEL[m]}
+              </option>
+            ))}
+          </select>
+        </label>
         <button
           type="button"
           onClick={() => {
@@ -345,7 +373,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
       </div>
       <p id="sheet-help" className="help">
         Paste rows from a spreadsheet or CSV onto any cell. A header row (kind or type, maturity or tenor, rate or yield, price or px, coupon or cpn, frequency, day count) shows
-        how each column is read before you replace or append to the sheet; rows without a header fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y or 2031-11-15; prices per 100 (99.875 or 99-28).
+        how each column is read before you replace or append to the sheet; rows without a header fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y, 2031-11-15, 15-Nov-2031 or a numeric date in the chosen order; prices per 100 (99.875 or 99-28).
       </p>
     </section>
   );

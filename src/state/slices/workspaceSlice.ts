@@ -1,6 +1,10 @@
 import type { StateCreator } from 'zustand';
 import {
   EMPTY_ROW_TEXT,
+  conventionsOf,
+  rewriteDateOrder,
+  withDecimalPoint,
+  type InputConventions,
   pasteQuoteCap,
   previewPaste,
   QUOTE_COLUMNS,
@@ -42,6 +46,12 @@ export interface WorkspaceSlice {
   /** Switches how bare numbers are read; bare rate and coupon texts are re-written so their values stay the same. */
   setQuoteUnit(mode: QuoteUnitMode): void;
   /**
+   * Sets how typed dates and numbers are read (date order, decimal mark). A numeric date is
+   * re-written in the new order so it keeps its date; a change of decimal mark changes no value
+   * read before (numbers without a comma read the same either way).
+   */
+  setConventions(patch: Partial<InputConventions>): void;
+  /**
    * Pastes a block. With a header row it replaces the sheet (the notice offers to append
    * instead); without one it fills from the target cell in column order.
    */
@@ -70,7 +80,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
   /** A header paste: replaces the sheet or appends to it, unless the preview refuses (no quote, over the cap). */
   const applyHeaderPaste = (block: PastedBlock, how: 'replace' | 'append'): void => {
     const before = ws().quotes;
-    const preview = previewPaste(block, ws().quoteUnit, before.length);
+    const preview = previewPaste(block, ws().quoteUnit, before.length, conventionsOf(ws()));
     const refusal = how === 'replace' ? preview.refusal : preview.appendRefusal;
     if (refusal) {
       set({ pasteNotice: { mode: 'refused', rows: block.rows.length, ignoredColumns: block.ignored, message: refusal } });
@@ -138,7 +148,8 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     sortByMaturity() {
       const settlement = ws().settlement;
-      const keyed = ws().quotes.map((r, i) => ({ r, i, k: maturitySortKey(r.maturity, settlement) }));
+      const order = conventionsOf(ws()).dateOrder;
+      const keyed = ws().quotes.map((r, i) => ({ r, i, k: maturitySortKey(r.maturity, settlement, order) }));
       keyed.sort((a, b) => a.k - b.k || a.i - b.i);
       if (keyed.every((x, i) => x.i === i)) return;
       get().commit(withQuotes(keyed.map((x) => x.r)), 'sort by maturity');
@@ -156,12 +167,32 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     setQuoteUnit(mode) {
       const from = ws().quoteUnit;
       if (from === mode) return;
+      const mark = conventionsOf(ws()).decimalMark;
+      // With a decimal comma, the number is re-written through its point form and given its comma back.
+      const rewrite = (text: string): string => {
+        const point = withDecimalPoint(text, mark);
+        const out = rewriteBareRate(point, from, mode);
+        return out === point ? text : mark === ',' ? out.replace('.', ',') : out;
+      };
       const quotes = ws().quotes.map((r) => {
-        const rate = rewriteBareRate(r.rate, from, mode);
-        const coupon = rewriteBareRate(r.coupon, from, mode);
+        const rate = rewrite(r.rate);
+        const coupon = rewrite(r.coupon);
         return rate === r.rate && coupon === r.coupon ? r : { ...r, rate, coupon };
       });
       get().commit({ ...ws(), quoteUnit: mode, quotes }, 'quote unit');
+    },
+    setConventions(patch) {
+      const before = conventionsOf(ws());
+      const next = { ...before, ...patch };
+      if (next.dateOrder === before.dateOrder && next.decimalMark === before.decimalMark) return;
+      const quotes =
+        next.dateOrder === before.dateOrder
+          ? ws().quotes
+          : ws().quotes.map((r) => {
+              const maturity = rewriteDateOrder(r.maturity, before.dateOrder, next.dateOrder);
+              return maturity === r.maturity ? r : { ...r, maturity };
+            });
+      get().commit({ ...ws(), quotes, display: { ...ws().display, ...next } }, 'date and number settings');
     },
     pasteText(text, target) {
       const block = readPastedBlock(text);
@@ -175,7 +206,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
         fillFrom(block, target);
         return;
       }
-      set({ pendingPaste: { block, preview: previewPaste(block, ws().quoteUnit, ws().quotes.length) } });
+      set({ pendingPaste: { block, preview: previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())) } });
     },
     confirmPaste(how) {
       const pending = get().pendingPaste;
