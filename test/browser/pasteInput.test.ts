@@ -97,4 +97,51 @@ describe('typing and pasting in Chromium', () => {
     expect(await page.getByText(/quotes in the curve/).innerText()).toContain('2 quotes in the curve');
     expect(diagnostics(page).pageErrors).toEqual([]);
   });
+
+  it('a 5 MB one-line paste is refused at once with its cause (the size of the text), nothing changed', async () => {
+    const sheetBefore = await page.getByRole('grid', { name: /Quotes/ }).innerText();
+    await paste('x'.repeat(5_000_000));
+    const notice = page.getByRole('status').filter({ hasText: 'Nothing was pasted' });
+    await notice.waitFor();
+    expect(await notice.innerText()).toContain('the pasted text is 5.0 MB; a cell holds at most 64 characters');
+    expect(await page.getByRole('grid', { name: /Quotes/ }).innerText()).toBe(sheetBefore);
+    await paste(`kind,tenor,rate\n${'swap,5Y,4\n'.repeat(150_000)}`);
+    await page.getByRole('status').filter({ hasText: 'a paste is read up to 1.0 MB' }).waitFor();
+    expect(await page.getByRole('grid', { name: /Quotes/ }).innerText()).toBe(sheetBefore);
+  });
+
+  it('a large paste is read in a worker with progress shown, then previewed; more rows than the quote cap are refused', async () => {
+    // 20,000 rows (about 300 KB): over the 500-quote cap, under the text cap.
+    const rows = Array.from({ length: 20_000 }, (_, i) => `swap,${(i % 50) + 1}Y,4.${i % 10}`);
+    await page.getByRole('textbox', { name: 'Row 1 Kind' }).focus();
+    await page.evaluate((t) => {
+      // Records every progress line shown while the worker reads (they may come and go within frames).
+      const seen: string[] = [];
+      (window as unknown as { __progress: string[] }).__progress = seen;
+      new MutationObserver(() => {
+        const line = [...document.querySelectorAll('.notice[role="status"]')].map((n) => n.textContent ?? '').find((x) => x.startsWith('Reading the pasted text'));
+        if (line && seen[seen.length - 1] !== line) seen.push(line);
+      }).observe(document.body, { subtree: true, childList: true, characterData: true });
+      const dt = new DataTransfer();
+      dt.setData('text/plain', t);
+      document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
+    }, `kind,tenor,rate\n${rows.join('\n')}`);
+    const preview = page.getByRole('region', { name: /Paste preview/ });
+    await preview.waitFor({ timeout: 20_000 });
+    const progress = await page.evaluate(() => (window as unknown as { __progress: string[] }).__progress);
+    expect(progress[0]).toMatch(/^Reading the pasted text \(\d+ KB\)…/);
+    expect(progress).toContainEqual(expect.stringMatching(/: 20000 rows, checking them…/));
+    expect(await preview.getByRole('alert').innerText()).toMatch(/the paste has 20000 rows; the sheet holds at most 500 quotes/);
+    expect(await page.getByRole('button', { name: 'Replace the sheet' }).isDisabled()).toBe(true);
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    // 500 rows padded with a wide ignored column (about 100 KB) go through the worker and replace the sheet.
+    const wide = Array.from({ length: 500 }, (_, i) => `swap,${i + 1}M,4.${i % 10},${'n'.repeat(180)}`);
+    await paste(`kind,tenor,rate,note\n${wide.join('\n')}`);
+    await preview.waitFor({ timeout: 20_000 });
+    expect(await preview.innerText()).toContain('500 read as quotes');
+    await page.getByRole('button', { name: 'Replace the sheet' }).click();
+    await page.getByText('500 quotes in the curve').waitFor({ timeout: 20_000 });
+    expect(diagnostics(page).pageErrors).toEqual([]);
+    expect(diagnostics(page).consoleErrors).toEqual([]);
+  });
 });

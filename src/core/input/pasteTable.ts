@@ -1,5 +1,6 @@
 import { dsvFormat } from 'd3-dsv';
 import { LIMITS } from '../export/limits.ts';
+import { CELL_MAX } from '../export/workbenchShape.ts';
 import { QUOTE_COLUMNS, parseRow, type QuoteColumn, type RowText } from './quoteRow.ts';
 import type { QuoteUnitMode } from './quoteText.ts';
 import { DEFAULT_CONVENTIONS, type InputConventions } from './conventions.ts';
@@ -165,6 +166,33 @@ export function readPastedBlock(text: string): PastedBlock {
  */
 export const pasteQuoteCap = (): number => LIMITS.quotes;
 
+/**
+ * The most characters of pasted text read as a block: about 2,000 characters a row for the
+ * most rows the sheet takes, room for wide sheets with many ignored columns. Larger text is
+ * refused before it is read, so no paste can stall the page.
+ */
+export const PASTE_TEXT_MAX = 1_000_000;
+
+/** Text size in words: "5.2 MB", "340 KB", "812 characters" (decimal units, 1 MB = 10^6 characters of text). */
+export function textSizeWords(chars: number): string {
+  if (chars >= 1_000_000) return `${(chars / 1_000_000).toFixed(1)} MB`;
+  if (chars >= 10_000) return `${Math.round(chars / 1000)} KB`;
+  return `${chars} characters`;
+}
+
+/**
+ * Why pasted text is refused for its size, naming the cause, or null. A block (`table`) is
+ * refused above PASTE_TEXT_MAX characters; one cell's value above the cell cap (the longest
+ * cell a saved or shared workspace keeps).
+ */
+export function pasteSizeRefusal(chars: number, table: boolean): string | null {
+  if (table && chars > PASTE_TEXT_MAX) {
+    return `the pasted text is ${textSizeWords(chars)}; a paste is read up to ${textSizeWords(PASTE_TEXT_MAX)} (the sheet holds at most ${pasteQuoteCap()} quotes). Paste fewer rows`;
+  }
+  if (!table && chars > CELL_MAX) return `the pasted text is ${textSizeWords(chars)}; a cell holds at most ${CELL_MAX} characters`;
+  return null;
+}
+
 /** What a header paste would do, before anything is replaced. */
 export interface PastePreview {
   readonly rows: number;
@@ -187,15 +215,16 @@ export function previewPaste(
   existing = 0,
   conventions: InputConventions = DEFAULT_CONVENTIONS,
 ): PastePreview & { appendRefusal: string | null } {
+  const cap = pasteQuoteCap();
+  const n = block.rows.length;
   let quotes = 0;
   let withErrors = 0;
-  block.rows.forEach((r, i) => {
+  // Over the cap nothing is read further: the paste is refused whatever its rows hold.
+  if (n <= cap) block.rows.forEach((r, i) => {
     const p = parseRow({ id: String(i), enabled: true, ...r }, mode, conventions);
     if (p.quote) quotes++;
     else if (!p.blank) withErrors++;
   });
-  const cap = pasteQuoteCap();
-  const n = block.rows.length;
   let refusal: string | null = null;
   if (n > cap) refusal = `the paste has ${n} rows; the sheet holds at most ${cap} quotes. Paste at most ${cap} rows`;
   else if (quotes === 0) refusal = n === 0 ? 'the paste has a header but no rows; the sheet is kept as it was' : `none of the ${n} pasted rows reads as a quote; the sheet is kept as it was. Check the column mapping below`;
@@ -215,6 +244,7 @@ export function looksLikeTable(text: string): boolean {
   const body = text.replace(/\r\n?/g, '\n').replace(/\n+$/, '');
   if (body.includes('\t') || body.includes('\n')) return true;
   if (!body.includes(',') && !body.includes(';')) return false;
-  const first = (splitTable(body).cells[0] ?? [])[0] ?? '';
+  // Only the first cell decides: read the start of the line, never all of a long one.
+  const first = (splitTable(body.slice(0, 2000)).cells[0] ?? [])[0] ?? '';
   return headerColumn(first) !== null || /^(deposit|bill|zero|bond|swap)s?$/i.test(first);
 }

@@ -5,6 +5,8 @@ import {
   DECIMAL_MARK_LABEL,
   DECIMAL_MARKS,
   looksLikeTable,
+  pasteSizeRefusal,
+  textSizeWords,
   type DateOrder,
   type DecimalMark,
   QUOTE_COLUMN_LABEL,
@@ -19,6 +21,7 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { useRowWindow, WINDOW_FROM_ROWS } from './useRowWindow.ts';
 import { PastePreview } from './PastePreview.tsx';
+import { readPaste, WORKER_FROM_CHARS } from './pasteReader.ts';
 
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
 /** Short column headings (the full names label the cells). */
@@ -179,7 +182,9 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
   const notice = useAppStore((s) => s.pasteNotice);
-  const { setQuoteUnit, setConventions, addRow, sortByMaturity, previewPasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
+  const { setQuoteUnit, setConventions, addRow, sortByMaturity, appendInstead, dismissPasteNotice } = useAppStore.getState();
+  const progress = useAppStore((s) => s.pasteProgress);
+  const cancelReading = useRef<(() => void) | null>(null);
   const gridRef = useRef<HTMLTableElement>(null);
   const scrollRef = useRef<HTMLDivElement>(null);
   // The row holding the focus, kept rendered in a windowed sheet (tracked only when windowed).
@@ -199,18 +204,36 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const inCurve = new Set<number>();
   if (result.build.curve) for (const p of result.build.curve.pillars) inCurve.add(result.conversion.rowOfQuote[p.quote] ?? -1);
 
-  const onPaste = useCallback(
-    (e: ClipboardEvent<HTMLElement>) => {
-      const text = e.clipboardData.getData('text/plain');
-      if (!looksLikeTable(text)) return;
+  const onPaste = useCallback((e: ClipboardEvent<HTMLElement>) => {
+    const text = e.clipboardData.getData('text/plain');
+    const table = looksLikeTable(text);
+    const store = useAppStore.getState();
+    const tooBig = pasteSizeRefusal(text.length, table);
+    if (tooBig) {
       e.preventDefault();
-      const el = e.target as HTMLElement;
-      const row = el.dataset?.row;
-      const col = el.dataset?.col as QuoteColumn | undefined;
-      previewPasteText(text, row !== undefined && col ? { row: Number(row), column: col } : null);
-    },
-    [previewPasteText],
-  );
+      store.refusePaste(tooBig);
+      return;
+    }
+    if (!table) return;
+    e.preventDefault();
+    const el = e.target as HTMLElement;
+    const row = el.dataset?.row;
+    const col = el.dataset?.col as QuoteColumn | undefined;
+    const target = row !== undefined && col ? { row: Number(row), column: col } : null;
+    cancelReading.current?.();
+    const ws = store.workspace;
+    if (text.length >= WORKER_FROM_CHARS) store.setPasteProgress({ chars: text.length, rows: null });
+    cancelReading.current = readPaste(
+      { text, mode: ws.quoteUnit, existing: ws.quotes.length, conventions: { dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark } },
+      (done) => {
+        cancelReading.current = null;
+        const s = useAppStore.getState();
+        if (done.refusal) s.refusePaste(done.refusal);
+        else s.receivePastedBlock(done.block, target, done.preview);
+      },
+      (rows) => useAppStore.getState().setPasteProgress({ chars: text.length, rows }),
+    );
+  }, []);
 
   const onKeyDown = (e: KeyboardEvent<HTMLTableElement>): void => {
     const el = e.target as HTMLElement;
@@ -291,6 +314,23 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         {result.disabledCount > 0 && <span> · {result.disabledCount} switched off</span>}
         {result.conversion.blankRows > 0 && <span> · {result.conversion.blankRows} empty</span>}
       </p>
+      {progress && (
+        <div className="notice" role="status">
+          Reading the pasted text ({textSizeWords(progress.chars)})
+          {progress.rows === null ? '…' : `: ${progress.rows} rows, checking them…`}{' '}
+          <button
+            type="button"
+            className="linklike"
+            onClick={() => {
+              cancelReading.current?.();
+              cancelReading.current = null;
+              useAppStore.getState().setPasteProgress(null);
+            }}
+          >
+            Cancel
+          </button>
+        </div>
+      )}
       <PastePreview />
       {notice && (
         <div className="notice" role="status">

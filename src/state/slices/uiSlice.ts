@@ -42,11 +42,14 @@ export interface UiSlice {
   pasteNotice: PasteNotice | null;
   /** A header paste shown as a column-mapping preview; nothing is replaced until the user confirms. */
   pendingPaste: PendingPaste | null;
+  /** A large paste being read in a worker: its size and, once split, its rows. */
+  pasteProgress: { readonly chars: number; readonly rows: number | null } | null;
   storage: StorageStatus;
   setActiveTab(tab: TabId): void;
   selectRow(id: string | null): void;
   dismissPasteNotice(): void;
   cancelPaste(): void;
+  setPasteProgress(progress: UiSlice['pasteProgress']): void;
   setStorage(patch: Partial<StorageStatus>): void;
 }
 
@@ -57,10 +60,12 @@ export const createUiSlice: StateCreator<AppState, [], [], UiSlice> = (set) => (
   selectedRowId: null,
   pasteNotice: null,
   pendingPaste: null,
+  pasteProgress: null,
   storage: INITIAL_STORAGE,
   setActiveTab: (tab) => set({ activeTab: tab }),
   selectRow: (id) => set({ selectedRowId: id }),
   dismissPasteNotice: () => set({ pasteNotice: null }),
-  cancelPaste: () => set({ pendingPaste: null }),
+  cancelPaste: () => set({ pendingPaste: null, pasteProgress: null }),
+  setPasteProgress: (progress) => set({ pasteProgress: progress }),
   setStorage: (patch) => set((s) => ({ storage: { ...s.storage, ...patch } })),
 });

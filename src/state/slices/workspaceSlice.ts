@@ -19,6 +19,7 @@ import {
   type WorkbenchDocument,
 } from '../../core/index.ts';
 import type { AppState } from '../appState.ts';
+import type { PendingPaste } from './uiSlice.ts';
 import { demoWorkspace } from '../demoWorkspace.ts';
 import { makeRowId } from '../ids.ts';
 import { maturitySortKey } from '../maturitySort.ts';
@@ -61,6 +62,10 @@ export interface WorkspaceSlice {
    * and nothing changes until `confirmPaste`; a block without one fills from the target cell.
    */
   previewPasteText(text: string, target: PasteTarget | null): void;
+  /** previewPasteText for a block already read (by the paste worker), with its preview when it has a header. */
+  receivePastedBlock(block: PastedBlock, target: PasteTarget | null, preview?: PendingPaste['preview'] | null): void;
+  /** Reports a paste refused before it was read (its size), changing nothing. */
+  refusePaste(message: string): void;
   /** Applies the previewed paste: replacing the sheet (refused when it would leave no quote) or appended. */
   confirmPaste(how: 'replace' | 'append'): void;
   /** Turns the last replacing paste into an append (one undo step either way). */
@@ -200,13 +205,19 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       else fillFrom(block, target);
     },
     previewPasteText(text, target) {
-      const block = readPastedBlock(text);
+      get().receivePastedBlock(readPastedBlock(text), target);
+    },
+    receivePastedBlock(block, target, preview = null) {
+      set({ pasteProgress: null });
       if (!block.header) {
         set({ pendingPaste: null });
         fillFrom(block, target);
         return;
       }
-      set({ pendingPaste: { block, preview: previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())) } });
+      set({ pendingPaste: { block, preview: preview ?? previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())) } });
+    },
+    refusePaste(message) {
+      set({ pendingPaste: null, pasteProgress: null, pasteNotice: { mode: 'refused', rows: 0, ignoredColumns: [], message } });
     },
     confirmPaste(how) {
       const pending = get().pendingPaste;

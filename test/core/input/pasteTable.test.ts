@@ -1,6 +1,6 @@
 // The paste reader: tab-separated text as spreadsheets put it on the clipboard, and CSV as in
 // RFC 4180 (quoted fields, doubled quotes).
-import { headerColumn, looksLikeTable, pasteQuoteCap, previewPaste, readPastedBlock, splitTable } from '../../../src/core/input/index.ts';
+import { headerColumn, looksLikeTable, PASTE_TEXT_MAX, pasteQuoteCap, pasteSizeRefusal, previewPaste, readPastedBlock, splitTable } from '../../../src/core/input/index.ts';
 
 describe('splitTable', () => {
   it('splits tab-separated rows, dropping blank lines and trailing newlines', () => {
@@ -117,5 +117,18 @@ describe('previewPaste', () => {
     const text = ['kind,tenor,rate', ...Array.from({ length: cap + 1 }, (_, i) => `swap,${i + 1}Y,4`)].join('\n');
     expect(previewPaste(readPastedBlock(text), 'percent').refusal).toMatch(new RegExp(`${cap + 1} rows; the sheet holds at most ${cap}`));
     expect(previewPaste(readPastedBlock('kind,tenor,rate\nswap,5Y,4'), 'percent', cap).appendRefusal).toMatch(/at most/);
+  });
+});
+
+describe('pasteSizeRefusal', () => {
+  it('names the cause: a block above PASTE_TEXT_MAX characters, or one cell value above the cell cap', () => {
+    expect(pasteSizeRefusal(5_000_000, true)).toBe(`the pasted text is 5.0 MB; a paste is read up to 1.0 MB (the sheet holds at most ${pasteQuoteCap()} quotes). Paste fewer rows`);
+    expect(pasteSizeRefusal(5_000_000, false)).toBe('the pasted text is 5.0 MB; a cell holds at most 64 characters');
+    expect(pasteSizeRefusal(PASTE_TEXT_MAX, true)).toBeNull();
+    expect(pasteSizeRefusal(64, false)).toBeNull();
+  });
+  it('looksLikeTable reads only the start of a long one-line text', () => {
+    expect(looksLikeTable(`swap,${'x'.repeat(3_000_000)}`)).toBe(true);
+    expect(looksLikeTable('x'.repeat(3_000_000))).toBe(false);
   });
 });
