@@ -7,6 +7,7 @@ import {
   rowIssuesFromEngine,
   toEngineDocument,
   type EngineConversion,
+  type InputConventions,
   type QuoteRow,
   type QuoteUnitMode,
   type RowIssues,
@@ -17,12 +18,12 @@ import { useAppStore } from '../state/store.ts';
 import { compiledInstruments } from './compiledInstruments.ts';
 
 /** Parse results by row object: a one-cell edit creates one new row object, so only it is re-parsed. */
-const parseCache = new WeakMap<QuoteRow, { mode: QuoteUnitMode; parse: RowParse }>();
-export function parseRowCached(row: QuoteRow, mode: QuoteUnitMode): RowParse {
+const parseCache = new WeakMap<QuoteRow, { mode: QuoteUnitMode; conventions: InputConventions; parse: RowParse }>();
+export function parseRowCached(row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions): RowParse {
   const hit = parseCache.get(row);
-  if (hit && hit.mode === mode) return hit.parse;
-  const parse = parseRow(row, mode);
-  parseCache.set(row, { mode, parse });
+  if (hit && hit.mode === mode && hit.conventions.dateOrder === conventions.dateOrder && hit.conventions.decimalMark === conventions.decimalMark) return hit.parse;
+  const parse = parseRow(row, mode, conventions);
+  parseCache.set(row, { mode, conventions, parse });
   return parse;
 }
 
@@ -106,7 +107,9 @@ export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
 }
 
 /** Builds the curve from the document's inputs (engine document, then buildCurve with skipInvalid). */
-export function deriveBuild(ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve'>, interpolation?: WorkbenchDocument['curve']['interpolation']): WorkbenchBuild {
+export function deriveBuild(
+  ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve'> & { readonly display?: Pick<WorkbenchDocument['display'], 'dateOrder' | 'decimalMark'> },
+  interpolation?: WorkbenchDocument['curve']['interpolation']): WorkbenchBuild {
   if (!isQuoteUnitMode(ws.quoteUnit)) {
     // A read-only document from another build (see the store's readOnly): its quote unit is not one
     // this build reads, so no cell is read with a guessed unit and there is no curve.
@@ -144,5 +147,7 @@ export function useCurveBuild(): WorkbenchBuild {
   const quoteUnit = useAppStore((s) => s.workspace.quoteUnit);
   const settlement = useAppStore((s) => s.workspace.settlement);
   const curve = useAppStore((s) => s.workspace.curve);
-  return useMemo(() => deriveBuild({ quotes, quoteUnit, settlement, curve }), [quotes, quoteUnit, settlement, curve]);
+  const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
+  const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
+  return useMemo(() => deriveBuild({ quotes, quoteUnit, settlement, curve, display: { dateOrder, decimalMark } }), [quotes, quoteUnit, settlement, curve, dateOrder, decimalMark]);
 }

@@ -1,12 +1,13 @@
-import { addTenor, parseIsoDate, parseTenor, serialFromIso } from '../core/index.ts';
+import { addTenor, parseDateText, parseIsoDate, parseTenor, serialFromIso, type DateOrder } from '../core/index.ts';
 
 /**
  * Sort key of a maturity cell: the day serial of its date (a tenor counted from the settlement
  * date); cells that are not a maturity sort last.
  */
-export function maturitySortKey(text: string, settlement: string): number {
+export function maturitySortKey(text: string, settlement: string, dateOrder: DateOrder = 'mdy'): number {
   const s = text.trim();
-  if (parseIsoDate(s)) return serialFromIso(s);
+  const date = parseDateText(s, dateOrder);
+  if (date?.ok) return serialFromIso(date.date);
   const tenor = parseTenor(s);
   if (tenor && parseIsoDate(settlement)) return serialFromIso(addTenor(settlement, tenor));
   return Number.POSITIVE_INFINITY;

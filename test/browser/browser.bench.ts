@@ -124,7 +124,9 @@ try {
         dt.setData('text/plain', text);
         performance.mark('paste-start');
         document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
-        performance.mark('paste-handled'); // the paste handler and any synchronous render have run
+        // The header paste shows its column-mapping preview (rendered synchronously for a discrete event); confirm it.
+        document.querySelector<HTMLButtonElement>('.paste-preview button')!.click();
+        performance.mark('paste-handled'); // the paste handler, the confirmation and any synchronous render have run
         for (let f = 0; f < 600; f++) {
           await new Promise<void>((r) => requestAnimationFrame(() => { const ch = new MessageChannel(); ch.port1.onmessage = () => r(); ch.port2.postMessage(0); }));
           const now = path();
@@ -159,6 +161,7 @@ try {
       dt.setData('text/plain', text);
       document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
     }, SEVEN_ROWS);
+    await page.getByRole('button', { name: 'Replace the sheet' }).click();
     await page.getByText('7 quotes in the curve').waitFor({ timeout: 10_000 });
     await page.getByRole('button', { name: 'Copy link' }).click();
     await page.getByText(/Link copied/).waitFor();

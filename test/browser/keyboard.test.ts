@@ -70,7 +70,7 @@ describe('keyboard only', () => {
     await page.evaluate((text) => navigator.clipboard.writeText(text), PASTE);
     const before = await zeroPath();
     await page.keyboard.press('Control+V');
-    const viaShortcut = await page.getByText('5 quotes in the curve').waitFor({ timeout: 3000 }).then(() => true, () => false);
+    const viaShortcut = await page.getByRole('region', { name: /Paste preview/ }).waitFor({ timeout: 3000 }).then(() => true, () => false);
     if (!viaShortcut) {
       // Headless Chromium on Linux does not run the paste editing command for a synthetic Ctrl+V:
       // deliver the same paste event the shortcut would, to the element the keyboard focused.
@@ -80,8 +80,12 @@ describe('keyboard only', () => {
         dt.setData('text/plain', await navigator.clipboard.readText());
         document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
       });
-      await page.getByText('5 quotes in the curve').waitFor({ timeout: 10_000 });
     }
+    // The column-mapping preview takes the focus on its first button, "Replace the sheet".
+    await page.getByRole('region', { name: /Paste preview/ }).waitFor({ timeout: 10_000 });
+    expect(await focused()).toBe('button: Replace the sheet');
+    await page.keyboard.press('Enter');
+    await page.getByText('5 quotes in the curve').waitFor({ timeout: 10_000 });
     expect(await page.getByRole('textbox', { name: 'Row 5 Maturity' }).inputValue()).toBe('10Y');
     expect(await zeroPath()).not.toBe(before);
   });

@@ -35,6 +35,7 @@ beforeAll(async () => {
     dt.setData('text/plain', text);
     document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
   }, fiveHundredRows());
+  await page.getByRole('button', { name: 'Replace the sheet' }).click();
   await page.getByText('500 quotes in the curve').waitFor({ timeout: 20_000 });
 });
 

@@ -90,6 +90,8 @@ describe('the workbench in Chromium', () => {
       dt.setData('text/plain', text);
       document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
     }, PASTE);
+    await page.getByRole('region', { name: /Paste preview/ }).waitFor();
+    await page.getByRole('button', { name: 'Replace the sheet' }).click();
     await page.getByText('11 quotes in the curve').waitFor();
     const after = await paths();
     expect(after.zero).not.toBeNull();

@@ -94,6 +94,45 @@ describe('paste', () => {
   });
 });
 
+describe('paste notice acts on the paste only', () => {
+  it('a unit switch after a paste ends the notice, so "Undo paste" cannot undo the unit switch', () => {
+    s().pasteText('kind\ttenor\trate\ndeposit\t3M\t4.1\nswap\t5Y\t3.9', null);
+    expect(s().pasteNotice?.mode).toBe('replaced');
+    s().setQuoteUnit('bp');
+    expect(s().pasteNotice).toBeNull();
+  });
+  it('editing a pasted cell ends the notice, so "Append instead" cannot bring the pasted value back', () => {
+    s().pasteText('kind\ttenor\trate\ndeposit\t3M\t4.1', null);
+    s().setCell(s().workspace.quotes[0]!.id, 'rate', '4.2');
+    expect(s().pasteNotice).toBeNull();
+    s().appendInstead();
+    expect(s().workspace.quotes.map((r) => r.rate)).toEqual(['4.2']);
+  });
+});
+
+describe('paste preview', () => {
+  it('a header paste from the sheet changes nothing until confirmed, then replaces the sheet as one step', () => {
+    const before = s().workspace;
+    s().previewPasteText('instrument,mat,mid\nswap,5Y,3.9\nswap,10Y,4.02', null);
+    expect(s().workspace).toBe(before);
+    expect(s().pendingPaste?.block.columns.map((c) => c.column)).toEqual(['kind', 'maturity', 'rate']);
+    s().confirmPaste('replace');
+    expect(s().workspace.quotes.map((r) => r.maturity)).toEqual(['5Y', '10Y']);
+    expect(s().pendingPaste).toBeNull();
+    s().undo();
+    expect(s().workspace).toBe(before);
+  });
+  it('a header paste that would leave no quote never replaces the sheet', () => {
+    const before = s().workspace;
+    s().pasteText('kind,tenor,rate\nfoo,5Y,abc', null);
+    expect(s().workspace).toBe(before);
+    expect(s().pasteNotice).toMatchObject({ mode: 'refused' });
+    s().previewPasteText('kind,tenor,rate\nfoo,5Y,abc', null);
+    s().confirmPaste('replace');
+    expect(s().workspace).toBe(before);
+  });
+});
+
 describe('setQuoteUnit', () => {
   it('switching percent to bp re-writes bare numbers so values stay the same, and is undoable', () => {
     const id = s().workspace.quotes[0]!.id;
@@ -104,6 +143,29 @@ describe('setQuoteUnit', () => {
     expect(s().workspace.quoteUnit).toBe('bp');
     s().undo();
     expect(s().workspace.quotes[0]!.rate).toBe('4.28');
+  });
+});
+
+describe('setConventions', () => {
+  it('switching the date order re-writes numeric dates so each keeps its date, undoably', () => {
+    const id = s().workspace.quotes[0]!.id;
+    s().setCell(id, 'maturity', '11/12/2027');
+    s().endEdit();
+    s().setConventions({ dateOrder: 'dmy' });
+    expect(s().workspace.display.dateOrder).toBe('dmy');
+    expect(s().workspace.quotes[0]!.maturity).toBe('12/11/2027');
+    s().undo();
+    expect(s().workspace.quotes[0]!.maturity).toBe('11/12/2027');
+  });
+  it('a unit switch with the decimal comma keeps values and the comma: 4,28 % is 428 bp, 0,0428 decimal', () => {
+    const id = s().workspace.quotes[0]!.id;
+    s().setConventions({ decimalMark: ',' });
+    s().setCell(id, 'rate', '4,28');
+    s().endEdit();
+    s().setQuoteUnit('decimal');
+    expect(s().workspace.quotes[0]!.rate).toBe('0,0428');
+    s().setQuoteUnit('bp');
+    expect(s().workspace.quotes[0]!.rate).toBe('428');
   });
 });
 

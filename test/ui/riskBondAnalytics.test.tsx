@@ -62,3 +62,16 @@ describe('BondAnalyticsPanel', () => {
     expect(result.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
   });
 });
+
+describe('BondAnalyticsPanel market price', () => {
+  // 32nds: points and 32nds of a point (102-05 is 102 5/32), common practice for US Treasury prices;
+  // the sheet reads the same text with parsePriceText.
+  it('takes a clean price in 32nds (102-05 = 102.15625) as the sheet does', () => {
+    render(<BondAnalyticsPanel curve={curve} workspace={build.workspace} initial={{ maturity: '2034-05-15', coupon: '4', quoteKind: 'price', quote: '102-05' }} />);
+    const expected = analyzeBond(curve, { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA', cleanPrice: 102.15625 });
+    if (!expected.ok) throw new Error('analytics');
+    expect(screen.queryByRole('alert')).toBeNull();
+    const table = screen.getByRole('table', { name: 'Bond analytics' });
+    expect(within(table).getByRole('row', { name: /^Z-spread/ })).toHaveTextContent(num(expected.value.market!.zSpread * 1e4, 2));
+  });
+});

@@ -83,12 +83,12 @@ describe('RollPanel', () => {
     render(<Harness initial={DEFAULT_STRATEGY} onChange={onChange} />);
     const amount = screen.getByRole('textbox', { name: /Amount/ });
     await user.clear(amount);
-    await user.type(amount, '1,000,000');
+    await user.type(amount, '1,000,00');
     await user.tab();
     expect(onChange).not.toHaveBeenCalled();
-    expect(amount).toHaveValue('1,000,000');
+    expect(amount).toHaveValue('1,000,00');
     expect(amount).toHaveAttribute('aria-invalid', 'true');
-    expect(screen.getByRole('alert')).toHaveTextContent(/leave out thousands separators/);
+    expect(screen.getByRole('alert')).toHaveTextContent(/a comma groups thousands in threes/);
   });
 
   it('turns a typed leg rate into a typed path under the "Your path" view', async () => {

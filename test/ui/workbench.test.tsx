@@ -31,6 +31,8 @@ const fwdPath = () => document.querySelector('svg[aria-label^="Forward curve"] [
 const keyCell = (tenor: string, field: string) =>
   within(screen.getByRole('table', { name: 'Key maturities' })).getByText((_, el) => el?.getAttribute('data-field') === field && el.closest('tr')?.getAttribute('data-tenor') === tenor);
 const paste = (el: Element, text: string) => fireEvent.paste(el, { clipboardData: { getData: () => text } });
+/** A header paste shows its column-mapping preview first; this confirms it as "Replace the sheet". */
+const replaceSheet = () => fireEvent.click(screen.getByRole('button', { name: 'Replace the sheet' }));
 
 /** The core's zero rate at a tenor for the store's current workspace, formatted as the table shows it. */
 function coreZero(tenor: string, c: Compounding, dc: 'ACT/365F' | 'ACT/360'): string {
@@ -64,6 +66,8 @@ describe('paste', () => {
     render(<App />);
     const before = zeroPath();
     paste(cell(3, 'Rate / yield'), 'Type\tTenor\tRate\nDeposit\t3M\t4.0\nSWAP\t2Y\t3.5\nswap\t5Y\t3.6\nswap\t10Y\t3.9\n');
+    expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('19 quotes in the curve'); // the preview changes nothing
+    replaceSheet();
     expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('4 quotes in the curve');
     expect(cell(2, 'Kind')).toHaveValue('SWAP');
     expect(zeroPath()).not.toBe(before);
@@ -76,6 +80,7 @@ describe('paste', () => {
   it('CSV with a header is read the same way', () => {
     render(<App />);
     paste(grid(), 'kind,maturity,yield,coupon,clean price,frequency,day count\nbond,2031-11-15,,3.625,99.2,2,ACT/ACT-ICMA\ndeposit,6M,4.1,,,,ACT/360');
+    replaceSheet();
     expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('2 quotes in the curve');
     expect(cell(1, 'Price')).toHaveValue('99.2');
   });
@@ -180,6 +185,7 @@ describe('undo and redo', () => {
   it('the Undo button undoes a paste', () => {
     render(<App />);
     paste(grid(), 'kind\ttenor\trate\ndeposit\t3M\t4');
+    replaceSheet();
     fireEvent.click(screen.getByRole('button', { name: 'Undo' }));
     expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('19 quotes in the curve');
   });

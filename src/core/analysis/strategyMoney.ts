@@ -14,20 +14,34 @@ export const MONEY_UNIT = '¤';
 export const MONEY_MAX = '1e15';
 
 const MONEY_RE = /^\d{1,16}(\.\d{1,6})?$/;
+/** Digits grouped in threes by commas, the first group of 1 to 3 digits: "10,000,000". */
+const GROUPED_RE = /^\d{1,3}(,\d{3})+(\.\d+)?$/;
+/** Amount suffixes: k thousand; m, mm, mn million; b, bn billion (common practice on trading desks; mm is US usage). */
+const SUFFIX: Readonly<Record<string, number>> = { k: 3, m: 6, mm: 6, mn: 6, b: 9, bn: 9 };
 
 export type MoneyParse = { readonly ok: true; readonly value: Money } | { readonly ok: false; readonly message: string };
 
+const EXAMPLES = '"1000000", "10,000,000", "250000.50", "10m" or "2.5bn"';
+
 /**
- * Parses a typed amount: digits with an optional decimal point and up to 6 decimals, above 0 and
- * at most 10^15. No separators or signs ("1000000", "250000.50").
+ * Parses a typed amount: digits with an optional decimal point (`250000.50`), thousands grouped
+ * by commas (`10,000,000`), or a number with a suffix k, m (mm, mn) or bn (b): `10m` is
+ * 10,000,000, `2.5bn` is 2,500,000,000. Exact (decimal.js); at most 6 decimals after the suffix
+ * is applied; above 0 and at most 10^15. No signs or exponents.
  */
 export function parseMoney(text: string): MoneyParse {
   const t = text.trim();
-  if (!MONEY_RE.test(t)) {
-    const hint = /[,_ ]/.test(t) ? '; leave out thousands separators' : '';
-    return { ok: false, message: `must be a positive amount such as "1000000" or "250000.50" (digits, at most 6 decimals), not "${text.slice(0, 40)}"${hint}` };
+  const lower = t.toLowerCase();
+  const suffix = /^([\d.,]+) ?(k|mm|mn|m|bn|b)$/.exec(lower);
+  let body = suffix ? suffix[1]! : lower;
+  if (GROUPED_RE.test(body)) body = body.replace(/,/g, '');
+  const numberOk = suffix ? /^\d{1,16}(\.\d{1,12})?$/.test(body) : MONEY_RE.test(body);
+  if (!numberOk) {
+    const hint = body.includes(',') ? '; a comma groups thousands in threes (10,000,000); use a point for decimals' : /[_ ]/.test(t) ? '; group thousands with commas, or leave them out' : '';
+    return { ok: false, message: `must be a positive amount such as ${EXAMPLES}, not "${text.slice(0, 40)}"${hint}` };
   }
-  const value = new MoneyDecimal(t);
+  const value = new MoneyDecimal(body).times(new MoneyDecimal(10).pow(suffix ? SUFFIX[suffix[2]!]! : 0));
+  if (value.decimalPlaces() > 6) return { ok: false, message: `has more than 6 decimals once the suffix is applied: "${t}"` };
   if (value.lte(0)) return { ok: false, message: `must be above 0, not "${t}"` };
   if (value.gt(MONEY_MAX)) return { ok: false, message: `must be at most 1000000000000000 (10^15), not "${t}"` };
   return { ok: true, value };

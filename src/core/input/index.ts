@@ -11,3 +11,5 @@ export * from './workbenchDocument.ts';
 export * from './quoteSchedule.ts';
 export * from './curveSampler.ts';
 export * from './documentBridge.ts';
+export * from './dateText.ts';
+export * from './conventions.ts';

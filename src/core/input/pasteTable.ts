@@ -1,54 +1,104 @@
-import { QUOTE_COLUMNS, type QuoteColumn, type RowText } from './quoteRow.ts';
+import { dsvFormat } from 'd3-dsv';
+import { LIMITS } from '../export/limits.ts';
+import { CELL_MAX } from '../export/workbenchShape.ts';
+import { QUOTE_COLUMNS, parseRow, type QuoteColumn, type RowText } from './quoteRow.ts';
+import type { QuoteUnitMode } from './quoteText.ts';
+import { DEFAULT_CONVENTIONS, type InputConventions } from './conventions.ts';
 
-/**
- * Text copied from a spreadsheet (tab-separated) or CSV, split into rows of cells. CSV follows
- * RFC 4180 quoting ("a,b" and doubled quotes inside quotes). Trailing empty lines are dropped.
- */
-export function splitTable(text: string): { cells: string[][]; separator: '\t' | ',' } {
-  const body = text.replace(/\r\n?/g, '\n').replace(/\n+$/, '');
-  const separator: '\t' | ',' = body.includes('\t') ? '\t' : ',';
-  const rows: string[][] = [];
-  let row: string[] = [];
-  let cell = '';
-  let quoted = false;
-  for (let i = 0; i < body.length; i++) {
-    const ch = body[i]!;
-    if (quoted) {
-      if (ch === '"' && body[i + 1] === '"') {
-        cell += '"';
-        i++;
-      } else if (ch === '"') quoted = false;
-      else cell += ch;
-    } else if (ch === '"' && cell.trim() === '') {
-      quoted = true;
-      cell = '';
-    } else if (ch === separator) {
-      row.push(cell.trim());
-      cell = '';
-    } else if (ch === '\n') {
-      row.push(cell.trim());
-      rows.push(row);
-      row = [];
-      cell = '';
-    } else cell += ch;
-  }
-  row.push(cell.trim());
-  rows.push(row);
-  return { cells: rows.filter((r) => r.some((c) => c !== '')), separator };
+/** The delimiters a pasted block or a dropped file may use: tab (spreadsheets), comma (CSV), semicolon (CSV where the comma is the decimal mark). */
+export const PASTE_DELIMITERS = ['\t', ',', ';'] as const;
+export type PasteDelimiter = (typeof PASTE_DELIMITERS)[number];
+
+const PARSERS = Object.fromEntries(PASTE_DELIMITERS.map((d) => [d, dsvFormat(d)])) as Record<PasteDelimiter, ReturnType<typeof dsvFormat>>;
+
+const trimRows = (rows: string[][]): string[][] => rows.map((r) => r.map((c) => c.trim())).filter((r) => r.some((c) => c !== ''));
+
+/** How well a delimiter explains the block: rows sharing the commonest field count, and that count. */
+function delimiterFit(rows: readonly (readonly string[])[]): { columns: number; agreeing: number } {
+  const counts = new Map<number, number>();
+  for (const r of rows) counts.set(r.length, (counts.get(r.length) ?? 0) + 1);
+  let columns = 1;
+  let agreeing = 0;
+  for (const [n, k] of counts) if (k > agreeing || (k === agreeing && n > columns)) [columns, agreeing] = [n, k];
+  return { columns, agreeing };
 }
 
-/** Header words (case-, space- and punctuation-insensitive) and the sheet column each maps to. */
+/**
+ * Text copied from a spreadsheet (tab-separated) or CSV, split into rows of trimmed cells by
+ * d3-dsv (RFC 4180 quoting: a quoted field may hold the delimiter, a line break or a doubled
+ * quote). The delimiter is the one of tab, comma and semicolon under which the most rows have
+ * the same number of fields (more than one), ties going to the wider reading and then to tab,
+ * comma, semicolon in that order; so a tab inside a quoted CSV field no longer turns the block
+ * into tab-separated text. Blank lines are dropped.
+ */
+export function splitTable(text: string): { cells: string[][]; separator: PasteDelimiter } {
+  const body = text.replace(/^\uFEFF/, '');
+  let best: { cells: string[][]; separator: PasteDelimiter; columns: number; agreeing: number } | null = null;
+  for (const d of PASTE_DELIMITERS) {
+    if (!body.includes(d)) continue;
+    const cells = trimRows(PARSERS[d].parseRows(body));
+    const fit = delimiterFit(cells);
+    if (fit.columns < 2) continue;
+    if (!best || fit.agreeing > best.agreeing || (fit.agreeing === best.agreeing && fit.columns > best.columns)) best = { cells, separator: d, ...fit };
+  }
+  if (best) return { cells: best.cells, separator: best.separator };
+  return { cells: trimRows(PARSERS[','].parseRows(body)), separator: ',' };
+}
+
+/**
+ * Header words (case-, space- and punctuation-insensitive) and the sheet column each maps to:
+ * the sheet's own names and the short forms common on trading sheets (px, cpn, mat, yld, freq).
+ */
 const HEADER_WORDS: Readonly<Record<string, QuoteColumn>> = {
-  type: 'kind', kind: 'kind', instrument: 'kind', instrumenttype: 'kind',
-  maturity: 'maturity', tenor: 'maturity', term: 'maturity', maturitydate: 'maturity', date: 'maturity',
-  rate: 'rate', yield: 'rate', rateyield: 'rate', quote: 'rate', discountyield: 'rate', swaprate: 'rate', ytm: 'rate',
-  coupon: 'coupon', cpn: 'coupon',
-  price: 'price', cleanprice: 'price',
-  frequency: 'frequency', freq: 'frequency',
-  daycount: 'dayCount', basis: 'dayCount', daycountbasis: 'dayCount',
+  type: 'kind', kind: 'kind', instrument: 'kind', instrumenttype: 'kind', instr: 'kind', product: 'kind', security: 'kind', securitytype: 'kind', quotetype: 'kind',
+  maturity: 'maturity', tenor: 'maturity', term: 'maturity', maturitydate: 'maturity', date: 'maturity', mat: 'maturity', matdate: 'maturity', expiry: 'maturity', enddate: 'maturity',
+  rate: 'rate', yield: 'rate', rateyield: 'rate', discountyield: 'rate', swaprate: 'rate', ytm: 'rate', yld: 'rate', midyield: 'rate', midrate: 'rate', midyld: 'rate',
+  coupon: 'coupon', cpn: 'coupon', couponrate: 'coupon',
+  price: 'price', cleanprice: 'price', px: 'price', midprice: 'price', midpx: 'price', pxmid: 'price', cleanpx: 'price',
+  frequency: 'frequency', freq: 'frequency', payfreq: 'frequency', paymentfrequency: 'frequency', couponfrequency: 'frequency', cpnfreq: 'frequency',
+  daycount: 'dayCount', basis: 'dayCount', daycountbasis: 'dayCount', dcc: 'dayCount', accrualbasis: 'dayCount', daycountconvention: 'dayCount',
 };
 
-export const headerColumn = (cell: string): QuoteColumn | null => HEADER_WORDS[cell.toLowerCase().replace(/[^a-z]/g, '')] ?? null;
+/**
+ * Header words that name a quote without saying whether it is a rate or a price (mid, quote,
+ * last, close, level, value): the column is read as prices when its numbers look like prices
+ * per 100 face (see `looksLikePrices`), as rates otherwise.
+ */
+const QUOTE_WORDS = new Set(['mid', 'quote', 'last', 'close', 'level', 'value', 'bid', 'ask', 'offer']);
+
+const headerKey = (cell: string): string => cell.toLowerCase().replace(/[^a-z]/g, '');
+
+export const headerColumn = (cell: string): QuoteColumn | null => HEADER_WORDS[headerKey(cell)] ?? (QUOTE_WORDS.has(headerKey(cell)) ? 'rate' : null);
+
+/**
+ * Whether a column's values read as prices per 100 face rather than rates: most of its filled
+ * cells are numbers from 20 to 200 without a % or bp suffix, or points-32nds (`99-28`). A rate
+ * above 20 % is implausible for the quotes this sheet takes, and a price below 20 per 100 is one
+ * too (a 30-year zero at 5 % is about 23).
+ */
+export function looksLikePrices(values: readonly string[]): boolean {
+  const filled = values.filter((v) => v.trim() !== '');
+  if (filled.length === 0) return false;
+  const priceLike = filled.filter((v) => {
+    const s = v.trim();
+    if (/^\d+-\d{2}[+0-7]?$/.test(s)) return true;
+    const n = Number(s.replace(/^(\d+),(\d+)$/, '$1.$2').replace(/,/g, ''));
+    return /^[+]?\d/.test(s) && Number.isFinite(n) && n >= 20 && n <= 200;
+  }).length;
+  return priceLike * 2 > filled.length;
+}
+
+/** How one pasted column was read, for the mapping preview. */
+export interface ColumnReading {
+  /** The header cell as pasted (empty for a header-less paste). */
+  readonly header: string;
+  /** The sheet column it fills, or null when ignored. */
+  readonly column: QuoteColumn | null;
+  /** Why, in words: "header word px", "mid: values look like prices per 100", "unknown header: ignored", "second column named price: ignored". */
+  readonly reason: string;
+  /** Up to three values of the column, as pasted. */
+  readonly sample: readonly string[];
+}
 
 export interface PastedBlock {
   /** True when the first row was read as a header. */
@@ -59,30 +109,130 @@ export interface PastedBlock {
   readonly cells: readonly (readonly string[])[];
   /** Header cells that name no known column (their columns are ignored). */
   readonly ignored: readonly string[];
+  /** With a header: each pasted column and how it was read. */
+  readonly columns: readonly ColumnReading[];
+  /** The delimiter the block was split on. */
+  readonly separator: PasteDelimiter;
 }
 
 /**
  * Reads a pasted block. The first row is a header when at least one of its cells is a known
- * header word (kind: type, kind, instrument; maturity: maturity, tenor, term; rate or yield;
- * coupon; price or clean price; frequency; day count) and none of its cells is a number.
+ * header word (kind: type, kind, instrument, product, security; maturity: maturity, mat, tenor,
+ * term, date; rate: rate, yield, yld, ytm; price: price, px, clean price; coupon: coupon, cpn;
+ * frequency: freq; day count: basis, dcc; and mid, quote, last, close, bid, ask read as rate or
+ * price by their values) and none of its cells is a number. A column named twice is read from
+ * its first occurrence; the later ones are listed as ignored.
  */
 export function readPastedBlock(text: string): PastedBlock {
-  const { cells } = splitTable(text);
+  const { cells, separator } = splitTable(text);
   const first = cells[0] ?? [];
-  const mapped = first.map(headerColumn);
   const looksNumeric = first.some((c) => /^[\s+\-\u2212]?\d/.test(c));
-  const header = mapped.some((m) => m !== null) && !looksNumeric;
-  if (!header) return { header: false, rows: [], cells, ignored: [] };
-  const ignored = first.filter((_, i) => mapped[i] === null && first[i] !== '');
-  const rows = cells.slice(1).map((r) => {
+  const header = !looksNumeric && first.some((c) => headerColumn(c) !== null);
+  if (!header) return { header: false, rows: [], cells, ignored: [], columns: [], separator };
+  const body = cells.slice(1);
+  const taken = new Set<QuoteColumn>();
+  const columns: ColumnReading[] = first.map((h, i) => {
+    const values = body.map((r) => r[i] ?? '');
+    const sample = values.filter((v) => v !== '').slice(0, 3);
+    const key = headerKey(h);
+    let column = HEADER_WORDS[key] ?? null;
+    let reason = column ? `header word "${h}"` : `"${h}" is not a known column: ignored`;
+    if (!column && QUOTE_WORDS.has(key)) {
+      column = looksLikePrices(values) ? 'price' : 'rate';
+      reason = column === 'price' ? `"${h}": its values look like prices per 100` : `"${h}": its values look like rates`;
+    }
+    if (h === '') reason = 'no header: ignored';
+    if (column && taken.has(column)) {
+      reason = `a second column read as ${column}: ignored`;
+      column = null;
+    }
+    if (column) taken.add(column);
+    return { header: h, column, reason, sample };
+  });
+  const ignored = columns.filter((c) => c.column === null && c.header !== '').map((c) => c.header);
+  const rows = body.map((r) => {
     const out: Record<QuoteColumn, string> = { kind: '', maturity: '', rate: '', price: '', coupon: '', frequency: '', dayCount: '' };
-    r.forEach((value, i) => {
-      const col = mapped[i];
-      if (col && out[col] === '') out[col] = value;
+    columns.forEach((c, i) => {
+      if (c.column) out[c.column] = r[i] ?? '';
     });
     return out as RowText;
   });
-  return { header, rows, cells: [], ignored };
+  return { header, rows, cells: [], ignored, columns, separator };
+}
+
+/**
+ * The most quotes the sheet takes from one paste: the document cap on quotes (a document over
+ * it cannot be saved to a link or file). The paste path reads the cap here only.
+ */
+export const pasteQuoteCap = (): number => LIMITS.quotes;
+
+/**
+ * The most characters of pasted text read as a block: about 2,000 characters a row for the
+ * most rows the sheet takes, room for wide sheets with many ignored columns. Larger text is
+ * refused before it is read, so no paste can stall the page.
+ */
+export const PASTE_TEXT_MAX = 1_000_000;
+
+/** Text size in words: "5.2 MB", "340 KB", "812 characters" (decimal units, 1 MB = 10^6 characters of text). */
+export function textSizeWords(chars: number): string {
+  if (chars >= 1_000_000) return `${(chars / 1_000_000).toFixed(1)} MB`;
+  if (chars >= 10_000) return `${Math.round(chars / 1000)} KB`;
+  return `${chars} characters`;
+}
+
+/**
+ * Why pasted text is refused for its size, naming the cause, or null. A block (`table`) is
+ * refused above PASTE_TEXT_MAX characters; one cell's value above the cell cap (the longest
+ * cell a saved or shared workspace keeps).
+ */
+export function pasteSizeRefusal(chars: number, table: boolean): string | null {
+  if (table && chars > PASTE_TEXT_MAX) {
+    return `the pasted text is ${textSizeWords(chars)}; a paste is read up to ${textSizeWords(PASTE_TEXT_MAX)} (the sheet holds at most ${pasteQuoteCap()} quotes). Paste fewer rows`;
+  }
+  if (!table && chars > CELL_MAX) return `the pasted text is ${textSizeWords(chars)}; a cell holds at most ${CELL_MAX} characters`;
+  return null;
+}
+
+/** What a header paste would do, before anything is replaced. */
+export interface PastePreview {
+  readonly rows: number;
+  /** Rows that would give a quote (every cell reads) in the given unit mode, among the rows kept. */
+  readonly quotes: number;
+  /** Rows kept with at least one cell that does not read. */
+  readonly withErrors: number;
+  /** Rows beyond the quote cap that replacing the sheet would leave out (the first rows are kept). */
+  readonly leftOut: number;
+  /** Rows beyond the quote cap that appending would leave out. */
+  readonly appendLeftOut: number;
+  /** Why replacing the sheet is refused, or null when it may go ahead. */
+  readonly refusal: string | null;
+}
+
+/**
+ * Counts the quotes a header paste would give and refuses a replacement that would leave the
+ * sheet with no quote. Beyond the quote cap the first rows are kept and the rest counted as left
+ * out (`existing` rows already in the sheet count against the cap for an append).
+ */
+export function previewPaste(
+  block: PastedBlock,
+  mode: QuoteUnitMode,
+  existing = 0,
+  conventions: InputConventions = DEFAULT_CONVENTIONS,
+): PastePreview & { appendRefusal: string | null } {
+  const cap = pasteQuoteCap();
+  const n = block.rows.length;
+  const kept = Math.min(n, cap);
+  let quotes = 0;
+  let withErrors = 0;
+  for (let i = 0; i < kept; i++) {
+    const p = parseRow({ id: String(i), enabled: true, ...block.rows[i]! }, mode, conventions);
+    if (p.quote) quotes++;
+    else if (!p.blank) withErrors++;
+  }
+  const refusal = quotes > 0 ? null : n === 0 ? 'the paste has a header but no rows; the sheet is kept as it was' : `none of the ${kept} pasted rows reads as a quote; the sheet is kept as it was. Check the column mapping below`;
+  const room = Math.max(0, cap - existing);
+  const appendRefusal = n === 0 ? 'the paste has no rows' : room === 0 ? `the sheet already holds ${existing} rows, the most it takes (${cap} quotes); nothing can be appended` : null;
+  return { rows: n, quotes, withErrors, leftOut: n - kept, appendLeftOut: Math.max(0, n - room), refusal, appendRefusal };
 }
 
 /** Column order for a header-less paste: the sheet's display order. */
@@ -96,7 +246,8 @@ export const PASTE_COLUMN_ORDER: readonly QuoteColumn[] = QUOTE_COLUMNS;
 export function looksLikeTable(text: string): boolean {
   const body = text.replace(/\r\n?/g, '\n').replace(/\n+$/, '');
   if (body.includes('\t') || body.includes('\n')) return true;
-  if (!body.includes(',')) return false;
-  const first = (splitTable(body).cells[0] ?? [])[0] ?? '';
+  if (!body.includes(',') && !body.includes(';')) return false;
+  // Only the first cell decides: read the start of the line, never all of a long one.
+  const first = (splitTable(body.slice(0, 2000)).cells[0] ?? [])[0] ?? '';
   return headerColumn(first) !== null || /^(deposit|bill|zero|bond|swap)s?$/i.test(first);
 }

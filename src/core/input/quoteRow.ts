@@ -10,6 +10,7 @@ import {
   type CellParse,
   type QuoteUnitMode,
 } from './quoteText.ts';
+import { DEFAULT_CONVENTIONS, withDecimalPoint, type InputConventions } from './conventions.ts';
 
 /**
  * One row of the quote sheet, every cell kept exactly as typed. `rate` holds a rate or yield
@@ -69,10 +70,12 @@ const RATE_WHAT: Readonly<Record<QuoteKind, string>> = { deposit: 'deposit rate'
 
 /**
  * Parses one sheet row into the engine's quote object, exactly (decimal.js), with a message on
- * each wrong cell saying what would be valid. The row's `enabled` flag is carried over.
+ * each wrong cell saying what would be valid. The row's `enabled` flag is carried over. Dates
+ * and numbers are read by the workspace's input conventions (date order, decimal mark).
  */
-export function parseRow(row: QuoteRow, mode: QuoteUnitMode): RowParse {
+export function parseRow(row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions = DEFAULT_CONVENTIONS): RowParse {
   if (isBlankRow(row)) return { quote: null, issues: {}, blank: true };
+  const num = (text: string): string => withDecimalPoint(text, conventions.decimalMark);
   const issues: { -readonly [K in QuoteColumn]?: CellIssue } = {};
   const error = (c: QuoteColumn, message: string): void => {
     issues[c] = { severity: 'error', message };
@@ -86,7 +89,7 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode): RowParse {
     return null;
   };
   const kindParse = parseKindText(row.kind);
-  const maturity = take('maturity', parseMaturityText(row.maturity));
+  const maturity = take('maturity', parseMaturityText(row.maturity, conventions.dateOrder));
   if (!kindParse.ok) {
     error('kind', kindParse.message);
     return { quote: null, issues, blank: false };
@@ -103,24 +106,24 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode): RowParse {
 
   if (priceField === null) {
     if (hasPrice) refuse('price', 'price');
-    const rate = take('rate', parseRateText(row.rate, mode, RATE_WHAT[kind]));
+    const rate = take('rate', parseRateText(num(row.rate), mode, RATE_WHAT[kind]));
     if (rate !== null) quote[RATE_FIELD[kind]] = rate;
   } else if (hasRate && hasPrice) {
     const both = `give either the ${RATE_WHAT[kind]} or the price, not both; clear one of the two cells`;
     error('rate', both);
     error('price', both);
   } else if (hasPrice) {
-    const price = take('price', parsePriceText(row.price));
+    const price = take('price', parsePriceText(num(row.price)));
     if (price !== null) quote[priceField] = price;
   } else if (hasRate) {
-    const rate = take('rate', parseRateText(row.rate, mode, RATE_WHAT[kind]));
+    const rate = take('rate', parseRateText(num(row.rate), mode, RATE_WHAT[kind]));
     if (rate !== null) quote[RATE_FIELD[kind]] = rate;
   } else {
     error(kind === 'bond' ? 'price' : 'rate', `a ${kind} needs a ${RATE_WHAT[kind]} (Rate / yield) or a price per 100 (Price)`);
   }
 
   if (kind === 'bond') {
-    const coupon = take('coupon', parseCouponText(row.coupon, mode));
+    const coupon = take('coupon', parseCouponText(num(row.coupon), mode));
     if (coupon !== null) quote.coupon = coupon;
   } else if (row.coupon.trim() !== '') refuse('coupon', 'coupon');
 

@@ -1,7 +1,8 @@
 import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../workspace/validate.ts';
 import { QUOTE_KINDS, type QuoteKind } from '../workspace/types.ts';
 import { DAY_COUNTS, type DayCount } from '../time/dayCount.ts';
-import { parseIsoDate, type IsoDate } from '../time/date.ts';
+import type { IsoDate } from '../time/date.ts';
+import { parseDateText, type DateOrder } from './dateText.ts';
 import { formatTenor, parseTenor } from '../time/tenor.ts';
 import { Decimal, exactDecimal, nearestDouble, normaliseNumberText } from './decimalText.ts';
 
@@ -20,6 +21,9 @@ export const QUOTE_UNIT_LABEL: Readonly<Record<QuoteUnitMode, string>> = { perce
 export type CellParse<T> =
   | { readonly ok: true; readonly value: T; readonly warning?: string }
   | { readonly ok: false; readonly message: string };
+
+/** A hint for a number written with a decimal comma while the sheet reads a decimal point. */
+const commaHint = (s: string): string => (/^[+-]?\d+,\d+(%|bps?)?$/i.test(s) ? ` (to type a decimal comma, set the decimal mark to comma in the settings)` : '');
 
 const good = <T>(value: T): CellParse<T> => ({ ok: true, value });
 const bad = <T>(message: string): CellParse<T> => ({ ok: false, message });
@@ -62,13 +66,41 @@ export function readRate(text: string, mode: QuoteUnitMode): CellParse<RateReadi
     s = s.slice(0, lower.endsWith('bps') ? -3 : -2);
   }
   const d = exactDecimal(s);
-  if (!d) return bad(`"${text.trim()}" is not a number; type a rate such as 3.25%, 325bp or ${mode === 'decimal' ? '0.0325' : mode === 'bp' ? '325' : '3.25'}`);
+  if (!d) return bad(`"${text.trim()}" is not a number; type a rate such as 3.25%, 325bp or ${mode === 'decimal' ? '0.0325' : mode === 'bp' ? '325' : '3.25'}${commaHint(s)}`);
   return good({ rate: nearestDouble(d, SCALE[unit]), typed: d, unit, bare });
+}
+
+/**
+ * A hint when a bare number is implausible for the unit it is read in, in both directions (the
+ * value is kept; the hint says what it would be in the other reading):
+ * - percent mode, 0 < |x| < 0.1: probably a decimal (0.0315 is 0.0315 %; did you mean 3.15 %?);
+ * - percent mode, |x| >= 100: probably basis points (345 is 345 %; did you mean 3.45 %?);
+ * - bp mode, 0 < |x| < 1: probably a decimal (0.0325 bp; did you mean 3.25 %?).
+ * Thresholds: rates on this sheet's instruments have stayed between about -1 % and 20 % in the
+ * major currencies (from memory of published central-bank and market series), so 0.1 % as a bare
+ * percent and 100 % are where a unit slip is likelier than the value.
+ */
+export function rateUnitHint(typed: Decimal, mode: QuoteUnitMode, what: string): string | null {
+  const a = typed.abs();
+  if (a.isZero()) return null;
+  const x = typed.toFixed();
+  if (mode === 'percent' && a.lt(0.1)) {
+    return `${x} in % mode is a ${what} of ${x}%: did you mean ${typed.times(100).toFixed()}%? If so type ${typed.times(100).toFixed()}, or switch the unit to decimal`;
+  }
+  if (mode === 'percent' && a.gte(100)) {
+    return `${x} in % mode is ${x}%: did you mean ${typed.div(100).toFixed()}%? If so type ${typed.div(100).toFixed()}, or ${x}bp, or switch the unit to bp`;
+  }
+  if (mode === 'bp' && a.lt(1)) {
+    return `${x} in bp mode is ${x}bp (${typed.div(100).toFixed()}%): did you mean ${typed.times(100).toFixed()}%? If so type ${typed.times(10000).toFixed()}, or switch the unit to decimal`;
+  }
+  return null;
 }
 
 /**
  * Reads and range-checks a rate, yield or coupon cell. `what` names the field ("rate", "coupon").
  * In decimal mode a bare value above 1 in size is out of range and the message asks "did you mean %?".
+ * A bare value implausible for the mode's unit gets the hint of `rateUnitHint` (as the message
+ * when the value is out of range, as a warning when it is kept).
  */
 export function parseRateText(text: string, mode: QuoteUnitMode, what: string, min = RATE_MIN, max = RATE_MAX): CellParse<number> {
   const r = readRate(text, mode);
@@ -77,10 +109,12 @@ export function parseRateText(text: string, mode: QuoteUnitMode, what: string, m
   if (mode === 'decimal' && bare && typed.abs().gt(1)) {
     return bad(`${typed.toFixed()} in decimal mode is ${typed.times(100).toFixed()}%: did you mean ${typed.toFixed()}%? Type ${typed.toFixed()}% or ${typed.div(100).toFixed()}, or switch the unit to %`);
   }
+  const hint = bare ? rateUnitHint(typed, mode, what) : null;
   if (!(rate >= min && rate <= max)) {
-    return bad(`${what} ${pctText(rate)} is out of range; a ${what} must be from ${pctText(min)} to ${pctText(max)}`);
+    const range = `${what} ${pctText(rate)} is out of range; a ${what} must be from ${pctText(min)} to ${pctText(max)}`;
+    return bad(hint ? `${range}. ${hint}` : range);
   }
-  return good(rate);
+  return hint ? { ok: true, value: rate, warning: hint } : good(rate);
 }
 
 export const parseCouponText = (text: string, mode: QuoteUnitMode): CellParse<number> => parseRateText(text, mode, 'coupon', 0, COUPON_MAX);
@@ -102,23 +136,40 @@ export function parsePriceText(text: string): CellParse<number> {
       d = new Decimal(m32[1]!).plus(new Decimal(thirtySeconds).plus(extra).div(32));
     }
   }
-  if (!d) return bad(`"${text.trim()}" is not a price; type a price per 100 face such as 99.875, or points-32nds such as 99-28`);
+  if (!d) return bad(`"${text.trim()}" is not a price; type a price per 100 face such as 99.875, or points-32nds such as 99-28${commaHint(s)}`);
   const price = d.toNumber();
   if (!(price > 0 && price <= PRICE_MAX)) return bad(`price ${d.toFixed()} is out of range; a price per 100 face must be above 0 and at most ${PRICE_MAX}`);
   return good(price);
 }
 
-/** A maturity: a tenor from settlement (`3M`, `10y`) or a calendar date `YYYY-MM-DD`. */
+/** A maturity: a tenor from settlement (`3M`, `10y`) or a calendar date, kept as ISO `YYYY-MM-DD`. */
 export type MaturityText = { readonly tenor: string } | { readonly maturity: IsoDate };
 
-export function parseMaturityText(text: string): CellParse<MaturityText> {
+/**
+ * Money-market terms counted from the trade date with business-day calendars: overnight,
+ * tom-next, spot-next. The engine counts every maturity from settlement and has no business-day
+ * calendar yet, so these are refused with what is supported.
+ */
+const CALENDAR_TERMS: Readonly<Record<string, string>> = { ON: 'overnight', TN: 'tom-next', SN: 'spot-next' };
+
+/**
+ * A maturity: a tenor (`6M`, `10Y`) or a date as people type it (`2031-11-15`, `15-Nov-2031`,
+ * `15 Nov 31`, `Nov 15 2031`, or `11/15/2031` / `15/11/2031` by `dateOrder`; see `parseDateText`).
+ */
+export function parseMaturityText(text: string, dateOrder: DateOrder = 'mdy'): CellParse<MaturityText> {
   const s = text.trim();
-  if (s === '') return bad('maturity is required; type a tenor such as 3M or 10Y, or a date YYYY-MM-DD');
+  if (s === '') return bad('maturity is required; type a tenor such as 3M or 10Y, or a date such as 2031-11-15');
   const tenor = parseTenor(s);
   if (tenor) return good({ tenor: formatTenor(tenor) });
-  if (parseIsoDate(s)) return good({ maturity: s });
-  const hint = /^\d{4}-\d{2}-\d{2}$/.test(s) ? ' (that date does not exist)' : '';
-  return bad(`"${s}" is not a maturity${hint}; type a tenor such as 6M, 2Y or 30Y, or a date YYYY-MM-DD such as 2031-11-15`);
+  const term = CALENDAR_TERMS[s.toUpperCase().replace(/[\s/.\-]/g, '')];
+  if (term) {
+    return bad(`"${s}" (${term}) is not supported yet: it starts before settlement and needs business-day calendars. Type a tenor from settlement such as 1D, 1W or 1M, or a date`);
+  }
+  const date = parseDateText(s, dateOrder);
+  if (date?.ok) return good({ maturity: date.date });
+  const valid = `type a tenor such as 6M, 2Y or 30Y, or a date YYYY-MM-DD such as 2031-11-15 (also 15-Nov-2031 or ${dateOrder === 'mdy' ? '11/15/2031' : '15/11/2031'})`;
+  if (date) return bad(`${date.message}; ${valid}`);
+  return bad(`"${s}" is not a maturity; ${valid}`);
 }
 
 const KIND_ALIASES: Readonly<Record<string, QuoteKind>> = { depo: 'deposit', deposits: 'deposit', bills: 'bill', zeros: 'zero', bonds: 'bond', swaps: 'swap', irs: 'swap', strip: 'zero' };

@@ -5,6 +5,8 @@ import { EXTRAPOLATIONS, isExtrapolation, type Extrapolation } from '../curve/cu
 import { FREQUENCIES, RESERVED_KEYS, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
 import type { CoreError } from '../result.ts';
 import { isQuoteUnitMode, QUOTE_UNIT_MODES, type QuoteUnitMode } from './quoteText.ts';
+import { DECIMAL_MARKS, DEFAULT_CONVENTIONS, isDecimalMark, type DecimalMark, type InputConventions } from './conventions.ts';
+import { DATE_ORDERS, isDateOrder, type DateOrder } from './dateText.ts';
 import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssues, type RowParse } from './quoteRow.ts';
 
 export const WORKBENCH_FORMAT = 'tenorscope-workbench';
@@ -27,6 +29,10 @@ export interface DisplaySettings {
   readonly showPar: boolean;
   readonly showInstantaneous: boolean;
   readonly showMethodOverlay: boolean;
+  /** How a numeric date typed in the sheet is read: month/day/year or day/month/year. */
+  readonly dateOrder: DateOrder;
+  /** The decimal mark of numbers typed in the sheet: point (3.25) or comma (3,25). */
+  readonly decimalMark: DecimalMark;
 }
 
 /**
@@ -60,7 +66,15 @@ export const DEFAULT_DISPLAY: DisplaySettings = {
   showPar: true,
   showInstantaneous: false,
   showMethodOverlay: false,
+  dateOrder: DEFAULT_CONVENTIONS.dateOrder,
+  decimalMark: DEFAULT_CONVENTIONS.decimalMark,
 };
+
+/** The input conventions a document's sheet is read with (defaults for a document saved before they existed). */
+export const conventionsOf = (doc: { readonly display?: Partial<DisplaySettings> }): InputConventions => ({
+  dateOrder: isDateOrder(doc.display?.dateOrder) ? doc.display.dateOrder : DEFAULT_CONVENTIONS.dateOrder,
+  decimalMark: isDecimalMark(doc.display?.decimalMark) ? doc.display.decimalMark : DEFAULT_CONVENTIONS.decimalMark,
+});
 
 export interface EngineConversion {
   /** The engine's document (only rows that parsed), ready for buildCurve. */
@@ -79,9 +93,10 @@ export interface EngineConversion {
  * a caching wrapper of `parseRow` (the UI keeps one so a one-cell edit re-parses one row).
  */
 export function toEngineDocument(
-  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes'> & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
-  parse: (row: QuoteRow, mode: QuoteUnitMode) => RowParse = parseRow): EngineConversion {
-  const rows = doc.quotes.map((r) => parse(r, doc.quoteUnit));
+  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
+  parse: (row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions) => RowParse = parseRow): EngineConversion {
+  const conventions = conventionsOf(doc);
+  const rows = doc.quotes.map((r) => parse(r, doc.quoteUnit, conventions));
   const quotes: Record<string, unknown>[] = [];
   const rowOfQuote: number[] = [];
   let invalidRows = 0;
@@ -169,6 +184,8 @@ const SETTINGS: Readonly<Record<'curve' | 'display', Readonly<Record<string, { v
     showPar: { values: [true, false], fallback: DEFAULT_DISPLAY.showPar },
     showInstantaneous: { values: [true, false], fallback: DEFAULT_DISPLAY.showInstantaneous },
     showMethodOverlay: { values: [true, false], fallback: DEFAULT_DISPLAY.showMethodOverlay },
+    dateOrder: { values: DATE_ORDERS, fallback: DEFAULT_DISPLAY.dateOrder },
+    decimalMark: { values: DECIMAL_MARKS, fallback: DEFAULT_DISPLAY.decimalMark },
   },
 };
 
@@ -317,6 +334,8 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
       showPar: pick(display.showPar, isBool, DEFAULT_DISPLAY.showPar),
       showInstantaneous: pick(display.showInstantaneous, isBool, DEFAULT_DISPLAY.showInstantaneous),
       showMethodOverlay: pick(display.showMethodOverlay, isBool, DEFAULT_DISPLAY.showMethodOverlay),
+      dateOrder: pick(display.dateOrder, isDateOrder, DEFAULT_DISPLAY.dateOrder),
+      decimalMark: pick(display.decimalMark, isDecimalMark, DEFAULT_DISPLAY.decimalMark),
     },
   };
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];

@@ -2,7 +2,15 @@ import { memo, useCallback, useMemo, useRef, useState, type ClipboardEvent, type
 import {
   LIMITS,
   rowsLeftOutMessage,
+  DATE_ORDER_LABEL,
+  DATE_ORDERS,
+  DECIMAL_MARK_LABEL,
+  DECIMAL_MARKS,
   looksLikeTable,
+  pasteSizeRefusal,
+  textSizeWords,
+  type DateOrder,
+  type DecimalMark,
   QUOTE_COLUMN_LABEL,
   QUOTE_COLUMNS,
   QUOTE_UNIT_MODES,
@@ -14,6 +22,8 @@ import {
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { useRowWindow, WINDOW_FROM_ROWS } from './useRowWindow.ts';
+import { PastePreview } from './PastePreview.tsx';
+import { readPaste, WORKER_FROM_CHARS } from './pasteReader.ts';
 
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
 /** Short column headings (the full names label the cells). */
@@ -173,11 +183,15 @@ const QuoteRowView = memo(
 export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const rows = useAppStore((s) => s.workspace.quotes);
   const unit = useAppStore((s) => s.workspace.quoteUnit);
+  const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
+  const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
   const notice = useAppStore((s) => s.pasteNotice);
   const readOnly = useAppStore((s) => s.readOnly !== null);
   const full = rows.length >= LIMITS.quotes;
-  const { setQuoteUnit, addRow, sortByMaturity, pasteText, appendInstead, dismissPasteNotice } = useAppStore.getState();
+  const { setQuoteUnit, setConventions, addRow, sortByMaturity, appendInstead, dismissPasteNotice } = useAppStore.getState();
+  const progress = useAppStore((s) => s.pasteProgress);
+  const cancelReading = useRef<(() => void) | null>(null);
   const gridRef = useRef<HTMLTableElement>(null);
   const scrollRef = useRef<HTMLDivElement>(null);
   // The row holding the focus, kept rendered in a windowed sheet (tracked only when windowed).
@@ -197,18 +211,36 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const inCurve = new Set<number>();
   if (result.build.curve) for (const p of result.build.curve.pillars) inCurve.add(result.conversion.rowOfQuote[p.quote] ?? -1);
 
-  const onPaste = useCallback(
-    (e: ClipboardEvent<HTMLElement>) => {
-      const text = e.clipboardData.getData('text/plain');
-      if (!looksLikeTable(text)) return;
+  const onPaste = useCallback((e: ClipboardEvent<HTMLElement>) => {
+    const text = e.clipboardData.getData('text/plain');
+    const table = looksLikeTable(text);
+    const store = useAppStore.getState();
+    const tooBig = pasteSizeRefusal(text.length, table);
+    if (tooBig) {
       e.preventDefault();
-      const el = e.target as HTMLElement;
-      const row = el.dataset?.row;
-      const col = el.dataset?.col as QuoteColumn | undefined;
-      pasteText(text, row !== undefined && col ? { row: Number(row), column: col } : null);
-    },
-    [pasteText],
-  );
+      store.refusePaste(tooBig);
+      return;
+    }
+    if (!table) return;
+    e.preventDefault();
+    const el = e.target as HTMLElement;
+    const row = el.dataset?.row;
+    const col = el.dataset?.col as QuoteColumn | undefined;
+    const target = row !== undefined && col ? { row: Number(row), column: col } : null;
+    cancelReading.current?.();
+    const ws = store.workspace;
+    if (text.length >= WORKER_FROM_CHARS) store.setPasteProgress({ chars: text.length, rows: null });
+    cancelReading.current = readPaste(
+      { text, mode: ws.quoteUnit, existing: ws.quotes.length, conventions: { dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark } },
+      (done) => {
+        cancelReading.current = null;
+        const s = useAppStore.getState();
+        if (done.refusal) s.refusePaste(done.refusal);
+        else s.receivePastedBlock(done.block, target, done.preview);
+      },
+      (rows) => useAppStore.getState().setPasteProgress({ chars: text.length, rows }),
+    );
+  }, []);
 
   const onKeyDown = (e: KeyboardEvent<HTMLTableElement>): void => {
     const el = e.target as HTMLElement;
@@ -245,6 +277,26 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         <span id="unit-help" className="sr-only">
           How a rate, yield or coupon typed without % or bp is read. Switching re-writes bare numbers so their values stay the same.
         </span>
+        <label className="sheet-setting">
+          Dates
+          <select value={dateOrder} onChange={(e) => setConventions({ dateOrder: e.target.value as DateOrder })} title="How 11/12/2027 is read; numeric dates in the sheet are re-written to keep their dates">
+            {DATE_ORDERS.map((o) => (
+              <option key={o} value={o}>
+                {DATE_ORDER_LABEL[o]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="sheet-setting">
+          Decimal mark
+          <select value={decimalMark} onChange={(e) => setConventions({ decimalMark: e.target.value as DecimalMark })}>
+            {DECIMAL_MARKS.map((m) => (
+              <option key={m} value={m}>
+                {DECIMAL_MARK_LABEL[m]}
+              </option>
+            ))}
+          </select>
+        </label>
         <button
           type="button"
           disabled={full || readOnly}
@@ -272,8 +324,27 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         {result.conversion.blankRows > 0 && <span> · {result.conversion.blankRows} empty</span>}
         {full && <span> · the sheet is full: a workspace holds at most {LIMITS.quotes} quotes</span>}
       </p>
+      {progress && (
+        <div className="notice" role="status">
+          Reading the pasted text ({textSizeWords(progress.chars)})
+          {progress.rows === null ? '…' : `: ${progress.rows} rows, checking them…`}{' '}
+          <button
+            type="button"
+            className="linklike"
+            onClick={() => {
+              cancelReading.current?.();
+              cancelReading.current = null;
+              useAppStore.getState().setPasteProgress(null);
+            }}
+          >
+            Cancel
+          </button>
+        </div>
+      )}
+      <PastePreview />
       {notice && (
         <div className="notice" role="status">
+          {notice.mode === 'refused' && <>Nothing was pasted: {notice.message}.</>}
           {notice.mode === 'replaced' && <>Pasted {notice.rows} rows with a header; they replace the sheet.</>}
           {notice.mode === 'appended' && <>Pasted {notice.rows} rows, appended to the sheet.</>}
           {notice.mode === 'filled' && <>Pasted {notice.rows} rows from the focused cell.</>}
@@ -290,9 +361,11 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
               Append instead
             </button>
           )}{' '}
-          <button type="button" onClick={() => useAppStore.getState().undo()}>
-            Undo paste
-          </button>{' '}
+          {notice.mode !== 'refused' && (
+            <button type="button" onClick={() => useAppStore.getState().undo()}>
+              Undo paste
+            </button>
+          )}{' '}
           <button type="button" className="linklike" onClick={dismissPasteNotice} aria-label="Dismiss paste notice">
             Dismiss
           </button>
@@ -356,8 +429,8 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         </table>
       </div>
       <p id="sheet-help" className="help">
-        Paste rows from a spreadsheet or CSV onto any cell. A header row (kind, maturity, rate, price, coupon, frequency, day count) replaces the sheet; rows without a header
-        fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y or 2031-11-15; prices per 100 (99.875 or 99-28).
+        Paste rows from a spreadsheet or CSV onto any cell. A header row (kind or type, maturity or tenor, rate or yield, price or px, coupon or cpn, frequency, day count) shows
+        how each column is read before you replace or append to the sheet; rows without a header fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y, 2031-11-15, 15-Nov-2031 or a numeric date in the chosen order; prices per 100 (99.875 or 99-28).
       </p>
     </section>
   );

@@ -7,6 +7,7 @@ import {
   DAY_COUNTS,
   DEFAULT_KEY_TENORS,
   isIsoDate,
+  parsePriceText,
   parseTenor,
   quoteDv01s,
   type BondInput,
@@ -48,11 +49,14 @@ function readForm(f: BondForm, settlement: string): BondInput | string {
   if (f.coupon.trim() === '' || !Number.isFinite(coupon)) return `Coupon: type a percent per year such as 4.25, not "${f.coupon}"`;
   const base = { maturity, coupon: coupon / 100, frequency: Number(f.frequency), dayCount: f.dayCount };
   if (f.quoteKind === 'none') return base;
-  const q = Number(f.quote);
-  if (f.quote.trim() === '' || !Number.isFinite(q)) {
-    return f.quoteKind === 'price' ? `Market clean price: type a price per 100 face such as 101.25, not "${f.quote}"` : `Market yield: type a percent such as 4.10, not "${f.quote}"`;
+  if (f.quoteKind === 'price') {
+    // The sheet's own price reading: decimals or points-32nds (102-05, 99-28+), exact.
+    const p = parsePriceText(f.quote);
+    return p.ok ? { ...base, cleanPrice: p.value } : `Market clean price: ${p.message}`;
   }
-  return f.quoteKind === 'price' ? { ...base, cleanPrice: q } : { ...base, yield: q / 100 };
+  const q = Number(f.quote);
+  if (f.quote.trim() === '' || !Number.isFinite(q)) return `Market yield: type a percent such as 4.10, not "${f.quote}"`;
+  return { ...base, yield: q / 100 };
 }
 
 /**

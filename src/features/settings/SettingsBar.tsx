@@ -1,4 +1,4 @@
-import { memo } from 'react';
+import { memo, useEffect, useState } from 'react';
 import {
   COMPOUNDINGS,
   CURVE_DAY_COUNTS,
@@ -34,14 +34,43 @@ function unknownOption(known: readonly (string | number)[], value: unknown) {
   );
 }
 
+/**
+ * The settlement date as a plain date input. While a year is being typed the browser reports
+ * partial years ("0002-03-10"); those stay in the field and only a complete date the engine
+ * takes (`isIsoDate`) is applied, so the curve never empties mid-typing and the field never resets.
+ * A date set elsewhere (undo, a file) replaces what the field shows.
+ */
+function SettlementField() {
+  const settlement = useAppStore((s) => s.workspace.settlement);
+  const setSettlement = useAppStore((s) => s.setSettlement);
+  const [draft, setDraft] = useState(isIsoDate(settlement) ? settlement : '');
+  useEffect(() => {
+    if (isIsoDate(settlement)) setDraft(settlement);
+  }, [settlement]);
+  const badDate = !isIsoDate(settlement);
+  return (
+    <input
+      type="date"
+      value={draft}
+      aria-invalid={badDate || undefined}
+      onChange={(e) => {
+        setDraft(e.target.value);
+        if (isIsoDate(e.target.value)) setSettlement(e.target.value);
+      }}
+      onBlur={() => {
+        if (isIsoDate(settlement) && draft !== settlement) setDraft(settlement);
+      }}
+    />
+  );
+}
+
 /** Curve and display settings. One display setting re-expresses every rate on screen; all are off while the document is read-only. */
 export const SettingsBar = memo(function SettingsBar() {
-  const settlement = useAppStore((s) => s.workspace.settlement);
   const curve = useAppStore((s) => s.workspace.curve);
   const display = useAppStore((s) => s.workspace.display);
   const readOnly = useAppStore((s) => s.readOnly !== null);
-  const { setSettlement, setCurve, setDisplay } = useAppStore.getState();
-  const badDate = !isIsoDate(settlement);
+  const badDate = useAppStore((s) => !isIsoDate(s.workspace.settlement));
+  const { setCurve, setDisplay } = useAppStore.getState();
   const knownTag = (COMPOUNDINGS as readonly string[]).includes(display.compounding) && (CURVE_DAY_COUNTS as readonly string[]).includes(display.dayCount);
   return (
     <section className="settings" aria-label="Settings">
@@ -49,7 +78,7 @@ export const SettingsBar = memo(function SettingsBar() {
         <legend>Curve</legend>
         <label>
           Settlement
-          <input type="date" value={isIsoDate(settlement) ? settlement : ''} aria-invalid={badDate || undefined} onChange={(e) => setSettlement(e.target.value)} />
+          <SettlementField />
         </label>
         <label>
           Curve day count

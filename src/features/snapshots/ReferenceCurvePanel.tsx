@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
-import { parseReferenceCsv, referenceConvention, referenceDifferences } from '../../core/index.ts';
+import { parseReferenceCsv, QUOTE_UNIT_LABEL, QUOTE_UNIT_MODES, referenceConvention, referenceDifferences, type QuoteUnitMode } from '../../core/index.ts';
+import { useAppStore } from '../../state/store.ts';
 import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
 import { formatBp, formatPct } from '../scenarios/formatChange.ts';
 
@@ -12,7 +13,11 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
   const [fileError, setFileError] = useState<string | null>(null);
   const [compounding, setCompounding] = useState<Compounding>('continuous');
   const [dayCount, setDayCount] = useState<CurveDayCount>('ACT/365F');
-  const parsed = useMemo(() => (text.trim() === '' ? null : parseReferenceCsv(text, compounding, dayCount)), [text, compounding, dayCount]);
+  // Bare zero rates are read as on the sheet: in the sheet's unit unless chosen here (3.05%, 305bp always carry their own).
+  const sheetUnit = useAppStore((s) => s.workspace.quoteUnit);
+  const [unitChoice, setUnit] = useState<QuoteUnitMode | null>(null);
+  const unit = unitChoice ?? sheetUnit;
+  const parsed = useMemo(() => (text.trim() === '' ? null : parseReferenceCsv(text, compounding, dayCount, unit)), [text, compounding, dayCount, unit]);
   const rows = parsed?.reference && curve ? referenceDifferences(curve, parsed.reference) : [];
   return (
     <section className="reference-panel" aria-label="Reference curve">
@@ -47,6 +52,16 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
           </select>
         </label>
         <label>
+          Bare zero rates in
+          <select value={unit} onChange={(e) => setUnit(e.target.value as QuoteUnitMode)}>
+            {QUOTE_UNIT_MODES.map((m) => (
+              <option key={m} value={m}>
+                {QUOTE_UNIT_LABEL[m]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label>
           Day count
           <select value={dayCount} onChange={(e) => setDayCount(e.target.value as CurveDayCount)}>
             {CURVE_DAY_COUNTS.map((d) => (
@@ -65,6 +80,14 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
           {parsed.errors.slice(0, 8).map((e, i) => (
             <li key={i}>{e.message}</li>
           ))}
+        </ul>
+      )}
+      {parsed && parsed.warnings.length > 0 && (
+        <ul className="field-warning" role="status">
+          {parsed.warnings.slice(0, 8).map((w, i) => (
+            <li key={i}>Check: {w}</li>
+          ))}
+          {parsed.warnings.length > 8 && <li>and {parsed.warnings.length - 8} more rows like these</li>}
         </ul>
       )}
       {rows.length > 0 && parsed?.reference && (

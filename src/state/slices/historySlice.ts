@@ -31,12 +31,14 @@ export const createHistorySlice: StateCreator<AppState, [], [], HistorySlice> = 
     const s = get();
     // A read-only document (settings this build does not know) takes no edit of any kind.
     if (next === s.workspace || s.readOnly) return;
+    // Any edit ends the paste notice: its "Undo paste" and "Append instead" act on the paste only
+    // while the paste is the last step (a paste sets its notice after its own commit).
     if (mergeKey !== null && mergeKey === s.lastEditKey && s.past.length > 0) {
-      set({ workspace: next, future: [], lastEditLabel: label });
+      set({ workspace: next, future: [], lastEditLabel: label, pasteNotice: null });
       return;
     }
     const past = s.past.length >= HISTORY_CAP ? [...s.past.slice(s.past.length - HISTORY_CAP + 1), s.workspace] : [...s.past, s.workspace];
-    set({ workspace: next, past, future: [], lastEditKey: mergeKey, lastEditLabel: label });
+    set({ workspace: next, past, future: [], lastEditKey: mergeKey, lastEditLabel: label, pasteNotice: null });
   },
   endEdit() {
     if (get().lastEditKey !== null) set({ lastEditKey: null });
@@ -53,6 +55,6 @@ export const createHistorySlice: StateCreator<AppState, [], [], HistorySlice> = 
     if (s.readOnly) return;
     const next = s.future[s.future.length - 1];
     if (!next) return;
-    set({ workspace: next, past: [...s.past, s.workspace], future: s.future.slice(0, -1), lastEditKey: null, lastEditLabel: null });
+    set({ workspace: next, past: [...s.past, s.workspace], future: s.future.slice(0, -1), lastEditKey: null, lastEditLabel: null, pasteNotice: null });
   },
 });

@@ -1,10 +1,12 @@
 import type { StateCreator } from 'zustand';
-import type { QuoteRow, RowText } from '../../core/index.ts';
+import type { PastedBlock, PastePreview, QuoteRow, RowText } from '../../core/index.ts';
 import type { AppState } from '../appState.ts';
 
 /** What the last paste did, so the user can choose to append instead. */
 export interface PasteNotice {
-  readonly mode: 'replaced' | 'filled' | 'appended';
+  /** refused: a header paste that would have left no quote (or too many rows) did nothing; `message` says why. */
+  readonly mode: 'replaced' | 'filled' | 'appended' | 'refused';
+  readonly message?: string;
   readonly rows: number;
   readonly ignoredColumns: readonly string[];
   /** For a replace: the quotes before it and the pasted rows, to append instead. */
@@ -14,6 +16,12 @@ export interface PasteNotice {
   readonly leftOut?: number;
   /** Pasted cells longer than LIMITS.cell characters, cut to that length. */
   readonly clippedCells?: number;
+}
+
+/** A header paste waiting for the user's choice, with how each column was read. */
+export interface PendingPaste {
+  readonly block: PastedBlock;
+  readonly preview: PastePreview & { readonly appendRefusal: string | null };
 }
 
 /** Where the workspace is kept and what went wrong keeping it. */
@@ -40,10 +48,16 @@ export interface UiSlice {
   /** The sheet row whose schedule and repricing details are open. */
   selectedRowId: string | null;
   pasteNotice: PasteNotice | null;
+  /** A header paste shown as a column-mapping preview; nothing is replaced until the user confirms. */
+  pendingPaste: PendingPaste | null;
+  /** A large paste being read in a worker: its size and, once split, its rows. */
+  pasteProgress: { readonly chars: number; readonly rows: number | null } | null;
   storage: StorageStatus;
   setActiveTab(tab: TabId): void;
   selectRow(id: string | null): void;
   dismissPasteNotice(): void;
+  cancelPaste(): void;
+  setPasteProgress(progress: UiSlice['pasteProgress']): void;
   setStorage(patch: Partial<StorageStatus>): void;
 }
 
@@ -62,9 +76,13 @@ export const createUiSlice: StateCreator<AppState, [], [], UiSlice> = (set) => (
   activeTab: 'key-maturities',
   selectedRowId: null,
   pasteNotice: null,
+  pendingPaste: null,
+  pasteProgress: null,
   storage: INITIAL_STORAGE,
   setActiveTab: (tab) => set({ activeTab: tab }),
   selectRow: (id) => set({ selectedRowId: id }),
   dismissPasteNotice: () => set({ pasteNotice: null }),
+  cancelPaste: () => set({ pendingPaste: null, pasteProgress: null }),
+  setPasteProgress: (progress) => set({ pasteProgress: progress }),
   setStorage: (patch) => set((s) => ({ storage: { ...s.storage, ...patch } })),
 });

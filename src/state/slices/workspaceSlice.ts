@@ -3,8 +3,14 @@ import {
   capRows,
   EMPTY_ROW_TEXT,
   LIMITS,
+  conventionsOf,
+  rewriteDateOrder,
+  withDecimalPoint,
+  type InputConventions,
+  previewPaste,
   QUOTE_COLUMNS,
   readPastedBlock,
+  type PastedBlock,
   rewriteBareRate,
   type DisplaySettings,
   type QuoteColumn,
@@ -14,6 +20,7 @@ import {
   type WorkbenchDocument,
 } from '../../core/index.ts';
 import type { AppState } from '../appState.ts';
+import type { PendingPaste } from './uiSlice.ts';
 import { demoWorkspace } from '../demoWorkspace.ts';
 import { makeRowId } from '../ids.ts';
 import { maturitySortKey } from '../maturitySort.ts';
@@ -41,10 +48,27 @@ export interface WorkspaceSlice {
   /** Switches how bare numbers are read; bare rate and coupon texts are re-written so their values stay the same. */
   setQuoteUnit(mode: QuoteUnitMode): void;
   /**
+   * Sets how typed dates and numbers are read (date order, decimal mark). A numeric date is
+   * re-written in the new order so it keeps its date; a change of decimal mark changes no value
+   * read before (numbers without a comma read the same either way).
+   */
+  setConventions(patch: Partial<InputConventions>): void;
+  /**
    * Pastes a block. With a header row it replaces the sheet (the notice offers to append
    * instead); without one it fills from the target cell in column order.
    */
   pasteText(text: string, target: PasteTarget | null): void;
+  /**
+   * The sheet's paste: a block with a header is shown as a column-mapping preview (`pendingPaste`)
+   * and nothing changes until `confirmPaste`; a block without one fills from the target cell.
+   */
+  previewPasteText(text: string, target: PasteTarget | null): void;
+  /** previewPasteText for a block already read (by the paste worker), with its preview when it has a header. */
+  receivePastedBlock(block: PastedBlock, target: PasteTarget | null, preview?: PendingPaste['preview'] | null): void;
+  /** Reports a paste refused before it was read (its size), changing nothing. */
+  refusePaste(message: string): void;
+  /** Applies the previewed paste: replacing the sheet (refused when it would leave no quote) or appended. */
+  confirmPaste(how: 'replace' | 'append'): void;
   /** Turns the last replacing paste into an append (one undo step either way). */
   appendInstead(): void;
   setReserved(key: ReservedKey, value: unknown): void;
@@ -73,6 +97,64 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
   const ws = (): WorkbenchDocument => get().workspace;
   const withQuotes = (quotes: readonly QuoteRow[]): WorkbenchDocument => ({ ...ws(), quotes });
   const mapRow = (rowId: string, f: (r: QuoteRow) => QuoteRow): readonly QuoteRow[] => ws().quotes.map((r) => (r.id === rowId ? f(r) : r));
+  /**
+   * A header paste: replaces the sheet or appends to it, unless the preview refuses (no quote among
+   * the rows kept). Beyond the quote cap the first rows are kept and the notice says how many were
+   * left out; a cell longer than the cell cap is cut and counted.
+   */
+  const applyHeaderPaste = (block: PastedBlock, how: 'replace' | 'append'): void => {
+    const before = ws().quotes;
+    const preview = previewPaste(block, ws().quoteUnit, before.length, conventionsOf(ws()));
+    const refusal = how === 'replace' ? preview.refusal : preview.appendRefusal;
+    if (refusal) {
+      set({ pasteNotice: { mode: 'refused', rows: block.rows.length, ignoredColumns: block.ignored, message: refusal } });
+      return;
+    }
+    let clippedCells = 0;
+    const clipped = (): void => {
+      clippedCells++;
+    };
+    const { rows: kept, leftOut } = capRows(block.rows, how === 'replace' ? 0 : before.length);
+    const pasted = kept.map((r) => capRowText(r, clipped) as RowText);
+    if (how === 'replace') {
+      get().commit(withQuotes(pasted.map((r) => newRow(r))), 'paste (replace sheet)');
+      set({ pasteNotice: { mode: 'replaced', rows: pasted.length, ignoredColumns: block.ignored, before, pasted, leftOut, clippedCells } });
+    } else {
+      get().commit(withQuotes([...before, ...pasted.map((r) => newRow(r))]), 'paste (append)');
+      set({ pasteNotice: { mode: 'appended', rows: pasted.length, ignoredColumns: block.ignored, leftOut, clippedCells } });
+    }
+  };
+  /**
+   * A header-less paste: fills from the target cell in column order, adding rows past the end up
+   * to the quote cap (a sheet already over it, from an older build, keeps its rows); rows beyond
+   * are left out and counted, a cell beyond the cell cap is cut and counted.
+   */
+  const fillFrom = (block: PastedBlock, target: PasteTarget | null): void => {
+    if (block.cells.length === 0) return;
+    let clippedCells = 0;
+    const quotes = [...ws().quotes];
+    const startRow = target ? Math.max(0, target.row) : quotes.length;
+    const startCol = target ? QUOTE_COLUMNS.indexOf(target.column) : 0;
+    const lastRow = Math.max(LIMITS.quotes, quotes.length);
+    const { rows: cells, leftOut } = capRows(block.cells, LIMITS.quotes - Math.max(0, lastRow - startRow));
+    cells.forEach((rowCells, i) => {
+      const at = startRow + i;
+      const base = quotes[at] ?? newRow();
+      const patch: Partial<Record<QuoteColumn, string>> = {};
+      rowCells.forEach((value, j) => {
+        const col = QUOTE_COLUMNS[startCol + j];
+        if (col) {
+          if (value.length > LIMITS.cell) clippedCells++;
+          patch[col] = capCell(value);
+        }
+      });
+      const row = { ...base, ...patch };
+      if (at < quotes.length) quotes[at] = row;
+      else quotes.push(row);
+    });
+    if (cells.length > 0) get().commit(withQuotes(quotes), 'paste');
+    set({ pasteNotice: { mode: 'filled', rows: cells.length, ignoredColumns: [], leftOut, clippedCells } });
+  };
   return {
     workspace: demoWorkspace(makeRowId),
     setCell(rowId, column, text) {
@@ -103,7 +185,8 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     sortByMaturity() {
       const settlement = ws().settlement;
-      const keyed = ws().quotes.map((r, i) => ({ r, i, k: maturitySortKey(r.maturity, settlement) }));
+      const order = conventionsOf(ws()).dateOrder;
+      const keyed = ws().quotes.map((r, i) => ({ r, i, k: maturitySortKey(r.maturity, settlement, order) }));
       keyed.sort((a, b) => a.k - b.k || a.i - b.i);
       if (keyed.every((x, i) => x.i === i)) return;
       get().commit(withQuotes(keyed.map((x) => x.r)), 'sort by maturity');
@@ -122,53 +205,61 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     setQuoteUnit(mode) {
       const from = ws().quoteUnit;
       if (from === mode) return;
+      const mark = conventionsOf(ws()).decimalMark;
+      // With a decimal comma, the number is re-written through its point form and given its comma back.
+      const rewrite = (text: string): string => {
+        const point = withDecimalPoint(text, mark);
+        const out = rewriteBareRate(point, from, mode);
+        return out === point ? text : mark === ',' ? out.replace('.', ',') : out;
+      };
       const quotes = ws().quotes.map((r) => {
-        const rate = rewriteBareRate(r.rate, from, mode);
-        const coupon = rewriteBareRate(r.coupon, from, mode);
+        const rate = rewrite(r.rate);
+        const coupon = rewrite(r.coupon);
         return rate === r.rate && coupon === r.coupon ? r : { ...r, rate, coupon };
       });
       get().commit({ ...ws(), quoteUnit: mode, quotes }, 'quote unit');
     },
+    setConventions(patch) {
+      const before = conventionsOf(ws());
+      const next = { ...before, ...patch };
+      if (next.dateOrder === before.dateOrder && next.decimalMark === before.decimalMark) return;
+      const quotes =
+        next.dateOrder === before.dateOrder
+          ? ws().quotes
+          : ws().quotes.map((r) => {
+              const maturity = rewriteDateOrder(r.maturity, before.dateOrder, next.dateOrder);
+              return maturity === r.maturity ? r : { ...r, maturity };
+            });
+      get().commit({ ...ws(), quotes, display: { ...ws().display, ...next } }, 'date and number settings');
+    },
     pasteText(text, target) {
       if (get().readOnly) return;
       const block = readPastedBlock(text);
-      let clippedCells = 0;
-      const clipped = (): void => {
-        clippedCells++;
-      };
-      if (block.header) {
-        const before = ws().quotes;
-        // The first rows up to the cap are kept; the notice says how many were left out.
-        const { rows: kept, leftOut } = capRows(block.rows);
-        const pasted = kept.map((r) => capRowText(r, clipped) as RowText);
-        get().commit(withQuotes(pasted.map((r) => newRow(r))), 'paste (replace sheet)');
-        set({ pasteNotice: { mode: 'replaced', rows: pasted.length, ignoredColumns: block.ignored, before, pasted, leftOut, clippedCells } });
+      if (block.header) applyHeaderPaste(block, 'replace');
+      else fillFrom(block, target);
+    },
+    previewPasteText(text, target) {
+      if (get().readOnly) return;
+      get().receivePastedBlock(readPastedBlock(text), target);
+    },
+    receivePastedBlock(block, target, preview = null) {
+      set({ pasteProgress: null });
+      if (get().readOnly) return;
+      if (!block.header) {
+        set({ pendingPaste: null });
+        fillFrom(block, target);
         return;
       }
-      if (block.cells.length === 0) return;
-      const quotes = [...ws().quotes];
-      const startRow = target ? Math.max(0, target.row) : quotes.length;
-      const startCol = target ? QUOTE_COLUMNS.indexOf(target.column) : 0;
-      // Rows past the cap are not added (a sheet already over it, from an older build, keeps its rows).
-      const lastRow = Math.max(LIMITS.quotes, quotes.length);
-      const { rows: cells, leftOut } = capRows(block.cells, LIMITS.quotes - Math.max(0, lastRow - startRow));
-      cells.forEach((rowCells, i) => {
-        const at = startRow + i;
-        const base = quotes[at] ?? newRow();
-        const patch: Partial<Record<QuoteColumn, string>> = {};
-        rowCells.forEach((value, j) => {
-          const col = QUOTE_COLUMNS[startCol + j];
-          if (col) {
-            if (value.length > LIMITS.cell) clippedCells++;
-            patch[col] = capCell(value);
-          }
-        });
-        const row = { ...base, ...patch };
-        if (at < quotes.length) quotes[at] = row;
-        else quotes.push(row);
-      });
-      if (cells.length > 0) get().commit(withQuotes(quotes), 'paste');
-      set({ pasteNotice: { mode: 'filled', rows: cells.length, ignoredColumns: [], leftOut, clippedCells } });
+      set({ pendingPaste: { block, preview: preview ?? previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())) } });
+    },
+    refusePaste(message) {
+      set({ pendingPaste: null, pasteProgress: null, pasteNotice: { mode: 'refused', rows: 0, ignoredColumns: [], message } });
+    },
+    confirmPaste(how) {
+      const pending = get().pendingPaste;
+      if (!pending) return;
+      set({ pendingPaste: null });
+      applyHeaderPaste(pending.block, how);
     },
     appendInstead() {
       const notice = get().pasteNotice;
@@ -179,7 +270,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       const s = get();
       const prior = s.past[s.past.length - 1];
       if (prior && prior.quotes === notice.before) {
-        set({ workspace: { ...ws(), quotes }, future: [] });
+        set({ workspace: { ...ws(), quotes }, future: [], lastEditKey: null });
       } else get().commit(withQuotes(quotes), 'paste (append)');
       set({ pasteNotice: { mode: 'appended', rows: appended.length, ignoredColumns: notice.ignoredColumns, leftOut: leftOut + (notice.leftOut ?? 0), clippedCells: notice.clippedCells ?? 0 } });
     },
@@ -191,7 +282,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     replaceWorkspace(doc, label) {
       get().commit(doc, label);
-      set({ selectedRowId: null, pasteNotice: null });
+      set({ selectedRowId: null, pasteNotice: null, pendingPaste: null });
     },
     resetToDemo() {
       get().replaceWorkspace(demoWorkspace(makeRowId), 'reset to demo');

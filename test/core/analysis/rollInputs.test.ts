@@ -31,12 +31,12 @@ describe('validateStrategy', () => {
   });
 
   it('names the path of every bad field, says what would be valid, and falls back to the default', () => {
-    const { strategy, errors } = validateStrategy({ amount: '1,000,000', horizon: 'two years', rollTenor: '2M', rollDayCount: 'ACT/ACT-ICMA', bondFrequency: 3, shiftBp: 5000, path: { fill: 'wiggle', constant: 4.5, legs: [0.03, 'x'] }, colour: 'red' });
+    const { strategy, errors } = validateStrategy({ amount: '1 000 000', horizon: 'two years', rollTenor: '2M', rollDayCount: 'ACT/ACT-ICMA', bondFrequency: 3, shiftBp: 5000, path: { fill: 'wiggle', constant: 4.5, legs: [0.03, 'x'] }, colour: 'red' });
     const byPath = Object.fromEntries(errors.map((e) => [e.path, e.message]));
     expect(Object.keys(byPath).sort()).toEqual(
       ['strategy.amount', 'strategy.bondFrequency', 'strategy.colour', 'strategy.horizon', 'strategy.path.constant', 'strategy.path.fill', 'strategy.path.legs[1]', 'strategy.rollDayCount', 'strategy.rollTenor', 'strategy.shiftBp'].sort(),
     );
-    expect(byPath['strategy.amount']).toMatch(/^strategy\.amount: .*leave out thousands separators/);
+    expect(byPath['strategy.amount']).toMatch(/^strategy\.amount: .*group thousands with commas, or leave them out/);
     expect(byPath['strategy.horizon']).toMatch(/^strategy\.horizon: must be a tenor such as "2Y"/);
     expect(byPath['strategy.rollTenor']).toContain('1M, 3M, 6M, 1Y');
     expect(byPath['strategy.path.constant']).toContain('rates are decimals: 0.05 = 5%');
@@ -54,10 +54,21 @@ describe('validateStrategy', () => {
 });
 
 describe('money', () => {
-  it('parses typed amounts exactly and refuses separators, signs and zero', () => {
+  it('parses typed amounts exactly and refuses badly grouped separators, signs and zero', () => {
     const m = parseMoney('1000000.10');
     expect(m.ok && m.value.toFixed()).toBe('1000000.1');
-    for (const bad of ['1,000', '-5', '0', '', '1e6', '12.1234567']) expect(parseMoney(bad).ok, bad).toBe(false);
+    for (const bad of ['1,00', '10,0000', ',100', '1 000', '-5', '0', '', '1e6', '12.1234567', '10x', '-10m', '1.0000000001k']) expect(parseMoney(bad).ok, bad).toBe(false);
+  });
+
+  // Amounts as desks write them: thousands grouped by commas, and k / m (mm) / bn suffixes
+  // (common practice on trading desks; "mm" for million is US usage).
+  it('reads 10,000,000, 10m, 10mm, 2.5bn and 250k exactly', () => {
+    for (const [text, exact] of [['10,000,000', '10000000'], ['1,234,567.89', '1234567.89'], ['10m', '10000000'], ['10MM', '10000000'], ['2.5bn', '2500000000'], ['250k', '250000'], ['1.25m', '1250000'], ['0.000001m', '1']] as const) {
+      const r = parseMoney(text);
+      expect(r.ok && r.value.toFixed(), text).toBe(exact);
+    }
+    expect(parseMoney('1,5').ok).toBe(false);
+    expect(!parseMoney('1,5').ok && (parseMoney('1,5') as { message: string }).message).toMatch(/groups thousands in threes/);
   });
 
   it('rounds to cents half away from zero only for display (common practice for cash display)', () => {

@@ -96,3 +96,27 @@ describe('parseReferenceCsv / referenceDifferences', () => {
     expect(parseReferenceCsv('when,value\n', 'continuous', 'ACT/365F').errors[0]!.message).toContain('"date" column');
   });
 });
+
+// The reference import reads zero rates with the sheet's unit rules (readRate: a % or bp suffix
+// carries its unit; a bare number is read in the mode) and flags values implausible for their
+// column (bounds in scenarioReference.ts, the project's judgement).
+describe('parseReferenceCsv units', () => {
+  it('accepts 3.05% and 305bp in any mode, and a bare 3.05 in % mode, all as 0.0305', () => {
+    for (const [cell, mode] of [['3.05%', 'decimal'], ['305bp', 'percent'], ['3.05', 'percent'], ['0.0305', 'decimal']] as const) {
+      const { reference, errors, warnings } = parseReferenceCsv(`date,zero\n2030-01-02,${cell}\n`, 'continuous', 'ACT/365F', mode);
+      expect(errors, `${cell} in ${mode}`).toEqual([]);
+      expect(warnings).toEqual([]);
+      expect(reference!.points[0]!.value).toBe(0.0305);
+    }
+  });
+  it('refuses a bare 3.05 read as a decimal (305%) with "did you mean 3.05%?", as the sheet does', () => {
+    const { reference, errors } = parseReferenceCsv('date,zero\n2030-01-02,3.05\n', 'continuous', 'ACT/365F', 'decimal');
+    expect(reference).toBeNull();
+    expect(errors[0]!.message).toBe('row 2, zero: 3.05 as a decimal is 305%: did you mean 3.05%? Type 3.05% or 0.0305, or read bare numbers in %');
+  });
+  it('warns when values are implausible for their column: 0.0305 in % mode, 30.5%, a discount factor of 97.31', () => {
+    expect(parseReferenceCsv('date,zero\n2030-01-02,0.0305\n', 'continuous', 'ACT/365F', 'percent').warnings[0]).toMatch(/row 2, zero: 0\.0305 in % mode .* did you mean 3\.05%\?/);
+    expect(parseReferenceCsv('date,zero\n2030-01-02,30.5%\n', 'continuous', 'ACT/365F', 'percent').warnings[0]).toBe('row 2, zero: 30.5% is implausible for a zero rate (about -5% to 25%)');
+    expect(parseReferenceCsv('date,discount\n2030-01-02,97.31\n', 'continuous', 'ACT/365F').warnings[0]).toMatch(/row 2, discount: 97\.31 is implausible for a discount factor .*did you mean 0\.9731\?/);
+  });
+});

@@ -1,6 +1,6 @@
 // The paste reader: tab-separated text as spreadsheets put it on the clipboard, and CSV as in
 // RFC 4180 (quoted fields, doubled quotes).
-import { headerColumn, looksLikeTable, readPastedBlock, splitTable } from '../../../src/core/input/index.ts';
+import { headerColumn, looksLikeTable, PASTE_TEXT_MAX, pasteQuoteCap, pasteSizeRefusal, previewPaste, readPastedBlock, splitTable } from '../../../src/core/input/index.ts';
 
 describe('splitTable', () => {
   it('splits tab-separated rows, dropping blank lines and trailing newlines', () => {
@@ -52,5 +52,86 @@ describe('looksLikeTable', () => {
     expect(looksLikeTable('3.25')).toBe(false);
     expect(looksLikeTable('3,25')).toBe(false);
     expect(looksLikeTable('swap,10Y,4.02')).toBe(true);
+  });
+});
+
+// Delimiter detection and header words for real sheets. CSV quoting is RFC 4180 (a quoted field
+// may hold the delimiter); the short header forms (px, cpn, mat, yld, mid) are common practice on
+// trading sheets, not a standard.
+describe('splitTable: delimiter detection', () => {
+  it('a tab inside a quoted CSV field leaves the block comma-separated (RFC 4180 section 2, rule 6)', () => {
+    const { cells, separator } = splitTable('kind,maturity,rate,note\nswap,10Y,4.02,"desk\tA"\ndeposit,3M,4.4,"b"\n');
+    expect(separator).toBe(',');
+    expect(cells).toEqual([
+      ['kind', 'maturity', 'rate', 'note'],
+      ['swap', '10Y', '4.02', 'desk\tA'],
+      ['deposit', '3M', '4.4', 'b'],
+    ]);
+  });
+  it('a quoted field may hold a line break (RFC 4180 section 2, rule 6)', () => {
+    expect(splitTable('kind,note\nswap,"two\nlines"').cells).toEqual([
+      ['kind', 'note'],
+      ['swap', 'two\nlines'],
+    ]);
+  });
+  it('tab-separated rows with decimal commas stay tab-separated (the wider consistent reading wins)', () => {
+    expect(splitTable('deposit\t3M\t4,4\nswap\t10Y\t4,02').separator).toBe('\t');
+  });
+  it('semicolon-separated CSV (where the comma is the decimal mark) is read by semicolons', () => {
+    const { cells, separator } = splitTable('kind;maturity;rate\nswap;10Y;4,02\ndeposit;3M;4,4');
+    expect(separator).toBe(';');
+    expect(cells[1]).toEqual(['swap', '10Y', '4,02']);
+  });
+});
+
+describe('readPastedBlock: header words of real sheets', () => {
+  it('reads mat / px / cpn / type as maturity, price, coupon and kind, and shows how each column was read', () => {
+    const block = readPastedBlock('Type\tMat\tPx\tCpn\tDesk\nbond\t2031-11-15\t99-16\t4.25\tA\n');
+    expect(block.rows).toEqual([{ kind: 'bond', maturity: '2031-11-15', rate: '', price: '99-16', coupon: '4.25', frequency: '', dayCount: '' }]);
+    expect(block.columns.map((c) => c.column)).toEqual(['kind', 'maturity', 'price', 'coupon', null]);
+    expect(block.columns[4]!.reason).toMatch(/not a known column/);
+    expect(block.columns[2]!.sample).toEqual(['99-16']);
+  });
+  it('"mid" is read as prices when its values look like prices per 100, as rates otherwise', () => {
+    expect(readPastedBlock('instrument,tenor,mid\nbond,5Y,99.5\nbond,10Y,101-08').columns[2]!.column).toBe('price');
+    expect(readPastedBlock('instrument,tenor,mid\nswap,5Y,3.9\nswap,10Y,4.02').columns[2]!.column).toBe('rate');
+  });
+  it('a column named twice is read from its first occurrence; the second is listed as ignored', () => {
+    const block = readPastedBlock('kind,tenor,yield,rate\nswap,5Y,3.9,9.9');
+    expect(block.rows[0]!.rate).toBe('3.9');
+    expect(block.columns[3]!.column).toBeNull();
+    expect(block.ignored).toEqual(['rate']);
+  });
+});
+
+describe('previewPaste', () => {
+  it('counts the rows that read as quotes and refuses a replacement that would leave no quote', () => {
+    const good = previewPaste(readPastedBlock('kind,tenor,rate\nswap,5Y,3.9\nswap,xx,4'), 'percent');
+    expect(good).toMatchObject({ rows: 2, quotes: 1, withErrors: 1, refusal: null });
+    const none = previewPaste(readPastedBlock('kind,tenor,rate\nfoo,5Y,3.9\nbar,10Y,4'), 'percent');
+    expect(none.quotes).toBe(0);
+    expect(none.refusal).toMatch(/none of the 2 pasted rows reads as a quote/);
+  });
+  it('keeps the first rows up to the document cap on quotes and counts the rest (the paste reads the cap through pasteQuoteCap)', () => {
+    const cap = pasteQuoteCap();
+    const text = ['kind,tenor,rate', ...Array.from({ length: cap + 1 }, (_, i) => `swap,${i + 1}Y,4`)].join('\n');
+    const p = previewPaste(readPastedBlock(text), 'percent', 10);
+    expect(p.refusal).toBeNull();
+    expect(p).toMatchObject({ rows: cap + 1, quotes: cap, leftOut: 1, appendLeftOut: 11 });
+    const full = previewPaste(readPastedBlock('kind,tenor,rate\nswap,5Y,4'), 'percent', cap);
+    expect(full.appendRefusal).toMatch(new RegExp(`already holds ${cap} rows, the most it takes`));
+  });
+});
+
+describe('pasteSizeRefusal', () => {
+  it('names the cause: a block above PASTE_TEXT_MAX characters, or one cell value above the cell cap', () => {
+    expect(pasteSizeRefusal(5_000_000, true)).toBe(`the pasted text is 5.0 MB; a paste is read up to 1.0 MB (the sheet holds at most ${pasteQuoteCap()} quotes). Paste fewer rows`);
+    expect(pasteSizeRefusal(5_000_000, false)).toBe('the pasted text is 5.0 MB; a cell holds at most 64 characters');
+    expect(pasteSizeRefusal(PASTE_TEXT_MAX, true)).toBeNull();
+    expect(pasteSizeRefusal(64, false)).toBeNull();
+  });
+  it('looksLikeTable reads only the start of a long one-line text', () => {
+    expect(looksLikeTable(`swap,${'x'.repeat(3_000_000)}`)).toBe(true);
+    expect(looksLikeTable('x'.repeat(3_000_000))).toBe(false);
   });
 });

@@ -60,7 +60,10 @@ describe('parseRateText(text, mode) reads rates exactly', () => {
   });
 
   it('rates outside the engine range -10% to 100% are refused with the range in percent', () => {
-    expect(message(parseRateText('150', 'percent', 'rate'))).toBe('rate 150% is out of range; a rate must be from -10% to 100%');
+    expect(message(parseRateText('150', 'percent', 'rate'))).toBe(
+      'rate 150% is out of range; a rate must be from -10% to 100%. 150 in % mode is 150%: did you mean 1.5%? If so type 1.5, or 150bp, or switch the unit to bp',
+    );
+    expect(message(parseRateText('150%', 'percent', 'rate'))).toBe('rate 150% is out of range; a rate must be from -10% to 100%');
     expect(message(parseRateText('-11%', 'percent', 'rate'))).toMatch(/from -10% to 100%/);
   });
 
@@ -141,3 +144,25 @@ describe('rewriteBareRate(text, from, to) keeps the value when the unit switches
     expect(rewriteBareRate('abc', 'percent', 'bp')).toBe('abc');
   });
 });
+
+// Plausibility hints in both directions. The thresholds are the project's own judgement (see
+// rateUnitHint); the arithmetic of each suggestion is exact (decimal.js).
+describe('rateUnitHint: a bare number implausible for its unit', () => {
+  it('0.0315 in percent mode keeps 0.0315% and asks "did you mean 3.15%?"', () => {
+    const p = parseRateText('0.0315', 'percent', 'rate');
+    expect(value(p)).toBe(0.000315);
+    expect(p.ok && p.warning).toMatch(/^0\.0315 in % mode is a rate of 0\.0315%: did you mean 3\.15%\?/);
+  });
+  it('345 in percent mode is refused as out of range and asks "did you mean 3.45%?"', () => {
+    expect(message(parseRateText('345', 'percent', 'rate'))).toMatch(/345 in % mode is 345%: did you mean 3\.45%\? If so type 3\.45, or 345bp/);
+  });
+  it('0.0325 in bp mode asks "did you mean 3.25%?"; plausible values and values with a suffix get no hint', () => {
+    const p = parseRateText('0.0325', 'bp', 'rate');
+    expect(p.ok && p.warning).toMatch(/did you mean 3\.25%\? If so type 325/);
+    for (const [text, mode] of [['3.15', 'percent'], ['0.0315', 'decimal'], ['315', 'bp'], ['0.05%', 'percent'], ['0', 'percent']] as const) {
+      const r = parseRateText(text, mode, 'rate');
+      expect(r.ok && r.warning, `${text} in ${mode}`).toBeUndefined();
+    }
+  });
+});
+
