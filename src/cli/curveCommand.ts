@@ -397,8 +397,11 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
   if ('show' in opts) {
     const text = opts.show === 'help' ? HELP : `curve (Tenorscope) ${COMMAND_VERSION}\n`;
     if (!write) return { stdout: text, stderr: '', status: 0, outputClosed: false };
-    const open = (await write(text)) !== false;
-    return { stdout: '', stderr: '', status: 0, outputClosed: !open };
+    try {
+      return { stdout: '', stderr: '', status: 0, outputClosed: (await write(text)) === false };
+    } catch (e) {
+      return { stdout: '', stderr: `curve: cannot write standard output: ${(e as Error).message}\n`, status: 2, outputClosed: true };
+    }
   }
   let input: InputText;
   try {
@@ -411,6 +414,16 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
   let anyFailed = false;
   let index = 0;
   let closed = false;
+  let writeFailure: unknown = null;
+  /** Hands a piece to the writer; a writer that throws counts as an output that cannot be written. */
+  const put = async (text: string): Promise<void> => {
+    try {
+      if ((await write!(text)) === false) closed = true;
+    } catch (e) {
+      writeFailure = e;
+      closed = true;
+    }
+  };
 
   /** Runs one document (parsed, or the error that stands for it) and queues its line; false once the output is closed. */
   const emit = async (entry: { readonly doc: unknown } | { readonly error: string; readonly code: CoreError['code'] }): Promise<boolean> => {
@@ -434,7 +447,7 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
     if (write && stdout.length >= OUTPUT_CHUNK_CHARS) {
       const piece = stdout;
       stdout = '';
-      if ((await write(piece)) === false) closed = true;
+      await put(piece);
     }
     return !closed;
   };
@@ -459,8 +472,20 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
     return true;
   };
   let first = true;
+  // The lines are pulled by hand so that only a failure to read is reported as one (an exception
+  // from building a document is a bug and is not dressed up as a reading error).
+  const lines = inputLines(input);
   try {
-    for await (const line of inputLines(input)) {
+    for (;;) {
+      let next: IteratorResult<string | LongLine>;
+      try {
+        next = await lines.next();
+      } catch (e) {
+        if (write && stdout !== '' && !closed) await put(stdout);
+        return { stdout: write ? '' : stdout, stderr: `${stderr}curve: cannot read ${opts.file}: ${(e as Error).message}\n`, status: 2, outputClosed: closed };
+      }
+      if (next.done) break;
+      const line = next.value;
       if (typeof line === 'string' && isBlank(line)) {
         if (gathered) {
           gathered.push(line);
@@ -498,27 +523,30 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
       }
       if (!(await emitLine(line))) break;
     }
-    if (!closed && gathered) {
-      let doc: unknown;
-      let parsed = true;
-      try {
-        doc = JSON.parse(gathered.join('\n'));
-      } catch {
-        parsed = false;
-      }
-      if (parsed) {
-        gathered = null;
-        await emit({ doc });
-      } else await emitGathered();
+  } finally {
+    if (closed) await lines.return(undefined).catch(() => undefined); // stopped early: let the source close
+  }
+  if (!closed && gathered) {
+    let doc: unknown;
+    let parsed = true;
+    try {
+      doc = JSON.parse((gathered as string[]).join('\n'));
+    } catch {
+      parsed = false;
     }
-  } catch (e) {
-    if (write && stdout !== '' && !closed) await write(stdout);
-    return { stdout: write ? '' : stdout, stderr: `${stderr}curve: cannot read ${opts.file}: ${(e as Error).message}\n`, status: 2, outputClosed: closed };
+    if (parsed) {
+      gathered = null;
+      await emit({ doc });
+    } else await emitGathered();
   }
   if (!closed && index === 0) await emit({ error: 'the input is empty; give a workspace JSON document', code: 'invalid-json' });
   if (write && stdout !== '' && !closed) {
-    if ((await write(stdout)) === false) closed = true;
+    await put(stdout);
     stdout = '';
+  }
+  if (writeFailure !== null) {
+    const why = writeFailure instanceof Error ? writeFailure.message : String(writeFailure);
+    return { stdout: '', stderr: `${stderr}curve: cannot write standard output: ${why}\n`, status: 2, outputClosed: true };
   }
   return { stdout: closed ? '' : stdout, stderr, status: anyFailed ? 1 : 0, outputClosed: closed };
 }

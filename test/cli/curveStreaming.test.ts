@@ -148,6 +148,15 @@ describe('the writer: back-pressure and a closed output', () => {
   });
 });
 
+describe('a writer that throws', () => {
+  it('stops the command: status 2, the reason on standard error, no exception escapes', async () => {
+    const r = await runCurveCommand(['-'], () => Array.from({ length: 300 }, () => JSON.stringify(doc)).join('\n'), () => {
+      throw new Error('ENOSPC: no space left on device, write');
+    });
+    expect(r).toEqual({ stdout: '', stderr: 'curve: cannot write standard output: ENOSPC: no space left on device, write\n', status: 2, outputClosed: true });
+  });
+});
+
 describe('options', () => {
   it('--help and -h print the help on standard output, exit 0, even beside other arguments', async () => {
     for (const args of [['--help'], ['-h'], ['-', '--at', '2Y', '--help']]) {
