@@ -30,8 +30,10 @@ try {
   command.stdout.destroy(); // the reader holds its own copy of the pipe
   let counted = '';
   counter.stdout.setEncoding('utf8').on('data', (s) => (counted += s));
-  const status = await new Promise((r) => command.on('exit', (code) => r(code)));
-  await new Promise((r) => counter.on('close', r));
+  const exited = new Promise((r) => command.on('exit', (code) => r(code)));
+  const readerDone = new Promise((r) => counter.on('close', r));
+  const status = await exited;
+  await readerDone;
   const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
   const peakMB = Number(readFileSync(peakFile, 'utf8')) / 1024;
   console.log(`${documents} documents into "${reader}": exit ${status}, peak ${peakMB.toFixed(0)} MB, reader's output ${counted.trim()} bytes, ${seconds.toFixed(1)} s`);
