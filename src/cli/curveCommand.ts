@@ -192,6 +192,13 @@ function parseBond(text: string): BondSpec | string {
   return m[1] === 'price' ? { ...spec, cleanPrice: Number(m[2]) } : { ...spec, yield: Number(m[2]) };
 }
 
+/**
+ * Error lines kept for standard error (they are written at the end); past this many, the rest are
+ * counted, not kept, so a batch of failing documents also runs in bounded memory. Every failed
+ * document's errors are on its own standard output line in any case.
+ */
+export const MAX_ERROR_LINES = 10_000;
+
 /** The longest document (one NDJSON line, or one pretty-printed document) read, in characters: 16 Mi. */
 export const MAX_DOCUMENT_CHARS = 1 << 24;
 
@@ -411,6 +418,7 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
   }
   let stdout = '';
   let stderr = '';
+  let errorLines = 0;
   let anyFailed = false;
   let index = 0;
   let closed = false;
@@ -439,6 +447,7 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
     if (errors.length > 0) {
       anyFailed = true;
       for (const e of errors) {
+        if (++errorLines > MAX_ERROR_LINES) continue;
         const where = e.path && !e.message.startsWith(e.path) ? `${e.path}: ` : '';
         stderr += `document ${index}: ${where}${e.message} [${e.code}]\n`;
       }
@@ -543,6 +552,9 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
   if (write && stdout !== '' && !closed) {
     await put(stdout);
     stdout = '';
+  }
+  if (errorLines > MAX_ERROR_LINES) {
+    stderr += `curve: ${errorLines - MAX_ERROR_LINES} more error lines not shown here (${MAX_ERROR_LINES} shown); each failed document's errors are on its line of standard output\n`;
   }
   if (writeFailure !== null) {
     const why = writeFailure instanceof Error ? writeFailure.message : String(writeFailure);

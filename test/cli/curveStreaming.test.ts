@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { COMMAND_VERSION, MAX_DOCUMENT_CHARS, OUTPUT_CHUNK_CHARS, runCurveCommand, type InputText } from '../../src/cli/curveCommand.ts';
+import { COMMAND_VERSION, MAX_DOCUMENT_CHARS, MAX_ERROR_LINES, OUTPUT_CHUNK_CHARS, runCurveCommand, type InputText } from '../../src/cli/curveCommand.ts';
 import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
 
 // How the curve command reads its input (in pieces, line by line, a byte-order mark skipped), how
@@ -90,6 +90,21 @@ describe('input read in pieces', () => {
     expect(r.status).toBe(2);
     expect(indices(r.stdout)).toEqual([0]);
     expect(r.stderr).toBe('curve: cannot read data.ndjson: EIO: i/o error, read\n');
+  });
+});
+
+describe('standard error of a long failing batch', () => {
+  it(`keeps the first MAX_ERROR_LINES error lines and counts the rest; standard output still has every document's errors`, async () => {
+    const n = MAX_ERROR_LINES + 25;
+    const r = await run('{"format":\n'.repeat(n));
+    expect(r.status).toBe(1);
+    const err = r.stderr.trim().split('\n');
+    expect(err).toHaveLength(MAX_ERROR_LINES + 1);
+    expect(err[MAX_ERROR_LINES - 1]).toMatch(new RegExp(`^document ${MAX_ERROR_LINES - 1}: not valid JSON`));
+    expect(err[MAX_ERROR_LINES]).toBe(`curve: 25 more error lines not shown here (${MAX_ERROR_LINES} shown); each failed document's errors are on its line of standard output`);
+    const out = r.stdout.trim().split('\n');
+    expect(out).toHaveLength(n);
+    expect(JSON.parse(out.at(-1)!)).toMatchObject({ index: n - 1, errors: [{ code: 'invalid-json' }] });
   });
 });
 
