@@ -31,7 +31,25 @@ export interface CommandResult {
   readonly stdout: string;
   readonly stderr: string;
   readonly status: 0 | 1 | 2;
+  /** The writer reported standard output closed (a reader such as `head` stopped): the command stopped there. */
+  readonly outputClosed: boolean;
 }
+
+/**
+ * The input: the whole text, or its text in pieces (any split, for example a file read 64 KB at a
+ * time); lines are cut from the pieces as they come, so the input is never held whole.
+ */
+export type InputText = string | Iterable<string> | AsyncIterable<string>;
+
+/**
+ * Takes a piece of standard output. What it returns is awaited before the command goes on (how a
+ * stream's back-pressure reaches the command); `false` (or a promise of it) says the output is
+ * closed, and the command then stops at once and writes nothing more. Anything else goes on.
+ */
+export type OutputWriter = (text: string) => unknown;
+
+/** The command's version: the package's (a test holds the two equal). */
+export const COMMAND_VERSION = '0.1.0';
 
 interface Options {
   file: string;
@@ -56,16 +74,38 @@ interface BondSpec {
 
 const USAGE =
   'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid] [--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]]...\n' +
+  '       npm run --silent curve -- --help | --version\n' +
   '  FILE is a workspace JSON document or NDJSON, or - for standard input; dates are YYYY-MM-DD or tenors (3M, 2Y) from settlement\n' +
   '  --bond (repeatable) adds bond analytics off the curve: coupon and yield are decimals, price=P is clean per 100 face\n';
 
-const usage = (message: string): CommandResult => ({ stdout: '', stderr: `curve: ${message}\n${USAGE}`, status: 2 });
+const HELP =
+  'curve: builds a discount curve from each workspace document and prints one JSON line per document.\n' +
+  USAGE +
+  '  --at D,...            points to report (default: one per pillar); --at and --forward may be repeated and add up\n' +
+  '  --forward S:E,...     forward rates from S to E\n' +
+  `  --compounding C       ${COMPOUNDINGS.join(', ')} (default continuous)\n` +
+  `  --day-count DC        ${CURVE_DAY_COUNTS.join(', ')} (default the curve's)\n` +
+  `  --extrapolate E       ${EXTRAPOLATIONS.join(', ')} (default the document's)\n` +
+  '  --skip-invalid        build from the valid quotes and list the others under warnings\n' +
+  '  --help, -h            this text;  --version  the version\n' +
+  '  Input: one JSON document (pretty-printed or not) or NDJSON (one document per line), read line by line;\n' +
+  '  a leading byte-order mark is skipped. Options other than --at, --forward and --bond may be given once.\n' +
+  '  Exit status: 0 every document built; 1 any failed (the others still print); 2 usage error, unreadable input\n' +
+  '  or unwritable output. A closed standard output (such as `| head -1`) stops the command quietly: 0, or 1 when a\n' +
+  '  document run before it failed.\n' +
+  'An analysis aid, not investment advice: verify figures against official sources.\n';
+
+const usage = (message: string): CommandResult => ({ stdout: '', stderr: `curve: ${message}\n${USAGE}`, status: 2, outputClosed: false });
 
 const isPoint = (s: string): boolean => isIsoDate(s) || parseTenor(s) !== null;
 
-function parseArgs(args: readonly string[]): Options | string {
+/** Options that may be given once: a second one is refused rather than silently replacing the first. */
+const SINGLE = ['--compounding', '--day-count', '--extrapolate', '--skip-invalid'];
+
+function parseArgs(args: readonly string[]): Options | { readonly show: 'help' | 'version' } | string {
   const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, bonds: [] };
   const files: string[] = [];
+  const given = new Set<string>();
   for (let i = 0; i < args.length; i++) {
     const arg = args[i]!;
     const eq = arg.startsWith('--') ? arg.indexOf('=') : -1;
@@ -76,7 +116,16 @@ function parseArgs(args: readonly string[]): Options | string {
       value = eq > 0 ? arg.slice(eq + 1) : args[++i];
       if (value === undefined) return `${name} needs a value`;
     }
+    if (SINGLE.includes(name)) {
+      if (given.has(name)) return `${name} is given twice; give it once (only --at, --forward and --bond add up)`;
+      given.add(name);
+    }
     switch (name) {
+      case '--help':
+      case '-h':
+      case '--version':
+        if (eq > 0) return `${name} takes no value`;
+        return { show: name === '--version' ? 'version' : 'help' };
       case '--at': {
         const items = value!.split(',').map((s) => s.trim());
         const bad = items.find((s) => !isPoint(s));
@@ -147,35 +196,71 @@ function parseBond(text: string): BondSpec | string {
   return m[1] === 'price' ? { ...spec, cleanPrice: Number(m[2]) } : { ...spec, yield: Number(m[2]) };
 }
 
-type Entry = { doc: unknown } | { error: string };
+/**
+ * Error lines kept for standard error (they are written at the end); past this many, the rest are
+ * counted, not kept, so a batch of failing documents also runs in bounded memory. Every failed
+ * document's errors are on its own standard output line in any case.
+ */
+export const MAX_ERROR_LINES = 10_000;
+
+/** The longest document (one NDJSON line, or one pretty-printed document) read, in characters: 16 Mi. */
+export const MAX_DOCUMENT_CHARS = 1 << 24;
+
+/** A line longer than MAX_DOCUMENT_CHARS: only its length is kept. */
+interface LongLine {
+  readonly longChars: number;
+}
 
 /**
- * Splits input into documents: one JSON value, or NDJSON lines (each parsed only when its turn
- * comes, so a long batch never holds every parsed document at once). Each entry is parsed or an
- * error text.
+ * The input's lines, without their line ends (LF or CRLF), cut from the pieces as they come; a
+ * byte-order mark at the very start is skipped (JSON text has none, editors often write one). A
+ * line longer than MAX_DOCUMENT_CHARS is not kept: it comes as its length, so any input runs in
+ * bounded memory.
  */
-function splitDocuments(text: string): { readonly count: number; readonly entry: (i: number) => Entry } {
-  try {
-    const doc: unknown = JSON.parse(text);
-    return { count: 1, entry: () => ({ doc }) };
-  } catch {
-    // not a single value: NDJSON
-  }
-  const lines = text.split(/\r?\n/).filter((line) => line.trim() !== '');
-  if (lines.length === 0) return { count: 1, entry: () => ({ error: 'the input is empty; give a workspace JSON document' }) };
-  return {
-    count: lines.length,
-    entry: (i) => {
-      const line = lines[i]!;
-      try {
-        return { doc: JSON.parse(line) };
-      } catch (e) {
-        const shown = line.length > 80 ? `${line.slice(0, 80)}...` : line;
-        return { error: `not valid JSON (${(e as Error).message}): ${shown}` };
-      }
-    },
+async function* inputLines(input: InputText): AsyncGenerator<string | LongLine> {
+  let partial = '';
+  let long = -1; // the length so far of an over-long line being skipped, -1 when none
+  let atStart = true;
+  const cut = (piece: string): string | LongLine => {
+    if (long >= 0) {
+      const longChars = long + piece.length;
+      long = -1;
+      return { longChars };
+    }
+    const line = partial === '' ? piece : partial + piece;
+    partial = '';
+    return line.endsWith('\r') ? line.slice(0, -1) : line;
   };
+  for await (let chunk of typeof input === 'string' ? [input] : input) {
+    if (atStart && chunk !== '') {
+      atStart = false;
+      if (chunk.charCodeAt(0) === 0xfeff) chunk = chunk.slice(1);
+    }
+    let start = 0;
+    for (let nl = chunk.indexOf('\n'); nl >= 0; nl = chunk.indexOf('\n', start)) {
+      if (long < 0 && partial.length + nl - start > MAX_DOCUMENT_CHARS) {
+        long = partial.length;
+        partial = '';
+      }
+      yield cut(chunk.slice(start, nl));
+      start = nl + 1;
+    }
+    const rest = chunk.length - start;
+    if (long >= 0) long += rest;
+    else if (partial.length + rest > MAX_DOCUMENT_CHARS) {
+      long = partial.length + rest;
+      partial = '';
+    } else if (rest > 0) partial += chunk.slice(start);
+  }
+  if (long >= 0 || partial !== '') yield cut('');
 }
+
+const isBlank = (line: string): boolean => line.trim() === '';
+
+const shorten = (line: string): string => (line.length > 80 ? `${line.slice(0, 80)}...` : line);
+
+const tooLong = (chars: number): string =>
+  `the document is ${chars} characters long, more than the ${MAX_DOCUMENT_CHARS} read; a workspace document is far shorter: check that the input is JSON, one document per line (NDJSON) or a single document`;
 
 /** Resolves a date or tenor against a settlement date. */
 const resolve = (point: string, settlement: string): string => {
@@ -313,49 +398,181 @@ export const OUTPUT_CHUNK_CHARS = 1 << 16;
 
 /**
  * The whole command, pure apart from reading the input through `read` and, when given, writing
- * standard output through `write`. Without `write` the output is returned in `stdout`; with it, the
- * output lines go to `write` in order, in pieces of about OUTPUT_CHUNK_CHARS as the documents are
- * built, and `stdout` is empty: a large batch never holds all of its output in memory.
+ * standard output through `write`.
+ *
+ * Input: `read(FILE)` gives the text whole or in pieces; it is read line by line as the documents
+ * are built. A single JSON document may span lines (pretty-printed): when the first non-blank line
+ * is not JSON on its own, lines are gathered (up to MAX_DOCUMENT_CHARS) and, when the input ends
+ * there and they parse together, they are that one document; otherwise every non-blank line is a
+ * document (NDJSON), as before.
+ *
+ * Output: without `write` it is returned in `stdout`; with it, the output lines go to `write` in
+ * order, in pieces of about OUTPUT_CHUNK_CHARS as the documents are built, each awaited before the
+ * next document (so a slow reader slows the command instead of filling memory), and `stdout` is
+ * empty. When `write` reports the output closed, the command stops there: nothing more is built or
+ * written; the status covers the documents run so far.
  */
-export function runCurveCommand(args: readonly string[], read: (file: string) => string, write?: (text: string) => void): CommandResult {
+export async function runCurveCommand(args: readonly string[], read: (file: string) => InputText, write?: OutputWriter): Promise<CommandResult> {
   const opts = parseArgs(args);
   if (typeof opts === 'string') return usage(opts);
-  let text: string;
+  if ('show' in opts) {
+    const text = opts.show === 'help' ? HELP : `curve (Tenorscope) ${COMMAND_VERSION}\n`;
+    if (!write) return { stdout: text, stderr: '', status: 0, outputClosed: false };
+    try {
+      return { stdout: '', stderr: '', status: 0, outputClosed: (await write(text)) === false };
+    } catch (e) {
+      return { stdout: '', stderr: `curve: cannot write standard output: ${(e as Error).message}\n`, status: 2, outputClosed: true };
+    }
+  }
+  let input: InputText;
   try {
-    text = read(opts.file);
+    input = read(opts.file);
   } catch (e) {
     return usage(`cannot read ${opts.file}: ${(e as Error).message}`);
   }
   let stdout = '';
   let stderr = '';
+  let errorLines = 0;
   let anyFailed = false;
-  const documents = splitDocuments(text);
-  for (let index = 0; index < documents.count; index++) {
-    const entry = documents.entry(index);
+  let index = 0;
+  let closed = false;
+  let writeFailure: unknown = null;
+  /** Hands a piece to the writer; a writer that throws counts as an output that cannot be written. */
+  const put = async (text: string): Promise<void> => {
+    try {
+      if ((await write!(text)) === false) closed = true;
+    } catch (e) {
+      writeFailure = e;
+      closed = true;
+    }
+  };
+
+  /** Runs one document (parsed, or the error that stands for it) and queues its line; false once the output is closed. */
+  const emit = async (entry: { readonly doc: unknown } | { readonly error: string; readonly code: CoreError['code'] }): Promise<boolean> => {
     let line: string;
     let errors: readonly CoreError[];
     if ('error' in entry) {
-      errors = [{ path: '', quote: null, code: 'invalid-json', message: entry.error }];
+      errors = [{ path: '', quote: null, code: entry.code, message: entry.error }];
       line = failedLine(index, errors);
     } else {
       ({ line, errors } = runDocument(index, entry.doc, opts));
     }
     stdout += line + '\n';
-    if (write && stdout.length >= OUTPUT_CHUNK_CHARS) {
-      write(stdout);
-      stdout = '';
-    }
     if (errors.length > 0) {
       anyFailed = true;
       for (const e of errors) {
+        if (++errorLines > MAX_ERROR_LINES) continue;
         const where = e.path && !e.message.startsWith(e.path) ? `${e.path}: ` : '';
         stderr += `document ${index}: ${where}${e.message} [${e.code}]\n`;
       }
     }
+    index++;
+    if (write && stdout.length >= OUTPUT_CHUNK_CHARS) {
+      const piece = stdout;
+      stdout = '';
+      await put(piece);
+    }
+    return !closed;
+  };
+  /** One NDJSON line: its document, or invalid-json / an over-long line. */
+  const emitLine = (line: string | LongLine): Promise<boolean> => {
+    if (typeof line !== 'string') return emit({ error: tooLong(line.longChars), code: 'range' });
+    let doc: unknown;
+    try {
+      doc = JSON.parse(line);
+    } catch (e) {
+      return emit({ error: `not valid JSON (${(e as Error).message}): ${shorten(line)}`, code: 'invalid-json' });
+    }
+    return emit({ doc });
+  };
+  /** The gathered lines of what may be one pretty-printed document, while it may still be one. */
+  let gathered: string[] | null = null;
+  let gatheredChars = 0;
+  const emitGathered = async (): Promise<boolean> => {
+    const lines = gathered ?? [];
+    gathered = null;
+    for (const line of lines) if (!isBlank(line) && !(await emitLine(line))) return false;
+    return true;
+  };
+  let first = true;
+  // The lines are pulled by hand so that only a failure to read is reported as one (an exception
+  // from building a document is a bug and is not dressed up as a reading error).
+  const lines = inputLines(input);
+  try {
+    for (;;) {
+      let next: IteratorResult<string | LongLine>;
+      try {
+        next = await lines.next();
+      } catch (e) {
+        if (write && stdout !== '' && !closed) await put(stdout);
+        return { stdout: write ? '' : stdout, stderr: `${stderr}curve: cannot read ${opts.file}: ${(e as Error).message}\n`, status: 2, outputClosed: closed };
+      }
+      if (next.done) break;
+      const line = next.value;
+      if (typeof line === 'string' && isBlank(line)) {
+        if (gathered) {
+          gathered.push(line);
+          gatheredChars += line.length + 1;
+          if (gatheredChars > MAX_DOCUMENT_CHARS && !(await emitGathered())) break;
+        }
+        continue;
+      }
+      if (first) {
+        first = false;
+        if (typeof line === 'string') {
+          let doc: unknown;
+          let parsed = true;
+          try {
+            doc = JSON.parse(line);
+          } catch {
+            parsed = false;
+          }
+          if (!parsed) {
+            gathered = [line];
+            gatheredChars = line.length;
+            continue;
+          }
+          if (!(await emit({ doc }))) break;
+          continue;
+        }
+      }
+      if (gathered) {
+        if (typeof line === 'string' && gatheredChars + line.length + 1 <= MAX_DOCUMENT_CHARS) {
+          gathered.push(line);
+          gatheredChars += line.length + 1;
+          continue;
+        }
+        if (!(await emitGathered())) break; // too long for one document: the lines are NDJSON
+      }
+      if (!(await emitLine(line))) break;
+    }
+  } finally {
+    if (closed) await lines.return(undefined).catch(() => undefined); // stopped early: let the source close
   }
-  if (write && stdout !== '') {
-    write(stdout);
+  if (!closed && gathered) {
+    let doc: unknown;
+    let parsed = true;
+    try {
+      doc = JSON.parse((gathered as string[]).join('\n'));
+    } catch {
+      parsed = false;
+    }
+    if (parsed) {
+      gathered = null;
+      await emit({ doc });
+    } else await emitGathered();
+  }
+  if (!closed && index === 0) await emit({ error: 'the input is empty; give a workspace JSON document', code: 'invalid-json' });
+  if (write && stdout !== '' && !closed) {
+    await put(stdout);
     stdout = '';
   }
-  return { stdout, stderr, status: anyFailed ? 1 : 0 };
+  if (errorLines > MAX_ERROR_LINES) {
+    stderr += `curve: ${errorLines - MAX_ERROR_LINES} more error lines not shown here (${MAX_ERROR_LINES} shown); each failed document's errors are on its line of standard output\n`;
+  }
+  if (writeFailure !== null) {
+    const why = writeFailure instanceof Error ? writeFailure.message : String(writeFailure);
+    return { stdout: '', stderr: `${stderr}curve: cannot write standard output: ${why}\n`, status: 2, outputClosed: true };
+  }
+  return { stdout: closed ? '' : stdout, stderr, status: anyFailed ? 1 : 0, outputClosed: closed };
 }

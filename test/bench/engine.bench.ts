@@ -138,17 +138,17 @@ rows.push({ figure: 'rebuild, moved quotes, cubic-zero (median of 1000)', value:
   const large = batch(2 * N);
   // Printed as the command prints: each piece of standard output written as it is produced (here to /dev/null).
   const sink = openSync('/dev/null', 'w');
-  const run = (input: string): number => {
+  const run = async (input: string): Promise<number> => {
     const t0 = now();
-    const r = runCurveCommand(['-'], () => input, (text) => writeSync(sink, text));
+    const r = await runCurveCommand(['-'], () => input, (text) => writeSync(sink, text));
     const t = now() - t0;
     if (r.status !== 0) failures++;
     return t;
   };
-  run(small); // warm-up
-  run(large);
+  await run(small); // warm-up
+  await run(large);
   const marginals: number[] = [];
-  for (let rep = 0; rep < 9; rep++) marginals.push((run(large) - run(small)) / N);
+  for (let rep = 0; rep < 9; rep++) marginals.push((await run(large) - (await run(small))) / N);
   const marginal = median(marginals);
   rows.push({ figure: `CLI batch, marginal time per document (N = ${N} vs ${2 * N}, median of 9 pairs)`, value: us(marginal), target: '<= 200 us', pass: marginal <= 200 });
 }

@@ -12,8 +12,8 @@ const doc = workspaceDoc([depo3M, bond2029, swap10Y, swap30Y], { interpolation: 
 const run = (...args: string[]) => runCurveCommand(['-', ...args], () => JSON.stringify(doc));
 
 describe('curve --bond', () => {
-  it('adds one bonds[] entry per --bond with the model figures, key rates by tenor and the market fields', () => {
-    const r = run('--bond', '2034-05-15,0.04,2,ACT/ACT-ICMA,price=101.25', '--bond', '10Y,0.035,1,30/360,yield=0.036', '--bond', '2032-01-31,0.02,4,ACT/360');
+  it('adds one bonds[] entry per --bond with the model figures, key rates by tenor and the market fields', async () => {
+    const r = await run('--bond', '2034-05-15,0.04,2,ACT/ACT-ICMA,price=101.25', '--bond', '10Y,0.035,1,30/360,yield=0.036', '--bond', '2032-01-31,0.02,4,ACT/360');
     expect(r.status).toBe(0);
     const o = JSON.parse(r.stdout) as { bonds: Record<string, any>[] };
     expect(o.bonds).toHaveLength(3);
@@ -35,20 +35,20 @@ describe('curve --bond', () => {
     expect(b0.yieldConvention).toBe('ICMA, compounded 2/yr, accrual ACT/ACT-ICMA');
     expect(b0.zSpreadConvention).toBe('cont, ACT/365F');
   });
-  it('leaves the output without bonds when no --bond is given', () => {
-    const o = JSON.parse(run().stdout) as Record<string, unknown>;
+  it('leaves the output without bonds when no --bond is given', async () => {
+    const o = JSON.parse((await run()).stdout) as Record<string, unknown>;
     expect('bonds' in o).toBe(false);
   });
-  it('refuses malformed --bond text as a usage error (exit 2, nothing on standard output)', () => {
+  it('refuses malformed --bond text as a usage error (exit 2, nothing on standard output)', async () => {
     for (const bad of ['2034-05-15,0.04,2', '2034-05-15,4%,2,ACT/ACT-ICMA', '2034-05-15,0.04,2,ACT/ACT', '2034-05-15,0.04,2,ACT/ACT-ICMA,clean=101']) {
-      const r = run('--bond', bad);
+      const r = await run('--bond', bad);
       expect(r.status, bad).toBe(2);
       expect(r.stdout).toBe('');
       expect(r.stderr).toMatch(/--bond/);
     }
   });
-  it('reports a bond the curve cannot value as a document error naming --bond[i] (exit 1)', () => {
-    const r = run('--bond', '2034-05-15,0.04,2,ACT/ACT-ICMA', '--bond', '2070-01-01,0.04,2,ACT/ACT-ICMA');
+  it('reports a bond the curve cannot value as a document error naming --bond[i] (exit 1)', async () => {
+    const r = await run('--bond', '2034-05-15,0.04,2,ACT/ACT-ICMA', '--bond', '2070-01-01,0.04,2,ACT/ACT-ICMA');
     expect(r.status).toBe(1);
     const o = JSON.parse(r.stdout) as { errors: { path: string; code: string }[] };
     expect(o.errors[0]).toMatchObject({ path: '--bond[1].maturity', code: 'beyond-curve' });

@@ -14,8 +14,8 @@ const run = (input: string, ...args: string[]) => runCurveCommand(['-', ...args]
 const parseLines = (s: string) => s.trim().split('\n').map((l) => JSON.parse(l) as Record<string, any>);
 
 describe('one document', () => {
-  it('prints one compact line with the contract fields, exit 0, nothing on standard error', () => {
-    const r = run(JSON.stringify(doc, null, 2)); // a whole pretty-printed document is one document
+  it('prints one compact line with the contract fields, exit 0, nothing on standard error', async () => {
+    const r = await run(JSON.stringify(doc, null, 2)); // a whole pretty-printed document is one document
     expect(r.status).toBe(0);
     expect(r.stderr).toBe('');
     expect(r.stdout.endsWith('\n')).toBe(true);
@@ -28,8 +28,8 @@ describe('one document', () => {
     // Without --at: one point per pillar, in date order.
     expect(o!.points.map((p: any) => p.date)).toEqual(['2027-06-10', '2027-09-09', '2029-03-10', '2032-03-10']);
   });
-  it('numbers are full float64: the printed discount factor is the core value to the last bit', () => {
-    const [o] = parseLines(run(JSON.stringify(doc), '--at', '2028-01-31').stdout);
+  it('numbers are full float64: the printed discount factor is the core value to the last bit', async () => {
+    const [o] = parseLines((await run(JSON.stringify(doc), '--at', '2028-01-31')).stdout);
     const curve = buildCurve(doc).curve!;
     const df = discountOn(curve, '2028-01-31');
     const z = zeroOn(curve, '2028-01-31', 'continuous', 'ACT/365F');
@@ -37,8 +37,8 @@ describe('one document', () => {
     expect(o!.points[0].discount).toBe(df.value.discount);
     expect(o!.points[0].zero).toBe(z.value.zero);
   });
-  it('--at and --forward take tenors from settlement and echo resolved ISO dates, in the order asked', () => {
-    const r = run(JSON.stringify(doc), '--at', '2Y,2027-06-10,6M', '--forward', '1Y:2Y,2028-03-10:2030-03-10', '--compounding', 'semiannual', '--day-count', '30/360');
+  it('--at and --forward take tenors from settlement and echo resolved ISO dates, in the order asked', async () => {
+    const r = await run(JSON.stringify(doc), '--at', '2Y,2027-06-10,6M', '--forward', '1Y:2Y,2028-03-10:2030-03-10', '--compounding', 'semiannual', '--day-count', '30/360');
     expect(r.status).toBe(0);
     const [o] = parseLines(r.stdout);
     expect(o!.points.map((p: any) => p.date)).toEqual(['2029-03-10', '2027-06-10', '2027-09-10']);
@@ -53,16 +53,16 @@ describe('one document', () => {
     expect(o!.forwards[0].rate).toBe(f.value.rate);
     expectClose(o!.forwards[0].tau, 1, 0, '30/360 year from the 10th to the 10th');
   });
-  it('a date beyond the curve fails the document with beyond-curve at its --at path (exit 1)', () => {
-    const r = run(JSON.stringify(doc), '--at', '40Y');
+  it('a date beyond the curve fails the document with beyond-curve at its --at path (exit 1)', async () => {
+    const r = await run(JSON.stringify(doc), '--at', '40Y');
     expect(r.status).toBe(1);
     const [o] = parseLines(r.stdout);
     expect(o!.errors[0]).toMatchObject({ path: '--at[0]', code: 'beyond-curve' });
     // One human line per error, prefixed "document N:" (the contract fixes only the prefix).
     expect(r.stderr).toMatch(/^document 0: .*--at\[0\].*beyond-curve/);
   });
-  it('--extrapolate flat-forward lets it through, marked extrapolated', () => {
-    const r = run(JSON.stringify(doc), '--at', '40Y', '--extrapolate', 'flat-forward');
+  it('--extrapolate flat-forward lets it through, marked extrapolated', async () => {
+    const r = await run(JSON.stringify(doc), '--at', '40Y', '--extrapolate', 'flat-forward');
     expect(r.status).toBe(0);
     const [o] = parseLines(r.stdout);
     expect(o!.extrapolation).toBe('flat-forward');
@@ -71,9 +71,9 @@ describe('one document', () => {
 });
 
 describe('NDJSON batch', () => {
-  it('one output line per input line, in input order; a failing document does not stop the others; exit 1', () => {
+  it('one output line per input line, in input order; a failing document does not stop the others; exit 1', async () => {
     const input = [JSON.stringify(doc), '', JSON.stringify(bad), '{"format":', JSON.stringify({ ...doc, settlement: '2027-04-01' })].join('\n') + '\n';
-    const r = run(input);
+    const r = await run(input);
     expect(r.status).toBe(1);
     const lines = parseLines(r.stdout);
     expect(lines.map((l) => l.index)).toEqual([0, 1, 2, 3]); // the blank line is not a document
@@ -86,20 +86,20 @@ describe('NDJSON batch', () => {
     expect(err[0]).toMatch(/range/);
     expect(err[1]).toMatch(/^document 2: .*invalid-json/);
   });
-  it('every document built: exit 0', () => {
-    const r = run(`${JSON.stringify(doc)}\n${JSON.stringify(doc)}\n`);
+  it('every document built: exit 0', async () => {
+    const r = await run(`${JSON.stringify(doc)}\n${JSON.stringify(doc)}\n`);
     expect(r.status).toBe(0);
     expect(parseLines(r.stdout).map((l) => l.index)).toEqual([0, 1]);
   });
 });
 
 describe('streamed standard output', () => {
-  it('a batch handed to a writer comes out in order, in pieces of at least OUTPUT_CHUNK_CHARS (the last may be shorter), byte for byte the collected output; stdout is then empty', () => {
+  it('a batch handed to a writer comes out in order, in pieces of at least OUTPUT_CHUNK_CHARS (the last may be shorter), byte for byte the collected output; stdout is then empty', async () => {
     const lines = Array.from({ length: 400 }, (_, i) => JSON.stringify(i === 7 ? bad : doc));
     const input = lines.join('\n') + '\n';
-    const collected = run(input);
+    const collected = await run(input);
     const pieces: string[] = [];
-    const streamed = runCurveCommand(['-'], () => input, (text) => pieces.push(text));
+    const streamed = await runCurveCommand(['-'], () => input, (text) => pieces.push(text));
     expect(streamed.stdout).toBe('');
     expect(streamed.stderr).toBe(collected.stderr);
     expect(streamed.status).toBe(1);
@@ -110,9 +110,9 @@ describe('streamed standard output', () => {
     expect(pieces.at(-1)!.length).toBeLessThanOrEqual(OUTPUT_CHUNK_CHARS + 20_000);
     for (const p of pieces) expect(p.endsWith('\n')).toBe(true); // whole lines only
   });
-  it('a usage error writes nothing', () => {
+  it('a usage error writes nothing', async () => {
     const pieces: string[] = [];
-    const r = runCurveCommand(['--nope'], () => '', (text) => pieces.push(text));
+    const r = await runCurveCommand(['--nope'], () => '', (text) => pieces.push(text));
     expect(r.status).toBe(2);
     expect(pieces).toEqual([]);
   });
@@ -135,17 +135,17 @@ describe('output text', () => {
     extrapolate: fc.constantFrom('none', 'flat-forward'),
     bond: fc.boolean(),
   });
-  it('every line of a built document is exactly JSON.stringify of its parsed value (random shifts, dates, forwards, extrapolation, bonds, skipped quotes)', () => {
+  it('every line of a built document is exactly JSON.stringify of its parsed value (random shifts, dates, forwards, extrapolation, bonds, skipped quotes)', async () => {
     const seen = { built: 0, extrapolatedPoints: 0, extrapolatedForwards: 0, bonds: 0, warnings: 0 };
-    fc.assert(
-      fc.property(fc.double({ min: -0.02, max: 0.02, noNaN: true }), fc.boolean(), options, (shift, skip, o) => {
+    await fc.assert(
+      fc.asyncProperty(fc.double({ min: -0.02, max: 0.02, noNaN: true }), fc.boolean(), options, async (shift, skip, o) => {
         const market = { ...(skip ? bad : doc), quotes: (skip ? bad : doc).quotes.map((q: any) => ('rate' in q && q.rate < 1 ? { ...q, rate: q.rate + shift } : q)) };
         const args = ['--compounding', o.compounding, '--day-count', o.dayCount, '--extrapolate', o.extrapolate];
         if (o.at.length > 0) args.push('--at', o.at.join(','));
         if (o.forward.length > 0) args.push('--forward', o.forward.map(([a, b]) => `${a}:${b}`).join(','));
         if (o.bond) args.push('--bond', '2030-06-15,0.035,2,ACT/ACT-ICMA,price=99.5');
         if (skip) args.push('--skip-invalid');
-        const r = run(JSON.stringify(market), ...args);
+        const r = await run(JSON.stringify(market), ...args);
         for (const line of r.stdout.trim().split('\n')) {
           const value = JSON.parse(line) as Record<string, unknown>;
           if (!('errors' in value)) {
@@ -167,9 +167,9 @@ describe('output text', () => {
 });
 
 describe('--skip-invalid', () => {
-  it('strict by default; with the flag the valid quotes build and the skipped one is listed under warnings', () => {
-    expect(run(JSON.stringify(bad)).status).toBe(1);
-    const r = run(JSON.stringify(bad), '--skip-invalid');
+  it('strict by default; with the flag the valid quotes build and the skipped one is listed under warnings', async () => {
+    expect((await run(JSON.stringify(bad))).status).toBe(1);
+    const r = await run(JSON.stringify(bad), '--skip-invalid');
     expect(r.status).toBe(0);
     const [o] = parseLines(r.stdout);
     expect(o!.quotes.map((q: any) => q.index)).toEqual([0, 1, 2, 3]);
@@ -188,15 +188,15 @@ describe('usage errors: exit 2 with nothing on standard output', () => {
     ['two files', ['a.json', 'b.json']],
   ];
   for (const [what, args] of cases) {
-    it(what, () => {
-      const r = runCurveCommand(args, () => JSON.stringify(doc));
+    it(what, async () => {
+      const r = await runCurveCommand(args, () => JSON.stringify(doc));
       expect(r.status).toBe(2);
       expect(r.stdout).toBe('');
       expect(r.stderr).toMatch(/usage:/);
     });
   }
-  it('an unreadable file', () => {
-    const r = runCurveCommand(['missing.json'], () => {
+  it('an unreadable file', async () => {
+    const r = await runCurveCommand(['missing.json'], () => {
       throw new Error('ENOENT: no such file');
     });
     expect(r.status).toBe(2);

@@ -12,22 +12,22 @@ const run = (doc: unknown, ...args: string[]) => runCurveCommand(['-', ...args],
 const lines = (s: string) => s.trim().split('\n').map((l) => JSON.parse(l) as Record<string, any>);
 
 describe('curve FILE with a workbench file', () => {
-  it('builds the demo workspace file exactly as from its engine document', () => {
-    const fromFile = run(demo, '--at', '1Y,10Y', '--forward', '1Y:2Y');
-    const fromEngine = run(toEngineDocument(demo).doc, '--at', '1Y,10Y', '--forward', '1Y:2Y');
+  it('builds the demo workspace file exactly as from its engine document', async () => {
+    const fromFile = await run(demo, '--at', '1Y,10Y', '--forward', '1Y:2Y');
+    const fromEngine = await run(toEngineDocument(demo).doc, '--at', '1Y,10Y', '--forward', '1Y:2Y');
     expect(fromFile.status).toBe(0);
     expect(fromFile.stderr).toBe('');
     expect(fromFile.stdout).toBe(fromEngine.stdout);
   });
 
-  it('names a wrong cell by its row (from 1) and column, and with --skip-invalid builds the rest and reports the row', () => {
+  it('names a wrong cell by its row (from 1) and column, and with --skip-invalid builds the rest and reports the row', async () => {
     const quotes = demo.quotes.map((q, i) => (i === 4 ? { ...q, rate: '4.x' } : q));
-    const strict = run({ ...demo, quotes });
+    const strict = await run({ ...demo, quotes });
     expect(strict.status).toBe(1);
     const [o] = lines(strict.stdout);
     expect(o!.errors[0].path).toBe('quotes[4].rate');
     expect(o!.errors[0].message).toMatch(/^row 5, Rate \/ yield: /);
-    const lenient = run({ ...demo, quotes }, '--skip-invalid');
+    const lenient = await run({ ...demo, quotes }, '--skip-invalid');
     expect(lenient.status).toBe(0);
     const [p] = lines(lenient.stdout);
     expect(p!.warnings[0]).toMatchObject({ path: 'quotes[4].rate', quote: 4, code: 'skipped' });

@@ -75,14 +75,14 @@ describe('nesting depth', () => {
     for (const doc of [workbench, engine, { z: [1, undefined, 'x', null, { b: undefined, a: [] }], y: { c: true } }]) expect(canonicalJson(doc)).toBe(reference(doc));
   });
 
-  it('the curve command refuses a document nested too deep or over the quote cap, as the app does', () => {
+  it('the curve command refuses a document nested too deep or over the quote cap, as the app does', async () => {
     const deep = JSON.stringify({ ...engine, strategy: nested(3000) });
-    const r = runCurveCommand(['doc.json'], () => deep);
+    const r = await runCurveCommand(['doc.json'], () => deep);
     expect(r.status).toBe(1);
     expect(JSON.parse(r.stdout.trim()).errors[0]).toMatchObject({ code: 'range', path: '' });
     const quotes = engine.quotes as unknown[];
     const many = JSON.stringify({ ...engine, quotes: Array.from({ length: LIMITS.quotes + 1 }, (_, i) => quotes[i % quotes.length]) });
-    const m = runCurveCommand(['doc.json'], () => many);
+    const m = await runCurveCommand(['doc.json'], () => many);
     expect(m.status).toBe(1);
     expect(JSON.parse(m.stdout.trim()).errors[0].message).toBe('501 quotes is more than the 500 a workspace may hold');
     expect(documentCapErrors(engine)).toEqual([]);

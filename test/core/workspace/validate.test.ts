@@ -200,8 +200,8 @@ describe('query errors', () => {
 });
 
 describe('invalid-json (through the command line)', () => {
-  it('a line that is not JSON fails its document with invalid-json', () => {
-    const r = runCurveCommand(['-'], () => `${JSON.stringify(ws(good))}\n{not json\n`);
+  it('a line that is not JSON fails its document with invalid-json', async () => {
+    const r = await runCurveCommand(['-'], () => `${JSON.stringify(ws(good))}\n{not json\n`);
     const lines = r.stdout.trim().split('\n').map((l) => JSON.parse(l));
     expectError(lines[1].errors, 'invalid-json', '', /not valid JSON/);
   });
