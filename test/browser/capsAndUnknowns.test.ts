@@ -101,6 +101,9 @@ describe('read-only opening and one set of caps', () => {
       dt.setData('text/plain', t);
       document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
     }, block(600));
+    // A header paste shows how it was read first; replacing keeps the first 500 rows.
+    await page.getByRole('region', { name: /Paste preview/ }).getByText(/keeps the first 500 and leaves out 100/).waitFor({ timeout: 10_000 });
+    await page.getByRole('button', { name: 'Replace the sheet' }).click();
     await page.getByText('100 rows were left out: a workspace holds at most 500 quotes, so the first rows were kept.').waitFor({ timeout: 10_000 });
     expect(await rowCount(page)).toBe(500);
     expect(await page.getByRole('button', { name: 'Add row' }).isDisabled()).toBe(true);

@@ -236,7 +236,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         cancelReading.current = null;
         const s = useAppStore.getState();
         if (done.refusal) s.refusePaste(done.refusal);
-        else s.receivePastedBlock(done.block, target, done.preview);
+        else s.receivePastedBlock(done.block, target, done.preview, done.dropped);
       },
       (rows) => useAppStore.getState().setPasteProgress({ chars: text.length, rows }),
     );

@@ -17,8 +17,10 @@ export type PasteReaderReply =
       readonly block: PastedBlock;
       /** For a header paste: what it would do (computed on the full block). */
       readonly preview: (PastePreview & { readonly appendRefusal: string | null }) | null;
-      /** For a header-less paste over the quote cap: why it is refused. */
+      /** Why the paste is refused before it reaches the sheet, or null. */
       readonly refusal: string | null;
+      /** Rows beyond the quote cap not sent back (the sheet keeps the first rows and counts these as left out). */
+      readonly dropped: number;
     };
 
 export type PasteReaderDone = Extract<PasteReaderReply, { type: 'done' }>;
@@ -31,7 +33,7 @@ export type PasteReaderDone = Extract<PasteReaderReply, { type: 'done' }>;
 export function readPaste(request: PasteReaderRequest, onDone: (done: PasteReaderDone) => void, onProgress: (rows: number) => void): () => void {
   if (request.text.length < WORKER_FROM_CHARS || typeof Worker === 'undefined') {
     const block = readPastedBlock(request.text);
-    onDone({ type: 'done', block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null });
+    onDone({ type: 'done', block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped: 0 });
     return () => undefined;
   }
   const worker = new Worker(new URL('./pasteReader.worker.ts', import.meta.url), { type: 'module' });
@@ -50,7 +52,7 @@ export function readPaste(request: PasteReaderRequest, onDone: (done: PasteReade
     finished = true;
     worker.terminate();
     const block = readPastedBlock(request.text);
-    onDone({ type: 'done', block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null });
+    onDone({ type: 'done', block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped: 0 });
   };
   worker.postMessage(request);
   return () => {

@@ -1,8 +1,8 @@
 /**
  * Reads a large paste off the page's thread: splits it (d3-dsv through the core), maps its
  * header and counts the rows that read as quotes, reporting progress between the steps. Over the
- * quote cap the rows are not sent back (the paste is refused whatever they hold), so a huge paste
- * costs the page one short message.
+ * quote cap only the first rows are sent back (the sheet keeps those, the rest are counted as
+ * left out), so a huge paste costs the page a message of at most the cap's rows.
  */
 import { pasteQuoteCap, previewPaste, readPastedBlock, type InputConventions, type QuoteUnitMode } from '../../core/index.ts';
 import type { PasteReaderReply, PasteReaderRequest } from './pasteReader.ts';
@@ -15,11 +15,11 @@ scope.onmessage = (e) => {
   const rows = block.header ? block.rows.length : block.cells.length;
   scope.postMessage({ type: 'progress', rows });
   const cap = pasteQuoteCap();
+  const dropped = Math.max(0, rows - cap);
   if (block.header) {
     const preview = previewPaste(block, mode, existing, conventions);
-    scope.postMessage({ type: 'done', block: rows > cap ? { ...block, rows: [] } : block, preview, refusal: null });
+    scope.postMessage({ type: 'done', block: dropped > 0 ? { ...block, rows: block.rows.slice(0, cap) } : block, preview, refusal: null, dropped });
   } else {
-    const refusal = rows > cap ? `the paste has ${rows} rows; the sheet holds at most ${cap} quotes. Paste fewer rows` : null;
-    scope.postMessage({ type: 'done', block: refusal ? { ...block, cells: [] } : block, preview: null, refusal });
+    scope.postMessage({ type: 'done', block: dropped > 0 ? { ...block, cells: block.cells.slice(0, cap) } : block, preview: null, refusal: null, dropped });
   }
 };

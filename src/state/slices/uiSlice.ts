@@ -22,6 +22,8 @@ export interface PasteNotice {
 export interface PendingPaste {
   readonly block: PastedBlock;
   readonly preview: PastePreview & { readonly appendRefusal: string | null };
+  /** Rows beyond the quote cap the paste reader did not send (counted as left out). */
+  readonly dropped?: number;
 }
 
 /** Where the workspace is kept and what went wrong keeping it. */

@@ -64,7 +64,7 @@ export interface WorkspaceSlice {
    */
   previewPasteText(text: string, target: PasteTarget | null): void;
   /** previewPasteText for a block already read (by the paste worker), with its preview when it has a header. */
-  receivePastedBlock(block: PastedBlock, target: PasteTarget | null, preview?: PendingPaste['preview'] | null): void;
+  receivePastedBlock(block: PastedBlock, target: PasteTarget | null, preview?: PendingPaste['preview'] | null, dropped?: number): void;
   /** Reports a paste refused before it was read (its size), changing nothing. */
   refusePaste(message: string): void;
   /** Applies the previewed paste: replacing the sheet (refused when it would leave no quote) or appended. */
@@ -102,7 +102,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
    * the rows kept). Beyond the quote cap the first rows are kept and the notice says how many were
    * left out; a cell longer than the cell cap is cut and counted.
    */
-  const applyHeaderPaste = (block: PastedBlock, how: 'replace' | 'append'): void => {
+  const applyHeaderPaste = (block: PastedBlock, how: 'replace' | 'append', dropped = 0): void => {
     const before = ws().quotes;
     const preview = previewPaste(block, ws().quoteUnit, before.length, conventionsOf(ws()));
     const refusal = how === 'replace' ? preview.refusal : preview.appendRefusal;
@@ -114,7 +114,9 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     const clipped = (): void => {
       clippedCells++;
     };
-    const { rows: kept, leftOut } = capRows(block.rows, how === 'replace' ? 0 : before.length);
+    const capped = capRows(block.rows, how === 'replace' ? 0 : before.length);
+    const kept = capped.rows;
+    const leftOut = capped.leftOut + dropped;
     const pasted = kept.map((r) => capRowText(r, clipped) as RowText);
     if (how === 'replace') {
       get().commit(withQuotes(pasted.map((r) => newRow(r))), 'paste (replace sheet)');
@@ -129,14 +131,16 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
    * to the quote cap (a sheet already over it, from an older build, keeps its rows); rows beyond
    * are left out and counted, a cell beyond the cell cap is cut and counted.
    */
-  const fillFrom = (block: PastedBlock, target: PasteTarget | null): void => {
+  const fillFrom = (block: PastedBlock, target: PasteTarget | null, dropped = 0): void => {
     if (block.cells.length === 0) return;
     let clippedCells = 0;
     const quotes = [...ws().quotes];
     const startRow = target ? Math.max(0, target.row) : quotes.length;
     const startCol = target ? QUOTE_COLUMNS.indexOf(target.column) : 0;
     const lastRow = Math.max(LIMITS.quotes, quotes.length);
-    const { rows: cells, leftOut } = capRows(block.cells, LIMITS.quotes - Math.max(0, lastRow - startRow));
+    const capped = capRows(block.cells, LIMITS.quotes - Math.max(0, lastRow - startRow));
+    const cells = capped.rows;
+    const leftOut = capped.leftOut + dropped;
     cells.forEach((rowCells, i) => {
       const at = startRow + i;
       const base = quotes[at] ?? newRow();
@@ -242,15 +246,15 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       if (get().readOnly) return;
       get().receivePastedBlock(readPastedBlock(text), target);
     },
-    receivePastedBlock(block, target, preview = null) {
+    receivePastedBlock(block, target, preview = null, dropped = 0) {
       set({ pasteProgress: null });
       if (get().readOnly) return;
       if (!block.header) {
         set({ pendingPaste: null });
-        fillFrom(block, target);
+        fillFrom(block, target, dropped);
         return;
       }
-      set({ pendingPaste: { block, preview: preview ?? previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())) } });
+      set({ pendingPaste: { block, preview: preview ?? previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())), dropped } });
     },
     refusePaste(message) {
       set({ pendingPaste: null, pasteProgress: null, pasteNotice: { mode: 'refused', rows: 0, ignoredColumns: [], message } });
@@ -259,7 +263,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       const pending = get().pendingPaste;
       if (!pending) return;
       set({ pendingPaste: null });
-      applyHeaderPaste(pending.block, how);
+      applyHeaderPaste(pending.block, how, pending.dropped ?? 0);
     },
     appendInstead() {
       const notice = get().pasteNotice;
