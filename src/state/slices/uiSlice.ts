@@ -14,15 +14,24 @@ export interface PasteNotice {
 
 /** Where the workspace is kept and what went wrong keeping it. */
 export interface StorageStatus {
-  /** saved: in the browser; memory: only in this page (storage full or unavailable); paused: another tab wrote it. */
-  readonly state: 'saved' | 'pending' | 'memory' | 'paused';
+  /**
+   * saved: all of it (document and undo history) is in the browser; pending: an edit is waiting
+   * for its save; partial: the document was saved but not its undo history; memory: the last
+   * edits are only in this page (storage full or unavailable); paused: another tab saved this
+   * workspace since this tab loaded it.
+   */
+  readonly state: 'saved' | 'pending' | 'partial' | 'memory' | 'paused';
+  /** What was and was not saved, and why, when not everything was. */
   readonly message: string | null;
   /** Another tab has the same workspace open. */
   readonly otherTab: boolean;
-  /** The saved entry could not be read at start; its copy is kept under this storage key. */
-  readonly corruptCopyKey: string | null;
+  /** A saved workspace could not be opened: its name and why (it is kept unchanged in the list). */
+  readonly corruptName: string | null;
   readonly corruptReason: string | null;
+  /** When the document was last saved (ms since 1970), null before the first save. */
   readonly savedAt: number | null;
+  /** Where saves go: the browser's database, localStorage (fallback), or nowhere. */
+  readonly backend: 'indexeddb' | 'localStorage' | null;
 }
 
 export type TabId = string;
@@ -39,7 +48,7 @@ export interface UiSlice {
   setStorage(patch: Partial<StorageStatus>): void;
 }
 
-export const INITIAL_STORAGE: StorageStatus = { state: 'saved', message: null, otherTab: false, corruptCopyKey: null, corruptReason: null, savedAt: null };
+export const INITIAL_STORAGE: StorageStatus = { state: 'saved', message: null, otherTab: false, corruptName: null, corruptReason: null, savedAt: null, backend: null };
 
 export const createUiSlice: StateCreator<AppState, [], [], UiSlice> = (set) => ({
   activeTab: 'key-maturities',
