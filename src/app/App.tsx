@@ -9,6 +9,7 @@ import { useSettledValue } from '../hooks/useSettledValue.ts';
 import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';
 import { useAppStore } from '../state/store.ts';
 import { LinkNotice } from '../share/CopyLinkButton.tsx';
+import { OpenedNotice, resetToDemoWithNotice } from '../share/OpenedNotice.tsx';
 import { ShareBar } from '../share/ShareBar.tsx';
 import { useOpenLinkOnStart } from '../share/useOpenLinkOnStart.ts';
 import { EXTENSIONS } from './extensions.tsx';
@@ -21,7 +22,7 @@ export function App() {
   const link = useOpenLinkOnStart();
   const canUndo = useAppStore((s) => s.past.length > 0);
   const canRedo = useAppStore((s) => s.future.length > 0);
-  const { undo, redo, resetToDemo } = useAppStore.getState();
+  const { undo, redo } = useAppStore.getState();
   // Panels beyond the base curve, charts and tables follow the build once typing pauses, so a
   // keystroke paints the sheet, charts and tables first (see useSettledValue).
   const deferred = useSettledValue(result);
@@ -39,7 +40,7 @@ export function App() {
           <button type="button" onClick={redo} disabled={!canRedo} aria-keyshortcuts="Control+Shift+Z Control+Y Meta+Shift+Z" title="Redo (Ctrl+Shift+Z or Ctrl+Y)">
             Redo
           </button>
-          <button type="button" onClick={resetToDemo} title="Replace the workspace with the built-in demo (undoable)">
+          <button type="button" onClick={resetToDemoWithNotice} title="Replace the workspace with the built-in demo (undoable)">
             Reset to demo
           </button>
         </div>
@@ -47,6 +48,7 @@ export function App() {
       <Caution />
       <StorageBanner />
       <LinkNotice message={link.message} onDismiss={link.dismiss} />
+      <OpenedNotice />
       <SettingsBar />
       {/* The quotes beside the charts and tables (one first screen); roll versus term across both below. */}
       <main className="workbench">

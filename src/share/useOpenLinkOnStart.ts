@@ -1,20 +1,29 @@
 import { useEffect, useState } from 'react';
 import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/index.ts';
 import { makeRowId } from '../state/ids.ts';
+import { openAsNewWorkspace, switchWorkspace } from '../state/persistence.ts';
 import { useAppStore } from '../state/store.ts';
 import { decodeWorkspaceLink, type LinkOutcome } from './linkCodec.ts';
+import { showOpenedNotice } from './OpenedNotice.tsx';
 
 /** The message left by openLinkBeforeRender() for the first render to show (null: none). */
 let pendingMessage: string | null = null;
 
 const hasLink = (hash: string): boolean => hash.startsWith('#ws');
 
+/** The name a workspace opened from a link gets in the list (the user can rename it). */
+function linkName(doc: WorkbenchDocument): string {
+  const when = new Date().toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+  return `From a link, ${when}${doc.settlement ? ` (settles ${doc.settlement})` : ''}`;
+}
+
 /**
- * Applies a decoded link to the store: a good link replaces the workspace as one undoable step
- * (and opens its tab); a bad one changes nothing. Either way the fragment leaves the address, so a
- * reload does not open it again. Returns the message to show (null when there is none).
+ * Applies a decoded link: a good link opens as a new workspace in the list (the one shown before
+ * is saved and kept), with a notice offering the way back; a bad one changes nothing. Either way
+ * the fragment leaves the address, so a reload does not open it again. Returns why a link was not
+ * opened (null when it was: the opened notice, OpenedNotice.tsx, says what happened).
  */
-function applyLinkOutcome(outcome: LinkOutcome): string | null {
+async function applyLinkOutcome(outcome: LinkOutcome): Promise<string | null> {
   window.history.replaceState(null, '', window.location.pathname + window.location.search);
   if (!outcome.ok) return outcome.message;
   if (outcome.checked.document.format !== WORKBENCH_FORMAT) {
@@ -22,10 +31,21 @@ function applyLinkOutcome(outcome: LinkOutcome): string | null {
   }
   const read = readWorkbenchDocument(outcome.checked.document, makeRowId);
   if (!read.doc) return `This link could not be opened: ${read.problem ?? 'not a workspace'}. Your saved workspace has not been changed.`;
-  useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open link');
+  const doc = read.doc as WorkbenchDocument;
+  const name = linkName(doc);
+  const back = await openAsNewWorkspace(doc, name);
   const tab = outcome.checked.view.tab;
   if (typeof tab === 'string') useAppStore.getState().setActiveTab(tab);
-  return outcome.notice;
+  const extra = outcome.notice ? ` ${outcome.notice}` : '';
+  if (back.previousId !== null) {
+    const previousId = back.previousId;
+    const text = `Opened a shared workspace as a new entry, “${name}”; your own, “${back.previousName ?? 'workspace'}”, is kept unchanged in the list of workspaces.${extra}`;
+    showOpenedNotice({ text, action: { label: `Back to “${back.previousName ?? 'workspace'}”`, run: () => void switchWorkspace(previousId) } });
+    return null;
+  }
+  const text = `Opened a shared workspace; your own is one Undo away.${extra}`;
+  showOpenedNotice({ text, action: { label: 'Undo', ariaLabel: 'Undo opening the link', run: () => useAppStore.getState().undo() } });
+  return null;
 }
 
 /**
@@ -36,29 +56,35 @@ function applyLinkOutcome(outcome: LinkOutcome): string | null {
 export async function openLinkBeforeRender(): Promise<void> {
   const hash = window.location.hash;
   if (!hasLink(hash)) return;
-  pendingMessage = applyLinkOutcome(await decodeWorkspaceLink(hash));
+  pendingMessage = await applyLinkOutcome(await decodeWorkspaceLink(hash)).catch(() => 'This link could not be opened. Your saved workspace has not been changed.');
 }
 
 /**
- * Opens a workspace link in the address (#ws...) once, after the saved workspace was restored:
- * a good link replaces the workspace as one undoable step (with a notice when it comes from
- * another build); a bad one leaves everything as it was and returns the message to show. The
- * fragment is removed from the address afterwards, so a reload does not open it again. When the
- * entry point already opened the link (openLinkBeforeRender), this only shows its message.
+ * Opens a workspace link in the address (#ws...): once after the saved workspace was restored,
+ * and again whenever the fragment changes while the page is open (a link pasted into the address
+ * bar of a tab already showing the workbench). A good link opens as a new workspace in the list;
+ * a bad one leaves everything as it was and returns the message to show. When the entry point
+ * already opened the link (openLinkBeforeRender), this only shows its message.
  */
 export function useOpenLinkOnStart(): { message: string | null; dismiss: () => void } {
   const [message, setMessage] = useState<string | null>(() => pendingMessage);
   useEffect(() => {
     pendingMessage = null;
-    const hash = window.location.hash;
-    if (!hasLink(hash)) return;
     let live = true;
-    void decodeWorkspaceLink(hash).then((outcome) => {
-      if (!live) return;
-      setMessage(applyLinkOutcome(outcome));
-    });
+    const follow = (): void => {
+      const hash = window.location.hash;
+      if (!hasLink(hash)) return;
+      void decodeWorkspaceLink(hash)
+        .then(applyLinkOutcome)
+        .then((m) => {
+          if (live) setMessage(m);
+        });
+    };
+    follow();
+    window.addEventListener('hashchange', follow);
     return () => {
       live = false;
+      window.removeEventListener('hashchange', follow);
     };
   }, []);
   return { message, dismiss: () => setMessage(null) };

@@ -220,6 +220,18 @@ describe('autosave and restore', () => {
   });
 });
 
+describe('the notice after Reset to demo', () => {
+  it('says the user’s own workspace is one Undo away, and its Undo brings it back', () => {
+    render(<App />);
+    fireEvent.click(screen.getByRole('button', { name: 'Delete row 1' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Reset to demo' }));
+    expect(screen.getByText('Replaced the workspace with the demo; your own is one Undo away.')).toBeInTheDocument();
+    fireEvent.click(screen.getByRole('button', { name: 'Undo the reset' }));
+    expect(cell(1, 'Maturity')).toHaveValue('1M');
+    expect(screen.queryByText(/your own is one Undo away/)).toBeNull();
+  });
+});
+
 describe('two tabs', () => {
   it('another tab saving the same workspace is warned about, and nothing is overwritten until the user chooses', async () => {
     const p = startPersistence();
