@@ -4,6 +4,7 @@ import { StorageBanner, StorageStatusText } from '../components/StorageBanner.ts
 import { CurvesPanel } from '../features/curves/CurvesPanel.tsx';
 import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
 import { SettingsBar } from '../features/settings/SettingsBar.tsx';
+import { WorkspacesButton, WorkspacesSlot } from '../features/workspaces/WorkspacesPanel.tsx';
 import { useCurveBuild, type WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { useSettledValue } from '../hooks/useSettledValue.ts';
 import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';
@@ -33,6 +34,7 @@ export function App() {
         <span className="subtitle">yield-curve workbench</span>
         <div className="top-actions">
           <StorageStatusText />
+          <WorkspacesButton />
           <ShareBar result={result} />
           <button type="button" onClick={undo} disabled={!canUndo} aria-keyshortcuts="Control+Z Meta+Z" title="Undo (Ctrl+Z)">
             Undo
@@ -49,6 +51,7 @@ export function App() {
       <StorageBanner />
       <LinkNotice message={link.message} onDismiss={link.dismiss} />
       <OpenedNotice />
+      <WorkspacesSlot />
       <SettingsBar />
       {/* The quotes beside the charts and tables (one first screen); roll versus term across both below. */}
       <main className="workbench">

@@ -1,4 +1,5 @@
 import { readWorkbenchDocument, WORKBENCH_VERSION, type WorkbenchDocument } from '../core/index.ts';
+import { readDrafts, useDrafts } from './drafts.ts';
 import { makeRowId } from './ids.ts';
 import { useAppStore } from './store.ts';
 import { KEEP, openBackend, type WorkspaceBackend } from './workspaceBackend.ts';
@@ -37,6 +38,8 @@ export interface SavedEntry {
   readonly history?: { readonly past: readonly unknown[]; readonly future: readonly unknown[] };
   /** The text of an entry earlier builds could not read, kept as it was. */
   readonly unreadable?: string;
+  /** Text typed into fields that commit on Enter but not committed yet (src/state/drafts.ts). */
+  readonly drafts?: Readonly<Record<string, string>>;
 }
 
 type Message =
@@ -131,6 +134,7 @@ interface ReadEntry {
   readonly item: WorkspaceListItem;
   readonly stamp: string | null;
   readonly history: { past: WorkbenchDocument[]; future: WorkbenchDocument[] };
+  readonly drafts?: Record<string, string>;
 }
 
 /** The saved undo/redo steps, or none if any step is unreadable (the workspace itself still loads). */
@@ -168,7 +172,7 @@ export function readEntry(id: string, value: unknown): ReadEntry {
   if (value.app !== 'tenorscope') return { item: { id, name, savedAt, workspace: null, problem: 'it is not a Tenorscope save' }, stamp, history: none };
   const { doc, problem } = readWorkbenchDocument(value.workspace, makeRowId);
   if (!doc) return { item: { id, name, savedAt, workspace: null, problem: describeDocProblem(value.workspace, problem ?? 'it could not be read') }, stamp, history: none };
-  return { item: { id, name, savedAt, workspace: doc, problem: null }, stamp, history: readHistory(value.history as SavedEntry['history']) };
+  return { item: { id, name, savedAt, workspace: doc, problem: null }, stamp, history: readHistory(value.history as SavedEntry['history']), drafts: readDrafts(value.drafts) };
 }
 
 export interface Persistence {
@@ -186,6 +190,7 @@ interface Controller {
   remove(id: string): Promise<void>;
   undoRemove(): Promise<void>;
   records(): Promise<[string, unknown][]>;
+  add(items: readonly { name: string; workspace: WorkbenchDocument }[]): Promise<number>;
   stop(): void;
 }
 let active: Controller | null = null;
@@ -221,6 +226,10 @@ export function deleteWorkspace(id: string): Promise<void> {
 }
 export function undoDelete(): Promise<void> {
   return active?.undoRemove() ?? Promise.resolve();
+}
+/** Adds workspaces to the list without opening them (an imported list file); resolves to how many were saved. */
+export function addWorkspaces(items: readonly { name: string; workspace: WorkbenchDocument }[]): Promise<number> {
+  return active?.add(items) ?? Promise.resolve(0);
 }
 /** Every saved record with the open workspace as it is now (for the export of the whole list). */
 export function allRecords(): Promise<[string, unknown][]> {
@@ -273,9 +282,10 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
     }
   };
 
-  const loadIntoStore = (doc: WorkbenchDocument, history: { past: WorkbenchDocument[]; future: WorkbenchDocument[] }): void => {
+  const loadIntoStore = (doc: WorkbenchDocument, history: { past: WorkbenchDocument[]; future: WorkbenchDocument[] }, drafts: Record<string, string> = {}): void => {
     loading = true;
     try {
+      useDrafts.setState({ drafts });
       store.setState({ workspace: doc, past: history.past, future: history.future, lastEditKey: null, lastEditLabel: null, selectedRowId: null, pasteNotice: null });
     } finally {
       loading = false;
@@ -285,7 +295,8 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
   // Saving.
   const record = (withHistory: boolean): SavedEntry => {
     const state = store.getState();
-    const base = { app: 'tenorscope' as const, id: currentId, name: currentName, stamp: `${tabId}:${++revision}`, writer: tabId, savedAt: now(), workspace: state.workspace };
+    const drafts = useDrafts.getState().drafts;
+    const base = { app: 'tenorscope' as const, id: currentId, name: currentName, stamp: `${tabId}:${++revision}`, writer: tabId, savedAt: now(), workspace: state.workspace, ...(Object.keys(drafts).length > 0 ? { drafts } : {}) };
     return withHistory ? { ...base, history: { past: state.past.slice(-SAVED_HISTORY_CAP), future: state.future.slice(-SAVED_HISTORY_CAP) } } : base;
   };
   /** Someone else saved this workspace since this tab loaded or saved it. */
@@ -388,9 +399,16 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
     }
     return enqueue();
   };
-  const unsubscribe = store.subscribe((s, prev) => {
+  const unsubscribeStore = store.subscribe((s, prev) => {
     if (s.workspace !== prev.workspace && !loading) schedule();
   });
+  const unsubscribeDrafts = useDrafts.subscribe((s, prev) => {
+    if (s.drafts !== prev.drafts && !loading) schedule();
+  });
+  const unsubscribe = (): void => {
+    unsubscribeStore();
+    unsubscribeDrafts();
+  };
 
   // Earlier builds kept one workspace in localStorage: move it (and any copies of a damaged one) into the list.
   const migrateLegacy = async (): Promise<string | null> => {
@@ -487,7 +505,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       currentId = chosen.item.id;
       currentName = chosen.item.name;
       lastSeen = chosen.stamp;
-      loadIntoStore(chosen.item.workspace!, chosen.history);
+      loadIntoStore(chosen.item.workspace!, chosen.history, chosen.drafts);
       setStorage({ state: 'saved', savedAt: chosen.item.savedAt });
     } else {
       // A new workspace (the demo): saved on its first edit.
@@ -596,7 +614,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       currentName = r.item.name;
       lastSeen = r.stamp;
       dirty = false;
-      loadIntoStore(r.item.workspace!, r.history);
+      loadIntoStore(r.item.workspace!, r.history, r.drafts);
       setStorage({ state: 'saved', message: null, savedAt: r.item.savedAt, otherTab: false });
       list.setState({ currentId: id, notice: null });
       updateItem({ ...r.item });
@@ -679,6 +697,25 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       const out = backend ? (await backend.all()).filter(([k]) => k.startsWith('entry:')) : [];
       const current: [string, unknown] = [entryKey(currentId), { ...record(true), savedAt: store.getState().storage.savedAt ?? now() }];
       return [...out.filter(([k]) => k !== current[0]), current];
+    },
+    async add(items) {
+      await ready;
+      if (!backend) return 0;
+      let n = 0;
+      for (const it of items) {
+        const id = randomId();
+        const entry: SavedEntry = { app: 'tenorscope', id, name: it.name.trim().slice(0, 120) || 'Imported workspace', stamp: `${tabId}:${++revision}`, writer: tabId, savedAt: now(), workspace: it.workspace };
+        try {
+          await backend.set(entryKey(id), entry);
+          n++;
+        } catch (e) {
+          list.setState({ notice: `Imported ${n} of ${items.length} workspaces; the rest were not saved: ${errorText(e)}.` });
+          break;
+        }
+      }
+      await refreshList();
+      post({ type: 'list', tab: tabId });
+      return n;
     },
     stop() {
       void flush();

@@ -27,10 +27,12 @@ export interface WorkspaceListState {
   readonly deleted: DeletedEntry | null;
   /** What the last list command did or why it failed (plain text), or null. */
   readonly notice: string | null;
+  /** The Workspaces panel is shown. */
+  readonly panelOpen: boolean;
 }
 
 /**
  * The saved workspaces of this browser, kept apart from the workbench store: persistence.ts
  * fills it from the database and the Workspaces panel reads it. Holds inputs only.
  */
-export const useWorkspaceList = create<WorkspaceListState>()(() => ({ items: [], currentId: null, deleted: null, notice: null }));
+export const useWorkspaceList = create<WorkspaceListState>()(() => ({ items: [], currentId: null, deleted: null, notice: null, panelOpen: false }));

@@ -23,6 +23,7 @@ import {
   undoDelete,
   type PersistenceDeps,
 } from '../../src/state/persistence.ts';
+import { setFieldDraft, useDrafts } from '../../src/state/drafts.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { indexedDbBackend, KEEP, LOCAL_PREFIX, type WorkspaceBackend } from '../../src/state/workspaceBackend.ts';
 import { useWorkspaceList } from '../../src/state/workspaceList.ts';
@@ -111,6 +112,7 @@ const reload = async (opts: Parameters<typeof start>[0] = {}): Promise<EventTarg
   stop?.();
   useAppStore.setState(initial, true);
   useWorkspaceList.setState(initialList, true);
+  useDrafts.setState({ drafts: {} });
   return start({ tabId: 'tabB', ...opts });
 };
 const s = () => useAppStore.getState();
@@ -163,6 +165,15 @@ describe('startPersistence: saving and restoring', () => {
     await reload();
     expect(s().workspace.quotes[0]!.rate).toBe(`4.${SAVED_HISTORY_CAP + 9}`);
     expect(s().past).toHaveLength(0);
+  });
+
+  it('text typed into a field but not committed (a draft) is saved at the next idle moment and restored', async () => {
+    await start();
+    setFieldDraft('roll:Amount', '2500000');
+    await wait(SAVE_DELAY_MS);
+    expect((await currentRecord()).drafts).toEqual({ 'roll:Amount': '2500000' });
+    await reload();
+    expect(useDrafts.getState().drafts).toEqual({ 'roll:Amount': '2500000' });
   });
 
   it('saves at once on pagehide', async () => {
