@@ -1,4 +1,5 @@
-import { useEffect, useState } from 'react';
+import { useEffect } from 'react';
+import { create } from 'zustand';
 import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/index.ts';
 import { makeRowId } from '../state/ids.ts';
 import { openAsNewWorkspace, switchWorkspace } from '../state/persistence.ts';
@@ -6,15 +7,17 @@ import { useAppStore } from '../state/store.ts';
 import { decodeWorkspaceLink, type LinkOutcome } from './linkCodec.ts';
 import { showOpenedNotice } from './OpenedNotice.tsx';
 
-/** The message left by openLinkBeforeRender() for the first render to show (null: none). */
-let pendingMessage: string | null = null;
+/** Why the last link was not opened (null: none), for every component showing it. */
+const useLinkMessage = create<{ message: string | null }>(() => ({ message: null }));
+/** The fragment being opened now: a second listener or hook seeing it leaves it to the first. */
+let inFlight: string | null = null;
 
 const hasLink = (hash: string): boolean => hash.startsWith('#ws');
 
 /** The name a workspace opened from a link gets in the list (the user can rename it). */
-function linkName(doc: WorkbenchDocument): string {
+function linkName(): string {
   const when = new Date().toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
-  return `From a link, ${when}${doc.settlement ? ` (settles ${doc.settlement})` : ''}`;
+  return `From a link, ${when}`;
 }
 
 /**
@@ -32,7 +35,7 @@ async function applyLinkOutcome(outcome: LinkOutcome): Promise<string | null> {
   const read = readWorkbenchDocument(outcome.checked.document, makeRowId);
   if (!read.doc) return `This link could not be opened: ${read.problem ?? 'not a workspace'}. Your saved workspace has not been changed.`;
   const doc = read.doc as WorkbenchDocument;
-  const name = linkName(doc);
+  const name = linkName();
   const back = await openAsNewWorkspace(doc, name);
   const tab = outcome.checked.view.tab;
   if (typeof tab === 'string') useAppStore.getState().setActiveTab(tab);
@@ -56,7 +59,19 @@ async function applyLinkOutcome(outcome: LinkOutcome): Promise<string | null> {
 export async function openLinkBeforeRender(): Promise<void> {
   const hash = window.location.hash;
   if (!hasLink(hash)) return;
-  pendingMessage = await applyLinkOutcome(await decodeWorkspaceLink(hash)).catch(() => 'This link could not be opened. Your saved workspace has not been changed.');
+  await openFragment(hash);
+}
+
+/** Decodes and applies one fragment, once however many listeners see it. */
+async function openFragment(hash: string): Promise<void> {
+  if (!hasLink(hash) || inFlight === hash) return;
+  inFlight = hash;
+  try {
+    const message = await applyLinkOutcome(await decodeWorkspaceLink(hash)).catch(() => 'This link could not be opened. Your saved workspace has not been changed.');
+    useLinkMessage.setState({ message });
+  } finally {
+    inFlight = null;
+  }
 }
 
 /**
@@ -67,25 +82,12 @@ export async function openLinkBeforeRender(): Promise<void> {
  * already opened the link (openLinkBeforeRender), this only shows its message.
  */
 export function useOpenLinkOnStart(): { message: string | null; dismiss: () => void } {
-  const [message, setMessage] = useState<string | null>(() => pendingMessage);
+  const message = useLinkMessage((st) => st.message);
   useEffect(() => {
-    pendingMessage = null;
-    let live = true;
-    const follow = (): void => {
-      const hash = window.location.hash;
-      if (!hasLink(hash)) return;
-      void decodeWorkspaceLink(hash)
-        .then(applyLinkOutcome)
-        .then((m) => {
-          if (live) setMessage(m);
-        });
-    };
+    const follow = (): void => void openFragment(window.location.hash);
     follow();
     window.addEventListener('hashchange', follow);
-    return () => {
-      live = false;
-      window.removeEventListener('hashchange', follow);
-    };
+    return () => window.removeEventListener('hashchange', follow);
   }, []);
-  return { message, dismiss: () => setMessage(null) };
+  return { message, dismiss: () => useLinkMessage.setState({ message: null }) };
 }

@@ -70,7 +70,7 @@ describe('useOpenLinkOnStart()', () => {
         <OpenedNotice />
       </>,
     );
-    const back = await screen.findByRole('button', { name: /Back to “My workspace”/ });
+    const back = await screen.findByRole('button', { name: /Back to “My workspace”/ }, { timeout: 10_000 });
     expect(screen.getByRole('alert').textContent).toMatch(/Opened a shared workspace as a new entry, “From a link.*”; your own, “My workspace”, is kept unchanged/);
     expect(s().workspace.quotes).toHaveLength(40);
     expect(useWorkspaceList.getState().currentId).not.toBe(ownId);

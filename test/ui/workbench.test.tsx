@@ -196,7 +196,7 @@ describe('autosave and restore', () => {
     await flushSave();
     const view = render(<App />);
     fireEvent.change(cell(4, 'Rate / yield'), { target: { value: '4.77' } });
-    await screen.findByText('Saved in this browser');
+    await screen.findByText('Saved in this browser', undefined, { timeout: 10_000 });
     const id = useWorkspaceList.getState().currentId!;
     expect(JSON.stringify(await indexedDbBackend().get(entryKey(id)))).toContain('4.77');
     view.unmount();
@@ -239,7 +239,7 @@ describe('two tabs', () => {
     await p.ready;
     render(<App />);
     fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '4.3' } });
-    await screen.findByText('Saved in this browser');
+    await screen.findByText('Saved in this browser', undefined, { timeout: 10_000 });
     const id = useWorkspaceList.getState().currentId!;
     // The other tab writes its version and tells the others, as persistence.ts does.
     const other = { app: 'tenorscope', id, name: 'x', stamp: 'other:1', writer: 'other', savedAt: 1, workspace: { ...useAppStore.getState().workspace, note: 'from the other tab' } };
@@ -247,7 +247,7 @@ describe('two tabs', () => {
     const channel = new BroadcastChannel(CHANNEL_NAME);
     channel.postMessage({ type: 'saved', tab: 'other', id, stamp: 'other:1' });
     channel.close();
-    await screen.findByText(/Another tab saved a different version of this workspace/);
+    await screen.findByText(/Another tab saved a different version of this workspace/, undefined, { timeout: 10_000 });
     fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '4.4' } });
     await flushSave();
     expect(await indexedDbBackend().get(entryKey(id))).toEqual(other);
