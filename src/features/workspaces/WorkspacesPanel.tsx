@@ -29,7 +29,7 @@ function download(name: string, text: string): void {
 }
 
 /** Every saved workspace as one file: readable ones as documents, unreadable ones as the text that was kept. */
-async function exportAll(): Promise<string> {
+export async function exportAll(): Promise<string> {
   const records = await allRecords();
   const workspaces = records.map(([key, value]) => {
     const r = readEntry(key.slice('entry:'.length), value);
