@@ -154,8 +154,11 @@ function readHistory(h: SavedEntry['history']): { past: WorkbenchDocument[]; fut
   return past && future ? { past, future } : { past: [], future: [] };
 }
 
-/** Reads one record into a list item (never throws; an unreadable one carries its reason). */
-export function readEntry(id: string, value: unknown): ReadEntry {
+/**
+ * Reads one record into a list item (never throws; an unreadable one carries its reason). The undo
+ * history is read only when asked for (the workspace being opened), not for every listed entry.
+ */
+export function readEntry(id: string, value: unknown, withHistory = false): ReadEntry {
   const none = { past: [], future: [] };
   if (!isObj(value)) {
     const problem = typeof value === 'string' ? (parseLegacyText(value).problem ?? 'it is not a Tenorscope save') : 'it is empty (no workspace in it)';
@@ -172,7 +175,7 @@ export function readEntry(id: string, value: unknown): ReadEntry {
   if (value.app !== 'tenorscope') return { item: { id, name, savedAt, workspace: null, problem: 'it is not a Tenorscope save' }, stamp, history: none };
   const { doc, problem } = readWorkbenchDocument(value.workspace, makeRowId);
   if (!doc) return { item: { id, name, savedAt, workspace: null, problem: describeDocProblem(value.workspace, problem ?? 'it could not be read') }, stamp, history: none };
-  return { item: { id, name, savedAt, workspace: doc, problem: null }, stamp, history: readHistory(value.history as SavedEntry['history']), drafts: readDrafts(value.drafts) };
+  return { item: { id, name, savedAt, workspace: doc, problem: null }, stamp, history: withHistory ? readHistory(value.history as SavedEntry['history']) : none, drafts: readDrafts(value.drafts) };
 }
 
 export interface Persistence {
@@ -462,11 +465,11 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
     return raw !== null && openId === null ? records[0]![0].slice('entry:'.length) : null;
   };
 
-  const readAll = async (): Promise<{ reads: ReadEntry[]; openId: string | null }> => {
+  const readAll = async (): Promise<{ reads: ReadEntry[]; openId: string | null; raw: Map<string, unknown> }> => {
     const all = await backend!.all();
     const reads = all.filter(([k]) => k.startsWith('entry:')).map(([k, v]) => readEntry(k.slice('entry:'.length), v));
     const open = all.find(([k]) => k === OPEN_KEY)?.[1];
-    return { reads, openId: typeof open === 'string' ? open : null };
+    return { reads, openId: typeof open === 'string' ? open : null, raw: new Map(all) };
   };
   const publishList = (reads: readonly ReadEntry[]): void => {
     const items = reads.map((r) => r.item);
@@ -495,11 +498,12 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
     }
     setStorage({ backend: backend.kind });
     const damagedLegacy = await migrateLegacy();
-    const { reads, openId } = await readAll();
+    const { reads, openId, raw } = await readAll();
     const readable = reads.filter((r) => r.item.workspace !== null).sort((a, b) => (b.item.savedAt ?? 0) - (a.item.savedAt ?? 0));
     const target = reads.find((r) => r.item.id === openId);
     const damaged = target && !target.item.workspace ? target : reads.find((r) => r.item.id === damagedLegacy);
-    const chosen = target?.item.workspace ? target : readable[0];
+    const pick = target?.item.workspace ? target : readable[0];
+    const chosen = pick ? readEntry(pick.item.id, raw.get(entryKey(pick.item.id)), true) : undefined;
     if (damaged) setStorage({ corruptName: damaged.item.name, corruptReason: damaged.item.problem });
     if (chosen) {
       currentId = chosen.item.id;
@@ -565,7 +569,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
   deps.target?.addEventListener('pagehide', onPageHide);
 
   const openRecord = async (id: string): Promise<ReadEntry | null> => {
-    const r = readEntry(id, await backend!.get(entryKey(id)));
+    const r = readEntry(id, await backend!.get(entryKey(id)), true);
     return r.item.workspace ? r : null;
   };
 
