@@ -4,8 +4,23 @@ import { tableConventionsFromDisplay } from '../features/print/printData.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';
 import { useAppStore } from '../state/store.ts';
+import { openAsNewWorkspace, switchWorkspace } from '../state/persistence.ts';
 import { CopyLinkButton, LinkNotice } from './CopyLinkButton.tsx';
+import { showOpenedNotice } from './OpenedNotice.tsx';
 import { WorkspaceFiles } from './WorkspaceFiles.tsx';
+
+/** Opens a workspace file as a new entry in the list (the open one is saved and kept), with the way back. */
+async function openFileAsWorkspace(doc: WorkbenchDocument): Promise<void> {
+  const name = `From a file, ${new Date().toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' })}`;
+  const back = await openAsNewWorkspace(doc, name);
+  if (back.previousId === null) {
+    showOpenedNotice({ text: 'Opened the workspace file; your own is one Undo away.', action: { label: 'Undo', ariaLabel: 'Undo opening the file', run: () => useAppStore.getState().undo() } });
+    return;
+  }
+  const previousId = back.previousId;
+  const previous = back.previousName ?? 'workspace';
+  showOpenedNotice({ text: `Opened the workspace file as a new entry, “${name}”; your own, “${previous}”, is kept unchanged in the list of workspaces.`, action: { label: `Back to “${previous}”`, run: () => void switchWorkspace(previousId) } });
+}
 
 /** Copy link, save/open the workspace file and export the curve CSV, wired to the workbench store. */
 export function ShareBar({ result }: { result: WorkbenchBuild }) {
@@ -31,8 +46,8 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
           const read = readWorkbenchDocument(checked.document, makeRowId);
           if (!read.doc) setMessage(`The file was not opened: ${read.problem ?? 'not a workspace'}. Your workspace has not been changed.`);
           else {
-            useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open workspace file');
             setMessage(null);
+            void openFileAsWorkspace(read.doc as WorkbenchDocument);
           }
         }}
       />
