@@ -13,6 +13,10 @@ import { WorkspaceFiles } from './WorkspaceFiles.tsx';
 async function openFileAsWorkspace(doc: WorkbenchDocument): Promise<void> {
   const name = `From a file, ${new Date().toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' })}`;
   const back = await openAsNewWorkspace(doc, name);
+  if (back.previousId === null && back.mode === 'entry') {
+    showOpenedNotice({ text: `Opened the workspace file as a new entry, “${name}”, in the list of workspaces.`, action: null });
+    return;
+  }
   if (back.previousId === null) {
     showOpenedNotice({ text: 'Opened the workspace file; your own is one Undo away.', action: { label: 'Undo', ariaLabel: 'Undo opening the file', run: () => useAppStore.getState().undo() } });
     return;

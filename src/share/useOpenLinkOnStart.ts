@@ -46,6 +46,11 @@ async function applyLinkOutcome(outcome: LinkOutcome): Promise<string | null> {
     showOpenedNotice({ text, action: { label: `Back to “${back.previousName ?? 'workspace'}”`, run: () => void switchWorkspace(previousId) } });
     return null;
   }
+  if (back.mode === 'entry') {
+    // What was shown before was the demo, never edited: nothing of the user's to go back to.
+    showOpenedNotice({ text: `Opened a shared workspace as a new entry, “${name}”, in the list of workspaces.${extra}`, action: null });
+    return null;
+  }
   const text = `Opened a shared workspace; your own is one Undo away.${extra}`;
   showOpenedNotice({ text, action: { label: 'Undo', ariaLabel: 'Undo opening the link', run: () => useAppStore.getState().undo() } });
   return null;

@@ -188,7 +188,7 @@ interface Controller {
   resolve(choice: 'load' | 'keep'): Promise<void>;
   flush(): Promise<void>;
   switchTo(id: string): Promise<boolean>;
-  create(doc: WorkbenchDocument, name: string): Promise<{ previousId: string | null; previousName: string | null }>;
+  create(doc: WorkbenchDocument, name: string): Promise<OpenedAsNew>;
   rename(id: string, name: string): Promise<void>;
   remove(id: string): Promise<void>;
   undoRemove(): Promise<void>;
@@ -211,14 +211,25 @@ export function switchWorkspace(id: string): Promise<boolean> {
   return active?.switchTo(id) ?? Promise.resolve(false);
 }
 /**
+ * How a document was opened: `entry` as a new entry in the list (`previousId` is the saved
+ * workspace shown before, null when that was the untouched demo, never saved); `replaced` in place
+ * of the document as one undoable step (no storage, or the open workspace could not be saved).
+ */
+export interface OpenedAsNew {
+  readonly mode: 'entry' | 'replaced';
+  readonly previousId: string | null;
+  readonly previousName: string | null;
+}
+
+/**
  * Adds `doc` as a new workspace and opens it (a shared link, an imported file); the workspace
  * shown before is saved and stays in the list. Without persistence (tests of components) it
  * replaces the document as one undoable step.
  */
-export async function openAsNewWorkspace(doc: WorkbenchDocument, name: string): Promise<{ previousId: string | null; previousName: string | null }> {
+export async function openAsNewWorkspace(doc: WorkbenchDocument, name: string): Promise<OpenedAsNew> {
   if (active) return active.create(doc, name);
   useAppStore.getState().replaceWorkspace(doc, name);
-  return { previousId: null, previousName: null };
+  return { mode: 'replaced', previousId: null, previousName: null };
 }
 export function renameWorkspace(id: string, name: string): Promise<void> {
   return active?.rename(id, name) ?? Promise.resolve();
@@ -473,8 +484,9 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
   };
   const publishList = (reads: readonly ReadEntry[]): void => {
     const items = reads.map((r) => r.item);
-    const cur = list.getState().items.find((x) => x.id === currentId);
-    if (cur && !items.some((x) => x.id === currentId)) items.push(cur);
+    // The open workspace is listed even before its first save.
+    const cur = list.getState().items.find((x) => x.id === currentId) ?? { id: currentId, name: currentName, savedAt: null, workspace: store.getState().workspace, problem: null };
+    if (!items.some((x) => x.id === currentId)) items.push(cur);
     list.setState({ items: items.map((x) => (x.id === currentId ? { ...x, workspace: store.getState().workspace, name: currentName } : x)), currentId });
   };
   const refreshList = async (): Promise<void> => {
@@ -632,17 +644,18 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       const previousId = currentId;
       const previousName = currentName;
       if (backend && !paused) await flush();
+      const wasSaved = lastSeen !== null;
       const keepPrevious = backend !== null && !paused && store.getState().storage.state !== 'memory';
       if (!keepPrevious) {
         // The open workspace is not safely saved: open the new one in its place, one Undo away.
         store.getState().replaceWorkspace(doc, name);
-        return { previousId: null, previousName: null };
+        return { mode: 'replaced', previousId: null, previousName: null };
       }
       currentId = randomId();
       currentName = name;
       lastSeen = null;
       loadIntoStore(doc, { past: [], future: [] });
-      list.setState({ currentId, notice: null });
+      list.setState({ currentId, notice: null, items: wasSaved ? list.getState().items : list.getState().items.filter((x) => x.id !== previousId) });
       updateItem({ id: currentId, name, savedAt: null, workspace: doc, problem: null });
       setStorage({ otherTab: false });
       post({ type: 'open', tab: tabId, id: currentId });
@@ -650,7 +663,8 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       await enqueue();
       await backend!.set(OPEN_KEY, currentId).catch(() => undefined);
       post({ type: 'list', tab: tabId });
-      return { previousId, previousName };
+      // Nothing to go back to when the workspace shown before was the demo, never edited or saved.
+      return { mode: 'entry', previousId: wasSaved ? previousId : null, previousName: wasSaved ? previousName : null };
     },
     async rename(id, name) {
       await ready;

@@ -205,7 +205,7 @@ describe('startPersistence: the list of workspaces', () => {
     const ownId = useWorkspaceList.getState().currentId!;
     const shared = { ...s().workspace, note: 'from a colleague' };
     const back = await openAsNewWorkspace(shared, 'Shared workspace');
-    expect(back).toEqual({ previousId: ownId, previousName: DEFAULT_NAME });
+    expect(back).toEqual({ mode: 'entry', previousId: ownId, previousName: DEFAULT_NAME });
     expect(s().workspace.note).toBe('from a colleague');
     expect(s().past).toHaveLength(0);
     // Both are saved; the user's own is unchanged.
@@ -219,6 +219,15 @@ describe('startPersistence: the list of workspaces', () => {
     expect(await switchWorkspace(ownId)).toBe(true);
     expect(s().workspace.quotes[0]!.rate).toBe('3.33');
     expect(s().past).toHaveLength(1);
+  });
+
+  it('a link opened over the untouched demo (never saved) leaves nothing behind to go back to', async () => {
+    await start();
+    expect(useWorkspaceList.getState().items.map((x) => x.savedAt)).toEqual([null]); // listed before its first save
+    const back = await openAsNewWorkspace({ ...s().workspace, note: 'shared' }, 'Shared workspace');
+    expect(back).toEqual({ mode: 'entry', previousId: null, previousName: null });
+    expect(useWorkspaceList.getState().items.map((x) => x.name)).toEqual(['Shared workspace']);
+    expect((await db().all()).filter(([k]) => k.startsWith('entry:'))).toHaveLength(1);
   });
 
   it('renames, deletes with undo, and never deletes the open workspace', async () => {
