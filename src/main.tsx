@@ -15,7 +15,9 @@ if (!container) throw new Error('Tenorscope: index.html has no #root element');
 
 // The feature panels' code is fetched when a panel first shows, or once the first chart is up.
 void installFeaturePanels({ preload: false });
-startPersistence();
+// The saved workspace is read from the browser's database first (a few milliseconds), so the first
+// chart drawn is the user's, or the link's.
+const persistence = startPersistence();
 
 const render = (): void => {
   createRoot(container).render(
@@ -27,4 +29,4 @@ const render = (): void => {
   setTimeout(() => void preloadFeaturePanels().catch(() => undefined), 500);
 };
 
-void openLinkBeforeRender().then(render, render);
+void persistence.ready.then(openLinkBeforeRender).then(render, render);

@@ -5,11 +5,13 @@ import { StorageBanner, StorageStatusText } from '../components/StorageBanner.ts
 import { CurvesPanel } from '../features/curves/CurvesPanel.tsx';
 import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
 import { SettingsBar } from '../features/settings/SettingsBar.tsx';
+import { WorkspacesButton, WorkspacesSlot } from '../features/workspaces/WorkspacesPanel.tsx';
 import { useCurveBuild, type WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { useSettledValue } from '../hooks/useSettledValue.ts';
 import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';
 import { useAppStore } from '../state/store.ts';
 import { LinkNotice } from '../share/CopyLinkButton.tsx';
+import { OpenedNotice, resetToDemoWithNotice } from '../share/OpenedNotice.tsx';
 import { ShareBar } from '../share/ShareBar.tsx';
 import { useOpenLinkOnStart } from '../share/useOpenLinkOnStart.ts';
 import { EXTENSIONS } from './extensions.tsx';
@@ -26,7 +28,7 @@ export function App() {
   // A read-only document whose display settings (or quote unit) this build does not know: the
   // charts and tables are not drawn in a guessed convention.
   const undrawable = readOnly?.unknowns.filter((u) => u.path.startsWith('display.') || u.path === 'quoteUnit') ?? [];
-  const { undo, redo, resetToDemo } = useAppStore.getState();
+  const { undo, redo } = useAppStore.getState();
   // Panels beyond the base curve, charts and tables follow the build once typing pauses, so a
   // keystroke paints the sheet, charts and tables first (see useSettledValue).
   const deferred = useSettledValue(result);
@@ -37,6 +39,7 @@ export function App() {
         <span className="subtitle">yield-curve workbench</span>
         <div className="top-actions">
           <StorageStatusText />
+          <WorkspacesButton />
           <ShareBar result={result} />
           <button type="button" onClick={undo} disabled={!canUndo} aria-keyshortcuts="Control+Z Meta+Z" title="Undo (Ctrl+Z)">
             Undo
@@ -44,7 +47,7 @@ export function App() {
           <button type="button" onClick={redo} disabled={!canRedo} aria-keyshortcuts="Control+Shift+Z Control+Y Meta+Shift+Z" title="Redo (Ctrl+Shift+Z or Ctrl+Y)">
             Redo
           </button>
-          <button type="button" onClick={resetToDemo} disabled={readOnly !== null} title="Replace the workspace with the built-in demo (undoable)">
+          <button type="button" onClick={resetToDemoWithNotice} disabled={readOnly !== null} title="Replace the workspace with the built-in demo (undoable)">
             Reset to demo
           </button>
         </div>
@@ -53,6 +56,8 @@ export function App() {
       <StorageBanner />
       <LinkNotice message={link.message} onDismiss={link.dismiss} />
       <ReadOnlyBanner />
+      <OpenedNotice />
+      <WorkspacesSlot />
       <SettingsBar />
       {/* The quotes beside the charts and tables (one first screen); roll versus term across both below. */}
       <main className="workbench">

@@ -1,16 +1,17 @@
 import { useAppStore } from '../state/store.ts';
 import { resolveConflict } from '../state/persistence.ts';
+import { useWorkspaceList } from '../state/workspaceList.ts';
 
 /** Where the work is kept, and anything the user must decide about it. */
 export function StorageBanner() {
   const storage = useAppStore((s) => s.storage);
   const setStorage = useAppStore((s) => s.setStorage);
+  const openName = useWorkspaceList((l) => l.items.find((x) => x.id === l.currentId)?.name ?? 'a new workspace');
   return (
     <>
       {storage.corruptReason && (
         <div className="banner warn" role="alert">
-          The saved workspace could not be read ({storage.corruptReason}), so the demo was opened instead.
-          {storage.corruptCopyKey && <> A copy of the unreadable entry is kept in this browser under &ldquo;{storage.corruptCopyKey}&rdquo;.</>}{' '}
+          The saved workspace &ldquo;{storage.corruptName ?? 'unnamed'}&rdquo; could not be opened: {storage.corruptReason}. It is kept unchanged in the list of workspaces (export the list to keep a copy of it, or delete it there); &ldquo;{openName}&rdquo; is open instead.{' '}
           <button type="button" className="linklike" onClick={() => setStorage({ corruptReason: null })}>
             Dismiss
           </button>
@@ -33,17 +34,22 @@ export function StorageBanner() {
       {storage.state === 'paused' && (
         <div className="banner warn" role="alert">
           Another tab saved a different version of this workspace. Saving here is paused so neither is overwritten.{' '}
-          <button type="button" onClick={() => resolveConflict('load')}>
+          <button type="button" onClick={() => void resolveConflict('load')}>
             Load the other tab&rsquo;s version
           </button>{' '}
-          <button type="button" onClick={() => resolveConflict('keep')}>
+          <button type="button" onClick={() => void resolveConflict('keep')}>
             Keep this tab&rsquo;s version and save it
           </button>
         </div>
       )}
       {storage.state === 'memory' && (
         <div className="banner warn" role="alert">
-          {storage.message ?? 'The browser would not store the workspace.'} Your work continues in this page, but it is not saved: export or copy it before closing.
+          {storage.message ?? 'The browser would not store the workspace.'} Your work continues in this page: save a workspace file or copy a link before closing.
+        </div>
+      )}
+      {storage.state === 'partial' && (
+        <div className="banner warn" role="alert">
+          {storage.message}
         </div>
       )}
     </>
@@ -55,7 +61,17 @@ export function StorageStatusText() {
   const readOnly = useAppStore((s) => s.readOnly !== null);
   const text = readOnly
     ? 'Read-only: not saved'
-    : storage.state === 'saved' ? (storage.savedAt ? 'Saved in this browser' : 'Not edited yet') : storage.state === 'pending' ? 'Saving…' : storage.state === 'paused' ? 'Saving paused' : 'Not saved (memory only)';
+    : storage.state === 'saved'
+      ? storage.savedAt
+        ? 'Saved in this browser'
+        : 'Not edited yet'
+      : storage.state === 'pending'
+        ? 'Saving…'
+        : storage.state === 'paused'
+          ? 'Saving paused'
+          : storage.state === 'partial'
+            ? 'Saved without undo history'
+            : 'Not saved (memory only)';
   return (
     <span className={`save-state ${storage.state}`} role="status" aria-live="polite">
       {text}

@@ -4,9 +4,28 @@ import { tableConventionsFromDisplay } from '../features/print/printData.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';
 import { useAppStore } from '../state/store.ts';
+import { openAsNewWorkspace, switchWorkspace } from '../state/persistence.ts';
 import { CopyLinkButton, LinkNotice } from './CopyLinkButton.tsx';
+import { showOpenedNotice } from './OpenedNotice.tsx';
 import { WorkspaceFiles } from './WorkspaceFiles.tsx';
 import { safeFileName } from '../components/download.ts';
+
+/** Opens a workspace file as a new entry in the list (the open one is saved and kept), with the way back. */
+async function openFileAsWorkspace(doc: WorkbenchDocument): Promise<void> {
+  const name = `From a file, ${new Date().toLocaleString('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' })}`;
+  const back = await openAsNewWorkspace(doc, name);
+  if (back.previousId === null && back.mode === 'entry') {
+    showOpenedNotice({ text: `Opened the workspace file as a new entry, “${name}”, in the list of workspaces.`, action: null });
+    return;
+  }
+  if (back.previousId === null) {
+    showOpenedNotice({ text: 'Opened the workspace file; your own is one Undo away.', action: { label: 'Undo', ariaLabel: 'Undo opening the file', run: () => useAppStore.getState().undo() } });
+    return;
+  }
+  const previousId = back.previousId;
+  const previous = back.previousName ?? 'workspace';
+  showOpenedNotice({ text: `Opened the workspace file as a new entry, “${name}”; your own, “${previous}”, is kept unchanged in the list of workspaces.`, action: { label: `Back to “${previous}”`, run: () => void switchWorkspace(previousId) } });
+}
 
 /** Copy link, save/open the workspace file and export the curve CSV, wired to the workbench store. */
 export function ShareBar({ result }: { result: WorkbenchBuild }) {
@@ -31,8 +50,9 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
             const wb = workbenchFromEngine(checked.document, makeRowId);
             if (!wb.ok) setMessage(`The file was not opened: ${wb.errors.slice(0, 3).map((e) => e.message).join(' ')}${wb.errors.length > 3 ? ` (and ${wb.errors.length - 3} more)` : ''} Your workspace has not been changed.`);
             else {
-              useAppStore.getState().replaceWorkspace(wb.value, 'open workspace file');
-              setMessage('Opened an engine workspace file: its rates are shown as decimals (switch the unit to percent to see them in %). Undo brings back your workspace.');
+              useAppStore.getState().closeReadOnly();
+              setMessage('Opened an engine workspace file: its rates are shown as decimals (switch the unit to percent to see them in %).');
+              void openFileAsWorkspace(wb.value);
             }
             return;
           }
@@ -45,8 +65,8 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
             setMessage(null);
           } else {
             useAppStore.getState().closeReadOnly(); // a read-only document on screen gives way to the file
-            useAppStore.getState().replaceWorkspace(read.doc as WorkbenchDocument, 'open workspace file');
             setMessage(null);
+            void openFileAsWorkspace(read.doc as WorkbenchDocument);
           }
         }}
       />

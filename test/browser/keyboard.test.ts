@@ -4,6 +4,7 @@
 // open the Print section and print. The quotes are invented test data.
 import type { Page } from 'playwright-core';
 import { diagnostics, openWorkbench, type BuiltApp } from './harness.ts';
+import { openRecord } from './savedWorkspaces.ts';
 
 const PASTE = [
   'Type\tTenor\tRate\tCoupon\tClean price\tFrequency\tDay count',
@@ -107,11 +108,7 @@ describe('keyboard only', () => {
     await page.keyboard.press('ArrowDown');
     const after = await select.inputValue();
     expect(after).not.toBe(before);
-    await page.waitForFunction(
-      (m) => JSON.parse(localStorage.getItem('tenorscope.workspace') ?? '{}')?.workspace?.curve?.interpolation === m,
-      after,
-      { timeout: 5000 },
-    );
+    await expect.poll(async () => (await openRecord(page))?.workspace?.curve?.interpolation, { timeout: 5000 }).toBe(after);
   });
 
   it('adds a scenario from the Scenarios section', async () => {

@@ -1,12 +1,10 @@
 // Nothing lost (issue 7), in Debian's Chromium on the built app: a damaged saved workspace is
-// reported, copied aside and not silently replaced; undo and redo survive a reload; an edit made
-// 500 ms before the tab closes is there when it is opened again; two tabs never silently
-// overwrite each other's saves.
+// reported in words that fit its cause and left unchanged (never replaced, never copied); undo
+// and redo survive a reload; an edit made 500 ms before the tab closes is there when it is opened
+// again; two tabs never silently overwrite each other's saves.
 import type { Page } from 'playwright-core';
 import { diagnostics, launchBrowser, newPage, serveDist, type TestBrowser } from './harness.ts';
-
-const KEY = 'tenorscope.workspace';
-const COPY_PREFIX = 'tenorscope.workspace.unreadable.';
+import { openRecord, putRecord, savedRecords } from './savedWorkspaces.ts';
 
 let browser: TestBrowser | undefined;
 let server: Awaited<ReturnType<typeof serveDist>> | undefined;
@@ -21,8 +19,7 @@ afterAll(async () => {
 });
 
 const rate = (page: Page, row: number): Promise<string> => page.getByRole('textbox', { name: `Row ${row} Rate / yield` }).inputValue();
-const savedRate = (page: Page, row: number): Promise<string | null> =>
-  page.evaluate(([k, i]) => JSON.parse(localStorage.getItem(k) ?? 'null')?.workspace?.quotes?.[i]?.rate ?? null, [KEY, row - 1] as const);
+const savedRate = async (page: Page, row: number): Promise<string | null> => (await openRecord(page))?.workspace?.quotes?.[row - 1]?.rate ?? null;
 async function open(page: Page): Promise<void> {
   await page.goto(server!.url, { waitUntil: 'load' });
   await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
@@ -34,25 +31,28 @@ async function edit(page: Page, row: number, value: string): Promise<void> {
 }
 
 describe('nothing lost', () => {
-  it('a damaged saved workspace: the app starts, says so, keeps a copy, and does not overwrite it silently', async () => {
+  it('a damaged saved workspace: the app starts, says why in words that fit, and never writes over it or copies it', async () => {
     const page = await newPage(browser!);
     await open(page);
-    const bad = '{"app":"tenorscope","stamp":"x:1","workspace":{"quotes":[{"kind":"swap"'; // cut short
-    await page.evaluate(([k, v]) => localStorage.setItem(k, v), [KEY, bad] as const);
+    await edit(page, 1, '3.10');
+    await page.waitForTimeout(400);
+    const own = (await openRecord(page))!;
+    // Saved by a newer version (as after a downgrade): this build cannot read it.
+    const damaged = { ...own, name: 'Desk, newer version', workspace: { ...own.workspace, version: 2 } };
+    await putRecord(page, `entry:${own.id}`, damaged);
     await page.reload({ waitUntil: 'load' });
     await page.getByRole('grid', { name: /Quotes/ }).waitFor();
-    const banner = page.getByRole('alert').filter({ hasText: 'could not be read' });
+    const banner = page.getByRole('alert').filter({ hasText: 'could not be opened' });
     await banner.waitFor({ timeout: 10_000 });
-    const copies = await page.evaluate((p) => Object.keys(localStorage).filter((k) => k.startsWith(p)), COPY_PREFIX);
-    expect(copies).toHaveLength(1);
-    expect(await banner.innerText()).toContain(copies[0]!);
-    expect(await page.evaluate((k) => localStorage.getItem(k), copies[0]!)).toBe(bad);
-    // Left alone until the user edits (by then the banner has told them where the copy is).
-    await page.waitForTimeout(600);
-    expect(await page.evaluate((k) => localStorage.getItem(k), KEY)).toBe(bad);
+    expect(await banner.innerText()).toContain('“Desk, newer version” could not be opened: it was saved by a newer version of Tenorscope (workspace version 2; this one reads version 1)');
+    expect(await page.getByText(/Another tab saved a different version/).count()).toBe(0);
     await edit(page, 1, '3.21');
-    await page.waitForFunction((k) => localStorage.getItem(k)?.includes('3.21') ?? false, KEY, { timeout: 5000 });
-    expect(await page.evaluate((k) => localStorage.getItem(k), copies[0]!)).toBe(bad);
+    await page.waitForTimeout(600);
+    expect(await page.getByText('Saving paused').count()).toBe(0);
+    const entries = (await savedRecords(page)).filter(([k]) => k.startsWith('entry:'));
+    expect(entries).toHaveLength(2);
+    expect(entries.find(([k]) => k === `entry:${own.id}`)![1]).toEqual(damaged);
+    expect(await savedRate(page, 1)).toBe('3.21');
     expect(diagnostics(page).pageErrors).toEqual([]);
     await page.close();
   });
@@ -114,7 +114,7 @@ describe('nothing lost', () => {
     expect(await a.getByText('Saving paused').count()).toBe(1);
     // A chooses to keep its version: now B is told, and B's later edits do not overwrite A's.
     await a.getByRole('button', { name: /Keep this tab/ }).click();
-    await a.waitForFunction(() => JSON.parse(localStorage.getItem('tenorscope.workspace')!).workspace.quotes[1].rate === '4.22');
+    await expect.poll(() => savedRate(a, 2), { timeout: 5000 }).toBe('4.22');
     await b.getByText(/Another tab saved a different version/).waitFor({ timeout: 10_000 });
     await edit(b, 3, '4.99');
     await b.waitForTimeout(600);

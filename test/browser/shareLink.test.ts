@@ -4,6 +4,7 @@ import type { Page } from 'playwright-core';
 import { serveDirectory, type StaticServer } from './static-server.ts';
 import { diagnostics, launchBrowser, newPage, type TestBrowser } from './harness.ts';
 import { buildHarness } from './print-harness/buildHarness.ts';
+import { openRecord, savedRecords } from './savedWorkspaces.ts';
 
 let browser: TestBrowser | undefined;
 let server: StaticServer | undefined;
@@ -104,13 +105,13 @@ describe('shared link in Chromium', () => {
     await page.getByRole('tab', { name: 'Scenarios' }).click();
     await page.getByLabel('Name').fill('Mine');
     await page.getByRole('button', { name: 'Add scenario' }).click();
-    await page.waitForFunction(() => (localStorage.getItem('tenorscope.workspace') ?? '').includes('"Mine"'), undefined, { timeout: 10_000 });
-    const saved = await page.evaluate(() => localStorage.getItem('tenorscope.workspace'));
+    await expect.poll(async () => (await openRecord(page))?.workspace?.scenarios?.map((x) => x.name), { timeout: 10_000 }).toEqual(['Mine']);
+    const saved = await savedRecords(page);
+    // Same page, new fragment: the open tab follows it at once (hashchange), no reload needed.
     await page.goto(`${server!.url}app.html#ws1.AAAAAAAAAAAAAAAAAAAAAAAA`, { waitUntil: 'load' });
-    await page.reload({ waitUntil: 'load' });
     await page.getByText('Your saved workspace has not been changed.').waitFor();
     await page.waitForTimeout(500);
-    expect(await page.evaluate(() => localStorage.getItem('tenorscope.workspace'))).toBe(saved);
+    expect(await savedRecords(page)).toEqual(saved);
     await page.getByRole('tab', { name: 'Scenarios' }).click();
     await page.getByRole('button', { name: 'Remove scenario Mine' }).waitFor();
     await page.close();

@@ -153,7 +153,8 @@ describe('the workbench in Chromium', () => {
     await page.getByText(/Another tab saved a different version/).waitFor({ timeout: 10_000 });
     await screenshot(page, 'workbench-two-tabs');
     await page.getByRole('button', { name: /Load the other tab/ }).click();
-    expect(await page.getByRole('textbox', { name: 'Row 1 Rate / yield' }).inputValue()).toBe('3.91');
+    // Loading reads the other tab's save from the browser's database: a moment, not a frame.
+    await expect.poll(() => page.getByRole('textbox', { name: 'Row 1 Rate / yield' }).inputValue(), { timeout: 5000 }).toBe('3.91');
     await second.close();
   });
 

@@ -3,6 +3,7 @@
 // reported. Run: npx vite build && TZ=America/Los_Angeles npx tsx test/browser/workbenchFrame.bench.ts
 // The 40 quotes are invented benchmark data.
 import { launchBrowser, newPage, serveDist } from './harness.ts';
+import { openRecord, putRecord } from './savedWorkspaces.ts';
 
 const TARGET_MEDIAN_MS = 16;
 const EDITS = 80;
@@ -34,24 +35,15 @@ try {
   const page = await newPage(browser, { viewport: { width: 1600, height: 1000 } });
   await page.goto(server.url);
   const quotes = fortyQuotes();
-  await page.evaluate((q) => {
-    const saved = JSON.parse(localStorage.getItem('tenorscope.workspace') ?? 'null');
-    const ws = saved?.workspace ?? null;
-    if (!ws) throw new Error('no saved workspace to start from');
-  }, quotes).catch(async () => {
-    // Nothing saved yet: make one edit so the demo is saved, then replace its quotes.
-    await page.getByRole('checkbox', { name: 'Row 1 in the curve' }).click();
-    await page.getByRole('checkbox', { name: 'Row 1 in the curve' }).click();
-    await page.waitForTimeout(400);
-  });
-  await page.evaluate(([q, method]) => {
-    const saved = JSON.parse(localStorage.getItem('tenorscope.workspace')!);
-    saved.workspace.quotes = q;
-    saved.workspace.curve.interpolation = method;
-    saved.stamp = 'bench:1';
-    saved.writer = 'bench';
-    localStorage.setItem('tenorscope.workspace', JSON.stringify(saved));
-  }, [quotes, METHOD] as const);
+  await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
+  // One edit so the demo is saved, then its saved record gets the 40 quotes (src/state/persistence.ts).
+  await page.getByRole('checkbox', { name: 'Row 1 in the curve' }).click();
+  await page.getByRole('checkbox', { name: 'Row 1 in the curve' }).click();
+  await page.waitForTimeout(400);
+  const saved = await openRecord(page);
+  if (!saved?.workspace) throw new Error('no saved workspace to start from');
+  const planted = { ...saved, stamp: 'bench:1', writer: 'bench', workspace: { ...saved.workspace, quotes, curve: { ...saved.workspace.curve, interpolation: METHOD } } };
+  await putRecord(page, `entry:${saved.id}`, planted);
   await page.reload();
   await page.getByText('40 quotes in the curve').waitFor({ timeout: 20_000 });
   await page.evaluate(() => {

@@ -1,41 +1,71 @@
-// Nothing lost, nothing silently changed, in the store and its saved entry: one row cap for typing,
-// adding and paste (the first rows kept, the rest counted); a document naming settings this build
-// does not know opens read-only (no edit, no undo, no save over the user's own workspace) until the
-// user makes an editable copy with choices they saw; a saved entry not restored exactly as saved
-// (entries that are not rows, rows over the cap, unknown settings) says what and where and is kept
-// whole. Invented documents only.
+import { IDBFactory } from 'fake-indexeddb';
 import { LIMITS, unknownSettings, type WorkbenchDocument } from '../../src/core/index.ts';
-import { KEPT_PREFIX, startPersistence, STORAGE_KEY, type PersistenceDeps } from '../../src/state/persistence.ts';
+import { entryKey, flushSave, LEGACY_KEY, startPersistence, type PersistenceDeps } from '../../src/state/persistence.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
+import { indexedDbBackend } from '../../src/state/workspaceBackend.ts';
+import { useWorkspaceList } from '../../src/state/workspaceList.ts';
 
 const initial = useAppStore.getInitialState();
+const initialList = useWorkspaceList.getInitialState();
 const s = () => useAppStore.getState();
 
-class MemoryStorage {
+class MemoryStorage implements Storage {
   map = new Map<string, string>();
+  get length(): number {
+    return this.map.size;
+  }
+  key(i: number): string | null {
+    return [...this.map.keys()][i] ?? null;
+  }
   getItem(k: string): string | null {
     return this.map.get(k) ?? null;
   }
   setItem(k: string, v: string): void {
     this.map.set(k, v);
   }
+  removeItem(k: string): void {
+    this.map.delete(k);
+  }
+  clear(): void {
+    this.map.clear();
+  }
 }
 let stop: (() => void) | null = null;
-const start = (storage: MemoryStorage, tabId = 'tabA'): void => {
-  const deps: PersistenceDeps = { storage, openChannel: null, target: null, now: () => 1_000, tabId };
-  stop = startPersistence(deps);
+/** Starts persistence on a fresh in-memory database, with an earlier build's saved entry under its localStorage key (moved into the list on start). */
+const start = async (legacyEntry: string | null): Promise<void> => {
+  const storage = new MemoryStorage();
+  if (legacyEntry !== null) storage.setItem(LEGACY_KEY, legacyEntry);
+  const deps: PersistenceDeps = {
+    indexedDb: true,
+    storage,
+    openChannel: null,
+    target: null,
+    now: () => 1_000,
+    tabId: 'tabA',
+    idle: (save) => {
+      const h = setTimeout(save, 0);
+      return () => clearTimeout(h);
+    },
+    retryMs: 60_000,
+  };
+  const p = startPersistence(deps);
+  stop = p.stop;
+  await p.ready;
 };
 const entry = (workspace: unknown, stamp = 'old:7'): string => JSON.stringify({ app: 'tenorscope', stamp, writer: 'old', savedAt: 5, workspace });
+/** The record kept aside under the key the banner names. */
+const keptRecord = async (): Promise<Record<string, unknown>> => (await indexedDbBackend().get(s().storage.keptCopyKey!)) as Record<string, unknown>;
+const wait = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 beforeEach(() => {
-  vi.useFakeTimers();
+  (globalThis as { indexedDB: IDBFactory }).indexedDB = new IDBFactory();
   useAppStore.setState(initial, true);
+  useWorkspaceList.setState(initialList, true);
 });
 afterEach(() => {
   stop?.();
   stop = null;
-  vi.useRealTimers();
 });
 
 /** A tab-separated block with a header and `n` swap rows. */
@@ -82,13 +112,15 @@ describe('a document with settings this build does not know', () => {
     return { ...d, curve: { ...(d.curve as object), interpolation: 'cubic-tension' } } as unknown as WorkbenchDocument;
   };
 
-  it('is shown as it is, read-only: no edit, no undo, no save; an editable copy takes the shown choice and is one undo step', () => {
-    const storage = new MemoryStorage();
-    start(storage);
+  it('is shown as it is, read-only: no edit, no undo, no save; an editable copy takes the shown choice and is one undo step', async () => {
+    await start(null);
     const id0 = s().workspace.quotes[0]!.id;
     s().setCell(id0, 'rate', '4.01');
-    vi.advanceTimersByTime(300);
-    const mine = storage.getItem(STORAGE_KEY);
+    await wait(50);
+    await flushSave();
+    const mineKey = entryKey(useWorkspaceList.getState().currentId!);
+    const mine = await indexedDbBackend().get(mineKey);
+    expect(((mine as Record<string, unknown>).workspace as WorkbenchDocument).quotes[0]!.rate).toBe('4.01');
     const myWorkspace = s().workspace;
     const doc = foreign();
     s().openReadOnly(doc, unknownSettings(doc), 'link');
@@ -103,8 +135,9 @@ describe('a document with settings this build does not know', () => {
     s().undo();
     s().resetToDemo();
     expect(s().workspace).toBe(shown);
-    vi.advanceTimersByTime(1000);
-    expect(storage.getItem(STORAGE_KEY)).toBe(mine); // nothing written over the user's own workspace
+    await wait(50);
+    await flushSave();
+    expect(await indexedDbBackend().get(mineKey)).toEqual(mine); // nothing written over the user's own workspace
     s().makeEditableCopy({ 'curve.interpolation': 'log-linear-discount' });
     expect(s().readOnly).toBeNull();
     expect(s().workspace.curve.interpolation).toBe('log-linear-discount');
@@ -126,56 +159,52 @@ describe('a document with settings this build does not know', () => {
 });
 
 describe('restoring the saved entry', () => {
-  it('entries of the quote list that are not rows are counted and placed, and the entry is kept whole', () => {
-    const storage = new MemoryStorage();
+  it('entries of the quote list that are not rows are counted and placed, and the entry is kept whole', async () => {
     const ws = demoWorkspace((() => { let n = 0; return () => `d${n++}`; })()) as unknown as Record<string, unknown>;
     const quotes = [...(ws.quotes as unknown[])];
     quotes.splice(2, 0, 'swap 5Y 3.1');
     quotes.splice(5, 0, null);
     const raw = entry({ ...ws, quotes });
-    storage.setItem(STORAGE_KEY, raw);
-    start(storage);
+    await start(raw);
     expect(s().workspace.quotes).toHaveLength(19);
     expect(s().storage.restoreNotes).toEqual(['2 entries of the saved quote list are not a row and were left out (entry 3 and 6 of 21)']);
-    expect(s().storage.keptCopyKey).toBe(`${KEPT_PREFIX}old:7`);
-    expect(storage.getItem(`${KEPT_PREFIX}old:7`)).toBe(raw);
+    expect(s().storage.keptCopyKey).toMatch(/^kept:.+:old:7$/);
+    expect((await keptRecord()).workspace).toEqual(JSON.parse(raw).workspace);
   });
 
-  it('a 600-row workspace saved by an older build opens with its first 500 rows, says so, and keeps the entry whole', () => {
-    const storage = new MemoryStorage();
+  it('a 600-row workspace saved by an older build opens with its first 500 rows, says so, and keeps the entry whole', async () => {
     const ws = demoWorkspace(() => 'x') as unknown as Record<string, unknown>;
     const rows = Array.from({ length: 600 }, (_, i) => ({ id: `r${i}`, enabled: true, kind: 'swap', maturity: `${1 + (i % 30)}Y`, rate: '3.1', price: '', coupon: '', frequency: '', dayCount: '' }));
     const raw = entry({ ...ws, quotes: rows });
-    storage.setItem(STORAGE_KEY, raw);
-    start(storage);
+    await start(raw);
     expect(s().workspace.quotes).toHaveLength(500);
     expect(s().workspace.quotes[499]!.id).toBe('r499');
     expect(s().storage.restoreNotes[0]).toBe('the saved workspace has 600 quotes, more than the 500 a workspace may hold: the first 500 are open and 100 were left out');
-    expect(storage.getItem(s().storage.keptCopyKey!)).toBe(raw);
+    expect(((await keptRecord()).workspace as { quotes: unknown[] }).quotes).toHaveLength(600);
   });
 
-  it('a saved entry naming an interpolation this build does not know opens read-only and is not overwritten', () => {
-    const storage = new MemoryStorage();
+  it('a saved entry naming an interpolation this build does not know opens read-only and is not overwritten', async () => {
     const ws = demoWorkspace(() => 'y') as unknown as Record<string, unknown>;
     const raw = entry({ ...ws, curve: { ...(ws.curve as object), interpolation: 'cubic-tension' } });
-    storage.setItem(STORAGE_KEY, raw);
-    start(storage);
+    await start(raw);
     expect(s().readOnly).toMatchObject({ source: 'saved' });
     expect(s().workspace.curve.interpolation).toBe('cubic-tension');
+    const id = useWorkspaceList.getState().currentId!;
+    const before = await indexedDbBackend().get(entryKey(id));
     s().setCell(s().workspace.quotes[0]!.id, 'rate', '1');
-    vi.advanceTimersByTime(1000);
-    expect(storage.getItem(STORAGE_KEY)).toBe(raw);
+    await wait(50);
+    await flushSave();
+    expect(await indexedDbBackend().get(entryKey(id))).toEqual(before);
+    expect(((before as Record<string, unknown>).workspace as { curve: { interpolation: string } }).curve.interpolation).toBe('cubic-tension');
   });
 
-  it('a saved undo history with a step that cannot be read: the workspace opens, and the lost history is said and kept', () => {
-    const storage = new MemoryStorage();
+  it('a saved undo history with a step that cannot be read: the workspace opens, and the lost history is said and kept', async () => {
     const ws = demoWorkspace(() => 'h');
     const raw = JSON.stringify({ app: 'tenorscope', stamp: 'old:9', writer: 'old', savedAt: 5, workspace: ws, history: { past: [ws, { nonsense: true }], future: [] } });
-    storage.setItem(STORAGE_KEY, raw);
-    start(storage);
+    await start(raw);
     expect(s().workspace.quotes).toHaveLength(19);
     expect(s().past).toHaveLength(0);
     expect(s().storage.restoreNotes).toEqual(['a step of the saved undo history could not be read, so undo starts afresh']);
-    expect(storage.getItem(`${KEPT_PREFIX}old:9`)).toBe(raw);
+    expect((await keptRecord()).history).toEqual(JSON.parse(raw).history);
   });
 });

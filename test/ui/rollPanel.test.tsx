@@ -9,6 +9,7 @@ import { useState } from 'react';
 import type { Curve } from '../../src/core/index.ts';
 import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, type StrategyInputs } from '../../src/core/analysis/rollVsTerm.ts';
 import { RollPanel } from '../../src/features/roll/RollPanel.tsx';
+import { useDrafts } from '../../src/state/drafts.ts';
 import { rollMarketCurve } from '../helpers/rollMarket.ts';
 
 // The invented roll test market (test/helpers/rollMarket.ts), all eight quotes.
@@ -30,6 +31,9 @@ function Harness({ initial, onChange, withCurve = true, scenarios = NONE }: { in
     />
   );
 }
+
+// Text typed but not committed is kept across renders (and reloads) as a draft: each test starts without any.
+beforeEach(() => useDrafts.setState({ drafts: {} }));
 
 describe('RollPanel', () => {
   it('is a region named "Roll versus term" with the result sentence, conventions and the caution', () => {
@@ -147,5 +151,24 @@ describe('RollPanel', () => {
     const { container } = render(<Harness initial={{ ...DEFAULT_STRATEGY, view: 'path' }} />);
     const result = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
     expect(result.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
+  });
+});
+
+describe('RollField drafts', () => {
+  it('an amount typed without Enter or Tab is there again after the panel is mounted afresh (a reload), marked as not applied', async () => {
+    const user = userEvent.setup();
+    const onChange = vi.fn();
+    const first = render(<Harness initial={DEFAULT_STRATEGY} onChange={onChange} />);
+    const amount = screen.getByRole('textbox', { name: /Amount/ });
+    await user.clear(amount);
+    await user.type(amount, '2500000');
+    expect(onChange).not.toHaveBeenCalled();
+    first.unmount();
+    render(<Harness initial={DEFAULT_STRATEGY} onChange={onChange} />);
+    expect(screen.getByRole('textbox', { name: /Amount/ })).toHaveValue('2500000');
+    expect(screen.getByText(/typed, not applied yet: press Enter to apply/)).toBeInTheDocument();
+    await user.type(screen.getByRole('textbox', { name: /Amount/ }), '{Enter}');
+    expect(onChange).toHaveBeenCalledTimes(1);
+    expect(useDrafts.getState().drafts).toEqual({});
   });
 });

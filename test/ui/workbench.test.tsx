@@ -3,11 +3,14 @@
 // the unit switch, switching rows off, settings re-expressing every rate, undo and redo from the
 // keyboard, autosave and restore, and the warning when another tab saves the same workspace.
 // Expected numbers are the core's own (src/core through its public entry), formatted as shown.
-import { act, fireEvent, render, screen, within } from '@testing-library/react';
+import { act, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { App } from '../../src/app/App.tsx';
 import { addTenor, buildCurve, parseTenor, zeroOn, type Compounding } from '../../src/core/index.ts';
 import { toEngineDocument } from '../../src/core/input/index.ts';
-import { startPersistence, STORAGE_KEY } from '../../src/state/persistence.ts';
+import { IDBFactory } from 'fake-indexeddb';
+import { CHANNEL_NAME, entryKey, flushSave, startPersistence } from '../../src/state/persistence.ts';
+import { indexedDbBackend } from '../../src/state/workspaceBackend.ts';
+import { useWorkspaceList } from '../../src/state/workspaceList.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
 // A limit for a hung render, not a speed check: the whole App renders slowly in jsdom under a parallel suite.
@@ -17,7 +20,9 @@ const initial = useAppStore.getInitialState();
 let stopPersistence: (() => void) | null = null;
 beforeEach(() => {
   useAppStore.setState(initial, true);
+  useWorkspaceList.setState(useWorkspaceList.getInitialState(), true);
   localStorage.clear();
+  (globalThis as { indexedDB: IDBFactory }).indexedDB = new IDBFactory();
 });
 afterEach(() => {
   stopPersistence?.();
@@ -192,24 +197,22 @@ describe('undo and redo', () => {
 });
 
 describe('autosave and restore', () => {
-  it('an edit is in localStorage within 300 ms; a new start restores it', async () => {
-    vi.useFakeTimers();
-    try {
-      stopPersistence = startPersistence();
-      const view = render(<App />);
-      fireEvent.change(cell(4, 'Rate / yield'), { target: { value: '4.77' } });
-      act(() => void vi.advanceTimersByTime(300));
-      expect(localStorage.getItem(STORAGE_KEY)).toContain('4.77');
-      expect(screen.getByText('Saved in this browser')).toBeInTheDocument();
-      view.unmount();
-      stopPersistence();
-      useAppStore.setState(initial, true);
-      stopPersistence = startPersistence();
-      render(<App />);
-      expect(cell(4, 'Rate / yield')).toHaveValue('4.77');
-    } finally {
-      vi.useRealTimers();
-    }
+  it('an edit is in the browser’s database at the next idle moment; a new start restores it', async () => {
+    stopPersistence = startPersistence().stop;
+    await flushSave();
+    const view = render(<App />);
+    fireEvent.change(cell(4, 'Rate / yield'), { target: { value: '4.77' } });
+    await screen.findByText('Saved in this browser', undefined, { timeout: 10_000 });
+    const id = useWorkspaceList.getState().currentId!;
+    expect(JSON.stringify(await indexedDbBackend().get(entryKey(id)))).toContain('4.77');
+    view.unmount();
+    stopPersistence();
+    useAppStore.setState(initial, true);
+    const again = startPersistence();
+    stopPersistence = again.stop;
+    await again.ready;
+    render(<App />);
+    expect(cell(4, 'Rate / yield')).toHaveValue('4.77');
   });
 
   it('Reset to demo brings the demo back, undoably', () => {
@@ -223,25 +226,38 @@ describe('autosave and restore', () => {
   });
 });
 
+describe('the notice after Reset to demo', () => {
+  it('says the user’s own workspace is one Undo away, and its Undo brings it back', () => {
+    render(<App />);
+    fireEvent.click(screen.getByRole('button', { name: 'Delete row 1' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Reset to demo' }));
+    expect(screen.getByText('Replaced the workspace with the demo; your own is one Undo away.')).toBeInTheDocument();
+    fireEvent.click(screen.getByRole('button', { name: 'Undo the reset' }));
+    expect(cell(1, 'Maturity')).toHaveValue('1M');
+    expect(screen.queryByText(/your own is one Undo away/)).toBeNull();
+  });
+});
+
 describe('two tabs', () => {
-  it('another tab saving the same workspace is warned about, and nothing is overwritten until the user chooses', () => {
-    vi.useFakeTimers();
-    try {
-      stopPersistence = startPersistence();
-      render(<App />);
-      fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '4.3' } });
-      act(() => void vi.advanceTimersByTime(300));
-      const other = JSON.stringify({ app: 'tenorscope', stamp: 'other:1', writer: 'other', savedAt: 1, workspace: { ...useAppStore.getState().workspace, note: 'from the other tab' } });
-      localStorage.setItem(STORAGE_KEY, other);
-      act(() => void window.dispatchEvent(new StorageEvent('storage', { key: STORAGE_KEY, newValue: other })));
-      expect(screen.getByText(/Another tab saved a different version of this workspace/)).toBeInTheDocument();
-      fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '4.4' } });
-      act(() => void vi.advanceTimersByTime(300));
-      expect(localStorage.getItem(STORAGE_KEY)).toBe(other);
-      fireEvent.click(screen.getByRole('button', { name: /Load the other tab/ }));
-      expect(useAppStore.getState().workspace.note).toBe('from the other tab');
-    } finally {
-      vi.useRealTimers();
-    }
+  it('another tab saving the same workspace is warned about, and nothing is overwritten until the user chooses', async () => {
+    const p = startPersistence();
+    stopPersistence = p.stop;
+    await p.ready;
+    render(<App />);
+    fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '4.3' } });
+    await screen.findByText('Saved in this browser', undefined, { timeout: 10_000 });
+    const id = useWorkspaceList.getState().currentId!;
+    // The other tab writes its version and tells the others, as persistence.ts does.
+    const other = { app: 'tenorscope', id, name: 'x', stamp: 'other:1', writer: 'other', savedAt: 1, workspace: { ...useAppStore.getState().workspace, note: 'from the other tab' } };
+    await indexedDbBackend().set(entryKey(id), other);
+    const channel = new BroadcastChannel(CHANNEL_NAME);
+    channel.postMessage({ type: 'saved', tab: 'other', id, stamp: 'other:1' });
+    channel.close();
+    await screen.findByText(/Another tab saved a different version of this workspace/, undefined, { timeout: 10_000 });
+    fireEvent.change(cell(1, 'Rate / yield'), { target: { value: '4.4' } });
+    await flushSave();
+    expect(await indexedDbBackend().get(entryKey(id))).toEqual(other);
+    fireEvent.click(screen.getByRole('button', { name: /Load the other tab/ }));
+    await waitFor(() => expect(useAppStore.getState().workspace.note).toBe('from the other tab'));
   });
 });

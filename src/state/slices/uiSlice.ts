@@ -28,19 +28,28 @@ export interface PendingPaste {
 
 /** Where the workspace is kept and what went wrong keeping it. */
 export interface StorageStatus {
-  /** saved: in the browser; memory: only in this page (storage full or unavailable); paused: another tab wrote it. */
-  readonly state: 'saved' | 'pending' | 'memory' | 'paused';
+  /**
+   * saved: all of it (document and undo history) is in the browser; pending: an edit is waiting
+   * for its save; partial: the document was saved but not its undo history; memory: the last
+   * edits are only in this page (storage full or unavailable); paused: another tab saved this
+   * workspace since this tab loaded it.
+   */
+  readonly state: 'saved' | 'pending' | 'partial' | 'memory' | 'paused';
+  /** What was and was not saved, and why, when not everything was. */
   readonly message: string | null;
   /** Another tab has the same workspace open. */
   readonly otherTab: boolean;
-  /** The saved entry could not be read at start; its copy is kept under this storage key. */
-  readonly corruptCopyKey: string | null;
+  /** A saved workspace could not be opened: its name and why (it is kept unchanged in the list). */
+  readonly corruptName: string | null;
   readonly corruptReason: string | null;
+  /** When the document was last saved (ms since 1970), null before the first save. */
   readonly savedAt: number | null;
   /** What was not restored exactly as saved (rows over the cap, entries that were not rows...), each with where. */
   readonly restoreNotes: readonly string[];
   /** The full saved entry is kept in the browser under this key (when restoreNotes or a read-only opening). */
   readonly keptCopyKey: string | null;
+  /** Where saves go: the browser's database, localStorage (fallback), or nowhere. */
+  readonly backend: 'indexeddb' | 'localStorage' | null;
 }
 
 export type TabId = string;
@@ -67,11 +76,12 @@ export const INITIAL_STORAGE: StorageStatus = {
   state: 'saved',
   message: null,
   otherTab: false,
-  corruptCopyKey: null,
+  corruptName: null,
   corruptReason: null,
   savedAt: null,
   restoreNotes: [],
   keptCopyKey: null,
+  backend: null,
 };
 
 export const createUiSlice: StateCreator<AppState, [], [], UiSlice> = (set) => ({

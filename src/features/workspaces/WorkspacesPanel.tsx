@@ -1,0 +1,245 @@
+import { useRef, useState, type ChangeEvent } from 'react';
+import { parseDocumentText, readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../../core/index.ts';
+import { pct, rateTag } from '../../components/format.ts';
+import { makeRowId } from '../../state/ids.ts';
+import { addWorkspaces, allRecords, deleteWorkspace, readEntry, renameWorkspace, switchWorkspace, undoDelete } from '../../state/persistence.ts';
+import { useAppStore } from '../../state/store.ts';
+import { useWorkspaceList, type WorkspaceListItem } from '../../state/workspaceList.ts';
+import { SPARK_HEIGHT, SPARK_WIDTH, zeroSparkline } from './sparkline.ts';
+import './workspaces.css';
+
+/** The file holding every saved workspace ("Export all"). */
+export const LIST_FORMAT = 'tenorscope-workspace-list';
+const LIST_VERSION = 1;
+/** A list file is refused above this many characters (before it is parsed). */
+const MAX_LIST_CHARS = 50_000_000;
+
+const savedText = (ms: number | null): string =>
+  ms === null ? 'not saved yet' : `saved ${new Date(ms).toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })}`;
+
+function download(name: string, text: string): void {
+  const url = URL.createObjectURL(new Blob([text], { type: 'application/json' }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 0);
+}
+
+/** Every saved workspace as one file: readable ones as documents, unreadable ones as the text that was kept. */
+export async function exportAll(): Promise<string> {
+  const records = await allRecords();
+  const workspaces = records.map(([key, value]) => {
+    const r = readEntry(key.slice('entry:'.length), value);
+    const raw = value as { unreadable?: unknown };
+    if (r.item.workspace) return { name: r.item.name, savedAt: r.item.savedAt, workspace: r.item.workspace };
+    return { name: r.item.name, savedAt: r.item.savedAt, problem: r.item.problem, unreadable: typeof raw?.unreadable === 'string' ? raw.unreadable : JSON.stringify(value) };
+  });
+  return `${JSON.stringify({ format: LIST_FORMAT, version: LIST_VERSION, workspaces }, null, 1)}\n`;
+}
+
+/** Reads a list file (or a single workspace file); never throws. */
+export function readListFile(text: string, fileName: string): { items: { name: string; workspace: WorkbenchDocument }[]; problems: string[] } {
+  const problems: string[] = [];
+  const items: { name: string; workspace: WorkbenchDocument }[] = [];
+  if (text.length > MAX_LIST_CHARS) return { items, problems: [`${fileName} has ${text.length.toLocaleString('en-US')} characters; a list file is at most ${MAX_LIST_CHARS.toLocaleString('en-US')}`] };
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch {
+    return { items, problems: [`${fileName} is not valid JSON`] };
+  }
+  const one = (raw: unknown, name: string, where: string): void => {
+    const checked = parseDocumentText(JSON.stringify(raw));
+    if (!checked.ok) {
+      problems.push(`${where}: ${checked.errors[0]?.message ?? 'not a workspace'}`);
+      return;
+    }
+    if (checked.value.document.format !== WORKBENCH_FORMAT) {
+      problems.push(`${where}: an engine workspace document, which the workbench does not open`);
+      return;
+    }
+    const read = readWorkbenchDocument(checked.value.document, makeRowId);
+    if (read.doc) items.push({ name, workspace: read.doc });
+    else problems.push(`${where}: ${read.problem ?? 'not a workspace'}`);
+  };
+  const obj = json as { format?: unknown; workspaces?: unknown };
+  if (obj && obj.format === LIST_FORMAT && Array.isArray(obj.workspaces)) {
+    obj.workspaces.forEach((w: unknown, i: number) => {
+      const e = (w ?? {}) as { name?: unknown; workspace?: unknown; unreadable?: unknown };
+      const name = typeof e.name === 'string' ? e.name : `Imported workspace ${i + 1}`;
+      if (e.workspace === undefined) problems.push(`“${name}” was unreadable when it was exported; it is left out`);
+      else one(e.workspace, name, `“${name}”`);
+    });
+  } else one(json, fileName.replace(/\.json$/i, ''), fileName);
+  return { items, problems };
+}
+
+function Spark({ doc }: { doc: WorkbenchDocument }) {
+  const spark = zeroSparkline(doc);
+  if (!spark) return <span className="ws-spark ws-spark-none">no curve</span>;
+  const range = `${pct(spark.low, 2)} to ${pct(spark.high, 2)}`;
+  return (
+    <span className="ws-spark-wrap">
+      <svg className="ws-spark" width={SPARK_WIDTH} height={SPARK_HEIGHT} viewBox={`0 0 ${SPARK_WIDTH} ${SPARK_HEIGHT}`} role="img" aria-label={`Zero curve from ${range} (${rateTag(spark.compounding, spark.dayCount)})`}>
+        <path d={spark.path} fill="none" />
+      </svg>
+      <span className="ws-spark-range">
+        zero {range} <span className="ws-tag">({rateTag(spark.compounding, spark.dayCount)})</span>
+      </span>
+    </span>
+  );
+}
+
+function Row({ item, current, liveDoc }: { item: WorkspaceListItem; current: boolean; liveDoc: WorkbenchDocument | null }) {
+  const [renaming, setRenaming] = useState(false);
+  const [draft, setDraft] = useState(item.name);
+  const doc = current ? liveDoc : item.workspace;
+  const commit = (): void => {
+    setRenaming(false);
+    if (draft.trim() !== '' && draft !== item.name) void renameWorkspace(item.id, draft);
+  };
+  return (
+    <li className={`ws-item${current ? ' current' : ''}${item.problem ? ' unreadable' : ''}`} aria-current={current ? 'true' : undefined}>
+      <div className="ws-main">
+        {renaming ? (
+          <input
+            className="ws-rename"
+            aria-label={`New name for ${item.name}`}
+            value={draft}
+            autoFocus
+            maxLength={120}
+            onChange={(e) => setDraft(e.target.value)}
+            onBlur={commit}
+            onKeyDown={(e) => {
+              if (e.key === 'Enter') commit();
+              if (e.key === 'Escape') {
+                setDraft(item.name);
+                setRenaming(false);
+              }
+            }}
+          />
+        ) : (
+          <span className="ws-name">{item.name}</span>
+        )}
+        {current && <span className="ws-open-tag">open here</span>}
+        <span className="ws-meta">
+          {savedText(item.savedAt)}
+          {doc ? <> · settles {doc.settlement || '(none)'} · {doc.quotes.length} quotes</> : null}
+        </span>
+        {item.problem && <span className="ws-problem">Could not be read: {item.problem}.</span>}
+      </div>
+      {doc ? <Spark doc={doc} /> : <span className="ws-spark ws-spark-none">—</span>}
+      <div className="ws-actions">
+        <button type="button" disabled={current || !item.workspace} onClick={() => void switchWorkspace(item.id)} aria-label={`Open ${item.name}`}>
+          Open
+        </button>
+        <button
+          type="button"
+          onClick={() => {
+            setDraft(item.name);
+            setRenaming(true);
+          }}
+          aria-label={`Rename ${item.name}`}
+        >
+          Rename
+        </button>
+        <button type="button" disabled={current} title={current ? 'Open another workspace first' : undefined} onClick={() => void deleteWorkspace(item.id)} aria-label={`Delete ${item.name}`}>
+          Delete
+        </button>
+      </div>
+    </li>
+  );
+}
+
+/**
+ * The saved workspaces of this browser: open one, rename, delete (with Undo), export them all as
+ * one file or import such a file. Each entry shows when it was saved, its settlement and a tiny
+ * zero curve computed from its inputs.
+ */
+export function WorkspacesPanel({ onClose }: { onClose?: () => void }) {
+  const items = useWorkspaceList((s) => s.items);
+  const currentId = useWorkspaceList((s) => s.currentId);
+  const deleted = useWorkspaceList((s) => s.deleted);
+  const notice = useWorkspaceList((s) => s.notice);
+  const liveDoc = useAppStore((s) => s.workspace);
+  const backend = useAppStore((s) => s.storage.backend);
+  const input = useRef<HTMLInputElement>(null);
+  const [message, setMessage] = useState<string | null>(null);
+  const sorted = [...items].sort((a, b) => (a.id === currentId ? -1 : b.id === currentId ? 1 : (b.savedAt ?? Infinity) - (a.savedAt ?? Infinity)));
+  const importFile = async (e: ChangeEvent<HTMLInputElement>): Promise<void> => {
+    const file = e.target.files?.[0];
+    e.target.value = '';
+    if (!file) return;
+    let text: string;
+    try {
+      text = await file.text();
+    } catch {
+      setMessage(`${file.name} could not be read. Nothing was added.`);
+      return;
+    }
+    const { items: found, problems } = readListFile(text, file.name);
+    const added = found.length > 0 ? await addWorkspaces(found) : 0;
+    const left = problems.length > 0 ? ` Left out: ${problems.slice(0, 3).join('; ')}${problems.length > 3 ? ` (and ${problems.length - 3} more)` : ''}.` : '';
+    setMessage(`Added ${added} workspace${added === 1 ? '' : 's'} from ${file.name}.${left}`);
+  };
+  return (
+    <section className="panel workspaces" aria-label="Workspaces">
+      <div className="ws-head">
+        <h2>Workspaces in this browser</h2>
+        <span className="muted small">{backend === 'indexeddb' ? "kept in the browser's database" : backend === 'localStorage' ? 'kept in localStorage (the database is unavailable)' : 'not kept: this browser gives the page no storage'}</span>
+        {onClose && (
+          <button type="button" className="ws-close" onClick={onClose}>
+            Close
+          </button>
+        )}
+      </div>
+      <ul className="ws-list">
+        {sorted.map((item) => (
+          <Row key={item.id} item={item} current={item.id === currentId} liveDoc={liveDoc} />
+        ))}
+      </ul>
+      {deleted && (
+        <p className="notice" role="status">
+          Deleted &ldquo;{deleted.name}&rdquo;.{' '}
+          <button type="button" onClick={() => void undoDelete()}>
+            Undo delete
+          </button>
+        </p>
+      )}
+      {(notice ?? message) && (
+        <p className="notice" role="status">
+          {notice ?? message}
+        </p>
+      )}
+      <div className="ws-foot">
+        <button type="button" onClick={() => void exportAll().then((text) => download('tenorscope-workspaces.json', text))}>
+          Export all (one file)
+        </button>
+        <button type="button" onClick={() => input.current?.click()}>
+          Import workspaces…
+        </button>
+        <input ref={input} type="file" accept=".json,application/json" hidden onChange={(e) => void importFile(e)} aria-label="Workspace list file to import" />
+      </div>
+    </section>
+  );
+}
+
+/** The header button that shows or hides the Workspaces panel. */
+export function WorkspacesButton() {
+  const open = useWorkspaceList((s) => s.panelOpen);
+  const count = useWorkspaceList((s) => s.items.length);
+  return (
+    <button type="button" aria-expanded={open} onClick={() => useWorkspaceList.setState({ panelOpen: !open })} title="Saved workspaces: open, rename, delete, export or import">
+      Workspaces{count > 1 ? ` (${count})` : ''}
+    </button>
+  );
+}
+
+/** Where the panel shows when open. */
+export function WorkspacesSlot() {
+  const open = useWorkspaceList((s) => s.panelOpen);
+  return open ? <WorkspacesPanel onClose={() => useWorkspaceList.setState({ panelOpen: false })} /> : null;
+}
