@@ -13,7 +13,7 @@ import {
 import { num, pct } from '../../components/format.ts';
 import { sampleGrid, zeroSamples } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
-import { PALETTE } from '../../charts/palette.ts';
+import { BASE_STYLES } from '../../charts/palette.ts';
 import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
 import type { Curve } from '../../core/index.ts';
 import { RichCheapTable } from './RichCheapTable.tsx';
@@ -196,8 +196,8 @@ function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | nu
     if (!last) return null;
     const grid = sampleGrid(fit.settlement, last.date, 160, fit.dayCount, fit.dayCount, { n: 3, unit: 'M' });
     const tag = `cont, ${fit.dayCount}`;
-    const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, colour: PALETTE.forward, width: 2.2, points: points(fit, grid) }];
-    if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, colour: PALETTE.zero, dash: '5 3', points: points(bootstrap, grid) });
+    const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, ...BASE_STYLES.forward, points: points(fit, grid) }];
+    if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, ...BASE_STYLES.zero, dash: '6 3', points: points(bootstrap, grid) });
     return { lines, xMax: last.t, lastT: Math.max(fit.lastT, bootstrap?.lastT ?? 0), tag };
   }, [fit, bootstrap, label]);
   if (!chart) return null;

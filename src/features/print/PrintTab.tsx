@@ -12,8 +12,8 @@ import { NoteEditor } from './NoteEditor.tsx';
 import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
 import { PrintSummary } from './PrintSummary.tsx';
 import '../scenarios/scenarios.css';
+import { BASE_STYLES, SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
 
-const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
 
 /**
  * The printed summary wired to the workbench: preview on screen, "Print summary" prints it alone.
@@ -29,15 +29,16 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
     if (!curve || !ws) return null;
     const conv = tableConventionsFromDisplay(display);
     const { scenarios } = validateScenarios(doc.scenarios);
-    const moved = scenarios.slice(0, 4).flatMap((s) => {
+    const moved = scenarios.slice(0, SCENARIO_OVERLAY_MAX).flatMap((s) => {
       const r = applyScenario(s, ws, curve, { skipInvalid: true });
       return r.ok ? [{ name: s.name, curve: r.value.curve }] : [];
     });
     const series = (kind: 'zero' | 'forward'): PrintSeries[] =>
+      // The same styles as the workbench's charts: the base line solid, each scenario its own colour and dash.
       [{ name: 'Base', curve }, ...moved].map((c, i) => ({
         label: c.name,
-        colour: COLOURS[i % COLOURS.length]!,
-        ...(i > 0 ? { dash: '4 2' } : {}),
+        colour: (i === 0 ? BASE_STYLES.zero : SCENARIO_STYLES[i - 1]!).colour,
+        ...(i > 0 ? { dash: SCENARIO_STYLES[i - 1]!.dash } : {}),
         points: curveSeries(c.curve, display, [])[kind].map((p) => ({ x: p.x, y: p.y })),
       }));
     const { xMax, lastT } = curveSeries(curve, display, []);
