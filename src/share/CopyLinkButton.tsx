@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { encodeWorkspaceLink } from './linkCodec.ts';
 import '../features/scenarios/scenarios.css';
 
@@ -13,11 +13,20 @@ export interface CopyLinkButtonProps {
   readonly onCopied?: (url: string) => void;
 }
 
+/** How long "Link copied" stays beside the button (ms). */
+export const COPIED_STATUS_MS = 6000;
+
 const pageAddress = (): string => window.location.href.split('#')[0]!;
 
 /** Puts a link holding the whole workspace on the clipboard. Its accessible name is "Copy link". */
 export function CopyLinkButton({ document: doc, baseUrl, writeText, onCopied }: CopyLinkButtonProps) {
   const [status, setStatus] = useState<{ text: string; error: boolean } | null>(null);
+  // "Link copied" is news for a moment, then goes; a problem stays until the next try.
+  useEffect(() => {
+    if (!status || status.error) return;
+    const timer = setTimeout(() => setStatus(null), COPIED_STATUS_MS);
+    return () => clearTimeout(timer);
+  }, [status]);
   const copy = async (): Promise<void> => {
     try {
       const url = `${baseUrl ?? pageAddress()}#${await encodeWorkspaceLink(doc)}`;

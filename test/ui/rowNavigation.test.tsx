@@ -35,3 +35,18 @@ describe('row navigation on the demo workspace', () => {
     expect(document.activeElement).toBe(cell(5, 'Rate / yield'));
   });
 });
+
+describe('the section tabs from the keyboard (WAI-ARIA Authoring Practices, tabs pattern)', () => {
+  it('Home and End select and focus the first and the last tab', () => {
+    render(<App />);
+    const tabs = screen.getAllByRole('tab');
+    tabs[1]!.focus();
+    fireEvent.keyDown(tabs[1]!, { key: 'End' });
+    const last = screen.getAllByRole('tab').at(-1)!;
+    expect(last).toHaveAttribute('aria-selected', 'true');
+    expect(document.activeElement).toBe(last);
+    fireEvent.keyDown(last, { key: 'Home' });
+    expect(screen.getAllByRole('tab')[0]).toHaveAttribute('aria-selected', 'true');
+    expect(document.activeElement).toBe(screen.getAllByRole('tab')[0]);
+  });
+});

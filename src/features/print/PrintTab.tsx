@@ -15,13 +15,16 @@ import '../scenarios/scenarios.css';
 import { BASE_STYLES, SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
 
 
+/** The default title of the printed summary. */
+export const DEFAULT_PRINT_TITLE = 'Yield-curve summary';
+
 /**
- * The printed summary wired to the workbench: preview on screen, "Print summary" prints it alone.
- * `rollResult` is the roll-versus-term result line, when the workbench passes one.
+ * The one-page summary of the workbench's current state (curve, key rates, the first scenarios,
+ * the note, the roll-versus-term result): what the Print section previews and what any print of
+ * the workbench gives (see PrintOnDemand).
  */
-export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
+export function WorkbenchPrintSummary({ result, title, rollResult = null }: { result: WorkbenchBuild; title: string; rollResult?: ReactNode | null }) {
   const doc = useAppStore((s) => s.workspace);
-  const [title, setTitle] = useState('Yield-curve summary');
   const curve = result.build.curve;
   const ws = result.build.workspace;
   const display = doc.display;
@@ -54,7 +57,7 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
   }, [curve, ws, display, doc.scenarios]);
   if (!props || !curve || !ws) return <p className="empty">No curve to print: {result.fatal}</p>;
   const { snapshots: _s, ...linked } = doc as unknown as Record<string, unknown>;
-  const summary = (
+  return (
     <PrintSummary
       title={title}
       note={typeof doc.note === 'string' ? doc.note : ''}
@@ -69,6 +72,16 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
       {...props}
     />
   );
+}
+
+/**
+ * The printed summary wired to the workbench: preview on screen, "Print summary" prints it alone.
+ * `rollResult` is the roll-versus-term result line, when the workbench passes one.
+ */
+export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
+  const doc = useAppStore((s) => s.workspace);
+  const [title, setTitle] = useState(DEFAULT_PRINT_TITLE);
+  const summary = <WorkbenchPrintSummary result={result} title={title} rollResult={rollResult} />;
   return (
     <section className="print-tab" aria-label="Print">
       <div className="settings">
