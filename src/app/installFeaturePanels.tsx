@@ -88,15 +88,15 @@ const roll = deferredPanel('roll versus term', () => import('../features/roll/Ro
 const scenarios = deferredPanel('scenarios', () => import('../features/scenarios/ScenariosTab.tsx').then((m) => m.ScenariosTab));
 const snapshots = deferredPanel('snapshots', () => import('../features/snapshots/SnapshotsTab.tsx').then((m) => m.SnapshotsTab));
 const fit = deferredPanel('smooth fit', () =>
-  import('../features/fit/FitPanel.tsx').then(({ FitPanel }) => ({ result }: PanelProps) => <FitPanel workspace={result.build.workspace} repricing={result.build.repricing} />),
+  import('../features/fit/FitPanel.tsx').then(({ FitPanel }) => ({ result }: PanelProps) => <FitPanel workspace={result.build.workspace} repricing={result.build.repricing} rowOfQuote={result.conversion.rowOfQuote} />),
 );
 const risk = deferredPanel('bond and sensitivities', () =>
   Promise.all([import('../features/risk/BondAnalyticsPanel.tsx'), import('../features/risk/SensitivityHeatMap.tsx')]).then(
     ([{ BondAnalyticsPanel }, { SensitivityHeatMap }]) =>
       ({ result }: PanelProps) => (
         <div className="stack">
-          <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} />
-          <SensitivityHeatMap workspace={result.build.workspace} />
+          <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} />
+          <SensitivityHeatMap workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} />
         </div>
       ),
   ),

@@ -38,7 +38,7 @@ export const BASE_STYLES = {
 /** The method overlay on the forward chart, one style per interpolation method. */
 export const METHOD_STYLES: Readonly<Record<string, SeriesStyle>> = {
   'linear-zero': { colour: '#8f693d', dash: '12 4', width: 1.4 },
-  'log-linear-discount': { colour: '#1d1d72', dash: '1 3', width: 1.6 },
+  'log-linear-discount': { colour: '#1d1d72', dash: '5 2 5 6', width: 1.4 },
   'cubic-zero': { colour: '#642b60', dash: '9 3 2 3', width: 1.4 },
   'monotone-convex': { colour: '#6b2440', dash: '14 3 5 3', width: 1.4 },
   'monotone-convex-positive': { colour: '#993341', dash: '4 2 1 2', width: 1.4 },
@@ -51,7 +51,7 @@ export const SCENARIO_OVERLAY_MAX = 4;
 export const SCENARIO_STYLES: readonly SeriesStyle[] = [
   { colour: '#2fa0bc', dash: '9 3 2 3 2 3', width: 1.6 },
   { colour: '#a49146', dash: '2 2 2 2 8 2', width: 1.6 },
-  { colour: '#a44685', dash: '20 3', width: 1.6 },
+  { colour: '#a44685', dash: '1 2', width: 1.8 },
   { colour: '#721d1d', dash: '6 2 1 2 1 2', width: 1.6 },
 ];
 

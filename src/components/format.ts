@@ -28,9 +28,14 @@ export const rowNumber = (rowOfQuote: readonly number[] | undefined, quote: numb
 export function nearZero(x: number | null | undefined, dp: number, unit: string, tolerance = 0.5 * 10 ** -dp): { text: string; title: string | undefined } {
   if (x === null || x === undefined || !Number.isFinite(x)) return { text: '\u2014', title: undefined };
   if (Math.abs(x) < tolerance || Number(x.toFixed(dp)) === 0) {
-    const tol = Math.max(tolerance, 0);
-    const tolText = tol >= 1e-4 ? String(Number(tol.toPrecision(2))) : tol.toExponential(0).replace('e-', ' \u00d7 10^\u2212');
-    return { text: (0).toFixed(dp), title: x === 0 ? undefined : `Zero within ${tolText} ${unit} (computed: ${x.toExponential(1).replace('-', '\u2212')} ${unit})` };
+    const tol = tolerance >= 1e-4 ? String(Number(tolerance.toPrecision(2))) : scientific(tolerance, 0);
+    return { text: (0).toFixed(dp), title: x === 0 ? undefined : `Zero within ${tol} ${unit} (computed: ${scientific(x, 1)} ${unit})` };
   }
   return { text: sign(x.toFixed(dp)), title: undefined };
+}
+
+/** A number as "6.9 × 10^−14" (a tooltip's exact figure; never "6.9e-14" on screen). */
+export function scientific(x: number, digits: number): string {
+  const [m, e] = x.toExponential(digits).split('e') as [string, string];
+  return `${sign(m)} \u00d7 10^${e.replace('+', '').replace('-', MINUS)}`;
 }
