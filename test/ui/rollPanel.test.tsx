@@ -116,7 +116,7 @@ describe('RollPanel', () => {
     const user = userEvent.setup();
     render(<Harness initial={{ ...DEFAULT_STRATEGY, horizon: '12Y', ridingMaturity: '15Y' }} />);
     const alert = screen.getByRole('alert', { name: /Why there is no comparison/ });
-    expect(alert).toHaveTextContent(/strategy\.horizon: .*beyond the curve's last pillar/);
+    expect(alert).toHaveTextContent(/Horizon: .*beyond the curve's last pillar/);
     expect(screen.getByRole('textbox', { name: /Horizon/ })).toHaveValue('12Y');
     await user.clear(screen.getByRole('textbox', { name: /Horizon/ }));
     await user.type(screen.getByRole('textbox', { name: /Horizon/ }), '2Y{Enter}');

@@ -11,6 +11,7 @@ import {
 } from '../../core/analysis/rollVsTerm.ts';
 import { RollGrowthChart } from './RollGrowthChart.tsx';
 import { RollInputs } from './RollInputs.tsx';
+import { inFieldWords } from './fieldWords.ts';
 import { BreakEvenTables, RidingSplitTable, RollLegsTable, RollResultsTable } from './RollTables.tsx';
 import './roll.css';
 
@@ -57,7 +58,8 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
     ]),
   ];
   const fieldErrors: Record<string, string> = {};
-  if (result && !result.ok) for (const e of result.errors) fieldErrors[e.path] ??= e.message;
+  // Messages name fields by their labels ("Horizon: ..."), never by document paths (strategy.horizon).
+  if (result && !result.ok) for (const e of result.errors) fieldErrors[e.path] ??= inFieldWords(e.message);
   const analysis = result && result.ok ? result.value : null;
   const conventions = tagOverride ?? `roll legs ${rateTag('simple', strategy.rollDayCount)}; returns ann, ACT/365F`;
   return (
@@ -72,7 +74,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
       {documentErrors.length > 0 ? (
         <ul className="roll-errors" role="alert" aria-label="Problems in the saved strategy">
           {documentErrors.map((e) => (
-            <li key={e.path + e.message}>{e.message} (the default is used until it is corrected)</li>
+            <li key={e.path + e.message}>{inFieldWords(e.message)} (the default is used until it is corrected)</li>
           ))}
         </ul>
       ) : null}
@@ -85,7 +87,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
       {result && !result.ok ? (
         <ul className="roll-errors" role="alert" aria-label="Why there is no comparison">
           {result.errors.map((e) => (
-            <li key={e.path + e.message}>{e.message}</li>
+            <li key={e.path + e.message}>{inFieldWords(e.message)}</li>
           ))}
         </ul>
       ) : null}
@@ -109,7 +111,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
           {analysis.warnings.length > 0 ? (
             <ul className="roll-warnings" aria-label="Notes">
               {analysis.warnings.map((w) => (
-                <li key={w.path + w.message}>{w.message}</li>
+                <li key={w.path + w.message}>{inFieldWords(w.message)}</li>
               ))}
             </ul>
           ) : null}
