@@ -185,7 +185,10 @@ describe('printing from the main view', () => {
       expect(pagesOf(pdf)).toBe(1);
       const text = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
       expect(text).toContain('Yield-curve summary');
-      expect(text).toContain('Caution.');
+      // The whole caution is printed (the page box clips anything past its height).
+      expect(text).toContain('Caution. An analysis aid, not investment advice.');
+      expect(text).toContain('Verify against official sources and your own policies.');
+      expect(text).toContain('Your short-rate path');
       expect(text).toContain('and 1 more not shown');
       expect(text).not.toContain('Paste rows from a spreadsheet');
       expect(text).not.toContain('Point at a chart');

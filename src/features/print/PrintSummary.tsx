@@ -178,7 +178,7 @@ export function PrintSummary(p: PrintSummaryProps) {
         </section>
       </div>
       <section className="ps-roll" aria-label="Roll versus term">
-        <h2>Roll versus term</h2> {p.rollResult ?? <span className="ps-muted">no result</span>}
+        <h2>Roll versus term</h2> <div className="ps-roll-body">{p.rollResult ?? <span className="ps-muted">no result</span>}</div>
       </section>
       <p className="ps-caution" role="note">
         <strong>Caution.</strong> {CAUTION_TEXT}
