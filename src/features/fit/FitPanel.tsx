@@ -101,13 +101,13 @@ export function FitPanel(props: FitPanelProps) {
       {ws && model === 'none' && <p role="status">No fit chosen: the exact bootstrap is the curve.</p>}
       {result && !result.ok && (
         <p role="alert" className="error">
-          {result.errors.map((e) => e.message).join('; ')}
+          {result.errors.map((e) => rowWords(e.message, props.rowOfQuote)).join('; ')}
         </p>
       )}
       {result && result.ok && (
         <>
           <p role="status" className={result.value.converged ? undefined : 'warning'}>
-            {result.value.report}
+            {rowWords(result.value.report, props.rowOfQuote)}
           </p>
           <FitChart fit={result.value.curve} bootstrap={props.bootstrap ?? null} label={FIT_MODEL_LABEL[result.value.model]} />
           <table className="data" aria-label="Fitted parameters">
@@ -237,4 +237,9 @@ function RepricingCell({ rep }: { rep: Repricing | undefined }) {
       {e.text} {rep.unit === 'price' ? 'per 100' : 'bp'}
     </td>
   );
+}
+
+/** The core's `quotes[i]` as the sheet's row number ("row 19"), so every table and message counts rows from 1. */
+function rowWords(text: string, rowOfQuote: readonly number[] | undefined): string {
+  return text.replace(/quotes\[(\d+)\]/g, (_, q: string) => `row ${rowNumber(rowOfQuote, Number(q))}`);
 }

@@ -94,11 +94,16 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
       {!workspace && <p role="status">No valid workspace yet.</p>}
       {out && !out.ok && <p role="alert" className="error">{out.errors.map((e) => e.message).join('; ')}</p>}
       {out && out.ok && (
+        <p className="muted small">
+          How far each forward moves when one quote moves 1 bp (a price quote moved through its own yield), computed from the bootstrap. Blue: the forward
+          rises with the quote; orange: it falls. Figures below 0.005 bp per bp show as 0.00; the exact figure is in each cell&rsquo;s tooltip.
+        </p>
+      )}
+      {out && out.ok && (
         <div className="heatmap-scroll">
           <table className="data heatmap" aria-label="Forward sensitivities">
             <caption>
-              How far each forward moves when one quote moves 1 bp, in bp of forward per bp of quote (a price quote moved through its own yield); forwards <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span>,
-              computed from the bootstrap. Blue: the forward rises with the quote; orange: it falls. Figures below 0.005 bp per bp show as 0.00 (the exact figure is in each cell's tooltip).
+              In bp of forward per bp of quote; forwards <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span>
             </caption>
             <thead>
               <tr>
