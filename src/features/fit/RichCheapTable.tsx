@@ -8,7 +8,7 @@ import { num, pct, rowNumber } from '../../components/format.ts';
 export function RichCheapTable({ entries, yieldTag, rowOfQuote }: { entries: readonly RichCheapEntry[]; yieldTag: string; rowOfQuote?: readonly number[] | undefined }) {
   if (entries.length === 0) return <p className="muted">No bond quotes to rank: rich and cheap apply to bonds.</p>;
   return (
-    <div className="table-scroll">
+    <div className="table-scroll" tabIndex={0} role="region" aria-label="Rich and cheap bonds (scrolls sideways)">
     <table className="data" aria-label="Rich and cheap bonds">
       <caption>
         Bonds by richness to the fit (market minus model price); yields <span className="tag">{yieldTag}</span>

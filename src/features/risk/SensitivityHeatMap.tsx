@@ -100,7 +100,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
         </p>
       )}
       {out && out.ok && (
-        <div className="heatmap-scroll">
+        <div className="heatmap-scroll" tabIndex={0} role="region" aria-label="Forward sensitivities (scrolls)">
           <table className="data heatmap" aria-label="Forward sensitivities">
             <caption>
               In bp of forward per bp of quote; forwards <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span>
