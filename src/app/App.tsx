@@ -86,9 +86,16 @@ export function App() {
       <footer className="foot">
         <Caution />
       </footer>
+      <PrintHost result={deferred} />
     </div>
   );
 }
+
+/** Any print of the page gives the one-page summary (EXTENSIONS.printHost; nothing on screen). */
+const PrintHost = memo(function PrintHost({ result }: { result: WorkbenchBuild }) {
+  const Host = EXTENSIONS.printHost;
+  return Host ? <Host result={result} /> : null;
+});
 
 /** The roll-versus-term slot: re-renders only when its (deferred) build changes. */
 const RollHost = memo(function RollHost({ result }: { result: WorkbenchBuild }) {

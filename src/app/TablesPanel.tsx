@@ -45,7 +45,14 @@ export function TablesPanel({ result, deferredResult = result, extraTabs }: { re
   const listRef = useRef<HTMLDivElement>(null);
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>): void => {
     const i = tabs.findIndex((t) => t.id === current.id);
-    const next = e.key === 'ArrowRight' ? (i + 1) % tabs.length : e.key === 'ArrowLeft' ? (i - 1 + tabs.length) % tabs.length : -1;
+    // Arrow keys move to the next or previous tab (wrapping), Home and End to the first and last
+    // (the WAI-ARIA Authoring Practices tabs pattern).
+    const next =
+      e.key === 'ArrowRight' ? (i + 1) % tabs.length
+      : e.key === 'ArrowLeft' ? (i - 1 + tabs.length) % tabs.length
+      : e.key === 'Home' ? 0
+      : e.key === 'End' ? tabs.length - 1
+      : -1;
     if (next < 0) return;
     e.preventDefault();
     setActiveTab(tabs[next]!.id);

@@ -15,6 +15,8 @@ export interface WorkbenchTab {
  *
  * - `rollPanel`: the "Roll versus term" panel, shown in the slot beside the charts.
  * - `tabs`: extra sections in the tab strip under the charts (scenarios, fits, risk, print...).
+ * - `printHost`: always mounted, renders nothing on screen; makes any print of the page give the
+ *   one-page summary (features/print/PrintOnDemand.tsx).
  *
  * Empty by default (component tests render the bare workbench); the app's entry point fills it
  * with installFeaturePanels() (src/app/installFeaturePanels.tsx) before the first render.
@@ -22,9 +24,11 @@ export interface WorkbenchTab {
 export interface WorkbenchExtensions {
   rollPanel: ((props: { result: WorkbenchBuild }) => ReactNode) | null;
   tabs: WorkbenchTab[];
+  printHost: ((props: { result: WorkbenchBuild }) => ReactNode) | null;
 }
 
 export const EXTENSIONS: WorkbenchExtensions = {
   rollPanel: null,
   tabs: [],
+  printHost: null,
 };

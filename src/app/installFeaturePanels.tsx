@@ -31,7 +31,7 @@ function afterNextPaint(then: () => void): () => void {
   };
 }
 
-function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProps>>): DeferredPanel {
+function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProps>>, options: { quiet?: boolean } = {}): DeferredPanel {
   let loaded: ComponentType<PanelProps> | null = null;
   let pending: Promise<void> | null = null;
   const preload = (): Promise<void> => {
@@ -73,6 +73,7 @@ function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProp
       };
     }, [component]);
     if (component) return <component.C {...props} />;
+    if (options.quiet) return null; // an invisible helper shows no placeholder
     return (
       <p className="muted small" role="status">
         {failed ? `The ${name} section could not be loaded (the connection may have dropped). Reload the page to try again; your workspace is saved.` : `Loading the ${name} section…`}
@@ -87,15 +88,15 @@ const roll = deferredPanel('roll versus term', () => import('../features/roll/Ro
 const scenarios = deferredPanel('scenarios', () => import('../features/scenarios/ScenariosTab.tsx').then((m) => m.ScenariosTab));
 const snapshots = deferredPanel('snapshots', () => import('../features/snapshots/SnapshotsTab.tsx').then((m) => m.SnapshotsTab));
 const fit = deferredPanel('smooth fit', () =>
-  import('../features/fit/FitPanel.tsx').then(({ FitPanel }) => ({ result }: PanelProps) => <FitPanel workspace={result.build.workspace} repricing={result.build.repricing} />),
+  import('../features/fit/FitPanel.tsx').then(({ FitPanel }) => ({ result }: PanelProps) => <FitPanel workspace={result.build.workspace} repricing={result.build.repricing} rowOfQuote={result.conversion.rowOfQuote} />),
 );
 const risk = deferredPanel('bond and sensitivities', () =>
   Promise.all([import('../features/risk/BondAnalyticsPanel.tsx'), import('../features/risk/SensitivityHeatMap.tsx')]).then(
     ([{ BondAnalyticsPanel }, { SensitivityHeatMap }]) =>
       ({ result }: PanelProps) => (
         <div className="stack">
-          <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} />
-          <SensitivityHeatMap workspace={result.build.workspace} />
+          <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} />
+          <SensitivityHeatMap workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} />
         </div>
       ),
   ),
@@ -106,7 +107,14 @@ const print = deferredPanel('print', () =>
       ({ result }: PanelProps) => <PrintTab result={result} rollResult={<RollResultLine result={result} />} />,
   ),
 );
-const ALL = [roll, scenarios, snapshots, fit, risk, print];
+const printOnDemand = deferredPanel('print on demand', () =>
+  Promise.all([import('../features/print/PrintOnDemand.tsx'), import('../features/roll/RollSlot.tsx')]).then(
+    ([{ PrintOnDemand }, { RollResultLine }]) =>
+      ({ result }: PanelProps) => <PrintOnDemand result={result} rollResult={<RollResultLine result={result} />} />,
+  ),
+  { quiet: true },
+);
+const ALL = [roll, scenarios, snapshots, fit, risk, print, printOnDemand];
 
 /** Fetches every feature panel's code; resolves when all can render at once. */
 export function preloadFeaturePanels(): Promise<void> {
@@ -122,8 +130,9 @@ export function preloadFeaturePanels(): Promise<void> {
  * is up.
  */
 export function installFeaturePanels(options: { preload?: boolean } = {}): Promise<void> {
-  if (EXTENSIONS.rollPanel === null && EXTENSIONS.tabs.length === 0) {
+  if (EXTENSIONS.rollPanel === null && EXTENSIONS.tabs.length === 0 && EXTENSIONS.printHost === null) {
     EXTENSIONS.rollPanel = roll.Panel;
+    EXTENSIONS.printHost = printOnDemand.Panel;
     EXTENSIONS.tabs.push(
       { id: 'scenarios', label: 'Scenarios', render: ({ result }) => <scenarios.Panel result={result} /> },
       { id: 'snapshots', label: 'Snapshots', render: ({ result }) => <snapshots.Panel result={result} /> },

@@ -6,6 +6,7 @@ import type { SamplePoint } from '../hooks/useCurveSeries.ts';
 import { hoverStore, useHoverX } from './hover.ts';
 import { maturityScale, maturityTicks } from './maturityScale.ts';
 import { PALETTE } from './palette.ts';
+import { useChartWidth } from './useChartWidth.ts';
 
 export interface ChartLine {
   readonly id: string;
@@ -38,9 +39,13 @@ export interface RateChartProps {
   readonly yLabel: string;
 }
 
-const W = 540;
-const H = 380;
+/** Drawing width before the chart's box is measured (user units = CSS pixels once measured). */
+const W0 = 540;
+/** Height for a drawing width: about 0.7 of it, between 240 and 400 px, so the plot scales and the text does not. */
+const heightFor = (w: number): number => Math.round(Math.min(400, Math.max(240, w * 0.7)));
 const M = { left: 54, right: 14, top: 14, bottom: 42 };
+/** Chart text size in CSS pixels (axis ticks and labels); never scaled, since the drawing is the box's size. */
+export const CHART_FONT_PX = 11;
 
 const yTickText = (v: number): string => `${(v * 100).toFixed(2).replace(/0$/, '')}%`.replace('-', '\u2212');
 
@@ -67,7 +72,9 @@ export function nearestIndex(points: readonly SamplePoint[], x: number): number 
 export const RateChart = memo(function RateChart(props: RateChartProps) {
   const { name, description, lines, markers = [], pillars = [], xMax, axis, xLabel, yLabel } = props;
   const descId = useId();
-  const x = useMemo(() => maturityScale(axis, xMax, [M.left, W - M.right]), [axis, xMax]);
+  const [boxRef, W] = useChartWidth<HTMLElement>(W0);
+  const H = heightFor(W);
+  const x = useMemo(() => maturityScale(axis, xMax, [M.left, W - M.right]), [axis, xMax, W]);
   const y = useMemo(() => {
     let lo = Infinity;
     let hi = -Infinity;
@@ -76,7 +83,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
     if (!Number.isFinite(lo)) ((lo = 0), (hi = 0.05));
     const pad = Math.max((hi - lo) * 0.08, 0.0005);
     return scaleLinear().domain([lo - pad, hi + pad]).range([H - M.bottom, M.top]).nice(6);
-  }, [lines, markers]);
+  }, [lines, markers, H]);
   const paths = useMemo(() => {
     const gen = line<SamplePoint>()
       .x((p) => x(p.x))
@@ -91,8 +98,9 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
       return { l, solid: gen(inside) ?? '', dashed: outside.length > 1 ? (gen(outside) ?? '') : '' };
     });
   }, [lines, x, y]);
-  const xTicks = maturityTicks(axis, xMax);
-  const yTicks = y.ticks(6);
+  // Fewer x ticks on a narrow chart, so tick labels never overlap at full size.
+  const xTicks = thinTicks(maturityTicks(axis, xMax), x, 30);
+  const yTicks = y.ticks(H < 300 ? 5 : 6);
 
   const toX = (e: PointerEvent<SVGSVGElement>): number => {
     const box = e.currentTarget.getBoundingClientRect();
@@ -119,12 +127,14 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
   };
 
   return (
-    <figure className="chart">
+    <figure className="chart" ref={boxRef}>
       <svg
         role="img"
         aria-label={name}
         aria-describedby={descId}
         viewBox={`0 0 ${W} ${H}`}
+        width={W}
+        height={H}
         tabIndex={0}
         onPointerMove={(e) => hoverStore.set(toX(e))}
         onPointerLeave={() => hoverStore.set(null)}
@@ -144,7 +154,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
             <title>Past the last pillar: flat-forward extrapolation</title>
           </rect>
         )}
-        <g className="axis" fontSize="11" fill={PALETTE.axis}>
+        <g className="axis" fontSize={CHART_FONT_PX} fill={PALETTE.axis}>
           <line x1={M.left} x2={W - M.right} y1={H - M.bottom} y2={H - M.bottom} stroke={PALETTE.axis} />
           <line x1={M.left} x2={M.left} y1={M.top} y2={H - M.bottom} stroke={PALETTE.axis} />
           {xTicks.map((v) => (
@@ -180,7 +190,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
             <title>{m.label}</title>
           </circle>
         ))}
-        <Crosshair lines={lines} x={x} y={y} />
+        <Crosshair lines={lines} x={x} y={y} h={H} />
       </svg>
       <figcaption id={descId} className="chart-caption">
         <span className="sr-only">{description} </span>
@@ -190,7 +200,14 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
   );
 });
 
-function Crosshair({ lines, x, y }: { lines: readonly ChartLine[]; x: (v: number) => number; y: (v: number) => number }) {
+/** Keeps ticks at least `gap` px apart (the first always kept), dropping those in between. */
+function thinTicks(ticks: readonly number[], x: (v: number) => number, gap: number): number[] {
+  const kept: number[] = [];
+  for (const t of ticks) if (kept.length === 0 || x(t) - x(kept[kept.length - 1]!) >= gap) kept.push(t);
+  return kept;
+}
+
+function Crosshair({ lines, x, y, h: H }: { lines: readonly ChartLine[]; x: (v: number) => number; y: (v: number) => number; h: number }) {
   const hx = useHoverX();
   if (hx === null) return null;
   const px = x(hx);

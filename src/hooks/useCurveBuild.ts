@@ -124,11 +124,17 @@ export function deriveBuild(
     [...build.errors, ...build.warnings.filter((w) => w.code === 'skipped' || w.code === 'negative-forward').map((w) => ({ ...w, message: w.message.replace(/^skipped: /, '') }))],
     conversion.rowOfQuote,
   );
+  // A negative forward is a warning on the quote's value (its rate, or its price when it is quoted
+  // by price), the cell that causes it, not on its kind (where an engine message without a field lands).
   for (const w of build.warnings) {
     if (w.code !== 'negative-forward' || w.quote === null) continue;
     const row = conversion.rowOfQuote[w.quote];
     const cur = row === undefined ? undefined : fromEngine.get(row);
-    if (row !== undefined && cur?.kind) fromEngine.set(row, { ...cur, kind: { severity: 'warning', message: cur.kind.message } });
+    if (row === undefined || !cur?.kind) continue;
+    const typed = ws.quotes[row];
+    const cell = typed && typed.rate.trim() !== '' ? 'rate' : typed && typed.price.trim() !== '' ? 'price' : 'kind';
+    const { kind, ...rest } = cur;
+    fromEngine.set(row, { ...rest, [cell]: { severity: 'warning', message: kind.message } });
   }
   const rowIssues = conversion.rows.map((p, i) => ({ ...(fromEngine.get(i) ?? {}), ...p.issues }));
   const engineInvalid = build.leftOut.filter((l) => l.reason === 'invalid').length;

@@ -13,6 +13,9 @@ export interface CopyLinkButtonProps {
   readonly onCopied?: (url: string) => void;
 }
 
+/** How long "Link copied" stays beside the button (ms). */
+export const COPIED_STATUS_MS = 6000;
+
 const pageAddress = (): string => window.location.href.split('#')[0]!;
 
 /**
@@ -49,6 +52,12 @@ export function CopyLinkButton({ document: doc, baseUrl, writeText, onCopied }: 
       clearTimeout(timer);
     };
   }, [doc]);
+  // "Link copied" is news for a moment, then goes; a problem stays until the next try.
+  useEffect(() => {
+    if (!status || status.error) return;
+    const timer = setTimeout(() => setStatus(null), COPIED_STATUS_MS);
+    return () => clearTimeout(timer);
+  }, [status]);
   const copy = async (): Promise<void> => {
     try {
       // A workspace too large for a link the app would open again gets no link, and is told why.

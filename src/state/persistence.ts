@@ -746,7 +746,8 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
     },
     async records() {
       await ready;
-      const out = backend ? (await backend.all()).filter(([k]) => k.startsWith('entry:')) : [];
+      // Saved workspaces, and the records kept aside as they were saved (restored with changes).
+      const out = backend ? (await backend.all()).filter(([k]) => k.startsWith('entry:') || k.startsWith('kept:')) : [];
       const current: [string, unknown] = [entryKey(currentId), { ...record(true), savedAt: store.getState().storage.savedAt ?? now() }];
       return [...out.filter(([k]) => k !== current[0]), current];
     },

@@ -208,3 +208,16 @@ describe('restoring the saved entry', () => {
     expect((await keptRecord()).history).toEqual(JSON.parse(raw).history);
   });
 });
+
+describe('the record kept aside', () => {
+  it('goes out with the export of every workspace', async () => {
+    const ws = demoWorkspace(() => 'z') as unknown as Record<string, unknown>;
+    const rows = Array.from({ length: 501 }, (_, i) => ({ id: `r${i}`, enabled: true, kind: 'swap', maturity: `${1 + (i % 30)}Y`, rate: '3.1', price: '', coupon: '', frequency: '', dayCount: '' }));
+    await start(entry({ ...ws, quotes: rows }));
+    const { exportAll } = await import('../../src/features/workspaces/WorkspacesPanel.tsx');
+    const file = JSON.parse(await exportAll()) as { workspaces: { name: string; unreadable?: string }[] };
+    const kept = file.workspaces.find((w) => /as saved before it was restored with changes/.test(w.name));
+    expect(kept).toBeDefined();
+    expect((JSON.parse(kept!.unreadable!) as { workspace: { quotes: unknown[] } }).workspace.quotes).toHaveLength(501);
+  });
+});

@@ -35,14 +35,14 @@ describe('FitPanel', () => {
   it('excludes a quote when its box is cleared, and keeps a bad weight as typed with a message', async () => {
     const user = userEvent.setup();
     render(<FitPanel workspace={ws} />);
-    await user.click(screen.getByRole('checkbox', { name: 'include quotes[4] in the fit' }));
-    expect(screen.getByRole('checkbox', { name: 'include quotes[4] in the fit' })).not.toBeChecked();
+    await user.click(screen.getByRole('checkbox', { name: 'include row 5 in the fit' }));
+    expect(screen.getByRole('checkbox', { name: 'include row 5 in the fit' })).not.toBeChecked();
     expect(within(screen.getByRole('table', { name: 'Rich and cheap bonds' })).getByText(/left out of the fit/)).toBeInTheDocument();
-    const weight = screen.getByRole('textbox', { name: 'weight of quotes[2]' });
+    const weight = screen.getByRole('textbox', { name: 'weight of row 3' });
     await user.clear(weight);
     await user.type(weight, 'abc');
     expect(weight).toHaveValue('abc');
-    expect(screen.getByRole('alert')).toHaveTextContent('quotes[2] weight: type a number 0 or above');
+    expect(screen.getByRole('alert')).toHaveTextContent('Row 3 weight: type a number 0 or above');
   });
 
   it('draws the fitted zero curve with the exact bootstrap on one chart, each line with its tag', () => {
@@ -50,8 +50,11 @@ describe('FitPanel', () => {
     render(<FitPanel workspace={ws} bootstrap={boot.curve} repricing={boot.repricing} />);
     expect(screen.getByRole('img', { name: 'Zero curve, Nelson-Siegel fit and exact bootstrap, cont, ACT/365F' })).toBeInTheDocument();
     const residuals = screen.getByRole('table', { name: 'Fit residuals' });
-    expect(residuals).toHaveTextContent('(decimal rate)');
-    expect(residuals).toHaveTextContent('(per 100 face)');
+    // The exact bootstrap reprices every quote within its acceptance (src/core/numeric/tolerance.ts):
+    // shown as zero in the quote's unit, bp for a rate quote and per 100 for a price quote, never as 1e-14 noise.
+    expect(residuals).toHaveTextContent('0.0000 bp');
+    expect(residuals).toHaveTextContent('0.000000 per 100');
+    expect(residuals.textContent).not.toMatch(/e[-+]\d/);
   });
 
   it('switches to Svensson and to no fit', async () => {

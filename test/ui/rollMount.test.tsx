@@ -55,7 +55,7 @@ describe('roll panel mounted in the workbench', () => {
     useAppStore.getState().setReserved('strategy', { horizon: 'soon', rollTenor: '3M' });
     render(<App />);
     const problems = within(rollRegion()).getByRole('alert', { name: /Problems in the saved strategy/ });
-    expect(problems).toHaveTextContent(/Horizon: must be a tenor such as "2Y"/);
+    expect(problems).toHaveTextContent(/^Horizon: must be a tenor such as "2Y"/);
     expect(problems).not.toHaveTextContent(/strategy\./);
     expect(within(rollRegion()).getByText(/^Under an unchanged curve, /)).toBeInTheDocument();
   });

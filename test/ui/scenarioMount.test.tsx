@@ -11,6 +11,7 @@ import { ScenariosTab } from '../../src/features/scenarios/ScenariosTab.tsx';
 import { SnapshotsTab } from '../../src/features/snapshots/SnapshotsTab.tsx';
 import { useAppStore } from '../../src/state/store.ts';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { SCENARIO_STYLES } from '../../src/charts/palette.ts';
 import { useScenarioOverlay } from '../../src/features/scenarios/useScenarioOverlay.ts';
 import { act } from '@testing-library/react';
 
@@ -83,6 +84,19 @@ describe('scenario, snapshot and print tabs mounted in the workbench', { timeout
     render(<Probe />);
     expect(screen.getByTestId('overlay').textContent).toBe('');
     act(() => useAppStore.getState().setReserved('scenarios', [{ id: 'a', name: 'Up 5', space: 'quotes', shape: { kind: 'parallel', bp: 5 } }]));
-    expect(screen.getByTestId('overlay').textContent).toBe('Up 5 (zero)|5 3|true');
+    // Dashed in the first scenario style (its own colour and dash, src/charts/palette.ts).
+    expect(SCENARIO_STYLES[0]!.dash).not.toBe('');
+    expect(screen.getByTestId('overlay').textContent).toBe(`Up 5 (zero)|${SCENARIO_STYLES[0]!.dash}|true`);
+  });
+
+  it('useScenarioOverlay draws the first four scenarios and counts the rest as not drawn', () => {
+    function Probe() {
+      const o = useScenarioOverlay(useCurveBuild());
+      return <p data-testid="overlay">{`${o.zero.length} drawn, ${o.notDrawn} not drawn; ${new Set(o.zero.map((l) => `${l.colour} ${l.dash}`)).size} styles`}</p>;
+    }
+    render(<Probe />);
+    const five = [1, 2, 3, 4, 5].map((k) => ({ id: `s${k}`, name: `Up ${k}`, space: 'quotes', shape: { kind: 'parallel', bp: k } }));
+    act(() => useAppStore.getState().setReserved('scenarios', five));
+    expect(screen.getByTestId('overlay').textContent).toBe('4 drawn, 1 not drawn; 4 styles');
   });
 });

@@ -2,7 +2,7 @@
 // gives for the same document: same pillars, same discount factors, same repricing.
 import { buildCurve } from '../../src/core/index.ts';
 import { toEngineDocument } from '../../src/core/input/index.ts';
-import { buildWithReuse } from '../../src/hooks/useCurveBuild.ts';
+import { buildWithReuse, deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 
 let n = 0;
@@ -43,5 +43,19 @@ describe('buildWithReuse', () => {
     const moved = { ...demo, quotes: demo.quotes.map((q, i) => (i === 2 ? { ...q, maturity: '10W' } : q)) };
     const doc2 = toEngineDocument(moved).doc;
     expect(buildWithReuse(doc2).curve!.pillars).toEqual(buildCurve(doc2, { skipInvalid: true }).curve!.pillars);
+  });
+});
+
+describe('deriveBuild row issues', () => {
+  it('puts a negative-forward warning on the rate cell that causes it, not on the kind cell', () => {
+    // Invented demo edit: the 3M deposit at 0.5% under a 2M deposit at 4.36% makes the 2M-3M
+    // forward negative (DF(3M) > DF(2M) for simple ACT/360 deposits).
+    const doc = withRate(3, '0.5');
+    const built = deriveBuild(doc);
+    expect(built.build.warnings.some((w) => w.code === 'negative-forward')).toBe(true);
+    const warned = built.rowIssues.flatMap((issues, row) => Object.entries(issues).filter(([, v]) => v?.severity === 'warning').map(([cell]) => ({ row, cell })));
+    expect(warned.length).toBeGreaterThan(0);
+    for (const w of warned) expect(w.cell, `row ${w.row + 1}`).toBe('rate');
+    expect(built.rowIssues.some((issues) => issues.kind !== undefined)).toBe(false);
   });
 });

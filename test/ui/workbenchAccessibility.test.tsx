@@ -30,7 +30,7 @@ describe('workbench accessibility', () => {
   it.each(['Forward strip', 'Forward grid', 'Quote check'])('the %s tab has no axe-core violations', async (tab) => {
     const { container } = render(<App />);
     fireEvent.click(screen.getByRole('tab', { name: tab }));
-    if (tab === 'Quote check') fireEvent.click(screen.getByRole('button', { name: 'Row 8: show details' }));
+    if (tab === 'Quote check') fireEvent.click(screen.getByRole('button', { name: 'Row 8: show its repricing and schedule' }));
     expect(await violations(container)).toEqual([]);
   });
 

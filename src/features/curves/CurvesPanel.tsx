@@ -1,6 +1,6 @@
 import { INTERPOLATORS } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
-import { METHOD_COLOURS, METHOD_DASH, PALETTE } from '../../charts/palette.ts';
+import { BASE_STYLES, METHOD_STYLES, SCENARIO_OVERLAY_MAX } from '../../charts/palette.ts';
 import { couponTag, rateTag } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useCurveSeries } from '../../hooks/useCurveSeries.ts';
@@ -27,20 +27,21 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
   }
   const tag = rateTag(display.compounding, display.dayCount);
   const xLabel = `Maturity (years from settlement, ${curve.dayCount}${display.axis === 'sqrt' ? ', square-root spaced' : ''})`;
-  const zeroLines: ChartLine[] = [{ id: 'zero', label: 'Zero', tag, colour: PALETTE.zero, points: series.zero }];
-  if (display.showPar) zeroLines.push({ id: 'par', label: 'Par yield', tag: couponTag(display.parFrequency, 'ACT/ACT-ICMA'), colour: PALETTE.par, dash: '7 3', points: series.par });
+  const zeroLines: ChartLine[] = [{ id: 'zero', label: 'Zero', tag, ...BASE_STYLES.zero, points: series.zero }];
+  if (display.showPar) zeroLines.push({ id: 'par', label: 'Par yield', tag: couponTag(display.parFrequency, 'ACT/ACT-ICMA'), ...BASE_STYLES.par, points: series.par });
   const fwdLabel = `${display.forwardTenor} forward`;
   const fwdLines: ChartLine[] = [];
   if (display.showMethodOverlay) {
     for (const m of overlay) {
       if (m.method === curve.interpolation) continue;
-      fwdLines.push({ id: `m-${m.method}`, label: INTERPOLATORS[m.method].label, tag, colour: METHOD_COLOURS[m.method] ?? '#777', dash: METHOD_DASH[m.method] || '5 3', width: 1.4, points: m.points });
+      fwdLines.push({ id: `m-${m.method}`, label: INTERPOLATORS[m.method].label, tag, ...METHOD_STYLES[m.method]!, points: m.points });
     }
   }
-  fwdLines.unshift({ id: 'forward', label: display.showMethodOverlay ? `${fwdLabel} (${INTERPOLATORS[curve.interpolation].label})` : fwdLabel, tag, colour: PALETTE.forward, points: series.forward, width: 2.2 });
-  if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `cont, ${curve.dayCount} (curve clock)`, colour: PALETTE.instantaneous, dash: '2 2', width: 1.5, points: series.instantaneous });
+  fwdLines.unshift({ id: 'forward', label: display.showMethodOverlay ? `${fwdLabel} (${INTERPOLATORS[curve.interpolation].label})` : fwdLabel, tag, ...BASE_STYLES.forward, points: series.forward });
+  if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `cont, ${curve.dayCount} from settlement`, ...BASE_STYLES.instantaneous, points: series.instantaneous });
   zeroLines.push(...scenarioLines.zero);
   fwdLines.push(...scenarioLines.forward);
+  const scenarioNote = scenarioOverlayNote(scenarioLines.notDrawn, scenarioLines.failed);
   const pending = display.showMethodOverlay ? 5 - overlay.length : 0;
   const markers = display.showPar ? series.markers.map((m) => ({ x: m.x, y: m.y, label: `Quote row ${(result.conversion.rowOfQuote[m.quote] ?? 0) + 1}: ${m.kind} ${m.date}` })) : [];
   return (
@@ -50,7 +51,7 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
           <h3>
             Zero curve <span className="tag">{tag}</span>
           </h3>
-          <Legend lines={zeroLines} extra={display.showPar ? 'quotes on the par line' : null} />
+          <Legend lines={zeroLines} extra={display.showPar ? 'quotes on the par line' : null} note={scenarioNote} />
           <RateChart
             name={`Zero curve, ${tag}`}
             description={`Zero rates${display.showPar ? ' and par yields' : ''} against maturity, ${curve.interpolation} interpolation.`}
@@ -62,12 +63,13 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
             xLabel={xLabel}
             yLabel={`Rate (%, ${tag})`}
           />
+          <div className="chart-notes" />
         </div>
         <div className="chart-box">
           <h3>
             Forward curve <span className="tag">{tag}</span>
           </h3>
-          <Legend lines={fwdLines} extra="ticks mark pillar dates" />
+          <Legend lines={fwdLines} extra="ticks mark pillar dates" note={scenarioNote} />
           <RateChart
             name={`Forward curve, ${display.forwardTenor} forwards, ${tag}`}
             description={`${display.forwardTenor} forward rates by start date${display.showInstantaneous ? ', with instantaneous forwards' : ''}${display.showMethodOverlay ? ', with every interpolation method overlaid' : ''}.`}
@@ -79,21 +81,31 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
             xLabel={`Forward start (years from settlement, ${curve.dayCount})`}
             yLabel={`Forward rate (%, ${tag})`}
           />
-          {pending > 0 && <p className="muted small">Building the other methods… ({overlay.length} of 5)</p>}
-          {overlay
-            .filter((m) => m.error)
-            .map((m) => (
-              <p key={m.method} className="muted small">
-                {INTERPOLATORS[m.method].label}: {m.error}
-              </p>
-            ))}
+          <div className="chart-notes">
+            {pending > 0 && <p className="muted small">Building the other methods… ({overlay.length} of 5)</p>}
+            {overlay
+              .filter((m) => m.error)
+              .map((m) => (
+                <p key={m.method} className="muted small">
+                  {INTERPOLATORS[m.method].label}: {m.error}
+                </p>
+              ))}
+          </div>
         </div>
       </div>
     </section>
   );
 }
 
-function Legend({ lines, extra }: { lines: readonly ChartLine[]; extra: string | null }) {
+/** "2 more scenarios not drawn" when the charts' cap is reached, and the scenarios that could not be built. */
+export function scenarioOverlayNote(notDrawn: number, failed: readonly string[]): string | null {
+  const parts: string[] = [];
+  if (notDrawn > 0) parts.push(`${notDrawn} more scenario${notDrawn === 1 ? '' : 's'} not drawn (the charts show the first ${SCENARIO_OVERLAY_MAX}; all are in the Scenarios section)`);
+  if (failed.length > 0) parts.push(`not drawn, could not be built: ${failed.join(', ')} (see the Scenarios section)`);
+  return parts.length ? parts.join('; ') : null;
+}
+
+function Legend({ lines, extra, note }: { lines: readonly ChartLine[]; extra: string | null; note: string | null }) {
   return (
     <ul className="legend">
       {lines.map((l) => (
@@ -105,6 +117,7 @@ function Legend({ lines, extra }: { lines: readonly ChartLine[]; extra: string |
         </li>
       ))}
       {extra && <li className="muted">{extra}; dashed past the last pillar</li>}
+      {note && <li className="legend-note" data-testid="scenarios-not-drawn">{note}</li>}
     </ul>
   );
 }

@@ -10,10 +10,10 @@ import {
   type Repricing,
   type Workspace,
 } from '../../core/index.ts';
-import { num, pct } from '../../components/format.ts';
-import { sampleGrid, zeroSamples } from '../../core/index.ts';
+import { nearZero, num, pct, rowNumber } from '../../components/format.ts';
+import { PRICE_ACCEPTANCE, RATE_ACCEPTANCE, sampleGrid, zeroSamples } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
-import { PALETTE } from '../../charts/palette.ts';
+import { BASE_STYLES } from '../../charts/palette.ts';
 import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
 import type { Curve } from '../../core/index.ts';
 import { RichCheapTable } from './RichCheapTable.tsx';
@@ -21,6 +21,8 @@ import { RichCheapTable } from './RichCheapTable.tsx';
 export interface FitPanelProps {
   /** The validated workspace whose enabled quotes are fitted (null: nothing to fit yet). */
   readonly workspace: Workspace | null;
+  /** Sheet row of each engine quote (rowOfQuote[i] for quotes[i]), so rows are numbered as the sheet numbers them (from 1). */
+  readonly rowOfQuote?: readonly number[];
   /** The exact bootstrap's repricing, shown beside the fit's residuals (optional). */
   readonly repricing?: readonly Repricing[];
   /** The exact bootstrap's curve, drawn with the fit on one zero chart (optional). */
@@ -68,7 +70,7 @@ export function FitPanel(props: FitPanelProps) {
     const text = weightText[index];
     if (text === undefined) return null;
     const w = Number(text);
-    return text.trim() === '' || !Number.isFinite(w) || w < 0 ? `quotes[${index}] weight: type a number 0 or above (0 leaves the quote out); "${text}" is kept but not used` : null;
+    return text.trim() === '' || !Number.isFinite(w) || w < 0 ? `Row ${rowNumber(props.rowOfQuote, index)} weight: type a number 0 or above (0 leaves the quote out); "${text}" is kept but not used` : null;
   };
 
   return (
@@ -99,13 +101,13 @@ export function FitPanel(props: FitPanelProps) {
       {ws && model === 'none' && <p role="status">No fit chosen: the exact bootstrap is the curve.</p>}
       {result && !result.ok && (
         <p role="alert" className="error">
-          {result.errors.map((e) => e.message).join('; ')}
+          {result.errors.map((e) => rowWords(e.message, props.rowOfQuote)).join('; ')}
         </p>
       )}
       {result && result.ok && (
         <>
           <p role="status" className={result.value.converged ? undefined : 'warning'}>
-            {result.value.report}
+            {rowWords(result.value.report, props.rowOfQuote)}
           </p>
           <FitChart fit={result.value.curve} bootstrap={props.bootstrap ?? null} label={FIT_MODEL_LABEL[result.value.model]} />
           <table className="data" aria-label="Fitted parameters">
@@ -124,6 +126,7 @@ export function FitPanel(props: FitPanelProps) {
               <tr><th scope="row">Weighted RMS error (bp)</th><td className="n">{num(result.value.rmsBp, 2)}</td></tr>
             </tbody>
           </table>
+          <div className="table-scroll" tabIndex={0} role="region" aria-label="Fit residuals (scrolls sideways)">
           <table className="data" aria-label="Fit residuals">
             <caption>Each quote against the fit (residual = model minus market); the exact bootstrap's repricing error beside it</caption>
             <thead>
@@ -146,16 +149,16 @@ export function FitPanel(props: FitPanelProps) {
                 const err = weightError(r.index);
                 return (
                   <tr key={r.index} data-quote={r.index}>
-                    <th scope="row">quotes[{r.index}] {r.kind}</th>
+                    <th scope="row">Row {rowNumber(props.rowOfQuote, r.index)} {r.kind}</th>
                     <td>
-                      <input type="checkbox" aria-label={`include quotes[${r.index}] in the fit`} checked={!exclude.includes(r.index)} onChange={(e) => toggle(r.index, e.target.checked)} />
+                      <input type="checkbox" aria-label={`include row ${rowNumber(props.rowOfQuote, r.index)} in the fit`} checked={!exclude.includes(r.index)} onChange={(e) => toggle(r.index, e.target.checked)} />
                     </td>
                     <td>
                       <input
                         type="text"
                         inputMode="decimal"
                         size={4}
-                        aria-label={`weight of quotes[${r.index}]`}
+                        aria-label={`weight of row ${rowNumber(props.rowOfQuote, r.index)}`}
                         aria-invalid={err ? true : undefined}
                         title={err ?? undefined}
                         value={weightText[r.index] ?? String(weights[r.index] ?? 1)}
@@ -168,16 +171,17 @@ export function FitPanel(props: FitPanelProps) {
                     <td className="n">{pct(r.modelYield)}</td>
                     <td className="n" data-field="residual-bp">{num(r.residualBp, 2)}</td>
                     <td className="n" data-field="residual-price">{num(r.residualPrice, 4)}</td>
-                    <td className="n">{rep ? `${rep.repricingError.toExponential(1)} (${rep.unit === 'price' ? 'per 100 face' : 'decimal rate'})` : '\u2014'}</td>
+                    <RepricingCell rep={rep} />
                   </tr>
                 );
               })}
             </tbody>
           </table>
+          </div>
           {Object.keys(weightText).map((k) => weightError(Number(k))).filter((m): m is string => m !== null).map((m) => (
             <p key={m} role="alert" className="error">{m}</p>
           ))}
-          <RichCheapTable entries={result.value.richCheap} yieldTag="ICMA yield at each bond's coupon frequency" />
+          <RichCheapTable rowOfQuote={props.rowOfQuote} entries={result.value.richCheap} yieldTag="ICMA yield at each bond's coupon frequency" />
         </>
       )}
     </section>
@@ -196,8 +200,8 @@ function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | nu
     if (!last) return null;
     const grid = sampleGrid(fit.settlement, last.date, 160, fit.dayCount, fit.dayCount, { n: 3, unit: 'M' });
     const tag = `cont, ${fit.dayCount}`;
-    const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, colour: PALETTE.forward, width: 2.2, points: points(fit, grid) }];
-    if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, colour: PALETTE.zero, dash: '5 3', points: points(bootstrap, grid) });
+    const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, ...BASE_STYLES.forward, points: points(fit, grid) }];
+    if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, ...BASE_STYLES.zero, dash: '6 3', points: points(bootstrap, grid) });
     return { lines, xMax: last.t, lastT: Math.max(fit.lastT, bootstrap?.lastT ?? 0), tag };
   }, [fit, bootstrap, label]);
   if (!chart) return null;
@@ -218,4 +222,24 @@ function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | nu
       />
     </div>
   );
+}
+
+/**
+ * The exact bootstrap's repricing error beside a residual: bp for a rate quote, per 100 face for a
+ * price quote; inside the bootstrap's acceptance it is an exact reprice, shown as zero with the
+ * computed value and the tolerance in the tooltip.
+ */
+function RepricingCell({ rep }: { rep: Repricing | undefined }) {
+  if (!rep) return <td className="n">{'\u2014'}</td>;
+  const e = rep.unit === 'price' ? nearZero(rep.repricingError, 6, 'per 100 face', PRICE_ACCEPTANCE) : nearZero(rep.repricingError * 1e4, 4, 'bp', RATE_ACCEPTANCE * 1e4);
+  return (
+    <td className="n" title={e.title}>
+      {e.text} {rep.unit === 'price' ? 'per 100' : 'bp'}
+    </td>
+  );
+}
+
+/** The core's `quotes[i]` as the sheet's row number ("row 19"), so every table and message counts rows from 1. */
+function rowWords(text: string, rowOfQuote: readonly number[] | undefined): string {
+  return text.replace(/quotes\[(\d+)\]/g, (_, q: string) => `row ${rowNumber(rowOfQuote, Number(q))}`);
 }

@@ -1,20 +1,21 @@
 import type { RichCheapEntry } from '../../core/index.ts';
-import { num, pct } from '../../components/format.ts';
+import { num, pct, rowNumber } from '../../components/format.ts';
 
 /**
  * Bonds against the fitted curve, richest first. Rich: the market price is above the model price
  * (the market yield below the model yield).
  */
-export function RichCheapTable({ entries, yieldTag }: { entries: readonly RichCheapEntry[]; yieldTag: string }) {
+export function RichCheapTable({ entries, yieldTag, rowOfQuote }: { entries: readonly RichCheapEntry[]; yieldTag: string; rowOfQuote?: readonly number[] | undefined }) {
   if (entries.length === 0) return <p className="muted">No bond quotes to rank: rich and cheap apply to bonds.</p>;
   return (
+    <div className="table-scroll" tabIndex={0} role="region" aria-label="Rich and cheap bonds (scrolls sideways)">
     <table className="data" aria-label="Rich and cheap bonds">
       <caption>
         Bonds by richness to the fit (market minus model price); yields <span className="tag">{yieldTag}</span>
       </caption>
       <thead>
         <tr>
-          <th scope="col">Quote</th>
+          <th scope="col">Row</th>
           <th scope="col">Maturity</th>
           <th scope="col">Coupon (% per year)</th>
           <th scope="col">Market minus model (per 100 face)</th>
@@ -25,7 +26,7 @@ export function RichCheapTable({ entries, yieldTag }: { entries: readonly RichCh
       <tbody>
         {entries.map((e) => (
           <tr key={e.index} data-quote={e.index} className={e.included ? undefined : 'muted'}>
-            <th scope="row">quotes[{e.index}]</th>
+            <th scope="row">Row {rowNumber(rowOfQuote, e.index)}</th>
             <td>{e.maturity}</td>
             <td className="n">{pct(e.coupon, 3)}</td>
             <td className="n" data-field="richness">{num(e.richnessPrice, 4)}</td>
@@ -38,5 +39,6 @@ export function RichCheapTable({ entries, yieldTag }: { entries: readonly RichCh
         ))}
       </tbody>
     </table>
+    </div>
   );
 }

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import type { EffectRow } from '../../core/index.ts';
 import type { CurveTableConventions, CurveTableRow } from '../../core/index.ts';
-import { COMPOUNDING_LABEL } from '../../core/index.ts';
+import { COMPOUNDING_LABEL, INTERPOLATORS } from '../../core/index.ts';
 import { CAUTION_TEXT } from '../../components/Caution.tsx';
 import { formatBp, formatPct } from '../scenarios/formatChange.ts';
 import './printSummary.css';
@@ -80,7 +80,7 @@ export function PrintSummary(p: PrintSummaryProps) {
         <div>
           <h1>{p.title}</h1>
           <p className="ps-settings">
-            Settlement <strong>{p.settlement}</strong> · curve day count {p.curveDayCount} · interpolation {p.interpolation} · extrapolation {p.extrapolation}
+            Settlement <strong>{p.settlement}</strong> · curve day count {p.curveDayCount} · {methodWords(p.interpolation)} interpolation · {p.extrapolation === 'none' ? 'no extrapolation past the last pillar' : p.extrapolation === 'flat-forward' ? 'flat-forward extrapolation' : `extrapolation ${p.extrapolation}`}
           </p>
         </div>
         <dl className="ps-trace">
@@ -178,11 +178,17 @@ export function PrintSummary(p: PrintSummaryProps) {
         </section>
       </div>
       <section className="ps-roll" aria-label="Roll versus term">
-        <h2>Roll versus term</h2> {p.rollResult ?? <span className="ps-muted">no result</span>}
+        <h2>Roll versus term</h2> <div className="ps-roll-body">{p.rollResult ?? <span className="ps-muted">no result</span>}</div>
       </section>
       <p className="ps-caution" role="note">
         <strong>Caution.</strong> {CAUTION_TEXT}
       </p>
     </article>
   );
+}
+
+/** An interpolation method by its label ("Monotone convex"), not its identifier. */
+function methodWords(id: string): string {
+  const known = (INTERPOLATORS as Readonly<Record<string, { label: string } | undefined>>)[id];
+  return known ? known.label : id;
 }

@@ -13,6 +13,7 @@ import { NoteEditor } from './NoteEditor.tsx';
 import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
 import { PrintSummary } from './PrintSummary.tsx';
 import '../scenarios/scenarios.css';
+import { BASE_STYLES, SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
 
 /** The printed page's heading when the workspace names none. */
 export const DEFAULT_PRINT_TITLE = 'Yield-curve summary';
@@ -22,13 +23,13 @@ const setPrintTitle = (text: string): void =>
   // One undo step per stretch of typing (merge key 'print-title'), ended when the field loses focus.
   setViewValues({ printTitle: text.slice(0, PRINT_TITLE_CHARS) }, 'edit print title', 'print-title');
 
-const COLOURS = ['#1d5fa6', '#c4581d', '#187a5e', '#8a5a00', '#6b4fa0'];
 
 /**
- * The printed summary wired to the workbench: preview on screen, "Print summary" prints it alone.
- * `rollResult` is the roll-versus-term result line, when the workbench passes one.
+ * The one-page summary of the workbench's current state (curve, key rates, the first scenarios,
+ * the note, the roll-versus-term result): what the Print section previews and what any print of
+ * the workbench gives (see PrintOnDemand).
  */
-export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
+export function WorkbenchPrintSummary({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
   const doc = useAppStore((s) => s.workspace);
   // The print title lives in the document's view: saved, undone, shared in the link and in files.
   const title = viewText(doc, 'printTitle', DEFAULT_PRINT_TITLE);
@@ -39,15 +40,16 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
     if (!curve || !ws) return null;
     const conv = tableConventionsFromDisplay(display);
     const { scenarios } = validateScenarios(doc.scenarios);
-    const moved = scenarios.slice(0, 4).flatMap((s) => {
+    const moved = scenarios.slice(0, SCENARIO_OVERLAY_MAX).flatMap((s) => {
       const r = applyScenario(s, ws, curve, { skipInvalid: true });
       return r.ok ? [{ name: s.name, curve: r.value.curve }] : [];
     });
     const series = (kind: 'zero' | 'forward'): PrintSeries[] =>
+      // The same styles as the workbench's charts: the base line solid, each scenario its own colour and dash.
       [{ name: 'Base', curve }, ...moved].map((c, i) => ({
         label: c.name,
-        colour: COLOURS[i % COLOURS.length]!,
-        ...(i > 0 ? { dash: '4 2' } : {}),
+        colour: (i === 0 ? BASE_STYLES.zero : SCENARIO_STYLES[i - 1]!).colour,
+        ...(i > 0 ? { dash: SCENARIO_STYLES[i - 1]!.dash } : {}),
         points: curveSeries(c.curve, display, [])[kind].map((p) => ({ x: p.x, y: p.y })),
       }));
     const { xMax, lastT } = curveSeries(curve, display, []);
@@ -63,7 +65,7 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
   }, [curve, ws, display, doc.scenarios]);
   if (!props || !curve || !ws) return <p className="empty">No curve to print: {result.fatal}</p>;
   const { snapshots: _s, ...linked } = doc as unknown as Record<string, unknown>;
-  const summary = (
+  return (
     <PrintSummary
       title={title}
       note={typeof doc.note === 'string' ? doc.note : ''}
@@ -78,6 +80,16 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
       {...props}
     />
   );
+}
+
+/**
+ * The printed summary wired to the workbench: preview on screen, "Print summary" prints it alone.
+ * `rollResult` is the roll-versus-term result line, when the workbench passes one.
+ */
+export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
+  const doc = useAppStore((s) => s.workspace);
+  const title = useAppStore((st) => viewText(st.workspace, 'printTitle', DEFAULT_PRINT_TITLE));
+  const summary = <WorkbenchPrintSummary result={result} rollResult={rollResult} />;
   return (
     <section className="print-tab" aria-label="Print">
       <div className="settings">

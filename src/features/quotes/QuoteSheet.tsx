@@ -114,12 +114,22 @@ const SheetCell = memo(function SheetCell({ rowId, column: c, index, value, seve
   );
 });
 
+/**
+ * The row number's action: selects the row, opens the Quote check section (its repricing, and the
+ * schedule of a bond or swap) and brings that section into view.
+ */
+function showRowDetails(rowId: string): void {
+  const { selectRow, setActiveTab } = useAppStore.getState();
+  selectRow(rowId);
+  setActiveTab('quote-check');
+  requestAnimationFrame(() => document.getElementById('tabpanel-quote-check')?.scrollIntoView({ block: 'nearest', behavior: 'auto' }));
+}
+
 const QuoteRowView = memo(
   function QuoteRowView({ row, index, issues, unit, selected, inCurve }: RowViewProps) {
     const setRowEnabled = useAppStore((s) => s.setRowEnabled);
     const deleteRow = useAppStore((s) => s.deleteRow);
     const addRow = useAppStore((s) => s.addRow);
-    const selectRow = useAppStore((s) => s.selectRow);
     const n = index + 1;
     const blank = QUOTE_COLUMNS.every((c) => row[c] === '');
     const messages = rowMessages(issues);
@@ -129,7 +139,7 @@ const QuoteRowView = memo(
       <>
         <tr role="row" aria-rowindex={n + 1} className={`sheet-row ${status}${selected ? ' selected' : ''}`} aria-selected={selected} data-row-key={row.id} data-row-index={index}>
           <td role="gridcell" className="rownum">
-            <button type="button" className="linklike" onClick={() => selectRow(row.id)} aria-label={`Row ${n}: show details`} title="Show repricing and schedule">
+            <button type="button" className="linklike" onClick={() => showRowDetails(row.id)} aria-label={`Row ${n}: show its repricing and schedule`} title="Show repricing and schedule (opens Quote check)">
               {n}
             </button>
           </td>
@@ -261,6 +271,13 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
 
   const nodes = result.build.curve?.pillars.length ?? 0;
   const leftOut = result.invalidCount;
+  // The "rows left out" count is a link: it focuses the first wrong cell of the first such row.
+  const goToFirstError = (): void => {
+    const row = result.rowIssues.findIndex((issues) => QUOTE_COLUMNS.some((c) => issues[c]?.severity === 'error'));
+    if (row < 0) return;
+    const column = QUOTE_COLUMNS.find((c) => result.rowIssues[row]![c]?.severity === 'error')!;
+    moveTo(row, column);
+  };
   return (
     <section className="panel sheet-panel" aria-labelledby="sheet-title">
       <div className="panel-head">
@@ -317,7 +334,10 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         {leftOut > 0 && (
           <span className="left-out">
             {' '}
-            · <strong>{leftOut}</strong> {leftOut === 1 ? 'row' : 'rows'} left out with errors
+            ·{' '}
+            <button type="button" className="linklike left-out-link" onClick={goToFirstError} title="Go to the first row left out">
+              <strong>{leftOut}</strong> {leftOut === 1 ? 'row' : 'rows'} left out with errors
+            </button>
           </span>
         )}
         {result.disabledCount > 0 && <span> · {result.disabledCount} switched off</span>}

@@ -15,7 +15,7 @@ import {
   type DayCount,
   type Workspace,
 } from '../../core/index.ts';
-import { couponTag, num, pct } from '../../components/format.ts';
+import { couponTag, nearZero, num, pct, rowNumber } from '../../components/format.ts';
 
 export interface BondAnalyticsPanelProps {
   /** The bootstrapped curve the bond is priced on (null: no curve yet). */
@@ -64,7 +64,7 @@ function readForm(f: BondForm, settlement: string): BondInput | string {
  * key-rate durations on a stated grid and bump, z-spread and risk at a market quote when given,
  * and the DV01 to each input quote. Every figure carries its unit.
  */
-export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormChange }: BondAnalyticsPanelProps) {
+export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormChange, rowOfQuote }: BondAnalyticsPanelProps & { readonly rowOfQuote?: readonly number[] }) {
   const [form, setForm] = useState<BondForm>({ ...DEFAULT_FORM, ...initial });
   const set = (patch: Partial<BondForm>): void => {
     const next = { ...form, ...patch };
@@ -149,10 +149,10 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
           {perQuote && perQuote.ok && (
             <table className="data" aria-label="DV01 to each quote">
               <caption>DV01 to each input quote: each quote moved by ±1 bp through its own yield and the curve rebuilt (per 100 face per bp)</caption>
-              <thead><tr><th scope="col">Quote</th><th scope="col">Maturity</th><th scope="col">Moved through</th><th scope="col">DV01 (per 100 face per bp)</th></tr></thead>
+              <thead><tr><th scope="col">Row</th><th scope="col">Maturity</th><th scope="col">Moved through</th><th scope="col">DV01 (per 100 face per bp)</th></tr></thead>
               <tbody>
                 {perQuote.value.map((q) => (
-                  <tr key={q.index} data-quote={q.index}><th scope="row">quotes[{q.index}] {q.kind}</th><td>{q.maturity}</td><td>{q.yieldLabel}</td><td className="n">{num(q.dv01, 5)}</td></tr>
+                  <tr key={q.index} data-quote={q.index}><th scope="row">Row {rowNumber(rowOfQuote, q.index)} {q.kind}</th><td>{q.maturity}</td><td>{q.yieldLabel}</td><td className="n" title={nearZero(q.dv01, 5, 'per 100 face per bp').title}>{nearZero(q.dv01, 5, 'per 100 face per bp').text}</td></tr>
                 ))}
               </tbody>
             </table>

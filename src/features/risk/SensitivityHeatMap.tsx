@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { INTERPOLATIONS, INTERPOLATORS, parseTenor, sensitivityMapFor, type InterpolationId, type Workspace } from '../../core/index.ts';
-import { num, pct, rateTag } from '../../components/format.ts';
+import { nearZero, pct, rateTag, rowNumber } from '../../components/format.ts';
 
 export interface SensitivityHeatMapProps {
   /** The validated workspace whose enabled quotes build the curve (null: nothing yet). */
@@ -10,6 +10,8 @@ export interface SensitivityHeatMapProps {
   /** Forward tenor and the step between forward starts (defaults 3M and 1Y). */
   readonly tenor?: string;
   readonly step?: string;
+  /** Sheet row of each engine quote (rowOfQuote[i] for quotes[i]), so columns are numbered as the sheet numbers rows (from 1). */
+  readonly rowOfQuote?: readonly number[];
   /** Called when the user changes the interpolation, tenor or step (to keep the choice in the workspace view). */
   readonly onSettingsChange?: (settings: { interpolation: InterpolationId; tenor: string; step: string }) => void;
 }
@@ -31,11 +33,11 @@ function cellColour(v: number, scale: number): string {
 
 /**
  * Which quote drives each forward: rows are forwards of one tenor starting every step, columns the
- * quotes in maturity order, each cell dF/dq in bp of forward per bp of the quote's own yield
+ * quotes in maturity order, each cell the forward's move in bp per bp of the quote's own yield
  * (computed from the bootstrap). Switching the interpolation shows which methods keep a quote's
  * influence local.
  */
-export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', step = '1Y', onSettingsChange }: SensitivityHeatMapProps) {
+export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', step = '1Y', rowOfQuote, onSettingsChange }: SensitivityHeatMapProps) {
   const [method, setMethodState] = useState<InterpolationId>(interpolation ?? workspace?.curve.interpolation ?? 'monotone-convex');
   const [fwdTenor, setTenorState] = useState(tenor);
   const [fwdStep, setStepState] = useState(step);
@@ -92,19 +94,24 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
       {!workspace && <p role="status">No valid workspace yet.</p>}
       {out && !out.ok && <p role="alert" className="error">{out.errors.map((e) => e.message).join('; ')}</p>}
       {out && out.ok && (
-        <div className="heatmap-scroll">
+        <p className="muted small">
+          How far each forward moves when one quote moves 1 bp (a price quote moved through its own yield), computed from the bootstrap. Blue: the forward
+          rises with the quote; orange: it falls. Figures below 0.005 bp per bp show as 0.00; the exact figure is in each cell&rsquo;s tooltip.
+        </p>
+      )}
+      {out && out.ok && (
+        <div className="heatmap-scroll" tabIndex={0} role="region" aria-label="Forward sensitivities (scrolls)">
           <table className="data heatmap" aria-label="Forward sensitivities">
             <caption>
-              dF/dq in bp of forward per bp of quote (a price quote moved through its own yield); forwards <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span>, computed
-              from the bootstrap (dF/dnodes × (dq/dnodes)⁻¹). Blue: the forward rises with the quote; orange: it falls.
+              In bp of forward per bp of quote; forwards <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span>
             </caption>
             <thead>
               <tr>
                 <th scope="col">Forward</th>
                 <th scope="col">Rate <span className="tag">{rateTag(out.value.map.compounding, out.value.map.dayCount)}</span></th>
                 {out.value.map.columns.map((c) => (
-                  <th key={c.index} scope="col" title={`quotes[${c.index}] ${c.kind} ${c.maturity}, moved through its ${c.yieldLabel}`}>
-                    {c.kind} {c.maturity}
+                  <th key={c.index} scope="col" title={`Row ${rowNumber(rowOfQuote, c.index)}: ${c.kind} ${c.maturity}, moved through its ${c.yieldLabel}`}>
+                    <span className="muted">Row {rowNumber(rowOfQuote, c.index)}</span> {c.kind} {c.maturity}
                   </th>
                 ))}
               </tr>
@@ -116,9 +123,17 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
                   <td className="n">{pct(r.rate)}</td>
                   {out.value.map.columns.map((c, k) => {
                     const v = out.value.map.values[i * out.value.map.columns.length + k]!;
+                    const shown = nearZero(v, 2, 'bp per bp');
                     return (
-                      <td key={c.index} className="n cell" style={{ background: cellColour(v, scale) }} data-quote={c.index} aria-label={`${r.start} forward to quotes[${c.index}]: ${num(v, 3)} bp per bp`}>
-                        {num(v, 2)}
+                      <td
+                        key={c.index}
+                        className="n cell"
+                        style={{ background: cellColour(v, scale) }}
+                        data-quote={c.index}
+                        title={shown.title}
+                        aria-label={`${r.start} forward to row ${rowNumber(rowOfQuote, c.index)}: ${nearZero(v, 3, 'bp per bp').text} bp per bp`}
+                      >
+                        {shown.text}
                       </td>
                     );
                   })}

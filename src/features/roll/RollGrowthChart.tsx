@@ -2,6 +2,7 @@ import { scaleLinear } from 'd3-scale';
 import { curveLinear, curveStepAfter, line } from 'd3-shape';
 import { useId } from 'react';
 import type { GrowthSeries, StrategyDescription, StrategyId } from '../../core/analysis/rollVsTerm.ts';
+import { useChartWidth } from '../../charts/useChartWidth.ts';
 
 /** Colours and dashes per strategy: told apart by dash as well as colour, so they survive a grey print. */
 export const ROLL_STYLE: Readonly<Record<StrategyId, { colour: string; dash: string; width: number }>> = {
@@ -11,7 +12,8 @@ export const ROLL_STYLE: Readonly<Record<StrategyId, { colour: string; dash: str
   riding: { colour: '#a0521c', dash: '8 3 2 3', width: 1.8 },
 };
 
-const W = 560;
+/** Drawing width before the box is measured; then the box's own width, so the text keeps its 10 px. */
+const W0 = 560;
 const H = 230;
 const M = { top: 10, right: 14, bottom: 34, left: 78 };
 const moneyTick = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
@@ -32,6 +34,7 @@ export interface RollGrowthChartProps {
  */
 export function RollGrowthChart({ unit, series, strategies, viewLabel, horizon }: RollGrowthChartProps) {
   const id = useId();
+  const [boxRef, W] = useChartWidth<HTMLElement>(W0);
   const all = series.flatMap((s) => s.points);
   const xMax = Math.max(...all.map((p) => p.t), 1e-6);
   const yMin = Math.min(...all.map((p) => p.value));
@@ -42,8 +45,8 @@ export function RollGrowthChart({ unit, series, strategies, viewLabel, horizon }
   const label = (sid: StrategyId): string => strategies.find((s) => s.id === sid)?.label ?? sid;
   const finals = series.map((s) => `${label(s.id)} ${moneyTick.format(s.points[s.points.length - 1]?.value ?? 0)}`).join('; ');
   return (
-    <figure className="roll-chart">
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby={`${id}-t ${id}-d`} preserveAspectRatio="xMidYMid meet">
+    <figure className="roll-chart" ref={boxRef}>
+      <svg viewBox={`0 0 ${W} ${H}`} width={W} height={H} role="img" aria-labelledby={`${id}-t ${id}-d`} preserveAspectRatio="xMidYMid meet">
         <title id={`${id}-t`}>{`Growth of the amount to ${horizon} under ${viewLabel}`}</title>
         <desc id={`${id}-d`}>{`Value in ${unit} against years from settlement (ACT/365F). At the horizon: ${finals}.`}</desc>
         <g className="roll-grid">
@@ -55,7 +58,7 @@ export function RollGrowthChart({ unit, series, strategies, viewLabel, horizon }
               </text>
             </g>
           ))}
-          {x.ticks(Math.min(8, Math.max(2, Math.ceil(xMax * 2)))).map((v) => (
+          {x.ticks(Math.min(8, Math.max(2, Math.ceil(xMax * 2)), Math.floor((W - M.left - M.right) / 50))).map((v) => (
             <g key={v}>
               <line x1={x(v)} x2={x(v)} y1={M.top} y2={H - M.bottom} />
               <text x={x(v)} y={H - M.bottom + 14} textAnchor="middle">

@@ -12,8 +12,8 @@ import {
 } from '../../core/analysis/rollVsTerm.ts';
 import { download, safeFileName } from '../../components/download.ts';
 import { RollGrowthChart } from './RollGrowthChart.tsx';
-import { rollWords } from './rollWords.ts';
 import { RollInputs } from './RollInputs.tsx';
+import { inFieldWords } from './fieldWords.ts';
 import { BreakEvenTables, RidingSplitTable, RollLegsTable, RollResultsTable } from './RollTables.tsx';
 import './roll.css';
 
@@ -60,7 +60,8 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
     ]),
   ];
   const fieldErrors: Record<string, string> = {};
-  if (result && !result.ok) for (const e of result.errors) fieldErrors[e.path] ??= rollWords(e.message);
+  // Messages name fields by their labels ("Horizon: ..."), never by document paths (strategy.horizon).
+  if (result && !result.ok) for (const e of result.errors) fieldErrors[e.path] ??= inFieldWords(e.message);
   const analysis = result && result.ok ? result.value : null;
   const conventions = tagOverride ?? `roll legs ${rateTag('simple', strategy.rollDayCount)}; returns ann, ACT/365F`;
   return (
@@ -75,7 +76,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
       {documentErrors.length > 0 ? (
         <ul className="roll-errors" role="alert" aria-label="Problems in the saved strategy">
           {documentErrors.map((e) => (
-            <li key={e.path + e.message}>{rollWords(e.message)} (the default is used until it is corrected)</li>
+            <li key={e.path + e.message}>{inFieldWords(e.message)} (the default is used until it is corrected)</li>
           ))}
         </ul>
       ) : null}
@@ -88,7 +89,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
       {result && !result.ok ? (
         <ul className="roll-errors" role="alert" aria-label="Why there is no comparison">
           {result.errors.map((e) => (
-            <li key={e.path + e.message}>{rollWords(e.message)}</li>
+            <li key={e.path + e.message}>{inFieldWords(e.message)}</li>
           ))}
         </ul>
       ) : null}
@@ -113,7 +114,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
           {analysis.warnings.length > 0 ? (
             <ul className="roll-warnings" aria-label="Notes">
               {analysis.warnings.map((w) => (
-                <li key={w.path + w.message}>{rollWords(w.message)}</li>
+                <li key={w.path + w.message}>{inFieldWords(w.message)}</li>
               ))}
             </ul>
           ) : null}

@@ -1,7 +1,7 @@
-import { rollWords } from './rollWords.ts';
 import { useCallback, useMemo } from 'react';
 import { applyScenario } from '../../core/analysis/scenarios.ts';
-import { analyseRollVsTerm, rollSentence, validateStrategy, type StrategyInputs } from '../../core/analysis/rollVsTerm.ts';
+import { analyseRollVsTerm, formatBp, formatMoney, formatMoneySigned, formatRate, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/analysis/rollVsTerm.ts';
+import { inFieldWords } from './fieldWords.ts';
 import type { Curve } from '../../core/index.ts';
 import { validateScenarios } from '../../core/export/exports.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
@@ -50,12 +50,65 @@ export function RollResultLine({ result }: { result: WorkbenchBuild }) {
   const strategy = useMemo(() => validateStrategy(raw).strategy, [raw]);
   const scenarios = useScenarioCurves(result);
   const curve = result.build.curve;
-  const text = useMemo(() => {
+  const out = useMemo(() => {
     if (!curve) return null;
     const r = analyseRollVsTerm(curve, strategy, scenarios);
-    if (!r.ok) return `No comparison: ${r.errors[0] ? rollWords(r.errors[0].message) : 'the inputs do not fit the curve'}`;
+    if (!r.ok) return { text: `No comparison: ${inFieldWords(r.errors[0]?.message ?? 'the inputs do not fit the curve')}`, analysis: null };
     const a = r.value;
-    return rollSentence({ view: a.views[a.chosen]!, strategies: a.strategies, breakEvens: a.breakEvens, horizon: a.horizon, rollTenor: a.rollTenor, rollDayCount: a.rollDayCount, legCount: a.legs.length, moneyUnit: a.moneyUnit });
+    return { text: rollSentence({ view: a.views[a.chosen]!, strategies: a.strategies, breakEvens: a.breakEvens, horizon: a.horizon, rollTenor: a.rollTenor, rollDayCount: a.rollDayCount, legCount: a.legs.length, moneyUnit: a.moneyUnit }), analysis: a };
   }, [curve, strategy, scenarios]);
-  return text === null ? null : <span className="roll-result-line">{text}</span>;
+  if (out === null) return null;
+  return (
+    <>
+      <span className="roll-result-line">{out.text}</span>
+      {out.analysis ? <RollPrintDetail analysis={out.analysis} /> : null}
+    </>
+  );
+}
+
+/** How many legs of the short-rate path the printed page lists before it says how many more there are. */
+const PRINT_PATH_LEGS = 12;
+
+/**
+ * The printed page's roll-versus-term table under the chosen view (value at the horizon, return,
+ * against rolling, for each strategy) and the user's short-rate path, leg by leg.
+ */
+function RollPrintDetail({ analysis: a }: { analysis: RollAnalysis }) {
+  const view = a.views[a.chosen]!;
+  const path = a.views.find((v) => v.id === 'path');
+  const rates = path ? path.legRates : [];
+  const shown = rates.slice(0, PRINT_PATH_LEGS).map((r) => formatRate(r, 2).replace(' %', ''));
+  return (
+    <div className="ps-roll-detail">
+      <table className="ps-table ps-roll-table" aria-label="Roll versus term under the chosen view">
+        <thead>
+          <tr>
+            <th scope="col">Strategy <span className="ps-unit">{view.label}</span></th>
+            <th scope="col">At {a.horizon} <span className="ps-unit">{a.moneyUnit}</span></th>
+            <th scope="col">Return <span className="ps-unit">% {RETURN_TAG}</span></th>
+            <th scope="col">Against rolling <span className="ps-unit">{a.moneyUnit}, bp a year</span></th>
+          </tr>
+        </thead>
+        <tbody>
+          {a.strategies.map((s) => {
+            const o = view.strategies.find((x) => x.id === s.id)!;
+            return (
+              <tr key={s.id}>
+                <th scope="row">{s.label}</th>
+                <td>{formatMoney(o.terminal)}</td>
+                <td>{formatRate(o.annualReturn).replace(' %', '')}</td>
+                <td>{s.id === 'roll' ? '\u2014' : `${formatMoneySigned(o.vsRoll)} \u00b7 ${formatBp(o.vsRollBp)}`}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      {path ? (
+        <p className="ps-roll-path">
+          <strong>Your short-rate path</strong> <span className="ps-unit">({a.rollTenor} legs, % simple {a.rollDayCount}; leg 1 bought today)</span>: {shown.join(', ')}
+          {rates.length > shown.length ? ` \u2026 and ${rates.length - shown.length} more legs` : ''}
+        </p>
+      ) : null}
+    </div>
+  );
 }

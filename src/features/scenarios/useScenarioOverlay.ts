@@ -7,16 +7,14 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import { useAppStore } from '../../state/store.ts';
 
-/** Colours and dashes of the scenario lines drawn over the base curve (at most four). */
-export const SCENARIO_COLOURS = ['#c4581d', '#187a5e', '#6b4fa0', '#8a5a00'] as const;
-export const SCENARIO_OVERLAY_MAX = 4;
+import { SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
 const BUILD = { skipInvalid: true } as const;
 
 /**
- * Lines of the first four scenarios for the zero and forward charts (each scenario's curve from the
- * core, sampled like the base curve), with the scenario's name in the legend. Empty without a curve.
+ * Lines of the first SCENARIO_OVERLAY_MAX scenarios for the zero and forward charts (each scenario's curve from the
+ * core, sampled like the base curve), with the scenario's name in the legend, and how many scenarios were left undrawn (past the cap, or failing to build: by name). Empty without a curve.
  */
-export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[]; forward: ChartLine[] } {
+export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[]; forward: ChartLine[]; notDrawn: number; failed: string[] } {
   const value = useAppStore((s) => s.workspace.scenarios);
   const display = useAppStore((s) => s.workspace.display);
   const curve = result.build.curve;
@@ -24,18 +22,23 @@ export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[];
   return useMemo(() => {
     const zero: ChartLine[] = [];
     const forward: ChartLine[] = [];
-    if (!curve || !ws) return { zero, forward };
+    const failed: string[] = [];
+    if (!curve || !ws) return { zero, forward, notDrawn: 0, failed };
     const tag = `${COMPOUNDING_LABEL[display.compounding]}, ${display.dayCount}`;
-    validateScenarios(value)
-      .scenarios.slice(0, SCENARIO_OVERLAY_MAX)
+    const { scenarios } = validateScenarios(value);
+    scenarios
+      .slice(0, SCENARIO_OVERLAY_MAX)
       .forEach((s, i) => {
         const r = applyScenario(s, ws, curve, BUILD);
-        if (!r.ok) return;
+        if (!r.ok) {
+          failed.push(s.name);
+          return;
+        }
         const series = curveSeries(r.value.curve, display, []);
-        const common = { tag, colour: SCENARIO_COLOURS[i]!, dash: '5 3', width: 1.4 };
+        const common = { tag, ...SCENARIO_STYLES[i]! };
         zero.push({ id: `scenario-${s.id}-zero`, label: `${s.name} (zero)`, points: series.zero, ...common });
         forward.push({ id: `scenario-${s.id}-forward`, label: `${s.name} (${display.forwardTenor} forward)`, points: series.forward, ...common });
       });
-    return { zero, forward };
+    return { zero, forward, notDrawn: Math.max(0, scenarios.length - SCENARIO_OVERLAY_MAX), failed };
   }, [value, display, curve, ws]);
 }

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import type { Curve, Quote, Repricing } from '../../core/index.ts';
-import { bondScheduleRows, swapScheduleRows, type QuoteSchedule } from '../../core/index.ts';
-import { couponTag, num, pct } from '../../components/format.ts';
+import { bondScheduleRows, PRICE_ACCEPTANCE, RATE_ACCEPTANCE, swapScheduleRows, type QuoteSchedule } from '../../core/index.ts';
+import { couponTag, nearZero, num, pct } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 
@@ -22,10 +22,15 @@ export function quoteTag(q: Quote, field: string): string {
 }
 
 const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? num(v, 6) : pct(v, 6));
-/** Repricing error: bp for a rate quote, per 100 face for a price quote. */
-const small = (x: number, unit: string): string =>
-  !Number.isFinite(x) ? '\u2014' : x === 0 ? `0 ${unit}` : Math.abs(x) < 1e-4 ? `${x.toExponential(1).replace('-', '\u2212').replace('e\u2212', 'e-')} ${unit}` : `${num(x, 6)} ${unit}`;
-const showError = (r: Repricing): string => (r.unit === 'price' ? small(r.repricingError, 'per 100') : small(r.repricingError * 1e4, 'bp'));
+/**
+ * Repricing error: bp for a rate quote, per 100 face for a price quote. Anything inside the
+ * bootstrap's acceptance (RATE_ACCEPTANCE, PRICE_ACCEPTANCE) is an exact reprice and shows as zero,
+ * with the computed value and the tolerance in its tooltip.
+ */
+const showError = (r: Repricing): { text: string; title: string | undefined } => {
+  const e = r.unit === 'price' ? nearZero(r.repricingError, 6, 'per 100 face', PRICE_ACCEPTANCE) : nearZero(r.repricingError * 1e4, 4, 'bp', RATE_ACCEPTANCE * 1e4);
+  return { text: `${e.text} ${r.unit === 'price' ? 'per 100' : 'bp'}`, title: e.title };
+};
 
 /** Every quote against the curve: implied quote, repricing error, pillar date, t; a schedule for bonds and swaps. */
 export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
@@ -82,7 +87,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
                       </td>
                       <td className="n">{showQuote(rep, rep.market)}</td>
                       <td className="n">{showQuote(rep, rep.model)}</td>
-                      <td className="n">{showError(rep)}</td>
+                      <td className="n" title={showError(rep).title}>{showError(rep).text}</td>
                     </>
                   ) : (
                     <td colSpan={6} className="muted">

@@ -32,6 +32,11 @@ function download(name: string, text: string): void {
 export async function exportAll(): Promise<string> {
   const records = await allRecords();
   const workspaces = records.map(([key, value]) => {
+    if (key.startsWith('kept:')) {
+      // A record kept aside as it was saved, when it was restored with changes (over a cap, unknown settings...).
+      const name = typeof (value as { name?: unknown })?.name === 'string' ? (value as { name: string }).name : 'workspace';
+      return { name: `${name}, as saved before it was restored with changes`, savedAt: null, problem: 'kept aside as it was saved', unreadable: JSON.stringify(value) };
+    }
     const r = readEntry(key.slice('entry:'.length), value);
     const raw = value as { unreadable?: unknown };
     if (r.item.workspace) return { name: r.item.name, savedAt: r.item.savedAt, workspace: r.item.workspace };
