@@ -10,8 +10,8 @@ import type { Page } from 'playwright-core';
 import { encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 import { diagnostics, launchBrowser, newPage, screenshot, serveDist, type TestBrowser } from './harness.ts';
+import { openRecord, savedRecords } from './savedWorkspaces.ts';
 
-const KEY = 'tenorscope.workspace';
 let browser: TestBrowser | undefined;
 let server: Awaited<ReturnType<typeof serveDist>> | undefined;
 
@@ -55,7 +55,8 @@ describe('read-only opening and one set of caps', () => {
     await cell.press('9');
     expect(await cell.inputValue()).toBe(before);
     await page.waitForTimeout(600);
-    expect(await page.evaluate((k) => localStorage.getItem(k), KEY)).toBeNull();
+    // Nothing saved: no workspace record in the browser's database (the demo shown before was never edited).
+    expect((await savedRecords(page)).filter(([k]) => k.startsWith('entry:'))).toEqual([]);
     expect(await page.getByRole('status').filter({ hasText: 'Read-only: not saved' }).count()).toBe(1);
     await screenshot(page, 'read-only-unknown-interpolation');
     // The editable copy: the replacement is chosen in view (the default preselected, not applied).
@@ -67,7 +68,8 @@ describe('read-only opening and one set of caps', () => {
     await banner.getByRole('button', { name: 'Make the editable copy' }).click();
     await banner.waitFor({ state: 'detached' });
     expect(await page.getByLabel('Interpolation').inputValue()).toBe('log-linear-discount');
-    await page.waitForFunction((k) => JSON.parse(localStorage.getItem(k) ?? 'null')?.workspace?.curve?.interpolation === 'log-linear-discount', KEY, { timeout: 5000 });
+    // The copy is saved like any edited workspace.
+    await expect.poll(async () => (await openRecord(page))?.workspace?.curve?.interpolation, { timeout: 5000 }).toBe('log-linear-discount');
     expect(diagnostics(page).pageErrors).toEqual([]);
     await page.close();
   });
