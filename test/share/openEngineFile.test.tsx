@@ -2,23 +2,14 @@
 // The workbench opens the curve command's engine document (format "tenorscope-workspace"): its
 // quotes become sheet rows that build the same curve, or the file is refused with the reason and
 // the workspace is untouched. The README's engine example is the file opened.
+import { README_DOCUMENT } from '../helpers/readmeDocument.ts';
 import { render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { buildCurve, toEngineDocument } from '../../src/core/index.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
-const README_DOC = {
-  format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.031, dayCount: 'ACT/360' },
-    { kind: 'bill', maturity: '2027-09-09', discountYield: 0.03 },
-    { kind: 'zero', tenor: '6M', price: 98.4 },
-    { kind: 'bond', maturity: '2031-06-15', coupon: 0.04, frequency: 2, cleanPrice: 101.25 },
-    { kind: 'swap', tenor: '5Y', rate: 0.0375, frequency: 1, dayCount: '30/360' },
-  ],
-};
+const README_DOC = README_DOCUMENT;
 const file = (doc: unknown, name = 'engine.json') => new File([JSON.stringify(doc)], name, { type: 'application/json' });
 const initial = useAppStore.getInitialState();
 beforeEach(() => {

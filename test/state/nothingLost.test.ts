@@ -1,3 +1,4 @@
+import { MemoryStorage } from '../helpers/memoryStorage.ts';
 import { IDBFactory } from 'fake-indexeddb';
 import { LIMITS, unknownSettings, type WorkbenchDocument } from '../../src/core/index.ts';
 import { entryKey, flushSave, LEGACY_KEY, startPersistence, type PersistenceDeps } from '../../src/state/persistence.ts';
@@ -10,27 +11,6 @@ const initial = useAppStore.getInitialState();
 const initialList = useWorkspaceList.getInitialState();
 const s = () => useAppStore.getState();
 
-class MemoryStorage implements Storage {
-  map = new Map<string, string>();
-  get length(): number {
-    return this.map.size;
-  }
-  key(i: number): string | null {
-    return [...this.map.keys()][i] ?? null;
-  }
-  getItem(k: string): string | null {
-    return this.map.get(k) ?? null;
-  }
-  setItem(k: string, v: string): void {
-    this.map.set(k, v);
-  }
-  removeItem(k: string): void {
-    this.map.delete(k);
-  }
-  clear(): void {
-    this.map.clear();
-  }
-}
 let stop: (() => void) | null = null;
 /** Starts persistence on a fresh in-memory database, with an earlier build's saved entry under its localStorage key (moved into the list on start). */
 const start = async (legacyEntry: string | null): Promise<void> => {

@@ -4,6 +4,7 @@
 // the earlier single localStorage entry, a full quota reported exactly (document saved, history
 // not) and retried, an unreadable entry left unchanged and described by its cause, and another
 // tab's save never silently overwritten.
+import { MemoryStorage } from '../helpers/memoryStorage.ts';
 import { IDBFactory } from 'fake-indexeddb';
 import {
   DEFAULT_NAME,
@@ -31,27 +32,6 @@ import { useWorkspaceList } from '../../src/state/workspaceList.ts';
 const initial = useAppStore.getInitialState();
 const initialList = useWorkspaceList.getInitialState();
 
-class MemoryStorage implements Storage {
-  map = new Map<string, string>();
-  get length(): number {
-    return this.map.size;
-  }
-  key(i: number): string | null {
-    return [...this.map.keys()][i] ?? null;
-  }
-  getItem(k: string): string | null {
-    return this.map.get(k) ?? null;
-  }
-  setItem(k: string, v: string): void {
-    this.map.set(k, v);
-  }
-  removeItem(k: string): void {
-    this.map.delete(k);
-  }
-  clear(): void {
-    this.map.clear();
-  }
-}
 
 class EventTargetDouble {
   listeners = new Map<string, Set<(e: Event) => void>>();

@@ -1,3 +1,4 @@
+import { download } from '../../components/download.ts';
 import { useRef, useState, type ChangeEvent } from 'react';
 import { parseDocumentText, readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../../core/index.ts';
 import { pct, rateTag } from '../../components/format.ts';
@@ -16,17 +17,6 @@ const MAX_LIST_CHARS = 50_000_000;
 
 const savedText = (ms: number | null): string =>
   ms === null ? 'not saved yet' : `saved ${new Date(ms).toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })}`;
-
-function download(name: string, text: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type: 'application/json' }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = name;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 0);
-}
 
 /** Every saved workspace as one file: readable ones as documents, unreadable ones as the text that was kept. */
 export async function exportAll(): Promise<string> {
@@ -220,7 +210,7 @@ export function WorkspacesPanel({ onClose }: { onClose?: () => void }) {
         </p>
       )}
       <div className="ws-foot">
-        <button type="button" onClick={() => void exportAll().then((text) => download('tenorscope-workspaces.json', text))}>
+        <button type="button" onClick={() => void exportAll().then((text) => download('tenorscope-workspaces.json', 'application/json', text))}>
           Export all (one file)
         </button>
         <button type="button" onClick={() => input.current?.click()}>

@@ -2,23 +2,14 @@
 // conversions are exact (the same curve to the last bit) or refused with the quote and field named.
 // Oracle: the engine's own build of the original document (buildCurve), which other tests hold to
 // published sources; here only the identity of the two paths is claimed.
+import { README_DOCUMENT } from '../../helpers/readmeDocument.ts';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { buildCurve, engineFromAnyDocument, toEngineDocument, workbenchFromEngine, type Curve } from '../../../src/core/index.ts';
 import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
 
 const fixture = (p: string) => JSON.parse(readFileSync(new URL(`../../fixtures/${p}`, import.meta.url), 'utf8')) as Record<string, unknown>;
-const README_DOC = {
-  format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' },
-  quotes: [
-    { kind: 'deposit', tenor: '3M', rate: 0.031, dayCount: 'ACT/360' },
-    { kind: 'bill', maturity: '2027-09-09', discountYield: 0.03 },
-    { kind: 'zero', tenor: '6M', price: 98.4 },
-    { kind: 'bond', maturity: '2031-06-15', coupon: 0.04, frequency: 2, cleanPrice: 101.25 },
-    { kind: 'swap', tenor: '5Y', rate: 0.0375, frequency: 1, dayCount: '30/360' },
-  ],
-};
+const README_DOC = README_DOCUMENT;
 
 const sameCurve = (a: Curve, b: Curve) => {
   expect(b.pillars.map((p) => p.date)).toEqual(a.pillars.map((p) => p.date));
