@@ -101,7 +101,7 @@ describe('useComparisonOverlay', () => {
     act(() => toggleSnapshot([], 'Month ago', true));
     const rebuilt = rebuildSnapshot(snap).build.curve!;
     const line = last!.zero.find((l) => l.id === 'snapshot-0-zero')!;
-    expect(line.tag).toContain(`settlement ${earlier}, lined up by time to maturity`);
+    expect(last!.how.zero).toEqual([`Snapshot Month ago: settlement ${earlier}, lined up by time to maturity (years from its own settlement)`]);
     expect(line.colour).toBe(SNAPSHOT_STYLES[0]!.colour);
     for (const pt of line.points.filter((_, i) => i % 20 === 0)) {
       const z = zeroOn(rebuilt, pt.date, 'annual', 'ACT/360');
@@ -110,7 +110,7 @@ describe('useComparisonOverlay', () => {
     }
     act(() => setCompareBy('date'));
     const byDate = last!.zero.find((l) => l.id === 'snapshot-0-zero')!;
-    expect(byDate.tag).toContain('lined up by calendar date');
+    expect(last!.how.forward[0]).toContain('lined up by calendar date');
     const current = lastBuild!.build.curve!;
     for (const pt of byDate.points.filter((_, i) => i % 20 === 0)) {
       expect(pt.x).toBe(current.time(pt.date));
@@ -136,7 +136,8 @@ describe('useComparisonOverlay', () => {
     act(() => useReferenceInput.getState().set({ text }));
     act(() => setDrawReference(true));
     const zero = last!.zero.find((l) => l.id === 'reference-zero')!;
-    expect(zero.label).toContain('zero chart only');
+    expect(zero.label).toBe('Reference (zero; zero chart only)');
+    expect(last!.how.zero[0]).toContain('zero chart only: no two of its dates are 3M apart');
     expect(last!.forward.find((l) => l.id.startsWith('reference'))).toBeUndefined();
     const rows = referenceDifferences(lastBuild!.build.curve!, parseReferenceCsv(text, 'continuous', 'ACT/365F').reference!);
     zero.points.forEach((pt, i) => expectClose(pt.y, rows[i]!.referenceZero!, 1e-15, 'the reference table (referenceDifferences) at the same date'));

@@ -19,7 +19,7 @@ import {
 import type { ChartLine } from '../../charts/RateChart.tsx';
 import { FIT_STYLE, REFERENCE_STYLE, SNAPSHOT_OVERLAY_MAX, SNAPSHOT_STYLES } from '../../charts/palette.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { points, sampleGridFor } from '../../hooks/useCurveSeries.ts';
+import { chartEndDate, points as samplePoints, sampleGridFor, type SamplePoint } from '../../hooks/useCurveSeries.ts';
 import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice } from './comparisonChoice.ts';
 import { useReferenceInput } from './referenceInput.ts';
@@ -27,11 +27,13 @@ import { useReferenceInput } from './referenceInput.ts';
 export interface ComparisonOverlay {
   readonly zero: ChartLine[];
   readonly forward: ChartLine[];
-  /** Sentences for the legends: what was not drawn and why, how another settlement is lined up. */
+  /** Sentences for the legends: what was not drawn and why. */
   readonly notes: string[];
+  /** How each drawn comparison is read, per chart: another settlement's lining up, the reference's reading. */
+  readonly how: { readonly zero: string[]; readonly forward: string[] };
 }
 
-const EMPTY: ComparisonOverlay = { zero: [], forward: [], notes: [] };
+const EMPTY: ComparisonOverlay = { zero: [], forward: [], notes: [], how: { zero: [], forward: [] } };
 
 /** Zero and forward samples of a curve on its own grid, in the display convention (as the base curve is sampled). */
 function sampled(c: Curve, display: DisplaySettings): { zero: Samples; forward: Samples } {
@@ -62,8 +64,11 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
   // Rebuilt snapshots (the heavy part), only when the snapshots or the chosen names change.
   const rebuilt = useMemo(() => {
     const names = new Set(snapshotKey === '' ? [] : snapshotKey.split('\u0000'));
-    const chosen = validateSnapshots(snapshotsValue).snapshots.filter((s) => names.has(s.name));
+    const all = validateSnapshots(snapshotsValue).snapshots;
+    const chosen = all.filter((s) => names.has(s.name));
+    const present = new Set(all.map((s) => s.name));
     return {
+      missing: [...names].filter((n) => !present.has(n)),
       drawn: chosen.slice(0, SNAPSHOT_OVERLAY_MAX).map((s) => ({ snapshot: s, curve: rebuildSnapshot(s).build.curve })),
       notDrawn: Math.max(0, chosen.length - SNAPSHOT_OVERLAY_MAX),
     };
@@ -81,8 +86,12 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
     const zero: ChartLine[] = [];
     const forward: ChartLine[] = [];
     const notes: string[] = [];
+    const how = { zero: [] as string[], forward: [] as string[] };
     const tag = `${COMPOUNDING_LABEL[display.compounding]}, ${display.dayCount}`;
     const fwd = `${display.forwardTenor} forward`;
+    // Drawn within the base curve's maturity range (the charts' x axis ends there).
+    const xMax = curve.time(chartEndDate(curve));
+    const points = (s: Samples): SamplePoint[] => samplePoints(s).filter((p) => p.x <= xMax);
 
     rebuilt.drawn.forEach(({ snapshot, curve: c }, i) => {
       if (!c) {
@@ -94,11 +103,16 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
       const byDate = other && choice.by === 'date';
       const z = byDate ? samplesByDate(s.zero, curve) : s.zero;
       const f = byDate ? samplesByDate(s.forward, curve) : s.forward;
-      const how = !other ? '' : byDate ? `; settlement ${c.settlement}, lined up by calendar date` : `; settlement ${c.settlement}, lined up by time to maturity`;
-      const common = { tag: `${tag}${how}`, ...SNAPSHOT_STYLES[i]! };
+      if (other) {
+        const line = `Snapshot ${snapshot.name}: settlement ${c.settlement}, lined up by ${byDate ? 'calendar date (its rates run from its own settlement)' : 'time to maturity (years from its own settlement)'}`;
+        how.zero.push(line);
+        how.forward.push(line);
+      }
+      const common = { tag, ...SNAPSHOT_STYLES[i]! };
       zero.push({ id: `snapshot-${i}-zero`, label: `Snapshot ${snapshot.name} (zero)`, points: points(z), ...common });
       forward.push({ id: `snapshot-${i}-forward`, label: `Snapshot ${snapshot.name} (${fwd})`, points: points(f), ...common });
     });
+    if (rebuilt.missing.length > 0) notes.push(`not drawn, no such snapshot in this workspace (a link leaves snapshots out): ${rebuilt.missing.join(', ')}`);
     if (rebuilt.notDrawn > 0) notes.push(`${rebuilt.notDrawn} more snapshot${rebuilt.notDrawn === 1 ? '' : 's'} chosen, not drawn (the charts show the first ${SNAPSHOT_OVERLAY_MAX})`);
 
     if (choice.reference) {
@@ -106,10 +120,14 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
       else {
         const z = referenceZeroSamples(parsedReference, curve, display.compounding, display.dayCount);
         const f = referenceForwardSamples(parsedReference, curve, parseTenor(display.forwardTenor)!, display.compounding, display.dayCount);
-        const common = { tag: `${tag}; read from settlement ${curve.settlement}, by date`, ...REFERENCE_STYLE };
-        const zeroLabel = f.exact ? 'Reference (zero)' : `Reference (zero; zero chart only: no two of its dates are ${display.forwardTenor} apart, so no ${fwd} follows exactly)`;
-        zero.push({ id: 'reference-zero', label: zeroLabel, points: points(z), ...common });
-        if (f.exact) forward.push({ id: 'reference-forward', label: `Reference (${fwd}, at its dates)`, points: points(f.samples), ...common });
+        const common = { tag, ...REFERENCE_STYLE };
+        const read = `Reference: its dates from settlement ${curve.settlement}, by date, joined by straight lines`;
+        how.zero.push(f.exact ? read : `${read}; zero chart only: no two of its dates are ${display.forwardTenor} apart, so no ${fwd} follows from it exactly`);
+        zero.push({ id: 'reference-zero', label: f.exact ? 'Reference (zero)' : 'Reference (zero; zero chart only)', points: points(z), ...common });
+        if (f.exact) {
+          how.forward.push(`${read}; only ${fwd}s from one of its dates to another`);
+          forward.push({ id: 'reference-forward', label: `Reference (${fwd})`, points: points(f.samples), ...common });
+        }
       }
     }
 
@@ -124,6 +142,6 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
         forward.push({ id: 'fit-forward', label: `${label} fit (${fwd})`, points: points(s.forward), ...common });
       }
     }
-    return { zero, forward, notes };
+    return { zero, forward, notes, how };
   }, [curve, display, rebuilt, choice.by, choice.reference, choice.fit, choice.fitModel, parsedReference, fit]);
 }

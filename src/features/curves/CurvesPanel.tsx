@@ -59,7 +59,7 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
           <h3>
             Zero curve <span className="tag">{tag}</span>
           </h3>
-          <Legend lines={zeroLines} extra={display.showPar ? 'quotes on the par line' : null} note={scenarioNote} compareNote={compareNote} />
+          <Legend lines={zeroLines} extra={display.showPar ? 'quotes on the par line' : null} note={scenarioNote} compareNote={compareNote} how={comparisons.how.zero} />
           <RateChart
             name={`Zero curve, ${tag}`}
             description={`Zero rates${display.showPar ? ' and par yields' : ''} against maturity, ${curve.interpolation} interpolation.`}
@@ -77,7 +77,7 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
           <h3>
             Forward curve <span className="tag">{tag}</span>
           </h3>
-          <Legend lines={fwdLines} extra="ticks mark pillar dates" note={scenarioNote} compareNote={compareNote} />
+          <Legend lines={fwdLines} extra="ticks mark pillar dates" note={scenarioNote} compareNote={compareNote} how={comparisons.how.forward} />
           <RateChart
             name={`Forward curve, ${display.forwardTenor} forwards, ${tag}`}
             description={`${display.forwardTenor} forward rates by start date${display.showInstantaneous ? ', with instantaneous forwards' : ''}${display.showMethodOverlay ? ', with every interpolation method overlaid' : ''}.`}
@@ -113,7 +113,7 @@ export function scenarioOverlayNote(notDrawn: number, failed: readonly string[])
   return parts.length ? parts.join('; ') : null;
 }
 
-function Legend({ lines, extra, note, compareNote }: { lines: readonly ChartLine[]; extra: string | null; note: string | null; compareNote: string | null }) {
+function Legend({ lines, extra, note, compareNote, how = [] }: { lines: readonly ChartLine[]; extra: string | null; note: string | null; compareNote: string | null; how?: readonly string[] }) {
   return (
     <ul className="legend">
       {lines.map((l) => (
@@ -122,6 +122,11 @@ function Legend({ lines, extra, note, compareNote }: { lines: readonly ChartLine
             <line x1="1" x2="21" y1="4" y2="4" stroke={l.colour} strokeWidth={2} strokeDasharray={l.dash} />
           </svg>
           {l.label} <span className="tag">{l.tag}</span>
+        </li>
+      ))}
+      {how.map((h) => (
+        <li key={h} className="muted legend-how">
+          {h}
         </li>
       ))}
       {extra && <li className="muted">{extra}; dashed past the last pillar</li>}
