@@ -22,6 +22,8 @@ import {
 } from '../../src/core/index.ts';
 import { comparisonChoice, setCompareBy, setDrawFit, setDrawReference, toggleSnapshot } from '../../src/features/compare/comparisonChoice.ts';
 import { useReferenceInput } from '../../src/features/compare/referenceInput.ts';
+import { useFitInput } from '../../src/features/compare/fitInput.ts';
+import { setFitErrors, setFitModel } from '../../src/features/compare/comparisonChoice.ts';
 import { useComparisonOverlay, type ComparisonOverlay } from '../../src/features/compare/useComparisonOverlay.ts';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
@@ -31,6 +33,7 @@ const initial = useAppStore.getInitialState();
 beforeEach(() => {
   useAppStore.setState(initial, true);
   useReferenceInput.setState({ text: '', compounding: 'continuous', dayCount: 'ACT/365F', unit: null });
+  useFitInput.setState({ exclude: [], weights: {} });
   localStorage.clear();
 });
 
@@ -89,6 +92,24 @@ describe('useComparisonOverlay', () => {
     }
     // The instantaneous forward at the short end tends to b0 + b1 (Nelson-Siegel 1987).
     expectClose(parametricForward(p, 0), p.b0 + p.b1, 1e-15, 'Nelson and Siegel (1987): f(0) = b0 + b1');
+  });
+
+  it('draws the fit the smooth fit section sets: Svensson, price errors, a quote left out', () => {
+    act(() => useAppStore.getState().setDisplay({ compounding: 'continuous', dayCount: 'ACT/365F' }));
+    render(<Probe />);
+    act(() => setDrawFit(true));
+    act(() => setFitModel('svensson'));
+    act(() => setFitErrors('price'));
+    act(() => useFitInput.getState().set({ exclude: [3] }));
+    const fit = fitCurve(lastBuild!.build.workspace!, { model: 'svensson', errors: 'price', exclude: [3] });
+    if (!fit.ok) throw new Error('the demo fit must converge');
+    const zero = last!.zero.find((l) => l.id === 'fit-zero')!;
+    expect(zero.label).toBe('Svensson fit (zero)');
+    expect(last!.how.zero).toEqual(['Svensson fit: price errors, 1 quote left out, as set in the Smooth fit section']);
+    for (const pt of zero.points.filter((q) => !q.extrapolated)) {
+      expectClose(pt.y, parametricZero(fit.value.params, pt.x), 1e-13, 'Svensson (1994) zero y(t), parametricZero of the fitted parameters');
+    }
+    expect(useAppStore.getState().workspace.view).toMatchObject({ fitModel: 'svensson', fitErrors: 'price' });
   });
 
   it('draws a chosen snapshot equal to its rebuilt curve, and lines another settlement up as chosen', () => {

@@ -1,11 +1,17 @@
 import { FitPanel } from '../fit/FitPanel.tsx';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
-import { comparisonChoice, setFitModel } from './comparisonChoice.ts';
+import { comparisonChoice, setFitErrors, setFitModel } from './comparisonChoice.ts';
+import { useFitInput } from './fitInput.ts';
 
-/** The smooth fit section wired to the document's view: its model is the one the charts' comparison draws. */
+/**
+ * The smooth fit section wired to the document's view (model and errors) and to the page's fit
+ * input (quotes left out, weights): the charts' fit line is this fit.
+ */
 export function FitSlot({ result }: { result: WorkbenchBuild }) {
   const model = useAppStore((s) => comparisonChoice(s.workspace).fitModel);
+  const errors = useAppStore((s) => comparisonChoice(s.workspace).fitErrors);
+  const { exclude, weights, set } = useFitInput();
   return (
     <FitPanel
       workspace={result.build.workspace}
@@ -13,6 +19,12 @@ export function FitSlot({ result }: { result: WorkbenchBuild }) {
       rowOfQuote={result.conversion.rowOfQuote}
       model={model}
       onModelChange={setFitModel}
+      errors={errors}
+      onErrorsChange={setFitErrors}
+      exclude={exclude}
+      onExcludeChange={(x) => set({ exclude: x })}
+      weights={weights}
+      onWeightsChange={(w) => set({ weights: w })}
     />
   );
 }

@@ -1,4 +1,4 @@
-import { isFitModel, type CompareBy, type FitModel, type WorkbenchDocument } from '../../core/index.ts';
+import { isFitModel, type CompareBy, type FitErrors, type FitModel, type WorkbenchDocument } from '../../core/index.ts';
 import { setViewValues, viewList, viewOf, viewText } from '../../state/viewValues.ts';
 
 /**
@@ -12,10 +12,12 @@ export interface ComparisonChoice {
   readonly reference: boolean;
   readonly fit: boolean;
   readonly fitModel: FitModel | 'none';
+  /** The fit's error measure, as chosen in the smooth fit section. */
+  readonly fitErrors: FitErrors;
   readonly by: CompareBy;
 }
 
-export const VIEW_KEYS = { snapshots: 'compareSnapshots', reference: 'compareReference', fit: 'compareFit', fitModel: 'fitModel', by: 'compareBy' } as const;
+export const VIEW_KEYS = { snapshots: 'compareSnapshots', reference: 'compareReference', fit: 'compareFit', fitModel: 'fitModel', fitErrors: 'fitErrors', by: 'compareBy' } as const;
 
 export function comparisonChoice(doc: WorkbenchDocument): ComparisonChoice {
   const v = viewOf(doc);
@@ -25,6 +27,7 @@ export function comparisonChoice(doc: WorkbenchDocument): ComparisonChoice {
     reference: v[VIEW_KEYS.reference] === true,
     fit: v[VIEW_KEYS.fit] === true,
     fitModel: isFitModel(model) ? model : model === 'none' ? 'none' : 'nelson-siegel',
+    fitErrors: viewText(doc, VIEW_KEYS.fitErrors, 'yield') === 'price' ? 'price' : 'yield',
     by: viewText(doc, VIEW_KEYS.by, 'time') === 'date' ? 'date' : 'time',
   };
 }
@@ -38,4 +41,5 @@ export function toggleSnapshot(current: readonly string[], name: string, on: boo
 export const setDrawReference = (on: boolean): void => setViewValues({ [VIEW_KEYS.reference]: on }, on ? 'Draw the reference curve' : 'Stop drawing the reference curve');
 export const setDrawFit = (on: boolean): void => setViewValues({ [VIEW_KEYS.fit]: on }, on ? 'Draw the smooth fit' : 'Stop drawing the smooth fit');
 export const setFitModel = (m: FitModel | 'none'): void => setViewValues({ [VIEW_KEYS.fitModel]: m }, 'Choose the fit model');
+export const setFitErrors = (e: FitErrors): void => setViewValues({ [VIEW_KEYS.fitErrors]: e }, 'Choose the fit errors');
 export const setCompareBy = (by: CompareBy): void => setViewValues({ [VIEW_KEYS.by]: by }, by === 'date' ? 'Line up by calendar date' : 'Line up by time to maturity');

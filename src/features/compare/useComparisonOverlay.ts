@@ -22,6 +22,7 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { chartEndDate, points as samplePoints, sampleGridFor, type SamplePoint } from '../../hooks/useCurveSeries.ts';
 import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice } from './comparisonChoice.ts';
+import { useFitInput } from './fitInput.ts';
 import { useReferenceInput } from './referenceInput.ts';
 
 export interface ComparisonOverlay {
@@ -74,7 +75,12 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
     };
   }, [snapshotsValue, snapshotKey]);
 
-  const fit = useMemo(() => (choice.fit && choice.fitModel !== 'none' && ws ? fitCurve(ws, { model: choice.fitModel }) : null), [choice.fit, choice.fitModel, ws]);
+  // The same fit as the smooth fit section: its model and errors (view), its quotes left out and weights (this page).
+  const { exclude, weights } = useFitInput();
+  const fit = useMemo(
+    () => (choice.fit && choice.fitModel !== 'none' && ws ? fitCurve(ws, { model: choice.fitModel, errors: choice.fitErrors, exclude, weights }) : null),
+    [choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, ws],
+  );
 
   const parsedReference = useMemo(
     () => (choice.reference && reference.text.trim() !== '' ? parseReferenceCsv(reference.text, reference.compounding, reference.dayCount, reference.unit ?? sheetUnit).reference : null),
@@ -138,10 +144,15 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
         const s = sampled(fit.value.curve, display);
         const label = FIT_MODEL_LABEL[choice.fitModel];
         const common = { tag, ...FIT_STYLE };
+        const left = new Set([...exclude, ...Object.entries(weights).flatMap(([i, w]) => (w === 0 ? [Number(i)] : []))]).size;
+        const weighted = Object.values(weights).some((w) => w !== 1 && w !== 0);
+        const line = `${label} fit: ${choice.fitErrors} errors${left > 0 ? `, ${left} quote${left === 1 ? '' : 's'} left out` : ', every quote'}${weighted ? ', weighted' : ''}, as set in the Smooth fit section`;
+        how.zero.push(line);
+        how.forward.push(line);
         zero.push({ id: 'fit-zero', label: `${label} fit (zero)`, points: points(s.zero), ...common });
         forward.push({ id: 'fit-forward', label: `${label} fit (${fwd})`, points: points(s.forward), ...common });
       }
     }
     return { zero, forward, notes, how };
-  }, [curve, display, rebuilt, choice.by, choice.reference, choice.fit, choice.fitModel, parsedReference, fit]);
+  }, [curve, display, rebuilt, choice.by, choice.reference, choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, parsedReference, fit]);
 }
