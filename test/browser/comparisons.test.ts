@@ -6,7 +6,7 @@
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { FIT_STYLE, SNAPSHOT_STYLES } from '../../src/charts/palette.ts';
+import { FIT_STYLE, REFERENCE_STYLE, SNAPSHOT_STYLES } from '../../src/charts/palette.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 import { encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
 import { launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
@@ -64,6 +64,13 @@ describe('comparisons on the charts in Chromium', () => {
     }
     // The snapshot's settlement differs: the legend says how it is lined up (the snapshot table's default).
     await expect(charts.locator('.legend li', { hasText: 'Snapshot Month-end close: settlement 2026-12-15, lined up by time to maturity' }).count()).resolves.toBe(2);
+    // An invented reference curve of yearly discount factors: no two dates 3M apart, so the zero chart only.
+    const rows = [1, 2, 3, 5, 7, 10, 20, 30].map((y) => `${2027 + y}-01-15,${Math.exp(-(0.041 + 0.0004 * y) * y).toFixed(6)}`);
+    await page.getByLabel(/Reference CSV/).fill(`date,discount\n${rows.join('\n')}`);
+    await page.getByRole('checkbox', { name: /Reference curve/ }).check();
+    await expect(charts.locator('.legend li', { hasText: 'Reference (zero; zero chart only)' }).count()).resolves.toBe(1);
+    await expect(charts.locator('.legend li', { hasText: 'zero chart only: no two of its dates are 3M apart' }).count()).resolves.toBe(1);
+    expect(await pathsIn(page, REFERENCE_STYLE.colour)).toEqual([1, 0]);
     expect((await pathsIn(page, SNAPSHOT_STYLES[0]!.colour)).every((k) => k >= 1)).toBe(true);
     expect((await pathsIn(page, FIT_STYLE.colour)).every((k) => k >= 1)).toBe(true);
     await mkdir(SCREENSHOT_DIR, { recursive: true });
@@ -75,6 +82,8 @@ describe('comparisons on the charts in Chromium', () => {
     await page.waitForTimeout(600);
     await page.reload({ waitUntil: 'load' });
     await charts.getByText('Nelson-Siegel fit (zero)').first().waitFor({ timeout: 20_000 });
+    await expect(charts.locator('.legend li', { hasText: 'Snapshot Month-end close (zero)' }).count()).resolves.toBe(1);
+    await expect(charts.locator('.legend li', { hasText: 'lined up by calendar date' }).count()).resolves.toBe(2);
     expect(errors).toEqual([]);
     await page.context().close();
   });

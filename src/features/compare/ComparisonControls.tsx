@@ -14,7 +14,7 @@ export function ComparisonControls({ drawn }: { drawn: number }) {
   const hasReference = useReferenceInput((s) => s.text.trim() !== '');
   const chosen = new Set(choice.snapshots);
   return (
-    <details className="comparisons" open={drawn > 0 || undefined}>
+    <details className="comparisons">
       <summary>Compare on the charts{drawn > 0 ? ` (${drawn} line${drawn === 1 ? '' : 's'} per chart)` : ''}</summary>
       <div className="comparison-choices">
         <fieldset>
