@@ -168,6 +168,29 @@ describe('useComparisonOverlay', () => {
   });
 });
 
+describe('useComparisonOverlay on a deferred build', () => {
+  it('rebuilds nothing when a cell is typed into while the deferred build has not moved (same lines, same objects)', () => {
+    let fixed: ReturnType<typeof useCurveBuild> | null = null;
+    let out: ComparisonOverlay | null = null;
+    function Deferred() {
+      const live = useCurveBuild();
+      fixed ??= live; // the deferred build, as the workbench hands it before typing pauses
+      out = useComparisonOverlay(fixed);
+      return null;
+    }
+    render(<Deferred />);
+    const snap = takeSnapshot(fixed!.conversion.doc as unknown as Record<string, unknown>, 'Close', '2026-11-01T12:00:00Z');
+    act(() => useAppStore.getState().setReserved('snapshots', [snap]));
+    act(() => toggleSnapshot([], 'Close', true));
+    act(() => setDrawFit(true));
+    const before = out!;
+    expect(before.zero.length).toBe(2);
+    const row = useAppStore.getState().workspace.quotes[0]!;
+    act(() => useAppStore.getState().setCell(row.id, 'rate', '4.5'));
+    expect(out).toBe(before);
+  });
+});
+
 describe('comparisons in the workbench charts', { timeout: 30_000 }, () => {
   it('turns the smooth fit on from the charts and adds its line to both legends', async () => {
     const user = userEvent.setup({ delay: null });

@@ -7,9 +7,9 @@ import { useReferenceInput } from './referenceInput.ts';
 
 /** The charts' comparison choices (saved in the document's view): snapshots by name, the reference curve, the smooth fit. */
 export function ComparisonControls({ drawn }: { drawn: number }) {
-  const doc = useAppStore((s) => s.workspace);
-  const choice = useMemo(() => comparisonChoice(doc), [doc]);
-  const snapshotsValue = doc.snapshots;
+  const view = useAppStore((s) => s.workspace.view);
+  const choice = useMemo(() => comparisonChoice({ view }), [view]);
+  const snapshotsValue = useAppStore((s) => s.workspace.snapshots);
   const names = useMemo(() => [...new Set(validateSnapshots(snapshotsValue).snapshots.map((s) => s.name))], [snapshotsValue]);
   const hasReference = useReferenceInput((s) => s.text.trim() !== '');
   const chosen = new Set(choice.snapshots);

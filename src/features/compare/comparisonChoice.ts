@@ -19,16 +19,17 @@ export interface ComparisonChoice {
 
 export const VIEW_KEYS = { snapshots: 'compareSnapshots', reference: 'compareReference', fit: 'compareFit', fitModel: 'fitModel', fitErrors: 'fitErrors', by: 'compareBy' } as const;
 
-export function comparisonChoice(doc: WorkbenchDocument): ComparisonChoice {
-  const v = viewOf(doc);
-  const model = viewText(doc, VIEW_KEYS.fitModel, 'nelson-siegel');
+export function comparisonChoice(doc: Pick<WorkbenchDocument, 'view'>): ComparisonChoice {
+  const d = doc as WorkbenchDocument; // the view readers look at `view` only
+  const v = viewOf(d);
+  const model = viewText(d, VIEW_KEYS.fitModel, 'nelson-siegel');
   return {
-    snapshots: viewList(doc, VIEW_KEYS.snapshots, []),
+    snapshots: viewList(d, VIEW_KEYS.snapshots, []),
     reference: v[VIEW_KEYS.reference] === true,
     fit: v[VIEW_KEYS.fit] === true,
     fitModel: isFitModel(model) ? model : model === 'none' ? 'none' : 'nelson-siegel',
-    fitErrors: viewText(doc, VIEW_KEYS.fitErrors, 'yield') === 'price' ? 'price' : 'yield',
-    by: viewText(doc, VIEW_KEYS.by, 'time') === 'date' ? 'date' : 'time',
+    fitErrors: viewText(d, VIEW_KEYS.fitErrors, 'yield') === 'price' ? 'price' : 'yield',
+    by: viewText(d, VIEW_KEYS.by, 'time') === 'date' ? 'date' : 'time',
   };
 }
 

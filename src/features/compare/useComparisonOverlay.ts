@@ -52,14 +52,15 @@ function sampled(c: Curve, display: DisplaySettings): { zero: Samples; forward: 
  * or the choice change.
  */
 export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay {
-  const doc = useAppStore((s) => s.workspace);
-  const display = doc.display;
-  const choice = useMemo(() => comparisonChoice(doc), [doc]);
-  const snapshotsValue = doc.snapshots;
+  // Narrow selections: a keystroke in a cell changes none of these, so it never re-renders this.
+  const view = useAppStore((s) => s.workspace.view);
+  const display = useAppStore((s) => s.workspace.display);
+  const snapshotsValue = useAppStore((s) => s.workspace.snapshots);
+  const sheetUnit = useAppStore((s) => s.workspace.quoteUnit);
+  const choice = useMemo(() => comparisonChoice({ view }), [view]);
   const reference = useReferenceInput();
   const curve = result.build.curve;
   const ws = result.build.workspace;
-  const sheetUnit = doc.quoteUnit;
 
   const snapshotKey = choice.snapshots.join('\u0000');
   // Rebuilt snapshots (the heavy part), only when the snapshots or the chosen names change.
