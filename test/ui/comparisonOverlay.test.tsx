@@ -192,6 +192,18 @@ describe('useComparisonOverlay on a deferred build', () => {
 });
 
 describe('comparisons in the workbench charts', { timeout: 30_000 }, () => {
+  it('names a chosen snapshot the workspace does not hold and lets it be unticked', async () => {
+    const user = userEvent.setup({ delay: null });
+    act(() => toggleSnapshot([], 'Gone', true));
+    render(<App />);
+    const charts = screen.getByRole('region', { name: 'Charts' });
+    expect(within(charts).getAllByTestId('comparisons-not-drawn')[0]!.textContent).toContain("not among this workspace's snapshots (removed, or opened from a link, which leaves snapshots out): Gone");
+    await user.click(screen.getByText('Compare on the charts'));
+    await user.click(screen.getByRole('checkbox', { name: /Gone/ }));
+    expect(comparisonChoice(useAppStore.getState().workspace).snapshots).toEqual([]);
+    expect(within(charts).queryByTestId('comparisons-not-drawn')).toBeNull();
+  });
+
   it('turns the smooth fit on from the charts and adds its line to both legends', async () => {
     const user = userEvent.setup({ delay: null });
     render(<App />);

@@ -13,12 +13,20 @@ export function ComparisonControls({ drawn }: { drawn: number }) {
   const names = useMemo(() => [...new Set(validateSnapshots(snapshotsValue).snapshots.map((s) => s.name))], [snapshotsValue]);
   const hasReference = useReferenceInput((s) => s.text.trim() !== '');
   const chosen = new Set(choice.snapshots);
+  const present = new Set(names);
+  // Chosen names with no snapshot here stay listed, so they can be unticked.
+  const missing = choice.snapshots.filter((n) => !present.has(n));
   return (
     <details className="comparisons">
       <summary>Compare on the charts{drawn > 0 ? ` (${drawn} line${drawn === 1 ? '' : 's'} per chart)` : ''}</summary>
       <div className="comparison-choices">
         <fieldset>
           <legend>Snapshots (at most {SNAPSHOT_OVERLAY_MAX} drawn)</legend>
+          {missing.map((n) => (
+            <label key={`missing-${n}`}>
+              <input type="checkbox" checked onChange={() => toggleSnapshot(choice.snapshots, n, false)} /> {n} <span className="muted small">(not in this workspace)</span>
+            </label>
+          ))}
           {names.length === 0 && <p className="muted small">No snapshots yet: take one in the Snapshots section.</p>}
           {names.map((n) => (
             <label key={n}>

@@ -119,7 +119,7 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
       zero.push({ id: `snapshot-${i}-zero`, label: `Snapshot ${snapshot.name} (zero)`, points: points(z), ...common });
       forward.push({ id: `snapshot-${i}-forward`, label: `Snapshot ${snapshot.name} (${fwd})`, points: points(f), ...common });
     });
-    if (rebuilt.missing.length > 0) notes.push(`not drawn, no such snapshot in this workspace (a link leaves snapshots out): ${rebuilt.missing.join(', ')}`);
+    if (rebuilt.missing.length > 0) notes.push(`not drawn, not among this workspace's snapshots (removed, or opened from a link, which leaves snapshots out): ${rebuilt.missing.join(', ')}`);
     if (rebuilt.notDrawn > 0) notes.push(`${rebuilt.notDrawn} more snapshot${rebuilt.notDrawn === 1 ? '' : 's'} chosen, not drawn (the charts show the first ${SNAPSHOT_OVERLAY_MAX})`);
 
     if (choice.reference) {
