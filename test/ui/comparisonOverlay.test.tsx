@@ -27,6 +27,7 @@ import { setFitErrors, setFitModel } from '../../src/features/compare/comparison
 import { useComparisonOverlay, type ComparisonOverlay } from '../../src/features/compare/useComparisonOverlay.ts';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { SnapshotsTab } from '../../src/features/snapshots/SnapshotsTab.tsx';
 import { expectClose } from '../helpers/asserts.ts';
 
 const initial = useAppStore.getInitialState();
@@ -64,6 +65,23 @@ describe('comparison choice in the view', () => {
     expect(comparisonChoice(useAppStore.getState().workspace).fit).toBe(false);
     act(() => useAppStore.getState().redo());
     expect(comparisonChoice(useAppStore.getState().workspace).fit).toBe(true);
+  });
+});
+
+describe('one lining-up choice for the snapshot table and the charts', () => {
+  it("the snapshot section's 'Line up by' writes the view's compareBy, one undo step", async () => {
+    const user = userEvent.setup({ delay: null });
+    function Tab() {
+      return <SnapshotsTab result={useCurveBuild()} />;
+    }
+    render(<Tab />);
+    await user.type(screen.getByLabelText('Snapshot name'), 'Close');
+    await user.click(screen.getByRole('button', { name: 'Take snapshot' }));
+    await user.click(screen.getByRole('radio', { name: 'calendar date' }));
+    expect(comparisonChoice(useAppStore.getState().workspace).by).toBe('date');
+    act(() => useAppStore.getState().undo());
+    expect(comparisonChoice(useAppStore.getState().workspace).by).toBe('time');
+    expect(screen.getByRole('radio', { name: 'time to maturity' })).toBeChecked();
   });
 });
 
