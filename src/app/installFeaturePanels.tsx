@@ -87,9 +87,7 @@ function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProp
 const roll = deferredPanel('roll versus term', () => import('../features/roll/RollSlot.tsx').then((m) => m.RollSlot));
 const scenarios = deferredPanel('scenarios', () => import('../features/scenarios/ScenariosTab.tsx').then((m) => m.ScenariosTab));
 const snapshots = deferredPanel('snapshots', () => import('../features/snapshots/SnapshotsTab.tsx').then((m) => m.SnapshotsTab));
-const fit = deferredPanel('smooth fit', () =>
-  import('../features/fit/FitPanel.tsx').then(({ FitPanel }) => ({ result }: PanelProps) => <FitPanel workspace={result.build.workspace} repricing={result.build.repricing} rowOfQuote={result.conversion.rowOfQuote} />),
-);
+const fit = deferredPanel('smooth fit', () => import('../features/compare/FitSlot.tsx').then((m) => m.FitSlot));
 const risk = deferredPanel('bond and sensitivities', () =>
   Promise.all([import('../features/risk/BondAnalyticsPanel.tsx'), import('../features/risk/SensitivityHeatMap.tsx')]).then(
     ([{ BondAnalyticsPanel }, { SensitivityHeatMap }]) =>

@@ -55,8 +55,24 @@ export const SCENARIO_STYLES: readonly SeriesStyle[] = [
   { colour: '#721d1d', dash: '6 2 1 2 1 2', width: 1.6 },
 ];
 
+/** How many snapshots the charts draw as comparisons; more chosen are counted ("N more not drawn"). */
+export const SNAPSHOT_OVERLAY_MAX = 3;
+
+/**
+ * The comparison lines (the same style on both charts): the chosen snapshots in the snapshots'
+ * order, the imported reference curve and the smooth fit. Picked by the same greedy search as the
+ * colours above, against every colour above.
+ */
+export const SNAPSHOT_STYLES: readonly SeriesStyle[] = [
+  { colour: '#a078f8', dash: '7 2', width: 1.6 },
+  { colour: '#f84880', dash: '2 4', width: 1.8 },
+  { colour: '#8088d8', dash: '8 2 2 2 2 2', width: 1.6 },
+];
+export const REFERENCE_STYLE: SeriesStyle = { colour: '#980800', dash: '3 1 3 5', width: 1.6 };
+export const FIT_STYLE: SeriesStyle = { colour: '#7048f8', dash: '10 2 2 2', width: 1.8 };
+
 /** Which styles can share a chart (for the distinctness check): the zero chart and the forward chart. */
 export const CHART_GROUPS: Readonly<Record<'zero' | 'forward', readonly SeriesStyle[]>> = {
-  zero: [BASE_STYLES.zero, BASE_STYLES.par, ...SCENARIO_STYLES],
-  forward: [BASE_STYLES.forward, BASE_STYLES.instantaneous, ...Object.values(METHOD_STYLES), ...SCENARIO_STYLES],
+  zero: [BASE_STYLES.zero, BASE_STYLES.par, ...SCENARIO_STYLES, ...SNAPSHOT_STYLES, REFERENCE_STYLE, FIT_STYLE],
+  forward: [BASE_STYLES.forward, BASE_STYLES.instantaneous, ...Object.values(METHOD_STYLES), ...SCENARIO_STYLES, ...SNAPSHOT_STYLES, REFERENCE_STYLE, FIT_STYLE],
 };

@@ -31,7 +31,8 @@ beforeAll(async () => {
   server = await serveDist();
   browser = await launchBrowser();
   let n = 0;
-  const doc = { ...demoWorkspace(() => `r${n++}`), scenarios: SCENARIOS } as unknown as Record<string, unknown>;
+  // The smooth fit drawn as a comparison on both charts (its choices open above the charts).
+  const doc = { ...demoWorkspace(() => `r${n++}`), scenarios: SCENARIOS, view: { compareFit: true } } as unknown as Record<string, unknown>;
   link = `${server.url}#${await encodeWorkspaceLink(doc)}`;
 });
 afterAll(async () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { BASE_STYLES, CHART_GROUPS, METHOD_STYLES, SCENARIO_OVERLAY_MAX, SCENARIO_STYLES, type SeriesStyle } from '../../src/charts/palette.ts';
+import { BASE_STYLES, CHART_GROUPS, FIT_STYLE, METHOD_STYLES, REFERENCE_STYLE, SCENARIO_OVERLAY_MAX, SCENARIO_STYLES, SNAPSHOT_OVERLAY_MAX, SNAPSHOT_STYLES, type SeriesStyle } from '../../src/charts/palette.ts';
 import { INTERPOLATIONS } from '../../src/core/index.ts';
 
 // Colour arithmetic for the checks below.
@@ -43,7 +43,8 @@ const deltaE = (a: string, b: string, m: M3): number => {
 };
 
 const pairs = <T,>(xs: readonly T[]): [T, T][] => xs.flatMap((a, i) => xs.slice(i + 1).map((b) => [a, b] as [T, T]));
-const ALL: readonly SeriesStyle[] = [...Object.values(BASE_STYLES), ...Object.values(METHOD_STYLES), ...SCENARIO_STYLES];
+const COMPARISONS: readonly SeriesStyle[] = [...SNAPSHOT_STYLES, REFERENCE_STYLE, FIT_STYLE];
+const ALL: readonly SeriesStyle[] = [...Object.values(BASE_STYLES), ...Object.values(METHOD_STYLES), ...SCENARIO_STYLES, ...COMPARISONS];
 const show = (s: SeriesStyle): string => `${s.colour} "${s.dash}"`;
 
 describe('chart series styles (src/charts/palette.ts)', () => {
@@ -62,6 +63,14 @@ describe('chart series styles (src/charts/palette.ts)', () => {
   it('gives every interpolation method an overlay style and every drawn scenario its own style', () => {
     for (const m of INTERPOLATIONS) expect(METHOD_STYLES[m], m).toBeDefined();
     expect(SCENARIO_STYLES.length).toBe(SCENARIO_OVERLAY_MAX);
+  });
+
+  it('gives every drawn snapshot, the reference curve and the smooth fit a style that can share both charts', () => {
+    expect(SNAPSHOT_STYLES.length).toBe(SNAPSHOT_OVERLAY_MAX);
+    for (const s of COMPARISONS) {
+      expect(CHART_GROUPS.zero, show(s)).toContain(s);
+      expect(CHART_GROUPS.forward, show(s)).toContain(s);
+    }
   });
 
   it('gives every series its own colour (all charts together)', () => {

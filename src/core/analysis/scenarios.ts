@@ -16,6 +16,7 @@ export * from './scenarioQuotes.ts';
 export * from './scenarioEffects.ts';
 export * from './scenarioSnapshots.ts';
 export * from './scenarioReference.ts';
+export * from './comparisonLines.ts';
 
 export interface ScenarioCurve {
   readonly scenario: Scenario;

@@ -6,6 +6,8 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useCurveSeries } from '../../hooks/useCurveSeries.ts';
 import { useMethodOverlay } from '../../hooks/useMethodOverlay.ts';
 import { useScenarioOverlay } from '../scenarios/useScenarioOverlay.ts';
+import { ComparisonControls } from '../compare/ComparisonControls.tsx';
+import { useComparisonOverlay } from '../compare/useComparisonOverlay.ts';
 import { useAppStore } from '../../state/store.ts';
 
 /** The zero and forward charts side by side on a shared maturity axis. */
@@ -16,6 +18,8 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
   const overlay = useMethodOverlay(curve ? result.conversion.doc : null, display, display.showMethodOverlay);
   // The document's scenarios drawn over the base curve (scenarios feature), from the deferred build.
   const scenarioLines = useScenarioOverlay(deferredResult);
+  // Snapshots, the reference curve and the smooth fit chosen in the view (compare feature), from the deferred build.
+  const comparisons = useComparisonOverlay(deferredResult);
   if (!curve || !series) {
     return (
       <section className="panel charts-panel" aria-label="Charts">
@@ -41,17 +45,21 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
   if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `cont, ${curve.dayCount} from settlement`, ...BASE_STYLES.instantaneous, points: series.instantaneous });
   zeroLines.push(...scenarioLines.zero);
   fwdLines.push(...scenarioLines.forward);
+  zeroLines.push(...comparisons.zero);
+  fwdLines.push(...comparisons.forward);
   const scenarioNote = scenarioOverlayNote(scenarioLines.notDrawn, scenarioLines.failed);
+  const compareNote = comparisons.notes.length > 0 ? comparisons.notes.join('; ') : null;
   const pending = display.showMethodOverlay ? 5 - overlay.length : 0;
   const markers = display.showPar ? series.markers.map((m) => ({ x: m.x, y: m.y, label: `Quote row ${(result.conversion.rowOfQuote[m.quote] ?? 0) + 1}: ${m.kind} ${m.date}` })) : [];
   return (
     <section className="panel charts-panel" aria-label="Charts">
+      <ComparisonControls drawn={comparisons.zero.length} />
       <div className="charts">
         <div className="chart-box">
           <h3>
             Zero curve <span className="tag">{tag}</span>
           </h3>
-          <Legend lines={zeroLines} extra={display.showPar ? 'quotes on the par line' : null} note={scenarioNote} />
+          <Legend lines={zeroLines} extra={display.showPar ? 'quotes on the par line' : null} note={scenarioNote} compareNote={compareNote} how={comparisons.how.zero} />
           <RateChart
             name={`Zero curve, ${tag}`}
             description={`Zero rates${display.showPar ? ' and par yields' : ''} against maturity, ${curve.interpolation} interpolation.`}
@@ -69,7 +77,7 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
           <h3>
             Forward curve <span className="tag">{tag}</span>
           </h3>
-          <Legend lines={fwdLines} extra="ticks mark pillar dates" note={scenarioNote} />
+          <Legend lines={fwdLines} extra="ticks mark pillar dates" note={scenarioNote} compareNote={compareNote} how={comparisons.how.forward} />
           <RateChart
             name={`Forward curve, ${display.forwardTenor} forwards, ${tag}`}
             description={`${display.forwardTenor} forward rates by start date${display.showInstantaneous ? ', with instantaneous forwards' : ''}${display.showMethodOverlay ? ', with every interpolation method overlaid' : ''}.`}
@@ -105,7 +113,7 @@ export function scenarioOverlayNote(notDrawn: number, failed: readonly string[])
   return parts.length ? parts.join('; ') : null;
 }
 
-function Legend({ lines, extra, note }: { lines: readonly ChartLine[]; extra: string | null; note: string | null }) {
+function Legend({ lines, extra, note, compareNote, how = [] }: { lines: readonly ChartLine[]; extra: string | null; note: string | null; compareNote: string | null; how?: readonly string[] }) {
   return (
     <ul className="legend">
       {lines.map((l) => (
@@ -116,8 +124,14 @@ function Legend({ lines, extra, note }: { lines: readonly ChartLine[]; extra: st
           {l.label} <span className="tag">{l.tag}</span>
         </li>
       ))}
+      {how.map((h) => (
+        <li key={h} className="muted legend-how">
+          {h}
+        </li>
+      ))}
       {extra && <li className="muted">{extra}; dashed past the last pillar</li>}
       {note && <li className="legend-note" data-testid="scenarios-not-drawn">{note}</li>}
+      {compareNote && <li className="legend-note" data-testid="comparisons-not-drawn">{compareNote}</li>}
     </ul>
   );
 }

@@ -35,6 +35,9 @@ export interface FitPanelProps {
   readonly onExcludeChange?: (exclude: number[]) => void;
   readonly weights?: Readonly<Record<number, number>>;
   readonly onWeightsChange?: (weights: Record<number, number>) => void;
+  /** What the fit minimises (controlled when onErrorsChange is given). */
+  readonly errors?: FitErrors;
+  readonly onErrorsChange?: (errors: FitErrors) => void;
 }
 
 /** Controlled when `set` is given, else local state seeded from the prop. */
@@ -53,7 +56,7 @@ export function FitPanel(props: FitPanelProps) {
   const [model, setModel] = useMaybeControlled<FitModel | 'none'>(props.model, props.onModelChange, 'nelson-siegel');
   const [exclude, setExclude] = useMaybeControlled<readonly number[]>(props.exclude, props.onExcludeChange as ((v: readonly number[]) => void) | undefined, []);
   const [weights, setWeights] = useMaybeControlled<Readonly<Record<number, number>>>(props.weights, props.onWeightsChange as ((v: Readonly<Record<number, number>>) => void) | undefined, {});
-  const [errors, setErrors] = useState<FitErrors>('yield');
+  const [errors, setErrors] = useMaybeControlled<FitErrors>(props.errors, props.onErrorsChange, 'yield');
   const [weightText, setWeightText] = useState<Record<number, string>>({});
   const ws = props.workspace;
   const result = useMemo(() => (ws && model !== 'none' ? fitCurve(ws, { model, errors, exclude, weights }) : null), [ws, model, errors, exclude, weights]);

@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { useReferenceInput } from '../compare/referenceInput.ts';
 import { parseReferenceCsv, QUOTE_UNIT_LABEL, QUOTE_UNIT_MODES, referenceConvention, referenceDifferences, type QuoteUnitMode } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
@@ -6,16 +7,18 @@ import { formatBp, formatPct } from '../scenarios/formatChange.ts';
 
 /**
  * Reference curve: paste or open a CSV of discount factors or zero rates by date from another
- * source and see our curve's difference in bp by date. Held in the panel only (not saved).
+ * source and see our curve's difference in bp by date. Held in this page only (not saved); the
+ * charts can draw it (comparisons).
  */
 export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
-  const [text, setText] = useState('');
+  const { text, compounding, dayCount, unit: unitChoice, set } = useReferenceInput();
+  const setText = (t: string): void => set({ text: t });
+  const setCompounding = (c: Compounding): void => set({ compounding: c });
+  const setDayCount = (d: CurveDayCount): void => set({ dayCount: d });
+  const setUnit = (u: QuoteUnitMode): void => set({ unit: u });
   const [fileError, setFileError] = useState<string | null>(null);
-  const [compounding, setCompounding] = useState<Compounding>('continuous');
-  const [dayCount, setDayCount] = useState<CurveDayCount>('ACT/365F');
   // Bare zero rates are read as on the sheet: in the sheet's unit unless chosen here (3.05%, 305bp always carry their own).
   const sheetUnit = useAppStore((s) => s.workspace.quoteUnit);
-  const [unitChoice, setUnit] = useState<QuoteUnitMode | null>(null);
   const unit = unitChoice ?? sheetUnit;
   const parsed = useMemo(() => (text.trim() === '' ? null : parseReferenceCsv(text, compounding, dayCount, unit)), [text, compounding, dayCount, unit]);
   const rows = parsed?.reference && curve ? referenceDifferences(curve, parsed.reference) : [];

@@ -17,14 +17,19 @@ export interface SnapshotPanelProps {
   readonly compounding: Compounding;
   readonly dayCount: CurveDayCount;
   readonly tenors?: readonly string[];
+  /** How another settlement lines up (controlled when onByChange is given; the charts' comparisons share it). */
+  readonly by?: CompareBy;
+  readonly onByChange?: (by: CompareBy) => void;
 }
 
 /** Snapshots: freeze the inputs under a name, rebuild them, and difference the current curve against one. */
-export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = KEY_TENORS }: SnapshotPanelProps) {
+export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = KEY_TENORS, by: byProp, onByChange }: SnapshotPanelProps) {
   const { snapshots, errors } = useMemo(() => validateSnapshots(value), [value]);
   const [name, setName] = useState('');
   const [chosen, setChosen] = useState(0);
-  const [by, setBy] = useState<CompareBy>('time');
+  const [byLocal, setByLocal] = useState<CompareBy>(byProp ?? 'time');
+  const by = onByChange ? (byProp ?? 'time') : byLocal;
+  const setBy = onByChange ?? setByLocal;
   const rebuilt = useMemo(() => snapshots.map((s) => rebuildSnapshot(s)), [snapshots]);
   const pick = Math.min(chosen, snapshots.length - 1);
   const other = pick >= 0 ? rebuilt[pick]?.build.curve ?? null : null;

@@ -1,5 +1,6 @@
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { comparisonChoice, setCompareBy } from '../compare/comparisonChoice.ts';
 import { ReferenceCurvePanel } from './ReferenceCurvePanel.tsx';
 import { SnapshotPanel } from './SnapshotPanel.tsx';
 
@@ -16,6 +17,7 @@ function nowWithOffset(): string {
 export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
   const value = useAppStore((s) => s.workspace.snapshots);
   const display = useAppStore((s) => s.workspace.display);
+  const by = useAppStore((s) => comparisonChoice(s.workspace).by);
   return (
     <>
       <SnapshotPanel
@@ -26,6 +28,8 @@ export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
         now={nowWithOffset}
         compounding={display.compounding}
         dayCount={display.dayCount}
+        by={by}
+        onByChange={setCompareBy}
       />
       <h3>Reference curve</h3>
       <ReferenceCurvePanel curve={result.build.curve} />
