@@ -107,9 +107,7 @@ function SkipLink() {
       href={`#${AFTER_SHEET_ID}`}
       onClick={(e) => {
         e.preventDefault();
-        const target = document.getElementById(AFTER_SHEET_ID);
-        target?.focus({ preventScroll: true });
-        target?.scrollIntoView({ block: 'start' });
+        document.getElementById(AFTER_SHEET_ID)?.focus(); // focusing scrolls it into view
       }}
     >
       Skip the quote sheet: go to the charts and tables
