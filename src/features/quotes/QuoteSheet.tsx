@@ -135,7 +135,7 @@ function showRowDetails(rowId: string): void {
   const { selectRow, setActiveTab } = useAppStore.getState();
   selectRow(rowId);
   setActiveTab('quote-check');
-  requestAnimationFrame(() => document.getElementById('tabpanel-quote-check')?.scrollIntoView({ block: 'nearest', behavior: 'auto' }));
+  requestAnimationFrame(() => document.getElementById('tabpanel-quote-check')?.scrollIntoView?.({ block: 'nearest', behavior: 'auto' }));
 }
 
 const QuoteRowView = memo(
