@@ -555,7 +555,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         </table>
       </div>
       <p id="sheet-help" className="help">
-        Paste rows from a spreadsheet or CSV onto any cell. A header row (kind or type, maturity or tenor, rate or yield, price or px, coupon or cpn, frequency, day count) shows
+        Arrow keys move between cells; Enter or typing edits a cell, Enter again commits and moves down, Escape takes the edit back. Paste rows from a spreadsheet or CSV onto any cell. A header row (kind or type, maturity or tenor, rate or yield, price or px, coupon or cpn, frequency, day count) shows
         how each column is read before you replace or append to the sheet; rows without a header fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y, 2031-11-15, 15-Nov-2031 or a numeric date in the chosen order; prices per 100 (99.875 or 99-28).
       </p>
     </section>
