@@ -34,6 +34,7 @@ export function App() {
   const deferred = useSettledValue(result);
   return (
     <div className="app">
+      <SkipLink />
       <header className="top">
         <h1>Tenorscope</h1>
         <span className="subtitle">yield-curve workbench</span>
@@ -65,7 +66,7 @@ export function App() {
           <QuoteSheet result={result} />
         </div>
         {undrawable.length > 0 ? (
-          <div className="right">
+          <div className="right" id={AFTER_SHEET_ID} tabIndex={-1} role="region" aria-label="Charts and tables">
             <p className="panel empty">
               Charts and tables are not drawn: they follow {undrawable.map((u) => `${u.path} (${u.value})`).join(', ')}, which this build does not know. Make an editable copy to choose a
               convention this build has.
@@ -73,7 +74,7 @@ export function App() {
           </div>
         ) : (
           <>
-            <div className="right">
+            <div className="right" id={AFTER_SHEET_ID} tabIndex={-1} role="region" aria-label="Charts and tables">
               <CurvesPanel result={result} deferredResult={deferred} />
               <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
             </div>
@@ -88,6 +89,29 @@ export function App() {
       </footer>
       <PrintHost result={deferred} />
     </div>
+  );
+}
+
+/** Where the skip link takes the focus: the charts and tables beside the quote sheet. */
+const AFTER_SHEET_ID = 'charts-and-tables';
+
+/**
+ * The page's first stop for the Tab key, shown only while focused: it moves the focus past the
+ * quote sheet (seven text cells a row) to the charts and tables. The fragment is left alone (the
+ * app reads links from it), so the link's action focuses its target itself.
+ */
+function SkipLink() {
+  return (
+    <a
+      className="skip-link"
+      href={`#${AFTER_SHEET_ID}`}
+      onClick={(e) => {
+        e.preventDefault();
+        document.getElementById(AFTER_SHEET_ID)?.focus(); // focusing scrolls it into view
+      }}
+    >
+      Skip the quote sheet: go to the charts and tables
+    </a>
   );
 }
 

@@ -124,8 +124,14 @@ try {
         dt.setData('text/plain', text);
         performance.mark('paste-start');
         document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
-        // The header paste shows its column-mapping preview (rendered synchronously for a discrete event); confirm it.
-        document.querySelector<HTMLButtonElement>('.paste-preview button')!.click();
+        // The header paste shows its column-mapping preview; confirm it. The preview is rendered in
+        // a task after the (dispatched, untrusted) paste event, not within it: wait for it task by task.
+        let confirm = document.querySelector<HTMLButtonElement>('.paste-preview button');
+        for (let t = 0; confirm === null && t < 2000; t++) {
+          await new Promise<void>((r) => { const ch = new MessageChannel(); ch.port1.onmessage = () => r(); ch.port2.postMessage(0); });
+          confirm = document.querySelector<HTMLButtonElement>('.paste-preview button');
+        }
+        confirm!.click();
         performance.mark('paste-handled'); // the paste handler, the confirmation and any synchronous render have run
         for (let f = 0; f < 600; f++) {
           await new Promise<void>((r) => requestAnimationFrame(() => { const ch = new MessageChannel(); ch.port1.onmessage = () => r(); ch.port2.postMessage(0); }));

@@ -145,3 +145,138 @@ describe('keyboard only', () => {
     expect(diagnostics(page)).toEqual({ pageErrors: [], consoleErrors: [], failedRequests: [], blockedRequests: [] });
   });
 });
+
+/** 360 invented swap quotes on monthly maturities (test data), with a header, as a spreadsheet pastes them. */
+const SHEET_ROWS = 360;
+const rateOf = (i: number): string => (4.0 - 0.5 * Math.exp(-(13 + i) / 24) + 0.35 * (1 - Math.exp(-(13 + i) / 96))).toFixed(4);
+function sheetOf360(): string {
+  const lines = ['Type\tMaturity\tRate\tCoupon\tClean price\tFrequency\tDay count'];
+  for (let i = 0; i < SHEET_ROWS; i++) {
+    const months = 13 + i;
+    lines.push(`swap\t${2027 + Math.floor(months / 12)}-${String((months % 12) + 1).padStart(2, '0')}-15\t${rateOf(i)}\t\t\t1\t30/360`);
+  }
+  return lines.join('\n');
+}
+
+// The sheet's keyboard model, as a spreadsheet user expects it (README, Quotes: keyboard): the
+// arrow keys move between cells, Enter or typing starts an edit, Enter commits and moves down,
+// Escape takes the edit back. A fresh page, so the skip link is the first Tab stop.
+describe('the quote sheet from the keyboard', () => {
+  let app2: BuiltApp | undefined;
+  let outer: Page;
+  beforeAll(async () => {
+    app2 = await openWorkbench({ viewport: { width: 1600, height: 1000 } });
+    outer = page;
+    page = app2.page;
+  });
+  afterAll(async () => {
+    page = outer;
+    await app2?.close();
+  });
+
+  const editing = (): Promise<boolean> => page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.editing === 'true');
+  const value = (row: number, column: string): Promise<string> => page.getByRole('textbox', { name: `Row ${row} ${column}` }).inputValue();
+
+  it('the first Tab reaches the skip link, and Enter on it moves the focus past the sheet to the charts and tables', async () => {
+    await page.getByRole('grid', { name: /Quotes/ }).waitFor();
+    await page.keyboard.press('Tab');
+    expect(await focused()).toBe('a: Skip the quote sheet: go to the charts and tables');
+    expect(await page.evaluate(() => document.activeElement!.getBoundingClientRect().top >= 0)).toBe(true); // shown while focused
+    await page.keyboard.press('Enter');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe('charts-and-tables');
+    expect(await focused()).toBe('region: Charts and tables');
+    await page.keyboard.press('Tab');
+    // The next stop is inside the charts and tables, not a cell of the sheet.
+    expect(await page.evaluate(() => document.getElementById('charts-and-tables')!.contains(document.activeElement))).toBe(true);
+    expect(await focused()).not.toMatch(/\bRow \d+\b/);
+  });
+
+  it('on a 360-row sheet the arrow keys move between cells, never the caret, down to the last row', async () => {
+    await page.getByRole('textbox', { name: 'Row 1 Kind' }).focus();
+    await page.evaluate((text) => {
+      const dt = new DataTransfer();
+      dt.setData('text/plain', text);
+      document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
+    }, sheetOf360());
+    await page.getByRole('button', { name: 'Replace the sheet' }).waitFor({ timeout: 10_000 });
+    await page.keyboard.press('Enter');
+    await page.getByText(`${SHEET_ROWS} quotes in the curve`).waitFor({ timeout: 20_000 });
+    await page.getByRole('textbox', { name: 'Row 1 Kind' }).focus();
+    await page.keyboard.press('ArrowRight');
+    expect(await focused()).toBe('input: Row 1 Maturity');
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('ArrowLeft');
+    expect(await focused()).toBe('input: Row 1 Rate / yield');
+    for (let i = 0; i < SHEET_ROWS - 1; i++) await page.keyboard.press('ArrowDown');
+    expect(await focused()).toBe(`input: Row ${SHEET_ROWS} Rate / yield`);
+    await page.keyboard.press('ArrowDown'); // the last row: the focus stays
+    expect(await focused()).toBe(`input: Row ${SHEET_ROWS} Rate / yield`);
+    // The grid announces the row's place among all 361 (header included), and nothing was typed.
+    expect(await page.evaluate(() => document.activeElement!.closest('tr')!.getAttribute('aria-rowindex'))).toBe(String(SHEET_ROWS + 1));
+    expect(await page.getByRole('grid', { name: /Quotes/ }).getAttribute('aria-rowcount')).toBe(String(SHEET_ROWS + 1));
+    expect(await value(SHEET_ROWS, 'Rate / yield')).toBe(rateOf(SHEET_ROWS - 1));
+    expect(await editing()).toBe(false);
+    await page.keyboard.press('Control+Home');
+    expect(await focused()).toBe('input: Row 1 Rate / yield');
+    await page.keyboard.press('End');
+    expect(await focused()).toBe('input: Row 1 Day count');
+    await page.keyboard.press('Home');
+    expect(await focused()).toBe('input: Row 1 Kind');
+  });
+
+  it('Enter edits with the caret at the end, Enter again commits and moves down, Escape takes an edit back', async () => {
+    await page.getByRole('textbox', { name: 'Row 2 Rate / yield' }).focus();
+    const row2 = rateOf(1);
+    const row3 = rateOf(2);
+    await page.keyboard.press('Enter');
+    expect(await focused()).toBe('input: Row 2 Rate / yield'); // Enter on a focused cell edits it, in place
+    expect(await editing()).toBe(true);
+    expect(await page.evaluate(() => {
+      const el = document.activeElement as HTMLInputElement;
+      return [el.selectionStart, el.selectionEnd, el.value.length];
+    })).toEqual([row2.length, row2.length, row2.length]);
+    await page.keyboard.type('1');
+    await page.keyboard.press('Enter');
+    expect(await value(2, 'Rate / yield')).toBe(`${row2}1`);
+    expect(await focused()).toBe('input: Row 3 Rate / yield');
+    expect(await editing()).toBe(false);
+    await page.keyboard.press('Enter');
+    await page.keyboard.press('Backspace');
+    await page.keyboard.type('99');
+    expect(await value(3, 'Rate / yield')).toBe(`${row3.slice(0, -1)}99`);
+    await page.keyboard.press('Escape');
+    expect(await value(3, 'Rate / yield')).toBe(row3);
+    expect(await focused()).toBe('input: Row 3 Rate / yield');
+    expect(await editing()).toBe(false);
+    // The cancelled edit left no undo step: undo takes back the edit of row 2.
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => value(2, 'Rate / yield')).toBe(row2);
+    expect(await value(3, 'Rate / yield')).toBe(row3);
+  });
+
+  it('typing on a focused cell starts an edit with that character, and the arrows then move the caret', async () => {
+    await page.getByRole('textbox', { name: 'Row 3 Rate / yield' }).focus();
+    await page.keyboard.type('3');
+    expect(await value(3, 'Rate / yield')).toBe('3');
+    expect(await editing()).toBe(true);
+    await page.keyboard.press('ArrowLeft'); // while editing: the caret, not the cell
+    await page.keyboard.type('2');
+    expect(await focused()).toBe('input: Row 3 Rate / yield');
+    expect(await value(3, 'Rate / yield')).toBe('23');
+    await page.keyboard.press('Enter');
+    expect(await focused()).toBe('input: Row 4 Rate / yield');
+    expect(await value(3, 'Rate / yield')).toBe('23');
+    await page.keyboard.press('Shift+Tab'); // Tab and Shift+Tab move across
+    expect(await focused()).toBe('input: Row 4 Maturity');
+    await page.keyboard.press('ArrowRight'); // not editing again: the arrows move between cells
+    expect(await focused()).toBe('input: Row 4 Rate / yield');
+    expect(await value(4, 'Rate / yield')).toBe(rateOf(3));
+  });
+
+  it('ran without page errors or console errors', () => {
+    const d = diagnostics(page);
+    expect(d.pageErrors).toEqual([]);
+    expect(d.consoleErrors).toEqual([]);
+  });
+});

@@ -1,4 +1,4 @@
-import { memo, useCallback, useMemo, useRef, useState, type ClipboardEvent, type FocusEvent, type KeyboardEvent } from 'react';
+import { memo, useCallback, useMemo, useRef, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
 import {
   LIMITS,
   rowsLeftOutMessage,
@@ -66,7 +66,10 @@ interface RowViewProps {
   readonly inCurve: boolean;
 }
 
-/** Moves focus to the same column of another row, scrolling the sheet by no more than it takes to show it. */
+/**
+ * Moves focus to a cell, scrolling the sheet by no more than it takes to show it. The cell is
+ * focused, not edited: its text is selected, so typing replaces it (see the sheet's keyboard model).
+ */
 function focusCell(grid: HTMLElement | null, row: number, column: string): void {
   const el = grid?.querySelector<HTMLInputElement>(`input[data-row="${row}"][data-col="${column}"]`);
   if (!el) return;
@@ -74,6 +77,16 @@ function focusCell(grid: HTMLElement | null, row: number, column: string): void 
   el.scrollIntoView?.({ block: 'nearest', inline: 'nearest' });
   el.select();
 }
+
+/** The cell being edited: where, and its text when the edit began (what Escape goes back to). */
+interface CellEdit {
+  readonly el: HTMLInputElement;
+  readonly rowId: string;
+  readonly column: QuoteColumn;
+}
+
+/** A key that types into a focused cell (and so starts an edit with it): one character, or a deletion. */
+const typesText = (e: KeyboardEvent): boolean => !e.ctrlKey && !e.metaKey && !e.altKey && (e.key.length === 1 || e.key === 'Backspace' || e.key === 'Delete');
 
 interface SheetCellProps {
   readonly rowId: string;
@@ -204,8 +217,11 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const cancelReading = useRef<(() => void) | null>(null);
   const gridRef = useRef<HTMLTableElement>(null);
   const scrollRef = useRef<HTMLDivElement>(null);
-  // The row holding the focus, kept rendered in a windowed sheet (tracked only when windowed).
-  const [focusedRow, setFocusedRow] = useState<number | null>(null);
+  // The row holding the focus, kept rendered in a windowed sheet. A ref, not state: an arrow move
+  // re-renders nothing (the row is rendered while focused; the window reads this when the view moves).
+  const focusedRow = useRef<number | null>(null);
+  // The cell being edited, if any; the others are only focused (the arrow keys move between them).
+  const editing = useRef<CellEdit | null>(null);
   const rowInfo = useMemo(
     () => rows.map((row, i) => ({ key: row.id, hasMessage: hasMessages(result.rowIssues[i] ?? {}) })),
     [rows, result.rowIssues],
@@ -213,9 +229,47 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const { parts, reveal } = useRowWindow(scrollRef, rowInfo, focusedRow);
   const moveTo = (row: number, column: string): void => reveal(row, () => focusCell(gridRef.current, row, column));
   const onFocus = (e: FocusEvent<HTMLTableElement>): void => {
+    if (editing.current && editing.current.el !== (e.target as Element)) stopEditing();
     if (rows.length <= WINDOW_FROM_ROWS) return;
     const r = (e.target as HTMLElement).dataset?.row;
-    setFocusedRow(r === undefined ? null : Number(r));
+    focusedRow.current = r === undefined ? null : Number(r);
+  };
+  const onBlur = (e: FocusEvent<HTMLTableElement>): void => {
+    if (editing.current?.el === (e.target as Element)) stopEditing();
+  };
+
+  /** Starts editing a focused cell: a new undo step, caret at the end or (for typing over it) the text selected. */
+  const startEditing = (el: HTMLInputElement, row: number, column: QuoteColumn, caret: 'end' | 'select' | 'as-is'): void => {
+    const id = rows[row]?.id;
+    if (id === undefined) return;
+    useAppStore.getState().endEdit();
+    editing.current = { el, rowId: id, column };
+    el.dataset.editing = 'true';
+    if (caret === 'end') el.setSelectionRange(el.value.length, el.value.length);
+    else if (caret === 'select') el.select();
+  };
+  function stopEditing(): void {
+    const ed = editing.current;
+    if (!ed) return;
+    delete ed.el.dataset.editing;
+    editing.current = null;
+  }
+  /** Escape: the cell goes back to its text from before the edit, as if the edit never happened. */
+  const cancelEditing = (): void => {
+    const ed = editing.current;
+    if (!ed) return;
+    useAppStore.getState().cancelEdit(`cell:${ed.rowId}:${ed.column}`);
+    stopEditing();
+    // The store's text is back in the input after React's commit; select it as a focused cell's.
+    requestAnimationFrame(() => {
+      if (document.activeElement === ed.el && editing.current === null) ed.el.select();
+    });
+  };
+  const onMouseDown = (e: MouseEvent<HTMLTableElement>): void => {
+    // A click in a cell edits it where clicked (the caret the browser places), as a text field does.
+    const el = e.target as HTMLInputElement;
+    if (el.tagName !== 'INPUT' || el.dataset.col === undefined || editing.current?.el === el) return;
+    startEditing(el, Number(el.dataset.row), el.dataset.col as QuoteColumn, 'as-is');
   };
 
   const inCurve = new Set<number>();
@@ -252,20 +306,70 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
     );
   }, []);
 
+  /**
+   * The sheet's keyboard model (as a spreadsheet's): a focused cell is not being edited, and the
+   * arrow keys (Home and End along the row, Ctrl+Home and Ctrl+End to the first and last row)
+   * move between cells; Enter starts editing with the caret at the end, and typing starts editing
+   * with the character typed (it replaces the text). While editing, Left, Right, Home and End move
+   * the caret; Enter commits and moves down (adding a row below the last), Shift+Enter up, Up and
+   * Down commit and move; Escape puts the text back as it was before the edit. Tab and Shift+Tab
+   * move across (the browser's own order), and leaving a cell commits it.
+   */
   const onKeyDown = (e: KeyboardEvent<HTMLTableElement>): void => {
-    const el = e.target as HTMLElement;
-    if (el.tagName !== 'INPUT' || el.dataset.row === undefined) return;
+    const el = e.target as HTMLInputElement;
+    if (el.tagName !== 'INPUT' || el.dataset.row === undefined || el.dataset.col === undefined) return;
     const r = Number(el.dataset.row);
-    const c = el.dataset.col!;
-    if (e.key === 'ArrowDown' || (e.key === 'Enter' && !e.shiftKey)) {
-      e.preventDefault();
-      if (r + 1 >= rows.length && e.key === 'Enter') {
-        addRow(null);
-        requestAnimationFrame(() => moveTo(r + 1, c));
-      } else if (r + 1 < rows.length) moveTo(r + 1, c);
-    } else if (e.key === 'ArrowUp' || (e.key === 'Enter' && e.shiftKey)) {
-      e.preventDefault();
-      if (r > 0) moveTo(r - 1, c);
+    const c = el.dataset.col as QuoteColumn;
+    const isEditing = editing.current?.el === el;
+    const k = QUOTE_COLUMNS.indexOf(c);
+    if (e.altKey || e.metaKey) return;
+    switch (e.key) {
+      case 'Enter':
+        e.preventDefault();
+        if (!isEditing && !e.shiftKey) {
+          if (!readOnly) startEditing(el, r, c, 'end');
+          return;
+        }
+        if (e.shiftKey) {
+          if (r > 0) moveTo(r - 1, c);
+        } else if (r + 1 >= rows.length) {
+          if (readOnly || full) return;
+          addRow(null);
+          requestAnimationFrame(() => moveTo(r + 1, c));
+        } else moveTo(r + 1, c);
+        return;
+      case 'Escape':
+        if (!isEditing) return;
+        e.preventDefault();
+        cancelEditing();
+        return;
+      case 'ArrowDown':
+        e.preventDefault();
+        if (r + 1 < rows.length) moveTo(r + 1, c);
+        return;
+      case 'ArrowUp':
+        e.preventDefault();
+        if (r > 0) moveTo(r - 1, c);
+        return;
+      case 'ArrowLeft':
+      case 'ArrowRight':
+        if (isEditing || e.ctrlKey || e.shiftKey) return;
+        e.preventDefault();
+        {
+          const next = QUOTE_COLUMNS[k + (e.key === 'ArrowLeft' ? -1 : 1)];
+          if (next) moveTo(r, next);
+        }
+        return;
+      case 'Home':
+      case 'End':
+        if (isEditing || e.shiftKey) return;
+        e.preventDefault();
+        if (e.ctrlKey) moveTo(e.key === 'Home' ? 0 : rows.length - 1, c);
+        else moveTo(r, e.key === 'Home' ? QUOTE_COLUMNS[0]! : QUOTE_COLUMNS[QUOTE_COLUMNS.length - 1]!);
+        return;
+      default:
+        // Typing on a focused cell starts an edit: its text is selected, so the key replaces it.
+        if (!isEditing && !readOnly && typesText(e)) startEditing(el, r, c, 'select');
     }
   };
 
@@ -401,6 +505,8 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
           onPaste={onPaste}
           onKeyDown={onKeyDown}
           onFocus={onFocus}
+          onBlur={onBlur}
+          onMouseDown={onMouseDown}
           aria-rowcount={rows.length + 1}
         >
           <colgroup>
@@ -449,7 +555,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         </table>
       </div>
       <p id="sheet-help" className="help">
-        Paste rows from a spreadsheet or CSV onto any cell. A header row (kind or type, maturity or tenor, rate or yield, price or px, coupon or cpn, frequency, day count) shows
+        Arrow keys move between cells; Enter or typing edits a cell, Enter again commits and moves down, Escape takes the edit back. Paste rows from a spreadsheet or CSV onto any cell. A header row (kind or type, maturity or tenor, rate or yield, price or px, coupon or cpn, frequency, day count) shows
         how each column is read before you replace or append to the sheet; rows without a header fill from the focused cell. Rates as 3.25%, 325bp or a bare number in the chosen unit; maturities as 6M, 10Y, 2031-11-15, 15-Nov-2031 or a numeric date in the chosen order; prices per 100 (99.875 or 99-28).
       </p>
     </section>

@@ -18,6 +18,12 @@ export interface HistorySlice {
   commit(next: WorkbenchDocument, label: string, mergeKey?: string | null): void;
   /** Ends a run of merged edits (a cell lost focus). */
   endEdit(): void;
+  /**
+   * Takes back the run of merged edits with key `mergeKey` if it is the last step (Escape in a
+   * cell being edited): the document goes back to before the run, with no step left behind and
+   * nothing to redo. Does nothing otherwise.
+   */
+  cancelEdit(mergeKey: string): void;
   undo(): void;
   redo(): void;
 }
@@ -42,6 +48,12 @@ export const createHistorySlice: StateCreator<AppState, [], [], HistorySlice> = 
   },
   endEdit() {
     if (get().lastEditKey !== null) set({ lastEditKey: null });
+  },
+  cancelEdit(mergeKey) {
+    const s = get();
+    const prev = s.past[s.past.length - 1];
+    if (s.readOnly || s.lastEditKey !== mergeKey || !prev) return;
+    set({ workspace: prev, past: s.past.slice(0, -1), lastEditKey: null, lastEditLabel: null, pasteNotice: null });
   },
   undo() {
     const s = get();
