@@ -4,6 +4,7 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { App } from './app/App.tsx';
+import { FIRST_FRAME_STEPS } from './hooks/firstFrame.ts';
 import { installFeaturePanels, preloadFeaturePanels } from './app/installFeaturePanels.tsx';
 import { openLinkBeforeRender } from './share/useOpenLinkOnStart.ts';
 import { startPersistence } from './state/persistence.ts';
@@ -29,4 +30,14 @@ const render = (): void => {
   setTimeout(() => void preloadFeaturePanels().catch(() => undefined), 500);
 };
 
-void persistence.ready.then(openLinkBeforeRender).then(render, render);
+// Start-up work in tasks of their own, each short (a long task delays any input): the restore,
+// the base build, the charts' samples, then the first render, which finds them made.
+const nextTask = (): Promise<void> => new Promise((resolve) => setTimeout(resolve, 0));
+const prepare = async (): Promise<void> => {
+  for (const step of FIRST_FRAME_STEPS) {
+    await nextTask();
+    step();
+  }
+  await nextTask();
+};
+void persistence.ready.then(openLinkBeforeRender).then(prepare).then(render, render);

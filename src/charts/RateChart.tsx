@@ -72,7 +72,7 @@ export function nearestIndex(points: readonly SamplePoint[], x: number): number 
 export const RateChart = memo(function RateChart(props: RateChartProps) {
   const { name, description, lines, markers = [], pillars = [], xMax, axis, xLabel, yLabel } = props;
   const descId = useId();
-  const [boxRef, W] = useChartWidth<HTMLElement>(W0);
+  const [boxRef, W, measured] = useChartWidth<HTMLElement>(W0);
   const H = heightFor(W);
   const x = useMemo(() => maturityScale(axis, xMax, [M.left, W - M.right]), [axis, xMax, W]);
   const y = useMemo(() => {
@@ -85,6 +85,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
     return scaleLinear().domain([lo - pad, hi + pad]).range([H - M.bottom, M.top]).nice(6);
   }, [lines, markers, H]);
   const paths = useMemo(() => {
+    if (!measured) return [];
     const gen = line<SamplePoint>()
       .x((p) => x(p.x))
       .y((p) => y(p.y))
@@ -97,7 +98,17 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
       const outside = firstOut < 0 ? [] : l.points.slice(Math.max(0, firstOut - 1));
       return { l, solid: gen(inside) ?? '', dashed: outside.length > 1 ? (gen(outside) ?? '') : '' };
     });
-  }, [lines, x, y]);
+  }, [lines, x, y, measured]);
+  // Until its box is read (a layout effect, before the first paint) the chart is an empty frame of
+  // the fallback size: the plot is drawn once, at its width (performance: a 500-quote workspace's
+  // markers and pillar ticks, drawn and then moved, were a large part of the first render).
+  if (!measured) {
+    return (
+      <figure className="chart" ref={boxRef}>
+        <svg role="img" aria-label={name} viewBox={`0 0 ${W} ${H}`} width={W} height={H} />
+      </figure>
+    );
+  }
   // Fewer x ticks on a narrow chart, so tick labels never overlap at full size.
   const xTicks = thinTicks(maturityTicks(axis, xMax), x, 30);
   const yTicks = y.ticks(H < 300 ? 5 : 6);

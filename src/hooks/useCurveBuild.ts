@@ -147,6 +147,35 @@ export function deriveBuild(
   return { conversion, build, rowIssues, invalidCount: conversion.invalidRows + engineInvalid, disabledCount, fatal };
 }
 
+/** What the base build reads from the document (the store's objects, compared by identity). */
+interface BuildInputs {
+  readonly quotes: WorkbenchDocument['quotes'];
+  readonly quoteUnit: WorkbenchDocument['quoteUnit'];
+  readonly settlement: WorkbenchDocument['settlement'];
+  readonly curve: WorkbenchDocument['curve'];
+  readonly dateOrder: WorkbenchDocument['display']['dateOrder'];
+  readonly decimalMark: WorkbenchDocument['display']['decimalMark'];
+}
+
+/** The last base build and the inputs it was derived from. */
+let lastBase: { readonly inputs: BuildInputs; readonly result: WorkbenchBuild } | null = null;
+
+const sameInputs = (a: BuildInputs, b: BuildInputs): boolean =>
+  a.quotes === b.quotes && a.quoteUnit === b.quoteUnit && a.settlement === b.settlement && a.curve === b.curve && a.dateOrder === b.dateOrder && a.decimalMark === b.decimalMark;
+
+/** deriveBuild of these inputs, or the last result when they are the very same objects (a pure function's result, reused). */
+function baseBuild(inputs: BuildInputs): WorkbenchBuild {
+  if (lastBase && sameInputs(lastBase.inputs, inputs)) return lastBase.result;
+  const { quotes, quoteUnit, settlement, curve, dateOrder, decimalMark } = inputs;
+  const result = deriveBuild({ quotes, quoteUnit, settlement, curve, display: { dateOrder, decimalMark } });
+  lastBase = { inputs, result };
+  return result;
+}
+
+/** The base build of a document, as useCurveBuild derives it (reused while its inputs are the same objects). */
+export const baseBuildOf = (ws: WorkbenchDocument): WorkbenchBuild =>
+  baseBuild({ quotes: ws.quotes, quoteUnit: ws.quoteUnit, settlement: ws.settlement, curve: ws.curve, dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark });
+
 /** The base curve of the workspace, rebuilt only when its inputs change. */
 export function useCurveBuild(): WorkbenchBuild {
   const quotes = useAppStore((s) => s.workspace.quotes);
@@ -155,5 +184,5 @@ export function useCurveBuild(): WorkbenchBuild {
   const curve = useAppStore((s) => s.workspace.curve);
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
-  return useMemo(() => deriveBuild({ quotes, quoteUnit, settlement, curve, display: { dateOrder, decimalMark } }), [quotes, quoteUnit, settlement, curve, dateOrder, decimalMark]);
+  return useMemo(() => baseBuild({ quotes, quoteUnit, settlement, curve, dateOrder, decimalMark }), [quotes, quoteUnit, settlement, curve, dateOrder, decimalMark]);
 }

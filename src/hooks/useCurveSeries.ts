@@ -101,6 +101,21 @@ export function curveSeries(curve: Curve, display: DisplaySettings, repricing: r
   };
 }
 
+/** The last base series and what it was sampled from (the build's and the store's objects, by identity). */
+let lastSeries: { readonly curve: Curve; readonly display: DisplaySettings; readonly repricing: readonly Repricing[]; readonly series: CurveSeries } | null = null;
+
+/**
+ * curveSeries of the base curve, or the last result when the curve, display settings and repricing
+ * are the very same objects: the start-up samples the charts in a task before the first render
+ * (src/hooks/firstFrame.ts), and the charts' first render reads it.
+ */
+export function baseCurveSeries(curve: Curve, display: DisplaySettings, repricing: readonly Repricing[]): CurveSeries {
+  if (lastSeries && lastSeries.curve === curve && lastSeries.display === display && lastSeries.repricing === repricing) return lastSeries.series;
+  const series = curveSeries(curve, display, repricing);
+  lastSeries = { curve, display, repricing, series };
+  return series;
+}
+
 export function useCurveSeries(curve: Curve | null, display: DisplaySettings, repricing: readonly Repricing[]): CurveSeries | null {
-  return useMemo(() => (curve ? curveSeries(curve, display, repricing) : null), [curve, display, repricing]);
+  return useMemo(() => (curve ? baseCurveSeries(curve, display, repricing) : null), [curve, display, repricing]);
 }

@@ -59,7 +59,7 @@ interface ChannelLike {
 export interface PersistenceDeps {
   /** Whether to try IndexedDB (the page's `indexedDB`). */
   readonly indexedDb: boolean;
-  /** localStorage: the fallback, and where earlier builds' saves are found. */
+  /** localStorage: the fallback, and where earlier builds' saves are found (read only when needed). */
   readonly storage: Storage | null;
   readonly openChannel: (() => ChannelLike) | null;
   /** The page, for `pagehide` and `storage` events. */
@@ -76,18 +76,25 @@ export interface PersistenceDeps {
 const randomId = (): string => Math.floor(Math.random() * 36 ** 8).toString(36).padStart(8, '0');
 
 export function browserDeps(): PersistenceDeps {
-  let storage: Storage | null = null;
-  try {
-    storage = window.localStorage;
-  } catch {
-    storage = null;
-  }
+  let storage: Storage | null | undefined;
   const BC = (globalThis as { BroadcastChannel?: new (name: string) => ChannelLike }).BroadcastChannel;
   const ric = (globalThis as { requestIdleCallback?: (cb: () => void, o: { timeout: number }) => number }).requestIdleCallback;
   const cic = (globalThis as { cancelIdleCallback?: (h: number) => void }).cancelIdleCallback;
   return {
     indexedDb: typeof indexedDB !== 'undefined',
-    storage,
+    // Read on first use: the first touch of localStorage waits for the browser to load it (25-40 ms
+    // of the start-up task on a busy machine), and a page with IndexedDB whose earlier saves were
+    // moved in never needs it.
+    get storage(): Storage | null {
+      if (storage === undefined) {
+        try {
+          storage = window.localStorage;
+        } catch {
+          storage = null;
+        }
+      }
+      return storage;
+    },
     openChannel: BC ? () => new BC(CHANNEL_NAME) : null,
     target: window,
     now: () => Date.now(),
@@ -463,9 +470,9 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
 
   // Earlier builds kept one workspace in localStorage: move it (and any copies of a damaged one) into the list.
   const migrateLegacy = async (): Promise<string | null> => {
+    if (!backend || (await backend.get(MIGRATED_KEY)) === true) return null;
     const ls = deps.storage;
-    if (!ls || !backend) return null;
-    if ((await backend.get(MIGRATED_KEY)) === true) return null;
+    if (!ls) return null;
     let raw: string | null = null;
     const copies: string[] = [];
     try {
@@ -537,7 +544,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
 
   // 1. Restore.
   const restore = async (): Promise<void> => {
-    const opened = await openBackend(deps.indexedDb, deps.storage);
+    const opened = await openBackend(deps.indexedDb, () => deps.storage);
     backend = opened && deps.wrapBackend ? deps.wrapBackend(opened) : opened;
     if (stopped) return;
     if (!backend) {

@@ -100,9 +100,10 @@ export function localStorageBackend(storage: Storage): WorkspaceBackend {
 
 /**
  * Opens IndexedDB when the browser has it and it works (an open and a read), else localStorage,
- * else null (nothing can be kept: the work stays in the page).
+ * else null (nothing can be kept: the work stays in the page). `storage` is asked for only when
+ * IndexedDB fails.
  */
-export async function openBackend(hasIndexedDb: boolean, storage: Storage | null): Promise<WorkspaceBackend | null> {
+export async function openBackend(hasIndexedDb: boolean, storage: () => Storage | null): Promise<WorkspaceBackend | null> {
   if (hasIndexedDb) {
     try {
       const backend = indexedDbBackend();
@@ -112,5 +113,6 @@ export async function openBackend(hasIndexedDb: boolean, storage: Storage | null
       // fall through to localStorage
     }
   }
-  return storage ? localStorageBackend(storage) : null;
+  const ls = storage();
+  return ls ? localStorageBackend(ls) : null;
 }

@@ -21,6 +21,13 @@ const snappedView = (el: HTMLElement): { top: number; height: number } => {
   return { top, height: Math.ceil((el.scrollTop + el.clientHeight) / SNAP_PX) * SNAP_PX - top };
 };
 
+/**
+ * The view assumed before the sheet's box is first read (its CSS max-height): a large sheet
+ * restored on load renders about a view of rows on its first frame instead of all of them
+ * (performance: the first layout of 500 rendered rows was most of a 400 ms task on reload).
+ */
+const FIRST_VIEW_PX = 640;
+
 /** A run of consecutive rows to render, or a gap of rows left out (rendered as one spacer). */
 export type WindowPart = { readonly kind: 'rows'; readonly from: number; readonly to: number } | { readonly kind: 'gap'; readonly heightPx: number; readonly key: string };
 
@@ -45,7 +52,8 @@ interface RowInfo {
  * UI only: nothing here touches the workspace or the numbers.
  */
 export function useRowWindow(scrollRef: RefObject<HTMLElement | null>, rows: readonly RowInfo[], pinnedRef: RefObject<number | null>): RowWindow {
-  const [view, setView] = useState({ top: 0, height: 0 });
+  // height -1: not read yet (FIRST_VIEW_PX is assumed); 0: not laid out (every row is rendered).
+  const [view, setView] = useState({ top: 0, height: -1 });
   // Read at render time: the focused row changes on every arrow move and needs no render of its
   // own (it is rendered while it has the focus); it matters once the view moves, which renders.
   const pinned = pinnedRef.current;
@@ -79,7 +87,8 @@ export function useRowWindow(scrollRef: RefObject<HTMLElement | null>, rows: rea
   }, [scrollRef]);
 
   const heightOf = (r: RowInfo): number => measured.current.get(r.key) ?? typicalRow.current + (r.hasMessage ? MESSAGE_ESTIMATE_PX : 0);
-  const windowed = rows.length > WINDOW_FROM_ROWS && view.height > 0;
+  const windowed = rows.length > WINDOW_FROM_ROWS && view.height !== 0;
+  const viewHeight = view.height < 0 ? FIRST_VIEW_PX : view.height;
 
   let parts: WindowPart[] = [{ kind: 'rows', from: 0, to: rows.length }];
   let offsets: number[] | null = null;
@@ -88,7 +97,7 @@ export function useRowWindow(scrollRef: RefObject<HTMLElement | null>, rows: rea
     offsets[0] = 0;
     for (let i = 0; i < rows.length; i++) offsets[i + 1] = offsets[i]! + heightOf(rows[i]!);
     const top = view.top - OVERSCAN_PX;
-    const bottom = view.top + view.height + OVERSCAN_PX;
+    const bottom = view.top + viewHeight + OVERSCAN_PX;
     let from = 0;
     while (from < rows.length && offsets[from + 1]! <= top) from++;
     let to = from;
