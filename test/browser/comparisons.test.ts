@@ -57,7 +57,7 @@ describe('comparisons on the charts in Chromium', () => {
     await page.getByText('Compare on the charts').click();
     await page.getByRole('checkbox', { name: 'Month-end close' }).check();
     await page.getByRole('checkbox', { name: 'Smooth fit' }).check();
-    const charts = page.getByRole('region', { name: 'Charts' });
+    const charts = page.getByRole('region', { name: 'Charts', exact: true });
     await charts.getByText('Nelson-Siegel fit (zero)').first().waitFor({ timeout: 20_000 });
     for (const text of ['Snapshot Month-end close (zero)', 'Snapshot Month-end close (3M forward)', 'Nelson-Siegel fit (zero)', 'Nelson-Siegel fit (3M forward)']) {
       await expect(charts.locator('.legend li', { hasText: text }).count()).resolves.toBe(1);
@@ -93,7 +93,7 @@ describe('comparisons on the charts in Chromium', () => {
     await page.getByText('Compare on the charts').click();
     await page.getByRole('checkbox', { name: 'Month-end close' }).check();
     await page.getByRole('checkbox', { name: 'Smooth fit' }).check();
-    const charts = page.getByRole('region', { name: 'Charts' });
+    const charts = page.getByRole('region', { name: 'Charts', exact: true });
     await charts.getByText('Nelson-Siegel fit (zero)').first().waitFor({ timeout: 20_000 });
     await charts.screenshot({ path: path.join(SCREENSHOT_DIR, 'comparisons-390.png') });
     const overflow = await page.evaluate(() =>
