@@ -9,20 +9,11 @@ import { encodeBase64Url } from '../../src/share/base64url.ts';
 import type { Page } from 'playwright-core';
 import { encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
-import { diagnostics, launchBrowser, newPage, screenshot, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, newPage, screenshot } from './harness.ts';
+import { useSharedApp } from './sharedApp.ts';
 import { openRecord, savedRecords } from './savedWorkspaces.ts';
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
-
-beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const app = useSharedApp();
 
 async function open(page: Page, url: string): Promise<void> {
   await page.goto(url, { waitUntil: 'load' });
@@ -39,8 +30,8 @@ describe('read-only opening and one set of caps', () => {
     let n = 0;
     const doc = { ...demoWorkspace(() => `u${n++}`), curve: { dayCount: 'ACT/365F', interpolation: 'cubic-tension', extrapolation: 'none' } };
     const fragment = await encodeWorkspaceLink(doc as unknown as Record<string, unknown>, 'another-build');
-    const page = await newPage(browser!);
-    await open(page, `${server!.url}#${fragment}`);
+    const page = await newPage(app.browser);
+    await open(page, `${app.server.url}#${fragment}`);
     const banner = page.getByRole('region', { name: 'Read-only workspace' });
     await banner.waitFor({ timeout: 10_000 });
     const text = await banner.innerText();
@@ -80,8 +71,8 @@ describe('read-only opening and one set of caps', () => {
     const text = doc.replace('"@deep"', '{"a":'.repeat(3000) + '1' + '}'.repeat(3000));
     const fragment = `ws1.${encodeBase64Url(new Uint8Array(deflateRawSync(Buffer.from(text, 'utf8'))))}`;
     expect(fragment.length).toBeLessThan(1000); // a few hundred characters
-    const page = await newPage(browser!);
-    await open(page, `${server!.url}#${fragment}`);
+    const page = await newPage(app.browser);
+    await open(page, `${app.server.url}#${fragment}`);
     const alert = page.getByRole('alert').filter({ hasText: 'nests lists and objects more than 16 deep' });
     await alert.waitFor({ timeout: 10_000 });
     expect(await alert.innerText()).toContain('Your saved workspace has not been changed.');
@@ -94,9 +85,9 @@ describe('read-only opening and one set of caps', () => {
   });
 
   it('a 600-row paste keeps the first 500 rows and says 100 were left out; the file and the link the app then makes open again', async () => {
-    const page = await newPage(browser!, { viewport: { width: 1400, height: 900 } });
-    await page.context().grantPermissions(['clipboard-read', 'clipboard-write'], { origin: server!.url });
-    await open(page, server!.url);
+    const page = await newPage(app.browser, { viewport: { width: 1400, height: 900 } });
+    await page.context().grantPermissions(['clipboard-read', 'clipboard-write'], { origin: app.server.url });
+    await open(page, app.server.url);
     await page.getByRole('textbox', { name: 'Row 1 Kind' }).focus();
     await page.evaluate((t) => {
       const dt = new DataTransfer();
@@ -125,7 +116,7 @@ describe('read-only opening and one set of caps', () => {
     await page.getByRole('button', { name: 'Copy link' }).click();
     await page.getByRole('status').filter({ hasText: 'Link copied' }).waitFor({ timeout: 10_000 });
     const link = await page.evaluate(() => navigator.clipboard.readText());
-    const again = await newPage(browser!);
+    const again = await newPage(app.browser);
     await open(again, link);
     await again.waitForFunction(() => document.querySelector('[role="grid"][aria-label="Quotes"]')?.getAttribute('aria-rowcount') === '501', undefined, { timeout: 10_000 });
     expect(await again.getByText(/not valid|not opened/).count()).toBe(0);

@@ -3,25 +3,16 @@
 // and redo survive a reload; an edit made 500 ms before the tab closes is there when it is opened
 // again; two tabs never silently overwrite each other's saves.
 import type { Page } from 'playwright-core';
-import { diagnostics, launchBrowser, newPage, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, newPage } from './harness.ts';
+import { useSharedApp } from './sharedApp.ts';
 import { openRecord, putRecord, savedRecords } from './savedWorkspaces.ts';
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
-
-beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const app = useSharedApp();
 
 const rate = (page: Page, row: number): Promise<string> => page.getByRole('textbox', { name: `Row ${row} Rate / yield` }).inputValue();
 const savedRate = async (page: Page, row: number): Promise<string | null> => (await openRecord(page))?.workspace?.quotes?.[row - 1]?.rate ?? null;
 async function open(page: Page): Promise<void> {
-  await page.goto(server!.url, { waitUntil: 'load' });
+  await page.goto(app.server.url, { waitUntil: 'load' });
   await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
 }
 async function edit(page: Page, row: number, value: string): Promise<void> {
@@ -32,7 +23,7 @@ async function edit(page: Page, row: number, value: string): Promise<void> {
 
 describe('nothing lost', () => {
   it('a damaged saved workspace: the app starts, says why in words that fit, and never writes over it or copies it', async () => {
-    const page = await newPage(browser!);
+    const page = await newPage(app.browser);
     await open(page);
     await edit(page, 1, '3.10');
     await page.waitForTimeout(400);
@@ -58,7 +49,7 @@ describe('nothing lost', () => {
   });
 
   it('undo and redo survive a reload', async () => {
-    const page = await newPage(browser!);
+    const page = await newPage(app.browser);
     await open(page);
     const r1 = await rate(page, 1);
     const r2 = await rate(page, 2);
@@ -84,7 +75,7 @@ describe('nothing lost', () => {
   });
 
   it('an edit made 500 ms before the tab closes is there when the workbench is opened again', async () => {
-    const context = browser!.context; // one profile: the closed tab and the new one share storage
+    const context = app.browser.context; // one profile: the closed tab and the new one share storage
     const first = await context.newPage();
     await open(first);
     await edit(first, 1, '3.77');
@@ -97,7 +88,7 @@ describe('nothing lost', () => {
   });
 
   it('two tabs never silently overwrite each other', async () => {
-    const context = browser!.context;
+    const context = app.browser.context;
     const a = await context.newPage();
     await open(a);
     const b = await context.newPage();

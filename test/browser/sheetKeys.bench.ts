@@ -7,6 +7,7 @@
 // Run: npx vite build && TZ=America/Los_Angeles npx tsx test/browser/sheetKeys.bench.ts
 // DIST=/some/dist serves another build (to alternate an old build and a new one in one session).
 // The 360 quotes are invented benchmark data.
+import { profileSummary, traceSummary, type ProfileNode } from './diagnostics.ts';
 import path from 'node:path';
 import { DIST_DIR, launchBrowser, newPage } from './harness.ts';
 import { serveDirectory } from './static-server.ts';
@@ -113,31 +114,13 @@ try {
   if (trace) {
     const buf = await browser.browser.stopTracing();
     if (process.env.TRACE_FILE) (await import('node:fs')).writeFileSync(process.env.TRACE_FILE, buf);
-    const events = (JSON.parse(buf.toString()) as { traceEvents: { name: string; ph: string; dur?: number; tid: number }[] }).traceEvents;
-    const main = events.find((e) => e.name === 'EventDispatch')?.tid;
-    const sum = new Map<string, number>();
-    for (const e of events) if (e.ph === 'X' && e.dur && e.tid === main) sum.set(e.name, (sum.get(e.name) ?? 0) + e.dur);
-    const moves = ROWS - 1 + 120;
-    console.log([...sum].sort((a, b) => b[1] - a[1]).slice(0, 18).map(([k, v]) => `${(v / 1000 / moves).toFixed(2)} ms/move  ${k}`).join('\n'));
+    console.log(traceSummary(buf, ROWS - 1 + 120, 'move'));
   }
   if (cdp) {
-    type Node = { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; hitCount?: number; children?: number[] };
-    const { profile: p } = (await cdp.send('Profiler.stop')) as { profile: { nodes: Node[] } };
-    const byId = new Map(p.nodes.map((n) => [n.id, n]));
-    const incl = new Map<string, number>();
-    let total = 0;
-    const walk = (n: Node, seen: Set<string>): void => {
-      const name = `${n.callFrame.functionName || '(anon)'}:${n.callFrame.lineNumber}`;
-      const hits = n.hitCount ?? 0;
-      total += hits;
-      const here = new Set(seen);
-      here.add(name);
-      for (const k of here) incl.set(k, (incl.get(k) ?? 0) + hits);
-      for (const c of n.children ?? []) walk(byId.get(c)!, here);
-    };
-    walk(p.nodes[0]!, new Set());
-    console.log([...incl].sort((a, b) => b[1] - a[1]).slice(0, 45).map(([k, v]) => `${((100 * v) / total).toFixed(1)}% ${k}`).join('\n'));
+    const { profile: p } = (await cdp.send('Profiler.stop')) as { profile: { nodes: ProfileNode[] } };
+    console.log(profileSummary(p.nodes, 45, true));
   }
+
   const { sync, frame, latency } = await page.evaluate(() => {
     const w = window as unknown as { __sync: number[]; __frame: number[]; __latency: number[] };
     return { sync: w.__sync.slice(10), frame: w.__frame.slice(10), latency: w.__latency.slice(10) };

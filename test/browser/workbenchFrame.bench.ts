@@ -2,6 +2,7 @@
 // next paint, in Debian's Chromium on the built app. Target (issue 3): median <= 16 ms, p95
 // reported. Run: npx vite build && TZ=America/Los_Angeles npx tsx test/browser/workbenchFrame.bench.ts
 // The 40 quotes are invented benchmark data.
+import { profileSummary, traceSummary, type ProfileNode } from './diagnostics.ts';
 import { launchBrowser, newPage, serveDist } from './harness.ts';
 import { openRecord, putRecord } from './savedWorkspaces.ts';
 
@@ -89,33 +90,12 @@ try {
     await page.waitForTimeout(30);
   }
   await page.waitForTimeout(200);
-  if (trace) {
-    const buf = await browser.browser.stopTracing();
-    const events = (JSON.parse(buf.toString()) as { traceEvents: { name: string; ph: string; dur?: number; tid: number; ts: number }[] }).traceEvents;
-    const main = events.find((e) => e.name === 'EventDispatch')?.tid;
-    const sum = new Map<string, number>();
-    for (const e of events) if (e.ph === 'X' && e.dur && e.tid === main) sum.set(e.name, (sum.get(e.name) ?? 0) + e.dur);
-    console.log([...sum].sort((a, b) => b[1] - a[1]).slice(0, 18).map(([k, v]) => `${(v / 1000 / EDITS).toFixed(2)} ms/edit  ${k}`).join('\n'));
-  }
+  if (trace) console.log(traceSummary(await browser.browser.stopTracing(), EDITS, 'edit'));
   if (cdp) {
-    type Node = { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; hitCount?: number; children?: number[] };
-    const { profile: p } = (await cdp.send('Profiler.stop')) as { profile: { nodes: Node[] } };
-    // Inclusive samples per function name (each function counted once per stack).
-    const byId = new Map(p.nodes.map((n) => [n.id, n]));
-    const incl = new Map<string, number>();
-    let total = 0;
-    const walk = (n: Node, seen: Set<string>): void => {
-      const name = n.callFrame.functionName || '(anon)';
-      const hits = n.hitCount ?? 0;
-      total += hits;
-      const path = new Set(seen);
-      path.add(name);
-      for (const k of path) incl.set(k, (incl.get(k) ?? 0) + hits);
-      for (const c of n.children ?? []) walk(byId.get(c)!, path);
-    };
-    walk(p.nodes[0]!, new Set());
-    console.log([...incl].sort((a, b) => b[1] - a[1]).slice(0, 40).map(([k, v]) => `${((100 * v) / total).toFixed(1)}% ${k}`).join('\n'));
+    const { profile: p } = (await cdp.send('Profiler.stop')) as { profile: { nodes: ProfileNode[] } };
+    console.log(profileSummary(p.nodes, 40));
   }
+
   const { frames, work } = await page.evaluate(() => {
     const w = window as unknown as { __frames: number[]; __work: number[] };
     return { frames: w.__frames, work: w.__work };

@@ -6,23 +6,14 @@
 import type { Page } from 'playwright-core';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { diagnostics, launchBrowser, newPage, REPO_ROOT, screenshot, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
+import { diagnostics, newPage, REPO_ROOT, screenshot, SCREENSHOT_DIR } from './harness.ts';
+import { useSharedApp } from './sharedApp.ts';
 import { openRecord, savedRecords } from './savedWorkspaces.ts';
 
-let browser: TestBrowser | undefined;
-let server: Awaited<ReturnType<typeof serveDist>> | undefined;
-
-beforeAll(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const app = useSharedApp();
 
 const rateCell = (page: Page, row: number) => page.getByRole('textbox', { name: `Row ${row} Rate / yield` });
-async function open(page: Page, url = server!.url): Promise<void> {
+async function open(page: Page, url = app.server.url): Promise<void> {
   await page.goto(url, { waitUntil: 'load' });
   await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
 }
@@ -34,8 +25,8 @@ const savedRate = async (page: Page): Promise<string | undefined> => (await open
 
 /** A colleague (own browser context) edits row 1 and copies a link; returns its fragment. */
 async function colleagueLink(rate: string): Promise<string> {
-  const page = await newPage(browser!);
-  await page.context().grantPermissions(['clipboard-read', 'clipboard-write'], { origin: server!.url });
+  const page = await newPage(app.browser);
+  await page.context().grantPermissions(['clipboard-read', 'clipboard-write'], { origin: app.server.url });
   await open(page);
   await edit(page, 1, rate);
   await page.getByRole('button', { name: 'Copy link' }).click();
@@ -52,12 +43,12 @@ describe('saved workspaces', () => {
   });
 
   it('opening a link keeps the user’s own workspace, saved and unchanged, in the list; the notice goes back to it', async () => {
-    const page = await newPage(browser!);
+    const page = await newPage(app.browser);
     await open(page);
     await edit(page, 1, '3.21');
     await page.waitForFunction(() => document.querySelector('.save-state')?.textContent === 'Saved in this browser');
     expect(await savedRate(page)).toBe('3.21');
-    await open(page, `${server!.url}${fragment}`);
+    await open(page, `${app.server.url}${fragment}`);
     expect(await rateCell(page, 1).inputValue()).toBe('4.56');
     const notice = page.getByRole('alert').filter({ hasText: 'Opened a shared workspace as a new entry' });
     await notice.waitFor();
@@ -81,7 +72,7 @@ describe('saved workspaces', () => {
   });
 
   it('a link pasted into the address of a tab already showing the workbench is followed without a reload', async () => {
-    const page = await newPage(browser!);
+    const page = await newPage(app.browser);
     await open(page);
     await page.evaluate(() => ((window as unknown as { sameDocument: boolean }).sameDocument = true));
     const before = await rateCell(page, 1).inputValue();
@@ -95,7 +86,7 @@ describe('saved workspaces', () => {
   });
 
   it('an amount typed into the roll panel without Enter or Tab is there after a reload', async () => {
-    const page = await newPage(browser!);
+    const page = await newPage(app.browser);
     await open(page);
     const amount = page.getByRole('textbox', { name: /^Amount/ });
     await amount.waitFor({ timeout: 20_000 });
@@ -111,10 +102,10 @@ describe('saved workspaces', () => {
   });
 
   it('the workspace an earlier build kept in localStorage opens and joins the list; the old key is freed', async () => {
-    const page = await newPage(browser!);
-    await page.goto(server!.url, { waitUntil: 'load' });
+    const page = await newPage(app.browser);
+    await page.goto(app.server.url, { waitUntil: 'load' });
     await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
-    const page2 = await newPage(browser!);
+    const page2 = await newPage(app.browser);
     // A fresh context: plant the earlier build's entry before the app's first start.
     const legacy = await page.evaluate(() => ({ app: 'tenorscope', stamp: 'old:1', writer: 'old', savedAt: 1, workspace: { format: 'tenorscope-workbench', version: 1, settlement: '2026-12-15', quotes: [{ kind: 'deposit', maturity: '3M', rate: '4.01' }] } }));
     await page2.addInitScript((text) => {
@@ -133,10 +124,10 @@ describe('saved workspaces', () => {
 
   it('screenshots of the Workspaces panel at 1280 and 390 px wide', async () => {
     for (const width of [1280, 390]) {
-      const page = await newPage(browser!, { viewport: { width, height: 900 } });
+      const page = await newPage(app.browser, { viewport: { width, height: 900 } });
       await open(page);
       await edit(page, 1, '3.21');
-      await open(page, `${server!.url}${fragment}`);
+      await open(page, `${app.server.url}${fragment}`);
       await page.getByRole('alert').filter({ hasText: 'Opened a shared workspace' }).waitFor();
       await page.getByRole('button', { name: /^Workspaces/ }).click();
       await page.getByRole('region', { name: 'Workspaces' }).locator('svg.ws-spark').nth(1).waitFor();
