@@ -44,6 +44,43 @@ describe('src/core stays a pure calculation core', () => {
   });
 });
 
+/**
+ * The UI's boundaries (DEVELOPERS.md, Layers): outside src/core, code reaches the core only through
+ * src/core/index.ts, and src/share (links and files) imports no feature panel.
+ */
+function boundaryFindings(file: string, source: string): string[] {
+  const rel = path.relative(repo, file);
+  const out: string[] = [];
+  for (const imp of importsOf(lex(source))) {
+    if (imp.specifier === null || !imp.specifier.startsWith('.')) continue;
+    const target = path.relative(repo, path.resolve(path.dirname(file), imp.specifier));
+    if (target.startsWith(`src${path.sep}core${path.sep}`) && target !== path.join('src', 'core', 'index.ts')) out.push(`${rel}: imports ${imp.specifier}; import the core through src/core/index.ts`);
+    if (rel.startsWith(`src${path.sep}share${path.sep}`) && target.startsWith(`src${path.sep}features${path.sep}`)) out.push(`${rel}: imports the feature module ${imp.specifier}; share/ imports no feature`);
+  }
+  return out;
+}
+
+describe('the UI reaches the core through its index, and share/ imports no feature', () => {
+  const uiFiles = sourceFiles(path.join(repo, 'src')).filter((f) => !f.startsWith(coreRoot + path.sep));
+
+  it('has UI files to check', () => {
+    expect(uiFiles.length).toBeGreaterThan(50);
+  });
+
+  it('no file outside src/core imports a core module other than src/core/index.ts; none in src/share imports a feature', () => {
+    const findings = uiFiles.flatMap((f) => boundaryFindings(f, readFileSync(f, 'utf8')));
+    expect(findings, findings.join('\n')).toEqual([]);
+  });
+
+  it('the boundary check sees a deep core import and a feature import from share', () => {
+    const fake = path.join(repo, 'src', 'share', 'Sample.tsx');
+    expect(boundaryFindings(fake, "import { a } from '../core/roll/rollVsTerm.ts';\nimport { b } from '../core/index.ts';\nimport '../features/x/y.css';")).toEqual([
+      'src/share/Sample.tsx: imports ../core/roll/rollVsTerm.ts; import the core through src/core/index.ts',
+      'src/share/Sample.tsx: imports the feature module ../features/x/y.css; share/ imports no feature',
+    ]);
+  });
+});
+
 describe('source scanner self-check', () => {
   it('detects a forbidden import in a sample string', () => {
     expect(rulesBroken("import { useState } from 'react';")).toEqual(["imports UI/state package 'react'"]);

@@ -1,6 +1,6 @@
 import { useEffect, useState } from 'react';
 import { encodeWorkspaceLinkChecked, MAX_FRAGMENT_CHARS } from './linkCodec.ts';
-import '../features/scenarios/scenarios.css';
+import './share.css';
 
 export interface CopyLinkButtonProps {
   /** The workspace document to share (snapshots are left out of the link). */

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { readWorkbenchDocument, WORKBENCH_FORMAT, workbenchFromEngine, type WorkbenchDocument } from '../core/index.ts';
-import { tableConventionsFromDisplay } from '../features/print/printData.ts';
+import { tableConventionsFromDisplay } from '../core/index.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';
 import { useAppStore } from '../state/store.ts';

@@ -4,7 +4,7 @@
 // test/artifacts/screenshots/.
 import type { Page } from 'playwright-core';
 import { addTenor, buildCurve, discountOn, forwardOn, parseTenor, parYieldOn, zeroOn, type Curve } from '../../src/core/index.ts';
-import { readPastedBlock, toEngineDocument, type QuoteRow } from '../../src/core/input/index.ts';
+import { readPastedBlock, toEngineDocument, type QuoteRow } from '../../src/core/index.ts';
 import { DEMO_SETTLEMENT } from '../../src/state/demoWorkspace.ts';
 import { diagnostics, openWorkbench, screenshot, type BuiltApp } from './harness.ts';
 

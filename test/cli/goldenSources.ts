@@ -6,7 +6,7 @@ import market40 from '../fixtures/market40/market40.json';
 import workbench40 from '../fixtures/share/workbench40.json';
 import workspace40 from '../fixtures/share/workspace40.json';
 import { DEFAULT_DISPLAY, linkDocument, parseDocumentText, serialiseDocument, type WorkbenchDocument } from '../../src/core/index.ts';
-import { analyseRollVsTerm, DEFAULT_STRATEGY, validateStrategy } from '../../src/core/analysis/rollVsTerm.ts';
+import { analyseRollVsTerm, DEFAULT_STRATEGY, validateStrategy } from '../../src/core/index.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { curveSeries } from '../../src/hooks/useCurveSeries.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLink } from '../../src/share/linkCodec.ts';

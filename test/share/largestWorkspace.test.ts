@@ -4,9 +4,9 @@
 // (Copy link) and as a workspace file. With realistic cell text it fits a link; with every cell at
 // its 64-character cap it does not, and the link encoder says so before making a link the app
 // would refuse. Invented data.
-import { LIMITS, parseDocumentText, serialiseDocument, linkDocument, type DocumentOutcome } from '../../src/core/export/exports.ts';
-import { DEFAULT_STRATEGY, validateStrategy } from '../../src/core/analysis/strategyInputs.ts';
-import { WORKBENCH_FORMAT, DEFAULT_DISPLAY } from '../../src/core/input/index.ts';
+import { LIMITS, parseDocumentText, serialiseDocument, linkDocument, type DocumentOutcome } from '../../src/core/index.ts';
+import { DEFAULT_STRATEGY, validateStrategy } from '../../src/core/roll/strategyInputs.ts';
+import { WORKBENCH_FORMAT, DEFAULT_DISPLAY } from '../../src/core/index.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLinkChecked, MAX_FRAGMENT_CHARS } from '../../src/share/linkCodec.ts';
 
 /** A small deterministic generator (the test must not depend on Math.random). */

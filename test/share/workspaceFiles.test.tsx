@@ -3,7 +3,7 @@
 import { render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import fixtureJson from '../fixtures/share/workspace40.json';
-import type { CheckedDocument } from '../../src/core/export/exports.ts';
+import type { CheckedDocument } from '../../src/core/index.ts';
 import { WorkspaceFiles } from '../../src/share/WorkspaceFiles.tsx';
 
 const fixture = fixtureJson as unknown as Record<string, unknown>;

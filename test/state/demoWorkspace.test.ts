@@ -1,7 +1,7 @@
 // The built-in demo (invented data, demo only): about 20 quotes of every kind out to 30 years,
 // whose curve builds with every interpolation method and has an inverted front end and a hump.
 import { buildCurve, INTERPOLATIONS, parseTenor, addTenor, zeroOn, acceptanceBound } from '../../src/core/index.ts';
-import { toEngineDocument } from '../../src/core/input/index.ts';
+import { toEngineDocument } from '../../src/core/index.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 
 let n = 0;

@@ -6,7 +6,7 @@ import { render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { curveTableCsv, curveTablePoints } from '../../src/core/index.ts';
-import { tableConventionsFromDisplay } from '../../src/features/print/printData.ts';
+import { tableConventionsFromDisplay } from '../../src/core/index.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 

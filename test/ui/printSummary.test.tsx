@@ -3,8 +3,8 @@
 import fixtureJson from '../fixtures/share/workspace40.json';
 import { render, screen } from '@testing-library/react';
 import { buildCurve } from '../../src/core/index.ts';
-import type { Scenario } from '../../src/core/analysis/scenarios.ts';
-import { defaultTableConventions, workspaceHash } from '../../src/core/export/exports.ts';
+import type { Scenario } from '../../src/core/index.ts';
+import { defaultTableConventions, workspaceHash } from '../../src/core/index.ts';
 import { printKeyRows, printScenarios, scenarioConventionsText } from '../../src/features/print/printData.ts';
 import { PrintSummary, printedNote, producedAtText, type PrintSummaryProps } from '../../src/features/print/PrintSummary.tsx';
 

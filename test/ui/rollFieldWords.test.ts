@@ -1,7 +1,7 @@
 import { fieldLabel, inFieldWords } from '../../src/features/roll/fieldWords.ts';
 import { buildCurve } from '../../src/core/index.ts';
-import { analyseRollVsTerm, DEFAULT_STRATEGY } from '../../src/core/analysis/rollVsTerm.ts';
-import { toEngineDocument } from '../../src/core/input/index.ts';
+import { analyseRollVsTerm, DEFAULT_STRATEGY } from '../../src/core/index.ts';
+import { toEngineDocument } from '../../src/core/index.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 
 describe('roll-versus-term messages in field words', () => {

@@ -7,7 +7,7 @@ import userEvent from '@testing-library/user-event';
 import axe from 'axe-core';
 import { useState } from 'react';
 import type { Curve } from '../../src/core/index.ts';
-import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, type StrategyInputs } from '../../src/core/analysis/rollVsTerm.ts';
+import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, type StrategyInputs } from '../../src/core/index.ts';
 import { RollPanel } from '../../src/features/roll/RollPanel.tsx';
 import { useDrafts } from '../../src/state/drafts.ts';
 import { rollMarketCurve } from '../helpers/rollMarket.ts';

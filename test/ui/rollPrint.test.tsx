@@ -2,7 +2,7 @@
 // The printed roll-versus-term block: the result sentence, the strategies' table under the chosen
 // view and the user's short-rate path, each figure the core's own (analyseRollVsTerm). Demo data invented.
 import { render, within } from '@testing-library/react';
-import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, formatRate } from '../../src/core/analysis/rollVsTerm.ts';
+import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, formatRate } from '../../src/core/index.ts';
 import { RollResultLine } from '../../src/features/roll/RollSlot.tsx';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';

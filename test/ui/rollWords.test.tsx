@@ -5,7 +5,7 @@
 import { render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { useState } from 'react';
-import { DEFAULT_STRATEGY, type StrategyInputs } from '../../src/core/analysis/rollVsTerm.ts';
+import { DEFAULT_STRATEGY, type StrategyInputs } from '../../src/core/index.ts';
 import { RollPanel } from '../../src/features/roll/RollPanel.tsx';
 import { rollMarketCurve } from '../helpers/rollMarket.ts';
 

@@ -5,7 +5,7 @@ import { useState } from 'react';
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { buildCurve } from '../../src/core/index.ts';
-import type { Scenario } from '../../src/core/analysis/scenarios.ts';
+import type { Scenario } from '../../src/core/index.ts';
 import { ScenarioPanel } from '../../src/features/scenarios/ScenarioPanel.tsx';
 
 const fixture = fixtureJson as unknown as Record<string, unknown>;

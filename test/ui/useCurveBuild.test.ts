@@ -1,7 +1,7 @@
 // The fast rebuild (re-quoted compiled instruments) must give exactly what a full buildCurve
 // gives for the same document: same pillars, same discount factors, same repricing.
 import { buildCurve } from '../../src/core/index.ts';
-import { toEngineDocument } from '../../src/core/input/index.ts';
+import { toEngineDocument } from '../../src/core/index.ts';
 import { buildWithReuse, deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 

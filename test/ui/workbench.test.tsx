@@ -6,7 +6,7 @@
 import { act, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { App } from '../../src/app/App.tsx';
 import { addTenor, buildCurve, parseTenor, zeroOn, type Compounding } from '../../src/core/index.ts';
-import { toEngineDocument } from '../../src/core/input/index.ts';
+import { toEngineDocument } from '../../src/core/index.ts';
 import { IDBFactory } from 'fake-indexeddb';
 import { CHANNEL_NAME, entryKey, flushSave, startPersistence } from '../../src/state/persistence.ts';
 import { indexedDbBackend } from '../../src/state/workspaceBackend.ts';

@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
 import { compareIso, isMonthEnd, parseIsoDate, type IsoDate } from '../time/date.ts';
 import { DAY_COUNTS, isDayCount, type DayCount } from '../time/dayCount.ts';
-import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../workspace/validate.ts';
+import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../document/validate.ts';
 
 /**
  * A bond the user asks about (not a curve quote): a fixed coupon (decimal per year) paid

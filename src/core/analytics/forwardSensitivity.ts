@@ -6,7 +6,7 @@ import { coreError, fail, ok, type Result } from '../result.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
 import { addTenor, formatTenor, type Tenor } from '../time/tenor.ts';
-import { luFactor, luInverse } from './luDecomposition.ts';
+import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 import { nodePartials } from './nodePartials.ts';
 import { quoteYieldOf, requoteAtYield, type QuoteYield } from './quoteYield.ts';
 

@@ -7,7 +7,7 @@ import type { Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { Tenor } from '../time/tenor.ts';
-import type { Workspace } from '../workspace/types.ts';
+import type { Workspace } from '../document/types.ts';
 import { forwardRows, forwardSensitivities, type ForwardSensitivityMap } from './forwardSensitivity.ts';
 
 export interface SensitivityMapOptions {

@@ -9,8 +9,8 @@ import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
-import type { Quote, SwapQuote, Workspace } from '../workspace/types.ts';
-import { validateWorkspace } from '../workspace/validate.ts';
+import type { Quote, SwapQuote, Workspace } from '../document/types.ts';
+import { validateWorkspace } from '../document/validate.ts';
 import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
 
 /** Why a quote of the document is not a node of the curve. */

@@ -1,3 +1,4 @@
+import type { DisplaySettings } from '../document/workbenchDocument.ts';
 import type { Curve } from '../curve/curve.ts';
 import { discountOn, forwardOn, parYieldOn, zeroOn } from '../curve/query.ts';
 import { COMPOUNDING_LABEL, type Compounding } from '../rates/compounding.ts';
@@ -133,3 +134,13 @@ export function curveTableCsv(curve: Curve, conv: CurveTableConventions, points?
   for (const r of curveTable(curve, conv, points)) rows.push([r.date, r.t, r.discount, r.zero, r.par, r.forward, r.extrapolated ? 'yes' : '']);
   return toCsv(rows);
 }
+
+/** The table conventions of the workbench's display settings: zero and forward in the display compounding and day count. */
+export const tableConventionsFromDisplay = (display: DisplaySettings): CurveTableConventions => ({
+  zeroCompounding: display.compounding,
+  zeroDayCount: display.dayCount,
+  parFrequency: ([1, 2, 4, 12] as const).find((f) => f === display.parFrequency) ?? 2,
+  forwardTenor: display.forwardTenor,
+  forwardCompounding: display.compounding,
+  forwardDayCount: display.dayCount,
+});

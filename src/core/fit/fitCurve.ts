@@ -5,7 +5,7 @@ import { bondDirtyFromYield, bondSchedule } from '../instruments/bond.ts';
 import { presentValue, type Instrument } from '../instruments/instrument.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { curveTime } from '../time/dayCount.ts';
-import type { Workspace } from '../workspace/types.ts';
+import type { Workspace } from '../document/types.ts';
 import { levenbergMarquardt, type LmResult } from './levenbergMarquardt.ts';
 import {
   betaCount,

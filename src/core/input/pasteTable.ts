@@ -1,6 +1,6 @@
 import { dsvFormat } from 'd3-dsv';
-import { LIMITS } from '../export/limits.ts';
-import { CELL_MAX } from '../export/workbenchShape.ts';
+import { LIMITS } from '../document/limits.ts';
+import { CELL_MAX } from '../document/workbenchShape.ts';
 import { QUOTE_COLUMNS, parseRow, type QuoteColumn, type RowText } from './quoteRow.ts';
 import type { QuoteUnitMode } from './quoteText.ts';
 import { DEFAULT_CONVENTIONS, type InputConventions } from './conventions.ts';

@@ -1,4 +1,4 @@
-import type { QuoteKind } from '../workspace/types.ts';
+import type { QuoteKind } from '../document/types.ts';
 import {
   parseCouponText,
   parseDayCountText,

@@ -3,7 +3,7 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, SwapQuote } from '../workspace/types.ts';
+import type { BondQuote, SwapQuote } from '../document/types.ts';
 import { Decimal } from './decimalText.ts';
 
 /** One period of a bond's or swap fixed leg's schedule, for reconciling against another source. */

@@ -1,5 +1,5 @@
-import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../workspace/validate.ts';
-import { QUOTE_KINDS, type QuoteKind } from '../workspace/types.ts';
+import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../document/validate.ts';
+import { QUOTE_KINDS, type QuoteKind } from '../document/types.ts';
 import { DAY_COUNTS, type DayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
 import { parseDateText, type DateOrder } from './dateText.ts';

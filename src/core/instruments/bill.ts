@@ -1,5 +1,5 @@
 import { addMonths, daysBetween, isLeapYear, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
-import type { BillQuote } from '../workspace/types.ts';
+import type { BillQuote } from '../document/types.ts';
 import type { Instrument } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
 

@@ -1,7 +1,7 @@
 import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { isoFromCivil, civilFromIso, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
-import type { BondQuote } from '../workspace/types.ts';
+import type { BondQuote } from '../document/types.ts';
 import { quoteOnCurve, type Instrument } from './instrument.ts';
 
 /**

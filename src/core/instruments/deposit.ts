@@ -1,6 +1,6 @@
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { DepositQuote } from '../workspace/types.ts';
+import type { DepositQuote } from '../document/types.ts';
 import type { Instrument } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
 

@@ -1,5 +1,5 @@
 import type { IsoDate } from '../time/date.ts';
-import type { Quote, QuoteKind } from '../workspace/types.ts';
+import type { Quote, QuoteKind } from '../document/types.ts';
 
 /** The unit of a quote and of its repricing error: `price` per 100 face, or `rate` as a decimal. */
 export type QuoteUnit = 'price' | 'rate';

@@ -1,5 +1,5 @@
 import type { IsoDate } from '../time/date.ts';
-import type { BillQuote, DepositQuote, ZeroQuote } from '../workspace/types.ts';
+import type { BillQuote, DepositQuote, ZeroQuote } from '../document/types.ts';
 import { quoteOnCurve, type Instrument, type QuoteUnit } from './instrument.ts';
 
 /**

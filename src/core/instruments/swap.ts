@@ -1,7 +1,7 @@
 import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { compareCivil, isoFromCivil, civilFromIso, isMonthEnd, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
-import type { SwapQuote } from '../workspace/types.ts';
+import type { SwapQuote } from '../document/types.ts';
 import { quoteOnCurve, type Instrument } from './instrument.ts';
 
 /** One accrual period of a fixed leg. */

@@ -1,7 +1,7 @@
 import { lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { ZeroQuote } from '../workspace/types.ts';
+import type { ZeroQuote } from '../document/types.ts';
 import type { Instrument } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
 

@@ -3,17 +3,6 @@ import { curveTable, type CurveTableConventions, type CurveTableRow } from '../.
 import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from '../scenarios/describeShape.ts';
 import type { PrintScenario } from './PrintSummary.tsx';
-import type { DisplaySettings } from '../../core/index.ts';
-
-/** The table conventions of the workbench's display settings: zero and forward in the display compounding and day count. */
-export const tableConventionsFromDisplay = (display: DisplaySettings): CurveTableConventions => ({
-  zeroCompounding: display.compounding,
-  zeroDayCount: display.dayCount,
-  parFrequency: ([1, 2, 4, 12] as const).find((f) => f === display.parFrequency) ?? 2,
-  forwardTenor: display.forwardTenor,
-  forwardCompounding: display.compounding,
-  forwardDayCount: display.dayCount,
-});
 
 /** Key-maturity rows for the page, from the core's curve table. */
 export const printKeyRows = (curve: Curve, conv: CurveTableConventions, tenors: readonly string[] = KEY_TENORS): CurveTableRow[] => curveTable(curve, conv, tenors);

@@ -1,6 +1,6 @@
 import { useEffect, useId, useState } from 'react';
 import { setFieldDraft, useDrafts } from '../../state/drafts.ts';
-import type { TextParse } from '../../core/analysis/rollVsTerm.ts';
+import type { TextParse } from '../../core/index.ts';
 
 export interface RollFieldProps<T> {
   readonly label: string;

@@ -1,7 +1,7 @@
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, curveStepAfter, line } from 'd3-shape';
 import { useId } from 'react';
-import type { GrowthSeries, StrategyDescription, StrategyId } from '../../core/analysis/rollVsTerm.ts';
+import type { GrowthSeries, StrategyDescription, StrategyId } from '../../core/index.ts';
 import { useChartWidth } from '../../charts/useChartWidth.ts';
 
 /** Colours and dashes per strategy: told apart by dash as well as colour, so they survive a grey print. */

@@ -13,7 +13,7 @@ import {
   type PathFill,
   type StrategyInputs,
   type StrategyViewId,
-} from '../../core/analysis/rollVsTerm.ts';
+} from '../../core/index.ts';
 import { RollField, RollSelect } from './RollField.tsx';
 
 const FREQ_LABEL: Record<number, string> = { 1: 'annual', 2: 'semiannual', 4: 'quarterly', 12: 'monthly' };

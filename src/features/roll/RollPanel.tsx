@@ -9,7 +9,7 @@ import {
   rollSentence,
   type StrategyInputs,
   type StrategyViewId,
-} from '../../core/analysis/rollVsTerm.ts';
+} from '../../core/index.ts';
 import { download, safeFileName } from '../../components/download.ts';
 import { RollGrowthChart } from './RollGrowthChart.tsx';
 import { RollInputs } from './RollInputs.tsx';

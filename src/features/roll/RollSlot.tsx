@@ -1,9 +1,9 @@
 import { useCallback, useMemo } from 'react';
-import { applyScenario } from '../../core/analysis/scenarios.ts';
-import { analyseRollVsTerm, formatBp, formatMoney, formatMoneySigned, formatRate, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/analysis/rollVsTerm.ts';
+import { applyScenario } from '../../core/index.ts';
+import { analyseRollVsTerm, formatBp, formatMoney, formatMoneySigned, formatRate, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
 import { inFieldWords } from './fieldWords.ts';
 import type { Curve } from '../../core/index.ts';
-import { validateScenarios } from '../../core/export/exports.ts';
+import { validateScenarios } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { RollPanel } from './RollPanel.tsx';

@@ -10,7 +10,7 @@ import {
   yieldTag,
   type RollAnalysis,
   type StrategyInputs,
-} from '../../core/analysis/rollVsTerm.ts';
+} from '../../core/index.ts';
 import { RollField } from './RollField.tsx';
 
 /** The roll legs: dates, year fractions, today's forwards, the chosen view's rates and the money after each leg. */

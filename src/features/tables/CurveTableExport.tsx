@@ -3,7 +3,7 @@ import { CURVE_TABLE_GRIDS, curveTableCsv, curveTablePoints, isIsoDate, parseTen
 import { download, safeFileName } from '../../components/download.ts';
 import { useAppStore } from '../../state/store.ts';
 import { setViewValues, viewText } from '../../state/viewValues.ts';
-import { tableConventionsFromDisplay } from '../print/printData.ts';
+import { tableConventionsFromDisplay } from '../../core/index.ts';
 
 const GRID_LABEL: Readonly<Record<CurveTableGrid, string>> = {
   pillars: 'Pillars',

@@ -1,7 +1,7 @@
 // Harness page: the printed summary for the fixture workspace, with ?scenarios=N and ?note=longest.
 import { createRoot } from 'react-dom/client';
-import { applyScenario, type Scenario } from '../../../src/core/analysis/scenarios.ts';
-import { defaultTableConventions, validateDocument, workspaceHash } from '../../../src/core/export/exports.ts';
+import { applyScenario, type Scenario } from '../../../src/core/index.ts';
+import { defaultTableConventions, validateDocument, workspaceHash } from '../../../src/core/index.ts';
 import { PrintChart } from '../../../src/features/print/PrintChart.tsx';
 import { printKeyRows, printScenarios, scenarioConventionsText } from '../../../src/features/print/printData.ts';
 import { PrintSummary } from '../../../src/features/print/PrintSummary.tsx';

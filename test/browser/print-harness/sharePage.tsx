@@ -1,8 +1,8 @@
 // Harness page: a workspace with the scenario panel and the copy-link button; opens #ws1... links.
 import { useEffect, useState } from 'react';
 import { createRoot } from 'react-dom/client';
-import type { Scenario } from '../../../src/core/analysis/scenarios.ts';
-import { validateDocument } from '../../../src/core/export/exports.ts';
+import type { Scenario } from '../../../src/core/index.ts';
+import { validateDocument } from '../../../src/core/index.ts';
 import { ScenarioPanel } from '../../../src/features/scenarios/ScenarioPanel.tsx';
 import { CopyLinkButton, LinkNotice } from '../../../src/share/CopyLinkButton.tsx';
 import { openLink } from '../../../src/share/linkCodec.ts';

@@ -2,7 +2,7 @@
 // invention, the strategy held in React state as the workbench holds it in the document.
 import { StrictMode, useState } from 'react';
 import { createRoot } from 'react-dom/client';
-import { DEFAULT_STRATEGY, type StrategyInputs } from '../../../src/core/analysis/rollVsTerm.ts';
+import { DEFAULT_STRATEGY, type StrategyInputs } from '../../../src/core/index.ts';
 import { RollPanel } from '../../../src/features/roll/RollPanel.tsx';
 import { rollMarketCurve } from '../../helpers/rollMarket.ts';
 import '../../../src/styles/base.css';

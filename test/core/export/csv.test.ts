@@ -1,7 +1,7 @@
 // CSV writing and reading, formula-injection escaping and the curve table export.
 import { readFileSync } from 'node:fs';
 import { addTenor, buildCurve } from '../../../src/core/index.ts';
-import { csvCell, curveTableCsv, curveTablePoints, defaultTableConventions, parseCsv, toCsv, type CurveTableGrid } from '../../../src/core/export/exports.ts';
+import { csvCell, curveTableCsv, curveTablePoints, defaultTableConventions, parseCsv, toCsv, type CurveTableGrid } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 describe('csvCell(cell): formula injection (OWASP "CSV Injection", cited from memory)', () => {

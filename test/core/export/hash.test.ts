@@ -1,4 +1,4 @@
-import { canonicalJson, fnv1a64, workspaceHash } from '../../../src/core/export/exports.ts';
+import { canonicalJson, fnv1a64, workspaceHash } from '../../../src/core/index.ts';
 
 describe('fnv1a64(text)', () => {
   it('matches the published FNV-1a 64-bit test vectors (FNV reference test suite, cited from memory)', () => {

@@ -11,7 +11,7 @@ import {
   rewriteDateOrder,
   withDecimalPoint,
   type QuoteRow,
-} from '../../../src/core/input/index.ts';
+} from '../../../src/core/index.ts';
 
 const date = (text: string, order: 'mdy' | 'dmy' = 'mdy'): string => {
   const r = parseDateText(text, order);

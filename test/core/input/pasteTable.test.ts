@@ -1,6 +1,6 @@
 // The paste reader: tab-separated text as spreadsheets put it on the clipboard, and CSV as in
 // RFC 4180 (quoted fields, doubled quotes).
-import { headerColumn, looksLikeTable, PASTE_TEXT_MAX, pasteQuoteCap, pasteSizeRefusal, previewPaste, readPastedBlock, splitTable } from '../../../src/core/input/index.ts';
+import { headerColumn, looksLikeTable, PASTE_TEXT_MAX, pasteQuoteCap, pasteSizeRefusal, previewPaste, readPastedBlock, splitTable } from '../../../src/core/index.ts';
 
 describe('splitTable', () => {
   it('splits tab-separated rows, dropping blank lines and trailing newlines', () => {

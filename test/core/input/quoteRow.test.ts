@@ -1,6 +1,6 @@
 // Sheet rows to the engine's quote objects (field names from src/core/workspace/types.ts).
 import { buildCurve } from '../../../src/core/index.ts';
-import { parseRow, rowIssuesFromEngine, toEngineDocument, type QuoteRow } from '../../../src/core/input/index.ts';
+import { parseRow, rowIssuesFromEngine, toEngineDocument, type QuoteRow } from '../../../src/core/index.ts';
 
 const row = (p: Partial<QuoteRow>): QuoteRow => ({ id: 'r', enabled: true, kind: '', maturity: '', rate: '', price: '', coupon: '', frequency: '', dayCount: '', ...p });
 

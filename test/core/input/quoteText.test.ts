@@ -11,7 +11,7 @@ import {
   parseRateText,
   readRate,
   rewriteBareRate,
-} from '../../../src/core/input/index.ts';
+} from '../../../src/core/index.ts';
 
 const value = <T>(p: { ok: true; value: T } | { ok: false; message: string }): T => {
   if (!p.ok) throw new Error(`expected a value, got: ${p.message}`);

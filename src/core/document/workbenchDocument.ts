@@ -2,12 +2,12 @@ import { COMPOUNDINGS, isCompounding, type Compounding } from '../rates/compound
 import { CURVE_DAY_COUNTS, isCurveDayCount, type CurveDayCount } from '../time/dayCount.ts';
 import { INTERPOLATIONS, isInterpolation, type InterpolationId } from '../interpolation/types.ts';
 import { EXTRAPOLATIONS, isExtrapolation, type Extrapolation } from '../curve/curve.ts';
-import { FREQUENCIES, RESERVED_KEYS, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
+import { FREQUENCIES, RESERVED_KEYS, WORKSPACE_FORMAT, WORKSPACE_VERSION } from './validate.ts';
 import type { CoreError } from '../result.ts';
-import { isQuoteUnitMode, QUOTE_UNIT_MODES, type QuoteUnitMode } from './quoteText.ts';
-import { DECIMAL_MARKS, DEFAULT_CONVENTIONS, isDecimalMark, type DecimalMark, type InputConventions } from './conventions.ts';
-import { DATE_ORDERS, isDateOrder, type DateOrder } from './dateText.ts';
-import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssues, type RowParse } from './quoteRow.ts';
+import { isQuoteUnitMode, QUOTE_UNIT_MODES, type QuoteUnitMode } from '../input/quoteText.ts';
+import { DECIMAL_MARKS, DEFAULT_CONVENTIONS, isDecimalMark, type DecimalMark, type InputConventions } from '../input/conventions.ts';
+import { DATE_ORDERS, isDateOrder, type DateOrder } from '../input/dateText.ts';
+import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssues, type RowParse } from '../input/quoteRow.ts';
 
 export const WORKBENCH_FORMAT = 'tenorscope-workbench';
 export const WORKBENCH_VERSION = 1;

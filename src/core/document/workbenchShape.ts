@@ -1,6 +1,7 @@
-import { QUOTE_COLUMNS, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../input/index.ts';
+import { QUOTE_COLUMNS } from '../input/quoteRow.ts';
+import { readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from './workbenchDocument.ts';
 import { coreError, type CoreError } from '../result.ts';
-import { RESERVED_KEYS } from '../workspace/validate.ts';
+import { RESERVED_KEYS } from './validate.ts';
 import { LIMITS } from './limits.ts';
 
 const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);

@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
-import { validateWorkspace, RESERVED_KEYS } from '../workspace/validate.ts';
-import type { Quote } from '../workspace/types.ts';
-import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from './quoteRow.ts';
+import { validateWorkspace, RESERVED_KEYS } from './validate.ts';
+import type { Quote } from './types.ts';
+import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from '../input/quoteRow.ts';
 import { DEFAULT_DISPLAY, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
 
 /**

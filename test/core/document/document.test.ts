@@ -1,6 +1,6 @@
 // Validation of the workspace document read from a link or a file: caps, reserved keys, migration.
 import { readFileSync } from 'node:fs';
-import { LIMITS, linkDocument, migrateDocument, parseDocumentText, serialiseDocument, validateDocument } from '../../../src/core/export/exports.ts';
+import { LIMITS, linkDocument, migrateDocument, parseDocumentText, serialiseDocument, validateDocument } from '../../../src/core/index.ts';
 
 const fixture = JSON.parse(readFileSync(new URL('../../fixtures/share/workspace40.json', import.meta.url), 'utf8')) as Record<string, unknown>;
 const paths = (doc: unknown): string[] => {

@@ -1,4 +1,4 @@
-import type { Curve } from '../curve/curve.ts';
+import type { Curve } from './curve.ts';
 import { fixedLegCivil } from '../instruments/swap.ts';
 import { rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
 import { addMonthsCivil, civilFromIso, civilFromSerial, daysBetween, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';

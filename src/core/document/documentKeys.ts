@@ -1,5 +1,5 @@
-import { SCENARIO_KINDS, SCENARIO_SPACES, type Scenario, type ScenarioShape } from '../analysis/scenarioShape.ts';
-import type { Snapshot } from '../analysis/scenarioSnapshots.ts';
+import { SCENARIO_KINDS, SCENARIO_SPACES, type Scenario, type ScenarioShape } from '../scenarios/scenarioShape.ts';
+import type { Snapshot } from '../scenarios/scenarioSnapshots.ts';
 import { coreError, type CoreError } from '../result.ts';
 import { isIsoDate } from '../time/date.ts';
 import { parseTenor } from '../time/tenor.ts';

@@ -9,7 +9,7 @@ import {
   moneyTimes,
   parseMoney,
   validateStrategy,
-} from '../../../src/core/analysis/rollVsTerm.ts';
+} from '../../../src/core/index.ts';
 import { rollMarketCurve } from '../../helpers/rollMarket.ts';
 
 // Four quotes of the invented roll test market (test/helpers/rollMarket.ts).

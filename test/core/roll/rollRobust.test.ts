@@ -3,7 +3,7 @@
 // analyseRollVsTerm gives either finite figures (break-evens possibly null, never NaN) or error
 // values whose paths name the strategy field at fault. A property over random raw inputs.
 import fc from 'fast-check';
-import { analyseRollVsTerm, validateStrategy } from '../../../src/core/analysis/rollVsTerm.ts';
+import { analyseRollVsTerm, validateStrategy } from '../../../src/core/index.ts';
 import { rollMarketCurve } from '../../helpers/rollMarket.ts';
 
 // The invented roll test market (test/helpers/rollMarket.ts) without its 6M and 3Y quotes.

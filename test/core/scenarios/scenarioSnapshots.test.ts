@@ -1,7 +1,7 @@
 // Snapshots (frozen inputs, rebuilt, hashed) and reference curves imported from CSV.
 import { readFileSync } from 'node:fs';
 import { addTenor, buildCurve, parseTenor, zeroOn, type Curve } from '../../../src/core/index.ts';
-import { compareCurves, curveHash, parseReferenceCsv, rebuildSnapshot, referenceDifferences, takeSnapshot } from '../../../src/core/analysis/scenarios.ts';
+import { compareCurves, curveHash, parseReferenceCsv, rebuildSnapshot, referenceDifferences, takeSnapshot } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 const fixture = JSON.parse(readFileSync(new URL('../../fixtures/share/workspace40.json', import.meta.url), 'utf8')) as Record<string, unknown>;

@@ -13,7 +13,7 @@ import {
   ROLL_TENORS,
   STRATEGY_FREQUENCIES,
   type StrategyInputs,
-} from '../../../src/core/analysis/rollVsTerm.ts';
+} from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 const IDENTITY = 'forwards-realised identity (Tuckman and Serrat, from memory): all strategies end equal';

@@ -1,12 +1,12 @@
-import type { Scenario } from '../analysis/scenarioShape.ts';
-import type { Snapshot } from '../analysis/scenarioSnapshots.ts';
+import type { Scenario } from '../scenarios/scenarioShape.ts';
+import type { Snapshot } from '../scenarios/scenarioSnapshots.ts';
 import { coreError, type CoreError } from '../result.ts';
-import type { Workspace } from '../workspace/types.ts';
-import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
+import type { Workspace } from './types.ts';
+import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from './validate.ts';
 import { validateNote, validateScenarios, validateSnapshots, validateView, type ViewValue } from './documentKeys.ts';
 import { depthProblem, LIMITS } from './limits.ts';
 import { checkWorkbenchShape } from './workbenchShape.ts';
-import { unknownSettings, WORKBENCH_FORMAT, type UnknownSetting } from '../input/index.ts';
+import { unknownSettings, WORKBENCH_FORMAT, type UnknownSetting } from './workbenchDocument.ts';
 
 /** A workspace document after validation: the document itself (unchanged) and what was read from it. */
 export interface CheckedDocument {

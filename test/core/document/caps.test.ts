@@ -12,8 +12,8 @@ import {
   rowsLeftOutMessage,
   validateDocument,
   workspaceHash,
-} from '../../../src/core/export/exports.ts';
-import { readWorkbenchDocument, replaceUnknownSettings, unknownSettings } from '../../../src/core/input/index.ts';
+} from '../../../src/core/index.ts';
+import { readWorkbenchDocument, replaceUnknownSettings, unknownSettings } from '../../../src/core/index.ts';
 import { runCurveCommand } from '../../../src/cli/curveCommand.ts';
 
 const workbench = JSON.parse(readFileSync(new URL('../../fixtures/share/workbench40.json', import.meta.url), 'utf8')) as Record<string, unknown>;

@@ -6,7 +6,7 @@ import type { Compounding } from '../rates/compounding.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
 import { addTenor, parseTenor } from '../time/tenor.ts';
-import { WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../workspace/validate.ts';
+import { WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../document/validate.ts';
 
 /**
  * A snapshot freezes the inputs of a workspace under a name: settlement, curve settings and the

@@ -14,7 +14,7 @@ import {
   forwardsView,
   rollLegs,
   type StrategyInputs,
-} from '../../../src/core/analysis/rollVsTerm.ts';
+} from '../../../src/core/index.ts';
 import { rateFromLnDiscount } from '../../../src/core/rates/compounding.ts';
 import Decimal from 'decimal.js';
 import { expectClose } from '../../helpers/asserts.ts';

@@ -3,7 +3,7 @@
 // The figures themselves are held to published examples in rollTextbook.test.ts; here the claim is
 // that the file carries them unchanged.
 import { describe, expect, it } from 'vitest';
-import { analyseRollVsTerm, DEFAULT_STRATEGY, rollTablesCsv } from '../../../src/core/analysis/rollVsTerm.ts';
+import { analyseRollVsTerm, DEFAULT_STRATEGY, rollTablesCsv } from '../../../src/core/index.ts';
 import { parseCsv } from '../../../src/core/index.ts';
 import { rollMarketCurve } from '../../helpers/rollMarket.ts';
 

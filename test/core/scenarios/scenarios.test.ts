@@ -10,7 +10,7 @@ import {
   shiftZeroCurve,
   type ResolvedShift,
   type ScenarioShape,
-} from '../../../src/core/analysis/scenarios.ts';
+} from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 const SETTLEMENT = '2026-11-30';

@@ -5,7 +5,7 @@
 import type { BuildOptions } from '../bootstrap/build.ts';
 import type { Curve } from '../curve/curve.ts';
 import { fail, ok, type CoreError, type Result } from '../result.ts';
-import type { Workspace } from '../workspace/types.ts';
+import type { Workspace } from '../document/types.ts';
 import { buildQuoteScenario } from './scenarioQuotes.ts';
 import { resolveShift, type ResolvedShift, type Scenario } from './scenarioShape.ts';
 import { shiftZeroCurve } from './scenarioZero.ts';
@@ -16,7 +16,6 @@ export * from './scenarioQuotes.ts';
 export * from './scenarioEffects.ts';
 export * from './scenarioSnapshots.ts';
 export * from './scenarioReference.ts';
-export * from './comparisonLines.ts';
 
 export interface ScenarioCurve {
   readonly scenario: Scenario;

@@ -5,8 +5,8 @@ import { lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts'
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
 import { daysBetween } from '../time/date.ts';
 import { curveTime, yearFraction } from '../time/dayCount.ts';
-import type { Quote, Workspace } from '../workspace/types.ts';
-import { PRICE_MAX } from '../workspace/validate.ts';
+import type { Quote, Workspace } from '../document/types.ts';
+import { PRICE_MAX } from '../document/validate.ts';
 import { shiftAt, type ResolvedShift } from './scenarioShape.ts';
 
 const BP = 1e-4;

@@ -140,7 +140,8 @@ export interface RollAnalysis {
   readonly warnings: readonly CoreWarning[];
 }
 
-export interface ScenarioCurve {
+/** A scenario's curve as roll versus term reads it: its name and the curve. */
+export interface NamedCurve {
   readonly name: string;
   readonly curve: Curve;
 }
@@ -160,7 +161,7 @@ export function resolveDate(settlement: IsoDate, text: string, path: string): Re
  * maturity cannot be used with this curve: a horizon beyond the curve without extrapolation, a
  * riding maturity not after the horizon, a scenario curve on another settlement date.
  */
-export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenarios: readonly ScenarioCurve[] = []): Result<RollAnalysis> {
+export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[] = []): Result<RollAnalysis> {
   const errors: CoreError[] = [];
   const warnings: CoreWarning[] = [];
   const money = parseMoney(strategy.amount);

@@ -2,7 +2,7 @@
 // of their defining arithmetic (hand calculations from the definitions, stated beside each) and of
 // how they agree with each other where the definitions say they must.
 import type { Curve } from '../../../src/core/index.ts';
-import { analyseRollVsTerm, DEFAULT_STRATEGY, shiftedCurve, type StrategyInputs } from '../../../src/core/analysis/rollVsTerm.ts';
+import { analyseRollVsTerm, DEFAULT_STRATEGY, shiftedCurve, type StrategyInputs } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 import { rollMarketCurve } from '../../helpers/rollMarket.ts';
 

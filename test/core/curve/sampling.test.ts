@@ -1,7 +1,7 @@
 // The chart sampler against the core's own queries (zeroOn, forwardOn, parYieldOn,
 // instantaneousForwardOn) as the oracle: at every sample the same value to within a few ulps.
 import { addTenor, buildCurve, curveTime, queryYearFraction, forwardOn, instantaneousForwardOn, parseTenor, parYieldOn, zeroOn, type Compounding } from '../../../src/core/index.ts';
-import { forwardSamples, instantaneousSamples, parBondsGrid, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples , readWorkbenchDocument, FORWARD_TENORS } from '../../../src/core/input/index.ts';
+import { forwardSamples, instantaneousSamples, parBondsGrid, parGrid, parSamples, sampleDays, sampleGrid, toEngineDocument, zeroSamples , readWorkbenchDocument, FORWARD_TENORS } from '../../../src/core/index.ts';
 import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 

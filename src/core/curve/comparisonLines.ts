@@ -1,10 +1,10 @@
-import type { Curve } from '../curve/curve.ts';
-import type { Samples } from '../input/curveSampler.ts';
+import type { Curve } from './curve.ts';
+import type { Samples } from './sampling.ts';
 import { lnDiscountFromRate, rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
 import { addTenor, type Tenor } from '../time/tenor.ts';
-import type { ReferenceCurve } from './scenarioReference.ts';
+import type { ReferenceCurve } from '../scenarios/scenarioReference.ts';
 
 /**
  * Comparison lines for the charts: a reference curve read in the display convention, and the
