@@ -4,6 +4,7 @@ import { SNAPSHOT_OVERLAY_MAX } from '../../charts/palette.ts';
 import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice, setCompareBy, setDrawFit, setDrawReference, setFitModel, toggleSnapshot } from './comparisonChoice.ts';
 import { useReferenceInput } from './referenceInput.ts';
+import { EditLock } from '../../components/EditLock.tsx';
 
 /** The charts' comparison choices (saved in the document's view): snapshots by name, the reference curve, the smooth fit. */
 export function ComparisonControls({ drawn }: { drawn: number }) {
@@ -19,6 +20,7 @@ export function ComparisonControls({ drawn }: { drawn: number }) {
   return (
     <details className="comparisons">
       <summary>Compare on the charts{drawn > 0 ? ` (${drawn} line${drawn === 1 ? '' : 's'} per chart)` : ''}</summary>
+      <EditLock>
       <div className="comparison-choices">
         <fieldset>
           <legend>Snapshots (at most {SNAPSHOT_OVERLAY_MAX} drawn)</legend>
@@ -65,6 +67,7 @@ export function ComparisonControls({ drawn }: { drawn: number }) {
           </label>
         </fieldset>
       </div>
+      </EditLock>
     </details>
   );
 }

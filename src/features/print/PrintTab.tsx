@@ -15,6 +15,7 @@ import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
 import { PrintSummary } from './PrintSummary.tsx';
 import '../scenarios/scenarios.css';
 import { BASE_STYLES, SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
+import { EditLock } from '../../components/EditLock.tsx';
 
 /** The printed page's heading when the workspace names none. */
 export const DEFAULT_PRINT_TITLE = 'Yield-curve summary';
@@ -94,13 +95,16 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
   return (
     <section className="print-tab" aria-label="Print">
       <div className="settings">
+        <EditLock>
         <label>
           Title
           <input value={title} onChange={(e) => setPrintTitle(e.target.value)} onBlur={() => useAppStore.getState().endEdit()} maxLength={PRINT_TITLE_CHARS} />
         </label>
+        </EditLock>
         <PrintSummaryButton />
         <span className="muted small">One page, A4 or US Letter, portrait. The first four scenarios are printed.</span>
       </div>
+      <EditLock>
       <NoteEditor
         value={typeof doc.note === 'string' ? doc.note : ''}
         onChange={(text) => {
@@ -110,6 +114,7 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
         }}
         onDone={() => useAppStore.getState().endEdit()}
       />
+      </EditLock>
       <div className="print-preview">{summary}</div>
       <PrintRoot>{summary}</PrintRoot>
     </section>

@@ -16,6 +16,7 @@ import { RollInputs } from './RollInputs.tsx';
 import { inFieldWords } from './fieldWords.ts';
 import { BreakEvenTables, RidingSplitTable, RollLegsTable, RollResultsTable } from './RollTables.tsx';
 import './roll.css';
+import { EditLock } from '../../components/EditLock.tsx';
 
 export interface RollPanelProps {
   /** Today's curve (null while there is none: the panel says so and keeps its inputs). */
@@ -80,7 +81,9 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
           ))}
         </ul>
       ) : null}
-      <RollInputs strategy={strategy} onChange={onStrategyChange} views={views} errors={fieldErrors} {...(analysis ? { shownView: analysis.views[analysis.chosen]!.id } : {})} />
+      <EditLock>
+        <RollInputs strategy={strategy} onChange={onStrategyChange} views={views} errors={fieldErrors} {...(analysis ? { shownView: analysis.views[analysis.chosen]!.id } : {})} />
+      </EditLock>
       {!curve ? (
         <p className="roll-empty" role="status">
           No curve yet: enter valid quotes and the comparison appears here. Your inputs are kept.
@@ -132,7 +135,9 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
             <div className="roll-side">
               <RidingSplitTable analysis={analysis} />
               <BreakEvenTables analysis={analysis} />
-              <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} />
+              <EditLock>
+                <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} />
+              </EditLock>
             </div>
           </div>
         </>

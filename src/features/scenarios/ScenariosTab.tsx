@@ -2,6 +2,7 @@ import { useMemo } from 'react';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { ScenarioPanel } from './ScenarioPanel.tsx';
+import { EditLock } from '../../components/EditLock.tsx';
 
 const BUILD = { skipInvalid: true } as const;
 
@@ -14,6 +15,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
     [display],
   );
   return (
+    <EditLock>
     <ScenarioPanel
       value={value}
       onChange={(next) => useAppStore.getState().setReserved('scenarios', next)}
@@ -22,5 +24,6 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
       buildOptions={BUILD}
       conventions={conventions}
     />
+    </EditLock>
   );
 }

@@ -3,6 +3,7 @@ import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice, setCompareBy } from '../compare/comparisonChoice.ts';
 import { ReferenceCurvePanel } from './ReferenceCurvePanel.tsx';
 import { SnapshotPanel } from './SnapshotPanel.tsx';
+import { EditLock } from '../../components/EditLock.tsx';
 
 /** Local time as ISO 8601 with its UTC offset, for a snapshot's label. */
 function nowWithOffset(): string {
@@ -20,6 +21,7 @@ export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
   const by = useAppStore((s) => comparisonChoice(s.workspace).by);
   return (
     <>
+      <EditLock>
       <SnapshotPanel
         value={value}
         onChange={(next) => useAppStore.getState().setReserved('snapshots', next)}
@@ -31,6 +33,7 @@ export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
         by={by}
         onByChange={setCompareBy}
       />
+      </EditLock>
       <h3>Reference curve</h3>
       <ReferenceCurvePanel curve={result.build.curve} />
     </>

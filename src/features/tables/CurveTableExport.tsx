@@ -4,6 +4,7 @@ import { download, safeFileName } from '../../components/download.ts';
 import { useAppStore } from '../../state/store.ts';
 import { setViewValues, viewText } from '../../state/viewValues.ts';
 import { tableConventionsFromDisplay } from '../../core/index.ts';
+import { EditLock } from '../../components/EditLock.tsx';
 
 const GRID_LABEL: Readonly<Record<CurveTableGrid, string>> = {
   pillars: 'Pillars',
@@ -46,6 +47,7 @@ export function CurveTableExport({ curve }: { curve: Curve }) {
   };
   return (
     <div className="curve-export">
+      <EditLock>
       <label>
         Export grid
         <select value={grid} onChange={(e) => setViewValues({ curveTableGrid: e.target.value }, 'curve table grid')}>
@@ -62,6 +64,7 @@ export function CurveTableExport({ curve }: { curve: Curve }) {
           <input value={ownText} size={28} spellCheck={false} aria-invalid={own.error ? true : undefined} aria-describedby={own.error ? `${id}-err` : undefined} onChange={(e) => setViewValues({ curveTablePoints: e.target.value.slice(0, 400) }, 'curve table points', 'curve-table-points')} onBlur={() => useAppStore.getState().endEdit()} />
         </label>
       ) : null}
+      </EditLock>
       <button type="button" onClick={save} disabled={blocked}>
         Export this table on the grid (CSV)
       </button>

@@ -3,6 +3,7 @@ import { forwardBetween, type Curve } from '../../core/index.ts';
 import { num, pct, rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
 import { setViewValues, viewList } from '../../state/viewValues.ts';
+import { EditLock } from '../../components/EditLock.tsx';
 
 /** Rows the calculator starts with: a 3-month forward from settlement, 1y1y and 5y5y. */
 const DEFAULT_STARTS = ['', '1Y', '5Y'];
@@ -46,6 +47,7 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
     setViewValues({ forwardCalcStarts: starts.slice(0, n).filter((_, j) => j !== i), forwardCalcEnds: ends.slice(0, n).filter((_, j) => j !== i) }, 'remove a forward');
   const endEdit = () => useAppStore.getState().endEdit();
   return (
+    <EditLock>
     <div className="forward-calc">
       <p className="muted small" id={`${id}-help`}>
         Start: empty for the settlement date {curve.settlement}, a tenor from settlement (1Y) or a date (YYYY-MM-DD). End: a tenor from the start (6M) or a date. Tenors are added unadjusted; a month end past the month's last day is clipped.
@@ -111,5 +113,6 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
       </button>
       {n >= FORWARD_CALC_ROWS ? <span className="muted small"> At most {FORWARD_CALC_ROWS} rows.</span> : null}
     </div>
+    </EditLock>
   );
 }

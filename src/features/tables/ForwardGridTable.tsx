@@ -3,6 +3,7 @@ import { setViewValues, viewText } from '../../state/viewValues.ts';
 import { addTenor, forwardOn, forwardParRateOn, parseTenor, type Curve, type DayCount, type Workspace } from '../../core/index.ts';
 import { couponTag, pct, rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
+import { EditLock } from '../../components/EditLock.tsx';
 
 const DEFAULT_STARTS = ['1Y', '2Y', '5Y', '10Y'];
 const DEFAULT_TENORS = ['1Y', '2Y', '5Y', '10Y'];
@@ -54,6 +55,7 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
   const tag = mode === 'par' ? couponTag(conv.frequency, conv.dayCount) : rateTag(display.compounding, display.dayCount);
   return (
     <div>
+      <EditLock>
       <fieldset className="segmented">
         <legend>Forward grid shows</legend>
         <label className={mode === 'par' ? 'on' : ''}>
@@ -80,6 +82,7 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
           </span>
         ))}
       </div>
+      </EditLock>
       <div className="scroll-x" tabIndex={0} role="region" aria-label="Forward grid (scrolls sideways)">
       <table className="data grid4" aria-label="Forward grid">
         <caption>
