@@ -5,6 +5,7 @@ export * from './time/date.ts';
 export * from './time/tenor.ts';
 export * from './time/dayCount.ts';
 export * from './time/schedule.ts';
+export * from './time/calendars.ts';
 export * from './rates/compounding.ts';
 export * from './interpolation/types.ts';
 export { INTERPOLATORS } from './interpolation/registry.ts';
