@@ -69,7 +69,7 @@ describe('england-wales against the GOV.UK feed', () => {
 });
 
 describe('us-gov-securities against the days SOFR was published (Federal Reserve Bank of New York, via FRED, 2019-08-29 to 2024-08-29)', () => {
-  const rows = readFileSync(new URL('../../fixtures/calendars/sofr-fred.csv', import.meta.url), 'utf8').trim().split('\n').slice(1).map((l) => l.split(','));
+  const rows = readFileSync(new URL('../../fixtures/sofr/SOFR.csv', import.meta.url), 'utf8').trim().split('\n').slice(1).map((l) => l.split(','));
 
   it('is closed exactly on the weekdays with no published rate (Good Friday 2021 and 2023, Juneteenth from 2022, Columbus and Veterans Days included)', () => {
     expect(rows[0]![0]).toBe('2019-08-29');
