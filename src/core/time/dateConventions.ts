@@ -151,6 +151,10 @@ export const marketDate = (anchor: IsoDate, tenor: Tenor, set: ConventionSet = U
   return isoFromCivil(marketDateCivil(c, tenor, set, k));
 };
 
+/** A parsed tenor: a whole n from 1 and a unit D, W, M or Y (guards a value that did not come from parseTenor). */
+const isTenor = (v: unknown): v is Tenor =>
+  typeof v === 'object' && v !== null && Number.isInteger((v as Tenor).n) && (v as Tenor).n >= 1 && ['D', 'W', 'M', 'Y'].includes((v as Tenor).unit);
+
 /** What is wrong with a set, or null when it can be used. */
 function conventionSetErrors(set: ConventionSet): string | null {
   if (set === UNADJUSTED) return null;
@@ -174,9 +178,9 @@ export function resolveMarketDate(anchor: IsoDate, when: string | Tenor, set: Co
   if (a === null) return fail(coreError('schema', path, `${path}: the date "${String(anchor).slice(0, 20)}" it counts from is not a date YYYY-MM-DD`));
   const problem = conventionSetErrors(set);
   if (problem !== null) return fail(coreError('unknown-identifier', path, `${path}: ${problem}`));
-  const tenor = typeof when === 'string' ? parseTenor(when) : when;
+  const tenor = typeof when === 'string' ? parseTenor(when) : isTenor(when) ? when : null;
   if (tenor !== null) return ok(isoFromCivil(marketDateCivil(a, tenor, set)));
-  const text = when as string;
-  if (parseIsoDate(text) !== null) return ok(text);
-  return fail(coreError('schema', path, `${path}: "${text.slice(0, 40)}" must be a tenor such as "3M" or "5Y" (a whole number and D, W, M or Y) or a date YYYY-MM-DD`));
+  if (typeof when === 'string' && parseIsoDate(when) !== null) return ok(when);
+  const shown = typeof when === 'string' ? `"${when.slice(0, 40)}"` : `the value ${JSON.stringify(when)?.slice(0, 40) ?? String(when)}`;
+  return fail(coreError('schema', path, `${path}: ${shown} must be a tenor such as "3M" or "5Y" (a whole number and D, W, M or Y) or a date YYYY-MM-DD`));
 }

@@ -97,6 +97,9 @@ describe('resolveMarketDate under UNADJUSTED (today\'s conventions)', () => {
     expect(e.message).toBe('strategy.horizon: "soon" must be a tenor such as "3M" or "5Y" (a whole number and D, W, M or Y) or a date YYYY-MM-DD');
     expect(errorOf(resolveMarketDate('2024-03-15', '2024-02-30')).message).toMatch(/"2024-02-30" must be a tenor .* or a date YYYY-MM-DD/);
     expect(errorOf(resolveMarketDate('2024-03-15', '0M')).code).toBe('schema');
+    // a value that is no text and no parsed tenor (a number from a JSON document) is refused, not thrown
+    expect(errorOf(resolveMarketDate('2024-03-15', 5 as never, UNADJUSTED, 'at')).message).toBe('at: the value 5 must be a tenor such as "3M" or "5Y" (a whole number and D, W, M or Y) or a date YYYY-MM-DD');
+    expect(errorOf(resolveMarketDate('2024-03-15', { n: 0, unit: 'M' })).code).toBe('schema');
     expect(errorOf(resolveMarketDate('15/03/2024', '1Y', UNADJUSTED, 'at')).message).toBe('at: the date "15/03/2024" it counts from is not a date YYYY-MM-DD');
     const unknown = errorOf(resolveMarketDate('2024-03-15', '1Y', { ...UNADJUSTED, name: 'x', calendar: 'mars' }));
     expect(unknown.code).toBe('unknown-identifier');
