@@ -52,6 +52,9 @@ export interface ConventionSet {
 /** Today's conventions everywhere in the product: no calendar, unadjusted, no end-of-month rule, no spot lag. */
 export const UNADJUSTED: ConventionSet = Object.freeze({ name: 'unadjusted', calendar: null, businessDay: 'unadjusted', endOfMonth: false, spotLagDays: 0 });
 
+/** UNADJUSTED with the end-of-month rule: a month-end start gives month ends (the `eom` flag of bond and swap schedules). */
+export const UNADJUSTED_END_OF_MONTH: ConventionSet = Object.freeze({ name: 'unadjusted, end of month', calendar: null, businessDay: 'unadjusted', endOfMonth: true, spotLagDays: 0 });
+
 /** Every day a business day (a set without a calendar). */
 export const EVERY_DAY: BusinessCalendar = Object.freeze({ id: 'every-day', isBusinessDay: () => true });
 
@@ -119,12 +122,13 @@ function addBusinessDays(serial: number, days: number, calendar: BusinessCalenda
  * day of month, clipped to the month's end, or follow the end-of-month rule; then the date moves
  * by the business-day rule.
  *
- * Under UNADJUSTED this is addTenorCivil (performance: no object made besides the date, as it runs
+ * Under UNADJUSTED (and UNADJUSTED_END_OF_MONTH) this is addTenorCivil (performance: no object made besides the date, as it runs
  * once per quote of every document). A set whose calendar id is unknown throws (programming
  * error: resolveMarketDate checks a set before using it).
  */
 export function marketDateCivil(anchor: CivilDate, tenor: Tenor, set: ConventionSet = UNADJUSTED, k = 1): CivilDate {
   if (set === UNADJUSTED) return addTenorCivil(anchor, tenor, k, false);
+  if (set === UNADJUSTED_END_OF_MONTH) return addTenorCivil(anchor, tenor, k, true);
   const calendar = calendarOf(set);
   if (calendar === null) throw new RangeError(`convention set ${set.name}: unknown calendar ${String(set.calendar)}`);
   if (calendar === EVERY_DAY) {
@@ -157,7 +161,7 @@ const isTenor = (v: unknown): v is Tenor =>
 
 /** What is wrong with a set, or null when it can be used. */
 function conventionSetErrors(set: ConventionSet): string | null {
-  if (set === UNADJUSTED) return null;
+  if (set === UNADJUSTED || set === UNADJUSTED_END_OF_MONTH) return null;
   if (calendarOf(set) === null) return `the convention set "${set.name}" names the calendar "${String(set.calendar)}", which is not known; use one of ${CALENDAR_IDS.join(', ')} or none`;
   if (!(BUSINESS_DAY_RULES as readonly string[]).includes(set.businessDay)) return `the convention set "${set.name}" has the business-day rule "${String(set.businessDay)}"; use one of ${BUSINESS_DAY_RULES.join(', ')}`;
   if (!Number.isInteger(set.spotLagDays) || set.spotLagDays < 0 || set.spotLagDays > 30) return `the convention set "${set.name}" has a spot lag of ${String(set.spotLagDays)} business days; use a whole number from 0 to 30`;

@@ -15,6 +15,7 @@ import {
   serialFromCivil,
   serialFromIso,
   UNADJUSTED,
+  UNADJUSTED_END_OF_MONTH,
   WEEKENDS_ONLY,
   type ConventionSet,
   type Tenor,
@@ -53,6 +54,10 @@ describe('resolveMarketDate under UNADJUSTED (today\'s conventions)', () => {
     expect(value(resolveMarketDate('2023-02-28', '1Y'))).toBe('2024-02-28');
     expect(value(resolveMarketDate('2024-04-30', '1M'))).toBe('2024-05-30');
     expect(value(resolveMarketDate('2024-08-15', '30Y'))).toBe('2054-08-15');
+    // with the end-of-month rule (a schedule's eom flag) a month-end start keeps month ends: 30 Apr + 1M = 31 May, 28 Feb 2023 + 1Y = 29 Feb 2024
+    expect(value(resolveMarketDate('2024-04-30', '1M', UNADJUSTED_END_OF_MONTH))).toBe('2024-05-31');
+    expect(value(resolveMarketDate('2023-02-28', '1Y', UNADJUSTED_END_OF_MONTH))).toBe('2024-02-29');
+    expect(value(resolveMarketDate('2024-04-29', '1M', UNADJUSTED_END_OF_MONTH))).toBe('2024-05-29');
   });
 
   it('resolveMarketDate reads tenors in either case with white space around, and parsed tenors', () => {
@@ -68,7 +73,7 @@ describe('resolveMarketDate under UNADJUSTED (today\'s conventions)', () => {
     expect(isoFromCivil(marketDateCivil(parseIsoDate('2024-01-31')!, t('3M')))).toBe('2024-04-30');
   });
 
-  it('resolveMarketDate(anchor, tenor) under UNADJUSTED equals addTenor, the rule every caller used before the conventions layer', () => {
+  it('resolveMarketDate(anchor, tenor) under UNADJUSTED (and UNADJUSTED_END_OF_MONTH) equals addTenor (with eom), the rule every caller used before the conventions layer', () => {
     const lo = serialFromCivil({ y: 1990, m: 1, d: 1 });
     const hi = serialFromCivil({ y: 2060, m: 12, d: 31 });
     fc.assert(
@@ -77,6 +82,8 @@ describe('resolveMarketDate under UNADJUSTED (today\'s conventions)', () => {
         const tenor = { n: unit === 'Y' ? 1 + (n % 60) : n, unit } as Tenor;
         expect(value(resolveMarketDate(anchor, tenor))).toBe(addTenor(anchor, tenor));
         expect(marketDate(anchor, tenor, UNADJUSTED, k)).toBe(addTenor(anchor, tenor, k));
+        // the eom flag of bond and swap schedules
+        expect(marketDate(anchor, tenor, UNADJUSTED_END_OF_MONTH, k)).toBe(addTenor(anchor, tenor, k, true));
       }),
       { seed: 16, numRuns: 5000 },
     );
