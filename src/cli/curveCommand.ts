@@ -14,10 +14,10 @@ import {
   isCurveDayCount,
   isExtrapolation,
   isIsoDate,
-  addTenor,
   atInputRows,
   engineFromAnyDocument,
   parseTenor,
+  resolveMarketDate,
   zeroOn,
   type Compounding,
   type CoreError,
@@ -262,10 +262,10 @@ const shorten = (line: string): string => (line.length > 80 ? `${line.slice(0, 8
 const tooLong = (chars: number): string =>
   `the document is ${chars} characters long, more than the ${MAX_DOCUMENT_CHARS} read; a workspace document is far shorter: check that the input is JSON, one document per line (NDJSON) or a single document`;
 
-/** Resolves a date or tenor against a settlement date. */
+/** Resolves a date or tenor against a settlement date (points were checked when the options were read). */
 const resolve = (point: string, settlement: string): string => {
-  const tenor = parseTenor(point);
-  return tenor ? addTenor(settlement, tenor) : point;
+  const at = resolveMarketDate(settlement, point);
+  return at.ok ? at.value : point;
 };
 
 /** The output line of a document that failed (without its newline). */

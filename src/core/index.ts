@@ -3,6 +3,7 @@ export * from './result.ts';
 export * from './numeric/tolerance.ts';
 export * from './time/date.ts';
 export * from './time/tenor.ts';
+export * from './time/dateConventions.ts';
 export * from './time/dayCount.ts';
 export * from './time/schedule.ts';
 export * from './time/calendars.ts';

@@ -1,4 +1,4 @@
-import { addTenor, parseDateText, parseIsoDate, parseTenor, serialFromIso, type DateOrder } from '../core/index.ts';
+import { parseDateText, parseTenor, resolveMarketDate, serialFromIso, type DateOrder } from '../core/index.ts';
 
 /**
  * Sort key of a maturity cell: the day serial of its date (a tenor counted from the settlement
@@ -9,6 +9,7 @@ export function maturitySortKey(text: string, settlement: string, dateOrder: Dat
   const date = parseDateText(s, dateOrder);
   if (date?.ok) return serialFromIso(date.date);
   const tenor = parseTenor(s);
-  if (tenor && parseIsoDate(settlement)) return serialFromIso(addTenor(settlement, tenor));
+  const at = tenor ? resolveMarketDate(settlement, tenor) : null;
+  if (at?.ok) return serialFromIso(at.value);
   return Number.POSITIVE_INFINITY;
 }

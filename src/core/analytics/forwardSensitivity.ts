@@ -5,7 +5,8 @@ import { periodsPerYear, rateFromLnDiscount, type Compounding } from '../rates/c
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
-import { addTenor, formatTenor, type Tenor } from '../time/tenor.ts';
+import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
+import { formatTenor, type Tenor } from '../time/tenor.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 import { nodePartials } from './nodePartials.ts';
 import { quoteYieldOf, requoteAtYield, type QuoteYield } from './quoteYield.ts';
@@ -57,8 +58,8 @@ export function forwardRows(curve: Curve, tenor: Tenor, step: Tenor, c: Compound
   if (!last) return fail(coreError('schema', 'curve', 'the curve has no pillars; add quotes first'));
   const rows: ForwardRow[] = [];
   for (let k = 0; k <= 2000; k++) {
-    const start = addTenor(curve.settlement, step, k);
-    const end = addTenor(start, tenor);
+    const start = marketDate(curve.settlement, step, UNADJUSTED, k);
+    const end = marketDate(start, tenor);
     if (compareIso(end, last.date) > 0) break;
     const tau = queryYearFraction(dc, start, end);
     if (!(tau > 0)) return fail(coreError('empty-period', 'tenor', `a ${formatTenor(tenor)} forward from ${start} is an empty period on ${dc}; choose a longer tenor`));

@@ -1,4 +1,5 @@
-import { addTenor, parseTenor } from '../time/tenor.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import { parseTenor } from '../time/tenor.ts';
 import type { Curve } from '../curve/curve.ts';
 
 /** Key maturities of the key-rate grid (common practice for a government curve). */
@@ -38,7 +39,7 @@ export function keyTimes(curve: Curve, tenors: readonly string[]): number[] {
   return tenors.map((text) => {
     const tenor = parseTenor(text);
     if (!tenor) throw new RangeError(`keyTimes: not a tenor: ${text}`);
-    return curve.time(addTenor(curve.settlement, tenor));
+    return curve.time(marketDate(curve.settlement, tenor));
   });
 }
 

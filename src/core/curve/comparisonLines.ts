@@ -3,7 +3,8 @@ import type { Samples } from './sampling.ts';
 import { lnDiscountFromRate, rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
-import { addTenor, type Tenor } from '../time/tenor.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import type { Tenor } from '../time/tenor.ts';
 import type { ReferenceCurve } from '../scenarios/scenarioReference.ts';
 
 /**
@@ -61,7 +62,7 @@ export function referenceForwardSamples(ref: ReferenceCurve, curve: Curve, tenor
   const ln = referenceLnDiscounts(ref, curve.settlement);
   const starts: [IsoDate, number][] = [[curve.settlement, 0], ...ln];
   const rows = starts.flatMap(([b, lnB]) => {
-    const e = addTenor(b, tenor);
+    const e = marketDate(b, tenor);
     const lnE = ln.get(e);
     const tau = queryYearFraction(dc, b, e);
     return lnE === undefined || !(tau > 0) ? [] : [{ date: b, x: curve.time(b), y: rateFromLnDiscount(lnE - lnB, c, tau), extrapolated: false }];

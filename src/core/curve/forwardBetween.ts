@@ -2,9 +2,9 @@ import { forwardOn, discountOn } from './query.ts';
 import type { Curve } from './curve.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { compareIso, isIsoDate, type IsoDate } from '../time/date.ts';
+import { compareIso, type IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
-import { addTenor, parseTenor } from '../time/tenor.ts';
+import { resolveMarketDate } from '../time/dateConventions.ts';
 
 /** A forward between two dates with the discount factors it is read from. */
 export interface ForwardBetween {
@@ -27,17 +27,17 @@ export interface ForwardBetween {
  * settlement date), a tenor counted from settlement ("1Y") or a date; the end is a tenor counted
  * from the start ("6M": a forward six months long) or a date after the start. The rate solves
  * DF(start)/DF(end) over tau = yearFraction(dc, start, end) in compounding c (forwardOn). Tenors
- * are added to the anchor unadjusted, month ends clipped (addTenor), as everywhere in the engine.
+ * are resolved by the conventions layer (resolveMarketDate), as everywhere in the engine.
  */
 export function forwardBetween(curve: Curve, startText: string, endText: string, c: Compounding, dc: CurveDayCount): Result<ForwardBetween> {
   const s = startText.trim();
   const e = endText.trim();
-  const startTenor = parseTenor(s.toUpperCase());
-  const start = s === '' ? curve.settlement : startTenor ? addTenor(curve.settlement, startTenor) : isIsoDate(s) ? s : null;
+  const startAt = s === '' ? null : resolveMarketDate(curve.settlement, s, undefined, 'start');
+  const start = startAt === null ? curve.settlement : startAt.ok ? startAt.value : null;
   if (start === null) return fail(coreError('schema', 'start', `Start: "${s.slice(0, 20)}" is neither a tenor from settlement such as "1Y" nor a date YYYY-MM-DD; leave it empty for the settlement date`));
   if (compareIso(start, curve.settlement) < 0) return fail(coreError('before-settlement', 'start', `Start: ${start} is before the settlement date ${curve.settlement}`));
-  const endTenor = parseTenor(e.toUpperCase());
-  const end = endTenor ? addTenor(start, endTenor) : isIsoDate(e) ? e : null;
+  const endAt = resolveMarketDate(start, e, undefined, 'end');
+  const end = endAt.ok ? endAt.value : null;
   if (end === null) return fail(coreError('schema', 'end', `End: "${e.slice(0, 20)}" is neither a tenor from the start such as "6M" nor a date YYYY-MM-DD`));
   if (compareIso(end, start) <= 0) return fail(coreError('empty-period', 'end', `End: ${end} must come after the start ${start}`));
   const a = discountOn(curve, start, 'start');

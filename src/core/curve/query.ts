@@ -2,7 +2,8 @@ import { rateFromLnDiscount, rateLimitFromInstantaneous, type Compounding } from
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { addDays, compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount, type DayCount } from '../time/dayCount.ts';
-import { addTenor, type Tenor } from '../time/tenor.ts';
+import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
+import type { Tenor } from '../time/tenor.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import type { Curve } from './curve.ts';
 
@@ -145,7 +146,7 @@ export function forwardStrip(curve: Curve, tenor: Tenor, horizon: IsoDate, c: Co
   const out: ForwardValue[] = [];
   let start = curve.settlement;
   for (let k = 1; compareIso(start, horizon) < 0 && k <= 5000; k++) {
-    let end = addTenor(curve.settlement, tenor, k);
+    let end = marketDate(curve.settlement, tenor, UNADJUSTED, k);
     if (compareIso(end, horizon) > 0) end = horizon;
     const f = forwardOn(curve, start, end, c, dc, `strip[${k - 1}]`);
     if (!f.ok) return f;

@@ -1,9 +1,12 @@
 import type { Curve } from './curve.ts';
 import { fixedLegCivil } from '../instruments/swap.ts';
 import { rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
-import { addMonthsCivil, civilFromIso, civilFromSerial, daysBetween, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { civilFromIso, civilFromSerial, daysBetween, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { marketDateCivil, UNADJUSTED } from '../time/dateConventions.ts';
 import { curveClock, queryYearFractionCivil, yearFractionCivil, type CurveDayCount } from '../time/dayCount.ts';
-import { addTenorCivil, type Tenor } from '../time/tenor.ts';
+import type { Tenor } from '../time/tenor.ts';
+
+const ONE_MONTH: Tenor = Object.freeze({ n: 1, unit: 'M' });
 
 /**
  * Chart sampling of a curve on a fixed grid of dates, fast enough for every keystroke: the dates,
@@ -65,7 +68,7 @@ export function sampleGrid(settlement: IsoDate, end: IsoDate, n: number, curveDa
   const tauForward = new Float64Array(len);
   for (let i = 0; i < len; i++) {
     const d = civilFromSerial(s0 + days[i]!);
-    const e = addTenorCivil(d, forwardTenor);
+    const e = marketDateCivil(d, forwardTenor);
     dates[i] = isoFromCivil(d);
     t[i] = curveClockOf(d);
     tauZero[i] = displayClockOf(d);
@@ -186,7 +189,7 @@ export function parBondsGrid(settlement: IsoDate, maturities: readonly IsoDate[]
  * first a stub from settlement; so it pays the coupons of the bond maturing M - step months out
  * and one more, and each monthly date is discounted once (about 12 per year of curve instead of
  * a schedule per bond). The ladder's dates are settlement + M months (the day clipped to the
- * month's end, as addMonths does); a bond whose maturity day is clipped would count its coupons
+ * month's end: marketDate under UNADJUSTED); a bond whose maturity day is clipped would count its coupons
  * back from the clipped day, so those maturities are not drawn (settlement on the 29th to 31st
  * only). The accruals are those of fixedLegCivil on the same dates, so each par yield equals the
  * one of a bond with its own schedule (parYieldOn), term for term.
@@ -201,18 +204,18 @@ export function parGrid(settlement: IsoDate, end: IsoDate, curveDayCount: CurveD
   const s0 = serialFromCivil(s);
   const eSerial = serialFromCivil(e);
   // Bonds shorter than a month (one coupon each), so the line starts near settlement as the zero line does.
-  const firstMonth = serialFromCivil(addMonthsCivil(s, 1)) - s0;
+  const firstMonth = serialFromCivil(marketDateCivil(s, ONE_MONTH)) - s0;
   for (const d of sampleDays(Math.min(firstMonth, eSerial - s0), 8)) {
     if (d > 0 && d < firstMonth && s0 + d < eSerial) appendBond(out, s, civilFromSerial(s0 + d), frequency, clock);
   }
   const base = out.t.length; // the node of month M is base + M - 1
   let lastShown = -1;
   for (let M = 1; ; M++) {
-    const d = addMonthsCivil(s, M);
+    const d = marketDateCivil(s, ONE_MONTH, UNADJUSTED, M);
     const dSerial = serialFromCivil(d);
     if (dSerial > eSerial) break;
     const first = M <= step;
-    const before = addMonthsCivil(s, M - step);
+    const before = marketDateCivil(s, ONE_MONTH, UNADJUSTED, M - step);
     const from = first ? s : before;
     out.t.push(clock(d));
     out.accrual.push(yearFractionCivil('ACT/ACT-ICMA', from, d, false, false, dSerial - serialFromCivil(before), frequency));

@@ -5,7 +5,8 @@ import { COMPOUNDINGS, isCompounding, type Compounding } from '../rates/compound
 import { coreError, type CoreError } from '../result.ts';
 import { compareIso, isMonthEnd, isoFromCivil, parseIsoDate, type CivilDate, type IsoDate } from '../time/date.ts';
 import { CURVE_DAY_COUNTS, DAY_COUNTS, isCurveDayCount, isDayCount, type DayCount } from '../time/dayCount.ts';
-import { addTenorCivil, formatTenor, parseTenor } from '../time/tenor.ts';
+import { marketDateCivil } from '../time/dateConventions.ts';
+import { formatTenor, parseTenor } from '../time/tenor.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
@@ -229,7 +230,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
       errors.push(coreError('schema', `${base}.tenor`, `${base}.tenor: must be a tenor nD, nW, nM or nY with n >= 1 (such as "3M"), not ${typeName(raw.tenor)}`, index));
     } else {
       tenor = formatTenor(parsed);
-      maturity = isoFromCivil(addTenorCivil(settlementCivil, parsed, 1, false));
+      maturity = isoFromCivil(marketDateCivil(settlementCivil, parsed));
     }
   } else {
     maturity = checkDate(raw.maturity, `${base}.maturity`, errors, index);

@@ -5,7 +5,8 @@ import { COMPOUNDING_LABEL, type Compounding } from '../rates/compounding.ts';
 import type { CoreError } from '../result.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import { addTenor, parseTenor } from '../time/tenor.ts';
+import { marketDate, resolveMarketDate, UNADJUSTED } from '../time/dateConventions.ts';
+import { parseTenor } from '../time/tenor.ts';
 import { toCsv, type CsvCell } from './csv.ts';
 
 export interface CurveTableConventions {
@@ -67,7 +68,7 @@ export const CURVE_TABLE_MAX_POINTS = 1200;
  * The points of a curve table: the pillar dates; settlement plus every whole month, quarter or
  * year up to the first such date on or after the last pillar (so the grid covers the curve; that
  * last point may be extrapolated); or the user's own tenors and dates (`dates`, kept in the order
- * given). Dates are unadjusted, month ends clipped (addTenor).
+ * given). Dates are market dates under the conventions layer (marketDate: today unadjusted, month ends clipped).
  */
 export function curveTablePoints(curve: Curve, grid: CurveTableGrid, own: readonly string[] = []): string[] {
   if (grid === 'pillars') return curve.pillars.map((p) => p.date);
@@ -76,7 +77,7 @@ export function curveTablePoints(curve: Curve, grid: CurveTableGrid, own: readon
   const step = grid === 'monthly' ? { n: 1, unit: 'M' as const } : grid === 'quarterly' ? { n: 3, unit: 'M' as const } : { n: 1, unit: 'Y' as const };
   const out: string[] = [];
   for (let k = 1; k <= CURVE_TABLE_MAX_POINTS; k++) {
-    const d = addTenor(curve.settlement, step, k);
+    const d = marketDate(curve.settlement, step, UNADJUSTED, k);
     out.push(d);
     if (d >= last) break;
   }
@@ -90,9 +91,10 @@ export function curveTablePoints(curve: Curve, grid: CurveTableGrid, own: readon
 export function curveTable(curve: Curve, conv: CurveTableConventions, points?: readonly string[]): CurveTableRow[] {
   const wanted = points ?? curve.pillars.map((p) => p.date);
   return wanted.flatMap((label) => {
-    const tenor = parseTenor(label);
-    const date = tenor ? addTenor(curve.settlement, tenor) : label;
-    if (!tenor && !/^\d{4}-\d{2}-\d{2}$/.test(label)) return [];
+    const at = resolveMarketDate(curve.settlement, label);
+    // A date-shaped label that is no calendar date still gets its row, whose errors say so.
+    if (!at.ok && !/^\d{4}-\d{2}-\d{2}$/.test(label)) return [];
+    const date = at.ok ? at.value : label;
     const errors: CoreError[] = [];
     const take = <T>(r: { ok: true; value: T } | { ok: false; errors: readonly CoreError[] }): T | null => {
       if (r.ok) return r.value;
@@ -103,7 +105,7 @@ export function curveTable(curve: Curve, conv: CurveTableConventions, points?: r
     const zero = take(zeroOn(curve, date, conv.zeroCompounding, conv.zeroDayCount));
     const par = take(parYieldOn(curve, date, conv.parFrequency));
     const fwdTenor = parseTenor(conv.forwardTenor);
-    const fwd = fwdTenor ? take(forwardOn(curve, date, addTenor(date, fwdTenor), conv.forwardCompounding, conv.forwardDayCount)) : null;
+    const fwd = fwdTenor ? take(forwardOn(curve, date, marketDate(date, fwdTenor), conv.forwardCompounding, conv.forwardDayCount)) : null;
     return [
       {
         label,

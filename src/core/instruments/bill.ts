@@ -1,7 +1,11 @@
-import { addMonths, daysBetween, isLeapYear, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
+import { daysBetween, isLeapYear, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
+import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
+import type { Tenor } from '../time/tenor.ts';
 import type { BillQuote } from '../document/types.ts';
 import type { Instrument } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
+
+const ONE_YEAR: Tenor = Object.freeze({ n: 1, unit: 'Y' });
 
 /**
  * Discount bill. Bank discount yield d on actual days over 360:
@@ -20,7 +24,8 @@ export function billDiscountYieldFromPrice(price: number, days: number): number 
  * (here the settlement) date contain 29 February, else 365 (US Treasury).
  */
 export function billYearBasis(settlement: IsoDate): number {
-  const oneYear = addMonths(settlement, 12);
+  // The year after issue is a calendar year whatever the market's conventions: always unadjusted.
+  const oneYear = marketDate(settlement, ONE_YEAR, UNADJUSTED);
   const s = parseIsoDate(settlement)!;
   for (const y of [s.y, s.y + 1]) {
     if (!isLeapYear(y)) continue;

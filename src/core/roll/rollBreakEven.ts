@@ -1,6 +1,7 @@
 import { discountOn } from '../curve/query.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
-import { addTenor, parseTenor } from '../time/tenor.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import { parseTenor } from '../time/tenor.ts';
 import { shiftedCurve } from './horizonCurve.ts';
 import { brentRoot } from './rollSolve.ts';
 import { constantRateSpec, shiftedSpec, type RollView } from './rollViews.ts';
@@ -123,7 +124,7 @@ export function breakEvenCurve(ctx: RollContext): BreakEvenPoint[] {
   const out: BreakEvenPoint[] = [];
   for (const tenorText of BREAK_EVEN_TENORS) {
     const tenor = parseTenor(tenorText)!;
-    const maturity = addTenor(curve.settlement, tenor);
+    const maturity = marketDate(curve.settlement, tenor);
     if (compareIso(maturity, horizon) <= 0) continue;
     const d = discountOn(curve, maturity);
     if (!d.ok || d.value.extrapolated) continue;

@@ -3,7 +3,8 @@ import { forwardOn } from '../curve/query.ts';
 import { coreError, fail, ok, type CoreWarning, type Result } from '../result.ts';
 import { compareIso, daysBetween, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
-import { addTenor, type Tenor } from '../time/tenor.ts';
+import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
+import type { Tenor } from '../time/tenor.ts';
 import { curveSeenAtHorizon, impliedCurveAtHorizon, shiftedCurve } from './horizonCurve.ts';
 import type { RatePath, StrategyViewId } from './strategyInputs.ts';
 
@@ -45,7 +46,7 @@ export function rollLegs(curve: Curve, tenor: Tenor, horizon: IsoDate, dayCount:
   let start = curve.settlement;
   for (let k = 1; compareIso(start, horizon) < 0; k++) {
     if (k > 2000) return fail(coreError('range', 'strategy.horizon', 'strategy.horizon: more than 2000 roll legs; choose a shorter horizon or a longer roll tenor'));
-    const full = addTenor(curve.settlement, tenor, k);
+    const full = marketDate(curve.settlement, tenor, UNADJUSTED, k);
     const end = compareIso(full, horizon) > 0 ? horizon : full;
     const f = forwardOn(curve, start, end, 'simple', dayCount, `strategy.horizon`);
     if (!f.ok) return f;
@@ -169,7 +170,7 @@ export function shiftView(curve: Curve, horizon: IsoDate, shiftBp: number): View
 
 /** Today's spot rate for the roll tenor, simple on the roll day count, on a curve. */
 export function spotRollRate(curve: Curve, tenor: Tenor, dayCount: CurveDayCount, path = 'strategy.rollTenor'): Result<number> {
-  const f = forwardOn(curve, curve.settlement, addTenor(curve.settlement, tenor), 'simple', dayCount, path);
+  const f = forwardOn(curve, curve.settlement, marketDate(curve.settlement, tenor), 'simple', dayCount, path);
   return f.ok ? ok(f.value.rate) : f;
 }
 

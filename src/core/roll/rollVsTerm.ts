@@ -1,9 +1,10 @@
 import type { Curve } from '../curve/curve.ts';
 import { discountOn } from '../curve/query.ts';
 import { coreError, fail, ok, type CoreError, type CoreWarning, type Result } from '../result.ts';
-import { compareIso, isIsoDate, type IsoDate } from '../time/date.ts';
+import { compareIso, type IsoDate } from '../time/date.ts';
 import { yearFraction } from '../time/dayCount.ts';
-import { addTenor, parseTenor, type Tenor } from '../time/tenor.ts';
+import { resolveMarketDate } from '../time/dateConventions.ts';
+import { parseTenor, type Tenor } from '../time/tenor.ts';
 import { bondPriceFromYieldOn, bondValueOnCurve, bondYieldFromPriceOn, parBondOn, type TermBond } from './strategyBonds.ts';
 import { annualisedReturn, bondAtHorizon, STRATEGY_IDS, strategyGrowths, type RollContext, type StrategyId } from './strategyValues.ts';
 import { moneyTimes, parseMoney, MoneyDecimal, type Money } from './strategyMoney.ts';
@@ -148,11 +149,11 @@ export interface NamedCurve {
 
 /** Resolves a horizon or maturity text (tenor or date) against the settlement. */
 export function resolveDate(settlement: IsoDate, text: string, path: string): Result<IsoDate> {
-  const tenor = parseTenor(text);
-  const date = tenor ? addTenor(settlement, tenor) : isIsoDate(text) ? text : null;
-  if (date === null) return fail(coreError('schema', path, `${path}: must be a tenor such as "2Y" or a date YYYY-MM-DD, not "${text}"`));
+  const resolved = resolveMarketDate(settlement, text, undefined, path);
+  if (!resolved.ok) return fail(coreError('schema', path, `${path}: must be a tenor such as "2Y" or a date YYYY-MM-DD, not "${text}"`));
+  const date = resolved.value;
   if (compareIso(date, settlement) <= 0) return fail(coreError('before-settlement', path, `${path}: ${date} must be after the settlement date ${settlement}`));
-  return ok(date);
+  return resolved;
 }
 
 /**

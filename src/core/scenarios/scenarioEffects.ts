@@ -3,7 +3,8 @@ import { forwardOn, zeroOn } from '../curve/query.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import { addTenor, parseTenor } from '../time/tenor.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import { parseTenor } from '../time/tenor.ts';
 import { shiftAt, type ResolvedShift } from './scenarioShape.ts';
 
 /** Key maturities shown by default in tables (tenors from settlement). Common practice. */
@@ -39,14 +40,14 @@ export function scenarioEffects(base: Curve, moved: Curve, tenors: readonly stri
   return tenors.flatMap((label) => {
     const tenor = parseTenor(label);
     if (!tenor) return [];
-    const date = addTenor(base.settlement, tenor);
+    const date = marketDate(base.settlement, tenor);
     const zero = (c: Curve): number | null => {
       const r = zeroOn(c, date, conv.zeroCompounding, conv.zeroDayCount);
       return r.ok ? r.value.zero : null;
     };
     const fwd = (c: Curve): number | null => {
       if (!fwdTenor) return null;
-      const r = forwardOn(c, date, addTenor(date, fwdTenor), conv.forwardCompounding, conv.forwardDayCount);
+      const r = forwardOn(c, date, marketDate(date, fwdTenor), conv.forwardCompounding, conv.forwardDayCount);
       return r.ok ? r.value.rate : null;
     };
     return [{ tenor: label, date, zeroBp: diffBp(zero(moved), zero(base)), forwardBp: diffBp(fwd(moved), fwd(base)) }];

@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
-import { compareIso, isIsoDate, type IsoDate } from '../time/date.ts';
+import { compareIso, type IsoDate } from '../time/date.ts';
 import { curveTime, type CurveDayCount } from '../time/dayCount.ts';
-import { addTenor, parseTenor } from '../time/tenor.ts';
+import { resolveMarketDate } from '../time/dateConventions.ts';
 
 /**
  * A scenario's shape: a shift Delta(t) in basis points (1 bp = 0.0001 in decimal rate) given at
@@ -56,10 +56,9 @@ export interface ResolvedShift {
 
 /** Years on the curve's axis from settlement to a maturity given as a tenor or a date; null when it is neither or not after settlement. */
 export function maturityTime(at: string, settlement: IsoDate, dayCount: CurveDayCount): number | null {
-  const tenor = parseTenor(at);
-  let date: IsoDate | null = null;
-  if (tenor && at === at.trim()) date = addTenor(settlement, tenor, 1, false);
-  else if (isIsoDate(at)) date = at;
+  // No white space around a maturity here (a date never has any; a tenor with some is refused too).
+  const resolved = at === at.trim() ? resolveMarketDate(settlement, at) : null;
+  const date = resolved !== null && resolved.ok ? resolved.value : null;
   if (date === null || compareIso(date, settlement) <= 0) return null;
   return curveTime(dayCount, settlement, date);
 }

@@ -5,7 +5,8 @@ import { fnv1a64 } from '../export/hash.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import { addTenor, parseTenor } from '../time/tenor.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import { parseTenor } from '../time/tenor.ts';
 import { WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../document/validate.ts';
 
 /**
@@ -87,8 +88,8 @@ export function compareCurves(current: Curve, other: Curve, tenors: readonly str
   return tenors.flatMap((label) => {
     const tenor = parseTenor(label);
     if (!tenor) return [];
-    const date = addTenor(current.settlement, tenor);
-    const otherDate = by === 'time' ? addTenor(other.settlement, tenor) : date;
+    const date = marketDate(current.settlement, tenor);
+    const otherDate = by === 'time' ? marketDate(other.settlement, tenor) : date;
     const z = zeroOn(current, date, c, dc);
     const o = otherDate > other.settlement ? zeroOn(other, otherDate, c, dc) : null;
     const zero = z.ok ? z.value.zero : null;

@@ -285,9 +285,9 @@ export const isBuiltInCalendar = (x: unknown): x is BuiltInCalendarId => typeof 
 export interface BusinessCalendar {
   /** The calendar's id as written: built-in ids, custom names, joined with `+`. */
   readonly id: string;
-  /** Years the calendar answers for; a day outside them is an error for the caller to report. */
-  readonly firstYear: number;
-  readonly lastYear: number;
+  /** Years the calendar answers for (none given: every year); a day outside them is an error for the caller to report. */
+  readonly firstYear?: number;
+  readonly lastYear?: number;
   isBusinessDay(serial: number): boolean;
 }
 
@@ -309,12 +309,30 @@ export interface CalendarContext {
 
 export type CalendarOutcome = { readonly ok: true; readonly calendar: BusinessCalendar } | { readonly ok: false; readonly message: string };
 
+/** The longest run of consecutive weekdays in a set of closed days (weekends between them do not break a run). */
+function longestClosedRun(closed: ReadonlySet<number>): number {
+  let longest = 0;
+  for (const start of closed) {
+    if (isWeekend(start) || closed.has(start - 1) || closed.has(start - 3)) continue;
+    let run = 0;
+    let s = start;
+    while (closed.has(s) || isWeekend(s)) {
+      if (!isWeekend(s)) run++;
+      s++;
+    }
+    longest = Math.max(longest, run);
+  }
+  return longest;
+}
+
 /** A member calendar's closed weekdays, cached per year as a set of serials. */
 function memberClosures(id: string, context: CalendarContext): { closed: (serial: number) => boolean; firstYear: number; lastYear: number } | string {
   const custom = context.custom?.[id];
   if (custom) {
     const set = new Set<number>();
     for (const d of custom.holidays) if (isIsoDate(d)) set.add(serialFromIso(d));
+    const longest = longestClosedRun(set);
+    if (longest > 60) return `the calendar "${id.slice(0, 40)}" closes ${longest} weekdays in a row; a list of holidays should leave business days between them (at most 60 closed weekdays in a row)`;
     return { closed: (s) => set.has(s), firstYear: CALENDAR_FIRST_YEAR, lastYear: CALENDAR_LAST_YEAR };
   }
   if (!isBuiltInCalendar(id)) {
@@ -366,8 +384,10 @@ export function businessCalendar(spec: string, context: CalendarContext = {}): C
 /** Whether a day lies in the calendar's years; the message names the range when it does not. */
 export function outsideCalendar(calendar: BusinessCalendar, serial: number): string | null {
   const y = civilFromSerial(serial).y;
-  if (y >= calendar.firstYear && y <= calendar.lastYear) return null;
-  return `${isoFromSerial(serial)} is outside the years the calendar ${calendar.id} covers (${calendar.firstYear} to ${calendar.lastYear})`;
+  const first = calendar.firstYear ?? -Infinity;
+  const last = calendar.lastYear ?? Infinity;
+  if (y >= first && y <= last) return null;
+  return `${isoFromSerial(serial)} is outside the years the calendar ${calendar.id} covers (${first} to ${last})`;
 }
 
 /** The weekdays from `from` to `to` (both included) on which the calendar is closed. */
@@ -382,10 +402,13 @@ export function closedWeekdays(calendar: BusinessCalendar, from: IsoDate, to: Is
 export const BUSINESS_DAY_RULES = ['following', 'modified-following', 'preceding', 'modified-preceding', 'unadjusted'] as const;
 export type BusinessDayRule = (typeof BUSINESS_DAY_RULES)[number];
 
+/** Longest run of closed days searched for a business day (a custom calendar with a longer run is refused when read). */
+export const MAX_CLOSED_RUN = 366;
+
 const step = (calendar: BusinessCalendar, serial: number, dir: 1 | -1): number => {
   let s = serial;
-  while (!calendar.isBusinessDay(s)) s += dir;
-  return s;
+  for (let i = 0; i < MAX_CLOSED_RUN; i++, s += dir) if (calendar.isBusinessDay(s)) return s;
+  throw new RangeError(`calendar ${calendar.id}: no business day within ${MAX_CLOSED_RUN} days of ${isoFromSerial(serial)}`);
 };
 
 /**
@@ -411,10 +434,7 @@ export function adjustSerial(serial: number, rule: BusinessDayRule, calendar: Bu
 export function addBusinessDays(serial: number, n: number, calendar: BusinessCalendar): number {
   let s = serial;
   const dir = n < 0 ? -1 : 1;
-  for (let k = 0; k < Math.abs(n); k++) {
-    s += dir;
-    while (!calendar.isBusinessDay(s)) s += dir;
-  }
+  for (let k = 0; k < Math.abs(n); k++) s = step(calendar, s + dir, dir);
   return s;
 }
 

@@ -1,4 +1,9 @@
-import { addMonthsCivil, compareCivil, isoFromCivil, civilFromIso, type CivilDate, type IsoDate } from './date.ts';
+import { compareCivil, isoFromCivil, civilFromIso, type CivilDate, type IsoDate } from './date.ts';
+import { marketDateCivil, UNADJUSTED, UNADJUSTED_END_OF_MONTH } from './dateConventions.ts';
+import type { Tenor } from './tenor.ts';
+
+/** The coupon period of each frequency as a tenor (performance: made once, not per schedule). */
+const PERIODS: Readonly<Record<number, Tenor>> = { 1: { n: 12, unit: 'M' }, 2: { n: 6, unit: 'M' }, 4: { n: 3, unit: 'M' }, 12: { n: 1, unit: 'M' } };
 
 /**
  * Coupon dates generated backward from an end date: end - k x (12/frequency) months for
@@ -24,14 +29,17 @@ export interface CivilBackwardSchedule {
  * `end` must be after `start`; frequency: 1, 2, 4 or 12 per year.
  */
 export function backwardScheduleCivil(start: CivilDate, end: CivilDate, frequency: number, eom: boolean): CivilBackwardSchedule {
-  const step = 12 / frequency;
+  // Each date is a market date: the end minus k coupon periods under the conventions layer (today
+  // unadjusted; the eom flag is the end-of-month rule).
+  const period = PERIODS[frequency] ?? { n: 12 / frequency, unit: 'M' };
+  const set = eom ? UNADJUSTED_END_OF_MONTH : UNADJUSTED;
   const dates: CivilDate[] = [];
   let k = 0;
   let date = end;
   while (compareCivil(date, start) > 0) {
     dates.push(date);
     k += 1;
-    date = addMonthsCivil(end, -k * step, eom);
+    date = marketDateCivil(end, period, set, -k);
   }
   dates.reverse();
   return { dates, previous: date };

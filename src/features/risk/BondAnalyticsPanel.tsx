@@ -1,15 +1,13 @@
 import { useMemo, useState } from 'react';
 import {
-  addTenor,
   analyzeBond,
   bootstrapInstruments,
   compileMarket,
   DAY_COUNTS,
   DEFAULT_KEY_TENORS,
-  isIsoDate,
   parsePriceText,
-  parseTenor,
   quoteDv01s,
+  resolveMarketDate,
   type BondInput,
   type Curve,
   type DayCount,
@@ -42,9 +40,9 @@ const DEFAULT_FORM: BondForm = { maturity: '10Y', coupon: '4', frequency: '2', d
 
 /** Reads the form into a bond; a message naming the field when a text is not a number or date. */
 function readForm(f: BondForm, settlement: string): BondInput | string {
-  const tenor = parseTenor(f.maturity);
-  const maturity = tenor ? addTenor(settlement, tenor) : f.maturity.trim();
-  if (!tenor && !isIsoDate(maturity)) return `Maturity: type a date YYYY-MM-DD or a tenor such as 10Y, not "${f.maturity}"`;
+  const at = resolveMarketDate(settlement, f.maturity.trim());
+  if (!at.ok) return `Maturity: type a date YYYY-MM-DD or a tenor such as 10Y, not "${f.maturity}"`;
+  const maturity = at.value;
   const coupon = Number(f.coupon);
   if (f.coupon.trim() === '' || !Number.isFinite(coupon)) return `Coupon: type a percent per year such as 4.25, not "${f.coupon}"`;
   const base = { maturity, coupon: coupon / 100, frequency: Number(f.frequency), dayCount: f.dayCount };

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { setViewValues, viewText } from '../../state/viewValues.ts';
-import { addTenor, forwardOn, forwardParRateOn, parseTenor, type Curve, type DayCount, type Workspace } from '../../core/index.ts';
+import { forwardOn, forwardParRateOn, marketDate, parseTenor, type Curve, type DayCount, type Workspace } from '../../core/index.ts';
 import { couponTag, pct, rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
 import { EditLock } from '../../components/EditLock.tsx';
@@ -43,9 +43,9 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
   const grid = useMemo(
     () =>
       STARTS.map((s) => {
-        const start = addTenor(curve.settlement, parseTenor(s)!);
+        const start = marketDate(curve.settlement, parseTenor(s)!);
         return TENORS.map((t) => {
-          const end = addTenor(start, parseTenor(t)!);
+          const end = marketDate(start, parseTenor(t)!);
           const r = mode === 'par' ? forwardParRateOn(curve, start, end, conv.frequency, conv.dayCount, conv.eom) : forwardOn(curve, start, end, display.compounding, display.dayCount);
           return r.ok ? { rate: r.value.rate, extrapolated: r.value.extrapolated, note: null } : { rate: null, extrapolated: false, note: r.errors[0]?.message ?? '' };
         });

@@ -1,4 +1,4 @@
-import { addTenor, discountOn, forwardOn, parseTenor, parYieldOn, zeroOn, type Curve } from '../../core/index.ts';
+import { discountOn, forwardOn, marketDate, parseTenor, parYieldOn, zeroOn, type Curve } from '../../core/index.ts';
 import type { DisplaySettings } from '../../core/index.ts';
 
 export const KEY_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'] as const;
@@ -20,11 +20,11 @@ export interface KeyMaturityRow {
 export function keyMaturityRows(curve: Curve, display: DisplaySettings): KeyMaturityRow[] {
   const fwdTenor = parseTenor(display.forwardTenor)!;
   return KEY_TENORS.map((tenor) => {
-    const date = addTenor(curve.settlement, parseTenor(tenor)!);
+    const date = marketDate(curve.settlement, parseTenor(tenor)!);
     const d = discountOn(curve, date);
     const z = zeroOn(curve, date, display.compounding, display.dayCount);
     const p = parYieldOn(curve, date, display.parFrequency);
-    const f = forwardOn(curve, date, addTenor(date, fwdTenor), display.compounding, display.dayCount);
+    const f = forwardOn(curve, date, marketDate(date, fwdTenor), display.compounding, display.dayCount);
     const note = !d.ok ? d.errors[0]!.message : !f.ok ? f.errors[0]!.message : null;
     return {
       tenor,
