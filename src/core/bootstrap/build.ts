@@ -1,15 +1,11 @@
 import type { Curve, Extrapolation } from '../curve/curve.ts';
-import { compileBill } from '../instruments/bill.ts';
-import { compileBond } from '../instruments/bond.ts';
-import { compileDeposit } from '../instruments/deposit.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { compileSwap, SwapLegs } from '../instruments/swap.ts';
-import { compileZero } from '../instruments/zero.ts';
+import { KIND_MODULE_LIST, moduleOf } from '../kinds/registry.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
-import type { Quote, SwapQuote, Workspace } from '../document/types.ts';
+import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
 import { validateWorkspace } from '../document/validate.ts';
 import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
 
@@ -54,22 +50,11 @@ export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCo
 
 /**
  * compileQuote with the settlement date parsed and the curve clock made once per market
- * (performance); `m` is the quote's maturity parsed, `legs` the market's shared swap legs.
+ * (performance); `m` is the quote's maturity parsed, `shared` what the kind's module made for the
+ * market (`QuoteKindModule.share`: a swap ladder's fixed legs).
  */
-function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate, m = civilFromIso(q.maturity), legs?: SwapLegs): Instrument {
-  const t = time(m);
-  switch (q.kind) {
-    case 'deposit':
-      return compileDeposit(q, settlement, t);
-    case 'bill':
-      return compileBill(q, settlement, t);
-    case 'zero':
-      return compileZero(q, settlement, t);
-    case 'bond':
-      return compileBond(q, s, m, t, time);
-    case 'swap':
-      return compileSwap(q, s, m, t, time, legs);
-  }
+function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate, m = civilFromIso(q.maturity), shared?: unknown): Instrument {
+  return moduleOf(q).compile(q, settlement, s, m, time(m), time, shared);
 }
 
 /**
@@ -86,19 +71,26 @@ export interface CompiledMarket {
   readonly duplicates: readonly CoreError[];
 }
 
+/** What each kind with a `share` step makes once for the market, from its enabled quotes. */
+function shareWork(enabled: readonly Quote[], maturities: readonly CivilDate[], s: CivilDate, time: (d: CivilDate) => number): Partial<Record<QuoteKind, unknown>> {
+  const shared: Partial<Record<QuoteKind, unknown>> = {};
+  for (const m of KIND_MODULE_LIST) {
+    if (!m.share) continue;
+    const mine: [Quote, CivilDate][] = [];
+    for (let i = 0; i < enabled.length; i++) if (enabled[i]!.kind === m.kind) mine.push([enabled[i]!, maturities[i]!]);
+    shared[m.kind] = m.share(s, time, mine);
+  }
+  return shared;
+}
+
 export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quotes: readonly Quote[], skipDuplicates: boolean): CompiledMarket {
   const s = civilFromIso(settlement); // the workspace is validated
   const time = curveClock(dayCount, s);
   const enabled = quotes.filter((q) => q.enabled);
   const maturities = enabled.map((q) => civilFromIso(q.maturity));
-  const swaps: [SwapQuote, CivilDate][] = [];
-  for (let i = 0; i < enabled.length; i++) {
-    const q = enabled[i]!;
-    if (q.kind === 'swap') swaps.push([q, maturities[i]!]);
-  }
-  const legs = new SwapLegs(s, time, swaps);
+  const shared = shareWork(enabled, maturities, s, time);
   const compiled: Instrument[] = [];
-  for (let i = 0; i < enabled.length; i++) compiled.push(compileQuoteCivil(enabled[i]!, settlement, time, s, maturities[i]!, legs));
+  for (let i = 0; i < enabled.length; i++) compiled.push(compileQuoteCivil(enabled[i]!, settlement, time, s, maturities[i]!, shared[enabled[i]!.kind]));
   // Documents usually list their quotes by maturity: sort only when they are not in order.
   const byTime = (a: Instrument, b: Instrument) => a.t - b.t || a.index - b.index;
   if (!compiled.every((ins, i) => i === 0 || byTime(compiled[i - 1]!, ins) < 0)) compiled.sort(byTime);
