@@ -50,6 +50,6 @@ export const BILL: QuoteKindModule<BillQuote> = {
     const price = billPriceFromDiscountYield(billDiscountYieldFromPrice(q.price!, days) + d, days);
     return movedPrice(q, 'price', price, { ...q, price });
   },
-  fit: { per100: 1, dollarDuration: (ins) => flatDollarDuration(ins) },
+  fit: { per100: 1, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
 };

@@ -62,7 +62,7 @@ export const BOND: QuoteKindModule<BondQuote> = {
     return movedPrice(q, 'cleanPrice', clean, { ...q, cleanPrice: clean });
   },
   /** The bond's own dollar duration -dP/dy at its ICMA yield (bondDirtyFromYield). */
-  fit: { per100: 1, dollarDuration: (_ins, q, settlement, marketYield) => -bondDirtyFromYield(bondSchedule(q, settlement), marketYield).dPdy },
+  fit: { per100: 1, dollarDuration: (_ins, q, settlement, marketYield) => -bondDirtyFromYield(bondSchedule(q, settlement), marketYield).dPdy, richCheap: true },
   solver: { firstRate: quotedRateOrDefault },
   schedule: bondScheduleRows,
 };

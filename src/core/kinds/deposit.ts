@@ -30,6 +30,6 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   yieldLabel: (q) => `deposit rate (simple, ${q.dayCount})`,
   priceYield: () => null,
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
-  fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins) },
+  fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
 };

@@ -36,7 +36,7 @@ export const SWAP: QuoteKindModule<SwapQuote> = {
   yieldLabel: (q) => `swap rate (${perYearLabel(q.frequency)}, ${q.dayCount})`,
   priceYield: () => null,
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
-  fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins) },
+  fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
   schedule: swapScheduleRows,
 };

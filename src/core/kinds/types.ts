@@ -112,6 +112,8 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
     readonly per100: number;
     /** Dollar duration -dP/dy at the market's own yield, per unit of target. */
     dollarDuration(ins: Instrument, q: Q, settlement: IsoDate, marketYield: number): number;
+    /** Whether the fit lists the kind's quotes as rich or cheap against the fitted curve (bonds). */
+    readonly richCheap: boolean;
   };
 
   /** The bootstrap's first guess of the first node: ln DF = -rate x t with this rate (decimal). */

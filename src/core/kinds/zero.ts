@@ -57,6 +57,6 @@ export const ZERO: QuoteKindModule<ZeroQuote> = {
     const price = 100 * Math.exp(lnDiscountFromRate(r + d, q.compounding, tau));
     return movedPrice(q, 'price', price, { ...q, price });
   },
-  fit: { per100: 1, dollarDuration: (ins) => flatDollarDuration(ins) },
+  fit: { per100: 1, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
 };
