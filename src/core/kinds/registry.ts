@@ -4,7 +4,10 @@ import { BILL } from './bill.ts';
 import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
 import { SWAP } from './swap.ts';
-import type { QuoteKindModule } from './types.ts';
+import type { QuoteConvention, QuoteKindModule } from './types.ts';
+import type { Curve } from '../curve/curve.ts';
+import type { QuoteSchedule } from '../input/quoteSchedule.ts';
+import type { IsoDate } from '../time/date.ts';
 import { ZERO } from './zero.ts';
 
 /** Every quote kind the engine offers, by name; each module owns everything about its kind (kinds/types.ts). */
@@ -50,3 +53,9 @@ export function sheetDefault(kindText: string, column: QuoteColumn): string | un
   if (column === 'dayCount') return d.dayCount;
   return undefined;
 }
+
+/** How a validated quote is quoted (unit, compounding, day count), for the UI to format. */
+export const quoteConvention = (q: Quote): QuoteConvention => moduleOf(q).convention(q);
+
+/** A quote's cash-flow schedule on a curve (bonds, swaps), or null for a kind with a single flow. */
+export const quoteSchedule = (q: Quote, settlement: IsoDate, curve: Curve | null): QuoteSchedule | null => moduleOf(q).schedule?.(q, settlement, curve) ?? null;
