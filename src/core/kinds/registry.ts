@@ -33,6 +33,13 @@ export const KIND_ALLOWED_FIELDS: Readonly<Record<QuoteKind, ReadonlySet<string>
   QUOTE_KINDS.map((k) => [k, new Set(['kind', 'tenor', 'maturity', 'enabled', ...QUOTE_KIND_MODULES[k].schema.fields])]),
 ) as unknown as Record<QuoteKind, ReadonlySet<string>>;
 
+/** The fields the sheet's Rate / yield column fills across the kinds (`rate`, `discountYield`, `yield`), each once. */
+export const KIND_RATE_FIELDS: readonly string[] = [...new Set(KIND_MODULE_LIST.map((m) => m.sheet.rateField))];
+/** The fields the sheet's Price column fills across the kinds (`price`, `cleanPrice`), each once. */
+export const KIND_PRICE_FIELDS: readonly string[] = [...new Set(KIND_MODULE_LIST.flatMap((m) => (m.sheet.priceField === null ? [] : [m.sheet.priceField])))];
+/** Every field that holds a quote's quoted value (what a typed number changes): the rate and price fields. */
+export const QUOTE_VALUE_FIELDS: readonly string[] = [...KIND_RATE_FIELDS, ...KIND_PRICE_FIELDS];
+
 /** Words a sheet cell or a pasted block may use for a kind besides its name (lower case): `depo`, `irs`, ... */
 export const KIND_WORDS: Readonly<Record<string, QuoteKind>> = Object.fromEntries(KIND_MODULE_LIST.flatMap((m) => m.paste.kindWords.map((w) => [w, m.kind])));
 
