@@ -7,7 +7,10 @@ import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
 import { validateWorkspace } from '../document/validate.ts';
-import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
+import type { Repricing } from './bootstrap.ts';
+import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
+
+const NO_CURVES: CurveSet = {};
 
 /** Why a quote of the document is not a node of the curve. */
 export interface LeftOut {
@@ -17,7 +20,10 @@ export interface LeftOut {
 }
 
 export interface CurveBuild {
+  /** The curve every instrument reads today (discounting and projection): `curves.discount`, or null. */
   readonly curve: Curve | null;
+  /** The build's curves by name (CurveSet); one, `discount`, today, none without a curve. */
+  readonly curves: CurveSet;
   readonly errors: readonly CoreError[];
   readonly warnings: readonly CoreWarning[];
   /** Repricing of every quote that is a node, in document order. */
@@ -125,7 +131,7 @@ export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quot
 export function buildCurve(doc: unknown, options: BuildOptions = {}): CurveBuild {
   const validation = validateWorkspace(doc);
   const ws = validation.workspace;
-  const empty = { curve: null, repricing: [], leftOut: [], warnings: [], instruments: [] };
+  const empty = { curve: null, curves: NO_CURVES, repricing: [], leftOut: [], warnings: [], instruments: [] };
   if (!ws) return { ...empty, errors: validation.errors, workspace: null };
   const skip = options.skipInvalid === true;
   if (validation.errors.length > 0 && !skip) return { ...empty, errors: validation.errors, workspace: ws };
@@ -160,17 +166,19 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     leftOut.push({ index: e.quote!, reason: 'invalid', message: e.message });
   }
   const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws, instruments: [] };
-  if (market.errors.length > 0) return { ...base, curve: null, errors: market.errors, warnings, repricing: [] };
+  if (market.errors.length > 0) return { ...base, curve: null, curves: NO_CURVES, errors: market.errors, warnings, repricing: [] };
   if (market.instruments.length === 0) {
     return {
       ...base,
       curve: null,
+      curves: NO_CURVES,
       errors: [coreError('schema', 'quotes', 'no enabled, valid quote to build a curve from; add at least one quote')],
       warnings,
       repricing: [],
     };
   }
-  const outcome = bootstrapInstruments(settings, market.instruments);
+  // Each instrument's pillar is a node of the curve its kind names (today all of `discount`).
+  const outcome = bootstrapCurveSet(settings, market.instruments);
   // Performance: the result spelled out, no spreads; repricing (in pillar order) is sorted into
   // document order only when the two differ.
   const byIndex = (a: Repricing, b: Repricing) => a.index - b.index;
@@ -180,6 +188,7 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     workspace: ws,
     instruments: outcome.curve ? market.instruments : [],
     curve: outcome.curve,
+    curves: outcome.curves,
     errors: outcome.errors,
     warnings: outcome.warnings.length === 0 ? warnings : [...warnings, ...outcome.warnings],
     repricing,
