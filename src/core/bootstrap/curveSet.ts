@@ -71,8 +71,9 @@ export function bootstrapCurveSet(settings: BootstrapSettings, instruments: read
   if (errors.length > 0) return { curve: null, curves: {}, errors, warnings: [], repricing: [], sweeps: 0 };
   const groups = nodeGroups(instruments);
   if (groups.length === 1) {
-    const outcome = bootstrapInstruments(settings, groups[0]!.instruments);
-    return { ...outcome, curves: outcome.curve === null ? {} : { [groups[0]!.curve]: outcome.curve } };
+    const o = bootstrapInstruments(settings, groups[0]!.instruments);
+    const curves = o.curve === null ? {} : { [groups[0]!.curve]: o.curve };
+    return { curve: o.curve, curves, errors: o.errors, warnings: o.warnings, repricing: o.repricing, sweeps: o.sweeps };
   }
   const curves: Record<CurveId, Curve> = {};
   const outcomes = groups.map((g) => {

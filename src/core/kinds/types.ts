@@ -116,7 +116,10 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
     readonly richCheap: boolean;
   };
 
-  /** The bootstrap's first guess of the first node: ln DF = -rate x t with this rate (decimal). */
+  /**
+   * The bootstrap's first guess of the first node: ln DF = -rate x t with this rate (decimal).
+   * The solver's bounds are no kind's: every node is an ln DF within float64's range (solve.ts).
+   */
   readonly solver: {
     firstRate(ins: Instrument): number;
   };
