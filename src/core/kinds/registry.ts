@@ -4,7 +4,7 @@ import { BILL } from './bill.ts';
 import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
 import { SWAP } from './swap.ts';
-import type { QuoteConvention, QuoteKindModule } from './types.ts';
+import type { FixedLegConvention, QuoteConvention, QuoteKindModule } from './types.ts';
 import type { Curve } from '../curve/curve.ts';
 import type { QuoteSchedule } from '../input/quoteSchedule.ts';
 import type { IsoDate } from '../time/date.ts';
@@ -66,3 +66,16 @@ export const quoteConvention = (q: Quote): QuoteConvention => moduleOf(q).conven
 
 /** A quote's cash-flow schedule on a curve (bonds, swaps), or null for a kind with a single flow. */
 export const quoteSchedule = (q: Quote, settlement: IsoDate, curve: Curve | null): QuoteSchedule | null => moduleOf(q).schedule?.(q, settlement, curve) ?? null;
+
+/**
+ * The fixed-leg convention forward par swap rates take in a market: that of its first quote whose
+ * kind sets one (`fixedLeg`: a swap's), else the swap kind's schema defaults (annual, 30/360, no
+ * end-of-month rule: common practice).
+ */
+export function fixedLegConvention(quotes: readonly Quote[]): FixedLegConvention {
+  for (const q of quotes) {
+    const leg = moduleOf(q).fixedLeg?.(q);
+    if (leg) return leg;
+  }
+  return { frequency: SWAP.schema.defaults.frequency ?? 1, dayCount: SWAP.schema.defaults.dayCount ?? '30/360', eom: false };
+}

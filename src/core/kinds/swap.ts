@@ -38,5 +38,6 @@ export const SWAP: QuoteKindModule<SwapQuote> = {
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
   fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
+  fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
   schedule: swapScheduleRows,
 };

@@ -18,6 +18,13 @@ export type QuoteConvention =
   | { readonly unit: 'price'; readonly clean: boolean }
   | { readonly unit: 'rate'; readonly compounding: Compounding | 'bank-discount'; readonly dayCount: DayCount };
 
+/** A fixed leg's convention: payments a year, accrual day count, end-of-month rule. */
+export interface FixedLegConvention {
+  readonly frequency: number;
+  readonly dayCount: DayCount;
+  readonly eom: boolean;
+}
+
 /**
  * A quote's "own yield": the yield a trader moves when bumping that quote. `toYield` maps a
  * market value in the quote's unit to its own yield (decimal per year), `fromYield` back; both are
@@ -123,6 +130,12 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
   readonly solver: {
     firstRate(ins: Instrument): number;
   };
+
+  /**
+   * Optional: the fixed-leg convention a quote of the kind sets for forward par swap rates (the
+   * forward grid's): a swap's own frequency, day count and end-of-month rule.
+   */
+  fixedLeg?(q: Q): FixedLegConvention;
 
   /** Optional: the cash-flow schedule shown for a quote of the kind (bonds, swaps). */
   schedule?(q: Q, settlement: IsoDate, curve: Curve | null): QuoteSchedule;

@@ -12,6 +12,7 @@ import { describe, expect, it } from 'vitest';
 import {
   buildCurve,
   compileQuote,
+  fixedLegConvention,
   headerColumn,
   KIND_MODULE_LIST,
   kindModule,
@@ -206,6 +207,14 @@ describe('the quote-kind registry', () => {
     }
   });
 
+  it('takes forward par rates\' fixed leg from the first kind that sets one, else annual 30/360', () => {
+    const quotes = QUOTE_KINDS.flatMap((k) => EXAMPLES[k].map(validated));
+    expect(fixedLegConvention(quotes)).toEqual({ frequency: 1, dayCount: '30/360', eom: false });
+    const quarterly = validated({ kind: 'swap', tenor: '5Y', rate: 0.03, frequency: 4, dayCount: 'ACT/360' });
+    expect(fixedLegConvention([validated(EXAMPLES.deposit[0]!), quarterly])).toEqual({ frequency: 4, dayCount: 'ACT/360', eom: false });
+    expect(fixedLegConvention([validated(EXAMPLES.deposit[0]!)])).toEqual({ frequency: 1, dayCount: '30/360', eom: false });
+  });
+
   it('builds a curve from every kind at once', () => {
     const all = QUOTE_KINDS.map((k) => EXAMPLES[k][0]!);
     const build = buildCurve(workspaceDoc(all, { settlement: SETTLEMENT }));
@@ -223,12 +232,8 @@ describe('kinds are looked up, not switched on', () => {
   const KIND_SWITCH = new RegExp(`(case|kind\\s*[!=]==)\\s*'(${QUOTE_KINDS.join('|')})'`);
   /** Where naming a kind is the point: the modules, the instruments they compile to, the quote types. */
   const OWNERS = [/^src\/core\/kinds\//, /^src\/core\/instruments\//, /^src\/core\/document\/types\.ts$/];
-  /**
-   * Known, reviewed exceptions: the forward grid borrows the first swap's fixed-leg conventions for
-   * its forward par rates (a choice of display, not knowledge of the kind); a reference curve's
-   * own kind ('discount' or 'zero' columns) is not a quote kind.
-   */
-  const REVIEWED = ['src/features/tables/ForwardGridTable.tsx', 'src/core/scenarios/scenarioReference.ts'];
+  /** Reviewed exception: a reference curve's own kind ('discount' or 'zero' columns) is not a quote kind. */
+  const REVIEWED = ['src/core/scenarios/scenarioReference.ts'];
 
   it('finds no kind switch outside the registry', () => {
     const files = readdirSync(path.join(repo, 'src'), { withFileTypes: true, recursive: true })
