@@ -1,4 +1,4 @@
-import { COMPOUNDING_LABEL, type Compounding } from '../core/index.ts';
+import { COMPOUNDING_LABEL, type Compounding, type QuoteConvention } from '../core/index.ts';
 
 /** The tag every rate carries: compounding and day count, e.g. "cont, ACT/365F". */
 export const rateTag = (c: Compounding, dayCount: string): string => `${COMPOUNDING_LABEL[c]}, ${dayCount}`;
@@ -39,3 +39,11 @@ export function scientific(x: number, digits: number): string {
   const [m, e] = x.toExponential(digits).split('e') as [string, string];
   return `${sign(m)} \u00d7 10^${e.replace('+', '').replace('-', MINUS)}`;
 }
+
+/**
+ * How a quote is quoted (the core's `QuoteConvention`, from its kind's module) as a tag: "per 100",
+ * "clean, per 100", or a rate's compounding and day count ("simple, ACT/360", "discount, ACT/360",
+ * "s.a., ACT/ACT-ICMA"). The one place the sheet's tables write a quote's convention.
+ */
+export const conventionTag = (c: QuoteConvention): string =>
+  c.unit === 'price' ? (c.clean ? 'clean, per 100' : 'per 100') : `${c.compounding === 'bank-discount' ? 'discount' : COMPOUNDING_LABEL[c.compounding]}, ${c.dayCount}`;

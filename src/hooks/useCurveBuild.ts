@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { bootstrapInstruments, buildCurve, type CurveBuild, type Quote } from '../core/index.ts';
+import { bootstrapInstruments, buildCurve, curveSetOf, type CurveBuild, type Quote } from '../core/index.ts';
 import {
   isQuoteUnitMode,
   parseRow,
@@ -89,6 +89,7 @@ export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
     if (outcome.curve) {
       const build: CurveBuild = {
         curve: outcome.curve,
+        curves: curveSetOf(outcome.curve),
         errors: outcome.errors,
         warnings: [...prev.warnings.filter((w) => w.code !== 'negative-forward'), ...outcome.warnings],
         repricing: [...outcome.repricing].sort((a, b) => a.index - b.index),

@@ -1,79 +1,29 @@
-import { billDiscountYieldFromPrice, billPriceFromDiscountYield } from '../instruments/bill.ts';
-import { bondDirtyFromYield, bondSchedule, bondYieldFromDirty } from '../instruments/bond.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { COMPOUNDING_LABEL, lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts';
-import { yearFraction } from '../time/dayCount.ts';
-import { daysBetween, type IsoDate } from '../time/date.ts';
+import { moduleOf } from '../kinds/registry.ts';
+import type { QuoteYield } from '../kinds/types.ts';
+import type { IsoDate } from '../time/date.ts';
+
+export type { QuoteYield } from '../kinds/types.ts';
 
 /**
  * A quote's "own yield": the yield a trader moves when bumping that quote.
  *   rate quotes (deposit rate, swap rate, bill discount yield, zero rate, bond yield): the quote itself;
- *   bond by clean price: its ICMA yield at the coupon frequency (bondYieldFromDirty of clean + accrued);
- *   bill by price: its bank discount yield, actual days / 360 (US Treasury formula);
- *   zero by price: its zero rate in the quote's compounding and day count (defaults annual, ACT/365F).
- * All yields are decimals per year. `toYield` maps a market value in the quote's unit to its own
- * yield, `fromYield` back; both are exact inverses (to rounding). `label` names the yield with its
- * compounding and day count.
+ *   price quotes: the kind's own yield of the price (`QuoteKindModule.priceYield`, src/core/kinds):
+ *   a bond's ICMA yield at its coupon frequency, a bill's bank discount yield (actual days / 360,
+ *   US Treasury), a zero's rate in its compounding and day count.
+ * All yields are decimals per year; `toYield` and `fromYield` are exact inverses (to rounding).
  */
-export interface QuoteYield {
-  toYield(value: number): number;
-  fromYield(y: number): number;
-  readonly label: string;
-}
-
 const IDENTITY = (label: string): QuoteYield => ({ toYield: (v) => v, fromYield: (y) => y, label });
-
-const PER_YEAR: Readonly<Record<number, string>> = { 1: 'ann', 2: 's.a.', 4: 'qtr', 12: 'mthly' };
 
 /** The name and convention of a quote's own yield, e.g. "swap rate (ann, 30/360)". */
 export function quoteYieldLabel(ins: Instrument): string {
-  const q = ins.quote;
-  switch (q.kind) {
-    case 'deposit':
-      return `deposit rate (simple, ${q.dayCount})`;
-    case 'bill':
-      return 'discount yield (ACT/360)';
-    case 'zero':
-      return `zero rate (${COMPOUNDING_LABEL[q.compounding]}, ${q.dayCount})`;
-    case 'bond':
-      return `ICMA yield (${PER_YEAR[q.frequency] ?? `${q.frequency}/yr`}, ${q.dayCount})`;
-    case 'swap':
-      return `swap rate (${PER_YEAR[q.frequency] ?? `${q.frequency}/yr`}, ${q.dayCount})`;
-  }
+  return moduleOf(ins.quote).yieldLabel(ins.quote);
 }
 
 export function quoteYieldOf(ins: Instrument, settlement: IsoDate): QuoteYield {
-  const q = ins.quote;
   const label = quoteYieldLabel(ins);
   if (ins.unit === 'rate') return IDENTITY(label);
-  switch (q.kind) {
-    case 'bond': {
-      const s = bondSchedule(q, settlement);
-      return {
-        toYield: (clean) => bondYieldFromDirty(s, clean + s.accrued) ?? Number.NaN,
-        fromYield: (y) => bondDirtyFromYield(s, y).price - s.accrued,
-        label,
-      };
-    }
-    case 'bill': {
-      const days = daysBetween(settlement, q.maturity);
-      return {
-        toYield: (p) => billDiscountYieldFromPrice(p, days),
-        fromYield: (d) => billPriceFromDiscountYield(d, days),
-        label,
-      };
-    }
-    case 'zero': {
-      const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-      return {
-        toYield: (p) => rateFromLnDiscount(Math.log(p / 100), q.compounding, tau),
-        fromYield: (r) => 100 * Math.exp(lnDiscountFromRate(r, q.compounding, tau)),
-        label,
-      };
-    }
-    default:
-      return IDENTITY(label);
-  }
+  return moduleOf(ins.quote).priceYield(ins.quote, settlement, label) ?? IDENTITY(label);
 }
 
 /** The instrument with its quote moved by `dy` (decimal) through its own yield. */

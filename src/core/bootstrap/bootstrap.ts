@@ -2,6 +2,7 @@ import { curveFromNodes, type Curve, type Extrapolation, type Pillar } from '../
 import { INTERPOLATORS } from '../interpolation/registry.ts';
 import { segmentNear, zeros, type InterpolationId, type InterpolatorSpec } from '../interpolation/types.ts';
 import { presentValue, type Instrument, type QuoteUnit } from '../instruments/instrument.ts';
+import { kindModule } from '../kinds/registry.ts';
 import { MAX_SWEEPS, NODE_TOLERANCE, PRICE_ACCEPTANCE, RATE_ACCEPTANCE } from '../numeric/tolerance.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import type { IsoDate } from '../time/date.ts';
@@ -542,12 +543,14 @@ function solveFailure(ins: Instrument, reason: 'non-positive-discount' | 'no-sol
   );
 }
 
-/** Starting value of node k: the previous segment's discrete forward carried on (3% at first). */
+/**
+ * Starting value of node k: the previous segment's discrete forward carried on; at the first node
+ * the first instrument's kind gives the rate (QuoteKindModule.solver, src/core/kinds).
+ */
 function guess(instruments: readonly Instrument[], ts: readonly number[], ys: readonly number[], k: number): number {
   if (k === 1) {
     const ins = instruments[0]!;
-    const rate = ins.unit === 'rate' ? ins.market : 0.03;
-    return -rate * ins.t;
+    return -kindModule(ins.kind).solver.firstRate(ins) * ins.t;
   }
   const fwd = k >= 2 && ts[k - 1]! > ts[k - 2]! ? -(ys[k - 1]! - ys[k - 2]!) / (ts[k - 1]! - ts[k - 2]!) : 0.03;
   return ys[k - 1]! - fwd * (ts[k]! - ts[k - 1]!);

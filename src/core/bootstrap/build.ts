@@ -1,17 +1,16 @@
 import type { Curve, Extrapolation } from '../curve/curve.ts';
-import { compileBill } from '../instruments/bill.ts';
-import { compileBond } from '../instruments/bond.ts';
-import { compileDeposit } from '../instruments/deposit.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { compileSwap, SwapLegs } from '../instruments/swap.ts';
-import { compileZero } from '../instruments/zero.ts';
+import { KIND_MODULE_LIST, moduleOf } from '../kinds/registry.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
-import type { Quote, SwapQuote, Workspace } from '../document/types.ts';
+import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
 import { validateWorkspace } from '../document/validate.ts';
-import { bootstrapInstruments, type Repricing } from './bootstrap.ts';
+import type { Repricing } from './bootstrap.ts';
+import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
+
+const NO_CURVES: CurveSet = {};
 
 /** Why a quote of the document is not a node of the curve. */
 export interface LeftOut {
@@ -21,7 +20,10 @@ export interface LeftOut {
 }
 
 export interface CurveBuild {
+  /** The curve every instrument reads today (discounting and projection): `curves.discount`, or null. */
   readonly curve: Curve | null;
+  /** The build's curves by name (CurveSet); one, `discount`, today, none without a curve. */
+  readonly curves: CurveSet;
   readonly errors: readonly CoreError[];
   readonly warnings: readonly CoreWarning[];
   /** Repricing of every quote that is a node, in document order. */
@@ -54,22 +56,11 @@ export function compileQuote(q: Quote, settlement: IsoDate, dayCount: CurveDayCo
 
 /**
  * compileQuote with the settlement date parsed and the curve clock made once per market
- * (performance); `m` is the quote's maturity parsed, `legs` the market's shared swap legs.
+ * (performance); `m` is the quote's maturity parsed, `shared` what the kind's module made for the
+ * market (`QuoteKindModule.share`: a swap ladder's fixed legs).
  */
-function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate, m = civilFromIso(q.maturity), legs?: SwapLegs): Instrument {
-  const t = time(m);
-  switch (q.kind) {
-    case 'deposit':
-      return compileDeposit(q, settlement, t);
-    case 'bill':
-      return compileBill(q, settlement, t);
-    case 'zero':
-      return compileZero(q, settlement, t);
-    case 'bond':
-      return compileBond(q, s, m, t, time);
-    case 'swap':
-      return compileSwap(q, s, m, t, time, legs);
-  }
+function compileQuoteCivil(q: Quote, settlement: IsoDate, time: (d: CivilDate) => number, s: CivilDate, m = civilFromIso(q.maturity), shared?: unknown): Instrument {
+  return moduleOf(q).compile(q, settlement, s, m, time(m), time, shared);
 }
 
 /**
@@ -86,19 +77,26 @@ export interface CompiledMarket {
   readonly duplicates: readonly CoreError[];
 }
 
+/** What each kind with a `share` step makes once for the market, from its enabled quotes. */
+function shareWork(enabled: readonly Quote[], maturities: readonly CivilDate[], s: CivilDate, time: (d: CivilDate) => number): Partial<Record<QuoteKind, unknown>> {
+  const shared: Partial<Record<QuoteKind, unknown>> = {};
+  for (const m of KIND_MODULE_LIST) {
+    if (!m.share) continue;
+    const mine: [Quote, CivilDate][] = [];
+    for (let i = 0; i < enabled.length; i++) if (enabled[i]!.kind === m.kind) mine.push([enabled[i]!, maturities[i]!]);
+    shared[m.kind] = m.share(s, time, mine);
+  }
+  return shared;
+}
+
 export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quotes: readonly Quote[], skipDuplicates: boolean): CompiledMarket {
   const s = civilFromIso(settlement); // the workspace is validated
   const time = curveClock(dayCount, s);
   const enabled = quotes.filter((q) => q.enabled);
   const maturities = enabled.map((q) => civilFromIso(q.maturity));
-  const swaps: [SwapQuote, CivilDate][] = [];
-  for (let i = 0; i < enabled.length; i++) {
-    const q = enabled[i]!;
-    if (q.kind === 'swap') swaps.push([q, maturities[i]!]);
-  }
-  const legs = new SwapLegs(s, time, swaps);
+  const shared = shareWork(enabled, maturities, s, time);
   const compiled: Instrument[] = [];
-  for (let i = 0; i < enabled.length; i++) compiled.push(compileQuoteCivil(enabled[i]!, settlement, time, s, maturities[i]!, legs));
+  for (let i = 0; i < enabled.length; i++) compiled.push(compileQuoteCivil(enabled[i]!, settlement, time, s, maturities[i]!, shared[enabled[i]!.kind]));
   // Documents usually list their quotes by maturity: sort only when they are not in order.
   const byTime = (a: Instrument, b: Instrument) => a.t - b.t || a.index - b.index;
   if (!compiled.every((ins, i) => i === 0 || byTime(compiled[i - 1]!, ins) < 0)) compiled.sort(byTime);
@@ -133,7 +131,7 @@ export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quot
 export function buildCurve(doc: unknown, options: BuildOptions = {}): CurveBuild {
   const validation = validateWorkspace(doc);
   const ws = validation.workspace;
-  const empty = { curve: null, repricing: [], leftOut: [], warnings: [], instruments: [] };
+  const empty = { curve: null, curves: NO_CURVES, repricing: [], leftOut: [], warnings: [], instruments: [] };
   if (!ws) return { ...empty, errors: validation.errors, workspace: null };
   const skip = options.skipInvalid === true;
   if (validation.errors.length > 0 && !skip) return { ...empty, errors: validation.errors, workspace: ws };
@@ -168,17 +166,19 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     leftOut.push({ index: e.quote!, reason: 'invalid', message: e.message });
   }
   const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws, instruments: [] };
-  if (market.errors.length > 0) return { ...base, curve: null, errors: market.errors, warnings, repricing: [] };
+  if (market.errors.length > 0) return { ...base, curve: null, curves: NO_CURVES, errors: market.errors, warnings, repricing: [] };
   if (market.instruments.length === 0) {
     return {
       ...base,
       curve: null,
+      curves: NO_CURVES,
       errors: [coreError('schema', 'quotes', 'no enabled, valid quote to build a curve from; add at least one quote')],
       warnings,
       repricing: [],
     };
   }
-  const outcome = bootstrapInstruments(settings, market.instruments);
+  // Each instrument's pillar is a node of the curve its kind names (today all of `discount`).
+  const outcome = bootstrapCurveSet(settings, market.instruments);
   // Performance: the result spelled out, no spreads; repricing (in pillar order) is sorted into
   // document order only when the two differ.
   const byIndex = (a: Repricing, b: Repricing) => a.index - b.index;
@@ -188,6 +188,7 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     workspace: ws,
     instruments: outcome.curve ? market.instruments : [],
     curve: outcome.curve,
+    curves: outcome.curves,
     errors: outcome.errors,
     warnings: outcome.warnings.length === 0 ? warnings : [...warnings, ...outcome.warnings],
     repricing,

@@ -1,6 +1,7 @@
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
 import { validateWorkspace, RESERVED_KEYS } from './validate.ts';
 import type { Quote } from './types.ts';
+import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS } from '../kinds/registry.ts';
 import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from '../input/quoteRow.ts';
 import { DEFAULT_DISPLAY, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
 
@@ -18,8 +19,8 @@ const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object
 const COLUMN_FIELDS: Readonly<Record<(typeof QUOTE_COLUMNS)[number], readonly string[]>> = {
   kind: ['kind'],
   maturity: ['tenor', 'maturity'],
-  rate: ['rate', 'discountYield', 'yield'],
-  price: ['price', 'cleanPrice'],
+  rate: KIND_RATE_FIELDS,
+  price: KIND_PRICE_FIELDS,
   coupon: ['coupon'],
   frequency: ['frequency'],
   dayCount: ['dayCount'],

@@ -1,8 +1,8 @@
 import { quoteYieldOf, type QuoteYield } from '../analytics/quoteYield.ts';
 import { compileQuote } from '../bootstrap/build.ts';
 import type { Curve, Pillar } from '../curve/curve.ts';
-import { bondDirtyFromYield, bondSchedule } from '../instruments/bond.ts';
 import { presentValue, type Instrument } from '../instruments/instrument.ts';
+import { kindModule, moduleOf } from '../kinds/registry.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { curveTime } from '../time/dayCount.ts';
 import type { Workspace } from '../document/types.ts';
@@ -109,26 +109,6 @@ interface Observation {
   readonly per100: number;
 }
 
-/** Flat continuously compounded yield of flows at a price, and its dollar duration sum a t e^(-c t). */
-function flatDollarDuration(ins: Instrument): number {
-  let c = 0;
-  for (let iter = 0; iter < 100; iter++) {
-    let p = 0;
-    let dp = 0;
-    for (let j = 0; j < ins.times.length; j++) {
-      const v = ins.amounts[j]! * Math.exp(-c * ins.times[j]!);
-      p += v;
-      dp += ins.times[j]! * v;
-    }
-    const step = (p - ins.target) / dp;
-    c += step;
-    if (Math.abs(step) < 1e-15) break;
-  }
-  let dd = 0;
-  for (let j = 0; j < ins.times.length; j++) dd += ins.times[j]! * ins.amounts[j]! * Math.exp(-c * ins.times[j]!);
-  return dd;
-}
-
 function observe(ws: Workspace, options: FitOptions): Observation[] {
   const exclude = new Set(options.exclude ?? []);
   return ws.quotes
@@ -139,8 +119,10 @@ function observe(ws: Workspace, options: FitOptions): Observation[] {
       const w = options.weights?.[q.index] ?? 1;
       const weight = Number.isFinite(w) && w > 0 ? w : 0;
       const marketYield = qy.toYield(ins.market);
-      const dollarDuration = q.kind === 'bond' ? -bondDirtyFromYield(bondSchedule(q, ws.settlement), marketYield).dPdy : flatDollarDuration(ins);
-      const per100 = q.kind === 'deposit' || q.kind === 'swap' ? 100 : 1;
+      // The kind's fit weighting (src/core/kinds): its dollar duration and its target's scale.
+      const { fit } = moduleOf(q);
+      const dollarDuration = fit.dollarDuration(ins, q, ws.settlement, marketYield);
+      const per100 = fit.per100;
       return { ins, qy, weight, included: weight > 0 && !exclude.has(q.index) && ins.t > 0, marketYield, dollarDuration, per100 };
     })
     .sort((a, b) => a.ins.t - b.ins.t || a.ins.index - b.ins.index);
@@ -301,14 +283,14 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
     : `${label} fit did not converge (${best.reason} after ${best.iterations} iterations); weighted RMS error ${rmsBp.toFixed(2)} bp, largest residual quotes[${worst.index}] ${worst.residualBp.toFixed(2)} bp; ` +
       `try ${model === 'svensson' ? 'Nelson-Siegel, ' : ''}excluding quotes[${worst.index}] or lowering its weight, or check that quote`;
   const richCheap: RichCheapEntry[] = residuals
-    .filter((r) => r.kind === 'bond')
+    .filter((r) => kindModule(r.kind).fit.richCheap)
     .map((r) => {
       const q = obs.find((o) => o.ins.index === r.index)!.ins.quote;
       const richnessPrice = -r.residualPrice;
       return {
         index: r.index,
         maturity: r.maturity,
-        coupon: q.kind === 'bond' ? q.coupon : 0,
+        coupon: 'coupon' in q ? q.coupon : 0,
         included: r.included,
         residualBp: r.residualBp,
         richnessPrice,

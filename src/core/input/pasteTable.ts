@@ -1,6 +1,7 @@
 import { dsvFormat } from 'd3-dsv';
 import { LIMITS } from '../document/limits.ts';
 import { CELL_MAX } from '../document/workbenchShape.ts';
+import { KIND_HEADER_WORDS } from '../kinds/registry.ts';
 import { QUOTE_COLUMNS, parseRow, type QuoteColumn, type RowText } from './quoteRow.ts';
 import type { QuoteUnitMode } from './quoteText.ts';
 import { DEFAULT_CONVENTIONS, type InputConventions } from './conventions.ts';
@@ -47,17 +48,19 @@ export function splitTable(text: string): { cells: string[][]; separator: PasteD
 
 /**
  * Header words (case-, space- and punctuation-insensitive) and the sheet column each maps to:
- * the sheet's own names and the short forms common on trading sheets (px, cpn, mat, yld, freq).
+ * the sheet's own names and the short forms common on trading sheets (px, mat, yld, freq), then
+ * the words each quote kind adds for its own fields (`paste.headerWords`: swap rate, clean price, cpn, ...).
  */
-const HEADER_WORDS: Readonly<Record<string, QuoteColumn>> = {
+const GENERAL_HEADER_WORDS: Readonly<Record<string, QuoteColumn>> = {
   type: 'kind', kind: 'kind', instrument: 'kind', instrumenttype: 'kind', instr: 'kind', product: 'kind', security: 'kind', securitytype: 'kind', quotetype: 'kind',
   maturity: 'maturity', tenor: 'maturity', term: 'maturity', maturitydate: 'maturity', date: 'maturity', mat: 'maturity', matdate: 'maturity', expiry: 'maturity', enddate: 'maturity',
-  rate: 'rate', yield: 'rate', rateyield: 'rate', discountyield: 'rate', swaprate: 'rate', ytm: 'rate', yld: 'rate', midyield: 'rate', midrate: 'rate', midyld: 'rate',
-  coupon: 'coupon', cpn: 'coupon', couponrate: 'coupon',
-  price: 'price', cleanprice: 'price', px: 'price', midprice: 'price', midpx: 'price', pxmid: 'price', cleanpx: 'price',
-  frequency: 'frequency', freq: 'frequency', payfreq: 'frequency', paymentfrequency: 'frequency', couponfrequency: 'frequency', cpnfreq: 'frequency',
+  rate: 'rate', yield: 'rate', rateyield: 'rate', ytm: 'rate', yld: 'rate', midyield: 'rate', midrate: 'rate', midyld: 'rate',
+  coupon: 'coupon',
+  price: 'price', px: 'price', midprice: 'price', midpx: 'price', pxmid: 'price',
+  frequency: 'frequency', freq: 'frequency', payfreq: 'frequency', paymentfrequency: 'frequency',
   daycount: 'dayCount', basis: 'dayCount', daycountbasis: 'dayCount', dcc: 'dayCount', accrualbasis: 'dayCount', daycountconvention: 'dayCount',
 };
+const HEADER_WORDS: Readonly<Record<string, QuoteColumn>> = { ...GENERAL_HEADER_WORDS, ...KIND_HEADER_WORDS };
 
 /**
  * Header words that name a quote without saying whether it is a rate or a price (mid, quote,

@@ -1,4 +1,4 @@
-import type { QuoteKind } from '../document/types.ts';
+import { kindModule } from '../kinds/registry.ts';
 import {
   parseCouponText,
   parseDayCountText,
@@ -63,11 +63,6 @@ export interface RowParse {
 
 export const isBlankRow = (row: RowText): boolean => QUOTE_COLUMNS.every((c) => row[c].trim() === '');
 
-/** Which fields each kind takes from the sheet's columns, and what the rate and price columns mean. */
-const RATE_FIELD: Readonly<Record<QuoteKind, string>> = { deposit: 'rate', bill: 'discountYield', zero: 'rate', bond: 'yield', swap: 'rate' };
-const PRICE_FIELD: Readonly<Record<QuoteKind, string | null>> = { deposit: null, bill: 'price', zero: 'price', bond: 'cleanPrice', swap: null };
-const RATE_WHAT: Readonly<Record<QuoteKind, string>> = { deposit: 'deposit rate', bill: 'discount yield', zero: 'zero rate', bond: 'yield', swap: 'swap rate' };
-
 /**
  * Parses one sheet row into the engine's quote object, exactly (decimal.js), with a message on
  * each wrong cell saying what would be valid. The row's `enabled` flag is carried over. Dates
@@ -99,43 +94,45 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode, conventions: InputC
   if (maturity) Object.assign(quote, maturity);
   if (!row.enabled) quote.enabled = false;
 
+  // Which fields the kind takes from the sheet's columns, and what the rate and price columns mean (src/core/kinds).
+  const sheet = kindModule(kind).sheet;
   const hasRate = row.rate.trim() !== '';
   const hasPrice = row.price.trim() !== '';
-  const priceField = PRICE_FIELD[kind];
+  const priceField = sheet.priceField;
   const refuse = (c: QuoteColumn, what: string): void => error(c, `a ${kind} takes no ${what}; clear this cell`);
 
   if (priceField === null) {
     if (hasPrice) refuse('price', 'price');
-    const rate = take('rate', parseRateText(num(row.rate), mode, RATE_WHAT[kind]));
-    if (rate !== null) quote[RATE_FIELD[kind]] = rate;
+    const rate = take('rate', parseRateText(num(row.rate), mode, sheet.rateWhat));
+    if (rate !== null) quote[sheet.rateField] = rate;
   } else if (hasRate && hasPrice) {
-    const both = `give either the ${RATE_WHAT[kind]} or the price, not both; clear one of the two cells`;
+    const both = `give either the ${sheet.rateWhat} or the price, not both; clear one of the two cells`;
     error('rate', both);
     error('price', both);
   } else if (hasPrice) {
     const price = take('price', parsePriceText(num(row.price)));
     if (price !== null) quote[priceField] = price;
   } else if (hasRate) {
-    const rate = take('rate', parseRateText(num(row.rate), mode, RATE_WHAT[kind]));
-    if (rate !== null) quote[RATE_FIELD[kind]] = rate;
+    const rate = take('rate', parseRateText(num(row.rate), mode, sheet.rateWhat));
+    if (rate !== null) quote[sheet.rateField] = rate;
   } else {
-    error(kind === 'bond' ? 'price' : 'rate', `a ${kind} needs a ${RATE_WHAT[kind]} (Rate / yield) or a price per 100 (Price)`);
+    error(sheet.missingValue, `a ${kind} needs a ${sheet.rateWhat} (Rate / yield) or a price per 100 (Price)`);
   }
 
-  if (kind === 'bond') {
+  if (sheet.coupon) {
     const coupon = take('coupon', parseCouponText(num(row.coupon), mode));
     if (coupon !== null) quote.coupon = coupon;
   } else if (row.coupon.trim() !== '') refuse('coupon', 'coupon');
 
   if (row.frequency.trim() !== '') {
-    if (kind === 'bond' || kind === 'swap') {
+    if (sheet.frequency) {
       const f = take('frequency', parseFrequencyText(row.frequency));
       if (f !== null) quote.frequency = f;
     } else refuse('frequency', 'payment frequency');
   }
   if (row.dayCount.trim() !== '') {
-    if (kind === 'bill') refuse('dayCount', 'day count (a bill is quoted on ACT/360 by definition)');
-    else if (kind === 'zero' && !hasRate) refuse('dayCount', 'day count when quoted by price');
+    if (typeof sheet.dayCount === 'object') refuse('dayCount', sheet.dayCount.refuse);
+    else if (sheet.dayCount === 'with-rate' && !hasRate) refuse('dayCount', 'day count when quoted by price');
     else {
       const dc = take('dayCount', parseDayCountText(row.dayCount));
       if (dc !== null) quote.dayCount = dc;

@@ -1,4 +1,5 @@
-import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../document/validate.ts';
+import { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../kinds/fields.ts';
+import { KIND_WORDS } from '../kinds/registry.ts';
 import { QUOTE_KINDS, type QuoteKind } from '../document/types.ts';
 import { DAY_COUNTS, type DayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
@@ -172,14 +173,12 @@ export function parseMaturityText(text: string, dateOrder: DateOrder = 'mdy'): C
   return bad(`"${s}" is not a maturity; ${valid}`);
 }
 
-const KIND_ALIASES: Readonly<Record<string, QuoteKind>> = { depo: 'deposit', deposits: 'deposit', bills: 'bill', zeros: 'zero', bonds: 'bond', swaps: 'swap', irs: 'swap', strip: 'zero' };
-
-/** A quote kind, case-insensitive (`Deposit`, `BOND`); a few plain plurals and short forms too. */
+/** A quote kind, case-insensitive (`Deposit`, `BOND`); its module's plain plurals and short forms too (`paste.kindWords`). */
 export function parseKindText(text: string): CellParse<QuoteKind> {
   const s = text.trim().toLowerCase();
   if (s === '') return bad(`kind is required; type one of ${QUOTE_KINDS.join(', ')}`);
   if ((QUOTE_KINDS as readonly string[]).includes(s)) return good(s as QuoteKind);
-  const alias = KIND_ALIASES[s];
+  const alias = Object.hasOwn(KIND_WORDS, s) ? KIND_WORDS[s] : undefined;
   if (alias) return good(alias);
   return bad(`"${text.trim()}" is not a quote kind; type one of ${QUOTE_KINDS.join(', ')}`);
 }

@@ -2,7 +2,7 @@ import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { isoFromCivil, civilFromIso, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { BondQuote } from '../document/types.ts';
-import { quoteOnCurve, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
 
 /**
  * A fixed-coupon bond's cash flows after settlement, per 100 face.
@@ -123,22 +123,11 @@ export function compileBond(q: BondQuote, settlement: CivilDate, maturity: Civil
   return new BondInstrument(q, t, times, amounts, yieldSchedule, accrued, q.yield !== null ? q.yield : q.cleanPrice!);
 }
 
-/**
- * A compiled bond. Performance: a class, so that a requote creates one object and no closures
- * (the command-line runner's transform adds a name-setting call to every closure).
- */
-class BondInstrument implements Instrument {
-  declare readonly quote: BondQuote;
-  declare readonly index: number;
-  declare readonly kind: 'bond';
-  declare readonly maturity: IsoDate;
-  declare readonly t: number;
+/** A compiled bond: coupons and 100 at their dates against the dirty price, discounted on the one curve. */
+class BondInstrument extends CompiledInstrument<BondQuote> {
   declare readonly unit: 'rate' | 'price';
   declare readonly field: 'yield' | 'cleanPrice';
-  declare readonly market: number;
-  declare readonly times: readonly number[];
   declare readonly amounts: number[];
-  declare readonly target: number;
   declare readonly closedFormLn: null;
   /** The schedule's yield terms and the accrued interest per 100 face at settlement. */
   declare readonly schedule: YieldSchedule;
@@ -146,24 +135,9 @@ class BondInstrument implements Instrument {
 
   constructor(q: BondQuote, t: number, times: readonly number[], amounts: number[], schedule: YieldSchedule, accrued: number, value: number) {
     const byYield = q.yield !== null;
-    this.quote = q;
-    this.index = q.index;
-    this.kind = 'bond';
-    this.maturity = q.maturity;
-    this.t = t;
-    this.unit = byYield ? 'rate' : 'price';
-    this.field = byYield ? 'yield' : 'cleanPrice';
-    this.market = value;
-    this.times = times;
-    this.amounts = amounts;
-    this.target = byYield ? bondDirtyFromYield(schedule, value).price : value + accrued;
-    this.closedFormLn = null;
+    super(q, t, times, byYield ? 'rate' : 'price', byYield ? 'yield' : 'cleanPrice', value, amounts, byYield ? bondDirtyFromYield(schedule, value).price : value + accrued, null, DISCOUNTING);
     this.schedule = schedule;
     this.accrued = accrued;
-  }
-
-  modelQuote(lnDiscountAt: (t: number) => number): number {
-    return quoteOnCurve(this, lnDiscountAt);
   }
 
   /** The clean price (dirty sum CF DF minus accrued, per 100 face), or the ICMA yield of the dirty price. */

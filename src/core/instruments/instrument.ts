@@ -5,6 +5,25 @@ import type { Quote, QuoteKind } from '../document/types.ts';
 export type QuoteUnit = 'price' | 'rate';
 
 /**
+ * The roles a curve plays for an instrument: `discount` (present values of its flows) and
+ * `projection` (forward rates of a floating index the instrument references).
+ */
+export type CurveRole = 'discount' | 'projection';
+/** A curve's name in a build's set of curves (`CurveSet`). */
+export type CurveId = string;
+/** The curve an instrument reads in each role; a role it does not play is absent. */
+export interface CurveRoles {
+  readonly discount: CurveId;
+  readonly projection?: CurveId;
+}
+/** The one curve a build solves today; it plays every role. */
+export const DISCOUNT_CURVE: CurveId = 'discount';
+/** Fixed flows discounted on the one curve (deposit, bill, zero, bond). */
+export const DISCOUNTING: CurveRoles = { discount: DISCOUNT_CURVE };
+/** A single-curve swap: the one curve discounts and projects the floating leg (see instruments/swap.ts). */
+export const DISCOUNTING_AND_PROJECTING: CurveRoles = { discount: DISCOUNT_CURVE, projection: DISCOUNT_CURVE };
+
+/**
  * A quote compiled against a settlement date and curve axis: fixed cash flows whose present value
  * on the curve must equal a target. Every kind fits this form:
  *   deposit  (1 + r tau) at T, target 1            bill, zero  100 at T, target the price
@@ -38,6 +57,8 @@ export interface Instrument {
    */
   readonly amounts: ArrayLike<number>;
   readonly target: number;
+  /** The curves the instrument reads, by role (its kind's `curves`, src/core/kinds). */
+  readonly curves: CurveRoles;
   /**
    * For a single flow at the pillar (deposit, bill, zero): ln DF at the pillar in closed form,
    * computed without the rounding of forming DF first (log1p), so short tenors keep full precision
@@ -79,4 +100,65 @@ export function presentValue(instrument: Instrument, lnDiscountAt: (t: number) =
   const { times, amounts } = instrument;
   for (let j = 0; j < times.length; j++) pv += amounts[j]! * Math.exp(lnDiscountAt(times[j]!));
   return pv;
+}
+
+/**
+ * What every compiled instrument class shares: the fields of `Instrument`, set by one
+ * constructor, and `modelQuote` through `quoteOnCurve`. Each kind adds its own figures (year
+ * fractions, schedule, accrued interest), its quote formula and its requote.
+ * Performance: classes, so that a requote creates one object and no closures (the command-line
+ * runner's transform adds a name-setting call to every closure).
+ */
+export abstract class CompiledInstrument<Q extends Quote> implements Instrument {
+  declare readonly quote: Q;
+  declare readonly index: number;
+  declare readonly kind: Q['kind'];
+  declare readonly maturity: IsoDate;
+  declare readonly t: number;
+  declare readonly unit: QuoteUnit;
+  declare readonly field: string;
+  declare readonly market: number;
+  declare readonly times: readonly number[];
+  declare readonly amounts: readonly number[];
+  declare readonly target: number;
+  declare readonly closedFormLn: number | null;
+  declare readonly curves: CurveRoles;
+
+  /**
+   * @param times - flow times on the curve's axis, ascending, the last at `t` (kept by requotes)
+   * @param amounts - the flows, in the unit of `target` (per 1 of notional or per 100 face)
+   */
+  protected constructor(
+    q: Q,
+    t: number,
+    times: readonly number[],
+    unit: QuoteUnit,
+    field: string,
+    market: number,
+    amounts: readonly number[],
+    target: number,
+    closedFormLn: number | null,
+    curves: CurveRoles,
+  ) {
+    this.quote = q;
+    this.index = q.index;
+    this.kind = q.kind;
+    this.maturity = q.maturity;
+    this.t = t;
+    this.unit = unit;
+    this.field = field;
+    this.market = market;
+    this.times = times;
+    this.amounts = amounts;
+    this.target = target;
+    this.closedFormLn = closedFormLn;
+    this.curves = curves;
+  }
+
+  modelQuote(lnDiscountAt: (t: number) => number): number {
+    return quoteOnCurve(this, lnDiscountAt);
+  }
+
+  abstract quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
+  abstract requote(value: number): Instrument;
 }

@@ -2,7 +2,7 @@ import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { compareCivil, isoFromCivil, civilFromIso, isMonthEnd, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { SwapQuote } from '../document/types.ts';
-import { quoteOnCurve, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
 
 /** One accrual period of a fixed leg. */
 export interface FixedPeriod {
@@ -142,21 +142,14 @@ export function compileSwap(q: SwapQuote, settlement: CivilDate, maturity: Civil
 }
 
 /**
- * A compiled swap. Performance: a class, so that a requote creates one object and one array, with
- * no closures (the command-line runner's transform adds a name-setting call to every closure).
+ * A compiled swap: S tau_i at each fixed date and 1 at the end against 1. The one curve discounts
+ * and projects (the floating leg is worth 1 - DF(T_n) on it). Performance: a requote creates one
+ * object and one array.
  */
-class SwapInstrument implements Instrument {
-  declare readonly quote: SwapQuote;
-  declare readonly index: number;
-  declare readonly kind: 'swap';
-  declare readonly maturity: IsoDate;
-  declare readonly t: number;
+class SwapInstrument extends CompiledInstrument<SwapQuote> {
   declare readonly unit: 'rate';
   declare readonly field: 'rate';
-  declare readonly market: number;
-  declare readonly times: readonly number[];
   declare readonly amounts: number[];
-  declare readonly target: number;
   declare readonly closedFormLn: null;
   /** Accrual year fractions tau_i of the fixed periods. */
   declare readonly taus: readonly number[];
@@ -166,23 +159,8 @@ class SwapInstrument implements Instrument {
     const amounts = new Array<number>(n);
     for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
     amounts[n - 1] = amounts[n - 1]! + 1;
-    this.quote = q;
-    this.index = q.index;
-    this.kind = 'swap';
-    this.maturity = q.maturity;
-    this.t = t;
-    this.unit = 'rate';
-    this.field = 'rate';
-    this.market = rate;
-    this.times = times;
-    this.amounts = amounts;
-    this.target = 1;
-    this.closedFormLn = null;
+    super(q, t, times, 'rate', 'rate', rate, amounts, 1, null, DISCOUNTING_AND_PROJECTING);
     this.taus = taus;
-  }
-
-  modelQuote(lnDiscountAt: (t: number) => number): number {
-    return quoteOnCurve(this, lnDiscountAt);
   }
 
   /** The par rate (1 - DF(T_n)) / sum tau_i DF(T_i), with 1 - DF(T_n) as -expm1(ln DF(T_n)). */

@@ -18,6 +18,7 @@ import {
   type QuoteRow,
   type QuoteUnitMode,
   type RowIssues,
+  sheetDefault,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
@@ -40,14 +41,8 @@ const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
   dayCount: '',
 };
 
-/** The engine's default for an empty frequency or day-count cell of a kind (src/core/workspace/types.ts), shown faintly. */
-const DEFAULTS: Readonly<Record<string, Partial<Record<QuoteColumn, string>>>> = {
-  deposit: { dayCount: 'ACT/360' },
-  zero: { dayCount: 'ACT/365F' },
-  bond: { frequency: '2', dayCount: 'ACT/ACT-ICMA' },
-  swap: { frequency: '1', dayCount: '30/360' },
-};
-const defaultFor = (kind: string, c: QuoteColumn): string | undefined => DEFAULTS[kind.trim().toLowerCase()]?.[c];
+/** The engine's default for an empty frequency or day-count cell of a kind (its module's schema defaults), shown faintly. */
+const defaultFor = (kind: string, c: QuoteColumn): string | undefined => sheetDefault(kind, c);
 
 /** A row's messages, one per cell with an issue, in column order (shown on a line under the row). */
 const rowMessages = (issues: RowIssues) => QUOTE_COLUMNS.flatMap((c) => (issues[c] ? [{ c, ...issues[c] }] : []));

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { setViewValues, viewText } from '../../state/viewValues.ts';
-import { forwardOn, forwardParRateOn, marketDate, parseTenor, type Curve, type DayCount, type Workspace } from '../../core/index.ts';
+import { fixedLegConvention, forwardOn, forwardParRateOn, marketDate, parseTenor, type Curve, type FixedLegConvention, type Workspace } from '../../core/index.ts';
 import { couponTag, pct, rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
 import { EditLock } from '../../components/EditLock.tsx';
@@ -20,10 +20,9 @@ export function readGridAxis(text: string, name: string): { tenors: string[]; er
   return { tenors: parts, error: null };
 }
 
-/** The swap fixed-leg convention of the workspace: its first swap quote's, else annual 30/360 (common practice). */
-export function swapConvention(ws: Workspace | null): { frequency: number; dayCount: DayCount; eom: boolean } {
-  const swap = ws?.quotes.find((q) => q.kind === 'swap');
-  return swap && swap.kind === 'swap' ? { frequency: swap.frequency, dayCount: swap.dayCount, eom: swap.eom } : { frequency: 1, dayCount: '30/360', eom: false };
+/** The swap fixed-leg convention of the workspace: its first swap quote's, else annual 30/360 (common practice; the core's fixedLegConvention). */
+export function swapConvention(ws: Workspace | null): FixedLegConvention {
+  return fixedLegConvention(ws?.quotes ?? []);
 }
 
 /** Forward-starting par swap rates (start x tenor, as desks read 1y1y, 5y5y), or forward zero rates. */

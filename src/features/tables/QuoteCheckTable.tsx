@@ -1,25 +1,9 @@
 import { useMemo } from 'react';
 import type { Curve, Quote, Repricing } from '../../core/index.ts';
-import { bondScheduleRows, PRICE_ACCEPTANCE, RATE_ACCEPTANCE, swapScheduleRows, type QuoteSchedule } from '../../core/index.ts';
-import { couponTag, nearZero, num, pct } from '../../components/format.ts';
+import { PRICE_ACCEPTANCE, quoteConvention, quoteSchedule, RATE_ACCEPTANCE, type QuoteSchedule } from '../../core/index.ts';
+import { conventionTag, nearZero, num, pct } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
-
-/** The quoted convention of a validated quote, as a tag. */
-export function quoteTag(q: Quote, field: string): string {
-  switch (q.kind) {
-    case 'deposit':
-      return `simple, ${q.dayCount}`;
-    case 'bill':
-      return field === 'price' ? 'per 100' : 'discount, ACT/360';
-    case 'zero':
-      return field === 'price' ? 'per 100' : `${q.compounding === 'continuous' ? 'cont' : q.compounding}, ${q.dayCount}`;
-    case 'bond':
-      return field === 'cleanPrice' ? 'clean, per 100' : couponTag(q.frequency, q.dayCount);
-    case 'swap':
-      return couponTag(q.frequency, q.dayCount);
-  }
-}
 
 const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? num(v, 6) : pct(v, 6));
 /**
@@ -83,7 +67,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
                       <td>{rep.maturity}</td>
                       <td className="n">{num(rep.t, 6)}</td>
                       <td>
-                        {rep.field} <span className="tag">{quoteTag(q, rep.field)}</span>
+                        {rep.field} <span className="tag">{conventionTag(quoteConvention(q))}</span>
                       </td>
                       <td className="n">{showQuote(rep, rep.market)}</td>
                       <td className="n">{showQuote(rep, rep.model)}</td>
@@ -108,13 +92,11 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
 function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: number; quote: Quote | undefined; curve: Curve | null; settlement: string }) {
   const schedule: QuoteSchedule | null = useMemo(() => {
     if (!quote) return null;
-    if (quote.kind === 'bond') return bondScheduleRows(quote, settlement, curve);
-    if (quote.kind === 'swap') return swapScheduleRows(quote, settlement, curve);
-    return null;
+    return quoteSchedule(quote, settlement, curve);
   }, [quote, curve, settlement]);
   if (!quote) return <p className="muted">Row {rowNumber} is not a valid quote yet.</p>;
   if (!schedule) return <p className="muted">Row {rowNumber} is a {quote.kind}: a single flow at {quote.maturity}, no schedule.</p>;
-  const dc = quote.kind === 'bond' || quote.kind === 'swap' ? quote.dayCount : '';
+  const dc = 'dayCount' in quote ? quote.dayCount : '';
   return (
     <div className="schedule">
       <table className="data" aria-label={`Schedule of row ${rowNumber}`}>

@@ -1,0 +1,43 @@
+import type { SwapQuote } from '../document/types.ts';
+import { swapScheduleRows } from '../input/quoteSchedule.ts';
+import { DISCOUNTING_AND_PROJECTING } from '../instruments/instrument.ts';
+import { compileSwap, SwapLegs } from '../instruments/swap.ts';
+import { ok } from '../result.ts';
+import { readDayCount, readEom, readFrequency, readRate, required, RATE_TEXT } from './fields.ts';
+import { compoundingOfFrequency, flatDollarDuration, perYearLabel, quotedRateOrDefault } from './shared.ts';
+import type { QuoteKindModule } from './types.ts';
+
+/**
+ * Single-curve par swap from settlement: fixed rate (decimal) on the fixed leg's frequency
+ * (default 1) and day count (default 30/360), `eom` default false; the one curve discounts and
+ * projects the floating leg (instruments/swap.ts). A market's swaps share their fixed legs (SwapLegs).
+ */
+export const SWAP: QuoteKindModule<SwapQuote> = {
+  kind: 'swap',
+  schema: {
+    fields: ['rate', 'frequency', 'dayCount', 'eom'],
+    defaults: { frequency: 1, dayCount: '30/360' },
+    read(raw, base, index, _maturity, m, tenor, enabled, errors) {
+      const rate = required(readRate(raw, base, index, errors, 'rate'), 'rate', RATE_TEXT, base, index, errors);
+      const frequency = readFrequency(raw, 1, base, index, errors);
+      const dayCount = readDayCount(raw, base, index, errors, 'dayCount', '30/360');
+      const eom = readEom(raw, base, index, errors, false);
+      if (rate === null || frequency === null || !dayCount || eom === null) return null;
+      return { kind: 'swap', index, maturity: m, tenor, enabled, rate, frequency, dayCount, eom };
+    },
+  },
+  sheet: { rateField: 'rate', rateWhat: 'swap rate', priceField: null, missingValue: 'rate', coupon: false, frequency: true, dayCount: 'yes' },
+  paste: { kindWords: ['swaps', 'irs'], headerWords: { swaprate: 'rate' } },
+  compile: (q, _settlement, s, m, t, time, shared) => compileSwap(q, s, m, t, time, shared as SwapLegs | undefined),
+  share: (s, time, quotes) => new SwapLegs(s, time, quotes),
+  curves: DISCOUNTING_AND_PROJECTING,
+  nodeRole: 'discount',
+  convention: (q) => ({ unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
+  yieldLabel: (q) => `swap rate (${perYearLabel(q.frequency)}, ${q.dayCount})`,
+  priceYield: () => null,
+  shift: (q, d) => ok({ ...q, rate: q.rate + d }),
+  fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
+  solver: { firstRate: quotedRateOrDefault },
+  fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
+  schedule: swapScheduleRows,
+};
