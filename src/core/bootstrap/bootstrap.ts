@@ -7,7 +7,7 @@ import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { solveNode } from './solve.ts';
-import { solveLinear } from '../numeric/linearSolve.ts';
+import { luFactor, luSolve } from '../numeric/luDecomposition.ts';
 
 // Performance: a module-local binding (see interpolation/types.ts, "hot paths").
 const huntSegment = segmentNear;
@@ -260,9 +260,9 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
         ys[k] = keep;
         for (let r = 0; r < m; r++) jac[r * m + c] = (f1[r]! - f0[r]!) / h;
       }
-      const rhs = Float64Array.from(f0, (v) => -v);
-      const dx = solveLinear(jac, rhs, m);
-      if (!dx) return false;
+      const lu = luFactor(jac, m);
+      if (!lu) return false;
+      const dx = luSolve(lu, Float64Array.from(f0, (v) => -v));
       for (let i = 0; i < m; i++) y0[i] = ys[free[i]!]!;
       let lambda = 1;
       let maxStep = 0;

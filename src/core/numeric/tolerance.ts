@@ -10,3 +10,8 @@ export const RATE_ACCEPTANCE = 1e-14;
 export const MAX_SWEEPS = 100;
 /** One-dimensional solver: at most this many function evaluations per pillar. */
 export const MAX_SOLVER_EVALUATIONS = 200;
+/**
+ * Gaussian elimination (numeric/luDecomposition.ts): a matrix is singular when a pivot is at most
+ * this times its largest |entry| (1e-14, about 45 ulps of 1).
+ */
+export const SINGULAR_PIVOT = 1e-14;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildCurve, INTERPOLATIONS } from '../../../src/core/index.ts';
-import { solveLinear } from '../../../src/core/numeric/linearSolve.ts';
+import { luFactor, luSolve } from '../../../src/core/numeric/luDecomposition.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 // Regression: a market the property tests found (invented data, flat 7 %), where a quarterly
@@ -39,14 +39,21 @@ describe('bootstrap acceptance on a market with two pillars 34 days apart', () =
   }
 });
 
-describe('solveLinear (Gaussian elimination with partial pivoting)', () => {
+describe('luFactor and luSolve (Gaussian elimination with partial pivoting)', () => {
   it('solves a system that needs a row swap, and refuses a singular one', () => {
     // [0 2 1; 1 1 1; 2 1 3] x = [5, 6, 13]: the first pivot is 0, so a row swap is needed.
     const a = Float64Array.from([0, 2, 1, 1, 1, 1, 2, 1, 3]);
-    const x = solveLinear(a.slice(), Float64Array.from([5, 6, 13]), 3)!;
+    const x = luSolve(luFactor(a, 3)!, Float64Array.from([5, 6, 13]));
     const A = [0, 2, 1, 1, 1, 1, 2, 1, 3];
     for (let r = 0; r < 3; r++) expectClose(A[3 * r]! * x[0]! + A[3 * r + 1]! * x[1]! + A[3 * r + 2]! * x[2]!, [5, 6, 13][r]!, 1e-14, 'substitution back into the system');
-    expect(solveLinear(Float64Array.from([1, 2, 2, 4]), Float64Array.from([1, 2]), 2)).toBeNull();
+    expect(luFactor(Float64Array.from([1, 2, 2, 4]), 2)).toBeNull();
+    // Singular to working precision: [1 1; 1 1+1e-15] leaves the second pivot 1.1e-15, below
+    // SINGULAR_PIVOT = 1e-14 times the largest entry (hand calculation).
+    expect(luFactor(Float64Array.from([1, 1, 1, 1 + 1e-15]), 2)).toBeNull();
+    // The test is relative: 1e-20 times the identity is perfectly conditioned (hand calculation: x = b / 1e-20).
+    const tiny = luFactor(Float64Array.from([1e-20, 0, 0, 1e-20]), 2);
+    expect(tiny).not.toBeNull();
+    expectClose(luSolve(tiny!, [3e-20, 4e-20])[1]!, 4, 1e-15, 'hand calculation: 4e-20 / 1e-20');
   });
 });
 
