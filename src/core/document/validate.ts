@@ -7,6 +7,7 @@ import { compareIso, isMonthEnd, isoFromCivil, parseIsoDate, type CivilDate, typ
 import { CURVE_DAY_COUNTS, DAY_COUNTS, isCurveDayCount, isDayCount, type DayCount } from '../time/dayCount.ts';
 import { addTenorCivil, formatTenor, parseTenor } from '../time/tenor.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
+import { isPlainObject } from './plainObject.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
 export const WORKSPACE_VERSION = 1;
@@ -50,7 +51,6 @@ export interface ValidationOutcome {
 }
 
 const typeName = (v: unknown): string => (v === null ? 'null' : Array.isArray(v) ? 'an array' : typeof v === 'string' ? `the text "${String(v).slice(0, 40)}"` : typeof v);
-const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const listOf = (xs: readonly unknown[]): string => xs.map((x) => String(x)).join(', ');
 
 /**
