@@ -111,3 +111,43 @@ describe('bootstrapInstruments without a segment formula (the generic solve a ne
     }
   });
 });
+
+describe('the three node solvers find the same nodes (segment formula, affine two-build, rebuild)', () => {
+  // nodeSolverFor picks one solver per method and stage; with the method's segmentLn and affine
+  // flags taken away the bootstrap falls back to the next one. All three solve the same equation
+  // (the instrument's present value equals its target) for the same node, so the curves must
+  // agree to the solver tolerance: 1e-13 relative in ln DF, as above. Invented market40 fixture.
+  it('log-linear-discount, cubic-zero and monotone-convex give one curve with every solver they can use', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { validateWorkspace, compileMarket, bootstrapInstruments, INTERPOLATORS } = await import('../../../src/core/index.ts');
+    const doc = JSON.parse(readFileSync(new URL('../../fixtures/market40/market40.json', import.meta.url), 'utf8'));
+    const ws = validateWorkspace(doc).workspace!;
+    const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false);
+    const registry = INTERPOLATORS as Record<string, (typeof INTERPOLATORS)['monotone-convex']>;
+    const variants = { 'log-linear-discount': [['segmentLn'], ['segmentLn', 'affine']], 'cubic-zero': [['affine']], 'monotone-convex': [['segmentLn']] } as const;
+    for (const [id, drops] of Object.entries(variants) as [keyof typeof variants, readonly (readonly ('segmentLn' | 'affine')[])[]][]) {
+      const settings = { settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation: id, extrapolation: 'none' as const };
+      const reference = bootstrapInstruments(settings, market.instruments);
+      expect(reference.errors).toEqual([]);
+      for (const drop of drops) {
+        const spec = registry[id]!;
+        const reduced: Record<string, unknown> = { ...spec };
+        for (const key of drop) delete reduced[key];
+        registry[id] = reduced as unknown as typeof spec;
+        let other;
+        try {
+          other = bootstrapInstruments(settings, market.instruments);
+        } finally {
+          registry[id] = spec;
+        }
+        expect(other.errors, `${id} without ${drop.join(', ')}`).toEqual([]);
+        const last = reference.curve!.lastT;
+        for (let i = 0; i <= 200; i++) {
+          const t = (last * i) / 200;
+          const want = reference.curve!.lnDiscountAt(t);
+          expectClose(other.curve!.lnDiscountAt(t), want, 1e-13 * Math.max(1, Math.abs(want)), `${id} without ${drop.join(', ')}: ln DF at t = ${t}, same root as the method's own solver`);
+        }
+      }
+    }
+  });
+});
