@@ -5,9 +5,6 @@ import { coreError, type CoreError } from '../result.ts';
 import type { FlowTable } from './flowTable.ts';
 import { solveNode } from './solve.ts';
 
-// Performance: a module-local binding (see interpolation/types.ts, "hot paths").
-const huntSegment = segmentNear;
-
 /**
  * What the node solvers of one bootstrap share: the instruments in pillar order and the node
  * arrays they solve, node k (k = 1..n) at instruments[k - 1]'s maturity.
@@ -126,14 +123,14 @@ class SegmentSolver implements NodeSolver {
           continue;
         }
       }
-      segment = huntSegment(ts, m, tj, segment);
+      segment = segmentNear(ts, m, tj, segment);
       const ln = segmentLn(ts, ys, m, segment, tj);
       const df = Math.exp(ln);
       flowLn[offset + j] = ln;
       flowDf[offset + j] = df;
       fixed += amounts[j]! * df;
     }
-    const firstSegment = first < times.length ? huntSegment(ts, m, times[first]!, segment) : segment;
+    const firstSegment = first < times.length ? segmentNear(ts, m, times[first]!, segment) : segment;
     const residual = (x: number): number => {
       ys[k] = x;
       let pv = fixed;
@@ -144,7 +141,7 @@ class SegmentSolver implements NodeSolver {
           pv += amounts[j]! * Math.exp(x);
           continue;
         }
-        seg = huntSegment(ts, m, tj, seg);
+        seg = segmentNear(ts, m, tj, seg);
         pv += amounts[j]! * Math.exp(segmentLn(ts, ys, m, seg, tj));
       }
       return pv - target;
@@ -169,7 +166,7 @@ class SegmentSolver implements NodeSolver {
       const tj = times[j]!;
       let ln = x;
       if (tj < tk) {
-        seg = huntSegment(ts, m, tj, seg);
+        seg = segmentNear(ts, m, tj, seg);
         ln = segmentLn(ts, ys, m, seg, tj);
       }
       flowLn[offset + j] = ln;

@@ -133,9 +133,8 @@ function checkCurve(v: unknown, errors: CoreError[]): CurveSettings | null {
   return { dayCount, interpolation, extrapolation, fit } as CurveSettings;
 }
 
-// Performance: the readers below are module-level functions taking the quote's context as
-// arguments, not closures made per quote (the command-line runner's transform adds a
-// name-setting call to every closure created). `base` is the quote's path, `quotes[index]`.
+// The readers below take the quote's context as arguments: `base` is the quote's path,
+// `quotes[index]`.
 
 function readNumber(raw: Record<string, unknown>, base: string, index: number, errors: CoreError[], field: string, min: number, max: number, what: string, minExclusive = false): number | null | undefined {
   const v = raw[field];
