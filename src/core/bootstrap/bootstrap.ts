@@ -68,6 +68,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const nodes = startNodes(instruments);
   const { ts, ys } = nodes;
 
+  // 1. One pass.
   const pass = nodeSolverFor(spec.global ? INTERPOLATORS['log-linear-discount'] : spec, 'pass', nodes);
   for (let k = 1; k <= instruments.length; k++) {
     const x = pass.solve(k, guess(instruments, ts, ys, k));
@@ -75,6 +76,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     ys[k] = x;
   }
 
+  // 2. Global methods: sweeps until the nodes settle.
   let sweeps = 0;
   let repricing: Repricing[] | null = null;
   if (spec.global) {
@@ -83,25 +85,16 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     ({ sweeps, repricing } = global);
   }
 
-  const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
-  const curve = curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, spec.build(ts, ys));
-  // A global method's sweeps repriced on the final nodes (bit for bit what curve.lnDiscountAt
-  // gives there: the same formula on the same nodes, y_k exactly at a pillar; a test checks it).
-  // A local method's segment solver left the curve's own values at every flow in the table: no
-  // later node moves a flow's segment.
+  // 3. The curve, and every quote repriced on it. A global method's sweeps repriced on the final
+  // nodes (bit for bit what curve.lnDiscountAt gives there: the same formula on the same nodes,
+  // y_k exactly at a pillar; a test checks it). A local method's segment solver left the curve's
+  // own values at every flow in the table: no later node moves a flow's segment.
+  const curve = curveOnNodes(settings, spec, nodes);
   repricing ??= pass.writesFlowTable ? tableRepricing(nodes) : reprice(nodes, curve.lnDiscountAt);
-  const w = worst(repricing);
-  if (w && w.ratio > 1) {
-    return failed([
-      coreError(
-        'no-solution',
-        `quotes[${w.row.index}].${w.row.field}`,
-        `quotes[${w.row.index}] (${w.row.kind} ${w.row.maturity}) reprices off by ${w.row.repricingError} in ${w.row.unit}, beyond the acceptance bound ${acceptanceBound(w.row.unit)}`,
-        w.row.index,
-      ),
-    ]);
-  }
+  const refused = acceptanceFailure(repricing);
+  if (refused) return failed([refused]);
 
+  // 4. The sign of the forward between pillars.
   const { errors, warnings } = forwardSigns(settings, nodes);
   if (errors.length > 0) return failed(errors);
   return { curve, errors: [], warnings, repricing, sweeps };
@@ -116,6 +109,24 @@ function startNodes(instruments: readonly Instrument[]): BootstrapNodes {
   for (let k = 0; k < n; k++) ts[k + 1] = instruments[k]!.t;
   const closedForm = instruments.map((ins) => ins.closedFormLn !== null && ins.times.length === 1 && ins.times[0] === ins.t);
   return { instruments, closedForm, ts, ys, flows: new FlowTable(instruments) };
+}
+
+/** The curve on the solved nodes, one pillar per instrument. */
+function curveOnNodes(settings: BootstrapSettings, spec: InterpolatorSpec, { instruments, ts, ys }: BootstrapNodes): Curve {
+  const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
+  return curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, spec.build(ts, ys));
+}
+
+/** The error for the quote furthest beyond its acceptance bound, or null when every quote is within. */
+function acceptanceFailure(repricing: Repricing[]): CoreError | null {
+  const w = worst(repricing);
+  if (!w || w.ratio <= 1) return null;
+  return coreError(
+    'no-solution',
+    `quotes[${w.row.index}].${w.row.field}`,
+    `quotes[${w.row.index}] (${w.row.kind} ${w.row.maturity}) reprices off by ${w.row.repricingError} in ${w.row.unit}, beyond the acceptance bound ${acceptanceBound(w.row.unit)}`,
+    w.row.index,
+  );
 }
 
 type GlobalOutcome = { readonly ok: true; readonly sweeps: number; readonly repricing: Repricing[] } | { readonly ok: false; readonly error: CoreError };
