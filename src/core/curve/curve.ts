@@ -19,9 +19,11 @@ export interface Pillar {
 
 /**
  * A discount curve on its own time axis t = yearFraction(dayCount, settlement, date).
- * `lnDiscountAt` and `forwardAt` are defined for every t >= 0: beyond `lastT` the instantaneous
- * forward stays at its last value (flat-forward); whether a query may go there is the caller's
- * decision (see query.ts, which enforces `extrapolation`).
+ * `lnDiscountAt` and `forwardAt` are defined for every t >= 0, with forwardAt = -d lnDiscountAt/dt:
+ * beyond `lastT` a curve on nodes or a fitted form keeps its last instantaneous forward
+ * (flat-forward), and a curve derived from another (a scenario, a horizon view) moves that one's
+ * extension; whether a query may go there is the caller's decision (see query.ts, which enforces
+ * `extrapolation`). Made only by {@link curveFromLnDiscount}.
  */
 export interface Curve {
   readonly settlement: IsoDate;
