@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { readWorkbenchDocument, WORKBENCH_FORMAT, workbenchFromEngine, type WorkbenchDocument } from '../core/index.ts';
+import { isPlainObject, readWorkbenchDocument, WORKBENCH_FORMAT, workbenchFromEngine, type WorkbenchDocument } from '../core/index.ts';
 import { tableConventionsFromDisplay } from '../core/index.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';
@@ -32,7 +32,7 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
   const doc = useAppStore((s) => s.workspace) as unknown as Record<string, unknown>;
   const activeTab = useAppStore((s) => s.activeTab);
   // The link also says which section is open (the document's `view`), so the colleague sees the same.
-  const view = typeof doc.view === 'object' && doc.view !== null && !Array.isArray(doc.view) ? (doc.view as Record<string, unknown>) : {};
+  const view = isPlainObject(doc.view) ? doc.view : {};
   const linked = { ...doc, view: { ...view, tab: activeTab } };
   const [message, setMessage] = useState<string | null>(null);
   const curve = result.build.curve;

@@ -1,4 +1,4 @@
-import { depthProblem, readWorkbenchDocument, WORKBENCH_VERSION, type WorkbenchDocument } from '../core/index.ts';
+import { depthProblem, isPlainObject, readWorkbenchDocument, WORKBENCH_VERSION, type WorkbenchDocument } from '../core/index.ts';
 import { demoWorkspace } from './demoWorkspace.ts';
 import { readDrafts, useDrafts } from './drafts.ts';
 import { makeRowId } from './ids.ts';
@@ -114,14 +114,13 @@ export function browserDeps(): PersistenceDeps {
 const isQuotaError = (e: unknown): boolean =>
   typeof e === 'object' && e !== null && 'name' in e && (/quota/i.test(String((e as { name: unknown }).name)) || /quota/i.test(String((e as { message?: unknown }).message ?? '')));
 const errorText = (e: unknown): string => (isQuotaError(e) ? 'browser storage is full (quota exceeded)' : `the browser refused to store it (${e instanceof Error ? e.message : String(e)})`);
-const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 /** A clock time for messages (the page's local time; only for reading, never stored). */
 const clock = (ms: number): string => new Date(ms).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit', second: '2-digit' });
 
 /** Why a saved document cannot be read, in words that fit the cause. */
 function describeDocProblem(raw: unknown, problem: string): string {
-  if (raw === undefined || raw === null || (isObj(raw) && Object.keys(raw).length === 0)) return 'it is empty (no workspace in it)';
-  if (isObj(raw) && typeof raw.version === 'number' && raw.version > WORKBENCH_VERSION) {
+  if (raw === undefined || raw === null || (isPlainObject(raw) && Object.keys(raw).length === 0)) return 'it is empty (no workspace in it)';
+  if (isPlainObject(raw) && typeof raw.version === 'number' && raw.version > WORKBENCH_VERSION) {
     return `it was saved by a newer version of Tenorscope (workspace version ${raw.version}; this one reads version ${WORKBENCH_VERSION}). Open it there, or export it from the list`;
   }
   return problem;
@@ -135,7 +134,7 @@ function parseLegacyText(raw: string): { entry: Record<string, unknown> | null; 
   } catch {
     return { entry: null, problem: 'it is not valid JSON (cut short or damaged)' };
   }
-  if (!isObj(json) || json.app !== 'tenorscope') return { entry: null, problem: 'it is not a Tenorscope save' };
+  if (!isPlainObject(json) || json.app !== 'tenorscope') return { entry: null, problem: 'it is not a Tenorscope save' };
   return { entry: json, problem: null };
 }
 
@@ -172,7 +171,7 @@ function readHistory(h: SavedEntry['history']): { past: WorkbenchDocument[]; fut
  */
 export function readEntry(id: string, value: unknown, withHistory = false): ReadEntry {
   const none = { past: [], future: [] };
-  if (!isObj(value)) {
+  if (!isPlainObject(value)) {
     const problem = typeof value === 'string' ? (parseLegacyText(value).problem ?? 'it is not a Tenorscope save') : 'it is empty (no workspace in it)';
     return { item: { id, name: 'Unreadable workspace', savedAt: null, workspace: null, problem }, stamp: null, history: none };
   }
@@ -326,7 +325,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
    * `kept:<id>:<stamp>` (never listed, never written over; it goes out with "Export all").
    */
   const loadChecked = async (r: ReadEntry, value: unknown): Promise<void> => {
-    const check = checkRestoredWorkspace(isObj(value) ? value.workspace : undefined);
+    const check = checkRestoredWorkspace(isPlainObject(value) ? value.workspace : undefined);
     const doc = check.doc ?? r.item.workspace!;
     const notes = [...check.notes, ...(r.history.lost ? ['a step of the saved undo history could not be read, so undo starts afresh'] : [])];
     if (check.unknowns.length === 0 && notes.length === 0) {
@@ -357,7 +356,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
     return withHistory ? { ...base, history: { past: state.past.slice(-SAVED_HISTORY_CAP), future: state.future.slice(-SAVED_HISTORY_CAP) } } : base;
   };
   /** Someone else saved this workspace since this tab loaded or saved it. */
-  const isForeign = (cur: unknown): boolean => isObj(cur) && typeof cur.stamp === 'string' && cur.stamp !== lastSeen && cur.writer !== tabId;
+  const isForeign = (cur: unknown): boolean => isPlainObject(cur) && typeof cur.stamp === 'string' && cur.stamp !== lastSeen && cur.writer !== tabId;
   const pause = (): void => {
     paused = true;
     setStorage({ state: 'paused', otherTab: true });
@@ -615,7 +614,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
     } catch {
       value = null;
     }
-    if (isObj(value)) foreignSave(typeof value.stamp === 'string' ? value.stamp : null, typeof value.writer === 'string' ? value.writer : null);
+    if (isPlainObject(value)) foreignSave(typeof value.stamp === 'string' ? value.stamp : null, typeof value.writer === 'string' ? value.writer : null);
   };
   const onPageHide = (): void => {
     void flush();
@@ -719,7 +718,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
         return;
       }
       try {
-        await backend.update(entryKey(id), (cur) => (isObj(cur) ? { ...cur, name: clean } : KEEP));
+        await backend.update(entryKey(id), (cur) => (isPlainObject(cur) ? { ...cur, name: clean } : KEEP));
       } catch (e) {
         list.setState({ notice: `The new name was not saved: ${errorText(e)}.` });
         return;

@@ -1,4 +1,4 @@
-import type { ViewValue, WorkbenchDocument } from '../core/index.ts';
+import { isPlainObject, type ViewValue, type WorkbenchDocument } from '../core/index.ts';
 import { useAppStore } from './store.ts';
 
 /**
@@ -8,7 +8,7 @@ import { useAppStore } from './store.ts';
  */
 export function viewOf(doc: WorkbenchDocument): Readonly<Record<string, unknown>> {
   const v = doc.view;
-  return typeof v === 'object' && v !== null && !Array.isArray(v) ? (v as Record<string, unknown>) : {};
+  return isPlainObject(v) ? v : {};
 }
 
 /** A text value of the view, or the fallback when it is absent or not text. */

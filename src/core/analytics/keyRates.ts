@@ -2,7 +2,7 @@ import { marketDate } from '../time/dateConventions.ts';
 import { parseTenor } from '../time/tenor.ts';
 import type { Curve } from '../curve/curve.ts';
 
-/** Key maturities of the key-rate grid (common practice for a government curve). */
+/** The curve's key maturities: the key-rate grid and the rows of the key-maturity table (common practice for a government curve). */
 export const DEFAULT_KEY_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'] as const;
 
 /** Size of the key-rate and parallel bumps, in bp of the continuously compounded zero rate. */

@@ -1,15 +1,12 @@
-import { MAX_SOLVER_EVALUATIONS, NODE_TOLERANCE } from '../numeric/tolerance.ts';
+import { LN_DISCOUNT_LIMIT, MAX_SOLVER_EVALUATIONS, NODE_TOLERANCE, SOLVER_FIRST_STEP } from '../numeric/tolerance.ts';
 
 export type SolveOutcome =
   | { readonly ok: true; readonly x: number; readonly evaluations: number }
   | { readonly ok: false; readonly reason: 'non-positive-discount' | 'no-solution'; readonly evaluations: number };
 
 /** ln DF beyond these bounds means a discount factor that float64 cannot tell from 0 or infinity. */
-const X_MIN = -700;
-const X_MAX = 700;
-// Performance: module-local copies of the imported limits (see interpolation/types.ts, "hot paths").
-const TOL = NODE_TOLERANCE;
-const MAX_EVALS = MAX_SOLVER_EVALUATIONS;
+const X_MIN = -LN_DISCOUNT_LIMIT;
+const X_MAX = LN_DISCOUNT_LIMIT;
 
 /**
  * Solves residual(x) = 0 for a node x = ln DF, where the residual is present value minus target
@@ -35,14 +32,14 @@ export function solveNode(residual: (x: number) => number, x0: number, f0?: numb
   if (fx === 0) return { ok: true, x, evaluations };
   let neg = fx < 0 ? x : Number.NaN; // a point with residual < 0
   let pos = fx > 0 ? x : Number.NaN; // a point with residual > 0
-  const h = 1e-7;
+  const h = SOLVER_FIRST_STEP;
   let stride = 1;
   let xPrev = x + h;
   evaluations++;
   let fPrev = residual(xPrev);
   if (fPrev < 0) neg = Number.isNaN(neg) || xPrev > neg ? xPrev : neg;
   if (fPrev > 0) pos = Number.isNaN(pos) || xPrev < pos ? xPrev : pos;
-  while (evaluations < MAX_EVALS) {
+  while (evaluations < MAX_SOLVER_EVALUATIONS) {
     const bracketed = !Number.isNaN(neg) && !Number.isNaN(pos);
     const slope = (fx - fPrev) / (x - xPrev);
     let next = x - fx / slope;
@@ -66,10 +63,10 @@ export function solveNode(residual: (x: number) => number, x0: number, f0?: numb
     fPrev = fx;
     x = next;
     fx = fNext;
-    if (fx === 0 || step <= TOL) return { ok: true, x, evaluations };
+    if (fx === 0 || step <= NODE_TOLERANCE) return { ok: true, x, evaluations };
     if (fx < 0) neg = x;
     else pos = x;
-    if (!Number.isNaN(neg) && !Number.isNaN(pos) && Math.abs(neg - pos) <= TOL) return { ok: true, x, evaluations };
+    if (!Number.isNaN(neg) && !Number.isNaN(pos) && Math.abs(neg - pos) <= NODE_TOLERANCE) return { ok: true, x, evaluations };
   }
   return { ok: false, reason: 'no-solution', evaluations };
 }

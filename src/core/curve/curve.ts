@@ -19,9 +19,11 @@ export interface Pillar {
 
 /**
  * A discount curve on its own time axis t = yearFraction(dayCount, settlement, date).
- * `lnDiscountAt` and `forwardAt` are defined for every t >= 0: beyond `lastT` the instantaneous
- * forward stays at its last value (flat-forward); whether a query may go there is the caller's
- * decision (see query.ts, which enforces `extrapolation`).
+ * `lnDiscountAt` and `forwardAt` are defined for every t >= 0, with forwardAt = -d lnDiscountAt/dt:
+ * beyond `lastT` a curve on nodes or a fitted form keeps its last instantaneous forward
+ * (flat-forward), and a curve derived from another (a scenario, a horizon view) moves that one's
+ * extension; whether a query may go there is the caller's decision (see query.ts, which enforces
+ * `extrapolation`). Made only by {@link curveFromLnDiscount}.
  */
 export interface Curve {
   readonly settlement: IsoDate;
@@ -56,6 +58,84 @@ export function curveFromPillars(
   return curveFromNodes(settlement, dayCount, interpolation, extrapolation, pillars, INTERPOLATORS[interpolation].build(ts, ys));
 }
 
+/** A curve's ln DF as a function of t years on its axis, with its derivative. */
+export interface LnDiscountFunction {
+  /** ln DF at t years. */
+  lnDiscount(t: number): number;
+  /** The instantaneous forward f(t) = -d lnDiscount/dt, continuously compounded per year; right-continuous. */
+  forward(t: number): number;
+}
+
+/** Everything of a curve except its ln DF: what it is and where its nodes are. */
+export interface CurveFrame {
+  readonly settlement: IsoDate;
+  readonly dayCount: CurveDayCount;
+  readonly interpolation: InterpolationId;
+  readonly extrapolation: Extrapolation;
+  readonly pillars: readonly Pillar[];
+  /** Time of the last pillar, years; default the last pillar's t (0 without pillars). */
+  readonly lastT?: number;
+  /** Years from settlement to a date; default the clock of `dayCount` from `settlement`. */
+  readonly time?: (date: IsoDate) => number;
+}
+
+/**
+ * How the function is read beyond `lastT`:
+ * - 'flat-forward': the function is only read on [0, lastT]; beyond, the forward stays at
+ *   forward(lastT) and ln DF goes on linearly from lnDiscount(lastT) (a curve built from nodes or
+ *   a fitted form);
+ * - 'as-given': the function already holds for every t >= 0 (a curve derived from another curve,
+ *   which carries that curve's own extension).
+ */
+export type BeyondLastPillar = 'flat-forward' | 'as-given';
+
+/**
+ * The one constructor of a {@link Curve}: from a log-discount function and its derivative.
+ * `lnDiscountAt` and `forwardAt` both come from `fn`, so they agree (forwardAt = -d lnDiscountAt/dt)
+ * wherever `fn` does; beyond the last pillar as `beyond` says.
+ */
+export function curveFromLnDiscount(frame: CurveFrame, fn: LnDiscountFunction, beyond: BeyondLastPillar): Curve {
+  const { settlement, dayCount, pillars } = frame;
+  const last = pillars[pillars.length - 1];
+  const lastT = frame.lastT ?? (last ? last.t : 0);
+  // The curve's clock from the settlement date parsed once (the same values as curveTime).
+  const time = frame.time ?? clockOf(dayCount, settlement);
+  const { interpolation, extrapolation } = frame;
+  if (beyond === 'as-given') {
+    return { settlement, dayCount, interpolation, extrapolation, pillars, lastT, time, lnDiscountAt: (t) => fn.lnDiscount(t), forwardAt: (t) => fn.forward(t) };
+  }
+  const lastLn = last ? fn.lnDiscount(lastT) : 0;
+  const lastForward = last ? fn.forward(lastT) : 0;
+  return {
+    settlement,
+    dayCount,
+    interpolation,
+    extrapolation,
+    pillars,
+    lastT,
+    time,
+    lnDiscountAt: (t) => (t <= lastT ? fn.lnDiscount(t) : lastLn - lastForward * (t - lastT)),
+    forwardAt: (t) => (t < lastT ? fn.forward(t) : lastForward),
+  };
+}
+
+/** The frame of an existing curve, to derive another curve from it. */
+export const frameOf = (base: Curve): CurveFrame => ({
+  settlement: base.settlement,
+  dayCount: base.dayCount,
+  interpolation: base.interpolation,
+  extrapolation: base.extrapolation,
+  pillars: base.pillars,
+  lastT: base.lastT,
+  time: base.time,
+});
+
+function clockOf(dayCount: CurveDayCount, settlement: IsoDate): (date: IsoDate) => number {
+  const clock = curveClock(dayCount, civilFromIso(settlement));
+  return (date) => clock(civilFromIso(date));
+}
+
+/** A curve on an interpolation of its nodes (the pillars), flat-forward past the last one. */
 export function curveFromNodes(
   settlement: IsoDate,
   dayCount: CurveDayCount,
@@ -64,21 +144,5 @@ export function curveFromNodes(
   pillars: readonly Pillar[],
   interp: Interpolation,
 ): Curve {
-  const last = pillars[pillars.length - 1];
-  const lastT = last ? last.t : 0;
-  const lastLn = last ? interp.lnDiscount(lastT) : 0;
-  const lastForward = last ? interp.forward(lastT) : 0;
-  // The curve's clock from the settlement date parsed once (the same values as curveTime).
-  const clock = curveClock(dayCount, civilFromIso(settlement));
-  return {
-    settlement,
-    dayCount,
-    interpolation,
-    extrapolation,
-    pillars,
-    lastT,
-    lnDiscountAt: (t) => (t <= lastT ? interp.lnDiscount(t) : lastLn - lastForward * (t - lastT)),
-    forwardAt: (t) => (t < lastT ? interp.forward(t) : lastForward),
-    time: (date) => clock(civilFromIso(date)),
-  };
+  return curveFromLnDiscount({ settlement, dayCount, interpolation, extrapolation, pillars }, interp, 'flat-forward');
 }

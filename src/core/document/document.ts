@@ -7,6 +7,7 @@ import { validateNote, validateScenarios, validateSnapshots, validateView, type 
 import { depthProblem, LIMITS } from './limits.ts';
 import { checkWorkbenchShape } from './workbenchShape.ts';
 import { unknownSettings, WORKBENCH_FORMAT, type UnknownSetting } from './workbenchDocument.ts';
+import { isPlainObject } from './plainObject.ts';
 
 /** A workspace document after validation: the document itself (unchanged) and what was read from it. */
 export interface CheckedDocument {
@@ -39,7 +40,6 @@ export interface DocumentMigration {
 /** Migrations of older document versions, oldest first. Version 1 is the first published, so none yet. */
 export const DOCUMENT_MIGRATIONS: readonly DocumentMigration[] = [];
 
-const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 /** Applies migrations from the document's version up to the current one; leaves other documents alone. */
 export function migrateDocument(doc: Record<string, unknown>, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): Record<string, unknown> {
@@ -59,7 +59,7 @@ export function migrateDocument(doc: Record<string, unknown>, migrations: readon
  * quotes are returned beside it. `strategy` is checked for size only; its owner validates it.
  */
 export function validateDocument(raw: unknown, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): DocumentOutcome {
-  if (!isObj(raw)) return { ok: false, errors: [coreError('schema', '', 'a workspace document must be a JSON object')] };
+  if (!isPlainObject(raw)) return { ok: false, errors: [coreError('schema', '', 'a workspace document must be a JSON object')] };
   const deep = depthProblem(raw);
   if (deep) return { ok: false, errors: [coreError('range', '', deep)] };
   if (raw.format !== WORKSPACE_FORMAT && raw.format !== WORKBENCH_FORMAT) {
@@ -86,7 +86,7 @@ export function validateDocument(raw: unknown, migrations: readonly DocumentMigr
   const snaps = validateSnapshots(doc.snapshots);
   errors.push(...s.errors, ...n.errors, ...v.errors, ...snaps.errors);
   if (doc.strategy !== undefined) {
-    const size = isObj(doc.strategy) ? JSON.stringify(doc.strategy).length : -1;
+    const size = isPlainObject(doc.strategy) ? JSON.stringify(doc.strategy).length : -1;
     if (size < 0 || size > LIMITS.strategyJson) errors.push(coreError('range', 'strategy', `strategy must be an object of at most ${LIMITS.strategyJson} characters of JSON`));
   }
   if (errors.length > 0) return { ok: false, errors };
@@ -112,7 +112,7 @@ export function validateDocument(raw: unknown, migrations: readonly DocumentMigr
 export function documentCapErrors(raw: unknown): CoreError[] {
   const deep = depthProblem(raw);
   if (deep) return [coreError('range', '', deep)];
-  if (isObj(raw) && Array.isArray(raw.quotes) && raw.quotes.length > LIMITS.quotes) {
+  if (isPlainObject(raw) && Array.isArray(raw.quotes) && raw.quotes.length > LIMITS.quotes) {
     return [coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`)];
   }
   return [];

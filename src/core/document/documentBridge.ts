@@ -4,6 +4,7 @@ import type { Quote } from './types.ts';
 import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS } from '../kinds/registry.ts';
 import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from '../input/quoteRow.ts';
 import { DEFAULT_DISPLAY, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
+import { isPlainObject } from './plainObject.ts';
 
 /**
  * The two document formats, each readable where the other is written: the workbench's
@@ -13,7 +14,6 @@ import { DEFAULT_DISPLAY, readWorkbenchDocument, toEngineDocument, WORKBENCH_FOR
  * double; a field the sheet cannot hold is an error naming the quote and field, never dropped.
  */
 
-const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 /** The engine field written into each sheet column (the sheet's rate column holds a rate, a discount yield or a yield). */
 const COLUMN_FIELDS: Readonly<Record<(typeof QUOTE_COLUMNS)[number], readonly string[]>> = {
@@ -94,7 +94,7 @@ export interface AnyDocumentReading {
 }
 
 export function engineFromAnyDocument(raw: unknown): AnyDocumentReading {
-  if (!isObj(raw) || raw.format !== WORKBENCH_FORMAT) return { doc: raw, errors: [], rowOfQuote: null };
+  if (!isPlainObject(raw) || raw.format !== WORKBENCH_FORMAT) return { doc: raw, errors: [], rowOfQuote: null };
   let n = 0;
   const read = readWorkbenchDocument(raw, () => `r${n++}`);
   if (!read.doc) return { doc: raw, errors: [coreError('schema', '', `this workbench document cannot be read: ${read.problem ?? 'unknown problem'}`)], rowOfQuote: null };

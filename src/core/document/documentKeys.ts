@@ -4,8 +4,8 @@ import { coreError, type CoreError } from '../result.ts';
 import { isIsoDate } from '../time/date.ts';
 import { parseTenor } from '../time/tenor.ts';
 import { LIMITS } from './limits.ts';
+import { isPlainObject } from './plainObject.ts';
 
-const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const typeName = (v: unknown): string => (v === null ? 'null' : Array.isArray(v) ? 'an array' : typeof v === 'string' ? `the text "${v.slice(0, 30)}"` : typeof v);
 
 function exactKeys(v: Record<string, unknown>, required: readonly string[], optional: readonly string[], path: string, errors: CoreError[]): void {
@@ -46,7 +46,7 @@ function maturity(v: unknown, path: string, errors: CoreError[]): string | null 
 }
 
 function checkShape(v: unknown, path: string, errors: CoreError[]): ScenarioShape | null {
-  if (!isObj(v)) {
+  if (!isPlainObject(v)) {
     errors.push(coreError('schema', path, `${path}: must be an object such as {"kind": "parallel", "bp": 25}, not ${typeName(v)}`));
     return null;
   }
@@ -83,7 +83,7 @@ function checkShape(v: unknown, path: string, errors: CoreError[]): ScenarioShap
       const points: { at: string; bp: number }[] = [];
       v.points.forEach((p, i) => {
         const pp = `${path}.points[${i}]`;
-        if (!isObj(p)) {
+        if (!isPlainObject(p)) {
           errors.push(coreError('schema', pp, `${pp}: must be an object such as {"at": "5Y", "bp": 10}`));
           return;
         }
@@ -110,7 +110,7 @@ export function validateScenarios(v: unknown): { scenarios: Scenario[]; errors: 
   const ids = new Set<string>();
   v.forEach((raw, i) => {
     const path = `scenarios[${i}]`;
-    if (!isObj(raw)) {
+    if (!isPlainObject(raw)) {
       errors.push(coreError('schema', path, `${path}: must be an object with id, name, space and shape, not ${typeName(raw)}`));
       return;
     }
@@ -151,7 +151,7 @@ const VIEW_KEY = /^[A-Za-z][A-Za-z0-9]{0,39}$/;
 export function validateView(v: unknown): { view: Record<string, ViewValue>; errors: CoreError[] } {
   const errors: CoreError[] = [];
   if (v === undefined) return { view: {}, errors };
-  if (!isObj(v)) return { view: {}, errors: [coreError('schema', 'view', `view must be an object, not ${typeName(v)}`)] };
+  if (!isPlainObject(v)) return { view: {}, errors: [coreError('schema', 'view', `view must be an object, not ${typeName(v)}`)] };
   const keys = Object.keys(v);
   if (keys.length > LIMITS.viewKeys) return { view: {}, errors: [coreError('range', 'view', `view has ${keys.length} keys; at most ${LIMITS.viewKeys}`)] };
   const view: Record<string, ViewValue> = {};
@@ -179,7 +179,7 @@ export function validateSnapshots(v: unknown): { snapshots: Snapshot[]; errors: 
   const snapshots: Snapshot[] = [];
   v.forEach((raw, i) => {
     const path = `snapshots[${i}]`;
-    if (!isObj(raw)) {
+    if (!isPlainObject(raw)) {
       errors.push(coreError('schema', path, `${path}: must be an object, not ${typeName(raw)}`));
       return;
     }
@@ -188,7 +188,7 @@ export function validateSnapshots(v: unknown): { snapshots: Snapshot[]; errors: 
     const name = text(raw.name, `${path}.name`, LIMITS.name, errors);
     const takenAt = text(raw.takenAt, `${path}.takenAt`, 40, errors);
     if (!isIsoDate(raw.settlement)) errors.push(coreError('schema', `${path}.settlement`, `${path}.settlement: must be a date YYYY-MM-DD`));
-    if (raw.curve !== undefined && !isObj(raw.curve)) errors.push(coreError('schema', `${path}.curve`, `${path}.curve: must be an object of curve settings`));
+    if (raw.curve !== undefined && !isPlainObject(raw.curve)) errors.push(coreError('schema', `${path}.curve`, `${path}.curve: must be an object of curve settings`));
     if (!Array.isArray(raw.quotes) || raw.quotes.length > LIMITS.quotes) errors.push(coreError('schema', `${path}.quotes`, `${path}.quotes: must be a list of at most ${LIMITS.quotes} quotes`));
     const hash = raw.curveHash;
     if (hash !== null && !(typeof hash === 'string' && /^[0-9a-f]{1,32}$/.test(hash))) errors.push(coreError('schema', `${path}.curveHash`, `${path}.curveHash: must be a short hexadecimal hash or null`));

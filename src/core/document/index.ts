@@ -3,6 +3,7 @@
  * typed, the bridge between them, reserved keys, caps, file checks and migration.
  */
 export * from './types.ts';
+export * from './plainObject.ts';
 export * from './validate.ts';
 export * from './limits.ts';
 export * from './documentKeys.ts';

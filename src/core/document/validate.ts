@@ -9,6 +9,7 @@ import { formatTenor, parseTenor } from '../time/tenor.ts';
 import { listOf, typeName } from '../kinds/fields.ts';
 import { KIND_ALLOWED_FIELDS, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
+import { isPlainObject } from './plainObject.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
 export const WORKSPACE_VERSION = 1;
@@ -28,7 +29,6 @@ export interface ValidationOutcome {
   readonly errors: readonly CoreError[];
 }
 
-const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 /**
  * Validates a parsed workspace document (`{"format": "tenorscope-workspace", "version": 1, ...}`).

@@ -8,6 +8,7 @@ import { isQuoteUnitMode, QUOTE_UNIT_MODES, type QuoteUnitMode } from '../input/
 import { DECIMAL_MARKS, DEFAULT_CONVENTIONS, isDecimalMark, type DecimalMark, type InputConventions } from '../input/conventions.ts';
 import { DATE_ORDERS, isDateOrder, type DateOrder } from '../input/dateText.ts';
 import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssues, type RowParse } from '../input/quoteRow.ts';
+import { isPlainObject } from './plainObject.ts';
 
 export const WORKBENCH_FORMAT = 'tenorscope-workbench';
 export const WORKBENCH_VERSION = 1;
@@ -150,7 +151,6 @@ export function rowIssuesFromEngine(errors: readonly Pick<CoreError, 'path' | 'q
   return out;
 }
 
-const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const str = (v: unknown): string => (typeof v === 'string' ? v : typeof v === 'number' ? String(v) : '');
 const shown = (v: unknown): string => (typeof v === 'string' ? `"${v.slice(0, 40)}"` : v === null ? 'null' : Array.isArray(v) ? 'a list' : typeof v === 'object' ? 'an object' : String(v).slice(0, 40));
 
@@ -196,14 +196,14 @@ const SETTINGS: Readonly<Record<'curve' | 'display', Readonly<Record<string, { v
  * opened read-only, never with a substitute written back (see the store's read-only state).
  */
 export function unknownSettings(raw: unknown): UnknownSetting[] {
-  if (!isObj(raw)) return [];
+  if (!isPlainObject(raw)) return [];
   const out: UnknownSetting[] = [];
   if (raw.quoteUnit !== undefined && !isQuoteUnitMode(raw.quoteUnit)) {
     out.push({ path: 'quoteUnit', value: shown(raw.quoteUnit), supported: QUOTE_UNIT_MODES, fallback: 'percent', unknownName: false });
   }
   for (const group of ['curve', 'display'] as const) {
     const v = raw[group];
-    if (!isObj(v)) continue;
+    if (!isPlainObject(v)) continue;
     const known = SETTINGS[group];
     for (const [k, x] of Object.entries(v)) {
       const spec = known[k];
@@ -269,19 +269,19 @@ const listNumbers = (xs: readonly number[], max = 10): string => {
  * `makeId` supplies row ids for rows saved without one.
  */
 export function readWorkbenchDocument(raw: unknown, makeId: () => string, options: ReadWorkbenchOptions = {}): ReadWorkbench {
-  if (!isObj(raw)) return { doc: null, problem: 'the saved entry is not a workspace object', changes: [] };
+  if (!isPlainObject(raw)) return { doc: null, problem: 'the saved entry is not a workspace object', changes: [] };
   if (raw.format !== WORKBENCH_FORMAT) return { doc: null, problem: `the saved entry's format is ${JSON.stringify(raw.format)}, not "${WORKBENCH_FORMAT}"`, changes: [] };
   if (raw.version !== WORKBENCH_VERSION) return { doc: null, problem: `the saved entry is version ${JSON.stringify(raw.version)}; this build reads version ${WORKBENCH_VERSION}`, changes: [] };
   if (!Array.isArray(raw.quotes)) return { doc: null, problem: 'the saved entry has no quote list', changes: [] };
-  const curve = isObj(raw.curve) ? raw.curve : {};
-  const display = isObj(raw.display) ? raw.display : {};
+  const curve = isPlainObject(raw.curve) ? raw.curve : {};
+  const display = isPlainObject(raw.display) ? raw.display : {};
   const seen = new Set<string>();
   const notRows: number[] = [];
   const badCells: string[] = [];
   const badFlags: number[] = [];
   const quotes: QuoteRow[] = [];
   raw.quotes.forEach((q, i) => {
-    if (!isObj(q)) {
+    if (!isPlainObject(q)) {
       notRows.push(i);
       return;
     }

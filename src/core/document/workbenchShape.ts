@@ -3,8 +3,8 @@ import { readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, type Workben
 import { coreError, type CoreError } from '../result.ts';
 import { RESERVED_KEYS } from './validate.ts';
 import { LIMITS } from './limits.ts';
+import { isPlainObject } from './plainObject.ts';
 
-const isObj = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', ...RESERVED_KEYS];
 const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
 /** Characters of one typed cell or row id (LIMITS.cell). */
@@ -12,7 +12,7 @@ export const CELL_MAX = LIMITS.cell;
 
 const shortText = (v: unknown, max: number = CELL_MAX): boolean => typeof v === 'string' && v.length <= max;
 const flatSettings = (v: unknown): boolean =>
-  isObj(v) && Object.keys(v).length <= 20 && Object.values(v).every((x) => shortText(x, LIMITS.setting) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x)));
+  isPlainObject(v) && Object.keys(v).length <= 20 && Object.values(v).every((x) => shortText(x, LIMITS.setting) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x)));
 
 /**
  * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
@@ -34,7 +34,7 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   else {
     raw.quotes.forEach((row, i) => {
       const path = `quotes[${i}]`;
-      if (!isObj(row)) {
+      if (!isPlainObject(row)) {
         errors.push(coreError('schema', path, `${path}: must be a row object`, i));
         return;
       }

@@ -1,6 +1,6 @@
 import { quoteYieldOf, type QuoteYield } from '../analytics/quoteYield.ts';
 import { compileQuote } from '../bootstrap/build.ts';
-import type { Curve, Pillar } from '../curve/curve.ts';
+import { curveFromLnDiscount, type Curve, type Pillar } from '../curve/curve.ts';
 import { presentValue, type Instrument } from '../instruments/instrument.ts';
 import { kindModule, moduleOf } from '../kinds/registry.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
@@ -138,22 +138,13 @@ function parametricCurve(ws: Workspace, p: ParametricParams, obs: readonly Obser
     if (prev && prev.t === o.ins.t) continue;
     pillars.push({ date: o.ins.maturity, t: o.ins.t, discount: Math.exp(ln(o.ins.t)), quote: o.ins.index });
   }
-  const lastT = pillars[pillars.length - 1]?.t ?? 0;
-  const lastLn = ln(lastT);
-  const lastF = parametricForward(p, lastT);
-  return {
-    settlement: ws.settlement,
-    dayCount: ws.curve.dayCount,
-    interpolation: ws.curve.interpolation,
-    extrapolation: ws.curve.extrapolation,
-    pillars,
-    lastT,
-    lnDiscountAt: (t) => (t <= lastT ? ln(t) : lastLn - lastF * (t - lastT)),
-    forwardAt: (t) => parametricForward(p, Math.min(t, lastT)),
-    time: (date) => curveTime(ws.curve.dayCount, ws.settlement, date),
-  };
+  const { settlement, curve } = ws;
+  return curveFromLnDiscount(
+    { settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation, pillars, time: (date) => curveTime(curve.dayCount, settlement, date) },
+    { lnDiscount: ln, forward: (t) => parametricForward(p, t) },
+    'flat-forward',
+  );
 }
-
 
 /** The fitted-measure residual of one observation (decimal yield), NaN when the model has none. */
 function fittedResidual(o: Observation, errors: FitErrors, ln: (t: number) => number): number {

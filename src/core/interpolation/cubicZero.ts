@@ -1,10 +1,5 @@
 import { copyNodes, segmentIndex, zeros, type Interpolation } from './types.ts';
 
-// Performance: module-local bindings and a module-level helper (see types.ts, "hot paths").
-const findSegment = segmentIndex;
-const copy = copyNodes;
-const zeroArray = zeros;
-
 /**
  * z and z' at x on segment i, written into `out`: with h = t_i - t_(i-1), a = (t_i - x)/h,
  * b = (x - t_(i-1))/h, z = a z_(i-1) + b z_i + ((a^3 - a) M_(i-1) + (b^3 - b) M_i) h^2 / 6.
@@ -27,16 +22,16 @@ function splineAt(t: readonly number[], z: readonly number[], M: readonly number
  */
 export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
   const n = (count ?? ts.length) - 1;
-  const t = copy(ts, n + 1);
-  const z = zeroArray(n + 1);
+  const t = copyNodes(ts, n + 1);
+  const z = zeros(n + 1);
   for (let i = 1; i <= n; i++) z[i] = -lnDfs[i]! / t[i]!;
   z[0] = z[1]!;
   // Second derivatives M_0 = M_n = 0; Thomas algorithm on the interior equations
   // h_(i-1) M_(i-1) + 2 (h_(i-1) + h_i) M_i + h_i M_(i+1) = 6 [(z_(i+1)-z_i)/h_i - (z_i-z_(i-1))/h_(i-1)].
-  const M = zeroArray(n + 1);
+  const M = zeros(n + 1);
   if (n >= 2) {
-    const c = zeroArray(n + 1);
-    const d = zeroArray(n + 1);
+    const c = zeros(n + 1);
+    const d = zeros(n + 1);
     for (let i = 1; i < n; i++) {
       const h0 = t[i]! - t[i - 1]!;
       const h1 = t[i + 1]! - t[i]!;
@@ -55,10 +50,10 @@ export function interpolatorCubicZero(ts: ArrayLike<number>, lnDfs: ArrayLike<nu
         const p = splineAt(t, z, M, t[n]!, n, pair);
         return -(p[0] + p[1] * (x - t[n]!)) * x; // only at x = t_n in normal use
       }
-      return -splineAt(t, z, M, x, findSegment(t, n, x), pair)[0] * x;
+      return -splineAt(t, z, M, x, segmentIndex(t, n, x), pair)[0] * x;
     },
     forward(x) {
-      const p = splineAt(t, z, M, x, Math.min(findSegment(t, n, x), n), pair);
+      const p = splineAt(t, z, M, x, Math.min(segmentIndex(t, n, x), n), pair);
       return p[0] + x * p[1];
     },
   };

@@ -1,10 +1,5 @@
 import { copyNodes, segmentIndex, segmentNear, type Interpolation } from './types.ts';
 
-// Performance: module-local bindings and module-level helpers, so that no function object is
-// created per build and no imported binding is looked up per evaluation (see types.ts, "hot paths").
-const findSegment = segmentIndex;
-const huntSegment = segmentNear;
-const copy = copyNodes;
 /** Continuously compounded zero at node i (node 0 takes node 1's: flat before the first pillar). */
 const zeroOf = (t: ArrayLike<number>, y: ArrayLike<number>, i: number): number => -y[i === 0 ? 1 : i]! / t[i === 0 ? 1 : i]!;
 /** Slope of z on segment i (0 on the first segment). */
@@ -22,7 +17,6 @@ export function linearZeroSegmentLn(t: ArrayLike<number>, y: ArrayLike<number>, 
   // At the segment's left node, that node's own value (not -z x, which may differ by an ulp).
   return x === t[i - 1]! ? y[i - 1]! : -zeroAt(t, y, x, i) * x;
 }
-const segmentLn = linearZeroSegmentLn;
 
 /**
  * `linear-zero`: the continuously compounded zero rate z(t) = -lnDF(t)/t is linear in t between
@@ -30,18 +24,18 @@ const segmentLn = linearZeroSegmentLn;
  */
 export function interpolatorLinearZero(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
   const n = (count ?? ts.length) - 1;
-  const t = copy(ts, n + 1);
-  const y = copy(lnDfs, n + 1);
+  const t = copyNodes(ts, n + 1);
+  const y = copyNodes(lnDfs, n + 1);
   let hint = 1; // the segment of the last lookup (see segmentNear)
   return {
     lnDiscount(x) {
       if (x === t[n]!) return y[n]!;
       if (x > t[n]!) return n === 0 ? 0 : -(zeroOf(t, y, n) + slopeOf(t, y, n) * (x - t[n]!)) * x;
-      hint = huntSegment(t, n, x, hint);
-      return segmentLn(t, y, n, hint, x);
+      hint = segmentNear(t, n, x, hint);
+      return linearZeroSegmentLn(t, y, n, hint, x);
     },
     forward(x) {
-      const i = Math.min(findSegment(t, n, x), n);
+      const i = Math.min(segmentIndex(t, n, x), n);
       return zeroAt(t, y, x, i) + x * slopeOf(t, y, i);
     },
   };

@@ -1,10 +1,5 @@
 import { copyNodes, segmentIndex, segmentNear, type Interpolation } from './types.ts';
 
-// Performance: module-local bindings and module-level helpers, so that no function object is
-// created per build and no imported binding is looked up per evaluation (see types.ts, "hot paths").
-const findSegment = segmentIndex;
-const huntSegment = segmentNear;
-const copy = copyNodes;
 /** The discrete forward of segment i, d_i = -(y_i - y_(i-1)) / (t_i - t_(i-1)). */
 const discrete = (t: ArrayLike<number>, y: ArrayLike<number>, i: number): number => -(y[i]! - y[i - 1]!) / (t[i]! - t[i - 1]!);
 
@@ -16,7 +11,6 @@ const discrete = (t: ArrayLike<number>, y: ArrayLike<number>, i: number): number
 export function logLinearSegmentLn(t: ArrayLike<number>, y: ArrayLike<number>, _n: number, i: number, x: number): number {
   return y[i - 1]! - discrete(t, y, i) * (x - t[i - 1]!);
 }
-const segmentLn = logLinearSegmentLn;
 
 /**
  * `log-linear-discount`: ln DF linear in t between nodes, DF(0) = 1; the instantaneous forward is
@@ -25,17 +19,17 @@ const segmentLn = logLinearSegmentLn;
  */
 export function interpolatorLogLinearDiscount(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
   const n = (count ?? ts.length) - 1;
-  const t = copy(ts, n + 1);
-  const y = copy(lnDfs, n + 1);
+  const t = copyNodes(ts, n + 1);
+  const y = copyNodes(lnDfs, n + 1);
   let hint = 1; // the segment of the last lookup (see segmentNear)
   return {
     lnDiscount(x) {
       if (x >= t[n]!) return y[n]! - discrete(t, y, n) * (x - t[n]!);
-      hint = huntSegment(t, n, x, hint);
-      return segmentLn(t, y, n, hint, x);
+      hint = segmentNear(t, n, x, hint);
+      return logLinearSegmentLn(t, y, n, hint, x);
     },
     forward(x) {
-      return discrete(t, y, findSegment(t, n, x));
+      return discrete(t, y, segmentIndex(t, n, x));
     },
   };
 }

@@ -1,10 +1,5 @@
 import { copyNodes, segmentIndex, segmentNear, zeros, type Interpolation } from './types.ts';
 
-// Performance: module-local bindings and module-level helpers (see types.ts, "hot paths").
-const findSegment = segmentIndex;
-const huntSegment = segmentNear;
-const copy = copyNodes;
-const zeroArray = zeros;
 /** The positivity collar: v bounded to [0, max(hi, 0)]. */
 const collar = (v: number, hi: number): number => Math.min(Math.max(v, 0), Math.max(hi, 0));
 
@@ -73,11 +68,11 @@ function segmentShape(g0: number, g1: number, x: number, pair: [number, number])
 export function monotoneConvexFactory(positive: boolean) {
   return function interpolatorMonotoneConvex(ts: ArrayLike<number>, lnDfs: ArrayLike<number>, count?: number): Interpolation {
     const n = (count ?? ts.length) - 1;
-    const t = copy(ts, n + 1);
-    const y = copy(lnDfs, n + 1);
-    const d = zeroArray(n + 1); // d[i] for segment i, 1..n
+    const t = copyNodes(ts, n + 1);
+    const y = copyNodes(lnDfs, n + 1);
+    const d = zeros(n + 1); // d[i] for segment i, 1..n
     for (let i = 1; i <= n; i++) d[i] = discreteAt(t, y, i);
-    const f = zeroArray(n + 1);
+    const f = zeros(n + 1);
     for (let i = 0; i <= n; i++) f[i] = nodeForward(t, y, n, i, positive);
     // A reused pair: no array is allocated per evaluation; callers read it at once.
     const pair: [number, number] = [0, 0];
@@ -86,12 +81,12 @@ export function monotoneConvexFactory(positive: boolean) {
     return {
       lnDiscount(x) {
         if (x >= t[n]!) return y[n]! - f[n]! * (x - t[n]!);
-        hint = huntSegment(t, n, x, hint);
+        hint = segmentNear(t, n, x, hint);
         return segmentLnFrom(t, y, hint, x, d[hint]!, f[hint - 1]!, f[hint]!, pair);
       },
       forward(x) {
         if (x >= t[n]!) return f[n]!;
-        const i = findSegment(t, n, x);
+        const i = segmentIndex(t, n, x);
         const u = (x - t[i - 1]!) / (t[i]! - t[i - 1]!);
         return d[i]! + segmentShape(f[i - 1]! - d[i]!, f[i]! - d[i]!, u, pair)[0];
       },

@@ -82,20 +82,10 @@ export function segmentNear(ts: ArrayLike<number>, n: number, t: number, hint: n
   return segmentIndex(ts, n, t);
 }
 
-/*
- * Hot paths. The interpolations are built once or twice per node solve in the bootstrap and
- * evaluated for every cash flow, so their files avoid two costs that the command-line runner's
- * TypeScript transform (tsx: CommonJS output with keepNames) adds to otherwise cheap code: a
- * property lookup for every call of an imported function (so they bind it to a module-local
- * constant once) and a name-setting call for every closure created (so their helpers live at
- * module level and take the arrays as arguments).
- */
-
 /**
- * A private copy of node values. Performance: a plain array of doubles, not a Float64Array:
- * allocating a small typed array costs several hundred nanoseconds in Node 20 (measured), against
- * under a hundred for a plain array, and interpolations are built once or twice per node solve
- * in the bootstrap, so the copy is on the hot path. The values stay float64 either way.
+ * A private copy of node values, as a plain array of doubles rather than a Float64Array: a small
+ * typed array costs several times as much to allocate in Node, and interpolations are built once
+ * or twice per node solve in the bootstrap. The values stay float64 either way.
  */
 export function copyNodes(xs: ArrayLike<number>, n: number = xs.length): number[] {
   const out = new Array<number>(n);

@@ -1,7 +1,10 @@
+import { SINGULAR_PIVOT } from './tolerance.ts';
+
 /**
  * LU decomposition with partial pivoting of a square matrix (row-major, n x n), PA = LU, and the
  * solves that use it. Doolittle form, as in Golub and Van Loan, "Matrix Computations", section
- * 3.4 (Gaussian elimination with partial pivoting; cited from memory).
+ * 3.4 (Gaussian elimination with partial pivoting; cited from memory). The engine's one Gaussian
+ * elimination: the bootstrap's joint Newton step and the forward-rate sensitivities both use it.
  */
 export interface LuFactors {
   readonly n: number;
@@ -11,9 +14,18 @@ export interface LuFactors {
   readonly perm: Int32Array;
 }
 
-/** Factors A; null when a pivot is exactly zero or not finite (A singular to working precision). */
+/**
+ * Factors A; null when A is singular to working precision: an entry is not finite, A is zero, or
+ * a pivot (the largest candidate in its column) is at most SINGULAR_PIVOT times the largest
+ * |entry| of A. Below that the pivot is of the size of the rounding error the elimination has
+ * already made in it (about n eps max|A|), so the solution would be noise.
+ */
 export function luFactor(a: ArrayLike<number>, n: number): LuFactors | null {
   const lu = Float64Array.from(a);
+  let scale = 0;
+  for (let i = 0; i < n * n; i++) scale = Math.max(scale, Math.abs(lu[i]!));
+  if (!(scale > 0) || !Number.isFinite(scale)) return null;
+  const minPivot = SINGULAR_PIVOT * scale;
   const perm = new Int32Array(n);
   for (let i = 0; i < n; i++) perm[i] = i;
   for (let k = 0; k < n; k++) {
@@ -26,7 +38,7 @@ export function luFactor(a: ArrayLike<number>, n: number): LuFactors | null {
         p = i;
       }
     }
-    if (!(best > 0) || !Number.isFinite(best)) return null;
+    if (!(best > minPivot)) return null;
     if (p !== k) {
       for (let j = 0; j < n; j++) {
         const tmp = lu[k * n + j]!;

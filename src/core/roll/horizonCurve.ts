@@ -1,4 +1,4 @@
-import type { Curve, Pillar } from '../curve/curve.ts';
+import { curveFromLnDiscount, frameOf, type Curve, type Pillar } from '../curve/curve.ts';
 import { addDays, daysBetween, type IsoDate } from '../time/date.ts';
 
 /**
@@ -25,17 +25,7 @@ export function curveSeenAtHorizon(base: Curve, horizon: IsoDate): Curve {
   const { time } = movedClock(base, horizon);
   const days = daysBetween(base.settlement, horizon);
   const pillars: Pillar[] = base.pillars.map((p) => ({ ...p, date: addDays(p.date, days) }));
-  return {
-    settlement: horizon,
-    dayCount: base.dayCount,
-    interpolation: base.interpolation,
-    extrapolation: base.extrapolation,
-    pillars,
-    lastT: base.lastT,
-    lnDiscountAt: (t) => base.lnDiscountAt(t),
-    forwardAt: (t) => base.forwardAt(t),
-    time,
-  };
+  return curveFromLnDiscount({ ...frameOf(base), settlement: horizon, pillars, time }, { lnDiscount: (t) => base.lnDiscountAt(t), forward: (t) => base.forwardAt(t) }, 'as-given');
 }
 
 /**
@@ -47,17 +37,11 @@ export function impliedCurveAtHorizon(base: Curve, horizon: IsoDate): Curve {
   const { tH, time } = movedClock(base, horizon);
   const lnH = tH <= 0 ? 0 : base.lnDiscountAt(tH);
   const pillars: Pillar[] = base.pillars.filter((p) => p.t > tH).map((p) => ({ ...p, t: p.t - tH, discount: Math.exp(Math.log(p.discount) - lnH) }));
-  return {
-    settlement: horizon,
-    dayCount: base.dayCount,
-    interpolation: base.interpolation,
-    extrapolation: base.extrapolation,
-    pillars,
-    lastT: Math.max(0, base.lastT - tH),
-    lnDiscountAt: (tau) => base.lnDiscountAt(tH + tau) - lnH,
-    forwardAt: (tau) => base.forwardAt(tH + tau),
-    time,
-  };
+  return curveFromLnDiscount(
+    { ...frameOf(base), settlement: horizon, pillars, lastT: Math.max(0, base.lastT - tH), time },
+    { lnDiscount: (tau) => base.lnDiscountAt(tH + tau) - lnH, forward: (tau) => base.forwardAt(tH + tau) },
+    'as-given',
+  );
 }
 
 /**
@@ -68,11 +52,9 @@ export function impliedCurveAtHorizon(base: Curve, horizon: IsoDate): Curve {
 export function shiftedCurve(base: Curve, shiftBp: number): Curve {
   const s = shiftBp / 10000;
   if (s === 0) return base;
-  return {
-    ...base,
-    pillars: base.pillars.map((p) => ({ ...p, discount: p.discount * Math.exp(-s * p.t) })),
-    lnDiscountAt: (t) => base.lnDiscountAt(t) - s * t,
-    forwardAt: (t) => base.forwardAt(t) + s,
-    time: base.time,
-  };
+  return curveFromLnDiscount(
+    { ...frameOf(base), pillars: base.pillars.map((p) => ({ ...p, discount: p.discount * Math.exp(-s * p.t) })) },
+    { lnDiscount: (t) => base.lnDiscountAt(t) - s * t, forward: (t) => base.forwardAt(t) + s },
+    'as-given',
+  );
 }

@@ -3,6 +3,7 @@ import { isIsoDate } from '../time/date.ts';
 import { CURVE_DAY_COUNTS, isCurveDayCount, type CurveDayCount } from '../time/dayCount.ts';
 import { parseTenor } from '../time/tenor.ts';
 import { MoneyDecimal, parseMoney } from './strategyMoney.ts';
+import { isPlainObject } from '../document/plainObject.ts';
 
 /**
  * Inputs of the roll-versus-term analysis, kept in the workspace document under the top-level
@@ -106,7 +107,6 @@ export const MAX_TYPED_LEGS = 400;
 const STRATEGY_KEYS = ['amount', 'horizon', 'rollTenor', 'rollDayCount', 'bondFrequency', 'ridingMaturity', 'ridingFrequency', 'view', 'path', 'shiftBp', 'currency'];
 const PATH_KEYS = ['fill', 'constant', 'rampFrom', 'rampTo', 'legs'];
 
-const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const show = (v: unknown): string =>
   v === null ? 'null' : Array.isArray(v) ? 'an array' : typeof v === 'string' ? `"${v.slice(0, 40)}"` : typeof v === 'object' ? 'an object' : String(v);
 

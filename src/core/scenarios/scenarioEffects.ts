@@ -7,8 +7,11 @@ import { marketDate } from '../time/dateConventions.ts';
 import { parseTenor } from '../time/tenor.ts';
 import { shiftAt, type ResolvedShift } from './scenarioShape.ts';
 
-/** Key maturities shown by default in tables (tenors from settlement). Common practice. */
-export const KEY_TENORS = ['3M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'] as const;
+/**
+ * Maturities at which two curves are compared by default (tenors from settlement): scenario
+ * effects, snapshot comparisons and the printed key rows. Common practice.
+ */
+export const COMPARISON_TENORS = ['3M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'] as const;
 
 export interface EffectConventions {
   /** Zero rates are compared in this compounding and day count. */

@@ -1,4 +1,4 @@
-import type { Curve } from '../curve/curve.ts';
+import { curveFromLnDiscount, frameOf, type Curve } from '../curve/curve.ts';
 import { shiftAt, shiftSlopeAt, type ResolvedShift } from './scenarioShape.ts';
 
 const BP = 1e-4;
@@ -13,15 +13,12 @@ const BP = 1e-4;
  */
 export function shiftZeroCurve(base: Curve, shift: ResolvedShift): Curve {
   const d = (t: number): number => shiftAt(shift, t) * BP;
-  return {
-    settlement: base.settlement,
-    dayCount: base.dayCount,
-    interpolation: base.interpolation,
-    extrapolation: base.extrapolation,
-    lastT: base.lastT,
-    pillars: base.pillars.map((p) => ({ ...p, discount: p.discount * Math.exp(-d(p.t) * p.t) })),
-    lnDiscountAt: (t) => base.lnDiscountAt(t) - d(t) * t,
-    forwardAt: (t) => base.forwardAt(t) + d(t) + shiftSlopeAt(shift, t) * BP * t,
-    time: (date) => base.time(date),
-  };
+  return curveFromLnDiscount(
+    { ...frameOf(base), pillars: base.pillars.map((p) => ({ ...p, discount: p.discount * Math.exp(-d(p.t) * p.t) })) },
+    {
+      lnDiscount: (t) => base.lnDiscountAt(t) - d(t) * t,
+      forward: (t) => base.forwardAt(t) + d(t) + shiftSlopeAt(shift, t) * BP * t,
+    },
+    'as-given',
+  );
 }

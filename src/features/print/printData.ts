@@ -1,11 +1,11 @@
-import { applyScenario, KEY_TENORS, scenarioEffects, type Scenario } from '../../core/index.ts';
+import { applyScenario, COMPARISON_TENORS, scenarioEffects, type Scenario } from '../../core/index.ts';
 import { curveTable, type CurveTableConventions, type CurveTableRow } from '../../core/index.ts';
 import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from '../scenarios/describeShape.ts';
 import type { PrintScenario } from './PrintSummary.tsx';
 
 /** Key-maturity rows for the page, from the core's curve table. */
-export const printKeyRows = (curve: Curve, conv: CurveTableConventions, tenors: readonly string[] = KEY_TENORS): CurveTableRow[] => curveTable(curve, conv, tenors);
+export const printKeyRows = (curve: Curve, conv: CurveTableConventions, tenors: readonly string[] = COMPARISON_TENORS): CurveTableRow[] => curveTable(curve, conv, tenors);
 
 /** Conventions line of the scenario table. */
 export const scenarioConventionsText = (conv: CurveTableConventions): string =>
@@ -15,7 +15,7 @@ export const scenarioConventionsText = (conv: CurveTableConventions): string =>
  * The scenarios as printed: each applied by the core (applyScenario) and its changes at the key
  * maturities (scenarioEffects). Only the first `limit` are computed; the rest are listed by count.
  */
-export function printScenarios(scenarios: readonly Scenario[], ws: Workspace, base: Curve, conv: CurveTableConventions, options: BuildOptions = {}, tenors: readonly string[] = KEY_TENORS, limit = 4): PrintScenario[] {
+export function printScenarios(scenarios: readonly Scenario[], ws: Workspace, base: Curve, conv: CurveTableConventions, options: BuildOptions = {}, tenors: readonly string[] = COMPARISON_TENORS, limit = 4): PrintScenario[] {
   return scenarios.map((s, i) => {
     const common = { name: s.name, shape: describeShape(s.shape), space: SPACE_LABEL[s.space] };
     if (i >= limit) return { ...common, rows: null };

@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { applyScenario, KEY_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/index.ts';
+import { applyScenario, COMPARISON_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
 import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from './describeShape.ts';
@@ -25,7 +25,7 @@ export const effectConventionsText = (c: EffectConventions): string =>
   `zero ${COMPOUNDING_LABEL[c.zeroCompounding]}, ${c.zeroDayCount}; forward ${c.forwardTenor} ${COMPOUNDING_LABEL[c.forwardCompounding]}, ${c.forwardDayCount}`;
 
 /** Scenarios: the list with each shape beside its effect on forwards, a form to add one, and the table of changes. */
-export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = KEY_TENORS }: ScenarioPanelProps) {
+export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = COMPARISON_TENORS }: ScenarioPanelProps) {
   const { scenarios, errors } = useMemo(() => validateScenarios(value), [value]);
   const applied = useMemo(
     () =>

@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { compareCurves, KEY_TENORS, rebuildSnapshot, takeSnapshot, type CompareBy, type Snapshot } from '../../core/index.ts';
+import { compareCurves, COMPARISON_TENORS, rebuildSnapshot, takeSnapshot, type CompareBy, type Snapshot } from '../../core/index.ts';
 import { validateSnapshots } from '../../core/index.ts';
 import { COMPOUNDING_LABEL, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
 import { formatBp, formatPct } from '../scenarios/formatChange.ts';
@@ -23,7 +23,7 @@ export interface SnapshotPanelProps {
 }
 
 /** Snapshots: freeze the inputs under a name, rebuild them, and difference the current curve against one. */
-export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = KEY_TENORS, by: byProp, onByChange }: SnapshotPanelProps) {
+export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = COMPARISON_TENORS, by: byProp, onByChange }: SnapshotPanelProps) {
   const { snapshots, errors } = useMemo(() => validateSnapshots(value), [value]);
   const [name, setName] = useState('');
   const [chosen, setChosen] = useState(0);

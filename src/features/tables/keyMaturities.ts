@@ -1,7 +1,5 @@
-import { discountOn, forwardOn, marketDate, parseTenor, parYieldOn, zeroOn, type Curve } from '../../core/index.ts';
+import { DEFAULT_KEY_TENORS, discountOn, forwardOn, marketDate, parseTenor, parYieldOn, zeroOn, type Curve } from '../../core/index.ts';
 import type { DisplaySettings } from '../../core/index.ts';
-
-export const KEY_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'] as const;
 
 export interface KeyMaturityRow {
   readonly tenor: string;
@@ -19,7 +17,7 @@ export interface KeyMaturityRow {
 /** The key-maturity table, every value read from the core's queries. */
 export function keyMaturityRows(curve: Curve, display: DisplaySettings): KeyMaturityRow[] {
   const fwdTenor = parseTenor(display.forwardTenor)!;
-  return KEY_TENORS.map((tenor) => {
+  return DEFAULT_KEY_TENORS.map((tenor) => {
     const date = marketDate(curve.settlement, parseTenor(tenor)!);
     const d = discountOn(curve, date);
     const z = zeroOn(curve, date, display.compounding, display.dayCount);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildCurve, INTERPOLATIONS } from '../../../src/core/index.ts';
-import { solveLinear } from '../../../src/core/numeric/linearSolve.ts';
+import { luFactor, luSolve } from '../../../src/core/numeric/luDecomposition.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 // Regression: a market the property tests found (invented data, flat 7 %), where a quarterly
@@ -39,14 +39,21 @@ describe('bootstrap acceptance on a market with two pillars 34 days apart', () =
   }
 });
 
-describe('solveLinear (Gaussian elimination with partial pivoting)', () => {
+describe('luFactor and luSolve (Gaussian elimination with partial pivoting)', () => {
   it('solves a system that needs a row swap, and refuses a singular one', () => {
     // [0 2 1; 1 1 1; 2 1 3] x = [5, 6, 13]: the first pivot is 0, so a row swap is needed.
     const a = Float64Array.from([0, 2, 1, 1, 1, 1, 2, 1, 3]);
-    const x = solveLinear(a.slice(), Float64Array.from([5, 6, 13]), 3)!;
+    const x = luSolve(luFactor(a, 3)!, Float64Array.from([5, 6, 13]));
     const A = [0, 2, 1, 1, 1, 1, 2, 1, 3];
     for (let r = 0; r < 3; r++) expectClose(A[3 * r]! * x[0]! + A[3 * r + 1]! * x[1]! + A[3 * r + 2]! * x[2]!, [5, 6, 13][r]!, 1e-14, 'substitution back into the system');
-    expect(solveLinear(Float64Array.from([1, 2, 2, 4]), Float64Array.from([1, 2]), 2)).toBeNull();
+    expect(luFactor(Float64Array.from([1, 2, 2, 4]), 2)).toBeNull();
+    // Singular to working precision: [1 1; 1 1+1e-15] leaves the second pivot 1.1e-15, below
+    // SINGULAR_PIVOT = 1e-14 times the largest entry (hand calculation).
+    expect(luFactor(Float64Array.from([1, 1, 1, 1 + 1e-15]), 2)).toBeNull();
+    // The test is relative: 1e-20 times the identity is perfectly conditioned (hand calculation: x = b / 1e-20).
+    const tiny = luFactor(Float64Array.from([1e-20, 0, 0, 1e-20]), 2);
+    expect(tiny).not.toBeNull();
+    expectClose(luSolve(tiny!, [3e-20, 4e-20])[1]!, 4, 1e-15, 'hand calculation: 4e-20 / 1e-20');
   });
 });
 
@@ -100,6 +107,46 @@ describe('bootstrapInstruments without a segment formula (the generic solve a ne
       for (let i = 0; i <= 300; i++) {
         const t = (last * i) / 300;
         expectClose(fast.curve!.lnDiscountAt(t), slow.curve!.lnDiscountAt(t), 1e-13 * Math.max(1, Math.abs(slow.curve!.lnDiscountAt(t))), `${id}: ln DF at t = ${t}, segment solve against generic solve`);
+      }
+    }
+  });
+});
+
+describe('the three node solvers find the same nodes (segment formula, affine two-build, rebuild)', () => {
+  // nodeSolverFor picks one solver per method and stage; with the method's segmentLn and affine
+  // flags taken away the bootstrap falls back to the next one. All three solve the same equation
+  // (the instrument's present value equals its target) for the same node, so the curves must
+  // agree to the solver tolerance: 1e-13 relative in ln DF, as above. Invented market40 fixture.
+  it('log-linear-discount, cubic-zero and monotone-convex give one curve with every solver they can use', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { validateWorkspace, compileMarket, bootstrapInstruments, INTERPOLATORS } = await import('../../../src/core/index.ts');
+    const doc = JSON.parse(readFileSync(new URL('../../fixtures/market40/market40.json', import.meta.url), 'utf8'));
+    const ws = validateWorkspace(doc).workspace!;
+    const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false);
+    const registry = INTERPOLATORS as Record<string, (typeof INTERPOLATORS)['monotone-convex']>;
+    const variants = { 'log-linear-discount': [['segmentLn'], ['segmentLn', 'affine']], 'cubic-zero': [['affine']], 'monotone-convex': [['segmentLn']] } as const;
+    for (const [id, drops] of Object.entries(variants) as [keyof typeof variants, readonly (readonly ('segmentLn' | 'affine')[])[]][]) {
+      const settings = { settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation: id, extrapolation: 'none' as const };
+      const reference = bootstrapInstruments(settings, market.instruments);
+      expect(reference.errors).toEqual([]);
+      for (const drop of drops) {
+        const spec = registry[id]!;
+        const reduced: Record<string, unknown> = { ...spec };
+        for (const key of drop) delete reduced[key];
+        registry[id] = reduced as unknown as typeof spec;
+        let other;
+        try {
+          other = bootstrapInstruments(settings, market.instruments);
+        } finally {
+          registry[id] = spec;
+        }
+        expect(other.errors, `${id} without ${drop.join(', ')}`).toEqual([]);
+        const last = reference.curve!.lastT;
+        for (let i = 0; i <= 200; i++) {
+          const t = (last * i) / 200;
+          const want = reference.curve!.lnDiscountAt(t);
+          expectClose(other.curve!.lnDiscountAt(t), want, 1e-13 * Math.max(1, Math.abs(want)), `${id} without ${drop.join(', ')}: ln DF at t = ${t}, same root as the method's own solver`);
+        }
       }
     }
   });
