@@ -1,7 +1,8 @@
 import { billDiscountYieldFromPrice, billPriceFromDiscountYield } from '../instruments/bill.ts';
 import { bondDirtyFromYield, bondSchedule, bondYieldFromDirty } from '../instruments/bond.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { COMPOUNDING_LABEL, lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts';
+import { lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts';
+import { couponTag, rateTag } from '../format/conventionTag.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import { daysBetween, type IsoDate } from '../time/date.ts';
 
@@ -23,22 +24,20 @@ export interface QuoteYield {
 
 const IDENTITY = (label: string): QuoteYield => ({ toYield: (v) => v, fromYield: (y) => y, label });
 
-const PER_YEAR: Readonly<Record<number, string>> = { 1: 'ann', 2: 's.a.', 4: 'qtr', 12: 'mthly' };
-
 /** The name and convention of a quote's own yield, e.g. "swap rate (ann, 30/360)". */
 export function quoteYieldLabel(ins: Instrument): string {
   const q = ins.quote;
   switch (q.kind) {
     case 'deposit':
-      return `deposit rate (simple, ${q.dayCount})`;
+      return `deposit rate (${rateTag('simple', q.dayCount)})`;
     case 'bill':
       return 'discount yield (ACT/360)';
     case 'zero':
-      return `zero rate (${COMPOUNDING_LABEL[q.compounding]}, ${q.dayCount})`;
+      return `zero rate (${rateTag(q.compounding, q.dayCount)})`;
     case 'bond':
-      return `ICMA yield (${PER_YEAR[q.frequency] ?? `${q.frequency}/yr`}, ${q.dayCount})`;
+      return `ICMA yield (${couponTag(q.frequency, q.dayCount)})`;
     case 'swap':
-      return `swap rate (${PER_YEAR[q.frequency] ?? `${q.frequency}/yr`}, ${q.dayCount})`;
+      return `swap rate (${couponTag(q.frequency, q.dayCount)})`;
   }
 }
 

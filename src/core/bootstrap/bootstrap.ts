@@ -7,6 +7,8 @@ import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { solveNode } from './solve.ts';
+import { formatRate } from '../format/quantities.ts';
+import { rateTag } from '../format/conventionTag.ts';
 import { solveLinear } from '../numeric/linearSolve.ts';
 
 // Performance: a module-local binding (see interpolation/types.ts, "hot paths").
@@ -44,8 +46,6 @@ export interface BootstrapSettings {
 }
 
 export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? PRICE_ACCEPTANCE : RATE_ACCEPTANCE);
-
-const pct = (x: number): string => `${(100 * x).toFixed(4)}%`;
 
 /**
  * Bootstraps a curve through instruments that are already sorted by pillar time, strictly
@@ -384,7 +384,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
     if (d >= 0) continue;
     const ins = instruments[k - 1]!;
     const from = k === 1 ? settings.settlement : instruments[k - 2]!.maturity;
-    const what = `the forward from ${from} to ${ins.maturity} is ${pct(d)} (cont, ${settings.dayCount})`;
+    const what = `the forward from ${from} to ${ins.maturity} is ${formatRate(d, rateTag('continuous', settings.dayCount))}`;
     if (settings.interpolation === 'monotone-convex-positive') {
       errors.push(
         coreError('no-solution', `quotes[${ins.index}]`, `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): monotone-convex-positive needs positive forwards, but ${what}; use monotone-convex for a market with negative forwards`, ins.index),
