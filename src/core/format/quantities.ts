@@ -26,7 +26,10 @@ import { decimalFigure, figure, NO_VALUE } from './numberText.ts';
  * | change in money                    | formatMoneySigned    | decimal.js     | +1,234.56           | 2        |
  * | date                               | formatDate           | ISO / serial   | 2026-12-02          | -        |
  * | any other figure (discount factor, | formatNumber         | its own unit   | 0.98765432          | the      |
- * |   year fraction, duration)         |                      |                |                     | caller's |
+ * |   year fraction, duration, size)   |                      |                |                     | caller's |
+ * | count (rows, characters, quotes)   | formatCount          | whole number   | 12,345              | 0        |
+ * | percent on a chart axis            | formatAxisPercent    | decimal / year | 4.5%                | the axis |
+ * |                                    |                      |                |                     | step's   |
  *
  * Money is rounded in decimal.js from its exact decimal value (a person checks its digits); every
  * other figure from the double's shortest text, which is exact for what JavaScript prints.
@@ -45,8 +48,14 @@ export const QUANTITY_DECIMALS = {
 /** A decimal rate in percent, 4 decimals: 0.0425 -> "4.2500%", -0.001 -> "−0.1000%". */
 export const formatPercent = (r: number | null | undefined): string => percent(r, QUANTITY_DECIMALS.rate);
 
-/** A decimal rate with its convention tag: formatRate(0.0425, 'cont, ACT/365F') = "4.2500% (cont, ACT/365F)". */
-export const formatRate = (r: number | null | undefined, tag: string): string => `${formatPercent(r)} (${tag})`;
+/**
+ * A decimal rate with its convention tag: formatRate(0.0425, 'cont, ACT/365F') = "4.2500% (cont, ACT/365F)".
+ * A missing rate shows as the dash alone.
+ */
+export const formatRate = (r: number | null | undefined, tag: string): string => {
+  const t = formatPercent(r);
+  return t === NO_VALUE ? t : `${t} (${tag})`;
+};
 
 /** A market quote (or its repriced value) in percent, 6 decimals: "4.250000%". */
 export const formatQuoteRate = (r: number | null | undefined): string => percent(r, QUANTITY_DECIMALS.quoteRate);
@@ -82,6 +91,20 @@ export const formatQuotePrice = (p: number | null | undefined): string => figure
 
 /** Any other figure (discount factor, year fraction, duration) with the caller's decimals, under the same rule. */
 export const formatNumber = (x: number | null | undefined, dp: number): string => figure(x, dp);
+
+/** A count with thousands grouped: 12345 -> "12,345". */
+export const formatCount = (n: number | null | undefined): string => figure(n, 0, { group: true });
+
+/**
+ * A percent tick on a chart axis: `dp` decimals (from the axis step), trailing zeros dropped down to
+ * `minDp`: formatAxisPercent(0.045, 2, 1) = "4.5%", formatAxisPercent(-0.0025, 2, 1) = "−0.25%".
+ */
+export function formatAxisPercent(r: number, dp: number, minDp = dp): string {
+  let t = figure(r, dp, { scale: 2 });
+  if (t === NO_VALUE) return t;
+  for (let k = dp; k > minDp && t.endsWith('0'); k--) t = t.slice(0, -1);
+  return `${t.endsWith('.') ? t.slice(0, -1) : t}%`;
+}
 
 const withUnit = (t: string, unit: string): string => (t === NO_VALUE ? t : `${t} ${unit}`);
 

@@ -1,4 +1,5 @@
 import { toCsv, type CsvCell } from '../export/csv.ts';
+import { rateTag } from '../format/conventionTag.ts';
 import type { RollAnalysis } from './rollVsTerm.ts';
 
 /**
@@ -13,7 +14,7 @@ import type { RollAnalysis } from './rollVsTerm.ts';
  * `moneyUnit` is the currency code shown with money columns ("USD"), or a generic sign.
  */
 export function rollTablesCsv(a: RollAnalysis, moneyUnit: string): string {
-  const roll = `simple, ${a.rollDayCount}`;
+  const roll = rateTag('simple', a.rollDayCount);
   const rows: CsvCell[][] = [
     ['roll versus term: inputs'],
     ['settlement', 'horizon', `years to horizon (ACT/365F)`, `amount (${moneyUnit})`, 'roll tenor', 'roll day count', `today's roll spot rate (decimal, ${roll})`],

@@ -1,7 +1,6 @@
 import { useMemo } from 'react';
 import type { Curve, Quote, Repricing } from '../../core/index.ts';
-import { bondScheduleRows, PRICE_ACCEPTANCE, RATE_ACCEPTANCE, swapScheduleRows, type QuoteSchedule } from '../../core/index.ts';
-import { couponTag, nearZero, num, pct } from '../../components/format.ts';
+import { bondScheduleRows, PRICE_ACCEPTANCE, RATE_ACCEPTANCE, swapScheduleRows, type QuoteSchedule, couponTag, rateTag, formatNumber, formatQuotePrice, formatQuoteRate, nearZero } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 
@@ -9,11 +8,11 @@ import { useAppStore } from '../../state/store.ts';
 export function quoteTag(q: Quote, field: string): string {
   switch (q.kind) {
     case 'deposit':
-      return `simple, ${q.dayCount}`;
+      return rateTag('simple', q.dayCount);
     case 'bill':
       return field === 'price' ? 'per 100' : 'discount, ACT/360';
     case 'zero':
-      return field === 'price' ? 'per 100' : `${q.compounding === 'continuous' ? 'cont' : q.compounding}, ${q.dayCount}`;
+      return field === 'price' ? 'per 100' : rateTag(q.compounding, q.dayCount);
     case 'bond':
       return field === 'cleanPrice' ? 'clean, per 100' : couponTag(q.frequency, q.dayCount);
     case 'swap':
@@ -21,7 +20,7 @@ export function quoteTag(q: Quote, field: string): string {
   }
 }
 
-const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? num(v, 6) : pct(v, 6));
+const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? formatQuotePrice(v) : formatQuoteRate(v));
 /**
  * Repricing error: bp for a rate quote, per 100 face for a price quote. Anything inside the
  * bootstrap's acceptance (RATE_ACCEPTANCE, PRICE_ACCEPTANCE) is an exact reprice and shows as zero,
@@ -81,7 +80,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
                   {rep && q ? (
                     <>
                       <td>{rep.maturity}</td>
-                      <td className="n">{num(rep.t, 6)}</td>
+                      <td className="n">{formatNumber(rep.t, 6)}</td>
                       <td>
                         {rep.field} <span className="tag">{quoteTag(q, rep.field)}</span>
                       </td>
@@ -137,11 +136,11 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
             <tr key={r.end}>
               <td>{r.start}</td>
               <td>{r.end}</td>
-              <td className="n">{num(r.yearFraction, 8)}</td>
-              <td className="n">{num(r.cashFlow, 6)}</td>
-              <td className="n">{num(r.t, 6)}</td>
-              <td className="n">{num(r.discount, 8)}</td>
-              <td className="n">{num(r.presentValue, 6)}</td>
+              <td className="n">{formatNumber(r.yearFraction, 8)}</td>
+              <td className="n">{formatNumber(r.cashFlow, 6)}</td>
+              <td className="n">{formatNumber(r.t, 6)}</td>
+              <td className="n">{formatNumber(r.discount, 8)}</td>
+              <td className="n">{formatNumber(r.presentValue, 6)}</td>
             </tr>
           ))}
         </tbody>
