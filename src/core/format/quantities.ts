@@ -1,5 +1,5 @@
 import { isoFromSerial, isIsoDate } from '../time/date.ts';
-import { decimalFigure, figure, NO_VALUE } from './numberText.ts';
+import { decimalFigure, figure, isShown, MINUS, NO_VALUE } from './numberText.ts';
 
 /**
  * Each quantity shown to a person, with its one rounding rule. Every row rounds half away from zero
@@ -19,6 +19,8 @@ import { decimalFigure, figure, NO_VALUE } from './numberText.ts';
  * | basis points                       | formatBp             | bp             | 12.35 bp            | 2        |
  * | change in basis points             | formatBpChange       | bp             | +12.35 bp           | 2        |
  * | bp figure under a "(bp)" header    | bpFigure             | bp             | 12.35               | 2        |
+ * | bp setting (a scenario's shift, as | formatBpSetting      | bp             | +25 bp, −12.5 bp    | as given |
+ * |   the user gave it; not rounded)   |                      |                |                     |          |
  * | price per 100 face                 | formatPrice          | per 100        | 101.2500            | 4        |
  * | quote price per 100 face           | formatQuotePrice     | per 100        | 101.250000          | 6        |
  * | money                              | formatMoney          | decimal.js     | 1,234,567.89        | 2 (cents)|
@@ -79,6 +81,16 @@ export const formatBp = (bp: number | null | undefined): string => withUnit(figu
 
 /** A change in basis points with its sign: "+12.35 bp", "−3.00 bp", "0.00 bp". The input is in bp. */
 export const formatBpChange = (bp: number | null | undefined): string => withUnit(figure(bp, QUANTITY_DECIMALS.bp, { plus: true }), 'bp');
+
+/**
+ * A bp setting as the user gave it (a scenario's shift), signed and unrounded: its shortest decimal
+ * text, "+25 bp", "−12.5 bp", "0 bp". A setting is an input echoed back, so it keeps every digit typed.
+ */
+export const formatBpSetting = (bp: number | null | undefined): string => {
+  if (!isShown(bp)) return NO_VALUE;
+  const body = String(Math.abs(bp));
+  return `${bp > 0 ? '+' : bp < 0 ? MINUS : ''}${/e/.test(body) ? figure(Math.abs(bp), 20).replace(/\.?0+$/, '') : body} bp`;
+};
 
 /** A bp figure for a column headed "(bp)": "12.35". */
 export const bpFigure = (bp: number | null | undefined): string => figure(bp, QUANTITY_DECIMALS.bp);

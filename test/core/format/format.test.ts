@@ -16,6 +16,7 @@ import {
   formatAxisPercent,
   formatBp,
   formatBpChange,
+  formatBpSetting,
   formatCount,
   formatCoupon,
   formatDate,
@@ -123,6 +124,15 @@ describe('each quantity', () => {
     expect(formatBpChange(12.345)).toBe('+12.35 bp');
     expect(formatBpChange(-3)).toBe(`${M}3.00 bp`);
     expect(bpFigure(0.125)).toBe('0.13');
+  });
+
+  it('a bp setting echoes the value given, signed, unrounded, without an exponent', () => {
+    expect(formatBpSetting(25)).toBe('+25 bp');
+    expect(formatBpSetting(-12.5)).toBe(`${M}12.5 bp`);
+    expect(formatBpSetting(0)).toBe('0 bp');
+    expect(formatBpSetting(-0)).toBe('0 bp');
+    expect(formatBpSetting(0.0000001)).toBe('+0.0000001 bp');
+    expect(formatBpSetting(Number.NaN)).toBe(NO_VALUE);
   });
 
   it('prices per 100 face: 4 decimals, quoted prices 6', () => {
