@@ -16,7 +16,7 @@ import {
   nearZero,
 } from '../../core/index.ts';
 import { rowNumber } from '../../components/format.ts';
-import { PRICE_ACCEPTANCE, rateTag, RATE_ACCEPTANCE, sampleGrid, zeroSamples } from '../../core/index.ts';
+import { NO_VALUE, PRICE_ACCEPTANCE, rateTag, RATE_ACCEPTANCE, sampleGrid, zeroSamples } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
 import { BASE_STYLES } from '../../charts/palette.ts';
 import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
@@ -238,7 +238,7 @@ function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | nu
  * computed value and the tolerance in the tooltip.
  */
 function RepricingCell({ rep }: { rep: Repricing | undefined }) {
-  if (!rep) return <td className="n">{'\u2014'}</td>;
+  if (!rep) return <td className="n">{NO_VALUE}</td>;
   const e = rep.unit === 'price' ? nearZero(rep.repricingError, 6, 'per 100 face', PRICE_ACCEPTANCE) : nearZero(rep.repricingError * 1e4, 4, 'bp', RATE_ACCEPTANCE * 1e4);
   return (
     <td className="n" title={e.title}>

@@ -15,6 +15,7 @@ import {
   type DayCount,
   type Workspace,
   couponTag,
+  NO_VALUE,
   rateTag,
   formatNumber,
   bpFigure,
@@ -139,7 +140,7 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
               <Row label="Macaulay duration (1 + y/f) × modified" model={formatNumber(result.value.macaulayDuration, 4)} market={result.value.market && formatNumber(result.value.market.macaulayDuration, 4)} unit="years" />
               <Row label="Convexity (1/P) d²P/dy²" model={formatNumber(result.value.convexity, 3)} market={result.value.market && formatNumber(result.value.market.convexity, 3)} unit="years²" />
               <Row label="DV01 −dP/dy × 1e−4" model={formatNumber(result.value.dv01, 5)} market={result.value.market && formatNumber(result.value.market.dv01, 5)} unit="per 100 face per bp of yield" />
-              <Row label="Effective duration (parallel zero shift)" model={formatNumber(result.value.effectiveDuration, 4)} market={result.value.market && '\u2014'} unit={`years, shift of the ${zTag} zero`} />
+              <Row label="Effective duration (parallel zero shift)" model={formatNumber(result.value.effectiveDuration, 4)} market={result.value.market && NO_VALUE} unit={`years, shift of the ${zTag} zero`} />
               {result.value.market && <Row label="Z-spread" model={bpFigure(0)} market={bpFigure(result.value.market.zSpread * 1e4)} unit={`bp, ${zTag}`} />}
             </tbody>
           </table>

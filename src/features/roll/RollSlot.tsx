@@ -1,6 +1,6 @@
 import { useCallback, useMemo } from 'react';
 import { applyScenario } from '../../core/index.ts';
-import { analyseRollVsTerm, formatBpChange, formatMoney, formatMoneySigned, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
+import { analyseRollVsTerm, formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
 import { inFieldWords } from './fieldWords.ts';
 import type { Curve } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
@@ -97,7 +97,7 @@ function RollPrintDetail({ analysis: a }: { analysis: RollAnalysis }) {
                 <th scope="row">{s.label}</th>
                 <td>{formatMoney(o.terminal)}</td>
                 <td>{percentFigure(o.annualReturn)}</td>
-                <td>{s.id === 'roll' ? '\u2014' : `${formatMoneySigned(o.vsRoll)} \u00b7 ${formatBpChange(o.vsRollBp)}`}</td>
+                <td>{s.id === 'roll' ? NO_VALUE : `${formatMoneySigned(o.vsRoll)} \u00b7 ${formatBpChange(o.vsRollBp)}`}</td>
               </tr>
             );
           })}
