@@ -1,7 +1,7 @@
 import { memo, useId, useMemo, type KeyboardEvent, type PointerEvent } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, line } from 'd3-shape';
-import type { MaturityAxis } from '../core/index.ts';
+import { formatAxisPercent, formatNumber, formatPercent, type MaturityAxis } from '../core/index.ts';
 import type { SamplePoint } from '../hooks/useCurveSeries.ts';
 import { hoverStore, useHoverX } from './hover.ts';
 import { maturityScale, maturityTicks } from './maturityScale.ts';
@@ -47,7 +47,7 @@ const M = { left: 54, right: 14, top: 14, bottom: 42 };
 /** Chart text size in CSS pixels (axis ticks and labels); never scaled, since the drawing is the box's size. */
 export const CHART_FONT_PX = 11;
 
-const yTickText = (v: number): string => `${(v * 100).toFixed(2).replace(/0$/, '')}%`.replace('-', '\u2212');
+const yTickText = (v: number): string => formatAxisPercent(v, 2, 1);
 
 /** Index of the sample nearest x (points sorted by x). */
 export function nearestIndex(points: readonly SamplePoint[], x: number): number {
@@ -242,14 +242,14 @@ function Readout({ lines }: { lines: readonly ChartLine[] }) {
   const first = lines[0]?.points[nearestIndex(lines[0]?.points ?? [], hx)];
   return (
     <span className="readout" aria-live="polite">
-      <strong>{first ? `${first.x.toFixed(2)}y (${first.date})` : `${hx.toFixed(2)}y`}</strong>
+      <strong>{first ? `${formatNumber(first.x, 2)}y (${first.date})` : `${formatNumber(hx, 2)}y`}</strong>
       {lines.map((l) => {
         const p = l.points[nearestIndex(l.points, hx)];
         if (!p || Math.abs(p.x - hx) > 0.6) return null;
         return (
           <span key={l.id} className="readout-item">
             <span className="swatch" style={{ background: l.colour }} aria-hidden="true" />
-            {l.label} {(p.y * 100).toFixed(4).replace('-', '\u2212')}% <span className="tag">{l.tag}</span>
+            {l.label} {formatPercent(p.y)} <span className="tag">{l.tag}</span>
             {p.extrapolated ? ' (extrapolated)' : ''}
           </span>
         );

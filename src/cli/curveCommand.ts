@@ -1,5 +1,7 @@
 import {
   analyzeBond,
+  bondYieldConvention,
+  rateTag,
   buildCurve,
   documentCapErrors,
   DAY_COUNTS,
@@ -333,7 +335,7 @@ function runDocument(index: number, input: unknown, opts: Options): { line: stri
         coupon: v.bond.coupon,
         frequency: v.bond.frequency,
         dayCount: v.bond.dayCount,
-        yieldConvention: `ICMA, compounded ${v.bond.frequency}/yr, accrual ${v.bond.dayCount}`,
+        yieldConvention: bondYieldConvention(v.bond.frequency, v.bond.dayCount),
         modelCleanPrice: v.modelCleanPrice,
         modelDirtyPrice: v.modelDirtyPrice,
         accrued: v.accrued,
@@ -348,7 +350,7 @@ function runDocument(index: number, input: unknown, opts: Options): { line: stri
         ...(m
           ? {
               zSpread: m.zSpread,
-              zSpreadConvention: `cont, ${curve.dayCount}`,
+              zSpreadConvention: rateTag('continuous', curve.dayCount),
               ...(m.given === 'price' ? { yieldFromPrice: m.yield } : { priceFromYield: m.cleanPrice }),
               marketDirtyPrice: m.dirtyPrice,
               marketMacaulayDuration: m.macaulayDuration,

@@ -44,3 +44,4 @@ export * from './input/index.ts';
 export * from './scenarios/index.ts';
 export * from './roll/index.ts';
 export * from './export/index.ts';
+export * from './format/index.ts';

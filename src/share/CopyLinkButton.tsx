@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react';
+import { formatCount } from '../core/index.ts';
 import { encodeWorkspaceLinkChecked, MAX_FRAGMENT_CHARS } from './linkCodec.ts';
 import './share.css';
 
@@ -70,7 +71,7 @@ export function CopyLinkButton({ document: doc, baseUrl, writeText, onCopied }: 
       const write = writeText ?? ((t: string) => navigator.clipboard.writeText(t));
       try {
         await write(url);
-        setStatus({ text: `Link copied (${url.length.toLocaleString('en-US')} characters).`, error: false });
+        setStatus({ text: `Link copied (${formatCount(url.length)} characters).`, error: false });
       } catch {
         setStatus({ text: 'The browser refused the clipboard; select the link below and copy it.', error: true });
       }

@@ -1,5 +1,5 @@
 import { useRef, useState, type ChangeEvent } from 'react';
-import { curveTableCsv, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
+import { curveTableCsv, formatNumber, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
 import type { Curve } from '../core/index.ts';
 import { download } from '../components/download.ts';
 
@@ -26,7 +26,7 @@ export function WorkspaceFiles({ document: doc, curve, conventions, points, onOp
     e.target.value = '';
     if (!file) return;
     if (file.size > 4 * MAX_FILE_CHARS) {
-      setMessage(`${file.name} is ${(file.size / 1e6).toFixed(1)} MB, far more than a workspace file; it was not opened. Your workspace has not been changed.`);
+      setMessage(`${file.name} is ${formatNumber(file.size / 1e6, 1)} MB, far more than a workspace file; it was not opened. Your workspace has not been changed.`);
       return;
     }
     let text: string;

@@ -1,4 +1,4 @@
-import { linkDocument, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/index.ts';
+import { formatCount, formatNumber, linkDocument, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/index.ts';
 import { decodeBase64Url, encodeBase64Url } from './base64url.ts';
 import { BUILD_ID } from './buildId.ts';
 import { deflateRaw, inflateRawCapped, type InflateOutcome } from './compression.ts';
@@ -52,13 +52,13 @@ export async function encodeWorkspaceLinkChecked(doc: Record<string, unknown>, b
   const json = JSON.stringify({ b: buildId, d: linkDocument(doc) });
   const bytes = new TextEncoder().encode(json).length;
   if (bytes > MAX_INFLATED_BYTES) {
-    return { ok: false, message: `this workspace is ${(bytes / 1024).toFixed(0)} KB of text, more than the ${MAX_INFLATED_BYTES / 1024} KB a link may hold; save a workspace file instead` };
+    return { ok: false, message: `this workspace is ${formatNumber(bytes / 1024, 0)} KB of text, more than the ${MAX_INFLATED_BYTES / 1024} KB a link may hold; save a workspace file instead` };
   }
   const fragment = await encodeWorkspaceLink(doc, buildId);
   if (fragment.length > MAX_FRAGMENT_CHARS) {
     return {
       ok: false,
-      message: `this workspace needs a link of ${fragment.length.toLocaleString('en-US')} characters, more than the ${MAX_FRAGMENT_CHARS.toLocaleString('en-US')} a link may have; save a workspace file instead`,
+      message: `this workspace needs a link of ${formatCount(fragment.length)} characters, more than the ${formatCount(MAX_FRAGMENT_CHARS)} a link may have; save a workspace file instead`,
     };
   }
   return { ok: true, fragment };

@@ -413,7 +413,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       const last = store.getState().storage.savedAt;
       setStorage({
         state: 'memory',
-        message: `Not saved: ${partialReason}. ${last ? `The last save was at ${clock(last)}; edits since then` : 'Your edits'} are only in this page. Saving is tried again on your next edit and every ${(deps.retryMs / 1000).toLocaleString("en-US")} seconds.`,
+        message: `Not saved: ${partialReason}. ${last ? `The last save was at ${clock(last)}; edits since then` : 'Your edits'} are only in this page. Saving is tried again on your next edit and every ${deps.retryMs / 1000} seconds.`,
       });
       armRetry();
       return;
@@ -429,7 +429,7 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       setStorage({
         state: 'partial',
         savedAt: saved.savedAt,
-        message: `The workspace was saved at ${clock(saved.savedAt)}, but not its undo history (${steps} steps): ${partialReason}. After a reload Undo starts afresh. Saving it is tried again on your next edit and every ${(deps.retryMs / 1000).toLocaleString("en-US")} seconds.`,
+        message: `The workspace was saved at ${clock(saved.savedAt)}, but not its undo history (${steps} steps): ${partialReason}. After a reload Undo starts afresh. Saving it is tried again on your next edit and every ${deps.retryMs / 1000} seconds.`,
       });
       armRetry();
     }

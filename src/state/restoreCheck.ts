@@ -7,6 +7,7 @@ import {
   type QuoteRow,
   type UnknownSetting,
   type WorkbenchDocument,
+  formatCount,
 } from '../core/index.ts';
 import { makeRowId } from './ids.ts';
 
@@ -38,7 +39,7 @@ export function checkRestoredWorkspace(raw: unknown): RestoreCheck {
   let doc = read.doc;
   const { rows, leftOut } = capRows(doc.quotes);
   if (leftOut > 0) {
-    notes.push(`the saved workspace has ${doc.quotes.length.toLocaleString('en-US')} quotes, more than the ${LIMITS.quotes} a workspace may hold: the first ${LIMITS.quotes} are open and ${leftOut.toLocaleString('en-US')} were left out`);
+    notes.push(`the saved workspace has ${formatCount(doc.quotes.length)} quotes, more than the ${LIMITS.quotes} a workspace may hold: the first ${LIMITS.quotes} are open and ${formatCount(leftOut)} were left out`);
   }
   let cut = 0;
   const quotes = rows.map((r): QuoteRow => {

@@ -1,4 +1,5 @@
-import { nearZero, rowNumber } from '../../src/components/format.ts';
+import { rowNumber } from '../../src/components/format.ts';
+import { nearZero } from '../../src/core/index.ts';
 
 describe('nearZero (figures a desk reads)', () => {
   it('nearZero(x, dp, unit) shows anything that rounds to zero as an unsigned zero, the computed value in the tooltip', () => {

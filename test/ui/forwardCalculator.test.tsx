@@ -7,7 +7,7 @@ import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { forwardBetween } from '../../src/core/index.ts';
-import { pct } from '../../src/components/format.ts';
+import { formatPercent } from '../../src/core/index.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
@@ -37,7 +37,7 @@ describe('Forward calculator', { timeout: 30_000 }, () => {
     const curve = deriveBuild(doc).build.curve!;
     const f = forwardBetween(curve, '18M', '2030-06-30', doc.display.compounding, doc.display.dayCount);
     if (!f.ok) throw new Error(JSON.stringify(f.errors));
-    expect(table.querySelector('[data-forward="2"]')!.textContent).toBe(pct(f.value.rate));
+    expect(table.querySelector('[data-forward="2"]')!.textContent).toBe(formatPercent(f.value.rate));
     // Two fields typed: two undo steps bring back the default row.
     await user.click(screen.getByRole('button', { name: 'Undo' }));
     await user.click(screen.getByRole('button', { name: 'Undo' }));

@@ -5,7 +5,7 @@ import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import axe from 'axe-core';
 import { analyzeBond, buildCurve } from '../../src/core/index.ts';
-import { num } from '../../src/components/format.ts';
+import { bpFigure, formatNumber } from '../../src/core/index.ts';
 import { BondAnalyticsPanel } from '../../src/features/risk/BondAnalyticsPanel.tsx';
 import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
 
@@ -22,11 +22,11 @@ describe('BondAnalyticsPanel', () => {
     const expected = analyzeBond(curve, { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA', cleanPrice: 101.25 });
     if (!expected.ok) throw new Error('analytics');
     const row = (label: RegExp) => within(table).getByRole('row', { name: label });
-    expect(row(/^Modified duration/)).toHaveTextContent(num(expected.value.modifiedDuration, 4));
+    expect(row(/^Modified duration/)).toHaveTextContent(formatNumber(expected.value.modifiedDuration, 4));
     expect(row(/^Modified duration/)).toHaveTextContent('years');
     expect(row(/^Convexity/)).toHaveTextContent('years²');
     expect(row(/^DV01/)).toHaveTextContent('per 100 face per bp of yield');
-    expect(row(/^Z-spread/)).toHaveTextContent(num(expected.value.market!.zSpread * 1e4, 2));
+    expect(row(/^Z-spread/)).toHaveTextContent(bpFigure(expected.value.market!.zSpread * 1e4));
     expect(row(/^Z-spread/)).toHaveTextContent('bp, cont, ACT/365F');
     expect(row(/^Yield to maturity/)).toHaveTextContent('s.a., ICMA, accrual ACT/ACT-ICMA');
     const krd = screen.getByRole('table', { name: 'Key-rate durations' });
@@ -72,6 +72,6 @@ describe('BondAnalyticsPanel market price', () => {
     if (!expected.ok) throw new Error('analytics');
     expect(screen.queryByRole('alert')).toBeNull();
     const table = screen.getByRole('table', { name: 'Bond analytics' });
-    expect(within(table).getByRole('row', { name: /^Z-spread/ })).toHaveTextContent(num(expected.value.market!.zSpread * 1e4, 2));
+    expect(within(table).getByRole('row', { name: /^Z-spread/ })).toHaveTextContent(bpFigure(expected.value.market!.zSpread * 1e4));
   });
 });

@@ -2,7 +2,7 @@
 // The printed roll-versus-term block: the result sentence, the strategies' table under the chosen
 // view and the user's short-rate path, each figure the core's own (analyseRollVsTerm). Demo data invented.
 import { render, within } from '@testing-library/react';
-import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, formatRate } from '../../src/core/index.ts';
+import { analyseRollVsTerm, DEFAULT_STRATEGY, formatMoney, percentFigure } from '../../src/core/index.ts';
 import { RollResultLine } from '../../src/features/roll/RollSlot.tsx';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
@@ -28,6 +28,6 @@ describe('RollResultLine (the printed block)', () => {
     const path = r.value.views.find((v) => v.id === 'path')!;
     const printed = container.querySelector('.ps-roll-path')!.textContent!;
     expect(printed).toContain('Your short-rate path');
-    expect(printed).toContain(path.legRates.slice(0, 12).map((x) => formatRate(x, 2).replace(' %', '')).join(', '));
+    expect(printed).toContain(path.legRates.slice(0, 12).map((x) => percentFigure(x, 'rateShort')).join(', '));
   });
 });

@@ -7,6 +7,8 @@ import { FLAT_GUESS_FORWARD, MAX_SWEEPS, NODE_TOLERANCE, PRICE_ACCEPTANCE, RATE_
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
+import { formatRate } from '../format/quantities.ts';
+import { rateTag } from '../format/conventionTag.ts';
 import { FlowTable } from './flowTable.ts';
 import { jointNewton } from './jointNewton.ts';
 import { nodeSolverFor, type BootstrapNodes } from './nodeSolvers.ts';
@@ -43,8 +45,6 @@ export interface BootstrapSettings {
 }
 
 export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? PRICE_ACCEPTANCE : RATE_ACCEPTANCE);
-
-const pct = (x: number): string => `${(100 * x).toFixed(4)}%`;
 
 /**
  * Bootstraps a curve through instruments that are already sorted by pillar time, strictly
@@ -218,7 +218,7 @@ function forwardSigns(settings: BootstrapSettings, { instruments, ts, ys }: Boot
     if (d >= 0) continue;
     const ins = instruments[k - 1]!;
     const from = k === 1 ? settings.settlement : instruments[k - 2]!.maturity;
-    const what = `the forward from ${from} to ${ins.maturity} is ${pct(d)} (cont, ${settings.dayCount})`;
+    const what = `the forward from ${from} to ${ins.maturity} is ${formatRate(d, rateTag('continuous', settings.dayCount))}`;
     if (settings.interpolation === 'monotone-convex-positive') {
       errors.push(
         coreError('no-solution', `quotes[${ins.index}]`, `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): monotone-convex-positive needs positive forwards, but ${what}; use monotone-convex for a market with negative forwards`, ins.index),

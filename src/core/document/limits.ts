@@ -5,6 +5,8 @@
  * refused with a message naming the cap; a paste over the row cap keeps the first rows and says
  * how many were left out (`capRows`). Nothing is cut silently.
  */
+import { formatCount } from '../format/quantities.ts';
+
 export const LIMITS = {
   /** Entries of `quotes` (sheet rows). */
   quotes: 500,
@@ -57,7 +59,7 @@ export function capRows<T>(incoming: readonly T[], existing = 0): RowCap<T> {
 /** The message for rows left out at the cap (null when none were). */
 export function rowsLeftOutMessage(leftOut: number): string | null {
   if (leftOut <= 0) return null;
-  return `${leftOut.toLocaleString('en-US')} ${leftOut === 1 ? 'row was' : 'rows were'} left out: a workspace holds at most ${LIMITS.quotes} quotes, so the first rows were kept.`;
+  return `${formatCount(leftOut)} ${leftOut === 1 ? 'row was' : 'rows were'} left out: a workspace holds at most ${LIMITS.quotes} quotes, so the first rows were kept.`;
 }
 
 /**

@@ -1,7 +1,8 @@
 import type { DisplaySettings } from '../document/workbenchDocument.ts';
 import type { Curve } from '../curve/curve.ts';
 import { discountOn, forwardOn, parYieldOn, zeroOn } from '../curve/query.ts';
-import { COMPOUNDING_LABEL, type Compounding } from '../rates/compounding.ts';
+import type { Compounding } from '../rates/compounding.ts';
+import { couponTag, rateTag } from '../format/conventionTag.ts';
 import type { CoreError } from '../result.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
@@ -43,17 +44,15 @@ export interface CurveTableRow {
   readonly errors: readonly CoreError[];
 }
 
-const PAR_LABEL: Record<number, Compounding> = { 1: 'annual', 2: 'semiannual', 4: 'quarterly', 12: 'monthly' };
-
 /** Column headers with each rate's compounding and day count, such as "zero (cont, ACT/365F)". */
 export function curveTableHeaders(curve: Curve, conv: CurveTableConventions): string[] {
   return [
     'date',
     `t (years, ${curve.dayCount})`,
     'discount factor',
-    `zero (${COMPOUNDING_LABEL[conv.zeroCompounding]}, ${conv.zeroDayCount})`,
-    `par (${COMPOUNDING_LABEL[PAR_LABEL[conv.parFrequency]!]}, ACT/ACT-ICMA)`,
-    `forward ${conv.forwardTenor} (${COMPOUNDING_LABEL[conv.forwardCompounding]}, ${conv.forwardDayCount})`,
+    `zero (${rateTag(conv.zeroCompounding, conv.zeroDayCount)})`,
+    `par (${couponTag(conv.parFrequency, 'ACT/ACT-ICMA')})`,
+    `forward ${conv.forwardTenor} (${rateTag(conv.forwardCompounding, conv.forwardDayCount)})`,
     'extrapolated (past the last pillar)',
   ];
 }

@@ -7,6 +7,7 @@ import { coreError, fail, ok, type Result } from '../result.ts';
 import { curveTime } from '../time/dayCount.ts';
 import type { Workspace } from '../document/types.ts';
 import { levenbergMarquardt, type LmResult } from './levenbergMarquardt.ts';
+import { formatBp } from '../format/quantities.ts';
 import {
   betaCount,
   FIT_MODEL_LABEL,
@@ -269,9 +270,9 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
   }
   const worst = residuals.filter((r) => r.included).reduce((a, b) => (Math.abs(b.residualBp) > Math.abs(a.residualBp) ? b : a));
   const report = best.converged
-    ? `${label} fit converged after ${best.iterations} iterations; weighted RMS error ${rmsBp.toFixed(2)} bp; largest residual quotes[${worst.index}] ${worst.residualBp.toFixed(2)} bp` +
+    ? `${label} fit converged after ${best.iterations} iterations; weighted RMS error ${formatBp(rmsBp)}; largest residual quotes[${worst.index}] ${formatBp(worst.residualBp)}` +
       (atBounds.length > 0 ? `; on a bound: ${atBounds.join(', ')}` : '')
-    : `${label} fit did not converge (${best.reason} after ${best.iterations} iterations); weighted RMS error ${rmsBp.toFixed(2)} bp, largest residual quotes[${worst.index}] ${worst.residualBp.toFixed(2)} bp; ` +
+    : `${label} fit did not converge (${best.reason} after ${best.iterations} iterations); weighted RMS error ${formatBp(rmsBp)}, largest residual quotes[${worst.index}] ${formatBp(worst.residualBp)}; ` +
       `try ${model === 'svensson' ? 'Nelson-Siegel, ' : ''}excluding quotes[${worst.index}] or lowering its weight, or check that quote`;
   const richCheap: RichCheapEntry[] = residuals
     .filter((r) => kindModule(r.kind).fit.richCheap)

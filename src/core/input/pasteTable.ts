@@ -1,4 +1,5 @@
 import { dsvFormat } from 'd3-dsv';
+import { formatNumber } from '../format/quantities.ts';
 import { LIMITS } from '../document/limits.ts';
 import { CELL_MAX } from '../document/workbenchShape.ts';
 import { KIND_HEADER_WORDS } from '../kinds/registry.ts';
@@ -178,7 +179,7 @@ export const PASTE_TEXT_MAX = 1_000_000;
 
 /** Text size in words: "5.2 MB", "340 KB", "812 characters" (decimal units, 1 MB = 10^6 characters of text). */
 export function textSizeWords(chars: number): string {
-  if (chars >= 1_000_000) return `${(chars / 1_000_000).toFixed(1)} MB`;
+  if (chars >= 1_000_000) return `${formatNumber(chars / 1_000_000, 1)} MB`;
   if (chars >= 10_000) return `${Math.round(chars / 1000)} KB`;
   return `${chars} characters`;
 }

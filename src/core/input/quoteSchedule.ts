@@ -1,4 +1,5 @@
 import type { Curve } from '../curve/curve.ts';
+import { formatNumber } from '../format/quantities.ts';
 import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
@@ -54,7 +55,7 @@ export function bondScheduleRows(q: BondQuote, settlement: IsoDate, curve: Curve
     start = end;
     return row;
   });
-  return { rows, accrued: s.accrued, note: `first period starts on the last coupon date ${s.previous}; accrued interest ${s.accrued.toFixed(6)} per 100 face` };
+  return { rows, accrued: s.accrued, note: `first period starts on the last coupon date ${s.previous}; accrued interest ${formatNumber(s.accrued, 6)} per 100 face` };
 }
 
 /**

@@ -5,7 +5,8 @@ import { DISCOUNTING } from '../instruments/instrument.ts';
 import { coreError, fail, ok } from '../result.ts';
 import { isMonthEnd, parseIsoDate } from '../time/date.ts';
 import { COUPON_MAX, COUPON_TEXT, oneOf, readDayCount, readEom, readFrequency, readNumber, readPrice, readRate, required } from './fields.ts';
-import { compoundingOfFrequency, movedPrice, perYearLabel, quotedRateOrDefault } from './shared.ts';
+import { compoundingOfFrequency, movedPrice, quotedRateOrDefault } from './shared.ts';
+import { couponTag } from '../format/conventionTag.ts';
 import type { QuoteKindModule } from './types.ts';
 
 /**
@@ -39,7 +40,7 @@ export const BOND: QuoteKindModule<BondQuote> = {
   curves: DISCOUNTING,
   nodeRole: 'discount',
   convention: (q) => (q.cleanPrice !== null ? { unit: 'price', clean: true } : { unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
-  yieldLabel: (q) => `ICMA yield (${perYearLabel(q.frequency)}, ${q.dayCount})`,
+  yieldLabel: (q) => `ICMA yield (${couponTag(q.frequency, q.dayCount)})`,
   /** By clean price: its ICMA yield at the coupon frequency (bondYieldFromDirty of clean + accrued). */
   priceYield(q, settlement, label) {
     const s = bondSchedule(q, settlement);

@@ -5,6 +5,7 @@ import { ok } from '../result.ts';
 import { noCouponPeriod, readDayCount, readRate, required, RATE_TEXT } from './fields.ts';
 import { flatDollarDuration, quotedRateOrDefault } from './shared.ts';
 import type { QuoteKindModule } from './types.ts';
+import { rateTag } from '../format/conventionTag.ts';
 
 /**
  * Money-market deposit from settlement to maturity at a simple rate r (decimal) on its day count,
@@ -27,7 +28,7 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   curves: DISCOUNTING,
   nodeRole: 'discount',
   convention: (q) => ({ unit: 'rate', compounding: 'simple', dayCount: q.dayCount }),
-  yieldLabel: (q) => `deposit rate (simple, ${q.dayCount})`,
+  yieldLabel: (q) => `deposit rate (${rateTag('simple', q.dayCount)})`,
   priceYield: () => null,
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
   fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },

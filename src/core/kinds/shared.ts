@@ -8,9 +8,6 @@ const PRICE_QUOTE_FIRST_RATE = 0.03;
 /** The bootstrap's first-node rate for kinds whose rate quotes are near zero rates: the quoted rate, or 3% for a price. */
 export const quotedRateOrDefault = (ins: Instrument): number => (ins.unit === 'rate' ? ins.market : PRICE_QUOTE_FIRST_RATE);
 
-/** Payments a year as a short label ("ann", "s.a.", "qtr", "mthly"). */
-const PER_YEAR: Readonly<Record<number, string>> = { 1: 'ann', 2: 's.a.', 4: 'qtr', 12: 'mthly' };
-export const perYearLabel = (frequency: number): string => PER_YEAR[frequency] ?? `${frequency}/yr`;
 
 /** The compounding of a periodic rate paid `frequency` times a year (1, 2, 4 or 12, checked by the schema). */
 export const compoundingOfFrequency = (frequency: number): 'annual' | 'semiannual' | 'quarterly' | 'monthly' =>

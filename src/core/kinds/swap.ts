@@ -4,7 +4,8 @@ import { DISCOUNTING_AND_PROJECTING } from '../instruments/instrument.ts';
 import { compileSwap, SwapLegs } from '../instruments/swap.ts';
 import { ok } from '../result.ts';
 import { readDayCount, readEom, readFrequency, readRate, required, RATE_TEXT } from './fields.ts';
-import { compoundingOfFrequency, flatDollarDuration, perYearLabel, quotedRateOrDefault } from './shared.ts';
+import { compoundingOfFrequency, flatDollarDuration, quotedRateOrDefault } from './shared.ts';
+import { couponTag } from '../format/conventionTag.ts';
 import type { QuoteKindModule } from './types.ts';
 
 /**
@@ -33,7 +34,7 @@ export const SWAP: QuoteKindModule<SwapQuote> = {
   curves: DISCOUNTING_AND_PROJECTING,
   nodeRole: 'discount',
   convention: (q) => ({ unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
-  yieldLabel: (q) => `swap rate (${perYearLabel(q.frequency)}, ${q.dayCount})`,
+  yieldLabel: (q) => `swap rate (${couponTag(q.frequency, q.dayCount)})`,
   priceYield: () => null,
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
   fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },

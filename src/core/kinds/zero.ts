@@ -1,7 +1,8 @@
 import type { ZeroQuote } from '../document/types.ts';
 import { DISCOUNTING } from '../instruments/instrument.ts';
 import { compileZero } from '../instruments/zero.ts';
-import { COMPOUNDING_LABEL, COMPOUNDINGS, isCompounding, lnDiscountFromRate, rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
+import { COMPOUNDINGS, isCompounding, lnDiscountFromRate, rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
+import { rateTag } from '../format/conventionTag.ts';
 import { coreError, ok } from '../result.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import { listOf, noCouponPeriod, oneOf, readDayCount, readPrice, readRate, typeName } from './fields.ts';
@@ -39,7 +40,7 @@ export const ZERO: QuoteKindModule<ZeroQuote> = {
   curves: DISCOUNTING,
   nodeRole: 'discount',
   convention: (q) => (q.price !== null ? { unit: 'price', clean: false } : { unit: 'rate', compounding: q.compounding, dayCount: q.dayCount }),
-  yieldLabel: (q) => `zero rate (${COMPOUNDING_LABEL[q.compounding]}, ${q.dayCount})`,
+  yieldLabel: (q) => `zero rate (${rateTag(q.compounding, q.dayCount)})`,
   /** By price: its zero rate in the quote's compounding and day count (defaults annual, ACT/365F). */
   priceYield(q, settlement, label) {
     const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });

@@ -29,16 +29,6 @@ export function periodsPerYear(c: Compounding): number {
   }
 }
 
-/** Short labels for display: "cont", "simple", "ann", "s.a.", "qtr", "mthly". */
-export const COMPOUNDING_LABEL: Readonly<Record<Compounding, string>> = {
-  simple: 'simple',
-  annual: 'ann',
-  semiannual: 's.a.',
-  quarterly: 'qtr',
-  monthly: 'mthly',
-  continuous: 'cont',
-};
-
 /**
  * ln DF over a period of tau years for a rate r in compounding c.
  * Domain: tau > 0; simple needs 1 + r tau > 0 and periodic 1 + r/m > 0 (else the result is NaN and

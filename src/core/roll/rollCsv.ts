@@ -1,4 +1,5 @@
 import { toCsv, type CsvCell } from '../export/csv.ts';
+import { rateTag, RETURN_TAG } from '../format/conventionTag.ts';
 import type { RollAnalysis } from './rollVsTerm.ts';
 
 /**
@@ -13,14 +14,14 @@ import type { RollAnalysis } from './rollVsTerm.ts';
  * `moneyUnit` is the currency code shown with money columns ("USD"), or a generic sign.
  */
 export function rollTablesCsv(a: RollAnalysis, moneyUnit: string): string {
-  const roll = `simple, ${a.rollDayCount}`;
+  const roll = rateTag('simple', a.rollDayCount);
   const rows: CsvCell[][] = [
     ['roll versus term: inputs'],
     ['settlement', 'horizon', `years to horizon (ACT/365F)`, `amount (${moneyUnit})`, 'roll tenor', 'roll day count', `today's roll spot rate (decimal, ${roll})`],
     [a.settlement, a.horizon, a.years, a.amount.toFixed(), a.rollTenor, a.rollDayCount, a.spotRollRate],
     [],
     ['strategies by views'],
-    ['view', 'strategy', `terminal value (${moneyUnit}, unrounded)`, 'annualised return (decimal, annual, ACT/365F)', `against rolling (${moneyUnit})`, 'against rolling (bp a year, annual, ACT/365F)', 'best under this view'],
+    ['view', 'strategy', `terminal value (${moneyUnit}, unrounded)`, `annualised return (decimal, ${RETURN_TAG})`, `against rolling (${moneyUnit})`, `against rolling (bp a year, ${RETURN_TAG})`, 'best under this view'],
   ];
   const label = new Map(a.strategies.map((s) => [s.id, s.label]));
   for (const v of a.views) {

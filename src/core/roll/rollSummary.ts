@@ -1,7 +1,8 @@
-import { COMPOUNDING_LABEL, type Compounding } from '../rates/compounding.ts';
 import type { DayCount } from '../time/dayCount.ts';
+import { rateTag, RETURN_TAG } from '../format/conventionTag.ts';
+import { formatAmount, formatBpChange, formatRate, formatRateShort } from '../format/quantities.ts';
 import type { RollBreakEvens } from './rollBreakEven.ts';
-import { formatMoney, MONEY_UNIT, type Money } from './strategyMoney.ts';
+import { MONEY_UNIT, type Money } from './strategyMoney.ts';
 import type { StrategyId, TermStrategyId } from './strategyValues.ts';
 import type { StrategyDescription, ViewOutcome } from './rollVsTerm.ts';
 
@@ -10,32 +11,8 @@ import type { StrategyDescription, ViewOutcome } from './rollVsTerm.ts';
  * day count, money with its unit. Pure formatting of values the analysis computed.
  */
 
-/** The tag of a rate convention: "simple, ACT/360", "ann, ACT/365F". */
-export const rateTag = (c: Compounding, dc: DayCount): string => `${COMPOUNDING_LABEL[c]}, ${dc}`;
-
-/** The tag of an ICMA bond yield paid f times a year: "s.a., ACT/ACT-ICMA". */
-export const yieldTag = (frequency: number): string =>
-  `${COMPOUNDING_LABEL[frequency === 1 ? 'annual' : frequency === 2 ? 'semiannual' : frequency === 4 ? 'quarterly' : 'monthly']}, ACT/ACT-ICMA`;
-
-/** Annualised returns of the analysis: annual compounding on ACT/365F. */
-export const RETURN_TAG = rateTag('annual', 'ACT/365F');
-
-/** A decimal rate as a percentage: formatRate(0.041234) = "4.123 %". Non-finite values read "n/a". */
-export const formatRate = (r: number, digits = 3): string => (Number.isFinite(r) ? `${(r * 100).toFixed(digits)} %` : 'n/a');
-
-/** Basis points with a sign: "+12.3 bp", "-4.0 bp", "0.0 bp". */
-export function formatBp(bp: number, digits = 1): string {
-  if (!Number.isFinite(bp)) return 'n/a';
-  const t = Math.abs(bp).toFixed(digits);
-  const zero = Number(t) === 0;
-  return `${zero ? '' : bp > 0 ? '+' : '-'}${t} bp`;
-}
-
 /** The unit shown with money: the strategy's ISO 4217 currency code, or the generic sign MONEY_UNIT when it names none. */
 export const moneyUnitOf = (currency: string): string => (currency === '' ? MONEY_UNIT : currency);
-
-/** Money with its unit: "USD 1,234,567.89", or "¤ 1,234,567.89" without a currency. */
-export const formatAmount = (m: Money, unit: string = MONEY_UNIT): string => `${unit} ${formatMoney(m)}`;
 
 export interface SummaryInput {
   readonly view: ViewOutcome;
@@ -67,8 +44,8 @@ export function rollSentence(input: SummaryInput): string {
     const r = breakEvens.rollRate[id];
     if (legsText === null) return `With a single roll leg the roll is fixed today at its spot rate; there is no break-even roll rate.`;
     return r === null
-      ? `No constant roll rate between ${formatRate(-0.5, 0)} and ${formatRate(1.5, 0)} makes rolling match ${label(id)}.`
-      : `Rolling matches ${label(id)} if ${legsText} earn ${formatRate(r)} (${rTag}).`;
+      ? `No constant roll rate between ${formatRateShort(-0.5)} and ${formatRateShort(1.5)} makes rolling match ${label(id)}.`
+      : `Rolling matches ${label(id)} if ${legsText} earn ${formatRate(r, rTag)}.`;
   };
   if (spread <= 1e-12) {
     return `Under ${view.phrase} every strategy ends at ${amount(roll.terminal)} on ${input.horizon}: this is the baseline, what today's forwards imply. ${rStar('zero')}`;
@@ -79,12 +56,12 @@ export function rollSentence(input: SummaryInput): string {
     const r = outcome(rival);
     return (
       `Under ${view.phrase}, ${label('roll')} ends ahead at ${amount(roll.terminal)} on ${input.horizon}, ` +
-      `${amount(r.vsRoll.negated())} (${formatBp(-r.vsRollBp)} a year, ${RETURN_TAG}) more than ${label(rival)}. ${rStar(rival)}`
+      `${amount(r.vsRoll.negated())} (${formatBpChange(-r.vsRollBp)} a year, ${RETURN_TAG}) more than ${label(rival)}. ${rStar(rival)}`
     );
   }
   const best = outcome(view.best);
   return (
     `Under ${view.phrase}, ${label(view.best)} ends ahead at ${amount(best.terminal)} on ${input.horizon}, ` +
-    `${amount(best.vsRoll)} (${formatBp(best.vsRollBp)} a year, ${RETURN_TAG}) more than ${label('roll')}. ${rStar(view.best as TermStrategyId)}`
+    `${amount(best.vsRoll)} (${formatBpChange(best.vsRollBp)} a year, ${RETURN_TAG}) more than ${label('roll')}. ${rStar(view.best as TermStrategyId)}`
   );
 }

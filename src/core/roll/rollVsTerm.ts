@@ -25,7 +25,8 @@ import {
   type ViewSpec,
 } from './rollViews.ts';
 import { curveSeenAtHorizon } from './horizonCurve.ts';
-import { moneyUnitOf, yieldTag } from './rollSummary.ts';
+import { moneyUnitOf } from './rollSummary.ts';
+import { yieldTag } from '../format/conventionTag.ts';
 import { rollBreakEvens, type RollBreakEvens } from './rollBreakEven.ts';
 
 /**
@@ -243,6 +244,8 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
   }
   const bondYield = bondYieldFromPriceOn(bondR.value, S, 100);
   const ridingYield = bondYieldFromPriceOn(ridingR.value, S, 100);
+  // The strategies' detail texts are part of the analysis the golden check holds bit for bit, so
+  // their coupon keeps its earlier form (3 decimals, a space before %) rather than formatCoupon's.
   const pct = (x: number): string => `${(x * 100).toFixed(3)} %`;
   return ok({
     settlement: S,

@@ -54,19 +54,3 @@ export function parseMoney(text: string): MoneyParse {
  */
 export const moneyTimes = (amount: Money, growth: number): Money => amount.times(new MoneyDecimal(growth));
 
-/** Rounds to cents, half away from zero, and groups thousands with commas: "1,234,567.89". */
-export function formatMoney(m: Money): string {
-  const fixed = m.toDecimalPlaces(2, MoneyDecimal.ROUND_HALF_UP).toFixed(2);
-  const negative = fixed.startsWith('-');
-  const body = negative ? fixed.slice(1) : fixed;
-  const [whole = '0', cents = '00'] = body.split('.');
-  const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-  const text = `${grouped}.${cents}`;
-  return negative && text !== '0.00' ? `-${text}` : text;
-}
-
-/** formatMoney with an explicit sign for differences: "+1,234.56", "-12.00", "0.00". */
-export function formatMoneySigned(m: Money): string {
-  const text = formatMoney(m);
-  return text.startsWith('-') || text === '0.00' ? text : `+${text}`;
-}

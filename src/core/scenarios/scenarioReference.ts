@@ -1,7 +1,8 @@
 import type { Curve } from '../curve/curve.ts';
 import { zeroOn } from '../curve/query.ts';
 import { parseCsv } from '../export/csv.ts';
-import { COMPOUNDING_LABEL, rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
+import { rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
+import { rateTag } from '../format/conventionTag.ts';
 import { coreError, type CoreError } from '../result.ts';
 import { compareIso, isIsoDate, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
@@ -119,7 +120,7 @@ export interface ReferenceRow {
 }
 
 /** Label of the convention the differences are in, such as "cont, ACT/365F". */
-export const referenceConvention = (r: ReferenceCurve): string => `${COMPOUNDING_LABEL[r.compounding]}, ${r.dayCount}`;
+export const referenceConvention = (r: ReferenceCurve): string => rateTag(r.compounding, r.dayCount);
 
 /**
  * Differences by date of our curve's zero rate from the reference's, both in the reference's

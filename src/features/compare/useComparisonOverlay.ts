@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import {
-  COMPOUNDING_LABEL,
   FIT_MODEL_LABEL,
+  rateTag,
   fitCurve,
   forwardSamples,
   parseReferenceCsv,
@@ -94,7 +94,7 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
     const forward: ChartLine[] = [];
     const notes: string[] = [];
     const how = { zero: [] as string[], forward: [] as string[] };
-    const tag = `${COMPOUNDING_LABEL[display.compounding]}, ${display.dayCount}`;
+    const tag = rateTag(display.compounding, display.dayCount);
     const fwd = `${display.forwardTenor} forward`;
     // Drawn within the base curve's maturity range (the charts' x axis ends there).
     const xMax = curve.time(chartEndDate(curve));

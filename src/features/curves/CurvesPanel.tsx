@@ -1,7 +1,6 @@
-import { INTERPOLATORS } from '../../core/index.ts';
+import { INTERPOLATORS, couponTag, rateTag } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
 import { BASE_STYLES, METHOD_STYLES, SCENARIO_OVERLAY_MAX } from '../../charts/palette.ts';
-import { couponTag, rateTag } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useCurveSeries } from '../../hooks/useCurveSeries.ts';
 import { useMethodOverlay } from '../../hooks/useMethodOverlay.ts';
@@ -42,7 +41,7 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
     }
   }
   fwdLines.unshift({ id: 'forward', label: display.showMethodOverlay ? `${fwdLabel} (${INTERPOLATORS[curve.interpolation].label})` : fwdLabel, tag, ...BASE_STYLES.forward, points: series.forward });
-  if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `cont, ${curve.dayCount} from settlement`, ...BASE_STYLES.instantaneous, points: series.instantaneous });
+  if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `${rateTag('continuous', curve.dayCount)} from settlement`, ...BASE_STYLES.instantaneous, points: series.instantaneous });
   zeroLines.push(...scenarioLines.zero);
   fwdLines.push(...scenarioLines.forward);
   zeroLines.push(...comparisons.zero);

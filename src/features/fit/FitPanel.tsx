@@ -9,9 +9,14 @@ import {
   type FitModel,
   type Repricing,
   type Workspace,
+  formatNumber,
+  bpFigure,
+  formatPrice,
+  formatPercent,
+  nearZero,
 } from '../../core/index.ts';
-import { nearZero, num, pct, rowNumber } from '../../components/format.ts';
-import { PRICE_ACCEPTANCE, RATE_ACCEPTANCE, sampleGrid, zeroSamples } from '../../core/index.ts';
+import { rowNumber } from '../../components/format.ts';
+import { NO_VALUE, PRICE_ACCEPTANCE, rateTag, RATE_ACCEPTANCE, sampleGrid, zeroSamples } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
 import { BASE_STYLES } from '../../charts/palette.ts';
 import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
@@ -60,7 +65,7 @@ export function FitPanel(props: FitPanelProps) {
   const [weightText, setWeightText] = useState<Record<number, string>>({});
   const ws = props.workspace;
   const result = useMemo(() => (ws && model !== 'none' ? fitCurve(ws, { model, errors, exclude, weights }) : null), [ws, model, errors, exclude, weights]);
-  const zeroTag = ws ? `cont, ${ws.curve.dayCount}` : 'cont';
+  const zeroTag = ws ? rateTag('continuous', ws.curve.dayCount) : 'cont';
   const repricingByIndex = new Map((props.repricing ?? []).map((r) => [r.index, r]));
 
   const toggle = (index: number, included: boolean): void => setExclude(included ? exclude.filter((i) => i !== index) : [...exclude, index]);
@@ -116,17 +121,17 @@ export function FitPanel(props: FitPanelProps) {
           <table className="data" aria-label="Fitted parameters">
             <caption>{FIT_MODEL_LABEL[result.value.model]} parameters</caption>
             <tbody>
-              <tr><th scope="row">b0, level <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b0)}</td></tr>
-              <tr><th scope="row">b1, slope <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b1)}</td></tr>
-              <tr><th scope="row">b2, curvature <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b2)}</td></tr>
+              <tr><th scope="row">b0, level <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b0)}</td></tr>
+              <tr><th scope="row">b1, slope <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b1)}</td></tr>
+              <tr><th scope="row">b2, curvature <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b2)}</td></tr>
               {result.value.params.tau2 !== null && (
-                <tr><th scope="row">b3, second hump <span className="tag">{zeroTag}</span></th><td className="n">{pct(result.value.params.b3)}</td></tr>
+                <tr><th scope="row">b3, second hump <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b3)}</td></tr>
               )}
-              <tr><th scope="row">τ1 (years)</th><td className="n">{num(result.value.params.tau1, 4)}</td></tr>
+              <tr><th scope="row">τ1 (years)</th><td className="n">{formatNumber(result.value.params.tau1, 4)}</td></tr>
               {result.value.params.tau2 !== null && (
-                <tr><th scope="row">τ2 (years)</th><td className="n">{num(result.value.params.tau2, 4)}</td></tr>
+                <tr><th scope="row">τ2 (years)</th><td className="n">{formatNumber(result.value.params.tau2, 4)}</td></tr>
               )}
-              <tr><th scope="row">Weighted RMS error (bp)</th><td className="n">{num(result.value.rmsBp, 2)}</td></tr>
+              <tr><th scope="row">Weighted RMS error (bp)</th><td className="n">{bpFigure(result.value.rmsBp)}</td></tr>
             </tbody>
           </table>
           <div className="table-scroll" tabIndex={0} role="region" aria-label="Fit residuals (scrolls sideways)">
@@ -170,10 +175,10 @@ export function FitPanel(props: FitPanelProps) {
                     </td>
                     <td>{r.maturity}</td>
                     <td>{r.yieldLabel}</td>
-                    <td className="n">{pct(r.marketYield)}</td>
-                    <td className="n">{pct(r.modelYield)}</td>
-                    <td className="n" data-field="residual-bp">{num(r.residualBp, 2)}</td>
-                    <td className="n" data-field="residual-price">{num(r.residualPrice, 4)}</td>
+                    <td className="n">{formatPercent(r.marketYield)}</td>
+                    <td className="n">{formatPercent(r.modelYield)}</td>
+                    <td className="n" data-field="residual-bp">{bpFigure(r.residualBp)}</td>
+                    <td className="n" data-field="residual-price">{formatPrice(r.residualPrice)}</td>
                     <RepricingCell rep={rep} />
                   </tr>
                 );
@@ -202,7 +207,7 @@ function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | nu
     const last = [fit.pillars[fit.pillars.length - 1], bootstrap?.pillars[bootstrap.pillars.length - 1]].filter((p) => p !== undefined).sort((a, b) => b!.t - a!.t)[0];
     if (!last) return null;
     const grid = sampleGrid(fit.settlement, last.date, 160, fit.dayCount, fit.dayCount, { n: 3, unit: 'M' });
-    const tag = `cont, ${fit.dayCount}`;
+    const tag = rateTag('continuous', fit.dayCount);
     const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, ...BASE_STYLES.forward, points: points(fit, grid) }];
     if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, ...BASE_STYLES.zero, dash: '6 3', points: points(bootstrap, grid) });
     return { lines, xMax: last.t, lastT: Math.max(fit.lastT, bootstrap?.lastT ?? 0), tag };
@@ -233,7 +238,7 @@ function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | nu
  * computed value and the tolerance in the tooltip.
  */
 function RepricingCell({ rep }: { rep: Repricing | undefined }) {
-  if (!rep) return <td className="n">{'\u2014'}</td>;
+  if (!rep) return <td className="n">{NO_VALUE}</td>;
   const e = rep.unit === 'price' ? nearZero(rep.repricingError, 6, 'per 100 face', PRICE_ACCEPTANCE) : nearZero(rep.repricingError * 1e4, 4, 'bp', RATE_ACCEPTANCE * 1e4);
   return (
     <td className="n" title={e.title}>

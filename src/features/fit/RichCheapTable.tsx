@@ -1,5 +1,6 @@
+import { bpFigure, formatCoupon, formatPrice } from '../../core/index.ts';
 import type { RichCheapEntry } from '../../core/index.ts';
-import { num, pct, rowNumber } from '../../components/format.ts';
+import { rowNumber } from '../../components/format.ts';
 
 /**
  * Bonds against the fitted curve, richest first. Rich: the market price is above the model price
@@ -28,9 +29,9 @@ export function RichCheapTable({ entries, yieldTag, rowOfQuote }: { entries: rea
           <tr key={e.index} data-quote={e.index} className={e.included ? undefined : 'muted'}>
             <th scope="row">Row {rowNumber(rowOfQuote, e.index)}</th>
             <td>{e.maturity}</td>
-            <td className="n">{pct(e.coupon, 3)}</td>
-            <td className="n" data-field="richness">{num(e.richnessPrice, 4)}</td>
-            <td className="n" data-field="residual-bp">{num(e.residualBp, 2)}</td>
+            <td className="n">{formatCoupon(e.coupon)}</td>
+            <td className="n" data-field="richness">{formatPrice(e.richnessPrice)}</td>
+            <td className="n" data-field="residual-bp">{bpFigure(e.residualBp)}</td>
             <td data-field="verdict">
               {e.verdict}
               {e.included ? '' : ' (left out of the fit)'}

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { LIMITS } from '../../core/index.ts';
+import { formatCount, LIMITS } from '../../core/index.ts';
 import { PRINT_NOTE_CHARS } from './PrintSummary.tsx';
 
 export interface NoteEditorProps {
@@ -18,7 +18,7 @@ export function NoteEditor({ value, onChange, onDone }: NoteEditorProps) {
       <label htmlFor={id}>Note</label>
       <textarea id={id} value={value} maxLength={LIMITS.note} rows={4} onChange={(e) => onChange(e.target.value.slice(0, LIMITS.note))} onBlur={onDone} aria-describedby={`${id}-count`} />
       <span id={`${id}-count`} className={length > PRINT_NOTE_CHARS ? 'small warn' : 'small muted'}>
-        {length.toLocaleString('en-US')} / {LIMITS.note.toLocaleString('en-US')} characters
+        {formatCount(length)} / {formatCount(LIMITS.note)} characters
         {length > PRINT_NOTE_CHARS ? `; the printed page shows the first ${PRINT_NOTE_CHARS}` : ''}
       </span>
     </div>

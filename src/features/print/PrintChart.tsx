@@ -1,4 +1,5 @@
 import { scaleLinear } from 'd3-scale';
+import { formatAxisPercent } from '../../core/index.ts';
 
 /** A plain line chart for the printed page: series of (t, rate) points, straight segments, axes with units. */
 export interface PrintSeries {
@@ -54,7 +55,7 @@ export function PrintChart({ title, tag, series, xMax, lastT }: PrintChartProps)
       {yTicks.map((y, i) => (
         <g key={i}>
           <line x1={M.left} x2={W - M.right} y1={sy(y)} y2={sy(y)} stroke="#eceef1" />
-          <text x={M.left - 3} y={sy(y) + 3} fontSize={7.5} textAnchor="end">{(100 * y).toFixed(yDigits)}%</text>
+          <text x={M.left - 3} y={sy(y) + 3} fontSize={7.5} textAnchor="end">{formatAxisPercent(y, yDigits)}</text>
         </g>
       ))}
       {xTicks.map((x) => (

@@ -1,9 +1,8 @@
 import type { ReactNode } from 'react';
 import type { EffectRow } from '../../core/index.ts';
 import type { CurveTableConventions, CurveTableRow } from '../../core/index.ts';
-import { COMPOUNDING_LABEL, INTERPOLATORS } from '../../core/index.ts';
+import { couponTag, formatBpChange, formatNumber, formatPercent, INTERPOLATORS, rateTag } from '../../core/index.ts';
 import { CAUTION_TEXT } from '../../components/Caution.tsx';
-import { formatBp, formatPct } from '../scenarios/formatChange.ts';
 import './printSummary.css';
 
 /** Characters of the note printed; a longer note is cut with a marker. */
@@ -61,8 +60,6 @@ export function producedAtText(at: Date, timeZone?: string): string {
   return `${text} (${zone})`;
 }
 
-const num = (x: number | null, dp: number): string => (x === null || !Number.isFinite(x) ? '\u2014' : x.toFixed(dp));
-
 /**
  * The one-page printed summary (A4 or US Letter, portrait). Everything is text and numbers given
  * by props; nothing is read from a store. Mount it inside a PrintRoot so that printing shows it alone.
@@ -72,7 +69,7 @@ export function PrintSummary(p: PrintSummaryProps) {
   const shown = p.scenarios.slice(0, PRINT_SCENARIOS);
   const hidden = p.scenarios.length - shown.length;
   const c = p.conventions;
-  const parTag = `${COMPOUNDING_LABEL[({ 1: 'annual', 2: 'semiannual', 4: 'quarterly', 12: 'monthly' } as const)[c.parFrequency]]}, ACT/ACT-ICMA`;
+  const parTag = couponTag(c.parFrequency, 'ACT/ACT-ICMA');
   const tenors = p.keyRows.map((r) => r.label);
   return (
     <article className="print-summary" aria-label="Printed summary">
@@ -112,9 +109,9 @@ export function PrintSummary(p: PrintSummaryProps) {
                 <th>Date</th>
                 <th>t <span className="ps-unit">(yr, {p.curveDayCount})</span></th>
                 <th>DF</th>
-                <th>Zero <span className="ps-unit">({COMPOUNDING_LABEL[c.zeroCompounding]}, {c.zeroDayCount})</span></th>
+                <th>Zero <span className="ps-unit">({rateTag(c.zeroCompounding, c.zeroDayCount)})</span></th>
                 <th>Par <span className="ps-unit">({parTag})</span></th>
-                <th>Fwd {c.forwardTenor} <span className="ps-unit">({COMPOUNDING_LABEL[c.forwardCompounding]}, {c.forwardDayCount})</span></th>
+                <th>Fwd {c.forwardTenor} <span className="ps-unit">({rateTag(c.forwardCompounding, c.forwardDayCount)})</span></th>
               </tr>
             </thead>
             <tbody>
@@ -122,11 +119,11 @@ export function PrintSummary(p: PrintSummaryProps) {
                 <tr key={r.label}>
                   <th scope="row">{r.label}</th>
                   <td>{r.date}</td>
-                  <td>{num(r.t, 3)}</td>
-                  <td>{num(r.discount, 6)}</td>
-                  <td>{formatPct(r.zero)}</td>
-                  <td>{formatPct(r.par)}</td>
-                  <td>{formatPct(r.forward)}</td>
+                  <td>{formatNumber(r.t, 3)}</td>
+                  <td>{formatNumber(r.discount, 6)}</td>
+                  <td>{formatPercent(r.zero)}</td>
+                  <td>{formatPercent(r.par)}</td>
+                  <td>{formatPercent(r.forward)}</td>
                 </tr>
               ))}
             </tbody>
@@ -166,7 +163,7 @@ export function PrintSummary(p: PrintSummaryProps) {
                       <th scope="row">{t}</th>
                       {shown.map((s, i) => {
                         const row = s.rows?.find((r) => r.tenor === t) ?? null;
-                        return [<td key={`z${i}`}>{formatBp(row?.zeroBp)}</td>, <td key={`f${i}`}>{formatBp(row?.forwardBp)}</td>];
+                        return [<td key={`z${i}`}>{formatBpChange(row?.zeroBp)}</td>, <td key={`f${i}`}>{formatBpChange(row?.forwardBp)}</td>];
                       })}
                     </tr>
                   ))}

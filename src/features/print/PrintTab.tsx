@@ -1,7 +1,7 @@
 import { useMemo, type ReactNode } from 'react';
 import { applyScenario } from '../../core/index.ts';
 import { validateScenarios, workspaceHash } from '../../core/index.ts';
-import { COMPOUNDING_LABEL } from '../../core/index.ts';
+import { rateTag } from '../../core/index.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
@@ -55,7 +55,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null }: { result: W
         points: curveSeries(c.curve, display, [])[kind].map((p) => ({ x: p.x, y: p.y })),
       }));
     const { xMax, lastT } = curveSeries(curve, display, []);
-    const tag = `${COMPOUNDING_LABEL[display.compounding]}, ${display.dayCount}`;
+    const tag = rateTag(display.compounding, display.dayCount);
     return {
       keyRows: printKeyRows(curve, conv),
       conventions: conv,

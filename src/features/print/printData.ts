@@ -1,6 +1,6 @@
 import { applyScenario, COMPARISON_TENORS, scenarioEffects, type Scenario } from '../../core/index.ts';
 import { curveTable, type CurveTableConventions, type CurveTableRow } from '../../core/index.ts';
-import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
+import { zeroForwardTag, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from '../scenarios/describeShape.ts';
 import type { PrintScenario } from './PrintSummary.tsx';
 
@@ -8,8 +8,7 @@ import type { PrintScenario } from './PrintSummary.tsx';
 export const printKeyRows = (curve: Curve, conv: CurveTableConventions, tenors: readonly string[] = COMPARISON_TENORS): CurveTableRow[] => curveTable(curve, conv, tenors);
 
 /** Conventions line of the scenario table. */
-export const scenarioConventionsText = (conv: CurveTableConventions): string =>
-  `zero ${COMPOUNDING_LABEL[conv.zeroCompounding]}, ${conv.zeroDayCount}; forward ${conv.forwardTenor} ${COMPOUNDING_LABEL[conv.forwardCompounding]}, ${conv.forwardDayCount}`;
+export const scenarioConventionsText = (conv: CurveTableConventions): string => zeroForwardTag(conv);
 
 /**
  * The scenarios as printed: each applied by the core (applyScenario) and its changes at the key

@@ -1,5 +1,5 @@
 import { useEffect, useRef } from 'react';
-import { pasteQuoteCap, QUOTE_COLUMN_LABEL } from '../../core/index.ts';
+import { formatCount, pasteQuoteCap, QUOTE_COLUMN_LABEL } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 
 const SEPARATOR_TEXT: Readonly<Record<string, string>> = { '\t': 'tabs', ',': 'commas', ';': 'semicolons' };
@@ -56,8 +56,8 @@ export function PastePreview() {
       </table>
       {preview.leftOut > 0 && !preview.refusal ? (
         <p className="left-out" role="note">
-          The paste has {preview.rows.toLocaleString('en-US')} rows and a workspace holds at most {pasteQuoteCap()} quotes: replacing keeps the first {(preview.rows - preview.leftOut).toLocaleString('en-US')} and leaves out {preview.leftOut.toLocaleString('en-US')}
-          {preview.appendLeftOut > preview.leftOut ? `; appending leaves out ${preview.appendLeftOut.toLocaleString('en-US')}` : ''}.
+          The paste has {formatCount(preview.rows)} rows and a workspace holds at most {pasteQuoteCap()} quotes: replacing keeps the first {formatCount(preview.rows - preview.leftOut)} and leaves out {formatCount(preview.leftOut)}
+          {preview.appendLeftOut > preview.leftOut ? `; appending leaves out ${formatCount(preview.appendLeftOut)}` : ''}.
         </p>
       ) : null}
       {preview.refusal && (

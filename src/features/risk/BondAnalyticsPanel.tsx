@@ -12,8 +12,16 @@ import {
   type Curve,
   type DayCount,
   type Workspace,
+  couponTag,
+  NO_VALUE,
+  rateTag,
+  formatNumber,
+  bpFigure,
+  formatPrice,
+  formatPercent,
+  nearZero,
 } from '../../core/index.ts';
-import { couponTag, nearZero, num, pct, rowNumber } from '../../components/format.ts';
+import { rowNumber } from '../../components/format.ts';
 
 export interface BondAnalyticsPanelProps {
   /** The bootstrapped curve the bond is priced on (null: no curve yet). */
@@ -81,7 +89,7 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
   }, [curve, workspace, result]);
 
   const yTag = result && result.ok ? couponTag(result.value.bond.frequency, `ICMA, accrual ${result.value.bond.dayCount}`) : '';
-  const zTag = curve ? `cont, ${curve.dayCount}` : '';
+  const zTag = curve ? rateTag('continuous', curve.dayCount) : '';
   return (
     <section className="panel bond-panel" aria-label="Bond on the curve">
       <h2>Bond on the curve</h2>
@@ -122,26 +130,26 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
               <tr><th scope="col">Figure</th><th scope="col">On the curve</th>{result.value.market && <th scope="col">At the market {result.value.market.given}</th>}<th scope="col">Unit</th></tr>
             </thead>
             <tbody>
-              <Row label="Clean price" model={num(result.value.modelCleanPrice, 4)} market={result.value.market && num(result.value.market.cleanPrice, 4)} unit="per 100 face" />
-              <Row label="Dirty price" model={num(result.value.modelDirtyPrice, 4)} market={result.value.market && num(result.value.market.dirtyPrice, 4)} unit="per 100 face" />
-              <Row label="Accrued interest" model={num(result.value.accrued, 4)} market={result.value.market && num(result.value.accrued, 4)} unit={`per 100 face, ${result.value.bond.dayCount}`} />
-              <Row label="Yield to maturity" model={pct(result.value.yield)} market={result.value.market && pct(result.value.market.yield)} unit={yTag} />
-              <Row label="Modified duration −(1/P) dP/dy" model={num(result.value.modifiedDuration, 4)} market={result.value.market && num(result.value.market.modifiedDuration, 4)} unit="years" />
-              <Row label="Macaulay duration (1 + y/f) × modified" model={num(result.value.macaulayDuration, 4)} market={result.value.market && num(result.value.market.macaulayDuration, 4)} unit="years" />
-              <Row label="Convexity (1/P) d²P/dy²" model={num(result.value.convexity, 3)} market={result.value.market && num(result.value.market.convexity, 3)} unit="years²" />
-              <Row label="DV01 −dP/dy × 1e−4" model={num(result.value.dv01, 5)} market={result.value.market && num(result.value.market.dv01, 5)} unit="per 100 face per bp of yield" />
-              <Row label="Effective duration (parallel zero shift)" model={num(result.value.effectiveDuration, 4)} market={result.value.market && '\u2014'} unit={`years, shift of the ${zTag} zero`} />
-              {result.value.market && <Row label="Z-spread" model={num(0, 2)} market={num(result.value.market.zSpread * 1e4, 2)} unit={`bp, ${zTag}`} />}
+              <Row label="Clean price" model={formatPrice(result.value.modelCleanPrice)} market={result.value.market && formatPrice(result.value.market.cleanPrice)} unit="per 100 face" />
+              <Row label="Dirty price" model={formatPrice(result.value.modelDirtyPrice)} market={result.value.market && formatPrice(result.value.market.dirtyPrice)} unit="per 100 face" />
+              <Row label="Accrued interest" model={formatPrice(result.value.accrued)} market={result.value.market && formatPrice(result.value.accrued)} unit={`per 100 face, ${result.value.bond.dayCount}`} />
+              <Row label="Yield to maturity" model={formatPercent(result.value.yield)} market={result.value.market && formatPercent(result.value.market.yield)} unit={yTag} />
+              <Row label="Modified duration −(1/P) dP/dy" model={formatNumber(result.value.modifiedDuration, 4)} market={result.value.market && formatNumber(result.value.market.modifiedDuration, 4)} unit="years" />
+              <Row label="Macaulay duration (1 + y/f) × modified" model={formatNumber(result.value.macaulayDuration, 4)} market={result.value.market && formatNumber(result.value.market.macaulayDuration, 4)} unit="years" />
+              <Row label="Convexity (1/P) d²P/dy²" model={formatNumber(result.value.convexity, 3)} market={result.value.market && formatNumber(result.value.market.convexity, 3)} unit="years²" />
+              <Row label="DV01 −dP/dy × 1e−4" model={formatNumber(result.value.dv01, 5)} market={result.value.market && formatNumber(result.value.market.dv01, 5)} unit="per 100 face per bp of yield" />
+              <Row label="Effective duration (parallel zero shift)" model={formatNumber(result.value.effectiveDuration, 4)} market={result.value.market && NO_VALUE} unit={`years, shift of the ${zTag} zero`} />
+              {result.value.market && <Row label="Z-spread" model={bpFigure(0)} market={bpFigure(result.value.market.zSpread * 1e4)} unit={`bp, ${zTag}`} />}
             </tbody>
           </table>
           <table className="data" aria-label="Key-rate durations">
             <caption>
               Key-rate durations: tent-shaped shifts of the continuously compounded zero <span className="tag">{zTag}</span> at keys {DEFAULT_KEY_TENORS.join(', ')} (flat before the first and after the last,
               so the tents add up to a parallel shift); central differences at ±{result.value.keyRateBumpBp} bp and ±{result.value.keyRateBumpBp / 2} bp, Richardson-combined. Sum{' '}
-              {num(result.value.keyRateDurations.reduce((s, k) => s + k.duration, 0), 4)} years = effective duration.
+              {formatNumber(result.value.keyRateDurations.reduce((s, k) => s + k.duration, 0), 4)} years = effective duration.
             </caption>
             <thead><tr>{result.value.keyRateDurations.map((k) => <th key={k.tenor} scope="col">{k.tenor}</th>)}</tr></thead>
-            <tbody><tr>{result.value.keyRateDurations.map((k) => <td key={k.tenor} className="n" data-key={k.tenor}>{num(k.duration, 4)}</td>)}</tr></tbody>
+            <tbody><tr>{result.value.keyRateDurations.map((k) => <td key={k.tenor} className="n" data-key={k.tenor}>{formatNumber(k.duration, 4)}</td>)}</tr></tbody>
             <tfoot><tr><td colSpan={result.value.keyRateDurations.length} className="muted">years per unit of the zero shift</td></tr></tfoot>
           </table>
           {perQuote && perQuote.ok && (

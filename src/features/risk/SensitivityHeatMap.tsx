@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
-import { INTERPOLATIONS, INTERPOLATORS, parseTenor, sensitivityMapFor, type InterpolationId, type Workspace } from '../../core/index.ts';
-import { nearZero, pct, rateTag, rowNumber } from '../../components/format.ts';
+import { INTERPOLATIONS, INTERPOLATORS, parseTenor, sensitivityMapFor, type InterpolationId, type Workspace, formatPercent, nearZero, rateTag } from '../../core/index.ts';
+import { rowNumber } from '../../components/format.ts';
 
 export interface SensitivityHeatMapProps {
   /** The validated workspace whose enabled quotes build the curve (null: nothing yet). */
@@ -120,7 +120,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
               {out.value.map.rows.map((r, i) => (
                 <tr key={r.start} data-start={r.start}>
                   <th scope="row">{r.start} → {r.end}</th>
-                  <td className="n">{pct(r.rate)}</td>
+                  <td className="n">{formatPercent(r.rate)}</td>
                   {out.value.map.columns.map((c, k) => {
                     const v = out.value.map.values[i * out.value.map.columns.length + k]!;
                     const shown = nearZero(v, 2, 'bp per bp');

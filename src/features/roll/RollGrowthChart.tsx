@@ -1,7 +1,7 @@
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, curveStepAfter, line } from 'd3-shape';
 import { useId } from 'react';
-import type { GrowthSeries, StrategyDescription, StrategyId } from '../../core/index.ts';
+import { figure, type GrowthSeries, type StrategyDescription, type StrategyId } from '../../core/index.ts';
 import { useChartWidth } from '../../charts/useChartWidth.ts';
 
 /** Colours and dashes per strategy: told apart by dash as well as colour, so they survive a grey print. */
@@ -16,7 +16,8 @@ export const ROLL_STYLE: Readonly<Record<StrategyId, { colour: string; dash: str
 const W0 = 560;
 const H = 230;
 const M = { top: 10, right: 14, bottom: 34, left: 78 };
-const moneyTick = new Intl.NumberFormat('en-US', { maximumFractionDigits: 0 });
+/** Money on the axis and in the description: whole units, thousands grouped. */
+const moneyTick = (v: number): string => figure(v, 0, { group: true });
 
 export interface RollGrowthChartProps {
   /** The unit shown with money (the currency code or the generic sign). */
@@ -43,7 +44,7 @@ export function RollGrowthChart({ unit, series, strategies, viewLabel, horizon }
   const x = scaleLinear().domain([0, xMax]).range([M.left, W - M.right]);
   const y = scaleLinear().domain([yMin - pad, yMax + pad]).range([H - M.bottom, M.top]).nice(5);
   const label = (sid: StrategyId): string => strategies.find((s) => s.id === sid)?.label ?? sid;
-  const finals = series.map((s) => `${label(s.id)} ${moneyTick.format(s.points[s.points.length - 1]?.value ?? 0)}`).join('; ');
+  const finals = series.map((s) => `${label(s.id)} ${moneyTick(s.points[s.points.length - 1]?.value ?? 0)}`).join('; ');
   return (
     <figure className="roll-chart" ref={boxRef}>
       <svg viewBox={`0 0 ${W} ${H}`} width={W} height={H} role="img" aria-labelledby={`${id}-t ${id}-d`} preserveAspectRatio="xMidYMid meet">
@@ -54,7 +55,7 @@ export function RollGrowthChart({ unit, series, strategies, viewLabel, horizon }
             <g key={v}>
               <line x1={M.left} x2={W - M.right} y1={y(v)} y2={y(v)} />
               <text x={M.left - 6} y={y(v)} dy="0.32em" textAnchor="end">
-                {moneyTick.format(v)}
+                {moneyTick(v)}
               </text>
             </g>
           ))}

@@ -1,4 +1,4 @@
-import { CURVE_DAY_COUNTS } from '../../core/index.ts';
+import { CURVE_DAY_COUNTS, rateTag } from '../../core/index.ts';
 import {
   moneyUnitOf,
   parseCurrencyText,
@@ -33,7 +33,7 @@ export interface RollInputsProps {
 export function RollInputs({ strategy, onChange, views, errors, shownView }: RollInputsProps) {
   const set = (patch: Partial<StrategyInputs>) => onChange({ ...strategy, ...patch });
   const setPath = (patch: Partial<StrategyInputs['path']>) => onChange({ ...strategy, path: { ...strategy.path, ...patch } });
-  const rollTag = `%, simple ${strategy.rollDayCount}`;
+  const rollTag = `%, ${rateTag('simple', strategy.rollDayCount)}`;
   return (
     <div className="roll-inputs">
       <fieldset>

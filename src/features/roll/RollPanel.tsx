@@ -3,8 +3,10 @@ import type { Curve } from '../../core/index.ts';
 import {
   analyseRollVsTerm,
   BASE_VIEWS,
-  formatRate,
+  formatNumber,
+  formatPercent,
   rateTag,
+  RETURN_TAG,
   rollTablesCsv,
   rollSentence,
   type StrategyInputs,
@@ -64,7 +66,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
   // Messages name fields by their labels ("Horizon: ..."), never by document paths (strategy.horizon).
   if (result && !result.ok) for (const e of result.errors) fieldErrors[e.path] ??= inFieldWords(e.message);
   const analysis = result && result.ok ? result.value : null;
-  const conventions = tagOverride ?? `roll legs ${rateTag('simple', strategy.rollDayCount)}; returns ann, ACT/365F`;
+  const conventions = tagOverride ?? `roll legs ${rateTag('simple', strategy.rollDayCount)}; returns ${RETURN_TAG}`;
   return (
     <section className="roll-panel" aria-labelledby={headingId}>
       <header className="roll-head">
@@ -111,7 +113,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
             })}
           </p>
           <p className="muted small roll-facts">
-            Settlement {analysis.settlement}, horizon {analysis.horizon} ({analysis.years.toFixed(4)} years, ACT/365F). Today&rsquo;s {analysis.rollTenor} spot {formatRate(analysis.spotRollRate)}{' '}
+            Settlement {analysis.settlement}, horizon {analysis.horizon} ({formatNumber(analysis.years, 4)} years, ACT/365F). Today&rsquo;s {analysis.rollTenor} spot {formatPercent(analysis.spotRollRate)}{' '}
             <span className="tag">{rateTag('simple', analysis.rollDayCount)}</span>. Under forwards realised every strategy ends equal: that is what forward rates mean, and it is the baseline.
           </p>
           {analysis.warnings.length > 0 ? (

@@ -1,6 +1,6 @@
 import { useCallback, useMemo } from 'react';
 import { applyScenario } from '../../core/index.ts';
-import { analyseRollVsTerm, formatBp, formatMoney, formatMoneySigned, formatRate, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
+import { analyseRollVsTerm, formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
 import { inFieldWords } from './fieldWords.ts';
 import type { Curve } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
@@ -77,7 +77,7 @@ function RollPrintDetail({ analysis: a }: { analysis: RollAnalysis }) {
   const view = a.views[a.chosen]!;
   const path = a.views.find((v) => v.id === 'path');
   const rates = path ? path.legRates : [];
-  const shown = rates.slice(0, PRINT_PATH_LEGS).map((r) => formatRate(r, 2).replace(' %', ''));
+  const shown = rates.slice(0, PRINT_PATH_LEGS).map((r) => percentFigure(r, 'rateShort'));
   return (
     <div className="ps-roll-detail">
       <table className="ps-table ps-roll-table" aria-label="Roll versus term under the chosen view">
@@ -96,8 +96,8 @@ function RollPrintDetail({ analysis: a }: { analysis: RollAnalysis }) {
               <tr key={s.id}>
                 <th scope="row">{s.label}</th>
                 <td>{formatMoney(o.terminal)}</td>
-                <td>{formatRate(o.annualReturn).replace(' %', '')}</td>
-                <td>{s.id === 'roll' ? '\u2014' : `${formatMoneySigned(o.vsRoll)} \u00b7 ${formatBp(o.vsRollBp)}`}</td>
+                <td>{percentFigure(o.annualReturn)}</td>
+                <td>{s.id === 'roll' ? NO_VALUE : `${formatMoneySigned(o.vsRoll)} \u00b7 ${formatBpChange(o.vsRollBp)}`}</td>
               </tr>
             );
           })}

@@ -1,8 +1,11 @@
 import {
-  formatBp,
+  formatBpChange,
   formatMoney,
   formatMoneySigned,
-  formatRate,
+  formatNumber,
+  formatPercent,
+  formatPrice,
+  NO_VALUE,
   parsePercentText,
   percentText,
   rateTag,
@@ -62,14 +65,14 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
               <td>{leg.start}</td>
               <td>{leg.end}</td>
               <td className="num">{leg.days}</td>
-              <td className="num">{leg.tau.toFixed(6)}</td>
-              <td className="num">{formatRate(leg.forward, 4)}</td>
-              {editing ? null : <td className="num">{formatRate(chosen.legRates[k]!, 4)}</td>}
+              <td className="num">{formatNumber(leg.tau, 6)}</td>
+              <td className="num">{formatPercent(leg.forward)}</td>
+              {editing ? null : <td className="num">{formatPercent(chosen.legRates[k]!)}</td>}
               <td className="num">
                 {k > 0 ? (
                   <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!, 4)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="6em" />
                 ) : (
-                  <span title="bought today">{formatRate(path.legRates[k]!, 4)}</span>
+                  <span title="bought today">{formatPercent(path.legRates[k]!)}</span>
                 )}
               </td>
               <td className="num">{formatMoney(analysis.rollValues[k]!)}</td>
@@ -115,10 +118,10 @@ export function RollResultsTable({ analysis }: { analysis: RollAnalysis }) {
                 return (
                   <td key={v.id} className={`num${i === analysis.chosen ? ' chosen' : ''}${v.best === s.id && v.id !== 'forwards' ? ' best' : ''}`}>
                     <span className="roll-value">{formatMoney(o.terminal)}</span>
-                    <span className="roll-sub">{formatRate(o.annualReturn)}</span>
+                    <span className="roll-sub">{formatPercent(o.annualReturn)}</span>
                     {s.id === 'roll' ? null : (
                       <span className="roll-sub">
-                        {formatMoneySigned(o.vsRoll)} · {formatBp(o.vsRollBp)}
+                        {formatMoneySigned(o.vsRoll)} · {formatBpChange(o.vsRollBp)}
                       </span>
                     )}
                   </td>
@@ -147,7 +150,7 @@ export function RidingSplitTable({ analysis }: { analysis: RollAnalysis }) {
       <caption>
         Riding the {analysis.ridingBond.maturity} bond under {v.label}{' '}
         <span className="muted small">
-          in {analysis.moneyUnit}; yield today {formatRate(analysis.ridingYield)} <span className="tag">{yieldTag(analysis.ridingBond.frequency)}</span>; horizon price {r.horizonPrice.toFixed(4)} per 100 face (dirty)
+          in {analysis.moneyUnit}; yield today {formatPercent(analysis.ridingYield)} <span className="tag">{yieldTag(analysis.ridingBond.frequency)}</span>; horizon price {formatPrice(r.horizonPrice)} per 100 face (dirty)
         </span>
       </caption>
       <tbody>
@@ -176,7 +179,7 @@ export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
         <caption>
           Break-evens under {v.label}{' '}
           <span className="muted small">
-            r*: constant rate for legs 2{n > 2 ? `\u2013${n}` : ''} (leg 1 at today&rsquo;s spot {formatRate(analysis.spotRollRate)}), % <span className="tag">{tag}</span>, found by Brent&rsquo;s method
+            r*: constant rate for legs 2{n > 2 ? `\u2013${n}` : ''} (leg 1 at today&rsquo;s spot {formatPercent(analysis.spotRollRate)}), % <span className="tag">{tag}</span>, found by Brent&rsquo;s method
           </span>
         </caption>
         <thead>
@@ -190,16 +193,16 @@ export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
           {(['zero', 'bond', 'riding'] as const).map((id) => (
             <tr key={id}>
               <th scope="row">{label(id)}</th>
-              <td className="num">{b.rollRate[id] === null ? 'none (single leg or no crossing)' : formatRate(b.rollRate[id])}</td>
-              {showShift ? <td className="num">{b.shiftBp[id] === null ? 'none' : formatBp(b.shiftBp[id])}</td> : null}
+              <td className="num">{b.rollRate[id] === null ? 'none (single leg or no crossing)' : formatPercent(b.rollRate[id])}</td>
+              {showShift ? <td className="num">{b.shiftBp[id] === null ? 'none' : formatBpChange(b.shiftBp[id])}</td> : null}
             </tr>
           ))}
         </tbody>
       </table>
       <p className="small">
         Riding the {analysis.ridingBond.maturity} bond: the horizon curve can rise in parallel by{' '}
-        <strong>{b.ridingRiseBp.roll === null ? 'n/a' : formatBp(b.ridingRiseBp.roll)}</strong> (zero rates, <span className="tag">cont, {analysis.curveDayCount}</span>) before it falls behind rolling, and by{' '}
-        {b.ridingRiseBp.zero === null ? 'n/a' : formatBp(b.ridingRiseBp.zero)} before it falls behind the zero to the horizon.
+        <strong>{b.ridingRiseBp.roll === null ? NO_VALUE : formatBpChange(b.ridingRiseBp.roll)}</strong> (zero rates, <span className="tag">{rateTag('continuous', analysis.curveDayCount)}</span>) before it falls behind rolling, and by{' '}
+        {b.ridingRiseBp.zero === null ? NO_VALUE : formatBpChange(b.ridingRiseBp.zero)} before it falls behind the zero to the horizon.
         {b.ridingRiseBp.roll !== null && b.ridingRiseBp.roll < 0 ? ' A negative figure means it is already behind and needs the curve to fall.' : ''}
       </p>
       {b.curve.length > 0 ? (
@@ -223,8 +226,8 @@ export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
                 <th scope="row">
                   {p.tenor} <span className="muted small">{p.maturity}</span>
                 </th>
-                <td className="num">{formatRate(p.yield)}</td>
-                <td className="num">{p.riseBp === null ? 'none' : formatBp(p.riseBp)}</td>
+                <td className="num">{formatPercent(p.yield)}</td>
+                <td className="num">{p.riseBp === null ? 'none' : formatBpChange(p.riseBp)}</td>
               </tr>
             ))}
           </tbody>

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { applyScenario, COMPARISON_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
-import { COMPOUNDING_LABEL, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
+import { rateTag, zeroForwardTag, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from './describeShape.ts';
 import { ScenarioForm } from './ScenarioForm.tsx';
 import { ScenarioShapeChart } from './ScenarioShapeChart.tsx';
@@ -21,8 +21,7 @@ export interface ScenarioPanelProps {
   readonly tenors?: readonly string[];
 }
 
-export const effectConventionsText = (c: EffectConventions): string =>
-  `zero ${COMPOUNDING_LABEL[c.zeroCompounding]}, ${c.zeroDayCount}; forward ${c.forwardTenor} ${COMPOUNDING_LABEL[c.forwardCompounding]}, ${c.forwardDayCount}`;
+export const effectConventionsText = (c: EffectConventions): string => zeroForwardTag(c);
 
 /** Scenarios: the list with each shape beside its effect on forwards, a form to add one, and the table of changes. */
 export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = COMPARISON_TENORS }: ScenarioPanelProps) {
@@ -68,7 +67,7 @@ export function ScenarioPanel({ value, onChange, workspace, base, buildOptions =
                     Remove
                   </button>
                 </div>
-                {error ? <p className="field-error">{error}</p> : result && <ScenarioShapeChart name={s.name} samples={result.samples} nodes={result.nodes} moves={s.space === 'zero' ? `zero rates (cont, ${base?.dayCount ?? ''})` : 'each quote in its own convention'} dayCount={base?.dayCount ?? ''} />}
+                {error ? <p className="field-error">{error}</p> : result && <ScenarioShapeChart name={s.name} samples={result.samples} nodes={result.nodes} moves={s.space === 'zero' ? `zero rates (${rateTag('continuous', base?.dayCount ?? '')})` : 'each quote in its own convention'} dayCount={base?.dayCount ?? ''} />}
               </li>
             ))}
           </ul>

@@ -1,4 +1,4 @@
-import type { ShapeSample } from '../../core/index.ts';
+import { formatNumber, rateTag, type ShapeSample } from '../../core/index.ts';
 import { useChartWidth } from '../../charts/useChartWidth.ts';
 
 export interface ScenarioShapeChartProps {
@@ -36,8 +36,8 @@ export function ScenarioShapeChart({ name, samples, nodes, moves, dayCount }: Sc
     <figure className="scenario-shape" ref={boxRef}>
       <svg viewBox={`0 0 ${W} ${H}`} width={W} height={H} role="img" aria-label={`${name}: shift in bp by maturity (solid) and change of the instantaneous forward in bp (dashed)`}>
         <line x1={M.left} x2={W - M.right} y1={sy(0)} y2={sy(0)} stroke="#d9dde3" />
-        <text x={M.left - 3} y={sy(hi) + 3} fontSize={FONT} textAnchor="end">{hi.toFixed(0)}</text>
-        <text x={M.left - 3} y={sy(lo) + 3} fontSize={FONT} textAnchor="end">{lo.toFixed(0)}</text>
+        <text x={M.left - 3} y={sy(hi) + 3} fontSize={FONT} textAnchor="end">{formatNumber(hi, 0)}</text>
+        <text x={M.left - 3} y={sy(lo) + 3} fontSize={FONT} textAnchor="end">{formatNumber(lo, 0)}</text>
         <text x={M.left - 3} y={sy(0) + 3} fontSize={FONT} textAnchor="end">0</text>
         <text x={W - M.right} y={M.top + 2} fontSize={FONT} textAnchor="end" fill="#5f6671">bp</text>
         {[0, 5, 10, 20, 30, 40, 50].filter((x) => x <= xMax).map((x) => (
@@ -53,7 +53,7 @@ export function ScenarioShapeChart({ name, samples, nodes, moves, dayCount }: Sc
         ))}
       </svg>
       <figcaption className="small muted">
-        Solid: shift, bp, of {moves}. Dashed: change of the instantaneous forward, bp (cont, {dayCount}). Years on {dayCount}.
+        Solid: shift, bp, of {moves}. Dashed: change of the instantaneous forward, bp ({rateTag('continuous', dayCount)}). Years on {dayCount}.
       </figcaption>
     </figure>
   );

@@ -1,5 +1,4 @@
-import type { EffectRow } from '../../core/index.ts';
-import { formatBp } from './formatChange.ts';
+import { formatBpChange, NO_VALUE, type EffectRow } from '../../core/index.ts';
 
 export interface ScenarioTableProps {
   readonly tenors: readonly string[];
@@ -36,8 +35,8 @@ export function ScenarioTable({ tenors, columns, conventions }: ScenarioTablePro
             {columns.map((c) => {
               const r = c.rows?.find((x) => x.tenor === t) ?? null;
               return [
-                <td key={`${c.id}z`} className="num" data-cell={`${c.id}:${t}:zero`}>{c.error ? '\u2014' : formatBp(r?.zeroBp)}</td>,
-                <td key={`${c.id}f`} className="num" data-cell={`${c.id}:${t}:forward`}>{c.error ? '\u2014' : formatBp(r?.forwardBp)}</td>,
+                <td key={`${c.id}z`} className="num" data-cell={`${c.id}:${t}:zero`}>{c.error ? NO_VALUE : formatBpChange(r?.zeroBp)}</td>,
+                <td key={`${c.id}f`} className="num" data-cell={`${c.id}:${t}:forward`}>{c.error ? NO_VALUE : formatBpChange(r?.forwardBp)}</td>,
               ];
             })}
           </tr>

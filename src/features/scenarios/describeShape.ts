@@ -1,6 +1,4 @@
-import type { ScenarioShape } from '../../core/index.ts';
-
-const bpText = (x: number): string => `${x > 0 ? '+' : x < 0 ? '\u2212' : ''}${Math.abs(x)} bp`;
+import { formatBpSetting as bpText, type ScenarioShape } from '../../core/index.ts';
 
 /** One line that says what a scenario's shape does, for lists and the printed page. */
 export function describeShape(shape: ScenarioShape): string {

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { applyScenario } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
-import { COMPOUNDING_LABEL } from '../../core/index.ts';
+import { rateTag } from '../../core/index.ts';
 import type { ChartLine } from '../../charts/RateChart.tsx';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
@@ -24,7 +24,7 @@ export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[];
     const forward: ChartLine[] = [];
     const failed: string[] = [];
     if (!curve || !ws) return { zero, forward, notDrawn: 0, failed };
-    const tag = `${COMPOUNDING_LABEL[display.compounding]}, ${display.dayCount}`;
+    const tag = rateTag(display.compounding, display.dayCount);
     const { scenarios } = validateScenarios(value);
     scenarios
       .slice(0, SCENARIO_OVERLAY_MAX)

@@ -10,9 +10,9 @@ import {
   type CurveDayCount,
   type Extrapolation,
   type InterpolationId,
+  rateTag,
 } from '../../core/index.ts';
 import { FORWARD_TENORS, type ForwardTenor, type MaturityAxis } from '../../core/index.ts';
-import { rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
 
 const COMPOUNDING_TEXT: Readonly<Record<Compounding, string>> = {

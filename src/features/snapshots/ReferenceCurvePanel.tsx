@@ -1,9 +1,8 @@
 import { useMemo, useState } from 'react';
 import { useReferenceInput } from '../compare/referenceInput.ts';
-import { parseReferenceCsv, QUOTE_UNIT_LABEL, QUOTE_UNIT_MODES, referenceConvention, referenceDifferences, type QuoteUnitMode } from '../../core/index.ts';
+import { formatBpChange, formatNumber, formatPercent, parseReferenceCsv, QUOTE_UNIT_LABEL, QUOTE_UNIT_MODES, referenceConvention, referenceDifferences, type QuoteUnitMode } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
-import { formatBp, formatPct } from '../scenarios/formatChange.ts';
 
 /**
  * Reference curve: paste or open a CSV of discount factors or zero rates by date from another
@@ -38,7 +37,7 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
               const f = e.target.files?.[0];
               if (!f) return;
               if (f.size > 2_000_000) {
-                setFileError(`${f.name} is ${(f.size / 1e6).toFixed(1)} MB; a reference curve file is at most 2 MB (${2000} rows).`);
+                setFileError(`${f.name} is ${formatNumber(f.size / 1e6, 1)} MB; a reference curve file is at most 2 MB (${2000} rows).`);
                 return;
               }
               setFileError(null);
@@ -108,9 +107,9 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
             {rows.map((r) => (
               <tr key={r.date}>
                 <th scope="row">{r.date}</th>
-                <td className="num">{formatPct(r.referenceZero)}</td>
-                <td className="num">{formatPct(r.zero)}</td>
-                <td className="num">{r.note ?? formatBp(r.differenceBp)}</td>
+                <td className="num">{formatPercent(r.referenceZero)}</td>
+                <td className="num">{formatPercent(r.zero)}</td>
+                <td className="num">{r.note ?? formatBpChange(r.differenceBp)}</td>
               </tr>
             ))}
           </tbody>

@@ -1,8 +1,7 @@
 import { useMemo, useState } from 'react';
 import { compareCurves, COMPARISON_TENORS, rebuildSnapshot, takeSnapshot, type CompareBy, type Snapshot } from '../../core/index.ts';
 import { validateSnapshots } from '../../core/index.ts';
-import { COMPOUNDING_LABEL, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
-import { formatBp, formatPct } from '../scenarios/formatChange.ts';
+import { formatBpChange, formatPercent, rateTag, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
 import '../scenarios/scenarios.css';
 
 export interface SnapshotPanelProps {
@@ -34,7 +33,7 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
   const pick = Math.min(chosen, snapshots.length - 1);
   const other = pick >= 0 ? rebuilt[pick]?.build.curve ?? null : null;
   const rows = current && other ? compareCurves(current, other, tenors, by, compounding, dayCount) : [];
-  const tag = `${COMPOUNDING_LABEL[compounding]}, ${dayCount}`;
+  const tag = rateTag(compounding, dayCount);
   const take = (): void => {
     if (!currentDocument) return;
     onChange([...snapshots, takeSnapshot(currentDocument, name.trim() || `Snapshot ${snapshots.length + 1}`, now())]);
@@ -115,10 +114,10 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
                   <tr key={r.tenor}>
                     <th scope="row">{r.tenor}</th>
                     <td>{r.date}</td>
-                    <td className="num">{formatPct(r.zero)}</td>
+                    <td className="num">{formatPercent(r.zero)}</td>
                     <td>{r.otherDate}</td>
-                    <td className="num">{formatPct(r.otherZero)}</td>
-                    <td className="num">{formatBp(r.differenceBp)}</td>
+                    <td className="num">{formatPercent(r.otherZero)}</td>
+                    <td className="num">{formatBpChange(r.differenceBp)}</td>
                   </tr>
                 ))}
               </tbody>

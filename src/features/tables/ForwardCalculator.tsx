@@ -1,6 +1,5 @@
 import { useId, useMemo } from 'react';
-import { forwardBetween, type Curve } from '../../core/index.ts';
-import { num, pct, rateTag } from '../../components/format.ts';
+import { forwardBetween, type Curve, formatNumber, formatPercent, rateTag } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 import { setViewValues, viewList } from '../../state/viewValues.ts';
 import { EditLock } from '../../components/EditLock.tsx';
@@ -85,11 +84,11 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
                 </td>
                 {r.ok ? (
                   <>
-                    <td className="n">{num(r.value.tau, 6)}</td>
-                    <td className="n">{num(r.value.dfStart, 8)}</td>
-                    <td className="n">{num(r.value.dfEnd, 8)}</td>
+                    <td className="n">{formatNumber(r.value.tau, 6)}</td>
+                    <td className="n">{formatNumber(r.value.dfStart, 8)}</td>
+                    <td className="n">{formatNumber(r.value.dfEnd, 8)}</td>
                     <td className="n" data-forward={i + 1}>
-                      {pct(r.value.rate)}
+                      {formatPercent(r.value.rate)}
                       {r.value.extrapolated ? <abbr title="past the last pillar: extrapolated">*</abbr> : null}
                     </td>
                   </>

@@ -1,7 +1,6 @@
 import { useMemo, useState } from 'react';
 import { setViewValues, viewText } from '../../state/viewValues.ts';
-import { fixedLegConvention, forwardOn, forwardParRateOn, marketDate, parseTenor, type Curve, type FixedLegConvention, type Workspace } from '../../core/index.ts';
-import { couponTag, pct, rateTag } from '../../components/format.ts';
+import { fixedLegConvention, forwardOn, forwardParRateOn, marketDate, parseTenor, type Curve, type FixedLegConvention, type Workspace, couponTag, formatPercent, rateTag } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 import { EditLock } from '../../components/EditLock.tsx';
 
@@ -103,7 +102,7 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
               <th scope="row">{STARTS[i]}</th>
               {row.map((c, j) => (
                 <td key={TENORS[j]} className="n" title={c.note ?? `${STARTS[i]!.toLowerCase()}${TENORS[j]!.toLowerCase()}`} data-cell={`${STARTS[i]}x${TENORS[j]}`}>
-                  {pct(c.rate)}
+                  {formatPercent(c.rate)}
                   {c.extrapolated ? '*' : ''}
                 </td>
               ))}

@@ -1,6 +1,5 @@
 import { useMemo } from 'react';
-import { forwardStrip, parseTenor, type Curve } from '../../core/index.ts';
-import { num, pct, rateTag } from '../../components/format.ts';
+import { forwardStrip, parseTenor, type Curve, formatNumber, formatPercent, rateTag } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 
 /** Consecutive forwards of the chosen tenor from settlement to the last pillar. */
@@ -33,8 +32,8 @@ export function ForwardStripTable({ curve }: { curve: Curve }) {
               <td className="n">{i + 1}</td>
               <td>{f.start}</td>
               <td>{f.end}</td>
-              <td className="n">{num(f.tau, 6)}</td>
-              <td className="n">{pct(f.rate)}</td>
+              <td className="n">{formatNumber(f.tau, 6)}</td>
+              <td className="n">{formatPercent(f.rate)}</td>
             </tr>
           ))}
         </tbody>

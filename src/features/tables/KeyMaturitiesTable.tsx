@@ -1,6 +1,6 @@
+import { couponTag, formatNumber, formatPercent, rateTag } from '../../core/index.ts';
 import { useMemo } from 'react';
 import type { Curve } from '../../core/index.ts';
-import { couponTag, num, pct, rateTag } from '../../components/format.ts';
 import { useAppStore } from '../../state/store.ts';
 import { keyMaturityRows } from './keyMaturities.ts';
 
@@ -39,12 +39,12 @@ export function KeyMaturitiesTable({ curve }: { curve: Curve }) {
           <tr key={r.tenor} data-tenor={r.tenor} title={r.note ?? undefined}>
             <th scope="row">{r.tenor}</th>
             <td>{r.date}</td>
-            <td className="n">{num(r.t, 4)}</td>
-            <td className="n" data-field="discount">{num(r.discount, 8)}</td>
-            <td className="n" data-field="zero">{pct(r.zero)}</td>
-            <td className="n" data-field="par">{pct(r.par)}</td>
+            <td className="n">{formatNumber(r.t, 4)}</td>
+            <td className="n" data-field="discount">{formatNumber(r.discount, 8)}</td>
+            <td className="n" data-field="zero">{formatPercent(r.zero)}</td>
+            <td className="n" data-field="par">{formatPercent(r.par)}</td>
             <td className={`n${r.extrapolated ? ' extrapolated' : ''}`} data-field="forward">
-              {pct(r.forward)}
+              {formatPercent(r.forward)}
               {r.extrapolated ? '*' : ''}
             </td>
           </tr>

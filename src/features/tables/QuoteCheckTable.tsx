@@ -1,11 +1,10 @@
 import { useMemo } from 'react';
 import type { Curve, Quote, Repricing } from '../../core/index.ts';
-import { PRICE_ACCEPTANCE, quoteConvention, quoteSchedule, RATE_ACCEPTANCE, type QuoteSchedule } from '../../core/index.ts';
-import { conventionTag, nearZero, num, pct } from '../../components/format.ts';
+import { PRICE_ACCEPTANCE, quoteConvention, quoteConventionTag, quoteSchedule, RATE_ACCEPTANCE, type QuoteSchedule, formatNumber, formatQuotePrice, formatQuoteRate, nearZero } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 
-const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? num(v, 6) : pct(v, 6));
+const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? formatQuotePrice(v) : formatQuoteRate(v));
 /**
  * Repricing error: bp for a rate quote, per 100 face for a price quote. Anything inside the
  * bootstrap's acceptance (RATE_ACCEPTANCE, PRICE_ACCEPTANCE) is an exact reprice and shows as zero,
@@ -65,9 +64,9 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
                   {rep && q ? (
                     <>
                       <td>{rep.maturity}</td>
-                      <td className="n">{num(rep.t, 6)}</td>
+                      <td className="n">{formatNumber(rep.t, 6)}</td>
                       <td>
-                        {rep.field} <span className="tag">{conventionTag(quoteConvention(q))}</span>
+                        {rep.field} <span className="tag">{quoteConventionTag(quoteConvention(q))}</span>
                       </td>
                       <td className="n">{showQuote(rep, rep.market)}</td>
                       <td className="n">{showQuote(rep, rep.model)}</td>
@@ -119,11 +118,11 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
             <tr key={r.end}>
               <td>{r.start}</td>
               <td>{r.end}</td>
-              <td className="n">{num(r.yearFraction, 8)}</td>
-              <td className="n">{num(r.cashFlow, 6)}</td>
-              <td className="n">{num(r.t, 6)}</td>
-              <td className="n">{num(r.discount, 8)}</td>
-              <td className="n">{num(r.presentValue, 6)}</td>
+              <td className="n">{formatNumber(r.yearFraction, 8)}</td>
+              <td className="n">{formatNumber(r.cashFlow, 6)}</td>
+              <td className="n">{formatNumber(r.t, 6)}</td>
+              <td className="n">{formatNumber(r.discount, 8)}</td>
+              <td className="n">{formatNumber(r.presentValue, 6)}</td>
             </tr>
           ))}
         </tbody>

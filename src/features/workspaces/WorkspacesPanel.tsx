@@ -1,7 +1,6 @@
 import { download } from '../../components/download.ts';
 import { useRef, useState, type ChangeEvent } from 'react';
-import { parseDocumentText, readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../../core/index.ts';
-import { pct, rateTag } from '../../components/format.ts';
+import { formatCount, parseDocumentText, readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument, formatRateShort, rateTag } from '../../core/index.ts';
 import { makeRowId } from '../../state/ids.ts';
 import { addWorkspaces, allRecords, deleteWorkspace, readEntry, renameWorkspace, switchWorkspace, undoDelete } from '../../state/persistence.ts';
 import { useAppStore } from '../../state/store.ts';
@@ -39,7 +38,7 @@ export async function exportAll(): Promise<string> {
 export function readListFile(text: string, fileName: string): { items: { name: string; workspace: WorkbenchDocument }[]; problems: string[] } {
   const problems: string[] = [];
   const items: { name: string; workspace: WorkbenchDocument }[] = [];
-  if (text.length > MAX_LIST_CHARS) return { items, problems: [`${fileName} has ${text.length.toLocaleString('en-US')} characters; a list file is at most ${MAX_LIST_CHARS.toLocaleString('en-US')}`] };
+  if (text.length > MAX_LIST_CHARS) return { items, problems: [`${fileName} has ${formatCount(text.length)} characters; a list file is at most ${formatCount(MAX_LIST_CHARS)}`] };
   let json: unknown;
   try {
     json = JSON.parse(text);
@@ -75,7 +74,7 @@ export function readListFile(text: string, fileName: string): { items: { name: s
 function Spark({ doc }: { doc: WorkbenchDocument }) {
   const spark = zeroSparkline(doc);
   if (!spark) return <span className="ws-spark ws-spark-none">no curve</span>;
-  const range = `${pct(spark.low, 2)} to ${pct(spark.high, 2)}`;
+  const range = `${formatRateShort(spark.low)} to ${formatRateShort(spark.high)}`;
   return (
     <span className="ws-spark-wrap">
       <svg className="ws-spark" width={SPARK_WIDTH} height={SPARK_HEIGHT} viewBox={`0 0 ${SPARK_WIDTH} ${SPARK_HEIGHT}`} role="img" aria-label={`Zero curve from ${range} (${rateTag(spark.compounding, spark.dayCount)})`}>

@@ -22,7 +22,7 @@ describe('rollTablesCsv(analysis, unit)', () => {
 
   it('writes every view by every strategy with exact money and rates, and marks the best', () => {
     const start = rows.findIndex((row) => row[0] === 'strategies by views') + 2;
-    expect(rows[start - 1]).toEqual(['view', 'strategy', 'terminal value (EUR, unrounded)', 'annualised return (decimal, annual, ACT/365F)', 'against rolling (EUR)', 'against rolling (bp a year, annual, ACT/365F)', 'best under this view']);
+    expect(rows[start - 1]).toEqual(['view', 'strategy', 'terminal value (EUR, unrounded)', 'annualised return (decimal, ann, ACT/365F)', 'against rolling (EUR)', 'against rolling (bp a year, ann, ACT/365F)', 'best under this view']);
     let k = start;
     for (const v of a.views) {
       for (const s of v.strategies) {

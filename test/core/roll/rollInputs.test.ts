@@ -74,7 +74,7 @@ describe('money', () => {
   it('rounds to cents half away from zero only for display (common practice for cash display)', () => {
     expect(formatMoney(new MoneyDecimal('1234567.005'))).toBe('1,234,567.01');
     expect(formatMoney(new MoneyDecimal('-0.004'))).toBe('0.00');
-    expect(formatMoney(new MoneyDecimal('-1234.565'))).toBe('-1,234.57');
+    expect(formatMoney(new MoneyDecimal('-1234.565'))).toBe('\u22121,234.57'); // the display minus, U+2212 (one minus sign on screen and in print)
     expect(formatMoneySigned(new MoneyDecimal('12'))).toBe('+12.00');
     // 0.1 + 0.2 in decimal is exactly 0.3: no float residue reaches the cents
     expect(new MoneyDecimal('0.1').plus('0.2').toFixed()).toBe('0.3');

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { conventionTag } from '../../src/components/format.ts';
-import { quoteConvention, validateWorkspace, type Quote } from '../../src/core/index.ts';
-import { workspaceDoc } from '../helpers/markets.ts';
+import { quoteConvention, quoteConventionTag, validateWorkspace, type Quote } from '../../../src/core/index.ts';
+import { workspaceDoc } from '../../helpers/markets.ts';
 
 // The quote check's "Quoted as" tag: the kind's quote convention (a value from its module) written
 // in one place. Every rate carries its compounding and day count, every price its unit. The
@@ -14,9 +13,9 @@ const quote = (raw: Record<string, string | number>): Quote => {
   expect(v.errors).toEqual([]);
   return v.workspace!.quotes[0]!;
 };
-const tag = (raw: Record<string, string | number>): string => conventionTag(quoteConvention(quote(raw)));
+const tag = (raw: Record<string, string | number>): string => quoteConventionTag(quoteConvention(quote(raw)));
 
-describe('conventionTag(quoteConvention(q))', () => {
+describe('quoteConventionTag(quoteConvention(q))', () => {
   it('writes a rate with its compounding and day count', () => {
     expect(tag({ kind: 'deposit', tenor: '3M', rate: 0.0287 })).toBe('simple, ACT/360');
     expect(tag({ kind: 'bill', maturity: '2027-09-09', discountYield: 0.0285 })).toBe('discount, ACT/360');
