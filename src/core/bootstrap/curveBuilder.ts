@@ -87,8 +87,9 @@ function sameButValues(from: CompiledFrom, quotes: readonly Quote[]): boolean {
     if (a.index !== b.index || a.kind !== b.kind) return false;
     const value = from.fieldOf[a.index as number];
     // Quotes of one kind carry the same fields (validation writes them all): comparing a's suffices.
+    // Object.is: a coupon of -0 is not the coupon 0 it would be compiled as.
     for (const k in a) {
-      if (a[k] !== b[k] && (k !== value || typeof b[k] !== 'number')) return false;
+      if (!Object.is(a[k], b[k]) && (k !== value || typeof b[k] !== 'number')) return false;
     }
   }
   return true;

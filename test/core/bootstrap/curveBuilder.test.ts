@@ -105,6 +105,15 @@ describe('CurveBuilder.build', () => {
       expect(builder.lastPath, what).toBe('compiled');
       expectSameBuild(built, buildCurve(edit), what);
     }
+    // A zero coupon given as -0 is another coupon for the compiled flows (amounts of -0): compiled.
+    {
+      const zeroCoupon = withQuote(fixture, 9, { coupon: 0 });
+      const builder = new CurveBuilder();
+      builder.build(zeroCoupon);
+      const negative = withQuote(fixture, 9, { coupon: -0 });
+      expectSameBuild(builder.build(negative), buildCurve(negative), 'coupon -0');
+      expect(builder.lastPath).toBe('compiled');
+    }
     // A bond switched from price to yield changes the field its instrument reads: compiled.
     const bond = (fixture.quotes as QuoteDoc[]).findIndex((q) => q.kind === 'bond');
     expect(bond).toBeGreaterThanOrEqual(0);
