@@ -45,7 +45,7 @@ export interface WorkbenchBuild {
  */
 export const workbenchBuilder = new CurveBuilder();
 
-/** Builds the curve from the document's inputs (engine document, then buildCurve with skipInvalid). */
+/** Builds the curve from the document's inputs (engine document, then the workbench builder with skipInvalid). */
 export function deriveBuild(
   ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve'> & { readonly display?: Pick<WorkbenchDocument['display'], 'dateOrder' | 'decimalMark'> },
   interpolation?: WorkbenchDocument['curve']['interpolation']): WorkbenchBuild {
