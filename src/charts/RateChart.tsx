@@ -39,6 +39,9 @@ export interface RateChartProps {
   readonly yLabel: string;
 }
 
+/** No pillar ticks (one list, so PillarTicks stays memoised). */
+const NO_PILLARS: NonNullable<RateChartProps['pillars']> = [];
+
 /** Drawing width before the chart's box is measured (user units = CSS pixels once measured). */
 const W0 = 540;
 /** Height for a drawing width: about 0.7 of it, between 240 and 400 px, so the plot scales and the text does not. */
@@ -70,7 +73,7 @@ export function nearestIndex(points: readonly SamplePoint[], x: number): number 
  * hover position, so both charts show the same maturity.
  */
 export const RateChart = memo(function RateChart(props: RateChartProps) {
-  const { name, description, lines, markers = [], pillars = [], xMax, axis, xLabel, yLabel } = props;
+  const { name, description, lines, markers = [], pillars = NO_PILLARS, xMax, axis, xLabel, yLabel } = props;
   const descId = useId();
   const [boxRef, W, measured] = useChartWidth<HTMLElement>(W0);
   const H = heightFor(W);
@@ -185,11 +188,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
             {yLabel}
           </text>
         </g>
-        {pillars.map((p) => (
-          <line key={`p${p.date}`} x1={x(p.x)} x2={x(p.x)} y1={H - M.bottom} y2={H - M.bottom - 7} stroke={PALETTE.pillar} strokeWidth={1.5}>
-            <title>{`Pillar ${p.date}`}</title>
-          </line>
-        ))}
+        <PillarTicks pillars={pillars} x={x} h={H} />
         {paths.map(({ l, solid, dashed }) => (
           <g key={l.id} data-series={l.id}>
             <path d={solid} fill="none" stroke={l.colour} strokeWidth={l.width ?? 2} strokeDasharray={l.dash} strokeLinejoin="round" />
@@ -208,6 +207,22 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
         <Readout lines={lines} />
       </figcaption>
     </figure>
+  );
+});
+
+/**
+ * The pillar dates as ticks on the x axis. Memoised: a value edit keeps the pillars (the same
+ * list, see baseCurveSeries) and the x scale, so their elements are not rendered again.
+ */
+const PillarTicks = memo(function PillarTicks({ pillars, x, h: H }: { pillars: NonNullable<RateChartProps['pillars']>; x: (v: number) => number; h: number }) {
+  return (
+    <>
+      {pillars.map((p) => (
+        <line key={`p${p.date}`} x1={x(p.x)} x2={x(p.x)} y1={H - M.bottom} y2={H - M.bottom - 7} stroke={PALETTE.pillar} strokeWidth={1.5}>
+          <title>{`Pillar ${p.date}`}</title>
+        </line>
+      ))}
+    </>
   );
 });
 

@@ -2,7 +2,7 @@ import {
   analyzeBond,
   bondYieldConvention,
   rateTag,
-  buildCurve,
+  CurveBuilder,
   documentCapErrors,
   DAY_COUNTS,
   isDayCount,
@@ -277,7 +277,7 @@ const failedLine = (index: number, errors: readonly CoreError[]): string => JSON
 const skippedRow = (e: CoreError): CoreWarning => ({ path: e.path, quote: e.quote, code: 'skipped', message: `${e.message}; left out` });
 
 /** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
-function runDocument(index: number, input: unknown, opts: Options): { line: string; errors: readonly CoreError[] } {
+function runDocument(index: number, input: unknown, opts: Options, builder: CurveBuilder): { line: string; errors: readonly CoreError[] } {
   const capped = documentCapErrors(input);
   if (capped.length > 0) return { line: failedLine(index, capped), errors: capped };
   // A workbench document (quote cells as typed) is read as the workbench reads it; engine
@@ -285,7 +285,7 @@ function runDocument(index: number, input: unknown, opts: Options): { line: stri
   const read = engineFromAnyDocument(input);
   const failed = (errors: readonly CoreError[]) => ({ line: failedLine(index, errors), errors });
   if (read.errors.length > 0 && !opts.skipInvalid) return failed(read.errors);
-  const built = buildCurve(read.doc, { skipInvalid: opts.skipInvalid, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
+  const built = builder.build(read.doc, { skipInvalid: opts.skipInvalid, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
   const build = read.rowOfQuote === null ? built : { ...built, errors: atInputRows(built.errors, read.rowOfQuote), warnings: [...read.errors.map(skippedRow), ...atInputRows(built.warnings, read.rowOfQuote)] };
   if (!build.curve || build.errors.length > 0) return failed(build.errors);
   const curve = build.curve;
@@ -295,11 +295,15 @@ function runDocument(index: number, input: unknown, opts: Options): { line: stri
   // Performance: plain loops, not flatMap and spreads (measured: they cost more than the
   // bootstrap itself in a batch).
   let finite = true;
-  const dates = opts.at ? opts.at.map((p) => resolve(p, settlement)) : curve.pillars.map((p) => p.date);
+  const at = opts.at;
+  const pillars = curve.pillars;
+  const count = at ? at.length : pillars.length;
   const points: PointOut[] = [];
-  for (let i = 0; i < dates.length; i++) {
-    const date = dates[i]!;
-    const z = zeroOn(curve, date, opts.compounding, dc, opts.at ? `--at[${i}]` : `quotes[${curve.pillars[i]!.quote}]`);
+  for (let i = 0; i < count; i++) {
+    const date = at ? resolve(at[i]!, settlement) : pillars[i]!.date;
+    // Performance: the query's path names it only in an error, so it is spelled out only then.
+    let z = zeroOn(curve, date, opts.compounding, dc, '');
+    if (!z.ok) z = zeroOn(curve, date, opts.compounding, dc, at ? `--at[${i}]` : `quotes[${pillars[i]!.quote}]`);
     if (!z.ok) {
       errors.push(...z.errors);
       continue;
@@ -368,10 +372,14 @@ function runDocument(index: number, input: unknown, opts: Options): { line: stri
       else if (typeof x === 'object') finite &&= Object.values(x as Record<string, number>).every(Number.isFinite);
     }
   }
-  const quotes = build.repricing.map((r): QuoteOut => {
+  const repricing = build.repricing;
+  const rowOf = read.rowOfQuote;
+  const quotes: QuoteOut[] = [];
+  for (let i = 0; i < repricing.length; i++) {
+    const r = repricing[i]!;
     finite &&= Number.isFinite(r.t) && Number.isFinite(r.repricingError);
-    return { index: read.rowOfQuote === null ? r.index : (read.rowOfQuote[r.index] ?? r.index), kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError };
-  });
+    quotes.push({ index: rowOf === null ? r.index : (rowOf[r.index] ?? r.index), kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError });
+  }
   if (!finite) {
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });
   }
@@ -432,6 +440,9 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
   } catch (e) {
     return usage(`cannot read ${opts.file}: ${(e as Error).message}`);
   }
+  // One builder for the run: documents of one market at other quotes (a batch of days or
+  // scenarios) re-quote its compiled instruments instead of compiling them again.
+  const builder = new CurveBuilder();
   let stdout = '';
   let stderr = '';
   let errorLines = 0;
@@ -457,7 +468,7 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
       errors = [{ path: '', quote: null, code: entry.code, message: entry.error }];
       line = failedLine(index, errors);
     } else {
-      ({ line, errors } = runDocument(index, entry.doc, opts));
+      ({ line, errors } = runDocument(index, entry.doc, opts, builder));
     }
     stdout += line + '\n';
     if (errors.length > 0) {

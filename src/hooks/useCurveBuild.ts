@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { bootstrapInstruments, buildCurve, curveSetOf, type CurveBuild, type Quote } from '../core/index.ts';
+import { buildCurve, CurveBuilder, type CurveBuild } from '../core/index.ts';
 import {
   isQuoteUnitMode,
   parseRow,
@@ -15,7 +15,6 @@ import {
   type WorkbenchDocument,
 } from '../core/index.ts';
 import { useAppStore } from '../state/store.ts';
-import { compiledInstruments } from './compiledInstruments.ts';
 
 /** Parse results by row object: a one-cell edit creates one new row object, so only it is re-parsed. */
 const parseCache = new WeakMap<QuoteRow, { mode: QuoteUnitMode; conventions: InputConventions; parse: RowParse }>();
@@ -40,74 +39,13 @@ export interface WorkbenchBuild {
   readonly fatal: string | null;
 }
 
-/** The field holding each engine quote's quoted value (the one a typed number changes). */
-const VALUE_FIELDS = ['rate', 'discountYield', 'price', 'cleanPrice', 'yield'] as const;
-
-/** Everything about the engine document except the quoted values: equal keys mean only values moved. */
-function structureKey(doc: Record<string, unknown>): string {
-  const quotes = doc.quotes as Record<string, unknown>[];
-  const shapes = quotes.map((q) => {
-    const shape: Record<string, unknown> = { ...q };
-    for (const f of VALUE_FIELDS) {
-      if (typeof q[f] === 'number') shape[f] = '#';
-    }
-    return shape;
-  });
-  return JSON.stringify([doc.settlement, doc.curve, shapes]);
-}
-
-/** The last build, kept only when its instruments match its pillars one for one (see compiledInstruments). */
-interface FastCache {
-  readonly key: string;
-  readonly build: CurveBuild;
-}
-let fast: FastCache | null = null;
-
 /**
- * buildCurve, with the engine's fast rebuild when only quoted values moved since the last call
- * (a number typed into one cell): the compiled instruments are re-quoted (`requote`) and
- * bootstrapped again, skipping validation and schedule generation. Anything else (a kind, a
- * maturity, a convention, a row switched off) takes the full buildCurve.
+ * The workbench's builder: it keeps the market compiled for the last document, so a number typed
+ * into one cell re-quotes the compiled instruments instead of compiling them again (see CurveBuilder).
  */
-export function buildWithReuse(doc: Record<string, unknown>): CurveBuild {
-  const key = structureKey(doc);
-  if (fast && fast.key === key && fast.build.workspace && fast.build.curve) {
-    const prev = fast.build;
-    const ws = prev.workspace!;
-    const valueOf = (q: Quote): Quote => {
-      const raw = (doc.quotes as Record<string, unknown>[])[q.index]!;
-      const patch: Record<string, unknown> = {};
-      for (const f of VALUE_FIELDS) if (typeof raw[f] === 'number') patch[f] = raw[f];
-      return { ...q, ...patch } as Quote;
-    };
-    const quotes = ws.quotes.map(valueOf);
-    const instruments = prev.instruments.map((ins) => {
-      const raw = (doc.quotes as Record<string, unknown>[])[ins.index]!;
-      return ins.requote(raw[ins.field] as number);
-    });
-    const outcome = bootstrapInstruments({ settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation }, instruments);
-    if (outcome.curve) {
-      const build: CurveBuild = {
-        curve: outcome.curve,
-        curves: curveSetOf(outcome.curve),
-        errors: outcome.errors,
-        warnings: [...prev.warnings.filter((w) => w.code !== 'negative-forward'), ...outcome.warnings],
-        repricing: [...outcome.repricing].sort((a, b) => a.index - b.index),
-        leftOut: prev.leftOut,
-        workspace: { ...ws, quotes },
-        instruments,
-      };
-      fast = { key, build };
-      return build;
-    }
-  }
-  const build = buildCurve(doc, { skipInvalid: true });
-  fast = null;
-  if (compiledInstruments(build)) fast = { key, build };
-  return build;
-}
+export const workbenchBuilder = new CurveBuilder();
 
-/** Builds the curve from the document's inputs (engine document, then buildCurve with skipInvalid). */
+/** Builds the curve from the document's inputs (engine document, then the workbench builder with skipInvalid). */
 export function deriveBuild(
   ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve'> & { readonly display?: Pick<WorkbenchDocument['display'], 'dateOrder' | 'decimalMark'> },
   interpolation?: WorkbenchDocument['curve']['interpolation']): WorkbenchBuild {
@@ -120,7 +58,7 @@ export function deriveBuild(
     return { conversion, build, rowIssues: [], invalidCount: 0, disabledCount: 0, fatal };
   }
   const conversion = toEngineDocument(ws, parseRowCached);
-  const build = interpolation ? buildCurve(conversion.doc, { skipInvalid: true, interpolation }) : buildWithReuse(conversion.doc);
+  const build = workbenchBuilder.build(conversion.doc, interpolation ? { skipInvalid: true, interpolation } : { skipInvalid: true });
   const fromEngine = rowIssuesFromEngine(
     [...build.errors, ...build.warnings.filter((w) => w.code === 'skipped' || w.code === 'negative-forward').map((w) => ({ ...w, message: w.message.replace(/^skipped: /, '') }))],
     conversion.rowOfQuote,

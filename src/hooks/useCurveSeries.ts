@@ -3,6 +3,7 @@ import { addDays, daysBetween, parseTenor, type Curve, type Repricing } from '..
 import {
   forwardSamples,
   instantaneousSamples,
+  lnOnGrid,
   parBondsGrid,
   parGrid,
   parSamples,
@@ -89,10 +90,11 @@ export function curveSeries(curve: Curve, display: DisplaySettings, repricing: r
       return y === undefined ? [] : [{ date: r.maturity, x: r.t, y, extrapolated: false, quote: r.index, kind: r.kind }];
     });
   }
+  const ln = lnOnGrid(curve, grid); // read by both lines
   return {
-    zero: points(zeroSamples(curve, grid, display.compounding)),
+    zero: points(zeroSamples(curve, grid, display.compounding, ln)),
     par,
-    forward: points(forwardSamples(curve, grid, display.compounding)),
+    forward: points(forwardSamples(curve, grid, display.compounding, ln)),
     instantaneous: display.showInstantaneous ? points(instantaneousSamples(curve, grid)) : [],
     markers,
     pillars: curve.pillars.map((p) => ({ x: p.t, date: p.date })),
@@ -111,10 +113,16 @@ let lastSeries: { readonly curve: Curve; readonly display: DisplaySettings; read
  */
 export function baseCurveSeries(curve: Curve, display: DisplaySettings, repricing: readonly Repricing[]): CurveSeries {
   if (lastSeries && lastSeries.curve === curve && lastSeries.display === display && lastSeries.repricing === repricing) return lastSeries.series;
-  const series = curveSeries(curve, display, repricing);
+  let series = curveSeries(curve, display, repricing);
+  // A value edit keeps every pillar's date and time: the last pillar list is kept too (the same
+  // object), so the charts' pillar ticks are not rendered again (RateChart's PillarTicks).
+  const kept = lastSeries?.series.pillars;
+  if (kept && samePillars(kept, series.pillars)) series = { ...series, pillars: kept };
   lastSeries = { curve, display, repricing, series };
   return series;
 }
+
+const samePillars = (a: CurveSeries['pillars'], b: CurveSeries['pillars']): boolean => a.length === b.length && a.every((p, i) => p.x === b[i]!.x && p.date === b[i]!.date);
 
 export function useCurveSeries(curve: Curve | null, display: DisplaySettings, repricing: readonly Repricing[]): CurveSeries | null {
   return useMemo(() => (curve ? baseCurveSeries(curve, display, repricing) : null), [curve, display, repricing]);

@@ -1,5 +1,5 @@
-import { useEffect, useMemo, useState } from 'react';
-import { buildCurve, INTERPOLATIONS, type InterpolationId } from '../core/index.ts';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { CurveBuilder, INTERPOLATIONS, type InterpolationId } from '../core/index.ts';
 import type { DisplaySettings } from '../core/index.ts';
 import { forwardSeries, type SamplePoint } from './useCurveSeries.ts';
 
@@ -28,6 +28,9 @@ export const whenIdle: Idle = (cb) => {
  */
 export function useMethodOverlay(doc: Record<string, unknown> | null, displayAll: DisplaySettings, enabled: boolean): readonly MethodForwards[] {
   const [state, setState] = useState<{ key: unknown; rows: MethodForwards[] }>({ key: null, rows: [] });
+  // One builder: the methods share the market (the interpolation does not enter it), so only the
+  // first method's build compiles it, and a value edit re-quotes it.
+  const builder = useRef<CurveBuilder | null>(null);
   // Only what the forwards depend on: an axis or checkbox change does not rebuild them.
   const { compounding, dayCount, forwardTenor } = displayAll;
   const display = useMemo(() => ({ ...displayAll, compounding, dayCount, forwardTenor }), [compounding, dayCount, forwardTenor]); // eslint-disable-line
@@ -41,7 +44,8 @@ export function useMethodOverlay(doc: Record<string, unknown> | null, displayAll
     const step = (): void => {
       const method = INTERPOLATIONS[k++];
       if (!method) return;
-      const b = buildCurve(doc, { skipInvalid: true, interpolation: method });
+      builder.current ??= new CurveBuilder();
+      const b = builder.current.build(doc, { skipInvalid: true, interpolation: method });
       if (b.curve) {
         rows.push({ method, points: forwardSeries(b.curve, display), error: null });
       } else rows.push({ method, points: [], error: b.errors[0]?.message ?? 'no curve' });

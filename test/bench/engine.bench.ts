@@ -8,7 +8,10 @@
 //   monotone-convex rebuild                                              median <= 10 x log-linear
 //     (the two timed in alternating blocks, so a change of host speed cannot skew their ratio)
 //   cubic-zero rebuild                                                   median <= 1 ms
-//   command-line batch, marginal time per document (parse and print)     <= 200 us
+//   command-line batch, marginal time per document (parse and print)     <= 80 us
+//     (issue 16; the batch repeats one document, so from the second on the command's CurveBuilder
+//     re-quotes the first one's instruments; a batch whose quotes move in every document is printed
+//     beside it as a diagnostic, without a target)
 // Medians are over >= 1,000 timed runs after a warm-up (2,000 runs for the first figure, so the
 // engine is compiled by then), except the command-line figure, which is
 // the median over repeated batch pairs of (T(2N) - T(N)) / N with N = 500 documents (so every
@@ -99,6 +102,7 @@ const rebuild = (interpolation: InterpolationId) => {
 };
 
 const rows: { figure: string; value: string; target: string; pass: boolean }[] = [];
+const diagnostics: string[] = [];
 const us = (x: number): string => `${x.toFixed(1)} us`;
 
 const logLinear = timeMedian(rebuild('log-linear-discount'), 2000, 2000);
@@ -150,7 +154,30 @@ rows.push({ figure: 'rebuild, moved quotes, cubic-zero (median of 1000)', value:
   const marginals: number[] = [];
   for (let rep = 0; rep < 9; rep++) marginals.push((await run(large) - (await run(small))) / N);
   const marginal = median(marginals);
-  rows.push({ figure: `CLI batch, marginal time per document (N = ${N} vs ${2 * N}, median of 9 pairs)`, value: us(marginal), target: '<= 200 us', pass: marginal <= 200 });
+  rows.push({ figure: `CLI batch, marginal time per document (N = ${N} vs ${2 * N}, median of 9 pairs)`, value: us(marginal), target: '<= 80 us', pass: marginal <= 80 });
+  // Diagnostic: the same market with every quote moved by a step that differs from document to
+  // document, written as a quote is (a rate to 7 decimals, a price to 4), so each document is
+  // re-quoted and prints numbers whose text V8 has not cached.
+  const moving = (count: number): string => {
+    let out = '';
+    for (let k = 0; k < count; k++) {
+      const quotes = (doc.quotes as Record<string, unknown>[]).map((q, i) => {
+        const o = { ...q };
+        const step = ((i + k) % 1000) + 1;
+        if (typeof q.rate === 'number') o.rate = Number((q.rate + 1e-7 * step).toFixed(7));
+        if (typeof q.cleanPrice === 'number') o.cleanPrice = Number((q.cleanPrice + 1e-4 * step).toFixed(4));
+        return o;
+      });
+      out += JSON.stringify({ ...doc, quotes }) + '\n';
+    }
+    return out;
+  };
+  const smallMoving = moving(N);
+  const largeMoving = moving(2 * N);
+  await run(smallMoving); // warm-up
+  const moved: number[] = [];
+  for (let rep = 0; rep < 9; rep++) moved.push((await run(largeMoving) - (await run(smallMoving))) / N);
+  diagnostics.push(`diagnostic (no target): CLI batch whose quotes move in every document, marginal time per document: ${us(median(moved))}`);
 }
 
 if (failures > 0) rows.push({ figure: 'builds that failed during timing', value: String(failures), target: '0', pass: false });
@@ -163,6 +190,7 @@ console.log(`engine benchmark, market40 fixture (40 quotes), Node ${process.vers
 console.log(line('figure', 'value', 'target', 'pass'));
 for (const r of rows) console.log(line(r.figure, r.value, r.target, r.pass ? 'pass' : 'MISS'));
 const missed = rows.filter((r) => !r.pass).length;
+for (const d of diagnostics) console.log(d);
 console.log(missed === 0 ? 'all targets met' : `${missed} target(s) missed`);
 console.log(machineReferenceLine());
 process.exitCode = missed === 0 ? 0 : 1;

@@ -1,22 +1,24 @@
-// The fast rebuild (re-quoted compiled instruments) must give exactly what a full buildCurve
-// gives for the same document: same pillars, same discount factors, same repricing.
+// The workbench's build: buildCurve's compiled instruments, the workbench builder (one CurveBuilder,
+// whose paths test/core/bootstrap/curveBuilder.test.ts holds to fresh builds) on value edits, and
+// the row issues deriveBuild places.
 import { buildCurve } from '../../src/core/index.ts';
 import { toEngineDocument } from '../../src/core/index.ts';
-import { buildWithReuse, deriveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { deriveBuild, workbenchBuilder } from '../../src/hooks/useCurveBuild.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 
 let n = 0;
 const demo = demoWorkspace(() => `u${n++}`);
 const withRate = (row: number, rate: string) => ({ ...demo, quotes: demo.quotes.map((q, i) => (i === row ? { ...q, rate } : q)) });
 
-describe('buildWithReuse', () => {
-  it.each(['monotone-convex', 'log-linear-discount', 'cubic-zero'] as const)('after a value edit equals a full buildCurve (%s)', (interpolation) => {
+describe('deriveBuild through the workbench builder', () => {
+  it.each(['monotone-convex', 'log-linear-discount', 'cubic-zero'] as const)('a value edit re-quotes and equals a full buildCurve (%s)', (interpolation) => {
     const base = { ...demo, curve: { ...demo.curve, interpolation } };
-    buildWithReuse(toEngineDocument(base).doc); // primes the cache
+    deriveBuild(base); // the builder now holds this market
     for (const [row, rate] of [[3, '4.55'], [15, '4.31'], [0, '\u22120.10']] as const) {
-      const doc = toEngineDocument({ ...withRate(row, rate), curve: base.curve }).doc;
-      const fast = buildWithReuse(doc);
-      const full = buildCurve(doc, { skipInvalid: true });
+      const edited = { ...withRate(row, rate), curve: base.curve };
+      const fast = deriveBuild(edited).build;
+      expect(workbenchBuilder.lastPath).toBe('requoted');
+      const full = buildCurve(toEngineDocument(edited).doc, { skipInvalid: true });
       expect(fast.errors).toEqual(full.errors);
       expect(fast.curve!.pillars).toEqual(full.curve!.pillars);
       expect(fast.repricing).toEqual(full.repricing);
@@ -37,12 +39,12 @@ describe('buildWithReuse', () => {
     expect(buildCurve({ ...toEngineDocument(demo).doc, settlement: 'soon' }).instruments).toEqual([]);
   });
 
-  it('a change of maturity or kind takes the full build', () => {
-    const doc1 = toEngineDocument(demo).doc;
-    buildWithReuse(doc1);
+  it('a change of maturity takes the full build', () => {
+    deriveBuild(demo);
     const moved = { ...demo, quotes: demo.quotes.map((q, i) => (i === 2 ? { ...q, maturity: '10W' } : q)) };
-    const doc2 = toEngineDocument(moved).doc;
-    expect(buildWithReuse(doc2).curve!.pillars).toEqual(buildCurve(doc2, { skipInvalid: true }).curve!.pillars);
+    const built = deriveBuild(moved).build;
+    expect(workbenchBuilder.lastPath).toBe('compiled');
+    expect(built.curve!.pillars).toEqual(buildCurve(toEngineDocument(moved).doc, { skipInvalid: true }).curve!.pillars);
   });
 });
 

@@ -6,8 +6,8 @@ import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
-import { validateWorkspace } from '../document/validate.ts';
-import type { Repricing } from './bootstrap.ts';
+import { validateWorkspace, type ValidationOutcome } from '../document/validate.ts';
+import type { BootstrapOutcome, Repricing } from './bootstrap.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
 
 const NO_CURVES: CurveSet = {};
@@ -19,15 +19,16 @@ export interface LeftOut {
   readonly message: string;
 }
 
-export interface CurveBuild {
-  /** The curve every instrument reads today (discounting and projection): `curves.discount`, or null. */
-  readonly curve: Curve | null;
+/**
+ * A document's build: the bootstrap's outcome (curve, errors, warnings, repricing, sweeps), its
+ * curves by role, and what the document made of its quotes. `curve` is the curve every instrument
+ * reads today (discounting and projection), `curves.discount`, or null. `repricing` is in document
+ * order here (the bootstrap gives it in pillar order); without a bootstrap (a refused document or
+ * market) it is empty and `sweeps` is 0.
+ */
+export interface CurveBuild extends BootstrapOutcome {
   /** The build's curves by name (CurveSet); one, `discount`, today, none without a curve. */
   readonly curves: CurveSet;
-  readonly errors: readonly CoreError[];
-  readonly warnings: readonly CoreWarning[];
-  /** Repricing of every quote that is a node, in document order. */
-  readonly repricing: readonly Repricing[];
   readonly leftOut: readonly LeftOut[];
   /** The validated workspace (null when the document itself is unusable). */
   readonly workspace: Workspace | null;
@@ -129,18 +130,34 @@ export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quot
  * the errors, the warnings and the quotes left out; never throws on bad input.
  */
 export function buildCurve(doc: unknown, options: BuildOptions = {}): CurveBuild {
-  const validation = validateWorkspace(doc);
+  return buildValidated(validateWorkspace(doc), options, compileWorkspace);
+}
+
+/** The market of a validated workspace: `compileMarket` of its quotes (or the builder's re-quoted one). */
+export type MarketOf = (ws: Workspace, skipDuplicates: boolean) => CompiledMarket;
+
+const compileWorkspace: MarketOf = (ws, skipDuplicates) => compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, skipDuplicates);
+
+/**
+ * buildCurve after validation: a refused document gives its errors; otherwise the market made by
+ * `marketOf` is bootstrapped (it is not called for a refused document).
+ */
+export function buildValidated(validation: ValidationOutcome, options: BuildOptions, marketOf: MarketOf): CurveBuild {
   const ws = validation.workspace;
-  const empty = { curve: null, curves: NO_CURVES, repricing: [], leftOut: [], warnings: [], instruments: [] };
+  const empty = { curve: null, curves: NO_CURVES, repricing: [], leftOut: [], warnings: [], instruments: [], sweeps: 0 };
   if (!ws) return { ...empty, errors: validation.errors, workspace: null };
   const skip = options.skipInvalid === true;
   if (validation.errors.length > 0 && !skip) return { ...empty, errors: validation.errors, workspace: ws };
-  return buildFromWorkspace(ws, options, validation.errors);
+  return buildFromMarket(ws, options, validation.errors, marketOf(ws, skip));
 }
 
 /** Builds a validated workspace; `invalid` are the per-quote validation errors being skipped. */
 export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, invalid: readonly CoreError[] = []): CurveBuild {
-  const skip = options.skipInvalid === true;
+  return buildFromMarket(ws, options, invalid, compileWorkspace(ws, options.skipInvalid === true));
+}
+
+/** buildFromWorkspace with the workspace's market already made (compiled, or re-quoted by a CurveBuilder). */
+function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly CoreError[], market: CompiledMarket): CurveBuild {
   const warnings: CoreWarning[] = [];
   const leftOut: LeftOut[] = [];
   const skipped = new Set<number>();
@@ -160,12 +177,11 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     interpolation: options.interpolation ?? ws.curve.interpolation,
     extrapolation: options.extrapolation ?? ws.curve.extrapolation,
   };
-  const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, skip);
   for (const e of market.duplicates) {
     warnings.push({ path: e.path, quote: e.quote, code: 'skipped', message: `skipped: ${e.message}` });
     leftOut.push({ index: e.quote!, reason: 'invalid', message: e.message });
   }
-  const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws, instruments: [] };
+  const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws, instruments: [], sweeps: 0 };
   if (market.errors.length > 0) return { ...base, curve: null, curves: NO_CURVES, errors: market.errors, warnings, repricing: [] };
   if (market.instruments.length === 0) {
     return {
@@ -192,5 +208,6 @@ export function buildFromWorkspace(ws: Workspace, options: BuildOptions = {}, in
     errors: outcome.errors,
     warnings: outcome.warnings.length === 0 ? warnings : [...warnings, ...outcome.warnings],
     repricing,
+    sweeps: outcome.sweeps,
   };
 }

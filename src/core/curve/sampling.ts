@@ -102,23 +102,40 @@ function collect(n: number, f: (i: number, push: (date: IsoDate, x: number, y: n
   return { dates, x: new Float64Array(x), y: new Float64Array(y), extrapolated: ex };
 }
 
-/** Zero rates in compounding c on the grid's display day count (settlement itself is skipped: no period). */
-export function zeroSamples(curve: Curve, grid: SampleGrid, c: Compounding): Samples {
+/**
+ * ln DF at each of the grid's sample times: what the zero line reads at each date and the forward
+ * line at each start. Performance: curveSeries computes it once for both lines.
+ */
+export function lnOnGrid(curve: Curve, grid: SampleGrid): Float64Array {
+  const n = grid.t.length;
+  const ln = new Float64Array(n);
+  for (let i = 0; i < n; i++) ln[i] = curve.lnDiscountAt(grid.t[i]!);
+  return ln;
+}
+
+/**
+ * Zero rates in compounding c on the grid's display day count (settlement itself is skipped: no
+ * period). `ln`: lnOnGrid of the same curve and grid, when the caller has it.
+ */
+export function zeroSamples(curve: Curve, grid: SampleGrid, c: Compounding, ln: Float64Array = lnOnGrid(curve, grid)): Samples {
   return collect(grid.dates.length, (i, push) => {
     const t = grid.t[i]!;
     const tau = grid.tauZero[i]!;
     if (!(tau > 0) || !usable(curve, t)) return;
-    push(grid.dates[i]!, t, rateFromLnDiscount(curve.lnDiscountAt(t), c, tau), t > curve.lastT);
+    push(grid.dates[i]!, t, rateFromLnDiscount(ln[i]!, c, tau), t > curve.lastT);
   });
 }
 
-/** Forwards of the grid's tenor starting at each grid date, in compounding c on the display day count. */
-export function forwardSamples(curve: Curve, grid: SampleGrid, c: Compounding): Samples {
+/**
+ * Forwards of the grid's tenor starting at each grid date, in compounding c on the display day
+ * count. `ln`: lnOnGrid of the same curve and grid, when the caller has it.
+ */
+export function forwardSamples(curve: Curve, grid: SampleGrid, c: Compounding, ln: Float64Array = lnOnGrid(curve, grid)): Samples {
   return collect(grid.dates.length, (i, push) => {
     const s = grid.t[i]!;
     const e = grid.endT[i]!;
     if (!usable(curve, e) || !(grid.tauForward[i]! > 0)) return;
-    const lnS = s <= 0 ? 0 : curve.lnDiscountAt(s);
+    const lnS = s <= 0 ? 0 : ln[i]!;
     push(grid.dates[i]!, s, rateFromLnDiscount(curve.lnDiscountAt(e) - lnS, c, grid.tauForward[i]!), e > curve.lastT);
   });
 }
