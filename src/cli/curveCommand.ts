@@ -20,6 +20,13 @@ import {
   engineFromAnyDocument,
   parseTenor,
   resolveMarketDate,
+  businessCalendar,
+  closedWeekdays,
+  compareIso,
+  outsideCalendar,
+  serialFromIso,
+  type BusinessCalendar,
+  BUILT_IN_CALENDARS,
   zeroOn,
   type Compounding,
   type CoreError,
@@ -62,6 +69,14 @@ interface Options {
   extrapolate: Extrapolation | null;
   skipInvalid: boolean;
   bonds: BondSpec[];
+  holidays: HolidayRequest[];
+}
+
+/** One `--holidays CALENDAR,FROM,TO`: the calendar read and the dates checked. */
+interface HolidayRequest {
+  readonly calendar: BusinessCalendar;
+  readonly from: string;
+  readonly to: string;
 }
 
 /** One `--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]`, maturity still a date or tenor. */
@@ -76,6 +91,7 @@ interface BondSpec {
 
 const USAGE =
   'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid] [--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]]...\n' +
+  '       npm run --silent curve -- --holidays CALENDAR,FROM,TO [--holidays ...] [FILE]\n' +
   '       npm run --silent curve -- --help | --version\n' +
   '  FILE is a workspace JSON document or NDJSON, or - for standard input; dates are YYYY-MM-DD or tenors (3M, 2Y) from settlement\n' +
   '  --bond (repeatable) adds bond analytics off the curve: coupon and yield are decimals, price=P is clean per 100 face\n';
@@ -89,6 +105,8 @@ const HELP =
   `  --day-count DC        ${CURVE_DAY_COUNTS.join(', ')} (default the curve's)\n` +
   `  --extrapolate E       ${EXTRAPOLATIONS.join(', ')} (default the document's)\n` +
   '  --skip-invalid        build from the valid quotes and list the others under warnings\n' +
+  '  --holidays C,FROM,TO  (repeatable; no FILE needed) one line per calendar with the weekdays from FROM to TO\n' +
+  `                        it is closed: ${BUILT_IN_CALENDARS.join(', ')}, joined with + (a holiday in any)\n` +
   '  --help, -h            this text;  --version  the version\n' +
   '  Input: one JSON document (pretty-printed or not) or NDJSON (one document per line), read line by line;\n' +
   '  a leading byte-order mark is skipped. Options other than --at, --forward and --bond may be given once.\n' +
@@ -105,14 +123,14 @@ const isPoint = (s: string): boolean => isIsoDate(s) || parseTenor(s) !== null;
 const SINGLE = ['--compounding', '--day-count', '--extrapolate', '--skip-invalid'];
 
 function parseArgs(args: readonly string[]): Options | { readonly show: 'help' | 'version' } | string {
-  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, bonds: [] };
+  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, bonds: [], holidays: [] };
   const files: string[] = [];
   const given = new Set<string>();
   for (let i = 0; i < args.length; i++) {
     const arg = args[i]!;
     const eq = arg.startsWith('--') ? arg.indexOf('=') : -1;
     const name = eq > 0 ? arg.slice(0, eq) : arg;
-    const takesValue = ['--at', '--forward', '--compounding', '--day-count', '--extrapolate', '--bond'].includes(name);
+    const takesValue = ['--at', '--forward', '--compounding', '--day-count', '--extrapolate', '--bond', '--holidays'].includes(name);
     let value: string | undefined;
     if (takesValue) {
       value = eq > 0 ? arg.slice(eq + 1) : args[++i];
@@ -166,6 +184,12 @@ function parseArgs(args: readonly string[]): Options | { readonly show: 'help' |
         opts.bonds.push(spec);
         break;
       }
+      case '--holidays': {
+        const request = parseHolidays(value!);
+        if (typeof request === 'string') return `--holidays "${value!.slice(0, 80)}": ${request}`;
+        opts.holidays.push(request);
+        break;
+      }
       case '--skip-invalid':
         if (eq > 0) return '--skip-invalid takes no value';
         opts.skipInvalid = true;
@@ -175,10 +199,29 @@ function parseArgs(args: readonly string[]): Options | { readonly show: 'help' |
         files.push(arg);
     }
   }
+  if (files.length === 0 && opts.holidays.length > 0) return opts;
   if (files.length !== 1) return files.length === 0 ? 'give one FILE (or - for standard input)' : `give one FILE, not ${files.length}`;
   opts.file = files[0]!;
   return opts;
 }
+
+/** Parses CALENDAR,FROM,TO for --holidays; a message naming what is wrong and what would be valid. */
+function parseHolidays(text: string): HolidayRequest | string {
+  const parts = text.split(',').map((s) => s.trim());
+  if (parts.length !== 3) return 'must be CALENDAR,FROM,TO, for example target,2026-01-01,2026-12-31';
+  const [id, from, to] = parts as [string, string, string];
+  const cal = businessCalendar(id);
+  if (!cal.ok) return cal.message;
+  for (const d of [from, to]) if (!isIsoDate(d)) return `"${String(d).slice(0, 20)}" is not a date YYYY-MM-DD`;
+  if (compareIso(from, to) > 0) return `FROM ${from} is after TO ${to}`;
+  const outside = outsideCalendar(cal.calendar, serialFromIso(from)) ?? outsideCalendar(cal.calendar, serialFromIso(to));
+  if (outside !== null) return outside;
+  return { calendar: cal.calendar, from, to };
+}
+
+/** The --holidays lines: one JSON object per request, `{"calendar", "from", "to", "holidays": [ISO dates]}`. */
+const holidayLines = (requests: readonly HolidayRequest[]): string =>
+  requests.map((r) => JSON.stringify({ calendar: r.calendar.id, from: r.from, to: r.to, holidays: closedWeekdays(r.calendar, r.from, r.to) }) + '\n').join('');
 
 const NUMBER_RE = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
@@ -434,6 +477,17 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
       return { stdout: '', stderr: `curve: cannot write standard output: ${(e as Error).message}\n`, status: 2, outputClosed: true };
     }
   }
+  if (opts.holidays.length > 0) {
+    const lines = holidayLines(opts.holidays);
+    if (opts.file === '') {
+      if (!write) return { stdout: lines, stderr: '', status: 0, outputClosed: false };
+      try {
+        return { stdout: '', stderr: '', status: 0, outputClosed: (await write(lines)) === false };
+      } catch (e) {
+        return { stdout: '', stderr: `curve: cannot write standard output: ${(e as Error).message}\n`, status: 2, outputClosed: true };
+      }
+    }
+  }
   let input: InputText;
   try {
     input = read(opts.file);
@@ -450,6 +504,8 @@ export async function runCurveCommand(args: readonly string[], read: (file: stri
   let index = 0;
   let closed = false;
   let writeFailure: unknown = null;
+  // --holidays lines come before the documents' lines (the documents' pieces follow them).
+  if (opts.holidays.length > 0) stdout = holidayLines(opts.holidays);
   /** Hands a piece to the writer; a writer that throws counts as an output that cannot be written. */
   const put = async (text: string): Promise<void> => {
     try {
