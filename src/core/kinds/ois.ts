@@ -1,6 +1,7 @@
 import type { OisQuote } from '../document/types.ts';
 import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
 import { compileOis } from '../instruments/ois.ts';
+import { oisScheduleRows } from '../input/quoteSchedule.ts';
 import { coreError, ok, type CoreError } from '../result.ts';
 import { BUILT_IN_CALENDARS, BUSINESS_DAY_RULES } from '../time/calendars.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
@@ -74,6 +75,8 @@ export const OIS: QuoteKindModule<OisQuote> = {
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
   fit: { per100: 100, dollarDuration: oisDollarDuration, richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
+  fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
+  schedule: oisScheduleRows,
 };
 
 /** The calendar id as text (`weekends` when absent); whether it names a calendar is checked with the dates. */

@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import {
+  bumpedForwardSensitivities,
+  forwardRows,
+  forwardSensitivities,
+  luFactor,
+  luInverse,
+  modelYieldNodeJacobian,
+  quoteNodeJacobian,
+  quoteSchedule,
   bootstrapInstruments,
   buildCurve,
   compileMarket,
@@ -252,5 +260,59 @@ describe('OIS input errors name the quote and the field and say what would be va
     const e = at({ kind: 'ois', maturity: '2026-04-13', rate: 0.04, ...SOFR_LIKE });
     expect(e.path).toBe('quotes[0].maturity');
     expect(e.message).toMatch(/^quotes\[0\]\.maturity: 2026-04-13 is not after the swap's start 2026-04-14/);
+  });
+});
+
+describe('risk on an OIS curve reads the floating leg\'s slopes (targetSlopes)', () => {
+  // As test/core/analytics/forwardSensitivity.test.ts does for the fixed-flow kinds: for an exact
+  // bootstrap (dq/dx from the model-quote formulas) x (dq/dx from the pricing equations)^-1 = I,
+  // and analytic forward sensitivities match bumped rebuilds (central 1 bp and 0.5 bp, Richardson)
+  // to 1e-6 bp per bp. The pricing equation of a lagged OIS has the floating leg as its target, so
+  // both fail if its slopes are wrong.
+  const ws = validateWorkspace(workspaceDoc(ladderQuotes, { settlement: SETTLEMENT, interpolation: 'log-linear-discount' })).workspace!;
+  const instruments = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false).instruments;
+  const settings = { settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation: 'log-linear-discount' as const, extrapolation: 'none' as const };
+  const maxAbsDiff = (a: ArrayLike<number>, b: ArrayLike<number>): number => {
+    let m = 0;
+    for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]! - b[i]!));
+    return m;
+  };
+  it('the two Jacobians of the quotes to the nodes are inverse to 1e-8', () => {
+    const curve = bootstrapInstruments(settings, instruments).curve!;
+    const n = instruments.length;
+    const direct = modelYieldNodeJacobian(curve, instruments);
+    const inv = luInverse(luFactor(quoteNodeJacobian(curve, instruments).jacobian, n)!);
+    const prod = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) for (let j = 0; j < n; j++) prod[i * n + k] = prod[i * n + k]! + direct[i * n + j]! * inv[j * n + k]!;
+    const identity = Float64Array.from({ length: n * n }, (_, k) => (Math.floor(k / n) === k % n ? 1 : 0));
+    expect(maxAbsDiff(prod, identity)).toBeLessThanOrEqual(1e-8);
+  });
+  it('forward sensitivities match bumped rebuilds to 1e-6 bp per bp', () => {
+    const curve = bootstrapInstruments(settings, instruments).curve!;
+    const rows = forwardRows(curve, { n: 3, unit: 'M' }, { n: 1, unit: 'Y' }, 'simple', 'ACT/365F');
+    if (!rows.ok) throw new Error(rows.errors[0]!.message);
+    const map = forwardSensitivities(curve, instruments, rows.value, 'simple', 'ACT/365F');
+    if (!map.ok) throw new Error(map.errors[0]!.message);
+    const b1 = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 1);
+    const bh = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 0.5);
+    if (!b1.ok || !bh.ok) throw new Error('bumped rebuild failed');
+    const rich = Float64Array.from(b1.value, (v, i) => (4 * bh.value[i]! - v) / 3);
+    expect(maxAbsDiff(map.value.values, rich)).toBeLessThanOrEqual(1e-6);
+  });
+});
+
+describe('the quote check shows an OIS\'s fixed leg with its adjusted dates', () => {
+  it('period starts, payment dates two business days after each accrual end, coupons 100 K tau on ACT/360', () => {
+    // MARKET-CONVENTIONS.md a.0: show every instrument's dates after adjustment and the calendar used.
+    const q = validatedOne({ kind: 'ois', tenor: '2Y', rate: 0.0369, ...SOFR_LIKE });
+    const s = quoteSchedule(q, SETTLEMENT, null)!;
+    expect(s.rows.map((r) => [r.start, r.end])).toEqual([
+      ['2026-04-14', '2027-04-16'],
+      ['2027-04-14', '2028-04-19'],
+    ]);
+    expectClose(s.rows[1]!.yearFraction, 369 / 360, 1e-15, 'ACT/360 from 2027-04-14 to 2028-04-17: 369 days (2028 a leap year)');
+    expectClose(s.rows[1]!.cashFlow, 100 * 0.0369 * (369 / 360), 1e-10, '100 K tau per 100 notional');
+    expect(s.note).toMatch(/us-gov-securities/);
+    expect(s.note).toMatch(/2 business days after its accrual end \(accrual ends 2027-04-14, 2028-04-17\)/);
   });
 });
