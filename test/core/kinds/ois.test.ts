@@ -1,5 +1,10 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  BUILT_IN_CALENDARS,
+  BUSINESS_DAY_RULES,
+  CURVE_DAY_COUNTS,
+  fitCurve,
   bumpedForwardSensitivities,
   forwardRows,
   forwardSensitivities,
@@ -314,5 +319,69 @@ describe('the quote check shows an OIS\'s fixed leg with its adjusted dates', ()
     expectClose(s.rows[1]!.cashFlow, 100 * 0.0369 * (369 / 360), 1e-10, '100 K tau per 100 notional');
     expect(s.note).toMatch(/us-gov-securities/);
     expect(s.note).toMatch(/2 business days after its accrual end \(accrual ends 2027-04-14, 2028-04-17\)/);
+  });
+});
+
+describe('random OIS markets reprice within 1e-14 under every interpolation (the repricing property)', () => {
+  // The property of test/core/bootstrap/properties.test.ts (every rate quote within 1e-14, every
+  // interpolation) on random OIS ladders: any built-in calendar, spot and payment lags 0 to 2, any
+  // business-day rule, fixed leg annual or quarterly on ACT/360 or ACT/365F, any curve day count,
+  // settlements 2020-2035, a smooth random curve plus noise (invented test data). Fixed seed.
+  const SEED = 20261203;
+  const arb = fc.record({
+    serial: fc.integer({ min: serialFromIso('2020-01-01'), max: serialFromIso('2035-12-31') }),
+    curveDayCount: fc.constantFrom(...CURVE_DAY_COUNTS),
+    calendar: fc.constantFrom(...BUILT_IN_CALENDARS, 'us-gov-securities+england-wales'),
+    businessDay: fc.constantFrom(...BUSINESS_DAY_RULES),
+    spotLag: fc.integer({ min: 0, max: 2 }),
+    paymentLag: fc.integer({ min: 0, max: 2 }),
+    frequency: fc.constantFrom(1, 4),
+    dayCount: fc.constantFrom('ACT/360', 'ACT/365F'),
+    eom: fc.boolean(),
+    level: fc.double({ min: -0.005, max: 0.07, noNaN: true }),
+    slope: fc.double({ min: -0.02, max: 0.03, noNaN: true }),
+    tenors: fc.subarray(['1W', '1M', '3M', '6M', '9M', '1Y', '18M', '2Y', '3Y', '5Y', '7Y', '10Y', '15Y', '20Y', '30Y'], { minLength: 1 }),
+    noise: fc.array(fc.double({ min: -0.0005, max: 0.0005, noNaN: true }), { minLength: 15, maxLength: 15 }),
+  });
+  const years = (tenor: string): number => Number.parseInt(tenor, 10) / (tenor.endsWith('Y') ? 1 : tenor.endsWith('M') ? 12 : 52);
+  for (const interpolation of INTERPOLATIONS) {
+    it(interpolation, () => {
+      fc.assert(
+        fc.property(arb, (g) => {
+          const { level, slope, tenors, noise, curveDayCount, serial, ...conventions } = g;
+          const quotes = tenors.map((tenor, i) => ({ kind: 'ois', tenor, rate: level + slope * (1 - Math.exp(-years(tenor) / 3)) + noise[i]!, ...conventions }));
+          const build = buildCurve(workspaceDoc(quotes, { settlement: isoFromSerial(serial), dayCount: curveDayCount, interpolation }));
+          // monotone-convex-positive refuses a market with a negative discrete forward (by contract).
+          if (interpolation === 'monotone-convex-positive' && build.errors.length > 0 && build.errors.every((e) => /needs positive forwards/.test(e.message))) return;
+          expect(build.errors).toEqual([]);
+          for (const r of build.repricing) expect(Math.abs(r.repricingError), `quotes[${r.index}] ${tenors[r.index]}`).toBeLessThanOrEqual(1e-14);
+        }),
+        { seed: SEED, numRuns: interpolation === 'cubic-zero' || interpolation.startsWith('monotone') ? 30 : 60, endOnFailure: true },
+      );
+    }, 120_000);
+  }
+});
+
+describe('the smooth fit weighs an OIS against its floating leg on the fitted curve', () => {
+  it('price errors: the market price reported is 100 x the floating leg on the fitted curve, the model price 100 x the fixed leg', () => {
+    // MARKET-CONVENTIONS.md d: the fixed leg sum K tau_i DF(P_i) against the floating leg sum (DF(S_i)/DF(E_i) - 1) DF(P_i).
+    const ws = validateWorkspace(workspaceDoc(ladderQuotes, { settlement: SETTLEMENT })).workspace!;
+    const fit = fitCurve(ws, { model: 'nelson-siegel', errors: 'price' });
+    if (!fit.ok) throw new Error(fit.errors[0]!.message);
+    const c = fit.value.curve;
+    for (const r of fit.value.residuals) {
+      const [tenor, rate] = LADDER[r.index]!;
+      const d = datesOf({ kind: 'ois', tenor, rate, ...SOFR_LIKE });
+      let float = 0;
+      let fixed = 0;
+      for (let j = 0; j < d.ends.length; j++) {
+        const p = df(c, d.payments[j]!);
+        float += (df(c, d.starts[j]!) / df(c, d.ends[j]!) - 1) * p;
+        fixed += rate * ((serialFromIso(d.ends[j]!) - serialFromIso(d.starts[j]!)) / 360) * p;
+      }
+      expectClose(r.marketPrice, 100 * float, 1e-12, `floating leg per 100 on the fitted curve, ${tenor}`);
+      expectClose(r.modelPrice, 100 * fixed, 1e-12, `fixed leg per 100 on the fitted curve, ${tenor}`);
+      expect(Math.abs(r.residualBp), tenor).toBeLessThan(25);
+    }
   });
 });
