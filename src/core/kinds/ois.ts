@@ -47,7 +47,12 @@ export const OIS: QuoteKindModule<OisQuote> = {
       const eom = readEom(raw, base, index, errors, false);
       const paymentLag = readWhole(raw, base, index, errors, 'paymentLag', 0, MAX_LAG, 'business days', 0);
       if (rate === null || frequency === null || !dayCount || !floatDayCount || calendar === null || spotLag === null || !businessDay || eom === null || paymentLag === null) return null;
-      if (maturity === null || settlement === undefined) return null;
+      if (maturity === null) return null; // the common reader has said why
+      if (settlement === undefined) {
+        // A programming error (validateWorkspace always passes it), reported rather than dropping the quote.
+        errors.push(coreError('schema', base, `${base}: an OIS's dates count from the settlement date, which its reader was not given`, index));
+        return null;
+      }
       // The swap's dates, checked now so every error names this quote: the calendar (an unknown
       // name lists the valid ones), dates within its years, an end after the start.
       const parsedTenor = tenor === null ? null : parseTenor(tenor);
