@@ -150,6 +150,23 @@ describe('the three node solvers solve the OIS with its target on the curve alik
   });
 });
 
+describe('the repricing reported for an OIS is the built curve\'s own, bit for bit', () => {
+  // As test/core/bootstrap/properties.test.ts holds for the fixed-flow kinds: the local methods
+  // reprice from the flow table their pass left; for a lagged OIS the table must hold the curve's
+  // values at every S_i, E_i and P_i. Checked with toBe.
+  for (const interpolation of INTERPOLATIONS) {
+    it(`${interpolation}: every model quote equals modelQuote(curve.lnDiscountAt)`, () => {
+      const ws = validateWorkspace(workspaceDoc(ladderQuotes, { settlement: SETTLEMENT, interpolation })).workspace!;
+      const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false);
+      const out = bootstrapInstruments({ settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation, extrapolation: 'none' }, market.instruments);
+      expect(out.errors).toEqual([]);
+      market.instruments.forEach((ins, i) => {
+        expect(out.repricing[i]!.model, `quotes[${ins.index}]`).toBe(ins.modelQuote(out.curve!.lnDiscountAt));
+      });
+    });
+  }
+});
+
 describe('the OIS without lags equals the single-curve swap of today', () => {
   it('same fixed leg (annual, ACT/360), unadjusted dates on a weekends calendar, start at settlement: model rates within 1e-15, same curve', () => {
     // MARKET-CONVENTIONS.md d: with P_i = E_i and S_0 = settlement, K telescopes to
