@@ -1,6 +1,6 @@
 import { bootstrapInstruments, type BootstrapSettings } from '../bootstrap/bootstrap.ts';
 import { curveFromPillars, type Curve } from '../curve/curve.ts';
-import { presentValue, type Instrument } from '../instruments/instrument.ts';
+import { residualOnCurve, type Instrument } from '../instruments/instrument.ts';
 import { periodsPerYear, rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
@@ -123,14 +123,16 @@ export function quoteNodeJacobian(
     const y0 = qy.toYield(ins.market);
     const g = (y: number): number => {
       const moved = requoteAtYield(ins, qy, y);
-      return presentValue(moved, ln) - moved.target;
+      return residualOnCurve(moved, ln);
     };
     const d1 = (g(y0 + delta) - g(y0 - delta)) / (2 * delta);
     const d2 = (g(y0 + delta / 2) - g(y0 - delta / 2)) / delta;
     const dGdq = (4 * d2 - d1) / 3;
     const slots = flowSlots[i]!;
+    // A target on the curve (an OIS's floating leg) moves with the nodes too: dG/d lnDF(t_f) less its slope.
+    const targetSlope = curveTargetSlopes(ins, ln);
     for (let f = 0; f < slots.length; f++) {
-      const w = ins.amounts[f]! * Math.exp(ln(ins.times[f]!));
+      const w = targetSlope === null ? ins.amounts[f]! * Math.exp(ln(ins.times[f]!)) : ins.amounts[f]! * Math.exp(ln(ins.times[f]!)) - targetSlope[f]!;
       const row = slots[f]! * n;
       for (let j = 0; j < n; j++) jacobian[i * n + j] = jacobian[i * n + j]! - (w * partials[row + j]!) / dGdq;
     }
@@ -138,6 +140,21 @@ export function quoteNodeJacobian(
   const extraPartials = new Float64Array(extraSlots.length * n);
   extraSlots.forEach((s, k) => extraPartials.set(partials.subarray(s * n, s * n + n), k * n));
   return { jacobian, yields, extraPartials };
+}
+
+/** d target / d lnDF at each flow of an instrument with a target on the curve (`targetSlopes`); null for a constant target. */
+function curveTargetSlopes(ins: Instrument, ln: (t: number) => number): number[] | null {
+  if (ins.targetSlopes === undefined) return null;
+  const n = ins.times.length;
+  const lns = new Array<number>(n);
+  const dfs = new Array<number>(n);
+  for (let j = 0; j < n; j++) {
+    lns[j] = ln(ins.times[j]!);
+    dfs[j] = Math.exp(lns[j]!);
+  }
+  const out = new Array<number>(n).fill(0);
+  ins.targetSlopes(lns, dfs, 0, out);
+  return out;
 }
 
 /**

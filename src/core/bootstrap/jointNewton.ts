@@ -1,4 +1,4 @@
-import { presentValue } from '../instruments/instrument.ts';
+import { residualOnCurve } from '../instruments/instrument.ts';
 import type { InterpolatorFactory } from '../interpolation/types.ts';
 import { luFactor, luSolve } from '../numeric/luDecomposition.ts';
 import { JOINT_NEWTON_BUMP, JOINT_NEWTON_HALVINGS, JOINT_NEWTON_ITERATIONS, NODE_TOLERANCE } from '../numeric/tolerance.ts';
@@ -6,7 +6,8 @@ import type { BootstrapNodes } from './nodeSolvers.ts';
 
 /**
  * The global methods' fallback when a Gauss-Seidel sweep cannot go on: a damped Newton iteration
- * on all nodes not set in closed form at once, residual_k = (PV_k - target_k) / |target_k|, with a
+ * on all nodes not set in closed form at once, residual_k = (PV_k - target_k) / |target_k| (the target on the
+ * curve for an instrument with `targetFromFlows`), with a
  * forward-difference Jacobian (bump JOINT_NEWTON_BUMP in ln DF) and step halving until the
  * largest residual falls. One node alone may have no solution: with cubic-zero and two pillars a
  * month apart, a bond's present value is not monotone in its own node (the spline swings the
@@ -28,7 +29,7 @@ export function jointNewton(nodes: BootstrapNodes, build: InterpolatorFactory): 
     let worstAbs = 0;
     for (let i = 0; i < m; i++) {
       const ins = instruments[free[i]! - 1]!;
-      const r = (presentValue(ins, ln) - ins.target) / Math.abs(ins.target);
+      const r = residualOnCurve(ins, ln) / Math.abs(ins.target);
       out[i] = r;
       worstAbs = Math.max(worstAbs, Number.isFinite(r) ? Math.abs(r) : Infinity);
     }

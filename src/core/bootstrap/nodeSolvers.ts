@@ -131,7 +131,8 @@ class SegmentSolver implements NodeSolver {
       fixed += amounts[j]! * df;
     }
     const firstSegment = first < times.length ? segmentNear(ts, m, times[first]!, segment) : segment;
-    const residual = (x: number): number => {
+    const onCurve = ins.targetFromFlows !== undefined;
+    const residual = onCurve ? this.residualOnCurveTarget(ins, k, m, offset, first, firstSegment, fixed) : (x: number): number => {
       ys[k] = x;
       let pv = fixed;
       let seg = firstSegment;
@@ -153,7 +154,8 @@ class SegmentSolver implements NodeSolver {
       // Settled when a Newton step from x0, with a quarter of the sensitivity of the flow at the
       // node itself (a_last DF(t_k)) as the slope, would move the node by at most NODE_TOLERANCE.
       f0 = residual(x0);
-      settled = Math.abs(f0) <= NODE_SETTLED_RESIDUAL * amounts[times.length - 1]! * Math.exp(x0);
+      // A target on the curve (an OIS's floating leg): 1 of notional at the node as the sensitivity.
+      settled = Math.abs(f0) <= NODE_SETTLED_RESIDUAL * (onCurve ? 1 : amounts[times.length - 1]!) * Math.exp(x0);
     }
     if (!settled) {
       const outcome = solveNode(residual, x0, f0);
@@ -174,6 +176,52 @@ class SegmentSolver implements NodeSolver {
     }
     return x;
   }
+
+  /**
+   * The residual of an instrument whose target is read off the curve (`targetFromFlows`): each
+   * moving flow's ln DF and DF are written to the table at every step, then the fixed flows'
+   * present value less the target read from the table.
+   */
+  private residualOnCurveTarget(ins: Instrument, k: number, m: number, offset: number, first: number, firstSegment: number, fixed: number): (x: number) => number {
+    const { ts, ys, flows } = this.nodes;
+    const { segmentLn } = this;
+    const { times, amounts } = ins;
+    const tk = ts[k]!;
+    return (x: number): number => {
+      ys[k] = x;
+      let pv = fixed;
+      let seg = firstSegment;
+      for (let j = first; j < times.length; j++) {
+        const tj = times[j]!;
+        let ln = x;
+        if (tj < tk) {
+          seg = segmentNear(ts, m, tj, seg);
+          ln = segmentLn(ts, ys, m, seg, tj);
+        }
+        const df = Math.exp(ln);
+        flows.ln[offset + j] = ln;
+        flows.df[offset + j] = df;
+        pv += amounts[j]! * df;
+      }
+      return pv - ins.targetFromFlows!(flows.ln, flows.df, offset);
+    };
+  }
+}
+
+/**
+ * An instrument's residual with its target read off the curve (`targetFromFlows`), given ln DF
+ * at each of its flows by `lnAt(j)`: the flows' present value less the target. `ln` and `df` are
+ * scratch arrays of at least its number of flows.
+ */
+function residualWithCurveTarget(ins: Instrument, lnAt: (j: number) => number, ln: number[], df: number[]): number {
+  const { times, amounts } = ins;
+  let pv = 0;
+  for (let j = 0; j < times.length; j++) {
+    ln[j] = lnAt(j);
+    df[j] = Math.exp(ln[j]!);
+    pv += amounts[j]! * df[j]!;
+  }
+  return pv - ins.targetFromFlows!(ln, df, 0);
 }
 
 /**
@@ -217,6 +265,7 @@ class AffineSolver implements NodeSolver {
     const { build, segAmount, segLn, segSlope, slopeCache, slopeReady } = this;
     const ins = instruments[k - 1]!;
     if (this.nodes.closedForm[k - 1]) return closedFormNode(ins);
+    if (ins.targetFromFlows !== undefined) return this.solveCurveTarget(k, x0, ins);
     const local = this.pass;
     const nodes = local ? k + 1 : instruments.length + 1;
     const tPrev = local ? ts[k - 1]! : -Infinity;
@@ -261,6 +310,31 @@ class AffineSolver implements NodeSolver {
     if (!outcome.ok) return solveFailure(ins, outcome.reason);
     return outcome.x;
   }
+
+  /**
+   * Node k of an instrument with a target on the curve (`targetFromFlows`): ln DF at every flow
+   * affine in y_k from two builds, as above (no fixed part or slope cache: every flow is read).
+   */
+  private solveCurveTarget(k: number, x0: number, ins: Instrument): CoreError | number {
+    const { instruments, ts, ys } = this.nodes;
+    const nodes = this.pass ? k + 1 : instruments.length + 1;
+    const { times } = ins;
+    const n = times.length;
+    ys[k] = x0;
+    const a = this.build(ts, ys, nodes);
+    const lnA = new Array<number>(n);
+    for (let j = 0; j < n; j++) lnA[j] = a.lnDiscount(times[j]!);
+    ys[k] = x0 + 1;
+    const b = this.build(ts, ys, nodes);
+    const slope = new Array<number>(n);
+    for (let j = 0; j < n; j++) slope[j] = b.lnDiscount(times[j]!) - lnA[j]!;
+    ys[k] = x0;
+    const ln = new Array<number>(n);
+    const df = new Array<number>(n);
+    const outcome = solveNode((x) => residualWithCurveTarget(ins, (j) => lnA[j]! + slope[j]! * (x - x0), ln, df), x0);
+    if (!outcome.ok) return solveFailure(ins, outcome.reason);
+    return outcome.x;
+  }
 }
 
 /**
@@ -288,6 +362,24 @@ class RebuildSolver implements NodeSolver {
     const ins = instruments[k - 1]!;
     if (this.nodes.closedForm[k - 1]) return closedFormNode(ins);
     const nodes = this.sweep ? instruments.length + 1 : k + 1;
+    if (ins.targetFromFlows !== undefined) {
+      // A target on the curve (an OIS's floating leg): every flow read at each step.
+      const scratchLn = new Array<number>(ins.times.length);
+      const scratchDf = new Array<number>(ins.times.length);
+      const residualAt = (x: number): number => {
+        ys[k] = x;
+        const interp = build(ts, ys, nodes);
+        return residualWithCurveTarget(ins, (j) => interp.lnDiscount(ins.times[j]!), scratchLn, scratchDf);
+      };
+      let fStart: number | undefined;
+      if (this.sweep) {
+        fStart = residualAt(x0);
+        if (Math.abs(fStart) <= NODE_SETTLED_RESIDUAL * Math.exp(x0)) return x0;
+      }
+      const out = solveNode(residualAt, x0, fStart);
+      if (!out.ok) return solveFailure(ins, out.reason);
+      return out.x;
+    }
     const { times, amounts } = ins;
     let fixed = 0;
     let first = 0;

@@ -1,4 +1,5 @@
 import type { IsoDate } from '../time/date.ts';
+import type { BusinessDayRule } from '../time/calendars.ts';
 import type { CurveDayCount, DayCount } from '../time/dayCount.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
@@ -6,7 +7,7 @@ import type { Extrapolation } from '../curve/curve.ts';
 import type { FitModel } from '../fit/parametricForm.ts';
 
 /** Quote kinds the engine bootstraps from. */
-export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap'] as const;
+export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap', 'ois'] as const;
 export type QuoteKind = (typeof QUOTE_KINDS)[number];
 
 /** Fields every validated quote carries. `maturity` is resolved from `tenor` when one was given. */
@@ -57,7 +58,31 @@ export interface SwapQuote extends QuoteCommon {
   readonly dayCount: DayCount;
   readonly eom: boolean;
 }
-export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote;
+/**
+ * Overnight-index swap on one curve (kinds/ois.ts): fixed rate (decimal) against the compounded
+ * overnight rate, with its date conventions. Defaults: frequency 1, dayCount and floatDayCount
+ * ACT/360, calendar `weekends`, spotLag 0, businessDay modified-following, eom false, paymentLag 0.
+ * `maturity` is the swap's adjusted end (last accrual end), `unadjustedEnd` the end before the
+ * business-day rule (the maturity given, or the start plus the tenor).
+ */
+export interface OisQuote extends QuoteCommon {
+  readonly kind: 'ois';
+  readonly rate: number;
+  readonly frequency: number;
+  readonly dayCount: DayCount;
+  /** The overnight rate's day basis (ACT/360 or ACT/365F): the compounding's D. */
+  readonly floatDayCount: DayCount;
+  /** A calendar id of time/calendars.ts (built-ins joined with `+`). */
+  readonly calendar: string;
+  /** Business days from settlement to the start. */
+  readonly spotLag: number;
+  readonly businessDay: BusinessDayRule;
+  readonly eom: boolean;
+  /** Business days from each accrual end to its payment. */
+  readonly paymentLag: number;
+  readonly unadjustedEnd: IsoDate;
+}
+export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote;
 
 export interface CurveSettings {
   readonly dayCount: CurveDayCount;

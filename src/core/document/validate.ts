@@ -160,7 +160,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   // The kind's own fields, read by its module (src/core/kinds). Performance: the modules' readers
   // spell out the common fields (index, maturity, tenor, enabled) rather than spreading a shared
   // object; a spread per quote cost a third of validation.
-  const quote = QUOTE_KIND_MODULES[k].schema.read(raw, base, index, maturity, m, tenor, enabled, errors);
+  const quote = QUOTE_KIND_MODULES[k].schema.read(raw, base, index, maturity, m, tenor, enabled, errors, settlement);
   if (errors.length > before || maturity === null) return null;
   return quote;
 }

@@ -1,7 +1,7 @@
 import { quoteYieldOf, type QuoteYield } from '../analytics/quoteYield.ts';
 import { compileQuote } from '../bootstrap/build.ts';
 import { curveFromLnDiscount, type Curve, type Pillar } from '../curve/curve.ts';
-import { presentValue, type Instrument } from '../instruments/instrument.ts';
+import { presentValue, residualOnCurve, targetOnCurve, type Instrument } from '../instruments/instrument.ts';
 import { kindModule, moduleOf } from '../kinds/registry.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { curveTime } from '../time/dayCount.ts';
@@ -150,6 +150,7 @@ function parametricCurve(ws: Workspace, p: ParametricParams, obs: readonly Obser
 /** The fitted-measure residual of one observation (decimal yield), NaN when the model has none. */
 function fittedResidual(o: Observation, errors: FitErrors, ln: (t: number) => number): number {
   if (errors === 'yield') return o.qy.toYield(o.ins.modelQuote(ln)) - o.marketYield;
+  if (o.ins.targetFromFlows !== undefined) return -residualOnCurve(o.ins, ln) / o.dollarDuration; // a target on the curve (an OIS's floating leg)
   return (o.ins.target - presentValue(o.ins, ln)) / o.dollarDuration;
 }
 
@@ -237,6 +238,8 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
   const residuals: FitResidual[] = obs.map((o) => {
     const modelYield = o.qy.toYield(o.ins.modelQuote(lnFit));
     const modelPv = presentValue(o.ins, lnFit);
+    // The price the flows must meet: the constant target, or the target on the fitted curve (an OIS's floating leg).
+    const target = targetOnCurve(o.ins, lnFit);
     return {
       index: o.ins.index,
       kind: o.ins.kind,
@@ -249,9 +252,9 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
       marketYield: o.marketYield,
       modelYield,
       residualBp: (modelYield - o.marketYield) * 1e4,
-      marketPrice: o.ins.target * o.per100,
+      marketPrice: target * o.per100,
       modelPrice: modelPv * o.per100,
-      residualPrice: (modelPv - o.ins.target) * o.per100,
+      residualPrice: (modelPv - target) * o.per100,
     };
   });
   const wsum = used.reduce((s, o) => s + o.weight, 0);

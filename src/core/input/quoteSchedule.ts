@@ -4,7 +4,10 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, SwapQuote } from '../document/types.ts';
+import type { BondQuote, OisQuote, SwapQuote } from '../document/types.ts';
+import { oisDates } from '../instruments/ois.ts';
+import { civilFromIso, isoFromCivil } from '../time/date.ts';
+import { yearFractionCivil } from '../time/dayCount.ts';
 import { Decimal } from './decimalText.ts';
 
 /** One period of a bond's or swap fixed leg's schedule, for reconciling against another source. */
@@ -70,4 +73,27 @@ export function swapScheduleRows(q: SwapQuote, settlement: IsoDate, curve: Curve
     return { start: p.start, end: p.end, yearFraction: p.tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t };
   });
   return { rows, accrued: 0, note: 'fixed leg per 100 notional; the final 100 stands for the floating leg (single-curve par swap)' };
+}
+
+/**
+ * An overnight-index swap's fixed leg (oisDates): for period i the accrual start S_i, the payment
+ * date P_i (its accrual end E_i plus the payment lag), the year fraction tau_i on [S_i, E_i) under
+ * the fixed leg's day count, the coupon 100 K tau_i per 100 notional, its discount factor at P_i.
+ * The floating leg (compounded overnight, worth sum (DF(S_i)/DF(E_i) - 1) DF(P_i) on the curve) is
+ * not a list of fixed flows and is not shown.
+ */
+export function oisScheduleRows(q: OisQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const r = oisDates(q, civilFromIso(settlement));
+  if (!r.ok) return { rows: [], accrued: 0, note: r.errors[0]?.message ?? 'no schedule' };
+  const { starts, ends, payments } = r.value;
+  const n = ends.length;
+  const rows = ends.map((end, i) => {
+    const tau = yearFractionCivil(q.dayCount, starts[i]!, end, q.eom, i === n - 1, 0, q.frequency);
+    const cashFlow = money(100 * q.rate * tau);
+    const pay = isoFromCivil(payments[i]!);
+    const { discount, t } = df(curve, pay);
+    return { start: isoFromCivil(starts[i]!), end: pay, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t };
+  });
+  const lag = q.paymentLag === 0 ? 'paid on each accrual end' : `each paid ${q.paymentLag} business day${q.paymentLag === 1 ? '' : 's'} after its accrual end (accrual ends ${ends.map(isoFromCivil).join(', ')})`;
+  return { rows, accrued: 0, note: `fixed leg per 100 notional on the ${q.calendar} calendar, ${q.businessDay}, ${lag}; the floating leg compounds the overnight rate and is not shown` };
 }

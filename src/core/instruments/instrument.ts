@@ -75,6 +75,44 @@ export interface Instrument {
   quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
   /** The same instrument with another market quote value (schedules are kept). */
   requote(value: number): Instrument;
+  /**
+   * Optional, for an instrument whose flows must meet a value on the curve rather than a constant
+   * (an overnight-index swap with a payment lag or a forward start: its floating leg,
+   * sum_i (DF(S_i)/DF(E_i) - 1) DF(P_i), is not a sum of fixed flows; instruments/ois.ts). The
+   * target read from the curve's values at the instrument's own flow times (as in
+   * `quoteFromFlows`); its residual is sum_j amounts_j DF(times[j]) - targetFromFlows, rising with
+   * the pillar's discount factor. `target` then only scales (1 of notional). Absent for every
+   * fixed-flow kind, whose residual stays sum_j amounts_j DF(times[j]) - target as computed before.
+   */
+  targetFromFlows?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
+  /** With `targetFromFlows`: its derivative in ln DF at each flow time, into out[0..times.length). */
+  targetSlopes?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void;
+}
+
+/**
+ * The target an instrument's flows must meet on a curve: `target`, or for an instrument with a
+ * target on the curve (`targetFromFlows`) that value read at its flow times.
+ */
+export function targetOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
+  if (instrument.targetFromFlows === undefined) return instrument.target;
+  const { times } = instrument;
+  const n = times.length;
+  const ln = new Array<number>(n);
+  const df = new Array<number>(n);
+  for (let j = 0; j < n; j++) {
+    ln[j] = lnDiscountAt(times[j]!);
+    df[j] = Math.exp(ln[j]!);
+  }
+  return instrument.targetFromFlows(ln, df, 0);
+}
+
+/**
+ * Present value of the flows minus the target on a curve: the pricing equation's residual, zero
+ * when the instrument reprices. For a fixed-flow instrument exactly presentValue - target.
+ */
+export function residualOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
+  if (instrument.targetFromFlows === undefined) return presentValue(instrument, lnDiscountAt) - instrument.target;
+  return presentValue(instrument, lnDiscountAt) - targetOnCurve(instrument, lnDiscountAt);
 }
 
 /**

@@ -106,3 +106,24 @@ export function noCouponPeriod(dc: DayCount | null, what: string, base: string, 
   errors.push(coreError('unknown-identifier', `${base}.dayCount`, `${base}.dayCount: ACT/ACT-ICMA needs a coupon period, which a ${what} has not; use one of ${listOf(DAY_COUNTS.filter((d) => d !== 'ACT/ACT-ICMA'))}`, index));
   return null;
 }
+
+/**
+ * A whole number field from `min` to `max` (business-day lags), `fallback` when absent; null with
+ * a path-named error when wrong.
+ */
+export function readWhole(raw: RawQuote, base: string, index: number, errors: CoreError[], field: string, min: number, max: number, what: string, fallback: number): number | null {
+  const v = raw[field];
+  if (v === undefined) return fallback;
+  if (typeof v === 'number' && Number.isInteger(v) && v >= min && v <= max) return v;
+  errors.push(coreError(typeof v === 'number' ? 'range' : 'schema', `${base}.${field}`, `${base}.${field}: must be a whole number of ${what} from ${min} to ${max}, not ${typeof v === 'number' ? String(v) : typeName(v)}`, index));
+  return null;
+}
+
+/** A text field that must be one of `choices`, `fallback` when absent; null with a path-named error listing them when wrong. */
+export function readChoice<T extends string>(raw: RawQuote, base: string, index: number, errors: CoreError[], field: string, choices: readonly T[], fallback: T): T | null {
+  const v = raw[field];
+  if (v === undefined) return fallback;
+  if (typeof v === 'string' && (choices as readonly string[]).includes(v)) return v as T;
+  errors.push(coreError('unknown-identifier', `${base}.${field}`, `${base}.${field}: must be one of ${listOf(choices)}, not ${typeName(v)}`, index));
+  return null;
+}

@@ -3,6 +3,7 @@ import type { QuoteColumn } from '../input/quoteRow.ts';
 import { BILL } from './bill.ts';
 import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
+import { OIS } from './ois.ts';
 import { SWAP } from './swap.ts';
 import type { FixedLegConvention, QuoteConvention, QuoteKindModule } from './types.ts';
 import type { Curve } from '../curve/curve.ts';
@@ -17,6 +18,7 @@ export const QUOTE_KIND_MODULES: { readonly [K in QuoteKind]: QuoteKindModule<Ex
   zero: ZERO,
   bond: BOND,
   swap: SWAP,
+  ois: OIS,
 };
 
 /** The modules in QUOTE_KINDS order (the order kinds are listed in messages). */

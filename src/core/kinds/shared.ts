@@ -18,22 +18,25 @@ export const compoundingOfFrequency = (frequency: number): 'annual' | 'semiannua
  * prices them at the target: sum a_j t_j e^(-c t_j) (Newton on c from 0). Used by the smooth
  * fit to turn a kind's price error into a yield error when the kind has no yield formula of its own.
  */
-export function flatDollarDuration(ins: Instrument): number {
+export const flatDollarDuration = (ins: Instrument): number => flatDollarDurationOf(ins.times, ins.amounts, ins.target);
+
+/** `flatDollarDuration` of flows given as arrays: amounts a_j at times t_j against a target. */
+export function flatDollarDurationOf(times: readonly number[], amounts: ArrayLike<number>, target: number): number {
   let c = 0;
   for (let iter = 0; iter < 100; iter++) {
     let p = 0;
     let dp = 0;
-    for (let j = 0; j < ins.times.length; j++) {
-      const v = ins.amounts[j]! * Math.exp(-c * ins.times[j]!);
+    for (let j = 0; j < times.length; j++) {
+      const v = amounts[j]! * Math.exp(-c * times[j]!);
       p += v;
-      dp += ins.times[j]! * v;
+      dp += times[j]! * v;
     }
-    const step = (p - ins.target) / dp;
+    const step = (p - target) / dp;
     c += step;
     if (Math.abs(step) < 1e-15) break;
   }
   let dd = 0;
-  for (let j = 0; j < ins.times.length; j++) dd += ins.times[j]! * ins.amounts[j]! * Math.exp(-c * ins.times[j]!);
+  for (let j = 0; j < times.length; j++) dd += times[j]! * amounts[j]! * Math.exp(-c * times[j]!);
   return dd;
 }
 

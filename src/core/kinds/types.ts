@@ -54,9 +54,10 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
     /**
      * Reads the kind's own fields of a raw quote whose common fields were read: `base` its path,
      * `maturity` null when the maturity was wrong (then `m` is the settlement as a stand-in).
-     * Pushes path-named errors; returns the typed quote or null.
+     * `settlement` the document's settlement date (a kind whose dates count from it: the OIS's
+     * spot lag and schedule). Pushes path-named errors; returns the typed quote or null.
      */
-    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[]): Q | null;
+    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate): Q | null;
   };
 
   /** How the quote sheet's columns fill the kind's fields. */

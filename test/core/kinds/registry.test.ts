@@ -53,7 +53,14 @@ const EXAMPLES = {
     { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, cleanPrice: 99.6 },
   ],
   swap: [{ kind: 'swap', tenor: '7Y', rate: 0.0342 }],
+  ois: [
+    { kind: 'ois', tenor: '5Y', rate: 0.0331 },
+    { kind: 'ois', tenor: '18M', rate: 0.0301, frequency: 1, dayCount: 'ACT/365F' },
+  ],
 } satisfies Record<QuoteKind, readonly Record<string, string | number>[]>;
+
+/** An OIS with the date conventions, which have no sheet columns yet (README, instrument table). */
+const OIS_WITH_CONVENTIONS = { kind: 'ois', tenor: '18M', rate: 0.0301, calendar: 'us-gov-securities', spotLag: 2, paymentLag: 2, businessDay: 'following' };
 
 const validated = (raw: Record<string, string | number>): Quote => {
   const v = validateWorkspace(workspaceDoc([raw], { settlement: SETTLEMENT }));
@@ -205,6 +212,14 @@ describe('the quote-kind registry', () => {
         expect(validated(parsed.quote as Record<string, string | number>)).toEqual(validated(raw));
       }
     }
+  });
+
+  it('validates and compiles an OIS with its date conventions; the sheet refuses it naming the fields it has no column for', () => {
+    const q = validated(OIS_WITH_CONVENTIONS);
+    expect(compileQuote(q, SETTLEMENT, 'ACT/365F').kind).toBe('ois');
+    const wb = workbenchFromEngine(workspaceDoc([OIS_WITH_CONVENTIONS], { settlement: SETTLEMENT }), () => 'r');
+    expect(wb.ok).toBe(false);
+    if (!wb.ok) expect(wb.errors[0]!.message).toMatch(/calendar, spotLag, paymentLag, businessDay .*has no column in the sheet/);
   });
 
   it('takes forward par rates\' fixed leg from the first kind that sets one, else annual 30/360', () => {

@@ -1,0 +1,107 @@
+import type { OisQuote } from '../document/types.ts';
+import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
+import { compileOis } from '../instruments/ois.ts';
+import { oisScheduleRows } from '../input/quoteSchedule.ts';
+import { coreError, ok, type CoreError } from '../result.ts';
+import { BUILT_IN_CALENDARS, BUSINESS_DAY_RULES } from '../time/calendars.ts';
+import { civilFromIso, isoFromCivil } from '../time/date.ts';
+import type { DayCount } from '../time/dayCount.ts';
+import { parseTenor } from '../time/tenor.ts';
+import { swapDates } from '../time/swapSchedule.ts';
+import { readChoice, readDayCount, readEom, readFrequency, readRate, readWhole, required, typeName, RATE_TEXT, type RawQuote } from './fields.ts';
+import { compoundingOfFrequency, flatDollarDuration, flatDollarDurationOf, perYearLabel, quotedRateOrDefault } from './shared.ts';
+import type { QuoteKindModule } from './types.ts';
+
+/** The overnight rate's day bases: D = 360 (SOFR, €STR) or 365 (SONIA) (MARKET-CONVENTIONS.md section d). */
+const FLOAT_DAY_COUNTS: readonly DayCount[] = ['ACT/360', 'ACT/365F'];
+/** The longest spot or payment lag accepted, in business days (the conventions layer's spot-lag bound). */
+const MAX_LAG = 30;
+
+/**
+ * Overnight-index swap on one curve (instruments/ois.ts): fixed rate (decimal) against the
+ * compounded overnight rate. Fields and defaults: `frequency` 1, `dayCount` ACT/360 (fixed leg),
+ * `floatDayCount` ACT/360, `calendar` `weekends`, `spotLag` 0, `businessDay` modified-following,
+ * `eom` false, `paymentLag` 0 (MARKET-CONVENTIONS.md section d gives SOFR's T+2 and a 2-day
+ * payment lag on US government securities days; the defaults here are the plain ones, so a quote
+ * typed in the sheet without these fields is today's swap on an ACT/360 fixed leg with
+ * modified-following dates). The quote's maturity is the swap's adjusted end; the instrument's
+ * pillar its last payment date.
+ */
+export const OIS: QuoteKindModule<OisQuote> = {
+  kind: 'ois',
+  schema: {
+    fields: ['rate', 'frequency', 'dayCount', 'floatDayCount', 'calendar', 'spotLag', 'businessDay', 'eom', 'paymentLag'],
+    defaults: { frequency: 1, dayCount: 'ACT/360' },
+    read(raw, base, index, maturity, _m, tenor, enabled, errors, settlement) {
+      const rate = required(readRate(raw, base, index, errors, 'rate'), 'rate', RATE_TEXT, base, index, errors);
+      const frequency = readFrequency(raw, 1, base, index, errors);
+      let dayCount = readDayCount(raw, base, index, errors, 'dayCount', 'ACT/360');
+      if (dayCount === 'ACT/ACT-ICMA') {
+        errors.push(coreError('unknown-identifier', `${base}.dayCount`, `${base}.dayCount: ACT/ACT-ICMA is a bond's coupon-period count, not an OIS fixed leg's; use ACT/360 or ACT/365F`, index));
+        dayCount = null;
+      }
+      const floatDayCount = readChoice(raw, base, index, errors, 'floatDayCount', FLOAT_DAY_COUNTS, 'ACT/360');
+      const calendar = readCalendar(raw, base, index, errors);
+      const spotLag = readWhole(raw, base, index, errors, 'spotLag', 0, MAX_LAG, 'business days', 0);
+      const businessDay = readChoice(raw, base, index, errors, 'businessDay', BUSINESS_DAY_RULES, 'modified-following');
+      const eom = readEom(raw, base, index, errors, false);
+      const paymentLag = readWhole(raw, base, index, errors, 'paymentLag', 0, MAX_LAG, 'business days', 0);
+      if (rate === null || frequency === null || !dayCount || !floatDayCount || calendar === null || spotLag === null || !businessDay || eom === null || paymentLag === null) return null;
+      if (maturity === null) return null; // the common reader has said why
+      if (settlement === undefined) {
+        // A programming error (validateWorkspace always passes it), reported rather than dropping the quote.
+        errors.push(coreError('schema', base, `${base}: an OIS's dates count from the settlement date, which its reader was not given`, index));
+        return null;
+      }
+      // The swap's dates, checked now so every error names this quote: the calendar (an unknown
+      // name lists the valid ones), dates within its years, an end after the start.
+      const parsedTenor = tenor === null ? null : parseTenor(tenor);
+      const conventions = { calendar, businessDay, eom, spotLag, paymentLag, frequency };
+      const dates = swapDates(civilFromIso(settlement), parsedTenor === null ? { end: civilFromIso(maturity) } : { tenor: parsedTenor }, conventions, base, index);
+      if (!dates.ok) {
+        errors.push(...dates.errors);
+        return null;
+      }
+      const { ends, unadjustedEnd } = dates.value;
+      return {
+        kind: 'ois', index, maturity: isoFromCivil(ends[ends.length - 1]!), tenor, enabled, rate, frequency, dayCount, floatDayCount,
+        calendar, spotLag, businessDay, eom, paymentLag, unadjustedEnd: isoFromCivil(unadjustedEnd),
+      };
+    },
+  },
+  sheet: { rateField: 'rate', rateWhat: 'OIS rate', priceField: null, missingValue: 'rate', coupon: false, frequency: true, dayCount: 'yes' },
+  paste: { kindWords: ['oiss', 'overnight index swap', 'overnight-index swap'], headerWords: { oisrate: 'rate' } },
+  compile: (q, _settlement, s, _m, _t, time) => compileOis(q, s, time),
+  curves: DISCOUNTING_AND_PROJECTING,
+  nodeRole: 'discount',
+  convention: (q) => ({ unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
+  yieldLabel: (q) => `OIS rate (${perYearLabel(q.frequency)}, ${q.dayCount})`,
+  priceYield: () => null,
+  shift: (q, d) => ok({ ...q, rate: q.rate + d }),
+  fit: { per100: 100, dollarDuration: oisDollarDuration, richCheap: false },
+  solver: { firstRate: quotedRateOrDefault },
+  fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
+  schedule: oisScheduleRows,
+};
+
+/** The calendar id as text (`weekends` when absent); whether it names a calendar is checked with the dates. */
+function readCalendar(raw: RawQuote, base: string, index: number, errors: CoreError[]): string | null {
+  const v = raw.calendar;
+  if (v === undefined) return 'weekends';
+  if (typeof v === 'string') return v;
+  errors.push(coreError('schema', `${base}.calendar`, `${base}.calendar: must be a calendar name, one of ${BUILT_IN_CALENDARS.join(', ')} (joined with + if several), not ${typeName(v)}`, index));
+  return null;
+}
+
+/**
+ * The fit's dollar duration of an OIS: that of its fixed leg plus 1 of notional at the last payment
+ * against par (the swap kind's measure, flatDollarDuration). With a payment lag or a forward start
+ * the instrument's own flows are the fixed coupons alone (the floating leg is its target on the
+ * curve), so the notional is added here.
+ */
+function oisDollarDuration(ins: Instrument): number {
+  if (ins.targetFromFlows === undefined) return flatDollarDuration(ins);
+  const amounts = Array.from(ins.amounts);
+  amounts[amounts.length - 1] = amounts[amounts.length - 1]! + 1;
+  return flatDollarDurationOf(ins.times, amounts, 1);
+}
