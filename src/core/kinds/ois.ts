@@ -9,7 +9,8 @@ import type { DayCount } from '../time/dayCount.ts';
 import { parseTenor } from '../time/tenor.ts';
 import { swapDates } from '../time/swapSchedule.ts';
 import { readChoice, readDayCount, readEom, readFrequency, readRate, readWhole, required, typeName, RATE_TEXT, type RawQuote } from './fields.ts';
-import { compoundingOfFrequency, flatDollarDuration, flatDollarDurationOf, perYearLabel, quotedRateOrDefault } from './shared.ts';
+import { compoundingOfFrequency, flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from './shared.ts';
+import { couponTag } from '../format/conventionTag.ts';
 import type { QuoteKindModule } from './types.ts';
 
 /** The overnight rate's day bases: D = 360 (SOFR, €STR) or 365 (SONIA) (MARKET-CONVENTIONS.md section d). */
@@ -75,7 +76,7 @@ export const OIS: QuoteKindModule<OisQuote> = {
   curves: DISCOUNTING_AND_PROJECTING,
   nodeRole: 'discount',
   convention: (q) => ({ unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
-  yieldLabel: (q) => `OIS rate (${perYearLabel(q.frequency)}, ${q.dayCount})`,
+  yieldLabel: (q) => `OIS rate (${couponTag(q.frequency, q.dayCount)})`,
   priceYield: () => null,
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
   fit: { per100: 100, dollarDuration: oisDollarDuration, richCheap: false },
