@@ -1,4 +1,5 @@
 import { useRef, useState, type ChangeEvent } from 'react';
+import { readOffThread } from './offThread.ts';
 import { curveTableCsv, formatNumber, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
 import type { Curve } from '../core/index.ts';
 import { download } from '../components/download.ts';
@@ -36,7 +37,7 @@ export function WorkspaceFiles({ document: doc, curve, conventions, points, onOp
       setMessage(`${file.name} could not be read. Your workspace has not been changed.`);
       return;
     }
-    const r = parseDocumentText(text);
+    const r = await readOffThread(text.length, text, parseDocumentText, () => new Worker(new URL('./documentFile.worker.ts', import.meta.url), { type: 'module' }));
     if (!r.ok) {
       const first = r.errors.slice(0, 3).map((x) => x.message).join('; ');
       setMessage(`${file.name} was not opened: ${first}${r.errors.length > 3 ? ` (and ${r.errors.length - 3} more)` : ''}. Your workspace has not been changed.`);

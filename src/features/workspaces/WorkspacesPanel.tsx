@@ -1,18 +1,15 @@
 import { download } from '../../components/download.ts';
 import { useRef, useState, type ChangeEvent } from 'react';
-import { formatCount, parseDocumentText, readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument, formatRateShort, rateTag } from '../../core/index.ts';
-import { makeRowId } from '../../state/ids.ts';
+import { type WorkbenchDocument, formatRateShort, rateTag } from '../../core/index.ts';
 import { addWorkspaces, allRecords, deleteWorkspace, readEntry, renameWorkspace, switchWorkspace, undoDelete } from '../../state/persistence.ts';
 import { useAppStore } from '../../state/store.ts';
 import { useWorkspaceList, type WorkspaceListItem } from '../../state/workspaceList.ts';
 import { SPARK_HEIGHT, SPARK_WIDTH, zeroSparkline } from './sparkline.ts';
+import { checkListFile, LIST_FORMAT, LIST_VERSION, readCheckedList } from './listFile.ts';
+import { readOffThread } from '../../share/offThread.ts';
 import './workspaces.css';
 
-/** The file holding every saved workspace ("Export all"). */
-export const LIST_FORMAT = 'tenorscope-workspace-list';
-const LIST_VERSION = 1;
-/** A list file is refused above this many characters (before it is parsed). */
-const MAX_LIST_CHARS = 50_000_000;
+export { LIST_FORMAT, readListFile } from './listFile.ts';
 
 const savedText = (ms: number | null): string =>
   ms === null ? 'not saved yet' : `saved ${new Date(ms).toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })}`;
@@ -34,42 +31,6 @@ export async function exportAll(): Promise<string> {
   return `${JSON.stringify({ format: LIST_FORMAT, version: LIST_VERSION, workspaces }, null, 1)}\n`;
 }
 
-/** Reads a list file (or a single workspace file); never throws. */
-export function readListFile(text: string, fileName: string): { items: { name: string; workspace: WorkbenchDocument }[]; problems: string[] } {
-  const problems: string[] = [];
-  const items: { name: string; workspace: WorkbenchDocument }[] = [];
-  if (text.length > MAX_LIST_CHARS) return { items, problems: [`${fileName} has ${formatCount(text.length)} characters; a list file is at most ${formatCount(MAX_LIST_CHARS)}`] };
-  let json: unknown;
-  try {
-    json = JSON.parse(text);
-  } catch {
-    return { items, problems: [`${fileName} is not valid JSON`] };
-  }
-  const one = (raw: unknown, name: string, where: string): void => {
-    const checked = parseDocumentText(JSON.stringify(raw));
-    if (!checked.ok) {
-      problems.push(`${where}: ${checked.errors[0]?.message ?? 'not a workspace'}`);
-      return;
-    }
-    if (checked.value.document.format !== WORKBENCH_FORMAT) {
-      problems.push(`${where}: an engine workspace document, which the workbench does not open`);
-      return;
-    }
-    const read = readWorkbenchDocument(checked.value.document, makeRowId);
-    if (read.doc) items.push({ name, workspace: read.doc });
-    else problems.push(`${where}: ${read.problem ?? 'not a workspace'}`);
-  };
-  const obj = json as { format?: unknown; workspaces?: unknown };
-  if (obj && obj.format === LIST_FORMAT && Array.isArray(obj.workspaces)) {
-    obj.workspaces.forEach((w: unknown, i: number) => {
-      const e = (w ?? {}) as { name?: unknown; workspace?: unknown; unreadable?: unknown };
-      const name = typeof e.name === 'string' ? e.name : `Imported workspace ${i + 1}`;
-      if (e.workspace === undefined) problems.push(`“${name}” was unreadable when it was exported; it is left out`);
-      else one(e.workspace, name, `“${name}”`);
-    });
-  } else one(json, fileName.replace(/\.json$/i, ''), fileName);
-  return { items, problems };
-}
 
 function Spark({ doc }: { doc: WorkbenchDocument }) {
   const spark = zeroSparkline(doc);
@@ -174,7 +135,8 @@ export function WorkspacesPanel({ onClose }: { onClose?: () => void }) {
       setMessage(`${file.name} could not be read. Nothing was added.`);
       return;
     }
-    const { items: found, problems } = readListFile(text, file.name);
+    const checked = await readOffThread(text.length, { text, fileName: file.name }, (r) => checkListFile(r.text, r.fileName), () => new Worker(new URL('./listFile.worker.ts', import.meta.url), { type: 'module' }));
+    const { items: found, problems } = readCheckedList(checked);
     const added = found.length > 0 ? await addWorkspaces(found) : 0;
     const left = problems.length > 0 ? ` Left out: ${problems.slice(0, 3).join('; ')}${problems.length > 3 ? ` (and ${problems.length - 3} more)` : ''}.` : '';
     setMessage(`Added ${added} workspace${added === 1 ? '' : 's'} from ${file.name}.${left}`);
