@@ -11,3 +11,4 @@ export * from './document.ts';
 export * from './workbenchDocument.ts';
 export * from './workbenchShape.ts';
 export * from './documentBridge.ts';
+export * from './listFile.ts';

@@ -72,7 +72,6 @@ type Rule =
   | { readonly kind: 'christmas-boxing-substitutes' };
 
 interface HolidayRule {
-  readonly name: string;
   readonly rule: Rule;
   readonly from: number;
   readonly to?: number;
@@ -80,21 +79,14 @@ interface HolidayRule {
   readonly except?: readonly number[];
 }
 
-/** A one-off closure (or a removed rule day), with where it is published. */
-interface DatedEntry {
-  readonly date: IsoDate;
-  readonly name: string;
-  readonly source: string;
-}
 
+/** A built-in calendar: its rules and its one-off closures (dates; each one's name and source in a comment beside it). */
 interface CalendarDefinition {
   readonly id: BuiltInCalendarId;
-  readonly name: string;
   readonly firstYear: number;
   readonly lastYear: number;
   readonly rules: readonly HolidayRule[];
-  readonly closures: readonly DatedEntry[];
-  readonly source: string;
+  readonly closures: readonly IsoDate[];
 }
 
 const MON = 1;
@@ -135,148 +127,146 @@ function ruleDays(rule: Rule, year: number): number[] {
   }
 }
 
-const SIFMA = 'SIFMA holiday recommendations (US-dollar fixed income), as summarised in the project conventions notes; ISDA 2006 Definitions 1.11 (U.S. Government Securities Business Day)';
-const K8 = 'Board of Governors of the Federal Reserve System, K.8 Holidays Observed by the Federal Reserve System (2020-2024 and 2026-2030 editions)';
-const GOVUK = 'GOV.UK bank holidays, England and Wales (www.gov.uk/bank-holidays.json)';
+// Sources (kept as comments, not shipped as data):
+// SIFMA: SIFMA holiday recommendations (US-dollar fixed income), as summarised in the project
+//   conventions notes; ISDA 2006 Definitions 1.11 (U.S. Government Securities Business Day).
+// K8: Board of Governors of the Federal Reserve System, K.8 Holidays Observed by the Federal
+//   Reserve System (2020-2024 and 2026-2030 editions).
+// GOV.UK: GOV.UK bank holidays, England and Wales (www.gov.uk/bank-holidays.json).
 
 const DEFINITIONS: Readonly<Record<BuiltInCalendarId, CalendarDefinition>> = {
-  weekends: { id: 'weekends', name: 'Saturdays and Sundays only', firstYear: CALENDAR_FIRST_YEAR, lastYear: CALENDAR_LAST_YEAR, rules: [], closures: [], source: 'no holidays' },
+  weekends: { id: 'weekends', firstYear: CALENDAR_FIRST_YEAR, lastYear: CALENDAR_LAST_YEAR, rules: [], closures: [] }, // Saturdays and Sundays only
   'us-gov-securities': {
     id: 'us-gov-securities',
-    name: 'US government securities settlement (SIFMA full closes; Good Friday closed)',
+    // US government securities settlement (SIFMA full closes; Good Friday closed)
     firstYear: CALENDAR_FIRST_YEAR,
     lastYear: CALENDAR_LAST_YEAR,
-    source: SIFMA,
+    // source: SIFMA
     rules: [
       // New Year's Day on a Saturday: no weekday close (2010-12-31 and 2021-12-31 were open).
-      { name: "New Year's Day", rule: { kind: 'fixed', m: 1, d: 1, weekend: 'sun-mon' }, from: 1990 },
+      { rule: { kind: 'fixed', m: 1, d: 1, weekend: 'sun-mon' }, from: 1990 }, // New Year's Day
       // Start year of the bond-market close: 1998 (an open-source holiday library's note; not seen in a SIFMA text).
-      { name: 'Martin Luther King Jr. Day', rule: { kind: 'nth', m: 1, weekday: MON, n: 3 }, from: 1998 },
-      { name: "Washington's Birthday", rule: { kind: 'nth', m: 2, weekday: MON, n: 3 }, from: 1990 },
+      { rule: { kind: 'nth', m: 1, weekday: MON, n: 3 }, from: 1998 }, // Martin Luther King Jr. Day
+      { rule: { kind: 'nth', m: 2, weekday: MON, n: 3 }, from: 1990 }, // Washington's Birthday
       // Closed for settlement every year, including the years SIFMA recommended only an early close.
-      { name: 'Good Friday', rule: { kind: 'easter', offset: -2 }, from: 1990 },
-      { name: 'Memorial Day', rule: { kind: 'last', m: 5, weekday: MON }, from: 1990 },
+      { rule: { kind: 'easter', offset: -2 }, from: 1990 }, // Good Friday
+      { rule: { kind: 'last', m: 5, weekday: MON }, from: 1990 }, // Memorial Day
       // Saturday rule as for Independence Day and Christmas: no SIFMA text seen yet for a Saturday Juneteenth.
-      { name: 'Juneteenth', rule: { kind: 'fixed', m: 6, d: 19, weekend: 'sat-fri-sun-mon' }, from: 2022 },
-      { name: 'Independence Day', rule: { kind: 'fixed', m: 7, d: 4, weekend: 'sat-fri-sun-mon' }, from: 1990 },
-      { name: 'Labor Day', rule: { kind: 'nth', m: 9, weekday: MON, n: 1 }, from: 1990 },
-      { name: 'Columbus Day', rule: { kind: 'nth', m: 10, weekday: MON, n: 2 }, from: 1990 },
+      { rule: { kind: 'fixed', m: 6, d: 19, weekend: 'sat-fri-sun-mon' }, from: 2022 }, // Juneteenth
+      { rule: { kind: 'fixed', m: 7, d: 4, weekend: 'sat-fri-sun-mon' }, from: 1990 }, // Independence Day
+      { rule: { kind: 'nth', m: 9, weekday: MON, n: 1 }, from: 1990 }, // Labor Day
+      { rule: { kind: 'nth', m: 10, weekday: MON, n: 2 }, from: 1990 }, // Columbus Day
       // Veterans Day on a Saturday: no weekday close (2023-11-10 open, SOFR published).
-      { name: 'Veterans Day', rule: { kind: 'fixed', m: 11, d: 11, weekend: 'sun-mon' }, from: 1990 },
-      { name: 'Thanksgiving Day', rule: { kind: 'nth', m: 11, weekday: THU, n: 4 }, from: 1990 },
-      { name: 'Christmas Day', rule: { kind: 'fixed', m: 12, d: 25, weekend: 'sat-fri-sun-mon' }, from: 1990 },
+      { rule: { kind: 'fixed', m: 11, d: 11, weekend: 'sun-mon' }, from: 1990 }, // Veterans Day
+      { rule: { kind: 'nth', m: 11, weekday: THU, n: 4 }, from: 1990 }, // Thanksgiving Day
+      { rule: { kind: 'fixed', m: 12, d: 25, weekend: 'sat-fri-sun-mon' }, from: 1990 }, // Christmas Day
     ],
     closures: [
-      { date: '2001-09-11', name: 'Attacks on New York (market closed)', source: 'from memory: the bond market closed on 11 and 12 September 2001; verify against SIFMA (then BMA) records' },
-      { date: '2001-09-12', name: 'Attacks on New York (market closed)', source: 'from memory, as above' },
-      { date: '2004-06-11', name: 'National day of mourning (President Reagan)', source: 'full close, as listed in the project conventions notes' },
-      { date: '2012-10-30', name: 'Hurricane Sandy', source: 'full close, as listed in the project conventions notes' },
-      { date: '2018-12-05', name: 'National day of mourning (President G. H. W. Bush)', source: 'full close, as listed in the project conventions notes' },
+      '2001-09-11', // Attacks on New York (market closed); from memory: the bond market closed on 11 and 12 September 2001; verify against SIFMA (then BMA) records
+      '2001-09-12', // Attacks on New York (market closed); from memory, as above
+      '2004-06-11', // National day of mourning (President Reagan); full close, as listed in the project conventions notes
+      '2012-10-30', // Hurricane Sandy; full close, as listed in the project conventions notes
+      '2018-12-05', // National day of mourning (President G. H. W. Bush); full close, as listed in the project conventions notes
     ],
   },
   'us-federal-reserve': {
     id: 'us-federal-reserve',
-    name: 'US Federal Reserve Banks',
+    // US Federal Reserve Banks
     firstYear: CALENDAR_FIRST_YEAR,
     lastYear: CALENDAR_LAST_YEAR,
-    source: K8,
+    // source: K8
     // K.8: "For holidays falling on Saturday, Federal Reserve Banks and Branches will be open the
     // preceding Friday ... For holidays falling on Sunday, all Federal Reserve offices will be closed the following Monday."
     rules: [
-      { name: "New Year's Day", rule: { kind: 'fixed', m: 1, d: 1, weekend: 'sun-mon' }, from: 1990 },
-      { name: 'Birthday of Martin Luther King, Jr.', rule: { kind: 'nth', m: 1, weekday: MON, n: 3 }, from: 1990 },
-      { name: "Washington's Birthday", rule: { kind: 'nth', m: 2, weekday: MON, n: 3 }, from: 1990 },
-      { name: 'Memorial Day', rule: { kind: 'last', m: 5, weekday: MON }, from: 1990 },
-      { name: 'Juneteenth National Independence Day', rule: { kind: 'fixed', m: 6, d: 19, weekend: 'sun-mon' }, from: 2022 },
-      { name: 'Independence Day', rule: { kind: 'fixed', m: 7, d: 4, weekend: 'sun-mon' }, from: 1990 },
-      { name: 'Labor Day', rule: { kind: 'nth', m: 9, weekday: MON, n: 1 }, from: 1990 },
-      { name: 'Columbus Day', rule: { kind: 'nth', m: 10, weekday: MON, n: 2 }, from: 1990 },
-      { name: 'Veterans Day', rule: { kind: 'fixed', m: 11, d: 11, weekend: 'sun-mon' }, from: 1990 },
-      { name: 'Thanksgiving Day', rule: { kind: 'nth', m: 11, weekday: THU, n: 4 }, from: 1990 },
-      { name: 'Christmas Day', rule: { kind: 'fixed', m: 12, d: 25, weekend: 'sun-mon' }, from: 1990 },
+      { rule: { kind: 'fixed', m: 1, d: 1, weekend: 'sun-mon' }, from: 1990 }, // New Year's Day
+      { rule: { kind: 'nth', m: 1, weekday: MON, n: 3 }, from: 1990 }, // Birthday of Martin Luther King, Jr.
+      { rule: { kind: 'nth', m: 2, weekday: MON, n: 3 }, from: 1990 }, // Washington's Birthday
+      { rule: { kind: 'last', m: 5, weekday: MON }, from: 1990 }, // Memorial Day
+      { rule: { kind: 'fixed', m: 6, d: 19, weekend: 'sun-mon' }, from: 2022 }, // Juneteenth National Independence Day
+      { rule: { kind: 'fixed', m: 7, d: 4, weekend: 'sun-mon' }, from: 1990 }, // Independence Day
+      { rule: { kind: 'nth', m: 9, weekday: MON, n: 1 }, from: 1990 }, // Labor Day
+      { rule: { kind: 'nth', m: 10, weekday: MON, n: 2 }, from: 1990 }, // Columbus Day
+      { rule: { kind: 'fixed', m: 11, d: 11, weekend: 'sun-mon' }, from: 1990 }, // Veterans Day
+      { rule: { kind: 'nth', m: 11, weekday: THU, n: 4 }, from: 1990 }, // Thanksgiving Day
+      { rule: { kind: 'fixed', m: 12, d: 25, weekend: 'sun-mon' }, from: 1990 }, // Christmas Day
     ],
     closures: [],
   },
   target: {
     id: 'target',
-    name: 'TARGET (euro area payments)',
+    // TARGET (euro area payments)
     firstYear: 1999,
     lastYear: CALENDAR_LAST_YEAR,
-    source: 'European Central Bank press releases of 1998-09-03, 1999-03-31, 1999-07-15 and 2000-12-14 (TARGET closing days); no substitute days',
+    // source: European Central Bank press releases of 1998-09-03, 1999-03-31, 1999-07-15 and 2000-12-14 (TARGET closing days); no substitute days
     rules: [
-      { name: "New Year's Day", rule: { kind: 'fixed', m: 1, d: 1, weekend: 'none' }, from: 1999 },
-      { name: 'Good Friday', rule: { kind: 'easter', offset: -2 }, from: 2000 },
-      { name: 'Easter Monday', rule: { kind: 'easter', offset: 1 }, from: 2000 },
-      { name: 'Labour Day', rule: { kind: 'fixed', m: 5, d: 1, weekend: 'none' }, from: 2000 },
-      { name: 'Christmas Day', rule: { kind: 'fixed', m: 12, d: 25, weekend: 'none' }, from: 1999 },
-      { name: '26 December', rule: { kind: 'fixed', m: 12, d: 26, weekend: 'none' }, from: 2000 },
+      { rule: { kind: 'fixed', m: 1, d: 1, weekend: 'none' }, from: 1999 }, // New Year's Day
+      { rule: { kind: 'easter', offset: -2 }, from: 2000 }, // Good Friday
+      { rule: { kind: 'easter', offset: 1 }, from: 2000 }, // Easter Monday
+      { rule: { kind: 'fixed', m: 5, d: 1, weekend: 'none' }, from: 2000 }, // Labour Day
+      { rule: { kind: 'fixed', m: 12, d: 25, weekend: 'none' }, from: 1999 }, // Christmas Day
+      { rule: { kind: 'fixed', m: 12, d: 26, weekend: 'none' }, from: 2000 }, // 26 December
     ],
     closures: [
-      { date: '1999-12-31', name: 'Year 2000 changeover', source: 'ECB press release, 31 March 1999' },
-      { date: '2001-12-31', name: 'Euro cash changeover', source: 'TARGET calendar for 2001 (ECB), as listed in the project conventions notes' },
+      '1999-12-31', // Year 2000 changeover; ECB press release, 31 March 1999
+      '2001-12-31', // Euro cash changeover; TARGET calendar for 2001 (ECB), as listed in the project conventions notes
     ],
   },
   'england-wales': {
     id: 'england-wales',
-    name: 'England and Wales bank holidays',
+    // England and Wales bank holidays
     firstYear: CALENDAR_FIRST_YEAR,
     lastYear: CALENDAR_LAST_YEAR,
-    source: GOVUK,
+    // source: GOV.UK
     rules: [
-      { name: "New Year's Day", rule: { kind: 'fixed', m: 1, d: 1, weekend: 'next-monday' }, from: 1990 },
-      { name: 'Good Friday', rule: { kind: 'easter', offset: -2 }, from: 1990 },
-      { name: 'Easter Monday', rule: { kind: 'easter', offset: 1 }, from: 1990 },
-      { name: 'Early May bank holiday', rule: { kind: 'nth', m: 5, weekday: MON, n: 1 }, from: 1990, except: [1995, 2020] },
-      { name: 'Spring bank holiday', rule: { kind: 'last', m: 5, weekday: MON }, from: 1990, except: [2002, 2012, 2022] },
-      { name: 'Summer bank holiday', rule: { kind: 'last', m: 8, weekday: MON }, from: 1990 },
-      { name: 'Christmas Day and Boxing Day', rule: { kind: 'christmas-boxing-substitutes' }, from: 1990 },
+      { rule: { kind: 'fixed', m: 1, d: 1, weekend: 'next-monday' }, from: 1990 }, // New Year's Day
+      { rule: { kind: 'easter', offset: -2 }, from: 1990 }, // Good Friday
+      { rule: { kind: 'easter', offset: 1 }, from: 1990 }, // Easter Monday
+      { rule: { kind: 'nth', m: 5, weekday: MON, n: 1 }, from: 1990, except: [1995, 2020] }, // Early May bank holiday
+      { rule: { kind: 'last', m: 5, weekday: MON }, from: 1990, except: [2002, 2012, 2022] }, // Spring bank holiday
+      { rule: { kind: 'last', m: 8, weekday: MON }, from: 1990 }, // Summer bank holiday
+      { rule: { kind: 'christmas-boxing-substitutes' }, from: 1990 }, // Christmas Day and Boxing Day
     ],
     closures: [
-      { date: '1995-05-08', name: 'Early May bank holiday (VE Day)', source: 'moved from 1 May 1995' },
-      { date: '1999-12-31', name: 'Millennium', source: 'one-off bank holiday' },
-      { date: '2002-06-03', name: 'Golden Jubilee', source: 'one-off bank holiday' },
-      { date: '2002-06-04', name: 'Spring bank holiday', source: 'moved from 27 May 2002' },
-      { date: '2011-04-29', name: 'Royal wedding', source: 'one-off bank holiday' },
-      { date: '2012-06-04', name: 'Spring bank holiday', source: 'moved from 28 May 2012' },
-      { date: '2012-06-05', name: 'Diamond Jubilee', source: 'one-off bank holiday' },
-      { date: '2020-05-08', name: 'Early May bank holiday (VE Day)', source: `moved from 4 May 2020; ${GOVUK}` },
-      { date: '2022-06-02', name: 'Spring bank holiday', source: `moved from 30 May 2022; ${GOVUK}` },
-      { date: '2022-06-03', name: 'Platinum Jubilee', source: GOVUK },
-      { date: '2022-09-19', name: 'State Funeral of Queen Elizabeth II', source: GOVUK },
-      { date: '2023-05-08', name: 'Coronation of King Charles III', source: GOVUK },
+      '1995-05-08', // Early May bank holiday (VE Day); moved from 1 May 1995
+      '1999-12-31', // Millennium; one-off bank holiday
+      '2002-06-03', // Golden Jubilee; one-off bank holiday
+      '2002-06-04', // Spring bank holiday; moved from 27 May 2002
+      '2011-04-29', // Royal wedding; one-off bank holiday
+      '2012-06-04', // Spring bank holiday; moved from 28 May 2012
+      '2012-06-05', // Diamond Jubilee; one-off bank holiday
+      '2020-05-08', // Early May bank holiday (VE Day); moved from 4 May 2020; GOV.UK
+      '2022-06-02', // Spring bank holiday; moved from 30 May 2022; GOV.UK
+      '2022-06-03', // Platinum Jubilee; GOV.UK
+      '2022-09-19', // State Funeral of Queen Elizabeth II; GOV.UK
+      '2023-05-08', // Coronation of King Charles III; GOV.UK
     ],
   },
 };
 
-/** One holiday of a calendar: its date and name. */
-export interface Holiday {
-  readonly date: IsoDate;
-  readonly name: string;
-}
 
 /**
  * The weekday holidays of a built-in calendar in one year, in date order (a holiday that falls on
  * a weekend with no substitute is not listed: it closes nothing). Empty outside the calendar's years.
  */
-export function builtInHolidays(id: BuiltInCalendarId, year: number): Holiday[] {
+export function builtInHolidays(id: BuiltInCalendarId, year: number): IsoDate[] {
   const def = DEFINITIONS[id];
   if (year < def.firstYear || year > def.lastYear) return [];
-  const out = new Map<number, string>();
+  const out = new Set<number>();
   for (const r of def.rules) {
     if (year < r.from || (r.to !== undefined && year > r.to) || r.except?.includes(year)) continue;
-    for (const s of ruleDays(r.rule, year)) if (!isWeekend(s) && !out.has(s)) out.set(s, r.name);
+    for (const s of ruleDays(r.rule, year)) if (!isWeekend(s)) out.add(s);
   }
   for (const c of def.closures) {
-    const s = serialFromIso(c.date);
-    if (civilFromSerial(s).y === year && !isWeekend(s)) out.set(s, c.name);
+    const s = serialFromIso(c);
+    if (civilFromSerial(s).y === year && !isWeekend(s)) out.add(s);
   }
-  return [...out.entries()].sort((a, b) => a[0] - b[0]).map(([s, name]) => ({ date: isoFromSerial(s), name }));
+  return [...out].sort((a, b) => a - b).map(isoFromSerial);
 }
 
-/** Name, years and source of a built-in calendar, for lists and messages. */
-export function calendarInfo(id: BuiltInCalendarId): { readonly name: string; readonly firstYear: number; readonly lastYear: number; readonly source: string } {
+/** The years a built-in calendar covers. */
+export function calendarYears(id: BuiltInCalendarId): { readonly firstYear: number; readonly lastYear: number } {
   const d = DEFINITIONS[id];
-  return { name: d.name, firstYear: d.firstYear, lastYear: d.lastYear, source: d.source };
+  return { firstYear: d.firstYear, lastYear: d.lastYear };
 }
 
 export const isBuiltInCalendar = (x: unknown): x is BuiltInCalendarId => typeof x === 'string' && (BUILT_IN_CALENDARS as readonly string[]).includes(x);
@@ -350,7 +340,7 @@ function memberClosures(id: string, context: CalendarContext): { closed: (serial
     const y = civilFromSerial(s).y;
     let set = years.get(y);
     if (!set) {
-      set = new Set(builtInHolidays(id, y).map((h) => serialFromIso(h.date)));
+      set = new Set(builtInHolidays(id, y).map(serialFromIso));
       years.set(y, set);
     }
     return set.has(s);

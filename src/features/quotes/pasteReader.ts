@@ -1,9 +1,11 @@
 import { readPastedBlock, previewPaste, type InputConventions, type PastedBlock, type PastePreview, type QuoteUnitMode } from '../../core/index.ts';
+import { startReader } from '../../share/readerRequests.ts';
 
 /** Pastes from this many characters are read in a worker (a 500-row sheet pastes as about 20,000). */
 export const WORKER_FROM_CHARS = 64_000;
 
 export interface PasteReaderRequest {
+  readonly type: 'paste';
   readonly text: string;
   readonly mode: QuoteUnitMode;
   readonly existing: number;
@@ -36,7 +38,7 @@ export function readPaste(request: PasteReaderRequest, onDone: (done: PasteReade
     onDone({ type: 'done', block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped: 0 });
     return () => undefined;
   }
-  const worker = new Worker(new URL('./pasteReader.worker.ts', import.meta.url), { type: 'module' });
+  const worker = startReader();
   let finished = false;
   worker.onmessage = (e: MessageEvent<PasteReaderReply>) => {
     if (e.data.type === 'progress') onProgress(e.data.rows);

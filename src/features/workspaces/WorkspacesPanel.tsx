@@ -1,15 +1,17 @@
 import { download } from '../../components/download.ts';
 import { useRef, useState, type ChangeEvent } from 'react';
-import { type WorkbenchDocument, formatRateShort, rateTag } from '../../core/index.ts';
+import { checkListFile, LIST_FORMAT, LIST_VERSION, type WorkbenchDocument, formatRateShort, rateTag } from '../../core/index.ts';
 import { addWorkspaces, allRecords, deleteWorkspace, readEntry, renameWorkspace, switchWorkspace, undoDelete } from '../../state/persistence.ts';
 import { useAppStore } from '../../state/store.ts';
 import { useWorkspaceList, type WorkspaceListItem } from '../../state/workspaceList.ts';
 import { SPARK_HEIGHT, SPARK_WIDTH, zeroSparkline } from './sparkline.ts';
-import { checkListFile, LIST_FORMAT, LIST_VERSION, readCheckedList } from './listFile.ts';
+import { readCheckedList } from './listFile.ts';
 import { readOffThread } from '../../share/offThread.ts';
+import { startReader } from '../../share/readerRequests.ts';
 import './workspaces.css';
 
-export { LIST_FORMAT, readListFile } from './listFile.ts';
+export { readListFile } from './listFile.ts';
+export { LIST_FORMAT } from '../../core/index.ts';
 
 const savedText = (ms: number | null): string =>
   ms === null ? 'not saved yet' : `saved ${new Date(ms).toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })}`;
@@ -135,7 +137,7 @@ export function WorkspacesPanel({ onClose }: { onClose?: () => void }) {
       setMessage(`${file.name} could not be read. Nothing was added.`);
       return;
     }
-    const checked = await readOffThread(text.length, { text, fileName: file.name }, (r) => checkListFile(r.text, r.fileName), () => new Worker(new URL('./listFile.worker.ts', import.meta.url), { type: 'module' }));
+    const checked = await readOffThread(text.length, { type: 'list', text, fileName: file.name } as const, (r) => checkListFile(r.text, r.fileName), startReader);
     const { items: found, problems } = readCheckedList(checked);
     const added = found.length > 0 ? await addWorkspaces(found) : 0;
     const left = problems.length > 0 ? ` Left out: ${problems.slice(0, 3).join('; ')}${problems.length > 3 ? ` (and ${problems.length - 3} more)` : ''}.` : '';
