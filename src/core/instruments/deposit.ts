@@ -51,10 +51,13 @@ class DepositInstrument extends SingleFlowInstrument<DepositQuote> {
  */
 class ForwardDeposit extends CompiledInstrument<DepositQuote> {
   declare readonly tau: number;
+  /** ln(1 + r tau), NaN when the quote implies a growth <= 0. */
+  declare readonly lnGrowth: number;
 
   constructor(q: DepositQuote, t: number, times: readonly number[], tau: number, rate: number) {
     super(q, t, times, 'rate', 'rate', rate, [0, 1 + rate * tau], 1, null, DISCOUNTING);
     this.tau = tau;
+    this.lnGrowth = 1 + rate * tau > 0 ? Math.log1p(rate * tau) : Number.NaN;
   }
 
   /** DF(S). */
@@ -66,6 +69,11 @@ class ForwardDeposit extends CompiledInstrument<DepositQuote> {
   targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
     out[0] = df[offset]!;
     out[1] = 0;
+  }
+
+  /** The solvers' residual in ln space: ln(1 + r tau) + ln DF(E) - ln DF(S), the same root as (1 + r tau) DF(E) - DF(S). */
+  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return this.lnGrowth + ln[offset + 1]! - ln[offset]!;
   }
 
   /** The simple forward rate, expm1(ln DF(S) - ln DF(E)) / tau. */

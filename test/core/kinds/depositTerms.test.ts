@@ -1,0 +1,195 @@
+import { describe, expect, it } from 'vitest';
+import { runCurveCommand } from '../../../src/cli/curveCommand.ts';
+import {
+  buildCurve,
+  builtInHolidays,
+  compileQuote,
+  INTERPOLATIONS,
+  quoteSchedule,
+  validateWorkspace,
+  type Curve,
+  type DepositQuote,
+  type Quote,
+} from '../../../src/core/index.ts';
+import { parseRow } from '../../../src/core/input/quoteRow.ts';
+import { readPastedBlock } from '../../../src/core/input/pasteTable.ts';
+import { expectClose } from '../../helpers/asserts.ts';
+import { workspaceDoc, type Quote as RawQuote } from '../../helpers/markets.ts';
+
+// Overnight (ON), tom-next (TN) and spot-next (SN) deposits. Sources, named at each check:
+// - MARKET-CONVENTIONS.md section c (the project's notes of published conventions; glossary
+//   definitions cited there): ON from the trade date to the next business day, TN from T+1 to
+//   T+2, SN from spot to spot + 1 business day; "a curve whose DF = 1 at the valuation date needs
+//   DF(spot) = 1 / ((1 + r_ON tau_ON)(1 + r_TN tau_TN)) from ON and TN quotes"; "over Easter, TN
+//   can span 5 calendar days".
+// - The calendars' holidays are src/core/time/calendars.ts's (test/core/time/calendars.test.ts
+//   holds `target` to the ECB's decisions and `england-wales` to the GOV.UK feed). Easter Sunday
+//   2027 is 2027-03-28 (from memory [M]; checked below against the calendar's own Good Friday and
+//   Easter Monday, whose Easter date is tested against the date-easter package).
+// - Money-market deposit pricing DF(S) / DF(E) = 1 + r tau(S, E) on ACT/360: common practice.
+// - The engine contract: every rate quote reprices within 1e-14 (test/core/bootstrap/properties.test.ts).
+// Rates are invented test data.
+
+/** Wednesday before Easter 2027 on TARGET: ON Wed -> Thu, TN Thu -> Tue over Good Friday, the weekend and Easter Monday. */
+const EASTER_WEDNESDAY = '2027-03-24';
+
+const validatedOne = (raw: RawQuote, settlement: string): Quote => {
+  const v = validateWorkspace(workspaceDoc([raw], { settlement }));
+  expect(v.errors).toEqual([]);
+  return v.workspace!.quotes[0]!;
+};
+const datesOf = (raw: RawQuote, settlement: string): [string, string] => {
+  const q = validatedOne(raw, settlement) as DepositQuote;
+  return [q.start, q.maturity];
+};
+const errorsOf = (raw: RawQuote, settlement = EASTER_WEDNESDAY) => validateWorkspace(workspaceDoc([raw], { settlement })).errors;
+const df = (curve: Curve, date: string): number => Math.exp(curve.lnDiscountAt(curve.time(date)));
+
+describe('ON, TN and SN dates (MARKET-CONVENTIONS.md section c)', () => {
+  it('over a weekend on the weekends calendar: Friday settlement, ON to Monday, TN Monday to Tuesday, SN (spot lag 2) Tuesday to Wednesday', () => {
+    const fri = '2027-03-12'; // a Friday (2027-03-10 is a Wednesday [M], checked by the day counts below)
+    expect(datesOf({ kind: 'deposit', tenor: 'ON', rate: 0.03 }, fri)).toEqual(['2027-03-12', '2027-03-15']);
+    expect(datesOf({ kind: 'deposit', tenor: 'TN', rate: 0.03 }, fri)).toEqual(['2027-03-15', '2027-03-16']);
+    expect(datesOf({ kind: 'deposit', tenor: 'SN', rate: 0.03, spotLag: 2 }, fri)).toEqual(['2027-03-16', '2027-03-17']);
+    // SN with the default spot lag 0 is spot = settlement: the ON dates.
+    expect(datesOf({ kind: 'deposit', tenor: 's/n', rate: 0.03 }, fri)).toEqual(['2027-03-12', '2027-03-15']);
+    // A settlement on a Saturday: ON still ends on the next business day (business days counted from the day itself).
+    expect(datesOf({ kind: 'deposit', tenor: 'O/N', rate: 0.03 }, '2027-03-13')).toEqual(['2027-03-13', '2027-03-15']);
+  });
+
+  it('over Easter on target and england-wales: TN spans the 5 calendar days Thursday to Tuesday', () => {
+    // The calendars' own lists: Good Friday 2027-03-26 and Easter Monday 2027-03-29 closed on both.
+    for (const cal of ['target', 'england-wales'] as const) {
+      const hol = builtInHolidays(cal, 2027).map((h) => h.date);
+      expect(hol, cal).toContain('2027-03-26');
+      expect(hol, cal).toContain('2027-03-29');
+      expect(datesOf({ kind: 'deposit', tenor: 'ON', rate: 0.03, calendar: cal }, EASTER_WEDNESDAY), cal).toEqual(['2027-03-24', '2027-03-25']);
+      expect(datesOf({ kind: 'deposit', tenor: 'TN', rate: 0.03, calendar: cal }, EASTER_WEDNESDAY), cal).toEqual(['2027-03-25', '2027-03-30']);
+      expect(datesOf({ kind: 'deposit', tenor: 'SN', rate: 0.03, calendar: cal, spotLag: 2 }, EASTER_WEDNESDAY), cal).toEqual(['2027-03-30', '2027-03-31']);
+    }
+    // On the weekends calendar the same TN is Thursday to Friday.
+    expect(datesOf({ kind: 'deposit', tenor: 'TN', rate: 0.03 }, EASTER_WEDNESDAY)).toEqual(['2027-03-25', '2027-03-26']);
+  });
+
+  it('an ordinary tenor counts from spot when spotLag or calendar is given, its end by the business-day rule; without them exactly as before', () => {
+    // Spot T+2 from Wednesday 2027-03-24 on target is Tuesday 2027-03-30; 1M is 2027-04-30, a Friday.
+    expect(datesOf({ kind: 'deposit', tenor: '1M', rate: 0.03, calendar: 'target', spotLag: 2 }, EASTER_WEDNESDAY)).toEqual(['2027-03-30', '2027-04-30']);
+    // Spot-start 2M from Thursday 2027-01-28 (T+2 = Monday 2027-02-01 on weekends): 2027-04-01, a Thursday;
+    // 1W from 2027-03-13 (a Saturday, spot lag 0): 2027-03-20, a Saturday, moves by modified following to Monday 22, by preceding to Friday 19 (ISDA 2006 4.12).
+    expect(datesOf({ kind: 'deposit', tenor: '1W', rate: 0.03, calendar: 'weekends' }, '2027-03-13')).toEqual(['2027-03-13', '2027-03-22']);
+    expect(datesOf({ kind: 'deposit', tenor: '1W', rate: 0.03, calendar: 'weekends', businessDay: 'preceding' }, '2027-03-13')).toEqual(['2027-03-13', '2027-03-19']);
+    // Without calendar fields: from settlement, unadjusted (the same Saturday end).
+    const plain = validatedOne({ kind: 'deposit', tenor: '1W', rate: 0.03 }, '2027-03-13') as DepositQuote;
+    expect([plain.start, plain.maturity, plain.calendar, plain.spotLag, plain.businessDay]).toEqual(['2027-03-13', '2027-03-20', null, null, null]);
+  });
+});
+
+describe('pricing: DF(S) / DF(E) = 1 + r tau; an ON and a TN quote pin DF(spot)', () => {
+  const rON = 0.0291;
+  const rTN = 0.0294;
+  const easterMarket = (interpolation: (typeof INTERPOLATIONS)[number]) =>
+    workspaceDoc(
+      [
+        { kind: 'deposit', tenor: 'ON', rate: rON, calendar: 'target' },
+        { kind: 'deposit', tenor: 'TN', rate: rTN, calendar: 'target' },
+        { kind: 'deposit', tenor: 'SN', rate: 0.0296, calendar: 'target', spotLag: 2 },
+        { kind: 'deposit', tenor: '1W', rate: 0.0298, calendar: 'target', spotLag: 2 },
+        { kind: 'deposit', tenor: '1M', rate: 0.0301, calendar: 'target', spotLag: 2 },
+        { kind: 'deposit', tenor: '3M', rate: 0.0305, calendar: 'target', spotLag: 2 },
+        { kind: 'ois', tenor: '1Y', rate: 0.0297, calendar: 'target', spotLag: 2 },
+        { kind: 'ois', tenor: '2Y', rate: 0.0288, calendar: 'target', spotLag: 2 },
+      ],
+      { settlement: EASTER_WEDNESDAY, interpolation },
+    );
+
+  for (const interpolation of INTERPOLATIONS) {
+    it(`${interpolation}: DF(spot) = 1 / ((1 + r_ON tau_ON)(1 + r_TN tau_TN)) within 1e-15, every quote within 1e-14 in rate`, () => {
+      const build = buildCurve(easterMarket(interpolation));
+      expect(build.errors).toEqual([]);
+      const c = build.curve!;
+      // tau on ACT/360: ON Wed -> Thu 1 day, TN Thu -> Tue over Easter 5 days (section c).
+      const spotDf = 1 / ((1 + rON * (1 / 360)) * (1 + rTN * (5 / 360)));
+      expectClose(df(c, '2027-03-30'), spotDf, 1e-15, 'MARKET-CONVENTIONS.md c: DF(spot) from ON and TN');
+      expectClose(df(c, '2027-03-25'), 1 / (1 + rON / 360), 1e-15, 'DF(ON end) = 1 / (1 + r_ON tau_ON)');
+      expect(build.repricing).toHaveLength(8);
+      for (const r of build.repricing) {
+        expect(Math.abs(r.repricingError), `quotes[${r.index}] under ${interpolation}`).toBeLessThanOrEqual(1e-14);
+      }
+      // The pricing read off the curve by the formula, independently of the instrument: the 1M deposit from spot.
+      expectClose((df(c, '2027-03-30') / df(c, '2027-04-30') - 1) / (31 / 360), 0.0301, 2e-14, 'DF(S)/DF(E) = 1 + r tau, 1M from spot (2e-14: the formula in another order)');
+    });
+  }
+
+  it('a deposit from settlement without calendar fields is today\'s single flow: DF(E) = 1 / (1 + r tau) in closed form', () => {
+    const q = validatedOne({ kind: 'deposit', tenor: '3M', rate: 0.0305 }, EASTER_WEDNESDAY);
+    const ins = compileQuote(q, EASTER_WEDNESDAY, 'ACT/365F');
+    expect(ins.targetFromFlows).toBeUndefined();
+    expect(ins.closedFormLn).toBe(-Math.log1p(0.0305 * (92 / 360)));
+  });
+});
+
+describe('refusals name the quote, the field and what is valid', () => {
+  it('a swap, an OIS and a bond refuse ON/TN/SN in the document', () => {
+    const e = errorsOf({ kind: 'swap', tenor: 'ON', rate: 0.03 });
+    expect(e).toHaveLength(1);
+    expect(e[0]!.path).toBe('quotes[0].tenor');
+    expect(e[0]!.message).toBe('quotes[0].tenor: "ON" (overnight) is a tenor of deposit quotes only; a swap takes a tenor nD, nW, nM or nY with n >= 1 (such as "3M") or a maturity date');
+    expect(errorsOf({ kind: 'ois', tenor: 'T/N', rate: 0.03 })[0]!.message).toMatch(/^quotes\[0\]\.tenor: "T\/N" \(tom-next\) is a tenor of deposit quotes only; a ois takes/);
+    expect(errorsOf({ kind: 'zero', tenor: 'sn', rate: 0.03 })[0]!.path).toBe('quotes[0].tenor');
+  });
+
+  it('the sheet refuses ON for a swap row in its maturity cell and takes it for a deposit row', () => {
+    const row = { id: 'r', enabled: true, kind: 'swap', maturity: 'O/N', rate: '3.1', price: '', coupon: '', frequency: '', dayCount: '' };
+    const p = parseRow(row, 'percent');
+    expect(p.quote).toBeNull();
+    expect(p.issues.maturity?.message).toBe('ON (overnight) is a deposit tenor; a swap takes a tenor such as 1M or 5Y, or a date');
+    const d = parseRow({ ...row, kind: 'deposit' }, 'percent');
+    expect(d.issues).toEqual({});
+    expect(d.quote).toEqual({ kind: 'deposit', tenor: 'ON', rate: 0.031 });
+  });
+
+  it('an unknown calendar, a business-day rule on ON, or a business-day rule without a calendar', () => {
+    expect(errorsOf({ kind: 'deposit', tenor: 'ON', rate: 0.03, calendar: 'mars' })[0]!.path).toBe('quotes[0].calendar');
+    expect(errorsOf({ kind: 'deposit', tenor: 'ON', rate: 0.03, calendar: 'mars' })[0]!.message).toMatch(/weekends.*target/);
+    expect(errorsOf({ kind: 'deposit', tenor: 'ON', rate: 0.03, businessDay: 'following' })[0]!.message).toBe('quotes[0].businessDay: ON counts business days on the calendar, so no business-day rule applies; remove businessDay');
+    expect(errorsOf({ kind: 'deposit', tenor: '3M', rate: 0.03, businessDay: 'following' })[0]!.path).toBe('quotes[0].businessDay');
+    expect(errorsOf({ kind: 'deposit', tenor: 'SN', rate: 0.03, spotLag: -1 })[0]!.path).toBe('quotes[0].spotLag');
+  });
+});
+
+describe('end to end: paste, quote check, command line', () => {
+  it('a pasted block reads O/N, T/N and S/N in the maturity column of deposit rows', () => {
+    const block = readPastedBlock('Type\tTenor\tRate\nDeposit\tO/N\t2.91\nDeposit\tT/N\t2.94\nDeposit\tS/N\t2.96\n');
+    expect(block.rows.map((r) => r.maturity)).toEqual(['O/N', 'T/N', 'S/N']);
+    const tenors = block.rows.map((r) => parseRow({ ...r, id: 'r', enabled: true }, 'percent').quote?.tenor);
+    expect(tenors).toEqual(['ON', 'TN', 'SN']);
+  });
+
+  it('the quote check shows a TN deposit from its start to its end, 100 (1 + r tau) at the end', () => {
+    const q = validatedOne({ kind: 'deposit', tenor: 'TN', rate: 0.0294, calendar: 'target' }, EASTER_WEDNESDAY);
+    const s = quoteSchedule(q, EASTER_WEDNESDAY, null)!;
+    expect(s.rows).toHaveLength(1);
+    expect([s.rows[0]!.start, s.rows[0]!.end]).toEqual(['2027-03-25', '2027-03-30']);
+    expectClose(s.rows[0]!.yearFraction, 5 / 360, 0, 'ACT/360 over Easter');
+    expectClose(s.rows[0]!.cashFlow, 100 * (1 + 0.0294 * (5 / 360)), 1e-10, 'cash flow per 100 to 1e-10 (rounded for display)');
+    expect(s.note).toMatch(/2027-03-25.*2027-03-30.*target calendar/);
+  });
+
+  it('the curve command builds a document with ON/TN/SN deposits; each quote\'s maturity is its end date', async () => {
+    const doc = workspaceDoc(
+      [
+        { kind: 'deposit', tenor: 'ON', rate: 0.0291, calendar: 'target' },
+        { kind: 'deposit', tenor: 'TN', rate: 0.0294, calendar: 'target' },
+        { kind: 'deposit', tenor: 'SN', rate: 0.0296, calendar: 'target', spotLag: 2 },
+        { kind: 'ois', tenor: '1Y', rate: 0.0297, calendar: 'target', spotLag: 2 },
+      ],
+      { settlement: EASTER_WEDNESDAY },
+    );
+    const r = await runCurveCommand(['-'], () => JSON.stringify(doc));
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const o = JSON.parse(r.stdout) as { quotes: { maturity: string; repricingError: number }[] };
+    expect(o.quotes.map((q) => q.maturity).slice(0, 3)).toEqual(['2027-03-25', '2027-03-30', '2027-03-31']);
+    for (const q of o.quotes) expect(Math.abs(q.repricingError)).toBeLessThanOrEqual(1e-14);
+  });
+});
