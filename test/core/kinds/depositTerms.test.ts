@@ -13,6 +13,7 @@ import {
 } from '../../../src/core/index.ts';
 import { parseRow } from '../../../src/core/input/quoteRow.ts';
 import { readPastedBlock } from '../../../src/core/input/pasteTable.ts';
+import { workbenchFromEngine } from '../../../src/core/document/documentBridge.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 import { workspaceDoc, type Quote as RawQuote } from '../../helpers/markets.ts';
 
@@ -163,6 +164,15 @@ describe('end to end: paste, quote check, command line', () => {
     expect(block.rows.map((r) => r.maturity)).toEqual(['O/N', 'T/N', 'S/N']);
     const tenors = block.rows.map((r) => parseRow({ ...r, id: 'r', enabled: true }, 'percent').quote?.tenor);
     expect(tenors).toEqual(['ON', 'TN', 'SN']);
+  });
+
+  it('a workspace file opens in the workbench when its ON deposit is on the sheet\'s weekends calendar, and is refused naming calendar when not', () => {
+    const weekends = workbenchFromEngine(workspaceDoc([{ kind: 'deposit', tenor: 'O/N', rate: 0.03, calendar: 'weekends' }], { settlement: EASTER_WEDNESDAY }), () => 'r');
+    expect(weekends.ok).toBe(true);
+    if (weekends.ok) expect(weekends.value.quotes[0]!.maturity).toBe('O/N'); // the cell keeps the text as the file gave it
+    const target = workbenchFromEngine(workspaceDoc([{ kind: 'deposit', tenor: 'TN', rate: 0.03, calendar: 'target' }], { settlement: EASTER_WEDNESDAY }), () => 'r');
+    expect(target.ok).toBe(false);
+    if (!target.ok) expect(target.errors[0]!.message).toMatch(/its calendar \("target"\) has no column in the sheet/);
   });
 
   it('the quote check shows a TN deposit from its start to its end, 100 (1 + r tau) at the end', () => {
