@@ -1,11 +1,23 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { runCurveCommand } from '../../../src/cli/curveCommand.ts';
 import {
+  bootstrapInstruments,
+  bumpedForwardSensitivities,
+  compileMarket,
+  forwardRows,
+  forwardSensitivities,
+  luFactor,
+  luInverse,
+  modelYieldNodeJacobian,
+  quoteNodeJacobian,
   buildCurve,
   builtInHolidays,
   compileQuote,
   INTERPOLATIONS,
+  isoFromSerial,
   quoteSchedule,
+  serialFromIso,
   validateWorkspace,
   type Curve,
   type DepositQuote,
@@ -201,5 +213,104 @@ describe('end to end: paste, quote check, command line', () => {
     const o = JSON.parse(r.stdout) as { quotes: { maturity: string; repricingError: number }[] };
     expect(o.quotes.map((q) => q.maturity).slice(0, 3)).toEqual(['2027-03-25', '2027-03-30', '2027-03-31']);
     for (const q of o.quotes) expect(Math.abs(q.repricingError)).toBeLessThanOrEqual(1e-14);
+  });
+});
+
+describe('the repricing property on random ON/TN/SN markets (engine contract: 1e-14 in rate)', () => {
+  // Random settlements 2020-2035 on each built-in calendar (so weekends, Easter and year ends
+  // fall inside ON and TN at random), ON + TN + SN (spot lag 2) + spot-starting deposits and OIS
+  // on the same calendar, invented rates. Every quote must reprice within 1e-14 under every
+  // interpolation, DF(spot) must equal 1/((1 + r_ON tau_ON)(1 + r_TN tau_TN)) within 1e-15 (spot
+  // lag 2 makes the TN end the spot date), and the repricing reported must be the built curve's
+  // own bit for bit (modelQuote on curve.lnDiscountAt), as for every other kind.
+  const CALENDARS = ['weekends', 'us-gov-securities', 'us-federal-reserve', 'target', 'england-wales'] as const;
+  const marketArb = fc.record({
+    serial: fc.integer({ min: serialFromIso('2020-01-01'), max: serialFromIso('2035-12-31') }),
+    calendar: fc.constantFrom(...CALENDARS),
+    // Rates in tenths of a basis point (no subnormal doubles, whose signed zeros the bit-for-bit check would compare).
+    level: fc.integer({ min: -50, max: 800 }).map((n) => n / 10_000),
+    step: fc.array(fc.integer({ min: -400, max: 400 }).map((n) => n / 100_000), { minLength: 8, maxLength: 8 }),
+    longer: fc.subarray(['1W', '1M', '3M', '6M'], { minLength: 0 }),
+    ois: fc.subarray(['1Y', '2Y', '5Y'], { minLength: 0 }),
+  });
+  type Generated = typeof marketArb extends fc.Arbitrary<infer G> ? G : never;
+  const docOf = (g: Generated, interpolation: (typeof INTERPOLATIONS)[number]) => {
+    const calendar: string = g.calendar;
+    const r = (i: number): number => g.level + g.step[i]!;
+    const quotes: RawQuote[] = [
+      { kind: 'deposit', tenor: 'ON', rate: r(0), calendar },
+      { kind: 'deposit', tenor: 'TN', rate: r(1), calendar },
+      { kind: 'deposit', tenor: 'SN', rate: r(2), calendar, spotLag: 2 },
+      ...g.longer.map((tenor, i) => ({ kind: 'deposit', tenor, rate: r(3 + i), calendar, spotLag: 2 })),
+      ...g.ois.map((tenor, i) => ({ kind: 'ois', tenor, rate: r(7) + 0.001 * i, calendar, spotLag: 2 })),
+    ];
+    return workspaceDoc(quotes, { settlement: isoFromSerial(g.serial), interpolation });
+  };
+
+  for (const interpolation of INTERPOLATIONS) {
+    it(interpolation, () => {
+      fc.assert(
+        fc.property(marketArb, (g) => {
+          const doc = docOf(g, interpolation);
+          const b = buildCurve(doc);
+          // monotone-convex-positive refuses a market with a negative discrete forward (by contract).
+          if (interpolation === 'monotone-convex-positive' && b.errors.length > 0 && b.errors.every((e) => /needs positive forwards/.test(e.message))) return;
+          expect(b.errors).toEqual([]);
+          for (const r of b.repricing) expect(Math.abs(r.repricingError), `quotes[${r.index}] ${r.kind} on ${g.calendar} from ${doc.settlement}`).toBeLessThanOrEqual(1e-14);
+          const quotes = b.workspace!.quotes as DepositQuote[];
+          const [on, tn] = [quotes[0]!, quotes[1]!];
+          const tau = (q: DepositQuote): number => (serialFromIso(q.maturity) - serialFromIso(q.start)) / 360;
+          expectClose(df(b.curve!, tn.maturity), 1 / ((1 + on.rate * tau(on)) * (1 + tn.rate * tau(tn))), 1e-15, 'MARKET-CONVENTIONS.md c: DF(spot) from ON and TN');
+          b.instruments.forEach((ins, i) => expect(b.repricing[i]!.model, `quotes[${ins.index}]`).toBe(ins.modelQuote(b.curve!.lnDiscountAt)));
+        }),
+        { seed: 20261202, numRuns: interpolation === 'cubic-zero' || interpolation.startsWith('monotone') ? 30 : 60, endOnFailure: true },
+      );
+    }, 120_000);
+  }
+});
+
+describe('risk on a curve with TN and SN deposits reads their target DF(S) (targetSlopes)', () => {
+  // As test/core/kinds/ois.test.ts does for the lagged OIS (and forwardSensitivity.test.ts for the
+  // fixed-flow kinds): (dq/dx from the model-quote formulas) x (dq/dx from the pricing equations)^-1
+  // = I to 1e-8, and analytic forward sensitivities match bumped rebuilds (1 bp and 0.5 bp,
+  // Richardson) to 1e-6 bp per bp. A forward deposit's pricing equation has DF(S) as its target,
+  // so both fail if its slopes are wrong.
+  const quotes: RawQuote[] = [
+    { kind: 'deposit', tenor: 'ON', rate: 0.0291, calendar: 'target' },
+    { kind: 'deposit', tenor: 'TN', rate: 0.0294, calendar: 'target' },
+    { kind: 'deposit', tenor: 'SN', rate: 0.0296, calendar: 'target', spotLag: 2 },
+    { kind: 'deposit', tenor: '3M', rate: 0.0305, calendar: 'target', spotLag: 2 },
+    { kind: 'ois', tenor: '1Y', rate: 0.0297, calendar: 'target', spotLag: 2 },
+    { kind: 'ois', tenor: '3Y', rate: 0.0288, calendar: 'target', spotLag: 2 },
+  ];
+  const ws = validateWorkspace(workspaceDoc(quotes, { settlement: EASTER_WEDNESDAY, interpolation: 'log-linear-discount' })).workspace!;
+  const instruments = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false).instruments;
+  const settings = { settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation: 'log-linear-discount' as const, extrapolation: 'none' as const };
+  const maxAbsDiff = (a: ArrayLike<number>, b: ArrayLike<number>): number => {
+    let m = 0;
+    for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]! - b[i]!));
+    return m;
+  };
+  it('the two Jacobians of the quotes to the nodes are inverse to 1e-8', () => {
+    const curve = bootstrapInstruments(settings, instruments).curve!;
+    const n = instruments.length;
+    const direct = modelYieldNodeJacobian(curve, instruments);
+    const inv = luInverse(luFactor(quoteNodeJacobian(curve, instruments).jacobian, n)!);
+    const prod = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) for (let j = 0; j < n; j++) prod[i * n + k] = prod[i * n + k]! + direct[i * n + j]! * inv[j * n + k]!;
+    const identity = Float64Array.from({ length: n * n }, (_, k) => (Math.floor(k / n) === k % n ? 1 : 0));
+    expect(maxAbsDiff(prod, identity)).toBeLessThanOrEqual(1e-8);
+  });
+  it('forward sensitivities match bumped rebuilds to 1e-6 bp per bp', () => {
+    const curve = bootstrapInstruments(settings, instruments).curve!;
+    const rows = forwardRows(curve, { n: 3, unit: 'M' }, { n: 1, unit: 'Y' }, 'simple', 'ACT/365F');
+    if (!rows.ok) throw new Error(rows.errors[0]!.message);
+    const map = forwardSensitivities(curve, instruments, rows.value, 'simple', 'ACT/365F');
+    if (!map.ok) throw new Error(map.errors[0]!.message);
+    const b1 = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 1);
+    const bh = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 0.5);
+    if (!b1.ok || !bh.ok) throw new Error('bumped rebuild failed');
+    const rich = Float64Array.from(b1.value, (v, i) => (4 * bh.value[i]! - v) / 3);
+    expect(maxAbsDiff(map.value.values, rich)).toBeLessThanOrEqual(1e-6);
   });
 });
