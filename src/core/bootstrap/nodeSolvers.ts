@@ -158,7 +158,7 @@ class SegmentSolver implements NodeSolver {
       settled = Math.abs(f0) <= NODE_SETTLED_RESIDUAL * (onCurve ? 1 : amounts[times.length - 1]!) * Math.exp(x0);
     }
     if (!settled) {
-      const outcome = solveNode(residual, x0, f0);
+      const outcome = solveNode(residual, x0, f0, ins.residualFromFlows !== undefined);
       if (!outcome.ok) return solveFailure(ins, outcome.reason);
       x = outcome.x;
     }
@@ -203,6 +203,7 @@ class SegmentSolver implements NodeSolver {
         flows.df[offset + j] = df;
         pv += amounts[j]! * df;
       }
+      if (ins.residualFromFlows !== undefined) return ins.residualFromFlows(flows.ln, flows.df, offset);
       return pv - ins.targetFromFlows!(flows.ln, flows.df, offset);
     };
   }
@@ -221,6 +222,7 @@ function residualWithCurveTarget(ins: Instrument, lnAt: (j: number) => number, l
     df[j] = Math.exp(ln[j]!);
     pv += amounts[j]! * df[j]!;
   }
+  if (ins.residualFromFlows !== undefined) return ins.residualFromFlows(ln, df, 0);
   return pv - ins.targetFromFlows!(ln, df, 0);
 }
 
@@ -331,7 +333,7 @@ class AffineSolver implements NodeSolver {
     ys[k] = x0;
     const ln = new Array<number>(n);
     const df = new Array<number>(n);
-    const outcome = solveNode((x) => residualWithCurveTarget(ins, (j) => lnA[j]! + slope[j]! * (x - x0), ln, df), x0);
+    const outcome = solveNode((x) => residualWithCurveTarget(ins, (j) => lnA[j]! + slope[j]! * (x - x0), ln, df), x0, undefined, ins.residualFromFlows !== undefined);
     if (!outcome.ok) return solveFailure(ins, outcome.reason);
     return outcome.x;
   }
@@ -376,7 +378,7 @@ class RebuildSolver implements NodeSolver {
         fStart = residualAt(x0);
         if (Math.abs(fStart) <= NODE_SETTLED_RESIDUAL * Math.exp(x0)) return x0;
       }
-      const out = solveNode(residualAt, x0, fStart);
+      const out = solveNode(residualAt, x0, fStart, ins.residualFromFlows !== undefined);
       if (!out.ok) return solveFailure(ins, out.reason);
       return out.x;
     }

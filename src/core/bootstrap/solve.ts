@@ -19,7 +19,7 @@ const X_MAX = LN_DISCOUNT_LIMIT;
  * No root with a positive discount factor: `non-positive-discount` (the residual stays positive
  * as DF goes to 0); none with a finite one: `no-solution`.
  */
-export function solveNode(residual: (x: number) => number, x0: number, f0?: number): SolveOutcome {
+export function solveNode(residual: (x: number) => number, x0: number, f0?: number, stopAtRoot = false): SolveOutcome {
   let evaluations = 0;
   let x = x0;
   // f0: the residual at x0 when the caller already has it (saves one evaluation).
@@ -43,6 +43,11 @@ export function solveNode(residual: (x: number) => number, x0: number, f0?: numb
     const bracketed = !Number.isNaN(neg) && !Number.isNaN(pos);
     const slope = (fx - fPrev) / (x - xPrev);
     let next = x - fx / slope;
+    // With `stopAtRoot`: a secant step below the last point's rounding means x is the root to the
+    // last bit (a residual linear in x, such as a forward deposit's in ln space, lands there in one
+    // step); bisecting the bracket instead would walk up to NODE_TOLERANCE away from it. Off for
+    // every other residual, whose solves stay as they were bit for bit (test/cli/golden.test.ts).
+    if (stopAtRoot && next === x) return { ok: true, x, evaluations };
     if (!Number.isFinite(next)) next = bracketed ? 0.5 * (neg + pos) : x - Math.sign(fx) * stride;
     if (bracketed) {
       const lo = Math.min(neg, pos);

@@ -20,11 +20,23 @@ interface QuoteCommon {
   readonly enabled: boolean;
 }
 
-/** Money-market deposit: simple rate (decimal) on its day count from settlement to maturity. */
+/**
+ * Money-market deposit: simple rate (decimal) on its day count from `start` to maturity. Its tenor
+ * may also be `ON`, `TN` or `SN` (time/depositDates.ts). `calendar` null: a deposit with an
+ * ordinary tenor or date and none of the fields `calendar`, `spotLag`, `businessDay`; it runs from
+ * settlement (`start`) to the maturity, unadjusted, as every deposit did before. Otherwise
+ * `calendar` (default `weekends`), `spotLag` business days (default 0), `businessDay` for an
+ * ordinary tenor's end (default modified-following; null for ON, TN, SN, which count business
+ * days), and the `start` date they give; `maturity` is the end.
+ */
 export interface DepositQuote extends QuoteCommon {
   readonly kind: 'deposit';
   readonly rate: number;
   readonly dayCount: DayCount;
+  readonly start: IsoDate;
+  readonly calendar: string | null;
+  readonly spotLag: number | null;
+  readonly businessDay: BusinessDayRule | null;
 }
 /** Discount bill: bank discount yield (decimal, actual/360) or price per 100. */
 export interface BillQuote extends QuoteCommon {

@@ -6,8 +6,9 @@ import { compareIso, isoFromCivil, parseIsoDate, type CivilDate, type IsoDate } 
 import { CURVE_DAY_COUNTS, isCurveDayCount } from '../time/dayCount.ts';
 import { marketDateCivil } from '../time/dateConventions.ts';
 import { formatTenor, parseTenor } from '../time/tenor.ts';
+import { MONEY_MARKET_TERMS, moneyMarketTerm } from '../time/depositDates.ts';
 import { listOf, typeName } from '../kinds/fields.ts';
-import { KIND_ALLOWED_FIELDS, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
+import { KIND_ALLOWED_FIELDS, KIND_MODULE_LIST, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 import { isPlainObject } from './plainObject.ts';
 
@@ -131,10 +132,22 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   // Maturity: exactly one of tenor and maturity.
   let maturity: IsoDate | null = null;
   let tenor: string | null = null;
+  let termTenor = false;
   const hasTenor = raw.tenor !== undefined;
   const hasMaturity = raw.maturity !== undefined;
   if (hasTenor === hasMaturity) {
     errors.push(coreError('schema', base, `${base}: give exactly one of tenor (such as "5Y") and maturity (a date YYYY-MM-DD)`, index));
+  } else if (hasTenor && typeof raw.tenor === 'string' && moneyMarketTerm(raw.tenor) !== null) {
+    // ON, TN, SN: the kind's reader makes the dates (on its calendar); the maturity here is a stand-in.
+    const term = moneyMarketTerm(raw.tenor)!;
+    if (QUOTE_KIND_MODULES[k].moneyMarketTerms === true) {
+      tenor = term;
+      maturity = settlement;
+      termTenor = true;
+    } else {
+      const takers = KIND_MODULE_LIST.filter((mod) => mod.moneyMarketTerms === true).map((mod) => mod.kind);
+      errors.push(coreError('schema', `${base}.tenor`, `${base}.tenor: "${raw.tenor}" (${MONEY_MARKET_TERMS[term]}) is a tenor of ${listOf(takers)} quotes only; a ${k} takes a tenor nD, nW, nM or nY with n >= 1 (such as "3M") or a maturity date`, index));
+    }
   } else if (hasTenor) {
     const parsed = typeof raw.tenor === 'string' ? parseTenor(raw.tenor) : null;
     if (!parsed || raw.tenor !== (raw.tenor as string).trim()) {
@@ -146,7 +159,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   } else {
     maturity = checkDate(raw.maturity, `${base}.maturity`, errors, index);
   }
-  if (maturity !== null && compareIso(maturity, settlement) <= 0) {
+  if (maturity !== null && !termTenor && compareIso(maturity, settlement) <= 0) {
     errors.push(coreError('before-settlement', `${base}.${hasTenor ? 'tenor' : 'maturity'}`, `${base}: maturity ${maturity} must be after the settlement date ${settlement}`, index));
     maturity = null;
   }

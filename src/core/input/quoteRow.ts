@@ -1,4 +1,5 @@
-import { kindModule } from '../kinds/registry.ts';
+import { KIND_MODULE_LIST, kindModule } from '../kinds/registry.ts';
+import { MONEY_MARKET_TERMS, moneyMarketTerm } from '../time/depositDates.ts';
 import {
   parseCouponText,
   parseDayCountText,
@@ -91,7 +92,10 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode, conventions: InputC
   }
   const kind = kindParse.value;
   const quote: Record<string, unknown> = { kind };
-  if (maturity) Object.assign(quote, maturity);
+  if (maturity && 'tenor' in maturity && moneyMarketTerm(maturity.tenor) !== null && kindModule(kind).moneyMarketTerms !== true) {
+    const takers = KIND_MODULE_LIST.filter((m) => m.moneyMarketTerms === true).map((m) => m.kind);
+    error('maturity', `${maturity.tenor} (${MONEY_MARKET_TERMS[moneyMarketTerm(maturity.tenor)!]}) is a ${takers.join(' or ')} tenor; a ${kind} takes a tenor such as 1M or 5Y, or a date`);
+  } else if (maturity) Object.assign(quote, maturity);
   if (!row.enabled) quote.enabled = false;
 
   // Which fields the kind takes from the sheet's columns, and what the rate and price columns mean (src/core/kinds).

@@ -4,7 +4,7 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, OisQuote, SwapQuote } from '../document/types.ts';
+import type { BondQuote, DepositQuote, OisQuote, SwapQuote } from '../document/types.ts';
 import { oisDates } from '../instruments/ois.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
 import { yearFractionCivil } from '../time/dayCount.ts';
@@ -96,4 +96,18 @@ export function oisScheduleRows(q: OisQuote, settlement: IsoDate, curve: Curve |
   });
   const lag = q.paymentLag === 0 ? 'paid on each accrual end' : `each paid ${q.paymentLag} business day${q.paymentLag === 1 ? '' : 's'} after its accrual end (accrual ends ${ends.map(isoFromCivil).join(', ')})`;
   return { rows, accrued: 0, note: `fixed leg per 100 notional on the ${q.calendar} calendar, ${q.businessDay}, ${lag}; the floating leg compounds the overnight rate and is not shown` };
+}
+
+/**
+ * A deposit's one period: from its start to its end (maturity), the year fraction on its day
+ * count, and 100 (1 + r tau) paid at the end per 100 placed at the start. The note names its
+ * calendar and start when it has them (ON, TN, SN, a spot lag).
+ */
+export function depositScheduleRows(q: DepositQuote, _settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const tau = yearFraction(q.dayCount, q.start, q.maturity, { termination: q.maturity });
+  const cashFlow = money(100 * (1 + q.rate * tau));
+  const { discount, t } = df(curve, q.maturity);
+  const rows = [{ start: q.start, end: q.maturity, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t }];
+  const on = q.calendar === null ? 'from settlement, dates unadjusted' : `on the ${q.calendar} calendar${q.spotLag ? `, spot ${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after settlement` : ''}`;
+  return { rows, accrued: 0, note: `deposit per 100 placed on ${q.start}, repaid with interest on ${q.maturity}; ${on}` };
 }

@@ -5,6 +5,7 @@ import { DAY_COUNTS, type DayCount } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
 import { parseDateText, type DateOrder } from './dateText.ts';
 import { formatTenor, parseTenor } from '../time/tenor.ts';
+import { MONEY_MARKET_TERMS, moneyMarketTerm } from '../time/depositDates.ts';
 import { Decimal, exactDecimal, nearestDouble, normaliseNumberText } from './decimalText.ts';
 
 /**
@@ -147,14 +148,8 @@ export function parsePriceText(text: string): CellParse<number> {
 export type MaturityText = { readonly tenor: string } | { readonly maturity: IsoDate };
 
 /**
- * Money-market terms counted from the trade date with business-day calendars: overnight,
- * tom-next, spot-next. The engine counts every maturity from settlement and has no business-day
- * calendar yet, so these are refused with what is supported.
- */
-const CALENDAR_TERMS: Readonly<Record<string, string>> = { ON: 'overnight', TN: 'tom-next', SN: 'spot-next' };
-
-/**
- * A maturity: a tenor (`6M`, `10Y`) or a date as people type it (`2031-11-15`, `15-Nov-2031`,
+ * A maturity: a tenor (`6M`, `10Y`), a money-market term `ON`, `TN` or `SN` (also `O/N`, any
+ * case; a deposit's only, which the row checks) or a date as people type it (`2031-11-15`, `15-Nov-2031`,
  * `15 Nov 31`, `Nov 15 2031`, or `11/15/2031` / `15/11/2031` by `dateOrder`; see `parseDateText`).
  */
 export function parseMaturityText(text: string, dateOrder: DateOrder = 'mdy'): CellParse<MaturityText> {
@@ -162,10 +157,10 @@ export function parseMaturityText(text: string, dateOrder: DateOrder = 'mdy'): C
   if (s === '') return bad('maturity is required; type a tenor such as 3M or 10Y, or a date such as 2031-11-15');
   const tenor = parseTenor(s);
   if (tenor) return good({ tenor: formatTenor(tenor) });
-  const term = CALENDAR_TERMS[s.toUpperCase().replace(/[\s/.\-]/g, '')];
-  if (term) {
-    return bad(`"${s}" (${term}) is not supported yet: it starts before settlement and needs business-day calendars. Type a tenor from settlement such as 1D, 1W or 1M, or a date`);
-  }
+  const term = moneyMarketTerm(s);
+  if (term) return good({ tenor: term });
+  const loose = moneyMarketTerm(s.replace(/[\s.\-]/g, ''));
+  if (loose) return bad(`"${s}": type ${loose} (or ${loose[0]}/N) for ${MONEY_MARKET_TERMS[loose]}, a deposit's tenor`);
   const date = parseDateText(s, dateOrder);
   if (date?.ok) return good({ maturity: date.date });
   const valid = `type a tenor such as 6M, 2Y or 30Y, or a date YYYY-MM-DD such as 2031-11-15 (also 15-Nov-2031 or ${dateOrder === 'mdy' ? '11/15/2031' : '15/11/2031'})`;

@@ -1,16 +1,28 @@
 import { yearFraction } from '../time/dayCount.ts';
-import type { IsoDate } from '../time/date.ts';
+import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { DepositQuote } from '../document/types.ts';
-import type { Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
 
 /**
- * Money-market deposit from settlement to maturity at a simple rate r on its day count
- * (default ACT/360): DF(T) = 1 / (1 + r tau). Common practice for money-market deposits.
+ * Money-market deposit from its start S to maturity E at a simple rate r on its day count
+ * (default ACT/360): DF(S) / DF(E) = 1 + r tau(S, E). Common practice for money-market deposits;
+ * the chain of an overnight and a tom-next deposit, DF(spot) = 1 / ((1 + r_ON tau_ON)
+ * (1 + r_TN tau_TN)), is MARKET-CONVENTIONS.md section c.
+ * - S at settlement (every deposit without calendar fields, and ON): DF(S) = 1, one flow 1 + r tau
+ *   at E against 1, DF(E) = 1 / (1 + r tau) in closed form (unchanged arithmetic).
+ * - S after settlement (TN, SN, a tenor counted from spot): the flow 1 + r tau at E against a
+ *   target read off the curve, DF(S) (`targetFromFlows`, as the lagged OIS does); flow times
+ *   [t_S, t_E] with a zero amount at t_S. A TN after an ON quote reads DF(S) at the ON pillar, so
+ *   the chain above holds; with no quote ending at S, DF(S) is the curve's own interpolation.
  */
-export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number): Instrument {
-  const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
-  return new DepositInstrument(q, t, [t], tau, q.rate);
+export function compileDeposit(q: DepositQuote, settlement: IsoDate, t: number, time: (d: CivilDate) => number): Instrument {
+  if (q.start === settlement) {
+    const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
+    return new DepositInstrument(q, t, [t], tau, q.rate);
+  }
+  const tau = yearFraction(q.dayCount, q.start, q.maturity, { termination: q.maturity });
+  return new ForwardDeposit(q, t, [time(civilFromIso(q.start)), t], tau, q.rate);
 }
 
 /** A compiled deposit: 1 + r tau at the end against 1 now. */
@@ -30,5 +42,46 @@ class DepositInstrument extends SingleFlowInstrument<DepositQuote> {
 
   requote(value: number): Instrument {
     return new DepositInstrument(this.quote, this.t, this.times, this.tau, value);
+  }
+}
+
+/**
+ * A deposit starting after settlement: 0 at t_S and 1 + r tau at t_E against DF(t_S) read off the
+ * curve. The residual (1 + r tau) DF(E) - DF(S) rises with the pillar's discount factor.
+ */
+class ForwardDeposit extends CompiledInstrument<DepositQuote> {
+  declare readonly tau: number;
+  /** ln(1 + r tau), NaN when the quote implies a growth <= 0. */
+  declare readonly lnGrowth: number;
+
+  constructor(q: DepositQuote, t: number, times: readonly number[], tau: number, rate: number) {
+    super(q, t, times, 'rate', 'rate', rate, [0, 1 + rate * tau], 1, null, DISCOUNTING);
+    this.tau = tau;
+    this.lnGrowth = 1 + rate * tau > 0 ? Math.log1p(rate * tau) : Number.NaN;
+  }
+
+  /** DF(S). */
+  targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return df[offset]!;
+  }
+
+  /** d DF(S) / d ln DF: DF(S) at S, 0 at E. */
+  targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
+    out[0] = df[offset]!;
+    out[1] = 0;
+  }
+
+  /** The solvers' residual in ln space: ln(1 + r tau) + ln DF(E) - ln DF(S), the same root as (1 + r tau) DF(E) - DF(S). */
+  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return this.lnGrowth + ln[offset + 1]! - ln[offset]!;
+  }
+
+  /** The simple forward rate, expm1(ln DF(S) - ln DF(E)) / tau. */
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return Math.expm1(ln[offset]! - ln[offset + 1]!) / this.tau;
+  }
+
+  requote(value: number): Instrument {
+    return new ForwardDeposit(this.quote, this.t, this.times, this.tau, value);
   }
 }

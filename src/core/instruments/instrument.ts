@@ -87,6 +87,13 @@ export interface Instrument {
   targetFromFlows?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
   /** With `targetFromFlows`: its derivative in ln DF at each flow time, into out[0..times.length). */
   targetSlopes?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void;
+  /**
+   * Optional, with `targetFromFlows`: the node solvers' residual in a form with the same root and
+   * sign as sum_j amounts_j DF(times[j]) - targetFromFlows, better conditioned for a short span (a
+   * forward-starting deposit over one day: ln(1 + r tau) + ln DF(E) - ln DF(S), exact in ln space,
+   * where the difference of two discount factors near 1 loses the digits a 1e-14 repricing needs).
+   */
+  residualFromFlows?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
 }
 
 /**

@@ -2,35 +2,99 @@ import type { DepositQuote } from '../document/types.ts';
 import { compileDeposit } from '../instruments/deposit.ts';
 import { DISCOUNTING } from '../instruments/instrument.ts';
 import { ok } from '../result.ts';
-import { noCouponPeriod, readDayCount, readRate, required, RATE_TEXT } from './fields.ts';
-import { flatDollarDuration, quotedRateOrDefault } from './shared.ts';
+import { noCouponPeriod, readCalendar, readChoice, readDayCount, readRate, readWhole, required, RATE_TEXT } from './fields.ts';
+import { coreError } from '../result.ts';
+import { BUSINESS_DAY_RULES, type BusinessDayRule } from '../time/calendars.ts';
+import { civilFromIso, isoFromCivil } from '../time/date.ts';
+import { depositDates, moneyMarketTerm } from '../time/depositDates.ts';
+import { parseTenor } from '../time/tenor.ts';
+import { depositScheduleRows } from '../input/quoteSchedule.ts';
+import { flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from './shared.ts';
+import type { Instrument } from '../instruments/instrument.ts';
 import type { QuoteKindModule } from './types.ts';
 import { rateTag } from '../format/conventionTag.ts';
 
+/** The longest spot lag accepted, in business days (as the OIS kind's). */
+const MAX_LAG = 30;
+
 /**
- * Money-market deposit from settlement to maturity at a simple rate r (decimal) on its day count,
- * default ACT/360: DF(T) = 1 / (1 + r tau) (instruments/deposit.ts). Quoted by rate only.
+ * Money-market deposit from its start S to maturity E at a simple rate r (decimal) on its day
+ * count, default ACT/360: DF(S) / DF(E) = 1 + r tau(S, E) (instruments/deposit.ts). Quoted by rate
+ * only. Tenors ON, TN, SN (time/depositDates.ts) and the optional fields `calendar` (default
+ * `weekends`), `spotLag` (business days, default 0) and `businessDay` (an ordinary tenor's end,
+ * default modified-following; only with a calendar or a spot lag). Without any of these a deposit
+ * runs from settlement to its maturity, unadjusted, exactly as before they existed.
  */
 export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   kind: 'deposit',
   schema: {
-    fields: ['rate', 'dayCount'],
+    fields: ['rate', 'dayCount', 'calendar', 'spotLag', 'businessDay'],
     defaults: { dayCount: 'ACT/360' },
-    read(raw, base, index, _maturity, m, tenor, enabled, errors) {
+    read(raw, base, index, maturity, m, tenor, enabled, errors, settlement) {
       const rate = required(readRate(raw, base, index, errors, 'rate'), 'rate', RATE_TEXT, base, index, errors);
       const dayCount = noCouponPeriod(readDayCount(raw, base, index, errors, 'dayCount', 'ACT/360'), 'deposit', base, index, errors);
-      return rate !== null && dayCount ? { kind: 'deposit', index, maturity: m, tenor, enabled, rate, dayCount } : null;
+      const term = tenor === null ? null : moneyMarketTerm(tenor);
+      const hasConventions = raw.calendar !== undefined || raw.spotLag !== undefined;
+      if (term === null && !hasConventions) {
+        if (raw.businessDay !== undefined) {
+          errors.push(coreError('schema', `${base}.businessDay`, `${base}.businessDay: a deposit's end is moved by a business-day rule only on a calendar; give calendar (such as "weekends") or spotLag with it, or remove businessDay`, index));
+          return null;
+        }
+        // Today's deposit: from settlement to the maturity, unadjusted.
+        return rate !== null && dayCount ? { kind: 'deposit', index, maturity: m, tenor, enabled, rate, dayCount, start: settlement ?? m, calendar: null, spotLag: null, businessDay: null } : null;
+      }
+      const calendar = readCalendar(raw, base, index, errors);
+      const spotLag = readWhole(raw, base, index, errors, 'spotLag', 0, MAX_LAG, 'business days', 0);
+      let businessDay: BusinessDayRule | null = null;
+      if (term !== null) {
+        if (raw.businessDay !== undefined) {
+          errors.push(coreError('schema', `${base}.businessDay`, `${base}.businessDay: ${tenor} counts business days on the calendar, so no business-day rule applies; remove businessDay`, index));
+          return null;
+        }
+      } else {
+        businessDay = readChoice(raw, base, index, errors, 'businessDay', BUSINESS_DAY_RULES, 'modified-following');
+        if (businessDay === null) return null;
+      }
+      if (rate === null || !dayCount || calendar === null || spotLag === null || maturity === null) return null;
+      if (settlement === undefined) {
+        // A programming error (validateWorkspace always passes it), reported rather than dropping the quote.
+        errors.push(coreError('schema', base, `${base}: a deposit's dates count from the settlement date, which its reader was not given`, index));
+        return null;
+      }
+      const parsed = tenor === null || term !== null ? null : parseTenor(tenor);
+      const when = term !== null ? { term } : parsed !== null ? { tenor: parsed } : { end: civilFromIso(maturity) };
+      const dates = depositDates(civilFromIso(settlement), when, { calendar, spotLag, businessDay: businessDay ?? 'following' }, base, index);
+      if (!dates.ok) {
+        errors.push(...dates.errors);
+        return null;
+      }
+      return {
+        kind: 'deposit', index, maturity: isoFromCivil(dates.value.end), tenor, enabled, rate, dayCount,
+        start: isoFromCivil(dates.value.start), calendar, spotLag, businessDay,
+      };
     },
   },
   sheet: { rateField: 'rate', rateWhat: 'deposit rate', priceField: null, missingValue: 'rate', coupon: false, frequency: false, dayCount: 'yes' },
   paste: { kindWords: ['depo', 'deposits'], headerWords: {} },
-  compile: (q, settlement, _s, _m, t) => compileDeposit(q, settlement, t),
+  compile: (q, settlement, _s, _m, t, time) => compileDeposit(q, settlement, t, time),
+  moneyMarketTerms: true,
   curves: DISCOUNTING,
   nodeRole: 'discount',
   convention: (q) => ({ unit: 'rate', compounding: 'simple', dayCount: q.dayCount }),
   yieldLabel: (q) => `deposit rate (${rateTag('simple', q.dayCount)})`,
   priceYield: () => null,
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
-  fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
+  fit: { per100: 100, dollarDuration: depositDollarDuration, richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
+  schedule: depositScheduleRows,
 };
+
+/**
+ * The fit's dollar duration of a deposit: of its one flow against 1 (flatDollarDuration), or for a
+ * deposit starting after settlement, of -1 at its start and 1 + r tau at its end against 0 (about
+ * tau DF(S): its own flows stand for only the end, the start being its target on the curve).
+ */
+function depositDollarDuration(ins: Instrument): number {
+  if (ins.targetFromFlows === undefined) return flatDollarDuration(ins);
+  return flatDollarDurationOf(ins.times, [-1, ins.amounts[1]!], 0);
+}

@@ -1,5 +1,6 @@
 import { coreError, type CoreError } from '../result.ts';
 import { DAY_COUNTS, isDayCount, type DayCount } from '../time/dayCount.ts';
+import { BUILT_IN_CALENDARS } from '../time/calendars.ts';
 import type { IsoDate } from '../time/date.ts';
 
 /**
@@ -125,5 +126,14 @@ export function readChoice<T extends string>(raw: RawQuote, base: string, index:
   if (v === undefined) return fallback;
   if (typeof v === 'string' && (choices as readonly string[]).includes(v)) return v as T;
   errors.push(coreError('unknown-identifier', `${base}.${field}`, `${base}.${field}: must be one of ${listOf(choices)}, not ${typeName(v)}`, index));
+  return null;
+}
+
+/** The calendar id as text (`weekends` when absent); whether it names a calendar is checked with the dates. */
+export function readCalendar(raw: RawQuote, base: string, index: number, errors: CoreError[]): string | null {
+  const v = raw.calendar;
+  if (v === undefined) return 'weekends';
+  if (typeof v === 'string') return v;
+  errors.push(coreError('schema', `${base}.calendar`, `${base}.calendar: must be a calendar name, one of ${BUILT_IN_CALENDARS.join(', ')} (joined with + if several), not ${typeName(v)}`, index));
   return null;
 }

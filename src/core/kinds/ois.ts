@@ -2,13 +2,13 @@ import type { OisQuote } from '../document/types.ts';
 import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
 import { compileOis } from '../instruments/ois.ts';
 import { oisScheduleRows } from '../input/quoteSchedule.ts';
-import { coreError, ok, type CoreError } from '../result.ts';
-import { BUILT_IN_CALENDARS, BUSINESS_DAY_RULES } from '../time/calendars.ts';
+import { coreError, ok } from '../result.ts';
+import { BUSINESS_DAY_RULES } from '../time/calendars.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
 import type { DayCount } from '../time/dayCount.ts';
 import { parseTenor } from '../time/tenor.ts';
 import { swapDates } from '../time/swapSchedule.ts';
-import { readChoice, readDayCount, readEom, readFrequency, readRate, readWhole, required, typeName, RATE_TEXT, type RawQuote } from './fields.ts';
+import { readChoice, readDayCount, readEom, readFrequency, readRate, readWhole, required, readCalendar, RATE_TEXT } from './fields.ts';
 import { compoundingOfFrequency, flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from './shared.ts';
 import { couponTag } from '../format/conventionTag.ts';
 import type { QuoteKindModule } from './types.ts';
@@ -84,15 +84,6 @@ export const OIS: QuoteKindModule<OisQuote> = {
   fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
   schedule: oisScheduleRows,
 };
-
-/** The calendar id as text (`weekends` when absent); whether it names a calendar is checked with the dates. */
-function readCalendar(raw: RawQuote, base: string, index: number, errors: CoreError[]): string | null {
-  const v = raw.calendar;
-  if (v === undefined) return 'weekends';
-  if (typeof v === 'string') return v;
-  errors.push(coreError('schema', `${base}.calendar`, `${base}.calendar: must be a calendar name, one of ${BUILT_IN_CALENDARS.join(', ')} (joined with + if several), not ${typeName(v)}`, index));
-  return null;
-}
 
 /**
  * The fit's dollar duration of an OIS: that of its fixed leg plus 1 of notional at the last payment

@@ -138,6 +138,9 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
    */
   fixedLeg?(q: Q): FixedLegConvention;
 
-  /** Optional: the cash-flow schedule shown for a quote of the kind (bonds, swaps). */
+  /** Optional: true when the kind takes the money-market tenors ON, TN and SN (deposits; time/depositDates.ts). */
+  readonly moneyMarketTerms?: boolean;
+
+  /** Optional: the cash-flow schedule shown for a quote of the kind (bonds, swaps, deposits). */
   schedule?(q: Q, settlement: IsoDate, curve: Curve | null): QuoteSchedule;
 }

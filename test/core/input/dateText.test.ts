@@ -57,12 +57,15 @@ describe('parseMaturityText with typed dates and money-market terms', () => {
     expect(parseMaturityText('15-Nov-2031')).toEqual({ ok: true, value: { maturity: '2031-11-15' } });
     expect(parseMaturityText('15/11/2031', 'dmy')).toEqual({ ok: true, value: { maturity: '2031-11-15' } });
   });
-  it('O/N, T/N and S/N are refused with what is supported (the engine counts from settlement; no business-day calendars yet)', () => {
-    for (const t of ['O/N', 'ON', 'T/N', 'tn', 'S/N']) {
-      const r = parseMaturityText(t);
-      expect(r.ok, t).toBe(false);
-      expect(!r.ok && r.message, t).toMatch(/is not supported yet: it starts before settlement and needs business-day calendars\. Type a tenor from settlement such as 1D, 1W or 1M, or a date/);
+  it('ON, TN and SN (any case, with or without a slash) are read as the money-market tenors; other spellings are refused naming the one to type', () => {
+    // Replaces the refusal of these terms before deposits had calendars (time/depositDates.ts).
+    for (const [typed, tenor] of [['O/N', 'ON'], ['ON', 'ON'], ['on', 'ON'], ['T/N', 'TN'], ['tn', 'TN'], ['S/N', 'SN'], ['s/n', 'SN']] as const) {
+      expect(parseMaturityText(typed), typed).toEqual({ ok: true, value: { tenor } });
     }
+    const loose = parseMaturityText('o.n.');
+    expect(loose.ok).toBe(false);
+    expect(!loose.ok && loose.message).toBe('"o.n.": type ON (or O/N) for overnight, a deposit\'s tenor');
+    expect(parseMaturityText('ONN').ok).toBe(false);
   });
 });
 

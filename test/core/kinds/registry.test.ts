@@ -39,7 +39,12 @@ const SETTLEMENT = '2027-03-10';
  * `satisfies` makes a kind added to QUOTE_KINDS without examples here a type error as well.
  */
 const EXAMPLES = {
-  deposit: [{ kind: 'deposit', tenor: '3M', rate: 0.0287 }],
+  deposit: [
+    { kind: 'deposit', tenor: '3M', rate: 0.0287 },
+    // Overnight (settlement to the next business day) and tom-next (a start after settlement, its target read off the curve).
+    { kind: 'deposit', tenor: 'ON', rate: 0.0281 },
+    { kind: 'deposit', tenor: 'T/N', rate: 0.0283 },
+  ],
   bill: [
     { kind: 'bill', maturity: '2027-09-09', discountYield: 0.0285 },
     { kind: 'bill', maturity: '2027-09-09', price: 98.6 },
