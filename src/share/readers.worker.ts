@@ -1,39 +1,22 @@
 /**
- * The page's one reading worker (a module worker; the CSP's `worker-src 'self'` allows it): big
- * pastes (with progress), workspace files and workspace list files are read here, off the page's
- * thread. One worker module for all three, so the core it carries is shipped once.
- *
- * - `paste`: splits the text (d3-dsv through the core), maps its header and counts the rows that
- *   read as quotes, reporting progress between the steps. Over the quote cap only the first rows
- *   are sent back (the sheet keeps those, the rest are counted as left out).
- * - `document`: parseDocumentText (parse, caps, validation) of a workspace file.
- * - `list`: checkListFile of a workspace list file (every entry parsed and checked).
+ * The page's reading worker (a module worker; the CSP's `worker-src 'self'` allows it): the part of
+ * reading a big paste or a big list file that grows with its size, off the page's thread.
+ * - `split`: splits a pasted block (d3-dsv, splitTable) and sends back at most `keep` rows and the
+ *   count, so a huge paste costs the page a message of at most the cap's rows;
+ * - `list`: parses a list file and cuts it into its entries' texts (splitListFile).
+ * Everything that knows quotes and documents runs on the page, on the bounded result.
  */
-import { checkListFile, parseDocumentText, pasteQuoteCap, previewPaste, readPastedBlock } from '../core/index.ts';
-import type { ReaderRequest } from './readerRequests.ts';
+import { splitListFile, splitTable } from '../core/index.ts';
+import type { ReaderReply, ReaderRequest } from './readerRequests.ts';
 
-const scope = self as unknown as { onmessage: ((e: MessageEvent<ReaderRequest>) => void) | null; postMessage(message: unknown): void };
+const scope = self as unknown as { onmessage: ((e: MessageEvent<ReaderRequest>) => void) | null; postMessage(message: ReaderReply): void };
 
 scope.onmessage = (e) => {
   const request = e.data;
-  if (request.type === 'document') {
-    scope.postMessage(parseDocumentText(request.text));
-    return;
-  }
   if (request.type === 'list') {
-    scope.postMessage(checkListFile(request.text, request.fileName));
+    scope.postMessage({ type: 'list', list: splitListFile(request.text, request.fileName) });
     return;
   }
-  const { text, mode, existing, conventions } = request;
-  const block = readPastedBlock(text);
-  const rows = block.header ? block.rows.length : block.cells.length;
-  scope.postMessage({ type: 'progress', rows });
-  const cap = pasteQuoteCap();
-  const dropped = Math.max(0, rows - cap);
-  if (block.header) {
-    const preview = previewPaste(block, mode, existing, conventions);
-    scope.postMessage({ type: 'done', block: dropped > 0 ? { ...block, rows: block.rows.slice(0, cap) } : block, preview, refusal: null, dropped });
-  } else {
-    scope.postMessage({ type: 'done', block: dropped > 0 ? { ...block, cells: block.cells.slice(0, cap) } : block, preview: null, refusal: null, dropped });
-  }
+  const table = splitTable(request.text);
+  scope.postMessage({ type: 'split', table: { cells: table.cells.slice(0, request.keep), separator: table.separator }, rows: table.cells.length });
 };

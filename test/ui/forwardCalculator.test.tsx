@@ -22,7 +22,7 @@ describe('Forward calculator', { timeout: 30_000 }, () => {
     const user = userEvent.setup({ delay: null });
     render(<App />);
     await user.click(screen.getByRole('tab', { name: 'Forward calculator' }));
-    const table = screen.getByRole('table', { name: 'Forward calculator' });
+    const table = await screen.findByRole('table', { name: 'Forward calculator' }); // its code loads on first use
     const start = within(table).getByRole('textbox', { name: 'Start of forward 2' });
     const end = within(table).getByRole('textbox', { name: 'End of forward 2' });
     await user.clear(start);
@@ -48,7 +48,7 @@ describe('Forward calculator', { timeout: 30_000 }, () => {
     const user = userEvent.setup({ delay: null });
     render(<App />);
     await user.click(screen.getByRole('tab', { name: 'Forward calculator' }));
-    const table = screen.getByRole('table', { name: 'Forward calculator' });
+    const table = await screen.findByRole('table', { name: 'Forward calculator' }); // its code loads on first use
     await user.type(within(table).getByRole('textbox', { name: 'Start of forward 1' }), 'soon');
     expect(within(table).getByRole('alert')).toHaveTextContent(/Start: "soon" is neither a tenor from settlement/);
     await user.click(screen.getByRole('button', { name: 'Add a forward' }));

@@ -5,6 +5,7 @@
 export * from './decimalText.ts';
 export * from './quoteText.ts';
 export * from './quoteRow.ts';
+export * from './splitTable.ts';
 export * from './pasteTable.ts';
 export * from './quoteSchedule.ts';
 export * from './dateText.ts';

@@ -2,7 +2,6 @@ import { useMemo } from 'react';
 import {
   FIT_MODEL_LABEL,
   rateTag,
-  fitCurve,
   forwardSamples,
   parseReferenceCsv,
   parseTenor,
@@ -23,6 +22,7 @@ import { chartEndDate, points as samplePoints, sampleGridFor, type SamplePoint }
 import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice } from './comparisonChoice.ts';
 import { useFitInput } from './fitInput.ts';
+import { useLazyFit } from './useLazyFit.ts';
 import { useReferenceInput } from './referenceInput.ts';
 
 export interface ComparisonOverlay {
@@ -78,10 +78,11 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
 
   // The same fit as the smooth fit section: its model and errors (view), its quotes left out and weights (this page).
   const { exclude, weights } = useFitInput();
-  const fit = useMemo(
-    () => (choice.fit && choice.fitModel !== 'none' && ws ? fitCurve(ws, { model: choice.fitModel, errors: choice.fitErrors, exclude, weights }) : null),
-    [choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, ws],
+  const fitOptions = useMemo(
+    () => (choice.fit && choice.fitModel !== 'none' ? { model: choice.fitModel, errors: choice.fitErrors, exclude, weights } : null),
+    [choice.fit, choice.fitModel, choice.fitErrors, exclude, weights],
   );
+  const fit = useLazyFit(ws, fitOptions);
 
   const parsedReference = useMemo(
     () => (choice.reference && reference.text.trim() !== '' ? parseReferenceCsv(reference.text, reference.compounding, reference.dayCount, reference.unit ?? sheetUnit).reference : null),

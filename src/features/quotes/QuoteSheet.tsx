@@ -290,7 +290,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
     const ws = store.workspace;
     if (text.length >= WORKER_FROM_CHARS) store.setPasteProgress({ chars: text.length, rows: null });
     cancelReading.current = readPaste(
-      { type: 'paste', text, mode: ws.quoteUnit, existing: ws.quotes.length, conventions: { dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark } },
+      { text, mode: ws.quoteUnit, existing: ws.quotes.length, conventions: { dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark } },
       (done) => {
         cancelReading.current = null;
         const s = useAppStore.getState();

@@ -1,62 +1,75 @@
-import { readPastedBlock, previewPaste, type InputConventions, type PastedBlock, type PastePreview, type QuoteUnitMode } from '../../core/index.ts';
-import { startReader } from '../../share/readerRequests.ts';
+import { pasteQuoteCap, readPastedBlock, readSplitBlock, previewPaste, type InputConventions, type PastedBlock, type PastePreview, type QuoteUnitMode, type SplitTable } from '../../core/index.ts';
+import { startReader, type ReaderReply, type ReaderRequest } from '../../share/readerRequests.ts';
 
 /** Pastes from this many characters are read in a worker (a 500-row sheet pastes as about 20,000). */
 export const WORKER_FROM_CHARS = 64_000;
 
 export interface PasteReaderRequest {
-  readonly type: 'paste';
   readonly text: string;
   readonly mode: QuoteUnitMode;
   readonly existing: number;
   readonly conventions: InputConventions;
 }
 
-export type PasteReaderReply =
-  | { readonly type: 'progress'; readonly rows: number }
-  | {
-      readonly type: 'done';
-      readonly block: PastedBlock;
-      /** For a header paste: what it would do (computed on the full block). */
-      readonly preview: (PastePreview & { readonly appendRefusal: string | null }) | null;
-      /** Why the paste is refused before it reaches the sheet, or null. */
-      readonly refusal: string | null;
-      /** Rows beyond the quote cap not sent back (the sheet keeps the first rows and counts these as left out). */
-      readonly dropped: number;
-    };
+export interface PasteReaderDone {
+  readonly block: PastedBlock;
+  /** For a header paste: what it would do (computed on the block as kept). */
+  readonly preview: (PastePreview & { readonly appendRefusal: string | null }) | null;
+  /** Why the paste is refused before it reaches the sheet, or null. */
+  readonly refusal: string | null;
+  /** Rows beyond the quote cap not kept (the sheet keeps the first rows and counts these as left out). */
+  readonly dropped: number;
+}
 
-export type PasteReaderDone = Extract<PasteReaderReply, { type: 'done' }>;
+/** Reads a split block on the page: the header mapping and the preview, on at most the cap's rows. */
+function readSplit(table: SplitTable, rows: number, request: PasteReaderRequest): PasteReaderDone {
+  const block = readSplitBlock(table);
+  const kept = block.header ? block.rows.length : block.cells.length;
+  const dropped = Math.max(0, (block.header ? rows - 1 : rows) - kept);
+  return { block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped };
+}
 
 /**
- * Reads pasted text: in a Web Worker from WORKER_FROM_CHARS characters (so the page never
- * freezes on a big paste), synchronously below that or where workers are missing. `onProgress`
- * hears the number of rows once the text is split. Returns a function that cancels the reading.
+ * Reads pasted text: from WORKER_FROM_CHARS characters the reading worker splits it (so the page
+ * never freezes on a big paste) and the page reads at most the cap's rows of it; below that, or
+ * where workers are missing or fail, all on the page. `onProgress` hears the number of rows once
+ * the text is split. Returns a function that cancels the reading.
  */
 export function readPaste(request: PasteReaderRequest, onDone: (done: PasteReaderDone) => void, onProgress: (rows: number) => void): () => void {
-  if (request.text.length < WORKER_FROM_CHARS || typeof Worker === 'undefined') {
+  const onPage = (): void => {
     const block = readPastedBlock(request.text);
-    onDone({ type: 'done', block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped: 0 });
+    onDone({ block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped: 0 });
+  };
+  if (request.text.length < WORKER_FROM_CHARS || typeof Worker === 'undefined') {
+    onPage();
     return () => undefined;
   }
-  const worker = startReader();
+  let worker: Worker;
+  try {
+    worker = startReader();
+  } catch {
+    onPage();
+    return () => undefined;
+  }
   let finished = false;
-  worker.onmessage = (e: MessageEvent<PasteReaderReply>) => {
-    if (e.data.type === 'progress') onProgress(e.data.rows);
-    else {
-      finished = true;
-      worker.terminate();
-      onDone(e.data);
-    }
-  };
-  worker.onerror = () => {
-    // A worker that cannot start (an old browser, a blocked script): read on the page instead.
+  const finish = (then: () => void): void => {
     if (finished) return;
     finished = true;
     worker.terminate();
-    const block = readPastedBlock(request.text);
-    onDone({ type: 'done', block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped: 0 });
+    then();
   };
-  worker.postMessage(request);
+  worker.onmessage = (e: MessageEvent<ReaderReply>) => {
+    const reply = e.data;
+    if (reply.type !== 'split') return;
+    onProgress(reply.rows);
+    // The page reads the kept rows after the progress has painted (a task of its own).
+    setTimeout(() => finish(() => onDone(readSplit(reply.table, reply.rows, request))), 0);
+  };
+  // A worker that cannot start or fails (an old browser, a blocked script): read on the page instead.
+  worker.onerror = () => finish(onPage);
+  worker.onmessageerror = () => finish(onPage);
+  const message: ReaderRequest = { type: 'split', text: request.text, keep: pasteQuoteCap() + 1 };
+  worker.postMessage(message);
   return () => {
     finished = true;
     worker.terminate();

@@ -1,17 +1,30 @@
 import { download } from '../../components/download.ts';
 import { useRef, useState, type ChangeEvent } from 'react';
-import { checkListFile, LIST_FORMAT, LIST_VERSION, type WorkbenchDocument, formatRateShort, rateTag } from '../../core/index.ts';
+import { checkListEntry, LIST_FORMAT, LIST_VERSION, splitListFile, type CheckedListFile, type SplitListFile, type WorkbenchDocument, formatRateShort, rateTag } from '../../core/index.ts';
 import { addWorkspaces, allRecords, deleteWorkspace, readEntry, renameWorkspace, switchWorkspace, undoDelete } from '../../state/persistence.ts';
 import { useAppStore } from '../../state/store.ts';
 import { useWorkspaceList, type WorkspaceListItem } from '../../state/workspaceList.ts';
 import { SPARK_HEIGHT, SPARK_WIDTH, zeroSparkline } from './sparkline.ts';
 import { readCheckedList } from './listFile.ts';
 import { readOffThread } from '../../share/offThread.ts';
-import { startReader } from '../../share/readerRequests.ts';
+import { startReader, type ReaderReply, type ReaderRequest } from '../../share/readerRequests.ts';
 import './workspaces.css';
 
 export { readListFile } from './listFile.ts';
 export { LIST_FORMAT } from '../../core/index.ts';
+
+/** Checks a split list's entries one per task (each at most about 20 ms: one workspace), so a long list never freezes the page. */
+async function checkEntriesInSteps(split: SplitListFile): Promise<CheckedListFile> {
+  const entries: CheckedListFile['entries'][number][] = [];
+  const problems = [...split.problems];
+  for (const e of split.entries) {
+    const r = checkListEntry(e);
+    if (typeof r === 'string') problems.push(r);
+    else entries.push(r);
+    await new Promise<void>((resolve) => setTimeout(resolve, 0));
+  }
+  return { entries, problems };
+}
 
 const savedText = (ms: number | null): string =>
   ms === null ? 'not saved yet' : `saved ${new Date(ms).toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })}`;
@@ -137,8 +150,8 @@ export function WorkspacesPanel({ onClose }: { onClose?: () => void }) {
       setMessage(`${file.name} could not be read. Nothing was added.`);
       return;
     }
-    const checked = await readOffThread(text.length, { type: 'list', text, fileName: file.name } as const, (r) => checkListFile(r.text, r.fileName), startReader);
-    const { items: found, problems } = readCheckedList(checked);
+    const split = await readOffThread<ReaderRequest, SplitListFile, ReaderReply>(text.length, { type: 'list', text, fileName: file.name }, (r) => (r.type === 'list' ? splitListFile(r.text, r.fileName) : { entries: [], problems: [] }), startReader, (reply: ReaderReply) => (reply.type === 'list' ? reply.list : null));
+    const { items: found, problems } = readCheckedList(await checkEntriesInSteps(split));
     const added = found.length > 0 ? await addWorkspaces(found) : 0;
     const left = problems.length > 0 ? ` Left out: ${problems.slice(0, 3).join('; ')}${problems.length > 3 ? ` (and ${problems.length - 3} more)` : ''}.` : '';
     setMessage(`Added ${added} workspace${added === 1 ? '' : 's'} from ${file.name}.${left}`);
@@ -186,18 +199,3 @@ export function WorkspacesPanel({ onClose }: { onClose?: () => void }) {
 }
 
 /** The header button that shows or hides the Workspaces panel. */
-export function WorkspacesButton() {
-  const open = useWorkspaceList((s) => s.panelOpen);
-  const count = useWorkspaceList((s) => s.items.length);
-  return (
-    <button type="button" aria-expanded={open} onClick={() => useWorkspaceList.setState({ panelOpen: !open })} title="Saved workspaces: open, rename, delete, export or import">
-      Workspaces{count > 1 ? ` (${count})` : ''}
-    </button>
-  );
-}
-
-/** Where the panel shows when open. */
-export function WorkspacesSlot() {
-  const open = useWorkspaceList((s) => s.panelOpen);
-  return open ? <WorkspacesPanel onClose={() => useWorkspaceList.setState({ panelOpen: false })} /> : null;
-}

@@ -73,7 +73,7 @@ describe('ON, TN and SN dates (MARKET-CONVENTIONS.md section c)', () => {
   it('over Easter on target and england-wales: TN spans the 5 calendar days Thursday to Tuesday', () => {
     // The calendars' own lists: Good Friday 2027-03-26 and Easter Monday 2027-03-29 closed on both.
     for (const cal of ['target', 'england-wales'] as const) {
-      const hol = builtInHolidays(cal, 2027).map((h) => h.date);
+      const hol = builtInHolidays(cal, 2027);
       expect(hol, cal).toContain('2027-03-26');
       expect(hol, cal).toContain('2027-03-29');
       expect(datesOf({ kind: 'deposit', tenor: 'ON', rate: 0.03, calendar: cal }, EASTER_WEDNESDAY), cal).toEqual(['2027-03-24', '2027-03-25']);
