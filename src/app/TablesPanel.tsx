@@ -1,6 +1,5 @@
 import { lazy, Suspense, useDeferredValue, useRef, type KeyboardEvent, type ReactNode } from 'react';
 import { CurveTableExport } from '../features/tables/CurveTableExport.tsx';
-import { ForwardGridTable } from '../features/tables/ForwardGridTable.tsx';
 import { ForwardStripTable } from '../features/tables/ForwardStripTable.tsx';
 import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
 import { QuoteCheckTable } from '../features/tables/QuoteCheckTable.tsx';
@@ -10,7 +9,8 @@ import type { WorkbenchTab } from './extensions.tsx';
 
 type TabDef = WorkbenchTab;
 
-/** The forward calculator's code is fetched the first time its tab opens (its own chunk), so the first load carries less. */
+/** The forward grid's and the forward calculator's code is fetched the first time their tab opens (their own chunks), so the first load carries less. */
+const ForwardGridTable = lazy(() => import('../features/tables/ForwardGridTable.tsx').then((m) => ({ default: m.ForwardGridTable })));
 const ForwardCalculator = lazy(() => import('../features/tables/ForwardCalculator.tsx').then((m) => ({ default: m.ForwardCalculator })));
 
 const needCurve = (f: (r: WorkbenchBuild) => ReactNode) => ({ result }: { result: WorkbenchBuild }) =>
@@ -28,7 +28,15 @@ const BASE_TABS: readonly TabDef[] = [
     )),
   },
   { id: 'forward-strip', label: 'Forward strip', render: needCurve((r) => <ForwardStripTable curve={r.build.curve!} />) },
-  { id: 'forward-grid', label: 'Forward grid', render: needCurve((r) => <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} />) },
+  {
+    id: 'forward-grid',
+    label: 'Forward grid',
+    render: needCurve((r) => (
+      <Suspense fallback={<p className="muted small" role="status">Loading the forward grid…</p>}>
+        <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} />
+      </Suspense>
+    )),
+  },
   {
     id: 'forward-calculator',
     label: 'Forward calculator',

@@ -64,7 +64,7 @@ describe('Forward grid axes', { timeout: 30_000 }, () => {
     const user = userEvent.setup({ delay: null });
     render(<App />);
     await user.click(screen.getByRole('tab', { name: 'Forward grid' }));
-    const starts = screen.getByRole('textbox', { name: /Starts/ });
+    const starts = await screen.findByRole('textbox', { name: /Starts/ }); // its code loads on first use
     await user.clear(starts);
     await user.type(starts, '6m, 3Y');
     const grid = screen.getByRole('table', { name: 'Forward grid' });

@@ -179,17 +179,19 @@ export interface PastePreview {
 /**
  * Counts the quotes a header paste would give and refuses a replacement that would leave the
  * sheet with no quote. Beyond the quote cap the first rows are kept and the rest counted as left
- * out (`existing` rows already in the sheet count against the cap for an append).
+ * out (`existing` rows already in the sheet count against the cap for an append). `totalRows`: the
+ * rows the whole paste has when `block` holds only its first rows (a big paste split in the worker).
  */
 export function previewPaste(
   block: PastedBlock,
   mode: QuoteUnitMode,
   existing = 0,
   conventions: InputConventions = DEFAULT_CONVENTIONS,
+  totalRows: number = block.rows.length,
 ): PastePreview & { appendRefusal: string | null } {
   const cap = pasteQuoteCap();
-  const n = block.rows.length;
-  const kept = Math.min(n, cap);
+  const n = Math.max(totalRows, block.rows.length);
+  const kept = Math.min(n, cap, block.rows.length);
   let quotes = 0;
   let withErrors = 0;
   for (let i = 0; i < kept; i++) {

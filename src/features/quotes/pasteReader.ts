@@ -1,4 +1,4 @@
-import { pasteQuoteCap, readPastedBlock, readSplitBlock, previewPaste, type InputConventions, type PastedBlock, type PastePreview, type QuoteUnitMode, type SplitTable } from '../../core/index.ts';
+import { pasteQuoteCap, readPastedBlock, readSplitBlock, previewPaste, type InputConventions, type PastedBlock, type PastePreview, type QuoteUnitMode } from '../../core/index.ts';
 import { startReader, type ReaderReply, type ReaderRequest } from '../../share/readerRequests.ts';
 
 /** Pastes from this many characters are read in a worker (a 500-row sheet pastes as about 20,000). */
@@ -21,12 +21,12 @@ export interface PasteReaderDone {
   readonly dropped: number;
 }
 
-/** Reads a split block on the page: the header mapping and the preview, on at most the cap's rows. */
-function readSplit(table: SplitTable, rows: number, request: PasteReaderRequest): PasteReaderDone {
-  const block = readSplitBlock(table);
+/** The page's part of a big paste: the preview of the kept rows, and how many rows were not kept (of `count` in the block, header included). */
+function readSplit(block: PastedBlock, count: number, request: PasteReaderRequest): PasteReaderDone {
+  const total = block.header ? count - 1 : count;
   const kept = block.header ? block.rows.length : block.cells.length;
-  const dropped = Math.max(0, (block.header ? rows - 1 : rows) - kept);
-  return { block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions) : null, refusal: null, dropped };
+  const dropped = Math.max(0, total - kept);
+  return { block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions, total) : null, refusal: null, dropped };
 }
 
 /**
@@ -61,9 +61,10 @@ export function readPaste(request: PasteReaderRequest, onDone: (done: PasteReade
   worker.onmessage = (e: MessageEvent<ReaderReply>) => {
     const reply = e.data;
     if (reply.type !== 'split') return;
-    onProgress(reply.rows);
-    // The page reads the kept rows after the progress has painted (a task of its own).
-    setTimeout(() => finish(() => onDone(readSplit(reply.table, reply.rows, request))), 0);
+    const block = readSplitBlock(reply.table);
+    onProgress(block.header ? reply.rows - 1 : reply.rows);
+    // The page previews the kept rows after the progress has painted (a task of its own).
+    setTimeout(() => finish(() => onDone(readSplit(block, reply.rows, request))), 0);
   };
   // A worker that cannot start or fails (an old browser, a blocked script): read on the page instead.
   worker.onerror = () => finish(onPage);
