@@ -96,12 +96,8 @@ export interface Instrument {
   residualFromFlows?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
 }
 
-/**
- * The target an instrument's flows must meet on a curve: `target`, or for an instrument with a
- * target on the curve (`targetFromFlows`) that value read at its flow times.
- */
-export function targetOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
-  if (instrument.targetFromFlows === undefined) return instrument.target;
+/** ln DF and DF of a curve (ln DF on its axis) at an instrument's flow times; plain arrays of doubles, cheaper to allocate than small typed arrays. */
+function curveAtFlows(instrument: Instrument, lnDiscountAt: (t: number) => number): { ln: number[]; df: number[] } {
   const { times } = instrument;
   const n = times.length;
   const ln = new Array<number>(n);
@@ -110,6 +106,16 @@ export function targetOnCurve(instrument: Instrument, lnDiscountAt: (t: number) 
     ln[j] = lnDiscountAt(times[j]!);
     df[j] = Math.exp(ln[j]!);
   }
+  return { ln, df };
+}
+
+/**
+ * The target an instrument's flows must meet on a curve: `target`, or for an instrument with a
+ * target on the curve (`targetFromFlows`) that value read at its flow times.
+ */
+export function targetOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
+  if (instrument.targetFromFlows === undefined) return instrument.target;
+  const { ln, df } = curveAtFlows(instrument, lnDiscountAt);
   return instrument.targetFromFlows(ln, df, 0);
 }
 
@@ -127,15 +133,7 @@ export function residualOnCurve(instrument: Instrument, lnDiscountAt: (t: number
  * instrument's flow times, then `quoteFromFlows`. Every kind's `modelQuote` is this.
  */
 export function quoteOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
-  const { times } = instrument;
-  const n = times.length;
-  // Plain arrays of doubles: cheaper to allocate than small typed arrays (see copyNodes).
-  const ln = new Array<number>(n);
-  const df = new Array<number>(n);
-  for (let j = 0; j < n; j++) {
-    ln[j] = lnDiscountAt(times[j]!);
-    df[j] = Math.exp(ln[j]!);
-  }
+  const { ln, df } = curveAtFlows(instrument, lnDiscountAt);
   return instrument.quoteFromFlows(ln, df, 0);
 }
 

@@ -5,6 +5,7 @@ import { parseTenor } from '../time/tenor.ts';
 import { swapDates, type SwapDates } from '../time/swapSchedule.ts';
 import type { Result } from '../result.ts';
 import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+import { fixedLegFlows, parRateFromFlows } from './swap.ts';
 
 /**
  * An overnight-index swap on one curve, which both projects the overnight rate and discounts.
@@ -79,22 +80,14 @@ class OisSwapForm extends CompiledInstrument<OisQuote> {
   readonly taus: readonly number[];
 
   constructor(q: OisQuote, t: number, times: readonly number[], taus: readonly number[], rate: number, pillarDate: string) {
-    const n = taus.length;
-    const amounts = new Array<number>(n);
-    for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
-    amounts[n - 1] = amounts[n - 1]! + 1;
-    super(q, t, times, 'rate', 'rate', rate, amounts, 1, null, DISCOUNTING_AND_PROJECTING);
+    super(q, t, times, 'rate', 'rate', rate, fixedLegFlows(rate, taus), 1, null, DISCOUNTING_AND_PROJECTING);
     this.taus = taus;
     this.maturity = pillarDate;
   }
 
-  /** K = (1 - DF(E_n)) / sum tau_i DF(E_i), 1 - DF(E_n) as -expm1(ln DF(E_n)) (the swap's own arithmetic). */
+  /** K = (1 - DF(E_n)) / sum tau_i DF(E_i): the swap's own arithmetic (parRateFromFlows). */
   quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
-    const { taus } = this;
-    const n = taus.length;
-    let annuity = 0;
-    for (let j = 0; j < n; j++) annuity += taus[j]! * df[offset + j]!;
-    return -Math.expm1(ln[offset + n - 1]!) / annuity;
+    return parRateFromFlows(this.taus, ln, df, offset);
   }
 
   requote(value: number): Instrument {

@@ -141,6 +141,26 @@ export function compileSwap(q: SwapQuote, settlement: CivilDate, maturity: Civil
   return new SwapInstrument(q, t, times, taus, q.rate);
 }
 
+/** A par swap's flows on one curve: S tau_i at each fixed-leg date and 1 more at the end (per 1 notional). */
+export function fixedLegFlows(rate: number, taus: readonly number[]): number[] {
+  const n = taus.length;
+  const amounts = new Array<number>(n);
+  for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
+  amounts[n - 1] = amounts[n - 1]! + 1;
+  return amounts;
+}
+
+/**
+ * The single-curve par rate (1 - DF(T_n)) / sum tau_i DF(T_i) from ln DF and DF at the fixed-leg
+ * dates (from `offset`), with 1 - DF(T_n) as -expm1(ln DF(T_n)).
+ */
+export function parRateFromFlows(taus: readonly number[], ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  const n = taus.length;
+  let annuity = 0;
+  for (let j = 0; j < n; j++) annuity += taus[j]! * df[offset + j]!;
+  return -Math.expm1(ln[offset + n - 1]!) / annuity;
+}
+
 /**
  * A compiled swap: S tau_i at each fixed date and 1 at the end against 1. The one curve discounts
  * and projects (the floating leg is worth 1 - DF(T_n) on it). Performance: a requote creates one
@@ -155,21 +175,12 @@ class SwapInstrument extends CompiledInstrument<SwapQuote> {
   declare readonly taus: readonly number[];
 
   constructor(q: SwapQuote, t: number, times: readonly number[], taus: readonly number[], rate: number) {
-    const n = taus.length;
-    const amounts = new Array<number>(n);
-    for (let j = 0; j < n; j++) amounts[j] = rate * taus[j]!;
-    amounts[n - 1] = amounts[n - 1]! + 1;
-    super(q, t, times, 'rate', 'rate', rate, amounts, 1, null, DISCOUNTING_AND_PROJECTING);
+    super(q, t, times, 'rate', 'rate', rate, fixedLegFlows(rate, taus), 1, null, DISCOUNTING_AND_PROJECTING);
     this.taus = taus;
   }
 
-  /** The par rate (1 - DF(T_n)) / sum tau_i DF(T_i), with 1 - DF(T_n) as -expm1(ln DF(T_n)). */
   quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
-    const { taus } = this;
-    const n = taus.length;
-    let annuity = 0;
-    for (let j = 0; j < n; j++) annuity += taus[j]! * df[offset + j]!;
-    return -Math.expm1(ln[offset + n - 1]!) / annuity;
+    return parRateFromFlows(this.taus, ln, df, offset);
   }
 
   requote(value: number): Instrument {
