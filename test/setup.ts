@@ -19,8 +19,12 @@ try {
 
 if (hasDom) {
   // Unmount whatever a test rendered so the next test starts from an empty document.
-  const { cleanup } = await import('@testing-library/react');
+  const { cleanup, configure } = await import('@testing-library/react');
   afterEach(() => {
     cleanup();
   });
+  // findBy* and waitFor wait up to 10 s (the default is 1 s): code that loads on first use (the
+  // smooth fit, the workspaces panel, the forward grid) arrives by a dynamic import, which on a
+  // loaded CI machine can take longer than a second. A hang guard, not a speed check.
+  configure({ asyncUtilTimeout: 10_000 });
 }

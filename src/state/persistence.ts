@@ -666,6 +666,9 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
         list.setState({ notice: 'That workspace could not be opened.' });
         return false;
       }
+      // Which workspace a reload opens is written before the screen shows the switch, so a reload
+      // straight after it opens what the user sees.
+      await backend.set(OPEN_KEY, id).catch(() => undefined);
       currentId = id;
       currentName = r.item.name;
       lastSeen = r.stamp;
@@ -674,7 +677,6 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       setStorage({ state: 'saved', message: null, savedAt: r.item.savedAt, otherTab: false });
       list.setState({ currentId: id, notice: null });
       updateItem({ ...r.item });
-      await backend.set(OPEN_KEY, id).catch(() => undefined);
       post({ type: 'open', tab: tabId, id });
       setStorage({ otherTab: otherTabOpen() });
       return true;

@@ -201,6 +201,23 @@ describe('startPersistence: the list of workspaces', () => {
     expect(s().past).toHaveLength(1);
   });
 
+  it('a switch is recorded as the one to reopen before the screen shows it (a reload straight after opens it)', async () => {
+    // The localStorage form of the list, read synchronously at the moment the document changes.
+    const storage = new MemoryStorage();
+    await start({ storage, indexedDb: false });
+    s().setCell(s().workspace.quotes[0]!.id, 'rate', '3.21');
+    await flushSave();
+    const ownId = useWorkspaceList.getState().currentId!;
+    await openAsNewWorkspace({ ...s().workspace, note: 'shared' }, 'Shared workspace');
+    const seen: unknown[] = [];
+    const unsubscribe = useAppStore.subscribe((state, prev) => {
+      if (state.workspace !== prev.workspace) seen.push(JSON.parse(storage.getItem(LOCAL_PREFIX + OPEN_KEY) ?? 'null'));
+    });
+    expect(await switchWorkspace(ownId)).toBe(true);
+    unsubscribe();
+    expect(seen).toEqual([ownId]);
+  });
+
   it('a link opened over the untouched demo (never saved) leaves nothing behind to go back to', async () => {
     await start();
     expect(useWorkspaceList.getState().items.map((x) => x.savedAt)).toEqual([null]); // listed before its first save

@@ -4,7 +4,8 @@
 // when Chromium will not start) count as failed, not skipped. A stage that failed with no
 // failing test to show for it (a build error, a missing report, no tests at all) counts as one
 // failed test, so a red run never shows "0 failed". The last line printed is exactly
-// `N passed, N failed`.
+// `N passed, N failed`. Each failed test is named just above it, with the first line of its
+// failure, so the tail of a CI log says what failed.
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
@@ -67,6 +68,10 @@ for (const step of stages.steps) {
     const count = (status) => tests.filter((t) => t.status === status).length;
     p += count('passed');
     f += count('failed');
+    for (const t of tests.filter((x) => x.status === 'failed')) {
+      const why = String(t.failureMessages?.[0] ?? '').split('\n')[0].replace(/\u001b\[[0-9;]*m/g, '').slice(0, 200);
+      notes.push(`${step.name} FAILED: ${path.relative(process.cwd(), String(file.name))} > ${t.fullName ?? t.title}: ${why}`);
+    }
     const notRun = tests.length - count('passed') - count('failed');
     if (file.status === 'failed' && count('failed') === 0) {
       // The file failed outside any test (a beforeAll hook, or it would not load): the tests it
