@@ -1,4 +1,5 @@
 import {
+  quoteDates,
   analyzeBond,
   bondYieldConvention,
   rateTag,
@@ -418,10 +419,16 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
   const repricing = build.repricing;
   const rowOf = read.rowOfQuote;
   const quotes: QuoteOut[] = [];
+  const quoteAt = new Map((build.workspace?.quotes ?? []).map((q) => [q.index, q]));
   for (let i = 0; i < repricing.length; i++) {
     const r = repricing[i]!;
     finite &&= Number.isFinite(r.t) && Number.isFinite(r.repricingError);
-    quotes.push({ index: rowOf === null ? r.index : (rowOf[r.index] ?? r.index), kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError });
+    const q = quoteAt.get(r.index);
+    const d = q ? quoteDates(q, settlement) : { start: settlement, end: r.maturity, payment: null };
+    quotes.push({
+      index: rowOf === null ? r.index : (rowOf[r.index] ?? r.index), kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError,
+      start: d.start, end: d.end, pillar: r.maturity, ...(d.payment === null ? {} : { payment: d.payment }),
+    });
   }
   if (!finite) {
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });
@@ -431,6 +438,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     line: builtDocumentLine({
       index,
       settlement,
+      valuationDate: settlement,
       interpolation: curve.interpolation,
       curveDayCount: curve.dayCount,
       compounding: opts.compounding,

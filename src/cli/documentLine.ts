@@ -26,6 +26,12 @@ export interface QuoteOut {
   readonly t: number;
   readonly unit: QuoteUnit;
   readonly repricingError: number;
+  /** The quote's start, adjusted accrual end and curve node date (ISO dates). */
+  readonly start: IsoDate;
+  readonly end: IsoDate;
+  readonly pillar: IsoDate;
+  /** The last payment date: swaps and overnight-index swaps only. */
+  readonly payment?: IsoDate;
 }
 
 /**
@@ -34,7 +40,9 @@ export interface QuoteOut {
  */
 export interface BuiltDocument {
   readonly index: number;
+  /** The valuation date under the name version 1 gave it (kept for readers of the first output). */
   readonly settlement: IsoDate;
+  readonly valuationDate: IsoDate;
   readonly interpolation: InterpolationId;
   readonly curveDayCount: CurveDayCount;
   readonly compounding: Compounding;
@@ -59,7 +67,7 @@ export interface BuiltDocument {
  * engine's fixed lists; everything else (warnings, bond analytics) goes through JSON.stringify.
  */
 export function builtDocumentLine(o: BuiltDocument): string {
-  let s = `{"index":${o.index},"settlement":"${o.settlement}","interpolation":"${o.interpolation}","curveDayCount":"${o.curveDayCount}","compounding":"${o.compounding}","rateDayCount":"${o.rateDayCount}","extrapolation":"${o.extrapolation}","quotes":[`;
+  let s = `{"index":${o.index},"settlement":"${o.settlement}","valuationDate":"${o.valuationDate}","interpolation":"${o.interpolation}","curveDayCount":"${o.curveDayCount}","compounding":"${o.compounding}","rateDayCount":"${o.rateDayCount}","extrapolation":"${o.extrapolation}","quotes":[`;
   // A point at a pillar has the pillar's t, which its quote has just printed: each double's text
   // costs about 0.1 us to make, so the quote's text is reused when the two are the same number.
   const { quotes, points } = o;
@@ -68,7 +76,7 @@ export function builtDocumentLine(o: BuiltDocument): string {
     const q = quotes[i]!;
     const t = `${q.t}`;
     tText[i] = t;
-    s += `${i === 0 ? '' : ','}{"index":${q.index},"kind":"${q.kind}","maturity":"${q.maturity}","t":${t},"unit":"${q.unit}","repricingError":${q.repricingError}}`;
+    s += `${i === 0 ? '' : ','}{"index":${q.index},"kind":"${q.kind}","maturity":"${q.maturity}","t":${t},"unit":"${q.unit}","repricingError":${q.repricingError},"start":"${q.start}","end":"${q.end}","pillar":"${q.pillar}"${q.payment === undefined ? '' : `,"payment":"${q.payment}"`}}`;
   }
   s += '],"points":[';
   for (let i = 0; i < points.length; i++) {

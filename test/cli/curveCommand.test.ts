@@ -21,8 +21,8 @@ describe('one document', () => {
     expect(r.stdout.endsWith('\n')).toBe(true);
     const [o] = parseLines(r.stdout);
     expect(r.stdout.trim().split('\n')).toHaveLength(1);
-    expect(Object.keys(o!)).toEqual(['index', 'settlement', 'interpolation', 'curveDayCount', 'compounding', 'rateDayCount', 'extrapolation', 'quotes', 'points', 'forwards', 'warnings']);
-    expect(o).toMatchObject({ index: 0, settlement: '2027-03-10', interpolation: 'monotone-convex', curveDayCount: 'ACT/365F', compounding: 'continuous', rateDayCount: 'ACT/365F', extrapolation: 'none', forwards: [], warnings: [] });
+    expect(Object.keys(o!)).toEqual(['index', 'settlement', 'valuationDate', 'interpolation', 'curveDayCount', 'compounding', 'rateDayCount', 'extrapolation', 'quotes', 'points', 'forwards', 'warnings']);
+    expect(o).toMatchObject({ index: 0, settlement: '2027-03-10', valuationDate: '2027-03-10', interpolation: 'monotone-convex', curveDayCount: 'ACT/365F', compounding: 'continuous', rateDayCount: 'ACT/365F', extrapolation: 'none', forwards: [], warnings: [] });
     expect(o!.quotes.map((q: any) => q.index)).toEqual([0, 1, 2, 3]);
     for (const q of o!.quotes) expect(Math.abs(q.repricingError)).toBeLessThanOrEqual(q.unit === 'price' ? 1e-11 : 1e-14);
     // Without --at: one point per pillar, in date order.

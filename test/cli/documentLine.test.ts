@@ -19,13 +19,16 @@ const record: fc.Arbitrary<BuiltDocument> = fc
   .record({
     index: fc.nat(),
     settlement: isoDate,
+    valuationDate: isoDate,
     interpolation: fc.constantFrom(...INTERPOLATIONS),
     curveDayCount: fc.constantFrom(...CURVE_DAY_COUNTS),
     compounding: fc.constantFrom(...COMPOUNDINGS),
     rateDayCount: fc.constantFrom(...CURVE_DAY_COUNTS),
     extrapolation: fc.constantFrom(...EXTRAPOLATIONS),
     quotes: fc.array(
-      fc.record({ index: fc.nat(), kind: fc.constantFrom(...QUOTE_KINDS), maturity: isoDate, t: finite, unit: fc.constantFrom('price', 'rate'), repricingError: finite }),
+      fc
+        .tuple(fc.record({ index: fc.nat(), kind: fc.constantFrom(...QUOTE_KINDS), maturity: isoDate, t: finite, unit: fc.constantFrom('price', 'rate'), repricingError: finite, start: isoDate, end: isoDate, pillar: isoDate }), fc.option(isoDate, { nil: undefined }))
+        .map(([q, payment]) => (payment === undefined ? q : { ...q, payment })),
       { maxLength: 6 },
     ),
     points: fc.array(fc.tuple(fc.record({ date: isoDate, t: finite, discount: finite, zero: finite }), flag).map(([p, x]) => withFlag(p, x)), { maxLength: 6 }),
@@ -41,7 +44,7 @@ describe('builtDocumentLine', () => {
       fc.property(record, (r) => {
         // Same key order as the contract: the record is built in that order, as the command builds it.
         const ordered = {
-          index: r.index, settlement: r.settlement, interpolation: r.interpolation, curveDayCount: r.curveDayCount, compounding: r.compounding,
+          index: r.index, settlement: r.settlement, valuationDate: r.valuationDate, interpolation: r.interpolation, curveDayCount: r.curveDayCount, compounding: r.compounding,
           rateDayCount: r.rateDayCount, extrapolation: r.extrapolation, quotes: r.quotes, points: r.points, forwards: r.forwards,
           ...(r.bonds !== undefined ? { bonds: r.bonds } : {}), warnings: r.warnings,
         };
@@ -52,7 +55,7 @@ describe('builtDocumentLine', () => {
   });
   it('builtDocumentLine writes -0 as 0 and 1e21 as 1e+21, as JSON.stringify does', () => {
     const line = builtDocumentLine({
-      index: 0, settlement: '2027-03-10', interpolation: 'monotone-convex', curveDayCount: 'ACT/365F', compounding: 'continuous', rateDayCount: 'ACT/365F', extrapolation: 'none',
+      index: 0, settlement: '2027-03-10', valuationDate: '2027-03-10', interpolation: 'monotone-convex', curveDayCount: 'ACT/365F', compounding: 'continuous', rateDayCount: 'ACT/365F', extrapolation: 'none',
       quotes: [], points: [{ date: '2027-06-10', t: -0, discount: 1e21, zero: 1e-7 }], forwards: [], warnings: [],
     });
     expect(line).toContain('"t":0,"discount":1e+21,"zero":1e-7}');

@@ -1,6 +1,6 @@
 /** The engine document the README shows under "Workspace document" (invented quotes), for tests that read it. */
 export const README_DOCUMENT = {
-  format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10',
+  format: 'tenorscope-workspace', version: 2, valuationDate: '2027-03-10',
   curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none' },
   quotes: [
     { kind: 'deposit', tenor: '3M', rate: 0.031, dayCount: 'ACT/360' },

@@ -5,6 +5,7 @@ import { render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { CopyLinkButton, LinkNotice } from '../../src/share/CopyLinkButton.tsx';
 import { decodeWorkspaceLink } from '../../src/share/linkCodec.ts';
+import { migrateDocument } from '../../src/core/index.ts';
 
 const fixture = fixtureJson as unknown as Record<string, unknown>;
 
@@ -18,7 +19,7 @@ describe('CopyLinkButton', () => {
     const url = written[0]!;
     expect(url.startsWith('https://example.invalid/app#ws1.')).toBe(true);
     const outcome = await decodeWorkspaceLink(url.split('#')[1]!);
-    expect(outcome.ok && outcome.checked.document).toEqual(fixture);
+    expect(outcome.ok && outcome.checked.document).toEqual(migrateDocument(fixture)); // version 1 read as version 2
   });
 
   it('says so when the clipboard is refused', async () => {

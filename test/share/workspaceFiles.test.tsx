@@ -3,7 +3,7 @@
 import { render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import fixtureJson from '../fixtures/share/workspace40.json';
-import type { CheckedDocument } from '../../src/core/index.ts';
+import { migrateDocument, type CheckedDocument } from '../../src/core/index.ts';
 import { WorkspaceFiles } from '../../src/share/WorkspaceFiles.tsx';
 
 const fixture = fixtureJson as unknown as Record<string, unknown>;
@@ -16,7 +16,7 @@ describe('WorkspaceFiles', () => {
     render(<WorkspaceFiles document={fixture} curve={null} conventions={null} onOpen={(c) => opened.push(c)} />);
     const input = screen.getByLabelText('Workspace file to open');
     await user.upload(input, file(JSON.stringify(fixture)));
-    expect(opened[0]?.document).toEqual(fixture);
+    expect(opened[0]?.document).toEqual(migrateDocument(fixture)); // version 1 read as version 2 (settlement renamed valuationDate)
     await user.upload(input, file(JSON.stringify({ ...fixture, note: 'n'.repeat(2001) }), 'long.json'));
     expect((await screen.findByRole('alert')).textContent).toContain('long.json was not opened: note: must be 2000 characters at most');
     await user.upload(input, file('{oops', 'broken.json'));

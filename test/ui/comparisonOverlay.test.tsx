@@ -137,8 +137,8 @@ describe('useComparisonOverlay', () => {
     act(() => useAppStore.getState().setDisplay({ compounding: 'annual', dayCount: 'ACT/360' }));
     render(<Probe />);
     const doc = engineDoc();
-    const earlier = addTenor(String(doc.settlement), { ...parseTenor('1M')!, n: -1 });
-    const snap = takeSnapshot({ ...doc, settlement: earlier }, 'Month ago', '2026-11-01T12:00:00Z');
+    const earlier = addTenor(String(doc.valuationDate), { ...parseTenor('1M')!, n: -1 });
+    const snap = takeSnapshot({ ...doc, valuationDate: earlier }, 'Month ago', '2026-11-01T12:00:00Z');
     act(() => useAppStore.getState().setReserved('snapshots', [snap]));
     act(() => toggleSnapshot([], 'Month ago', true));
     const rebuilt = rebuildSnapshot(snap).build.curve!;

@@ -69,7 +69,9 @@ describe('WorkspacesPanel', () => {
     await act(async () => {
       fireEvent.click(screen.getByRole('button', { name: 'Open Desk view' }));
     });
-    await waitFor(() => expect(s().workspace.quotes[0]!.rate).toBe('3.21'));
+    // The colleague's copy has the same rate: wait for the switch itself (its own settlement), then check it all.
+    await waitFor(() => expect(s().workspace.settlement).toBe('2026-12-15'));
+    expect(s().workspace.quotes[0]!.rate).toBe('3.21');
     expect(s().workspace.note).toBeUndefined();
   });
 

@@ -37,8 +37,26 @@ export interface DocumentMigration {
   migrate(doc: Record<string, unknown>): Record<string, unknown>;
 }
 
-/** Migrations of older document versions, oldest first. Version 1 is the first published, so none yet. */
-export const DOCUMENT_MIGRATIONS: readonly DocumentMigration[] = [];
+/**
+ * Version 1 to 2: `settlement` becomes `valuationDate` (the same date, in the same place among the
+ * keys); nothing else changes. A version 1 document has no calendar sections and its quotes no
+ * calendar fields beyond those it already had, so it builds exactly as before (bit for bit).
+ */
+export const MIGRATE_1_TO_2: DocumentMigration = {
+  from: 1,
+  migrate(doc) {
+    const out: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(doc)) {
+      if (k === 'version') out.version = 2;
+      else if (k === 'settlement') out.valuationDate = v;
+      else out[k] = v;
+    }
+    return out;
+  },
+};
+
+/** Migrations of older document versions, oldest first. */
+export const DOCUMENT_MIGRATIONS: readonly DocumentMigration[] = [MIGRATE_1_TO_2];
 
 
 /** Applies migrations from the document's version up to the current one; leaves other documents alone. */

@@ -64,6 +64,11 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   const wb = out as unknown as WorkbenchDocument;
   const again = validateWorkspace(toEngineDocument(wb).doc);
   const errors: CoreError[] = [];
+  for (const section of ['calendars', 'customCalendars'] as const) {
+    if (doc[section] !== undefined && Object.keys(doc[section] as object).length > 0) {
+      errors.push(coreError('schema', section, `${section} (the file's own calendar dates) has no place in the workbench yet; build this file with the curve command, or remove ${section} to open it here with the built-in calendars`));
+    }
+  }
   if (ws.curve.fit !== 'none') errors.push(coreError('schema', 'curve.fit', `curve.fit "${ws.curve.fit}" has no place in the workbench document; choose the fit in the workbench's fit section instead, or remove curve.fit from the file`));
   const back = again.workspace?.quotes ?? [];
   if (back.length !== ws.quotes.length) errors.push(coreError('schema', 'quotes', `the sheet read ${back.length} of the file's ${ws.quotes.length} quotes; open it with the curve command instead`));

@@ -1,5 +1,5 @@
 import type { IsoDate } from '../time/date.ts';
-import type { BusinessDayRule } from '../time/calendars.ts';
+import type { BusinessDayRule, CalendarContext } from '../time/calendars.ts';
 import type { CurveDayCount, DayCount } from '../time/dayCount.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
@@ -37,6 +37,8 @@ export interface DepositQuote extends QuoteCommon {
   readonly calendar: string | null;
   readonly spotLag: number | null;
   readonly businessDay: BusinessDayRule | null;
+  /** The workspace's own calendars and edits its dates were made on (absent: the built-ins as published). */
+  readonly calendars?: CalendarContext;
 }
 /** Discount bill: bank discount yield (decimal, actual/360) or price per 100. */
 export interface BillQuote extends QuoteCommon {
@@ -93,6 +95,8 @@ export interface OisQuote extends QuoteCommon {
   /** Business days from each accrual end to its payment. */
   readonly paymentLag: number;
   readonly unadjustedEnd: IsoDate;
+  /** The workspace's own calendars and edits its dates are made on (absent: the built-ins as published). */
+  readonly calendars?: CalendarContext;
 }
 export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote;
 
@@ -106,7 +110,13 @@ export interface CurveSettings {
 
 /** A validated workspace: what the engine builds from. Reserved keys are passed through untouched. */
 export interface Workspace {
+  /**
+   * The valuation date: discount factor 1, the curve's t axis starts here; tenors of `--at` and
+   * `--forward` count from it. The document's `valuationDate` (version 2) or `settlement` (version 1).
+   */
   readonly settlement: IsoDate;
+  /** The document's `calendars` (edits of built-in calendars) and `customCalendars` (pasted lists); empty when it has none. */
+  readonly calendars: CalendarContext;
   readonly curve: CurveSettings;
   /** Every quote that validated (enabled or not), in document order. */
   readonly quotes: readonly Quote[];

@@ -11,12 +11,22 @@ import { listOf, typeName } from '../kinds/fields.ts';
 import { KIND_ALLOWED_FIELDS, KIND_MODULE_LIST, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 import { isPlainObject } from './plainObject.ts';
+import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
+import type { CalendarContext } from '../time/calendars.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
-export const WORKSPACE_VERSION = 1;
+/**
+ * The document version written: 2 has `valuationDate` (version 1's `settlement`, the same date)
+ * and the calendar sections `calendars` and `customCalendars`. Version 1 is read as it always was
+ * (no calendar, no lag, unadjusted), and DOCUMENT_MIGRATIONS (document.ts) rewrites it exactly.
+ */
+export const WORKSPACE_VERSION = 2;
 /** Top-level keys the workbench owns; the engine passes them through. */
 export const RESERVED_KEYS = ['scenarios', 'strategy', 'snapshots', 'view', 'note'] as const;
-const TOP_KEYS = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
+const TOP_KEYS_V1 = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
+const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'curve', 'quotes', ...RESERVED_KEYS];
+/** Fields version 2 added: in a version 1 document each is an error that says so. */
+const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars'];
 /** `curve.fit`: none (the exact bootstrap only), nelson-siegel or svensson (src/core/fit). */
 const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit'];
 
@@ -32,7 +42,8 @@ export interface ValidationOutcome {
 
 
 /**
- * Validates a parsed workspace document (`{"format": "tenorscope-workspace", "version": 1, ...}`).
+ * Validates a parsed workspace document (`{"format": "tenorscope-workspace", "version": 2, "valuationDate": ...}`,
+ * or version 1 with `settlement`, read as it always was).
  * Every error names its path and says what would be valid. Unknown fields are refused with
  * their path (a misspelt `cleanprice` is caught). Quote errors do not stop the others being
  * checked, so a caller may build from the valid quotes (`--skip-invalid`).
@@ -42,20 +53,27 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   if (!isPlainObject(doc)) {
     return { workspace: null, errors: [coreError('schema', '', `a workspace document must be a JSON object, not ${typeName(doc)}`)] };
   }
+  const version = doc.version;
+  const v1 = version === 1;
+  if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) {
+    errors.push(coreError('schema', 'version', `version must be the integer ${WORKSPACE_VERSION} (or 1, read as before), not ${typeName(version)}`));
+  } else if (version > WORKSPACE_VERSION) {
+    errors.push(coreError('unsupported-version', 'version', `version ${version} is newer than this engine reads (${WORKSPACE_VERSION}); open it with a newer Tenorscope`));
+  } else if (!v1 && doc.settlement !== undefined && doc.valuationDate === undefined) {
+    errors.push(coreError('unsupported-version', 'version', `this document says version ${version} but is written in version 1's terms (settlement): set version to 1, or rename settlement to valuationDate`));
+  }
+  const keys = v1 ? TOP_KEYS_V1 : TOP_KEYS;
   for (const key of Object.keys(doc)) {
-    if (!TOP_KEYS.includes(key)) errors.push(coreError('schema', key, `unknown field "${key}"; a workspace has ${listOf(TOP_KEYS)}`));
+    if (keys.includes(key) || (!v1 && key === 'settlement' && doc.valuationDate === undefined)) continue;
+    if (v1 && VERSION_2_KEYS.includes(key)) errors.push(coreError('schema', key, `"${key}" is a field of version 2 documents; set version to 2 and write valuationDate in place of settlement`));
+    else errors.push(coreError('schema', key, `unknown field "${key}"; a workspace has ${listOf(keys)}`));
   }
   if (doc.format !== WORKSPACE_FORMAT) {
     errors.push(coreError('schema', 'format', `format must be "${WORKSPACE_FORMAT}", not ${typeName(doc.format)}`));
   }
-  if (typeof doc.version !== 'number' || !Number.isInteger(doc.version) || doc.version < 1) {
-    errors.push(coreError('schema', 'version', `version must be the integer ${WORKSPACE_VERSION}, not ${typeName(doc.version)}`));
-  } else if (doc.version > WORKSPACE_VERSION) {
-    errors.push(
-      coreError('unsupported-version', 'version', `version ${doc.version} is newer than this engine reads (${WORKSPACE_VERSION}); open it with a newer Tenorscope`),
-    );
-  }
-  const settlement = checkDate(doc.settlement, 'settlement', errors);
+  const dateKey = v1 ? 'settlement' : 'valuationDate';
+  const settlement = v1 || doc.settlement === undefined || doc.valuationDate !== undefined ? checkDate(doc[dateKey], dateKey, errors) : null;
+  const calendars = v1 ? {} : readCalendarSections(doc.calendars, doc.customCalendars, errors);
   const curve = checkCurve(doc.curve, errors);
   if (!Array.isArray(doc.quotes)) {
     errors.push(coreError('schema', 'quotes', `quotes must be an array of quote objects, not ${typeName(doc.quotes)}`));
@@ -64,14 +82,15 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
 
   const quotes: Quote[] = [];
   const settlementCivil = parseIsoDate(settlement)!; // checked above
+  const context = isEmptyCalendarContext(calendars) ? undefined : calendars;
   for (let index = 0; index < doc.quotes.length; index++) {
     const before = errors.length;
-    const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors);
+    const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors, context);
     if (q && errors.length === before) quotes.push(q);
   }
   const reserved: Record<string, unknown> = {};
   for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
-  return { workspace: { settlement, curve, quotes, quoteCount: doc.quotes.length, reserved }, errors };
+  return { workspace: { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved }, errors };
 }
 
 function checkDate(v: unknown, path: string, errors: CoreError[], quote: number | null = null): IsoDate | null {
@@ -111,7 +130,7 @@ function checkCurve(v: unknown, errors: CoreError[]): CurveSettings | null {
   return { dayCount, interpolation, extrapolation, fit } as CurveSettings;
 }
 
-function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlementCivil: CivilDate, errors: CoreError[]): Quote | null {
+function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlementCivil: CivilDate, errors: CoreError[], calendars: CalendarContext | undefined): Quote | null {
   const base = `quotes[${index}]`;
   if (!isPlainObject(raw)) {
     errors.push(coreError('schema', base, `${base}: a quote must be an object such as {"kind": "deposit", "tenor": "3M", "rate": 0.031}, not ${typeName(raw)}`, index));
@@ -173,7 +192,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   // The kind's own fields, read by its module (src/core/kinds). Performance: the modules' readers
   // spell out the common fields (index, maturity, tenor, enabled) rather than spreading a shared
   // object; a spread per quote cost a third of validation.
-  const quote = QUOTE_KIND_MODULES[k].schema.read(raw, base, index, maturity, m, tenor, enabled, errors, settlement);
+  const quote = QUOTE_KIND_MODULES[k].schema.read(raw, base, index, maturity, m, tenor, enabled, errors, settlement, calendars);
   if (errors.length > before || maturity === null) return null;
   return quote;
 }

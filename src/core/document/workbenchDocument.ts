@@ -112,7 +112,7 @@ export function toEngineDocument(
   const engine: Record<string, unknown> = {
     format: WORKSPACE_FORMAT,
     version: WORKSPACE_VERSION,
-    settlement: doc.settlement,
+    valuationDate: doc.settlement,
     curve: { ...doc.curve },
     quotes,
   };

@@ -30,7 +30,7 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   schema: {
     fields: ['rate', 'dayCount', 'calendar', 'spotLag', 'businessDay'],
     defaults: { dayCount: 'ACT/360' },
-    read(raw, base, index, maturity, m, tenor, enabled, errors, settlement) {
+    read(raw, base, index, maturity, m, tenor, enabled, errors, settlement, calendars) {
       const rate = required(readRate(raw, base, index, errors, 'rate'), 'rate', RATE_TEXT, base, index, errors);
       const dayCount = noCouponPeriod(readDayCount(raw, base, index, errors, 'dayCount', 'ACT/360'), 'deposit', base, index, errors);
       const term = tenor === null ? null : moneyMarketTerm(tenor);
@@ -63,14 +63,14 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
       }
       const parsed = tenor === null || term !== null ? null : parseTenor(tenor);
       const when = term !== null ? { term } : parsed !== null ? { tenor: parsed } : { end: civilFromIso(maturity) };
-      const dates = depositDates(civilFromIso(settlement), when, { calendar, spotLag, businessDay: businessDay ?? 'following' }, base, index);
+      const dates = depositDates(civilFromIso(settlement), when, { calendar, spotLag, businessDay: businessDay ?? 'following', ...(calendars ? { calendars } : {}) }, base, index);
       if (!dates.ok) {
         errors.push(...dates.errors);
         return null;
       }
       return {
         kind: 'deposit', index, maturity: isoFromCivil(dates.value.end), tenor, enabled, rate, dayCount,
-        start: isoFromCivil(dates.value.start), calendar, spotLag, businessDay,
+        start: isoFromCivil(dates.value.start), calendar, spotLag, businessDay, ...(calendars ? { calendars } : {}),
       };
     },
   },
@@ -87,6 +87,7 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   fit: { per100: 100, dollarDuration: depositDollarDuration, richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
   schedule: depositScheduleRows,
+  dates: (q) => ({ start: q.start, end: q.maturity, payment: null }),
 };
 
 /**

@@ -1,6 +1,6 @@
 import type { OisQuote } from '../document/types.ts';
 import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
-import { compileOis } from '../instruments/ois.ts';
+import { compileOis, oisDates } from '../instruments/ois.ts';
 import { oisScheduleRows } from '../input/quoteSchedule.ts';
 import { coreError, ok } from '../result.ts';
 import { BUSINESS_DAY_RULES } from '../time/calendars.ts';
@@ -11,7 +11,7 @@ import { swapDates } from '../time/swapSchedule.ts';
 import { readChoice, readDayCount, readEom, readFrequency, readRate, readWhole, required, readCalendar, RATE_TEXT } from './fields.ts';
 import { compoundingOfFrequency, flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from './shared.ts';
 import { couponTag } from '../format/conventionTag.ts';
-import type { QuoteKindModule } from './types.ts';
+import type { QuoteDates, QuoteKindModule } from './types.ts';
 
 /** The overnight rate's day bases: D = 360 (SOFR, €STR) or 365 (SONIA) (MARKET-CONVENTIONS.md section d). */
 const FLOAT_DAY_COUNTS: readonly DayCount[] = ['ACT/360', 'ACT/365F'];
@@ -33,7 +33,7 @@ export const OIS: QuoteKindModule<OisQuote> = {
   schema: {
     fields: ['rate', 'frequency', 'dayCount', 'floatDayCount', 'calendar', 'spotLag', 'businessDay', 'eom', 'paymentLag'],
     defaults: { frequency: 1, dayCount: 'ACT/360' },
-    read(raw, base, index, maturity, _m, tenor, enabled, errors, settlement) {
+    read(raw, base, index, maturity, _m, tenor, enabled, errors, settlement, calendars) {
       const rate = required(readRate(raw, base, index, errors, 'rate'), 'rate', RATE_TEXT, base, index, errors);
       const frequency = readFrequency(raw, 1, base, index, errors);
       let dayCount = readDayCount(raw, base, index, errors, 'dayCount', 'ACT/360');
@@ -57,7 +57,7 @@ export const OIS: QuoteKindModule<OisQuote> = {
       // The swap's dates, checked now so every error names this quote: the calendar (an unknown
       // name lists the valid ones), dates within its years, an end after the start.
       const parsedTenor = tenor === null ? null : parseTenor(tenor);
-      const conventions = { calendar, businessDay, eom, spotLag, paymentLag, frequency };
+      const conventions = { calendar, businessDay, eom, spotLag, paymentLag, frequency, ...(calendars ? { calendars } : {}) };
       const dates = swapDates(civilFromIso(settlement), parsedTenor === null ? { end: civilFromIso(maturity) } : { tenor: parsedTenor }, conventions, base, index);
       if (!dates.ok) {
         errors.push(...dates.errors);
@@ -66,7 +66,7 @@ export const OIS: QuoteKindModule<OisQuote> = {
       const { ends, unadjustedEnd } = dates.value;
       return {
         kind: 'ois', index, maturity: isoFromCivil(ends[ends.length - 1]!), tenor, enabled, rate, frequency, dayCount, floatDayCount,
-        calendar, spotLag, businessDay, eom, paymentLag, unadjustedEnd: isoFromCivil(unadjustedEnd),
+        calendar, spotLag, businessDay, eom, paymentLag, unadjustedEnd: isoFromCivil(unadjustedEnd), ...(calendars ? { calendars } : {}),
       };
     },
   },
@@ -83,6 +83,7 @@ export const OIS: QuoteKindModule<OisQuote> = {
   solver: { firstRate: quotedRateOrDefault },
   fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
   schedule: oisScheduleRows,
+  dates: oisQuoteDates,
 };
 
 /**
@@ -96,4 +97,12 @@ function oisDollarDuration(ins: Instrument): number {
   const amounts = Array.from(ins.amounts);
   amounts[amounts.length - 1] = amounts[amounts.length - 1]! + 1;
   return flatDollarDurationOf(ins.times, amounts, 1);
+}
+
+/** The swap's start (spot), adjusted end and last payment date (the pillar), as its reader made them. */
+function oisQuoteDates(q: OisQuote, valuation: string): QuoteDates {
+  const r = oisDates(q, civilFromIso(valuation));
+  if (!r.ok) return { start: valuation, end: q.maturity, payment: q.maturity }; // cannot happen: the reader made the same dates
+  const { starts, payments } = r.value;
+  return { start: isoFromCivil(starts[0]!), end: q.maturity, payment: isoFromCivil(payments[payments.length - 1]!) };
 }

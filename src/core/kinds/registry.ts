@@ -5,7 +5,7 @@ import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
 import { OIS } from './ois.ts';
 import { SWAP } from './swap.ts';
-import type { FixedLegConvention, QuoteConvention, QuoteKindModule } from './types.ts';
+import type { FixedLegConvention, QuoteConvention, QuoteDates, QuoteKindModule } from './types.ts';
 import type { Curve } from '../curve/curve.ts';
 import type { QuoteSchedule } from '../input/quoteSchedule.ts';
 import type { IsoDate } from '../time/date.ts';
@@ -65,6 +65,9 @@ export function sheetDefault(kindText: string, column: QuoteColumn): string | un
 
 /** How a validated quote is quoted (unit, compounding, day count), for the UI to format. */
 export const quoteConvention = (q: Quote): QuoteConvention => moduleOf(q).convention(q);
+
+/** A quote's adjusted start, accrual end and last payment (kinds/types.ts QuoteDates); the kind's own, else from the valuation date to the maturity. */
+export const quoteDates = (q: Quote, valuation: IsoDate): QuoteDates => moduleOf(q).dates?.(q, valuation) ?? { start: valuation, end: q.maturity, payment: null };
 
 /** A quote's cash-flow schedule on a curve (bonds, swaps), or null for a kind with a single flow. */
 export const quoteSchedule = (q: Quote, settlement: IsoDate, curve: Curve | null): QuoteSchedule | null => moduleOf(q).schedule?.(q, settlement, curve) ?? null;

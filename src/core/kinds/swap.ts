@@ -41,4 +41,6 @@ export const SWAP: QuoteKindModule<SwapQuote> = {
   solver: { firstRate: quotedRateOrDefault },
   fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
   schedule: swapScheduleRows,
+  // Today's single-curve swap: from the valuation date, unadjusted, paying at its maturity.
+  dates: (q, valuation) => ({ start: valuation, end: q.maturity, payment: q.maturity }),
 };

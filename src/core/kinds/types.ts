@@ -5,6 +5,7 @@ import type { QuoteSchedule } from '../input/quoteSchedule.ts';
 import type { CurveRole, CurveRoles, Instrument } from '../instruments/instrument.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { CoreError, Result } from '../result.ts';
+import type { CalendarContext } from '../time/calendars.ts';
 import type { CivilDate, IsoDate } from '../time/date.ts';
 import type { DayCount } from '../time/dayCount.ts';
 import type { RawQuote } from './fields.ts';
@@ -55,9 +56,10 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
      * Reads the kind's own fields of a raw quote whose common fields were read: `base` its path,
      * `maturity` null when the maturity was wrong (then `m` is the settlement as a stand-in).
      * `settlement` the document's settlement date (a kind whose dates count from it: the OIS's
-     * spot lag and schedule). Pushes path-named errors; returns the typed quote or null.
+     * spot lag and schedule). `calendars` the workspace's own calendars and its edits of the
+     * built-in ones (absent when it has none). Pushes path-named errors; returns the typed quote or null.
      */
-    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate): Q | null;
+    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext): Q | null;
   };
 
   /** How the quote sheet's columns fill the kind's fields. */
@@ -143,4 +145,18 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
 
   /** Optional: the cash-flow schedule shown for a quote of the kind (bonds, swaps, deposits). */
   schedule?(q: Q, settlement: IsoDate, curve: Curve | null): QuoteSchedule;
+
+  /**
+   * Optional: the quote's own dates after adjustment (the command's `start`, `end` and `payment`).
+   * Without it: start at the valuation date, end at the maturity, no payment date.
+   */
+  dates?(q: Q, valuation: IsoDate): QuoteDates;
+}
+
+/** A quote's adjusted dates: its start, the end of its accrual, and (swaps) its last payment. */
+export interface QuoteDates {
+  readonly start: IsoDate;
+  readonly end: IsoDate;
+  /** The last payment date (swaps and overnight-index swaps); null for the other kinds. */
+  readonly payment: IsoDate | null;
 }

@@ -37,14 +37,14 @@ export function curveHash(curve: Curve): string {
 
 /** The workspace document the snapshot's inputs make (without scenarios, note or view). */
 export function snapshotDocument(s: Snapshot): Record<string, unknown> {
-  return { format: WORKSPACE_FORMAT, version: WORKSPACE_VERSION, settlement: s.settlement, ...(s.curve === undefined ? {} : { curve: s.curve }), quotes: s.quotes };
+  return { format: WORKSPACE_FORMAT, version: WORKSPACE_VERSION, valuationDate: s.settlement, ...(s.curve === undefined ? {} : { curve: s.curve }), quotes: s.quotes };
 }
 
 /** Takes a snapshot of a parsed workspace document: copies its inputs and the hash of the curve it builds now. */
 export function takeSnapshot(doc: Record<string, unknown>, name: string, takenAt: string): Snapshot {
   const quotes = Array.isArray(doc.quotes) ? (JSON.parse(JSON.stringify(doc.quotes)) as unknown[]) : [];
   const curve = doc.curve === undefined ? undefined : (JSON.parse(JSON.stringify(doc.curve)) as unknown);
-  const base = { name, takenAt, settlement: String(doc.settlement), curve, quotes, curveHash: null };
+  const base = { name, takenAt, settlement: String(doc.valuationDate ?? doc.settlement), curve, quotes, curveHash: null };
   const built = buildCurve(snapshotDocument(base));
   return { ...base, curveHash: built.curve ? curveHash(built.curve) : null };
 }

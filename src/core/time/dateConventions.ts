@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { addMonthsCivil, civilFromSerial, daysInMonth, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
 import { addTenorCivil, parseTenor, type Tenor } from './tenor.ts';
-import { addBusinessDays, adjustSerial, BUILT_IN_CALENDARS, BUSINESS_DAY_RULES, businessCalendar, lastBusinessDayOfMonth, type BusinessCalendar, type BusinessDayRule } from './calendars.ts';
+import { addBusinessDays, adjustSerial, BUILT_IN_CALENDARS, BUSINESS_DAY_RULES, businessCalendar, lastBusinessDayOfMonth, type BusinessCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
 
 /**
  * The conventions layer for market dates: every date the product makes from a tenor (a quote's
@@ -31,6 +31,8 @@ export interface ConventionSet {
   readonly endOfMonth: boolean;
   /** Business days from the anchor (trade date) to the spot date tenors count from; 0 counts from the anchor. */
   readonly spotLagDays: number;
+  /** A workspace's own calendars and its edits of the built-in ones (the document's `calendars` and `customCalendars`); none: the built-ins as published. */
+  readonly calendars?: CalendarContext;
 }
 
 /** Today's conventions everywhere in the product: no calendar, unadjusted, no end-of-month rule, no spot lag. */
@@ -57,6 +59,10 @@ export const CALENDAR_IDS: readonly string[] = BUILT_IN_CALENDARS;
 /** The calendar of a set (EVERY_DAY when it names none), or null when its id is unknown. */
 export function calendarOf(set: ConventionSet): BusinessCalendar | null {
   if (set.calendar === null) return EVERY_DAY;
+  if (set.calendars !== undefined) {
+    const own = businessCalendar(set.calendar, set.calendars);
+    return own.ok ? own.calendar : null;
+  }
   if (Object.prototype.hasOwnProperty.call(BUILT_IN, set.calendar)) return BUILT_IN[set.calendar]!;
   const joined = businessCalendar(set.calendar);
   return joined.ok ? joined.calendar : null;

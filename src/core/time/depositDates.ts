@@ -1,5 +1,5 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { addBusinessDays, businessCalendar, outsideCalendar, type BusinessCalendar, type BusinessDayRule } from './calendars.ts';
+import { addBusinessDays, businessCalendar, outsideCalendar, type BusinessCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
 import { civilFromSerial, compareCivil, isoFromCivil, serialFromCivil, type CivilDate } from './date.ts';
 import { calendarOf, marketDateCivil, type ConventionSet } from './dateConventions.ts';
 import type { Tenor } from './tenor.ts';
@@ -26,6 +26,8 @@ export interface DepositDateConventions {
   readonly spotLag: number;
   /** The business-day rule for the end of an ordinary tenor (not used by ON, TN, SN). */
   readonly businessDay: BusinessDayRule;
+  /** The workspace's own calendars and edits (none: the built-ins as published). */
+  readonly calendars?: CalendarContext;
 }
 
 /** A deposit's start and end. */
@@ -53,10 +55,10 @@ export function depositDates(
   base: string,
   index: number,
 ): Result<DepositDates> {
-  const set: ConventionSet = { name: `deposit on ${c.calendar}`, calendar: c.calendar, businessDay: c.businessDay, endOfMonth: false, spotLagDays: c.spotLag };
+  const set: ConventionSet = { name: `deposit on ${c.calendar}`, calendar: c.calendar, businessDay: c.businessDay, endOfMonth: false, spotLagDays: c.spotLag, ...(c.calendars ? { calendars: c.calendars } : {}) };
   const calendar: BusinessCalendar | null = calendarOf(set);
   if (calendar === null) {
-    const o = businessCalendar(c.calendar);
+    const o = businessCalendar(c.calendar, c.calendars);
     const why = o.ok ? `the calendar "${c.calendar.slice(0, 60)}" cannot be used` : o.message;
     return fail(coreError('unknown-identifier', `${base}.calendar`, `${base}.calendar: ${why}`, index));
   }

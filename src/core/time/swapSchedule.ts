@@ -1,5 +1,5 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { addBusinessDays, adjustSerial, businessCalendar, outsideCalendar, type BusinessCalendar, type BusinessDayRule } from './calendars.ts';
+import { addBusinessDays, adjustSerial, businessCalendar, outsideCalendar, type BusinessCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
 import { civilFromSerial, compareCivil, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
 import { calendarOf, marketDateCivil, type ConventionSet } from './dateConventions.ts';
 import type { Tenor } from './tenor.ts';
@@ -30,6 +30,8 @@ export interface SwapDateConventions {
   readonly paymentLag: number;
   /** Fixed-leg payments a year: 1, 2, 4 or 12. */
   readonly frequency: number;
+  /** The workspace's own calendars and edits (none: the built-ins as published). */
+  readonly calendars?: CalendarContext;
 }
 
 /** A swap's adjusted dates, ascending: period i runs from starts[i] to ends[i] and pays on payments[i]. */
@@ -53,11 +55,11 @@ const ONE_YEAR: Tenor = { n: 12, unit: 'M' };
 export function swapDates(settlement: CivilDate, when: { readonly tenor: Tenor } | { readonly end: CivilDate }, c: SwapDateConventions, base: string, index: number): Result<SwapDates> {
   // The conventions layer's set for this swap: its calendar, no adjustment of the raw dates (the
   // rule is applied once, below), the end-of-month rule as asked, no spot lag (counted here).
-  const set: ConventionSet = { name: `swap on ${c.calendar}`, calendar: c.calendar, businessDay: 'unadjusted', endOfMonth: c.eom, spotLagDays: 0 };
+  const set: ConventionSet = { name: `swap on ${c.calendar}`, calendar: c.calendar, businessDay: 'unadjusted', endOfMonth: c.eom, spotLagDays: 0, ...(c.calendars ? { calendars: c.calendars } : {}) };
   const calendar: BusinessCalendar | null = calendarOf(set);
   if (calendar === null) {
     // calendars.ts words the refusal (it lists the valid names).
-    const o = businessCalendar(c.calendar);
+    const o = businessCalendar(c.calendar, c.calendars);
     const why = o.ok ? `the calendar "${c.calendar.slice(0, 60)}" cannot be used` : o.message;
     return fail(coreError('unknown-identifier', `${base}.calendar`, `${base}.calendar: ${why}`, index));
   }

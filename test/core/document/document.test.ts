@@ -1,6 +1,6 @@
 // Validation of the workspace document read from a link or a file: caps, reserved keys, migration.
 import { readFileSync } from 'node:fs';
-import { LIMITS, linkDocument, migrateDocument, parseDocumentText, serialiseDocument, validateDocument } from '../../../src/core/index.ts';
+import { LIMITS, linkDocument, migrateDocument, MIGRATE_1_TO_2, parseDocumentText, serialiseDocument, validateDocument } from '../../../src/core/index.ts';
 
 const fixture = JSON.parse(readFileSync(new URL('../../fixtures/share/workspace40.json', import.meta.url), 'utf8')) as Record<string, unknown>;
 const paths = (doc: unknown): string[] => {
@@ -15,7 +15,10 @@ describe('validateDocument(doc)', () => {
     if (!r.ok) return;
     expect(r.value.scenarios.map((s) => s.shape.kind)).toEqual(['parallel', 'twist', 'butterfly']);
     expect(r.value.note).toHaveLength(200);
-    expect(r.value.document).toBe(fixture);
+    // A version 1 document is read as version 2: settlement renamed valuationDate, nothing else changed.
+    expect(r.value.document).toEqual(MIGRATE_1_TO_2.migrate(fixture as Record<string, unknown>));
+    expect(r.value.document).toMatchObject({ version: 2, valuationDate: fixture.settlement });
+    expect(r.value.document).not.toHaveProperty('settlement');
   });
 
   it('refuses documents over the caps, naming the cap', () => {
@@ -92,7 +95,10 @@ describe('validateDocument(workbench document)', () => {
 describe('files', () => {
   it('parseDocumentText(serialiseDocument(doc)) gives the same document', () => {
     const r = parseDocumentText(serialiseDocument(fixture));
-    expect(r.ok && r.value.document).toEqual(fixture);
+    expect(r.ok && r.value.document).toEqual(MIGRATE_1_TO_2.migrate(fixture as Record<string, unknown>));
+    // And the version 2 file it then saves reads back unchanged.
+    const again = r.ok ? parseDocumentText(serialiseDocument(r.value.document)) : null;
+    expect(again?.ok && again.value.document).toEqual(r.ok && r.value.document);
   });
   it('reports a file that is not JSON as an error value', () => {
     const r = parseDocumentText('{"format": ');

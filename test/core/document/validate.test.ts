@@ -47,10 +47,13 @@ describe('document-level errors', () => {
     expectError(validateWorkspace({ ...ws(good), colour: 'blue' }).errors, 'schema', 'colour', /unknown field/);
     expectError(validateWorkspace({ ...ws(good), settlement: '2027-02-30' }).errors, 'schema', 'settlement', /YYYY-MM-DD/);
   });
-  it('unsupported-version: version 2 is newer than this engine reads; version 0 and 1.5 are schema errors', () => {
-    const v = validateWorkspace({ ...ws(good), version: 2 });
+  it('unsupported-version: version 3 is newer than this engine reads; version 2 in version 1 terms (settlement) says so; version 0 and 1.5 are schema errors', () => {
+    const v = validateWorkspace({ ...ws(good), version: 3 });
     expectError(v.errors, 'unsupported-version', 'version', /newer/);
     expect(v.workspace).toBeNull();
+    const mixed = validateWorkspace({ ...ws(good), version: 2 });
+    expectError(mixed.errors, 'unsupported-version', 'version', /version 1's terms \(settlement\).*rename settlement to valuationDate/);
+    expect(mixed.workspace).toBeNull();
     expectError(validateWorkspace({ ...ws(good), version: 1.5 }).errors, 'schema', 'version');
     expectError(validateWorkspace({ ...ws(good), version: 0 }).errors, 'schema', 'version');
   });
