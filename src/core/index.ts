@@ -19,6 +19,7 @@ export * from './curve/comparisonLines.ts';
 export type { Instrument, QuoteUnit, CurveRole, CurveId, CurveRoles } from './instruments/instrument.ts';
 export { presentValue, DISCOUNT_CURVE } from './instruments/instrument.ts';
 export type { QuoteKindModule, QuoteConvention, FixedLegConvention } from './kinds/types.ts';
+export { CONVENTION_SETS, CONVENTION_SET_IDS, conventionSet, type ConventionSetDefinition } from './kinds/conventionSets.ts';
 export { QUOTE_KIND_MODULES, KIND_MODULE_LIST, kindModule, moduleOf, sheetDefault, quoteConvention, quoteSchedule, quoteDates, fixedLegConvention } from './kinds/registry.ts';
 export * from './instruments/bill.ts';
 export * from './instruments/bond.ts';

@@ -9,6 +9,7 @@ import { formatTenor, parseTenor } from '../time/tenor.ts';
 import { MONEY_MARKET_TERMS, moneyMarketTerm } from '../time/depositDates.ts';
 import { listOf, typeName } from '../kinds/fields.ts';
 import { KIND_ALLOWED_FIELDS, KIND_MODULE_LIST, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
+import { withConventionSet } from '../kinds/conventionSets.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 import { isPlainObject } from './plainObject.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
@@ -148,6 +149,9 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
       errors.push(coreError('schema', `${base}.${key}`, `${base}.${key}: unknown field for a ${k}; a ${k} takes ${listOf([...allowed])}`, index));
     }
   }
+  // A named convention set fills the fields the quote does not give (kinds/conventionSets.ts).
+  const filled = withConventionSet(raw, k, base, index, errors);
+  if (filled === null) return null;
   // Maturity: exactly one of tenor and maturity.
   let maturity: IsoDate | null = null;
   let tenor: string | null = null;
@@ -192,7 +196,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   // The kind's own fields, read by its module (src/core/kinds). Performance: the modules' readers
   // spell out the common fields (index, maturity, tenor, enabled) rather than spreading a shared
   // object; a spread per quote cost a third of validation.
-  const quote = QUOTE_KIND_MODULES[k].schema.read(raw, base, index, maturity, m, tenor, enabled, errors, settlement, calendars);
+  const quote = QUOTE_KIND_MODULES[k].schema.read(filled, base, index, maturity, m, tenor, enabled, errors, settlement, calendars);
   if (errors.length > before || maturity === null) return null;
   return quote;
 }

@@ -32,7 +32,7 @@ export const moduleOf = (q: Quote): QuoteKindModule => QUOTE_KIND_MODULES[q.kind
 
 /** Fields a quote of each kind accepts, the common ones (`kind`, `tenor`, `maturity`, `enabled`) first. */
 export const KIND_ALLOWED_FIELDS: Readonly<Record<QuoteKind, ReadonlySet<string>>> = Object.fromEntries(
-  QUOTE_KINDS.map((k) => [k, new Set(['kind', 'tenor', 'maturity', 'enabled', ...QUOTE_KIND_MODULES[k].schema.fields])]),
+  QUOTE_KINDS.map((k) => [k, new Set(['kind', 'tenor', 'maturity', 'enabled', 'conventions', ...QUOTE_KIND_MODULES[k].schema.fields])]),
 ) as unknown as Record<QuoteKind, ReadonlySet<string>>;
 
 /** The fields the sheet's Rate / yield column fills across the kinds (`rate`, `discountYield`, `yield`), each once. */
