@@ -33,4 +33,32 @@ describe('overnight and tom-next deposits in the sheet', () => {
     expect(await page.getByText(/quotes in the curve/).innerText()).toBe(count);
     await screenshot(page, 'overnight-deposits-quote-check');
   });
+
+  it('an OIS row shows each accrual end before and after modified following: 2029-12-15 and 2030-12-15 fall on weekends and move to Monday', async () => {
+    // Row 14 becomes a 4Y overnight-index swap on the weekends calendar (the sheet's default; the
+    // demo values on Tuesday 2026-12-15): annual periods back from 2030-12-15 (a Sunday), so
+    // 2029-12-15 (a Saturday) -> 2029-12-17 and 2030-12-15 -> 2030-12-16; 2027-12-15 and
+    // 2028-12-15 are weekdays and stay.
+    const page = app!.page;
+    for (const [column, value] of [['Kind', 'ois'], ['Maturity', '4Y'], ['Rate / yield', '3.85']] as const) {
+      await page.getByRole('textbox', { name: `Row 14 ${column}` }).fill(value);
+      await page.getByRole('textbox', { name: `Row 14 ${column}` }).press('Enter');
+    }
+    await page.getByRole('tab', { name: 'Quote check' }).click();
+    await page.getByRole('table', { name: 'Quote check' }).getByRole('button', { name: '14', exact: true }).click();
+    const schedule = page.getByRole('table', { name: 'Schedule of row 14' });
+    await schedule.waitFor({ timeout: 20_000 });
+    const headers = await schedule.locator('thead th').allInnerTexts();
+    expect(headers.slice(0, 4)).toEqual(['Period start', 'Accrual end, unadjusted', 'Accrual end, adjusted', 'Payment date']);
+    const rows = await schedule.locator('tbody tr').evaluateAll((trs) => trs.map((tr) => Array.from(tr.querySelectorAll('td')).slice(0, 4).map((td) => td.textContent)));
+    expect(rows).toEqual([
+      ['2026-12-15', '2027-12-15', '2027-12-15', '2027-12-15'],
+      ['2027-12-15', '2028-12-15', '2028-12-15', '2028-12-15'],
+      ['2028-12-15', '2029-12-15', '2029-12-17', '2029-12-17'],
+      ['2029-12-17', '2030-12-15', '2030-12-16', '2030-12-16'],
+    ]);
+    expect(await schedule.locator('caption').innerText()).toMatch(/on the weekends calendar, starting on the valuation date; accrual ends moved by modified-following/);
+    await screenshot(page, 'ois-schedule-adjusted-dates');
+  });
 });
+

@@ -23,6 +23,13 @@ export interface ScheduleRow {
   readonly presentValue: number | null;
   /** Years from settlement on the curve's axis. */
   readonly t: number | null;
+  /**
+   * For a period whose dates a calendar moves (an overnight-index swap): its accrual end before
+   * and after the business-day rule; `end` is then the payment date (the accrual end plus the
+   * payment lag).
+   */
+  readonly accrualEnd?: IsoDate;
+  readonly unadjustedAccrualEnd?: IsoDate;
 }
 
 export interface QuoteSchedule {
@@ -85,17 +92,21 @@ export function swapScheduleRows(q: SwapQuote, settlement: IsoDate, curve: Curve
 export function oisScheduleRows(q: OisQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
   const r = oisDates(q, civilFromIso(settlement));
   if (!r.ok) return { rows: [], accrued: 0, note: r.errors[0]?.message ?? 'no schedule' };
-  const { starts, ends, payments } = r.value;
+  const { starts, ends, payments, unadjustedEnds } = r.value;
   const n = ends.length;
   const rows = ends.map((end, i) => {
     const tau = yearFractionCivil(q.dayCount, starts[i]!, end, q.eom, i === n - 1, 0, q.frequency);
     const cashFlow = money(100 * q.rate * tau);
     const pay = isoFromCivil(payments[i]!);
     const { discount, t } = df(curve, pay);
-    return { start: isoFromCivil(starts[i]!), end: pay, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t };
+    return {
+      start: isoFromCivil(starts[i]!), end: pay, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t,
+      accrualEnd: isoFromCivil(end), unadjustedAccrualEnd: isoFromCivil(unadjustedEnds[i]!),
+    };
   });
-  const lag = q.paymentLag === 0 ? 'paid on each accrual end' : `each paid ${q.paymentLag} business day${q.paymentLag === 1 ? '' : 's'} after its accrual end (accrual ends ${ends.map(isoFromCivil).join(', ')})`;
-  return { rows, accrued: 0, note: `fixed leg per 100 notional on the ${q.calendar} calendar, ${q.businessDay}, ${lag}; the floating leg compounds the overnight rate and is not shown` };
+  const lag = q.paymentLag === 0 ? 'paid on each accrual end' : `each paid ${q.paymentLag} business day${q.paymentLag === 1 ? '' : 's'} after its accrual end`;
+  const spot = q.spotLag === 0 ? 'starting on the valuation date' : `starting at spot, ${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after the valuation date`;
+  return { rows, accrued: 0, note: `fixed leg per 100 notional on the ${q.calendar} calendar, ${spot}; accrual ends moved by ${q.businessDay}${q.eom ? ' (end-of-month rule)' : ''}, ${lag}; the floating leg compounds the overnight rate and is not shown` };
 }
 
 /**

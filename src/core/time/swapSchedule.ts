@@ -41,6 +41,8 @@ export interface SwapDates {
   readonly payments: readonly CivilDate[];
   /** The end before the business-day rule (the given maturity, or the start plus the tenor). */
   readonly unadjustedEnd: CivilDate;
+  /** Each period's accrual end before the business-day rule (aligned with `ends`). */
+  readonly unadjustedEnds: readonly CivilDate[];
 }
 
 const PERIODS: Readonly<Record<number, Tenor>> = { 1: { n: 12, unit: 'M' }, 2: { n: 6, unit: 'M' }, 4: { n: 3, unit: 'M' }, 12: { n: 1, unit: 'M' } };
@@ -88,6 +90,7 @@ export function swapDates(settlement: CivilDate, when: { readonly tenor: Tenor }
   const starts: CivilDate[] = [];
   const ends: CivilDate[] = [];
   const payments: CivilDate[] = [];
+  const unadjustedEnds: CivilDate[] = [];
   let from = start;
   for (const d of raw) {
     const endSerial = adjustSerial(serialFromCivil(d), c.businessDay, calendar);
@@ -96,13 +99,14 @@ export function swapDates(settlement: CivilDate, when: { readonly tenor: Tenor }
     const end = civilFromSerial(endSerial);
     starts.push(from);
     ends.push(end);
+    unadjustedEnds.push(d);
     payments.push(civilFromSerial(addBusinessDays(endSerial, c.paymentLag, calendar)));
     from = end;
   }
   if (ends.length === 0) {
     return fail(coreError('before-settlement', `${base}.maturity`, `${base}.maturity: ${isoFromCivil(unadjustedEnd)} adjusts onto the swap's start ${isoFromCivil(start)}; give a later maturity`, index));
   }
-  return ok({ starts, ends, payments, unadjustedEnd });
+  return ok({ starts, ends, payments, unadjustedEnd, unadjustedEnds });
 }
 
 /** ISO text of a swap's dates (schedules shown to the user, tests). */

@@ -96,6 +96,8 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
   if (!quote) return <p className="muted">Row {rowNumber} is not a valid quote yet.</p>;
   if (!schedule) return <p className="muted">Row {rowNumber} is a {quote.kind}: a single flow at {quote.maturity}, no schedule.</p>;
   const dc = 'dayCount' in quote ? quote.dayCount : '';
+  // Periods a calendar moves show their accrual end before and after the business-day rule.
+  const moved = schedule.rows.some((r) => r.accrualEnd !== undefined);
   return (
     <div className="schedule">
       <table className="data" aria-label={`Schedule of row ${rowNumber}`}>
@@ -105,6 +107,8 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
         <thead>
           <tr>
             <th scope="col">Period start</th>
+            {moved && <th scope="col">Accrual end, unadjusted</th>}
+            {moved && <th scope="col">Accrual end, adjusted</th>}
             <th scope="col">Payment date</th>
             <th scope="col">Year fraction ({dc})</th>
             <th scope="col">Cash flow (per 100)</th>
@@ -117,6 +121,8 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
           {schedule.rows.map((r) => (
             <tr key={r.end}>
               <td>{r.start}</td>
+              {moved && <td>{r.unadjustedAccrualEnd}</td>}
+              {moved && <td className={r.unadjustedAccrualEnd !== r.accrualEnd ? 'moved-date' : undefined}>{r.accrualEnd}</td>}
               <td>{r.end}</td>
               <td className="n">{formatNumber(r.yearFraction, 8)}</td>
               <td className="n">{formatNumber(r.cashFlow, 6)}</td>

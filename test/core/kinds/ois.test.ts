@@ -335,7 +335,14 @@ describe('the quote check shows an OIS\'s fixed leg with its adjusted dates', ()
     expectClose(s.rows[1]!.yearFraction, 369 / 360, 1e-15, 'ACT/360 from 2027-04-14 to 2028-04-17: 369 days (2028 a leap year)');
     expectClose(s.rows[1]!.cashFlow, 100 * 0.0369 * (369 / 360), 1e-10, '100 K tau per 100 notional');
     expect(s.note).toMatch(/us-gov-securities/);
-    expect(s.note).toMatch(/2 business days after its accrual end \(accrual ends 2027-04-14, 2028-04-17\)/);
+    expect(s.note).toMatch(/2 business days after its accrual end/);
+    expect(s.note).toMatch(/spot, 2 business days after the valuation date; accrual ends moved by modified-following/);
+    // Each accrual end before and after the rule: 2028-04-14 is Good Friday (closed for settlement,
+    // SIFMA), so modified following moves it to Monday 2028-04-17, still April.
+    expect(s.rows.map((r) => [r.unadjustedAccrualEnd, r.accrualEnd])).toEqual([
+      ['2027-04-14', '2027-04-14'],
+      ['2028-04-14', '2028-04-17'],
+    ]);
   });
 });
 
