@@ -1,6 +1,7 @@
 import type { Curve, Extrapolation } from '../curve/curve.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { KIND_MODULE_LIST, moduleOf } from '../kinds/registry.ts';
+import { KIND_MODULE_LIST, moduleOf, quoteDates } from '../kinds/registry.ts';
+import { compareIso } from '../time/date.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
@@ -199,6 +200,8 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   // document order only when the two differ.
   const byIndex = (a: Repricing, b: Repricing) => a.index - b.index;
   const repricing = outcome.repricing.every((r, i) => i === 0 || outcome.repricing[i - 1]!.index < r.index) ? outcome.repricing : [...outcome.repricing].sort(byIndex);
+  const gap = outcome.curve ? spotGap(ws, market.instruments, settings.interpolation) : null;
+  if (gap) warnings.push(gap);
   return {
     leftOut: base.leftOut,
     workspace: ws,
@@ -209,5 +212,33 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
     warnings: outcome.warnings.length === 0 ? warnings : [...warnings, ...outcome.warnings],
     repricing,
     sweeps: outcome.sweeps,
+  };
+}
+
+/**
+ * The warning for a curve that reaches spot without quotes that link it there: the earliest start
+ * after the valuation date that lies before the curve's first pillar (no ON or TN deposit ends by
+ * then), read off the interpolation's first segment from DF = 1 at the valuation date. Null when
+ * every quote starts on the valuation date or at or after the first pillar.
+ */
+function spotGap(ws: Workspace, instruments: readonly Instrument[], interpolation: InterpolationId): CoreWarning | null {
+  let first: IsoDate | null = null;
+  for (const ins of instruments) if (first === null || compareIso(ins.maturity, first) < 0) first = ins.maturity;
+  if (first === null) return null;
+  const byIndex = new Map(ws.quotes.map((q) => [q.index, q]));
+  let found: { index: number; start: IsoDate } | null = null;
+  for (const ins of instruments) {
+    const q = byIndex.get(ins.index);
+    if (!q) continue;
+    const start = quoteDates(q, ws.settlement).start;
+    if (compareIso(start, ws.settlement) > 0 && compareIso(start, first) < 0 && (found === null || compareIso(start, found.start) < 0)) found = { index: q.index, start };
+  }
+  if (found === null) return null;
+  const rule = interpolation === 'log-linear-discount' ? 'flat at the first forward (log-linear discount)' : `by the ${interpolation} interpolation`;
+  return {
+    path: `quotes[${found.index}]`,
+    quote: found.index,
+    code: 'spot-gap',
+    message: `quotes[${found.index}] starts on ${found.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${first}: the discount factor there is bridged from 1 at the valuation date ${rule}; add ON and TN deposits on the same calendar to link the curve to spot`,
   };
 }
