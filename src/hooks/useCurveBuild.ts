@@ -60,18 +60,19 @@ export function deriveBuild(
   const conversion = toEngineDocument(ws, parseRowCached);
   const build = workbenchBuilder.build(conversion.doc, interpolation ? { skipInvalid: true, interpolation } : { skipInvalid: true });
   const fromEngine = rowIssuesFromEngine(
-    [...build.errors, ...build.warnings.filter((w) => w.code === 'skipped' || w.code === 'negative-forward').map((w) => ({ ...w, message: w.message.replace(/^skipped: /, '') }))],
+    [...build.errors, ...build.warnings.filter((w) => w.code === 'skipped' || w.code === 'negative-forward' || w.code === 'spot-gap').map((w) => ({ ...w, message: w.message.replace(/^skipped: /, '') }))],
     conversion.rowOfQuote,
   );
   // A negative forward is a warning on the quote's value (its rate, or its price when it is quoted
-  // by price), the cell that causes it, not on its kind (where an engine message without a field lands).
+  // by price), the cell that causes it, not on its kind (where an engine message without a field
+  // lands); a spot gap is a warning on the maturity (the tenor that starts at spot).
   for (const w of build.warnings) {
-    if (w.code !== 'negative-forward' || w.quote === null) continue;
+    if ((w.code !== 'negative-forward' && w.code !== 'spot-gap') || w.quote === null) continue;
     const row = conversion.rowOfQuote[w.quote];
     const cur = row === undefined ? undefined : fromEngine.get(row);
     if (row === undefined || !cur?.kind) continue;
     const typed = ws.quotes[row];
-    const cell = typed && typed.rate.trim() !== '' ? 'rate' : typed && typed.price.trim() !== '' ? 'price' : 'kind';
+    const cell = w.code === 'spot-gap' ? 'maturity' : typed && typed.rate.trim() !== '' ? 'rate' : typed && typed.price.trim() !== '' ? 'price' : 'kind';
     const { kind, ...rest } = cur;
     fromEngine.set(row, { ...rest, [cell]: { severity: 'warning', message: kind.message } });
   }

@@ -61,3 +61,16 @@ describe('deriveBuild row issues', () => {
     expect(built.rowIssues.some((issues) => issues.kind !== undefined)).toBe(false);
   });
 });
+
+describe('the spot gap in the sheet', () => {
+  it('a TN deposit with no ON before it is warned about on its maturity cell (it starts the day after valuation, before any pillar); with ON the warning goes', () => {
+    // The demo values on Tuesday 2026-12-15 (invented market); TN on the weekends calendar runs 16 -> 17 December.
+    const tn = { ...demo, quotes: demo.quotes.map((q, i) => (i === 0 ? { ...q, maturity: 'TN' } : q)) };
+    const r = deriveBuild(tn);
+    expect(r.build.curve).not.toBeNull();
+    expect(r.rowIssues[0]!.maturity).toEqual({ severity: 'warning', message: expect.stringMatching(/^row 1 starts on 2026-12-16, after the valuation date 2026-12-15 and before the curve's first pillar 2026-12-17/) });
+    expect(r.rowIssues[0]!.kind).toBeUndefined();
+    const withOn = { ...tn, quotes: [{ ...demo.quotes[0]!, id: 'on', maturity: 'ON' }, ...tn.quotes] };
+    expect(deriveBuild(withOn).rowIssues.some((x) => x.maturity !== undefined)).toBe(false);
+  });
+});
