@@ -60,5 +60,24 @@ describe('overnight and tom-next deposits in the sheet', () => {
     expect(await schedule.locator('caption').innerText()).toMatch(/on the weekends calendar, starting on the valuation date; accrual ends moved by modified-following/);
     await screenshot(page, 'ois-schedule-adjusted-dates');
   });
+
+  it('market conventions "US dollar SOFR" move the OIS row to spot on US government securities days; "Sterling SONIA" shows ACT/365F as the rows\' faint day count', async () => {
+    // Continues from the test above (rows 1-2 ON and T/N, row 14 a 4Y OIS). SOFR: T+2 on the US
+    // government securities calendar, payment lag 2 (MARKET-CONVENTIONS.md d): the 4Y swap starts
+    // Thursday 2026-12-17, and its first accrual end 2027-12-17 (a Friday) pays on Tuesday 2027-12-21.
+    const page = app!.page;
+    await page.getByRole('combobox', { name: 'Market conventions' }).selectOption('usd-sofr');
+    await page.getByRole('table', { name: 'Quote check' }).getByRole('button', { name: '14', exact: true }).click();
+    const schedule = page.getByRole('table', { name: 'Schedule of row 14' });
+    await page.waitForFunction(() => document.querySelector('[aria-label="Schedule of row 14"] caption')?.textContent?.includes('us-gov-securities'));
+    expect(await schedule.locator('caption').innerText()).toMatch(/on the us-gov-securities calendar, starting at spot, 2 business days after the valuation date/);
+    const first = await schedule.locator('tbody tr').first().locator('td').allInnerTexts();
+    expect(first.slice(0, 4)).toEqual(['2026-12-17', '2027-12-17', '2027-12-17', '2027-12-21']);
+    await screenshot(page, 'market-conventions-sofr');
+    await page.getByRole('combobox', { name: 'Market conventions' }).selectOption('gbp-sonia');
+    await page.waitForFunction(() => (document.querySelector('[aria-label="Row 14 Day count"]') as HTMLInputElement | null)?.placeholder === 'ACT/365F');
+    expect(await page.getByRole('textbox', { name: 'Row 14 Day count' }).getAttribute('placeholder')).toBe('ACT/365F');
+    expect(await page.getByRole('textbox', { name: 'Row 15 Day count' }).getAttribute('placeholder')).toBe('30/360'); // a plain swap: no set fills it
+  });
 });
 

@@ -3,7 +3,7 @@ import { validateWorkspace, RESERVED_KEYS } from './validate.ts';
 import type { Quote } from './types.ts';
 import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS } from '../kinds/registry.ts';
 import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from '../input/quoteRow.ts';
-import { DEFAULT_DISPLAY, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
+import { DEFAULT_DISPLAY, isMarketConventions, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
 import { isPlainObject } from './plainObject.ts';
 
 /**
@@ -51,11 +51,15 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
     return row as unknown as QuoteRow;
   });
   const ws = first.workspace;
+  // Quotes naming one market's conventions open with that setting (the sheet's rows of its kinds
+  // take it); the check below refuses the file when that would change any quote.
+  const named = [...new Set(rawQuotes.map((q) => q.conventions).filter((c) => c !== undefined))];
+  const market = named.length === 1 && isMarketConventions(named[0]) && named[0] !== 'none' ? named[0] : null;
   const out: Record<string, unknown> = {
     format: WORKBENCH_FORMAT,
     version: WORKBENCH_VERSION,
     settlement: ws.settlement,
-    curve: { dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation },
+    curve: { dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation, ...(market ? { conventions: market } : {}) },
     quoteUnit: 'decimal',
     quotes,
     display: DEFAULT_DISPLAY,

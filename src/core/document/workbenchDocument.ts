@@ -9,6 +9,15 @@ import { DECIMAL_MARKS, DEFAULT_CONVENTIONS, isDecimalMark, type DecimalMark, ty
 import { DATE_ORDERS, isDateOrder, type DateOrder } from '../input/dateText.ts';
 import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssues, type RowParse } from '../input/quoteRow.ts';
 import { isPlainObject } from './plainObject.ts';
+import { CONVENTION_SETS, conventionSet } from '../kinds/conventionSets.ts';
+import type { QuoteKind } from './types.ts';
+
+/**
+ * The workbench's market conventions (`curve.conventions`): none, or a convention set that fills
+ * deposits and overnight-index swaps (the sheet's rows of those kinds take it).
+ */
+export const MARKET_CONVENTIONS: readonly string[] = ['none', ...CONVENTION_SETS.filter((s) => s.fields.deposit !== undefined || s.fields.ois !== undefined).map((s) => s.id)];
+export const isMarketConventions = (x: unknown): x is string => typeof x === 'string' && MARKET_CONVENTIONS.includes(x);
 
 export const WORKBENCH_FORMAT = 'tenorscope-workbench';
 export const WORKBENCH_VERSION = 1;
@@ -47,7 +56,11 @@ export interface WorkbenchDocument {
   readonly version: typeof WORKBENCH_VERSION;
   /** Settlement date as given (an ISO date when valid). */
   readonly settlement: string;
-  readonly curve: { readonly dayCount: CurveDayCount; readonly interpolation: InterpolationId; readonly extrapolation: Extrapolation };
+  /**
+   * `conventions` (absent: none): a convention set (kinds/conventionSets.ts) every deposit and
+   * overnight-index swap row takes, as the engine document's per-quote `conventions`.
+   */
+  readonly curve: { readonly dayCount: CurveDayCount; readonly interpolation: InterpolationId; readonly extrapolation: Extrapolation; readonly conventions?: string };
   readonly quoteUnit: QuoteUnitMode;
   readonly quotes: readonly QuoteRow[];
   readonly display: DisplaySettings;
@@ -109,11 +122,20 @@ export function toEngineDocument(
       rowOfQuote.push(i);
     } else invalidRows++;
   });
+  const { conventions: market, ...curve } = doc.curve;
+  if (market !== undefined && market !== 'none') {
+    // The workspace's market conventions go on each quote of a kind the set fills (deposits and overnight swaps).
+    const set = conventionSet(market);
+    for (let i = 0; i < quotes.length; i++) {
+      const kind = quotes[i]!.kind as QuoteKind;
+      if (set?.fields[kind] !== undefined) quotes[i] = { ...quotes[i], conventions: market };
+    }
+  }
   const engine: Record<string, unknown> = {
     format: WORKSPACE_FORMAT,
     version: WORKSPACE_VERSION,
     valuationDate: doc.settlement,
-    curve: { ...doc.curve },
+    curve,
     quotes,
   };
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) engine[key] = doc[key];
@@ -174,6 +196,7 @@ const SETTINGS: Readonly<Record<'curve' | 'display', Readonly<Record<string, { v
     dayCount: { values: CURVE_DAY_COUNTS, fallback: 'ACT/365F' },
     interpolation: { values: INTERPOLATIONS, fallback: 'monotone-convex' },
     extrapolation: { values: EXTRAPOLATIONS, fallback: 'none' },
+    conventions: { values: MARKET_CONVENTIONS, fallback: 'none' },
   },
   display: {
     compounding: { values: COMPOUNDINGS, fallback: DEFAULT_DISPLAY.compounding },
@@ -321,6 +344,8 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
       dayCount: pick(curve.dayCount, isCurveDayCount, 'ACT/365F'),
       interpolation: pick(curve.interpolation, isInterpolation, 'monotone-convex'),
       extrapolation: pick(curve.extrapolation, isExtrapolation, 'none'),
+      // Absent stays absent (a document saved before the setting existed reads as it was written).
+      ...(curve.conventions === undefined ? {} : { conventions: pick(curve.conventions, isMarketConventions, 'none') }),
     },
     quoteUnit: pick(raw.quoteUnit, isQuoteUnitMode, 'percent'),
     quotes,

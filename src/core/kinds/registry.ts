@@ -1,5 +1,6 @@
 import { QUOTE_KINDS, type Quote, type QuoteKind } from '../document/types.ts';
 import type { QuoteColumn } from '../input/quoteRow.ts';
+import { conventionSet } from './conventionSets.ts';
 import { BILL } from './bill.ts';
 import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
@@ -53,10 +54,13 @@ export const KIND_HEADER_WORDS: Readonly<Record<string, QuoteColumn>> = Object.f
  * the sheet shows it faintly; undefined for any other column, a kind without that default, or text
  * that is not a kind.
  */
-export function sheetDefault(kindText: string, column: QuoteColumn): string | undefined {
+export function sheetDefault(kindText: string, column: QuoteColumn, conventions?: string): string | undefined {
   const k = kindText.trim().toLowerCase();
   const m = (QUOTE_KIND_MODULES as Readonly<Record<string, QuoteKindModule>>)[k];
   if (m === undefined || !Object.hasOwn(QUOTE_KIND_MODULES, k)) return undefined;
+  // A workspace's market conventions fill the field first, when their set fills it for this kind.
+  const filled = conventions === undefined ? undefined : conventionSet(conventions)?.fields[k as QuoteKind]?.[column];
+  if (filled !== undefined) return String(filled);
   const d = m.schema.defaults;
   if (column === 'frequency') return d.frequency === undefined ? undefined : String(d.frequency);
   if (column === 'dayCount') return d.dayCount;

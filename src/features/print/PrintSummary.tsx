@@ -27,6 +27,8 @@ export interface PrintSummaryProps {
   readonly curveDayCount: string;
   readonly interpolation: string;
   readonly extrapolation: string;
+  /** The market conventions of the deposit and OIS rows (a convention set's title), absent when none. */
+  readonly marketConventions?: string;
   /** The zero-rate chart and the forward chart, drawn by the workbench. */
   readonly zeroChart: ReactNode;
   readonly forwardChart: ReactNode;
@@ -78,6 +80,7 @@ export function PrintSummary(p: PrintSummaryProps) {
           <h1>{p.title}</h1>
           <p className="ps-settings">
             Settlement <strong>{p.settlement}</strong> · curve day count {p.curveDayCount} · {methodWords(p.interpolation)} interpolation · {p.extrapolation === 'none' ? 'no extrapolation past the last pillar' : p.extrapolation === 'flat-forward' ? 'flat-forward extrapolation' : `extrapolation ${p.extrapolation}`}
+            {p.marketConventions ? <> · deposits and OIS on {p.marketConventions} conventions</> : null}
           </p>
         </div>
         <dl className="ps-trace">

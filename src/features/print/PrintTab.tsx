@@ -1,7 +1,7 @@
 import { useMemo, type ReactNode } from 'react';
 import { applyScenario } from '../../core/index.ts';
 import { validateScenarios, workspaceHash } from '../../core/index.ts';
-import { rateTag } from '../../core/index.ts';
+import { conventionSet, rateTag } from '../../core/index.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
@@ -75,6 +75,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null }: { result: W
       curveDayCount={ws.curve.dayCount}
       interpolation={ws.curve.interpolation}
       extrapolation={ws.curve.extrapolation}
+      {...(doc.curve.conventions && doc.curve.conventions !== 'none' ? { marketConventions: conventionSet(doc.curve.conventions)?.title.replace(/: .*/, '') ?? doc.curve.conventions } : {})}
       rollResult={rollResult}
       producedAt={new Date()}
       buildId={BUILD_ID}

@@ -42,7 +42,7 @@ const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
 };
 
 /** The engine's default for an empty frequency or day-count cell of a kind (its module's schema defaults), shown faintly. */
-const defaultFor = (kind: string, c: QuoteColumn): string | undefined => sheetDefault(kind, c);
+const defaultFor = (kind: string, c: QuoteColumn, market: string | undefined): string | undefined => sheetDefault(kind, c, market);
 
 /** A row's messages, one per cell with an issue, in column order (shown on a line under the row). */
 const rowMessages = (issues: RowIssues) => QUOTE_COLUMNS.flatMap((c) => (issues[c] ? [{ c, ...issues[c] }] : []));
@@ -59,6 +59,8 @@ interface RowViewProps {
   readonly unit: QuoteUnitMode;
   readonly selected: boolean;
   readonly inCurve: boolean;
+  /** The workspace's market conventions (a convention set id), whose fields the faint defaults show. */
+  readonly market: string | undefined;
 }
 
 /**
@@ -134,7 +136,7 @@ function showRowDetails(rowId: string): void {
 }
 
 const QuoteRowView = memo(
-  function QuoteRowView({ row, index, issues, unit, selected, inCurve }: RowViewProps) {
+  function QuoteRowView({ row, index, issues, unit, selected, inCurve, market }: RowViewProps) {
     const setRowEnabled = useAppStore((s) => s.setRowEnabled);
     const deleteRow = useAppStore((s) => s.deleteRow);
     const addRow = useAppStore((s) => s.addRow);
@@ -163,7 +165,7 @@ const QuoteRowView = memo(
               value={row[c]}
               severity={issues[c]?.severity ?? null}
               message={issues[c]?.message ?? null}
-              placeholder={blank ? PLACEHOLDER[c] : defaultFor(row.kind, c)}
+              placeholder={blank ? PLACEHOLDER[c] : defaultFor(row.kind, c, market)}
               msgId={msgId}
             />
           ))}
@@ -190,7 +192,7 @@ const QuoteRowView = memo(
       </>
     );
   },
-  (a, b) => a.row === b.row && a.index === b.index && a.unit === b.unit && a.selected === b.selected && a.inCurve === b.inCurve && issuesEqual(a.issues, b.issues),
+  (a, b) => a.row === b.row && a.index === b.index && a.unit === b.unit && a.selected === b.selected && a.inCurve === b.inCurve && a.market === b.market && issuesEqual(a.issues, b.issues),
 );
 
 /**
@@ -201,6 +203,7 @@ const QuoteRowView = memo(
 export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const rows = useAppStore((s) => s.workspace.quotes);
   const unit = useAppStore((s) => s.workspace.quoteUnit);
+  const market = useAppStore((s) => s.workspace.curve.conventions);
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
@@ -543,7 +546,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
                   ]
                 : rows.slice(part.from, part.to).map((row, k) => {
                     const i = part.from + k;
-                    return <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} />;
+                    return <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} market={market} />;
                   }),
             )}
           </tbody>

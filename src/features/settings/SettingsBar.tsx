@@ -1,7 +1,9 @@
 import { memo, useEffect, useState } from 'react';
 import {
   COMPOUNDINGS,
+  conventionSet,
   CURVE_DAY_COUNTS,
+  MARKET_CONVENTIONS,
   EXTRAPOLATIONS,
   INTERPOLATIONS,
   INTERPOLATORS,
@@ -96,6 +98,17 @@ export const SettingsBar = memo(function SettingsBar() {
             {INTERPOLATIONS.map((m) => (
               <option key={m} value={m}>
                 {INTERPOLATORS[m].label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label title="Calendar, spot lag, business-day rule, payment lag and day counts for the deposit and OIS rows">
+          Market conventions
+          <select value={curve.conventions ?? 'none'} onChange={(e) => setCurve({ conventions: e.target.value })}>
+            {unknownOption(MARKET_CONVENTIONS, curve.conventions ?? 'none')}
+            {MARKET_CONVENTIONS.map((id) => (
+              <option key={id} value={id}>
+                {id === 'none' ? 'None (unadjusted, from settlement)' : (conventionSet(id)?.title.replace(/: .*/, '') ?? id)}
               </option>
             ))}
           </select>

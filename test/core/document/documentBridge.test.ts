@@ -5,7 +5,7 @@
 import { README_DOCUMENT } from '../../helpers/readmeDocument.ts';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { buildCurve, engineFromAnyDocument, toEngineDocument, workbenchFromEngine, type Curve } from '../../../src/core/index.ts';
+import { buildCurve, engineFromAnyDocument, toEngineDocument, unknownSettings, workbenchFromEngine, type Curve } from '../../../src/core/index.ts';
 import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
 
 const fixture = (p: string) => JSON.parse(readFileSync(new URL(`../../fixtures/${p}`, import.meta.url), 'utf8')) as Record<string, unknown>;
@@ -91,5 +91,40 @@ describe('engineFromAnyDocument(document)', () => {
     const wb = workbenchFromEngine(once, id);
     if (!wb.ok) throw new Error(JSON.stringify(wb.errors));
     sameCurve(buildCurve(once).curve!, buildCurve(toEngineDocument(wb.value).doc).curve!);
+  });
+});
+
+describe('market conventions of the workbench (curve.conventions)', () => {
+  // The set's fields are MARKET-CONVENTIONS.md section d's (see test/core/kinds/conventionSets.test.ts).
+  const wb = (conventions?: string) => {
+    const d = demoWorkspace(id);
+    const quotes = d.quotes.map((q, i) => (i === 13 ? { ...q, kind: 'ois', maturity: '4Y', rate: '3.85' } : q));
+    return { ...d, quotes, curve: { ...d.curve, ...(conventions === undefined ? {} : { conventions }) } };
+  };
+  it('goes on every deposit and overnight-swap quote of the engine document, and not into its curve settings', () => {
+    const e = toEngineDocument(wb('usd-sofr')).doc as { curve: Record<string, unknown>; quotes: Record<string, unknown>[] };
+    expect(e.curve).not.toHaveProperty('conventions');
+    for (const q of e.quotes) expect(q.conventions, String(q.kind)).toBe(q.kind === 'deposit' || q.kind === 'ois' ? 'usd-sofr' : undefined);
+    const none = toEngineDocument(wb('none')).doc as { quotes: Record<string, unknown>[] };
+    expect(none.quotes.some((q) => 'conventions' in q)).toBe(false);
+    expect(toEngineDocument(wb()).doc).toEqual(toEngineDocument(wb('none')).doc);
+  });
+  it('moves the deposits to spot: the 1W deposit runs from 2026-12-17 (T+2 on US government securities days) to 2026-12-24', () => {
+    const b = buildCurve(toEngineDocument(wb('usd-sofr')).doc, { skipInvalid: true });
+    expect(b.errors).toEqual([]);
+    expect(b.workspace!.quotes[0]).toMatchObject({ kind: 'deposit', start: '2026-12-17', maturity: '2026-12-24', calendar: 'us-gov-securities', spotLag: 2 });
+    for (const r of b.repricing) expect(Math.abs(r.repricingError)).toBeLessThanOrEqual(r.unit === 'price' ? 1e-11 : 1e-14);
+  });
+  it('an engine document whose deposits and swaps all name one set opens with that setting and the same curve; mixed sets are refused', () => {
+    const engine = toEngineDocument(wb('eur-estr')).doc;
+    const back = workbenchFromEngine(engine, id);
+    if (!back.ok) throw new Error(JSON.stringify(back.errors));
+    expect(back.value.curve.conventions).toBe('eur-estr');
+    sameCurve(buildCurve(engine).curve!, buildCurve(toEngineDocument(back.value).doc).curve!);
+    const mixed = { ...engine, quotes: (engine.quotes as Record<string, unknown>[]).map((q, i) => (i === 0 ? { ...q, conventions: 'gbp-sonia' } : q)) };
+    expect(workbenchFromEngine(mixed, id).ok).toBe(false);
+  });
+  it('a set this build does not know opens the document read-only (an unknown setting), never as none', () => {
+    expect(unknownSettings({ ...wb('jpy-tona'), curve: { ...wb().curve, conventions: 'jpy-tona' } })).toContainEqual(expect.objectContaining({ path: 'curve.conventions', value: '"jpy-tona"', fallback: 'none' }));
   });
 });
