@@ -23,7 +23,8 @@ export interface PasteReaderDone {
 
 /** The page's part of a big paste: the preview of the kept rows, and how many rows were not kept (of `count` in the block, header included). */
 function readSplit(block: PastedBlock, count: number, request: PasteReaderRequest): PasteReaderDone {
-  const total = block.header ? count - 1 : count;
+  // A par curve by tenor gives one row per tenor of the row it uses (tenorColumns.ts), whatever the paste's length.
+  const total = block.byTenor ? block.rows.length : block.header ? count - 1 : count;
   const kept = block.header ? block.rows.length : block.cells.length;
   const dropped = Math.max(0, total - kept);
   return { block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions, total) : null, refusal: null, dropped };
