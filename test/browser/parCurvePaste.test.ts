@@ -39,6 +39,14 @@ describe('a par curve pasted by tenor in Chromium', () => {
     await page.getByRole('button', { name: 'Replace the sheet' }).click();
     await page.getByText('13 quotes in the curve').waitFor();
     await screenshot(page, 'par-curve-pasted');
+    // The quote check tags each par yield with its convention and shows the par bond's schedule.
+    await page.getByRole('tab', { name: 'Quote check' }).click();
+    const check = await page.getByRole('tabpanel').filter({ hasText: 'par-yield' }).first().innerText();
+    expect(check).toContain('s.a., ACT/ACT-ICMA');
+    // Row 9 (5Y): the par bond's ten coupons of 2.145 per 100 and 100 at maturity.
+    await page.getByRole('tabpanel').getByRole('button', { name: '9', exact: true }).or(page.getByRole('tabpanel').getByRole('link', { name: '9', exact: true })).first().click();
+    await page.getByText(/a par bond: coupon 4\.2900% \(s\.a\., ACT\/ACT-ICMA\) = the par yield/).waitFor();
+    await screenshot(page, 'par-curve-quote-check');
     expect(diagnostics(page).pageErrors).toEqual([]);
   });
 });

@@ -6,6 +6,8 @@
 // date from the page's date order, the yields as published).
 import { fireEvent, render, screen, within } from '@testing-library/react';
 import { App } from '../../src/app/App.tsx';
+import { DEFAULT_CONVENTIONS, pasteQuoteCap, readSplitBlock } from '../../src/core/index.ts';
+import { readSplit } from '../../src/features/quotes/pasteReader.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { useWorkspaceList } from '../../src/state/workspaceList.ts';
 
@@ -44,5 +46,16 @@ describe('pasting a par curve laid out by tenor', () => {
     expect(screen.getByRole('textbox', { name: 'Row 1 Kind' })).toHaveValue('par-yield');
     expect(screen.getByRole('textbox', { name: 'Row 13 Maturity' })).toHaveValue('30Y');
     expect(screen.getByRole('textbox', { name: 'Row 13 Rate / yield' })).toHaveValue('4.29%');
+  });
+});
+
+describe('a par curve by tenor pasted big enough for the reading worker', () => {
+  it('says that the row used is the last of the rows read, not the paste\'s last', () => {
+    const [head, row] = TREASURY_2023_09_01.split('\n').map((l) => l.split('\t'));
+    // The worker keeps the header and the first pasteQuoteCap() rows of a paste of 700 rows.
+    const cells = [head!, ...Array.from({ length: pasteQuoteCap() }, () => [...row!])];
+    const done = readSplit(readSplitBlock({ cells, separator: '\t' }), 701, { text: '', mode: 'percent', existing: 0, conventions: DEFAULT_CONVENTIONS });
+    expect(done.preview!.rows).toBe(13);
+    expect(done.block.notes!.at(-1)).toBe(`The paste has 700 rows under the header and only the first ${pasteQuoteCap()} were read: the row used is the last of those, not the paste's last row. Paste fewer rows to use another.`);
   });
 });
