@@ -4,8 +4,9 @@
 //   par = f (1 - D(n)) / sum_{k=1..f n} D(k/f)           (coupon dates on the cycle)
 // and, at one year or less, the zero-coupon bond-equivalent yield y = f (D^(-1/n) - 1) over n coupon
 // periods (the spot rate of the par-to-zero recursion; MARKET-CONVENTIONS g, Fabozzi-style texts).
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { buildCurve, compileQuote, INTERPOLATIONS, quoteSchedule, shiftQuote, validateWorkspace, type Curve } from '../../../src/core/index.ts';
+import { addDays, buildCurve, compileQuote, CURVE_DAY_COUNTS, DAY_COUNTS, INTERPOLATIONS, isoFromSerial, quoteSchedule, serialFromIso, shiftQuote, validateWorkspace, type Curve } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 import { workspaceDoc } from '../../helpers/markets.ts';
 
@@ -221,4 +222,44 @@ describe('the par-yield kind', () => {
     const moved = shiftQuote(q, 0.0025, SETTLEMENT);
     expect(moved.ok && (moved.value as { yield: number }).yield).toBeCloseTo(0.0435, 15);
   });
+});
+
+describe('random par-yield markets reprice within 1e-14 under every interpolation (the repricing property)', () => {
+  // The engine contract of test/core/bootstrap/properties.test.ts (every rate quote within 1e-14,
+  // every interpolation) on random par curves: any settlement 2020-2035 (month ends and leap days
+  // included), any curve day count, frequency 1, 2, 4 or 12, any bond day count, the Treasury
+  // tenors or a subset, plus up to two maturities off the coupon cycle (accrued interest), on a
+  // smooth random curve plus noise (invented test data). Fixed seed.
+  const SEED = 20261203;
+  const TENORS = ['1M', '2M', '3M', '4M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '20Y', '30Y'];
+  const arb = fc.record({
+    serial: fc.integer({ min: serialFromIso('2020-01-01'), max: serialFromIso('2035-12-31') }),
+    curveDayCount: fc.constantFrom(...CURVE_DAY_COUNTS),
+    frequency: fc.constantFrom(1, 2, 4, 12),
+    dayCount: fc.constantFrom(...DAY_COUNTS),
+    level: fc.double({ min: -0.005, max: 0.07, noNaN: true }),
+    slope: fc.double({ min: -0.02, max: 0.03, noNaN: true }),
+    tenors: fc.subarray(TENORS, { minLength: 1 }),
+    offCycle: fc.array(fc.integer({ min: 400, max: 9000 }), { maxLength: 2 }),
+    noise: fc.array(fc.double({ min: -0.0005, max: 0.0005, noNaN: true }), { minLength: 15, maxLength: 15 }),
+  });
+  const years = (tenor: string): number => Number.parseInt(tenor, 10) / (tenor.endsWith('Y') ? 1 : 12);
+  for (const interpolation of INTERPOLATIONS) {
+    it(interpolation, () => {
+      fc.assert(
+        fc.property(arb, (g) => {
+          const settlement = isoFromSerial(g.serial);
+          const y = (t: number, i: number): number => g.level + g.slope * (1 - Math.exp(-t / 3)) + g.noise[i % 15]!;
+          const quotes: Record<string, string | number>[] = g.tenors.map((tenor, i) => ({ kind: 'par-yield', tenor, yield: y(years(tenor), i), frequency: g.frequency, dayCount: g.dayCount }));
+          g.offCycle.forEach((days, i) => quotes.push({ kind: 'par-yield', maturity: addDays(settlement, days), yield: y(days / 365, 13 + i), frequency: g.frequency, dayCount: g.dayCount }));
+          const build = buildCurve(workspaceDoc(quotes, { settlement, dayCount: g.curveDayCount, interpolation }));
+          // A maturity drawn on a tenor's date is refused as a duplicate pillar; monotone-convex-positive refuses negative forwards (by contract).
+          if (build.errors.length > 0 && build.errors.every((e) => /same point of the curve|needs positive forwards/.test(e.message))) return;
+          expect(build.errors).toEqual([]);
+          for (const r of build.repricing) expect(Math.abs(r.repricingError), `quotes[${r.index}] ${r.maturity}`).toBeLessThanOrEqual(1e-14);
+        }),
+        { seed: SEED, numRuns: interpolation === 'cubic-zero' || interpolation.startsWith('monotone') ? 30 : 60, endOnFailure: true },
+      );
+    }, 120_000);
+  }
 });
