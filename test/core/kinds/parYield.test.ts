@@ -6,7 +6,7 @@
 // periods (the spot rate of the par-to-zero recursion; MARKET-CONVENTIONS g, Fabozzi-style texts).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { addDays, buildCurve, compileQuote, CURVE_DAY_COUNTS, DAY_COUNTS, INTERPOLATIONS, isoFromSerial, quoteSchedule, serialFromIso, shiftQuote, validateWorkspace, type Curve } from '../../../src/core/index.ts';
+import { addDays, buildCurve, fitCurve, compileQuote, CURVE_DAY_COUNTS, DAY_COUNTS, INTERPOLATIONS, isoFromSerial, quoteSchedule, serialFromIso, shiftQuote, validateWorkspace, type Curve } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 import { workspaceDoc } from '../../helpers/markets.ts';
 
@@ -132,6 +132,35 @@ describe('par-yield against the Federal Reserve GSW curve (feds200628, 2026-02-0
         const iso = plusMonths(GSW_SETTLEMENT, 6 * n);
         const t = curve.time(iso);
         expectClose(-lnDf(curve, iso) / t, svenssonZero(t), 1e-10, `GSW feds200628 2026-02-06 Svensson zero at ${iso} (${interpolation})`);
+      }
+    }
+  });
+
+  it('a Svensson fit of the GSW curve\'s own par yields at whole years gives back the GSW zeros (0.05 bp), in yield and in price', () => {
+    // The par yields of the GSW Svensson curve at 1..30 years (its own identity, on the curve's
+    // ACT/365F axis); 1Y as a zero's bond-equivalent yield, the kind's rule at one year. A Svensson
+    // fit of them weighs each par-yield quote by its own dollar duration (fit part of the kind).
+    const probe = buildCurve(workspaceDoc([{ kind: 'zero', tenor: '1Y', rate: 0.03 }], { settlement: GSW_SETTLEMENT })).curve!;
+    const D = (k: number): number => {
+      const t = probe.time(plusMonths(GSW_SETTLEMENT, 6 * k));
+      return Math.exp(-svenssonZero(t) * t);
+    };
+    const quotes = [];
+    for (let n = 1; n <= 30; n++) {
+      let a = 0;
+      for (let k = 1; k <= 2 * n; k++) a += D(k);
+      quotes.push({ kind: 'par-yield', tenor: `${n}Y`, yield: n === 1 ? 2 * (D(2) ** (-1 / 2) - 1) : (2 * (1 - D(2 * n))) / a });
+    }
+    const ws = validateWorkspace(workspaceDoc(quotes, { settlement: GSW_SETTLEMENT })).workspace!;
+    for (const errors of ['yield', 'price'] as const) {
+      const fit = fitCurve(ws, { model: 'svensson', errors });
+      expect(fit.ok).toBe(true);
+      if (!fit.ok) continue;
+      for (const r of fit.value.residuals) expect(Math.abs(r.modelYield - r.marketYield), `${errors} quotes[${r.index}]`).toBeLessThanOrEqual(0.05e-4);
+      for (let n = 1; n <= 30; n++) {
+        const iso = plusMonths(GSW_SETTLEMENT, 12 * n);
+        const t = fit.value.curve.time(iso);
+        expectClose(-fit.value.curve.lnDiscountAt(t) / t, svenssonZero(t), 0.05e-4, `GSW feds200628 2026-02-06 Svensson zero at ${n}Y, refitted from its par yields (${errors} errors)`);
       }
     }
   });
