@@ -4,9 +4,11 @@ import { bondDirtyFromYield, bondScheduleCivil, type YieldSchedule } from './bon
 import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
 
 /**
- * A government par yield's theoretical security (US Treasury par yield curve: "the yields at any
- * point on the yield curve are consistent with a semiannual coupon security ... bond-equivalent
- * yields"; treasury.gov yield curve FAQ and methodology pages).
+ * A government par yield's theoretical security. US Treasury: par yields "on a bond-equivalent
+ * basis ... consistent with a semiannual coupon security with that amount of time remaining to
+ * maturity" (the Treasury's yield curve FAQ, as quoted in public code; treasury.gov not read here);
+ * the curve's inputs are bills' bond-equivalent yields and notes and bonds near par (Treasury's
+ * yield curve methodology page).
  *
  * The schedule is a bond's (instruments/bond.ts `bondScheduleCivil`): coupon dates every
  * 12/frequency months back from the maturity, unadjusted, the end-of-month rule when the maturity
