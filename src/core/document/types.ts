@@ -7,7 +7,7 @@ import type { Extrapolation } from '../curve/curve.ts';
 import type { FitModel } from '../fit/parametricForm.ts';
 
 /** Quote kinds the engine bootstraps from. */
-export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap', 'ois'] as const;
+export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap', 'ois', 'par-yield'] as const;
 export type QuoteKind = (typeof QUOTE_KINDS)[number];
 
 /** Fields every validated quote carries. `maturity` is resolved from `tenor` when one was given. */
@@ -98,7 +98,22 @@ export interface OisQuote extends QuoteCommon {
   /** The workspace's own calendars and edits its dates are made on (absent: the built-ins as published). */
   readonly calendars?: CalendarContext;
 }
-export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote;
+/**
+ * A government par yield (kinds/parYield.ts, instruments/parYield.ts): `yield` (decimal) of a
+ * theoretical security maturing on `maturity`, compounded `frequency` times a year (default 2) on
+ * `dayCount` (default ACT/ACT-ICMA). Above one year (more than `frequency` coupon periods) a par
+ * bond: coupon = yield, clean price 100, coupons every 12/frequency months back from maturity,
+ * unadjusted. At one year or less a zero-coupon bond-equivalent yield: DF = (1 + y/f)^-n over n
+ * coupon periods. `eom` is not a document field: true when the maturity is a month end, as for a bond.
+ */
+export interface ParYieldQuote extends QuoteCommon {
+  readonly kind: 'par-yield';
+  readonly yield: number;
+  readonly frequency: number;
+  readonly dayCount: DayCount;
+  readonly eom: boolean;
+}
+export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote | ParYieldQuote;
 
 export interface CurveSettings {
   readonly dayCount: CurveDayCount;

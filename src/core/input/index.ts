@@ -10,3 +10,4 @@ export * from './pasteTable.ts';
 export * from './quoteSchedule.ts';
 export * from './dateText.ts';
 export * from './conventions.ts';
+export * from './tenorColumns.ts';

@@ -6,6 +6,7 @@ import { QUOTE_COLUMNS, parseRow, type QuoteColumn, type RowText } from './quote
 import type { QuoteUnitMode } from './quoteText.ts';
 import { DEFAULT_CONVENTIONS, type InputConventions } from './conventions.ts';
 import { splitTable, type PasteDelimiter, type SplitTable } from './splitTable.ts';
+import { readTenorColumns } from './tenorColumns.ts';
 
 /**
  * Header words (case-, space- and punctuation-insensitive) and the sheet column each maps to:
@@ -62,6 +63,8 @@ export interface ColumnReading {
   readonly reason: string;
   /** Up to three values of the column, as pasted. */
   readonly sample: readonly string[];
+  /** What the column is read as when no sheet column says it (a par curve's tenor, its date column): "par yield 5Y", "date (reported only)". */
+  readonly readAs?: string;
 }
 
 export interface PastedBlock {
@@ -77,6 +80,10 @@ export interface PastedBlock {
   readonly columns: readonly ColumnReading[];
   /** The delimiter the block was split on. */
   readonly separator: PasteDelimiter;
+  /** True for a par curve laid out by tenor (tenorColumns.ts): `rows` are one per tenor of the row used. */
+  readonly byTenor?: boolean;
+  /** What was read, in words, for the preview (a par curve by tenor: its date, the row used, tenors skipped). */
+  readonly notes?: readonly string[];
 }
 
 /**
@@ -85,7 +92,9 @@ export interface PastedBlock {
  * term, date; rate: rate, yield, yld, ytm; price: price, px, clean price; coupon: coupon, cpn;
  * frequency: freq; day count: basis, dcc; and mid, quote, last, close, bid, ask read as rate or
  * price by their values) and none of its cells is a number. A column named twice is read from
- * its first occurrence; the later ones are listed as ignored.
+ * its first occurrence; the later ones are listed as ignored. A first row of tenors (`1 Mo, 3 Mo,
+ * 1 Yr, 10 Yr`, or `1M 3M 1Y`, optionally after a Date column) is a published par curve by tenor
+ * instead: its last row becomes one par-yield quote per tenor (`readTenorColumns`, tenorColumns.ts).
  */
 export function readPastedBlock(text: string): PastedBlock {
   return readSplitBlock(splitTable(text));
@@ -93,6 +102,14 @@ export function readPastedBlock(text: string): PastedBlock {
 
 /** readPastedBlock on a table already split (by the reading worker, for a big paste). */
 export function readSplitBlock({ cells, separator }: SplitTable): PastedBlock {
+  const byTenor = readTenorColumns(cells);
+  if (byTenor) {
+    const columns = byTenor.columns.map((c): ColumnReading => {
+      const readAs = c.tenor === 'date' ? 'date (reported only)' : c.tenor === null ? undefined : `par yield ${c.tenor}`;
+      return { header: c.header, column: c.tenor === null || c.tenor === 'date' ? null : 'rate', reason: c.reason, sample: c.sample, ...(readAs ? { readAs } : {}) };
+    });
+    return { header: true, rows: byTenor.rows, cells: [], ignored: byTenor.ignored, columns, separator, byTenor: true, notes: byTenor.notes };
+  }
   const first = cells[0] ?? [];
   const looksNumeric = first.some((c) => /^[\s+\-\u2212]?\d/.test(c));
   const header = !looksNumeric && first.some((c) => headerColumn(c) !== null);

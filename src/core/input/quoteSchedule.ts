@@ -4,7 +4,10 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, DepositQuote, OisQuote, SwapQuote } from '../document/types.ts';
+import type { BondQuote, DepositQuote, OisQuote, ParYieldQuote, SwapQuote } from '../document/types.ts';
+import { parYieldSchedule } from '../instruments/parYield.ts';
+import { formatRate } from '../format/quantities.ts';
+import { couponTag } from '../format/conventionTag.ts';
 import { oisDates } from '../instruments/ois.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
 import { yearFractionCivil } from '../time/dayCount.ts';
@@ -121,4 +124,33 @@ export function depositScheduleRows(q: DepositQuote, _settlement: IsoDate, curve
   const rows = [{ start: q.start, end: q.maturity, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t }];
   const on = q.calendar === null ? 'from settlement, dates unadjusted' : `on the ${q.calendar} calendar${q.spotLag ? `, spot ${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after settlement` : ''}`;
   return { rows, accrued: 0, note: `deposit per 100 placed on ${q.start}, repaid with interest on ${q.maturity}; ${on}` };
+}
+
+/**
+ * A par yield's theoretical security (instruments/parYield.ts). Above one year the par bond:
+ * coupon 100 y / f per 100 face on each coupon date back from maturity (year fraction on the day
+ * count, as a bond's), plus 100 at maturity, against clean 100 plus accrued interest. At one year
+ * or less one flow of 100 at maturity, its year-fraction column the coupon periods n over f, DF
+ * (1 + y/f)^-n. Coupon dates between quoted maturities are read off the curve's interpolation.
+ */
+export function parYieldScheduleRows(q: ParYieldQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const s = parYieldSchedule(q, settlement);
+  if (s.zero) {
+    const { discount, t } = df(curve, q.maturity);
+    const rows = [{ start: settlement, end: q.maturity, yearFraction: s.periods / q.frequency, cashFlow: 100, discount, presentValue: discount === null ? null : 100 * discount, t }];
+    return { rows, accrued: 0, note: `one year or less: a zero-coupon bond-equivalent yield, DF = (1 + y/${q.frequency})^-n over n = ${formatNumber(s.periods, 6)} coupon periods on ${q.dayCount}` };
+  }
+  let start = s.previousIso;
+  const c = (100 * q.yield) / q.frequency;
+  const rows = s.isoDates.map((end, i) => {
+    const ctx = { termination: q.maturity, eom: q.eom, refStart: start, refEnd: end, frequency: q.frequency };
+    const yf = yearFraction(q.dayCount, start, end, ctx);
+    const cashFlow = money(i === s.isoDates.length - 1 ? c + 100 : c);
+    const { discount, t } = df(curve, end);
+    const row: ScheduleRow = { start, end, yearFraction: yf, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t };
+    start = end;
+    return row;
+  });
+  const accrued = 100 * q.yield * s.accrualFraction;
+  return { rows, accrued, note: `a par bond: coupon ${formatRate(q.yield, couponTag(q.frequency, q.dayCount))} = the par yield, clean price 100, coupon dates unadjusted back from maturity; accrued interest ${formatNumber(accrued, 6)} per 100 face; discount factors on coupon dates between quoted maturities come from the curve's interpolation` };
 }

@@ -90,7 +90,7 @@ export function readFrequency(raw: RawQuote, fallback: number, base: string, ind
   const v = raw.frequency;
   if (v === undefined) return fallback;
   if (typeof v === 'number' && (FREQUENCIES as readonly number[]).includes(v)) return v;
-  errors.push(coreError(typeof v === 'number' ? 'range' : 'schema', `${base}.frequency`, `${base}.frequency: must be one of ${listOf(FREQUENCIES)} payments a year, not ${typeName(v)}`, index));
+  errors.push(coreError(typeof v === 'number' ? 'range' : 'schema', `${base}.frequency`, `${base}.frequency: must be one of ${listOf(FREQUENCIES)} payments a year, not ${typeof v === 'number' ? String(v) : typeName(v)}`, index));
   return null;
 }
 

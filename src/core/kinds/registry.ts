@@ -5,6 +5,7 @@ import { BILL } from './bill.ts';
 import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
 import { OIS } from './ois.ts';
+import { PAR_YIELD } from './parYield.ts';
 import { SWAP } from './swap.ts';
 import type { FixedLegConvention, QuoteConvention, QuoteDates, QuoteKindModule } from './types.ts';
 import type { Curve } from '../curve/curve.ts';
@@ -20,6 +21,7 @@ export const QUOTE_KIND_MODULES: { readonly [K in QuoteKind]: QuoteKindModule<Ex
   bond: BOND,
   swap: SWAP,
   ois: OIS,
+  'par-yield': PAR_YIELD,
 };
 
 /** The modules in QUOTE_KINDS order (the order kinds are listed in messages). */

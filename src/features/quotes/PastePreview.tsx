@@ -45,15 +45,22 @@ export function PastePreview() {
         </thead>
         <tbody>
           {block.columns.map((c, i) => (
-            <tr key={i} className={c.column ? '' : 'ignored'}>
+            <tr key={i} className={c.column || c.readAs ? '' : 'ignored'}>
               <td>{c.header === '' ? <em>(no header)</em> : c.header}</td>
-              <td>{c.column ? QUOTE_COLUMN_LABEL[c.column] : 'ignored'}</td>
+              <td>{c.readAs ?? (c.column ? QUOTE_COLUMN_LABEL[c.column] : 'ignored')}</td>
               <td>{c.reason}</td>
               <td className="sample">{c.sample.join(' · ')}</td>
             </tr>
           ))}
         </tbody>
       </table>
+      {block.notes && block.notes.length > 0 ? (
+        <ul className="paste-notes" aria-label="What the paste read">
+          {block.notes.map((n, i) => (
+            <li key={i}>{n}</li>
+          ))}
+        </ul>
+      ) : null}
       {preview.leftOut > 0 && !preview.refusal ? (
         <p className="left-out" role="note">
           The paste has {formatCount(preview.rows)} rows and a workspace holds at most {pasteQuoteCap()} quotes: replacing keeps the first {formatCount(preview.rows - preview.leftOut)} and leaves out {formatCount(preview.leftOut)}

@@ -22,10 +22,16 @@ export interface PasteReaderDone {
 }
 
 /** The page's part of a big paste: the preview of the kept rows, and how many rows were not kept (of `count` in the block, header included). */
-function readSplit(block: PastedBlock, count: number, request: PasteReaderRequest): PasteReaderDone {
-  const total = block.header ? count - 1 : count;
+export function readSplit(block: PastedBlock, count: number, request: PasteReaderRequest): PasteReaderDone {
+  // A par curve by tenor gives one row per tenor of the row it uses (tenorColumns.ts), whatever the paste's length.
+  const total = block.byTenor ? block.rows.length : block.header ? count - 1 : count;
   const kept = block.header ? block.rows.length : block.cells.length;
   const dropped = Math.max(0, total - kept);
+  if (block.byTenor && count > pasteQuoteCap() + 1) {
+    // The worker keeps the first rows only: the row used is the last of those, not the paste's last.
+    const notes = [...(block.notes ?? []), `The paste has ${count - 1} rows under the header and only the first ${pasteQuoteCap()} were read: the row used is the last of those, not the paste's last row. Paste fewer rows to use another.`];
+    block = { ...block, notes };
+  }
   return { block, preview: block.header ? previewPaste(block, request.mode, request.existing, request.conventions, total) : null, refusal: null, dropped };
 }
 

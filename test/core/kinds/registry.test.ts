@@ -62,6 +62,12 @@ const EXAMPLES = {
     { kind: 'ois', tenor: '5Y', rate: 0.0331 },
     { kind: 'ois', tenor: '18M', rate: 0.0301, frequency: 1, dayCount: 'ACT/365F' },
   ],
+  'par-yield': [
+    // Above one year a par bond; at one year or less a zero-coupon bond-equivalent yield.
+    { kind: 'par-yield', tenor: '10Y', yield: 0.0412 },
+    { kind: 'par-yield', tenor: '3M', yield: 0.0395 },
+    { kind: 'par-yield', maturity: '2033-05-15', yield: 0.0421, frequency: 2, dayCount: '30/360' },
+  ],
 } satisfies Record<QuoteKind, readonly Record<string, string | number>[]>;
 
 /** An OIS with the date conventions, which have no sheet columns yet (README, instrument table). */

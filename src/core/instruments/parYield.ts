@@ -1,0 +1,141 @@
+import type { ParYieldQuote } from '../document/types.ts';
+import { civilFromIso, isoFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { bondDirtyFromYield, bondScheduleCivil, type YieldSchedule } from './bond.ts';
+import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
+
+/**
+ * A government par yield's theoretical security. US Treasury: par yields "on a bond-equivalent
+ * basis ... consistent with a semiannual coupon security with that amount of time remaining to
+ * maturity" (the Treasury's yield curve FAQ, as quoted in public code; treasury.gov not read here);
+ * the curve's inputs are bills' bond-equivalent yields and notes and bonds near par (Treasury's
+ * yield curve methodology page).
+ *
+ * The schedule is a bond's (instruments/bond.ts `bondScheduleCivil`): coupon dates every
+ * 12/frequency months back from the maturity, unadjusted, the end-of-month rule when the maturity
+ * is a month end; `previous` the last coupon date on or before settlement. With
+ *   w = the fraction of the current coupon period still to run (ICMA: yf(settlement, next) / yf(previous, next)
+ *       on the day count), N the number of coupon dates after settlement,
+ *   n = w + N - 1, the number of coupon periods from settlement to maturity,
+ *   a = yf(previous, settlement), the accrual fraction of a year on the day count:
+ *
+ * - **Par bond** (n > f, above one year): coupon c = y, clean price 100, so
+ *     sum_k 100 c/f DF(T_k) + 100 DF(T_N) = 100 (1 + c a)   (dirty = clean + accrued),
+ *   and the model par yield from a curve is c = (1 - DF(T_N)) / ((1/f) sum_k DF(T_k) - a). On a
+ *   maturity on the coupon cycle (a tenor from settlement) a = 0 and this is the textbook
+ *   par = f (1 - D(n)) / sum_k D(k/f) (Federal Reserve GSW 2006 par-yield definition).
+ * - **Zero** (n <= f, one year or less; Treasury bills enter the curve as zeros whose
+ *   bond-equivalent yield is the spot rate): DF = (1 + y/f)^(-n), i.e. the yield compounded f
+ *   times a year over n = f tau coupon periods, tau measured in coupon periods on the day count
+ *   (ACT/ACT-ICMA: actual days over the actual days of the coupon period). This is the ICMA yield
+ *   of a zero-coupon bond on the same schedule (bondDirtyFromYield with no coupon), the same
+ *   yield-to-price rule as a bond's, and the spot rate s_k = f (D_k^(-1/k) - 1) of the par-to-zero
+ *   recursion. It is not the US Treasury's own price formula for a bill's "investment rate"
+ *   (31 CFR 356 Appendix B: simple interest on actual/365 up to half a year), which the quote does not claim.
+ */
+export interface ParYieldSchedule {
+  readonly dates: readonly CivilDate[];
+  readonly previous: CivilDate;
+  /** Coupon periods from settlement to maturity, n = w + N - 1. */
+  readonly periods: number;
+  /** Year fraction from the previous coupon date to settlement on the day count (accrued per unit coupon). */
+  readonly accrualFraction: number;
+  /** True when n <= frequency: the quote is a zero-coupon bond-equivalent yield. */
+  readonly zero: boolean;
+  /** The yield terms of a bond on the schedule with coupon c (bondDirtyFromYield). */
+  readonly w: number;
+}
+
+/** The theoretical security's schedule (see ParYieldSchedule) on civil dates. */
+export function parYieldScheduleCivil(q: Pick<ParYieldQuote, 'maturity' | 'frequency' | 'dayCount' | 'eom'>, settlement: CivilDate, maturity: CivilDate): ParYieldSchedule {
+  // A coupon of 1 gives the accrual fraction as accrued / 100.
+  const s = bondScheduleCivil({ maturity: q.maturity, coupon: 1, frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }, settlement, maturity);
+  const periods = s.w + s.dates.length - 1;
+  return { dates: s.dates, previous: s.previous, periods, accrualFraction: s.accrued / 100, zero: periods <= q.frequency, w: s.w };
+}
+
+/** The schedule with ISO dates, for the quote check. */
+export function parYieldSchedule(q: ParYieldQuote, settlement: IsoDate): ParYieldSchedule & { readonly isoDates: readonly IsoDate[]; readonly previousIso: IsoDate } {
+  const s = parYieldScheduleCivil(q, civilFromIso(settlement), civilFromIso(q.maturity));
+  const last = s.dates.length - 1;
+  return { ...s, isoDates: s.dates.map((d, i) => (i === last ? q.maturity : isoFromCivil(d))), previousIso: isoFromCivil(s.previous) };
+}
+
+/** ln DF of a zero-coupon bond-equivalent yield y compounded f times a year over n coupon periods: -n ln(1 + y/f). */
+export const parZeroLn = (y: number, frequency: number, periods: number): number => -periods * Math.log1p(y / frequency);
+
+/** The bond-equivalent yield of ln DF over n coupon periods: f ((DF)^(-1/n) - 1) = f expm1(-ln / n). */
+export const parZeroYield = (ln: number, frequency: number, periods: number): number => frequency * Math.expm1(-ln / periods);
+
+/**
+ * A par bond's yield terms with coupon c (for its own dollar duration): the schedule's flows
+ * 100 c/f and 100 at maturity, first exponent w.
+ */
+export function parBondYieldSchedule(s: ParYieldSchedule, coupon: number, frequency: number): YieldSchedule {
+  const c = (100 * coupon) / frequency;
+  return { amounts: s.dates.map((_, i) => (i === s.dates.length - 1 ? c + 100 : c)), w: s.w, frequency, coupon };
+}
+
+/**
+ * Dollar duration -dP/dy per 100 face of the theoretical security at its own yield y: the par
+ * bond's (bondDirtyFromYield with coupon y), or the zero's 100 n/f (1 + y/f)^(-n-1).
+ */
+export function parYieldDollarDuration(s: ParYieldSchedule, y: number, frequency: number): number {
+  if (s.zero) return ((100 * s.periods) / frequency) * Math.exp(-(s.periods + 1) * Math.log1p(y / frequency));
+  return -bondDirtyFromYield(parBondYieldSchedule(s, y, frequency), y).dPdy;
+}
+
+export function compileParYield(q: ParYieldQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
+  const s = parYieldScheduleCivil(q, settlement, maturity);
+  if (s.zero) return new ParZeroInstrument(q, t, [t], [100], s.periods, q.yield);
+  const times = new Array<number>(s.dates.length); // plain doubles (see Instrument.times)
+  for (let j = 0; j < times.length; j++) times[j] = time(s.dates[j]!);
+  return new ParBondInstrument(q, t, times, s.accrualFraction, q.yield);
+}
+
+/** At one year or less: 100 at maturity against 100 (1 + y/f)^(-n). */
+class ParZeroInstrument extends CompiledInstrument<ParYieldQuote> {
+  declare readonly closedFormLn: number;
+  /** Coupon periods from settlement to maturity. */
+  declare readonly periods: number;
+
+  constructor(q: ParYieldQuote, t: number, times: readonly number[], amounts: readonly number[], periods: number, value: number) {
+    const ln = parZeroLn(value, q.frequency, periods);
+    super(q, t, times, 'rate', 'yield', value, amounts, 100 * Math.exp(ln), ln, DISCOUNTING);
+    this.periods = periods;
+  }
+
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return parZeroYield(ln[offset]!, this.quote.frequency, this.periods);
+  }
+
+  requote(value: number): Instrument {
+    return new ParZeroInstrument(this.quote, this.t, this.times, this.amounts, this.periods, value);
+  }
+}
+
+/** Above one year: coupons 100 y/f and 100 at maturity against the dirty price 100 (1 + y a). */
+class ParBondInstrument extends CompiledInstrument<ParYieldQuote> {
+  declare readonly closedFormLn: null;
+  declare readonly accrualFraction: number;
+
+  constructor(q: ParYieldQuote, t: number, times: readonly number[], accrualFraction: number, value: number) {
+    const c = (100 * value) / q.frequency;
+    const amounts = new Array<number>(times.length);
+    for (let j = 0; j < times.length; j++) amounts[j] = c;
+    amounts[times.length - 1] = c + 100;
+    super(q, t, times, 'rate', 'yield', value, amounts, 100 * (1 + value * accrualFraction), null, DISCOUNTING);
+    this.accrualFraction = accrualFraction;
+  }
+
+  /** The par yield on the curve: c = (1 - DF(T_N)) / ((1/f) sum_k DF(T_k) - a). */
+  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    const n = this.times.length;
+    let annuity = 0;
+    for (let j = 0; j < n; j++) annuity += df[offset + j]!;
+    return (1 - df[offset + n - 1]!) / (annuity / this.quote.frequency - this.accrualFraction);
+  }
+
+  requote(value: number): Instrument {
+    return new ParBondInstrument(this.quote, this.t, this.times, this.accrualFraction, value);
+  }
+}
