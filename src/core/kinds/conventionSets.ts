@@ -58,7 +58,8 @@ export const CONVENTION_SETS: readonly ConventionSetDefinition[] = [
   {
     id: 'us-treasury',
     title: 'US Treasury notes and bonds',
-    fields: { bond: { frequency: 2, dayCount: 'ACT/ACT-ICMA' } },
+    // Notes and bonds pay semiannually on ACT/ACT-ICMA; the daily par yield curve is on the same basis (MARKET-CONVENTIONS.md g).
+    fields: { bond: { frequency: 2, dayCount: 'ACT/ACT-ICMA' }, 'par-yield': { frequency: 2, dayCount: 'ACT/ACT-ICMA' } },
     note: 'the market settles Treasuries T+1 on the US government securities calendar; here a bond settles on the valuation date',
   },
   {
