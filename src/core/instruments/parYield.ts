@@ -1,6 +1,7 @@
 import type { ParYieldQuote } from '../document/types.ts';
-import { civilFromIso, isoFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
+import { civilFromIso, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { bondDirtyFromYield, bondScheduleCivil, type YieldSchedule } from './bond.ts';
+import { billYearBasis } from './bill.ts';
 import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
 
 /**
@@ -29,8 +30,16 @@ import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.t
  *   (ACT/ACT-ICMA: actual days over the actual days of the coupon period). This is the ICMA yield
  *   of a zero-coupon bond on the same schedule (bondDirtyFromYield with no coupon), the same
  *   yield-to-price rule as a bond's, and the spot rate s_k = f (D_k^(-1/k) - 1) of the par-to-zero
- *   recursion. It is not the US Treasury's own price formula for a bill's "investment rate"
- *   (31 CFR 356 Appendix B: simple interest on actual/365 up to half a year), which the quote does not claim.
+ *   recursion. On any basis but the US Treasury's (below).
+ * - **Bill** (n <= f on the US Treasury basis, frequency 2 and ACT/ACT-ICMA): a bill's
+ *   bond-equivalent (coupon-equivalent) yield, as Treasury and the SIA formulas define it (SIA,
+ *   Fixed Income Securities Formulas, vol. 1, on Treasury bills; the same rule in the open
+ *   financial libraries' bill functions; bill.ts billInvestmentYield gives it from a price): with
+ *   d the days from settlement to maturity and T = 366 when 29 February falls in the year after
+ *   settlement, else 365 (billYearBasis),
+ *     d <= T/2:  DF = 1 / (1 + y d / T)                               (simple interest)
+ *     d >  T/2:  DF = 1 / ((1 + y/2) (1 + y (d/T - 1/2)))             (a half-year compounded, then simple)
+ *   whose inverse for d > 182 is Treasury's quadratic y = (-2a + 2 sqrt(a^2 - (2a - 1)(1 - 1/DF))) / (2a - 1), a = d/T.
  */
 export interface ParYieldSchedule {
   readonly dates: readonly CivilDate[];
@@ -43,6 +52,8 @@ export interface ParYieldSchedule {
   readonly zero: boolean;
   /** The yield terms of a bond on the schedule with coupon c (bondDirtyFromYield). */
   readonly w: number;
+  /** For a zero on the US Treasury basis: days from settlement to maturity and the year's days T (365 or 366); null otherwise. */
+  readonly bill: { readonly days: number; readonly basis: number } | null;
 }
 
 /** The theoretical security's schedule (see ParYieldSchedule) on civil dates. */
@@ -50,7 +61,24 @@ export function parYieldScheduleCivil(q: Pick<ParYieldQuote, 'maturity' | 'frequ
   // A coupon of 1 gives the accrual fraction as accrued / 100.
   const s = bondScheduleCivil({ maturity: q.maturity, coupon: 1, frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }, settlement, maturity);
   const periods = s.w + s.dates.length - 1;
-  return { dates: s.dates, previous: s.previous, periods, accrualFraction: s.accrued / 100, zero: periods <= q.frequency, w: s.w };
+  const zero = periods <= q.frequency;
+  const bill = zero && q.frequency === 2 && q.dayCount === 'ACT/ACT-ICMA' ? { days: serialFromCivil(maturity) - serialFromCivil(settlement), basis: billYearBasis(isoFromCivil(settlement)) } : null;
+  return { dates: s.dates, previous: s.previous, periods, accrualFraction: s.accrued / 100, zero, w: s.w, bill };
+}
+
+/** ln DF of a bill's bond-equivalent yield y over `days` on a year of `basis` days (bill.ts billYearBasis), the inverse of billInvestmentYield. */
+export function billLn(y: number, days: number, basis: number): number {
+  const a = days / basis;
+  return days <= basis / 2 ? -Math.log1p(y * a) : -(Math.log1p(y / 2) + Math.log1p(y * (a - 0.5)));
+}
+
+/** The bond-equivalent yield of a bill from ln DF: simple up to half a year (T/2 days), Treasury's quadratic beyond (bill.ts billInvestmentYield from a price). */
+export function billYield(ln: number, days: number, basis: number): number {
+  const a = days / basis;
+  const growth = Math.expm1(-ln); // 1/DF - 1
+  if (days <= basis / 2) return growth / a;
+  // (2a - 1)/4 y^2 + a y - growth = 0; the root written to avoid cancellation: y = 2 growth / (a + sqrt(a^2 + (2a - 1) growth)).
+  return (2 * growth) / (a + Math.sqrt(a * a + (2 * a - 1) * growth));
 }
 
 /** The schedule with ISO dates, for the quote check. */
@@ -80,13 +108,19 @@ export function parBondYieldSchedule(s: ParYieldSchedule, coupon: number, freque
  * bond's (bondDirtyFromYield with coupon y), or the zero's 100 n/f (1 + y/f)^(-n-1).
  */
 export function parYieldDollarDuration(s: ParYieldSchedule, y: number, frequency: number): number {
+  if (s.bill) {
+    // -d(100 DF)/dy of the bill rule: 100 DF times the derivative of -ln DF.
+    const a = s.bill.days / s.bill.basis;
+    const df = Math.exp(billLn(y, s.bill.days, s.bill.basis));
+    return 100 * df * (s.bill.days <= s.bill.basis / 2 ? a / (1 + y * a) : 0.5 / (1 + y / 2) + (a - 0.5) / (1 + y * (a - 0.5)));
+  }
   if (s.zero) return ((100 * s.periods) / frequency) * Math.exp(-(s.periods + 1) * Math.log1p(y / frequency));
   return -bondDirtyFromYield(parBondYieldSchedule(s, y, frequency), y).dPdy;
 }
 
 export function compileParYield(q: ParYieldQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
   const s = parYieldScheduleCivil(q, settlement, maturity);
-  if (s.zero) return new ParZeroInstrument(q, t, [t], [100], s.periods, q.yield);
+  if (s.zero) return new ParZeroInstrument(q, t, [t], [100], s.periods, s.bill, q.yield);
   const times = new Array<number>(s.dates.length); // plain doubles (see Instrument.times)
   for (let j = 0; j < times.length; j++) times[j] = time(s.dates[j]!);
   return new ParBondInstrument(q, t, times, s.accrualFraction, q.yield);
@@ -98,18 +132,22 @@ class ParZeroInstrument extends CompiledInstrument<ParYieldQuote> {
   /** Coupon periods from settlement to maturity. */
   declare readonly periods: number;
 
-  constructor(q: ParYieldQuote, t: number, times: readonly number[], amounts: readonly number[], periods: number, value: number) {
-    const ln = parZeroLn(value, q.frequency, periods);
+  /** The US Treasury bill basis (days, year days), or null for the compounded zero. */
+  declare readonly bill: { readonly days: number; readonly basis: number } | null;
+
+  constructor(q: ParYieldQuote, t: number, times: readonly number[], amounts: readonly number[], periods: number, bill: { readonly days: number; readonly basis: number } | null, value: number) {
+    const ln = bill ? billLn(value, bill.days, bill.basis) : parZeroLn(value, q.frequency, periods);
     super(q, t, times, 'rate', 'yield', value, amounts, 100 * Math.exp(ln), ln, DISCOUNTING);
     this.periods = periods;
+    this.bill = bill;
   }
 
   quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return parZeroYield(ln[offset]!, this.quote.frequency, this.periods);
+    return this.bill ? billYield(ln[offset]!, this.bill.days, this.bill.basis) : parZeroYield(ln[offset]!, this.quote.frequency, this.periods);
   }
 
   requote(value: number): Instrument {
-    return new ParZeroInstrument(this.quote, this.t, this.times, this.amounts, this.periods, value);
+    return new ParZeroInstrument(this.quote, this.t, this.times, this.amounts, this.periods, this.bill, value);
   }
 }
 

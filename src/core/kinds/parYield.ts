@@ -13,9 +13,10 @@ import type { QuoteKindModule } from './types.ts';
  * Government par yield (a published par curve's point, such as a US Treasury par yield curve
  * rate): `yield` (decimal) compounded `frequency` times a year (default 2) on `dayCount` (default
  * ACT/ACT-ICMA; any bond day count). Above one year a theoretical par bond (coupon = yield, clean
- * price 100, coupon dates back from maturity, unadjusted); at one year or less a zero whose
- * bond-equivalent yield is the spot rate, DF = (1 + y/f)^(-n) over n coupon periods
- * (instruments/parYield.ts). The end-of-month rule follows the maturity, as a bond's default.
+ * price 100, coupon dates back from maturity, unadjusted); at one year or less a zero: on the US
+ * Treasury basis (semiannual, ACT/ACT-ICMA) a bill's bond-equivalent yield (simple on actual/365
+ * or 366 up to 182 days, Treasury's half-year-compounded rule beyond), on any other basis
+ * DF = (1 + y/f)^(-n) over n coupon periods (instruments/parYield.ts). The end-of-month rule follows the maturity, as a bond's default.
  */
 export const PAR_YIELD: QuoteKindModule<ParYieldQuote> = {
   kind: 'par-yield',

@@ -36,16 +36,31 @@ const tenorOf = (months: number): string => (months % 12 === 0 ? `${months / 12}
 const TREASURY_2023_09_01 = [5.51, 5.55, 5.53, 5.58, 5.47, 5.36, 4.87, 4.57, 4.29, 4.27, 4.18, 4.48, 4.29];
 const TREASURY_SETTLEMENT = '2023-09-01';
 
+/**
+ * A Treasury bill's bond-equivalent yield from its discount factor D (price / 100), written from
+ * the published formulas (SIA, Fixed Income Securities Formulas, vol. 1, on Treasury bills, as the
+ * MathWorks tbilldisc2yield and IMSL Tbilleq references state them): d days to maturity, T = 366
+ * when 29 February falls in the year after settlement, else 365; up to half a year (d <= T/2) simple interest,
+ * BEY = (1/D - 1) T / d; beyond, Treasury's quadratic
+ * BEY = (-2d/T + 2 sqrt((d/T)^2 - (2d/T - 1)(1 - 1/D))) / (2d/T - 1).
+ */
+function billBey(D: number, settlement: string, maturity: string): number {
+  const d = day(maturity) - day(settlement);
+  const y0 = Number(settlement.slice(0, 4));
+  const leapDays = [y0, y0 + 1].filter((y) => (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0).map((y) => day(`${y}-02-29`));
+  const T = leapDays.some((x) => x > day(settlement) && x <= day(plusMonths(settlement, 12))) ? 366 : 365;
+  if (d <= T / 2) return ((1 / D - 1) * T) / d; // not more than a half-year
+  const a = d / T;
+  return (-2 * a + 2 * Math.sqrt(a * a - (2 * a - 1) * (1 - 1 / D))) / (2 * a - 1);
+}
+
 /** Par yield of the curve at a maturity on the cycle from `settlement` (months a multiple of 12/f), recomputed here. */
 function parFromCurve(curve: Curve, settlement: string, months: number, f = 2): number {
   const step = 12 / f;
   if (months <= 12) {
-    // Zero: n coupon periods = (whole periods) + the fraction of the first period on actual days.
+    // At one year or less a bill: its bond-equivalent yield (the US Treasury basis).
     const m = plusMonths(settlement, months);
-    const whole = Math.ceil(months / step) - 1;
-    const firstEnd = plusMonths(settlement, months - whole * step);
-    const n = whole + (day(firstEnd) - day(settlement)) / (day(firstEnd) - day(plusMonths(firstEnd, -step)));
-    return f * (Math.exp(-lnDf(curve, m) / n) - 1);
+    return billBey(Math.exp(lnDf(curve, m)), settlement, m);
   }
   let annuity = 0;
   for (let k = step; k <= months; k += step) annuity += Math.exp(lnDf(curve, plusMonths(settlement, k)));
@@ -63,7 +78,7 @@ describe('par-yield quotes at the US Treasury par curve tenors', () => {
       expect(build.repricing).toHaveLength(13);
       for (const r of build.repricing) expect(Math.abs(r.repricingError), `${r.maturity}`).toBeLessThanOrEqual(1e-12);
       TREASURY_MONTHS.forEach((mo, i) => {
-        expectClose(parFromCurve(curve, TREASURY_SETTLEMENT, mo), TREASURY_2023_09_01[i]! / 100, 1e-12, `US Treasury par yield curve 2023-09-01, ${tenorOf(mo)}, par = 2(1 - D(n)) / sum D(k/2)`);
+        expectClose(parFromCurve(curve, TREASURY_SETTLEMENT, mo), TREASURY_2023_09_01[i]! / 100, 1e-12, `US Treasury par yield curve 2023-09-01, ${tenorOf(mo)}, ${mo <= 12 ? 'bill bond-equivalent yield (SIA)' : 'par = 2(1 - D(n)) / sum D(k/2)'}`);
       });
     });
   }
@@ -103,6 +118,30 @@ function svenssonZero(t: number): number {
   return (beta0 + beta1 * l1 + beta2 * (l1 - Math.exp(-x1)) + beta3 * (l2 - Math.exp(-x2))) / 100;
 }
 
+describe('at one year or less a par yield is a bill\'s bond-equivalent yield (US Treasury basis)', () => {
+  it('the SIA worked example: a bill at a 4.97% discount from 2002-10-01 to 2003-03-31 (181 days) yields 5.17% bond-equivalent', () => {
+    // Source: SIA Fixed Income Securities Formulas vol. 1 pp. 44-45, as the MathWorks tbilldisc2yield
+    // example gives it (Discount 0.0497, Settle 01-Oct-02, Maturity 31-Mar-03: BEYield 0.0517).
+    const fromBill = buildCurve(workspaceDoc([{ kind: 'bill', maturity: '2003-03-31', discountYield: 0.0497 }], { settlement: '2002-10-01' })).curve!;
+    const D = Math.exp(lnDf(fromBill, '2003-03-31'));
+    expectClose(D, 1 - (0.0497 * 181) / 360, 1e-15, 'bank discount: price = 100 (1 - d t / 360)');
+    // The par-yield quote at the published 5.17% gives the bill's price to the rounding of 5.17 (half a bp times 181/365).
+    const fromPar = buildCurve(workspaceDoc([{ kind: 'par-yield', maturity: '2003-03-31', yield: 0.0517 }], { settlement: '2002-10-01' })).curve!;
+    expectClose(Math.exp(lnDf(fromPar, '2003-03-31')), D, 0.00005 * (181 / 365), 'SIA / MathWorks tbilldisc2yield: BEY 0.0517 for this bill');
+  });
+  it('beyond 182 days Treasury\'s quadratic holds; across the switch from 182 to 183 days the one-day forward is 3.96% at a 4% yield (the rules change from simple to a half-year compounded, as the published formulas do)', () => {
+    const build = (maturity: string, y: number) => buildCurve(workspaceDoc([{ kind: 'par-yield', maturity, yield: y }], { settlement: '2026-12-15' })).curve!;
+    for (const [maturity, y] of [['2027-09-15', 0.0412], ['2027-12-15', 0.0397], ['2027-06-15', 0.0433]] as const) {
+      const D = Math.exp(lnDf(build(maturity, y), maturity));
+      expectClose(billBey(D, '2026-12-15', maturity), y, 1e-14, `SIA bill bond-equivalent yield at ${maturity}`);
+    }
+    const d182 = Math.exp(lnDf(build('2027-06-15', 0.04), '2027-06-15')); // 182 days: simple
+    const d183 = Math.exp(lnDf(build('2027-06-16', 0.04), '2027-06-16')); // 183 days: quadratic
+    // The formulas' own step: ln(1 + y/2) + ln(1 + y (183/365 - 1/2)) - ln(1 + y 182/365), times 365, is 3.9608% at y = 4%.
+    expectClose((Math.log(d182) - Math.log(d183)) * 365, 0.03960782189875332, 1e-12, 'SIA bill formulas either side of 182 days');
+  });
+});
+
 describe('par-yield against the Federal Reserve GSW curve (feds200628, 2026-02-06)', () => {
   it('reproduces the Svensson curve exactly at the semiannual nodes from its own par yields (1e-10)', () => {
     // Exact identity: par yields computed from the Svensson DFs at every half year, 6M..30Y, on the
@@ -116,7 +155,7 @@ describe('par-yield against the Federal Reserve GSW curve (feds200628, 2026-02-0
     const quotes = [];
     for (let n = 1; n <= 60; n++) {
       let y: number;
-      if (n <= 2) y = 2 * (D(n) ** (-1 / n) - 1); // 6M and 1Y: zero BEY, n coupon periods on the cycle
+      if (n <= 2) y = billBey(D(n), GSW_SETTLEMENT, plusMonths(GSW_SETTLEMENT, 6 * n)); // 6M and 1Y: bills at their bond-equivalent yield
       else {
         let a = 0;
         for (let k = 1; k <= n; k++) a += D(k);
