@@ -103,7 +103,7 @@ describe('settings this build does not know', () => {
     const interp = u.find((x) => x.path === 'curve.interpolation')!;
     expect(interp.value).toBe('"cubic-tension"');
     expect(interp.supported).toEqual(['linear-zero', 'log-linear-discount', 'cubic-zero', 'monotone-convex', 'monotone-convex-positive']);
-    expect(u.find((x) => x.path === 'curve.smoothing')).toMatchObject({ unknownName: true, supported: ['dayCount', 'interpolation', 'extrapolation'] });
+    expect(u.find((x) => x.path === 'curve.smoothing')).toMatchObject({ unknownName: true, supported: ['dayCount', 'interpolation', 'extrapolation', 'conventions'] });
     expect(unknownSettings(workbench)).toEqual([]);
   });
 
