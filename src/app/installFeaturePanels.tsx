@@ -112,7 +112,8 @@ const printOnDemand = deferredPanel('print on demand', () =>
   ),
   { quiet: true },
 );
-const ALL = [roll, scenarios, snapshots, fit, risk, print, printOnDemand];
+const holidays = deferredPanel('holidays', () => import('../features/calendars/HolidaysTab.tsx').then((m) => () => <m.HolidaysTab />));
+const ALL = [roll, scenarios, snapshots, fit, risk, holidays, print, printOnDemand];
 
 /** Fetches every feature panel's code; resolves when all can render at once. */
 export function preloadFeaturePanels(): Promise<void> {
@@ -136,6 +137,7 @@ export function installFeaturePanels(options: { preload?: boolean } = {}): Promi
       { id: 'snapshots', label: 'Snapshots', render: ({ result }) => <snapshots.Panel result={result} /> },
       { id: 'fit', label: 'Smooth fit', render: ({ result }) => <fit.Panel result={result} /> },
       { id: 'risk', label: 'Bond and sensitivities', render: ({ result }) => <risk.Panel result={result} /> },
+      { id: 'holidays', label: 'Holidays', render: ({ result }) => <holidays.Panel result={result} /> },
       { id: 'print', label: 'Print', render: ({ result }) => <print.Panel result={result} /> },
     );
   }

@@ -7,6 +7,7 @@ export * from './time/dateConventions.ts';
 export * from './time/dayCount.ts';
 export * from './time/schedule.ts';
 export * from './time/calendars.ts';
+export * from './time/calendarEdits.ts';
 export * from './rates/compounding.ts';
 export * from './rates/overnightCompounding.ts';
 export * from './interpolation/types.ts';

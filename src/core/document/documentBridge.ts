@@ -44,6 +44,10 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   const first = validateWorkspace(raw);
   if (!first.workspace || first.errors.length > 0) return fail(...first.errors);
   const doc = raw as Record<string, unknown>;
+  if (doc.customCalendars !== undefined && Object.keys(doc.customCalendars as object).length > 0) {
+    // Said alone: every quote on such a calendar would read differently without it.
+    return fail(coreError('schema', 'customCalendars', "customCalendars (calendars of the file's own, from lists of dates) has no place in the workbench yet; build this file with the curve command, or remove customCalendars to open it here"));
+  }
   const rawQuotes = doc.quotes as readonly Record<string, unknown>[];
   const quotes: QuoteRow[] = rawQuotes.map((q) => {
     const row: Record<string, unknown> = { id: makeId(), enabled: q.enabled !== false };
@@ -64,15 +68,11 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
     quotes,
     display: DEFAULT_DISPLAY,
   };
+  if (doc.calendars !== undefined && Object.keys(doc.calendars as object).length > 0) out.calendars = doc.calendars;
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) out[key] = doc[key];
   const wb = out as unknown as WorkbenchDocument;
   const again = validateWorkspace(toEngineDocument(wb).doc);
   const errors: CoreError[] = [];
-  for (const section of ['calendars', 'customCalendars'] as const) {
-    if (doc[section] !== undefined && Object.keys(doc[section] as object).length > 0) {
-      errors.push(coreError('schema', section, `${section} (the file's own calendar dates) has no place in the workbench yet; build this file with the curve command, or remove ${section} to open it here with the built-in calendars`));
-    }
-  }
   if (ws.curve.fit !== 'none') errors.push(coreError('schema', 'curve.fit', `curve.fit "${ws.curve.fit}" has no place in the workbench document; choose the fit in the workbench's fit section instead, or remove curve.fit from the file`));
   const back = again.workspace?.quotes ?? [];
   if (back.length !== ws.quotes.length) errors.push(coreError('schema', 'quotes', `the sheet read ${back.length} of the file's ${ws.quotes.length} quotes; open it with the curve command instead`));

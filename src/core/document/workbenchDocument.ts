@@ -11,6 +11,7 @@ import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssue
 import { isPlainObject } from './plainObject.ts';
 import { CONVENTION_SETS, conventionSet } from '../kinds/conventionSets.ts';
 import type { QuoteKind } from './types.ts';
+import type { CalendarEdits } from '../time/calendars.ts';
 
 /**
  * The workbench's market conventions (`curve.conventions`): none, or a convention set that fills
@@ -64,6 +65,12 @@ export interface WorkbenchDocument {
   readonly quoteUnit: QuoteUnitMode;
   readonly quotes: readonly QuoteRow[];
   readonly display: DisplaySettings;
+  /**
+   * The workspace's edits of built-in calendars, by id: dates closed besides the calendar's own
+   * (`add`) and its holidays opened (`remove`); absent when none. The engine document's version 2
+   * `calendars` section, as is.
+   */
+  readonly calendars?: Readonly<Record<string, CalendarEdits>>;
   readonly strategy?: unknown;
   readonly scenarios?: unknown;
   readonly snapshots?: unknown;
@@ -107,7 +114,7 @@ export interface EngineConversion {
  * a caching wrapper of `parseRow` (the UI keeps one so a one-cell edit re-parses one row).
  */
 export function toEngineDocument(
-  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
+  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
   parse: (row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions) => RowParse = parseRow): EngineConversion {
   const conventions = conventionsOf(doc);
   const rows = doc.quotes.map((r) => parse(r, doc.quoteUnit, conventions));
@@ -135,6 +142,7 @@ export function toEngineDocument(
     format: WORKSPACE_FORMAT,
     version: WORKSPACE_VERSION,
     valuationDate: doc.settlement,
+    ...(doc.calendars !== undefined && Object.keys(doc.calendars).length > 0 ? { calendars: doc.calendars } : {}),
     curve,
     quotes,
   };
@@ -363,6 +371,8 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
       decimalMark: pick(display.decimalMark, isDecimalMark, DEFAULT_DISPLAY.decimalMark),
     },
   };
+  // Calendar edits are kept as saved (the engine checks them and says what is wrong, naming the date).
+  if (isPlainObject(raw.calendars)) doc.calendars = raw.calendars;
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];
   return { doc: doc as unknown as WorkbenchDocument, problem: null, changes };
 }

@@ -5,7 +5,7 @@ import { RESERVED_KEYS } from './validate.ts';
 import { LIMITS } from './limits.ts';
 import { isPlainObject } from './plainObject.ts';
 
-const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', ...RESERVED_KEYS];
+const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', ...RESERVED_KEYS];
 const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
 /** Characters of one typed cell or row id (LIMITS.cell). */
 export const CELL_MAX = LIMITS.cell;
@@ -13,6 +13,14 @@ export const CELL_MAX = LIMITS.cell;
 const shortText = (v: unknown, max: number = CELL_MAX): boolean => typeof v === 'string' && v.length <= max;
 const flatSettings = (v: unknown): boolean =>
   isPlainObject(v) && Object.keys(v).length <= 20 && Object.values(v).every((x) => shortText(x, LIMITS.setting) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x)));
+
+/** The shape of `calendars`: at most 10 calendars, each with `add` and `remove` lists of short text (the engine checks the dates). */
+const calendarEditsShape = (v: unknown): boolean =>
+  isPlainObject(v) &&
+  Object.keys(v).length <= 10 &&
+  Object.values(v).every(
+    (e) => isPlainObject(e) && Object.keys(e).every((k) => k === 'add' || k === 'remove') && Object.values(e).every((list) => Array.isArray(list) && list.length <= LIMITS.calendarDates && list.every((d) => shortText(d, 10))),
+  );
 
 /**
  * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
@@ -28,6 +36,7 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   if (!shortText(raw.settlement, LIMITS.setting)) errors.push(coreError('schema', 'settlement', 'settlement must be text (a date YYYY-MM-DD)'));
   if (!flatSettings(raw.curve)) errors.push(coreError('schema', 'curve', 'curve must be an object of short settings'));
   if (!flatSettings(raw.display)) errors.push(coreError('schema', 'display', 'display must be an object of short settings'));
+  if (raw.calendars !== undefined && !calendarEditsShape(raw.calendars)) errors.push(coreError('schema', 'calendars', `calendars must be an object of edits by calendar id, each {"add": [dates], "remove": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
   if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));
   if (!Array.isArray(raw.quotes)) errors.push(coreError('schema', 'quotes', 'quotes must be a list of rows'));
   else if (raw.quotes.length > LIMITS.quotes) errors.push(coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`));

@@ -44,6 +44,8 @@ export interface WorkspaceSlice {
   sortByMaturity(): void;
   setSettlement(text: string): void;
   setCurve(patch: Partial<WorkbenchDocument['curve']>): void;
+  /** Replaces one built-in calendar's edits (dates closed and opened); empty edits remove its entry. One undoable step. */
+  setCalendarEdits(id: string, edits: { readonly add: readonly string[]; readonly remove: readonly string[] }): void;
   setDisplay(patch: Partial<DisplaySettings>): void;
   /** Switches how bare numbers are read; bare rate and coupon texts are re-written so their values stay the same. */
   setQuoteUnit(mode: QuoteUnitMode): void;
@@ -202,6 +204,14 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     setCurve(patch) {
       get().commit({ ...ws(), curve: { ...ws().curve, ...patch } }, 'curve settings');
+    },
+    setCalendarEdits(id, edits) {
+      const { [id]: _old, ...others } = ws().calendars ?? {};
+      const sorted = (xs: readonly string[]) => [...new Set(xs)].sort();
+      const entry = edits.add.length + edits.remove.length > 0 ? { [id]: { add: sorted(edits.add), remove: sorted(edits.remove) } } : {};
+      const calendars = { ...others, ...entry };
+      const { calendars: _c, ...rest } = ws();
+      get().commit(Object.keys(calendars).length > 0 ? { ...rest, calendars } : rest, 'calendar edits');
     },
     setDisplay(patch) {
       get().commit({ ...ws(), display: { ...ws().display, ...patch } }, 'display settings');

@@ -5,7 +5,7 @@
 import { README_DOCUMENT } from '../../helpers/readmeDocument.ts';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { buildCurve, engineFromAnyDocument, toEngineDocument, unknownSettings, workbenchFromEngine, type Curve } from '../../../src/core/index.ts';
+import { buildCurve, engineFromAnyDocument, toEngineDocument, unknownSettings, validateDocument, workbenchFromEngine, type Curve } from '../../../src/core/index.ts';
 import { demoWorkspace } from '../../../src/state/demoWorkspace.ts';
 
 const fixture = (p: string) => JSON.parse(readFileSync(new URL(`../../fixtures/${p}`, import.meta.url), 'utf8')) as Record<string, unknown>;
@@ -126,5 +126,32 @@ describe('market conventions of the workbench (curve.conventions)', () => {
   });
   it('a set this build does not know opens the document read-only (an unknown setting), never as none', () => {
     expect(unknownSettings({ ...wb('jpy-tona'), curve: { ...wb().curve, conventions: 'jpy-tona' } })).toContainEqual(expect.objectContaining({ path: 'curve.conventions', value: '"jpy-tona"', fallback: 'none' }));
+  });
+});
+
+describe('calendar edits of the workbench (calendars)', () => {
+  const wb = () => {
+    const d = demoWorkspace(id);
+    return { ...d, curve: { ...d.curve, conventions: 'eur-estr' }, calendars: { target: { add: ['2026-12-16'], remove: [] } } };
+  };
+  it('go into the engine document as its version 2 calendars section, and a file or link with them validates and keeps them', () => {
+    const e = toEngineDocument(wb()).doc;
+    expect(e.calendars).toEqual({ target: { add: ['2026-12-16'], remove: [] } });
+    // The demo values on Tuesday 2026-12-15; with the 16th closed, €STR spot (T+2 on TARGET) is Friday the 18th.
+    expect((buildCurve(e, { skipInvalid: true }).workspace!.quotes[0] as { start: string }).start).toBe('2026-12-18');
+    const checked = validateDocument(JSON.parse(JSON.stringify(wb())));
+    expect(checked.ok && checked.value.document.calendars).toEqual({ target: { add: ['2026-12-16'], remove: [] } });
+  });
+  it('an engine document with calendars opens in the workbench with them; customCalendars is refused, named', () => {
+    const e = toEngineDocument(wb()).doc;
+    const back = workbenchFromEngine(e, id);
+    if (!back.ok) throw new Error(JSON.stringify(back.errors));
+    expect(back.value.calendars).toEqual({ target: { add: ['2026-12-16'], remove: [] } });
+    const custom = workbenchFromEngine({ ...e, customCalendars: { 'desk-days': { holidays: ['2027-01-04'] } } }, id);
+    expect(!custom.ok && custom.errors.map((x) => x.path)).toEqual(['customCalendars']);
+  });
+  it('a malformed calendars section in a link is refused by its shape, naming the field', () => {
+    const bad = validateDocument({ ...JSON.parse(JSON.stringify(wb())), calendars: { target: { add: [20261216] } } });
+    expect(!bad.ok && bad.errors.map((x) => x.path)).toEqual(['calendars']);
   });
 });
