@@ -1,6 +1,5 @@
-import { memo } from 'react';
+import { lazy, memo, Suspense } from 'react';
 import { Caution } from '../components/Caution.tsx';
-import { ReadOnlyBanner } from '../components/ReadOnlyBanner.tsx';
 import { StorageBanner, StorageStatusText } from '../components/StorageBanner.tsx';
 import { CurvesPanel } from '../features/curves/CurvesPanel.tsx';
 import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
@@ -16,6 +15,9 @@ import { ShareBar } from '../share/ShareBar.tsx';
 import { useOpenLinkOnStart } from '../share/useOpenLinkOnStart.ts';
 import { EXTENSIONS } from './extensions.tsx';
 import { TablesPanel } from './TablesPanel.tsx';
+
+/** The read-only banner is fetched when a document opens read-only (settings this build does not know), not on every load. */
+const ReadOnlyBanner = lazy(() => import('../components/ReadOnlyBanner.tsx').then((m) => ({ default: m.ReadOnlyBanner })));
 
 /** The workbench: quotes in, zero and forward curves side by side, every number readable. */
 export function App() {
@@ -56,7 +58,11 @@ export function App() {
       <Caution />
       <StorageBanner />
       <LinkNotice message={link.message} onDismiss={link.dismiss} />
-      <ReadOnlyBanner />
+      {readOnly !== null && (
+        <Suspense fallback={<p className="banner warn" role="status">Read-only: this workspace uses settings this build does not know…</p>}>
+          <ReadOnlyBanner />
+        </Suspense>
+      )}
       <OpenedNotice />
       <WorkspacesSlot />
       <SettingsBar />

@@ -2,16 +2,17 @@ import { lazy, Suspense, useDeferredValue, useRef, type KeyboardEvent, type Reac
 import { CurveTableExport } from '../features/tables/CurveTableExport.tsx';
 import { ForwardStripTable } from '../features/tables/ForwardStripTable.tsx';
 import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
-import { QuoteCheckTable } from '../features/tables/QuoteCheckTable.tsx';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { useAppStore } from '../state/store.ts';
 import type { WorkbenchTab } from './extensions.tsx';
 
 type TabDef = WorkbenchTab;
 
-/** The forward grid's and the forward calculator's code is fetched the first time their tab opens (their own chunks), so the first load carries less. */
+/** The forward grid's, the forward calculator's and the quote check's code is fetched the first time their tab opens (their own chunks), so the first load carries less. */
 const ForwardGridTable = lazy(() => import('../features/tables/ForwardGridTable.tsx').then((m) => ({ default: m.ForwardGridTable })));
 const ForwardCalculator = lazy(() => import('../features/tables/ForwardCalculator.tsx').then((m) => ({ default: m.ForwardCalculator })));
+/** The quote check (with the schedules and their exact money rounding) loads on first use too. */
+const QuoteCheckTable = lazy(() => import('../features/tables/QuoteCheckTable.tsx').then((m) => ({ default: m.QuoteCheckTable })));
 
 const needCurve = (f: (r: WorkbenchBuild) => ReactNode) => ({ result }: { result: WorkbenchBuild }) =>
   result.build.curve ? f(result) : <p className="empty">No curve: {result.fatal}</p>;
@@ -46,7 +47,15 @@ const BASE_TABS: readonly TabDef[] = [
       </Suspense>
     )),
   },
-  { id: 'quote-check', label: 'Quote check', render: ({ result }) => <QuoteCheckTable result={result} /> },
+  {
+    id: 'quote-check',
+    label: 'Quote check',
+    render: ({ result }) => (
+      <Suspense fallback={<p className="muted small" role="status">Loading the quote check…</p>}>
+        <QuoteCheckTable result={result} />
+      </Suspense>
+    ),
+  },
 ];
 
 /** Tables under the charts, as tabs; other features' sections (EXTENSIONS.tabs) get the deferred build. */

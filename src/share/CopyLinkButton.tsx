@@ -1,6 +1,9 @@
 import { useEffect, useState } from 'react';
 import { formatCount } from '../core/index.ts';
-import { encodeWorkspaceLinkChecked, MAX_FRAGMENT_CHARS } from './linkCodec.ts';
+import { MAX_FRAGMENT_CHARS } from './linkLimits.ts';
+
+/** The link codec (compression, envelope, checks) is fetched when a link is first made or checked. */
+const encodeWorkspaceLinkChecked = (doc: Record<string, unknown>) => import('./linkCodec.ts').then((m) => m.encodeWorkspaceLinkChecked(doc));
 import './share.css';
 
 export interface CopyLinkButtonProps {

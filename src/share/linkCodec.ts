@@ -12,7 +12,8 @@ import { deflateRaw, inflateRawCapped, type InflateOutcome } from './compression
 export const LINK_VERSION = 1;
 export const LINK_PREFIX = 'ws';
 /** Largest fragment read, characters. */
-export const MAX_FRAGMENT_CHARS = 64 * 1024;
+import { MAX_FRAGMENT_CHARS } from './linkLimits.ts';
+export { MAX_FRAGMENT_CHARS };
 /** Largest decompressed envelope, bytes; decompression stops as soon as it is passed. */
 export const MAX_INFLATED_BYTES = 1024 * 1024;
 

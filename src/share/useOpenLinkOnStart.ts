@@ -4,7 +4,10 @@ import { readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from 
 import { makeRowId } from '../state/ids.ts';
 import { openAsNewWorkspace, switchWorkspace } from '../state/persistence.ts';
 import { useAppStore } from '../state/store.ts';
-import { decodeWorkspaceLink, type LinkOutcome } from './linkCodec.ts';
+import type { LinkOutcome } from './linkCodec.ts';
+
+/** The link codec is fetched only when there is a link to open (its own chunk). */
+const decodeWorkspaceLink = (hash: string) => import('./linkCodec.ts').then((m) => m.decodeWorkspaceLink(hash));
 import { showOpenedNotice } from './OpenedNotice.tsx';
 
 /** Why the last link was not opened (null: none), for every component showing it. */

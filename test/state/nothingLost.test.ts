@@ -3,6 +3,8 @@ import { IDBFactory } from 'fake-indexeddb';
 import { LIMITS, unknownSettings, type WorkbenchDocument } from '../../src/core/index.ts';
 import { entryKey, flushSave, LEGACY_KEY, startPersistence, type PersistenceDeps } from '../../src/state/persistence.ts';
 import { useAppStore } from '../../src/state/store.ts';
+// The paste reader registers the functions the store confirms pastes with (state/pasteTools.ts), as its first load does in the app.
+import '../../src/features/quotes/pasteReader.ts';
 import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 import { indexedDbBackend } from '../../src/state/workspaceBackend.ts';
 import { useWorkspaceList } from '../../src/state/workspaceList.ts';

@@ -1,6 +1,8 @@
 // The store's actions: every edit undoable, typing in one cell is one step, the history capped at
 // HISTORY_CAP, paste replacing (or appending) and filling, unit switches keeping values.
 import { useAppStore } from '../../src/state/store.ts';
+// The paste reader registers the functions the store confirms pastes with (state/pasteTools.ts), as its first load does in the app.
+import '../../src/features/quotes/pasteReader.ts';
 import { HISTORY_CAP } from '../../src/state/slices/historySlice.ts';
 
 const initial = useAppStore.getInitialState();

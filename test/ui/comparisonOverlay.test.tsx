@@ -170,13 +170,14 @@ describe('useComparisonOverlay', () => {
     expect(last!.notes).toContain('2 more snapshots chosen, not drawn (the charts show the first 3)');
   });
 
-  it('draws the reference on the zero chart only when no forward follows exactly, and says so', () => {
+  it('draws the reference on the zero chart only when no forward follows exactly, and says so', async () => {
     act(() => useAppStore.getState().setDisplay({ compounding: 'continuous', dayCount: 'ACT/365F', forwardTenor: '3M' }));
     render(<Probe />);
     const s = lastBuild!.build.curve!.settlement;
     const text = `date,discount\n${addTenor(s, parseTenor('1Y')!)},0.97\n${addTenor(s, parseTenor('2Y')!)},0.935\n${addTenor(s, parseTenor('5Y')!)},0.84`;
     act(() => useReferenceInput.getState().set({ text }));
     act(() => setDrawReference(true));
+    await waitFor(() => expect(last!.zero.some((l) => l.id === 'reference-zero')).toBe(true)); // the reference reader loads on first use
     const zero = last!.zero.find((l) => l.id === 'reference-zero')!;
     expect(zero.label).toBe('Reference (zero; zero chart only)');
     expect(last!.how.zero[0]).toContain('zero chart only: no two of its dates are 3M apart');

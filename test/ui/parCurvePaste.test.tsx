@@ -27,11 +27,11 @@ const TREASURY_2023_09_01 = [
 ].join('\n');
 
 describe('pasting a par curve laid out by tenor', () => {
-  it('previews it as par yields, reports the date as setting nothing, and replaces the sheet with 13 par-yield quotes', () => {
+  it('previews it as par yields, reports the date as setting nothing, and replaces the sheet with 13 par-yield quotes', async () => {
     render(<App />);
     const grid = screen.getByRole('grid', { name: /Quotes/ });
     fireEvent.paste(grid, { clipboardData: { getData: () => TREASURY_2023_09_01 } });
-    const preview = screen.getByRole('region', { name: /Paste preview/ });
+    const preview = await screen.findByRole('region', { name: /Paste preview/ }); // the paste reader loads on the first paste
     expect(preview).toHaveTextContent('13 read as quotes');
     const mapping = within(preview).getByRole('table');
     const first = within(mapping).getByText('1 Mo').closest('tr')!;

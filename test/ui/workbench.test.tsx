@@ -35,9 +35,16 @@ const zeroPath = () => document.querySelector('svg[aria-label^="Zero curve"] [da
 const fwdPath = () => document.querySelector('svg[aria-label^="Forward curve"] [data-series="forward"] path')!.getAttribute('d');
 const keyCell = (tenor: string, field: string) =>
   within(screen.getByRole('table', { name: 'Key maturities' })).getByText((_, el) => el?.getAttribute('data-field') === field && el.closest('tr')?.getAttribute('data-tenor') === tenor);
-const paste = (el: Element, text: string) => fireEvent.paste(el, { clipboardData: { getData: () => text } });
+/** Pastes text on a cell; the paste reader (and the preview) load on the first paste, so this waits for them. */
+const paste = async (el: Element, text: string): Promise<void> => {
+  fireEvent.paste(el, { clipboardData: { getData: () => text } });
+  await act(async () => {
+    await import('../../src/features/quotes/pasteReader.ts');
+    await import('../../src/features/quotes/PastePreview.tsx');
+  });
+};
 /** A header paste shows its column-mapping preview first; this confirms it as "Replace the sheet". */
-const replaceSheet = () => fireEvent.click(screen.getByRole('button', { name: 'Replace the sheet' }));
+const replaceSheet = async () => fireEvent.click(await screen.findByRole('button', { name: 'Replace the sheet' }));
 
 /** The core's zero rate at a tenor for the store's current workspace, formatted as the table shows it. */
 function coreZero(tenor: string, c: Compounding, dc: 'ACT/365F' | 'ACT/360'): string {
@@ -67,12 +74,12 @@ describe('<App /> on the demo workspace', () => {
 });
 
 describe('paste', () => {
-  it('a block with a header replaces the sheet, the charts change, and "Append instead" appends', () => {
+  it('a block with a header replaces the sheet, the charts change, and "Append instead" appends', async () => {
     render(<App />);
     const before = zeroPath();
-    paste(cell(3, 'Rate / yield'), 'Type\tTenor\tRate\nDeposit\t3M\t4.0\nSWAP\t2Y\t3.5\nswap\t5Y\t3.6\nswap\t10Y\t3.9\n');
+    await paste(cell(3, 'Rate / yield'), 'Type\tTenor\tRate\nDeposit\t3M\t4.0\nSWAP\t2Y\t3.5\nswap\t5Y\t3.6\nswap\t10Y\t3.9\n');
     expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('19 quotes in the curve'); // the preview changes nothing
-    replaceSheet();
+    await replaceSheet();
     expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('4 quotes in the curve');
     expect(cell(2, 'Kind')).toHaveValue('SWAP');
     expect(zeroPath()).not.toBe(before);
@@ -82,17 +89,17 @@ describe('paste', () => {
     expect(cell(20, 'Maturity')).toHaveAccessibleDescription(/row 20 .* and row 4 .*same point of the curve/);
   });
 
-  it('CSV with a header is read the same way', () => {
+  it('CSV with a header is read the same way', async () => {
     render(<App />);
-    paste(grid(), 'kind,maturity,yield,coupon,clean price,frequency,day count\nbond,2031-11-15,,3.625,99.2,2,ACT/ACT-ICMA\ndeposit,6M,4.1,,,,ACT/360');
-    replaceSheet();
+    await paste(grid(), 'kind,maturity,yield,coupon,clean price,frequency,day count\nbond,2031-11-15,,3.625,99.2,2,ACT/ACT-ICMA\ndeposit,6M,4.1,,,,ACT/360');
+    await replaceSheet();
     expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('2 quotes in the curve');
     expect(cell(1, 'Price')).toHaveValue('99.2');
   });
 
-  it('a block without a header fills from the focused cell in column order', () => {
+  it('a block without a header fills from the focused cell in column order', async () => {
     render(<App />);
-    paste(cell(1, 'Rate / yield'), '4.11\n4.22');
+    await paste(cell(1, 'Rate / yield'), '4.11\n4.22');
     expect(cell(1, 'Rate / yield')).toHaveValue('4.11');
     expect(cell(2, 'Rate / yield')).toHaveValue('4.22');
     expect(cell(3, 'Rate / yield')).toHaveValue('4.360');
@@ -187,10 +194,10 @@ describe('undo and redo', () => {
     expect(cell(1, 'Rate / yield')).toHaveValue('5.5');
   });
 
-  it('the Undo button undoes a paste', () => {
+  it('the Undo button undoes a paste', async () => {
     render(<App />);
-    paste(grid(), 'kind\ttenor\trate\ndeposit\t3M\t4');
-    replaceSheet();
+    await paste(grid(), 'kind\ttenor\trate\ndeposit\t3M\t4');
+    await replaceSheet();
     fireEvent.click(screen.getByRole('button', { name: 'Undo' }));
     expect(screen.getByText(/quotes in the curve/)).toHaveTextContent('19 quotes in the curve');
   });

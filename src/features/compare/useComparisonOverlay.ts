@@ -3,7 +3,6 @@ import {
   FIT_MODEL_LABEL,
   rateTag,
   forwardSamples,
-  parseReferenceCsv,
   parseTenor,
   rebuildSnapshot,
   referenceForwardSamples,
@@ -18,6 +17,7 @@ import {
 import type { ChartLine } from '../../charts/RateChart.tsx';
 import { FIT_STYLE, REFERENCE_STYLE, SNAPSHOT_OVERLAY_MAX, SNAPSHOT_STYLES } from '../../charts/palette.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useLazyReference } from './useLazyReference.ts';
 import { chartEndDate, points as samplePoints, sampleGridFor, type SamplePoint } from '../../hooks/useCurveSeries.ts';
 import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice } from './comparisonChoice.ts';
@@ -84,10 +84,11 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
   );
   const fit = useLazyFit(ws, fitOptions);
 
-  const parsedReference = useMemo(
-    () => (choice.reference && reference.text.trim() !== '' ? parseReferenceCsv(reference.text, reference.compounding, reference.dayCount, reference.unit ?? sheetUnit).reference : null),
+  const referenceInput = useMemo(
+    () => (choice.reference && reference.text.trim() !== '' ? { text: reference.text, compounding: reference.compounding, dayCount: reference.dayCount, unit: reference.unit ?? sheetUnit } : null),
     [choice.reference, reference.text, reference.compounding, reference.dayCount, reference.unit, sheetUnit],
   );
+  const parsedReference = useLazyReference(referenceInput);
 
   return useMemo(() => {
     if (!curve) return EMPTY;

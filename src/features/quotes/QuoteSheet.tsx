@@ -1,4 +1,4 @@
-import { memo, useCallback, useMemo, useRef, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
+import { lazy, memo, Suspense, useCallback, useMemo, useRef, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
 import {
   LIMITS,
   rowsLeftOutMessage,
@@ -23,9 +23,10 @@ import {
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { useRowWindow, WINDOW_FROM_ROWS } from './useRowWindow.ts';
-import { PastePreview } from './PastePreview.tsx';
-import { readPaste, WORKER_FROM_CHARS } from './pasteReader.ts';
+import { WORKER_FROM_CHARS } from '../../share/offThread.ts';
 
+/** The header-paste preview is fetched with the paste reader, on the first paste (its own chunk). */
+const PastePreview = lazy(() => import('./PastePreview.tsx').then((m) => ({ default: m.PastePreview })));
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
 /** Short column headings (the full names label the cells). */
 const HEADER_TEXT: Readonly<Record<QuoteColumn, string>> = { kind: 'Kind', maturity: 'Maturity', rate: 'Rate', price: 'Price', coupon: 'Cpn', frequency: 'Freq', dayCount: 'Day count' };
@@ -208,6 +209,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
   const notice = useAppStore((s) => s.pasteNotice);
+  const pendingPaste = useAppStore((s) => s.pendingPaste !== null);
   const readOnly = useAppStore((s) => s.readOnly !== null);
   const full = rows.length >= LIMITS.quotes;
   const { setQuoteUnit, setConventions, addRow, sortByMaturity, appendInstead, dismissPasteNotice } = useAppStore.getState();
@@ -292,16 +294,27 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
     cancelReading.current?.();
     const ws = store.workspace;
     if (text.length >= WORKER_FROM_CHARS) store.setPasteProgress({ chars: text.length, rows: null });
-    cancelReading.current = readPaste(
-      { text, mode: ws.quoteUnit, existing: ws.quotes.length, conventions: { dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark } },
-      (done) => {
-        cancelReading.current = null;
-        const s = useAppStore.getState();
-        if (done.refusal) s.refusePaste(done.refusal);
-        else s.receivePastedBlock(done.block, target, done.preview, done.dropped);
-      },
-      (rows) => useAppStore.getState().setPasteProgress({ chars: text.length, rows }),
-    );
+    // The paste reader (splitting, header mapping, the preview) is fetched on the first paste, its
+    // own chunk, so the first load carries none of it; later pastes find it loaded.
+    let cancelled = false;
+    let cancelInner: (() => void) | null = null;
+    cancelReading.current = () => {
+      cancelled = true;
+      cancelInner?.();
+    };
+    void import('./pasteReader.ts').then(({ readPaste }) => {
+      if (cancelled) return;
+      cancelInner = readPaste(
+        { text, mode: ws.quoteUnit, existing: ws.quotes.length, conventions: { dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark } },
+        (done) => {
+          cancelReading.current = null;
+          const s = useAppStore.getState();
+          if (done.refusal) s.refusePaste(done.refusal);
+          else s.receivePastedBlock(done.block, target, done.preview, done.dropped);
+        },
+        (rows) => useAppStore.getState().setPasteProgress({ chars: text.length, rows }),
+      );
+    });
   }, []);
 
   /**
@@ -463,7 +476,11 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
           </button>
         </div>
       )}
-      <PastePreview />
+      {pendingPaste && (
+        <Suspense fallback={<p className="muted small" role="status">Reading the paste…</p>}>
+          <PastePreview />
+        </Suspense>
+      )}
       {notice && (
         <div className="notice" role="status">
           {notice.mode === 'refused' && <>Nothing was pasted: {notice.message}.</>}

@@ -1,8 +1,13 @@
 import { pasteQuoteCap, readPastedBlock, readSplitBlock, previewPaste, type InputConventions, type PastedBlock, type PastePreview, type QuoteUnitMode } from '../../core/index.ts';
 import { startReader, type ReaderReply, type ReaderRequest } from '../../share/readerRequests.ts';
+import { registerPasteTools } from '../../state/pasteTools.ts';
 
-/** Pastes from this many characters are read in a worker (a 500-row sheet pastes as about 20,000). */
-export const WORKER_FROM_CHARS = 64_000;
+// The store confirms pastes with these (state/pasteTools.ts); this module is the paste reader's chunk.
+registerPasteTools({ readPastedBlock, previewPaste });
+
+/** Pastes from this many characters are read in a worker (a 500-row sheet pastes as about 20,000): share/offThread.ts. */
+import { WORKER_FROM_CHARS } from '../../share/offThread.ts';
+export { WORKER_FROM_CHARS };
 
 export interface PasteReaderRequest {
   readonly text: string;

@@ -7,9 +7,7 @@ import {
   rewriteDateOrder,
   withDecimalPoint,
   type InputConventions,
-  previewPaste,
   QUOTE_COLUMNS,
-  readPastedBlock,
   type PastedBlock,
   rewriteBareRate,
   type DisplaySettings,
@@ -24,6 +22,7 @@ import type { PendingPaste } from './uiSlice.ts';
 import { demoWorkspace } from '../demoWorkspace.ts';
 import { makeRowId } from '../ids.ts';
 import { maturitySortKey } from '../maturitySort.ts';
+import { pasteTools } from '../pasteTools.ts';
 
 /** Keys of the document that other panels own; the workbench stores and undoes them untouched. */
 export type ReservedKey = 'strategy' | 'scenarios' | 'snapshots' | 'view' | 'note';
@@ -106,7 +105,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
    */
   const applyHeaderPaste = (block: PastedBlock, how: 'replace' | 'append', dropped = 0): void => {
     const before = ws().quotes;
-    const preview = previewPaste(block, ws().quoteUnit, before.length, conventionsOf(ws()));
+    const preview = pasteTools().previewPaste(block, ws().quoteUnit, before.length, conventionsOf(ws()));
     const refusal = how === 'replace' ? preview.refusal : preview.appendRefusal;
     if (refusal) {
       set({ pasteNotice: { mode: 'refused', rows: block.rows.length, ignoredColumns: block.ignored, message: refusal } });
@@ -248,13 +247,13 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     pasteText(text, target) {
       if (get().readOnly) return;
-      const block = readPastedBlock(text);
+      const block = pasteTools().readPastedBlock(text);
       if (block.header) applyHeaderPaste(block, 'replace');
       else fillFrom(block, target);
     },
     previewPasteText(text, target) {
       if (get().readOnly) return;
-      get().receivePastedBlock(readPastedBlock(text), target);
+      get().receivePastedBlock(pasteTools().readPastedBlock(text), target);
     },
     receivePastedBlock(block, target, preview = null, dropped = 0) {
       set({ pasteProgress: null });
@@ -264,7 +263,7 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
         fillFrom(block, target, dropped);
         return;
       }
-      set({ pendingPaste: { block, preview: preview ?? previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())), dropped } });
+      set({ pendingPaste: { block, preview: preview ?? pasteTools().previewPaste(block, ws().quoteUnit, ws().quotes.length, conventionsOf(ws())), dropped } });
     },
     refusePaste(message) {
       set({ pendingPaste: null, pasteProgress: null, pasteNotice: { mode: 'refused', rows: 0, ignoredColumns: [], message } });
