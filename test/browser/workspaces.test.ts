@@ -48,8 +48,10 @@ describe('saved workspaces', () => {
     await edit(page, 1, '3.21');
     await page.waitForFunction(() => document.querySelector('.save-state')?.textContent === 'Saved in this browser');
     expect(await savedRate(page)).toBe('3.21');
+    // The same page at the link's address: a same-document navigation, so the link opens on its
+    // hashchange (the codec loads, the link decodes) a moment after the grid is there.
     await open(page, `${app.server.url}${fragment}`);
-    expect(await rateCell(page, 1).inputValue()).toBe('4.56');
+    await page.waitForFunction(() => (document.querySelector('[aria-label="Row 1 Rate / yield"]') as HTMLInputElement | null)?.value === '4.56', undefined, { timeout: 10_000 });
     const notice = page.getByRole('alert').filter({ hasText: 'Opened a shared workspace as a new entry' });
     await notice.waitFor();
     expect(await notice.innerText()).toContain('your own, “My workspace”, is kept unchanged');
