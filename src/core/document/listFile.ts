@@ -1,4 +1,4 @@
-import { formatCount } from '../format/quantities.ts';
+import { formatCount } from '../format/marks.ts';
 import { parseDocumentText } from './document.ts';
 import { WORKBENCH_FORMAT } from './workbenchDocument.ts';
 

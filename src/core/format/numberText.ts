@@ -16,10 +16,9 @@ import Decimal from 'decimal.js';
  * The decimals of each quantity are in QUANTITY_DECIMALS (format/quantities.ts).
  */
 
-/** The minus sign of every figure shown to a person: U+2212, as wide as the plus sign. */
-export const MINUS = '\u2212';
-/** What a missing or non-finite figure shows: an em dash. */
-export const NO_VALUE = '\u2014';
+import { groupThousands, isShown, MINUS, NO_VALUE } from './marks.ts';
+
+export { groupThousands, isShown, MINUS, NO_VALUE };
 
 /** Decimal.js with room for any double's digits and rounding half away from zero (money, and the test oracle). */
 const ShownDecimal = Decimal.clone({ precision: 1000, rounding: Decimal.ROUND_HALF_UP, toExpNeg: -9e15, toExpPos: 9e15 });
@@ -75,15 +74,6 @@ export function roundedDigitsByDecimal(x: number, dp: number, scale = 0): string
 /** The digits figure() shows for |x| (no sign, no grouping); for tests against roundedDigitsByDecimal. */
 export const roundedDigitsOf = (x: number, dp: number, scale = 0): string => roundedDigits(x, dp, scale).digits;
 
-/** Whether a value can be shown as a figure (finite number). */
-export const isShown = (x: number | null | undefined): x is number => typeof x === 'number' && Number.isFinite(x);
-
-/** "1234567.89" -> "1,234,567.89": commas every three digits of the whole part. */
-export function groupThousands(text: string): string {
-  const dot = text.indexOf('.');
-  const whole = dot < 0 ? text : text.slice(0, dot);
-  return whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',') + (dot < 0 ? '' : text.slice(dot));
-}
 
 export interface FigureOptions {
   /** Power of ten applied before rounding: 2 shows a decimal rate in percent, 4 in bp. Default 0. */

@@ -105,7 +105,7 @@ export const formatQuotePrice = (p: number | null | undefined): string => figure
 export const formatNumber = (x: number | null | undefined, dp: number): string => figure(x, dp);
 
 /** A count with thousands grouped: 12345 -> "12,345". */
-export const formatCount = (n: number | null | undefined): string => figure(n, 0, { group: true });
+export { formatCount } from './marks.ts';
 
 /**
  * A percent tick on a chart axis: `dp` decimals (from the axis step), trailing zeros dropped down to

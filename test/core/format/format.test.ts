@@ -124,6 +124,21 @@ describe('the one rounding rule', () => {
   });
 });
 
+describe('counts without decimal arithmetic', () => {
+  it('formatCount (format/marks.ts, no decimal.js) equals figure(n, 0, { group: true }) on 20,000 seeded doubles: halves, negatives, beyond 2^53, specials', () => {
+    // Oracle: figure(), whose rounding test/core/format/format.test.ts holds to decimal.js above.
+    let seed = 7;
+    const next = (): number => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const cases: (number | null | undefined)[] = [null, undefined, NaN, Infinity, -Infinity, 0, -0, 0.5, -0.5, 1.5, -2.5, 2 ** 53, -(2 ** 53) - 2, 1e21, -1e22, 123456.4999999, 0.49999999999999994];
+    for (let i = 0; i < 20_000; i++) {
+      const mag = 10 ** Math.floor(next() * 24 - 3);
+      const x = (next() - 0.5) * 2 * mag;
+      cases.push(i % 5 === 0 ? Math.round(x * 2) / 2 : x);
+    }
+    for (const x of cases) expect(formatCount(x), String(x)).toBe(figure(x, 0, { group: true }));
+  });
+});
+
 describe('each quantity', () => {
   it('states its decimals in one table', () => {
     expect(QUANTITY_DECIMALS).toEqual({ rate: 4, quoteRate: 6, coupon: 3, rateShort: 2, bp: 2, price: 4, quotePrice: 6, money: 2 });
