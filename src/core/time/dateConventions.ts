@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { addMonthsCivil, civilFromSerial, daysInMonth, isoFromCivil, parseIsoDate, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
 import { addTenorCivil, parseTenor, type Tenor } from './tenor.ts';
-import { addBusinessDays, adjustSerial, BUILT_IN_CALENDARS, BUSINESS_DAY_RULES, businessCalendar, lastBusinessDayOfMonth, type BusinessCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
+import { addBusinessDays, adjustSerial, BUILT_IN_CALENDARS, BUSINESS_DAY_RULES, businessCalendar, lastBusinessDayOfMonth, outsideCalendar, type BusinessCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
 
 /**
  * The conventions layer for market dates: every date the product makes from a tenor (a quote's
@@ -66,6 +66,23 @@ export function calendarOf(set: ConventionSet): BusinessCalendar | null {
   if (Object.prototype.hasOwnProperty.call(BUILT_IN, set.calendar)) return BUILT_IN[set.calendar]!;
   const joined = businessCalendar(set.calendar);
   return joined.ok ? joined.calendar : null;
+}
+
+/**
+ * The calendar a quote's dates are made on (its set's), checked for the quote: an unknown name is
+ * an error on `base.calendar` that lists the valid ones (calendars.ts words it), and a settlement
+ * date outside the calendar's years is an error naming them. For the readers of deposits and swaps.
+ */
+export function quoteCalendar(set: ConventionSet, settlementSerial: number, base: string, index: number): Result<BusinessCalendar> {
+  const calendar = calendarOf(set);
+  if (calendar === null) {
+    const o = businessCalendar(set.calendar ?? '', set.calendars);
+    const why = o.ok ? `the calendar "${String(set.calendar).slice(0, 60)}" cannot be used` : o.message;
+    return fail(coreError('unknown-identifier', `${base}.calendar`, `${base}.calendar: ${why}`, index));
+  }
+  const outside = outsideCalendar(calendar, settlementSerial);
+  if (outside !== null) return fail(coreError('range', `${base}.calendar`, `${base}.calendar: the settlement date ${outside}`, index));
+  return ok(calendar);
 }
 
 /**

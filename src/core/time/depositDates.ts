@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { addBusinessDays, businessCalendar, outsideCalendar, type BusinessCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
+import { addBusinessDays, outsideCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
 import { civilFromSerial, compareCivil, isoFromCivil, serialFromCivil, type CivilDate } from './date.ts';
-import { calendarOf, marketDateCivil, type ConventionSet } from './dateConventions.ts';
+import { marketDateCivil, quoteCalendar, type ConventionSet } from './dateConventions.ts';
 import type { Tenor } from './tenor.ts';
 
 /**
@@ -56,15 +56,10 @@ export function depositDates(
   index: number,
 ): Result<DepositDates> {
   const set: ConventionSet = { name: `deposit on ${c.calendar}`, calendar: c.calendar, businessDay: c.businessDay, endOfMonth: false, spotLagDays: c.spotLag, ...(c.calendars ? { calendars: c.calendars } : {}) };
-  const calendar: BusinessCalendar | null = calendarOf(set);
-  if (calendar === null) {
-    const o = businessCalendar(c.calendar, c.calendars);
-    const why = o.ok ? `the calendar "${c.calendar.slice(0, 60)}" cannot be used` : o.message;
-    return fail(coreError('unknown-identifier', `${base}.calendar`, `${base}.calendar: ${why}`, index));
-  }
   const s = serialFromCivil(settlement);
-  const outside = outsideCalendar(calendar, s);
-  if (outside !== null) return fail(coreError('range', `${base}.calendar`, `${base}.calendar: the settlement date ${outside}`, index));
+  const checked = quoteCalendar(set, s, base, index);
+  if (!checked.ok) return checked;
+  const calendar = checked.value;
   let start: number;
   let end: number;
   if ('term' in when) {

@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { addBusinessDays, adjustSerial, businessCalendar, outsideCalendar, type BusinessCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
+import { addBusinessDays, adjustSerial, outsideCalendar, type BusinessDayRule, type CalendarContext } from './calendars.ts';
 import { civilFromSerial, compareCivil, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from './date.ts';
-import { calendarOf, marketDateCivil, type ConventionSet } from './dateConventions.ts';
+import { marketDateCivil, quoteCalendar, type ConventionSet } from './dateConventions.ts';
 import type { Tenor } from './tenor.ts';
 
 /**
@@ -58,16 +58,10 @@ export function swapDates(settlement: CivilDate, when: { readonly tenor: Tenor }
   // The conventions layer's set for this swap: its calendar, no adjustment of the raw dates (the
   // rule is applied once, below), the end-of-month rule as asked, no spot lag (counted here).
   const set: ConventionSet = { name: `swap on ${c.calendar}`, calendar: c.calendar, businessDay: 'unadjusted', endOfMonth: c.eom, spotLagDays: 0, ...(c.calendars ? { calendars: c.calendars } : {}) };
-  const calendar: BusinessCalendar | null = calendarOf(set);
-  if (calendar === null) {
-    // calendars.ts words the refusal (it lists the valid names).
-    const o = businessCalendar(c.calendar, c.calendars);
-    const why = o.ok ? `the calendar "${c.calendar.slice(0, 60)}" cannot be used` : o.message;
-    return fail(coreError('unknown-identifier', `${base}.calendar`, `${base}.calendar: ${why}`, index));
-  }
   const settlementSerial = serialFromCivil(settlement);
-  const outside = outsideCalendar(calendar, settlementSerial);
-  if (outside !== null) return fail(coreError('range', `${base}.calendar`, `${base}.calendar: the settlement date ${outside}`, index));
+  const checked = quoteCalendar(set, settlementSerial, base, index);
+  if (!checked.ok) return checked;
+  const calendar = checked.value;
   const startSerial = adjustSerial(addBusinessDays(settlementSerial, c.spotLag, calendar), c.businessDay, calendar);
   const start = civilFromSerial(startSerial);
   const unadjustedEnd = 'tenor' in when ? marketDateCivil(start, when.tenor, set) : when.end;
