@@ -86,6 +86,7 @@ export function HolidaysTab() {
       {!yearOk && <p className="error">The year must be from 1990 to 2100.</p>}
       {view && (
         <EditLock>
+          <div className="table-scroll">
           <table className="data" aria-label={`Closed weekdays of ${id} in ${year}`}>
             <thead>
               <tr>
@@ -104,8 +105,8 @@ export function HolidaysTab() {
                   <td>{c.weekday}</td>
                   <td>{c.source === 'published' ? 'the calendar\u2019s rules' : 'you (this workspace)'}</td>
                   <td>
-                    <button type="button" onClick={() => apply(openDay(id, c.date, edits), `${c.date} is open on ${id} in this workspace.`)}>
-                      Open {c.date}
+                    <button type="button" aria-label={`Open ${c.date}`} onClick={() => apply(openDay(id, c.date, edits), `${c.date} is open on ${id} in this workspace.`)}>
+                      Open
                     </button>
                   </td>
                 </tr>
@@ -116,14 +117,15 @@ export function HolidaysTab() {
                   <td />
                   <td>opened by you</td>
                   <td>
-                    <button type="button" onClick={() => apply(closeDay(id, d, edits), `${d} is closed again on ${id}.`)}>
-                      Close {d} again
+                    <button type="button" aria-label={`Close ${d} again`} onClick={() => apply(closeDay(id, d, edits), `${d} is closed again on ${id}.`)}>
+                      Close again
                     </button>
                   </td>
                 </tr>
               ))}
             </tbody>
           </table>
+          </div>
           <div className="holidays-add">
             <label>
               Close a day
