@@ -40,8 +40,18 @@ export interface DepositQuote extends QuoteCommon {
   /** The workspace's own calendars and edits its dates were made on (absent: the built-ins as published). */
   readonly calendars?: CalendarContext;
 }
-/** Discount bill: bank discount yield (decimal, actual/360) or price per 100. */
-export interface BillQuote extends QuoteCommon {
+/**
+ * A trade settled at spot (a bond's or bill's own `calendar` and `spotLag`): the price is paid on
+ * `settle`, the valuation date plus `spotLag` business days on `calendar`. Absent on a quote that
+ * settles on the valuation date (neither field given), which reads and prices exactly as before.
+ */
+export interface SpotSettled {
+  readonly settle?: IsoDate;
+  readonly calendar?: string;
+  readonly spotLag?: number;
+}
+/** Discount bill: bank discount yield (decimal, actual/360, days from its settlement) or price per 100. */
+export interface BillQuote extends QuoteCommon, SpotSettled {
   readonly kind: 'bill';
   readonly discountYield: number | null;
   readonly price: number | null;
@@ -55,7 +65,7 @@ export interface ZeroQuote extends QuoteCommon {
   readonly dayCount: DayCount;
 }
 /** Fixed-coupon bond: coupon (decimal per year) paid `frequency` times a year; clean price per 100 or ICMA yield. */
-export interface BondQuote extends QuoteCommon {
+export interface BondQuote extends QuoteCommon, SpotSettled {
   readonly kind: 'bond';
   readonly coupon: number;
   readonly frequency: number;

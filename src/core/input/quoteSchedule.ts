@@ -57,7 +57,7 @@ const money = (x: number): number => new Decimal(x).toDecimalPlaces(10, Decimal.
  * frequency x days of the coupon period, ICMA Rule 251), which sets accrued interest.
  */
 export function bondScheduleRows(q: BondQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
-  const s = bondSchedule(q, settlement);
+  const s = bondSchedule(q, q.settle ?? settlement);
   let start = s.previous;
   const rows = s.dates.map((end, i) => {
     const ctx = { termination: q.maturity, eom: q.eom, refStart: start, refEnd: end, frequency: q.frequency };
@@ -68,7 +68,8 @@ export function bondScheduleRows(q: BondQuote, settlement: IsoDate, curve: Curve
     start = end;
     return row;
   });
-  return { rows, accrued: s.accrued, note: `first period starts on the last coupon date ${s.previous}; accrued interest ${formatNumber(s.accrued, 6)} per 100 face` };
+  const spot = q.settle === undefined ? '' : `settles on ${q.settle} (${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after the valuation date on the ${q.calendar} calendar), where the price is paid and the accrued interest counted; `;
+  return { rows, accrued: s.accrued, note: `${spot}first period starts on the last coupon date ${s.previous}; accrued interest ${formatNumber(s.accrued, 6)} per 100 face` };
 }
 
 /**

@@ -111,6 +111,7 @@ export function bondYieldFromDirty(s: YieldSchedule, dirty: number): number | nu
 }
 
 export function compileBond(q: BondQuote, settlement: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
+  if (q.settle !== undefined && q.settle !== isoFromCivil(settlement)) return compileSpotBond(q, civilFromIso(q.settle), maturity, t, time);
   const s = bondScheduleCivil(q, settlement, maturity);
   const times = new Array<number>(s.dates.length); // plain doubles (see Instrument.times)
   const amounts = new Array<number>(s.dates.length);
@@ -150,5 +151,69 @@ class BondInstrument extends CompiledInstrument<BondQuote> {
 
   requote(value: number): Instrument {
     return new BondInstrument(this.quote, this.t, this.times, this.amounts, this.schedule, this.accrued, value);
+  }
+}
+
+/**
+ * A bond settled at spot S (its `settle`: Treasuries T+1, Bunds T+2): the schedule, the accrued
+ * interest and the ICMA yield are all at S, and the dirty price D is paid at S, so
+ *   sum_k CF_k DF(T_k) = D DF(S)
+ * (a coupon paid on S itself is the seller's, as a coupon on the settlement date is excluded).
+ * Flows: 0 at t_S, then the coupons and 100 at their dates, against D DF(S) read off the curve
+ * (`targetFromFlows`, as a deposit starting at spot); `target` is D, the residual's scale.
+ */
+function compileSpotBond(q: BondQuote, settle: CivilDate, maturity: CivilDate, t: number, time: (d: CivilDate) => number): Instrument {
+  const s = bondScheduleCivil(q, settle, maturity);
+  const n = s.dates.length;
+  const times = new Array<number>(n + 1);
+  const amounts = new Array<number>(n + 1);
+  times[0] = time(settle);
+  amounts[0] = 0;
+  for (let j = 0; j < n; j++) {
+    times[j + 1] = time(s.dates[j]!);
+    amounts[j + 1] = s.amounts[j]!;
+  }
+  const yieldSchedule: YieldSchedule = { amounts: s.amounts, w: s.w, frequency: s.frequency, coupon: s.coupon };
+  return new SpotBondInstrument(q, t, times, amounts, yieldSchedule, s.accrued, q.yield !== null ? q.yield : q.cleanPrice!);
+}
+
+class SpotBondInstrument extends CompiledInstrument<BondQuote> {
+  declare readonly unit: 'rate' | 'price';
+  declare readonly field: 'yield' | 'cleanPrice';
+  declare readonly amounts: number[];
+  declare readonly closedFormLn: null;
+  declare readonly schedule: YieldSchedule;
+  /** Accrued interest per 100 face at settlement at spot. */
+  declare readonly accrued: number;
+
+  constructor(q: BondQuote, t: number, times: readonly number[], amounts: number[], schedule: YieldSchedule, accrued: number, value: number) {
+    const byYield = q.yield !== null;
+    super(q, t, times, byYield ? 'rate' : 'price', byYield ? 'yield' : 'cleanPrice', value, amounts, byYield ? bondDirtyFromYield(schedule, value).price : value + accrued, null, DISCOUNTING);
+    this.schedule = schedule;
+    this.accrued = accrued;
+  }
+
+  /** D DF(S): what the coupons and principal must be worth today. */
+  targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return this.target * df[offset]!;
+  }
+
+  /** d(D DF(S)) / d ln DF: D DF(S) at S, nothing at the coupon dates. */
+  targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
+    out[0] = this.target * df[offset]!;
+    for (let j = 1; j < this.amounts.length; j++) out[j] = 0;
+  }
+
+  /** The clean price at S, sum CF DF / DF(S) - accrued, or the ICMA yield at S of that dirty price. */
+  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    const { amounts } = this;
+    let pv = 0;
+    for (let j = 1; j < amounts.length; j++) pv += amounts[j]! * df[offset + j]!;
+    const dirty = pv / df[offset]!;
+    return this.unit === 'rate' ? (bondYieldFromDirty(this.schedule, dirty) ?? Number.NaN) : dirty - this.accrued;
+  }
+
+  requote(value: number): Instrument {
+    return new SpotBondInstrument(this.quote, this.t, this.times, this.amounts, this.schedule, this.accrued, value);
   }
 }

@@ -57,22 +57,30 @@ export const CONVENTION_SETS: readonly ConventionSetDefinition[] = [
   },
   {
     id: 'us-treasury',
-    title: 'US Treasury notes and bonds',
-    // Notes and bonds pay semiannually on ACT/ACT-ICMA; the daily par yield curve is on the same basis (MARKET-CONVENTIONS.md g).
-    fields: { bond: { frequency: 2, dayCount: 'ACT/ACT-ICMA' }, 'par-yield': { frequency: 2, dayCount: 'ACT/ACT-ICMA' } },
-    note: 'the market settles Treasuries T+1 on the US government securities calendar; here a bond settles on the valuation date',
+    title: 'US Treasury bills, notes and bonds',
+    // Notes and bonds pay semiannually on ACT/ACT-ICMA; bills and coupons settle T+1 on the US
+    // government securities calendar (MARKET-CONVENTIONS.md c, quantlib-old#231); the daily par
+    // yield curve is on the coupon basis and is a curve of the day, so it takes no settlement (g).
+    fields: {
+      bond: { frequency: 2, dayCount: 'ACT/ACT-ICMA', calendar: 'us-gov-securities', spotLag: 1 },
+      bill: { calendar: 'us-gov-securities', spotLag: 1 },
+      'par-yield': { frequency: 2, dayCount: 'ACT/ACT-ICMA' },
+    },
+    note: '',
   },
   {
     id: 'euro-govt',
     title: 'Euro area government bonds',
-    fields: { bond: { frequency: 1, dayCount: 'ACT/ACT-ICMA' } },
-    note: 'the market settles them T+2 on TARGET; here a bond settles on the valuation date',
+    // Annual ACT/ACT-ICMA coupons, T+2 on TARGET (MARKET-CONVENTIONS.md c, German Bunds: quantlib-old PR#219).
+    fields: { bond: { frequency: 1, dayCount: 'ACT/ACT-ICMA', calendar: 'target', spotLag: 2 } },
+    note: '',
   },
   {
     id: 'uk-gilt',
     title: 'UK gilts',
-    fields: { bond: { frequency: 2, dayCount: 'ACT/ACT-ICMA' } },
-    note: 'the market settles gilts T+1 on England and Wales days; here a bond settles on the valuation date',
+    // Semiannual ACT/ACT-ICMA coupons, T+1 on England and Wales days (MARKET-CONVENTIONS.md c, a secondary source).
+    fields: { bond: { frequency: 2, dayCount: 'ACT/ACT-ICMA', calendar: 'england-wales', spotLag: 1 } },
+    note: 'gilts trade ex-dividend seven business days before a coupon; a gilt quoted in that window is priced here as if cum-dividend',
   },
 ];
 

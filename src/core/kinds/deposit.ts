@@ -2,7 +2,7 @@ import type { DepositQuote } from '../document/types.ts';
 import { compileDeposit } from '../instruments/deposit.ts';
 import { DISCOUNTING } from '../instruments/instrument.ts';
 import { ok } from '../result.ts';
-import { noCouponPeriod, readCalendar, readChoice, readDayCount, readRate, readWhole, required, RATE_TEXT } from './fields.ts';
+import { MAX_LAG, noCouponPeriod, readCalendar, readChoice, readDayCount, readRate, readWhole, required, RATE_TEXT } from './fields.ts';
 import { coreError } from '../result.ts';
 import { BUSINESS_DAY_RULES, type BusinessDayRule } from '../time/calendars.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
@@ -13,9 +13,6 @@ import { flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from '.
 import type { Instrument } from '../instruments/instrument.ts';
 import type { QuoteKindModule } from './types.ts';
 import { rateTag } from '../format/conventionTag.ts';
-
-/** The longest spot lag accepted, in business days (as the OIS kind's). */
-const MAX_LAG = 30;
 
 /**
  * Money-market deposit from its start S to maturity E at a simple rate r (decimal) on its day

@@ -1,7 +1,8 @@
 import { coreError, type CoreError } from '../result.ts';
 import { DAY_COUNTS, isDayCount, type DayCount } from '../time/dayCount.ts';
-import { BUILT_IN_CALENDARS } from '../time/calendars.ts';
-import type { IsoDate } from '../time/date.ts';
+import { addBusinessDays, BUILT_IN_CALENDARS, type CalendarContext } from '../time/calendars.ts';
+import { quoteCalendar, type ConventionSet } from '../time/dateConventions.ts';
+import { compareIso, isoFromSerial, serialFromIso, type IsoDate } from '../time/date.ts';
 
 /**
  * The field readers every quote kind's schema is written with, and the ranges they check
@@ -136,4 +137,41 @@ export function readCalendar(raw: RawQuote, base: string, index: number, errors:
   if (typeof v === 'string') return v;
   errors.push(coreError('schema', `${base}.calendar`, `${base}.calendar: must be a calendar name, one of ${BUILT_IN_CALENDARS.join(', ')} (joined with + if several), not ${typeName(v)}`, index));
   return null;
+}
+
+/** The longest spot, settlement or payment lag a quote takes, in business days. */
+export const MAX_LAG = 30;
+
+/** A trade's settlement at spot: the date, and the calendar and lag that made it. */
+export interface SpotSettlement {
+  readonly settle: IsoDate;
+  readonly calendar: string;
+  readonly spotLag: number;
+}
+
+/**
+ * A quote's own settlement date when it gives `calendar` or `spotLag` (bonds and bills, which the
+ * market settles T+1 or T+2): the valuation date plus `spotLag` business days (default 0) on
+ * `calendar` (default `weekends`). Undefined when the quote gives neither (it settles on the
+ * valuation date, as before); null with path-named errors when a field is wrong, the calendar
+ * unknown, or the maturity not after the settlement.
+ */
+export function readSpotSettlement(raw: RawQuote, base: string, index: number, errors: CoreError[], valuation: IsoDate | undefined, maturity: IsoDate | null, calendars: CalendarContext | undefined): SpotSettlement | null | undefined {
+  if (raw.calendar === undefined && raw.spotLag === undefined) return undefined;
+  const calendar = readCalendar(raw, base, index, errors);
+  const spotLag = readWhole(raw, base, index, errors, 'spotLag', 0, MAX_LAG, 'business days', 0);
+  if (calendar === null || spotLag === null || valuation === undefined || maturity === null) return null;
+  const set: ConventionSet = { name: `settlement on ${calendar}`, calendar, businessDay: 'unadjusted', endOfMonth: false, spotLagDays: 0, ...(calendars ? { calendars } : {}) };
+  const v = serialFromIso(valuation);
+  const checked = quoteCalendar(set, v, base, index);
+  if (!checked.ok) {
+    errors.push(...checked.errors);
+    return null;
+  }
+  const settle = isoFromSerial(addBusinessDays(v, spotLag, checked.value));
+  if (compareIso(maturity, settle) <= 0) {
+    errors.push(coreError('before-settlement', `${base}.maturity`, `${base}.maturity: ${maturity} is not after the trade's settlement ${settle} (the valuation date ${valuation} plus ${spotLag} business days on ${calendar}); give a later maturity`, index));
+    return null;
+  }
+  return { settle, calendar, spotLag };
 }

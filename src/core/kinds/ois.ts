@@ -8,15 +8,13 @@ import { civilFromIso, isoFromCivil } from '../time/date.ts';
 import type { DayCount } from '../time/dayCount.ts';
 import { parseTenor } from '../time/tenor.ts';
 import { swapDates } from '../time/swapSchedule.ts';
-import { readChoice, readDayCount, readEom, readFrequency, readRate, readWhole, required, readCalendar, RATE_TEXT } from './fields.ts';
+import { MAX_LAG, readChoice, readDayCount, readEom, readFrequency, readRate, readWhole, required, readCalendar, RATE_TEXT } from './fields.ts';
 import { compoundingOfFrequency, flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from './shared.ts';
 import { couponTag } from '../format/conventionTag.ts';
 import type { QuoteDates, QuoteKindModule } from './types.ts';
 
 /** The overnight rate's day bases: D = 360 (SOFR, €STR) or 365 (SONIA) (MARKET-CONVENTIONS.md section d). */
 const FLOAT_DAY_COUNTS: readonly DayCount[] = ['ACT/360', 'ACT/365F'];
-/** The longest spot or payment lag accepted, in business days (the conventions layer's spot-lag bound). */
-const MAX_LAG = 30;
 
 /**
  * Overnight-index swap on one curve (instruments/ois.ts): fixed rate (decimal) against the

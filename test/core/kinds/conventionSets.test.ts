@@ -16,7 +16,7 @@ import { runCurveCommand } from '../../../src/cli/curveCommand.ts';
 
 /** A quote of `kind` with its value field (invented values). */
 const head = (kind: string, tenor: string): Record<string, unknown> =>
-  kind === 'bond' ? { kind, maturity: '2031-05-15', coupon: 0.04, cleanPrice: 101 } : kind === 'par-yield' ? { kind, tenor, yield: 0.03 } : { kind, tenor, rate: 0.03 };
+  kind === 'bond' ? { kind, maturity: '2031-05-15', coupon: 0.04, cleanPrice: 101 } : kind === 'bill' ? { kind, tenor, discountYield: 0.03 } : kind === 'par-yield' ? { kind, tenor, yield: 0.03 } : { kind, tenor, rate: 0.03 };
 const doc = (quotes: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'tenorscope-workspace', version: 2, valuationDate: '2027-12-22', ...extra, quotes });
 
 describe('the sets hold the published conventions', () => {
@@ -24,6 +24,12 @@ describe('the sets hold the published conventions', () => {
     expect(conventionSet('usd-sofr')!.fields.ois).toEqual({ calendar: 'us-gov-securities', spotLag: 2, businessDay: 'modified-following', paymentLag: 2, frequency: 1, dayCount: 'ACT/360', floatDayCount: 'ACT/360' });
     expect(conventionSet('eur-estr')!.fields.ois).toEqual({ calendar: 'target', spotLag: 2, businessDay: 'modified-following', paymentLag: 1, frequency: 1, dayCount: 'ACT/360', floatDayCount: 'ACT/360' });
     expect(conventionSet('gbp-sonia')!.fields.ois).toEqual({ calendar: 'england-wales', spotLag: 0, businessDay: 'modified-following', paymentLag: 0, frequency: 1, dayCount: 'ACT/365F', floatDayCount: 'ACT/365F' });
+  });
+  it('the government bond sets settle as section c states: Treasuries T+1 on US government securities days (bills too), Bunds T+2 on TARGET, gilts T+1 on England and Wales days', () => {
+    expect(conventionSet('us-treasury')!.fields.bond).toEqual({ frequency: 2, dayCount: 'ACT/ACT-ICMA', calendar: 'us-gov-securities', spotLag: 1 });
+    expect(conventionSet('us-treasury')!.fields.bill).toEqual({ calendar: 'us-gov-securities', spotLag: 1 });
+    expect(conventionSet('euro-govt')!.fields.bond).toEqual({ frequency: 1, dayCount: 'ACT/ACT-ICMA', calendar: 'target', spotLag: 2 });
+    expect(conventionSet('uk-gilt')!.fields.bond).toEqual({ frequency: 2, dayCount: 'ACT/ACT-ICMA', calendar: 'england-wales', spotLag: 1 });
   });
   it('every field a set fills is one its kind takes, with a value the kind accepts (a quote with only the set validates)', () => {
     for (const set of CONVENTION_SETS) {
