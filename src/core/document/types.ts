@@ -39,6 +39,8 @@ export interface DepositQuote extends QuoteCommon {
   readonly businessDay: BusinessDayRule | null;
   /** The workspace's own calendars and edits its dates were made on (absent: the built-ins as published). */
   readonly calendars?: CalendarContext;
+  /** For a tenor on a calendar: the end before the business-day rule (the quote check shows both). */
+  readonly unadjustedEnd?: IsoDate;
 }
 /**
  * A trade settled at spot (a bond's or bill's own `calendar` and `spotLag`): the price is paid on

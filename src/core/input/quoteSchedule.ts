@@ -122,8 +122,10 @@ export function depositScheduleRows(q: DepositQuote, _settlement: IsoDate, curve
   const tau = yearFraction(q.dayCount, q.start, q.maturity, { termination: q.maturity });
   const cashFlow = money(100 * (1 + q.rate * tau));
   const { discount, t } = df(curve, q.maturity);
-  const rows = [{ start: q.start, end: q.maturity, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t }];
-  const on = q.calendar === null ? 'from settlement, dates unadjusted' : `on the ${q.calendar} calendar${q.spotLag ? `, spot ${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after settlement` : ''}`;
+  const moved = q.unadjustedEnd === undefined ? {} : { accrualEnd: q.maturity, unadjustedAccrualEnd: q.unadjustedEnd };
+  const rows = [{ start: q.start, end: q.maturity, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t, ...moved }];
+  const rule = q.businessDay === null ? '' : `, its end moved by ${q.businessDay}`;
+  const on = q.calendar === null ? 'from settlement, dates unadjusted' : `on the ${q.calendar} calendar${q.spotLag ? `, spot ${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after settlement` : ''}${rule}`;
   return { rows, accrued: 0, note: `deposit per 100 placed on ${q.start}, repaid with interest on ${q.maturity}; ${on}` };
 }
 

@@ -68,6 +68,7 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
       return {
         kind: 'deposit', index, maturity: isoFromCivil(dates.value.end), tenor, enabled, rate, dayCount,
         start: isoFromCivil(dates.value.start), calendar, spotLag, businessDay, ...(calendars ? { calendars } : {}),
+        ...(dates.value.unadjustedEnd ? { unadjustedEnd: isoFromCivil(dates.value.unadjustedEnd) } : {}),
       };
     },
   },

@@ -30,10 +30,11 @@ export interface DepositDateConventions {
   readonly calendars?: CalendarContext;
 }
 
-/** A deposit's start and end. */
+/** A deposit's start and end; for a tenor, also its end before the business-day rule. */
 export interface DepositDates {
   readonly start: CivilDate;
   readonly end: CivilDate;
+  readonly unadjustedEnd?: CivilDate;
 }
 
 /**
@@ -62,6 +63,7 @@ export function depositDates(
   const calendar = checked.value;
   let start: number;
   let end: number;
+  let unadjustedEnd: CivilDate | undefined;
   if ('term' in when) {
     if (when.term === 'ON') [start, end] = [s, addBusinessDays(s, 1, calendar)];
     else if (when.term === 'TN') [start, end] = [addBusinessDays(s, 1, calendar), addBusinessDays(s, 2, calendar)];
@@ -72,6 +74,7 @@ export function depositDates(
   } else {
     start = addBusinessDays(s, c.spotLag, calendar);
     end = 'tenor' in when ? serialFromCivil(marketDateCivil(settlement, when.tenor, set)) : serialFromCivil(when.end);
+    if ('tenor' in when) unadjustedEnd = marketDateCivil(settlement, when.tenor, { ...set, businessDay: 'unadjusted' });
   }
   const startDate = civilFromSerial(start);
   const endDate = civilFromSerial(end);
@@ -80,5 +83,5 @@ export function depositDates(
   }
   const endOutside = outsideCalendar(calendar, end);
   if (endOutside !== null) return fail(coreError('range', `${base}.calendar`, `${base}.calendar: the deposit's end ${endOutside}`, index));
-  return ok({ start: startDate, end: endDate });
+  return ok({ start: startDate, end: endDate, ...(unadjustedEnd ? { unadjustedEnd } : {}) });
 }

@@ -314,3 +314,14 @@ describe('risk on a curve with TN and SN deposits reads their target DF(S) (targ
     expect(maxAbsDiff(map.value.values, rich)).toBeLessThanOrEqual(1e-6);
   });
 });
+
+describe('a deposit tenor on a calendar shows its end before and after the rule', () => {
+  it('€STR 1M from Tuesday 2027-05-25: spot Thursday 2027-05-27 (T+2 on TARGET), 1M ends Sunday 2027-06-27, modified following moves it to Monday 2027-06-28', () => {
+    // Conventions: MARKET-CONVENTIONS.md c (euro deposits T+2 on TARGET); the rule: 2006 ISDA Definitions 4.12 (modified following).
+    const v = validateWorkspace({ format: 'tenorscope-workspace', version: 2, valuationDate: '2027-05-25', quotes: [{ kind: 'deposit', tenor: '1M', rate: 0.021, conventions: 'eur-estr' }] });
+    const q = v.workspace!.quotes[0]!;
+    const s = quoteSchedule(q, '2027-05-25', null)!;
+    expect(s.rows.map((r) => [r.start, r.unadjustedAccrualEnd, r.accrualEnd, r.end])).toEqual([['2027-05-27', '2027-06-27', '2027-06-28', '2027-06-28']]);
+    expect(s.note).toMatch(/on the target calendar, spot 2 business days after settlement, its end moved by modified-following/);
+  });
+});
