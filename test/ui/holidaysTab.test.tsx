@@ -64,3 +64,36 @@ describe('HolidaysTab', () => {
     expect(s().workspace.calendars).toBeUndefined();
   });
 });
+
+describe('calendars of your own', () => {
+  it('a pasted list becomes a calendar of the workspace; joined to TARGET it closes the €STR rows\' calendar on its days too (spot moves); deleting it ends the join; each step undoes', () => {
+    render(<HolidaysTab />);
+    const spot = () => (buildCurve(toEngineDocument(s().workspace).doc, { skipInvalid: true }).workspace!.quotes.find((q) => q.kind === 'deposit') as { start: string }).start;
+    expect(spot()).toBe('2027-03-30'); // Wednesday 2027-03-24 + 2 TARGET days over Easter
+    fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'desk-days' } });
+    fireEvent.change(screen.getByLabelText('Its holidays, one per line'), { target: { value: '2027-03-30\nsoon' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save this calendar' }));
+    expect(s().workspace.customCalendars).toEqual({ 'desk-days': { holidays: ['2027-03-30'] } });
+    expect(within(screen.getByRole('region', { name: 'Calendars of your own' })).getByRole('status')).toHaveTextContent('Saved “desk-days” with 1 day; not taken: line 2 (soon)');
+    expect(spot()).toBe('2027-03-30'); // saved, not yet joined
+    fireEvent.change(screen.getByRole('combobox', { name: /Also close the deposit and OIS rows/ }), { target: { value: 'desk-days' } });
+    expect(s().workspace.curve.joinCalendar).toBe('desk-days');
+    expect(spot()).toBe('2027-03-31'); // 30 March closed on the joined calendar too
+    fireEvent.click(screen.getByRole('button', { name: 'Delete the calendar desk-days' }));
+    expect(s().workspace.customCalendars).toBeUndefined();
+    expect(s().workspace.curve.joinCalendar).toBeUndefined();
+    expect(spot()).toBe('2027-03-30');
+    act(() => s().undo());
+    expect(s().workspace.curve.joinCalendar).toBe('desk-days');
+    expect(spot()).toBe('2027-03-31');
+  });
+
+  it('a name that is a built-in calendar, or not of the stated form, is refused with the reason', () => {
+    render(<HolidaysTab />);
+    fireEvent.change(screen.getByLabelText('Name'), { target: { value: 'target' } });
+    fireEvent.change(screen.getByLabelText('Its holidays, one per line'), { target: { value: '2027-03-30' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save this calendar' }));
+    expect(within(screen.getByRole('region', { name: 'Calendars of your own' })).getByRole('status')).toHaveTextContent('Not saved: "target" is a built-in calendar');
+    expect(s().workspace.customCalendars).toBeUndefined();
+  });
+});

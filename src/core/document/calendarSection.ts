@@ -17,6 +17,13 @@ import { isPlainObject } from './plainObject.ts';
 /** A custom calendar's name: a lower-case letter, then letters, digits and hyphens (no `+`, which joins calendars). */
 const CUSTOM_NAME = /^[a-z][a-z0-9-]*$/;
 
+/** Why `name` cannot name a calendar of the workspace's own (the form, a built-in id), or null. */
+export function customCalendarNameProblem(name: string): string | null {
+  if (!CUSTOM_NAME.test(name) || name.length > LIMITS.id) return `a calendar's name is a lower-case letter followed by letters, digits and hyphens, at most ${LIMITS.id} characters (such as "desk-holidays")`;
+  if (isBuiltInCalendar(name)) return `"${name}" is a built-in calendar; give your own calendar another name`;
+  return null;
+}
+
 function readDates(v: unknown, path: string, errors: CoreError[]): IsoDate[] | null {
   if (!Array.isArray(v)) {
     errors.push(coreError('schema', path, `${path} must be a list of dates YYYY-MM-DD, not ${typeName(v)}`));

@@ -44,10 +44,7 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   const first = validateWorkspace(raw);
   if (!first.workspace || first.errors.length > 0) return fail(...first.errors);
   const doc = raw as Record<string, unknown>;
-  if (doc.customCalendars !== undefined && Object.keys(doc.customCalendars as object).length > 0) {
-    // Said alone: every quote on such a calendar would read differently without it.
-    return fail(coreError('schema', 'customCalendars', "customCalendars (calendars of the file's own, from lists of dates) has no place in the workbench yet; build this file with the curve command, or remove customCalendars to open it here"));
-  }
+
   const rawQuotes = doc.quotes as readonly Record<string, unknown>[];
   const quotes: QuoteRow[] = rawQuotes.map((q) => {
     const row: Record<string, unknown> = { id: makeId(), enabled: q.enabled !== false };
@@ -59,16 +56,20 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   // take it); the check below refuses the file when that would change any quote.
   const named = [...new Set(rawQuotes.map((q) => q.conventions).filter((c) => c !== undefined))];
   const market = named.length === 1 && isMarketConventions(named[0]) && named[0] !== 'none' ? named[0] : null;
+  // A calendar of the file's own joined to the set's calendar on those quotes (`target+desk-days`) opens as the workbench's joined calendar.
+  const joins = [...new Set(rawQuotes.map((q) => (typeof q.calendar === 'string' && q.calendar.includes('+') ? q.calendar.slice(q.calendar.lastIndexOf('+') + 1) : undefined)).filter((c) => c !== undefined))];
+  const joinCalendar = market && joins.length === 1 ? joins[0] : null;
   const out: Record<string, unknown> = {
     format: WORKBENCH_FORMAT,
     version: WORKBENCH_VERSION,
     settlement: ws.settlement,
-    curve: { dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation, ...(market ? { conventions: market } : {}) },
+    curve: { dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation, ...(market ? { conventions: market } : {}), ...(joinCalendar ? { joinCalendar } : {}) },
     quoteUnit: 'decimal',
     quotes,
     display: DEFAULT_DISPLAY,
   };
   if (doc.calendars !== undefined && Object.keys(doc.calendars as object).length > 0) out.calendars = doc.calendars;
+  if (doc.customCalendars !== undefined && Object.keys(doc.customCalendars as object).length > 0) out.customCalendars = doc.customCalendars;
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) out[key] = doc[key];
   const wb = out as unknown as WorkbenchDocument;
   const again = validateWorkspace(toEngineDocument(wb).doc);

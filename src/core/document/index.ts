@@ -12,3 +12,4 @@ export * from './workbenchDocument.ts';
 export * from './workbenchShape.ts';
 export * from './documentBridge.ts';
 export * from './listFile.ts';
+export { customCalendarNameProblem } from './calendarSection.ts';

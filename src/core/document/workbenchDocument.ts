@@ -11,7 +11,7 @@ import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssue
 import { isPlainObject } from './plainObject.ts';
 import { CONVENTION_SETS, conventionSet } from '../kinds/conventionSets.ts';
 import type { QuoteKind } from './types.ts';
-import type { CalendarEdits } from '../time/calendars.ts';
+import type { CalendarEdits, CustomCalendar } from '../time/calendars.ts';
 
 /**
  * The workbench's market conventions (`curve.conventions`): none, or a convention set that fills
@@ -61,7 +61,14 @@ export interface WorkbenchDocument {
    * `conventions` (absent: none): a convention set (kinds/conventionSets.ts) every deposit and
    * overnight-index swap row takes, as the engine document's per-quote `conventions`.
    */
-  readonly curve: { readonly dayCount: CurveDayCount; readonly interpolation: InterpolationId; readonly extrapolation: Extrapolation; readonly conventions?: string };
+  readonly curve: {
+    readonly dayCount: CurveDayCount;
+    readonly interpolation: InterpolationId;
+    readonly extrapolation: Extrapolation;
+    readonly conventions?: string;
+    /** A calendar of the workspace's own (customCalendars) joined to the market conventions' calendar for the deposit and OIS rows (absent: none). */
+    readonly joinCalendar?: string;
+  };
   readonly quoteUnit: QuoteUnitMode;
   readonly quotes: readonly QuoteRow[];
   readonly display: DisplaySettings;
@@ -71,6 +78,8 @@ export interface WorkbenchDocument {
    * `calendars` section, as is.
    */
   readonly calendars?: Readonly<Record<string, CalendarEdits>>;
+  /** Calendars of the workspace's own, from lists of dates (the engine document's `customCalendars`, as is). */
+  readonly customCalendars?: Readonly<Record<string, CustomCalendar>>;
   readonly strategy?: unknown;
   readonly scenarios?: unknown;
   readonly snapshots?: unknown;
@@ -114,7 +123,7 @@ export interface EngineConversion {
  * a caching wrapper of `parseRow` (the UI keeps one so a one-cell edit re-parses one row).
  */
 export function toEngineDocument(
-  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
+  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars' | 'customCalendars'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
   parse: (row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions) => RowParse = parseRow): EngineConversion {
   const conventions = conventionsOf(doc);
   const rows = doc.quotes.map((r) => parse(r, doc.quoteUnit, conventions));
@@ -129,13 +138,17 @@ export function toEngineDocument(
       rowOfQuote.push(i);
     } else invalidRows++;
   });
-  const { conventions: market, ...curve } = doc.curve;
+  const { conventions: market, joinCalendar, ...curve } = doc.curve;
   if (market !== undefined && market !== 'none') {
-    // The workspace's market conventions go on each quote of a kind the set fills (deposits and overnight swaps).
+    // The workspace's market conventions go on each quote of a kind the set fills (deposits and
+    // overnight swaps); a calendar of its own joined to the set's is that quote's calendar.
     const set = conventionSet(market);
     for (let i = 0; i < quotes.length; i++) {
       const kind = quotes[i]!.kind as QuoteKind;
-      if (set?.fields[kind] !== undefined) quotes[i] = { ...quotes[i], conventions: market };
+      const fields = set?.fields[kind];
+      if (fields === undefined) continue;
+      const joined = joinCalendar && typeof fields.calendar === 'string' ? { calendar: `${fields.calendar}+${joinCalendar}` } : {};
+      quotes[i] = { ...quotes[i], conventions: market, ...joined };
     }
   }
   const engine: Record<string, unknown> = {
@@ -143,6 +156,7 @@ export function toEngineDocument(
     version: WORKSPACE_VERSION,
     valuationDate: doc.settlement,
     ...(doc.calendars !== undefined && Object.keys(doc.calendars).length > 0 ? { calendars: doc.calendars } : {}),
+    ...(doc.customCalendars !== undefined && Object.keys(doc.customCalendars).length > 0 ? { customCalendars: doc.customCalendars } : {}),
     curve,
     quotes,
   };
@@ -239,6 +253,7 @@ export function unknownSettings(raw: unknown): UnknownSetting[] {
     for (const [k, x] of Object.entries(v)) {
       const spec = known[k];
       const path = `${group}.${k.slice(0, 40)}`;
+      if (group === 'curve' && k === 'joinCalendar' && typeof x === 'string') continue; // a name of the document's own calendars, checked when it builds
       if (!spec) out.push({ path, value: shown(x), supported: Object.keys(known), fallback: null, unknownName: true });
       else if (!spec.values.includes(x as never)) out.push({ path, value: shown(x), supported: spec.values.map(String), fallback: spec.fallback, unknownName: false });
     }
@@ -354,6 +369,8 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
       extrapolation: pick(curve.extrapolation, isExtrapolation, 'none'),
       // Absent stays absent (a document saved before the setting existed reads as it was written).
       ...(curve.conventions === undefined ? {} : { conventions: pick(curve.conventions, isMarketConventions, 'none') }),
+      // A name of the document's own calendars (the engine names an unknown one when it builds).
+      ...(typeof curve.joinCalendar === 'string' ? { joinCalendar: curve.joinCalendar } : {}),
     },
     quoteUnit: pick(raw.quoteUnit, isQuoteUnitMode, 'percent'),
     quotes,
@@ -373,6 +390,7 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
   };
   // Calendar edits are kept as saved (the engine checks them and says what is wrong, naming the date).
   if (isPlainObject(raw.calendars)) doc.calendars = raw.calendars;
+  if (isPlainObject(raw.customCalendars)) doc.customCalendars = raw.customCalendars;
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];
   return { doc: doc as unknown as WorkbenchDocument, problem: null, changes };
 }

@@ -5,7 +5,7 @@ import { RESERVED_KEYS } from './validate.ts';
 import { LIMITS } from './limits.ts';
 import { isPlainObject } from './plainObject.ts';
 
-const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', ...RESERVED_KEYS];
+const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', 'customCalendars', ...RESERVED_KEYS];
 const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
 /** Characters of one typed cell or row id (LIMITS.cell). */
 export const CELL_MAX = LIMITS.cell;
@@ -22,6 +22,12 @@ const calendarEditsShape = (v: unknown): boolean =>
     (e) => isPlainObject(e) && Object.keys(e).every((k) => k === 'add' || k === 'remove') && Object.values(e).every((list) => Array.isArray(list) && list.length <= LIMITS.calendarDates && list.every((d) => shortText(d, 10))),
   );
 
+/** The shape of `customCalendars`: at most 10 calendars of short names, each a `holidays` list of short text (the engine checks names and dates). */
+const customCalendarsShape = (v: unknown): boolean =>
+  isPlainObject(v) &&
+  Object.keys(v).length <= 10 &&
+  Object.entries(v).every(([name, c]) => name.length <= LIMITS.id && isPlainObject(c) && Object.keys(c).every((k) => k === 'holidays') && Array.isArray(c.holidays) && c.holidays.length <= LIMITS.calendarDates && c.holidays.every((d) => shortText(d, 10)));
+
 /**
  * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
  * read from untrusted input, strictly: known keys only, at most LIMITS.quotes rows, every cell
@@ -37,6 +43,7 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   if (!flatSettings(raw.curve)) errors.push(coreError('schema', 'curve', 'curve must be an object of short settings'));
   if (!flatSettings(raw.display)) errors.push(coreError('schema', 'display', 'display must be an object of short settings'));
   if (raw.calendars !== undefined && !calendarEditsShape(raw.calendars)) errors.push(coreError('schema', 'calendars', `calendars must be an object of edits by calendar id, each {"add": [dates], "remove": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
+  if (raw.customCalendars !== undefined && !customCalendarsShape(raw.customCalendars)) errors.push(coreError('schema', 'customCalendars', `customCalendars must be an object of calendars by name (at most ${LIMITS.id} characters), each {"holidays": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
   if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));
   if (!Array.isArray(raw.quotes)) errors.push(coreError('schema', 'quotes', 'quotes must be a list of rows'));
   else if (raw.quotes.length > LIMITS.quotes) errors.push(coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`));

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { BUILT_IN_CALENDARS, calendarYear, closeDay, conventionSet, isBuiltInCalendar, openDay, readDateList, type BuiltInCalendarId, type CalendarEdits, type EditOutcome } from '../../core/index.ts';
+import { BUILT_IN_CALENDARS, calendarYear, closeDay, conventionSet, customCalendarNameProblem, isBuiltInCalendar, openDay, readDateList, type BuiltInCalendarId, type CalendarEdits, type EditOutcome } from '../../core/index.ts';
 import { EditLock } from '../../components/EditLock.tsx';
 import { useAppStore } from '../../state/store.ts';
 
@@ -152,6 +152,93 @@ export function HolidaysTab() {
           {message}
         </p>
       )}
+      <OwnCalendars market={ofMarket} />
     </div>
+  );
+}
+
+/**
+ * Calendars of the workspace's own, each from a pasted list of dates (weekends are Saturday and
+ * Sunday), and which of them also closes the market conventions' calendar for the deposit and OIS
+ * rows (a day closed on either is closed). Kept in the workspace document (`customCalendars`,
+ * `curve.joinCalendar`): saved, undone, in the link and the file.
+ */
+function OwnCalendars({ market }: { market: BuiltInCalendarId | null }) {
+  const own = useAppStore((s) => s.workspace.customCalendars);
+  const join = useAppStore((s) => s.workspace.curve.joinCalendar);
+  const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
+  const [name, setName] = useState('');
+  const [list, setList] = useState('');
+  const [message, setMessage] = useState<string | null>(null);
+  const names = Object.keys(own ?? {});
+  const save = (): void => {
+    const problem = customCalendarNameProblem(name.trim());
+    if (problem) {
+      setMessage(`Not saved: ${problem}.`);
+      return;
+    }
+    const r = readDateList(list, dateOrder);
+    if (r.dates.length === 0) {
+      setMessage('Not saved: the list has no date (one per line, YYYY-MM-DD or as the sheet reads dates).');
+      return;
+    }
+    useAppStore.getState().setCustomCalendar(name.trim(), r.dates);
+    const skipped = r.problems.map((p) => `line ${p.line} (${p.text}): ${p.message}`);
+    setMessage(`Saved “${name.trim()}” with ${r.dates.length} ${r.dates.length === 1 ? 'day' : 'days'}${skipped.length ? `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}` : ''}.`);
+    setList('');
+  };
+  return (
+    <section className="own-calendars" aria-label="Calendars of your own">
+      <h3>Calendars of your own</h3>
+      <EditLock>
+        {names.length > 0 && (
+          <ul>
+            {names.map((n) => (
+              <li key={n}>
+                {n}: {own![n]!.holidays.length} {own![n]!.holidays.length === 1 ? 'day' : 'days'}{' '}
+                <button type="button" aria-label={`Delete the calendar ${n}`} onClick={() => useAppStore.getState().setCustomCalendar(n, null)}>
+                  Delete
+                </button>
+              </li>
+            ))}
+          </ul>
+        )}
+        <label>
+          Also close the deposit and OIS rows&rsquo; calendar on
+          <select
+            value={join ?? ''}
+            disabled={market === null || names.length === 0}
+            onChange={(e) => useAppStore.getState().setJoinCalendar(e.target.value === '' ? null : e.target.value)}
+          >
+            <option value="">no calendar of your own</option>
+            {names.map((n) => (
+              <option key={n} value={n}>
+                {n}
+              </option>
+            ))}
+          </select>
+        </label>
+        {market === null && <p className="muted small">Choose Market conventions in the Curve settings first: the rows then have a calendar to join yours to.</p>}
+        <details>
+          <summary>Make a calendar from a list of dates</summary>
+          <label>
+            Name
+            <input value={name} onChange={(e) => setName(e.target.value)} placeholder="desk-holidays" />
+          </label>
+          <label>
+            Its holidays, one per line
+            <textarea rows={4} value={list} onChange={(e) => setList(e.target.value)} />
+          </label>
+          <button type="button" disabled={name.trim() === '' || list.trim() === ''} onClick={save}>
+            Save this calendar
+          </button>
+        </details>
+      </EditLock>
+      {message && (
+        <p role="status" className="small">
+          {message}
+        </p>
+      )}
+    </section>
   );
 }

@@ -45,6 +45,13 @@ export interface WorkspaceSlice {
   setCurve(patch: Partial<WorkbenchDocument['curve']>): void;
   /** Replaces one built-in calendar's edits (dates closed and opened); empty edits remove its entry. One undoable step. */
   setCalendarEdits(id: string, edits: { readonly add: readonly string[]; readonly remove: readonly string[] }): void;
+  /**
+   * Saves a calendar of the workspace's own from a list of dates, or deletes it (null); deleting
+   * the one joined to the rows' calendar also ends the join. One undoable step.
+   */
+  setCustomCalendar(name: string, holidays: readonly string[] | null): void;
+  /** Joins a calendar of the workspace's own to the deposit and OIS rows' calendar, or ends the join (null). One undoable step. */
+  setJoinCalendar(name: string | null): void;
   setDisplay(patch: Partial<DisplaySettings>): void;
   /** Switches how bare numbers are read; bare rate and coupon texts are re-written so their values stay the same. */
   setQuoteUnit(mode: QuoteUnitMode): void;
@@ -211,6 +218,18 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
       const calendars = { ...others, ...entry };
       const { calendars: _c, ...rest } = ws();
       get().commit(Object.keys(calendars).length > 0 ? { ...rest, calendars } : rest, 'calendar edits');
+    },
+    setCustomCalendar(name, holidays) {
+      const { [name]: _old, ...others } = ws().customCalendars ?? {};
+      const customCalendars = holidays === null ? others : { ...others, [name]: { holidays: [...new Set(holidays)].sort() } };
+      const { customCalendars: _c, ...rest } = ws();
+      const { joinCalendar, ...curve } = ws().curve;
+      const keepJoin = joinCalendar !== undefined && joinCalendar in customCalendars;
+      get().commit({ ...rest, curve: keepJoin ? ws().curve : curve, ...(Object.keys(customCalendars).length > 0 ? { customCalendars } : {}) }, holidays === null ? 'delete own calendar' : 'own calendar');
+    },
+    setJoinCalendar(name) {
+      const { joinCalendar: _j, ...curve } = ws().curve;
+      get().commit({ ...ws(), curve: name === null ? curve : { ...curve, joinCalendar: name } }, 'joined calendar');
     },
     setDisplay(patch) {
       get().commit({ ...ws(), display: { ...ws().display, ...patch } }, 'display settings');

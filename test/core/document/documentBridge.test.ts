@@ -142,13 +142,24 @@ describe('calendar edits of the workbench (calendars)', () => {
     const checked = validateDocument(JSON.parse(JSON.stringify(wb())));
     expect(checked.ok && checked.value.document.calendars).toEqual({ target: { add: ['2026-12-16'], remove: [] } });
   });
-  it('an engine document with calendars opens in the workbench with them; customCalendars is refused, named', () => {
+  it('an engine document with calendars opens in the workbench with them', () => {
     const e = toEngineDocument(wb()).doc;
     const back = workbenchFromEngine(e, id);
     if (!back.ok) throw new Error(JSON.stringify(back.errors));
     expect(back.value.calendars).toEqual({ target: { add: ['2026-12-16'], remove: [] } });
-    const custom = workbenchFromEngine({ ...e, customCalendars: { 'desk-days': { holidays: ['2027-01-04'] } } }, id);
-    expect(!custom.ok && custom.errors.map((x) => x.path)).toEqual(['customCalendars']);
+  });
+  it('a calendar of the workspace\'s own joined to the set\'s: the rows\' calendar is target+desk-days in the engine document, and the file opens back with the join and the same curve', () => {
+    const joined = { ...wb(), customCalendars: { 'desk-days': { holidays: ['2026-12-17'] } }, curve: { ...wb().curve, joinCalendar: 'desk-days' } };
+    const e = toEngineDocument(joined).doc as { quotes: Record<string, unknown>[]; customCalendars: unknown };
+    expect(e.customCalendars).toEqual({ 'desk-days': { holidays: ['2026-12-17'] } });
+    expect(e.quotes.filter((q) => q.kind === 'deposit').every((q) => q.calendar === 'target+desk-days')).toBe(true);
+    // The 16th closed on TARGET (this workspace's edit) and the 17th on desk-days: €STR spot from Tuesday the 15th is Monday the 21st.
+    expect((buildCurve(e, { skipInvalid: true }).workspace!.quotes[0] as { start: string }).start).toBe('2026-12-21');
+    const back = workbenchFromEngine(e, id);
+    if (!back.ok) throw new Error(JSON.stringify(back.errors));
+    expect(back.value.curve).toMatchObject({ conventions: 'eur-estr', joinCalendar: 'desk-days' });
+    expect(back.value.customCalendars).toEqual({ 'desk-days': { holidays: ['2026-12-17'] } });
+    sameCurve(buildCurve(e, { skipInvalid: true }).curve!, buildCurve(toEngineDocument(back.value).doc, { skipInvalid: true }).curve!);
   });
   it('a malformed calendars section in a link is refused by its shape, naming the field', () => {
     const bad = validateDocument({ ...JSON.parse(JSON.stringify(wb())), calendars: { target: { add: [20261216] } } });
