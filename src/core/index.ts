@@ -21,7 +21,7 @@ export type { Instrument, QuoteUnit, CurveRole, CurveId, CurveRoles } from './in
 export { presentValue, DISCOUNT_CURVE } from './instruments/instrument.ts';
 export type { QuoteKindModule, QuoteConvention, FixedLegConvention } from './kinds/types.ts';
 export { CONVENTION_SETS, CONVENTION_SET_IDS, conventionSet, type ConventionSetDefinition } from './kinds/conventionSets.ts';
-export { QUOTE_KIND_MODULES, KIND_MODULE_LIST, kindModule, moduleOf, sheetDefault, quoteConvention, quoteSchedule, quoteDates, fixedLegConvention } from './kinds/registry.ts';
+export { QUOTE_KIND_MODULES, KIND_MODULE_LIST, kindModule, moduleOf, sheetDefault, quoteConvention, quoteDates, fixedLegConvention } from './kinds/registry.ts';
 export * from './instruments/bill.ts';
 export * from './instruments/bond.ts';
 export * from './instruments/swap.ts';

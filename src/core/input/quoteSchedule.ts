@@ -4,7 +4,7 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, DepositQuote, OisQuote, ParYieldQuote, SwapQuote } from '../document/types.ts';
+import type { BondQuote, DepositQuote, OisQuote, ParYieldQuote, Quote, SwapQuote } from '../document/types.ts';
 import { parYieldSchedule } from '../instruments/parYield.ts';
 import { formatRate } from '../format/quantities.ts';
 import { couponTag } from '../format/conventionTag.ts';
@@ -156,4 +156,23 @@ export function parYieldScheduleRows(q: ParYieldQuote, settlement: IsoDate, curv
   });
   const accrued = 100 * q.yield * s.accrualFraction;
   return { rows, accrued, note: `a par bond: coupon ${formatRate(q.yield, couponTag(q.frequency, q.dayCount))} = the par yield, clean price 100, coupon dates unadjusted back from maturity; accrued interest ${formatNumber(accrued, 6)} per 100 face; discount factors on coupon dates between quoted maturities come from the curve's interpolation` };
+}
+
+/**
+ * The schedule view of each kind that has one (the quote check), by kind: kept here rather than on
+ * the kinds' modules so it loads with the quote check and not with the first screen. A kind with a
+ * single flow (bill, zero) has none.
+ */
+const SCHEDULES: { readonly [K in Quote['kind']]?: (q: Extract<Quote, { kind: K }>, settlement: IsoDate, curve: Curve | null) => QuoteSchedule } = {
+  deposit: depositScheduleRows,
+  bond: bondScheduleRows,
+  swap: swapScheduleRows,
+  ois: oisScheduleRows,
+  'par-yield': parYieldScheduleRows,
+};
+
+/** A quote's cash-flow schedule on a curve (bonds, swaps, deposits), or null for a kind with a single flow. */
+export function quoteSchedule(q: Quote, settlement: IsoDate, curve: Curve | null): QuoteSchedule | null {
+  const f = SCHEDULES[q.kind] as ((q: Quote, settlement: IsoDate, curve: Curve | null) => QuoteSchedule) | undefined;
+  return f ? f(q, settlement, curve) : null;
 }

@@ -1,5 +1,4 @@
 import type { BondQuote } from '../document/types.ts';
-import { bondScheduleRows } from '../input/quoteSchedule.ts';
 import { bondDirtyFromYield, bondSchedule, bondYieldFromDirty, compileBond } from '../instruments/bond.ts';
 import { DISCOUNTING } from '../instruments/instrument.ts';
 import { coreError, fail, ok } from '../result.ts';
@@ -69,7 +68,6 @@ export const BOND: QuoteKindModule<BondQuote> = {
   /** The bond's own dollar duration -dP/dy at its ICMA yield (bondDirtyFromYield). */
   fit: { per100: 1, dollarDuration: (_ins, q, settlement, marketYield) => -bondDirtyFromYield(bondSchedule(q, q.settle ?? settlement), marketYield).dPdy, richCheap: true },
   solver: { firstRate: quotedRateOrDefault },
-  schedule: bondScheduleRows,
   // A bond settled at spot starts there; otherwise on the valuation date.
   dates: (q, valuation) => ({ start: q.settle ?? valuation, end: q.maturity, payment: null }),
 };

@@ -8,7 +8,6 @@ import { BUSINESS_DAY_RULES, type BusinessDayRule } from '../time/calendars.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
 import { depositDates, moneyMarketTerm } from '../time/depositDates.ts';
 import { parseTenor } from '../time/tenor.ts';
-import { depositScheduleRows } from '../input/quoteSchedule.ts';
 import { flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from './shared.ts';
 import type { Instrument } from '../instruments/instrument.ts';
 import type { QuoteKindModule } from './types.ts';
@@ -84,7 +83,6 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   shift: (q, d) => ok({ ...q, rate: q.rate + d }),
   fit: { per100: 100, dollarDuration: depositDollarDuration, richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
-  schedule: depositScheduleRows,
   dates: (q) => ({ start: q.start, end: q.maturity, payment: null }),
 };
 

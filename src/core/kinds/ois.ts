@@ -1,7 +1,6 @@
 import type { OisQuote } from '../document/types.ts';
 import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
 import { compileOis, oisDates } from '../instruments/ois.ts';
-import { oisScheduleRows } from '../input/quoteSchedule.ts';
 import { coreError, ok } from '../result.ts';
 import { BUSINESS_DAY_RULES } from '../time/calendars.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
@@ -80,7 +79,6 @@ export const OIS: QuoteKindModule<OisQuote> = {
   fit: { per100: 100, dollarDuration: oisDollarDuration, richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
   fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
-  schedule: oisScheduleRows,
   dates: oisQuoteDates,
 };
 

@@ -1,5 +1,4 @@
 import type { ParYieldQuote } from '../document/types.ts';
-import { parYieldScheduleRows } from '../input/quoteSchedule.ts';
 import { DISCOUNTING } from '../instruments/instrument.ts';
 import { compileParYield, parYieldDollarDuration, parYieldSchedule } from '../instruments/parYield.ts';
 import { ok } from '../result.ts';
@@ -48,5 +47,4 @@ export const PAR_YIELD: QuoteKindModule<ParYieldQuote> = {
   /** The theoretical security's own dollar duration per 100 face at its yield (par bond, or the zero). */
   fit: { per100: 1, dollarDuration: (_ins, q, settlement, marketYield) => parYieldDollarDuration(parYieldSchedule(q, settlement), marketYield, q.frequency), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
-  schedule: parYieldScheduleRows,
 };

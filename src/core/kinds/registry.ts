@@ -8,8 +8,6 @@ import { OIS } from './ois.ts';
 import { PAR_YIELD } from './parYield.ts';
 import { SWAP } from './swap.ts';
 import type { FixedLegConvention, QuoteConvention, QuoteDates, QuoteKindModule } from './types.ts';
-import type { Curve } from '../curve/curve.ts';
-import type { QuoteSchedule } from '../input/quoteSchedule.ts';
 import type { IsoDate } from '../time/date.ts';
 import { ZERO } from './zero.ts';
 
@@ -75,8 +73,6 @@ export const quoteConvention = (q: Quote): QuoteConvention => moduleOf(q).conven
 /** A quote's adjusted start, accrual end and last payment (kinds/types.ts QuoteDates); the kind's own, else from the valuation date to the maturity. */
 export const quoteDates = (q: Quote, valuation: IsoDate): QuoteDates => moduleOf(q).dates?.(q, valuation) ?? { start: valuation, end: q.maturity, payment: null };
 
-/** A quote's cash-flow schedule on a curve (bonds, swaps), or null for a kind with a single flow. */
-export const quoteSchedule = (q: Quote, settlement: IsoDate, curve: Curve | null): QuoteSchedule | null => moduleOf(q).schedule?.(q, settlement, curve) ?? null;
 
 /**
  * The fixed-leg convention forward par swap rates take in a market: that of its first quote whose

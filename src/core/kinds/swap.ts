@@ -1,5 +1,4 @@
 import type { SwapQuote } from '../document/types.ts';
-import { swapScheduleRows } from '../input/quoteSchedule.ts';
 import { DISCOUNTING_AND_PROJECTING } from '../instruments/instrument.ts';
 import { compileSwap, SwapLegs } from '../instruments/swap.ts';
 import { ok } from '../result.ts';
@@ -40,7 +39,6 @@ export const SWAP: QuoteKindModule<SwapQuote> = {
   fit: { per100: 100, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
   fixedLeg: (q) => ({ frequency: q.frequency, dayCount: q.dayCount, eom: q.eom }),
-  schedule: swapScheduleRows,
   // Today's single-curve swap: from the valuation date, unadjusted, paying at its maturity.
   dates: (q, valuation) => ({ start: valuation, end: q.maturity, payment: q.maturity }),
 };

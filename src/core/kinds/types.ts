@@ -1,7 +1,5 @@
-import type { Curve } from '../curve/curve.ts';
 import type { Quote } from '../document/types.ts';
 import type { QuoteColumn } from '../input/quoteRow.ts';
-import type { QuoteSchedule } from '../input/quoteSchedule.ts';
 import type { CurveRole, CurveRoles, Instrument } from '../instruments/instrument.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { CoreError, Result } from '../result.ts';
@@ -142,9 +140,6 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
 
   /** Optional: true when the kind takes the money-market tenors ON, TN and SN (deposits; time/depositDates.ts). */
   readonly moneyMarketTerms?: boolean;
-
-  /** Optional: the cash-flow schedule shown for a quote of the kind (bonds, swaps, deposits). */
-  schedule?(q: Q, settlement: IsoDate, curve: Curve | null): QuoteSchedule;
 
   /**
    * Optional: the quote's own dates after adjustment (the command's `start`, `end` and `payment`).
