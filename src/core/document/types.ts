@@ -124,6 +124,8 @@ export interface ParYieldQuote extends QuoteCommon {
   readonly frequency: number;
   readonly dayCount: DayCount;
   readonly eom: boolean;
+  /** True at one year or less on the US Treasury basis: the yield is a bill's bond-equivalent yield (its tag says so). */
+  readonly billBasis: boolean;
 }
 export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote | ParYieldQuote;
 

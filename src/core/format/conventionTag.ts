@@ -91,4 +91,4 @@ export const bondYieldConvention = (frequency: number, accrualDayCount: string):
  * "s.a., ACT/ACT-ICMA"). The one place a quote's convention becomes text.
  */
 export const quoteConventionTag = (c: QuoteConvention): string =>
-  c.unit === 'price' ? (c.clean ? 'clean, per 100' : 'per 100') : c.compounding === 'bank-discount' ? `discount, ${c.dayCount}` : rateTag(c.compounding, c.dayCount);
+  c.unit === 'price' ? (c.clean ? 'clean, per 100' : 'per 100') : c.compounding === 'bank-discount' ? `discount, ${c.dayCount}` : c.compounding === 'bill-equivalent' ? 'bond-equivalent, ACT/365 or 366' : rateTag(c.compounding, c.dayCount);

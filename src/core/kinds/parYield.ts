@@ -1,8 +1,8 @@
 import type { ParYieldQuote } from '../document/types.ts';
 import { DISCOUNTING } from '../instruments/instrument.ts';
-import { compileParYield, parYieldDollarDuration, parYieldSchedule } from '../instruments/parYield.ts';
+import { compileParYield, parYieldDollarDuration, parYieldSchedule, parYieldScheduleCivil } from '../instruments/parYield.ts';
 import { ok } from '../result.ts';
-import { isMonthEnd, parseIsoDate } from '../time/date.ts';
+import { civilFromIso, isMonthEnd, parseIsoDate } from '../time/date.ts';
 import { couponTag } from '../format/conventionTag.ts';
 import { RATE_TEXT, readDayCount, readFrequency, readRate, required } from './fields.ts';
 import { compoundingOfFrequency, quotedRateOrDefault } from './shared.ts';
@@ -22,13 +22,15 @@ export const PAR_YIELD: QuoteKindModule<ParYieldQuote> = {
   schema: {
     fields: ['yield', 'frequency', 'dayCount'],
     defaults: { frequency: 2, dayCount: 'ACT/ACT-ICMA' },
-    read(raw, base, index, maturity, m, tenor, enabled, errors) {
+    read(raw, base, index, maturity, m, tenor, enabled, errors, settlement) {
       const y = required(readRate(raw, base, index, errors, 'yield'), 'yield', RATE_TEXT, base, index, errors);
       const frequency = readFrequency(raw, 2, base, index, errors);
       const dayCount = readDayCount(raw, base, index, errors, 'dayCount', 'ACT/ACT-ICMA');
       const eom = maturity !== null && isMonthEnd(parseIsoDate(maturity)!);
       if (y === null || frequency === null || !dayCount) return null;
-      return { kind: 'par-yield', index, maturity: m, tenor, enabled, yield: y, frequency, dayCount, eom };
+      // Which rule reads the yield (the bill's or the par bond's) is known once the dates are: say it on the quote.
+      const billBasis = maturity !== null && settlement !== undefined && parYieldScheduleCivil({ maturity, frequency, dayCount, eom }, civilFromIso(settlement), civilFromIso(maturity)).bill !== null;
+      return { kind: 'par-yield', index, maturity: m, tenor, enabled, yield: y, frequency, dayCount, eom, billBasis };
     },
   },
   sheet: { rateField: 'yield', rateWhat: 'par yield', priceField: null, missingValue: 'rate', coupon: false, frequency: true, dayCount: 'yes' },
@@ -39,8 +41,9 @@ export const PAR_YIELD: QuoteKindModule<ParYieldQuote> = {
   compile: (q, _settlement, s, m, t, time) => compileParYield(q, s, m, t, time),
   curves: DISCOUNTING,
   nodeRole: 'discount',
-  convention: (q) => ({ unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
-  yieldLabel: (q) => `par yield (${couponTag(q.frequency, q.dayCount)})`,
+  // A par yield at one year or less on the US Treasury basis is a bill's bond-equivalent yield (instruments/parYield.ts).
+  convention: (q) => (q.billBasis ? { unit: 'rate', compounding: 'bill-equivalent', dayCount: 'ACT/365F' } : { unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
+  yieldLabel: (q) => (q.billBasis ? 'par yield (a bill: bond-equivalent, ACT/365 or 366)' : `par yield (${couponTag(q.frequency, q.dayCount)})`),
   priceYield: () => null,
   /** The par yield moves by d (the theoretical bond's coupon moves with it: it stays at par). */
   shift: (q, d) => ok({ ...q, yield: q.yield + d }),

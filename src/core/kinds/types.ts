@@ -11,11 +11,13 @@ import type { RawQuote } from './fields.ts';
 /**
  * How a quote is quoted, as a value the UI formats in one place: a price per 100 face (clean for
  * a bond), or a rate (decimal per year) with its compounding and day count. A bill's discount
- * yield is `bank-discount`: 1 - DF = d days / 360 (US Treasury), not a compounding of compounding.ts.
+ * yield is `bank-discount`: 1 - DF = d days / 360 (US Treasury), not a compounding of compounding.ts;
+ * a bill's bond-equivalent yield is `bill-equivalent` (simple on 365 or 366 days up to half a year,
+ * Treasury's half-year-compounded rule beyond: instruments/parYield.ts).
  */
 export type QuoteConvention =
   | { readonly unit: 'price'; readonly clean: boolean }
-  | { readonly unit: 'rate'; readonly compounding: Compounding | 'bank-discount'; readonly dayCount: DayCount };
+  | { readonly unit: 'rate'; readonly compounding: Compounding | 'bank-discount' | 'bill-equivalent'; readonly dayCount: DayCount };
 
 /** A fixed leg's convention: payments a year, accrual day count, end-of-month rule. */
 export interface FixedLegConvention {

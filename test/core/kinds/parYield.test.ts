@@ -6,7 +6,7 @@
 // periods (the spot rate of the par-to-zero recursion; MARKET-CONVENTIONS g, Fabozzi-style texts).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { addDays, buildCurve, fitCurve, compileQuote, CURVE_DAY_COUNTS, DAY_COUNTS, INTERPOLATIONS, isoFromSerial, quoteSchedule, serialFromIso, shiftQuote, validateWorkspace, type Curve } from '../../../src/core/index.ts';
+import { addDays, buildCurve, fitCurve, compileQuote, CURVE_DAY_COUNTS, DAY_COUNTS, INTERPOLATIONS, isoFromSerial, quoteConvention, quoteConventionTag, quoteSchedule, serialFromIso, shiftQuote, validateWorkspace, type Curve } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 import { workspaceDoc } from '../../helpers/markets.ts';
 
@@ -330,4 +330,11 @@ describe('random par-yield markets reprice within 1e-14 under every interpolatio
       );
     }, 120_000);
   }
+});
+
+describe('every par yield carries the basis it is read on', () => {
+  it('at one year or less on the US Treasury basis the tag says bond-equivalent on 365 or 366 days; above, semiannual ACT/ACT-ICMA', () => {
+    const ws = validateWorkspace(workspaceDoc([{ kind: 'par-yield', tenor: '3M', yield: 0.0553 }, { kind: 'par-yield', tenor: '2Y', yield: 0.0487 }], { settlement: '2023-09-01' })).workspace!;
+    expect(ws.quotes.map((q) => quoteConventionTag(quoteConvention(q)))).toEqual(['bond-equivalent, ACT/365 or 366', 's.a., ACT/ACT-ICMA']);
+  });
 });
