@@ -59,7 +59,7 @@ export interface BillQuote extends QuoteCommon, SpotSettled {
   readonly price: number | null;
 }
 /** Zero-coupon bond: price per 100 face, or a zero rate with its compounding and day count. */
-export interface ZeroQuote extends QuoteCommon {
+export interface ZeroQuote extends QuoteCommon, SpotSettled {
   readonly kind: 'zero';
   readonly price: number | null;
   readonly rate: number | null;

@@ -2,8 +2,8 @@ import { civilFromIso, daysBetween, isLeapYear, parseIsoDate, serialFromIso, typ
 import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import type { Tenor } from '../time/tenor.ts';
 import type { BillQuote } from '../document/types.ts';
-import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
-import { SingleFlowInstrument } from './singleFlow.ts';
+import type { Instrument } from './instrument.ts';
+import { SingleFlowInstrument, SpotSingleFlow } from './singleFlow.ts';
 
 const ONE_YEAR: Tenor = Object.freeze({ n: 1, unit: 'Y' });
 
@@ -91,44 +91,21 @@ class BillInstrument extends SingleFlowInstrument<BillQuote> {
   }
 }
 
-/**
- * A bill settled at spot S (its `settle`, Treasury bills T+1): the price P is paid at S for 100 at
- * maturity M, so DF(M) / DF(S) = P / 100; the days of its discount yield count from S. Flows 0 at
- * t_S and 100 at t_M against 100 DF(S) read off the curve (`targetFromFlows`, as a deposit starting
- * at spot); the node solvers' residual in ln space is ln DF(M) - ln DF(S) - ln(P / 100).
- */
-class SpotBill extends CompiledInstrument<BillQuote> {
+/** A bill settled at spot S (its `settle`, Treasury bills T+1): the days of its discount yield count from S (SpotSingleFlow). */
+class SpotBill extends SpotSingleFlow<BillQuote> {
   /** Actual days from settlement at spot to maturity. */
   declare readonly days: number;
-  /** ln(P / 100) of the market quote (NaN when the price it implies is not positive). */
-  declare readonly lnPrice: number;
 
   constructor(q: BillQuote, t: number, times: readonly number[], days: number, value: number) {
     const byYield = q.discountYield !== null;
     const price = byYield ? billPriceFromDiscountYield(value, days) : value;
-    super(q, t, times, byYield ? 'rate' : 'price', byYield ? 'discountYield' : 'price', value, [0, 100], price, null, DISCOUNTING);
+    super(q, t, times, byYield ? 'rate' : 'price', byYield ? 'discountYield' : 'price', value, price > 0 ? Math.log(price / 100) : Number.NaN);
     this.days = days;
-    this.lnPrice = price > 0 ? Math.log(price / 100) : Number.NaN;
-  }
-
-  /** 100 DF(S) scaled by the price: what 100 at maturity must be worth today. */
-  targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
-    return this.target * df[offset]!;
-  }
-
-  targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
-    out[0] = this.target * df[offset]!;
-    out[1] = 0;
-  }
-
-  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return ln[offset + 1]! - ln[offset]! - this.lnPrice;
   }
 
   /** The discount yield (1 - DF(M)/DF(S)) 360 / days, or the price 100 DF(M)/DF(S), both at S. */
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    const ratio = ln[offset + 1]! - ln[offset]!;
-    return this.unit === 'rate' ? (-Math.expm1(ratio) * 360) / this.days : 100 * Math.exp(ratio);
+  protected quoteOfRatio(lnRatio: number): number {
+    return this.unit === 'rate' ? (-Math.expm1(lnRatio) * 360) / this.days : 100 * Math.exp(lnRatio);
   }
 
   requote(value: number): Instrument {

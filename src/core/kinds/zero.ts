@@ -5,7 +5,7 @@ import { COMPOUNDINGS, isCompounding, lnDiscountFromRate, rateFromLnDiscount, ty
 import { rateTag } from '../format/conventionTag.ts';
 import { coreError, ok } from '../result.ts';
 import { yearFraction } from '../time/dayCount.ts';
-import { listOf, noCouponPeriod, oneOf, readDayCount, readPrice, readRate, typeName } from './fields.ts';
+import { listOf, noCouponPeriod, oneOf, readDayCount, readPrice, readRate, readSpotSettlement, typeName } from './fields.ts';
 import { flatDollarDuration, movedPrice, quotedRateOrDefault } from './shared.ts';
 import type { QuoteKindModule } from './types.ts';
 
@@ -16,9 +16,9 @@ import type { QuoteKindModule } from './types.ts';
 export const ZERO: QuoteKindModule<ZeroQuote> = {
   kind: 'zero',
   schema: {
-    fields: ['price', 'rate', 'compounding', 'dayCount'],
+    fields: ['price', 'rate', 'compounding', 'dayCount', 'calendar', 'spotLag'],
     defaults: { dayCount: 'ACT/365F', compounding: 'annual' },
-    read(raw, base, index, _maturity, m, tenor, enabled, errors) {
+    read(raw, base, index, maturity, m, tenor, enabled, errors, settlement, calendars) {
       oneOf(raw, 'zero', base, index, errors, 'price', 'rate');
       const price = readPrice(raw, base, index, errors, 'price') ?? null;
       const rate = readRate(raw, base, index, errors, 'rate') ?? null;
@@ -31,19 +31,22 @@ export const ZERO: QuoteKindModule<ZeroQuote> = {
         else errors.push(coreError('unknown-identifier', `${base}.compounding`, `${base}.compounding: must be one of ${listOf(COMPOUNDINGS)}, not ${typeName(raw.compounding)}`, index));
       }
       const dayCount = noCouponPeriod(readDayCount(raw, base, index, errors, 'dayCount', 'ACT/365F'), 'zero', base, index, errors);
-      return dayCount ? { kind: 'zero', index, maturity: m, tenor, enabled, price, rate, compounding, dayCount } : null;
+      // Settled at spot when the quote says so; else on the valuation date, as before.
+      const spot = readSpotSettlement(raw, base, index, errors, settlement, maturity, calendars);
+      return dayCount && spot !== null ? { kind: 'zero', index, maturity: m, tenor, enabled, price, rate, compounding, dayCount, ...spot } : null;
     },
   },
   sheet: { rateField: 'rate', rateWhat: 'zero rate', priceField: 'price', missingValue: 'rate', coupon: false, frequency: false, dayCount: 'with-rate' },
   paste: { kindWords: ['zeros', 'strip'], headerWords: {} },
-  compile: (q, settlement, _s, _m, t) => compileZero(q, settlement, t),
+  compile: (q, settlement, _s, _m, t, time) => compileZero(q, settlement, t, time),
+  dates: (q, valuation) => ({ start: q.settle ?? valuation, end: q.maturity, payment: null }),
   curves: DISCOUNTING,
   nodeRole: 'discount',
   convention: (q) => (q.price !== null ? { unit: 'price', clean: false } : { unit: 'rate', compounding: q.compounding, dayCount: q.dayCount }),
   yieldLabel: (q) => `zero rate (${rateTag(q.compounding, q.dayCount)})`,
   /** By price: its zero rate in the quote's compounding and day count (defaults annual, ACT/365F). */
   priceYield(q, settlement, label) {
-    const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
+    const tau = yearFraction(q.dayCount, q.settle ?? settlement, q.maturity, { termination: q.maturity });
     return {
       toYield: (p) => rateFromLnDiscount(Math.log(p / 100), q.compounding, tau),
       fromYield: (r) => 100 * Math.exp(lnDiscountFromRate(r, q.compounding, tau)),
@@ -51,7 +54,8 @@ export const ZERO: QuoteKindModule<ZeroQuote> = {
     };
   },
   /** A zero rate moves by d; a price moves its zero rate r by d: price = 100 DF(r + d). */
-  shift(q, d, settlement) {
+  shift(q, d, valuation) {
+    const settlement = q.settle ?? valuation;
     if (q.rate !== null) return ok({ ...q, rate: q.rate + d });
     const tau = yearFraction(q.dayCount, settlement, q.maturity, { termination: q.maturity });
     const r = rateFromLnDiscount(Math.log(q.price! / 100), q.compounding, tau);

@@ -60,6 +60,17 @@ describe('settlement at spot', () => {
     expectClose(pv / df(c, '2027-12-27') - accrued, 100.17, 1e-11, 'clean price paid at T+1, ICMA Rule 251 accrued to settlement');
   });
 
+  it('a zero-coupon bond at spot: by price DF(M)/DF(S) = P/100; by an annual ACT/365F rate (1 + r)^(-tau(S, M)) (compounding from settlement)', () => {
+    const quotes = [...LADDER, { kind: 'zero', maturity: '2042-11-15', price: 52.5, calendar: 'us-gov-securities', spotLag: 1 }, { kind: 'zero', maturity: '2047-11-15', rate: 0.0452, calendar: 'us-gov-securities', spotLag: 1 }];
+    const b = buildCurve(doc('2027-12-23', quotes));
+    expect(b.errors).toEqual([]);
+    for (const row of b.repricing) expect(Math.abs(row.repricingError)).toBeLessThanOrEqual(row.unit === 'price' ? 1e-11 : 1e-14);
+    const c = b.curve!;
+    expectClose(df(c, '2042-11-15') / df(c, '2027-12-27'), 0.525, 1e-14, 'zero bought at 52.5 per 100 at T+1');
+    const tau = (day('2047-11-15') - day('2027-12-27')) / 365;
+    expectClose(df(c, '2047-11-15') / df(c, '2027-12-27'), Math.pow(1.0452, -tau), 1e-14, 'annual compounding on ACT/365F from settlement');
+  });
+
   it('spot lag 0 with the weekends calendar on a business day reads and builds exactly as a bond without these fields', () => {
     const plain = [{ kind: 'bond', maturity: '2031-05-15', coupon: 0.04, cleanPrice: 101.25 }, { kind: 'bill', maturity: '2028-03-23', discountYield: 0.04 }];
     const lagged = plain.map((q) => ({ ...q, calendar: 'weekends', spotLag: 0 }));
