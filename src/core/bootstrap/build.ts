@@ -225,11 +225,11 @@ function spotGap(ws: Workspace, instruments: readonly Instrument[], interpolatio
   let first: IsoDate | null = null;
   for (const ins of instruments) if (first === null || compareIso(ins.maturity, first) < 0) first = ins.maturity;
   if (first === null) return null;
-  const byIndex = new Map(ws.quotes.map((q) => [q.index, q]));
   let found: { index: number; start: IsoDate } | null = null;
   for (const ins of instruments) {
-    const q = byIndex.get(ins.index);
-    if (!q) continue;
+    const q = ins.quote;
+    // Only a kind with dates of its own can start after the valuation date (performance: no object otherwise).
+    if (moduleOf(q).dates === undefined) continue;
     const start = quoteDates(q, ws.settlement).start;
     if (compareIso(start, ws.settlement) > 0 && compareIso(start, first) < 0 && (found === null || compareIso(start, found.start) < 0)) found = { index: q.index, start };
   }
