@@ -1,5 +1,6 @@
 import {
   quoteDates,
+  moduleOf,
   analyzeBond,
   bondYieldConvention,
   rateTag,
@@ -427,10 +428,11 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     const r = repricing[i]!;
     finite &&= Number.isFinite(r.t) && Number.isFinite(r.repricingError);
     const q = quoteAt[r.index];
-    const d = q ? quoteDates(q, settlement) : { start: settlement, end: r.maturity, payment: null };
+    // Performance: a kind without dates of its own starts on the valuation date and ends at its maturity (no object made).
+    const d = q && moduleOf(q).dates !== undefined ? quoteDates(q, settlement) : null;
     quotes.push({
       index: rowOf === null ? r.index : (rowOf[r.index] ?? r.index), kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError,
-      start: d.start, end: d.end, pillar: r.maturity, ...(d.payment === null ? {} : { payment: d.payment }),
+      start: d ? d.start : settlement, end: d ? d.end : (q?.maturity ?? r.maturity), pillar: r.maturity, payment: d ? d.payment : null,
     });
   }
   if (!finite) {

@@ -30,8 +30,8 @@ export interface QuoteOut {
   readonly start: IsoDate;
   readonly end: IsoDate;
   readonly pillar: IsoDate;
-  /** The last payment date: swaps and overnight-index swaps only. */
-  readonly payment?: IsoDate;
+  /** The last payment date: swaps and overnight-index swaps only (null: not printed). */
+  readonly payment: IsoDate | null;
 }
 
 /**
@@ -76,7 +76,7 @@ export function builtDocumentLine(o: BuiltDocument): string {
     const q = quotes[i]!;
     const t = `${q.t}`;
     tText[i] = t;
-    s += `${i === 0 ? '' : ','}{"index":${q.index},"kind":"${q.kind}","maturity":"${q.maturity}","t":${t},"unit":"${q.unit}","repricingError":${q.repricingError},"start":"${q.start}","end":"${q.end}","pillar":"${q.pillar}"${q.payment === undefined ? '' : `,"payment":"${q.payment}"`}}`;
+    s += `${i === 0 ? '' : ','}{"index":${q.index},"kind":"${q.kind}","maturity":"${q.maturity}","t":${t},"unit":"${q.unit}","repricingError":${q.repricingError},"start":"${q.start}","end":"${q.end}","pillar":"${q.pillar}"${q.payment === null ? '' : `,"payment":"${q.payment}"`}}`;
   }
   s += '],"points":[';
   for (let i = 0; i < points.length; i++) {

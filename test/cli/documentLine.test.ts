@@ -28,7 +28,7 @@ const record: fc.Arbitrary<BuiltDocument> = fc
     quotes: fc.array(
       fc
         .tuple(fc.record({ index: fc.nat(), kind: fc.constantFrom(...QUOTE_KINDS), maturity: isoDate, t: finite, unit: fc.constantFrom('price', 'rate'), repricingError: finite, start: isoDate, end: isoDate, pillar: isoDate }), fc.option(isoDate, { nil: undefined }))
-        .map(([q, payment]) => (payment === undefined ? q : { ...q, payment })),
+        .map(([q, payment]) => ({ ...q, payment: payment ?? null })),
       { maxLength: 6 },
     ),
     points: fc.array(fc.tuple(fc.record({ date: isoDate, t: finite, discount: finite, zero: finite }), flag).map(([p, x]) => withFlag(p, x)), { maxLength: 6 }),
@@ -45,7 +45,7 @@ describe('builtDocumentLine', () => {
         // Same key order as the contract: the record is built in that order, as the command builds it.
         const ordered = {
           index: r.index, settlement: r.settlement, valuationDate: r.valuationDate, interpolation: r.interpolation, curveDayCount: r.curveDayCount, compounding: r.compounding,
-          rateDayCount: r.rateDayCount, extrapolation: r.extrapolation, quotes: r.quotes, points: r.points, forwards: r.forwards,
+          rateDayCount: r.rateDayCount, extrapolation: r.extrapolation, quotes: r.quotes.map(({ payment, ...q }) => (payment === null ? q : { ...q, payment })), points: r.points, forwards: r.forwards,
           ...(r.bonds !== undefined ? { bonds: r.bonds } : {}), warnings: r.warnings,
         };
         expect(builtDocumentLine(r)).toBe(JSON.stringify(ordered));
