@@ -33,6 +33,8 @@ export interface ScheduleRow {
    */
   readonly accrualEnd?: IsoDate;
   readonly unadjustedAccrualEnd?: IsoDate;
+  /** For a day of an averaged future (one-month): the business day whose overnight rate the day carries. */
+  readonly fixingDate?: IsoDate;
 }
 
 export interface QuoteSchedule {

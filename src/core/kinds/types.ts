@@ -64,8 +64,11 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
 
   /** How the quote sheet's columns fill the kind's fields. */
   readonly sheet: {
-    /** The field the Rate / yield column fills, and what that rate is called in messages. */
-    readonly rateField: string;
+    /**
+     * The field the Rate / yield column fills, and what that rate is called in messages; null for a
+     * kind quoted by price only (a future: the Price column holds its price), whose `rateWhat` names that price.
+     */
+    readonly rateField: string | null;
     readonly rateWhat: string;
     /** The field the Price column fills, or null when the kind has no price quote. */
     readonly priceField: string | null;
@@ -139,6 +142,13 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
    * forward grid's): a swap's own frequency, day count and end-of-month rule.
    */
   fixedLeg?(q: Q): FixedLegConvention;
+
+  /**
+   * Optional: true when the kind's reader makes its dates from its own fields (a future's contract
+   * month, or start and end) and takes no tenor or maturity; it sets `maturity` (the node) itself,
+   * after the valuation date.
+   */
+  readonly ownDates?: boolean;
 
   /** Optional: true when the kind takes the money-market tenors ON, TN and SN (deposits; time/depositDates.ts). */
   readonly moneyMarketTerms?: boolean;

@@ -1,0 +1,163 @@
+import { businessCalendar } from '../time/calendars.ts';
+import { civilFromIso, civilFromSerial, serialFromIso, type CivilDate } from '../time/date.ts';
+import { averagedFixings } from '../time/futurePeriods.ts';
+import type { FutureQuote } from '../document/types.ts';
+import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+
+/** The overnight rate's day basis of SOFR futures: ACT/360 (CME SOFR futures specifications). */
+export const FUTURE_BASIS = 360;
+
+/**
+ * The forward rate a futures price stands for: the futures rate (100 - price) / 100 less the
+ * convexity adjustment (bp; futures rate minus forward rate, MARKET-CONVENTIONS.md section e).
+ */
+export const futureForwardRate = (price: number, convexityBp: number): number => (100 - price) / 100 - convexityBp / 1e4;
+
+/** The futures price of a forward rate R (decimal) with its convexity adjustment: 100 (1 - R - CA). */
+export const futurePriceOf = (forward: number, convexityBp: number): number => 100 * (1 - (forward + convexityBp / 1e4));
+
+/**
+ * Compiles a future on one curve (the curve both discounts nothing, since a future has no cash
+ * flow, and projects the overnight rate):
+ * - 3M, compounded: DF(S) / DF(E) = 1 + R tau, tau = (E - S) / 360 (ACT/360; the product of daily
+ *   factors over the quarter telescopes on one curve), R the forward rate. Flows 0 at S and
+ *   1 + R tau at E against DF(S) read off the curve (as a deposit starting at spot); at S on the
+ *   valuation date DF(S) = 1.
+ * - 1M, averaged: R = (1 / N) sum_i w_i r_i over the business days i whose rates the month's N
+ *   calendar days carry (w_i days each), r_i = (DF(b_i) / DF(b_i+1) - 1) 360 / n_i the curve's
+ *   overnight forward from business day i to the next (n_i days). Flows at every b_i and at the
+ *   business day after the last (the pillar); the pillar's node sets the last rate r_last:
+ *   solved exactly when DF(b_last) / DF(pillar) = 1 + r_need n_last / 360 with
+ *   r_need = (N R - sum_{i < last} w_i r_i) / w_last.
+ * The quote's unit is its price (per 100); the model price is 100 (1 - R_model - CA).
+ */
+export function compileFuture(q: FutureQuote, t: number, time: (d: CivilDate) => number): Instrument {
+  const start = serialFromIso(q.start);
+  const end = serialFromIso(q.end);
+  if (q.contract === '3M') {
+    const tau = (end - start) / FUTURE_BASIS;
+    return new CompoundedFuture(q, t, [time(civilFromIso(q.start)), t], tau, q.price);
+  }
+  const outcome = businessCalendar(q.calendar, q.calendars ?? {});
+  // The reader checked the calendar; a failure here is a programming error.
+  if (!outcome.ok) throw new Error(`future ${q.index}: ${outcome.message}`);
+  const f = averagedFixings(start, end, outcome.calendar);
+  const times = [...f.days, f.next].map((s) => time(civilFromSerial(s)));
+  times[times.length - 1] = t;
+  return new AveragedFuture(q, t, times, f.weights, f.spans, end - start, q.price);
+}
+
+/** A three-month future: 0 at S and 1 + R tau at E against DF(S) on the curve. */
+class CompoundedFuture extends CompiledInstrument<FutureQuote> {
+  declare readonly tau: number;
+  /** ln(1 + R tau), NaN when the price implies a growth <= 0. */
+  declare readonly lnGrowth: number;
+
+  constructor(q: FutureQuote, t: number, times: readonly number[], tau: number, price: number) {
+    const r = futureForwardRate(price, q.convexity);
+    super(q, t, times, 'price', 'price', price, [0, 1 + r * tau], 1, null, DISCOUNTING_AND_PROJECTING);
+    this.tau = tau;
+    this.lnGrowth = 1 + r * tau > 0 ? Math.log1p(r * tau) : Number.NaN;
+  }
+
+  /** DF(S). */
+  targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return df[offset]!;
+  }
+
+  targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
+    out[0] = df[offset]!;
+    out[1] = 0;
+  }
+
+  /** ln(1 + R tau) + ln DF(E) - ln DF(S): the root of (1 + R tau) DF(E) - DF(S), exact in ln space. */
+  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return this.lnGrowth + ln[offset + 1]! - ln[offset]!;
+  }
+
+  /** 100 (1 - R - CA) with R = expm1(ln DF(S) - ln DF(E)) / tau. */
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return futurePriceOf(Math.expm1(ln[offset]! - ln[offset + 1]!) / this.tau, this.quote.convexity);
+  }
+
+  requote(value: number): Instrument {
+    return new CompoundedFuture(this.quote, this.t, this.times, this.tau, value);
+  }
+}
+
+/** A one-month future: the month's average of the curve's overnight forwards (see compileFuture). */
+class AveragedFuture extends CompiledInstrument<FutureQuote> {
+  declare readonly weights: readonly number[];
+  declare readonly spans: readonly number[];
+  /** Calendar days of the month (N). */
+  declare readonly days: number;
+  /** The forward rate R the average must meet. */
+  declare readonly rate: number;
+
+  constructor(q: FutureQuote, t: number, times: readonly number[], weights: readonly number[], spans: readonly number[], days: number, price: number) {
+    const amounts = new Array<number>(times.length).fill(0);
+    amounts[times.length - 1] = 1;
+    super(q, t, times, 'price', 'price', price, amounts, 1, null, DISCOUNTING_AND_PROJECTING);
+    this.weights = weights;
+    this.spans = spans;
+    this.days = days;
+    this.rate = futureForwardRate(price, q.convexity);
+  }
+
+  /** Business day i's overnight forward, expm1(ln DF(b_i) - ln DF(b_i+1)) 360 / n_i. */
+  private forward(ln: ArrayLike<number>, offset: number, i: number): number {
+    return (Math.expm1(ln[offset + i]! - ln[offset + i + 1]!) * FUTURE_BASIS) / this.spans[i]!;
+  }
+
+  /** The growth 1 + r_need n_last / 360 the last business day's rate must have. */
+  private neededGrowth(ln: ArrayLike<number>, offset: number): number {
+    const last = this.weights.length - 1;
+    let others = 0;
+    for (let i = 0; i < last; i++) others += this.weights[i]! * this.forward(ln, offset, i);
+    const need = (this.days * this.rate - others) / this.weights[last]!;
+    return 1 + (need * this.spans[last]!) / FUTURE_BASIS;
+  }
+
+  /** DF(b_last) / (1 + r_need n_last / 360): what DF at the pillar must be. */
+  targetFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return df[offset + this.weights.length - 1]! / this.neededGrowth(ln, offset);
+  }
+
+  /**
+   * d target / d ln DF_j: target (delta_{j,last} - (1/g) dg/d ln DF_j), dg/d ln DF_j =
+   * -(n_last / 360) / w_last d(sum_{i < last} w_i r_i) / d ln DF_j, d r_i / d ln DF_i =
+   * (DF_i / DF_i+1) 360 / n_i = -d r_i / d ln DF_i+1.
+   */
+  targetSlopes(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
+    const last = this.weights.length - 1;
+    const g = this.neededGrowth(ln, offset);
+    const target = df[offset + last]! / g;
+    for (let j = 0; j <= last + 1; j++) out[j] = 0;
+    const k = this.spans[last]! / FUTURE_BASIS / this.weights[last]!;
+    for (let i = 0; i < last; i++) {
+      const d = (this.weights[i]! * Math.exp(ln[offset + i]! - ln[offset + i + 1]!) * FUTURE_BASIS) / this.spans[i]!;
+      // dS/d ln DF_i += d, dS/d ln DF_i+1 -= d; dg = -k dS; d target = -target/g dg = target k dS / g.
+      out[i]! += (target * k * d) / g;
+      out[i + 1]! -= (target * k * d) / g;
+    }
+    out[last]! += target;
+  }
+
+  /** ln DF(pillar) - ln DF(b_last) + ln(1 + r_need n_last / 360): the same root, in ln space; NaN when no positive DF meets it. */
+  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    const g = this.neededGrowth(ln, offset);
+    const last = this.weights.length - 1;
+    return g > 0 ? ln[offset + last + 1]! - ln[offset + last]! + Math.log(g) : Number.NaN;
+  }
+
+  /** The model price 100 (1 - R_model - CA), R_model = (1 / N) sum_i w_i r_i. */
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    let sum = 0;
+    for (let i = 0; i < this.weights.length; i++) sum += this.weights[i]! * this.forward(ln, offset, i);
+    return futurePriceOf(sum / this.days, this.quote.convexity);
+  }
+
+  requote(value: number): Instrument {
+    return new AveragedFuture(this.quote, this.t, this.times, this.weights, this.spans, this.days, value);
+  }
+}

@@ -1,0 +1,208 @@
+import type { FutureQuote } from '../document/types.ts';
+import type { QuoteSchedule, ScheduleRow } from '../input/quoteSchedule.ts';
+import type { Curve } from '../curve/curve.ts';
+import { compileFuture, FUTURE_BASIS, futureForwardRate } from '../instruments/future.ts';
+import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
+import { coreError, fail, ok, type CoreError } from '../result.ts';
+import { businessCalendar, outsideCalendar, type CalendarContext } from '../time/calendars.ts';
+import { compareIso, isoFromSerial, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
+import { averagedFixings, FUTURE_CONTRACTS, futurePeriod, parseContractMonth, type FutureContract } from '../time/futurePeriods.ts';
+import { readChoice, readNumber, required, typeName, type RawQuote } from './fields.ts';
+import { flatDollarDurationOf } from './shared.ts';
+import type { QuoteKindModule } from './types.ts';
+
+/** Futures prices the reader takes: above 0 up to 110 (futures rates from 100% down to -10%, the rate fields' range). */
+export const FUTURE_PRICE_MAX = 110;
+const PRICE_WHAT = `above 0 up to ${FUTURE_PRICE_MAX} (100 minus the futures rate in percent: 96.125 is 3.875%)`;
+/** Convexity adjustments the reader takes, in bp. */
+export const CONVEXITY_MAX_BP = 500;
+const CONVEXITY_WHAT = `of basis points from -${CONVEXITY_MAX_BP} to ${CONVEXITY_MAX_BP} (the futures rate minus the forward rate; 0.5 = half a basis point)`;
+/** The default calendar: US government securities business days, SOFR's publication days. */
+export const FUTURE_CALENDAR = 'us-gov-securities';
+
+/** How a future is named in messages: `3M future 2027-03` or `1M future 2027-04-01 to 2027-05-01`. */
+export const futureName = (contract: string, month: string | null, start: IsoDate, end: IsoDate): string =>
+  `${contract} future ${month ?? `${start} to ${end}`}`;
+
+/**
+ * A future on an overnight rate (SOFR by default), quoted by its price, 100 minus the futures
+ * rate in percent (CME SOFR futures). Fields: `price` (required), `contract` `3M` (default,
+ * compounded over the IMM quarter) or `1M` (averaged over the calendar month), `month` (`YYYY-MM`)
+ * or `start` and `end` dates (end exclusive), `convexity` in bp (default 0, subtracted from the
+ * futures rate), `calendar` (default `us-gov-securities`). It takes no tenor or maturity: its
+ * dates come from its month (`ownDates`). A contract whose period began before the valuation date
+ * is refused: its fixings so far would be needed, which the engine does not take yet.
+ */
+export const FUTURE: QuoteKindModule<FutureQuote> = {
+  kind: 'future',
+  ownDates: true,
+  schema: {
+    fields: ['price', 'contract', 'month', 'start', 'end', 'convexity', 'calendar'],
+    defaults: {},
+    read: readFuture,
+  },
+  sheet: { rateField: null, rateWhat: 'futures price', priceField: 'price', missingValue: 'price', coupon: false, frequency: false, dayCount: { refuse: 'day count (a SOFR future is on ACT/360 by definition)' } },
+  paste: { kindWords: ['futures', 'fut', 'futs', 'rate future', 'sofr future', 'sofr futures'], headerWords: { futuresprice: 'price' } },
+  compile: (q, _settlement, _s, _m, t, time) => compileFuture(q, t, time),
+  curves: DISCOUNTING_AND_PROJECTING,
+  nodeRole: 'discount',
+  convention: () => ({ unit: 'price', clean: false }),
+  yieldLabel: (q) => `futures rate (${q.contract === '3M' ? 'simple, ACT/360, compounded daily over the quarter' : 'simple, ACT/360, average of the month'})`,
+  /** Its own yield is the futures rate, (100 - price) / 100, and back. */
+  priceYield: (_q, _settlement, label) => ({ toYield: (p) => (100 - p) / 100, fromYield: (y) => 100 - 100 * y, label }),
+  /** The futures rate moves by d: the price by -100 d. */
+  shift(q, d) {
+    const price = q.price - 100 * d;
+    if (price > 0 && price <= FUTURE_PRICE_MAX) return ok({ ...q, price });
+    const path = `quotes[${q.index}].price`;
+    return fail(coreError('range', path, `${path}: the scenario moves the ${futureName(q.contract, q.month, q.start, q.end)} to the price ${price}, outside (0, ${FUTURE_PRICE_MAX}]; use a smaller shift`, q.index));
+  },
+  fit: { per100: 100, dollarDuration: futureDollarDuration, richCheap: false },
+  solver: { firstRate: (ins) => futureForwardRate(ins.market, (ins.quote as FutureQuote).convexity) },
+  schedule: futureScheduleRows,
+  dates: (q) => ({ start: q.start, end: q.end, payment: null }),
+};
+
+function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDate | null, _m: IsoDate, _tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext): FutureQuote | null {
+  const before = errors.length;
+  const contract = readChoice<FutureContract>(raw, base, index, errors, 'contract', FUTURE_CONTRACTS, '3M');
+  const price = required(readNumber(raw, base, index, errors, 'price', 0, FUTURE_PRICE_MAX, PRICE_WHAT, true), 'price', PRICE_WHAT, base, index, errors);
+  const convexity = readNumber(raw, base, index, errors, 'convexity', -CONVEXITY_MAX_BP, CONVEXITY_MAX_BP, CONVEXITY_WHAT) ?? 0;
+  let calendar: string | null = FUTURE_CALENDAR;
+  if (raw.calendar !== undefined) {
+    if (typeof raw.calendar === 'string') calendar = raw.calendar;
+    else {
+      errors.push(coreError('schema', `${base}.calendar`, `${base}.calendar: must be a calendar name such as ${FUTURE_CALENDAR} (joined with + if several), not ${typeName(raw.calendar)}`, index));
+      calendar = null;
+    }
+  }
+  // The period: a contract month, or start and end dates as typed.
+  let period: { start: number; end: number } | null = null;
+  let month: string | null = null;
+  const givenBy = `give month (the contract month, such as "2027-03") or both start and end dates (YYYY-MM-DD, end exclusive)`;
+  if (raw.month !== undefined) {
+    if (raw.start !== undefined || raw.end !== undefined) {
+      errors.push(coreError('schema', base, `${base}: a future takes month or start and end, not both; ${givenBy}`, index));
+    } else {
+      const parsed = typeof raw.month === 'string' ? parseContractMonth(raw.month) : null;
+      if (parsed === null || parsed.y < 1990 || parsed.y > 2099) {
+        errors.push(coreError('schema', `${base}.month`, `${base}.month: must be a contract month YYYY-MM (such as "2027-03"), years 1990 to 2099, not ${typeName(raw.month)}`, index));
+      } else if (contract !== null) {
+        month = raw.month as string;
+        period = futurePeriod(contract, parsed.y, parsed.m);
+      }
+    }
+  } else if (raw.start !== undefined || raw.end !== undefined) {
+    const date = (field: 'start' | 'end'): IsoDate | null => {
+      const v = raw[field];
+      if (typeof v === 'string' && parseIsoDate(v) !== null) return v;
+      errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: must be a date YYYY-MM-DD (${givenBy}), not ${typeName(v)}`, index));
+      return null;
+    };
+    const s = date('start');
+    const e = date('end');
+    if (s !== null && e !== null) {
+      if (compareIso(e, s) <= 0) errors.push(coreError('range', `${base}.end`, `${base}.end: ${e} must be after the start ${s} (the period runs from start to the day before end)`, index));
+      else period = { start: serialFromIso(s), end: serialFromIso(e) };
+    }
+  } else {
+    errors.push(coreError('schema', `${base}.month`, `${base}.month: required; ${givenBy}`, index));
+  }
+  if (raw.tenor !== undefined || raw.maturity !== undefined) {
+    const field = raw.tenor !== undefined ? 'tenor' : 'maturity';
+    errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: a future's dates come from its contract month; remove ${field} and ${givenBy}`, index));
+  }
+  if (errors.length > before || period === null || contract === null || price === null || calendar === null) return null;
+  if (settlement === undefined) {
+    errors.push(coreError('schema', base, `${base}: a future's dates are checked against the valuation date, which its reader was not given`, index));
+    return null;
+  }
+  const start = isoFromSerial(period.start);
+  const end = isoFromSerial(period.end);
+  const name = futureName(contract, month, start, end);
+  const cal = businessCalendar(calendar, calendars ?? {});
+  if (!cal.ok) {
+    errors.push(coreError('unknown-identifier', `${base}.calendar`, `${base}.calendar (${name}): ${cal.message}`, index));
+    return null;
+  }
+  for (const s of [period.start - 7, period.end + 7]) {
+    const outside = outsideCalendar(cal.calendar, s);
+    if (outside !== null) {
+      errors.push(coreError('range', `${base}.${month !== null ? 'month' : 'start'}`, `${base} (${name}): the period's dates ${outside}`, index));
+      return null;
+    }
+  }
+  // The first fixing the contract reads: the period's start, or for the average the business day it carries.
+  const fixings = contract === '1M' ? averagedFixings(period.start, period.end, cal.calendar) : null;
+  const firstFixing = fixings !== null ? fixings.days[0]! : period.start;
+  const v = serialFromIso(settlement);
+  if (firstFixing < v) {
+    const field = month !== null ? 'month' : 'start';
+    errors.push(coreError('range', `${base}.${field}`, `${base}.${field} (${name}): its reference period began on ${isoFromSerial(firstFixing)}${firstFixing < period.start ? ` (the fixing its first day carries)` : ''}, before the valuation date ${settlement}; a contract already in its period needs the fixings so far, which are not supported yet: remove it, or give a later contract`, index));
+    return null;
+  }
+  const maturity = isoFromSerial(fixings !== null ? fixings.next : period.end);
+  return {
+    kind: 'future', index, maturity, tenor: null, enabled, contract, month, start, end, price, convexity, calendar, ...(calendars ? { calendars } : {}),
+  };
+}
+
+/**
+ * The fit's dollar duration, -d residual / dR per 1 of notional: for 3M the deposit's (flows -1 at
+ * S and 1 + R tau at E against 0, about tau DF(S)); for 1M the growth of the last business day's
+ * forward, DF(b_last) n_last / 360 N / w_last / g^2 on the market's own forward.
+ */
+function futureDollarDuration(ins: Instrument, q: FutureQuote): number {
+  if (q.contract === '3M') return flatDollarDurationOf(ins.times, [-1, ins.amounts[1]!], 0);
+  const a = ins as Instrument & { weights: readonly number[]; spans: readonly number[]; days: number };
+  const last = a.weights.length - 1;
+  // On a flat curve at the forward rate itself, DF(b_last) ~ exp(-R t) and g ~ 1 + R n / 360.
+  const r = futureForwardRate(q.price, q.convexity);
+  const n = a.spans[last]! / FUTURE_BASIS;
+  const g = 1 + r * n;
+  return (Math.exp(-r * ins.times[last]!) * n * (a.days / a.weights[last]!)) / (g * g);
+}
+
+/**
+ * The quote check's rows. 3M: the reference quarter, its ACT/360 fraction and 100 (1 + R tau)
+ * per 100 at its end at the forward rate R. 1M: one row per calendar day of the month, each with
+ * the business day whose rate it carries (`fixingDate`), 1/360 and 100 R / 360 per 100.
+ */
+export function futureScheduleRows(q: FutureQuote, _settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const r = futureForwardRate(q.price, q.convexity);
+  const s = serialFromIso(q.start);
+  const e = serialFromIso(q.end);
+  const at = (date: IsoDate): { discount: number | null; t: number | null } => {
+    if (!curve) return { discount: null, t: null };
+    const t = curve.time(date);
+    return { discount: Math.exp(curve.lnDiscountAt(t)), t };
+  };
+  const ca = q.convexity === 0 ? 'no convexity adjustment' : `less a convexity adjustment of ${q.convexity} bp`;
+  if (q.contract === '3M') {
+    const tau = (e - s) / FUTURE_BASIS;
+    const cashFlow = 100 * (1 + r * tau);
+    const { discount, t } = at(q.end);
+    return {
+      rows: [{ start: q.start, end: q.end, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t }],
+      accrued: 0,
+      note: `${futureName(q.contract, q.month, q.start, q.end)}: the overnight rate compounded daily from ${q.start} to ${q.end} (end excluded, dates not moved for holidays), simple on ACT/360 over ${e - s} days; the futures rate 100 - price ${ca}; per 100 at the forward rate`,
+    };
+  }
+  const outcome = businessCalendar(q.calendar, q.calendars ?? {});
+  if (!outcome.ok) return { rows: [], accrued: 0, note: outcome.message };
+  const f = averagedFixings(s, e, outcome.calendar);
+  const rows: ScheduleRow[] = [];
+  let i = 0;
+  for (let d = s; d < e; d++) {
+    while (i + 1 < f.days.length && f.days[i + 1]! <= d) i++;
+    const date = isoFromSerial(d);
+    const { discount, t } = at(isoFromSerial(d + 1));
+    const cashFlow = (100 * r) / FUTURE_BASIS;
+    rows.push({ start: date, end: isoFromSerial(d + 1), yearFraction: 1 / FUTURE_BASIS, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t, fixingDate: isoFromSerial(f.days[i]!) });
+  }
+  return {
+    rows,
+    accrued: 0,
+    note: `${futureName(q.contract, q.month, q.start, q.end)}: the arithmetic average of the overnight rate over the ${e - s} calendar days from ${q.start} to ${isoFromSerial(e - 1)}, a day that is not a business day on ${q.calendar} carrying the rate of the business day before it (fixing date); the curve node is ${q.maturity}, where the last day's rate ends; the futures rate 100 - price ${ca}; per 100 at the forward rate per day`,
+  };
+}
