@@ -42,6 +42,8 @@ export interface QuoteSchedule {
   /** Accrued interest per 100 face at settlement (bonds); 0 for swaps. */
   readonly accrued: number;
   readonly note: string;
+  /** The year fractions' day count when the quote has no `dayCount` field of its own (a future: ACT/360). */
+  readonly dayCount?: string;
 }
 
 const df = (curve: Curve | null, date: IsoDate): { discount: number | null; t: number | null } => {

@@ -46,7 +46,7 @@ export const FUTURE: QuoteKindModule<FutureQuote> = {
   compile: (q, _settlement, _s, _m, t, time) => compileFuture(q, t, time),
   curves: DISCOUNTING_AND_PROJECTING,
   nodeRole: 'discount',
-  convention: () => ({ unit: 'price', clean: false }),
+  convention: (q) => ({ unit: 'price', clean: false, futuresRate: q.contract === '3M' ? 'compounded' : 'averaged' }),
   yieldLabel: (q) => `futures rate (${q.contract === '3M' ? 'simple, ACT/360, compounded daily over the quarter' : 'simple, ACT/360, average of the month'})`,
   /** Its own yield is the futures rate, (100 - price) / 100, and back. */
   priceYield: (_q, _settlement, label) => ({ toYield: (p) => (100 - p) / 100, fromYield: (y) => 100 - 100 * y, label }),
@@ -185,6 +185,7 @@ export function futureScheduleRows(q: FutureQuote, _settlement: IsoDate, curve: 
     return {
       rows: [{ start: q.start, end: q.end, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t }],
       accrued: 0,
+      dayCount: 'ACT/360',
       note: `${futureName(q.contract, q.month, q.start, q.end)}: the overnight rate compounded daily from ${q.start} to ${q.end} (end excluded, dates not moved for holidays), simple on ACT/360 over ${e - s} days; the futures rate 100 - price ${ca}; per 100 at the forward rate`,
     };
   }
@@ -203,6 +204,7 @@ export function futureScheduleRows(q: FutureQuote, _settlement: IsoDate, curve: 
   return {
     rows,
     accrued: 0,
+    dayCount: 'ACT/360',
     note: `${futureName(q.contract, q.month, q.start, q.end)}: the arithmetic average of the overnight rate over the ${e - s} calendar days from ${q.start} to ${isoFromSerial(e - 1)}, a day that is not a business day on ${q.calendar} carrying the rate of the business day before it (fixing date); the curve node is ${q.maturity}, where the last day's rate ends; the futures rate 100 - price ${ca}; per 100 at the forward rate per day`,
   };
 }

@@ -16,7 +16,15 @@ import type { RawQuote } from './fields.ts';
  * yield is `bank-discount`: 1 - DF = d days / 360 (US Treasury), not a compounding of compounding.ts.
  */
 export type QuoteConvention =
-  | { readonly unit: 'price'; readonly clean: boolean }
+  | {
+      readonly unit: 'price';
+      readonly clean: boolean;
+      /**
+       * A futures price, 100 minus the futures rate in percent: the rate is simple on ACT/360 and
+       * either compounded daily over the reference quarter or averaged over the month.
+       */
+      readonly futuresRate?: 'compounded' | 'averaged';
+    }
   | { readonly unit: 'rate'; readonly compounding: Compounding | 'bank-discount'; readonly dayCount: DayCount };
 
 /** A fixed leg's convention: payments a year, accrual day count, end-of-month rule. */

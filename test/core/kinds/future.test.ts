@@ -7,6 +7,8 @@ import {
   compoundOvernight,
   INTERPOLATIONS,
   isoFromSerial,
+  quoteConvention,
+  quoteConventionTag,
   quoteDates,
   quoteSchedule,
   serialFromIso,
@@ -245,6 +247,15 @@ describe('a curve of futures, deposits and OIS reprices every quote under every 
 });
 
 describe('convexity, shifts and errors', () => {
+  it('tags a futures price with its rate convention: simple ACT/360, compounded over the quarter or averaged over the month', () => {
+    // CME SOFR futures contract specifications: 3M business-day compounded, 1M arithmetic average; SOFR is ACT/360.
+    const q3 = validated({ kind: 'future', month: '2027-03', price: 96.38 }, VALUATION);
+    const q1 = validated({ kind: 'future', contract: '1M', month: '2027-03', price: 96.38 }, VALUATION);
+    expect(quoteConventionTag(quoteConvention(q3))).toBe('100 − futures rate (simple, ACT/360, compounded daily over the quarter)');
+    expect(quoteConventionTag(quoteConvention(q1))).toBe('100 − futures rate (simple, ACT/360, averaged over the month)');
+    expect(quoteSchedule(q3, VALUATION, null)!.dayCount).toBe('ACT/360');
+  });
+
   it('subtracts the convexity adjustment from the futures rate exactly: the forward is (100 - price)/100 - convexity/1e4', () => {
     // MARKET-CONVENTIONS.md section e: CA = futures rate - forward rate, subtracted from the futures rate.
     const doc = (convexity: number) => workspaceDoc([{ kind: 'deposit', tenor: '1W', rate: 0.038 }, { kind: 'future', month: '2027-03', price: 96.38, convexity }], { settlement: VALUATION, interpolation: 'linear-zero' });
