@@ -145,6 +145,12 @@ export interface FutureQuote extends QuoteCommon {
   readonly price: number;
   readonly convexity: number;
   readonly calendar: string;
+  /**
+   * The overnight fixings (decimal) of a contract already in its period at the valuation date, by
+   * business day: every business day from the period's first fixing to the day before the
+   * valuation date (absent for a contract not yet fixing).
+   */
+  readonly fixings?: Readonly<Record<IsoDate, number>>;
   readonly calendars?: CalendarContext;
 }
 export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote | ParYieldQuote | FutureQuote;

@@ -1,5 +1,6 @@
+import { compoundOvernight } from '../rates/overnightCompounding.ts';
 import { businessCalendar } from '../time/calendars.ts';
-import { civilFromIso, civilFromSerial, serialFromIso, type CivilDate } from '../time/date.ts';
+import { civilFromIso, civilFromSerial, isoFromSerial, serialFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import { averagedFixings } from '../time/futurePeriods.ts';
 import type { FutureQuote } from '../document/types.ts';
 import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
@@ -31,20 +32,37 @@ export const futurePriceOf = (forward: number, convexityBp: number): number => 1
  *   r_need = (N R - sum_{i < last} w_i r_i) / w_last.
  * The quote's unit is its price (per 100); the model price is 100 (1 - R_model - CA).
  */
-export function compileFuture(q: FutureQuote, t: number, time: (d: CivilDate) => number): Instrument {
+export function compileFuture(q: FutureQuote, settlement: IsoDate, t: number, time: (d: CivilDate) => number): Instrument {
   const start = serialFromIso(q.start);
   const end = serialFromIso(q.end);
-  if (q.contract === '3M') {
-    const tau = (end - start) / FUTURE_BASIS;
-    return new CompoundedFuture(q, t, [time(civilFromIso(q.start)), t], tau, q.price);
-  }
   const outcome = businessCalendar(q.calendar, q.calendars ?? {});
   // The reader checked the calendar; a failure here is a programming error.
   if (!outcome.ok) throw new Error(`future ${q.index}: ${outcome.message}`);
-  const f = averagedFixings(start, end, outcome.calendar);
-  const times = [...f.days, f.next].map((s) => time(civilFromSerial(s)));
+  const calendar = outcome.calendar;
+  const rateOf = (b: number): number => q.fixings?.[isoFromSerial(b)] ?? Number.NaN;
+  if (q.contract === '3M') {
+    const tau = (end - start) / FUTURE_BASIS;
+    if (q.fixings === undefined) return new CompoundedFuture(q, t, [time(civilFromIso(q.start)), t], tau, q.price, 0);
+    // In its period: the known growth over [S, c) from the fixings, c the first business day on or
+    // after the valuation date; the curve gives DF(c) / DF(E).
+    let c = serialFromIso(settlement);
+    while (!calendar.isBusinessDay(c)) c++;
+    const known = compoundOvernight(new Map(Object.entries(q.fixings).map(([d, r]) => [serialFromIso(d), r])), start, c, calendar, FUTURE_BASIS);
+    if (!known.ok) throw new Error(`future ${q.index}: ${known.errors[0]!.message}`); // the reader checked every fixing
+    return new CompoundedFuture(q, t, [time(civilFromSerial(c)), t], tau, q.price, Math.log(known.value.factor));
+  }
+  const f = averagedFixings(start, end, calendar);
+  // In its period: business days before the valuation date carry known rates (their weighted sum).
+  const v = serialFromIso(settlement);
+  let first = 0;
+  let knownSum = 0;
+  while (first < f.days.length && f.days[first]! < v) {
+    knownSum += f.weights[first]! * rateOf(f.days[first]!);
+    first++;
+  }
+  const times = [...f.days.slice(first), f.next].map((s) => time(civilFromSerial(s)));
   times[times.length - 1] = t;
-  return new AveragedFuture(q, t, times, f.weights, f.spans, end - start, q.price);
+  return new AveragedFuture(q, t, times, f.weights.slice(first), f.spans.slice(first), end - start, q.price, knownSum);
 }
 
 /** A three-month future: 0 at S and 1 + R tau at E against DF(S) on the curve. */
@@ -53,11 +71,16 @@ class CompoundedFuture extends CompiledInstrument<FutureQuote> {
   /** ln(1 + R tau), NaN when the price implies a growth <= 0. */
   declare readonly lnGrowth: number;
 
-  constructor(q: FutureQuote, t: number, times: readonly number[], tau: number, price: number) {
+  /** ln of the growth already fixed, over [S, c) (0 for a contract not yet in its period). */
+  declare readonly lnKnown: number;
+
+  constructor(q: FutureQuote, t: number, times: readonly number[], tau: number, price: number, lnKnown: number) {
     const r = futureForwardRate(price, q.convexity);
-    super(q, t, times, 'price', 'price', price, [0, 1 + r * tau], 1, null, DISCOUNTING_AND_PROJECTING);
+    // The flows: 0 at c and (1 + R tau) / known at E against DF(c).
+    super(q, t, times, 'price', 'price', price, [0, (1 + r * tau) / Math.exp(lnKnown)], 1, null, DISCOUNTING_AND_PROJECTING);
     this.tau = tau;
-    this.lnGrowth = 1 + r * tau > 0 ? Math.log1p(r * tau) : Number.NaN;
+    this.lnKnown = lnKnown;
+    this.lnGrowth = 1 + r * tau > 0 ? Math.log1p(r * tau) - lnKnown : Number.NaN;
   }
 
   /** DF(S). */
@@ -75,13 +98,13 @@ class CompoundedFuture extends CompiledInstrument<FutureQuote> {
     return this.lnGrowth + ln[offset + 1]! - ln[offset]!;
   }
 
-  /** 100 (1 - R - CA) with R = expm1(ln DF(S) - ln DF(E)) / tau. */
+  /** 100 (1 - R - CA) with R = expm1(ln known + ln DF(c) - ln DF(E)) / tau (c = S before the period). */
   quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return futurePriceOf(Math.expm1(ln[offset]! - ln[offset + 1]!) / this.tau, this.quote.convexity);
+    return futurePriceOf(Math.expm1(this.lnKnown + ln[offset]! - ln[offset + 1]!) / this.tau, this.quote.convexity);
   }
 
   requote(value: number): Instrument {
-    return new CompoundedFuture(this.quote, this.t, this.times, this.tau, value);
+    return new CompoundedFuture(this.quote, this.t, this.times, this.tau, value, this.lnKnown);
   }
 }
 
@@ -93,8 +116,10 @@ class AveragedFuture extends CompiledInstrument<FutureQuote> {
   declare readonly days: number;
   /** The forward rate R the average must meet. */
   declare readonly rate: number;
+  /** sum w_i r_i over the business days already fixed (0 before the period). */
+  declare readonly knownSum: number;
 
-  constructor(q: FutureQuote, t: number, times: readonly number[], weights: readonly number[], spans: readonly number[], days: number, price: number) {
+  constructor(q: FutureQuote, t: number, times: readonly number[], weights: readonly number[], spans: readonly number[], days: number, price: number, knownSum: number) {
     const amounts = new Array<number>(times.length).fill(0);
     amounts[times.length - 1] = 1;
     super(q, t, times, 'price', 'price', price, amounts, 1, null, DISCOUNTING_AND_PROJECTING);
@@ -102,6 +127,7 @@ class AveragedFuture extends CompiledInstrument<FutureQuote> {
     this.spans = spans;
     this.days = days;
     this.rate = futureForwardRate(price, q.convexity);
+    this.knownSum = knownSum;
   }
 
   /** Business day i's overnight forward, expm1(ln DF(b_i) - ln DF(b_i+1)) 360 / n_i. */
@@ -114,7 +140,7 @@ class AveragedFuture extends CompiledInstrument<FutureQuote> {
     const last = this.weights.length - 1;
     let others = 0;
     for (let i = 0; i < last; i++) others += this.weights[i]! * this.forward(ln, offset, i);
-    const need = (this.days * this.rate - others) / this.weights[last]!;
+    const need = (this.days * this.rate - this.knownSum - others) / this.weights[last]!;
     return 1 + (need * this.spans[last]!) / FUTURE_BASIS;
   }
 
@@ -152,12 +178,12 @@ class AveragedFuture extends CompiledInstrument<FutureQuote> {
 
   /** The model price 100 (1 - R_model - CA), R_model = (1 / N) sum_i w_i r_i. */
   quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    let sum = 0;
+    let sum = this.knownSum;
     for (let i = 0; i < this.weights.length; i++) sum += this.weights[i]! * this.forward(ln, offset, i);
     return futurePriceOf(sum / this.days, this.quote.convexity);
   }
 
   requote(value: number): Instrument {
-    return new AveragedFuture(this.quote, this.t, this.times, this.weights, this.spans, this.days, value);
+    return new AveragedFuture(this.quote, this.t, this.times, this.weights, this.spans, this.days, value, this.knownSum);
   }
 }

@@ -7,7 +7,7 @@ import { coreError, fail, ok, type CoreError } from '../result.ts';
 import { businessCalendar, outsideCalendar, type CalendarContext } from '../time/calendars.ts';
 import { compareIso, isoFromSerial, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
 import { averagedFixings, FUTURE_CONTRACTS, futurePeriod, parseContractMonth, type FutureContract } from '../time/futurePeriods.ts';
-import { readChoice, readNumber, required, typeName, type RawQuote } from './fields.ts';
+import { RATE_MAX, RATE_MIN, readChoice, readNumber, required, typeName, type RawQuote } from './fields.ts';
 import { flatDollarDurationOf } from './shared.ts';
 import type { QuoteKindModule } from './types.ts';
 
@@ -29,21 +29,22 @@ export const futureName = (contract: string, month: string | null, start: IsoDat
  * rate in percent (CME SOFR futures). Fields: `price` (required), `contract` `3M` (default,
  * compounded over the IMM quarter) or `1M` (averaged over the calendar month), `month` (`YYYY-MM`)
  * or `start` and `end` dates (end exclusive), `convexity` in bp (default 0, subtracted from the
- * futures rate), `calendar` (default `us-gov-securities`). It takes no tenor or maturity: its
- * dates come from its month (`ownDates`). A contract whose period began before the valuation date
- * is refused: its fixings so far would be needed, which the engine does not take yet.
+ * futures rate), `calendar` (default `us-gov-securities`), `fixings` (a contract in its period: the
+ * overnight rate of every business day from its first fixing to the day before the valuation date,
+ * `{"YYYY-MM-DD": rate}`). It takes no tenor or maturity: its dates come from its month
+ * (`ownDates`). A contract in its period without its fixings, or with every fixing known, is refused.
  */
 export const FUTURE: QuoteKindModule<FutureQuote> = {
   kind: 'future',
   ownDates: true,
   schema: {
-    fields: ['price', 'contract', 'month', 'start', 'end', 'convexity', 'calendar'],
+    fields: ['price', 'contract', 'month', 'start', 'end', 'convexity', 'calendar', 'fixings'],
     defaults: {},
     read: readFuture,
   },
   sheet: { rateField: null, rateWhat: 'futures price', priceField: 'price', missingValue: 'price', coupon: false, frequency: false, dayCount: { refuse: 'day count (a SOFR future is on ACT/360 by definition)' } },
   paste: { kindWords: ['futures', 'fut', 'futs', 'rate future', 'sofr future', 'sofr futures'], headerWords: { futuresprice: 'price' } },
-  compile: (q, _settlement, _s, _m, t, time) => compileFuture(q, t, time),
+  compile: (q, settlement, _s, _m, t, time) => compileFuture(q, settlement, t, time),
   curves: DISCOUNTING_AND_PROJECTING,
   nodeRole: 'discount',
   convention: (q) => ({ unit: 'price', clean: false, futuresRate: q.contract === '3M' ? 'compounded' : 'averaged' }),
@@ -132,19 +133,75 @@ function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDa
       return null;
     }
   }
-  // The first fixing the contract reads: the period's start, or for the average the business day it carries.
-  const fixings = contract === '1M' ? averagedFixings(period.start, period.end, cal.calendar) : null;
-  const firstFixing = fixings !== null ? fixings.days[0]! : period.start;
+  // The first fixing the contract reads: the period's start (or the business day before it when it is
+  // not one: the compounding's first day carries that rate), or for the average the business day its first day carries.
+  const averaged = contract === '1M' ? averagedFixings(period.start, period.end, cal.calendar) : null;
+  let firstFixing = averaged !== null ? averaged.days[0]! : period.start;
+  while (!cal.calendar.isBusinessDay(firstFixing)) firstFixing--;
   const v = serialFromIso(settlement);
-  if (firstFixing < v) {
-    const field = month !== null ? 'month' : 'start';
-    errors.push(coreError('range', `${base}.${field}`, `${base}.${field} (${name}): its reference period began on ${isoFromSerial(firstFixing)}${firstFixing < period.start ? ` (the fixing its first day carries)` : ''}, before the valuation date ${settlement}; a contract already in its period needs the fixings so far, which are not supported yet: remove it, or give a later contract`, index));
+  const field = month !== null ? 'month' : 'start';
+  // The business day the curve's part starts on: the first on or after the valuation date.
+  let c = v;
+  while (!cal.calendar.isBusinessDay(c)) c++;
+  const lastNeeded = averaged !== null ? averaged.days[averaged.days.length - 1]! : period.end - 1;
+  if (c > lastNeeded) {
+    errors.push(coreError('range', `${base}.${field}`, `${base}.${field} (${name}): its reference period ends on ${isoFromSerial(period.end - 1)} and every fixing it reads is known by the valuation date ${settlement}, so nothing of it is left on the curve; remove it or give a later contract`, index));
     return null;
   }
-  const maturity = isoFromSerial(fixings !== null ? fixings.next : period.end);
+  const fixings = readFixings(raw, base, index, errors, name, firstFixing, v, cal.calendar);
+  if (fixings === null) return null;
+  if (firstFixing < v) {
+    const missing: string[] = [];
+    for (let b = firstFixing; b < v; b++) if (cal.calendar.isBusinessDay(b) && fixings?.[isoFromSerial(b)] === undefined) missing.push(isoFromSerial(b));
+    if (missing.length > 0) {
+      const path = fixings === undefined ? `${base}.${field}` : `${base}.fixings`;
+      const list = missing.length > 4 ? `${missing.slice(0, 4).join(', ')} and ${missing.length - 4} more` : missing.join(', ');
+      errors.push(coreError('range', path, `${path} (${name}): its reference period began on ${isoFromSerial(firstFixing)}${firstFixing < period.start ? ' (the fixing its first day carries)' : ''}, before the valuation date ${settlement}, so it needs the overnight fixings so far; ${fixings === undefined ? 'give them as fixings' : 'fixings lacks'} ${list} (fixings: {"YYYY-MM-DD": rate as a decimal, ...}, one per ${calendar} business day before the valuation date), or remove the contract`, index));
+      return null;
+    }
+  }
+  const maturity = isoFromSerial(averaged !== null ? averaged.next : period.end);
   return {
-    kind: 'future', index, maturity, tenor: null, enabled, contract, month, start, end, price, convexity, calendar, ...(calendars ? { calendars } : {}),
+    kind: 'future', index, maturity, tenor: null, enabled, contract, month, start, end, price, convexity, calendar,
+    ...(fixings !== undefined && firstFixing < v ? { fixings } : {}), ...(calendars ? { calendars } : {}),
   };
+}
+
+
+/**
+ * The `fixings` field: an object of business days (YYYY-MM-DD) to overnight rates (decimals,
+ * the rate fields' range), each on a business day of the contract's calendar from its first fixing
+ * to the day before the valuation date (a day's rate is published the next morning). Undefined when
+ * absent; null with a path-named error when wrong.
+ */
+function readFixings(raw: RawQuote, base: string, index: number, errors: CoreError[], name: string, first: number, v: number, calendar: { isBusinessDay(s: number): boolean }): Record<IsoDate, number> | null | undefined {
+  const f = raw.fixings;
+  if (f === undefined) return undefined;
+  const path = `${base}.fixings`;
+  if (f === null || typeof f !== 'object' || Array.isArray(f)) {
+    errors.push(coreError('schema', path, `${path} (${name}): must be an object of dates to rates, such as {"2027-03-17": 0.0365}, not ${typeName(f)}`, index));
+    return null;
+  }
+  const out: Record<IsoDate, number> = {};
+  for (const [date, r] of Object.entries(f as Record<string, unknown>)) {
+    const at = `${path}.${date.slice(0, 12)}`;
+    if (parseIsoDate(date) === null) {
+      errors.push(coreError('schema', at, `${at} (${name}): a fixing's key must be a date YYYY-MM-DD, not "${date.slice(0, 40)}"`, index));
+      return null;
+    }
+    if (typeof r !== 'number' || !Number.isFinite(r) || r < RATE_MIN || r > RATE_MAX) {
+      errors.push(coreError('range', at, `${at} (${name}): must be a rate as a decimal from ${RATE_MIN} to ${RATE_MAX} (0.0365 = 3.65%), not ${typeof r === 'number' ? String(r) : typeName(r)}`, index));
+      return null;
+    }
+    const s = serialFromIso(date);
+    if (s >= v || s < first || !calendar.isBusinessDay(s)) {
+      const why = s >= v ? 'is not known at the valuation date (a rate is published the next business morning)' : s < first ? `is before the contract's first fixing ${isoFromSerial(first)}` : 'is not a business day on the contract\'s calendar';
+      errors.push(coreError('range', at, `${at} (${name}): ${date} ${why}; give fixings for business days from ${isoFromSerial(first)} to the day before the valuation date`, index));
+      return null;
+    }
+    out[date] = r;
+  }
+  return out;
 }
 
 /**
@@ -177,7 +234,8 @@ export function futureScheduleRows(q: FutureQuote, _settlement: IsoDate, curve: 
     const t = curve.time(date);
     return { discount: Math.exp(curve.lnDiscountAt(t)), t };
   };
-  const ca = q.convexity === 0 ? 'no convexity adjustment' : `less a convexity adjustment of ${q.convexity} bp`;
+  const known = q.fixings === undefined ? 0 : Object.keys(q.fixings).length;
+  const ca = `${q.convexity === 0 ? 'no convexity adjustment' : `less a convexity adjustment of ${q.convexity} bp`}${known > 0 ? `; ${known} fixing${known === 1 ? '' : 's'} before the valuation date given, the rest read off the curve` : ''}`;
   if (q.contract === '3M') {
     const tau = (e - s) / FUTURE_BASIS;
     const cashFlow = 100 * (1 + r * tau);

@@ -62,12 +62,12 @@ const GOVT = (() => {
   return o.calendar;
 })();
 
-const validated = (raw: RawQuote, settlement: string): FutureQuote => {
-  const v = validateWorkspace(workspaceDoc([raw], { settlement }));
+const validated = (raw: Record<string, unknown>, settlement: string): FutureQuote => {
+  const v = validateWorkspace(workspaceDoc([raw as RawQuote], { settlement }));
   expect(v.errors).toEqual([]);
   return v.workspace!.quotes[0]! as FutureQuote;
 };
-const errorsOf = (raw: RawQuote, settlement = '2026-12-01') => validateWorkspace(workspaceDoc([raw], { settlement })).errors;
+const errorsOf = (raw: Record<string, unknown>, settlement = '2026-12-01') => validateWorkspace(workspaceDoc([raw as RawQuote], { settlement })).errors;
 
 /**
  * ln DF on the curve's ACT/365F axis of a curve whose overnight forwards are the published
@@ -298,15 +298,78 @@ describe('convexity, shifts and errors', () => {
     expect(e8[0]!.path).toBe('quotes[0].convexity');
   });
 
-  it('refuses a contract already in its period, naming it and saying fixings are not supported yet', () => {
+  it('refuses a contract already in its period without its fixings, naming it and the missing dates', () => {
     // December 2026's 3M contract started on 2026-12-16; valued 2027-01-05 it is in its period.
     const e = errorsOf({ kind: 'future', month: '2026-12', price: 96.3 }, '2027-01-05');
     expect(e[0]!.path).toBe('quotes[0].month');
-    expect(e[0]!.message).toMatch(/3M future 2026-12.*began on 2026-12-16.*fixings.*not supported yet/);
+    expect(e[0]!.message).toMatch(/3M future 2026-12.*began on 2026-12-16.*needs the overnight fixings so far; give them as fixings 2026-12-16, 2026-12-17, 2026-12-18, 2026-12-21 and \d+ more/);
     // A 1M contract whose first day carries a fixing before the valuation date: May 2027 starts on
     // Saturday 2027-05-01, carrying Friday 2027-04-30's rate.
     const e1 = errorsOf({ kind: 'future', contract: '1M', month: '2027-05', price: 96.3 }, '2027-05-01');
     expect(e1[0]!.message).toMatch(/1M future 2027-05.*2027-04-30/);
+    // A fixing given for the valuation date itself is not known yet; one on a holiday is refused.
+    const e2 = errorsOf({ kind: 'future', contract: '1M', month: '2027-05', price: 96.3, fixings: { '2027-04-30': 0.036, '2027-05-03': 0.036 } }, '2027-05-03');
+    expect(e2[0]!.path).toBe('quotes[0].fixings.2027-05-03');
+    expect(e2[0]!.message).toMatch(/not known at the valuation date/);
+    const e3 = errorsOf({ kind: 'future', month: '2026-12', price: 96.3, fixings: { '2026-12-25': 0.036 } }, '2027-01-05');
+    expect(e3[0]!.message).toMatch(/not a business day/);
+    // A contract whose every fixing is known has nothing left on the curve.
+    const e4 = errorsOf({ kind: 'future', contract: '1M', month: '2026-12', price: 96.3 }, '2027-01-02');
+    expect(e4[0]!.message).toMatch(/nothing of it is left on the curve/);
+  });
+
+  /** The fixture's fixings from `from` to the day before `to`, as a quote's fixings field. */
+  const fixingsBetween = (from: string, to: string): Record<string, number> => {
+    const out: Record<string, number> = {};
+    for (let d = serialFromIso(from); d < serialFromIso(to); d++) if (SOFR.has(d)) out[isoFromSerial(d)] = SOFR.get(d)!;
+    return out;
+  };
+
+  it('prices a 3M contract in its period from its fixings so far and the curve after: the whole quarter compounded (SOFR fixings)', () => {
+    // March 2024 contract (2024-03-20 to 2024-06-19) valued 2024-05-01: fixings 2024-03-20 to 2024-04-30 given.
+    const v = '2024-05-01';
+    const q = validated({ kind: 'future', month: '2024-03', price: 95, fixings: fixingsBetween('2024-03-20', v) }, v);
+    const full = compoundOvernight(SOFR, serialFromIso('2024-03-20'), serialFromIso('2024-06-19'), GOVT, 360);
+    if (!full.ok) throw new Error(full.errors[0]!.message);
+    const model = compileQuote(q, v, 'ACT/365F').modelQuote(fixingCurve(serialFromIso(v), serialFromIso('2024-06-25')));
+    expect(Math.abs(model - (100 - 100 * full.value.rate))).toBeLessThanOrEqual(1e-11);
+  });
+
+  it('prices a 1M contract in its period from its fixings so far (the first carried from May) and the curve after (SOFR fixings)', () => {
+    // June 2024, valued Wednesday 2024-06-12: 06-01 and 06-02 carry Friday 2024-05-31's fixing.
+    const v = '2024-06-12';
+    const q = validated({ kind: 'future', contract: '1M', month: '2024-06', price: 95, fixings: fixingsBetween('2024-05-31', v) }, v);
+    let sum = 0;
+    for (let d = serialFromIso('2024-06-01'); d < serialFromIso('2024-07-01'); d++) {
+      let b = d;
+      while (!SOFR.has(b)) b--;
+      sum += SOFR.get(b)!;
+    }
+    const model = compileQuote(q, v, 'ACT/365F').modelQuote(fixingCurve(serialFromIso(v), serialFromIso('2024-07-08')));
+    expect(Math.abs(model - (100 - 100 * (sum / 30)))).toBeLessThanOrEqual(1e-11);
+  });
+
+  it('builds a curve whose front contracts are in their period (invented fixings) and reprices every quote under every interpolation', () => {
+    const v = '2027-04-14';
+    const fixings3m: Record<string, number> = {};
+    const fixings1m: Record<string, number> = {};
+    for (let d = serialFromIso('2027-03-17'); d < serialFromIso(v); d++) {
+      if (!GOVT.isBusinessDay(d)) continue;
+      fixings3m[isoFromSerial(d)] = 0.0361 + 0.00001 * (d % 7);
+      if (d >= serialFromIso('2027-04-01')) fixings1m[isoFromSerial(d)] = fixings3m[isoFromSerial(d)]!;
+    }
+    const quotes: RawQuote[] = [
+      { kind: 'deposit', tenor: '1W', rate: 0.0362 },
+      { kind: 'future', contract: '1M', month: '2027-04', price: 96.37, fixings: fixings1m } as unknown as RawQuote,
+      { kind: 'future', month: '2027-03', price: 96.375, fixings: fixings3m } as unknown as RawQuote,
+      { kind: 'future', month: '2027-06', price: 96.45, convexity: 0.4 },
+      { kind: 'ois', tenor: '2Y', rate: 0.0349 },
+    ];
+    for (const interpolation of INTERPOLATIONS) {
+      const b = buildCurve(workspaceDoc(quotes, { settlement: v, interpolation }));
+      expect(b.errors, interpolation).toEqual([]);
+      for (const r of b.repricing) expect(Math.abs(r.repricingError), `${interpolation} quotes[${r.index}]`).toBeLessThanOrEqual(r.unit === 'price' ? 1e-11 : 1e-14);
+    }
   });
 
   it('refuses two contracts on the same node (a duplicate), naming both', () => {
