@@ -7,6 +7,14 @@ import {
   businessCalendar,
   compileMarket,
   CURVE_DAY_COUNTS,
+  fitCurve,
+  forwardRows,
+  forwardSensitivities,
+  bumpedForwardSensitivities,
+  luFactor,
+  luInverse,
+  modelYieldNodeJacobian,
+  quoteNodeJacobian,
   compileQuote,
   compoundOvernight,
   INTERPOLATIONS,
@@ -464,4 +472,51 @@ describe('random futures markets reprice under every interpolation (the repricin
       );
     }, 120_000);
   }
+});
+
+describe('risk and the smooth fit on a futures curve', () => {
+  // As test/core/kinds/ois.test.ts does for the lagged OIS: for an exact bootstrap the Jacobian of
+  // the model quotes' own yields to the nodes and that of the pricing equations are inverse, and
+  // analytic forward sensitivities match bumped rebuilds (central 1 bp and 0.5 bp, Richardson).
+  // Both read the futures' targets on the curve (targetSlopes), so both fail if a slope is wrong.
+  const ws = validateWorkspace(workspaceDoc(MARKET, { settlement: VALUATION, interpolation: 'log-linear-discount' })).workspace!;
+  const instruments = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false).instruments;
+  const settings = { settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation: 'log-linear-discount' as const, extrapolation: 'none' as const };
+  const maxAbsDiff = (a: ArrayLike<number>, b: ArrayLike<number>): number => {
+    let m = 0;
+    for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]! - b[i]!));
+    return m;
+  };
+  it('the two Jacobians of the quotes to the nodes are inverse to 1e-8', () => {
+    const curve = bootstrapInstruments(settings, instruments).curve!;
+    const n = instruments.length;
+    const direct = modelYieldNodeJacobian(curve, instruments);
+    const inv = luInverse(luFactor(quoteNodeJacobian(curve, instruments).jacobian, n)!);
+    const prod = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) for (let j = 0; j < n; j++) prod[i * n + k] = prod[i * n + k]! + direct[i * n + j]! * inv[j * n + k]!;
+    const identity = Float64Array.from({ length: n * n }, (_, k) => (Math.floor(k / n) === k % n ? 1 : 0));
+    expect(maxAbsDiff(prod, identity)).toBeLessThanOrEqual(1e-8);
+  });
+  it('forward sensitivities match bumped rebuilds to 1e-6 bp per bp', () => {
+    const curve = bootstrapInstruments(settings, instruments).curve!;
+    const rows = forwardRows(curve, { n: 1, unit: 'M' }, { n: 3, unit: 'M' }, 'simple', 'ACT/365F');
+    if (!rows.ok) throw new Error(rows.errors[0]!.message);
+    const map = forwardSensitivities(curve, instruments, rows.value, 'simple', 'ACT/365F');
+    if (!map.ok) throw new Error(map.errors[0]!.message);
+    const b1 = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 1);
+    const bh = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 0.5);
+    if (!b1.ok || !bh.ok) throw new Error('bumped rebuild failed');
+    const rich = Float64Array.from(b1.value, (v, i) => (4 * bh.value[i]! - v) / 3);
+    expect(maxAbsDiff(map.value.values, rich)).toBeLessThanOrEqual(1e-6);
+  });
+  it('fits Nelson-Siegel to the futures by yield and by price: finite residuals within 25 bp', () => {
+    for (const errors of ['yield', 'price'] as const) {
+      const fit = fitCurve(ws, { model: 'nelson-siegel', errors });
+      if (!fit.ok) throw new Error(fit.errors[0]!.message);
+      for (const r of fit.value.residuals) {
+        expect(Number.isFinite(r.residualBp), `${errors} quotes[${r.index}]`).toBe(true);
+        expect(Math.abs(r.residualBp), `${errors} quotes[${r.index}]`).toBeLessThan(25);
+      }
+    }
+  });
 });
