@@ -92,12 +92,13 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode, conventions: InputC
   }
   const kind = kindParse.value;
   const quote: Record<string, unknown> = { kind };
-  if (kindModule(kind).ownDates === true) {
-    // A kind dated by its contract month (a future): the Maturity cell holds the month, YYYY-MM.
+  const ownCell = kindModule(kind).sheet.maturityCell;
+  if (ownCell !== undefined) {
+    // A kind dated by its own fields (a future): the Maturity cell holds them (its month, and contract).
     delete issues.maturity;
-    const text = row.maturity.trim();
-    if (/^\d{4}-\d{2}$/.test(text)) quote.month = text;
-    else error('maturity', `a ${kind} is dated by its contract month: type it as YYYY-MM (such as 2027-03), not a tenor or a date`);
+    const read = ownCell.read(row.maturity);
+    if (read.ok) Object.assign(quote, read.fields);
+    else error('maturity', read.message);
   } else if (maturity && 'tenor' in maturity && moneyMarketTerm(maturity.tenor) !== null && kindModule(kind).moneyMarketTerms !== true) {
     const takers = KIND_MODULE_LIST.filter((m) => m.moneyMarketTerms === true).map((m) => m.kind);
     error('maturity', `${maturity.tenor} (${MONEY_MARKET_TERMS[moneyMarketTerm(maturity.tenor)!]}) is a ${takers.join(' or ')} tenor; a ${kind} takes a tenor such as 1M or 5Y, or a date`);

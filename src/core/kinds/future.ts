@@ -42,7 +42,24 @@ export const FUTURE: QuoteKindModule<FutureQuote> = {
     defaults: {},
     read: readFuture,
   },
-  sheet: { rateField: null, rateWhat: 'futures price', priceField: 'price', missingValue: 'price', coupon: false, frequency: false, dayCount: { refuse: 'day count (a SOFR future is on ACT/360 by definition)' } },
+  sheet: {
+    rateField: null,
+    rateWhat: 'futures price',
+    priceField: 'price',
+    missingValue: 'price',
+    coupon: false,
+    frequency: false,
+    dayCount: { refuse: 'day count (a SOFR future is on ACT/360 by definition)' },
+    /** The Maturity cell: the contract month, and ` 1M` for a one-month contract (`2027-03`, `2027-03 1M`). */
+    maturityCell: {
+      read(text) {
+        const m = /^(\d{4}-\d{2})(?:\s+(1M|3M))?$/i.exec(text.trim());
+        if (m === null) return { ok: false, message: 'a future is dated by its contract month: type it as YYYY-MM (such as 2027-03), followed by 1M for a one-month contract (2027-03 1M); not a tenor or a date' };
+        return { ok: true, fields: m[2] === undefined ? { month: m[1] } : { month: m[1], contract: m[2].toUpperCase() } };
+      },
+      write: (raw) => (typeof raw.month === 'string' ? `${raw.month}${raw.contract === '1M' ? ' 1M' : ''}` : ''),
+    },
+  },
   paste: { kindWords: ['futures', 'fut', 'futs', 'rate future', 'sofr future', 'sofr futures'], headerWords: { futuresprice: 'price' } },
   compile: (q, settlement, _s, _m, t, time) => compileFuture(q, settlement, t, time),
   curves: DISCOUNTING_AND_PROJECTING,

@@ -86,6 +86,14 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
     readonly frequency: boolean;
     /** Whether the Day count column applies: `yes`, only `with-rate`, or refused with a reason. */
     readonly dayCount: 'yes' | 'with-rate' | { readonly refuse: string };
+    /**
+     * Optional, for a kind dated by its own fields (`ownDates`): how the Maturity cell reads into
+     * them (a future's `2027-03` or `2027-03 1M`: month and contract) and is written back from them.
+     */
+    readonly maturityCell?: {
+      read(text: string): { readonly ok: true; readonly fields: Readonly<Record<string, unknown>> } | { readonly ok: false; readonly message: string };
+      write(raw: Readonly<Record<string, unknown>>): string;
+    };
   };
 
   /** What a pasted block may say for the kind: words for the kind itself, and header words of its own fields. */

@@ -14,6 +14,8 @@ import {
   luFactor,
   luInverse,
   modelYieldNodeJacobian,
+  parseRow,
+  workbenchFromEngine,
   quoteNodeJacobian,
   compileQuote,
   compoundOvernight,
@@ -518,5 +520,28 @@ describe('risk and the smooth fit on a futures curve', () => {
         expect(Math.abs(r.residualBp), `${errors} quotes[${r.index}]`).toBeLessThan(25);
       }
     }
+  });
+});
+
+describe('a future in the sheet', () => {
+  it('reads the Maturity cell as the month (and 1M for a one-month contract), the Price cell as the price; refuses a rate and a tenor', () => {
+    const row = (maturity: string, price: string, rate = '') => ({ id: 'r', enabled: true, kind: 'future', maturity, rate, price, coupon: '', frequency: '', dayCount: '' });
+    expect(parseRow(row('2027-03', '96.38'), 'decimal').quote).toEqual({ kind: 'future', month: '2027-03', price: 96.38 });
+    expect(parseRow(row('2027-04 1m', '96.4'), 'decimal').quote).toEqual({ kind: 'future', month: '2027-04', contract: '1M', price: 96.4 });
+    const tenor = parseRow(row('3M', '96.38'), 'decimal');
+    expect(tenor.quote).toBeNull();
+    expect(tenor.issues.maturity?.message).toMatch(/contract month: type it as YYYY-MM/);
+    const byRate = parseRow(row('2027-03', '', '0.0362'), 'decimal');
+    expect(byRate.issues.rate?.message).toMatch(/quoted by its futures price in the Price column/);
+  });
+
+  it('opens an engine file of futures in the workbench and writes it back unchanged; refuses one with a convexity (no column)', () => {
+    const quotes: RawQuote[] = [{ kind: 'future', month: '2027-03', price: 96.38 }, { kind: 'future', contract: '1M', month: '2027-01', price: 96.2 }];
+    const wb = workbenchFromEngine(workspaceDoc(quotes, { settlement: VALUATION }), () => 'r');
+    expect(wb.ok).toBe(true);
+    if (wb.ok) expect(wb.value.quotes.map((r) => r.maturity)).toEqual(['2027-03', '2027-01 1M']);
+    const withConvexity = workbenchFromEngine(workspaceDoc([{ kind: 'future', month: '2027-03', price: 96.38, convexity: 0.5 }], { settlement: VALUATION }), () => 'r');
+    expect(withConvexity.ok).toBe(false);
+    if (!withConvexity.ok) expect(withConvexity.errors[0]!.message).toMatch(/convexity .*has no column in the sheet/);
   });
 });

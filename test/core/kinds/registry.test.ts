@@ -68,8 +68,11 @@ const EXAMPLES = {
     { kind: 'par-yield', tenor: '3M', yield: 0.0395 },
     { kind: 'par-yield', maturity: '2033-05-15', yield: 0.0421, frequency: 2, dayCount: '30/360' },
   ],
-  // A three-month SOFR future by contract month (quoted by price only; the sheet's Maturity cell holds the month).
-  future: [{ kind: 'future', month: '2027-06', price: 96.875 }],
+  // SOFR futures by contract month, quoted by price only; the sheet's Maturity cell holds the month (and 1M for a one-month contract).
+  future: [
+    { kind: 'future', month: '2027-06', price: 96.875 },
+    { kind: 'future', contract: '1M', month: '2027-04', price: 96.9 },
+  ],
 } satisfies Record<QuoteKind, readonly Record<string, string | number>[]>;
 
 /** An OIS with the date conventions, which have no sheet columns yet (README, instrument table). */
