@@ -6,7 +6,7 @@ import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/inst
 import { coreError, fail, ok, type CoreError } from '../result.ts';
 import { businessCalendar, outsideCalendar, type CalendarContext } from '../time/calendars.ts';
 import { compareIso, isoFromSerial, parseIsoDate, serialFromIso, type IsoDate } from '../time/date.ts';
-import { averagedFixings, FUTURE_CONTRACTS, futurePeriod, parseContractMonth, type FutureContract } from '../time/futurePeriods.ts';
+import { averagedDays, averagedFixings, FUTURE_CONTRACTS, lastDayOf, futurePeriod, parseContractMonth, type FutureContract } from '../time/futurePeriods.ts';
 import { RATE_MAX, RATE_MIN, readChoice, readNumber, required, typeName, type RawQuote } from './fields.ts';
 import { flatDollarDurationOf } from './shared.ts';
 import type { QuoteKindModule } from './types.ts';
@@ -162,7 +162,7 @@ function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDa
   while (!cal.calendar.isBusinessDay(c)) c++;
   const lastNeeded = averaged !== null ? averaged.days[averaged.days.length - 1]! : period.end - 1;
   if (c > lastNeeded) {
-    errors.push(coreError('range', `${base}.${field}`, `${base}.${field} (${name}): its reference period ends on ${isoFromSerial(period.end - 1)} and every fixing it reads is known by the valuation date ${settlement}, so nothing of it is left on the curve; remove it or give a later contract`, index));
+    errors.push(coreError('range', `${base}.${field}`, `${base}.${field} (${name}): its reference period ends on ${lastDayOf(end)} and every fixing it reads is known by the valuation date ${settlement}, so nothing of it is left on the curve; remove it or give a later contract`, index));
     return null;
   }
   const fixings = readFixings(raw, base, index, errors, name, firstFixing, v, cal.calendar);
@@ -266,20 +266,15 @@ export function futureScheduleRows(q: FutureQuote, _settlement: IsoDate, curve: 
   }
   const outcome = businessCalendar(q.calendar, q.calendars ?? {});
   if (!outcome.ok) return { rows: [], accrued: 0, note: outcome.message };
-  const f = averagedFixings(s, e, outcome.calendar);
-  const rows: ScheduleRow[] = [];
-  let i = 0;
-  for (let d = s; d < e; d++) {
-    while (i + 1 < f.days.length && f.days[i + 1]! <= d) i++;
-    const date = isoFromSerial(d);
-    const { discount, t } = at(isoFromSerial(d + 1));
+  const rows: ScheduleRow[] = averagedDays(q.start, q.end, outcome.calendar).map(({ day, dayEnd, fixing }) => {
+    const { discount, t } = at(dayEnd);
     const cashFlow = (100 * r) / FUTURE_BASIS;
-    rows.push({ start: date, end: isoFromSerial(d + 1), yearFraction: 1 / FUTURE_BASIS, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t, fixingDate: isoFromSerial(f.days[i]!) });
-  }
+    return { start: day, end: dayEnd, yearFraction: 1 / FUTURE_BASIS, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t, fixingDate: fixing };
+  });
   return {
     rows,
     accrued: 0,
     dayCount: 'ACT/360',
-    note: `${futureName(q.contract, q.month, q.start, q.end)}: the arithmetic average of the overnight rate over the ${e - s} calendar days from ${q.start} to ${isoFromSerial(e - 1)}, a day that is not a business day on ${q.calendar} carrying the rate of the business day before it (fixing date); the curve node is ${q.maturity}, where the last day's rate ends; the futures rate 100 - price ${ca}; per 100 at the forward rate per day`,
+    note: `${futureName(q.contract, q.month, q.start, q.end)}: the arithmetic average of the overnight rate over the ${e - s} calendar days from ${q.start} to ${lastDayOf(q.end)}, a day that is not a business day on ${q.calendar} carrying the rate of the business day before it (fixing date); the curve node is ${q.maturity}, where the last day's rate ends; the futures rate 100 - price ${ca}; per 100 at the forward rate per day`,
   };
 }

@@ -1,4 +1,4 @@
-import { civilFromSerial, serialFromCivil } from './date.ts';
+import { civilFromSerial, isoFromSerial, serialFromCivil, serialFromIso, type IsoDate } from './date.ts';
 import { weekdayOf, type BusinessCalendar } from './calendars.ts';
 
 /**
@@ -79,4 +79,21 @@ export function averagedFixings(start: number, end: number, calendar: BusinessCa
 export function monthLabel(serial: number): string {
   const c = civilFromSerial(serial);
   return `${c.y}-${String(c.m).padStart(2, '0')}`;
+}
+
+/** The last day of a period that ends (exclusive) on `end`. */
+export const lastDayOf = (end: IsoDate): IsoDate => isoFromSerial(serialFromIso(end) - 1);
+
+/** Each calendar day of [start, end) with the day after it and the business day whose rate it carries (averagedFixings). */
+export function averagedDays(start: IsoDate, end: IsoDate, calendar: BusinessCalendar): { readonly day: IsoDate; readonly dayEnd: IsoDate; readonly fixing: IsoDate }[] {
+  const s = serialFromIso(start);
+  const e = serialFromIso(end);
+  const f = averagedFixings(s, e, calendar);
+  const out: { day: IsoDate; dayEnd: IsoDate; fixing: IsoDate }[] = [];
+  let i = 0;
+  for (let d = s; d < e; d++) {
+    while (i + 1 < f.days.length && f.days[i + 1]! <= d) i++;
+    out.push({ day: isoFromSerial(d), dayEnd: isoFromSerial(d + 1), fixing: isoFromSerial(f.days[i]!) });
+  }
+  return out;
 }
