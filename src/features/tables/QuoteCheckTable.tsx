@@ -33,7 +33,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
     <div className="quote-check">
       <div className="scroll-y" tabIndex={0} role="region" aria-label="Quote check (scrolls)">
         <table className="data" aria-label="Quote check">
-          <caption>Each quote repriced on the built curve; choose a bond, swap or par yield row to see its schedule.</caption>
+          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield or future row to see its schedule.</caption>
           <thead>
             <tr>
               <th scope="col">Row</th>
