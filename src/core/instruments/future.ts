@@ -42,7 +42,17 @@ export function compileFuture(q: FutureQuote, settlement: IsoDate, t: number, ti
   const rateOf = (b: number): number => q.fixings?.[isoFromSerial(b)] ?? Number.NaN;
   if (q.contract === '3M') {
     const tau = (end - start) / FUTURE_BASIS;
-    if (q.fixings === undefined) return new CompoundedFuture(q, t, [time(civilFromIso(q.start)), t], tau, q.price, 0);
+    if (q.fixings === undefined && calendar.isBusinessDay(start)) return new CompoundedFuture(q, t, [time(civilFromIso(q.start)), t], tau, q.price, 0);
+    if (q.fixings === undefined) {
+      // A start on a holiday (2024-06-19): its first days carry the rate of the business day b0
+      // before it, which runs to the next business day b1. Without fixings the reader has made sure
+      // b0 is on or after the valuation date, so that rate is read off the curve.
+      let b0 = start;
+      while (!calendar.isBusinessDay(b0)) b0--;
+      let b1 = start;
+      while (!calendar.isBusinessDay(b1)) b1++;
+      return new HolidayStartFuture(q, t, [time(civilFromSerial(b0)), time(civilFromSerial(b1)), t], tau, (b1 - start) / (b1 - b0), q.price);
+    }
     // In its period: the known growth over [S, c) from the fixings, c the first business day on or
     // after the valuation date; the curve gives DF(c) / DF(E).
     let c = serialFromIso(settlement);
@@ -105,6 +115,53 @@ class CompoundedFuture extends CompiledInstrument<FutureQuote> {
 
   requote(value: number): Instrument {
     return new CompoundedFuture(this.quote, this.t, this.times, this.tau, value, this.lnKnown);
+  }
+}
+
+/**
+ * A three-month future whose period starts on a holiday S between business days b0 and b1: the
+ * growth over the quarter is (1 + r_b0 (b1 - S) / 360) DF(b1) / DF(E), r_b0 = (DF(b0) / DF(b1) - 1)
+ * 360 / (b1 - b0) the curve's overnight forward of b0, i.e. (w DF(b0) + (1 - w) DF(b1)) / DF(E) with
+ * w = (b1 - S) / (b1 - b0): exactly what the exchange compounds (its first days carry b0's rate).
+ * Flows 0 at b0 and b1 and 1 + R tau at E against w DF(b0) + (1 - w) DF(b1).
+ */
+class HolidayStartFuture extends CompiledInstrument<FutureQuote> {
+  declare readonly tau: number;
+  /** (b1 - S) / (b1 - b0): the share of b0's overnight span inside the period. */
+  declare readonly w: number;
+  declare readonly lnGrowth: number;
+
+  constructor(q: FutureQuote, t: number, times: readonly number[], tau: number, w: number, price: number) {
+    const r = futureForwardRate(price, q.convexity);
+    super(q, t, times, 'price', 'price', price, [0, 0, 1 + r * tau], 1, null, DISCOUNTING_AND_PROJECTING);
+    this.tau = tau;
+    this.w = w;
+    this.lnGrowth = 1 + r * tau > 0 ? Math.log1p(r * tau) : Number.NaN;
+  }
+
+  targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return this.w * df[offset]! + (1 - this.w) * df[offset + 1]!;
+  }
+
+  targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
+    out[0] = this.w * df[offset]!;
+    out[1] = (1 - this.w) * df[offset + 1]!;
+    out[2] = 0;
+  }
+
+  /** ln(1 + R tau) + ln DF(E) - ln(w DF(b0) + (1 - w) DF(b1)), taken relative to DF(b1) for precision. */
+  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return this.lnGrowth + ln[offset + 2]! - ln[offset + 1]! - Math.log1p(this.w * Math.expm1(ln[offset]! - ln[offset + 1]!));
+  }
+
+  /** 100 (1 - R - CA), R = expm1(ln(1 + w expm1(ln DF(b0) - ln DF(b1))) + ln DF(b1) - ln DF(E)) / tau. */
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    const lnStart = Math.log1p(this.w * Math.expm1(ln[offset]! - ln[offset + 1]!)) + ln[offset + 1]!;
+    return futurePriceOf(Math.expm1(lnStart - ln[offset + 2]!) / this.tau, this.quote.convexity);
+  }
+
+  requote(value: number): Instrument {
+    return new HolidayStartFuture(this.quote, this.t, this.times, this.tau, this.w, value);
   }
 }
 

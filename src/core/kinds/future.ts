@@ -223,11 +223,13 @@ function readFixings(raw: RawQuote, base: string, index: number, errors: CoreErr
 
 /**
  * The fit's dollar duration, -d residual / dR per 1 of notional: for 3M the deposit's (flows -1 at
- * S and 1 + R tau at E against 0, about tau DF(S)); for 1M the growth of the last business day's
+ * the first flow (S, or b0 for a start on a holiday, or c in the period) and the end flow at E
+ * against 0, about tau DF(S)); for 1M the growth of the last business day's
  * forward, DF(b_last) n_last / 360 N / w_last / g^2 on the market's own forward.
  */
 function futureDollarDuration(ins: Instrument, q: FutureQuote): number {
-  if (q.contract === '3M') return flatDollarDurationOf(ins.times, [-1, ins.amounts[1]!], 0);
+  const flows = ins.times.length;
+  if (q.contract === '3M') return flatDollarDurationOf([ins.times[0]!, ins.times[flows - 1]!], [-1, ins.amounts[flows - 1]!], 0);
   const a = ins as Instrument & { weights: readonly number[]; spans: readonly number[]; days: number };
   const last = a.weights.length - 1;
   // On a flat curve at the forward rate itself, DF(b_last) ~ exp(-R t) and g ~ 1 + R n / 360.

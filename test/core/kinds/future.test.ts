@@ -84,9 +84,9 @@ const errorsOf = (raw: Record<string, unknown>, settlement = '2026-12-01') => va
  * fixings: DF at each business day the product of (1 + r_b n_b / 360) from the valuation date, and
  * within a span of non-business days DF(b) / (1 + r_b (d - b) / 360) (the rate of the last business day).
  */
-function fixingCurve(valuation: number, until: number): (t: number) => number {
+function fixingCurve(valuation: number, until: number, fixings: ReadonlyMap<number, number> = SOFR): (t: number) => number {
   const rate = (b: number): number => {
-    const r = SOFR.get(b);
+    const r = fixings.get(b);
     if (r === undefined) throw new Error(`no fixing for ${isoFromSerial(b)}`);
     return r;
   };
@@ -185,6 +185,19 @@ describe('final settlement rates recomputed from the published SOFR fixings (for
     });
   }
 
+  it('3M June 2024, starting on Juneteenth (a holiday): the first day carries 2024-06-18\'s rate as the exchange compounds it (invented fixings; the fixture ends in August)', () => {
+    // compoundOvernight (which reproduces the published SOFR Averages) gives the exchange's rate; the
+    // engine reads b0 = 2024-06-18 and b1 = 2024-06-20 off the curve (MARKET-CONVENTIONS.md section e).
+    const fixings = new Map<number, number>();
+    for (let d = serialFromIso('2024-06-03'); d < serialFromIso('2024-09-30'); d++) if (GOVT.isBusinessDay(d)) fixings.set(d, 0.0531 + 0.0004 * Math.sin(d));
+    const valuation = serialFromIso('2024-06-12');
+    const q = validated({ kind: 'future', month: '2024-06', price: 95 }, isoFromSerial(valuation));
+    const exchange = compoundOvernight(fixings, serialFromIso('2024-06-19'), serialFromIso('2024-09-18'), GOVT, 360);
+    if (!exchange.ok) throw new Error(exchange.errors[0]!.message);
+    const model = compileQuote(q, isoFromSerial(valuation), 'ACT/365F').modelQuote(fixingCurve(valuation, serialFromIso('2024-09-25'), fixings));
+    expect(Math.abs(model - (100 - 100 * exchange.value.rate))).toBeLessThanOrEqual(1e-11);
+  });
+
   // 1M contracts: the average over every calendar day, each carrying the last fixing published on or before it.
   const ONE_MONTH = ['2022-01', '2023-04', '2023-07', '2024-06'];
   // 2022-01-01 a Saturday (New Year's Day on a Saturday: no weekday close, so 2021-12-31's fixing);
@@ -258,6 +271,36 @@ describe('a curve of futures, deposits and OIS reprices every quote under every 
       expect(Math.abs(sum / 28 - (100 - 96.26) / 100)).toBeLessThanOrEqual(1e-13);
     });
   }
+});
+
+describe('contracts around Juneteenth 2030 (a Wednesday IMM date, a US government securities holiday)', () => {
+  it('reprice under every interpolation: March 2030 ends on it, June 2030 starts on it (invented prices)', () => {
+    // 2030-06-19: the third Wednesday of June 2030 (June 1 a Saturday) and Juneteenth (calendar module, SIFMA).
+    expect(GOVT.isBusinessDay(serialFromIso('2030-06-19'))).toBe(false);
+    const quotes: RawQuote[] = [
+      { kind: 'deposit', tenor: '1W', rate: 0.031 },
+      { kind: 'future', month: '2030-03', price: 96.9 },
+      { kind: 'future', month: '2030-06', price: 96.95, convexity: 0.3 },
+      { kind: 'future', month: '2030-09', price: 96.97, convexity: 0.5 },
+      { kind: 'ois', tenor: '2Y', rate: 0.0305 },
+    ];
+    for (const interpolation of INTERPOLATIONS) {
+      const b = buildCurve(workspaceDoc(quotes, { settlement: '2030-01-15', interpolation }));
+      expect(b.errors, interpolation).toEqual([]);
+      for (const r of b.repricing) expect(Math.abs(r.repricingError), `${interpolation} quotes[${r.index}]`).toBeLessThanOrEqual(r.unit === 'price' ? 1e-11 : 1e-14);
+      // The June contract read off the built curve by the exchange's rule: the first day carries 2030-06-18's overnight forward.
+      const c = b.curve!;
+      const df = (d: string) => Math.exp(c.lnDiscountAt(c.time(d)));
+      const r0 = (df('2030-06-18') / df('2030-06-20') - 1) * (360 / 2);
+      const growth = (1 + r0 / 360) * (df('2030-06-20') / df('2030-09-18'));
+      expect(Math.abs((growth - 1) * (360 / 91) - ((100 - 96.95) / 100 - 0.3 / 1e4)), interpolation).toBeLessThanOrEqual(1e-13);
+    }
+    // The smooth fit weighs each contract by a positive, finite dollar duration (registry contract).
+    const ws = validateWorkspace(workspaceDoc(quotes, { settlement: '2030-01-15' })).workspace!;
+    const fit = fitCurve(ws, { model: 'nelson-siegel', errors: 'price' });
+    if (!fit.ok) throw new Error(fit.errors[0]!.message);
+    for (const r of fit.value.residuals) expect(Number.isFinite(r.residualBp), `quotes[${r.index}]`).toBe(true);
+  });
 });
 
 describe('convexity, shifts and errors', () => {
