@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { isPlainObject, readWorkbenchDocument, WORKBENCH_FORMAT, workbenchFromEngine, type WorkbenchDocument } from '../core/index.ts';
+import { isPlainObject, readWorkbenchDocument, WORKBENCH_FORMAT, type WorkbenchDocument } from '../core/index.ts';
 import { tableConventionsFromDisplay } from '../core/index.ts';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { makeRowId } from '../state/ids.ts';
@@ -47,13 +47,15 @@ export function ShareBar({ result }: { result: WorkbenchBuild }) {
         onOpen={(checked) => {
           if (checked.document.format !== WORKBENCH_FORMAT) {
             // An engine document (the curve command's input): its quotes become sheet rows, exactly, or it is refused with the reason.
-            const wb = workbenchFromEngine(checked.document, makeRowId);
-            if (!wb.ok) setMessage(`The file was not opened: ${wb.errors.slice(0, 3).map((e) => e.message).join(' ')}${wb.errors.length > 3 ? ` (and ${wb.errors.length - 3} more)` : ''} Your workspace has not been changed.`);
-            else {
-              useAppStore.getState().closeReadOnly();
-              setMessage('Opened an engine workspace file: its rates are shown as decimals (switch the unit to percent to see them in %).');
-              void openFileAsWorkspace(wb.value);
-            }
+            void import('./documentReader.ts').then(({ workbenchFromEngine }) => {
+              const wb = workbenchFromEngine(checked.document, makeRowId);
+              if (!wb.ok) setMessage(`The file was not opened: ${wb.errors.slice(0, 3).map((e) => e.message).join(' ')}${wb.errors.length > 3 ? ` (and ${wb.errors.length - 3} more)` : ''} Your workspace has not been changed.`);
+              else {
+                useAppStore.getState().closeReadOnly();
+                setMessage('Opened an engine workspace file: its rates are shown as decimals (switch the unit to percent to see them in %).');
+                void openFileAsWorkspace(wb.value);
+              }
+            });
             return;
           }
           const unknowns = checked.unknowns;

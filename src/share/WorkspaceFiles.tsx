@@ -1,5 +1,5 @@
 import { useRef, useState, type ChangeEvent } from 'react';
-import { curveTableCsv, formatNumber, MAX_FILE_CHARS, parseDocumentText, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
+import { curveTableCsv, formatNumber, MAX_FILE_CHARS, serialiseDocument, type CheckedDocument, type CurveTableConventions } from '../core/index.ts';
 import type { Curve } from '../core/index.ts';
 import { download } from '../components/download.ts';
 
@@ -38,6 +38,7 @@ export function WorkspaceFiles({ document: doc, curve, conventions, points, onOp
     }
     // Parsed on the page: the largest workspace the caps allow (about 1.5 million characters) takes
     // 11-18 ms, and a longer text is refused by its length before it is parsed (MAX_FILE_CHARS).
+    const { parseDocumentText } = await import('./documentReader.ts');
     const r = parseDocumentText(text);
     if (!r.ok) {
       const first = r.errors.slice(0, 3).map((x) => x.message).join('; ');

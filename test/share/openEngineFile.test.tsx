@@ -3,7 +3,7 @@
 // quotes become sheet rows that build the same curve, or the file is refused with the reason and
 // the workspace is untouched. The README's engine example is the file opened.
 import { README_DOCUMENT } from '../helpers/readmeDocument.ts';
-import { render, screen } from '@testing-library/react';
+import { render, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { buildCurve, toEngineDocument } from '../../src/core/index.ts';
@@ -22,6 +22,9 @@ describe('opening an engine document in the workbench', { timeout: 30_000 }, () 
     const user = userEvent.setup({ delay: null });
     render(<App />);
     await user.upload(screen.getByLabelText('Workspace file to open'), file(README_DOC));
+    // The file reader loads on the first open: wait until the file is opened, then read the store.
+    expect(await screen.findByText(/Opened an engine workspace file/)).toBeInTheDocument();
+    await waitFor(() => expect(useAppStore.getState().workspace.settlement).toBe('2027-03-10'));
     const ws = useAppStore.getState().workspace;
     expect(ws.settlement).toBe('2027-03-10');
     expect(ws.quoteUnit).toBe('decimal');
@@ -35,7 +38,6 @@ describe('opening an engine document in the workbench', { timeout: 30_000 }, () 
     const a = buildCurve(README_DOC).curve!;
     const b = buildCurve(toEngineDocument(ws).doc).curve!;
     for (const p of a.pillars) expect(b.lnDiscountAt(p.t)).toBe(a.lnDiscountAt(p.t));
-    expect(await screen.findByText(/Opened an engine workspace file/)).toBeInTheDocument();
   });
 
   it('refuses a document whose zero carries a compounding the sheet cannot hold, and changes nothing', async () => {

@@ -239,6 +239,6 @@ function spotGap(ws: Workspace, instruments: readonly Instrument[], interpolatio
     path: `quotes[${found.index}]`,
     quote: found.index,
     code: 'spot-gap',
-    message: `quotes[${found.index}] starts on ${found.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${first}: the discount factor there is bridged from 1 at the valuation date ${rule}; add ON and TN deposits on the same calendar to link the curve to spot`,
+    message: `quotes[${found.index}] starts on ${found.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${first}: the discount factor there is bridged from 1 at the valuation date ${rule}; add quotes that end by then to link the curve to it (ON and TN deposits on the same calendar for a spot start)`,
   };
 }

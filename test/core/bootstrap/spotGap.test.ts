@@ -27,7 +27,7 @@ describe('the gap from the valuation date to spot', () => {
     expect(gaps).toHaveLength(1);
     expect(gaps[0]).toMatchObject({ path: 'quotes[0]', quote: 0 });
     expect(gaps[0]!.message).toMatch(/starts on 2027-12-27, after the valuation date 2027-12-22 and before the curve's first pillar 2028-12-29/);
-    expect(gaps[0]!.message).toMatch(/add ON and TN deposits/);
+    expect(gaps[0]!.message).toMatch(/add quotes that end by then .*ON and TN deposits on the same calendar for a spot start/);
   });
 
   it('with ON and TN deposits on the same calendar there is no gap and no warning', () => {
