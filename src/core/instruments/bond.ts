@@ -177,22 +177,8 @@ function compileSpotBond(q: BondQuote, settle: CivilDate, maturity: CivilDate, t
   return new SpotBondInstrument(q, t, times, amounts, yieldSchedule, s.accrued, q.yield !== null ? q.yield : q.cleanPrice!);
 }
 
-class SpotBondInstrument extends CompiledInstrument<BondQuote> {
-  declare readonly unit: 'rate' | 'price';
-  declare readonly field: 'yield' | 'cleanPrice';
-  declare readonly amounts: number[];
-  declare readonly closedFormLn: null;
-  declare readonly schedule: YieldSchedule;
-  /** Accrued interest per 100 face at settlement at spot. */
-  declare readonly accrued: number;
-
-  constructor(q: BondQuote, t: number, times: readonly number[], amounts: number[], schedule: YieldSchedule, accrued: number, value: number) {
-    const byYield = q.yield !== null;
-    super(q, t, times, byYield ? 'rate' : 'price', byYield ? 'yield' : 'cleanPrice', value, amounts, byYield ? bondDirtyFromYield(schedule, value).price : value + accrued, null, DISCOUNTING);
-    this.schedule = schedule;
-    this.accrued = accrued;
-  }
-
+/** The same terms as BondInstrument, its flows led by a zero at the settlement; what changes is what they are met against. */
+class SpotBondInstrument extends BondInstrument {
   /** D DF(S): what the coupons and principal must be worth today. */
   targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
     return this.target * df[offset]!;
@@ -205,7 +191,7 @@ class SpotBondInstrument extends CompiledInstrument<BondQuote> {
   }
 
   /** The clean price at S, sum CF DF / DF(S) - accrued, or the ICMA yield at S of that dirty price. */
-  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  override quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
     const { amounts } = this;
     let pv = 0;
     for (let j = 1; j < amounts.length; j++) pv += amounts[j]! * df[offset + j]!;
@@ -213,7 +199,7 @@ class SpotBondInstrument extends CompiledInstrument<BondQuote> {
     return this.unit === 'rate' ? (bondYieldFromDirty(this.schedule, dirty) ?? Number.NaN) : dirty - this.accrued;
   }
 
-  requote(value: number): Instrument {
+  override requote(value: number): Instrument {
     return new SpotBondInstrument(this.quote, this.t, this.times, this.amounts, this.schedule, this.accrued, value);
   }
 }
