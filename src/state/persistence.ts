@@ -734,7 +734,8 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
       const value = await backend.get(entryKey(id));
       const name = list.getState().items.find((x) => x.id === id)?.name ?? 'workspace';
       await backend.del(entryKey(id));
-      list.setState({ deleted: { id, name, record: value }, notice: null });
+      // The entry leaves the list in the same step that says it was deleted (never "deleted" beside it).
+      list.setState({ deleted: { id, name, record: value }, notice: null, items: list.getState().items.filter((x) => x.id !== id) });
       await refreshList();
       post({ type: 'list', tab: tabId });
     },
@@ -748,8 +749,8 @@ export function startPersistence(deps: PersistenceDeps = browserDeps()): Persist
         list.setState({ notice: `“${d.name}” could not be put back: ${errorText(e)}.` });
         return;
       }
-      list.setState({ deleted: null });
       await refreshList();
+      list.setState({ deleted: null });
       post({ type: 'list', tab: tabId });
     },
     async records() {
