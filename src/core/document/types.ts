@@ -77,13 +77,33 @@ export interface BondQuote extends QuoteCommon, SpotSettled {
   readonly eom: boolean;
 }
 /** Single-curve par swap from settlement: fixed rate (decimal) on the fixed leg's frequency and day count. */
-export interface SwapQuote extends QuoteCommon {
+export interface SwapQuote extends QuoteCommon, Partial<DatedSwapTerms> {
   readonly kind: 'swap';
   readonly rate: number;
   readonly frequency: number;
   readonly dayCount: DayCount;
   readonly eom: boolean;
 }
+/**
+ * A swap's date conventions on a calendar (every OIS; a `swap` that gives any of `calendar`,
+ * `spotLag`, `businessDay`, `paymentLag`): start at spot, accrual dates moved by the rule, payments
+ * lagged. On one curve both float legs telescope, so both price with instruments/ois.ts.
+ */
+export interface DatedSwapTerms {
+  /** A calendar id of time/calendars.ts (built-ins joined with `+`). */
+  readonly calendar: string;
+  /** Business days from settlement to the start. */
+  readonly spotLag: number;
+  readonly businessDay: BusinessDayRule;
+  /** Business days from each accrual end to its payment. */
+  readonly paymentLag: number;
+  /** The end before the business-day rule (the maturity given, or the start plus the tenor). */
+  readonly unadjustedEnd: IsoDate;
+  /** The workspace's own calendars and edits its dates are made on (absent: the built-ins as published). */
+  readonly calendars?: CalendarContext;
+}
+/** A swap priced on its dates: an OIS, or a swap quote with its date conventions. */
+export type DatedSwapQuote = OisQuote | (SwapQuote & DatedSwapTerms);
 /**
  * Overnight-index swap on one curve (kinds/ois.ts): fixed rate (decimal) against the compounded
  * overnight rate, with its date conventions. Defaults: frequency 1, dayCount and floatDayCount

@@ -4,7 +4,8 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, DepositQuote, OisQuote, ParYieldQuote, Quote, SwapQuote } from '../document/types.ts';
+import type { BondQuote, DatedSwapQuote, DepositQuote, ParYieldQuote, Quote, SwapQuote } from '../document/types.ts';
+import { isDated } from '../kinds/swap.ts';
 import { parYieldSchedule } from '../instruments/parYield.ts';
 import { formatRate } from '../format/quantities.ts';
 import { couponTag } from '../format/conventionTag.ts';
@@ -93,7 +94,7 @@ export function swapScheduleRows(q: SwapQuote, settlement: IsoDate, curve: Curve
  * The floating leg (compounded overnight, worth sum (DF(S_i)/DF(E_i) - 1) DF(P_i) on the curve) is
  * not a list of fixed flows and is not shown.
  */
-export function oisScheduleRows(q: OisQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+export function oisScheduleRows(q: DatedSwapQuote, settlement: IsoDate, curve: Curve | null): QuoteSchedule {
   const r = oisDates(q, civilFromIso(settlement));
   if (!r.ok) return { rows: [], accrued: 0, note: r.errors[0]?.message ?? 'no schedule' };
   const { starts, ends, payments, unadjustedEnds } = r.value;
@@ -166,7 +167,7 @@ export function parYieldScheduleRows(q: ParYieldQuote, settlement: IsoDate, curv
 const SCHEDULES: { readonly [K in Quote['kind']]?: (q: Extract<Quote, { kind: K }>, settlement: IsoDate, curve: Curve | null) => QuoteSchedule } = {
   deposit: depositScheduleRows,
   bond: bondScheduleRows,
-  swap: swapScheduleRows,
+  swap: (q, settlement, curve) => (isDated(q) ? oisScheduleRows(q, settlement, curve) : swapScheduleRows(q, settlement, curve)),
   ois: oisScheduleRows,
   'par-yield': parYieldScheduleRows,
 };

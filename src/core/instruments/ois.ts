@@ -1,4 +1,4 @@
-import type { OisQuote } from '../document/types.ts';
+import type { DatedSwapQuote } from '../document/types.ts';
 import { yearFractionCivil } from '../time/dayCount.ts';
 import { civilFromIso, isoFromCivil, serialFromCivil, type CivilDate } from '../time/date.ts';
 import { parseTenor } from '../time/tenor.ts';
@@ -37,13 +37,13 @@ import { fixedLegFlows, parRateFromFlows } from './swap.ts';
  * The pillar is the last payment date P_n (not the last accrual end), so the last discount factor
  * the quote needs is a node and never extrapolated (MARKET-CONVENTIONS.md section d, QuantLib#618).
  */
-export function oisDates(q: OisQuote, settlement: CivilDate): Result<SwapDates> {
+export function oisDates(q: DatedSwapQuote, settlement: CivilDate): Result<SwapDates> {
   const tenor = q.tenor === null ? null : parseTenor(q.tenor);
   return swapDates(settlement, tenor === null ? { end: civilFromIso(q.unadjustedEnd) } : { tenor }, q, `quotes[${q.index}]`, q.index);
 }
 
 /** Compiles a validated OIS quote (its dates were checked when it was read). */
-export function compileOis(q: OisQuote, settlement: CivilDate, time: (d: CivilDate) => number): Instrument {
+export function compileOis(q: DatedSwapQuote, settlement: CivilDate, time: (d: CivilDate) => number): Instrument {
   const r = oisDates(q, settlement);
   if (!r.ok) throw new RangeError(r.errors[0]?.message ?? 'bad OIS dates'); // cannot happen: the quote's reader made the same dates
   const { starts, ends, payments } = r.value;
@@ -74,12 +74,12 @@ export function compileOis(q: OisQuote, settlement: CivilDate, time: (d: CivilDa
 }
 
 /** The no-lag, spot-start OIS: today's swap form, flows K tau_i at E_i and 1 at E_n against 1. */
-class OisSwapForm extends CompiledInstrument<OisQuote> {
+class OisSwapForm extends CompiledInstrument<DatedSwapQuote> {
   declare readonly maturity: string;
   declare readonly amounts: number[];
   readonly taus: readonly number[];
 
-  constructor(q: OisQuote, t: number, times: readonly number[], taus: readonly number[], rate: number, pillarDate: string) {
+  constructor(q: DatedSwapQuote, t: number, times: readonly number[], taus: readonly number[], rate: number, pillarDate: string) {
     super(q, t, times, 'rate', 'rate', rate, fixedLegFlows(rate, taus), 1, null, DISCOUNTING_AND_PROJECTING);
     this.taus = taus;
     this.maturity = pillarDate;
@@ -100,7 +100,7 @@ class OisSwapForm extends CompiledInstrument<OisQuote> {
  * leg's value on the curve, sum_i (DF(S_i) / DF(E_i) - 1) DF(P_i) (targetFromFlows).
  * sIdx[i], eIdx[i], pIdx[i]: the flow holding S_i, E_i, P_i (sIdx[0] = -1 when S_0 is settlement, DF 1).
  */
-class LaggedOis extends CompiledInstrument<OisQuote> {
+class LaggedOis extends CompiledInstrument<DatedSwapQuote> {
   declare readonly maturity: string;
   declare readonly amounts: number[];
   readonly taus: readonly number[];
@@ -108,7 +108,7 @@ class LaggedOis extends CompiledInstrument<OisQuote> {
   readonly eIdx: readonly number[];
   readonly pIdx: readonly number[];
 
-  constructor(q: OisQuote, t: number, times: readonly number[], taus: readonly number[], sIdx: readonly number[], eIdx: readonly number[], pIdx: readonly number[], rate: number, pillarDate: string) {
+  constructor(q: DatedSwapQuote, t: number, times: readonly number[], taus: readonly number[], sIdx: readonly number[], eIdx: readonly number[], pIdx: readonly number[], rate: number, pillarDate: string) {
     const amounts = new Array<number>(times.length).fill(0);
     for (let i = 0; i < taus.length; i++) amounts[pIdx[i]!] = amounts[pIdx[i]!]! + rate * taus[i]!;
     super(q, t, times, 'rate', 'rate', rate, amounts, 1, null, DISCOUNTING_AND_PROJECTING);

@@ -1,4 +1,8 @@
-import type { OisQuote } from '../document/types.ts';
+import type { DatedSwapQuote, DatedSwapTerms, OisQuote } from '../document/types.ts';
+import type { CalendarContext } from '../time/calendars.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { CoreError } from '../result.ts';
+import type { RawQuote } from './fields.ts';
 import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
 import { compileOis, oisDates } from '../instruments/ois.ts';
 import { coreError, ok } from '../result.ts';
@@ -39,32 +43,10 @@ export const OIS: QuoteKindModule<OisQuote> = {
         dayCount = null;
       }
       const floatDayCount = readChoice(raw, base, index, errors, 'floatDayCount', FLOAT_DAY_COUNTS, 'ACT/360');
-      const calendar = readCalendar(raw, base, index, errors);
-      const spotLag = readWhole(raw, base, index, errors, 'spotLag', 0, MAX_LAG, 'business days', 0);
-      const businessDay = readChoice(raw, base, index, errors, 'businessDay', BUSINESS_DAY_RULES, 'modified-following');
       const eom = readEom(raw, base, index, errors, false);
-      const paymentLag = readWhole(raw, base, index, errors, 'paymentLag', 0, MAX_LAG, 'business days', 0);
-      if (rate === null || frequency === null || !dayCount || !floatDayCount || calendar === null || spotLag === null || !businessDay || eom === null || paymentLag === null) return null;
-      if (maturity === null) return null; // the common reader has said why
-      if (settlement === undefined) {
-        // A programming error (validateWorkspace always passes it), reported rather than dropping the quote.
-        errors.push(coreError('schema', base, `${base}: an OIS's dates count from the settlement date, which its reader was not given`, index));
-        return null;
-      }
-      // The swap's dates, checked now so every error names this quote: the calendar (an unknown
-      // name lists the valid ones), dates within its years, an end after the start.
-      const parsedTenor = tenor === null ? null : parseTenor(tenor);
-      const conventions = { calendar, businessDay, eom, spotLag, paymentLag, frequency, ...(calendars ? { calendars } : {}) };
-      const dates = swapDates(civilFromIso(settlement), parsedTenor === null ? { end: civilFromIso(maturity) } : { tenor: parsedTenor }, conventions, base, index);
-      if (!dates.ok) {
-        errors.push(...dates.errors);
-        return null;
-      }
-      const { ends, unadjustedEnd } = dates.value;
-      return {
-        kind: 'ois', index, maturity: isoFromCivil(ends[ends.length - 1]!), tenor, enabled, rate, frequency, dayCount, floatDayCount,
-        calendar, spotLag, businessDay, eom, paymentLag, unadjustedEnd: isoFromCivil(unadjustedEnd), ...(calendars ? { calendars } : {}),
-      };
+      const dated = readDatedSwapTerms(raw, base, index, errors, frequency, eom, settlement, maturity, tenor, calendars);
+      if (rate === null || frequency === null || !dayCount || !floatDayCount || eom === null || dated === null) return null;
+      return { kind: 'ois', index, maturity: dated.maturity, tenor, enabled, rate, frequency, dayCount, floatDayCount, eom, ...dated.terms };
     },
   },
   sheet: { rateField: 'rate', rateWhat: 'OIS rate', priceField: null, missingValue: 'rate', coupon: false, frequency: true, dayCount: 'yes' },
@@ -88,7 +70,7 @@ export const OIS: QuoteKindModule<OisQuote> = {
  * the instrument's own flows are the fixed coupons alone (the floating leg is its target on the
  * curve), so the notional is added here.
  */
-function oisDollarDuration(ins: Instrument): number {
+export function oisDollarDuration(ins: Instrument): number {
   if (ins.targetFromFlows === undefined) return flatDollarDuration(ins);
   const amounts = Array.from(ins.amounts);
   amounts[amounts.length - 1] = amounts[amounts.length - 1]! + 1;
@@ -96,9 +78,43 @@ function oisDollarDuration(ins: Instrument): number {
 }
 
 /** The swap's start (spot), adjusted end and last payment date (the pillar), as its reader made them. */
-function oisQuoteDates(q: OisQuote, valuation: string): QuoteDates {
+export function oisQuoteDates(q: DatedSwapQuote, valuation: string): QuoteDates {
   const r = oisDates(q, civilFromIso(valuation));
   if (!r.ok) return { start: valuation, end: q.maturity, payment: q.maturity }; // cannot happen: the reader made the same dates
   const { starts, payments } = r.value;
   return { start: isoFromCivil(starts[0]!), end: q.maturity, payment: isoFromCivil(payments[payments.length - 1]!) };
+}
+
+/**
+ * A swap's date conventions and the dates they make (an OIS's, or a `swap` on a calendar):
+ * `calendar` (default `weekends`), `spotLag` (business days, default 0), `businessDay` (default
+ * modified-following), `paymentLag` (business days, default 0), with the swap's schedule checked
+ * now so every error names the quote (an unknown calendar lists the valid ones; dates within the
+ * calendar's years; an end after the start). The maturity is the adjusted end. Null when a field
+ * is wrong (its error pushed) or the frequency or eom flag did not read.
+ */
+export function readDatedSwapTerms(raw: RawQuote, base: string, index: number, errors: CoreError[], frequency: number | null, eom: boolean | null, settlement: IsoDate | undefined, maturity: IsoDate | null, tenor: string | null, calendars: CalendarContext | undefined): { terms: DatedSwapTerms; maturity: IsoDate } | null {
+  const calendar = readCalendar(raw, base, index, errors);
+  const spotLag = readWhole(raw, base, index, errors, 'spotLag', 0, MAX_LAG, 'business days', 0);
+  const businessDay = readChoice(raw, base, index, errors, 'businessDay', BUSINESS_DAY_RULES, 'modified-following');
+  const paymentLag = readWhole(raw, base, index, errors, 'paymentLag', 0, MAX_LAG, 'business days', 0);
+  if (frequency === null || eom === null || calendar === null || spotLag === null || !businessDay || paymentLag === null) return null;
+  if (maturity === null) return null; // the common reader has said why
+  if (settlement === undefined) {
+    // A programming error (validateWorkspace always passes it), reported rather than dropping the quote.
+    errors.push(coreError('schema', base, `${base}: a swap's dates count from the settlement date, which its reader was not given`, index));
+    return null;
+  }
+  const parsedTenor = tenor === null ? null : parseTenor(tenor);
+  const conventions = { calendar, businessDay, eom, spotLag, paymentLag, frequency, ...(calendars ? { calendars } : {}) };
+  const dates = swapDates(civilFromIso(settlement), parsedTenor === null ? { end: civilFromIso(maturity) } : { tenor: parsedTenor }, conventions, base, index);
+  if (!dates.ok) {
+    errors.push(...dates.errors);
+    return null;
+  }
+  const { ends, unadjustedEnd } = dates.value;
+  return {
+    terms: { calendar, spotLag, businessDay, paymentLag, unadjustedEnd: isoFromCivil(unadjustedEnd), ...(calendars ? { calendars } : {}) },
+    maturity: isoFromCivil(ends[ends.length - 1]!),
+  };
 }
