@@ -68,6 +68,8 @@ describe('comparisons on the charts in Chromium', () => {
     const rows = [1, 2, 3, 5, 7, 10, 20, 30].map((y) => `${2027 + y}-01-15,${Math.exp(-(0.041 + 0.0004 * y) * y).toFixed(6)}`);
     await page.getByLabel(/Reference CSV/).fill(`date,discount\n${rows.join('\n')}`);
     await page.getByRole('checkbox', { name: /Reference curve/ }).check();
+    // The reference curve's reader loads on first use: wait for its line, then count.
+    await charts.locator('.legend li', { hasText: 'Reference (zero; zero chart only)' }).first().waitFor({ timeout: 20_000 });
     await expect(charts.locator('.legend li', { hasText: 'Reference (zero; zero chart only)' }).count()).resolves.toBe(1);
     await expect(charts.locator('.legend li', { hasText: 'zero chart only: no two of its dates are 3M apart' }).count()).resolves.toBe(1);
     expect(await pathsIn(page, REFERENCE_STYLE.colour)).toEqual([1, 0]);
