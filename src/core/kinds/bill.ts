@@ -4,7 +4,7 @@ import { DISCOUNTING } from '../instruments/instrument.ts';
 import { ok } from '../result.ts';
 import { daysBetween } from '../time/date.ts';
 import { oneOf, readPrice, readRate, readSpotSettlement } from './fields.ts';
-import { flatDollarDuration, movedPrice, quotedRateOrDefault } from './shared.ts';
+import { flatDollarDuration, movedPrice, quotedRateOrDefault, spotSettledDates } from './shared.ts';
 import type { QuoteKindModule } from './types.ts';
 
 /**
@@ -57,5 +57,5 @@ export const BILL: QuoteKindModule<BillQuote> = {
   },
   fit: { per100: 1, dollarDuration: (ins) => flatDollarDuration(ins), richCheap: false },
   solver: { firstRate: quotedRateOrDefault },
-  dates: (q, valuation) => ({ start: q.settle ?? valuation, end: q.maturity, payment: null }),
+  dates: spotSettledDates,
 };

@@ -4,7 +4,7 @@ import { DISCOUNTING } from '../instruments/instrument.ts';
 import { coreError, fail, ok } from '../result.ts';
 import { isMonthEnd, parseIsoDate } from '../time/date.ts';
 import { COUPON_MAX, COUPON_TEXT, oneOf, readDayCount, readEom, readFrequency, readNumber, readPrice, readRate, readSpotSettlement, required } from './fields.ts';
-import { compoundingOfFrequency, movedPrice, quotedRateOrDefault } from './shared.ts';
+import { compoundingOfFrequency, movedPrice, quotedRateOrDefault, spotSettledDates } from './shared.ts';
 import { couponTag } from '../format/conventionTag.ts';
 import type { QuoteKindModule } from './types.ts';
 
@@ -68,6 +68,5 @@ export const BOND: QuoteKindModule<BondQuote> = {
   /** The bond's own dollar duration -dP/dy at its ICMA yield (bondDirtyFromYield). */
   fit: { per100: 1, dollarDuration: (_ins, q, settlement, marketYield) => -bondDirtyFromYield(bondSchedule(q, q.settle ?? settlement), marketYield).dPdy, richCheap: true },
   solver: { firstRate: quotedRateOrDefault },
-  // A bond settled at spot starts there; otherwise on the valuation date.
-  dates: (q, valuation) => ({ start: q.settle ?? valuation, end: q.maturity, payment: null }),
+  dates: spotSettledDates,
 };

@@ -1,6 +1,8 @@
 import type { Instrument } from '../instruments/instrument.ts';
 import { coreError, fail, type Result } from '../result.ts';
 import { PRICE_MAX } from './fields.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { QuoteDates } from './types.ts';
 
 /** The first node's rate guess when the quote gives no rate (a price quote): 3%. */
 const PRICE_QUOTE_FIRST_RATE = 0.03;
@@ -46,3 +48,6 @@ export function movedPrice<Q extends { readonly index: number }>(q: Q, field: st
   const path = `quotes[${q.index}].${field}`;
   return fail(coreError('range', path, `${path}: the scenario moves the price to ${price}, outside (0, ${PRICE_MAX}] per 100; use a smaller shift`, q.index));
 }
+
+/** A quote settled at spot (bond, bill, zero): it starts at its `settle` (else the valuation date) and ends at its maturity. */
+export const spotSettledDates = (q: { readonly settle?: IsoDate; readonly maturity: IsoDate }, valuation: IsoDate): QuoteDates => ({ start: q.settle ?? valuation, end: q.maturity, payment: null });

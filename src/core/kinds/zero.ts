@@ -6,7 +6,7 @@ import { rateTag } from '../format/conventionTag.ts';
 import { coreError, ok } from '../result.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import { listOf, noCouponPeriod, oneOf, readDayCount, readPrice, readRate, readSpotSettlement, typeName } from './fields.ts';
-import { flatDollarDuration, movedPrice, quotedRateOrDefault } from './shared.ts';
+import { flatDollarDuration, movedPrice, quotedRateOrDefault, spotSettledDates } from './shared.ts';
 import type { QuoteKindModule } from './types.ts';
 
 /**
@@ -39,7 +39,7 @@ export const ZERO: QuoteKindModule<ZeroQuote> = {
   sheet: { rateField: 'rate', rateWhat: 'zero rate', priceField: 'price', missingValue: 'rate', coupon: false, frequency: false, dayCount: 'with-rate' },
   paste: { kindWords: ['zeros', 'strip'], headerWords: {} },
   compile: (q, settlement, _s, _m, t, time) => compileZero(q, settlement, t, time),
-  dates: (q, valuation) => ({ start: q.settle ?? valuation, end: q.maturity, payment: null }),
+  dates: spotSettledDates,
   curves: DISCOUNTING,
   nodeRole: 'discount',
   convention: (q) => (q.price !== null ? { unit: 'price', clean: false } : { unit: 'rate', compounding: q.compounding, dayCount: q.dayCount }),

@@ -6,6 +6,11 @@ import { useAppStore } from '../../state/store.ts';
 /** Calendars a user edits here: the built-in ones that close days (`weekends` has none to open). */
 const EDITABLE = BUILT_IN_CALENDARS.filter((id) => id !== 'weekends');
 
+/** A line of a pasted list that was not a date, for a message. */
+const problemText = (p: { readonly line: number; readonly text: string; readonly message: string }): string => `line ${p.line} (${p.text}): ${p.message}`;
+/** "; not taken: a; b" (at most six named, the rest counted), or nothing when every line was taken. */
+const notTaken = (skipped: readonly string[]): string => (skipped.length === 0 ? '' : `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}`);
+
 /** The calendar the workspace's market conventions use for its overnight swaps (null when none). */
 function marketCalendar(market: string | undefined): BuiltInCalendarId | null {
   const c = market ? conventionSet(market)?.fields.ois?.calendar : undefined;
@@ -46,7 +51,7 @@ export function HolidaysTab() {
     const r = readDateList(list, dateOrder);
     let e: CalendarEdits = edits;
     let closed = 0;
-    const skipped: string[] = r.problems.map((p) => `line ${p.line} (${p.text}): ${p.message}`);
+    const skipped: string[] = r.problems.map(problemText);
     for (const d of r.dates) {
       const o = closeDay(id, d, e);
       if (o.ok) {
@@ -55,7 +60,7 @@ export function HolidaysTab() {
       } else skipped.push(`${d}: ${o.message}`);
     }
     if (closed > 0) useAppStore.getState().setCalendarEdits(id, { add: e.add ?? [], remove: e.remove ?? [] });
-    setMessage(`${closed} ${closed === 1 ? 'day' : 'days'} closed on ${id}${skipped.length ? `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}` : ''}.`);
+    setMessage(`${closed} ${closed === 1 ? 'day' : 'days'} closed on ${id}${notTaken(skipped)}.`);
     if (skipped.length === 0) setList('');
   };
   const changes = (edits.add?.length ?? 0) + (edits.remove?.length ?? 0);
@@ -183,8 +188,7 @@ function OwnCalendars({ market }: { market: BuiltInCalendarId | null }) {
       return;
     }
     useAppStore.getState().setCustomCalendar(name.trim(), r.dates);
-    const skipped = r.problems.map((p) => `line ${p.line} (${p.text}): ${p.message}`);
-    setMessage(`Saved “${name.trim()}” with ${r.dates.length} ${r.dates.length === 1 ? 'day' : 'days'}${skipped.length ? `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}` : ''}.`);
+    setMessage(`Saved “${name.trim()}” with ${r.dates.length} ${r.dates.length === 1 ? 'day' : 'days'}${notTaken(r.problems.map(problemText))}.`);
     setList('');
   };
   return (
