@@ -1,7 +1,7 @@
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
 import { validateWorkspace, RESERVED_KEYS } from './validate.ts';
-import type { Quote } from './types.ts';
-import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS } from '../kinds/registry.ts';
+import type { Quote, QuoteKind } from './types.ts';
+import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
 import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from '../input/quoteRow.ts';
 import { DEFAULT_DISPLAY, isMarketConventions, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
 import { isPlainObject } from './plainObject.ts';
@@ -18,7 +18,7 @@ import { isPlainObject } from './plainObject.ts';
 /** The engine field written into each sheet column (the sheet's rate column holds a rate, a discount yield or a yield). */
 const COLUMN_FIELDS: Readonly<Record<(typeof QUOTE_COLUMNS)[number], readonly string[]>> = {
   kind: ['kind'],
-  maturity: ['tenor', 'maturity'],
+  maturity: ['tenor', 'maturity', 'month'],
   rate: KIND_RATE_FIELDS,
   price: KIND_PRICE_FIELDS,
   coupon: ['coupon'],
@@ -49,6 +49,9 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   const quotes: QuoteRow[] = rawQuotes.map((q) => {
     const row: Record<string, unknown> = { id: makeId(), enabled: q.enabled !== false };
     for (const c of QUOTE_COLUMNS) row[c] = cellText(COLUMN_FIELDS[c].map((f) => q[f]).find((v) => v !== undefined));
+    // A kind dated by its own fields writes its Maturity cell itself (a future: `2027-03 1M`).
+    const own = typeof q.kind === 'string' && Object.hasOwn(QUOTE_KIND_MODULES, q.kind) ? QUOTE_KIND_MODULES[q.kind as QuoteKind].sheet.maturityCell : undefined;
+    if (own !== undefined) row.maturity = own.write(q);
     return row as unknown as QuoteRow;
   });
   const ws = first.workspace;

@@ -7,7 +7,7 @@ import type { Extrapolation } from '../curve/curve.ts';
 import type { FitModel } from '../fit/parametricForm.ts';
 
 /** Quote kinds the engine bootstraps from. */
-export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap', 'ois', 'par-yield'] as const;
+export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap', 'ois', 'par-yield', 'future'] as const;
 export type QuoteKind = (typeof QUOTE_KINDS)[number];
 
 /** Fields every validated quote carries. `maturity` is resolved from `tenor` when one was given. */
@@ -147,7 +147,37 @@ export interface ParYieldQuote extends QuoteCommon {
   /** True at one year or less on the US Treasury basis: the yield is a bill's bond-equivalent yield (its tag says so). */
   readonly billBasis: boolean;
 }
-export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote | ParYieldQuote;
+/**
+ * A future on an overnight rate (kinds/future.ts, instruments/future.ts): `price` = 100 minus the
+ * futures rate in percent. `contract` `3M` (default): the rate compounded daily over the reference
+ * quarter, from the third Wednesday of `month` to the third Wednesday three months later, simple on
+ * ACT/360; `1M`: the arithmetic average of the daily rate over every calendar day of `month`.
+ * `month` (`YYYY-MM`) or the period's `start` and `end` (end exclusive) as typed; `month` is null
+ * when dates were given. `convexity` (bp, default 0) is the futures rate minus the forward rate:
+ * the bootstrap meets the forward rate (100 - price) / 100 - convexity / 1e4. `calendar` (default
+ * `us-gov-securities`) gives the business days whose rates the 1M average reads. `maturity` is the
+ * curve node: the period's end for 3M; for 1M the business day on or after the month's end (the
+ * last day's rate runs to it).
+ */
+export interface FutureQuote extends QuoteCommon {
+  readonly kind: 'future';
+  readonly contract: '3M' | '1M';
+  readonly month: string | null;
+  readonly start: IsoDate;
+  /** The reference period's end (exclusive): the last IMM date for 3M, the next month's first day for 1M. */
+  readonly end: IsoDate;
+  readonly price: number;
+  readonly convexity: number;
+  readonly calendar: string;
+  /**
+   * The overnight fixings (decimal) of a contract already in its period at the valuation date, by
+   * business day: every business day from the period's first fixing to the day before the
+   * valuation date (absent for a contract not yet fixing).
+   */
+  readonly fixings?: Readonly<Record<IsoDate, number>>;
+  readonly calendars?: CalendarContext;
+}
+export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote | ParYieldQuote | FutureQuote;
 
 export interface CurveSettings {
   readonly dayCount: CurveDayCount;

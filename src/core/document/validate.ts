@@ -158,7 +158,12 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   let termTenor = false;
   const hasTenor = raw.tenor !== undefined;
   const hasMaturity = raw.maturity !== undefined;
-  if (hasTenor === hasMaturity) {
+  if (QUOTE_KIND_MODULES[k].ownDates === true) {
+    // The kind's reader makes its dates from its own fields (a future's contract month) and refuses
+    // tenor and maturity; the maturity here is a stand-in, checked against settlement by the reader.
+    maturity = settlement;
+    termTenor = true;
+  } else if (hasTenor === hasMaturity) {
     errors.push(coreError('schema', base, `${base}: give exactly one of tenor (such as "5Y") and maturity (a date YYYY-MM-DD)`, index));
   } else if (hasTenor && typeof raw.tenor === 'string' && moneyMarketTerm(raw.tenor) !== null) {
     // ON, TN, SN: the kind's reader makes the dates (on its calendar); the maturity here is a stand-in.

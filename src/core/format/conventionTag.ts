@@ -91,4 +91,8 @@ export const bondYieldConvention = (frequency: number, accrualDayCount: string):
  * "s.a., ACT/ACT-ICMA"). The one place a quote's convention becomes text.
  */
 export const quoteConventionTag = (c: QuoteConvention): string =>
-  c.unit === 'price' ? (c.clean ? 'clean, per 100' : 'per 100') : c.compounding === 'bank-discount' ? `discount, ${c.dayCount}` : c.compounding === 'bill-equivalent' ? 'bond-equivalent, ACT/365 or 366' : rateTag(c.compounding, c.dayCount);
+  c.unit === 'price'
+    ? c.futuresRate !== undefined
+      ? `100 − futures rate (${rateTag('simple', 'ACT/360')}, ${c.futuresRate === 'compounded' ? 'compounded daily over the quarter' : 'averaged over the month'})`
+      : c.clean ? 'clean, per 100' : 'per 100'
+    : c.compounding === 'bank-discount' ? `discount, ${c.dayCount}` : c.compounding === 'bill-equivalent' ? 'bond-equivalent, ACT/365 or 366' : rateTag(c.compounding, c.dayCount);

@@ -92,7 +92,14 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode, conventions: InputC
   }
   const kind = kindParse.value;
   const quote: Record<string, unknown> = { kind };
-  if (maturity && 'tenor' in maturity && moneyMarketTerm(maturity.tenor) !== null && kindModule(kind).moneyMarketTerms !== true) {
+  const ownCell = kindModule(kind).sheet.maturityCell;
+  if (ownCell !== undefined) {
+    // A kind dated by its own fields (a future): the Maturity cell holds them (its month, and contract).
+    delete issues.maturity;
+    const read = ownCell.read(row.maturity);
+    if (read.ok) Object.assign(quote, read.fields);
+    else error('maturity', read.message);
+  } else if (maturity && 'tenor' in maturity && moneyMarketTerm(maturity.tenor) !== null && kindModule(kind).moneyMarketTerms !== true) {
     const takers = KIND_MODULE_LIST.filter((m) => m.moneyMarketTerms === true).map((m) => m.kind);
     error('maturity', `${maturity.tenor} (${MONEY_MARKET_TERMS[moneyMarketTerm(maturity.tenor)!]}) is a ${takers.join(' or ')} tenor; a ${kind} takes a tenor such as 1M or 5Y, or a date`);
   } else if (maturity) Object.assign(quote, maturity);
@@ -105,7 +112,15 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode, conventions: InputC
   const priceField = sheet.priceField;
   const refuse = (c: QuoteColumn, what: string): void => error(c, `a ${kind} takes no ${what}; clear this cell`);
 
-  if (priceField === null) {
+  if (sheet.rateField === null) {
+    // Quoted by price only (a future): the Price column holds it.
+    if (hasRate) error('rate', `a ${kind} is quoted by its ${sheet.rateWhat} in the Price column; move the number there and clear this cell`);
+    else if (!hasPrice) error('price', `a ${kind} needs its ${sheet.rateWhat} (Price)`);
+    else if (priceField !== null) {
+      const price = take('price', parsePriceText(num(row.price)));
+      if (price !== null) quote[priceField] = price;
+    }
+  } else if (priceField === null) {
     if (hasPrice) refuse('price', 'price');
     const rate = take('rate', parseRateText(num(row.rate), mode, sheet.rateWhat));
     if (rate !== null) quote[sheet.rateField] = rate;

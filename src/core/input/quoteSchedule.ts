@@ -4,8 +4,13 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, DatedSwapQuote, DepositQuote, ParYieldQuote, Quote, SwapQuote } from '../document/types.ts';
+import type { BondQuote, DatedSwapQuote, DepositQuote, FutureQuote, ParYieldQuote, Quote, SwapQuote } from '../document/types.ts';
 import { isDated } from '../kinds/swap.ts';
+import { FUTURE_BASIS, futureForwardRate } from '../instruments/future.ts';
+import { futureName } from '../kinds/future.ts';
+import { businessCalendar } from '../time/calendars.ts';
+import { serialFromIso } from '../time/date.ts';
+import { averagedDays, lastDayOf } from '../time/futurePeriods.ts';
 import { parYieldSchedule } from '../instruments/parYield.ts';
 import { formatRate } from '../format/quantities.ts';
 import { couponTag } from '../format/conventionTag.ts';
@@ -34,6 +39,8 @@ export interface ScheduleRow {
    */
   readonly accrualEnd?: IsoDate;
   readonly unadjustedAccrualEnd?: IsoDate;
+  /** For a day of an averaged future (one-month): the business day whose overnight rate the day carries. */
+  readonly fixingDate?: IsoDate;
 }
 
 export interface QuoteSchedule {
@@ -41,6 +48,8 @@ export interface QuoteSchedule {
   /** Accrued interest per 100 face at settlement (bonds); 0 for swaps. */
   readonly accrued: number;
   readonly note: string;
+  /** The year fractions' day count when the quote has no `dayCount` field of its own (a future: ACT/360). */
+  readonly dayCount?: string;
 }
 
 const df = (curve: Curve | null, date: IsoDate): { discount: number | null; t: number | null } => {
@@ -160,6 +169,48 @@ export function parYieldScheduleRows(q: ParYieldQuote, settlement: IsoDate, curv
 }
 
 /**
+ * The quote check's rows. 3M: the reference quarter, its ACT/360 fraction and 100 (1 + R tau)
+ * per 100 at its end at the forward rate R. 1M: one row per calendar day of the month, each with
+ * the business day whose rate it carries (`fixingDate`), 1/360 and 100 R / 360 per 100.
+ */
+export function futureScheduleRows(q: FutureQuote, _settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const r = futureForwardRate(q.price, q.convexity);
+  const s = serialFromIso(q.start);
+  const e = serialFromIso(q.end);
+  const at = (date: IsoDate): { discount: number | null; t: number | null } => {
+    if (!curve) return { discount: null, t: null };
+    const t = curve.time(date);
+    return { discount: Math.exp(curve.lnDiscountAt(t)), t };
+  };
+  const known = q.fixings === undefined ? 0 : Object.keys(q.fixings).length;
+  const ca = `${q.convexity === 0 ? 'no convexity adjustment' : `less a convexity adjustment of ${q.convexity} bp`}${known > 0 ? `; ${known} fixing${known === 1 ? '' : 's'} before the valuation date given, the rest read off the curve` : ''}`;
+  if (q.contract === '3M') {
+    const tau = (e - s) / FUTURE_BASIS;
+    const cashFlow = 100 * (1 + r * tau);
+    const { discount, t } = at(q.end);
+    return {
+      rows: [{ start: q.start, end: q.end, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t }],
+      accrued: 0,
+      dayCount: 'ACT/360',
+      note: `${futureName(q.contract, q.month, q.start, q.end)}: the overnight rate compounded daily from ${q.start} to ${q.end} (end excluded, dates not moved for holidays), simple on ACT/360 over ${e - s} days; the futures rate 100 - price ${ca}; per 100 at the forward rate`,
+    };
+  }
+  const outcome = businessCalendar(q.calendar, q.calendars ?? {});
+  if (!outcome.ok) return { rows: [], accrued: 0, note: outcome.message };
+  const rows: ScheduleRow[] = averagedDays(q.start, q.end, outcome.calendar).map(({ day, dayEnd, fixing }) => {
+    const { discount, t } = at(dayEnd);
+    const cashFlow = (100 * r) / FUTURE_BASIS;
+    return { start: day, end: dayEnd, yearFraction: 1 / FUTURE_BASIS, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t, fixingDate: fixing };
+  });
+  return {
+    rows,
+    accrued: 0,
+    dayCount: 'ACT/360',
+    note: `${futureName(q.contract, q.month, q.start, q.end)}: the arithmetic average of the overnight rate over the ${e - s} calendar days from ${q.start} to ${lastDayOf(q.end)}, a day that is not a business day on ${q.calendar} carrying the rate of the business day before it (fixing date); the curve node is ${q.maturity}, where the last day's rate ends; the futures rate 100 - price ${ca}; per 100 at the forward rate per day`,
+  };
+}
+
+/**
  * The schedule view of each kind that has one (the quote check), by kind: kept here rather than on
  * the kinds' modules so it loads with the quote check and not with the first screen. A kind with a
  * single flow (bill, zero) has none.
@@ -170,6 +221,7 @@ const SCHEDULES: { readonly [K in Quote['kind']]?: (q: Extract<Quote, { kind: K 
   swap: (q, settlement, curve) => (isDated(q) ? oisScheduleRows(q, settlement, curve) : swapScheduleRows(q, settlement, curve)),
   ois: oisScheduleRows,
   'par-yield': parYieldScheduleRows,
+  future: futureScheduleRows,
 };
 
 /** A quote's cash-flow schedule on a curve (bonds, swaps, deposits), or null for a kind with a single flow. */

@@ -4,6 +4,7 @@ import { conventionSet } from './conventionSets.ts';
 import { BILL } from './bill.ts';
 import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
+import { FUTURE } from './future.ts';
 import { OIS } from './ois.ts';
 import { PAR_YIELD } from './parYield.ts';
 import { SWAP } from './swap.ts';
@@ -20,6 +21,7 @@ export const QUOTE_KIND_MODULES: { readonly [K in QuoteKind]: QuoteKindModule<Ex
   swap: SWAP,
   ois: OIS,
   'par-yield': PAR_YIELD,
+  future: FUTURE,
 };
 
 /** The modules in QUOTE_KINDS order (the order kinds are listed in messages). */
@@ -37,7 +39,7 @@ export const KIND_ALLOWED_FIELDS: Readonly<Record<QuoteKind, ReadonlySet<string>
 ) as unknown as Record<QuoteKind, ReadonlySet<string>>;
 
 /** The fields the sheet's Rate / yield column fills across the kinds (`rate`, `discountYield`, `yield`), each once. */
-export const KIND_RATE_FIELDS: readonly string[] = [...new Set(KIND_MODULE_LIST.map((m) => m.sheet.rateField))];
+export const KIND_RATE_FIELDS: readonly string[] = [...new Set(KIND_MODULE_LIST.flatMap((m) => (m.sheet.rateField === null ? [] : [m.sheet.rateField])))];
 /** The fields the sheet's Price column fills across the kinds (`price`, `cleanPrice`), each once. */
 export const KIND_PRICE_FIELDS: readonly string[] = [...new Set(KIND_MODULE_LIST.flatMap((m) => (m.sheet.priceField === null ? [] : [m.sheet.priceField])))];
 /** Every field that holds a quote's quoted value (what a typed number changes): the rate and price fields. */

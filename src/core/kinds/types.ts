@@ -16,7 +16,15 @@ import type { RawQuote } from './fields.ts';
  * Treasury's half-year-compounded rule beyond: instruments/parYield.ts).
  */
 export type QuoteConvention =
-  | { readonly unit: 'price'; readonly clean: boolean }
+  | {
+      readonly unit: 'price';
+      readonly clean: boolean;
+      /**
+       * A futures price, 100 minus the futures rate in percent: the rate is simple on ACT/360 and
+       * either compounded daily over the reference quarter or averaged over the month.
+       */
+      readonly futuresRate?: 'compounded' | 'averaged';
+    }
   | { readonly unit: 'rate'; readonly compounding: Compounding | 'bank-discount' | 'bill-equivalent'; readonly dayCount: DayCount };
 
 /** A fixed leg's convention: payments a year, accrual day count, end-of-month rule. */
@@ -64,8 +72,11 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
 
   /** How the quote sheet's columns fill the kind's fields. */
   readonly sheet: {
-    /** The field the Rate / yield column fills, and what that rate is called in messages. */
-    readonly rateField: string;
+    /**
+     * The field the Rate / yield column fills, and what that rate is called in messages; null for a
+     * kind quoted by price only (a future: the Price column holds its price), whose `rateWhat` names that price.
+     */
+    readonly rateField: string | null;
     readonly rateWhat: string;
     /** The field the Price column fills, or null when the kind has no price quote. */
     readonly priceField: string | null;
@@ -75,6 +86,14 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
     readonly frequency: boolean;
     /** Whether the Day count column applies: `yes`, only `with-rate`, or refused with a reason. */
     readonly dayCount: 'yes' | 'with-rate' | { readonly refuse: string };
+    /**
+     * Optional, for a kind dated by its own fields (`ownDates`): how the Maturity cell reads into
+     * them (a future's `2027-03` or `2027-03 1M`: month and contract) and is written back from them.
+     */
+    readonly maturityCell?: {
+      read(text: string): { readonly ok: true; readonly fields: Readonly<Record<string, unknown>> } | { readonly ok: false; readonly message: string };
+      write(raw: Readonly<Record<string, unknown>>): string;
+    };
   };
 
   /** What a pasted block may say for the kind: words for the kind itself, and header words of its own fields. */
@@ -139,6 +158,13 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
    * forward grid's): a swap's own frequency, day count and end-of-month rule.
    */
   fixedLeg?(q: Q): FixedLegConvention;
+
+  /**
+   * Optional: true when the kind's reader makes its dates from its own fields (a future's contract
+   * month, or start and end) and takes no tenor or maturity; it sets `maturity` (the node) itself,
+   * after the valuation date.
+   */
+  readonly ownDates?: boolean;
 
   /** Optional: true when the kind takes the money-market tenors ON, TN and SN (deposits; time/depositDates.ts). */
   readonly moneyMarketTerms?: boolean;

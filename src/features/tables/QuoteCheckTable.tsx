@@ -33,7 +33,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
     <div className="quote-check">
       <div className="scroll-y" tabIndex={0} role="region" aria-label="Quote check (scrolls)">
         <table className="data" aria-label="Quote check">
-          <caption>Each quote repriced on the built curve; choose a bond, swap or par yield row to see its schedule.</caption>
+          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield or future row to see its schedule.</caption>
           <thead>
             <tr>
               <th scope="col">Row</th>
@@ -95,7 +95,9 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
   }, [quote, curve, settlement]);
   if (!quote) return <p className="muted">Row {rowNumber} is not a valid quote yet.</p>;
   if (!schedule) return <p className="muted">Row {rowNumber} is a {quote.kind}: a single flow at {quote.maturity}, no schedule.</p>;
-  const dc = 'dayCount' in quote ? quote.dayCount : '';
+  const dc = schedule.dayCount ?? ('dayCount' in quote ? quote.dayCount : '');
+  // Days of an averaged future show the business day whose rate each carries.
+  const fixing = schedule.rows.some((r) => r.fixingDate !== undefined);
   // Periods a calendar moves show their accrual end before and after the business-day rule.
   const moved = schedule.rows.some((r) => r.accrualEnd !== undefined);
   return (
@@ -109,7 +111,8 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
             <th scope="col">Period start</th>
             {moved && <th scope="col">Accrual end, unadjusted</th>}
             {moved && <th scope="col">Accrual end, adjusted</th>}
-            <th scope="col">Payment date</th>
+            <th scope="col">{fixing ? 'Day end' : 'Payment date'}</th>
+            {fixing && <th scope="col">Rate of (fixing date)</th>}
             <th scope="col">Year fraction ({dc})</th>
             <th scope="col">Cash flow (per 100)</th>
             <th scope="col">t (years)</th>
@@ -124,6 +127,7 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
               {moved && <td>{r.unadjustedAccrualEnd}</td>}
               {moved && <td className={r.unadjustedAccrualEnd !== r.accrualEnd ? 'moved-date' : undefined}>{r.accrualEnd}</td>}
               <td>{r.end}</td>
+              {fixing && <td className={r.fixingDate !== r.start ? 'moved-date' : undefined}>{r.fixingDate}</td>}
               <td className="n">{formatNumber(r.yearFraction, 8)}</td>
               <td className="n">{formatNumber(r.cashFlow, 6)}</td>
               <td className="n">{formatNumber(r.t, 6)}</td>

@@ -100,7 +100,7 @@ describe('quote-level errors carry their path', () => {
     expectError(validateWorkspace(ws([{ kind: 'deposit', tenor: '0M', rate: 0.03 }])).errors, 'schema', 'quotes[0].tenor', /n >= 1/);
   });
   it('unknown-identifier: kind, dayCount and compounding', () => {
-    expectError(validateWorkspace(ws([{ kind: 'future', tenor: '3M', rate: 0.03 }])).errors, 'unknown-identifier', 'quotes[0].kind', /deposit, bill, zero, bond, swap/);
+    expectError(validateWorkspace(ws([{ kind: 'swaption', tenor: '3M', rate: 0.03 }])).errors, 'unknown-identifier', 'quotes[0].kind', /deposit, bill, zero, bond, swap/);
     expectError(validateWorkspace(ws([{ kind: 'zero', tenor: '1Y', rate: 0.03, compounding: 'weekly' }])).errors, 'unknown-identifier', 'quotes[0].compounding', /continuous/);
     expectError(validateWorkspace(ws([{ kind: 'swap', tenor: '5Y', rate: 0.03, dayCount: 'ACT/365' }])).errors, 'unknown-identifier', 'quotes[0].dayCount', /ACT\/365F/);
   });

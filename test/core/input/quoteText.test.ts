@@ -117,7 +117,7 @@ describe('kind, frequency and day count cells', () => {
   it('parseKindText is case-insensitive', () => {
     expect(value(parseKindText('BOND'))).toBe('bond');
     expect(value(parseKindText('Deposit'))).toBe('deposit');
-    expect(message(parseKindText('future'))).toMatch(/type one of deposit, bill, zero, bond, swap/);
+    expect(message(parseKindText('swaption'))).toMatch(/type one of deposit, bill, zero, bond, swap/);
   });
   it('parseFrequencyText takes 1, 2, 4, 12 and the words for them', () => {
     expect(value(parseFrequencyText('2'))).toBe(2);

@@ -68,6 +68,11 @@ const EXAMPLES = {
     { kind: 'par-yield', tenor: '3M', yield: 0.0395 },
     { kind: 'par-yield', maturity: '2033-05-15', yield: 0.0421, frequency: 2, dayCount: '30/360' },
   ],
+  // SOFR futures by contract month, quoted by price only; the sheet's Maturity cell holds the month (and 1M for a one-month contract).
+  future: [
+    { kind: 'future', month: '2027-06', price: 96.875 },
+    { kind: 'future', contract: '1M', month: '2027-04', price: 96.9 },
+  ],
 } satisfies Record<QuoteKind, readonly Record<string, string | number>[]>;
 
 /** An OIS with the date conventions, which have no sheet columns yet (README, instrument table). */
@@ -123,7 +128,8 @@ describe('the quote-kind registry', () => {
 
   it('keeps each module consistent with its own schema: sheet fields, defaults', () => {
     for (const m of KIND_MODULE_LIST) {
-      expect(m.schema.fields, `${m.kind}: the rate column's field`).toContain(m.sheet.rateField);
+      if (m.sheet.rateField !== null) expect(m.schema.fields, `${m.kind}: the rate column's field`).toContain(m.sheet.rateField);
+      else expect(m.sheet.priceField, `${m.kind}: a kind without a rate column is quoted by price`).not.toBeNull();
       if (m.sheet.priceField !== null) expect(m.schema.fields, `${m.kind}: the price column's field`).toContain(m.sheet.priceField);
       expect(m.schema.fields.includes('coupon'), `${m.kind}: coupon column`).toBe(m.sheet.coupon);
       expect(m.schema.fields.includes('frequency'), `${m.kind}: frequency column`).toBe(m.sheet.frequency);
