@@ -1,6 +1,6 @@
 /**
  * The marks every figure shown to a person shares (numberText.ts states the rules), and the whole
- * counts, which need no decimal arithmetic: kept apart from numberText.ts (which carries decimal.js)
+ * counts, which need no decimal arithmetic: kept apart from numberText.ts
  * so code that only counts (the reading worker's messages) does not carry it.
  */
 

@@ -1,5 +1,3 @@
-import Decimal from 'decimal.js';
-
 /**
  * The one rounding rule for figures shown to a person (screens, print, messages). CSV cells and the
  * command's JSON fields never pass through here: they keep plain numbers.
@@ -20,9 +18,6 @@ import { groupThousands, isShown, MINUS, NO_VALUE } from './marks.ts';
 
 export { groupThousands, isShown, MINUS, NO_VALUE };
 
-/** Decimal.js with room for any double's digits and rounding half away from zero (money, and the test oracle). */
-const ShownDecimal = Decimal.clone({ precision: 1000, rounding: Decimal.ROUND_HALF_UP, toExpNeg: -9e15, toExpPos: 9e15 });
-
 /**
  * The digits of |x| x 10^scale rounded to `dp` decimals (rule 2), and its sign after rounding:
  * -1, 0 or 1. Only for finite x. Works on the shortest text's digits as a string (the same result
@@ -30,7 +25,14 @@ const ShownDecimal = Decimal.clone({ precision: 1000, rounding: Decimal.ROUND_HA
  * doubles), at about a tenth of decimal.js's cost, since tables format hundreds of figures a render.
  */
 function roundedDigits(x: number, dp: number, scale: number): { digits: string; sign: -1 | 0 | 1 } {
-  const text = String(Math.abs(x));
+  return roundedText(String(Math.abs(x)), x < 0, dp, scale);
+}
+
+/**
+ * roundedDigits on a plain decimal text of |value| ("1234.5", "1.5e-7") and its sign: the rule for
+ * an exact amount that is not a double (money kept in decimal.js, whose toFixed() text comes here).
+ */
+function roundedText(text: string, negative: boolean, dp: number, scale: number): { digits: string; sign: -1 | 0 | 1 } {
   const e = text.indexOf('e');
   const mantissa = e < 0 ? text : text.slice(0, e);
   const exponent = e < 0 ? 0 : Number(text.slice(e + 1));
@@ -52,7 +54,7 @@ function roundedDigits(x: number, dp: number, scale: number): { digits: string; 
   const intPart = padded.slice(0, padded.length - dp).replace(/^0+(?=\d)/, '');
   const fracPart = padded.slice(padded.length - dp);
   const zero = !/[1-9]/.test(padded);
-  return { digits: dp > 0 ? `${intPart}.${fracPart}` : intPart, sign: zero ? 0 : x < 0 ? -1 : 1 };
+  return { digits: dp > 0 ? `${intPart}.${fracPart}` : intPart, sign: zero ? 0 : negative ? -1 : 1 };
 }
 
 /** Adds one to a string of decimal digits ("" + 1 = "1", "199" + 1 = "200"). */
@@ -63,15 +65,7 @@ function increment(d: string): string {
   return d.slice(0, i) + String.fromCharCode(d.charCodeAt(i) + 1) + '0'.repeat(d.length - 1 - i);
 }
 
-/**
- * The same digits by decimal.js (scale exactly, then ROUND_HALF_UP): the oracle the tests hold
- * roundedDigits to. Not used for display.
- */
-export function roundedDigitsByDecimal(x: number, dp: number, scale = 0): string {
-  return new ShownDecimal(x).times(new ShownDecimal(10).pow(scale)).toDecimalPlaces(dp, Decimal.ROUND_HALF_UP).abs().toFixed(dp);
-}
-
-/** The digits figure() shows for |x| (no sign, no grouping); for tests against roundedDigitsByDecimal. */
+/** The digits figure() shows for |x| (no sign, no grouping); tests hold them to decimal.js scaling and ROUND_HALF_UP. */
 export const roundedDigitsOf = (x: number, dp: number, scale = 0): string => roundedDigits(x, dp, scale).digits;
 
 
@@ -103,15 +97,20 @@ export function roundedValue(x: number, dp: number, scale = 0): number {
   return sign * Number(digits);
 }
 
-/** Decimal text (a decimal.js value) with `dp` decimals under the same rule; for money and other exact amounts. */
+/** A plain decimal text, optionally signed, with an optional exponent ("-1234.5", "1.5e-7"). */
+const DECIMAL_TEXT = /^([+-]?)((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)$/;
+
+/**
+ * An exact amount (a decimal.js value, its text, or a number) with `dp` decimals under the same
+ * rule; for money and other exact amounts. Anything that is not a finite decimal shows as NO_VALUE.
+ */
 export function decimalFigure(d: number | string | { toFixed(): string }, dp: number, options: Omit<FigureOptions, 'scale'> = {}): string {
   if (typeof d === 'number' && !Number.isFinite(d)) return NO_VALUE;
-  const v = new ShownDecimal(typeof d === 'object' ? d.toFixed() : d);
-  if (!v.isFinite()) return NO_VALUE;
-  const r = v.toDecimalPlaces(dp, Decimal.ROUND_HALF_UP);
-  const digits = r.abs().toFixed(dp);
+  const m = DECIMAL_TEXT.exec(typeof d === 'object' ? d.toFixed() : String(d));
+  if (!m) return NO_VALUE;
+  const { digits, sign } = roundedText(m[2]!, m[1] === '-', dp, 0);
   const body = options.group ? groupThousands(digits) : digits;
-  return r.isZero() ? body : r.isNegative() ? MINUS + body : options.plus ? `+${body}` : body;
+  return sign < 0 ? MINUS + body : sign > 0 && options.plus ? `+${body}` : body;
 }
 
 /**

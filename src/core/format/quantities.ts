@@ -23,9 +23,9 @@ import { decimalFigure, figure, isShown, MINUS, NO_VALUE } from './numberText.ts
  * |   the user gave it; not rounded)   |                      |                |                     |          |
  * | price per 100 face                 | formatPrice          | per 100        | 101.2500            | 4        |
  * | quote price per 100 face           | formatQuotePrice     | per 100        | 101.250000          | 6        |
- * | money                              | formatMoney          | decimal.js     | 1,234,567.89        | 2 (cents)|
- * | money with its unit                | formatAmount         | decimal.js     | USD 1,234,567.89    | 2        |
- * | change in money                    | formatMoneySigned    | decimal.js     | +1,234.56           | 2        |
+ * | money                              | formatMoney          | decimal text   | 1,234,567.89        | 2 (cents)|
+ * | money with its unit                | formatAmount         | decimal text   | USD 1,234,567.89    | 2        |
+ * | change in money                    | formatMoneySigned    | decimal text   | +1,234.56           | 2        |
  * | date                               | formatDate           | ISO / serial   | 2026-12-02          | -        |
  * | any other figure (discount factor, | formatNumber         | its own unit   | 0.98765432          | the      |
  * |   year fraction, duration, size)   |                      |                |                     | caller's |
@@ -33,8 +33,9 @@ import { decimalFigure, figure, isShown, MINUS, NO_VALUE } from './numberText.ts
  * | percent on a chart axis            | formatAxisPercent    | decimal / year | 4.5%                | the axis |
  * |                                    |                      |                |                     | step's   |
  *
- * Money is rounded in decimal.js from its exact decimal value (a person checks its digits); every
- * other figure from the double's shortest text, which is exact for what JavaScript prints.
+ * Money is rounded from its exact decimal text (decimal.js keeps it exact in the roll analysis; a
+ * person checks its digits); every other figure from the double's shortest text, which is exact for
+ * what JavaScript prints. Neither needs decimal.js here, so the first screen loads without it.
  */
 export const QUANTITY_DECIMALS = {
   rate: 4,

@@ -17,7 +17,7 @@ import { couponTag } from '../format/conventionTag.ts';
 import { oisDates } from '../instruments/ois.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
 import { yearFractionCivil } from '../time/dayCount.ts';
-import { Decimal } from './decimalText.ts';
+import Decimal from 'decimal.js';
 
 /** One period of a bond's or swap fixed leg's schedule, for reconciling against another source. */
 export interface ScheduleRow {

@@ -6,7 +6,7 @@ import type { IsoDate } from '../time/date.ts';
 import { parseDateText, type DateOrder } from './dateText.ts';
 import { formatTenor, parseTenor } from '../time/tenor.ts';
 import { MONEY_MARKET_TERMS, moneyMarketTerm } from '../time/depositDates.ts';
-import { Decimal, exactDecimal, nearestDouble, normaliseNumberText } from './decimalText.ts';
+import { ExactDecimal, exactDecimal, nearestDouble, normaliseNumberText } from './decimalText.ts';
 
 /**
  * How a bare number typed into a rate, yield or coupon cell is read: `percent` (3.25 is 3.25 %),
@@ -30,17 +30,18 @@ const commaHint = (s: string): string => (/^[+-]?\d+,\d+(%|bps?)?$/i.test(s) ? `
 const good = <T>(value: T): CellParse<T> => ({ ok: true, value });
 const bad = <T>(message: string): CellParse<T> => ({ ok: false, message });
 
-const SCALE: Readonly<Record<QuoteUnitMode, number>> = { percent: 100, decimal: 1, bp: 10000 };
+/** The power of ten a unit divides by: percent 2, basis points 4. */
+const SCALE: Readonly<Record<QuoteUnitMode, number>> = { percent: 2, decimal: 0, bp: 4 };
 
 /** Percent text of a decimal rate bound, exact: -0.1 -> "-10%". */
-const pctText = (x: number): string => `${new Decimal(x).times(100).toFixed()}%`;
+const pctText = (x: number): string => `${ExactDecimal.fromNumber(x)!.shifted(2).toFixed()}%`;
 
 /** A rate's reading: the decimal value and the exact decimal typed with its unit. */
 export interface RateReading {
   /** Decimal per year (0.0325 = 3.25 %), the double nearest the exact value typed. */
   readonly rate: number;
   /** The exact number typed, before scaling. */
-  readonly typed: Decimal;
+  readonly typed: ExactDecimal;
   /** Which unit it was read in: from a suffix, or from the mode when bare. */
   readonly unit: QuoteUnitMode;
   /** True when the text had no `%` or `bp` suffix. */
@@ -82,18 +83,18 @@ export function readRate(text: string, mode: QuoteUnitMode): CellParse<RateReadi
  * major currencies (from memory of published central-bank and market series), so 0.1 % as a bare
  * percent and 100 % are where a unit slip is likelier than the value.
  */
-export function rateUnitHint(typed: Decimal, mode: QuoteUnitMode, what: string): string | null {
-  const a = typed.abs();
-  if (a.isZero()) return null;
+export function rateUnitHint(typed: ExactDecimal, mode: QuoteUnitMode, what: string): string | null {
+  if (typed.isZero()) return null;
   const x = typed.toFixed();
-  if (mode === 'percent' && a.lt(0.1)) {
-    return `${x} in % mode is a ${what} of ${x}%: did you mean ${typed.times(100).toFixed()}%? If so type ${typed.times(100).toFixed()}, or switch the unit to decimal`;
+  const times = (power: number): string => typed.shifted(power).toFixed();
+  if (mode === 'percent' && typed.compareSizeToPowerOfTen(-1) < 0) {
+    return `${x} in % mode is a ${what} of ${x}%: did you mean ${times(2)}%? If so type ${times(2)}, or switch the unit to decimal`;
   }
-  if (mode === 'percent' && a.gte(100)) {
-    return `${x} in % mode is ${x}%: did you mean ${typed.div(100).toFixed()}%? If so type ${typed.div(100).toFixed()}, or ${x}bp, or switch the unit to bp`;
+  if (mode === 'percent' && typed.compareSizeToPowerOfTen(2) >= 0) {
+    return `${x} in % mode is ${x}%: did you mean ${times(-2)}%? If so type ${times(-2)}, or ${x}bp, or switch the unit to bp`;
   }
-  if (mode === 'bp' && a.lt(1)) {
-    return `${x} in bp mode is ${x}bp (${typed.div(100).toFixed()}%): did you mean ${typed.times(100).toFixed()}%? If so type ${typed.times(10000).toFixed()}, or switch the unit to decimal`;
+  if (mode === 'bp' && typed.compareSizeToPowerOfTen(0) < 0) {
+    return `${x} in bp mode is ${x}bp (${times(-2)}%): did you mean ${times(2)}%? If so type ${times(4)}, or switch the unit to decimal`;
   }
   return null;
 }
@@ -108,8 +109,8 @@ export function parseRateText(text: string, mode: QuoteUnitMode, what: string, m
   const r = readRate(text, mode);
   if (!r.ok) return r.message === 'empty' ? bad(`${what} is required; type a rate such as 3.25%`) : r;
   const { rate, typed, bare } = r.value;
-  if (mode === 'decimal' && bare && typed.abs().gt(1)) {
-    return bad(`${typed.toFixed()} in decimal mode is ${typed.times(100).toFixed()}%: did you mean ${typed.toFixed()}%? Type ${typed.toFixed()}% or ${typed.div(100).toFixed()}, or switch the unit to %`);
+  if (mode === 'decimal' && bare && typed.compareSizeToPowerOfTen(0) > 0) {
+    return bad(`${typed.toFixed()} in decimal mode is ${typed.shifted(2).toFixed()}%: did you mean ${typed.toFixed()}%? Type ${typed.toFixed()}% or ${typed.shifted(-2).toFixed()}, or switch the unit to %`);
   }
   const hint = bare ? rateUnitHint(typed, mode, what) : null;
   if (!(rate >= min && rate <= max)) {
@@ -134,8 +135,11 @@ export function parsePriceText(text: string): CellParse<number> {
   if (!d && m32) {
     const thirtySeconds = Number(m32[2]);
     if (thirtySeconds < 32) {
-      const extra = m32[3] === undefined ? new Decimal(0) : m32[3] === '+' ? new Decimal(0.5) : new Decimal(Number(m32[3])).div(8);
-      d = new Decimal(m32[1]!).plus(new Decimal(thirtySeconds).plus(extra).div(32));
+      // points + (32nds + eighths / 8) / 32 = points + (8 x 32nds + eighths) / 256 (a half is 4 eighths): a
+      // dyadic fraction, exact in a double below 2^44 points, so its shortest text is its exact decimal.
+      const eighths = m32[3] === undefined ? 0 : m32[3] === '+' ? 4 : Number(m32[3]);
+      const points = Number(m32[1]);
+      if (points < 2 ** 44) d = ExactDecimal.fromNumber(points + (8 * thirtySeconds + eighths) / 256);
     }
   }
   if (!d) return bad(`"${text.trim()}" is not a price; type a price per 100 face such as 99.875, or points-32nds such as 99-28${commaHint(s)}`);
@@ -221,5 +225,5 @@ export function rewriteBareRate(text: string, from: QuoteUnitMode, to: QuoteUnit
   if (from === to) return text;
   const r = readRate(text, from);
   if (!r.ok || !r.value.bare) return text;
-  return r.value.typed.times(SCALE[to]).div(SCALE[from]).toFixed();
+  return r.value.typed.shifted(SCALE[to] - SCALE[from]).toFixed();
 }

@@ -91,7 +91,7 @@ function readValue(kind: 'discount' | 'zero', raw: string, mode: QuoteUnitMode, 
     if (!d) return notNumber;
     const value = d.toNumber();
     if (value > 0 && (value < PLAUSIBLE_DISCOUNT.min || value > PLAUSIBLE_DISCOUNT.max)) {
-      const scaled = value > 1.5 && value <= 100 ? `; did you mean ${d.div(100).toFixed()}?` : '';
+      const scaled = value > 1.5 && value <= 100 ? `; did you mean ${d.shifted(-2).toFixed()}?` : '';
       return { value, warning: `${where}, discount: ${d.toFixed()} is implausible for a discount factor (about ${PLAUSIBLE_DISCOUNT.min} to ${PLAUSIBLE_DISCOUNT.max}: 1 today, falling with maturity)${scaled}` };
     }
     return { value, warning: null };
@@ -99,8 +99,8 @@ function readValue(kind: 'discount' | 'zero', raw: string, mode: QuoteUnitMode, 
   const r = readRate(raw, mode);
   if (!r.ok) return notNumber;
   const { rate, typed, bare } = r.value;
-  if (mode === 'decimal' && bare && typed.abs().gt(1)) {
-    return { error: `${where}, zero: ${typed.toFixed()} as a decimal is ${typed.times(100).toFixed()}%: did you mean ${typed.toFixed()}%? Type ${typed.toFixed()}% or ${typed.div(100).toFixed()}, or read bare numbers in %` };
+  if (mode === 'decimal' && bare && typed.compareSizeToPowerOfTen(0) > 0) {
+    return { error: `${where}, zero: ${typed.toFixed()} as a decimal is ${typed.shifted(2).toFixed()}%: did you mean ${typed.toFixed()}%? Type ${typed.toFixed()}% or ${typed.shifted(-2).toFixed()}, or read bare numbers in %` };
   }
   const hint = bare ? rateUnitHint(typed, mode, 'zero rate') : null;
   const pct = (x: number): string => `${+(x * 100).toPrecision(12)}%`;

@@ -35,7 +35,6 @@ import {
   QUANTITY_DECIMALS,
   rateTag,
   RETURN_TAG,
-  roundedDigitsByDecimal,
   roundedDigitsOf,
   yieldTag,
   zeroForwardTag,
@@ -43,6 +42,11 @@ import {
 } from '../../../src/core/index.ts';
 
 const M = '\u2212';
+
+/** The oracle: decimal.js with room for any double's digits, scaled exactly, then ROUND_HALF_UP. */
+const ShownDecimal = Decimal.clone({ precision: 1000, rounding: Decimal.ROUND_HALF_UP, toExpNeg: -9e15, toExpPos: 9e15 });
+const roundedDigitsByDecimal = (x: number, dp: number, scale = 0): string =>
+  new ShownDecimal(x).times(new ShownDecimal(10).pow(scale)).toDecimalPlaces(dp, Decimal.ROUND_HALF_UP).abs().toFixed(dp);
 
 describe('the one rounding rule', () => {
   it('figure(x, dp) rounds half away from zero on the shortest decimal text (decimal.js ROUND_HALF_UP)', () => {
