@@ -25,6 +25,7 @@ export { QUOTE_KIND_MODULES, KIND_MODULE_LIST, kindModule, moduleOf, sheetDefaul
 export * from './instruments/bill.ts';
 export * from './instruments/bond.ts';
 export * from './instruments/swap.ts';
+export * from './instruments/convexity.ts';
 export * from './document/index.ts';
 export * from './bootstrap/bootstrap.ts';
 export * from './bootstrap/build.ts';

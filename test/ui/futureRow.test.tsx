@@ -37,3 +37,24 @@ describe('a one-month future typed in the sheet', () => {
     expect(within(first).getByText('2027-04-30')).toBeInTheDocument();
   });
 });
+
+describe('the futures convexity setting', () => {
+  it('Hull-White with a volatility typed in % fills the row\'s adjustment, which the quote check names with its inputs; Undo takes it back', async () => {
+    // Models and their sources: src/core/instruments/convexity.ts and test/core/instruments/convexity.test.ts.
+    render(<App />);
+    fireEvent.change(cell(12, 'Kind'), { target: { value: 'future' } });
+    fireEvent.change(cell(12, 'Maturity'), { target: { value: '2028-03' } });
+    fireEvent.change(cell(12, 'Rate / yield'), { target: { value: '' } });
+    fireEvent.change(cell(12, 'Price'), { target: { value: '96.2' } });
+    for (const column of ['Coupon', 'Freq', 'Day count']) fireEvent.change(cell(12, column), { target: { value: '' } });
+    fireEvent.change(screen.getByRole('combobox', { name: 'Futures convexity' }), { target: { value: 'hull-white' } });
+    fireEvent.change(screen.getByRole('textbox', { name: 'Volatility (% a year)' }), { target: { value: '1.5' } });
+    expect(useAppStore.getState().workspace.curve.futuresConvexity).toEqual({ model: 'hull-white', volatility: 0.015, meanReversion: 0.03 });
+    fireEvent.click(screen.getByRole('button', { name: 'Row 12: show its repricing and schedule' }));
+    expect(await screen.findByText(/less a convexity adjustment of \d+\.\d\d bp \(Hull-White \(Kirikos-Novak\) model, \u03c3 1\.5000% a year, a 0\.0300 a year/)).toBeInTheDocument();
+    useAppStore.getState().undo();
+    expect(useAppStore.getState().workspace.curve.futuresConvexity).toEqual({ model: 'hull-white', volatility: 0.01, meanReversion: 0.03 });
+    useAppStore.getState().undo();
+    expect(useAppStore.getState().workspace.curve.futuresConvexity).toBeUndefined();
+  });
+});

@@ -1,4 +1,5 @@
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
+import { convexityModelFields } from '../instruments/convexity.ts';
 import { validateWorkspace, RESERVED_KEYS } from './validate.ts';
 import type { Quote, QuoteKind } from './types.ts';
 import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
@@ -66,7 +67,7 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
     format: WORKBENCH_FORMAT,
     version: WORKBENCH_VERSION,
     settlement: ws.settlement,
-    curve: { dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation, ...(market ? { conventions: market } : {}), ...(joinCalendar ? { joinCalendar } : {}) },
+    curve: { dayCount: ws.curve.dayCount, interpolation: ws.curve.interpolation, extrapolation: ws.curve.extrapolation, ...(market ? { conventions: market } : {}), ...(joinCalendar ? { joinCalendar } : {}), ...(ws.curve.futuresConvexity ? { futuresConvexity: convexityModelFields(ws.curve.futuresConvexity) } : {}) },
     quoteUnit: 'decimal',
     quotes,
     display: DEFAULT_DISPLAY,

@@ -1,3 +1,4 @@
+import type { ConvexityFill, ConvexityModel } from '../instruments/convexity.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { BusinessDayRule, CalendarContext } from '../time/calendars.ts';
 import type { CurveDayCount, DayCount } from '../time/dayCount.ts';
@@ -167,7 +168,10 @@ export interface FutureQuote extends QuoteCommon {
   /** The reference period's end (exclusive): the last IMM date for 3M, the next month's first day for 1M. */
   readonly end: IsoDate;
   readonly price: number;
+  /** The adjustment in bp: as typed, else the curve's convexity model's (see `convexityFill`), else 0. */
   readonly convexity: number;
+  /** When the curve's model filled `convexity`: the model, its inputs and the times it read. */
+  readonly convexityFill?: ConvexityFill;
   readonly calendar: string;
   /**
    * The overnight fixings (decimal) of a contract already in its period at the valuation date, by
@@ -185,6 +189,11 @@ export interface CurveSettings {
   readonly extrapolation: Extrapolation;
   /** The parametric fit shown beside the exact bootstrap; 'none' for none. */
   readonly fit: 'none' | FitModel;
+  /**
+   * The model that fills the convexity adjustment of every future without a typed `convexity`
+   * (instruments/convexity.ts); absent: none, such a future's adjustment is 0.
+   */
+  readonly futuresConvexity?: ConvexityModel;
 }
 
 /** A validated workspace: what the engine builds from. Reserved keys are passed through untouched. */

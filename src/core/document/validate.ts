@@ -14,6 +14,7 @@ import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Worksp
 import { isPlainObject } from './plainObject.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
 import type { CalendarContext } from '../time/calendars.ts';
+import { CONVEXITY_MODELS, type ConvexityModel } from '../instruments/convexity.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
 /**
@@ -29,7 +30,7 @@ const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCale
 /** Fields version 2 added: in a version 1 document each is an error that says so. */
 const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars'];
 /** `curve.fit`: none (the exact bootstrap only), nelson-siegel or svensson (src/core/fit). */
-const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit'];
+const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit', 'futuresConvexity'];
 
 /** Ranges of quote fields (kinds/fields.ts), re-exported where they were first defined. */
 export { COUPON_MAX, FREQUENCIES, PRICE_MAX, RATE_MAX, RATE_MIN } from '../kinds/fields.ts';
@@ -86,7 +87,7 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   const context = isEmptyCalendarContext(calendars) ? undefined : calendars;
   for (let index = 0; index < doc.quotes.length; index++) {
     const before = errors.length;
-    const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors, context);
+    const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors, context, curve.futuresConvexity);
     if (q && errors.length === before) quotes.push(q);
   }
   const reserved: Record<string, unknown> = {};
@@ -127,11 +128,45 @@ function checkCurve(v: unknown, errors: CoreError[]): CurveSettings | null {
   if (fit !== 'none' && !isFitModel(fit)) {
     errors.push(coreError('unknown-identifier', 'curve.fit', `curve.fit must be one of none, ${listOf(FIT_MODELS)}, not ${typeName(fit)}`));
   }
+  const futuresConvexity = v.futuresConvexity === undefined ? undefined : checkConvexityModel(v.futuresConvexity, errors);
   if (errors.length > before) return null;
-  return { dayCount, interpolation, extrapolation, fit } as CurveSettings;
+  return { dayCount, interpolation, extrapolation, fit, ...(futuresConvexity ? { futuresConvexity } : {}) } as CurveSettings;
 }
 
-function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlementCivil: CivilDate, errors: CoreError[], calendars: CalendarContext | undefined): Quote | null {
+/** Volatilities the convexity model takes: 0 to 10% a year (absolute, decimal); mean reversion 0 to 2 a year. */
+const CONVEXITY_VOL_MAX = 0.1;
+const MEAN_REVERSION_MAX = 2;
+
+/**
+ * `curve.futuresConvexity`: {"model": "ho-lee" | "hull-white", "volatility": decimal per root year,
+ * "meanReversion": per year (hull-white; ho-lee takes none)}. Null with path-named errors when wrong.
+ */
+function checkConvexityModel(v: unknown, errors: CoreError[]): ConvexityModel | null {
+  const path = 'curve.futuresConvexity';
+  const example = `{"model": "hull-white", "volatility": 0.01, "meanReversion": 0.03} or {"model": "ho-lee", "volatility": 0.01}`;
+  if (!isPlainObject(v)) {
+    errors.push(coreError('schema', path, `${path} must be an object such as ${example}, not ${typeName(v)}`));
+    return null;
+  }
+  const before = errors.length;
+  const model = v.model;
+  const keys = model === 'ho-lee' ? ['model', 'volatility'] : ['model', 'volatility', 'meanReversion'];
+  for (const key of Object.keys(v)) if (!keys.includes(key)) errors.push(coreError('schema', `${path}.${key}`, `unknown field "${path}.${key}"; ${model === 'ho-lee' ? 'the ho-lee model' : path} has ${listOf(keys)}`));
+  if (typeof model !== 'string' || !(CONVEXITY_MODELS as readonly string[]).includes(model)) {
+    errors.push(coreError('unknown-identifier', `${path}.model`, `${path}.model must be one of ${listOf(CONVEXITY_MODELS)}, not ${typeName(model)}`));
+  }
+  const number = (key: string, max: number, what: string, fallback?: number): number => {
+    const x = v[key] ?? fallback;
+    if (typeof x === 'number' && x >= 0 && x <= max) return x;
+    errors.push(coreError('range', `${path}.${key}`, `${path}.${key} must be a number from 0 to ${max} (${what}), not ${typeName(x)}`));
+    return 0;
+  };
+  const volatility = number('volatility', CONVEXITY_VOL_MAX, "the short rate's absolute volatility, a decimal a year: 0.01 is 100 bp");
+  const meanReversion = model === 'ho-lee' ? 0 : number('meanReversion', MEAN_REVERSION_MAX, 'a decimal per year, such as 0.03');
+  return errors.length > before ? null : { model: model as ConvexityModel['model'], volatility, meanReversion };
+}
+
+function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlementCivil: CivilDate, errors: CoreError[], calendars: CalendarContext | undefined, convexity: ConvexityModel | undefined): Quote | null {
   const base = `quotes[${index}]`;
   if (!isPlainObject(raw)) {
     errors.push(coreError('schema', base, `${base}: a quote must be an object such as {"kind": "deposit", "tenor": "3M", "rate": 0.031}, not ${typeName(raw)}`, index));
@@ -201,7 +236,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   // The kind's own fields, read by its module (src/core/kinds). Performance: the modules' readers
   // spell out the common fields (index, maturity, tenor, enabled) rather than spreading a shared
   // object; a spread per quote cost a third of validation.
-  const quote = QUOTE_KIND_MODULES[k].schema.read(filled, base, index, maturity, m, tenor, enabled, errors, settlement, calendars);
+  const quote = QUOTE_KIND_MODULES[k].schema.read(filled, base, index, maturity, m, tenor, enabled, errors, settlement, calendars, convexity);
   if (errors.length > before || maturity === null) return null;
   return quote;
 }

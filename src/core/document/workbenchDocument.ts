@@ -68,6 +68,8 @@ export interface WorkbenchDocument {
     readonly conventions?: string;
     /** A calendar of the workspace's own (customCalendars) joined to the market conventions' calendar for the deposit and OIS rows (absent: none). */
     readonly joinCalendar?: string;
+    /** The model that fills the futures' convexity adjustments (the engine's `curve.futuresConvexity`, as is; absent: none). */
+    readonly futuresConvexity?: Readonly<Record<string, unknown>>;
   };
   readonly quoteUnit: QuoteUnitMode;
   readonly quotes: readonly QuoteRow[];
@@ -254,6 +256,7 @@ export function unknownSettings(raw: unknown): UnknownSetting[] {
       const spec = known[k];
       const path = `${group}.${k.slice(0, 40)}`;
       if (group === 'curve' && k === 'joinCalendar' && typeof x === 'string') continue; // a name of the document's own calendars, checked when it builds
+      if (group === 'curve' && k === 'futuresConvexity' && isPlainObject(x)) continue; // the engine checks its fields when it builds, naming each
       if (!spec) out.push({ path, value: shown(x), supported: Object.keys(known), fallback: null, unknownName: true });
       else if (!spec.values.includes(x as never)) out.push({ path, value: shown(x), supported: spec.values.map(String), fallback: spec.fallback, unknownName: false });
     }
@@ -371,6 +374,7 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
       ...(curve.conventions === undefined ? {} : { conventions: pick(curve.conventions, isMarketConventions, 'none') }),
       // A name of the document's own calendars (the engine names an unknown one when it builds).
       ...(typeof curve.joinCalendar === 'string' ? { joinCalendar: curve.joinCalendar } : {}),
+      ...(isPlainObject(curve.futuresConvexity) ? { futuresConvexity: curve.futuresConvexity } : {}),
     },
     quoteUnit: pick(raw.quoteUnit, isQuoteUnitMode, 'percent'),
     quotes,

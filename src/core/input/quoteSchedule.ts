@@ -1,5 +1,6 @@
 import type { Curve } from '../curve/curve.ts';
-import { formatNumber } from '../format/quantities.ts';
+import { formatBp, formatNumber, formatPercent } from '../format/quantities.ts';
+import { convexityModelName, type ConvexityFill } from '../instruments/convexity.ts';
 import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
@@ -168,6 +169,12 @@ export function parYieldScheduleRows(q: ParYieldQuote, settlement: IsoDate, curv
   return { rows, accrued, note: `a par bond: coupon ${formatRate(q.yield, couponTag(q.frequency, q.dayCount))} = the par yield, clean price 100, coupon dates unadjusted back from maturity; accrued interest ${formatNumber(accrued, 6)} per 100 face; discount factors on coupon dates between quoted maturities come from the curve's interpolation` };
 }
 
+/** The model behind a filled adjustment and what it read: "Hull-White (Kirikos-Novak), σ 1.00%, a 0.03, t1 0.2877 y, t2 0.5370 y (ACT/365F from the valuation date)". */
+export function convexityFillText(f: ConvexityFill): string {
+  const a = f.model === 'hull-white' ? `, a ${formatNumber(f.meanReversion, 4)} a year` : '';
+  return `${convexityModelName(f.model)} model, \u03c3 ${formatPercent(f.volatility)} a year${a}, t1 ${formatNumber(f.t1, 4)} y and t2 ${formatNumber(f.t2, 4)} y to the period's start and end (ACT/365F from the valuation date)`;
+}
+
 /**
  * The quote check's rows. 3M: the reference quarter, its ACT/360 fraction and 100 (1 + R tau)
  * per 100 at its end at the forward rate R. 1M: one row per calendar day of the month, each with
@@ -183,7 +190,7 @@ export function futureScheduleRows(q: FutureQuote, _settlement: IsoDate, curve: 
     return { discount: Math.exp(curve.lnDiscountAt(t)), t };
   };
   const known = q.fixings === undefined ? 0 : Object.keys(q.fixings).length;
-  const ca = `${q.convexity === 0 ? 'no convexity adjustment' : `less a convexity adjustment of ${q.convexity} bp`}${known > 0 ? `; ${known} fixing${known === 1 ? '' : 's'} before the valuation date given, the rest read off the curve` : ''}`;
+  const ca = `${q.convexityFill ? `less a convexity adjustment of ${formatBp(q.convexity)} (${convexityFillText(q.convexityFill)})` : q.convexity === 0 ? 'no convexity adjustment' : `less a convexity adjustment of ${q.convexity} bp as typed`}${known > 0 ? `; ${known} fixing${known === 1 ? '' : 's'} before the valuation date given, the rest read off the curve` : ''}`;
   if (q.contract === '3M') {
     const tau = (e - s) / FUTURE_BASIS;
     const cashFlow = 100 * (1 + r * tau);

@@ -1,5 +1,6 @@
 import type { FutureQuote } from '../document/types.ts';
 import { compileFuture, FUTURE_BASIS, futureForwardRate } from '../instruments/future.ts';
+import { modelConvexityBp, type ConvexityFill, type ConvexityModel } from '../instruments/convexity.ts';
 import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
 import { coreError, fail, ok, type CoreError } from '../result.ts';
 import { businessCalendar, outsideCalendar, type CalendarContext } from '../time/calendars.ts';
@@ -78,7 +79,7 @@ export const FUTURE: QuoteKindModule<FutureQuote> = {
   dates: (q) => ({ start: q.start, end: q.end, payment: null }),
 };
 
-function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDate | null, _m: IsoDate, _tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext): FutureQuote | null {
+function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDate | null, _m: IsoDate, _tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext, convexityModel?: ConvexityModel): FutureQuote | null {
   const before = errors.length;
   const contract = readChoice<FutureContract>(raw, base, index, errors, 'contract', FUTURE_CONTRACTS, '3M');
   const price = required(readNumber(raw, base, index, errors, 'price', 0, FUTURE_PRICE_MAX, PRICE_WHAT, true), 'price', PRICE_WHAT, base, index, errors);
@@ -175,8 +176,12 @@ function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDa
     }
   }
   const maturity = isoFromSerial(averaged !== null ? averaged.next : period.end);
+  // No typed adjustment: the curve's model fills it from the quoted price, t1 and t2 on ACT/365F from the valuation date.
+  const fill: ConvexityFill | undefined =
+    raw.convexity === undefined && convexityModel !== undefined ? { ...convexityModel, t1: Math.max(0, (period.start - v) / 365), t2: (period.end - v) / 365 } : undefined;
+  const adjustment = fill ? modelConvexityBp(fill, (100 - price) / 100, period.end - period.start, fill.t1, fill.t2) : convexity;
   return {
-    kind: 'future', index, maturity, tenor: null, enabled, contract, month, start, end, price, convexity, calendar,
+    kind: 'future', index, maturity, tenor: null, enabled, contract, month, start, end, price, convexity: adjustment, ...(fill ? { convexityFill: fill } : {}), calendar,
     ...(fixings !== undefined && firstFixing < v ? { fixings } : {}), ...(calendars ? { calendars } : {}),
   };
 }

@@ -1,3 +1,4 @@
+import type { ConvexityModel } from '../instruments/convexity.ts';
 import type { Quote } from '../document/types.ts';
 import type { QuoteColumn } from '../input/quoteRow.ts';
 import type { CurveRole, CurveRoles, Instrument } from '../instruments/instrument.ts';
@@ -67,7 +68,7 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
      * spot lag and schedule). `calendars` the workspace's own calendars and its edits of the
      * built-in ones (absent when it has none). Pushes path-named errors; returns the typed quote or null.
      */
-    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext): Q | null;
+    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext, convexity?: ConvexityModel): Q | null;
   };
 
   /** How the quote sheet's columns fill the kind's fields. */

@@ -1,7 +1,10 @@
 import { memo, useEffect, useState } from 'react';
 import {
   COMPOUNDINGS,
+  CONVEXITY_MODELS,
+  convexityModelName,
   conventionSet,
+  readRate,
   CURVE_DAY_COUNTS,
   MARKET_CONVENTIONS,
   EXTRAPOLATIONS,
@@ -66,6 +69,66 @@ function SettlementField() {
   );
 }
 
+/**
+ * The model that fills the futures' convexity adjustments (`curve.futuresConvexity`): none, Ho-Lee
+ * (Hull) or Hull-White, with the short rate's volatility in % a year and, for Hull-White, the mean
+ * reversion a year. A number field applies what it reads exactly (the core's rate reader) and keeps
+ * a partial entry in the field; the engine names any value it refuses.
+ */
+function ConvexitySetting() {
+  const model = useAppStore((s) => s.workspace.curve.futuresConvexity);
+  const setModel = useAppStore((s) => s.setFuturesConvexity);
+  const id = typeof model?.model === 'string' ? model.model : 'none';
+  const vol = typeof model?.volatility === 'number' ? model.volatility : 0.01;
+  const a = typeof model?.meanReversion === 'number' ? model.meanReversion : 0.03;
+  const apply = (next: string, volatility: number, meanReversion: number) => {
+    setModel(next === 'none' ? null : next === 'ho-lee' ? { model: next, volatility } : { model: next, volatility, meanReversion });
+  };
+  return (
+    <>
+      <label title="Fills the convexity adjustment (futures rate minus forward rate) of every future row; the quote check shows the model, its inputs and each contract's figure">
+        Futures convexity
+        <select value={id} onChange={(e) => apply(e.target.value, vol, a)}>
+          {unknownOption(['none', ...CONVEXITY_MODELS], id)}
+          <option value="none">None (0 bp)</option>
+          {CONVEXITY_MODELS.map((m) => (
+            <option key={m} value={m}>
+              {convexityModelName(m)}
+            </option>
+          ))}
+        </select>
+      </label>
+      {id !== 'none' && (
+        <NumberSetting label="Volatility (% a year)" value={vol} scale="percent" onValue={(v) => apply(id, v, a)} />
+      )}
+      {id === 'hull-white' && <NumberSetting label="Mean reversion (a year)" value={a} scale="decimal" onValue={(v) => apply(id, vol, v)} />}
+    </>
+  );
+}
+
+/** A number field that applies each complete, exact reading (`readRate`) and keeps what is being typed. */
+function NumberSetting({ label, value, scale, onValue }: { label: string; value: number; scale: 'percent' | 'decimal'; onValue: (v: number) => void }) {
+  const shown = scale === 'percent' ? readRate(String(value), 'decimal') : null;
+  const text = shown && shown.ok ? shown.value.typed.shifted(2).toFixed() : String(value);
+  const [draft, setDraft] = useState(text);
+  useEffect(() => setDraft(text), [text]);
+  return (
+    <label>
+      {label}
+      <input
+        className="narrow"
+        inputMode="decimal"
+        value={draft}
+        onChange={(e) => {
+          setDraft(e.target.value);
+          const r = readRate(e.target.value, scale);
+          if (r.ok && r.value.bare) onValue(r.value.rate);
+        }}
+      />
+    </label>
+  );
+}
+
 /** Curve and display settings. One display setting re-expresses every rate on screen; all are off while the document is read-only. */
 export const SettingsBar = memo(function SettingsBar() {
   const curve = useAppStore((s) => s.workspace.curve);
@@ -113,6 +176,7 @@ export const SettingsBar = memo(function SettingsBar() {
             ))}
           </select>
         </label>
+        <ConvexitySetting />
         <label>
           Extrapolation
           <select value={curve.extrapolation} onChange={(e) => setCurve({ extrapolation: e.target.value as Extrapolation })}>

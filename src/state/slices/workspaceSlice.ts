@@ -43,6 +43,8 @@ export interface WorkspaceSlice {
   sortByMaturity(): void;
   setSettlement(text: string): void;
   setCurve(patch: Partial<WorkbenchDocument['curve']>): void;
+  /** Sets the model that fills the futures' convexity adjustments (`curve.futuresConvexity`), or removes it (null). One undoable step. */
+  setFuturesConvexity(model: Readonly<Record<string, unknown>> | null): void;
   /** Replaces one built-in calendar's edits (dates closed and opened); empty edits remove its entry. One undoable step. */
   setCalendarEdits(id: string, edits: { readonly add: readonly string[]; readonly remove: readonly string[] }): void;
   /**
@@ -210,6 +212,10 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     setCurve(patch) {
       get().commit({ ...ws(), curve: { ...ws().curve, ...patch } }, 'curve settings');
+    },
+    setFuturesConvexity(model) {
+      const { futuresConvexity: _old, ...curve } = ws().curve;
+      get().commit({ ...ws(), curve: model === null ? curve : { ...curve, futuresConvexity: model } }, 'futures convexity');
     },
     setCalendarEdits(id, edits) {
       const { [id]: _old, ...others } = ws().calendars ?? {};
