@@ -2,7 +2,7 @@
 // The printed summary's content: note cut with a marker, at most four scenarios, trace lines.
 import fixtureJson from '../fixtures/share/workspace40.json';
 import { render, screen } from '@testing-library/react';
-import { buildCurve } from '../../src/core/index.ts';
+import { buildCurve, convexityModelText } from '../../src/core/index.ts';
 import type { Scenario } from '../../src/core/index.ts';
 import { defaultTableConventions, workspaceHash } from '../../src/core/index.ts';
 import { printKeyRows, printScenarios, scenarioConventionsText } from '../../src/features/print/printData.ts';
@@ -38,6 +38,14 @@ const props = (over: Partial<PrintSummaryProps> = {}): PrintSummaryProps => ({
 });
 
 describe('PrintSummary', () => {
+  it('names the futures convexity model with its inputs when one is set, and says nothing of it otherwise', () => {
+    const text = convexityModelText({ model: 'hull-white', volatility: 0.01, meanReversion: 0.03 });
+    const { unmount } = render(<PrintSummary {...props({ futuresConvexity: text })} />);
+    expect(screen.getByText(/futures convexity by the Hull-White \(Kirikos-Novak\) model, \u03c3 1\.0000% a year, a 0\.0300 a year/)).toBeInTheDocument();
+    unmount();
+    render(<PrintSummary {...props()} />);
+    expect(screen.queryByText(/futures convexity/)).toBeNull();
+  });
   it('prints the title, settings, both charts, key maturities with their conventions, and the trace', () => {
     render(<PrintSummary {...props()} />);
     const page = screen.getByRole('article', { name: 'Printed summary' });

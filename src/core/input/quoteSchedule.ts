@@ -1,6 +1,6 @@
 import type { Curve } from '../curve/curve.ts';
-import { formatBp, formatNumber, formatPercent } from '../format/quantities.ts';
-import { convexityModelName, type ConvexityFill } from '../instruments/convexity.ts';
+import { formatBp, formatNumber } from '../format/quantities.ts';
+import { convexityModelText, type ConvexityFill } from '../instruments/convexity.ts';
 import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
@@ -171,8 +171,7 @@ export function parYieldScheduleRows(q: ParYieldQuote, settlement: IsoDate, curv
 
 /** The model behind a filled adjustment and what it read: "Hull-White (Kirikos-Novak), σ 1.00%, a 0.03, t1 0.2877 y, t2 0.5370 y (ACT/365F from the valuation date)". */
 export function convexityFillText(f: ConvexityFill): string {
-  const a = f.model === 'hull-white' ? `, a ${formatNumber(f.meanReversion, 4)} a year` : '';
-  return `${convexityModelName(f.model)} model, \u03c3 ${formatPercent(f.volatility)} a year${a}, t1 ${formatNumber(f.t1, 4)} y and t2 ${formatNumber(f.t2, 4)} y to the period's start and end (ACT/365F from the valuation date)`;
+  return `${convexityModelText(f)}, t1 ${formatNumber(f.t1, 4)} y and t2 ${formatNumber(f.t2, 4)} y to the period's start and end (ACT/365F from the valuation date)`;
 }
 
 /**

@@ -19,6 +19,8 @@
  * are in basis points on the futures rate's own basis (simple, ACT/360 over the period).
  */
 
+import { formatNumber, formatPercent } from '../format/quantities.ts';
+
 export const CONVEXITY_MODELS = ['ho-lee', 'hull-white'] as const;
 export type ConvexityModelId = (typeof CONVEXITY_MODELS)[number];
 
@@ -80,5 +82,11 @@ export function modelConvexityBp(m: ConvexityModel, futuresRate: number, days: n
   return hullWhiteBias(futuresRate, t1, t2, days / 360, m.volatility, m.meanReversion) * 1e4;
 }
 
-/** The model's name as shown: "Ho-Lee (Hull), sigma 1.00%" or "Hull-White, sigma 1.00%, a 0.03". */
+/** The model's name as shown: "Ho-Lee (Hull)" or "Hull-White (Kirikos-Novak)". */
 export const convexityModelName = (m: ConvexityModelId): string => (m === 'ho-lee' ? 'Ho-Lee (Hull)' : 'Hull-White (Kirikos-Novak)');
+
+/** A model with its inputs as shown: "Hull-White (Kirikos-Novak) model, σ 1.0000% a year, a 0.0300 a year". */
+export function convexityModelText(m: ConvexityModel): string {
+  const a = m.model === 'hull-white' ? `, a ${formatNumber(m.meanReversion, 4)} a year` : '';
+  return `${convexityModelName(m.model)} model, \u03c3 ${formatPercent(m.volatility)} a year${a}`;
+}

@@ -29,6 +29,8 @@ export interface PrintSummaryProps {
   readonly extrapolation: string;
   /** The market conventions of the deposit and OIS rows (a convention set's title), absent when none. */
   readonly marketConventions?: string;
+  /** The model that filled the futures' convexity adjustments, with its inputs; absent when none. */
+  readonly futuresConvexity?: string;
   /** The zero-rate chart and the forward chart, drawn by the workbench. */
   readonly zeroChart: ReactNode;
   readonly forwardChart: ReactNode;
@@ -81,6 +83,7 @@ export function PrintSummary(p: PrintSummaryProps) {
           <p className="ps-settings">
             Settlement <strong>{p.settlement}</strong> · curve day count {p.curveDayCount} · {methodWords(p.interpolation)} interpolation · {p.extrapolation === 'none' ? 'no extrapolation past the last pillar' : p.extrapolation === 'flat-forward' ? 'flat-forward extrapolation' : `extrapolation ${p.extrapolation}`}
             {p.marketConventions ? <> · deposits and OIS on {p.marketConventions} conventions</> : null}
+            {p.futuresConvexity ? <> · futures convexity by the {p.futuresConvexity}</> : null}
           </p>
         </div>
         <dl className="ps-trace">

@@ -1,5 +1,5 @@
 import { useMemo, type ReactNode } from 'react';
-import { applyScenario } from '../../core/index.ts';
+import { convexityModelText, applyScenario } from '../../core/index.ts';
 import { validateScenarios, workspaceHash } from '../../core/index.ts';
 import { conventionSet, rateTag } from '../../core/index.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
@@ -76,6 +76,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null }: { result: W
       interpolation={ws.curve.interpolation}
       extrapolation={ws.curve.extrapolation}
       {...(doc.curve.conventions && doc.curve.conventions !== 'none' ? { marketConventions: conventionSet(doc.curve.conventions)?.title.replace(/: .*/, '') ?? doc.curve.conventions } : {})}
+      {...(ws.curve.futuresConvexity ? { futuresConvexity: convexityModelText(ws.curve.futuresConvexity) } : {})}
       rollResult={rollResult}
       producedAt={new Date()}
       buildId={BUILD_ID}
