@@ -31,6 +31,22 @@ describe('encodeWorkspaceLink / decodeWorkspaceLink', () => {
     expect(outcome.ok && outcome.checked.workspace?.quotes.length).toBe(40);
   });
 
+  it('a workbench document with a futures convexity model and overnight fixings goes through a link unchanged and builds', async () => {
+    // Invented fixings and prices; the model and field names are the workspace document's (README).
+    const workbench = JSON.parse(readFileSync(new URL('../fixtures/share/workbench40.json', import.meta.url), 'utf8')) as Record<string, unknown>;
+    const doc = {
+      ...workbench,
+      curve: { ...(workbench.curve as object), futuresConvexity: { model: 'hull-white', volatility: 0.011, meanReversion: 0.04 } },
+      fixings: { '2024-01-02': 0.0531, '2024-01-03': 0.0532 },
+    };
+    const outcome = await decodeWorkspaceLink(await encodeWorkspaceLink(doc));
+    expect(outcome.ok).toBe(true);
+    if (!outcome.ok) return;
+    expect(outcome.checked.document).toEqual(doc);
+    expect(outcome.checked.workspace?.curve.futuresConvexity).toEqual({ model: 'hull-white', volatility: 0.011, meanReversion: 0.04 });
+    expect(outcome.checked.workspace?.fixings).toEqual({ '2024-01-02': 0.0531, '2024-01-03': 0.0532 });
+  });
+
   it('decodes the fixture to the identical document, from this build without a notice', async () => {
     const outcome = await decodeWorkspaceLink('#' + (await encodeWorkspaceLink(fixture)));
     expect(outcome.ok).toBe(true);

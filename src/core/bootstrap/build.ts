@@ -202,6 +202,8 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   const repricing = outcome.repricing.every((r, i) => i === 0 || outcome.repricing[i - 1]!.index < r.index) ? outcome.repricing : [...outcome.repricing].sort(byIndex);
   const gap = outcome.curve ? spotGap(ws, market.instruments, settings.interpolation) : null;
   if (gap) warnings.push(gap);
+  const later = laterFixings(ws);
+  if (later) warnings.push(later);
   return {
     leftOut: base.leftOut,
     workspace: ws,
@@ -212,6 +214,20 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
     warnings: outcome.warnings.length === 0 ? warnings : [...warnings, ...outcome.warnings],
     repricing,
     sweeps: outcome.sweeps,
+  };
+}
+
+/** The warning for fixings dated on or after the valuation date: kept in the document, not read (not known then). */
+function laterFixings(ws: Workspace): CoreWarning | null {
+  if (ws.fixings === undefined) return null;
+  const later = Object.keys(ws.fixings).filter((d) => compareIso(d, ws.settlement) >= 0).sort();
+  if (later.length === 0) return null;
+  const which = later.length === 1 ? later[0] : `${later.length} of them, ${later[0]} to ${later[later.length - 1]}`;
+  return {
+    path: 'fixings',
+    quote: null,
+    code: 'skipped',
+    message: `fixings on or after the valuation date ${ws.settlement} are not read (${which}): a day's rate is published the next business morning, so it is not known then; they stay in the workspace for a later valuation date`,
   };
 }
 

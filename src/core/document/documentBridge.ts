@@ -74,6 +74,7 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   };
   if (doc.calendars !== undefined && Object.keys(doc.calendars as object).length > 0) out.calendars = doc.calendars;
   if (doc.customCalendars !== undefined && Object.keys(doc.customCalendars as object).length > 0) out.customCalendars = doc.customCalendars;
+  if (doc.fixings !== undefined && Object.keys(doc.fixings as object).length > 0) out.fixings = doc.fixings;
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) out[key] = doc[key];
   const wb = out as unknown as WorkbenchDocument;
   const again = validateWorkspace(toEngineDocument(wb).doc);

@@ -36,6 +36,8 @@ export const LIMITS = {
   strategyJson: 20000,
   /** Dates in one calendar list of a document (`calendars.<id>.add`, `.remove`, `customCalendars.<name>.holidays`): 111 years of a busy calendar hold about 1,700. */
   calendarDates: 5000,
+  /** Dates in the workspace's overnight fixings (`fixings`): about twenty years of business days. */
+  fixings: 5000,
   /**
    * Nesting depth of any document read from outside (objects and lists inside each other; the
    * document itself is depth 1). The deepest part the workbench writes is a snapshot's quote

@@ -212,6 +212,8 @@ export interface Workspace {
   readonly quoteCount: number;
   /** Top-level keys reserved for the workbench (scenarios, strategy, snapshots, view, note), as given. */
   readonly reserved: Readonly<Record<string, unknown>>;
+  /** The document's `fixings` (overnight rates by past business day), absent when it has none. */
+  readonly fixings?: Readonly<Record<IsoDate, number>>;
 }
 
 export const DEFAULT_CURVE: CurveSettings = { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none', fit: 'none' };

@@ -7,7 +7,8 @@ import { CURVE_DAY_COUNTS, isCurveDayCount } from '../time/dayCount.ts';
 import { marketDateCivil } from '../time/dateConventions.ts';
 import { formatTenor, parseTenor } from '../time/tenor.ts';
 import { MONEY_MARKET_TERMS, moneyMarketTerm } from '../time/depositDates.ts';
-import { listOf, typeName } from '../kinds/fields.ts';
+import { listOf, RATE_MAX, RATE_MIN, typeName } from '../kinds/fields.ts';
+import type { DocumentContext } from '../kinds/types.ts';
 import { KIND_ALLOWED_FIELDS, KIND_MODULE_LIST, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
 import { withConventionSet } from '../kinds/conventionSets.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
@@ -26,9 +27,9 @@ export const WORKSPACE_VERSION = 2;
 /** Top-level keys the workbench owns; the engine passes them through. */
 export const RESERVED_KEYS = ['scenarios', 'strategy', 'snapshots', 'view', 'note'] as const;
 const TOP_KEYS_V1 = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
-const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'curve', 'quotes', ...RESERVED_KEYS];
+const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'fixings', 'curve', 'quotes', ...RESERVED_KEYS];
 /** Fields version 2 added: in a version 1 document each is an error that says so. */
-const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars'];
+const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars', 'fixings'];
 /** `curve.fit`: none (the exact bootstrap only), nelson-siegel or svensson (src/core/fit). */
 const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit', 'futuresConvexity'];
 
@@ -77,6 +78,7 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   const settlement = v1 || doc.settlement === undefined || doc.valuationDate !== undefined ? checkDate(doc[dateKey], dateKey, errors) : null;
   const calendars = v1 ? {} : readCalendarSections(doc.calendars, doc.customCalendars, errors);
   const curve = checkCurve(doc.curve, errors);
+  const fixings = v1 || doc.fixings === undefined || settlement === null ? undefined : checkFixings(doc.fixings, errors);
   if (!Array.isArray(doc.quotes)) {
     errors.push(coreError('schema', 'quotes', `quotes must be an array of quote objects, not ${typeName(doc.quotes)}`));
   }
@@ -85,14 +87,53 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   const quotes: Quote[] = [];
   const settlementCivil = parseIsoDate(settlement)!; // checked above
   const context = isEmptyCalendarContext(calendars) ? undefined : calendars;
+  const fromDocument: DocumentContext = { ...(curve.futuresConvexity ? { futuresConvexity: curve.futuresConvexity } : {}), ...(fixings ? { fixings } : {}) };
   for (let index = 0; index < doc.quotes.length; index++) {
     const before = errors.length;
-    const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors, context, curve.futuresConvexity);
+    const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors, context, fromDocument);
     if (q && errors.length === before) quotes.push(q);
   }
   const reserved: Record<string, unknown> = {};
   for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
-  return { workspace: { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved }, errors };
+  return { workspace: { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved, ...(fixings ? { fixings } : {}) }, errors };
+}
+
+/** Most fixings a document holds: about forty years of business days. */
+export const FIXINGS_MAX = 10_000;
+
+/**
+ * The document's `fixings` (version 2): the overnight rate of past business days,
+ * {"YYYY-MM-DD": rate as a decimal}, each before the valuation date (a rate is published the next
+ * business morning). A future in its reference period reads the days it needs from here when the
+ * quote gives none of its own; days it does not need are ignored, and days on or after the
+ * valuation date are kept but not read (the build warns: a valuation date moved back in time
+ * leaves the list whole). Undefined with path-named errors when wrong.
+ */
+function checkFixings(v: unknown, errors: CoreError[]): Readonly<Record<IsoDate, number>> | undefined {
+  const example = '{"2027-03-15": 0.0365, "2027-03-16": 0.0366}';
+  if (!isPlainObject(v)) {
+    errors.push(coreError('schema', 'fixings', `fixings must be an object of dates to overnight rates as decimals, such as ${example}, not ${typeName(v)}`));
+    return undefined;
+  }
+  const entries = Object.entries(v);
+  if (entries.length > FIXINGS_MAX) {
+    errors.push(coreError('range', 'fixings', `fixings holds ${entries.length} dates; at most ${FIXINGS_MAX} are read (keep the ones the futures in their period need)`));
+    return undefined;
+  }
+  const out: Record<IsoDate, number> = {};
+  for (const [date, r] of entries) {
+    const at = `fixings.${date.slice(0, 12)}`;
+    if (parseIsoDate(date) === null) {
+      errors.push(coreError('schema', at, `${at}: a fixing's key must be a date YYYY-MM-DD, not "${date.slice(0, 40)}"`));
+      continue;
+    }
+    if (typeof r !== 'number' || !Number.isFinite(r) || r < RATE_MIN || r > RATE_MAX) {
+      errors.push(coreError('range', at, `${at}: must be an overnight rate as a decimal from ${RATE_MIN} to ${RATE_MAX} (0.0365 = 3.65%), not ${typeof r === 'number' ? String(r) : typeName(r)}`));
+      continue;
+    }
+    out[date] = r;
+  }
+  return out;
 }
 
 function checkDate(v: unknown, path: string, errors: CoreError[], quote: number | null = null): IsoDate | null {
@@ -166,7 +207,7 @@ function checkConvexityModel(v: unknown, errors: CoreError[]): ConvexityModel | 
   return errors.length > before ? null : { model: model as ConvexityModel['model'], volatility, meanReversion };
 }
 
-function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlementCivil: CivilDate, errors: CoreError[], calendars: CalendarContext | undefined, convexity: ConvexityModel | undefined): Quote | null {
+function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlementCivil: CivilDate, errors: CoreError[], calendars: CalendarContext | undefined, context: DocumentContext): Quote | null {
   const base = `quotes[${index}]`;
   if (!isPlainObject(raw)) {
     errors.push(coreError('schema', base, `${base}: a quote must be an object such as {"kind": "deposit", "tenor": "3M", "rate": 0.031}, not ${typeName(raw)}`, index));
@@ -236,7 +277,7 @@ function checkQuote(raw: unknown, index: number, settlement: IsoDate, settlement
   // The kind's own fields, read by its module (src/core/kinds). Performance: the modules' readers
   // spell out the common fields (index, maturity, tenor, enabled) rather than spreading a shared
   // object; a spread per quote cost a third of validation.
-  const quote = QUOTE_KIND_MODULES[k].schema.read(filled, base, index, maturity, m, tenor, enabled, errors, settlement, calendars, convexity);
+  const quote = QUOTE_KIND_MODULES[k].schema.read(filled, base, index, maturity, m, tenor, enabled, errors, settlement, calendars, context);
   if (errors.length > before || maturity === null) return null;
   return quote;
 }

@@ -82,6 +82,8 @@ export interface WorkbenchDocument {
   readonly calendars?: Readonly<Record<string, CalendarEdits>>;
   /** Calendars of the workspace's own, from lists of dates (the engine document's `customCalendars`, as is). */
   readonly customCalendars?: Readonly<Record<string, CustomCalendar>>;
+  /** Overnight rates (decimals) by past business day, for futures in their reference period (the engine document's `fixings`, as is). */
+  readonly fixings?: Readonly<Record<string, number>>;
   readonly strategy?: unknown;
   readonly scenarios?: unknown;
   readonly snapshots?: unknown;
@@ -125,7 +127,7 @@ export interface EngineConversion {
  * a caching wrapper of `parseRow` (the UI keeps one so a one-cell edit re-parses one row).
  */
 export function toEngineDocument(
-  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars' | 'customCalendars'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
+  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars' | 'customCalendars' | 'fixings'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
   parse: (row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions) => RowParse = parseRow): EngineConversion {
   const conventions = conventionsOf(doc);
   const rows = doc.quotes.map((r) => parse(r, doc.quoteUnit, conventions));
@@ -159,6 +161,7 @@ export function toEngineDocument(
     valuationDate: doc.settlement,
     ...(doc.calendars !== undefined && Object.keys(doc.calendars).length > 0 ? { calendars: doc.calendars } : {}),
     ...(doc.customCalendars !== undefined && Object.keys(doc.customCalendars).length > 0 ? { customCalendars: doc.customCalendars } : {}),
+    ...(doc.fixings !== undefined && Object.keys(doc.fixings).length > 0 ? { fixings: doc.fixings } : {}),
     curve,
     quotes,
   };
@@ -395,6 +398,7 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
   // Calendar edits are kept as saved (the engine checks them and says what is wrong, naming the date).
   if (isPlainObject(raw.calendars)) doc.calendars = raw.calendars;
   if (isPlainObject(raw.customCalendars)) doc.customCalendars = raw.customCalendars;
+  if (isPlainObject(raw.fixings)) doc.fixings = raw.fixings;
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];
   return { doc: doc as unknown as WorkbenchDocument, problem: null, changes };
 }

@@ -5,14 +5,21 @@ import { RESERVED_KEYS } from './validate.ts';
 import { LIMITS } from './limits.ts';
 import { isPlainObject } from './plainObject.ts';
 
-const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', 'customCalendars', ...RESERVED_KEYS];
+const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', 'customCalendars', 'fixings', ...RESERVED_KEYS];
 const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
 /** Characters of one typed cell or row id (LIMITS.cell). */
 export const CELL_MAX = LIMITS.cell;
 
 const shortText = (v: unknown, max: number = CELL_MAX): boolean => typeof v === 'string' && v.length <= max;
-const flatSettings = (v: unknown): boolean =>
-  isPlainObject(v) && Object.keys(v).length <= 20 && Object.values(v).every((x) => shortText(x, LIMITS.setting) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x)));
+const flatValue = (x: unknown): boolean => shortText(x, LIMITS.setting) || typeof x === 'boolean' || (typeof x === 'number' && Number.isFinite(x));
+const flatSettings = (v: unknown): boolean => isPlainObject(v) && Object.keys(v).length <= 20 && Object.values(v).every(flatValue);
+/** The curve's settings: flat, but for `futuresConvexity`, itself a flat object of at most 5 settings. */
+const curveSettings = (v: unknown): boolean =>
+  isPlainObject(v) && Object.keys(v).length <= 20 && Object.entries(v).every(([k, x]) => (k === 'futuresConvexity' ? isPlainObject(x) && Object.keys(x).length <= 5 && Object.values(x).every(flatValue) : flatValue(x)));
+
+/** The shape of `fixings`: at most LIMITS.fixings entries of a date-length key and a finite number (the engine checks dates and rates). */
+const fixingsShape = (v: unknown): boolean =>
+  isPlainObject(v) && Object.keys(v).length <= LIMITS.fixings && Object.entries(v).every(([d, r]) => d.length <= 10 && typeof r === 'number' && Number.isFinite(r));
 
 /** The shape of `calendars`: at most 10 calendars, each with `add` and `remove` lists of short text (the engine checks the dates). */
 const calendarEditsShape = (v: unknown): boolean =>
@@ -40,10 +47,11 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   for (const k of Object.keys(raw)) if (!TOP.includes(k)) errors.push(coreError('schema', k.slice(0, 40), `unknown field "${k.slice(0, 40)}"; a workbench document has ${TOP.join(', ')}`));
   if (raw.format !== WORKBENCH_FORMAT) errors.push(coreError('schema', 'format', `format must be "${WORKBENCH_FORMAT}"`));
   if (!shortText(raw.settlement, LIMITS.setting)) errors.push(coreError('schema', 'settlement', 'settlement must be text (a date YYYY-MM-DD)'));
-  if (!flatSettings(raw.curve)) errors.push(coreError('schema', 'curve', 'curve must be an object of short settings'));
+  if (!curveSettings(raw.curve)) errors.push(coreError('schema', 'curve', 'curve must be an object of short settings'));
   if (!flatSettings(raw.display)) errors.push(coreError('schema', 'display', 'display must be an object of short settings'));
   if (raw.calendars !== undefined && !calendarEditsShape(raw.calendars)) errors.push(coreError('schema', 'calendars', `calendars must be an object of edits by calendar id, each {"add": [dates], "remove": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
   if (raw.customCalendars !== undefined && !customCalendarsShape(raw.customCalendars)) errors.push(coreError('schema', 'customCalendars', `customCalendars must be an object of calendars by name (at most ${LIMITS.id} characters), each {"holidays": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
+  if (raw.fixings !== undefined && !fixingsShape(raw.fixings)) errors.push(coreError('schema', 'fixings', `fixings must be an object of dates to overnight rates (decimals), at most ${LIMITS.fixings} of them`));
   if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));
   if (!Array.isArray(raw.quotes)) errors.push(coreError('schema', 'quotes', 'quotes must be a list of rows'));
   else if (raw.quotes.length > LIMITS.quotes) errors.push(coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`));

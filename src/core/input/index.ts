@@ -11,3 +11,4 @@ export * from './quoteSchedule.ts';
 export * from './dateText.ts';
 export * from './conventions.ts';
 export * from './tenorColumns.ts';
+export * from './fixingList.ts';

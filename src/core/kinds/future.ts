@@ -1,6 +1,6 @@
 import type { FutureQuote } from '../document/types.ts';
 import { compileFuture, FUTURE_BASIS, futureForwardRate } from '../instruments/future.ts';
-import { modelConvexityBp, type ConvexityFill, type ConvexityModel } from '../instruments/convexity.ts';
+import { modelConvexityBp, type ConvexityFill } from '../instruments/convexity.ts';
 import { DISCOUNTING_AND_PROJECTING, type Instrument } from '../instruments/instrument.ts';
 import { coreError, fail, ok, type CoreError } from '../result.ts';
 import { businessCalendar, outsideCalendar, type CalendarContext } from '../time/calendars.ts';
@@ -8,7 +8,7 @@ import { compareIso, isoFromSerial, parseIsoDate, serialFromIso, type IsoDate } 
 import { averagedFixings, FUTURE_CONTRACTS, lastDayOf, futurePeriod, parseContractMonth, type FutureContract } from '../time/futurePeriods.ts';
 import { RATE_MAX, RATE_MIN, readChoice, readNumber, required, typeName, type RawQuote } from './fields.ts';
 import { flatDollarDurationOf } from './shared.ts';
-import type { QuoteKindModule } from './types.ts';
+import type { DocumentContext, QuoteKindModule } from './types.ts';
 
 /** Futures prices the reader takes: above 0 up to 110 (futures rates from 100% down to -10%, the rate fields' range). */
 export const FUTURE_PRICE_MAX = 110;
@@ -79,7 +79,8 @@ export const FUTURE: QuoteKindModule<FutureQuote> = {
   dates: (q) => ({ start: q.start, end: q.end, payment: null }),
 };
 
-function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDate | null, _m: IsoDate, _tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext, convexityModel?: ConvexityModel): FutureQuote | null {
+function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDate | null, _m: IsoDate, _tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext, context?: DocumentContext): FutureQuote | null {
+  const convexityModel = context?.futuresConvexity;
   const before = errors.length;
   const contract = readChoice<FutureContract>(raw, base, index, errors, 'contract', FUTURE_CONTRACTS, '3M');
   const price = required(readNumber(raw, base, index, errors, 'price', 0, FUTURE_PRICE_MAX, PRICE_WHAT, true), 'price', PRICE_WHAT, base, index, errors);
@@ -163,15 +164,19 @@ function readFuture(raw: RawQuote, base: string, index: number, _maturity: IsoDa
     errors.push(coreError('range', `${base}.${field}`, `${base}.${field} (${name}): its reference period ends on ${lastDayOf(end)} and every fixing it reads is known by the valuation date ${settlement}, so nothing of it is left on the curve; remove it or give a later contract`, index));
     return null;
   }
-  const fixings = readFixings(raw, base, index, errors, name, firstFixing, v, cal.calendar);
-  if (fixings === null) return null;
+  const own = readFixings(raw, base, index, errors, name, firstFixing, v, cal.calendar);
+  if (own === null) return null;
+  // Without fixings of its own, a contract in its period reads the days it needs from the workspace's list.
+  const fromWorkspace = own === undefined && firstFixing < v && context?.fixings !== undefined;
+  const fixings = fromWorkspace ? workspaceFixings(context.fixings!, firstFixing, v, cal.calendar) : own;
   if (firstFixing < v) {
     const missing: string[] = [];
     for (let b = firstFixing; b < v; b++) if (cal.calendar.isBusinessDay(b) && fixings?.[isoFromSerial(b)] === undefined) missing.push(isoFromSerial(b));
     if (missing.length > 0) {
-      const path = fixings === undefined ? `${base}.${field}` : `${base}.fixings`;
+      const path = own === undefined ? `${base}.${field}` : `${base}.fixings`;
       const list = missing.length > 4 ? `${missing.slice(0, 4).join(', ')} and ${missing.length - 4} more` : missing.join(', ');
-      errors.push(coreError('range', path, `${path} (${name}): its reference period began on ${isoFromSerial(firstFixing)}${firstFixing < period.start ? ' (the fixing its first day carries)' : ''}, before the valuation date ${settlement}, so it needs the overnight fixings so far; ${fixings === undefined ? 'give them as fixings' : 'fixings lacks'} ${list} (fixings: {"YYYY-MM-DD": rate as a decimal, ...}, one per ${calendar} business day before the valuation date), or remove the contract`, index));
+      const give = fromWorkspace ? "the workspace's fixings lack" : own === undefined ? "give them as fixings, in the workspace's list or on the quote:" : 'fixings lacks';
+      errors.push(coreError('range', path, `${path} (${name}): its reference period began on ${isoFromSerial(firstFixing)}${firstFixing < period.start ? ' (the fixing its first day carries)' : ''}, before the valuation date ${settlement}, so it needs the overnight fixings so far; ${give} ${list} (fixings: {"YYYY-MM-DD": rate as a decimal, ...}, one per ${calendar} business day before the valuation date), or remove the contract`, index));
       return null;
     }
   }
@@ -219,6 +224,18 @@ function readFixings(raw: RawQuote, base: string, index: number, errors: CoreErr
       return null;
     }
     out[date] = r;
+  }
+  return out;
+}
+
+/** The workspace's fixings of the business days from `first` to the day before `v` (those it has; the caller names the missing). */
+function workspaceFixings(all: Readonly<Record<string, number>>, first: number, v: number, calendar: { isBusinessDay(s: number): boolean }): Record<IsoDate, number> {
+  const out: Record<IsoDate, number> = {};
+  for (let b = first; b < v; b++) {
+    if (!calendar.isBusinessDay(b)) continue;
+    const date = isoFromSerial(b);
+    const r = all[date];
+    if (r !== undefined) out[date] = r;
   }
   return out;
 }

@@ -1,4 +1,12 @@
 import type { ConvexityModel } from '../instruments/convexity.ts';
+
+/** What a quote's reader may take from the document beyond the quote: the futures' convexity model and the workspace's overnight fixings. */
+export interface DocumentContext {
+  /** `curve.futuresConvexity`: fills a future's adjustment when the quote types none. */
+  readonly futuresConvexity?: ConvexityModel;
+  /** The document's `fixings`: overnight rates (decimals) by business day, before the valuation date. */
+  readonly fixings?: Readonly<Record<string, number>>;
+}
 import type { Quote } from '../document/types.ts';
 import type { QuoteColumn } from '../input/quoteRow.ts';
 import type { CurveRole, CurveRoles, Instrument } from '../instruments/instrument.ts';
@@ -68,7 +76,7 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
      * spot lag and schedule). `calendars` the workspace's own calendars and its edits of the
      * built-in ones (absent when it has none). Pushes path-named errors; returns the typed quote or null.
      */
-    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext, convexity?: ConvexityModel): Q | null;
+    read(raw: RawQuote, base: string, index: number, maturity: IsoDate | null, m: IsoDate, tenor: string | null, enabled: boolean, errors: CoreError[], settlement?: IsoDate, calendars?: CalendarContext, context?: DocumentContext): Q | null;
   };
 
   /** How the quote sheet's columns fill the kind's fields. */

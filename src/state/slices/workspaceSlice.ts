@@ -43,6 +43,8 @@ export interface WorkspaceSlice {
   sortByMaturity(): void;
   setSettlement(text: string): void;
   setCurve(patch: Partial<WorkbenchDocument['curve']>): void;
+  /** Replaces the workspace's overnight fixings (rates as decimals by date), or removes them (null or empty). One undoable step. */
+  setFixings(fixings: Readonly<Record<string, number>> | null): void;
   /** Sets the model that fills the futures' convexity adjustments (`curve.futuresConvexity`), or removes it (null). One undoable step. */
   setFuturesConvexity(model: Readonly<Record<string, unknown>> | null): void;
   /** Replaces one built-in calendar's edits (dates closed and opened); empty edits remove its entry. One undoable step. */
@@ -212,6 +214,10 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     },
     setCurve(patch) {
       get().commit({ ...ws(), curve: { ...ws().curve, ...patch } }, 'curve settings');
+    },
+    setFixings(fixings) {
+      const { fixings: _old, ...rest } = ws();
+      get().commit(fixings === null || Object.keys(fixings).length === 0 ? rest : { ...rest, fixings }, 'overnight fixings');
     },
     setFuturesConvexity(model) {
       const { futuresConvexity: _old, ...curve } = ws().curve;

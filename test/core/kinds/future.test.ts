@@ -355,7 +355,7 @@ describe('convexity, shifts and errors', () => {
     // December 2026's 3M contract started on 2026-12-16; valued 2027-01-05 it is in its period.
     const e = errorsOf({ kind: 'future', month: '2026-12', price: 96.3 }, '2027-01-05');
     expect(e[0]!.path).toBe('quotes[0].month');
-    expect(e[0]!.message).toMatch(/3M future 2026-12.*began on 2026-12-16.*needs the overnight fixings so far; give them as fixings 2026-12-16, 2026-12-17, 2026-12-18, 2026-12-21 and \d+ more/);
+    expect(e[0]!.message).toMatch(/3M future 2026-12.*began on 2026-12-16.*needs the overnight fixings so far; give them as fixings, in the workspace's list or on the quote: 2026-12-16, 2026-12-17, 2026-12-18, 2026-12-21 and \d+ more/);
     // A 1M contract whose first day carries a fixing before the valuation date: May 2027 starts on
     // Saturday 2027-05-01, carrying Friday 2027-04-30's rate.
     const e1 = errorsOf({ kind: 'future', contract: '1M', month: '2027-05', price: 96.3 }, '2027-05-01');
@@ -586,5 +586,54 @@ describe('a future in the sheet', () => {
     const withConvexity = workbenchFromEngine(workspaceDoc([{ kind: 'future', month: '2027-03', price: 96.38, convexity: 0.5 }], { settlement: VALUATION }), () => 'r');
     expect(withConvexity.ok).toBe(false);
     if (!withConvexity.ok) expect(withConvexity.errors[0]!.message).toMatch(/convexity .*has no column in the sheet/);
+  });
+});
+
+describe("the workspace's fixings (one list for every contract in its period)", () => {
+  // SOFR as published (test/fixtures/sofr, see the header); a version 2 document carries the list at its top level.
+  const fixingsFrom = (from: string, to: string): Record<string, number> => {
+    const out: Record<string, number> = {};
+    for (let d = serialFromIso(from); d < serialFromIso(to); d++) if (SOFR.has(d)) out[isoFromSerial(d)] = SOFR.get(d)!;
+    return out;
+  };
+  const v2 = (quotes: readonly Record<string, unknown>[], valuationDate: string, fixings?: unknown) => ({
+    format: 'tenorscope-workspace', version: 2, valuationDate, curve: { dayCount: 'ACT/365F', interpolation: 'log-linear-discount' },
+    ...(fixings === undefined ? {} : { fixings }), quotes,
+  });
+
+  it('a 3M and a 1M contract in their period read the days they need from it, as if each carried its own (SOFR, valued 2024-06-12)', () => {
+    const v = '2024-06-12';
+    // March 2024 3M (2024-03-20 to 2024-06-19) and June 2024 1M (its first days carry 2024-05-31's rate); the list runs from January: extra days are ignored.
+    const quotes = [{ kind: 'future', month: '2024-03', price: 94.7 }, { kind: 'future', contract: '1M', month: '2024-06', price: 94.68 }, { kind: 'ois', tenor: '1Y', rate: 0.051 }];
+    const shared = buildCurve(v2(quotes, v, fixingsFrom('2024-01-02', v)));
+    expect(shared.errors).toEqual([]);
+    const own = buildCurve(v2([
+      { ...quotes[0], fixings: fixingsFrom('2024-03-20', v) },
+      { ...quotes[1], fixings: fixingsFrom('2024-05-31', v) },
+      quotes[2]!,
+    ], v));
+    expect(own.errors).toEqual([]);
+    expect(shared.curve!.pillars.map((p) => p.discount)).toEqual(own.curve!.pillars.map((p) => p.discount));
+    expect(Object.keys((shared.workspace!.quotes[1] as FutureQuote).fixings!)).toEqual(Object.keys(fixingsFrom('2024-05-31', v)));
+  });
+
+  it("names the days the workspace's list lacks, warns of fixings on or after the valuation date (kept, not read), and refuses a bad key or rate and the field in a version 1 document", () => {
+    const v = '2024-06-12';
+    const gap = fixingsFrom('2024-03-20', v);
+    delete gap['2024-04-15'];
+    const missing = validateWorkspace(v2([{ kind: 'future', month: '2024-03', price: 94.7 }], v, gap)).errors.map((e) => e.message).join('\n');
+    expect(missing).toMatch(/the workspace's fixings lack 2024-04-15/);
+    const messages = (fixings: unknown) => validateWorkspace(v2([{ kind: 'ois', tenor: '1Y', rate: 0.05 }], v, fixings)).errors.map((e) => `${e.path}: ${e.message}`).join('\n');
+    expect(messages({ '2024-06-12': 0.053, '2024-06-13': 0.053 })).toBe('');
+    const later = buildCurve(v2([{ kind: 'ois', tenor: '1Y', rate: 0.05 }], v, { '2024-06-11': 0.053, '2024-06-12': 0.053, '2024-06-13': 0.053 }));
+    expect(later.errors).toEqual([]);
+    expect(later.warnings.map((w) => `${w.path} ${w.code}: ${w.message}`)).toEqual([
+      "fixings skipped: fixings on or after the valuation date 2024-06-12 are not read (2 of them, 2024-06-12 to 2024-06-13): a day's rate is published the next business morning, so it is not known then; they stay in the workspace for a later valuation date",
+    ]);
+    expect(messages({ '12/06/2024': 0.053 })).toMatch(/must be a date YYYY-MM-DD/);
+    expect(messages({ '2024-06-11': 5.3 })).toMatch(/fixings\.2024-06-11: must be an overnight rate as a decimal/);
+    expect(messages([0.05])).toMatch(/fixings must be an object of dates/);
+    const v1 = { ...workspaceDoc([{ kind: 'ois', tenor: '1Y', rate: 0.05 }], { settlement: v }), fixings: {} };
+    expect(validateWorkspace(v1).errors.map((e) => e.message).join('\n')).toMatch(/"fixings" is a field of version 2 documents/);
   });
 });
