@@ -169,6 +169,8 @@ const FIELD_COLUMN: Readonly<Record<string, QuoteColumn>> = {
   price: 'price', cleanPrice: 'price',
   coupon: 'coupon', frequency: 'frequency', dayCount: 'dayCount',
   tenor: 'maturity', maturity: 'maturity', kind: 'kind',
+  // An FRA's Maturity cell holds its period; its index must agree with it.
+  period: 'maturity', index: 'maturity',
 };
 
 /** The sheet cell an engine error points at (`quotes[3].cleanPrice` -> price); `kind` for a whole-quote error. */

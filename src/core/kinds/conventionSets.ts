@@ -56,6 +56,28 @@ export const CONVENTION_SETS: readonly ConventionSetDefinition[] = [
     note: '',
   },
   {
+    id: 'eur-euribor-3m',
+    title: 'Euro EURIBOR 3M: deposits and FRAs on the three-month index',
+    fields: {
+      // EURIBOR: T+2 on TARGET, modified following and end of month for month tenors, ACT/360
+      // (MARKET-CONVENTIONS.md c and f; QuantLib euribor.cpp: 2 settlement days, TARGET,
+      // euriborConvention, euriborEOM, Actual360).
+      deposit: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360' },
+      fra: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360', index: '3M' },
+    },
+    note: 'one curve both projects the index and discounts (no separate overnight discounting curve yet)',
+  },
+  {
+    id: 'eur-euribor-6m',
+    title: 'Euro EURIBOR 6M: deposits and FRAs on the six-month index',
+    fields: {
+      // As EURIBOR 3M, on the six-month index (QuantLib euribor.cpp, the same conventions for every month tenor).
+      deposit: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360' },
+      fra: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360', index: '6M' },
+    },
+    note: 'one curve both projects the index and discounts (no separate overnight discounting curve yet)',
+  },
+  {
     id: 'us-treasury',
     title: 'US Treasury bills, notes and bonds',
     // Notes and bonds pay semiannually on ACT/ACT-ICMA; bills and coupons settle T+1 on the US
