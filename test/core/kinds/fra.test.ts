@@ -164,6 +164,24 @@ describe('a curve of deposits, FRAs (a strip and overlapping ones) and swaps rep
   });
 });
 
+describe('deposits on the same index: the deposit kind with the index\'s conventions (eur-euribor-3m)', () => {
+  const dep = (tenor: string, extra: Record<string, unknown> = {}) => {
+    const v = validateWorkspace(doc('2027-02-24', [{ kind: 'deposit', tenor, rate: 0.0226, ...E3, ...extra }]));
+    return { errors: v.errors, q: v.workspace?.quotes[0] as (Quote & { kind: 'deposit' }) | undefined };
+  };
+  it('a 3M deposit from spot Friday 2027-02-26 (February\'s last TARGET day) ends on May\'s last, 2027-05-31, by the end-of-month rule (by hand); without it on 2027-05-26', () => {
+    expect(dep('3M').q).toMatchObject({ start: '2027-02-26', maturity: '2027-05-31', eom: true, businessDay: 'modified-following', calendar: 'target', spotLag: 2, dayCount: 'ACT/360' });
+    expect(dep('3M', { eom: false }).q).toMatchObject({ start: '2027-02-26', maturity: '2027-05-26', eom: false });
+  });
+  it('ON and TN under the set take its rule without effect; an eom of the row\'s own on ON, or on a deposit without a calendar, is refused naming the field', () => {
+    expect(dep('ON').q).toMatchObject({ start: '2027-02-24', maturity: '2027-02-25' });
+    expect(dep('TN').errors).toEqual([]);
+    expect(dep('ON', { eom: false }).errors).toEqual([expect.objectContaining({ path: 'quotes[0].eom', message: expect.stringContaining('ON counts business days on the calendar, so no end-of-month rule applies; remove eom') })]);
+    const plain = validateWorkspace(doc('2027-02-24', [{ kind: 'deposit', tenor: '3M', rate: 0.02, eom: true }])).errors;
+    expect(plain).toEqual([expect.objectContaining({ path: 'quotes[0].eom', message: expect.stringContaining('only on a calendar') })]);
+  });
+});
+
 describe('FRA input errors name the quote and the field and say what would be valid; the other quotes are kept', () => {
   const only = (q: Record<string, unknown>) => errorsOf({ kind: 'fra', rate: 0.03, ...q });
   it('"3x2" and "0x0": the end month must be after the start month', () => {
