@@ -21,6 +21,7 @@ import {
   type Quote,
 } from '../../../src/core/index.ts';
 import { runCurveCommand } from '../../../src/cli/curveCommand.ts';
+import { previewPaste, readPastedBlock } from '../../../src/core/input/pasteTable.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
 // Forward rate agreements (kind `fra`). Sources, named at each check:
@@ -335,6 +336,13 @@ describe('the sheet: the Maturity cell holds the period', () => {
     expect(bad.issues.maturity?.message).toMatch(/an FRA is dated by its period: type start x end in months from spot, such as 3x6/);
     // A period in another kind's row says it is an FRA's.
     expect(parseRow(row('deposit', '3x6'), 'percent').issues.maturity?.message).toMatch(/"3x6" is an FRA's period .*type fra in the Kind cell/);
+  });
+  it('a pasted block reads FRA rows by kind word with their periods in the maturity column (3x6, 3X6, 3×6), beside deposits', () => {
+    const block = readPastedBlock('Instrument\tTenor\tRate\nDeposit\t3M\t2.26\nFRA\t3x6\t2.33\nFRAs\t6X9\t2.38\nforward rate agreement\t9×12\t2.41\n');
+    expect(block.rows.map((r) => r.maturity)).toEqual(['3M', '3x6', '6X9', '9×12']);
+    const quotes = block.rows.map((r) => parseRow({ ...r, id: 'r', enabled: true }, 'percent').quote);
+    expect(quotes.slice(1)).toEqual([{ kind: 'fra', period: '3x6', rate: 0.0233 }, { kind: 'fra', period: '6x9', rate: 0.0238 }, { kind: 'fra', period: '9x12', rate: 0.0241 }]);
+    expect(previewPaste(block, 'percent')).toMatchObject({ rows: 4, quotes: 4, withErrors: 0 });
   });
   it('a file of FRAs opens in the workbench with the period in the Maturity cell and the set as its market conventions', () => {
     const quotes = [{ kind: 'deposit', tenor: '3M', rate: 0.0226, ...E3 }, { kind: 'fra', period: '3x6', rate: 0.0233, ...E3 }, { kind: 'fra', period: '6x9', index: '3M', rate: 0.0238, ...E3 }];
