@@ -181,9 +181,13 @@ describe('random FRA markets reprice within 1e-14 under every interpolation (the
   // FRAs a month apart turn their noise into one-month forwards six times as far apart, and with
   // 5 bp there cubic-zero's spline (not local) can find no curve. FRAs ending on the same day as
   // another quote are dropped (a duplicate pillar is refused by contract). Fixed seed.
-  // The global methods (cubic-zero, monotone-convex) may refuse a market whose FRAs overlap a month
-  // apart (see the next block): for them the property is "reprices within 1e-14, or is refused with
-  // an error naming a quote", and most markets must build.
+  // The global methods (cubic-zero, monotone-convex) may refuse a market of dense or overlapping
+  // FRAs: for them the property is "reprices within 1e-14, or is refused with an error naming a
+  // quote", and at most one market in ten may be refused. At this seed cubic-zero refuses 3 of 40
+  // (8 before its joint step was also started from the pass's nodes: see the next block), such as
+  // one-month FRAs 1x2 to 12x13 beside ON and TN at -0.5%, where the TN deposit stays 8e-14 off
+  // after 100 sweeps; monotone-convex refuses 1 of 40 (6M FRAs 2x8, 10x16, 11x17: its sweeps
+  // converge too slowly, 1e-10 off after 100).
   const SEED = 20261218;
   const arb = fc.record({
     serial: fc.integer({ min: serialFromIso('2020-01-01'), max: serialFromIso('2035-12-31') }),
@@ -241,18 +245,19 @@ describe('random FRA markets reprice within 1e-14 under every interpolation (the
         }),
         { seed: SEED, numRuns: 40, endOnFailure: true },
       );
-      if (global) expect(refused, `${interpolation}: ${refused} of ${built + refused} random FRA markets refused`).toBeLessThanOrEqual((built + refused) / 4);
+      if (global) expect(refused, `${interpolation}: ${refused} of ${built + refused} random FRA markets refused`).toBeLessThanOrEqual((built + refused) / 10);
     }, 120_000);
   }
 });
 
-describe('a known limit: cubic-zero and overlapping FRAs a month apart', () => {
+describe('cubic-zero and overlapping FRAs a month apart: the joint step from the pass\'s nodes', () => {
   // Invented market, found by the random property above: flat zero rates, 3M FRAs 2x5, 3x6, 10x13
   // and 11x14, a 4Y swap at -1 bp. The starts of 10x13 and 11x14 lie on the segment from the 3x6's
   // end to the 10x13's, whose spline the node a month later shapes strongly, so a node's own
-  // residual barely moves with it: cubic-zero's sweeps wander and its joint Newton step (started
-  // where they stopped) finds no root. Every local method builds it, and cubic-zero does too with
-  // 13M and 14M deposits in place of the two FRAs. The refusal is an error value naming a quote.
+  // residual barely moves with it: cubic-zero's sweeps wander, and its joint Newton step started
+  // where they stopped finds no root (the 4Y swap's node fails); started again from the log-linear
+  // pass's nodes it does (bootstrap.ts, for markets with a quote read off the curve). Every method
+  // builds it; cubic-zero's sweeps alone build it with 13M and 14M deposits in place of the FRAs.
   const terms = { calendar: 'us-gov-securities', businessDay: 'preceding', spotLag: 2, dayCount: 'ACT/360' };
   const market = (overlap: 'fras' | 'deposits') => [
     { kind: 'deposit', tenor: 'ON', rate: 0, calendar: 'us-gov-securities', spotLag: 2 },
@@ -264,10 +269,8 @@ describe('a known limit: cubic-zero and overlapping FRAs a month apart', () => {
     { kind: 'swap', tenor: '4Y', rate: -0.0001 },
     { kind: 'swap', tenor: '7Y', rate: 0 },
   ];
-  it('is refused by cubic-zero with an error naming the 4Y swap; built by the other methods, and by cubic-zero with deposits instead', () => {
-    const cubic = buildCurve(doc('2020-01-07', market('fras'), { interpolation: 'cubic-zero' }));
-    expect(cubic.errors).toEqual([expect.objectContaining({ path: 'quotes[7].rate', quote: 7 })]);
-    for (const interpolation of INTERPOLATIONS.filter((m) => m !== 'cubic-zero' && m !== 'monotone-convex-positive')) {
+  it('builds under every method but monotone-convex-positive (negative forwards, refused by contract), every rate within 1e-14', () => {
+    for (const interpolation of INTERPOLATIONS.filter((m) => m !== 'monotone-convex-positive')) {
       const b = buildCurve(doc('2020-01-07', market('fras'), { interpolation }));
       expect(b.errors, interpolation).toEqual([]);
       for (const r of b.repricing) expect(Math.abs(r.repricingError), `${interpolation} quotes[${r.index}]`).toBeLessThanOrEqual(1e-14);
