@@ -3,7 +3,13 @@ import { describe, expect, it } from 'vitest';
 import {
   BUILT_IN_CALENDARS,
   BUSINESS_DAY_RULES,
+  bootstrapInstruments,
+  bumpedForwardSensitivities,
   buildCurve,
+  compileMarket,
+  CurveBuilder,
+  forwardRows,
+  forwardSensitivities,
   CURVE_DAY_COUNTS,
   fitCurve,
   isoFromSerial,
@@ -155,6 +161,37 @@ describe('a curve of deposits, FRAs (a strip and overlapping ones) and swaps rep
     const build = buildCurve(doc(VALUATION, MARKET));
     const ins = build.instruments.find((i) => i.kind === 'fra')!;
     expect(ins.curves).toEqual({ discount: 'discount', projection: 'discount' });
+  });
+
+  it('a typed FRA rate re-quotes the compiled market (the workbench\'s path) and gives the fresh build bit for bit', () => {
+    const builder = new CurveBuilder();
+    builder.build(doc(VALUATION, MARKET));
+    expect(builder.lastPath).toBe('compiled');
+    const moved = MARKET.map((q, i) => (i === 5 ? { ...q, rate: 0.0235 } : q));
+    const again = builder.build(doc(VALUATION, moved));
+    expect(builder.lastPath).toBe('requoted');
+    const fresh = buildCurve(doc(VALUATION, moved));
+    expect(again.repricing).toEqual(fresh.repricing);
+    for (const t of [0.1, 0.5, 1, 2, 5]) expect(again.curve!.lnDiscountAt(t)).toBe(fresh.curve!.lnDiscountAt(t));
+  });
+
+  it('forward sensitivities to the quotes match bumped rebuilds to 1e-6 bp per bp (the FRA\'s target DF(start) read off the curve, targetSlopes)', () => {
+    // As test/core/kinds/ois.test.ts does for a lagged OIS: analytic sensitivities against central
+    // 1 bp and 0.5 bp rebuilds with Richardson's extrapolation.
+    const ws = validateWorkspace(doc(VALUATION, MARKET, { interpolation: 'log-linear-discount' })).workspace!;
+    const instruments = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, false).instruments;
+    const settings = { settlement: ws.settlement, dayCount: ws.curve.dayCount, interpolation: 'log-linear-discount' as const, extrapolation: 'none' as const };
+    const curve = bootstrapInstruments(settings, instruments).curve!;
+    const rows = forwardRows(curve, { n: 3, unit: 'M' }, { n: 6, unit: 'M' }, 'simple', 'ACT/365F');
+    if (!rows.ok) throw new Error(rows.errors[0]!.message);
+    const map = forwardSensitivities(curve, instruments, rows.value, 'simple', 'ACT/365F');
+    if (!map.ok) throw new Error(map.errors[0]!.message);
+    const b1 = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 1);
+    const bh = bumpedForwardSensitivities(settings, instruments, rows.value, 'simple', 0.5);
+    if (!b1.ok || !bh.ok) throw new Error('bumped rebuild failed');
+    let worst = 0;
+    for (let i = 0; i < b1.value.length; i++) worst = Math.max(worst, Math.abs(map.value.values[i]! - (4 * bh.value[i]! - b1.value[i]!) / 3));
+    expect(worst).toBeLessThanOrEqual(1e-6);
   });
 
   it('a quote-space move of d moves the FRA rate by d; its tag is simple on its day count; the fit weighs it', () => {
