@@ -10,6 +10,7 @@ import { rateTag } from '../format/conventionTag.ts';
 import { MAX_LAG, noCouponPeriod, readCalendar, readChoice, readDayCount, readEom, readRate, readWhole, required, typeName, RATE_TEXT, type RawQuote } from './fields.ts';
 import { flatDollarDurationOf, quotedRateOrDefault } from './shared.ts';
 import type { QuoteKindModule } from './types.ts';
+import { CONVENTION_SETS, conventionSet } from './conventionSets.ts';
 
 /** The longest FRA end, in months from spot. */
 export const FRA_MAX_MONTHS = 120;
@@ -103,7 +104,10 @@ function readFra(raw: RawQuote, base: string, index: number, _maturity: IsoDate 
       errors.push(coreError('schema', `${base}.index`, `${base}.index: must be the index tenor in months or years, such as "3M" or "6M", not ${typeName(raw.index)}`, index));
       indexMonths = null;
     } else if (period !== null && months !== indexMonths) {
-      errors.push(coreError('range', `${base}.index`, `${base}.index: the index ${raw.index as string} (${months} months) disagrees with the period ${period.a}x${period.b}, which spans ${indexMonths} months; give index ${indexMonths}M, or the period ${period.a}x${period.a + months}`, index));
+      // The index may come from the quote's convention set (eur-euribor-3m): then say so, and which sets fit.
+      const set = typeof raw.conventions === 'string' && conventionSet(raw.conventions)?.fields.fra?.index === raw.index ? raw.conventions : null;
+      const fits = set === null ? '' : `, or conventions ${CONVENTION_SETS.filter((c) => c.fields.fra?.index === `${indexMonths}M`).map((c) => c.id).join(' or ') || 'none'} (the set ${set} gives index ${raw.index as string})`;
+      errors.push(coreError('range', `${base}.index`, `${base}.index: the index ${raw.index as string} (${months} months) disagrees with the period ${period.a}x${period.b}, which spans ${indexMonths} months; give index ${indexMonths}M, or the period ${period.a}x${period.a + months}${fits}`, index));
       indexMonths = null;
     }
   }

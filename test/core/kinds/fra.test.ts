@@ -348,7 +348,7 @@ describe('FRA input errors name the quote and the field and say what would be va
     const e = only({ period: '3x6', index: '6M' });
     expect(e).toEqual([expect.objectContaining({ code: 'range', path: 'quotes[1].index', message: expect.stringContaining('the index 6M (6 months) disagrees with the period 3x6, which spans 3 months; give index 3M, or the period 3x9') })]);
     // The 6M set on a 3-month period says the same.
-    expect(only({ period: '3x6', conventions: 'eur-euribor-6m' })[0]!.message).toContain('the index 6M (6 months) disagrees with the period 3x6');
+    expect(only({ period: '3x6', conventions: 'eur-euribor-6m' })[0]!.message).toContain('the index 6M (6 months) disagrees with the period 3x6, which spans 3 months; give index 3M, or the period 3x9, or conventions eur-euribor-3m (the set eur-euribor-6m gives index 6M)');
   });
   it('a rate that is not a number, a period that is not AxB, a tenor given, a start whose fixing has passed', () => {
     expect(only({ period: '3x6', rate: 'x' })).toEqual([expect.objectContaining({ path: 'quotes[1].rate', message: 'quotes[1].rate: must be a number from -0.1 to 1, not the text "x"' })]);
