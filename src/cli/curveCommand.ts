@@ -430,10 +430,11 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     const q = quoteAt[r.index];
     // Performance: a kind without dates of its own starts on the valuation date and ends at its maturity (no object made).
     const d = q && moduleOf(q).dates !== undefined ? quoteDates(q, settlement) : null;
-    quotes.push({
+    const out: QuoteOut = {
       index: rowOf === null ? r.index : (rowOf[r.index] ?? r.index), kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError,
       start: d ? d.start : settlement, end: d ? d.end : (q?.maturity ?? r.maturity), pillar: r.maturity, payment: d ? d.payment : null,
-    });
+    };
+    quotes.push(d?.fixing === undefined ? out : { ...out, fixing: d.fixing });
   }
   if (!finite) {
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });

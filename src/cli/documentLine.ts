@@ -32,6 +32,8 @@ export interface QuoteOut {
   readonly pillar: IsoDate;
   /** The last payment date: swaps and overnight-index swaps only (null: not printed). */
   readonly payment: IsoDate | null;
+  /** The index's fixing date: FRAs only (absent: not printed). */
+  readonly fixing?: IsoDate;
 }
 
 /**
@@ -76,7 +78,7 @@ export function builtDocumentLine(o: BuiltDocument): string {
     const q = quotes[i]!;
     const t = `${q.t}`;
     tText[i] = t;
-    s += `${i === 0 ? '' : ','}{"index":${q.index},"kind":"${q.kind}","maturity":"${q.maturity}","t":${t},"unit":"${q.unit}","repricingError":${q.repricingError},"start":"${q.start}","end":"${q.end}","pillar":"${q.pillar}"${q.payment === null ? '' : `,"payment":"${q.payment}"`}}`;
+    s += `${i === 0 ? '' : ','}{"index":${q.index},"kind":"${q.kind}","maturity":"${q.maturity}","t":${t},"unit":"${q.unit}","repricingError":${q.repricingError},"start":"${q.start}","end":"${q.end}","pillar":"${q.pillar}"${q.payment === null ? '' : `,"payment":"${q.payment}"`}${q.fixing === undefined ? '' : `,"fixing":"${q.fixing}"`}}`;
   }
   s += '],"points":[';
   for (let i = 0; i < points.length; i++) {

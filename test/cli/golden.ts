@@ -127,7 +127,7 @@ function damage(r: Rand, doc: Doc): void {
   else if (how === 1) q.maturity = pick(r, ['2019-01-01', '2027-02-30', 'soon']);
   else if (how === 2) q.frequency = pick(r, [3, 0, 'two']);
   else if (how === 3) q.dayCount = pick(r, ['ACT/366', 'ACT/ACT-ICMA']);
-  else if (how === 4) q.kind = pick(r, ['swaption', 'fra', '']); // kinds the engine does not have ('future' was one until it became a kind; the output is the same: messages are blanked)
+  else if (how === 4) q.kind = pick(r, ['swaption', 'cap', '']); // kinds the engine does not have ('future' and 'fra' were ones until each became a kind; the output is the same: messages are blanked)
   else if (how === 5) quotes.push({ ...q });
   else if (how === 6) (doc.curve as Doc).interpolation = pick(r, ['spline', 'flat']);
   else q.enabled = false;

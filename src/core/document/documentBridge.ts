@@ -19,7 +19,7 @@ import { isPlainObject } from './plainObject.ts';
 /** The engine field written into each sheet column (the sheet's rate column holds a rate, a discount yield or a yield). */
 const COLUMN_FIELDS: Readonly<Record<(typeof QUOTE_COLUMNS)[number], readonly string[]>> = {
   kind: ['kind'],
-  maturity: ['tenor', 'maturity', 'month'],
+  maturity: ['tenor', 'maturity', 'month', 'period'],
   rate: KIND_RATE_FIELDS,
   price: KIND_PRICE_FIELDS,
   coupon: ['coupon'],

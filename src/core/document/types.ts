@@ -8,7 +8,7 @@ import type { Extrapolation } from '../curve/curve.ts';
 import type { FitModel } from '../fit/parametricForm.ts';
 
 /** Quote kinds the engine bootstraps from. */
-export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap', 'ois', 'par-yield', 'future'] as const;
+export const QUOTE_KINDS = ['deposit', 'bill', 'zero', 'bond', 'swap', 'ois', 'par-yield', 'future', 'fra'] as const;
 export type QuoteKind = (typeof QUOTE_KINDS)[number];
 
 /** Fields every validated quote carries. `maturity` is resolved from `tenor` when one was given. */
@@ -42,6 +42,8 @@ export interface DepositQuote extends QuoteCommon {
   readonly calendars?: CalendarContext;
   /** For a tenor on a calendar: the end before the business-day rule (the quote check shows both). */
   readonly unadjustedEnd?: IsoDate;
+  /** The end-of-month rule for a month or year tenor on a calendar, present only when the quote gives `eom` (absent: off). */
+  readonly eom?: boolean;
 }
 /**
  * A trade settled at spot (a bond's or bill's own `calendar` and `spotLag`): the price is paid on
@@ -181,7 +183,40 @@ export interface FutureQuote extends QuoteCommon {
   readonly fixings?: Readonly<Record<IsoDate, number>>;
   readonly calendars?: CalendarContext;
 }
-export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote | ParYieldQuote | FutureQuote;
+/**
+ * A forward rate agreement on a term index (kinds/fra.ts, instruments/fra.ts): `rate` (decimal)
+ * simple on `dayCount` (the index's, default ACT/360) over the period `period` "AxB" months from
+ * spot, on the index of tenor `index` (B - A months). Dates (MARKET-CONVENTIONS.md f, QuantLib's
+ * FraRateHelper after its PR#1600): spot = valuation + `spotLag` business days on `calendar`;
+ * start = spot + A months, end = start + the index tenor, each moved by `businessDay` with the
+ * end-of-month rule `eom`; the index fixes two business days before the start (`fixing`).
+ * Defaults: calendar `weekends`, spotLag 0, businessDay modified-following, eom false.
+ * `maturity` is the end (the curve node). It takes no tenor or maturity (`ownDates`).
+ */
+export interface FraQuote extends QuoteCommon {
+  readonly kind: 'fra';
+  readonly rate: number;
+  /** The period as `AxB` (months from spot to the start and to the end). */
+  readonly period: string;
+  readonly startMonths: number;
+  readonly endMonths: number;
+  /** The index tenor, `nM` (B - A months): the document's field `index`. */
+  readonly indexTenor: string;
+  readonly dayCount: DayCount;
+  readonly calendar: string;
+  readonly spotLag: number;
+  readonly businessDay: BusinessDayRule;
+  readonly eom: boolean;
+  readonly spot: IsoDate;
+  readonly start: IsoDate;
+  readonly end: IsoDate;
+  readonly fixing: IsoDate;
+  /** Start and end before the business-day rule (the quote check shows both). */
+  readonly unadjustedStart: IsoDate;
+  readonly unadjustedEnd: IsoDate;
+  readonly calendars?: CalendarContext;
+}
+export type Quote = DepositQuote | BillQuote | ZeroQuote | BondQuote | SwapQuote | OisQuote | ParYieldQuote | FutureQuote | FraQuote;
 
 export interface CurveSettings {
   readonly dayCount: CurveDayCount;

@@ -58,15 +58,15 @@ export interface WorkbenchDocument {
   /** Settlement date as given (an ISO date when valid). */
   readonly settlement: string;
   /**
-   * `conventions` (absent: none): a convention set (kinds/conventionSets.ts) every deposit and
-   * overnight-index swap row takes, as the engine document's per-quote `conventions`.
+   * `conventions` (absent: none): a convention set (kinds/conventionSets.ts) every row of a kind
+   * it fills takes (deposits, overnight-index swaps, FRAs), as the engine document's per-quote `conventions`.
    */
   readonly curve: {
     readonly dayCount: CurveDayCount;
     readonly interpolation: InterpolationId;
     readonly extrapolation: Extrapolation;
     readonly conventions?: string;
-    /** A calendar of the workspace's own (customCalendars) joined to the market conventions' calendar for the deposit and OIS rows (absent: none). */
+    /** A calendar of the workspace's own (customCalendars) joined to the market conventions' calendar for the rows the set fills (deposits, OIS, FRAs; absent: none). */
     readonly joinCalendar?: string;
     /** The model that fills the futures' convexity adjustments (the engine's `curve.futuresConvexity`, as is; absent: none). */
     readonly futuresConvexity?: Readonly<Record<string, unknown>>;
@@ -144,8 +144,8 @@ export function toEngineDocument(
   });
   const { conventions: market, joinCalendar, ...curve } = doc.curve;
   if (market !== undefined && market !== 'none') {
-    // The workspace's market conventions go on each quote of a kind the set fills (deposits and
-    // overnight swaps); a calendar of its own joined to the set's is that quote's calendar.
+    // The workspace's market conventions go on each quote of a kind the set fills (deposits,
+    // overnight swaps, FRAs); a calendar of its own joined to the set's is that quote's calendar.
     const set = conventionSet(market);
     for (let i = 0; i < quotes.length; i++) {
       const kind = quotes[i]!.kind as QuoteKind;
@@ -174,6 +174,8 @@ const FIELD_COLUMN: Readonly<Record<string, QuoteColumn>> = {
   price: 'price', cleanPrice: 'price',
   coupon: 'coupon', frequency: 'frequency', dayCount: 'dayCount',
   tenor: 'maturity', maturity: 'maturity', kind: 'kind',
+  // An FRA's Maturity cell holds its period; its index must agree with it.
+  period: 'maturity', index: 'maturity',
 };
 
 /** The sheet cell an engine error points at (`quotes[3].cleanPrice` -> price); `kind` for a whole-quote error. */

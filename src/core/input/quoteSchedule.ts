@@ -5,7 +5,7 @@ import { bondSchedule } from '../instruments/bond.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { yearFraction } from '../time/dayCount.ts';
 import type { IsoDate } from '../time/date.ts';
-import type { BondQuote, DatedSwapQuote, DepositQuote, FutureQuote, ParYieldQuote, Quote, SwapQuote } from '../document/types.ts';
+import type { BondQuote, DatedSwapQuote, DepositQuote, FraQuote, FutureQuote, ParYieldQuote, Quote, SwapQuote } from '../document/types.ts';
 import { isDated } from '../kinds/swap.ts';
 import { FUTURE_BASIS, futureForwardRate } from '../instruments/future.ts';
 import { futureName } from '../kinds/future.ts';
@@ -40,8 +40,10 @@ export interface ScheduleRow {
    */
   readonly accrualEnd?: IsoDate;
   readonly unadjustedAccrualEnd?: IsoDate;
-  /** For a day of an averaged future (one-month): the business day whose overnight rate the day carries. */
+  /** For a day of an averaged future (one-month): the business day whose overnight rate the day carries; for an FRA, its index's fixing date. */
   readonly fixingDate?: IsoDate;
+  /** For a period whose start a calendar moves (an FRA): its start before the business-day rule. */
+  readonly unadjustedStart?: IsoDate;
 }
 
 export interface QuoteSchedule {
@@ -51,6 +53,8 @@ export interface QuoteSchedule {
   readonly note: string;
   /** The year fractions' day count when the quote has no `dayCount` field of its own (a future: ACT/360). */
   readonly dayCount?: string;
+  /** What `fixingDate` is: `daily` (each day of an averaged future carries a business day's rate; rows end on day ends) or `index` (an FRA's index fixing; rows end on payment dates). Default daily. */
+  readonly fixing?: 'daily' | 'index';
 }
 
 const df = (curve: Curve | null, date: IsoDate): { discount: number | null; t: number | null } => {
@@ -122,6 +126,21 @@ export function oisScheduleRows(q: DatedSwapQuote, settlement: IsoDate, curve: C
   const lag = q.paymentLag === 0 ? 'paid on each accrual end' : `each paid ${q.paymentLag} business day${q.paymentLag === 1 ? '' : 's'} after its accrual end`;
   const spot = q.spotLag === 0 ? 'starting on the valuation date' : `starting at spot, ${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after the valuation date`;
   return { rows, accrued: 0, note: `fixed leg per 100 notional on the ${q.calendar} calendar, ${spot}; accrual ends moved by ${q.businessDay}${q.eom ? ' (end-of-month rule)' : ''}, ${lag}; the floating leg compounds the overnight rate and is not shown` };
+}
+
+/**
+ * An FRA's one period on one curve, as the forward deposit it fixes: 100 placed at the start and
+ * 100 (1 + F tau) repaid at the end, tau on the index's day count; the start and end before and
+ * after the business-day rule, and the index's fixing date. The note says how each date was made.
+ */
+export function fraScheduleRows(q: FraQuote, _settlement: IsoDate, curve: Curve | null): QuoteSchedule {
+  const tau = yearFraction(q.dayCount, q.start, q.end, { termination: q.end });
+  const cashFlow = money(100 * (1 + q.rate * tau));
+  const { discount, t } = df(curve, q.end);
+  const rows = [{ start: q.start, unadjustedStart: q.unadjustedStart, end: q.end, accrualEnd: q.end, unadjustedAccrualEnd: q.unadjustedEnd, fixingDate: q.fixing, yearFraction: tau, cashFlow, discount, presentValue: discount === null ? null : cashFlow * discount, t }];
+  const spot = q.spotLag === 0 ? `spot is the valuation date` : `spot ${q.spot} is ${q.spotLag} business day${q.spotLag === 1 ? '' : 's'} after the valuation date`;
+  const note = `FRA ${q.period} on the ${q.indexTenor} index, on the ${q.calendar} calendar: ${spot}; start = spot + ${q.startMonths} months, end = start + ${q.indexTenor}, each moved by ${q.businessDay}${q.eom ? ', end-of-month rule on' : ''}; the index fixes on ${q.fixing}, two business days before the start. On one curve the FRA fixes DF(start)/DF(end) = 1 + F tau: per 100 at the start, 100 (1 + F tau) at the end`;
+  return { rows, accrued: 0, note, fixing: 'index' };
 }
 
 /**
@@ -228,6 +247,7 @@ const SCHEDULES: { readonly [K in Quote['kind']]?: (q: Extract<Quote, { kind: K 
   ois: oisScheduleRows,
   'par-yield': parYieldScheduleRows,
   future: futureScheduleRows,
+  fra: fraScheduleRows,
 };
 
 /** A quote's cash-flow schedule on a curve (bonds, swaps, deposits), or null for a kind with a single flow. */

@@ -165,6 +165,7 @@ export function parseMaturityText(text: string, dateOrder: DateOrder = 'mdy'): C
   if (term) return good({ tenor: term });
   const loose = moneyMarketTerm(s.replace(/[\s.\-]/g, ''));
   if (loose) return bad(`"${s}": type ${loose} (or ${loose[0]}/N) for ${MONEY_MARKET_TERMS[loose]}, a deposit's tenor`);
+  if (/^\d{1,3}\s*[xX×]\s*\d{1,3}$/.test(s)) return bad(`"${s}" is an FRA's period (start x end months from spot); type fra in the Kind cell, or give a tenor such as 6M or a date`);
   const date = parseDateText(s, dateOrder);
   if (date?.ok) return good({ maturity: date.date });
   const valid = `type a tenor such as 6M, 2Y or 30Y, or a date YYYY-MM-DD such as 2031-11-15 (also 15-Nov-2031 or ${dateOrder === 'mdy' ? '11/15/2031' : '15/11/2031'})`;

@@ -1,7 +1,7 @@
 import { yearFraction } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
-import type { DepositQuote } from '../document/types.ts';
-import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
+import type { DepositQuote, Quote } from '../document/types.ts';
+import { CompiledInstrument, DISCOUNTING, type CurveRoles, type Instrument } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
 
 /**
@@ -47,15 +47,17 @@ class DepositInstrument extends SingleFlowInstrument<DepositQuote> {
 
 /**
  * A deposit starting after settlement: 0 at t_S and 1 + r tau at t_E against DF(t_S) read off the
- * curve. The residual (1 + r tau) DF(E) - DF(S) rises with the pillar's discount factor.
+ * curve. The residual (1 + r tau) DF(E) - DF(S) rises with the pillar's discount factor. Also a
+ * forward rate agreement on one curve (instruments/fra.ts), which fixes the same ratio DF(S)/DF(E)
+ * on the curve of its index, with its own curve roles.
  */
-class ForwardDeposit extends CompiledInstrument<DepositQuote> {
+export class ForwardDeposit<Q extends Quote = DepositQuote> extends CompiledInstrument<Q> {
   declare readonly tau: number;
   /** ln(1 + r tau), NaN when the quote implies a growth <= 0. */
   declare readonly lnGrowth: number;
 
-  constructor(q: DepositQuote, t: number, times: readonly number[], tau: number, rate: number) {
-    super(q, t, times, 'rate', 'rate', rate, [0, 1 + rate * tau], 1, null, DISCOUNTING);
+  constructor(q: Q, t: number, times: readonly number[], tau: number, rate: number, curves: CurveRoles = DISCOUNTING) {
+    super(q, t, times, 'rate', 'rate', rate, [0, 1 + rate * tau], 1, null, curves);
     this.tau = tau;
     this.lnGrowth = 1 + rate * tau > 0 ? Math.log1p(rate * tau) : Number.NaN;
   }
@@ -82,6 +84,6 @@ class ForwardDeposit extends CompiledInstrument<DepositQuote> {
   }
 
   requote(value: number): Instrument {
-    return new ForwardDeposit(this.quote, this.t, this.times, this.tau, value);
+    return new ForwardDeposit(this.quote, this.t, this.times, this.tau, value, this.curves);
   }
 }

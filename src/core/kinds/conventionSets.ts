@@ -82,6 +82,28 @@ export const CONVENTION_SETS: readonly ConventionSetDefinition[] = [
     fields: { bond: { frequency: 2, dayCount: 'ACT/ACT-ICMA', calendar: 'england-wales', spotLag: 1 } },
     note: 'gilts trade ex-dividend seven business days before a coupon; a gilt quoted in that window is priced here as if cum-dividend',
   },
+  {
+    id: 'eur-euribor-3m',
+    title: 'Euro EURIBOR 3M: deposits and FRAs on the three-month index',
+    fields: {
+      // EURIBOR: T+2 on TARGET, modified following and end of month for month tenors, ACT/360
+      // (MARKET-CONVENTIONS.md c and f; QuantLib euribor.cpp: 2 settlement days, TARGET,
+      // euriborConvention, euriborEOM, Actual360).
+      deposit: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360' },
+      fra: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360', index: '3M' },
+    },
+    note: 'one curve both projects the index and discounts (no separate overnight discounting curve yet)',
+  },
+  {
+    id: 'eur-euribor-6m',
+    title: 'Euro EURIBOR 6M: deposits and FRAs on the six-month index',
+    fields: {
+      // As EURIBOR 3M, on the six-month index (QuantLib euribor.cpp, the same conventions for every month tenor).
+      deposit: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360' },
+      fra: { calendar: 'target', spotLag: 2, businessDay: 'modified-following', eom: true, dayCount: 'ACT/360', index: '6M' },
+    },
+    note: 'one curve both projects the index and discounts (no separate overnight discounting curve yet)',
+  },
 ];
 
 export const CONVENTION_SET_IDS: readonly string[] = CONVENTION_SETS.map((s) => s.id);

@@ -2,7 +2,7 @@ import type { DepositQuote } from '../document/types.ts';
 import { compileDeposit } from '../instruments/deposit.ts';
 import { DISCOUNTING } from '../instruments/instrument.ts';
 import { ok } from '../result.ts';
-import { MAX_LAG, noCouponPeriod, readCalendar, readChoice, readDayCount, readRate, readWhole, required, RATE_TEXT } from './fields.ts';
+import { MAX_LAG, noCouponPeriod, readCalendar, readChoice, readDayCount, readEom, readRate, readWhole, required, RATE_TEXT } from './fields.ts';
 import { coreError } from '../result.ts';
 import { BUSINESS_DAY_RULES, type BusinessDayRule } from '../time/calendars.ts';
 import { civilFromIso, isoFromCivil } from '../time/date.ts';
@@ -12,19 +12,22 @@ import { flatDollarDuration, flatDollarDurationOf, quotedRateOrDefault } from '.
 import type { Instrument } from '../instruments/instrument.ts';
 import type { QuoteKindModule } from './types.ts';
 import { rateTag } from '../format/conventionTag.ts';
+import { conventionSet } from './conventionSets.ts';
 
 /**
  * Money-market deposit from its start S to maturity E at a simple rate r (decimal) on its day
  * count, default ACT/360: DF(S) / DF(E) = 1 + r tau(S, E) (instruments/deposit.ts). Quoted by rate
  * only. Tenors ON, TN, SN (time/depositDates.ts) and the optional fields `calendar` (default
- * `weekends`), `spotLag` (business days, default 0) and `businessDay` (an ordinary tenor's end,
- * default modified-following; only with a calendar or a spot lag). Without any of these a deposit
+ * `weekends`), `spotLag` (business days, default 0), `businessDay` (an ordinary tenor's end,
+ * default modified-following) and `eom` (the end-of-month rule for that end, default off), the
+ * last two only with a calendar or a spot lag. A deposit on a term index (a EURIBOR 3M deposit) is
+ * this kind with its index's conventions (kinds/conventionSets.ts `eur-euribor-3m`). Without any of these a deposit
  * runs from settlement to its maturity, unadjusted, exactly as before they existed.
  */
 export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   kind: 'deposit',
   schema: {
-    fields: ['rate', 'dayCount', 'calendar', 'spotLag', 'businessDay'],
+    fields: ['rate', 'dayCount', 'calendar', 'spotLag', 'businessDay', 'eom'],
     defaults: { dayCount: 'ACT/360' },
     read(raw, base, index, maturity, m, tenor, enabled, errors, settlement, calendars) {
       const rate = required(readRate(raw, base, index, errors, 'rate'), 'rate', RATE_TEXT, base, index, errors);
@@ -32,8 +35,9 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
       const term = tenor === null ? null : moneyMarketTerm(tenor);
       const hasConventions = raw.calendar !== undefined || raw.spotLag !== undefined;
       if (term === null && !hasConventions) {
-        if (raw.businessDay !== undefined) {
-          errors.push(coreError('schema', `${base}.businessDay`, `${base}.businessDay: a deposit's end is moved by a business-day rule only on a calendar; give calendar (such as "weekends") or spotLag with it, or remove businessDay`, index));
+        for (const field of ['businessDay', 'eom'] as const) {
+          if (raw[field] === undefined) continue;
+          errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: a deposit's end is moved by ${field === 'eom' ? 'the end-of-month rule' : 'a business-day rule'} only on a calendar; give calendar (such as "weekends") or spotLag with it, or remove ${field}`, index));
           return null;
         }
         // Today's deposit: from settlement to the maturity, unadjusted.
@@ -42,14 +46,20 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
       const calendar = readCalendar(raw, base, index, errors);
       const spotLag = readWhole(raw, base, index, errors, 'spotLag', 0, MAX_LAG, 'business days', 0);
       let businessDay: BusinessDayRule | null = null;
+      let eom: boolean | null | undefined;
       if (term !== null) {
-        if (raw.businessDay !== undefined) {
-          errors.push(coreError('schema', `${base}.businessDay`, `${base}.businessDay: ${tenor} counts business days on the calendar, so no business-day rule applies; remove businessDay`, index));
+        // A term index's set (eur-euribor-3m) fills businessDay and eom on every deposit it is named
+        // on; ON, TN and SN take the set's values without effect (a value of the quote's own is refused).
+        const set = typeof raw.conventions === 'string' ? conventionSet(raw.conventions)?.fields.deposit : undefined;
+        for (const field of ['businessDay', 'eom'] as const) {
+          if (raw[field] === undefined || raw[field] === set?.[field]) continue;
+          errors.push(coreError('schema', `${base}.${field}`, `${base}.${field}: ${tenor} counts business days on the calendar, so no ${field === 'eom' ? 'end-of-month rule' : 'business-day rule'} applies; remove ${field}`, index));
           return null;
         }
       } else {
         businessDay = readChoice(raw, base, index, errors, 'businessDay', BUSINESS_DAY_RULES, 'modified-following');
-        if (businessDay === null) return null;
+        eom = raw.eom === undefined ? undefined : readEom(raw, base, index, errors, false);
+        if (businessDay === null || eom === null) return null;
       }
       if (rate === null || !dayCount || calendar === null || spotLag === null || maturity === null) return null;
       if (settlement === undefined) {
@@ -59,14 +69,14 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
       }
       const parsed = tenor === null || term !== null ? null : parseTenor(tenor);
       const when = term !== null ? { term } : parsed !== null ? { tenor: parsed } : { end: civilFromIso(maturity) };
-      const dates = depositDates(civilFromIso(settlement), when, { calendar, spotLag, businessDay: businessDay ?? 'following', ...(calendars ? { calendars } : {}) }, base, index);
+      const dates = depositDates(civilFromIso(settlement), when, { calendar, spotLag, businessDay: businessDay ?? 'following', ...(eom ? { eom } : {}), ...(calendars ? { calendars } : {}) }, base, index);
       if (!dates.ok) {
         errors.push(...dates.errors);
         return null;
       }
       return {
         kind: 'deposit', index, maturity: isoFromCivil(dates.value.end), tenor, enabled, rate, dayCount,
-        start: isoFromCivil(dates.value.start), calendar, spotLag, businessDay, ...(calendars ? { calendars } : {}),
+        start: isoFromCivil(dates.value.start), calendar, spotLag, businessDay, ...(eom !== undefined && eom !== null ? { eom } : {}), ...(calendars ? { calendars } : {}),
         ...(dates.value.unadjustedEnd ? { unadjustedEnd: isoFromCivil(dates.value.unadjustedEnd) } : {}),
       };
     },

@@ -4,6 +4,7 @@ import { conventionSet } from './conventionSets.ts';
 import { BILL } from './bill.ts';
 import { BOND } from './bond.ts';
 import { DEPOSIT } from './deposit.ts';
+import { FRA } from './fra.ts';
 import { FUTURE } from './future.ts';
 import { OIS } from './ois.ts';
 import { PAR_YIELD } from './parYield.ts';
@@ -22,6 +23,7 @@ export const QUOTE_KIND_MODULES: { readonly [K in QuoteKind]: QuoteKindModule<Ex
   ois: OIS,
   'par-yield': PAR_YIELD,
   future: FUTURE,
+  fra: FRA,
 };
 
 /** The modules in QUOTE_KINDS order (the order kinds are listed in messages). */

@@ -191,4 +191,6 @@ export interface QuoteDates {
   readonly end: IsoDate;
   /** The last payment date (swaps and overnight-index swaps); null for the other kinds. */
   readonly payment: IsoDate | null;
+  /** The index's fixing date (an FRA's, two business days before its start); absent for the other kinds. */
+  readonly fixing?: IsoDate;
 }

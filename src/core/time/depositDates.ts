@@ -26,6 +26,8 @@ export interface DepositDateConventions {
   readonly spotLag: number;
   /** The business-day rule for the end of an ordinary tenor (not used by ON, TN, SN). */
   readonly businessDay: BusinessDayRule;
+  /** The end-of-month rule for an ordinary month or year tenor (absent: off): a spot on its month's last business day ends on a last business day. */
+  readonly eom?: boolean;
   /** The workspace's own calendars and edits (none: the built-ins as published). */
   readonly calendars?: CalendarContext;
 }
@@ -56,7 +58,7 @@ export function depositDates(
   base: string,
   index: number,
 ): Result<DepositDates> {
-  const set: ConventionSet = { name: `deposit on ${c.calendar}`, calendar: c.calendar, businessDay: c.businessDay, endOfMonth: false, spotLagDays: c.spotLag, ...(c.calendars ? { calendars: c.calendars } : {}) };
+  const set: ConventionSet = { name: `deposit on ${c.calendar}`, calendar: c.calendar, businessDay: c.businessDay, endOfMonth: c.eom === true, spotLagDays: c.spotLag, ...(c.calendars ? { calendars: c.calendars } : {}) };
   const s = serialFromCivil(settlement);
   const checked = quoteCalendar(set, s, base, index);
   if (!checked.ok) return checked;

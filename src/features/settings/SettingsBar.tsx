@@ -165,7 +165,7 @@ export const SettingsBar = memo(function SettingsBar() {
             ))}
           </select>
         </label>
-        <label title="Calendar, spot lag, business-day rule, payment lag and day counts for the deposit and OIS rows">
+        <label title="Calendar, spot lag, business-day rule, end-of-month rule, payment lag and day counts for the deposit, OIS and FRA rows">
           Market conventions
           <select value={curve.conventions ?? 'none'} onChange={(e) => setCurve({ conventions: e.target.value })}>
             {unknownOption(MARKET_CONVENTIONS, curve.conventions ?? 'none')}

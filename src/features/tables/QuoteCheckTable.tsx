@@ -33,7 +33,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
     <div className="quote-check">
       <div className="scroll-y" tabIndex={0} role="region" aria-label="Quote check (scrolls)">
         <table className="data" aria-label="Quote check">
-          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield or future row to see its schedule.</caption>
+          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield, future or FRA row to see its schedule.</caption>
           <thead>
             <tr>
               <th scope="col">Row</th>
@@ -98,8 +98,10 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
   const dc = schedule.dayCount ?? ('dayCount' in quote ? quote.dayCount : '');
   // Days of an averaged future show the business day whose rate each carries.
   const fixing = schedule.rows.some((r) => r.fixingDate !== undefined);
-  // Periods a calendar moves show their accrual end before and after the business-day rule.
+  // Periods a calendar moves show their accrual end (and an FRA its start) before and after the business-day rule.
   const moved = schedule.rows.some((r) => r.accrualEnd !== undefined);
+  const movedStart = schedule.rows.some((r) => r.unadjustedStart !== undefined);
+  const daily = fixing && schedule.fixing !== 'index';
   return (
     <div className="schedule">
       <table className="data" aria-label={`Schedule of row ${rowNumber}`}>
@@ -108,11 +110,12 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
         </caption>
         <thead>
           <tr>
-            <th scope="col">Period start</th>
+            {movedStart && <th scope="col">Period start, unadjusted</th>}
+            <th scope="col">{movedStart ? 'Period start, adjusted' : 'Period start'}</th>
             {moved && <th scope="col">Accrual end, unadjusted</th>}
             {moved && <th scope="col">Accrual end, adjusted</th>}
-            <th scope="col">{fixing ? 'Day end' : 'Payment date'}</th>
-            {fixing && <th scope="col">Rate of (fixing date)</th>}
+            <th scope="col">{daily ? 'Day end' : 'Payment date'}</th>
+            {fixing && <th scope="col">{daily ? 'Rate of (fixing date)' : 'Index fixing date'}</th>}
             <th scope="col">Year fraction ({dc})</th>
             <th scope="col">Cash flow (per 100)</th>
             <th scope="col">t (years)</th>
@@ -123,7 +126,8 @@ function ScheduleView({ rowNumber, quote, curve, settlement }: { rowNumber: numb
         <tbody>
           {schedule.rows.map((r) => (
             <tr key={r.end}>
-              <td>{r.start}</td>
+              {movedStart && <td>{r.unadjustedStart}</td>}
+              <td className={movedStart && r.unadjustedStart !== r.start ? 'moved-date' : undefined}>{r.start}</td>
               {moved && <td>{r.unadjustedAccrualEnd}</td>}
               {moved && <td className={r.unadjustedAccrualEnd !== r.accrualEnd ? 'moved-date' : undefined}>{r.accrualEnd}</td>}
               <td>{r.end}</td>

@@ -15,8 +15,9 @@ import { buildCurve, CONVENTION_SETS, conventionSet, INTERPOLATIONS, validateWor
 import { runCurveCommand } from '../../../src/cli/curveCommand.ts';
 
 /** A quote of `kind` with its value field (invented values). */
-const head = (kind: string, tenor: string): Record<string, unknown> =>
-  kind === 'bond' ? { kind, maturity: '2031-05-15', coupon: 0.04, cleanPrice: 101 } : kind === 'bill' ? { kind, tenor, discountYield: 0.03 } : kind === 'par-yield' ? { kind, tenor, yield: 0.03 } : { kind, tenor, rate: 0.03 };
+const head = (kind: string, tenor: string, fields: Readonly<Record<string, unknown>> = {}): Record<string, unknown> =>
+  // An FRA is dated by its period, six months from spot on the set's index.
+  kind === 'fra' ? { kind, period: `6x${6 + Number.parseInt(String(fields.index ?? '6M'), 10)}`, rate: 0.03 } : kind === 'bond' ? { kind, maturity: '2031-05-15', coupon: 0.04, cleanPrice: 101 } : kind === 'bill' ? { kind, tenor, discountYield: 0.03 } : kind === 'par-yield' ? { kind, tenor, yield: 0.03 } : { kind, tenor, rate: 0.03 };
 const doc = (quotes: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'tenorscope-workspace', version: 2, valuationDate: '2027-12-22', ...extra, quotes });
 
 describe('the sets hold the published conventions', () => {
@@ -34,7 +35,7 @@ describe('the sets hold the published conventions', () => {
   it('every field a set fills is one its kind takes, with a value the kind accepts (a quote with only the set validates)', () => {
     for (const set of CONVENTION_SETS) {
       for (const kind of Object.keys(set.fields)) {
-        const q = { ...head(kind, '1Y'), conventions: set.id };
+        const q = { ...head(kind, '1Y', set.fields[kind as keyof typeof set.fields]), conventions: set.id };
         const v = validateWorkspace(doc([q]));
         expect(v.errors, `${set.id} on a ${kind}`).toEqual([]);
       }
@@ -46,8 +47,8 @@ describe('a quote naming a set', () => {
   it('reads exactly as the same quote with the set\'s fields written out', () => {
     for (const set of CONVENTION_SETS) {
       for (const [kind, fields] of Object.entries(set.fields)) {
-        const named = validateWorkspace(doc([{ ...head(kind, '18M'), conventions: set.id }])).workspace!.quotes[0];
-        const spelt = validateWorkspace(doc([{ ...head(kind, '18M'), ...fields }])).workspace!.quotes[0];
+        const named = validateWorkspace(doc([{ ...head(kind, '18M', fields), conventions: set.id }])).workspace!.quotes[0];
+        const spelt = validateWorkspace(doc([{ ...head(kind, '18M', fields), ...fields }])).workspace!.quotes[0];
         expect(named, `${set.id} on a ${kind}`).toEqual(spelt);
       }
     }

@@ -73,6 +73,11 @@ const EXAMPLES = {
     { kind: 'future', month: '2027-06', price: 96.875 },
     { kind: 'future', contract: '1M', month: '2027-04', price: 96.9 },
   ],
+  // Forward rate agreements by period in months from spot; the sheet's Maturity cell holds the period.
+  fra: [
+    { kind: 'fra', period: '3x6', rate: 0.0312 },
+    { kind: 'fra', period: '6x12', rate: 0.0318, dayCount: 'ACT/365F' },
+  ],
 } satisfies Record<QuoteKind, readonly Record<string, string | number>[]>;
 
 /** An OIS with the date conventions, which have no sheet columns yet (README, instrument table). */
