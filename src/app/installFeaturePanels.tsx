@@ -84,13 +84,15 @@ function deferredPanel(name: string, load: () => Promise<ComponentType<PanelProp
   return { Panel, preload };
 }
 
-const roll = deferredPanel('roll versus term', () => import('../features/roll/RollSlot.tsx').then((m) => m.RollSlot));
-const scenarios = deferredPanel('scenarios', () => import('../features/scenarios/ScenariosTab.tsx').then((m) => m.ScenariosTab));
-const snapshots = deferredPanel('snapshots', () => import('../features/snapshots/SnapshotsTab.tsx').then((m) => m.SnapshotsTab));
-const fit = deferredPanel('smooth fit', () => import('../features/compare/FitSlot.tsx').then((m) => m.FitSlot));
+/** The panels' one module (featurePanels.ts), fetched once for all of them. */
+const panels = () => import('./featurePanels.ts');
+const roll = deferredPanel('roll versus term', () => panels().then((m) => m.RollSlot));
+const scenarios = deferredPanel('scenarios', () => panels().then((m) => m.ScenariosTab));
+const snapshots = deferredPanel('snapshots', () => panels().then((m) => m.SnapshotsTab));
+const fit = deferredPanel('smooth fit', () => panels().then((m) => m.FitSlot));
 const risk = deferredPanel('bond and sensitivities', () =>
-  Promise.all([import('../features/risk/BondAnalyticsPanel.tsx'), import('../features/risk/SensitivityHeatMap.tsx')]).then(
-    ([{ BondAnalyticsPanel }, { SensitivityHeatMap }]) =>
+  panels().then(
+    ({ BondAnalyticsPanel, SensitivityHeatMap }) =>
       ({ result }: PanelProps) => (
         <div className="stack">
           <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} />
@@ -100,20 +102,20 @@ const risk = deferredPanel('bond and sensitivities', () =>
   ),
 );
 const print = deferredPanel('print', () =>
-  Promise.all([import('../features/print/PrintTab.tsx'), import('../features/roll/RollSlot.tsx')]).then(
-    ([{ PrintTab }, { RollResultLine }]) =>
+  panels().then(
+    ({ PrintTab, RollResultLine }) =>
       ({ result }: PanelProps) => <PrintTab result={result} rollResult={<RollResultLine result={result} />} />,
   ),
 );
 const printOnDemand = deferredPanel('print on demand', () =>
-  Promise.all([import('../features/print/PrintOnDemand.tsx'), import('../features/roll/RollSlot.tsx')]).then(
-    ([{ PrintOnDemand }, { RollResultLine }]) =>
+  panels().then(
+    ({ PrintOnDemand, RollResultLine }) =>
       ({ result }: PanelProps) => <PrintOnDemand result={result} rollResult={<RollResultLine result={result} />} />,
   ),
   { quiet: true },
 );
-const holidays = deferredPanel('holidays', () => import('../features/calendars/HolidaysTab.tsx').then((m) => () => <m.HolidaysTab />));
-const fixings = deferredPanel('fixings', () => import('../features/calendars/FixingsTab.tsx').then((m) => () => <m.FixingsTab />));
+const holidays = deferredPanel('holidays', () => panels().then((m) => () => <m.HolidaysTab />));
+const fixings = deferredPanel('fixings', () => panels().then((m) => () => <m.FixingsTab />));
 const ALL = [roll, scenarios, snapshots, fit, risk, holidays, fixings, print, printOnDemand];
 
 /** Fetches every feature panel's code; resolves when all can render at once. */
