@@ -48,3 +48,7 @@ export * from './scenarios/index.ts';
 export * from './roll/index.ts';
 export * from './export/index.ts';
 export * from './format/index.ts';
+export * from './curve/overnightView.ts';
+export { turnLn, turnForward, type TurnSpan } from './bootstrap/turns.ts';
+export type { MeetingNode } from './bootstrap/meetingSteps.ts';
+export { MAX_TURNS, MAX_EFFECTIVE_DATES, TURN_SPREAD_MAX_BP } from './document/overnightSections.ts';

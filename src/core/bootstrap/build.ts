@@ -4,11 +4,13 @@ import { KIND_MODULE_LIST, moduleOf, quoteDates } from '../kinds/registry.ts';
 import { compareIso } from '../time/date.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
-import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
+import { curveClock, curveTime, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
 import { validateWorkspace, type ValidationOutcome } from '../document/validate.ts';
-import type { BootstrapOutcome, Repricing } from './bootstrap.ts';
+import type { BootstrapOutcome, BootstrapSettings, Repricing } from './bootstrap.ts';
+import { resolveTurns } from './turns.ts';
+import type { MeetingNode } from './meetingSteps.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
 
 const NO_CURVES: CurveSet = {};
@@ -172,18 +174,22 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   for (const q of ws.quotes) {
     if (!q.enabled) leftOut.push({ index: q.index, reason: 'disabled', message: `quotes[${q.index}] is switched off` });
   }
-  const settings = {
+  const plain: BootstrapSettings = {
     settlement: ws.settlement,
     dayCount: ws.curve.dayCount,
     interpolation: options.interpolation ?? ws.curve.interpolation,
     extrapolation: options.extrapolation ?? ws.curve.extrapolation,
   };
+  // Turns and meeting steps (absent from a document: the plain settings, today's numbers exactly).
+  const shaped = ws.turns === undefined && ws.meetingSteps === undefined ? { settings: plain, errors: [] } : overnightSettings(ws, plain);
+  const settings = shaped.settings;
   for (const e of market.duplicates) {
     warnings.push({ path: e.path, quote: e.quote, code: 'skipped', message: `skipped: ${e.message}` });
     leftOut.push({ index: e.quote!, reason: 'invalid', message: e.message });
   }
   const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws, instruments: [], sweeps: 0 };
   if (market.errors.length > 0) return { ...base, curve: null, curves: NO_CURVES, errors: market.errors, warnings, repricing: [] };
+  if (shaped.errors.length > 0) return { ...base, curve: null, curves: NO_CURVES, errors: shaped.errors, warnings, repricing: [] };
   if (market.instruments.length === 0) {
     return {
       ...base,
@@ -202,7 +208,7 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   const repricing = outcome.repricing.every((r, i) => i === 0 || outcome.repricing[i - 1]!.index < r.index) ? outcome.repricing : [...outcome.repricing].sort(byIndex);
   const gap = outcome.curve ? spotGap(ws, market.instruments, settings.interpolation) : null;
   if (gap) warnings.push(gap);
-  return {
+  const built: CurveBuild = {
     leftOut: base.leftOut,
     workspace: ws,
     instruments: outcome.curve ? market.instruments : [],
@@ -213,6 +219,20 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
     repricing,
     sweeps: outcome.sweeps,
   };
+  return outcome.overnight === undefined ? built : { ...built, overnight: outcome.overnight };
+}
+
+/**
+ * The bootstrap settings with the workspace's turns (placed on the curve's axis, on the business
+ * days of each turn's calendar) and, when meeting steps are on, its effective dates as nodes.
+ */
+function overnightSettings(ws: Workspace, plain: BootstrapSettings): { settings: BootstrapSettings; errors: CoreError[] } {
+  const { spans, errors } = resolveTurns(ws.turns ?? [], ws.settlement, ws.curve.dayCount, ws.quotes, ws.calendars);
+  const steps = ws.meetingSteps;
+  const meetings: MeetingNode[] | undefined = steps?.on === true ? steps.effectiveDates.map((date, index) => ({ date, index, t: curveTime(ws.curve.dayCount, ws.settlement, date) })) : undefined;
+  let settings: BootstrapSettings = spans.length > 0 ? { ...plain, turns: spans } : plain;
+  if (meetings !== undefined) settings = { ...settings, meetings };
+  return { settings, errors };
 }
 
 /**
