@@ -47,7 +47,7 @@ export const workbenchBuilder = new CurveBuilder();
 
 /** Builds the curve from the document's inputs (engine document, then the workbench builder with skipInvalid). */
 export function deriveBuild(
-  ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve' | 'calendars' | 'customCalendars'> & { readonly display?: Pick<WorkbenchDocument['display'], 'dateOrder' | 'decimalMark'> },
+  ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve' | 'calendars' | 'customCalendars' | 'turns' | 'meetingSteps'> & { readonly display?: Pick<WorkbenchDocument['display'], 'dateOrder' | 'decimalMark'> },
   interpolation?: WorkbenchDocument['curve']['interpolation']): WorkbenchBuild {
   if (!isQuoteUnitMode(ws.quoteUnit)) {
     // A read-only document from another build (see the store's readOnly): its quote unit is not one
@@ -95,6 +95,8 @@ interface BuildInputs {
   readonly curve: WorkbenchDocument['curve'];
   readonly calendars: WorkbenchDocument['calendars'];
   readonly customCalendars: WorkbenchDocument['customCalendars'];
+  readonly turns: WorkbenchDocument['turns'];
+  readonly meetingSteps: WorkbenchDocument['meetingSteps'];
   readonly dateOrder: WorkbenchDocument['display']['dateOrder'];
   readonly decimalMark: WorkbenchDocument['display']['decimalMark'];
 }
@@ -103,20 +105,29 @@ interface BuildInputs {
 let lastBase: { readonly inputs: BuildInputs; readonly result: WorkbenchBuild } | null = null;
 
 const sameInputs = (a: BuildInputs, b: BuildInputs): boolean =>
-  a.quotes === b.quotes && a.quoteUnit === b.quoteUnit && a.settlement === b.settlement && a.curve === b.curve && a.calendars === b.calendars && a.customCalendars === b.customCalendars && a.dateOrder === b.dateOrder && a.decimalMark === b.decimalMark;
+  a.quotes === b.quotes && a.quoteUnit === b.quoteUnit && a.settlement === b.settlement && a.curve === b.curve && a.calendars === b.calendars && a.customCalendars === b.customCalendars && a.turns === b.turns && a.meetingSteps === b.meetingSteps && a.dateOrder === b.dateOrder && a.decimalMark === b.decimalMark;
 
 /** deriveBuild of these inputs, or the last result when they are the very same objects (a pure function's result, reused). */
 function baseBuild(inputs: BuildInputs): WorkbenchBuild {
   if (lastBase && sameInputs(lastBase.inputs, inputs)) return lastBase.result;
-  const { quotes, quoteUnit, settlement, curve, calendars, customCalendars, dateOrder, decimalMark } = inputs;
-  const result = deriveBuild({ quotes, quoteUnit, settlement, curve, ...(calendars === undefined ? {} : { calendars }), ...(customCalendars === undefined ? {} : { customCalendars }), display: { dateOrder, decimalMark } });
+  const { quotes, quoteUnit, settlement, curve, calendars, customCalendars, turns, meetingSteps, dateOrder, decimalMark } = inputs;
+  const result = deriveBuild({
+    quotes,
+    quoteUnit,
+    settlement,
+    curve,
+    ...(calendars === undefined ? {} : { calendars }),
+    ...(customCalendars === undefined ? {} : { customCalendars }),
+    ...(turns === undefined ? {} : { turns }),
+    ...(meetingSteps === undefined ? {} : { meetingSteps }),
+    display: { dateOrder, decimalMark } });
   lastBase = { inputs, result };
   return result;
 }
 
 /** The base build of a document, as useCurveBuild derives it (reused while its inputs are the same objects). */
 export const baseBuildOf = (ws: WorkbenchDocument): WorkbenchBuild =>
-  baseBuild({ quotes: ws.quotes, quoteUnit: ws.quoteUnit, settlement: ws.settlement, curve: ws.curve, calendars: ws.calendars, customCalendars: ws.customCalendars, dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark });
+  baseBuild({ quotes: ws.quotes, quoteUnit: ws.quoteUnit, settlement: ws.settlement, curve: ws.curve, calendars: ws.calendars, customCalendars: ws.customCalendars, turns: ws.turns, meetingSteps: ws.meetingSteps, dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark });
 
 /** The base curve of the workspace, rebuilt only when its inputs change. */
 export function useCurveBuild(): WorkbenchBuild {
@@ -126,7 +137,12 @@ export function useCurveBuild(): WorkbenchBuild {
   const curve = useAppStore((s) => s.workspace.curve);
   const calendars = useAppStore((s) => s.workspace.calendars);
   const customCalendars = useAppStore((s) => s.workspace.customCalendars);
+  const turns = useAppStore((s) => s.workspace.turns);
+  const meetingSteps = useAppStore((s) => s.workspace.meetingSteps);
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
-  return useMemo(() => baseBuild({ quotes, quoteUnit, settlement, curve, calendars, customCalendars, dateOrder, decimalMark }), [quotes, quoteUnit, settlement, curve, calendars, customCalendars, dateOrder, decimalMark]);
+  return useMemo(
+    () => baseBuild({ quotes, quoteUnit, settlement, curve, calendars, customCalendars, turns, meetingSteps, dateOrder, decimalMark }),
+    [quotes, quoteUnit, settlement, curve, calendars, customCalendars, turns, meetingSteps, dateOrder, decimalMark],
+  );
 }
