@@ -113,7 +113,8 @@ const printOnDemand = deferredPanel('print on demand', () =>
   { quiet: true },
 );
 const holidays = deferredPanel('holidays', () => import('../features/calendars/HolidaysTab.tsx').then((m) => () => <m.HolidaysTab />));
-const ALL = [roll, scenarios, snapshots, fit, risk, holidays, print, printOnDemand];
+const overnight = deferredPanel('overnight curve', () => import('../features/overnight/OvernightTab.tsx').then((m) => m.OvernightTab));
+const ALL = [roll, scenarios, snapshots, fit, risk, holidays, overnight, print, printOnDemand];
 
 /** Fetches every feature panel's code; resolves when all can render at once. */
 export function preloadFeaturePanels(): Promise<void> {
@@ -138,6 +139,7 @@ export function installFeaturePanels(options: { preload?: boolean } = {}): Promi
       { id: 'fit', label: 'Smooth fit', render: ({ result }) => <fit.Panel result={result} /> },
       { id: 'risk', label: 'Bond and sensitivities', render: ({ result }) => <risk.Panel result={result} /> },
       { id: 'holidays', label: 'Holidays', render: ({ result }) => <holidays.Panel result={result} /> },
+      { id: 'overnight', label: 'Overnight curve', render: ({ result }) => <overnight.Panel result={result} /> },
       { id: 'print', label: 'Print', render: ({ result }) => <print.Panel result={result} /> },
     );
   }

@@ -52,3 +52,5 @@ export * from './curve/overnightView.ts';
 export { turnLn, turnForward, type TurnSpan } from './bootstrap/turns.ts';
 export type { MeetingNode } from './bootstrap/meetingSteps.ts';
 export { MAX_TURNS, MAX_EFFECTIVE_DATES, TURN_SPREAD_MAX_BP } from './document/overnightSections.ts';
+export { readTurns, readMeetingSteps } from './document/overnightSections.ts';
+export { readTurnLines, type TurnLinesReading } from './input/turnLines.ts';

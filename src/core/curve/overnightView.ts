@@ -11,6 +11,7 @@ import { turnLn, type TurnSpan } from '../bootstrap/turns.ts';
 import type { IsoDate } from '../time/date.ts';
 import { compareIso } from '../time/date.ts';
 import { calendarDays, dayAfter, dayBefore } from '../time/turnDays.ts';
+import { resolveMarketDate } from '../time/dateConventions.ts';
 
 /** The convention of every rate here: simple, ACT/360, over one calendar day. */
 export const OVERNIGHT_CONVENTION = { compounding: 'simple', dayCount: 'ACT/360' } as const;
@@ -65,4 +66,36 @@ export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>)
     const after = oneDay(curve, smooth, m.date);
     return { date: m.date, before, after, stepBp: (after - before) * 1e4 };
   });
+}
+
+/** The overnight forward view of a build: what the chart draws, all on the curve's axis (years). */
+export interface OvernightView {
+  /** One point per calendar day: the one-day forward from that day, simple ACT/360. */
+  readonly points: readonly (OvernightPoint & { readonly t: number })[];
+  /** The drawn range's end (the valuation date plus `years`, or the last pillar when sooner). */
+  readonly end: IsoDate;
+  readonly endT: number;
+  /** Meeting nodes inside the range (meeting steps on). */
+  readonly meetings: readonly { readonly date: IsoDate; readonly t: number }[];
+  /** Turns inside the range: their days as [start, end) with times, and the spread in bp. */
+  readonly turns: readonly { readonly name: string; readonly start: IsoDate; readonly end: IsoDate; readonly a: number; readonly b: number; readonly spreadBp: number }[];
+}
+
+/**
+ * The one-day forward curve for the next `years` years from the valuation date (cut at the last
+ * pillar), with the meeting dates and turns inside that range. Null without a curve.
+ */
+export function overnightForwardView(build: Pick<CurveBuild, 'curve' | 'overnight'>, years = 3): OvernightView | null {
+  const curve = build.curve;
+  if (curve === null) return null;
+  const horizon = resolveMarketDate(curve.settlement, `${years}Y`);
+  if (!horizon.ok) return null;
+  const last = curve.pillars[curve.pillars.length - 1];
+  const end = last !== undefined && compareIso(last.date, horizon.value) < 0 ? last.date : horizon.value;
+  const points = overnightForwards(curve, curve.settlement, end).map((p) => ({ ...p, t: curve.time(p.date) }));
+  const endT = curve.time(end);
+  const shape = build.overnight;
+  const meetings = (shape?.meetings ?? []).filter((m) => m.t <= endT).map((m) => ({ date: m.date, t: m.t }));
+  const turns = (shape?.turns ?? []).filter((s) => s.a < endT).map((s) => ({ name: s.name, start: s.start, end: s.end, a: s.a, b: s.b, spreadBp: s.spread * 1e4 }));
+  return { points, end, endT, meetings, turns };
 }
