@@ -54,3 +54,4 @@ export type { MeetingNode } from './bootstrap/meetingSteps.ts';
 export { MAX_TURNS, MAX_EFFECTIVE_DATES, TURN_SPREAD_MAX_BP } from './document/overnightSections.ts';
 export { readTurns, readMeetingSteps } from './document/overnightSections.ts';
 export { readTurnLines, type TurnLinesReading } from './input/turnLines.ts';
+export { OVERNIGHT_KIT, type OvernightKit } from './bootstrap/overnightKit.ts';

@@ -1,5 +1,6 @@
 import { useMemo } from 'react';
-import { buildCurve, CurveBuilder, type CurveBuild } from '../core/index.ts';
+import { buildCurve, CurveBuilder, type CurveBuild, type OvernightKit } from '../core/index.ts';
+import { loadedOvernightKit, needsOvernightKit, useOvernightKit } from './overnightKit.ts';
 import {
   isQuoteUnitMode,
   parseRow,
@@ -58,7 +59,10 @@ export function deriveBuild(
     return { conversion, build, rowIssues: [], invalidCount: 0, disabledCount: 0, fatal };
   }
   const conversion = toEngineDocument(ws, parseRowCached);
-  const build = workbenchBuilder.build(conversion.doc, interpolation ? { skipInvalid: true, interpolation } : { skipInvalid: true });
+  // The code of turns and steps when it has been loaded (overnightKit.ts); a document without them does not need it.
+  const kit = loadedOvernightKit();
+  const base = kit ? { skipInvalid: true, overnight: kit } : { skipInvalid: true };
+  const build = workbenchBuilder.build(conversion.doc, interpolation ? { ...base, interpolation } : base);
   const fromEngine = rowIssuesFromEngine(
     [...build.errors, ...build.warnings.filter((w) => w.code === 'skipped' || w.code === 'negative-forward' || w.code === 'spot-gap').map((w) => ({ ...w, message: w.message.replace(/^skipped: /, '') }))],
     conversion.rowOfQuote,
@@ -97,6 +101,8 @@ interface BuildInputs {
   readonly customCalendars: WorkbenchDocument['customCalendars'];
   readonly turns: WorkbenchDocument['turns'];
   readonly meetingSteps: WorkbenchDocument['meetingSteps'];
+  /** The code of turns and steps, once loaded (so its arrival derives the build again). */
+  readonly kit: OvernightKit | null;
   readonly dateOrder: WorkbenchDocument['display']['dateOrder'];
   readonly decimalMark: WorkbenchDocument['display']['decimalMark'];
 }
@@ -105,7 +111,7 @@ interface BuildInputs {
 let lastBase: { readonly inputs: BuildInputs; readonly result: WorkbenchBuild } | null = null;
 
 const sameInputs = (a: BuildInputs, b: BuildInputs): boolean =>
-  a.quotes === b.quotes && a.quoteUnit === b.quoteUnit && a.settlement === b.settlement && a.curve === b.curve && a.calendars === b.calendars && a.customCalendars === b.customCalendars && a.turns === b.turns && a.meetingSteps === b.meetingSteps && a.dateOrder === b.dateOrder && a.decimalMark === b.decimalMark;
+  a.quotes === b.quotes && a.quoteUnit === b.quoteUnit && a.settlement === b.settlement && a.curve === b.curve && a.calendars === b.calendars && a.customCalendars === b.customCalendars && a.turns === b.turns && a.meetingSteps === b.meetingSteps && a.kit === b.kit && a.dateOrder === b.dateOrder && a.decimalMark === b.decimalMark;
 
 /** deriveBuild of these inputs, or the last result when they are the very same objects (a pure function's result, reused). */
 function baseBuild(inputs: BuildInputs): WorkbenchBuild {
@@ -127,7 +133,7 @@ function baseBuild(inputs: BuildInputs): WorkbenchBuild {
 
 /** The base build of a document, as useCurveBuild derives it (reused while its inputs are the same objects). */
 export const baseBuildOf = (ws: WorkbenchDocument): WorkbenchBuild =>
-  baseBuild({ quotes: ws.quotes, quoteUnit: ws.quoteUnit, settlement: ws.settlement, curve: ws.curve, calendars: ws.calendars, customCalendars: ws.customCalendars, turns: ws.turns, meetingSteps: ws.meetingSteps, dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark });
+  baseBuild({ quotes: ws.quotes, quoteUnit: ws.quoteUnit, settlement: ws.settlement, curve: ws.curve, calendars: ws.calendars, customCalendars: ws.customCalendars, turns: ws.turns, meetingSteps: ws.meetingSteps, kit: loadedOvernightKit(), dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark });
 
 /** The base curve of the workspace, rebuilt only when its inputs change. */
 export function useCurveBuild(): WorkbenchBuild {
@@ -139,10 +145,11 @@ export function useCurveBuild(): WorkbenchBuild {
   const customCalendars = useAppStore((s) => s.workspace.customCalendars);
   const turns = useAppStore((s) => s.workspace.turns);
   const meetingSteps = useAppStore((s) => s.workspace.meetingSteps);
+  const kit = useOvernightKit(needsOvernightKit({ turns, meetingSteps }));
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   return useMemo(
-    () => baseBuild({ quotes, quoteUnit, settlement, curve, calendars, customCalendars, turns, meetingSteps, dateOrder, decimalMark }),
-    [quotes, quoteUnit, settlement, curve, calendars, customCalendars, turns, meetingSteps, dateOrder, decimalMark],
+    () => baseBuild({ quotes, quoteUnit, settlement, curve, calendars, customCalendars, turns, meetingSteps, kit, dateOrder, decimalMark }),
+    [quotes, quoteUnit, settlement, curve, calendars, customCalendars, turns, meetingSteps, kit, dateOrder, decimalMark],
   );
 }

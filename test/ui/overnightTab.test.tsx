@@ -8,6 +8,7 @@
 import { act, fireEvent, render, screen, within } from '@testing-library/react';
 import { OvernightTab } from '../../src/features/overnight/OvernightTab.tsx';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { formatBpChange, meetingStepTable, workbenchFromEngine } from '../../src/core/index.ts';
 
@@ -31,6 +32,9 @@ function Live() {
   const result = useCurveBuild();
   return <OvernightTab result={result} />;
 }
+
+// The code of turns and steps is fetched on first use in the app; here it is loaded before the tests.
+beforeAll(() => loadOvernightKit());
 
 beforeEach(() => {
   useAppStore.setState(useAppStore.getInitialState(), true);

@@ -1,4 +1,4 @@
-import { curveFromNodes, type Curve, type Extrapolation, type Pillar } from '../curve/curve.ts';
+import { curveFromLnDiscount, curveFromNodes, frameOf, type Curve, type Extrapolation, type Pillar } from '../curve/curve.ts';
 import { INTERPOLATORS } from '../interpolation/registry.ts';
 import { zeros, type InterpolationId, type InterpolatorSpec } from '../interpolation/types.ts';
 import type { Instrument, QuoteUnit } from '../instruments/instrument.ts';
@@ -12,8 +12,10 @@ import { rateTag } from '../format/conventionTag.ts';
 import { FlowTable } from './flowTable.ts';
 import { jointNewton } from './jointNewton.ts';
 import { nodeSolverFor, type BootstrapNodes } from './nodeSolvers.ts';
-import { turnedCurve, turnsBeyond, withTurns, type TurnSpan } from './turns.ts';
-import { stepNodes, type MeetingNode, type StepNodes } from './meetingSteps.ts';
+// Types only: the code of turns and steps comes in `settings.kit` (overnightKit.ts), loaded on first use.
+import type { TurnSpan } from './turns.ts';
+import type { MeetingNode, StepNodes } from './meetingSteps.ts';
+import type { OvernightKit } from './overnightKit.ts';
 
 /** How one quote came back on the built curve. */
 export interface Repricing {
@@ -61,6 +63,8 @@ export interface BootstrapSettings {
    * discount factors whatever `interpolation` says. Absent: steps off.
    */
   readonly meetings?: readonly MeetingNode[];
+  /** The code of turns and steps (overnightKit.ts); set with `turns` or `meetings`. */
+  readonly kit?: OvernightKit;
 }
 
 export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? PRICE_ACCEPTANCE : RATE_ACCEPTANCE);
@@ -87,15 +91,17 @@ export function bootstrapInstruments(given: BootstrapSettings, market: readonly 
   // Turns and meeting steps (absent: nothing below changes). The turns must end by the last
   // pillar; the step rule decides each instrument's node.
   const spans = given.turns ?? [];
+  const kit = given.kit;
   const lastIns = market[market.length - 1];
+  if ((spans.length > 0 || given.meetings !== undefined) && kit === undefined) return failed([kitMissing()]);
   if (spans.length > 0 && lastIns !== undefined) {
-    const beyond = turnsBeyond(spans, lastIns.t, lastIns.maturity);
+    const beyond = kit!.turnsBeyond(spans, lastIns.t, lastIns.maturity);
     if (beyond.length > 0) return failed(beyond);
   }
-  const instruments = withTurns(market, spans);
+  const instruments = spans.length === 0 ? market : kit!.withTurns(market, spans);
   let step: StepNodes | null = null;
   if (given.meetings !== undefined && lastIns !== undefined) {
-    const s = stepNodes(instruments, given.meetings, given.settlement);
+    const s = kit!.stepNodes(instruments, given.meetings, given.settlement);
     if (Array.isArray(s)) return failed(s);
     step = s;
   }
@@ -126,7 +132,7 @@ export function bootstrapInstruments(given: BootstrapSettings, market: readonly 
   // y_k exactly at a pillar; a test checks it). A local method's segment solver left the curve's
   // own values at every flow in the table: no later node moves a flow's segment.
   const smooth = curveOnNodes(settings, spec, nodes, step);
-  const curve = turnedCurve(smooth, spans);
+  const curve = spans.length === 0 ? smooth : turnedCurve(smooth, spans, kit!);
   // The instruments read the smooth curve here (turned ones add the turns to it themselves).
   repricing ??= pass.writesFlowTable ? tableRepricing(nodes) : reprice(nodes, smooth.lnDiscountAt);
   const refused = acceptanceFailure(repricing);
@@ -284,6 +290,24 @@ function reprice(nodes: BootstrapNodes, lnDiscountAt: (t: number) => number): Re
 function tableRepricing({ instruments, flows }: BootstrapNodes): Repricing[] {
   return repricingRows(instruments, flows.modelQuotes(instruments));
 }
+
+/**
+ * The curve with the turns on the smooth one: ln DF + ln J, forward + the turns' share, each
+ * pillar's discount factor with its jump (bootstrap/turns.ts). Here rather than in the kit so the
+ * kit's chunk needs no curve code of its own.
+ */
+function turnedCurve(smooth: Curve, spans: readonly TurnSpan[], kit: OvernightKit): Curve {
+  const pillars = smooth.pillars.map((p) => ({ ...p, discount: Math.exp(smooth.lnDiscountAt(p.t) + kit.turnLn(spans, p.t)) }));
+  return curveFromLnDiscount(
+    { ...frameOf(smooth), pillars },
+    { lnDiscount: (t) => smooth.lnDiscountAt(t) + kit.turnLn(spans, t), forward: (t) => smooth.forwardAt(t) + kit.turnForward(spans, t) },
+    'as-given',
+  );
+}
+
+/** The error of a build asked for turns or steps without their code (overnightKit.ts). */
+export const kitMissing = (): CoreError =>
+  coreError('no-solution', '', 'the turns and meeting steps are still loading; the curve is built as soon as they are (a caller of the engine passes OVERNIGHT_KIT in the build options)');
 
 function failed(errors: CoreError[]): BootstrapOutcome {
   return { curve: null, errors, warnings: [], repricing: [], sweeps: 0 };

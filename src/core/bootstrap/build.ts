@@ -4,13 +4,13 @@ import { KIND_MODULE_LIST, moduleOf, quoteDates } from '../kinds/registry.ts';
 import { compareIso } from '../time/date.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
-import { curveClock, curveTime, type CurveDayCount } from '../time/dayCount.ts';
+import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
 import { validateWorkspace, type ValidationOutcome } from '../document/validate.ts';
 import type { BootstrapOutcome, BootstrapSettings, Repricing } from './bootstrap.ts';
-import { resolveTurns } from './turns.ts';
-import type { MeetingNode } from './meetingSteps.ts';
+import { kitMissing } from './bootstrap.ts';
+import type { OvernightKit } from './overnightKit.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
 
 const NO_CURVES: CurveSet = {};
@@ -50,6 +50,11 @@ export interface BuildOptions {
   readonly interpolation?: InterpolationId;
   /** Overrides the document's `curve.extrapolation`. */
   readonly extrapolation?: Extrapolation;
+  /**
+   * The code of turns and meeting steps (OVERNIGHT_KIT, bootstrap/overnightKit.ts), needed only by a
+   * document that has them: without it such a document builds no curve and says why.
+   */
+  readonly overnight?: OvernightKit;
 }
 
 /** Compiles one validated quote against a settlement date and curve day count. */
@@ -181,7 +186,8 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
     extrapolation: options.extrapolation ?? ws.curve.extrapolation,
   };
   // Turns and meeting steps (absent from a document: the plain settings, today's numbers exactly).
-  const shaped = ws.turns === undefined && ws.meetingSteps === undefined ? { settings: plain, errors: [] } : overnightSettings(ws, plain);
+  const shaped =
+    (ws.turns?.length ?? 0) === 0 && ws.meetingSteps?.on !== true ? { settings: plain, errors: [] } : options.overnight ? overnightSettings(ws, plain, options.overnight) : { settings: plain, errors: [kitMissing()] };
   const settings = shaped.settings;
   for (const e of market.duplicates) {
     warnings.push({ path: e.path, quote: e.quote, code: 'skipped', message: `skipped: ${e.message}` });
@@ -222,18 +228,6 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   return outcome.overnight === undefined ? built : { ...built, overnight: outcome.overnight };
 }
 
-/**
- * The bootstrap settings with the workspace's turns (placed on the curve's axis, on the business
- * days of each turn's calendar) and, when meeting steps are on, its effective dates as nodes.
- */
-function overnightSettings(ws: Workspace, plain: BootstrapSettings): { settings: BootstrapSettings; errors: CoreError[] } {
-  const { spans, errors } = resolveTurns(ws.turns ?? [], ws.settlement, ws.curve.dayCount, ws.quotes, ws.calendars);
-  const steps = ws.meetingSteps;
-  const meetings: MeetingNode[] | undefined = steps?.on === true ? steps.effectiveDates.map((date, index) => ({ date, index, t: curveTime(ws.curve.dayCount, ws.settlement, date) })) : undefined;
-  let settings: BootstrapSettings = spans.length > 0 ? { ...plain, turns: spans } : plain;
-  if (meetings !== undefined) settings = { ...settings, meetings };
-  return { settings, errors };
-}
 
 /**
  * The warning for a curve that reaches spot without quotes that link it there: the earliest start
@@ -261,4 +255,10 @@ function spotGap(ws: Workspace, instruments: readonly Instrument[], interpolatio
     code: 'spot-gap',
     message: `quotes[${found.index}] starts on ${found.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${first}: the discount factor there is bridged from 1 at the valuation date ${rule}; add quotes that end by then to link the curve to it (ON and TN deposits on the same calendar for a spot start)`,
   };
+}
+
+/** The kit's settings on the curve's clock of the compiled instruments (curveClock: the same values as curveTime). */
+function overnightSettings(ws: Workspace, plain: BootstrapSettings, kit: OvernightKit): { settings: BootstrapSettings; errors: readonly CoreError[] } {
+  const clock = curveClock(ws.curve.dayCount, civilFromIso(ws.settlement));
+  return kit.settingsFor(ws, plain, (date) => clock(civilFromIso(date)));
 }

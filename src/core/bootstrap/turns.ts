@@ -14,16 +14,14 @@
  * In the bootstrap the instruments see the turned curve and the smooth curve is what the
  * interpolation carries: each instrument is wrapped (`TurnedInstrument`) so that its flows are
  * valued at ln DF_smooth + ln J, and the built curve is the smooth one with the jumps put back
- * (`turnedCurve`). Days between two times are read on the curve's own clock: within a turn
+ * (`turnedCurve` in bootstrap.ts). Days between two times are read on the curve's own clock: within a turn
  * d_j(t) = D_j (t - a_j) / (b_j - a_j), exact for the ACT day counts (linear in days).
  */
-import { curveFromLnDiscount, frameOf, type Curve } from '../curve/curve.ts';
 import type { Instrument } from '../instruments/instrument.ts';
 import type { Quote, Turn } from '../document/types.ts';
 import { coreError, type CoreError } from '../result.ts';
 import { businessCalendar, type CalendarContext } from '../time/calendars.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
-import { curveTime, type CurveDayCount } from '../time/dayCount.ts';
 import { turnDays } from '../time/turnDays.ts';
 
 /** A turn placed on the curve's axis. */
@@ -62,7 +60,7 @@ export function turnCalendarId(turn: Turn, quotes: readonly Quote[]): string {
 export function resolveTurns(
   turns: readonly Turn[],
   settlement: IsoDate,
-  dayCount: CurveDayCount,
+  time: (date: IsoDate) => number,
   quotes: readonly Quote[],
   calendars: CalendarContext,
 ): { spans: TurnSpan[]; errors: CoreError[] } {
@@ -85,8 +83,8 @@ export function resolveTurns(
       errors.push(coreError('before-settlement', `${path}.from`, `turn "${turn.name}" (${path}) starts on ${days.start}, before the valuation date ${settlement}; move it on or after ${settlement} or remove it`));
       return;
     }
-    const a = curveTime(dayCount, settlement, days.start);
-    const b = curveTime(dayCount, settlement, days.end);
+    const a = time(days.start);
+    const b = time(days.end);
     const spread = turn.spreadBp / 1e4;
     spans.push({ index, name: turn.name, start: days.start, end: days.end, days: days.days, spread, a, b, lnJump: (-spread * days.days) / 360 });
   });
@@ -202,15 +200,4 @@ export class TurnedInstrument implements Instrument {
 export function withTurns(instruments: readonly Instrument[], spans: readonly TurnSpan[]): readonly Instrument[] {
   if (spans.length === 0) return instruments;
   return instruments.map((ins) => new TurnedInstrument(ins, ins.times.map((t) => turnLn(spans, t))));
-}
-
-/** The curve with the turns on the smooth one: ln DF + ln J, forward + the turns' share. */
-export function turnedCurve(smooth: Curve, spans: readonly TurnSpan[]): Curve {
-  if (spans.length === 0) return smooth;
-  const pillars = smooth.pillars.map((p) => ({ ...p, discount: Math.exp(smooth.lnDiscountAt(p.t) + turnLn(spans, p.t)) }));
-  return curveFromLnDiscount(
-    { ...frameOf(smooth), pillars },
-    { lnDiscount: (t) => smooth.lnDiscountAt(t) + turnLn(spans, t), forward: (t) => smooth.forwardAt(t) + turnForward(spans, t) },
-    'as-given',
-  );
 }

@@ -4,6 +4,7 @@ import {
   curveTime,
   INTERPOLATIONS,
   meetingStepTable,
+  OVERNIGHT_KIT,
   oneDayForward,
   overnightForwards,
   turnLn,
@@ -60,8 +61,11 @@ function doc(quotes: readonly object[], extra: Record<string, unknown> = {}, int
   return { format: 'tenorscope-workspace', version: 2, valuationDate: VALUATION, curve: { dayCount: 'ACT/365F', interpolation }, quotes, ...extra };
 }
 
+/** The build as the curve command makes it: with the code of turns and steps (OVERNIGHT_KIT). */
+const build = (d: unknown): CurveBuild => buildCurve(d, { overnight: OVERNIGHT_KIT });
+
 function built(d: unknown): CurveBuild {
-  const b = buildCurve(d);
+  const b = build(d);
   expect(b.errors).toEqual([]);
   expect(b.curve).not.toBeNull();
   return b;
@@ -146,9 +150,17 @@ describe('meeting steps', () => {
     expect(off.overnight).toBeUndefined();
   });
 
+  it('without the code of turns and steps (OVERNIGHT_KIT) a document that needs it builds no curve and says so; steps off need none', () => {
+    const b = buildCurve(doc(STEP_QUOTES, steps));
+    expect(b.curve).toBeNull();
+    expect(b.errors[0]!.message).toContain('the turns and meeting steps are still loading');
+    const off = buildCurve(doc(STEP_QUOTES, { meetingSteps: { on: false, effectiveDates: SOFR_EFFECTIVE }, turns: [] }));
+    expect(off.errors).toEqual([]);
+  });
+
   it('an effective date outside the curve is an error naming it', () => {
     for (const [date, code] of [['2022-02-15', 'before-settlement'], ['2026-01-15', 'beyond-curve']] as const) {
-      const b = buildCurve(doc(STEP_QUOTES, { meetingSteps: { on: true, effectiveDates: [date, ...SOFR_EFFECTIVE].sort() } }));
+      const b = build(doc(STEP_QUOTES, { meetingSteps: { on: true, effectiveDates: [date, ...SOFR_EFFECTIVE].sort() } }));
       expect(b.curve).toBeNull();
       expect(b.errors.map((e) => e.code)).toContain(code);
       expect(b.errors.find((e) => e.code === code)!.message).toContain(date);
@@ -157,11 +169,11 @@ describe('meeting steps', () => {
   });
 
   it('two quotes in one meeting period, or a period no quote reaches, is an error naming the quotes and dates', () => {
-    const two = buildCurve(doc([...STEP_QUOTES, { kind: 'deposit', maturity: '2022-09-01', rate: 0.01 }], steps));
+    const two = build(doc([...STEP_QUOTES, { kind: 'deposit', maturity: '2022-09-01', rate: 0.01 }], steps));
     expect(two.curve).toBeNull();
     expect(two.errors[0]!.message).toContain('quotes[1] (deposit 2022-06-01) and quotes[6] (deposit 2022-09-01)');
     expect(two.errors[0]!.message).toContain('from 2022-03-17 to 2022-11-03');
-    const none = buildCurve(doc(STEP_QUOTES.filter((_, i) => i !== 2), steps));
+    const none = build(doc(STEP_QUOTES.filter((_, i) => i !== 2), steps));
     expect(none.curve).toBeNull();
     expect(none.errors[0]!.code).toBe('empty-period');
     expect(none.errors[0]!.message).toContain('from 2022-11-03 to 2022-12-15');
@@ -213,15 +225,15 @@ describe('turns', () => {
   });
 
   it('a turn with no business day, one past the curve, or one before the valuation date is an error naming the turn', () => {
-    const noDay = buildCurve(doc(TURN_QUOTES, { turns: [{ name: 'new year weekend', from: '2022-12-31', to: '2023-01-02', spreadBp: 5 }] }));
+    const noDay = build(doc(TURN_QUOTES, { turns: [{ name: 'new year weekend', from: '2022-12-31', to: '2023-01-02', spreadBp: 5 }] }));
     expect(noDay.curve).toBeNull();
     expect(noDay.errors[0]!.code).toBe('empty-period');
     expect(noDay.errors[0]!.message).toContain('turn "new year weekend" (turns[0]');
     expect(noDay.errors[0]!.message).toContain('no business day of the calendar us-gov-securities');
-    const past = buildCurve(doc(TURN_QUOTES, { turns: [{ name: 'far', from: '2030-12-31', to: '2030-12-31', spreadBp: 5 }] }));
+    const past = build(doc(TURN_QUOTES, { turns: [{ name: 'far', from: '2030-12-31', to: '2030-12-31', spreadBp: 5 }] }));
     expect(past.errors[0]!.code).toBe('beyond-curve');
     expect(past.errors[0]!.path).toBe('turns[0].to');
-    const early = buildCurve(doc(TURN_QUOTES, { turns: [{ name: 'gone', from: '2021-12-31', to: '2021-12-31', spreadBp: 5 }] }));
+    const early = build(doc(TURN_QUOTES, { turns: [{ name: 'gone', from: '2021-12-31', to: '2021-12-31', spreadBp: 5 }] }));
     expect(early.errors[0]!.code).toBe('before-settlement');
   });
 
