@@ -44,3 +44,12 @@ export function useOvernightKit(needed: boolean): OvernightKit | null {
   }, [needed]);
   return kit;
 }
+
+type WorkbenchBuildOptions = { readonly skipInvalid: true; readonly overnight?: OvernightKit };
+const WITHOUT_KIT: WorkbenchBuildOptions = { skipInvalid: true };
+let withKit: WorkbenchBuildOptions | null = null;
+/**
+ * The workbench's build options (`skipInvalid`), with the kit once it is loaded: what every rebuild
+ * of the workspace passes. One object each way, so a memo keyed on it holds.
+ */
+export const workbenchBuildOptions = (): WorkbenchBuildOptions => (kit ? (withKit ??= { skipInvalid: true, overnight: kit }) : WITHOUT_KIT);
