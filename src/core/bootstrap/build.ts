@@ -5,12 +5,13 @@ import { compareIso } from '../time/date.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
-import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
+import { civilFromIso, isoFromSerial, serialFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
 import { validateWorkspace, type ValidationOutcome } from '../document/validate.ts';
 import type { BootstrapOutcome, BootstrapSettings, Repricing } from './bootstrap.ts';
 import { kitMissing } from './bootstrap.ts';
 import type { OvernightKit } from './overnightKit.ts';
+import { businessCalendar, MAX_CLOSED_RUN, outsideCalendar } from '../time/calendars.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
 
 const NO_CURVES: CurveSet = {};
@@ -260,5 +261,6 @@ function spotGap(ws: Workspace, instruments: readonly Instrument[], interpolatio
 /** The kit's settings on the curve's clock of the compiled instruments (curveClock: the same values as curveTime). */
 function overnightSettings(ws: Workspace, plain: BootstrapSettings, kit: OvernightKit): { settings: BootstrapSettings; errors: readonly CoreError[] } {
   const clock = curveClock(ws.curve.dayCount, civilFromIso(ws.settlement));
-  return kit.settingsFor(ws, plain, (date) => clock(civilFromIso(date)));
+  const calendars = { calendarOf: (id: string) => businessCalendar(id, ws.calendars), outside: outsideCalendar, maxClosedRun: MAX_CLOSED_RUN, serialFromIso, isoFromSerial };
+  return kit.settingsFor(ws, plain, (date) => clock(civilFromIso(date)), calendars);
 }

@@ -20,9 +20,14 @@
 import type { Instrument } from '../instruments/instrument.ts';
 import type { Quote, Turn } from '../document/types.ts';
 import { coreError, type CoreError } from '../result.ts';
-import { businessCalendar, type CalendarContext } from '../time/calendars.ts';
-import { compareIso, type IsoDate } from '../time/date.ts';
-import { turnDays } from '../time/turnDays.ts';
+import type { CalendarOutcome } from '../time/calendars.ts';
+import type { IsoDate } from '../time/date.ts';
+import { turnDays, type CalendarLimits } from '../time/turnDays.ts';
+
+/** The workspace's calendars as the build reads them: a calendar by id (with the workspace's edits), and the calendar module's limits. */
+export interface TurnCalendars extends CalendarLimits {
+  readonly calendarOf: (id: string) => CalendarOutcome;
+}
 
 /** A turn placed on the curve's axis. */
 export interface TurnSpan {
@@ -62,24 +67,25 @@ export function resolveTurns(
   settlement: IsoDate,
   time: (date: IsoDate) => number,
   quotes: readonly Quote[],
-  calendars: CalendarContext,
+  calendars: TurnCalendars,
 ): { spans: TurnSpan[]; errors: CoreError[] } {
   const spans: TurnSpan[] = [];
   const errors: CoreError[] = [];
   turns.forEach((turn, index) => {
     const path = `turns[${index}]`;
     const id = turnCalendarId(turn, quotes);
-    const cal = businessCalendar(id, calendars);
+    const cal = calendars.calendarOf(id);
     if (!cal.ok) {
       errors.push(coreError('unknown-identifier', `${path}.calendar`, `turn "${turn.name}" (${path}): ${cal.message}`));
       return;
     }
-    const days = turnDays(turn.from, turn.to, cal.calendar);
+    const days = turnDays(turn.from, turn.to, cal.calendar, calendars);
     if (typeof days === 'string') {
       errors.push(coreError('empty-period', `${path}.from`, `turn "${turn.name}" (${path}, ${turn.from} to ${turn.to}): ${days}`));
       return;
     }
-    if (compareIso(days.start, settlement) < 0) {
+    if (days.start < settlement) {
+      // ISO dates compare as text (compareIso).
       errors.push(coreError('before-settlement', `${path}.from`, `turn "${turn.name}" (${path}) starts on ${days.start}, before the valuation date ${settlement}; move it on or after ${settlement} or remove it`));
       return;
     }

@@ -10,7 +10,7 @@ import type { CurveBuild } from '../bootstrap/build.ts';
 import { turnLn, type TurnSpan } from '../bootstrap/turns.ts';
 import type { IsoDate } from '../time/date.ts';
 import { compareIso } from '../time/date.ts';
-import { calendarDays, dayAfter, dayBefore } from '../time/turnDays.ts';
+import { calendarDays, dayAfter, dayBefore } from '../time/overnightDays.ts';
 import { resolveMarketDate } from '../time/dateConventions.ts';
 
 /** The convention of every rate here: simple, ACT/360, over one calendar day. */

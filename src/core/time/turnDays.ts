@@ -1,9 +1,22 @@
 /**
- * The calendar days an overnight turn covers, and the calendar days of the overnight forward view.
- * Day arithmetic lives here, in src/core/time, with the other date primitives.
+ * The calendar days an overnight turn covers. Day arithmetic lives here, in src/core/time, with the
+ * other date primitives.
  */
-import { isoFromSerial, serialFromIso, type IsoDate } from './date.ts';
-import { MAX_CLOSED_RUN, outsideCalendar, type BusinessCalendar } from './calendars.ts';
+import type { IsoDate } from './date.ts';
+import type { BusinessCalendar } from './calendars.ts';
+
+/**
+ * What turnDays needs of the calendars and date modules, handed in (the build passes
+ * `outsideCalendar`, `MAX_CLOSED_RUN`, `serialFromIso`, `isoFromSerial`), so the code of turns, fetched on first use, shares no module with the first
+ * screen beyond what it already had.
+ */
+export interface CalendarLimits {
+  readonly outside: (calendar: BusinessCalendar, serial: number) => string | null;
+  readonly maxClosedRun: number;
+  /** date.ts's serialFromIso and isoFromSerial (days since 1970-01-01). */
+  readonly serialFromIso: (date: IsoDate) => number;
+  readonly isoFromSerial: (serial: number) => IsoDate;
+}
 
 /**
  * The overnight periods that start on a business day from `from` to `to` (inclusive) of a
@@ -12,11 +25,12 @@ import { MAX_CLOSED_RUN, outsideCalendar, type BusinessCalendar } from './calend
  * period runs from one business day to the next, so a Friday's covers the weekend. `days` = end
  * minus start. A string when the range holds no business day or lies outside the calendar's years.
  */
-export function turnDays(from: IsoDate, to: IsoDate, calendar: BusinessCalendar): { start: IsoDate; end: IsoDate; days: number } | string {
-  const a = serialFromIso(from);
-  const b = serialFromIso(to);
+export function turnDays(from: IsoDate, to: IsoDate, calendar: BusinessCalendar, limits: CalendarLimits): { start: IsoDate; end: IsoDate; days: number } | string {
+  const { serialFromIso: serialOf, isoFromSerial: isoOf } = limits;
+  const a = serialOf(from);
+  const b = serialOf(to);
   for (const s of [a, b]) {
-    const outside = outsideCalendar(calendar, s);
+    const outside = limits.outside(calendar, s);
     if (outside !== null) return outside;
   }
   let first = a;
@@ -25,20 +39,6 @@ export function turnDays(from: IsoDate, to: IsoDate, calendar: BusinessCalendar)
   let last = b;
   while (!calendar.isBusinessDay(last)) last--;
   let end = last + 1;
-  while (!calendar.isBusinessDay(end) && end - last <= MAX_CLOSED_RUN) end++;
-  return { start: isoFromSerial(first), end: isoFromSerial(end), days: end - first };
+  while (!calendar.isBusinessDay(end) && end - last <= limits.maxClosedRun) end++;
+  return { start: isoOf(first), end: isoOf(end), days: end - first };
 }
-
-/** Every calendar day from `from` (inclusive) to `to` (exclusive), as dates. */
-export function calendarDays(from: IsoDate, to: IsoDate): IsoDate[] {
-  const a = serialFromIso(from);
-  const b = serialFromIso(to);
-  const out: IsoDate[] = [];
-  for (let s = a; s < b; s++) out.push(isoFromSerial(s));
-  return out;
-}
-
-/** The calendar day after `date` (the end of its one-day period). */
-export const dayAfter = (date: IsoDate): IsoDate => isoFromSerial(serialFromIso(date) + 1);
-/** The calendar day before `date`. */
-export const dayBefore = (date: IsoDate): IsoDate => isoFromSerial(serialFromIso(date) - 1);
