@@ -3,7 +3,7 @@
 // undone, and a link carries them. Absent, nothing changes (the golden check holds every earlier
 // document's numbers). The dates are SOFR's 2022 effective dates (MARKET-CONVENTIONS.md section h).
 import { readFileSync } from 'node:fs';
-import { checkWorkbenchShape, readWorkbenchDocument, toEngineDocument, validateWorkspace, workbenchFromEngine, type WorkbenchDocument } from '../../../src/core/index.ts';
+import { checkWorkbenchShape, readTurnLines, readWorkbenchDocument, toEngineDocument, validateWorkspace, workbenchFromEngine, type WorkbenchDocument } from '../../../src/core/index.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLink } from '../../../src/share/linkCodec.ts';
 import { useAppStore } from '../../../src/state/store.ts';
 
@@ -57,5 +57,21 @@ describe('turns and meetingSteps in the workbench document', () => {
     expect(s().workspace).toBe(before);
     s().setTurns([]);
     expect('turns' in s().workspace).toBe(false);
+  });
+});
+
+// The pasted turn lines' format is the README's ("first day, last day, spread in bp, name").
+describe('readTurnLines', () => {
+  it('reads each line, in the sheet\'s date order, and names every line not taken with what is wrong', () => {
+    const r = readTurnLines('2027-12-31, 2027-12-31, 10, year end\n\n31/03/2027\t31/03/2027\t\u22122.5\nsoon, 2027-06-30, 5\n2027-06-30, 2027-06-29, 5\n2027-06-30; 2027-06-30; 2000', 'dmy');
+    expect(r.turns).toEqual([
+      { name: 'year end', from: '2027-12-31', to: '2027-12-31', spreadBp: 10 },
+      { name: 'turn 2027-03-31', from: '2027-03-31', to: '2027-03-31', spreadBp: -2.5 },
+    ]);
+    expect(r.problems.map((p) => [p.line, p.message])).toEqual([
+      [4, 'the first day "soon" is not a date (use YYYY-MM-DD)'],
+      [5, 'the last day 2027-06-29 is before the first 2027-06-30'],
+      [6, 'the spread "2000" must be a number of bp from -1000 to 1000'],
+    ]);
   });
 });
