@@ -87,6 +87,13 @@ describe('OvernightTab', () => {
     expect(s().workspace.turns).toHaveLength(1);
     expect(s().workspace.quotes).toHaveLength(6);
   });
+
+  it('two quotes in one meeting period: the section says no curve and names both rows and the period', () => {
+    render(<Live />);
+    act(() => s().setMeetingSteps({ on: true, effectiveDates: ['2022-03-17', '2022-12-15', '2023-07-27'] }));
+    // 2022-06-01 and 2022-12-01 both end between 2022-03-17 and 2022-12-15 (rows 2 and 3).
+    expect(screen.getByRole('alert')).toHaveTextContent('No curve: row 2 (deposit 2022-06-01) and row 3 (deposit 2022-12-01) both end in the meeting period from 2022-03-17 to 2022-12-15');
+  });
 });
 
 /** The build the tab was given, read the way the workbench reads it (outside React, same memo). */

@@ -69,7 +69,7 @@ export function stepNodes(instruments: readonly Instrument[], meetings: readonly
         coreError(
           'duplicate-pillar',
           `quotes[${inside[1]!.index}]`,
-          `${inside.map(named).join(' and ')} all end in the meeting period from ${prevDate} to ${m.date}: with meeting steps each period between effective dates takes one quote; switch all but one off, or turn the steps off`,
+          `${inside.map(named).join(' and ')} ${inside.length === 2 ? 'both' : 'all'} end in the meeting period from ${prevDate} to ${m.date}: with meeting steps each period between effective dates takes one quote; switch all but one off, or turn the steps off`,
           inside[1]!.index,
         ),
       );

@@ -34,7 +34,10 @@ const NO_DATES: readonly string[] = [];
  */
 export function OvernightTab({ result }: { result: WorkbenchBuild }) {
   const build = result.build;
-  const problems = build.errors.filter((e) => e.path.startsWith('turns') || e.path.startsWith('meetingSteps') || (build.overnight === undefined && e.code === 'empty-period'));
+  // Without a curve, every error of the build is why (turns, dates, or two quotes in one meeting
+  // period); the workbench's own message names sheet rows, so it leads.
+  const problems = build.curve === null ? build.errors.filter((e) => e.path.startsWith('turns') || e.path.startsWith('meetingSteps')) : [];
+  const fatal = build.curve === null ? result.fatal : null;
   const view = useMemo(() => overnightForwardView(build), [build]);
   const rows = useMemo(() => meetingStepTable(build), [build]);
   return (
@@ -44,14 +47,16 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
       </p>
       <MeetingDates />
       <Turns />
-      {problems.length > 0 && (
+      {fatal !== null && (
         <div role="alert" className="error">
-          <p>The curve is not built with these settings:</p>
-          <ul>
-            {problems.map((e: CoreError, i) => (
-              <li key={i}>{e.message}</li>
-            ))}
-          </ul>
+          <p>No curve: {fatal}</p>
+          {problems.length > 1 && (
+            <ul>
+              {problems.map((e: CoreError, i) => (
+                <li key={i}>{e.message}</li>
+              ))}
+            </ul>
+          )}
         </div>
       )}
       {rows.length > 0 && (
