@@ -8,6 +8,8 @@ import { FIRST_FRAME_STEPS } from './hooks/firstFrame.ts';
 import { installFeaturePanels, preloadFeaturePanels } from './app/installFeaturePanels.tsx';
 import { openLinkBeforeRender } from './share/useOpenLinkOnStart.ts';
 import { startPersistence } from './state/persistence.ts';
+import { loadOvernightKit, needsOvernightKit } from './hooks/overnightKit.ts';
+import { useAppStore } from './state/store.ts';
 import './styles/base.css';
 import './styles/workbench.css';
 
@@ -40,4 +42,7 @@ const prepare = async (): Promise<void> => {
   }
   await nextTask();
 };
-void persistence.ready.then(openLinkBeforeRender).then(prepare).then(render, render);
+// A workspace with turns or meeting steps fetches their code first (its own chunk), so its first
+// chart is its curve, not a note that they are loading.
+const overnightIfNeeded = (): Promise<unknown> => (needsOvernightKit(useAppStore.getState().workspace) ? loadOvernightKit().catch(() => undefined) : Promise.resolve());
+void persistence.ready.then(openLinkBeforeRender).then(overnightIfNeeded).then(prepare).then(render, render);

@@ -13,3 +13,4 @@ export { PrintTab } from '../features/print/PrintTab.tsx';
 export { PrintOnDemand } from '../features/print/PrintOnDemand.tsx';
 export { HolidaysTab } from '../features/calendars/HolidaysTab.tsx';
 export { FixingsTab } from '../features/calendars/FixingsTab.tsx';
+export { OvernightTab } from '../features/overnight/OvernightTab.tsx';

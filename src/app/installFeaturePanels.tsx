@@ -116,7 +116,8 @@ const printOnDemand = deferredPanel('print on demand', () =>
 );
 const holidays = deferredPanel('holidays', () => panels().then((m) => () => <m.HolidaysTab />));
 const fixings = deferredPanel('fixings', () => panels().then((m) => () => <m.FixingsTab />));
-const ALL = [roll, scenarios, snapshots, fit, risk, holidays, fixings, print, printOnDemand];
+const overnight = deferredPanel('overnight curve', () => panels().then((m) => m.OvernightTab));
+const ALL = [roll, scenarios, snapshots, fit, risk, holidays, fixings, overnight, print, printOnDemand];
 
 /** Fetches every feature panel's code; resolves when all can render at once. */
 export function preloadFeaturePanels(): Promise<void> {
@@ -142,6 +143,7 @@ export function installFeaturePanels(options: { preload?: boolean } = {}): Promi
       { id: 'risk', label: 'Bond and sensitivities', render: ({ result }) => <risk.Panel result={result} /> },
       { id: 'holidays', label: 'Holidays', render: ({ result }) => <holidays.Panel result={result} /> },
       { id: 'fixings', label: 'Fixings', render: ({ result }) => <fixings.Panel result={result} /> },
+      { id: 'overnight', label: 'Overnight curve', render: ({ result }) => <overnight.Panel result={result} /> },
       { id: 'print', label: 'Print', render: ({ result }) => <print.Panel result={result} /> },
     );
   }

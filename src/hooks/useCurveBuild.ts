@@ -1,5 +1,6 @@
 import { useMemo } from 'react';
-import { buildCurve, CurveBuilder, type CurveBuild } from '../core/index.ts';
+import { buildCurve, CurveBuilder, type CurveBuild, type OvernightKit } from '../core/index.ts';
+import { loadedOvernightKit, needsOvernightKit, useOvernightKit } from './overnightKit.ts';
 import {
   isQuoteUnitMode,
   parseRow,
@@ -47,7 +48,7 @@ export const workbenchBuilder = new CurveBuilder();
 
 /** Builds the curve from the document's inputs (engine document, then the workbench builder with skipInvalid). */
 export function deriveBuild(
-  ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve' | 'calendars' | 'customCalendars' | 'fixings'> & { readonly display?: Pick<WorkbenchDocument['display'], 'dateOrder' | 'decimalMark'> },
+  ws: Pick<WorkbenchDocument, 'quotes' | 'quoteUnit' | 'settlement' | 'curve' | 'calendars' | 'customCalendars' | 'fixings' | 'turns' | 'meetingSteps'> & { readonly display?: Pick<WorkbenchDocument['display'], 'dateOrder' | 'decimalMark'> },
   interpolation?: WorkbenchDocument['curve']['interpolation']): WorkbenchBuild {
   if (!isQuoteUnitMode(ws.quoteUnit)) {
     // A read-only document from another build (see the store's readOnly): its quote unit is not one
@@ -58,7 +59,10 @@ export function deriveBuild(
     return { conversion, build, rowIssues: [], invalidCount: 0, disabledCount: 0, fatal };
   }
   const conversion = toEngineDocument(ws, parseRowCached);
-  const build = workbenchBuilder.build(conversion.doc, interpolation ? { skipInvalid: true, interpolation } : { skipInvalid: true });
+  // The code of turns and steps when it has been loaded (overnightKit.ts); a document without them does not need it.
+  const kit = loadedOvernightKit();
+  const base = kit ? { skipInvalid: true, overnight: kit } : { skipInvalid: true };
+  const build = workbenchBuilder.build(conversion.doc, interpolation ? { ...base, interpolation } : base);
   const fromEngine = rowIssuesFromEngine(
     [...build.errors, ...build.warnings.filter((w) => w.code === 'skipped' || w.code === 'negative-forward' || w.code === 'spot-gap').map((w) => ({ ...w, message: w.message.replace(/^skipped: /, '') }))],
     conversion.rowOfQuote,
@@ -96,6 +100,10 @@ interface BuildInputs {
   readonly calendars: WorkbenchDocument['calendars'];
   readonly customCalendars: WorkbenchDocument['customCalendars'];
   readonly fixings: WorkbenchDocument['fixings'];
+  readonly turns: WorkbenchDocument['turns'];
+  readonly meetingSteps: WorkbenchDocument['meetingSteps'];
+  /** The code of turns and steps, once loaded (so its arrival derives the build again). */
+  readonly kit: OvernightKit | null;
   readonly dateOrder: WorkbenchDocument['display']['dateOrder'];
   readonly decimalMark: WorkbenchDocument['display']['decimalMark'];
 }
@@ -104,20 +112,30 @@ interface BuildInputs {
 let lastBase: { readonly inputs: BuildInputs; readonly result: WorkbenchBuild } | null = null;
 
 const sameInputs = (a: BuildInputs, b: BuildInputs): boolean =>
-  a.quotes === b.quotes && a.quoteUnit === b.quoteUnit && a.settlement === b.settlement && a.curve === b.curve && a.calendars === b.calendars && a.customCalendars === b.customCalendars && a.fixings === b.fixings && a.dateOrder === b.dateOrder && a.decimalMark === b.decimalMark;
+  a.quotes === b.quotes && a.quoteUnit === b.quoteUnit && a.settlement === b.settlement && a.curve === b.curve && a.calendars === b.calendars && a.customCalendars === b.customCalendars && a.fixings === b.fixings && a.turns === b.turns && a.meetingSteps === b.meetingSteps && a.kit === b.kit && a.dateOrder === b.dateOrder && a.decimalMark === b.decimalMark;
 
 /** deriveBuild of these inputs, or the last result when they are the very same objects (a pure function's result, reused). */
 function baseBuild(inputs: BuildInputs): WorkbenchBuild {
   if (lastBase && sameInputs(lastBase.inputs, inputs)) return lastBase.result;
-  const { quotes, quoteUnit, settlement, curve, calendars, customCalendars, fixings, dateOrder, decimalMark } = inputs;
-  const result = deriveBuild({ quotes, quoteUnit, settlement, curve, ...(calendars === undefined ? {} : { calendars }), ...(customCalendars === undefined ? {} : { customCalendars }), ...(fixings === undefined ? {} : { fixings }), display: { dateOrder, decimalMark } });
+  const { quotes, quoteUnit, settlement, curve, calendars, customCalendars, fixings, turns, meetingSteps, dateOrder, decimalMark } = inputs;
+  const result = deriveBuild({
+    quotes,
+    quoteUnit,
+    settlement,
+    curve,
+    ...(calendars === undefined ? {} : { calendars }),
+    ...(customCalendars === undefined ? {} : { customCalendars }),
+    ...(fixings === undefined ? {} : { fixings }),
+    ...(turns === undefined ? {} : { turns }),
+    ...(meetingSteps === undefined ? {} : { meetingSteps }),
+    display: { dateOrder, decimalMark } });
   lastBase = { inputs, result };
   return result;
 }
 
 /** The base build of a document, as useCurveBuild derives it (reused while its inputs are the same objects). */
 export const baseBuildOf = (ws: WorkbenchDocument): WorkbenchBuild =>
-  baseBuild({ quotes: ws.quotes, quoteUnit: ws.quoteUnit, settlement: ws.settlement, curve: ws.curve, calendars: ws.calendars, customCalendars: ws.customCalendars, fixings: ws.fixings, dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark });
+  baseBuild({ quotes: ws.quotes, quoteUnit: ws.quoteUnit, settlement: ws.settlement, curve: ws.curve, calendars: ws.calendars, customCalendars: ws.customCalendars, fixings: ws.fixings, turns: ws.turns, meetingSteps: ws.meetingSteps, kit: loadedOvernightKit(), dateOrder: ws.display.dateOrder, decimalMark: ws.display.decimalMark });
 
 /** The base curve of the workspace, rebuilt only when its inputs change. */
 export function useCurveBuild(): WorkbenchBuild {
@@ -128,7 +146,13 @@ export function useCurveBuild(): WorkbenchBuild {
   const calendars = useAppStore((s) => s.workspace.calendars);
   const customCalendars = useAppStore((s) => s.workspace.customCalendars);
   const fixings = useAppStore((s) => s.workspace.fixings);
+  const turns = useAppStore((s) => s.workspace.turns);
+  const meetingSteps = useAppStore((s) => s.workspace.meetingSteps);
+  const kit = useOvernightKit(needsOvernightKit({ turns, meetingSteps }));
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
-  return useMemo(() => baseBuild({ quotes, quoteUnit, settlement, curve, calendars, customCalendars, fixings, dateOrder, decimalMark }), [quotes, quoteUnit, settlement, curve, calendars, customCalendars, fixings, dateOrder, decimalMark]);
+  return useMemo(
+    () => baseBuild({ quotes, quoteUnit, settlement, curve, calendars, customCalendars, fixings, turns, meetingSteps, kit, dateOrder, decimalMark }),
+    [quotes, quoteUnit, settlement, curve, calendars, customCalendars, fixings, turns, meetingSteps, kit, dateOrder, decimalMark],
+  );
 }

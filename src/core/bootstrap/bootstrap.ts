@@ -1,4 +1,4 @@
-import { curveFromNodes, type Curve, type Extrapolation, type Pillar } from '../curve/curve.ts';
+import { curveFromLnDiscount, curveFromNodes, frameOf, type Curve, type Extrapolation, type Pillar } from '../curve/curve.ts';
 import { INTERPOLATORS } from '../interpolation/registry.ts';
 import { zeros, type InterpolationId, type InterpolatorSpec } from '../interpolation/types.ts';
 import type { Instrument, QuoteUnit } from '../instruments/instrument.ts';
@@ -12,6 +12,10 @@ import { rateTag } from '../format/conventionTag.ts';
 import { FlowTable } from './flowTable.ts';
 import { jointNewton } from './jointNewton.ts';
 import { nodeSolverFor, type BootstrapNodes } from './nodeSolvers.ts';
+// Types only: the code of turns and steps comes in `settings.kit` (overnightKit.ts), loaded on first use.
+import type { TurnSpan } from './turns.ts';
+import type { MeetingNode, StepNodes } from './meetingSteps.ts';
+import type { OvernightKit } from './overnightKit.ts';
 
 /** How one quote came back on the built curve. */
 export interface Repricing {
@@ -35,6 +39,16 @@ export interface BootstrapOutcome {
   readonly repricing: readonly Repricing[];
   /** Gauss-Seidel sweeps used (0 for local methods). */
   readonly sweeps: number;
+  /** The turns and meeting nodes the curve was built with; absent when it has neither. */
+  readonly overnight?: OvernightShape;
+}
+
+/** What a curve with turns or meeting steps was built with (absent on an ordinary curve). */
+export interface OvernightShape {
+  /** The turns on the curve's axis (bootstrap/turns.ts). */
+  readonly turns: readonly TurnSpan[];
+  /** The effective dates that are nodes (meeting steps on), in order; empty when off. */
+  readonly meetings: readonly MeetingNode[];
 }
 
 export interface BootstrapSettings {
@@ -42,6 +56,15 @@ export interface BootstrapSettings {
   readonly dayCount: CurveDayCount;
   readonly interpolation: InterpolationId;
   readonly extrapolation: Extrapolation;
+  /** Turns (bootstrap/turns.ts): the instruments see the turned curve, the interpolation carries the smooth one. */
+  readonly turns?: readonly TurnSpan[];
+  /**
+   * Meeting steps on (bootstrap/meetingSteps.ts): nodes on these effective dates, log-linear
+   * discount factors whatever `interpolation` says. Absent: steps off.
+   */
+  readonly meetings?: readonly MeetingNode[];
+  /** The code of turns and steps (overnightKit.ts); set with `turns` or `meetings`. */
+  readonly kit?: OvernightKit;
 }
 
 export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? PRICE_ACCEPTANCE : RATE_ACCEPTANCE);
@@ -64,9 +87,27 @@ export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? 
  * Single-flow instruments at their own pillar (deposits, bills, zeros) are set in closed form.
  * Each stage solves its nodes with the one solver its method allows (see nodeSolverFor).
  */
-export function bootstrapInstruments(settings: BootstrapSettings, instruments: readonly Instrument[]): BootstrapOutcome {
+export function bootstrapInstruments(given: BootstrapSettings, market: readonly Instrument[]): BootstrapOutcome {
+  // Turns and meeting steps (absent: nothing below changes). The turns must end by the last
+  // pillar; the step rule decides each instrument's node.
+  const spans = given.turns ?? [];
+  const kit = given.kit;
+  const lastIns = market[market.length - 1];
+  if ((spans.length > 0 || given.meetings !== undefined) && kit === undefined) return failed([kitMissing()]);
+  if (spans.length > 0 && lastIns !== undefined) {
+    const beyond = kit!.turnsBeyond(spans, lastIns.t, lastIns.maturity);
+    if (beyond.length > 0) return failed(beyond);
+  }
+  const instruments = spans.length === 0 ? market : kit!.withTurns(market, spans);
+  let step: StepNodes | null = null;
+  if (given.meetings !== undefined && lastIns !== undefined) {
+    const s = kit!.stepNodes(instruments, given.meetings, given.settlement);
+    if (Array.isArray(s)) return failed(s);
+    step = s;
+  }
+  const settings: BootstrapSettings = step === null ? given : { ...given, interpolation: 'log-linear-discount' };
   const spec = INTERPOLATORS[settings.interpolation];
-  const nodes = startNodes(instruments);
+  const nodes = startNodes(instruments, step);
   const { ts, ys } = nodes;
 
   // 1. One pass.
@@ -90,31 +131,39 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   // nodes (bit for bit what curve.lnDiscountAt gives there: the same formula on the same nodes,
   // y_k exactly at a pillar; a test checks it). A local method's segment solver left the curve's
   // own values at every flow in the table: no later node moves a flow's segment.
-  const curve = curveOnNodes(settings, spec, nodes);
-  repricing ??= pass.writesFlowTable ? tableRepricing(nodes) : reprice(nodes, curve.lnDiscountAt);
+  const smooth = curveOnNodes(settings, spec, nodes, step);
+  const curve = spans.length === 0 ? smooth : turnedCurve(smooth, spans, kit!);
+  // The instruments read the smooth curve here (turned ones add the turns to it themselves).
+  repricing ??= pass.writesFlowTable ? tableRepricing(nodes) : reprice(nodes, smooth.lnDiscountAt);
   const refused = acceptanceFailure(repricing);
   if (refused) return failed([refused]);
 
   // 4. The sign of the forward between pillars.
-  const { errors, warnings } = forwardSigns(settings, nodes);
+  const { errors, warnings } = forwardSigns(settings, nodes, step);
   if (errors.length > 0) return failed(errors);
-  return { curve, errors: [], warnings, repricing, sweeps };
+  if (spans.length === 0 && step === null) return { curve, errors: [], warnings, repricing, sweeps };
+  const overnight: OvernightShape = { turns: spans, meetings: step === null ? [] : given.meetings!.filter((m) => step.dates.includes(m.date)) };
+  return { curve, errors: [], warnings, repricing, sweeps, overnight };
 }
 
-/** Node 0 at t = 0 and one node per instrument, all values 0; the empty flow table. */
-function startNodes(instruments: readonly Instrument[]): BootstrapNodes {
+/**
+ * Node 0 at t = 0 and one node per instrument, all values 0; the empty flow table. Node k is at
+ * instrument k's pillar, or with meeting steps at the node the step rule gives it (the closed
+ * form then only when that node is its pillar).
+ */
+function startNodes(instruments: readonly Instrument[], step: StepNodes | null): BootstrapNodes {
   const n = instruments.length;
   // Plain arrays of doubles, not typed arrays: see `zeros`.
   const ts = zeros(n + 1);
   const ys = zeros(n + 1);
-  for (let k = 0; k < n; k++) ts[k + 1] = instruments[k]!.t;
-  const closedForm = instruments.map((ins) => ins.closedFormLn !== null && ins.times.length === 1 && ins.times[0] === ins.t);
+  for (let k = 0; k < n; k++) ts[k + 1] = step === null ? instruments[k]!.t : step.times[k]!;
+  const closedForm = instruments.map((ins, k) => ins.closedFormLn !== null && ins.times.length === 1 && ins.times[0] === ins.t && ts[k + 1] === ins.t);
   return { instruments, closedForm, ts, ys, flows: new FlowTable(instruments) };
 }
 
-/** The curve on the solved nodes, one pillar per instrument. */
-function curveOnNodes(settings: BootstrapSettings, spec: InterpolatorSpec, { instruments, ts, ys }: BootstrapNodes): Curve {
-  const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
+/** The curve on the solved nodes, one pillar per instrument (with meeting steps, at its node). */
+function curveOnNodes(settings: BootstrapSettings, spec: InterpolatorSpec, { instruments, ts, ys }: BootstrapNodes, step: StepNodes | null): Curve {
+  const pillars: Pillar[] = instruments.map((ins, k) => ({ date: step === null ? ins.maturity : step.dates[k]!, t: ts[k + 1]!, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
   return curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, spec.build(ts, ys));
 }
 
@@ -227,15 +276,16 @@ function acceptedRepricing(spec: InterpolatorSpec, nodes: BootstrapNodes, tableI
 }
 
 /** Step 4: the forward between consecutive pillars must not be negative (a warning, or an error for monotone-convex-positive). */
-function forwardSigns(settings: BootstrapSettings, { instruments, ts, ys }: BootstrapNodes): { errors: CoreError[]; warnings: CoreWarning[] } {
+function forwardSigns(settings: BootstrapSettings, { instruments, ts, ys }: BootstrapNodes, step: StepNodes | null): { errors: CoreError[]; warnings: CoreWarning[] } {
+  const dateOf = (k: number): IsoDate => (step === null ? instruments[k - 1]!.maturity : step.dates[k - 1]!);
   const warnings: CoreWarning[] = [];
   const errors: CoreError[] = [];
   for (let k = 1; k <= instruments.length; k++) {
     const d = -(ys[k]! - ys[k - 1]!) / (ts[k]! - ts[k - 1]!);
     if (d >= 0) continue;
     const ins = instruments[k - 1]!;
-    const from = k === 1 ? settings.settlement : instruments[k - 2]!.maturity;
-    const what = `the forward from ${from} to ${ins.maturity} is ${formatRate(d, rateTag('continuous', settings.dayCount))}`;
+    const from = k === 1 ? settings.settlement : dateOf(k - 1);
+    const what = `the forward from ${from} to ${dateOf(k)} is ${formatRate(d, rateTag('continuous', settings.dayCount))}`;
     if (settings.interpolation === 'monotone-convex-positive') {
       errors.push(
         coreError('no-solution', `quotes[${ins.index}]`, `quotes[${ins.index}] (${ins.kind} ${ins.maturity}): monotone-convex-positive needs positive forwards, but ${what}; use monotone-convex for a market with negative forwards`, ins.index),
@@ -257,6 +307,24 @@ function reprice(nodes: BootstrapNodes, lnDiscountAt: (t: number) => number): Re
 function tableRepricing({ instruments, flows }: BootstrapNodes): Repricing[] {
   return repricingRows(instruments, flows.modelQuotes(instruments));
 }
+
+/**
+ * The curve with the turns on the smooth one: ln DF + ln J, forward + the turns' share, each
+ * pillar's discount factor with its jump (bootstrap/turns.ts). Here rather than in the kit so the
+ * kit's chunk needs no curve code of its own.
+ */
+function turnedCurve(smooth: Curve, spans: readonly TurnSpan[], kit: OvernightKit): Curve {
+  const pillars = smooth.pillars.map((p) => ({ ...p, discount: Math.exp(smooth.lnDiscountAt(p.t) + kit.turnLn(spans, p.t)) }));
+  return curveFromLnDiscount(
+    { ...frameOf(smooth), pillars },
+    { lnDiscount: (t) => smooth.lnDiscountAt(t) + kit.turnLn(spans, t), forward: (t) => smooth.forwardAt(t) + kit.turnForward(spans, t) },
+    'as-given',
+  );
+}
+
+/** The error of a build asked for turns or steps without their code (overnightKit.ts). */
+export const kitMissing = (): CoreError =>
+  coreError('no-solution', '', 'the turns and meeting steps are still loading; the curve is built as soon as they are (a caller of the engine passes OVERNIGHT_KIT in the build options)');
 
 function failed(errors: CoreError[]): BootstrapOutcome {
   return { curve: null, errors, warnings: [], repricing: [], sweeps: 0 };

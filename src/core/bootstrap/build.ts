@@ -5,10 +5,13 @@ import { compareIso } from '../time/date.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
-import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
+import { civilFromIso, isoFromSerial, serialFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
 import { validateWorkspace, type ValidationOutcome } from '../document/validate.ts';
-import type { BootstrapOutcome, Repricing } from './bootstrap.ts';
+import type { BootstrapOutcome, BootstrapSettings, Repricing } from './bootstrap.ts';
+import { kitMissing } from './bootstrap.ts';
+import type { OvernightKit } from './overnightKit.ts';
+import { businessCalendar, MAX_CLOSED_RUN, outsideCalendar } from '../time/calendars.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
 
 const NO_CURVES: CurveSet = {};
@@ -48,6 +51,11 @@ export interface BuildOptions {
   readonly interpolation?: InterpolationId;
   /** Overrides the document's `curve.extrapolation`. */
   readonly extrapolation?: Extrapolation;
+  /**
+   * The code of turns and meeting steps (OVERNIGHT_KIT, bootstrap/overnightKit.ts), needed only by a
+   * document that has them: without it such a document builds no curve and says why.
+   */
+  readonly overnight?: OvernightKit;
 }
 
 /** Compiles one validated quote against a settlement date and curve day count. */
@@ -172,18 +180,23 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   for (const q of ws.quotes) {
     if (!q.enabled) leftOut.push({ index: q.index, reason: 'disabled', message: `quotes[${q.index}] is switched off` });
   }
-  const settings = {
+  const plain: BootstrapSettings = {
     settlement: ws.settlement,
     dayCount: ws.curve.dayCount,
     interpolation: options.interpolation ?? ws.curve.interpolation,
     extrapolation: options.extrapolation ?? ws.curve.extrapolation,
   };
+  // Turns and meeting steps (absent from a document: the plain settings, today's numbers exactly).
+  const shaped =
+    (ws.turns?.length ?? 0) === 0 && ws.meetingSteps?.on !== true ? { settings: plain, errors: [] } : options.overnight ? overnightSettings(ws, plain, options.overnight) : { settings: plain, errors: [kitMissing()] };
+  const settings = shaped.settings;
   for (const e of market.duplicates) {
     warnings.push({ path: e.path, quote: e.quote, code: 'skipped', message: `skipped: ${e.message}` });
     leftOut.push({ index: e.quote!, reason: 'invalid', message: e.message });
   }
   const base = { leftOut: leftOut.sort((a, b) => a.index - b.index), workspace: ws, instruments: [], sweeps: 0 };
   if (market.errors.length > 0) return { ...base, curve: null, curves: NO_CURVES, errors: market.errors, warnings, repricing: [] };
+  if (shaped.errors.length > 0) return { ...base, curve: null, curves: NO_CURVES, errors: shaped.errors, warnings, repricing: [] };
   if (market.instruments.length === 0) {
     return {
       ...base,
@@ -204,7 +217,7 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   if (gap) warnings.push(gap);
   const later = laterFixings(ws);
   if (later) warnings.push(later);
-  return {
+  const built: CurveBuild = {
     leftOut: base.leftOut,
     workspace: ws,
     instruments: outcome.curve ? market.instruments : [],
@@ -215,6 +228,7 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
     repricing,
     sweeps: outcome.sweeps,
   };
+  return outcome.overnight === undefined ? built : { ...built, overnight: outcome.overnight };
 }
 
 /** The warning for fixings dated on or after the valuation date: kept in the document, not read (not known then). */
@@ -257,4 +271,11 @@ function spotGap(ws: Workspace, instruments: readonly Instrument[], interpolatio
     code: 'spot-gap',
     message: `quotes[${found.index}] starts on ${found.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${first}: the discount factor there is bridged from 1 at the valuation date ${rule}; add quotes that end by then to link the curve to it (ON and TN deposits on the same calendar for a spot start)`,
   };
+}
+
+/** The kit's settings on the curve's clock of the compiled instruments (curveClock: the same values as curveTime). */
+function overnightSettings(ws: Workspace, plain: BootstrapSettings, kit: OvernightKit): { settings: BootstrapSettings; errors: readonly CoreError[] } {
+  const clock = curveClock(ws.curve.dayCount, civilFromIso(ws.settlement));
+  const calendars = { calendarOf: (id: string) => businessCalendar(id, ws.calendars), outside: outsideCalendar, maxClosedRun: MAX_CLOSED_RUN, serialFromIso, isoFromSerial };
+  return kit.settingsFor(ws, plain, (date) => clock(civilFromIso(date)), calendars);
 }

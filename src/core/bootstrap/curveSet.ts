@@ -73,7 +73,8 @@ export function bootstrapCurveSet(settings: BootstrapSettings, instruments: read
   if (groups.length === 1) {
     const o = bootstrapInstruments(settings, groups[0]!.instruments);
     const curves = o.curve === null ? {} : { [groups[0]!.curve]: o.curve };
-    return { curve: o.curve, curves, errors: o.errors, warnings: o.warnings, repricing: o.repricing, sweeps: o.sweeps };
+    const out = { curve: o.curve, curves, errors: o.errors, warnings: o.warnings, repricing: o.repricing, sweeps: o.sweeps };
+    return o.overnight === undefined ? out : { ...out, overnight: o.overnight };
   }
   const curves: Record<CurveId, Curve> = {};
   const outcomes = groups.map((g) => {

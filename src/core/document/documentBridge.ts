@@ -75,6 +75,8 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   if (doc.calendars !== undefined && Object.keys(doc.calendars as object).length > 0) out.calendars = doc.calendars;
   if (doc.customCalendars !== undefined && Object.keys(doc.customCalendars as object).length > 0) out.customCalendars = doc.customCalendars;
   if (doc.fixings !== undefined && Object.keys(doc.fixings as object).length > 0) out.fixings = doc.fixings;
+  if (Array.isArray(doc.turns) && doc.turns.length > 0) out.turns = doc.turns;
+  if (doc.meetingSteps !== undefined) out.meetingSteps = doc.meetingSteps;
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) out[key] = doc[key];
   const wb = out as unknown as WorkbenchDocument;
   const again = validateWorkspace(toEngineDocument(wb).doc);

@@ -231,6 +231,31 @@ export interface CurveSettings {
   readonly futuresConvexity?: ConvexityModel;
 }
 
+/**
+ * A turn (year end, quarter end): an extra overnight spread `spreadBp` (bp, simple ACT/360) on the
+ * overnight periods that start on a business day from `from` to `to` (both inclusive) of
+ * `calendar` (absent: the first enabled quote's calendar, else `weekends`). Each such period runs to
+ * the next business day, so the turn covers the calendar days from the first business day on or
+ * after `from` to the business day after the last one on or before `to` (bootstrap/turns.ts).
+ */
+export interface Turn {
+  readonly name: string;
+  readonly from: IsoDate;
+  readonly to: IsoDate;
+  readonly spreadBp: number;
+  readonly calendar?: string;
+}
+
+/**
+ * Policy-meeting steps: the effective dates of policy decisions (the day the new rate applies, not
+ * the announcement) and whether the curve takes a node on each (`on`): flat overnight forwards
+ * between them (bootstrap/meetingSteps.ts).
+ */
+export interface MeetingSteps {
+  readonly on: boolean;
+  readonly effectiveDates: readonly IsoDate[];
+}
+
 /** A validated workspace: what the engine builds from. Reserved keys are passed through untouched. */
 export interface Workspace {
   /**
@@ -245,6 +270,10 @@ export interface Workspace {
   readonly quotes: readonly Quote[];
   /** Count of entries in the document's quotes array. */
   readonly quoteCount: number;
+  /** The document's `turns` (absent: none, today's curve exactly). */
+  readonly turns?: readonly Turn[];
+  /** The document's `meetingSteps` (absent: none). */
+  readonly meetingSteps?: MeetingSteps;
   /** Top-level keys reserved for the workbench (scenarios, strategy, snapshots, view, note), as given. */
   readonly reserved: Readonly<Record<string, unknown>>;
   /** The document's `fixings` (overnight rates by past business day), absent when it has none. */

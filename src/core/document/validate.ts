@@ -16,6 +16,7 @@ import { isPlainObject } from './plainObject.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
 import type { CalendarContext } from '../time/calendars.ts';
 import { CONVEXITY_MODELS, type ConvexityModel } from '../instruments/convexity.ts';
+import { readMeetingSteps, readTurns } from './overnightSections.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
 /**
@@ -27,9 +28,9 @@ export const WORKSPACE_VERSION = 2;
 /** Top-level keys the workbench owns; the engine passes them through. */
 export const RESERVED_KEYS = ['scenarios', 'strategy', 'snapshots', 'view', 'note'] as const;
 const TOP_KEYS_V1 = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
-const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'fixings', 'curve', 'quotes', ...RESERVED_KEYS];
+const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps', 'curve', 'quotes', ...RESERVED_KEYS];
 /** Fields version 2 added: in a version 1 document each is an error that says so. */
-const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars', 'fixings'];
+const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps'];
 /** `curve.fit`: none (the exact bootstrap only), nelson-siegel or svensson (src/core/fit). */
 const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit', 'futuresConvexity'];
 
@@ -77,6 +78,8 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   const dateKey = v1 ? 'settlement' : 'valuationDate';
   const settlement = v1 || doc.settlement === undefined || doc.valuationDate !== undefined ? checkDate(doc[dateKey], dateKey, errors) : null;
   const calendars = v1 ? {} : readCalendarSections(doc.calendars, doc.customCalendars, errors);
+  const turns = v1 ? undefined : readTurns(doc.turns, errors);
+  const meetingSteps = v1 ? undefined : readMeetingSteps(doc.meetingSteps, errors);
   const curve = checkCurve(doc.curve, errors);
   const fixings = v1 || doc.fixings === undefined || settlement === null ? undefined : checkFixings(doc.fixings, errors);
   if (!Array.isArray(doc.quotes)) {
@@ -95,7 +98,9 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   }
   const reserved: Record<string, unknown> = {};
   for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
-  return { workspace: { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved, ...(fixings ? { fixings } : {}) }, errors };
+  const workspace: Workspace = { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved, ...(fixings ? { fixings } : {}) };
+  if (turns === undefined && meetingSteps === undefined) return { workspace, errors };
+  return { workspace: { ...workspace, ...(turns === undefined ? {} : { turns }), ...(meetingSteps === undefined ? {} : { meetingSteps }) }, errors };
 }
 
 /** Most fixings a document holds: about forty years of business days. */

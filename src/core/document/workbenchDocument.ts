@@ -10,7 +10,7 @@ import { DATE_ORDERS, isDateOrder, type DateOrder } from '../input/dateText.ts';
 import { parseRow, QUOTE_COLUMNS, type QuoteColumn, type QuoteRow, type RowIssues, type RowParse } from '../input/quoteRow.ts';
 import { isPlainObject } from './plainObject.ts';
 import { CONVENTION_SETS, conventionSet } from '../kinds/conventionSets.ts';
-import type { QuoteKind } from './types.ts';
+import type { MeetingSteps, QuoteKind, Turn } from './types.ts';
 import type { CalendarEdits, CustomCalendar } from '../time/calendars.ts';
 
 /**
@@ -84,6 +84,10 @@ export interface WorkbenchDocument {
   readonly customCalendars?: Readonly<Record<string, CustomCalendar>>;
   /** Overnight rates (decimals) by past business day, for futures in their reference period (the engine document's `fixings`, as is). */
   readonly fixings?: Readonly<Record<string, number>>;
+  /** Turns on the overnight curve (the engine document's `turns`, as is; absent: none). */
+  readonly turns?: readonly Turn[];
+  /** Policy effective dates and whether the curve steps on them (the engine document's `meetingSteps`, as is). */
+  readonly meetingSteps?: MeetingSteps;
   readonly strategy?: unknown;
   readonly scenarios?: unknown;
   readonly snapshots?: unknown;
@@ -127,7 +131,7 @@ export interface EngineConversion {
  * a caching wrapper of `parseRow` (the UI keeps one so a one-cell edit re-parses one row).
  */
 export function toEngineDocument(
-  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars' | 'customCalendars' | 'fixings'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
+  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars' | 'customCalendars' | 'fixings' | 'turns' | 'meetingSteps'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
   parse: (row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions) => RowParse = parseRow): EngineConversion {
   const conventions = conventionsOf(doc);
   const rows = doc.quotes.map((r) => parse(r, doc.quoteUnit, conventions));
@@ -162,6 +166,8 @@ export function toEngineDocument(
     ...(doc.calendars !== undefined && Object.keys(doc.calendars).length > 0 ? { calendars: doc.calendars } : {}),
     ...(doc.customCalendars !== undefined && Object.keys(doc.customCalendars).length > 0 ? { customCalendars: doc.customCalendars } : {}),
     ...(doc.fixings !== undefined && Object.keys(doc.fixings).length > 0 ? { fixings: doc.fixings } : {}),
+    ...(doc.turns !== undefined && doc.turns.length > 0 ? { turns: doc.turns } : {}),
+    ...(doc.meetingSteps !== undefined ? { meetingSteps: doc.meetingSteps } : {}),
     curve,
     quotes,
   };
@@ -401,6 +407,9 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
   if (isPlainObject(raw.calendars)) doc.calendars = raw.calendars;
   if (isPlainObject(raw.customCalendars)) doc.customCalendars = raw.customCalendars;
   if (isPlainObject(raw.fixings)) doc.fixings = raw.fixings;
+  // Turns and meeting steps likewise: the engine reads them and names what is wrong.
+  if (Array.isArray(raw.turns)) doc.turns = raw.turns;
+  if (isPlainObject(raw.meetingSteps)) doc.meetingSteps = raw.meetingSteps;
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];
   return { doc: doc as unknown as WorkbenchDocument, problem: null, changes };
 }

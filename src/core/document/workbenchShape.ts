@@ -4,8 +4,9 @@ import { coreError, type CoreError } from '../result.ts';
 import { RESERVED_KEYS } from './validate.ts';
 import { LIMITS } from './limits.ts';
 import { isPlainObject } from './plainObject.ts';
+import { MAX_EFFECTIVE_DATES, MAX_TURNS } from './overnightSections.ts';
 
-const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', 'customCalendars', 'fixings', ...RESERVED_KEYS];
+const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps', ...RESERVED_KEYS];
 const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
 /** Characters of one typed cell or row id (LIMITS.cell). */
 export const CELL_MAX = LIMITS.cell;
@@ -35,6 +36,12 @@ const customCalendarsShape = (v: unknown): boolean =>
   Object.keys(v).length <= 10 &&
   Object.entries(v).every(([name, c]) => name.length <= LIMITS.id && isPlainObject(c) && Object.keys(c).every((k) => k === 'holidays') && Array.isArray(c.holidays) && c.holidays.length <= LIMITS.calendarDates && c.holidays.every((d) => shortText(d, 10)));
 
+/** The shape of `turns`: at most MAX_TURNS flat objects of short settings (the engine checks names, dates and spreads). */
+const turnsShape = (v: unknown): boolean => Array.isArray(v) && v.length <= MAX_TURNS && v.every((t) => flatSettings(t));
+/** The shape of `meetingSteps`: `on` and a list of at most MAX_EFFECTIVE_DATES short texts (the engine checks the dates). */
+const meetingStepsShape = (v: unknown): boolean =>
+  isPlainObject(v) && Object.keys(v).every((k) => k === 'on' || k === 'effectiveDates') && (v.effectiveDates === undefined || (Array.isArray(v.effectiveDates) && v.effectiveDates.length <= MAX_EFFECTIVE_DATES && v.effectiveDates.every((d) => shortText(d, 10))));
+
 /**
  * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
  * read from untrusted input, strictly: known keys only, at most LIMITS.quotes rows, every cell
@@ -52,6 +59,8 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   if (raw.calendars !== undefined && !calendarEditsShape(raw.calendars)) errors.push(coreError('schema', 'calendars', `calendars must be an object of edits by calendar id, each {"add": [dates], "remove": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
   if (raw.customCalendars !== undefined && !customCalendarsShape(raw.customCalendars)) errors.push(coreError('schema', 'customCalendars', `customCalendars must be an object of calendars by name (at most ${LIMITS.id} characters), each {"holidays": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
   if (raw.fixings !== undefined && !fixingsShape(raw.fixings)) errors.push(coreError('schema', 'fixings', `fixings must be an object of dates to overnight rates (decimals), at most ${LIMITS.fixings} of them`));
+  if (raw.turns !== undefined && !turnsShape(raw.turns)) errors.push(coreError('schema', 'turns', `turns must be a list of at most ${MAX_TURNS} turns, each {"name", "from", "to", "spreadBp"}`));
+  if (raw.meetingSteps !== undefined && !meetingStepsShape(raw.meetingSteps)) errors.push(coreError('schema', 'meetingSteps', `meetingSteps must be {"on": true or false, "effectiveDates": [dates]}, at most ${MAX_EFFECTIVE_DATES} dates`));
   if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));
   if (!Array.isArray(raw.quotes)) errors.push(coreError('schema', 'quotes', 'quotes must be a list of rows'));
   else if (raw.quotes.length > LIMITS.quotes) errors.push(coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`));

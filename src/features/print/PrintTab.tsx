@@ -1,3 +1,4 @@
+import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useMemo, type ReactNode } from 'react';
 import { convexityModelText, applyScenario } from '../../core/index.ts';
 import { validateScenarios, workspaceHash } from '../../core/index.ts';
@@ -43,7 +44,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null }: { result: W
     const conv = tableConventionsFromDisplay(display);
     const { scenarios } = validateScenarios(doc.scenarios);
     const moved = scenarios.slice(0, SCENARIO_OVERLAY_MAX).flatMap((s) => {
-      const r = applyScenario(s, ws, curve, { skipInvalid: true });
+      const r = applyScenario(s, ws, curve, workbenchBuildOptions());
       return r.ok ? [{ name: s.name, curve: r.value.curve }] : [];
     });
     const series = (kind: 'zero' | 'forward'): PrintSeries[] =>
@@ -59,7 +60,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null }: { result: W
     return {
       keyRows: printKeyRows(curve, conv),
       conventions: conv,
-      scenarios: printScenarios(scenarios, ws, curve, conv, { skipInvalid: true }),
+      scenarios: printScenarios(scenarios, ws, curve, conv, workbenchBuildOptions()),
       scenarioConventions: scenarioConventionsText(conv),
       zeroChart: <PrintChart title="Zero rates" tag={tag} series={series('zero')} xMax={xMax} lastT={lastT} />,
       forwardChart: <PrintChart title={`${display.forwardTenor} forwards`} tag={tag} series={series('forward')} xMax={xMax} lastT={lastT} />,

@@ -1,3 +1,4 @@
+import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useCallback, useMemo } from 'react';
 import { applyScenario } from '../../core/index.ts';
 import { analyseRollVsTerm, formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
@@ -20,7 +21,7 @@ function useScenarioCurves(result: WorkbenchBuild): { name: string; curve: Curve
     if (!base || !workspace) return [];
     const out: { name: string; curve: Curve }[] = [];
     validateScenarios(raw).scenarios.forEach((s, i) => {
-      const r = applyScenario(s, workspace, base, { skipInvalid: true }, `scenarios[${i}]`);
+      const r = applyScenario(s, workspace, base, workbenchBuildOptions(), `scenarios[${i}]`);
       if (r.ok) out.push({ name: s.name, curve: r.value.curve });
     });
     return out;

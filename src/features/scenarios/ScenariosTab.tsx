@@ -1,10 +1,10 @@
+import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useMemo } from 'react';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { ScenarioPanel } from './ScenarioPanel.tsx';
 import { EditLock } from '../../components/EditLock.tsx';
 
-const BUILD = { skipInvalid: true } as const;
 
 /** The scenario panel wired to the workbench store: reads and writes the document's `scenarios`. */
 export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
@@ -21,7 +21,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
       onChange={(next) => useAppStore.getState().setReserved('scenarios', next)}
       workspace={result.build.workspace}
       base={result.build.curve}
-      buildOptions={BUILD}
+      buildOptions={workbenchBuildOptions()}
       conventions={conventions}
     />
     </EditLock>

@@ -1,3 +1,4 @@
+import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useMemo } from 'react';
 import { applyScenario } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
@@ -8,7 +9,6 @@ import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import { useAppStore } from '../../state/store.ts';
 
 import { SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
-const BUILD = { skipInvalid: true } as const;
 
 /**
  * Lines of the first SCENARIO_OVERLAY_MAX scenarios for the zero and forward charts (each scenario's curve from the
@@ -29,7 +29,7 @@ export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[];
     scenarios
       .slice(0, SCENARIO_OVERLAY_MAX)
       .forEach((s, i) => {
-        const r = applyScenario(s, ws, curve, BUILD);
+        const r = applyScenario(s, ws, curve, workbenchBuildOptions());
         if (!r.ok) {
           failed.push(s.name);
           return;

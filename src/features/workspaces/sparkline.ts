@@ -1,3 +1,4 @@
+import { loadedOvernightKit } from '../../hooks/overnightKit.ts';
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, line } from 'd3-shape';
 import { buildCurve, sampleGrid, toEngineDocument, zeroSamples, type WorkbenchDocument } from '../../core/index.ts';
@@ -29,7 +30,8 @@ export function zeroSparkline(doc: WorkbenchDocument): Sparkline | null {
   if (cache.has(doc)) return cache.get(doc)!;
   let out: Sparkline | null = null;
   try {
-    const build = buildCurve(toEngineDocument(doc, parseRowCached).doc, { skipInvalid: true });
+    const kit = loadedOvernightKit();
+    const build = buildCurve(toEngineDocument(doc, parseRowCached).doc, kit ? { skipInvalid: true, overnight: kit } : { skipInvalid: true });
     const curve = build.curve;
     const last = curve?.pillars[curve.pillars.length - 1];
     if (curve && last) {

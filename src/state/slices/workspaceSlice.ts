@@ -56,6 +56,10 @@ export interface WorkspaceSlice {
   setCustomCalendar(name: string, holidays: readonly string[] | null): void;
   /** Joins a calendar of the workspace's own to the deposit and OIS rows' calendar, or ends the join (null). One undoable step. */
   setJoinCalendar(name: string | null): void;
+  /** Replaces the turns (empty: the section is removed). One undoable step. */
+  setTurns(turns: WorkbenchDocument['turns'] & object): void;
+  /** Replaces the meeting steps (null: the section is removed). One undoable step. */
+  setMeetingSteps(steps: WorkbenchDocument['meetingSteps'] | null): void;
   setDisplay(patch: Partial<DisplaySettings>): void;
   /** Switches how bare numbers are read; bare rate and coupon texts are re-written so their values stay the same. */
   setQuoteUnit(mode: QuoteUnitMode): void;
@@ -242,6 +246,14 @@ export const createWorkspaceSlice: StateCreator<AppState, [], [], WorkspaceSlice
     setJoinCalendar(name) {
       const { joinCalendar: _j, ...curve } = ws().curve;
       get().commit({ ...ws(), curve: name === null ? curve : { ...curve, joinCalendar: name } }, 'joined calendar');
+    },
+    setTurns(turns) {
+      const { turns: _t, ...rest } = ws();
+      get().commit(turns.length > 0 ? { ...rest, turns } : rest, 'turns');
+    },
+    setMeetingSteps(steps) {
+      const { meetingSteps: _m, ...rest } = ws();
+      get().commit(steps === null || steps === undefined ? rest : { ...rest, meetingSteps: steps }, 'meeting steps');
     },
     setDisplay(patch) {
       get().commit({ ...ws(), display: { ...ws().display, ...patch } }, 'display settings');

@@ -155,8 +155,8 @@ describe('bad calendar sections are errors naming the place; nothing is built fr
 describe('the README\'s workspace documents', () => {
   const readme = readFileSync(new URL('../../../README.md', import.meta.url), 'utf8');
   const blocks = [...readme.matchAll(/```json\n(\{"format": "tenorscope-workspace"[\s\S]*?)```/g)].map((m) => JSON.parse(m[1]!) as Record<string, unknown>);
-  it('both examples are version 2 and build with the command, every quote repriced (rates to 1e-14, prices to 1e-11)', async () => {
-    expect(blocks).toHaveLength(2);
+  it('the three examples are version 2 and build with the command, every quote repriced (rates to 1e-14, prices to 1e-11)', async () => {
+    expect(blocks).toHaveLength(3);
     for (const doc of blocks) {
       expect(doc.version).toBe(2);
       const r = await run(doc);
@@ -169,5 +169,11 @@ describe('the README\'s workspace documents', () => {
   it('the second: the 2Y overnight swap on TARGET and the desk\'s own days ends on 2029-03-29 (Good Friday 2029-03-30 and Easter Monday 2029-04-02 closed; modified following stays in March) and pays on 2029-04-03', async () => {
     const r = await run(blocks[1]!);
     expect(r.lines[0]!.quotes[1]).toMatchObject({ start: '2027-03-30', end: '2029-03-29', payment: '2029-04-03', pillar: '2029-04-03' });
+  });
+  it('the third: meeting steps on SOFR\'s 2022-2023 effective dates (MARKET-CONVENTIONS.md section h) and a year-end turn; the command builds it with the code of both (the curve has a node on each effective date)', async () => {
+    const r = await run(blocks[2]!);
+    expect(r.status).toBe(0);
+    expect(r.lines[0]!.interpolation).toBe('log-linear-discount'); // a step curve is log-linear in DF (README)
+    expect(r.lines[0]!.points.map((p: { date: string }) => p.date)).toEqual(['2022-03-17', '2022-11-03', '2022-12-15', '2023-07-27', '2024-03-01', '2027-03-01']);
   });
 });

@@ -1,0 +1,101 @@
+/**
+ * The overnight forward view and the meeting-step table: one-day forward rates read off a curve,
+ * simple on ACT/360 (the convention of SOFR, €STR and fed funds fixings: Federal Reserve Bank of
+ * New York, SOFR methodology; ECB €STR methodology), each day's rate
+ *
+ *   F(d) = (DF(d) / DF(d + 1) - 1) x 360 / 1.
+ */
+import type { Curve } from './curve.ts';
+import type { CurveBuild } from '../bootstrap/build.ts';
+import { turnLn, type TurnSpan } from '../bootstrap/turns.ts';
+import type { IsoDate } from '../time/date.ts';
+import { compareIso } from '../time/date.ts';
+import { calendarDays, dayAfter, dayBefore } from '../time/overnightDays.ts';
+import { resolveMarketDate } from '../time/dateConventions.ts';
+
+/** The convention of every rate here: simple, ACT/360, over one calendar day. */
+export const OVERNIGHT_CONVENTION = { compounding: 'simple', dayCount: 'ACT/360' } as const;
+
+/** One day's forward on a curve read through `ln` (ln DF at curve time), simple ACT/360. */
+function oneDay(curve: Curve, ln: (t: number) => number, date: IsoDate): number {
+  return Math.expm1(ln(curve.time(date)) - ln(curve.time(dayAfter(date)))) * 360;
+}
+
+/** The one-day forward from `date` to the next calendar day, simple ACT/360 (turns included). */
+export const oneDayForward = (curve: Curve, date: IsoDate): number => oneDay(curve, curve.lnDiscountAt, date);
+
+export interface OvernightPoint {
+  readonly date: IsoDate;
+  /** One-day forward from `date` to the next day, decimal, simple ACT/360. */
+  readonly rate: number;
+}
+
+/**
+ * The one-day forward of every calendar day from `from` (inclusive) to `to` (exclusive), cut at
+ * the curve's last pillar: the overnight forward view, drawn as steps.
+ */
+export function overnightForwards(curve: Curve, from: IsoDate, to: IsoDate): OvernightPoint[] {
+  const last = curve.pillars[curve.pillars.length - 1];
+  const end = last !== undefined && compareIso(last.date, to) < 0 ? last.date : to;
+  return calendarDays(from, end).map((date) => ({ date, rate: oneDayForward(curve, date) }));
+}
+
+export interface MeetingStepRow {
+  /** The effective date (the first day at the new level). */
+  readonly date: IsoDate;
+  /** The one-day forward on the day before and on the effective date, decimal, simple ACT/360, turns left out. */
+  readonly before: number;
+  readonly after: number;
+  /** after - before, in bp. */
+  readonly stepBp: number;
+}
+
+/**
+ * Each meeting node's implied step: the one-day forward on the effective date minus the one on the
+ * day before, on the smooth curve (the turns taken out, so a turn beside a meeting does not pass
+ * for a policy move). Empty when the build has no meeting steps.
+ */
+export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>): MeetingStepRow[] {
+  const curve = build.curve;
+  const shape = build.overnight;
+  if (curve === null || shape === undefined) return [];
+  const spans: readonly TurnSpan[] = shape.turns;
+  const smooth = (t: number): number => curve.lnDiscountAt(t) - turnLn(spans, t);
+  return shape.meetings.map((m) => {
+    const before = oneDay(curve, smooth, dayBefore(m.date));
+    const after = oneDay(curve, smooth, m.date);
+    return { date: m.date, before, after, stepBp: (after - before) * 1e4 };
+  });
+}
+
+/** The overnight forward view of a build: what the chart draws, all on the curve's axis (years). */
+export interface OvernightView {
+  /** One point per calendar day: the one-day forward from that day, simple ACT/360. */
+  readonly points: readonly (OvernightPoint & { readonly t: number })[];
+  /** The drawn range's end (the valuation date plus `years`, or the last pillar when sooner). */
+  readonly end: IsoDate;
+  readonly endT: number;
+  /** Meeting nodes inside the range (meeting steps on). */
+  readonly meetings: readonly { readonly date: IsoDate; readonly t: number }[];
+  /** Turns inside the range: their days as [start, end) with times, and the spread in bp. */
+  readonly turns: readonly { readonly name: string; readonly start: IsoDate; readonly end: IsoDate; readonly a: number; readonly b: number; readonly spreadBp: number }[];
+}
+
+/**
+ * The one-day forward curve for the next `years` years from the valuation date (cut at the last
+ * pillar), with the meeting dates and turns inside that range. Null without a curve.
+ */
+export function overnightForwardView(build: Pick<CurveBuild, 'curve' | 'overnight'>, years = 3): OvernightView | null {
+  const curve = build.curve;
+  if (curve === null) return null;
+  const horizon = resolveMarketDate(curve.settlement, `${years}Y`);
+  if (!horizon.ok) return null;
+  const last = curve.pillars[curve.pillars.length - 1];
+  const end = last !== undefined && compareIso(last.date, horizon.value) < 0 ? last.date : horizon.value;
+  const points = overnightForwards(curve, curve.settlement, end).map((p) => ({ ...p, t: curve.time(p.date) }));
+  const endT = curve.time(end);
+  const shape = build.overnight;
+  const meetings = (shape?.meetings ?? []).filter((m) => m.t <= endT).map((m) => ({ date: m.date, t: m.t }));
+  const turns = (shape?.turns ?? []).filter((s) => s.a < endT).map((s) => ({ name: s.name, start: s.start, end: s.end, a: s.a, b: s.b, spreadBp: s.spread * 1e4 }));
+  return { points, end, endT, meetings, turns };
+}

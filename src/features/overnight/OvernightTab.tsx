@@ -1,0 +1,242 @@
+import { useMemo, useState } from 'react';
+import {
+  formatBpChange,
+  formatBpSetting,
+  formatPercent,
+  meetingStepTable,
+  overnightForwardView,
+  rateTag,
+  readDateList,
+  readMeetingSteps,
+  readTurnLines,
+  readTurns,
+  type CoreError,
+  type Turn,
+} from '../../core/index.ts';
+import { EditLock } from '../../components/EditLock.tsx';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useAppStore } from '../../state/store.ts';
+import { OvernightChart } from './OvernightChart.tsx';
+
+type Problem = { readonly line: number; readonly text: string; readonly message: string };
+/** A line of a pasted list that was not taken, for a message. */
+const problemText = (p: Problem): string => `line ${p.line} (${p.text}): ${p.message}`;
+const notTaken = (skipped: readonly string[]): string => (skipped.length === 0 ? '' : `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}`);
+const OVERNIGHT_TAG = rateTag('simple', 'ACT/360');
+const NO_TURNS: readonly Turn[] = [];
+const NO_DATES: readonly string[] = [];
+
+/**
+ * The overnight curve: policy effective dates and whether the curve steps on them, turns (an extra
+ * overnight spread over named days), the implied step of each meeting, and the one-day forward
+ * curve for the next three years. Turns and dates live in the workspace document (`turns`,
+ * `meetingSteps`): saved, undone, in the link and the file.
+ */
+export function OvernightTab({ result }: { result: WorkbenchBuild }) {
+  const build = result.build;
+  // Without a curve, every error of the build is why (turns, dates, or two quotes in one meeting
+  // period); the workbench's own message names sheet rows, so it leads.
+  const problems = build.curve === null ? build.errors.filter((e) => e.path.startsWith('turns') || e.path.startsWith('meetingSteps')) : [];
+  const fatal = build.curve === null ? result.fatal : null;
+  const view = useMemo(() => overnightForwardView(build), [build]);
+  const rows = useMemo(() => meetingStepTable(build), [build]);
+  return (
+    <div className="overnight stack">
+      <p className="muted small">
+        The curve&rsquo;s one-day forward rates ({OVERNIGHT_TAG}), with the policy effective dates it can step on and the turns that lift single days. An analysis aid, not investment advice: check the dates and spreads against official sources.
+      </p>
+      <MeetingDates />
+      <Turns />
+      {fatal !== null && (
+        <div role="alert" className="error">
+          <p>No curve: {fatal}</p>
+          {problems.length > 1 && (
+            <ul>
+              {problems.map((e: CoreError, i) => (
+                <li key={i}>{e.message}</li>
+              ))}
+            </ul>
+          )}
+        </div>
+      )}
+      {rows.length > 0 && (
+        <section aria-label="Meeting steps">
+          <h3>Implied step at each meeting</h3>
+          <div className="table-scroll">
+            <table className="data" aria-label="Implied step at each meeting">
+              <thead>
+                <tr>
+                  <th scope="col">Effective date</th>
+                  <th scope="col">Level before, % ({OVERNIGHT_TAG})</th>
+                  <th scope="col">Level after, % ({OVERNIGHT_TAG})</th>
+                  <th scope="col">Step (bp)</th>
+                </tr>
+              </thead>
+              <tbody>
+                {rows.map((r) => (
+                  <tr key={r.date}>
+                    <td>{r.date}</td>
+                    <td className="num">{formatPercent(r.before)}</td>
+                    <td className="num">{formatPercent(r.after)}</td>
+                    <td className="num">{formatBpChange(r.stepBp)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <p className="muted small">Levels are the one-day forward on the day before and on the effective date, with turns left out.</p>
+        </section>
+      )}
+      {view && view.points.length > 0 ? (
+        <section aria-label="Overnight forward">
+          <h3>Overnight forward, next three years</h3>
+          <OvernightChart view={view} />
+        </section>
+      ) : (
+        <p className="muted small">No curve to draw the overnight forward from yet.</p>
+      )}
+    </div>
+  );
+}
+
+/** The effective dates (a pasted list, one per line) and the switch that steps the curve on them. */
+function MeetingDates() {
+  const steps = useAppStore((s) => s.workspace.meetingSteps);
+  const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
+  const dates = steps?.effectiveDates ?? NO_DATES;
+  const on = steps?.on === true;
+  const [list, setList] = useState('');
+  const [message, setMessage] = useState<string | null>(null);
+  const save = (): void => {
+    const r = readDateList(list, dateOrder);
+    if (r.dates.length === 0) {
+      setMessage(`Not saved: the list has no date (one per line, YYYY-MM-DD or as the sheet reads dates)${notTaken(r.problems.map(problemText))}.`);
+      return;
+    }
+    const errors: CoreError[] = [];
+    const checked = readMeetingStepsChecked(on, r.dates, errors);
+    if (!checked) {
+      setMessage(`Not saved: ${errors.map((e) => e.message).join('; ')}.`);
+      return;
+    }
+    useAppStore.getState().setMeetingSteps(checked);
+    setMessage(`Saved ${r.dates.length} effective ${r.dates.length === 1 ? 'date' : 'dates'}${notTaken(r.problems.map(problemText))}.`);
+    if (r.problems.length === 0) setList('');
+  };
+  return (
+    <section aria-label="Policy effective dates">
+      <h3>Policy effective dates</h3>
+      <p className="muted small">The day each new policy rate applies (for the Fed, the day after the announcement), not the meeting day. With steps on, the curve has a node on each date inside its quotes&rsquo; range and flat overnight forwards between them (log-linear in discount factors, whatever the curve&rsquo;s method); each period between dates needs exactly one quote ending in it.</p>
+      <EditLock>
+        <label className="check">
+          <input type="checkbox" checked={on} disabled={dates.length === 0} onChange={(e) => useAppStore.getState().setMeetingSteps({ on: e.target.checked, effectiveDates: dates })} /> Step the overnight curve on these dates
+        </label>
+        <p className="small">{dates.length === 0 ? 'No effective dates yet.' : `${dates.length} ${dates.length === 1 ? 'date' : 'dates'}: ${dates.slice(0, 8).join(', ')}${dates.length > 8 ? ', …' : ''}`}</p>
+        <details>
+          <summary>{dates.length === 0 ? 'Add effective dates' : 'Replace the effective dates'}</summary>
+          <label>
+            Effective dates, one per line (YYYY-MM-DD, or as the sheet reads dates)
+            <textarea rows={4} value={list} onChange={(e) => setList(e.target.value)} />
+          </label>
+          <button type="button" disabled={list.trim() === ''} onClick={save}>
+            Save these dates
+          </button>
+          {dates.length > 0 && (
+            <button type="button" onClick={() => useAppStore.getState().setMeetingSteps(null)}>
+              Remove all dates
+            </button>
+          )}
+        </details>
+      </EditLock>
+      {message && (
+        <p role="status" className="small">
+          {message}
+        </p>
+      )}
+    </section>
+  );
+}
+
+/** The dates as the engine reads them (its errors name what is wrong), or null. */
+const readMeetingStepsChecked = (on: boolean, dates: readonly string[], errors: CoreError[]) => readMeetingSteps({ on, effectiveDates: dates }, errors) ?? null;
+
+/** The turns: a table with each one's days and spread, a remove button, and lines to add. */
+function Turns() {
+  const turns = useAppStore((s) => s.workspace.turns) ?? NO_TURNS;
+  const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
+  const [list, setList] = useState('');
+  const [message, setMessage] = useState<string | null>(null);
+  const add = (): void => {
+    const r = readTurnLines(list, dateOrder);
+    if (r.turns.length === 0) {
+      setMessage(`Not added: no line read as a turn${notTaken(r.problems.map(problemText))}.`);
+      return;
+    }
+    const errors: CoreError[] = [];
+    const next = readTurns([...turns, ...r.turns], errors);
+    if (!next || errors.length > 0) {
+      // Paths turns[i] of the new ones are the pasted lines' order after the saved turns.
+      const named = errors.map((e) => e.message.replace(/turns\[(\d+)\]/g, (_, i: string) => (Number(i) < turns.length ? `saved turn ${Number(i) + 1}` : `pasted turn ${Number(i) - turns.length + 1}`)));
+      setMessage(`Not added: ${named.join('; ')}.`);
+      return;
+    }
+    useAppStore.getState().setTurns(next);
+    setMessage(`Added ${r.turns.length} ${r.turns.length === 1 ? 'turn' : 'turns'}${notTaken(r.problems.map(problemText))}.`);
+    if (r.problems.length === 0) setList('');
+  };
+  return (
+    <section aria-label="Turns">
+      <h3>Turns</h3>
+      <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only.</p>
+      <EditLock>
+        {turns.length > 0 && (
+          <div className="table-scroll">
+            <table className="data" aria-label="Turns">
+              <thead>
+                <tr>
+                  <th scope="col">Name</th>
+                  <th scope="col">First day</th>
+                  <th scope="col">Last day</th>
+                  <th scope="col">Spread (bp, {OVERNIGHT_TAG})</th>
+                  <th scope="col">
+                    <span className="sr-only">Remove</span>
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {turns.map((t) => (
+                  <tr key={t.name}>
+                    <td>{t.name}</td>
+                    <td>{t.from}</td>
+                    <td>{t.to}</td>
+                    <td className="num">{formatBpSetting(t.spreadBp)}</td>
+                    <td>
+                      <button type="button" aria-label={`Remove the turn ${t.name}`} onClick={() => useAppStore.getState().setTurns(turns.filter((x) => x !== t))}>
+                        Remove
+                      </button>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+        <details open={turns.length === 0}>
+          <summary>Add turns</summary>
+          <label>
+            One turn per line: first day, last day, spread in bp, name (such as 2027-12-31, 2027-12-31, 10, year end)
+            <textarea rows={3} value={list} onChange={(e) => setList(e.target.value)} />
+          </label>
+          <button type="button" disabled={list.trim() === ''} onClick={add}>
+            Add these turns
+          </button>
+        </details>
+      </EditLock>
+      {message && (
+        <p role="status" className="small">
+          {message}
+        </p>
+      )}
+    </section>
+  );
+}
