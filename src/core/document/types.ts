@@ -1,3 +1,4 @@
+import type { WorkspaceCurve } from './namedCurves.ts';
 import type { ConvexityFill, ConvexityModel } from '../instruments/convexity.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { BusinessDayRule, CalendarContext } from '../time/calendars.ts';
@@ -212,6 +213,11 @@ export interface Workspace {
   readonly quoteCount: number;
   /** Top-level keys reserved for the workbench (scenarios, strategy, snapshots, view, note), as given. */
   readonly reserved: Readonly<Record<string, unknown>>;
+  /**
+   * The document's named curves besides this default one (`curves`, document/namedCurves.ts), in
+   * build order; absent when it has none (every document before named curves).
+   */
+  readonly curves?: readonly WorkspaceCurve[];
 }
 
 export const DEFAULT_CURVE: CurveSettings = { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none', fit: 'none' };

@@ -12,6 +12,7 @@ import { KIND_ALLOWED_FIELDS, KIND_MODULE_LIST, QUOTE_KIND_MODULES } from '../ki
 import { withConventionSet } from '../kinds/conventionSets.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 import { isPlainObject } from './plainObject.ts';
+import { readNamedCurves } from './namedCurves.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
 import type { CalendarContext } from '../time/calendars.ts';
 import { CONVEXITY_MODELS, type ConvexityModel } from '../instruments/convexity.ts';
@@ -26,9 +27,9 @@ export const WORKSPACE_VERSION = 2;
 /** Top-level keys the workbench owns; the engine passes them through. */
 export const RESERVED_KEYS = ['scenarios', 'strategy', 'snapshots', 'view', 'note'] as const;
 const TOP_KEYS_V1 = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
-const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'curve', 'quotes', ...RESERVED_KEYS];
+const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'curve', 'quotes', 'curves', ...RESERVED_KEYS];
 /** Fields version 2 added: in a version 1 document each is an error that says so. */
-const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars'];
+const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars', 'curves'];
 /** `curve.fit`: none (the exact bootstrap only), nelson-siegel or svensson (src/core/fit). */
 const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit', 'futuresConvexity'];
 
@@ -92,7 +93,12 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   }
   const reserved: Record<string, unknown> = {};
   for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
-  return { workspace: { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved }, errors };
+  const workspace: Workspace = { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved };
+  if (doc.curves === undefined) return { workspace, errors };
+  // Named curves besides the default one (document/namedCurves.ts): each read as a workspace of its own.
+  const common = { format: doc.format, version: doc.version, valuationDate: settlement, calendars: doc.calendars, customCalendars: doc.customCalendars };
+  const curves = readNamedCurves(doc.curves, common, validateWorkspace, errors);
+  return curves === null ? { workspace: null, errors } : { workspace: { ...workspace, curves }, errors };
 }
 
 function checkDate(v: unknown, path: string, errors: CoreError[], quote: number | null = null): IsoDate | null {
