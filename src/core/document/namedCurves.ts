@@ -2,6 +2,7 @@ import { coreError, type CoreError } from '../result.ts';
 import { listOf, typeName } from '../kinds/fields.ts';
 import type { QuoteKind, Workspace } from './types.ts';
 import { isPlainObject } from './plainObject.ts';
+import { LIMITS } from './limits.ts';
 
 /**
  * The roles of a named curve: `discounting` (an overnight-index curve that discounts and projects
@@ -95,6 +96,10 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
       for (const key of ['index', 'discountCurve']) {
         if (c[key] !== undefined) errors.push(coreError('schema', `${base}.${key}`, `${label}: ${key} belongs to a projection curve; a ${String(role)} curve discounts on itself, so remove it`));
       }
+    }
+    if (Array.isArray(c.quotes) && c.quotes.length > LIMITS.quotes) {
+      errors.push(coreError('range', `${base}.quotes`, `${label}: ${c.quotes.length} quotes is more than the ${LIMITS.quotes} a curve may hold`));
+      continue;
     }
     const sub = read({ ...common, curve: c.curve, quotes: c.quotes });
     for (const e of sub.errors) {

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { buildCurve, buildNamedCurves, civilFromIso, curveClock, curveFromPillars, INTERPOLATIONS, validateWorkspace, type Curve, type CurveBuild, type SwapQuote } from '../../../src/core/index.ts';
+import { buildCurve, buildNamedCurves, civilFromIso, curveClock, curveFromPillars, INTERPOLATIONS, validateWorkspace, type Curve, type CurveBuild, type SwapQuote, workbenchFromEngine } from '../../../src/core/index.ts';
 import { ProjectedSwap } from '../../../src/core/instruments/projectedSwap.ts';
 import { goldenCase, GOLDEN_SEED } from '../../cli/golden.ts';
 
@@ -164,6 +164,11 @@ describe('named curves: errors that name what to change', () => {
     expect(errorsOf([proj({ quotes: [{ ...INDEX_6M[0], rate: 'x' }] })])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.rate: curves\[0\] "euribor6m": /)]);
   });
 
+  it('a curve holds at most as many quotes as a workspace (LIMITS.quotes, 500)', () => {
+    const many = Array.from({ length: 501 }, () => INDEX_6M[0]!);
+    expect(errorsOf([proj({ quotes: many })])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes: .*501 quotes is more than the 500/)]);
+  });
+
   it('a version 1 document refuses curves, naming version 2', () => {
     const e = validateWorkspace({ format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10', quotes: OIS, curves: [proj()] }).errors;
     expect(e.map((x) => x.path)).toEqual(['curves']);
@@ -177,5 +182,16 @@ describe('named curves: errors that name what to change', () => {
     // Built on a one-year discounting curve, the long swaps pay beyond it: each named.
     const [q] = buildNamedCurves(main.workspace!, main.curve);
     expect(q!.build.errors[0]!.message).toMatch(/^curves\[0\] "euribor6m": quotes\[\d\] \(swap .*\) pays on .* after the last pillar of its discounting curve "default"/);
+  });
+});
+
+describe('the workbench and named curves', () => {
+  it('refuses to open an engine file with named curves, saying the command line reads it', () => {
+    // The bridge's rule: a conversion is exact or refused (src/core/document/documentBridge.ts).
+    const r = workbenchFromEngine(twoCurveDoc(), () => 'id');
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.errors.map((e) => e.path)).toEqual(['curves']);
+    expect(r.errors[0]!.message).toMatch(/\("euribor6m"\).*not opened.*curve command/);
   });
 });
