@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { runCurveCommand } from '../../src/cli/curveCommand.ts';
-import { buildCurve, buildNamedCurves } from '../../src/core/index.ts';
+import { buildCurve, buildNamedCurves, readNamedCurves } from '../../src/core/index.ts';
 
 // The `curve` command on a document with named curves: every curve built and printed under its
 // name, the default curve's output where it was. The references are the engine's own builds
@@ -40,7 +40,7 @@ describe('curve on a document with named curves', () => {
     expect(curves.govt.role).toBe('government');
     expect(curves.govt.index).toBeUndefined();
     // The numbers are the engine's named build, to the bit.
-    const main = buildCurve(doc);
+    const main = buildCurve(doc, { readCurves: readNamedCurves });
     const [named] = buildNamedCurves(main.workspace!, main.curve);
     const c = named!.build.curve!;
     expect(p.points.map((x: { discount: number }) => x.discount)).toEqual(c.pillars.map((x) => x.discount));

@@ -7,7 +7,7 @@ import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
-import { validateWorkspace, type ValidationOutcome } from '../document/validate.ts';
+import { validateWorkspace, type CurvesReader, type ValidationOutcome } from '../document/validate.ts';
 import type { BootstrapOutcome, Repricing } from './bootstrap.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
 
@@ -48,6 +48,12 @@ export interface BuildOptions {
   readonly interpolation?: InterpolationId;
   /** Overrides the document's `curve.extrapolation`. */
   readonly extrapolation?: Extrapolation;
+  /**
+   * Reads the document's named curves (`readNamedCurves`, document/namedCurves.ts; the `curve`
+   * command passes it). Without it a document with `curves` is refused, naming them (the
+   * workbench, which shows one curve).
+   */
+  readonly readCurves?: CurvesReader;
 }
 
 /** Compiles one validated quote against a settlement date and curve day count. */
@@ -131,7 +137,7 @@ export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quot
  * the errors, the warnings and the quotes left out; never throws on bad input.
  */
 export function buildCurve(doc: unknown, options: BuildOptions = {}): CurveBuild {
-  return buildValidated(validateWorkspace(doc), options, compileWorkspace);
+  return buildValidated(validateWorkspace(doc, options.readCurves), options, compileWorkspace);
 }
 
 /** The market of a validated workspace: `compileMarket` of its quotes (or the builder's re-quoted one). */

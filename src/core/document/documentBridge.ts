@@ -78,10 +78,6 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   const wb = out as unknown as WorkbenchDocument;
   const again = validateWorkspace(toEngineDocument(wb).doc);
   const errors: CoreError[] = [];
-  if (ws.curves !== undefined) {
-    const names = ws.curves.map((c) => `"${c.name}"`).join(', ');
-    errors.push(coreError('schema', 'curves', `the file holds named curves besides its default one (${names}), and the workbench shows one curve: the file was not opened, so none is dropped silently. Build it with the curve command, which prints every curve, or remove curves from the file to open its default curve here`));
-  }
   if (ws.curve.fit !== 'none') errors.push(coreError('schema', 'curve.fit', `curve.fit "${ws.curve.fit}" has no place in the workbench document; choose the fit in the workbench's fit section instead, or remove curve.fit from the file`));
   const back = again.workspace?.quotes ?? [];
   if (back.length !== ws.quotes.length) errors.push(coreError('schema', 'quotes', `the sheet read ${back.length} of the file's ${ws.quotes.length} quotes; open it with the curve command instead`));

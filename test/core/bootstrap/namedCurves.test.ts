@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { buildCurve, buildNamedCurves, civilFromIso, curveClock, curveFromPillars, INTERPOLATIONS, validateWorkspace, type Curve, type CurveBuild, type SwapQuote, workbenchFromEngine } from '../../../src/core/index.ts';
+import { buildCurve, buildNamedCurves, civilFromIso, curveClock, curveFromPillars, INTERPOLATIONS, validateWorkspace, type Curve, type CurveBuild, type SwapQuote, workbenchFromEngine, readNamedCurves } from '../../../src/core/index.ts';
 import { ProjectedSwap } from '../../../src/core/instruments/projectedSwap.ts';
 import { goldenCase, GOLDEN_SEED } from '../../cli/golden.ts';
 
@@ -30,7 +30,7 @@ const twoCurveDoc = (interpolation = 'monotone-convex', ois = OIS) => ({
 
 /** The default build and the named builds of a document. */
 function buildAll(doc: unknown): { main: CurveBuild; named: ReturnType<typeof buildNamedCurves> } {
-  const main = buildCurve(doc);
+  const main = buildCurve(doc, { readCurves: readNamedCurves });
   expect(main.errors).toEqual([]);
   return { main, named: buildNamedCurves(main.workspace!, main.curve) };
 }
@@ -115,7 +115,7 @@ describe('the single-curve case of the named-curve build', () => {
       const alone = buildCurve(doc);
       if (alone.workspace === null || !Array.isArray(doc.quotes)) continue;
       const withCurves = { ...doc, curves: [{ name: 'copy', role: 'discounting', ...(doc.curve === undefined ? {} : { curve: doc.curve }), quotes: doc.quotes }] };
-      const main = buildCurve(withCurves);
+      const main = buildCurve(withCurves, { readCurves: readNamedCurves });
       const named = main.workspace === null ? [] : buildNamedCurves(main.workspace, main.curve);
       if (alone.errors.length > 0) {
         expect(main.errors.length, name).toBeGreaterThan(0);
@@ -135,7 +135,7 @@ describe('the single-curve case of the named-curve build', () => {
 });
 
 describe('named curves: errors that name what to change', () => {
-  const errorsOf = (curves: unknown) => validateWorkspace({ ...V2, quotes: OIS, curves }).errors.map((e) => `${e.path}: ${e.message}`);
+  const errorsOf = (curves: unknown) => validateWorkspace({ ...V2, quotes: OIS, curves }, readNamedCurves).errors.map((e) => `${e.path}: ${e.message}`);
   const proj = (over: Record<string, unknown> = {}) => ({ name: 'euribor6m', role: 'projection', index: '6M', discountCurve: 'default', quotes: INDEX_6M, ...over });
 
   it('a projection curve without a discounting curve', () => {
@@ -170,13 +170,13 @@ describe('named curves: errors that name what to change', () => {
   });
 
   it('a version 1 document refuses curves, naming version 2', () => {
-    const e = validateWorkspace({ format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10', quotes: OIS, curves: [proj()] }).errors;
+    const e = validateWorkspace({ format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10', quotes: OIS, curves: [proj()] }, readNamedCurves).errors;
     expect(e.map((x) => x.path)).toEqual(['curves']);
   });
 
   it('a projection curve whose discounting curve does not build says so', () => {
     const doc = twoCurveDoc();
-    const main = buildCurve({ ...doc, quotes: [OIS[0]!], curve: { ...doc.curve, extrapolation: 'none' } });
+    const main = buildCurve({ ...doc, quotes: [OIS[0]!], curve: { ...doc.curve, extrapolation: 'none' } }, { readCurves: readNamedCurves });
     const [p] = buildNamedCurves(main.workspace!, null);
     expect(p!.build.errors.map((e) => e.path)).toEqual(['curves[0].discountCurve']);
     // Built on a one-year discounting curve, the long swaps pay beyond it: each named.
@@ -186,12 +186,14 @@ describe('named curves: errors that name what to change', () => {
 });
 
 describe('the workbench and named curves', () => {
-  it('refuses to open an engine file with named curves, saying the command line reads it', () => {
-    // The bridge's rule: a conversion is exact or refused (src/core/document/documentBridge.ts).
+  it('refuses to open an engine file with named curves, naming them and saying the command line builds them', () => {
+    // The bridge's rule: a conversion is exact or refused (src/core/document/documentBridge.ts);
+    // without the named-curve reader (the workbench's build) validation refuses `curves`.
     const r = workbenchFromEngine(twoCurveDoc(), () => 'id');
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.errors.map((e) => e.path)).toEqual(['curves']);
-    expect(r.errors[0]!.message).toMatch(/\("euribor6m"\).*not opened.*curve command/);
+    expect(r.errors[0]!.message).toMatch(/\("euribor6m"\).*curve command.*does not open the file rather than drop them/);
+    expect(buildCurve(twoCurveDoc()).errors.map((e) => e.path)).toEqual(['curves']);
   });
 });
