@@ -1,7 +1,7 @@
 import type { Curve } from '../curve/curve.ts';
 import type { SwapQuote, Workspace } from '../document/types.ts';
 import { DEFAULT_CURVE_NAME, INDEX_TENORS, type WorkspaceCurve, type NamedCurveRole } from '../document/namedCurves.ts';
-import { ProjectedSwap } from '../instruments/projectedSwap.ts';
+import { ProjectedSwap, type BasisLeg } from '../instruments/projectedSwap.ts';
 import type { Instrument } from '../instruments/instrument.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { civilFromIso } from '../time/date.ts';
@@ -41,7 +41,7 @@ export function buildNamedCurves(ws: Workspace, defaultCurve: Curve | null, opti
       if (discount === null) {
         const e = coreError('no-solution', 'discountCurve', `its discounting curve "${c.discountCurve}" did not build; correct that curve first`);
         build = { curve: null, curves: {}, errors: [e], warnings: [], repricing: [], sweeps: 0, leftOut: [], workspace: c.workspace, instruments: [] };
-      } else build = buildValidated({ workspace: c.workspace, errors: [] }, options, projectedMarket(c, discount));
+      } else build = buildValidated({ workspace: c.workspace, errors: [] }, options, projectedMarket(c, discount, built, ws.curves!));
     }
     built.set(c.name, build.curve);
     out.push({ name: c.name, role: c.role, index: c.index, discountCurve: c.discountCurve, build: located(build, c) });
@@ -52,7 +52,7 @@ export function buildNamedCurves(ws: Workspace, defaultCurve: Curve | null, opti
 const compileOwn = (ws: Workspace, skip: boolean): CompiledMarket => compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, skip);
 
 /** A projection curve's market: today's compile, each swap then priced against its discounting curve. */
-function projectedMarket(c: WorkspaceCurve, discount: Curve) {
+function projectedMarket(c: WorkspaceCurve, discount: Curve, built: ReadonlyMap<string, Curve | null>, curves: readonly WorkspaceCurve[]) {
   return (ws: Workspace, skip: boolean): CompiledMarket => {
     const market = compileOwn(ws, skip);
     const s = civilFromIso(ws.settlement);
@@ -65,9 +65,22 @@ function projectedMarket(c: WorkspaceCurve, discount: Curve) {
         instruments.push(ins);
         continue;
       }
-      const p = ProjectedSwap.compile(ins.quote as SwapQuote, s, civilFromIso(ins.quote.maturity), time, discount, c.discountCurve!, perYear);
+      // A basis swap's other leg: the curve it names (built before it), over that curve's index periods (a discounting curve's overnight leg over this index's).
+      const against = c.basis.get(ins.index);
+      let basis: BasisLeg | undefined;
+      if (against !== undefined) {
+        const other = built.get(against) ?? null;
+        if (other === null) {
+          errors.push(coreError('no-solution', `quotes[${ins.index}].against`, `quotes[${ins.index}] (basis swap ${ins.maturity}): the curve of its other leg, "${against}", did not build; correct that curve first`, ins.index));
+          continue;
+        }
+        const index = curves.find((x) => x.name === against)?.index ?? null;
+        basis = { curve: other, name: against, perYear: index === null ? perYear : INDEX_TENORS[index]! };
+      }
+      const p = ProjectedSwap.compile(ins.quote as SwapQuote, s, civilFromIso(ins.quote.maturity), time, discount, c.discountCurve!, perYear, basis);
       if ('beyond' in p) {
-        errors.push(coreError('beyond-curve', `quotes[${ins.index}].maturity`, `quotes[${ins.index}] (swap ${ins.maturity}) pays on ${p.beyond}, after the last pillar of its discounting curve "${c.discountCurve}" (which does not extrapolate); add a longer quote to that curve or a shorter swap here`, ins.index));
+        const role = p.curve === c.discountCurve && against !== p.curve ? 'its discounting curve' : 'the curve of its other leg';
+        errors.push(coreError('beyond-curve', `quotes[${ins.index}].maturity`, `quotes[${ins.index}] (swap ${ins.maturity}) pays on ${p.beyond}, after the last pillar of ${role} "${p.curve}" (which does not extrapolate); add a longer quote to that curve or a shorter swap here`, ins.index));
       } else instruments.push(p);
     }
     return { ...market, instruments, errors };

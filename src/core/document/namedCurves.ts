@@ -33,6 +33,11 @@ export interface WorkspaceCurve {
   readonly discountCurve: string | null;
   /** Its position in the document's `curves` array (error paths). */
   readonly position: number;
+  /**
+   * A projection curve's basis swaps: quote index to the curve named by its `against` (a swap
+   * quote whose rate is the spread on this curve's index leg against that curve's leg); empty otherwise.
+   */
+  readonly basis: ReadonlyMap<number, string>;
   /** Its quotes and settings, read exactly as a document's top level (valuation date and calendars shared). */
   readonly workspace: Workspace;
 }
@@ -101,7 +106,21 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
       errors.push(coreError('range', `${base}.quotes`, `${label}: ${c.quotes.length} quotes is more than the ${LIMITS.quotes} a curve may hold`));
       continue;
     }
-    const sub = read({ ...common, curve: c.curve, quotes: c.quotes });
+    // A projection curve's basis swap is a swap quote with `against` (the other leg's curve): the
+    // field is taken off before the quote is read as a swap, and kept here by quote index.
+    const basis = new Map<number, string>();
+    let quotes = c.quotes;
+    if (projection && Array.isArray(quotes)) {
+      quotes = quotes.map((q: unknown, k) => {
+        if (!isPlainObject(q) || q.against === undefined) return q;
+        const { against, ...rest } = q;
+        if (q.kind !== 'swap' || typeof against !== 'string') {
+          errors.push(coreError('schema', `${base}.quotes[${k}].against`, `${label}: quotes[${k}].against names the curve of a basis swap's other leg, on a swap quote: write it on a {"kind": "swap"} as a curve's name, not ${typeName(against)} on a ${typeName(q.kind)}`));
+        } else basis.set(k, against);
+        return rest;
+      });
+    }
+    const sub = read({ ...common, curve: c.curve, quotes });
     for (const e of sub.errors) {
       // A quote's own error stays a quote's error (a caller may skip it); a refused part refuses the document.
       errors.push(coreError(e.code, `${base}.${e.path}`, `${label}: ${e.message}`));
@@ -120,7 +139,7 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
       }
       if (refused.size > 0) ws = { ...ws, quotes: ws.quotes.filter((q) => !refused.has(q.index)) };
     }
-    curves.push({ name, role: role as NamedCurveRole, index, discountCurve, position: i, workspace: ws });
+    curves.push({ name, role: role as NamedCurveRole, index, discountCurve, position: i, workspace: ws, basis });
   }
   if (errors.length > before && curves.length < raw.length) return null;
   for (const c of curves) {
@@ -128,31 +147,45 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
       errors.push(coreError('unknown-identifier', `curves[${c.position}].discountCurve`, `curves[${c.position}] "${c.name}": discountCurve "${c.discountCurve}" names no curve; use "${DEFAULT_CURVE_NAME}" or one of ${listOf([...names.keys()])}`));
     }
   }
-  if (errors.slice(before).some((e) => !/^curves\[\d+\]\.quotes\[\d+\]/.test(e.path))) return null;
+  for (const c of curves) {
+    for (const [k, against] of c.basis) {
+      if (against === c.name || (against !== DEFAULT_CURVE_NAME && !names.has(against))) {
+        const why = against === c.name ? 'is this curve itself' : 'names no curve';
+        errors.push(coreError('unknown-identifier', `curves[${c.position}].quotes[${k}].against`, `curves[${c.position}] "${c.name}": quotes[${k}].against "${against}" ${why}; name the curve of the other leg, "${DEFAULT_CURVE_NAME}" or one of ${listOf([...names.keys()].filter((n) => n !== c.name))}`));
+      }
+    }
+  }
+  if (errors.slice(before).some((e) => !/^curves\[\d+\]\.quotes\[\d+\]\.(?!against)/.test(e.path))) return null;
   return buildOrder(curves, errors);
 }
 
-/** The curves with every curve after the curve it is discounted on; a cycle is an error naming its curves. */
+/** The curves a curve needs built first: its discounting curve and the other legs of its basis swaps (named curves only). */
+const needs = (c: WorkspaceCurve): string[] => [...new Set([...(c.discountCurve === null ? [] : [c.discountCurve]), ...c.basis.values()])].filter((n) => n !== DEFAULT_CURVE_NAME);
+
+/**
+ * The curves with every curve after the curves it needs (its discounting curve, its basis swaps'
+ * other curves), in document order otherwise (a depth-first topological order); curves that need
+ * each other in a circle are an error naming them.
+ */
 function buildOrder(curves: readonly WorkspaceCurve[], errors: CoreError[]): readonly WorkspaceCurve[] | null {
   const byName = new Map(curves.map((c) => [c.name, c]));
   const done = new Set<string>();
   const order: WorkspaceCurve[] = [];
-  for (const start of curves) {
-    const path: WorkspaceCurve[] = [];
-    let c: WorkspaceCurve | undefined = start;
-    while (c !== undefined && !done.has(c.name)) {
-      if (path.includes(c)) {
-        const cycle = path.slice(path.indexOf(c)).map((x) => `"${x.name}"`);
-        errors.push(coreError('schema', `curves[${c.position}].discountCurve`, `the curves ${cycle.join(' -> ')} -> "${c.name}" are discounted on each other in a circle, so none can be built first; discount one of them on "${DEFAULT_CURVE_NAME}" or a discounting curve`));
-        return null;
-      }
-      path.push(c);
-      c = c.discountCurve === null ? undefined : byName.get(c.discountCurve);
+  const path: WorkspaceCurve[] = [];
+  const visit = (c: WorkspaceCurve): boolean => {
+    if (done.has(c.name)) return true;
+    if (path.includes(c)) {
+      const cycle = [...path.slice(path.indexOf(c)), c].map((x) => `"${x.name}"`);
+      errors.push(coreError('schema', `curves[${c.position}]`, `the curves ${cycle.join(' -> ')} each need the next built first (discountCurve, or a basis swap's against), in a circle, so none can be built first; discount one of them on "${DEFAULT_CURVE_NAME}" or a discounting curve, or quote the basis on the other curve`));
+      return false;
     }
-    for (let k = path.length - 1; k >= 0; k--) {
-      done.add(path[k]!.name);
-      order.push(path[k]!);
-    }
-  }
+    path.push(c);
+    for (const n of needs(c)) if (!visit(byName.get(n)!)) return false;
+    path.pop();
+    done.add(c.name);
+    order.push(c);
+    return true;
+  };
+  for (const c of curves) if (!visit(c)) return null;
   return order;
 }

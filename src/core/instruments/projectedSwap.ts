@@ -29,6 +29,14 @@ const discountOn = (curve: Curve, d: CivilDate): number => Math.exp(curve.lnDisc
  * node solvers, joint Newton step and sensitivities treat it as they treat a lagged OIS.
  * To the bootstrap it reads one curve, the one being solved (DISCOUNTING_AND_PROJECTING in that
  * build); `discountedOn` names the curve its constants came from.
+ *
+ * A basis swap (`BasisLeg` given) is the same instrument with the fixed leg replaced: this curve's
+ * index leg plus the quoted spread K, accruing over the index periods on the quote's day count
+ * (tau^s_j, annuity A_s = sum_j tau^s_j P_d(T_j)), against the other curve's index leg, worth
+ * C = sum_k (P_o(T_{k-1}) / P_o(T_k) - 1) P_d(T_k) over that index's periods from the other curve
+ * P_o (built before, fixed). Par spread K = (C - floating leg) / A_s; the pricing equation is
+ * C - K A_s - floating leg = 0. A convention of this build (the spread on this curve's leg, both
+ * legs paid at their period ends, from the valuation date), from general knowledge of basis swaps.
  */
 export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
   declare readonly amounts: number[];
@@ -44,6 +52,10 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     rate: number,
     /** The curve the fixed discount factors were read from. */
     readonly discountedOn: string,
+    /** For a basis swap, the other leg's value C on its curve (fixed); 0 for a fixed-rate swap. */
+    readonly otherLeg: number,
+    /** +1 for a fixed-rate swap (K A against the floating leg), -1 for a basis swap (the spread on the floating leg's side). */
+    readonly side: 1 | -1,
   ) {
     super(q, t, times, 'rate', 'rate', rate, new Array<number>(times.length).fill(0), 1, null, DISCOUNTING_AND_PROJECTING);
   }
@@ -53,16 +65,28 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
    * `indexPerYear` a year. `time` is the projection curve's clock. Null when a payment date lies
    * beyond the discounting curve and that curve does not extrapolate (the date is returned).
    */
-  static compile(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, time: (d: CivilDate) => number, discount: Curve, discountedOn: string, indexPerYear: number): ProjectedSwap | { beyond: string } {
-    const fixed = fixedLegCivil(settlement, maturity, q.frequency, q.dayCount, q.eom);
+  static compile(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, time: (d: CivilDate) => number, discount: Curve, discountedOn: string, indexPerYear: number, basis?: BasisLeg): ProjectedSwap | { beyond: string; curve: string } {
+    const end = isoFromCivil(maturity);
+    for (const [c, name] of [[discount, discountedOn], ...(basis ? [[basis.curve, basis.name] as const] : [])] as const) {
+      if (c.extrapolation === 'none' && c.time(end) > c.lastT) return { beyond: end, curve: name };
+    }
+    // The fixed leg, or for a basis swap the spread's accruals over this index's periods.
+    const fixed = basis ? fixedLegCivil(settlement, maturity, indexPerYear, q.dayCount, q.eom) : fixedLegCivil(settlement, maturity, q.frequency, q.dayCount, q.eom);
     const floating = backwardScheduleCivil(settlement, maturity, indexPerYear, q.eom).dates;
-    const last = fixed.dates.length > 0 ? fixed.dates[fixed.dates.length - 1]! : maturity;
-    if (discount.extrapolation === 'none' && discount.time(isoFromCivil(last)) > discount.lastT) return { beyond: isoFromCivil(last) };
     let annuity = 0;
     for (let i = 0; i < fixed.dates.length; i++) annuity += fixed.taus[i]! * discountOn(discount, fixed.dates[i]!);
+    let otherLeg = 0;
+    if (basis) {
+      let prev = 0;
+      for (const d of backwardScheduleCivil(settlement, maturity, basis.perYear, q.eom).dates) {
+        const ln = basis.curve.lnDiscountAt(basis.curve.time(isoFromCivil(d)));
+        otherLeg += Math.expm1(prev - ln) * discountOn(discount, d);
+        prev = ln;
+      }
+    }
     const times = floating.map(time);
     const weights = floating.map((d) => discountOn(discount, d));
-    return new ProjectedSwap(q, times[times.length - 1]!, times, weights, annuity, q.rate, discountedOn);
+    return new ProjectedSwap(q, times[times.length - 1]!, times, weights, annuity, q.rate, discountedOn, otherLeg, basis ? -1 : 1);
   }
 
   /** The floating leg sum_j (P_p(T_{j-1}) / P_p(T_j) - 1) w_j, each growth as expm1 of the ln DF difference (P_p(T_0) = 1 at the valuation date). */
@@ -78,13 +102,14 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     return float;
   }
 
+  /** floating leg - K A (a swap), or floating leg + K A_s - C (a basis swap). */
   targetFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.floatingLeg(ln, offset) - this.market * this.annuity;
+    return this.floatingLeg(ln, offset) - this.side * this.market * this.annuity - this.otherLeg;
   }
 
-  /** K A - floating leg: the same value as 0 - targetFromFlows, rising with the pillar's DF. */
+  /** K A - floating leg, or C - K A_s - floating leg: the same value as 0 - targetFromFlows, rising with the pillar's DF. */
   residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.market * this.annuity - this.floatingLeg(ln, offset);
+    return this.otherLeg + this.side * this.market * this.annuity - this.floatingLeg(ln, offset);
   }
 
   /** d targetFromFlows / d ln P_p(T_j): coupon j, c_j = P_p(T_{j-1}) w_j / P_p(T_j), adds c_j at T_{j-1} and -c_j at T_j. */
@@ -101,12 +126,19 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     }
   }
 
-  /** S = floating leg / A. */
+  /** S = floating leg / A, or K = (C - floating leg) / A_s. */
   quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.floatingLeg(ln, offset) / this.annuity;
+    return this.side === 1 ? this.floatingLeg(ln, offset) / this.annuity : (this.otherLeg - this.floatingLeg(ln, offset)) / this.annuity;
   }
 
   requote(value: number): Instrument {
-    return new ProjectedSwap(this.quote, this.t, this.times, this.weights, this.annuity, value, this.discountedOn);
+    return new ProjectedSwap(this.quote, this.t, this.times, this.weights, this.annuity, value, this.discountedOn, this.otherLeg, this.side);
   }
+}
+
+/** A basis swap's other leg: the curve projecting it (built before, fixed), its name and its index periods a year. */
+export interface BasisLeg {
+  readonly curve: Curve;
+  readonly name: string;
+  readonly perYear: number;
 }

@@ -155,7 +155,7 @@ describe('named curves: errors that name what to change', () => {
 
   it('a circular dependency names the curves in the cycle', () => {
     const errors = errorsOf([proj({ name: 'a', discountCurve: 'b' }), proj({ name: 'b', discountCurve: 'c' }), proj({ name: 'c', discountCurve: 'a' })]);
-    expect(errors).toEqual([expect.stringMatching(/the curves "a" -> "b" -> "c" -> "a" are discounted on each other in a circle/)]);
+    expect(errors).toEqual([expect.stringMatching(/^curves\[0\]: the curves "a" -> "b" -> "c" -> "a" each need the next built first .* in a circle/)]);
   });
 
   it('a projection curve refuses a bond and names it; a quote\'s own error is located in its curve', () => {
@@ -182,6 +182,76 @@ describe('named curves: errors that name what to change', () => {
     // Built on a one-year discounting curve, the long swaps pay beyond it: each named.
     const [q] = buildNamedCurves(main.workspace!, main.curve);
     expect(q!.build.errors[0]!.message).toMatch(/^curves\[0\] "euribor6m": quotes\[\d\] \(swap .*\) pays on .* after the last pillar of its discounting curve "default"/);
+  });
+});
+
+/** An invented three-month index: deposits, and basis swaps quoted as the spread on its leg against the six-month index. */
+const INDEX_3M = [
+  { kind: 'deposit', tenor: '3M', rate: 0.0236, dayCount: 'ACT/360' },
+  ...(['1Y', '2Y', '5Y', '10Y'] as const).map((tenor, i) => ({ kind: 'swap', tenor, rate: [0.0008, 0.0009, 0.0011, 0.0012][i]!, dayCount: 'ACT/360', against: 'euribor6m' })),
+];
+const threeCurveDoc = (interpolation = 'monotone-convex', against = 'euribor6m') => {
+  const doc = twoCurveDoc(interpolation);
+  return { ...doc, curves: [{ name: 'euribor3m', role: 'projection', index: '3M', discountCurve: 'default', curve: doc.curve, quotes: INDEX_3M.map((q) => ('against' in q ? { ...q, against } : q)) }, ...doc.curves] };
+};
+
+describe('basis swaps', () => {
+  it('the par spread of a 1Y three-month against six-month basis swap equals the hand calculation to 1e-15', () => {
+    // Three curves given by discount factors (invented), log-linear between nodes. The spread K is on
+    // the 3M leg, accruing ACT/360 over its periods; both legs paid at their period ends:
+    // K = (sum_k tau_k F6_k P_d(T_k) - sum_j tau_j F3_j P_d(T_j)) / sum_j tau_j P_d(T_j).
+    const q3 = ['2027-06-10', '2027-09-10', '2027-12-10', '2028-03-10'];
+    const P3 = [0.99405, 0.98801, 0.98197, 0.97589];
+    const P6 = [0.98772, 0.97541];
+    const Pd = [0.99462, 0.98921, 0.98376, 0.97829];
+    const time = curveClock('ACT/365F', civilFromIso('2027-03-10'));
+    const curveOf = (dates: string[], dfs: number[]): Curve => curveFromPillars('2027-03-10', 'ACT/365F', 'log-linear-discount', 'none', dates.map((date, i) => ({ date, t: time(civilFromIso(date)), discount: dfs[i]!, quote: i })));
+    const three = curveOf(q3, P3);
+    const six = curveOf([q3[1]!, q3[3]!], P6);
+    const discount = curveOf(q3, Pd);
+    const tau3 = [92 / 360, 92 / 360, 91 / 360, 91 / 360];
+    const leg3 = (1 / P3[0]! - 1) * Pd[0]! + (P3[0]! / P3[1]! - 1) * Pd[1]! + (P3[1]! / P3[2]! - 1) * Pd[2]! + (P3[2]! / P3[3]! - 1) * Pd[3]!;
+    const leg6 = (1 / P6[0]! - 1) * Pd[1]! + (P6[0]! / P6[1]! - 1) * Pd[3]!;
+    const annuity = tau3[0]! * Pd[0]! + tau3[1]! * Pd[1]! + tau3[2]! * Pd[2]! + tau3[3]! * Pd[3]!;
+    const K = (leg6 - leg3) / annuity;
+    const q = { kind: 'swap', index: 0, maturity: '2028-03-10', tenor: '1Y', enabled: true, rate: 0.001, frequency: 1, dayCount: 'ACT/360', eom: false } as SwapQuote;
+    const ins = ProjectedSwap.compile(q, civilFromIso('2027-03-10'), civilFromIso('2028-03-10'), time, discount, 'ois', 4, { curve: six, name: 'euribor6m', perYear: 2 });
+    if ('beyond' in ins) throw new Error('in range');
+    expect(Math.abs(ins.modelQuote((t) => three.lnDiscountAt(t)) - K)).toBeLessThanOrEqual(1e-15);
+    expect(Math.abs(K)).toBeGreaterThan(1e-5);
+  });
+
+  it.each(INTERPOLATIONS)('a three-month curve of deposits and basis swaps against the six-month curve, and one against the overnight curve, reprice to 1e-14 (%s)', (method) => {
+    for (const against of ['euribor6m', 'default']) {
+      const { named } = buildAll(threeCurveDoc(method, against));
+      const three = named.find((n) => n.name === 'euribor3m')!;
+      expect(three.build.errors).toEqual([]);
+      expect(three.build.repricing).toHaveLength(INDEX_3M.length);
+      for (const r of three.build.repricing) expect(Math.abs(r.repricingError)).toBeLessThanOrEqual(1e-14);
+      // Built after the curve of its other leg, whatever the document's order.
+      expect(named.map((n) => n.name)).toEqual(against === 'default' ? ['euribor3m', 'euribor6m'] : ['euribor6m', 'euribor3m']);
+    }
+  });
+
+  it('a six-month quote moves the three-month curve through its basis swaps', () => {
+    const base = buildAll(threeCurveDoc()).named.find((n) => n.name === 'euribor3m')!.build.curve!;
+    const doc = threeCurveDoc();
+    const bumped = { ...doc, curves: doc.curves.map((c) => (c.name === 'euribor6m' ? { ...c, quotes: c.quotes.map((q) => (q.tenor === '5Y' ? { ...q, rate: q.rate + 0.0001 } : q)) } : c)) };
+    const moved = buildAll(bumped).named.find((n) => n.name === 'euribor3m')!.build.curve!;
+    expect(Math.abs(moved.lnDiscountAt(4) - base.lnDiscountAt(4))).toBeGreaterThan(1e-7);
+    expect(moved.pillars[0]).toEqual(base.pillars[0]);
+  });
+
+  it('errors: against naming no curve, the curve itself, a quote that is not a swap, and basis swaps in a circle', () => {
+    const errorsOf = (curves: unknown) => validateWorkspace({ ...V2, quotes: OIS, curves }, readNamedCurves).errors.map((e) => `${e.path}: ${e.message}`);
+    const three = (against: string, extra: Record<string, unknown> = {}) => ({ name: 'euribor3m', role: 'projection', index: '3M', discountCurve: 'default', quotes: [{ kind: 'swap', tenor: '2Y', rate: 0.001, dayCount: 'ACT/360', against }], ...extra });
+    expect(errorsOf([three('euribor1m')])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.against: .*"euribor1m" names no curve/)]);
+    expect(errorsOf([three('euribor3m')])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.against: .*"euribor3m" is this curve itself/)]);
+    expect(errorsOf([{ ...three('default'), quotes: [{ kind: 'deposit', tenor: '3M', rate: 0.02, against: 'default' }] }])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.against: .*on a swap quote/)]);
+    const six = { name: 'euribor6m', role: 'projection', index: '6M', discountCurve: 'default', quotes: [{ kind: 'swap', tenor: '2Y', rate: -0.001, dayCount: 'ACT/360', against: 'euribor3m' }] };
+    expect(errorsOf([three('euribor6m'), six])).toEqual([expect.stringMatching(/the curves "euribor3m" -> "euribor6m" -> "euribor3m" each need the next built first/)]);
+    // On a discounting curve `against` is not a field of a swap.
+    expect(errorsOf([{ name: 'estr', role: 'discounting', quotes: [{ kind: 'swap', tenor: '2Y', rate: 0.02, against: 'default' }] }])[0]).toMatch(/^curves\[0\]\.quotes\[0\]\.against: /);
   });
 });
 
