@@ -255,6 +255,35 @@ describe('basis swaps', () => {
   });
 });
 
+describe('named curves: bad input never throws', () => {
+  it('2,000 seeded damages of a three-curve document give a build or errors naming a path, never an exception or a silent NaN', async () => {
+    // Damage: one value somewhere under `curves` replaced by junk (invented; the seeded generator of test/cli/golden.ts).
+    const { generator } = await import('../../cli/golden.ts');
+    const r = generator(18);
+    const junk = [null, 0, -1, 1e308, 'x', '', 'default', 'euribor6m', [], {}, true, '3M', 'projection', [{}]];
+    for (let n = 0; n < 2000; n++) {
+      const doc = JSON.parse(JSON.stringify(threeCurveDoc())) as Record<string, unknown>;
+      const paths: [Record<string, unknown> | unknown[], string | number][] = [];
+      const walk = (v: unknown) => {
+        if (Array.isArray(v)) v.forEach((x, i) => { paths.push([v, i]); walk(x); });
+        else if (v !== null && typeof v === 'object') for (const [k, x] of Object.entries(v)) { paths.push([v as Record<string, unknown>, k]); walk(x); }
+      };
+      walk(doc.curves);
+      const [holder, key] = paths[Math.floor(r() * paths.length)]!;
+      (holder as Record<string | number, unknown>)[key] = junk[Math.floor(r() * junk.length)];
+      const main = buildCurve(doc, { readCurves: readNamedCurves });
+      if (main.errors.length > 0) {
+        for (const e of main.errors) expect(e.path === '' || /^(curves|quotes)/.test(e.path), e.message).toBe(true);
+        continue;
+      }
+      for (const b of buildNamedCurves(main.workspace!, main.curve)) {
+        if (b.build.errors.length > 0) for (const e of b.build.errors) expect(e.path).toMatch(/^curves\[\d\]\./);
+        else for (const x of b.build.repricing) expect(Number.isFinite(x.repricingError)).toBe(true);
+      }
+    }
+  });
+});
+
 describe('the workbench and named curves', () => {
   it('refuses to open an engine file with named curves, naming them and saying the command line builds them', () => {
     // The bridge's rule: a conversion is exact or refused (src/core/document/documentBridge.ts);
