@@ -2,6 +2,7 @@ import type { Curve } from '../curve/curve.ts';
 import type { SwapQuote, Workspace } from '../document/types.ts';
 import { DEFAULT_CURVE_NAME, INDEX_TENORS, type WorkspaceCurve, type NamedCurveRole } from '../document/namedCurves.ts';
 import { ProjectedSwap, type BasisLeg } from '../instruments/projectedSwap.ts';
+import { moduleOf } from '../kinds/registry.ts';
 import type { Instrument } from '../instruments/instrument.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { civilFromIso } from '../time/date.ts';
@@ -61,7 +62,7 @@ function projectedMarket(c: WorkspaceCurve, discount: Curve, built: ReadonlyMap<
     const errors: CoreError[] = [...market.errors];
     const instruments: Instrument[] = [];
     for (const ins of market.instruments) {
-      if (ins.kind !== 'swap') {
+      if (moduleOf(ins.quote).onProjection?.(ins.quote) !== 'index-swap') {
         instruments.push(ins);
         continue;
       }

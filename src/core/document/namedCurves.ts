@@ -1,6 +1,7 @@
 import { coreError, type CoreError } from '../result.ts';
 import { listOf, typeName } from '../kinds/fields.ts';
-import type { QuoteKind, Workspace } from './types.ts';
+import type { Workspace } from './types.ts';
+import { moduleOf } from '../kinds/registry.ts';
 import { isPlainObject } from './plainObject.ts';
 import { LIMITS } from './limits.ts';
 
@@ -20,8 +21,6 @@ export const INDEX_TENORS: Readonly<Record<string, number>> = { '1M': 12, '3M': 
 export const NAMED_CURVES_MAX = 8;
 const NAME = /^[A-Za-z][A-Za-z0-9_-]{0,31}$/;
 const CURVE_ENTRY_KEYS = ['name', 'role', 'index', 'discountCurve', 'curve', 'quotes'];
-/** Kinds a projection curve refuses: their value is not a ratio of the index's discount factors. */
-const NOT_ON_PROJECTION: readonly QuoteKind[] = ['bond', 'bill', 'zero', 'par-yield', 'ois'];
 
 /** A named curve of a document, its quotes and settings validated as a workspace of their own. */
 export interface WorkspaceCurve {
@@ -114,9 +113,8 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
       quotes = quotes.map((q: unknown, k) => {
         if (!isPlainObject(q) || q.against === undefined) return q;
         const { against, ...rest } = q;
-        if (q.kind !== 'swap' || typeof against !== 'string') {
-          errors.push(coreError('schema', `${base}.quotes[${k}].against`, `${label}: quotes[${k}].against names the curve of a basis swap's other leg, on a swap quote: write it on a {"kind": "swap"} as a curve's name, not ${typeName(against)} on a ${typeName(q.kind)}`));
-        } else basis.set(k, against);
+        if (typeof against !== 'string') errors.push(coreError('schema', `${base}.quotes[${k}].against`, `${label}: quotes[${k}].against names the curve of a basis swap's other leg as a curve's name, not ${typeName(against)}`));
+        else basis.set(k, against);
         return rest;
       });
     }
@@ -130,11 +128,14 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
     if (projection) {
       const refused = new Set<number>();
       for (const q of ws.quotes) {
-        const dated = q.kind === 'swap' && q.calendar !== undefined;
-        if (NOT_ON_PROJECTION.includes(q.kind) || dated) {
-          const what = dated ? 'a swap with date conventions (calendar, spotLag, businessDay, paymentLag)' : `a ${q.kind}`;
+        // The kind's module says how it builds a projection curve (kinds/types.ts, onProjection).
+        const how = moduleOf(q).onProjection?.(q) ?? null;
+        if (how === null) {
+          const what = moduleOf(q).onProjection ? `a ${q.kind} with date conventions (calendar, spotLag, businessDay, paymentLag)` : `a ${q.kind}`;
           refused.add(q.index);
           errors.push(coreError('schema', `${base}.quotes[${q.index}].kind`, `${label}: quotes[${q.index}] is ${what}, which a projection curve does not take; it takes deposits, FRAs, futures and swaps from the valuation date (fixed against the index), so move it to a discounting or government curve`));
+        } else if (how !== 'index-swap' && basis.has(q.index)) {
+          errors.push(coreError('schema', `${base}.quotes[${q.index}].against`, `${label}: quotes[${q.index}] is a ${q.kind}; against names the other leg of a basis swap, so it belongs on a {"kind": "swap"} quote`));
         }
       }
       if (refused.size > 0) ws = { ...ws, quotes: ws.quotes.filter((q) => !refused.has(q.index)) };

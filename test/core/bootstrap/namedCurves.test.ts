@@ -247,7 +247,7 @@ describe('basis swaps', () => {
     const three = (against: string, extra: Record<string, unknown> = {}) => ({ name: 'euribor3m', role: 'projection', index: '3M', discountCurve: 'default', quotes: [{ kind: 'swap', tenor: '2Y', rate: 0.001, dayCount: 'ACT/360', against }], ...extra });
     expect(errorsOf([three('euribor1m')])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.against: .*"euribor1m" names no curve/)]);
     expect(errorsOf([three('euribor3m')])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.against: .*"euribor3m" is this curve itself/)]);
-    expect(errorsOf([{ ...three('default'), quotes: [{ kind: 'deposit', tenor: '3M', rate: 0.02, against: 'default' }] }])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.against: .*on a swap quote/)]);
+    expect(errorsOf([{ ...three('default'), quotes: [{ kind: 'deposit', tenor: '3M', rate: 0.02, against: 'default' }] }])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes\[0\]\.against: .*quotes\[0\] is a deposit; against .* belongs on a \{"kind": "swap"\} quote/)]);
     const six = { name: 'euribor6m', role: 'projection', index: '6M', discountCurve: 'default', quotes: [{ kind: 'swap', tenor: '2Y', rate: -0.001, dayCount: 'ACT/360', against: 'euribor3m' }] };
     expect(errorsOf([three('euribor6m'), six])).toEqual([expect.stringMatching(/the curves "euribor3m" -> "euribor6m" -> "euribor3m" each need the next built first/)]);
     // On a discounting curve `against` is not a field of a swap.
