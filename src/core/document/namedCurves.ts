@@ -156,7 +156,8 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
       }
     }
   }
-  if (errors.slice(before).some((e) => !/^curves\[\d+\]\.quotes\[\d+\]\.(?!against)/.test(e.path))) return null;
+  // Only a quote's own errors leave the curves usable (its quote left out when skipping); `against` is the curve's wiring.
+  if (errors.slice(before).some((e) => !/^curves\[\d+\]\.quotes\[\d+\](?!\.against)(\.|$)/.test(e.path))) return null;
   return buildOrder(curves, errors);
 }
 

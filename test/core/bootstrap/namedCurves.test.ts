@@ -169,6 +169,15 @@ describe('named curves: errors that name what to change', () => {
     expect(errorsOf([proj({ quotes: many })])).toEqual([expect.stringMatching(/^curves\[0\]\.quotes: .*501 quotes is more than the 500/)]);
   });
 
+  it('a quote that is not an object is a quote error: skipped, the rest of its curve builds', () => {
+    const doc = { ...twoCurveDoc(), curves: [{ ...twoCurveDoc().curves[0]!, quotes: [...INDEX_6M, 'x'] }] };
+    const main = buildCurve(doc, { readCurves: readNamedCurves, skipInvalid: true });
+    expect(main.warnings.map((w) => w.path)).toContain('curves[0].quotes[8]');
+    const [p] = buildNamedCurves(main.workspace!, main.curve);
+    expect(p!.build.errors).toEqual([]);
+    expect(p!.build.repricing).toHaveLength(INDEX_6M.length);
+  });
+
   it('a version 1 document refuses curves, naming version 2', () => {
     const e = validateWorkspace({ format: 'tenorscope-workspace', version: 1, settlement: '2027-03-10', quotes: OIS, curves: [proj()] }, readNamedCurves).errors;
     expect(e.map((x) => x.path)).toEqual(['curves']);
