@@ -77,6 +77,16 @@ describe('a term-index swap on two curves', () => {
     expect(ten).toBeInstanceOf(ProjectedSwap);
   });
 
+  it.each(INTERPOLATIONS)('discounted on the one-curve build of its own quotes, a projection curve is that curve (the floating leg telescopes to 1 - P(T_n) when P_p = P_d), nodes to 1e-14 (%s)', (method) => {
+    // The identity: sum_j (P(T_{j-1}) / P(T_j) - 1) P(T_j) = sum_j (P(T_{j-1}) - P(T_j)) = 1 - P(T_n), so the
+    // single-curve solution solves the two-curve equations too (the curve is unique node by node).
+    const doc = { ...V2, curve: { dayCount: 'ACT/365F', interpolation: method }, quotes: INDEX_6M, curves: [{ name: 'p', role: 'projection', index: '6M', discountCurve: 'default', curve: { dayCount: 'ACT/365F', interpolation: method }, quotes: INDEX_6M }] };
+    const { main, named } = buildAll(doc);
+    const p = named[0]!.build.curve!;
+    expect(p.pillars.map((x) => x.date)).toEqual(main.curve!.pillars.map((x) => x.date));
+    p.pillars.forEach((x, i) => expect(Math.abs(Math.log(x.discount) - Math.log(main.curve!.pillars[i]!.discount))).toBeLessThanOrEqual(1e-14));
+  });
+
   it('a discounting quote moves a projection forward; its deposits, which read no discounting curve, do not move', () => {
     const base = buildAll(twoCurveDoc()).named[0]!.build.curve!;
     const bumpedOis = OIS.map((q) => (q.tenor === '7Y' ? { ...q, rate: q.rate + 0.0001 } : q));
