@@ -32,6 +32,11 @@ import {
   type BusinessCalendar,
   BUILT_IN_CALENDARS,
   zeroOn,
+  buildNamedCurves,
+  readNamedCurves,
+  type Curve,
+  type CurveBuild,
+  type Workspace,
   type Compounding,
   type CoreError,
   type CoreWarning,
@@ -332,7 +337,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
   const read = engineFromAnyDocument(input);
   const failed = (errors: readonly CoreError[]) => ({ line: failedLine(index, errors), errors });
   if (read.errors.length > 0 && !opts.skipInvalid) return failed(read.errors);
-  const built = builder.build(read.doc, { skipInvalid: opts.skipInvalid, overnight: OVERNIGHT_KIT, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}) });
+  const built = builder.build(read.doc, { skipInvalid: opts.skipInvalid, overnight: OVERNIGHT_KIT, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}), readCurves: readNamedCurves });
   const build = read.rowOfQuote === null ? built : { ...built, errors: atInputRows(built.errors, read.rowOfQuote), warnings: [...read.errors.map(skippedRow), ...atInputRows(built.warnings, read.rowOfQuote)] };
   if (!build.curve || build.errors.length > 0) return failed(build.errors);
   const curve = build.curve;
@@ -441,6 +446,8 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });
   }
   if (errors.length > 0) return failed(errors);
+  const named = build.workspace?.curves === undefined ? null : namedCurveOutput(build.workspace, curve, opts);
+  if (named !== null && !named.ok) return failed(named.errors);
   return {
     line: builtDocumentLine({
       index,
@@ -456,10 +463,75 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
       forwards,
       ...(opts.bonds.length > 0 ? { bonds } : {}),
       warnings: build.warnings,
+      ...(named !== null ? { curves: named.value } : {}),
     }),
     errors: [],
   };
 }
+
+/**
+ * The named curves of a document (`curves`), built after its default curve, each printed under its
+ * name: its role (and a projection curve's index and discounting curve), its settings, its quotes
+ * repriced, its points (the `--at` dates, or its pillars) and `--forward` rates in the asked
+ * compounding and day count, its warnings. `--bond` is priced on the default curve only. An error
+ * of any curve fails the document, its path and message naming the curve.
+ */
+function namedCurveOutput(ws: Workspace, defaultCurve: Curve, opts: Options): { ok: true; value: Record<string, object> } | { ok: false; errors: readonly CoreError[] } {
+  const value: Record<string, object> = {};
+  const errors: CoreError[] = [];
+  for (const n of [...buildNamedCurves(ws, defaultCurve, opts.extrapolate ? { skipInvalid: opts.skipInvalid, extrapolation: opts.extrapolate } : { skipInvalid: opts.skipInvalid })].sort((a, b) => position(ws, a.name) - position(ws, b.name))) {
+    const b: CurveBuild = n.build;
+    if (!b.curve || b.errors.length > 0) {
+      errors.push(...b.errors);
+      continue;
+    }
+    const curve = b.curve;
+    const where = `curves[${position(ws, n.name)}]`;
+    const dc = opts.dayCount ?? curve.dayCount;
+    const located = (es: readonly CoreError[]) => es.map((e) => ({ ...e, path: `${where}.${e.path}`, message: `${where} "${n.name}": ${e.message}` }));
+    const points: PointOut[] = [];
+    const count = opts.at ? opts.at.length : curve.pillars.length;
+    for (let i = 0; i < count; i++) {
+      const date = opts.at ? resolve(opts.at[i]!, ws.settlement) : curve.pillars[i]!.date;
+      const z = zeroOn(curve, date, opts.compounding, dc, opts.at ? `--at[${i}]` : `quotes[${curve.pillars[i]!.quote}]`);
+      if (!z.ok) errors.push(...located(z.errors));
+      else points.push(z.value.extrapolated ? { date, t: z.value.t, discount: z.value.discount, zero: z.value.zero, extrapolated: true } : { date, t: z.value.t, discount: z.value.discount, zero: z.value.zero });
+    }
+    const forwards: ForwardOut[] = [];
+    for (let i = 0; i < opts.forward.length; i++) {
+      const [s, e] = opts.forward[i]!;
+      const f = forwardOn(curve, resolve(s, ws.settlement), resolve(e, ws.settlement), opts.compounding, dc, `--forward[${i}]`);
+      if (!f.ok) errors.push(...located(f.errors));
+      else forwards.push(f.value.extrapolated ? { start: f.value.start, end: f.value.end, tau: f.value.tau, rate: f.value.rate, extrapolated: true } : { start: f.value.start, end: f.value.end, tau: f.value.tau, rate: f.value.rate });
+    }
+    const quoteAt: Quote[] = [];
+    for (const q of b.workspace?.quotes ?? []) quoteAt[q.index] = q;
+    const quotes: QuoteOut[] = b.repricing.map((r) => {
+      const q = quoteAt[r.index];
+      const d = q && moduleOf(q).dates !== undefined ? quoteDates(q, ws.settlement) : null;
+      return { index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError, start: d ? d.start : ws.settlement, end: d ? d.end : (q?.maturity ?? r.maturity), pillar: r.maturity, payment: d ? d.payment : null };
+    });
+    const numbers = [...points.flatMap((p) => [p.t, p.discount, p.zero]), ...forwards.flatMap((f) => [f.tau, f.rate]), ...quotes.flatMap((q) => [q.t, q.repricingError])];
+    if (!numbers.every(Number.isFinite)) errors.push({ path: where, quote: null, code: 'no-solution', message: `${where} "${n.name}": a result is not a finite number; check its quotes and the dates asked for` });
+    value[n.name] = {
+      role: n.role,
+      ...(n.index !== null ? { index: n.index, discountCurve: n.discountCurve } : {}),
+      interpolation: curve.interpolation,
+      curveDayCount: curve.dayCount,
+      compounding: opts.compounding,
+      rateDayCount: dc,
+      extrapolation: curve.extrapolation,
+      quotes: quotes.map(({ payment, ...q }) => (payment === null ? q : { ...q, payment })),
+      points,
+      forwards,
+      warnings: b.warnings,
+    };
+  }
+  return errors.length > 0 ? { ok: false, errors } : { ok: true, value };
+}
+
+/** A named curve's position in the document's `curves` array. */
+const position = (ws: Workspace, name: string): number => ws.curves!.find((c) => c.name === name)!.position;
 
 /** Standard output is handed to `write` in pieces of about this many characters (see runCurveCommand). */
 export const OUTPUT_CHUNK_CHARS = 1 << 16;

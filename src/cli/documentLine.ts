@@ -55,6 +55,8 @@ export interface BuiltDocument {
   readonly forwards: readonly ForwardOut[];
   readonly bonds?: readonly object[];
   readonly warnings: readonly CoreWarning[];
+  /** The document's named curves, each under its name (only when it has some; namedCurveOutput in curveCommand.ts). */
+  readonly curves?: Readonly<Record<string, object>>;
 }
 
 /**
@@ -93,5 +95,6 @@ export function builtDocumentLine(o: BuiltDocument): string {
   }
   s += ']';
   if (o.bonds !== undefined) s += `,"bonds":${JSON.stringify(o.bonds)}`;
-  return `${s},"warnings":${o.warnings.length === 0 ? '[]' : JSON.stringify(o.warnings)}}`;
+  s += `,"warnings":${o.warnings.length === 0 ? '[]' : JSON.stringify(o.warnings)}`;
+  return o.curves === undefined ? `${s}}` : `${s},"curves":${JSON.stringify(o.curves)}}`;
 }

@@ -31,6 +31,7 @@ export * from './bootstrap/bootstrap.ts';
 export * from './bootstrap/build.ts';
 export * from './bootstrap/curveSet.ts';
 export * from './bootstrap/curveBuilder.ts';
+export * from './bootstrap/namedCurveBuild.ts';
 export * from './fit/parametricForm.ts';
 export * from './fit/fitCurve.ts';
 export { levenbergMarquardt, type LmResult, type LmOptions, type ResidualFunction } from './fit/levenbergMarquardt.ts';

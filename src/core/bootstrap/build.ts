@@ -7,7 +7,7 @@ import { coreError, type CoreError, type CoreWarning } from '../result.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { civilFromIso, isoFromSerial, serialFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind, Workspace } from '../document/types.ts';
-import { validateWorkspace, type ValidationOutcome } from '../document/validate.ts';
+import { validateWorkspace, type CurvesReader, type ValidationOutcome } from '../document/validate.ts';
 import type { BootstrapOutcome, BootstrapSettings, Repricing } from './bootstrap.ts';
 import { kitMissing } from './bootstrap.ts';
 import type { OvernightKit } from './overnightKit.ts';
@@ -56,6 +56,12 @@ export interface BuildOptions {
    * document that has them: without it such a document builds no curve and says why.
    */
   readonly overnight?: OvernightKit;
+  /**
+   * Reads the document's named curves (`readNamedCurves`, document/namedCurves.ts; the `curve`
+   * command passes it). Without it a document with `curves` is refused, naming them (the
+   * workbench, which shows one curve).
+   */
+  readonly readCurves?: CurvesReader;
 }
 
 /** Compiles one validated quote against a settlement date and curve day count. */
@@ -139,7 +145,7 @@ export function compileMarket(settlement: IsoDate, dayCount: CurveDayCount, quot
  * the errors, the warnings and the quotes left out; never throws on bad input.
  */
 export function buildCurve(doc: unknown, options: BuildOptions = {}): CurveBuild {
-  return buildValidated(validateWorkspace(doc), options, compileWorkspace);
+  return buildValidated(validateWorkspace(doc, options.readCurves), options, compileWorkspace);
 }
 
 /** The market of a validated workspace: `compileMarket` of its quotes (or the builder's re-quoted one). */

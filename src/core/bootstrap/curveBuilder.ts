@@ -47,7 +47,7 @@ export class CurveBuilder {
   /** buildCurve(doc, options), reusing the last market when only quoted values moved. */
   build(doc: unknown, options: BuildOptions = {}): CurveBuild {
     this.path = 'refused';
-    const build = buildValidated(validateWorkspace(doc), options, (ws, skip) => this.marketOf(ws, skip));
+    const build = buildValidated(validateWorkspace(doc, options.readCurves), options, (ws, skip) => this.marketOf(ws, skip));
     this.tally[this.path]++;
     return build;
   }

@@ -1,3 +1,4 @@
+import type { WorkspaceCurve } from './namedCurves.ts';
 import type { ConvexityFill, ConvexityModel } from '../instruments/convexity.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { BusinessDayRule, CalendarContext } from '../time/calendars.ts';
@@ -278,6 +279,11 @@ export interface Workspace {
   readonly reserved: Readonly<Record<string, unknown>>;
   /** The document's `fixings` (overnight rates by past business day), absent when it has none. */
   readonly fixings?: Readonly<Record<IsoDate, number>>;
+  /**
+   * The document's named curves besides this default one (`curves`, document/namedCurves.ts), in
+   * build order; absent when it has none (every document before named curves).
+   */
+  readonly curves?: readonly WorkspaceCurve[];
 }
 
 export const DEFAULT_CURVE: CurveSettings = { dayCount: 'ACT/365F', interpolation: 'monotone-convex', extrapolation: 'none', fit: 'none' };

@@ -13,6 +13,7 @@ import { KIND_ALLOWED_FIELDS, KIND_MODULE_LIST, QUOTE_KIND_MODULES } from '../ki
 import { withConventionSet } from '../kinds/conventionSets.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 import { isPlainObject } from './plainObject.ts';
+import type { ReadWorkspace, WorkspaceCurve } from './namedCurves.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
 import type { CalendarContext } from '../time/calendars.ts';
 import { CONVEXITY_MODELS, type ConvexityModel } from '../instruments/convexity.ts';
@@ -28,9 +29,9 @@ export const WORKSPACE_VERSION = 2;
 /** Top-level keys the workbench owns; the engine passes them through. */
 export const RESERVED_KEYS = ['scenarios', 'strategy', 'snapshots', 'view', 'note'] as const;
 const TOP_KEYS_V1 = ['format', 'version', 'settlement', 'curve', 'quotes', ...RESERVED_KEYS];
-const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps', 'curve', 'quotes', ...RESERVED_KEYS];
+const TOP_KEYS = ['format', 'version', 'valuationDate', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps', 'curve', 'quotes', 'curves', ...RESERVED_KEYS];
 /** Fields version 2 added: in a version 1 document each is an error that says so. */
-const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps'];
+const VERSION_2_KEYS = ['valuationDate', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps', 'curves'];
 /** `curve.fit`: none (the exact bootstrap only), nelson-siegel or svensson (src/core/fit). */
 const CURVE_KEYS = ['dayCount', 'interpolation', 'extrapolation', 'fit', 'futuresConvexity'];
 
@@ -52,7 +53,7 @@ export interface ValidationOutcome {
  * their path (a misspelt `cleanprice` is caught). Quote errors do not stop the others being
  * checked, so a caller may build from the valid quotes (`--skip-invalid`).
  */
-export function validateWorkspace(doc: unknown): ValidationOutcome {
+export function validateWorkspace(doc: unknown, readCurves: CurvesReader = refuseNamedCurves): ValidationOutcome {
   const errors: CoreError[] = [];
   if (!isPlainObject(doc)) {
     return { workspace: null, errors: [coreError('schema', '', `a workspace document must be a JSON object, not ${typeName(doc)}`)] };
@@ -98,9 +99,13 @@ export function validateWorkspace(doc: unknown): ValidationOutcome {
   }
   const reserved: Record<string, unknown> = {};
   for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
-  const workspace: Workspace = { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved, ...(fixings ? { fixings } : {}) };
-  if (turns === undefined && meetingSteps === undefined) return { workspace, errors };
-  return { workspace: { ...workspace, ...(turns === undefined ? {} : { turns }), ...(meetingSteps === undefined ? {} : { meetingSteps }) }, errors };
+  const base: Workspace = { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved, ...(fixings ? { fixings } : {}) };
+  const workspace: Workspace = turns === undefined && meetingSteps === undefined ? base : { ...base, ...(turns === undefined ? {} : { turns }), ...(meetingSteps === undefined ? {} : { meetingSteps }) };
+  if (doc.curves === undefined) return { workspace, errors };
+  // Named curves besides the default one (document/namedCurves.ts): each read as a workspace of its own.
+  const common = { format: doc.format, version: doc.version, valuationDate: settlement, calendars: doc.calendars, customCalendars: doc.customCalendars };
+  const curves = readCurves(doc.curves, common, validateWorkspace, errors);
+  return curves === null ? { workspace: null, errors } : { workspace: { ...workspace, curves }, errors };
 }
 
 /** Most fixings a document holds: about forty years of business days. */
@@ -140,6 +145,23 @@ function checkFixings(v: unknown, errors: CoreError[]): Readonly<Record<IsoDate,
   }
   return out;
 }
+
+/**
+ * Reads a document's `curves` into named curves in build order, or null with errors
+ * (document/namedCurves.ts, readNamedCurves: what the `curve` command passes).
+ */
+export type CurvesReader = (raw: unknown, common: Readonly<Record<string, unknown>>, read: ReadWorkspace, errors: CoreError[]) => readonly WorkspaceCurve[] | null;
+
+/**
+ * The reader of `curves` when none is given (the workbench: it shows one curve, and its first
+ * load does not carry the named-curve reader): the document is refused, naming its curves and
+ * the command that builds them, so none is dropped silently.
+ */
+const refuseNamedCurves: CurvesReader = (raw, _common, _read, errors) => {
+  const names = Array.isArray(raw) ? raw.map((c) => (isPlainObject(c) && typeof c.name === 'string' ? `"${c.name.slice(0, 32)}"` : '?')).join(', ') : '';
+  errors.push(coreError('schema', 'curves', `this document holds named curves besides its default one${names ? ` (${names})` : ''}, which the curve command builds, printing every curve; the workbench shows one curve, so it does not open the file rather than drop them: build it with the curve command, or remove curves to open its default curve here`));
+  return null;
+};
 
 function checkDate(v: unknown, path: string, errors: CoreError[], quote: number | null = null): IsoDate | null {
   if (typeof v === 'string' && parseIsoDate(v)) return v;

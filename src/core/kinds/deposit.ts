@@ -87,6 +87,7 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   moneyMarketTerms: true,
   curves: DISCOUNTING,
   nodeRole: 'discount',
+  onProjection: () => 'ratio',
   convention: (q) => ({ unit: 'rate', compounding: 'simple', dayCount: q.dayCount }),
   yieldLabel: (q) => `deposit rate (${rateTag('simple', q.dayCount)})`,
   priceYield: () => null,

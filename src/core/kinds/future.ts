@@ -63,6 +63,7 @@ export const FUTURE: QuoteKindModule<FutureQuote> = {
   compile: (q, settlement, _s, _m, t, time) => compileFuture(q, settlement, t, time),
   curves: DISCOUNTING_AND_PROJECTING,
   nodeRole: 'discount',
+  onProjection: () => 'ratio',
   convention: (q) => ({ unit: 'price', clean: false, futuresRate: q.contract === '3M' ? 'compounded' : 'averaged' }),
   yieldLabel: (q) => `futures rate (${q.contract === '3M' ? 'simple, ACT/360, compounded daily over the quarter' : 'simple, ACT/360, average of the month'})`,
   /** Its own yield is the futures rate, (100 - price) / 100, and back. */

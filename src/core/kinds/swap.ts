@@ -42,6 +42,8 @@ export const SWAP: QuoteKindModule<SwapQuote> = {
   share: (s, time, quotes) => new SwapLegs(s, time, quotes.filter(([q]) => !isDated(q))),
   curves: DISCOUNTING_AND_PROJECTING,
   nodeRole: 'discount',
+  // On a projection curve a swap from the valuation date is a term-index swap; a swap on a calendar is not taken there yet.
+  onProjection: (q) => (isDated(q) ? null : 'index-swap'),
   convention: (q) => ({ unit: 'rate', compounding: compoundingOfFrequency(q.frequency), dayCount: q.dayCount }),
   yieldLabel: (q) => `swap rate (${couponTag(q.frequency, q.dayCount)})`,
   priceYield: () => null,

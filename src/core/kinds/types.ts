@@ -179,6 +179,15 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
   readonly moneyMarketTerms?: boolean;
 
   /**
+   * Optional: how a quote of the kind builds a projection curve (a named curve of role
+   * projection; bootstrap/namedCurveBuild.ts): `ratio` when its value is a ratio of that curve's
+   * own discount factors (a deposit, a future; compiled as on one curve), `index-swap` when it is
+   * a swap against the curve's index, discounted on the curve's discounting curve
+   * (instruments/projectedSwap.ts), null for this quote not there. Absent: the kind is refused there.
+   */
+  onProjection?(q: Q): 'ratio' | 'index-swap' | null;
+
+  /**
    * Optional: the quote's own dates after adjustment (the command's `start`, `end` and `payment`).
    * Without it: start at the valuation date, end at the maturity, no payment date.
    */

@@ -1,0 +1,144 @@
+import type { Curve } from '../curve/curve.ts';
+import type { SwapQuote } from '../document/types.ts';
+import { isoFromCivil, type CivilDate } from '../time/date.ts';
+import { backwardScheduleCivil } from '../time/schedule.ts';
+import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+import { fixedLegCivil } from './swap.ts';
+
+/** Discount factor of a built curve at a date (on that curve's own clock). */
+const discountOn = (curve: Curve, d: CivilDate): number => Math.exp(curve.lnDiscountAt(curve.time(isoFromCivil(d))));
+
+/**
+ * A term-index swap from the valuation date on a projection curve, discounted on another curve
+ * built before it (MARKET-CONVENTIONS.md section i; Ametrano and Bianchetti 2013, "Everything you
+ * always wanted to know about multiple interest rate curve bootstrapping but were afraid to ask",
+ * the two-curve par rate):
+ *   S = sum_j tau_j F_j P_d(T_j) / sum_i tau_i P_d(T_i),
+ * fixed periods i on the quote's frequency and day count (accruals tau_i, the dates of today's
+ * single-curve swap, instruments/swap.ts), floating periods j of the index tenor, dated backward
+ * from the maturity as the fixed leg is (unadjusted, `eom` as the quote's), each paid at its end;
+ * tau_j F_j = P_p(T_{j-1}) / P_p(T_j) - 1 is the index's simple forward over period j from the
+ * projection curve P_p (its own day count cancels), P_d the discounting curve. The forward is taken
+ * over the accrual period itself (no separate fixing dates: periods are unadjusted).
+ *
+ * The discounting curve is already built and fixed, so its factors are constants here: the
+ * weights w_j = P_d(T_j) and the annuity A = sum_i tau_i P_d(T_i). The unknowns are the projection
+ * curve's ln DF at the floating dates (the instrument's flow times, the last the pillar). The
+ * pricing equation K A = sum_j (P_p(T_{j-1}) / P_p(T_j) - 1) w_j is written as a target on the
+ * curve (`targetFromFlows` = floating leg - K A, no fixed flows on the projection curve), so the
+ * node solvers, joint Newton step and sensitivities treat it as they treat a lagged OIS.
+ * To the bootstrap it reads one curve, the one being solved (DISCOUNTING_AND_PROJECTING in that
+ * build); `discountedOn` names the curve its constants came from.
+ *
+ * A basis swap (`BasisLeg` given) is the same instrument with the fixed leg replaced: this curve's
+ * index leg plus the quoted spread K, accruing over the index periods on the quote's day count
+ * (tau^s_j, annuity A_s = sum_j tau^s_j P_d(T_j)), against the other curve's index leg, worth
+ * C = sum_k (P_o(T_{k-1}) / P_o(T_k) - 1) P_d(T_k) over that index's periods from the other curve
+ * P_o (built before, fixed). Par spread K = (C - floating leg) / A_s; the pricing equation is
+ * C - K A_s - floating leg = 0. A convention of this build (the spread on this curve's leg, both
+ * legs paid at their period ends, from the valuation date), from general knowledge of basis swaps.
+ */
+export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
+  declare readonly amounts: number[];
+
+  private constructor(
+    q: SwapQuote,
+    t: number,
+    times: readonly number[],
+    /** P_d at each floating payment date, aligned with `times`. */
+    readonly weights: readonly number[],
+    /** sum_i tau_i P_d(T_i) over the fixed leg. */
+    readonly annuity: number,
+    rate: number,
+    /** The curve the fixed discount factors were read from. */
+    readonly discountedOn: string,
+    /** For a basis swap, the other leg's value C on its curve (fixed); 0 for a fixed-rate swap. */
+    readonly otherLeg: number,
+    /** +1 for a fixed-rate swap (K A against the floating leg), -1 for a basis swap (the spread on the floating leg's side). */
+    readonly side: 1 | -1,
+  ) {
+    super(q, t, times, 'rate', 'rate', rate, new Array<number>(times.length).fill(0), 1, null, DISCOUNTING_AND_PROJECTING);
+  }
+
+  /**
+   * Compiles a swap quote (no date conventions) against its discounting curve: floating periods
+   * `indexPerYear` a year. `time` is the projection curve's clock. Null when a payment date lies
+   * beyond the discounting curve and that curve does not extrapolate (the date is returned).
+   */
+  static compile(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, time: (d: CivilDate) => number, discount: Curve, discountedOn: string, indexPerYear: number, basis?: BasisLeg): ProjectedSwap | { beyond: string; curve: string } {
+    const end = isoFromCivil(maturity);
+    for (const [c, name] of [[discount, discountedOn], ...(basis ? [[basis.curve, basis.name] as const] : [])] as const) {
+      if (c.extrapolation === 'none' && c.time(end) > c.lastT) return { beyond: end, curve: name };
+    }
+    // The fixed leg, or for a basis swap the spread's accruals over this index's periods.
+    const fixed = basis ? fixedLegCivil(settlement, maturity, indexPerYear, q.dayCount, q.eom) : fixedLegCivil(settlement, maturity, q.frequency, q.dayCount, q.eom);
+    const floating = backwardScheduleCivil(settlement, maturity, indexPerYear, q.eom).dates;
+    let annuity = 0;
+    for (let i = 0; i < fixed.dates.length; i++) annuity += fixed.taus[i]! * discountOn(discount, fixed.dates[i]!);
+    let otherLeg = 0;
+    if (basis) {
+      let prev = 0;
+      for (const d of backwardScheduleCivil(settlement, maturity, basis.perYear, q.eom).dates) {
+        const ln = basis.curve.lnDiscountAt(basis.curve.time(isoFromCivil(d)));
+        otherLeg += Math.expm1(prev - ln) * discountOn(discount, d);
+        prev = ln;
+      }
+    }
+    const times = floating.map(time);
+    const weights = floating.map((d) => discountOn(discount, d));
+    return new ProjectedSwap(q, times[times.length - 1]!, times, weights, annuity, q.rate, discountedOn, otherLeg, basis ? -1 : 1);
+  }
+
+  /** The floating leg sum_j (P_p(T_{j-1}) / P_p(T_j) - 1) w_j, each growth as expm1 of the ln DF difference (P_p(T_0) = 1 at the valuation date). */
+  floatingLeg(ln: ArrayLike<number>, offset: number): number {
+    const { weights } = this;
+    let float = 0;
+    let prev = 0;
+    for (let j = 0; j < weights.length; j++) {
+      const cur = ln[offset + j]!;
+      float += Math.expm1(prev - cur) * weights[j]!;
+      prev = cur;
+    }
+    return float;
+  }
+
+  /** floating leg - K A (a swap), or floating leg + K A_s - C (a basis swap). */
+  targetFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return this.floatingLeg(ln, offset) - this.side * this.market * this.annuity - this.otherLeg;
+  }
+
+  /** K A - floating leg, or C - K A_s - floating leg: the same value as 0 - targetFromFlows, rising with the pillar's DF. */
+  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return this.otherLeg + this.side * this.market * this.annuity - this.floatingLeg(ln, offset);
+  }
+
+  /** d targetFromFlows / d ln P_p(T_j): coupon j, c_j = P_p(T_{j-1}) w_j / P_p(T_j), adds c_j at T_{j-1} and -c_j at T_j. */
+  targetSlopes(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, out: number[]): void {
+    const { weights } = this;
+    out.fill(0, 0, weights.length);
+    let prev = 0;
+    for (let j = 0; j < weights.length; j++) {
+      const cur = ln[offset + j]!;
+      const c = Math.exp(prev - cur) * weights[j]!;
+      if (j > 0) out[j - 1] = out[j - 1]! + c;
+      out[j] = out[j]! - c;
+      prev = cur;
+    }
+  }
+
+  /** S = floating leg / A, or K = (C - floating leg) / A_s. */
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+    return this.side === 1 ? this.floatingLeg(ln, offset) / this.annuity : (this.otherLeg - this.floatingLeg(ln, offset)) / this.annuity;
+  }
+
+  requote(value: number): Instrument {
+    return new ProjectedSwap(this.quote, this.t, this.times, this.weights, this.annuity, value, this.discountedOn, this.otherLeg, this.side);
+  }
+}
+
+/** A basis swap's other leg: the curve projecting it (built before, fixed), its name and its index periods a year. */
+export interface BasisLeg {
+  readonly curve: Curve;
+  readonly name: string;
+  readonly perYear: number;
+}
