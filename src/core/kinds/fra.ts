@@ -64,6 +64,7 @@ export const FRA: QuoteKindModule<FraQuote> = {
   compile: (q, _settlement, _s, _m, t, time) => compileFra(q, t, time),
   curves: DISCOUNTING_AND_PROJECTING,
   nodeRole: 'projection',
+  onProjection: () => 'ratio',
   convention: (q) => ({ unit: 'rate', compounding: 'simple', dayCount: q.dayCount }),
   yieldLabel: (q) => `FRA rate (${rateTag('simple', q.dayCount)})`,
   priceYield: () => null,

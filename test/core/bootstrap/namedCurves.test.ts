@@ -87,6 +87,22 @@ describe('a term-index swap on two curves', () => {
     p.pillars.forEach((x, i) => expect(Math.abs(Math.log(x.discount) - Math.log(main.curve!.pillars[i]!.discount))).toBeLessThanOrEqual(1e-14));
   });
 
+  it.each(INTERPOLATIONS)('FRAs on a projection curve fix its discount-factor ratio as on one curve: a 6M curve of deposits, FRAs and swaps reprices to 1e-14 (%s)', (method) => {
+    // Invented FRA rates; the FRA dates are the kind's (test/core/kinds/fra.test.ts), unadjusted here (no calendar).
+    const fras = [{ kind: 'fra', period: '6x12', rate: 0.0255 }, { kind: 'fra', period: '12x18', rate: 0.0266 }];
+    const quotes = [...INDEX_6M.filter((q) => q.kind === 'deposit'), ...fras, ...INDEX_6M.filter((q) => q.kind === 'swap' && q.tenor !== '1Y')];
+    const doc = { ...twoCurveDoc(method), curves: [{ name: 'euribor6m', role: 'projection', index: '6M', discountCurve: 'default', curve: { dayCount: 'ACT/365F', interpolation: method }, quotes }] };
+    const { named } = buildAll(doc);
+    const p = named[0]!;
+    expect(p.build.errors).toEqual([]);
+    expect(p.build.repricing.filter((r) => r.kind === 'fra')).toHaveLength(2);
+    for (const r of p.build.repricing) expect(Math.abs(r.repricingError), `${r.kind} ${r.maturity}`).toBeLessThanOrEqual(1e-14);
+    // Independently: the 6x12 FRA rate read off the projection curve (2027-09-10 to 2028-03-10, 182 days, ACT/360).
+    const c = p.build.curve!;
+    const df = (d: string) => Math.exp(c.lnDiscountAt(c.time(d)));
+    expect(Math.abs((df('2027-09-10') / df('2028-03-10') - 1) * (360 / 182) - 0.0255)).toBeLessThanOrEqual(1e-14);
+  });
+
   it('a discounting quote moves a projection forward; its deposits, which read no discounting curve, do not move', () => {
     const base = buildAll(twoCurveDoc()).named[0]!.build.curve!;
     const bumpedOis = OIS.map((q) => (q.tenor === '7Y' ? { ...q, rate: q.rate + 0.0001 } : q));
