@@ -1,0 +1,278 @@
+import { rateTag } from '../format/conventionTag.ts';
+import { INTERPOLATORS } from '../interpolation/registry.ts';
+import type { InterpolationId } from '../interpolation/types.ts';
+import { periodsPerYear, type Compounding } from '../rates/compounding.ts';
+import { daysBetween, type IsoDate } from '../time/date.ts';
+import type { DayCount } from '../time/dayCount.ts';
+import type { Curve, Extrapolation } from './curve.ts';
+import { ok, type Result } from '../result.ts';
+
+/**
+ * Explanations of curve queries: what a number is, read off which nodes, by which steps.
+ *
+ * An explanation is data (the UI renders it, the command line prints it): the dates, the year
+ * fractions with their day-count rule, the discount factors read off the curve (a node, or
+ * interpolated between which nodes by which method, or extrapolated), and the arithmetic as an
+ * ordered list of steps, each naming the values it is computed from (a small tree: every step's
+ * `inputs` are names of dates, year fractions, reads or earlier steps). The last step is the
+ * number itself, the very value the query returns.
+ *
+ * The queries of query.ts fill it when they are handed an {@link ExplanationSink}: the values in
+ * it are the query's own (same code path; without a sink nothing is recorded). Intermediate steps
+ * that the query folds into one call (the rate from ln DF in a compounding) are spelled out here
+ * from the query's own inputs, so a reader can recompute them; the last step is the query's value.
+ */
+
+/** The kinds of number explained. */
+export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield';
+
+/** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
+export interface ExplainedDate {
+  /** Its name in the steps (`date`, `start`, `end`, `maturity`). */
+  readonly name: string;
+  /** As the user gave it (a tenor such as `2Y` or a date); the date itself when not known. */
+  readonly given: string;
+  readonly unadjusted: IsoDate;
+  readonly adjusted: IsoDate;
+  /** The business-day rule and calendar applied (queries apply none). */
+  readonly rule: string;
+}
+
+/** A year fraction with the day-count rule applied to its two dates. */
+export interface ExplainedYearFraction {
+  /** Its name in the steps (`t` for the curve's own clock, `tau` for the rate's). */
+  readonly name: string;
+  readonly from: IsoDate;
+  readonly to: IsoDate;
+  readonly dayCount: DayCount;
+  /** Actual calendar days from `from` to `to`. */
+  readonly days: number;
+  /** The rule in words with these dates' numbers. */
+  readonly rule: string;
+  /** Years. */
+  readonly value: number;
+}
+
+/** A node of the curve a value is read between. */
+export interface ExplainedNode {
+  readonly date: IsoDate;
+  /** Years on the curve's day count from settlement. */
+  readonly t: number;
+  readonly lnDiscount: number;
+  readonly discount: number;
+  /** Index of the quote (document order) that set this node; null for settlement (DF = 1). */
+  readonly quote: number | null;
+}
+
+/** How a discount factor was read off the curve. */
+export type ReadHow = 'settlement' | 'node' | 'interpolated' | 'extrapolated' | 'derived';
+
+/** A discount factor read off the curve. */
+export interface ExplainedRead {
+  /** Its name in the steps (`DF(end)`, `DF(t_3)`). */
+  readonly name: string;
+  readonly date: IsoDate;
+  /** Years on the curve's day count from settlement (the year fraction named `t...`). */
+  readonly t: number;
+  readonly lnDiscount: number;
+  /** Unitless: the value today of 1 paid on `date`. */
+  readonly discount: number;
+  readonly how: ReadHow;
+  readonly method: InterpolationId;
+  /** The nodes it is read from: one for a node or extrapolation, two for an interpolation. */
+  readonly nodes: readonly ExplainedNode[];
+  /**
+   * True when the value is a function of the nodes listed alone (linear zero, log-linear
+   * discount, a node, settlement, extrapolation); false when the method reads every node (a spline).
+   */
+  readonly local: boolean;
+  /** The continuously compounded instantaneous forward carried on past the last node (extrapolated only). */
+  readonly forward?: number;
+  /** How the value follows from the nodes, in plain notation. */
+  readonly formula: string;
+}
+
+/** One step of the arithmetic. */
+export interface ExplainedStep {
+  readonly name: string;
+  /** What is computed, in plain notation using the names of its inputs. */
+  readonly formula: string;
+  /** The names of the values it is computed from. */
+  readonly inputs: readonly string[];
+  readonly value: number;
+  readonly unit: string;
+}
+
+/** The conventions the number is stated in. */
+export interface ExplainedConventions {
+  /** Compounding of the rate (null for a discount factor). */
+  readonly compounding: Compounding | null;
+  /** Day count of the rate's year fraction (null for a discount factor). */
+  readonly dayCount: DayCount | null;
+  /** Coupons per year (par yields only). */
+  readonly frequency?: number;
+  readonly curveDayCount: string;
+  readonly interpolation: InterpolationId;
+  readonly extrapolation: Extrapolation;
+  readonly businessDay: 'unadjusted';
+  readonly calendar: 'none';
+}
+
+/** Everything behind one number. */
+export interface Explanation {
+  readonly quantity: ExplainedQuantity;
+  /** The definition with its conventions filled in. */
+  readonly formula: string;
+  readonly value: number;
+  readonly unit: string;
+  readonly conventions: ExplainedConventions;
+  readonly dates: readonly ExplainedDate[];
+  readonly yearFractions: readonly ExplainedYearFraction[];
+  readonly reads: readonly ExplainedRead[];
+  /** The arithmetic in order; the last step's value is `value`. */
+  readonly steps: readonly ExplainedStep[];
+}
+
+/** Handed to a query to receive its explanation (set when the query succeeds). */
+export interface ExplanationSink {
+  explanation?: Explanation;
+  /** What the user typed for each date name (`{ end: '2Y' }`); shown as `given`. */
+  readonly given?: Readonly<Record<string, string>>;
+}
+
+/**
+ * Runs a query with a sink and returns its value with its explanation, or the query's errors.
+ * `given`: what the user typed for each date name (`{ end: '2Y' }`).
+ */
+export function explained<T>(query: (sink: ExplanationSink) => Result<T>, given?: Readonly<Record<string, string>>): Result<{ value: T; explanation: Explanation }> {
+  const sink: ExplanationSink = given ? { given } : {};
+  const r = query(sink);
+  if (!r.ok) return r;
+  return ok({ value: r.value, explanation: sink.explanation! });
+}
+
+/** The rule and calendar of a query date. */
+export const QUERY_DATE_RULE = 'none: a query date is read as given (no business-day rule, no calendar)';
+
+export const queryDate = (sink: ExplanationSink, name: string, date: IsoDate): ExplainedDate => ({
+  name,
+  given: sink.given?.[name] ?? date,
+  unadjusted: date,
+  adjusted: date,
+  rule: QUERY_DATE_RULE,
+});
+
+/** The unit of a rate: decimal per year in its compounding and day count. */
+export const rateUnit = (c: Compounding, dc: string): string => `decimal per year, ${rateTag(c, dc)}`;
+export const DF_UNIT = 'unitless (value today of 1 paid on the date)';
+export const LN_UNIT = 'natural log of a discount factor';
+
+/** The day-count rule applied to two dates, in words with their numbers. */
+export function yearFractionRule(dc: DayCount, from: IsoDate, to: IsoDate, value: number): string {
+  const days = daysBetween(from, to);
+  switch (dc) {
+    case 'ACT/360':
+      return `ACT/360: ${days} actual days / 360`;
+    case 'ACT/365F':
+      return `ACT/365F: ${days} actual days / 365`;
+    case 'ACT/ACT-ISDA':
+      return `ACT/ACT-ISDA: actual days in each calendar year / that year's length (365 or 366), summed (${days} days in all)`;
+    case 'ACT/ACT-ICMA':
+      return 'ACT/ACT-ICMA: actual days of the period / (frequency x actual days of its regular coupon period); 1 / frequency for a full period';
+    case '30/360':
+      return `30/360: (360 (Y2 - Y1) + 30 (M2 - M1) + (D2 - D1)) / 360, D1 = 31 becomes 30, D2 = 31 becomes 30 when D1 is 30 or 31 (${Math.round(value * 360)} days of 30/360)`;
+    case '30/360-US':
+      return `30/360-US: (360 (Y2 - Y1) + 30 (M2 - M1) + (D2 - D1)) / 360; the last day of February becomes 30 (D2 only when D1 is one too), D2 = 31 becomes 30 when D1 is 30 or 31, D1 = 31 becomes 30 (${Math.round(value * 360)} days of 30/360)`;
+    case '30E/360':
+    case '30E/360-ISDA':
+      return `${dc}: (360 (Y2 - Y1) + 30 (M2 - M1) + (D2 - D1)) / 360, any 31st becomes the 30th (${Math.round(value * 360)} days of 30/360)`;
+  }
+}
+
+export function explainedYearFraction(name: string, dc: DayCount, from: IsoDate, to: IsoDate, value: number): ExplainedYearFraction {
+  return { name, from, to, dayCount: dc, days: daysBetween(from, to), rule: yearFractionRule(dc, from, to, value), value };
+}
+
+/** The method's rule between two nodes, in plain notation. */
+function methodFormula(method: InterpolationId, first: boolean): { formula: string; local: boolean } {
+  switch (method) {
+    case 'log-linear-discount':
+      return { formula: 'ln DF(t) = ln DF(t1) + (t - t1) / (t2 - t1) x (ln DF(t2) - ln DF(t1)) (flat forward between the nodes)', local: true };
+    case 'linear-zero':
+      return first
+        ? { formula: 'ln DF(t) = -z2 t with z2 = -ln DF(t2) / t2 (zero rate flat before the first node)', local: true }
+        : { formula: 'ln DF(t) = -z(t) t, z(t) = z1 + (t - t1) / (t2 - t1) x (z2 - z1), z_k = -ln DF(t_k) / t_k (continuously compounded zero rates)', local: true };
+    case 'cubic-zero':
+      return { formula: 'ln DF(t) = -z(t) t with z a natural cubic spline of the continuously compounded zero rates through every node (so every node counts, not only these two)', local: false };
+    case 'monotone-convex':
+    case 'monotone-convex-positive':
+      return {
+        formula: `ln DF(t) = -(integral of f from 0 to t), f the ${INTERPOLATORS[method].label.toLowerCase()} forward through the discrete forwards of every node (Hagan and West); the nodes nearby count, not only these two`,
+        local: false,
+      };
+  }
+}
+
+/**
+ * How the value at t (read by the query as `ln`) comes off the curve: which nodes, which method.
+ * Descriptive only: the value is the query's own.
+ */
+export function explainRead(curve: Curve, name: string, date: IsoDate, t: number, ln: number): ExplainedRead {
+  const method = curve.interpolation;
+  const base = { name, date, t, lnDiscount: ln, discount: Math.exp(ln), method };
+  const pillars = curve.pillars;
+  const nodeOf = (i: number): ExplainedNode => {
+    if (i < 0) return { date: curve.settlement, t: 0, lnDiscount: 0, discount: 1, quote: null };
+    const p = pillars[i]!;
+    const y = curve.lnDiscountAt(p.t);
+    return { date: p.date, t: p.t, lnDiscount: y, discount: Math.exp(y), quote: p.quote };
+  };
+  if (t <= 0) return { ...base, how: 'settlement', nodes: [nodeOf(-1)], local: true, formula: 'DF = 1 on the settlement date' };
+  if (curve.onNodes !== true) {
+    return { ...base, how: 'derived', nodes: [], local: false, formula: 'read off a curve derived from another curve or fitted to the quotes (not an interpolation of nodes)' };
+  }
+  const last = pillars.length - 1;
+  if (t > curve.lastT && last >= 0) {
+    const forward = curve.forwardAt(curve.lastT);
+    return {
+      ...base,
+      how: 'extrapolated',
+      nodes: [nodeOf(last)],
+      local: true,
+      forward,
+      formula: 'ln DF(t) = ln DF(t1) - f1 (t - t1), f1 the instantaneous forward (continuous) at the last node, carried on flat',
+    };
+  }
+  let i = 0;
+  while (i <= last && pillars[i]!.t < t) i++;
+  if (i <= last && pillars[i]!.t === t) return { ...base, how: 'node', nodes: [nodeOf(i)], local: true, formula: `a node of the curve: the discount factor solved from quote ${pillars[i]!.quote}` };
+  const rule = methodFormula(method, i === 0);
+  return { ...base, how: 'interpolated', nodes: [nodeOf(i - 1), nodeOf(i)], local: rule.local, formula: `${INTERPOLATORS[method].label}: ${rule.formula}` };
+}
+
+/**
+ * The steps that turn ln P (the log of a discount factor over a period of tau years) into the
+ * rate in compounding c, ending in `rate`, the query's value. Names: `lnP`, `tau`.
+ */
+export function rateSteps(lnP: number, c: Compounding, tau: number, rate: number, unit: string): ExplainedStep[] {
+  if (c === 'continuous') return [{ name: 'rate', formula: 'rate = -lnP / tau', inputs: ['lnP', 'tau'], value: rate, unit }];
+  if (c === 'simple') {
+    return [
+      { name: 'growth', formula: 'growth = 1 / P - 1 = expm1(-lnP)', inputs: ['lnP'], value: Math.expm1(-lnP), unit: 'unitless (interest per unit over the period)' },
+      { name: 'rate', formula: 'rate = growth / tau', inputs: ['growth', 'tau'], value: rate, unit },
+    ];
+  }
+  const m = periodsPerYear(c);
+  return [
+    { name: 'growth', formula: `growth = P^(-1 / (${m} tau)) - 1 = expm1(-lnP / (${m} tau))`, inputs: ['lnP', 'tau'], value: Math.expm1(-lnP / (m * tau)), unit: `unitless (interest per unit per compounding period, ${m} a year)` },
+    { name: 'rate', formula: `rate = ${m} x growth`, inputs: ['growth'], value: rate, unit },
+  ];
+}
+
+/** The rate definition in words for a formula line. */
+export function rateDefinition(c: Compounding): string {
+  if (c === 'continuous') return 'P = exp(-rate x tau)';
+  if (c === 'simple') return 'P = 1 / (1 + rate x tau)';
+  const m = periodsPerYear(c);
+  return `P = (1 + rate / ${m})^(-${m} tau)`;
+}
