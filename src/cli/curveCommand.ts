@@ -31,6 +31,12 @@ import {
   type BusinessCalendar,
   BUILT_IN_CALENDARS,
   zeroOn,
+  explained,
+  topQuoteInfluences,
+  valueUnderEachMethod,
+  type Curve,
+  type CurveBuild,
+  type Explanation,
   type Compounding,
   type CoreError,
   type CoreWarning,
@@ -71,6 +77,7 @@ interface Options {
   dayCount: CurveDayCount | null;
   extrapolate: Extrapolation | null;
   skipInvalid: boolean;
+  explain: boolean;
   bonds: BondSpec[];
   holidays: HolidayRequest[];
 }
@@ -93,7 +100,7 @@ interface BondSpec {
 }
 
 const USAGE =
-  'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid] [--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]]...\n' +
+  'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid] [--explain] [--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]]...\n' +
   '       npm run --silent curve -- --holidays CALENDAR,FROM,TO [--holidays ...] [FILE]\n' +
   '       npm run --silent curve -- --help | --version\n' +
   '  FILE is a workspace JSON document or NDJSON, or - for standard input; dates are YYYY-MM-DD or tenors (3M, 2Y) from settlement\n' +
@@ -108,6 +115,9 @@ const HELP =
   `  --day-count DC        ${CURVE_DAY_COUNTS.join(', ')} (default the curve's)\n` +
   `  --extrapolate E       ${EXTRAPOLATIONS.join(', ')} (default the document's)\n` +
   '  --skip-invalid        build from the valid quotes and list the others under warnings\n' +
+  '  --explain             each point and forward carries an explain object: dates, year fractions, discount\n' +
+  '                        factors read (node or interpolated, between which nodes), the steps, the five quotes\n' +
+  '                        it depends on most (bp per bp) and its value under each interpolation method\n' +
   '  --holidays C,FROM,TO  (repeatable; no FILE needed) one line per calendar with the weekdays from FROM to TO\n' +
   `                        it is closed: ${BUILT_IN_CALENDARS.join(', ')}, joined with + (a holiday in any)\n` +
   '  --help, -h            this text;  --version  the version\n' +
@@ -123,10 +133,10 @@ const usage = (message: string): CommandResult => ({ stdout: '', stderr: `curve:
 const isPoint = (s: string): boolean => isIsoDate(s) || parseTenor(s) !== null;
 
 /** Options that may be given once: a second one is refused rather than silently replacing the first. */
-const SINGLE = ['--compounding', '--day-count', '--extrapolate', '--skip-invalid'];
+const SINGLE = ['--compounding', '--day-count', '--extrapolate', '--skip-invalid', '--explain'];
 
 function parseArgs(args: readonly string[]): Options | { readonly show: 'help' | 'version' } | string {
-  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, bonds: [], holidays: [] };
+  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, explain: false, bonds: [], holidays: [] };
   const files: string[] = [];
   const given = new Set<string>();
   for (let i = 0; i < args.length; i++) {
@@ -196,6 +206,10 @@ function parseArgs(args: readonly string[]): Options | { readonly show: 'help' |
       case '--skip-invalid':
         if (eq > 0) return '--skip-invalid takes no value';
         opts.skipInvalid = true;
+        break;
+      case '--explain':
+        if (eq > 0) return '--explain takes no value';
+        opts.explain = true;
         break;
       default:
         if (arg.startsWith('--') || (arg.startsWith('-') && arg !== '-')) return `unknown option ${arg}`;
@@ -322,6 +336,51 @@ const failedLine = (index: number, errors: readonly CoreError[]): string => JSON
 /** A wrong row of a workbench document, left out under --skip-invalid, as the engine words a skipped quote. */
 const skippedRow = (e: CoreError): CoreWarning => ({ path: e.path, quote: e.quote, code: 'skipped', message: `${e.message}; left out` });
 
+/** A point's or forward's `explain` object: the core's explanation, the quotes behind it, the value under each method. */
+export interface ExplainOut extends Explanation {
+  readonly topQuotes: readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[];
+  readonly methods: readonly { method: string; current: boolean; value: number | null; error: string | null }[];
+}
+
+/** Quote indices of an explanation re-pointed at the input's rows (a workbench document). */
+const atRow = (rowOf: readonly number[] | null, index: number): number => (rowOf === null ? index : (rowOf[index] ?? index));
+
+/** The explanation of a rate over [start, end] with the quotes and methods behind it. */
+function explainRate(build: CurveBuild, curve: Curve, e: Explanation, start: string, end: string, c: Compounding, dc: CurveDayCount, rowOf: readonly number[] | null, read: (curve: Curve) => number | null): ExplainOut {
+  const top = topQuoteInfluences(curve, build.instruments, start, end, c, dc);
+  const settings = { settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation };
+  const methods = valueUnderEachMethod(settings, build.instruments, (other) => {
+    const v = read(other);
+    return v === null ? { ok: false, errors: [{ path: '', quote: null, code: 'beyond-curve', message: 'not readable on this curve' }] } : { ok: true, value: v };
+  });
+  return {
+    ...e,
+    reads: e.reads.map((r) => ({ ...r, nodes: r.nodes.map((n) => (n.quote === null ? n : { ...n, quote: atRow(rowOf, n.quote) })) })),
+    topQuotes: top.ok ? top.value.map((q) => ({ ...q, index: atRow(rowOf, q.index) })) : [],
+    methods: methods.map((m) => ({ method: m.method, current: m.current, value: m.value, error: m.error })),
+  };
+}
+
+/** `explain` of a point: its zero rate (whose read is the discount factor) explained. */
+function explainPoint(build: CurveBuild, curve: Curve, date: string, given: string, c: Compounding, dc: CurveDayCount, rowOf: readonly number[] | null): ExplainOut | null {
+  const z = explained((sink) => zeroOn(curve, date, c, dc, 'date', sink), { date: given });
+  if (!z.ok) return null; // not reached: the same query has just succeeded
+  return explainRate(build, curve, z.value.explanation, curve.settlement, date, c, dc, rowOf, (other) => {
+    const r = zeroOn(other, date, c, dc);
+    return r.ok ? r.value.zero : null;
+  });
+}
+
+/** `explain` of a forward. */
+function explainForward(build: CurveBuild, curve: Curve, start: string, end: string, givenStart: string, givenEnd: string, c: Compounding, dc: CurveDayCount, rowOf: readonly number[] | null): ExplainOut | null {
+  const f = explained((sink) => forwardOn(curve, start, end, c, dc, 'forward', sink), { start: givenStart, end: givenEnd });
+  if (!f.ok) return null; // not reached: the same query has just succeeded
+  return explainRate(build, curve, f.value.explanation, start, end, c, dc, rowOf, (other) => {
+    const r = forwardOn(other, start, end, c, dc);
+    return r.ok ? r.value.rate : null;
+  });
+}
+
 /** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
 function runDocument(index: number, input: unknown, opts: Options, builder: CurveBuilder): { line: string; errors: readonly CoreError[] } {
   const capped = documentCapErrors(input);
@@ -356,7 +415,9 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     }
     const v = z.value;
     finite &&= Number.isFinite(v.t) && Number.isFinite(v.discount) && Number.isFinite(v.zero);
-    points.push(v.extrapolated ? { date, t: v.t, discount: v.discount, zero: v.zero, extrapolated: true } : { date, t: v.t, discount: v.discount, zero: v.zero });
+    const point: PointOut = v.extrapolated ? { date, t: v.t, discount: v.discount, zero: v.zero, extrapolated: true } : { date, t: v.t, discount: v.discount, zero: v.zero };
+    const explain = opts.explain ? explainPoint(build, curve, date, at ? at[i]! : date, opts.compounding, dc, read.rowOfQuote) : null;
+    points.push(explain ? { ...point, explain } : point);
   }
   const forwards: ForwardOut[] = [];
   for (let i = 0; i < opts.forward.length; i++) {
@@ -368,7 +429,9 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     }
     const v = f.value;
     finite &&= Number.isFinite(v.tau) && Number.isFinite(v.rate);
-    forwards.push(v.extrapolated ? { start: v.start, end: v.end, tau: v.tau, rate: v.rate, extrapolated: true } : { start: v.start, end: v.end, tau: v.tau, rate: v.rate });
+    const forward: ForwardOut = v.extrapolated ? { start: v.start, end: v.end, tau: v.tau, rate: v.rate, extrapolated: true } : { start: v.start, end: v.end, tau: v.tau, rate: v.rate };
+    const explain = opts.explain ? explainForward(build, curve, v.start, v.end, s, e, opts.compounding, dc, read.rowOfQuote) : null;
+    forwards.push(explain ? { ...forward, explain } : forward);
   }
   const bonds = opts.bonds.flatMap((b, i) => {
     const input: BondInput = { ...b, maturity: resolve(b.maturity, settlement) };
