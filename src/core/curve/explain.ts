@@ -133,11 +133,47 @@ export interface Explanation {
   readonly steps: readonly ExplainedStep[];
 }
 
-/** Handed to a query to receive its explanation (set when the query succeeds). */
+/**
+ * Handed to a query to receive its explanation (set when the query succeeds). Made by
+ * {@link explanationSink} or {@link explained}. The query hands its own values to `recorder`, which
+ * lives here so that the queries carry no explanation code (the first screen loads query.ts, not
+ * this module).
+ */
 export interface ExplanationSink {
   explanation?: Explanation;
   /** What the user typed for each date name (`{ end: '2Y' }`); shown as `given`. */
   readonly given?: Readonly<Record<string, string>>;
+  readonly recorder: QueryRecorder;
+}
+
+/** A value read by lnDiscountOn: t on the curve's clock and ln DF there. */
+interface LnRead {
+  readonly t: number;
+  readonly ln: number;
+}
+
+/** What each query hands over, its own values only (see query.ts). */
+export interface QueryRecorder {
+  discount(curve: Curve, sink: ExplanationSink, date: IsoDate, t: number, ln: number, discount: number): void;
+  zero(curve: Curve, sink: ExplanationSink, date: IsoDate, c: Compounding, dc: DayCount, t: number, ln: number, tau: number, zero: number): void;
+  zeroAtSettlement(curve: Curve, sink: ExplanationSink, c: Compounding, dc: DayCount, f0: number, ratio: number, zero: number): void;
+  forward(curve: Curve, sink: ExplanationSink, start: IsoDate, end: IsoDate, c: Compounding, dc: DayCount, a: LnRead, b: LnRead, tau: number, lnP: number, rate: number): void;
+  par(
+    curve: Curve,
+    sink: ExplanationSink,
+    start: IsoDate,
+    end: IsoDate,
+    frequency: number,
+    dc: DayCount,
+    s: LnRead,
+    e: LnRead,
+    periods: readonly { readonly start: IsoDate; readonly end: IsoDate; readonly tau: number }[],
+    times: readonly number[],
+    lns: readonly number[],
+    annuity: number,
+    numerator: number,
+    rate: number,
+  ): void;
 }
 
 /**
@@ -145,7 +181,7 @@ export interface ExplanationSink {
  * `given`: what the user typed for each date name (`{ end: '2Y' }`).
  */
 export function explained<T>(query: (sink: ExplanationSink) => Result<T>, given?: Readonly<Record<string, string>>): Result<{ value: T; explanation: Explanation }> {
-  const sink: ExplanationSink = given ? { given } : {};
+  const sink = explanationSink(given);
   const r = query(sink);
   if (!r.ok) return r;
   return ok({ value: r.value, explanation: sink.explanation! });
@@ -276,3 +312,117 @@ export function rateDefinition(c: Compounding): string {
   const m = periodsPerYear(c);
   return `P = (1 + rate / ${m})^(-${m} tau)`;
 }
+
+const conventionsOf = (curve: Curve, c: Compounding | null, dc: DayCount | null, frequency?: number): ExplainedConventions => ({
+  compounding: c,
+  dayCount: dc,
+  ...(frequency === undefined ? {} : { frequency }),
+  curveDayCount: curve.dayCount,
+  interpolation: curve.interpolation,
+  extrapolation: curve.extrapolation,
+  businessDay: 'unadjusted',
+  calendar: 'none',
+});
+
+/** The recorder of the queries in query.ts: builds each explanation from the query's own values. */
+export const QUERY_RECORDER: QueryRecorder = {
+  discount(curve, sink, date, t, ln, discount) {
+    sink.explanation = {
+      quantity: 'discount-factor',
+      formula: `DF(date) = exp(ln DF(t)), t = year fraction from settlement to the date on ${curve.dayCount} (the curve's clock), ln DF read off the curve (${curve.interpolation})`,
+      value: discount,
+      unit: DF_UNIT,
+      conventions: conventionsOf(curve, null, null),
+      dates: [queryDate(sink, 'date', date)],
+      yearFractions: [explainedYearFraction('t', curve.dayCount, curve.settlement, date, t)],
+      reads: [explainRead(curve, 'DF(date)', date, t, ln)],
+      steps: [{ name: 'DF', formula: 'DF = exp(ln DF(date))', inputs: ['DF(date)'], value: discount, unit: DF_UNIT }],
+    };
+  },
+  zero(curve, sink, date, c, dc, t, ln, tau, zero) {
+    const unit = rateUnit(c, dc);
+    sink.explanation = {
+      quantity: 'zero-rate',
+      formula: `zero rate from settlement to the date, ${rateDefinition(c)} with P = DF(date), tau = year fraction on ${dc}`,
+      value: zero,
+      unit,
+      conventions: conventionsOf(curve, c, dc),
+      dates: [queryDate(sink, 'date', date)],
+      yearFractions: [explainedYearFraction('t', curve.dayCount, curve.settlement, date, t), explainedYearFraction('tau', dc, curve.settlement, date, tau)],
+      reads: [explainRead(curve, 'DF(date)', date, t, ln)],
+      steps: [{ name: 'lnP', formula: 'lnP = ln DF(date)', inputs: ['DF(date)'], value: ln, unit: LN_UNIT }, ...rateSteps(ln, c, tau, zero, unit)],
+    };
+  },
+  zeroAtSettlement(curve, sink, c, dc, f0, ratio, zero) {
+    const unit = rateUnit(c, dc);
+    const steps: ExplainedStep[] = [
+      { name: 'f0', formula: "f0 = instantaneous forward at settlement (continuous, on the curve's clock)", inputs: [], value: f0, unit: rateUnit('continuous', curve.dayCount) },
+      { name: 'k', formula: `k = years on ${curve.dayCount} / years on ${dc} over the first days from settlement`, inputs: [], value: ratio, unit: 'unitless' },
+      { name: 'fk', formula: 'fk = f0 x k', inputs: ['f0', 'k'], value: f0 * ratio, unit: rateUnit('continuous', dc) },
+    ];
+    if (c === 'continuous' || c === 'simple') steps.push({ name: 'rate', formula: 'rate = fk (the limit of short rates)', inputs: ['fk'], value: zero, unit });
+    else {
+      const m = periodsPerYear(c);
+      steps.push({ name: 'growth', formula: `growth = expm1(fk / ${m})`, inputs: ['fk'], value: Math.expm1((f0 * ratio) / m), unit: 'unitless' });
+      steps.push({ name: 'rate', formula: `rate = ${m} x growth`, inputs: ['growth'], value: zero, unit });
+    }
+    sink.explanation = {
+      quantity: 'zero-rate',
+      formula: `zero rate at settlement: the limit of the zero rate as the date nears settlement, the instantaneous forward f0 restated ${c} on ${dc}`,
+      value: zero,
+      unit,
+      conventions: conventionsOf(curve, c, dc),
+      dates: [queryDate(sink, 'date', curve.settlement)],
+      yearFractions: [],
+      reads: [explainRead(curve, 'DF(date)', curve.settlement, 0, 0)],
+      steps,
+    };
+  },
+  forward(curve, sink, start, end, c, dc, a, b, tau, lnP, rate) {
+    const unit = rateUnit(c, dc);
+    sink.explanation = {
+      quantity: 'forward-rate',
+      formula: `forward rate from start to end, ${rateDefinition(c)} with P = DF(end) / DF(start), tau = year fraction from start to end on ${dc}`,
+      value: rate,
+      unit,
+      conventions: conventionsOf(curve, c, dc),
+      dates: [queryDate(sink, 'start', start), queryDate(sink, 'end', end)],
+      yearFractions: [
+        explainedYearFraction('t(start)', curve.dayCount, curve.settlement, start, a.t),
+        explainedYearFraction('t(end)', curve.dayCount, curve.settlement, end, b.t),
+        explainedYearFraction('tau', dc, start, end, tau),
+      ],
+      reads: [explainRead(curve, 'DF(start)', start, a.t, a.ln), explainRead(curve, 'DF(end)', end, b.t, b.ln)],
+      steps: [{ name: 'lnP', formula: 'lnP = ln DF(end) - ln DF(start)', inputs: ['DF(end)', 'DF(start)'], value: lnP, unit: LN_UNIT }, ...rateSteps(lnP, c, tau, rate, unit)],
+    };
+  },
+  par(curve, sink, start, end, frequency, dc, s, e, periods, times, lns, annuity, numerator, rate) {
+    const n = periods.length;
+    const unit = `decimal per year, paid ${frequency} times a year, ${dc}`;
+    const names = periods.map((_, i) => i + 1);
+    sink.explanation = {
+      quantity: 'par-yield',
+      formula: `par rate = (DF(start) - DF(end)) / sum over the ${n} periods of tau_i DF(t_i); periods of 1/${frequency} year backward from the end (a short first period), tau_i on ${dc}`,
+      value: rate,
+      unit,
+      conventions: conventionsOf(curve, null, dc, frequency),
+      dates: [queryDate(sink, 'start', start), queryDate(sink, 'end', end)],
+      yearFractions: periods.map((p, i) => explainedYearFraction(`tau${i + 1}`, dc, p.start, p.end, p.tau)),
+      reads: [explainRead(curve, 'DF(start)', start, s.t, s.ln), explainRead(curve, 'DF(end)', end, e.t, e.ln), ...periods.map((p, i) => explainRead(curve, `DF(t${i + 1})`, p.end, times[i]!, lns[i]!))],
+      steps: [
+        {
+          name: 'annuity',
+          formula: `annuity = ${names.map((k) => `tau${k} DF(t${k})`).join(' + ')}`,
+          inputs: names.flatMap((k) => [`tau${k}`, `DF(t${k})`]),
+          value: annuity,
+          unit: 'years (sum of year fractions times discount factors)',
+        },
+        { name: 'numerator', formula: 'numerator = DF(start) - DF(end) = DF(start) x -expm1(ln DF(end) - ln DF(start))', inputs: ['DF(start)', 'DF(end)'], value: numerator, unit: DF_UNIT },
+        { name: 'rate', formula: 'rate = numerator / annuity', inputs: ['numerator', 'annuity'], value: rate, unit },
+      ],
+    };
+  },
+};
+
+/** A sink for one query; `given`: what the user typed for each date name. */
+export const explanationSink = (given?: Readonly<Record<string, string>>): ExplanationSink => (given ? { given, recorder: QUERY_RECORDER } : { recorder: QUERY_RECORDER });

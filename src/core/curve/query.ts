@@ -1,4 +1,4 @@
-import { periodsPerYear, rateFromLnDiscount, rateLimitFromInstantaneous, type Compounding } from '../rates/compounding.ts';
+import { rateFromLnDiscount, rateLimitFromInstantaneous, type Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { addDays, compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount, type DayCount } from '../time/dayCount.ts';
@@ -6,21 +6,7 @@ import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import type { Tenor } from '../time/tenor.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import type { Curve } from './curve.ts';
-import {
-  DF_UNIT,
-  explainedYearFraction,
-  explainRead,
-  LN_UNIT,
-  queryDate,
-  rateDefinition,
-  rateSteps,
-  rateUnit,
-  type ExplainedConventions,
-  type ExplainedRead,
-  type ExplainedStep,
-  type Explanation,
-  type ExplanationSink,
-} from './explain.ts';
+import type { ExplanationSink } from './explain.ts';
 
 /** A discount factor or rate read off a curve; `extrapolated` when the date is past the last pillar. */
 export interface PointValue {
@@ -72,33 +58,9 @@ export function discountOn(curve: Curve, date: IsoDate, path = 'date', sink?: Ex
   const r = lnDiscountOn(curve, date, path);
   if (!r.ok) return r;
   const discount = Math.exp(r.value.ln);
-  if (sink) {
-    const { t, ln } = r.value;
-    sink.explanation = {
-      quantity: 'discount-factor',
-      formula: `DF(date) = exp(ln DF(t)), t = year fraction from settlement to the date on ${curve.dayCount} (the curve's clock), ln DF read off the curve (${curve.interpolation})`,
-      value: discount,
-      unit: DF_UNIT,
-      conventions: conventionsOf(curve, null, null),
-      dates: [queryDate(sink, 'date', date)],
-      yearFractions: [explainedYearFraction('t', curve.dayCount, curve.settlement, date, t)],
-      reads: [explainRead(curve, 'DF(date)', date, t, ln)],
-      steps: [{ name: 'DF', formula: 'DF = exp(ln DF(date))', inputs: ['DF(date)'], value: discount, unit: DF_UNIT }],
-    };
-  }
+  if (sink) sink.recorder.discount(curve, sink, date, r.value.t, r.value.ln, discount);
   return ok({ date, t: r.value.t, discount, extrapolated: r.value.extrapolated });
 }
-
-const conventionsOf = (curve: Curve, c: Compounding | null, dc: DayCount | null, frequency?: number): ExplainedConventions => ({
-  compounding: c,
-  dayCount: dc,
-  ...(frequency === undefined ? {} : { frequency }),
-  curveDayCount: curve.dayCount,
-  interpolation: curve.interpolation,
-  extrapolation: curve.extrapolation,
-  businessDay: 'unadjusted',
-  calendar: 'none',
-});
 
 /**
  * Zero rate at a date: the rate in compounding c and day count dc whose discount factor over
@@ -117,55 +79,14 @@ export function zeroOn(curve: Curve, date: IsoDate, c: Compounding, dc: CurveDay
     const f0 = curve.forwardAt(0);
     const ratio = clockRatio(curve, dc);
     zero = rateLimitFromInstantaneous(f0 * ratio, c);
-    if (sink) sink.explanation = zeroAtSettlement(curve, sink, c, dc, f0, ratio, zero);
+    if (sink) sink.recorder.zeroAtSettlement(curve, sink, c, dc, f0, ratio, zero);
   } else if (tau <= 0) {
     return fail(coreError('empty-period', path, `${path}: from ${curve.settlement} to ${date} is an empty period on ${dc}; choose a later date or another day count`));
   } else {
     zero = rateFromLnDiscount(ln, c, tau);
-    if (sink) {
-      const unit = rateUnit(c, dc);
-      sink.explanation = {
-        quantity: 'zero-rate',
-        formula: `zero rate from settlement to the date, ${rateDefinition(c)} with P = DF(date), tau = year fraction on ${dc}`,
-        value: zero,
-        unit,
-        conventions: conventionsOf(curve, c, dc),
-        dates: [queryDate(sink, 'date', date)],
-        yearFractions: [explainedYearFraction('t', curve.dayCount, curve.settlement, date, t), explainedYearFraction('tau', dc, curve.settlement, date, tau)],
-        reads: [explainRead(curve, 'DF(date)', date, t, ln)],
-        steps: [{ name: 'lnP', formula: 'lnP = ln DF(date)', inputs: ['DF(date)'], value: ln, unit: LN_UNIT }, ...rateSteps(ln, c, tau, zero, unit)],
-      };
-    }
+    if (sink) sink.recorder.zero(curve, sink, date, c, dc, t, ln, tau, zero);
   }
   return ok({ date, t, discount: Math.exp(ln), extrapolated, zero });
-}
-
-/** The explanation of the zero rate at settlement itself: the limit of short zero rates. */
-function zeroAtSettlement(curve: Curve, sink: ExplanationSink, c: Compounding, dc: CurveDayCount, f0: number, ratio: number, zero: number): Explanation {
-  const unit = rateUnit(c, dc);
-  const fUnit = rateUnit('continuous', curve.dayCount);
-  const steps: ExplainedStep[] = [
-    { name: 'f0', formula: 'f0 = instantaneous forward at settlement (continuous, on the curve\'s clock)', inputs: [], value: f0, unit: fUnit },
-    { name: 'k', formula: `k = years on ${curve.dayCount} / years on ${dc} over the first days from settlement`, inputs: [], value: ratio, unit: 'unitless' },
-    { name: 'fk', formula: 'fk = f0 x k', inputs: ['f0', 'k'], value: f0 * ratio, unit: rateUnit('continuous', dc) },
-  ];
-  if (c === 'continuous' || c === 'simple') steps.push({ name: 'rate', formula: 'rate = fk (the limit of short rates)', inputs: ['fk'], value: zero, unit });
-  else {
-    const m = periodsPerYear(c);
-    steps.push({ name: 'growth', formula: `growth = expm1(fk / ${m})`, inputs: ['fk'], value: Math.expm1((f0 * ratio) / m), unit: 'unitless' });
-    steps.push({ name: 'rate', formula: `rate = ${m} x growth`, inputs: ['growth'], value: zero, unit });
-  }
-  return {
-    quantity: 'zero-rate',
-    formula: `zero rate at settlement: the limit of the zero rate as the date nears settlement, the instantaneous forward f0 restated ${c} on ${dc}`,
-    value: zero,
-    unit,
-    conventions: conventionsOf(curve, c, dc),
-    dates: [queryDate(sink, 'date', curve.settlement)],
-    yearFractions: [],
-    reads: [explainRead(curve, 'DF(date)', curve.settlement, 0, 0)],
-    steps,
-  };
 }
 
 /** d t_curve / d tau_dc near settlement: the ratio of the two clocks over the first days with length. */
@@ -190,24 +111,7 @@ export function forwardOn(curve: Curve, start: IsoDate, end: IsoDate, c: Compoun
   }
   const lnP = b.value.ln - a.value.ln;
   const rate = rateFromLnDiscount(lnP, c, tau);
-  if (sink) {
-    const unit = rateUnit(c, dc);
-    sink.explanation = {
-      quantity: 'forward-rate',
-      formula: `forward rate from start to end, ${rateDefinition(c)} with P = DF(end) / DF(start), tau = year fraction from start to end on ${dc}`,
-      value: rate,
-      unit,
-      conventions: conventionsOf(curve, c, dc),
-      dates: [queryDate(sink, 'start', start), queryDate(sink, 'end', end)],
-      yearFractions: [
-        explainedYearFraction('t(start)', curve.dayCount, curve.settlement, start, a.value.t),
-        explainedYearFraction('t(end)', curve.dayCount, curve.settlement, end, b.value.t),
-        explainedYearFraction('tau', dc, start, end, tau),
-      ],
-      reads: [explainRead(curve, 'DF(start)', start, a.value.t, a.value.ln), explainRead(curve, 'DF(end)', end, b.value.t, b.value.ln)],
-      steps: [{ name: 'lnP', formula: 'lnP = ln DF(end) - ln DF(start)', inputs: ['DF(end)', 'DF(start)'], value: lnP, unit: LN_UNIT }, ...rateSteps(lnP, c, tau, rate, unit)],
-    };
-  }
+  if (sink) sink.recorder.forward(curve, sink, start, end, c, dc, a.value, b.value, tau, lnP, rate);
   return ok({ start, end, tau, rate, extrapolated: a.value.extrapolated || b.value.extrapolated });
 }
 
@@ -239,50 +143,25 @@ export function forwardParRateOn(
   const e = lnDiscountOn(curve, end, `${path}.end`);
   if (!e.ok) return e;
   let annuity = 0;
-  const reads: ExplainedRead[] | null = sink ? [] : null;
-  const terms: ExplainedStep[] | null = sink ? [] : null;
+  // With a sink: each period's time and ln DF as read, for the recorder.
+  const times: number[] | null = sink ? [] : null;
+  const lns: number[] | null = sink ? [] : null;
   const periods = fixedLegPeriods(start, end, frequency, dc, eom);
   for (let i = 0; i < periods.length; i++) {
     const p = periods[i]!;
     const t = curve.time(p.end);
     const ln = curve.lnDiscountAt(t);
-    const term = p.tau * Math.exp(ln);
-    annuity += term;
-    if (reads && terms) {
-      reads.push(explainRead(curve, `DF(t${i + 1})`, p.end, t, ln));
-      terms.push({ name: `tau${i + 1}`, formula: `tau${i + 1} = year fraction from ${p.start} to ${p.end} on ${dc}`, inputs: [], value: p.tau, unit: `years (${dc})` });
+    annuity += p.tau * Math.exp(ln);
+    if (times && lns) {
+      times.push(t);
+      lns.push(ln);
     }
   }
   // DF(S) - DF(E) as DF(S) (1 - DF(E)/DF(S)) with expm1: no cancellation for a short period.
   const dfS = Math.exp(s.value.ln);
   const numerator = dfS * -Math.expm1(e.value.ln - s.value.ln);
   const rate = numerator / annuity;
-  if (sink && reads && terms) {
-    const n = periods.length;
-    const unit = `decimal per year, paid ${frequency} times a year, ${dc}`;
-    const names = periods.map((_, i) => i + 1);
-    sink.explanation = {
-      quantity: 'par-yield',
-      formula: `par rate = (DF(start) - DF(end)) / sum over the ${n} periods of tau_i DF(t_i); periods of 1/${frequency} year backward from the end (a short first period), tau_i on ${dc}`,
-      value: rate,
-      unit,
-      conventions: conventionsOf(curve, null, dc, frequency),
-      dates: [queryDate(sink, 'start', start), queryDate(sink, 'end', end)],
-      yearFractions: periods.map((p, i) => explainedYearFraction(`tau${i + 1}`, dc, p.start, p.end, p.tau)),
-      reads: [explainRead(curve, 'DF(start)', start, s.value.t, s.value.ln), explainRead(curve, 'DF(end)', end, e.value.t, e.value.ln), ...reads],
-      steps: [
-        {
-          name: 'annuity',
-          formula: `annuity = ${names.map((k) => `tau${k} DF(t${k})`).join(' + ')}`,
-          inputs: names.flatMap((k) => [`tau${k}`, `DF(t${k})`]),
-          value: annuity,
-          unit: 'years (sum of year fractions times discount factors)',
-        },
-        { name: 'numerator', formula: 'numerator = DF(start) - DF(end) = DF(start) x -expm1(ln DF(end) - ln DF(start))', inputs: ['DF(start)', 'DF(end)'], value: numerator, unit: DF_UNIT },
-        { name: 'rate', formula: 'rate = numerator / annuity', inputs: ['numerator', 'annuity'], value: rate, unit },
-      ],
-    };
-  }
+  if (sink && times && lns) sink.recorder.par(curve, sink, start, end, frequency, dc, s.value, e.value, periods, times, lns, annuity, numerator, rate);
   return ok({ rate, annuity, extrapolated: s.value.extrapolated || e.value.extrapolated });
 }
 
