@@ -7,6 +7,7 @@ import {
   curveFromPillars,
   discountOn,
   explained,
+  explanationText,
   forwardOn,
   INTERPOLATIONS,
   parYieldOn,
@@ -305,5 +306,28 @@ describe('explanations on a bootstrapped curve', () => {
     expect(p.explanation.reads.filter((r) => /^DF\(t/.test(r.name)).map((r) => r.date)).toEqual(['2027-09-10', '2028-03-10', '2028-09-10', '2029-03-10']);
     expect(read(p.explanation, 'DF(end)').how).toBe('node');
     checkExplanation(curve, p.explanation, `${method} par 2Y`);
+  });
+});
+
+describe('explanationText', () => {
+  // The plain text must let a colleague recompute the number: every figure in full precision
+  // (ECMA-262 Number::toString, the shortest text that reads back as the same double) and ISO dates.
+  const curve = curveFromPillars(SETTLEMENT, 'ACT/365F', 'linear-zero', 'flat-forward', [
+    { date: '2027-01-15', t: 184 / 365, discount: 0.9812345678901234, quote: 0 },
+    { date: '2028-07-15', t: 731 / 365, discount: 0.9234567890123456, quote: 1 },
+  ]);
+  it('explanationText of a forward: each number reads back as the same double, dates are ISO, the caution is there', () => {
+    const f = value(explained((s) => forwardOn(curve, '2027-03-01', '2029-01-31', 'quarterly', 'ACT/360', 'forward', s)));
+    const e = f.explanation;
+    const text = explanationText(e, { title: 'test forward', quoteLabel: (i) => `row ${i + 1}`, topQuotes: [{ label: 'row 2', bpPerBp: 0.1234567890123456 }], methods: [{ label: 'Linear zero', current: true, value: e.value, error: null }] });
+    const valueLine = text.split('\n').find((l) => l.startsWith('Value: '))!;
+    expect(Number(valueLine.slice(7).split(' ')[0])).toBe(f.value.rate);
+    for (const r of e.reads) expect(text).toContain(`DF = ${String(r.discount)}`);
+    for (const s of e.steps) expect(text).toContain(`= ${String(s.value)} (`);
+    expect(text).toContain('row 2: 0.1234567890123456');
+    expect(text).toContain('extrapolated past the last node 2028-07-15');
+    expect(text).toContain('interpolated (linear-zero) between 2027-01-15');
+    expect(text).toMatch(/not investment advice/);
+    expect(text).not.toMatch(/\d{1,2}\/\d{1,2}\/\d{4}/); // no locale dates
   });
 });
