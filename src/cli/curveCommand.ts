@@ -32,6 +32,7 @@ import {
   BUILT_IN_CALENDARS,
   zeroOn,
   explained,
+  bootstrapInstruments,
   topQuoteInfluences,
   valueUnderEachMethod,
   type Curve,
@@ -349,7 +350,7 @@ const atRow = (rowOf: readonly number[] | null, index: number): number => (rowOf
 function explainRate(build: CurveBuild, curve: Curve, e: Explanation, start: string, end: string, c: Compounding, dc: CurveDayCount, rowOf: readonly number[] | null, read: (curve: Curve) => number | null): ExplainOut {
   const top = topQuoteInfluences(curve, build.instruments, start, end, c, dc);
   const settings = { settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation };
-  const methods = valueUnderEachMethod(settings, build.instruments, (other) => {
+  const methods = valueUnderEachMethod(curve.interpolation, (method) => bootstrapInstruments({ ...settings, interpolation: method }, build.instruments), (other) => {
     const v = read(other);
     return v === null ? { ok: false, errors: [{ path: '', quote: null, code: 'beyond-curve', message: 'not readable on this curve' }] } : { ok: true, value: v };
   });

@@ -34,7 +34,7 @@ describe('curve --explain', () => {
     const e = p.explain;
     expect(e.quantity).toBe('zero-rate');
     expect(e.value).toBe(p.zero);
-    expect(e.dates[0]).toEqual({ name: 'date', given: '2Y', unadjusted: '2029-03-10', adjusted: '2029-03-10', rule: expect.stringContaining('no business-day rule') });
+    expect(e.dates[0]).toEqual({ name: 'date', given: '2Y', unadjusted: '2029-03-10', adjusted: '2029-03-10', rule: expect.stringContaining('read as given') });
     const tau = e.yearFractions.find((y: any) => y.name === 'tau');
     expect(tau).toMatchObject({ dayCount: 'ACT/360', days: 731, value: 731 / 360 }); // 2027-03-10 to 2029-03-10: 731 days (2028 is a leap year)
     const read = e.reads[0];

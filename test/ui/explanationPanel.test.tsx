@@ -43,7 +43,7 @@ describe('explanation panel', () => {
     const f = forwardOn(curve, start, end, doc.display.compounding, doc.display.dayCount);
     if (!f.ok) throw new Error('forward');
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(f.value.rate));
-    const steps = within(panel).getAllByRole('list')[1]!;
+    const steps = within(panel).getByRole('region', { name: 'Steps' });
     expect(within(steps).getAllByRole('listitem').at(-1)!.textContent).toContain(`= ${fullText(f.value.rate)}`);
     expect(panel.textContent).toContain(`${start}`);
     expect(panel.textContent).toContain(doc.display.dayCount);

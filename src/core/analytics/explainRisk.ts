@@ -1,10 +1,9 @@
-import { bootstrapInstruments, type BootstrapSettings } from '../bootstrap/bootstrap.ts';
 import type { Curve } from '../curve/curve.ts';
 import type { Instrument } from '../instruments/instrument.ts';
 import { INTERPOLATIONS, type InterpolationId } from '../interpolation/types.ts';
 import { INTERPOLATORS } from '../interpolation/registry.ts';
 import type { Compounding } from '../rates/compounding.ts';
-import { coreError, fail, ok, type Result } from '../result.ts';
+import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
 import { forwardSensitivities } from './forwardSensitivity.ts';
@@ -63,15 +62,21 @@ export interface MethodValue {
 }
 
 /**
- * The same number under every interpolation method: the instruments bootstrapped again with each
- * method (the same quotes, settlement, day count and extrapolation) and read by `read`. The
- * current method is built again too, so its value is what `read` gives on a fresh build (bit for
- * bit the build's own). Cost: one bootstrap per method.
+ * The same number under every interpolation method: `curveFor(method)` builds the curve of the
+ * same quotes (settlement, day count and extrapolation unchanged) with that method, and `read`
+ * reads the number off it. The current method is built again too, so its value is what `read`
+ * gives on a fresh build (bit for bit the build's own). Cost: one build per method. The builder
+ * is the caller's (the command's bootstrap of its instruments, the workbench's CurveBuilder), so
+ * this module carries no bootstrap of its own.
  */
-export function valueUnderEachMethod(settings: BootstrapSettings, instruments: readonly Instrument[], read: (curve: Curve) => Result<number>): MethodValue[] {
+export function valueUnderEachMethod(
+  current: InterpolationId,
+  curveFor: (method: InterpolationId) => { readonly curve: Curve | null; readonly errors: readonly CoreError[] },
+  read: (curve: Curve) => Result<number>,
+): MethodValue[] {
   return INTERPOLATIONS.map((method) => {
-    const base = { method, label: INTERPOLATORS[method].label, current: method === settings.interpolation };
-    const built = bootstrapInstruments({ ...settings, interpolation: method }, instruments);
+    const base = { method, label: INTERPOLATORS[method].label, current: method === current };
+    const built = curveFor(method);
     if (!built.curve || built.errors.length > 0) return { ...base, value: null, error: built.errors[0]?.message ?? 'no curve' };
     const r = read(built.curve);
     return r.ok ? { ...base, value: r.value, error: null } : { ...base, value: null, error: r.errors[0]!.message };

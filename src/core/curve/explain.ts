@@ -168,8 +168,6 @@ export interface QueryRecorder {
     s: LnRead,
     e: LnRead,
     periods: readonly { readonly start: IsoDate; readonly end: IsoDate; readonly tau: number }[],
-    times: readonly number[],
-    lns: readonly number[],
     annuity: number,
     numerator: number,
     rate: number,
@@ -188,7 +186,7 @@ export function explained<T>(query: (sink: ExplanationSink) => Result<T>, given?
 }
 
 /** The rule and calendar of a query date. */
-export const QUERY_DATE_RULE = 'none: a query date is read as given (no business-day rule, no calendar)';
+export const QUERY_DATE_RULE = 'none (a query date is read as given)';
 
 export const queryDate = (sink: ExplanationSink, name: string, date: IsoDate): ExplainedDate => ({
   name,
@@ -200,29 +198,17 @@ export const queryDate = (sink: ExplanationSink, name: string, date: IsoDate): E
 
 /** The unit of a rate: decimal per year in its compounding and day count. */
 export const rateUnit = (c: Compounding, dc: string): string => `decimal per year, ${rateTag(c, dc)}`;
-export const DF_UNIT = 'unitless (value today of 1 paid on the date)';
+export const DF_UNIT = 'unitless';
 export const LN_UNIT = 'natural log of a discount factor';
 
 /** The day-count rule applied to two dates, in words with their numbers. */
 export function yearFractionRule(dc: DayCount, from: IsoDate, to: IsoDate, value: number): string {
   const days = daysBetween(from, to);
-  switch (dc) {
-    case 'ACT/360':
-      return `ACT/360: ${days} actual days / 360`;
-    case 'ACT/365F':
-      return `ACT/365F: ${days} actual days / 365`;
-    case 'ACT/ACT-ISDA':
-      return `ACT/ACT-ISDA: actual days in each calendar year / that year's length (365 or 366), summed (${days} days in all)`;
-    case 'ACT/ACT-ICMA':
-      return 'ACT/ACT-ICMA: actual days of the period / (frequency x actual days of its regular coupon period); 1 / frequency for a full period';
-    case '30/360':
-      return `30/360: (360 (Y2 - Y1) + 30 (M2 - M1) + (D2 - D1)) / 360, D1 = 31 becomes 30, D2 = 31 becomes 30 when D1 is 30 or 31 (${Math.round(value * 360)} days of 30/360)`;
-    case '30/360-US':
-      return `30/360-US: (360 (Y2 - Y1) + 30 (M2 - M1) + (D2 - D1)) / 360; the last day of February becomes 30 (D2 only when D1 is one too), D2 = 31 becomes 30 when D1 is 30 or 31, D1 = 31 becomes 30 (${Math.round(value * 360)} days of 30/360)`;
-    case '30E/360':
-    case '30E/360-ISDA':
-      return `${dc}: (360 (Y2 - Y1) + 30 (M2 - M1) + (D2 - D1)) / 360, any 31st becomes the 30th (${Math.round(value * 360)} days of 30/360)`;
-  }
+  if (dc === 'ACT/360' || dc === 'ACT/365F') return `${dc}: ${days} actual days / ${dc === 'ACT/360' ? 360 : 365}`;
+  if (dc === 'ACT/ACT-ISDA') return `${dc}: the days in each calendar year over that year's days (365 or 366), summed (${days} days)`;
+  if (dc === 'ACT/ACT-ICMA') return `${dc}: days / (frequency x days of the regular period)`;
+  // 2006 ISDA Definitions 4.16(f), (g), (h); SIFMA for 30/360-US: the day-of-month rules differ.
+  return `${dc}: (360 (Y2 - Y1) + 30 (M2 - M1) + (D2 - D1)) / 360 with the ${dc} rule for the 31st and the end of February (${Math.round(value * 360)} days)`;
 }
 
 export function explainedYearFraction(name: string, dc: DayCount, from: IsoDate, to: IsoDate, value: number): ExplainedYearFraction {
@@ -231,22 +217,11 @@ export function explainedYearFraction(name: string, dc: DayCount, from: IsoDate,
 
 /** The method's rule between two nodes, in plain notation. */
 function methodFormula(method: InterpolationId, first: boolean): { formula: string; local: boolean } {
-  switch (method) {
-    case 'log-linear-discount':
-      return { formula: 'ln DF(t) = ln DF(t1) + (t - t1) / (t2 - t1) x (ln DF(t2) - ln DF(t1)) (flat forward between the nodes)', local: true };
-    case 'linear-zero':
-      return first
-        ? { formula: 'ln DF(t) = -z2 t with z2 = -ln DF(t2) / t2 (zero rate flat before the first node)', local: true }
-        : { formula: 'ln DF(t) = -z(t) t, z(t) = z1 + (t - t1) / (t2 - t1) x (z2 - z1), z_k = -ln DF(t_k) / t_k (continuously compounded zero rates)', local: true };
-    case 'cubic-zero':
-      return { formula: 'ln DF(t) = -z(t) t with z a natural cubic spline of the continuously compounded zero rates through every node (so every node counts, not only these two)', local: false };
-    case 'monotone-convex':
-    case 'monotone-convex-positive':
-      return {
-        formula: `ln DF(t) = -(integral of f from 0 to t), f the ${INTERPOLATORS[method].label.toLowerCase()} forward through the discrete forwards of every node (Hagan and West); the nodes nearby count, not only these two`,
-        local: false,
-      };
+  if (method === 'log-linear-discount') return { formula: 'ln DF(t) = ln DF(t1) + (t - t1) / (t2 - t1) x (ln DF(t2) - ln DF(t1))', local: true };
+  if (method === 'linear-zero') {
+    return { formula: first ? 'ln DF(t) = -z2 t, z2 = -ln DF(t2) / t2 (flat before the first node)' : 'ln DF(t) = -z t, z = z1 + (t - t1) / (t2 - t1) x (z2 - z1), z_k = -ln DF(t_k) / t_k', local: true };
   }
+  return { formula: `${method === 'cubic-zero' ? 'a spline of the zero rates' : 'a forward curve'} through every node, so nodes beyond these two count too`, local: false };
 }
 
 /**
@@ -263,9 +238,9 @@ export function explainRead(curve: Curve, name: string, date: IsoDate, t: number
     const y = curve.lnDiscountAt(p.t);
     return { date: p.date, t: p.t, lnDiscount: y, discount: Math.exp(y), quote: p.quote };
   };
-  if (t <= 0) return { ...base, how: 'settlement', nodes: [nodeOf(-1)], local: true, formula: 'DF = 1 on the settlement date' };
+  if (t <= 0) return { ...base, how: 'settlement', nodes: [nodeOf(-1)], local: true, formula: 'DF = 1' };
   if (curve.onNodes !== true) {
-    return { ...base, how: 'derived', nodes: [], local: false, formula: 'read off a curve derived from another curve or fitted to the quotes (not an interpolation of nodes)' };
+    return { ...base, how: 'derived', nodes: [], local: false, formula: 'a derived curve' };
   }
   const last = pillars.length - 1;
   if (t > curve.lastT && last >= 0) {
@@ -276,12 +251,12 @@ export function explainRead(curve: Curve, name: string, date: IsoDate, t: number
       nodes: [nodeOf(last)],
       local: true,
       forward,
-      formula: 'ln DF(t) = ln DF(t1) - f1 (t - t1), f1 the instantaneous forward (continuous) at the last node, carried on flat',
+      formula: 'ln DF(t) = ln DF(t1) - f1 (t - t1), f1 the last node\'s instantaneous forward (continuous)',
     };
   }
   let i = 0;
   while (i <= last && pillars[i]!.t < t) i++;
-  if (i <= last && pillars[i]!.t === t) return { ...base, how: 'node', nodes: [nodeOf(i)], local: true, formula: `a node of the curve: the discount factor solved from quote ${pillars[i]!.quote}` };
+  if (i <= last && pillars[i]!.t === t) return { ...base, how: 'node', nodes: [nodeOf(i)], local: true, formula: 'a node' };
   const rule = methodFormula(method, i === 0);
   return { ...base, how: 'interpolated', nodes: [nodeOf(i - 1), nodeOf(i)], local: rule.local, formula: `${INTERPOLATORS[method].label}: ${rule.formula}` };
 }
@@ -291,17 +266,12 @@ export function explainRead(curve: Curve, name: string, date: IsoDate, t: number
  * rate in compounding c, ending in `rate`, the query's value. Names: `lnP`, `tau`.
  */
 export function rateSteps(lnP: number, c: Compounding, tau: number, rate: number, unit: string): ExplainedStep[] {
-  if (c === 'continuous') return [{ name: 'rate', formula: 'rate = -lnP / tau', inputs: ['lnP', 'tau'], value: rate, unit }];
-  if (c === 'simple') {
-    return [
-      { name: 'growth', formula: 'growth = 1 / P - 1 = expm1(-lnP)', inputs: ['lnP'], value: Math.expm1(-lnP), unit: 'unitless (interest per unit over the period)' },
-      { name: 'rate', formula: 'rate = growth / tau', inputs: ['growth', 'tau'], value: rate, unit },
-    ];
-  }
   const m = periodsPerYear(c);
+  if (m === Infinity) return [{ name: 'rate', formula: 'rate = -lnP / tau', inputs: ['lnP', 'tau'], value: rate, unit }];
+  // simple: 1/P - 1 over the period, then / tau; periodic: P^(-1/(m tau)) - 1 per period, then x m.
   return [
-    { name: 'growth', formula: `growth = P^(-1 / (${m} tau)) - 1 = expm1(-lnP / (${m} tau))`, inputs: ['lnP', 'tau'], value: Math.expm1(-lnP / (m * tau)), unit: `unitless (interest per unit per compounding period, ${m} a year)` },
-    { name: 'rate', formula: `rate = ${m} x growth`, inputs: ['growth'], value: rate, unit },
+    { name: 'growth', formula: m === 0 ? 'growth = 1/P - 1 = expm1(-lnP)' : `growth = P^(-1/(${m} tau)) - 1 = expm1(-lnP / (${m} tau))`, inputs: ['lnP', 'tau'], value: Math.expm1(m === 0 ? -lnP : -lnP / (m * tau)), unit: 'unitless' },
+    { name: 'rate', formula: m === 0 ? 'rate = growth / tau' : `rate = ${m} x growth`, inputs: ['growth', 'tau'], value: rate, unit },
   ];
 }
 
@@ -329,7 +299,7 @@ export const QUERY_RECORDER: QueryRecorder = {
   discount(curve, sink, date, t, ln, discount) {
     sink.explanation = {
       quantity: 'discount-factor',
-      formula: `DF(date) = exp(ln DF(t)), t = year fraction from settlement to the date on ${curve.dayCount} (the curve's clock), ln DF read off the curve (${curve.interpolation})`,
+      formula: `DF = exp(ln DF(t)), ln DF read off the curve at t, years on ${curve.dayCount} from settlement`,
       value: discount,
       unit: DF_UNIT,
       conventions: conventionsOf(curve, null, null),
@@ -343,7 +313,7 @@ export const QUERY_RECORDER: QueryRecorder = {
     const unit = rateUnit(c, dc);
     sink.explanation = {
       quantity: 'zero-rate',
-      formula: `zero rate from settlement to the date, ${rateDefinition(c)} with P = DF(date), tau = year fraction on ${dc}`,
+      formula: `${rateDefinition(c)}, P = DF(date), tau on ${dc} from settlement`,
       value: zero,
       unit,
       conventions: conventionsOf(curve, c, dc),
@@ -356,19 +326,15 @@ export const QUERY_RECORDER: QueryRecorder = {
   zeroAtSettlement(curve, sink, c, dc, f0, ratio, zero) {
     const unit = rateUnit(c, dc);
     const steps: ExplainedStep[] = [
-      { name: 'f0', formula: "f0 = instantaneous forward at settlement (continuous, on the curve's clock)", inputs: [], value: f0, unit: rateUnit('continuous', curve.dayCount) },
-      { name: 'k', formula: `k = years on ${curve.dayCount} / years on ${dc} over the first days from settlement`, inputs: [], value: ratio, unit: 'unitless' },
+      { name: 'f0', formula: 'f0 = instantaneous forward at settlement', inputs: [], value: f0, unit: rateUnit('continuous', curve.dayCount) },
+      { name: 'k', formula: `k = years on ${curve.dayCount} / years on ${dc} over the first day`, inputs: [], value: ratio, unit: 'unitless' },
       { name: 'fk', formula: 'fk = f0 x k', inputs: ['f0', 'k'], value: f0 * ratio, unit: rateUnit('continuous', dc) },
     ];
-    if (c === 'continuous' || c === 'simple') steps.push({ name: 'rate', formula: 'rate = fk (the limit of short rates)', inputs: ['fk'], value: zero, unit });
-    else {
-      const m = periodsPerYear(c);
-      steps.push({ name: 'growth', formula: `growth = expm1(fk / ${m})`, inputs: ['fk'], value: Math.expm1((f0 * ratio) / m), unit: 'unitless' });
-      steps.push({ name: 'rate', formula: `rate = ${m} x growth`, inputs: ['growth'], value: zero, unit });
-    }
+    const m = periodsPerYear(c);
+    steps.push({ name: 'rate', formula: m === 0 || m === Infinity ? 'rate = fk' : `rate = ${m} expm1(fk / ${m})`, inputs: ['fk'], value: zero, unit });
     sink.explanation = {
       quantity: 'zero-rate',
-      formula: `zero rate at settlement: the limit of the zero rate as the date nears settlement, the instantaneous forward f0 restated ${c} on ${dc}`,
+      formula: `the limit of the zero rate at settlement: the instantaneous forward f0, ${c} on ${dc}`,
       value: zero,
       unit,
       conventions: conventionsOf(curve, c, dc),
@@ -382,7 +348,7 @@ export const QUERY_RECORDER: QueryRecorder = {
     const unit = rateUnit(c, dc);
     sink.explanation = {
       quantity: 'forward-rate',
-      formula: `forward rate from start to end, ${rateDefinition(c)} with P = DF(end) / DF(start), tau = year fraction from start to end on ${dc}`,
+      formula: `${rateDefinition(c)}, P = DF(end) / DF(start), tau on ${dc} from start to end`,
       value: rate,
       unit,
       conventions: conventionsOf(curve, c, dc),
@@ -396,26 +362,29 @@ export const QUERY_RECORDER: QueryRecorder = {
       steps: [{ name: 'lnP', formula: 'lnP = ln DF(end) - ln DF(start)', inputs: ['DF(end)', 'DF(start)'], value: lnP, unit: LN_UNIT }, ...rateSteps(lnP, c, tau, rate, unit)],
     };
   },
-  par(curve, sink, start, end, frequency, dc, s, e, periods, times, lns, annuity, numerator, rate) {
+  par(curve, sink, start, end, frequency, dc, s, e, periods, annuity, numerator, rate) {
     const n = periods.length;
     const unit = `decimal per year, paid ${frequency} times a year, ${dc}`;
     const names = periods.map((_, i) => i + 1);
     sink.explanation = {
       quantity: 'par-yield',
-      formula: `par rate = (DF(start) - DF(end)) / sum over the ${n} periods of tau_i DF(t_i); periods of 1/${frequency} year backward from the end (a short first period), tau_i on ${dc}`,
+      formula: `rate = (DF(start) - DF(end)) / sum of tau_i DF(t_i) over ${n} periods of 1/${frequency} year back from the end, tau_i on ${dc}`,
       value: rate,
       unit,
       conventions: conventionsOf(curve, null, dc, frequency),
       dates: [queryDate(sink, 'start', start), queryDate(sink, 'end', end)],
       yearFractions: periods.map((p, i) => explainedYearFraction(`tau${i + 1}`, dc, p.start, p.end, p.tau)),
-      reads: [explainRead(curve, 'DF(start)', start, s.t, s.ln), explainRead(curve, 'DF(end)', end, e.t, e.ln), ...periods.map((p, i) => explainRead(curve, `DF(t${i + 1})`, p.end, times[i]!, lns[i]!))],
+      reads: [explainRead(curve, 'DF(start)', start, s.t, s.ln), explainRead(curve, 'DF(end)', end, e.t, e.ln), ...periods.map((p, i) => {
+          const t = curve.time(p.end);
+          return explainRead(curve, `DF(t${i + 1})`, p.end, t, curve.lnDiscountAt(t));
+        })],
       steps: [
         {
           name: 'annuity',
           formula: `annuity = ${names.map((k) => `tau${k} DF(t${k})`).join(' + ')}`,
           inputs: names.flatMap((k) => [`tau${k}`, `DF(t${k})`]),
           value: annuity,
-          unit: 'years (sum of year fractions times discount factors)',
+          unit: 'years',
         },
         { name: 'numerator', formula: 'numerator = DF(start) - DF(end) = DF(start) x -expm1(ln DF(end) - ln DF(start))', inputs: ['DF(start)', 'DF(end)'], value: numerator, unit: DF_UNIT },
         { name: 'rate', formula: 'rate = numerator / annuity', inputs: ['numerator', 'annuity'], value: rate, unit },

@@ -46,43 +46,58 @@ export function readHowText(r: ExplainedRead, quoteLabel: (i: number) => string 
     case 'interpolated':
       return `interpolated (${r.method}) between ${nodeText(r.nodes[0]!, quoteLabel)} and ${nodeText(r.nodes[1]!, quoteLabel)}`;
     case 'extrapolated':
-      return `extrapolated past the last node ${nodeText(r.nodes[0]!, quoteLabel)} at the flat instantaneous forward f1 = ${fullText(r.forward!)}`;
+      return `extrapolated past the last node ${nodeText(r.nodes[0]!, quoteLabel)} at f1 = ${fullText(r.forward!)}`;
     case 'derived':
       return 'read off a curve derived from another curve';
   }
 }
 
-export function explanationText(e: Explanation, extras: ExplanationTextExtras): string {
+/** A titled part of an explanation as lines of plain text (the panel lists them; the text joins them). */
+export interface ExplanationSection {
+  readonly heading: string;
+  readonly lines: readonly string[];
+}
+
+/**
+ * The definition, the inputs, the steps, and with `extras` the quotes behind the number and its
+ * value under each method, as lines with every number in full precision.
+ */
+export function explanationSections(e: Explanation, extras: Omit<ExplanationTextExtras, 'title'> = {}): ExplanationSection[] {
   const q = extras.quoteLabel ?? ((i: number) => `quote ${i}`);
   const c = e.conventions;
-  const out: string[] = [];
-  out.push(extras.title);
-  out.push(`Value: ${fullText(e.value)} (${e.unit})`);
-  out.push(`Definition: ${e.formula}`);
-  out.push(
-    `Conventions: compounding ${c.compounding ?? 'none (a discount factor)'}; day count ${c.dayCount ?? 'none'}${c.frequency === undefined ? '' : `; ${c.frequency} payments a year`}; curve day count ${c.curveDayCount}; interpolation ${c.interpolation}; extrapolation ${c.extrapolation}; business-day rule ${c.businessDay}; calendar ${c.calendar}`,
-  );
-  out.push('Dates:');
-  for (const d of e.dates) out.push(`  ${d.name}: given ${d.given}; unadjusted ${d.unadjusted}; adjusted ${d.adjusted} (${d.rule})`);
-  if (e.yearFractions.length > 0) {
-    out.push('Year fractions:');
-    for (const y of e.yearFractions) out.push(`  ${y.name} = ${fullText(y.value)} years from ${y.from} to ${y.to}; ${y.rule}`);
-  }
-  out.push('Discount factors read off the curve:');
+  const inputs: string[] = [];
+  for (const d of e.dates) inputs.push(`${d.name}: given ${d.given}; unadjusted ${d.unadjusted}; adjusted ${d.adjusted} (rule: ${d.rule})`);
+  for (const y of e.yearFractions) inputs.push(`${y.name} = ${fullText(y.value)} years from ${y.from} to ${y.to}; ${y.rule}`);
   for (const r of e.reads) {
-    out.push(`  ${r.name} on ${r.date} (t = ${fullText(r.t)}): DF = ${fullText(r.discount)}, ln DF = ${fullText(r.lnDiscount)}; ${readHowText(r, q)}`);
-    if (r.how === 'interpolated' || r.how === 'extrapolated') out.push(`    ${r.formula}`);
+    const how = r.how === 'interpolated' || r.how === 'extrapolated' ? `; ${r.formula}` : '';
+    inputs.push(`${r.name} on ${r.date} (t = ${fullText(r.t)}): DF = ${fullText(r.discount)}, ln DF = ${fullText(r.lnDiscount)}; ${readHowText(r, q)}${how}`);
   }
-  out.push('Steps:');
-  for (const s of e.steps) out.push(`  ${s.formula} = ${fullText(s.value)} (${s.unit})`);
+  const out: ExplanationSection[] = [
+    {
+      heading: 'Definition',
+      lines: [
+        e.formula,
+        `Compounding ${c.compounding ?? 'none'}; day count ${c.dayCount ?? 'none'}${c.frequency === undefined ? '' : `; ${c.frequency} payments a year`}; curve day count ${c.curveDayCount}; interpolation ${c.interpolation}; extrapolation ${c.extrapolation}; business-day rule ${c.businessDay}; calendar ${c.calendar}`,
+      ],
+    },
+    { heading: 'Inputs', lines: inputs },
+    { heading: 'Steps', lines: e.steps.map((s) => `${s.formula} = ${fullText(s.value)} (${s.unit})`) },
+  ];
   if (extras.topQuotes !== undefined || extras.topQuotesNote !== undefined) {
-    out.push(`Quotes it depends on most (bp per bp${extras.topQuotesNote ? `; ${extras.topQuotesNote}` : ''}):`);
-    for (const t of extras.topQuotes ?? []) out.push(`  ${t.label}: ${fullText(t.bpPerBp)}`);
+    out.push({ heading: `Quotes it depends on most (bp per bp${extras.topQuotesNote ? `; ${extras.topQuotesNote}` : ''})`, lines: (extras.topQuotes ?? []).map((t) => `${t.label}: ${fullText(t.bpPerBp)}`) });
   }
   if (extras.methods) {
-    out.push(`Under each interpolation method (${e.unit}):`);
-    for (const m of extras.methods) out.push(`  ${m.label}: ${m.value === null ? `not available (${m.error ?? 'no value'})` : fullText(m.value)}${m.current ? ' (this curve)' : ''}`);
+    out.push({
+      heading: `Under each interpolation method (${e.unit})`,
+      lines: extras.methods.map((m) => `${m.label}: ${m.value === null ? `not available (${m.error ?? 'no value'})` : fullText(m.value)}${m.current ? ' (this curve)' : ''}`),
+    });
   }
+  return out;
+}
+
+export function explanationText(e: Explanation, extras: ExplanationTextExtras): string {
+  const out: string[] = [extras.title, `Value: ${fullText(e.value)} (${e.unit})`];
+  for (const s of explanationSections(e, extras)) out.push(`${s.heading}:`, ...s.lines.map((l) => `  ${l}`));
   out.push('An analysis aid, not investment advice: verify figures against official sources.');
   return `${out.join('\n')}\n`;
 }

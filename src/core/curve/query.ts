@@ -143,25 +143,14 @@ export function forwardParRateOn(
   const e = lnDiscountOn(curve, end, `${path}.end`);
   if (!e.ok) return e;
   let annuity = 0;
-  // With a sink: each period's time and ln DF as read, for the recorder.
-  const times: number[] | null = sink ? [] : null;
-  const lns: number[] | null = sink ? [] : null;
   const periods = fixedLegPeriods(start, end, frequency, dc, eom);
-  for (let i = 0; i < periods.length; i++) {
-    const p = periods[i]!;
-    const t = curve.time(p.end);
-    const ln = curve.lnDiscountAt(t);
-    annuity += p.tau * Math.exp(ln);
-    if (times && lns) {
-      times.push(t);
-      lns.push(ln);
-    }
-  }
+  for (const p of periods) annuity += p.tau * Math.exp(curve.lnDiscountAt(curve.time(p.end)));
   // DF(S) - DF(E) as DF(S) (1 - DF(E)/DF(S)) with expm1: no cancellation for a short period.
   const dfS = Math.exp(s.value.ln);
   const numerator = dfS * -Math.expm1(e.value.ln - s.value.ln);
   const rate = numerator / annuity;
-  if (sink && times && lns) sink.recorder.par(curve, sink, start, end, frequency, dc, s.value, e.value, periods, times, lns, annuity, numerator, rate);
+  // The recorder reads each payment date's DF as the loop did (the same calls on the same curve: the same doubles).
+  if (sink) sink.recorder.par(curve, sink, start, end, frequency, dc, s.value, e.value, periods, annuity, numerator, rate);
   return ok({ rate, annuity, extrapolated: s.value.extrapolated || e.value.extrapolated });
 }
 

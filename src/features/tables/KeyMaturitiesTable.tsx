@@ -9,8 +9,6 @@ import { keyMaturityRows } from './keyMaturities.ts';
 /** The explanation panel's code (and the explanation code of the core it calls) is fetched the first time a number is opened. */
 const ExplanationPanel = lazy(() => import('./ExplanationPanel.tsx').then((m) => ({ default: m.ExplanationPanel })));
 
-const FIELD_WORDS: Readonly<Record<KeyField, string>> = { discount: 'discount factor', zero: 'zero rate', par: 'par yield', forward: 'forward rate' };
-
 /**
  * The key-maturity table. With the build (`result`), each discount factor and rate is a button
  * that opens its explanation beside the table.
@@ -27,15 +25,14 @@ export function KeyMaturitiesTable({ curve, result }: { curve: Curve; result?: W
     opener.current?.focus();
   };
   /** A figure, as a button that explains it when the build is at hand. */
-  const figure = (tenor: string, field: KeyField, text: string, present: boolean) => {
+  const figure = (tenor: string, field: KeyField, words: string, text: string, present: boolean) => {
     if (!result || !present) return text;
     const isOpen = open?.tenor === tenor && open.field === field;
-    const words = field === 'forward' ? `the ${display.forwardTenor} forward rate starting ${tenor}` : `the ${tenor} ${FIELD_WORDS[field]}`;
     return (
       <button
         type="button"
         className="cell-explain"
-        aria-label={`${text}: explain ${words}`}
+        aria-label={`${text}: explain the ${words}`}
         aria-expanded={isOpen}
         onClick={(e) => {
           opener.current = e.currentTarget;
@@ -78,11 +75,11 @@ export function KeyMaturitiesTable({ curve, result }: { curve: Curve; result?: W
             <th scope="row">{r.tenor}</th>
             <td>{r.date}</td>
             <td className="n">{formatNumber(r.t, 4)}</td>
-            <td className="n" data-field="discount">{figure(r.tenor, 'discount', formatNumber(r.discount, 8), r.discount !== null)}</td>
-            <td className="n" data-field="zero">{figure(r.tenor, 'zero', formatPercent(r.zero), r.zero !== null)}</td>
-            <td className="n" data-field="par">{figure(r.tenor, 'par', formatPercent(r.par), r.par !== null)}</td>
+            <td className="n" data-field="discount">{figure(r.tenor, 'discount', `${r.tenor} discount factor`, formatNumber(r.discount, 8), r.discount !== null)}</td>
+            <td className="n" data-field="zero">{figure(r.tenor, 'zero', `${r.tenor} zero rate`, formatPercent(r.zero), r.zero !== null)}</td>
+            <td className="n" data-field="par">{figure(r.tenor, 'par', `${r.tenor} par yield`, formatPercent(r.par), r.par !== null)}</td>
             <td className={`n${r.extrapolated ? ' extrapolated' : ''}`} data-field="forward">
-              {figure(r.tenor, 'forward', formatPercent(r.forward), r.forward !== null)}
+              {figure(r.tenor, 'forward', `${display.forwardTenor} forward rate starting ${r.tenor}`, formatPercent(r.forward), r.forward !== null)}
               {r.extrapolated ? '*' : ''}
             </td>
           </tr>

@@ -1,6 +1,8 @@
 import {
+  buildCurve,
   discountOn,
   explained,
+  explanationSections,
   explanationText,
   forwardOn,
   marketDate,
@@ -10,8 +12,11 @@ import {
   valueUnderEachMethod,
   zeroOn,
   type Curve,
+  type InterpolationId,
   type DisplaySettings,
   type Explanation,
+  type ExplanationSink,
+  type ExplanationSection,
   type MethodValue,
   type Result,
 } from '../../core/index.ts';
@@ -40,6 +45,8 @@ export interface CellQuote {
 export interface CellExplanation {
   readonly title: string;
   readonly explanation: Explanation;
+  /** The definition, inputs, steps, quotes and methods as lines (full precision), as Copy as text writes them. */
+  readonly sections: readonly ExplanationSection[];
   readonly quotes: readonly CellQuote[];
   /** What the quotes' sensitivities are of, when not the number itself, or why there are none. */
   readonly quotesNote: string | null;
@@ -66,32 +73,18 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const date = marketDate(curve.settlement, tenor);
   const end = marketDate(date, parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' });
   const { compounding: c, dayCount: dc, parFrequency } = display;
-  const read = (on: Curve): Result<number> => {
-    switch (cell.field) {
-      case 'discount': {
-        const r = discountOn(on, date);
-        return r.ok ? { ok: true, value: r.value.discount } : r;
-      }
-      case 'zero': {
-        const r = zeroOn(on, date, c, dc);
-        return r.ok ? { ok: true, value: r.value.zero } : r;
-      }
-      case 'par': {
-        const r = parYieldOn(on, date, parFrequency);
-        return r.ok ? { ok: true, value: r.value.rate } : r;
-      }
-      case 'forward': {
-        const r = forwardOn(on, date, end, c, dc);
-        return r.ok ? { ok: true, value: r.value.rate } : r;
-      }
-    }
+  // One query for the number on any curve, traced when given a sink (the panel's number is the table's).
+  const read = (on: Curve, sink?: ExplanationSink): Result<number> => {
+    const r =
+      cell.field === 'discount' ? discountOn(on, date, 'date', sink)
+      : cell.field === 'zero' ? zeroOn(on, date, c, dc, 'date', sink)
+      : cell.field === 'par' ? parYieldOn(on, date, parFrequency, 'maturity', sink)
+      : forwardOn(on, date, end, c, dc, 'forward', sink);
+    if (!r.ok) return r;
+    const v = r.value as { discount?: number; zero?: number; rate?: number };
+    return { ok: true, value: (cell.field === 'discount' ? v.discount : cell.field === 'zero' ? v.zero : v.rate)! };
   };
-  const given = { date: cell.tenor, end: cell.field === 'forward' ? `${display.forwardTenor} after the start` : cell.tenor, start: cell.tenor };
-  const traced: Result<{ explanation: Explanation }> =
-    cell.field === 'discount' ? explained((s) => discountOn(curve, date, 'date', s), given)
-    : cell.field === 'zero' ? explained((s) => zeroOn(curve, date, c, dc, 'date', s), given)
-    : cell.field === 'par' ? explained((s) => parYieldOn(curve, date, parFrequency, 'maturity', s), { start: 'valuation date', end: cell.tenor })
-    : explained((s) => forwardOn(curve, date, end, c, dc, 'forward', s), given);
+  const traced = explained((sink) => read(curve, sink), cell.field === 'par' ? { start: 'valuation date', end: cell.tenor } : { date: cell.tenor, start: cell.tenor, end: `${display.forwardTenor} after the start` });
   if (!traced.ok) return traced;
   const explanation = traced.value.explanation;
   const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
@@ -100,7 +93,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   let influences: Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
   if (cell.field === 'par') {
     influences = { ok: true, value: [] };
-    quotesNote = 'not computed for par yields yet; open the zero rate or forward of this row for its quotes';
+    quotesNote = 'not computed for par yields';
   } else if (cell.field === 'discount') {
     influences = topQuoteInfluences(curve, instruments, curve.settlement, date, 'continuous', curve.dayCount);
     quotesNote = `of its continuously compounded zero rate on ${curve.dayCount} (DF = exp(-z t))`;
@@ -108,14 +101,17 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   else influences = topQuoteInfluences(curve, instruments, date, end, c, dc);
   if (!influences.ok) quotesNote = influences.errors[0]!.message;
   const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
-  const methods = valueUnderEachMethod({ settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation }, instruments, read);
+  // The workspace's document built under each method, as the workbench builds it (skipping wrong rows).
+  const methods = valueUnderEachMethod(curve.interpolation, (method: InterpolationId) => buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: method }), read);
   const title = cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
-  const text = explanationText(explanation, {
+  const extras = {
     title,
-    quoteLabel: (index) => rowWords(rowOf(index)),
+    quoteLabel: (index: number) => rowWords(rowOf(index)),
     topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
     ...(quotesNote === null ? {} : { topQuotesNote: quotesNote }),
     methods,
-  });
-  return { ok: true, value: { title, explanation, quotes, quotesNote, methods, text } };
+  };
+  const text = explanationText(explanation, extras);
+  const sections = explanationSections(explanation, extras);
+  return { ok: true, value: { title, explanation, sections, quotes, quotesNote, methods, text } };
 }

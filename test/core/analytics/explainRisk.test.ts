@@ -77,7 +77,7 @@ describe('valueUnderEachMethod', () => {
       const curve = bootstrapInstruments(settingsFor(method), instruments).curve!;
       const own = forwardOn(curve, '2029-03-10', '2030-03-10', 'annual', 'ACT/365F');
       if (!own.ok) throw new Error('own');
-      const all = valueUnderEachMethod(settingsFor(method), instruments, (c) => {
+      const all = valueUnderEachMethod(method, (m) => bootstrapInstruments(settingsFor(m), instruments), (c) => {
         const f = forwardOn(c, '2029-03-10', '2030-03-10', 'annual', 'ACT/365F');
         return f.ok ? { ok: true, value: f.value.rate } : f;
       });
@@ -96,13 +96,14 @@ describe('valueUnderEachMethod', () => {
     const b = buildCurve(small);
     const curve = b.curve!;
     const date = curve.pillars[0]!.date;
-    const all = valueUnderEachMethod({ settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation }, b.instruments, (c) => {
+    const settings = { settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation };
+    const all = valueUnderEachMethod(curve.interpolation, (m) => bootstrapInstruments({ ...settings, interpolation: m }, b.instruments), (c) => {
       const z = zeroOn(c, date, 'simple', 'ACT/360');
       return z.ok ? { ok: true, value: z.value.zero } : z;
     });
     for (const m of all) expectClose(m.value!, 0.0287, 1e-14, `${m.method}: definition of a deposit rate`);
     // And a value between nodes does depend on the method: the five are not all equal 4 years out.
-    const mid = valueUnderEachMethod({ settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation }, b.instruments, (c) => {
+    const mid = valueUnderEachMethod(curve.interpolation, (m) => bootstrapInstruments({ ...settings, interpolation: m }, b.instruments), (c) => {
       const z = zeroOn(c, '2030-01-01', 'continuous', 'ACT/365F');
       return z.ok ? { ok: true, value: z.value.zero } : z;
     });
