@@ -35,8 +35,11 @@ import {
   bootstrapInstruments,
   topQuoteInfluences,
   valueUnderEachMethod,
+  type BootstrapOutcome,
   type Curve,
   type CurveBuild,
+  type InterpolationId,
+  type Result,
   type Explanation,
   type Compounding,
   type CoreError,
@@ -346,39 +349,54 @@ export interface ExplainOut extends Explanation {
 /** Quote indices of an explanation re-pointed at the input's rows (a workbench document). */
 const atRow = (rowOf: readonly number[] | null, index: number): number => (rowOf === null ? index : (rowOf[index] ?? index));
 
-/** The explanation of a rate over [start, end] with the quotes and methods behind it. */
-function explainRate(build: CurveBuild, curve: Curve, e: Explanation, start: string, end: string, c: Compounding, dc: CurveDayCount, rowOf: readonly number[] | null, read: (curve: Curve) => number | null): ExplainOut {
-  const top = topQuoteInfluences(curve, build.instruments, start, end, c, dc);
+/** What every explanation of one document shares: its build, input rows and its curves under each method (built once, on first use). */
+interface ExplainContext {
+  readonly build: CurveBuild;
+  readonly curve: Curve;
+  readonly rowOf: readonly number[] | null;
+  readonly curveFor: (method: InterpolationId) => BootstrapOutcome;
+}
+
+function explainContext(build: CurveBuild, curve: Curve, rowOf: readonly number[] | null): ExplainContext {
   const settings = { settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation };
-  const methods = valueUnderEachMethod(curve.interpolation, (method) => bootstrapInstruments({ ...settings, interpolation: method }, build.instruments), (other) => {
-    const v = read(other);
-    return v === null ? { ok: false, errors: [{ path: '', quote: null, code: 'beyond-curve', message: 'not readable on this curve' }] } : { ok: true, value: v };
-  });
+  const byMethod = new Map<InterpolationId, BootstrapOutcome>();
+  const curveFor = (method: InterpolationId): BootstrapOutcome => {
+    let b = byMethod.get(method);
+    if (!b) byMethod.set(method, (b = bootstrapInstruments({ ...settings, interpolation: method }, build.instruments)));
+    return b;
+  };
+  return { build, curve, rowOf, curveFor };
+}
+
+/** The explanation of a rate over [start, end] with the quotes and methods behind it. */
+function explainRate(x: ExplainContext, e: Explanation, start: string, end: string, c: Compounding, dc: CurveDayCount, read: (curve: Curve) => Result<number>): ExplainOut {
+  const top = topQuoteInfluences(x.curve, x.build.instruments, start, end, c, dc);
+  const methods = valueUnderEachMethod(x.curve.interpolation, x.curveFor, read);
   return {
     ...e,
-    reads: e.reads.map((r) => ({ ...r, nodes: r.nodes.map((n) => (n.quote === null ? n : { ...n, quote: atRow(rowOf, n.quote) })) })),
-    topQuotes: top.ok ? top.value.map((q) => ({ ...q, index: atRow(rowOf, q.index) })) : [],
+    reads: e.reads.map((r) => ({ ...r, nodes: r.nodes.map((n) => (n.quote === null ? n : { ...n, quote: atRow(x.rowOf, n.quote) })) })),
+    topQuotes: top.ok ? top.value.map((q) => ({ ...q, index: atRow(x.rowOf, q.index) })) : [],
     methods: methods.map((m) => ({ method: m.method, current: m.current, value: m.value, error: m.error })),
   };
 }
 
 /** `explain` of a point: its zero rate (whose read is the discount factor) explained. */
-function explainPoint(build: CurveBuild, curve: Curve, date: string, given: string, c: Compounding, dc: CurveDayCount, rowOf: readonly number[] | null): ExplainOut | null {
-  const z = explained((sink) => zeroOn(curve, date, c, dc, 'date', sink), { date: given });
+function explainPoint(x: ExplainContext, date: string, given: string, c: Compounding, dc: CurveDayCount): ExplainOut | null {
+  const z = explained((sink) => zeroOn(x.curve, date, c, dc, 'date', sink), { date: given });
   if (!z.ok) return null; // not reached: the same query has just succeeded
-  return explainRate(build, curve, z.value.explanation, curve.settlement, date, c, dc, rowOf, (other) => {
+  return explainRate(x, z.value.explanation, x.curve.settlement, date, c, dc, (other) => {
     const r = zeroOn(other, date, c, dc);
-    return r.ok ? r.value.zero : null;
+    return r.ok ? { ok: true, value: r.value.zero } : r;
   });
 }
 
 /** `explain` of a forward. */
-function explainForward(build: CurveBuild, curve: Curve, start: string, end: string, givenStart: string, givenEnd: string, c: Compounding, dc: CurveDayCount, rowOf: readonly number[] | null): ExplainOut | null {
-  const f = explained((sink) => forwardOn(curve, start, end, c, dc, 'forward', sink), { start: givenStart, end: givenEnd });
+function explainForward(x: ExplainContext, start: string, end: string, givenStart: string, givenEnd: string, c: Compounding, dc: CurveDayCount): ExplainOut | null {
+  const f = explained((sink) => forwardOn(x.curve, start, end, c, dc, 'forward', sink), { start: givenStart, end: givenEnd });
   if (!f.ok) return null; // not reached: the same query has just succeeded
-  return explainRate(build, curve, f.value.explanation, start, end, c, dc, rowOf, (other) => {
+  return explainRate(x, f.value.explanation, start, end, c, dc, (other) => {
     const r = forwardOn(other, start, end, c, dc);
-    return r.ok ? r.value.rate : null;
+    return r.ok ? { ok: true, value: r.value.rate } : r;
   });
 }
 
@@ -405,6 +423,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
   const pillars = curve.pillars;
   const count = at ? at.length : pillars.length;
   const points: PointOut[] = [];
+  const x = opts.explain ? explainContext(build, curve, read.rowOfQuote) : null;
   for (let i = 0; i < count; i++) {
     const date = at ? resolve(at[i]!, settlement) : pillars[i]!.date;
     // Performance: the query's path names it only in an error, so it is spelled out only then.
@@ -417,7 +436,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     const v = z.value;
     finite &&= Number.isFinite(v.t) && Number.isFinite(v.discount) && Number.isFinite(v.zero);
     const point: PointOut = v.extrapolated ? { date, t: v.t, discount: v.discount, zero: v.zero, extrapolated: true } : { date, t: v.t, discount: v.discount, zero: v.zero };
-    const explain = opts.explain ? explainPoint(build, curve, date, at ? at[i]! : date, opts.compounding, dc, read.rowOfQuote) : null;
+    const explain = x ? explainPoint(x, date, at ? at[i]! : date, opts.compounding, dc) : null;
     points.push(explain ? { ...point, explain } : point);
   }
   const forwards: ForwardOut[] = [];
@@ -431,7 +450,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     const v = f.value;
     finite &&= Number.isFinite(v.tau) && Number.isFinite(v.rate);
     const forward: ForwardOut = v.extrapolated ? { start: v.start, end: v.end, tau: v.tau, rate: v.rate, extrapolated: true } : { start: v.start, end: v.end, tau: v.tau, rate: v.rate };
-    const explain = opts.explain ? explainForward(build, curve, v.start, v.end, s, e, opts.compounding, dc, read.rowOfQuote) : null;
+    const explain = x ? explainForward(x, v.start, v.end, s, e, opts.compounding, dc) : null;
     forwards.push(explain ? { ...forward, explain } : forward);
   }
   const bonds = opts.bonds.flatMap((b, i) => {
