@@ -28,7 +28,7 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
-  /** Its name in the steps (`date`, `start`, `end`, `maturity`). */
+  /** Its name in the steps (`date`, or `start` and `end`). */
   readonly name: string;
   /** As the user gave it (a tenor such as `2Y` or a date); the date itself when not known. */
   readonly given: string;
@@ -69,7 +69,7 @@ export type ReadHow = 'settlement' | 'node' | 'interpolated' | 'extrapolated' | 
 
 /** A discount factor read off the curve. */
 export interface ExplainedRead {
-  /** Its name in the steps (`DF(end)`, `DF(t_3)`). */
+  /** Its name in the steps (`DF(date)`, `DF(start)`, `DF(end)`, a par rate's payment dates `DF(t1)`, `DF(t2)`...). */
   readonly name: string;
   readonly date: IsoDate;
   /** Years on the curve's day count from settlement (the year fraction named `t...`). */
