@@ -3,6 +3,7 @@ import { runCurveCommand } from '../../src/cli/curveCommand.ts';
 import { buildCurve, forwardOn, topQuoteInfluences, zeroOn } from '../../src/core/index.ts';
 import { expectRelClose } from '../helpers/asserts.ts';
 import { INVENTED_2027, workspaceDoc } from '../helpers/markets.ts';
+import { demoWorkspace } from '../../src/state/demoWorkspace.ts';
 
 // `curve --explain` (issue 19): every point and forward carries an `explain` object; the output
 // otherwise is the run without it, field for field. Documents are invented test data. The
@@ -82,5 +83,28 @@ describe('curve --explain', () => {
   it('--explain takes no value and is given once', async () => {
     expect((await run(JSON.stringify(doc), '--explain=yes')).stderr).toContain('--explain takes no value');
     expect((await run(JSON.stringify(doc), '--explain', '--explain')).stderr).toContain('--explain is given twice');
+  });
+});
+
+describe('curve --explain on a workbench file', () => {
+  it('names quotes by the file\'s rows: with row 5 left out, no explanation points at it and later rows keep their numbers', async () => {
+    // The demo workspace (invented data) with row 5 made wrong and left out (--skip-invalid): the
+    // engine's quote indices then differ from the file's rows after row 5. Oracle: the output's own
+    // `quotes` list, whose indices are the file's rows (curveWorkbench.test.ts).
+    let n = 0;
+    const demo = demoWorkspace(() => `c${n++}`);
+    const quotes = demo.quotes.map((q, i) => (i === 4 ? { ...q, rate: '4.x' } : q));
+    const r = await run(JSON.stringify({ ...demo, quotes }), '--skip-invalid', '--explain', '--forward', '5Y:7Y');
+    expect(r.status).toBe(0);
+    const o = parse(r.stdout);
+    const rows = new Set(o.quotes.map((q: any) => q.index));
+    expect(rows.has(4)).toBe(false);
+    const f = o.forwards[0].explain;
+    expect(f.topQuotes.length).toBe(5);
+    for (const q of f.topQuotes) expect(rows.has(q.index)).toBe(true);
+    for (const read of f.reads) for (const node of read.nodes) if (node.quote !== null) expect(rows.has(node.quote)).toBe(true);
+    // Each node's quote is the row whose pillar is that node's date.
+    const pillarOf = new Map(o.quotes.map((q: any) => [q.index, q.pillar]));
+    for (const read of f.reads) for (const node of read.nodes) if (node.quote !== null) expect(pillarOf.get(node.quote)).toBe(node.date);
   });
 });
