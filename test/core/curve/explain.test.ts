@@ -81,13 +81,30 @@ const value = <T>(x: { ok: true; value: T } | { ok: false; errors: readonly unkn
 /** Days between two ISO dates by the JavaScript clock (independent of the core's serials). */
 const days = (a: string, b: string): number => Math.round((Date.parse(b) - Date.parse(a)) / 86400000);
 
-/** Year fraction by ISDA 4.16 for the day counts recomputed here; null for the others. */
+/** Year fraction by the 2006 ISDA Definitions 4.16 (and SIFMA for 30/360-US), written out here; null for ACT/ACT-ICMA. */
 function yearFraction(dc: string, a: string, b: string): number | null {
   if (dc === 'ACT/360') return days(a, b) / 360;
   if (dc === 'ACT/365F') return days(a, b) / 365;
   const [y1, m1, d1] = a.split('-').map(Number) as [number, number, number];
   const [y2, m2, d2] = b.split('-').map(Number) as [number, number, number];
-  if (dc === '30E/360') return (360 * (y2 - y1) + 30 * (m2 - m1) + (Math.min(d2, 30) - Math.min(d1, 30))) / 360;
+  const thirty = (D1: number, D2: number) => (360 * (y2 - y1) + 30 * (m2 - m1) + (D2 - D1)) / 360;
+  if (dc === '30E/360') return thirty(Math.min(d1, 30), Math.min(d2, 30));
+  if (dc === '30/360') {
+    // 4.16(f): D1 = 31 becomes 30; D2 = 31 becomes 30 when D1 is then 30.
+    const D1 = Math.min(d1, 30);
+    return thirty(D1, d2 === 31 && D1 === 30 ? 30 : d2);
+  }
+  if (dc === '30/360-US') {
+    // SIFMA (Standard Securities Calculation Methods), with the end-of-February rules as curve queries use them.
+    const lastFeb = (y: number, m: number, d: number) => m === 2 && d === new Date(Date.UTC(y, 2, 0)).getUTCDate();
+    let D1 = d1;
+    let D2 = d2;
+    if (lastFeb(y1, m1, d1) && lastFeb(y2, m2, d2)) D2 = 30;
+    if (lastFeb(y1, m1, d1)) D1 = 30;
+    if (D2 === 31 && D1 >= 30) D2 = 30;
+    if (D1 === 31) D1 = 30;
+    return thirty(D1, D2);
+  }
   if (dc === 'ACT/ACT-ISDA') {
     const leap = (y: number) => (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
     if (y1 === y2) return days(a, b) / (leap(y1) ? 366 : 365);
