@@ -6,7 +6,7 @@
 // and test/core/analytics/explainRisk.test.ts); here the panel must show them. axe-core (WCAG 2 A
 // and AA) checks the open panel.
 import axe from 'axe-core';
-import { render, screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { explained, forwardOn, fullText, marketDate, parseTenor, zeroOn } from '../../src/core/index.ts';
@@ -91,6 +91,23 @@ describe('explanation panel', () => {
     expect(written[0]).toContain(`DF = ${fullText(z.value.value.discount)}`);
     expect(written[0]).toMatch(new RegExp(`unadjusted ${date}`));
     expect(written[0]).toContain('not investment advice');
+  });
+
+  it('an open explanation follows an edit of the sheet once typing pauses', async () => {
+    const user = userEvent.setup({ delay: null });
+    render(<App />);
+    const row = screen.getByRole('table', { name: 'Key maturities' }).querySelector('tr[data-tenor="10Y"]')!;
+    await user.click(within(row as HTMLElement).getByRole('button', { name: /explain the 10Y zero rate/ }));
+    const panel = await screen.findByRole('complementary', { name: /10Y zero rate/ });
+    const before = panel.querySelector('[data-field="value"]')!.textContent;
+    const rate = screen.getByRole('textbox', { name: 'Row 16 Rate / yield' });
+    fireEvent.change(rate, { target: { value: '5.5' } });
+    const doc = useAppStore.getState().workspace;
+    const curve = deriveBuild(doc).build.curve!;
+    const z = zeroOn(curve, marketDate(curve.settlement, parseTenor('10Y')!), doc.display.compounding, doc.display.dayCount);
+    if (!z.ok) throw new Error('zero');
+    await waitFor(() => expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(z.value.zero)), { timeout: 5000 });
+    expect(fullText(z.value.zero)).not.toBe(before);
   });
 
   it('the open panel has no axe-core violations', async () => {

@@ -3,11 +3,20 @@ import { lazy, Suspense, useMemo, useRef, useState } from 'react';
 import type { Curve } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { useSettledValue } from '../../hooks/useSettledValue.ts';
 import type { KeyCell, KeyField } from './explainCell.ts';
 import { keyMaturityRows } from './keyMaturities.ts';
 
 /** The explanation panel's code (and the explanation code of the core it calls) is fetched the first time a number is opened. */
 const ExplanationPanel = lazy(() => import('./ExplanationPanel.tsx').then((m) => ({ default: m.ExplanationPanel })));
+
+/**
+ * The open explanation follows the build once typing pauses (each one rebuilds the curve under
+ * every method): a keystroke in the sheet repaints the table first.
+ */
+function SettledExplanation({ result, ...rest }: { result: WorkbenchBuild } & Omit<Parameters<typeof ExplanationPanel>[0], 'result'>) {
+  return <ExplanationPanel result={useSettledValue(result)} {...rest} />;
+}
 
 /**
  * The key-maturity table. With the build (`result`), each discount factor and rate is a button
@@ -103,7 +112,7 @@ export function KeyMaturitiesTable({ curve, result }: { curve: Curve; result?: W
       {table}
       {open && (
         <Suspense fallback={<p className="muted small" role="status">Loading the explanation…</p>}>
-          <ExplanationPanel result={result} display={display} cell={open} onClose={close} />
+          <SettledExplanation result={result} display={display} cell={open} onClose={close} />
         </Suspense>
       )}
     </div>
