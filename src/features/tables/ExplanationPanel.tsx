@@ -29,7 +29,11 @@ export function ExplanationPanel({ result, display, cell, onClose, writeText }: 
   const panelRef = useRef<HTMLElement>(null);
   // Opening a number (or another one) moves the focus to the panel, so a screen reader reads it.
   useEffect(() => {
-    panelRef.current?.focus({ preventScroll: true });
+    const el = panelRef.current;
+    if (el) {
+      el.scrollTop = 0; // another number reads from its top
+      el.focus({ preventScroll: true });
+    }
     setStatus(null);
   }, [cell]);
   const onKeyDown = (e: KeyboardEvent<HTMLElement>): void => {
