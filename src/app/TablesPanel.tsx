@@ -23,7 +23,7 @@ const BASE_TABS: readonly TabDef[] = [
     label: 'Key maturities',
     render: needCurve((r) => (
       <>
-        <KeyMaturitiesTable curve={r.build.curve!} />
+        <KeyMaturitiesTable curve={r.build.curve!} result={r} />
         <CurveTableExport curve={r.build.curve!} />
       </>
     )),

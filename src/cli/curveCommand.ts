@@ -37,6 +37,14 @@ import {
   type Curve,
   type CurveBuild,
   type Workspace,
+  explained,
+  bootstrapInstruments,
+  topQuoteInfluences,
+  valueUnderEachMethod,
+  type BootstrapOutcome,
+  type InterpolationId,
+  type Result,
+  type Explanation,
   type Compounding,
   type CoreError,
   type CoreWarning,
@@ -77,6 +85,7 @@ interface Options {
   dayCount: CurveDayCount | null;
   extrapolate: Extrapolation | null;
   skipInvalid: boolean;
+  explain: boolean;
   bonds: BondSpec[];
   holidays: HolidayRequest[];
 }
@@ -99,7 +108,7 @@ interface BondSpec {
 }
 
 const USAGE =
-  'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid] [--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]]...\n' +
+  'usage: npm run --silent curve -- FILE [--at D,...] [--forward S:E,...] [--compounding C] [--day-count DC] [--extrapolate none|flat-forward] [--skip-invalid] [--explain] [--bond MATURITY,COUPON,FREQUENCY,DAYCOUNT[,price=P|yield=Y]]...\n' +
   '       npm run --silent curve -- --holidays CALENDAR,FROM,TO [--holidays ...] [FILE]\n' +
   '       npm run --silent curve -- --help | --version\n' +
   '  FILE is a workspace JSON document or NDJSON, or - for standard input; dates are YYYY-MM-DD or tenors (3M, 2Y) from settlement\n' +
@@ -114,6 +123,9 @@ const HELP =
   `  --day-count DC        ${CURVE_DAY_COUNTS.join(', ')} (default the curve's)\n` +
   `  --extrapolate E       ${EXTRAPOLATIONS.join(', ')} (default the document's)\n` +
   '  --skip-invalid        build from the valid quotes and list the others under warnings\n' +
+  '  --explain             each point and forward carries an explain object: dates, year fractions, discount\n' +
+  '                        factors read (node or interpolated, between which nodes), the steps, the five quotes\n' +
+  '                        it depends on most (bp per bp) and its value under each interpolation method\n' +
   '  --holidays C,FROM,TO  (repeatable; no FILE needed) one line per calendar with the weekdays from FROM to TO\n' +
   `                        it is closed: ${BUILT_IN_CALENDARS.join(', ')}, joined with + (a holiday in any)\n` +
   '  --help, -h            this text;  --version  the version\n' +
@@ -129,10 +141,10 @@ const usage = (message: string): CommandResult => ({ stdout: '', stderr: `curve:
 const isPoint = (s: string): boolean => isIsoDate(s) || parseTenor(s) !== null;
 
 /** Options that may be given once: a second one is refused rather than silently replacing the first. */
-const SINGLE = ['--compounding', '--day-count', '--extrapolate', '--skip-invalid'];
+const SINGLE = ['--compounding', '--day-count', '--extrapolate', '--skip-invalid', '--explain'];
 
 function parseArgs(args: readonly string[]): Options | { readonly show: 'help' | 'version' } | string {
-  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, bonds: [], holidays: [] };
+  const opts: Options = { file: '', at: null, forward: [], compounding: 'continuous', dayCount: null, extrapolate: null, skipInvalid: false, explain: false, bonds: [], holidays: [] };
   const files: string[] = [];
   const given = new Set<string>();
   for (let i = 0; i < args.length; i++) {
@@ -202,6 +214,10 @@ function parseArgs(args: readonly string[]): Options | { readonly show: 'help' |
       case '--skip-invalid':
         if (eq > 0) return '--skip-invalid takes no value';
         opts.skipInvalid = true;
+        break;
+      case '--explain':
+        if (eq > 0) return '--explain takes no value';
+        opts.explain = true;
         break;
       default:
         if (arg.startsWith('--') || (arg.startsWith('-') && arg !== '-')) return `unknown option ${arg}`;
@@ -328,6 +344,66 @@ const failedLine = (index: number, errors: readonly CoreError[]): string => JSON
 /** A wrong row of a workbench document, left out under --skip-invalid, as the engine words a skipped quote. */
 const skippedRow = (e: CoreError): CoreWarning => ({ path: e.path, quote: e.quote, code: 'skipped', message: `${e.message}; left out` });
 
+/** A point's or forward's `explain` object: the core's explanation, the quotes behind it, the value under each method. */
+export interface ExplainOut extends Explanation {
+  readonly topQuotes: readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[];
+  readonly methods: readonly { method: string; current: boolean; value: number | null; error: string | null }[];
+}
+
+/** Quote indices of an explanation re-pointed at the input's rows (a workbench document). */
+const atRow = (rowOf: readonly number[] | null, index: number): number => (rowOf === null ? index : (rowOf[index] ?? index));
+
+/** What every explanation of one document shares: its build, input rows and its curves under each method (built once, on first use). */
+interface ExplainContext {
+  readonly build: CurveBuild;
+  readonly curve: Curve;
+  readonly rowOf: readonly number[] | null;
+  readonly curveFor: (method: InterpolationId) => BootstrapOutcome;
+}
+
+function explainContext(build: CurveBuild, curve: Curve, rowOf: readonly number[] | null): ExplainContext {
+  const settings = { settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation };
+  const byMethod = new Map<InterpolationId, BootstrapOutcome>();
+  const curveFor = (method: InterpolationId): BootstrapOutcome => {
+    let b = byMethod.get(method);
+    if (!b) byMethod.set(method, (b = bootstrapInstruments({ ...settings, interpolation: method }, build.instruments)));
+    return b;
+  };
+  return { build, curve, rowOf, curveFor };
+}
+
+/** The explanation of a rate over [start, end] with the quotes and methods behind it. */
+function explainRate(x: ExplainContext, e: Explanation, start: string, end: string, c: Compounding, dc: CurveDayCount, read: (curve: Curve) => Result<number>): ExplainOut {
+  const top = topQuoteInfluences(x.curve, x.build.instruments, start, end, c, dc);
+  const methods = valueUnderEachMethod(x.curve.interpolation, x.curveFor, read);
+  return {
+    ...e,
+    reads: e.reads.map((r) => ({ ...r, nodes: r.nodes.map((n) => (n.quote === null ? n : { ...n, quote: atRow(x.rowOf, n.quote) })) })),
+    topQuotes: top.ok ? top.value.map((q) => ({ ...q, index: atRow(x.rowOf, q.index) })) : [],
+    methods: methods.map((m) => ({ method: m.method, current: m.current, value: m.value, error: m.error })),
+  };
+}
+
+/** `explain` of a point: its zero rate (whose read is the discount factor) explained. */
+function explainPoint(x: ExplainContext, date: string, given: string, c: Compounding, dc: CurveDayCount): ExplainOut | null {
+  const z = explained((sink) => zeroOn(x.curve, date, c, dc, 'date', sink), { date: given });
+  if (!z.ok) return null; // not reached: the same query has just succeeded
+  return explainRate(x, z.value.explanation, x.curve.settlement, date, c, dc, (other) => {
+    const r = zeroOn(other, date, c, dc);
+    return r.ok ? { ok: true, value: r.value.zero } : r;
+  });
+}
+
+/** `explain` of a forward. */
+function explainForward(x: ExplainContext, start: string, end: string, givenStart: string, givenEnd: string, c: Compounding, dc: CurveDayCount): ExplainOut | null {
+  const f = explained((sink) => forwardOn(x.curve, start, end, c, dc, 'forward', sink), { start: givenStart, end: givenEnd });
+  if (!f.ok) return null; // not reached: the same query has just succeeded
+  return explainRate(x, f.value.explanation, start, end, c, dc, (other) => {
+    const r = forwardOn(other, start, end, c, dc);
+    return r.ok ? { ok: true, value: r.value.rate } : r;
+  });
+}
+
 /** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
 function runDocument(index: number, input: unknown, opts: Options, builder: CurveBuilder): { line: string; errors: readonly CoreError[] } {
   const capped = documentCapErrors(input);
@@ -351,6 +427,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
   const pillars = curve.pillars;
   const count = at ? at.length : pillars.length;
   const points: PointOut[] = [];
+  const x = opts.explain ? explainContext(build, curve, read.rowOfQuote) : null;
   for (let i = 0; i < count; i++) {
     const date = at ? resolve(at[i]!, settlement) : pillars[i]!.date;
     // Performance: the query's path names it only in an error, so it is spelled out only then.
@@ -362,7 +439,9 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     }
     const v = z.value;
     finite &&= Number.isFinite(v.t) && Number.isFinite(v.discount) && Number.isFinite(v.zero);
-    points.push(v.extrapolated ? { date, t: v.t, discount: v.discount, zero: v.zero, extrapolated: true } : { date, t: v.t, discount: v.discount, zero: v.zero });
+    const point: PointOut = v.extrapolated ? { date, t: v.t, discount: v.discount, zero: v.zero, extrapolated: true } : { date, t: v.t, discount: v.discount, zero: v.zero };
+    const explain = x ? explainPoint(x, date, at ? at[i]! : date, opts.compounding, dc) : null;
+    points.push(explain ? { ...point, explain } : point);
   }
   const forwards: ForwardOut[] = [];
   for (let i = 0; i < opts.forward.length; i++) {
@@ -374,7 +453,9 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     }
     const v = f.value;
     finite &&= Number.isFinite(v.tau) && Number.isFinite(v.rate);
-    forwards.push(v.extrapolated ? { start: v.start, end: v.end, tau: v.tau, rate: v.rate, extrapolated: true } : { start: v.start, end: v.end, tau: v.tau, rate: v.rate });
+    const forward: ForwardOut = v.extrapolated ? { start: v.start, end: v.end, tau: v.tau, rate: v.rate, extrapolated: true } : { start: v.start, end: v.end, tau: v.tau, rate: v.rate };
+    const explain = x ? explainForward(x, v.start, v.end, s, e, opts.compounding, dc) : null;
+    forwards.push(explain ? { ...forward, explain } : forward);
   }
   const bonds = opts.bonds.flatMap((b, i) => {
     const input: BondInput = { ...b, maturity: resolve(b.maturity, settlement) };

@@ -7,6 +7,8 @@ export interface PointOut {
   readonly discount: number;
   readonly zero: number;
   readonly extrapolated?: true;
+  /** With --explain: how the zero rate (and the discount factor it is read from) comes about. */
+  readonly explain?: object;
 }
 
 /** One `forwards` entry: tau in years on the asked day count, rate in the asked compounding and day count. */
@@ -16,6 +18,8 @@ export interface ForwardOut {
   readonly tau: number;
   readonly rate: number;
   readonly extrapolated?: true;
+  /** With --explain: how the forward comes about. */
+  readonly explain?: object;
 }
 
 /** One `quotes` entry: t in years on the curve's day count; repricingError in `unit` (price per 100, or rate). */
@@ -86,12 +90,12 @@ export function builtDocumentLine(o: BuiltDocument): string {
   for (let i = 0; i < points.length; i++) {
     const p = points[i]!;
     const t = i < quotes.length && p.t === quotes[i]!.t ? tText[i]! : `${p.t}`;
-    s += `${i === 0 ? '' : ','}{"date":"${p.date}","t":${t},"discount":${p.discount},"zero":${p.zero}${p.extrapolated ? ',"extrapolated":true' : ''}}`;
+    s += `${i === 0 ? '' : ','}{"date":"${p.date}","t":${t},"discount":${p.discount},"zero":${p.zero}${p.extrapolated ? ',"extrapolated":true' : ''}${p.explain === undefined ? '' : `,"explain":${JSON.stringify(p.explain)}`}}`;
   }
   s += '],"forwards":[';
   for (let i = 0; i < o.forwards.length; i++) {
     const f = o.forwards[i]!;
-    s += `${i === 0 ? '' : ','}{"start":"${f.start}","end":"${f.end}","tau":${f.tau},"rate":${f.rate}${f.extrapolated ? ',"extrapolated":true' : ''}}`;
+    s += `${i === 0 ? '' : ','}{"start":"${f.start}","end":"${f.end}","tau":${f.tau},"rate":${f.rate}${f.extrapolated ? ',"extrapolated":true' : ''}${f.explain === undefined ? '' : `,"explain":${JSON.stringify(f.explain)}`}}`;
   }
   s += ']';
   if (o.bonds !== undefined) s += `,"bonds":${JSON.stringify(o.bonds)}`;

@@ -14,6 +14,9 @@ const isoDate = fc
 const finite = fc.oneof(fc.double({ noNaN: true, noDefaultInfinity: true }), fc.constantFrom(0, -0, 5e-324, 1e21, 1e-7, 0.1 + 0.2));
 const flag = fc.option(fc.constant(true as const), { nil: undefined });
 const withFlag = <T extends object>(o: T, extrapolated: true | undefined): T => (extrapolated ? { ...o, extrapolated } : o);
+// An `explain` object (--explain): free text and numbers, written by JSON.stringify after the flag.
+const explainObject = fc.option(fc.record({ quantity: fc.string(), steps: fc.array(fc.record({ name: fc.string({ unit: 'binary' }), value: finite }), { maxLength: 3 }) }), { nil: undefined });
+const withExplain = <T extends object>(o: T, explain: object | undefined): T => (explain === undefined ? o : { ...o, explain });
 
 const record: fc.Arbitrary<BuiltDocument> = fc
   .record({
@@ -31,8 +34,8 @@ const record: fc.Arbitrary<BuiltDocument> = fc
         .map(([q, payment]) => ({ ...q, payment: payment ?? null })),
       { maxLength: 6 },
     ),
-    points: fc.array(fc.tuple(fc.record({ date: isoDate, t: finite, discount: finite, zero: finite }), flag).map(([p, x]) => withFlag(p, x)), { maxLength: 6 }),
-    forwards: fc.array(fc.tuple(fc.record({ start: isoDate, end: isoDate, tau: finite, rate: finite }), flag).map(([f, x]) => withFlag(f, x)), { maxLength: 4 }),
+    points: fc.array(fc.tuple(fc.record({ date: isoDate, t: finite, discount: finite, zero: finite }), flag, explainObject).map(([p, x, e]) => withExplain(withFlag(p, x), e)), { maxLength: 6 }),
+    forwards: fc.array(fc.tuple(fc.record({ start: isoDate, end: isoDate, tau: finite, rate: finite }), flag, explainObject).map(([f, x, e]) => withExplain(withFlag(f, x), e)), { maxLength: 4 }),
     bonds: fc.option(fc.array(fc.record({ maturity: isoDate, yield: finite, yieldConvention: fc.string(), keyRateDurations: fc.dictionary(fc.string(), finite) }), { maxLength: 2 }), { nil: undefined }),
     warnings: fc.array(fc.record({ path: fc.string(), quote: fc.option(fc.nat(), { nil: null }), code: fc.constant('skipped' as const), message: fc.string({ unit: 'binary' }) }), { maxLength: 3 }),
   })

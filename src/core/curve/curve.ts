@@ -39,6 +39,8 @@ export interface Curve {
   forwardAt(t: number): number;
   /** Years from settlement to a date on this curve's axis. */
   time(date: IsoDate): number;
+  /** True for a curve that is an interpolation of its pillars (`curveFromNodes`): its pillars are its nodes. */
+  readonly onNodes?: true;
 }
 
 /** Builds a curve through pillars (sorted by t, all t > 0, strictly increasing). */
@@ -144,5 +146,5 @@ export function curveFromNodes(
   pillars: readonly Pillar[],
   interp: Interpolation,
 ): Curve {
-  return curveFromLnDiscount({ settlement, dayCount, interpolation, extrapolation, pillars }, interp, 'flat-forward');
+  return Object.assign(curveFromLnDiscount({ settlement, dayCount, interpolation, extrapolation, pillars }, interp, 'flat-forward'), { onNodes: true as const });
 }

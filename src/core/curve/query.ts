@@ -6,6 +6,7 @@ import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import type { Tenor } from '../time/tenor.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import type { Curve } from './curve.ts';
+import type { ExplanationSink } from './explain.ts';
 
 /** A discount factor or rate read off a curve; `extrapolated` when the date is past the last pillar. */
 export interface PointValue {
@@ -49,10 +50,16 @@ export function lnDiscountOn(curve: Curve, date: IsoDate, path = 'date'): Result
   return ok({ t, ln: t <= 0 ? 0 : curve.lnDiscountAt(t), extrapolated });
 }
 
-export function discountOn(curve: Curve, date: IsoDate, path = 'date'): Result<PointValue> {
+/**
+ * Discount factor at a date: DF = exp(ln DF(t)), t on the curve's clock. With a sink, its
+ * explanation is recorded from the same values (see explain.ts).
+ */
+export function discountOn(curve: Curve, date: IsoDate, path = 'date', sink?: ExplanationSink): Result<PointValue> {
   const r = lnDiscountOn(curve, date, path);
   if (!r.ok) return r;
-  return ok({ date, t: r.value.t, discount: Math.exp(r.value.ln), extrapolated: r.value.extrapolated });
+  const discount = Math.exp(r.value.ln);
+  if (sink) sink.recorder.discount(curve, sink, date, r.value.t, r.value.ln, discount);
+  return ok({ date, t: r.value.t, discount, extrapolated: r.value.extrapolated });
 }
 
 /**
@@ -61,7 +68,7 @@ export function discountOn(curve: Curve, date: IsoDate, path = 'date'): Result<P
  * instantaneous forward f(0), re-expressed in c and scaled from the curve's clock to dc over the
  * first days.
  */
-export function zeroOn(curve: Curve, date: IsoDate, c: Compounding, dc: CurveDayCount, path = 'date'): Result<ZeroValue> {
+export function zeroOn(curve: Curve, date: IsoDate, c: Compounding, dc: CurveDayCount, path = 'date', sink?: ExplanationSink): Result<ZeroValue> {
   const r = lnDiscountOn(curve, date, path);
   if (!r.ok) return r;
   const { t, ln, extrapolated } = r.value;
@@ -69,11 +76,15 @@ export function zeroOn(curve: Curve, date: IsoDate, c: Compounding, dc: CurveDay
   const tau = dc === curve.dayCount ? t : queryYearFraction(dc, curve.settlement, date);
   let zero: number;
   if (date === curve.settlement) {
-    zero = rateLimitFromInstantaneous(curve.forwardAt(0) * clockRatio(curve, dc), c);
+    const f0 = curve.forwardAt(0);
+    const ratio = clockRatio(curve, dc);
+    zero = rateLimitFromInstantaneous(f0 * ratio, c);
+    if (sink) sink.recorder.zeroAtSettlement(curve, sink, c, dc, f0, ratio, zero);
   } else if (tau <= 0) {
     return fail(coreError('empty-period', path, `${path}: from ${curve.settlement} to ${date} is an empty period on ${dc}; choose a later date or another day count`));
   } else {
     zero = rateFromLnDiscount(ln, c, tau);
+    if (sink) sink.recorder.zero(curve, sink, date, c, dc, t, ln, tau, zero);
   }
   return ok({ date, t, discount: Math.exp(ln), extrapolated, zero });
 }
@@ -89,7 +100,7 @@ function clockRatio(curve: Curve, dc: CurveDayCount): number {
 }
 
 /** Forward rate over [start, end]: the rate in c and dc with DF(start)/DF(end) over tau = yf(dc, start, end). */
-export function forwardOn(curve: Curve, start: IsoDate, end: IsoDate, c: Compounding, dc: CurveDayCount, path = 'forward'): Result<ForwardValue> {
+export function forwardOn(curve: Curve, start: IsoDate, end: IsoDate, c: Compounding, dc: CurveDayCount, path = 'forward', sink?: ExplanationSink): Result<ForwardValue> {
   const a = lnDiscountOn(curve, start, `${path}.start`);
   if (!a.ok) return a;
   const b = lnDiscountOn(curve, end, `${path}.end`);
@@ -98,7 +109,10 @@ export function forwardOn(curve: Curve, start: IsoDate, end: IsoDate, c: Compoun
   if (compareIso(end, start) <= 0 || tau <= 0) {
     return fail(coreError('empty-period', path, `${path}: ${start} to ${end} is an empty period on ${dc}; the end must come after the start`));
   }
-  return ok({ start, end, tau, rate: rateFromLnDiscount(b.value.ln - a.value.ln, c, tau), extrapolated: a.value.extrapolated || b.value.extrapolated });
+  const lnP = b.value.ln - a.value.ln;
+  const rate = rateFromLnDiscount(lnP, c, tau);
+  if (sink) sink.recorder.forward(curve, sink, start, end, c, dc, a.value, b.value, tau, lnP, rate);
+  return ok({ start, end, tau, rate, extrapolated: a.value.extrapolated || b.value.extrapolated });
 }
 
 /** Instantaneous forward f(t) = -d lnDF/dt at a date, continuously compounded per year on the curve's clock. */
@@ -113,16 +127,31 @@ export function instantaneousForwardOn(curve: Curve, date: IsoDate, path = 'date
  * backward from the end with a short front stub): (DF(s) - DF(e)) / sum_i tau_i DF(t_i), a decimal
  * per year on the leg's own convention. With start = settlement it is the par swap rate.
  */
-export function forwardParRateOn(curve: Curve, start: IsoDate, end: IsoDate, frequency: number, dc: DayCount, eom = false, path = 'forward'): Result<{ rate: number; annuity: number; extrapolated: boolean }> {
+export function forwardParRateOn(
+  curve: Curve,
+  start: IsoDate,
+  end: IsoDate,
+  frequency: number,
+  dc: DayCount,
+  eom = false,
+  path = 'forward',
+  sink?: ExplanationSink,
+): Result<{ rate: number; annuity: number; extrapolated: boolean }> {
   if (compareIso(end, start) <= 0) return fail(coreError('empty-period', path, `${path}: ${start} to ${end} is an empty period; the end must come after the start`));
   const s = lnDiscountOn(curve, start, `${path}.start`);
   if (!s.ok) return s;
   const e = lnDiscountOn(curve, end, `${path}.end`);
   if (!e.ok) return e;
   let annuity = 0;
-  for (const p of fixedLegPeriods(start, end, frequency, dc, eom)) annuity += p.tau * Math.exp(curve.lnDiscountAt(curve.time(p.end)));
+  const periods = fixedLegPeriods(start, end, frequency, dc, eom);
+  for (const p of periods) annuity += p.tau * Math.exp(curve.lnDiscountAt(curve.time(p.end)));
   // DF(S) - DF(E) as DF(S) (1 - DF(E)/DF(S)) with expm1: no cancellation for a short period.
-  return ok({ rate: (Math.exp(s.value.ln) * -Math.expm1(e.value.ln - s.value.ln)) / annuity, annuity, extrapolated: s.value.extrapolated || e.value.extrapolated });
+  const dfS = Math.exp(s.value.ln);
+  const numerator = dfS * -Math.expm1(e.value.ln - s.value.ln);
+  const rate = numerator / annuity;
+  // The recorder reads each payment date's DF as the loop did (the same calls on the same curve: the same doubles).
+  if (sink) sink.recorder.par(curve, sink, start, end, frequency, dc, s.value, e.value, periods, annuity, numerator, rate);
+  return ok({ rate, annuity, extrapolated: s.value.extrapolated || e.value.extrapolated });
 }
 
 /**
@@ -131,8 +160,8 @@ export function forwardParRateOn(curve: Curve, start: IsoDate, end: IsoDate, fre
  * first period pays its accrued share (ACT/ACT-ICMA fraction of the notional period).
  *   c = f (1 - DF(T)) / sum_i a_i DF(t_i),  a_i = 1 for full periods.
  */
-export function parYieldOn(curve: Curve, maturity: IsoDate, frequency: number, path = 'maturity'): Result<{ rate: number; extrapolated: boolean }> {
-  const r = forwardParRateOn(curve, curve.settlement, maturity, frequency, 'ACT/ACT-ICMA', false, path);
+export function parYieldOn(curve: Curve, maturity: IsoDate, frequency: number, path = 'maturity', sink?: ExplanationSink): Result<{ rate: number; extrapolated: boolean }> {
+  const r = forwardParRateOn(curve, curve.settlement, maturity, frequency, 'ACT/ACT-ICMA', false, path, sink);
   if (!r.ok) return r;
   return ok({ rate: r.value.rate, extrapolated: r.value.extrapolated });
 }

@@ -1,4 +1,4 @@
-import { lazy, memo, Suspense, useCallback, useMemo, useRef, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
+import { lazy, memo, Suspense, useCallback, useEffect, useMemo, useRef, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
 import {
   LIMITS,
   rowsLeftOutMessage,
@@ -228,6 +228,15 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   );
   const { parts, reveal } = useRowWindow(scrollRef, rowInfo, focusedRow);
   const moveTo = (row: number, column: string): void => reveal(row, () => focusCell(gridRef.current, row, column));
+  // A link elsewhere (a quote behind an explained number) asks for a row: bring it into view and focus its first cell.
+  const rowRequest = useAppStore((s) => s.rowRequest);
+  useEffect(() => {
+    if (!rowRequest) return;
+    const i = useAppStore.getState().workspace.quotes.findIndex((r) => r.id === rowRequest.id);
+    if (i >= 0) moveTo(i, QUOTE_COLUMNS[0]);
+    // Only a new request moves the focus (not a re-render of the sheet).
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [rowRequest]);
   const onFocus = (e: FocusEvent<HTMLTableElement>): void => {
     if (editing.current && editing.current.el !== (e.target as Element)) stopEditing();
     if (rows.length <= WINDOW_FROM_ROWS) return;

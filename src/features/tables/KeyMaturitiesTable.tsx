@@ -1,19 +1,63 @@
 import { couponTag, formatNumber, formatPercent, rateTag } from '../../core/index.ts';
-import { useMemo } from 'react';
+import { lazy, Suspense, useMemo, useRef, useState } from 'react';
 import type { Curve } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { useSettledValue } from '../../hooks/useSettledValue.ts';
+import type { KeyCell, KeyField } from './explainCell.ts';
 import { keyMaturityRows } from './keyMaturities.ts';
 
-export function KeyMaturitiesTable({ curve }: { curve: Curve }) {
+/** The explanation panel's code (and the explanation code of the core it calls) is fetched the first time a number is opened. */
+const ExplanationPanel = lazy(() => import('./ExplanationPanel.tsx').then((m) => ({ default: m.ExplanationPanel })));
+
+/**
+ * The open explanation follows the build once typing pauses (each one rebuilds the curve under
+ * every method): a keystroke in the sheet repaints the table first.
+ */
+function SettledExplanation({ result, ...rest }: { result: WorkbenchBuild } & Omit<Parameters<typeof ExplanationPanel>[0], 'result'>) {
+  return <ExplanationPanel result={useSettledValue(result)} {...rest} />;
+}
+
+/**
+ * The key-maturity table. With the build (`result`), each discount factor and rate is a button
+ * that opens its explanation beside the table.
+ */
+export function KeyMaturitiesTable({ curve, result }: { curve: Curve; result?: WorkbenchBuild }) {
   const display = useAppStore((s) => s.workspace.display);
   const rows = useMemo(() => keyMaturityRows(curve, display), [curve, display]);
+  const [open, setOpen] = useState<KeyCell | null>(null);
+  const opener = useRef<HTMLButtonElement | null>(null);
   const tag = rateTag(display.compounding, display.dayCount);
   const anyExtrapolated = rows.some((r) => r.extrapolated);
-  return (
+  const close = (): void => {
+    setOpen(null);
+    opener.current?.focus();
+  };
+  /** A figure, as a button that explains it when the build is at hand. */
+  const figure = (tenor: string, field: KeyField, words: string, text: string, present: boolean) => {
+    if (!result || !present) return text;
+    const isOpen = open?.tenor === tenor && open.field === field;
+    return (
+      <button
+        type="button"
+        className="cell-explain"
+        aria-label={`${text}: explain the ${words}`}
+        aria-expanded={isOpen}
+        onClick={(e) => {
+          opener.current = e.currentTarget;
+          setOpen(isOpen ? null : { tenor, field });
+        }}
+      >
+        {text}
+      </button>
+    );
+  };
+  const table = (
     <table className="data" aria-label="Key maturities">
       <caption>
         Key maturities from settlement {curve.settlement}; zero and forward rates <span className="tag">{tag}</span>, par yields{' '}
         <span className="tag">{couponTag(display.parFrequency, 'ACT/ACT-ICMA')}</span>
+        {result ? <span className="muted">. Choose a number to see how it is made.</span> : null}
       </caption>
       <thead>
         <tr>
@@ -40,11 +84,11 @@ export function KeyMaturitiesTable({ curve }: { curve: Curve }) {
             <th scope="row">{r.tenor}</th>
             <td>{r.date}</td>
             <td className="n">{formatNumber(r.t, 4)}</td>
-            <td className="n" data-field="discount">{formatNumber(r.discount, 8)}</td>
-            <td className="n" data-field="zero">{formatPercent(r.zero)}</td>
-            <td className="n" data-field="par">{formatPercent(r.par)}</td>
+            <td className="n" data-field="discount">{figure(r.tenor, 'discount', `${r.tenor} discount factor`, formatNumber(r.discount, 8), r.discount !== null)}</td>
+            <td className="n" data-field="zero">{figure(r.tenor, 'zero', `${r.tenor} zero rate`, formatPercent(r.zero), r.zero !== null)}</td>
+            <td className="n" data-field="par">{figure(r.tenor, 'par', `${r.tenor} par yield`, formatPercent(r.par), r.par !== null)}</td>
             <td className={`n${r.extrapolated ? ' extrapolated' : ''}`} data-field="forward">
-              {formatPercent(r.forward)}
+              {figure(r.tenor, 'forward', `${display.forwardTenor} forward rate starting ${r.tenor}`, formatPercent(r.forward), r.forward !== null)}
               {r.extrapolated ? '*' : ''}
             </td>
           </tr>
@@ -61,5 +105,16 @@ export function KeyMaturitiesTable({ curve }: { curve: Curve }) {
         </tfoot>
       )}
     </table>
+  );
+  if (!result) return table;
+  return (
+    <div className="key-maturities">
+      {table}
+      {open && (
+        <Suspense fallback={<p className="muted small" role="status">Loading the explanation…</p>}>
+          <SettledExplanation result={result} display={display} cell={open} onClose={close} />
+        </Suspense>
+      )}
+    </div>
   );
 }

@@ -58,6 +58,8 @@ export interface UiSlice {
   activeTab: TabId;
   /** The sheet row whose schedule and repricing details are open. */
   selectedRowId: string | null;
+  /** A request to bring a sheet row into view and focus it (from a link elsewhere); `n` tells repeated requests apart. */
+  rowRequest: { readonly id: string; readonly n: number } | null;
   pasteNotice: PasteNotice | null;
   /** A header paste shown as a column-mapping preview; nothing is replaced until the user confirms. */
   pendingPaste: PendingPaste | null;
@@ -66,6 +68,8 @@ export interface UiSlice {
   storage: StorageStatus;
   setActiveTab(tab: TabId): void;
   selectRow(id: string | null): void;
+  /** Selects a sheet row and asks the sheet to bring it into view and focus its first cell. */
+  showRow(id: string): void;
   dismissPasteNotice(): void;
   cancelPaste(): void;
   setPasteProgress(progress: UiSlice['pasteProgress']): void;
@@ -87,12 +91,14 @@ export const INITIAL_STORAGE: StorageStatus = {
 export const createUiSlice: StateCreator<AppState, [], [], UiSlice> = (set) => ({
   activeTab: 'key-maturities',
   selectedRowId: null,
+  rowRequest: null,
   pasteNotice: null,
   pendingPaste: null,
   pasteProgress: null,
   storage: INITIAL_STORAGE,
   setActiveTab: (tab) => set({ activeTab: tab }),
   selectRow: (id) => set({ selectedRowId: id }),
+  showRow: (id) => set((s) => ({ selectedRowId: id, rowRequest: { id, n: (s.rowRequest?.n ?? 0) + 1 } })),
   dismissPasteNotice: () => set({ pasteNotice: null }),
   cancelPaste: () => set({ pendingPaste: null, pasteProgress: null }),
   setPasteProgress: (progress) => set({ pasteProgress: progress }),

@@ -1,0 +1,84 @@
+import type { Curve } from '../curve/curve.ts';
+import type { Instrument } from '../instruments/instrument.ts';
+import { INTERPOLATIONS, type InterpolationId } from '../interpolation/types.ts';
+import { INTERPOLATORS } from '../interpolation/registry.ts';
+import type { Compounding } from '../rates/compounding.ts';
+import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
+import { compareIso, type IsoDate } from '../time/date.ts';
+import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
+import { forwardSensitivities } from './forwardSensitivity.ts';
+
+/** A quote a number depends on, and how much. */
+export interface QuoteInfluence {
+  /** Index of the quote in the workspace document. */
+  readonly index: number;
+  readonly kind: Instrument['kind'];
+  readonly maturity: IsoDate;
+  /** The yield the quote is moved through (its own yield; a price quote through its yield). */
+  readonly yieldLabel: string;
+  /** d(number) / d(quote's own yield), bp of the number per bp of the quote. */
+  readonly bpPerBp: number;
+}
+
+/**
+ * The quotes a forward rate over [start, end] (a zero rate when start is settlement) depends on
+ * most: the `count` largest by |bp per bp|, largest first (ties in document order). The
+ * sensitivities are `forwardSensitivities` (implicit-function rule on the exact bootstrap) for
+ * the one forward. `curve` must be the bootstrap of `instruments` (a build's `curve` and
+ * `instruments`). An empty list for an empty period (the zero rate at settlement itself).
+ */
+export function topQuoteInfluences(
+  curve: Curve,
+  instruments: readonly Instrument[],
+  start: IsoDate,
+  end: IsoDate,
+  c: Compounding,
+  dc: CurveDayCount,
+  count = 5,
+): Result<QuoteInfluence[]> {
+  if (compareIso(end, start) <= 0) return ok([]);
+  const tau = queryYearFraction(dc, start, end);
+  if (!(tau > 0)) return fail(coreError('empty-period', 'end', `${start} to ${end} is an empty period on ${dc}; choose a later end`));
+  const tStart = curve.time(start);
+  const tEnd = curve.time(end);
+  const row = { start, end, tStart, tEnd, tau, rate: 0, extrapolated: tEnd > curve.lastT };
+  const map = forwardSensitivities(curve, instruments, [row], c, dc);
+  if (!map.ok) return map;
+  const { columns, values } = map.value;
+  const all = columns.map((col, k) => ({ index: col.index, kind: col.kind, maturity: col.maturity, yieldLabel: col.yieldLabel, bpPerBp: values[k]! }));
+  all.sort((a, b) => Math.abs(b.bpPerBp) - Math.abs(a.bpPerBp) || a.index - b.index);
+  return ok(all.slice(0, count));
+}
+
+/** A number read again on the curve built by another interpolation method. */
+export interface MethodValue {
+  readonly method: InterpolationId;
+  readonly label: string;
+  /** True for the method of the curve the number was read on. */
+  readonly current: boolean;
+  /** The number under this method; null when the build or the read failed (see `error`). */
+  readonly value: number | null;
+  readonly error: string | null;
+}
+
+/**
+ * The same number under every interpolation method: `curveFor(method)` builds the curve of the
+ * same quotes (settlement, day count and extrapolation unchanged) with that method, and `read`
+ * reads the number off it. The current method is built again too, so its value is what `read`
+ * gives on a fresh build (bit for bit the build's own). Cost: one build per method. The builder
+ * is the caller's (the command's bootstrap of its instruments, the workbench's CurveBuilder), so
+ * this module carries no bootstrap of its own.
+ */
+export function valueUnderEachMethod(
+  current: InterpolationId,
+  curveFor: (method: InterpolationId) => { readonly curve: Curve | null; readonly errors: readonly CoreError[] },
+  read: (curve: Curve) => Result<number>,
+): MethodValue[] {
+  return INTERPOLATIONS.map((method) => {
+    const base = { method, label: INTERPOLATORS[method].label, current: method === current };
+    const built = curveFor(method);
+    if (!built.curve || built.errors.length > 0) return { ...base, value: null, error: built.errors[0]?.message ?? 'no curve' };
+    const r = read(built.curve);
+    return r.ok ? { ...base, value: r.value, error: null } : { ...base, value: null, error: r.errors[0]!.message };
+  });
+}
