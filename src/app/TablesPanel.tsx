@@ -9,10 +9,10 @@ import type { WorkbenchTab } from './extensions.tsx';
 type TabDef = WorkbenchTab;
 
 /** The forward grid's, the forward calculator's and the quote check's code is fetched the first time their tab opens (their own chunks), so the first load carries less. */
-const ForwardGridTable = lazy(() => import('../features/tables/ForwardGridTable.tsx').then((m) => ({ default: m.ForwardGridTable })));
-const ForwardCalculator = lazy(() => import('../features/tables/ForwardCalculator.tsx').then((m) => ({ default: m.ForwardCalculator })));
+const ForwardGridTable = lazy(() => import('../features/tables/lazyTables.ts').then((m) => ({ default: m.ForwardGridTable })));
+const ForwardCalculator = lazy(() => import('../features/tables/lazyTables.ts').then((m) => ({ default: m.ForwardCalculator })));
 /** The quote check (with the schedules and their exact money rounding) loads on first use too. */
-const QuoteCheckTable = lazy(() => import('../features/tables/QuoteCheckTable.tsx').then((m) => ({ default: m.QuoteCheckTable })));
+const QuoteCheckTable = lazy(() => import('../features/tables/lazyTables.ts').then((m) => ({ default: m.QuoteCheckTable })));
 
 const needCurve = (f: (r: WorkbenchBuild) => ReactNode) => ({ result }: { result: WorkbenchBuild }) =>
   result.build.curve ? f(result) : <p className="empty">No curve: {result.fatal}</p>;

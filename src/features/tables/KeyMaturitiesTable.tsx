@@ -8,7 +8,7 @@ import type { KeyCell, KeyField } from './explainCell.ts';
 import { keyMaturityRows } from './keyMaturities.ts';
 
 /** The explanation panel's code (and the explanation code of the core it calls) is fetched the first time a number is opened. */
-const ExplanationPanel = lazy(() => import('./ExplanationPanel.tsx').then((m) => ({ default: m.ExplanationPanel })));
+const ExplanationPanel = lazy(() => import('./lazyTables.ts').then((m) => ({ default: m.ExplanationPanel })));
 
 /**
  * The open explanation follows the build once typing pauses (each one rebuilds the curve under
