@@ -12,6 +12,7 @@ import { rateTag } from '../format/conventionTag.ts';
 import { FlowTable } from './flowTable.ts';
 import { jointNewton } from './jointNewton.ts';
 import { nodeSolverFor, type BootstrapNodes } from './nodeSolvers.ts';
+import { bridgeSpotGap, spotGapOf, type NodeRun } from './spotBridge.ts';
 
 /** How one quote came back on the built curve. */
 export interface Repricing {
@@ -65,6 +66,20 @@ export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? 
  * Each stage solves its nodes with the one solver its method allows (see nodeSolverFor).
  */
 export function bootstrapInstruments(settings: BootstrapSettings, instruments: readonly Instrument[]): BootstrapOutcome {
+  const gap = spotGapOf(settings.settlement, settings.dayCount, instruments);
+  if (gap === null) return solveNodes(settings, instruments, false).outcome;
+  // A quote starts after the valuation date but before the first pillar: the gap is bridged by
+  // one rule for every method (bootstrap/spotBridge.ts), from the unbridged curve's first node.
+  const plain = solveNodes(settings, instruments, false);
+  return bridgeSpotGap(gap, instruments, plain.ys === null ? null : plain.ys[1]!, (withBridge) => solveNodes(settings, withBridge, true));
+}
+
+/**
+ * Steps 1-4 on the given instruments. `bridged`: the first is the spot bridge's node (not a
+ * quote), left out of the curve's pillars and of the repricing. Returns the node values with the
+ * outcome (null when the bootstrap failed).
+ */
+function solveNodes(settings: BootstrapSettings, instruments: readonly Instrument[], bridged: boolean): NodeRun<BootstrapOutcome> {
   const spec = INTERPOLATORS[settings.interpolation];
   const nodes = startNodes(instruments);
   const { ts, ys } = nodes;
@@ -73,7 +88,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   const pass = nodeSolverFor(spec.global ? INTERPOLATORS['log-linear-discount'] : spec, 'pass', nodes);
   for (let k = 1; k <= instruments.length; k++) {
     const x = pass.solve(k, guess(instruments, ts, ys, k));
-    if (typeof x !== 'number') return failed([x]);
+    if (typeof x !== 'number') return { outcome: failed([x]), ys: null };
     ys[k] = x;
   }
 
@@ -82,7 +97,7 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   let repricing: Repricing[] | null = null;
   if (spec.global) {
     const global = sweepToConvergence(settings, spec, nodes);
-    if (!global.ok) return failed([global.error]);
+    if (!global.ok) return { outcome: failed([global.error]), ys: null };
     ({ sweeps, repricing } = global);
   }
 
@@ -90,15 +105,15 @@ export function bootstrapInstruments(settings: BootstrapSettings, instruments: r
   // nodes (bit for bit what curve.lnDiscountAt gives there: the same formula on the same nodes,
   // y_k exactly at a pillar; a test checks it). A local method's segment solver left the curve's
   // own values at every flow in the table: no later node moves a flow's segment.
-  const curve = curveOnNodes(settings, spec, nodes);
+  const curve = curveOnNodes(settings, spec, nodes, bridged);
   repricing ??= pass.writesFlowTable ? tableRepricing(nodes) : reprice(nodes, curve.lnDiscountAt);
   const refused = acceptanceFailure(repricing);
-  if (refused) return failed([refused]);
+  if (refused) return { outcome: failed([refused]), ys: null };
 
   // 4. The sign of the forward between pillars.
   const { errors, warnings } = forwardSigns(settings, nodes);
-  if (errors.length > 0) return failed(errors);
-  return { curve, errors: [], warnings, repricing, sweeps };
+  if (errors.length > 0) return { outcome: failed(errors), ys: null };
+  return { outcome: { curve, errors: [], warnings, repricing: bridged ? repricing.slice(1) : repricing, sweeps }, ys };
 }
 
 /** Node 0 at t = 0 and one node per instrument, all values 0; the empty flow table. */
@@ -113,8 +128,10 @@ function startNodes(instruments: readonly Instrument[]): BootstrapNodes {
 }
 
 /** The curve on the solved nodes, one pillar per instrument. */
-function curveOnNodes(settings: BootstrapSettings, spec: InterpolatorSpec, { instruments, ts, ys }: BootstrapNodes): Curve {
+function curveOnNodes(settings: BootstrapSettings, spec: InterpolatorSpec, { instruments, ts, ys }: BootstrapNodes, bridged = false): Curve {
   const pillars: Pillar[] = instruments.map((ins, k) => ({ date: ins.maturity, t: ins.t, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
+  // The spot bridge's node is a node of the interpolation, not a pillar (no quote ends there).
+  if (bridged) pillars.shift();
   return curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, spec.build(ts, ys));
 }
 
