@@ -5,6 +5,7 @@
 export * from './decimalText.ts';
 export * from './quoteText.ts';
 export * from './quoteRow.ts';
+export { parseTermsText, rowConventions, rowSetOf, termsText, TERM_FIELDS, type RowConventions, type RowTerms, type TermField } from './termsText.ts';
 export * from './splitTable.ts';
 export * from './pasteTable.ts';
 export * from './quoteSchedule.ts';
