@@ -229,6 +229,6 @@ function spotGap(ws: Workspace, instruments: readonly Instrument[]): CoreWarning
     path: `quotes[${i}]`,
     quote: i,
     code: 'spot-gap',
-    message: `quotes[${i}] starts on ${gap.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${gap.first}: no quote covers the days in between, so the curve bridges them with a node on ${gap.start} whose discount factor is the first pillar's raised to the power (time to ${gap.start}) / (time to ${gap.first}), so the average forward from the valuation date to ${gap.start} equals the one from there to ${gap.first} under every interpolation (flat at the first forward under log-linear discount); add quotes that end by then to link the curve to it (ON and TN deposits on the same calendar for a spot start)`,
+    message: `quotes[${i}] starts on ${gap.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${gap.first}: the gap is bridged at the first pillar's average forward, ln DF(${gap.start}) = ln DF(${gap.first}) x t(${gap.start}) / t(${gap.first}), under every interpolation (flat at the first forward under log-linear discount); add quotes that end by then (ON and TN deposits on the same calendar for a spot start)`,
   };
 }
