@@ -5,7 +5,7 @@
 // src/core/kinds/conventionSets.ts); SIFMA's 2026 recommendations close no day between 15 and 18
 // December 2026 (held in test/core/time/calendars.test.ts), so from Tuesday 2026-12-15 spot is
 // Thursday the 17th at T+2 and Wednesday the 16th at T+1. The demo's quotes are invented.
-import { act, fireEvent, render, screen } from '@testing-library/react';
+import { act, fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { App } from '../../src/app/App.tsx';
 import { DEMO_SETTLEMENT } from '../../src/state/demoWorkspace.ts';
 import { useAppStore } from '../../src/state/store.ts';
@@ -35,7 +35,7 @@ const type = (row: number, column: string, value: string) => {
 };
 
 describe("the sheet's Conventions cell", () => {
-  it('sets a row\'s set, overrides its spot lag, shows both (the set, the override and the set\'s own value), and undoes step by step', () => {
+  it('sets a row\'s set, overrides its spot lag, shows both (the set, the override and the set\'s own value), and undoes step by step', async () => {
     render(<App />);
     expect(DEMO_SETTLEMENT).toBe('2026-12-15');
     expect(cell(1, 'Kind')).toHaveValue('deposit');
@@ -43,7 +43,8 @@ describe("the sheet's Conventions cell", () => {
 
     type(1, 'Conventions', 'usd-sofr');
     expect(cell(1, 'Conventions')).toHaveValue('usd-sofr');
-    expect(cell(1, 'Conventions')).toHaveAccessibleDescription(/Convention set usd-sofr: US dollar SOFR/);
+    // The note's code is fetched when a set is first named (its own chunk).
+    await waitFor(() => expect(cell(1, 'Conventions')).toHaveAccessibleDescription(/Convention set usd-sofr: US dollar SOFR/));
     // The set's day count shows faintly in the row's empty Day count cell.
     expect(cell(1, 'Day count')).toHaveAttribute('placeholder', 'ACT/360');
     expect(firstDeposit().engine).toMatchObject({ conventions: 'usd-sofr' });
@@ -73,11 +74,11 @@ describe("the sheet's Conventions cell", () => {
     expect(firstDeposit().start).toBe('2026-12-15');
   });
 
-  it("a row taking the workspace's market conventions shows that set faintly, and before the fields it types itself", () => {
+  it("a row taking the workspace's market conventions shows that set faintly, and before the fields it types itself", async () => {
     render(<App />);
     act(() => s().setCurve({ conventions: 'usd-sofr' }));
     expect(cell(2, 'Conventions')).toHaveAttribute('placeholder', 'usd-sofr');
-    expect(cell(2, 'Conventions')).toHaveAccessibleDescription(/Convention set usd-sofr \(the workspace’s market conventions\)/);
+    await waitFor(() => expect(cell(2, 'Conventions')).toHaveAccessibleDescription(/Convention set usd-sofr \(the workspace’s market conventions\)/));
     type(1, 'Conventions', 'spot lag 1');
     const td = cell(1, 'Conventions').closest('td')!;
     expect(td.querySelector('.terms-set')).toHaveTextContent('usd-sofr ·');

@@ -1,6 +1,5 @@
-import { CONVENTION_SET_IDS, conventionSet } from '../kinds/conventionSets.ts';
-import type { QuoteKind } from '../document/types.ts';
-import { parseDayCountText, parseFrequencyText, type CellParse } from './quoteText.ts';
+import { CONVENTION_SET_IDS } from '../kinds/conventionSets.ts';
+import { parseDayCountText, type CellParse } from './quoteText.ts';
 
 /**
  * The sheet's Conventions cell: a quote's convention set and the date terms it overrides or adds,
@@ -118,58 +117,8 @@ export function rowSetOf(termsCell: string): string | null {
   return p.ok ? p.value.set : null;
 }
 
-/**
- * What a row's conventions come to, for the sheet: the set that fills its fields (its own, else
- * the workspace's market conventions when that set fills the kind) and, for each field the row
- * gives itself (in its Conventions, Freq or Day count cell), its value and the set's, so the sheet
- * can say what the row overrides. Null when no set applies and the row gives no field.
- */
-export interface RowConventions {
-  readonly set: string | null;
-  /** True when the set is the workspace's (the row's cell names none). */
-  readonly fromWorkspace: boolean;
-  readonly title: string | null;
-  /** Fields the row gives, each with the set's value when the set fills it (an override when they differ). */
-  readonly given: readonly { readonly field: string; readonly value: string; readonly setValue: string | null }[];
-}
-
-const FIELD_LABEL: Readonly<Record<string, string>> = {
-  calendar: 'calendar',
-  spotLag: 'spot lag',
-  businessDay: 'rule',
-  paymentLag: 'payment lag',
-  eom: 'eom',
-  floatDayCount: 'float day count',
-  frequency: 'frequency',
-  dayCount: 'day count',
-};
-
-const shownValue = (field: string, v: string | number | boolean): string => (field === 'eom' ? (v === true ? 'on' : 'off') : String(v));
-
-export function rowConventions(kindText: string, termsCell: string, frequencyCell: string, dayCountCell: string, market: string | undefined): RowConventions | null {
-  const kind = kindText.trim().toLowerCase() as QuoteKind;
+/** The cell's reading, or null when it does not read (its error is the row's). */
+export function rowTermsOf(termsCell: string): RowTerms | null {
   const p = parseTermsText(termsCell);
-  if (!p.ok) return null;
-  const own = p.value.set;
-  const fills = (id: string | undefined | null) => (id ? conventionSet(id)?.fields[kind] : undefined);
-  const setId = own ?? (fills(market) !== undefined ? market! : null);
-  const setFields = fills(setId);
-  const given: { field: string; value: string; setValue: string | null }[] = [];
-  const push = (field: string, v: string | number | boolean) => {
-    const sv = setFields?.[field];
-    given.push({ field, value: shownValue(field, v), setValue: sv === undefined ? null : shownValue(field, sv) });
-  };
-  for (const f of TERM_FIELDS) if (p.value.fields[f] !== undefined) push(f, p.value.fields[f]!);
-  const freq = frequencyCell.trim() === '' ? null : parseFrequencyText(frequencyCell);
-  if (freq?.ok) push('frequency', freq.value);
-  const dc = dayCountCell.trim() === '' ? null : parseDayCountText(dayCountCell);
-  if (dc?.ok) push('dayCount', dc.value);
-  if (setId === null && given.length === 0) return null;
-  const overrides = given.filter((g) => g.setValue !== null && g.setValue !== g.value);
-  const parts: string[] = [];
-  if (setId !== null) parts.push(`Convention set ${setId}${own === null ? ' (the workspace\u2019s market conventions)' : ''}: ${conventionSet(setId)?.title ?? ''}`);
-  if (overrides.length > 0) parts.push(`this row overrides ${overrides.map((o) => `${FIELD_LABEL[o.field]} ${o.value} (the set\u2019s ${o.setValue})`).join(', ')}`);
-  const added = given.filter((g) => g.setValue === null);
-  if (added.length > 0) parts.push(`${setId === null ? 'this row gives' : 'and adds'} ${added.map((o) => `${FIELD_LABEL[o.field]} ${o.value}`).join(', ')}`);
-  return { set: setId, fromWorkspace: own === null && setId !== null, title: parts.join('; '), given };
+  return p.ok ? p.value : null;
 }

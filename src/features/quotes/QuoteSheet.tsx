@@ -1,4 +1,4 @@
-import { lazy, memo, Suspense, useCallback, useMemo, useRef, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
+import { lazy, memo, Suspense, useCallback, useEffect, useMemo, useRef, useState, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
 import {
   LIMITS,
   rowsLeftOutMessage,
@@ -19,8 +19,9 @@ import {
   type QuoteUnitMode,
   type RowIssues,
   sheetDefault,
-  rowConventions,
-  rowSetOf,
+  rowTermsOf,
+  type RowConventions,
+  type RowTerms,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
@@ -45,6 +46,27 @@ const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
   terms: '',
 };
 
+type NoteOf = (kindText: string, terms: RowTerms | null, frequencyCell: string, dayCountCell: string, market: string | undefined) => RowConventions | null;
+/** The note's code once fetched (termsNote.ts: its own chunk, fetched when a set is first named). */
+let loadedNote: NoteOf | null = null;
+/** rowConventions once its chunk has arrived (null until then, or while no set is named anywhere). */
+function useTermsNote(needed: boolean): NoteOf | null {
+  // An initializer function: useState would call the note function itself.
+  const [note, setNote] = useState<NoteOf | null>(() => loadedNote);
+  useEffect(() => {
+    if (!needed || note !== null) return;
+    let live = true;
+    void import('./termsNote.ts').then((m) => {
+      loadedNote = m.rowConventions;
+      if (live) setNote(() => m.rowConventions);
+    });
+    return () => {
+      live = false;
+    };
+  }, [needed, note]);
+  return note;
+}
+
 /** The engine's default for an empty frequency or day-count cell of a kind (its module's schema defaults), shown faintly. */
 const defaultFor = (kind: string, c: QuoteColumn, market: string | undefined): string | undefined => sheetDefault(kind, c, market);
 
@@ -65,6 +87,8 @@ interface RowViewProps {
   readonly inCurve: boolean;
   /** The workspace's market conventions (a convention set id), whose fields the faint defaults show. */
   readonly market: string | undefined;
+  /** The Conventions cell's note (rowConventions), once its code has arrived. */
+  readonly noteOf: NoteOf | null;
 }
 
 /**
@@ -163,7 +187,7 @@ function showRowDetails(rowId: string): void {
 }
 
 const QuoteRowView = memo(
-  function QuoteRowView({ row, index, issues, unit, selected, inCurve, market }: RowViewProps) {
+  function QuoteRowView({ row, index, issues, unit, selected, inCurve, market, noteOf }: RowViewProps) {
     const setRowEnabled = useAppStore((s) => s.setRowEnabled);
     const deleteRow = useAppStore((s) => s.deleteRow);
     const addRow = useAppStore((s) => s.addRow);
@@ -174,8 +198,9 @@ const QuoteRowView = memo(
     const status = messages.some((m) => m.severity === 'error') ? 'error' : !row.enabled ? 'off' : inCurve ? 'ok' : 'idle';
     // The set the row takes (its own, else the workspace's) and the fields it gives itself.
     const terms = row.terms ?? '';
-    const conv = blank ? null : rowConventions(row.kind, terms, row.frequency, row.dayCount, market);
-    const ownSet = rowSetOf(terms);
+    const read = rowTermsOf(terms);
+    const conv = blank || noteOf === null ? null : noteOf(row.kind, read, row.frequency, row.dayCount, market);
+    const ownSet = read?.set ?? null;
     const setFor = ownSet ?? market;
     return (
       <>
@@ -227,7 +252,7 @@ const QuoteRowView = memo(
       </>
     );
   },
-  (a, b) => a.row === b.row && a.index === b.index && a.unit === b.unit && a.selected === b.selected && a.inCurve === b.inCurve && a.market === b.market && issuesEqual(a.issues, b.issues),
+  (a, b) => a.row === b.row && a.index === b.index && a.unit === b.unit && a.selected === b.selected && a.inCurve === b.inCurve && a.market === b.market && a.noteOf === b.noteOf && issuesEqual(a.issues, b.issues),
 );
 
 /**
@@ -239,6 +264,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const rows = useAppStore((s) => s.workspace.quotes);
   const unit = useAppStore((s) => s.workspace.quoteUnit);
   const market = useAppStore((s) => s.workspace.curve.conventions);
+  const noteOf = useTermsNote((market !== undefined && market !== 'none') || rows.some((r) => (r.terms ?? '') !== ''));
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
@@ -607,7 +633,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
                   ]
                 : rows.slice(part.from, part.to).map((row, k) => {
                     const i = part.from + k;
-                    return <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} market={market} />;
+                    return <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} market={market} noteOf={noteOf} />;
                   }),
             )}
           </tbody>

@@ -12,6 +12,7 @@ import {
   parseTermsText,
   quoteDates,
   rowConventions,
+  rowTermsOf,
   termsText,
   toEngineDocument,
   workbenchFromEngine,
@@ -67,15 +68,15 @@ describe('a row with a Conventions cell', () => {
   });
 
   it('rowConventions lists what the row overrides against its set, and the fields no set fills as given', () => {
-    const c = rowConventions('ois', 'eur-estr, payment lag 2', '', 'ACT/365F', undefined)!;
+    const c = rowConventions('ois', rowTermsOf('eur-estr, payment lag 2'), '', 'ACT/365F', undefined)!;
     expect(c.set).toBe('eur-estr');
     expect(c.fromWorkspace).toBe(false);
     expect(c.title).toMatch(/this row overrides payment lag 2 \(the set’s 1\), day count ACT\/365F \(the set’s ACT\/360\)/);
-    const w = rowConventions('deposit', 'spot lag 0', '', '', 'usd-sofr')!;
+    const w = rowConventions('deposit', rowTermsOf('spot lag 0'), '', '', 'usd-sofr')!;
     expect(w).toMatchObject({ set: 'usd-sofr', fromWorkspace: true });
     expect(w.title).toMatch(/overrides spot lag 0 \(the set’s 2\)/);
-    expect(rowConventions('bond', '', '', '', 'usd-sofr')).toBeNull(); // the set fills no bond
-    expect(rowConventions('swap', 'calendar target', '', '', undefined)!.title).toMatch(/^this row gives calendar target$/);
+    expect(rowConventions('bond', rowTermsOf(''), '', '', 'usd-sofr')).toBeNull(); // the set fills no bond
+    expect(rowConventions('swap', rowTermsOf('calendar target'), '', '', undefined)!.title).toMatch(/^this row gives calendar target$/);
   });
 
   it('an engine document whose quotes name their own sets and overrides opens in the sheet with them in the Conventions cells, and builds the same curve', () => {
