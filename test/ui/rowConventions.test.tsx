@@ -100,4 +100,14 @@ describe("the sheet's Conventions cell", () => {
     expect(cell(1, 'Conventions')).toHaveAttribute('aria-invalid', 'true');
     expect(screen.getByText(/paymentLag/)).toBeInTheDocument();
   });
+
+  it('the sheet says when a joined calendar changes nothing (no market conventions) and clears it on request', () => {
+    render(<App />);
+    act(() => s().setCustomCalendar('desk-days', ['2026-12-16']));
+    act(() => s().setJoinCalendar('desk-days'));
+    expect(screen.getByText(/The calendar "desk-days" is set to close the deposit and OIS rows' calendar, but no market conventions are chosen/)).toBeInTheDocument();
+    fireEvent.click(screen.getByRole('button', { name: 'Clear the joined calendar' }));
+    expect(s().workspace.curve.joinCalendar).toBeUndefined();
+    expect(screen.queryByText(/The calendar "desk-days" is set to close/)).toBeNull();
+  });
 });
