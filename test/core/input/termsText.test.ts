@@ -15,6 +15,7 @@ import {
   rowTermsOf,
   termsText,
   toEngineDocument,
+  validateDocument,
   workbenchFromEngine,
   type QuoteRow,
 } from '../../../src/core/index.ts';
@@ -98,6 +99,21 @@ describe('a row with a Conventions cell', () => {
     const a = buildCurve(doc).curve!;
     const b = buildCurve(toEngineDocument(wb.value).doc).curve!;
     expect(b.pillars).toEqual(a.pillars);
+  });
+});
+
+describe('the Conventions cell in files and links (the workbench document)', () => {
+  it('is kept by the document check as typed; a row saved before the column existed (no terms key) still reads; a cell over the cell cap is refused naming it', () => {
+    const d = demoWorkspace(id);
+    const withTerms = { ...d, quotes: d.quotes.map((r, i) => (i === 0 ? { ...r, terms: 'usd-sofr, spot lag 1' } : r)) };
+    const ok = validateDocument(JSON.parse(JSON.stringify(withTerms)));
+    if (!ok.ok) throw new Error(JSON.stringify(ok.errors));
+    expect((ok.value.document as { quotes: { terms?: string }[] }).quotes[0]!.terms).toBe('usd-sofr, spot lag 1');
+    const old = { ...d, quotes: d.quotes.map(({ terms: _t, ...r }) => r) };
+    expect(validateDocument(JSON.parse(JSON.stringify(old))).ok).toBe(true);
+    const long = { ...d, quotes: d.quotes.map((r, i) => (i === 0 ? { ...r, terms: 'x'.repeat(65) } : r)) };
+    const bad = validateDocument(long);
+    expect(!bad.ok && bad.errors.map((e) => e.path)).toEqual(['quotes[0].terms']);
   });
 });
 
