@@ -11,6 +11,7 @@ import {
   parseRow,
   parseTermsText,
   quoteDates,
+  readPastedBlock,
   rowConventions,
   rowTermsOf,
   termsText,
@@ -114,6 +115,15 @@ describe('the Conventions cell in files and links (the workbench document)', () 
     const long = { ...d, quotes: d.quotes.map((r, i) => (i === 0 ? { ...r, terms: 'x'.repeat(65) } : r)) };
     const bad = validateDocument(long);
     expect(!bad.ok && bad.errors.map((e) => e.path)).toEqual(['quotes[0].terms']);
+  });
+});
+
+describe('a pasted block with a Conventions column', () => {
+  it('maps the header "Conventions" (or "Convention set", "Terms") to the cell, which reads as typed', () => {
+    const block = readPastedBlock('Kind\tTenor\tRate\tConvention set\nois\t1Y\t2.4\teur-estr, spot lag 1\nois\t2Y\t2.5\t');
+    expect(block.columns.map((c) => c.column)).toEqual(['kind', 'maturity', 'rate', 'terms']);
+    expect(block.rows.map((r) => r.terms)).toEqual(['eur-estr, spot lag 1', '']);
+    expect(parseRow({ id: 'p', enabled: true, ...block.rows[0]! } as QuoteRow, 'percent').quote).toMatchObject({ conventions: 'eur-estr', spotLag: 1 });
   });
 });
 
