@@ -1,6 +1,6 @@
 import { DISCOUNTING, type Instrument } from '../instruments/instrument.ts';
 import { moduleOf, quoteDates } from '../kinds/registry.ts';
-import { SPOT_BRIDGE_MAX_STEPS, SPOT_BRIDGE_ROUNDING_ULPS } from '../numeric/tolerance.ts';
+import { SPOT_BRIDGE_MAX_STEPS, SPOT_BRIDGE_ROUNDING_ULPS, SPOT_BRIDGE_TOLERANCE } from '../numeric/tolerance.ts';
 import { civilFromIso, compareIso, type IsoDate } from '../time/date.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import type { Quote } from '../document/types.ts';
@@ -113,9 +113,10 @@ export interface NodeRun<T> {
  *
  * The node's value a is the root of f(a) = a - (t_s / t_1) y_1(a), y_1(a) the first pillar's node
  * bootstrapped with the bridge at a: affine in a for a quote starting at spot on a local method
- * (its node moves one for one with a), so a secant from the unbridged curve's value settles in
- * two or three bootstraps; at most SPOT_BRIDGE_MAX_STEPS, stopping when a moves by at most
- * SPOT_BRIDGE_ROUNDING_ULPS units in its last place. `run(withBridge)` bootstraps the market with
+ * (its node moves one for one with a), so a Newton step on that slope from the unbridged curve's
+ * value settles in two bootstraps, secants after it for the rest; at most SPOT_BRIDGE_MAX_STEPS,
+ * stopping when |f(a)| is at most SPOT_BRIDGE_TOLERANCE or SPOT_BRIDGE_ROUNDING_ULPS units in the
+ * last place of a. `run(withBridge)` bootstraps the market with
  * the bridge node inserted first (the caller drops it from pillars and repricing); `plain` is the
  * unbridged bootstrap's first node (null when it failed), the starting point.
  */
@@ -126,17 +127,18 @@ export function bridgeSpotGap<T>(gap: SpotGap, instruments: readonly Instrument[
     // ys[1] is the bridge, ys[2] the first pillar.
     return { run: r, f: r.ys === null ? NaN : a - ratio * r.ys[2]! };
   };
+  const settled = (a: number, f: number): boolean => Math.abs(f) <= Math.max(SPOT_BRIDGE_TOLERANCE, SPOT_BRIDGE_ROUNDING_ULPS * Number.EPSILON * Math.abs(a));
   let a0 = plainFirst === null ? 0 : ratio * plainFirst;
   let p0 = at(a0);
-  if (!Number.isFinite(p0.f)) return p0.run.outcome;
-  // The fixed-point step first (exact when the first pillar does not move with a), then secants.
-  let a1 = a0 - p0.f;
+  if (!Number.isFinite(p0.f) || settled(a0, p0.f)) return p0.run.outcome;
+  // The first step on the slope 1 - t_s / t_1 (the first pillar moving one for one with a, as a
+  // quote starting at spot makes it on a local method: then this step is the root), then secants.
+  let a1 = a0 - p0.f / (1 - ratio);
   let p1 = at(a1);
   for (let step = 2; step < SPOT_BRIDGE_MAX_STEPS; step++) {
-    if (!Number.isFinite(p1.f) || p1.f === 0) break;
-    if (Math.abs(a1 - a0) <= SPOT_BRIDGE_ROUNDING_ULPS * Number.EPSILON * Math.abs(a1)) break;
+    if (!Number.isFinite(p1.f) || settled(a1, p1.f) || a1 === a0) break;
     const slope = (p1.f - p0.f) / (a1 - a0);
-    const a2 = slope !== 0 && Number.isFinite(slope) ? a1 - p1.f / slope : a1 - p1.f;
+    const a2 = slope !== 0 && Number.isFinite(slope) ? a1 - p1.f / slope : a1 - p1.f / (1 - ratio);
     a0 = a1;
     p0 = p1;
     a1 = a2;

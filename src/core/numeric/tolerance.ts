@@ -61,5 +61,10 @@ export const FLAT_GUESS_FORWARD = 0.03;
  * that is affine, or nearly, in a; it settles in two or three).
  */
 export const SPOT_BRIDGE_MAX_STEPS = 12;
-/** The spot bridge stops when its node moves by at most this many units in the last place of its value. */
+/** The spot bridge stops when its relation holds to this many units in the last place of its node's value... */
 export const SPOT_BRIDGE_ROUNDING_ULPS = 4;
+/**
+ * ...or to this in ln DF (1e-16: a tenth of NODE_TOLERANCE, within which the node solvers
+ * leave the first pillar's node, so closer is rounding noise a secant only wanders in).
+ */
+export const SPOT_BRIDGE_TOLERANCE = 1e-16;
