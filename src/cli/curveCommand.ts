@@ -414,7 +414,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
   const failed = (errors: readonly CoreError[]) => ({ line: failedLine(index, errors), errors });
   if (read.errors.length > 0 && !opts.skipInvalid) return failed(read.errors);
   const built = builder.build(read.doc, { skipInvalid: opts.skipInvalid, overnight: OVERNIGHT_KIT, ...(opts.extrapolate ? { extrapolation: opts.extrapolate } : {}), readCurves: readNamedCurves });
-  const build = read.rowOfQuote === null ? built : { ...built, errors: atInputRows(built.errors, read.rowOfQuote), warnings: [...read.errors.map(skippedRow), ...atInputRows(built.warnings, read.rowOfQuote)] };
+  const build = read.rowOfQuote === null ? built : { ...built, errors: atInputRows(built.errors, read.rowOfQuote), warnings: [...(read.warnings ?? []), ...read.errors.map(skippedRow), ...atInputRows(built.warnings, read.rowOfQuote)] };
   if (!build.curve || build.errors.length > 0) return failed(build.errors);
   const curve = build.curve;
   const settlement = curve.settlement;

@@ -27,7 +27,7 @@ export interface CoreError {
   readonly message: string;
 }
 
-export const WARNING_CODES = ['skipped', 'disabled', 'negative-forward', 'extrapolated', 'bill-yield', 'spot-gap'] as const;
+export const WARNING_CODES = ['skipped', 'disabled', 'negative-forward', 'extrapolated', 'bill-yield', 'spot-gap', 'not-applied'] as const;
 export type WarningCode = (typeof WARNING_CODES)[number];
 
 export interface CoreWarning {

@@ -220,6 +220,8 @@ describe('the quote sheet from the keyboard', () => {
     await page.keyboard.press('Control+Home');
     expect(await focused()).toBe('input: Row 1 Rate / yield');
     await page.keyboard.press('End');
+    expect(await focused()).toBe('input: Row 1 Conventions'); // the last column
+    await page.keyboard.press('ArrowLeft');
     expect(await focused()).toBe('input: Row 1 Day count');
     await page.keyboard.press('Home');
     expect(await focused()).toBe('input: Row 1 Kind');

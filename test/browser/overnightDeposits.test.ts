@@ -1,6 +1,6 @@
 // ON and TN typed into deposit rows of the built workbench (Debian's Chromium): the rows are
 // accepted, the curve keeps every quote, and the quote check shows the TN deposit's start and end
-// on the weekends calendar (the sheet has no calendar column; README). The demo settles on
+// on the weekends calendar (a row whose Conventions cell is empty, with no Market conventions; README). The demo settles on
 // Tuesday 2026-12-15 (invented market): ON runs 15 -> 16 December, TN 16 -> 17 December.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openWorkbench, screenshot, type BuiltApp } from './harness.ts';

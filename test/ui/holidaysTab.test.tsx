@@ -96,4 +96,20 @@ describe('calendars of your own', () => {
     expect(within(screen.getByRole('region', { name: 'Calendars of your own' })).getByRole('status')).toHaveTextContent('Not saved: "target" is a built-in calendar');
     expect(s().workspace.customCalendars).toBeUndefined();
   });
+
+  it('a joined calendar left while no market conventions are chosen says it changes nothing and offers to clear it (one undo step)', () => {
+    act(() => s().setCustomCalendar('desk-days', ['2027-03-25']));
+    act(() => s().setJoinCalendar('desk-days'));
+    act(() => s().setCurve({ conventions: 'none' }));
+    render(<HolidaysTab />);
+    const own = within(screen.getByRole('region', { name: 'Calendars of your own' }));
+    expect(own.getByRole('status')).toHaveTextContent('“desk-days” is chosen to close the deposit and OIS rows’ calendar, but no Market conventions are chosen, so it changes nothing');
+    // The engine document says the same (a warning, not silence).
+    expect(toEngineDocument(s().workspace).notes.map((n) => n.code)).toEqual(['not-applied']);
+    fireEvent.click(own.getByRole('button', { name: 'clear the joined calendar' }));
+    expect(s().workspace.curve.joinCalendar).toBeUndefined();
+    expect(toEngineDocument(s().workspace).notes).toEqual([]);
+    act(() => s().undo());
+    expect(s().workspace.curve.joinCalendar).toBe('desk-days');
+  });
 });

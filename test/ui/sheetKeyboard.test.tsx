@@ -31,6 +31,8 @@ describe('QuoteSheet keyboard model', () => {
     fireEvent.keyDown(document.activeElement!, { key: 'ArrowLeft' }); // the first column: stays
     expect(document.activeElement).toBe(cell(2, 'Kind'));
     fireEvent.keyDown(document.activeElement!, { key: 'End' });
+    expect(document.activeElement).toBe(cell(2, 'Conventions')); // the last column
+    fireEvent.keyDown(document.activeElement!, { key: 'ArrowLeft' });
     expect(document.activeElement).toBe(cell(2, 'Day count'));
     fireEvent.keyDown(document.activeElement!, { key: 'Home', ctrlKey: true });
     expect(document.activeElement).toBe(cell(1, 'Day count'));

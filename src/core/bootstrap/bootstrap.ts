@@ -16,6 +16,7 @@ import { nodeSolverFor, type BootstrapNodes } from './nodeSolvers.ts';
 import type { TurnSpan } from './turns.ts';
 import type { MeetingNode, StepNodes } from './meetingSteps.ts';
 import type { OvernightKit } from './overnightKit.ts';
+import { bridgeSpotGap, spotGapOf, type NodeRun } from './spotBridge.ts';
 
 /** How one quote came back on the built curve. */
 export interface Repricing {
@@ -106,6 +107,24 @@ export function bootstrapInstruments(given: BootstrapSettings, market: readonly 
     step = s;
   }
   const settings: BootstrapSettings = step === null ? given : { ...given, interpolation: 'log-linear-discount' };
+  // A quote starts after the valuation date but before the first pillar: the gap is bridged by one
+  // rule for every method (bootstrap/spotBridge.ts), from the unbridged curve's first node. A step
+  // curve is log-linear between its own nodes, which is that rule already.
+  const run = (ins: readonly Instrument[], bridged: boolean): NodeRun<BootstrapOutcome> => solveNodes(given, settings, ins, bridged, step, spans);
+  const gap = step === null ? spotGapOf(settings.settlement, settings.dayCount, instruments) : null;
+  if (gap === null) return run(instruments, false).outcome;
+  const plain = run(instruments, false);
+  return bridgeSpotGap(gap, instruments, plain.ys === null ? null : plain.ys[1]!, (withBridge) => run(withBridge, true));
+}
+
+/**
+ * Steps 1-4 on the given instruments (with turns already wrapped; with meeting steps on the step
+ * rule's nodes). `bridged`: the first is the spot bridge's node (not a quote), left out of the
+ * curve's pillars and of the repricing. Returns the node values with the outcome (null when the
+ * bootstrap failed).
+ */
+function solveNodes(given: BootstrapSettings, settings: BootstrapSettings, instruments: readonly Instrument[], bridged: boolean, step: StepNodes | null, spans: readonly TurnSpan[]): NodeRun<BootstrapOutcome> {
+  const kit = given.kit;
   const spec = INTERPOLATORS[settings.interpolation];
   const nodes = startNodes(instruments, step);
   const { ts, ys } = nodes;
@@ -114,7 +133,7 @@ export function bootstrapInstruments(given: BootstrapSettings, market: readonly 
   const pass = nodeSolverFor(spec.global ? INTERPOLATORS['log-linear-discount'] : spec, 'pass', nodes);
   for (let k = 1; k <= instruments.length; k++) {
     const x = pass.solve(k, guess(instruments, ts, ys, k));
-    if (typeof x !== 'number') return failed([x]);
+    if (typeof x !== 'number') return { outcome: failed([x]), ys: null };
     ys[k] = x;
   }
 
@@ -123,7 +142,7 @@ export function bootstrapInstruments(given: BootstrapSettings, market: readonly 
   let repricing: Repricing[] | null = null;
   if (spec.global) {
     const global = sweepToConvergence(settings, spec, nodes);
-    if (!global.ok) return failed([global.error]);
+    if (!global.ok) return { outcome: failed([global.error]), ys: null };
     ({ sweeps, repricing } = global);
   }
 
@@ -131,19 +150,20 @@ export function bootstrapInstruments(given: BootstrapSettings, market: readonly 
   // nodes (bit for bit what curve.lnDiscountAt gives there: the same formula on the same nodes,
   // y_k exactly at a pillar; a test checks it). A local method's segment solver left the curve's
   // own values at every flow in the table: no later node moves a flow's segment.
-  const smooth = curveOnNodes(settings, spec, nodes, step);
+  const smooth = curveOnNodes(settings, spec, nodes, step, bridged);
   const curve = spans.length === 0 ? smooth : turnedCurve(smooth, spans, kit!);
   // The instruments read the smooth curve here (turned ones add the turns to it themselves).
   repricing ??= pass.writesFlowTable ? tableRepricing(nodes) : reprice(nodes, smooth.lnDiscountAt);
   const refused = acceptanceFailure(repricing);
-  if (refused) return failed([refused]);
+  if (refused) return { outcome: failed([refused]), ys: null };
 
   // 4. The sign of the forward between pillars.
   const { errors, warnings } = forwardSigns(settings, nodes, step);
-  if (errors.length > 0) return failed(errors);
-  if (spans.length === 0 && step === null) return { curve, errors: [], warnings, repricing, sweeps };
+  if (errors.length > 0) return { outcome: failed(errors), ys: null };
+  const priced = bridged ? repricing.slice(1) : repricing;
+  if (spans.length === 0 && step === null) return { outcome: { curve, errors: [], warnings, repricing: priced, sweeps }, ys };
   const overnight: OvernightShape = { turns: spans, meetings: step === null ? [] : given.meetings!.filter((m) => step.dates.includes(m.date)) };
-  return { curve, errors: [], warnings, repricing, sweeps, overnight };
+  return { outcome: { curve, errors: [], warnings, repricing: priced, sweeps, overnight }, ys };
 }
 
 /**
@@ -162,8 +182,10 @@ function startNodes(instruments: readonly Instrument[], step: StepNodes | null):
 }
 
 /** The curve on the solved nodes, one pillar per instrument (with meeting steps, at its node). */
-function curveOnNodes(settings: BootstrapSettings, spec: InterpolatorSpec, { instruments, ts, ys }: BootstrapNodes, step: StepNodes | null): Curve {
+function curveOnNodes(settings: BootstrapSettings, spec: InterpolatorSpec, { instruments, ts, ys }: BootstrapNodes, step: StepNodes | null, bridged = false): Curve {
   const pillars: Pillar[] = instruments.map((ins, k) => ({ date: step === null ? ins.maturity : step.dates[k]!, t: ts[k + 1]!, discount: Math.exp(ys[k + 1]!), quote: ins.index }));
+  // The spot bridge's node is a node of the interpolation, not a pillar (no quote ends there).
+  if (bridged) pillars.shift();
   return curveFromNodes(settings.settlement, settings.dayCount, settings.interpolation, settings.extrapolation, pillars, spec.build(ts, ys));
 }
 

@@ -1,6 +1,6 @@
 import type { Curve, Extrapolation } from '../curve/curve.ts';
 import type { Instrument } from '../instruments/instrument.ts';
-import { KIND_MODULE_LIST, moduleOf, quoteDates } from '../kinds/registry.ts';
+import { KIND_MODULE_LIST, moduleOf } from '../kinds/registry.ts';
 import { compareIso } from '../time/date.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import { coreError, type CoreError, type CoreWarning } from '../result.ts';
@@ -13,6 +13,7 @@ import { kitMissing } from './bootstrap.ts';
 import type { OvernightKit } from './overnightKit.ts';
 import { businessCalendar, MAX_CLOSED_RUN, outsideCalendar } from '../time/calendars.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
+import { spotGapOf } from './spotBridge.ts';
 
 const NO_CURVES: CurveSet = {};
 
@@ -219,7 +220,7 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   // document order only when the two differ.
   const byIndex = (a: Repricing, b: Repricing) => a.index - b.index;
   const repricing = outcome.repricing.every((r, i) => i === 0 || outcome.repricing[i - 1]!.index < r.index) ? outcome.repricing : [...outcome.repricing].sort(byIndex);
-  const gap = outcome.curve ? spotGap(ws, market.instruments, settings.interpolation) : null;
+  const gap = outcome.curve ? spotGap(ws, market.instruments) : null;
   if (gap) warnings.push(gap);
   const later = laterFixings(ws);
   if (later) warnings.push(later);
@@ -252,30 +253,19 @@ function laterFixings(ws: Workspace): CoreWarning | null {
 }
 
 /**
- * The warning for a curve that reaches spot without quotes that link it there: the earliest start
- * after the valuation date that lies before the curve's first pillar (no ON or TN deposit ends by
- * then), read off the interpolation's first segment from DF = 1 at the valuation date. Null when
- * every quote starts on the valuation date or at or after the first pillar.
+ * The warning for a curve that reaches spot without quotes that link it there (spotGapOf: the
+ * earliest start after the valuation date that lies before the curve's first pillar; no ON or TN
+ * deposit ends by then). It states the rule the bootstrap bridged the gap with (spotBridge.ts).
  */
-function spotGap(ws: Workspace, instruments: readonly Instrument[], interpolation: InterpolationId): CoreWarning | null {
-  let first: IsoDate | null = null;
-  for (const ins of instruments) if (first === null || compareIso(ins.maturity, first) < 0) first = ins.maturity;
-  if (first === null) return null;
-  let found: { index: number; start: IsoDate } | null = null;
-  for (const ins of instruments) {
-    const q = ins.quote;
-    // Only a kind with dates of its own can start after the valuation date (performance: no object otherwise).
-    if (moduleOf(q).dates === undefined) continue;
-    const start = quoteDates(q, ws.settlement).start;
-    if (compareIso(start, ws.settlement) > 0 && compareIso(start, first) < 0 && (found === null || compareIso(start, found.start) < 0)) found = { index: q.index, start };
-  }
-  if (found === null) return null;
-  const rule = interpolation === 'log-linear-discount' ? 'flat at the first forward (log-linear discount)' : `by the ${interpolation} interpolation`;
+function spotGap(ws: Workspace, instruments: readonly Instrument[]): CoreWarning | null {
+  const gap = spotGapOf(ws.settlement, ws.curve.dayCount, instruments);
+  if (gap === null) return null;
+  const i = gap.index;
   return {
-    path: `quotes[${found.index}]`,
-    quote: found.index,
+    path: `quotes[${i}]`,
+    quote: i,
     code: 'spot-gap',
-    message: `quotes[${found.index}] starts on ${found.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${first}: the discount factor there is bridged from 1 at the valuation date ${rule}; add quotes that end by then to link the curve to it (ON and TN deposits on the same calendar for a spot start)`,
+    message: `quotes[${i}] starts on ${gap.start}, after the valuation date ${ws.settlement} and before the curve's first pillar ${gap.first}: the gap is bridged at the first pillar's average forward, ln DF(${gap.start}) = ln DF(${gap.first}) x t(${gap.start}) / t(${gap.first}), under every interpolation (flat at the first forward under log-linear discount); add quotes that end by then (ON and TN deposits on the same calendar for a spot start)`,
   };
 }
 

@@ -1,9 +1,11 @@
-import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
+import { coreError, fail, ok, type CoreError, type CoreWarning, type Result } from '../result.ts';
 import { convexityModelFields } from '../instruments/convexity.ts';
 import { validateWorkspace, RESERVED_KEYS } from './validate.ts';
 import type { Quote, QuoteKind } from './types.ts';
 import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
 import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from '../input/quoteRow.ts';
+import { TERM_FIELDS, termsText, type TermField } from '../input/termsText.ts';
+import { conventionSet } from '../kinds/conventionSets.ts';
 import { DEFAULT_DISPLAY, isMarketConventions, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
 import { isPlainObject } from './plainObject.ts';
 
@@ -25,7 +27,31 @@ const COLUMN_FIELDS: Readonly<Record<(typeof QUOTE_COLUMNS)[number], readonly st
   coupon: ['coupon'],
   frequency: ['frequency'],
   dayCount: ['dayCount'],
+  // Written by termsCellOf (the set and the date terms), not read field by field.
+  terms: [],
 };
+/** The fields the Conventions cell holds besides the set (input/termsText.ts). */
+const TERM_FIELD_SET: ReadonlySet<string> = new Set(['conventions', ...TERM_FIELDS]);
+
+/**
+ * A quote's Conventions cell: its set unless it is the workspace's market conventions (which the
+ * sheet's rows of its kinds take anyway), and its own date terms, leaving out a calendar that is
+ * the market set's calendar joined to the workspace's own (`curve.joinCalendar`).
+ */
+function termsCellOf(q: Record<string, unknown>, market: string | null, joinCalendar: string | null): string {
+  const fields: Partial<Record<TermField, string | number | boolean>> = {};
+  for (const f of TERM_FIELDS) {
+    const v = q[f];
+    if (typeof v === 'string' || typeof v === 'number' || typeof v === 'boolean') fields[f] = v;
+  }
+  const takesMarket = market !== null && q.conventions === market;
+  if (takesMarket && joinCalendar !== null) {
+    const base = conventionSet(market)?.fields[q.kind as QuoteKind]?.calendar;
+    if (typeof base === 'string' && fields.calendar === `${base}+${joinCalendar}`) delete fields.calendar;
+  }
+  const set = typeof q.conventions === 'string' && !takesMarket ? q.conventions : null;
+  return termsText({ set, fields });
+}
 const cellText = (v: unknown): string => (typeof v === 'string' ? v : typeof v === 'number' && Number.isFinite(v) ? String(v) : '');
 
 /** The engine's reading of one quote, without its position: what must survive a conversion unchanged. */
@@ -47,22 +73,31 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   const doc = raw as Record<string, unknown>;
 
   const rawQuotes = doc.quotes as readonly Record<string, unknown>[];
-  const quotes: QuoteRow[] = rawQuotes.map((q) => {
+  const rows = rawQuotes.map((q) => {
     const row: Record<string, unknown> = { id: makeId(), enabled: q.enabled !== false };
     for (const c of QUOTE_COLUMNS) row[c] = cellText(COLUMN_FIELDS[c].map((f) => q[f]).find((v) => v !== undefined));
     // A kind dated by its own fields writes its Maturity cell itself (a future: `2027-03 1M`).
     const own = typeof q.kind === 'string' && Object.hasOwn(QUOTE_KIND_MODULES, q.kind) ? QUOTE_KIND_MODULES[q.kind as QuoteKind].sheet.maturityCell : undefined;
     if (own !== undefined) row.maturity = own.write(q);
-    return row as unknown as QuoteRow;
+    return row as Record<string, unknown>;
   });
   const ws = first.workspace;
-  // Quotes naming one market's conventions open with that setting (the sheet's rows of its kinds
-  // take it); the check below refuses the file when that would change any quote.
+  // A set every quote of its kinds names opens as the workspace's market conventions (the sheet's
+  // rows of those kinds take it); any other set a quote names goes in its Conventions cell. The
+  // check below refuses the file when that would change any quote.
   const named = [...new Set(rawQuotes.map((q) => q.conventions).filter((c) => c !== undefined))];
-  const market = named.length === 1 && isMarketConventions(named[0]) && named[0] !== 'none' ? named[0] : null;
+  const market =
+    named.find(
+      (id): id is string =>
+        isMarketConventions(id) && id !== 'none' && rawQuotes.every((q) => q.conventions === id || conventionSet(id)?.fields[q.kind as QuoteKind] === undefined),
+    ) ?? null;
   // A calendar of the file's own joined to the set's calendar on those quotes (`target+desk-days`) opens as the workbench's joined calendar.
-  const joins = [...new Set(rawQuotes.map((q) => (typeof q.calendar === 'string' && q.calendar.includes('+') ? q.calendar.slice(q.calendar.lastIndexOf('+') + 1) : undefined)).filter((c) => c !== undefined))];
-  const joinCalendar = market && joins.length === 1 ? joins[0] : null;
+  const joins = [...new Set(rawQuotes.map((q) => (q.conventions === market && typeof q.calendar === 'string' && q.calendar.includes('+') ? q.calendar.slice(q.calendar.lastIndexOf('+') + 1) : undefined)).filter((c) => c !== undefined))];
+  const joinCalendar = market && joins.length === 1 ? joins[0]! : null;
+  const quotes = rows.map((row, i) => {
+    const terms = termsCellOf(rawQuotes[i]!, market, joinCalendar);
+    return (terms === '' ? row : { ...row, terms }) as unknown as QuoteRow;
+  });
   const out: Record<string, unknown> = {
     format: WORKBENCH_FORMAT,
     version: WORKBENCH_VERSION,
@@ -87,7 +122,7 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   else
     ws.quotes.forEach((q, i) => {
       if (meaning(q) === meaning(back[i]!)) return;
-      const extra = Object.keys(rawQuotes[i]!).filter((k) => !Object.values(COLUMN_FIELDS).some((fs) => fs.includes(k)) && k !== 'enabled');
+      const extra = Object.keys(rawQuotes[i]!).filter((k) => !Object.values(COLUMN_FIELDS).some((fs) => fs.includes(k)) && !TERM_FIELD_SET.has(k) && k !== 'enabled');
       const what = extra.length > 0 ? `its ${extra.join(', ')} (${extra.map((k) => JSON.stringify(rawQuotes[i]![k])).join(', ')}) has no column in the sheet` : 'the sheet would read it differently';
       errors.push(coreError('schema', `quotes[${i}]`, `quotes[${i}] (a ${q.kind} maturing ${q.maturity}): ${what}; the file was not opened, so nothing would change silently. Open it with the curve command, or remove the field if its default is what you mean.`, i));
     });
@@ -108,6 +143,8 @@ export interface AnyDocumentReading {
    * null for an engine document (its positions are the input's own).
    */
   readonly rowOfQuote: readonly number[] | null;
+  /** Settings of a workbench document that take no effect (EngineConversion.notes); empty for an engine document. */
+  readonly warnings?: readonly CoreWarning[];
 }
 
 export function engineFromAnyDocument(raw: unknown): AnyDocumentReading {
@@ -123,7 +160,7 @@ export function engineFromAnyDocument(raw: unknown): AnyDocumentReading {
       if (issue?.severity === 'error') errors.push(coreError('schema', `quotes[${i}].${c}`, `row ${i + 1}, ${QUOTE_COLUMN_LABEL[c]}: ${issue.message}`, i));
     }
   });
-  return { doc: conv.doc, errors, rowOfQuote: conv.rowOfQuote };
+  return conv.notes.length === 0 ? { doc: conv.doc, errors, rowOfQuote: conv.rowOfQuote } : { doc: conv.doc, errors, rowOfQuote: conv.rowOfQuote, warnings: conv.notes };
 }
 
 /**

@@ -3,7 +3,7 @@ import { CURVE_DAY_COUNTS, isCurveDayCount, type CurveDayCount } from '../time/d
 import { INTERPOLATIONS, isInterpolation, type InterpolationId } from '../interpolation/types.ts';
 import { EXTRAPOLATIONS, isExtrapolation, type Extrapolation } from '../curve/curve.ts';
 import { FREQUENCIES, RESERVED_KEYS, WORKSPACE_FORMAT, WORKSPACE_VERSION } from './validate.ts';
-import type { CoreError } from '../result.ts';
+import type { CoreError, CoreWarning } from '../result.ts';
 import { isQuoteUnitMode, QUOTE_UNIT_MODES, type QuoteUnitMode } from '../input/quoteText.ts';
 import { DECIMAL_MARKS, DEFAULT_CONVENTIONS, isDecimalMark, type DecimalMark, type InputConventions } from '../input/conventions.ts';
 import { DATE_ORDERS, isDateOrder, type DateOrder } from '../input/dateText.ts';
@@ -124,6 +124,8 @@ export interface EngineConversion {
   /** Rows with a wrong cell (left out of the document). */
   readonly invalidRows: number;
   readonly blankRows: number;
+  /** Settings of the workbench document that take no effect in the engine document, each said as a warning (a joined calendar without market conventions). */
+  readonly notes: readonly CoreWarning[];
 }
 
 /**
@@ -147,17 +149,30 @@ export function toEngineDocument(
     } else invalidRows++;
   });
   const { conventions: market, joinCalendar, ...curve } = doc.curve;
+  const notes: CoreWarning[] = [];
   if (market !== undefined && market !== 'none') {
     // The workspace's market conventions go on each quote of a kind the set fills (deposits,
-    // overnight swaps, FRAs); a calendar of its own joined to the set's is that quote's calendar.
+    // overnight swaps, FRAs) that names no set in its own Conventions cell; a calendar of the
+    // workspace's own joined to the set's is the calendar of each quote taking the set, unless the
+    // quote gives its own.
     const set = conventionSet(market);
     for (let i = 0; i < quotes.length; i++) {
-      const kind = quotes[i]!.kind as QuoteKind;
+      const q = quotes[i]!;
+      const kind = q.kind as QuoteKind;
       const fields = set?.fields[kind];
-      if (fields === undefined) continue;
-      const joined = joinCalendar && typeof fields.calendar === 'string' ? { calendar: `${fields.calendar}+${joinCalendar}` } : {};
-      quotes[i] = { ...quotes[i], conventions: market, ...joined };
+      if (fields === undefined || (q.conventions !== undefined && q.conventions !== market)) continue;
+      const joined = joinCalendar && typeof fields.calendar === 'string' && q.calendar === undefined ? { calendar: `${fields.calendar}+${joinCalendar}` } : {};
+      quotes[i] = { ...q, conventions: market, ...joined };
     }
+  } else if (joinCalendar !== undefined) {
+    // Without market conventions no row takes a set's calendar, so there is nothing to join the
+    // workspace's calendar to: said, so the setting is never silently without effect.
+    notes.push({
+      path: 'curve.joinCalendar',
+      quote: null,
+      code: 'not-applied',
+      message: `the calendar "${joinCalendar}" is set to close the deposit and OIS rows' calendar, but no market conventions are chosen, so those rows have no calendar to join it to and it changes nothing; choose Market conventions in the curve settings, or clear the joined calendar in the Holidays section`,
+    });
   }
   const engine: Record<string, unknown> = {
     format: WORKSPACE_FORMAT,
@@ -172,7 +187,7 @@ export function toEngineDocument(
     quotes,
   };
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) engine[key] = doc[key];
-  return { doc: engine, rowOfQuote, rows, invalidRows, blankRows };
+  return { doc: engine, rowOfQuote, rows, invalidRows, blankRows, notes };
 }
 
 const FIELD_COLUMN: Readonly<Record<string, QuoteColumn>> = {
@@ -182,6 +197,7 @@ const FIELD_COLUMN: Readonly<Record<string, QuoteColumn>> = {
   tenor: 'maturity', maturity: 'maturity', kind: 'kind',
   // An FRA's Maturity cell holds its period; its index must agree with it.
   period: 'maturity', index: 'maturity',
+  conventions: 'terms', calendar: 'terms', spotLag: 'terms', businessDay: 'terms', paymentLag: 'terms', eom: 'terms', floatDayCount: 'terms',
 };
 
 /** The sheet cell an engine error points at (`quotes[3].cleanPrice` -> price); `kind` for a whole-quote error. */

@@ -73,7 +73,8 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
       }
       for (const k of Object.keys(row)) if (!ROW_KEYS.includes(k)) errors.push(coreError('schema', `${path}.${k.slice(0, 40)}`, `${path}: unknown cell "${k.slice(0, 40)}"; a row has ${ROW_KEYS.join(', ')}`, i));
       if (!shortText(row.id) || typeof row.enabled !== 'boolean') errors.push(coreError('schema', path, `${path}: needs a text id and enabled true or false`, i));
-      for (const c of QUOTE_COLUMNS) if (!shortText(row[c])) errors.push(coreError('schema', `${path}.${c}`, `${path}.${c}: must be text of at most ${CELL_MAX} characters`, i));
+      // The Conventions cell (`terms`) came later: a row saved before it has none.
+      for (const c of QUOTE_COLUMNS) if (!shortText(row[c]) && !(c === 'terms' && row[c] === undefined)) errors.push(coreError('schema', `${path}.${c}`, `${path}.${c}: must be text of at most ${CELL_MAX} characters`, i));
     });
   }
   if (errors.length > 0) return { errors, engineDoc: null };

@@ -5,6 +5,8 @@
 export * from './decimalText.ts';
 export * from './quoteText.ts';
 export * from './quoteRow.ts';
+export { parseTermsText, rowSetOf, rowTermsOf, termsText, TERM_FIELDS, type RowTerms, type TermField } from './termsText.ts';
+export { rowConventions, type RowConventions } from './termsNote.ts';
 export * from './splitTable.ts';
 export * from './pasteTable.ts';
 export * from './quoteSchedule.ts';

@@ -23,6 +23,7 @@ const GENERAL_HEADER_WORDS: Readonly<Record<string, QuoteColumn>> = {
   price: 'price', px: 'price', midprice: 'price', midpx: 'price', pxmid: 'price',
   frequency: 'frequency', freq: 'frequency', payfreq: 'frequency', paymentfrequency: 'frequency',
   daycount: 'dayCount', basis: 'dayCount', daycountbasis: 'dayCount', dcc: 'dayCount', accrualbasis: 'dayCount', daycountconvention: 'dayCount',
+  conventions: 'terms', conventionset: 'terms', terms: 'terms',
 };
 export const HEADER_WORDS: Readonly<Record<string, QuoteColumn>> = { ...GENERAL_HEADER_WORDS, ...KIND_HEADER_WORDS };
 

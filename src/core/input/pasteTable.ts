@@ -113,7 +113,7 @@ export function readSplitBlock({ cells, separator }: SplitTable): PastedBlock {
   });
   const ignored = columns.filter((c) => c.column === null && c.header !== '').map((c) => c.header);
   const rows = body.map((r) => {
-    const out: Record<QuoteColumn, string> = { kind: '', maturity: '', rate: '', price: '', coupon: '', frequency: '', dayCount: '' };
+    const out: Partial<Record<QuoteColumn, string>> = { kind: '', maturity: '', rate: '', price: '', coupon: '', frequency: '', dayCount: '' };
     columns.forEach((c, i) => {
       if (c.column) out[c.column] = r[i] ?? '';
     });

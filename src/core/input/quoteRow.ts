@@ -12,6 +12,7 @@ import {
   type QuoteUnitMode,
 } from './quoteText.ts';
 import { DEFAULT_CONVENTIONS, withDecimalPoint, type InputConventions } from './conventions.ts';
+import { parseTermsText } from './termsText.ts';
 
 /**
  * One row of the quote sheet, every cell kept exactly as typed. `rate` holds a rate or yield
@@ -29,10 +30,15 @@ export interface QuoteRow {
   readonly coupon: string;
   readonly frequency: string;
   readonly dayCount: string;
+  /**
+   * The quote's convention set and the date terms it gives itself (`usd-sofr, spot lag 1`; see
+   * input/termsText.ts). Absent in a document saved before the column existed, read as empty.
+   */
+  readonly terms?: string;
 }
 
 /** The text columns of the sheet, in display (and header-less paste) order. */
-export const QUOTE_COLUMNS = ['kind', 'maturity', 'rate', 'price', 'coupon', 'frequency', 'dayCount'] as const;
+export const QUOTE_COLUMNS = ['kind', 'maturity', 'rate', 'price', 'coupon', 'frequency', 'dayCount', 'terms'] as const;
 export type QuoteColumn = (typeof QUOTE_COLUMNS)[number];
 
 export const QUOTE_COLUMN_LABEL: Readonly<Record<QuoteColumn, string>> = {
@@ -43,10 +49,11 @@ export const QUOTE_COLUMN_LABEL: Readonly<Record<QuoteColumn, string>> = {
   coupon: 'Coupon',
   frequency: 'Freq',
   dayCount: 'Day count',
+  terms: 'Conventions',
 };
 
 export type RowText = Omit<QuoteRow, 'id' | 'enabled'>;
-export const EMPTY_ROW_TEXT: RowText = { kind: '', maturity: '', rate: '', price: '', coupon: '', frequency: '', dayCount: '' };
+export const EMPTY_ROW_TEXT: RowText = { kind: '', maturity: '', rate: '', price: '', coupon: '', frequency: '', dayCount: '', terms: '' };
 
 export interface CellIssue {
   readonly severity: 'error' | 'warning';
@@ -62,7 +69,7 @@ export interface RowParse {
   readonly blank: boolean;
 }
 
-export const isBlankRow = (row: RowText): boolean => QUOTE_COLUMNS.every((c) => row[c].trim() === '');
+export const isBlankRow = (row: RowText): boolean => QUOTE_COLUMNS.every((c) => (row[c] ?? '').trim() === '');
 
 /**
  * Parses one sheet row into the engine's quote object, exactly (decimal.js), with a message on
@@ -155,6 +162,15 @@ export function parseRow(row: QuoteRow, mode: QuoteUnitMode, conventions: InputC
     else {
       const dc = take('dayCount', parseDayCountText(row.dayCount));
       if (dc !== null) quote.dayCount = dc;
+    }
+  }
+  // The Conventions cell: the quote's set and the date terms it gives itself (the engine checks
+  // which of them the kind takes, and names the field).
+  if ((row.terms ?? '').trim() !== '') {
+    const terms = take('terms', parseTermsText(row.terms ?? ''));
+    if (terms !== null) {
+      if (terms.set !== null) quote.conventions = terms.set;
+      Object.assign(quote, terms.fields);
     }
   }
   const failed = Object.values(issues).some((i) => i?.severity === 'error');

@@ -70,7 +70,8 @@ export function compileOis(q: DatedSwapQuote, settlement: CivilDate, time: (d: C
   const sIdx = starts.map((d, i) => (i === 0 && s0 === 0 ? -1 : at(d)));
   const eIdx = ends.map(at);
   const pIdx = payments.map(at);
-  return new LaggedOis(q, times[times.length - 1]!, times, taus, sIdx, eIdx, pIdx, q.rate, isoFromCivil(payments[n - 1]!));
+  const Form = sIdx[0]! >= 0 ? ForwardOis : LaggedOis;
+  return new Form(q, times[times.length - 1]!, times, taus, sIdx, eIdx, pIdx, q.rate, isoFromCivil(payments[n - 1]!));
 }
 
 /** The no-lag, spot-start OIS: today's swap form, flows K tau_i at E_i and 1 at E_n against 1. */
@@ -156,6 +157,25 @@ class LaggedOis extends CompiledInstrument<DatedSwapQuote> {
   }
 
   requote(value: number): Instrument {
-    return new LaggedOis(this.quote, this.t, this.times, this.taus, this.sIdx, this.eIdx, this.pIdx, value, this.maturity);
+    const Form = this instanceof ForwardOis ? ForwardOis : LaggedOis;
+    return new Form(this.quote, this.t, this.times, this.taus, this.sIdx, this.eIdx, this.pIdx, value, this.maturity);
+  }
+}
+
+/**
+ * A LaggedOis that starts after settlement (a spot lag): the same flows and formulas, and the node
+ * solvers' residual in rate. Kept apart so that a swap starting at settlement with a payment lag
+ * solves exactly as before, bit for bit.
+ */
+class ForwardOis extends LaggedOis {
+  /**
+   * The node solvers' residual in rate: K minus the model rate, (fixed leg - floating leg) / annuity,
+   * with the same root and sign as the fixed leg minus `targetFromFlows` (the annuity is positive).
+   * In the unit the quote reprices in, a short swap's node lands on its root to the last bit
+   * (`solveNode`'s stopAtRoot) rather than within NODE_TOLERANCE in ln DF, which for a one-week
+   * swap (tau about 1/52) is up to 5e-14 in rate.
+   */
+  residualFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+    return this.market - this.quoteFromFlows(ln, df, offset);
   }
 }

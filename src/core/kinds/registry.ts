@@ -62,6 +62,8 @@ export function sheetDefault(kindText: string, column: QuoteColumn, conventions?
   const k = kindText.trim().toLowerCase();
   const m = (QUOTE_KIND_MODULES as Readonly<Record<string, QuoteKindModule>>)[k];
   if (m === undefined || !Object.hasOwn(QUOTE_KIND_MODULES, k)) return undefined;
+  // The Conventions cell of a row without a set of its own shows the set it takes, when that set fills its kind.
+  if (column === 'terms') return conventions !== undefined && conventionSet(conventions)?.fields[k as QuoteKind] !== undefined ? conventions : undefined;
   // A workspace's market conventions fill the field first, when their set fills it for this kind.
   const filled = conventions === undefined ? undefined : conventionSet(conventions)?.fields[k as QuoteKind]?.[column];
   if (filled !== undefined) return String(filled);

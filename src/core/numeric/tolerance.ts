@@ -54,3 +54,17 @@ export const SINGULAR_PIVOT = 1e-14;
  * step starts close; any value in the solver's range converges to the same node.
  */
 export const FLAT_GUESS_FORWARD = 0.03;
+
+/**
+ * The spot bridge (bootstrap/spotBridge.ts): at most this many bootstraps while its node
+ * a = ln DF(spot) is made equal to (t_spot / t_first) ln DF(first pillar) (a secant on a scalar
+ * that is affine, or nearly, in a; it settles in two or three).
+ */
+export const SPOT_BRIDGE_MAX_STEPS = 12;
+/** The spot bridge stops when its relation holds to this many units in the last place of its node's value... */
+export const SPOT_BRIDGE_ROUNDING_ULPS = 4;
+/**
+ * ...or to this in ln DF (1e-16: a tenth of NODE_TOLERANCE, within which the node solvers
+ * leave the first pillar's node, so closer is rounding noise a secant only wanders in).
+ */
+export const SPOT_BRIDGE_TOLERANCE = 1e-16;

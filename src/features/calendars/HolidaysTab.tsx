@@ -222,7 +222,15 @@ function OwnCalendars({ market }: { market: BuiltInCalendarId | null }) {
             ))}
           </select>
         </label>
-        {market === null && <p className="muted small">Choose Market conventions in the Curve settings first: the rows then have a calendar to join yours to.</p>}
+        {market === null && join === undefined && <p className="muted small">Choose Market conventions in the Curve settings first: the rows then have a calendar to join yours to.</p>}
+        {market === null && join !== undefined && (
+          <p className="small warning-text" role="status">
+            “{join}” is chosen to close the deposit and OIS rows&rsquo; calendar, but no Market conventions are chosen, so it changes nothing. Choose Market conventions in the Curve settings, or{' '}
+            <button type="button" onClick={() => useAppStore.getState().setJoinCalendar(null)}>
+              clear the joined calendar
+            </button>
+          </p>
+        )}
         <details>
           <summary>Make a calendar from a list of dates</summary>
           <label>

@@ -1,4 +1,4 @@
-import { lazy, memo, Suspense, useCallback, useEffect, useMemo, useRef, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
+import { lazy, memo, Suspense, useCallback, useEffect, useMemo, useRef, useState, type ClipboardEvent, type FocusEvent, type KeyboardEvent, type MouseEvent } from 'react';
 import {
   LIMITS,
   rowsLeftOutMessage,
@@ -19,6 +19,9 @@ import {
   type QuoteUnitMode,
   type RowIssues,
   sheetDefault,
+  rowTermsOf,
+  type RowConventions,
+  type RowTerms,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
@@ -29,7 +32,7 @@ import { WORKER_FROM_CHARS } from '../../share/offThread.ts';
 const PastePreview = lazy(() => import('./PastePreview.tsx').then((m) => ({ default: m.PastePreview })));
 const UNIT_TEXT: Readonly<Record<QuoteUnitMode, string>> = { percent: '%', decimal: 'decimal', bp: 'bp' };
 /** Short column headings (the full names label the cells). */
-const HEADER_TEXT: Readonly<Record<QuoteColumn, string>> = { kind: 'Kind', maturity: 'Maturity', rate: 'Rate', price: 'Price', coupon: 'Cpn', frequency: 'Freq', dayCount: 'Day count' };
+const HEADER_TEXT: Readonly<Record<QuoteColumn, string>> = { kind: 'Kind', maturity: 'Maturity', rate: 'Rate', price: 'Price', coupon: 'Cpn', frequency: 'Freq', dayCount: 'Day count', terms: 'Conventions' };
 
 /** Hints shown in a fresh (blank) row only, so they are never mistaken for values. */
 const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
@@ -40,7 +43,29 @@ const PLACEHOLDER: Readonly<Record<QuoteColumn, string>> = {
   coupon: 'bonds',
   frequency: '',
   dayCount: '',
+  terms: '',
 };
+
+type NoteOf = (kindText: string, terms: RowTerms | null, frequencyCell: string, dayCountCell: string, market: string | undefined) => RowConventions | null;
+/** The note's code once fetched (termsNote.ts: its own chunk, fetched when a set is first named). */
+let loadedNote: NoteOf | null = null;
+/** rowConventions once its chunk has arrived (null until then, or while no set is named anywhere). */
+function useTermsNote(needed: boolean): NoteOf | null {
+  // An initializer function: useState would call the note function itself.
+  const [note, setNote] = useState<NoteOf | null>(() => loadedNote);
+  useEffect(() => {
+    if (!needed || note !== null) return;
+    let live = true;
+    void import('./termsNote.ts').then((m) => {
+      loadedNote = m.rowConventions;
+      if (live) setNote(() => m.rowConventions);
+    });
+    return () => {
+      live = false;
+    };
+  }, [needed, note]);
+  return note;
+}
 
 /** The engine's default for an empty frequency or day-count cell of a kind (its module's schema defaults), shown faintly. */
 const defaultFor = (kind: string, c: QuoteColumn, market: string | undefined): string | undefined => sheetDefault(kind, c, market);
@@ -62,6 +87,8 @@ interface RowViewProps {
   readonly inCurve: boolean;
   /** The workspace's market conventions (a convention set id), whose fields the faint defaults show. */
   readonly market: string | undefined;
+  /** The Conventions cell's note (rowConventions), once its code has arrived. */
+  readonly noteOf: NoteOf | null;
 }
 
 /**
@@ -95,32 +122,55 @@ interface SheetCellProps {
   readonly message: string | null;
   readonly placeholder: string | undefined;
   readonly msgId: string;
+  /** The Conventions cell's note: the set the row takes and what it overrides (its tooltip and description). */
+  readonly note?: string | null;
+  /** The Conventions cell of a row that takes the workspace's set and types fields of its own: that set, shown before them. */
+  readonly prefix?: string | null;
+  /** The row overrides a field of its set (the Conventions cell is marked). */
+  readonly overrides?: boolean;
 }
 
 /** One text cell; memoised so a keystroke re-renders the cell typed in, not its whole row. */
-const SheetCell = memo(function SheetCell({ rowId, column: c, index, value, severity, message, placeholder, msgId }: SheetCellProps) {
+const SheetCell = memo(function SheetCell({ rowId, column: c, index, value, severity, message, placeholder, msgId, note = null, prefix = null, overrides = false }: SheetCellProps) {
   const setCell = useAppStore((s) => s.setCell);
   const endEdit = useAppStore((s) => s.endEdit);
   const readOnly = useAppStore((s) => s.readOnly !== null);
+  const title = message !== null && note !== null ? `${message}\n${note}` : (message ?? note ?? undefined);
+  const input = (
+    <input
+      type="text"
+      value={value}
+      maxLength={LIMITS.cell}
+      readOnly={readOnly}
+      data-row={index}
+      data-col={c}
+      spellCheck={false}
+      autoComplete="off"
+      placeholder={placeholder}
+      aria-label={`Row ${index + 1} ${QUOTE_COLUMN_LABEL[c]}`}
+      aria-invalid={severity === 'error' ? true : undefined}
+      aria-describedby={message ? msgId : undefined}
+      aria-description={note ?? undefined}
+      title={title}
+      onChange={(e) => setCell(rowId, c, e.target.value)}
+      onBlur={endEdit}
+    />
+  );
   return (
-    <td role="gridcell" className={`cell ${c}${severity ? ` ${severity}` : ''}`}>
-      <input
-        type="text"
-        value={value}
-        maxLength={LIMITS.cell}
-        readOnly={readOnly}
-        data-row={index}
-        data-col={c}
-        spellCheck={false}
-        autoComplete="off"
-        placeholder={placeholder}
-        aria-label={`Row ${index + 1} ${QUOTE_COLUMN_LABEL[c]}`}
-        aria-invalid={severity === 'error' ? true : undefined}
-        aria-describedby={message ? msgId : undefined}
-        title={message ?? undefined}
-        onChange={(e) => setCell(rowId, c, e.target.value)}
-        onBlur={endEdit}
-      />
+    <td role="gridcell" className={`cell ${c}${severity ? ` ${severity}` : ''}${overrides ? ' overrides' : ''}`}>
+      {c !== 'terms' ? (
+        input
+      ) : (
+        // The Conventions cell keeps one structure whether or not the set is shown before the text, so its input is never re-mounted while typed in.
+        <div className="terms-wrap">
+          {prefix !== null && (
+            <span className="terms-set" aria-hidden="true">
+              {prefix} ·
+            </span>
+          )}
+          {input}
+        </div>
+      )}
     </td>
   );
 });
@@ -137,15 +187,21 @@ function showRowDetails(rowId: string): void {
 }
 
 const QuoteRowView = memo(
-  function QuoteRowView({ row, index, issues, unit, selected, inCurve, market }: RowViewProps) {
+  function QuoteRowView({ row, index, issues, unit, selected, inCurve, market, noteOf }: RowViewProps) {
     const setRowEnabled = useAppStore((s) => s.setRowEnabled);
     const deleteRow = useAppStore((s) => s.deleteRow);
     const addRow = useAppStore((s) => s.addRow);
     const n = index + 1;
-    const blank = QUOTE_COLUMNS.every((c) => row[c] === '');
+    const blank = QUOTE_COLUMNS.every((c) => (row[c] ?? '') === '');
     const messages = rowMessages(issues);
     const msgId = `row-msg-${row.id}`;
     const status = messages.some((m) => m.severity === 'error') ? 'error' : !row.enabled ? 'off' : inCurve ? 'ok' : 'idle';
+    // The set the row takes (its own, else the workspace's) and the fields it gives itself.
+    const terms = row.terms ?? '';
+    const read = rowTermsOf(terms);
+    const conv = blank || noteOf === null ? null : noteOf(row.kind, read, row.frequency, row.dayCount, market);
+    const ownSet = read?.set ?? null;
+    const setFor = ownSet ?? market;
     return (
       <>
         <tr role="row" aria-rowindex={n + 1} className={`sheet-row ${status}${selected ? ' selected' : ''}`} aria-selected={selected} data-row-key={row.id} data-row-index={index}>
@@ -163,11 +219,14 @@ const QuoteRowView = memo(
               rowId={row.id}
               column={c}
               index={index}
-              value={row[c]}
+              value={row[c] ?? ''}
               severity={issues[c]?.severity ?? null}
               message={issues[c]?.message ?? null}
-              placeholder={blank ? PLACEHOLDER[c] : defaultFor(row.kind, c, market)}
+              placeholder={blank ? PLACEHOLDER[c] : defaultFor(row.kind, c, setFor)}
               msgId={msgId}
+              {...(c === 'terms' && conv !== null
+                ? { note: conv.title, prefix: conv.fromWorkspace && terms.trim() !== '' ? conv.set : null, overrides: conv.given.some((g) => g.setValue !== null && g.setValue !== g.value) }
+                : {})}
             />
           ))}
           <td role="gridcell" className="actions">
@@ -193,7 +252,7 @@ const QuoteRowView = memo(
       </>
     );
   },
-  (a, b) => a.row === b.row && a.index === b.index && a.unit === b.unit && a.selected === b.selected && a.inCurve === b.inCurve && a.market === b.market && issuesEqual(a.issues, b.issues),
+  (a, b) => a.row === b.row && a.index === b.index && a.unit === b.unit && a.selected === b.selected && a.inCurve === b.inCurve && a.market === b.market && a.noteOf === b.noteOf && issuesEqual(a.issues, b.issues),
 );
 
 /**
@@ -205,6 +264,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
   const rows = useAppStore((s) => s.workspace.quotes);
   const unit = useAppStore((s) => s.workspace.quoteUnit);
   const market = useAppStore((s) => s.workspace.curve.conventions);
+  const noteOf = useTermsNote((market !== undefined && market !== 'none') || rows.some((r) => (r.terms ?? '') !== ''));
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
@@ -468,6 +528,16 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
         {result.conversion.blankRows > 0 && <span> · {result.conversion.blankRows} empty</span>}
         {full && <span> · the sheet is full: a workspace holds at most {LIMITS.quotes} quotes</span>}
       </p>
+      {result.conversion.notes.map((n) => (
+        <p key={n.path} className="notice setting-note" role="status">
+          {n.message.charAt(0).toUpperCase() + n.message.slice(1)}.{' '}
+          {n.path === 'curve.joinCalendar' && !readOnly && (
+            <button type="button" onClick={() => useAppStore.getState().setJoinCalendar(null)}>
+              Clear the joined calendar
+            </button>
+          )}
+        </p>
+      ))}
       {progress && (
         <div className="notice" role="status">
           Reading the pasted text ({textSizeWords(progress.chars)})
@@ -572,7 +642,7 @@ export function QuoteSheet({ result }: { result: WorkbenchBuild }) {
                   ]
                 : rows.slice(part.from, part.to).map((row, k) => {
                     const i = part.from + k;
-                    return <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} market={market} />;
+                    return <QuoteRowView key={row.id} row={row} index={i} issues={result.rowIssues[i] ?? {}} unit={unit} selected={row.id === selectedRowId} inCurve={inCurve.has(i)} market={market} noteOf={noteOf} />;
                   }),
             )}
           </tbody>

@@ -7,7 +7,7 @@
 // Dates: SIFMA's 2027 recommendation closes Friday 2027-12-24 (held in calendars.test.ts).
 // The quotes are invented test data.
 import { describe, expect, it } from 'vitest';
-import { buildCurve } from '../../../src/core/index.ts';
+import { buildCurve, INTERPOLATIONS } from '../../../src/core/index.ts';
 
 const doc = (quotes: unknown[], interpolation = 'monotone-convex') => ({ format: 'tenorscope-workspace', version: 2, valuationDate: '2027-12-22', curve: { interpolation }, quotes });
 const swaps = [
@@ -57,4 +57,45 @@ describe('the gap from the valuation date to spot', () => {
     const b = buildCurve(doc(swaps.map((q) => ({ ...q, conventions: 'gbp-sonia' }))));
     expect(b.warnings.filter((w) => w.code === 'spot-gap')).toEqual([]);
   });
+
+  // The bridge's rule, the same for every method (bootstrap/spotBridge.ts): a node at spot with
+  // ln DF(spot) = (t_spot / t_1) ln DF(t_1), t_1 the first pillar. Euro conventions (eur-estr:
+  // T+2 on TARGET, MARKET-CONVENTIONS.md c and d); TARGET closes Good Friday and Easter Monday
+  // (ECB, held in calendars.test.ts), Easter Sunday 2027 is 28 March, so spot from Wednesday
+  // 2027-03-24 is Tuesday 2027-03-30. Rates invented.
+  const euro = [
+    { kind: 'deposit', tenor: '1W', rate: 0.0231, conventions: 'eur-estr' },
+    { kind: 'deposit', tenor: '1M', rate: 0.0234, conventions: 'eur-estr' },
+    { kind: 'ois', tenor: '3M', rate: 0.0236, conventions: 'eur-estr' },
+    { kind: 'ois', tenor: '6M', rate: 0.0239, conventions: 'eur-estr' },
+    { kind: 'ois', tenor: '1Y', rate: 0.0241, conventions: 'eur-estr' },
+    { kind: 'ois', tenor: '2Y', rate: 0.0252, conventions: 'eur-estr' },
+    { kind: 'ois', tenor: '5Y', rate: 0.0268, conventions: 'eur-estr' },
+    { kind: 'ois', tenor: '10Y', rate: 0.0281, conventions: 'eur-estr' },
+  ];
+  const euroDoc = (interpolation: string) => ({ ...doc(euro, interpolation), valuationDate: '2027-03-24' });
+
+  for (const method of INTERPOLATIONS) {
+    it(`${method}: euro deposits and OIS at T+2 over Easter 2027 with no ON or TN: ln DF(spot) = (t_spot / t_1) ln DF(t_1) to 1e-14, and every quote reprices to 1e-14 in rate`, () => {
+      const b = buildCurve(euroDoc(method));
+      expect(b.errors).toEqual([]);
+      const gap = b.warnings.find((w) => w.code === 'spot-gap')!;
+      expect(gap.message).toMatch(/quotes\[0\] starts on 2027-03-30/);
+      const c = b.curve!;
+      const ts = c.time('2027-03-30');
+      const t1 = c.pillars[0]!.t;
+      expect(c.pillars[0]!.date).toBe('2027-04-06'); // the 1W deposit ends a week after spot; the bridge is not a pillar
+      expect(Math.abs(c.lnDiscountAt(ts) - (ts / t1) * c.lnDiscountAt(t1))).toBeLessThanOrEqual(1e-14);
+      expect(b.repricing).toHaveLength(euro.length);
+      for (const row of b.repricing) expect(Math.abs(row.repricingError)).toBeLessThanOrEqual(1e-14);
+    });
+  }
+
+  it('the same market at T+0 (gbp-sonia) has no spot gap: no warning, no bridge node, one pillar per quote', () => {
+    const sonia = euro.map((q) => ({ ...q, conventions: 'gbp-sonia' }));
+    const b = buildCurve({ ...doc(sonia, 'cubic-zero'), valuationDate: '2027-03-24' });
+    expect(b.warnings.filter((w) => w.code === 'spot-gap')).toEqual([]);
+    expect(b.curve!.pillars).toHaveLength(euro.length);
+  });
 });
+

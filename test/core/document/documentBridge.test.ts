@@ -115,14 +115,19 @@ describe('market conventions of the workbench (curve.conventions)', () => {
     expect(b.workspace!.quotes[0]).toMatchObject({ kind: 'deposit', start: '2026-12-17', maturity: '2026-12-24', calendar: 'us-gov-securities', spotLag: 2 });
     for (const r of b.repricing) expect(Math.abs(r.repricingError)).toBeLessThanOrEqual(r.unit === 'price' ? 1e-11 : 1e-14);
   });
-  it('an engine document whose deposits and swaps all name one set opens with that setting and the same curve; mixed sets are refused', () => {
+  it('an engine document whose deposits and swaps all name one set opens with that setting and the same curve; mixed sets open row by row, each in its Conventions cell, with the same curve', () => {
     const engine = toEngineDocument(wb('eur-estr')).doc;
     const back = workbenchFromEngine(engine, id);
     if (!back.ok) throw new Error(JSON.stringify(back.errors));
     expect(back.value.curve.conventions).toBe('eur-estr');
     sameCurve(buildCurve(engine).curve!, buildCurve(toEngineDocument(back.value).doc).curve!);
     const mixed = { ...engine, quotes: (engine.quotes as Record<string, unknown>[]).map((q, i) => (i === 0 ? { ...q, conventions: 'gbp-sonia' } : q)) };
-    expect(workbenchFromEngine(mixed, id).ok).toBe(false);
+    const open = workbenchFromEngine(mixed, id);
+    if (!open.ok) throw new Error(JSON.stringify(open.errors));
+    expect(open.value.curve.conventions).toBeUndefined();
+    const kinds = (mixed.quotes as Record<string, unknown>[]).map((q) => q.kind);
+    expect(open.value.quotes.map((r) => r.terms ?? '')).toEqual(kinds.map((k, i) => (i === 0 ? 'gbp-sonia' : k === 'deposit' || k === 'ois' ? 'eur-estr' : '')));
+    sameCurve(buildCurve(mixed).curve!, buildCurve(toEngineDocument(open.value).doc).curve!);
   });
   it('a set this build does not know opens the document read-only (an unknown setting), never as none', () => {
     expect(unknownSettings({ ...wb('jpy-tona'), curve: { ...wb().curve, conventions: 'jpy-tona' } })).toContainEqual(expect.objectContaining({ path: 'curve.conventions', value: '"jpy-tona"', fallback: 'none' }));

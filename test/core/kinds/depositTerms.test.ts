@@ -95,6 +95,11 @@ describe('ON, TN and SN dates (MARKET-CONVENTIONS.md section c)', () => {
     const plain = validatedOne({ kind: 'deposit', tenor: '1W', rate: 0.03 }, '2027-03-13') as DepositQuote;
     expect([plain.start, plain.maturity, plain.calendar, plain.spotLag, plain.businessDay]).toEqual(['2027-03-13', '2027-03-20', null, null, null]);
   });
+
+  it('spot from a weekend valuation date counts from the date itself: a euro deposit (eur-estr, T+2 on TARGET) valued Saturday 2026-06-20 starts Tuesday 2026-06-23, not the 24th, and its 1M ends Thursday 2026-07-23', () => {
+    // The conventions notes, section b pitfall 3 (QuantLib PR#2653 fixing #753): TARGET, Saturday 2026-06-20 + 2 = 2026-06-23.
+    expect(datesOf({ kind: 'deposit', tenor: '1M', rate: 0.021, conventions: 'eur-estr' }, '2026-06-20')).toEqual(['2026-06-23', '2026-07-23']);
+  });
 });
 
 describe('pricing: DF(S) / DF(E) = 1 + r tau; an ON and a TN quote pin DF(spot)', () => {
@@ -178,13 +183,13 @@ describe('end to end: paste, quote check, command line', () => {
     expect(tenors).toEqual(['ON', 'TN', 'SN']);
   });
 
-  it('a workspace file opens in the workbench when its ON deposit is on the sheet\'s weekends calendar, and is refused naming calendar when not', () => {
+  it('a workspace file opens in the workbench when its ON deposit is on the weekends calendar, and with "calendar target" in its Conventions cell when on TARGET', () => {
     const weekends = workbenchFromEngine(workspaceDoc([{ kind: 'deposit', tenor: 'O/N', rate: 0.03, calendar: 'weekends' }], { settlement: EASTER_WEDNESDAY }), () => 'r');
     expect(weekends.ok).toBe(true);
     if (weekends.ok) expect(weekends.value.quotes[0]!.maturity).toBe('O/N'); // the cell keeps the text as the file gave it
     const target = workbenchFromEngine(workspaceDoc([{ kind: 'deposit', tenor: 'TN', rate: 0.03, calendar: 'target' }], { settlement: EASTER_WEDNESDAY }), () => 'r');
-    expect(target.ok).toBe(false);
-    if (!target.ok) expect(target.errors[0]!.message).toMatch(/its calendar \("target"\) has no column in the sheet/);
+    if (!target.ok) throw new Error(JSON.stringify(target.errors));
+    expect(target.value.quotes[0]!.terms).toBe('calendar target');
   });
 
   it('the quote check shows a TN deposit from its start to its end, 100 (1 + r tau) at the end', () => {
