@@ -112,7 +112,10 @@ describe('a term-index swap on two curves', () => {
     expect(Math.abs(fwd(bumped) - fwd(base))).toBeGreaterThan(1e-9);
     // The deposits' nodes (closed form, ln DF = -ln(1 + r tau)) are the same to the bit.
     expect(bumped.pillars.slice(0, 2)).toEqual(base.pillars.slice(0, 2));
-    expect(bumped.pillars[2]!.discount).not.toBe(base.pillars[2]!.discount);
+    // A swap node near the bump moves (the 7Y swap discounts on the 7Y region of the OIS curve; a node
+    // as short as 1Y may stay the same to the bit, the bump being local enough under monotone convex).
+    const at = (c: Curve, tenor: number) => c.pillars.find((p) => Math.abs(p.t - tenor) < 0.05)!.discount;
+    expect(at(bumped, 7)).not.toBe(at(base, 7));
   });
 });
 

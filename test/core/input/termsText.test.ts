@@ -46,7 +46,7 @@ describe('parseTermsText(cell)', () => {
       const p = parseTermsText(t);
       return p.ok ? '' : p.message;
     };
-    expect(msg('jpy-tona')).toMatch(/"jpy-tona" is not a convention set or a field; the sets are usd-sofr, eur-estr, gbp-sonia, us-treasury, euro-govt, uk-gilt, then fields such as calendar target, spot lag 2/);
+    expect(msg('jpy-tona')).toMatch(/"jpy-tona" is not a convention set or a field; the sets are usd-sofr, eur-estr, gbp-sonia, us-treasury, euro-govt, uk-gilt, eur-euribor-3m, eur-euribor-6m, then fields such as calendar target, spot lag 2/);
     expect(msg('usd-sofr, fixing lag 2')).toMatch(/"fixing lag 2" is not a field this cell takes/);
     expect(msg('spot lag 1.5')).toMatch(/spot lag takes a whole number of business days, such as spot lag 2, not "1.5"/);
     expect(msg('spot lag 1, spot lag 2')).toMatch(/spot lag is given twice/);
