@@ -55,11 +55,12 @@ const CSP = [
  * The UI imports the core through its index, so every core module is "reached" from the entry;
  * LATER_ONLY names those the first screen never runs: money in decimal.js, the roll analysis, the
  * smooth fit, the quote check's schedules, the explanations, the scenarios' reference reader, the
- * overnight view and the bond analytics. Were one of them run on the first screen, `later` would be
+ * overnight view, the bond analytics, the Holidays and Fixings sections' readers, the paste's table
+ * reader and the workspace list file. Were one of them run on the first screen, `later` would be
  * imported by `first` and the first-load budget test (test/browser/security.test.ts) would fail; a
  * core module used only later and missing here costs first-load bytes, nothing else.
  */
-const LATER_ONLY = /node_modules\/decimal\.js\/|src\/core\/roll\/|src\/core\/fit\/(?!parametricForm)|src\/core\/input\/quoteSchedule\.ts|src\/core\/curve\/explain|src\/core\/analytics\/explainRisk\.ts|src\/core\/scenarios\/scenarioReference\.ts|src\/core\/curve\/overnightView\.ts|src\/core\/analytics\/(bondInput|bondAnalytics|zSpread|quoteDv01|sensitivityMap)\.ts/;
+const LATER_ONLY = /node_modules\/decimal\.js\/|src\/core\/roll\/|src\/core\/fit\/(?!parametricForm)|src\/core\/input\/quoteSchedule\.ts|src\/core\/curve\/explain|src\/core\/analytics\/explainRisk\.ts|src\/core\/scenarios\/scenarioReference\.ts|src\/core\/curve\/overnightView\.ts|src\/core\/analytics\/(bondInput|bondAnalytics|zSpread|quoteDv01|sensitivityMap)\.ts|src\/core\/time\/calendarEdits\.ts|src\/core\/document\/listFile\.ts|src\/core\/input\/pasteTable\.ts|src\/core\/input\/fixingList\.ts/;
 
 function appChunk(id: string, ctx: { getModuleInfo(id: string): { isEntry: boolean; importers: readonly string[]; dynamicImporters: readonly string[] } | null }): string | null {
   if (LATER_ONLY.test(id)) return 'later';
