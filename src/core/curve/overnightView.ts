@@ -16,9 +16,21 @@ import { resolveMarketDate } from '../time/dateConventions.ts';
 /** The convention of every rate here: simple, ACT/360, over one calendar day. */
 export const OVERNIGHT_CONVENTION = { compounding: 'simple', dayCount: 'ACT/360' } as const;
 
-/** One day's forward on a curve read through `ln` (ln DF at curve time), simple ACT/360. */
+/**
+ * One day's forward on a curve read through `ln` (ln DF at curve time), simple ACT/360. On a curve
+ * log-linear in discount factors with an actual-day axis (every meeting-step curve on ACT/365F or
+ * ACT/360), nodes sit on dates, so a day lies inside one segment and its forward is one number:
+ * ln DF(d) - ln DF(d + 1) = f x (1 / basis), read as the segment's forward times the day's exact
+ * length, not as a difference of two rounded ln DF (about 1e-13 relative against about 1e-16).
+ */
 function oneDay(curve: Curve, ln: (t: number) => number, date: IsoDate): number {
-  return Math.expm1(ln(curve.time(date)) - ln(curve.time(dayAfter(date)))) * 360;
+  const t0 = curve.time(date);
+  const basis = curve.dayCount === 'ACT/365F' ? 365 : curve.dayCount === 'ACT/360' ? 360 : 0;
+  if (ln === curve.lnDiscountAt && curve.interpolation === 'log-linear-discount' && basis > 0) {
+    const day = 1 / basis;
+    return Math.expm1(curve.forwardAt(t0 + day / 2) * day) * 360;
+  }
+  return Math.expm1(ln(t0) - ln(curve.time(dayAfter(date)))) * 360;
 }
 
 /** The one-day forward from `date` to the next calendar day, simple ACT/360 (turns included). */
@@ -60,7 +72,8 @@ export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>)
   const shape = build.overnight;
   if (curve === null || shape === undefined) return [];
   const spans: readonly TurnSpan[] = shape.turns;
-  const smooth = (t: number): number => curve.lnDiscountAt(t) - turnLn(spans, t);
+  // Without turns the smooth curve is the curve, read as the view reads it (oneDay).
+  const smooth = spans.length === 0 ? curve.lnDiscountAt : (t: number): number => curve.lnDiscountAt(t) - turnLn(spans, t);
   return shape.meetings.map((m) => {
     const before = oneDay(curve, smooth, dayBefore(m.date));
     const after = oneDay(curve, smooth, m.date);
