@@ -197,7 +197,7 @@ const FIELD_COLUMN: Readonly<Record<string, QuoteColumn>> = {
   tenor: 'maturity', maturity: 'maturity', kind: 'kind',
   // An FRA's Maturity cell holds its period; its index must agree with it.
   period: 'maturity', index: 'maturity',
-  conventions: 'terms', calendar: 'terms', spotLag: 'terms', businessDay: 'terms', paymentLag: 'terms', eom: 'terms', floatDayCount: 'terms',
+  conventions: 'terms', calendar: 'terms', spotLag: 'terms', businessDay: 'terms', paymentLag: 'terms', eom: 'terms', floatDayCount: 'terms', convexity: 'terms',
 };
 
 /** The sheet cell an engine error points at (`quotes[3].cleanPrice` -> price); `kind` for a whole-quote error. */

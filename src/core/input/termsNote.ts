@@ -4,7 +4,7 @@ import { parseDayCountText, parseFrequencyText } from './quoteText.ts';
 import type { RowTerms, TermField } from './termsText.ts';
 
 /** TERM_FIELDS of termsText.ts, in its order (repeated so this chunk imports nothing of that module). */
-const TERM_FIELDS: readonly TermField[] = ['calendar', 'spotLag', 'businessDay', 'paymentLag', 'eom', 'floatDayCount'];
+const TERM_FIELDS: readonly TermField[] = ['calendar', 'spotLag', 'businessDay', 'paymentLag', 'eom', 'floatDayCount', 'convexity'];
 
 /**
  * What a row's conventions come to, for the sheet: the set that fills its fields (its own, else
@@ -28,6 +28,7 @@ const FIELD_LABEL: Readonly<Record<string, string>> = {
   paymentLag: 'payment lag',
   eom: 'eom',
   floatDayCount: 'float day count',
+  convexity: 'convexity (bp)',
   frequency: 'frequency',
   dayCount: 'day count',
 };

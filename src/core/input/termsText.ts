@@ -1,5 +1,6 @@
 import { CONVENTION_SET_IDS } from '../kinds/conventionSets.ts';
 import { parseDayCountText, type CellParse } from './quoteText.ts';
+import { exactDecimal, normaliseNumberText } from './decimalText.ts';
 
 /**
  * The sheet's Conventions cell: a quote's convention set and the date terms it overrides or adds,
@@ -16,7 +17,7 @@ export interface RowTerms {
 }
 
 /** The engine fields the cell can hold besides the set, in the order it is written. */
-export const TERM_FIELDS = ['calendar', 'spotLag', 'businessDay', 'paymentLag', 'eom', 'floatDayCount'] as const;
+export const TERM_FIELDS = ['calendar', 'spotLag', 'businessDay', 'paymentLag', 'eom', 'floatDayCount', 'convexity'] as const;
 export type TermField = (typeof TERM_FIELDS)[number];
 
 /** Each field's words in the cell (the first is how it is written back). */
@@ -27,6 +28,8 @@ const WORDS: Readonly<Record<TermField, readonly string[]>> = {
   paymentLag: ['payment lag', 'paymentlag'],
   eom: ['eom', 'month end'],
   floatDayCount: ['float day count', 'floatdaycount'],
+  // A future's convexity adjustment in bp (the futures rate minus the forward rate), typed per contract.
+  convexity: ['convexity'],
 };
 
 /** The field words for people: the examples every message offers. */
@@ -35,6 +38,7 @@ const EXAMPLES = 'calendar target, spot lag 2, rule modified-following, payment 
 /** How a field and its value are written in the cell. */
 function writeField(f: TermField, v: string | number | boolean): string {
   if (f === 'eom') return v === true ? 'eom on' : 'eom off';
+  if (f === 'convexity') return `convexity ${String(v)}bp`;
   return `${WORDS[f][0]} ${String(v)}`;
 }
 
@@ -95,6 +99,12 @@ export function parseTermsText(text: string): CellParse<RowTerms> {
         if (s === '' || s === 'on' || s === 'yes' || s === 'true') fields.eom = true;
         else if (s === 'off' || s === 'no' || s === 'false') fields.eom = false;
         else return bad(`eom is on or off (the end-of-month rule), not "${v}"`);
+        break;
+      }
+      case 'convexity': {
+        const d = exactDecimal(normaliseNumberText(v.replace(/\s*bps?$/i, '')));
+        if (d === null) return bad(`convexity takes basis points, such as convexity 0.5bp (a future's futures rate minus its forward rate), not "${v}"`);
+        fields.convexity = d.toNumber();
         break;
       }
       case 'floatDayCount': {

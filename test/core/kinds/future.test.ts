@@ -15,6 +15,7 @@ import {
   luInverse,
   modelYieldNodeJacobian,
   parseRow,
+  toEngineDocument,
   workbenchFromEngine,
   quoteNodeJacobian,
   compileQuote,
@@ -578,14 +579,25 @@ describe('a future in the sheet', () => {
     expect(byRate.issues.rate?.message).toMatch(/quoted by its futures price in the Price column/);
   });
 
-  it('opens an engine file of futures in the workbench and writes it back unchanged; refuses one with a convexity (no column)', () => {
+  it('opens an engine file of futures in the workbench and writes it back unchanged, a typed convexity in the row\'s Conventions cell', () => {
     const quotes: RawQuote[] = [{ kind: 'future', month: '2027-03', price: 96.38 }, { kind: 'future', contract: '1M', month: '2027-01', price: 96.2 }];
     const wb = workbenchFromEngine(workspaceDoc(quotes, { settlement: VALUATION }), () => 'r');
     expect(wb.ok).toBe(true);
     if (wb.ok) expect(wb.value.quotes.map((r) => r.maturity)).toEqual(['2027-03', '2027-01 1M']);
-    const withConvexity = workbenchFromEngine(workspaceDoc([{ kind: 'future', month: '2027-03', price: 96.38, convexity: 0.5 }], { settlement: VALUATION }), () => 'r');
-    expect(withConvexity.ok).toBe(false);
-    if (!withConvexity.ok) expect(withConvexity.errors[0]!.message).toMatch(/convexity .*has no column in the sheet/);
+    const file = workspaceDoc([{ kind: 'future', month: '2027-03', price: 96.38, convexity: 0.5 }, { kind: 'ois', tenor: '2Y', rate: 0.0345 }], { settlement: VALUATION });
+    const withConvexity = workbenchFromEngine(file, () => 'r');
+    expect(withConvexity.ok).toBe(true);
+    if (!withConvexity.ok) return;
+    expect(withConvexity.value.quotes[0]!.terms).toBe('convexity 0.5bp');
+    // The sheet's reading of that cell is the file's quote: the same adjustment, the same curve.
+    const again = buildCurve(toEngineDocument(withConvexity.value).doc);
+    expect((again.workspace!.quotes[0] as FutureQuote).convexity).toBe(0.5);
+    expect(again.curve!.pillars.map((p) => p.discount)).toEqual(buildCurve(file).curve!.pillars.map((p) => p.discount));
+    // A typed adjustment wins over the curve's model; on a row of another kind the engine names the cell.
+    const typed = parseRow({ id: 'a', enabled: true, kind: 'future', maturity: '2027-03', rate: '', price: '96.38', coupon: '', frequency: '', dayCount: '', terms: 'convexity 1.25 bp' }, 'percent');
+    expect(typed.quote).toMatchObject({ kind: 'future', convexity: 1.25 });
+    const wrong = parseRow({ id: 'b', enabled: true, kind: 'future', maturity: '2027-03', rate: '', price: '96.38', coupon: '', frequency: '', dayCount: '', terms: 'convexity half' }, 'percent');
+    expect(JSON.stringify(wrong.issues.terms)).toMatch(/convexity takes basis points, such as convexity 0\.5bp/);
   });
 });
 
