@@ -33,6 +33,7 @@ import {
   BUILT_IN_CALENDARS,
   zeroOn,
   buildNamedCurves,
+  discountedOnOf,
   readNamedCurves,
   type Curve,
   type CurveBuild,
@@ -587,10 +588,13 @@ function namedCurveOutput(ws: Workspace, defaultCurve: Curve, opts: Options): { 
     }
     const quoteAt: Quote[] = [];
     for (const q of b.workspace?.quotes ?? []) quoteAt[q.index] = q;
-    const quotes: QuoteOut[] = b.repricing.map((r) => {
+    // Which curve discounted each quote (a swap's discounting curve; null for a quote fixing its own curve's ratio).
+    const discountedOn: (string | null)[] = [];
+    for (const ins of b.instruments) discountedOn[ins.index] = discountedOnOf(ins);
+    const quotes: (QuoteOut & { discountedOn: string | null })[] = b.repricing.map((r) => {
       const q = quoteAt[r.index];
       const d = q && moduleOf(q).dates !== undefined ? quoteDates(q, ws.settlement) : null;
-      return { index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError, start: d ? d.start : ws.settlement, end: d ? d.end : (q?.maturity ?? r.maturity), pillar: r.maturity, payment: d ? d.payment : null };
+      return { index: r.index, kind: r.kind, maturity: r.maturity, t: r.t, unit: r.unit, repricingError: r.repricingError, start: d ? d.start : ws.settlement, end: d ? d.end : (q?.maturity ?? r.maturity), pillar: r.maturity, payment: d ? d.payment : null, discountedOn: discountedOn[r.index] ?? null };
     });
     const numbers = [...points.flatMap((p) => [p.t, p.discount, p.zero]), ...forwards.flatMap((f) => [f.tau, f.rate]), ...quotes.flatMap((q) => [q.t, q.repricingError])];
     if (!numbers.every(Number.isFinite)) errors.push({ path: where, quote: null, code: 'no-solution', message: `${where} "${n.name}": a result is not a finite number; check its quotes and the dates asked for` });

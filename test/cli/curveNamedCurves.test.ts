@@ -46,6 +46,10 @@ describe('curve on a document with named curves', () => {
     expect(p.points.map((x: { discount: number }) => x.discount)).toEqual(c.pillars.map((x) => x.discount));
     expect(p.quotes.map((q: { repricingError: number }) => q.repricingError)).toEqual(named!.build.repricing.map((x) => x.repricingError));
     for (const q of p.quotes) expect(Math.abs(q.repricingError)).toBeLessThanOrEqual(1e-14);
+    // Which curve discounted each quote: the term-index swaps the discounting curve; the deposit, which
+    // fixes its own curve's DF ratio, none; the government curve's zeros none.
+    expect(p.quotes.map((q: { kind: string; discountedOn: string | null }) => [q.kind, q.discountedOn])).toEqual([['deposit', null], ['swap', 'default'], ['swap', 'default']]);
+    expect(curves.govt.quotes.map((q: { discountedOn: string | null }) => q.discountedOn)).toEqual([null, null]);
     expect(p.forwards).toHaveLength(1);
     expect(p.forwards[0].rate).not.toBe(o.forwards[0].rate);
   });

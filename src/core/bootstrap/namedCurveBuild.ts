@@ -95,3 +95,10 @@ function located(build: CurveBuild, c: WorkspaceCurve): CurveBuild {
   const at = <T extends CoreError | CoreWarning>(e: T): T => ({ ...e, path: `${base}.${e.path}`, message: `${label}${e.message}` });
   return { ...build, errors: build.errors.map(at), warnings: build.warnings.map(at) };
 }
+
+/**
+ * The curve a named curve's instrument was discounted on: a term-index or basis swap's discounting
+ * curve, or null for a quote that fixes its own curve's discount-factor ratio (a deposit, FRA or
+ * future) and so reads no other curve.
+ */
+export const discountedOnOf = (ins: Instrument): string | null => (ins instanceof ProjectedSwap ? ins.discountedOn : null);
