@@ -28,13 +28,13 @@ const BASE_TABS: readonly TabDef[] = [
       </>
     )),
   },
-  { id: 'forward-strip', label: 'Forward strip', render: needCurve((r) => <ForwardStripTable curve={r.build.curve!} />) },
+  { id: 'forward-strip', label: 'Forward strip', render: needCurve((r) => <ForwardStripTable curve={r.build.curve!} result={r} />) },
   {
     id: 'forward-grid',
     label: 'Forward grid',
     render: needCurve((r) => (
       <Suspense fallback={<p className="muted small" role="status">Loading the forward grid…</p>}>
-        <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} />
+        <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} result={r} />
       </Suspense>
     )),
   },

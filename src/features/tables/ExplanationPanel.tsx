@@ -2,13 +2,13 @@ import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from 
 import { fullText, type DisplaySettings } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
-import { explainKeyCell, type KeyCell } from './explainCell.ts';
+import { explainKeyCell, type ExplainCell } from './explainCell.ts';
 import './explanation.css';
 
 interface Props {
   readonly result: WorkbenchBuild;
   readonly display: DisplaySettings;
-  readonly cell: KeyCell;
+  readonly cell: ExplainCell;
   readonly onClose: () => void;
   /** Writes to the clipboard; default navigator.clipboard.writeText. */
   readonly writeText?: (text: string) => Promise<void>;
