@@ -42,12 +42,12 @@ export interface DatedCell {
   readonly field: 'zero' | 'forward' | 'forwardPar';
   /** ISO date: the zero rate's date, or the forward's start. */
   readonly start: string;
-  /** ISO date: the forward's end (unused for a zero rate). */
+  /** ISO date: the forward's end (unused for a zero rate); a forward without one runs the display's forward tenor. */
   readonly end?: string;
   /** The fixed leg of a forward par rate. */
   readonly leg?: FixedLegConvention;
-  /** The panel's heading, e.g. "3M forward rate, period 4 of the strip". */
-  readonly title: string;
+  /** The panel's heading, e.g. "3M forward rate, period 4 of the strip"; by default the number's name and dates. */
+  readonly title?: string;
 }
 
 /** Any number the explanation panel explains. */
@@ -99,7 +99,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
     end = marketDate(date, parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' });
   } else {
     date = cell.start;
-    end = cell.end ?? cell.start;
+    end = cell.end ?? (cell.field === 'forward' ? marketDate(date, parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' }) : date);
   }
   const { compounding: c, dayCount: dc, parFrequency } = display;
   const leg = 'tenor' in cell ? undefined : cell.leg;
@@ -141,7 +141,9 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
   // The workspace's document built under each method, as the workbench builds it (skipping wrong rows).
   const methods = valueUnderEachMethod(curve.interpolation, (method: InterpolationId) => buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: method }), read);
-  const title = !('tenor' in cell) ? cell.title : cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
+  const title =
+    !('tenor' in cell) ? (cell.title ?? (cell.field === 'zero' ? `Zero rate on ${date}` : `${display.forwardTenor} forward rate starting ${date} (${date} to ${end})`))
+    : cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
   const extras = {
     title,
     quoteLabel: (index: number) => rowWords(rowOf(index)),
