@@ -7,7 +7,7 @@
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
-import { forwardOn, forwardParRateOn, forwardStrip, fullText, marketDate, parseTenor } from '../../src/core/index.ts';
+import { forwardOn, forwardParRateOn, forwardStrip, fullText, marketDate, parseTenor, topParQuoteInfluences } from '../../src/core/index.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { swapConvention } from '../../src/features/tables/ForwardGridTable.tsx';
@@ -21,7 +21,7 @@ beforeEach(() => {
 });
 
 /** Opens a number by focus and Enter, checks the panel's value and last step against `expected`, closes by Escape. */
-async function openReadClose(user: ReturnType<typeof userEvent.setup>, button: HTMLElement, panelName: RegExp, expected: number): Promise<void> {
+async function openReadClose(user: ReturnType<typeof userEvent.setup>, button: HTMLElement, panelName: RegExp, expected: number, more?: (panel: HTMLElement) => void): Promise<void> {
   button.focus();
   await user.keyboard('{Enter}');
   const panel = await screen.findByRole('complementary', { name: panelName });
@@ -30,6 +30,7 @@ async function openReadClose(user: ReturnType<typeof userEvent.setup>, button: H
   expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(expected));
   const steps = within(panel).getByRole('region', { name: 'Steps' });
   expect(within(steps).getAllByRole('listitem').at(-1)!.textContent).toContain(`= ${fullText(expected)}`);
+  more?.(panel);
   await user.keyboard('{Escape}');
   expect(screen.queryByRole('complementary', { name: panelName })).not.toBeInTheDocument();
   expect(button).toHaveFocus();
@@ -69,7 +70,16 @@ describe('explanations in the forward tables', () => {
     const par = forwardParRateOn(curve, start, end, conv.frequency, conv.dayCount, conv.eom);
     if (!par.ok) throw new Error('par');
     const parButton = within(table.querySelector('[data-cell="2Yx5Y"]') as HTMLElement).getByRole('button', { name: /explain the 2Y into 5Y forward par swap rate/ });
-    await openReadClose(user, parButton, /2Y into 5Y forward par swap rate/, par.value.rate);
+    // Its quotes: the core's par sensitivities (checked against bumped rebuilds in test/core/analytics/explainRisk.test.ts), each a link to its row.
+    const top = topParQuoteInfluences(curve, build.instruments, start, end, conv.frequency, conv.dayCount, conv.eom);
+    if (!top.ok) throw new Error('par quotes');
+    await openReadClose(user, parButton, /2Y into 5Y forward par swap rate/, par.value.rate, (panel) => {
+      const quotes = within(panel).getByRole('region', { name: 'Quotes it depends on most' });
+      const items = within(quotes).getAllByRole('listitem');
+      expect(items).toHaveLength(5);
+      expect(items[0]!.textContent).toContain(fullText(top.value[0]!.bpPerBp));
+      expect(within(items[0]!).getByRole('button', { name: /^Row \d+:/ })).toBeInTheDocument();
+    });
 
     await user.click(screen.getByRole('radio', { name: 'Forward zero rates' }));
     const fwd = forwardOn(curve, start, end, doc.display.compounding, doc.display.dayCount);

@@ -9,6 +9,7 @@ import {
   marketDate,
   parseTenor,
   parYieldOn,
+  topParQuoteInfluences,
   topQuoteInfluences,
   valueUnderEachMethod,
   zeroOn,
@@ -126,13 +127,9 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const instruments = result.build.instruments;
   let quotesNote: string | null = null;
   let influences: Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
-  if (cell.field === 'par') {
-    influences = { ok: true, value: [] };
-    quotesNote = 'not computed for par yields';
-  } else if (cell.field === 'forwardPar') {
-    influences = { ok: true, value: [] };
-    quotesNote = 'not computed for forward par rates';
-  } else if (cell.field === 'discount') {
+  if (cell.field === 'par') influences = topParQuoteInfluences(curve, instruments, curve.settlement, date, parFrequency, 'ACT/ACT-ICMA');
+  else if (cell.field === 'forwardPar') influences = topParQuoteInfluences(curve, instruments, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false);
+  else if (cell.field === 'discount') {
     influences = topQuoteInfluences(curve, instruments, curve.settlement, date, 'continuous', curve.dayCount);
     quotesNote = `of its continuously compounded zero rate on ${curve.dayCount} (DF = exp(-z t))`;
   } else if (cell.field === 'zero') influences = topQuoteInfluences(curve, instruments, curve.settlement, date, c, dc);
