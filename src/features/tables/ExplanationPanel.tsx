@@ -15,7 +15,8 @@ interface Props {
 }
 
 /**
- * The explanation of one key-maturity number, beside the table (a panel, not a modal): its
+ * The explanation of one number (a key maturity, a forward of the strip or grid, a chart's point),
+ * beside its table or chart (a panel, not a modal): its
  * definition with the conventions filled in, the inputs, the steps ending in the number to all
  * digits, the quotes it depends on most (each a link to its sheet row), its value under each
  * method, and Copy as text. Every figure comes from the core (explainKeyCell); loaded on first use.
