@@ -1,6 +1,5 @@
 import { lazy, Suspense, useDeferredValue, useRef, type KeyboardEvent, type ReactNode } from 'react';
 import { CurveTableExport } from '../features/tables/CurveTableExport.tsx';
-import { ForwardStripTable } from '../features/tables/ForwardStripTable.tsx';
 import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
 import { useAppStore } from '../state/store.ts';
@@ -8,7 +7,8 @@ import type { WorkbenchTab } from './extensions.tsx';
 
 type TabDef = WorkbenchTab;
 
-/** The forward grid's, the forward calculator's and the quote check's code is fetched the first time their tab opens (their own chunks), so the first load carries less. */
+/** The forward strip's, the forward grid's, the forward calculator's and the quote check's code is fetched the first time their tab opens (their own chunks), so the first load carries less. */
+const ForwardStripTable = lazy(() => import('../features/tables/lazyTables.ts').then((m) => ({ default: m.ForwardStripTable })));
 const ForwardGridTable = lazy(() => import('../features/tables/lazyTables.ts').then((m) => ({ default: m.ForwardGridTable })));
 const ForwardCalculator = lazy(() => import('../features/tables/lazyTables.ts').then((m) => ({ default: m.ForwardCalculator })));
 /** The quote check (with the schedules and their exact money rounding) loads on first use too. */
@@ -28,13 +28,21 @@ const BASE_TABS: readonly TabDef[] = [
       </>
     )),
   },
-  { id: 'forward-strip', label: 'Forward strip', render: needCurve((r) => <ForwardStripTable curve={r.build.curve!} />) },
+  {
+    id: 'forward-strip',
+    label: 'Forward strip',
+    render: needCurve((r) => (
+      <Suspense fallback={<p className="muted small" role="status">Loading the forward strip…</p>}>
+        <ForwardStripTable curve={r.build.curve!} result={r} />
+      </Suspense>
+    )),
+  },
   {
     id: 'forward-grid',
     label: 'Forward grid',
     render: needCurve((r) => (
       <Suspense fallback={<p className="muted small" role="status">Loading the forward grid…</p>}>
-        <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} />
+        <ForwardGridTable curve={r.build.curve!} workspace={r.build.workspace} result={r} />
       </Suspense>
     )),
   },

@@ -1,4 +1,4 @@
-import { memo, useId, useMemo, type KeyboardEvent, type PointerEvent } from 'react';
+import { memo, useId, useMemo, useState, type KeyboardEvent, type PointerEvent } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, line } from 'd3-shape';
 import { formatAxisPercent, formatNumber, formatPercent, type MaturityAxis } from '../core/index.ts';
@@ -37,6 +37,8 @@ export interface RateChartProps {
   readonly axis: MaturityAxis;
   readonly xLabel: string;
   readonly yLabel: string;
+  /** With it, a button beside the readout opens the explanation of the first line's point last read ("zero rate", "3M forward rate"). */
+  readonly explain?: { readonly words: string; readonly open: (point: SamplePoint, button: HTMLElement) => void };
 }
 
 /** No pillar ticks (one list, so PillarTicks stays memoised). */
@@ -206,6 +208,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
         <span className="sr-only">{description} </span>
         <Readout lines={lines} />
       </figcaption>
+      {props.explain && <ExplainPoint points={lines[0]?.points ?? []} {...props.explain} />}
     </figure>
   );
 });
@@ -270,5 +273,21 @@ function Readout({ lines }: { lines: readonly ChartLine[] }) {
         );
       })}
     </span>
+  );
+}
+
+/**
+ * "Explain" beside the readout: the first line's point last read (by pointer or keyboard; kept when
+ * the pointer leaves the chart or the focus moves to the button) opens its explanation.
+ */
+function ExplainPoint({ points, words, open }: { points: readonly SamplePoint[]; words: string; open: (p: SamplePoint, button: HTMLElement) => void }) {
+  const hx = useHoverX();
+  const [last, setLast] = useState<number | null>(null);
+  if (hx !== null && hx !== last) setLast(hx);
+  const p = last === null ? undefined : points[nearestIndex(points, last)];
+  return (
+    <button type="button" className="linklike small chart-explain" disabled={!p} onClick={(e) => p && open(p, e.currentTarget)}>
+      {p ? `Explain the ${words} at ${formatNumber(p.x, 2)}y (${p.date})` : `Explain a ${words}: read a point first`}
+    </button>
   );
 }

@@ -5,8 +5,10 @@ import { INTERPOLATORS } from '../interpolation/registry.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
-import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
-import { forwardSensitivities } from './forwardSensitivity.ts';
+import { queryYearFraction, type CurveDayCount, type DayCount } from '../time/dayCount.ts';
+import { forwardSensitivities, quoteNodeJacobian } from './forwardSensitivity.ts';
+import { fixedLegPeriods } from '../instruments/swap.ts';
+import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 
 /** A quote a number depends on, and how much. */
 export interface QuoteInfluence {
@@ -46,6 +48,63 @@ export function topQuoteInfluences(
   if (!map.ok) return map;
   const { columns, values } = map.value;
   const all = columns.map((col, k) => ({ index: col.index, kind: col.kind, maturity: col.maturity, yieldLabel: col.yieldLabel, bpPerBp: values[k]! }));
+  all.sort((a, b) => Math.abs(b.bpPerBp) - Math.abs(a.bpPerBp) || a.index - b.index);
+  return ok(all.slice(0, count));
+}
+
+/**
+ * The quotes a forward par rate from `start` to `end` on a fixed leg (frequency, dc, eom, as
+ * forwardParRateOn schedules it) depends on most; a par yield with start = settlement and dc =
+ * ACT/ACT-ICMA (parYieldOn). With R = (DF(s) - DF(e)) / A, A = sum_i tau_i DF(t_i), its
+ * derivatives in ln DF are dR/dlnDF(s) = DF(s)/A, dR/dlnDF(e) = -DF(e)/A and
+ * dR/dlnDF(t_i) = -R tau_i DF(t_i)/A (added up where dates coincide); chained to the quotes as
+ * forwardSensitivities chains a forward (implicit-function rule on the exact bootstrap). bp per
+ * bp of the quote's own yield, the `count` largest by size, largest first.
+ */
+export function topParQuoteInfluences(
+  curve: Curve,
+  instruments: readonly Instrument[],
+  start: IsoDate,
+  end: IsoDate,
+  frequency: number,
+  dc: DayCount,
+  eom = false,
+  count = 5,
+): Result<QuoteInfluence[]> {
+  const n = instruments.length;
+  if (n !== curve.pillars.length) return fail(coreError('schema', 'quotes', `the curve has ${curve.pillars.length} pillars but ${n} quotes were given; pass the quotes the curve was built from`));
+  if (compareIso(end, start) <= 0) return fail(coreError('empty-period', 'end', `${start} to ${end} is an empty period; the end must come after the start`));
+  const df = (t: number): number => Math.exp(curve.lnDiscountAt(t));
+  const periods = fixedLegPeriods(start, end, frequency, dc, eom);
+  const tS = curve.time(start);
+  const tE = curve.time(end);
+  const times: number[] = [];
+  const weights: number[] = [];
+  let annuity = 0;
+  for (const p of periods) annuity += p.tau * df(curve.time(p.end));
+  const rate = (df(tS) - df(tE)) / annuity;
+  // Settlement's DF is 1 whatever the nodes: no weight there.
+  if (tS > 0) (times.push(tS), weights.push(df(tS) / annuity));
+  times.push(tE);
+  weights.push(-df(tE) / annuity);
+  for (const p of periods) {
+    const t = curve.time(p.end);
+    times.push(t);
+    weights.push((-rate * p.tau * df(t)) / annuity);
+  }
+  const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, times);
+  const lu = luFactor(jacobian, n);
+  if (!lu) return fail(coreError('no-solution', 'quotes', 'the quotes do not determine the curve nodes one to one (a singular Jacobian); check for quotes that repeat the same information'));
+  const inv = luInverse(lu);
+  const g = new Float64Array(n);
+  weights.forEach((w, k) => {
+    for (let j = 0; j < n; j++) g[j] = g[j]! + w * extraPartials[k * n + j]!;
+  });
+  const all = instruments.map((ins, k) => {
+    let v = 0;
+    for (let j = 0; j < n; j++) v += g[j]! * inv[j * n + k]!;
+    return { index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: yields[k]!.label, bpPerBp: v };
+  });
   all.sort((a, b) => Math.abs(b.bpPerBp) - Math.abs(a.bpPerBp) || a.index - b.index);
   return ok(all.slice(0, count));
 }

@@ -1,3 +1,4 @@
+import { useMemo, useRef, useState } from 'react';
 import { INTERPOLATORS, couponTag, rateTag } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
 import { BASE_STYLES, METHOD_STYLES, SCENARIO_OVERLAY_MAX } from '../../charts/palette.ts';
@@ -8,6 +9,9 @@ import { useScenarioOverlay } from '../scenarios/useScenarioOverlay.ts';
 import { ComparisonControls } from '../compare/ComparisonControls.tsx';
 import { useComparisonOverlay } from '../compare/useComparisonOverlay.ts';
 import { useAppStore } from '../../state/store.ts';
+import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
+import type { DatedCell } from '../tables/explainCell.ts';
+import { OpenExplanation } from '../tables/explainOpener.tsx';
 
 /** The zero and forward charts side by side on a shared maturity axis. */
 export function CurvesPanel({ result, deferredResult = result }: { result: WorkbenchBuild; deferredResult?: WorkbenchBuild }) {
@@ -19,6 +23,19 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
   const scenarioLines = useScenarioOverlay(deferredResult);
   // Snapshots, the reference curve and the smooth fit chosen in the view (compare feature), from the deferred build.
   const comparisons = useComparisonOverlay(deferredResult);
+  // The point of a chart whose zero rate or forward is explained, and the button that opened it.
+  const [explained, setExplained] = useState<DatedCell | null>(null);
+  const opener = useRef<HTMLElement | null>(null);
+  const explainAs = (field: DatedCell['field'], words: string) => ({
+    words,
+    open: (p: SamplePoint, button: HTMLElement) => {
+      opener.current = button;
+      setExplained({ field, start: p.date });
+    },
+  });
+  // Kept across renders, so the memoised charts do not draw again for them.
+  const explainZero = useMemo(() => explainAs('zero', 'zero rate'), []);
+  const explainForward = useMemo(() => explainAs('forward', `${display.forwardTenor} forward`), [display.forwardTenor]);
   if (!curve || !series) {
     return (
       <section className="panel charts-panel" aria-label="Charts">
@@ -69,6 +86,7 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
             axis={display.axis}
             xLabel={xLabel}
             yLabel={`Rate (%, ${tag})`}
+            explain={explainZero}
           />
           <div className="chart-notes" />
         </div>
@@ -87,6 +105,7 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
             axis={display.axis}
             xLabel={`Forward start (years from settlement, ${curve.dayCount})`}
             yLabel={`Forward rate (%, ${tag})`}
+            explain={explainForward}
           />
           <div className="chart-notes">
             {pending > 0 && <p className="muted small">Building the other methods… ({overlay.length} of 5)</p>}
@@ -100,6 +119,15 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
           </div>
         </div>
       </div>
+      <OpenExplanation
+        result={result}
+        display={display}
+        cell={explained}
+        onClose={() => {
+          setExplained(null);
+          opener.current?.focus();
+        }}
+      />
     </section>
   );
 }

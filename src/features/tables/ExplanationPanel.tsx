@@ -2,20 +2,21 @@ import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from 
 import { fullText, type DisplaySettings } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
-import { explainKeyCell, type KeyCell } from './explainCell.ts';
+import { explainKeyCell, type ExplainCell } from './explainCell.ts';
 import './explanation.css';
 
 interface Props {
   readonly result: WorkbenchBuild;
   readonly display: DisplaySettings;
-  readonly cell: KeyCell;
+  readonly cell: ExplainCell;
   readonly onClose: () => void;
   /** Writes to the clipboard; default navigator.clipboard.writeText. */
   readonly writeText?: (text: string) => Promise<void>;
 }
 
 /**
- * The explanation of one key-maturity number, beside the table (a panel, not a modal): its
+ * The explanation of one number (a key maturity, a forward of the strip or grid, a chart's point),
+ * beside its table or chart (a panel, not a modal): its
  * definition with the conventions filled in, the inputs, the steps ending in the number to all
  * digits, the quotes it depends on most (each a link to its sheet row), its value under each
  * method, and Copy as text. Every figure comes from the core (explainKeyCell); loaded on first use.

@@ -3,6 +3,9 @@ import { setViewValues, viewText } from '../../state/viewValues.ts';
 import { fixedLegConvention, forwardOn, forwardParRateOn, marketDate, parseTenor, type Curve, type FixedLegConvention, type Workspace, couponTag, formatPercent, rateTag } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 import { EditLock } from '../../components/EditLock.tsx';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import type { DatedCell } from './explainCell.ts';
+import { OpenExplanation, useExplainOpener } from './explainOpener.tsx';
 
 const DEFAULT_STARTS = ['1Y', '2Y', '5Y', '10Y'];
 const DEFAULT_TENORS = ['1Y', '2Y', '5Y', '10Y'];
@@ -24,8 +27,8 @@ export function swapConvention(ws: Workspace | null): FixedLegConvention {
   return fixedLegConvention(ws?.quotes ?? []);
 }
 
-/** Forward-starting par swap rates (start x tenor, as desks read 1y1y, 5y5y), or forward zero rates. */
-export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace: Workspace | null }) {
+/** Forward-starting par swap rates (start x tenor, as desks read 1y1y, 5y5y), or forward zero rates; with the build, each rate opens its explanation. */
+export function ForwardGridTable({ curve, workspace, result }: { curve: Curve; workspace: Workspace | null; result?: WorkbenchBuild }) {
   const doc = useAppStore((s) => s.workspace);
   const display = doc.display;
   const [mode, setMode] = useState<'par' | 'zero'>('par');
@@ -44,12 +47,20 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
         const start = marketDate(curve.settlement, parseTenor(s)!);
         return TENORS.map((t) => {
           const end = marketDate(start, parseTenor(t)!);
+          const cell: DatedCell = {
+            field: mode === 'par' ? 'forwardPar' : 'forward',
+            start,
+            end,
+            ...(mode === 'par' ? { leg: conv } : {}),
+            title: `${s} into ${t} ${mode === 'par' ? 'forward par swap rate' : 'forward rate'} (${start} to ${end})`,
+          };
           const r = mode === 'par' ? forwardParRateOn(curve, start, end, conv.frequency, conv.dayCount, conv.eom) : forwardOn(curve, start, end, display.compounding, display.dayCount);
-          return r.ok ? { rate: r.value.rate, extrapolated: r.value.extrapolated, note: null } : { rate: null, extrapolated: false, note: r.errors[0]?.message ?? '' };
+          return r.ok ? { rate: r.value.rate, extrapolated: r.value.extrapolated, note: null, cell } : { rate: null, extrapolated: false, note: r.errors[0]?.message ?? '', cell };
         });
       }),
     [curve, mode, conv.frequency, conv.dayCount, conv.eom, display, axisKey],
   );
+  const explain = useExplainOpener<DatedCell>((a, b) => a.field === b.field && a.start === b.start && a.end === b.end);
   const tag = mode === 'par' ? couponTag(conv.frequency, conv.dayCount) : rateTag(display.compounding, display.dayCount);
   return (
     <div>
@@ -102,7 +113,13 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
               <th scope="row">{STARTS[i]}</th>
               {row.map((c, j) => (
                 <td key={TENORS[j]} className="n" title={c.note ?? `${STARTS[i]!.toLowerCase()}${TENORS[j]!.toLowerCase()}`} data-cell={`${STARTS[i]}x${TENORS[j]}`}>
-                  {formatPercent(c.rate)}
+                  {result && c.rate !== null ? (
+                    <button type="button" className="cell-explain" aria-label={`${formatPercent(c.rate)}: explain the ${c.cell.title}`} aria-expanded={explain.isOpen(c.cell)} onClick={(e) => explain.toggle(e, c.cell)}>
+                      {formatPercent(c.rate)}
+                    </button>
+                  ) : (
+                    formatPercent(c.rate)
+                  )}
                   {c.extrapolated ? '*' : ''}
                 </td>
               ))}
@@ -111,6 +128,7 @@ export function ForwardGridTable({ curve, workspace }: { curve: Curve; workspace
         </tbody>
       </table>
       </div>
+      {result && <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} />}
     </div>
   );
 }

@@ -1,19 +1,24 @@
 import { useMemo } from 'react';
 import { forwardStrip, parseTenor, type Curve, formatNumber, formatPercent, rateTag } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import type { DatedCell } from './explainCell.ts';
+import { OpenExplanation, useExplainOpener } from './explainOpener.tsx';
 
-/** Consecutive forwards of the chosen tenor from settlement to the last pillar. */
-export function ForwardStripTable({ curve }: { curve: Curve }) {
+/** Consecutive forwards of the chosen tenor from settlement to the last pillar; with the build, each forward opens its explanation. */
+export function ForwardStripTable({ curve, result }: { curve: Curve; result?: WorkbenchBuild }) {
   const display = useAppStore((s) => s.workspace.display);
   const horizon = curve.pillars[curve.pillars.length - 1]?.date ?? curve.settlement;
   const strip = useMemo(() => forwardStrip(curve, parseTenor(display.forwardTenor)!, horizon, display.compounding, display.dayCount), [curve, display, horizon]);
   const tag = rateTag(display.compounding, display.dayCount);
+  const explain = useExplainOpener<DatedCell>((a, b) => a.start === b.start && a.end === b.end);
   if (!strip.ok) return <p className="field-error">{strip.errors[0]?.message}</p>;
-  return (
+  const table = (
     <div className="scroll-y" tabIndex={0} role="region" aria-label="Forward strip (scrolls)">
       <table className="data" aria-label="Forward strip">
         <caption>
           {display.forwardTenor} forward strip to {horizon} ({strip.value.length} periods) <span className="tag">{tag}</span>
+          {result ? <span className="muted">. Choose a forward to see how it is made.</span> : null}
         </caption>
         <thead>
           <tr>
@@ -33,11 +38,32 @@ export function ForwardStripTable({ curve }: { curve: Curve }) {
               <td>{f.start}</td>
               <td>{f.end}</td>
               <td className="n">{formatNumber(f.tau, 6)}</td>
-              <td className="n">{formatPercent(f.rate)}</td>
+              <td className="n" data-field="forward">
+                {result ? (
+                  <button
+                    type="button"
+                    className="cell-explain"
+                    aria-label={`${formatPercent(f.rate)}: explain the forward rate of period ${i + 1} (${f.start} to ${f.end})`}
+                    aria-expanded={explain.isOpen({ field: 'forward', start: f.start, end: f.end, title: '' })}
+                    onClick={(e) => explain.toggle(e, { field: 'forward', start: f.start, end: f.end, title: `${display.forwardTenor} forward rate, period ${i + 1} of the strip (${f.start} to ${f.end})` })}
+                  >
+                    {formatPercent(f.rate)}
+                  </button>
+                ) : (
+                  formatPercent(f.rate)
+                )}
+              </td>
             </tr>
           ))}
         </tbody>
       </table>
+    </div>
+  );
+  if (!result) return table;
+  return (
+    <div className="key-maturities">
+      {table}
+      <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} />
     </div>
   );
 }

@@ -1,22 +1,11 @@
 import { couponTag, formatNumber, formatPercent, rateTag } from '../../core/index.ts';
-import { lazy, Suspense, useMemo, useRef, useState } from 'react';
+import { useMemo } from 'react';
 import type { Curve } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
-import { useSettledValue } from '../../hooks/useSettledValue.ts';
 import type { KeyCell, KeyField } from './explainCell.ts';
 import { keyMaturityRows } from './keyMaturities.ts';
-
-/** The explanation panel's code (and the explanation code of the core it calls) is fetched the first time a number is opened. */
-const ExplanationPanel = lazy(() => import('./lazyTables.ts').then((m) => ({ default: m.ExplanationPanel })));
-
-/**
- * The open explanation follows the build once typing pauses (each one rebuilds the curve under
- * every method): a keystroke in the sheet repaints the table first.
- */
-function SettledExplanation({ result, ...rest }: { result: WorkbenchBuild } & Omit<Parameters<typeof ExplanationPanel>[0], 'result'>) {
-  return <ExplanationPanel result={useSettledValue(result)} {...rest} />;
-}
+import { OpenExplanation, useExplainOpener } from './explainOpener.tsx';
 
 /**
  * The key-maturity table. With the build (`result`), each discount factor and rate is a button
@@ -25,28 +14,20 @@ function SettledExplanation({ result, ...rest }: { result: WorkbenchBuild } & Om
 export function KeyMaturitiesTable({ curve, result }: { curve: Curve; result?: WorkbenchBuild }) {
   const display = useAppStore((s) => s.workspace.display);
   const rows = useMemo(() => keyMaturityRows(curve, display), [curve, display]);
-  const [open, setOpen] = useState<KeyCell | null>(null);
-  const opener = useRef<HTMLButtonElement | null>(null);
+  const explain = useExplainOpener<KeyCell>((a, b) => a.tenor === b.tenor && a.field === b.field);
   const tag = rateTag(display.compounding, display.dayCount);
   const anyExtrapolated = rows.some((r) => r.extrapolated);
-  const close = (): void => {
-    setOpen(null);
-    opener.current?.focus();
-  };
   /** A figure, as a button that explains it when the build is at hand. */
   const figure = (tenor: string, field: KeyField, words: string, text: string, present: boolean) => {
     if (!result || !present) return text;
-    const isOpen = open?.tenor === tenor && open.field === field;
+    const cell = { tenor, field };
     return (
       <button
         type="button"
         className="cell-explain"
         aria-label={`${text}: explain the ${words}`}
-        aria-expanded={isOpen}
-        onClick={(e) => {
-          opener.current = e.currentTarget;
-          setOpen(isOpen ? null : { tenor, field });
-        }}
+        aria-expanded={explain.isOpen(cell)}
+        onClick={(e) => explain.toggle(e, cell)}
       >
         {text}
       </button>
@@ -110,11 +91,7 @@ export function KeyMaturitiesTable({ curve, result }: { curve: Curve; result?: W
   return (
     <div className="key-maturities">
       {table}
-      {open && (
-        <Suspense fallback={<p className="muted small" role="status">Loading the explanation…</p>}>
-          <SettledExplanation result={result} display={display} cell={open} onClose={close} />
-        </Suspense>
-      )}
+      <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} />
     </div>
   );
 }

@@ -5,9 +5,11 @@ import {
   explanationSections,
   explanationText,
   forwardOn,
+  forwardParRateOn,
   marketDate,
   parseTenor,
   parYieldOn,
+  topParQuoteInfluences,
   topQuoteInfluences,
   valueUnderEachMethod,
   zeroOn,
@@ -17,6 +19,7 @@ import {
   type Explanation,
   type ExplanationSink,
   type ExplanationSection,
+  type FixedLegConvention,
   type MethodValue,
   type Result,
 } from '../../core/index.ts';
@@ -30,6 +33,26 @@ export interface KeyCell {
   readonly tenor: string;
   readonly field: KeyField;
 }
+
+/**
+ * A number given by its dates (the forward strip and grid, the charts' readout): a zero rate on
+ * `start`, a forward from `start` to `end` in the display convention, or a forward par rate from
+ * `start` to `end` on the swap fixed leg `leg`.
+ */
+export interface DatedCell {
+  readonly field: 'zero' | 'forward' | 'forwardPar';
+  /** ISO date: the zero rate's date, or the forward's start. */
+  readonly start: string;
+  /** ISO date: the forward's end (unused for a zero rate); a forward without one runs the display's forward tenor. */
+  readonly end?: string;
+  /** The fixed leg of a forward par rate. */
+  readonly leg?: FixedLegConvention;
+  /** The panel's heading, e.g. "3M forward rate, period 4 of the strip"; by default the number's name and dates. */
+  readonly title?: string;
+}
+
+/** Any number the explanation panel explains. */
+export type ExplainCell = KeyCell | DatedCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -65,36 +88,48 @@ const rowWords = (row: number | null): string => (row === null ? 'a quote' : `ro
  * queries), with the quotes it depends on most and its value under each method. An error value
  * when the cell has no number (beyond the curve without extrapolation).
  */
-export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings, cell: KeyCell): Result<CellExplanation> {
+export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings, cell: ExplainCell): Result<CellExplanation> {
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
-  const tenor = parseTenor(cell.tenor);
-  if (!tenor) return { ok: false, errors: [{ path: 'tenor', quote: null, code: 'schema', message: `"${cell.tenor}" is not a tenor` }] };
-  const date = marketDate(curve.settlement, tenor);
-  const end = marketDate(date, parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' });
+  let date: string;
+  let end: string;
+  if ('tenor' in cell) {
+    const tenor = parseTenor(cell.tenor);
+    if (!tenor) return { ok: false, errors: [{ path: 'tenor', quote: null, code: 'schema', message: `"${cell.tenor}" is not a tenor` }] };
+    date = marketDate(curve.settlement, tenor);
+    end = marketDate(date, parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' });
+  } else {
+    date = cell.start;
+    end = cell.end ?? (cell.field === 'forward' ? marketDate(date, parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' }) : date);
+  }
   const { compounding: c, dayCount: dc, parFrequency } = display;
+  const leg = 'tenor' in cell ? undefined : cell.leg;
   // One query for the number on any curve, traced when given a sink (the panel's number is the table's).
   const read = (on: Curve, sink?: ExplanationSink): Result<number> => {
     const r =
       cell.field === 'discount' ? discountOn(on, date, 'date', sink)
       : cell.field === 'zero' ? zeroOn(on, date, c, dc, 'date', sink)
       : cell.field === 'par' ? parYieldOn(on, date, parFrequency, 'maturity', sink)
+      : cell.field === 'forwardPar' ? forwardParRateOn(on, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false, 'forward', sink)
       : forwardOn(on, date, end, c, dc, 'forward', sink);
     if (!r.ok) return r;
     const v = r.value as { discount?: number; zero?: number; rate?: number };
     return { ok: true, value: (cell.field === 'discount' ? v.discount : cell.field === 'zero' ? v.zero : v.rate)! };
   };
-  const traced = explained((sink) => read(curve, sink), cell.field === 'par' ? { start: 'valuation date', end: cell.tenor } : { date: cell.tenor, start: cell.tenor, end: `${display.forwardTenor} after the start` });
+  const given =
+    !('tenor' in cell) ? { date: cell.start, start: cell.start, end }
+    : cell.field === 'par' ? { start: 'valuation date', end: cell.tenor }
+    : { date: cell.tenor, start: cell.tenor, end: `${display.forwardTenor} after the start` };
+  const traced = explained((sink) => read(curve, sink), given);
   if (!traced.ok) return traced;
   const explanation = traced.value.explanation;
   const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
   const instruments = result.build.instruments;
   let quotesNote: string | null = null;
   let influences: Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
-  if (cell.field === 'par') {
-    influences = { ok: true, value: [] };
-    quotesNote = 'not computed for par yields';
-  } else if (cell.field === 'discount') {
+  if (cell.field === 'par') influences = topParQuoteInfluences(curve, instruments, curve.settlement, date, parFrequency, 'ACT/ACT-ICMA');
+  else if (cell.field === 'forwardPar') influences = topParQuoteInfluences(curve, instruments, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false);
+  else if (cell.field === 'discount') {
     influences = topQuoteInfluences(curve, instruments, curve.settlement, date, 'continuous', curve.dayCount);
     quotesNote = `of its continuously compounded zero rate on ${curve.dayCount} (DF = exp(-z t))`;
   } else if (cell.field === 'zero') influences = topQuoteInfluences(curve, instruments, curve.settlement, date, c, dc);
@@ -103,7 +138,9 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
   // The workspace's document built under each method, as the workbench builds it (skipping wrong rows).
   const methods = valueUnderEachMethod(curve.interpolation, (method: InterpolationId) => buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: method }), read);
-  const title = cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
+  const title =
+    !('tenor' in cell) ? (cell.title ?? (cell.field === 'zero' ? `Zero rate on ${date}` : `${display.forwardTenor} forward rate starting ${date} (${date} to ${end})`))
+    : cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
   const extras = {
     title,
     quoteLabel: (index: number) => rowWords(rowOf(index)),

@@ -1,0 +1,43 @@
+import { lazy, Suspense, useRef, useState, type MouseEvent } from 'react';
+import type { DisplaySettings } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useSettledValue } from '../../hooks/useSettledValue.ts';
+import type { ExplainCell } from './explainCell.ts';
+
+/** The explanation panel's code (and the explanation code of the core it calls) is fetched the first time a number is opened. */
+const ExplanationPanel = lazy(() => import('./lazyTables.ts').then((m) => ({ default: m.ExplanationPanel })));
+
+/**
+ * Which number's explanation is open, and the button that opened it (Escape or Close gives it the
+ * focus back). `same(a, b)` says whether two cells are one number (a second press closes it).
+ */
+export function useExplainOpener<C extends ExplainCell>(same: (a: C, b: C) => boolean) {
+  const [open, setOpen] = useState<C | null>(null);
+  const opener = useRef<HTMLElement | null>(null);
+  return {
+    open,
+    isOpen: (cell: C): boolean => open !== null && same(open, cell),
+    toggle: (e: MouseEvent<HTMLElement>, cell: C): void => {
+      opener.current = e.currentTarget;
+      setOpen(open !== null && same(open, cell) ? null : cell);
+    },
+    close: (): void => {
+      setOpen(null);
+      opener.current?.focus();
+    },
+  };
+}
+
+/**
+ * The open explanation beside its table or chart. It follows the build once typing pauses (each
+ * one rebuilds the curve under every method): a keystroke in the sheet repaints the table first.
+ */
+export function OpenExplanation({ result, display, cell, onClose }: { result: WorkbenchBuild; display: DisplaySettings; cell: ExplainCell | null; onClose: () => void }) {
+  const settled = useSettledValue(result);
+  if (!cell) return null;
+  return (
+    <Suspense fallback={<p className="muted small" role="status">Loading the explanation…</p>}>
+      <ExplanationPanel result={settled} display={display} cell={cell} onClose={onClose} />
+    </Suspense>
+  );
+}
