@@ -1,4 +1,5 @@
 import type { Curve } from '../curve/curve.ts';
+import type { ExplanationSink } from '../curve/explain.ts';
 import { forwardOn, zeroOn } from '../curve/query.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
@@ -31,7 +32,38 @@ export interface EffectRow {
   readonly forwardBp: number | null;
 }
 
-const diffBp = (a: number | null, b: number | null): number | null => (a === null || b === null ? null : (a - b) * 1e4);
+/** (a - b) x 10,000: the change in bp of a rate from b to a; null when either is missing. */
+export const diffBp = (a: number | null, b: number | null): number | null => (a === null || b === null ? null : (a - b) * 1e4);
+
+/** Which rate of a key maturity a change is of. */
+export type EffectField = 'zero' | 'forward';
+
+/**
+ * The date of a key maturity (`2Y`) on a curve's settlement, and the forward's end; null when the
+ * label is not a tenor (the forward's end is null when the forward tenor is not one).
+ */
+export function effectDates(settlement: IsoDate, label: string, conv: EffectConventions): { date: IsoDate; end: IsoDate | null } | null {
+  const tenor = parseTenor(label);
+  if (!tenor) return null;
+  const date = marketDate(settlement, tenor);
+  const fwdTenor = parseTenor(conv.forwardTenor);
+  return { date, end: fwdTenor ? marketDate(date, fwdTenor) : null };
+}
+
+/**
+ * The rate a change compares at one key maturity on one curve: the zero rate on `date`, or the
+ * forward from `date` to `end`, in the given conventions; null where the curve does not reach.
+ * With a sink the query records its explanation (the same query, see curve/explain.ts).
+ */
+export function effectRate(c: Curve, field: EffectField, dates: { date: IsoDate; end: IsoDate | null }, conv: EffectConventions, sink?: ExplanationSink): number | null {
+  if (field === 'zero') {
+    const r = zeroOn(c, dates.date, conv.zeroCompounding, conv.zeroDayCount, 'date', sink);
+    return r.ok ? r.value.zero : null;
+  }
+  if (dates.end === null) return null;
+  const r = forwardOn(c, dates.date, dates.end, conv.forwardCompounding, conv.forwardDayCount, 'forward', sink);
+  return r.ok ? r.value.rate : null;
+}
 
 /**
  * Changes in bp of zero rates and forwards at key maturities between a moved curve and its base,
@@ -39,21 +71,11 @@ const diffBp = (a: number | null, b: number | null): number | null => (a === nul
  * Points a curve cannot reach (beyond its last pillar without extrapolation) are null.
  */
 export function scenarioEffects(base: Curve, moved: Curve, tenors: readonly string[], conv: EffectConventions): EffectRow[] {
-  const fwdTenor = parseTenor(conv.forwardTenor);
   return tenors.flatMap((label) => {
-    const tenor = parseTenor(label);
-    if (!tenor) return [];
-    const date = marketDate(base.settlement, tenor);
-    const zero = (c: Curve): number | null => {
-      const r = zeroOn(c, date, conv.zeroCompounding, conv.zeroDayCount);
-      return r.ok ? r.value.zero : null;
-    };
-    const fwd = (c: Curve): number | null => {
-      if (!fwdTenor) return null;
-      const r = forwardOn(c, date, marketDate(date, fwdTenor), conv.forwardCompounding, conv.forwardDayCount);
-      return r.ok ? r.value.rate : null;
-    };
-    return [{ tenor: label, date, zeroBp: diffBp(zero(moved), zero(base)), forwardBp: diffBp(fwd(moved), fwd(base)) }];
+    const dates = effectDates(base.settlement, label, conv);
+    if (!dates) return [];
+    const change = (field: EffectField): number | null => diffBp(effectRate(moved, field, dates, conv), effectRate(base, field, dates, conv));
+    return [{ tenor: label, date: dates.date, zeroBp: change('zero'), forwardBp: change('forward') }];
   });
 }
 
