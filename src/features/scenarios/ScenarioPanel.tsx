@@ -6,6 +6,8 @@ import { describeShape, SPACE_LABEL } from './describeShape.ts';
 import { ScenarioForm } from './ScenarioForm.tsx';
 import { ScenarioShapeChart } from './ScenarioShapeChart.tsx';
 import { ScenarioTable } from './ScenarioTable.tsx';
+import type { DisplaySettings } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import './scenarios.css';
 
 export interface ScenarioPanelProps {
@@ -19,12 +21,14 @@ export interface ScenarioPanelProps {
   readonly buildOptions?: BuildOptions;
   readonly conventions: EffectConventions;
   readonly tenors?: readonly string[];
+  /** The workbench's build (the base curve's) and display: with them each change in the table opens its explanation. */
+  readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
 }
 
 export const effectConventionsText = (c: EffectConventions): string => zeroForwardTag(c);
 
 /** Scenarios: the list with each shape beside its effect on forwards, a form to add one, and the table of changes. */
-export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = COMPARISON_TENORS }: ScenarioPanelProps) {
+export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = COMPARISON_TENORS, explainFrom }: ScenarioPanelProps) {
   const { scenarios, errors } = useMemo(() => validateScenarios(value), [value]);
   const applied = useMemo(
     () =>
@@ -74,7 +78,8 @@ export function ScenarioPanel({ value, onChange, workspace, base, buildOptions =
           <ScenarioTable
             tenors={tenors}
             conventions={effectConventionsText(conventions)}
-            columns={applied.map(({ s, result, error }) => ({ id: s.id, name: s.name, rows: result?.rows ?? null, ...(error ? { error } : {}) }))}
+            columns={applied.map(({ s, result, error }) => ({ id: s.id, name: s.name, rows: result?.rows ?? null, scenario: s, ...(error ? { error } : {}) }))}
+            {...(explainFrom ? { explain: { ...explainFrom, conventions, buildOptions } } : {})}
           />
         </>
       )}

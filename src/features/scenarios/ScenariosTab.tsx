@@ -23,6 +23,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
       base={result.build.curve}
       buildOptions={workbenchBuildOptions()}
       conventions={conventions}
+      explainFrom={{ result, display }}
     />
     </EditLock>
   );

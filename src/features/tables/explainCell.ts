@@ -1,5 +1,7 @@
 import {
+  applyScenario,
   buildCurve,
+  explainScenarioChange,
   discountOn,
   explained,
   explanationSections,
@@ -13,7 +15,11 @@ import {
   topQuoteInfluences,
   valueUnderEachMethod,
   zeroOn,
+  type BuildOptions,
   type Curve,
+  type EffectConventions,
+  type EffectField,
+  type Scenario,
   type InterpolationId,
   type DisplaySettings,
   type Explanation,
@@ -51,8 +57,23 @@ export interface DatedCell {
   readonly title?: string;
 }
 
+/**
+ * A change in the Scenarios table: the zero rate or forward at key maturity `tenor` under
+ * `scenario`, in bp against the base curve, in the table's conventions. The scenario curve is
+ * made again from the build as the table makes it (applyScenario with the same options).
+ */
+export interface ChangeCell {
+  readonly change: {
+    readonly scenario: Scenario;
+    readonly tenor: string;
+    readonly field: EffectField;
+    readonly conventions: EffectConventions;
+    readonly buildOptions: BuildOptions;
+  };
+}
+
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -89,6 +110,7 @@ const rowWords = (row: number | null): string => (row === null ? 'a quote' : `ro
  * when the cell has no number (beyond the curve without extrapolation).
  */
 export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings, cell: ExplainCell): Result<CellExplanation> {
+  if ('change' in cell) return explainChangeCell(result, cell.change);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;
@@ -151,4 +173,22 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const text = explanationText(explanation, extras);
   const sections = explanationSections(explanation, extras);
   return { ok: true, value: { title, explanation, sections, quotes, quotesNote, methods, text } };
+}
+
+/** The explanation of a scenario change: the base and scenario rates' explanations and the change in bp (explainScenarioChange). */
+function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Result<CellExplanation> {
+  const base = result.build.curve;
+  const ws = result.build.workspace;
+  if (!base || !ws) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  const moved = applyScenario(c.scenario, ws, base, c.buildOptions);
+  if (!moved.ok) return moved;
+  const r = explainScenarioChange(base, moved.value.curve, c.tenor, c.field, c.conventions);
+  if (!r.ok) return r;
+  const explanation = r.value.explanation;
+  const what = c.field === 'zero' ? 'zero rate' : `${c.conventions.forwardTenor} forward rate`;
+  const title = `Change of the ${c.tenor} ${what} under ${c.scenario.name} (${explanation.dates[0]!.adjusted})`;
+  return {
+    ok: true,
+    value: { title, explanation, sections: explanationSections(explanation), quotes: [], quotesNote: null, methods: [], text: explanationText(explanation, { title }) },
+  };
 }

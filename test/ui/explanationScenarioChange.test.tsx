@@ -1,0 +1,50 @@
+// @vitest-environment jsdom
+// A change in the Scenarios table opens the explanation panel (issue 19): chosen by keyboard, the
+// panel's value and last step are the table's figure to all digits (scenarioEffects, the table's own
+// source; the core test test/core/curve/explainChange.test.ts holds its two parts to the untraced
+// zeroOn / forwardOn bit for bit), both curves' steps are listed, and Escape gives the focus back.
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { applyScenario, fullText, scenarioEffects, type EffectConventions, type Scenario } from '../../src/core/index.ts';
+import { ScenarioPanel } from '../../src/features/scenarios/ScenarioPanel.tsx';
+import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { useAppStore } from '../../src/state/store.ts';
+
+vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
+
+const initial = useAppStore.getInitialState();
+beforeEach(() => useAppStore.setState(initial, true));
+
+describe('explanations in the Scenarios table', () => {
+  it('a forward change opens its explanation, ending in the shown figure to all digits', async () => {
+    const user = userEvent.setup({ delay: null });
+    const doc = useAppStore.getState().workspace;
+    const display = doc.display;
+    const result = deriveBuild(doc);
+    const base = result.build.curve!;
+    const conventions: EffectConventions = { zeroCompounding: display.compounding, zeroDayCount: display.dayCount, forwardTenor: display.forwardTenor, forwardCompounding: display.compounding, forwardDayCount: display.dayCount };
+    const scenarios: Scenario[] = [{ id: 's1', name: 'Steeper', space: 'quotes', shape: { kind: 'twist', short: '2Y', pivot: '5Y', long: '10Y', bp: 30 } }];
+    render(<ScenarioPanel value={scenarios} onChange={() => {}} workspace={result.build.workspace} base={base} conventions={conventions} tenors={['2Y', '5Y', '10Y']} explainFrom={{ result, display }} />);
+    // The table's figure, as the table computes it.
+    const moved = applyScenario(scenarios[0]!, result.build.workspace!, base);
+    if (!moved.ok) throw new Error('scenario');
+    const figure = scenarioEffects(base, moved.value.curve, ['10Y'], conventions)[0]!.forwardBp!;
+    const table = screen.getByRole('table', { name: 'Scenario changes at key maturities' });
+    const button = within(table).getByRole('button', { name: /explain the change of the 10Y .* forward under Steeper/ });
+    expect(button.closest('td')!.getAttribute('data-cell')).toBe('s1:10Y:forward');
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Change of the 10Y .* forward rate under Steeper/ });
+    expect(button).toHaveAttribute('aria-expanded', 'true');
+    expect(panel).toHaveFocus();
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`change = (scenario rate - base rate) x 10,000 bp = ${fullText(figure)} (bp (1 bp = 0.0001 of the rate))`);
+    expect(steps.some((s) => s!.startsWith('base curve: lnP = ln DF(end) - ln DF(start)'))).toBe(true);
+    expect(steps.some((s) => s!.startsWith('scenario curve: lnP = ln DF(end) - ln DF(start)'))).toBe(true);
+    await user.keyboard('{Escape}');
+    expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
+    expect(button).toHaveFocus();
+    expect(button).toHaveAttribute('aria-expanded', 'false');
+  });
+});
