@@ -54,7 +54,7 @@ const CSP = [
  *
  * The UI imports the core through its index, so every core module is "reached" from the entry;
  * LATER_ONLY names those the first screen never runs: money in decimal.js, the roll analysis, the
- * smooth fit, the quote check's schedules, the explanations, the scenarios' reference reader, the
+ * smooth fit, the quote check's schedules, the explanations, the scenarios' reference reader and change table, the
  * overnight view, the bond analytics, the Holidays and Fixings sections' readers, the paste's table
  * reader and the workspace list file. Were one of them run on the first screen, `later` would be
  * imported by `first` and the first-load budget test (test/browser/security.test.ts) would fail; a
