@@ -10,6 +10,7 @@ import { FixingsTab } from '../../src/features/calendars/FixingsTab.tsx';
 import { useAppStore } from '../../src/state/store.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { DEMO_SETTLEMENT } from '../../src/state/demoWorkspace.ts';
+import { LIMITS } from '../../src/core/index.ts';
 
 const s = () => useAppStore.getState();
 
@@ -54,5 +55,19 @@ describe('FixingsTab', () => {
     fireEvent.change(screen.getByRole('textbox', { name: /Paste fixings/ }), { target: { value: '2026-12-01 4.30\nDecember 2 4.31' } });
     fireEvent.click(screen.getByRole('button', { name: 'Add to the list' }));
     expect(screen.getByRole('status').textContent).toMatch(/^1 fixing added or replaced; not taken: line 2 \(December 2 4\.31\): does not start with a date/);
+  });
+});
+
+describe('FixingsTab and the workspace cap', () => {
+  it('refuses a paste that would make the list longer than a file or a link may hold (LIMITS.fixings), keeping the list', () => {
+    // The same cap as the engine's check of a file and the shape check of a link (src/core/document/limits.ts).
+    act(() => s().setSettlement('2050-01-03'));
+    render(<FixingsTab />);
+    const lines: string[] = [];
+    for (let d = Date.UTC(2025, 0, 1), n = 0; n <= LIMITS.fixings; d += 86_400_000, n++) lines.push(`${new Date(d).toISOString().slice(0, 10)}\t4.30`);
+    fireEvent.change(screen.getByRole('textbox', { name: /Paste fixings/ }), { target: { value: lines.join('\n') } });
+    fireEvent.click(screen.getByRole('button', { name: 'Replace the list' }));
+    expect(screen.getByRole('status').textContent).toMatch(/^Not taken: the list would hold 5,001 fixings, more than the 5,000 a workspace keeps/);
+    expect(s().workspace.fixings).toBeUndefined();
   });
 });

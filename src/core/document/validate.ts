@@ -13,6 +13,7 @@ import { KIND_ALLOWED_FIELDS, KIND_MODULE_LIST, QUOTE_KIND_MODULES } from '../ki
 import { withConventionSet } from '../kinds/conventionSets.ts';
 import { DEFAULT_CURVE, QUOTE_KINDS, type CurveSettings, type Quote, type Workspace } from './types.ts';
 import { isPlainObject } from './plainObject.ts';
+import { LIMITS } from './limits.ts';
 import type { ReadWorkspace, WorkspaceCurve } from './namedCurves.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
 import type { CalendarContext } from '../time/calendars.ts';
@@ -108,8 +109,8 @@ export function validateWorkspace(doc: unknown, readCurves: CurvesReader = refus
   return curves === null ? { workspace: null, errors } : { workspace: { ...workspace, curves }, errors };
 }
 
-/** Most fixings a document holds: about forty years of business days. */
-export const FIXINGS_MAX = 10_000;
+/** Most fixings a document holds: the one cap of every way in (LIMITS.fixings; the workbench's shape check and its Fixings section use it too). */
+export const FIXINGS_MAX = LIMITS.fixings;
 
 /**
  * The document's `fixings` (version 2): the overnight rate of past business days,

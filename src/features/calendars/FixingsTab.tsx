@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { formatCount, formatPercent, readFixingList } from '../../core/index.ts';
+import { formatCount, formatPercent, LIMITS, readFixingList } from '../../core/index.ts';
 import { EditLock } from '../../components/EditLock.tsx';
 import { useAppStore } from '../../state/store.ts';
 
@@ -25,7 +25,13 @@ export function FixingsTab() {
     const r = readFixingList(list, mode, dateOrder, settlement);
     const read = Object.keys(r.fixings).length;
     const skipped = r.problems.map((p) => `line ${p.line} (${p.text}): ${p.message}`);
-    if (read > 0) useAppStore.getState().setFixings(replace ? r.fixings : { ...(fixings ?? {}), ...r.fixings });
+    const next = replace ? r.fixings : { ...(fixings ?? {}), ...r.fixings };
+    // The one cap of the document's fixings (LIMITS.fixings), which a file or a link is checked against too.
+    if (Object.keys(next).length > LIMITS.fixings) {
+      setMessage(`Not taken: the list would hold ${formatCount(Object.keys(next).length)} fixings, more than the ${formatCount(LIMITS.fixings)} a workspace keeps; paste the days the futures in their period need.`);
+      return;
+    }
+    if (read > 0) useAppStore.getState().setFixings(next);
     setMessage(`${formatCount(read)} ${read === 1 ? 'fixing' : 'fixings'} ${replace ? 'now make the list' : 'added or replaced'}${skipped.length === 0 ? '' : `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}`}.`);
     if (skipped.length === 0) setList('');
   };
