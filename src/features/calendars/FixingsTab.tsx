@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { formatCount, formatPercent, LIMITS, readFixingList } from '../../core/index.ts';
 import { EditLock } from '../../components/EditLock.tsx';
 import { useAppStore } from '../../state/store.ts';
+import { ListStatus, notTaken, problemText } from '../../components/pastedList.tsx';
 
 /** Rows of the list shown at once: the latest fixings (the ones a future in its period reads). */
 const SHOWN = 15;
@@ -24,7 +25,7 @@ export function FixingsTab() {
   const take = (replace: boolean): void => {
     const r = readFixingList(list, mode, dateOrder, settlement);
     const read = Object.keys(r.fixings).length;
-    const skipped = r.problems.map((p) => `line ${p.line} (${p.text}): ${p.message}`);
+    const skipped = r.problems.map(problemText);
     const next = replace ? r.fixings : { ...(fixings ?? {}), ...r.fixings };
     // The one cap of the document's fixings (LIMITS.fixings), which a file or a link is checked against too.
     if (Object.keys(next).length > LIMITS.fixings) {
@@ -32,7 +33,7 @@ export function FixingsTab() {
       return;
     }
     if (read > 0) useAppStore.getState().setFixings(next);
-    setMessage(`${formatCount(read)} ${read === 1 ? 'fixing' : 'fixings'} ${replace ? 'now make the list' : 'added or replaced'}${skipped.length === 0 ? '' : `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}`}.`);
+    setMessage(`${formatCount(read)} ${read === 1 ? 'fixing' : 'fixings'} ${replace ? 'now make the list' : 'added or replaced'}${notTaken(skipped)}.`);
     if (skipped.length === 0) setList('');
   };
   const unitWords = mode === 'percent' ? 'in % (3.65)' : mode === 'bp' ? 'in bp (365)' : 'as decimals (0.0365)';
@@ -92,11 +93,7 @@ export function FixingsTab() {
           </div>
         </div>
       </EditLock>
-      {message && (
-        <p className="small" role="status">
-          {message}
-        </p>
-      )}
+      <ListStatus message={message} />
     </div>
   );
 }

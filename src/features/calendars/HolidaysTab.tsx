@@ -2,14 +2,11 @@ import { useState } from 'react';
 import { BUILT_IN_CALENDARS, calendarYear, closeDay, conventionSet, customCalendarNameProblem, isBuiltInCalendar, openDay, readDateList, type BuiltInCalendarId, type CalendarEdits, type EditOutcome } from '../../core/index.ts';
 import { EditLock } from '../../components/EditLock.tsx';
 import { useAppStore } from '../../state/store.ts';
+import { ListStatus, notTaken, problemText } from '../../components/pastedList.tsx';
 
 /** Calendars a user edits here: the built-in ones that close days (`weekends` has none to open). */
 const EDITABLE = BUILT_IN_CALENDARS.filter((id) => id !== 'weekends');
 
-/** A line of a pasted list that was not a date, for a message. */
-const problemText = (p: { readonly line: number; readonly text: string; readonly message: string }): string => `line ${p.line} (${p.text}): ${p.message}`;
-/** "; not taken: a; b" (at most six named, the rest counted), or nothing when every line was taken. */
-const notTaken = (skipped: readonly string[]): string => (skipped.length === 0 ? '' : `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}`);
 
 /** The calendar the workspace's market conventions use for its overnight swaps (null when none). */
 function marketCalendar(market: string | undefined): BuiltInCalendarId | null {
@@ -152,11 +149,7 @@ export function HolidaysTab() {
           </details>
         </EditLock>
       )}
-      {message && (
-        <p role="status" className="small">
-          {message}
-        </p>
-      )}
+      <ListStatus message={message} />
       <OwnCalendars market={ofMarket} />
     </div>
   );
@@ -246,11 +239,7 @@ function OwnCalendars({ market }: { market: BuiltInCalendarId | null }) {
           </button>
         </details>
       </EditLock>
-      {message && (
-        <p role="status" className="small">
-          {message}
-        </p>
-      )}
+      <ListStatus message={message} />
     </section>
   );
 }

@@ -16,12 +16,9 @@ import {
 import { EditLock } from '../../components/EditLock.tsx';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { ListStatus, notTaken, problemText } from '../../components/pastedList.tsx';
 import { OvernightChart } from './OvernightChart.tsx';
 
-type Problem = { readonly line: number; readonly text: string; readonly message: string };
-/** A line of a pasted list that was not taken, for a message. */
-const problemText = (p: Problem): string => `line ${p.line} (${p.text}): ${p.message}`;
-const notTaken = (skipped: readonly string[]): string => (skipped.length === 0 ? '' : `; not taken: ${skipped.slice(0, 6).join('; ')}${skipped.length > 6 ? `; and ${skipped.length - 6} more` : ''}`);
 const OVERNIGHT_TAG = rateTag('simple', 'ACT/360');
 const NO_TURNS: readonly Turn[] = [];
 const NO_DATES: readonly string[] = [];
@@ -148,11 +145,7 @@ function MeetingDates() {
           )}
         </details>
       </EditLock>
-      {message && (
-        <p role="status" className="small">
-          {message}
-        </p>
-      )}
+      <ListStatus message={message} />
     </section>
   );
 }
@@ -232,11 +225,7 @@ function Turns() {
           </button>
         </details>
       </EditLock>
-      {message && (
-        <p role="status" className="small">
-          {message}
-        </p>
-      )}
+      <ListStatus message={message} />
     </section>
   );
 }
