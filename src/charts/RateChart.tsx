@@ -6,6 +6,7 @@ import type { SamplePoint } from '../hooks/useCurveSeries.ts';
 import { hoverStore, useHoverX } from './hover.ts';
 import { maturityScale, maturityTicks } from './maturityScale.ts';
 import { PALETTE } from './palette.ts';
+import { ChartAxes } from './ChartAxes.tsx';
 import { useChartWidth } from './useChartWidth.ts';
 
 export interface ChartLine {
@@ -170,26 +171,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
             <title>Past the last pillar: flat-forward extrapolation</title>
           </rect>
         )}
-        <g className="axis" fontSize={CHART_FONT_PX} fill={PALETTE.axis}>
-          <line x1={M.left} x2={W - M.right} y1={H - M.bottom} y2={H - M.bottom} stroke={PALETTE.axis} />
-          <line x1={M.left} x2={M.left} y1={M.top} y2={H - M.bottom} stroke={PALETTE.axis} />
-          {xTicks.map((v) => (
-            <text key={`tx${v}`} x={x(v)} y={H - M.bottom + 15} textAnchor="middle">
-              {v}
-            </text>
-          ))}
-          {yTicks.map((v) => (
-            <text key={`ty${v}`} x={M.left - 6} y={y(v) + 4} textAnchor="end">
-              {yTickText(v)}
-            </text>
-          ))}
-          <text x={(M.left + W - M.right) / 2} y={H - 6} textAnchor="middle">
-            {xLabel}
-          </text>
-          <text transform={`translate(13 ${(M.top + H - M.bottom) / 2}) rotate(-90)`} textAnchor="middle">
-            {yLabel}
-          </text>
-        </g>
+        <ChartAxes w={W} h={H} m={M} x={x} y={y} xTicks={xTicks} yTicks={yTicks} yTickText={yTickText} xLabel={xLabel} yLabel={yLabel} fontPx={CHART_FONT_PX} />
         <PillarTicks pillars={pillars} x={x} h={H} />
         {paths.map(({ l, solid, dashed }) => (
           <g key={l.id} data-series={l.id}>

@@ -4,6 +4,7 @@ import { curveStepAfter, line } from 'd3-shape';
 import { formatAxisPercent, formatPercent, rateTag, type OvernightView } from '../../core/index.ts';
 import { CHART_FONT_PX } from '../../charts/RateChart.tsx';
 import { PALETTE } from '../../charts/palette.ts';
+import { ChartAxes } from '../../charts/ChartAxes.tsx';
 import { useChartWidth } from '../../charts/useChartWidth.ts';
 
 const W0 = 640;
@@ -69,26 +70,19 @@ export function OvernightChart({ view }: { view: OvernightView }) {
                 <title>{`Effective date ${m.date}`}</title>
               </line>
             ))}
-            <g className="axis" fontSize={CHART_FONT_PX} fill={PALETTE.axis}>
-              <line x1={M.left} x2={W - M.right} y1={H - M.bottom} y2={H - M.bottom} stroke={PALETTE.axis} />
-              <line x1={M.left} x2={M.left} y1={M.top} y2={H - M.bottom} stroke={PALETTE.axis} />
-              {xTicks.map((v) => (
-                <text key={`tx${v}`} x={x(v)} y={H - M.bottom + 15} textAnchor="middle">
-                  {v}
-                </text>
-              ))}
-              {yTicks.map((v) => (
-                <text key={`ty${v}`} x={M.left - 6} y={y(v) + 4} textAnchor="end">
-                  {formatAxisPercent(v, 2, 1)}
-                </text>
-              ))}
-              <text x={(M.left + W - M.right) / 2} y={H - 6} textAnchor="middle">
-                Years from the valuation date (to {view.end})
-              </text>
-              <text transform={`translate(13 ${(M.top + H - M.bottom) / 2}) rotate(-90)`} textAnchor="middle">
-                One-day forward ({tag})
-              </text>
-            </g>
+            <ChartAxes
+              w={W}
+              h={H}
+              m={M}
+              x={x}
+              y={y}
+              xTicks={xTicks}
+              yTicks={yTicks}
+              yTickText={(v) => formatAxisPercent(v, 2, 1)}
+              xLabel={<>Years from the valuation date (to {view.end})</>}
+              yLabel={<>One-day forward ({tag})</>}
+              fontPx={CHART_FONT_PX}
+            />
             <path d={path} fill="none" stroke={PALETTE.forward} strokeWidth={1.8} data-series="overnight" />
           </>
         )}
