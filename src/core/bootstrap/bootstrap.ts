@@ -16,7 +16,7 @@ import { nodeSolverFor, type BootstrapNodes } from './nodeSolvers.ts';
 import type { TurnSpan } from './turns.ts';
 import type { MeetingNode, StepNodes } from './meetingSteps.ts';
 import type { OvernightKit } from './overnightKit.ts';
-import { bridgeSpotGap, spotGapOf, type NodeRun } from './spotBridge.ts';
+import { bridgeSpotGap, spotGapOf, type NodeRun, type SpotGap } from './spotBridge.ts';
 
 /** How one quote came back on the built curve. */
 export interface Repricing {
@@ -42,6 +42,8 @@ export interface BootstrapOutcome {
   readonly sweeps: number;
   /** The turns and meeting nodes the curve was built with; absent when it has neither. */
   readonly overnight?: OvernightShape;
+  /** The gap from the valuation date to spot before the first pillar (bridged, or a step curve's own); absent when none. */
+  readonly spotGap?: SpotGap;
 }
 
 /** What a curve with turns or meeting steps was built with (absent on an ordinary curve). */
@@ -111,10 +113,12 @@ export function bootstrapInstruments(given: BootstrapSettings, market: readonly 
   // rule for every method (bootstrap/spotBridge.ts), from the unbridged curve's first node. A step
   // curve is log-linear between its own nodes, which is that rule already.
   const run = (ins: readonly Instrument[], bridged: boolean): NodeRun<BootstrapOutcome> => solveNodes(given, settings, ins, bridged, step, spans);
-  const gap = step === null ? spotGapOf(settings.settlement, settings.dayCount, instruments) : null;
+  const gap = spotGapOf(settings.settlement, settings.dayCount, instruments);
   if (gap === null) return run(instruments, false).outcome;
+  // The outcome carries the gap, so the build's warning needs no second search (build.ts).
+  if (step !== null) return { ...run(instruments, false).outcome, spotGap: gap };
   const plain = run(instruments, false);
-  return bridgeSpotGap(gap, instruments, plain.ys === null ? null : plain.ys[1]!, (withBridge) => run(withBridge, true));
+  return { ...bridgeSpotGap(gap, instruments, plain.ys === null ? null : plain.ys[1]!, (withBridge) => run(withBridge, true)), spotGap: gap };
 }
 
 /**

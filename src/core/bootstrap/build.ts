@@ -13,7 +13,7 @@ import { kitMissing } from './bootstrap.ts';
 import type { OvernightKit } from './overnightKit.ts';
 import { businessCalendar, MAX_CLOSED_RUN, outsideCalendar } from '../time/calendars.ts';
 import { bootstrapCurveSet, type CurveSet } from './curveSet.ts';
-import { spotGapOf } from './spotBridge.ts';
+import type { SpotGap } from './spotBridge.ts';
 
 const NO_CURVES: CurveSet = {};
 
@@ -220,7 +220,7 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
   // document order only when the two differ.
   const byIndex = (a: Repricing, b: Repricing) => a.index - b.index;
   const repricing = outcome.repricing.every((r, i) => i === 0 || outcome.repricing[i - 1]!.index < r.index) ? outcome.repricing : [...outcome.repricing].sort(byIndex);
-  const gap = outcome.curve ? spotGap(ws, market.instruments) : null;
+  const gap = outcome.curve && outcome.spotGap ? spotGapWarning(ws, outcome.spotGap) : null;
   if (gap) warnings.push(gap);
   const later = laterFixings(ws);
   if (later) warnings.push(later);
@@ -253,13 +253,12 @@ function laterFixings(ws: Workspace): CoreWarning | null {
 }
 
 /**
- * The warning for a curve that reaches spot without quotes that link it there (spotGapOf: the
- * earliest start after the valuation date that lies before the curve's first pillar; no ON or TN
- * deposit ends by then). It states the rule the bootstrap bridged the gap with (spotBridge.ts).
+ * The warning for a curve that reaches spot without quotes that link it there (the bootstrap's
+ * `spotGap`, found by spotGapOf: the earliest start after the valuation date that lies before the
+ * curve's first pillar; no ON or TN deposit ends by then). It states the rule the bootstrap bridged
+ * the gap with (spotBridge.ts).
  */
-function spotGap(ws: Workspace, instruments: readonly Instrument[]): CoreWarning | null {
-  const gap = spotGapOf(ws.settlement, ws.curve.dayCount, instruments);
-  if (gap === null) return null;
+function spotGapWarning(ws: Workspace, gap: SpotGap): CoreWarning {
   const i = gap.index;
   return {
     path: `quotes[${i}]`,

@@ -73,7 +73,7 @@ export function bootstrapCurveSet(settings: BootstrapSettings, instruments: read
   if (groups.length === 1) {
     const o = bootstrapInstruments(settings, groups[0]!.instruments);
     const curves = o.curve === null ? {} : { [groups[0]!.curve]: o.curve };
-    const out = { curve: o.curve, curves, errors: o.errors, warnings: o.warnings, repricing: o.repricing, sweeps: o.sweeps };
+    const out = { curve: o.curve, curves, errors: o.errors, warnings: o.warnings, repricing: o.repricing, sweeps: o.sweeps, ...(o.spotGap === undefined ? {} : { spotGap: o.spotGap }) };
     return o.overnight === undefined ? out : { ...out, overnight: o.overnight };
   }
   const curves: Record<CurveId, Curve> = {};
@@ -83,6 +83,7 @@ export function bootstrapCurveSet(settings: BootstrapSettings, instruments: read
     return o;
   });
   const failed = outcomes.some((o) => o.curve === null);
+  const gap = outcomes.find((o) => o.spotGap !== undefined)?.spotGap;
   return {
     curve: failed ? null : (curves[DISCOUNT_CURVE] ?? null),
     curves: failed ? {} : curves,
@@ -90,5 +91,6 @@ export function bootstrapCurveSet(settings: BootstrapSettings, instruments: read
     warnings: outcomes.flatMap((o) => o.warnings),
     repricing: failed ? [] : outcomes.flatMap((o) => o.repricing),
     sweeps: Math.max(...outcomes.map((o) => o.sweeps)),
+    ...(gap === undefined ? {} : { spotGap: gap }),
   };
 }
