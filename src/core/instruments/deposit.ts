@@ -1,8 +1,9 @@
 import { yearFraction } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { DepositQuote, Quote } from '../document/types.ts';
-import { CompiledInstrument, DISCOUNTING, type CurveRoles, type Instrument } from './instrument.ts';
+import { DISCOUNTING, type CurveRoles, type Instrument } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
+import { GrowthRatio } from './growthRatio.ts';
 
 /**
  * Money-market deposit from its start S to maturity E at a simple rate r on its day count
@@ -51,31 +52,15 @@ class DepositInstrument extends SingleFlowInstrument<DepositQuote> {
  * forward rate agreement on one curve (instruments/fra.ts), which fixes the same ratio DF(S)/DF(E)
  * on the curve of its index, with its own curve roles.
  */
-export class ForwardDeposit<Q extends Quote = DepositQuote> extends CompiledInstrument<Q> {
+export class ForwardDeposit<Q extends Quote = DepositQuote> extends GrowthRatio<Q> {
   declare readonly tau: number;
-  /** ln(1 + r tau), NaN when the quote implies a growth <= 0. */
   declare readonly lnGrowth: number;
 
   constructor(q: Q, t: number, times: readonly number[], tau: number, rate: number, curves: CurveRoles = DISCOUNTING) {
     super(q, t, times, 'rate', 'rate', rate, [0, 1 + rate * tau], 1, null, curves);
     this.tau = tau;
+    // ln(1 + r tau), NaN when the quote implies a growth <= 0.
     this.lnGrowth = 1 + rate * tau > 0 ? Math.log1p(rate * tau) : Number.NaN;
-  }
-
-  /** DF(S). */
-  targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
-    return df[offset]!;
-  }
-
-  /** d DF(S) / d ln DF: DF(S) at S, 0 at E. */
-  targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
-    out[0] = df[offset]!;
-    out[1] = 0;
-  }
-
-  /** The solvers' residual in ln space: ln(1 + r tau) + ln DF(E) - ln DF(S), the same root as (1 + r tau) DF(E) - DF(S). */
-  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.lnGrowth + ln[offset + 1]! - ln[offset]!;
   }
 
   /** The simple forward rate, expm1(ln DF(S) - ln DF(E)) / tau. */

@@ -4,6 +4,7 @@ import { civilFromIso, civilFromSerial, isoFromSerial, serialFromIso, type Civil
 import { averagedFixings } from '../time/futurePeriods.ts';
 import type { FutureQuote } from '../document/types.ts';
 import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+import { GrowthRatio } from './growthRatio.ts';
 
 /** The overnight rate's day basis of SOFR futures: ACT/360 (CME SOFR futures specifications). */
 export const FUTURE_BASIS = 360;
@@ -76,11 +77,9 @@ export function compileFuture(q: FutureQuote, settlement: IsoDate, t: number, ti
 }
 
 /** A three-month future: 0 at S and 1 + R tau at E against DF(S) on the curve. */
-class CompoundedFuture extends CompiledInstrument<FutureQuote> {
+class CompoundedFuture extends GrowthRatio<FutureQuote> {
   declare readonly tau: number;
-  /** ln(1 + R tau), NaN when the price implies a growth <= 0. */
   declare readonly lnGrowth: number;
-
   /** ln of the growth already fixed, over [S, c) (0 for a contract not yet in its period). */
   declare readonly lnKnown: number;
 
@@ -90,22 +89,8 @@ class CompoundedFuture extends CompiledInstrument<FutureQuote> {
     super(q, t, times, 'price', 'price', price, [0, (1 + r * tau) / Math.exp(lnKnown)], 1, null, DISCOUNTING_AND_PROJECTING);
     this.tau = tau;
     this.lnKnown = lnKnown;
+    // ln(1 + R tau) less the known growth, NaN when the price implies a growth <= 0.
     this.lnGrowth = 1 + r * tau > 0 ? Math.log1p(r * tau) - lnKnown : Number.NaN;
-  }
-
-  /** DF(S). */
-  targetFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
-    return df[offset]!;
-  }
-
-  targetSlopes(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, out: number[]): void {
-    out[0] = df[offset]!;
-    out[1] = 0;
-  }
-
-  /** ln(1 + R tau) + ln DF(E) - ln DF(S): the root of (1 + R tau) DF(E) - DF(S), exact in ln space. */
-  residualFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.lnGrowth + ln[offset + 1]! - ln[offset]!;
   }
 
   /** 100 (1 - R - CA) with R = expm1(ln known + ln DF(c) - ln DF(E)) / tau (c = S before the period). */
