@@ -58,3 +58,18 @@ describe('the futures convexity setting', () => {
     expect(useAppStore.getState().workspace.curve.futuresConvexity).toBeUndefined();
   });
 });
+
+describe('the futures convexity setting and the range a file is checked against', () => {
+  it('a volatility above 10% a year stays in the field, marked, and is not applied (the document check would refuse it)', () => {
+    // Range: CONVEXITY_VOLATILITY_MAX in src/core/instruments/convexity.ts, the engine's check of curve.futuresConvexity.
+    render(<App />);
+    fireEvent.change(screen.getByRole('combobox', { name: 'Futures convexity' }), { target: { value: 'ho-lee' } });
+    const field = screen.getByRole('textbox', { name: 'Volatility (% a year)' });
+    fireEvent.change(field, { target: { value: '12' } });
+    expect(field).toHaveAttribute('aria-invalid', 'true');
+    expect(useAppStore.getState().workspace.curve.futuresConvexity).toEqual({ model: 'ho-lee', volatility: 0.01 });
+    fireEvent.change(field, { target: { value: '1.5' } });
+    expect(field).not.toHaveAttribute('aria-invalid');
+    expect(useAppStore.getState().workspace.curve.futuresConvexity).toEqual({ model: 'ho-lee', volatility: 0.015 });
+  });
+});

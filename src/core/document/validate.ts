@@ -17,7 +17,7 @@ import { LIMITS } from './limits.ts';
 import type { ReadWorkspace, WorkspaceCurve } from './namedCurves.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
 import type { CalendarContext } from '../time/calendars.ts';
-import { CONVEXITY_MODELS, type ConvexityModel } from '../instruments/convexity.ts';
+import { CONVEXITY_MODELS, CONVEXITY_VOLATILITY_MAX, MEAN_REVERSION_MAX, type ConvexityModel } from '../instruments/convexity.ts';
 import { readMeetingSteps, readTurns } from './overnightSections.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
@@ -202,9 +202,6 @@ function checkCurve(v: unknown, errors: CoreError[]): CurveSettings | null {
   return { dayCount, interpolation, extrapolation, fit, ...(futuresConvexity ? { futuresConvexity } : {}) } as CurveSettings;
 }
 
-/** Volatilities the convexity model takes: 0 to 10% a year (absolute, decimal); mean reversion 0 to 2 a year. */
-const CONVEXITY_VOL_MAX = 0.1;
-const MEAN_REVERSION_MAX = 2;
 
 /**
  * `curve.futuresConvexity`: {"model": "ho-lee" | "hull-white", "volatility": decimal per root year,
@@ -230,7 +227,7 @@ function checkConvexityModel(v: unknown, errors: CoreError[]): ConvexityModel | 
     errors.push(coreError('range', `${path}.${key}`, `${path}.${key} must be a number from 0 to ${max} (${what}), not ${typeName(x)}`));
     return 0;
   };
-  const volatility = number('volatility', CONVEXITY_VOL_MAX, "the short rate's absolute volatility, a decimal a year: 0.01 is 100 bp");
+  const volatility = number('volatility', CONVEXITY_VOLATILITY_MAX, "the short rate's absolute volatility, a decimal a year: 0.01 is 100 bp");
   const meanReversion = model === 'ho-lee' ? 0 : number('meanReversion', MEAN_REVERSION_MAX, 'a decimal per year, such as 0.03');
   return errors.length > before ? null : { model: model as ConvexityModel['model'], volatility, meanReversion };
 }

@@ -24,6 +24,10 @@ import { formatNumber, formatPercent } from '../format/quantities.ts';
 export const CONVEXITY_MODELS = ['ho-lee', 'hull-white'] as const;
 export type ConvexityModelId = (typeof CONVEXITY_MODELS)[number];
 
+/** The inputs a model takes: volatility 0 to 10% a year (absolute, decimal), mean reversion 0 to 2 a year. */
+export const CONVEXITY_VOLATILITY_MAX = 0.1;
+export const MEAN_REVERSION_MAX = 2;
+
 /** A model and its inputs: `volatility` (decimal per root year), `meanReversion` (per year; Hull-White only). */
 export interface ConvexityModel {
   readonly model: ConvexityModelId;

@@ -2,6 +2,8 @@ import { memo, useEffect, useState } from 'react';
 import {
   COMPOUNDINGS,
   CONVEXITY_MODELS,
+  CONVEXITY_VOLATILITY_MAX,
+  MEAN_REVERSION_MAX,
   convexityModelName,
   conventionSet,
   readRate,
@@ -99,19 +101,23 @@ function ConvexitySetting() {
         </select>
       </label>
       {id !== 'none' && (
-        <NumberSetting label="Volatility (% a year)" value={vol} scale="percent" onValue={(v) => apply(id, v, a)} />
+        <NumberSetting label="Volatility (% a year)" value={vol} scale="percent" max={CONVEXITY_VOLATILITY_MAX} onValue={(v) => apply(id, v, a)} />
       )}
-      {id === 'hull-white' && <NumberSetting label="Mean reversion (a year)" value={a} scale="decimal" onValue={(v) => apply(id, vol, v)} />}
+      {id === 'hull-white' && <NumberSetting label="Mean reversion (a year)" value={a} scale="decimal" max={MEAN_REVERSION_MAX} onValue={(v) => apply(id, vol, v)} />}
     </>
   );
 }
 
 /** A number field that applies each complete, exact reading (`readRate`) and keeps what is being typed. */
-function NumberSetting({ label, value, scale, onValue }: { label: string; value: number; scale: 'percent' | 'decimal'; onValue: (v: number) => void }) {
+function NumberSetting({ label, value, scale, max, onValue }: { label: string; value: number; scale: 'percent' | 'decimal'; max: number; onValue: (v: number) => void }) {
   const shown = scale === 'percent' ? readRate(String(value), 'decimal') : null;
   const text = shown && shown.ok ? shown.value.typed.shifted(2).toFixed() : String(value);
   const [draft, setDraft] = useState(text);
   useEffect(() => setDraft(text), [text]);
+  const r = readRate(draft, scale);
+  // The range a file is checked against (instruments/convexity.ts): a value outside it stays in the field, marked, and is not applied.
+  const ok = r.ok && r.value.bare && r.value.rate >= 0 && r.value.rate <= max;
+  const range = scale === 'percent' ? `0 to ${max * 100}` : `0 to ${max}`;
   return (
     <label>
       {label}
@@ -119,10 +125,12 @@ function NumberSetting({ label, value, scale, onValue }: { label: string; value:
         className="narrow"
         inputMode="decimal"
         value={draft}
+        aria-invalid={!ok || undefined}
+        title={ok ? undefined : `A number from ${range}; the setting keeps its last value until then`}
         onChange={(e) => {
           setDraft(e.target.value);
-          const r = readRate(e.target.value, scale);
-          if (r.ok && r.value.bare) onValue(r.value.rate);
+          const next = readRate(e.target.value, scale);
+          if (next.ok && next.value.bare && next.value.rate >= 0 && next.value.rate <= max) onValue(next.value.rate);
         }}
       />
     </label>
