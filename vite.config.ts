@@ -77,6 +77,34 @@ function appChunk(id: string, ctx: { getModuleInfo(id: string): { isEntry: boole
   return 'later';
 }
 
+/**
+ * d3-scale's linear scale reaches two packages whose features the charts never use: colour parsing
+ * (d3-color, through d3-interpolate's generic interpolator, which the scale keeps as its default) and
+ * number formats (d3-format, through `tickFormat`). The charts map numbers to numbers and label
+ * ticks with the core's formatting (src/core/format), so both resolve to small stand-ins when d3
+ * imports them: no string is a colour (`color` and `rgb` answer null: a string range would be
+ * interpolated as a string, never reached here), and a d3 number format throws, naming the module to
+ * use. About 5 KB of the gzip budget (test/browser/security.test.ts) comes back; tests and the build
+ * resolve the same way, so a chart that started to need either would fail its tests.
+ */
+const D3_STAND_INS: Record<string, string> = {
+  'd3-color': ['color', 'rgb', 'hsl', 'lab', 'hcl', 'cubehelix'].map((n) => `export const ${n} = () => null;`).join('\n'),
+  'd3-format': ['format', 'formatPrefix', 'formatSpecifier', 'precisionFixed', 'precisionPrefix', 'precisionRound']
+    .map((n) => `export const ${n} = () => { throw new Error('d3 number formats are not bundled: format chart labels with src/core/format'); };`)
+    .join('\n'),
+};
+const d3StandIns = (): Plugin => ({
+  name: 'tenorscope-d3-stand-ins',
+  enforce: 'pre',
+  resolveId(id, importer) {
+    if (id in D3_STAND_INS && importer !== undefined && /node_modules[\\/]d3-(interpolate|scale)[\\/]/.test(importer)) return `\0d3-stand-in:${id}`;
+    return null;
+  },
+  load(id) {
+    return id.startsWith('\0d3-stand-in:') ? D3_STAND_INS[id.slice('\0d3-stand-in:'.length)] : null;
+  },
+});
+
 const contentSecurityPolicy = (): Plugin => ({
   name: 'tenorscope-csp',
   apply: 'build',
@@ -91,7 +119,7 @@ const contentSecurityPolicy = (): Plugin => ({
 });
 
 export default defineConfig({
-  plugins: [react(), contentSecurityPolicy()],
+  plugins: [react(), d3StandIns(), contentSecurityPolicy()],
   define: { __BUILD_ID__: JSON.stringify(buildId) },
   server: { port: 5173, strictPort: false },
   // No modulepreload polyfill: every browser the es2022 target runs in preloads modules itself, and
