@@ -5,7 +5,8 @@
 // zeroOn / forwardOn bit for bit), both curves' steps are listed, and Escape gives the focus back.
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { applyScenario, fullText, scenarioEffects, type EffectConventions, type Scenario } from '../../src/core/index.ts';
+import { applyScenario, buildCurve, fullText, scenarioEffects, type EffectConventions, type Scenario } from '../../src/core/index.ts';
+import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { ScenarioPanel } from '../../src/features/scenarios/ScenarioPanel.tsx';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
@@ -42,6 +43,22 @@ describe('explanations in the Scenarios table', () => {
     expect(steps.at(-1)).toBe(`change = (scenario rate - base rate) x 10,000 bp = ${fullText(figure)} (bp (1 bp = 0.0001 of the rate))`);
     expect(steps.some((s) => s!.startsWith('base curve: lnP = ln DF(end) - ln DF(start)'))).toBe(true);
     expect(steps.some((s) => s!.startsWith('scenario curve: lnP = ln DF(end) - ln DF(start)'))).toBe(true);
+    // The quotes behind it (the base forward's, each a link to its row) and the change under each method.
+    const links = within(within(panel).getByRole('region', { name: 'Quotes it depends on most' })).getAllByRole('button', { name: /^Row \d+:/ });
+    expect(links.length).toBe(5);
+    const model = explainKeyCell(result, display, { change: { scenario: scenarios[0]!, tenor: '10Y', field: 'forward', conventions, buildOptions: {} } });
+    if (!model.ok) throw new Error('model');
+    expect(model.value.methods.length).toBe(5);
+    for (const m of model.value.methods) {
+      // Recomputed here as the table would under that method: the document built with it, the scenario applied, the change read.
+      const built = buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: m.method });
+      const movedUnder = applyScenario(scenarios[0]!, built.workspace!, built.curve!, { interpolation: m.method });
+      if (!movedUnder.ok) throw new Error(m.method);
+      expect(m.value).toBe(scenarioEffects(built.curve!, movedUnder.value.curve, ['10Y'], conventions)[0]!.forwardBp);
+      if (m.current) expect(m.value).toBe(figure);
+    }
+    expect(new Set(model.value.methods.map((m) => m.value)).size).toBeGreaterThan(1);
+    expect(within(panel).getByRole('region', { name: /method/i }).textContent).toContain(fullText(model.value.methods[1]!.value!));
     await user.keyboard('{Escape}');
     expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
     expect(button).toHaveFocus();

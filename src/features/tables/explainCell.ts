@@ -29,6 +29,7 @@ import {
   type MethodValue,
   type Result,
 } from '../../core/index.ts';
+import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 
 /** The key-maturity cells that explain themselves. */
@@ -159,7 +160,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if (!influences.ok) quotesNote = influences.errors[0]!.message;
   const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
   // The workspace's document built under each method, as the workbench builds it (skipping wrong rows).
-  const methods = valueUnderEachMethod(curve.interpolation, (method: InterpolationId) => buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: method }), read);
+  const methods = valueUnderEachMethod(curve.interpolation, (method: InterpolationId) => buildUnder(result, method), read);
   const title =
     !('tenor' in cell) ? (cell.title ?? (cell.field === 'zero' ? `Zero rate on ${date}` : `${display.forwardTenor} forward rate starting ${date} (${date} to ${end})`))
     : cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
@@ -175,20 +176,62 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   return { ok: true, value: { title, explanation, sections, quotes, quotesNote, methods, text } };
 }
 
-/** The explanation of a scenario change: the base and scenario rates' explanations and the change in bp (explainScenarioChange). */
+/**
+ * The workspace's document built under `method`, as the workbench builds it: skipping wrong rows,
+ * with the turns and meeting steps' code when loaded (without it such a document builds no curve).
+ */
+function buildUnder(result: WorkbenchBuild, method: InterpolationId, options: BuildOptions = workbenchBuildOptions()) {
+  return buildCurve(result.conversion.doc, { ...options, skipInvalid: true, interpolation: method });
+}
+
+/**
+ * The explanation of a scenario change: the base and scenario rates' explanations and the change in
+ * bp (explainScenarioChange); the quotes behind it are those of the base rate (the change is the
+ * scenario's shift, which the quotes move only through the curve's shape), and the same change
+ * under each method applies the scenario to the base curve built under that method.
+ */
 function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Result<CellExplanation> {
   const base = result.build.curve;
   const ws = result.build.workspace;
   if (!base || !ws) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
-  const moved = applyScenario(c.scenario, ws, base, c.buildOptions);
-  if (!moved.ok) return moved;
-  const r = explainScenarioChange(base, moved.value.curve, c.tenor, c.field, c.conventions);
+  const change = (on: Curve, workspace: typeof ws, method: InterpolationId) => {
+    const moved = applyScenario(c.scenario, workspace, on, { ...c.buildOptions, interpolation: method });
+    return moved.ok ? explainScenarioChange(on, moved.value.curve, c.tenor, c.field, c.conventions) : moved;
+  };
+  const r = change(base, ws, base.interpolation);
   if (!r.ok) return r;
   const explanation = r.value.explanation;
   const what = c.field === 'zero' ? 'zero rate' : `${c.conventions.forwardTenor} forward rate`;
   const title = `Change of the ${c.tenor} ${what} under ${c.scenario.name} (${explanation.dates[0]!.adjusted})`;
+  const baseDates = r.value.base.dates;
+  const start = baseDates.find((d) => d.name === 'start')?.adjusted ?? base.settlement;
+  const end = (baseDates.find((d) => d.name === 'end') ?? baseDates.find((d) => d.name === 'date'))!.adjusted;
+  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
+  const zero = c.field === 'zero';
+  const conv = c.conventions;
+  const influences = topQuoteInfluences(base, result.build.instruments, start, end, zero ? conv.zeroCompounding : conv.forwardCompounding, zero ? conv.zeroDayCount : conv.forwardDayCount);
+  const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
+  const quotesNote = influences.ok
+    ? `of the base ${what}: the change is the scenario's shift, and the scenario rate moves with these quotes as the base rate does`
+    : influences.errors[0]!.message;
+  // The document is the same under every method (only the interpolation differs), so is its workspace.
+  const methods = valueUnderEachMethod(
+    base.interpolation,
+    (method) => buildUnder(result, method, c.buildOptions),
+    (on): Result<number> => {
+      const v = change(on, ws, on.interpolation);
+      return v.ok ? { ok: true, value: v.value.explanation.value } : v;
+    },
+  );
+  const extras = {
+    title,
+    quoteLabel: (index: number) => rowWords(rowOf(index)),
+    topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
+    topQuotesNote: quotesNote,
+    methods,
+  };
   return {
     ok: true,
-    value: { title, explanation, sections: explanationSections(explanation), quotes: [], quotesNote: null, methods: [], text: explanationText(explanation, { title }) },
+    value: { title, explanation, sections: explanationSections(explanation, extras), quotes, quotesNote, methods, text: explanationText(explanation, extras) },
   };
 }

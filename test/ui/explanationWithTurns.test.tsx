@@ -1,0 +1,46 @@
+// @vitest-environment jsdom
+// The explanation's "same number under each method" for a workspace with a year-end turn: each
+// method's build must carry the turns' code as the workbench's own build does (before, every method
+// but none said the turns were loading, and no figure was shown). The value under the current method
+// is the explained number itself. Quotes invented; the turn is a year-end date range as in
+// MARKET-CONVENTIONS.md section h (common practice: a spread on the overnight rate over the turn).
+import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
+import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
+import { workbenchFromEngine } from '../../src/core/index.ts';
+
+const ENGINE = {
+  format: 'tenorscope-workspace',
+  version: 2,
+  valuationDate: '2022-03-01',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10 }],
+  quotes: [
+    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
+    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
+    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
+    { kind: 'deposit', maturity: '2023-03-01', rate: 0.025 },
+    { kind: 'ois', tenor: '2Y', rate: 0.028 },
+    { kind: 'ois', tenor: '3Y', rate: 0.029 },
+  ],
+};
+
+beforeAll(() => loadOvernightKit());
+
+describe('explanations of a curve with turns', () => {
+  it('give the number under every method, the current one equal to the explained value', () => {
+    let n = 0;
+    const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
+    if (!doc.ok) throw new Error(doc.errors[0]!.message);
+    const result = deriveBuild(doc.value);
+    expect(result.build.curve).not.toBeNull();
+    const model = explainKeyCell(result, doc.value.display, { tenor: '1Y', field: 'forward' });
+    if (!model.ok) throw new Error(model.errors[0]!.message);
+    expect(model.value.methods.length).toBe(5);
+    for (const m of model.value.methods) {
+      expect(m.error).toBeNull();
+      expect(Number.isFinite(m.value)).toBe(true);
+    }
+    expect(model.value.methods.find((m) => m.current)!.value).toBe(model.value.explanation.value);
+  });
+});
