@@ -64,4 +64,27 @@ describe('explanations in the Scenarios table', () => {
     expect(button).toHaveFocus();
     expect(button).toHaveAttribute('aria-expanded', 'false');
   });
+
+  it('an open change follows its scenario when the scenario is edited', async () => {
+    const user = userEvent.setup({ delay: null });
+    const doc = useAppStore.getState().workspace;
+    const display = doc.display;
+    const result = deriveBuild(doc);
+    const base = result.build.curve!;
+    const conventions: EffectConventions = { zeroCompounding: display.compounding, zeroDayCount: display.dayCount, forwardTenor: display.forwardTenor, forwardCompounding: display.compounding, forwardDayCount: display.dayCount };
+    const at = (bp: number): Scenario[] => [{ id: 's1', name: 'Higher', space: 'zero', shape: { kind: 'parallel', bp } }];
+    const props = { onChange: () => {}, workspace: result.build.workspace, base, conventions, tenors: ['2Y', '5Y'], explainFrom: { result, display } };
+    const view = render(<ScenarioPanel value={at(25)} {...props} />);
+    await user.click(within(screen.getByRole('table', { name: 'Scenario changes at key maturities' })).getByRole('button', { name: /explain the change of the 5Y zero rate under Higher/ }));
+    const panel = await screen.findByRole('complementary', { name: /Change of the 5Y zero rate under Higher/ });
+    const figure = (bp: number) => {
+      const moved = applyScenario(at(bp)[0]!, result.build.workspace!, base);
+      if (!moved.ok) throw new Error('scenario');
+      return scenarioEffects(base, moved.value.curve, ['5Y'], conventions)[0]!.zeroBp!;
+    };
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure(25)));
+    view.rerender(<ScenarioPanel value={at(-40)} {...props} />);
+    expect(screen.getByRole('complementary', { name: /Change of the 5Y zero rate under Higher/ }).querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure(-40)));
+    expect(figure(-40)).not.toBe(figure(25));
+  });
 });

@@ -1,3 +1,4 @@
+import { useMemo } from 'react';
 import { formatBpChange, NO_VALUE, type BuildOptions, type DisplaySettings, type EffectConventions, type EffectField, type EffectRow, type Scenario } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import type { ChangeCell } from '../tables/explainCell.ts';
@@ -25,7 +26,13 @@ const sameChange = (a: ChangeCell, b: ChangeCell): boolean => a.change.scenario.
 /** Changes in bp of zero rates and forwards at the key maturities, one pair of columns per scenario; with `explain`, each change opens its explanation. */
 export function ScenarioTable({ tenors, columns, conventions, explain }: ScenarioTableProps) {
   const opener = useExplainOpener<ChangeCell>(sameChange);
-  const open = opener.open !== null && columns.some((c) => c.scenario?.id === opener.open!.change.scenario.id && !c.error) ? opener.open : null;
+  // The open change follows its scenario as edited since (and the table's conventions and build options): the cell names it by id.
+  const openColumn = opener.open === null ? undefined : columns.find((c) => c.scenario?.id === opener.open!.change.scenario.id && !c.error);
+  const openScenario = openColumn?.scenario;
+  const open = useMemo<ChangeCell | null>(
+    () => (opener.open !== null && openScenario && explain ? { change: { ...opener.open.change, scenario: openScenario, conventions: explain.conventions, buildOptions: explain.buildOptions } } : null),
+    [opener.open, openScenario, explain?.conventions, explain?.buildOptions],
+  );
   const figure = (c: ScenarioTableProps['columns'][number], t: string, r: EffectRow | null, field: EffectField) => {
     const bp = field === 'zero' ? r?.zeroBp : r?.forwardBp;
     const text = c.error ? NO_VALUE : formatBpChange(bp);
