@@ -51,7 +51,7 @@ const BASE_TABS: readonly TabDef[] = [
     label: 'Forward calculator',
     render: needCurve((r) => (
       <Suspense fallback={<p className="muted small" role="status">Loading the forward calculator…</p>}>
-        <ForwardCalculator curve={r.build.curve!} />
+        <ForwardCalculator curve={r.build.curve!} result={r} />
       </Suspense>
     )),
   },

@@ -6,7 +6,7 @@
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
-import { forwardBetween } from '../../src/core/index.ts';
+import { forwardBetween, fullText } from '../../src/core/index.ts';
 import { formatPercent } from '../../src/core/index.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
@@ -73,5 +73,24 @@ describe('Forward grid axes', { timeout: 30_000 }, () => {
     await user.type(starts, ', x');
     expect(screen.getByRole('alert')).toHaveTextContent(/Starts: "X" is not a tenor/);
     expect(within(screen.getByRole('table', { name: 'Forward grid' })).getAllByRole('rowheader').map((h) => h.textContent)).toEqual(['1Y', '2Y', '5Y', '10Y']);
+  });
+
+  it('a forward opens its explanation beside the table, ending in the calculator\'s figure to all digits', async () => {
+    const user = userEvent.setup({ delay: null });
+    render(<App />);
+    await user.click(screen.getByRole('tab', { name: 'Forward calculator' }));
+    const table = await screen.findByRole('table', { name: 'Forward calculator' });
+    const doc = useAppStore.getState().workspace;
+    const curve = deriveBuild(doc).build.curve!;
+    const f = forwardBetween(curve, '5Y', '5Y', doc.display.compounding, doc.display.dayCount);
+    if (!f.ok) throw new Error('forward');
+    const button = within(table).getByRole('button', { name: `${formatPercent(f.value.rate)}: explain forward 3 (${f.value.start} to ${f.value.end})` });
+    await user.click(button);
+    const panel = await screen.findByRole('complementary', { name: /Forward rate 3 of the calculator/ });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(f.value.rate));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem');
+    expect(steps.at(-1)!.textContent).toContain(`= ${fullText(f.value.rate)}`);
+    expect(panel.textContent).toContain(`DF = ${fullText(f.value.dfStart)}`);
+    expect(panel.textContent).toContain(`DF = ${fullText(f.value.dfEnd)}`);
   });
 });

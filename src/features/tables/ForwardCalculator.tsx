@@ -3,6 +3,9 @@ import { forwardBetween, type Curve, formatNumber, formatPercent, rateTag } from
 import { useAppStore } from '../../state/store.ts';
 import { setViewValues, viewList } from '../../state/viewValues.ts';
 import { EditLock } from '../../components/EditLock.tsx';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import type { DatedCell } from './explainCell.ts';
+import { OpenExplanation, useExplainOpener } from './explainOpener.tsx';
 
 /** Rows the calculator starts with: a 3-month forward from settlement, 1y1y and 5y5y. */
 const DEFAULT_STARTS = ['', '1Y', '5Y'];
@@ -15,9 +18,9 @@ const FIELD_CHARS = 20;
  * Forwards between any start and end, typed as tenors or dates: the start from settlement (empty
  * for settlement), the end from the start. Rows are kept in the document's view, so they are saved,
  * undone and shared; each figure is the core's forwardBetween, in the display compounding and day
- * count.
+ * count. With the build, each forward opens its explanation (a forward between its two dates).
  */
-export function ForwardCalculator({ curve }: { curve: Curve }) {
+export function ForwardCalculator({ curve, result }: { curve: Curve; result?: WorkbenchBuild }) {
   const doc = useAppStore((s) => s.workspace);
   const display = doc.display;
   const starts = viewList(doc, 'forwardCalcStarts', DEFAULT_STARTS);
@@ -29,6 +32,7 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
   );
   const tag = rateTag(display.compounding, display.dayCount);
   const id = useId();
+  const explain = useExplainOpener<DatedCell>((a, b) => a.start === b.start && a.end === b.end);
   const write = (nextStarts: readonly string[], nextEnds: readonly string[], label: string, mergeKey?: string) =>
     setViewValues({ forwardCalcStarts: [...nextStarts.slice(0, n)], forwardCalcEnds: [...nextEnds.slice(0, n)] }, label, mergeKey);
   const edit = (i: number, which: 'start' | 'end', text: string) => {
@@ -51,6 +55,7 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
       <p className="muted small" id={`${id}-help`}>
         Start: empty for the settlement date {curve.settlement}, a tenor from settlement (1Y) or a date (YYYY-MM-DD). End: a tenor from the start (6M) or a date. Tenors are added unadjusted; a month end past the month's last day is clipped.
       </p>
+      <div className="key-maturities">
       <div className="scroll-x" tabIndex={0} role="region" aria-label="Forward calculator (scrolls sideways)">
         <table className="data" aria-label="Forward calculator">
           <caption>
@@ -88,7 +93,19 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
                     <td className="n">{formatNumber(r.value.dfStart, 8)}</td>
                     <td className="n">{formatNumber(r.value.dfEnd, 8)}</td>
                     <td className="n" data-forward={i + 1}>
-                      {formatPercent(r.value.rate)}
+                      {result ? (
+                        <button
+                          type="button"
+                          className="cell-explain"
+                          aria-label={`${formatPercent(r.value.rate)}: explain forward ${i + 1} (${r.value.start} to ${r.value.end})`}
+                          aria-expanded={explain.isOpen({ field: 'forward', start: r.value.start, end: r.value.end })}
+                          onClick={(e) => explain.toggle(e, { field: 'forward', start: r.value.start, end: r.value.end, title: `Forward rate ${i + 1} of the calculator (${r.value.start} to ${r.value.end})` })}
+                        >
+                          {formatPercent(r.value.rate)}
+                        </button>
+                      ) : (
+                        formatPercent(r.value.rate)
+                      )}
                       {r.value.extrapolated ? <abbr title="past the last pillar: extrapolated">*</abbr> : null}
                     </td>
                   </>
@@ -106,6 +123,8 @@ export function ForwardCalculator({ curve }: { curve: Curve }) {
             ))}
           </tbody>
         </table>
+      </div>
+      {result ? <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} /> : null}
       </div>
       <button type="button" onClick={add} disabled={n >= FORWARD_CALC_ROWS}>
         Add a forward
