@@ -77,3 +77,22 @@ export const INVENTED_2027_EVERY_KIND: readonly Quote[] = [
   INVENTED_2027.swap10Y,
   INVENTED_2027.swap30Y,
 ];
+
+/**
+ * An invented 2022 overnight market (version 2 engine document): deposits to one year and OIS to
+ * three years, on the default weekends-only calendar, for tests of turns and meeting steps.
+ */
+export const INVENTED_2022_OVERNIGHT = {
+  format: 'tenorscope-workspace',
+  version: 2,
+  valuationDate: '2022-03-01',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  quotes: [
+    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
+    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
+    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
+    { kind: 'deposit', maturity: '2023-03-01', rate: 0.025 },
+    { kind: 'ois', tenor: '2Y', rate: 0.028 },
+    { kind: 'ois', tenor: '3Y', rate: 0.029 },
+  ],
+} as const;

@@ -16,14 +16,18 @@ vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed ch
 const initial = useAppStore.getInitialState();
 beforeEach(() => useAppStore.setState(initial, true));
 
+/** The demo workspace's build and the table's conventions (the display's compounding and day count). */
+function demoBuild() {
+  const display = useAppStore.getState().workspace.display;
+  const result = deriveBuild(useAppStore.getState().workspace);
+  const conventions: EffectConventions = { zeroCompounding: display.compounding, zeroDayCount: display.dayCount, forwardTenor: display.forwardTenor, forwardCompounding: display.compounding, forwardDayCount: display.dayCount };
+  return { display, result, base: result.build.curve!, conventions };
+}
+
 describe('explanations in the Scenarios table', () => {
   it('a forward change opens its explanation, ending in the shown figure to all digits', async () => {
     const user = userEvent.setup({ delay: null });
-    const doc = useAppStore.getState().workspace;
-    const display = doc.display;
-    const result = deriveBuild(doc);
-    const base = result.build.curve!;
-    const conventions: EffectConventions = { zeroCompounding: display.compounding, zeroDayCount: display.dayCount, forwardTenor: display.forwardTenor, forwardCompounding: display.compounding, forwardDayCount: display.dayCount };
+    const { display, result, base, conventions } = demoBuild();
     const scenarios: Scenario[] = [{ id: 's1', name: 'Steeper', space: 'quotes', shape: { kind: 'twist', short: '2Y', pivot: '5Y', long: '10Y', bp: 30 } }];
     render(<ScenarioPanel value={scenarios} onChange={() => {}} workspace={result.build.workspace} base={base} conventions={conventions} tenors={['2Y', '5Y', '10Y']} explainFrom={{ result, display }} />);
     // The table's figure, as the table computes it.
@@ -67,11 +71,7 @@ describe('explanations in the Scenarios table', () => {
 
   it('an open change follows its scenario when the scenario is edited', async () => {
     const user = userEvent.setup({ delay: null });
-    const doc = useAppStore.getState().workspace;
-    const display = doc.display;
-    const result = deriveBuild(doc);
-    const base = result.build.curve!;
-    const conventions: EffectConventions = { zeroCompounding: display.compounding, zeroDayCount: display.dayCount, forwardTenor: display.forwardTenor, forwardCompounding: display.compounding, forwardDayCount: display.dayCount };
+    const { display, result, base, conventions } = demoBuild();
     const at = (bp: number): Scenario[] => [{ id: 's1', name: 'Higher', space: 'zero', shape: { kind: 'parallel', bp } }];
     const props = { onChange: () => {}, workspace: result.build.workspace, base, conventions, tenors: ['2Y', '5Y'], explainFrom: { result, display } };
     const view = render(<ScenarioPanel value={at(25)} {...props} />);

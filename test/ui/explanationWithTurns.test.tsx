@@ -8,22 +8,9 @@ import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { workbenchFromEngine } from '../../src/core/index.ts';
+import { INVENTED_2022_OVERNIGHT } from '../helpers/markets.ts';
 
-const ENGINE = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-03-01',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10 }],
-  quotes: [
-    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
-    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
-    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
-    { kind: 'deposit', maturity: '2023-03-01', rate: 0.025 },
-    { kind: 'ois', tenor: '2Y', rate: 0.028 },
-    { kind: 'ois', tenor: '3Y', rate: 0.029 },
-  ],
-};
+const ENGINE = { ...INVENTED_2022_OVERNIGHT, turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10 }] };
 
 beforeAll(() => loadOvernightKit());
 

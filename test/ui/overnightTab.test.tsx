@@ -4,29 +4,17 @@
 // Every figure shown must be the core's own (meetingStepTable, overnightForwardView).
 // Sources: SOFR's 2022-2023 effective dates (MARKET-CONVENTIONS.md section h: SOFR stepped on
 // 2022-03-17, 2022-11-03, 2022-12-15, 2023-07-27). The sheet's OIS rows carry the default
-// calendar (weekends only), which the turns then read. The quotes are invented.
+// calendar (weekends only), which the turns then read. The quotes are invented (test/helpers/markets.ts).
 import { act, fireEvent, render, screen, within } from '@testing-library/react';
 import { OvernightTab } from '../../src/features/overnight/OvernightTab.tsx';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { formatBpChange, meetingStepTable, workbenchFromEngine } from '../../src/core/index.ts';
+import { INVENTED_2022_OVERNIGHT } from '../helpers/markets.ts';
 
 const s = () => useAppStore.getState();
-const ENGINE = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-03-01',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
-    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
-    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
-    { kind: 'deposit', maturity: '2023-03-01', rate: 0.025 },
-    { kind: 'ois', tenor: '2Y', rate: 0.028 },
-    { kind: 'ois', tenor: '3Y', rate: 0.029 },
-  ],
-};
+const ENGINE = INVENTED_2022_OVERNIGHT;
 
 function Live() {
   const result = useCurveBuild();
