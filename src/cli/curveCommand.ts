@@ -129,7 +129,8 @@ const HELP =
   '  --skip-invalid        build from the valid quotes and list the others under warnings\n' +
   '  --explain             each point and forward carries an explain object: dates, year fractions, discount\n' +
   '                        factors read (node or interpolated, between which nodes), the steps, the five quotes\n' +
-  '                        it depends on most (bp per bp) and its value under each interpolation method\n' +
+  '                        it depends on most (bp per bp) and its value under each interpolation method; on a\n' +
+  '                        named curve the quotes may be of any curve it reads, each naming its curve\n' +
   '  --holidays C,FROM,TO  (repeatable; no FILE needed) one line per calendar with the weekdays from FROM to TO\n' +
   `                        it is closed: ${BUILT_IN_CALENDARS.join(', ')}, joined with + (a holiday in any)\n` +
   '  --help, -h            this text;  --version  the version\n' +
