@@ -48,6 +48,8 @@ export * from './analytics/forwardSensitivity.ts';
 export * from './analytics/sensitivityMap.ts';
 export * from './analytics/explainRisk.ts';
 export * from './analytics/crossCurveSensitivity.ts';
+export * from './scenarios/namedCurveScenario.ts';
+export * from './roll/rollOnCurve.ts';
 export { nodePartials } from './analytics/nodePartials.ts';
 export { luFactor, luSolve, luInverse, type LuFactors } from './numeric/luDecomposition.ts';
 export * from './input/index.ts';
