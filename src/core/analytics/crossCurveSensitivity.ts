@@ -99,7 +99,7 @@ function blocksOf(name: string, byName: ReadonlyMap<string, CurveWithQuotes>, me
       r.times.push(s.t), r.slopes.push(s.slope), r.rows.push(i);
     }
   });
-  const { jacobian, yields, pricingSlopes } = quoteNodeJacobian(c.curve, c.instruments, [], bridgeOf(c));
+  const { jacobian, yields, pricingSlopes } = quoteNodeJacobian(c.curve, c.instruments);
   const lu = luFactor(jacobian, n);
   if (!lu) return fail(coreError('no-solution', 'quotes', `the quotes of the curve "${name}" do not determine its nodes one to one (a singular Jacobian); check for quotes that repeat the same information`));
   const inv = luInverse(lu);

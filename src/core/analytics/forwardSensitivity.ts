@@ -9,6 +9,7 @@ import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import { formatTenor, type Tenor } from '../time/tenor.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 import { nodePartials } from './nodePartials.ts';
+import { spotGapOf } from '../bootstrap/spotBridge.ts';
 import { quoteYieldOf, requoteAtYield, type QuoteYield } from './quoteYield.ts';
 
 /** One forward of the sensitivity map: the rate over [start, end] in the map's compounding and day count. */
@@ -92,14 +93,15 @@ const columnsOf = (instruments: readonly Instrument[], yields: readonly QuoteYie
  * with dG_i/dq_i from central differences of +-1e-4 and +-5e-5 in the own yield on the fixed curve,
  * Richardson-combined (truncation O(h^4), about 1e-13 relative; exact for the kinds whose flows
  * or target are linear in the quote). Row-major, n x n, instruments in
- * pillar order (`spotBridge`: the build's spot bridge time, as nodePartials takes it). Also returns the node partials at the extra times asked for, and each quote's
+ * pillar order (`spotBridge`: the build's spot bridge time, as nodePartials takes it, by default
+ * found again from the instruments as the bootstrap finds it, bootstrap/spotBridge.ts). Also returns the node partials at the extra times asked for, and each quote's
  * dG_i/dq_i (`pricingSlopes`, which the sensitivities across curves divide by).
  */
 export function quoteNodeJacobian(
   curve: Curve,
   instruments: readonly Instrument[],
   extraTimes: readonly number[] = [],
-  spotBridge?: number,
+  spotBridge: number | undefined = spotGapOf(curve.settlement, curve.dayCount, instruments)?.t,
 ): { jacobian: Float64Array; yields: QuoteYield[]; extraPartials: Float64Array; pricingSlopes: Float64Array } {
   const n = instruments.length;
   const index = new Map<number, number>();
