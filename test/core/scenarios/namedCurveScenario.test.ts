@@ -1,22 +1,19 @@
 import { describe, expect, it } from 'vitest';
 import {
-  analyseRollOnCurve,
-  analyseRollVsTerm,
   applyScenario,
   applyScenarioOnCurve,
   buildCurve,
   buildNamedCurves,
-  DEFAULT_STRATEGY,
   readNamedCurves,
   type Curve,
   type Scenario,
 } from '../../../src/core/index.ts';
 import { expectClose } from '../../helpers/asserts.ts';
 
-// Scenarios and roll versus term on a named curve (issue 18 item 11: they name the curve they
-// use). Oracles: the definition of a parallel zero-space shift (every continuous zero rate moves
+// Scenarios on a named curve (issue 18 item 11: they name the curve they use; roll versus term in
+// test/core/roll/rollOnCurve.test.ts). Oracles: the definition of a parallel zero-space shift (every continuous zero rate moves
 // by the same bp), the project's own builds of a document whose quotes were moved by hand
-// (buildCurve, buildNamedCurves), and applyScenario / analyseRollVsTerm on one curve. The market
+// (buildCurve, buildNamedCurves) and applyScenario on one curve. The market
 // is the invented two-curve document of test/core/bootstrap/namedCurves.test.ts.
 
 type Q = Record<string, unknown> & { rate: number };
@@ -84,35 +81,5 @@ describe('applyScenarioOnCurve', () => {
     const r = applyScenarioOnCurve(parallel(10, 'zero'), ws, main.curve!, named, 'euribor3m');
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors[0]!.message).toBe('parallel 10 bp (zero): no curve is named "euribor3m"; apply it to one of "default", "euribor6m"');
-  });
-});
-
-describe('analyseRollOnCurve', () => {
-  it('on the projection curve: analyseRollVsTerm on that curve, naming it; on the default curve the same as today', () => {
-    const { main, projection } = buildAll(docOf());
-    const curves = { default: main.curve!, euribor6m: projection };
-    const r = analyseRollOnCurve(curves, 'euribor6m', DEFAULT_STRATEGY);
-    const one = analyseRollVsTerm(projection, DEFAULT_STRATEGY);
-    if (!r.ok || !one.ok) throw new Error('no analysis');
-    const { curveName, ...rest } = r.value;
-    expect(curveName).toBe('euribor6m');
-    expect(rest).toEqual(one.value);
-    const d = analyseRollOnCurve(curves, 'default', DEFAULT_STRATEGY);
-    const today = analyseRollVsTerm(main.curve!, DEFAULT_STRATEGY);
-    if (!d.ok || !today.ok) throw new Error('no analysis');
-    expect({ ...d.value, curveName: undefined }).toEqual({ ...today.value, curveName: undefined });
-    // The two curves give different spot roll rates (the check can tell them apart).
-    expect(r.value.spotRollRate).not.toBe(d.value.spotRollRate);
-  });
-
-  it('errors name the curve they were read on, and an unknown curve lists the curves', () => {
-    const { main, projection } = buildAll(docOf());
-    const curves = { default: main.curve!, euribor6m: projection };
-    const bad = analyseRollOnCurve(curves, 'euribor6m', { ...DEFAULT_STRATEGY, ridingMaturity: '1Y' });
-    expect(bad.ok).toBe(false);
-    if (!bad.ok) expect(bad.errors[0]!.message).toMatch(/^on the curve "euribor6m": strategy\.ridingMaturity: the riding bond must mature after the horizon/);
-    const unknown = analyseRollOnCurve(curves, 'govt', DEFAULT_STRATEGY);
-    if (!unknown.ok) expect(unknown.errors[0]!.message).toBe('strategy.curve: no curve is named "govt"; use one of "default", "euribor6m"');
-    expect(unknown.ok).toBe(false);
   });
 });
