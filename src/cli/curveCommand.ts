@@ -35,13 +35,16 @@ import {
   buildNamedCurves,
   discountedOnOf,
   readNamedCurves,
+  DEFAULT_CURVE_NAME,
   type Curve,
   type CurveBuild,
   type Workspace,
   explained,
   bootstrapInstruments,
   topQuoteInfluences,
+  topQuoteInfluencesAcrossCurves,
   valueUnderEachMethod,
+  type CurveWithQuotes,
   type BootstrapOutcome,
   type InterpolationId,
   type Result,
@@ -126,7 +129,8 @@ const HELP =
   '  --skip-invalid        build from the valid quotes and list the others under warnings\n' +
   '  --explain             each point and forward carries an explain object: dates, year fractions, discount\n' +
   '                        factors read (node or interpolated, between which nodes), the steps, the five quotes\n' +
-  '                        it depends on most (bp per bp) and its value under each interpolation method\n' +
+  '                        it depends on most (bp per bp) and its value under each interpolation method; on a\n' +
+  '                        named curve the quotes may be of any curve it reads, each naming its curve\n' +
   '  --holidays C,FROM,TO  (repeatable; no FILE needed) one line per calendar with the weekdays from FROM to TO\n' +
   `                        it is closed: ${BUILT_IN_CALENDARS.join(', ')}, joined with + (a holiday in any)\n` +
   '  --help, -h            this text;  --version  the version\n' +
@@ -347,7 +351,8 @@ const skippedRow = (e: CoreError): CoreWarning => ({ path: e.path, quote: e.quot
 
 /** A point's or forward's `explain` object: the core's explanation, the quotes behind it, the value under each method. */
 export interface ExplainOut extends Explanation {
-  readonly topQuotes: readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[];
+  /** A named curve's also name their curve (`curve`, first). */
+  readonly topQuotes: readonly { curve?: string; index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[];
   readonly methods: readonly { method: string; current: boolean; value: number | null; error: string | null }[];
 }
 
@@ -360,6 +365,8 @@ interface ExplainContext {
   readonly curve: Curve;
   readonly rowOf: readonly number[] | null;
   readonly curveFor: (method: InterpolationId) => BootstrapOutcome;
+  /** A named curve's: every curve of the document built (its quotes may be any curve's), its name, and the default curve's input rows. */
+  readonly across?: { readonly set: readonly CurveWithQuotes[]; readonly name: string; readonly rowOf: readonly number[] | null };
 }
 
 function explainContext(build: CurveBuild, curve: Curve, rowOf: readonly number[] | null): ExplainContext {
@@ -375,14 +382,25 @@ function explainContext(build: CurveBuild, curve: Curve, rowOf: readonly number[
 
 /** The explanation of a rate over [start, end] with the quotes and methods behind it. */
 function explainRate(x: ExplainContext, e: Explanation, start: string, end: string, c: Compounding, dc: CurveDayCount, read: (curve: Curve) => Result<number>): ExplainOut {
-  const top = topQuoteInfluences(x.curve, x.build.instruments, start, end, c, dc);
   const methods = valueUnderEachMethod(x.curve.interpolation, x.curveFor, read);
   return {
     ...e,
     reads: e.reads.map((r) => ({ ...r, nodes: r.nodes.map((n) => (n.quote === null ? n : { ...n, quote: atRow(x.rowOf, n.quote) })) })),
-    topQuotes: top.ok ? top.value.map((q) => ({ ...q, index: atRow(x.rowOf, q.index) })) : [],
+    topQuotes: x.across ? topAcross(x.across, start, end, c, dc) : topOwn(x, start, end, c, dc),
     methods: methods.map((m) => ({ method: m.method, current: m.current, value: m.value, error: m.error })),
   };
+}
+
+/** The default curve's top quotes: its own (it reads no other curve). */
+function topOwn(x: ExplainContext, start: string, end: string, c: Compounding, dc: CurveDayCount): ExplainOut['topQuotes'] {
+  const top = topQuoteInfluences(x.curve, x.build.instruments, start, end, c, dc);
+  return top.ok ? top.value.map((q) => ({ ...q, index: atRow(x.rowOf, q.index) })) : [];
+}
+
+/** A named curve's top quotes across every curve it reads, each naming its curve (a default-curve quote by its input row). */
+function topAcross(a: NonNullable<ExplainContext['across']>, start: string, end: string, c: Compounding, dc: CurveDayCount): ExplainOut['topQuotes'] {
+  const top = topQuoteInfluencesAcrossCurves(a.set, a.name, start, end, c, dc);
+  return top.ok ? top.value.map((q) => ({ ...q, index: q.curve === DEFAULT_CURVE_NAME ? atRow(a.rowOf, q.index) : q.index })) : [];
 }
 
 /** `explain` of a point: its zero rate (whose read is the discount factor) explained. */
@@ -528,7 +546,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     errors.push({ path: '', quote: null, code: 'no-solution', message: 'a result is not a finite number; check the quotes and the dates asked for' });
   }
   if (errors.length > 0) return failed(errors);
-  const named = build.workspace?.curves === undefined ? null : namedCurveOutput(build.workspace, curve, opts);
+  const named = build.workspace?.curves === undefined ? null : namedCurveOutput(build.workspace, build, read.rowOfQuote, opts);
   if (named !== null && !named.ok) return failed(named.errors);
   return {
     line: builtDocumentLine({
@@ -558,10 +576,14 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
  * compounding and day count, its warnings. `--bond` is priced on the default curve only. An error
  * of any curve fails the document, its path and message naming the curve.
  */
-function namedCurveOutput(ws: Workspace, defaultCurve: Curve, opts: Options): { ok: true; value: Record<string, object> } | { ok: false; errors: readonly CoreError[] } {
+function namedCurveOutput(ws: Workspace, defaultBuild: CurveBuild, rowOf: readonly number[] | null, opts: Options): { ok: true; value: Record<string, object> } | { ok: false; errors: readonly CoreError[] } {
   const value: Record<string, object> = {};
   const errors: CoreError[] = [];
-  for (const n of [...buildNamedCurves(ws, defaultCurve, opts.extrapolate ? { skipInvalid: opts.skipInvalid, extrapolation: opts.extrapolate } : { skipInvalid: opts.skipInvalid })].sort((a, b) => position(ws, a.name) - position(ws, b.name))) {
+  const builds = buildNamedCurves(ws, defaultBuild.curve, opts.extrapolate ? { skipInvalid: opts.skipInvalid, extrapolation: opts.extrapolate } : { skipInvalid: opts.skipInvalid });
+  // Every curve built, by name, for the quotes behind a named curve's numbers (--explain): they may be any curve's.
+  const set: CurveWithQuotes[] = [{ name: DEFAULT_CURVE_NAME, curve: defaultBuild.curve!, instruments: defaultBuild.instruments }];
+  for (const n of builds) if (n.build.curve && n.build.errors.length === 0) set.push({ name: n.name, curve: n.build.curve, instruments: n.build.instruments });
+  for (const n of [...builds].sort((a, b) => position(ws, a.name) - position(ws, b.name))) {
     const b: CurveBuild = n.build;
     if (!b.curve || b.errors.length > 0) {
       errors.push(...b.errors);
@@ -571,20 +593,29 @@ function namedCurveOutput(ws: Workspace, defaultCurve: Curve, opts: Options): { 
     const where = `curves[${position(ws, n.name)}]`;
     const dc = opts.dayCount ?? curve.dayCount;
     const located = (es: readonly CoreError[]) => es.map((e) => ({ ...e, path: `${where}.${e.path}`, message: `${where} "${n.name}": ${e.message}` }));
+    const x = opts.explain ? { ...explainContext(b, curve, null), across: { set, name: n.name, rowOf } } : null;
     const points: PointOut[] = [];
     const count = opts.at ? opts.at.length : curve.pillars.length;
     for (let i = 0; i < count; i++) {
       const date = opts.at ? resolve(opts.at[i]!, ws.settlement) : curve.pillars[i]!.date;
       const z = zeroOn(curve, date, opts.compounding, dc, opts.at ? `--at[${i}]` : `quotes[${curve.pillars[i]!.quote}]`);
       if (!z.ok) errors.push(...located(z.errors));
-      else points.push(z.value.extrapolated ? { date, t: z.value.t, discount: z.value.discount, zero: z.value.zero, extrapolated: true } : { date, t: z.value.t, discount: z.value.discount, zero: z.value.zero });
+      else {
+        const point: PointOut = z.value.extrapolated ? { date, t: z.value.t, discount: z.value.discount, zero: z.value.zero, extrapolated: true } : { date, t: z.value.t, discount: z.value.discount, zero: z.value.zero };
+        const explain = x ? explainPoint(x, date, opts.at ? opts.at[i]! : date, opts.compounding, dc) : null;
+        points.push(explain ? { ...point, explain } : point);
+      }
     }
     const forwards: ForwardOut[] = [];
     for (let i = 0; i < opts.forward.length; i++) {
       const [s, e] = opts.forward[i]!;
       const f = forwardOn(curve, resolve(s, ws.settlement), resolve(e, ws.settlement), opts.compounding, dc, `--forward[${i}]`);
       if (!f.ok) errors.push(...located(f.errors));
-      else forwards.push(f.value.extrapolated ? { start: f.value.start, end: f.value.end, tau: f.value.tau, rate: f.value.rate, extrapolated: true } : { start: f.value.start, end: f.value.end, tau: f.value.tau, rate: f.value.rate });
+      else {
+        const forward: ForwardOut = f.value.extrapolated ? { start: f.value.start, end: f.value.end, tau: f.value.tau, rate: f.value.rate, extrapolated: true } : { start: f.value.start, end: f.value.end, tau: f.value.tau, rate: f.value.rate };
+        const explain = x ? explainForward(x, f.value.start, f.value.end, s, e, opts.compounding, dc) : null;
+        forwards.push(explain ? { ...forward, explain } : forward);
+      }
     }
     const quoteAt: Quote[] = [];
     for (const q of b.workspace?.quotes ?? []) quoteAt[q.index] = q;

@@ -9,6 +9,7 @@ import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import { formatTenor, type Tenor } from '../time/tenor.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 import { nodePartials } from './nodePartials.ts';
+import { spotGapOf } from '../bootstrap/spotBridge.ts';
 import { quoteYieldOf, requoteAtYield, type QuoteYield } from './quoteYield.ts';
 
 /** One forward of the sensitivity map: the rate over [start, end] in the map's compounding and day count. */
@@ -75,7 +76,7 @@ export function forwardRows(curve: Curve, tenor: Tenor, step: Tenor, c: Compound
 }
 
 /** dF/dL for F = rateFromLnDiscount(L, c, tau), L = ln DF(end) - ln DF(start). */
-function dRateDLn(L: number, c: Compounding, tau: number): number {
+export function dRateDLn(L: number, c: Compounding, tau: number): number {
   if (c === 'continuous') return -1 / tau;
   if (c === 'simple') return -Math.exp(-L) / tau;
   return -Math.exp(-L / (periodsPerYear(c) * tau)) / tau;
@@ -92,13 +93,16 @@ const columnsOf = (instruments: readonly Instrument[], yields: readonly QuoteYie
  * with dG_i/dq_i from central differences of +-1e-4 and +-5e-5 in the own yield on the fixed curve,
  * Richardson-combined (truncation O(h^4), about 1e-13 relative; exact for the kinds whose flows
  * or target are linear in the quote). Row-major, n x n, instruments in
- * pillar order. Also returns the node partials at the extra times asked for.
+ * pillar order (`spotBridge`: the build's spot bridge time, as nodePartials takes it, by default
+ * found again from the instruments as the bootstrap finds it, bootstrap/spotBridge.ts). Also returns the node partials at the extra times asked for, and each quote's
+ * dG_i/dq_i (`pricingSlopes`, which the sensitivities across curves divide by).
  */
 export function quoteNodeJacobian(
   curve: Curve,
   instruments: readonly Instrument[],
   extraTimes: readonly number[] = [],
-): { jacobian: Float64Array; yields: QuoteYield[]; extraPartials: Float64Array } {
+  spotBridge: number | undefined = spotGapOf(curve.settlement, curve.dayCount, instruments)?.t,
+): { jacobian: Float64Array; yields: QuoteYield[]; extraPartials: Float64Array; pricingSlopes: Float64Array } {
   const n = instruments.length;
   const index = new Map<number, number>();
   const times: number[] = [];
@@ -113,10 +117,11 @@ export function quoteNodeJacobian(
   };
   const flowSlots = instruments.map((ins) => Array.from(ins.times, slot));
   const extraSlots = extraTimes.map(slot);
-  const partials = nodePartials(curve, times);
+  const partials = nodePartials(curve, times, spotBridge);
   const ln = curve.lnDiscountAt;
   const yields = instruments.map((ins) => quoteYieldOf(ins, curve.settlement));
   const jacobian = new Float64Array(n * n);
+  const pricingSlopes = new Float64Array(n);
   const delta = 1e-4;
   instruments.forEach((ins, i) => {
     const qy = yields[i]!;
@@ -128,6 +133,7 @@ export function quoteNodeJacobian(
     const d1 = (g(y0 + delta) - g(y0 - delta)) / (2 * delta);
     const d2 = (g(y0 + delta / 2) - g(y0 - delta / 2)) / delta;
     const dGdq = (4 * d2 - d1) / 3;
+    pricingSlopes[i] = dGdq;
     const slots = flowSlots[i]!;
     // A target on the curve (an OIS's floating leg) moves with the nodes too: dG/d lnDF(t_f) less its slope.
     const targetSlope = curveTargetSlopes(ins, ln);
@@ -139,7 +145,7 @@ export function quoteNodeJacobian(
   });
   const extraPartials = new Float64Array(extraSlots.length * n);
   extraSlots.forEach((s, k) => extraPartials.set(partials.subarray(s * n, s * n + n), k * n));
-  return { jacobian, yields, extraPartials };
+  return { jacobian, yields, extraPartials, pricingSlopes };
 }
 
 /** d target / d lnDF at each flow of an instrument with a target on the curve (`targetSlopes`); null for a constant target. */

@@ -23,29 +23,45 @@ const LINEAR_STEP = 1e-2;
  * is exact for any h, so h = 0.01 keeps rounding near 1e-14; for monotone convex, which bends
  * sharply near the boundaries of its regions, central differences at h = NODE_PARTIAL_STEP = 1e-7
  * and h/2, Richardson-combined (rounding about 1e-9). No bootstrap is repeated: this is the "dF/dnodes" half of the implicit-function rule.
+ *
+ * `spotBridge`: the time of a build's spot bridge (its `spotGap.t`, bootstrap/spotBridge.ts), a
+ * node of the interpolation that is no pillar, tied to the first pillar's node by
+ * ln DF(t_s) = (t_s / t_1) x_1; it is rebuilt with that tie, so it moves with x_1. Without it a
+ * global method's curve (cubic zero, monotone convex) is rebuilt without the bridge and its
+ * partials near the short end are off.
  */
-export function nodePartials(curve: Curve, times: ArrayLike<number>): Float64Array {
+export function nodePartials(curve: Curve, times: ArrayLike<number>, spotBridge?: number): Float64Array {
   const n = curve.pillars.length;
   const m = times.length;
   const out = new Float64Array(m * n);
-  const ts = new Float64Array(n + 1);
-  const ys = new Float64Array(n + 1);
+  const first = curve.pillars[0]?.t ?? 0;
+  const bridge = spotBridge !== undefined && spotBridge > 0 && spotBridge < first ? spotBridge / first : null;
+  const shift = bridge === null ? 0 : 1;
+  const ts = new Float64Array(n + 1 + shift);
+  const ys = new Float64Array(n + 1 + shift);
   curve.pillars.forEach((p, i) => {
-    ts[i + 1] = p.t;
-    ys[i + 1] = Math.log(p.discount);
+    ts[i + 1 + shift] = p.t;
+    ys[i + 1 + shift] = Math.log(p.discount);
   });
+  if (bridge !== null) (ts[1] = spotBridge!), (ys[1] = bridge * ys[2]!);
   const spec = INTERPOLATORS[curve.interpolation];
   const build = (): Curve =>
     curveFromNodes(curve.settlement, curve.dayCount, curve.interpolation, curve.extrapolation, curve.pillars, spec.build(ts, ys));
   const linear = LINEAR_IN_NODES.has(curve.interpolation);
   const h = linear ? LINEAR_STEP : NODE_PARTIAL_STEP;
-  const central = (j: number, step: number, into: Float64Array): void => {
+  const central = (pillar: number, step: number, into: Float64Array): void => {
+    const j = pillar + shift;
     const base = ys[j]!;
+    // The bridge's node follows the first pillar's.
+    const tied = bridge !== null && pillar === 1;
     ys[j] = base + step;
+    if (tied) ys[1] = bridge * ys[j]!;
     const up = build();
     ys[j] = base - step;
+    if (tied) ys[1] = bridge * ys[j]!;
     const down = build();
     ys[j] = base;
+    if (tied) ys[1] = bridge * base;
     for (let k = 0; k < m; k++) {
       const t = times[k]!;
       into[k] = t <= 0 ? 0 : (up.lnDiscountAt(t) - down.lnDiscountAt(t)) / (2 * step);

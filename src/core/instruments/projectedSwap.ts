@@ -9,6 +9,27 @@ import { fixedLegCivil } from './swap.ts';
 const discountOn = (curve: Curve, d: CivilDate): number => Math.exp(curve.lnDiscountAt(curve.time(isoFromCivil(d))));
 
 /**
+ * Where a projected swap's constants were read on the curves built before it, kept for the
+ * sensitivities across curves (analytics/crossCurveSensitivity.ts): the times are on the clock of
+ * the curve read. `annuity`: the fixed (or spread) leg's dates on the discounting curve and each
+ * tau_i P_d(T_i); `floating`: the floating dates on the discounting curve (the weights are
+ * P_d there); `other`: a basis swap's other leg, its dates on its curve and on the discounting
+ * curve, each period's growth P_o(T_{k-1}) / P_o(T_k) and P_d(T_k).
+ */
+export interface UpstreamReads {
+  readonly annuity: { readonly t: readonly number[]; readonly tauDf: readonly number[] };
+  readonly floating: readonly number[];
+  readonly other: { readonly name: string; readonly t: readonly number[]; readonly tDiscount: readonly number[]; readonly growth: readonly number[]; readonly df: readonly number[] } | null;
+}
+
+/** d residual / d ln DF of a curve built before the instrument, at one time on that curve's clock. */
+export interface UpstreamSlope {
+  readonly curve: string;
+  readonly t: number;
+  readonly slope: number;
+}
+
+/**
  * A term-index swap from the valuation date on a projection curve, discounted on another curve
  * built before it (MARKET-CONVENTIONS.md section i; Ametrano and Bianchetti 2013, "Everything you
  * always wanted to know about multiple interest rate curve bootstrapping but were afraid to ask",
@@ -56,6 +77,8 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     readonly otherLeg: number,
     /** +1 for a fixed-rate swap (K A against the floating leg), -1 for a basis swap (the spread on the floating leg's side). */
     readonly side: 1 | -1,
+    /** Where the constants were read on the curves built before (for `upstreamSlopes`). */
+    readonly reads: UpstreamReads,
   ) {
     super(q, t, times, 'rate', 'rate', rate, new Array<number>(times.length).fill(0), 1, null, DISCOUNTING_AND_PROJECTING);
   }
@@ -73,20 +96,33 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     // The fixed leg, or for a basis swap the spread's accruals over this index's periods.
     const fixed = basis ? fixedLegCivil(settlement, maturity, indexPerYear, q.dayCount, q.eom) : fixedLegCivil(settlement, maturity, q.frequency, q.dayCount, q.eom);
     const floating = backwardScheduleCivil(settlement, maturity, indexPerYear, q.eom).dates;
+    const onDiscount = (d: CivilDate): number => discount.time(isoFromCivil(d));
     let annuity = 0;
-    for (let i = 0; i < fixed.dates.length; i++) annuity += fixed.taus[i]! * discountOn(discount, fixed.dates[i]!);
+    const annuityReads = { t: fixed.dates.map(onDiscount), tauDf: [] as number[] };
+    for (let i = 0; i < fixed.dates.length; i++) {
+      const tauDf = fixed.taus[i]! * discountOn(discount, fixed.dates[i]!);
+      annuityReads.tauDf.push(tauDf);
+      annuity += tauDf;
+    }
     let otherLeg = 0;
+    let other: UpstreamReads['other'] = null;
     if (basis) {
       let prev = 0;
+      const o = { name: basis.name, t: [] as number[], tDiscount: [] as number[], growth: [] as number[], df: [] as number[] };
       for (const d of backwardScheduleCivil(settlement, maturity, basis.perYear, q.eom).dates) {
-        const ln = basis.curve.lnDiscountAt(basis.curve.time(isoFromCivil(d)));
-        otherLeg += Math.expm1(prev - ln) * discountOn(discount, d);
+        const t = basis.curve.time(isoFromCivil(d));
+        const ln = basis.curve.lnDiscountAt(t);
+        const df = discountOn(discount, d);
+        otherLeg += Math.expm1(prev - ln) * df;
+        o.t.push(t), o.tDiscount.push(onDiscount(d)), o.growth.push(Math.exp(prev - ln)), o.df.push(df);
         prev = ln;
       }
+      other = o;
     }
     const times = floating.map(time);
     const weights = floating.map((d) => discountOn(discount, d));
-    return new ProjectedSwap(q, times[times.length - 1]!, times, weights, annuity, q.rate, discountedOn, otherLeg, basis ? -1 : 1);
+    const reads: UpstreamReads = { annuity: annuityReads, floating: floating.map(onDiscount), other };
+    return new ProjectedSwap(q, times[times.length - 1]!, times, weights, annuity, q.rate, discountedOn, otherLeg, basis ? -1 : 1, reads);
   }
 
   /** The floating leg sum_j (P_p(T_{j-1}) / P_p(T_j) - 1) w_j, each growth as expm1 of the ln DF difference (P_p(T_0) = 1 at the valuation date). */
@@ -132,7 +168,37 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
   }
 
   requote(value: number): Instrument {
-    return new ProjectedSwap(this.quote, this.t, this.times, this.weights, this.annuity, value, this.discountedOn, this.otherLeg, this.side);
+    return new ProjectedSwap(this.quote, this.t, this.times, this.weights, this.annuity, value, this.discountedOn, this.otherLeg, this.side, this.reads);
+  }
+
+  /**
+   * d residual / d ln DF of the curves built before this swap, at each date its constants were
+   * read (residual = side K A + C - floating leg, `residualFromFlows`): on the discounting curve
+   * side K tau_i P_d(T_i) at each fixed (spread) date and -(P_p(T_{j-1}) / P_p(T_j) - 1) P_d(T_j)
+   * at each floating date; for a basis swap (g_k - 1) P_d(T_k) at each of the other leg's dates
+   * on the discounting curve and, on the other leg's curve (g_k = P_o(T_{k-1}) / P_o(T_k)),
+   * -g_k P_d(T_k) + g_{k+1} P_d(T_{k+1}) at T_k. `ln` holds this curve's ln DF at the flow times
+   * from `offset`. Times repeat where dates coincide (the slopes add up).
+   */
+  upstreamSlopes(ln: ArrayLike<number>, offset: number): UpstreamSlope[] {
+    const { annuity, floating, other } = this.reads;
+    const d = this.discountedOn;
+    const out: UpstreamSlope[] = annuity.t.map((t, i) => ({ curve: d, t, slope: this.side * this.market * annuity.tauDf[i]! }));
+    let prev = 0;
+    for (let j = 0; j < floating.length; j++) {
+      const cur = ln[offset + j]!;
+      out.push({ curve: d, t: floating[j]!, slope: -Math.expm1(prev - cur) * this.weights[j]! });
+      prev = cur;
+    }
+    if (other !== null) {
+      const m = other.t.length;
+      for (let k = 0; k < m; k++) {
+        out.push({ curve: d, t: other.tDiscount[k]!, slope: (other.growth[k]! - 1) * other.df[k]! });
+        const next = k + 1 < m ? other.growth[k + 1]! * other.df[k + 1]! : 0;
+        out.push({ curve: other.name, t: other.t[k]!, slope: -other.growth[k]! * other.df[k]! + next });
+      }
+    }
+    return out;
   }
 }
 
