@@ -61,7 +61,7 @@ export function recordLegs(t: RollTrace, curve: Curve, legs: readonly RollLeg[],
       const tEnd = curve.time(leg.end);
       const ln = curve.lnDiscountAt(tEnd);
       t.reads.push(explainRead(curve, 'DF(leg 1 end)', leg.end, tEnd, ln));
-      push(t, 'r1', `r1 = today's spot rate for leg 1 (${leg.start} to ${leg.end}, bought today, read off the curve): (1 / DF(leg 1 end) - 1) / tau1`, ['DF(leg 1 end)', 'tau1'], legRates[0]!, unit);
+      push(t, 'r1', `r1 = today's spot rate for leg 1 (${leg.start} to ${leg.end}, bought today, read off the curve): expm1(-ln DF(leg 1 end)) / tau1 = (1 / DF(leg 1 end) - 1) / tau1`, ['DF(leg 1 end)', 'tau1'], legRates[0]!, unit);
       push(t, 'g1', 'g1 = exp(-ln DF(leg 1 end)) = 1 + r1 x tau1', ['DF(leg 1 end)'], legGrowth[0]!, 'unitless');
     } else {
       push(t, `r${i}`, `r${i} = leg ${i} (${leg.start} to ${leg.end}): ${spec.legRate ?? "the view's rate"}`, [], legRates[k]!, unit);
@@ -85,16 +85,17 @@ export interface HorizonGrowthParts {
 export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts: HorizonGrowthParts, legCount: number, growth: number): void {
   push(t, `CF${i}`, `CF${i} = the bond's flow on ${flow.date} (coupon, and 100 at maturity)`, [], flow.amount, PER_100);
   const k = parts.leg;
+  const gs = (from: number): string[] => Array.from({ length: legCount - from + 1 }, (_, j) => `g${from + j}`);
   if (k < 0) {
     push(t, `R${i}`, `R${i} = 1 (paid on the horizon)`, [], growth, 'unitless');
     return;
   }
   if (parts.stub === undefined) {
-    push(t, `R${i}`, `R${i} = growth of 1 from ${flow.date} to the horizon = ${productWords(k + 1, legCount)}`, [`g${k + 1}`], growth, 'unitless');
+    push(t, `R${i}`, `R${i} = growth of 1 from ${flow.date} to the horizon = ${productWords(k + 1, legCount)}`, gs(k + 1), growth, 'unitless');
     return;
   }
   push(t, `stub${i}`, `stub${i} = the view's growth from ${flow.date} to the end of leg ${k + 1} (tau = ${parts.tau} years), ${k === 0 ? "at leg 1's spot rate" : "at the view's rate for that leg"}`, [], parts.stub, 'unitless');
-  push(t, `R${i}`, `R${i} = stub${i}${k + 1 === legCount ? '' : ` x ${productWords(k + 2, legCount)}`}`, [`stub${i}`], growth, 'unitless');
+  push(t, `R${i}`, `R${i} = stub${i}${k + 1 === legCount ? '' : ` x ${productWords(k + 2, legCount)}`}`, [`stub${i}`, ...gs(k + 2)], growth, 'unitless');
 }
 
 /** A flow after the horizon, priced on the view's horizon curve. */
