@@ -222,6 +222,7 @@ describe('explainRollFigure', () => {
 
   it('has steps that, recomputed from the shown inputs, give each terminal value exactly and each return to 1e-15', () => {
     let checked = 0;
+    let stubs = 0;
     for (const { curve, strategy } of CASES) {
       const an = analyseRollVsTerm(curve, strategy);
       if (!an.ok) throw new Error('analysis');
@@ -232,6 +233,7 @@ describe('explainRollFigure', () => {
           const e = t.value.explanation;
           const G = recomputeGrowth(e, id, strategy.rollDayCount);
           const steps = stepsOf(e);
+          if (e.steps.some((x) => x.name.startsWith('stub'))) stubs++;
           // Money in decimal: A x G, G entering as its shortest decimal text (decimal.js; exact).
           const A = steps.get('A')!.text!;
           expect(A).toBe(new MoneyDecimal(strategy.amount).toFixed());
@@ -254,6 +256,7 @@ describe('explainRollFigure', () => {
       }
     }
     expect(checked).toBeGreaterThan(300);
+    expect(stubs, 'coupons paid inside a roll leg').toBeGreaterThan(10);
   }, 120_000);
 
   it('has break-even steps whose growths, recomputed at the shown root, are equal to the solver tolerance', () => {
