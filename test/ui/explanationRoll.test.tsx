@@ -46,7 +46,7 @@ describe('explanations in the roll panel', () => {
     expect(button).toHaveAttribute('aria-expanded', 'true');
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(shown));
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
-    expect(steps.at(-1)).toMatch(new RegExp(`^r\\* = r, where rolling and the par bond to the horizon end equal = ${fullText(shown).replace('.', '\\.')} \\(decimal per year, simple, ACT/360\\)$`));
+    expect(steps.at(-1)).toBe(`r* = r = ${fullText(shown)} (decimal per year, simple, ACT/360)`);
     expect(steps.some((s) => s!.startsWith('residual = G_roll - G_bond'))).toBe(true);
     // The quotes behind the bond's coupon, each a link to its sheet row.
     const links = within(within(panel).getByRole('region', { name: 'Quotes it depends on most' })).getAllByRole('button', { name: /^Row \d+:/ });
@@ -74,6 +74,7 @@ describe('explanations in the roll panel', () => {
     await user.click(await screen.findByRole('button', { name: new RegExp(`explain the money at the horizon of ${label} under ${view.label}$`) }));
     const panel = await screen.findByRole('complementary', { name: new RegExp(`Money at the horizon of ${label} under ${view.label}`) });
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(riding.terminal.toFixed());
+    expect(panel.querySelector('.explain-value .tag')!.textContent).toBe(`${analysis.moneyUnit} at the horizon, unrounded`);
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
     expect(steps.at(-1)).toContain(`= ${riding.terminal.toFixed()} (money at the horizon)`);
     await user.click(within(panel).getByRole('button', { name: 'Copy as text' }));

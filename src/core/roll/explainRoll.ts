@@ -79,11 +79,11 @@ export function rollFigure(curve: Curve, strategy: StrategyInputs, scenarios: re
   return ok(figure.kind === 'terminal' ? { value: o.terminal.toNumber(), money: o.terminal } : { value: o.annualReturn });
 }
 
-const STRATEGY_GROWTH: Readonly<Record<StrategyId, string>> = {
-  roll: 'G_roll = (1 + r1 tau1) x ... x (1 + rn taun), leg 1 bought today at the spot rate, the later legs at the rates of the view',
-  zero: 'G_zero = 1 / DF(horizon), the zero-coupon bond to the horizon bought today',
-  bond: "G_bond = (the par bond's flows to the horizon, each reinvested to it at the view's money-market rates) / 100",
-  riding: "G_riding = (the longer par bond's coupons reinvested to the horizon at the view's rates + its dirty price at the horizon on the view's horizon curve) / 100",
+const GROWTH: Readonly<Record<StrategyId, string>> = {
+  roll: 'G_roll = (1 + r1 tau1) x ... x (1 + rn taun)',
+  zero: 'G_zero = 1 / DF(horizon)',
+  bond: "G_bond = (the par bond's flows grown to the horizon) / 100",
+  riding: "G_riding = (coupons grown to the horizon + dirty price on the view's horizon curve) / 100",
 };
 
 const AGAINST: Readonly<Record<TermStrategyId, string>> = { zero: 'the zero to the horizon', bond: 'the par bond to the horizon', riding: 'riding the longer bond' };
@@ -92,22 +92,24 @@ const AGAINST: Readonly<Record<TermStrategyId, string>> = { zero: 'the zero to t
 export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure): Result<RollFigureExplanation> {
   const trace = rollTrace({ date: strategy.horizon });
   const r = rollFigure(curve, strategy, scenarios, figure, trace);
-  if (!r.ok) return r;
   const set = rollSetup(curve, strategy, scenarios);
+  if (!r.ok) return r;
   if (!set.ok) return set;
-  const { ctx, specs, chosen, years } = set.value;
+  const { ctx, specs, chosen, years, M } = set.value;
   const S = curve.settlement;
   const H = ctx.horizon;
   const dc = strategy.rollDayCount;
+  const rate = (start: IsoDate, end: IsoDate, compounding: Compounding, dayCount: CurveDayCount, note: string | null): RollFigureDriver => ({ kind: 'rate', start, end, compounding, dayCount, note });
+  const par = (id: 'bond' | 'riding'): RollFigureDriver => ({ kind: 'par', end: id === 'bond' ? H : M, frequency: ctx[id].frequency, note: "of the bond's coupon, today's par yield" });
+  const zeroNote = 'of the zero rate to the horizon (ann, ACT/365F)';
   if (figure.kind === 'leg-forward') {
     const leg = ctx.legs[figure.leg - 1]!;
-    return ok({ ...r.value, explanation: trace.sink.explanation!, title: `Today's forward of roll leg ${leg.index} (${leg.start} to ${leg.end})`, driver: { kind: 'rate', start: leg.start, end: leg.end, compounding: 'simple', dayCount: dc, note: null }, why: null, userView: false });
+    return ok({ ...r.value, explanation: trace.sink.explanation!, title: `Today's forward of roll leg ${leg.index} (${leg.start} to ${leg.end})`, driver: rate(leg.start, leg.end, 'simple', dc, null), why: null, userView: false });
   }
-  recordDate(trace, 'settlement', 'valuation date', S, 'as given');
-  recordDate(trace, 'horizon', strategy.horizon, H, 'unadjusted, no calendar (a tenor is counted from settlement in calendar months)');
-  const conventions = (c: Compounding | null, d: string | null): ExplainedConventions => ({
+  recordDate(trace, 'horizon', strategy.horizon, H, 'unadjusted, no calendar');
+  const conventions = (c: Compounding | null, d: ExplainedConventions['dayCount']): ExplainedConventions => ({
     compounding: c,
-    dayCount: d as ExplainedConventions['dayCount'],
+    dayCount: d,
     curveDayCount: curve.dayCount,
     interpolation: curve.interpolation,
     extrapolation: curve.extrapolation,
@@ -115,54 +117,37 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
     calendar: 'none',
   });
   const last = trace.steps.at(-1)!;
-  const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps };
-  const view = specs[chosen]!;
+  const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
   if ('against' in figure) {
-    const rate = figure.kind === 'break-even-rate';
-    const what = rate
-      ? `the constant rate r* for roll legs 2 to ${ctx.legs.length} (leg 1 at today's spot), simple on ${dc}`
-      : `the parallel shift s* (bp) of the view "${view.label}" (every rate set after today and the horizon curve's zero rates)`;
+    const view = specs[chosen]!;
+    const isRate = figure.kind === 'break-even-rate';
     const explanation: Explanation = {
       ...base,
       quantity: 'roll-break-even',
-      formula: `${rate ? 'r*' : 's*'}: ${what}, at which rolling ends equal to ${AGAINST[figure.against]} under the view "${view.label}": G_roll = G_${figure.against}, with ${STRATEGY_GROWTH.roll}; ${STRATEGY_GROWTH[figure.against]}. ${view.description}`,
-      value: r.value.value,
-      unit: last.unit,
-      conventions: rate ? conventions('simple', dc) : conventions(null, null),
+      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : 's*: a parallel shift of the view (bp)'}, at which G_roll = G_${figure.against} under "${view.label}"; ${GROWTH.roll}; ${GROWTH[figure.against]}. ${view.description}`,
+      conventions: isRate ? conventions('simple', dc) : conventions(null, null),
     };
-    const driver: RollFigureDriver =
-      figure.against === 'zero'
-        ? { kind: 'rate', start: S, end: H, compounding: 'annual', dayCount: 'ACT/365F', note: 'of the term rate it is measured against, the zero rate to the horizon (ann, ACT/365F)' }
-        : { kind: 'par', end: figure.against === 'bond' ? H : set.value.M, frequency: figure.against === 'bond' ? ctx.bond.frequency : ctx.riding.frequency, note: "of the term bond's coupon, today's par yield" };
-    return ok({ ...r.value, explanation, title: `Break-even ${rate ? 'roll rate r*' : 'shift of the view'} against ${AGAINST[figure.against]}`, driver, why: null, userView: view.id !== 'forwards' });
+    const driver = figure.against === 'zero' ? rate(S, H, 'annual', 'ACT/365F', zeroNote) : par(figure.against);
+    return ok({ ...r.value, explanation, title: `Break-even ${isRate ? 'roll rate r*' : 'shift of the view'} against ${AGAINST[figure.against]}`, driver, why: null, userView: view.id !== 'forwards' });
   }
   const spec = specs.find((s) => s.id === figure.view)!;
   const id = figure.strategy;
   const userView = id !== 'zero' && spec.id !== 'forwards';
-  const phrase = id === 'roll' ? `rolling ${strategy.rollTenor}` : id === 'zero' ? AGAINST.zero : id === 'bond' ? AGAINST.bond : `riding the ${strategy.ridingMaturity} bond`;
-  const source = userView ? `It depends on the view "${spec.label}", which you chose, not on today's curve alone: ${spec.description}` : id === 'zero' ? "It is read off today's curve alone, whatever the view." : `Under "${spec.label}" it is read off today's curve alone: ${spec.description}`;
+  const phrase = id === 'roll' ? `rolling ${strategy.rollTenor}` : id === 'riding' ? `riding the ${strategy.ridingMaturity} bond` : AGAINST[id];
   const money = figure.kind === 'terminal';
   if (!money) trace.yearFractions.push(explainedYearFraction('T', 'ACT/365F', S, H, years));
   const explanation: Explanation = {
     ...base,
     quantity: money ? 'roll-terminal' : 'roll-return',
-    formula: `${money ? 'terminal = A x G' : 'return = G^(1/T) - 1, annual compounding, T on ACT/365F from settlement to the horizon'}, G the growth of 1 invested today by ${phrase} to ${H}: ${STRATEGY_GROWTH[id]}. ${source}`,
-    value: r.value.value,
-    ...(money ? { valueText: last.text! } : {}),
-    unit: money ? `${moneyUnitOf(strategy.currency)} at the horizon, unrounded` : rateUnit('annual', 'ACT/365F'),
+    formula: `${money ? 'terminal = A x G' : 'return = G^(1/T) - 1'}, ${GROWTH[id]}, under "${spec.label}": ${spec.description} ${userView ? 'It rests on your view, not on the curve alone.' : "Read off today's curve alone."}`,
+    ...(money ? { valueText: last.text!, unit: `${moneyUnitOf(strategy.currency)} at the horizon, unrounded` } : {}),
     conventions: money ? conventions(null, null) : conventions('annual', 'ACT/365F'),
   };
-  let driver: RollFigureDriver | null = null;
-  let why: string | null = null;
-  const of = money ? 'of its annualised return' : null;
-  if (id === 'zero' || (id === 'roll' && spec.id === 'forwards')) {
-    driver = { kind: 'rate', start: S, end: H, compounding: 'annual', dayCount: 'ACT/365F', note: `${of ?? 'of the return'}, ${id === 'zero' ? 'which is' : 'under forwards realised'} the zero rate to the horizon (ann, ACT/365F)` };
-  } else if (id === 'roll' && spec.id === 'unchanged') {
-    const tenor = parseTenor(strategy.rollTenor) ?? { n: 3, unit: 'M' as const };
-    driver = { kind: 'rate', start: S, end: marketDate(S, tenor), compounding: 'simple', dayCount: dc, note: `of today's ${strategy.rollTenor} spot rate, which the legs earn under this view` };
-  } else if ((id === 'bond' || id === 'riding') && spec.id === 'forwards') {
-    driver = { kind: 'par', end: id === 'bond' ? H : set.value.M, frequency: id === 'bond' ? ctx.bond.frequency : ctx.riding.frequency, note: "of the bond's coupon, today's par yield" };
-  } else why = userView ? `none: the figure rests on the view "${spec.label}" as much as on the quotes` : null;
+  const driver =
+    id === 'zero' || (id === 'roll' && spec.id === 'forwards') ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
+    : id === 'roll' && spec.id === 'unchanged' ? rate(S, marketDate(S, parseTenor(strategy.rollTenor)!), 'simple', dc, `of today's ${strategy.rollTenor} spot`)
+    : id !== 'roll' && spec.id === 'forwards' ? par(id)
+    : null;
   const title = `${money ? 'Money at the horizon' : 'Annualised return'} of ${phrase} under ${spec.label}`;
-  return ok({ ...r.value, explanation, title, driver, why, userView });
+  return ok({ ...r.value, explanation, title, driver, why: driver ? null : 'none: it rests on your view as much as on the quotes', userView });
 }

@@ -37,7 +37,7 @@ export interface RollTrace {
 
 export const rollTrace = (given?: Readonly<Record<string, string>>): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given) });
 
-export const GROWTH_UNIT = 'unitless (money at the horizon per unit invested today)';
+export const GROWTH_UNIT = 'per unit invested';
 const PER_100 = 'per 100 face';
 
 const push = (t: RollTrace, name: string, formula: string, inputs: readonly string[], value: number, unit: string): void => {
@@ -61,14 +61,14 @@ export function recordLegs(t: RollTrace, curve: Curve, legs: readonly RollLeg[],
       const tEnd = curve.time(leg.end);
       const ln = curve.lnDiscountAt(tEnd);
       t.reads.push(explainRead(curve, 'DF(leg 1 end)', leg.end, tEnd, ln));
-      push(t, 'r1', `r1 = today's spot rate for leg 1 (${leg.start} to ${leg.end}, bought today, read off the curve): expm1(-ln DF(leg 1 end)) / tau1 = (1 / DF(leg 1 end) - 1) / tau1`, ['DF(leg 1 end)', 'tau1'], legRates[0]!, unit);
+      push(t, 'r1', "r1 = today's spot (the curve) = expm1(-ln DF(leg 1 end)) / tau1", ['DF(leg 1 end)', 'tau1'], legRates[0]!, unit);
       push(t, 'g1', 'g1 = exp(-ln DF(leg 1 end)) = 1 + r1 x tau1', ['DF(leg 1 end)'], legGrowth[0]!, 'unitless');
     } else {
-      push(t, `r${i}`, `r${i} = leg ${i} (${leg.start} to ${leg.end}): ${spec.legRate ?? "the view's rate"}`, [], legRates[k]!, unit);
+      push(t, `r${i}`, `r${i} = ${spec.legRate}`, [], legRates[k]!, unit);
       push(t, `g${i}`, `g${i} = 1 + r${i} x tau${i}`, [`r${i}`, `tau${i}`], legGrowth[k]!, 'unitless');
     }
   });
-  push(t, 'G_roll', `G_roll = ${n === 0 ? '1' : productWords(1, n)}, multiplied from the last leg back`, legs.map((_, k) => `g${k + 1}`), rollGrowth, GROWTH_UNIT);
+  push(t, 'G_roll', `G_roll = ${n === 0 ? '1' : productWords(1, n)}`, legs.map((_, k) => `g${k + 1}`), rollGrowth, GROWTH_UNIT);
 }
 
 /** How growthToHorizon grew one coupon: the leg it falls in and, inside a leg, the view's growth over the rest of it. */
@@ -83,34 +83,34 @@ export interface HorizonGrowthParts {
 
 /** A flow of a term bond paid by the horizon and grown to it at the view's money-market rates. */
 export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts: HorizonGrowthParts, legCount: number, growth: number): void {
-  push(t, `CF${i}`, `CF${i} = the bond's flow on ${flow.date} (coupon, and 100 at maturity)`, [], flow.amount, PER_100);
+  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
   const k = parts.leg;
   const gs = (from: number): string[] => Array.from({ length: legCount - from + 1 }, (_, j) => `g${from + j}`);
   if (k < 0) {
-    push(t, `R${i}`, `R${i} = 1 (paid on the horizon)`, [], growth, 'unitless');
+    push(t, `R${i}`, `R${i} = 1`, [], growth, 'unitless');
     return;
   }
   if (parts.stub === undefined) {
-    push(t, `R${i}`, `R${i} = growth of 1 from ${flow.date} to the horizon = ${productWords(k + 1, legCount)}`, gs(k + 1), growth, 'unitless');
+    push(t, `R${i}`, `R${i} = ${productWords(k + 1, legCount)}`, gs(k + 1), growth, 'unitless');
     return;
   }
-  push(t, `stub${i}`, `stub${i} = the view's growth from ${flow.date} to the end of leg ${k + 1} (tau = ${parts.tau} years), ${k === 0 ? "at leg 1's spot rate" : "at the view's rate for that leg"}`, [], parts.stub, 'unitless');
+  push(t, `stub${i}`, `stub${i} = the view's growth to the end of leg ${k + 1} (tau = ${parts.tau})`, [], parts.stub, 'unitless');
   push(t, `R${i}`, `R${i} = stub${i}${k + 1 === legCount ? '' : ` x ${productWords(k + 2, legCount)}`}`, [`stub${i}`, ...gs(k + 2)], growth, 'unitless');
 }
 
 /** A flow after the horizon, priced on the view's horizon curve. */
 export function recordHorizonPrice(t: RollTrace, i: number, flow: BondFlow, dfh: number): void {
-  push(t, `CF${i}`, `CF${i} = the bond's flow on ${flow.date} (coupon, and 100 at maturity)`, [], flow.amount, PER_100);
-  push(t, `DFH${i}`, `DFH${i} = DF on the view's horizon curve at ${flow.date}`, [], dfh, DF_UNIT);
+  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
+  push(t, `DFH${i}`, `DFH${i} = DF(${flow.date}) on the view's horizon curve`, [], dfh, DF_UNIT);
 }
 
 /** A term bond's value at the horizon per 100 face and its growth per unit (bought at par). */
 export function recordBondTotals(t: RollTrace, id: string, flows: readonly { i: number; after: boolean }[], coupons: number, price: number, growth: number): void {
   const before = flows.filter((f) => !f.after);
   const after = flows.filter((f) => f.after);
-  push(t, 'coupons', `coupons = ${before.length === 0 ? '0' : before.map((f) => `CF${f.i} x R${f.i}`).join(' + ')} (reinvested to the horizon)`, before.flatMap((f) => [`CF${f.i}`, `R${f.i}`]), coupons, PER_100);
-  push(t, 'price', `price = ${after.length === 0 ? '0 (the bond has matured)' : after.map((f) => `CF${f.i} x DFH${f.i}`).join(' + ')} (dirty, at the horizon)`, after.flatMap((f) => [`CF${f.i}`, `DFH${f.i}`]), price, PER_100);
-  push(t, `G_${id}`, `G_${id} = (coupons + price) / 100 (bought at par, 100 per 100 face)`, ['coupons', 'price'], growth, GROWTH_UNIT);
+  push(t, 'coupons', `coupons = ${before.map((f) => `CF${f.i} x R${f.i}`).join(' + ') || 0}`, before.flatMap((f) => [`CF${f.i}`, `R${f.i}`]), coupons, PER_100);
+  push(t, 'price', `price = ${after.map((f) => `CF${f.i} x DFH${f.i}`).join(' + ') || 0}`, after.flatMap((f) => [`CF${f.i}`, `DFH${f.i}`]), price, PER_100);
+  push(t, `G_${id}`, `G_${id} = (coupons + price) / 100`, ['coupons', 'price'], growth, GROWTH_UNIT);
 }
 
 /** The zero to the horizon: its growth from the horizon's discount factor. */
@@ -126,14 +126,15 @@ export function recordZero(t: RollTrace, growth: number): void {
 /** The annualised return of a growth over `years` (ACT/365F), annual compounding. */
 export function recordReturn(t: RollTrace, growth: string, lnG: number, years: number, value: number): void {
   push(t, 'lnG', `lnG = ln ${growth}`, [growth], lnG, 'natural log of the growth');
-  push(t, 'return', 'return = (G)^(1/T) - 1 = expm1(lnG / T), T in years on ACT/365F', ['lnG', 'T'], value, rateUnit('annual', 'ACT/365F'));
+  push(t, 'return', 'return = expm1(lnG / T)', ['lnG', 'T'], value, rateUnit('annual', 'ACT/365F'));
 }
 
 /** Money: amount x growth in decimal.js, each as the exact decimal text it is computed with. */
 export function recordMoney(t: RollTrace, growthName: string, amount: string, growthText: string, terminal: string): void {
-  t.steps.push({ name: 'A', formula: 'A = the amount invested today, as typed', inputs: [], value: Number(amount), unit: 'money', text: amount });
-  t.steps.push({ name: 'G (decimal)', formula: `G (decimal) = ${growthName} as its shortest decimal text, taken exactly`, inputs: [growthName], value: Number(growthText), unit: 'unitless', text: growthText });
-  t.steps.push({ name: 'terminal', formula: 'terminal = A x G (decimal), exact to 40 significant digits, unrounded', inputs: ['A', 'G (decimal)'], value: Number(terminal), unit: 'money at the horizon', text: terminal });
+  const step = (name: string, formula: string, inputs: string[], text: string, unit: string): number => t.steps.push({ name, formula, inputs, value: Number(text), unit, text });
+  step('A', 'A = the amount, as typed', [], amount, 'money');
+  step('G (decimal)', `G (decimal) = ${growthName}, its shortest decimal text`, [growthName], growthText, 'unitless');
+  step('terminal', 'terminal = A x G (decimal), decimal, 40 digits', ['A', 'G (decimal)'], terminal, 'money at the horizon');
 }
 
 export const recordDate = (t: RollTrace, name: string, given: string, date: IsoDate, rule: string): void => {
@@ -155,11 +156,11 @@ export function recordBreakEven(
   evaluate: (t: RollTrace) => number,
 ): void {
   const x = kind === 'rate' ? 'r' : 's';
-  const unit = kind === 'rate' ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp (1 bp = 0.0001), added to every rate set after today and to the horizon curve\'s zero rates (continuous)';
+  const unit = kind === 'rate' ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp';
   const [a, b] = solver.bracket;
-  push(t, x, `${x} = the root of G_roll(${x}) - G_${id}(${x}) on [${a}, ${b}] by Brent's method (${root.iterations} iterations, tolerance ${solver.xTol})`, [], root.x, unit);
+  push(t, x, `${x} = root of G_roll - G_${id} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${solver.xTol}`, [], root.x, unit);
   const residual = evaluate(t);
-  push(t, 'residual', `residual = G_roll - G_${id} at ${x} (zero up to the solver's tolerance)`, ['G_roll', `G_${id}`], residual, GROWTH_UNIT);
-  push(t, `${x}*`, `${x}* = ${x}, where rolling and ${id === 'zero' ? 'the zero to the horizon' : id === 'bond' ? 'the par bond to the horizon' : 'riding the longer bond'} end equal`, [x, 'residual'], root.x, unit);
+  push(t, 'residual', `residual = G_roll - G_${id}`, ['G_roll', `G_${id}`], residual, GROWTH_UNIT);
+  push(t, `${x}*`, `${x}* = ${x}`, [x, 'residual'], root.x, unit);
 }
 

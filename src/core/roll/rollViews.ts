@@ -26,8 +26,6 @@ import { recordLegs, type HorizonGrowthParts, type RollTrace } from './rollTrace
  * Leg 1 (k = 0) is bought today: it earns today's spot rate for its period in every view.
  */
 
-const tenorWords = (t: Tenor): string => `${t.n}${t.unit}`;
-
 export interface RollLeg {
   /** 1-based leg number. */
   readonly index: number;
@@ -72,7 +70,7 @@ export interface ViewSpec {
   readonly horizonCurve: Curve;
   /** The rates of legs 2..n when the view sets them directly (index k for leg k+1; index 0 unused), reported as given instead of (growth - 1)/tau. */
   readonly exactRates?: readonly number[];
-  /** Where the rates of legs 2..n come from, in words for an explanation (and whether a view of the user's rather than the curve sets them). */
+  /** Where the rates of legs 2..n come from, in words for an explanation (saying when a view of the user's sets them). */
   readonly legRate?: string;
 }
 
@@ -161,7 +159,7 @@ export function forwardsView(curve: Curve, horizon: IsoDate): ViewSpec {
     label: 'Forwards realised',
     phrase: 'forwards realised',
     description: "Each leg earns today's forward for its period; the horizon curve is the implied future curve.",
-    legRate: "today's forward for the leg, read off the curve: (DF(start) / DF(end) - 1) / tau",
+    legRate: "today's forward (the curve)",
     stubGrowth: forwardGrowth(curve, 0),
     horizonCurve: impliedCurveAtHorizon(curve, horizon),
   };
@@ -178,7 +176,7 @@ export function shiftView(curve: Curve, horizon: IsoDate, shiftBp: number): View
     label: `Forwards ${shiftBp >= 0 ? '+' : ''}${shiftBp} bp`,
     phrase: `forwards ${shiftBp >= 0 ? '+' : ''}${shiftBp} bp`,
     description: `Each leg after the first earns today's forward ${shiftBp >= 0 ? 'plus' : 'minus'} ${Math.abs(shiftBp)} bp; the horizon curve is the implied curve moved in parallel by the same.`,
-    legRate: `today's forward for the leg plus the shift you chose, ${shiftBp} bp (a view of yours, not read off the curve alone)`,
+    legRate: `today's forward + ${shiftBp} bp (your view)`,
     stubGrowth: forwardGrowth(curve, shiftBp / 10000),
     horizonCurve: shiftedCurve(impliedCurveAtHorizon(curve, horizon), shiftBp),
   };
@@ -200,7 +198,7 @@ export function unchangedView(curve: Curve, horizon: IsoDate, spot: number, teno
     label: 'Curve unchanged',
     phrase: 'an unchanged curve',
     description: `Each leg earns today's ${tenorText} rate; the horizon curve is today's curve by time to maturity (carry and roll-down).`,
-    legRate: `today's ${tenorText} spot rate again (the view that the curve stays unchanged, not today's forward)`,
+    legRate: `today's ${tenorText} spot (your view: the curve unchanged)`,
     stubGrowth: (_k, _from, _to, tau) => 1 + spot * tau,
     horizonCurve: curveSeenAtHorizon(curve, horizon),
   };
@@ -258,7 +256,7 @@ export function pathView(curve: Curve, horizon: IsoDate, legs: readonly RollLeg[
     stubGrowth: (k, _from, _to, tau) => 1 + (k === 0 ? legs[0]!.forward : rates[k]!) * tau,
     horizonCurve: shiftedCurve(impliedCurveAtHorizon(curve, horizon), lastMove * 10000),
     exactRates: rates,
-    legRate: 'the rate of your path for this leg (a view you set, not read off the curve)',
+    legRate: 'your path (your view)',
   };
 }
 
@@ -278,7 +276,7 @@ export function scenarioView(name: string, scenario: Curve, horizon: IsoDate, te
     label: name,
     phrase: `the scenario "${name}"`,
     description: `The curve moves to the scenario "${name}" today and then stays unchanged by time to maturity.`,
-    legRate: `the ${tenorWords(tenor)} spot rate of the scenario "${name}" (a scenario you set, not today's curve)`,
+    legRate: `the scenario's spot (your scenario)`,
     stubGrowth: (_k, _from, _to, tau) => 1 + r * tau,
     horizonCurve: curveSeenAtHorizon(scenario, horizon),
   });
@@ -296,7 +294,7 @@ export function scenarioForwardsView(name: string, scenario: Curve, horizon: Iso
     label: `${name} (its forwards)`,
     phrase: `the forwards of the scenario "${name}"`,
     description: `The curve moves to the scenario "${name}" today and its forwards are then realised.`,
-    legRate: `the forward for the leg on the scenario "${name}" (a scenario you set, not today's curve)`,
+    legRate: `the scenario's forward (your scenario)`,
     stubGrowth: forwardGrowth(scenario, 0),
     horizonCurve: impliedCurveAtHorizon(scenario, horizon),
   };
@@ -310,12 +308,12 @@ export function scenarioForwardsView(name: string, scenario: Curve, horizon: Iso
 export function shiftedSpec(spec: ViewSpec, shiftBp: number): ViewSpec {
   const s = shiftBp / 10000;
   const { exactRates: _unused, ...rest } = spec;
-  return { ...rest, stubGrowth: (k, from, to, tau) => spec.stubGrowth(k, from, to, tau) + s * tau, horizonCurve: shiftedCurve(spec.horizonCurve, shiftBp), legRate: `(${spec.legRate ?? "the view's rate"}) + s, s = ${shiftBp} bp / 10,000` };
+  return { ...rest, stubGrowth: (k, from, to, tau) => spec.stubGrowth(k, from, to, tau) + s * tau, horizonCurve: shiftedCurve(spec.horizonCurve, shiftBp), legRate: `${spec.legRate} + s (s = ${shiftBp} bp)` };
 }
 
 /** A constant roll rate r (decimal, simple, roll day count) for every rate set after today; the horizon curve kept from `spec`. */
 export function constantRateSpec(spec: ViewSpec, r: number): ViewSpec {
   const { exactRates: _unused, ...rest } = spec;
-  return { ...rest, stubGrowth: (_k, _from, _to, tau) => 1 + r * tau, legRate: 'r, one constant rate for every leg after the first' };
+  return { ...rest, stubGrowth: (_k, _from, _to, tau) => 1 + r * tau, legRate: 'r' };
 }
 

@@ -289,9 +289,9 @@ describe('explainRollFigure', () => {
     const zero = explainRollFigure(curve, strategy, [], { kind: 'terminal', view: 'path', strategy: 'zero' });
     if (!path.ok || !zero.ok) throw new Error('figure');
     expect(path.value.userView).toBe(true);
-    expect(path.value.explanation.formula).toMatch(/depends on the view "Your path", which you chose, not on today's curve alone/);
-    expect(path.value.explanation.steps.find((s) => s.name === 'r2')!.formula).toMatch(/a view you set, not read off the curve/);
+    expect(path.value.explanation.formula).toMatch(/under "Your path": .* It rests on your view, not on the curve alone\.$/);
+    expect(path.value.explanation.steps.find((s) => s.name === 'r2')!.formula).toBe('r2 = your path (your view)');
     expect(zero.value.userView).toBe(false);
-    expect(zero.value.explanation.formula).toMatch(/read off today's curve alone/);
+    expect(zero.value.explanation.formula).toMatch(/Read off today's curve alone\.$/);
   });
 });
