@@ -172,9 +172,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
             <div className="roll-side">
               <RidingSplitTable analysis={analysis} />
               <BreakEvenTables analysis={analysis} explain={explain} />
-              <EditLock>
-                <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} explain={explain} />
-              </EditLock>
+              <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} explain={explain} />
             </div>
           </div>
         </>

@@ -14,10 +14,11 @@ import {
   type RollAnalysis,
   type StrategyInputs,
 } from '../../core/index.ts';
+import { EditLock } from '../../components/EditLock.tsx';
 import { RollField } from './RollField.tsx';
 import type { RollExplain } from './RollPanel.tsx';
 
-/** The roll legs: dates, year fractions, today's forwards, the chosen view's rates and the money after each leg. */
+/** The roll legs: dates, year fractions, today's forwards, the chosen view's rates and the money after each leg; the path's fields are locked in a read-only workspace, the figures' explanations are not. */
 export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }: { analysis: RollAnalysis; strategy: StrategyInputs; onStrategyChange: (next: StrategyInputs) => void; explain?: RollExplain | undefined }) {
   const tag = rateTag('simple', analysis.rollDayCount);
   const chosen = analysis.views[analysis.chosen]!;
@@ -72,7 +73,9 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }:
               {editing ? null : <td className="num">{formatPercent(chosen.legRates[k]!)}</td>}
               <td className="num">
                 {k > 0 ? (
-                  <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!, 4)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="6em" />
+                  <EditLock>
+                    <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!, 4)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="6em" />
+                  </EditLock>
                 ) : (
                   <span title="bought today">{formatPercent(path.legRates[k]!)}</span>
                 )}
