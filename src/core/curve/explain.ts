@@ -24,7 +24,7 @@ import { ok, type Result } from '../result.ts';
  */
 
 /** The kinds of number explained. */
-export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change';
+export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change' | 'roll-terminal' | 'roll-return' | 'roll-break-even';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
@@ -101,6 +101,8 @@ export interface ExplainedStep {
   readonly inputs: readonly string[];
   readonly value: number;
   readonly unit: string;
+  /** Money (decimal.js): the exact decimal text the step is computed with; `value` is its nearest double. */
+  readonly text?: string;
 }
 
 /** The conventions the number is stated in. */
@@ -124,6 +126,8 @@ export interface Explanation {
   /** The definition with its conventions filled in. */
   readonly formula: string;
   readonly value: number;
+  /** Money: the value's exact decimal text (the last step's `text`). */
+  readonly valueText?: string;
   readonly unit: string;
   readonly conventions: ExplainedConventions;
   readonly dates: readonly ExplainedDate[];

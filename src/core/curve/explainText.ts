@@ -81,7 +81,7 @@ export function explanationSections(e: Explanation, extras: Omit<ExplanationText
       ],
     },
     { heading: 'Inputs', lines: inputs },
-    { heading: 'Steps', lines: e.steps.map((s) => `${s.formula} = ${fullText(s.value)} (${s.unit})`) },
+    { heading: 'Steps', lines: e.steps.map((s) => `${s.formula} = ${s.text ?? fullText(s.value)} (${s.unit})`) },
   ];
   if (extras.topQuotes !== undefined || extras.topQuotesNote !== undefined) {
     out.push({ heading: `Quotes it depends on most (bp per bp${extras.topQuotesNote ? `; ${extras.topQuotesNote}` : ''})`, lines: (extras.topQuotes ?? []).map((t) => `${t.label}: ${fullText(t.bpPerBp)}`) });
@@ -96,7 +96,7 @@ export function explanationSections(e: Explanation, extras: Omit<ExplanationText
 }
 
 export function explanationText(e: Explanation, extras: ExplanationTextExtras): string {
-  const out: string[] = [extras.title, `Value: ${fullText(e.value)} (${e.unit})`];
+  const out: string[] = [extras.title, `Value: ${e.valueText ?? fullText(e.value)} (${e.unit})`];
   for (const s of explanationSections(e, extras)) out.push(`${s.heading}:`, ...s.lines.map((l) => `  ${l}`));
   out.push('An analysis aid, not investment advice: verify figures against official sources.');
   return `${out.join('\n')}\n`;

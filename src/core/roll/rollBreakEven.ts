@@ -6,6 +6,7 @@ import { shiftedCurve } from './horizonCurve.ts';
 import { brentRoot } from './rollSolve.ts';
 import { constantRateSpec, shiftedSpec, type RollView } from './rollViews.ts';
 import { bondPricerOn, bondYieldFromPriceOn, parBondOn } from './strategyBonds.ts';
+import { recordBreakEven, type RollTrace } from './rollTrace.ts';
 import { bondAtHorizon, strategyGrowths, TERM_STRATEGY_IDS, type RollContext, type StrategyId, type TermStrategyId } from './strategyValues.ts';
 
 /**
@@ -57,11 +58,36 @@ export interface RollBreakEvens {
  * Brent's root of f on [a, b], or null when f does not change sign there or barely depends on its
  * argument (|f(a) - f(b)| <= 1e-13: e.g. a single roll leg, fixed today, against the zero).
  */
-function crossing(f: (x: number) => number, a: number, b: number, xTol: number): number | null {
+function crossing(f: (x: number) => number, a: number, b: number, xTol: number): { x: number; iterations: number } | null {
   const fa = f(a);
   const fb = f(b);
   if (!(Math.abs(fa - fb) > 1e-13)) return null;
-  const root = brentRoot(f, a, b, xTol);
+  return brentRoot(f, a, b, xTol);
+}
+
+/** Which break-even of rolling against a term strategy: the constant rate r* or the parallel shift of the view. */
+export type RollBreakEvenKind = 'rate' | 'shift';
+
+/**
+ * Rolling's break-even against term strategy `id` under the chosen view: the constant rate r* for
+ * legs 2..n (decimal, simple on the roll day count) or the parallel shift of the view (bp), at
+ * which G_roll - G_id = 0; null when the bracket holds no crossing. With `trace`, the root is
+ * recorded with both growths evaluated at it (the same functions the solver calls) and the
+ * difference left, the solver's residual.
+ */
+export function rollBreakEven(ctx: RollContext, chosen: RollView, id: TermStrategyId, kind: RollBreakEvenKind, trace?: RollTrace): number | null {
+  const spec = (x: number, t?: RollTrace) => ctx.view(kind === 'rate' ? constantRateSpec(chosen.spec, x) : shiftedSpec(chosen.spec, x), t);
+  const f = (x: number): number => {
+    const g = strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, spec(x));
+    return g.roll - g[id];
+  };
+  const [a, b] = kind === 'rate' ? ROLL_RATE_BRACKET : SHIFT_BRACKET_BP;
+  const xTol = kind === 'rate' ? 1e-15 : 1e-10;
+  const root = crossing(f, a, b, xTol);
+  if (trace && root) recordBreakEven(trace, ctx, id, kind, root, { bracket: [a, b], xTol }, (t) => {
+    const g = strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, spec(root.x, t), { trace: t, id });
+    return g.roll - g[id];
+  });
   return root ? root.x : null;
 }
 
@@ -70,24 +96,8 @@ export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEve
   const rollRate = {} as Record<TermStrategyId, number | null>;
   const shiftBp = {} as Record<TermStrategyId, number | null>;
   for (const id of TERM_STRATEGY_IDS) {
-    rollRate[id] = crossing(
-      (r) => {
-        const g = growths(ctx.view(constantRateSpec(chosen.spec, r)));
-        return g.roll - g[id];
-      },
-      ROLL_RATE_BRACKET[0],
-      ROLL_RATE_BRACKET[1],
-      1e-15,
-    );
-    shiftBp[id] = crossing(
-      (s) => {
-        const g = growths(ctx.view(shiftedSpec(chosen.spec, s)));
-        return g.roll - g[id];
-      },
-      SHIFT_BRACKET_BP[0],
-      SHIFT_BRACKET_BP[1],
-      1e-10,
-    );
+    rollRate[id] = rollBreakEven(ctx, chosen, id, 'rate');
+    shiftBp[id] = rollBreakEven(ctx, chosen, id, 'shift');
   }
   const base = growths(chosen);
   const ridingRiseBp = {} as Record<Exclude<StrategyId, 'riding'>, number | null>;
@@ -102,7 +112,7 @@ export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEve
       SHIFT_BRACKET_BP[0],
       SHIFT_BRACKET_BP[1],
       1e-10,
-    );
+    )?.x ?? null;
   }
   return { rollRate, shiftBp, ridingRiseBp, curve: breakEvenCurve(ctx) };
 }
@@ -139,7 +149,7 @@ export function breakEvenCurve(ctx: RollContext): BreakEvenPoint[] {
     const target = 100 / Math.exp(lnH);
     const price = bondPricerOn(bond.value, horizon);
     const root = crossing((dy) => coupons + price(y.value + dy) - target, -0.5, 1, 1e-15);
-    out.push({ tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root === null ? null : root * 10000 });
+    out.push({ tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root === null ? null : root.x * 10000 });
   }
   return out;
 }

@@ -7,6 +7,7 @@ import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import type { Tenor } from '../time/tenor.ts';
 import { curveSeenAtHorizon, impliedCurveAtHorizon, shiftedCurve } from './horizonCurve.ts';
 import type { RatePath, StrategyViewId } from './strategyInputs.ts';
+import { recordLegs, type HorizonGrowthParts, type RollTrace } from './rollTrace.ts';
 
 /**
  * Roll legs and views of the future for the roll-versus-term analysis.
@@ -69,6 +70,8 @@ export interface ViewSpec {
   readonly horizonCurve: Curve;
   /** The rates of legs 2..n when the view sets them directly (index k for leg k+1; index 0 unused), reported as given instead of (growth - 1)/tau. */
   readonly exactRates?: readonly number[];
+  /** Where the rates of legs 2..n come from, in words for an explanation (saying when a view of the user's sets them). */
+  readonly legRate?: string;
 }
 
 /** A view applied to a roll schedule: the rates of every leg and the money-market growth to the horizon. */
@@ -82,8 +85,11 @@ export interface RollView {
   readonly legGrowth: readonly number[];
   /** Growth of rolling 1 from today to the horizon: the product of legGrowth. */
   readonly rollGrowth: number;
-  /** Growth of 1 placed at `from` (settlement <= from <= horizon) until the horizon in the view's money market. */
-  growthToHorizon(from: IsoDate): number;
+  /**
+   * Growth of 1 placed at `from` (settlement <= from <= horizon) until the horizon in the view's
+   * money market; `parts`, when given, is told the leg and the part of it the growth was made of.
+   */
+  growthToHorizon(from: IsoDate, parts?: HorizonGrowthParts): number;
   readonly horizonCurve: Curve;
   readonly spec: ViewSpec;
 }
@@ -107,8 +113,8 @@ function lnDf(curve: Curve, date: IsoDate): number {
   return v;
 }
 
-/** Applies a view to the legs. Leg 1 grows at today's spot, DF(S)/DF(e_1) = 1 + r_1 tau_1. */
-export function applyView(curve: Curve, legs: readonly RollLeg[], dayCount: CurveDayCount, spec: ViewSpec): RollView {
+/** Applies a view to the legs. Leg 1 grows at today's spot, DF(S)/DF(e_1) = 1 + r_1 tau_1. With `trace`, the legs' rates and growths are recorded (rollTrace.ts). */
+export function applyView(curve: Curve, legs: readonly RollLeg[], dayCount: CurveDayCount, spec: ViewSpec, trace?: RollTrace): RollView {
   const n = legs.length;
   const legGrowth = legs.map((leg, k) => (k === 0 ? Math.exp(-lnDf(curve, leg.end)) : spec.stubGrowth(k, leg.start, leg.end, leg.tau)));
   const exact = spec.exactRates;
@@ -118,17 +124,23 @@ export function applyView(curve: Curve, legs: readonly RollLeg[], dayCount: Curv
   suffix[n] = 1;
   for (let k = n - 1; k >= 0; k--) suffix[k] = suffix[k + 1]! * legGrowth[k]!;
   const horizon = legs[n - 1]?.end ?? curve.settlement;
-  const growthToHorizon = (from: IsoDate): number => {
+  const growthToHorizon = (from: IsoDate, parts?: HorizonGrowthParts): number => {
+    if (parts) parts.leg = -1;
     if (compareIso(from, horizon) >= 0) return 1;
+    if (parts) parts.leg = 0;
     if (compareIso(from, curve.settlement) <= 0) return suffix[0]!;
     // the leg holding `from`: start <= from < end
     let k = 0;
     while (k < n - 1 && compareIso(legs[k]!.end, from) <= 0) k++;
     const leg = legs[k]!;
+    if (parts) parts.leg = k;
     if (from === leg.start) return suffix[k]!;
     const tau = queryYearFraction(dayCount, from, leg.end);
-    return spec.stubGrowth(k, from, leg.end, tau) * suffix[k + 1]!;
+    const stub = spec.stubGrowth(k, from, leg.end, tau);
+    if (parts) (parts.stub = stub), (parts.tau = tau);
+    return stub * suffix[k + 1]!;
   };
+  if (trace) recordLegs(trace, curve, legs, dayCount, spec, legRates, legGrowth, suffix[0]!);
   return { id: spec.id, label: spec.label, description: spec.description, legRates, legGrowth, rollGrowth: suffix[0]!, growthToHorizon, horizonCurve: spec.horizonCurve, spec };
 }
 
@@ -147,6 +159,7 @@ export function forwardsView(curve: Curve, horizon: IsoDate): ViewSpec {
     label: 'Forwards realised',
     phrase: 'forwards realised',
     description: "Each leg earns today's forward for its period; the horizon curve is the implied future curve.",
+    legRate: "today's forward (the curve)",
     stubGrowth: forwardGrowth(curve, 0),
     horizonCurve: impliedCurveAtHorizon(curve, horizon),
   };
@@ -163,6 +176,7 @@ export function shiftView(curve: Curve, horizon: IsoDate, shiftBp: number): View
     label: `Forwards ${shiftBp >= 0 ? '+' : ''}${shiftBp} bp`,
     phrase: `forwards ${shiftBp >= 0 ? '+' : ''}${shiftBp} bp`,
     description: `Each leg after the first earns today's forward ${shiftBp >= 0 ? 'plus' : 'minus'} ${Math.abs(shiftBp)} bp; the horizon curve is the implied curve moved in parallel by the same.`,
+    legRate: `today's forward + ${shiftBp} bp (your view)`,
     stubGrowth: forwardGrowth(curve, shiftBp / 10000),
     horizonCurve: shiftedCurve(impliedCurveAtHorizon(curve, horizon), shiftBp),
   };
@@ -184,6 +198,7 @@ export function unchangedView(curve: Curve, horizon: IsoDate, spot: number, teno
     label: 'Curve unchanged',
     phrase: 'an unchanged curve',
     description: `Each leg earns today's ${tenorText} rate; the horizon curve is today's curve by time to maturity (carry and roll-down).`,
+    legRate: `today's ${tenorText} spot (your view: the curve unchanged)`,
     stubGrowth: (_k, _from, _to, tau) => 1 + spot * tau,
     horizonCurve: curveSeenAtHorizon(curve, horizon),
   };
@@ -241,6 +256,7 @@ export function pathView(curve: Curve, horizon: IsoDate, legs: readonly RollLeg[
     stubGrowth: (k, _from, _to, tau) => 1 + (k === 0 ? legs[0]!.forward : rates[k]!) * tau,
     horizonCurve: shiftedCurve(impliedCurveAtHorizon(curve, horizon), lastMove * 10000),
     exactRates: rates,
+    legRate: 'your path (your view)',
   };
 }
 
@@ -260,6 +276,7 @@ export function scenarioView(name: string, scenario: Curve, horizon: IsoDate, te
     label: name,
     phrase: `the scenario "${name}"`,
     description: `The curve moves to the scenario "${name}" today and then stays unchanged by time to maturity.`,
+    legRate: `the scenario's spot (your scenario)`,
     stubGrowth: (_k, _from, _to, tau) => 1 + r * tau,
     horizonCurve: curveSeenAtHorizon(scenario, horizon),
   });
@@ -277,6 +294,7 @@ export function scenarioForwardsView(name: string, scenario: Curve, horizon: Iso
     label: `${name} (its forwards)`,
     phrase: `the forwards of the scenario "${name}"`,
     description: `The curve moves to the scenario "${name}" today and its forwards are then realised.`,
+    legRate: `the scenario's forward (your scenario)`,
     stubGrowth: forwardGrowth(scenario, 0),
     horizonCurve: impliedCurveAtHorizon(scenario, horizon),
   };
@@ -290,12 +308,12 @@ export function scenarioForwardsView(name: string, scenario: Curve, horizon: Iso
 export function shiftedSpec(spec: ViewSpec, shiftBp: number): ViewSpec {
   const s = shiftBp / 10000;
   const { exactRates: _unused, ...rest } = spec;
-  return { ...rest, stubGrowth: (k, from, to, tau) => spec.stubGrowth(k, from, to, tau) + s * tau, horizonCurve: shiftedCurve(spec.horizonCurve, shiftBp) };
+  return { ...rest, stubGrowth: (k, from, to, tau) => spec.stubGrowth(k, from, to, tau) + s * tau, horizonCurve: shiftedCurve(spec.horizonCurve, shiftBp), legRate: `${spec.legRate} + s (s = ${shiftBp} bp)` };
 }
 
 /** A constant roll rate r (decimal, simple, roll day count) for every rate set after today; the horizon curve kept from `spec`. */
 export function constantRateSpec(spec: ViewSpec, r: number): ViewSpec {
   const { exactRates: _unused, ...rest } = spec;
-  return { ...rest, stubGrowth: (_k, _from, _to, tau) => 1 + r * tau };
+  return { ...rest, stubGrowth: (_k, _from, _to, tau) => 1 + r * tau, legRate: 'r' };
 }
 

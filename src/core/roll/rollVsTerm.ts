@@ -28,6 +28,8 @@ import { curveSeenAtHorizon } from './horizonCurve.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { yieldTag } from '../format/conventionTag.ts';
 import { rollBreakEvens, type RollBreakEvens } from './rollBreakEven.ts';
+import type { RollTrace } from './rollTrace.ts';
+import type { ExplanationSink } from '../curve/explain.ts';
 
 /**
  * Roll over versus term: what putting money to work for a horizon earns by rolling a short
@@ -164,6 +166,73 @@ export function resolveDate(settlement: IsoDate, text: string, path: string): Re
  * riding maturity not after the horizon, a scenario curve on another settlement date.
  */
 export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[] = []): Result<RollAnalysis> {
+  const set = rollSetup(curve, strategy, scenarios);
+  if (!set.ok) return set;
+  const { ctx, specs, chosen, warnings, years, amount, M } = set.value;
+  const { legs, horizon: H, bond, riding } = ctx;
+  const S = curve.settlement;
+  const rollViews = specs.map((spec) => ctx.view(spec));
+  const views = rollViews.map((rv) => outcomeOf(ctx, rv, amount, years));
+  const chosenView = rollViews[chosen]!;
+  const breakEvens = rollBreakEvens(ctx, chosenView);
+  const growth = growthSeries(ctx, chosenView, views[chosen]!, amount, years);
+  if (legs.some((l, k) => k > 0 && views[chosen]!.legRates[k]! < 0)) {
+    warnings.push({ path: 'strategy.view', quote: null, code: 'negative-forward', message: 'some roll legs earn a negative rate under the chosen view' });
+  }
+  const bondYield = bondYieldFromPriceOn(bond, S, 100);
+  const ridingYield = bondYieldFromPriceOn(riding, S, 100);
+  // The strategies' detail texts are part of the analysis the golden check holds bit for bit, so
+  // their coupon keeps its earlier form (3 decimals, a space before %) rather than formatCoupon's.
+  const pct = (x: number): string => `${(x * 100).toFixed(3)} %`;
+  return ok({
+    settlement: S,
+    horizon: H,
+    years,
+    amount,
+    moneyUnit: moneyUnitOf(strategy.currency),
+    rollTenor: strategy.rollTenor,
+    rollDayCount: strategy.rollDayCount,
+    curveDayCount: curve.dayCount,
+    legs,
+    spotRollRate: ctx.spot,
+    strategies: [
+      { id: 'roll', label: `Roll ${strategy.rollTenor}`, phrase: `rolling ${strategy.rollTenor}`, detail: `${legs.length} leg${legs.length === 1 ? '' : 's'} of ${strategy.rollTenor}${legs[legs.length - 1]?.short ? ', the last short' : ''}, simple ${strategy.rollDayCount}` },
+      { id: 'zero', label: 'Zero to horizon', phrase: 'the zero to the horizon', detail: `zero-coupon to ${H}` },
+      { id: 'bond', label: 'Par bond to horizon', phrase: 'the par bond to the horizon', detail: `coupon ${pct(bond.coupon)} (${yieldTag(strategy.bondFrequency)}) paid ${strategy.bondFrequency}x a year, coupons reinvested` },
+      { id: 'riding', label: `Ride ${strategy.ridingMaturity} bond`, phrase: `riding the ${strategy.ridingMaturity} bond`, detail: `par bond to ${M}, coupon ${pct(riding.coupon)} (${yieldTag(strategy.ridingFrequency)}) paid ${strategy.ridingFrequency}x a year, sold at the horizon` },
+    ],
+    bond,
+    ridingBond: riding,
+    bondYield: bondYield.ok ? bondYield.value : bond.coupon,
+    ridingYield: ridingYield.ok ? ridingYield.value : riding.coupon,
+    views,
+    chosen,
+    breakEvens,
+    growth,
+    rollValues: rollValuesOf(amount, chosenView),
+    warnings,
+  });
+}
+
+/** What every figure of the analysis starts from: the context, the views' specs and the chosen one. */
+export interface RollSetup {
+  readonly ctx: RollContext;
+  readonly specs: readonly ViewSpec[];
+  readonly chosen: number;
+  readonly warnings: CoreWarning[];
+  /** Years from settlement to the horizon, ACT/365F. */
+  readonly years: number;
+  readonly amount: Money;
+  /** The riding bond's maturity. */
+  readonly M: IsoDate;
+}
+
+/**
+ * The inputs resolved against the curve (amount, horizon, legs, the two par bonds, the views); the
+ * errors of analyseRollVsTerm. `horizonSink`, when given, receives the explanation of the
+ * horizon's discount factor (the zero strategy's growth).
+ */
+export function rollSetup(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[] = [], horizonSink?: ExplanationSink): Result<RollSetup> {
   const errors: CoreError[] = [];
   const warnings: CoreWarning[] = [];
   const money = parseMoney(strategy.amount);
@@ -182,7 +251,7 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
     const longer = `${Math.ceil(yearFraction('ACT/365F', S, H)) + 2}Y`;
     errors.push(coreError('range', 'strategy.ridingMaturity', `strategy.ridingMaturity: the riding bond must mature after the horizon ${H}, not on ${M}; choose a longer maturity such as "${longer}"`));
   }
-  const dfH = discountOn(curve, H, 'strategy.horizon');
+  const dfH = discountOn(curve, H, 'strategy.horizon', horizonSink);
   if (!dfH.ok) errors.push(...dfH.errors);
   const dfM = discountOn(curve, M, 'strategy.ridingMaturity');
   if (!dfM.ok) errors.push(...dfM.errors);
@@ -202,7 +271,7 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
   const amount = money.value;
   const years = yearFraction('ACT/365F', S, H);
   const zeroGrowth = 1 / dfH.value.discount;
-  const view = (spec: ViewSpec): RollView => applyView(curve, legs, strategy.rollDayCount, spec);
+  const view = (spec: ViewSpec, trace?: RollTrace): RollView => applyView(curve, legs, strategy.rollDayCount, spec, trace);
   const ctx: RollContext = { curve, strategy, horizon: H, legs, spot: spot.value, zeroGrowth, bond: bondR.value, riding: ridingR.value, view };
 
   const specs: ViewSpec[] = [
@@ -234,47 +303,7 @@ export function analyseRollVsTerm(curve: Curve, strategy: StrategyInputs, scenar
     chosen = specs.findIndex((s) => s.id === DEFAULT_STRATEGY.view);
   }
 
-  const rollViews = specs.map(view);
-  const views = rollViews.map((rv) => outcomeOf(ctx, rv, amount, years));
-  const chosenView = rollViews[chosen]!;
-  const breakEvens = rollBreakEvens(ctx, chosenView);
-  const growth = growthSeries(ctx, chosenView, views[chosen]!, amount, years);
-  if (legs.some((l, k) => k > 0 && views[chosen]!.legRates[k]! < 0)) {
-    warnings.push({ path: 'strategy.view', quote: null, code: 'negative-forward', message: 'some roll legs earn a negative rate under the chosen view' });
-  }
-  const bondYield = bondYieldFromPriceOn(bondR.value, S, 100);
-  const ridingYield = bondYieldFromPriceOn(ridingR.value, S, 100);
-  // The strategies' detail texts are part of the analysis the golden check holds bit for bit, so
-  // their coupon keeps its earlier form (3 decimals, a space before %) rather than formatCoupon's.
-  const pct = (x: number): string => `${(x * 100).toFixed(3)} %`;
-  return ok({
-    settlement: S,
-    horizon: H,
-    years,
-    amount,
-    moneyUnit: moneyUnitOf(strategy.currency),
-    rollTenor: strategy.rollTenor,
-    rollDayCount: strategy.rollDayCount,
-    curveDayCount: curve.dayCount,
-    legs,
-    spotRollRate: spot.value,
-    strategies: [
-      { id: 'roll', label: `Roll ${strategy.rollTenor}`, phrase: `rolling ${strategy.rollTenor}`, detail: `${legs.length} leg${legs.length === 1 ? '' : 's'} of ${strategy.rollTenor}${legs[legs.length - 1]?.short ? ', the last short' : ''}, simple ${strategy.rollDayCount}` },
-      { id: 'zero', label: 'Zero to horizon', phrase: 'the zero to the horizon', detail: `zero-coupon to ${H}` },
-      { id: 'bond', label: 'Par bond to horizon', phrase: 'the par bond to the horizon', detail: `coupon ${pct(bondR.value.coupon)} (${yieldTag(strategy.bondFrequency)}) paid ${strategy.bondFrequency}x a year, coupons reinvested` },
-      { id: 'riding', label: `Ride ${strategy.ridingMaturity} bond`, phrase: `riding the ${strategy.ridingMaturity} bond`, detail: `par bond to ${M}, coupon ${pct(ridingR.value.coupon)} (${yieldTag(strategy.ridingFrequency)}) paid ${strategy.ridingFrequency}x a year, sold at the horizon` },
-    ],
-    bond: bondR.value,
-    ridingBond: ridingR.value,
-    bondYield: bondYield.ok ? bondYield.value : bondR.value.coupon,
-    ridingYield: ridingYield.ok ? ridingYield.value : ridingR.value.coupon,
-    views,
-    chosen,
-    breakEvens,
-    growth,
-    rollValues: rollValuesOf(amount, chosenView),
-    warnings,
-  });
+  return ok({ ctx, specs, chosen, warnings, years, amount, M });
 }
 
 const dedupe = (errors: readonly CoreError[]): CoreError[] => {
@@ -282,13 +311,18 @@ const dedupe = (errors: readonly CoreError[]): CoreError[] => {
   return errors.filter((e) => (seen.has(e.message) ? false : (seen.add(e.message), true)));
 };
 
-function outcomeOf(ctx: RollContext, rv: RollView, amount: Money, years: number): ViewOutcome {
-  const g = strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, rv);
-  const rollTerminal = moneyTimes(amount, g.roll);
-  const rollReturn = annualisedReturn(g.roll, years);
+/**
+ * Every strategy's outcome under a view. With `traced`, the terminal value (money) or the
+ * annualised return of `traced.id` is recorded, after its growth.
+ */
+export function outcomeOf(ctx: RollContext, rv: RollView, amount: Money, years: number, traced?: { readonly trace: RollTrace; readonly id: StrategyId; readonly figure: 'terminal' | 'return' }): ViewOutcome {
+  const g = strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, rv, traced);
+  const t = (id: StrategyId, figure: 'terminal' | 'return'): RollTrace | undefined => (traced?.id === id && traced.figure === figure ? traced.trace : undefined);
+  const rollTerminal = moneyTimes(amount, g.roll, t('roll', 'terminal'), 'G_roll');
+  const rollReturn = annualisedReturn(g.roll, years, t('roll', 'return'), 'G_roll');
   const strategies = STRATEGY_IDS.map((id): StrategyOutcome => {
-    const terminal = id === 'roll' ? rollTerminal : moneyTimes(amount, g[id]);
-    const annualReturn = id === 'roll' ? rollReturn : annualisedReturn(g[id], years);
+    const terminal = id === 'roll' ? rollTerminal : moneyTimes(amount, g[id], t(id, 'terminal'), `G_${id}`);
+    const annualReturn = id === 'roll' ? rollReturn : annualisedReturn(g[id], years, t(id, 'return'), `G_${id}`);
     return { id, growth: g[id], terminal, annualReturn, vsRoll: terminal.minus(rollTerminal), vsRollBp: (annualReturn - rollReturn) * 10000 };
   });
   let best: StrategyId = 'roll';
@@ -363,3 +397,5 @@ export * from './rollSolve.ts';
 export * from './rollBreakEven.ts';
 export * from './rollSummary.ts';
 export * from './rollCsv.ts';
+export * from './rollTrace.ts';
+export * from './explainRoll.ts';

@@ -5,6 +5,7 @@ import { fail, ok, type Result } from '../result.ts';
 import { compareIso, daysBetween, type IsoDate } from '../time/date.ts';
 import { backwardSchedule } from '../time/schedule.ts';
 import { brentRoot } from './rollSolve.ts';
+import { recordHorizonPrice, type RollTrace } from './rollTrace.ts';
 
 /** A cash flow of a term bond, per 100 face. */
 export interface BondFlow {
@@ -97,12 +98,14 @@ export function bondYieldFromPriceOn(bond: TermBond, date: IsoDate, dirty: numbe
   return ok(root.x);
 }
 
-/** Value per 100 face on the curve's settlement date of the flows strictly after it, on that curve. */
-export function bondValueOnCurve(bond: TermBond, curve: Curve): number {
+/** Value per 100 face on the curve's settlement date of the flows strictly after it, on that curve; with `trace`, each flow and its discount factor are recorded. */
+export function bondValueOnCurve(bond: TermBond, curve: Curve, trace?: RollTrace): number {
   let pv = 0;
-  for (const f of bond.flows) {
-    if (compareIso(f.date, curve.settlement) <= 0) continue;
-    pv += f.amount * Math.exp(curve.lnDiscountAt(curve.time(f.date)));
-  }
+  bond.flows.forEach((f, i) => {
+    if (compareIso(f.date, curve.settlement) <= 0) return;
+    const df = Math.exp(curve.lnDiscountAt(curve.time(f.date)));
+    if (trace) recordHorizonPrice(trace, i + 1, f, df);
+    pv += f.amount * df;
+  });
   return pv;
 }

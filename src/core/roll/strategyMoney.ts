@@ -1,4 +1,5 @@
 import Decimal from 'decimal.js';
+import { recordMoney, type RollTrace } from './rollTrace.ts';
 
 /**
  * Money for the roll-versus-term analysis, in decimal.js so a typed amount is exact and cash
@@ -50,7 +51,12 @@ export function parseMoney(text: string): MoneyParse {
 /**
  * amount x growth, where growth is a float64 growth factor (terminal value per unit invested).
  * The factor enters exactly as the decimal expansion of its shortest round-trip text; the product
- * keeps 40 significant digits (no rounding to cents here).
+ * keeps 40 significant digits (no rounding to cents here). With `trace`, the three decimal texts are recorded.
  */
-export const moneyTimes = (amount: Money, growth: number): Money => amount.times(new MoneyDecimal(growth));
+export function moneyTimes(amount: Money, growth: number, trace?: RollTrace, growthName = 'G'): Money {
+  const g = new MoneyDecimal(growth);
+  const v = amount.times(g);
+  if (trace) recordMoney(trace, growthName, amount.toFixed(), g.toFixed(), v.toFixed());
+  return v;
+}
 

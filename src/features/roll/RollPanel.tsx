@@ -1,4 +1,4 @@
-import { useId, useMemo } from 'react';
+import { useId, useMemo, type ReactNode } from 'react';
 import type { Curve } from '../../core/index.ts';
 import {
   analyseRollVsTerm,
@@ -9,9 +9,14 @@ import {
   RETURN_TAG,
   rollTablesCsv,
   rollSentence,
+  type DisplaySettings,
+  type RollFigure,
   type StrategyInputs,
   type StrategyViewId,
 } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
+import type { RollCell } from './explainRollCell.ts';
 import { download, safeFileName } from '../../components/download.ts';
 import { RollGrowthChart } from './RollGrowthChart.tsx';
 import { RollInputs } from './RollInputs.tsx';
@@ -33,7 +38,21 @@ export interface RollPanelProps {
   readonly documentErrors?: readonly { readonly path: string; readonly message: string }[];
   /** Overrides the heading's convention note; by default the panel states its own conventions. */
   readonly rateTag?: string;
+  /** With it, the figures are buttons that open their explanation (the build `curve` comes from). */
+  readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
 }
+
+/** Where a figure's explanation opens: beside the table it is in. */
+export type RollFigureGroup = 'results' | 'breakevens' | 'legs';
+
+/** The tables' way to make a figure a button that opens its explanation, and the panel beside each table. */
+export interface RollExplain {
+  figure(figure: RollFigure, text: string, words: string): ReactNode;
+  panel(group: RollFigureGroup): ReactNode;
+}
+
+const groupOf = (f: RollFigure): RollFigureGroup => ('against' in f ? 'breakevens' : f.kind === 'leg-forward' ? 'legs' : 'results');
+const sameFigure = (a: RollCell, b: RollCell): boolean => JSON.stringify(a.roll.figure) === JSON.stringify(b.roll.figure);
 
 const BASE_LABEL: Record<(typeof BASE_VIEWS)[number], string> = {
   forwards: 'Forwards realised',
@@ -52,9 +71,25 @@ const CAUTION = 'An analysis aid, not investment advice. Forwards are what today
 const NO_SCENARIOS: RollPanelProps['scenarioViews'] = [];
 const NO_ERRORS: RollPanelProps['documentErrors'] = [];
 
-export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = NO_SCENARIOS!, documentErrors = NO_ERRORS!, rateTag: tagOverride }: RollPanelProps) {
+export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = NO_SCENARIOS!, documentErrors = NO_ERRORS!, rateTag: tagOverride, explainFrom }: RollPanelProps) {
   const headingId = useId();
   const result = useMemo(() => (curve ? analyseRollVsTerm(curve, strategy, scenarioViews) : null), [curve, strategy, scenarioViews]);
+  const opener = useExplainOpener<RollCell>(sameFigure);
+  // The open figure under the strategy and views shown now (an input changed since it opened is followed).
+  const openCell = useMemo(() => (opener.open ? { roll: { ...opener.open.roll, strategy, scenarios: scenarioViews } } : null), [opener.open, strategy, scenarioViews]);
+  const explain: RollExplain | undefined = explainFrom
+    ? {
+        figure: (figure, text, words) => {
+          const cell: RollCell = { roll: { figure, strategy, scenarios: scenarioViews } };
+          return (
+            <button type="button" className="cell-explain" aria-label={`${text}: explain the ${words}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
+              {text}
+            </button>
+          );
+        },
+        panel: (group) => (openCell && groupOf(openCell.roll.figure) === group ? <OpenExplanation result={explainFrom.result} display={explainFrom.display} cell={openCell} onClose={opener.close} /> : null),
+      }
+    : undefined;
   const views: { id: StrategyViewId; label: string }[] = [
     ...BASE_VIEWS.map((id) => ({ id, label: id === 'shift' ? `Forwards ${strategy.shiftBp >= 0 ? '+' : ''}${strategy.shiftBp} bp` : BASE_LABEL[id] })),
     ...scenarioViews.flatMap((s) => [
@@ -132,14 +167,12 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
           <div className="roll-body">
             <div className="roll-main">
               <RollGrowthChart unit={analysis.moneyUnit} series={analysis.growth} strategies={analysis.strategies} viewLabel={analysis.views[analysis.chosen]!.label} horizon={analysis.horizon} />
-              <RollResultsTable analysis={analysis} />
+              <RollResultsTable analysis={analysis} explain={explain} />
             </div>
             <div className="roll-side">
               <RidingSplitTable analysis={analysis} />
-              <BreakEvenTables analysis={analysis} />
-              <EditLock>
-                <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} />
-              </EditLock>
+              <BreakEvenTables analysis={analysis} explain={explain} />
+              <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} explain={explain} />
             </div>
           </div>
         </>

@@ -3,13 +3,14 @@ import { useCallback, useMemo } from 'react';
 import { applyScenario } from '../../core/index.ts';
 import { analyseRollVsTerm, formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
 import { inFieldWords } from './fieldWords.ts';
-import type { Curve } from '../../core/index.ts';
+import type { Curve, DisplaySettings } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { RollPanel } from './RollPanel.tsx';
 
 const readStrategy = (s: { workspace: unknown }): unknown => (s.workspace as { strategy?: unknown }).strategy;
+const readDisplay = (s: { workspace: { display: DisplaySettings } }): DisplaySettings => s.workspace.display;
 const readScenarios = (s: { workspace: unknown }): unknown => (s.workspace as { scenarios?: unknown }).scenarios;
 
 /** The document's scenarios applied to today's curve, as named curves for the roll panel's views. */
@@ -39,7 +40,9 @@ export function RollSlot({ result }: { result: WorkbenchBuild }) {
   const validated = useMemo(() => validateStrategy(raw), [raw]);
   const scenarios = useScenarioCurves(result);
   const onStrategyChange = useCallback((next: StrategyInputs) => useAppStore.getState().setReserved('strategy', next), []);
-  return <RollPanel curve={result.build.curve} strategy={validated.strategy} onStrategyChange={onStrategyChange} scenarioViews={scenarios} documentErrors={validated.errors} />;
+  const display = useAppStore(readDisplay);
+  const explainFrom = useMemo(() => ({ result, display }), [result, display]);
+  return <RollPanel curve={result.build.curve} strategy={validated.strategy} onStrategyChange={onStrategyChange} scenarioViews={scenarios} documentErrors={validated.errors} explainFrom={explainFrom} />;
 }
 
 /**

@@ -14,10 +14,12 @@ import {
   type RollAnalysis,
   type StrategyInputs,
 } from '../../core/index.ts';
+import { EditLock } from '../../components/EditLock.tsx';
 import { RollField } from './RollField.tsx';
+import type { RollExplain } from './RollPanel.tsx';
 
-/** The roll legs: dates, year fractions, today's forwards, the chosen view's rates and the money after each leg. */
-export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analysis: RollAnalysis; strategy: StrategyInputs; onStrategyChange: (next: StrategyInputs) => void }) {
+/** The roll legs: dates, year fractions, today's forwards, the chosen view's rates and the money after each leg; the path's fields are locked in a read-only workspace, the figures' explanations are not. */
+export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }: { analysis: RollAnalysis; strategy: StrategyInputs; onStrategyChange: (next: StrategyInputs) => void; explain?: RollExplain | undefined }) {
   const tag = rateTag('simple', analysis.rollDayCount);
   const chosen = analysis.views[analysis.chosen]!;
   const path = analysis.views.find((v) => v.id === 'path')!;
@@ -27,7 +29,8 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
     onStrategyChange({ ...strategy, path: { ...strategy.path, fill: 'typed', legs } });
   };
   return (
-    <div className="roll-scroll">
+    <div className="roll-explain-host">
+      <div className="roll-scroll">
       <table className="roll-table roll-legs">
         <caption>
           Roll legs of {analysis.rollTenor} to {analysis.horizon}{' '}
@@ -66,11 +69,13 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
               <td>{leg.end}</td>
               <td className="num">{leg.days}</td>
               <td className="num">{formatNumber(leg.tau, 6)}</td>
-              <td className="num">{formatPercent(leg.forward)}</td>
+              <td className="num">{explain ? explain.figure({ kind: 'leg-forward', leg: leg.index }, formatPercent(leg.forward), `today's forward of leg ${leg.index}`) : formatPercent(leg.forward)}</td>
               {editing ? null : <td className="num">{formatPercent(chosen.legRates[k]!)}</td>}
               <td className="num">
                 {k > 0 ? (
-                  <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!, 4)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="6em" />
+                  <EditLock>
+                    <RollField label={`Leg ${leg.index} rate`} text={percentText(path.legRates[k]!, 4)} parse={parsePercentText} onCommit={(r) => setLeg(k, r)} width="6em" />
+                  </EditLock>
                 ) : (
                   <span title="bought today">{formatPercent(path.legRates[k]!)}</span>
                 )}
@@ -80,14 +85,17 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange }: { analys
           ))}
         </tbody>
       </table>
+      </div>
+      {explain?.panel('legs')}
     </div>
   );
 }
 
 /** Strategies by views: terminal value, annualised return and the difference against rolling. */
-export function RollResultsTable({ analysis }: { analysis: RollAnalysis }) {
+export function RollResultsTable({ analysis, explain }: { analysis: RollAnalysis; explain?: RollExplain | undefined }) {
   return (
-    <div className="roll-scroll">
+    <div className="roll-explain-host">
+      <div className="roll-scroll">
       <table className="roll-table roll-results">
         <caption>
           Strategies by views, at {analysis.horizon}{' '}
@@ -117,8 +125,8 @@ export function RollResultsTable({ analysis }: { analysis: RollAnalysis }) {
                 const o = v.strategies.find((x) => x.id === s.id)!;
                 return (
                   <td key={v.id} className={`num${i === analysis.chosen ? ' chosen' : ''}${v.best === s.id && v.id !== 'forwards' ? ' best' : ''}`}>
-                    <span className="roll-value">{formatMoney(o.terminal)}</span>
-                    <span className="roll-sub">{formatPercent(o.annualReturn)}</span>
+                    <span className="roll-value">{explain ? explain.figure({ kind: 'terminal', view: v.id, strategy: s.id }, formatMoney(o.terminal), `money at the horizon of ${s.phrase} under ${v.label}`) : formatMoney(o.terminal)}</span>
+                    <span className="roll-sub">{explain ? explain.figure({ kind: 'return', view: v.id, strategy: s.id }, formatPercent(o.annualReturn), `annualised return of ${s.phrase} under ${v.label}`) : formatPercent(o.annualReturn)}</span>
                     {s.id === 'roll' ? null : (
                       <span className="roll-sub">
                         {formatMoneySigned(o.vsRoll)} · {formatBpChange(o.vsRollBp)}
@@ -131,6 +139,8 @@ export function RollResultsTable({ analysis }: { analysis: RollAnalysis }) {
           ))}
         </tbody>
       </table>
+      </div>
+      {explain?.panel('results')}
     </div>
   );
 }
@@ -166,7 +176,7 @@ export function RidingSplitTable({ analysis }: { analysis: RollAnalysis }) {
 }
 
 /** Break-even roll rates, shifts and the riding bond's cushion, and the break-even curve. */
-export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
+export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis; explain?: RollExplain | undefined }) {
   const b = analysis.breakEvens;
   const v = analysis.views[analysis.chosen]!;
   const tag = rateTag('simple', analysis.rollDayCount);
@@ -193,12 +203,19 @@ export function BreakEvenTables({ analysis }: { analysis: RollAnalysis }) {
           {(['zero', 'bond', 'riding'] as const).map((id) => (
             <tr key={id}>
               <th scope="row">{label(id)}</th>
-              <td className="num">{b.rollRate[id] === null ? 'none (single leg or no crossing)' : formatPercent(b.rollRate[id])}</td>
-              {showShift ? <td className="num">{b.shiftBp[id] === null ? 'none' : formatBpChange(b.shiftBp[id])}</td> : null}
+              <td className="num">
+                {b.rollRate[id] === null ? 'none (single leg or no crossing)' : explain ? explain.figure({ kind: 'break-even-rate', against: id }, formatPercent(b.rollRate[id]), `break-even roll rate against ${label(id)}`) : formatPercent(b.rollRate[id])}
+              </td>
+              {showShift ? (
+                <td className="num">
+                  {b.shiftBp[id] === null ? 'none' : explain ? explain.figure({ kind: 'break-even-shift', against: id }, formatBpChange(b.shiftBp[id]), `break-even shift of the view against ${label(id)}`) : formatBpChange(b.shiftBp[id])}
+                </td>
+              ) : null}
             </tr>
           ))}
         </tbody>
       </table>
+      {explain?.panel('breakevens')}
       <p className="small">
         Riding the {analysis.ridingBond.maturity} bond: the horizon curve can rise in parallel by{' '}
         <strong>{b.ridingRiseBp.roll === null ? NO_VALUE : formatBpChange(b.ridingRiseBp.roll)}</strong> (zero rates, <span className="tag">{rateTag('continuous', analysis.curveDayCount)}</span>) before it falls behind rolling, and by{' '}

@@ -72,7 +72,7 @@ export function ExplanationPanel({ result, display, cell, onClose, writeText }: 
       </div>
       <p className="explain-value">
         <span className="mono" data-field="value">
-          {fullText(e.value)}
+          {e.valueText ?? fullText(e.value)}
         </span>{' '}
         <span className="tag">{e.unit}</span>
       </p>

@@ -31,6 +31,7 @@ import {
 } from '../../core/index.ts';
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { explainRollCell, type RollCell } from '../roll/explainRollCell.ts';
 
 /** The key-maturity cells that explain themselves. */
 export type KeyField = 'discount' | 'zero' | 'par' | 'forward';
@@ -74,7 +75,7 @@ export interface ChangeCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -112,6 +113,7 @@ const rowWords = (row: number | null): string => (row === null ? 'a quote' : `ro
  */
 export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings, cell: ExplainCell): Result<CellExplanation> {
   if ('change' in cell) return explainChangeCell(result, cell.change);
+  if ('roll' in cell) return explainRollCell(result, cell.roll);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;

@@ -1,0 +1,153 @@
+import type { Curve } from '../curve/curve.ts';
+import { explainedYearFraction, rateUnit, type ExplainedConventions, type Explanation } from '../curve/explain.ts';
+import { forwardOn } from '../curve/query.ts';
+import type { Compounding } from '../rates/compounding.ts';
+import { coreError, fail, ok, type Result } from '../result.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { CurveDayCount } from '../time/dayCount.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import { parseTenor } from '../time/tenor.ts';
+import { rollBreakEven } from './rollBreakEven.ts';
+import { moneyUnitOf } from './rollSummary.ts';
+import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
+import { outcomeOf, rollSetup, type NamedCurve } from './rollVsTerm.ts';
+import type { StrategyInputs, StrategyViewId } from './strategyInputs.ts';
+import type { Money } from './strategyMoney.ts';
+import type { StrategyId, TermStrategyId } from './strategyValues.ts';
+
+/**
+ * The figures of the roll-versus-term panel, each computed alone (`rollFigure`, the analysis's own
+ * functions: rollSetup, applyView, outcomeOf, rollBreakEven) or with its explanation
+ * (`explainRollFigure`: the same call with a trace; issue 19).
+ */
+export type RollFigure =
+  /** A strategy's money at the horizon, or its annualised return, under a view. */
+  | { readonly kind: 'terminal' | 'return'; readonly view: StrategyViewId; readonly strategy: StrategyId }
+  /** Rolling's break-even against a term strategy under the chosen view: the constant rate r* or the shift of the view. */
+  | { readonly kind: 'break-even-rate' | 'break-even-shift'; readonly against: TermStrategyId }
+  /** Today's forward of roll leg `leg` (1-based). */
+  | { readonly kind: 'leg-forward'; readonly leg: number };
+
+/** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
+export type RollFigureDriver =
+  | { readonly kind: 'rate'; readonly start: IsoDate; readonly end: IsoDate; readonly compounding: Compounding; readonly dayCount: CurveDayCount; readonly note: string | null }
+  | { readonly kind: 'par'; readonly end: IsoDate; readonly frequency: number; readonly note: string };
+
+export interface RollFigureValue {
+  readonly value: number;
+  /** Money figures: the exact decimal (value is its nearest double). */
+  readonly money?: Money;
+}
+
+export interface RollFigureExplanation extends RollFigureValue {
+  readonly explanation: Explanation;
+  /** The figure in words for a heading. */
+  readonly title: string;
+  /** The curve rate whose quote sensitivities stand for the figure's; null when none does (with `why`). */
+  readonly driver: RollFigureDriver | null;
+  readonly why: string | null;
+  /** True when the figure rests on a view of the user's or a scenario rather than today's curve alone. */
+  readonly userView: boolean;
+}
+
+const noFigure = (message: string) => fail(coreError('schema', 'figure', message));
+
+/**
+ * One figure of the analysis, as analyseRollVsTerm computes it (bit for bit: the same functions on
+ * the same inputs), with `trace` recording its steps. Errors as analyseRollVsTerm's, or a figure the
+ * analysis does not have (a view or leg that is not there, a break-even with no crossing).
+ */
+export function rollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure, trace?: RollTrace): Result<RollFigureValue> {
+  const set = rollSetup(curve, strategy, scenarios, trace?.sink);
+  if (!set.ok) return set;
+  const { ctx, specs, chosen, years, amount } = set.value;
+  if (figure.kind === 'leg-forward') {
+    const leg = ctx.legs[figure.leg - 1];
+    if (!leg) return noFigure(`there is no roll leg ${figure.leg}`);
+    const f = forwardOn(curve, leg.start, leg.end, 'simple', strategy.rollDayCount, 'strategy.horizon', trace?.sink);
+    return f.ok ? ok({ value: f.value.rate }) : f;
+  }
+  if ('against' in figure) {
+    const x = rollBreakEven(ctx, ctx.view(specs[chosen]!), figure.against, figure.kind === 'break-even-rate' ? 'rate' : 'shift', trace);
+    return x === null ? noFigure('rolling and this strategy do not cross in the bracket (or there is a single leg, bought today)') : ok({ value: x });
+  }
+  const spec = specs.find((s) => s.id === figure.view);
+  if (!spec) return noFigure(`there is no view "${figure.view}"`);
+  const legsNeeded = figure.strategy !== 'zero';
+  const rv = ctx.view(spec, legsNeeded ? trace : undefined);
+  const o = outcomeOf(ctx, rv, amount, years, trace ? { trace, id: figure.strategy, figure: figure.kind } : undefined).strategies.find((s) => s.id === figure.strategy)!;
+  return ok(figure.kind === 'terminal' ? { value: o.terminal.toNumber(), money: o.terminal } : { value: o.annualReturn });
+}
+
+const GROWTH: Readonly<Record<StrategyId, string>> = {
+  roll: 'G_roll = (1 + r1 tau1) x ... x (1 + rn taun)',
+  zero: 'G_zero = 1 / DF(horizon)',
+  bond: "G_bond = (the par bond's flows grown to the horizon) / 100",
+  riding: "G_riding = (coupons grown to the horizon + dirty price on the view's horizon curve) / 100",
+};
+
+const AGAINST: Readonly<Record<TermStrategyId, string>> = { zero: 'the zero to the horizon', bond: 'the par bond to the horizon', riding: 'riding the longer bond' };
+
+/** One figure of the analysis with its explanation: the steps of the same computation, ending in the figure to all digits. */
+export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure): Result<RollFigureExplanation> {
+  const trace = rollTrace({ date: strategy.horizon });
+  const r = rollFigure(curve, strategy, scenarios, figure, trace);
+  const set = rollSetup(curve, strategy, scenarios);
+  if (!r.ok) return r;
+  if (!set.ok) return set;
+  const { ctx, specs, chosen, years, M } = set.value;
+  const S = curve.settlement;
+  const H = ctx.horizon;
+  const dc = strategy.rollDayCount;
+  const rate = (start: IsoDate, end: IsoDate, compounding: Compounding, dayCount: CurveDayCount, note: string | null): RollFigureDriver => ({ kind: 'rate', start, end, compounding, dayCount, note });
+  const par = (id: 'bond' | 'riding'): RollFigureDriver => ({ kind: 'par', end: id === 'bond' ? H : M, frequency: ctx[id].frequency, note: "of the bond's coupon, today's par yield" });
+  const zeroNote = 'of the zero rate to the horizon (ann, ACT/365F)';
+  if (figure.kind === 'leg-forward') {
+    const leg = ctx.legs[figure.leg - 1]!;
+    return ok({ ...r.value, explanation: trace.sink.explanation!, title: `Today's forward of roll leg ${leg.index} (${leg.start} to ${leg.end})`, driver: rate(leg.start, leg.end, 'simple', dc, null), why: null, userView: false });
+  }
+  recordDate(trace, 'horizon', strategy.horizon, H, 'unadjusted, no calendar');
+  const conventions = (c: Compounding | null, d: ExplainedConventions['dayCount']): ExplainedConventions => ({
+    compounding: c,
+    dayCount: d,
+    curveDayCount: curve.dayCount,
+    interpolation: curve.interpolation,
+    extrapolation: curve.extrapolation,
+    businessDay: 'unadjusted',
+    calendar: 'none',
+  });
+  const last = trace.steps.at(-1)!;
+  const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
+  if ('against' in figure) {
+    const view = specs[chosen]!;
+    const isRate = figure.kind === 'break-even-rate';
+    const explanation: Explanation = {
+      ...base,
+      quantity: 'roll-break-even',
+      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : 's*: a parallel shift of the view (bp)'}, at which G_roll = G_${figure.against} under "${view.label}"; ${GROWTH.roll}; ${GROWTH[figure.against]}. ${view.description}`,
+      conventions: isRate ? conventions('simple', dc) : conventions(null, null),
+    };
+    const driver = figure.against === 'zero' ? rate(S, H, 'annual', 'ACT/365F', zeroNote) : par(figure.against);
+    return ok({ ...r.value, explanation, title: `Break-even ${isRate ? 'roll rate r*' : 'shift of the view'} against ${AGAINST[figure.against]}`, driver, why: null, userView: view.id !== 'forwards' });
+  }
+  const spec = specs.find((s) => s.id === figure.view)!;
+  const id = figure.strategy;
+  const userView = id !== 'zero' && spec.id !== 'forwards';
+  const phrase = id === 'roll' ? `rolling ${strategy.rollTenor}` : id === 'riding' ? `riding the ${strategy.ridingMaturity} bond` : AGAINST[id];
+  const money = figure.kind === 'terminal';
+  if (!money) trace.yearFractions.push(explainedYearFraction('T', 'ACT/365F', S, H, years));
+  const explanation: Explanation = {
+    ...base,
+    quantity: money ? 'roll-terminal' : 'roll-return',
+    formula: `${money ? 'terminal = A x G' : 'return = G^(1/T) - 1'}, ${GROWTH[id]}, under "${spec.label}": ${spec.description} ${userView ? 'It rests on your view, not on the curve alone.' : "Read off today's curve alone."}`,
+    ...(money ? { valueText: last.text!, unit: `${moneyUnitOf(strategy.currency)} at the horizon, unrounded` } : {}),
+    conventions: money ? conventions(null, null) : conventions('annual', 'ACT/365F'),
+  };
+  const driver =
+    id === 'zero' || (id === 'roll' && spec.id === 'forwards') ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
+    : id === 'roll' && spec.id === 'unchanged' ? rate(S, marketDate(S, parseTenor(strategy.rollTenor)!), 'simple', dc, `of today's ${strategy.rollTenor} spot`)
+    : id !== 'roll' && spec.id === 'forwards' ? par(id)
+    : null;
+  const title = `${money ? 'Money at the horizon' : 'Annualised return'} of ${phrase} under ${spec.label}`;
+  return ok({ ...r.value, explanation, title, driver, why: driver ? null : 'none: it rests on your view as much as on the quotes', userView });
+}

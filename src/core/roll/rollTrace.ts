@@ -1,0 +1,166 @@
+import type { Curve } from '../curve/curve.ts';
+import {
+  DF_UNIT,
+  explainRead,
+  explainedYearFraction,
+  explanationSink,
+  rateUnit,
+  type ExplainedDate,
+  type ExplainedRead,
+  type ExplainedStep,
+  type ExplainedYearFraction,
+  type ExplanationSink,
+} from '../curve/explain.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { CurveDayCount } from '../time/dayCount.ts';
+import type { RollLeg, ViewSpec } from './rollViews.ts';
+import type { BondFlow } from './strategyBonds.ts';
+import type { RollContext, TermStrategyId } from './strategyValues.ts';
+
+/**
+ * The trace of one roll-versus-term figure (issue 19). The analysis's own functions (applyView,
+ * bondAtHorizon, strategyGrowths, annualisedReturn, moneyTimes, the break-even solver) take it as
+ * an optional last argument and hand it their own values; the recorders here only word them.
+ * Without a trace nothing is recorded and the arithmetic is the same. Names in the steps:
+ * leg k's rate `r<k>`, year fraction `tau<k>` (roll day count) and growth `g<k>`; a term
+ * strategy's flow i `CF<i>` (per 100 face) with its growth to the horizon `R<i>` or its discount
+ * factor on the horizon curve `DFH<i>`; each strategy's growth per unit `G_<strategy>`.
+ */
+export interface RollTrace {
+  readonly steps: ExplainedStep[];
+  readonly reads: ExplainedRead[];
+  readonly yearFractions: ExplainedYearFraction[];
+  readonly dates: ExplainedDate[];
+  /** The sink of the curve queries the figure rests on (the horizon's discount factor, a leg's forward). */
+  readonly sink: ExplanationSink;
+}
+
+export const rollTrace = (given?: Readonly<Record<string, string>>): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given) });
+
+export const GROWTH_UNIT = 'per unit invested';
+const PER_100 = 'per 100 face';
+
+const push = (t: RollTrace, name: string, formula: string, inputs: readonly string[], value: number, unit: string): void => {
+  t.steps.push({ name, formula, inputs, value, unit });
+};
+
+/** The product g_a x (g_(a+1) x (... x g_n)) in words, as the code multiplies it (from the last leg back). */
+const productWords = (from: number, n: number): string => (from === n ? `g${n}` : from + 1 === n ? `g${from} x g${n}` : `g${from} x (... x g${n})`);
+
+/**
+ * Applying a view to the legs (rollViews.ts applyView): leg 1's growth read off the curve, each
+ * later leg's rate as the view sets it, the growths and their product, all the view's own values.
+ */
+export function recordLegs(t: RollTrace, curve: Curve, legs: readonly RollLeg[], dayCount: CurveDayCount, spec: ViewSpec, legRates: readonly number[], legGrowth: readonly number[], rollGrowth: number): void {
+  const unit = rateUnit('simple', dayCount);
+  const n = legs.length;
+  legs.forEach((leg, k) => {
+    const i = k + 1;
+    t.yearFractions.push(explainedYearFraction(`tau${i}`, dayCount, leg.start, leg.end, leg.tau));
+    if (k === 0) {
+      const tEnd = curve.time(leg.end);
+      const ln = curve.lnDiscountAt(tEnd);
+      t.reads.push(explainRead(curve, 'DF(leg 1 end)', leg.end, tEnd, ln));
+      push(t, 'r1', "r1 = today's spot (the curve) = expm1(-ln DF(leg 1 end)) / tau1", ['DF(leg 1 end)', 'tau1'], legRates[0]!, unit);
+      push(t, 'g1', 'g1 = exp(-ln DF(leg 1 end)) = 1 + r1 x tau1', ['DF(leg 1 end)'], legGrowth[0]!, 'unitless');
+    } else {
+      push(t, `r${i}`, `r${i} = ${spec.legRate}`, [], legRates[k]!, unit);
+      push(t, `g${i}`, `g${i} = 1 + r${i} x tau${i}`, [`r${i}`, `tau${i}`], legGrowth[k]!, 'unitless');
+    }
+  });
+  push(t, 'G_roll', `G_roll = ${n === 0 ? '1' : productWords(1, n)}`, legs.map((_, k) => `g${k + 1}`), rollGrowth, GROWTH_UNIT);
+}
+
+/** How growthToHorizon grew one coupon: the leg it falls in and, inside a leg, the view's growth over the rest of it. */
+export interface HorizonGrowthParts {
+  /** 0-based leg holding the date (-1: at or after the horizon; the first leg for a date at settlement). */
+  leg: number;
+  /** Growth from the date to the end of its leg, when the date falls inside a leg. */
+  stub?: number;
+  /** Year fraction of that part of the leg on the roll day count. */
+  tau?: number;
+}
+
+/** A flow of a term bond paid by the horizon and grown to it at the view's money-market rates. */
+export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts: HorizonGrowthParts, legCount: number, growth: number): void {
+  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
+  const k = parts.leg;
+  const gs = (from: number): string[] => Array.from({ length: legCount - from + 1 }, (_, j) => `g${from + j}`);
+  if (k < 0) {
+    push(t, `R${i}`, `R${i} = 1`, [], growth, 'unitless');
+    return;
+  }
+  if (parts.stub === undefined) {
+    push(t, `R${i}`, `R${i} = ${productWords(k + 1, legCount)}`, gs(k + 1), growth, 'unitless');
+    return;
+  }
+  push(t, `stub${i}`, `stub${i} = the view's growth to the end of leg ${k + 1} (tau = ${parts.tau})`, [], parts.stub, 'unitless');
+  push(t, `R${i}`, `R${i} = stub${i}${k + 1 === legCount ? '' : ` x ${productWords(k + 2, legCount)}`}`, [`stub${i}`, ...gs(k + 2)], growth, 'unitless');
+}
+
+/** A flow after the horizon, priced on the view's horizon curve. */
+export function recordHorizonPrice(t: RollTrace, i: number, flow: BondFlow, dfh: number): void {
+  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
+  push(t, `DFH${i}`, `DFH${i} = DF(${flow.date}) on the view's horizon curve`, [], dfh, DF_UNIT);
+}
+
+/** A term bond's value at the horizon per 100 face and its growth per unit (bought at par). */
+export function recordBondTotals(t: RollTrace, id: string, flows: readonly { i: number; after: boolean }[], coupons: number, price: number, growth: number): void {
+  const before = flows.filter((f) => !f.after);
+  const after = flows.filter((f) => f.after);
+  push(t, 'coupons', `coupons = ${before.map((f) => `CF${f.i} x R${f.i}`).join(' + ') || 0}`, before.flatMap((f) => [`CF${f.i}`, `R${f.i}`]), coupons, PER_100);
+  push(t, 'price', `price = ${after.map((f) => `CF${f.i} x DFH${f.i}`).join(' + ') || 0}`, after.flatMap((f) => [`CF${f.i}`, `DFH${f.i}`]), price, PER_100);
+  push(t, `G_${id}`, `G_${id} = (coupons + price) / 100`, ['coupons', 'price'], growth, GROWTH_UNIT);
+}
+
+/** The zero to the horizon: its growth from the horizon's discount factor. */
+export function recordZero(t: RollTrace, growth: number): void {
+  const e = t.sink.explanation;
+  if (e) {
+    t.reads.push(...e.reads.map((r) => ({ ...r, name: 'DF(horizon)' })));
+    t.yearFractions.push(...e.yearFractions);
+  }
+  push(t, 'G_zero', 'G_zero = 1 / DF(horizon)', ['DF(horizon)'], growth, GROWTH_UNIT);
+}
+
+/** The annualised return of a growth over `years` (ACT/365F), annual compounding. */
+export function recordReturn(t: RollTrace, growth: string, lnG: number, years: number, value: number): void {
+  push(t, 'lnG', `lnG = ln ${growth}`, [growth], lnG, 'natural log of the growth');
+  push(t, 'return', 'return = expm1(lnG / T)', ['lnG', 'T'], value, rateUnit('annual', 'ACT/365F'));
+}
+
+/** Money: amount x growth in decimal.js, each as the exact decimal text it is computed with. */
+export function recordMoney(t: RollTrace, growthName: string, amount: string, growthText: string, terminal: string): void {
+  const step = (name: string, formula: string, inputs: string[], text: string, unit: string): number => t.steps.push({ name, formula, inputs, value: Number(text), unit, text });
+  step('A', 'A = the amount, as typed', [], amount, 'money');
+  step('G (decimal)', `G (decimal) = ${growthName}, its shortest decimal text`, [growthName], growthText, 'unitless');
+  step('terminal', 'terminal = A x G (decimal), decimal, 40 digits', ['A', 'G (decimal)'], terminal, 'money at the horizon');
+}
+
+export const recordDate = (t: RollTrace, name: string, given: string, date: IsoDate, rule: string): void => {
+  t.dates.push({ name, given, unadjusted: date, adjusted: date, rule });
+};
+
+/**
+ * A break-even (rollBreakEven.ts): the solver's root, then both growths evaluated at it by the
+ * functions the solver calls (`evaluate` records them and returns G_roll - G_id), the residual,
+ * and the root again as the figure.
+ */
+export function recordBreakEven(
+  t: RollTrace,
+  ctx: RollContext,
+  id: TermStrategyId,
+  kind: 'rate' | 'shift',
+  root: { readonly x: number; readonly iterations: number },
+  solver: { readonly bracket: readonly [number, number]; readonly xTol: number },
+  evaluate: (t: RollTrace) => number,
+): void {
+  const x = kind === 'rate' ? 'r' : 's';
+  const unit = kind === 'rate' ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp';
+  const [a, b] = solver.bracket;
+  push(t, x, `${x} = root of G_roll - G_${id} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${solver.xTol}`, [], root.x, unit);
+  const residual = evaluate(t);
+  push(t, 'residual', `residual = G_roll - G_${id}`, ['G_roll', `G_${id}`], residual, GROWTH_UNIT);
+  push(t, `${x}*`, `${x}* = ${x}`, [x, 'residual'], root.x, unit);
+}
+

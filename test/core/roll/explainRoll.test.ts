@@ -1,0 +1,297 @@
+import { describe, expect, it } from 'vitest';
+import {
+  analyseRollVsTerm,
+  buildCurve,
+  DEFAULT_STRATEGY,
+  explainRollFigure,
+  INTERPOLATIONS,
+  MoneyDecimal,
+  ROLL_TENORS,
+  rollFigure,
+  STRATEGY_FREQUENCIES,
+  STRATEGY_IDS,
+  TERM_STRATEGY_IDS,
+  type Curve,
+  type Explanation,
+  type ExplainedStep,
+  type RollFigure,
+  type StrategyInputs,
+} from '../../../src/core/index.ts';
+
+// Explanations of the roll panel's figures (issue 19). Three claims, over random curves and
+// strategies (invented, seeded):
+// 1. the traced figure is the analysis's own figure bit for bit (same code path: analyseRollVsTerm
+//    untraced against explainRollFigure traced), money to the last decimal digit;
+// 2. the shown steps, recomputed here from the shown inputs with the textbook definitions, give
+//    the figure to 1e-15 relative, money exactly. The definitions: a money-market leg grows by
+//    1 + r tau, simple interest on its day count (ACT/360: actual days / 360, ACT/365F: days / 365,
+//    ISDA 2006 Definitions 4.16; cited from memory); rolling compounds the legs, a coupon is
+//    reinvested to the horizon, a bond held past it is priced as the sum of its flows times their
+//    discount factors, and the annualised return is G^(1/T) - 1 (Tuckman and Serrat, "Fixed Income
+//    Securities", chapters on returns and on carry; cited from memory);
+// 3. a break-even is a root: both growths, recomputed from the shown steps at the shown root, are
+//    equal to the solver's tolerance.
+
+/** mulberry32: a small seeded generator, so each run sees the same random cases. */
+function rng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const pick = <T,>(r: () => number, xs: readonly T[]): T => xs[Math.floor(r() * xs.length)]!;
+const iso = (y: number, m: number, d: number): string => `${y}-${String(m).padStart(2, '0')}-${String(d).padStart(2, '0')}`;
+
+function randomCase(r: () => number): { curve: Curve; strategy: StrategyInputs } | null {
+  const y = 2024 + Math.floor(r() * 10);
+  const m = 1 + Math.floor(r() * 12);
+  const d = 1 + Math.floor(r() * 28);
+  const quotes: unknown[] = ['1M', '3M', '6M'].map((tenor) => ({ kind: 'deposit', tenor, rate: -0.003 + r() * 0.07 }));
+  for (const tenor of ['1Y', '2Y', '3Y', '5Y', '7Y', '10Y']) quotes.push({ kind: r() < 0.5 ? 'swap' : 'zero', tenor, rate: -0.003 + r() * 0.07 });
+  const doc = {
+    format: 'tenorscope-workspace',
+    version: 1,
+    settlement: iso(y, m, d),
+    curve: { dayCount: pick(r, ['ACT/365F', 'ACT/360', '30/360', 'ACT/ACT-ISDA']), interpolation: pick(r, INTERPOLATIONS), extrapolation: 'none' },
+    quotes,
+  };
+  const curve = buildCurve(doc, {}).curve;
+  if (!curve) return null;
+  const months = 1 + Math.floor(r() * 60);
+  const hm = m - 1 + months;
+  const horizon = r() < 0.5 ? `${months}M` : iso(y + Math.floor(hm / 12), (hm % 12) + 1, Math.min(28, d + Math.floor(r() * 20)));
+  const fill = pick(r, ['forwards', 'constant', 'ramp'] as const);
+  const strategy: StrategyInputs = {
+    ...DEFAULT_STRATEGY,
+    amount: pick(r, ['1000000', '250000.50', '10000000', '123456.789012']),
+    horizon,
+    rollTenor: pick(r, ROLL_TENORS),
+    rollDayCount: pick(r, ['ACT/360', 'ACT/365F', '30/360'] as const),
+    bondFrequency: pick(r, STRATEGY_FREQUENCIES),
+    ridingFrequency: pick(r, STRATEGY_FREQUENCIES),
+    ridingMaturity: `${Math.ceil(months / 12) + 1 + Math.floor(r() * 4)}Y`,
+    view: pick(r, ['forwards', 'unchanged', 'path', 'shift'] as const),
+    path: { ...DEFAULT_STRATEGY.path, fill, constant: r() * 0.06, rampFrom: r() * 0.06, rampTo: r() * 0.06 },
+    shiftBp: Math.round(-100 + r() * 200),
+  };
+  return { curve, strategy };
+}
+
+/** The cases: random curves and strategies the analysis accepts. */
+function cases(count: number, seed: number) {
+  const r = rng(seed);
+  const out: { curve: Curve; strategy: StrategyInputs }[] = [];
+  for (let tries = 0; out.length < count && tries < count * 5; tries++) {
+    const c = randomCase(r);
+    if (c && analyseRollVsTerm(c.curve, c.strategy).ok) out.push(c);
+  }
+  return out;
+}
+
+const rel = (a: number, b: number): number => (a === b ? 0 : Math.abs(a - b) / Math.max(Math.abs(b), 1e-300));
+const stepsOf = (e: Explanation): Map<string, ExplainedStep> => new Map(e.steps.map((s) => [s.name, s]));
+const val = (steps: Map<string, ExplainedStep>, name: string): number => {
+  const s = steps.get(name);
+  if (!s) throw new Error(`no step ${name}`);
+  return s.value;
+};
+
+/** Independent year fractions on the roll day counts used here (ISDA 2006 4.16, from memory). */
+function yearFraction(dc: string, from: string, to: string): number {
+  const [y1, m1, d1] = from.split('-').map(Number) as [number, number, number];
+  const [y2, m2, d2] = to.split('-').map(Number) as [number, number, number];
+  const days = (Date.UTC(y2, m2 - 1, d2) - Date.UTC(y1, m1 - 1, d1)) / 86_400_000;
+  if (dc === 'ACT/360') return days / 360;
+  if (dc === 'ACT/365F') return days / 365;
+  // 30/360 (bond basis): D1 = 31 -> 30; D2 = 31 -> 30 when D1 is 30 or 31.
+  const a = d1 === 31 ? 30 : d1;
+  const b = d2 === 31 && a === 30 ? 30 : d2;
+  return (360 * (y2 - y1) + 30 * (m2 - m1) + (b - a)) / 360;
+}
+
+/**
+ * Recomputes the growth G_<id> from the shown steps: the legs (g1 = exp(-ln DF), gk = 1 + rk taukk),
+ * their product from the last leg back, each flow's growth to the horizon, the coupons and price.
+ */
+function recomputeGrowth(e: Explanation, id: string, dc: string, fixedRate?: number): number {
+  const steps = stepsOf(e);
+  const gs = new Map<string, number>();
+  if (id !== 'zero') {
+    const n = e.yearFractions.filter((y) => /^tau\d+$/.test(y.name)).length;
+    for (let k = 1; k <= n; k++) {
+      const tau = e.yearFractions.find((y) => y.name === `tau${k}`)!;
+      expect(rel(tau.value, yearFraction(dc, tau.from, tau.to)), `tau${k} ${dc} ${tau.from} ${tau.to}`).toBeLessThanOrEqual(1e-15);
+      let g: number;
+      if (k === 1) {
+        const read = e.reads.find((x) => x.name === 'DF(leg 1 end)')!;
+        g = Math.exp(-read.lnDiscount);
+        expect(rel(val(steps, 'r1'), Math.expm1(-read.lnDiscount) / tau.value), 'r1').toBeLessThanOrEqual(1e-15);
+      } else {
+        g = 1 + val(steps, `r${k}`) * tau.value;
+        // At a break-even rate every later leg earns the root itself.
+        if (fixedRate !== undefined) expect(rel(val(steps, `g${k}`), 1 + fixedRate * tau.value), `g${k} at the root`).toBeLessThanOrEqual(1e-15);
+      }
+      expect(rel(val(steps, `g${k}`), g), `g${k}`).toBeLessThanOrEqual(1e-15);
+      gs.set(`g${k}`, val(steps, `g${k}`));
+    }
+    let p = 1;
+    for (let k = n; k >= 1; k--) p *= gs.get(`g${k}`)!;
+    expect(rel(val(steps, 'G_roll'), p), 'G_roll').toBeLessThanOrEqual(1e-15);
+  }
+  if (id === 'roll') return val(steps, 'G_roll');
+  if (id === 'zero') {
+    const read = e.reads.find((x) => x.name === 'DF(horizon)')!;
+    const g = 1 / read.discount;
+    expect(rel(val(steps, 'G_zero'), g), 'G_zero').toBeLessThanOrEqual(1e-15);
+    return g;
+  }
+  let coupons = 0;
+  let price = 0;
+  for (const s of e.steps) {
+    const m = /^CF(\d+)$/.exec(s.name);
+    if (!m) continue;
+    const i = m[1]!;
+    const R = steps.get(`R${i}`);
+    if (R) {
+      // growth to the horizon: the stub of its leg (if inside one) times the later legs, from the last back
+      let g = 1;
+      const legs = R.inputs.filter((x) => x.startsWith('g'));
+      for (let j = legs.length - 1; j >= 0; j--) g *= gs.get(legs[j]!)!;
+      if (R.inputs.includes(`stub${i}`)) g = val(steps, `stub${i}`) * g;
+      expect(rel(R.value, g), `R${i}`).toBeLessThanOrEqual(1e-15);
+      coupons += s.value * R.value;
+    } else price += s.value * val(steps, `DFH${i}`);
+  }
+  expect(rel(val(steps, 'coupons'), coupons), 'coupons').toBeLessThanOrEqual(1e-15);
+  expect(rel(val(steps, 'price'), price), 'price').toBeLessThanOrEqual(1e-15);
+  const G = (coupons + price) / 100;
+  expect(rel(val(steps, `G_${id}`), G), `G_${id}`).toBeLessThanOrEqual(1e-15);
+  return G;
+}
+
+const CASES = cases(24, 20261203);
+
+describe('explainRollFigure', () => {
+  it('draws enough random cases', () => expect(CASES.length).toBe(24));
+
+  it('gives every traced figure equal to the untraced analysis, bit for bit (money to the last digit)', () => {
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      const an = a.value;
+      for (const v of an.views) {
+        for (const o of v.strategies) {
+          const t = explainRollFigure(curve, strategy, [], { kind: 'terminal', view: v.id, strategy: o.id });
+          const u = rollFigure(curve, strategy, [], { kind: 'terminal', view: v.id, strategy: o.id });
+          if (!t.ok || !u.ok) throw new Error('figure');
+          expect(t.value.money!.toFixed()).toBe(o.terminal.toFixed());
+          expect(u.value.money!.toFixed()).toBe(o.terminal.toFixed());
+          expect(t.value.explanation.valueText).toBe(o.terminal.toFixed());
+          const ret = explainRollFigure(curve, strategy, [], { kind: 'return', view: v.id, strategy: o.id });
+          if (!ret.ok) throw new Error('return');
+          expect(Object.is(ret.value.value, o.annualReturn)).toBe(true);
+          expect(Object.is(ret.value.explanation.steps.at(-1)!.value, o.annualReturn)).toBe(true);
+        }
+      }
+      for (const id of TERM_STRATEGY_IDS) {
+        for (const kind of ['break-even-rate', 'break-even-shift'] as const) {
+          const shown = kind === 'break-even-rate' ? an.breakEvens.rollRate[id] : an.breakEvens.shiftBp[id];
+          const t = explainRollFigure(curve, strategy, [], { kind, against: id });
+          if (shown === null) {
+            expect(t.ok).toBe(false);
+            continue;
+          }
+          if (!t.ok) throw new Error('break-even');
+          expect(Object.is(t.value.value, shown)).toBe(true);
+          expect(Object.is(t.value.explanation.steps.at(-1)!.value, shown)).toBe(true);
+        }
+      }
+      an.legs.forEach((leg) => {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'leg-forward', leg: leg.index });
+        if (!t.ok) throw new Error('leg');
+        expect(Object.is(t.value.value, leg.forward)).toBe(true);
+        expect(Object.is(t.value.explanation.steps.at(-1)!.value, leg.forward)).toBe(true);
+      });
+    }
+  }, 120_000); // a limit for a hung run on a loaded machine, not a speed check
+
+  it('has steps that, recomputed from the shown inputs, give each terminal value exactly and each return to 1e-15', () => {
+    let checked = 0;
+    let stubs = 0;
+    for (const { curve, strategy } of CASES) {
+      const an = analyseRollVsTerm(curve, strategy);
+      if (!an.ok) throw new Error('analysis');
+      for (const v of an.value.views) {
+        for (const id of STRATEGY_IDS) {
+          const t = explainRollFigure(curve, strategy, [], { kind: 'terminal', view: v.id, strategy: id });
+          if (!t.ok) throw new Error('figure');
+          const e = t.value.explanation;
+          const G = recomputeGrowth(e, id, strategy.rollDayCount);
+          const steps = stepsOf(e);
+          if (e.steps.some((x) => x.name.startsWith('stub'))) stubs++;
+          // Money in decimal: A x G, G entering as its shortest decimal text (decimal.js; exact).
+          const A = steps.get('A')!.text!;
+          expect(A).toBe(new MoneyDecimal(strategy.amount).toFixed());
+          const gText = steps.get('G (decimal)')!.text!;
+          expect(Number(gText)).toBe(val(steps, `G_${id}`));
+          expect(rel(Number(gText), G)).toBeLessThanOrEqual(1e-15);
+          expect(new MoneyDecimal(A).times(new MoneyDecimal(gText)).toFixed()).toBe(e.valueText);
+          expect(e.steps.at(-1)!.text).toBe(e.valueText);
+          // The return: G^(1/T) - 1 with T = days / 365 from settlement to the horizon.
+          const r = explainRollFigure(curve, strategy, [], { kind: 'return', view: v.id, strategy: id });
+          if (!r.ok) throw new Error('return');
+          const re = r.value.explanation;
+          const Gr = recomputeGrowth(re, id, strategy.rollDayCount);
+          const T = yearFraction('ACT/365F', curve.settlement, an.value.horizon);
+          expect(rel(re.yearFractions.find((y) => y.name === 'T')!.value, T)).toBeLessThanOrEqual(1e-15);
+          expect(rel(re.value, Math.pow(Gr, 1 / T) - 1)).toBeLessThanOrEqual(1e-12); // pow on its own, a looser textbook check
+          expect(rel(re.value, Math.expm1(Math.log(Gr) / T))).toBeLessThanOrEqual(1e-15);
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(300);
+    expect(stubs, 'coupons paid inside a roll leg').toBeGreaterThan(10);
+  }, 120_000);
+
+  it('has break-even steps whose growths, recomputed at the shown root, are equal to the solver tolerance', () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      for (const id of TERM_STRATEGY_IDS) {
+        for (const kind of ['break-even-rate', 'break-even-shift'] as const) {
+          const figure: RollFigure = { kind, against: id };
+          const t = explainRollFigure(curve, strategy, [], figure);
+          if (!t.ok) continue;
+          const e = t.value.explanation;
+          const steps = stepsOf(e);
+          const root = val(steps, kind === 'break-even-rate' ? 'r' : 's');
+          expect(Object.is(root, t.value.value)).toBe(true);
+          const Groll = recomputeGrowth(e, 'roll', strategy.rollDayCount, kind === 'break-even-rate' ? root : undefined);
+          const Gterm = recomputeGrowth(e, id, strategy.rollDayCount);
+          expect(Object.is(val(steps, 'residual'), Groll - Gterm)).toBe(true);
+          // Brent stops on a bracket of 1e-15 in r (1e-10 bp in s): the growths then agree to about that.
+          expect(Math.abs(Groll - Gterm)).toBeLessThanOrEqual(1e-13);
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(40);
+  }, 120_000);
+
+  it('says when a figure rests on a view of the user rather than the curve', () => {
+    const { curve, strategy } = CASES[0]!;
+    const path = explainRollFigure(curve, { ...strategy, path: { ...strategy.path, fill: 'constant', constant: 0.05 } }, [], { kind: 'terminal', view: 'path', strategy: 'roll' });
+    const zero = explainRollFigure(curve, strategy, [], { kind: 'terminal', view: 'path', strategy: 'zero' });
+    if (!path.ok || !zero.ok) throw new Error('figure');
+    expect(path.value.userView).toBe(true);
+    expect(path.value.explanation.formula).toMatch(/under "Your path": .* It rests on your view, not on the curve alone\.$/);
+    expect(path.value.explanation.steps.find((s) => s.name === 'r2')!.formula).toBe('r2 = your path (your view)');
+    expect(zero.value.userView).toBe(false);
+    expect(zero.value.explanation.formula).toMatch(/Read off today's curve alone\.$/);
+  });
+});

@@ -1,0 +1,100 @@
+// @vitest-environment jsdom
+// The roll panel's figures open their explanation (issue 19): a break-even rate chosen by keyboard
+// and a money value clicked open the panel beside their table, whose value and last step are the
+// table's figure to all digits (analyseRollVsTerm, the panel's own source; the core test
+// test/core/roll/explainRoll.test.ts holds the traced figures to the untraced ones bit for bit and
+// recomputes their steps), a quote link brings its sheet row forward (the store's showRow), Copy
+// as text writes the core's text, Escape gives the focus back, and axe-core finds no violation.
+import { render, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import axe from 'axe-core';
+import { analyseRollVsTerm, fullText, validateStrategy } from '../../src/core/index.ts';
+import { RollSlot } from '../../src/features/roll/RollSlot.tsx';
+import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
+import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { useAppStore } from '../../src/state/store.ts';
+import { useDrafts } from '../../src/state/drafts.ts';
+
+vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
+
+const initial = useAppStore.getInitialState();
+beforeEach(() => {
+  useAppStore.setState(initial, true);
+  useDrafts.setState({ drafts: {} });
+});
+
+function setUp() {
+  const doc = useAppStore.getState().workspace;
+  const result = deriveBuild(doc);
+  const strategy = validateStrategy((doc as { strategy?: unknown }).strategy).strategy;
+  const analysis = analyseRollVsTerm(result.build.curve!, strategy);
+  if (!analysis.ok) throw new Error('analysis');
+  const view = render(<RollSlot result={result} />);
+  return { ...view, result, strategy, analysis: analysis.value };
+}
+
+describe('explanations in the roll panel', () => {
+  it('a break-even rate opens by keyboard, ends in the shown figure to all digits, links its quotes to the sheet and gives the focus back', async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis } = setUp();
+    const shown = analysis.breakEvens.rollRate.bond!;
+    const button = await screen.findByRole('button', { name: /explain the break-even roll rate against Par bond to horizon/ });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Break-even roll rate r\* against the par bond to the horizon/ });
+    expect(panel).toHaveFocus();
+    expect(button).toHaveAttribute('aria-expanded', 'true');
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(shown));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`r* = r = ${fullText(shown)} (decimal per year, simple, ACT/360)`);
+    expect(steps.some((s) => s!.startsWith('residual = G_roll - G_bond'))).toBe(true);
+    // The quotes behind the bond's coupon, each a link to its sheet row.
+    const links = within(within(panel).getByRole('region', { name: 'Quotes it depends on most' })).getAllByRole('button', { name: /^Row \d+:/ });
+    expect(links.length).toBeGreaterThan(0);
+    expect(links.length).toBeLessThanOrEqual(5);
+    const n = Number(/^Row (\d+):/.exec(links[0]!.textContent!)![1]);
+    await user.click(links[0]!);
+    expect(useAppStore.getState().selectedRowId).toBe(useAppStore.getState().workspace.quotes[n - 1]!.id);
+    // Under each interpolation method.
+    expect(within(panel).getByRole('region', { name: /Under each interpolation method/ })).toHaveTextContent(/\(this curve\)/);
+    panel.focus();
+    await user.keyboard('{Escape}');
+    expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
+    expect(button).toHaveFocus();
+  });
+
+  it('a money value opens with its exact decimal text, and Copy as text writes the core explanation', async () => {
+    const user = userEvent.setup({ delay: null });
+    const written: string[] = [];
+    Object.defineProperty(navigator, 'clipboard', { value: { writeText: async (t: string) => void written.push(t) }, configurable: true });
+    const { analysis, result, strategy } = setUp();
+    const view = analysis.views[analysis.chosen]!;
+    const riding = view.strategies.find((s) => s.id === 'riding')!;
+    const label = analysis.strategies.find((s) => s.id === 'riding')!.phrase;
+    await user.click(await screen.findByRole('button', { name: new RegExp(`explain the money at the horizon of ${label} under ${view.label}$`) }));
+    const panel = await screen.findByRole('complementary', { name: new RegExp(`Money at the horizon of ${label} under ${view.label}`) });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(riding.terminal.toFixed());
+    expect(panel.querySelector('.explain-value .tag')!.textContent).toBe(`${analysis.moneyUnit} at the horizon, unrounded`);
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toContain(`= ${riding.terminal.toFixed()} (money at the horizon)`);
+    await user.click(within(panel).getByRole('button', { name: 'Copy as text' }));
+    await waitFor(() => expect(within(panel).getByRole('status')).toHaveTextContent('Copied'));
+    const model = explainKeyCell(result, useAppStore.getState().workspace.display, { roll: { figure: { kind: 'terminal', view: view.id, strategy: 'riding' }, strategy, scenarios: [] } });
+    if (!model.ok) throw new Error('model');
+    expect(written).toEqual([model.value.text]);
+    expect(written[0]).toContain(`Value: ${riding.terminal.toFixed()}`);
+    expect(written[0]).toContain('not investment advice');
+  });
+
+  it('a leg forward opens beside the legs table, and the open panel has no axe-core violations', async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis, container } = setUp();
+    const leg = analysis.legs[1]!;
+    await user.click(await screen.findByRole('button', { name: /explain the today's forward of leg 2$/ }));
+    const panel = await screen.findByRole('complementary', { name: /Today's forward of roll leg 2/ });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(leg.forward));
+    expect(panel.closest('.roll-explain-host')!.querySelector('table.roll-legs')).not.toBeNull();
+    const a11y = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
+    expect(a11y.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
+  });
+});
