@@ -87,6 +87,7 @@ export function App() {
         ) : (
           <>
             <div className="right" id={AFTER_SHEET_ID} tabIndex={-1} role="region" aria-label="Charts and tables">
+              {kit && named && <kit.ShownCurveNote named={named} />}
               <CurvesPanel result={shown} deferredResult={shownDeferred} />
               {kit && named && <kit.SpreadView result={result} named={named} />}
               <TablesPanel result={shown} deferredResult={shownDeferred} extraTabs={EXTENSIONS.tabs} />

@@ -115,14 +115,37 @@ describe('the picker and the spread', () => {
     const after = cellOf('2Y');
     expect(after.discount).toBe(df(euribor, after.date));
     expect(after.discount).not.toBe(before.discount);
+    expect(screen.getByText(/The charts and tables show the curve/).textContent).toContain('euribor6m');
     // Its quotes, read-only, with the curve each builds and the curve that discounted it.
     const quotes = screen.getByRole('table', { name: 'Quotes of the curve euribor6m' });
     const rows = within(quotes).getAllByRole('row').slice(1).map((r) => [...r.querySelectorAll('td')].map((c) => c.textContent));
     expect(rows.map((r) => [r[1], r[4], r[5]])).toEqual([
-      ['deposit', 'euribor6m', "none (a ratio of euribor6m's own discount factors)"],
+      ['deposit', 'euribor6m', 'none (own DF ratio)'],
       ['swap', 'euribor6m', 'default'],
       ['swap', 'euribor6m', 'default'],
     ]);
+    // A named curve's quote value typed in its row: one undo step, the curve rebuilt from it.
+    const ten = screen.getByRole('textbox', { name: 'euribor6m quote 3 rate' });
+    await user.clear(ten);
+    await user.type(ten, '0.0321');
+    await user.tab();
+    const edited = useAppStore.getState().workspace.curves as { quotes: Record<string, unknown>[] }[];
+    expect(edited[0]!.quotes[2]).toEqual({ kind: 'swap', tenor: '10Y', rate: 0.0321 });
+    expect(edited[1]).toBe(ws.curves![1]); // the other curve is the very same object
+    const rebuilt = buildWorkbenchCurves(useAppStore.getState().workspace, defaultCurve).curves.find((c) => c.name === 'euribor6m')!.build.curve!;
+    expect(cellOf('2Y').discount).toBe(df(rebuilt, after.date));
+    expect(cellOf('10Y').discount).toBe(df(rebuilt, cellOf('10Y').date));
+    expect(cellOf('10Y').discount).not.toBe(df(euribor, cellOf('10Y').date));
+    // Text that is no number is kept as typed and named as an error; the rest of the curve still builds.
+    await user.clear(ten);
+    await user.type(ten, '3.2x');
+    await user.tab();
+    expect((useAppStore.getState().workspace.curves as { quotes: Record<string, unknown>[] }[])[0]!.quotes[2]!.rate).toBe('3.2x');
+    expect(screen.getAllByText(/curves\[0\] "euribor6m": quotes\[2\]\.rate: must be a number from -0\.1 to 1, not the text "3\.2x"/).length).toBeGreaterThan(0);
+    act(() => useAppStore.getState().undo());
+    act(() => useAppStore.getState().undo());
+    expect(useAppStore.getState().workspace.curves).toEqual(FIXTURE.curves);
+    expect(cellOf('2Y').discount).toBe(after.discount);
     // Undo brings the default curve back.
     act(() => useAppStore.getState().undo());
     expect(cellOf('2Y').discount).toBe(before.discount);

@@ -2,6 +2,9 @@ import type { Curve } from '../curve/curve.ts';
 import { readNamedCurves } from '../document/namedCurves.ts';
 import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../document/validate.ts';
 import type { CoreError } from '../result.ts';
+import { exactDecimal, nearestDouble } from '../input/decimalText.ts';
+import { QUOTE_VALUE_FIELDS } from '../kinds/registry.ts';
+import { isPlainObject } from '../document/plainObject.ts';
 import { buildNamedCurves, type NamedCurveBuild } from './namedCurveBuild.ts';
 
 /** The workbench's named curves, read and built. */
@@ -48,4 +51,30 @@ export function buildWorkbenchCurves(doc: WorkbenchCurveInputs, defaultCurve: Cu
   const built = buildNamedCurves(read.workspace, defaultCurve, { skipInvalid: true });
   const position = new Map((read.workspace.curves ?? []).map((c) => [c.name, c.position]));
   return { curves: [...built].sort((x, y) => position.get(x.name)! - position.get(y.name)!), errors: read.errors };
+}
+
+/** The field a named curve's quote (as the file gives it) holds its value in (`rate`, `price`, `cleanPrice`...), or null when it has none. */
+export function namedQuoteValueField(q: unknown): string | null {
+  if (!isPlainObject(q)) return null;
+  return QUOTE_VALUE_FIELDS.find((f) => q[f] !== undefined) ?? null;
+}
+
+/**
+ * The named curves with the value of quote `k` of the curve `name` set from typed text: a plain
+ * decimal in the file's unit (0.0263 for 2.63%, 99.25 per 100) becomes the double nearest it
+ * (as the sheet reads a cell); text that is no number is kept as typed, so nothing typed is lost
+ * and the reader names the field and what is wrong. Every other entry is the very same object.
+ * Unchanged (the same array) when the curve, quote or value field is not there.
+ */
+export function setNamedQuoteValue(curves: readonly unknown[], name: string, k: number, text: string): readonly unknown[] {
+  const i = curves.findIndex((c) => isPlainObject(c) && c.name === name);
+  const c = curves[i];
+  if (!isPlainObject(c) || !Array.isArray(c.quotes)) return curves;
+  const q: unknown = c.quotes[k];
+  const field = namedQuoteValueField(q);
+  if (field === null || !isPlainObject(q)) return curves;
+  const d = exactDecimal(text.trim());
+  const value = d === null ? text : nearestDouble(d, 0);
+  const quotes = c.quotes.map((x, j) => (j === k ? { ...q, [field]: value } : x));
+  return curves.map((x, j) => (j === i ? { ...c, quotes } : x));
 }

@@ -1,5 +1,5 @@
-import { useId } from 'react';
-import { discountedOnOf, NO_VALUE, formatQuotePrice, formatQuoteRate, isPlainObject, quoteConvention, quoteConventionTag, type NamedCurveBuild, type WorkbenchCurves } from '../../core/index.ts';
+import { useId, useState } from 'react';
+import { discountedOnOf, NO_VALUE, isPlainObject, namedQuoteValueField, setNamedQuoteValue, quoteConvention, quoteConventionTag, type NamedCurveBuild, type WorkbenchCurves } from '../../core/index.ts';
 import { setViewValues } from '../../state/viewValues.ts';
 import { useAppStore } from '../../state/store.ts';
 import { curveChoice, DEFAULT_NAME, VIEW_KEYS } from './curveChoice.ts';
@@ -63,6 +63,18 @@ export function CurvePicker({ named }: { named: WorkbenchCurves }) {
   );
 }
 
+/** Which curve the charts and tables show, said above them when it is a named curve (the roll and the print follow the default curve). */
+export function ShownCurveNote({ named }: { named: WorkbenchCurves }) {
+  const view = useAppStore((s) => s.workspace.view);
+  const shown = curveChoice(view, named.curves.map((c) => c.name)).shown;
+  if (shown === '') return null;
+  return (
+    <p className="banner shown-curve" role="status">
+      The charts and tables show the curve <strong>{shown}</strong> (chosen above the sheet); roll versus term and the print follow the curve "{DEFAULT_NAME}".
+    </p>
+  );
+}
+
 /** A named curve's quotes as the file gives them, read-only, with the curve each builds and the curve that discounted it. */
 function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: readonly unknown[] | undefined; named: WorkbenchCurves }) {
   const position = (raw ?? []).findIndex((c) => isPlainObject(c) && c.name === curve.name);
@@ -73,8 +85,8 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
   return (
     <>
       <p className="small">
-        Quotes of <strong>{curve.name}</strong> ({quotes.length}), read-only: a named curve's quotes are kept as the file gave them (saved, linked and exported unchanged); edit them in the file and
-        open it again. The sheet below edits the curve "{DEFAULT_NAME}".
+        Quotes of <strong>{curve.name}</strong> ({quotes.length}). Each value can be typed here, as the file writes it (a rate as a decimal, 0.0263 for 2.63%; a price per 100): saved, undone and
+        in the link like a cell. Kinds, maturities and terms are as the file gave them; change those in the file and open it again. The sheet below edits the curve "{DEFAULT_NAME}".
       </p>
       <div className="table-scroll">
         <table className="data named-quotes" aria-label={`Quotes of the curve ${curve.name}`}>
@@ -83,7 +95,7 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
               <th scope="col">No.</th>
               <th scope="col">Kind</th>
               <th scope="col">Maturity</th>
-              <th scope="col">Quote</th>
+              <th scope="col">Quote (decimal or per 100)</th>
               <th scope="col">Builds</th>
               <th scope="col">Discounted on</th>
             </tr>
@@ -102,11 +114,8 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
                   <td>{kind}</td>
                   <td>{q?.maturity ?? (isPlainObject(rawQuote) && typeof rawQuote.tenor === 'string' ? rawQuote.tenor.slice(0, 20) : '')}</td>
                   <td>
-                    {r && q ? (
-                      <>
-                        {r.unit === 'price' ? formatQuotePrice(r.market) : formatQuoteRate(r.market)} <span className="tag">{quoteConventionTag(quoteConvention(q))}</span>
-                      </>
-                    ) : null}
+                    <ValueCell curve={curve.name} k={k} raw={rawQuote} />
+                    {r && q ? <span className="tag">{quoteConventionTag(quoteConvention(q))}</span> : null}
                   </td>
                   {error ? (
                     <td colSpan={2} className="field-error">
@@ -115,8 +124,8 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
                   ) : (
                     <>
                       <td>{ins ? curve.name : NO_VALUE}</td>
-                      <td title={on === null && ins ? 'It fixes a ratio of its own curve’s discount factors, so it reads no other curve' : undefined}>
-                        {!ins ? NO_VALUE : on ?? (curve.role === 'projection' ? `none (a ratio of ${curve.name}'s own discount factors)` : curve.name)}
+                      <td title={on === null && ins && curve.role === 'projection' ? `It fixes a ratio of ${curve.name}'s own discount factors, so it reads no other curve` : undefined}>
+                        {!ins ? NO_VALUE : on ?? (curve.role === 'projection' ? 'none (own DF ratio)' : curve.name)}
                       </td>
                     </>
                   )}
@@ -127,5 +136,40 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
         </table>
       </div>
     </>
+  );
+}
+
+/** A named curve's quote value as typed (the file's unit), committed on each keystroke as one undo step per stretch of typing. */
+function ValueCell({ curve, k, raw }: { curve: string; k: number; raw: unknown }) {
+  const readOnly = useAppStore((s) => s.readOnly !== null);
+  const [draft, setDraft] = useState<string | null>(null);
+  const field = namedQuoteValueField(raw);
+  if (field === null || !isPlainObject(raw)) return <span>{NO_VALUE} </span>;
+  const v = raw[field];
+  const text = draft ?? (typeof v === 'string' || typeof v === 'number' ? String(v) : '');
+  const key = `named-quote:${curve}:${k}`;
+  return (
+    <input
+      className="named-value"
+      aria-label={`${curve} quote ${k + 1} ${field}`}
+      value={text}
+      size={9}
+      maxLength={40}
+      disabled={readOnly}
+      onChange={(e) => {
+        setDraft(e.target.value);
+        const s = useAppStore.getState();
+        s.commit({ ...s.workspace, curves: setNamedQuoteValue(s.workspace.curves ?? [], curve, k, e.target.value) }, `Edit ${curve} quote ${k + 1}`, key);
+      }}
+      onBlur={() => {
+        setDraft(null);
+        useAppStore.getState().endEdit();
+      }}
+      onKeyDown={(e) => {
+        if (e.key !== 'Escape') return;
+        setDraft(null);
+        useAppStore.getState().cancelEdit(key);
+      }}
+    />
   );
 }

@@ -1,7 +1,7 @@
 import { buildWorkbenchCurves, WORKSPACE_FORMAT, WORKSPACE_VERSION, isPlainObject, type WorkbenchCurveInputs, type WorkbenchCurves } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { curveChoice } from './curveChoice.ts';
-import { CurvePicker } from './CurvePicker.tsx';
+import { CurvePicker, ShownCurveNote } from './CurvePicker.tsx';
 import { SpreadView } from './SpreadView.tsx';
 import './namedCurves.css';
 
@@ -38,5 +38,5 @@ export function shownBuild(result: WorkbenchBuild, named: WorkbenchCurves, doc: 
   };
 }
 
-export const NAMED_CURVES_KIT = { buildWorkbenchCurves, shownBuild, CurvePicker, SpreadView };
+export const NAMED_CURVES_KIT = { buildWorkbenchCurves, shownBuild, CurvePicker, ShownCurveNote, SpreadView };
 export type NamedCurvesKit = typeof NAMED_CURVES_KIT;

@@ -12,6 +12,8 @@ import {
   workbenchFromEngine,
   zeroOn,
   forwardOn,
+  namedQuoteValueField,
+  setNamedQuoteValue,
   type Curve,
 } from '../../../src/core/index.ts';
 
@@ -130,5 +132,24 @@ describe('curveSpreadAt', () => {
     expect(line.end).toBe(govt.pillars.at(-1)!.date);
     expect(line.points.length).toBeGreaterThan(50);
     expect(line.points.at(-1)!.date <= line.end).toBe(true);
+  });
+});
+
+describe('setNamedQuoteValue', () => {
+  it('sets one quote\'s value field to the double nearest the typed decimal, every other entry the very same object', () => {
+    const curves = FIXTURE.curves as readonly unknown[];
+    const out = setNamedQuoteValue(curves, 'euribor6m', 1, ' 0.0271 ') as { quotes: Record<string, unknown>[] }[];
+    expect(out[0]!.quotes[1]).toEqual({ kind: 'swap', tenor: '2Y', rate: 0.0271 });
+    expect(out[0]!.quotes[0]).toBe((curves[0] as { quotes: unknown[] }).quotes[0]);
+    expect(out[1]).toBe(curves[1]);
+    expect((curves[0] as { quotes: Record<string, unknown>[] }).quotes[1]!.rate).toBe(0.0263); // the input is not changed
+    // 0.1 + 0.2 typed as 0.3 is the double 0.3 (the nearest), not a sum.
+    expect((setNamedQuoteValue(curves, 'govt', 0, '0.3') as { quotes: Record<string, unknown>[] }[])[1]!.quotes[0]!.rate).toBe(0.3);
+    // Text that is no number is kept as typed; an unknown curve or quote changes nothing.
+    expect((setNamedQuoteValue(curves, 'govt', 0, '2%x') as { quotes: Record<string, unknown>[] }[])[1]!.quotes[0]!.rate).toBe('2%x');
+    expect(setNamedQuoteValue(curves, 'nope', 0, '1')).toBe(curves);
+    expect(setNamedQuoteValue(curves, 'govt', 9, '1')).toBe(curves);
+    expect(namedQuoteValueField({ kind: 'bond', cleanPrice: 99 })).toBe('cleanPrice');
+    expect(namedQuoteValueField('x')).toBeNull();
   });
 });
