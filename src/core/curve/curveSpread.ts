@@ -1,8 +1,7 @@
 import type { Curve } from './curve.ts';
 import { forwardOn, zeroOn } from './query.ts';
-import { sampleDays } from './sampling.ts';
 import type { Compounding } from '../rates/compounding.ts';
-import { addDays, compareIso, daysBetween, type IsoDate } from '../time/date.ts';
+import type { IsoDate } from '../time/date.ts';
 import { marketDate } from '../time/dateConventions.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { Tenor } from '../time/tenor.ts';
@@ -21,12 +20,6 @@ export interface SpreadPoint {
   readonly b: number;
   /** (a - b) x 10,000, in basis points. */
   readonly bp: number;
-}
-
-export interface SpreadLine {
-  readonly points: readonly SpreadPoint[];
-  /** The last date both curves reach (the earlier of their last pillars, unless both extrapolate). */
-  readonly end: IsoDate;
 }
 
 /**
@@ -60,21 +53,4 @@ export function curveSpreadAt(a: Curve, b: Curve, measure: SpreadMeasure, dates:
     out.push({ date, x: a.time(date), a: ra, b: rb, bp: (ra - rb) * 1e4 });
   }
   return out;
-}
-
-/**
- * The spread line of curve a over curve b (curveSpreadAt) on about n dates from the day after
- * settlement to the last date both curves reach, spaced as the charts' grid (sampleDays, denser
- * at the short end); a forward's start stops a tenor before that end.
- */
-export function curveSpreadLine(a: Curve, b: Curve, measure: SpreadMeasure, c: Compounding, dc: CurveDayCount, tenor: Tenor, n = 120): SpreadLine {
-  const lastOf = (x: Curve): IsoDate => x.pillars[x.pillars.length - 1]?.date ?? x.settlement;
-  const both = a.extrapolation === 'flat-forward' && b.extrapolation === 'flat-forward';
-  const ends = [lastOf(a), lastOf(b)].sort(compareIso);
-  const end = both ? ends[1]! : ends[0]!;
-  const days = daysBetween(a.settlement, end);
-  if (days <= 0) return { points: [], end };
-  const dates = sampleDays(days, n).filter((d) => d > 0).map((d) => addDays(a.settlement, d));
-  const inRange = measure === 'forward' ? dates.filter((d) => compareIso(marketDate(d, tenor), end) <= 0) : dates;
-  return { points: curveSpreadAt(a, b, measure, inRange, c, dc, tenor), end };
 }
