@@ -4,6 +4,7 @@
 // spread table; and the same workspace from a link. Screenshots at 1280 and 760 px go to
 // test/artifacts/screenshots/named-curves-*.
 import { readFileSync } from 'node:fs';
+import { REPO_ROOT } from './harness.ts';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
@@ -13,6 +14,16 @@ import { launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './ha
 import type { StaticServer } from './static-server.ts';
 
 const FILE = 'test/fixtures/namedCurves/two-curves.json';
+const AXE_SOURCE = readFileSync(path.join(REPO_ROOT, 'node_modules', 'axe-core', 'axe.min.js'), 'utf8');
+/** axe-core's serious and critical findings in the picker and the spread view (the rules engine test/browser/accessibility.test.ts runs on the whole page). */
+async function serious(p: Page): Promise<string[]> {
+  await p.evaluate(AXE_SOURCE);
+  return p.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run(ctx: Document, o: object): Promise<{ violations: { id: string; impact: string | null }[] }> } }).axe;
+    const r = await axe.run({ include: [['.named-curves'], ['.spread-panel']] } as unknown as Document, { resultTypes: ['violations'] });
+    return r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} ${JSON.stringify((v as unknown as { nodes: { target: unknown }[] }).nodes.map((x) => x.target))}`);
+  });
+}
 const FIXTURE = JSON.parse(readFileSync(FILE, 'utf8')) as Record<string, unknown>;
 let browser: TestBrowser | undefined;
 let server: StaticServer | undefined;
@@ -56,6 +67,10 @@ describe('named curves in Chromium', () => {
     await expect.poll(() => zeroPath(p)).not.toBe(before);
     expect(await quotes.getByRole('row').nth(2).textContent()).toContain('default');
     await p.screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-euribor6m-${width}.png`), fullPage: true });
+    // Forwards instead of zero rates: the spread table says so in its name and headers.
+    await p.getByRole('combobox', { name: 'Spread of zero rates or forwards' }).selectOption('forward');
+    await p.getByRole('table', { name: /^Spread of euribor6m over default, 3M forwards/ }).waitFor();
+    expect(await serious(p)).toEqual([]);
     expect(errors).toEqual([]);
   });
 

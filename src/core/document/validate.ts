@@ -160,7 +160,7 @@ export type CurvesReader = (raw: unknown, common: Readonly<Record<string, unknow
  */
 const refuseNamedCurves: CurvesReader = (raw, _common, _read, errors) => {
   const names = Array.isArray(raw) ? raw.map((c) => (isPlainObject(c) && typeof c.name === 'string' ? `"${c.name.slice(0, 32)}"` : '?')).join(', ') : '';
-  errors.push(coreError('schema', 'curves', `this document holds named curves besides its default one${names ? ` (${names})` : ''}, which this reading was not given the named-curve reader for, so it is refused rather than drop them: build it with the curve command (it prints every curve) or open it in the workbench (it shows each curve), or remove curves to read its default curve alone`));
+  errors.push(coreError('schema', 'curves', `this document holds named curves besides its default one${names ? ` (${names})` : ''}, which this reading does not take, so it is refused rather than drop them: build it with the curve command or open it in the workbench, which read every curve`));
   return null;
 };
 

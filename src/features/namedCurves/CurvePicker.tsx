@@ -88,7 +88,7 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
         Quotes of <strong>{curve.name}</strong> ({quotes.length}). Each value can be typed here, as the file writes it (a rate as a decimal, 0.0263 for 2.63%; a price per 100): saved, undone and
         in the link like a cell. Kinds, maturities and terms are as the file gave them; change those in the file and open it again. The sheet below edits the curve "{DEFAULT_NAME}".
       </p>
-      <div className="table-scroll">
+      <div className="table-scroll" tabIndex={0} role="region" aria-label={`Quotes of ${curve.name} (scrolls sideways)`}>
         <table className="data named-quotes" aria-label={`Quotes of the curve ${curve.name}`}>
           <thead>
             <tr>

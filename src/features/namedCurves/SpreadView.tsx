@@ -38,8 +38,8 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
   const label = (name: string): string => (name === '' ? DEFAULT_NAME : name);
   const tag = rateTag(display.compounding, display.dayCount);
   const what = choice.measure === 'zero' ? 'zero rate' : `${display.forwardTenor} forward`;
-  const select = (key: string, value: string, text: string) => (
-    <select id={`${id}-${key}`} value={value} disabled={readOnly} onChange={(e) => setViewValues({ [key]: e.target.value }, 'Change the spread')}>
+  const select = (key: string, value: string, text: string, name: string) => (
+    <select id={`${id}-${key}`} aria-label={name} value={value} disabled={readOnly} onChange={(e) => setViewValues({ [key]: e.target.value }, 'Change the spread')}>
       {[...curves.keys()].map((n) => (
         <option key={n} value={n}>
           {label(n)}
@@ -54,11 +54,11 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
       <div className="panel-head">
         <h2 id={`${id}-title`}>Spread between curves</h2>
         <label htmlFor={`${id}-${VIEW_KEYS.of}`}>Curve</label>
-        {select(VIEW_KEYS.of, choice.of, 'not built')}
+        {select(VIEW_KEYS.of, choice.of, 'not built', 'Spread of the curve')}
         <label htmlFor={`${id}-${VIEW_KEYS.over}`}>minus</label>
-        {select(VIEW_KEYS.over, choice.over, 'not built')}
+        {select(VIEW_KEYS.over, choice.over, 'not built', 'Spread over the curve')}
         <label htmlFor={`${id}-${VIEW_KEYS.measure}`}>of</label>
-        <select id={`${id}-${VIEW_KEYS.measure}`} value={choice.measure} disabled={readOnly} onChange={(e) => setViewValues({ [VIEW_KEYS.measure]: e.target.value as SpreadMeasure }, 'Change the spread')}>
+        <select id={`${id}-${VIEW_KEYS.measure}`} aria-label="Spread of zero rates or forwards" value={choice.measure} disabled={readOnly} onChange={(e) => setViewValues({ [VIEW_KEYS.measure]: e.target.value as SpreadMeasure }, 'Change the spread')}>
           <option value="zero">zero rates</option>
           <option value="forward">{display.forwardTenor} forwards</option>
         </select>
@@ -67,7 +67,7 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
         <p className="empty">No spread: the curve {!a ? label(choice.of) : label(choice.over)} did not build (see its problems above the sheet).</p>
       ) : (
         <>
-          <div className="table-scroll">
+          <div className="table-scroll" tabIndex={0} role="region" aria-label="Spread table (scrolls sideways)">
             <table className="data" aria-label={`Spread of ${label(choice.of)} over ${label(choice.over)}, ${what}s`}>
               <thead>
                 <tr>
