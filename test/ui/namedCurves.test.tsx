@@ -68,8 +68,11 @@ describe('a workspace with named curves, kept', () => {
     const back = await decodeWorkspaceLink(link.fragment);
     if (!back.ok) throw new Error(back.message);
     expect(back.checked.document.curves).toEqual(FIXTURE.curves);
-    // The browser's saved entry.
+    // The browser's saved entry; one whose curves are not a list says it left them out.
     expect(checkRestoredWorkspace(JSON.parse(JSON.stringify(useAppStore.getState().workspace))).doc!.curves).toEqual(FIXTURE.curves);
+    const damaged = checkRestoredWorkspace({ ...JSON.parse(JSON.stringify(useAppStore.getState().workspace)), curves: { euribor6m: {} } });
+    expect(damaged.doc!.curves).toBeUndefined();
+    expect(damaged.notes).toContain('the saved named curves (curves) are an object, not a list of curves, and were left out');
     // The engine document, and the command line's output of the saved file equals that of the original.
     const engine = engineFromAnyDocument(JSON.parse(serialiseDocument(useAppStore.getState().workspace as unknown as Record<string, unknown>)));
     expect((engine.doc as Record<string, unknown>).curves).toEqual(FIXTURE.curves);

@@ -436,6 +436,7 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
   if (isPlainObject(raw.meetingSteps)) doc.meetingSteps = raw.meetingSteps;
   // Named curves as saved (the named-curve reader checks them when they are shown, naming what is wrong).
   if (Array.isArray(raw.curves)) doc.curves = raw.curves;
+  else if (raw.curves !== undefined) changes.push(`the saved named curves (curves) are ${shown(raw.curves)}, not a list of curves, and were left out`);
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];
   return { doc: doc as unknown as WorkbenchDocument, problem: null, changes };
 }
