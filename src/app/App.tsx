@@ -6,6 +6,7 @@ import { QuoteSheet } from '../features/quotes/QuoteSheet.tsx';
 import { SettingsBar } from '../features/settings/SettingsBar.tsx';
 import { WorkspacesButton, WorkspacesSlot } from '../features/workspaces/WorkspacesEntry.tsx';
 import { useCurveBuild, type WorkbenchBuild } from '../hooks/useCurveBuild.ts';
+import { useNamedCurves } from '../hooks/useNamedCurves.ts';
 import { useSettledValue } from '../hooks/useSettledValue.ts';
 import { useUndoShortcuts } from '../hooks/useUndoShortcuts.ts';
 import { useAppStore } from '../state/store.ts';
@@ -34,6 +35,10 @@ export function App() {
   // Panels beyond the base curve, charts and tables follow the build once typing pauses, so a
   // keystroke paints the sheet, charts and tables first (see useSettledValue).
   const deferred = useSettledValue(result);
+  // Named curves besides the default one (the document's `curves`; their code loads on first use):
+  // the charts and tables show the curve the picker chooses, the sheet edits the default curve.
+  const { shown, kit, named } = useNamedCurves(result);
+  const shownDeferred = shown === result ? deferred : shown;
   return (
     <div className="app">
       <SkipLink />
@@ -69,6 +74,7 @@ export function App() {
       {/* The quotes beside the charts and tables (one first screen); roll versus term across both below. */}
       <main className="workbench">
         <div className="left">
+          {kit && named && <kit.CurvePicker named={named} />}
           <QuoteSheet result={result} />
         </div>
         {undrawable.length > 0 ? (
@@ -81,8 +87,10 @@ export function App() {
         ) : (
           <>
             <div className="right" id={AFTER_SHEET_ID} tabIndex={-1} role="region" aria-label="Charts and tables">
-              <CurvesPanel result={result} deferredResult={deferred} />
-              <TablesPanel result={result} deferredResult={deferred} extraTabs={EXTENSIONS.tabs} />
+              {kit && named && <kit.ShownCurveNote named={named} />}
+              <CurvesPanel result={shown} deferredResult={shownDeferred} />
+              {kit && named && <kit.SpreadView result={result} named={named} />}
+              <TablesPanel result={shown} deferredResult={shownDeferred} extraTabs={EXTENSIONS.tabs} />
             </div>
             <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
               <RollHost result={deferred} />

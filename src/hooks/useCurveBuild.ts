@@ -58,7 +58,9 @@ export function deriveBuild(
     const fatal = `the quote unit ${JSON.stringify(String(ws.quoteUnit)).slice(0, 40)} is not one this build reads (${QUOTE_UNIT_MODES.join(', ')}), so the quotes are not read`;
     return { conversion, build, rowIssues: [], invalidCount: 0, disabledCount: 0, fatal };
   }
-  const conversion = toEngineDocument(ws, parseRowCached);
+  // The default curve alone: named curves (`curves`) are read and built by their own view (features/namedCurves), loaded on first use.
+  const { curves: _named, ...single } = ws as typeof ws & { readonly curves?: unknown };
+  const conversion = toEngineDocument(single, parseRowCached);
   // The code of turns and steps when it has been loaded (overnightKit.ts); a document without them does not need it.
   const kit = loadedOvernightKit();
   const base = kit ? { skipInvalid: true, overnight: kit } : { skipInvalid: true };

@@ -1,4 +1,4 @@
-import { formatCount, formatNumber, linkDocument, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/index.ts';
+import { formatCount, formatNumber, linkDocument, readNamedCurves, validateDocument, type CheckedDocument, type DocumentMigration, DOCUMENT_MIGRATIONS } from '../core/index.ts';
 import { decodeBase64Url, encodeBase64Url } from './base64url.ts';
 import { BUILD_ID } from './buildId.ts';
 import { deflateRaw, inflateRawCapped, type InflateOutcome } from './compression.ts';
@@ -123,7 +123,8 @@ async function decode(fragment: string, currentBuild: string, migrations: readon
   if (typeof b !== 'string' || b.length === 0 || b.length > 64 || Object.keys(env).some((k) => k !== 'b' && k !== 'd')) {
     return failure('invalid', 'This link does not hold a workspace in the expected form.');
   }
-  const checked = validateDocument(env.d, migrations);
+  // Named curves are read here (this module loads on first use, so the first load does not carry the reader).
+  const checked = validateDocument(env.d, migrations, readNamedCurves);
   if (!checked.ok) {
     const first = checked.errors.slice(0, 3).map((e) => e.message).join('; ');
     const more = checked.errors.length > 3 ? ` (and ${checked.errors.length - 3} more)` : '';

@@ -2,7 +2,7 @@ import type { Scenario } from '../scenarios/scenarioShape.ts';
 import type { Snapshot } from '../scenarios/scenarioSnapshots.ts';
 import { coreError, type CoreError } from '../result.ts';
 import type { Workspace } from './types.ts';
-import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from './validate.ts';
+import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION, type CurvesReader } from './validate.ts';
 import { validateNote, validateScenarios, validateSnapshots, validateView, type ViewValue } from './documentKeys.ts';
 import { depthProblem, LIMITS } from './limits.ts';
 import { checkWorkbenchShape } from './workbenchShape.ts';
@@ -75,8 +75,10 @@ export function migrateDocument(doc: Record<string, unknown>, migrations: readon
  * depth, quotes, scenarios, note, snapshots: LIMITS), then the engine's schema (validateWorkspace), then each
  * reserved key this module owns. Document-level errors refuse the document; errors of single
  * quotes are returned beside it. `strategy` is checked for size only; its owner validates it.
+ * `readCurves` reads named curves (`readNamedCurves`, which the link and file readers pass, so the
+ * first load does not carry it); without it a document with `curves` is refused, naming them.
  */
-export function validateDocument(raw: unknown, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS): DocumentOutcome {
+export function validateDocument(raw: unknown, migrations: readonly DocumentMigration[] = DOCUMENT_MIGRATIONS, readCurves?: CurvesReader): DocumentOutcome {
   if (!isPlainObject(raw)) return { ok: false, errors: [coreError('schema', '', 'a workspace document must be a JSON object')] };
   const deep = depthProblem(raw);
   if (deep) return { ok: false, errors: [coreError('range', '', deep)] };
@@ -93,9 +95,9 @@ export function validateDocument(raw: unknown, migrations: readonly DocumentMigr
     if (doc.version !== 1) return { ok: false, errors: [coreError('unsupported-version', 'version', `workbench document version ${typeof doc.version === 'number' || typeof doc.version === 'string' ? String(doc.version).slice(0, 10) : doc.version === null ? 'null' : Array.isArray(doc.version) ? '(a list)' : `(${typeof doc.version})`} is not one this build reads (1)`)] };
     const shape = checkWorkbenchShape(doc);
     if (!shape.engineDoc) return { ok: false, errors: shape.errors };
-    core = validateWorkspace(shape.engineDoc);
+    core = validateWorkspace(shape.engineDoc, readCurves);
   } else {
-    core = validateWorkspace(doc);
+    core = validateWorkspace(doc, readCurves);
     if (!core.workspace) return { ok: false, errors: core.errors };
   }
   const s = validateScenarios(doc.scenarios);
@@ -139,8 +141,8 @@ export function documentCapErrors(raw: unknown): CoreError[] {
 /** Longest file read as a workspace (characters). */
 export const MAX_FILE_CHARS = 4_000_000;
 
-/** Parses and validates the text of a workspace file. Never throws. */
-export function parseDocumentText(text: string): DocumentOutcome {
+/** Parses and validates the text of a workspace file (named curves read by `readCurves`, as validateDocument). Never throws. */
+export function parseDocumentText(text: string, readCurves?: CurvesReader): DocumentOutcome {
   if (text.length > MAX_FILE_CHARS) return { ok: false, errors: [coreError('range', '', `the file has ${text.length} characters; a workspace file is at most ${MAX_FILE_CHARS}`)] };
   let parsed: unknown;
   try {
@@ -148,7 +150,7 @@ export function parseDocumentText(text: string): DocumentOutcome {
   } catch (e) {
     return { ok: false, errors: [coreError('invalid-json', '', `the file is not valid JSON (${e instanceof Error ? e.message.slice(0, 120) : 'parse error'}); choose a workspace file saved by this app`)] };
   }
-  return validateDocument(parsed);
+  return validateDocument(parsed, DOCUMENT_MIGRATIONS, readCurves);
 }
 
 /** The document as a file: pretty JSON with a final newline. */

@@ -1,6 +1,6 @@
 import { coreError, fail, ok, type CoreError, type CoreWarning, type Result } from '../result.ts';
 import { convexityModelFields } from '../instruments/convexity.ts';
-import { validateWorkspace, RESERVED_KEYS } from './validate.ts';
+import { validateWorkspace, RESERVED_KEYS, type CurvesReader } from './validate.ts';
 import type { Quote, QuoteKind } from './types.ts';
 import { KIND_PRICE_FIELDS, KIND_RATE_FIELDS, QUOTE_KIND_MODULES } from '../kinds/registry.ts';
 import { QUOTE_COLUMN_LABEL, QUOTE_COLUMNS, type QuoteRow } from '../input/quoteRow.ts';
@@ -67,8 +67,8 @@ const meaning = (q: Quote): string => {
  * column for with a value other than the one the sheet's row implies (a zero's `compounding`, an
  * `eom` flag): the converted document is validated again and every quote must read the same.
  */
-export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<WorkbenchDocument> {
-  const first = validateWorkspace(raw);
+export function workbenchFromEngine(raw: unknown, makeId: () => string, readCurves?: CurvesReader): Result<WorkbenchDocument> {
+  const first = validateWorkspace(raw, readCurves);
   if (!first.workspace || first.errors.length > 0) return fail(...first.errors);
   const doc = raw as Record<string, unknown>;
 
@@ -112,9 +112,11 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string): Result<
   if (doc.fixings !== undefined && Object.keys(doc.fixings as object).length > 0) out.fixings = doc.fixings;
   if (Array.isArray(doc.turns) && doc.turns.length > 0) out.turns = doc.turns;
   if (doc.meetingSteps !== undefined) out.meetingSteps = doc.meetingSteps;
+  // Named curves (read by `readCurves`) are kept as the file gives them: the workbench shows them and writes them back unchanged.
+  if (Array.isArray(doc.curves)) out.curves = doc.curves;
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) out[key] = doc[key];
   const wb = out as unknown as WorkbenchDocument;
-  const again = validateWorkspace(toEngineDocument(wb).doc);
+  const again = validateWorkspace(toEngineDocument(wb).doc, readCurves);
   const errors: CoreError[] = [];
   if (ws.curve.fit !== 'none') errors.push(coreError('schema', 'curve.fit', `curve.fit "${ws.curve.fit}" has no place in the workbench document; choose the fit in the workbench's fit section instead, or remove curve.fit from the file`));
   const back = again.workspace?.quotes ?? [];

@@ -8,8 +8,10 @@
 import { formatCount } from '../format/quantities.ts';
 
 export const LIMITS = {
-  /** Entries of `quotes` (sheet rows). */
+  /** Entries of `quotes` (sheet rows), and of each named curve's `quotes`. */
   quotes: 500,
+  /** Named curves (`curves`) besides the default one. */
+  namedCurves: 8,
   /** Characters of one typed quote cell or row id. */
   cell: 64,
   /** Characters of the settlement text and of a curve or display setting. */

@@ -1,5 +1,6 @@
 import { formatCount } from '../format/marks.ts';
 import { parseDocumentText } from './document.ts';
+import { readNamedCurves } from './namedCurves.ts';
 import { WORKBENCH_FORMAT } from './workbenchDocument.ts';
 
 /** The file holding every saved workspace ("Export all"). */
@@ -67,7 +68,7 @@ export function splitListFile(text: string, fileName: string): SplitListFile {
 
 /** Checks one entry of a split list file: its workbench document, or a problem naming it. */
 export function checkListEntry(entry: SplitListFile['entries'][number]): { readonly name: string; readonly document: Record<string, unknown> } | string {
-  const checked = parseDocumentText(entry.text);
+  const checked = parseDocumentText(entry.text, readNamedCurves);
   if (!checked.ok) return `${entry.where}: ${checked.errors[0]?.message ?? 'not a workspace'}`;
   if (checked.value.document.format !== WORKBENCH_FORMAT) return `${entry.where}: an engine workspace document, which the workbench does not open`;
   return { name: entry.name, document: checked.value.document };

@@ -18,7 +18,7 @@ export const DEFAULT_CURVE_NAME = 'default';
 /** A term index's tenor and its periods a year (the floating leg of its swaps). */
 export const INDEX_TENORS: Readonly<Record<string, number>> = { '1M': 12, '3M': 4, '6M': 2, '12M': 1 };
 /** Named curves a document may hold besides its default one. */
-export const NAMED_CURVES_MAX = 8;
+export const NAMED_CURVES_MAX = LIMITS.namedCurves;
 const NAME = /^[A-Za-z][A-Za-z0-9_-]{0,31}$/;
 const CURVE_ENTRY_KEYS = ['name', 'role', 'index', 'discountCurve', 'curve', 'quotes'];
 

@@ -154,13 +154,13 @@ function checkFixings(v: unknown, errors: CoreError[]): Readonly<Record<IsoDate,
 export type CurvesReader = (raw: unknown, common: Readonly<Record<string, unknown>>, read: ReadWorkspace, errors: CoreError[]) => readonly WorkspaceCurve[] | null;
 
 /**
- * The reader of `curves` when none is given (the workbench: it shows one curve, and its first
- * load does not carry the named-curve reader): the document is refused, naming its curves and
- * the command that builds them, so none is dropped silently.
+ * The reader of `curves` when none is given (the workbench's default build, which builds the
+ * default curve alone: its first load does not carry the named-curve reader, and the link and file
+ * readers pass it): the document is refused, naming its curves, so none is dropped silently.
  */
 const refuseNamedCurves: CurvesReader = (raw, _common, _read, errors) => {
   const names = Array.isArray(raw) ? raw.map((c) => (isPlainObject(c) && typeof c.name === 'string' ? `"${c.name.slice(0, 32)}"` : '?')).join(', ') : '';
-  errors.push(coreError('schema', 'curves', `this document holds named curves besides its default one${names ? ` (${names})` : ''}, which the curve command builds, printing every curve; the workbench shows one curve, so it does not open the file rather than drop them: build it with the curve command, or remove curves to open its default curve here`));
+  errors.push(coreError('schema', 'curves', `this document holds named curves besides its default one${names ? ` (${names})` : ''}, which this reading does not take, so it is refused rather than drop them: build it with the curve command or open it in the workbench, which read every curve`));
   return null;
 };
 

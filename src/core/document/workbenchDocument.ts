@@ -88,6 +88,13 @@ export interface WorkbenchDocument {
   readonly turns?: readonly Turn[];
   /** Policy effective dates and whether the curve steps on them (the engine document's `meetingSteps`, as is). */
   readonly meetingSteps?: MeetingSteps;
+  /**
+   * Named curves besides the default one (the engine document's `curves`, as given: each entry's
+   * name, role, index, discountCurve, curve settings and quotes as numbers; absent: one curve).
+   * The workbench keeps them unchanged through save, link and file; the named-curve reader checks
+   * and builds them when they are shown (features/namedCurves).
+   */
+  readonly curves?: readonly unknown[];
   readonly strategy?: unknown;
   readonly scenarios?: unknown;
   readonly snapshots?: unknown;
@@ -133,7 +140,7 @@ export interface EngineConversion {
  * a caching wrapper of `parseRow` (the UI keeps one so a one-cell edit re-parses one row).
  */
 export function toEngineDocument(
-  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars' | 'customCalendars' | 'fixings' | 'turns' | 'meetingSteps'> & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
+  doc: Pick<WorkbenchDocument, 'settlement' | 'curve' | 'quoteUnit' | 'quotes' | 'calendars' | 'customCalendars' | 'fixings' | 'turns' | 'meetingSteps'> & { readonly curves?: readonly unknown[] | undefined } & { readonly display?: Partial<DisplaySettings> } & Partial<Record<(typeof RESERVED_KEYS)[number], unknown>>,
   parse: (row: QuoteRow, mode: QuoteUnitMode, conventions: InputConventions) => RowParse = parseRow): EngineConversion {
   const conventions = conventionsOf(doc);
   const rows = doc.quotes.map((r) => parse(r, doc.quoteUnit, conventions));
@@ -185,6 +192,7 @@ export function toEngineDocument(
     ...(doc.meetingSteps !== undefined ? { meetingSteps: doc.meetingSteps } : {}),
     curve,
     quotes,
+    ...(doc.curves !== undefined ? { curves: doc.curves } : {}),
   };
   for (const key of RESERVED_KEYS) if (doc[key] !== undefined) engine[key] = doc[key];
   return { doc: engine, rowOfQuote, rows, invalidRows, blankRows, notes };
@@ -426,6 +434,9 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
   // Turns and meeting steps likewise: the engine reads them and names what is wrong.
   if (Array.isArray(raw.turns)) doc.turns = raw.turns;
   if (isPlainObject(raw.meetingSteps)) doc.meetingSteps = raw.meetingSteps;
+  // Named curves as saved (the named-curve reader checks them when they are shown, naming what is wrong).
+  if (Array.isArray(raw.curves)) doc.curves = raw.curves;
+  else if (raw.curves !== undefined) changes.push(`the saved named curves (curves) are ${shown(raw.curves)}, not a list of curves, and were left out`);
   for (const key of RESERVED_KEYS) if (raw[key] !== undefined) doc[key] = raw[key];
   return { doc: doc as unknown as WorkbenchDocument, problem: null, changes };
 }

@@ -6,7 +6,7 @@ import { LIMITS } from './limits.ts';
 import { isPlainObject } from './plainObject.ts';
 import { MAX_EFFECTIVE_DATES, MAX_TURNS } from './overnightSections.ts';
 
-const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps', ...RESERVED_KEYS];
+const TOP = ['format', 'version', 'settlement', 'curve', 'quoteUnit', 'quotes', 'display', 'calendars', 'customCalendars', 'fixings', 'turns', 'meetingSteps', 'curves', ...RESERVED_KEYS];
 const ROW_KEYS = ['id', 'enabled', ...QUOTE_COLUMNS];
 /** Characters of one typed cell or row id (LIMITS.cell). */
 export const CELL_MAX = LIMITS.cell;
@@ -43,6 +43,16 @@ const meetingStepsShape = (v: unknown): boolean =>
   isPlainObject(v) && Object.keys(v).every((k) => k === 'on' || k === 'effectiveDates') && (v.effectiveDates === undefined || (Array.isArray(v.effectiveDates) && v.effectiveDates.length <= MAX_EFFECTIVE_DATES && v.effectiveDates.every((d) => shortText(d, 10))));
 
 /**
+ * The shape of `curves` (named curves, the engine's form): at most LIMITS.namedCurves objects,
+ * each with at most LIMITS.quotes quotes, every quote a flat object of short settings (the
+ * named-curve reader checks names, roles, references and quotes when the curves are shown).
+ */
+const namedCurvesShape = (v: unknown): boolean =>
+  Array.isArray(v) &&
+  v.length <= LIMITS.namedCurves &&
+  v.every((c) => isPlainObject(c) && Object.keys(c).length <= 10 && (c.curve === undefined || curveSettings(c.curve)) && Array.isArray(c.quotes) && c.quotes.length <= LIMITS.quotes && c.quotes.every((q) => flatSettings(q)) && Object.entries(c).every(([k, x]) => k === 'curve' || k === 'quotes' || flatValue(x)));
+
+/**
  * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
  * read from untrusted input, strictly: known keys only, at most LIMITS.quotes rows, every cell
  * text of at most CELL_MAX characters, settings flat and short. The cells' meaning is the
@@ -61,6 +71,7 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   if (raw.fixings !== undefined && !fixingsShape(raw.fixings)) errors.push(coreError('schema', 'fixings', `fixings must be an object of dates to overnight rates (decimals), at most ${LIMITS.fixings} of them`));
   if (raw.turns !== undefined && !turnsShape(raw.turns)) errors.push(coreError('schema', 'turns', `turns must be a list of at most ${MAX_TURNS} turns, each {"name", "from", "to", "spreadBp"}`));
   if (raw.meetingSteps !== undefined && !meetingStepsShape(raw.meetingSteps)) errors.push(coreError('schema', 'meetingSteps', `meetingSteps must be {"on": true or false, "effectiveDates": [dates]}, at most ${MAX_EFFECTIVE_DATES} dates`));
+  if (raw.curves !== undefined && !namedCurvesShape(raw.curves)) errors.push(coreError('schema', 'curves', `curves must be a list of at most ${LIMITS.namedCurves} named curves, each {"name", "role", "index", "discountCurve", "curve": {settings}, "quotes": [at most ${LIMITS.quotes} quotes of short settings]}`));
   if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));
   if (!Array.isArray(raw.quotes)) errors.push(coreError('schema', 'quotes', 'quotes must be a list of rows'));
   else if (raw.quotes.length > LIMITS.quotes) errors.push(coreError('range', 'quotes', `${raw.quotes.length} quotes is more than the ${LIMITS.quotes} a workspace may hold`));

@@ -31,7 +31,7 @@ export function zeroSparkline(doc: WorkbenchDocument): Sparkline | null {
   let out: Sparkline | null = null;
   try {
     const kit = loadedOvernightKit();
-    const build = buildCurve(toEngineDocument(doc, parseRowCached).doc, kit ? { skipInvalid: true, overnight: kit } : { skipInvalid: true });
+    const build = buildCurve(toEngineDocument({ ...doc, curves: undefined }, parseRowCached).doc, kit ? { skipInvalid: true, overnight: kit } : { skipInvalid: true });
     const curve = build.curve;
     const last = curve?.pillars[curve.pillars.length - 1];
     if (curve && last) {

@@ -323,14 +323,19 @@ describe('named curves: bad input never throws', () => {
 });
 
 describe('the workbench and named curves', () => {
-  it('refuses to open an engine file with named curves, naming them and saying the command line builds them', () => {
+  it('without the named-curve reader, refuses an engine file with named curves, naming them; with it, opens the file keeping them as given', () => {
     // The bridge's rule: a conversion is exact or refused (src/core/document/documentBridge.ts);
-    // without the named-curve reader (the workbench's build) validation refuses `curves`.
+    // without the named-curve reader (the workbench's default build) validation refuses `curves`.
     const r = workbenchFromEngine(twoCurveDoc(), () => 'id');
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.errors.map((e) => e.path)).toEqual(['curves']);
-    expect(r.errors[0]!.message).toMatch(/\("euribor6m"\).*curve command.*does not open the file rather than drop them/);
+    expect(r.errors[0]!.message).toMatch(/\("euribor6m"\).*refused rather than drop them.*curve command/);
     expect(buildCurve(twoCurveDoc()).errors.map((e) => e.path)).toEqual(['curves']);
+    // The file readers pass the reader (src/share/documentReader.ts): the curves come through unchanged.
+    const opened = workbenchFromEngine(twoCurveDoc(), () => 'id', readNamedCurves);
+    expect(opened.ok).toBe(true);
+    if (!opened.ok) return;
+    expect(opened.value.curves).toEqual(twoCurveDoc().curves);
   });
 });

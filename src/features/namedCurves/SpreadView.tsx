@@ -1,0 +1,108 @@
+import { useId, useMemo } from 'react';
+import { bpFigure, curveSpreadAt, formatDate, formatPercent, marketDate, parseTenor, rateTag, type Curve, type SpreadMeasure, type WorkbenchCurves } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { setViewValues } from '../../state/viewValues.ts';
+import { useAppStore } from '../../state/store.ts';
+import { curveChoice, DEFAULT_NAME, VIEW_KEYS } from './curveChoice.ts';
+
+/** The maturities the spread table reads, from the valuation date. */
+export const SPREAD_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '15Y', '20Y', '30Y'] as const;
+
+/**
+ * The spread between any two curves of the workspace (the default curve and the named curves
+ * that built): zero rates, or forwards of the display's forward tenor, of the first curve minus
+ * the second at each maturity, in bp, both rates in the display's compounding and day count
+ * (curveSpreadAt in the core computes every figure).
+ */
+export function SpreadView({ result, named }: { result: WorkbenchBuild; named: WorkbenchCurves }) {
+  const id = useId();
+  const view = useAppStore((s) => s.workspace.view);
+  const display = useAppStore((s) => s.workspace.display);
+  const readOnly = useAppStore((s) => s.readOnly !== null);
+  const curves = useMemo(() => {
+    const out = new Map<string, Curve>();
+    if (result.build.curve) out.set('', result.build.curve);
+    for (const c of named.curves) if (c.build.curve) out.set(c.name, c.build.curve);
+    return out;
+  }, [result.build.curve, named]);
+  const choice = curveChoice(view, named.curves.map((c) => c.name));
+  const a = curves.get(choice.of);
+  const b = curves.get(choice.over);
+  const tenor = parseTenor(display.forwardTenor)!;
+  const rows = useMemo(() => {
+    if (!a || !b) return [];
+    const dates = SPREAD_TENORS.map((t) => marketDate(a.settlement, parseTenor(t)!));
+    const points = curveSpreadAt(a, b, choice.measure, dates, display.compounding, display.dayCount, tenor);
+    return SPREAD_TENORS.map((t, i) => ({ tenor: t, date: dates[i]!, point: points.find((p) => p.date === dates[i]) ?? null }));
+  }, [a, b, choice.measure, display.compounding, display.dayCount, tenor]);
+  const label = (name: string): string => (name === '' ? DEFAULT_NAME : name);
+  const tag = rateTag(display.compounding, display.dayCount);
+  const what = choice.measure === 'zero' ? 'zero rate' : `${display.forwardTenor} forward`;
+  const select = (key: string, value: string, text: string, name: string) => (
+    <select id={`${id}-${key}`} aria-label={name} value={value} disabled={readOnly} onChange={(e) => setViewValues({ [key]: e.target.value }, 'Change the spread')}>
+      {[...curves.keys()].map((n) => (
+        <option key={n} value={n}>
+          {label(n)}
+        </option>
+      ))}
+      {!curves.has(value) && <option value={value}>{text}</option>}
+    </select>
+  );
+  const missing = rows.filter((r) => r.point === null).length;
+  return (
+    <section className="panel spread-panel" aria-labelledby={`${id}-title`}>
+      <div className="panel-head">
+        <h2 id={`${id}-title`}>Spread between curves</h2>
+        <label htmlFor={`${id}-${VIEW_KEYS.of}`}>Curve</label>
+        {select(VIEW_KEYS.of, choice.of, 'not built', 'Spread of the curve')}
+        <label htmlFor={`${id}-${VIEW_KEYS.over}`}>minus</label>
+        {select(VIEW_KEYS.over, choice.over, 'not built', 'Spread over the curve')}
+        <label htmlFor={`${id}-${VIEW_KEYS.measure}`}>of</label>
+        <select id={`${id}-${VIEW_KEYS.measure}`} aria-label="Spread of zero rates or forwards" value={choice.measure} disabled={readOnly} onChange={(e) => setViewValues({ [VIEW_KEYS.measure]: e.target.value as SpreadMeasure }, 'Change the spread')}>
+          <option value="zero">zero rates</option>
+          <option value="forward">{display.forwardTenor} forwards</option>
+        </select>
+      </div>
+      {!a || !b ? (
+        <p className="empty">No spread: the curve {!a ? label(choice.of) : label(choice.over)} did not build (see its problems above the sheet).</p>
+      ) : (
+        <>
+          <div className="table-scroll" tabIndex={0} role="region" aria-label="Spread table (scrolls sideways)">
+            <table className="data" aria-label={`Spread of ${label(choice.of)} over ${label(choice.over)}, ${what}s`}>
+              <thead>
+                <tr>
+                  <th scope="col">Maturity</th>
+                  <th scope="col">{choice.measure === 'zero' ? 'Date' : 'Start'}</th>
+                  <th scope="col">
+                    {label(choice.of)} {what} <span className="tag">{tag}</span>
+                  </th>
+                  <th scope="col">
+                    {label(choice.over)} {what} <span className="tag">{tag}</span>
+                  </th>
+                  <th scope="col">Spread (bp)</th>
+                </tr>
+              </thead>
+              <tbody>
+                {rows
+                  .filter((r) => r.point !== null)
+                  .map((r) => (
+                    <tr key={r.tenor}>
+                      <th scope="row">{r.tenor}</th>
+                      <td>{formatDate(r.date)}</td>
+                      <td>{formatPercent(r.point!.a)}</td>
+                      <td>{formatPercent(r.point!.b)}</td>
+                      <td>{bpFigure(r.point!.bp)}</td>
+                    </tr>
+                  ))}
+              </tbody>
+            </table>
+          </div>
+          <p className="muted small">
+            Spread = {label(choice.of)} minus {label(choice.over)}, each {what} in {tag} from the valuation date{choice.measure === 'forward' ? ` (a forward starts at the maturity and runs ${display.forwardTenor})` : ''}; the compounding and day count are the display's.
+            {missing > 0 ? ` ${missing} ${missing === 1 ? 'maturity lies' : 'maturities lie'} past a curve's last pillar and ${missing === 1 ? 'is' : 'are'} not shown.` : ''}
+          </p>
+        </>
+      )}
+    </section>
+  );
+}

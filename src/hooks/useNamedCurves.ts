@@ -1,0 +1,60 @@
+import { useEffect, useMemo, useReducer } from 'react';
+import type { WorkbenchCurves } from '../core/index.ts';
+import { useAppStore } from '../state/store.ts';
+import type { WorkbenchBuild } from './useCurveBuild.ts';
+import type { NamedCurvesKit } from '../features/namedCurves/namedCurvesKit.ts';
+
+/**
+ * A workspace's named curves (the document's `curves`): their reader, build, picker and spread
+ * view are fetched on first use (features/namedCurves/namedCurvesKit.ts, in the `later` chunk), so
+ * a workspace of one curve never loads them and its first screen is as before.
+ */
+let kit: NamedCurvesKit | null = null;
+let pending: Promise<NamedCurvesKit> | null = null;
+
+function loadKit(): Promise<NamedCurvesKit> {
+  pending ??= import('../features/namedCurves/namedCurvesKit.ts').then(
+    (m) => (kit = m.NAMED_CURVES_KIT),
+    (error: unknown) => {
+      pending = null; // a later render tries again
+      throw error;
+    },
+  );
+  return pending;
+}
+
+export interface NamedCurvesView {
+  /** The build the charts and tables show: the default build, or the chosen named curve's. */
+  readonly shown: WorkbenchBuild;
+  /** The loaded code, null for a workspace of one curve (or while it loads). */
+  readonly kit: NamedCurvesKit | null;
+  /** The named curves read and built (derived from the document, never stored), null as `kit`. */
+  readonly named: WorkbenchCurves | null;
+}
+
+/** The named curves of the workspace, built after the default build `result`, and the build to show. */
+export function useNamedCurves(result: WorkbenchBuild): NamedCurvesView {
+  const curves = useAppStore((s) => s.workspace.curves);
+  const settlement = useAppStore((s) => s.workspace.settlement);
+  const calendars = useAppStore((s) => s.workspace.calendars);
+  const customCalendars = useAppStore((s) => s.workspace.customCalendars);
+  const view = useAppStore((s) => s.workspace.view);
+  const needed = curves !== undefined;
+  const [, arrived] = useReducer((n: number) => n + 1, 0);
+  useEffect(() => {
+    if (!needed || kit !== null) return;
+    let live = true;
+    loadKit().then(
+      () => live && arrived(),
+      () => undefined,
+    );
+    return () => {
+      live = false;
+    };
+  }, [needed]);
+  const loaded = needed ? kit : null;
+  const defaultCurve = result.build.curve;
+  const named = useMemo(() => (loaded ? loaded.buildWorkbenchCurves({ settlement, calendars, customCalendars, curves }, defaultCurve) : null), [loaded, settlement, calendars, customCalendars, curves, defaultCurve]);
+  const shown = useMemo(() => (loaded && named ? loaded.shownBuild(result, named, { settlement, calendars, customCalendars, curves }, view) : result), [loaded, named, result, settlement, calendars, customCalendars, curves, view]);
+  return { shown, kit: loaded, named };
+}
