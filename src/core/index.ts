@@ -47,6 +47,7 @@ export * from './analytics/quoteDv01.ts';
 export * from './analytics/forwardSensitivity.ts';
 export * from './analytics/sensitivityMap.ts';
 export * from './analytics/explainRisk.ts';
+export * from './analytics/explainBond.ts';
 export { nodePartials } from './analytics/nodePartials.ts';
 export { luFactor, luSolve, luInverse, type LuFactors } from './numeric/luDecomposition.ts';
 export * from './input/index.ts';

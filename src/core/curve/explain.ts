@@ -24,7 +24,9 @@ import { ok, type Result } from '../result.ts';
  */
 
 /** The kinds of number explained. */
-export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change';
+export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change'
+  /** A figure of a bond off the curve (analytics/explainBond.ts). */
+  | 'bond-figure';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
