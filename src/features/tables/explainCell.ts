@@ -30,6 +30,9 @@ import {
   type Result,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { explainBondCell, type BondCell } from '../risk/explainBondCell.ts';
+
+export type { BondCell } from '../risk/explainBondCell.ts';
 
 /** The key-maturity cells that explain themselves. */
 export type KeyField = 'discount' | 'zero' | 'par' | 'forward';
@@ -73,7 +76,7 @@ export interface ChangeCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | BondCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -111,6 +114,7 @@ const rowWords = (row: number | null): string => (row === null ? 'a quote' : `ro
  */
 export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings, cell: ExplainCell): Result<CellExplanation> {
   if ('change' in cell) return explainChangeCell(result, cell.change);
+  if ('bond' in cell) return explainBondCell(result, cell.bond);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;
