@@ -39,7 +39,7 @@ describe('explanations in the print preview', () => {
     const { container, curve, conv } = renderTab();
     const row = printKeyRows(curve, conv).find((r) => r.label === '5Y')!;
     const preview = container.querySelector('.print-preview') as HTMLElement;
-    const button = within(preview).getByRole('button', { name: /explain the 5Y zero rate$/ });
+    const button = within(preview).getByRole('button', { name: /explain the zero rate at 5Y$/ });
     button.focus();
     await user.keyboard('{Enter}');
     const panel = await screen.findByRole('complementary', { name: /^5Y zero rate/ });
@@ -61,7 +61,7 @@ describe('explanations in the print preview', () => {
     const printed = printScenarios([STEEPER], result.build.workspace!, curve, conv, workbenchBuildOptions())[0]!;
     const figure = printed.rows!.find((r) => r.tenor === '10Y')!.forwardBp!;
     const preview = container.querySelector('.print-preview') as HTMLElement;
-    await user.click(within(preview).getByRole('button', { name: /explain the change of the 10Y .* forward under Steeper/ }));
+    await user.click(within(preview).getByRole('button', { name: /explain the 3M forward change at 10Y under Steeper/ }));
     const panel = await screen.findByRole('complementary', { name: /Change of the 10Y .* forward rate under Steeper/ });
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure));
     await user.click(within(panel).getByRole('button', { name: 'Copy as text' }));
@@ -83,7 +83,7 @@ describe('explanations in the print preview', () => {
   it('the open panel has no serious or critical axe-core findings', async () => {
     const user = userEvent.setup({ delay: null });
     const { container } = renderTab();
-    await user.click(within(container.querySelector('.print-preview') as HTMLElement).getByRole('button', { name: /explain the 2Y par yield$/ }));
+    await user.click(within(container.querySelector('.print-preview') as HTMLElement).getByRole('button', { name: /explain the par yield at 2Y$/ }));
     await screen.findByRole('complementary', { name: /^2Y par yield/ });
     const r = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
     expect(r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} (${v.impact}): ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);

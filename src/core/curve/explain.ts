@@ -295,6 +295,8 @@ const conventionsOf = (curve: Curve, c: Compounding | null, dc: DayCount | null,
   businessDay: 'unadjusted',
   calendar: 'none',
 });
+/** A number's conventions on a curve (queries, bond figures): dates unadjusted, no calendar. */
+export { conventionsOf as explainedConventions };
 
 /** The recorder of the queries in query.ts: builds each explanation from the query's own values. */
 export const QUERY_RECORDER: QueryRecorder = {

@@ -102,25 +102,18 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
   const explain = useExplainOpener<ExplainCell>(sameCell);
   const scenarios = useMemo(() => validateScenarios(doc.scenarios).scenarios, [doc.scenarios]);
   const figure = (what: PrintFigure, text: string): ReactNode => {
-    let cell: ExplainCell;
-    let words: string;
-    if ('scenario' in what) {
-      const s = scenarios[what.scenario];
-      if (!s) return text;
-      const conv = tableConventionsFromDisplay(doc.display);
-      const { parFrequency: _p, ...conventions } = conv;
-      cell = { change: { scenario: s, tenor: what.tenor, field: what.field, conventions, buildOptions: workbenchBuildOptions() } };
-      words = `change of the ${what.tenor} ${what.field === 'zero' ? 'zero rate' : `${conv.forwardTenor} forward`} under ${s.name}`;
-    } else {
-      cell = { tenor: what.tenor, field: what.field };
-      words = what.field === 'forward' ? `${doc.display.forwardTenor} forward rate starting ${what.tenor}` : `${what.tenor} ${FIGURE_WORDS[what.field]}`;
-    }
+    const s = 'scenario' in what ? scenarios[what.scenario] : undefined;
+    const conv = tableConventionsFromDisplay(doc.display);
+    const { parFrequency: _p, ...conventions } = conv;
+    const cell: ExplainCell = s ? { change: { scenario: s, tenor: what.tenor, field: what.field as 'zero', conventions, buildOptions: workbenchBuildOptions() } } : { tenor: what.tenor, field: what.field };
+    const words = `${what.field === 'forward' ? `${conv.forwardTenor} forward` : FIGURE_WORDS[what.field]} ${s ? `change at ${what.tenor} under ${s.name}` : `at ${what.tenor}`}`;
     return (
       <button type="button" className="cell-explain" aria-label={`${text}: explain the ${words}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
         {text}
       </button>
     );
   };
+
   return (
     <section className="print-tab" aria-label="Print">
       <div className="settings">
@@ -158,7 +151,4 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
 const FIGURE_WORDS = { discount: 'discount factor', zero: 'zero rate', par: 'par yield' } as const;
 
 /** One number of the page: the same key cell, or the same scenario's change at the same tenor. */
-function sameCell(a: ExplainCell, b: ExplainCell): boolean {
-  if ('change' in a && 'change' in b) return a.change.scenario.id === b.change.scenario.id && a.change.tenor === b.change.tenor && a.change.field === b.change.field;
-  return 'tenor' in a && 'tenor' in b && 'field' in a && 'field' in b && a.tenor === b.tenor && a.field === b.field;
-}
+const sameCell = (a: ExplainCell, b: ExplainCell): boolean => JSON.stringify(a) === JSON.stringify(b);

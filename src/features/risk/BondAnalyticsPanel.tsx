@@ -98,10 +98,10 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
   }, [curve, workspace, result]);
 
   const display = useAppStore((st) => st.workspace.display);
-  const explain = useExplainOpener<BondCell>((a, b) => a.bond.figure === b.bond.figure && a.bond.side === b.bond.side);
+  const explain = useExplainOpener<BondCell>((a, b) => JSON.stringify(a) === JSON.stringify(b));
   const bondInput = input && typeof input !== 'string' ? input : null;
   // The open explanation is of the bond in the form: another bond in the form closes it (the table's figures changed).
-  const openCell = explain.open && bondInput && JSON.stringify(explain.open.bond.input) === JSON.stringify(bondInput) ? explain.open : null;
+  const openCell = explain.open && bondInput && explain.isOpen({ bond: { ...explain.open.bond, input: bondInput } }) ? explain.open : null;
   /** A figure, as a button that explains it when the build is at hand. */
   const fig = (figure: BondFigure, side: BondSide, text: string): ReactNode => {
     if (!build || !bondInput || text === NO_VALUE) return text;
