@@ -43,11 +43,12 @@ function Panels(): ReactNode {
 
 /**
  * The editing controls of one panel: inputs, selects, text areas and buttons, less exports and
- * print, and less the reference curve's import (kept in the page only, never in the workspace).
+ * print, less the reference curve's import (kept in the page only, never in the workspace), and
+ * less the numbers that open their explanation (reading, like exports: checked to stay usable).
  */
 function editingControls(testId: string): HTMLElement[] {
   const box = screen.getByTestId(testId);
-  return [...box.querySelectorAll<HTMLElement>('input, select, textarea, button')].filter((el) => !/Export|Print|CSV/i.test(el.textContent ?? '') && !el.closest('.reference-panel'));
+  return [...box.querySelectorAll<HTMLElement>('input, select, textarea, button')].filter((el) => !/Export|Print|CSV/i.test(el.textContent ?? '') && !el.closest('.reference-panel') && !el.classList.contains('cell-explain'));
 }
 
 describe('controls of a read-only workspace', () => {
@@ -64,6 +65,10 @@ describe('controls of a read-only workspace', () => {
     // Exports are reading, not editing: they stay usable.
     expect(within(screen.getByTestId('roll')).getByRole('button', { name: /Export these tables/ })).not.toBeDisabled();
     expect(within(screen.getByTestId('table')).getByRole('button', { name: /Export this table/ })).not.toBeDisabled();
+    // So are the print preview's numbers that open their explanation.
+    const explainers = screen.getByTestId('print').querySelectorAll('button.cell-explain');
+    expect(explainers.length).toBeGreaterThan(0);
+    for (const b of explainers) expect(b).not.toBeDisabled();
     act(() => useAppStore.getState().closeReadOnly());
     for (const p of panels) expect(editingControls(p).some((el) => !el.matches(':disabled')), p).toBe(true);
   }, 30_000); // a limit for a hung render on a loaded machine, not a speed check
