@@ -162,12 +162,8 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
   };
   const ICMA = `P(y) = sum_k CF_k (1 + y/${f})^-(w + k), k = 0..N-1 (ICMA, on ${dc})`;
   const CURVE = `dirty = sum_i CF_i DF(c_i), t_i on ${curve.dayCount}; CF = 100 c / ${f}, CF_N = CF + 100`;
-  let formula = CURVE;
-  let unit = PRICE;
-  if (figure === 'accrued') {
-    accrued();
-    formula = `accrued = 100 c tau_acc on ${dc}`;
-  } else if (figure === 'zSpread') {
+  if (figure === 'accrued') accrued();
+  else if (figure === 'zSpread') {
     curvePrice();
     marketDirty();
     const z = m!.zSpread;
@@ -176,23 +172,14 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
     const pvt = [...terms_('pv'), ...terms_('t')];
     step('z', 'the root of sum_i pv_i exp(-z t_i) = dirty_mkt (Newton)', z, `decimal per year, continuous on ${curve.dayCount}`, ['dirty_mkt', ...pvt]);
     step('P(z)', 'sum_i pv_i exp(-z t_i)', p, PRICE, ['z', ...pvt]);
-    unit = `bp, continuous on ${curve.dayCount}`;
-    step('z-spread', 'z x 10,000', z * 1e4, unit);
-    formula = `z: dirty_mkt = sum_i CF_i DF(c_i) exp(-z t_i); ${CURVE}`;
-  } else if (!mkt && (figure === 'dirty' || figure === 'clean')) {
-    curvePrice();
-    if (figure === 'clean') {
-      accrued();
-      step('clean', 'dirty - accrued', trace.dirty - s.accrued);
-      formula = `clean = dirty - accrued; ${formula}`;
-    }
+    step('z-spread', 'z x 10,000', z * 1e4, `bp, continuous on ${curve.dayCount}`);
   } else if (figure === 'dirty' || figure === 'clean') {
-    marketDirty();
-    formula = m!.given === 'price' ? 'dirty_mkt = quoted clean + accrued' : `dirty_mkt = P(y_mkt), ${ICMA}`;
+    const d = mkt ? 'dirty_mkt' : 'dirty';
+    if (mkt) marketDirty();
+    else curvePrice();
     if (figure === 'clean') {
       accrued();
-      step('clean_mkt', 'dirty_mkt - accrued', m!.dirty - s.accrued);
-      formula = `clean_mkt = dirty_mkt - accrued; ${formula}`;
+      step(mkt ? 'clean_mkt' : 'clean', `${d} - accrued`, (mkt ? m!.dirty : trace.dirty) - s.accrued);
     }
   } else {
     // At the model yield (solved from the curve's price) or the market's (given, or solved from its price).
@@ -209,38 +196,30 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
       step('y', `the root of P(y) = ${target} (Newton)`, yv, yUnit, [target, 'c']);
     }
     const r = atYield(y, yv);
-    const at = `at ${y}; ${ICMA}`;
-    const dP = (): void => step('dP/dy', `-sum_k ((w + k) / ${f}) q_k / (1 + ${y} / ${f})`, r.dPdy, 'per 100 face per unit of yield', [...terms_('q'), 'w', y]);
-    const md = (): void => (dP(), step('modified', '-(dP/dy) / P', -r.dPdy / r.price, 'years'));
-    unit = 'years';
-    if (figure === 'yield') {
-      unit = yUnit;
-      step('yield', y, yv, yUnit, y === 'y' ? ['y', 'P'] : [y]);
-      formula = ICMA;
-    } else if (figure === 'modifiedDuration') {
-      md();
-      formula = `modified = -(1/P) dP/dy ${at}`;
-    } else if (figure === 'macaulayDuration') {
-      md();
-      step('macaulay', `(1 + ${y} / ${f}) x modified`, (1 + yv / f) * (-r.dPdy / r.price), unit);
-      formula = `Macaulay = (1 + y/${f}) x modified ${at}`;
-    } else if (figure === 'convexity') {
-      step('d2P/dy2', `sum_k ((w + k)(w + k + 1) / ${f}^2) q_k / (1 + ${y} / ${f})^2`, r.d2Pdy2, 'per 100 face per unit of yield^2', [...terms_('q'), 'w', y]);
-      unit = 'years squared';
-      step('convexity', '(d2P/dy2) / P', r.d2Pdy2 / r.price, unit);
-      formula = `convexity = (1/P) d2P/dy2 ${at}`;
+    const q = [...terms_('q'), 'w', y];
+    if (figure === 'yield') step('yield', y, yv, yUnit, y === 'y' ? ['y', 'P'] : [y]);
+    else if (figure === 'convexity') {
+      step('d2P/dy2', `sum_k ((w + k)(w + k + 1) / ${f}^2) q_k / (1 + ${y} / ${f})^2`, r.d2Pdy2, 'per 100 face per unit of yield^2', q);
+      step('convexity', '(d2P/dy2) / P', r.d2Pdy2 / r.price, 'years squared');
     } else {
-      dP();
-      unit = 'per 100 face per bp of yield';
-      step('DV01', '-(dP/dy) x 0.0001', -r.dPdy * 1e-4, unit);
-      formula = `DV01 = -dP/dy x 0.0001 ${at}`;
+      step('dP/dy', `-sum_k ((w + k) / ${f}) q_k / (1 + ${y} / ${f})`, r.dPdy, 'per 100 face per unit of yield', q);
+      if (figure === 'dv01') step('DV01', '-(dP/dy) x 0.0001', -r.dPdy * 1e-4, 'per 100 face per bp of yield');
+      else step('modified', '-(dP/dy) / P', -r.dPdy / r.price, 'years');
+      if (figure === 'macaulayDuration') step('macaulay', `(1 + ${y} / ${f}) x modified`, (1 + yv / f) * (-r.dPdy / r.price), 'years');
     }
   }
+  // The definition: the figure's own step, then what it stands on.
+  const last = steps.at(-1)!;
+  const defs = [last.formula];
+  if (have.has('z')) defs.push('dirty_mkt = sum_i CF_i DF(c_i) exp(-z t_i)');
+  if (reads.length > 0) defs.push(CURVE);
+  if (have.has('P')) defs.push(ICMA);
+  if (have.has('accrued')) defs.push(`accrued = 100 c tau_acc on ${dc}`);
   return ok({
     quantity: 'bond-figure',
-    formula,
-    value: steps.at(-1)!.value,
-    unit,
+    formula: defs.join('; '),
+    value: last.value,
+    unit: last.unit,
     conventions: explainedConventions(curve, figure === 'zSpread' ? 'continuous' : (['annual', 'semiannual', , 'quarterly'] as const)[f - 1] ?? (f === 12 ? 'monthly' : null), figure === 'zSpread' ? null : dc, f),
     dates,
     yearFractions: yfs,

@@ -21,6 +21,7 @@ import {
   formatPercent,
   nearZero,
   BOND_FIGURE_WORDS,
+  bondFigureValue,
   type BondFigure,
   type BondSide,
 } from '../../core/index.ts';
@@ -112,6 +113,12 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
       </button>
     );
   };
+  /** A figure on the curve and at the market, each a button (bondFigureValue: the number the table shows). */
+  const pair = (figure: BondFigure, format: (x: number) => string): { model: ReactNode; market: ReactNode | null } => {
+    const a = result && result.ok ? result.value : null;
+    const text = (side: BondSide): string => format(a ? bondFigureValue(a, figure, side)! : NaN);
+    return { model: fig(figure, 'model', text('model')), market: a?.market ? fig(figure, 'market', text('market')) : null };
+  };
   const yTag = result && result.ok ? couponTag(result.value.bond.frequency, `ICMA, accrual ${result.value.bond.dayCount}`) : '';
   const zTag = curve ? rateTag('continuous', curve.dayCount) : '';
   return (
@@ -156,14 +163,14 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
               <tr><th scope="col">Figure</th><th scope="col">On the curve</th>{result.value.market && <th scope="col">At the market {result.value.market.given}</th>}<th scope="col">Unit</th></tr>
             </thead>
             <tbody>
-              <Row label="Clean price" model={fig('clean', 'model', formatPrice(result.value.modelCleanPrice))} market={result.value.market && fig('clean', 'market', formatPrice(result.value.market.cleanPrice))} unit="per 100 face" />
-              <Row label="Dirty price" model={fig('dirty', 'model', formatPrice(result.value.modelDirtyPrice))} market={result.value.market && fig('dirty', 'market', formatPrice(result.value.market.dirtyPrice))} unit="per 100 face" />
+              <Row label="Clean price" {...pair('clean', formatPrice)} unit="per 100 face" />
+              <Row label="Dirty price" {...pair('dirty', formatPrice)} unit="per 100 face" />
               <Row label="Accrued interest" model={fig('accrued', 'model', formatPrice(result.value.accrued))} market={result.value.market && formatPrice(result.value.accrued)} unit={`per 100 face, ${result.value.bond.dayCount}`} />
-              <Row label="Yield to maturity" model={fig('yield', 'model', formatPercent(result.value.yield))} market={result.value.market && fig('yield', 'market', formatPercent(result.value.market.yield))} unit={yTag} />
-              <Row label="Modified duration −(1/P) dP/dy" model={fig('modifiedDuration', 'model', formatNumber(result.value.modifiedDuration, 4))} market={result.value.market && fig('modifiedDuration', 'market', formatNumber(result.value.market.modifiedDuration, 4))} unit="years" />
-              <Row label="Macaulay duration (1 + y/f) × modified" model={fig('macaulayDuration', 'model', formatNumber(result.value.macaulayDuration, 4))} market={result.value.market && fig('macaulayDuration', 'market', formatNumber(result.value.market.macaulayDuration, 4))} unit="years" />
-              <Row label="Convexity (1/P) d²P/dy²" model={fig('convexity', 'model', formatNumber(result.value.convexity, 3))} market={result.value.market && fig('convexity', 'market', formatNumber(result.value.market.convexity, 3))} unit="years²" />
-              <Row label="DV01 −dP/dy × 1e−4" model={fig('dv01', 'model', formatNumber(result.value.dv01, 5))} market={result.value.market && fig('dv01', 'market', formatNumber(result.value.market.dv01, 5))} unit="per 100 face per bp of yield" />
+              <Row label="Yield to maturity" {...pair('yield', formatPercent)} unit={yTag} />
+              <Row label="Modified duration −(1/P) dP/dy" {...pair('modifiedDuration', (x) => formatNumber(x, 4))} unit="years" />
+              <Row label="Macaulay duration (1 + y/f) × modified" {...pair('macaulayDuration', (x) => formatNumber(x, 4))} unit="years" />
+              <Row label="Convexity (1/P) d²P/dy²" {...pair('convexity', (x) => formatNumber(x, 3))} unit="years²" />
+              <Row label="DV01 −dP/dy × 1e−4" {...pair('dv01', (x) => formatNumber(x, 5))} unit="per 100 face per bp of yield" />
               <Row label="Effective duration (parallel zero shift)" model={formatNumber(result.value.effectiveDuration, 4)} market={result.value.market && NO_VALUE} unit={`years, shift of the ${zTag} zero`} />
               {result.value.market && <Row label="Z-spread" model={bpFigure(0)} market={fig('zSpread', 'market', bpFigure(result.value.market.zSpread * 1e4))} unit={`bp, ${zTag}`} />}
             </tbody>
