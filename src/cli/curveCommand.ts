@@ -40,6 +40,14 @@ import {
   type CurveBuild,
   type Workspace,
   explained,
+  explainBondFigure,
+  bondFigureValue,
+  bondLnWeights,
+  topInfluencesOfLn,
+  type BondFigure,
+  type BondSide,
+  type BondSink,
+  type BondTrace,
   bootstrapInstruments,
   topQuoteInfluences,
   topQuoteInfluencesAcrossCurves,
@@ -423,6 +431,54 @@ function explainForward(x: ExplainContext, start: string, end: string, givenStar
   });
 }
 
+/** The bond output's fields that --explain explains, with the figure and column of the bond table each is. */
+const BOND_EXPLAINED: readonly (readonly [string, BondFigure, BondSide])[] = [
+  ['modelCleanPrice', 'clean', 'model'],
+  ['modelDirtyPrice', 'dirty', 'model'],
+  ['accrued', 'accrued', 'model'],
+  ['yield', 'yield', 'model'],
+  ['macaulayDuration', 'macaulayDuration', 'model'],
+  ['modifiedDuration', 'modifiedDuration', 'model'],
+  ['convexity', 'convexity', 'model'],
+  ['dv01', 'dv01', 'model'],
+  ['priceFromYield', 'clean', 'market'],
+  ['marketDirtyPrice', 'dirty', 'market'],
+  ['yieldFromPrice', 'yield', 'market'],
+  ['marketMacaulayDuration', 'macaulayDuration', 'market'],
+  ['marketModifiedDuration', 'modifiedDuration', 'market'],
+  ['marketConvexity', 'convexity', 'market'],
+  ['marketDv01', 'dv01', 'market'],
+];
+
+/**
+ * A bond's `explain` object: each printed figure's explanation (from analyzeBond's own trace), the
+ * quotes it depends on most (per bp of each quote's own yield; `topQuotesOf` says of what) and its
+ * value under each method. The z-spread (printed as a decimal) is explained in the workbench, in bp.
+ */
+function explainBond(x: ExplainContext, trace: BondTrace, input: BondInput, out: Readonly<Record<string, unknown>>): Record<string, ExplainOut> {
+  const r: Record<string, ExplainOut> = {};
+  for (const [key, figure, side] of BOND_EXPLAINED) {
+    const e = typeof out[key] === 'number' ? explainBondFigure(trace, figure, side) : null;
+    if (!e?.ok) continue;
+    const w = bondLnWeights(trace, figure, side);
+    const top = w ? topInfluencesOfLn(x.curve, x.build.instruments, w.times, w.weights) : null;
+    const methods = w
+      ? valueUnderEachMethod(x.curve.interpolation, x.curveFor, (c) => {
+          const a = analyzeBond(c, input);
+          return a.ok ? { ok: true, value: bondFigureValue(a.value, figure, side)! } : a;
+        })
+      : [];
+    r[key] = {
+      ...e.value,
+      reads: e.value.reads.map((rd) => ({ ...rd, nodes: rd.nodes.map((n) => (n.quote === null ? n : { ...n, quote: atRow(x.rowOf, n.quote) })) })),
+      topQuotes: top?.ok ? top.value.map((q) => ({ ...q, index: atRow(x.rowOf, q.index) })) : [],
+      ...(w ? { topQuotesOf: w.note } : {}),
+      methods: methods.map((m) => ({ method: m.method, current: m.current, value: m.value, error: m.error })),
+    };
+  }
+  return r;
+}
+
 /** Runs one document; returns its output line (without the newline) and its errors (none when it built). */
 function runDocument(index: number, input: unknown, opts: Options, builder: CurveBuilder): { line: string; errors: readonly CoreError[] } {
   const capped = documentCapErrors(input);
@@ -476,9 +532,12 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
     const explain = x ? explainForward(x, v.start, v.end, s, e, opts.compounding, dc) : null;
     forwards.push(explain ? { ...forward, explain } : forward);
   }
+  const bondExplains: { trace: BondTrace; input: BondInput }[] = [];
   const bonds = opts.bonds.flatMap((b, i) => {
     const input: BondInput = { ...b, maturity: resolve(b.maturity, settlement) };
-    const a = analyzeBond(curve, input, undefined, `--bond[${i}]`);
+    const sink: BondSink = {};
+    const a = analyzeBond(curve, input, undefined, `--bond[${i}]`, x ? sink : undefined);
+    if (sink.trace) bondExplains.push({ trace: sink.trace, input });
     if (!a.ok) {
       errors.push(...a.errors);
       return [];
@@ -524,6 +583,8 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
       else if (typeof x === 'object') finite &&= Object.values(x as Record<string, number>).every(Number.isFinite);
     }
   }
+  // With --explain, each bond explains its figures (after the finiteness check, which reads numbers only).
+  const bondsOut = x ? bonds.map((b, i) => ({ ...b, explain: explainBond(x, bondExplains[i]!.trace, bondExplains[i]!.input, b) })) : bonds;
   const repricing = build.repricing;
   const rowOf = read.rowOfQuote;
   const quotes: QuoteOut[] = [];
@@ -561,7 +622,7 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
       quotes,
       points,
       forwards,
-      ...(opts.bonds.length > 0 ? { bonds } : {}),
+      ...(opts.bonds.length > 0 ? { bonds: bondsOut } : {}),
       warnings: build.warnings,
       ...(named !== null ? { curves: named.value } : {}),
     }),

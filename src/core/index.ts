@@ -52,6 +52,7 @@ export * from './analytics/explainRisk.ts';
 export * from './analytics/crossCurveSensitivity.ts';
 export * from './scenarios/namedCurveScenario.ts';
 export * from './roll/rollOnCurve.ts';
+export * from './analytics/explainBond.ts';
 export { nodePartials } from './analytics/nodePartials.ts';
 export { luFactor, luSolve, luInverse, type LuFactors } from './numeric/luDecomposition.ts';
 export * from './input/index.ts';

@@ -53,4 +53,26 @@ describe('curve --bond', () => {
     const o = JSON.parse(r.stdout) as { errors: { path: string; code: string }[] };
     expect(o.errors[0]).toMatchObject({ path: '--bond[1].maturity', code: 'beyond-curve' });
   });
+  it('with --explain each bond explains every printed figure, its value the printed number and its last step that number, and the rest of the line is unchanged', async () => {
+    const args = ['--bond', '2034-05-15,0.04,2,ACT/ACT-ICMA,price=101.25', '--bond', '2036-11-20,0.035,1,30/360,yield=0.036']; // the second accrues: clean and dirty differ
+    const plain = await run(...args);
+    const r = await run(...args, '--explain');
+    expect(r.status).toBe(0);
+    const o = JSON.parse(r.stdout) as { bonds: Record<string, any>[]; points: Record<string, unknown>[] };
+    for (const b of o.bonds) {
+      const explained = Object.keys(b.explain);
+      expect(explained.length).toBeGreaterThanOrEqual(13);
+      for (const k of explained) {
+        expect(b.explain[k].value, k).toBe(b[k]); // JSON numbers: the same double
+        expect(b.explain[k].steps.at(-1).value, k).toBe(b[k]);
+      }
+      // A model figure reads the curve: the quotes behind it and its value under each method.
+      expect(b.explain.modelDirtyPrice.reads.length).toBeGreaterThan(0);
+      expect(b.explain.modelDirtyPrice.topQuotes.length).toBeGreaterThan(0);
+      expect(b.explain.modelDirtyPrice.methods.find((m: any) => m.current).value).toBe(b.modelDirtyPrice);
+      delete b.explain;
+    }
+    for (const p of o.points) delete p.explain;
+    expect(JSON.stringify(o)).toBe(plain.stdout.trim());
+  });
 });

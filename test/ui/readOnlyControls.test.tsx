@@ -69,6 +69,10 @@ describe('controls of a read-only workspace', () => {
     const explainers = [...screen.getByTestId('roll').querySelectorAll<HTMLButtonElement>('button.cell-explain')];
     expect(explainers.length).toBeGreaterThan(20);
     expect(explainers.filter((el) => el.matches(':disabled')).map((el) => el.getAttribute('aria-label'))).toEqual([]);
+    // So are the print preview's numbers that open their explanation.
+    const printed = screen.getByTestId('print').querySelectorAll('button.cell-explain');
+    expect(printed.length).toBeGreaterThan(0);
+    for (const b of printed) expect(b).not.toBeDisabled();
     act(() => useAppStore.getState().closeReadOnly());
     for (const p of panels) expect(editingControls(p).some((el) => !el.matches(':disabled')), p).toBe(true);
   }, 30_000); // a limit for a hung render on a loaded machine, not a speed check

@@ -4,6 +4,7 @@ import { coreError, fail, ok, type Result } from '../result.ts';
 import { checkBondInput, type BondInput, type CheckedBond } from './bondInput.ts';
 import { DEFAULT_KEY_TENORS, KEY_RATE_BUMP_BP, keyRateDurations, keyTimes, shiftDuration, type Flow } from './keyRates.ts';
 import { zSpread } from './zSpread.ts';
+import type { BondSink } from './explainBond.ts';
 
 /** Yield-based risk figures of a bond at one ICMA yield. */
 export interface YieldRisk {
@@ -75,10 +76,12 @@ export function bondFlows(curve: Curve, s: BondSchedule): Flow[] {
  * Analytics of a bond off a curve: model prices (sum CF DF(t), t on the curve's axis), the yield
  * and yield-based risk at the model price, effective and key-rate durations (tent shifts of the
  * continuously compounded zero at `keys`, default DEFAULT_KEY_TENORS), and, when a market clean
- * price or yield is given, the same risk at the market yield and the z-spread. Errors (never
+ * price or yield is given, the same risk at the market yield and the z-spread. With a `sink`
+ * (explainBond.ts) it also hands over its own values (the ln DF of each flow, the prices, the
+ * yields) for the figures' explanations; without one nothing is recorded. Errors (never
  * throws): the bond's own fields; a cash flow beyond the curve without flat-forward extrapolation.
  */
-export function analyzeBond(curve: Curve, input: BondInput, keys: readonly string[] = DEFAULT_KEY_TENORS, path = 'bond'): Result<BondAnalytics> {
+export function analyzeBond(curve: Curve, input: BondInput, keys: readonly string[] = DEFAULT_KEY_TENORS, path = 'bond', sink?: BondSink): Result<BondAnalytics> {
   const checked = checkBondInput(input, curve.settlement, path);
   if (!checked.ok) return checked;
   const bond = checked.value;
@@ -93,7 +96,12 @@ export function analyzeBond(curve: Curve, input: BondInput, keys: readonly strin
   }
   const ln = curve.lnDiscountAt;
   let dirty = 0;
-  for (const f of flows) dirty += f.amount * Math.exp(ln(f.t));
+  const lns: number[] = [];
+  for (const f of flows) {
+    const l = ln(f.t);
+    if (sink) lns.push(l);
+    dirty += f.amount * Math.exp(l);
+  }
   const y = bondYieldFromDirty(s, dirty);
   if (y === null) return fail(coreError('no-solution', path, `${path}: no yield reprices the model dirty price ${dirty}; check the curve`));
   const kt = keyTimes(curve, keys);
@@ -108,6 +116,8 @@ export function analyzeBond(curve: Curve, input: BondInput, keys: readonly strin
     if (z === null) return fail(coreError('no-solution', path, `${path}: no z-spread between -100% and 100% reprices the market dirty price ${marketDirty}; check the market figure`));
     market = { given, cleanPrice: marketDirty - s.accrued, dirtyPrice: marketDirty, zSpread: z, ...yieldRisk(s, my) };
   }
+  // The explanation's material: this function's own values (explainBond.ts builds the steps from them).
+  if (sink) sink.trace = { curve, bond, schedule: s, flows, lns, dirty, yield: y, market: market && { given: market.given, yield: market.yield, dirty: market.dirtyPrice, zSpread: market.zSpread } };
   return ok({
     bond,
     modelCleanPrice: dirty - s.accrued,

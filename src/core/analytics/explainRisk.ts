@@ -92,6 +92,20 @@ export function topParQuoteInfluences(
     times.push(t);
     weights.push((-rate * p.tau * df(t)) / annuity);
   }
+  return topInfluencesOfLn(curve, instruments, times, weights, count);
+}
+
+/**
+ * The quotes a number depends on most, given how it moves with ln DF at some times:
+ * `weights[k]` = d(number)/d lnDF(times[k]) (added up where times coincide). Chained to each
+ * quote's own yield through the node Jacobian (implicit-function rule on the exact bootstrap, as
+ * forwardSensitivities chains a forward): d(number)/d(quote's yield), the `count` largest by size,
+ * largest first (ties in document order). In bp per bp when the number is a rate; a price's weights
+ * carry their own scale (the caller's). `curve` must be the bootstrap of `instruments`.
+ */
+export function topInfluencesOfLn(curve: Curve, instruments: readonly Instrument[], times: readonly number[], weights: readonly number[], count = 5): Result<QuoteInfluence[]> {
+  const n = instruments.length;
+  if (n !== curve.pillars.length) return fail(coreError('schema', 'quotes', `the curve has ${curve.pillars.length} pillars but ${n} quotes were given; pass the quotes the curve was built from`));
   const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, times);
   const lu = luFactor(jacobian, n);
   if (!lu) return fail(coreError('no-solution', 'quotes', 'the quotes do not determine the curve nodes one to one (a singular Jacobian); check for quotes that repeat the same information'));

@@ -24,7 +24,9 @@ import { ok, type Result } from '../result.ts';
  */
 
 /** The kinds of number explained. */
-export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change' | 'roll-terminal' | 'roll-return' | 'roll-break-even';
+export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change' | 'roll-terminal' | 'roll-return' | 'roll-break-even'
+  /** A figure of a bond off the curve (analytics/explainBond.ts). */
+  | 'bond-figure';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
@@ -297,6 +299,8 @@ const conventionsOf = (curve: Curve, c: Compounding | null, dc: DayCount | null,
   businessDay: 'unadjusted',
   calendar: 'none',
 });
+/** A number's conventions on a curve (queries, bond figures): dates unadjusted, no calendar. */
+export { conventionsOf as explainedConventions };
 
 /** The recorder of the queries in query.ts: builds each explanation from the query's own values. */
 export const QUERY_RECORDER: QueryRecorder = {

@@ -67,9 +67,10 @@ export function bondScheduleCivil(
 /**
  * Dirty price per 100 from a yield y (decimal, compounded f times a year) by the ICMA convention:
  *   P = sum_k CF_k (1 + y/f)^-(w + k),  k = 0, 1, ..., N-1.
- * Returns the price and dP/dy.
+ * Returns the price and dP/dy. `pvs`, when given, receives each term CF_k (1 + y/f)^-(w + k) in
+ * order (the bond explanation's trace; nothing else changes).
  */
-export function bondDirtyFromYield(s: YieldSchedule, y: number): { price: number; dPdy: number; d2Pdy2: number } {
+export function bondDirtyFromYield(s: YieldSchedule, y: number, pvs?: number[]): { price: number; dPdy: number; d2Pdy2: number } {
   const f = s.frequency;
   const lnV = -Math.log1p(y / f);
   let price = 0;
@@ -78,6 +79,7 @@ export function bondDirtyFromYield(s: YieldSchedule, y: number): { price: number
   for (let k = 0; k < s.amounts.length; k++) {
     const e = s.w + k;
     const pv = s.amounts[k]! * Math.exp(e * lnV);
+    pvs?.push(pv);
     price += pv;
     dPdy -= (e / f) * pv / (1 + y / f);
     d2 += ((e * (e + 1)) / (f * f)) * pv / ((1 + y / f) * (1 + y / f));

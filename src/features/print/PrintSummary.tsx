@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import type { EffectRow } from '../../core/index.ts';
 import type { CurveTableConventions, CurveTableRow } from '../../core/index.ts';
-import { couponTag, formatBpChange, formatNumber, formatPercent, INTERPOLATORS, rateTag } from '../../core/index.ts';
+import { couponTag, formatBpChange, formatNumber, formatPercent, INTERPOLATORS, NO_VALUE, rateTag } from '../../core/index.ts';
 import { CAUTION_TEXT } from '../../components/Caution.tsx';
 import './printSummary.css';
 
@@ -48,7 +48,15 @@ export interface PrintSummaryProps {
   readonly timeZone?: string;
   readonly buildId: string;
   readonly workspaceHash: string;
+  /**
+   * On screen only (the preview): wraps a printed figure, e.g. in a button that explains it. The
+   * printed page is rendered without it.
+   */
+  readonly figure?: (what: PrintFigure, text: string) => ReactNode;
 }
+
+/** A figure of the page: a key-maturity cell, or a scenario's change (scenario = its index among those printed). */
+export type PrintFigure = { readonly tenor: string; readonly field: 'discount' | 'zero' | 'par' | 'forward' } | { readonly scenario: number; readonly tenor: string; readonly field: 'zero' | 'forward' };
 
 /** The note as printed: at most PRINT_NOTE_CHARS characters (whole code points), with a marker when cut. */
 export function printedNote(note: string): { text: string; cut: boolean } {
@@ -75,6 +83,7 @@ export function PrintSummary(p: PrintSummaryProps) {
   const c = p.conventions;
   const parTag = couponTag(c.parFrequency, 'ACT/ACT-ICMA');
   const tenors = p.keyRows.map((r) => r.label);
+  const fig = (what: PrintFigure, text: string): ReactNode => (p.figure && text !== NO_VALUE ? p.figure(what, text) : text);
   return (
     <article className="print-summary" aria-label="Printed summary">
       <header className="ps-head">
@@ -126,10 +135,10 @@ export function PrintSummary(p: PrintSummaryProps) {
                   <th scope="row">{r.label}</th>
                   <td>{r.date}</td>
                   <td>{formatNumber(r.t, 3)}</td>
-                  <td>{formatNumber(r.discount, 6)}</td>
-                  <td>{formatPercent(r.zero)}</td>
-                  <td>{formatPercent(r.par)}</td>
-                  <td>{formatPercent(r.forward)}</td>
+                  <td>{fig({ tenor: r.label, field: 'discount' }, formatNumber(r.discount, 6))}</td>
+                  <td>{fig({ tenor: r.label, field: 'zero' }, formatPercent(r.zero))}</td>
+                  <td>{fig({ tenor: r.label, field: 'par' }, formatPercent(r.par))}</td>
+                  <td>{fig({ tenor: r.label, field: 'forward' }, formatPercent(r.forward))}</td>
                 </tr>
               ))}
             </tbody>
@@ -169,7 +178,10 @@ export function PrintSummary(p: PrintSummaryProps) {
                       <th scope="row">{t}</th>
                       {shown.map((s, i) => {
                         const row = s.rows?.find((r) => r.tenor === t) ?? null;
-                        return [<td key={`z${i}`}>{formatBpChange(row?.zeroBp)}</td>, <td key={`f${i}`}>{formatBpChange(row?.forwardBp)}</td>];
+                        return [
+                          <td key={`z${i}`}>{fig({ scenario: i, tenor: t, field: 'zero' }, formatBpChange(row?.zeroBp))}</td>,
+                          <td key={`f${i}`}>{fig({ scenario: i, tenor: t, field: 'forward' }, formatBpChange(row?.forwardBp))}</td>,
+                        ];
                       })}
                     </tr>
                   ))}

@@ -13,7 +13,9 @@ import { printKeyRows, printScenarios, scenarioConventionsText } from './printDa
 import { tableConventionsFromDisplay } from '../../core/index.ts';
 import { NoteEditor } from './NoteEditor.tsx';
 import { PrintRoot, PrintSummaryButton } from './PrintRoot.tsx';
-import { PrintSummary } from './PrintSummary.tsx';
+import { PrintSummary, type PrintFigure } from './PrintSummary.tsx';
+import type { ExplainCell } from '../tables/explainCell.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 import '../scenarios/scenarios.css';
 import { BASE_STYLES, SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
 import { EditLock } from '../../components/EditLock.tsx';
@@ -32,7 +34,7 @@ const setPrintTitle = (text: string): void =>
  * the note, the roll-versus-term result): what the Print section previews and what any print of
  * the workbench gives (see PrintOnDemand).
  */
-export function WorkbenchPrintSummary({ result, rollResult = null }: { result: WorkbenchBuild; rollResult?: ReactNode | null }) {
+export function WorkbenchPrintSummary({ result, rollResult = null, figure }: { result: WorkbenchBuild; rollResult?: ReactNode | null; figure?: (what: PrintFigure, text: string) => ReactNode }) {
   const doc = useAppStore((s) => s.workspace);
   // The print title lives in the document's view: saved, undone, shared in the link and in files.
   const title = viewText(doc, 'printTitle', DEFAULT_PRINT_TITLE);
@@ -82,6 +84,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null }: { result: W
       producedAt={new Date()}
       buildId={BUILD_ID}
       workspaceHash={workspaceHash(linked)}
+      {...(figure ? { figure } : {})}
       {...props}
     />
   );
@@ -95,6 +98,22 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
   const doc = useAppStore((s) => s.workspace);
   const title = useAppStore((st) => viewText(st.workspace, 'printTitle', DEFAULT_PRINT_TITLE));
   const summary = <WorkbenchPrintSummary result={result} rollResult={rollResult} />;
+  // On screen, each figure of the preview opens its explanation beside it; the printed copy (PrintRoot) has no buttons.
+  const explain = useExplainOpener<ExplainCell>(sameCell);
+  const scenarios = useMemo(() => validateScenarios(doc.scenarios).scenarios, [doc.scenarios]);
+  const figure = (what: PrintFigure, text: string): ReactNode => {
+    const s = 'scenario' in what ? scenarios[what.scenario] : undefined;
+    const conv = tableConventionsFromDisplay(doc.display);
+    const { parFrequency: _p, ...conventions } = conv;
+    const cell: ExplainCell = s ? { change: { scenario: s, tenor: what.tenor, field: what.field as 'zero', conventions, buildOptions: workbenchBuildOptions() } } : { tenor: what.tenor, field: what.field };
+    const words = `${what.field === 'forward' ? `${conv.forwardTenor} forward` : FIGURE_WORDS[what.field]} ${s ? `change at ${what.tenor} under ${s.name}` : `at ${what.tenor}`}`;
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${words}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
+
   return (
     <section className="print-tab" aria-label="Print">
       <div className="settings">
@@ -118,8 +137,18 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
         onDone={() => useAppStore.getState().endEdit()}
       />
       </EditLock>
-      <div className="print-preview">{summary}</div>
+      <div className="print-preview-row">
+        <div className="print-preview">
+          <WorkbenchPrintSummary result={result} rollResult={rollResult} figure={figure} />
+        </div>
+        <OpenExplanation result={result} display={doc.display} cell={explain.open} onClose={explain.close} />
+      </div>
       <PrintRoot>{summary}</PrintRoot>
     </section>
   );
 }
+
+const FIGURE_WORDS = { discount: 'discount factor', zero: 'zero rate', par: 'par yield' } as const;
+
+/** One number of the page: the same key cell, or the same scenario's change at the same tenor. */
+const sameCell = (a: ExplainCell, b: ExplainCell): boolean => JSON.stringify(a) === JSON.stringify(b);

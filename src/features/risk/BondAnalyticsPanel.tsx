@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import {
   analyzeBond,
   bootstrapInstruments,
@@ -20,8 +20,16 @@ import {
   formatPrice,
   formatPercent,
   nearZero,
+  BOND_FIGURE_WORDS,
+  bondFigureValue,
+  type BondFigure,
+  type BondSide,
 } from '../../core/index.ts';
 import { rowNumber } from '../../components/format.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useAppStore } from '../../state/store.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
+import type { BondCell } from './explainBondCell.ts';
 
 export interface BondAnalyticsPanelProps {
   /** The bootstrapped curve the bond is priced on (null: no curve yet). */
@@ -32,6 +40,8 @@ export interface BondAnalyticsPanelProps {
   readonly initial?: Partial<BondForm>;
   /** Called with the whole form on every edit, so the workbench can keep what was typed. */
   readonly onFormChange?: (form: BondForm) => void;
+  /** The workbench's build: with it, each figure is a button that opens its explanation beside the table. */
+  readonly result?: WorkbenchBuild;
 }
 
 /** The bond as typed: maturity a date or tenor, coupon and yield in percent, price clean per 100. */
@@ -70,7 +80,7 @@ function readForm(f: BondForm, settlement: string): BondInput | string {
  * key-rate durations on a stated grid and bump, z-spread and risk at a market quote when given,
  * and the DV01 to each input quote. Every figure carries its unit.
  */
-export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormChange, rowOfQuote }: BondAnalyticsPanelProps & { readonly rowOfQuote?: readonly number[] }) {
+export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormChange, rowOfQuote, result: build }: BondAnalyticsPanelProps & { readonly rowOfQuote?: readonly number[] }) {
   const [form, setForm] = useState<BondForm>({ ...DEFAULT_FORM, ...initial });
   const set = (patch: Partial<BondForm>): void => {
     const next = { ...form, ...patch };
@@ -88,6 +98,27 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
     return quoteDv01s(settings, market.instruments, result.value.flows);
   }, [curve, workspace, result]);
 
+  const display = useAppStore((st) => st.workspace.display);
+  const explain = useExplainOpener<BondCell>((a, b) => JSON.stringify(a) === JSON.stringify(b));
+  const bondInput = input && typeof input !== 'string' ? input : null;
+  // The open explanation is of the bond in the form: another bond in the form closes it (the table's figures changed).
+  const openCell = explain.open && bondInput && explain.isOpen({ bond: { ...explain.open.bond, input: bondInput } }) ? explain.open : null;
+  /** A figure, as a button that explains it when the build is at hand. */
+  const fig = (figure: BondFigure, side: BondSide, text: string): ReactNode => {
+    if (!build || !bondInput || text === NO_VALUE) return text;
+    const cell: BondCell = { bond: { input: bondInput, figure, side } };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${side === 'market' && figure !== 'accrued' ? 'market ' : ''}${BOND_FIGURE_WORDS[figure]}`} aria-expanded={openCell !== null && explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
+  /** A figure on the curve and at the market, each a button (bondFigureValue: the number the table shows). */
+  const pair = (figure: BondFigure, format: (x: number) => string): { model: ReactNode; market: ReactNode | null } => {
+    const a = result && result.ok ? result.value : null;
+    const text = (side: BondSide): string => format(a ? bondFigureValue(a, figure, side)! : NaN);
+    return { model: fig(figure, 'model', text('model')), market: a?.market ? fig(figure, 'market', text('market')) : null };
+  };
   const yTag = result && result.ok ? couponTag(result.value.bond.frequency, `ICMA, accrual ${result.value.bond.dayCount}`) : '';
   const zTag = curve ? rateTag('continuous', curve.dayCount) : '';
   return (
@@ -125,23 +156,27 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
       {result && !result.ok && <p role="alert" className="error">{result.errors.map((e) => e.message).join('; ')}</p>}
       {result && result.ok && (
         <>
+          {build && <p className="muted small">Choose a figure to see how it is made.</p>}
+          <div className="key-maturities">
           <table className="data" aria-label="Bond analytics">
             <thead>
               <tr><th scope="col">Figure</th><th scope="col">On the curve</th>{result.value.market && <th scope="col">At the market {result.value.market.given}</th>}<th scope="col">Unit</th></tr>
             </thead>
             <tbody>
-              <Row label="Clean price" model={formatPrice(result.value.modelCleanPrice)} market={result.value.market && formatPrice(result.value.market.cleanPrice)} unit="per 100 face" />
-              <Row label="Dirty price" model={formatPrice(result.value.modelDirtyPrice)} market={result.value.market && formatPrice(result.value.market.dirtyPrice)} unit="per 100 face" />
-              <Row label="Accrued interest" model={formatPrice(result.value.accrued)} market={result.value.market && formatPrice(result.value.accrued)} unit={`per 100 face, ${result.value.bond.dayCount}`} />
-              <Row label="Yield to maturity" model={formatPercent(result.value.yield)} market={result.value.market && formatPercent(result.value.market.yield)} unit={yTag} />
-              <Row label="Modified duration −(1/P) dP/dy" model={formatNumber(result.value.modifiedDuration, 4)} market={result.value.market && formatNumber(result.value.market.modifiedDuration, 4)} unit="years" />
-              <Row label="Macaulay duration (1 + y/f) × modified" model={formatNumber(result.value.macaulayDuration, 4)} market={result.value.market && formatNumber(result.value.market.macaulayDuration, 4)} unit="years" />
-              <Row label="Convexity (1/P) d²P/dy²" model={formatNumber(result.value.convexity, 3)} market={result.value.market && formatNumber(result.value.market.convexity, 3)} unit="years²" />
-              <Row label="DV01 −dP/dy × 1e−4" model={formatNumber(result.value.dv01, 5)} market={result.value.market && formatNumber(result.value.market.dv01, 5)} unit="per 100 face per bp of yield" />
+              <Row label="Clean price" {...pair('clean', formatPrice)} unit="per 100 face" />
+              <Row label="Dirty price" {...pair('dirty', formatPrice)} unit="per 100 face" />
+              <Row label="Accrued interest" model={fig('accrued', 'model', formatPrice(result.value.accrued))} market={result.value.market && formatPrice(result.value.accrued)} unit={`per 100 face, ${result.value.bond.dayCount}`} />
+              <Row label="Yield to maturity" {...pair('yield', formatPercent)} unit={yTag} />
+              <Row label="Modified duration −(1/P) dP/dy" {...pair('modifiedDuration', (x) => formatNumber(x, 4))} unit="years" />
+              <Row label="Macaulay duration (1 + y/f) × modified" {...pair('macaulayDuration', (x) => formatNumber(x, 4))} unit="years" />
+              <Row label="Convexity (1/P) d²P/dy²" {...pair('convexity', (x) => formatNumber(x, 3))} unit="years²" />
+              <Row label="DV01 −dP/dy × 1e−4" {...pair('dv01', (x) => formatNumber(x, 5))} unit="per 100 face per bp of yield" />
               <Row label="Effective duration (parallel zero shift)" model={formatNumber(result.value.effectiveDuration, 4)} market={result.value.market && NO_VALUE} unit={`years, shift of the ${zTag} zero`} />
-              {result.value.market && <Row label="Z-spread" model={bpFigure(0)} market={bpFigure(result.value.market.zSpread * 1e4)} unit={`bp, ${zTag}`} />}
+              {result.value.market && <Row label="Z-spread" model={bpFigure(0)} market={fig('zSpread', 'market', bpFigure(result.value.market.zSpread * 1e4))} unit={`bp, ${zTag}`} />}
             </tbody>
           </table>
+          {build && <OpenExplanation result={build} display={display} cell={openCell} onClose={explain.close} />}
+          </div>
           <table className="data" aria-label="Key-rate durations">
             <caption>
               Key-rate durations: tent-shaped shifts of the continuously compounded zero <span className="tag">{zTag}</span> at keys {DEFAULT_KEY_TENORS.join(', ')} (flat before the first and after the last,
@@ -169,7 +204,7 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
   );
 }
 
-function Row({ label, model, market, unit }: { label: string; model: string; market: string | null; unit: string }) {
+function Row({ label, model, market, unit }: { label: string; model: ReactNode; market: ReactNode | null; unit: string }) {
   return (
     <tr>
       <th scope="row">{label}</th>

@@ -32,6 +32,9 @@ import {
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { explainRollCell, type RollCell } from '../roll/explainRollCell.ts';
+import { explainBondCell, type BondCell } from '../risk/explainBondCell.ts';
+
+export type { BondCell } from '../risk/explainBondCell.ts';
 
 /** The key-maturity cells that explain themselves. */
 export type KeyField = 'discount' | 'zero' | 'par' | 'forward';
@@ -75,7 +78,7 @@ export interface ChangeCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -114,6 +117,7 @@ const rowWords = (row: number | null): string => (row === null ? 'a quote' : `ro
 export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings, cell: ExplainCell): Result<CellExplanation> {
   if ('change' in cell) return explainChangeCell(result, cell.change);
   if ('roll' in cell) return explainRollCell(result, cell.roll);
+  if ('bond' in cell) return explainBondCell(result, cell.bond);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;

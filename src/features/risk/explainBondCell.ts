@@ -1,0 +1,84 @@
+import {
+  analyzeBond,
+  BOND_FIGURE_WORDS,
+  bondFigureValue,
+  bondLnWeights,
+  buildCurve,
+  DEFAULT_KEY_TENORS,
+  explainBondFigure,
+  explanationSections,
+  explanationText,
+  formatPercent,
+  topInfluencesOfLn,
+  valueUnderEachMethod,
+  type BondFigure,
+  type BondInput,
+  type BondSide,
+  type BondSink,
+  type InterpolationId,
+  type MethodValue,
+  type Result,
+} from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import type { CellExplanation, CellQuote } from '../tables/explainCell.ts';
+
+/** A figure of the Bond on the curve table: the bond as the form reads it, the figure and its column. */
+export interface BondCell {
+  readonly bond: {
+    readonly input: BondInput;
+    readonly figure: BondFigure;
+    readonly side: BondSide;
+  };
+}
+
+/**
+ * The explanation of one bond figure: analyzeBond run again with a sink on the build's curve (the
+ * table's own call, so the number is the table's), its trace turned into steps by the core
+ * (explainBondFigure), the quotes it depends on most (topInfluencesOfLn with bondLnWeights) and the
+ * figure under each interpolation method (the workspace rebuilt per method, as the workbench builds).
+ */
+export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']): Result<CellExplanation> {
+  const curve = result.build.curve;
+  if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  const { input, figure, side } = cell;
+  const sink: BondSink = {};
+  const analysed = analyzeBond(curve, input, DEFAULT_KEY_TENORS, 'bond', sink);
+  if (!analysed.ok) return analysed;
+  const e = explainBondFigure(sink.trace!, figure, side);
+  if (!e.ok) return e;
+  const explanation = e.value;
+  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
+  const rowWords = (row: number | null): string => (row === null ? 'a quote' : `row ${row + 1}`);
+  const weights = bondLnWeights(sink.trace!, figure, side);
+  let quotes: CellQuote[] = [];
+  let quotesNote = weights?.note ?? 'none: this figure does not read the curve';
+  if (weights) {
+    const top = topInfluencesOfLn(curve, result.build.instruments, weights.times, weights.weights);
+    if (top.ok) quotes = top.value.map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
+    else quotesNote = top.errors[0]!.message;
+  }
+  // Under each method only what reads the curve: the rest is the same number under any method.
+  const methods: MethodValue[] = weights
+    ? valueUnderEachMethod(
+        curve.interpolation,
+        (method: InterpolationId) => buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: method }),
+        (on) => {
+          const a = analyzeBond(on, input);
+          return a.ok ? { ok: true, value: bondFigureValue(a.value, figure, side)! } : a;
+        },
+      )
+    : [];
+  const terms = `${formatPercent(input.coupon)} ${input.frequency}x a year to ${input.maturity}`;
+  const title = `Bond ${terms}: ${BOND_FIGURE_WORDS[figure]} ${side === 'model' || figure === 'accrued' ? 'on the curve' : `at the market ${input.cleanPrice !== undefined ? 'price' : 'yield'}`}`;
+  const extras = {
+    title,
+    quoteLabel: (index: number) => rowWords(rowOf(index)),
+    topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
+    topQuotesNote: quotesNote,
+    ...(methods.length > 0 ? { methods } : {}),
+  };
+  return {
+    ok: true,
+    value: { title, explanation, sections: explanationSections(explanation, extras), quotes, quotesNote, methods, text: explanationText(explanation, extras) },
+  };
+}
