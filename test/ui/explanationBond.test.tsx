@@ -14,6 +14,10 @@ import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
+// The explanation panel's code loads on first use; loaded here first, so a loaded machine's module
+// transform does not count against the wait for the panel to appear.
+beforeAll(() => import('../../src/features/tables/lazyTables.ts'));
+
 vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
 
 const initial = useAppStore.getInitialState();

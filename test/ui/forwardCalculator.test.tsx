@@ -11,6 +11,10 @@ import { formatPercent } from '../../src/core/index.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
+// The explanation panel's code loads on first use; loaded here first, so a loaded machine's module
+// transform does not count against the wait for the panel to appear.
+beforeAll(() => import('../../src/features/tables/lazyTables.ts'));
+
 const initial = useAppStore.getInitialState();
 beforeEach(() => {
   useAppStore.setState(initial, true);
