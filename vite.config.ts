@@ -79,17 +79,23 @@ function appChunk(id: string, ctx: { getModuleInfo(id: string): { isEntry: boole
 }
 
 /**
- * d3-scale's linear scale reaches two packages whose features the charts never use: colour parsing
- * (d3-color, through d3-interpolate's generic interpolator, which the scale keeps as its default) and
- * number formats (d3-format, through `tickFormat`). The charts map numbers to numbers and label
- * ticks with the core's formatting (src/core/format), so both resolve to small stand-ins when d3
- * imports them: no string is a colour (`color` and `rgb` answer null: a string range would be
- * interpolated as a string, never reached here), and a d3 number format throws, naming the module to
- * use. About 5 KB of the gzip budget (test/browser/security.test.ts) comes back; tests and the build
- * resolve the same way, so a chart that started to need either would fail its tests.
+ * d3-scale's linear scale reaches features the charts never use: d3-interpolate's generic
+ * interpolator (strings, colours through d3-color, dates, arrays, objects), which the scale keeps as
+ * its default, and number formats (d3-format, through `tickFormat`). The charts map numbers to
+ * numbers and label ticks with the core's formatting (src/core/format), so when d3-scale imports
+ * them they resolve to small stand-ins: d3-interpolate's number and round interpolators as d3 writes
+ * them (a * (1 - t) + b * t, the same floating-point steps), the generic one refusing anything but
+ * a number, and a d3 number format throwing, naming the module to use. About 7 KB of the gzip
+ * budget (test/browser/security.test.ts) comes back; tests and the build resolve the same way, so a
+ * chart that started to need any of it would fail its tests.
  */
 const D3_STAND_INS: Record<string, string> = {
-  'd3-color': ['color', 'rgb', 'hsl', 'lab', 'hcl', 'cubehelix'].map((n) => `export const ${n} = () => null;`).join('\n'),
+  'd3-interpolate': [
+    'export const interpolateNumber = (a, b) => ((a = +a), (b = +b), (t) => a * (1 - t) + b * t);',
+    'export const interpolateRound = (a, b) => ((a = +a), (b = +b), (t) => Math.round(a * (1 - t) + b * t));',
+    "export const interpolate = (a, b) => { if (typeof b !== 'number') throw new Error('the charts interpolate numbers only (d3-interpolate is not bundled)'); return interpolateNumber(a, b); };",
+    "export const piecewise = () => { throw new Error('piecewise interpolation is not bundled'); };",
+  ].join('\n'),
   'd3-format': ['format', 'formatPrefix', 'formatSpecifier', 'precisionFixed', 'precisionPrefix', 'precisionRound']
     .map((n) => `export const ${n} = () => { throw new Error('d3 number formats are not bundled: format chart labels with src/core/format'); };`)
     .join('\n'),
@@ -98,7 +104,7 @@ const d3StandIns = (): Plugin => ({
   name: 'tenorscope-d3-stand-ins',
   enforce: 'pre',
   resolveId(id, importer) {
-    if (id in D3_STAND_INS && importer !== undefined && /node_modules[\\/]d3-(interpolate|scale)[\\/]/.test(importer)) return `\0d3-stand-in:${id}`;
+    if (id in D3_STAND_INS && importer !== undefined && /node_modules[\\/]d3-scale[\\/]/.test(importer)) return `\0d3-stand-in:${id}`;
     return null;
   },
   load(id) {
