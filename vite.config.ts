@@ -116,14 +116,20 @@ const d3StandIns = (): Plugin => ({
  * d3-shape assigns each curve's prototype at module level (`Basis.prototype = {...}`), which the
  * bundler must keep whether or not the curve is used: 8 KB of curves the charts never draw. The
  * charts import `line` with `curveLinear` and `curveStepAfter`; this transform drops the other
- * curves' prototype blocks from d3-shape's module (about 1.3 KB of the gzip budget). A chart that
- * imports another curve fails the build here, naming what to add to D3_CURVE_CLASSES.
+ * curves' prototype blocks from d3-shape's module, and from d3-path's Path the drawing methods the
+ * two kept curves never call (arcs, Bézier and quadratic curves, rectangles: they move, line and
+ * close), about 1.8 KB of the gzip budget. A chart that imports another curve fails the build here,
+ * naming what to add to D3_CURVE_CLASSES (and check that curve's Path calls).
  */
 const D3_CURVE_CLASSES: Record<string, string> = { curveLinear: 'Linear', curveStepAfter: 'Step' };
 const d3ShapeCurves = (): Plugin => ({
   name: 'tenorscope-d3-shape-curves',
   enforce: 'pre',
   transform(code, id) {
+    if (/node_modules[\\/]d3-path[\\/]dist[\\/]d3-path\.mjs$/.test(id)) {
+      // The path the kept curves draw with: they call moveTo, lineTo and closePath only.
+      return code.replace(/^ {2}(quadraticCurveTo|bezierCurveTo|arcTo|arc|rect)\([^)]*\) \{\n[\s\S]*?^ {2}\}\n/gm, '');
+    }
     if (/node_modules[\\/]d3-shape[\\/]/.test(id)) {
       if (!/[\\/]d3-shape\.mjs$/.test(id)) return null;
       const keep = new Set(Object.values(D3_CURVE_CLASSES));
