@@ -185,6 +185,25 @@ const decimalMethods = (): Plugin => ({
   },
 });
 
+/**
+ * React's JSX runtime is a CommonJS module, so every element the app renders was bundled as a call
+ * through the module object, `(0, ns.jsx)(...)`: some 1,600 of them. Our sources import it through
+ * this small ES module instead, which reads the three functions once, so each call is a plain call
+ * (about 0.9 KB of the gzip budget). The build only: tests run the runtime as it is.
+ */
+const jsxRuntimeBindings = (): Plugin => ({
+  name: 'tenorscope-jsx-runtime-bindings',
+  apply: 'build',
+  enforce: 'pre',
+  resolveId(id, importer) {
+    if (id === 'react/jsx-runtime' && importer !== undefined && /[\\/]src[\\/]/.test(importer)) return '\0jsx-runtime-bindings';
+    return null;
+  },
+  load(id) {
+    return id === '\0jsx-runtime-bindings' ? "import * as runtime from 'react/jsx-runtime';\nexport const jsx = runtime.jsx, jsxs = runtime.jsxs, Fragment = runtime.Fragment;\n" : null;
+  },
+});
+
 const contentSecurityPolicy = (): Plugin => ({
   name: 'tenorscope-csp',
   apply: 'build',
@@ -199,7 +218,7 @@ const contentSecurityPolicy = (): Plugin => ({
 });
 
 export default defineConfig({
-  plugins: [react(), d3StandIns(), d3ShapeCurves(), decimalMethods(), contentSecurityPolicy()],
+  plugins: [react(), d3StandIns(), d3ShapeCurves(), decimalMethods(), jsxRuntimeBindings(), contentSecurityPolicy()],
   define: { __BUILD_ID__: JSON.stringify(buildId) },
   server: { port: 5173, strictPort: false },
   // No modulepreload polyfill: every browser the es2022 target runs in preloads modules itself, and
