@@ -135,7 +135,9 @@ const d3ShapeCurves = (): Plugin => ({
       const keep = new Set(Object.values(D3_CURVE_CLASSES));
       return code
         .replace(/^(\w+)\.prototype = \{\n[\s\S]*?^\};\n/gm, (block, name: string) => (keep.has(name) ? block : ''))
-        .replace(/^\(MonotoneY\.prototype = Object\.create\(MonotoneX\.prototype\)\)\.point = function\(x, y\) \{\n[\s\S]*?^\};\n/m, '');
+        .replace(/^\(MonotoneY\.prototype = Object\.create\(MonotoneX\.prototype\)\)\.point = function\(x, y\) \{\n[\s\S]*?^\};\n/m, '')
+        // The tunable curves are made by a call at module level, which touches nothing outside: pure.
+        .replace(/^var (\w+) = (\(function custom\(|curveRadial\(curveLinear\))/gm, 'var $1 = /*@__PURE__*/ $2');
     }
     if (!/[\\/]src[\\/].*\.tsx?$/.test(id)) return null;
     for (const m of code.matchAll(/import\s*\{([^}]*)\}\s*from\s*'d3-shape'/g)) {
