@@ -91,6 +91,14 @@ export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? 
  * Each stage solves its nodes with the one solver its method allows (see nodeSolverFor).
  */
 export function bootstrapInstruments(given: BootstrapSettings, market: readonly Instrument[]): BootstrapOutcome {
+  // A turn solved from a quote (turnSolve.ts, in the kit): that quote is no node; the kit solves
+  // the spread around bootstrapTurned of the other quotes.
+  if (given.kit !== undefined && given.turns?.some((s) => s.solveFrom !== undefined) === true) return given.kit.solveTurnSpreads(given, market, bootstrapTurned);
+  return bootstrapTurned(given, market);
+}
+
+/** bootstrapInstruments with every turn's spread as it stands. */
+function bootstrapTurned(given: BootstrapSettings, market: readonly Instrument[]): BootstrapOutcome {
   // Turns and meeting steps (absent: nothing below changes). The turns must end by the last
   // pillar; the step rule decides each instrument's node.
   const spans = given.turns ?? [];

@@ -46,6 +46,13 @@ export interface TurnSpan {
   readonly b: number;
   /** ln of the full jump, -spread x days / 360. */
   readonly lnJump: number;
+  /** The quote (its index) that sets the spread (bootstrap/turnSolve.ts); absent when the user set it. */
+  readonly solveFrom?: number;
+}
+
+/** The span with another spread (decimal): the jump follows. */
+export function withSpread(span: TurnSpan, spread: number): TurnSpan {
+  return { ...span, spread, lnJump: (-spread * span.days) / 360 };
 }
 
 /** The calendar a turn's business days are read on: its own, else the first enabled quote's, else weekends. */
@@ -89,10 +96,22 @@ export function resolveTurns(
       errors.push(coreError('before-settlement', `${path}.from`, `turn "${turn.name}" (${path}) starts on ${days.start}, before the valuation date ${settlement}; move it on or after ${settlement} or remove it`));
       return;
     }
+    const q = turn.solveFrom;
+    if (q !== undefined) {
+      // The quote must be in the market: switched on and read without error.
+      const quote = quotes.find((x) => x.index === q);
+      const why = quote === undefined ? 'which is left out of the curve for an error of its own' : quote.enabled ? null : 'which is switched off';
+      if (why !== null) {
+        errors.push(coreError('no-solution', `${path}.solveFrom`, `turn "${turn.name}" (${path}) is solved from quotes[${q}], ${why}; correct or switch on that quote, solve the turn from another quote that spans it, or give its spread in bp`));
+        return;
+      }
+    }
     const a = time(days.start);
     const b = time(days.end);
-    const spread = turn.spreadBp / 1e4;
-    spans.push({ index, name: turn.name, start: days.start, end: days.end, days: days.days, spread, a, b, lnJump: (-spread * days.days) / 360 });
+    // A solved turn starts at 0 bp; turnSolve.ts sets it.
+    const spread = q === undefined ? turn.spreadBp! / 1e4 : 0;
+    const span: TurnSpan = { index, name: turn.name, start: days.start, end: days.end, days: days.days, spread, a, b, lnJump: (-spread * days.days) / 360 };
+    spans.push(q === undefined ? span : { ...span, solveFrom: q });
   });
   // Overlapping turns add their spreads; nothing to refuse.
   return { spans, errors };

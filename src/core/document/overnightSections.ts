@@ -1,6 +1,6 @@
 /**
  * The workspace's overnight-curve sections (document version 2, both optional): `turns`, a list of
- * turns `{name, from, to, spreadBp, calendar?}`, and `meetingSteps`, `{on, effectiveDates}`. Absent,
+ * turns `{name, from, to, spreadBp, calendar?}` (or `solveFrom`, a quote's position, for `spreadBp`), and `meetingSteps`, `{on, effectiveDates}`. Absent,
  * the curve is built exactly as before. Each error names its path and says what would be valid.
  */
 import { coreError, type CoreError } from '../result.ts';
@@ -15,7 +15,7 @@ export const MAX_TURNS = 60;
 export const MAX_EFFECTIVE_DATES = 400;
 /** A turn's spread in bp lies within plus or minus this. */
 export const TURN_SPREAD_MAX_BP = 1000;
-const TURN_KEYS = ['name', 'from', 'to', 'spreadBp', 'calendar'];
+const TURN_KEYS = ['name', 'from', 'to', 'spreadBp', 'solveFrom', 'calendar'];
 const STEP_KEYS = ['on', 'effectiveDates'];
 
 const isDate = (v: unknown): v is IsoDate => typeof v === 'string' && parseIsoDate(v) !== null;
@@ -33,6 +33,7 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
   }
   const out: Turn[] = [];
   const names = new Set<string>();
+  const solvedBy = new Map<number, number>();
   raw.forEach((v, i) => {
     const path = `turns[${i}]`;
     if (!isPlainObject(v)) {
@@ -41,7 +42,7 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
     }
     const before = errors.length;
     for (const key of Object.keys(v)) {
-      if (!TURN_KEYS.includes(key)) errors.push(coreError('schema', `${path}.${key.slice(0, 40)}`, `${path}: unknown field "${key.slice(0, 40)}"; a turn has name, from, to, spreadBp and optionally calendar`));
+      if (!TURN_KEYS.includes(key)) errors.push(coreError('schema', `${path}.${key.slice(0, 40)}`, `${path}: unknown field "${key.slice(0, 40)}"; a turn has name, from, to, spreadBp (or solveFrom) and optionally calendar`));
     }
     const name = typeof v.name === 'string' ? v.name.trim() : '';
     if (name === '' || name.length > LIMITS.setting) errors.push(coreError('schema', `${path}.name`, `${path}.name must be a text of 1 to ${LIMITS.setting} characters (such as "year end 2027"), not ${typeName(v.name)}`));
@@ -53,15 +54,26 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
       errors.push(coreError('range', `${path}.to`, `${path} (${name || 'turn'}): to ${v.to} is before from ${v.from}; give the last day on or after the first`));
     }
     const s = v.spreadBp;
-    if (typeof s !== 'number' || !Number.isFinite(s) || Math.abs(s) > TURN_SPREAD_MAX_BP) {
-      errors.push(coreError('range', `${path}.spreadBp`, `${path}.spreadBp must be a number of basis points from -${TURN_SPREAD_MAX_BP} to ${TURN_SPREAD_MAX_BP} (such as 10), not ${typeName(s)}`));
+    const q = v.solveFrom;
+    if (q !== undefined) {
+      // The spread solved from a quote (bootstrap/turnSolve.ts): its position, never both.
+      if (s !== undefined) errors.push(coreError('schema', `${path}.spreadBp`, `${path} (${name || 'turn'}) gives both spreadBp and solveFrom; keep spreadBp to set the spread, or solveFrom to solve it from that quote`));
+      else if (typeof q !== 'number' || !Number.isInteger(q) || q < 0) {
+        errors.push(coreError('schema', `${path}.solveFrom`, `${path}.solveFrom (${name || 'turn'}) must be the position of a quote in quotes (0 for the first) whose period holds the turn, not ${q === null ? 'null (in the workbench: its row is empty, has a wrong cell, or was removed)' : typeName(q)}; pick a quote, or give spreadBp instead`));
+      } else {
+        const other = solvedBy.get(q);
+        if (other !== undefined) errors.push(coreError('schema', `${path}.solveFrom`, `${path} (${name || 'turn'}) and turns[${other}] are both solved from quotes[${q}]; one quote sets one spread, so solve the other from another quote or give its spreadBp`));
+      }
+    } else if (typeof s !== 'number' || !Number.isFinite(s) || Math.abs(s) > TURN_SPREAD_MAX_BP) {
+      errors.push(coreError('range', `${path}.spreadBp`, `${path}.spreadBp must be a number of basis points from -${TURN_SPREAD_MAX_BP} to ${TURN_SPREAD_MAX_BP} (such as 10), not ${typeName(s)}; or solveFrom, the position of a quote that spans the turn`));
     }
     if (v.calendar !== undefined && (typeof v.calendar !== 'string' || v.calendar === '' || v.calendar.length > LIMITS.setting)) {
       errors.push(coreError('schema', `${path}.calendar`, `${path}.calendar must be a calendar id such as "us-gov-securities", not ${typeName(v.calendar)}`));
     }
     if (errors.length > before) return;
     names.add(name);
-    const turn: Turn = { name, from: v.from as IsoDate, to: v.to as IsoDate, spreadBp: s as number };
+    if (q !== undefined) solvedBy.set(q as number, i);
+    const turn: Turn = q === undefined ? { name, from: v.from as IsoDate, to: v.to as IsoDate, spreadBp: s as number } : { name, from: v.from as IsoDate, to: v.to as IsoDate, solveFrom: q as number };
     out.push(v.calendar === undefined ? turn : { ...turn, calendar: v.calendar as string });
   });
   return out;
@@ -92,4 +104,30 @@ export function readMeetingSteps(raw: unknown, errors: CoreError[]): MeetingStep
     });
   if (errors.length > before) return undefined;
   return { on: raw.on as boolean, effectiveDates: dates };
+}
+
+/**
+ * The quotes the turns are solved from, checked against the document's quote list: each
+ * `solveFrom` must name a quote there, of a kind that can carry a turn (`carriers`, the kinds whose
+ * module says `turnSpread`: money-market quotes on the overnight curve). Whether the quote's period
+ * holds the turn is the build's check, on the curve's clock (bootstrap/turnSolve.ts).
+ */
+export function turnQuoteErrors(turns: readonly Turn[] | undefined, rawQuotes: readonly unknown[], carriers: readonly string[], kinds: readonly string[]): CoreError[] {
+  const errors: CoreError[] = [];
+  (turns ?? []).forEach((turn, i) => {
+    const j = turn.solveFrom;
+    if (j === undefined) return;
+    const path = `turns[${i}].solveFrom`;
+    if (j >= rawQuotes.length) {
+      errors.push(coreError('range', path, `${path}: turn "${turn.name}" is solved from quotes[${j}], but the document has ${rawQuotes.length} ${rawQuotes.length === 1 ? 'quote' : 'quotes'} (positions 0 to ${rawQuotes.length - 1}); pick a quote whose period holds the turn, or give spreadBp instead`));
+      return;
+    }
+    const raw = rawQuotes[j];
+    const kind = isPlainObject(raw) && typeof raw.kind === 'string' ? raw.kind : null;
+    // An unknown kind is the quote's own error.
+    if (kind !== null && !carriers.includes(kind) && kinds.includes(kind)) {
+      errors.push(coreError('unknown-identifier', path, `${path}: turn "${turn.name}" is solved from quotes[${j}], a ${kind}, which cannot carry a turn (its value is not set by overnight rates over the turn's days); solve it from a ${carriers.join(', ')} quote that spans the turn, or give spreadBp instead`));
+    }
+  });
+  return errors;
 }
