@@ -86,7 +86,9 @@ export function deriveBuild(
   let fatal: string | null = null;
   if (!build.curve) {
     const docError = build.errors.find((e) => e.quote === null);
-    fatal = docError ? docError.message : build.errors[0]?.message.replace(/quotes\[(\d+)\]/g, (_, q: string) => `row ${(conversion.rowOfQuote[Number(q)] ?? 0) + 1}`) ?? 'no curve';
+    // The engine's quotes[i] is the sheet's row rowOfQuote[i] + 1, in a document's error too (a turn solved from a quote).
+    const rowWords = (m: string) => m.replace(/quotes\[(\d+)\]/g, (_, q: string) => `row ${(conversion.rowOfQuote[Number(q)] ?? 0) + 1}`);
+    fatal = docError ? rowWords(docError.message) : build.errors[0] ? rowWords(build.errors[0].message) : 'no curve';
   }
   return { conversion, build, rowIssues, invalidCount: conversion.invalidRows + engineInvalid, disabledCount, fatal };
 }

@@ -112,3 +112,25 @@ export function overnightForwardView(build: Pick<CurveBuild, 'curve' | 'overnigh
   const turns = (shape?.turns ?? []).filter((s) => s.a < endT).map((s) => ({ name: s.name, start: s.start, end: s.end, a: s.a, b: s.b, spreadBp: s.spread * 1e4 }));
   return { points, end, endT, meetings, turns };
 }
+
+/** A turn's spread as the curve was built with it: given by the user, or solved from a quote. */
+export interface TurnSpreadRow {
+  /** Index in the document's `turns`. */
+  readonly index: number;
+  /** The spread in bp (simple ACT/360 on the overnight rate, added over each of the turn's days). */
+  readonly spreadBp: number;
+  /** The quote (index in the engine document's `quotes`) it was solved from; null when the user gave it. */
+  readonly solvedFrom: number | null;
+  /** The solved spread to 0.01 bp (what a user switching back to a spread of their own starts from); the given one as is. */
+  readonly spreadBpRounded: number;
+}
+
+/** Each turn's spread on the built curve, by the document's turn index (bootstrap/turnSolve.ts solves those naming a quote); empty without a curve. */
+export function turnSpreads(build: Pick<CurveBuild, 'overnight'>): readonly TurnSpreadRow[] {
+  return (build.overnight?.turns ?? []).map((s) => {
+    const spreadBp = s.spread * 1e4;
+    return s.solveFrom === undefined
+      ? { index: s.index, spreadBp, solvedFrom: null, spreadBpRounded: spreadBp }
+      : { index: s.index, spreadBp, solvedFrom: s.solveFrom, spreadBpRounded: Math.round(spreadBp * 100) / 100 };
+  });
+}
