@@ -60,7 +60,7 @@ const CSP = [
  * imported by `first` and the first-load budget test (test/browser/security.test.ts) would fail; a
  * core module used only later and missing here costs first-load bytes, nothing else.
  */
-const LATER_ONLY = /node_modules\/decimal\.js\/|src\/core\/roll\/|src\/core\/fit\/(?!parametricForm)|src\/core\/input\/quoteSchedule\.ts|src\/core\/curve\/explain|src\/core\/analytics\/explainRisk\.ts|src\/core\/scenarios\/(scenarioReference|scenarioEffects)\.ts|src\/core\/curve\/overnightView\.ts|src\/core\/analytics\/(bondInput|bondAnalytics|zSpread|quoteDv01|sensitivityMap)\.ts|src\/core\/time\/calendarEdits\.ts|src\/core\/document\/listFile\.ts|src\/core\/input\/pasteTable\.ts|src\/core\/input\/fixingList\.ts/;
+const LATER_ONLY = /node_modules\/decimal\.js\/|src\/core\/roll\/|src\/core\/fit\/(?!parametricForm)|src\/core\/input\/quoteSchedule\.ts|src\/core\/curve\/explain|src\/core\/analytics\/explainRisk\.ts|src\/core\/scenarios\/(scenarioReference|scenarioEffects)\.ts|src\/core\/curve\/overnightView\.ts|src\/core\/analytics\/(bondInput|bondAnalytics|zSpread|quoteDv01|sensitivityMap)\.ts|src\/core\/time\/calendarEdits\.ts|src\/core\/document\/listFile\.ts|src\/core\/input\/pasteTable\.ts|src\/core\/input\/fixingList\.ts|src\/core\/bootstrap\/(overnightKit|turns|turnSolve|meetingSteps)\.ts|src\/core\/time\/turnDays\.ts/;
 
 function appChunk(id: string, ctx: { getModuleInfo(id: string): { isEntry: boolean; importers: readonly string[]; dynamicImporters: readonly string[] } | null }): string | null {
   if (LATER_ONLY.test(id)) return 'later';

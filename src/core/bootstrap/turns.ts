@@ -20,6 +20,7 @@
 import type { Instrument } from '../instruments/instrument.ts';
 import type { Quote, Turn } from '../document/types.ts';
 import { coreError, type CoreError } from '../result.ts';
+import { kindModule } from '../kinds/registry.ts';
 import type { CalendarOutcome } from '../time/calendars.ts';
 import type { IsoDate } from '../time/date.ts';
 import { turnDays, type CalendarLimits } from '../time/turnDays.ts';
@@ -46,8 +47,8 @@ export interface TurnSpan {
   readonly b: number;
   /** ln of the full jump, -spread x days / 360. */
   readonly lnJump: number;
-  /** The quote (its index) that sets the spread (bootstrap/turnSolve.ts); absent when the user set it. */
-  readonly solveFrom?: number;
+  /** The quote (its index) that sets the spread (bootstrap/turnSolve.ts); undefined when the user set it. */
+  readonly solveFrom?: number | undefined;
 }
 
 /** The span with another spread (decimal): the jump follows. */
@@ -99,10 +100,11 @@ export function resolveTurns(
     const q = turn.solveFrom;
     if (q !== undefined) {
       // The quote must be in the market: switched on and read without error.
+      // It must be a quote of the market (read without error, switched on) of a kind that can carry a turn.
       const quote = quotes.find((x) => x.index === q);
-      const why = quote === undefined ? 'which is left out of the curve for an error of its own' : quote.enabled ? null : 'which is switched off';
-      if (why !== null) {
-        errors.push(coreError('no-solution', `${path}.solveFrom`, `turn "${turn.name}" (${path}) is solved from quotes[${q}], ${why}; correct or switch on that quote, solve the turn from another quote that spans it, or give its spread in bp`));
+      const why = !quote ? 'no quote of the curve (past the list, or left out)' : !quote.enabled ? 'switched off' : kindModule(quote.kind).turnSpread ? null : `a ${quote.kind}, which cannot carry a turn (a deposit, FRA, future or OIS can)`;
+      if (why) {
+        errors.push(coreError('no-solution', `${path}.solveFrom`, `turn "${turn.name}" (${path}) is solved from quotes[${q}], ${why}; pick a quote over the turn, or give its spread in bp`));
         return;
       }
     }
@@ -110,8 +112,7 @@ export function resolveTurns(
     const b = time(days.end);
     // A solved turn starts at 0 bp; turnSolve.ts sets it.
     const spread = q === undefined ? turn.spreadBp! / 1e4 : 0;
-    const span: TurnSpan = { index, name: turn.name, start: days.start, end: days.end, days: days.days, spread, a, b, lnJump: (-spread * days.days) / 360 };
-    spans.push(q === undefined ? span : { ...span, solveFrom: q });
+    spans.push({ index, name: turn.name, start: days.start, end: days.end, days: days.days, spread, a, b, lnJump: (-spread * days.days) / 360, solveFrom: q });
   });
   // Overlapping turns add their spreads; nothing to refuse.
   return { spans, errors };

@@ -113,24 +113,10 @@ export function overnightForwardView(build: Pick<CurveBuild, 'curve' | 'overnigh
   return { points, end, endT, meetings, turns };
 }
 
-/** A turn's spread as the curve was built with it: given by the user, or solved from a quote. */
-export interface TurnSpreadRow {
-  /** Index in the document's `turns`. */
-  readonly index: number;
-  /** The spread in bp (simple ACT/360 on the overnight rate, added over each of the turn's days). */
-  readonly spreadBp: number;
-  /** The quote (index in the engine document's `quotes`) it was solved from; null when the user gave it. */
-  readonly solvedFrom: number | null;
-  /** The solved spread to 0.01 bp (what a user switching back to a spread of their own starts from); the given one as is. */
-  readonly spreadBpRounded: number;
-}
-
-/** Each turn's spread on the built curve, by the document's turn index (bootstrap/turnSolve.ts solves those naming a quote); empty without a curve. */
-export function turnSpreads(build: Pick<CurveBuild, 'overnight'>): readonly TurnSpreadRow[] {
-  return (build.overnight?.turns ?? []).map((s) => {
-    const spreadBp = s.spread * 1e4;
-    return s.solveFrom === undefined
-      ? { index: s.index, spreadBp, solvedFrom: null, spreadBpRounded: spreadBp }
-      : { index: s.index, spreadBp, solvedFrom: s.solveFrom, spreadBpRounded: Math.round(spreadBp * 100) / 100 };
-  });
-}
+/**
+ * Each turn's spread on the built curve (empty without a curve): `index` in the document's turns
+ * and `spreadBp` in bp (simple ACT/360, added to each of its days' overnight rate; solved from a
+ * quote by bootstrap/turnSolve.ts when its span names one).
+ */
+export const turnSpreads = (build: Pick<CurveBuild, 'overnight'>): readonly { readonly index: number; readonly spreadBp: number }[] =>
+  (build.overnight?.turns ?? []).map((s) => ({ index: s.index, spreadBp: s.spread * 1e4 }));

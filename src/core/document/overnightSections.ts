@@ -33,7 +33,6 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
   }
   const out: Turn[] = [];
   const names = new Set<string>();
-  const solvedBy = new Map<number, number>();
   raw.forEach((v, i) => {
     const path = `turns[${i}]`;
     if (!isPlainObject(v)) {
@@ -57,22 +56,21 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
     const q = v.solveFrom;
     if (q !== undefined) {
       // The spread solved from a quote (bootstrap/turnSolve.ts): its position, never both.
-      if (s !== undefined) errors.push(coreError('schema', `${path}.spreadBp`, `${path} (${name || 'turn'}) gives both spreadBp and solveFrom; keep spreadBp to set the spread, or solveFrom to solve it from that quote`));
+      if (s !== undefined) errors.push(coreError('schema', `${path}.spreadBp`, `${path} gives both spreadBp and solveFrom; keep one`));
       else if (typeof q !== 'number' || !Number.isInteger(q) || q < 0) {
-        errors.push(coreError('schema', `${path}.solveFrom`, `${path}.solveFrom (${name || 'turn'}) must be the position of a quote in quotes (0 for the first) whose period holds the turn, not ${q === null ? 'null (in the workbench: its row is empty, has a wrong cell, or was removed)' : typeName(q)}; pick a quote, or give spreadBp instead`));
+        errors.push(coreError('schema', `${path}.solveFrom`, `${path}.solveFrom (${name}) must be a quote's position in quotes (0 for the first), not ${q === null ? 'null (a row empty, wrong or removed)' : typeName(q)}`));
       } else {
-        const other = solvedBy.get(q);
-        if (other !== undefined) errors.push(coreError('schema', `${path}.solveFrom`, `${path} (${name || 'turn'}) and turns[${other}] are both solved from quotes[${q}]; one quote sets one spread, so solve the other from another quote or give its spreadBp`));
+        const other = out.findIndex((t) => t.solveFrom === q);
+        if (other >= 0) errors.push(coreError('schema', `${path}.solveFrom`, `${path} (${name}) and turns[${other}] are both solved from quotes[${q}]; one quote sets one spread`));
       }
     } else if (typeof s !== 'number' || !Number.isFinite(s) || Math.abs(s) > TURN_SPREAD_MAX_BP) {
-      errors.push(coreError('range', `${path}.spreadBp`, `${path}.spreadBp must be a number of basis points from -${TURN_SPREAD_MAX_BP} to ${TURN_SPREAD_MAX_BP} (such as 10), not ${typeName(s)}; or solveFrom, the position of a quote that spans the turn`));
+      errors.push(coreError('range', `${path}.spreadBp`, `${path}.spreadBp must be a number of basis points from -${TURN_SPREAD_MAX_BP} to ${TURN_SPREAD_MAX_BP} (such as 10), not ${typeName(s)}; or solveFrom`));
     }
     if (v.calendar !== undefined && (typeof v.calendar !== 'string' || v.calendar === '' || v.calendar.length > LIMITS.setting)) {
       errors.push(coreError('schema', `${path}.calendar`, `${path}.calendar must be a calendar id such as "us-gov-securities", not ${typeName(v.calendar)}`));
     }
     if (errors.length > before) return;
     names.add(name);
-    if (q !== undefined) solvedBy.set(q as number, i);
     const turn: Turn = q === undefined ? { name, from: v.from as IsoDate, to: v.to as IsoDate, spreadBp: s as number } : { name, from: v.from as IsoDate, to: v.to as IsoDate, solveFrom: q as number };
     out.push(v.calendar === undefined ? turn : { ...turn, calendar: v.calendar as string });
   });
@@ -106,28 +104,3 @@ export function readMeetingSteps(raw: unknown, errors: CoreError[]): MeetingStep
   return { on: raw.on as boolean, effectiveDates: dates };
 }
 
-/**
- * The quotes the turns are solved from, checked against the document's quote list: each
- * `solveFrom` must name a quote there, of a kind that can carry a turn (`carriers`, the kinds whose
- * module says `turnSpread`: money-market quotes on the overnight curve). Whether the quote's period
- * holds the turn is the build's check, on the curve's clock (bootstrap/turnSolve.ts).
- */
-export function turnQuoteErrors(turns: readonly Turn[] | undefined, rawQuotes: readonly unknown[], carriers: readonly string[], kinds: readonly string[]): CoreError[] {
-  const errors: CoreError[] = [];
-  (turns ?? []).forEach((turn, i) => {
-    const j = turn.solveFrom;
-    if (j === undefined) return;
-    const path = `turns[${i}].solveFrom`;
-    if (j >= rawQuotes.length) {
-      errors.push(coreError('range', path, `${path}: turn "${turn.name}" is solved from quotes[${j}], but the document has ${rawQuotes.length} ${rawQuotes.length === 1 ? 'quote' : 'quotes'} (positions 0 to ${rawQuotes.length - 1}); pick a quote whose period holds the turn, or give spreadBp instead`));
-      return;
-    }
-    const raw = rawQuotes[j];
-    const kind = isPlainObject(raw) && typeof raw.kind === 'string' ? raw.kind : null;
-    // An unknown kind is the quote's own error.
-    if (kind !== null && !carriers.includes(kind) && kinds.includes(kind)) {
-      errors.push(coreError('unknown-identifier', path, `${path}: turn "${turn.name}" is solved from quotes[${j}], a ${kind}, which cannot carry a turn (its value is not set by overnight rates over the turn's days); solve it from a ${carriers.join(', ')} quote that spans the turn, or give spreadBp instead`));
-    }
-  });
-  return errors;
-}

@@ -18,7 +18,7 @@ import type { ReadWorkspace, WorkspaceCurve } from './namedCurves.ts';
 import { isEmptyCalendarContext, readCalendarSections } from './calendarSection.ts';
 import type { CalendarContext } from '../time/calendars.ts';
 import { CONVEXITY_MODELS, CONVEXITY_VOLATILITY_MAX, MEAN_REVERSION_MAX, type ConvexityModel } from '../instruments/convexity.ts';
-import { readMeetingSteps, readTurns, turnQuoteErrors } from './overnightSections.ts';
+import { readMeetingSteps, readTurns } from './overnightSections.ts';
 
 export const WORKSPACE_FORMAT = 'tenorscope-workspace';
 /**
@@ -54,9 +54,6 @@ export interface ValidationOutcome {
  * their path (a misspelt `cleanprice` is caught). Quote errors do not stop the others being
  * checked, so a caller may build from the valid quotes (`--skip-invalid`).
  */
-/** The kinds whose quotes can set a turn's spread (`QuoteKindModule.turnSpread`). */
-const TURN_CARRIERS: readonly string[] = KIND_MODULE_LIST.filter((m) => m.turnSpread === true).map((m) => m.kind);
-
 export function validateWorkspace(doc: unknown, readCurves: CurvesReader = refuseNamedCurves): ValidationOutcome {
   const errors: CoreError[] = [];
   if (!isPlainObject(doc)) {
@@ -101,9 +98,6 @@ export function validateWorkspace(doc: unknown, readCurves: CurvesReader = refus
     const q = checkQuote(doc.quotes[index], index, settlement, settlementCivil, errors, context, fromDocument);
     if (q && errors.length === before) quotes.push(q);
   }
-  // A turn solved from a quote: that quote must be in the list and of a kind that can carry it.
-  const turnQuotes = turns === undefined ? [] : turnQuoteErrors(turns, doc.quotes, TURN_CARRIERS, QUOTE_KINDS);
-  if (turnQuotes.length > 0) return { workspace: null, errors: [...errors, ...turnQuotes] };
   const reserved: Record<string, unknown> = {};
   for (const key of RESERVED_KEYS) if (key in doc) reserved[key] = doc[key];
   const base: Workspace = { settlement, calendars, curve, quotes, quoteCount: doc.quotes.length, reserved, ...(fixings ? { fixings } : {}) };

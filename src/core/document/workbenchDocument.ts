@@ -210,7 +210,7 @@ export function toEngineDocument(
     ...(doc.calendars !== undefined && Object.keys(doc.calendars).length > 0 ? { calendars: doc.calendars } : {}),
     ...(doc.customCalendars !== undefined && Object.keys(doc.customCalendars).length > 0 ? { customCalendars: doc.customCalendars } : {}),
     ...(doc.fixings !== undefined && Object.keys(doc.fixings).length > 0 ? { fixings: doc.fixings } : {}),
-    ...(doc.turns !== undefined && doc.turns.length > 0 ? { turns: doc.turns.some((t) => t.solveFromRow !== undefined) ? engineTurns(doc.turns, doc.quotes.map((r) => r.id), rowOfQuote) : doc.turns } : {}),
+    ...(doc.turns !== undefined && doc.turns.length > 0 ? { turns: engineTurns(doc.turns, doc.quotes.map((r) => r.id), rowOfQuote) } : {}),
     ...(doc.meetingSteps !== undefined ? { meetingSteps: doc.meetingSteps } : {}),
     curve,
     quotes,

@@ -70,18 +70,8 @@ export const SPOT_BRIDGE_ROUNDING_ULPS = 4;
 export const SPOT_BRIDGE_TOLERANCE = 1e-16;
 
 /**
- * A turn solved from a quote (bootstrap/turnSolve.ts): the secant's first step in the spread
- * (1e-4, one basis point; the quote is affine, or nearly, in the spread, so two points find it).
+ * A turn solved from a quote (bootstrap/turnSolve.ts): at most this many rounds over the solved
+ * turns, each solved in turn with the others held, until every spanning quote reprices within its
+ * acceptance bound (each turn's spread is solved by solveNode, with its own limits above).
  */
-export const TURN_SOLVE_FIRST_STEP = 1e-4;
-/** ...at most this many bootstraps for one turn's spread in one round... */
-export const TURN_SOLVE_MAX_EVALUATIONS = 60;
-/** ...and at most this many rounds over the solved turns (each solved in turn with the others held). */
 export const TURN_SOLVE_ROUNDS = 20;
-/**
- * ...the spread is taken when its quote reprices within this share of the quote's acceptance bound
- * (1/16: 6.25e-16 in rate, 6.25e-13 per 100), or when the bracket on the spread is narrower than
- * TURN_SOLVE_SPREAD_TOLERANCE (1e-17, 1e-13 bp: rounding noise in the spread).
- */
-export const TURN_SOLVE_ACCEPTANCE_SHARE = 1 / 16;
-export const TURN_SOLVE_SPREAD_TOLERANCE = 1e-17;

@@ -45,7 +45,7 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
   return (
     <div className="overnight stack">
       <p className="muted small">
-        The curve&rsquo;s one-day forward rates ({OVERNIGHT_TAG}), with the policy effective dates it can step on and the turns that lift single days. An analysis aid, not investment advice: check the dates and spreads against official sources.
+        The curve&rsquo;s one-day forward rates ({OVERNIGHT_TAG}), with the policy effective dates it can step on and the turns that lift single days. The risk views and the smooth fit leave turns and steps out. An analysis aid, not investment advice: check the dates and spreads against official sources.
       </p>
       <MeetingDates />
       <Turns build={build} />
@@ -166,14 +166,8 @@ function checkTurns(turns: readonly WorkbenchTurn[], rows: readonly QuoteRow[]):
   return errors;
 }
 
-/** What the sheet row `id` is, in words: "row 3 (deposit 2023-01-17)". */
-function rowWords(rows: readonly QuoteRow[], id: string): string {
-  const i = rows.findIndex((r) => r.id === id);
-  if (i < 0) return 'a removed row';
-  const r = rows[i]!;
-  const what = [r.kind, r.maturity].map((x) => x.trim()).filter((x) => x !== '').join(' ');
-  return `row ${i + 1}${what === '' ? '' : ` (${what})`}`;
-}
+/** Sheet row i in words: "row 3 (deposit 2023-01-17)". */
+const rowWords = (r: QuoteRow, i: number): string => `row ${i + 1} (${`${r.kind} ${r.maturity}`.trim()})`;
 
 /** The turns: a table with each one's days and spread (given, or solved from a sheet row), a remove button, and lines to add. */
 function Turns({ build }: { build: CurveBuild }) {
@@ -201,28 +195,16 @@ function Turns({ build }: { build: CurveBuild }) {
     setMessage(`Added ${r.turns.length} ${r.turns.length === 1 ? 'turn' : 'turns'}${notTaken(r.problems.map(problemText))}.`);
     if (r.problems.length === 0) setList('');
   };
-  /** Sets how turn i's spread is found: `given`, or solved from the sheet row with that id. */
+  /** Sets how turn i's spread is found: `given` (the spread typed before, kept while it was solved; 0 bp for a turn that never had one), or solved from the sheet row with that id. */
   const setSource = (i: number, source: string): void => {
-    const t = turns[i]!;
-    let next: WorkbenchTurn;
-    if (source === 'given') {
-      const { solveFromRow: _row, ...rest } = t;
-      // A spread typed before is kept; else the solved one (to 0.01 bp), or 0 without a curve.
-      next = { ...rest, spreadBp: t.spreadBp ?? spreads.find((x) => x.index === i)?.spreadBpRounded ?? 0 };
-    } else next = { ...t, solveFromRow: source };
-    const all = turns.map((x, k) => (k === i ? next : x));
-    const errors = checkTurns(all, rows);
-    if (errors.length > 0) {
-      setMessage(`Not changed: ${errors.map((e) => e.message.replace(/turns\[(\d+)\]/g, (_, k: string) => `turn ${Number(k) + 1}`)).join('; ')}.`);
-      return;
-    }
-    useAppStore.getState().setTurns(all);
-    setMessage(source === 'given' ? `The turn ${t.name} now takes the spread given, ${formatBpSetting(next.spreadBp)}.` : `The turn ${t.name} is now solved from ${rowWords(rows, source)}: that quote sets its spread and is no node of the curve.`);
+    const { solveFromRow: _row, ...t } = turns[i]!;
+    const next: WorkbenchTurn = source === 'given' ? { spreadBp: 0, ...t } : { ...t, solveFromRow: source };
+    useAppStore.getState().setTurns(turns.map((x, k) => (k === i ? next : x)));
   };
   return (
     <section aria-label="Turns">
       <h3>Turns</h3>
-      <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only. The spread is one you give, or solved from a quote whose period holds the turn (a deposit, FRA, future or overnight-index swap): that quote then sets the spread instead of a node of the curve, and reprices exactly.</p>
+      <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only. Or solve the spread from a quote over the turn, which then is no node.</p>
       <EditLock>
         {turns.length > 0 && (
           <div className="table-scroll">
@@ -233,7 +215,7 @@ function Turns({ build }: { build: CurveBuild }) {
                   <th scope="col">First day</th>
                   <th scope="col">Last day</th>
                   <th scope="col">Spread set by</th>
-                  <th scope="col">Spread (bp, {OVERNIGHT_TAG}, added to each day&rsquo;s overnight rate)</th>
+                  <th scope="col">Spread (bp, {OVERNIGHT_TAG}, on the overnight rate)</th>
                   <th scope="col">
                     <span className="sr-only">Remove</span>
                   </th>
@@ -249,15 +231,15 @@ function Turns({ build }: { build: CurveBuild }) {
                       <select aria-label={`Spread of the turn ${t.name} set by`} value={t.solveFromRow ?? 'given'} onChange={(e) => setSource(i, e.target.value)}>
                         <option value="given">the spread given</option>
                         {t.solveFromRow !== undefined && !rows.some((r) => r.id === t.solveFromRow) && <option value={t.solveFromRow}>solving from a removed row</option>}
-                        {rows.map((r) => (
+                        {rows.map((r, k) => (
                           <option key={r.id} value={r.id}>
-                            solving from {rowWords(rows, r.id)}
+                            solving from {rowWords(r, k)}
                           </option>
                         ))}
                       </select>
                     </td>
                     <td className="num" data-turn-spread={t.name}>
-                      {t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : <SolvedSpread row={spreads.find((x) => x.index === i)} />}
+                      {t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(spreads.find((x) => x.index === i))}
                     </td>
                     <td>
                       <button type="button" aria-label={`Remove the turn ${t.name}`} onClick={() => useAppStore.getState().setTurns(turns.filter((x) => x !== t))}>
@@ -287,11 +269,4 @@ function Turns({ build }: { build: CurveBuild }) {
 }
 
 /** A solved turn's spread as the curve was built with it, or why there is none. */
-function SolvedSpread({ row }: { row: { readonly spreadBp: number } | undefined }) {
-  if (row === undefined) return <span className="muted">not solved: no curve (see the message below)</span>;
-  return (
-    <span title={`${formatBpSetting(row.spreadBp)}, solved`}>
-      {formatBp(row.spreadBp)} <span className="muted">(solved)</span>
-    </span>
-  );
-}
+const solvedText = (row: { readonly spreadBp: number } | undefined): string => (row === undefined ? 'no curve' : `${formatBp(row.spreadBp)} (solved)`);

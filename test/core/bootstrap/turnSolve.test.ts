@@ -204,29 +204,33 @@ describe('a solved turn: errors naming the turn and the quote', () => {
     const b = build(doc(deposits(), [{ ...YEAR_END, solveFrom: 0 }]));
     expect(b.curve).toBeNull();
     expect(b.errors[0]!.path).toBe('turns[0].solveFrom');
-    expect(b.errors[0]!.message).toContain('turn "year end 2022" (turns[0], overnight periods from 2022-12-30 to 2023-01-02) is solved from quotes[0] (deposit 2022-12-22), whose period does not hold every day of the turn');
+    expect(b.errors[0]!.message).toBe('turn "year end 2022" (turns[0]) solved from quotes[0] (deposit 2022-12-22): its period does not hold every day of the turn, 2022-12-30 to 2023-01-02; pick a quote over both; or give the spread in bp');
   });
 
   it('a forward-starting quote that starts after the turn (an FRA 1x4 from 2023-01-19) does not hold it', () => {
     const b = build(doc([...deposits(), { kind: 'fra', period: '1x4', rate: 0.041 }], [{ ...YEAR_END, solveFrom: 3 }]));
     expect(b.curve).toBeNull();
-    expect(b.errors[0]!.message).toContain('is solved from quotes[3] (fra ');
-    expect(b.errors[0]!.message).toContain('whose period does not hold every day of the turn; pick a quote that starts on or before 2022-12-30 and ends on or after 2023-01-02');
+    expect(b.errors[0]!.message).toContain('solved from quotes[3] (fra 2023-04-17): its period does not hold every day of the turn');
   });
 
-  it('two turns naming one quote, a position past the list, a kind that cannot carry it, and both a spread and a quote are refused when read', () => {
+  it('two turns naming one quote, and both a spread and a quote, are refused when read', () => {
     const two = validateWorkspace(doc(deposits(), [{ ...YEAR_END, solveFrom: 1 }, { ...YEAR_END, name: 'again', solveFrom: 1 }]));
     expect(two.workspace).toBeNull();
-    expect(two.errors.map((e) => [e.path, e.message])).toEqual([['turns[1].solveFrom', 'turns[1] (again) and turns[0] are both solved from quotes[1]; one quote sets one spread, so solve the other from another quote or give its spreadBp']]);
-    const past = validateWorkspace(doc(deposits(), [{ ...YEAR_END, solveFrom: 3 }]));
-    expect(past.errors[0]!.message).toContain('turn "year end 2022" is solved from quotes[3], but the document has 3 quotes (positions 0 to 2)');
-    const zero = validateWorkspace(doc([...deposits(), { kind: 'zero', maturity: '2023-06-15', rate: 0.04 }], [{ ...YEAR_END, solveFrom: 3 }]));
-    expect(zero.workspace).toBeNull();
-    expect(zero.errors[0]!.path).toBe('turns[0].solveFrom');
-    expect(zero.errors[0]!.message).toContain('quotes[3], a zero, which cannot carry a turn');
-    expect(zero.errors[0]!.message).toMatch(/solve it from a (deposit|ois|future|fra)(, (deposit|ois|future|fra)){3} quote that spans the turn/);
+    expect(two.errors.map((e) => [e.path, e.message])).toEqual([['turns[1].solveFrom', 'turns[1] (again) and turns[0] are both solved from quotes[1]; one quote sets one spread']]);
     const both = validateWorkspace(doc(deposits(), [{ ...YEAR_END, spreadBp: 5, solveFrom: 1 }]));
     expect(both.errors[0]!.path).toBe('turns[0].spreadBp');
+    const neither = validateWorkspace(doc(deposits(), [{ ...YEAR_END, solveFrom: -1 }]));
+    expect(neither.errors[0]!.path).toBe('turns[0].solveFrom');
+  });
+
+  it('a position past the list, or a kind that cannot carry a turn (a zero), is an error naming the turn and quote', () => {
+    const past = build(doc(deposits(), [{ ...YEAR_END, solveFrom: 3 }]));
+    expect(past.curve).toBeNull();
+    expect(past.errors[0]!.message).toBe('turn "year end 2022" (turns[0]) is solved from quotes[3], no quote of the curve (past the list, or left out); pick a quote over the turn, or give its spread in bp');
+    const zero = build(doc([...deposits(), { kind: 'zero', maturity: '2023-06-15', rate: 0.04 }], [{ ...YEAR_END, solveFrom: 3 }]));
+    expect(zero.curve).toBeNull();
+    expect(zero.errors[0]!.path).toBe('turns[0].solveFrom');
+    expect(zero.errors[0]!.message).toContain('is solved from quotes[3], a zero, which cannot carry a turn (a deposit, FRA, future or OIS can)');
   });
 
   it('a quote switched off is an error naming it; the document keeps the turn', () => {
@@ -234,7 +238,7 @@ describe('a solved turn: errors naming the turn and the quote', () => {
     const d = doc(quotes, [{ ...YEAR_END, solveFrom: 1 }]);
     const b = build(d);
     expect(b.curve).toBeNull();
-    expect(b.errors[0]!.message).toContain('turn "year end 2022" (turns[0]) is solved from quotes[1], which is switched off');
+    expect(b.errors[0]!.message).toContain('turn "year end 2022" (turns[0]) is solved from quotes[1], switched off');
     expect(b.workspace!.turns).toEqual([{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', calendar: 'weekends', solveFrom: 1 }]);
   });
 
@@ -248,7 +252,7 @@ describe('a solved turn: errors naming the turn and the quote', () => {
     const b = build({ ...doc(quotes, [{ ...YEAR_END, solveFrom: 1 }]), valuationDate: '2022-12-29' });
     expect(b.curve).toBeNull();
     expect(b.errors[0]!.code).toBe('no-solution');
-    expect(b.errors[0]!.message).toContain('no spread from -1000 bp to 1000 bp reprices the quote');
+    expect(b.errors[0]!.message).toBe('turn "year end 2022" (turns[0]) solved from quotes[1] (deposit 2023-01-17): no spread from 0 bp to 1000 bp reprices it (another quote over the turn may take it up); or give the spread in bp');
   });
 
   it('a turn solved from the last quote, with no quote after it, is the turn past the curve', () => {
