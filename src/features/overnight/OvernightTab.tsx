@@ -229,11 +229,11 @@ function Turns({ build }: { build: CurveBuild }) {
                     <td>{t.to}</td>
                     <td>
                       <select aria-label={`Spread of the turn ${t.name} set by`} value={t.solveFromRow ?? 'given'} onChange={(e) => setSource(i, e.target.value)}>
-                        <option value="given">the spread given</option>
-                        {t.solveFromRow !== undefined && !rows.some((r) => r.id === t.solveFromRow) && <option value={t.solveFromRow}>solving from a removed row</option>}
+                        <option value="given">you</option>
+                        {t.solveFromRow !== undefined && !rows.some((r) => r.id === t.solveFromRow) && <option value={t.solveFromRow}>a removed row</option>}
                         {rows.map((r, k) => (
                           <option key={r.id} value={r.id}>
-                            solving from {rowWords(r, k)}
+                            {rowWords(r, k)}
                           </option>
                         ))}
                       </select>
