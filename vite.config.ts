@@ -56,7 +56,7 @@ const CSP = [
  * LATER_ONLY names those the first screen never runs: money in decimal.js, the roll analysis, the
  * smooth fit, the quote check's schedules, the explanations, the scenarios' reference reader and change table, the
  * overnight view, the bond analytics, the Holidays and Fixings sections' readers, the paste's table
- * reader and the workspace list file. Were one of them run on the first screen, `later` would be
+ * reader, the workspace list file and the code of turns and steps (fetched by src/hooks/overnightKit.ts). Were one of them run on the first screen, `later` would be
  * imported by `first` and the first-load budget test (test/browser/security.test.ts) would fail; a
  * core module used only later and missing here costs first-load bytes, nothing else.
  */
