@@ -45,7 +45,7 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
   return (
     <div className="overnight stack">
       <p className="muted small">
-        The curve&rsquo;s one-day forward rates ({OVERNIGHT_TAG}), with the policy effective dates it can step on and the turns that lift single days. The risk views and the smooth fit leave turns and steps out. An analysis aid, not investment advice: check the dates and spreads against official sources.
+        The curve&rsquo;s one-day forward rates ({OVERNIGHT_TAG}), with the policy effective dates it can step on and the turns that lift single days. An analysis aid, not investment advice: check the dates and spreads against official sources.
       </p>
       <MeetingDates />
       <Turns build={build} />
