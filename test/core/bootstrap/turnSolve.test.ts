@@ -164,6 +164,27 @@ describe('repricing with a solved turn under every method', () => {
     });
   }
 
+  for (const method of ['log-linear-discount', 'monotone-convex']) {
+    it(`two turns, quarter end and year end, each solved from its own quote: 5 and 10 bp come back and every quote reprices (${method})`, () => {
+      // A deposit to 2022-10-14 spans quarter end 2022-09-30 (a Friday: 3 days); the OIS to 2023-01-17 spans year end.
+      const quotes = [...LADDER.slice(0, 2), { kind: 'deposit', maturity: '2022-10-14', rate: 0.01 }, ...LADDER.slice(2)];
+      const quarter = { name: 'quarter end', from: '2022-09-30', to: '2022-09-30', calendar: 'us-gov-securities' };
+      const given = [{ ...quarter, spreadBp: 5 }, { ...TURN, spreadBp: 10 }];
+      const d = market('2022-03-01', method, quotes);
+      const all = built({ ...d, turns: given });
+      const others = built({ ...d, quotes: quotes.map((q, i) => (i === 2 || i === 4 ? { ...q, enabled: false } : q)), turns: given });
+      const valued = quotes.map((q, i) => {
+        if (i !== 2 && i !== 4) return q;
+        const ins = all.instruments.find((x) => x.index === i)!;
+        return { ...q, [ins.field]: ins.modelQuote(others.curve!.lnDiscountAt) };
+      });
+      const b = built({ ...d, quotes: valued, turns: [{ ...quarter, solveFrom: 2 }, { ...TURN, solveFrom: 4 }] });
+      expectReprices(b, `two solved turns, ${method}`);
+      expectClose(b.overnight!.turns[0]!.spread * 1e4, 5, 1e-9, 'quarter end: the 5 bp the deposit was made with');
+      expectClose(b.overnight!.turns[1]!.spread * 1e4, 10, 1e-9, 'year end: the 10 bp the OIS was made with');
+    });
+  }
+
   it('with meeting steps on too: the spanning quote is no node of its meeting period, and every quote reprices', () => {
     const steps = { meetingSteps: { on: true, effectiveDates: ['2022-03-17', '2022-11-03', '2022-12-15', '2023-07-27'] } };
     const quotes = [
