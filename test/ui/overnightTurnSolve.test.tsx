@@ -99,7 +99,7 @@ describe('OvernightTab: a turn solved from a sheet row', () => {
     render(<Live />);
     fireEvent.change(picker(), { target: { value: 'r1' } });
     act(() => s().deleteRow('r1'));
-    expect(screen.getByRole('alert')).toHaveTextContent('turns[0].solveFrom (year end 2022) must be a quote\'s position in quotes (0 for the first), not null (a row empty, wrong or removed)');
+    expect(screen.getByRole('alert')).toHaveTextContent('No curve: turn "year end 2022" (turns[0]) is solved from quotes[null], no quote of the curve (past the list, left out, or a row empty or removed)');
     expect(s().workspace.turns![0]!.solveFromRow).toBe('r1');
     expect(within(picker()).getByRole('option', { name: 'a removed row' })).toBeTruthy();
   });
@@ -117,6 +117,12 @@ describe('OvernightTab: a turn solved from a sheet row', () => {
     expect(engine.turns).toEqual([{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', calendar: 'weekends', solveFrom: 1 }]);
     let n = 0;
     const back = workbenchFromEngine(engine, () => `b${n++}`);
-    expect(back.ok && back.value.turns).toEqual([{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', calendar: 'weekends', solveFromRow: 'b1' }]);
+    expect(back.ok && back.value.turns).toStrictEqual([{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', calendar: 'weekends', solveFromRow: 'b1' }]);
+    // An engine file naming a position past its quotes opens with the turn kept (nothing lost); its row is none, which the build refuses naming the turn.
+    const { spreadBp: _s, ...turn } = ENGINE.turns[0]!;
+    const past = workbenchFromEngine({ ...ENGINE, turns: [{ ...turn, solveFrom: 7 }] }, () => `p${n++}`);
+    expect(past.ok && past.value.turns).toStrictEqual([{ ...turn, solveFromRow: '' }]);
+    const pastBuild = buildCurve(toEngineDocument(past.ok ? past.value : s().workspace).doc, { overnight: OVERNIGHT_KIT });
+    expect(pastBuild.errors[0]!.path).toBe('turns[0].solveFrom');
   });
 });

@@ -54,7 +54,7 @@ export function solveTurnSpreads(given: BootstrapSettings, market: readonly Inst
     // The quote's period: from its first flow when its target is read off the curve (a forward
     // start), else from the valuation date, to its pillar.
     if (ins && span.a >= (ins.targetFromFlows ? ins.times[0]! : 0) && span.b <= ins.t) solved.push([k, ins]);
-    else errors.push(turnError('range', span, ins, ins ? `its period does not hold every day of the turn, ${span.start} to ${span.end}; pick a quote over both` : 'that quote is left out (a duplicate pillar)'));
+    else errors.push(turnError('range', span, ins, ins ? `its period does not hold every day of the turn, ${span.start} to ${span.end}; pick a quote over both` : 'it is left out (a duplicate pillar)'));
   });
   const rest = market.filter((ins) => !solved.some((s) => s[1] === ins));
   if (rest.length === 0) errors.push(turnError('no-solution', spans[solved[0]![0]]!, solved[0]![1], 'no other quote is left to build from'));
@@ -85,7 +85,7 @@ export function solveTurnSpreads(given: BootstrapSettings, market: readonly Inst
       );
       if (!x.ok) {
         const why = outcome.curve ? '' : `; no curve at the last: ${outcome.errors[0]?.message}`;
-        return failed([turnError('no-solution', span, ins, `no spread from ${bp(Math.max(lo, -max))} to ${bp(Math.min(hi, max))} reprices it (another quote over the turn may take it up)${why}`)]);
+        return failed([turnError('no-solution', span, ins, `no spread from ${bp(Math.max(lo, -max))} to ${bp(Math.min(hi, max))} reprices it${why}`)]);
       }
       spans = at(x.x);
       outcome = bootstrap({ ...given, turns: spans }, rest);

@@ -48,7 +48,7 @@ export interface TurnSpan {
   /** ln of the full jump, -spread x days / 360. */
   readonly lnJump: number;
   /** The quote (its index) that sets the spread (bootstrap/turnSolve.ts); undefined when the user set it. */
-  readonly solveFrom?: number | undefined;
+  readonly solveFrom?: number | null | undefined;
 }
 
 /** The span with another spread (decimal): the jump follows. */
@@ -99,10 +99,9 @@ export function resolveTurns(
     }
     const q = turn.solveFrom;
     if (q !== undefined) {
-      // The quote must be in the market: switched on and read without error.
       // It must be a quote of the market (read without error, switched on) of a kind that can carry a turn.
       const quote = quotes.find((x) => x.index === q);
-      const why = !quote ? 'no quote of the curve (past the list, or left out)' : !quote.enabled ? 'switched off' : kindModule(quote.kind).turnSpread ? null : `a ${quote.kind}, which cannot carry a turn (a deposit, FRA, future or OIS can)`;
+      const why = !quote ? 'no quote of the curve (past the list, left out, or a row empty or removed)' : !quote.enabled ? 'switched off' : kindModule(quote.kind).turnSpread ? null : `a ${quote.kind}, which cannot carry a turn (a deposit, FRA, future or OIS can)`;
       if (why) {
         errors.push(coreError('no-solution', `${path}.solveFrom`, `turn "${turn.name}" (${path}) is solved from quotes[${q}], ${why}; pick a quote over the turn, or give its spread in bp`));
         return;

@@ -249,9 +249,10 @@ export interface Turn {
   /**
    * The quote whose value sets the spread, by its position in the document's `quotes` (0 for the
    * first, as in `quotes[i]`); absent exactly when `spreadBp` is given. That quote's period must
-   * hold every day of the turn; it is then no node of the curve (bootstrap/turnSolve.ts).
+   * hold every day of the turn; it is then no node of the curve (bootstrap/turnSolve.ts). Null:
+   * no quote (a workbench row that gives none), which the build refuses naming the turn.
    */
-  readonly solveFrom?: number;
+  readonly solveFrom?: number | null;
   readonly calendar?: string;
 }
 

@@ -240,14 +240,17 @@ describe('a solved turn: errors naming the turn and the quote', () => {
     expect(two.errors.map((e) => [e.path, e.message])).toEqual([['turns[1].solveFrom', 'turns[1] (again) and turns[0] are both solved from quotes[1]; one quote sets one spread']]);
     const both = validateWorkspace(doc(deposits(), [{ ...YEAR_END, spreadBp: 5, solveFrom: 1 }]));
     expect(both.errors[0]!.path).toBe('turns[0].spreadBp');
-    const neither = validateWorkspace(doc(deposits(), [{ ...YEAR_END, solveFrom: -1 }]));
-    expect(neither.errors[0]!.path).toBe('turns[0].solveFrom');
+    const negative = validateWorkspace(doc(deposits(), [{ ...YEAR_END, solveFrom: -1 }]));
+    expect(negative.errors[0]!.path).toBe('turns[0].solveFrom');
+    // null (a workbench row that gives no quote) is read, and refused by the build naming the turn.
+    expect(validateWorkspace(doc(deposits(), [{ ...YEAR_END, solveFrom: null }])).errors).toEqual([]);
+    expect(build(doc(deposits(), [{ ...YEAR_END, solveFrom: null }])).errors[0]!.message).toContain('turn "year end 2022" (turns[0]) is solved from quotes[null], no quote of the curve');
   });
 
   it('a position past the list, or a kind that cannot carry a turn (a zero), is an error naming the turn and quote', () => {
     const past = build(doc(deposits(), [{ ...YEAR_END, solveFrom: 3 }]));
     expect(past.curve).toBeNull();
-    expect(past.errors[0]!.message).toBe('turn "year end 2022" (turns[0]) is solved from quotes[3], no quote of the curve (past the list, or left out); pick a quote over the turn, or give its spread in bp');
+    expect(past.errors[0]!.message).toBe('turn "year end 2022" (turns[0]) is solved from quotes[3], no quote of the curve (past the list, left out, or a row empty or removed); pick a quote over the turn, or give its spread in bp');
     const zero = build(doc([...deposits(), { kind: 'zero', maturity: '2023-06-15', rate: 0.04 }], [{ ...YEAR_END, solveFrom: 3 }]));
     expect(zero.curve).toBeNull();
     expect(zero.errors[0]!.path).toBe('turns[0].solveFrom');
@@ -273,7 +276,7 @@ describe('a solved turn: errors naming the turn and the quote', () => {
     const b = build({ ...doc(quotes, [{ ...YEAR_END, solveFrom: 1 }]), valuationDate: '2022-12-29' });
     expect(b.curve).toBeNull();
     expect(b.errors[0]!.code).toBe('no-solution');
-    expect(b.errors[0]!.message).toBe('turn "year end 2022" (turns[0]) solved from quotes[1] (deposit 2023-01-17): no spread from 0 bp to 1000 bp reprices it (another quote over the turn may take it up); or give the spread in bp');
+    expect(b.errors[0]!.message).toBe('turn "year end 2022" (turns[0]) solved from quotes[1] (deposit 2023-01-17): no spread from 0 bp to 1000 bp reprices it; or give the spread in bp');
   });
 
   it('a turn solved from the last quote, with no quote after it, is the turn past the curve', () => {
