@@ -204,7 +204,7 @@ function Turns({ build }: { build: CurveBuild }) {
   return (
     <section aria-label="Turns">
       <h3>Turns</h3>
-      <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only. Or solve it from a quote over the turn (then no node).</p>
+      <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only. Or solve it from a quote spanning the turn.</p>
       <EditLock>
         {turns.length > 0 && (
           <div className="table-scroll">
