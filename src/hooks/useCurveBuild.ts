@@ -87,8 +87,8 @@ export function deriveBuild(
   const disabledCount = ws.quotes.filter((r) => !r.enabled).length;
   let fatal: string | null = null;
   if (!build.curve) {
-    const docError = build.errors.find((e) => e.quote === null);
-    fatal = docError ? docError.message : build.errors[0]?.message.replace(/quotes\[(\d+)\]/g, (_, q: string) => `row ${(conversion.rowOfQuote[Number(q)] ?? 0) + 1}`) ?? 'no curve';
+    // A document's error first; the engine's quotes[i] is the sheet's row rowOfQuote[i] + 1 (in a document's error too: a turn solved from a quote).
+    fatal = (build.errors.find((e) => e.quote === null) ?? build.errors[0])?.message.replace(/quotes\[(\d+)\]/g, (_, q: string) => `row ${(conversion.rowOfQuote[Number(q)] ?? 0) + 1}`) ?? 'no curve';
   }
   return { conversion, build, rowIssues, invalidCount: conversion.invalidRows + engineInvalid, disabledCount, fatal };
 }

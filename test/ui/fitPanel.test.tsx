@@ -18,6 +18,8 @@ describe('FitPanel', () => {
     render(<FitPanel workspace={ws} />);
     const panel = screen.getByRole('region', { name: 'Smooth fit' });
     expect(within(panel).getByRole('status')).toHaveTextContent(/Nelson-Siegel fit converged/);
+    // fitCurve works on the quotes without turns and meeting steps: said on screen.
+    expect(panel).toHaveTextContent('Turns and meeting steps are left out.');
     const params = within(panel).getByRole('table', { name: 'Fitted parameters' });
     expect(params).toHaveTextContent('τ1 (years)');
     expect(params).toHaveTextContent('cont, ACT/365F');

@@ -36,7 +36,7 @@ export interface BootstrapOutcome {
   readonly curve: Curve | null;
   readonly errors: readonly CoreError[];
   readonly warnings: readonly CoreWarning[];
-  /** One entry per instrument, in the order given. Empty when the bootstrap failed. */
+  /** One entry per instrument, in the order given (a quote that sets a turn's spread last). Empty when the bootstrap failed. */
   readonly repricing: readonly Repricing[];
   /** Gauss-Seidel sweeps used (0 for local methods). */
   readonly sweeps: number;
@@ -91,6 +91,14 @@ export const acceptanceBound = (unit: QuoteUnit): number => (unit === 'price' ? 
  * Each stage solves its nodes with the one solver its method allows (see nodeSolverFor).
  */
 export function bootstrapInstruments(given: BootstrapSettings, market: readonly Instrument[]): BootstrapOutcome {
+  // A turn solved from a quote (turnSolve.ts, in the kit): that quote is no node; the kit solves
+  // the spread around bootstrapTurned of the other quotes.
+  if (given.kit && given.turns?.some((s) => s.solveFrom !== undefined)) return given.kit.solveTurnSpreads(given, market, bootstrapTurned);
+  return bootstrapTurned(given, market);
+}
+
+/** bootstrapInstruments with every turn's spread as it stands. */
+function bootstrapTurned(given: BootstrapSettings, market: readonly Instrument[]): BootstrapOutcome {
   // Turns and meeting steps (absent: nothing below changes). The turns must end by the last
   // pillar; the step rule decides each instrument's node.
   const spans = given.turns ?? [];
@@ -370,7 +378,7 @@ function guess(instruments: readonly Instrument[], ts: readonly number[], ys: re
 }
 
 /** The repricing rows of instruments given their model quotes. */
-function repricingRows(instruments: readonly Instrument[], models: readonly number[]): Repricing[] {
+export function repricingRows(instruments: readonly Instrument[], models: readonly number[]): Repricing[] {
   const rows = new Array<Repricing>(instruments.length);
   for (let i = 0; i < instruments.length; i++) {
     const ins = instruments[i]!;

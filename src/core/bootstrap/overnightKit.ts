@@ -11,6 +11,8 @@ import type { IsoDate } from '../time/date.ts';
 import type { BootstrapSettings } from './bootstrap.ts';
 import { stepNodes, type MeetingNode, type StepNodes } from './meetingSteps.ts';
 import { resolveTurns, turnForward, turnLn, turnsBeyond, withTurns, type TurnCalendars, type TurnSpan } from './turns.ts';
+import { solveTurnSpreads, type TurnedBootstrap } from './turnSolve.ts';
+import type { BootstrapOutcome } from './bootstrap.ts';
 
 export interface OvernightKit {
   /** The bootstrap settings with the workspace's turns and (steps on) effective dates, or the errors naming them. */
@@ -21,6 +23,8 @@ export interface OvernightKit {
   readonly turnLn: (spans: readonly TurnSpan[], t: number) => number;
   readonly turnForward: (spans: readonly TurnSpan[], t: number) => number;
   readonly stepNodes: (instruments: readonly Instrument[], meetings: readonly MeetingNode[], settlement: IsoDate) => StepNodes | CoreError[];
+  /** The curve with each turn that names a quote (`solveFrom`) solved from it (turnSolve.ts), around `bootstrap`. */
+  readonly solveTurnSpreads: (given: BootstrapSettings, market: readonly Instrument[], bootstrap: TurnedBootstrap) => BootstrapOutcome;
 }
 
 /**
@@ -37,4 +41,4 @@ function settingsFor(ws: Workspace, plain: BootstrapSettings, time: (date: IsoDa
   return { settings, errors };
 }
 
-export const OVERNIGHT_KIT: OvernightKit = { settingsFor, withTurns, turnsBeyond, turnLn, turnForward, stepNodes };
+export const OVERNIGHT_KIT: OvernightKit = { settingsFor, withTurns, turnsBeyond, turnLn, turnForward, stepNodes, solveTurnSpreads };

@@ -20,6 +20,7 @@
 import type { Instrument } from '../instruments/instrument.ts';
 import type { Quote, Turn } from '../document/types.ts';
 import { coreError, type CoreError } from '../result.ts';
+import { kindModule } from '../kinds/registry.ts';
 import type { CalendarOutcome } from '../time/calendars.ts';
 import type { IsoDate } from '../time/date.ts';
 import { turnDays, type CalendarLimits } from '../time/turnDays.ts';
@@ -46,6 +47,13 @@ export interface TurnSpan {
   readonly b: number;
   /** ln of the full jump, -spread x days / 360. */
   readonly lnJump: number;
+  /** The quote (its index) that sets the spread (bootstrap/turnSolve.ts); undefined when the user set it. */
+  readonly solveFrom?: number | null | undefined;
+}
+
+/** The span with another spread (decimal): the jump follows. */
+export function withSpread(span: TurnSpan, spread: number): TurnSpan {
+  return { ...span, spread, lnJump: (-spread * span.days) / 360 };
 }
 
 /** The calendar a turn's business days are read on: its own, else the first enabled quote's, else weekends. */
@@ -89,10 +97,21 @@ export function resolveTurns(
       errors.push(coreError('before-settlement', `${path}.from`, `turn "${turn.name}" (${path}) starts on ${days.start}, before the valuation date ${settlement}; move it on or after ${settlement} or remove it`));
       return;
     }
+    const q = turn.solveFrom;
+    if (q !== undefined) {
+      // It must be a quote of the market (read without error, switched on) of a kind that can carry a turn.
+      const quote = quotes.find((x) => x.index === q);
+      const why = !quote ? 'no quote of the curve (past the list, left out, or a row empty or removed)' : !quote.enabled ? 'switched off' : kindModule(quote.kind).turnSpread ? null : `a ${quote.kind}, which cannot carry a turn (a deposit, FRA, future or OIS can)`;
+      if (why) {
+        errors.push(coreError('no-solution', `${path}.solveFrom`, `turn "${turn.name}" (${path}) is solved from quotes[${q}], ${why}; pick a quote over the turn, or give its spread in bp`));
+        return;
+      }
+    }
     const a = time(days.start);
     const b = time(days.end);
-    const spread = turn.spreadBp / 1e4;
-    spans.push({ index, name: turn.name, start: days.start, end: days.end, days: days.days, spread, a, b, lnJump: (-spread * days.days) / 360 });
+    // A solved turn starts at 0 bp; turnSolve.ts sets it.
+    const spread = q === undefined ? turn.spreadBp! / 1e4 : 0;
+    spans.push({ index, name: turn.name, start: days.start, end: days.end, days: days.days, spread, a, b, lnJump: (-spread * days.days) / 360, solveFrom: q });
   });
   // Overlapping turns add their spreads; nothing to refuse.
   return { spans, errors };

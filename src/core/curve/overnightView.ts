@@ -112,3 +112,11 @@ export function overnightForwardView(build: Pick<CurveBuild, 'curve' | 'overnigh
   const turns = (shape?.turns ?? []).filter((s) => s.a < endT).map((s) => ({ name: s.name, start: s.start, end: s.end, a: s.a, b: s.b, spreadBp: s.spread * 1e4 }));
   return { points, end, endT, meetings, turns };
 }
+
+/**
+ * Each turn's spread on the built curve (empty without a curve): `index` in the document's turns
+ * and `spreadBp` in bp (simple ACT/360, added to each of its days' overnight rate; solved from a
+ * quote by bootstrap/turnSolve.ts when its span names one).
+ */
+export const turnSpreads = (build: Pick<CurveBuild, 'overnight'>): readonly { readonly index: number; readonly spreadBp: number }[] =>
+  (build.overnight?.turns ?? []).map((s) => ({ index: s.index, spreadBp: s.spread * 1e4 }));

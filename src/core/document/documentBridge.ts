@@ -110,7 +110,14 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string, readCurv
   if (doc.calendars !== undefined && Object.keys(doc.calendars as object).length > 0) out.calendars = doc.calendars;
   if (doc.customCalendars !== undefined && Object.keys(doc.customCalendars as object).length > 0) out.customCalendars = doc.customCalendars;
   if (doc.fixings !== undefined && Object.keys(doc.fixings as object).length > 0) out.fixings = doc.fixings;
-  if (Array.isArray(doc.turns) && doc.turns.length > 0) out.turns = doc.turns;
+  // A turn solved from quotes[i] names that quote's row by its id in the workbench (a position past
+  // the quotes, no row: the build refuses it naming the turn).
+  if (Array.isArray(doc.turns) && doc.turns.length > 0)
+    out.turns = (doc.turns as Record<string, unknown>[]).map((t) => {
+      if (typeof t.solveFrom !== 'number') return t;
+      const { solveFrom, ...rest } = t;
+      return { ...rest, solveFromRow: rows[solveFrom]?.id ?? '' };
+    });
   if (doc.meetingSteps !== undefined) out.meetingSteps = doc.meetingSteps;
   // Named curves (read by `readCurves`) are kept as the file gives them: the workbench shows them and writes them back unchanged.
   if (Array.isArray(doc.curves)) out.curves = doc.curves;

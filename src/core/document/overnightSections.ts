@@ -1,7 +1,7 @@
 /**
  * The workspace's overnight-curve sections (document version 2, both optional): `turns`, a list of
- * turns `{name, from, to, spreadBp, calendar?}`, and `meetingSteps`, `{on, effectiveDates}`. Absent,
- * the curve is built exactly as before. Each error names its path and says what would be valid.
+ * turns `{name, from, to, spreadBp, calendar?}` (or `solveFrom`, a quote's position, in place of
+ * `spreadBp`), and `meetingSteps`, `{on, effectiveDates}`. Absent, the curve is built exactly as before. Each error names its path and says what would be valid.
  */
 import { coreError, type CoreError } from '../result.ts';
 import { compareIso, parseIsoDate, type IsoDate } from '../time/date.ts';
@@ -15,7 +15,7 @@ export const MAX_TURNS = 60;
 export const MAX_EFFECTIVE_DATES = 400;
 /** A turn's spread in bp lies within plus or minus this. */
 export const TURN_SPREAD_MAX_BP = 1000;
-const TURN_KEYS = ['name', 'from', 'to', 'spreadBp', 'calendar'];
+const TURN_KEYS = ['name', 'from', 'to', 'spreadBp', 'solveFrom', 'calendar'];
 const STEP_KEYS = ['on', 'effectiveDates'];
 
 const isDate = (v: unknown): v is IsoDate => typeof v === 'string' && parseIsoDate(v) !== null;
@@ -41,7 +41,7 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
     }
     const before = errors.length;
     for (const key of Object.keys(v)) {
-      if (!TURN_KEYS.includes(key)) errors.push(coreError('schema', `${path}.${key.slice(0, 40)}`, `${path}: unknown field "${key.slice(0, 40)}"; a turn has name, from, to, spreadBp and optionally calendar`));
+      if (!TURN_KEYS.includes(key)) errors.push(coreError('schema', `${path}.${key.slice(0, 40)}`, `${path}: unknown field "${key.slice(0, 40)}"; a turn has name, from, to, spreadBp or solveFrom, and optionally calendar`));
     }
     const name = typeof v.name === 'string' ? v.name.trim() : '';
     if (name === '' || name.length > LIMITS.setting) errors.push(coreError('schema', `${path}.name`, `${path}.name must be a text of 1 to ${LIMITS.setting} characters (such as "year end 2027"), not ${typeName(v.name)}`));
@@ -53,7 +53,17 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
       errors.push(coreError('range', `${path}.to`, `${path} (${name || 'turn'}): to ${v.to} is before from ${v.from}; give the last day on or after the first`));
     }
     const s = v.spreadBp;
-    if (typeof s !== 'number' || !Number.isFinite(s) || Math.abs(s) > TURN_SPREAD_MAX_BP) {
+    const q = v.solveFrom;
+    if (q !== undefined) {
+      // The spread solved from a quote (bootstrap/turnSolve.ts): its position, never both.
+      if (s !== undefined) errors.push(coreError('schema', `${path}.spreadBp`, `${path} gives both spreadBp and solveFrom; keep one`));
+      else if (q !== null && (typeof q !== 'number' || !Number.isInteger(q) || q < 0)) {
+        errors.push(coreError('schema', `${path}.solveFrom`, `${path}.solveFrom (${name}) must be a quote's position in quotes (0 for the first), not ${typeName(q)}`));
+      } else if (q !== null) {
+        const other = raw.findIndex((t, j) => j < i && isPlainObject(t) && t.solveFrom === q);
+        if (other >= 0) errors.push(coreError('schema', `${path}.solveFrom`, `${path} (${name}) and turns[${other}] are both solved from quotes[${q}]; one quote sets one spread`));
+      }
+    } else if (typeof s !== 'number' || !Number.isFinite(s) || Math.abs(s) > TURN_SPREAD_MAX_BP) {
       errors.push(coreError('range', `${path}.spreadBp`, `${path}.spreadBp must be a number of basis points from -${TURN_SPREAD_MAX_BP} to ${TURN_SPREAD_MAX_BP} (such as 10), not ${typeName(s)}`));
     }
     if (v.calendar !== undefined && (typeof v.calendar !== 'string' || v.calendar === '' || v.calendar.length > LIMITS.setting)) {
@@ -61,7 +71,7 @@ export function readTurns(raw: unknown, errors: CoreError[]): readonly Turn[] | 
     }
     if (errors.length > before) return;
     names.add(name);
-    const turn: Turn = { name, from: v.from as IsoDate, to: v.to as IsoDate, spreadBp: s as number };
+    const turn: Turn = q === undefined ? { name, from: v.from as IsoDate, to: v.to as IsoDate, spreadBp: s as number } : { name, from: v.from as IsoDate, to: v.to as IsoDate, solveFrom: q as number | null };
     out.push(v.calendar === undefined ? turn : { ...turn, calendar: v.calendar as string });
   });
   return out;

@@ -233,7 +233,8 @@ export interface CurveSettings {
 }
 
 /**
- * A turn (year end, quarter end): an extra overnight spread `spreadBp` (bp, simple ACT/360) on the
+ * A turn (year end, quarter end): an extra overnight spread `spreadBp` (bp, simple ACT/360), or one
+ * solved from the quote `solveFrom` that spans it, on the
  * overnight periods that start on a business day from `from` to `to` (both inclusive) of
  * `calendar` (absent: the first enabled quote's calendar, else `weekends`). Each such period runs to
  * the next business day, so the turn covers the calendar days from the first business day on or
@@ -243,7 +244,15 @@ export interface Turn {
   readonly name: string;
   readonly from: IsoDate;
   readonly to: IsoDate;
-  readonly spreadBp: number;
+  /** The spread set by the user; absent exactly when `solveFrom` is given. */
+  readonly spreadBp?: number;
+  /**
+   * The quote whose value sets the spread, by its position in the document's `quotes` (0 for the
+   * first, as in `quotes[i]`); absent exactly when `spreadBp` is given. That quote's period must
+   * hold every day of the turn; it is then no node of the curve (bootstrap/turnSolve.ts). Null:
+   * no quote (a workbench row that gives none), which the build refuses naming the turn.
+   */
+  readonly solveFrom?: number | null;
   readonly calendar?: string;
 }
 

@@ -84,8 +84,12 @@ export interface WorkbenchDocument {
   readonly customCalendars?: Readonly<Record<string, CustomCalendar>>;
   /** Overnight rates (decimals) by past business day, for futures in their reference period (the engine document's `fixings`, as is). */
   readonly fixings?: Readonly<Record<string, number>>;
-  /** Turns on the overnight curve (the engine document's `turns`, as is; absent: none). */
-  readonly turns?: readonly Turn[];
+  /**
+   * Turns on the overnight curve (the engine document's `turns`, but a turn solved from a quote
+   * names its sheet row by id, `solveFromRow`, so adding or removing rows above it keeps it on its
+   * quote; absent: none). See WorkbenchTurn.
+   */
+  readonly turns?: readonly WorkbenchTurn[];
   /** Policy effective dates and whether the curve steps on them (the engine document's `meetingSteps`, as is). */
   readonly meetingSteps?: MeetingSteps;
   /**
@@ -133,6 +137,31 @@ export interface EngineConversion {
   readonly blankRows: number;
   /** Settings of the workbench document that take no effect in the engine document, each said as a warning (a joined calendar without market conventions). */
   readonly notes: readonly CoreWarning[];
+}
+
+/**
+ * A turn in the workbench document: the engine's Turn, but solved from a sheet row named by its id
+ * (`solveFromRow`) rather than from a quote position. A turn solved from a row may keep the spread
+ * the user gave before (`spreadBp`), so switching back to a given spread loses nothing; the
+ * engine document then gets `solveFrom` alone.
+ */
+export interface WorkbenchTurn extends Omit<Turn, 'solveFrom'> {
+  readonly solveFromRow?: string;
+}
+
+/**
+ * The engine's turns of a workbench document: `solveFromRow` becomes `solveFrom`, the position of
+ * that row's quote among the engine document's quotes (`rowOfQuote[i]` is quote i's row), or null
+ * when the row gives no quote (empty, a wrong cell, or removed), which the engine refuses naming
+ * the turn; a turn set by the user is passed as is.
+ */
+export function engineTurns(turns: readonly WorkbenchTurn[], rowIds: readonly string[], rowOfQuote: readonly number[]): readonly (Turn | Record<string, unknown>)[] {
+  return turns.map((t) => {
+    if (t.solveFromRow === undefined) return t;
+    const { solveFromRow, spreadBp: _given, ...rest } = t;
+    const q = rowOfQuote.indexOf(rowIds.indexOf(solveFromRow));
+    return { ...rest, solveFrom: q < 0 ? null : q };
+  });
 }
 
 /**
@@ -188,7 +217,7 @@ export function toEngineDocument(
     ...(doc.calendars !== undefined && Object.keys(doc.calendars).length > 0 ? { calendars: doc.calendars } : {}),
     ...(doc.customCalendars !== undefined && Object.keys(doc.customCalendars).length > 0 ? { customCalendars: doc.customCalendars } : {}),
     ...(doc.fixings !== undefined && Object.keys(doc.fixings).length > 0 ? { fixings: doc.fixings } : {}),
-    ...(doc.turns !== undefined && doc.turns.length > 0 ? { turns: doc.turns } : {}),
+    ...(doc.turns !== undefined && doc.turns.length > 0 ? { turns: engineTurns(doc.turns, doc.quotes.map((r) => r.id), rowOfQuote) } : {}),
     ...(doc.meetingSteps !== undefined ? { meetingSteps: doc.meetingSteps } : {}),
     curve,
     quotes,

@@ -85,6 +85,7 @@ export const DEPOSIT: QuoteKindModule<DepositQuote> = {
   paste: { kindWords: ['depo', 'deposits'], headerWords: {} },
   compile: (q, settlement, _s, _m, t, time) => compileDeposit(q, settlement, t, time),
   moneyMarketTerms: true,
+  turnSpread: true,
   curves: DISCOUNTING,
   nodeRole: 'discount',
   onProjection: () => 'ratio',

@@ -37,6 +37,7 @@ export function parseFraPeriod(text: string): { readonly a: number; readonly b: 
 export const FRA: QuoteKindModule<FraQuote> = {
   kind: 'fra',
   ownDates: true,
+  turnSpread: true,
   schema: {
     fields: ['rate', 'period', 'index', 'dayCount', 'calendar', 'spotLag', 'businessDay', 'eom'],
     defaults: { dayCount: 'ACT/360' },

@@ -36,6 +36,7 @@ export const futureName = (contract: string, month: string | null, start: IsoDat
 export const FUTURE: QuoteKindModule<FutureQuote> = {
   kind: 'future',
   ownDates: true,
+  turnSpread: true,
   schema: {
     fields: ['price', 'contract', 'month', 'start', 'end', 'convexity', 'calendar', 'fixings'],
     defaults: {},

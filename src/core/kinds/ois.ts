@@ -31,6 +31,7 @@ const FLOAT_DAY_COUNTS: readonly DayCount[] = ['ACT/360', 'ACT/365F'];
  */
 export const OIS: QuoteKindModule<OisQuote> = {
   kind: 'ois',
+  turnSpread: true,
   schema: {
     fields: ['rate', 'frequency', 'dayCount', 'floatDayCount', 'calendar', 'spotLag', 'businessDay', 'eom', 'paymentLag'],
     defaults: { frequency: 1, dayCount: 'ACT/360' },

@@ -179,6 +179,13 @@ export interface QuoteKindModule<Q extends Quote = Quote> {
   readonly moneyMarketTerms?: boolean;
 
   /**
+   * Optional: true when a quote of the kind can set a turn's spread (`turns[i].solveFrom`;
+   * bootstrap/turnSolve.ts): a money-market quote whose value the overnight rates over its period
+   * set (deposit, FRA, future, OIS). Absent: a turn solved from it is refused naming the quote.
+   */
+  readonly turnSpread?: true;
+
+  /**
    * Optional: how a quote of the kind builds a projection curve (a named curve of role
    * projection; bootstrap/namedCurveBuild.ts): `ratio` when its value is a ratio of that curve's
    * own discount factors (a deposit, a future; compiled as on one curve), `index-swap` when it is

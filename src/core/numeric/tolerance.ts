@@ -68,3 +68,10 @@ export const SPOT_BRIDGE_ROUNDING_ULPS = 4;
  * leave the first pillar's node, so closer is rounding noise a secant only wanders in).
  */
 export const SPOT_BRIDGE_TOLERANCE = 1e-16;
+
+/**
+ * A turn solved from a quote (bootstrap/turnSolve.ts): at most this many rounds over the solved
+ * turns, each solved in turn with the others held, until every spanning quote reprices within its
+ * acceptance bound (each turn's spread is solved by solveNode, with its own limits above).
+ */
+export const TURN_SOLVE_ROUNDS = 20;

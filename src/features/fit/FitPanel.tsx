@@ -103,7 +103,7 @@ export function FitPanel(props: FitPanelProps) {
       </div>
       <p className="muted">
         Zero rate y(t) <span className="tag">{zeroTag}</span>, DF = e^(−y t); bounds {TAU_MIN} ≤ τ ≤ {TAU_MAX} years
-        {model === 'svensson' ? `, τ2 ≥ ${TAU_RATIO_MIN} × τ1` : ''}; b0 may be negative.
+        {model === 'svensson' ? `, τ2 ≥ ${TAU_RATIO_MIN} × τ1` : ''}; b0 may be negative. Turns and meeting steps are left out.
       </p>
       {!ws && <p role="status">No valid workspace to fit yet.</p>}
       {ws && model === 'none' && <p role="status">No fit chosen: the exact bootstrap is the curve.</p>}

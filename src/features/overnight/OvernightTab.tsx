@@ -10,8 +10,13 @@ import {
   readMeetingSteps,
   readTurnLines,
   readTurns,
+  engineTurns,
+  formatBp,
+  turnSpreads,
   type CoreError,
-  type Turn,
+  type CurveBuild,
+  type QuoteRow,
+  type WorkbenchTurn,
 } from '../../core/index.ts';
 import { EditLock } from '../../components/EditLock.tsx';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
@@ -20,7 +25,7 @@ import { ListStatus, notTaken, problemText } from '../../components/pastedList.t
 import { OvernightChart } from './OvernightChart.tsx';
 
 const OVERNIGHT_TAG = rateTag('simple', 'ACT/360');
-const NO_TURNS: readonly Turn[] = [];
+const NO_TURNS: readonly WorkbenchTurn[] = [];
 const NO_DATES: readonly string[] = [];
 
 /**
@@ -43,7 +48,7 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
         The curve&rsquo;s one-day forward rates ({OVERNIGHT_TAG}), with the policy effective dates it can step on and the turns that lift single days. An analysis aid, not investment advice: check the dates and spreads against official sources.
       </p>
       <MeetingDates />
-      <Turns />
+      <Turns build={build} />
       {fatal !== null && (
         <div role="alert" className="error">
           <p>No curve: {fatal}</p>
@@ -153,21 +158,34 @@ function MeetingDates() {
 /** The dates as the engine reads them (its errors name what is wrong), or null. */
 const readMeetingStepsChecked = (on: boolean, dates: readonly string[], errors: CoreError[]) => readMeetingSteps({ on, effectiveDates: dates }, errors) ?? null;
 
-/** The turns: a table with each one's days and spread, a remove button, and lines to add. */
-function Turns() {
+/** The turns as the engine reads them (solved ones on a stand-in quote position per row, so two naming one row are caught); its errors, or none. */
+function checkTurns(turns: readonly WorkbenchTurn[], rows: readonly QuoteRow[]): CoreError[] {
+  const errors: CoreError[] = [];
+  const ids = rows.map((r) => r.id);
+  readTurns(engineTurns(turns, ids, ids.map((_, i) => i)), errors);
+  return errors;
+}
+
+/** Sheet row i in words: "row 3 (deposit 2023-01-17)". */
+const rowWords = (r: QuoteRow, i: number): string => `row ${i + 1} (${`${r.kind} ${r.maturity}`.trim()})`;
+
+/** The turns: a table with each one's days and spread (given, or solved from a sheet row), a remove button, and lines to add. */
+function Turns({ build }: { build: CurveBuild }) {
   const turns = useAppStore((s) => s.workspace.turns) ?? NO_TURNS;
+  const rows = useAppStore((s) => s.workspace.quotes);
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
   const [list, setList] = useState('');
   const [message, setMessage] = useState<string | null>(null);
+  const spreads = useMemo(() => turnSpreads(build), [build]);
   const add = (): void => {
     const r = readTurnLines(list, dateOrder);
     if (r.turns.length === 0) {
       setMessage(`Not added: no line read as a turn${notTaken(r.problems.map(problemText))}.`);
       return;
     }
-    const errors: CoreError[] = [];
-    const next = readTurns([...turns, ...r.turns], errors);
-    if (!next || errors.length > 0) {
+    const next = [...turns, ...r.turns];
+    const errors = checkTurns(next, rows);
+    if (errors.length > 0) {
       // Paths turns[i] of the new ones are the pasted lines' order after the saved turns.
       const named = errors.map((e) => e.message.replace(/turns\[(\d+)\]/g, (_, i: string) => (Number(i) < turns.length ? `saved turn ${Number(i) + 1}` : `pasted turn ${Number(i) - turns.length + 1}`)));
       setMessage(`Not added: ${named.join('; ')}.`);
@@ -177,10 +195,16 @@ function Turns() {
     setMessage(`Added ${r.turns.length} ${r.turns.length === 1 ? 'turn' : 'turns'}${notTaken(r.problems.map(problemText))}.`);
     if (r.problems.length === 0) setList('');
   };
+  /** Sets how turn i's spread is found: `given` (the spread typed before, kept while it was solved; 0 bp for a turn that never had one), or solved from the sheet row with that id. */
+  const setSource = (i: number, source: string): void => {
+    const { solveFromRow: _row, ...t } = turns[i]!;
+    const next: WorkbenchTurn = source === 'given' ? { spreadBp: 0, ...t } : { ...t, solveFromRow: source };
+    useAppStore.getState().setTurns(turns.map((x, k) => (k === i ? next : x)));
+  };
   return (
     <section aria-label="Turns">
       <h3>Turns</h3>
-      <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only.</p>
+      <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only. Or solve it from a quote spanning the turn.</p>
       <EditLock>
         {turns.length > 0 && (
           <div className="table-scroll">
@@ -190,19 +214,33 @@ function Turns() {
                   <th scope="col">Name</th>
                   <th scope="col">First day</th>
                   <th scope="col">Last day</th>
-                  <th scope="col">Spread (bp, {OVERNIGHT_TAG})</th>
+                  <th scope="col">Spread set by</th>
+                  <th scope="col">Spread (bp, {OVERNIGHT_TAG}, on the overnight rate)</th>
                   <th scope="col">
                     <span className="sr-only">Remove</span>
                   </th>
                 </tr>
               </thead>
               <tbody>
-                {turns.map((t) => (
+                {turns.map((t, i) => (
                   <tr key={t.name}>
                     <td>{t.name}</td>
                     <td>{t.from}</td>
                     <td>{t.to}</td>
-                    <td className="num">{formatBpSetting(t.spreadBp)}</td>
+                    <td>
+                      <select aria-label={`Spread of the turn ${t.name} set by`} value={t.solveFromRow ?? 'given'} onChange={(e) => setSource(i, e.target.value)}>
+                        <option value="given">you</option>
+                        {t.solveFromRow !== undefined && !rows.some((r) => r.id === t.solveFromRow) && <option value={t.solveFromRow}>a removed row</option>}
+                        {rows.map((r, k) => (
+                          <option key={r.id} value={r.id}>
+                            {rowWords(r, k)}
+                          </option>
+                        ))}
+                      </select>
+                    </td>
+                    <td className="num" data-turn-spread={t.name}>
+                      {t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(spreads.find((x) => x.index === i))}
+                    </td>
                     <td>
                       <button type="button" aria-label={`Remove the turn ${t.name}`} onClick={() => useAppStore.getState().setTurns(turns.filter((x) => x !== t))}>
                         Remove
@@ -229,3 +267,6 @@ function Turns() {
     </section>
   );
 }
+
+/** A solved turn's spread as the curve was built with it, or why there is none. */
+const solvedText = (row: { readonly spreadBp: number } | undefined): string => (row === undefined ? 'no curve' : `${formatBp(row.spreadBp)} (solved)`);

@@ -1,0 +1,65 @@
+// A turn solved from a quote in Chromium on the built app: a workspace whose year-end turn is
+// solved from its 1M deposit opens from a link; the Overnight curve section shows the picker set to
+// that row and the solved spread (25.00 bp, the spread the invented quotes were made with: a flat 4%
+// forward plus 25 bp over the turn's 3 days, the hand calculation of
+// test/core/bootstrap/turnSolve.test.ts), with no page error. Screenshot:
+// test/artifacts/screenshots/overnight-turn-solve.png.
+import { mkdir } from 'node:fs/promises';
+import path from 'node:path';
+import { workbenchFromEngine } from '../../src/core/index.ts';
+import { encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
+import { launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
+import type { StaticServer } from './static-server.ts';
+
+let browser: TestBrowser | undefined;
+let server: StaticServer | undefined;
+let link = '';
+
+const dep = (lnGrowth: number, days: number) => (Math.expm1(lnGrowth) * 360) / days;
+const ENGINE = {
+  format: 'tenorscope-workspace',
+  version: 2,
+  valuationDate: '2022-12-15',
+  curve: { dayCount: 'ACT/365F', interpolation: 'log-linear-discount' },
+  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', calendar: 'weekends', solveFrom: 1 }],
+  quotes: [
+    { kind: 'deposit', maturity: '2022-12-22', rate: dep((0.04 * 7) / 365, 7) },
+    { kind: 'deposit', maturity: '2023-01-17', rate: dep((0.04 * 33) / 365 + (0.0025 * 3) / 360, 33) },
+    { kind: 'deposit', maturity: '2023-03-15', rate: dep((0.04 * 90) / 365 + (0.0025 * 3) / 360, 90) },
+  ],
+};
+
+beforeAll(async () => {
+  server = await serveDist();
+  browser = await launchBrowser();
+  let n = 0;
+  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
+  if (!doc.ok) throw new Error(doc.errors[0]!.message);
+  link = `${server.url}#${await encodeWorkspaceLink(doc.value as unknown as Record<string, unknown>)}`;
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+describe('a turn solved from a quote in Chromium', () => {
+  it('shows the row it is solved from and the solved spread', async () => {
+    const context = await browser!.browser.newContext({ viewport: { width: 1280, height: 900 }, locale: 'en-US', timezoneId: 'America/Los_Angeles', reducedMotion: 'reduce' });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await page.goto(link, { waitUntil: 'load' });
+    await page.getByRole('grid', { name: /Quotes/ }).waitFor({ timeout: 20_000 });
+    await page.getByRole('tab', { name: 'Overnight curve' }).click();
+    const cell = page.locator('[data-turn-spread="year end 2022"]');
+    await cell.waitFor({ timeout: 20_000 });
+    await page.locator('.overnight-chart path[data-series="overnight"]').waitFor({ timeout: 20_000 });
+    expect(await cell.textContent()).toBe('25.00 bp (solved)');
+    const picker = page.getByRole('combobox', { name: 'Spread of the turn year end 2022 set by' });
+    expect(await picker.inputValue()).toBe('r1');
+    await mkdir(SCREENSHOT_DIR, { recursive: true });
+    await page.locator('.overnight').screenshot({ path: path.join(SCREENSHOT_DIR, 'overnight-turn-solve.png') });
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
