@@ -154,8 +154,9 @@ const d3ShapeCurves = (): Plugin => ({
  * them: trigonometry, hyperbolic functions, logarithms, roots, base conversions... The app's exact
  * money and the quote check's rounding use a handful (construction, plus, minus, times, div, pow,
  * comparisons, rounding, toFixed, toNumber). This transform replaces the bodies of the methods
- * listed below with one that throws, so the bundler drops them and the helpers only they call
- * (about 3.5 KB of the gzip budget); the library's arithmetic is untouched. The guard reads names
+ * listed below with one that throws, and leaves out the static shorthands (Decimal.sin(x)...), which
+ * the app never calls, so the bundler drops them and the helpers only they call, random and its crypto
+ * among them (about 4.7 KB of the gzip budget); the library's arithmetic is untouched. The guard reads names
  * alone, so it cannot check toPrecision and toExponential, which numbers have too.
  */
 const DECIMAL_LEFT_OUT = ['clampedTo', 'cosine', 'cubeRoot', 'dividedToIntegerBy', 'hyperbolicCosine', 'hyperbolicSine', 'hyperbolicTangent', 'inverseCosine', 'inverseHyperbolicCosine', 'inverseHyperbolicSine', 'inverseHyperbolicTangent', 'inverseSine', 'inverseTangent', 'logarithm', 'modulo', 'naturalExponential', 'naturalLogarithm', 'sine', 'squareRoot', 'tangent', 'toBinary', 'toExponential', 'toFraction', 'toHexadecimal', 'toNearest', 'toOctal', 'toPrecision', 'toSignificantDigits', 'precision', 'round', 'truncated', 'max', 'min'];
@@ -175,7 +176,10 @@ const decimalMethods = (): Plugin => ({
         return `${names.map((n) => `P.${n} = `).join('')}leftOut;\n`;
       });
       if (dropped !== left.size) this.error(`decimal.js: ${dropped} of the ${left.size} methods in DECIMAL_LEFT_OUT were found; check the list against this version`);
-      return `function leftOut() { throw Error('[DecimalError] this method of decimal.js is not in the app (DECIMAL_LEFT_OUT, vite.config.ts)'); }\n${out}`;
+      // The static shorthands (Decimal.sin(x) for new Decimal(x).sin()...): the app calls none; with them go random (and its crypto) and atan2.
+      const statics = /^ {2}Decimal\.abs = abs;\n[\s\S]*?^ {2}Decimal\.trunc = trunc;[^\n]*\n/m;
+      if (!statics.test(out)) this.error('decimal.js: its static shorthands were not found where this transform expects them; check it against this version');
+      return `function leftOut() { throw Error('[DecimalError] this method of decimal.js is not in the app (DECIMAL_LEFT_OUT, vite.config.ts)'); }\n${out.replace(statics, '')}`;
     }
     if (!/[\\/]src[\\/].*\.tsx?$/.test(id)) return null;
     for (const m of code.matchAll(/([\w)\]]+)\.(\w+)\(/g)) {
