@@ -182,6 +182,9 @@ const decimalMethods = (): Plugin => ({
       return `function leftOut() { throw Error('[DecimalError] this method of decimal.js is not in the app (DECIMAL_LEFT_OUT, vite.config.ts)'); }\n${out.replace(statics, '')}`;
     }
     if (!/[\\/]src[\\/].*\.tsx?$/.test(id)) return null;
+    for (const m of code.matchAll(/\b(\w*Decimal)\.(\w+)\(/g)) {
+      if (!['clone', 'set', 'config', 'isDecimal', 'fromNumber', 'of', 'parse'].includes(m[2]!)) this.error(`${id} calls ${m[1]}.${m[2]}(): decimal.js's static shorthands are left out of the app (vite.config.ts); write new ${m[1]}(x).${m[2]}() or keep the shorthands`);
+    }
     for (const m of code.matchAll(/([\w)\]]+)\.(\w+)\(/g)) {
       if (DECIMAL_GUARDED.has(m[2]!) && !/^(Math|console)$/.test(m[1]!)) {
         this.error(`${id} calls .${m[2]}() on ${m[1]}: if that is a decimal.js value, take the method off DECIMAL_LEFT_OUT in vite.config.ts`);
