@@ -26,6 +26,7 @@ import {
 } from '../../../src/core/index.ts';
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
 import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts';
+import { rng } from '../../helpers/seededRandom.ts';
 
 // Explanations of the bond figures (issue 19). Three claims:
 // 1. analyzeBond with a sink returns what it returns without one, bit for bit, and each figure's
@@ -41,18 +42,6 @@ import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts
 //    "Interest Rates", section on bond pricing (cited from memory): a 2-year 6% semiannual bond on
 //    continuously compounded zero rates 5.0%, 5.8%, 6.4%, 6.8% at 0.5, 1, 1.5, 2 years is worth
 //    98.39, and its (continuously compounded) yield is 6.76%.
-
-/** mulberry32: a small seeded generator, so each run sees the same random curves. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const SETTLEMENT = '2026-07-15';
 

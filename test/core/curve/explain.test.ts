@@ -21,6 +21,7 @@ import {
   type Pillar,
 } from '../../../src/core/index.ts';
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
+import { rng } from '../../helpers/seededRandom.ts';
 
 // Explanations of curve queries (issue 19). Two claims:
 // 1. the traced value is the untraced value bit for bit (same code path), over random curves
@@ -33,18 +34,6 @@ import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
 //    cited from memory); log-linear discount and linear zero interpolation as in Hagan and West,
 //    "Interpolation Methods for Curve Construction" (2006), sections on linear on the log of
 //    discount factors and linear on rates (cited from memory).
-
-/** mulberry32: a small seeded generator, so each run sees the same random curves. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const SETTLEMENT = '2026-07-15';
 

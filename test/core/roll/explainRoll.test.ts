@@ -17,6 +17,7 @@ import {
   type RollFigure,
   type StrategyInputs,
 } from '../../../src/core/index.ts';
+import { rng } from '../../helpers/seededRandom.ts';
 
 // Explanations of the roll panel's figures (issue 19). Three claims, over random curves and
 // strategies (invented, seeded):
@@ -31,18 +32,6 @@ import {
 //    Securities", chapters on returns and on carry; cited from memory);
 // 3. a break-even is a root: both growths, recomputed from the shown steps at the shown root, are
 //    equal to the solver's tolerance.
-
-/** mulberry32: a small seeded generator, so each run sees the same random cases. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const pick = <T,>(r: () => number, xs: readonly T[]): T => xs[Math.floor(r() * xs.length)]!;
 const iso = (y: number, m: number, d: number): string => `${y}-${String(m).padStart(2, '0')}-${String(d).padStart(2, '0')}`;
