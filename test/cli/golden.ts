@@ -11,18 +11,10 @@
 // Every document here is invented test data drawn by a seeded generator; nothing is market data.
 import { createHash } from 'node:crypto';
 import { runCurveCommand } from '../../src/cli/curveCommand.ts';
+import { rng } from '../helpers/seededRandom.ts';
 
-/** Mulberry32: a small deterministic generator (public-domain algorithm), so the cases never depend on a library's version. */
-export function generator(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** Mulberry32 (public-domain algorithm), so the cases never depend on a library's version. */
+export const generator = rng;
 
 type Rand = () => number;
 const pick = <T>(r: Rand, xs: readonly T[]): T => xs[Math.floor(r() * xs.length)]!;
