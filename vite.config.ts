@@ -160,7 +160,8 @@ const d3ShapeCurves = (): Plugin => ({
  * comparisons, rounding, toFixed, toNumber). This transform replaces the bodies of the methods
  * listed below with one that throws, and leaves out the static shorthands (Decimal.sin(x)...), which
  * the app never calls, so the bundler drops them and the helpers only they call, random and its crypto
- * among them (about 4.7 KB of the gzip budget); the library's arithmetic is untouched. The guard reads names
+ * among them, and shortens pi (1,025 digits, read only by the trigonometry) to '3', with which any
+ * use left would throw (about 5.5 KB of the gzip budget); the library's arithmetic is untouched. The guard reads names
  * alone, so it cannot check toPrecision and toExponential, which numbers have too.
  */
 const DECIMAL_LEFT_OUT = ['clampedTo', 'cosine', 'cubeRoot', 'dividedToIntegerBy', 'hyperbolicCosine', 'hyperbolicSine', 'hyperbolicTangent', 'inverseCosine', 'inverseHyperbolicCosine', 'inverseHyperbolicSine', 'inverseHyperbolicTangent', 'inverseSine', 'inverseTangent', 'logarithm', 'modulo', 'naturalExponential', 'naturalLogarithm', 'sine', 'squareRoot', 'tangent', 'toBinary', 'toExponential', 'toFraction', 'toHexadecimal', 'toNearest', 'toOctal', 'toPrecision', 'toSignificantDigits', 'precision', 'round', 'truncated', 'max', 'min'];
@@ -183,7 +184,11 @@ const decimalMethods = (): Plugin => ({
       // The static shorthands (Decimal.sin(x) for new Decimal(x).sin()...): the app calls none; with them go random (and its crypto) and atan2.
       const statics = /^ {2}Decimal\.abs = abs;\n[\s\S]*?^ {2}Decimal\.trunc = trunc;[^\n]*\n/m;
       if (!statics.test(out)) this.error('decimal.js: its static shorthands were not found where this transform expects them; check it against this version');
-      return `function leftOut() { throw Error('[DecimalError] this method of decimal.js is not in the app (DECIMAL_LEFT_OUT, vite.config.ts)'); }\n${out.replace(statics, '')}`;
+      // pi to 1,025 digits is read only by the trigonometry left out above; as '3' it has no digit after
+      // the point, so any use of it left would throw decimal.js's precision-limit error, never round.
+      const pi = /^ {2}PI = '3\.1415926535\d{1000,}',?$/m;
+      if (!pi.test(out)) this.error("decimal.js: its PI constant was not found where this transform expects it; check it against this version");
+      return `function leftOut() { throw Error('[DecimalError] this method of decimal.js is not in the app (DECIMAL_LEFT_OUT, vite.config.ts)'); }\n${out.replace(statics, '').replace(pi, "  PI = '3',")}`;
     }
     if (!/[\\/]src[\\/].*\.tsx?$/.test(id)) return null;
     for (const m of code.matchAll(/\b(\w*Decimal)\.(\w+)\(/g)) {
