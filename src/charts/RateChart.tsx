@@ -1,7 +1,7 @@
 import { memo, useId, useMemo, useState, type KeyboardEvent, type PointerEvent } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, line } from 'd3-shape';
-import { formatAxisPercent, formatNumber, formatPercent, type MaturityAxis } from '../core/index.ts';
+import { bpFigure, formatAxisPercent, formatBp, formatNumber, formatPercent, type MaturityAxis } from '../core/index.ts';
 import type { SamplePoint } from '../hooks/useCurveSeries.ts';
 import { hoverStore, useHoverX } from './hover.ts';
 import { maturityScale, maturityTicks } from './maturityScale.ts';
@@ -40,6 +40,8 @@ export interface RateChartProps {
   readonly yLabel: string;
   /** With it, a button beside the readout opens the explanation of the first line's point last read ("zero rate", "3M forward rate"). */
   readonly explain?: { readonly words: string; readonly open: (point: SamplePoint, button: HTMLElement) => void };
+  /** The lines' y values are basis points (a spread), not decimal rates: the axis and the readout say bp. */
+  readonly bp?: boolean;
 }
 
 /** No pillar ticks (one list, so PillarTicks stays memoised). */
@@ -76,7 +78,7 @@ export function nearestIndex(points: readonly SamplePoint[], x: number): number 
  * hover position, so both charts show the same maturity.
  */
 export const RateChart = memo(function RateChart(props: RateChartProps) {
-  const { name, description, lines, markers = [], pillars = NO_PILLARS, xMax, axis, xLabel, yLabel } = props;
+  const { name, description, lines, markers = [], pillars = NO_PILLARS, xMax, axis, xLabel, yLabel, bp } = props;
   const descId = useId();
   const [boxRef, W, measured] = useChartWidth<HTMLElement>(W0);
   const H = heightFor(W);
@@ -87,9 +89,9 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
     for (const l of lines) for (const p of l.points) if (Number.isFinite(p.y)) ((lo = Math.min(lo, p.y)), (hi = Math.max(hi, p.y)));
     for (const m of markers) ((lo = Math.min(lo, m.y)), (hi = Math.max(hi, m.y)));
     if (!Number.isFinite(lo)) ((lo = 0), (hi = 0.05));
-    const pad = Math.max((hi - lo) * 0.08, 0.0005);
+    const pad = Math.max((hi - lo) * 0.08, bp ? 1 : 0.0005);
     return scaleLinear().domain([lo - pad, hi + pad]).range([H - M.bottom, M.top]).nice(6);
-  }, [lines, markers, H]);
+  }, [lines, markers, H, bp]);
   const paths = useMemo(() => {
     if (!measured) return [];
     const gen = line<SamplePoint>()
@@ -171,7 +173,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
             <title>Past the last pillar: flat-forward extrapolation</title>
           </rect>
         )}
-        <ChartAxes w={W} h={H} m={M} x={x} y={y} xTicks={xTicks} yTicks={yTicks} yTickText={yTickText} xLabel={xLabel} yLabel={yLabel} fontPx={CHART_FONT_PX} />
+        <ChartAxes w={W} h={H} m={M} x={x} y={y} xTicks={xTicks} yTicks={yTicks} yTickText={bp ? bpFigure : yTickText} xLabel={xLabel} yLabel={yLabel} fontPx={CHART_FONT_PX} />
         <PillarTicks pillars={pillars} x={x} h={H} />
         {paths.map(({ l, solid, dashed }) => (
           <g key={l.id} data-series={l.id}>
@@ -188,7 +190,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
       </svg>
       <figcaption id={descId} className="chart-caption">
         <span className="sr-only">{description} </span>
-        <Readout lines={lines} />
+        <Readout lines={lines} bp={bp} />
       </figcaption>
       {props.explain && <ExplainPoint points={lines[0]?.points ?? []} {...props.explain} />}
     </figure>
@@ -236,7 +238,7 @@ function Crosshair({ lines, x, y, h: H }: { lines: readonly ChartLine[]; x: (v: 
 }
 
 /** The values under the crosshair, as text (also what a keyboard or screen-reader user reads). */
-function Readout({ lines }: { lines: readonly ChartLine[] }) {
+function Readout({ lines, bp }: { lines: readonly ChartLine[]; bp?: boolean | undefined }) {
   const hx = useHoverX();
   if (hx === null) return <span className="readout muted">Point at a chart, or focus it and use the arrow keys, to read values.</span>;
   const first = lines[0]?.points[nearestIndex(lines[0]?.points ?? [], hx)];
@@ -249,7 +251,7 @@ function Readout({ lines }: { lines: readonly ChartLine[] }) {
         return (
           <span key={l.id} className="readout-item">
             <span className="swatch" style={{ background: l.colour }} aria-hidden="true" />
-            {l.label} {formatPercent(p.y)} <span className="tag">{l.tag}</span>
+            {l.label} {bp ? formatBp(p.y) : formatPercent(p.y)} <span className="tag">{l.tag}</span>
             {p.extrapolated ? ' (extrapolated)' : ''}
           </span>
         );

@@ -38,6 +38,8 @@ export interface WorkbenchBuild {
   readonly disabledCount: number;
   /** A message when there is no curve at all (bad settlement, no valid quote, a failed bootstrap). */
   readonly fatal: string | null;
+  /** The named curve built (shownBuild), absent for the default curve, the sheet's. */
+  readonly curveName?: string;
 }
 
 /**

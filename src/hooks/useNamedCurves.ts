@@ -58,3 +58,12 @@ export function useNamedCurves(result: WorkbenchBuild): NamedCurvesView {
   const shown = useMemo(() => (loaded && named ? loaded.shownBuild(result, named, { settlement, calendars, customCalendars, curves }, view) : result), [loaded, named, result, settlement, calendars, customCalendars, curves, view]);
   return { shown, kit: loaded, named };
 }
+
+/**
+ * For captions saying which curve a panel reads: ` on the curve "name"` (by default the sheet's
+ * curve, which the document calls "default") when the workspace has named curves, else undefined
+ * (a workspace of one curve reads as before).
+ */
+export function useOnCurve(name = 'default'): string | undefined {
+  return useAppStore((s) => s.workspace.curves !== undefined) ? ` on the curve "${name}"` : undefined;
+}

@@ -1,8 +1,8 @@
 // Several curves in Chromium on the built app (issue 18 item 10): the command line's test document
 // with named curves (test/fixtures/namedCurves) opened as a workspace file, the curve picker, a
 // named curve's read-only quotes with the curve each builds and the curve that discounted it, the
-// spread table; and the same workspace from a link. Screenshots at 1280 and 760 px go to
-// test/artifacts/screenshots/named-curves-*.
+// spread table and its chart; and the same workspace from a link. Screenshots at 1280 and 760 px go to
+// test/artifacts/screenshots/named-curves-* (the spread view alone: named-curves-spread-*).
 import { readFileSync } from 'node:fs';
 import { REPO_ROOT } from './harness.ts';
 import { mkdir } from 'node:fs/promises';
@@ -58,6 +58,12 @@ describe('named curves in Chromium', () => {
     const picker = p.getByRole('combobox', { name: 'Curve shown' });
     await picker.waitFor({ timeout: 20_000 });
     await p.getByRole('table', { name: /^Spread of euribor6m over default, zero rates/ }).waitFor();
+    // The spread chart: a drawn line of bp over maturity, its axis labelled in bp with the convention.
+    const spreadChart = p.getByRole('img', { name: 'Spread of euribor6m over default, zero rates' });
+    await spreadChart.waitFor();
+    expect((await spreadChart.locator('[data-series="spread"] path').first().getAttribute('d'))?.length ?? 0).toBeGreaterThan(1000);
+    expect(await spreadChart.textContent()).toContain('Spread (bp, zero rates, cont, ACT/365F)');
+    await p.locator('.spread-panel').screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-spread-${width}.png`) });
     const before = await zeroPath(p);
     await p.screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-default-${width}.png`), fullPage: true });
     await picker.selectOption('euribor6m');

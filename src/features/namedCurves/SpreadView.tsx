@@ -1,6 +1,9 @@
 import { useId, useMemo } from 'react';
 import { bpFigure, curveSpreadAt, formatDate, formatPercent, marketDate, parseTenor, rateTag, type Curve, type SpreadMeasure, type WorkbenchCurves } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { sampleGridFor, type SamplePoint } from '../../hooks/useCurveSeries.ts';
+import { RateChart } from '../../charts/RateChart.tsx';
+import { BASE_STYLES } from '../../charts/palette.ts';
 import { setViewValues } from '../../state/viewValues.ts';
 import { useAppStore } from '../../state/store.ts';
 import { curveChoice, DEFAULT_NAME, VIEW_KEYS } from './curveChoice.ts';
@@ -35,9 +38,19 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
     const points = curveSpreadAt(a, b, choice.measure, dates, display.compounding, display.dayCount, tenor);
     return SPREAD_TENORS.map((t, i) => ({ tenor: t, date: dates[i]!, point: points.find((p) => p.date === dates[i]) ?? null }));
   }, [a, b, choice.measure, display.compounding, display.dayCount, tenor]);
+  // The chart: the spread at every date of the zero chart's sample grid of the first curve (400
+  // dates to its chart end), as curveSpreadAt gives it; past either curve's last pillar (in years
+  // on each curve's own clock) dashed.
+  const lastT = a && b ? Math.min(a.lastT, b.lastT) : 0;
+  const points = useMemo(
+    (): SamplePoint[] => (a && b ? curveSpreadAt(a, b, choice.measure, sampleGridFor(a, display).dates, display.compounding, display.dayCount, tenor).map((p) => ({ date: p.date, x: p.x, y: p.bp, extrapolated: p.x > lastT })) : []),
+    [a, b, choice.measure, display, tenor, lastT],
+  );
   const label = (name: string): string => (name === '' ? DEFAULT_NAME : name);
   const tag = rateTag(display.compounding, display.dayCount);
   const what = choice.measure === 'zero' ? 'zero rate' : `${display.forwardTenor} forward`;
+  const title = `Spread of ${label(choice.of)} over ${label(choice.over)}, ${what}s`;
+  const yLabel = `Spread (bp, ${what}s, ${tag})`;
   const select = (key: string, value: string, text: string, name: string) => (
     <select id={`${id}-${key}`} aria-label={name} value={value} disabled={readOnly} onChange={(e) => setViewValues({ [key]: e.target.value }, 'Change the spread')}>
       {[...curves.keys()].map((n) => (
@@ -67,8 +80,21 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
         <p className="empty">No spread: the curve {!a ? label(choice.of) : label(choice.over)} did not build (see its problems above the sheet).</p>
       ) : (
         <>
+          {points.length > 1 && (
+            <RateChart
+              name={title}
+              description={yLabel}
+              lines={[{ id: 'spread', label: 'Spread', tag, ...BASE_STYLES.zero, points }]}
+              xMax={points[points.length - 1]!.x}
+              lastT={lastT}
+              axis={display.axis}
+              xLabel={`Maturity (years, ${a.dayCount})`}
+              yLabel={yLabel}
+              bp
+            />
+          )}
           <div className="table-scroll" tabIndex={0} role="region" aria-label="Spread table (scrolls sideways)">
-            <table className="data" aria-label={`Spread of ${label(choice.of)} over ${label(choice.over)}, ${what}s`}>
+            <table className="data" aria-label={title}>
               <thead>
                 <tr>
                   <th scope="col">Maturity</th>

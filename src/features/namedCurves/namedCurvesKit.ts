@@ -34,6 +34,7 @@ export function shownBuild(result: WorkbenchBuild, named: WorkbenchCurves, doc: 
     rowIssues: [],
     invalidCount: n.build.leftOut.length,
     disabledCount: 0,
+    curveName: n.name,
     fatal: n.build.curve ? null : n.build.errors[0]?.message ?? `the curve "${n.name}" did not build`,
   };
 }

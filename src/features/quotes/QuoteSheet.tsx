@@ -25,6 +25,7 @@ import {
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { useOnCurve } from '../../hooks/useNamedCurves.ts';
 import { useRowWindow, WINDOW_FROM_ROWS } from './useRowWindow.ts';
 import { WORKER_FROM_CHARS } from '../../share/offThread.ts';
 
@@ -191,6 +192,8 @@ const QuoteRowView = memo(
     const setRowEnabled = useAppStore((s) => s.setRowEnabled);
     const deleteRow = useAppStore((s) => s.deleteRow);
     const addRow = useAppStore((s) => s.addRow);
+    // With named curves, each quote in the curve says which curve it builds and is discounted on (the sheet's: "default").
+    const on = useOnCurve();
     const n = index + 1;
     const blank = QUOTE_COLUMNS.every((c) => (row[c] ?? '') === '');
     const messages = rowMessages(issues);
@@ -204,7 +207,7 @@ const QuoteRowView = memo(
     const setFor = ownSet ?? market;
     return (
       <>
-        <tr role="row" aria-rowindex={n + 1} className={`sheet-row ${status}${selected ? ' selected' : ''}`} aria-selected={selected} data-row-key={row.id} data-row-index={index}>
+        <tr role="row" aria-rowindex={n + 1} className={`sheet-row ${status}${selected ? ' selected' : ''}`} aria-selected={selected} data-row-key={row.id} data-row-index={index} title={on && inCurve ? `Builds and is discounted${on}` : undefined}>
           <td role="gridcell" className="rownum">
             <button type="button" className="linklike" onClick={() => showRowDetails(row.id)} aria-label={`Row ${n}: show its repricing and schedule`} title="Show repricing and schedule (opens Quote check)">
               {n}

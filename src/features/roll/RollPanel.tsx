@@ -38,6 +38,8 @@ export interface RollPanelProps {
   readonly documentErrors?: readonly { readonly path: string; readonly message: string }[];
   /** Overrides the heading's convention note; by default the panel states its own conventions. */
   readonly rateTag?: string;
+  /** The curve read, said in the heading when the workspace has named curves (" on the curve \"default\""). */
+  readonly on?: string | undefined;
   /** With it, the figures are buttons that open their explanation (the build `curve` comes from). */
   readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
 }
@@ -71,7 +73,7 @@ const CAUTION = 'An analysis aid, not investment advice. Forwards are what today
 const NO_SCENARIOS: RollPanelProps['scenarioViews'] = [];
 const NO_ERRORS: RollPanelProps['documentErrors'] = [];
 
-export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = NO_SCENARIOS!, documentErrors = NO_ERRORS!, rateTag: tagOverride, explainFrom }: RollPanelProps) {
+export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = NO_SCENARIOS!, documentErrors = NO_ERRORS!, rateTag: tagOverride, explainFrom, on }: RollPanelProps) {
   const headingId = useId();
   const result = useMemo(() => (curve ? analyseRollVsTerm(curve, strategy, scenarioViews) : null), [curve, strategy, scenarioViews]);
   const opener = useExplainOpener<RollCell>(sameFigure);
@@ -105,7 +107,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
   return (
     <section className="roll-panel" aria-labelledby={headingId}>
       <header className="roll-head">
-        <h2 id={headingId}>Roll versus term</h2>
+        <h2 id={headingId}>Roll versus term{on}</h2>
         <span className="muted small">{conventions}</span>
       </header>
       <p className="roll-caution" role="note">

@@ -8,6 +8,7 @@ import { validateScenarios } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { RollPanel } from './RollPanel.tsx';
+import { useOnCurve } from '../../hooks/useNamedCurves.ts';
 
 const readStrategy = (s: { workspace: unknown }): unknown => (s.workspace as { strategy?: unknown }).strategy;
 const readDisplay = (s: { workspace: { display: DisplaySettings } }): DisplaySettings => s.workspace.display;
@@ -42,7 +43,9 @@ export function RollSlot({ result }: { result: WorkbenchBuild }) {
   const onStrategyChange = useCallback((next: StrategyInputs) => useAppStore.getState().setReserved('strategy', next), []);
   const display = useAppStore(readDisplay);
   const explainFrom = useMemo(() => ({ result, display }), [result, display]);
-  return <RollPanel curve={result.build.curve} strategy={validated.strategy} onStrategyChange={onStrategyChange} scenarioViews={scenarios} documentErrors={validated.errors} explainFrom={explainFrom} />;
+  // With named curves the heading says which curve roll versus term (and the print) reads: the default one.
+  const on = useOnCurve();
+  return <RollPanel on={on} curve={result.build.curve} strategy={validated.strategy} onStrategyChange={onStrategyChange} scenarioViews={scenarios} documentErrors={validated.errors} explainFrom={explainFrom} />;
 }
 
 /**

@@ -4,6 +4,7 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { ScenarioPanel } from './ScenarioPanel.tsx';
 import { EditLock } from '../../components/EditLock.tsx';
+import { useOnCurve } from '../../hooks/useNamedCurves.ts';
 
 
 /** The scenario panel wired to the workbench store: reads and writes the document's `scenarios`. */
@@ -14,8 +15,11 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
     () => ({ zeroCompounding: display.compounding, zeroDayCount: display.dayCount, forwardTenor: display.forwardTenor, forwardCompounding: display.compounding, forwardDayCount: display.dayCount }),
     [display],
   );
+  // With named curves, which curve the scenarios move: the curve shown (the default one, or the picker's choice).
+  const on = useOnCurve(result.curveName);
   return (
     <EditLock>
+    {on && <p className="muted small">Scenarios{on}, the curve shown.</p>}
     <ScenarioPanel
       value={value}
       onChange={(next) => useAppStore.getState().setReserved('scenarios', next)}
