@@ -1,6 +1,7 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { diffBp, effectDates, effectRate, type EffectConventions, type EffectField } from '../scenarios/scenarioEffects.ts';
 import { explanationSink, type ExplainedStep, type Explanation } from './explain.ts';
+
 import type { Curve } from './curve.ts';
 
 /**
@@ -20,13 +21,14 @@ export interface ChangeExplanation {
 
 export const CHANGE_UNIT = 'bp (1 bp = 0.0001 of the rate)';
 
-/** Names of one part's reads, year fractions and steps, prefixed by the curve they belong to. */
-function prefixed(e: Explanation, part: 'base' | 'scenario'): Pick<Explanation, 'yearFractions' | 'reads' | 'steps'> {
+/** Names of one part's dates, reads, year fractions and steps, prefixed by the part they belong to (a curve, or a meeting step's side). */
+export function prefixed(e: Explanation, part: string, label = `${part} curve`): Pick<Explanation, 'dates' | 'yearFractions' | 'reads' | 'steps'> {
   const name = (n: string): string => `${part} ${n}`;
   return {
+    dates: e.dates.map((d) => ({ ...d, name: name(d.name) })),
     yearFractions: e.yearFractions.map((y) => ({ ...y, name: name(y.name) })),
     reads: e.reads.map((r) => ({ ...r, name: name(r.name) })),
-    steps: e.steps.map((s) => ({ ...s, name: name(s.name), formula: `${part} curve: ${s.formula}`, inputs: s.inputs.map(name) })),
+    steps: e.steps.map((s) => ({ ...s, name: name(s.name), formula: `${label}: ${s.formula}`, inputs: s.inputs.map(name) })),
   };
 }
 

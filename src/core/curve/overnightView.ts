@@ -23,15 +23,29 @@ export const OVERNIGHT_CONVENTION = { compounding: 'simple', dayCount: 'ACT/360'
  * ln DF(d) - ln DF(d + 1) = f x (1 / basis), read as the segment's forward times the day's exact
  * length, not as a difference of two rounded ln DF (about 1e-13 relative against about 1e-16).
  */
-function oneDay(curve: Curve, ln: (t: number) => number, date: IsoDate): number {
+function oneDay(curve: Curve, ln: (t: number) => number, date: IsoDate, trace?: OneDayTrace): number {
   const t0 = curve.time(date);
+  const t1 = curve.time(dayAfter(date));
   const basis = curve.dayCount === 'ACT/365F' ? 365 : curve.dayCount === 'ACT/360' ? 360 : 0;
   if (ln === curve.lnDiscountAt && curve.interpolation === 'log-linear-discount' && basis > 0) {
     const day = 1 / basis;
-    return Math.expm1(curve.forwardAt(t0 + day / 2) * day) * 360;
+    const f = curve.forwardAt(t0 + day / 2);
+    trace?.(ln, t0, t1, -(f * day), f, basis);
+    return Math.expm1(f * day) * 360;
   }
-  return Math.expm1(ln(t0) - ln(curve.time(dayAfter(date)))) * 360;
+  const a = ln(t0); // read first, as before (a spline keeps the segment of its last read)
+  const lnP = ln(t1) - a;
+  trace?.(ln, t0, t1, lnP);
+  // -(ln(t1) - ln(t0)) is ln(t0) - ln(t1) bit for bit (a rounded difference changes sign exactly).
+  return Math.expm1(-lnP) * 360;
 }
+
+/**
+ * What oneDay hands an explanation (curve/explainMeetingStep.ts), its own values: the ln DF it reads
+ * (turns left out for a meeting step), the times of the day and the next, ln P over the day, and on
+ * the fast path the segment's flat forward f (continuous) with lnP = -f / basis.
+ */
+export type OneDayTrace = (ln: (t: number) => number, t0: number, t1: number, lnP: number, f?: number, basis?: number) => void;
 
 /** The one-day forward from `date` to the next calendar day, simple ACT/360 (turns included). */
 export const oneDayForward = (curve: Curve, date: IsoDate): number => oneDay(curve, curve.lnDiscountAt, date);
@@ -65,9 +79,10 @@ export interface MeetingStepRow {
 /**
  * Each meeting node's implied step: the one-day forward on the effective date minus the one on the
  * day before, on the smooth curve (the turns taken out, so a turn beside a meeting does not pass
- * for a policy move). Empty when the build has no meeting steps.
+ * for a policy move). Empty when the build has no meeting steps. `trace(date)` may hand back a
+ * recorder for a row's two one-day forwards (before, then after), as explainMeetingStep does.
  */
-export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>): MeetingStepRow[] {
+export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>, trace?: (date: IsoDate) => OneDayTrace | undefined): MeetingStepRow[] {
   const curve = build.curve;
   const shape = build.overnight;
   if (curve === null || shape === undefined) return [];
@@ -75,8 +90,8 @@ export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>)
   // Without turns the smooth curve is the curve, read as the view reads it (oneDay).
   const smooth = spans.length === 0 ? curve.lnDiscountAt : (t: number): number => curve.lnDiscountAt(t) - turnLn(spans, t);
   return shape.meetings.map((m) => {
-    const before = oneDay(curve, smooth, dayBefore(m.date));
-    const after = oneDay(curve, smooth, m.date);
+    const before = oneDay(curve, smooth, dayBefore(m.date), trace?.(m.date));
+    const after = oneDay(curve, smooth, m.date, trace?.(m.date));
     return { date: m.date, before, after, stepBp: (after - before) * 1e4 };
   });
 }
