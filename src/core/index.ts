@@ -17,7 +17,6 @@ export * from './curve/query.ts';
 export * from './curve/explain.ts';
 export * from './curve/explainText.ts';
 export * from './curve/explainChange.ts';
-export * from './curve/explainMeetingStep.ts';
 export * from './curve/forwardBetween.ts';
 export * from './curve/sampling.ts';
 export * from './curve/comparisonLines.ts';

@@ -12,6 +12,10 @@ import type { IsoDate } from '../time/date.ts';
 import { compareIso } from '../time/date.ts';
 import { calendarDays, dayAfter, dayBefore } from '../time/overnightDays.ts';
 import { resolveMarketDate } from '../time/dateConventions.ts';
+import { topInfluencesOfLn, type QuoteInfluence } from '../analytics/explainRisk.ts';
+import { coreError, fail, ok, type Result } from '../result.ts';
+import { explanationSink, LN_UNIT, rateUnit, type Explanation } from './explain.ts';
+import { joinedDifference } from './explainChange.ts';
 
 /** The convention of every rate here: simple, ACT/360, over one calendar day. */
 export const OVERNIGHT_CONVENTION = { compounding: 'simple', dayCount: 'ACT/360' } as const;
@@ -135,3 +139,49 @@ export function overnightForwardView(build: Pick<CurveBuild, 'curve' | 'overnigh
  */
 export const turnSpreads = (build: Pick<CurveBuild, 'overnight'>): readonly { readonly index: number; readonly spreadBp: number }[] =>
   (build.overnight?.turns ?? []).map((s) => ({ index: s.index, spreadBp: s.spread * 1e4 }));
+
+/**
+ * The explanation of a meeting's implied step (the Overnight curve section's table): the table's
+ * own computation (meetingStepTable) run with a trace, its two one-day forwards, the day before the
+ * effective date and the effective date, each explained as a forward (simple ACT/360 over one day)
+ * from the values oneDay read, joined under `before ...` and `after ...` names, then
+ * step = (after - before) x 10,000 bp, the table's figure bit for bit.
+ */
+export interface MeetingStepExplanation {
+  readonly explanation: Explanation;
+  readonly before: Explanation;
+  readonly after: Explanation;
+  /** The quotes the step depends on most (bp of the step per bp of the quote's own yield), or why none. */
+  readonly quotes: Result<QuoteInfluence[]>;
+}
+
+export function explainMeetingStep(build: Pick<CurveBuild, 'curve' | 'overnight' | 'instruments'>, date: IsoDate): Result<MeetingStepExplanation> {
+  const curve = build.curve!;
+  const traces: Parameters<OneDayTrace>[] = [];
+  const row = meetingStepTable(build, (d) => (d === date ? (...a) => traces.push(a) : undefined)).find((r) => r.date === date);
+  if (!row) return fail(coreError('schema', 'meetingSteps', `no meeting step on ${date}`));
+  const times: number[] = [];
+  const weights: number[] = [];
+  const [b, a] = traces.map(([ln, t0, t1, lnP, f, basis], k): Explanation => {
+    const start = k ? date : dayBefore(date);
+    const rate = k ? row.after : row.before;
+    const sink = explanationSink();
+    sink.recorder.forward(curve, sink, start, dayAfter(start), 'simple', 'ACT/360', { t: t0, ln: ln(t0) }, { t: t1, ln: ln(t1) }, 1 / 360, lnP, rate);
+    const e = sink.explanation!;
+    // d rate / d ln DF: 360 + rate at the day, minus that at the next (rate = expm1(ln DF(d) - ln DF(d + 1)) x 360).
+    const w = (k ? 1 : -1) * (360 + rate);
+    times.push(t0, t1);
+    weights.push(w, -w);
+    // The flat-forward read: lnP from the segment's forward f, not from the two rounded ln DF.
+    return f === undefined ? e : { ...e, steps: [{ name: 'lnP', formula: `lnP = -f / ${basis}, f = -(ln DF(t2) - ln DF(t1)) / (t2 - t1) between the nodes around the day`, inputs: ['DF(start)', 'DF(end)'], value: lnP, unit: LN_UNIT }, ...e.steps.slice(1)] };
+  }) as [Explanation, Explanation];
+  const explanation = joinedDifference(
+    'meeting-step',
+    `step = (after - before) x 10,000 bp, after the one-day forward on the effective date, before on the day before (turns left out), each: ${b.formula}; the same under every method (log-linear in DF)`,
+    'step',
+    [b, 'before', 'before'],
+    [a, 'after', 'after'],
+    row.stepBp,
+  );
+  return ok({ explanation, before: b, after: a, quotes: topInfluencesOfLn(curve, build.instruments, times, weights) });
+}

@@ -51,12 +51,11 @@ function checkSide(e: Explanation, fast: boolean, where: string): void {
     // The flat forward of the segment from its two nodes (log-linear in DF between them).
     // The segment: the start's two nodes, or when the start is a node (the effective date), the end's.
     const [n1, n2] = s.how === 'interpolated' ? s.nodes : end.how === 'interpolated' ? end.nodes : [s.nodes[0], end.nodes[0]];
-    expect(step(e, 'f').inputs).toEqual(['DF(start)', 'DF(end)']);
-    const f = step(e, 'f').value;
-    expectRelClose(-(n2!.lnDiscount - n1!.lnDiscount) / (n2!.t - n1!.t), f, 1e-15, `${where}: f from the nodes shown`);
+    expect(step(e, 'lnP').inputs).toEqual(['DF(start)', 'DF(end)']);
+    const f = -(n2!.lnDiscount - n1!.lnDiscount) / (n2!.t - n1!.t);
     const basis = e.conventions.curveDayCount === 'ACT/360' ? 360 : 365;
     lnP = step(e, 'lnP').value;
-    expectRelClose(-f / basis, lnP, 1e-15, `${where}: lnP = -f x one day`);
+    expectRelClose(-f / basis, lnP, 1e-15, `${where}: lnP = -f / basis, f the flat forward from the nodes shown`);
     // The reads agree with it: ln DF(end) - ln DF(start) rounds to about 1e-13 of lnP (why the fast path).
     expectRelClose(end.lnDiscount - s.lnDiscount, lnP, 1e-11, `${where}: the reads' difference`);
   } else {
