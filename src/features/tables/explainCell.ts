@@ -177,14 +177,14 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   return cellOf(result, title, explanation, influences, quotesNote, methods);
 }
 
-type Influences = Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
+export type Influences = Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
 
 /**
  * A cell's explanation as the panel and Copy as text show it: the quotes behind it, each by its
  * sheet row (`note` says what their sensitivities are of; their error, when there are none), and
  * the number under each method (none listed when not given).
  */
-function cellOf(result: WorkbenchBuild, title: string, explanation: Explanation, influences: Influences, note: string | null, methods: readonly MethodValue[]): Result<CellExplanation> {
+export function cellOf(result: WorkbenchBuild, title: string, explanation: Explanation, influences: Influences, note: string | null, methods: readonly MethodValue[]): Result<CellExplanation> {
   const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
   const quotesNote = influences.ok ? note : influences.errors[0]!.message;
   const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
