@@ -20,8 +20,8 @@ export interface ChangeExplanation {
 
 export const CHANGE_UNIT = 'bp (1 bp = 0.0001 of the rate)';
 
-/** One part of a joined explanation: the part's explanation, its name, and the words leading its steps. */
-type Part = readonly [Explanation, string, string];
+/** One part of a joined explanation: the part's explanation, its name, and the words leading its steps (its name by default). */
+type Part = readonly [Explanation, string, string?];
 type Parts = Pick<Explanation, 'dates' | 'yearFractions' | 'reads' | 'steps'>;
 
 /**
@@ -30,7 +30,7 @@ type Parts = Pick<Explanation, 'dates' | 'yearFractions' | 'reads' | 'steps'>;
  * = (second rate - first rate) x 10,000 bp with the caller's own figure `value`, in bp.
  */
 export function joinedDifference(quantity: ExplainedQuantity, formula: string, name: string, first: Part, second: Part, value: number): Explanation {
-  const [p, q] = [first, second].map(([e, part, label]): Parts => {
+  const [p, q] = [first, second].map(([e, part, label = part]): Parts => {
     const named = (n: string): string => `${part} ${n}`;
     return {
       dates: e.dates.map((d) => ({ ...d, name: named(d.name) })),

@@ -173,14 +173,14 @@ export function explainMeetingStep(build: Pick<CurveBuild, 'curve' | 'overnight'
     times.push(t0, t1);
     weights.push(w, -w);
     // The flat-forward read: lnP from the segment's forward f, not from the two rounded ln DF.
-    return f === undefined ? e : { ...e, steps: [{ name: 'lnP', formula: `lnP = -f / ${basis}, f = -(ln DF(t2) - ln DF(t1)) / (t2 - t1) of the day's two nodes`, inputs: ['DF(start)', 'DF(end)'], value: lnP, unit: LN_UNIT }, ...e.steps.slice(1)] };
+    return f === undefined ? e : { ...e, steps: [{ name: 'lnP', formula: `lnP = -f / ${basis}, f = -(ln DF(t2) - ln DF(t1)) / (t2 - t1) between its nodes`, inputs: ['DF(start)', 'DF(end)'], value: lnP, unit: LN_UNIT }, ...e.steps.slice(1)] };
   }) as [Explanation, Explanation];
   const explanation = joinedDifference(
     'meeting-step',
-    `step = (after - before) x 10,000 bp, each a one-day forward without turns (after on the effective date, before the day before): ${b.formula}; one value under every method (steps are log-linear in DF)`,
+    `step = (after - before) x 10,000 bp, each a one-day forward without turns (after on the effective date, before the day before): ${b.formula}; the same under every method (log-linear in DF)`,
     'step',
-    [b, 'before', 'before'],
-    [a, 'after', 'after'],
+    [b, 'before'],
+    [a, 'after'],
     row.stepBp,
   );
   return ok({ explanation, before: b, after: a, quotes: topInfluencesOfLn(curve, build.instruments, times, weights) });
