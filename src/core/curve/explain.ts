@@ -26,7 +26,9 @@ import { ok, type Result } from '../result.ts';
 /** The kinds of number explained. */
 export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change' | 'roll-terminal' | 'roll-return' | 'roll-break-even'
   /** A figure of a bond off the curve (analytics/explainBond.ts). */
-  | 'bond-figure';
+  | 'bond-figure'
+  /** A meeting's implied step on the overnight curve (curve/explainMeetingStep.ts). */
+  | 'meeting-step';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {

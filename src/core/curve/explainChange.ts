@@ -1,6 +1,6 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { diffBp, effectDates, effectRate, type EffectConventions, type EffectField } from '../scenarios/scenarioEffects.ts';
-import { explanationSink, type ExplainedStep, type Explanation } from './explain.ts';
+import { explanationSink, type ExplainedQuantity, type Explanation } from './explain.ts';
 import type { Curve } from './curve.ts';
 
 /**
@@ -20,13 +20,37 @@ export interface ChangeExplanation {
 
 export const CHANGE_UNIT = 'bp (1 bp = 0.0001 of the rate)';
 
-/** Names of one part's reads, year fractions and steps, prefixed by the curve they belong to. */
-function prefixed(e: Explanation, part: 'base' | 'scenario'): Pick<Explanation, 'yearFractions' | 'reads' | 'steps'> {
-  const name = (n: string): string => `${part} ${n}`;
+/** One part of a joined explanation: the part's explanation, its name, and the words leading its steps (its name by default). */
+type Part = readonly [Explanation, string, string?];
+type Parts = Pick<Explanation, 'dates' | 'yearFractions' | 'reads' | 'steps'>;
+
+/**
+ * Two traced numbers and their difference as one explanation: each part's dates, year fractions,
+ * reads and steps named `<part> ...` (its steps' formulas led by `<label>:`), then the step `name`
+ * = (second rate - first rate) x 10,000 bp with the caller's own figure `value`, in bp.
+ */
+export function joinedDifference(quantity: ExplainedQuantity, formula: string, name: string, first: Part, second: Part, value: number): Explanation {
+  const [p, q] = [first, second].map(([e, part, label = part]): Parts => {
+    const named = (n: string): string => `${part} ${n}`;
+    return {
+      dates: e.dates.map((d) => ({ ...d, name: named(d.name) })),
+      yearFractions: e.yearFractions.map((y) => ({ ...y, name: named(y.name) })),
+      reads: e.reads.map((r) => ({ ...r, name: named(r.name) })),
+      steps: e.steps.map((x) => ({ ...x, name: named(x.name), formula: `${label}: ${x.formula}`, inputs: x.inputs.map(named) })),
+    };
+  }) as [Parts, Parts];
+  const a = first[1];
+  const b = second[1];
   return {
-    yearFractions: e.yearFractions.map((y) => ({ ...y, name: name(y.name) })),
-    reads: e.reads.map((r) => ({ ...r, name: name(r.name) })),
-    steps: e.steps.map((s) => ({ ...s, name: name(s.name), formula: `${part} curve: ${s.formula}`, inputs: s.inputs.map(name) })),
+    quantity,
+    formula,
+    value,
+    unit: CHANGE_UNIT,
+    conventions: first[0].conventions,
+    dates: [...p.dates, ...q.dates],
+    yearFractions: [...p.yearFractions, ...q.yearFractions],
+    reads: [...p.reads, ...q.reads],
+    steps: [...p.steps, ...q.steps, { name, formula: `${name} = (${b} rate - ${a} rate) x 10,000 bp`, inputs: [`${b} rate`, `${a} rate`], value, unit: CHANGE_UNIT }],
   };
 }
 
@@ -49,25 +73,10 @@ export function explainScenarioChange(base: Curve, scenario: Curve, tenor: strin
   }
   const be = baseSink.explanation;
   const se = scenarioSink.explanation;
-  const bp = prefixed(be, 'base');
-  const sp = prefixed(se, 'scenario');
-  const last: ExplainedStep = {
-    name: 'change',
-    formula: 'change = (scenario rate - base rate) x 10,000 bp',
-    inputs: [sp.steps.at(-1)!.name, bp.steps.at(-1)!.name],
-    value: change,
-    unit: CHANGE_UNIT,
-  };
+  // The base's dates only: both rates are read on the same dates.
   const explanation: Explanation = {
-    quantity: field === 'zero' ? 'zero-change' : 'forward-change',
-    formula: `change = (scenario rate - base rate) x 10,000, each rate: ${be.formula} (${be.unit})`,
-    value: change,
-    unit: CHANGE_UNIT,
-    conventions: be.conventions,
+    ...joinedDifference(field === 'zero' ? 'zero-change' : 'forward-change', `change = (scenario rate - base rate) x 10,000, each rate: ${be.formula} (${be.unit})`, 'change', [be, 'base', 'base curve'], [se, 'scenario', 'scenario curve'], change),
     dates: be.dates,
-    yearFractions: [...bp.yearFractions, ...sp.yearFractions],
-    reads: [...bp.reads, ...sp.reads],
-    steps: [...bp.steps, ...sp.steps, last],
   };
   return ok({ explanation, base: be, scenario: se });
 }

@@ -12,6 +12,10 @@ import type { IsoDate } from '../time/date.ts';
 import { compareIso } from '../time/date.ts';
 import { calendarDays, dayAfter, dayBefore } from '../time/overnightDays.ts';
 import { resolveMarketDate } from '../time/dateConventions.ts';
+import { topInfluencesOfLn, type QuoteInfluence } from '../analytics/explainRisk.ts';
+import { coreError, fail, ok, type Result } from '../result.ts';
+import { explanationSink, LN_UNIT, rateUnit, type Explanation } from './explain.ts';
+import { joinedDifference } from './explainChange.ts';
 
 /** The convention of every rate here: simple, ACT/360, over one calendar day. */
 export const OVERNIGHT_CONVENTION = { compounding: 'simple', dayCount: 'ACT/360' } as const;
@@ -23,15 +27,29 @@ export const OVERNIGHT_CONVENTION = { compounding: 'simple', dayCount: 'ACT/360'
  * ln DF(d) - ln DF(d + 1) = f x (1 / basis), read as the segment's forward times the day's exact
  * length, not as a difference of two rounded ln DF (about 1e-13 relative against about 1e-16).
  */
-function oneDay(curve: Curve, ln: (t: number) => number, date: IsoDate): number {
+function oneDay(curve: Curve, ln: (t: number) => number, date: IsoDate, trace?: OneDayTrace): number {
   const t0 = curve.time(date);
+  const t1 = curve.time(dayAfter(date));
   const basis = curve.dayCount === 'ACT/365F' ? 365 : curve.dayCount === 'ACT/360' ? 360 : 0;
   if (ln === curve.lnDiscountAt && curve.interpolation === 'log-linear-discount' && basis > 0) {
     const day = 1 / basis;
-    return Math.expm1(curve.forwardAt(t0 + day / 2) * day) * 360;
+    const f = curve.forwardAt(t0 + day / 2);
+    trace?.(ln, t0, t1, -(f * day), f, basis);
+    return Math.expm1(f * day) * 360;
   }
-  return Math.expm1(ln(t0) - ln(curve.time(dayAfter(date)))) * 360;
+  const a = ln(t0); // read first, as before (a spline keeps the segment of its last read)
+  const lnP = ln(t1) - a;
+  trace?.(ln, t0, t1, lnP);
+  // -(ln(t1) - ln(t0)) is ln(t0) - ln(t1) bit for bit (a rounded difference changes sign exactly).
+  return Math.expm1(-lnP) * 360;
 }
+
+/**
+ * What oneDay hands an explanation (curve/explainMeetingStep.ts), its own values: the ln DF it reads
+ * (turns left out for a meeting step), the times of the day and the next, ln P over the day, and on
+ * the fast path the segment's flat forward f (continuous) with lnP = -f / basis.
+ */
+export type OneDayTrace = (ln: (t: number) => number, t0: number, t1: number, lnP: number, f?: number, basis?: number) => void;
 
 /** The one-day forward from `date` to the next calendar day, simple ACT/360 (turns included). */
 export const oneDayForward = (curve: Curve, date: IsoDate): number => oneDay(curve, curve.lnDiscountAt, date);
@@ -65,9 +83,10 @@ export interface MeetingStepRow {
 /**
  * Each meeting node's implied step: the one-day forward on the effective date minus the one on the
  * day before, on the smooth curve (the turns taken out, so a turn beside a meeting does not pass
- * for a policy move). Empty when the build has no meeting steps.
+ * for a policy move). Empty when the build has no meeting steps. `trace(date)` may hand back a
+ * recorder for a row's two one-day forwards (before, then after), as explainMeetingStep does.
  */
-export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>): MeetingStepRow[] {
+export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>, trace?: (date: IsoDate) => OneDayTrace | undefined): MeetingStepRow[] {
   const curve = build.curve;
   const shape = build.overnight;
   if (curve === null || shape === undefined) return [];
@@ -75,8 +94,8 @@ export function meetingStepTable(build: Pick<CurveBuild, 'curve' | 'overnight'>)
   // Without turns the smooth curve is the curve, read as the view reads it (oneDay).
   const smooth = spans.length === 0 ? curve.lnDiscountAt : (t: number): number => curve.lnDiscountAt(t) - turnLn(spans, t);
   return shape.meetings.map((m) => {
-    const before = oneDay(curve, smooth, dayBefore(m.date));
-    const after = oneDay(curve, smooth, m.date);
+    const before = oneDay(curve, smooth, dayBefore(m.date), trace?.(m.date));
+    const after = oneDay(curve, smooth, m.date, trace?.(m.date));
     return { date: m.date, before, after, stepBp: (after - before) * 1e4 };
   });
 }
@@ -120,3 +139,49 @@ export function overnightForwardView(build: Pick<CurveBuild, 'curve' | 'overnigh
  */
 export const turnSpreads = (build: Pick<CurveBuild, 'overnight'>): readonly { readonly index: number; readonly spreadBp: number }[] =>
   (build.overnight?.turns ?? []).map((s) => ({ index: s.index, spreadBp: s.spread * 1e4 }));
+
+/**
+ * The explanation of a meeting's implied step (the Overnight curve section's table): the table's
+ * own computation (meetingStepTable) run with a trace, its two one-day forwards, the day before the
+ * effective date and the effective date, each explained as a forward (simple ACT/360 over one day)
+ * from the values oneDay read, joined under `before ...` and `after ...` names, then
+ * step = (after - before) x 10,000 bp, the table's figure bit for bit.
+ */
+export interface MeetingStepExplanation {
+  readonly explanation: Explanation;
+  readonly before: Explanation;
+  readonly after: Explanation;
+  /** The quotes the step depends on most (bp of the step per bp of the quote's own yield), or why none. */
+  readonly quotes: Result<QuoteInfluence[]>;
+}
+
+export function explainMeetingStep(build: Pick<CurveBuild, 'curve' | 'overnight' | 'instruments'>, date: IsoDate): Result<MeetingStepExplanation> {
+  const curve = build.curve!;
+  const traces: Parameters<OneDayTrace>[] = [];
+  const row = meetingStepTable(build, (d) => (d === date ? (...a) => traces.push(a) : undefined)).find((r) => r.date === date);
+  if (!row) return fail(coreError('schema', 'meetingSteps', `no meeting step on ${date}`));
+  const times: number[] = [];
+  const weights: number[] = [];
+  const [b, a] = traces.map(([ln, t0, t1, lnP, f, basis], k): Explanation => {
+    const start = k ? date : dayBefore(date);
+    const rate = k ? row.after : row.before;
+    const sink = explanationSink();
+    sink.recorder.forward(curve, sink, start, dayAfter(start), 'simple', 'ACT/360', { t: t0, ln: ln(t0) }, { t: t1, ln: ln(t1) }, 1 / 360, lnP, rate);
+    const e = sink.explanation!;
+    // d rate / d ln DF: 360 + rate at the day, minus that at the next (rate = expm1(ln DF(d) - ln DF(d + 1)) x 360).
+    const w = (k ? 1 : -1) * (360 + rate);
+    times.push(t0, t1);
+    weights.push(w, -w);
+    // The flat-forward read: lnP from the segment's forward f, not from the two rounded ln DF.
+    return f === undefined ? e : { ...e, steps: [{ name: 'lnP', formula: `lnP = -f / ${basis}, f = -(ln DF(t2) - ln DF(t1)) / (t2 - t1) between its nodes`, inputs: ['DF(start)', 'DF(end)'], value: lnP, unit: LN_UNIT }, ...e.steps.slice(1)] };
+  }) as [Explanation, Explanation];
+  const explanation = joinedDifference(
+    'meeting-step',
+    `step = (after - before) x 10,000 bp, each a one-day forward without turns (after on the effective date, before the day before): ${b.formula}; the same under every method (log-linear in DF)`,
+    'step',
+    [b, 'before'],
+    [a, 'after'],
+    row.stepBp,
+  );
+  return ok({ explanation, before: b, after: a, quotes: topInfluencesOfLn(curve, build.instruments, times, weights) });
+}

@@ -23,6 +23,8 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { ListStatus, notTaken, problemText } from '../../components/pastedList.tsx';
 import { OvernightChart } from './OvernightChart.tsx';
+import type { StepCell } from '../tables/explainCell.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 
 const OVERNIGHT_TAG = rateTag('simple', 'ACT/360');
 const NO_TURNS: readonly WorkbenchTurn[] = [];
@@ -42,6 +44,8 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
   const fatal = build.curve === null ? result.fatal : null;
   const view = useMemo(() => overnightForwardView(build), [build]);
   const rows = useMemo(() => meetingStepTable(build), [build]);
+  const display = useAppStore((s) => s.workspace.display);
+  const explain = useExplainOpener<StepCell>((a, b) => a.step === b.step);
   return (
     <div className="overnight stack">
       <p className="muted small">
@@ -64,6 +68,7 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
       {rows.length > 0 && (
         <section aria-label="Meeting steps">
           <h3>Implied step at each meeting</h3>
+          <div className="key-maturities">
           <div className="table-scroll">
             <table className="data" aria-label="Implied step at each meeting">
               <thead>
@@ -80,11 +85,17 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
                     <td>{r.date}</td>
                     <td className="num">{formatPercent(r.before)}</td>
                     <td className="num">{formatPercent(r.after)}</td>
-                    <td className="num">{formatBpChange(r.stepBp)}</td>
+                    <td className="num">
+                      <button type="button" className="cell-explain" aria-label={`${formatBpChange(r.stepBp)}: explain the step on ${r.date}`} aria-expanded={explain.isOpen({ step: r.date })} onClick={(e) => explain.toggle(e, { step: r.date })}>
+                        {formatBpChange(r.stepBp)}
+                      </button>
+                    </td>
                   </tr>
                 ))}
               </tbody>
             </table>
+          </div>
+          <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} />
           </div>
           <p className="muted small">Levels are the one-day forward on the day before and on the effective date, with turns left out.</p>
         </section>

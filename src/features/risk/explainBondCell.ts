@@ -6,8 +6,6 @@ import {
   buildCurve,
   DEFAULT_KEY_TENORS,
   explainBondFigure,
-  explanationSections,
-  explanationText,
   formatPercent,
   topInfluencesOfLn,
   valueUnderEachMethod,
@@ -20,7 +18,7 @@ import {
   type Result,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import type { CellExplanation, CellQuote } from '../tables/explainCell.ts';
+import { cellOf, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A figure of the Bond on the curve table: the bond as the form reads it, the figure and its column. */
 export interface BondCell {
@@ -47,16 +45,7 @@ export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']):
   const e = explainBondFigure(sink.trace!, figure, side);
   if (!e.ok) return e;
   const explanation = e.value;
-  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
-  const rowWords = (row: number | null): string => (row === null ? 'a quote' : `row ${row + 1}`);
   const weights = bondLnWeights(sink.trace!, figure, side);
-  let quotes: CellQuote[] = [];
-  let quotesNote = weights?.note ?? 'none: this figure does not read the curve';
-  if (weights) {
-    const top = topInfluencesOfLn(curve, result.build.instruments, weights.times, weights.weights);
-    if (top.ok) quotes = top.value.map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
-    else quotesNote = top.errors[0]!.message;
-  }
   // Under each method only what reads the curve: the rest is the same number under any method.
   const methods: MethodValue[] = weights
     ? valueUnderEachMethod(
@@ -70,15 +59,5 @@ export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']):
     : [];
   const terms = `${formatPercent(input.coupon)} ${input.frequency}x a year to ${input.maturity}`;
   const title = `Bond ${terms}: ${BOND_FIGURE_WORDS[figure]} ${side === 'model' || figure === 'accrued' ? 'on the curve' : `at the market ${input.cleanPrice !== undefined ? 'price' : 'yield'}`}`;
-  const extras = {
-    title,
-    quoteLabel: (index: number) => rowWords(rowOf(index)),
-    topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
-    topQuotesNote: quotesNote,
-    ...(methods.length > 0 ? { methods } : {}),
-  };
-  return {
-    ok: true,
-    value: { title, explanation, sections: explanationSections(explanation, extras), quotes, quotesNote, methods, text: explanationText(explanation, extras) },
-  };
+  return cellOf(result, title, explanation, weights ? topInfluencesOfLn(curve, result.build.instruments, weights.times, weights.weights) : { ok: true, value: [] }, weights?.note ?? 'none: this figure does not read the curve', methods);
 }

@@ -1,8 +1,6 @@
 import {
   buildCurve,
   explainRollFigure,
-  explanationSections,
-  explanationText,
   rollFigure,
   topParQuoteInfluences,
   topQuoteInfluences,
@@ -16,7 +14,7 @@ import {
   type StrategyInputs,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import type { CellExplanation } from '../tables/explainCell.ts';
+import { cellOf, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A figure of the roll panel (a money value, a return, a break-even, a leg's forward) under the strategy and scenario views it was shown with. */
 export interface RollCell {
@@ -34,14 +32,10 @@ export function explainRollCell(result: WorkbenchBuild, c: RollCell['roll']): Re
   const r = explainRollFigure(curve, c.strategy, c.scenarios, c.figure);
   if (!r.ok) return r;
   const { explanation, title, driver } = r.value;
-  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
-  const rowWords = (row: number | null): string => (row === null ? 'a quote' : `row ${row + 1}`);
   const instruments = result.build.instruments;
   let influences: Result<QuoteInfluence[]> = { ok: true, value: [] };
   if (driver?.kind === 'rate') influences = topQuoteInfluences(curve, instruments, driver.start, driver.end, driver.compounding, driver.dayCount);
   else if (driver?.kind === 'par') influences = topParQuoteInfluences(curve, instruments, curve.settlement, driver.end, driver.frequency, 'ACT/ACT-ICMA');
-  const quotesNote = !influences.ok ? influences.errors[0]!.message : driver ? driver.note : (r.value.why ?? 'none computed for this figure');
-  const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
   // A scenario's curve is made under the current method only, so a figure under a scenario view is not read under the others.
   const view = 'view' in c.figure ? c.figure.view : c.strategy.view;
   const methods: MethodValue[] = view.startsWith('scenario')
@@ -54,12 +48,5 @@ export function explainRollCell(result: WorkbenchBuild, c: RollCell['roll']): Re
           return v.ok ? { ok: true, value: v.value.value } : v;
         },
       );
-  const extras = {
-    title,
-    quoteLabel: (index: number) => rowWords(rowOf(index)),
-    topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
-    ...(quotesNote === null ? {} : { topQuotesNote: quotesNote }),
-    ...(methods.length > 0 ? { methods } : {}),
-  };
-  return { ok: true, value: { title, explanation, sections: explanationSections(explanation, extras), quotes, quotesNote, methods, text: explanationText(explanation, extras) } };
+  return cellOf(result, title, explanation, influences, driver ? driver.note : (r.value.why ?? 'none computed for this figure'), methods);
 }

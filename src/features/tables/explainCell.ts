@@ -2,6 +2,7 @@ import {
   applyScenario,
   buildCurve,
   explainScenarioChange,
+  explainMeetingStep,
   discountOn,
   explained,
   explanationSections,
@@ -77,8 +78,13 @@ export interface ChangeCell {
   };
 }
 
+/** A meeting's implied step in the Overnight curve section: its effective date. */
+export interface StepCell {
+  readonly step: string;
+}
+
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -118,6 +124,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('change' in cell) return explainChangeCell(result, cell.change);
   if ('roll' in cell) return explainRollCell(result, cell.roll);
   if ('bond' in cell) return explainBondCell(result, cell.bond);
+  if ('step' in cell) return explainStepCell(result, cell.step);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;
@@ -152,10 +159,9 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const traced = explained((sink) => read(curve, sink), given);
   if (!traced.ok) return traced;
   const explanation = traced.value.explanation;
-  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
   const instruments = result.build.instruments;
   let quotesNote: string | null = null;
-  let influences: Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
+  let influences: Influences;
   if (cell.field === 'par') influences = topParQuoteInfluences(curve, instruments, curve.settlement, date, parFrequency, 'ACT/ACT-ICMA');
   else if (cell.field === 'forwardPar') influences = topParQuoteInfluences(curve, instruments, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false);
   else if (cell.field === 'discount') {
@@ -163,23 +169,33 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
     quotesNote = `of its continuously compounded zero rate on ${curve.dayCount} (DF = exp(-z t))`;
   } else if (cell.field === 'zero') influences = topQuoteInfluences(curve, instruments, curve.settlement, date, c, dc);
   else influences = topQuoteInfluences(curve, instruments, date, end, c, dc);
-  if (!influences.ok) quotesNote = influences.errors[0]!.message;
-  const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
   // The workspace's document built under each method, as the workbench builds it (skipping wrong rows).
   const methods = valueUnderEachMethod(curve.interpolation, (method: InterpolationId) => buildUnder(result, method), read);
   const title =
     !('tenor' in cell) ? (cell.title ?? (cell.field === 'zero' ? `Zero rate on ${date}` : `${display.forwardTenor} forward rate starting ${date} (${date} to ${end})`))
     : cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
+  return cellOf(result, title, explanation, influences, quotesNote, methods);
+}
+
+export type Influences = Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
+
+/**
+ * A cell's explanation as the panel and Copy as text show it: the quotes behind it, each by its
+ * sheet row (`note` says what their sensitivities are of; their error, when there are none), and
+ * the number under each method (none listed when not given).
+ */
+export function cellOf(result: WorkbenchBuild, title: string, explanation: Explanation, influences: Influences, note: string | null, methods: readonly MethodValue[]): Result<CellExplanation> {
+  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
+  const quotesNote = influences.ok ? note : influences.errors[0]!.message;
+  const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
   const extras = {
     title,
     quoteLabel: (index: number) => rowWords(rowOf(index)),
     topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
     ...(quotesNote === null ? {} : { topQuotesNote: quotesNote }),
-    methods,
+    ...(methods.length > 0 ? { methods } : {}),
   };
-  const text = explanationText(explanation, extras);
-  const sections = explanationSections(explanation, extras);
-  return { ok: true, value: { title, explanation, sections, quotes, quotesNote, methods, text } };
+  return { ok: true, value: { title, explanation, sections: explanationSections(explanation, extras), quotes, quotesNote, methods, text: explanationText(explanation, extras) } };
 }
 
 /**
@@ -212,14 +228,10 @@ function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Res
   const baseDates = r.value.base.dates;
   const start = baseDates.find((d) => d.name === 'start')?.adjusted ?? base.settlement;
   const end = (baseDates.find((d) => d.name === 'end') ?? baseDates.find((d) => d.name === 'date'))!.adjusted;
-  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
   const zero = c.field === 'zero';
   const conv = c.conventions;
   const influences = topQuoteInfluences(base, result.build.instruments, start, end, zero ? conv.zeroCompounding : conv.forwardCompounding, zero ? conv.zeroDayCount : conv.forwardDayCount);
-  const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
-  const quotesNote = influences.ok
-    ? `of the base ${what}: the change is the scenario's shift, and the scenario rate moves with these quotes as the base rate does`
-    : influences.errors[0]!.message;
+  const quotesNote = `of the base ${what}: the change is the scenario's shift, and the scenario rate moves with these quotes as the base rate does`;
   // The document is the same under every method (only the interpolation differs), so is its workspace.
   const methods = valueUnderEachMethod(
     base.interpolation,
@@ -229,15 +241,15 @@ function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Res
       return v.ok ? { ok: true, value: v.value.explanation.value } : v;
     },
   );
-  const extras = {
-    title,
-    quoteLabel: (index: number) => rowWords(rowOf(index)),
-    topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
-    topQuotesNote: quotesNote,
-    methods,
-  };
-  return {
-    ok: true,
-    value: { title, explanation, sections: explanationSections(explanation, extras), quotes, quotesNote, methods, text: explanationText(explanation, extras) },
-  };
+  return cellOf(result, title, explanation, influences, quotesNote, methods);
+}
+
+/**
+ * The explanation of a meeting's implied step (explainMeetingStep: the table's own computation,
+ * traced) with the quotes the step depends on most; no values under other methods, since a stepped
+ * curve is log-linear in DF whatever the method (the explanation's formula says so).
+ */
+function explainStepCell(result: WorkbenchBuild, date: string): Result<CellExplanation> {
+  const r = explainMeetingStep(result.build, date);
+  return r.ok ? cellOf(result, `Implied step on ${date}`, r.value.explanation, r.value.quotes, null, []) : r;
 }
