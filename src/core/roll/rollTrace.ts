@@ -15,7 +15,6 @@ import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { RollLeg, ViewSpec } from './rollViews.ts';
 import type { BondFlow } from './strategyBonds.ts';
-import type { RollContext, TermStrategyId } from './strategyValues.ts';
 
 /**
  * The trace of one roll-versus-term figure (issue 19). The analysis's own functions (applyView,
@@ -38,11 +37,13 @@ export interface RollTrace {
 export const rollTrace = (given?: Readonly<Record<string, string>>): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given) });
 
 export const GROWTH_UNIT = 'per unit invested';
-const PER_100 = 'per 100 face';
+export const PER_100 = 'per 100 face';
 
 const push = (t: RollTrace, name: string, formula: string, inputs: readonly string[], value: number, unit: string): void => {
   t.steps.push({ name, formula, inputs, value, unit });
 };
+
+const cf = (t: RollTrace, i: number, flow: BondFlow): void => push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
 
 /** The product g_a x (g_(a+1) x (... x g_n)) in words, as the code multiplies it (from the last leg back). */
 const productWords = (from: number, n: number): string => (from === n ? `g${n}` : from + 1 === n ? `g${from} x g${n}` : `g${from} x (... x g${n})`);
@@ -83,7 +84,7 @@ export interface HorizonGrowthParts {
 
 /** A flow of a term bond paid by the horizon and grown to it at the view's money-market rates. */
 export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts: HorizonGrowthParts, legCount: number, growth: number): void {
-  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
+  cf(t, i, flow);
   const k = parts.leg;
   const gs = (from: number): string[] => Array.from({ length: legCount - from + 1 }, (_, j) => `g${from + j}`);
   if (k < 0) {
@@ -100,17 +101,44 @@ export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts:
 
 /** A flow after the horizon, priced on the view's horizon curve. */
 export function recordHorizonPrice(t: RollTrace, i: number, flow: BondFlow, dfh: number): void {
-  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
+  cf(t, i, flow);
   push(t, `DFH${i}`, `DFH${i} = DF(${flow.date}) on the view's horizon curve`, [], dfh, DF_UNIT);
 }
 
+/** `name = CF<i> x <b><i> + ...` over the flows `idx`. */
+const sumStep = (t: RollTrace, name: string, b: string, idx: readonly number[], value: number): void =>
+  push(t, name, `${name} = ${idx.map((i) => `CF${i} x ${b}${i}`).join(' + ') || 0}`, idx.flatMap((i) => [`CF${i}`, `${b}${i}`]), value, PER_100);
+
 /** A term bond's value at the horizon per 100 face and its growth per unit (bought at par). */
 export function recordBondTotals(t: RollTrace, id: string, flows: readonly { i: number; after: boolean }[], coupons: number, price: number, growth: number): void {
-  const before = flows.filter((f) => !f.after);
-  const after = flows.filter((f) => f.after);
-  push(t, 'coupons', `coupons = ${before.map((f) => `CF${f.i} x R${f.i}`).join(' + ') || 0}`, before.flatMap((f) => [`CF${f.i}`, `R${f.i}`]), coupons, PER_100);
-  push(t, 'price', `price = ${after.map((f) => `CF${f.i} x DFH${f.i}`).join(' + ') || 0}`, after.flatMap((f) => [`CF${f.i}`, `DFH${f.i}`]), price, PER_100);
+  sumStep(t, 'coupons', 'R', flows.filter((f) => !f.after).map((f) => f.i), coupons);
+  sumStep(t, 'price', 'DFH', flows.filter((f) => f.after).map((f) => f.i), price);
   push(t, `G_${id}`, `G_${id} = (coupons + price) / 100`, ['coupons', 'price'], growth, GROWTH_UNIT);
+}
+
+/** A flow paid by the horizon grown to it at today's forwards: R<i> = DF(date) / DF(horizon) (the break-even curve). */
+export function recordForwardGrowth(t: RollTrace, curve: Curve, i: number, flow: BondFlow, time: number, ln: number, growth: number): void {
+  const df = `DF(${flow.date})`;
+  cf(t, i, flow);
+  t.reads.push(explainRead(curve, df, flow.date, time, ln));
+  push(t, `R${i}`, `R${i} = ${df} / DF(horizon)`, [df, 'DF(horizon)'], growth, 'unitless');
+}
+
+/** The break-even curve's terms at the root: the horizon's discount factor, the coupons grown to it, the target and the yields. */
+export function recordCurvePoint(t: RollTrace, curve: Curve, horizon: IsoDate, tH: number, lnH: number, coupons: number, target: number, y0: number, y: number): void {
+  const u = t.steps.at(-1)!.unit;
+  t.reads.push(explainRead(curve, 'DF(horizon)', horizon, tH, lnH));
+  sumStep(t, 'coupons', 'R', t.steps.filter((s) => /^R\d/.test(s.name)).map((s) => +s.name.slice(1)), coupons);
+  push(t, 'target', 'target = 100 / DF(horizon)', ['DF(horizon)'], target, PER_100);
+  push(t, 'y0', 'y0 = its yield today', [], y0, u);
+  push(t, 'y', 'y = y0 + d', ['y0', 'd'], y, u);
+}
+
+/** A price per 100 face at the yield y (ICMA, f a year): P_y = sum over the flows k = 0, 1, ... of CF x (1 + y/f)^-(w + k). */
+export function recordYieldPrice(t: RollTrace, first: number, flows: readonly BondFlow[], f: number, w: number, price: number): void {
+  push(t, 'w', 'w = share of the coupon period left', [], w, 'unitless');
+  const cfs = flows.map((flow, k) => (cf(t, first + k, flow), `CF${first + k}`));
+  push(t, 'P_y', `P_y = sum over k = 0, 1, ... of CF(${first} + k) x (1 + y / ${f})^-(w + k)`, ['y', 'w', ...cfs], price, PER_100);
 }
 
 /** The zero to the horizon: its growth from the horizon's discount factor. */
@@ -142,25 +170,23 @@ export const recordDate = (t: RollTrace, name: string, given: string, date: IsoD
 };
 
 /**
- * A break-even (rollBreakEven.ts): the solver's root, then both growths evaluated at it by the
- * functions the solver calls (`evaluate` records them and returns G_roll - G_id), the residual,
- * and the root again as the figure.
+ * A break-even (rollBreakEven.ts): the solver's root `x` of `diff` (names joined by - or +), then
+ * the terms evaluated at it by the functions the solver calls (`evaluate` records them and
+ * returns the difference), the residual, and the figure: the root times `scale` (1, or 10000 to bp).
  */
 export function recordBreakEven(
   t: RollTrace,
-  ctx: RollContext,
-  id: TermStrategyId,
-  kind: 'rate' | 'shift',
+  x: string,
+  unit: string,
+  diff: string,
   root: { readonly x: number; readonly iterations: number },
-  solver: { readonly bracket: readonly [number, number]; readonly xTol: number },
+  [a, b]: readonly [number, number],
+  xTol: number,
   evaluate: (t: RollTrace) => number,
+  scale = 1,
+  residualUnit = GROWTH_UNIT,
 ): void {
-  const x = kind === 'rate' ? 'r' : 's';
-  const unit = kind === 'rate' ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp';
-  const [a, b] = solver.bracket;
-  push(t, x, `${x} = root of G_roll - G_${id} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${solver.xTol}`, [], root.x, unit);
-  const residual = evaluate(t);
-  push(t, 'residual', `residual = G_roll - G_${id}`, ['G_roll', `G_${id}`], residual, GROWTH_UNIT);
-  push(t, `${x}*`, `${x}* = ${x}`, [x, 'residual'], root.x, unit);
+  push(t, x, `${x} = root of ${diff} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${xTol}`, [], root.x, unit);
+  push(t, 'residual', `residual = ${diff}`, diff.split(/ . /), evaluate(t), residualUnit);
+  push(t, `${x}*`, `${x}* = ${x}${scale === 1 ? '' : ' x 10000'}`, [x, 'residual'], root.x * scale, scale === 1 ? unit : 'bp');
 }
-
