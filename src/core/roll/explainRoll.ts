@@ -7,7 +7,7 @@ import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { marketDate } from '../time/dateConventions.ts';
 import { parseTenor } from '../time/tenor.ts';
-import { breakEvenPoint, rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
+import { rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
 import { outcomeOf, rollSetup, type NamedCurve } from './rollVsTerm.ts';
@@ -28,9 +28,7 @@ export type RollFigure =
   /** Riding's break-even against rolling or the zero: the rise of the chosen view's horizon curve (bp). */
   | { readonly kind: 'break-even-rise'; readonly against: 'roll' | 'zero' }
   /** Today's forward of roll leg `leg` (1-based). */
-  | { readonly kind: 'leg-forward'; readonly leg: number }
-  /** The break-even curve's rise (bp) of the par bond yield at `tenor`. */
-  | { readonly kind: 'curve-rise'; readonly tenor: string };
+  | { readonly kind: 'leg-forward'; readonly leg: number };
 
 /** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
 export type RollFigureDriver =
@@ -71,10 +69,6 @@ export function rollFigure(curve: Curve, strategy: StrategyInputs, scenarios: re
     const f = forwardOn(curve, leg.start, leg.end, 'simple', strategy.rollDayCount, 'strategy.horizon', trace?.sink);
     return f.ok ? ok({ value: f.value.rate }) : f;
   }
-  if (figure.kind === 'curve-rise') {
-    const x = breakEvenPoint(ctx, figure.tenor, trace)?.riseBp;
-    return x == null ? noFigure('no crossing in the bracket') : ok({ value: x });
-  }
   if ('against' in figure) {
     const x = rollBreakEven(ctx, ctx.view(specs[chosen]!), figure.against, figure.kind.slice(11) as RollBreakEvenKind, trace);
     return x === null ? noFigure('rolling and this strategy do not cross in the bracket (or there is a single leg, bought today)') : ok({ value: x });
@@ -108,8 +102,7 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   const H = ctx.horizon;
   const dc = strategy.rollDayCount;
   const rate = (start: IsoDate, end: IsoDate, compounding: Compounding, dayCount: CurveDayCount, note: string | null): RollFigureDriver => ({ kind: 'rate', start, end, compounding, dayCount, note });
-  const parOn = (end: IsoDate, frequency: number): RollFigureDriver => ({ kind: 'par', end, frequency, note: "of the bond's coupon, today's par yield" });
-  const par = (id: 'bond' | 'riding'): RollFigureDriver => parOn(id === 'bond' ? H : M, ctx[id].frequency);
+  const par = (id: 'bond' | 'riding'): RollFigureDriver => ({ kind: 'par', end: id === 'bond' ? H : M, frequency: ctx[id].frequency, note: "of the bond's coupon, today's par yield" });
   const zeroNote = 'of the zero rate to the horizon (ann, ACT/365F)';
   if (figure.kind === 'leg-forward') {
     const leg = ctx.legs[figure.leg - 1]!;
@@ -122,23 +115,20 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   if (!('view' in figure)) {
     const view = specs[chosen]!;
     const isRate = figure.kind === 'break-even-rate';
-    const against = figure.kind === 'curve-rise' ? 'zero' : figure.against;
+    const against = figure.against;
     const own = figure.kind === 'break-even-rise' ? 'riding' : 'roll';
     const explanation: Explanation = {
       ...base,
       quantity: 'roll-break-even',
-      formula:
-        figure.kind === 'curve-rise' ? `d*: the ${figure.tenor} par bond's coupons at today's forwards plus its price at y0 + d equal 100 / DF(horizon)`
-        : `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : 's*: a parallel shift of the view (bp)'}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
+      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : 's*: a parallel shift of the view (bp)'}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
       conventions: isRate ? conventions('simple', dc) : conventions(null, null),
     };
     const driver =
-      figure.kind === 'curve-rise' ? parOn(marketDate(S, parseTenor(figure.tenor)!), strategy.ridingFrequency)
-      : own === 'riding' ? par(own)
+      own === 'riding' ? par(own)
       : against === 'zero' ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
       : par(against as 'bond');
-    const title = figure.kind === 'curve-rise' ? `Break-even rise of the ${figure.tenor} yield` : `Break-even ${isRate ? 'roll rate r*' : own === 'riding' ? 'rise of riding' : 'shift of the view'} against ${AGAINST[against]}`;
-    return ok({ ...r.value, explanation, title, driver, why: null, userView: figure.kind !== 'curve-rise' && view.id !== 'forwards' });
+    const title = `Break-even ${isRate ? 'roll rate r*' : own === 'riding' ? 'rise of riding' : 'shift of the view'} against ${AGAINST[against]}`;
+    return ok({ ...r.value, explanation, title, driver, why: null, userView: view.id !== 'forwards' });
   }
   const spec = specs.find((s) => s.id === figure.view)!;
   const id = figure.strategy;

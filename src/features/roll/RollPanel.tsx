@@ -43,7 +43,7 @@ export interface RollPanelProps {
 }
 
 /** Where a figure's explanation opens: beside the table it is in. */
-export type RollFigureGroup = 'results' | 'breakevens' | 'legs' | 'curve';
+export type RollFigureGroup = 'results' | 'breakevens' | 'legs';
 
 /** The tables' way to make a figure a button that opens its explanation, and the panel beside each table. */
 export interface RollExplain {
@@ -51,7 +51,7 @@ export interface RollExplain {
   panel(group: RollFigureGroup): ReactNode;
 }
 
-const groupOf = (f: RollFigure): RollFigureGroup => (f.kind === 'curve-rise' ? 'curve' : 'against' in f ? 'breakevens' : f.kind === 'leg-forward' ? 'legs' : 'results');
+const groupOf = (f: RollFigure): RollFigureGroup => ('against' in f ? 'breakevens' : f.kind === 'leg-forward' ? 'legs' : 'results');
 const sameFigure = (a: RollCell, b: RollCell): boolean => JSON.stringify(a.roll.figure) === JSON.stringify(b.roll.figure);
 
 const BASE_LABEL: Record<(typeof BASE_VIEWS)[number], string> = {
