@@ -84,6 +84,20 @@ describe('explanations in the roll panel', () => {
     expect(steps.some((s) => s!.startsWith('G_zero = 1 / DF(horizon)'))).toBe(true);
   });
 
+  it('a value after a leg opens by keyboard beside the legs table with its exact decimal text', async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis } = setUp();
+    const shown = analysis.rollValues[1]!;
+    const button = await screen.findByRole('button', { name: /explain the value after leg 2$/ });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Value after leg 2 under/ });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(shown.toFixed());
+    expect(panel.closest('.roll-explain-host')!.querySelector('table.roll-legs')).not.toBeNull();
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`V2 = V1 x g2, decimal, 40 digits = ${shown.toFixed()} (money)`);
+  });
+
   it('a money value opens with its exact decimal text, and Copy as text writes the core explanation', async () => {
     const user = userEvent.setup({ delay: null });
     const written: string[] = [];

@@ -10,7 +10,7 @@ import { parseTenor } from '../time/tenor.ts';
 import { rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
-import { outcomeOf, rollSetup, type NamedCurve } from './rollVsTerm.ts';
+import { outcomeOf, rollSetup, rollValuesOf, type NamedCurve } from './rollVsTerm.ts';
 import type { StrategyInputs, StrategyViewId } from './strategyInputs.ts';
 import type { Money } from './strategyMoney.ts';
 import type { StrategyId, TermStrategyId } from './strategyValues.ts';
@@ -28,7 +28,9 @@ export type RollFigure =
   /** Riding's break-even against rolling or the zero: the rise of the chosen view's horizon curve (bp). */
   | { readonly kind: 'break-even-rise'; readonly against: 'roll' | 'zero' }
   /** Today's forward of roll leg `leg` (1-based). */
-  | { readonly kind: 'leg-forward'; readonly leg: number };
+  | { readonly kind: 'leg-forward'; readonly leg: number }
+  /** The money after roll leg `leg` (1-based) under the chosen view. */
+  | { readonly kind: 'leg-value'; readonly leg: number };
 
 /** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
 export type RollFigureDriver =
@@ -68,6 +70,10 @@ export function rollFigure(curve: Curve, strategy: StrategyInputs, scenarios: re
     if (!leg) return noFigure(`there is no roll leg ${figure.leg}`);
     const f = forwardOn(curve, leg.start, leg.end, 'simple', strategy.rollDayCount, 'strategy.horizon', trace?.sink);
     return f.ok ? ok({ value: f.value.rate }) : f;
+  }
+  if (figure.kind === 'leg-value') {
+    const v = rollValuesOf(amount, ctx.view(specs[chosen]!, trace), trace)[figure.leg - 1];
+    return v ? ok({ value: v.toNumber(), money: v }) : noFigure(`there is no roll leg ${figure.leg}`);
   }
   if ('against' in figure) {
     const x = rollBreakEven(ctx, ctx.view(specs[chosen]!), figure.against, figure.kind.slice(11) as RollBreakEvenKind, trace);
@@ -110,8 +116,21 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   }
   recordDate(trace, 'horizon', strategy.horizon, H, 'unadjusted, no calendar');
   const conventions = (c: Compounding | null, d: ExplainedConventions['dayCount']): ExplainedConventions => explainedConventions(curve, c, d);
+  if (figure.kind === 'leg-value') trace.steps.splice(trace.steps.findIndex((s) => s.name === `V${figure.leg}`) + 1);
   const last = trace.steps.at(-1)!;
   const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
+  if (figure.kind === 'leg-value') {
+    const view = specs[chosen]!;
+    const explanation: Explanation = {
+      ...base,
+      quantity: 'roll-terminal',
+      formula: `V${figure.leg} = A x g1 x ... x g${figure.leg}, decimal, under "${view.label}": ${view.description}`,
+      valueText: last.text!,
+      unit: `${moneyUnitOf(strategy.currency)} after leg ${figure.leg}, unrounded`,
+      conventions: conventions(null, null),
+    };
+    return ok({ ...r.value, explanation, title: `Value after leg ${figure.leg} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
+  }
   if (!('view' in figure)) {
     const view = specs[chosen]!;
     const isRate = figure.kind === 'break-even-rate';

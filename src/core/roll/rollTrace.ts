@@ -140,6 +140,11 @@ export function recordMoney(t: RollTrace, growthName: string, amount: string, gr
   step('terminal', 'terminal = A x G (decimal), decimal, 40 digits', ['A', 'G (decimal)'], terminal, 'money at the horizon');
 }
 
+/** The money after roll leg k (V0: the amount), decimal: V<k> = V<k-1> x g<k>, g<k> entering as its shortest decimal text. */
+export function recordLegValue(t: RollTrace, k: number, text: string): void {
+  t.steps.push({ name: `V${k}`, formula: k ? `V${k} = V${k - 1} x g${k}, decimal, 40 digits` : 'V0 = the amount, as typed', inputs: k ? [`V${k - 1}`, `g${k}`] : [], value: Number(text), unit: 'money', text });
+}
+
 export const recordDate = (t: RollTrace, name: string, given: string, date: IsoDate, rule: string): void => {
   t.dates.push({ name, given, unadjusted: date, adjusted: date, rule });
 };

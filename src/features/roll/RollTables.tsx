@@ -81,7 +81,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }:
                   <span title="bought today">{formatPercent(path.legRates[k]!)}</span>
                 )}
               </td>
-              <td className="num">{formatMoney(analysis.rollValues[k]!)}</td>
+              <td className="num">{explain ? explain.figure({ kind: 'leg-value', leg: leg.index }, formatMoney(analysis.rollValues[k]!), `value after leg ${leg.index}`) : formatMoney(analysis.rollValues[k]!)}</td>
             </tr>
           ))}
         </tbody>

@@ -314,6 +314,38 @@ describe('explainRollFigure', () => {
     expect(checked).toBeGreaterThan(30);
   }, 120_000);
 
+  // The money after each roll leg: V_k = V_(k-1) x g_k in decimal, V_0 the amount, g_k entering as
+  // its shortest decimal text (the same rule as the terminal values above).
+  it('gives the value after each leg equal to the analysis to the last digit, and its steps recomputed exactly', () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      a.value.rollValues.forEach((shown, k) => {
+        const figure: RollFigure = { kind: 'leg-value', leg: k + 1 };
+        const t = explainRollFigure(curve, strategy, [], figure);
+        const u = rollFigure(curve, strategy, [], figure);
+        if (!t.ok || !u.ok) throw new Error('leg value');
+        expect(u.value.money!.toFixed()).toBe(shown.toFixed());
+        expect(t.value.money!.toFixed()).toBe(shown.toFixed());
+        const e = t.value.explanation;
+        expect(e.valueText).toBe(shown.toFixed());
+        expect(e.steps.at(-1)!.name).toBe(`V${k + 1}`);
+        recomputeGrowth(e, 'roll', strategy.rollDayCount);
+        const steps = stepsOf(e);
+        let v = new MoneyDecimal(strategy.amount);
+        expect(steps.get('V0')!.text).toBe(v.toFixed());
+        for (let j = 1; j <= k + 1; j++) {
+          v = v.times(new MoneyDecimal(String(val(steps, `g${j}`))));
+          expect(steps.get(`V${j}`)!.text, `V${j}`).toBe(v.toFixed());
+        }
+        expect(v.toFixed()).toBe(shown.toFixed());
+        checked++;
+      });
+    }
+    expect(checked).toBeGreaterThan(100);
+  }, 120_000);
+
   it('says when a figure rests on a view of the user rather than the curve', () => {
     const { curve, strategy } = CASES[0]!;
     const path = explainRollFigure(curve, { ...strategy, path: { ...strategy.path, fill: 'constant', constant: 0.05 } }, [], { kind: 'terminal', view: 'path', strategy: 'roll' });
