@@ -98,6 +98,20 @@ describe('explanations in the roll panel', () => {
     expect(steps.at(-1)).toBe(`V2 = V1 x g2, decimal, 40 digits = ${shown.toFixed()} (money)`);
   });
 
+  it("the chosen view's rate of a leg opens by keyboard and ends in the shown figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis } = setUp();
+    const view = analysis.views[analysis.chosen]!;
+    const shown = view.legRates[2]!;
+    const button = await screen.findByRole('button', { name: new RegExp(`explain the rate of leg 3 under ${view.label}$`) });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: new RegExp(`Rate of leg 3 under ${view.label}`) });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(shown));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toMatch(new RegExp(`^r3 = .* = ${fullText(shown).replace('.', '\\.')} \\(decimal per year, simple, `));
+  });
+
   it('a money value opens with its exact decimal text, and Copy as text writes the core explanation', async () => {
     const user = userEvent.setup({ delay: null });
     const written: string[] = [];

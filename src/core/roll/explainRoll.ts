@@ -29,8 +29,8 @@ export type RollFigure =
   | { readonly kind: 'break-even-rise'; readonly against: 'roll' | 'zero' }
   /** Today's forward of roll leg `leg` (1-based). */
   | { readonly kind: 'leg-forward'; readonly leg: number }
-  /** The money after roll leg `leg` (1-based) under the chosen view. */
-  | { readonly kind: 'leg-value'; readonly leg: number };
+  /** The money after roll leg `leg` (1-based), or the leg's rate, under the chosen view. */
+  | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number };
 
 /** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
 export type RollFigureDriver =
@@ -71,9 +71,13 @@ export function rollFigure(curve: Curve, strategy: StrategyInputs, scenarios: re
     const f = forwardOn(curve, leg.start, leg.end, 'simple', strategy.rollDayCount, 'strategy.horizon', trace?.sink);
     return f.ok ? ok({ value: f.value.rate }) : f;
   }
-  if (figure.kind === 'leg-value') {
-    const v = rollValuesOf(amount, ctx.view(specs[chosen]!, trace), trace)[figure.leg - 1];
-    return v ? ok({ value: v.toNumber(), money: v }) : noFigure(`there is no roll leg ${figure.leg}`);
+  if ('leg' in figure) {
+    const rv = ctx.view(specs[chosen]!, trace);
+    const x = rv.legRates[figure.leg - 1];
+    if (x === undefined) return noFigure(`there is no roll leg ${figure.leg}`);
+    if (figure.kind === 'leg-rate') return ok({ value: x });
+    const v = rollValuesOf(amount, rv, trace)[figure.leg - 1]!;
+    return ok({ value: v.toNumber(), money: v });
   }
   if ('against' in figure) {
     const x = rollBreakEven(ctx, ctx.view(specs[chosen]!), figure.against, figure.kind.slice(11) as RollBreakEvenKind, trace);
@@ -116,20 +120,21 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   }
   recordDate(trace, 'horizon', strategy.horizon, H, 'unadjusted, no calendar');
   const conventions = (c: Compounding | null, d: ExplainedConventions['dayCount']): ExplainedConventions => explainedConventions(curve, c, d);
-  if (figure.kind === 'leg-value') trace.steps.splice(trace.steps.findIndex((s) => s.name === `V${figure.leg}`) + 1);
+  if ('leg' in figure) trace.steps.splice(trace.steps.findIndex((s) => s.name === `${figure.kind === 'leg-rate' ? 'r' : 'V'}${figure.leg}`) + 1);
   const last = trace.steps.at(-1)!;
   const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
-  if (figure.kind === 'leg-value') {
+  if ('leg' in figure) {
     const view = specs[chosen]!;
+    const k = figure.leg;
+    const money = figure.kind === 'leg-value';
     const explanation: Explanation = {
       ...base,
-      quantity: 'roll-terminal',
-      formula: `V${figure.leg} = A x g1 x ... x g${figure.leg}, decimal, under "${view.label}": ${view.description}`,
-      valueText: last.text!,
-      unit: `${moneyUnitOf(strategy.currency)} after leg ${figure.leg}, unrounded`,
-      conventions: conventions(null, null),
+      quantity: money ? 'roll-terminal' : 'roll-leg-rate',
+      formula: `${money ? `V${k} = A x g1 x ... x g${k}, decimal` : `r${k}, simple ${dc}`}, under "${view.label}": ${view.description}`,
+      ...(money ? { valueText: last.text!, unit: `${moneyUnitOf(strategy.currency)} after leg ${k}, unrounded` } : {}),
+      conventions: money ? conventions(null, null) : conventions('simple', dc),
     };
-    return ok({ ...r.value, explanation, title: `Value after leg ${figure.leg} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
+    return ok({ ...r.value, explanation, title: `${money ? 'Value after' : 'Rate of'} leg ${k} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
   }
   if (!('view' in figure)) {
     const view = specs[chosen]!;

@@ -71,7 +71,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }:
               <td className="num">{leg.days}</td>
               <td className="num">{formatNumber(leg.tau, 6)}</td>
               <td className="num">{explain ? explain.figure({ kind: 'leg-forward', leg: leg.index }, formatPercent(leg.forward), `today's forward of leg ${leg.index}`) : formatPercent(leg.forward)}</td>
-              {editing ? null : <td className="num">{formatPercent(chosen.legRates[k]!)}</td>}
+              {editing ? null : <td className="num">{explain ? explain.figure({ kind: 'leg-rate', leg: leg.index }, formatPercent(chosen.legRates[k]!), `rate of leg ${leg.index} under ${chosen.label}`) : formatPercent(chosen.legRates[k]!)}</td>}
               <td className="num">
                 {k > 0 ? (
                   <EditLock>

@@ -346,6 +346,36 @@ describe('explainRollFigure', () => {
     expect(checked).toBeGreaterThan(100);
   }, 120_000);
 
+  // The chosen view's leg rates: leg 1 is today's spot, r1 = (1/DF(leg 1 end) - 1) / tau1 (simple
+  // interest, ISDA 2006 4.16, from memory); each later leg's rate is the view's, as its step says.
+  it("gives the chosen view's leg rates bit for bit, leg 1 recomputed from its discount factor to 1e-15", () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      const view = a.value.views[a.value.chosen]!;
+      view.legRates.forEach((shown, k) => {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'leg-rate', leg: k + 1 });
+        const u = rollFigure(curve, strategy, [], { kind: 'leg-rate', leg: k + 1 });
+        if (!t.ok || !u.ok) throw new Error('leg rate');
+        expect(Object.is(t.value.value, shown)).toBe(true);
+        expect(Object.is(u.value.value, shown)).toBe(true);
+        const e = t.value.explanation;
+        expect(e.steps.at(-1)!.name).toBe(`r${k + 1}`);
+        expect(Object.is(e.steps.at(-1)!.value, shown)).toBe(true);
+        if (k === 0) {
+          const read = e.reads.find((x) => x.name === 'DF(leg 1 end)')!;
+          const tau = e.yearFractions.find((y) => y.name === 'tau1')!;
+          expect(rel(tau.value, yearFraction(strategy.rollDayCount, tau.from, tau.to))).toBeLessThanOrEqual(1e-15);
+          expect(rel(shown, (1 / read.discount - 1) / tau.value)).toBeLessThanOrEqual(1e-9); // the plain form loses digits in 1/DF - 1 when r tau is small
+          expect(rel(shown, Math.expm1(-read.lnDiscount) / tau.value)).toBeLessThanOrEqual(1e-15);
+        }
+        checked++;
+      });
+    }
+    expect(checked).toBeGreaterThan(100);
+  }, 120_000);
+
   it('says when a figure rests on a view of the user rather than the curve', () => {
     const { curve, strategy } = CASES[0]!;
     const path = explainRollFigure(curve, { ...strategy, path: { ...strategy.path, fill: 'constant', constant: 0.05 } }, [], { kind: 'terminal', view: 'path', strategy: 'roll' });
