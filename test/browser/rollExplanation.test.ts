@@ -1,7 +1,7 @@
 // The roll panel's figures explain themselves (issue 19), in Debian's Chromium on the built app
 // (demo workspace, invented data): the break-even roll rate against the par bond opens its
 // explanation beside its table, ending in the table's figure to all digits; a money value opens
-// with its exact decimal text; axe-core (WCAG 2.x A/AA plus best practices) finds no serious or
+// with its exact decimal text, and so does the value after a leg beside the legs table; axe-core (WCAG 2.x A/AA plus best practices) finds no serious or
 // critical violation in the roll panel with the explanation open. Screenshots at 1280 and 760 px
 // wide. The numbers themselves are the core's (test/core/roll/explainRoll.test.ts).
 import { readFileSync } from 'node:fs';
@@ -43,6 +43,21 @@ describe('explanations in the roll panel', () => {
     await panel.scrollIntoViewIfNeeded();
     await screenshot(page, 'roll-explanation-1280');
     await page.locator('.roll-side').screenshot({ path: path.join(SCREENSHOT_DIR, 'roll-explanation-1280-area.png') });
+  });
+
+  it('the value after leg 2 opens beside the legs table with its exact decimal text', async () => {
+    const button = roll().getByRole('button', { name: /explain the value after leg 2$/ });
+    const shown = (await button.textContent())!.trim();
+    await button.scrollIntoViewIfNeeded();
+    await button.click();
+    const panel = page.getByRole('complementary', { name: /Value after leg 2 under/ });
+    await panel.waitFor({ timeout: 20_000 });
+    const value = (await panel.locator('[data-field="value"]').textContent())!;
+    // The table shows the money rounded to cents with grouped digits; the panel the exact decimal.
+    expect(shown.replace(/[^\d.]/g, '')).toBe(Number(value).toFixed(2));
+    expect(await panel.evaluate((el) => el.closest('.roll-explain-host')?.querySelector('table.roll-legs') !== null)).toBe(true);
+    await panel.scrollIntoViewIfNeeded();
+    await page.locator('.roll-side').screenshot({ path: path.join(SCREENSHOT_DIR, 'roll-leg-value-1280-area.png') });
   });
 
   it('axe-core finds no serious or critical violation in the roll panel with the explanation open', async () => {

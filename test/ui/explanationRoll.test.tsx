@@ -1,5 +1,6 @@
 // @vitest-environment jsdom
-// The roll panel's figures open their explanation (issue 19): a break-even rate chosen by keyboard
+// The roll panel's figures open their explanation (issue 19): a break-even rate and riding's
+// break-even rise chosen by keyboard
 // and a money value clicked open the panel beside their table, whose value and last step are the
 // table's figure to all digits (analyseRollVsTerm, the panel's own source; the core test
 // test/core/roll/explainRoll.test.ts holds the traced figures to the untraced ones bit for bit and
@@ -8,7 +9,7 @@
 import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import axe from 'axe-core';
-import { analyseRollVsTerm, fullText, validateStrategy } from '../../src/core/index.ts';
+import { analyseRollVsTerm, formatBpChange, fullText, validateStrategy } from '../../src/core/index.ts';
 import { RollSlot } from '../../src/features/roll/RollSlot.tsx';
 import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
@@ -65,6 +66,50 @@ describe('explanations in the roll panel', () => {
     await user.keyboard('{Escape}');
     expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
     expect(button).toHaveFocus();
+  });
+
+  it("riding's break-even rise against the zero opens by keyboard and ends in the shown figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis } = setUp();
+    const shown = analysis.breakEvens.ridingRiseBp.zero!;
+    const button = await screen.findByRole('button', { name: /explain the break-even rise against Zero to horizon$/ });
+    expect(button).toHaveTextContent(formatBpChange(shown));
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Break-even rise of riding against the zero to the horizon/ });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(shown));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`s* = s = ${fullText(shown)} (bp)`);
+    expect(steps.some((s) => s!.startsWith('residual = G_riding - G_zero'))).toBe(true);
+    expect(steps.some((s) => s!.startsWith('G_zero = 1 / DF(horizon)'))).toBe(true);
+  });
+
+  it('a value after a leg opens by keyboard beside the legs table with its exact decimal text', async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis } = setUp();
+    const shown = analysis.rollValues[1]!;
+    const button = await screen.findByRole('button', { name: /explain the value after leg 2$/ });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Value after leg 2 under/ });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(shown.toFixed());
+    expect(panel.closest('.roll-explain-host')!.querySelector('table.roll-legs')).not.toBeNull();
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`V2 = V1 x g2, decimal, 40 digits = ${shown.toFixed()} (money)`);
+  });
+
+  it("the chosen view's rate of a leg opens by keyboard and ends in the shown figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis } = setUp();
+    const view = analysis.views[analysis.chosen]!;
+    const shown = view.legRates[2]!;
+    const button = await screen.findByRole('button', { name: new RegExp(`explain the rate of leg 3 under ${view.label}$`) });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: new RegExp(`Rate of leg 3 under ${view.label}`) });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(shown));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toMatch(new RegExp(`^r3 = .* = ${fullText(shown).replace('.', '\\.')} \\(decimal per year, simple, `));
   });
 
   it('a money value opens with its exact decimal text, and Copy as text writes the core explanation', async () => {

@@ -1,5 +1,5 @@
 import type { Curve } from '../curve/curve.ts';
-import { explainedYearFraction, rateUnit, type ExplainedConventions, type Explanation } from '../curve/explain.ts';
+import { explainedConventions, explainedYearFraction, rateUnit, type ExplainedConventions, type Explanation } from '../curve/explain.ts';
 import { forwardOn } from '../curve/query.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
@@ -7,10 +7,10 @@ import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { marketDate } from '../time/dateConventions.ts';
 import { parseTenor } from '../time/tenor.ts';
-import { rollBreakEven } from './rollBreakEven.ts';
+import { rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
-import { outcomeOf, rollSetup, type NamedCurve } from './rollVsTerm.ts';
+import { outcomeOf, rollSetup, rollValuesOf, type NamedCurve } from './rollVsTerm.ts';
 import type { StrategyInputs, StrategyViewId } from './strategyInputs.ts';
 import type { Money } from './strategyMoney.ts';
 import type { StrategyId, TermStrategyId } from './strategyValues.ts';
@@ -25,8 +25,12 @@ export type RollFigure =
   | { readonly kind: 'terminal' | 'return'; readonly view: StrategyViewId; readonly strategy: StrategyId }
   /** Rolling's break-even against a term strategy under the chosen view: the constant rate r* or the shift of the view. */
   | { readonly kind: 'break-even-rate' | 'break-even-shift'; readonly against: TermStrategyId }
+  /** Riding's break-even against rolling or the zero: the rise of the chosen view's horizon curve (bp). */
+  | { readonly kind: 'break-even-rise'; readonly against: 'roll' | 'zero' }
   /** Today's forward of roll leg `leg` (1-based). */
-  | { readonly kind: 'leg-forward'; readonly leg: number };
+  | { readonly kind: 'leg-forward'; readonly leg: number }
+  /** The money after roll leg `leg` (1-based), or the leg's rate, under the chosen view. */
+  | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number };
 
 /** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
 export type RollFigureDriver =
@@ -67,8 +71,16 @@ export function rollFigure(curve: Curve, strategy: StrategyInputs, scenarios: re
     const f = forwardOn(curve, leg.start, leg.end, 'simple', strategy.rollDayCount, 'strategy.horizon', trace?.sink);
     return f.ok ? ok({ value: f.value.rate }) : f;
   }
+  if ('leg' in figure) {
+    const rv = ctx.view(specs[chosen]!, trace);
+    const x = rv.legRates[figure.leg - 1];
+    if (x === undefined) return noFigure(`there is no roll leg ${figure.leg}`);
+    if (figure.kind === 'leg-rate') return ok({ value: x });
+    const v = rollValuesOf(amount, rv, trace)[figure.leg - 1]!;
+    return ok({ value: v.toNumber(), money: v });
+  }
   if ('against' in figure) {
-    const x = rollBreakEven(ctx, ctx.view(specs[chosen]!), figure.against, figure.kind === 'break-even-rate' ? 'rate' : 'shift', trace);
+    const x = rollBreakEven(ctx, ctx.view(specs[chosen]!), figure.against, figure.kind.slice(11) as RollBreakEvenKind, trace);
     return x === null ? noFigure('rolling and this strategy do not cross in the bracket (or there is a single leg, bought today)') : ok({ value: x });
   }
   const spec = specs.find((s) => s.id === figure.view);
@@ -86,7 +98,7 @@ const GROWTH: Readonly<Record<StrategyId, string>> = {
   riding: "G_riding = (coupons grown to the horizon + dirty price on the view's horizon curve) / 100",
 };
 
-const AGAINST: Readonly<Record<TermStrategyId, string>> = { zero: 'the zero to the horizon', bond: 'the par bond to the horizon', riding: 'riding the longer bond' };
+const AGAINST: Readonly<Record<StrategyId, string>> = { roll: 'rolling', zero: 'the zero to the horizon', bond: 'the par bond to the horizon', riding: 'riding the longer bond' };
 
 /** One figure of the analysis with its explanation: the steps of the same computation, ending in the figure to all digits. */
 export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure): Result<RollFigureExplanation> {
@@ -107,28 +119,40 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
     return ok({ ...r.value, explanation: trace.sink.explanation!, title: `Today's forward of roll leg ${leg.index} (${leg.start} to ${leg.end})`, driver: rate(leg.start, leg.end, 'simple', dc, null), why: null, userView: false });
   }
   recordDate(trace, 'horizon', strategy.horizon, H, 'unadjusted, no calendar');
-  const conventions = (c: Compounding | null, d: ExplainedConventions['dayCount']): ExplainedConventions => ({
-    compounding: c,
-    dayCount: d,
-    curveDayCount: curve.dayCount,
-    interpolation: curve.interpolation,
-    extrapolation: curve.extrapolation,
-    businessDay: 'unadjusted',
-    calendar: 'none',
-  });
+  const conventions = (c: Compounding | null, d: ExplainedConventions['dayCount']): ExplainedConventions => explainedConventions(curve, c, d);
+  if ('leg' in figure) trace.steps.splice(trace.steps.findIndex((s) => s.name === `${figure.kind === 'leg-rate' ? 'r' : 'V'}${figure.leg}`) + 1);
   const last = trace.steps.at(-1)!;
   const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
-  if ('against' in figure) {
+  if ('leg' in figure) {
+    const view = specs[chosen]!;
+    const k = figure.leg;
+    const money = figure.kind === 'leg-value';
+    const explanation: Explanation = {
+      ...base,
+      quantity: money ? 'roll-terminal' : 'roll-leg-rate',
+      formula: `${money ? `V${k} = A x g1 x ... x g${k}, decimal` : `r${k}, simple ${dc}`}, under "${view.label}": ${view.description}`,
+      ...(money ? { valueText: last.text!, unit: `${moneyUnitOf(strategy.currency)} after leg ${k}, unrounded` } : {}),
+      conventions: money ? conventions(null, null) : conventions('simple', dc),
+    };
+    return ok({ ...r.value, explanation, title: `${money ? 'Value after' : 'Rate of'} leg ${k} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
+  }
+  if (!('view' in figure)) {
     const view = specs[chosen]!;
     const isRate = figure.kind === 'break-even-rate';
+    const against = figure.against;
+    const own = figure.kind === 'break-even-rise' ? 'riding' : 'roll';
     const explanation: Explanation = {
       ...base,
       quantity: 'roll-break-even',
-      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : 's*: a parallel shift of the view (bp)'}, at which G_roll = G_${figure.against} under "${view.label}"; ${GROWTH.roll}; ${GROWTH[figure.against]}. ${view.description}`,
+      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : 's*: a parallel shift of the view (bp)'}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
       conventions: isRate ? conventions('simple', dc) : conventions(null, null),
     };
-    const driver = figure.against === 'zero' ? rate(S, H, 'annual', 'ACT/365F', zeroNote) : par(figure.against);
-    return ok({ ...r.value, explanation, title: `Break-even ${isRate ? 'roll rate r*' : 'shift of the view'} against ${AGAINST[figure.against]}`, driver, why: null, userView: view.id !== 'forwards' });
+    const driver =
+      own === 'riding' ? par(own)
+      : against === 'zero' ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
+      : par(against as 'bond');
+    const title = `Break-even ${isRate ? 'roll rate r*' : own === 'riding' ? 'rise of riding' : 'shift of the view'} against ${AGAINST[against]}`;
+    return ok({ ...r.value, explanation, title, driver, why: null, userView: view.id !== 'forwards' });
   }
   const spec = specs.find((s) => s.id === figure.view)!;
   const id = figure.strategy;

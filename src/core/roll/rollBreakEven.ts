@@ -7,7 +7,8 @@ import { brentRoot } from './rollSolve.ts';
 import { constantRateSpec, shiftedSpec, type RollView } from './rollViews.ts';
 import { bondPricerOn, bondYieldFromPriceOn, parBondOn } from './strategyBonds.ts';
 import { recordBreakEven, type RollTrace } from './rollTrace.ts';
-import { bondAtHorizon, strategyGrowths, TERM_STRATEGY_IDS, type RollContext, type StrategyId, type TermStrategyId } from './strategyValues.ts';
+import { rateUnit } from '../curve/explain.ts';
+import { strategyGrowths, TERM_STRATEGY_IDS, type RollContext, type StrategyId, type TermStrategyId } from './strategyValues.ts';
 
 /**
  * Break-evens of the roll-versus-term analysis. Every root is found with Brent's method
@@ -65,55 +66,45 @@ function crossing(f: (x: number) => number, a: number, b: number, xTol: number):
   return brentRoot(f, a, b, xTol);
 }
 
-/** Which break-even of rolling against a term strategy: the constant rate r* or the parallel shift of the view. */
-export type RollBreakEvenKind = 'rate' | 'shift';
+/** Which break-even: rolling's constant rate r* or parallel shift of the view, or riding's rise of the horizon curve. */
+export type RollBreakEvenKind = 'rate' | 'shift' | 'rise';
 
 /**
- * Rolling's break-even against term strategy `id` under the chosen view: the constant rate r* for
- * legs 2..n (decimal, simple on the roll day count) or the parallel shift of the view (bp), at
- * which G_roll - G_id = 0; null when the bracket holds no crossing. With `trace`, the root is
- * recorded with both growths evaluated at it (the same functions the solver calls) and the
- * difference left, the solver's residual.
+ * A break-even under the chosen view; null when the bracket holds no crossing. `rate` and `shift`:
+ * rolling's against term strategy `id`, the constant rate r* for legs 2..n (decimal, simple on the
+ * roll day count) or the parallel shift of the view (bp) at which G_roll - G_id = 0. `rise`:
+ * riding's against `id`, the parallel rise (bp, zero rates, continuous on the curve's clock) of the
+ * view's horizon curve at which G_riding - G_id = 0 (how far the curve can rise before riding's
+ * advantage is gone). With `trace`, the root is recorded with both growths evaluated at it (the
+ * same functions the solver calls) and the difference left, the solver's residual.
  */
-export function rollBreakEven(ctx: RollContext, chosen: RollView, id: TermStrategyId, kind: RollBreakEvenKind, trace?: RollTrace): number | null {
-  const spec = (x: number, t?: RollTrace) => ctx.view(kind === 'rate' ? constantRateSpec(chosen.spec, x) : shiftedSpec(chosen.spec, x), t);
-  const f = (x: number): number => {
-    const g = strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, spec(x));
-    return g.roll - g[id];
+export function rollBreakEven(ctx: RollContext, chosen: RollView, id: StrategyId, kind: RollBreakEvenKind, trace?: RollTrace): number | null {
+  const own = kind === 'rise' ? 'riding' : 'roll';
+  const view = (x: number, t?: RollTrace): RollView =>
+    kind === 'rise' ? { ...(t ? ctx.view(chosen.spec, t) : chosen), horizonCurve: shiftedCurve(chosen.horizonCurve, x) } : ctx.view(kind === 'rate' ? constantRateSpec(chosen.spec, x) : shiftedSpec(chosen.spec, x), t);
+  const f = (x: number, t?: RollTrace): number => {
+    const v = view(x, t);
+    const g = strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, v, t && { trace: t, id });
+    if (t) strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, v, { trace: t, id: own });
+    return g[own] - g[id];
   };
-  const [a, b] = kind === 'rate' ? ROLL_RATE_BRACKET : SHIFT_BRACKET_BP;
-  const xTol = kind === 'rate' ? 1e-15 : 1e-10;
+  const rate = kind === 'rate';
+  const [a, b] = rate ? ROLL_RATE_BRACKET : SHIFT_BRACKET_BP;
+  const xTol = rate ? 1e-15 : 1e-10;
   const root = crossing(f, a, b, xTol);
-  if (trace && root) recordBreakEven(trace, ctx, id, kind, root, { bracket: [a, b], xTol }, (t) => {
-    const g = strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, spec(root.x, t), { trace: t, id });
-    return g.roll - g[id];
-  });
+  if (trace && root) recordBreakEven(trace, rate ? 'r' : 's', rate ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp', `G_${own} - G_${id}`, root, [a, b], xTol, (t) => f(root.x, t));
   return root ? root.x : null;
 }
 
 export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEvens {
-  const growths = (rv: RollView) => strategyGrowths(ctx.zeroGrowth, ctx.bond, ctx.riding, ctx.horizon, rv);
   const rollRate = {} as Record<TermStrategyId, number | null>;
   const shiftBp = {} as Record<TermStrategyId, number | null>;
+  const ridingRiseBp = {} as Record<Exclude<StrategyId, 'riding'>, number | null>;
   for (const id of TERM_STRATEGY_IDS) {
     rollRate[id] = rollBreakEven(ctx, chosen, id, 'rate');
     shiftBp[id] = rollBreakEven(ctx, chosen, id, 'shift');
   }
-  const base = growths(chosen);
-  const ridingRiseBp = {} as Record<Exclude<StrategyId, 'riding'>, number | null>;
-  for (const other of ['roll', 'zero', 'bond'] as const) {
-    const target = base[other];
-    ridingRiseBp[other] = crossing(
-      (d) => {
-        const moved: RollView = { ...chosen, horizonCurve: shiftedCurve(chosen.horizonCurve, d) };
-        const v = bondAtHorizon(ctx.riding, ctx.horizon, moved);
-        return (v.coupons + v.price) / 100 - target;
-      },
-      SHIFT_BRACKET_BP[0],
-      SHIFT_BRACKET_BP[1],
-      1e-10,
-    )?.x ?? null;
-  }
+  for (const id of ['roll', 'zero', 'bond'] as const) ridingRiseBp[id] = rollBreakEven(ctx, chosen, id, 'rise');
   return { rollRate, shiftBp, ridingRiseBp, curve: breakEvenCurve(ctx) };
 }
 

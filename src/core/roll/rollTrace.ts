@@ -15,7 +15,6 @@ import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { RollLeg, ViewSpec } from './rollViews.ts';
 import type { BondFlow } from './strategyBonds.ts';
-import type { RollContext, TermStrategyId } from './strategyValues.ts';
 
 /**
  * The trace of one roll-versus-term figure (issue 19). The analysis's own functions (applyView,
@@ -43,6 +42,8 @@ const PER_100 = 'per 100 face';
 const push = (t: RollTrace, name: string, formula: string, inputs: readonly string[], value: number, unit: string): void => {
   t.steps.push({ name, formula, inputs, value, unit });
 };
+
+const cf = (t: RollTrace, i: number, flow: BondFlow): void => push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
 
 /** The product g_a x (g_(a+1) x (... x g_n)) in words, as the code multiplies it (from the last leg back). */
 const productWords = (from: number, n: number): string => (from === n ? `g${n}` : from + 1 === n ? `g${from} x g${n}` : `g${from} x (... x g${n})`);
@@ -83,7 +84,7 @@ export interface HorizonGrowthParts {
 
 /** A flow of a term bond paid by the horizon and grown to it at the view's money-market rates. */
 export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts: HorizonGrowthParts, legCount: number, growth: number): void {
-  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
+  cf(t, i, flow);
   const k = parts.leg;
   const gs = (from: number): string[] => Array.from({ length: legCount - from + 1 }, (_, j) => `g${from + j}`);
   if (k < 0) {
@@ -100,16 +101,18 @@ export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts:
 
 /** A flow after the horizon, priced on the view's horizon curve. */
 export function recordHorizonPrice(t: RollTrace, i: number, flow: BondFlow, dfh: number): void {
-  push(t, `CF${i}`, `CF${i} = flow on ${flow.date}`, [], flow.amount, PER_100);
+  cf(t, i, flow);
   push(t, `DFH${i}`, `DFH${i} = DF(${flow.date}) on the view's horizon curve`, [], dfh, DF_UNIT);
 }
 
+/** `name = CF<i> x <b><i> + ...` over the flows `idx`. */
+const sumStep = (t: RollTrace, name: string, b: string, idx: readonly number[], value: number): void =>
+  push(t, name, `${name} = ${idx.map((i) => `CF${i} x ${b}${i}`).join(' + ') || 0}`, idx.flatMap((i) => [`CF${i}`, `${b}${i}`]), value, PER_100);
+
 /** A term bond's value at the horizon per 100 face and its growth per unit (bought at par). */
 export function recordBondTotals(t: RollTrace, id: string, flows: readonly { i: number; after: boolean }[], coupons: number, price: number, growth: number): void {
-  const before = flows.filter((f) => !f.after);
-  const after = flows.filter((f) => f.after);
-  push(t, 'coupons', `coupons = ${before.map((f) => `CF${f.i} x R${f.i}`).join(' + ') || 0}`, before.flatMap((f) => [`CF${f.i}`, `R${f.i}`]), coupons, PER_100);
-  push(t, 'price', `price = ${after.map((f) => `CF${f.i} x DFH${f.i}`).join(' + ') || 0}`, after.flatMap((f) => [`CF${f.i}`, `DFH${f.i}`]), price, PER_100);
+  sumStep(t, 'coupons', 'R', flows.filter((f) => !f.after).map((f) => f.i), coupons);
+  sumStep(t, 'price', 'DFH', flows.filter((f) => f.after).map((f) => f.i), price);
   push(t, `G_${id}`, `G_${id} = (coupons + price) / 100`, ['coupons', 'price'], growth, GROWTH_UNIT);
 }
 
@@ -137,30 +140,31 @@ export function recordMoney(t: RollTrace, growthName: string, amount: string, gr
   step('terminal', 'terminal = A x G (decimal), decimal, 40 digits', ['A', 'G (decimal)'], terminal, 'money at the horizon');
 }
 
+/** The money after roll leg k (V0: the amount), decimal: V<k> = V<k-1> x g<k>, g<k> entering as its shortest decimal text. */
+export function recordLegValue(t: RollTrace, k: number, text: string): void {
+  t.steps.push({ name: `V${k}`, formula: k ? `V${k} = V${k - 1} x g${k}, decimal, 40 digits` : 'V0 = the amount, as typed', inputs: k ? [`V${k - 1}`, `g${k}`] : [], value: Number(text), unit: 'money', text });
+}
+
 export const recordDate = (t: RollTrace, name: string, given: string, date: IsoDate, rule: string): void => {
   t.dates.push({ name, given, unadjusted: date, adjusted: date, rule });
 };
 
 /**
- * A break-even (rollBreakEven.ts): the solver's root, then both growths evaluated at it by the
- * functions the solver calls (`evaluate` records them and returns G_roll - G_id), the residual,
- * and the root again as the figure.
+ * A break-even (rollBreakEven.ts): the solver's root `x` of `diff` (two growths' names joined by
+ * " - "), then both growths evaluated at it by the functions the solver calls (`evaluate` records
+ * them and returns the difference), the residual, and the root again as the figure.
  */
 export function recordBreakEven(
   t: RollTrace,
-  ctx: RollContext,
-  id: TermStrategyId,
-  kind: 'rate' | 'shift',
+  x: string,
+  unit: string,
+  diff: string,
   root: { readonly x: number; readonly iterations: number },
-  solver: { readonly bracket: readonly [number, number]; readonly xTol: number },
+  [a, b]: readonly [number, number],
+  xTol: number,
   evaluate: (t: RollTrace) => number,
 ): void {
-  const x = kind === 'rate' ? 'r' : 's';
-  const unit = kind === 'rate' ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp';
-  const [a, b] = solver.bracket;
-  push(t, x, `${x} = root of G_roll - G_${id} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${solver.xTol}`, [], root.x, unit);
-  const residual = evaluate(t);
-  push(t, 'residual', `residual = G_roll - G_${id}`, ['G_roll', `G_${id}`], residual, GROWTH_UNIT);
+  push(t, x, `${x} = root of ${diff} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${xTol}`, [], root.x, unit);
+  push(t, 'residual', `residual = ${diff}`, diff.split(' - '), evaluate(t), GROWTH_UNIT);
   push(t, `${x}*`, `${x}* = ${x}`, [x, 'residual'], root.x, unit);
 }
-

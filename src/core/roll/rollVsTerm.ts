@@ -28,7 +28,7 @@ import { curveSeenAtHorizon } from './horizonCurve.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { yieldTag } from '../format/conventionTag.ts';
 import { rollBreakEvens, type RollBreakEvens } from './rollBreakEven.ts';
-import type { RollTrace } from './rollTrace.ts';
+import { recordLegValue, type RollTrace } from './rollTrace.ts';
 import type { ExplanationSink } from '../curve/explain.ts';
 
 /**
@@ -354,10 +354,15 @@ function ridingSplit(ctx: RollContext, rv: RollView, amount: Money): RidingSplit
   };
 }
 
-/** Money after each roll leg: V_k = V_{k-1} x (1 + r_k tau_k), V_0 = the amount (decimal.js products, unrounded). */
-function rollValuesOf(amount: Money, rv: RollView): Money[] {
+/** Money after each roll leg: V_k = V_{k-1} x (1 + r_k tau_k), V_0 = the amount (decimal.js products, unrounded); with `trace`, each V_k as decimal text. */
+export function rollValuesOf(amount: Money, rv: RollView, trace?: RollTrace): Money[] {
   let v = amount;
-  return rv.legGrowth.map((g) => (v = moneyTimes(v, g)));
+  if (trace) recordLegValue(trace, 0, v.toFixed());
+  return rv.legGrowth.map((g, k) => {
+    v = moneyTimes(v, g);
+    if (trace) recordLegValue(trace, k + 1, v.toFixed());
+    return v;
+  });
 }
 
 /**

@@ -53,7 +53,7 @@ export interface RollExplain {
   panel(group: RollFigureGroup): ReactNode;
 }
 
-const groupOf = (f: RollFigure): RollFigureGroup => ('against' in f ? 'breakevens' : f.kind === 'leg-forward' ? 'legs' : 'results');
+const groupOf = (f: RollFigure): RollFigureGroup => ('against' in f ? 'breakevens' : 'leg' in f ? 'legs' : 'results');
 const sameFigure = (a: RollCell, b: RollCell): boolean => JSON.stringify(a.roll.figure) === JSON.stringify(b.roll.figure);
 
 const BASE_LABEL: Record<(typeof BASE_VIEWS)[number], string> = {

@@ -12,6 +12,7 @@ import {
   RETURN_TAG,
   yieldTag,
   type RollAnalysis,
+  type RollFigure,
   type StrategyInputs,
 } from '../../core/index.ts';
 import { EditLock } from '../../components/EditLock.tsx';
@@ -70,7 +71,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }:
               <td className="num">{leg.days}</td>
               <td className="num">{formatNumber(leg.tau, 6)}</td>
               <td className="num">{explain ? explain.figure({ kind: 'leg-forward', leg: leg.index }, formatPercent(leg.forward), `today's forward of leg ${leg.index}`) : formatPercent(leg.forward)}</td>
-              {editing ? null : <td className="num">{formatPercent(chosen.legRates[k]!)}</td>}
+              {editing ? null : <td className="num">{explain ? explain.figure({ kind: 'leg-rate', leg: leg.index }, formatPercent(chosen.legRates[k]!), `rate of leg ${leg.index} under ${chosen.label}`) : formatPercent(chosen.legRates[k]!)}</td>}
               <td className="num">
                 {k > 0 ? (
                   <EditLock>
@@ -80,7 +81,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }:
                   <span title="bought today">{formatPercent(path.legRates[k]!)}</span>
                 )}
               </td>
-              <td className="num">{formatMoney(analysis.rollValues[k]!)}</td>
+              <td className="num">{explain ? explain.figure({ kind: 'leg-value', leg: leg.index }, formatMoney(analysis.rollValues[k]!), `value after leg ${leg.index}`) : formatMoney(analysis.rollValues[k]!)}</td>
             </tr>
           ))}
         </tbody>
@@ -183,6 +184,8 @@ export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis;
   const showShift = v.id !== 'forwards';
   const label = (id: string) => analysis.strategies.find((s) => s.id === id)?.label ?? id;
   const n = analysis.legs.length;
+  const fig = (f: RollFigure, x: number | null, words: string) => (x === null ? NO_VALUE : explain ? explain.figure(f, formatBpChange(x), words) : formatBpChange(x));
+  const rise = (against: 'roll' | 'zero') => fig({ kind: 'break-even-rise', against }, b.ridingRiseBp[against], `break-even rise against ${label(against)}`);
   return (
     <div className="roll-breakevens">
       <table className="roll-table">
@@ -218,8 +221,8 @@ export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis;
       {explain?.panel('breakevens')}
       <p className="small">
         Riding the {analysis.ridingBond.maturity} bond: the horizon curve can rise in parallel by{' '}
-        <strong>{b.ridingRiseBp.roll === null ? NO_VALUE : formatBpChange(b.ridingRiseBp.roll)}</strong> (zero rates, <span className="tag">{rateTag('continuous', analysis.curveDayCount)}</span>) before it falls behind rolling, and by{' '}
-        {b.ridingRiseBp.zero === null ? NO_VALUE : formatBpChange(b.ridingRiseBp.zero)} before it falls behind the zero to the horizon.
+        <strong>{rise('roll')}</strong> (zero rates, <span className="tag">{rateTag('continuous', analysis.curveDayCount)}</span>) before it falls behind rolling, and by{' '}
+        {rise('zero')} before it falls behind the zero to the horizon.
         {b.ridingRiseBp.roll !== null && b.ridingRiseBp.roll < 0 ? ' A negative figure means it is already behind and needs the curve to fall.' : ''}
       </p>
       {b.curve.length > 0 ? (

@@ -272,6 +272,110 @@ describe('explainRollFigure', () => {
     expect(checked).toBeGreaterThan(40);
   }, 120_000);
 
+  it("gives riding's break-even rises equal to the untraced analysis, bit for bit", () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      for (const against of ['roll', 'zero'] as const) {
+        const shown = a.value.breakEvens.ridingRiseBp[against];
+        const t = explainRollFigure(curve, strategy, [], { kind: 'break-even-rise', against });
+        const u = rollFigure(curve, strategy, [], { kind: 'break-even-rise', against });
+        if (shown === null) {
+          expect(t.ok).toBe(false);
+          continue;
+        }
+        if (!t.ok || !u.ok) throw new Error('riding rise');
+        expect(Object.is(t.value.value, shown)).toBe(true);
+        expect(Object.is(u.value.value, shown)).toBe(true);
+        expect(Object.is(t.value.explanation.steps.at(-1)!.value, shown)).toBe(true);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(30);
+  }, 120_000);
+
+  it("has riding-rise steps whose growths, recomputed at the shown root, are equal to the solver tolerance", () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      for (const against of ['roll', 'zero'] as const) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'break-even-rise', against });
+        if (!t.ok) continue;
+        const e = t.value.explanation;
+        const steps = stepsOf(e);
+        const Griding = recomputeGrowth(e, 'riding', strategy.rollDayCount);
+        const Gother = recomputeGrowth(e, against, strategy.rollDayCount);
+        expect(Object.is(val(steps, 'residual'), val(steps, 'G_riding') - val(steps, `G_${against}`))).toBe(true);
+        expect(Math.abs(Griding - Gother)).toBeLessThanOrEqual(1e-12);
+        expect(Object.is(val(steps, 's*'), t.value.value)).toBe(true);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(30);
+  }, 120_000);
+
+  // The money after each roll leg: V_k = V_(k-1) x g_k in decimal, V_0 the amount, g_k entering as
+  // its shortest decimal text (the same rule as the terminal values above).
+  it('gives the value after each leg equal to the analysis to the last digit, and its steps recomputed exactly', () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      a.value.rollValues.forEach((shown, k) => {
+        const figure: RollFigure = { kind: 'leg-value', leg: k + 1 };
+        const t = explainRollFigure(curve, strategy, [], figure);
+        const u = rollFigure(curve, strategy, [], figure);
+        if (!t.ok || !u.ok) throw new Error('leg value');
+        expect(u.value.money!.toFixed()).toBe(shown.toFixed());
+        expect(t.value.money!.toFixed()).toBe(shown.toFixed());
+        const e = t.value.explanation;
+        expect(e.valueText).toBe(shown.toFixed());
+        expect(e.steps.at(-1)!.name).toBe(`V${k + 1}`);
+        recomputeGrowth(e, 'roll', strategy.rollDayCount);
+        const steps = stepsOf(e);
+        let v = new MoneyDecimal(strategy.amount);
+        expect(steps.get('V0')!.text).toBe(v.toFixed());
+        for (let j = 1; j <= k + 1; j++) {
+          v = v.times(new MoneyDecimal(String(val(steps, `g${j}`))));
+          expect(steps.get(`V${j}`)!.text, `V${j}`).toBe(v.toFixed());
+        }
+        expect(v.toFixed()).toBe(shown.toFixed());
+        checked++;
+      });
+    }
+    expect(checked).toBeGreaterThan(100);
+  }, 120_000);
+
+  // The chosen view's leg rates: leg 1 is today's spot, r1 = (1/DF(leg 1 end) - 1) / tau1 (simple
+  // interest, ISDA 2006 4.16, from memory); each later leg's rate is the view's, as its step says.
+  it("gives the chosen view's leg rates bit for bit, leg 1 recomputed from its discount factor to 1e-15", () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      const view = a.value.views[a.value.chosen]!;
+      view.legRates.forEach((shown, k) => {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'leg-rate', leg: k + 1 });
+        const u = rollFigure(curve, strategy, [], { kind: 'leg-rate', leg: k + 1 });
+        if (!t.ok || !u.ok) throw new Error('leg rate');
+        expect(Object.is(t.value.value, shown)).toBe(true);
+        expect(Object.is(u.value.value, shown)).toBe(true);
+        const e = t.value.explanation;
+        expect(e.steps.at(-1)!.name).toBe(`r${k + 1}`);
+        expect(Object.is(e.steps.at(-1)!.value, shown)).toBe(true);
+        if (k === 0) {
+          const read = e.reads.find((x) => x.name === 'DF(leg 1 end)')!;
+          const tau = e.yearFractions.find((y) => y.name === 'tau1')!;
+          expect(rel(tau.value, yearFraction(strategy.rollDayCount, tau.from, tau.to))).toBeLessThanOrEqual(1e-15);
+          expect(rel(shown, (1 / read.discount - 1) / tau.value)).toBeLessThanOrEqual(1e-9); // the plain form loses digits in 1/DF - 1 when r tau is small
+          expect(rel(shown, Math.expm1(-read.lnDiscount) / tau.value)).toBeLessThanOrEqual(1e-15);
+        }
+        checked++;
+      });
+    }
+    expect(checked).toBeGreaterThan(100);
+  }, 120_000);
+
   it('says when a figure rests on a view of the user rather than the curve', () => {
     const { curve, strategy } = CASES[0]!;
     const path = explainRollFigure(curve, { ...strategy, path: { ...strategy.path, fill: 'constant', constant: 0.05 } }, [], { kind: 'terminal', view: 'path', strategy: 'roll' });
