@@ -233,3 +233,16 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path: file, fullPage: true, animations: 'disabled' });
   return file;
 }
+
+/**
+ * A link (on `serverUrl`) that opens an engine document in the workbench, as its "Copy link" would
+ * make it: the document read as the workbench reads a file (row ids r0, r1, ...), then encoded.
+ */
+export async function engineDocumentLink(serverUrl: string, engine: unknown): Promise<string> {
+  const { workbenchFromEngine } = await import('../../src/core/index.ts');
+  const { encodeWorkspaceLink } = await import('../../src/share/linkCodec.ts');
+  let n = 0;
+  const doc = workbenchFromEngine(engine, () => `r${n++}`);
+  if (!doc.ok) throw new Error(doc.errors[0]!.message);
+  return `${serverUrl}#${await encodeWorkspaceLink(doc.value as unknown as Record<string, unknown>)}`;
+}

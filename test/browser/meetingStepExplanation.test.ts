@@ -5,40 +5,21 @@
 // page error. Screenshot: test/artifacts/screenshots/meeting-step-explanation.png.
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
-import { buildCurve, formatBpChange, fullText, meetingStepTable, OVERNIGHT_KIT, workbenchFromEngine } from '../../src/core/index.ts';
-import { encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
-import { launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
+import { buildCurve, formatBpChange, fullText, meetingStepTable, OVERNIGHT_KIT } from '../../src/core/index.ts';
+import { engineDocumentLink, launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
 import type { StaticServer } from './static-server.ts';
+import { INVENTED_2022_SOFR_STEPS } from '../helpers/markets.ts';
 
 let browser: TestBrowser | undefined;
 let server: StaticServer | undefined;
 let link = '';
 
-const ENGINE = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-03-01',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10 }],
-  meetingSteps: { on: true, effectiveDates: ['2022-03-17', '2022-11-03', '2022-12-15', '2023-07-27'] },
-  quotes: [
-    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0005 },
-    { kind: 'deposit', maturity: '2022-06-01', rate: 0.0125 },
-    { kind: 'deposit', maturity: '2022-12-01', rate: 0.0165 },
-    { kind: 'deposit', maturity: '2023-03-01', rate: 0.02325 },
-    { kind: 'ois', tenor: '2Y', rate: 0.032 },
-    { kind: 'ois', tenor: '3Y', rate: 0.034 },
-    { kind: 'ois', tenor: '5Y', rate: 0.033 },
-  ],
-};
+const ENGINE = INVENTED_2022_SOFR_STEPS;
 
 beforeAll(async () => {
   server = await serveDist();
   browser = await launchBrowser();
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  link = `${server.url}#${await encodeWorkspaceLink(doc.value as unknown as Record<string, unknown>)}`;
+  link = await engineDocumentLink(server.url, ENGINE);
 });
 afterAll(async () => {
   await browser?.close();

@@ -6,9 +6,7 @@
 // test/artifacts/screenshots/overnight-turn-solve.png.
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
-import { workbenchFromEngine } from '../../src/core/index.ts';
-import { encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
-import { launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
+import { engineDocumentLink, launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
 import type { StaticServer } from './static-server.ts';
 
 let browser: TestBrowser | undefined;
@@ -32,10 +30,7 @@ const ENGINE = {
 beforeAll(async () => {
   server = await serveDist();
   browser = await launchBrowser();
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  link = `${server.url}#${await encodeWorkspaceLink(doc.value as unknown as Record<string, unknown>)}`;
+  link = await engineDocumentLink(server.url, ENGINE);
 });
 afterAll(async () => {
   await browser?.close();

@@ -96,3 +96,25 @@ export const INVENTED_2022_OVERNIGHT = {
     { kind: 'ois', tenor: '3Y', rate: 0.029 },
   ],
 } as const;
+
+/**
+ * The invented 2022 overnight market stepped on SOFR's 2022-2023 effective dates
+ * (MARKET-CONVENTIONS.md section h), with a year-end turn; quotes invented.
+ */
+export const INVENTED_2022_SOFR_STEPS = {
+  format: 'tenorscope-workspace',
+  version: 2,
+  valuationDate: '2022-03-01',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10 }],
+  meetingSteps: { on: true, effectiveDates: ['2022-03-17', '2022-11-03', '2022-12-15', '2023-07-27'] },
+  quotes: [
+    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0005 },
+    { kind: 'deposit', maturity: '2022-06-01', rate: 0.0125 },
+    { kind: 'deposit', maturity: '2022-12-01', rate: 0.0165 },
+    { kind: 'deposit', maturity: '2023-03-01', rate: 0.02325 },
+    { kind: 'ois', tenor: '2Y', rate: 0.032 },
+    { kind: 'ois', tenor: '3Y', rate: 0.034 },
+    { kind: 'ois', tenor: '5Y', rate: 0.033 },
+  ],
+};
