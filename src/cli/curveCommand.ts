@@ -1,5 +1,6 @@
 import {
   OVERNIGHT_KIT,
+  turnSpreads,
   quoteDates,
   moduleOf,
   analyzeBond,
@@ -623,10 +624,33 @@ function runDocument(index: number, input: unknown, opts: Options, builder: Curv
       points,
       forwards,
       ...(opts.bonds.length > 0 ? { bonds: bondsOut } : {}),
+      ...turnsOutput(build, read.rowOfQuote),
       warnings: build.warnings,
       ...(named !== null ? { curves: named.value } : {}),
     }),
     errors: [],
+  };
+}
+
+/**
+ * The document's turns with the spread each took on the built curve, printed when one of them is
+ * solved from a quote (`solveFrom`), so a batch user can read the solved size: each turn's name,
+ * dates, `spreadBp` (bp, simple ACT/360, added to each of its days' overnight rate) and, when
+ * solved, `solvedFrom`, the quote's index (as the quotes' own `index`). Absent otherwise, so a
+ * document with set spreads prints as before.
+ */
+function turnsOutput(build: CurveBuild, rowOf: readonly number[] | null): { turns?: readonly object[] } {
+  const turns = build.workspace?.turns;
+  if (!turns?.some((t) => typeof t.solveFrom === 'number')) return {};
+  const spreads = new Map(turnSpreads(build).map((s) => [s.index, s.spreadBp]));
+  return {
+    turns: turns.map((t, i) => ({
+      name: t.name,
+      from: t.from,
+      to: t.to,
+      spreadBp: spreads.get(i) ?? t.spreadBp ?? null,
+      ...(typeof t.solveFrom === 'number' ? { solvedFrom: atRow(rowOf, t.solveFrom) } : {}),
+    })),
   };
 }
 

@@ -58,6 +58,8 @@ export interface BuiltDocument {
   readonly points: readonly PointOut[];
   readonly forwards: readonly ForwardOut[];
   readonly bonds?: readonly object[];
+  /** The document's turns with the spread each took, when one is solved from a quote (turnsOutput in curveCommand.ts). */
+  readonly turns?: readonly object[];
   readonly warnings: readonly CoreWarning[];
   /** The document's named curves, each under its name (only when it has some; namedCurveOutput in curveCommand.ts). */
   readonly curves?: Readonly<Record<string, object>>;
@@ -99,6 +101,7 @@ export function builtDocumentLine(o: BuiltDocument): string {
   }
   s += ']';
   if (o.bonds !== undefined) s += `,"bonds":${JSON.stringify(o.bonds)}`;
+  if (o.turns !== undefined) s += `,"turns":${JSON.stringify(o.turns)}`;
   s += `,"warnings":${o.warnings.length === 0 ? '[]' : JSON.stringify(o.warnings)}`;
   return o.curves === undefined ? `${s}}` : `${s},"curves":${JSON.stringify(o.curves)}}`;
 }
