@@ -1,6 +1,7 @@
 import {
   applyScenario,
   buildCurve,
+  effectDates,
   explainScenarioChange,
   explainMeetingStep,
   discountOn,
@@ -225,12 +226,13 @@ function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Res
   const explanation = r.value.explanation;
   const what = c.field === 'zero' ? 'zero rate' : `${c.conventions.forwardTenor} forward rate`;
   const title = `Change of the ${c.tenor} ${what} under ${c.scenario.name} (${explanation.dates[0]!.adjusted})`;
-  const baseDates = r.value.base.dates;
-  const start = baseDates.find((d) => d.name === 'start')?.adjusted ?? base.settlement;
-  const end = (baseDates.find((d) => d.name === 'end') ?? baseDates.find((d) => d.name === 'date'))!.adjusted;
-  const zero = c.field === 'zero';
+  // The dates the change table reads (explainScenarioChange has already checked the tenor).
+  const dates = effectDates(base.settlement, c.tenor, c.conventions)!;
   const conv = c.conventions;
-  const influences = topQuoteInfluences(base, result.build.instruments, start, end, zero ? conv.zeroCompounding : conv.forwardCompounding, zero ? conv.zeroDayCount : conv.forwardDayCount);
+  const influences =
+    c.field === 'zero'
+      ? topQuoteInfluences(base, result.build.instruments, base.settlement, dates.date, conv.zeroCompounding, conv.zeroDayCount)
+      : topQuoteInfluences(base, result.build.instruments, dates.date, dates.end ?? dates.date, conv.forwardCompounding, conv.forwardDayCount);
   const quotesNote = `of the base ${what}: the change is the scenario's shift, and the scenario rate moves with these quotes as the base rate does`;
   // The document is the same under every method (only the interpolation differs), so is its workspace.
   const methods = valueUnderEachMethod(
