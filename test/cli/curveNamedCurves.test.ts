@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runCurveCommand } from '../../src/cli/curveCommand.ts';
 import { buildCurve, buildNamedCurves, readNamedCurves } from '../../src/core/index.ts';
@@ -9,16 +10,10 @@ import { buildCurve, buildNamedCurves, readNamedCurves } from '../../src/core/in
 
 const run = (input: string, ...args: string[]) => runCurveCommand(['-', ...args], () => input);
 
-const OIS = [
-  { kind: 'ois', tenor: '1Y', rate: 0.021, conventions: 'eur-estr' },
-  { kind: 'ois', tenor: '5Y', rate: 0.0246, conventions: 'eur-estr' },
-  { kind: 'ois', tenor: '12Y', rate: 0.0277, conventions: 'eur-estr' },
-];
-const INDEX = [
-  { kind: 'deposit', tenor: '6M', rate: 0.0247, dayCount: 'ACT/360' },
-  { kind: 'swap', tenor: '2Y', rate: 0.0263 },
-  { kind: 'swap', tenor: '10Y', rate: 0.0311 },
-];
+// The invented two-curve market of the workbench's tests: its OIS and its six-month index quotes.
+const MARKET = JSON.parse(readFileSync('test/fixtures/namedCurves/two-curves.json', 'utf8')) as { quotes: { rate: number }[]; curves: { quotes: object[] }[] };
+const OIS = MARKET.quotes;
+const INDEX = MARKET.curves[0]!.quotes;
 const single = { format: 'tenorscope-workspace', version: 2, valuationDate: '2027-03-10', curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' }, quotes: OIS };
 const doc = { ...single, curves: [{ name: 'euribor6m', role: 'projection', index: '6M', discountCurve: 'default', quotes: INDEX }, { name: 'govt', role: 'government', quotes: [{ kind: 'zero', tenor: '1Y', rate: 0.02 }, { kind: 'zero', tenor: '5Y', rate: 0.024 }] }] };
 
