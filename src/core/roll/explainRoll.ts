@@ -10,7 +10,7 @@ import { parseTenor } from '../time/tenor.ts';
 import { rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
-import { outcomeOf, rollSetup, rollValuesOf, type NamedCurve } from './rollVsTerm.ts';
+import { outcomeOf, rollSetup, rollValuesOf, type NamedCurve, type RollSetup } from './rollVsTerm.ts';
 import type { StrategyInputs, StrategyViewId } from './strategyInputs.ts';
 import type { Money } from './strategyMoney.ts';
 import type { StrategyId, TermStrategyId } from './strategyValues.ts';
@@ -63,8 +63,12 @@ const noFigure = (message: string) => fail(coreError('schema', 'figure', message
  */
 export function rollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure, trace?: RollTrace): Result<RollFigureValue> {
   const set = rollSetup(curve, strategy, scenarios, trace?.sink);
-  if (!set.ok) return set;
-  const { ctx, specs, chosen, years, amount } = set.value;
+  return set.ok ? figureOn(set.value, curve, strategy, figure, trace) : set;
+}
+
+/** rollFigure on an analysis already set up (explainRollFigure sets it up once for the figure and its explanation). */
+function figureOn(set: RollSetup, curve: Curve, strategy: StrategyInputs, figure: RollFigure, trace?: RollTrace): Result<RollFigureValue> {
+  const { ctx, specs, chosen, years, amount } = set;
   if (figure.kind === 'leg-forward') {
     const leg = ctx.legs[figure.leg - 1];
     if (!leg) return noFigure(`there is no roll leg ${figure.leg}`);
@@ -103,10 +107,10 @@ const AGAINST: Readonly<Record<StrategyId, string>> = { roll: 'rolling', zero: '
 /** One figure of the analysis with its explanation: the steps of the same computation, ending in the figure to all digits. */
 export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure): Result<RollFigureExplanation> {
   const trace = rollTrace({ date: strategy.horizon });
-  const r = rollFigure(curve, strategy, scenarios, figure, trace);
-  const set = rollSetup(curve, strategy, scenarios);
-  if (!r.ok) return r;
+  const set = rollSetup(curve, strategy, scenarios, trace.sink);
   if (!set.ok) return set;
+  const r = figureOn(set.value, curve, strategy, figure, trace);
+  if (!r.ok) return r;
   const { ctx, specs, chosen, years, M } = set.value;
   const S = curve.settlement;
   const H = ctx.horizon;
@@ -120,7 +124,11 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   }
   recordDate(trace, 'horizon', strategy.horizon, H, 'unadjusted, no calendar');
   const conventions = (c: Compounding | null, d: ExplainedConventions['dayCount']): ExplainedConventions => explainedConventions(curve, c, d);
-  if ('leg' in figure) trace.steps.splice(trace.steps.findIndex((s) => s.name === `${figure.kind === 'leg-rate' ? 'r' : 'V'}${figure.leg}`) + 1);
+  if ('leg' in figure) {
+    // The view and the money record every leg; the figure's own step ends the explanation.
+    const own = trace.steps.findIndex((s) => s.name === `${figure.kind === 'leg-rate' ? 'r' : 'V'}${figure.leg}`);
+    if (own >= 0) trace.steps.splice(own + 1);
+  }
   const last = trace.steps.at(-1)!;
   const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
   if ('leg' in figure) {
