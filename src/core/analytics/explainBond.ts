@@ -10,13 +10,13 @@ import {
   type Explanation,
 } from '../curve/explain.ts';
 import { couponTag } from '../format/conventionTag.ts';
-import { bondDirtyFromYield, type BondSchedule } from '../instruments/bond.ts';
+import { bondDirtyFromYield, bondYearFraction, type BondSchedule } from '../instruments/bond.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { civilFromIso, sameCivil, serialFromCivil, type IsoDate } from '../time/date.ts';
-import { yearFractionCivil } from '../time/dayCount.ts';
-import type { BondAnalytics } from './bondAnalytics.ts';
+import { civilFromIso, type IsoDate } from '../time/date.ts';
+import { yieldRisk, type BondAnalytics } from './bondAnalytics.ts';
 import type { CheckedBond } from './bondInput.ts';
 import type { Flow } from './keyRates.ts';
+import { compoundingOfFrequency } from '../kinds/shared.ts';
 
 /**
  * Explanations of a bond's figures off the curve (the Bond on the curve table): the model price
@@ -105,11 +105,11 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
   s.dates.forEach((d, i) => date(`c${i + 1}`, d));
   // The bond's year fractions by bondScheduleCivil's rule (ICMA's reference period: the coupon period).
   const civil = civilFromIso;
-  const refDays = serialFromCivil(civil(s.dates[0]!)) - serialFromCivil(civil(s.previous));
+  const yf = bondYearFraction(bond, civil(s.previous), civil(s.dates[0]!), civil(bond.maturity));
   const bondYf = (name: string, a: IsoDate, b: IsoDate): void => {
     if (have.has(name)) return;
     have.add(name);
-    yfs.push(explainedYearFraction(name, dc, a, b, yearFractionCivil(dc, civil(a), civil(b), bond.eom, sameCivil(civil(b), civil(bond.maturity)), refDays, f)));
+    yfs.push(explainedYearFraction(name, dc, a, b, yf(civil(a), civil(b))));
   };
   const cf = (i: number): string => (i < n - 1 ? 'CF' : 'CF_N');
   const terms = (): void => {
@@ -196,16 +196,18 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
       step('y', `the root of P(y) = ${target} (Newton)`, yv, yUnit, [target, 'c']);
     }
     const r = atYield(y, yv);
+    // The figures themselves are the table's: yieldRisk at this yield (the steps show its terms).
+    const risk = yieldRisk(s, yv);
     const q = [...terms_('q'), 'w', y];
     if (figure === 'yield') step('yield', y, yv, yUnit, y === 'y' ? ['y', 'P'] : [y]);
     else if (figure === 'convexity') {
       step('d2P/dy2', `sum_k ((w + k)(w + k + 1) / ${f}^2) q_k / (1 + ${y} / ${f})^2`, r.d2Pdy2, 'per 100 face per unit of yield^2', q);
-      step('convexity', '(d2P/dy2) / P', r.d2Pdy2 / r.price, 'years squared');
+      step('convexity', '(d2P/dy2) / P', risk.convexity, 'years squared');
     } else {
       step('dP/dy', `-sum_k ((w + k) / ${f}) q_k / (1 + ${y} / ${f})`, r.dPdy, 'per 100 face per unit of yield', q);
-      if (figure === 'dv01') step('DV01', '-(dP/dy) x 0.0001', -r.dPdy * 1e-4, 'per 100 face per bp of yield');
-      else step('modified', '-(dP/dy) / P', -r.dPdy / r.price, 'years');
-      if (figure === 'macaulayDuration') step('macaulay', `(1 + ${y} / ${f}) x modified`, (1 + yv / f) * (-r.dPdy / r.price), 'years');
+      if (figure === 'dv01') step('DV01', '-(dP/dy) x 0.0001', risk.dv01, 'per 100 face per bp of yield');
+      else step('modified', '-(dP/dy) / P', risk.modifiedDuration, 'years');
+      if (figure === 'macaulayDuration') step('macaulay', `(1 + ${y} / ${f}) x modified`, risk.macaulayDuration, 'years');
     }
   }
   // The definition: the figure's own step, then what it stands on.
@@ -220,7 +222,7 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
     formula: defs.join('; '),
     value: last.value,
     unit: last.unit,
-    conventions: explainedConventions(curve, figure === 'zSpread' ? 'continuous' : (['annual', 'semiannual', , 'quarterly'] as const)[f - 1] ?? (f === 12 ? 'monthly' : null), figure === 'zSpread' ? null : dc, f),
+    conventions: explainedConventions(curve, figure === 'zSpread' ? 'continuous' : compoundingOfFrequency(f), figure === 'zSpread' ? null : dc, f),
     dates,
     yearFractions: yfs,
     reads,

@@ -44,18 +44,25 @@ export function bondSchedule(terms: BondTerms, settlement: IsoDate): BondSchedul
 /** What pricing from a yield needs of a schedule (bondDirtyFromYield, bondYieldFromDirty). */
 export type YieldSchedule = Pick<BondSchedule, 'amounts' | 'w' | 'frequency' | 'coupon'>;
 
+/**
+ * The bond's year fraction from a to b (years, on its own day count): ICMA's reference period is the
+ * coupon period from `previous` to `next`; 30E/360-ISDA's termination date is the maturity.
+ */
+export function bondYearFraction(terms: Pick<BondTerms, 'dayCount' | 'eom' | 'frequency'>, previous: CivilDate, next: CivilDate, maturity: CivilDate): (a: CivilDate, b: CivilDate) => number {
+  const refDays = serialFromCivil(next) - serialFromCivil(previous);
+  return (a, b) => yearFractionCivil(terms.dayCount, a, b, terms.eom, sameCivil(b, maturity), refDays, terms.frequency);
+}
+
 /** `bondSchedule` on civil dates (performance: no ISO text per coupon date); same rules and units. */
 export function bondScheduleCivil(
   terms: BondTerms,
   settlement: CivilDate,
   maturity: CivilDate,
 ): YieldSchedule & { readonly dates: readonly CivilDate[]; readonly previous: CivilDate; readonly accrued: number } {
-  const { coupon, frequency, dayCount, eom } = terms;
+  const { coupon, frequency, eom } = terms;
   const { dates, previous } = backwardScheduleCivil(settlement, maturity, frequency, eom);
   const next = dates[0]!;
-  // ICMA reference period: the coupon period (previous, next); 30E/360-ISDA: termination the maturity.
-  const refDays = serialFromCivil(next) - serialFromCivil(previous);
-  const yf = (a: CivilDate, b: CivilDate): number => yearFractionCivil(dayCount, a, b, eom, sameCivil(b, maturity), refDays, frequency);
+  const yf = bondYearFraction(terms, previous, next, maturity);
   const accrued = 100 * coupon * yf(previous, settlement);
   // w: the ICMA exponent of the first flow, the fraction of the coupon period still to run.
   const w = yf(settlement, next) / yf(previous, next);
