@@ -30,4 +30,18 @@ describe('explanations of a curve with turns', () => {
     }
     expect(model.value.methods.find((m) => m.current)!.value).toBe(model.value.explanation.value);
   });
+
+  it('give a bond figure under every method too (the bond panel rebuilds the curve as the workbench does)', () => {
+    let n = 0;
+    const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
+    if (!doc.ok) throw new Error(doc.errors[0]!.message);
+    const result = deriveBuild(doc.value);
+    // An invented two-year bond inside the curve's three years.
+    const input = { maturity: '2024-03-01', coupon: 0.03, frequency: 2, dayCount: 'ACT/ACT-ICMA' as const };
+    const model = explainKeyCell(result, doc.value.display, { bond: { input, figure: 'dirty', side: 'model' } });
+    if (!model.ok) throw new Error(model.errors[0]!.message);
+    expect(model.value.methods.length).toBe(5);
+    for (const m of model.value.methods) expect(m.error).toBeNull();
+    expect(model.value.methods.find((m) => m.current)!.value).toBe(model.value.explanation.value);
+  });
 });

@@ -194,9 +194,9 @@ export function explained<T>(query: (sink: ExplanationSink) => Result<T>, given?
 }
 
 /** The rule and calendar of a query date. */
-export const QUERY_DATE_RULE = 'none (a query date is read as given)';
+const QUERY_DATE_RULE = 'none (a query date is read as given)';
 
-export const queryDate = (sink: ExplanationSink, name: string, date: IsoDate): ExplainedDate => ({
+const queryDate = (sink: ExplanationSink, name: string, date: IsoDate): ExplainedDate => ({
   name,
   given: sink.given?.[name] ?? date,
   unadjusted: date,
@@ -210,7 +210,7 @@ export const DF_UNIT = 'unitless';
 export const LN_UNIT = 'natural log of a discount factor';
 
 /** The day-count rule applied to two dates, in words with their numbers. */
-export function yearFractionRule(dc: DayCount, from: IsoDate, to: IsoDate, value: number): string {
+function yearFractionRule(dc: DayCount, from: IsoDate, to: IsoDate, value: number): string {
   const days = daysBetween(from, to);
   if (dc === 'ACT/360' || dc === 'ACT/365F') return `${dc}: ${days} actual days / ${dc === 'ACT/360' ? 360 : 365}`;
   if (dc === 'ACT/ACT-ISDA') return `${dc}: the days in each calendar year over that year's days (365 or 366), summed (${days} days)`;
@@ -273,7 +273,7 @@ export function explainRead(curve: Curve, name: string, date: IsoDate, t: number
  * The steps that turn ln P (the log of a discount factor over a period of tau years) into the
  * rate in compounding c, ending in `rate`, the query's value. Names: `lnP`, `tau`.
  */
-export function rateSteps(lnP: number, c: Compounding, tau: number, rate: number, unit: string): ExplainedStep[] {
+function rateSteps(lnP: number, c: Compounding, tau: number, rate: number, unit: string): ExplainedStep[] {
   const m = periodsPerYear(c);
   if (m === Infinity) return [{ name: 'rate', formula: 'rate = -lnP / tau', inputs: ['lnP', 'tau'], value: rate, unit }];
   // simple: 1/P - 1 over the period, then / tau; periodic: P^(-1/(m tau)) - 1 per period, then x m.
@@ -284,7 +284,7 @@ export function rateSteps(lnP: number, c: Compounding, tau: number, rate: number
 }
 
 /** The rate definition in words for a formula line. */
-export function rateDefinition(c: Compounding): string {
+function rateDefinition(c: Compounding): string {
   if (c === 'continuous') return 'P = exp(-rate x tau)';
   if (c === 'simple') return 'P = 1 / (1 + rate x tau)';
   const m = periodsPerYear(c);

@@ -18,7 +18,7 @@ export interface ChangeExplanation {
   readonly scenario: Explanation;
 }
 
-export const CHANGE_UNIT = 'bp (1 bp = 0.0001 of the rate)';
+const CHANGE_UNIT = 'bp (1 bp = 0.0001 of the rate)';
 
 /** One part of a joined explanation: the part's explanation, its name, and the words leading its steps (its name by default). */
 type Part = readonly [Explanation, string, string?];

@@ -37,7 +37,7 @@ const nodeText = (n: ExplainedNode, quoteLabel: (i: number) => string): string =
   `${n.date} (t = ${fullText(n.t)}, DF = ${fullText(n.discount)}, ln DF = ${fullText(n.lnDiscount)}, ${n.quote === null ? 'valuation date' : quoteLabel(n.quote)})`;
 
 /** How a read came off the curve, in one line. */
-export function readHowText(r: ExplainedRead, quoteLabel: (i: number) => string = (i) => `quote ${i}`): string {
+function readHowText(r: ExplainedRead, quoteLabel: (i: number) => string = (i) => `quote ${i}`): string {
   switch (r.how) {
     case 'settlement':
       return 'the valuation date: DF = 1';

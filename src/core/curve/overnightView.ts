@@ -14,7 +14,7 @@ import { calendarDays, dayAfter, dayBefore } from '../time/overnightDays.ts';
 import { resolveMarketDate } from '../time/dateConventions.ts';
 import { topInfluencesOfLn, type QuoteInfluence } from '../analytics/explainRisk.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { explanationSink, LN_UNIT, rateUnit, type Explanation } from './explain.ts';
+import { explanationSink, LN_UNIT, type Explanation } from './explain.ts';
 import { joinedDifference } from './explainChange.ts';
 
 /** The convention of every rate here: simple, ACT/360, over one calendar day. */

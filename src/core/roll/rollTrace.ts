@@ -36,7 +36,7 @@ export interface RollTrace {
 
 export const rollTrace = (given?: Readonly<Record<string, string>>): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given) });
 
-export const GROWTH_UNIT = 'per unit invested';
+const GROWTH_UNIT = 'per unit invested';
 const PER_100 = 'per 100 face';
 
 const push = (t: RollTrace, name: string, formula: string, inputs: readonly string[], value: number, unit: string): void => {

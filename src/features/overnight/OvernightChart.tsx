@@ -1,7 +1,7 @@
 import { useId, useMemo } from 'react';
 import { scaleLinear } from 'd3-scale';
 import { curveStepAfter, line } from 'd3-shape';
-import { formatAxisPercent, formatPercent, rateTag, type OvernightView } from '../../core/index.ts';
+import { formatAxisPercent, formatBp, formatPercent, OVERNIGHT_CONVENTION, rateTag, type OvernightView } from '../../core/index.ts';
 import { CHART_FONT_PX } from '../../charts/RateChart.tsx';
 import { PALETTE } from '../../charts/palette.ts';
 import { ChartAxes } from '../../charts/ChartAxes.tsx';
@@ -46,7 +46,7 @@ export function OvernightChart({ view }: { view: OvernightView }) {
         .digits(2)(pts) ?? ''
     );
   }, [view, x, y]);
-  const tag = rateTag('simple', 'ACT/360');
+  const tag = rateTag(OVERNIGHT_CONVENTION.compounding, OVERNIGHT_CONVENTION.dayCount);
   const xTicks = x.ticks(Math.max(2, Math.min(6, Math.floor(W / 110))));
   const yTicks = y.ticks(5);
   const first: Point | undefined = view.points[0];
@@ -62,7 +62,7 @@ export function OvernightChart({ view }: { view: OvernightView }) {
             </g>
             {view.turns.map((s) => (
               <rect key={`turn-${s.name}`} data-turn={s.name} x={x(s.a)} y={M.top} width={Math.max(1.5, x(Math.min(s.b, view.endT)) - x(s.a))} height={H - M.top - M.bottom} fill={TURN_FILL}>
-                <title>{`Turn “${s.name}”: ${s.start} to ${s.end} (${s.spreadBp} bp on each day)`}</title>
+                <title>{`Turn “${s.name}”: ${s.start} to ${s.end} (${formatBp(s.spreadBp)} on each day's overnight rate, ${tag})`}</title>
               </rect>
             ))}
             {view.meetings.map((m) => (

@@ -5,6 +5,7 @@ import {
   formatPercent,
   meetingStepTable,
   overnightForwardView,
+  OVERNIGHT_CONVENTION,
   rateTag,
   readDateList,
   readMeetingSteps,
@@ -26,7 +27,7 @@ import { OvernightChart } from './OvernightChart.tsx';
 import type { StepCell } from '../tables/explainCell.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 
-const OVERNIGHT_TAG = rateTag('simple', 'ACT/360');
+const OVERNIGHT_TAG = rateTag(OVERNIGHT_CONVENTION.compounding, OVERNIGHT_CONVENTION.dayCount);
 const NO_TURNS: readonly WorkbenchTurn[] = [];
 const NO_DATES: readonly string[] = [];
 

@@ -3,7 +3,6 @@ import {
   BOND_FIGURE_WORDS,
   bondFigureValue,
   bondLnWeights,
-  buildCurve,
   DEFAULT_KEY_TENORS,
   explainBondFigure,
   formatPercent,
@@ -18,7 +17,7 @@ import {
   type Result,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { cellOf, type CellExplanation } from '../tables/explainCell.ts';
+import { buildUnder, cellOf, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A figure of the Bond on the curve table: the bond as the form reads it, the figure and its column. */
 export interface BondCell {
@@ -50,7 +49,7 @@ export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']):
   const methods: MethodValue[] = weights
     ? valueUnderEachMethod(
         curve.interpolation,
-        (method: InterpolationId) => buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: method }),
+        (method: InterpolationId) => buildUnder(result, method),
         (on) => {
           const a = analyzeBond(on, input);
           return a.ok ? { ok: true, value: bondFigureValue(a.value, figure, side)! } : a;

@@ -1,5 +1,4 @@
 import {
-  buildCurve,
   explainRollFigure,
   rollFigure,
   topParQuoteInfluences,
@@ -14,7 +13,7 @@ import {
   type StrategyInputs,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { cellOf, type CellExplanation } from '../tables/explainCell.ts';
+import { buildUnder, cellOf, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A figure of the roll panel (a money value, a return, a break-even, a leg's forward) under the strategy and scenario views it was shown with. */
 export interface RollCell {
@@ -42,7 +41,7 @@ export function explainRollCell(result: WorkbenchBuild, c: RollCell['roll']): Re
     ? []
     : valueUnderEachMethod(
         curve.interpolation,
-        (method: InterpolationId) => buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: method }),
+        (method: InterpolationId) => buildUnder(result, method),
         (on) => {
           const v = rollFigure(on, c.strategy, [], c.figure);
           return v.ok ? { ok: true, value: v.value.value } : v;

@@ -203,7 +203,7 @@ export function cellOf(result: WorkbenchBuild, title: string, explanation: Expla
  * The workspace's document built under `method`, as the workbench builds it: skipping wrong rows,
  * with the turns and meeting steps' code when loaded (without it such a document builds no curve).
  */
-function buildUnder(result: WorkbenchBuild, method: InterpolationId, options: BuildOptions = workbenchBuildOptions()) {
+export function buildUnder(result: WorkbenchBuild, method: InterpolationId, options: BuildOptions = workbenchBuildOptions()) {
   return buildCurve(result.conversion.doc, { ...options, skipInvalid: true, interpolation: method });
 }
 
