@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { buildCurve, CurveBuilder, type CurveBuild, type OvernightKit } from '../core/index.ts';
-import { loadedOvernightKit, needsOvernightKit, useOvernightKit } from './overnightKit.ts';
+import { loadedOvernightKit, needsOvernightKit, useOvernightKit, workbenchBuildOptions } from './overnightKit.ts';
 import {
   isQuoteUnitMode,
   parseRow,
@@ -64,8 +64,7 @@ export function deriveBuild(
   const { curves: _named, ...single } = ws as typeof ws & { readonly curves?: unknown };
   const conversion = toEngineDocument(single, parseRowCached);
   // The code of turns and steps when it has been loaded (overnightKit.ts); a document without them does not need it.
-  const kit = loadedOvernightKit();
-  const base = kit ? { skipInvalid: true, overnight: kit } : { skipInvalid: true };
+  const base = workbenchBuildOptions();
   const build = workbenchBuilder.build(conversion.doc, interpolation ? { ...base, interpolation } : base);
   const fromEngine = rowIssuesFromEngine(
     [...build.errors, ...build.warnings.filter((w) => w.code === 'skipped' || w.code === 'negative-forward' || w.code === 'spot-gap').map((w) => ({ ...w, message: w.message.replace(/^skipped: /, '') }))],

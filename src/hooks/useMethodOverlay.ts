@@ -1,4 +1,4 @@
-import { loadedOvernightKit } from './overnightKit.ts';
+import { workbenchBuildOptions } from './overnightKit.ts';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { CurveBuilder, INTERPOLATIONS, type InterpolationId } from '../core/index.ts';
 import type { DisplaySettings } from '../core/index.ts';
@@ -46,8 +46,7 @@ export function useMethodOverlay(doc: Record<string, unknown> | null, displayAll
       const method = INTERPOLATIONS[k++];
       if (!method) return;
       builder.current ??= new CurveBuilder();
-      const kit = loadedOvernightKit();
-      const b = builder.current.build(doc, kit ? { skipInvalid: true, interpolation: method, overnight: kit } : { skipInvalid: true, interpolation: method });
+      const b = builder.current.build(doc, { ...workbenchBuildOptions(), interpolation: method });
       if (b.curve) {
         rows.push({ method, points: forwardSeries(b.curve, display), error: null });
       } else rows.push({ method, points: [], error: b.errors[0]?.message ?? 'no curve' });

@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useReducer } from 'react';
-import type { WorkbenchCurves } from '../core/index.ts';
+import { DEFAULT_CURVE_NAME, type WorkbenchCurves } from '../core/index.ts';
 import { useAppStore } from '../state/store.ts';
 import type { WorkbenchBuild } from './useCurveBuild.ts';
 import type { NamedCurvesKit } from '../features/namedCurves/namedCurvesKit.ts';
@@ -64,6 +64,6 @@ export function useNamedCurves(result: WorkbenchBuild): NamedCurvesView {
  * curve, which the document calls "default") when the workspace has named curves, else undefined
  * (a workspace of one curve reads as before).
  */
-export function useOnCurve(name = 'default'): string | undefined {
+export function useOnCurve(name = DEFAULT_CURVE_NAME): string | undefined {
   return useAppStore((s) => s.workspace.curves !== undefined) ? ` on the curve "${name}"` : undefined;
 }

@@ -57,7 +57,7 @@ export function withSpread(span: TurnSpan, spread: number): TurnSpan {
 }
 
 /** The calendar a turn's business days are read on: its own, else the first enabled quote's, else weekends. */
-export function turnCalendarId(turn: Turn, quotes: readonly Quote[]): string {
+function turnCalendarId(turn: Turn, quotes: readonly Quote[]): string {
   if (turn.calendar !== undefined) return turn.calendar;
   for (const q of quotes) {
     const c = (q as { readonly calendar?: unknown }).calendar;

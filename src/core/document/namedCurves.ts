@@ -17,8 +17,6 @@ export type NamedCurveRole = (typeof CURVE_ROLES)[number];
 export const DEFAULT_CURVE_NAME = 'default';
 /** A term index's tenor and its periods a year (the floating leg of its swaps). */
 export const INDEX_TENORS: Readonly<Record<string, number>> = { '1M': 12, '3M': 4, '6M': 2, '12M': 1 };
-/** Named curves a document may hold besides its default one. */
-export const NAMED_CURVES_MAX = LIMITS.namedCurves;
 const NAME = /^[A-Za-z][A-Za-z0-9_-]{0,31}$/;
 const CURVE_ENTRY_KEYS = ['name', 'role', 'index', 'discountCurve', 'curve', 'quotes'];
 
@@ -54,8 +52,8 @@ export type ReadWorkspace = (doc: unknown) => { readonly workspace: Workspace | 
  * order, every curve after the curve it is discounted on.
  */
 export function readNamedCurves(raw: unknown, common: Readonly<Record<string, unknown>>, read: ReadWorkspace, errors: CoreError[]): readonly WorkspaceCurve[] | null {
-  if (!Array.isArray(raw) || raw.length === 0 || raw.length > NAMED_CURVES_MAX) {
-    errors.push(coreError('schema', 'curves', `curves must be an array of 1 to ${NAMED_CURVES_MAX} named curves such as [{"name": "euribor3m", "role": "projection", "index": "3M", "discountCurve": "default", "quotes": [...]}], not ${Array.isArray(raw) ? `${raw.length} entries` : typeName(raw)}`));
+  if (!Array.isArray(raw) || raw.length === 0 || raw.length > LIMITS.namedCurves) {
+    errors.push(coreError('schema', 'curves', `curves must be an array of 1 to ${LIMITS.namedCurves} named curves such as [{"name": "euribor3m", "role": "projection", "index": "3M", "discountCurve": "default", "quotes": [...]}], not ${Array.isArray(raw) ? `${raw.length} entries` : typeName(raw)}`));
     return null;
   }
   const before = errors.length;

@@ -109,8 +109,6 @@ export function validateWorkspace(doc: unknown, readCurves: CurvesReader = refus
   return curves === null ? { workspace: null, errors } : { workspace: { ...workspace, curves }, errors };
 }
 
-/** Most fixings a document holds: the one cap of every way in (LIMITS.fixings; the workbench's shape check and its Fixings section use it too). */
-export const FIXINGS_MAX = LIMITS.fixings;
 
 /**
  * The document's `fixings` (version 2): the overnight rate of past business days,
@@ -127,8 +125,8 @@ function checkFixings(v: unknown, errors: CoreError[]): Readonly<Record<IsoDate,
     return undefined;
   }
   const entries = Object.entries(v);
-  if (entries.length > FIXINGS_MAX) {
-    errors.push(coreError('range', 'fixings', `fixings holds ${entries.length} dates; at most ${FIXINGS_MAX} are read (keep the ones the futures in their period need)`));
+  if (entries.length > LIMITS.fixings) {
+    errors.push(coreError('range', 'fixings', `fixings holds ${entries.length} dates; at most ${LIMITS.fixings} are read (keep the ones the futures in their period need)`));
     return undefined;
   }
   const out: Record<IsoDate, number> = {};

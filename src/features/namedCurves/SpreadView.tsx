@@ -9,7 +9,7 @@ import { useAppStore } from '../../state/store.ts';
 import { curveChoice, DEFAULT_NAME, VIEW_KEYS } from './curveChoice.ts';
 
 /** The maturities the spread table reads, from the valuation date. */
-export const SPREAD_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '15Y', '20Y', '30Y'] as const;
+const SPREAD_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '15Y', '20Y', '30Y'] as const;
 
 /**
  * The spread between any two curves of the workspace (the default curve and the named curves
@@ -31,7 +31,8 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
   const choice = curveChoice(view, named.curves.map((c) => c.name));
   const a = curves.get(choice.of);
   const b = curves.get(choice.over);
-  const tenor = parseTenor(display.forwardTenor)!;
+  // One value per forward tenor, so the two memos below do not run again on every render (a bad tenor reads as 3M, as in the tables).
+  const tenor = useMemo(() => parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' as const }, [display.forwardTenor]);
   const rows = useMemo(() => {
     if (!a || !b) return [];
     const dates = SPREAD_TENORS.map((t) => marketDate(a.settlement, parseTenor(t)!));

@@ -1,4 +1,4 @@
-import { isPlainObject, SPREAD_MEASURES, type SpreadMeasure } from '../../core/index.ts';
+import { DEFAULT_CURVE_NAME, isPlainObject, SPREAD_MEASURES, type SpreadMeasure } from '../../core/index.ts';
 
 /**
  * The named-curve choices kept in the document's `view` (saved, undone, in the link and the file):
@@ -8,7 +8,7 @@ import { isPlainObject, SPREAD_MEASURES, type SpreadMeasure } from '../../core/i
  */
 export const VIEW_KEYS = { shown: 'shownCurve', of: 'spreadOf', over: 'spreadOver', measure: 'spreadMeasure' } as const;
 /** The word for the top-level curve (the sheet's), as the document's `discountCurve` names it. */
-export const DEFAULT_NAME = 'default';
+export const DEFAULT_NAME = DEFAULT_CURVE_NAME;
 
 const text = (view: unknown, key: string): string => (isPlainObject(view) && typeof view[key] === 'string' ? view[key] : '');
 
