@@ -49,6 +49,21 @@ beforeEach(() => {
 });
 
 describe('a workspace with named curves, kept', () => {
+  it('keeps a named curve whose future carries its own fixings through the saved file and the link (what the engine takes opens again)', async () => {
+    // The fixture with an invented one-month future on the index curve, its first days fixed (engine form).
+    const curves = FIXTURE.curves.map((c, i) => (i === 0 ? { ...c, quotes: [...(c.quotes as object[]), { kind: 'future', contract: '1M', month: '2027-03', price: 97.5, fixings: { '2027-03-01': 0.0241, '2027-03-02': 0.0242, '2027-03-03': 0.0241, '2027-03-04': 0.0241, '2027-03-05': 0.0242, '2027-03-08': 0.0242, '2027-03-09': 0.0241 } }] } : c));
+    const ws = open({ ...FIXTURE, curves });
+    expect(ws.curves).toEqual(curves);
+    const file = parseDocumentText(serialiseDocument(ws as unknown as Record<string, unknown>));
+    if (!file.ok) throw new Error(file.errors[0]!.message);
+    expect(readWorkbenchDocument(file.value.document, () => 'x').doc!.curves).toEqual(curves);
+    const link = await encodeWorkspaceLinkChecked(ws as unknown as Record<string, unknown>);
+    if (!link.ok) throw new Error(link.message);
+    const back = await decodeWorkspaceLink(link.fragment);
+    if (!back.ok) throw new Error(back.message);
+    expect(back.checked.document.curves).toEqual(curves);
+  });
+
   it('opens from the engine file and keeps its curves unchanged through save, file, link, the saved entry and the engine document', async () => {
     const parsed = parseDocumentText(TEXT);
     expect(parsed.ok).toBe(true);

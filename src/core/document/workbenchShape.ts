@@ -42,15 +42,20 @@ const turnsShape = (v: unknown): boolean => Array.isArray(v) && v.length <= MAX_
 const meetingStepsShape = (v: unknown): boolean =>
   isPlainObject(v) && Object.keys(v).every((k) => k === 'on' || k === 'effectiveDates') && (v.effectiveDates === undefined || (Array.isArray(v.effectiveDates) && v.effectiveDates.length <= MAX_EFFECTIVE_DATES && v.effectiveDates.every((d) => shortText(d, 10))));
 
+/** A named curve's quote in the engine's form: flat settings, but for a future's own `fixings` (dated rates, as the top-level list). */
+const engineQuoteShape = (v: unknown): boolean =>
+  isPlainObject(v) && Object.keys(v).length <= 20 && Object.entries(v).every(([k, x]) => (k === 'fixings' ? fixingsShape(x) : flatValue(x)));
+
 /**
  * The shape of `curves` (named curves, the engine's form): at most LIMITS.namedCurves objects,
- * each with at most LIMITS.quotes quotes, every quote a flat object of short settings (the
- * named-curve reader checks names, roles, references and quotes when the curves are shown).
+ * each with at most LIMITS.quotes quotes, every quote flat but for its own fixings (the named-curve
+ * reader checks names, roles, references and quotes when the curves are shown). What the engine's
+ * reader takes, a file saved from it opens again.
  */
 const namedCurvesShape = (v: unknown): boolean =>
   Array.isArray(v) &&
   v.length <= LIMITS.namedCurves &&
-  v.every((c) => isPlainObject(c) && Object.keys(c).length <= 10 && (c.curve === undefined || curveSettings(c.curve)) && Array.isArray(c.quotes) && c.quotes.length <= LIMITS.quotes && c.quotes.every((q) => flatSettings(q)) && Object.entries(c).every(([k, x]) => k === 'curve' || k === 'quotes' || flatValue(x)));
+  v.every((c) => isPlainObject(c) && Object.keys(c).length <= 10 && (c.curve === undefined || curveSettings(c.curve)) && Array.isArray(c.quotes) && c.quotes.length <= LIMITS.quotes && c.quotes.every(engineQuoteShape) && Object.entries(c).every(([k, x]) => k === 'curve' || k === 'quotes' || flatValue(x)));
 
 /**
  * Checks the shape of a workbench document (`tenorscope-workbench`: quote cells as typed text)
