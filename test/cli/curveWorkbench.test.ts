@@ -36,4 +36,15 @@ describe('curve FILE with a workbench file', () => {
     expect(indexes).not.toContain(4);
     expect(indexes).toContain(5);
   });
+
+  it("refuses a workbench file whose sections the workbench's file and link readers refuse, naming them, even with --skip-invalid", async () => {
+    // Turns as an object and fixings as a list: the shape check of the file reader (checkWorkbenchShape) refuses both.
+    const bad = { ...demo, turns: { name: 'year end' }, fixings: [1, 2] };
+    for (const args of [[], ['--skip-invalid']]) {
+      const r = await run(bad, ...args);
+      expect(r.status).toBe(1);
+      const [o] = lines(r.stdout);
+      expect(o!.errors.map((e: any) => e.path)).toEqual(expect.arrayContaining(['turns', 'fixings']));
+    }
+  });
 });

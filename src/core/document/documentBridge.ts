@@ -8,6 +8,7 @@ import { TERM_FIELDS, termsText, type TermField } from '../input/termsText.ts';
 import { conventionSet } from '../kinds/conventionSets.ts';
 import { DEFAULT_DISPLAY, isMarketConventions, readWorkbenchDocument, toEngineDocument, WORKBENCH_FORMAT, WORKBENCH_VERSION, type WorkbenchDocument } from './workbenchDocument.ts';
 import { isPlainObject } from './plainObject.ts';
+import { checkWorkbenchShape } from './workbenchShape.ts';
 
 /**
  * The two document formats, each readable where the other is written: the workbench's
@@ -158,6 +159,10 @@ export interface AnyDocumentReading {
 
 export function engineFromAnyDocument(raw: unknown): AnyDocumentReading {
   if (!isPlainObject(raw) || raw.format !== WORKBENCH_FORMAT) return { doc: raw, errors: [], rowOfQuote: null };
+  // The shape the workbench's file and link readers check first (validateDocument): a section it
+  // refuses there is refused here too, not dropped by the lenient saved-entry reader below.
+  const shape = checkWorkbenchShape(raw);
+  if (shape.errors.length > 0) return { doc: raw, errors: shape.errors, rowOfQuote: null };
   let n = 0;
   const read = readWorkbenchDocument(raw, () => `r${n++}`);
   if (!read.doc) return { doc: raw, errors: [coreError('schema', '', `this workbench document cannot be read: ${read.problem ?? 'unknown problem'}`)], rowOfQuote: null };
