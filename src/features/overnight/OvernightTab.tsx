@@ -186,11 +186,12 @@ function Turns({ build }: { build: CurveBuild }) {
   const turns = useAppStore((s) => s.workspace.turns) ?? NO_TURNS;
   const rows = useAppStore((s) => s.workspace.quotes);
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
+  const decimalMark = useAppStore((s) => s.workspace.display.decimalMark);
   const [list, setList] = useState('');
   const [message, setMessage] = useState<string | null>(null);
   const spreads = useMemo(() => turnSpreads(build), [build]);
   const add = (): void => {
-    const r = readTurnLines(list, dateOrder);
+    const r = readTurnLines(list, dateOrder, decimalMark);
     if (r.turns.length === 0) {
       setMessage(`Not added: no line read as a turn${notTaken(r.problems.map(problemText))}.`);
       return;

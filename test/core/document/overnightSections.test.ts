@@ -74,4 +74,14 @@ describe('readTurnLines', () => {
       [6, 'the spread "2000" must be a number of bp from -1000 to 1000'],
     ]);
   });
+
+  it('reads the spread with the sheet\'s decimal comma, and refuses a comma-parted line then rather than misread 7,5 as 7', () => {
+    const r = readTurnLines('2027-12-31; 2027-12-31; 7,5; year end, as agreed\n31 Dec 2027\t31 Dec 2027\t\u22122,25\n2027-12-31, 2027-12-31, 7,5, year end', 'dmy', ',');
+    expect(r.turns).toEqual([
+      { name: 'year end, as agreed', from: '2027-12-31', to: '2027-12-31', spreadBp: 7.5 },
+      { name: 'turn 2027-12-31', from: '2027-12-31', to: '2027-12-31', spreadBp: -2.25 },
+    ]);
+    expect(r.problems.map((p) => p.line)).toEqual([3]);
+    expect(r.problems[0]!.message).toMatch(/with the decimal comma, part the fields by tabs or semicolons/);
+  });
 });
