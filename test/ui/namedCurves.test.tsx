@@ -176,7 +176,7 @@ describe('the picker and the spread', () => {
     expect(Math.abs(p!.bp)).toBeGreaterThan(1);
   });
 
-  it('a workspace of one curve shows no picker and loads no named-curve code', () => {
+  it("a workspace of one curve shows no picker and carries no named curves (that their code stays in the later chunk is the bundle test's)", () => {
     render(<App />);
     expect(screen.queryByRole('combobox', { name: 'Curve shown' })).toBeNull();
     expect(useAppStore.getState().workspace.curves).toBeUndefined();
