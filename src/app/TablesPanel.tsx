@@ -1,4 +1,4 @@
-import { lazy, Suspense, useDeferredValue, useRef, type KeyboardEvent, type ReactNode } from 'react';
+import { lazy, startTransition, Suspense, useEffect, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { CurveTableExport } from '../features/tables/CurveTableExport.tsx';
 import { KeyMaturitiesTable } from '../features/tables/KeyMaturitiesTable.tsx';
 import type { WorkbenchBuild } from '../hooks/useCurveBuild.ts';
@@ -70,10 +70,11 @@ const BASE_TABS: readonly TabDef[] = [
 export function TablesPanel({ result, deferredResult = result, extraTabs }: { result: WorkbenchBuild; deferredResult?: WorkbenchBuild; extraTabs: readonly TabDef[] }) {
   const active = useAppStore((s) => s.activeTab);
   // The open section's content is first rendered right after the app's first render, in a
-  // deferred render of its own (React's useDeferredValue with an initial value), so opening the
-  // app or a link draws the sheet and the charts without waiting for the tables. Every later
-  // render shows the content at once (the value is true from then on).
-  const contentReady = useDeferredValue(true, false);
+  // transition of its own started once the first render is committed, so opening the app or a
+  // link draws the sheet and the charts without waiting for the tables. Every later render shows
+  // the content at once (the flag stays true from then on).
+  const [contentReady, setContentReady] = useState(false);
+  useEffect(() => startTransition(() => setContentReady(true)), []);
   const setActiveTab = useAppStore((s) => s.setActiveTab);
   const tabs = [...BASE_TABS, ...extraTabs];
   const current = tabs.find((t) => t.id === active) ?? tabs[0]!;

@@ -8,8 +8,8 @@ import { useLayoutEffect, useRef, useState, type RefObject } from 'react';
  * The third value says whether the box has been read (in a layout effect, so before the first
  * paint): a chart can leave its plot out until then and draw it once, at its size.
  */
-export function useChartWidth<T extends Element>(fallback: number): [RefObject<T | null>, number, boolean] {
-  const ref = useRef<T | null>(null);
+export function useChartWidth<T extends Element>(fallback: number): [RefObject<T>, number, boolean] {
+  const ref = useRef<T>(null);
   const [width, setWidth] = useState(fallback);
   const [measured, setMeasured] = useState(false);
   useLayoutEffect(() => {
