@@ -131,13 +131,15 @@ try {
         performance.mark('paste-start');
         document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: dt, bubbles: true, cancelable: true }));
         // The header paste shows its column-mapping preview; confirm it. The preview is rendered in
-        // a task after the (dispatched, untrusted) paste event, not within it: wait for it task by task.
+        // a task after the (dispatched, untrusted) paste event, not within it: wait for it task by task
+        // (up to 20 s: the first paste fetches the reader's chunk, which a loaded host can slow).
         let confirm = document.querySelector<HTMLButtonElement>('.paste-preview button');
-        for (let t = 0; confirm === null && t < 2000; t++) {
+        for (const until = performance.now() + 20_000; confirm === null && performance.now() < until; ) {
           await new Promise<void>((r) => { const ch = new MessageChannel(); ch.port1.onmessage = () => r(); ch.port2.postMessage(0); });
           confirm = document.querySelector<HTMLButtonElement>('.paste-preview button');
         }
-        confirm!.click();
+        if (confirm === null) throw new Error('the paste preview did not appear within 20 s');
+        confirm.click();
         performance.mark('paste-handled'); // the paste handler, the confirmation and any synchronous render have run
         for (let f = 0; f < 600; f++) {
           await new Promise<void>((r) => requestAnimationFrame(() => { const ch = new MessageChannel(); ch.port1.onmessage = () => r(); ch.port2.postMessage(0); }));
