@@ -24,7 +24,7 @@ import { ok, type Result } from '../result.ts';
  */
 
 /** The kinds of number explained. */
-export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change' | 'roll-terminal' | 'roll-return' | 'roll-break-even' | 'roll-leg-rate'
+export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate' | 'par-yield' | 'zero-change' | 'forward-change' | 'zero-difference' | 'roll-terminal' | 'roll-return' | 'roll-break-even' | 'roll-leg-rate'
   /** A figure of a bond off the curve (analytics/explainBond.ts). */
   | 'bond-figure'
   /** A meeting's implied step on the overnight curve (curve/explainMeetingStep.ts). */

@@ -1,5 +1,8 @@
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { diffBp, effectDates, effectRate, type EffectConventions, type EffectField } from '../scenarios/scenarioEffects.ts';
+import { compareRow, type CompareBy } from '../scenarios/scenarioSnapshots.ts';
+import type { Compounding } from '../rates/compounding.ts';
+import type { CurveDayCount } from '../time/dayCount.ts';
 import { explanationSink, type ExplainedQuantity, type Explanation } from './explain.ts';
 import type { Curve } from './curve.ts';
 
@@ -79,4 +82,26 @@ export function explainScenarioChange(base: Curve, scenario: Curve, tenor: strin
     dates: be.dates,
   };
   return ok({ explanation, base: be, scenario: se });
+}
+
+/**
+ * Explains a row's difference in the snapshot comparison: the current curve's zero rate at
+ * `tenor` minus the other curve's (a snapshot rebuilt from its inputs), each explained by its own
+ * traced zeroOn inside compareRow, the very row the table shows, in compounding c and day count dc.
+ * By 'time' each curve is read at its own settlement plus the tenor; by 'date' both on the current
+ * curve's date. The last step is the table's difference bit for bit, in bp. `otherName` names the
+ * other curve in the steps (e.g. `snapshot`).
+ */
+export function explainCurveDifference(current: Curve, other: Curve, tenor: string, by: CompareBy, c: Compounding, dc: CurveDayCount, otherName = 'snapshot'): Result<Explanation> {
+  const currentSink = explanationSink({ date: tenor });
+  const otherSink = explanationSink({ date: by === 'time' ? `${tenor} from its own settlement` : `${tenor} from the current settlement` });
+  const row = compareRow(current, other, tenor, by, c, dc, { current: currentSink, other: otherSink });
+  if (!row) return fail(coreError('schema', 'tenor', `"${tenor}" is not a tenor`));
+  const ce = currentSink.explanation;
+  const oe = otherSink.explanation;
+  if (row.differenceBp === null || !ce || !oe) {
+    return fail(coreError('schema', 'tenor', `no zero rate at ${tenor} on ${row.zero === null ? 'the current curve' : `the ${otherName} curve`} (beyond its last node without extrapolation, or on or before its settlement)`));
+  }
+  const lineUp = by === 'time' ? 'each curve read at its own settlement plus the tenor' : "both read on the current curve's date";
+  return ok(joinedDifference('zero-difference', `difference = (current zero rate - ${otherName} zero rate) x 10,000, ${lineUp}; each rate: ${ce.formula} (${ce.unit})`, 'difference', [oe, otherName, `${otherName} curve`], [ce, 'current', 'current curve'], row.differenceBp));
 }

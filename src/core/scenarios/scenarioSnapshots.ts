@@ -1,5 +1,6 @@
 import { buildCurve, type CurveBuild } from '../bootstrap/build.ts';
 import type { Curve } from '../curve/curve.ts';
+import type { ExplanationSink } from '../curve/explain.ts';
 import { zeroOn } from '../curve/query.ts';
 import { fnv1a64 } from '../export/hash.ts';
 import type { Compounding } from '../rates/compounding.ts';
@@ -85,15 +86,21 @@ export interface CompareRow {
  * 'date' both are read on the current curve's date (the other's zero runs from its own settlement).
  */
 export function compareCurves(current: Curve, other: Curve, tenors: readonly string[], by: CompareBy, c: Compounding, dc: CurveDayCount): CompareRow[] {
-  return tenors.flatMap((label) => {
-    const tenor = parseTenor(label);
-    if (!tenor) return [];
-    const date = marketDate(current.settlement, tenor);
-    const otherDate = by === 'time' ? marketDate(other.settlement, tenor) : date;
-    const z = zeroOn(current, date, c, dc);
-    const o = otherDate > other.settlement ? zeroOn(other, otherDate, c, dc) : null;
-    const zero = z.ok ? z.value.zero : null;
-    const otherZero = o && o.ok ? o.value.zero : null;
-    return [{ tenor: label, date, otherDate, zero, otherZero, differenceBp: zero === null || otherZero === null ? null : (zero - otherZero) * 1e4 }];
-  });
+  return tenors.flatMap((label) => compareRow(current, other, label, by, c, dc) ?? []);
+}
+
+/**
+ * One row of compareCurves (null when `label` is not a tenor). With sinks, each curve's zero rate
+ * hands its own values to its sink (explainCurveDifference), through the same reads.
+ */
+export function compareRow(current: Curve, other: Curve, label: string, by: CompareBy, c: Compounding, dc: CurveDayCount, sinks?: { readonly current: ExplanationSink; readonly other: ExplanationSink }): CompareRow | null {
+  const tenor = parseTenor(label);
+  if (!tenor) return null;
+  const date = marketDate(current.settlement, tenor);
+  const otherDate = by === 'time' ? marketDate(other.settlement, tenor) : date;
+  const z = zeroOn(current, date, c, dc, 'date', sinks?.current);
+  const o = otherDate > other.settlement ? zeroOn(other, otherDate, c, dc, 'date', sinks?.other) : null;
+  const zero = z.ok ? z.value.zero : null;
+  const otherZero = o && o.ok ? o.value.zero : null;
+  return { tenor: label, date, otherDate, zero, otherZero, differenceBp: zero === null || otherZero === null ? null : (zero - otherZero) * 1e4 };
 }

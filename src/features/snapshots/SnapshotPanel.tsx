@@ -1,7 +1,10 @@
 import { useMemo, useState } from 'react';
 import { compareCurves, COMPARISON_TENORS, rebuildSnapshot, takeSnapshot, type CompareBy, type Snapshot } from '../../core/index.ts';
 import { validateSnapshots } from '../../core/index.ts';
-import { formatBpChange, formatPercent, rateTag, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
+import { formatBpChange, formatPercent, rateTag, type Compounding, type Curve, type CurveDayCount, type DisplaySettings } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import type { DifferenceCell } from './explainDifferenceCell.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 import '../scenarios/scenarios.css';
 
 export interface SnapshotPanelProps {
@@ -19,10 +22,14 @@ export interface SnapshotPanelProps {
   /** How another settlement lines up (controlled when onByChange is given; the charts' comparisons share it). */
   readonly by?: CompareBy;
   readonly onByChange?: (by: CompareBy) => void;
+  /** With it, each difference opens its explanation (the build the current curve is, and the display). */
+  readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
 }
 
+const sameDifference = (a: DifferenceCell, b: DifferenceCell): boolean => a.difference.snapshot === b.difference.snapshot && a.difference.tenor === b.difference.tenor;
+
 /** Snapshots: freeze the inputs under a name, rebuild them, and difference the current curve against one. */
-export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = COMPARISON_TENORS, by: byProp, onByChange }: SnapshotPanelProps) {
+export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = COMPARISON_TENORS, by: byProp, onByChange, explainFrom }: SnapshotPanelProps) {
   const { snapshots, errors } = useMemo(() => validateSnapshots(value), [value]);
   const [name, setName] = useState('');
   const [chosen, setChosen] = useState(0);
@@ -34,6 +41,23 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
   const other = pick >= 0 ? rebuilt[pick]?.build.curve ?? null : null;
   const rows = current && other ? compareCurves(current, other, tenors, by, compounding, dayCount) : [];
   const tag = rateTag(compounding, dayCount);
+  const opener = useExplainOpener<DifferenceCell>(sameDifference);
+  const chosenSnapshot = pick >= 0 ? snapshots[pick] : undefined;
+  // The open difference follows the table: the snapshot chosen now, the line-up and the convention shown.
+  const open: DifferenceCell | null =
+    opener.open && chosenSnapshot && rows.some((r) => r.tenor === opener.open!.difference.tenor && r.differenceBp !== null)
+      ? { difference: { ...opener.open.difference, snapshot: chosenSnapshot, by, compounding, dayCount } }
+      : null;
+  const differenceCell = (tenor: string, bp: number | null) => {
+    const text = formatBpChange(bp);
+    if (!explainFrom || !chosenSnapshot || bp === null) return text;
+    const cell: DifferenceCell = { difference: { snapshot: chosenSnapshot, tenor, by, compounding, dayCount } };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the difference of the ${tenor} zero rate from ${chosenSnapshot.name}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   const take = (): void => {
     if (!currentDocument) return;
     onChange([...snapshots, takeSnapshot(currentDocument, name.trim() || `Snapshot ${snapshots.length + 1}`, now())]);
@@ -98,7 +122,9 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
           </fieldset>
           {rows.length > 0 && (
             <table className="data" aria-label="Current curve against the snapshot">
-              <caption className="small muted">Zero rates ({tag}); difference = current − snapshot, bp</caption>
+              <caption className="small muted">
+                Zero rates ({tag}); difference = current − snapshot, bp{explainFrom ? '. Choose a difference to see how it is made.' : ''}
+              </caption>
               <thead>
                 <tr>
                   <th>Tenor</th>
@@ -117,12 +143,13 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
                     <td className="num">{formatPercent(r.zero)}</td>
                     <td>{r.otherDate}</td>
                     <td className="num">{formatPercent(r.otherZero)}</td>
-                    <td className="num">{formatBpChange(r.differenceBp)}</td>
+                    <td className="num">{differenceCell(r.tenor, r.differenceBp)}</td>
                   </tr>
                 ))}
               </tbody>
             </table>
           )}
+          {explainFrom ? <OpenExplanation result={explainFrom.result} display={explainFrom.display} cell={open} onClose={opener.close} /> : null}
         </>
       )}
     </section>

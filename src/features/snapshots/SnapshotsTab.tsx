@@ -32,6 +32,7 @@ export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
         dayCount={display.dayCount}
         by={by}
         onByChange={setCompareBy}
+        explainFrom={{ result, display }}
       />
       </EditLock>
       <h3>Reference curve</h3>

@@ -1,0 +1,67 @@
+// @vitest-environment jsdom
+// A difference in the Snapshots table opens the explanation panel (issue 19): chosen by keyboard,
+// the panel's value and last step are the table's figure to all digits (compareCurves, the table's
+// own source; test/core/curve/explainCurveDifference.test.ts holds its two parts to the untraced
+// zeroOn bit for bit), both curves' steps are listed, the quotes are the current curve's, the
+// difference is given under each method (both curves built under it), and Escape gives the focus back.
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { buildCurve, compareCurves, fullText, snapshotDocument, takeSnapshot, type Snapshot } from '../../src/core/index.ts';
+import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
+import { SnapshotPanel } from '../../src/features/snapshots/SnapshotPanel.tsx';
+import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { useAppStore } from '../../src/state/store.ts';
+
+// The explanation panel's code loads on first use; loaded here first (a loaded machine's transform
+// does not count against the wait for the panel).
+beforeAll(() => import('../../src/features/tables/lazyTables.ts'));
+
+vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
+
+const initial = useAppStore.getInitialState();
+beforeEach(() => useAppStore.setState(initial, true));
+
+describe('explanations in the Snapshots table', () => {
+  it('a difference opens its explanation, ending in the shown figure to all digits', async () => {
+    const user = userEvent.setup({ delay: null });
+    const display = useAppStore.getState().workspace.display;
+    const result = deriveBuild(useAppStore.getState().workspace);
+    const current = result.build.curve!;
+    // The demo a week earlier and 10 bp lower (invented), taken as a snapshot.
+    const doc = result.conversion.doc as Record<string, unknown> & { quotes: Record<string, unknown>[] };
+    const earlier = { ...doc, valuationDate: '2026-11-24', settlement: undefined, quotes: doc.quotes.map((q) => (typeof q.rate === 'number' ? { ...q, rate: q.rate - 0.001 } : q)) };
+    const snapshot: Snapshot = takeSnapshot(earlier, 'Last week', '2026-11-24T17:00:00+00:00');
+    expect(snapshot.curveHash).not.toBeNull();
+    render(<SnapshotPanel value={[snapshot]} onChange={() => {}} currentDocument={doc} current={current} now={() => ''} compounding={display.compounding} dayCount={display.dayCount} tenors={['2Y', '10Y']} explainFrom={{ result, display }} />);
+    const other = buildCurve(snapshotDocument(snapshot)).curve!;
+    const figure = compareCurves(current, other, ['10Y'], 'time', display.compounding, display.dayCount)[0]!.differenceBp!;
+    const table = screen.getByRole('table', { name: 'Current curve against the snapshot' });
+    const button = within(table).getByRole('button', { name: /explain the difference of the 10Y zero rate from Last week/ });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Difference of the 10Y zero rate from Last week/ });
+    expect(button).toHaveAttribute('aria-expanded', 'true');
+    expect(panel).toHaveFocus();
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`difference = (current rate - snapshot rate) x 10,000 bp = ${fullText(figure)} (bp (1 bp = 0.0001 of the rate))`);
+    expect(steps.some((s) => s!.startsWith('current curve: '))).toBe(true);
+    expect(steps.some((s) => s!.startsWith('snapshot curve: '))).toBe(true);
+    const links = within(within(panel).getByRole('region', { name: 'Quotes it depends on most' })).getAllByRole('button', { name: /^Row \d+:/ });
+    expect(links.length).toBe(5);
+    const model = explainKeyCell(result, display, { difference: { snapshot, tenor: '10Y', by: 'time', compounding: display.compounding, dayCount: display.dayCount } });
+    if (!model.ok) throw new Error(model.errors[0]!.message);
+    expect(model.value.methods.length).toBe(5);
+    for (const m of model.value.methods) {
+      // Recomputed here as the table would read it with both curves built under that method.
+      const now = buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: m.method }).curve!;
+      const then = buildCurve(snapshotDocument(snapshot), { interpolation: m.method }).curve!;
+      expect(m.value).toBe(compareCurves(now, then, ['10Y'], 'time', display.compounding, display.dayCount)[0]!.differenceBp);
+      if (m.current) expect(m.value).toBe(figure);
+    }
+    expect(new Set(model.value.methods.map((m) => m.value)).size).toBeGreaterThan(1);
+    await user.keyboard('{Escape}');
+    expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
+    expect(button).toHaveFocus();
+  });
+});
