@@ -273,7 +273,7 @@ export function explainRead(curve: Curve, name: string, date: IsoDate, t: number
  * The steps that turn ln P (the log of a discount factor over a period of tau years) into the
  * rate in compounding c, ending in `rate`, the query's value. Names: `lnP`, `tau`.
  */
-function rateSteps(lnP: number, c: Compounding, tau: number, rate: number, unit: string): ExplainedStep[] {
+export function rateSteps(lnP: number, c: Compounding, tau: number, rate: number, unit: string): ExplainedStep[] {
   const m = periodsPerYear(c);
   if (m === Infinity) return [{ name: 'rate', formula: 'rate = -lnP / tau', inputs: ['lnP', 'tau'], value: rate, unit }];
   // simple: 1/P - 1 over the period, then / tau; periodic: P^(-1/(m tau)) - 1 per period, then x m.

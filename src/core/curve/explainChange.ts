@@ -3,7 +3,8 @@ import { diffBp, effectDates, effectRate, type EffectConventions, type EffectFie
 import { compareRow, type CompareBy } from '../scenarios/scenarioSnapshots.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
-import { explanationSink, type ExplainedQuantity, type Explanation } from './explain.ts';
+import { explainedYearFraction, explanationSink, LN_UNIT, rateSteps, rateUnit, type ExplainedQuantity, type Explanation } from './explain.ts';
+import { referenceRow, type ReferenceCurve, type ReferenceTrace } from '../scenarios/scenarioReference.ts';
 import type { Curve } from './curve.ts';
 
 /**
@@ -104,4 +105,34 @@ export function explainCurveDifference(current: Curve, other: Curve, tenor: stri
   }
   const lineUp = by === 'time' ? 'each curve read at its own settlement plus the tenor' : "both read on the current curve's date";
   return ok(joinedDifference('zero-difference', `difference = (current zero rate - ${otherName} zero rate) x 10,000, ${lineUp}; each rate: ${ce.formula} (${ce.unit})`, 'difference', [oe, otherName, `${otherName} curve`], [ce, 'current', 'current curve'], row.differenceBp));
+}
+
+/**
+ * Explains a row of the reference curve's table: our zero rate on `date` (traced zeroOn inside
+ * referenceRow, the very row the table shows) minus the reference's, both in the reference's
+ * compounding and day count. A reference zero rate is taken as given; a discount factor D becomes
+ * one from ln D over tau from our settlement (the row's own rateFromLnDiscount, in the steps). The
+ * last step is the table's difference bit for bit, in bp.
+ */
+export function explainReferenceDifference(curve: Curve, ref: ReferenceCurve, date: string): Result<Explanation> {
+  const point = ref.points.find((p) => p.date === date);
+  if (!point) return fail(coreError('schema', 'date', `the reference curve has no row dated ${date}`));
+  const trace: ReferenceTrace = { ours: explanationSink({ date }) };
+  const row = referenceRow(curve, ref, point, trace);
+  const ours = trace.ours.explanation;
+  if (row.differenceBp === null || row.referenceZero === null || !ours) return fail(coreError('schema', 'date', `no difference on ${date}: ${row.note ?? 'the reference gives no zero rate there'}`));
+  const unit = rateUnit(ref.compounding, ref.dayCount);
+  const given = ref.kind === 'zero';
+  const reference: Explanation = {
+    ...ours,
+    formula: given ? 'the reference zero rate on the date, as its file gives it' : ours.formula.replace('P = DF(date)', 'P = D, the reference discount factor on the date'),
+    value: row.referenceZero,
+    dates: [],
+    yearFractions: given ? [] : [explainedYearFraction('tau', ref.dayCount, curve.settlement, date, trace.tau!)],
+    reads: [],
+    steps: given
+      ? [{ name: 'rate', formula: 'rate = the zero rate in the reference file on this date', inputs: [], value: row.referenceZero, unit }]
+      : [{ name: 'lnP', formula: `lnP = ln D, D = ${point.value} (the reference file's discount factor on this date)`, inputs: [], value: trace.lnDiscount!, unit: LN_UNIT }, ...rateSteps(trace.lnDiscount!, ref.compounding, trace.tau!, row.referenceZero, unit)],
+  };
+  return ok(joinedDifference('zero-difference', `difference = (our zero rate - reference zero rate) x 10,000, both ${unit}; ours: ${ours.formula}`, 'difference', [reference, 'reference', 'reference curve'], [ours, 'ours', 'our curve'], row.differenceBp));
 }

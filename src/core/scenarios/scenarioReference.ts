@@ -1,4 +1,5 @@
 import type { Curve } from '../curve/curve.ts';
+import type { ExplanationSink } from '../curve/explain.ts';
 import { zeroOn } from '../curve/query.ts';
 import { parseCsv } from '../export/csv.ts';
 import { rateFromLnDiscount, type Compounding } from '../rates/compounding.ts';
@@ -128,15 +129,30 @@ export const referenceConvention = (r: ReferenceCurve): string => rateTag(r.comp
  * becomes the zero rate with ln D over tau (rateFromLnDiscount).
  */
 export function referenceDifferences(curve: Curve, ref: ReferenceCurve): ReferenceRow[] {
-  return ref.points.map(({ date, value }) => {
-    if (compareIso(date, curve.settlement) <= 0) {
-      return { date, referenceZero: null, zero: null, differenceBp: null, note: `on or before settlement ${curve.settlement}` };
-    }
-    const tau = queryYearFraction(ref.dayCount, curve.settlement, date);
-    const referenceZero = ref.kind === 'zero' ? value : tau > 0 ? rateFromLnDiscount(Math.log(value), ref.compounding, tau) : null;
-    const z = zeroOn(curve, date, ref.compounding, ref.dayCount);
-    const zero = z.ok ? z.value.zero : null;
-    const note = z.ok ? null : (z.errors[0]?.message ?? 'not on the curve');
-    return { date, referenceZero, zero, differenceBp: zero === null || referenceZero === null ? null : (zero - referenceZero) * 1e4, note };
-  });
+  return ref.points.map((point) => referenceRow(curve, ref, point));
+}
+
+/** What one row hands to explainReferenceDifference: a sink for our zero rate, and the reference's tau and ln D when it gives a discount factor. */
+export interface ReferenceTrace {
+  readonly ours: ExplanationSink;
+  tau?: number;
+  lnDiscount?: number;
+}
+
+/** One row of referenceDifferences; with `trace`, our zero rate and the reference's conversion hand it their own values. */
+export function referenceRow(curve: Curve, ref: ReferenceCurve, { date, value }: ReferenceCurve['points'][number], trace?: ReferenceTrace): ReferenceRow {
+  if (compareIso(date, curve.settlement) <= 0) {
+    return { date, referenceZero: null, zero: null, differenceBp: null, note: `on or before settlement ${curve.settlement}` };
+  }
+  const tau = queryYearFraction(ref.dayCount, curve.settlement, date);
+  let referenceZero: number | null = value;
+  if (ref.kind === 'discount') {
+    const ln = Math.log(value);
+    if (trace) Object.assign(trace, { tau, lnDiscount: ln });
+    referenceZero = tau > 0 ? rateFromLnDiscount(ln, ref.compounding, tau) : null;
+  }
+  const z = zeroOn(curve, date, ref.compounding, ref.dayCount, 'date', trace?.ours);
+  const zero = z.ok ? z.value.zero : null;
+  const note = z.ok ? null : (z.errors[0]?.message ?? 'not on the curve');
+  return { date, referenceZero, zero, differenceBp: zero === null || referenceZero === null ? null : (zero - referenceZero) * 1e4, note };
 }

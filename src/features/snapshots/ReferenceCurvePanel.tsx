@@ -2,14 +2,19 @@ import { useMemo, useState } from 'react';
 import { useReferenceInput } from '../compare/referenceInput.ts';
 import { formatBpChange, formatNumber, formatPercent, parseReferenceCsv, QUOTE_UNIT_LABEL, QUOTE_UNIT_MODES, referenceConvention, referenceDifferences, type QuoteUnitMode } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
-import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount } from '../../core/index.ts';
+import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount, type DisplaySettings } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import type { ReferenceCell } from './explainDifferenceCell.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
+
+const sameDate = (a: ReferenceCell, b: ReferenceCell): boolean => a.reference.date === b.reference.date;
 
 /**
  * Reference curve: paste or open a CSV of discount factors or zero rates by date from another
  * source and see our curve's difference in bp by date. Held in this page only (not saved); the
  * charts can draw it (comparisons).
  */
-export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
+export function ReferenceCurvePanel({ curve, explainFrom }: { curve: Curve | null; explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings } }) {
   const { text, compounding, dayCount, unit: unitChoice, set } = useReferenceInput();
   const setText = (t: string): void => set({ text: t });
   const setCompounding = (c: Compounding): void => set({ compounding: c });
@@ -21,6 +26,20 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
   const unit = unitChoice ?? sheetUnit;
   const parsed = useMemo(() => (text.trim() === '' ? null : parseReferenceCsv(text, compounding, dayCount, unit)), [text, compounding, dayCount, unit]);
   const rows = parsed?.reference && curve ? referenceDifferences(curve, parsed.reference) : [];
+  const opener = useExplainOpener<ReferenceCell>(sameDate);
+  const reference = parsed?.reference ?? null;
+  // The open difference follows the reference as edited since: it names its row by date.
+  const open: ReferenceCell | null = opener.open && reference && rows.some((r) => r.date === opener.open!.reference.date && r.differenceBp !== null) ? { reference: { curve: reference, date: opener.open.reference.date } } : null;
+  const differenceCell = (date: string, bp: number | null) => {
+    const text = formatBpChange(bp);
+    if (!explainFrom || !reference || bp === null) return text;
+    const cell: ReferenceCell = { reference: { curve: reference, date } };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the difference from the reference on ${date}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   return (
     <section className="reference-panel" aria-label="Reference curve">
       <div className="settings">
@@ -94,7 +113,9 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
       )}
       {rows.length > 0 && parsed?.reference && (
         <table className="data" aria-label="Difference from the reference curve">
-          <caption className="small muted">Zero rates ({referenceConvention(parsed.reference)}); difference = ours − reference, bp</caption>
+          <caption className="small muted">
+            Zero rates ({referenceConvention(parsed.reference)}); difference = ours − reference, bp{explainFrom ? '. Choose a difference to see how it is made.' : ''}
+          </caption>
           <thead>
             <tr>
               <th>Date</th>
@@ -109,12 +130,13 @@ export function ReferenceCurvePanel({ curve }: { curve: Curve | null }) {
                 <th scope="row">{r.date}</th>
                 <td className="num">{formatPercent(r.referenceZero)}</td>
                 <td className="num">{formatPercent(r.zero)}</td>
-                <td className="num">{r.note ?? formatBpChange(r.differenceBp)}</td>
+                <td className="num">{r.note ?? differenceCell(r.date, r.differenceBp)}</td>
               </tr>
             ))}
           </tbody>
         </table>
       )}
+      {explainFrom ? <OpenExplanation result={explainFrom.result} display={explainFrom.display} cell={open} onClose={opener.close} /> : null}
     </section>
   );
 }

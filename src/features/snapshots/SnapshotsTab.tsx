@@ -36,7 +36,7 @@ export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
       />
       </EditLock>
       <h3>Reference curve</h3>
-      <ReferenceCurvePanel curve={result.build.curve} />
+      <ReferenceCurvePanel curve={result.build.curve} explainFrom={{ result, display }} />
     </>
   );
 }

@@ -1,6 +1,7 @@
 import {
   buildCurve,
   explainCurveDifference,
+  explainReferenceDifference,
   snapshotDocument,
   topQuoteInfluences,
   valueUnderEachMethod,
@@ -8,6 +9,7 @@ import {
   type Compounding,
   type CurveDayCount,
   type InterpolationId,
+  type ReferenceCurve,
   type Result,
   type Snapshot,
 } from '../../core/index.ts';
@@ -22,6 +24,14 @@ export interface DifferenceCell {
     readonly by: CompareBy;
     readonly compounding: Compounding;
     readonly dayCount: CurveDayCount;
+  };
+}
+
+/** A difference in the reference curve's table: ours minus the reference's zero rate on `date`, in the reference's convention. */
+export interface ReferenceCell {
+  readonly reference: {
+    readonly curve: ReferenceCurve;
+    readonly date: string;
   };
 }
 
@@ -56,4 +66,27 @@ export function explainDifferenceCell(result: WorkbenchBuild, cell: DifferenceCe
   );
   const lineUp = by === 'time' ? 'same time to maturity' : 'same calendar date';
   return cellOf(result, `Difference of the ${tenor} zero rate from ${snapshot.name} (${lineUp})`, explanation, influences, quotesNote, methods);
+}
+
+/**
+ * The explanation of one row of the reference curve's table: referenceRow read again with a trace
+ * (explainReferenceDifference), the quotes behind our zero rate, and the difference with our curve
+ * built under each method (the reference stays as its file gives it).
+ */
+export function explainReferenceCell(result: WorkbenchBuild, cell: ReferenceCell['reference']): Result<CellExplanation> {
+  const curve = result.build.curve;
+  if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  const { curve: ref, date } = cell;
+  const r = explainReferenceDifference(curve, ref, date);
+  if (!r.ok) return r;
+  const influences = topQuoteInfluences(curve, result.build.instruments, curve.settlement, date, ref.compounding, ref.dayCount);
+  const methods = valueUnderEachMethod(
+    curve.interpolation,
+    (method) => buildUnder(result, method),
+    (on) => {
+      const v = explainReferenceDifference(on, ref, date);
+      return v.ok ? { ok: true, value: v.value.value } : v;
+    },
+  );
+  return cellOf(result, `Difference of our zero rate on ${date} from the reference`, r.value, influences, `of our zero rate on ${date}: the reference is as its file gives it`, methods);
 }

@@ -35,10 +35,10 @@ import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { explainRollCell, type RollCell } from '../roll/explainRollCell.ts';
 import { explainBondCell, type BondCell } from '../risk/explainBondCell.ts';
-import { explainDifferenceCell, type DifferenceCell } from '../snapshots/explainDifferenceCell.ts';
+import { explainDifferenceCell, explainReferenceCell, type DifferenceCell, type ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
 
 export type { BondCell } from '../risk/explainBondCell.ts';
-export type { DifferenceCell } from '../snapshots/explainDifferenceCell.ts';
+export type { DifferenceCell, ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
 
 /** The key-maturity cells that explain themselves. */
 export type KeyField = 'discount' | 'zero' | 'par' | 'forward';
@@ -87,7 +87,7 @@ export interface StepCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell | ReferenceCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -129,6 +129,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('bond' in cell) return explainBondCell(result, cell.bond);
   if ('step' in cell) return explainStepCell(result, cell.step);
   if ('difference' in cell) return explainDifferenceCell(result, cell.difference);
+  if ('reference' in cell) return explainReferenceCell(result, cell.reference);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;

@@ -3,7 +3,7 @@
 // Snapshots table's figure (compareCurves), all bit for bit; each part's rate is recomputed here
 // from the discount factor and year fraction the explanation shows, by the compounding definitions.
 import fixtureJson from '../../fixtures/share/workspace40.json';
-import { buildCurve, compareCurves, COMPARISON_TENORS, explainCurveDifference, zeroOn, type Compounding, type Curve, type CurveDayCount, type Explanation } from '../../../src/core/index.ts';
+import { buildCurve, compareCurves, COMPARISON_TENORS, explainCurveDifference, explainReferenceDifference, referenceDifferences, zeroOn, type Compounding, type Curve, type CurveDayCount, type Explanation, type ReferenceCurve } from '../../../src/core/index.ts';
 
 const fixture = fixtureJson as unknown as Record<string, unknown> & { quotes: Record<string, unknown>[] };
 const curveOf = (doc: Record<string, unknown>): Curve => {
@@ -90,5 +90,61 @@ describe('explainCurveDifference', () => {
     const r = explainCurveDifference(current, short, '30Y', 'time', 'continuous', 'ACT/365F');
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors[0]!.message).toMatch(/^no zero rate at 30Y on the snapshot curve/);
+  });
+});
+
+describe('explainReferenceDifference', () => {
+  // A reference of invented values at dates spread over the curve, once as discount factors, once as zero rates.
+  const dates = ['2027-02-26', '2027-11-30', '2029-05-31', '2033-11-30', '2046-11-30'];
+  const references: ReferenceCurve[] = [
+    { kind: 'discount', compounding: 'continuous', dayCount: 'ACT/365F', points: dates.map((date, i) => ({ date, value: Math.exp(-0.031 * (i + 1) * 0.9) })) },
+    { kind: 'discount', compounding: 'semiannual', dayCount: 'ACT/360', points: dates.map((date, i) => ({ date, value: 0.99 - 0.1 * i })) },
+    { kind: 'zero', compounding: 'annual', dayCount: '30/360', points: dates.map((date, i) => ({ date, value: 0.03 + 0.002 * i })) },
+  ];
+
+  it('ends in the reference table figure; our part is untraced zeroOn, the reference part the table conversion, bit for bit', () => {
+    let checked = 0;
+    for (const ref of references) {
+      for (const row of referenceDifferences(current, ref)) {
+        const where = `${ref.kind} ${ref.compounding} ${row.date}`;
+        const r = explainReferenceDifference(current, ref, row.date);
+        if (!r.ok) throw new Error(`${where}: ${r.errors[0]!.message}`);
+        const e = r.value;
+        expect(Object.is(e.value, row.differenceBp), where).toBe(true);
+        const ours = e.steps.find((s) => s.name === 'ours rate')!;
+        const theirs = e.steps.find((s) => s.name === 'reference rate')!;
+        const z = zeroOn(current, row.date, ref.compounding, ref.dayCount);
+        if (!z.ok) throw new Error(where);
+        expect(Object.is(ours.value, z.value.zero), where).toBe(true);
+        expect(Object.is(theirs.value, row.referenceZero), where).toBe(true);
+        // Recomputed from what is shown: our rate from its DF and tau; the reference's from the
+        // file's value (a zero rate as given; a discount factor through ln D and the shown tau).
+        expect(Math.abs(zeroFromShown(e, 'ours', ref.compounding) - ours.value)).toBeLessThanOrEqual(1e-15 * Math.abs(ours.value) + 1e-17);
+        const point = ref.points.find((p) => p.date === row.date)!;
+        if (ref.kind === 'zero') expect(theirs.value).toBe(point.value);
+        else {
+          const tau = e.yearFractions.find((y) => y.name === 'reference tau')!;
+          expect(tau.dayCount).toBe(ref.dayCount);
+          expect(tau.from).toBe(current.settlement);
+          const ln = Math.log(point.value);
+          const m = ref.compounding === 'continuous' ? Infinity : 2;
+          const again = m === Infinity ? -ln / tau.value : m * Math.expm1(-ln / (m * tau.value));
+          expect(Math.abs(again - theirs.value)).toBeLessThanOrEqual(1e-15 * Math.abs(theirs.value));
+        }
+        expect(e.steps.at(-1)!.inputs).toEqual(['ours rate', 'reference rate']);
+        checked++;
+      }
+    }
+    expect(checked).toBe(15);
+  });
+
+  it('names the date it has no row for, or why there is no difference', () => {
+    const r = explainReferenceDifference(current, references[0]!, '2030-01-01');
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.errors[0]!.message).toBe('the reference curve has no row dated 2030-01-01');
+    const early = { ...references[2]!, points: [{ date: '2026-11-01', value: 0.03 }] };
+    const e = explainReferenceDifference(current, early, '2026-11-01');
+    expect(e.ok).toBe(false);
+    if (!e.ok) expect(e.errors[0]!.message).toBe(`no difference on 2026-11-01: on or before settlement ${current.settlement}`);
   });
 });

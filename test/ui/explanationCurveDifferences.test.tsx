@@ -1,12 +1,14 @@
 // @vitest-environment jsdom
-// A difference in the Snapshots table opens the explanation panel (issue 19): chosen by keyboard,
+// A difference in the Snapshots table or the reference curve table opens the explanation panel (issue 19): chosen by keyboard,
 // the panel's value and last step are the table's figure to all digits (compareCurves, the table's
 // own source; test/core/curve/explainCurveDifference.test.ts holds its two parts to the untraced
 // zeroOn bit for bit), both curves' steps are listed, the quotes are the current curve's, the
 // difference is given under each method (both curves built under it), and Escape gives the focus back.
 import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { buildCurve, compareCurves, fullText, snapshotDocument, takeSnapshot, type Snapshot } from '../../src/core/index.ts';
+import { buildCurve, compareCurves, fullText, parseReferenceCsv, referenceDifferences, snapshotDocument, takeSnapshot, type Snapshot } from '../../src/core/index.ts';
+import { useReferenceInput } from '../../src/features/compare/referenceInput.ts';
+import { ReferenceCurvePanel } from '../../src/features/snapshots/ReferenceCurvePanel.tsx';
 import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { SnapshotPanel } from '../../src/features/snapshots/SnapshotPanel.tsx';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
@@ -63,5 +65,37 @@ describe('explanations in the Snapshots table', () => {
     await user.keyboard('{Escape}');
     expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
     expect(button).toHaveFocus();
+  });
+
+  it("a reference curve's difference opens its explanation, ending in the shown figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    const display = useAppStore.getState().workspace.display;
+    const result = deriveBuild(useAppStore.getState().workspace);
+    const curve = result.build.curve!;
+    // Discount factors from another source (invented values), read continuous ACT/365F.
+    const csv = 'date,discount\n2027-12-01,0.9655\n2031-12-01,0.8412';
+    useReferenceInput.getState().set({ text: csv, compounding: 'continuous', dayCount: 'ACT/365F' });
+    render(<ReferenceCurvePanel curve={curve} explainFrom={{ result, display }} />);
+    const ref = parseReferenceCsv(csv, 'continuous', 'ACT/365F').reference!;
+    const figure = referenceDifferences(curve, ref)[1]!.differenceBp!;
+    const table = screen.getByRole('table', { name: 'Difference from the reference curve' });
+    const button = within(table).getByRole('button', { name: /explain the difference from the reference on 2031-12-01/ });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Difference of our zero rate on 2031-12-01 from the reference/ });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`difference = (ours rate - reference rate) x 10,000 bp = ${fullText(figure)} (bp (1 bp = 0.0001 of the rate))`);
+    expect(steps.some((s) => s!.startsWith('reference curve: lnP = ln D, D = 0.8412'))).toBe(true);
+    const model = explainKeyCell(result, display, { reference: { curve: ref, date: '2031-12-01' } });
+    if (!model.ok) throw new Error(model.errors[0]!.message);
+    for (const m of model.value.methods) {
+      const now = buildCurve(result.conversion.doc, { skipInvalid: true, interpolation: m.method }).curve!;
+      expect(m.value).toBe(referenceDifferences(now, ref)[1]!.differenceBp);
+    }
+    expect(new Set(model.value.methods.map((m) => m.value)).size).toBeGreaterThan(1);
+    await user.keyboard('{Escape}');
+    expect(button).toHaveFocus();
+    useReferenceInput.getState().set({ text: '' });
   });
 });
