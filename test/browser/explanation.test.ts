@@ -3,12 +3,10 @@
 // beside the table, follow a quote link to its sheet row, copy the text; axe-core (WCAG 2.x A/AA
 // plus best practices) finds no serious or critical violation with the panel open. Screenshots at
 // 1280 and 760 px wide. The numbers themselves are the core's (tested in test/core/curve/explain.test.ts).
-import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { diagnostics, openWorkbench, REPO_ROOT, screenshot, SCREENSHOT_DIR, type BuiltApp } from './harness.ts';
-
-const AXE_SOURCE = readFileSync(path.join(REPO_ROOT, 'node_modules', 'axe-core', 'axe.min.js'), 'utf8');
+import { seriousAxeFindings } from './axe.ts';
+import { diagnostics, openWorkbench, screenshot, SCREENSHOT_DIR, type BuiltApp } from './harness.ts';
 
 let app: BuiltApp | undefined;
 let page: Page;
@@ -61,14 +59,7 @@ describe('the explanation of a key-maturity number', () => {
   });
 
   it('axe-core finds no serious or critical violation with the panel open', async () => {
-    await page.evaluate(AXE_SOURCE);
-    const found = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run(ctx: Document, o: object): Promise<{ violations: { id: string; impact: string | null; nodes: { target: unknown[] }[] }[] }> } }).axe;
-      // The key-maturity table with its open panel (the rest of the page has its own check, accessibility.test.ts).
-      const r = await axe.run({ include: [['.key-maturities']] } as unknown as Document, { resultTypes: ['violations'] });
-      return r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.impact} ${v.id}: ${JSON.stringify(v.nodes.slice(0, 3).map((n) => n.target))}`);
-    });
-    expect(found).toEqual([]);
+    expect(await seriousAxeFindings(page, ['.key-maturities'])).toEqual([]);
   });
 
   it('a quote link takes the user to its sheet row', async () => {

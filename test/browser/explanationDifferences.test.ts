@@ -4,12 +4,10 @@
 // from its table; each panel ends in the table's figure (to its shown digits here; to all digits in
 // test/ui/explanationCurveDifferences.test.tsx). axe-core finds no serious or critical violation in
 // the section with a panel open. Screenshots at 1280 and 760 px wide.
-import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
-import { diagnostics, openWorkbench, REPO_ROOT, screenshot, SCREENSHOT_DIR, type BuiltApp } from './harness.ts';
-
-const AXE_SOURCE = readFileSync(path.join(REPO_ROOT, 'node_modules', 'axe-core', 'axe.min.js'), 'utf8');
+import { seriousAxeFindings } from './axe.ts';
+import { diagnostics, openWorkbench, screenshot, SCREENSHOT_DIR, type BuiltApp } from './harness.ts';
 
 let app: BuiltApp | undefined;
 let page: Page;
@@ -27,6 +25,10 @@ beforeAll(async () => {
   // The demo's quotes are by tenor, so a month on they make the same curve by time to maturity
   // (0 bp everywhere); lined up by calendar date the two differ.
   await page.locator('.snapshot-panel').getByText('calendar date').click();
+  // The table has followed both: its 10Y row reads the snapshot on the new settlement's 10Y date
+  // (by time to maturity it read it on the snapshot's own, 2036-12-15).
+  const row10 = page.getByRole('table', { name: 'Current curve against the snapshot' }).locator('tr', { has: page.getByRole('rowheader', { name: '10Y' }) });
+  await row10.locator('td').nth(2).filter({ hasText: '2037-01-15' }).waitFor({ timeout: 20_000 });
 });
 
 afterAll(async () => {
@@ -58,13 +60,7 @@ describe('the explanations of the Snapshots section', () => {
   });
 
   it('axe-core finds no serious or critical violation in the section with the panel open', async () => {
-    await page.evaluate(AXE_SOURCE);
-    const found = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run(ctx: Document, o: object): Promise<{ violations: { id: string; impact: string | null; nodes: { target: unknown[] }[] }[] }> } }).axe;
-      const r = await axe.run({ include: [['.snapshot-panel']] } as unknown as Document, { resultTypes: ['violations'] });
-      return r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.impact} ${v.id}: ${JSON.stringify(v.nodes.slice(0, 3).map((n) => n.target))}`);
-    });
-    expect(found).toEqual([]);
+    expect(await seriousAxeFindings(page, ['.snapshot-panel'])).toEqual([]);
   });
 
   it("at 760 px a reference curve's difference opens under its table", async () => {

@@ -4,10 +4,10 @@
 // an earlier build's localStorage save moves into the list. Screenshots of the Workspaces panel
 // at 1280 and 390 px wide land in test/artifacts/screenshots/.
 import type { Page } from 'playwright-core';
-import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { diagnostics, newPage, REPO_ROOT, screenshot, SCREENSHOT_DIR } from './harness.ts';
+import { diagnostics, newPage, screenshot, SCREENSHOT_DIR } from './harness.ts';
 import { useSharedApp } from './sharedApp.ts';
+import { seriousAxeFindings } from './axe.ts';
 import { openRecord, savedRecords } from './savedWorkspaces.ts';
 
 const app = useSharedApp();
@@ -136,13 +136,7 @@ describe('saved workspaces', () => {
       await screenshot(page, `workspaces-${width}`);
       await page.getByRole('region', { name: 'Workspaces' }).screenshot({ path: path.join(SCREENSHOT_DIR, `workspaces-panel-${width}.png`) });
       // axe-core (WCAG 2 A/AA rules) on the open panel: no serious or critical violation.
-      await page.evaluate(readFileSync(path.join(REPO_ROOT, 'node_modules', 'axe-core', 'axe.min.js'), 'utf8'));
-      const serious = await page.evaluate(async () => {
-        const axe = (window as unknown as { axe: { run(ctx: unknown, o: object): Promise<{ violations: { id: string; impact: string | null }[] }> } }).axe;
-        const r = await axe.run({ include: [['section[aria-label="Workspaces"]']] }, { resultTypes: ['violations'] });
-        return r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id);
-      });
-      expect(serious).toEqual([]);
+      expect(await seriousAxeFindings(page, ['section[aria-label="Workspaces"]'])).toEqual([]);
       await page.close();
     }
   });
