@@ -9,7 +9,9 @@ import { readFileSync } from 'node:fs';
 import { act, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
-import { parseRow, readWorkbenchDocument, serialiseDocument, type WorkbenchDocument } from '../../src/core/index.ts';
+import { runCurveCommand } from '../../src/cli/curveCommand.ts';
+import { buildWorkbenchCurves, parseRow, readWorkbenchDocument, serialiseDocument, zeroOn, type WorkbenchDocument } from '../../src/core/index.ts';
+import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLinkChecked } from '../../src/share/linkCodec.ts';
 import { parseDocumentText, workbenchFromEngine } from '../../src/share/documentReader.ts';
 import { checkRestoredWorkspace } from '../../src/state/restoreCheck.ts';
@@ -192,6 +194,19 @@ describe("editing a named curve's quotes", () => {
     if (!back.ok) throw new Error(back.message);
     expect(back.checked.document.curves).toEqual(edited);
     expect(checkRestoredWorkspace(JSON.parse(JSON.stringify(ws()))).doc!.curves).toEqual(edited);
+    // The curve command reads the saved file to the same curves as the workbench builds, to the bit.
+    const saved = serialiseDocument(ws() as unknown as Record<string, unknown>);
+    const out = JSON.parse((await runCurveCommand(['-'], () => saved)).stdout.trim()) as { curves: Record<string, { points: { date: string; discount: number }[] }> };
+    const built = buildWorkbenchCurves(ws(), deriveBuild(ws()).build.curve);
+    expect(built.curves.map((c) => c.name)).toEqual(['euribor6m', 'govt']);
+    for (const c of built.curves) {
+      const points = out.curves[c.name]!.points;
+      expect(points.length).toBeGreaterThan(1);
+      for (const p of points) {
+        const z = zeroOn(c.build.curve!, p.date, 'continuous', 'ACT/365F');
+        expect(z.ok && z.value.discount).toBe(p.discount);
+      }
+    }
     // Three undo steps back to the file's curves.
     for (let i = 0; i < 3; i++) act(() => useAppStore.getState().undo());
     expect(named()).toEqual(FIXTURE.curves);
