@@ -60,7 +60,7 @@ export function CurveForm({ editing, names, onDone }: { editing: string | null; 
             ))}
           </select>
         ) : (
-          <input {...props} size={14} maxLength={40} />
+          <input {...props} size={14} maxLength={40} autoFocus />
         )}
         {error && (
           <span className="field-error" id={`${id}-${key}`}>

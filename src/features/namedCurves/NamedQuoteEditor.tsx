@@ -44,7 +44,7 @@ export function NamedQuoteEditor({ curve, role, k, names, onDone }: { curve: str
         return (
           <label key={c}>
             {QUOTE_COLUMN_LABEL[c]}
-            <input value={row[c] ?? ''} size={8} maxLength={200} onChange={(e) => setRow({ ...row, [c]: e.target.value })} {...attrs} />
+            <input value={row[c] ?? ''} size={8} maxLength={200} autoFocus={c === 'kind'} onChange={(e) => setRow({ ...row, [c]: e.target.value })} {...attrs} />
             {issue && (
               <span className={issue.severity === 'error' ? 'field-error' : 'muted small'} id={errorId}>
                 {issue.message}
