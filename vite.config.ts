@@ -57,7 +57,7 @@ const CSP = [
  * smooth fit, the quote check's schedules, the explanations, the scenarios' reference reader and change table, the
  * overnight view, the bond analytics, the workspace list file, the code of turns and steps (fetched
  * by src/hooks/overnightKit.ts), and the named curves' build (the term-index swap, the workbench's
- * named-curve build and the spread between two curves). Four small readers used only later stay in
+ * named-curve build, the spread between two curves and the edits of named curves). Four small readers used only later stay in
  * `first` on purpose: the Holidays and Fixings sections' (calendarEdits, fixingList), the paste's
  * table reader and the named curves' reader; there they cost 3.3 KB of the first load and save 0.5 KB
  * of all JavaScript, the tighter budget (each file's gzip starts afresh, and `later` imports what

@@ -32,7 +32,6 @@ export function CurvePicker({ named, adding = false, onAdding }: { named: Workbe
     setNeeders([]);
     onAdding?.(false);
   };
-  const names = named.curves.map((c) => c.name);
   // Every curve the document names, built or not (a curve refused by the reader can still be changed or removed).
   const allNames = (raw ?? []).flatMap((c) => (isPlainObject(c) && typeof c.name === 'string' ? [c.name] : []));
   const choice = curveChoice(view, allNames);
