@@ -37,7 +37,7 @@ export function App() {
   const deferred = useSettledValue(result);
   // Named curves besides the default one (the document's `curves`; their code loads on first use):
   // the charts and tables show the curve the picker chooses, the sheet edits the default curve.
-  const { shown, kit, named } = useNamedCurves(result);
+  const { shown, kit, named, adding, setAdding, needed } = useNamedCurves(result);
   const shownDeferred = shown === result ? deferred : shown;
   return (
     <div className="app">
@@ -74,7 +74,15 @@ export function App() {
       {/* The quotes beside the charts and tables (one first screen); roll versus term across both below. */}
       <main className="workbench">
         <div className="left">
-          {kit && named && <kit.CurvePicker named={named} />}
+          {kit && named ? (
+            <kit.CurvePicker named={named} adding={adding} onAdding={setAdding} />
+          ) : (
+            !needed && (
+              <button type="button" className="add-curve" disabled={readOnly !== null} onClick={() => setAdding(true)}>
+                Add a named curve
+              </button>
+            )
+          )}
           <QuoteSheet result={result} />
         </div>
         {undrawable.length > 0 ? (

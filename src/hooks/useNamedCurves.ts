@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useReducer } from 'react';
+import { useEffect, useMemo, useReducer, useState } from 'react';
 import { DEFAULT_CURVE_NAME, type WorkbenchCurves } from '../core/index.ts';
 import { useAppStore } from '../state/store.ts';
 import type { WorkbenchBuild } from './useCurveBuild.ts';
@@ -30,6 +30,12 @@ export interface NamedCurvesView {
   readonly kit: NamedCurvesKit | null;
   /** The named curves read and built (derived from the document, never stored), null as `kit`. */
   readonly named: WorkbenchCurves | null;
+  /** True while the form adding a first named curve is open (the code is fetched for it). */
+  readonly adding: boolean;
+  /** Opens (true) or closes the form adding a named curve to a workspace of one curve. */
+  readonly setAdding: (open: boolean) => void;
+  /** True when the workspace has named curves (or one is being added). */
+  readonly needed: boolean;
 }
 
 /** The named curves of the workspace, built after the default build `result`, and the build to show. */
@@ -39,7 +45,8 @@ export function useNamedCurves(result: WorkbenchBuild): NamedCurvesView {
   const calendars = useAppStore((s) => s.workspace.calendars);
   const customCalendars = useAppStore((s) => s.workspace.customCalendars);
   const view = useAppStore((s) => s.workspace.view);
-  const needed = curves !== undefined;
+  const [adding, setAdding] = useState(false);
+  const needed = curves !== undefined || adding;
   const [, arrived] = useReducer((n: number) => n + 1, 0);
   useEffect(() => {
     if (!needed || kit !== null) return;
@@ -56,7 +63,7 @@ export function useNamedCurves(result: WorkbenchBuild): NamedCurvesView {
   const defaultCurve = result.build.curve;
   const named = useMemo(() => (loaded ? loaded.buildWorkbenchCurves({ settlement, calendars, customCalendars, curves }, defaultCurve) : null), [loaded, settlement, calendars, customCalendars, curves, defaultCurve]);
   const shown = useMemo(() => (loaded && named ? loaded.shownBuild(result, named, { settlement, calendars, customCalendars, curves }, view) : result), [loaded, named, result, settlement, calendars, customCalendars, curves, view]);
-  return { shown, kit: loaded, named };
+  return { shown, kit: loaded, named, adding, setAdding, needed };
 }
 
 /**

@@ -2,7 +2,9 @@
 // with named curves (test/fixtures/namedCurves) opened as a workspace file, the curve picker, a
 // named curve's read-only quotes with the curve each builds and the curve that discounted it, the
 // spread table and its chart; and the same workspace from a link. Screenshots at 1280 and 760 px go to
-// test/artifacts/screenshots/named-curves-* (the spread view alone: named-curves-spread-*).
+// test/artifacts/screenshots/named-curves-* (the spread view alone: named-curves-spread-*). A curve
+// added in the workbench to a workspace of one curve, its quotes typed row by row, shown by the
+// picker and in the spread view: named-curves-added-* (the forms open: named-curves-forms-*).
 import { readFileSync } from 'node:fs';
 import { REPO_ROOT } from './harness.ts';
 import { mkdir } from 'node:fs/promises';
@@ -77,6 +79,64 @@ describe('named curves in Chromium', () => {
     await p.getByRole('combobox', { name: 'Spread of zero rates or forwards' }).selectOption('forward');
     await p.getByRole('table', { name: /^Spread of euribor6m over default, 3M forwards/ }).waitFor();
     expect(await serious(p)).toEqual([]);
+    expect(errors).toEqual([]);
+  });
+
+  it.each([1280, 760])('adds a projection curve to a workspace of one curve, types its quotes, and shows it in the picker and the spread (%i px)', async (width) => {
+    const errors: string[] = [];
+    const p = await page(width);
+    p.on('pageerror', (e) => errors.push(e.message));
+    await p.getByRole('button', { name: 'Add a named curve' }).click();
+    const form = p.getByRole('form', { name: 'Add a named curve' });
+    await form.waitFor({ timeout: 20_000 });
+    await form.getByRole('textbox', { name: 'Name' }).fill('euribor3m');
+    await form.getByRole('combobox', { name: 'Role' }).selectOption('projection');
+    await form.getByRole('combobox', { name: 'Index tenor' }).selectOption('3M');
+    await form.getByRole('combobox', { name: 'Discounted on' }).selectOption('');
+    await form.getByRole('button', { name: 'Add the curve' }).click();
+    // Refused on its field, naming what to change.
+    await form.getByText('A projection curve needs a discounting curve: choose one').waitFor();
+    await p.locator('.named-curves').screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-forms-add-${width}.png`) });
+    expect(await serious(p)).toEqual([]);
+    await form.getByRole('combobox', { name: 'Discounted on' }).selectOption('default');
+    await form.getByRole('button', { name: 'Add the curve' }).click();
+    const picker = p.getByRole('combobox', { name: 'Curve shown' });
+    expect(await picker.inputValue()).toBe('euribor3m');
+    // Its quotes typed row by row: a deposit, an FRA (start x end) and two swaps, in the file's unit.
+    for (const [kind, maturity, rate] of [
+      ['deposit', '3M', '0.0441'],
+      ['fra', '3x6', '0.0436'],
+      ['swap', '2Y', '0.0425'],
+      ['swap', '5Y', '0.0419'],
+    ]) {
+      await p.getByRole('button', { name: 'Add a quote to euribor3m' }).click();
+      const q = p.getByRole('form', { name: 'New quote of euribor3m' });
+      await q.getByRole('textbox', { name: 'Kind' }).fill(kind!);
+      await q.getByRole('textbox', { name: 'Maturity' }).fill(maturity!);
+      await q.getByRole('textbox', { name: 'Rate / yield' }).fill(rate!);
+      if (kind === 'fra') await p.locator('.named-curves').screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-forms-quote-${width}.png`) });
+      await q.getByRole('button', { name: 'Add the quote' }).click();
+    }
+    const quotes = p.getByRole('table', { name: 'Quotes of the curve euribor3m' });
+    expect(await quotes.getByRole('row').count()).toBe(5);
+    // Each quote builds euribor3m; the swaps are discounted on the default curve, the deposit and FRA on none (own ratio).
+    const cells = await quotes.getByRole('row').evaluateAll((rows) => rows.slice(1).map((r) => [...r.querySelectorAll('td')].map((c) => c.textContent)));
+    expect(cells.map((r) => [r[1], r[4], r[5]])).toEqual([
+      ['deposit', 'euribor3m', 'none (own DF ratio)'],
+      ['fra', 'euribor3m', 'none (own DF ratio)'],
+      ['swap', 'euribor3m', 'default'],
+      ['swap', 'euribor3m', 'default'],
+    ]);
+    expect(await picker.locator('option', { hasText: 'euribor3m' }).textContent()).toBe('euribor3m: projection, 3M index, discounted on default');
+    // The spread of the new curve over the default curve.
+    await p.getByRole('table', { name: /^Spread of euribor3m over default, zero rates/ }).waitFor();
+    const spreadChart = p.getByRole('img', { name: 'Spread of euribor3m over default, zero rates' });
+    expect((await spreadChart.locator('[data-series="spread"] path').first().getAttribute('d'))?.length ?? 0).toBeGreaterThan(1000);
+    await p.screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-added-${width}.png`), fullPage: true });
+    expect(await serious(p)).toEqual([]);
+    // Undo takes the quotes and the curve back, one step each.
+    for (let i = 0; i < 5; i++) await p.getByRole('button', { name: 'Undo' }).click();
+    await p.getByRole('button', { name: 'Add a named curve' }).waitFor();
     expect(errors).toEqual([]);
   });
 

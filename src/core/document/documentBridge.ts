@@ -55,6 +55,24 @@ function termsCellOf(q: Record<string, unknown>, market: string | null, joinCale
 }
 const cellText = (v: unknown): string => (typeof v === 'string' ? v : typeof v === 'number' && Number.isFinite(v) ? String(v) : '');
 
+/**
+ * An engine quote as the sheet's cells (every column but Conventions, which termsCellOf writes;
+ * numbers as their shortest round-trip text in the decimal unit) and its on/off flag: the one
+ * writer of a quote's cells, for a file opened into the sheet and a named curve's quote edited in
+ * its own rows (features/namedCurves).
+ */
+export function sheetCellsOf(q: Record<string, unknown>): Omit<QuoteRow, 'id' | 'terms'> {
+  const row: Record<string, unknown> = { enabled: q.enabled !== false };
+  for (const c of QUOTE_COLUMNS) row[c] = cellText(COLUMN_FIELDS[c].map((f) => q[f]).find((v) => v !== undefined));
+  // A kind dated by its own fields writes its Maturity cell itself (a future: `2027-03 1M`).
+  const own = typeof q.kind === 'string' && Object.hasOwn(QUOTE_KIND_MODULES, q.kind) ? QUOTE_KIND_MODULES[q.kind as QuoteKind].sheet.maturityCell : undefined;
+  if (own !== undefined) row.maturity = own.write(q);
+  return row as unknown as Omit<QuoteRow, 'id' | 'terms'>;
+}
+
+/** A quote's full sheet row text without a workspace's market conventions (a named curve's quote, whose set is its own). */
+export const quoteRowText = (q: Record<string, unknown>): Omit<QuoteRow, 'id'> => ({ ...sheetCellsOf(q), terms: termsCellOf(q, null, null) });
+
 /** The engine's reading of one quote, without its position: what must survive a conversion unchanged. */
 const meaning = (q: Quote): string => {
   const { index: _index, ...rest } = q;
@@ -74,14 +92,7 @@ export function workbenchFromEngine(raw: unknown, makeId: () => string, readCurv
   const doc = raw as Record<string, unknown>;
 
   const rawQuotes = doc.quotes as readonly Record<string, unknown>[];
-  const rows = rawQuotes.map((q) => {
-    const row: Record<string, unknown> = { id: makeId(), enabled: q.enabled !== false };
-    for (const c of QUOTE_COLUMNS) row[c] = cellText(COLUMN_FIELDS[c].map((f) => q[f]).find((v) => v !== undefined));
-    // A kind dated by its own fields writes its Maturity cell itself (a future: `2027-03 1M`).
-    const own = typeof q.kind === 'string' && Object.hasOwn(QUOTE_KIND_MODULES, q.kind) ? QUOTE_KIND_MODULES[q.kind as QuoteKind].sheet.maturityCell : undefined;
-    if (own !== undefined) row.maturity = own.write(q);
-    return row as Record<string, unknown>;
-  });
+  const rows = rawQuotes.map((q) => ({ id: makeId(), ...sheetCellsOf(q) }) as Record<string, unknown>);
   const ws = first.workspace;
   // A set every quote of its kinds names opens as the workspace's market conventions (the sheet's
   // rows of those kinds take it); any other set a quote names goes in its Conventions cell. The

@@ -6,6 +6,7 @@ export * from './types.ts';
 export * from './plainObject.ts';
 export * from './validate.ts';
 export * from './namedCurves.ts';
+export * from './namedCurveEdits.ts';
 export * from './limits.ts';
 export * from './documentKeys.ts';
 export * from './document.ts';

@@ -17,7 +17,8 @@ export type NamedCurveRole = (typeof CURVE_ROLES)[number];
 export const DEFAULT_CURVE_NAME = 'default';
 /** A term index's tenor and its periods a year (the floating leg of its swaps). */
 export const INDEX_TENORS: Readonly<Record<string, number>> = { '1M': 12, '3M': 4, '6M': 2, '12M': 1 };
-const NAME = /^[A-Za-z][A-Za-z0-9_-]{0,31}$/;
+/** A named curve's name: a letter, then up to 31 letters, digits, - or _. */
+export const CURVE_NAME_PATTERN = /^[A-Za-z][A-Za-z0-9_-]{0,31}$/;
 const CURVE_ENTRY_KEYS = ['name', 'role', 'index', 'discountCurve', 'curve', 'quotes'];
 
 /** A named curve of a document, its quotes and settings validated as a workspace of their own. */
@@ -68,7 +69,7 @@ export function readNamedCurves(raw: unknown, common: Readonly<Record<string, un
     }
     for (const key of Object.keys(c)) if (!CURVE_ENTRY_KEYS.includes(key)) errors.push(coreError('schema', `${base}.${key}`, `unknown field "${base}.${key}"; a named curve has ${listOf(CURVE_ENTRY_KEYS)}`));
     const name = c.name;
-    if (typeof name !== 'string' || !NAME.test(name) || name === DEFAULT_CURVE_NAME) {
+    if (typeof name !== 'string' || !CURVE_NAME_PATTERN.test(name) || name === DEFAULT_CURVE_NAME) {
       const why = name === DEFAULT_CURVE_NAME ? `"${DEFAULT_CURVE_NAME}" is the top-level curve's name` : `not ${typeName(name)}`;
       errors.push(coreError('schema', `${base}.name`, `${base}.name must be a plain name (a letter, then up to 31 letters, digits, - or _), such as "euribor3m"; ${why}`));
       continue;

@@ -1,8 +1,10 @@
 import { useId, useState } from 'react';
-import { discountedOnOf, NO_VALUE, isPlainObject, namedQuoteValueField, setNamedQuoteValue, quoteConvention, quoteConventionTag, type NamedCurveBuild, type WorkbenchCurves } from '../../core/index.ts';
+import { discountedOnOf, NO_VALUE, isPlainObject, namedQuoteRow, namedQuoteValueField, removeNamedQuote, setNamedQuoteValue, quoteConvention, quoteConventionTag, type NamedCurveBuild, type WorkbenchCurves } from '../../core/index.ts';
 import { setViewValues } from '../../state/viewValues.ts';
 import { useAppStore } from '../../state/store.ts';
 import { curveChoice, DEFAULT_NAME, VIEW_KEYS } from './curveChoice.ts';
+import { CurveForm, RemoveCurve, removeShown } from './CurveForm.tsx';
+import { NamedQuoteEditor } from './NamedQuoteEditor.tsx';
 
 /** Errors listed before "and N more". */
 const ERRORS_SHOWN = 8;
@@ -14,17 +16,28 @@ const roleText = (c: Pick<NamedCurveBuild, 'role' | 'index' | 'discountCurve'>):
  * The curve picker: which curve the charts and tables show (the default curve, which the sheet
  * edits, or a named curve of the workspace), the named curves' errors, each naming the curve and
  * field to change, and the chosen named curve's quotes with the curve each builds and the curve
- * that discounted it. Named curves are read-only here: they are kept as the file gave them.
+ * that discounted it. Curves are added, changed and removed here (CurveForm.tsx), and a named
+ * curve's quotes edited row by row (NamedQuoteEditor.tsx); every change is one undo step.
+ * `adding` opens the form for a new curve (the workbench's button for a workspace of one curve).
  */
-export function CurvePicker({ named }: { named: WorkbenchCurves }) {
+export function CurvePicker({ named, adding = false, onAdding }: { named: WorkbenchCurves; adding?: boolean; onAdding?: (open: boolean) => void }) {
   const id = useId();
   const view = useAppStore((s) => s.workspace.view);
   const raw = useAppStore((s) => s.workspace.curves);
   const readOnly = useAppStore((s) => s.readOnly !== null);
-  const names = named.curves.map((c) => c.name);
-  const choice = curveChoice(view, names);
+  const [form, setForm] = useState<'' | 'add' | 'change'>(adding ? 'add' : '');
+  const [needers, setNeeders] = useState<readonly string[]>([]);
+  const close = () => {
+    setForm('');
+    setNeeders([]);
+    onAdding?.(false);
+  };
+  // Every curve the document names, built or not (a curve refused by the reader can still be changed or removed).
+  const allNames = (raw ?? []).flatMap((c) => (isPlainObject(c) && typeof c.name === 'string' ? [c.name] : []));
+  const choice = curveChoice(view, allNames);
   const shown = named.curves.find((c) => c.name === choice.shown) ?? null;
   const errors = [...named.errors, ...named.curves.flatMap((c) => c.build.errors)];
+  const count = raw?.length ?? 0;
   return (
     <section className="panel named-curves" aria-label="Curves of this workspace">
       <div className="panel-head">
@@ -33,22 +46,41 @@ export function CurvePicker({ named }: { named: WorkbenchCurves }) {
         </label>
         <select id={`${id}-pick`} value={choice.shown} disabled={readOnly} onChange={(e) => setViewValues({ [VIEW_KEYS.shown]: e.target.value }, 'Show another curve')}>
           <option value="">{DEFAULT_NAME}: the sheet's quotes (discounting)</option>
-          {named.curves.map((c) => (
-            <option key={c.name} value={c.name}>
-              {c.name}: {roleText(c)}
-              {c.build.curve ? '' : ' (not built)'}
-            </option>
-          ))}
+          {allNames.map((n, i) => {
+            const c = named.curves.find((x) => x.name === n);
+            return (
+              <option key={`${i}:${n}`} value={n}>
+                {n}: {c ? roleText(c) : 'not read'}
+                {c?.build.curve ? '' : ' (not built)'}
+              </option>
+            );
+          })}
         </select>
+        <button type="button" disabled={readOnly} aria-expanded={form === 'add'} onClick={() => setForm('add')}>
+          Add a curve
+        </button>
+        {choice.shown !== '' && (
+          <>
+            <button type="button" disabled={readOnly} onClick={() => setForm('change')}>
+              Change {choice.shown}
+            </button>
+            <button type="button" disabled={readOnly} onClick={() => setNeeders(removeShown(choice.shown, false))}>
+              Remove {choice.shown}
+            </button>
+          </>
+        )}
       </div>
+      {form === 'add' && <CurveForm key="add" editing={null} names={allNames} onDone={close} />}
+      {form === 'change' && choice.shown !== '' && <CurveForm key={choice.shown} editing={choice.shown} names={allNames} onDone={close} />}
+      {needers.length > 0 && <RemoveCurve name={choice.shown} dependents={needers} onDone={close} />}
       <p className="muted small">
-        This workspace holds {raw?.length ?? 0} named {raw?.length === 1 ? 'curve' : 'curves'} besides the default one. The sheet's quotes build the curve "{DEFAULT_NAME}" and are discounted on it; the charts and tables show the curve chosen
+        This workspace holds {count} named {count === 1 ? 'curve' : 'curves'} besides the default one. The sheet's quotes build the curve "{DEFAULT_NAME}" and are discounted on it; the charts and tables show the curve chosen
         here.
       </p>
       {errors.length > 0 && (
         <div className="field-error" role="alert">
           <p>
-            {errors.length === 1 ? 'A named curve has a problem' : `The named curves have ${errors.length} problems`} (the workspace keeps them as they are; correct them in the file and open it again):
+            {errors.length === 1 ? 'A named curve has a problem' : `The named curves have ${errors.length} problems`} (the workspace keeps them as they are; change the curve or its quotes here, or correct the file and open it again):
           </p>
           <ul>
             {errors.slice(0, ERRORS_SHOWN).map((e, i) => (
@@ -58,7 +90,7 @@ export function CurvePicker({ named }: { named: WorkbenchCurves }) {
           {errors.length > ERRORS_SHOWN && <p>and {errors.length - ERRORS_SHOWN} more</p>}
         </div>
       )}
-      {shown && <NamedQuotes curve={shown} raw={raw} named={named} />}
+      {shown && <NamedQuotes curve={shown} raw={raw} named={named} names={allNames} />}
     </section>
   );
 }
@@ -75,8 +107,14 @@ export function ShownCurveNote({ named }: { named: WorkbenchCurves }) {
   );
 }
 
-/** A named curve's quotes as the file gives them, read-only, with the curve each builds and the curve that discounted it. */
-function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: readonly unknown[] | undefined; named: WorkbenchCurves }) {
+/**
+ * A named curve's quotes as the file gives them, with the curve each builds and the curve that
+ * discounted it: each value typed in place, each row edited whole (Edit), removed (Delete), or a
+ * quote added.
+ */
+function NamedQuotes({ curve, raw, named, names }: { curve: NamedCurveBuild; raw: readonly unknown[] | undefined; named: WorkbenchCurves; names: readonly string[] }) {
+  const readOnly = useAppStore((s) => s.readOnly !== null);
+  const [editing, setEditing] = useState<number | null>(null);
   const position = (raw ?? []).findIndex((c) => isPlainObject(c) && c.name === curve.name);
   const entry = raw?.[position];
   const quotes: readonly unknown[] = isPlainObject(entry) && Array.isArray(entry.quotes) ? entry.quotes : [];
@@ -85,8 +123,8 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
   return (
     <>
       <p className="small">
-        Quotes of <strong>{curve.name}</strong> ({quotes.length}). Each value can be typed here, as the file writes it (a rate as a decimal, 0.0263 for 2.63%; a price per 100): saved, undone and
-        in the link like a cell. Kinds, maturities and terms are as the file gave them; change those in the file and open it again. The sheet below edits the curve "{DEFAULT_NAME}".
+        Quotes of <strong>{curve.name}</strong> ({quotes.length}), as the file writes them (a rate as a decimal, 0.0263 for 2.63%; a price per 100; ISO dates): type a value in place, or Edit a
+        row. The sheet below edits the curve "{DEFAULT_NAME}".
       </p>
       <div className="table-scroll" tabIndex={0} role="region" aria-label={`Quotes of ${curve.name} (scrolls sideways)`}>
         <table className="data named-quotes" aria-label={`Quotes of the curve ${curve.name}`}>
@@ -98,6 +136,7 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
               <th scope="col">Quote (decimal or per 100)</th>
               <th scope="col">Builds</th>
               <th scope="col">Discounted on</th>
+              <th scope="col">Change</th>
             </tr>
           </thead>
           <tbody>
@@ -129,12 +168,36 @@ function NamedQuotes({ curve, raw, named }: { curve: NamedCurveBuild; raw: reado
                       </td>
                     </>
                   )}
+                  <td>
+                    <button type="button" disabled={readOnly || namedQuoteRow(rawQuote) === null} title={namedQuoteRow(rawQuote) === null ? 'It has fields the sheet has no cell for: type its value only' : undefined} onClick={() => setEditing(k)} aria-label={`Edit ${curve.name} quote ${k + 1}`}>
+                      Edit
+                    </button>{' '}
+                    <button
+                      type="button"
+                      disabled={readOnly}
+                      aria-label={`Delete ${curve.name} quote ${k + 1}`}
+                      onClick={() => {
+                        const s = useAppStore.getState();
+                        setEditing(null);
+                        s.commit({ ...s.workspace, curves: removeNamedQuote(s.workspace.curves ?? [], curve.name, k) }, `Delete ${curve.name} quote ${k + 1}`);
+                      }}
+                    >
+                      Delete
+                    </button>
+                  </td>
                 </tr>
               );
             })}
           </tbody>
         </table>
       </div>
+      {editing === null ? (
+        <button type="button" disabled={readOnly} onClick={() => setEditing(quotes.length)}>
+          Add a quote to {curve.name}
+        </button>
+      ) : (
+        <NamedQuoteEditor key={`${curve.name}:${editing}`} curve={curve.name} role={curve.role} k={editing} names={names} onDone={() => setEditing(null)} />
+      )}
     </>
   );
 }
