@@ -79,7 +79,7 @@ describe('explanations in the roll panel', () => {
     const panel = await screen.findByRole('complementary', { name: /Break-even rise of riding against the zero to the horizon/ });
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(shown));
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
-    expect(steps.at(-1)).toBe(`s* = s = ${fullText(shown)} (bp)`);
+    expect(steps.at(-1)).toBe(`s* = s = ${fullText(shown)} (bp, a parallel rise of the horizon curve's zero rates (cont, ${analysis.curveDayCount}))`);
     expect(steps.some((s) => s!.startsWith('residual = G_riding - G_zero'))).toBe(true);
     expect(steps.some((s) => s!.startsWith('G_zero = 1 / DF(horizon)'))).toBe(true);
   });
@@ -95,7 +95,7 @@ describe('explanations in the roll panel', () => {
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(shown.toFixed());
     expect(panel.closest('.roll-explain-host')!.querySelector('table.roll-legs')).not.toBeNull();
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
-    expect(steps.at(-1)).toBe(`V2 = V1 x g2, decimal, 40 digits = ${shown.toFixed()} (money)`);
+    expect(steps.at(-1)).toBe(`V2 = V1 x g2, decimal, 40 digits = ${shown.toFixed()} (${analysis.moneyUnit} after leg 2)`);
   });
 
   it("the chosen view's rate of a leg opens by keyboard and ends in the shown figure to all digits", async () => {
@@ -125,7 +125,7 @@ describe('explanations in the roll panel', () => {
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(riding.terminal.toFixed());
     expect(panel.querySelector('.explain-value .tag')!.textContent).toBe(`${analysis.moneyUnit} at the horizon, unrounded`);
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
-    expect(steps.at(-1)).toContain(`= ${riding.terminal.toFixed()} (money at the horizon)`);
+    expect(steps.at(-1)).toContain(`= ${riding.terminal.toFixed()} (${analysis.moneyUnit} at the horizon)`);
     await user.click(within(panel).getByRole('button', { name: 'Copy as text' }));
     await waitFor(() => expect(within(panel).getByRole('status')).toHaveTextContent('Copied'));
     const model = explainKeyCell(result, useAppStore.getState().workspace.display, { roll: { figure: { kind: 'terminal', view: view.id, strategy: 'riding' }, strategy, scenarios: [] } });

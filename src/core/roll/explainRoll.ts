@@ -106,7 +106,7 @@ const AGAINST: Readonly<Record<StrategyId, string>> = { roll: 'rolling', zero: '
 
 /** One figure of the analysis with its explanation: the steps of the same computation, ending in the figure to all digits. */
 export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure): Result<RollFigureExplanation> {
-  const trace = rollTrace({ date: strategy.horizon });
+  const trace = rollTrace({ date: strategy.horizon }, moneyUnitOf(strategy.currency));
   const set = rollSetup(curve, strategy, scenarios, trace.sink);
   if (!set.ok) return set;
   const r = figureOn(set.value, curve, strategy, figure, trace);
@@ -152,7 +152,7 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
     const explanation: Explanation = {
       ...base,
       quantity: 'roll-break-even',
-      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : 's*: a parallel shift of the view (bp)'}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
+      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : `s*: a parallel shift of the view (${last.unit})`}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
       conventions: isRate ? conventions('simple', dc) : conventions(null, null),
     };
     const driver =

@@ -92,9 +92,13 @@ export function rollBreakEven(ctx: RollContext, chosen: RollView, id: StrategyId
   const [a, b] = rate ? ROLL_RATE_BRACKET : SHIFT_BRACKET_BP;
   const xTol = rate ? 1e-15 : 1e-10;
   const root = crossing(f, a, b, xTol);
-  if (trace && root) recordBreakEven(trace, rate ? 'r' : 's', rate ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp', `G_${own} - G_${id}`, root, [a, b], xTol, (t) => f(root.x, t));
+  if (trace && root) recordBreakEven(trace, rate ? 'r' : 's', rate ? rateUnit('simple', ctx.strategy.rollDayCount) : shiftUnit(kind, ctx), `G_${own} - G_${id}`, root, [a, b], xTol, (t) => f(root.x, t));
   return root ? root.x : null;
 }
+
+/** What a break-even shift or rise is a bp of: the rates it moves, each with its compounding and day count. */
+export const shiftUnit = (kind: RollBreakEvenKind, ctx: RollContext): string =>
+  `bp, a parallel ${kind === 'rise' ? 'rise' : "shift of every roll rate set after today (simple, " + ctx.strategy.rollDayCount + ') and'} of the horizon curve's zero rates (cont, ${ctx.curve.dayCount})`;
 
 export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEvens {
   const rollRate = {} as Record<TermStrategyId, number | null>;

@@ -32,9 +32,11 @@ export interface RollTrace {
   readonly dates: ExplainedDate[];
   /** The sink of the curve queries the figure rests on (the horizon's discount factor, a leg's forward). */
   readonly sink: ExplanationSink;
+  /** The money's unit (the strategy's ISO 4217 code, or the generic sign), given with every money step. */
+  readonly money: string;
 }
 
-export const rollTrace = (given?: Readonly<Record<string, string>>): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given) });
+export const rollTrace = (given?: Readonly<Record<string, string>>, money = '\u00a4'): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given), money });
 
 const GROWTH_UNIT = 'per unit invested';
 const PER_100 = 'per 100 face';
@@ -135,14 +137,14 @@ export function recordReturn(t: RollTrace, growth: string, lnG: number, years: n
 /** Money: amount x growth in decimal.js, each as the exact decimal text it is computed with. */
 export function recordMoney(t: RollTrace, growthName: string, amount: string, growthText: string, terminal: string): void {
   const step = (name: string, formula: string, inputs: string[], text: string, unit: string): number => t.steps.push({ name, formula, inputs, value: Number(text), unit, text });
-  step('A', 'A = the amount, as typed', [], amount, 'money');
+  step('A', 'A = the amount, as typed', [], amount, `${t.money} today`);
   step('G (decimal)', `G (decimal) = ${growthName}, its shortest decimal text`, [growthName], growthText, 'unitless');
-  step('terminal', 'terminal = A x G (decimal), decimal, 40 digits', ['A', 'G (decimal)'], terminal, 'money at the horizon');
+  step('terminal', 'terminal = A x G (decimal), decimal, 40 digits', ['A', 'G (decimal)'], terminal, `${t.money} at the horizon`);
 }
 
 /** The money after roll leg k (V0: the amount), decimal: V<k> = V<k-1> x g<k>, g<k> entering as its shortest decimal text. */
 export function recordLegValue(t: RollTrace, k: number, text: string): void {
-  t.steps.push({ name: `V${k}`, formula: k ? `V${k} = V${k - 1} x g${k}, decimal, 40 digits` : 'V0 = the amount, as typed', inputs: k ? [`V${k - 1}`, `g${k}`] : [], value: Number(text), unit: 'money', text });
+  t.steps.push({ name: `V${k}`, formula: k ? `V${k} = V${k - 1} x g${k}, decimal, 40 digits` : 'V0 = the amount, as typed', inputs: k ? [`V${k - 1}`, `g${k}`] : [], value: Number(text), unit: k ? `${t.money} after leg ${k}` : `${t.money} today`, text });
 }
 
 export const recordDate = (t: RollTrace, name: string, given: string, date: IsoDate, rule: string): void => {

@@ -199,7 +199,7 @@ export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis;
           <tr>
             <th scope="col">Rolling against</th>
             <th scope="col" className="num">r* (%, {tag})</th>
-            {showShift ? <th scope="col" className="num">Parallel shift of the view (bp on every rate set after today)</th> : null}
+            {showShift ? <th scope="col" className="num">Parallel shift of the view (bp on every rate set after today, <span className="tag">{tag}</span>, and on the horizon curve&rsquo;s zero rates, <span className="tag">{rateTag('continuous', analysis.curveDayCount)}</span>)</th> : null}
           </tr>
         </thead>
         <tbody>

@@ -387,4 +387,28 @@ describe('explainRollFigure', () => {
     expect(zero.value.userView).toBe(false);
     expect(zero.value.explanation.formula).toMatch(/Read off today's curve alone\.$/);
   });
+
+  // Units on every value (issue 19): money steps carry the strategy's currency (ISO 4217 code, or
+  // the generic sign when none is set), a break-even shift or rise says which rates it moves by
+  // that many bp, each with its compounding and day count.
+  it('gives every money step its currency and every break-even shift the rates it moves with their conventions', () => {
+    const { curve, strategy } = CASES[0]!;
+    for (const [currency, unit] of [['USD', 'USD'], ['', '\u00a4']] as const) {
+      const s = { ...strategy, currency, view: 'shift' as const };
+      for (const figure of [{ kind: 'terminal', view: 'forwards', strategy: 'roll' }, { kind: 'leg-value', leg: 2 }] as RollFigure[]) {
+        const e = explainRollFigure(curve, s, [], figure);
+        if (!e.ok) throw new Error(e.errors[0]!.message);
+        const money = e.value.explanation.steps.filter((x) => x.text !== undefined && x.name !== 'G (decimal)');
+        expect(money.length).toBeGreaterThan(1);
+        for (const m of money) expect(m.unit, m.name).toMatch(new RegExp(`^${unit} (today|at the horizon|after leg \\d+)$`));
+      }
+    }
+    const tag = (c: string, d: string) => `(${c}, ${d})`;
+    const shift = explainRollFigure(curve, { ...strategy, view: 'shift' }, [], { kind: 'break-even-shift', against: 'zero' });
+    const rise = explainRollFigure(curve, strategy, [], { kind: 'break-even-rise', against: 'zero' });
+    if (!shift.ok || !rise.ok) throw new Error('break-even');
+    expect(shift.value.explanation.unit).toBe(`bp, a parallel shift of every roll rate set after today ${tag('simple', strategy.rollDayCount)} and of the horizon curve's zero rates ${tag('cont', curve.dayCount)}`);
+    expect(shift.value.explanation.steps.at(-1)!.unit).toBe(shift.value.explanation.unit);
+    expect(rise.value.explanation.unit).toBe(`bp, a parallel rise of the horizon curve's zero rates ${tag('cont', curve.dayCount)}`);
+  });
 });
