@@ -7,7 +7,7 @@ import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { marketDate } from '../time/dateConventions.ts';
 import { parseTenor } from '../time/tenor.ts';
-import { rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
+import { breakEvenPoint, rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
 import { outcomeOf, rollSetup, rollValuesOf, type NamedCurve, type RollSetup } from './rollVsTerm.ts';
@@ -30,7 +30,9 @@ export type RollFigure =
   /** Today's forward of roll leg `leg` (1-based). */
   | { readonly kind: 'leg-forward'; readonly leg: number }
   /** The money after roll leg `leg` (1-based), or the leg's rate, under the chosen view. */
-  | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number };
+  | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number }
+  /** The break-even curve's rise (bp) of the par bond yield at `tenor`. */
+  | { readonly kind: 'curve-rise'; readonly tenor: string };
 
 /** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
 export type RollFigureDriver =
@@ -75,6 +77,10 @@ function figureOn(set: RollSetup, curve: Curve, strategy: StrategyInputs, figure
     const f = forwardOn(curve, leg.start, leg.end, 'simple', strategy.rollDayCount, 'strategy.horizon', trace?.sink);
     return f.ok ? ok({ value: f.value.rate }) : f;
   }
+  if (figure.kind === 'curve-rise') {
+    const x = breakEvenPoint(ctx, figure.tenor, trace)?.riseBp;
+    return x == null ? noFigure('no crossing in the bracket') : ok({ value: x });
+  }
   if ('leg' in figure) {
     const rv = ctx.view(specs[chosen]!, trace);
     const x = rv.legRates[figure.leg - 1];
@@ -116,7 +122,8 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   const H = ctx.horizon;
   const dc = strategy.rollDayCount;
   const rate = (start: IsoDate, end: IsoDate, compounding: Compounding, dayCount: CurveDayCount, note: string | null): RollFigureDriver => ({ kind: 'rate', start, end, compounding, dayCount, note });
-  const par = (id: 'bond' | 'riding'): RollFigureDriver => ({ kind: 'par', end: id === 'bond' ? H : M, frequency: ctx[id].frequency, note: "of the bond's coupon, today's par yield" });
+  const parOn = (end: IsoDate, frequency: number): RollFigureDriver => ({ kind: 'par', end, frequency, note: "of the bond's coupon, today's par yield" });
+  const par = (id: 'bond' | 'riding'): RollFigureDriver => parOn(id === 'bond' ? H : M, ctx[id].frequency);
   const zeroNote = 'of the zero rate to the horizon (ann, ACT/365F)';
   if (figure.kind === 'leg-forward') {
     const leg = ctx.legs[figure.leg - 1]!;
@@ -147,20 +154,23 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   if (!('view' in figure)) {
     const view = specs[chosen]!;
     const isRate = figure.kind === 'break-even-rate';
-    const against = figure.against;
+    const against = figure.kind === 'curve-rise' ? 'zero' : figure.against;
     const own = figure.kind === 'break-even-rise' ? 'riding' : 'roll';
     const explanation: Explanation = {
       ...base,
       quantity: 'roll-break-even',
-      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : `s*: a parallel shift of the view (${last.unit})`}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
+      formula:
+        figure.kind === 'curve-rise' ? `d*: the ${figure.tenor} par bond's coupons at today's forwards plus its price at y0 + d equal 100 / DF(horizon)`
+        : `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : `s*: a parallel shift of the view (${last.unit})`}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
       conventions: isRate ? conventions('simple', dc) : conventions(null, null),
     };
     const driver =
-      own === 'riding' ? par(own)
+      figure.kind === 'curve-rise' ? parOn(marketDate(S, parseTenor(figure.tenor)!), strategy.ridingFrequency)
+      : own === 'riding' ? par(own)
       : against === 'zero' ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
       : par(against as 'bond');
-    const title = `Break-even ${isRate ? 'roll rate r*' : own === 'riding' ? 'rise of riding' : 'shift of the view'} against ${AGAINST[against]}`;
-    return ok({ ...r.value, explanation, title, driver, why: null, userView: view.id !== 'forwards' });
+    const title = figure.kind === 'curve-rise' ? `Break-even rise of the ${figure.tenor} yield` : `Break-even ${isRate ? 'roll rate r*' : own === 'riding' ? 'rise of riding' : 'shift of the view'} against ${AGAINST[against]}`;
+    return ok({ ...r.value, explanation, title, driver, why: null, userView: figure.kind !== 'curve-rise' && view.id !== 'forwards' });
   }
   const spec = specs.find((s) => s.id === figure.view)!;
   const id = figure.strategy;

@@ -39,7 +39,7 @@ export interface RollTrace {
 export const rollTrace = (given?: Readonly<Record<string, string>>, money = '\u00a4'): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given), money });
 
 const GROWTH_UNIT = 'per unit invested';
-const PER_100 = 'per 100 face';
+export const PER_100 = 'per 100 face';
 
 const push = (t: RollTrace, name: string, formula: string, inputs: readonly string[], value: number, unit: string): void => {
   t.steps.push({ name, formula, inputs, value, unit });
@@ -118,6 +118,31 @@ export function recordBondTotals(t: RollTrace, id: string, flows: readonly { i: 
   push(t, `G_${id}`, `G_${id} = (coupons + price) / 100`, ['coupons', 'price'], growth, GROWTH_UNIT);
 }
 
+/** A flow paid by the horizon grown to it at today's forwards: R<i> = DF(date) / DF(horizon) (the break-even curve). */
+export function recordForwardGrowth(t: RollTrace, curve: Curve, i: number, flow: BondFlow, time: number, ln: number, growth: number): void {
+  const df = `DF(${flow.date})`;
+  cf(t, i, flow);
+  t.reads.push(explainRead(curve, df, flow.date, time, ln));
+  push(t, `R${i}`, `R${i} = ${df} / DF(horizon)`, [df, 'DF(horizon)'], growth, 'unitless');
+}
+
+/** The break-even curve's terms at the root: the horizon's discount factor, the coupons grown to it, the target and the yields. */
+export function recordCurvePoint(t: RollTrace, curve: Curve, horizon: IsoDate, tH: number, lnH: number, coupons: number, target: number, y0: number, y: number): void {
+  const u = t.steps.at(-1)!.unit;
+  t.reads.push(explainRead(curve, 'DF(horizon)', horizon, tH, lnH));
+  sumStep(t, 'coupons', 'R', t.steps.filter((s) => /^R\d/.test(s.name)).map((s) => +s.name.slice(1)), coupons);
+  push(t, 'target', 'target = 100 / DF(horizon)', ['DF(horizon)'], target, PER_100);
+  push(t, 'y0', 'y0 = its yield today', [], y0, u);
+  push(t, 'y', 'y = y0 + d', ['y0', 'd'], y, u);
+}
+
+/** A price per 100 face at the yield y (ICMA, f a year): P_y = sum over the flows k = 0, 1, ... of CF x (1 + y/f)^-(w + k). */
+export function recordYieldPrice(t: RollTrace, first: number, flows: readonly BondFlow[], f: number, w: number, price: number): void {
+  push(t, 'w', 'w = share of the coupon period left', [], w, 'unitless');
+  const cfs = flows.map((flow, k) => (cf(t, first + k, flow), `CF${first + k}`));
+  push(t, 'P_y', `P_y = sum over k = 0, 1, ... of CF(${first} + k) x (1 + y / ${f})^-(w + k)`, ['y', 'w', ...cfs], price, PER_100);
+}
+
 /** The zero to the horizon: its growth from the horizon's discount factor. */
 export function recordZero(t: RollTrace, growth: number): void {
   const e = t.sink.explanation;
@@ -152,9 +177,9 @@ export const recordDate = (t: RollTrace, name: string, given: string, date: IsoD
 };
 
 /**
- * A break-even (rollBreakEven.ts): the solver's root `x` of `diff` (two growths' names joined by
- * " - "), then both growths evaluated at it by the functions the solver calls (`evaluate` records
- * them and returns the difference), the residual, and the root again as the figure.
+ * A break-even (rollBreakEven.ts): the solver's root `x` of `diff` (names joined by - or +), then
+ * the terms evaluated at it by the functions the solver calls (`evaluate` records them and
+ * returns the difference), the residual, and the figure: the root times `scale` (1, or 10000 to bp).
  */
 export function recordBreakEven(
   t: RollTrace,
@@ -165,8 +190,10 @@ export function recordBreakEven(
   [a, b]: readonly [number, number],
   xTol: number,
   evaluate: (t: RollTrace) => number,
+  scale = 1,
+  residualUnit = GROWTH_UNIT,
 ): void {
   push(t, x, `${x} = root of ${diff} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${xTol}`, [], root.x, unit);
-  push(t, 'residual', `residual = ${diff}`, diff.split(' - '), evaluate(t), GROWTH_UNIT);
-  push(t, `${x}*`, `${x}* = ${x}`, [x, 'residual'], root.x, unit);
+  push(t, 'residual', `residual = ${diff}`, diff.split(/ . /), evaluate(t), residualUnit);
+  push(t, `${x}*`, `${x}* = ${x}${scale === 1 ? '' : ' x 10000'}`, [x, 'residual'], root.x * scale, scale === 1 ? unit : unit.replace('decimal per year, ', 'bp of the yield, '));
 }

@@ -247,12 +247,13 @@ export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis;
                   {p.tenor} <span className="muted small">{p.maturity}</span>
                 </th>
                 <td className="num">{formatPercent(p.yield)}</td>
-                <td className="num">{p.riseBp === null ? 'none' : formatBpChange(p.riseBp)}</td>
+                <td className="num">{p.riseBp === null ? 'none' : fig({ kind: 'curve-rise', tenor: p.tenor }, p.riseBp, `break-even rise of ${p.tenor}`)}</td>
               </tr>
             ))}
           </tbody>
         </table>
       ) : null}
+      {explain?.panel('curve')}
     </div>
   );
 }

@@ -16,6 +16,7 @@ import {
   type ExplainedStep,
   type RollFigure,
   type StrategyInputs,
+  yieldTag,
 } from '../../../src/core/index.ts';
 import { rng } from '../../helpers/seededRandom.ts';
 
@@ -272,13 +273,28 @@ describe('explainRollFigure', () => {
     expect(checked).toBeGreaterThan(40);
   }, 120_000);
 
-  it("gives riding's break-even rises equal to the untraced analysis, bit for bit", () => {
-    let checked = 0;
+  it('gives each break-even curve rise and riding rise equal to the untraced analysis, bit for bit', () => {
+    let points = 0;
+    let rises = 0;
     for (const { curve, strategy } of CASES) {
       const a = analyseRollVsTerm(curve, strategy);
       if (!a.ok) throw new Error('analysis');
+      const b = a.value.breakEvens;
+      for (const p of b.curve) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: p.tenor });
+        const u = rollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: p.tenor });
+        if (p.riseBp === null) {
+          expect(t.ok).toBe(false);
+          continue;
+        }
+        if (!t.ok || !u.ok) throw new Error('curve rise');
+        expect(Object.is(t.value.value, p.riseBp)).toBe(true);
+        expect(Object.is(u.value.value, p.riseBp)).toBe(true);
+        expect(Object.is(t.value.explanation.steps.at(-1)!.value, p.riseBp)).toBe(true);
+        points++;
+      }
       for (const against of ['roll', 'zero'] as const) {
-        const shown = a.value.breakEvens.ridingRiseBp[against];
+        const shown = b.ridingRiseBp[against];
         const t = explainRollFigure(curve, strategy, [], { kind: 'break-even-rise', against });
         const u = rollFigure(curve, strategy, [], { kind: 'break-even-rise', against });
         if (shown === null) {
@@ -289,10 +305,81 @@ describe('explainRollFigure', () => {
         expect(Object.is(t.value.value, shown)).toBe(true);
         expect(Object.is(u.value.value, shown)).toBe(true);
         expect(Object.is(t.value.explanation.steps.at(-1)!.value, shown)).toBe(true);
+        rises++;
+      }
+    }
+    expect(points).toBeGreaterThan(50);
+    expect(rises).toBeGreaterThan(30);
+  }, 120_000);
+
+  // The break-even curve's point: a par bond of the tenor, its coupons to the horizon grown at
+  // today's forwards (DF(date) / DF(horizon)) and its dirty price at the horizon at its yield moved
+  // by d, priced by the ICMA rule P = sum CF_k (1 + y/f)^-(w + k) with w the share of the current
+  // period still to run (Fabozzi, "Bond Markets, Analysis and Strategies", pricing between coupon
+  // dates; cited from memory), against 100 / DF(horizon), the zero's lock-in.
+  it('has break-even curve steps that, recomputed from the shown inputs, meet at the shown root', () => {
+    let checked = 0;
+    let withW = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      for (const p of a.value.breakEvens.curve) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: p.tenor });
+        if (!t.ok) continue;
+        const e = t.value.explanation;
+        const steps = stepsOf(e);
+        const dfH = e.reads.find((x) => x.name === 'DF(horizon)')!;
+        expect(dfH.date).toBe(a.value.horizon);
+        let coupons = 0;
+        let price = 0;
+        let lastCouponDate: string | null = null;
+        let firstAfter: string | null = null;
+        let k = 0;
+        const f = strategy.ridingFrequency;
+        const y = val(steps, 'y');
+        const w = val(steps, 'w');
+        for (const s of e.steps) {
+          const m = /^CF(\d+)$/.exec(s.name);
+          if (!m) continue;
+          const i = m[1]!;
+          const date = /on (\d{4}-\d{2}-\d{2})$/.exec(s.formula)![1]!;
+          if (steps.has(`R${i}`)) {
+            const read = e.reads.find((x) => x.name === `DF(${date})`)!;
+            expect(rel(val(steps, `R${i}`), read.discount / dfH.discount), `R${i}`).toBeLessThanOrEqual(1e-15);
+            coupons += s.value * val(steps, `R${i}`);
+            lastCouponDate = date;
+          } else {
+            firstAfter ??= date;
+            // pow on its own is a looser textbook check (its rounding grows with the power); the log form to 1e-15.
+            const v = Math.exp(-(w + k) * Math.log1p(y / f));
+            expect(rel(v, Math.pow(1 + y / f, -(w + k))), `v${i}`).toBeLessThanOrEqual(1e-13);
+            price += s.value * v;
+            k++;
+          }
+        }
+        expect(k).toBeGreaterThan(0);
+        // w: days from the horizon to the next coupon over the days of its period (ICMA), checked where the period's start is a paid coupon.
+        if (lastCouponDate) {
+          const days = (x: string, z: string) => (Date.parse(z) - Date.parse(x)) / 86_400_000;
+          expect(rel(w, days(a.value.horizon, firstAfter!) / days(lastCouponDate, firstAfter!))).toBeLessThanOrEqual(1e-15);
+          withW++;
+        }
+        expect(w > 0 && w <= 1).toBe(true);
+        expect(rel(val(steps, 'coupons'), coupons)).toBeLessThanOrEqual(1e-15);
+        expect(rel(val(steps, 'P_y'), price)).toBeLessThanOrEqual(1e-15);
+        expect(Object.is(val(steps, 'target'), 100 / dfH.discount)).toBe(true);
+        expect(Object.is(val(steps, 'y0'), p.yield)).toBe(true);
+        expect(Object.is(y, val(steps, 'y0') + val(steps, 'd'))).toBe(true);
+        const residual = val(steps, 'coupons') + val(steps, 'P_y') - val(steps, 'target');
+        expect(Object.is(val(steps, 'residual'), residual)).toBe(true);
+        // Brent stops on a bracket of 1e-15 in the yield: both sides then agree to about 1e-15 x 100 x duration.
+        expect(Math.abs(residual)).toBeLessThanOrEqual(1e-10);
+        expect(Object.is(val(steps, 'd*'), val(steps, 'd') * 10000)).toBe(true);
         checked++;
       }
     }
-    expect(checked).toBeGreaterThan(30);
+    expect(checked).toBeGreaterThan(50);
+    expect(withW).toBeGreaterThan(10);
   }, 120_000);
 
   it("has riding-rise steps whose growths, recomputed at the shown root, are equal to the solver tolerance", () => {
@@ -410,5 +497,12 @@ describe('explainRollFigure', () => {
     expect(shift.value.explanation.unit).toBe(`bp, a parallel shift of every roll rate set after today ${tag('simple', strategy.rollDayCount)} and of the horizon curve's zero rates ${tag('cont', curve.dayCount)}`);
     expect(shift.value.explanation.steps.at(-1)!.unit).toBe(shift.value.explanation.unit);
     expect(rise.value.explanation.unit).toBe(`bp, a parallel rise of the horizon curve's zero rates ${tag('cont', curve.dayCount)}`);
+    // A break-even curve's rise is a bp of its par bond's yield, in that yield's convention.
+    const a = analyseRollVsTerm(curve, strategy);
+    if (!a.ok) throw new Error('analysis');
+    const point = a.value.breakEvens.curve.find((p) => p.riseBp !== null)!;
+    const c = explainRollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: point.tenor });
+    if (!c.ok) throw new Error('curve rise');
+    expect(c.value.explanation.unit).toBe(`bp of the yield, ${yieldTag(strategy.ridingFrequency)}`);
   });
 });
