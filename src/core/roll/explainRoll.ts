@@ -9,8 +9,8 @@ import { marketDate } from '../time/dateConventions.ts';
 import { parseTenor } from '../time/tenor.ts';
 import { breakEvenPoint, rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
 import { moneyUnitOf } from './rollSummary.ts';
-import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
-import { outcomeOf, rollSetup, rollValuesOf, type NamedCurve, type RollSetup } from './rollVsTerm.ts';
+import { recordDate, recordOwnNames, recordVsRoll, rollTrace, type RollTrace } from './rollTrace.ts';
+import { outcomeOf, ridingSplit, rollSetup, rollValuesOf, type NamedCurve, type RollSetup } from './rollVsTerm.ts';
 import type { StrategyInputs, StrategyViewId } from './strategyInputs.ts';
 import type { Money } from './strategyMoney.ts';
 import type { StrategyId, TermStrategyId } from './strategyValues.ts';
@@ -32,7 +32,14 @@ export type RollFigure =
   /** The money after roll leg `leg` (1-based), or the leg's rate, under the chosen view. */
   | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number }
   /** The break-even curve's rise (bp) of the par bond yield at `tenor`. */
-  | { readonly kind: 'curve-rise'; readonly tenor: string };
+  | { readonly kind: 'curve-rise'; readonly tenor: string }
+  /** A part of riding's gain under the chosen view (the riding split): carry, roll-down, curve change or their total, money. */
+  | { readonly kind: 'riding-split'; readonly part: RidingPart }
+  /** A term strategy against rolling under a view: money at the horizon (`vs-roll`) or annualised return in bp a year (`vs-roll-bp`). */
+  | { readonly kind: 'vs-roll' | 'vs-roll-bp'; readonly view: StrategyViewId; readonly strategy: TermStrategyId };
+
+/** The riding split's parts, by the names of their steps. */
+export type RidingPart = 'carry' | 'roll-down' | 'curve change' | 'total';
 
 /** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
 export type RollFigureDriver =
@@ -81,6 +88,12 @@ function figureOn(set: RollSetup, curve: Curve, strategy: StrategyInputs, figure
     const x = breakEvenPoint(ctx, figure.tenor, trace)?.riseBp;
     return x == null ? noFigure('no crossing in the bracket') : ok({ value: x });
   }
+  if (figure.kind === 'riding-split') {
+    const r = ridingSplit(ctx, ctx.view(specs[chosen]!, trace), amount, trace);
+    const parts = { carry: r.carry, 'roll-down': r.rollDown, 'curve change': r.curveChange, total: r.carry.plus(r.rollDown).plus(r.curveChange) };
+    const m = parts[figure.part];
+    return ok({ value: m.toNumber(), money: m });
+  }
   if ('leg' in figure) {
     const rv = ctx.view(specs[chosen]!, trace);
     const x = rv.legRates[figure.leg - 1];
@@ -95,6 +108,22 @@ function figureOn(set: RollSetup, curve: Curve, strategy: StrategyInputs, figure
   }
   const spec = specs.find((s) => s.id === figure.view);
   if (!spec) return noFigure(`there is no view "${figure.view}"`);
+  if (figure.kind === 'vs-roll' || figure.kind === 'vs-roll-bp') {
+    // Both figures as outcomeOf makes them (rolling's, then the strategy's), each recorded under its own names, then their difference.
+    const money = figure.kind === 'vs-roll';
+    const id = figure.strategy;
+    const rv = ctx.view(spec, trace);
+    const traced = (who: StrategyId) => {
+      const from = trace?.steps.length ?? 0;
+      const o = outcomeOf(ctx, rv, amount, years, trace && { trace, id: who, figure: money ? 'terminal' : 'return' });
+      if (trace) recordOwnNames(trace, from, who);
+      return o;
+    };
+    traced('roll');
+    const s = traced(id).strategies.find((x) => x.id === id)!;
+    if (trace) recordVsRoll(trace, id, money ? s.vsRoll.toFixed() : null, s.vsRollBp);
+    return ok(money ? { value: s.vsRoll.toNumber(), money: s.vsRoll } : { value: s.vsRollBp });
+  }
   const legsNeeded = figure.strategy !== 'zero';
   const rv = ctx.view(spec, legsNeeded ? trace : undefined);
   const o = outcomeOf(ctx, rv, amount, years, trace ? { trace, id: figure.strategy, figure: figure.kind } : undefined).strategies.find((s) => s.id === figure.strategy)!;
@@ -136,6 +165,7 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
     const own = trace.steps.findIndex((s) => s.name === `${figure.kind === 'leg-rate' ? 'r' : 'V'}${figure.leg}`);
     if (own >= 0) trace.steps.splice(own + 1);
   }
+  if (figure.kind === 'riding-split') trace.steps.splice(trace.steps.findIndex((s) => s.name === figure.part) + 1);
   const last = trace.steps.at(-1)!;
   const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
   if ('leg' in figure) {
@@ -150,6 +180,18 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
       conventions: money ? conventions(null, null) : conventions('simple', dc),
     };
     return ok({ ...r.value, explanation, title: `${money ? 'Value after' : 'Rate of'} leg ${k} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
+  }
+  if (figure.kind === 'riding-split') {
+    const view = specs[chosen]!;
+    const explanation: Explanation = {
+      ...base,
+      quantity: 'roll-terminal',
+      formula: `${figure.part} of riding the ${strategy.ridingMaturity} bond under "${view.label}": carry = A x (C + P_y) / 100 - A, roll-down = A x (P0 - P_y) / 100, curve change = A x (price - P0) / 100; C its coupons grown to the horizon, P_y its dirty price at the horizon at its own yield today (ICMA), P0 on today's curve seen from the horizon by time to maturity, price on the view's horizon curve (each per 100 face). ${view.description}`,
+      valueText: last.text!,
+      unit: `${moneyUnitOf(strategy.currency)} over the horizon, unrounded`,
+      conventions: conventions(null, null),
+    };
+    return ok({ ...r.value, explanation, title: `Riding the ${strategy.ridingMaturity} bond: ${figure.part} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
   }
   if (!('view' in figure)) {
     const view = specs[chosen]!;
@@ -176,20 +218,23 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   const id = figure.strategy;
   const userView = id !== 'zero' && spec.id !== 'forwards';
   const phrase = id === 'roll' ? `rolling ${strategy.rollTenor}` : id === 'riding' ? `riding the ${strategy.ridingMaturity} bond` : AGAINST[id];
-  const money = figure.kind === 'terminal';
+  const vs = figure.kind === 'vs-roll' || figure.kind === 'vs-roll-bp';
+  const money = figure.kind === 'terminal' || figure.kind === 'vs-roll';
   if (!money) trace.yearFractions.push(explainedYearFraction('T', 'ACT/365F', S, H, years));
+  const each = `${money ? 'terminal = A x G' : 'return = G^(1/T) - 1'}, ${GROWTH[id]}`;
   const explanation: Explanation = {
     ...base,
     quantity: money ? 'roll-terminal' : 'roll-return',
-    formula: `${money ? 'terminal = A x G' : 'return = G^(1/T) - 1'}, ${GROWTH[id]}, under "${spec.label}": ${spec.description} ${userView ? 'It rests on your view, not on the curve alone.' : "Read off today's curve alone."}`,
+    formula: `${vs ? `${money ? `vs roll = terminal_${id} - terminal_roll` : `vs roll = (return_${id} - return_roll) x 10000`}, each ${each}; ${GROWTH.roll}` : each}, under "${spec.label}": ${spec.description} ${userView ? 'It rests on your view, not on the curve alone.' : "Read off today's curve alone."}`,
     ...(money ? { valueText: last.text!, unit: `${moneyUnitOf(strategy.currency)} at the horizon, unrounded` } : {}),
     conventions: money ? conventions(null, null) : conventions('annual', 'ACT/365F'),
   };
   const driver =
-    id === 'zero' || (id === 'roll' && spec.id === 'forwards') ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
+    vs ? null
+    : id === 'zero' || (id === 'roll' && spec.id === 'forwards') ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
     : id === 'roll' && spec.id === 'unchanged' ? rate(S, marketDate(S, parseTenor(strategy.rollTenor)!), 'simple', dc, `of today's ${strategy.rollTenor} spot`)
     : id !== 'roll' && spec.id === 'forwards' ? par(id)
     : null;
-  const title = `${money ? 'Money at the horizon' : 'Annualised return'} of ${phrase} under ${spec.label}`;
-  return ok({ ...r.value, explanation, title, driver, why: driver ? null : 'none: it rests on your view as much as on the quotes', userView });
+  const title = vs ? `${phrase[0]!.toUpperCase()}${phrase.slice(1)} against rolling under ${spec.label}${money ? '' : ', bp a year'}` : `${money ? 'Money at the horizon' : 'Annualised return'} of ${phrase} under ${spec.label}`;
+  return ok({ ...r.value, explanation, title, driver, why: driver ? null : vs ? 'none: a difference of two figures; open each for its quotes' : 'none: it rests on your view as much as on the quotes', userView: vs || userView });
 }

@@ -39,6 +39,7 @@ export interface RollTrace {
 export const rollTrace = (given?: Readonly<Record<string, string>>, money = '\u00a4'): RollTrace => ({ steps: [], reads: [], yearFractions: [], dates: [], sink: explanationSink(given), money });
 
 const GROWTH_UNIT = 'per unit invested';
+const RETURN_WORDS = 'ann, ACT/365F';
 export const PER_100 = 'per 100 face';
 
 const push = (t: RollTrace, name: string, formula: string, inputs: readonly string[], value: number, unit: string): void => {
@@ -102,10 +103,15 @@ export function recordReinvested(t: RollTrace, i: number, flow: BondFlow, parts:
 }
 
 /** A flow after the horizon, priced on the view's horizon curve. */
-export function recordHorizonPrice(t: RollTrace, i: number, flow: BondFlow, dfh: number): void {
-  cf(t, i, flow);
-  push(t, `DFH${i}`, `DFH${i} = DF(${flow.date}) on the view's horizon curve`, [], dfh, DF_UNIT);
+export function recordHorizonPrice(t: RollTrace, i: number, flow: BondFlow, dfh: number, name = 'DFH', on = "the view's horizon curve"): void {
+  cfOnce(t, i, flow);
+  push(t, `${name}${i}`, `${name}${i} = DF(${flow.date}) on ${on}`, [], dfh, DF_UNIT);
 }
+
+/** A flow's step, unless the figure has already recorded it (a bond valued twice: the riding split). */
+const cfOnce = (t: RollTrace, i: number, flow: BondFlow): void => {
+  if (!t.steps.some((s) => s.name === `CF${i}`)) cf(t, i, flow);
+};
 
 /** `name = CF<i> x <b><i> + ...` over the flows `idx`. */
 const sumStep = (t: RollTrace, name: string, b: string, idx: readonly number[], value: number): void =>
@@ -139,7 +145,7 @@ export function recordCurvePoint(t: RollTrace, curve: Curve, horizon: IsoDate, t
 /** A price per 100 face at the yield y (ICMA, f a year): P_y = sum over the flows k = 0, 1, ... of CF x (1 + y/f)^-(w + k). */
 export function recordYieldPrice(t: RollTrace, first: number, flows: readonly BondFlow[], f: number, w: number, price: number): void {
   push(t, 'w', 'w = share of the coupon period left', [], w, 'unitless');
-  const cfs = flows.map((flow, k) => (cf(t, first + k, flow), `CF${first + k}`));
+  const cfs = flows.map((flow, k) => (cfOnce(t, first + k, flow), `CF${first + k}`));
   push(t, 'P_y', `P_y = sum over k = 0, 1, ... of CF(${first} + k) x (1 + y / ${f})^-(w + k)`, ['y', 'w', ...cfs], price, PER_100);
 }
 
@@ -196,4 +202,36 @@ export function recordBreakEven(
   push(t, x, `${x} = root of ${diff} on [${a}, ${b}], Brent's method, ${root.iterations} steps, tolerance ${xTol}`, [], root.x, unit);
   push(t, 'residual', `residual = ${diff}`, diff.split(/ . /), evaluate(t), residualUnit);
   push(t, `${x}*`, `${x}* = ${x}${scale === 1 ? '' : ' x 10000'}`, [x, 'residual'], root.x * scale, scale === 1 ? unit : unit.replace('decimal per year, ', 'bp of the yield, '));
+}
+
+/** The steps both figures of a difference record alike (the money or the return), named for their strategy from step `from` on: `terminal_bond`. */
+export function recordOwnNames(t: RollTrace, from: number, id: string): void {
+  const own = (n: string): string => (/^(A|G \(decimal\)|terminal|lnG|return)$/.test(n) ? `${n}_${id}` : n);
+  for (let i = from; i < t.steps.length; i++) {
+    const s = t.steps[i]!;
+    t.steps[i] = { ...s, name: own(s.name), formula: s.formula.replace(`${s.name} =`, `${own(s.name)} =`), inputs: s.inputs.map(own) };
+  }
+}
+
+/** A term strategy against rolling: money (decimal text, `money`) or the returns' difference in bp a year. */
+export function recordVsRoll(t: RollTrace, id: string, money: string | null, bp: number): void {
+  if (money !== null) t.steps.push({ name: 'vs roll', formula: `vs roll = terminal_${id} - terminal_roll, decimal`, inputs: [`terminal_${id}`, 'terminal_roll'], value: Number(money), unit: `${t.money} at the horizon`, text: money });
+  else push(t, 'vs roll', `vs roll = (return_${id} - return_roll) x 10000`, [`return_${id}`, 'return_roll'], bp, `bp a year (${RETURN_WORDS})`);
+}
+
+/**
+ * The riding bond's split (rollVsTerm.ts ridingSplit) after its values were recorded (coupons and
+ * price on the view's horizon curve, y0, P_y, and P0 with its DF0 reads): P0, then each part in
+ * decimal, `texts` [carry, roll-down, curve change, total].
+ */
+export function recordRidingSplit(t: RollTrace, after: readonly number[], p0: number, sums: readonly [number, number, number], texts: readonly string[]): void {
+  sumStep(t, 'P0', 'DF0', after, p0);
+  push(t, 'C + P_y', 'C + P_y = coupons + P_y', ['coupons', 'P_y'], sums[0], PER_100);
+  push(t, 'P0 - P_y', 'P0 - P_y', ['P0', 'P_y'], sums[1], PER_100);
+  push(t, 'price - P0', 'price - P0', ['price', 'P0'], sums[2], PER_100);
+  const step = (name: string, formula: string, inputs: string[], text: string): number => t.steps.push({ name, formula, inputs, value: Number(text), unit: `${t.money} over the horizon`, text });
+  step('carry', 'carry = A x (C + P_y) / 100 - A, decimal', ['C + P_y'], texts[0]!);
+  step('roll-down', 'roll-down = A x (P0 - P_y) / 100, decimal', ['P0 - P_y'], texts[1]!);
+  step('curve change', 'curve change = A x (price - P0) / 100, decimal', ['price - P0'], texts[2]!);
+  step('total', 'total = carry + roll-down + curve change, decimal', ['carry', 'roll-down', 'curve change'], texts[3]!);
 }

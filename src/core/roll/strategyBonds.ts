@@ -99,13 +99,13 @@ export function bondYieldFromPriceOn(bond: TermBond, date: IsoDate, dirty: numbe
   return ok(root.x);
 }
 
-/** Value per 100 face on the curve's settlement date of the flows strictly after it, on that curve; with `trace`, each flow and its discount factor are recorded. */
-export function bondValueOnCurve(bond: TermBond, curve: Curve, trace?: RollTrace): number {
+/** Value per 100 face on the curve's settlement date of the flows strictly after it, on that curve; with `trace`, each flow and its discount factor are recorded (`name`<i>, read on `on`). */
+export function bondValueOnCurve(bond: TermBond, curve: Curve, trace?: RollTrace, name?: string, on?: string): number {
   let pv = 0;
   bond.flows.forEach((f, i) => {
     if (compareIso(f.date, curve.settlement) <= 0) return;
     const df = Math.exp(curve.lnDiscountAt(curve.time(f.date)));
-    if (trace) recordHorizonPrice(trace, i + 1, f, df);
+    if (trace) recordHorizonPrice(trace, i + 1, f, df, name, on);
     pv += f.amount * df;
   });
   return pv;

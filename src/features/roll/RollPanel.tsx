@@ -59,7 +59,7 @@ export function rollOnShown(curve: Curve, curveName: string | undefined, strateg
 }
 
 /** Where a figure's explanation opens: beside the table it is in. */
-export type RollFigureGroup = 'results' | 'breakevens' | 'legs' | 'curve';
+export type RollFigureGroup = 'results' | 'breakevens' | 'legs' | 'curve' | 'split';
 
 /** The tables' way to make a figure a button that opens its explanation, and the panel beside each table. */
 export interface RollExplain {
@@ -67,7 +67,7 @@ export interface RollExplain {
   panel(group: RollFigureGroup): ReactNode;
 }
 
-const groupOf = (f: RollFigure): RollFigureGroup => (f.kind === 'curve-rise' ? 'curve' : 'against' in f ? 'breakevens' : 'leg' in f ? 'legs' : 'results');
+const groupOf = (f: RollFigure): RollFigureGroup => (f.kind === 'curve-rise' ? 'curve' : f.kind === 'riding-split' ? 'split' : 'against' in f ? 'breakevens' : 'leg' in f ? 'legs' : 'results');
 const sameFigure = (a: RollCell, b: RollCell): boolean => JSON.stringify(a.roll.figure) === JSON.stringify(b.roll.figure);
 
 const BASE_LABEL: Record<(typeof BASE_VIEWS)[number], string> = {
@@ -186,7 +186,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
               <RollResultsTable analysis={analysis} explain={explain} />
             </div>
             <div className="roll-side">
-              <RidingSplitTable analysis={analysis} />
+              <RidingSplitTable analysis={analysis} explain={explain} />
               <BreakEvenTables analysis={analysis} explain={explain} />
               <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} explain={explain} />
             </div>

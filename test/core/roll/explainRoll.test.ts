@@ -505,4 +505,103 @@ describe('explainRollFigure', () => {
     if (!c.ok) throw new Error('curve rise');
     expect(c.value.explanation.unit).toBe(`bp of the yield, ${yieldTag(strategy.ridingFrequency)}`);
   });
+
+  // Against rolling (the results table's "against rolling" figures): the strategy's terminal value
+  // (or annualised return) minus rolling's, each made as above; money exact in decimal, the return
+  // difference times 10,000 in bp a year.
+  it('gives each figure against rolling equal to the analysis bit for bit (money to the last digit), its steps recomputed', () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const an = analyseRollVsTerm(curve, strategy);
+      if (!an.ok) throw new Error('analysis');
+      for (const v of an.value.views) {
+        for (const id of TERM_STRATEGY_IDS) {
+          const o = v.strategies.find((x) => x.id === id)!;
+          const m = explainRollFigure(curve, strategy, [], { kind: 'vs-roll', view: v.id, strategy: id });
+          const mu = rollFigure(curve, strategy, [], { kind: 'vs-roll', view: v.id, strategy: id });
+          const b = explainRollFigure(curve, strategy, [], { kind: 'vs-roll-bp', view: v.id, strategy: id });
+          const bu = rollFigure(curve, strategy, [], { kind: 'vs-roll-bp', view: v.id, strategy: id });
+          if (!m.ok || !mu.ok || !b.ok || !bu.ok) throw new Error('figure');
+          expect(m.value.money!.toFixed()).toBe(o.vsRoll.toFixed());
+          expect(mu.value.money!.toFixed()).toBe(o.vsRoll.toFixed());
+          expect(m.value.explanation.valueText).toBe(o.vsRoll.toFixed());
+          expect(Object.is(b.value.value, o.vsRollBp)).toBe(true);
+          expect(Object.is(bu.value.value, o.vsRollBp)).toBe(true);
+          // Recomputed: each growth from its shown steps, each money A x G (decimal), their difference.
+          const me = m.value.explanation;
+          const ms = stepsOf(me);
+          for (const who of ['roll', id]) {
+            const G = recomputeGrowth(me, who, strategy.rollDayCount);
+            expect(Number(ms.get(`G (decimal)_${who}`)!.text)).toBe(G);
+            expect(new MoneyDecimal(ms.get(`A_${who}`)!.text!).times(new MoneyDecimal(ms.get(`G (decimal)_${who}`)!.text!)).toFixed()).toBe(ms.get(`terminal_${who}`)!.text);
+          }
+          expect(new MoneyDecimal(ms.get(`terminal_${id}`)!.text!).minus(new MoneyDecimal(ms.get('terminal_roll')!.text!)).toFixed()).toBe(me.valueText);
+          const be = b.value.explanation;
+          const bs = stepsOf(be);
+          const T = yearFraction('ACT/365F', curve.settlement, an.value.horizon);
+          for (const who of ['roll', id]) expect(rel(val(bs, `return_${who}`), Math.expm1(Math.log(recomputeGrowth(be, who, strategy.rollDayCount)) / T)), who).toBeLessThanOrEqual(1e-15);
+          expect(Object.is(be.value, (val(bs, `return_${id}`) - val(bs, 'return_roll')) * 10000)).toBe(true);
+          expect(Object.is(be.steps.at(-1)!.value, be.value)).toBe(true);
+          expect(be.unit).toBe('bp a year (ann, ACT/365F)');
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(200);
+  }, 120_000);
+
+  // The riding split (Tuckman and Serrat, "Fixed Income Securities", carry and roll-down; cited from
+  // memory): with C the coupons grown to the horizon, P_y the horizon price at the bond's own yield
+  // today by the ICMA rule P = sum CF_k (1 + y/f)^-(w + k) (Fabozzi, pricing between coupon dates;
+  // from memory), P0 on today's curve seen from the horizon and the price on the view's horizon
+  // curve: carry = A (C + P_y)/100 - A, roll-down = A (P0 - P_y)/100, curve change = A (price - P0)/100.
+  it('gives each part of the riding split equal to the analysis to the last digit, its steps recomputed', () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const an = analyseRollVsTerm(curve, strategy);
+      if (!an.ok) throw new Error('analysis');
+      const r = an.value.views[an.value.chosen]!.riding;
+      const shown = { carry: r.carry, 'roll-down': r.rollDown, 'curve change': r.curveChange, total: r.carry.plus(r.rollDown).plus(r.curveChange) };
+      for (const part of ['carry', 'roll-down', 'curve change', 'total'] as const) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'riding-split', part });
+        const u = rollFigure(curve, strategy, [], { kind: 'riding-split', part });
+        if (!t.ok || !u.ok) throw new Error('split');
+        expect(t.value.explanation.valueText).toBe(shown[part].toFixed());
+        expect(u.value.money!.toFixed()).toBe(shown[part].toFixed());
+        expect(t.value.explanation.steps.at(-1)!.name).toBe(part);
+      }
+      const t = explainRollFigure(curve, strategy, [], { kind: 'riding-split', part: 'total' });
+      if (!t.ok) throw new Error('split');
+      const e = t.value.explanation;
+      const steps = stepsOf(e);
+      recomputeGrowth(e, 'riding', strategy.rollDayCount); // the coupons and price
+      const f = strategy.ridingFrequency;
+      const y = val(steps, 'y');
+      const w = val(steps, 'w');
+      let py = 0;
+      let p0 = 0;
+      let k = 0;
+      for (const s of e.steps) {
+        const m = /^CF(\d+)$/.exec(s.name);
+        if (!m || steps.has(`R${m[1]}`)) continue;
+        py += s.value * Math.exp(-(w + k++) * Math.log1p(y / f));
+        p0 += s.value * val(steps, `DF0${m[1]}`);
+      }
+      expect(rel(val(steps, 'P_y'), py)).toBeLessThanOrEqual(1e-15);
+      expect(rel(val(steps, 'P0'), p0)).toBeLessThanOrEqual(1e-15);
+      expect(Object.is(y, an.value.ridingYield)).toBe(true);
+      const A = new MoneyDecimal(strategy.amount);
+      const per100 = (x: number) => A.times(new MoneyDecimal(x)).div(100);
+      expect(Object.is(val(steps, 'C + P_y'), val(steps, 'coupons') + val(steps, 'P_y'))).toBe(true);
+      const carry = per100(val(steps, 'C + P_y')).minus(A);
+      const rollDown = per100(val(steps, 'P0') - val(steps, 'P_y'));
+      const change = per100(val(steps, 'price') - val(steps, 'P0'));
+      expect(steps.get('carry')!.text).toBe(carry.toFixed());
+      expect(steps.get('roll-down')!.text).toBe(rollDown.toFixed());
+      expect(steps.get('curve change')!.text).toBe(change.toFixed());
+      expect(e.valueText).toBe(carry.plus(rollDown).plus(change).toFixed());
+      checked++;
+    }
+    expect(checked).toBe(CASES.length);
+  }, 120_000);
 });
