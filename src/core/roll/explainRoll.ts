@@ -186,7 +186,7 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
     const explanation: Explanation = {
       ...base,
       quantity: 'roll-terminal',
-      formula: `${figure.part} of riding the ${strategy.ridingMaturity} bond under "${view.label}": carry = A x (C + P_y) / 100 - A, roll-down = A x (P0 - P_y) / 100, curve change = A x (price - P0) / 100; C its coupons grown to the horizon, P_y its dirty price at the horizon at its own yield today (ICMA), P0 on today's curve seen from the horizon by time to maturity, price on the view's horizon curve (each per 100 face). ${view.description}`,
+      formula: `${figure.part} of riding the ${strategy.ridingMaturity} bond under "${view.label}": carry = A x (C + P_y) / 100 - A, roll-down = A x (P0 - P_y) / 100, curve change = A x (price - P0) / 100; C its coupons grown to the horizon, P_y its dirty price there at its own yield today (ICMA), P0 on today's curve by time to maturity, price on the view's horizon curve (per 100 face). ${view.description}`,
       valueText: last.text!,
       unit: `${moneyUnitOf(strategy.currency)} over the horizon, unrounded`,
       conventions: conventions(null, null),

@@ -26,7 +26,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
     <EditLock>
     {on && (
       <p className="muted small">
-        Scenarios{on}, the curve shown{moves.length > 0 ? `; a move of its quotes rebuilds the curves discounted on it (${moves.join(', ')}) on the moved curve` : ''}.
+        Scenarios{on}, the curve shown{moves.length > 0 ? `; moving its quotes rebuilds ${moves.join(', ')} on it too` : ''}.
       </p>
     )}
     <ScenarioPanel
