@@ -153,6 +153,26 @@ describe('roll versus term, scenarios and print on the curve shown', () => {
     expect(tenYear.querySelectorAll('td')[0]!.textContent).toBe(formatBpChange(effects.find((r) => r.tenor === '10Y')!.zeroBp));
   });
 
+  it('with a named discounting curve shown: its scenarios are applyScenarioOnCurve on it, and the section names the curves a move of its quotes rebuilds', async () => {
+    // The fixture's curves moved onto a named discounting curve of their own (invented): euribor6m discounted on "ois2".
+    const F = FIXTURE as { quotes: unknown[]; curves: Record<string, unknown>[] };
+    const curves = [{ name: 'ois2', role: 'discounting', quotes: F.quotes }, { ...F.curves[0]!, discountCurve: 'ois2' }];
+    open({ ...FIXTURE, curves, view: { shownCurve: 'ois2' } } as unknown);
+    act(() => useAppStore.getState().setReserved('scenarios', [UP]));
+    const doc = useAppStore.getState().workspace;
+    const base = deriveBuild(doc);
+    const named = buildWorkbenchCurves(doc, base.build.curve);
+    const ois2 = named.curves.find((c) => c.name === 'ois2')!.build.curve!;
+    const moved = applyScenarioOnCurve(UP, { ...base.build.workspace!, curves: named.read! }, base.build.curve!, named.curves, 'ois2', workbenchBuildOptions());
+    if (!moved.ok) throw new Error(moved.errors[0]!.message);
+    // The projection curve discounted on it moved with it (its swaps read the moved discount factors).
+    expect(moved.value.curves.euribor6m!.lnDiscountAt(9)).not.toBe(named.curves.find((c) => c.name === 'euribor6m')!.build.curve!.lnDiscountAt(9));
+    render(<Workbench />);
+    expect(await screen.findByText('Scenarios on the curve "ois2", the curve shown; moving its quotes rebuilds "euribor6m" on it too.', undefined, { timeout: 20_000 })).toBeTruthy();
+    const table = screen.getByRole('table', { name: 'Scenario changes at key maturities' });
+    for (const r of scenarioEffects(ois2, moved.value.curve, COMPARISON_TENORS, conv())) expect(cell(table, `s1:${r.tenor}:zero`), r.tenor).toBe(formatBpChange(r.zeroBp));
+  });
+
   it('with the default curve shown among named curves: the roll on it, the print naming it', async () => {
     open();
     const base = deriveBuild(useAppStore.getState().workspace);
