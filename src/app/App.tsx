@@ -36,7 +36,7 @@ export function App() {
   // keystroke paints the sheet, charts and tables first (see useSettledValue).
   const deferred = useSettledValue(result);
   // Named curves besides the default one (the document's `curves`; their code loads on first use):
-  // the charts and tables show the curve the picker chooses, the sheet edits the default curve.
+  // the charts and tables, roll versus term and the print show the curve the picker chooses, the sheet edits the default curve.
   const { shown, kit, named, adding, setAdding, needed } = useNamedCurves(result);
   const shownDeferred = shown === result ? deferred : shown;
   return (
@@ -101,7 +101,7 @@ export function App() {
               <TablesPanel result={shown} deferredResult={shownDeferred} extraTabs={EXTENSIONS.tabs} />
             </div>
             <section className="panel roll-slot" aria-label="Roll versus term" data-slot="roll-versus-term">
-              <RollHost result={deferred} />
+              <RollHost result={shownDeferred} />
             </section>
           </>
         )}
@@ -109,7 +109,7 @@ export function App() {
       <footer className="foot">
         <Caution />
       </footer>
-      <PrintHost result={deferred} />
+      <PrintHost result={shownDeferred} />
     </div>
   );
 }

@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { buildCurve, CurveBuilder, type CurveBuild, type OvernightKit } from '../core/index.ts';
+import { buildCurve, CurveBuilder, type BuildOptions, type CurveBuild, type NamedCurveBuild, type OvernightKit, type Result, type Scenario, type ScenarioCurve } from '../core/index.ts';
 import { loadedOvernightKit, needsOvernightKit, useOvernightKit, workbenchBuildOptions } from './overnightKit.ts';
 import {
   isQuoteUnitMode,
@@ -40,6 +40,12 @@ export interface WorkbenchBuild {
   readonly fatal: string | null;
   /** The named curve built (shownBuild), absent for the default curve, the sheet's. */
   readonly curveName?: string;
+  /**
+   * With a named curve shown (useNamedCurves): a scenario applied to it on the whole document
+   * (applyScenarioOnCurve on the default curve's workspace with the named curves as read, the
+   * default curve and every named curve's build), and those builds.
+   */
+  readonly onCurves?: { readonly move: (s: Scenario, options: BuildOptions, path?: string) => Result<ScenarioCurve>; readonly built: readonly NamedCurveBuild[] };
 }
 
 /**

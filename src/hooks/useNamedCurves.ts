@@ -62,7 +62,18 @@ export function useNamedCurves(result: WorkbenchBuild): NamedCurvesView {
   const loaded = needed ? kit : null;
   const defaultCurve = result.build.curve;
   const named = useMemo(() => (loaded ? loaded.buildWorkbenchCurves({ settlement, calendars, customCalendars, curves }, defaultCurve) : null), [loaded, settlement, calendars, customCalendars, curves, defaultCurve]);
-  const shown = useMemo(() => (loaded && named ? loaded.shownBuild(result, named, { settlement, calendars, customCalendars, curves }, view) : result), [loaded, named, result, settlement, calendars, customCalendars, curves, view]);
+  const shown = useMemo(() => {
+    if (!loaded || !named) return result;
+    const s = loaded.shownBuild(result, named, { settlement, calendars, customCalendars, curves }, view);
+    const ws = result.build.workspace;
+    const defaultCurve = result.build.curve;
+    // A named curve shown: what its scenarios move is the whole document (the curves built on it move with it).
+    const read = named.read;
+    if (s === result || !ws || !defaultCurve || !read || !s.curveName) return s;
+    const name = s.curveName;
+    const whole = { ...ws, curves: read };
+    return { ...s, onCurves: { move: (sc, options, path) => loaded.applyScenarioOnCurve(sc, whole, defaultCurve, named.curves, name, options, path), built: named.curves } };
+  }, [loaded, named, result, settlement, calendars, customCalendars, curves, view]);
   return { shown, kit: loaded, named, adding, setAdding, needed };
 }
 

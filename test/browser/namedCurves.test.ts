@@ -75,6 +75,10 @@ describe('named curves in Chromium', () => {
     await expect.poll(() => zeroPath(p)).not.toBe(before);
     expect(await quotes.getByRole('row').nth(2).textContent()).toContain('default');
     await p.screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-euribor6m-${width}.png`), fullPage: true });
+    // Roll versus term follows the curve shown and names it.
+    const roll = p.getByRole('region', { name: 'Roll versus term on the curve "euribor6m"' });
+    await roll.waitFor({ timeout: 20_000 });
+    await roll.screenshot({ path: path.join(SCREENSHOT_DIR, `named-curves-roll-euribor6m-${width}.png`) });
     // Forwards instead of zero rates: the spread table says so in its name and headers.
     await p.getByRole('combobox', { name: 'Spread of zero rates or forwards' }).selectOption('forward');
     await p.getByRole('table', { name: /^Spread of euribor6m over default, 3M forwards/ }).waitFor();

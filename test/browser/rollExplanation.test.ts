@@ -1,7 +1,7 @@
 // The roll panel's figures explain themselves (issue 19), in Debian's Chromium on the built app
 // (demo workspace, invented data): the break-even roll rate against the par bond opens its
 // explanation beside its table, ending in the table's figure to all digits; a money value opens
-// with its exact decimal text, and so does the value after a leg beside the legs table; axe-core (WCAG 2.x A/AA plus best practices) finds no serious or
+// with its exact decimal text, and so do the value after a leg beside the legs table and the riding split's carry beside its table; axe-core (WCAG 2.x A/AA plus best practices) finds no serious or
 // critical violation in the roll panel with the explanation open. Screenshots at 1280 and 760 px
 // wide. The numbers themselves are the core's (test/core/roll/explainRoll.test.ts).
 import { readFileSync } from 'node:fs';
@@ -58,6 +58,22 @@ describe('explanations in the roll panel', () => {
     expect(await panel.evaluate((el) => el.closest('.roll-explain-host')?.querySelector('table.roll-legs') !== null)).toBe(true);
     await panel.scrollIntoViewIfNeeded();
     await page.locator('.roll-side').screenshot({ path: path.join(SCREENSHOT_DIR, 'roll-leg-value-1280-area.png') });
+  });
+
+  it("the riding split's carry opens beside the split table with its exact decimal text in the strategy's money", async () => {
+    const button = roll().getByRole('button', { name: /explain the riding split's carry$/ });
+    const shown = (await button.textContent())!.trim();
+    await button.scrollIntoViewIfNeeded();
+    await button.click();
+    const panel = page.getByRole('complementary', { name: /Riding the .* bond: carry under/ });
+    await panel.waitFor({ timeout: 20_000 });
+    const value = (await panel.locator('[data-field="value"]').textContent())!;
+    expect(shown.replace(/[^\d.]/g, '')).toBe(Math.abs(Number(value)).toFixed(2));
+    expect(await panel.evaluate((el) => el.closest('.roll-explain-host')?.querySelector('table.roll-split') !== null)).toBe(true);
+    const steps = await panel.locator('section[aria-label="Steps"] li').allTextContents();
+    expect(steps.at(-1)).toMatch(/^carry = A x \(C \+ P_y\) \/ 100 - A, decimal = -?[\d.]+ \(\S+ over the horizon\)$/);
+    await panel.scrollIntoViewIfNeeded();
+    await page.locator('.roll-side').screenshot({ path: path.join(SCREENSHOT_DIR, 'roll-split-explanation-1280-area.png') });
   });
 
   it('axe-core finds no serious or critical violation in the roll panel with the explanation open', async () => {

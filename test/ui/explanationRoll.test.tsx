@@ -79,7 +79,7 @@ describe('explanations in the roll panel', () => {
     const panel = await screen.findByRole('complementary', { name: /Break-even rise of riding against the zero to the horizon/ });
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(shown));
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
-    expect(steps.at(-1)).toBe(`s* = s = ${fullText(shown)} (bp)`);
+    expect(steps.at(-1)).toBe(`s* = s = ${fullText(shown)} (bp, a parallel rise of the horizon curve's zero rates (cont, ${analysis.curveDayCount}))`);
     expect(steps.some((s) => s!.startsWith('residual = G_riding - G_zero'))).toBe(true);
     expect(steps.some((s) => s!.startsWith('G_zero = 1 / DF(horizon)'))).toBe(true);
   });
@@ -95,7 +95,7 @@ describe('explanations in the roll panel', () => {
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(shown.toFixed());
     expect(panel.closest('.roll-explain-host')!.querySelector('table.roll-legs')).not.toBeNull();
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
-    expect(steps.at(-1)).toBe(`V2 = V1 x g2, decimal, 40 digits = ${shown.toFixed()} (money)`);
+    expect(steps.at(-1)).toBe(`V2 = V1 x g2, decimal, 40 digits = ${shown.toFixed()} (${analysis.moneyUnit} after leg 2)`);
   });
 
   it("the chosen view's rate of a leg opens by keyboard and ends in the shown figure to all digits", async () => {
@@ -125,7 +125,7 @@ describe('explanations in the roll panel', () => {
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(riding.terminal.toFixed());
     expect(panel.querySelector('.explain-value .tag')!.textContent).toBe(`${analysis.moneyUnit} at the horizon, unrounded`);
     const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
-    expect(steps.at(-1)).toContain(`= ${riding.terminal.toFixed()} (money at the horizon)`);
+    expect(steps.at(-1)).toContain(`= ${riding.terminal.toFixed()} (${analysis.moneyUnit} at the horizon)`);
     await user.click(within(panel).getByRole('button', { name: 'Copy as text' }));
     await waitFor(() => expect(within(panel).getByRole('status')).toHaveTextContent('Copied'));
     const model = explainKeyCell(result, useAppStore.getState().workspace.display, { roll: { figure: { kind: 'terminal', view: view.id, strategy: 'riding' }, strategy, scenarios: [] } });
@@ -145,5 +145,41 @@ describe('explanations in the roll panel', () => {
     expect(panel.closest('.roll-explain-host')!.querySelector('table.roll-legs')).not.toBeNull();
     const a11y = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
     expect(a11y.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
+  });
+
+  it('a break-even curve rise, a part of the riding split and a figure against rolling open by keyboard, each ending in the shown figure to all digits', async () => {
+    const user = userEvent.setup({ delay: null });
+    const { analysis } = setUp();
+    const view = analysis.views[analysis.chosen]!;
+    const open = async (button: RegExp, panelName: RegExp, host: string) => {
+      const b = await screen.findByRole('button', { name: button });
+      b.focus();
+      await user.keyboard('{Enter}');
+      const panel = await screen.findByRole('complementary', { name: panelName });
+      expect(panel.closest('.roll-explain-host, .roll-breakevens')!.querySelector(host)).not.toBeNull();
+      const value = panel.querySelector('[data-field="value"]')!.textContent;
+      const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+      panel.focus();
+      await user.keyboard('{Escape}');
+      expect(b).toHaveFocus();
+      return { value, steps };
+    };
+    // The break-even curve: the first point with a rise.
+    const point = analysis.breakEvens.curve.find((p) => p.riseBp !== null)!;
+    const c = await open(new RegExp(`explain the break-even rise of ${point.tenor}$`), new RegExp(`Break-even rise of the ${point.tenor} yield`), 'table');
+    expect(c.value).toBe(fullText(point.riseBp!));
+    expect(c.steps.at(-1)).toMatch(/^d\* = d x 10000 = .* \(bp of the yield, /);
+    // The riding split's carry, in money with its currency.
+    const carry = await open(/explain the riding split's carry$/, /Riding the .* bond: carry under/, 'table.roll-split');
+    expect(carry.value).toBe(view.riding.carry.toFixed());
+    expect(carry.steps.at(-1)).toBe(`carry = A x (C + P_y) / 100 - A, decimal = ${view.riding.carry.toFixed()} (${analysis.moneyUnit} over the horizon)`);
+    // The par bond against rolling under the chosen view, money and bp a year.
+    const bond = view.strategies.find((s) => s.id === 'bond')!;
+    const phrase = analysis.strategies.find((s) => s.id === 'bond')!.phrase;
+    const vs = await open(new RegExp(`explain the ${phrase} against rolling under ${view.label}$`), new RegExp(`against rolling under ${view.label}$`, 'i'), 'table.roll-results');
+    expect(vs.value).toBe(bond.vsRoll.toFixed());
+    const bp = await open(new RegExp(`explain the ${phrase} against rolling under ${view.label}, bp a year$`), new RegExp(`against rolling under ${view.label}, bp a year`, 'i'), 'table.roll-results');
+    expect(bp.value).toBe(fullText(bond.vsRollBp));
+    expect(bp.steps.at(-1)).toBe(`vs roll = (return_bond - return_roll) x 10000 = ${fullText(bond.vsRollBp)} (bp a year (ann, ACT/365F))`);
   });
 });

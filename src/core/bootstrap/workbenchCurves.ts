@@ -1,5 +1,5 @@
 import type { Curve } from '../curve/curve.ts';
-import { readNamedCurves } from '../document/namedCurves.ts';
+import { readNamedCurves, type WorkspaceCurve } from '../document/namedCurves.ts';
 import { validateWorkspace, WORKSPACE_FORMAT, WORKSPACE_VERSION } from '../document/validate.ts';
 import type { CoreError } from '../result.ts';
 import { exactDecimal, nearestDouble } from '../input/decimalText.ts';
@@ -17,6 +17,12 @@ export interface WorkbenchCurves {
    * curve's quote errors (that quote is left out of its curve), each naming `curves[i]` and the field.
    */
   readonly errors: readonly CoreError[];
+  /**
+   * The named curves as read (build order, with their roles and own workspaces): put on the
+   * default curve's workspace as its `curves`, it is the document applyScenarioOnCurve moves.
+   * Absent when nothing was read.
+   */
+  readonly read?: readonly WorkspaceCurve[];
 }
 
 /** What the named curves read from the workbench document (its `curves`, as given, and what they share with the default curve). */
@@ -50,7 +56,7 @@ export function buildWorkbenchCurves(doc: WorkbenchCurveInputs, defaultCurve: Cu
   if (read.workspace === null) return { curves: [], errors: read.errors };
   const built = buildNamedCurves(read.workspace, defaultCurve, { skipInvalid: true });
   const position = new Map((read.workspace.curves ?? []).map((c) => [c.name, c.position]));
-  return { curves: [...built].sort((x, y) => position.get(x.name)! - position.get(y.name)!), errors: read.errors };
+  return { curves: [...built].sort((x, y) => position.get(x.name)! - position.get(y.name)!), errors: read.errors, read: read.workspace.curves ?? [] };
 }
 
 /** The field a named curve's quote (as the file gives it) holds its value in (`rate`, `price`, `cleanPrice`...), or null when it has none. */

@@ -7,10 +7,10 @@ import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { marketDate } from '../time/dateConventions.ts';
 import { parseTenor } from '../time/tenor.ts';
-import { rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
+import { breakEvenPoint, rollBreakEven, type RollBreakEvenKind } from './rollBreakEven.ts';
 import { moneyUnitOf } from './rollSummary.ts';
-import { recordDate, rollTrace, type RollTrace } from './rollTrace.ts';
-import { outcomeOf, rollSetup, rollValuesOf, type NamedCurve, type RollSetup } from './rollVsTerm.ts';
+import { recordDate, recordOwnNames, recordVsRoll, rollTrace, type RollTrace } from './rollTrace.ts';
+import { outcomeOf, ridingSplit, rollSetup, rollValuesOf, type NamedCurve, type RollSetup } from './rollVsTerm.ts';
 import type { StrategyInputs, StrategyViewId } from './strategyInputs.ts';
 import type { Money } from './strategyMoney.ts';
 import type { StrategyId, TermStrategyId } from './strategyValues.ts';
@@ -30,7 +30,16 @@ export type RollFigure =
   /** Today's forward of roll leg `leg` (1-based). */
   | { readonly kind: 'leg-forward'; readonly leg: number }
   /** The money after roll leg `leg` (1-based), or the leg's rate, under the chosen view. */
-  | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number };
+  | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number }
+  /** The break-even curve's rise (bp) of the par bond yield at `tenor`. */
+  | { readonly kind: 'curve-rise'; readonly tenor: string }
+  /** A part of riding's gain under the chosen view (the riding split): carry, roll-down, curve change or their total, money. */
+  | { readonly kind: 'riding-split'; readonly part: RidingPart }
+  /** A term strategy against rolling under a view: money at the horizon (`vs-roll`) or annualised return in bp a year (`vs-roll-bp`). */
+  | { readonly kind: 'vs-roll' | 'vs-roll-bp'; readonly view: StrategyViewId; readonly strategy: TermStrategyId };
+
+/** The riding split's parts, by the names of their steps. */
+export type RidingPart = 'carry' | 'roll-down' | 'curve change' | 'total';
 
 /** What the quotes' sensitivities of a figure are taken of: a rate over [start, end] on today's curve, or a par coupon. */
 export type RollFigureDriver =
@@ -75,6 +84,16 @@ function figureOn(set: RollSetup, curve: Curve, strategy: StrategyInputs, figure
     const f = forwardOn(curve, leg.start, leg.end, 'simple', strategy.rollDayCount, 'strategy.horizon', trace?.sink);
     return f.ok ? ok({ value: f.value.rate }) : f;
   }
+  if (figure.kind === 'curve-rise') {
+    const x = breakEvenPoint(ctx, figure.tenor, trace)?.riseBp;
+    return x == null ? noFigure('no crossing in the bracket') : ok({ value: x });
+  }
+  if (figure.kind === 'riding-split') {
+    const r = ridingSplit(ctx, ctx.view(specs[chosen]!, trace), amount, trace);
+    const parts = { carry: r.carry, 'roll-down': r.rollDown, 'curve change': r.curveChange, total: r.carry.plus(r.rollDown).plus(r.curveChange) };
+    const m = parts[figure.part];
+    return ok({ value: m.toNumber(), money: m });
+  }
   if ('leg' in figure) {
     const rv = ctx.view(specs[chosen]!, trace);
     const x = rv.legRates[figure.leg - 1];
@@ -89,6 +108,22 @@ function figureOn(set: RollSetup, curve: Curve, strategy: StrategyInputs, figure
   }
   const spec = specs.find((s) => s.id === figure.view);
   if (!spec) return noFigure(`there is no view "${figure.view}"`);
+  if (figure.kind === 'vs-roll' || figure.kind === 'vs-roll-bp') {
+    // Both figures as outcomeOf makes them (rolling's, then the strategy's), each recorded under its own names, then their difference.
+    const money = figure.kind === 'vs-roll';
+    const id = figure.strategy;
+    const rv = ctx.view(spec, trace);
+    const traced = (who: StrategyId) => {
+      const from = trace?.steps.length ?? 0;
+      const o = outcomeOf(ctx, rv, amount, years, trace && { trace, id: who, figure: money ? 'terminal' : 'return' });
+      if (trace) recordOwnNames(trace, from, who);
+      return o;
+    };
+    traced('roll');
+    const s = traced(id).strategies.find((x) => x.id === id)!;
+    if (trace) recordVsRoll(trace, id, money ? s.vsRoll.toFixed() : null, s.vsRollBp);
+    return ok(money ? { value: s.vsRoll.toNumber(), money: s.vsRoll } : { value: s.vsRollBp });
+  }
   const legsNeeded = figure.strategy !== 'zero';
   const rv = ctx.view(spec, legsNeeded ? trace : undefined);
   const o = outcomeOf(ctx, rv, amount, years, trace ? { trace, id: figure.strategy, figure: figure.kind } : undefined).strategies.find((s) => s.id === figure.strategy)!;
@@ -106,7 +141,7 @@ const AGAINST: Readonly<Record<StrategyId, string>> = { roll: 'rolling', zero: '
 
 /** One figure of the analysis with its explanation: the steps of the same computation, ending in the figure to all digits. */
 export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenarios: readonly NamedCurve[], figure: RollFigure): Result<RollFigureExplanation> {
-  const trace = rollTrace({ date: strategy.horizon });
+  const trace = rollTrace({ date: strategy.horizon }, moneyUnitOf(strategy.currency));
   const set = rollSetup(curve, strategy, scenarios, trace.sink);
   if (!set.ok) return set;
   const r = figureOn(set.value, curve, strategy, figure, trace);
@@ -116,7 +151,8 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   const H = ctx.horizon;
   const dc = strategy.rollDayCount;
   const rate = (start: IsoDate, end: IsoDate, compounding: Compounding, dayCount: CurveDayCount, note: string | null): RollFigureDriver => ({ kind: 'rate', start, end, compounding, dayCount, note });
-  const par = (id: 'bond' | 'riding'): RollFigureDriver => ({ kind: 'par', end: id === 'bond' ? H : M, frequency: ctx[id].frequency, note: "of the bond's coupon, today's par yield" });
+  const parOn = (end: IsoDate, frequency: number): RollFigureDriver => ({ kind: 'par', end, frequency, note: "of the bond's coupon, today's par yield" });
+  const par = (id: 'bond' | 'riding'): RollFigureDriver => parOn(id === 'bond' ? H : M, ctx[id].frequency);
   const zeroNote = 'of the zero rate to the horizon (ann, ACT/365F)';
   if (figure.kind === 'leg-forward') {
     const leg = ctx.legs[figure.leg - 1]!;
@@ -129,6 +165,7 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
     const own = trace.steps.findIndex((s) => s.name === `${figure.kind === 'leg-rate' ? 'r' : 'V'}${figure.leg}`);
     if (own >= 0) trace.steps.splice(own + 1);
   }
+  if (figure.kind === 'riding-split') trace.steps.splice(trace.steps.findIndex((s) => s.name === figure.part) + 1);
   const last = trace.steps.at(-1)!;
   const base = { dates: trace.dates, yearFractions: trace.yearFractions, reads: trace.reads, steps: trace.steps, value: r.value.value, unit: last.unit };
   if ('leg' in figure) {
@@ -144,42 +181,60 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
     };
     return ok({ ...r.value, explanation, title: `${money ? 'Value after' : 'Rate of'} leg ${k} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
   }
+  if (figure.kind === 'riding-split') {
+    const view = specs[chosen]!;
+    const explanation: Explanation = {
+      ...base,
+      quantity: 'roll-terminal',
+      formula: `${figure.part} of riding the ${strategy.ridingMaturity} bond under "${view.label}": carry = A x (C + P_y) / 100 - A, roll-down = A x (P0 - P_y) / 100, curve change = A x (price - P0) / 100; C its coupons grown to the horizon, P_y its dirty price there at its own yield today (ICMA), P0 on today's curve by time to maturity, price on the view's horizon curve (per 100 face). ${view.description}`,
+      valueText: last.text!,
+      unit: `${moneyUnitOf(strategy.currency)} over the horizon, unrounded`,
+      conventions: conventions(null, null),
+    };
+    return ok({ ...r.value, explanation, title: `Riding the ${strategy.ridingMaturity} bond: ${figure.part} under ${view.label}`, driver: null, why: 'none: it rests on your view as much as on the quotes', userView: view.id !== 'forwards' });
+  }
   if (!('view' in figure)) {
     const view = specs[chosen]!;
     const isRate = figure.kind === 'break-even-rate';
-    const against = figure.against;
+    const against = figure.kind === 'curve-rise' ? 'zero' : figure.against;
     const own = figure.kind === 'break-even-rise' ? 'riding' : 'roll';
     const explanation: Explanation = {
       ...base,
       quantity: 'roll-break-even',
-      formula: `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : 's*: a parallel shift of the view (bp)'}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
+      formula:
+        figure.kind === 'curve-rise' ? `d*: the ${figure.tenor} par bond's coupons at today's forwards plus its price at y0 + d equal 100 / DF(horizon)`
+        : `${isRate ? `r*: one rate for legs 2 to ${ctx.legs.length}, simple ${dc}` : own === 'riding' ? `s*: a parallel rise of the horizon curve (cont, ${curve.dayCount})` : `s*: a parallel shift of the view (${last.unit})`}, at which G_${own} = G_${against} under "${view.label}"; ${GROWTH[own]}; ${GROWTH[against]}. ${view.description}`,
       conventions: isRate ? conventions('simple', dc) : conventions(null, null),
     };
     const driver =
-      own === 'riding' ? par(own)
+      figure.kind === 'curve-rise' ? parOn(marketDate(S, parseTenor(figure.tenor)!), strategy.ridingFrequency)
+      : own === 'riding' ? par(own)
       : against === 'zero' ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
       : par(against as 'bond');
-    const title = `Break-even ${isRate ? 'roll rate r*' : own === 'riding' ? 'rise of riding' : 'shift of the view'} against ${AGAINST[against]}`;
-    return ok({ ...r.value, explanation, title, driver, why: null, userView: view.id !== 'forwards' });
+    const title = figure.kind === 'curve-rise' ? `Break-even rise of the ${figure.tenor} yield` : `Break-even ${isRate ? 'roll rate r*' : own === 'riding' ? 'rise of riding' : 'shift of the view'} against ${AGAINST[against]}`;
+    return ok({ ...r.value, explanation, title, driver, why: null, userView: figure.kind !== 'curve-rise' && view.id !== 'forwards' });
   }
   const spec = specs.find((s) => s.id === figure.view)!;
   const id = figure.strategy;
   const userView = id !== 'zero' && spec.id !== 'forwards';
   const phrase = id === 'roll' ? `rolling ${strategy.rollTenor}` : id === 'riding' ? `riding the ${strategy.ridingMaturity} bond` : AGAINST[id];
-  const money = figure.kind === 'terminal';
+  const vs = figure.kind === 'vs-roll' || figure.kind === 'vs-roll-bp';
+  const money = figure.kind === 'terminal' || figure.kind === 'vs-roll';
   if (!money) trace.yearFractions.push(explainedYearFraction('T', 'ACT/365F', S, H, years));
+  const each = `${money ? 'terminal = A x G' : 'return = G^(1/T) - 1'}, ${GROWTH[id]}`;
   const explanation: Explanation = {
     ...base,
     quantity: money ? 'roll-terminal' : 'roll-return',
-    formula: `${money ? 'terminal = A x G' : 'return = G^(1/T) - 1'}, ${GROWTH[id]}, under "${spec.label}": ${spec.description} ${userView ? 'It rests on your view, not on the curve alone.' : "Read off today's curve alone."}`,
+    formula: `${vs ? `${money ? `vs roll = terminal_${id} - terminal_roll` : `vs roll = (return_${id} - return_roll) x 10000`}, each ${each}; ${GROWTH.roll}` : each}, under "${spec.label}": ${spec.description} ${userView ? 'It rests on your view, not on the curve alone.' : "Read off today's curve alone."}`,
     ...(money ? { valueText: last.text!, unit: `${moneyUnitOf(strategy.currency)} at the horizon, unrounded` } : {}),
     conventions: money ? conventions(null, null) : conventions('annual', 'ACT/365F'),
   };
   const driver =
-    id === 'zero' || (id === 'roll' && spec.id === 'forwards') ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
+    vs ? null
+    : id === 'zero' || (id === 'roll' && spec.id === 'forwards') ? rate(S, H, 'annual', 'ACT/365F', zeroNote)
     : id === 'roll' && spec.id === 'unchanged' ? rate(S, marketDate(S, parseTenor(strategy.rollTenor)!), 'simple', dc, `of today's ${strategy.rollTenor} spot`)
     : id !== 'roll' && spec.id === 'forwards' ? par(id)
     : null;
-  const title = `${money ? 'Money at the horizon' : 'Annualised return'} of ${phrase} under ${spec.label}`;
-  return ok({ ...r.value, explanation, title, driver, why: driver ? null : 'none: it rests on your view as much as on the quotes', userView });
+  const title = vs ? `${phrase[0]!.toUpperCase()}${phrase.slice(1)} against rolling under ${spec.label}${money ? '' : ', bp a year'}` : `${money ? 'Money at the horizon' : 'Annualised return'} of ${phrase} under ${spec.label}`;
+  return ok({ ...r.value, explanation, title, driver, why: driver ? null : vs ? 'none: a difference of two figures; open each for its quotes' : 'none: it rests on your view as much as on the quotes', userView: vs || userView });
 }

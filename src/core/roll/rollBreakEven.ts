@@ -6,7 +6,8 @@ import { shiftedCurve } from './horizonCurve.ts';
 import { brentRoot } from './rollSolve.ts';
 import { constantRateSpec, shiftedSpec, type RollView } from './rollViews.ts';
 import { bondPricerOn, bondYieldFromPriceOn, parBondOn } from './strategyBonds.ts';
-import { recordBreakEven, type RollTrace } from './rollTrace.ts';
+import { PER_100, recordBreakEven, recordCurvePoint, recordForwardGrowth, type RollTrace } from './rollTrace.ts';
+import { yieldTag } from '../format/conventionTag.ts';
 import { rateUnit } from '../curve/explain.ts';
 import { strategyGrowths, TERM_STRATEGY_IDS, type RollContext, type StrategyId, type TermStrategyId } from './strategyValues.ts';
 
@@ -92,9 +93,13 @@ export function rollBreakEven(ctx: RollContext, chosen: RollView, id: StrategyId
   const [a, b] = rate ? ROLL_RATE_BRACKET : SHIFT_BRACKET_BP;
   const xTol = rate ? 1e-15 : 1e-10;
   const root = crossing(f, a, b, xTol);
-  if (trace && root) recordBreakEven(trace, rate ? 'r' : 's', rate ? rateUnit('simple', ctx.strategy.rollDayCount) : 'bp', `G_${own} - G_${id}`, root, [a, b], xTol, (t) => f(root.x, t));
+  if (trace && root) recordBreakEven(trace, rate ? 'r' : 's', rate ? rateUnit('simple', ctx.strategy.rollDayCount) : shiftUnit(kind, ctx), `G_${own} - G_${id}`, root, [a, b], xTol, (t) => f(root.x, t));
   return root ? root.x : null;
 }
+
+/** What a break-even shift or rise is a bp of: the rates it moves, each with its compounding and day count. */
+export const shiftUnit = (kind: RollBreakEvenKind, ctx: RollContext): string =>
+  `bp, a parallel ${kind === 'rise' ? 'rise' : "shift of every roll rate set after today (simple, " + ctx.strategy.rollDayCount + ') and'} of the horizon curve's zero rates (cont, ${ctx.curve.dayCount})`;
 
 export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEvens {
   const rollRate = {} as Record<TermStrategyId, number | null>;
@@ -119,28 +124,38 @@ export function rollBreakEvens(ctx: RollContext, chosen: RollView): RollBreakEve
  * and equals the bond's forward yield at H minus its yield today.
  */
 export function breakEvenCurve(ctx: RollContext): BreakEvenPoint[] {
+  return BREAK_EVEN_TENORS.flatMap((tenor) => breakEvenPoint(ctx, tenor) ?? []);
+}
+
+/** The break-even curve's point at a tenor (null: not after the horizon or not on the curve); with `trace`, its steps at the root. */
+export function breakEvenPoint(ctx: RollContext, tenorText: string, trace?: RollTrace): BreakEvenPoint | null {
   const { curve, horizon } = ctx;
   const frequency = ctx.strategy.ridingFrequency;
-  const lnH = curve.lnDiscountAt(curve.time(horizon));
-  const out: BreakEvenPoint[] = [];
-  for (const tenorText of BREAK_EVEN_TENORS) {
-    const tenor = parseTenor(tenorText)!;
-    const maturity = marketDate(curve.settlement, tenor);
-    if (compareIso(maturity, horizon) <= 0) continue;
-    const d = discountOn(curve, maturity);
-    if (!d.ok || d.value.extrapolated) continue;
-    const bond = parBondOn(curve, maturity, frequency, 'maturity');
-    if (!bond.ok) continue;
-    const y = bondYieldFromPriceOn(bond.value, curve.settlement, 100);
-    if (!y.ok) continue;
-    let coupons = 0;
-    for (const f of bond.value.flows) {
-      if (compareIso(f.date, horizon) <= 0) coupons += f.amount * Math.exp(curve.lnDiscountAt(curve.time(f.date)) - lnH);
-    }
-    const target = 100 / Math.exp(lnH);
-    const price = bondPricerOn(bond.value, horizon);
-    const root = crossing((dy) => coupons + price(y.value + dy) - target, -0.5, 1, 1e-15);
-    out.push({ tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root === null ? null : root.x * 10000 });
-  }
-  return out;
+  const tH = curve.time(horizon);
+  const lnH = curve.lnDiscountAt(tH);
+  const maturity = marketDate(curve.settlement, parseTenor(tenorText)!);
+  if (compareIso(maturity, horizon) <= 0) return null;
+  const d = discountOn(curve, maturity);
+  if (!d.ok || d.value.extrapolated) return null;
+  const bond = parBondOn(curve, maturity, frequency, 'maturity');
+  if (!bond.ok) return null;
+  const y = bondYieldFromPriceOn(bond.value, curve.settlement, 100);
+  if (!y.ok) return null;
+  let coupons = 0;
+  bond.value.flows.forEach((f, i) => {
+    if (compareIso(f.date, horizon) > 0) return;
+    const time = curve.time(f.date);
+    const ln = curve.lnDiscountAt(time);
+    const g = Math.exp(ln - lnH);
+    if (trace) recordForwardGrowth(trace, curve, i + 1, f, time, ln, g);
+    coupons += f.amount * g;
+  });
+  const target = 100 / Math.exp(lnH);
+  const price = bondPricerOn(bond.value, horizon);
+  const root = crossing((dy) => coupons + price(y.value + dy) - target, -0.5, 1, 1e-15);
+  if (trace && root) recordBreakEven(trace, 'd', `decimal per year, ${yieldTag(frequency)}`, 'coupons + P_y - target', root, [-0.5, 1], 1e-15, (t) => {
+    recordCurvePoint(t, curve, horizon, tH, lnH, coupons, target, y.value, y.value + root.x);
+    return coupons + price(y.value + root.x, t) - target;
+  }, 10000, PER_100);
+  return { tenor: tenorText, maturity, yield: y.value, frequency, riseBp: root === null ? null : root.x * 10000 };
 }

@@ -28,7 +28,7 @@ import { curveSeenAtHorizon } from './horizonCurve.ts';
 import { moneyUnitOf } from './rollSummary.ts';
 import { yieldTag } from '../format/conventionTag.ts';
 import { rollBreakEvens, type RollBreakEvens } from './rollBreakEven.ts';
-import { recordLegValue, type RollTrace } from './rollTrace.ts';
+import { recordLegValue, recordRidingSplit, type RollTrace } from './rollTrace.ts';
 import type { ExplanationSink } from '../curve/explain.ts';
 
 /**
@@ -339,19 +339,27 @@ export function outcomeOf(ctx: RollContext, rv: RollView, amount: Money, years: 
  * reading of Tuckman and Serrat, "Fixed Income Securities" (cited from memory): carry is what the
  * bond earns if its yield stays put, roll-down what it gains by ageing along an unchanged curve.
  */
-function ridingSplit(ctx: RollContext, rv: RollView, amount: Money): RidingSplit {
-  const { coupons, price } = bondAtHorizon(ctx.riding, ctx.horizon, rv);
+export function ridingSplit(ctx: RollContext, rv: RollView, amount: Money, trace?: RollTrace): RidingSplit {
+  const { coupons, price } = bondAtHorizon(ctx.riding, ctx.horizon, rv, trace, 'riding');
   const y = bondYieldFromPriceOn(ctx.riding, ctx.curve.settlement, 100);
-  const py = bondPriceFromYieldOn(ctx.riding, ctx.horizon, y.ok ? y.value : ctx.riding.coupon);
-  const p0 = bondValueOnCurve(ctx.riding, curveSeenAtHorizon(ctx.curve, ctx.horizon));
+  const y0 = y.ok ? y.value : ctx.riding.coupon;
+  if (trace) trace.steps.push({ name: 'y', formula: 'y = y0, its own yield today (price 100)', inputs: [], value: y0, unit: `decimal per year, ${yieldTag(ctx.riding.frequency)}` });
+  const py = bondPriceFromYieldOn(ctx.riding, ctx.horizon, y0, trace);
+  const p0 = bondValueOnCurve(ctx.riding, curveSeenAtHorizon(ctx.curve, ctx.horizon), trace, 'DF0', "today's curve seen from the horizon (by time to maturity)");
   const per100 = (x: number): Money => amount.times(new MoneyDecimal(x)).div(100);
-  return {
+  const split = {
     horizonPrice: price,
     couponsReinvested: coupons,
     carry: per100(coupons + py).minus(amount),
     rollDown: per100(p0 - py),
     curveChange: per100(price - p0),
   };
+  if (trace) {
+    const total = split.carry.plus(split.rollDown).plus(split.curveChange);
+    const after = ctx.riding.flows.flatMap((f, k) => (compareIso(f.date, ctx.horizon) > 0 ? [k + 1] : []));
+    recordRidingSplit(trace, after, p0, [coupons + py, p0 - py, price - p0], [split.carry, split.rollDown, split.curveChange, total].map((m) => m.toFixed()));
+  }
+  return split;
 }
 
 /** Money after each roll leg: V_k = V_{k-1} x (1 + r_k tau_k), V_0 = the amount (decimal.js products, unrounded); with `trace`, each V_k as decimal text. */

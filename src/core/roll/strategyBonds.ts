@@ -5,7 +5,7 @@ import { fail, ok, type Result } from '../result.ts';
 import { compareIso, daysBetween, type IsoDate } from '../time/date.ts';
 import { backwardSchedule } from '../time/schedule.ts';
 import { brentRoot } from './rollSolve.ts';
-import { recordHorizonPrice, type RollTrace } from './rollTrace.ts';
+import { recordHorizonPrice, recordYieldPrice, type RollTrace } from './rollTrace.ts';
 
 /** A cash flow of a term bond, per 100 face. */
 export interface BondFlow {
@@ -63,24 +63,25 @@ function icmaFraction(bond: TermBond, date: IsoDate): number {
  * Fabozzi, "Bond Markets, Analysis and Strategies", bond pricing between coupon dates (cited from
  * memory); common practice.
  */
-export function bondPriceFromYieldOn(bond: TermBond, date: IsoDate, y: number): number {
-  return bondPricerOn(bond, date)(y);
+export function bondPriceFromYieldOn(bond: TermBond, date: IsoDate, y: number, trace?: RollTrace): number {
+  return bondPricerOn(bond, date)(y, trace);
 }
 
 /**
  * bondPriceFromYieldOn with the schedule work done once: returns y -> dirty price per 100 on
- * `date` (same formula), for solvers that price one bond at many yields.
+ * `date` (same formula), for solvers that price one bond at many yields; with `trace`, its terms are recorded.
  */
-export function bondPricerOn(bond: TermBond, date: IsoDate): (y: number) => number {
+export function bondPricerOn(bond: TermBond, date: IsoDate): (y: number, trace?: RollTrace) => number {
   const after = bond.flows.filter((f) => compareIso(f.date, date) > 0);
   if (after.length === 0) return () => 0;
   const w = icmaFraction(bond, date);
   const amounts = Float64Array.from(after, (f) => f.amount);
   const f = bond.frequency;
-  return (y) => {
+  return (y, trace) => {
     const lnV = -Math.log1p(y / f);
     let price = 0;
     for (let k = 0; k < amounts.length; k++) price += amounts[k]! * Math.exp((w + k) * lnV);
+    if (trace) recordYieldPrice(trace, bond.flows.length - after.length + 1, after, f, w, price);
     return price;
   };
 }
@@ -98,13 +99,13 @@ export function bondYieldFromPriceOn(bond: TermBond, date: IsoDate, dirty: numbe
   return ok(root.x);
 }
 
-/** Value per 100 face on the curve's settlement date of the flows strictly after it, on that curve; with `trace`, each flow and its discount factor are recorded. */
-export function bondValueOnCurve(bond: TermBond, curve: Curve, trace?: RollTrace): number {
+/** Value per 100 face on the curve's settlement date of the flows strictly after it, on that curve; with `trace`, each flow and its discount factor are recorded (`name`<i>, read on `on`). */
+export function bondValueOnCurve(bond: TermBond, curve: Curve, trace?: RollTrace, name?: string, on?: string): number {
   let pv = 0;
   bond.flows.forEach((f, i) => {
     if (compareIso(f.date, curve.settlement) <= 0) return;
     const df = Math.exp(curve.lnDiscountAt(curve.time(f.date)));
-    if (trace) recordHorizonPrice(trace, i + 1, f, df);
+    if (trace) recordHorizonPrice(trace, i + 1, f, df, name, on);
     pv += f.amount * df;
   });
   return pv;

@@ -95,14 +95,14 @@ export function CurvePicker({ named, adding = false, onAdding }: { named: Workbe
   );
 }
 
-/** Which curve the charts and tables show, said above them when it is a named curve (the roll and the print follow the default curve). */
+/** Which curve the charts and tables show, said above them when it is a named curve (the scenarios, the roll and the print follow it too). */
 export function ShownCurveNote({ named }: { named: WorkbenchCurves }) {
   const view = useAppStore((s) => s.workspace.view);
   const shown = curveChoice(view, named.curves.map((c) => c.name)).shown;
   if (shown === '') return null;
   return (
     <p className="banner shown-curve" role="status">
-      The charts and tables show the curve <strong>{shown}</strong> (chosen above the sheet); roll versus term and the print follow the curve "{DEFAULT_NAME}".
+      The charts and tables show the curve <strong>{shown}</strong> (chosen above the sheet); so do the scenarios, roll versus term and the print.
     </p>
   );
 }

@@ -1,4 +1,4 @@
-import { buildWorkbenchCurves, WORKSPACE_FORMAT, WORKSPACE_VERSION, isPlainObject, type WorkbenchCurveInputs, type WorkbenchCurves } from '../../core/index.ts';
+import { applyScenarioOnCurve, buildWorkbenchCurves, WORKSPACE_FORMAT, WORKSPACE_VERSION, isPlainObject, type WorkbenchCurveInputs, type WorkbenchCurves } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { curveChoice } from './curveChoice.ts';
 import { CurvePicker, ShownCurveNote } from './CurvePicker.tsx';
@@ -39,5 +39,6 @@ export function shownBuild(result: WorkbenchBuild, named: WorkbenchCurves, doc: 
   };
 }
 
-export const NAMED_CURVES_KIT = { buildWorkbenchCurves, shownBuild, CurvePicker, ShownCurveNote, SpreadView };
+/** applyScenarioOnCurve travels with the kit (hooks/useNamedCurves.ts puts it on the build shown), so the first screen's chart overlay does not carry it. */
+export const NAMED_CURVES_KIT = { buildWorkbenchCurves, shownBuild, applyScenarioOnCurve, CurvePicker, ShownCurveNote, SpreadView };
 export type NamedCurvesKit = typeof NAMED_CURVES_KIT;

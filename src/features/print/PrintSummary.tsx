@@ -41,6 +41,8 @@ export interface PrintSummaryProps {
   readonly scenarios: readonly PrintScenario[];
   /** Conventions of the scenario changes, for example "zero cont, ACT/365F; forward 3M simple, ACT/360". */
   readonly scenarioConventions: string;
+  /** The curve printed, when the workspace has named curves (each section names it); absent for a workspace of one curve. */
+  readonly curveName?: string;
   /** The roll-versus-term result line from its panel; null when there is none. */
   readonly rollResult: ReactNode | null;
   readonly producedAt: Date;
@@ -84,12 +86,14 @@ export function PrintSummary(p: PrintSummaryProps) {
   const parTag = couponTag(c.parFrequency, 'ACT/ACT-ICMA');
   const tenors = p.keyRows.map((r) => r.label);
   const fig = (what: PrintFigure, text: string): ReactNode => (p.figure && text !== NO_VALUE ? p.figure(what, text) : text);
+  const on = p.curveName === undefined ? '' : ` on the curve "${p.curveName}"`;
   return (
     <article className="print-summary" aria-label="Printed summary">
       <header className="ps-head">
         <div>
           <h1>{p.title}</h1>
           <p className="ps-settings">
+            {p.curveName === undefined ? null : <>Curve <strong>{p.curveName}</strong> · </>}
             Settlement <strong>{p.settlement}</strong> · curve day count {p.curveDayCount} · {methodWords(p.interpolation)} interpolation · {p.extrapolation === 'none' ? 'no extrapolation past the last pillar' : p.extrapolation === 'flat-forward' ? 'flat-forward extrapolation' : `extrapolation ${p.extrapolation}`}
             {p.marketConventions ? <> · deposits and OIS on {p.marketConventions} conventions</> : null}
             {p.futuresConvexity ? <> · futures convexity by the {p.futuresConvexity}</> : null}
@@ -116,7 +120,7 @@ export function PrintSummary(p: PrintSummaryProps) {
       </section>
       <div className="ps-tables">
         <section>
-          <h2>Key maturities</h2>
+          <h2>Key maturities{on}</h2>
           <table className="ps-table">
             <thead>
               <tr>
@@ -145,7 +149,7 @@ export function PrintSummary(p: PrintSummaryProps) {
           </table>
         </section>
         <section>
-          <h2>Scenarios <span className="ps-unit">(change in bp; {p.scenarioConventions})</span></h2>
+          <h2>Scenarios{on} <span className="ps-unit">(change in bp; {p.scenarioConventions})</span></h2>
           {shown.length === 0 ? (
             <p className="ps-muted">No scenario selected.</p>
           ) : (
@@ -193,7 +197,7 @@ export function PrintSummary(p: PrintSummaryProps) {
         </section>
       </div>
       <section className="ps-roll" aria-label="Roll versus term">
-        <h2>Roll versus term</h2> <div className="ps-roll-body">{p.rollResult ?? <span className="ps-muted">no result</span>}</div>
+        <h2>Roll versus term{on}</h2> <div className="ps-roll-body">{p.rollResult ?? <span className="ps-muted">no result</span>}</div>
       </section>
       <p className="ps-caution" role="note">
         <strong>Caution.</strong> {CAUTION_TEXT}

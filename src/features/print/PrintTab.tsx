@@ -1,6 +1,8 @@
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useMemo, type ReactNode } from 'react';
-import { convexityModelText, applyScenario } from '../../core/index.ts';
+import { convexityModelText, DEFAULT_CURVE_NAME, type Scenario } from '../../core/index.ts';
+import { applyToShown } from '../scenarios/applyShown.ts';
+import { useOnCurve } from '../../hooks/useNamedCurves.ts';
 import { validateScenarios, workspaceHash } from '../../core/index.ts';
 import { conventionSet, rateTag } from '../../core/index.ts';
 import { curveSeries } from '../../hooks/useCurveSeries.ts';
@@ -41,12 +43,16 @@ export function WorkbenchPrintSummary({ result, rollResult = null, figure }: { r
   const curve = result.build.curve;
   const ws = result.build.workspace;
   const display = doc.display;
+  // With named curves, the curve printed is named (the curve shown).
+  const on = useOnCurve(result.curveName);
   const props = useMemo(() => {
     if (!curve || !ws) return null;
     const conv = tableConventionsFromDisplay(display);
     const { scenarios } = validateScenarios(doc.scenarios);
-    const moved = scenarios.slice(0, SCENARIO_OVERLAY_MAX).flatMap((s) => {
-      const r = applyScenario(s, ws, curve, workbenchBuildOptions());
+    // Each scenario moves the curve shown (a named curve with the curves it reads: applyToShown).
+    const apply = (s: Scenario, i: number) => applyToShown(s, result, workbenchBuildOptions(), `scenarios[${i}]`);
+    const moved = scenarios.slice(0, SCENARIO_OVERLAY_MAX).flatMap((s, i) => {
+      const r = apply(s, i);
       return r.ok ? [{ name: s.name, curve: r.value.curve }] : [];
     });
     const series = (kind: 'zero' | 'forward'): PrintSeries[] =>
@@ -62,12 +68,12 @@ export function WorkbenchPrintSummary({ result, rollResult = null, figure }: { r
     return {
       keyRows: printKeyRows(curve, conv),
       conventions: conv,
-      scenarios: printScenarios(scenarios, ws, curve, conv, workbenchBuildOptions()),
+      scenarios: printScenarios(scenarios, ws, curve, conv, result.onCurves ? apply : workbenchBuildOptions()),
       scenarioConventions: scenarioConventionsText(conv),
       zeroChart: <PrintChart title="Zero rates" tag={tag} series={series('zero')} xMax={xMax} lastT={lastT} />,
       forwardChart: <PrintChart title={`${display.forwardTenor} forwards`} tag={tag} series={series('forward')} xMax={xMax} lastT={lastT} />,
     };
-  }, [curve, ws, display, doc.scenarios]);
+  }, [curve, ws, display, doc.scenarios, result]);
   if (!props || !curve || !ws) return <p className="empty">No curve to print: {result.fatal}</p>;
   const { snapshots: _s, ...linked } = doc as unknown as Record<string, unknown>;
   return (
@@ -81,6 +87,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null, figure }: { r
       {...(doc.curve.conventions && doc.curve.conventions !== 'none' ? { marketConventions: conventionSet(doc.curve.conventions)?.title.replace(/: .*/, '') ?? doc.curve.conventions } : {})}
       {...(ws.curve.futuresConvexity ? { futuresConvexity: convexityModelText(ws.curve.futuresConvexity) } : {})}
       rollResult={rollResult}
+      {...(on ? { curveName: result.curveName ?? DEFAULT_CURVE_NAME } : {})}
       producedAt={new Date()}
       buildId={BUILD_ID}
       workspaceHash={workspaceHash(linked)}

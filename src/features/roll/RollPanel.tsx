@@ -1,6 +1,7 @@
 import { useId, useMemo, type ReactNode } from 'react';
 import type { Curve } from '../../core/index.ts';
 import {
+  analyseRollOnCurve,
   analyseRollVsTerm,
   BASE_VIEWS,
   formatNumber,
@@ -10,6 +11,9 @@ import {
   rollTablesCsv,
   rollSentence,
   type DisplaySettings,
+  type NamedCurve,
+  type Result,
+  type RollAnalysis,
   type RollFigure,
   type StrategyInputs,
   type StrategyViewId,
@@ -40,12 +44,22 @@ export interface RollPanelProps {
   readonly rateTag?: string;
   /** The curve read, said in the heading when the workspace has named curves (" on the curve \"default\""). */
   readonly on?: string | undefined;
+  /** The named curve `curve` is (absent: the default curve): the analysis is analyseRollOnCurve's, naming it. */
+  readonly curveName?: string | undefined;
   /** With it, the figures are buttons that open their explanation (the build `curve` comes from). */
   readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
 }
 
+/**
+ * Roll versus term on the curve a build shows: on a named curve analyseRollOnCurve (naming the
+ * curve in its messages), else analyseRollVsTerm on the default curve, as before.
+ */
+export function rollOnShown(curve: Curve, curveName: string | undefined, strategy: StrategyInputs, scenarios: readonly NamedCurve[]): Result<RollAnalysis> {
+  return curveName ? analyseRollOnCurve({ [curveName]: curve }, curveName, strategy, scenarios) : analyseRollVsTerm(curve, strategy, scenarios);
+}
+
 /** Where a figure's explanation opens: beside the table it is in. */
-export type RollFigureGroup = 'results' | 'breakevens' | 'legs';
+export type RollFigureGroup = 'results' | 'breakevens' | 'legs' | 'curve' | 'split';
 
 /** The tables' way to make a figure a button that opens its explanation, and the panel beside each table. */
 export interface RollExplain {
@@ -53,7 +67,7 @@ export interface RollExplain {
   panel(group: RollFigureGroup): ReactNode;
 }
 
-const groupOf = (f: RollFigure): RollFigureGroup => ('against' in f ? 'breakevens' : 'leg' in f ? 'legs' : 'results');
+const groupOf = (f: RollFigure): RollFigureGroup => (f.kind === 'curve-rise' ? 'curve' : f.kind === 'riding-split' ? 'split' : 'against' in f ? 'breakevens' : 'leg' in f ? 'legs' : 'results');
 const sameFigure = (a: RollCell, b: RollCell): boolean => JSON.stringify(a.roll.figure) === JSON.stringify(b.roll.figure);
 
 const BASE_LABEL: Record<(typeof BASE_VIEWS)[number], string> = {
@@ -73,9 +87,9 @@ const CAUTION = 'An analysis aid, not investment advice. Forwards are what today
 const NO_SCENARIOS: RollPanelProps['scenarioViews'] = [];
 const NO_ERRORS: RollPanelProps['documentErrors'] = [];
 
-export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = NO_SCENARIOS!, documentErrors = NO_ERRORS!, rateTag: tagOverride, explainFrom, on }: RollPanelProps) {
+export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = NO_SCENARIOS!, documentErrors = NO_ERRORS!, rateTag: tagOverride, explainFrom, on, curveName }: RollPanelProps) {
   const headingId = useId();
-  const result = useMemo(() => (curve ? analyseRollVsTerm(curve, strategy, scenarioViews) : null), [curve, strategy, scenarioViews]);
+  const result = useMemo(() => (curve ? rollOnShown(curve, curveName, strategy, scenarioViews) : null), [curve, curveName, strategy, scenarioViews]);
   const opener = useExplainOpener<RollCell>(sameFigure);
   // The open figure under the strategy and views shown now (an input changed since it opened is followed).
   const openCell = useMemo(() => (opener.open ? { roll: { ...opener.open.roll, strategy, scenarios: scenarioViews } } : null), [opener.open, strategy, scenarioViews]);
@@ -172,7 +186,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
               <RollResultsTable analysis={analysis} explain={explain} />
             </div>
             <div className="roll-side">
-              <RidingSplitTable analysis={analysis} />
+              <RidingSplitTable analysis={analysis} explain={explain} />
               <BreakEvenTables analysis={analysis} explain={explain} />
               <RollLegsTable analysis={analysis} strategy={strategy} onStrategyChange={onStrategyChange} explain={explain} />
             </div>

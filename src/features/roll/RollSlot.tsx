@@ -1,34 +1,32 @@
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useCallback, useMemo } from 'react';
-import { applyScenario } from '../../core/index.ts';
-import { analyseRollVsTerm, formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
+import { formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
 import { inFieldWords } from './fieldWords.ts';
 import type { Curve, DisplaySettings } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
-import { RollPanel } from './RollPanel.tsx';
+import { RollPanel, rollOnShown } from './RollPanel.tsx';
 import { useOnCurve } from '../../hooks/useNamedCurves.ts';
+import { applyToShown } from '../scenarios/applyShown.ts';
 
 const readStrategy = (s: { workspace: unknown }): unknown => (s.workspace as { strategy?: unknown }).strategy;
 const readDisplay = (s: { workspace: { display: DisplaySettings } }): DisplaySettings => s.workspace.display;
 const readScenarios = (s: { workspace: unknown }): unknown => (s.workspace as { scenarios?: unknown }).scenarios;
 
-/** The document's scenarios applied to today's curve, as named curves for the roll panel's views. */
+/** The document's scenarios applied to today's curve (the curve shown), as named curves for the roll panel's views. */
 function useScenarioCurves(result: WorkbenchBuild): { name: string; curve: Curve }[] {
   const raw = useAppStore(readScenarios);
-  const base = result.build.curve;
-  const workspace = result.build.workspace;
   return useMemo(() => {
-    if (!base || !workspace) return [];
     const out: { name: string; curve: Curve }[] = [];
     validateScenarios(raw).scenarios.forEach((s, i) => {
-      const r = applyScenario(s, workspace, base, workbenchBuildOptions(), `scenarios[${i}]`);
+      const r = applyToShown(s, result, workbenchBuildOptions(), `scenarios[${i}]`);
       if (r.ok) out.push({ name: s.name, curve: r.value.curve });
     });
     return out;
-  }, [raw, base, workspace]);
+  }, [raw, result]);
 }
+
 
 /**
  * The roll panel wired to the workbench store, in the shape of `EXTENSIONS.rollPanel`: it reads the
@@ -43,9 +41,9 @@ export function RollSlot({ result }: { result: WorkbenchBuild }) {
   const onStrategyChange = useCallback((next: StrategyInputs) => useAppStore.getState().setReserved('strategy', next), []);
   const display = useAppStore(readDisplay);
   const explainFrom = useMemo(() => ({ result, display }), [result, display]);
-  // With named curves the heading says which curve roll versus term (and the print) reads: the default one.
-  const on = useOnCurve();
-  return <RollPanel on={on} curve={result.build.curve} strategy={validated.strategy} onStrategyChange={onStrategyChange} scenarioViews={scenarios} documentErrors={validated.errors} explainFrom={explainFrom} />;
+  // With named curves the heading says which curve roll versus term reads: the curve shown.
+  const on = useOnCurve(result.curveName);
+  return <RollPanel on={on} curveName={result.curveName} curve={result.build.curve} strategy={validated.strategy} onStrategyChange={onStrategyChange} scenarioViews={scenarios} documentErrors={validated.errors} explainFrom={explainFrom} />;
 }
 
 /**
@@ -59,11 +57,11 @@ export function RollResultLine({ result }: { result: WorkbenchBuild }) {
   const curve = result.build.curve;
   const out = useMemo(() => {
     if (!curve) return null;
-    const r = analyseRollVsTerm(curve, strategy, scenarios);
+    const r = rollOnShown(curve, result.curveName, strategy, scenarios);
     if (!r.ok) return { text: `No comparison: ${inFieldWords(r.errors[0]?.message ?? 'the inputs do not fit the curve')}`, analysis: null };
     const a = r.value;
     return { text: rollSentence({ view: a.views[a.chosen]!, strategies: a.strategies, breakEvens: a.breakEvens, horizon: a.horizon, rollTenor: a.rollTenor, rollDayCount: a.rollDayCount, legCount: a.legs.length, moneyUnit: a.moneyUnit }), analysis: a };
-  }, [curve, strategy, scenarios]);
+  }, [curve, result.curveName, strategy, scenarios]);
   if (out === null) return null;
   return (
     <>

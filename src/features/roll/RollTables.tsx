@@ -12,6 +12,8 @@ import {
   RETURN_TAG,
   yieldTag,
   type RollAnalysis,
+  type Money,
+  type RidingPart,
   type RollFigure,
   type StrategyInputs,
 } from '../../core/index.ts';
@@ -94,6 +96,7 @@ export function RollLegsTable({ analysis, strategy, onStrategyChange, explain }:
 
 /** Strategies by views: terminal value, annualised return and the difference against rolling. */
 export function RollResultsTable({ analysis, explain }: { analysis: RollAnalysis; explain?: RollExplain | undefined }) {
+  const vs = (f: RollFigure, text: string, words: string) => (explain ? explain.figure(f, text, words) : text);
   return (
     <div className="roll-explain-host">
       <div className="roll-scroll">
@@ -130,7 +133,8 @@ export function RollResultsTable({ analysis, explain }: { analysis: RollAnalysis
                     <span className="roll-sub">{explain ? explain.figure({ kind: 'return', view: v.id, strategy: s.id }, formatPercent(o.annualReturn), `annualised return of ${s.phrase} under ${v.label}`) : formatPercent(o.annualReturn)}</span>
                     {s.id === 'roll' ? null : (
                       <span className="roll-sub">
-                        {formatMoneySigned(o.vsRoll)} · {formatBpChange(o.vsRollBp)}
+                        {vs({ kind: 'vs-roll', view: v.id, strategy: s.id }, formatMoneySigned(o.vsRoll), `${s.phrase} against rolling under ${v.label}`)} ·{' '}
+                        {vs({ kind: 'vs-roll-bp', view: v.id, strategy: s.id }, formatBpChange(o.vsRollBp), `${s.phrase} against rolling under ${v.label}, bp a year`)}
                       </span>
                     )}
                   </td>
@@ -147,16 +151,17 @@ export function RollResultsTable({ analysis, explain }: { analysis: RollAnalysis
 }
 
 /** The riding bond's horizon return split under the chosen view. */
-export function RidingSplitTable({ analysis }: { analysis: RollAnalysis }) {
+export function RidingSplitTable({ analysis, explain }: { analysis: RollAnalysis; explain?: RollExplain | undefined }) {
   const v = analysis.views[analysis.chosen]!;
   const r = v.riding;
-  const rows: [string, string][] = [
-    ['Carry (coupons, their reinvestment, and the price at an unchanged own yield)', formatMoneySigned(r.carry)],
-    ['Roll-down (ageing along today\u2019s curve, unchanged by time to maturity)', formatMoneySigned(r.rollDown)],
-    [`Curve change (${v.label} against an unchanged curve)`, formatMoneySigned(r.curveChange)],
-    ['Total gain over the amount', formatMoneySigned(r.carry.plus(r.rollDown).plus(r.curveChange))],
+  const rows: [string, RidingPart, Money][] = [
+    ['Carry (coupons, their reinvestment, and the price at an unchanged own yield)', 'carry', r.carry],
+    ['Roll-down (ageing along today\u2019s curve, unchanged by time to maturity)', 'roll-down', r.rollDown],
+    [`Curve change (${v.label} against an unchanged curve)`, 'curve change', r.curveChange],
+    ['Total gain over the amount', 'total', r.carry.plus(r.rollDown).plus(r.curveChange)],
   ];
   return (
+    <div className="roll-explain-host">
     <table className="roll-table roll-split">
       <caption>
         Riding the {analysis.ridingBond.maturity} bond under {v.label}{' '}
@@ -165,14 +170,16 @@ export function RidingSplitTable({ analysis }: { analysis: RollAnalysis }) {
         </span>
       </caption>
       <tbody>
-        {rows.map(([k, val]) => (
+        {rows.map(([k, part, m]) => (
           <tr key={k}>
             <th scope="row">{k}</th>
-            <td className="num">{val}</td>
+            <td className="num">{explain ? explain.figure({ kind: 'riding-split', part }, formatMoneySigned(m), `riding split's ${part}`) : formatMoneySigned(m)}</td>
           </tr>
         ))}
       </tbody>
     </table>
+    {explain?.panel('split')}
+    </div>
   );
 }
 
@@ -199,7 +206,7 @@ export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis;
           <tr>
             <th scope="col">Rolling against</th>
             <th scope="col" className="num">r* (%, {tag})</th>
-            {showShift ? <th scope="col" className="num">Parallel shift of the view (bp on every rate set after today)</th> : null}
+            {showShift ? <th scope="col" className="num">Parallel shift of the view (bp on every rate set after today, <span className="tag">{tag}</span>, and on the horizon curve&rsquo;s zero rates, <span className="tag">{rateTag('continuous', analysis.curveDayCount)}</span>)</th> : null}
           </tr>
         </thead>
         <tbody>
@@ -247,12 +254,13 @@ export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis;
                   {p.tenor} <span className="muted small">{p.maturity}</span>
                 </th>
                 <td className="num">{formatPercent(p.yield)}</td>
-                <td className="num">{p.riseBp === null ? 'none' : formatBpChange(p.riseBp)}</td>
+                <td className="num">{p.riseBp === null ? 'none' : fig({ kind: 'curve-rise', tenor: p.tenor }, p.riseBp, `break-even rise of ${p.tenor}`)}</td>
               </tr>
             ))}
           </tbody>
         </table>
       ) : null}
+      {explain?.panel('curve')}
     </div>
   );
 }

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { applyScenario, COMPARISON_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
-import { rateTag, zeroForwardTag, type BuildOptions, type Curve, type Workspace } from '../../core/index.ts';
+import { rateTag, zeroForwardTag, type BuildOptions, type Curve, type Result, type ScenarioCurve, type Workspace } from '../../core/index.ts';
 import { describeShape, SPACE_LABEL } from './describeShape.ts';
 import { ScenarioForm } from './ScenarioForm.tsx';
 import { ScenarioShapeChart } from './ScenarioShapeChart.tsx';
@@ -23,18 +23,20 @@ export interface ScenarioPanelProps {
   readonly tenors?: readonly string[];
   /** The workbench's build (the base curve's) and display: with them each change in the table opens its explanation. */
   readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
+  /** How scenario i moves the base (by default applyScenario on `workspace` and `base`; the workbench's applyToShown for a named curve). */
+  readonly apply?: (s: Scenario, i: number) => Result<ScenarioCurve>;
 }
 
 export const effectConventionsText = (c: EffectConventions): string => zeroForwardTag(c);
 
 /** Scenarios: the list with each shape beside its effect on forwards, a form to add one, and the table of changes. */
-export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = COMPARISON_TENORS, explainFrom }: ScenarioPanelProps) {
+export function ScenarioPanel({ value, onChange, workspace, base, buildOptions = {}, conventions, tenors = COMPARISON_TENORS, explainFrom, apply }: ScenarioPanelProps) {
   const { scenarios, errors } = useMemo(() => validateScenarios(value), [value]);
   const applied = useMemo(
     () =>
       scenarios.map((s, i) => {
         if (!workspace || !base) return { s, result: null, error: 'no base curve' };
-        const r = applyScenario(s, workspace, base, buildOptions, `scenarios[${i}]`);
+        const r = apply ? apply(s, i) : applyScenario(s, workspace, base, buildOptions, `scenarios[${i}]`);
         if (!r.ok) return { s, result: null, error: r.errors[0]?.message ?? 'no curve' };
         const xMax = Math.min(Math.max(base.lastT, 1), 50);
         return {
@@ -47,7 +49,7 @@ export function ScenarioPanel({ value, onChange, workspace, base, buildOptions =
           error: null,
         };
       }),
-    [scenarios, workspace, base, buildOptions, conventions, tenors],
+    [scenarios, workspace, base, buildOptions, conventions, tenors, apply],
   );
   const remove = (id: string): void => onChange(scenarios.filter((s) => s.id !== id));
   return (

@@ -5,6 +5,8 @@ import { useAppStore } from '../../state/store.ts';
 import { ScenarioPanel } from './ScenarioPanel.tsx';
 import { EditLock } from '../../components/EditLock.tsx';
 import { useOnCurve } from '../../hooks/useNamedCurves.ts';
+import { applyToShown } from './applyShown.ts';
+import type { Scenario } from '../../core/index.ts';
 
 
 /** The scenario panel wired to the workbench store: reads and writes the document's `scenarios`. */
@@ -17,9 +19,16 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
   );
   // With named curves, which curve the scenarios move: the curve shown (the default one, or the picker's choice).
   const on = useOnCurve(result.curveName);
+  const apply = useMemo(() => (result.onCurves ? (s: Scenario, i: number) => applyToShown(s, result, workbenchBuildOptions(), `scenarios[${i}]`) : undefined), [result]);
+  // The curves built on the one shown, which a quote-space scenario on it rebuilds too.
+  const moves = result.onCurves?.built.filter((c) => c.discountCurve === result.curveName).map((c) => `"${c.name}"`) ?? [];
   return (
     <EditLock>
-    {on && <p className="muted small">Scenarios{on}, the curve shown.</p>}
+    {on && (
+      <p className="muted small">
+        Scenarios{on}, the curve shown{moves.length > 0 ? `; moving its quotes rebuilds ${moves.join(', ')} on it too` : ''}.
+      </p>
+    )}
     <ScenarioPanel
       value={value}
       onChange={(next) => useAppStore.getState().setReserved('scenarios', next)}
@@ -28,6 +37,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
       buildOptions={workbenchBuildOptions()}
       conventions={conventions}
       explainFrom={{ result, display }}
+      {...(apply ? { apply } : {})}
     />
     </EditLock>
   );

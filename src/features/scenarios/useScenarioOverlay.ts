@@ -1,6 +1,6 @@
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useMemo } from 'react';
-import { applyScenario } from '../../core/index.ts';
+import { applyToShown } from './applyShown.ts';
 import { validateScenarios } from '../../core/index.ts';
 import { rateTag } from '../../core/index.ts';
 import type { ChartLine } from '../../charts/RateChart.tsx';
@@ -29,7 +29,7 @@ export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[];
     scenarios
       .slice(0, SCENARIO_OVERLAY_MAX)
       .forEach((s, i) => {
-        const r = applyScenario(s, ws, curve, workbenchBuildOptions());
+        const r = applyToShown(s, result, workbenchBuildOptions());
         if (!r.ok) {
           failed.push(s.name);
           return;
@@ -40,5 +40,5 @@ export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[];
         forward.push({ id: `scenario-${s.id}-forward`, label: `${s.name} (${display.forwardTenor} forward)`, points: series.forward, ...common });
       });
     return { zero, forward, notDrawn: Math.max(0, scenarios.length - SCENARIO_OVERLAY_MAX), failed };
-  }, [value, display, curve, ws]);
+  }, [value, display, curve, ws, result]);
 }

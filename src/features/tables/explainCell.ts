@@ -34,6 +34,7 @@ import {
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { explainRollCell, type RollCell } from '../roll/explainRollCell.ts';
+import { applyToShown } from '../scenarios/applyShown.ts';
 import { explainBondCell, type BondCell } from '../risk/explainBondCell.ts';
 import { explainDifferenceCell, explainReferenceCell, type DifferenceCell, type ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
 
@@ -222,7 +223,8 @@ function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Res
   const ws = result.build.workspace;
   if (!base || !ws) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   const change = (on: Curve, workspace: typeof ws, method: InterpolationId) => {
-    const moved = applyScenario(c.scenario, workspace, on, { ...c.buildOptions, interpolation: method });
+    // The shown curve's change as its table moved it (applyToShown: a named curve with the curves it reads); other methods as applyScenario.
+    const moved = on === base && result.onCurves ? applyToShown(c.scenario, result, c.buildOptions) : applyScenario(c.scenario, workspace, on, { ...c.buildOptions, interpolation: method });
     return moved.ok ? explainScenarioChange(on, moved.value.curve, c.tenor, c.field, c.conventions) : moved;
   };
   const r = change(base, ws, base.interpolation);

@@ -16,6 +16,7 @@ import {
   type ExplainedStep,
   type RollFigure,
   type StrategyInputs,
+  yieldTag,
 } from '../../../src/core/index.ts';
 import { rng } from '../../helpers/seededRandom.ts';
 
@@ -272,13 +273,28 @@ describe('explainRollFigure', () => {
     expect(checked).toBeGreaterThan(40);
   }, 120_000);
 
-  it("gives riding's break-even rises equal to the untraced analysis, bit for bit", () => {
-    let checked = 0;
+  it('gives each break-even curve rise and riding rise equal to the untraced analysis, bit for bit', () => {
+    let points = 0;
+    let rises = 0;
     for (const { curve, strategy } of CASES) {
       const a = analyseRollVsTerm(curve, strategy);
       if (!a.ok) throw new Error('analysis');
+      const b = a.value.breakEvens;
+      for (const p of b.curve) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: p.tenor });
+        const u = rollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: p.tenor });
+        if (p.riseBp === null) {
+          expect(t.ok).toBe(false);
+          continue;
+        }
+        if (!t.ok || !u.ok) throw new Error('curve rise');
+        expect(Object.is(t.value.value, p.riseBp)).toBe(true);
+        expect(Object.is(u.value.value, p.riseBp)).toBe(true);
+        expect(Object.is(t.value.explanation.steps.at(-1)!.value, p.riseBp)).toBe(true);
+        points++;
+      }
       for (const against of ['roll', 'zero'] as const) {
-        const shown = a.value.breakEvens.ridingRiseBp[against];
+        const shown = b.ridingRiseBp[against];
         const t = explainRollFigure(curve, strategy, [], { kind: 'break-even-rise', against });
         const u = rollFigure(curve, strategy, [], { kind: 'break-even-rise', against });
         if (shown === null) {
@@ -289,10 +305,81 @@ describe('explainRollFigure', () => {
         expect(Object.is(t.value.value, shown)).toBe(true);
         expect(Object.is(u.value.value, shown)).toBe(true);
         expect(Object.is(t.value.explanation.steps.at(-1)!.value, shown)).toBe(true);
+        rises++;
+      }
+    }
+    expect(points).toBeGreaterThan(50);
+    expect(rises).toBeGreaterThan(30);
+  }, 120_000);
+
+  // The break-even curve's point: a par bond of the tenor, its coupons to the horizon grown at
+  // today's forwards (DF(date) / DF(horizon)) and its dirty price at the horizon at its yield moved
+  // by d, priced by the ICMA rule P = sum CF_k (1 + y/f)^-(w + k) with w the share of the current
+  // period still to run (Fabozzi, "Bond Markets, Analysis and Strategies", pricing between coupon
+  // dates; cited from memory), against 100 / DF(horizon), the zero's lock-in.
+  it('has break-even curve steps that, recomputed from the shown inputs, meet at the shown root', () => {
+    let checked = 0;
+    let withW = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      for (const p of a.value.breakEvens.curve) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: p.tenor });
+        if (!t.ok) continue;
+        const e = t.value.explanation;
+        const steps = stepsOf(e);
+        const dfH = e.reads.find((x) => x.name === 'DF(horizon)')!;
+        expect(dfH.date).toBe(a.value.horizon);
+        let coupons = 0;
+        let price = 0;
+        let lastCouponDate: string | null = null;
+        let firstAfter: string | null = null;
+        let k = 0;
+        const f = strategy.ridingFrequency;
+        const y = val(steps, 'y');
+        const w = val(steps, 'w');
+        for (const s of e.steps) {
+          const m = /^CF(\d+)$/.exec(s.name);
+          if (!m) continue;
+          const i = m[1]!;
+          const date = /on (\d{4}-\d{2}-\d{2})$/.exec(s.formula)![1]!;
+          if (steps.has(`R${i}`)) {
+            const read = e.reads.find((x) => x.name === `DF(${date})`)!;
+            expect(rel(val(steps, `R${i}`), read.discount / dfH.discount), `R${i}`).toBeLessThanOrEqual(1e-15);
+            coupons += s.value * val(steps, `R${i}`);
+            lastCouponDate = date;
+          } else {
+            firstAfter ??= date;
+            // pow on its own is a looser textbook check (its rounding grows with the power); the log form to 1e-15.
+            const v = Math.exp(-(w + k) * Math.log1p(y / f));
+            expect(rel(v, Math.pow(1 + y / f, -(w + k))), `v${i}`).toBeLessThanOrEqual(1e-13);
+            price += s.value * v;
+            k++;
+          }
+        }
+        expect(k).toBeGreaterThan(0);
+        // w: days from the horizon to the next coupon over the days of its period (ICMA), checked where the period's start is a paid coupon.
+        if (lastCouponDate) {
+          const days = (x: string, z: string) => (Date.parse(z) - Date.parse(x)) / 86_400_000;
+          expect(rel(w, days(a.value.horizon, firstAfter!) / days(lastCouponDate, firstAfter!))).toBeLessThanOrEqual(1e-15);
+          withW++;
+        }
+        expect(w > 0 && w <= 1).toBe(true);
+        expect(rel(val(steps, 'coupons'), coupons)).toBeLessThanOrEqual(1e-15);
+        expect(rel(val(steps, 'P_y'), price)).toBeLessThanOrEqual(1e-15);
+        expect(Object.is(val(steps, 'target'), 100 / dfH.discount)).toBe(true);
+        expect(Object.is(val(steps, 'y0'), p.yield)).toBe(true);
+        expect(Object.is(y, val(steps, 'y0') + val(steps, 'd'))).toBe(true);
+        const residual = val(steps, 'coupons') + val(steps, 'P_y') - val(steps, 'target');
+        expect(Object.is(val(steps, 'residual'), residual)).toBe(true);
+        // Brent stops on a bracket of 1e-15 in the yield: both sides then agree to about 1e-15 x 100 x duration.
+        expect(Math.abs(residual)).toBeLessThanOrEqual(1e-10);
+        expect(Object.is(val(steps, 'd*'), val(steps, 'd') * 10000)).toBe(true);
         checked++;
       }
     }
-    expect(checked).toBeGreaterThan(30);
+    expect(checked).toBeGreaterThan(50);
+    expect(withW).toBeGreaterThan(10);
   }, 120_000);
 
   it("has riding-rise steps whose growths, recomputed at the shown root, are equal to the solver tolerance", () => {
@@ -387,4 +474,134 @@ describe('explainRollFigure', () => {
     expect(zero.value.userView).toBe(false);
     expect(zero.value.explanation.formula).toMatch(/Read off today's curve alone\.$/);
   });
+
+  // Units on every value (issue 19): money steps carry the strategy's currency (ISO 4217 code, or
+  // the generic sign when none is set), a break-even shift or rise says which rates it moves by
+  // that many bp, each with its compounding and day count.
+  it('gives every money step its currency and every break-even shift the rates it moves with their conventions', () => {
+    const { curve, strategy } = CASES[0]!;
+    for (const [currency, unit] of [['USD', 'USD'], ['', '\u00a4']] as const) {
+      const s = { ...strategy, currency, view: 'shift' as const };
+      for (const figure of [{ kind: 'terminal', view: 'forwards', strategy: 'roll' }, { kind: 'leg-value', leg: 2 }] as RollFigure[]) {
+        const e = explainRollFigure(curve, s, [], figure);
+        if (!e.ok) throw new Error(e.errors[0]!.message);
+        const money = e.value.explanation.steps.filter((x) => x.text !== undefined && x.name !== 'G (decimal)');
+        expect(money.length).toBeGreaterThan(1);
+        for (const m of money) expect(m.unit, m.name).toMatch(new RegExp(`^${unit} (today|at the horizon|after leg \\d+)$`));
+      }
+    }
+    const tag = (c: string, d: string) => `(${c}, ${d})`;
+    const shift = explainRollFigure(curve, { ...strategy, view: 'shift' }, [], { kind: 'break-even-shift', against: 'zero' });
+    const rise = explainRollFigure(curve, strategy, [], { kind: 'break-even-rise', against: 'zero' });
+    if (!shift.ok || !rise.ok) throw new Error('break-even');
+    expect(shift.value.explanation.unit).toBe(`bp, a parallel shift of every roll rate set after today ${tag('simple', strategy.rollDayCount)} and of the horizon curve's zero rates ${tag('cont', curve.dayCount)}`);
+    expect(shift.value.explanation.steps.at(-1)!.unit).toBe(shift.value.explanation.unit);
+    expect(rise.value.explanation.unit).toBe(`bp, a parallel rise of the horizon curve's zero rates ${tag('cont', curve.dayCount)}`);
+    // A break-even curve's rise is a bp of its par bond's yield, in that yield's convention.
+    const a = analyseRollVsTerm(curve, strategy);
+    if (!a.ok) throw new Error('analysis');
+    const point = a.value.breakEvens.curve.find((p) => p.riseBp !== null)!;
+    const c = explainRollFigure(curve, strategy, [], { kind: 'curve-rise', tenor: point.tenor });
+    if (!c.ok) throw new Error('curve rise');
+    expect(c.value.explanation.unit).toBe(`bp of the yield, ${yieldTag(strategy.ridingFrequency)}`);
+  });
+
+  // Against rolling (the results table's "against rolling" figures): the strategy's terminal value
+  // (or annualised return) minus rolling's, each made as above; money exact in decimal, the return
+  // difference times 10,000 in bp a year.
+  it('gives each figure against rolling equal to the analysis bit for bit (money to the last digit), its steps recomputed', () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const an = analyseRollVsTerm(curve, strategy);
+      if (!an.ok) throw new Error('analysis');
+      for (const v of an.value.views) {
+        for (const id of TERM_STRATEGY_IDS) {
+          const o = v.strategies.find((x) => x.id === id)!;
+          const m = explainRollFigure(curve, strategy, [], { kind: 'vs-roll', view: v.id, strategy: id });
+          const mu = rollFigure(curve, strategy, [], { kind: 'vs-roll', view: v.id, strategy: id });
+          const b = explainRollFigure(curve, strategy, [], { kind: 'vs-roll-bp', view: v.id, strategy: id });
+          const bu = rollFigure(curve, strategy, [], { kind: 'vs-roll-bp', view: v.id, strategy: id });
+          if (!m.ok || !mu.ok || !b.ok || !bu.ok) throw new Error('figure');
+          expect(m.value.money!.toFixed()).toBe(o.vsRoll.toFixed());
+          expect(mu.value.money!.toFixed()).toBe(o.vsRoll.toFixed());
+          expect(m.value.explanation.valueText).toBe(o.vsRoll.toFixed());
+          expect(Object.is(b.value.value, o.vsRollBp)).toBe(true);
+          expect(Object.is(bu.value.value, o.vsRollBp)).toBe(true);
+          // Recomputed: each growth from its shown steps, each money A x G (decimal), their difference.
+          const me = m.value.explanation;
+          const ms = stepsOf(me);
+          for (const who of ['roll', id]) {
+            const G = recomputeGrowth(me, who, strategy.rollDayCount);
+            expect(Number(ms.get(`G (decimal)_${who}`)!.text)).toBe(G);
+            expect(new MoneyDecimal(ms.get(`A_${who}`)!.text!).times(new MoneyDecimal(ms.get(`G (decimal)_${who}`)!.text!)).toFixed()).toBe(ms.get(`terminal_${who}`)!.text);
+          }
+          expect(new MoneyDecimal(ms.get(`terminal_${id}`)!.text!).minus(new MoneyDecimal(ms.get('terminal_roll')!.text!)).toFixed()).toBe(me.valueText);
+          const be = b.value.explanation;
+          const bs = stepsOf(be);
+          const T = yearFraction('ACT/365F', curve.settlement, an.value.horizon);
+          for (const who of ['roll', id]) expect(rel(val(bs, `return_${who}`), Math.expm1(Math.log(recomputeGrowth(be, who, strategy.rollDayCount)) / T)), who).toBeLessThanOrEqual(1e-15);
+          expect(Object.is(be.value, (val(bs, `return_${id}`) - val(bs, 'return_roll')) * 10000)).toBe(true);
+          expect(Object.is(be.steps.at(-1)!.value, be.value)).toBe(true);
+          expect(be.unit).toBe('bp a year (ann, ACT/365F)');
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(200);
+  }, 120_000);
+
+  // The riding split (Tuckman and Serrat, "Fixed Income Securities", carry and roll-down; cited from
+  // memory): with C the coupons grown to the horizon, P_y the horizon price at the bond's own yield
+  // today by the ICMA rule P = sum CF_k (1 + y/f)^-(w + k) (Fabozzi, pricing between coupon dates;
+  // from memory), P0 on today's curve seen from the horizon and the price on the view's horizon
+  // curve: carry = A (C + P_y)/100 - A, roll-down = A (P0 - P_y)/100, curve change = A (price - P0)/100.
+  it('gives each part of the riding split equal to the analysis to the last digit, its steps recomputed', () => {
+    let checked = 0;
+    for (const { curve, strategy } of CASES) {
+      const an = analyseRollVsTerm(curve, strategy);
+      if (!an.ok) throw new Error('analysis');
+      const r = an.value.views[an.value.chosen]!.riding;
+      const shown = { carry: r.carry, 'roll-down': r.rollDown, 'curve change': r.curveChange, total: r.carry.plus(r.rollDown).plus(r.curveChange) };
+      for (const part of ['carry', 'roll-down', 'curve change', 'total'] as const) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'riding-split', part });
+        const u = rollFigure(curve, strategy, [], { kind: 'riding-split', part });
+        if (!t.ok || !u.ok) throw new Error('split');
+        expect(t.value.explanation.valueText).toBe(shown[part].toFixed());
+        expect(u.value.money!.toFixed()).toBe(shown[part].toFixed());
+        expect(t.value.explanation.steps.at(-1)!.name).toBe(part);
+      }
+      const t = explainRollFigure(curve, strategy, [], { kind: 'riding-split', part: 'total' });
+      if (!t.ok) throw new Error('split');
+      const e = t.value.explanation;
+      const steps = stepsOf(e);
+      recomputeGrowth(e, 'riding', strategy.rollDayCount); // the coupons and price
+      const f = strategy.ridingFrequency;
+      const y = val(steps, 'y');
+      const w = val(steps, 'w');
+      let py = 0;
+      let p0 = 0;
+      let k = 0;
+      for (const s of e.steps) {
+        const m = /^CF(\d+)$/.exec(s.name);
+        if (!m || steps.has(`R${m[1]}`)) continue;
+        py += s.value * Math.exp(-(w + k++) * Math.log1p(y / f));
+        p0 += s.value * val(steps, `DF0${m[1]}`);
+      }
+      expect(rel(val(steps, 'P_y'), py)).toBeLessThanOrEqual(1e-15);
+      expect(rel(val(steps, 'P0'), p0)).toBeLessThanOrEqual(1e-15);
+      expect(Object.is(y, an.value.ridingYield)).toBe(true);
+      const A = new MoneyDecimal(strategy.amount);
+      const per100 = (x: number) => A.times(new MoneyDecimal(x)).div(100);
+      expect(Object.is(val(steps, 'C + P_y'), val(steps, 'coupons') + val(steps, 'P_y'))).toBe(true);
+      const carry = per100(val(steps, 'C + P_y')).minus(A);
+      const rollDown = per100(val(steps, 'P0') - val(steps, 'P_y'));
+      const change = per100(val(steps, 'price') - val(steps, 'P0'));
+      expect(steps.get('carry')!.text).toBe(carry.toFixed());
+      expect(steps.get('roll-down')!.text).toBe(rollDown.toFixed());
+      expect(steps.get('curve change')!.text).toBe(change.toFixed());
+      expect(e.valueText).toBe(carry.plus(rollDown).plus(change).toFixed());
+      checked++;
+    }
+    expect(checked).toBe(CASES.length);
+  }, 120_000);
 });

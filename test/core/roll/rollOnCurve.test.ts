@@ -40,6 +40,35 @@ describe('analyseRollOnCurve', () => {
     expect(r.value.spotRollRate).not.toBe(d.value.spotRollRate);
   });
 
+  // By hand from the named curve's own discount factors: today's spot of leg 1 is simple on ACT/360,
+  // (DF(settlement) / DF(end) - 1) / tau (the money-market definition, ISDA 2006 Definitions' ACT/360
+  // day count; from memory); the zero to the horizon grows by 1 / DF(H); under forwards realised each
+  // leg earns its forward, so rolling grows by the product of DF(start) / DF(end), which telescopes to
+  // 1 / DF(H) (Hull, "Options, Futures, and Other Derivatives", forward rates; from memory).
+  it('on the projection curve equals the roll computed by hand from its discount factors, and differs from the default curve', () => {
+    const { main, projection } = buildAll();
+    const r = analyseRollOnCurve({ default: main.curve!, euribor6m: projection }, 'euribor6m', { ...DEFAULT_STRATEGY, view: 'forwards' });
+    if (!r.ok) throw new Error(r.errors[0]!.message);
+    const a = r.value;
+    const df = (date: string) => Math.exp(projection.lnDiscountAt(projection.time(date)));
+    const leg1 = a.legs[0]!;
+    const days = (Date.parse(leg1.end) - Date.parse(leg1.start)) / 86_400_000;
+    const spot = (1 / df(leg1.end) - 1) / (days / 360);
+    expect(Math.abs(a.spotRollRate - spot) / spot).toBeLessThanOrEqual(1e-13);
+    const growthH = 1 / df(a.horizon);
+    const forwards = a.views.find((v) => v.id === 'forwards')!;
+    const amount = Number(DEFAULT_STRATEGY.amount);
+    for (const id of ['zero', 'roll'] as const) {
+      const terminal = forwards.strategies.find((s) => s.id === id)!.terminal.toNumber();
+      expect(Math.abs(terminal - amount * growthH) / (amount * growthH), id).toBeLessThanOrEqual(1e-13);
+    }
+    // The same by hand on the default curve is another number: the check tells the curves apart.
+    const d = analyseRollOnCurve({ default: main.curve!, euribor6m: projection }, 'default', { ...DEFAULT_STRATEGY, view: 'forwards' });
+    if (!d.ok) throw new Error('default');
+    const onDefault = d.value.views.find((v) => v.id === 'forwards')!.strategies.find((s) => s.id === 'zero')!.terminal.toNumber();
+    expect(Math.abs(onDefault - amount * growthH)).toBeGreaterThan(100);
+  });
+
   it('errors name the curve they were read on, and an unknown curve lists the curves', () => {
     const { main, projection } = buildAll();
     const curves = { default: main.curve!, euribor6m: projection };
