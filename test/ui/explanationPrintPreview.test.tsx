@@ -8,7 +8,8 @@
 import axe from 'axe-core';
 import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { fullText, tableConventionsFromDisplay, type Scenario } from '../../src/core/index.ts';
+import { analyseRollVsTerm, applyScenario, fullText, tableConventionsFromDisplay, validateStrategy, type Scenario } from '../../src/core/index.ts';
+import { RollResultLine } from '../../src/features/roll/RollSlot.tsx';
 import { PrintTab } from '../../src/features/print/PrintTab.tsx';
 import { printKeyRows, printScenarios } from '../../src/features/print/printData.ts';
 import { workbenchBuildOptions } from '../../src/hooks/overnightKit.ts';
@@ -91,5 +92,40 @@ describe('explanations in the print preview', () => {
     await screen.findByRole('complementary', { name: /^2Y par yield/ });
     const r = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
     expect(r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} (${v.impact}): ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
+  });
+
+  it("the roll table's money, return and against-rolling figures open with the page's figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    useAppStore.setState(initial, true);
+    const ws = useAppStore.getState().workspace;
+    useAppStore.setState({ workspace: { ...ws, scenarios: [STEEPER] } });
+    const doc = useAppStore.getState().workspace;
+    const result = deriveBuild(doc);
+    const { container } = render(<PrintTab result={result} rollResult={<RollResultLine result={result} />} />);
+    // The page's own source: the analysis on the workbench's curve with the scenario as a view.
+    const strategy = validateStrategy((doc as { strategy?: unknown }).strategy).strategy;
+    const moved = applyScenario(STEEPER, result.build.workspace!, result.build.curve!, workbenchBuildOptions());
+    if (!moved.ok) throw new Error('scenario');
+    const analysis = analyseRollVsTerm(result.build.curve!, strategy, [{ name: STEEPER.name, curve: moved.value.curve }]);
+    if (!analysis.ok) throw new Error('analysis');
+    const a = analysis.value;
+    const view = a.views[a.chosen]!;
+    const zero = view.strategies.find((x) => x.id === 'zero')!;
+    const phrase = a.strategies.find((x) => x.id === 'zero')!.phrase;
+    const preview = container.querySelector('.print-preview') as HTMLElement;
+    const money = within(preview).getByRole('button', { name: new RegExp(`explain the money at the horizon of ${phrase} under ${view.label}$`) });
+    money.focus();
+    await user.keyboard('{Enter}');
+    let panel = await screen.findByRole('complementary', { name: new RegExp(`Money at the horizon of ${phrase}`) });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(zero.terminal.toFixed());
+    await user.keyboard('{Escape}');
+    expect(money).toHaveFocus();
+    await user.click(within(preview).getByRole('button', { name: new RegExp(`explain the return against rolling of ${phrase} under ${view.label}$`) }));
+    panel = await screen.findByRole('complementary', { name: /against rolling/i });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(zero.vsRollBp));
+    // The printed copy of the roll table has no buttons and the preview's text.
+    const printedRoll = document.querySelector('.print-root .ps-roll-table') as HTMLElement;
+    expect(printedRoll.querySelectorAll('button')).toHaveLength(0);
+    expect(printedRoll.textContent).toBe(preview.querySelector('.ps-roll-table')!.textContent);
   });
 });

@@ -1,5 +1,5 @@
-import type { ReactNode } from 'react';
-import type { EffectRow } from '../../core/index.ts';
+import { createContext, useContext, type ReactNode } from 'react';
+import type { EffectRow, RollFigure } from '../../core/index.ts';
 import type { CurveTableConventions, CurveTableRow } from '../../core/index.ts';
 import { couponTag, formatBpChange, formatNumber, formatPercent, INTERPOLATORS, NO_VALUE, rateTag } from '../../core/index.ts';
 import { CAUTION_TEXT } from '../../components/Caution.tsx';
@@ -58,7 +58,15 @@ export interface PrintSummaryProps {
 }
 
 /** A figure of the page: a key-maturity cell, or a scenario's change (scenario = its index among those printed). */
-export type PrintFigure = { readonly tenor: string; readonly field: 'discount' | 'zero' | 'par' | 'forward' } | { readonly scenario: number; readonly tenor: string; readonly field: 'zero' | 'forward' };
+export type PrintFigure =
+  | { readonly tenor: string; readonly field: 'discount' | 'zero' | 'par' | 'forward' }
+  | { readonly scenario: number; readonly tenor: string; readonly field: 'zero' | 'forward' }
+  /** A figure of the roll-versus-term table, and its name for the button ("money at the horizon of ..."). */
+  | { readonly roll: RollFigure; readonly words: string };
+
+/** The preview's figure wrapper for what the page shows of another section (the roll result); null in the printed copy. */
+const PrintFigureContext = createContext<((what: PrintFigure, text: string) => ReactNode) | null>(null);
+export const usePrintFigure = () => useContext(PrintFigureContext);
 
 /** The note as printed: at most PRINT_NOTE_CHARS characters (whole code points), with a marker when cut. */
 export function printedNote(note: string): { text: string; cut: boolean } {
@@ -197,7 +205,7 @@ export function PrintSummary(p: PrintSummaryProps) {
         </section>
       </div>
       <section className="ps-roll" aria-label="Roll versus term">
-        <h2>Roll versus term{on}</h2> <div className="ps-roll-body">{p.rollResult ?? <span className="ps-muted">no result</span>}</div>
+        <h2>Roll versus term{on}</h2> <div className="ps-roll-body">{p.rollResult ? <PrintFigureContext.Provider value={p.figure ? fig : null}>{p.rollResult}</PrintFigureContext.Provider> : <span className="ps-muted">no result</span>}</div>
       </section>
       <p className="ps-caution" role="note">
         <strong>Caution.</strong> {CAUTION_TEXT}

@@ -1,6 +1,7 @@
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import { useMemo, type ReactNode } from 'react';
-import { convexityModelText, DEFAULT_CURVE_NAME, type Scenario } from '../../core/index.ts';
+import { convexityModelText, DEFAULT_CURVE_NAME, type RollFigure, type Scenario } from '../../core/index.ts';
+import { useRollStrategy, useScenarioCurves } from '../roll/RollSlot.tsx';
 import { applyToShown } from '../scenarios/applyShown.ts';
 import { useOnCurve } from '../../hooks/useNamedCurves.ts';
 import { validateScenarios, workspaceHash } from '../../core/index.ts';
@@ -108,12 +109,24 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
   // On screen, each figure of the preview opens its explanation beside it; the printed copy (PrintRoot) has no buttons.
   const explain = useExplainOpener<ExplainCell>(sameCell);
   const scenarios = useMemo(() => validateScenarios(doc.scenarios).scenarios, [doc.scenarios]);
+  // The roll table's figures explain themselves under the strategy and views the page shows now.
+  const strategy = useRollStrategy();
+  const rollViews = useScenarioCurves(result);
+  const rollCell = (figure: RollFigure): ExplainCell => ({ roll: { figure, strategy, scenarios: rollViews } });
+  const open = explain.open !== null && 'roll' in explain.open ? rollCell(explain.open.roll.figure) : explain.open;
   const figure = (what: PrintFigure, text: string): ReactNode => {
-    const s = 'scenario' in what ? scenarios[what.scenario] : undefined;
-    const conv = tableConventionsFromDisplay(doc.display);
-    const { parFrequency: _p, ...conventions } = conv;
-    const cell: ExplainCell = s ? { change: { scenario: s, tenor: what.tenor, field: what.field as 'zero', conventions, buildOptions: workbenchBuildOptions() } } : { tenor: what.tenor, field: what.field };
-    const words = `${what.field === 'forward' ? `${conv.forwardTenor} forward` : FIGURE_WORDS[what.field]} ${s ? `change at ${what.tenor} under ${s.name}` : `at ${what.tenor}`}`;
+    let cell: ExplainCell;
+    let words: string;
+    if ('roll' in what) {
+      cell = rollCell(what.roll);
+      words = what.words;
+    } else {
+      const s = 'scenario' in what ? scenarios[what.scenario] : undefined;
+      const conv = tableConventionsFromDisplay(doc.display);
+      const { parFrequency: _p, ...conventions } = conv;
+      cell = s ? { change: { scenario: s, tenor: what.tenor, field: what.field as 'zero', conventions, buildOptions: workbenchBuildOptions() } } : { tenor: what.tenor, field: what.field };
+      words = `${what.field === 'forward' ? `${conv.forwardTenor} forward` : FIGURE_WORDS[what.field]} ${s ? `change at ${what.tenor} under ${s.name}` : `at ${what.tenor}`}`;
+    }
     return (
       <button type="button" className="cell-explain" aria-label={`${text}: explain the ${words}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
         {text}
@@ -148,7 +161,7 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
         <div className="print-preview">
           <WorkbenchPrintSummary result={result} rollResult={rollResult} figure={figure} />
         </div>
-        <OpenExplanation result={result} display={doc.display} cell={explain.open} onClose={explain.close} />
+        <OpenExplanation result={result} display={doc.display} cell={open} onClose={explain.close} />
       </div>
       <PrintRoot>{summary}</PrintRoot>
     </section>
@@ -157,5 +170,5 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
 
 const FIGURE_WORDS = { discount: 'discount factor', zero: 'zero rate', par: 'par yield' } as const;
 
-/** One number of the page: the same key cell, or the same scenario's change at the same tenor. */
-const sameCell = (a: ExplainCell, b: ExplainCell): boolean => JSON.stringify(a) === JSON.stringify(b);
+/** One number of the page: the same key cell, the same scenario's change at the same tenor, or the same roll figure (whatever curves its views hold). */
+const sameCell = (a: ExplainCell, b: ExplainCell): boolean => ('roll' in a && 'roll' in b ? JSON.stringify(a.roll.figure) === JSON.stringify(b.roll.figure) : JSON.stringify(a) === JSON.stringify(b));

@@ -1,6 +1,7 @@
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
-import { useCallback, useMemo } from 'react';
-import { formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type StrategyInputs } from '../../core/index.ts';
+import { useCallback, useMemo, type ReactNode } from 'react';
+import { formatBpChange, formatMoney, formatMoneySigned, NO_VALUE, percentFigure, RETURN_TAG, rollSentence, validateStrategy, type RollAnalysis, type RollFigure, type StrategyInputs } from '../../core/index.ts';
+import { usePrintFigure } from '../print/PrintSummary.tsx';
 import { inFieldWords } from './fieldWords.ts';
 import type { Curve, DisplaySettings } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
@@ -15,7 +16,7 @@ const readDisplay = (s: { workspace: { display: DisplaySettings } }): DisplaySet
 const readScenarios = (s: { workspace: unknown }): unknown => (s.workspace as { scenarios?: unknown }).scenarios;
 
 /** The document's scenarios applied to today's curve (the curve shown), as named curves for the roll panel's views. */
-function useScenarioCurves(result: WorkbenchBuild): { name: string; curve: Curve }[] {
+export function useScenarioCurves(result: WorkbenchBuild): { name: string; curve: Curve }[] {
   const raw = useAppStore(readScenarios);
   return useMemo(() => {
     const out: { name: string; curve: Curve }[] = [];
@@ -27,6 +28,12 @@ function useScenarioCurves(result: WorkbenchBuild): { name: string; curve: Curve
   }, [raw, result]);
 }
 
+
+/** The document's roll strategy as validated (defaults for what is missing). */
+export function useRollStrategy(): StrategyInputs {
+  const raw = useAppStore(readStrategy);
+  return useMemo(() => validateStrategy(raw).strategy, [raw]);
+}
 
 /**
  * The roll panel wired to the workbench store, in the shape of `EXTENSIONS.rollPanel`: it reads the
@@ -51,8 +58,7 @@ export function RollSlot({ result }: { result: WorkbenchBuild }) {
  * strategy ends ahead under the chosen view, by how much, and the break-even roll rate.
  */
 export function RollResultLine({ result }: { result: WorkbenchBuild }) {
-  const raw = useAppStore(readStrategy);
-  const strategy = useMemo(() => validateStrategy(raw).strategy, [raw]);
+  const strategy = useRollStrategy();
   const scenarios = useScenarioCurves(result);
   const curve = result.build.curve;
   const out = useMemo(() => {
@@ -83,6 +89,9 @@ function RollPrintDetail({ analysis: a }: { analysis: RollAnalysis }) {
   const path = a.views.find((v) => v.id === 'path');
   const rates = path ? path.legRates : [];
   const shown = rates.slice(0, PRINT_PATH_LEGS).map((r) => percentFigure(r, 'rateShort'));
+  // In the preview each figure opens its explanation (the print tab's wrapper); the printed copy has plain text.
+  const wrap = usePrintFigure();
+  const fig = (roll: RollFigure, text: string, words: string): ReactNode => (wrap ? wrap({ roll, words }, text) : text);
   return (
     <div className="ps-roll-detail">
       <table className="ps-table ps-roll-table" aria-label="Roll versus term under the chosen view">
@@ -100,9 +109,18 @@ function RollPrintDetail({ analysis: a }: { analysis: RollAnalysis }) {
             return (
               <tr key={s.id}>
                 <th scope="row">{s.label}</th>
-                <td>{formatMoney(o.terminal)}</td>
-                <td>{percentFigure(o.annualReturn)}</td>
-                <td>{s.id === 'roll' ? NO_VALUE : `${formatMoneySigned(o.vsRoll)} \u00b7 ${formatBpChange(o.vsRollBp)}`}</td>
+                <td>{fig({ kind: 'terminal', view: view.id, strategy: s.id }, formatMoney(o.terminal), `money at the horizon of ${s.phrase} under ${view.label}`)}</td>
+                <td>{fig({ kind: 'return', view: view.id, strategy: s.id }, percentFigure(o.annualReturn), `annualised return of ${s.phrase} under ${view.label}`)}</td>
+                <td>
+                  {s.id === 'roll' ? (
+                    NO_VALUE
+                  ) : (
+                    <>
+                      {fig({ kind: 'vs-roll', view: view.id, strategy: s.id }, formatMoneySigned(o.vsRoll), `money against rolling of ${s.phrase} under ${view.label}`)} \u00b7{' '}
+                      {fig({ kind: 'vs-roll-bp', view: view.id, strategy: s.id }, formatBpChange(o.vsRollBp), `return against rolling of ${s.phrase} under ${view.label}`)}
+                    </>
+                  )}
+                </td>
               </tr>
             );
           })}
