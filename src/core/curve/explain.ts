@@ -30,7 +30,9 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
   /** A meeting's implied step on the overnight curve (curve/explainMeetingStep.ts). */
   | 'meeting-step'
   /** The spread between two curves' zero rates or forwards (curve/explainSpread.ts). */
-  | 'curve-spread';
+  | 'curve-spread'
+  /** A forward's sensitivity to one quote, bp per bp (analytics/explainRisk.ts). */
+  | 'forward-sensitivity';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {

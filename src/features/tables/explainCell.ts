@@ -36,9 +36,11 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { explainRollCell, type RollCell } from '../roll/explainRollCell.ts';
 import { explainBondCell, type BondCell } from '../risk/explainBondCell.ts';
 import { explainSpreadCell, type SpreadCell } from '../namedCurves/explainSpreadCell.ts';
+import { explainSensitivityCell, type SensitivityCell } from '../risk/explainSensitivityCell.ts';
 
 export type { BondCell } from '../risk/explainBondCell.ts';
 export type { SpreadCell } from '../namedCurves/explainSpreadCell.ts';
+export type { SensitivityCell } from '../risk/explainSensitivityCell.ts';
 
 /** The key-maturity cells that explain themselves. */
 export type KeyField = 'discount' | 'zero' | 'par' | 'forward';
@@ -87,7 +89,7 @@ export interface StepCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | SpreadCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | SpreadCell | SensitivityCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -129,6 +131,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('bond' in cell) return explainBondCell(result, cell.bond);
   if ('step' in cell) return explainStepCell(result, cell.step);
   if ('spread' in cell) return explainSpreadCell(result, display, cell.spread);
+  if ('sensitivity' in cell) return explainSensitivityCell(result, cell.sensitivity);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;
