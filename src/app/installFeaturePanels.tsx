@@ -96,7 +96,7 @@ const risk = deferredPanel('bond and sensitivities', () =>
       ({ result }: PanelProps) => (
         <div className="stack">
           <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} result={result} />
-          <SensitivityHeatMap workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} />
+          <SensitivityHeatMap workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} result={result} />
         </div>
       ),
   ),

@@ -21,6 +21,7 @@ export * from './curve/forwardBetween.ts';
 export * from './curve/sampling.ts';
 export * from './curve/comparisonLines.ts';
 export * from './curve/curveSpread.ts';
+export * from './curve/explainSpread.ts';
 export type { Instrument, QuoteUnit, CurveRole, CurveId, CurveRoles } from './instruments/instrument.ts';
 export { presentValue, DISCOUNT_CURVE } from './instruments/instrument.ts';
 export type { QuoteKindModule, QuoteConvention, FixedLegConvention } from './kinds/types.ts';

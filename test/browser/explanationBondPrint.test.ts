@@ -4,7 +4,8 @@
 // the print preview opens beside the preview; with the panel open, the page in print media is the
 // same picture as with it closed (the printed copy has no buttons, the panel does not print), and
 // no button is visible in print. axe-core finds no serious or critical violation with the panels
-// open. Screenshots at 1280 and 760 px wide and in print media. The numbers themselves are the
+// open. A key-rate duration and a heat-map cell open theirs beside their tables, ending in the
+// shown figure. Screenshots at 1280 and 760 px wide and in print media. The numbers themselves are the
 // core's (test/core/analytics/explainBond.test.ts, test/core/curve/explain.test.ts).
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -60,6 +61,43 @@ describe('explanations of bond figures and of the print preview', () => {
     await screenshot(page, 'bond-explanation-760');
     await page.locator('.bond-panel .key-maturities').screenshot({ path: path.join(SCREENSHOT_DIR, 'bond-explanation-760-area.png') });
     await page.setViewportSize({ width: 1280, height: 900 });
+  });
+
+  it('a key-rate duration opens beside the key-rate table, a heat-map cell beside the map, each ending in the shown figure', async () => {
+    await page.getByRole('tab', { name: 'Bond and sensitivities', exact: true }).click();
+    const krd = page.getByRole('table', { name: 'Key-rate durations' });
+    await krd.waitFor({ timeout: 20_000 });
+    const button = krd.getByRole('button', { name: /explain the 10Y key-rate duration$/ });
+    const shown = (await button.textContent())!.trim();
+    await button.click();
+    const panel = page.getByRole('complementary', { name: /10Y key-rate duration on the curve/ });
+    await panel.waitFor({ timeout: 20_000 });
+    const value = (await panel.locator('[data-field="value"]').textContent())!;
+    expect(Number(value).toFixed(4)).toBe(shown);
+    const steps = await panel.locator('section[aria-label="Steps"] li').allTextContents();
+    expect(steps.at(-1)).toBe(`KRD 10Y = (4 D(h/2) - D(h)) / 3 = ${value} (years)`);
+    const t = (await krd.boundingBox())!;
+    expect((await panel.boundingBox())!.y).toBeGreaterThanOrEqual(t.y + t.height);
+    expect(await axeFindings('.bond-panel')).toEqual([]);
+    await panel.scrollIntoViewIfNeeded();
+    await screenshot(page, 'krd-explanation-1280');
+    await page.locator('.bond-panel').screenshot({ path: path.join(SCREENSHOT_DIR, 'krd-explanation-1280-area.png') });
+    await panel.getByRole('button', { name: 'Close the explanation' }).click();
+    // A heat-map cell.
+    const map = page.getByRole('table', { name: 'Forward sensitivities' });
+    const cell = map.getByRole('button', { name: /explain the .* forward's sensitivity to row \d+$/ }).nth(3);
+    const figure = (await cell.textContent())!.trim().replace('\u2212', '-'); // the shown minus is U+2212
+    await cell.click();
+    const heat = page.getByRole('complementary', { name: /^Sensitivity of the forward/ });
+    await heat.waitFor({ timeout: 20_000 });
+    const v = (await heat.locator('[data-field="value"]').textContent())!;
+    expect(Math.abs(Number(v) - Number(figure))).toBeLessThanOrEqual(0.005);
+    expect((await heat.locator('section[aria-label="Steps"] li').allTextContents()).at(-1)).toContain(`= ${v} (bp of forward per bp of quote)`);
+    expect(await axeFindings('.sensitivity-panel')).toEqual([]);
+    await heat.scrollIntoViewIfNeeded();
+    await screenshot(page, 'heatmap-explanation-1280');
+    await page.locator('.sensitivity-panel').screenshot({ path: path.join(SCREENSHOT_DIR, 'heatmap-explanation-1280-area.png') });
+    await heat.getByRole('button', { name: 'Close the explanation' }).click();
   });
 
   it('a print-preview zero rate opens beside the preview; the print-media page is the same with it open', async () => {

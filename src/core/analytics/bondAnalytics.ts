@@ -2,7 +2,7 @@ import type { Curve } from '../curve/curve.ts';
 import { bondDirtyFromYield, bondSchedule, bondYieldFromDirty, type BondSchedule } from '../instruments/bond.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { checkBondInput, type BondInput, type CheckedBond } from './bondInput.ts';
-import { DEFAULT_KEY_TENORS, KEY_RATE_BUMP_BP, keyRateDurations, keyTimes, shiftDuration, type Flow } from './keyRates.ts';
+import { DEFAULT_KEY_TENORS, KEY_RATE_BUMP_BP, keyRateDurations, keyTimes, shiftDuration, type CentralDifference, type Flow } from './keyRates.ts';
 import { zSpread } from './zSpread.ts';
 import type { BondSink } from './explainBond.ts';
 
@@ -105,7 +105,10 @@ export function analyzeBond(curve: Curve, input: BondInput, keys: readonly strin
   const y = bondYieldFromDirty(s, dirty);
   if (y === null) return fail(coreError('no-solution', path, `${path}: no yield reprices the model dirty price ${dirty}; check the curve`));
   const kt = keyTimes(curve, keys);
-  const krd = keyRateDurations(flows, ln, kt);
+  const keyShifts: CentralDifference[][] | undefined = sink && [];
+  const parallel: CentralDifference[] | undefined = sink && [];
+  const krd = keyRateDurations(flows, ln, kt, keyShifts);
+  const effectiveDuration = shiftDuration(flows, ln, () => 1, parallel);
   let market: MarketAnalytics | null = null;
   if (bond.cleanPrice !== null || bond.yield !== null) {
     const given = bond.cleanPrice !== null ? 'price' : 'yield';
@@ -117,14 +120,14 @@ export function analyzeBond(curve: Curve, input: BondInput, keys: readonly strin
     market = { given, cleanPrice: marketDirty - s.accrued, dirtyPrice: marketDirty, zSpread: z, ...yieldRisk(s, my) };
   }
   // The explanation's material: this function's own values (explainBond.ts builds the steps from them).
-  if (sink) sink.trace = { curve, bond, schedule: s, flows, lns, dirty, yield: y, market: market && { given: market.given, yield: market.yield, dirty: market.dirtyPrice, zSpread: market.zSpread } };
+  if (sink) sink.trace = { curve, bond, schedule: s, flows, lns, dirty, yield: y, market: market && { given: market.given, yield: market.yield, dirty: market.dirtyPrice, zSpread: market.zSpread }, keys, keyTimes: kt, shifts: { parallel: parallel!, keys: keyShifts! } };
   return ok({
     bond,
     modelCleanPrice: dirty - s.accrued,
     modelDirtyPrice: dirty,
     accrued: s.accrued,
     ...yieldRisk(s, y),
-    effectiveDuration: shiftDuration(flows, ln, () => 1),
+    effectiveDuration,
     keyRateDurations: keys.map((tenor, k) => ({ tenor, t: kt[k]!, duration: krd[k]! })),
     keyRateBumpBp: KEY_RATE_BUMP_BP,
     market,

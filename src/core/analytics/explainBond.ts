@@ -13,9 +13,11 @@ import { couponTag } from '../format/conventionTag.ts';
 import { bondDirtyFromYield, bondYearFraction, type BondSchedule } from '../instruments/bond.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { civilFromIso, type IsoDate } from '../time/date.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import { parseTenor } from '../time/tenor.ts';
 import { yieldRisk, type BondAnalytics } from './bondAnalytics.ts';
 import type { CheckedBond } from './bondInput.ts';
-import type { Flow } from './keyRates.ts';
+import { tentWeight, type CentralDifference, type Flow } from './keyRates.ts';
 import { compoundingOfFrequency } from '../kinds/shared.ts';
 
 /**
@@ -43,6 +45,11 @@ export interface BondTrace {
   /** ICMA yield at the model dirty price. */
   readonly yield: number;
   readonly market: { readonly given: 'price' | 'yield'; readonly yield: number; readonly dirty: number; readonly zSpread: number } | null;
+  /** The key-rate grid (tenors) and its times on the curve's axis. */
+  readonly keys: readonly string[];
+  readonly keyTimes: readonly number[];
+  /** shiftDuration's central differences (at h/2, then h): the parallel shift's, and each key's tent. */
+  readonly shifts: { readonly parallel: readonly CentralDifference[]; readonly keys: readonly (readonly CentralDifference[])[] };
 }
 
 /** Handed to analyzeBond to receive its trace. */
@@ -53,6 +60,8 @@ export interface BondSink {
 export const BOND_FIGURES = ['clean', 'dirty', 'accrued', 'yield', 'modifiedDuration', 'macaulayDuration', 'convexity', 'dv01', 'zSpread'] as const;
 /** A figure of the bond table. */
 export type BondFigure = (typeof BOND_FIGURES)[number];
+/** The curve-shift durations of the bond table (on the curve only): the parallel shift's, and a key's tent. */
+export type ShiftFigure = 'effectiveDuration' | 'keyRateDuration';
 /** The table's column: on the curve, or at the market quote. */
 export type BondSide = 'model' | 'market';
 
@@ -76,8 +85,13 @@ export function bondFigureValue(a: BondAnalytics, figure: BondFigure, side: Bond
 const PRICE = 'per 100 face';
 const esc = (x: string): string => x.replace(/[()/+.*]/g, '\\$&');
 
-/** The explanation of one figure of the bond table, from analyzeBond's trace. */
-export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: BondSide): Result<Explanation> {
+/**
+ * The explanation of one figure of the bond table, from analyzeBond's trace. A shift duration
+ * (`effectiveDuration`, or `keyRateDuration` of key number `key`) is shiftDuration's own central
+ * differences: the bumped prices at +-h and +-h/2, each difference quotient, and their Richardson
+ * combination (4 D(h/2) - D(h)) / 3, which is how analyzeBond computes it.
+ */
+export function explainBondFigure(trace: BondTrace, figure: BondFigure | ShiftFigure, side: BondSide, key = 0): Result<Explanation> {
   const { curve, bond, schedule: s, flows, lns } = trace;
   const m = trace.market;
   const mkt = side === 'market' && figure !== 'accrued';
@@ -181,6 +195,37 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
       accrued();
       step(mkt ? 'clean_mkt' : 'clean', `${d} - accrued`, (mkt ? m!.dirty : trace.dirty) - s.accrued);
     }
+  } else if (figure === 'effectiveDuration' || figure === 'keyRateDuration') {
+    curvePrice();
+    const kt = trace.keyTimes;
+    const tent = figure === 'keyRateDuration';
+    const [half, full] = tent ? trace.shifts.keys[key]! : trace.shifts.parallel;
+    const pvt = [...terms_('pv'), ...terms_('t')];
+    let w = '';
+    if (tent) {
+      // The key and its neighbours, on the curve's clock: the tent is 1 at the key and 0 at each neighbour.
+      const around: string[] = [];
+      for (const j of [key - 1, key, key + 1]) {
+        const tenor = trace.keys[j];
+        if (tenor === undefined) continue;
+        around.push(`T_${tenor}`);
+        yfs.push(explainedYearFraction(`T_${tenor}`, curve.dayCount, curve.settlement, marketDate(curve.settlement, parseTenor(tenor)!), kt[j]!));
+      }
+      const k = trace.keys[key]!;
+      const edge = key === 0 ? ', 1 before it' : key === kt.length - 1 ? ', 1 after it' : '';
+      flows.forEach((fl, i) => step(`w${i + 1}`, `tent of ${k} at t${i + 1} (1 at T_${k}, straight to 0 at the neighbouring keys${edge})`, tentWeight(kt, key, fl.t), 'unitless', [`t${i + 1}`, ...around]));
+      pvt.push(...terms_('w'));
+      w = 'w_i ';
+    }
+    const zUnit = `decimal per year, continuous on ${curve.dayCount}`;
+    step('h', '1 bp of the zero = 0.0001', full!.step, zUnit, []);
+    step('h/2', 'h / 2', half!.step, zUnit, ['h']);
+    for (const [c, x] of [[full!, 'h'], [half!, 'h/2']] as const) {
+      step(`P+(${x})`, `sum_i pv_i exp(-${x} ${w}t_i)`, c.up, PRICE, [...pvt, x]);
+      step(`P-(${x})`, `sum_i pv_i exp(+${x} ${w}t_i)`, c.down, PRICE, [...pvt, x]);
+      step(`D(${x})`, `-(P+(${x}) - P-(${x})) / (2 ${x} dirty)`, c.duration, 'years', [`P+(${x})`, `P-(${x})`, x, 'dirty']);
+    }
+    step(tent ? `KRD ${trace.keys[key]}` : 'effective', '(4 D(h/2) - D(h)) / 3', (4 * half!.duration - full!.duration) / 3, 'years', ['D(h/2)', 'D(h)']);
   } else {
     // At the model yield (solved from the curve's price) or the market's (given, or solved from its price).
     let y = 'y';
@@ -213,6 +258,7 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
   // The definition: the figure's own step, then what it stands on.
   const last = steps.at(-1)!;
   const defs = [last.formula];
+  if (have.has('h')) defs.push(`D(s) = -(P+(s) - P-(s)) / (2 s dirty), P+-(s) = sum_i pv_i exp(-+s w(t_i) t_i): the continuously compounded zero on ${curve.dayCount} moved by +-s w(t), w ${figure === 'keyRateDuration' ? 'the key\'s tent' : '= 1 (parallel)'}`);
   if (have.has('z')) defs.push('dirty_mkt = sum_i CF_i DF(c_i) exp(-z t_i)');
   if (reads.length > 0) defs.push(CURVE);
   if (have.has('P')) defs.push(ICMA);
@@ -222,7 +268,7 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
     formula: defs.join('; '),
     value: last.value,
     unit: last.unit,
-    conventions: explainedConventions(curve, figure === 'zSpread' ? 'continuous' : compoundingOfFrequency(f), figure === 'zSpread' ? null : dc, f),
+    conventions: have.has('h') ? explainedConventions(curve, 'continuous', curve.dayCount) : explainedConventions(curve, figure === 'zSpread' ? 'continuous' : compoundingOfFrequency(f), figure === 'zSpread' ? null : dc, f),
     dates,
     yearFractions: yfs,
     reads,
@@ -239,11 +285,18 @@ export function explainBondFigure(trace: BondTrace, figure: BondFigure, side: Bo
  *   model yield:   dy / d lnDF_i = pv_i / (-dP/dy) (the yield-based risk figures move with it);
  *   z-spread:      dz / d lnDF_i = pv_i e^(-z t_i) / sum_j t_j pv_j e^(-z t_j).
  */
-export function bondLnWeights(trace: BondTrace, figure: BondFigure, side: BondSide): { times: number[]; weights: number[]; note: string } | null {
+export function bondLnWeights(trace: BondTrace, figure: BondFigure | ShiftFigure, side: BondSide, key = 0): { times: number[]; weights: number[]; note: string } | null {
   const { flows, lns, schedule: s } = trace;
   const times = flows.map((f) => f.t);
   const pv = flows.map((f, i) => f.amount * Math.exp(lns[i]!));
   if (figure === 'accrued') return null;
+  if (figure === 'effectiveDuration' || figure === 'keyRateDuration') {
+    // D = sum_i t_i w_i pv_i / P to first order in the shift, so dD/dlnDF_i = pv_i (t_i w_i - D) / P.
+    const w = times.map((t) => (figure === 'effectiveDuration' ? 1 : tentWeight(trace.keyTimes, key, t)));
+    let d = 0;
+    pv.forEach((v, i) => (d += (times[i]! * w[i]! * v) / trace.dirty));
+    return { times, weights: pv.map((v, i) => ((v * (times[i]! * w[i]! - d)) / trace.dirty) * 1e-4), note: 'years of duration per bp of the quote' };
+  }
   if (side === 'market') {
     const m = trace.market;
     if (figure !== 'zSpread' || !m) return null;

@@ -6,7 +6,9 @@ import type { Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type CoreError, type Result } from '../result.ts';
 import { compareIso, type IsoDate } from '../time/date.ts';
 import { queryYearFraction, type CurveDayCount, type DayCount } from '../time/dayCount.ts';
-import { forwardSensitivities, quoteNodeJacobian } from './forwardSensitivity.ts';
+import { forwardSensitivities, quoteNodeJacobian, type ForwardRow, type SensitivityTrace } from './forwardSensitivity.ts';
+import { explainedConventions, explainedYearFraction, explainRead, LN_UNIT, rateUnit, type ExplainedStep, type Explanation } from '../curve/explain.ts';
+import { periodsPerYear } from '../rates/compounding.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 
@@ -153,5 +155,59 @@ export function valueUnderEachMethod(
     if (!built.curve || built.errors.length > 0) return { ...base, value: null, error: built.errors[0]?.message ?? 'no curve' };
     const r = read(built.curve);
     return r.ok ? { ...base, value: r.value, error: null } : { ...base, value: null, error: r.errors[0]!.message };
+  });
+}
+
+/**
+ * The explanation of one cell of the forward-sensitivity map: the forward `row` (the map's own row)
+ * against the quote at position `column` of `instruments`, by forwardSensitivities itself run on
+ * that row with a trace: ln P and the forward, dF/dL, then for each node j that the forward reads
+ * the node partials of ln DF at its end and start (nodePartials, by the curve's method), g_j and
+ * the quote's column m_j of (dq/dx)^-1 (implicit-function rule on the exact bootstrap), and
+ * dF/dq = sum_j g_j m_j, the map's figure bit for bit (bp of forward per bp of quote).
+ */
+export function explainForwardSensitivity(curve: Curve, instruments: readonly Instrument[], row: ForwardRow, column: number, c: Compounding, dc: CurveDayCount): Result<Explanation> {
+  const trace: SensitivityTrace = { column };
+  const map = forwardSensitivities(curve, instruments, [row], c, dc, trace);
+  if (!map.ok) return map;
+  const r = trace.record!;
+  const col = map.value.columns[column]!;
+  const rUnit = rateUnit(c, dc);
+  const m = periodsPerYear(c);
+  const steps: ExplainedStep[] = [
+    { name: 'L', formula: 'L = ln DF(end) - ln DF(start)', inputs: ['DF(end)', 'DF(start)'], value: r.L, unit: LN_UNIT },
+    { name: 'F', formula: 'F = the forward over tau from L', inputs: ['L', 'tau'], value: row.rate, unit: rUnit },
+    { name: 'dF/dL', formula: `dF/dL = ${m === Infinity ? '-1 / tau' : m === 0 ? '-exp(-L) / tau' : `-exp(-L / (${m} tau)) / tau`}`, inputs: ['L', 'tau'], value: r.dFdL, unit: `${rUnit} per unit of ln DF` },
+  ];
+  const terms: string[] = [];
+  r.g.forEach((g, j) => {
+    if (g === 0) return;
+    const k = j + 1;
+    const x = `x${k} (ln DF at node ${k}, ${curve.pillars[j]!.date})`;
+    steps.push(
+      { name: `dE${k}`, formula: `dE${k} = d ln DF(end) / d ${x}, by ${curve.interpolation}`, inputs: [], value: r.end[j]!, unit: 'unitless' },
+      { name: `dS${k}`, formula: `dS${k} = d ln DF(start) / d x${k}`, inputs: [], value: r.start[j]!, unit: 'unitless' },
+      { name: `g${k}`, formula: `g${k} = dF/dL x (dE${k} - dS${k})`, inputs: ['dF/dL', `dE${k}`, `dS${k}`], value: g, unit: `${rUnit} per unit of x${k}` },
+      { name: `m${k}`, formula: `m${k} = d x${k} / d q: the quote's column of (dq/dx)^-1`, inputs: [], value: r.inverse[j]!, unit: 'unitless (per unit of the quote\'s yield)' },
+    );
+    terms.push(`g${k}`, `m${k}`);
+  });
+  const sum = terms.length === 0 ? '0' : Array.from({ length: terms.length / 2 }, (_, i) => `${terms[2 * i]} ${terms[2 * i + 1]}`).join(' + ');
+  steps.push({ name: 'dF/dq', formula: `dF/dq = ${sum}`, inputs: terms, value: map.value.values[column]!, unit: 'bp of forward per bp of quote' });
+  const lnStart = row.tStart > 0 ? curve.lnDiscountAt(row.tStart) : 0;
+  return ok({
+    quantity: 'forward-sensitivity',
+    formula: `dF/dq = sum_j g_j m_j: F the forward from start to end (${rUnit}), x_j = ln DF at node j, g_j = dF/dL (d ln DF(end)/dx_j - d ln DF(start)/dx_j), m = (dq/dx)^-1 for q = the quote's ${col.yieldLabel} (implicit-function rule on the exact bootstrap)`,
+    value: map.value.values[column]!,
+    unit: 'bp of forward per bp of quote',
+    conventions: explainedConventions(curve, c, dc),
+    dates: [row.start, row.end].map((d, i) => ({ name: i === 0 ? 'start' : 'end', given: d, unadjusted: d, adjusted: d, rule: 'none (a query date is read as given)' })),
+    yearFractions: [
+      explainedYearFraction('t(start)', curve.dayCount, curve.settlement, row.start, row.tStart),
+      explainedYearFraction('t(end)', curve.dayCount, curve.settlement, row.end, row.tEnd),
+      explainedYearFraction('tau', dc, row.start, row.end, row.tau),
+    ],
+    reads: [explainRead(curve, 'DF(start)', row.start, row.tStart, lnStart), explainRead(curve, 'DF(end)', row.end, row.tEnd, curve.lnDiscountAt(row.tEnd))],
+    steps,
   });
 }

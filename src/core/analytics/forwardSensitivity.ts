@@ -164,11 +164,33 @@ function curveTargetSlopes(ins: Instrument, ln: (t: number) => number): number[]
 }
 
 /**
+ * What forwardSensitivities hands an explanation (explainRisk.ts) for one quote, `column` (its
+ * position in the instruments), on its last row: its own values.
+ */
+export interface SensitivityTrace {
+  readonly column: number;
+  record?: {
+    /** ln DF(end) - ln DF(start). */
+    readonly L: number;
+    /** dF/dL (dRateDLn). */
+    readonly dFdL: number;
+    /** d lnDF(start) / dx_j and d lnDF(end) / dx_j, the node partials (nodePartials), j in pillar order. */
+    readonly start: Float64Array;
+    readonly end: Float64Array;
+    /** g_j = dF/dL x (end_j - start_j). */
+    readonly g: Float64Array;
+    /** Column `column` of (dq/dx)^-1: each node's move per unit of the quote's own yield. */
+    readonly inverse: Float64Array;
+  };
+}
+
+/**
  * Sensitivity of each forward to each quote, in bp per bp, computed analytically from the
  * bootstrap: dF/dq = dF/dx (dq/dx)^-1 (implicit-function theorem on the exact bootstrap, whose
  * nodes x reprice every quote). A price quote is moved through its own yield (quoteYield.ts).
  * `curve` must be the bootstrap of `instruments` (sorted by pillar time, as the bootstrap takes
- * them). Cost: 2n interpolation builds, one n x n LU, rows x n^2 multiply-adds.
+ * them). Cost: 2n interpolation builds, one n x n LU, rows x n^2 multiply-adds. With `trace`,
+ * each row's own values for the quote `trace.column` are left there (the last row's stay).
  */
 export function forwardSensitivities(
   curve: Curve,
@@ -176,6 +198,7 @@ export function forwardSensitivities(
   rows: readonly ForwardRow[],
   c: Compounding,
   dc: CurveDayCount,
+  trace?: SensitivityTrace,
 ): Result<ForwardSensitivityMap> {
   const n = instruments.length;
   if (n !== curve.pillars.length) {
@@ -196,6 +219,10 @@ export function forwardSensitivities(
       const gj = g[j]!;
       if (gj === 0) continue;
       for (let k = 0; k < n; k++) values[i * n + k] = values[i * n + k]! + gj * inv[j * n + k]!;
+    }
+    if (trace) {
+      const part = (m: number): Float64Array => extraPartials.slice(m * n, m * n + n);
+      trace.record = { L, dFdL: d, start: part(2 * i), end: part(2 * i + 1), g: g.slice(), inverse: Float64Array.from({ length: n }, (_, j) => inv[j * n + trace.column]!) };
     }
   });
   return ok({ rows, columns: columnsOf(instruments, yields), values, compounding: c, dayCount: dc });

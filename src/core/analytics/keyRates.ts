@@ -43,6 +43,18 @@ export function keyTimes(curve: Curve, tenors: readonly string[]): number[] {
   });
 }
 
+/** One central difference of shiftDuration, as it computed it (explanations, explainBond.ts). */
+export interface CentralDifference {
+  /** The shift size, decimal of the continuously compounded zero. */
+  readonly step: number;
+  /** sum_i pv_i exp(-step w(t_i) t_i): the price with the zero shifted up (per 100 face when the flows are). */
+  readonly up: number;
+  /** sum_i pv_i exp(+step w(t_i) t_i): shifted down. */
+  readonly down: number;
+  /** -(up - down) / (2 step P0), years. */
+  readonly duration: number;
+}
+
 /**
  * Duration (years) of flows under a shift of the continuously compounded zero curve shaped by
  * `weight(t)`: the zero z(t) moves by h w(t), so DF(t) becomes DF(t) e^(-h w(t) t), and
@@ -52,9 +64,10 @@ export function keyTimes(curve: Curve, tenors: readonly string[]): number[] {
  * central difference. (The plain one misses by up to about 1e-7 relative on a 30-year bond, which
  * would break the rule that key-rate durations sum to the parallel duration; the combination is
  * exact to about 1e-12.) Richardson extrapolation: e.g. Press et al., "Numerical Recipes",
- * section 5.7 (cited from memory).
+ * section 5.7 (cited from memory). `trace`: each central difference is pushed there as computed
+ * (at h/2, then h); without it nothing is recorded.
  */
-export function shiftDuration(flows: readonly Flow[], lnDiscountAt: (t: number) => number, weight: (t: number) => number): number {
+export function shiftDuration(flows: readonly Flow[], lnDiscountAt: (t: number) => number, weight: (t: number) => number, trace?: CentralDifference[]): number {
   const h = KEY_RATE_BUMP_BP * 1e-4;
   let p0 = 0;
   const pv: number[] = [];
@@ -71,12 +84,14 @@ export function shiftDuration(flows: readonly Flow[], lnDiscountAt: (t: number) 
       up += pv[i]! * Math.exp(-x);
       down += pv[i]! * Math.exp(x);
     });
-    return -(up - down) / (2 * step * p0);
+    const duration = -(up - down) / (2 * step * p0);
+    trace?.push({ step, up, down, duration });
+    return duration;
   };
   return (4 * central(h / 2) - central(h)) / 3;
 }
 
-/** Key-rate durations (years) of flows at key times (ascending), by tent shifts (shiftDuration). */
-export function keyRateDurations(flows: readonly Flow[], lnDiscountAt: (t: number) => number, keys: readonly number[]): number[] {
-  return keys.map((_, k) => shiftDuration(flows, lnDiscountAt, (t) => tentWeight(keys, k, t)));
+/** Key-rate durations (years) of flows at key times (ascending), by tent shifts (shiftDuration); `traces[k]`: key k's central differences. */
+export function keyRateDurations(flows: readonly Flow[], lnDiscountAt: (t: number) => number, keys: readonly number[], traces?: CentralDifference[][]): number[] {
+  return keys.map((_, k) => shiftDuration(flows, lnDiscountAt, (t) => tentWeight(keys, k, t), traces && (traces[k] = [])));
 }

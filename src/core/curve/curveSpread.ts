@@ -1,4 +1,5 @@
 import type { Curve } from './curve.ts';
+import type { ExplanationSink } from './explain.ts';
 import { forwardOn, zeroOn } from './query.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { IsoDate } from '../time/date.ts';
@@ -30,22 +31,33 @@ export interface SpreadPoint {
  * marketDate (unadjusted). The curves share the valuation date (named curves of one document do);
  * a date either curve cannot read (before settlement, beyond a curve that does not extrapolate) is
  * left out. Units: rates are decimals per year, the spread bp.
+ * `sinks` (explanations, curve/explainSpread.ts): each curve's query is handed its sink, so after
+ * the call they hold the last date's two explanations; without them nothing is recorded.
  */
-export function curveSpreadAt(a: Curve, b: Curve, measure: SpreadMeasure, dates: readonly IsoDate[], c: Compounding, dc: CurveDayCount, tenor: Tenor): SpreadPoint[] {
+export function curveSpreadAt(
+  a: Curve,
+  b: Curve,
+  measure: SpreadMeasure,
+  dates: readonly IsoDate[],
+  c: Compounding,
+  dc: CurveDayCount,
+  tenor: Tenor,
+  sinks?: { readonly a: ExplanationSink; readonly b: ExplanationSink },
+): SpreadPoint[] {
   const out: SpreadPoint[] = [];
   for (const date of dates) {
     let ra: number;
     let rb: number;
     if (measure === 'zero') {
-      const za = zeroOn(a, date, c, dc);
-      const zb = zeroOn(b, date, c, dc);
+      const za = zeroOn(a, date, c, dc, 'date', sinks?.a);
+      const zb = zeroOn(b, date, c, dc, 'date', sinks?.b);
       if (!za.ok || !zb.ok) continue;
       ra = za.value.zero;
       rb = zb.value.zero;
     } else {
       const end = marketDate(date, tenor);
-      const fa = forwardOn(a, date, end, c, dc);
-      const fb = forwardOn(b, date, end, c, dc);
+      const fa = forwardOn(a, date, end, c, dc, 'forward', sinks?.a);
+      const fb = forwardOn(b, date, end, c, dc, 'forward', sinks?.b);
       if (!fa.ok || !fb.ok) continue;
       ra = fa.value.rate;
       rb = fb.value.rate;

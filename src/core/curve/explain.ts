@@ -28,7 +28,11 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
   /** A figure of a bond off the curve (analytics/explainBond.ts). */
   | 'bond-figure'
   /** A meeting's implied step on the overnight curve (curve/explainMeetingStep.ts). */
-  | 'meeting-step';
+  | 'meeting-step'
+  /** The spread between two curves' zero rates or forwards (curve/explainSpread.ts). */
+  | 'curve-spread'
+  /** A forward's sensitivity to one quote, bp per bp (analytics/explainRisk.ts). */
+  | 'forward-sensitivity';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
@@ -66,6 +70,8 @@ export interface ExplainedNode {
   readonly discount: number;
   /** Index of the quote (document order) that set this node; null for settlement (DF = 1). */
   readonly quote: number | null;
+  /** The curve whose quote it is, when an explanation reads more than one curve (a spread's). */
+  readonly curve?: string;
 }
 
 /** How a discount factor was read off the curve. */

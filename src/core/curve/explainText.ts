@@ -22,8 +22,8 @@ export interface ExplainedMethodLine {
 export interface ExplanationTextExtras {
   /** What the number is (`2Y zero rate`). */
   readonly title: string;
-  /** How a quote index reads (`row 3`); default `quote N`. */
-  readonly quoteLabel?: (index: number) => string;
+  /** How a quote index reads (`row 3`); default `quote N`. `curve`: the node's curve, when the explanation names one. */
+  readonly quoteLabel?: (index: number, curve?: string) => string;
   readonly topQuotes?: readonly ExplainedQuoteLine[];
   /** What the sensitivities are of (when not the number itself), or why there are none. */
   readonly topQuotesNote?: string;
@@ -33,16 +33,16 @@ export interface ExplanationTextExtras {
 /** Full precision: the shortest decimal text that reads back as the same double. */
 export const fullText = (x: number): string => (Object.is(x, -0) ? '0' : String(x));
 
-const nodeText = (n: ExplainedNode, quoteLabel: (i: number) => string): string =>
-  `${n.date} (t = ${fullText(n.t)}, DF = ${fullText(n.discount)}, ln DF = ${fullText(n.lnDiscount)}, ${n.quote === null ? 'valuation date' : quoteLabel(n.quote)})`;
+const nodeText = (n: ExplainedNode, quoteLabel: (i: number, curve?: string) => string): string =>
+  `${n.date} (t = ${fullText(n.t)}, DF = ${fullText(n.discount)}, ln DF = ${fullText(n.lnDiscount)}, ${n.quote === null ? 'valuation date' : quoteLabel(n.quote, n.curve)})`;
 
 /** How a read came off the curve, in one line. */
-function readHowText(r: ExplainedRead, quoteLabel: (i: number) => string = (i) => `quote ${i}`): string {
+function readHowText(r: ExplainedRead, quoteLabel: (i: number, curve?: string) => string = (i) => `quote ${i}`): string {
   switch (r.how) {
     case 'settlement':
       return 'the valuation date: DF = 1';
     case 'node':
-      return `a node of the curve, set by ${r.nodes[0]!.quote === null ? 'the valuation date' : quoteLabel(r.nodes[0]!.quote)}`;
+      return `a node of the curve, set by ${r.nodes[0]!.quote === null ? 'the valuation date' : quoteLabel(r.nodes[0]!.quote, r.nodes[0]!.curve)}`;
     case 'interpolated':
       return `interpolated (${r.method}) between ${nodeText(r.nodes[0]!, quoteLabel)} and ${nodeText(r.nodes[1]!, quoteLabel)}`;
     case 'extrapolated':
@@ -63,7 +63,7 @@ export interface ExplanationSection {
  * value under each method, as lines with every number in full precision.
  */
 export function explanationSections(e: Explanation, extras: Omit<ExplanationTextExtras, 'title'> = {}): ExplanationSection[] {
-  const q = extras.quoteLabel ?? ((i: number) => `quote ${i}`);
+  const q = extras.quoteLabel ?? ((i: number, curve?: string) => `quote ${i}${curve === undefined ? '' : ` of ${curve}`}`);
   const c = e.conventions;
   const inputs: string[] = [];
   for (const d of e.dates) inputs.push(`${d.name}: given ${d.given}; unadjusted ${d.unadjusted}; adjusted ${d.adjusted} (rule: ${d.rule})`);

@@ -7,6 +7,8 @@ import { BASE_STYLES } from '../../charts/palette.ts';
 import { setViewValues } from '../../state/viewValues.ts';
 import { useAppStore } from '../../state/store.ts';
 import { curveChoice, DEFAULT_NAME, VIEW_KEYS } from './curveChoice.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
+import type { SpreadCell } from './explainSpreadCell.ts';
 
 /** The maturities the spread table reads, from the valuation date. */
 const SPREAD_TENORS = ['3M', '6M', '1Y', '2Y', '3Y', '5Y', '7Y', '10Y', '15Y', '20Y', '30Y'] as const;
@@ -63,6 +65,14 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
     </select>
   );
   const missing = rows.filter((r) => r.point === null).length;
+  // A spread figure opens its explanation beside the table; the open one follows the curves as they are now.
+  const explain = useExplainOpener<SpreadCell>((x, y) => x.spread.of === y.spread.of && x.spread.over === y.spread.over && x.spread.measure === y.spread.measure && x.spread.tenor === y.spread.tenor);
+  const cellAt = (t: string): SpreadCell => ({ spread: { of: choice.of, over: choice.over, measure: choice.measure, tenor: t, named, inputs: useAppStore.getState().workspace } });
+  const open = explain.open;
+  const openCell = useMemo(
+    () => (open && open.spread.of === choice.of && open.spread.over === choice.over && open.spread.measure === choice.measure ? { spread: { ...open.spread, named, inputs: useAppStore.getState().workspace } } : null),
+    [open, named, choice.of, choice.over, choice.measure],
+  );
   return (
     <section className="panel spread-panel" aria-labelledby={`${id}-title`}>
       <div className="panel-head">
@@ -118,12 +128,17 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
                       <td>{formatDate(r.date)}</td>
                       <td>{formatPercent(r.point!.a)}</td>
                       <td>{formatPercent(r.point!.b)}</td>
-                      <td>{bpFigure(r.point!.bp)}</td>
+                      <td>
+                        <button type="button" className="cell-explain" aria-label={`${bpFigure(r.point!.bp)} bp: explain the spread at ${r.tenor}`} aria-expanded={openCell !== null && explain.isOpen(cellAt(r.tenor))} onClick={(e) => explain.toggle(e, cellAt(r.tenor))}>
+                          {bpFigure(r.point!.bp)}
+                        </button>
+                      </td>
                     </tr>
                   ))}
               </tbody>
             </table>
           </div>
+          <OpenExplanation result={result} display={display} cell={openCell} onClose={explain.close} />
           <p className="muted small">
             Spread = {label(choice.of)} minus {label(choice.over)}, each {what} in {tag} from the valuation date{choice.measure === 'forward' ? ` (a forward starts at the maturity and runs ${display.forwardTenor})` : ''}; the compounding and day count are the display's.
             {missing > 0 ? ` ${missing} ${missing === 1 ? 'maturity lies' : 'maturities lie'} past a curve's last pillar and ${missing === 1 ? 'is' : 'are'} not shown.` : ''}

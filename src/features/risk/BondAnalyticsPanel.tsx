@@ -24,6 +24,7 @@ import {
   bondFigureValue,
   type BondFigure,
   type BondSide,
+  type ShiftFigure,
 } from '../../core/index.ts';
 import { rowNumber } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
@@ -104,11 +105,12 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
   // The open explanation is of the bond in the form: another bond in the form closes it (the table's figures changed).
   const openCell = explain.open && bondInput && explain.isOpen({ bond: { ...explain.open.bond, input: bondInput } }) ? explain.open : null;
   /** A figure, as a button that explains it when the build is at hand. */
-  const fig = (figure: BondFigure, side: BondSide, text: string): ReactNode => {
+  const fig = (figure: BondFigure | ShiftFigure, side: BondSide, text: string, key?: number): ReactNode => {
     if (!build || !bondInput || text === NO_VALUE) return text;
-    const cell: BondCell = { bond: { input: bondInput, figure, side } };
+    const cell: BondCell = { bond: { input: bondInput, figure, side, ...(key === undefined ? {} : { key }) } };
+    const words = figure === 'effectiveDuration' ? 'effective duration' : figure === 'keyRateDuration' ? `${DEFAULT_KEY_TENORS[key!]} key-rate duration` : BOND_FIGURE_WORDS[figure];
     return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${side === 'market' && figure !== 'accrued' ? 'market ' : ''}${BOND_FIGURE_WORDS[figure]}`} aria-expanded={openCell !== null && explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${side === 'market' && figure !== 'accrued' ? 'market ' : ''}${words}`} aria-expanded={openCell !== null && explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
         {text}
       </button>
     );
@@ -171,11 +173,11 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
               <Row label="Macaulay duration (1 + y/f) × modified" {...pair('macaulayDuration', (x) => formatNumber(x, 4))} unit="years" />
               <Row label="Convexity (1/P) d²P/dy²" {...pair('convexity', (x) => formatNumber(x, 3))} unit="years²" />
               <Row label="DV01 −dP/dy × 1e−4" {...pair('dv01', (x) => formatNumber(x, 5))} unit="per 100 face per bp of yield" />
-              <Row label="Effective duration (parallel zero shift)" model={formatNumber(result.value.effectiveDuration, 4)} market={result.value.market && NO_VALUE} unit={`years, shift of the ${zTag} zero`} />
+              <Row label="Effective duration (parallel zero shift)" model={fig('effectiveDuration', 'model', formatNumber(result.value.effectiveDuration, 4))} market={result.value.market && NO_VALUE} unit={`years, shift of the ${zTag} zero`} />
               {result.value.market && <Row label="Z-spread" model={bpFigure(0)} market={fig('zSpread', 'market', bpFigure(result.value.market.zSpread * 1e4))} unit={`bp, ${zTag}`} />}
             </tbody>
           </table>
-          {build && <OpenExplanation result={build} display={display} cell={openCell} onClose={explain.close} />}
+          {build && <OpenExplanation result={build} display={display} cell={openCell?.bond.figure === 'keyRateDuration' ? null : openCell} onClose={explain.close} />}
           </div>
           <table className="data" aria-label="Key-rate durations">
             <caption>
@@ -184,9 +186,10 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
               {formatNumber(result.value.keyRateDurations.reduce((s, k) => s + k.duration, 0), 4)} years = effective duration.
             </caption>
             <thead><tr>{result.value.keyRateDurations.map((k) => <th key={k.tenor} scope="col">{k.tenor}</th>)}</tr></thead>
-            <tbody><tr>{result.value.keyRateDurations.map((k) => <td key={k.tenor} className="n" data-key={k.tenor}>{formatNumber(k.duration, 4)}</td>)}</tr></tbody>
+            <tbody><tr>{result.value.keyRateDurations.map((k, i) => <td key={k.tenor} className="n" data-key={k.tenor}>{fig('keyRateDuration', 'model', formatNumber(k.duration, 4), i)}</td>)}</tr></tbody>
             <tfoot><tr><td colSpan={result.value.keyRateDurations.length} className="muted">years per unit of the zero shift</td></tr></tfoot>
           </table>
+          {build && openCell?.bond.figure === 'keyRateDuration' && <OpenExplanation result={build} display={display} cell={openCell} onClose={explain.close} />}
           {perQuote && perQuote.ok && (
             <table className="data" aria-label="DV01 to each quote">
               <caption>DV01 to each input quote: each quote moved by ±1 bp through its own yield and the curve rebuilt (per 100 face per bp)</caption>

@@ -1,6 +1,10 @@
 import { useMemo, useState } from 'react';
 import { INTERPOLATIONS, INTERPOLATORS, parseTenor, sensitivityMapFor, type InterpolationId, type Workspace, formatPercent, nearZero, rateTag } from '../../core/index.ts';
 import { rowNumber } from '../../components/format.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { useAppStore } from '../../state/store.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
+import type { SensitivityCell } from './explainSensitivityCell.ts';
 
 export interface SensitivityHeatMapProps {
   /** The validated workspace whose enabled quotes build the curve (null: nothing yet). */
@@ -14,6 +18,8 @@ export interface SensitivityHeatMapProps {
   readonly rowOfQuote?: readonly number[];
   /** Called when the user changes the interpolation, tenor or step (to keep the choice in the workspace view). */
   readonly onSettingsChange?: (settings: { interpolation: InterpolationId; tenor: string; step: string }) => void;
+  /** The workbench's build: with it, each cell is a button that opens its explanation beside the map. */
+  readonly result?: WorkbenchBuild;
 }
 
 const TENORS = ['1M', '3M', '6M', '1Y'];
@@ -37,7 +43,7 @@ function cellColour(v: number, scale: number): string {
  * (computed from the bootstrap). Switching the interpolation shows which methods keep a quote's
  * influence local.
  */
-export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', step = '1Y', rowOfQuote, onSettingsChange }: SensitivityHeatMapProps) {
+export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', step = '1Y', rowOfQuote, onSettingsChange, result }: SensitivityHeatMapProps) {
   const [method, setMethodState] = useState<InterpolationId>(interpolation ?? workspace?.curve.interpolation ?? 'monotone-convex');
   const [fwdTenor, setTenorState] = useState(tenor);
   const [fwdStep, setStepState] = useState(step);
@@ -68,6 +74,15 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
     return m;
   }, [out]);
 
+  // A cell opens its explanation; the open one follows the workspace, and closes when the map's settings change.
+  const display = useAppStore((st) => st.workspace.display);
+  const explain = useExplainOpener<SensitivityCell>((a, b) => a.sensitivity.start === b.sensitivity.start && a.sensitivity.quote === b.sensitivity.quote);
+  const open = explain.open?.sensitivity;
+  const cellAt = (start: string, quote: number): SensitivityCell | null => (workspace ? { sensitivity: { workspace, interpolation: method, tenor: fwdTenor, step: fwdStep, start, quote } } : null);
+  const openCell = useMemo(
+    () => (open && workspace && open.interpolation === method && open.tenor === fwdTenor && open.step === fwdStep ? { sensitivity: { ...open, workspace } } : null),
+    [open, workspace, method, fwdTenor, fwdStep],
+  );
   return (
     <section className="panel sensitivity-panel" aria-label="Which quote drives each forward">
       <h2>Which quote drives each forward</h2>
@@ -133,7 +148,13 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
                         title={shown.title}
                         aria-label={`${r.start} forward to row ${rowNumber(rowOfQuote, c.index)}: ${nearZero(v, 3, 'bp per bp').text} bp per bp`}
                       >
-                        {shown.text}
+                        {result && cellAt(r.start, c.index) ? (
+                          <button type="button" className="cell-explain" aria-label={`${shown.text}: explain the ${r.start} forward's sensitivity to row ${rowNumber(rowOfQuote, c.index)}`} aria-expanded={openCell !== null && explain.isOpen(cellAt(r.start, c.index)!)} onClick={(e) => explain.toggle(e, cellAt(r.start, c.index)!)}>
+                            {shown.text}
+                          </button>
+                        ) : (
+                          shown.text
+                        )}
                       </td>
                     );
                   })}
@@ -143,6 +164,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
           </table>
         </div>
       )}
+      {result && <OpenExplanation result={result} display={display} cell={openCell} onClose={explain.close} />}
     </section>
   );
 }

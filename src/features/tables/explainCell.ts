@@ -37,9 +37,13 @@ import { explainRollCell, type RollCell } from '../roll/explainRollCell.ts';
 import { applyToShown } from '../scenarios/applyShown.ts';
 import { explainBondCell, type BondCell } from '../risk/explainBondCell.ts';
 import { explainDifferenceCell, explainReferenceCell, type DifferenceCell, type ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
+import { explainSpreadCell, type SpreadCell } from '../namedCurves/explainSpreadCell.ts';
+import { explainSensitivityCell, type SensitivityCell } from '../risk/explainSensitivityCell.ts';
 
 export type { BondCell } from '../risk/explainBondCell.ts';
 export type { DifferenceCell, ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
+export type { SpreadCell } from '../namedCurves/explainSpreadCell.ts';
+export type { SensitivityCell } from '../risk/explainSensitivityCell.ts';
 
 /** The key-maturity cells that explain themselves. */
 export type KeyField = 'discount' | 'zero' | 'par' | 'forward';
@@ -88,7 +92,7 @@ export interface StepCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell | ReferenceCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell | ReferenceCell | SpreadCell | SensitivityCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -131,6 +135,8 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('step' in cell) return explainStepCell(result, cell.step);
   if ('difference' in cell) return explainDifferenceCell(result, cell.difference);
   if ('reference' in cell) return explainReferenceCell(result, cell.reference);
+  if ('spread' in cell) return explainSpreadCell(result, display, cell.spread);
+  if ('sensitivity' in cell) return explainSensitivityCell(result, cell.sensitivity);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;
@@ -183,21 +189,26 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   return cellOf(result, title, explanation, influences, quotesNote, methods);
 }
 
-export type Influences = Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number }[]>;
+export type Influences = Result<readonly { index: number; kind: string; maturity: string; yieldLabel: string; bpPerBp: number; curve?: string }[]>;
 
 /**
  * A cell's explanation as the panel and Copy as text show it: the quotes behind it, each by its
  * sheet row (`note` says what their sensitivities are of; their error, when there are none), and
- * the number under each method (none listed when not given).
+ * the number under each method (none listed when not given). When the number reads more than one
+ * curve, a quote or node of a curve other than `own` (the name of the sheet's curve there) is named
+ * by its curve and position instead of a row.
  */
-export function cellOf(result: WorkbenchBuild, title: string, explanation: Explanation, influences: Influences, note: string | null, methods: readonly MethodValue[]): Result<CellExplanation> {
-  const rowOf = (index: number): number | null => result.conversion.rowOfQuote[index] ?? null;
+export function cellOf(result: WorkbenchBuild, title: string, explanation: Explanation, influences: Influences, note: string | null, methods: readonly MethodValue[], own?: string): Result<CellExplanation> {
+  const mine = (curve?: string): boolean => curve === undefined || curve === own;
+  const rowOf = (index: number, curve?: string): number | null => (mine(curve) ? result.conversion.rowOfQuote[index] ?? null : null);
+  const quoteLabel = (index: number, curve?: string): string => (mine(curve) ? rowWords(rowOf(index)) : `${curve} quote ${index + 1}`);
   const quotesNote = influences.ok ? note : influences.errors[0]!.message;
-  const quotes = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index), kind: q.kind, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp }));
+  const listed = (influences.ok ? influences.value : []).map((q) => ({ row: rowOf(q.index, q.curve), kind: mine(q.curve) ? q.kind : `${quoteLabel(q.index, q.curve)}, ${q.kind}`, maturity: q.maturity, yieldLabel: q.yieldLabel, bpPerBp: q.bpPerBp, at: `${quoteLabel(q.index, q.curve)}, ${q.kind}` }));
+  const quotes = listed.map(({ at: _, ...q }) => q);
   const extras = {
     title,
-    quoteLabel: (index: number) => rowWords(rowOf(index)),
-    topQuotes: quotes.map((q) => ({ label: `${rowWords(q.row)}, ${q.kind} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
+    quoteLabel,
+    topQuotes: listed.map((q) => ({ label: `${q.at} ${q.maturity}, moved through its ${q.yieldLabel}`, bpPerBp: q.bpPerBp })),
     ...(quotesNote === null ? {} : { topQuotesNote: quotesNote }),
     ...(methods.length > 0 ? { methods } : {}),
   };
