@@ -73,7 +73,7 @@ export function topParQuoteInfluences(
   count = 5,
 ): Result<QuoteInfluence[]> {
   const n = instruments.length;
-  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve has ${nodeCount(curve)} pillars and solved turn spreads but ${n} quotes were given; pass the quotes the curve was built from`));
+  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
   if (compareIso(end, start) <= 0) return fail(coreError('empty-period', 'end', `${start} to ${end} is an empty period; the end must come after the start`));
   const df = (t: number): number => Math.exp(curve.lnDiscountAt(t));
   const periods = fixedLegPeriods(start, end, frequency, dc, eom);
@@ -106,7 +106,7 @@ export function topParQuoteInfluences(
  */
 export function topInfluencesOfLn(curve: Curve, instruments: readonly Instrument[], times: readonly number[], weights: readonly number[], count = 5): Result<QuoteInfluence[]> {
   const n = instruments.length;
-  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve has ${nodeCount(curve)} pillars and solved turn spreads but ${n} quotes were given; pass the quotes the curve was built from`));
+  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
   const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, times);
   const lu = luFactor(jacobian, n);
   if (!lu) return fail(coreError('no-solution', 'quotes', 'the quotes do not determine the curve nodes one to one (a singular Jacobian); check for quotes that repeat the same information'));

@@ -179,7 +179,7 @@ export function forwardSensitivities(
 ): Result<ForwardSensitivityMap> {
   const n = instruments.length;
   if (n !== nodeCount(curve)) {
-    return fail(coreError('schema', 'quotes', `the curve has ${nodeCount(curve)} pillars and solved turn spreads but ${n} quotes were given; pass the quotes the curve was built from`));
+    return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
   }
   const extra = rows.flatMap((r) => [r.tStart, r.tEnd]);
   const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, extra);

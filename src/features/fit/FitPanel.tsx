@@ -111,9 +111,9 @@ export function FitPanel(props: FitPanelProps) {
         {model === 'svensson' ? `, τ2 ≥ ${TAU_RATIO_MIN} × τ1` : ''}; b0 may be negative.
       </p>
       {(turns?.length || props.steps) && (
-        <p className="muted small" data-field="fit-overnight">
-          {turns?.length ? `A smooth form has no jump: the fit is the form times the ${turns.length === 1 ? 'turn' : `${turns.length} turns`} of the curve shown, at ${turns.length === 1 ? 'its spread' : 'their spreads'} as built (${turns.map((t) => `${t.name} ${bpFigure(t.spread * 1e4)} bp`).join(', ')}; overnight, simple ACT/360), so the form fits the quotes with the turns taken out. ` : ''}
-          {props.steps ? 'Meeting steps are not in the fit: the form stays smooth through the meeting dates (the exact bootstrap has the steps).' : ''}
+        <p className="muted small">
+          {turns?.length ? `A smooth form has no jump: it is fitted with the turns of the curve shown taken out, at their spreads as built (${turns.map((t) => `${t.name} ${bpFigure(t.spread * 1e4)} bp`).join(', ')}; overnight, simple ACT/360). ` : ''}
+          {props.steps ? 'Meeting steps are not in the fit.' : ''}
         </p>
       )}
       {!ws && <p role="status">No valid workspace to fit yet.</p>}
