@@ -184,7 +184,7 @@ export function BondAnalyticsPanel({ curve, build: built = null, initial, onForm
           </table>
           {perQuote && perQuote.ok && (
             <table className="data" aria-label="DV01 to each quote">
-              <caption>DV01 to each input quote: each quote moved by ±1 bp through its own yield and the curve shown rebuilt, turns and meeting steps included (per 100 face per bp)</caption>
+              <caption>DV01 to each input quote: each quote moved by ±1 bp through its own yield and the curve rebuilt, turns and steps included (per 100 face per bp)</caption>
               <thead><tr><th scope="col">Row</th><th scope="col">Maturity</th><th scope="col">Moved through</th><th scope="col">DV01 (per 100 face per bp)</th></tr></thead>
               <tbody>
                 {perQuote.value.map((q) => (

@@ -98,7 +98,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
       {out && !out.ok && <p role="alert" className="error">{out.errors.map((e) => e.message).join('; ')}</p>}
       {out && out.ok && (
         <p className="muted small">
-          How far each forward moves when one quote moves 1 bp (a price quote moved through its own yield), computed from the bootstrap, turns and meeting steps included (a solved turn moves with its quote). Blue: the forward
+          How far each forward moves when one quote moves 1 bp (a price quote moved through its own yield), computed from the bootstrap, turns and meeting steps included. Blue: the forward
           rises with the quote; orange: it falls. Figures below 0.005 bp per bp show as 0.00; the exact figure is in each cell&rsquo;s tooltip.
         </p>
       )}
