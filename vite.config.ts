@@ -55,7 +55,7 @@ const CSP = [
  * The UI imports the core through its index, so every core module is "reached" from the entry;
  * LATER_ONLY names those the first screen never runs: money in decimal.js, the roll analysis, the
  * smooth fit, the quote check's schedules, the explanations, the scenarios' reference reader and change table, the
- * overnight view, the bond analytics, the workspace list file, the code of turns and steps (fetched
+ * overnight view, the bond analytics and forward sensitivities (the risk section and the explanations), the workspace list file, the code of turns and steps (fetched
  * by src/hooks/overnightKit.ts), and the named curves' build (the term-index swap, the workbench's
  * named-curve build, the spread between two curves and the edits of named curves). Four small readers used only later stay in
  * `first` on purpose: the Holidays and Fixings sections' (calendarEdits, fixingList), the paste's
@@ -65,7 +65,7 @@ const CSP = [
  * imported by `first` and the first-load budget test (test/browser/security.test.ts) would fail; a
  * core module used only later and missing here costs first-load bytes, nothing else.
  */
-const LATER_ONLY = /node_modules\/decimal\.js\/|src\/core\/roll\/|src\/core\/fit\/(?!parametricForm)|src\/core\/input\/quoteSchedule\.ts|src\/core\/curve\/explain|src\/core\/analytics\/(explainRisk|explainBond|crossCurveSensitivity)\.ts|src\/core\/scenarios\/(scenarioReference|scenarioEffects|namedCurveScenario)\.ts|src\/core\/curve\/overnightView\.ts|src\/core\/analytics\/(bondInput|bondAnalytics|zSpread|quoteDv01|sensitivityMap)\.ts|src\/core\/document\/(listFile|namedCurveEdits)\.ts|src\/core\/bootstrap\/namedCurveBuild\.ts|src\/core\/instruments\/projectedSwap\.ts|src\/core\/bootstrap\/workbenchCurves\.ts|src\/core\/curve\/curveSpread\.ts|src\/core\/bootstrap\/(overnightKit|turns|turnSolve|meetingSteps)\.ts|src\/core\/time\/turnDays\.ts/;
+const LATER_ONLY = /node_modules\/decimal\.js\/|src\/core\/roll\/|src\/core\/fit\/(?!parametricForm)|src\/core\/input\/quoteSchedule\.ts|src\/core\/curve\/explain|src\/core\/analytics\/(explainRisk|explainBond|crossCurveSensitivity|forwardSensitivity|nodePartials|quoteYield)\.ts|src\/core\/scenarios\/(scenarioReference|scenarioEffects|namedCurveScenario)\.ts|src\/core\/curve\/overnightView\.ts|src\/core\/analytics\/(bondInput|bondAnalytics|zSpread|quoteDv01|sensitivityMap)\.ts|src\/core\/document\/(listFile|namedCurveEdits)\.ts|src\/core\/bootstrap\/namedCurveBuild\.ts|src\/core\/instruments\/projectedSwap\.ts|src\/core\/bootstrap\/workbenchCurves\.ts|src\/core\/curve\/curveSpread\.ts|src\/core\/bootstrap\/(overnightKit|turns|turnSolve|meetingSteps)\.ts|src\/core\/time\/turnDays\.ts/;
 
 function appChunk(id: string, ctx: { getModuleInfo(id: string): { isEntry: boolean; importers: readonly string[]; dynamicImporters: readonly string[] } | null }): string | null {
   if (LATER_ONLY.test(id)) return 'later';

@@ -95,7 +95,7 @@ const risk = deferredPanel('bond and sensitivities', () =>
     ({ BondAnalyticsPanel, SensitivityHeatMap }) =>
       ({ result }: PanelProps) => (
         <div className="stack">
-          <BondAnalyticsPanel curve={result.build.curve} workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} result={result} />
+          <BondAnalyticsPanel curve={result.build.curve} build={result.build} rowOfQuote={result.conversion.rowOfQuote} result={result} />
           <SensitivityHeatMap workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} result={result} />
         </div>
       ),

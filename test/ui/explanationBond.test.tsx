@@ -31,7 +31,7 @@ function renderPanel() {
   render(
     <BondAnalyticsPanel
       curve={curve}
-      workspace={result.build.workspace}
+      build={result.build}
       rowOfQuote={result.conversion.rowOfQuote}
       result={result}
       initial={{ maturity: input.maturity, coupon: '4', quoteKind: 'price', quote: '99.5' }}

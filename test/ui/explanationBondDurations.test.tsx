@@ -25,7 +25,7 @@ function renderPanel() {
   const result = deriveBuild(useAppStore.getState().workspace); // the workbench's starting (invented demo) market
   const curve = result.build.curve!;
   const input = { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA' as const };
-  render(<BondAnalyticsPanel curve={curve} workspace={result.build.workspace} rowOfQuote={result.conversion.rowOfQuote} result={result} initial={{ maturity: input.maturity, coupon: '4' }} />);
+  render(<BondAnalyticsPanel curve={curve} build={result.build} rowOfQuote={result.conversion.rowOfQuote} result={result} initial={{ maturity: input.maturity, coupon: '4' }} />);
   const a = analyzeBond(curve, input);
   if (!a.ok) throw new Error(a.errors[0]!.message);
   return a.value;

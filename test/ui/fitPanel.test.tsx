@@ -18,8 +18,9 @@ describe('FitPanel', () => {
     render(<FitPanel workspace={ws} />);
     const panel = screen.getByRole('region', { name: 'Smooth fit' });
     expect(within(panel).getByRole('status')).toHaveTextContent(/Nelson-Siegel fit converged/);
-    // fitCurve works on the quotes without turns and meeting steps: said on screen.
-    expect(panel).toHaveTextContent('Turns and meeting steps are left out.');
+    // No turns or meeting steps in this workspace: no note on them (test/ui/fitTurns.test.tsx shows it with both).
+    expect(panel).not.toHaveTextContent('A smooth form has no jump');
+    expect(panel).not.toHaveTextContent('Meeting steps are not in the fit');
     const params = within(panel).getByRole('table', { name: 'Fitted parameters' });
     expect(params).toHaveTextContent('τ1 (years)');
     expect(params).toHaveTextContent('cont, ACT/365F');

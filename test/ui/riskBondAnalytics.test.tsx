@@ -17,7 +17,7 @@ const curve = build.curve!;
 
 describe('BondAnalyticsPanel', () => {
   it('shows the core figures with units, the key-rate grid and its bump, and the DV01 per quote', () => {
-    render(<BondAnalyticsPanel curve={curve} workspace={build.workspace} initial={{ maturity: '2034-05-15', coupon: '4', quoteKind: 'price', quote: '101.25' }} />);
+    render(<BondAnalyticsPanel curve={curve} build={build} initial={{ maturity: '2034-05-15', coupon: '4', quoteKind: 'price', quote: '101.25' }} />);
     const table = screen.getByRole('table', { name: 'Bond analytics' });
     const expected = analyzeBond(curve, { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA', cleanPrice: 101.25 });
     if (!expected.ok) throw new Error('analytics');
@@ -57,7 +57,7 @@ describe('BondAnalyticsPanel', () => {
     expect(screen.getByRole('alert')).toHaveTextContent(/beyond the curve's last pillar/);
   });
   it('has no accessibility violations found by axe-core (WCAG 2 A and AA rules; colour contrast needs a real renderer)', async () => {
-    const { container } = render(<BondAnalyticsPanel curve={curve} workspace={build.workspace} initial={{ quoteKind: 'yield', quote: '4.1' }} />);
+    const { container } = render(<BondAnalyticsPanel curve={curve} build={build} initial={{ quoteKind: 'yield', quote: '4.1' }} />);
     const result = await axe.run(container, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
     expect(result.violations.map((v) => `${v.id}: ${v.nodes.length} nodes, e.g. ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
   });
@@ -67,7 +67,7 @@ describe('BondAnalyticsPanel market price', () => {
   // 32nds: points and 32nds of a point (102-05 is 102 5/32), common practice for US Treasury prices;
   // the sheet reads the same text with parsePriceText.
   it('takes a clean price in 32nds (102-05 = 102.15625) as the sheet does', () => {
-    render(<BondAnalyticsPanel curve={curve} workspace={build.workspace} initial={{ maturity: '2034-05-15', coupon: '4', quoteKind: 'price', quote: '102-05' }} />);
+    render(<BondAnalyticsPanel curve={curve} build={build} initial={{ maturity: '2034-05-15', coupon: '4', quoteKind: 'price', quote: '102-05' }} />);
     const expected = analyzeBond(curve, { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA', cleanPrice: 102.15625 });
     if (!expected.ok) throw new Error('analytics');
     expect(screen.queryByRole('alert')).toBeNull();

@@ -19,8 +19,8 @@ describe('SensitivityHeatMap', () => {
     const table = screen.getByRole('table', { name: 'Forward sensitivities' });
     expect(table).toHaveTextContent('bp of forward per bp of quote');
     expect(table).toHaveTextContent('simple, ACT/365F');
-    // The map is computed without turns and meeting steps (bootstrapInstruments with plain settings): said on screen.
-    expect(screen.getByText(/computed from the bootstrap without turns and meeting steps/)).toBeTruthy();
+    // The map is of the curve shown, turns and meeting steps included (test/ui/riskTurnsAndSteps.test.tsx): said on screen.
+    expect(screen.getByText(/computed from the bootstrap, turns and meeting steps included/)).toBeTruthy();
     const rows = within(table).getAllByRole('row');
     expect(rows.length).toBe(1 + 10); // 3M forwards starting 0Y..9Y end by the 10Y pillar
     const cell = () => within(table).getByLabelText(/^2028-03-10 forward to row 5:/);

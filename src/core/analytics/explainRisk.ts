@@ -9,6 +9,7 @@ import { queryYearFraction, type CurveDayCount, type DayCount } from '../time/da
 import { forwardSensitivities, quoteNodeJacobian, type ForwardRow, type SensitivityTrace } from './forwardSensitivity.ts';
 import { explainedConventions, explainedYearFraction, explainRead, LN_UNIT, rateUnit, type ExplainedStep, type Explanation } from '../curve/explain.ts';
 import { periodsPerYear } from '../rates/compounding.ts';
+import { nodeCount } from './nodePartials.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 
@@ -74,7 +75,7 @@ export function topParQuoteInfluences(
   count = 5,
 ): Result<QuoteInfluence[]> {
   const n = instruments.length;
-  if (n !== curve.pillars.length) return fail(coreError('schema', 'quotes', `the curve has ${curve.pillars.length} pillars but ${n} quotes were given; pass the quotes the curve was built from`));
+  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
   if (compareIso(end, start) <= 0) return fail(coreError('empty-period', 'end', `${start} to ${end} is an empty period; the end must come after the start`));
   const df = (t: number): number => Math.exp(curve.lnDiscountAt(t));
   const periods = fixedLegPeriods(start, end, frequency, dc, eom);
@@ -107,7 +108,7 @@ export function topParQuoteInfluences(
  */
 export function topInfluencesOfLn(curve: Curve, instruments: readonly Instrument[], times: readonly number[], weights: readonly number[], count = 5): Result<QuoteInfluence[]> {
   const n = instruments.length;
-  if (n !== curve.pillars.length) return fail(coreError('schema', 'quotes', `the curve has ${curve.pillars.length} pillars but ${n} quotes were given; pass the quotes the curve was built from`));
+  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
   const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, times);
   const lu = luFactor(jacobian, n);
   if (!lu) return fail(coreError('no-solution', 'quotes', 'the quotes do not determine the curve nodes one to one (a singular Jacobian); check for quotes that repeat the same information'));

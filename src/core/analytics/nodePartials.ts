@@ -24,6 +24,13 @@ const LINEAR_STEP = 1e-2;
  * sharply near the boundaries of its regions, central differences at h = NODE_PARTIAL_STEP = 1e-7
  * and h/2, Richardson-combined (rounding about 1e-9). No bootstrap is repeated: this is the "dF/dnodes" half of the implicit-function rule.
  *
+ * A curve with turns (`curve.turned`, bootstrap.ts): the nodes are the smooth curve's,
+ * x_j = ln DF(T_j) - ln J(T_j) (the turns' share, turns.ts `turnLn`, moves with no node), which is
+ * what the bootstrap solved; and each turn whose spread was solved from a quote (`solveFrom`) is
+ * one more unknown after the pillars (the quote has no pillar of its own), with
+ * d lnDF(t) / d s = -d(t) / 360, d(t) the turn's days before t. So the columns number
+ * `nodeCount(curve)` = pillars + solved spreads, one per quote the curve was built from.
+ *
  * `spotBridge`: the time of a build's spot bridge (its `spotGap.t`, bootstrap/spotBridge.ts), a
  * node of the interpolation that is no pillar, tied to the first pillar's node by
  * ln DF(t_s) = (t_s / t_1) x_1; it is rebuilt with that tie, so it moves with x_1. Without it a
@@ -32,8 +39,11 @@ const LINEAR_STEP = 1e-2;
  */
 export function nodePartials(curve: Curve, times: ArrayLike<number>, spotBridge?: number): Float64Array {
   const n = curve.pillars.length;
+  const turned = curve.turned;
+  const solved = solvedSpans(curve);
+  const cols = n + solved.length;
   const m = times.length;
-  const out = new Float64Array(m * n);
+  const out = new Float64Array(m * cols);
   const first = curve.pillars[0]?.t ?? 0;
   const bridge = spotBridge !== undefined && spotBridge > 0 && spotBridge < first ? spotBridge / first : null;
   const shift = bridge === null ? 0 : 1;
@@ -41,7 +51,7 @@ export function nodePartials(curve: Curve, times: ArrayLike<number>, spotBridge?
   const ys = new Float64Array(n + 1 + shift);
   curve.pillars.forEach((p, i) => {
     ts[i + 1 + shift] = p.t;
-    ys[i + 1 + shift] = Math.log(p.discount);
+    ys[i + 1 + shift] = Math.log(p.discount) - (turned ? turned.lnAt(turned.spans, p.t) : 0);
   });
   if (bridge !== null) (ts[1] = spotBridge!), (ys[1] = bridge * ys[2]!);
   const spec = INTERPOLATORS[curve.interpolation];
@@ -72,7 +82,18 @@ export function nodePartials(curve: Curve, times: ArrayLike<number>, spotBridge?
   for (let j = 1; j <= n; j++) {
     central(j, h, a);
     if (!linear) central(j, h / 2, b);
-    for (let k = 0; k < m; k++) out[k * n + (j - 1)] = linear ? a[k]! : (4 * b[k]! - a[k]!) / 3;
+    for (let k = 0; k < m; k++) out[k * cols + (j - 1)] = linear ? a[k]! : (4 * b[k]! - a[k]!) / 3;
   }
+  // A solved spread's column: ln J is linear in the spread, lnJump = -s days / 360.
+  solved.forEach((span, i) => {
+    const unit = [{ ...span, lnJump: -span.days / 360 }];
+    for (let k = 0; k < m; k++) out[k * cols + n + i] = turned!.lnAt(unit, times[k]!);
+  });
   return out;
 }
+
+/** The turns of a curve whose spread was solved from a quote (each one more unknown after the pillars). */
+const solvedSpans = (curve: Curve) => curve.turned?.spans.filter((s) => typeof s.solveFrom === 'number') ?? [];
+
+/** The unknowns of a curve's build: its pillars and its solved turn spreads, one per quote it was built from. */
+export const nodeCount = (curve: Curve): number => curve.pillars.length + solvedSpans(curve).length;

@@ -1,10 +1,10 @@
-import { bootstrapInstruments } from '../bootstrap/bootstrap.ts';
-import { compileMarket } from '../bootstrap/build.ts';
+import { buildFromWorkspace } from '../bootstrap/build.ts';
+import type { OvernightKit } from '../bootstrap/overnightKit.ts';
 import type { Curve } from '../curve/curve.ts';
 import type { Instrument } from '../instruments/instrument.ts';
 import type { InterpolationId } from '../interpolation/types.ts';
 import type { Compounding } from '../rates/compounding.ts';
-import { coreError, fail, ok, type Result } from '../result.ts';
+import { ok, type Result } from '../result.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import type { Tenor } from '../time/tenor.ts';
 import type { Workspace } from '../document/types.ts';
@@ -21,6 +21,8 @@ export interface SensitivityMapOptions {
   readonly compounding?: Compounding;
   /** Day count of the forwards (default the curve's). */
   readonly dayCount?: CurveDayCount;
+  /** The code of turns and meeting steps (OVERNIGHT_KIT), needed by a workspace that has them. */
+  readonly overnight?: OvernightKit;
 }
 
 export interface SensitivityMapBuild {
@@ -30,27 +32,20 @@ export interface SensitivityMapBuild {
 }
 
 /**
- * The forward-sensitivity map of a workspace: its enabled, valid quotes bootstrapped with the
- * chosen interpolation, forwards of `tenor` starting every `step`, each forward's sensitivity to
- * each quote in bp per bp (forwardSensitivities).
+ * The forward-sensitivity map of a workspace: its enabled, valid quotes built as the workbench
+ * builds them (buildFromWorkspace, skipping invalid quotes, with the chosen interpolation and, given
+ * `overnight`, the workspace's turns and meeting steps: the curve shown), forwards of `tenor`
+ * starting every `step`, each forward's sensitivity to each quote in bp per bp
+ * (forwardSensitivities, which reads the turns and solved spreads off the curve).
  */
 export function sensitivityMapFor(ws: Workspace, options: SensitivityMapOptions = {}): Result<SensitivityMapBuild> {
-  const market = compileMarket(ws.settlement, ws.curve.dayCount, ws.quotes, true);
-  if (market.errors.length > 0) return { ok: false, errors: market.errors };
-  if (market.instruments.length === 0) return fail(coreError('schema', 'quotes', 'no enabled, valid quote to build a curve from; add at least one quote'));
-  const settings = {
-    settlement: ws.settlement,
-    dayCount: ws.curve.dayCount,
-    interpolation: options.interpolation ?? ws.curve.interpolation,
-    extrapolation: ws.curve.extrapolation,
-  };
-  const built = bootstrapInstruments(settings, market.instruments);
+  const built = buildFromWorkspace(ws, { skipInvalid: true, ...(options.interpolation ? { interpolation: options.interpolation } : {}), ...(options.overnight ? { overnight: options.overnight } : {}) });
   if (!built.curve) return { ok: false, errors: built.errors };
   const c = options.compounding ?? 'simple';
   const dc = options.dayCount ?? ws.curve.dayCount;
   const rows = forwardRows(built.curve, options.tenor ?? { n: 3, unit: 'M' }, options.step ?? { n: 1, unit: 'Y' }, c, dc);
   if (!rows.ok) return rows;
-  const map = forwardSensitivities(built.curve, market.instruments, rows.value, c, dc);
+  const map = forwardSensitivities(built.curve, built.instruments, rows.value, c, dc);
   if (!map.ok) return map;
-  return ok({ map: map.value, curve: built.curve, instruments: market.instruments });
+  return ok({ map: map.value, curve: built.curve, instruments: built.instruments });
 }

@@ -349,11 +349,13 @@ function tableRepricing({ instruments, flows }: BootstrapNodes): Repricing[] {
  */
 function turnedCurve(smooth: Curve, spans: readonly TurnSpan[], kit: OvernightKit): Curve {
   const pillars = smooth.pillars.map((p) => ({ ...p, discount: Math.exp(smooth.lnDiscountAt(p.t) + kit.turnLn(spans, p.t)) }));
-  return curveFromLnDiscount(
+  const curve = curveFromLnDiscount(
     { ...frameOf(smooth), pillars },
     { lnDiscount: (t) => smooth.lnDiscountAt(t) + kit.turnLn(spans, t), forward: (t) => smooth.forwardAt(t) + kit.turnForward(spans, t) },
     'as-given',
   );
+  // The sensitivities take the smooth nodes and each solved spread from here (analytics/nodePartials.ts).
+  return { ...curve, turned: { spans, lnAt: kit.turnLn } };
 }
 
 /** The error of a build asked for turns or steps without their code (overnightKit.ts). */

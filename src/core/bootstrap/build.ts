@@ -43,6 +43,12 @@ export interface CurveBuild extends BootstrapOutcome {
    * bootstraps again does not compile the market a second time.
    */
   readonly instruments: readonly Instrument[];
+  /**
+   * The settings `instruments` were bootstrapped with (turns, meeting dates and their code
+   * included); absent without a curve. A rebuild with moved quotes (the risk section's) passes them
+   * to bootstrapInstruments, so it builds the very curve shown, turns and steps and all.
+   */
+  readonly settings?: BootstrapSettings;
 }
 
 export interface BuildOptions {
@@ -234,6 +240,7 @@ function buildFromMarket(ws: Workspace, options: BuildOptions, invalid: readonly
     warnings: outcome.warnings.length === 0 ? warnings : [...warnings, ...outcome.warnings],
     repricing,
     sweeps: outcome.sweeps,
+    ...(outcome.curve ? { settings } : {}),
   };
   return outcome.overnight === undefined ? built : { ...built, overnight: outcome.overnight };
 }

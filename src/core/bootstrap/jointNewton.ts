@@ -1,4 +1,4 @@
-import { residualOnCurve } from '../instruments/instrument.ts';
+import { residualOnCurve, type Instrument } from '../instruments/instrument.ts';
 import type { InterpolatorFactory } from '../interpolation/types.ts';
 import { luFactor, luSolve } from '../numeric/luDecomposition.ts';
 import { JOINT_NEWTON_BUMP, JOINT_NEWTON_HALVINGS, JOINT_NEWTON_ITERATIONS, NODE_TOLERANCE } from '../numeric/tolerance.ts';
@@ -7,7 +7,8 @@ import type { BootstrapNodes } from './nodeSolvers.ts';
 /**
  * The global methods' fallback when a Gauss-Seidel sweep cannot go on: a damped Newton iteration
  * on all nodes not set in closed form at once, residual_k = (PV_k - target_k) / |target_k| (the target on the
- * curve for an instrument with `targetFromFlows`), with a
+ * curve for an instrument with `targetFromFlows`; its `residualFromFlows` in ln space when it has
+ * one, as the node solvers take it: a TN deposit's DF difference stalls some 8e-14 off its rate), with a
  * forward-difference Jacobian (bump JOINT_NEWTON_BUMP in ln DF) and step halving until the
  * largest residual falls. One node alone may have no solution: with cubic-zero and two pillars a
  * month apart, a bond's present value is not monotone in its own node (the spline swings the
@@ -29,7 +30,9 @@ export function jointNewton(nodes: BootstrapNodes, build: InterpolatorFactory): 
     let worstAbs = 0;
     for (let i = 0; i < m; i++) {
       const ins = instruments[free[i]! - 1]!;
-      const r = residualOnCurve(ins, ln) / Math.abs(ins.target);
+      // A short forward span's residual in ln space (residualFromFlows), as the node solvers take
+      // it: a one-day deposit's DF difference loses the digits a 1e-14 repricing needs.
+      const r = ins.residualFromFlows ? lnResidual(ins, ln) : residualOnCurve(ins, ln) / Math.abs(ins.target);
       out[i] = r;
       worstAbs = Math.max(worstAbs, Number.isFinite(r) ? Math.abs(r) : Infinity);
     }
@@ -70,4 +73,10 @@ export function jointNewton(nodes: BootstrapNodes, build: InterpolatorFactory): 
     if (maxStep <= NODE_TOLERANCE) return true;
   }
   return false;
+}
+
+/** An instrument's `residualFromFlows` on a curve given by ln DF. */
+function lnResidual(ins: Instrument, ln: (t: number) => number): number {
+  const lns = ins.times.map(ln);
+  return ins.residualFromFlows!(lns, lns.map(Math.exp), 0);
 }

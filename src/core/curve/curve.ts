@@ -2,6 +2,7 @@ import { civilFromIso, type IsoDate } from '../time/date.ts';
 import { curveClock, type CurveDayCount } from '../time/dayCount.ts';
 import { INTERPOLATORS } from '../interpolation/registry.ts';
 import type { Interpolation, InterpolationId } from '../interpolation/types.ts';
+import type { TurnSpan } from '../bootstrap/turns.ts';
 
 export const EXTRAPOLATIONS = ['none', 'flat-forward'] as const;
 export type Extrapolation = (typeof EXTRAPOLATIONS)[number];
@@ -41,6 +42,13 @@ export interface Curve {
   time(date: IsoDate): number;
   /** True for a curve that is an interpolation of its pillars (`curveFromNodes`): its pillars are its nodes. */
   readonly onNodes?: true;
+  /**
+   * A bootstrapped curve with turns (bootstrap.ts `turnedCurve`): the turns it carries and their
+   * share of ln DF, `lnAt(spans, t)` (turns.ts `turnLn`), so the smooth curve the interpolation holds
+   * is lnDiscountAt(t) - lnAt(spans, t); a turn with `solveFrom` had its spread solved from that quote.
+   * The sensitivities read it (analytics/nodePartials.ts). Absent on every other curve.
+   */
+  readonly turned?: { readonly spans: readonly TurnSpan[]; readonly lnAt: (spans: readonly TurnSpan[], t: number) => number };
 }
 
 /** Builds a curve through pillars (sorted by t, all t > 0, strictly increasing). */

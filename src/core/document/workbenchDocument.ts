@@ -393,12 +393,15 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
   const badCells: string[] = [];
   const badFlags: number[] = [];
   const quotes: QuoteRow[] = [];
+  /** The id given to each saved entry that is a row, by its position in the saved list. */
+  const idAt: string[] = [];
   raw.quotes.forEach((q, i) => {
     if (!isPlainObject(q)) {
       notRows.push(i);
       return;
     }
     const id = typeof q.id === 'string' && q.id !== '' && !seen.has(q.id) ? q.id : makeId();
+    idAt[i] = id;
     seen.add(id);
     if (q.enabled !== undefined && typeof q.enabled !== 'boolean') badFlags.push(i);
     const row = { id, enabled: q.enabled !== false } as Record<string, unknown>;
@@ -461,7 +464,15 @@ export function readWorkbenchDocument(raw: unknown, makeId: () => string, option
   if (isPlainObject(raw.customCalendars)) doc.customCalendars = raw.customCalendars;
   if (isPlainObject(raw.fixings)) doc.fixings = raw.fixings;
   // Turns and meeting steps likewise: the engine reads them and names what is wrong.
-  if (Array.isArray(raw.turns)) doc.turns = raw.turns;
+  // A turn written with the engine's `solveFrom` (a position in `quotes`, here the saved rows) is
+  // read as that row (`solveFromRow`); one naming no row is left as it is, which the file and link
+  // check refuses (workbenchShape.ts) and the engine names.
+  if (Array.isArray(raw.turns))
+    doc.turns = raw.turns.map((t) => {
+      if (!isPlainObject(t) || t.solveFromRow !== undefined || typeof t.solveFrom !== 'number' || idAt[t.solveFrom] === undefined) return t;
+      const { solveFrom, ...rest } = t;
+      return { ...rest, solveFromRow: idAt[solveFrom] };
+    });
   if (isPlainObject(raw.meetingSteps)) doc.meetingSteps = raw.meetingSteps;
   // Named curves as saved (the named-curve reader checks them when they are shown, naming what is wrong).
   if (Array.isArray(raw.curves)) doc.curves = raw.curves;

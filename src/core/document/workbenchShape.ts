@@ -37,7 +37,7 @@ const customCalendarsShape = (v: unknown): boolean =>
   Object.entries(v).every(([name, c]) => name.length <= LIMITS.id && isPlainObject(c) && Object.keys(c).every((k) => k === 'holidays') && Array.isArray(c.holidays) && c.holidays.length <= LIMITS.calendarDates && c.holidays.every((d) => shortText(d, 10)));
 
 /** The shape of `turns`: at most MAX_TURNS flat objects of short settings (the engine checks names, dates and spreads). */
-const turnsShape = (v: unknown): boolean => Array.isArray(v) && v.length <= MAX_TURNS && v.every((t) => flatSettings(t));
+const turnsShape = (v: unknown): boolean => Array.isArray(v) && v.length <= MAX_TURNS && v.every((t) => flatSettings(isPlainObject(t) && t.solveFrom === null ? { ...t, solveFrom: 0 } : t)); // a null solveFrom is refused below, naming the turn
 /** The shape of `meetingSteps`: `on` and a list of at most MAX_EFFECTIVE_DATES short texts (the engine checks the dates). */
 const meetingStepsShape = (v: unknown): boolean =>
   isPlainObject(v) && Object.keys(v).every((k) => k === 'on' || k === 'effectiveDates') && (v.effectiveDates === undefined || (Array.isArray(v.effectiveDates) && v.effectiveDates.length <= MAX_EFFECTIVE_DATES && v.effectiveDates.every((d) => shortText(d, 10))));
@@ -75,6 +75,15 @@ export function checkWorkbenchShape(raw: Record<string, unknown>): { errors: Cor
   if (raw.customCalendars !== undefined && !customCalendarsShape(raw.customCalendars)) errors.push(coreError('schema', 'customCalendars', `customCalendars must be an object of calendars by name (at most ${LIMITS.id} characters), each {"holidays": [dates]}, at most ${LIMITS.calendarDates} dates in a list`));
   if (raw.fixings !== undefined && !fixingsShape(raw.fixings)) errors.push(coreError('schema', 'fixings', `fixings must be an object of dates to overnight rates (decimals), at most ${LIMITS.fixings} of them`));
   if (raw.turns !== undefined && !turnsShape(raw.turns)) errors.push(coreError('schema', 'turns', `turns must be a list of at most ${MAX_TURNS} turns, each {"name", "from", "to", "spreadBp"}`));
+  // The engine's `solveFrom` in a workbench file: the position of a row in `quotes` (readWorkbenchDocument reads it as that row), never beside `solveFromRow`.
+  if (Array.isArray(raw.turns) && errors.length === 0)
+    raw.turns.forEach((t: Record<string, unknown>, i) => {
+      const q = t.solveFrom;
+      if (q === undefined) return;
+      const rows = Array.isArray(raw.quotes) ? raw.quotes : [];
+      const why = t.solveFromRow !== undefined ? 'gives both solveFrom and solveFromRow' : !Number.isInteger(q) || !isPlainObject(rows[q as number]) ? `solveFrom ${q} is no row of quotes (${rows.length} rows, from 0)` : null;
+      if (why) errors.push(coreError('schema', `turns[${i}].solveFrom`, `turns[${i}] (${String(t.name).slice(0, 40)}) ${why}: write solveFromRow, the id of the row whose quote sets the spread, or spreadBp`));
+    });
   if (raw.meetingSteps !== undefined && !meetingStepsShape(raw.meetingSteps)) errors.push(coreError('schema', 'meetingSteps', `meetingSteps must be {"on": true or false, "effectiveDates": [dates]}, at most ${MAX_EFFECTIVE_DATES} dates`));
   if (raw.curves !== undefined && !namedCurvesShape(raw.curves)) errors.push(coreError('schema', 'curves', `curves must be a list of at most ${LIMITS.namedCurves} named curves, each {"name", "role", "index", "discountCurve", "curve": {settings}, "quotes": [at most ${LIMITS.quotes} quotes of short settings]}`));
   if (!shortText(raw.quoteUnit, 20)) errors.push(coreError('schema', 'quoteUnit', 'quoteUnit must be text such as "percent"'));

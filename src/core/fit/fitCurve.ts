@@ -7,6 +7,7 @@ import { coreError, fail, ok, type Result } from '../result.ts';
 import { curveTime } from '../time/dayCount.ts';
 import type { Workspace } from '../document/types.ts';
 import { levenbergMarquardt, type LmResult } from './levenbergMarquardt.ts';
+import { turnForward, turnLn, type TurnSpan } from '../bootstrap/turns.ts';
 import { formatBp } from '../format/quantities.ts';
 import {
   betaCount,
@@ -39,6 +40,14 @@ export interface FitOptions {
   readonly tauRatio?: number;
   /** Levenberg-Marquardt iterations at most (default 200). */
   readonly maxIterations?: number;
+  /**
+   * The turns of the curve shown (its build's `overnight.turns`: spreads as typed or as the exact
+   * bootstrap solved them). A smooth form has no jump, so the fit is the form times the turns'
+   * jumps, ln DF = ln DF_form + ln J (turns.ts): each quote over a turn meets the fit with its
+   * turn, and the form fits the quotes with the turns' effect taken out. Meeting steps are not
+   * carried: the form stays smooth through the meeting dates.
+   */
+  readonly turns?: readonly TurnSpan[];
 }
 
 /** A quote against the fitted curve. Yields in decimals of the quote's own yield; prices per 100 face. */
@@ -130,8 +139,8 @@ function observe(ws: Workspace, options: FitOptions): Observation[] {
 }
 
 /** A curve object on the parametric form; past `lastT` flat-forward as every curve. */
-function parametricCurve(ws: Workspace, p: ParametricParams, obs: readonly Observation[]): Curve {
-  const ln = (t: number): number => parametricLnDiscount(p, t);
+function parametricCurve(ws: Workspace, p: ParametricParams, obs: readonly Observation[], turns: readonly TurnSpan[]): Curve {
+  const ln = (t: number): number => parametricLnDiscount(p, t) + turnLn(turns, t);
   const pillars: Pillar[] = [];
   for (const o of obs) {
     if (!o.included) continue;
@@ -142,7 +151,7 @@ function parametricCurve(ws: Workspace, p: ParametricParams, obs: readonly Obser
   const { settlement, curve } = ws;
   return curveFromLnDiscount(
     { settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation, pillars, time: (date) => curveTime(curve.dayCount, settlement, date) },
-    { lnDiscount: ln, forward: (t) => parametricForward(p, t) },
+    { lnDiscount: ln, forward: (t) => parametricForward(p, t) + turnForward(turns, t) },
     'flat-forward',
   );
 }
@@ -188,9 +197,10 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
   }
   const sqrtW = used.map((o) => Math.sqrt(o.weight));
   const m = used.length;
+  const turns = options.turns ?? [];
   const residualOf = (v: Float64Array, out: Float64Array): boolean => {
     const p = paramsFromVector(model, v);
-    const ln = (t: number): number => parametricLnDiscount(p, t);
+    const ln = (t: number): number => parametricLnDiscount(p, t) + turnLn(turns, t);
     for (let i = 0; i < m; i++) {
       const r = fittedResidual(used[i]!, errors, ln);
       if (!Number.isFinite(r)) return false;
@@ -233,8 +243,8 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
   if (!best) return fail(coreError('not-converged', 'curve.fit', `the ${label} fit broke down (non-finite errors); check the quotes for extreme values`));
 
   const params = paramsFromVector(model, best.x);
-  const curve = parametricCurve(ws, params, obs);
-  const lnFit = (t: number): number => parametricLnDiscount(params, t);
+  const curve = parametricCurve(ws, params, obs, turns);
+  const lnFit = (t: number): number => parametricLnDiscount(params, t) + turnLn(turns, t);
   const residuals: FitResidual[] = obs.map((o) => {
     const modelYield = o.qy.toYield(o.ins.modelQuote(lnFit));
     const modelPv = presentValue(o.ins, lnFit);

@@ -16,6 +16,8 @@ export function FitSlot({ result }: { result: WorkbenchBuild }) {
     <FitPanel
       workspace={result.build.workspace}
       repricing={result.build.repricing}
+      turns={result.build.overnight?.turns}
+      steps={(result.build.overnight?.meetings.length ?? 0) > 0}
       rowOfQuote={result.conversion.rowOfQuote}
       model={model}
       onModelChange={setFitModel}

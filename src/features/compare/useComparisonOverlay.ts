@@ -78,9 +78,11 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
 
   // The same fit as the smooth fit section: its model and errors (view), its quotes left out and weights (this page).
   const { exclude, weights } = useFitInput();
+  // With the shown curve's turns, as the section fits them (FitSlot).
+  const turns = result.build.overnight?.turns;
   const fitOptions = useMemo(
-    () => (choice.fit && choice.fitModel !== 'none' ? { model: choice.fitModel, errors: choice.fitErrors, exclude, weights } : null),
-    [choice.fit, choice.fitModel, choice.fitErrors, exclude, weights],
+    () => (choice.fit && choice.fitModel !== 'none' ? { model: choice.fitModel, errors: choice.fitErrors, exclude, weights, ...(turns ? { turns } : {}) } : null),
+    [choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, turns],
   );
   const fit = useLazyFit(ws, fitOptions);
 

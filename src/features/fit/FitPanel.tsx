@@ -7,6 +7,7 @@ import {
   TAU_RATIO_MIN,
   type FitErrors,
   type FitModel,
+  type FitOptions,
   type Repricing,
   type Workspace,
   formatNumber,
@@ -43,6 +44,9 @@ export interface FitPanelProps {
   /** What the fit minimises (controlled when onErrorsChange is given). */
   readonly errors?: FitErrors;
   readonly onErrorsChange?: (errors: FitErrors) => void;
+  /** The shown build's turns (spreads as built; `FitOptions.turns`) and whether it has meeting steps: the fit carries the turns and says what it leaves out. */
+  readonly turns?: FitOptions['turns'];
+  readonly steps?: boolean;
 }
 
 /** Controlled when `set` is given, else local state seeded from the prop. */
@@ -64,7 +68,8 @@ export function FitPanel(props: FitPanelProps) {
   const [errors, setErrors] = useMaybeControlled<FitErrors>(props.errors, props.onErrorsChange, 'yield');
   const [weightText, setWeightText] = useState<Record<number, string>>({});
   const ws = props.workspace;
-  const result = useMemo(() => (ws && model !== 'none' ? fitCurve(ws, { model, errors, exclude, weights }) : null), [ws, model, errors, exclude, weights]);
+  const turns = props.turns;
+  const result = useMemo(() => (ws && model !== 'none' ? fitCurve(ws, { model, errors, exclude, weights, ...(turns ? { turns } : {}) }) : null), [ws, model, errors, exclude, weights, turns]);
   const zeroTag = ws ? rateTag('continuous', ws.curve.dayCount) : 'cont';
   const repricingByIndex = new Map((props.repricing ?? []).map((r) => [r.index, r]));
 
@@ -103,8 +108,14 @@ export function FitPanel(props: FitPanelProps) {
       </div>
       <p className="muted">
         Zero rate y(t) <span className="tag">{zeroTag}</span>, DF = e^(−y t); bounds {TAU_MIN} ≤ τ ≤ {TAU_MAX} years
-        {model === 'svensson' ? `, τ2 ≥ ${TAU_RATIO_MIN} × τ1` : ''}; b0 may be negative. Turns and meeting steps are left out.
+        {model === 'svensson' ? `, τ2 ≥ ${TAU_RATIO_MIN} × τ1` : ''}; b0 may be negative.
       </p>
+      {(turns?.length || props.steps) && (
+        <p className="muted small">
+          {turns?.length ? `A smooth form has no jump: it is fitted with the turns of the curve shown taken out, at their spreads as built (${turns.map((t) => `${t.name} ${bpFigure(t.spread * 1e4)} bp`).join(', ')}; overnight, simple ACT/360). ` : ''}
+          {props.steps ? 'Meeting steps are not in the fit.' : ''}
+        </p>
+      )}
       {!ws && <p role="status">No valid workspace to fit yet.</p>}
       {ws && model === 'none' && <p role="status">No fit chosen: the exact bootstrap is the curve.</p>}
       {result && !result.ok && (

@@ -235,7 +235,13 @@ function Turns({ build }: { build: CurveBuild }) {
                 </tr>
               </thead>
               <tbody>
-                {turns.map((t, i) => (
+                {turns.map((t, i) => {
+                  // One row sets one turn: the picker offers the rows no other turn is solved from; a
+                  // document that names one row twice (a file) shows it here, naming the other turn.
+                  const other = (id: string): WorkbenchTurn | undefined => turns.find((x, k) => k !== i && x.solveFromRow === id);
+                  const clash = t.solveFromRow === undefined ? undefined : other(t.solveFromRow);
+                  const at = rows.findIndex((r) => r.id === t.solveFromRow);
+                  return (
                   <tr key={t.name}>
                     <td>{t.name}</td>
                     <td>{t.from}</td>
@@ -244,12 +250,19 @@ function Turns({ build }: { build: CurveBuild }) {
                       <select aria-label={`Spread of the turn ${t.name} set by`} value={t.solveFromRow ?? 'given'} onChange={(e) => setSource(i, e.target.value)}>
                         <option value="given">you</option>
                         {t.solveFromRow !== undefined && !rows.some((r) => r.id === t.solveFromRow) && <option value={t.solveFromRow}>a removed row</option>}
-                        {rows.map((r, k) => (
-                          <option key={r.id} value={r.id}>
-                            {rowWords(r, k)}
-                          </option>
-                        ))}
+                        {rows.map((r, k) =>
+                          r.id === t.solveFromRow || !other(r.id) ? (
+                            <option key={r.id} value={r.id}>
+                              {rowWords(r, k)}
+                            </option>
+                          ) : null,
+                        )}
                       </select>
+                      {clash && (
+                        <p className="field-error" role="alert">
+                          {`${at < 0 ? 'A removed row' : `Row ${at + 1}`} also sets the turn ${clash.name}: one row sets one turn.`}
+                        </p>
+                      )}
                     </td>
                     <td className="num" data-turn-spread={t.name}>
                       {t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(spreads.find((x) => x.index === i))}
@@ -260,7 +273,8 @@ function Turns({ build }: { build: CurveBuild }) {
                       </button>
                     </td>
                   </tr>
-                ))}
+                  );
+                })}
               </tbody>
             </table>
           </div>

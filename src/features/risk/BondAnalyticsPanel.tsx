@@ -1,8 +1,6 @@
 import { useMemo, useState, type ReactNode } from 'react';
 import {
   analyzeBond,
-  bootstrapInstruments,
-  compileMarket,
   DAY_COUNTS,
   DEFAULT_KEY_TENORS,
   parsePriceText,
@@ -10,8 +8,8 @@ import {
   resolveMarketDate,
   type BondInput,
   type Curve,
+  type CurveBuild,
   type DayCount,
-  type Workspace,
   couponTag,
   NO_VALUE,
   rateTag,
@@ -35,8 +33,8 @@ import type { BondCell } from './explainBondCell.ts';
 export interface BondAnalyticsPanelProps {
   /** The bootstrapped curve the bond is priced on (null: no curve yet). */
   readonly curve: Curve | null;
-  /** The workspace the curve was built from, for the DV01 to each input quote (optional). */
-  readonly workspace?: Workspace | null;
+  /** The build the curve is (its instruments and settings, turns and steps included), for the DV01 to each input quote (optional). */
+  readonly build?: Pick<CurveBuild, 'instruments' | 'settings'> | null;
   /** The bond form's starting values (percent texts as typed). */
   readonly initial?: Partial<BondForm>;
   /** Called with the whole form on every edit, so the workbench can keep what was typed. */
@@ -81,7 +79,7 @@ function readForm(f: BondForm, settlement: string): BondInput | string {
  * key-rate durations on a stated grid and bump, z-spread and risk at a market quote when given,
  * and the DV01 to each input quote. Every figure carries its unit.
  */
-export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormChange, rowOfQuote, result: build }: BondAnalyticsPanelProps & { readonly rowOfQuote?: readonly number[] }) {
+export function BondAnalyticsPanel({ curve, build: built = null, initial, onFormChange, rowOfQuote, result: build }: BondAnalyticsPanelProps & { readonly rowOfQuote?: readonly number[] }) {
   const [form, setForm] = useState<BondForm>({ ...DEFAULT_FORM, ...initial });
   const set = (patch: Partial<BondForm>): void => {
     const next = { ...form, ...patch };
@@ -91,13 +89,10 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
   const input = useMemo(() => (curve ? readForm(form, curve.settlement) : null), [curve, form]);
   const result = useMemo(() => (curve && input && typeof input !== 'string' ? analyzeBond(curve, input) : null), [curve, input]);
   const perQuote = useMemo(() => {
-    if (!curve || !workspace || !result || !result.ok) return null;
-    const market = compileMarket(workspace.settlement, workspace.curve.dayCount, workspace.quotes, true);
-    if (market.errors.length > 0 || market.instruments.length !== curve.pillars.length) return null;
-    const settings = { settlement: curve.settlement, dayCount: curve.dayCount, interpolation: curve.interpolation, extrapolation: curve.extrapolation };
-    if (!bootstrapInstruments(settings, market.instruments).curve) return null;
-    return quoteDv01s(settings, market.instruments, result.value.flows);
-  }, [curve, workspace, result]);
+    // The shown curve's own rebuild: its instruments and settings (turns, solved spreads, meeting steps).
+    if (!built?.settings || !result || !result.ok) return null;
+    return quoteDv01s(built.settings, built.instruments, result.value.flows);
+  }, [built, result]);
 
   const display = useAppStore((st) => st.workspace.display);
   const explain = useExplainOpener<BondCell>((a, b) => JSON.stringify(a) === JSON.stringify(b));
@@ -192,7 +187,7 @@ export function BondAnalyticsPanel({ curve, workspace = null, initial, onFormCha
           {build && openCell?.bond.figure === 'keyRateDuration' && <OpenExplanation result={build} display={display} cell={openCell} onClose={explain.close} />}
           {perQuote && perQuote.ok && (
             <table className="data" aria-label="DV01 to each quote">
-              <caption>DV01 to each input quote: each quote moved by ±1 bp through its own yield and the curve rebuilt (per 100 face per bp)</caption>
+              <caption>DV01 to each input quote: each quote moved by ±1 bp through its own yield and the curve rebuilt, turns and steps included (per 100 face per bp)</caption>
               <thead><tr><th scope="col">Row</th><th scope="col">Maturity</th><th scope="col">Moved through</th><th scope="col">DV01 (per 100 face per bp)</th></tr></thead>
               <tbody>
                 {perQuote.value.map((q) => (

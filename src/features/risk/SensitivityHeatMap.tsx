@@ -5,6 +5,7 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 import type { SensitivityCell } from './explainSensitivityCell.ts';
+import { loadedOvernightKit } from '../../hooks/overnightKit.ts';
 
 export interface SensitivityHeatMapProps {
   /** The validated workspace whose enabled quotes build the curve (null: nothing yet). */
@@ -60,13 +61,15 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
     setStepState(t);
     report({ interpolation: method, tenor: fwdTenor, step: t });
   };
+  const kit = loadedOvernightKit();
   const out = useMemo(() => {
     if (!workspace) return null;
     const t = parseTenor(fwdTenor);
     const s = parseTenor(fwdStep);
     if (!t || !s) return null;
-    return sensitivityMapFor(workspace, { interpolation: method, tenor: t, step: s, compounding: 'simple' });
-  }, [workspace, method, fwdTenor, fwdStep]);
+    // Built as the workbench builds it: the turns (solved spreads too) and meeting steps with their code.
+    return sensitivityMapFor(workspace, { interpolation: method, tenor: t, step: s, compounding: 'simple', ...(kit ? { overnight: kit } : {}) });
+  }, [workspace, method, fwdTenor, fwdStep, kit]);
   const scale = useMemo(() => {
     if (!out || !out.ok) return 1;
     let m = 0;
@@ -110,7 +113,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
       {out && !out.ok && <p role="alert" className="error">{out.errors.map((e) => e.message).join('; ')}</p>}
       {out && out.ok && (
         <p className="muted small">
-          How far each forward moves when one quote moves 1 bp (a price quote moved through its own yield), computed from the bootstrap without turns and meeting steps. Blue: the forward
+          How far each forward moves when one quote moves 1 bp (a price quote moved through its own yield), computed from the bootstrap, turns and meeting steps included. Blue: the forward
           rises with the quote; orange: it falls. Figures below 0.005 bp per bp show as 0.00; the exact figure is in each cell&rsquo;s tooltip.
         </p>
       )}
