@@ -8,7 +8,7 @@
 import axe from 'axe-core';
 import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { analyseRollVsTerm, applyScenario, fullText, tableConventionsFromDisplay, validateStrategy, type Scenario } from '../../src/core/index.ts';
+import { analyseRollVsTerm, applyScenario, formatBpChange, formatMoneySigned, fullText, tableConventionsFromDisplay, validateStrategy, type Scenario } from '../../src/core/index.ts';
 import { RollResultLine } from '../../src/features/roll/RollSlot.tsx';
 import { PrintTab } from '../../src/features/print/PrintTab.tsx';
 import { printKeyRows, printScenarios } from '../../src/features/print/printData.ts';
@@ -127,5 +127,6 @@ describe('explanations in the print preview', () => {
     const printedRoll = document.querySelector('.print-root .ps-roll-table') as HTMLElement;
     expect(printedRoll.querySelectorAll('button')).toHaveLength(0);
     expect(printedRoll.textContent).toBe(preview.querySelector('.ps-roll-table')!.textContent);
+    expect(printedRoll.textContent).toContain(`${formatMoneySigned(zero.vsRoll)} \u00b7 ${formatBpChange(zero.vsRollBp)}`);
   });
 });

@@ -122,7 +122,7 @@ export function explainReferenceDifference(curve: Curve, ref: ReferenceCurve, da
   const ours = trace.ours.explanation;
   if (row.differenceBp === null || row.referenceZero === null || !ours) return fail(coreError('schema', 'date', `no difference on ${date}: ${row.note ?? 'the reference gives no zero rate there'}`));
   const unit = rateUnit(ref.compounding, ref.dayCount);
-  const given = ref.kind === 'zero';
+  const given = trace.lnDiscount === undefined; // a zero rate as the file gives it (referenceRow converts only a discount factor)
   const reference: Explanation = {
     ...ours,
     formula: given ? 'the reference zero rate on the date, as its file gives it' : ours.formula.replace('P = DF(date)', 'P = D, the reference discount factor on the date'),

@@ -116,7 +116,8 @@ function RollPrintDetail({ analysis: a }: { analysis: RollAnalysis }) {
                     NO_VALUE
                   ) : (
                     <>
-                      {fig({ kind: 'vs-roll', view: view.id, strategy: s.id }, formatMoneySigned(o.vsRoll), `money against rolling of ${s.phrase} under ${view.label}`)} \u00b7{' '}
+                      {fig({ kind: 'vs-roll', view: view.id, strategy: s.id }, formatMoneySigned(o.vsRoll), `money against rolling of ${s.phrase} under ${view.label}`)}
+                      {' \u00b7 '}
                       {fig({ kind: 'vs-roll-bp', view: view.id, strategy: s.id }, formatBpChange(o.vsRollBp), `return against rolling of ${s.phrase} under ${view.label}`)}
                     </>
                   )}

@@ -1,4 +1,4 @@
-import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from 'react';
+import { useId, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { fullText, type DisplaySettings } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
@@ -28,8 +28,9 @@ export function ExplanationPanel({ result, display, cell, onClose, writeText }: 
   const [status, setStatus] = useState<{ text: string; error: boolean } | null>(null);
   const headingId = useId();
   const panelRef = useRef<HTMLElement>(null);
-  // Opening a number (or another one) moves the focus to the panel, so a screen reader reads it.
-  useEffect(() => {
+  // Opening a number (or another one) moves the focus to the panel, so a screen reader reads it; in
+  // the commit that shows it (a layout effect), so no key pressed meanwhile goes to the page behind.
+  useLayoutEffect(() => {
     const el = panelRef.current;
     if (el) {
       el.scrollTop = 0; // another number reads from its top
