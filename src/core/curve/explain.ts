@@ -32,7 +32,10 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
   /** The spread between two curves' zero rates or forwards (curve/explainSpread.ts). */
   | 'curve-spread'
   /** A forward's sensitivity to one quote, bp per bp (analytics/explainRisk.ts). */
-  | 'forward-sensitivity';
+  | 'forward-sensitivity'
+  /** A quote's model value re-priced off the curve, and its difference from the market (curve/explainQuote.ts). */
+  | 'quote-model'
+  | 'quote-error';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
