@@ -41,6 +41,7 @@ export * from './bootstrap/namedCurveBuild.ts';
 export * from './bootstrap/workbenchCurves.ts';
 export * from './fit/parametricForm.ts';
 export * from './fit/fitCurve.ts';
+export * from './fit/explainFit.ts';
 export { levenbergMarquardt, type LmResult, type LmOptions, type ResidualFunction } from './fit/levenbergMarquardt.ts';
 export * from './analytics/quoteYield.ts';
 export * from './analytics/keyRates.ts';

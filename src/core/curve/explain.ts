@@ -35,7 +35,9 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
   | 'forward-sensitivity'
   /** A quote's model value re-priced off the curve, and its difference from the market (curve/explainQuote.ts). */
   | 'quote-model'
-  | 'quote-error';
+  | 'quote-error'
+  /** A quote's model yield or residual on a smooth fit (fit/explainFit.ts). */
+  | 'fit-figure';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {

@@ -58,17 +58,18 @@ const sum = (terms: readonly string[]): string => (terms.length <= 4 ? terms.joi
 /**
  * Explains the model value of `ins` re-priced on `curve` (the quote check's 'Implied by curve'), or
  * with `figure` 'error' its difference from the market in the table's unit (bp for a rate, per 100
- * for a price). `settlement`: the valuation date of the build. An error value for a kind whose
+ * for a price). `settlement`: the valuation date of the build; `lnAt` the ln DF read (the curve's by
+ * default; a fit's residuals read its form, fit/explainFit.ts). An error value for a kind whose
  * arithmetic is not traced (the panel then says so) or a curve that gives no number.
  */
-export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: IsoDate, figure: QuoteCheckFigure = 'model'): Result<Explanation> {
+export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: IsoDate, figure: QuoteCheckFigure = 'model', lnAt: (t: number) => number = curve.lnDiscountAt): Result<Explanation> {
   const q = ins.quote;
   const lns: number[] = [];
   const trace: { name: string; value: number }[] = [];
   const model = quoteOnCurve(
     ins,
     (t) => {
-      const y = curve.lnDiscountAt(t);
+      const y = lnAt(t);
       lns.push(y);
       return y;
     },

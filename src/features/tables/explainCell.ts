@@ -40,12 +40,14 @@ import { explainDifferenceCell, explainReferenceCell, type DifferenceCell, type 
 import { explainSpreadCell, type SpreadCell } from '../namedCurves/explainSpreadCell.ts';
 import { explainSensitivityCell, type SensitivityCell } from '../risk/explainSensitivityCell.ts';
 import { explainQuoteCell, type QuoteCheckCell } from './explainQuoteCell.ts';
+import { explainFitCell, type FitCell } from '../fit/explainFitCell.ts';
 
 export type { BondCell } from '../risk/explainBondCell.ts';
 export type { DifferenceCell, ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
 export type { SpreadCell } from '../namedCurves/explainSpreadCell.ts';
 export type { SensitivityCell } from '../risk/explainSensitivityCell.ts';
 export type { QuoteCheckCell } from './explainQuoteCell.ts';
+export type { FitCell } from '../fit/explainFitCell.ts';
 
 /** The key-maturity cells that explain themselves. */
 export type KeyField = 'discount' | 'zero' | 'par' | 'forward';
@@ -94,7 +96,7 @@ export interface StepCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell | ReferenceCell | SpreadCell | SensitivityCell | QuoteCheckCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell | ReferenceCell | SpreadCell | SensitivityCell | QuoteCheckCell | FitCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -140,6 +142,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('spread' in cell) return explainSpreadCell(result, display, cell.spread);
   if ('sensitivity' in cell) return explainSensitivityCell(result, cell.sensitivity);
   if ('quoteCheck' in cell) return explainQuoteCell(result, cell.quoteCheck);
+  if ('fit' in cell) return explainFitCell(result, cell.fit);
   const curve = result.build.curve;
   if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
   let date: string;
