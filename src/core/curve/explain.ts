@@ -131,8 +131,10 @@ export interface ExplainedConventions {
   readonly curveDayCount: string;
   readonly interpolation: InterpolationId;
   readonly extrapolation: Extrapolation;
-  readonly businessDay: 'unadjusted';
-  readonly calendar: 'none';
+  /** 'unadjusted' for a query date; a quote's own rule (the quote check). */
+  readonly businessDay: string;
+  /** 'none' for a query date; a quote's own calendar (the quote check). */
+  readonly calendar: string;
 }
 
 /** Everything behind one number. */

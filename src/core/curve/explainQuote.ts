@@ -9,6 +9,7 @@ import { FUTURE_BASIS } from '../instruments/future.ts';
 import { quoteConvention } from '../kinds/registry.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { serialFromIso, type IsoDate } from '../time/date.ts';
+import type { DayCount } from '../time/dayCount.ts';
 
 /**
  * Explanations of the quote check: a quote's model value re-priced off the built curve, and its
@@ -83,7 +84,7 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
   const dates: ExplainedDate[] = [];
   const reads: ExplainedRead[] = ins.times.map((t, j) => {
     const d = dateAt(t) ?? settlement;
-    dates.push({ name: labels[j]!, given: d, unadjusted: d, adjusted: d, rule: 'the flow date as the quote check schedules it (business-day rule and calendar as the quote sets them)' });
+    dates.push({ name: labels[j]!, given: d, unadjusted: d, adjusted: d, rule: 'as the quote check schedules it' });
     return explainRead(curve, `DF(${labels[j]})`, d, t, lns[j]!);
   });
   const conv = quoteConvention(q);
@@ -227,7 +228,11 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
     formula,
     value,
     unit: figure === 'error' ? (ins.unit === 'price' ? PRICE_UNIT : BP_UNIT) : unit,
-    conventions: explainedConventions(curve, null, null),
+    conventions: {
+      ...explainedConventions(curve, conv.unit === 'rate' && conv.compounding !== 'bank-discount' && conv.compounding !== 'bill-equivalent' ? conv.compounding : null, conv.unit === 'rate' ? conv.dayCount : 'dayCount' in q ? (q as { dayCount: DayCount }).dayCount : null),
+      businessDay: (rec.quote as { businessDay?: string }).businessDay ?? 'unadjusted',
+      calendar: (rec.quote as { calendar?: string | null }).calendar ?? 'none',
+    },
     dates,
     yearFractions: yfs,
     reads,
