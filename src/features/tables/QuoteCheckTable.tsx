@@ -50,7 +50,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
     <div className="quote-check">
       <div className="scroll-y" tabIndex={0} role="region" aria-label="Quote check (scrolls)">
         <table className="data" aria-label="Quote check">
-          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield, future or FRA row to see its schedule, and a figure to see how it is made.</caption>
+          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield, future or FRA row to see its schedule; a figure, how it is made.</caption>
           <thead>
             <tr>
               <th scope="col">Row</th>

@@ -10,7 +10,7 @@ export interface QuoteCheckCell {
   };
 }
 
-const fail = (message: string): Result<CellExplanation> => ({ ok: false, errors: [{ path: '', quote: null, code: 'schema', message }] });
+const fail = <T,>(message: string): Result<T> => ({ ok: false, errors: [{ path: '', quote: null, code: 'schema', message }] });
 
 /**
  * The explanation of a quote check figure: the quote's instrument re-priced on the build's curve
@@ -28,23 +28,19 @@ export function explainQuoteCell(result: WorkbenchBuild, cell: QuoteCheckCell['q
   const r = explainQuoteCheck(curve, ins, curve.settlement, cell.figure);
   if (!r.ok) return r;
   const shown = cell.figure === 'model' ? row.model : row.unit === 'price' ? row.repricingError : row.repricingError * 1e4;
-  if (!Object.is(r.value.value, shown)) return fail(`the ${ins.kind} ${ins.maturity} is priced on more than this curve; its explanation is not available here yet`);
+  if (!Object.is(r.value.value, shown)) return fail(`the ${ins.kind} ${ins.maturity} reads more than this curve: not explained yet`);
   const sheetRow = result.conversion.rowOfQuote[ins.index];
   const rowText = sheetRow === undefined ? 'this quote' : `row ${sheetRow + 1}`;
   const influences = { ok: true as const, value: [{ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: quoteYieldLabel(ins), bpPerBp: 1 }] };
-  const note =
-    cell.figure === 'model'
-      ? `the bootstrap solves the curve so that every quote reprices, so the model value moves one for one with ${rowText}'s own quote and with no other (its repricing stays within the acceptance bound)`
-      : `the difference stays within the bootstrap's acceptance bound whatever the quotes: the curve is solved to reprice ${rowText}`;
+  const note = `the curve is solved to reprice ${rowText}, so its model value moves one for one with its quote alone`;
   const methods = valueUnderEachMethod(
     curve.interpolation,
     (method) => buildUnder(result, method),
     (on) => {
       const model = quoteOnCurve(ins, on.lnDiscountAt);
       const v = cell.figure === 'model' ? model : ins.unit === 'price' ? model - ins.market : (model - ins.market) * 1e4;
-      return Number.isFinite(v) ? { ok: true, value: v } : { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: 'no model value on this curve' }] };
+      return Number.isFinite(v) ? { ok: true, value: v } : fail('no value');
     },
   );
-  const what = cell.figure === 'model' ? `Model ${ins.field} of ${rowText}` : `Repricing error of ${rowText}`;
-  return cellOf(result, `${what}: ${ins.kind} ${ins.maturity}`, r.value, influences, note, methods);
+  return cellOf(result, `${cell.figure === 'model' ? `Model ${ins.field}` : 'Repricing error'} of ${rowText}: ${ins.kind} ${ins.maturity}`, r.value, influences, note, methods);
 }
