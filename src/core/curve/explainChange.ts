@@ -122,7 +122,7 @@ export function explainReferenceDifference(curve: Curve, ref: ReferenceCurve, da
   const ours = trace.ours.explanation;
   if (row.differenceBp === null || row.referenceZero === null || !ours) return fail(coreError('schema', 'date', `no difference on ${date}: ${row.note ?? 'the reference gives no zero rate there'}`));
   const unit = rateUnit(ref.compounding, ref.dayCount);
-  const given = ref.kind === 'zero';
+  const given = ref.kind !== 'discount'; // a reference curve's kind ('zero' or 'discount' columns), not a quote kind
   const reference: Explanation = {
     ...ours,
     formula: given ? 'the reference zero rate on the date, as its file gives it' : ours.formula.replace('P = DF(date)', 'P = D, the reference discount factor on the date'),

@@ -9,6 +9,7 @@ import { FUTURE_BASIS } from '../instruments/future.ts';
 import { quoteConvention } from '../kinds/registry.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { serialFromIso, type IsoDate } from '../time/date.ts';
+import type { BillQuote, DatedSwapQuote, DepositQuote, FraQuote, Quote, SwapQuote, ZeroQuote } from '../document/types.ts';
 import type { DayCount } from '../time/dayCount.ts';
 import { COMPOUNDINGS, type Compounding } from '../rates/compounding.ts';
 
@@ -40,20 +41,22 @@ function candidateDates(q: Instrument['quote'], settlement: IsoDate, curve: Curv
   return out;
 }
 
-/** The names of an instrument's flow times in its formula (E, S, T1..Tn, b1..bn). */
-function flowLabels(ins: Instrument): string[] {
-  const n = ins.times.length;
-  const kind = ins.kind;
-  if (kind === 'deposit' || kind === 'fra') return n === 1 ? ['E'] : ['S', 'E'];
-  if (kind === 'zero' || kind === 'bill') return n === 1 ? ['M'] : ['S', 'M'];
-  if (kind === 'future') {
-    if (n === 2) return [(ins as unknown as { lnKnown: number }).lnKnown === 0 ? 'S' : 'c', 'E'];
-    if (n === 3 && (ins as unknown as { w?: number }).w !== undefined) return ['b0', 'b1', 'E'];
-    return Array.from({ length: n }, (_, j) => `b${j + 1}`);
-  }
-  if (kind === 'bond' && n > 1 && ins.amounts[0] === 0) return ['settle', ...Array.from({ length: n - 1 }, (_, j) => `T${j + 1}`)];
-  return Array.from({ length: n }, (_, j) => `T${j + 1}`);
-}
+/** The names of an instrument's flow times in its formula (E, S, M, b_i, T_i by default), by kind. */
+const two = (one: string, a: string, b: string) => (ins: Instrument): string[] => (ins.times.length === 1 ? [one] : [a, b]);
+const numbered = (p: string, n: number): string[] => Array.from({ length: n }, (_, j) => `${p}${j + 1}`);
+const LABELS: { readonly [K in Quote['kind']]?: (ins: Instrument) => string[] } = {
+  deposit: two('E', 'S', 'E'),
+  fra: two('E', 'S', 'E'),
+  zero: two('M', 'S', 'M'),
+  bill: two('M', 'S', 'M'),
+  future: (ins) => {
+    const n = ins.times.length;
+    const rec = ins as unknown as { lnKnown?: number; w?: number };
+    return n === 2 ? [rec.lnKnown === 0 ? 'S' : 'c', 'E'] : n === 3 && rec.w !== undefined ? ['b0', 'b1', 'E'] : numbered('b', n);
+  },
+  bond: (ins) => (ins.times.length > 1 && ins.amounts[0] === 0 ? ['settle', ...numbered('T', ins.times.length - 1)] : numbered('T', ins.times.length)),
+};
+const flowLabels = (ins: Instrument): string[] => (LABELS[ins.quote.kind] ?? ((i: Instrument) => numbered('T', i.times.length)))(ins);
 
 /** a + b + ... written short for long sums. */
 const sum = (terms: readonly string[]): string => (terms.length <= 4 ? terms.join(' + ') : `${terms[0]} + ${terms[1]} + ... + ${terms[terms.length - 1]}`);
@@ -103,15 +106,16 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
   const field = ins.field;
   let formula: string;
   const rec = ins as unknown as Record<string, unknown>;
-  if (q.kind === 'deposit' || q.kind === 'fra') {
+  function moneyMarket(q: DepositQuote | FraQuote, end: IsoDate): string {
     const tau = rec.tau as number;
-    const end = q.kind === 'fra' ? q.end : q.maturity;
     yfs.push(explainedYearFraction('tau', q.dayCount, q.start, end, tau));
     const spot = labels.length === 1;
     formula = `${field} = (DF(S) / DF(E) - 1) / tau${spot ? ', DF(S) = 1' : ''}`;
     step('g', spot ? 'expm1(-ln DF(E))' : 'expm1(ln DF(S) - ln DF(E))', spot ? [ln(0)] : [ln(0), ln(1)], got('g'));
     step('model', 'g / tau', ['g', 'tau'], model, unit);
-  } else if (q.kind === 'zero' || q.kind === 'bill') {
+    return formula;
+  }
+  function singleFlow(q: ZeroQuote | BillQuote, bill: boolean): string {
     const spot = labels.length === 2;
     const from = spot ? (q.settle ?? settlement) : settlement;
     const lnP = got('lnP');
@@ -119,7 +123,7 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
     if (ins.unit === 'price') {
       formula = 'price = 100 exp(lnP)';
       step('model', '100 x exp(lnP)', ['lnP'], model, unit);
-    } else if (q.kind === 'bill') {
+    } else if (bill) {
       const days = rec.days as number;
       formula = 'discount yield = (1 - P) x 360 / days, P = exp(lnP)';
       step('days', `actual days ${from} to ${q.maturity}`, [], days, 'days');
@@ -127,12 +131,15 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
       step('model', 'd x 360 / days', ['d', 'days'], model, unit);
     } else {
       const tau = rec.tau as number;
-      yfs.push(explainedYearFraction('tau', q.dayCount, from, q.maturity, tau));
+      const z = q as ZeroQuote;
+      yfs.push(explainedYearFraction('tau', z.dayCount, from, q.maturity, tau));
       formula = `zero rate (${tag}) of P = exp(lnP) over tau`;
-      const rs = rateSteps(lnP, q.compounding, tau, model, unit);
+      const rs = rateSteps(lnP, z.compounding, tau, model, unit);
       steps.push(...rs.slice(0, -1), { ...rs.at(-1)!, name: 'model', formula: rs.at(-1)!.formula.replace(/^rate =/, 'model =') });
     }
-  } else if (q.kind === 'swap' || q.kind === 'ois') {
+    return formula;
+  }
+  function parSwap(q: SwapQuote | DatedSwapQuote): string {
     const taus = rec.taus as readonly number[];
     const rows = quoteSchedule(q, settlement, curve)?.rows ?? [];
     taus.forEach((tau, i) => {
@@ -155,76 +162,91 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
       step('float', sum(terms), taus.flatMap((_, i) => [nm(sIdx[i]!), nm(eIdx[i]!), nm(pIdx[i]!)]), got('float'));
       step('model', 'float / A', ['float', 'A'], model, unit);
     }
-  } else if (q.kind === 'bond') {
-    const spot = labels[0] === 'settle';
-    const idx = ins.amounts.length;
-    const flows = Array.from({ length: idx }, (_, j) => j).filter((j) => !spot || j > 0);
-    for (const j of flows) step(`CF${j + (spot ? 0 : 1)}`, `flow at ${labels[j]}`, [], ins.amounts[j]!, PRICE_UNIT);
-    const cf = flows.map((j) => `CF${j + (spot ? 0 : 1)} x DF(${labels[j]})`);
-    const pairs = flows.flatMap((j) => [`CF${j + (spot ? 0 : 1)}`, `DF(${labels[j]})`]);
-    if (spot) {
-      step('pv', sum(cf), pairs, got('pv'), PRICE_UNIT);
-      step('dirty', 'pv / DF(settle)', ['pv', 'DF(settle)'], got('dirty'), PRICE_UNIT);
-    } else step('dirty', sum(cf), pairs, got('dirty'), PRICE_UNIT);
-    const accrued = rec.accrued as number;
-    step('accrued', `100 c x accrual fraction (${q.dayCount})`, [], accrued, PRICE_UNIT);
-    if (ins.unit === 'price') {
-      formula = `clean price = sum CF_i DF(T_i)${spot ? ' / DF(settle)' : ''} - accrued`;
-      step('model', 'dirty - accrued', ['dirty', 'accrued'], model, unit);
-    } else {
-      formula = `ICMA yield at dirty = sum CF_i DF(T_i)${spot ? ' / DF(settle)' : ''}`;
-      step('model', `y: sum CF_i (1 + y/${q.frequency})^-(periods to T_i) = dirty`, ['dirty'], model, unit);
-    }
-  } else if (q.kind === 'future') {
-    const ca = q.convexity;
-    const days = serialFromIso(q.end) - serialFromIso(q.start);
-    const fp = 'price = 100 (1 - R - CA / 10,000), ';
-    const caWords = q.convexityFill
-      ? `${convexityFillText(q.convexityFill)}, at (100 - price) / 100 over ${days} days`
-      : ca === 0 ? 'none' : 'as typed';
-    const caValue = q.convexityFill ? modelConvexityBp(q.convexityFill, (100 - q.price) / 100, days, q.convexityFill.t1, q.convexityFill.t2) : ca;
-    step('CA', caWords, [], caValue, 'bp');
-    if (q.contract === '3M') {
-      const tau = rec.tau as number;
-      yfs.push(explainedYearFraction('tau', 'ACT/360', q.start, q.end, tau));
-      const holiday = labels[0] === 'b0';
-      if (holiday) {
-        const w = rec.w as number;
-        formula = `${fp}R = (DF(S) / DF(E) - 1) / tau, S a holiday: DF(S) = w DF(b0) + (1 - w) DF(b1)`;
-        step('w', '(b1 - S) / (b1 - b0)', [], w);
-        step('lnStart', 'ln(1 + w x expm1(ln DF(b0) - ln DF(b1))) + ln DF(b1)', ['w', ln(0), ln(1)], got('lnStart'), 'ln');
-        step('g', 'expm1(lnStart - ln DF(E))', ['lnStart', ln(2)], got('g'));
-      } else {
-        const known = rec.lnKnown as number;
-        formula = `${fp}R = (DF(S) / DF(E) - 1) / tau (overnight compounded over the quarter)`;
-        if (known !== 0) {
-          step('ln known', 'ln of the growth fixed from S to c', [], known, 'ln');
-          step('g', 'expm1(ln known + ln DF(c) - ln DF(E))', ['ln known', ln(0), ln(1)], got('g'));
-        } else step('g', 'expm1(ln DF(S) - ln DF(E))', [ln(0), ln(1)], got('g'));
-      }
-      step('R', 'g / tau', ['g', 'tau'], got('R'), ACT360);
-    } else {
-      const { weights, spans, knownSum } = rec as { weights: number[]; spans: number[]; knownSum: number };
-      formula = `${fp}R = (known + sum w_i r_i) / N, N = ${days} days, r_i = expm1(ln DF(b_i) - ln DF(b_i+1)) x 360 / n_i`;
-      if (knownSum !== 0) step('known', 'sum of w_i x fixing, before the valuation date', [], knownSum, 'days');
-      weights.forEach((w, i) => {
-        step(`n${i + 1}`, 'days to the next business day', [], spans[i]!, 'days');
-        step(`w${i + 1}`, 'days carrying its rate', [], w, 'days');
-        step(`r${i + 1}`, `expm1(${ln(i)} - ${ln(i + 1)}) x ${FUTURE_BASIS} / n${i + 1}`, [ln(i), ln(i + 1), `n${i + 1}`], got('r', i), ACT360);
-      });
-      step('sum', `${knownSum !== 0 ? 'known + ' : ''}${sum(weights.map((_, i) => `w${i + 1} x r${i + 1}`))}`, [...(knownSum !== 0 ? ['known'] : []), ...weights.flatMap((_, i) => [`w${i + 1}`, `r${i + 1}`])], got('sum'), 'days');
-      step('R', `sum / ${days}`, ['sum'], got('R'), ACT360);
-    }
-    step('model', '100 (1 - R - CA / 10,000)', ['R', 'CA'], model, unit);
-  } else {
-    return fail(coreError('schema', `quotes[${ins.index}]`, `${q.kind} quotes do not explain their arithmetic yet`));
+    return formula;
   }
+  // Each kind's steps, by kind (a map, as the schedules are: nothing here switches on a kind's name); each returns the definition.
+  const KIND_STEPS: { readonly [K in Quote['kind']]?: (q: Extract<Quote, { kind: K }>) => string } = {
+    deposit: (q) => moneyMarket(q, q.maturity),
+    fra: (q) => moneyMarket(q, q.end),
+    zero: (q) => singleFlow(q, false),
+    bill: (q) => singleFlow(q, true),
+    swap: (q) => parSwap(q),
+    ois: (q) => parSwap(q),
+    bond: (q) => {
+      const spot = labels[0] === 'settle';
+      const idx = ins.amounts.length;
+      const flows = Array.from({ length: idx }, (_, j) => j).filter((j) => !spot || j > 0);
+      for (const j of flows) step(`CF${j + (spot ? 0 : 1)}`, `flow at ${labels[j]}`, [], ins.amounts[j]!, PRICE_UNIT);
+      const cf = flows.map((j) => `CF${j + (spot ? 0 : 1)} x DF(${labels[j]})`);
+      const pairs = flows.flatMap((j) => [`CF${j + (spot ? 0 : 1)}`, `DF(${labels[j]})`]);
+      if (spot) {
+        step('pv', sum(cf), pairs, got('pv'), PRICE_UNIT);
+        step('dirty', 'pv / DF(settle)', ['pv', 'DF(settle)'], got('dirty'), PRICE_UNIT);
+      } else step('dirty', sum(cf), pairs, got('dirty'), PRICE_UNIT);
+      const accrued = rec.accrued as number;
+      step('accrued', `100 c x accrual fraction (${q.dayCount})`, [], accrued, PRICE_UNIT);
+      if (ins.unit === 'price') {
+        formula = `clean price = sum CF_i DF(T_i)${spot ? ' / DF(settle)' : ''} - accrued`;
+        step('model', 'dirty - accrued', ['dirty', 'accrued'], model, unit);
+      } else {
+        formula = `ICMA yield at dirty = sum CF_i DF(T_i)${spot ? ' / DF(settle)' : ''}`;
+        step('model', `y: sum CF_i (1 + y/${q.frequency})^-(periods to T_i) = dirty`, ['dirty'], model, unit);
+      }
+      return formula;
+    },
+    future: (q) => {
+      const ca = q.convexity;
+      const days = serialFromIso(q.end) - serialFromIso(q.start);
+      const fp = 'price = 100 (1 - R - CA / 10,000), ';
+      const caWords = q.convexityFill
+        ? `${convexityFillText(q.convexityFill)}, at (100 - price) / 100 over ${days} days`
+        : ca === 0 ? 'none' : 'as typed';
+      const caValue = q.convexityFill ? modelConvexityBp(q.convexityFill, (100 - q.price) / 100, days, q.convexityFill.t1, q.convexityFill.t2) : ca;
+      step('CA', caWords, [], caValue, 'bp');
+      if (q.contract === '3M') {
+        const tau = rec.tau as number;
+        yfs.push(explainedYearFraction('tau', 'ACT/360', q.start, q.end, tau));
+        const holiday = labels[0] === 'b0';
+        if (holiday) {
+          const w = rec.w as number;
+          formula = `${fp}R = (DF(S) / DF(E) - 1) / tau, S a holiday: DF(S) = w DF(b0) + (1 - w) DF(b1)`;
+          step('w', '(b1 - S) / (b1 - b0)', [], w);
+          step('lnStart', 'ln(1 + w x expm1(ln DF(b0) - ln DF(b1))) + ln DF(b1)', ['w', ln(0), ln(1)], got('lnStart'), 'ln');
+          step('g', 'expm1(lnStart - ln DF(E))', ['lnStart', ln(2)], got('g'));
+        } else {
+          const known = rec.lnKnown as number;
+          formula = `${fp}R = (DF(S) / DF(E) - 1) / tau`;
+          if (known !== 0) {
+            step('ln known', 'fixed growth S to c', [], known, 'ln');
+            step('g', 'expm1(ln known + ln DF(c) - ln DF(E))', ['ln known', ln(0), ln(1)], got('g'));
+          } else step('g', 'expm1(ln DF(S) - ln DF(E))', [ln(0), ln(1)], got('g'));
+        }
+        step('R', 'g / tau', ['g', 'tau'], got('R'), ACT360);
+      } else {
+        const { weights, spans, knownSum } = rec as { weights: number[]; spans: number[]; knownSum: number };
+        formula = `${fp}R = (known + sum w_i r_i) / N, N = ${days} days, r_i = expm1(ln DF(b_i) - ln DF(b_i+1)) x 360 / n_i`;
+        if (knownSum !== 0) step('known', 'sum w_i x fixing', [], knownSum, 'days');
+        weights.forEach((w, i) => {
+          step(`n${i + 1}`, 'days to the next', [], spans[i]!, 'days');
+          step(`w${i + 1}`, 'days at its rate', [], w, 'days');
+          step(`r${i + 1}`, `expm1(${ln(i)} - ${ln(i + 1)}) x ${FUTURE_BASIS} / n${i + 1}`, [ln(i), ln(i + 1), `n${i + 1}`], got('r', i), ACT360);
+        });
+        step('sum', `${knownSum !== 0 ? 'known + ' : ''}${sum(weights.map((_, i) => `w${i + 1} x r${i + 1}`))}`, [...(knownSum !== 0 ? ['known'] : []), ...weights.flatMap((_, i) => [`w${i + 1}`, `r${i + 1}`])], got('sum'), 'days');
+        step('R', `sum / ${days}`, ['sum'], got('R'), ACT360);
+      }
+      step('model', '100 (1 - R - CA / 10,000)', ['R', 'CA'], model, unit);
+      return formula;
+    },
+  };
+  const explain = KIND_STEPS[q.kind] as ((q: Quote) => string) | undefined;
+  if (!explain) return fail(coreError('schema', `quotes[${ins.index}]`, `${q.kind} quotes do not explain their arithmetic yet`));
+  formula = explain(q);
   let value = model;
   const cc = (conv as { compounding?: string }).compounding;
   if (figure === 'error') {
     const price = ins.unit === 'price';
     const d = price ? 'model - market' : '(model - market) x 10,000';
-    formula = `difference = ${d}; model: ${formula}`;
+    formula = `${d}; ${formula}`;
     value = price ? model - ins.market : (model - ins.market) * 1e4;
     step('market', 'as quoted', [], ins.market, unit);
     step('difference', d, ['model', 'market'], value, price ? PRICE_UNIT : BP_UNIT);

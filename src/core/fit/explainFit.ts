@@ -5,7 +5,6 @@ import { coreError, fail, ok, type Result } from '../result.ts';
 import type { FitResult, FitSink } from './fitCurve.ts';
 import { curvatureLoading, FIT_MODEL_LABEL, parametricZero, slopeLoading } from './parametricForm.ts';
 
-const MISMATCH = 'does not reproduce the table';
 
 /** A figure of the fit's residual table: a quote's model yield on the fitted curve, or its residual in bp. */
 export type FitFigure = 'yield' | 'residual';
@@ -38,7 +37,7 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
     const t = r.t;
     const y = parametricZero(p, t);
     const j = turnLn(trace.turns, t);
-    if (!Object.is(t <= 0 ? 0 : -y * t + j, r.lnDiscount)) return fail(coreError('schema', 'index', MISMATCH));
+    if (!Object.is(t <= 0 ? 0 : -y * t + j, r.lnDiscount)) return fail(coreError('schema', 'index', 'not on the form'));
     const l = (x: number): string => `L1 = ${slopeLoading(x)}, L2 = ${curvatureLoading(x)}`;
     const at = r.name.slice(3, -1);
     steps.push({ name: `y(${at})`, formula: `y(${at}) = b0 + b1 L1(x) + b2 L2(x)${sv ? ' + b3 L2(x2)' : ''}, x = t/tau1 (${l(t / p.tau1)})${sv ? `, x2 = t/tau2 (${l(t / p.tau2!)})` : ''}`, inputs: [...params, r.name], value: y, unit: pu });
@@ -49,13 +48,13 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
   steps.push(...e.steps);
   const yu = `decimal per year: ${row.yieldLabel}`;
   const my = o.qy.toYield(model);
-  if (!Object.is(my, row.modelYield)) return fail(coreError('schema', 'index', MISMATCH));
-  if (my !== model || o.ins.unit === 'price') steps.push({ name: 'model yield', formula: 'model yield = own yield at the model value', inputs: ['model'], value: my, unit: yu });
+  const own = my !== model || o.ins.unit === 'price';
+  if (own) steps.push({ name: 'model yield', formula: 'model yield = own yield at the model value', inputs: ['model'], value: my, unit: yu });
   let value = my;
   if (figure === 'residual') {
     steps.push({ name: 'market yield', formula: 'market yield = own yield at the market value', inputs: [], value: o.marketYield, unit: yu });
     value = (my - o.marketYield) * 1e4;
-    steps.push({ name: 'residual', formula: 'residual = (model yield - market yield) x 10,000', inputs: [my !== model || o.ins.unit === 'price' ? 'model yield' : 'model', 'market yield'], value, unit: 'bp' });
+    steps.push({ name: 'residual', formula: 'residual = (model yield - market yield) x 10,000', inputs: [own ? 'model yield' : 'model', 'market yield'], value, unit: 'bp' });
   }
   return ok({
     ...e,

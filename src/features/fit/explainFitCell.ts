@@ -26,6 +26,6 @@ export function explainFitCell(result: WorkbenchBuild, cell: FitCell['fit']): Re
   if (!r.ok) return r;
   const row = result.conversion.rowOfQuote[cell.index];
   const title = `${cell.figure === 'yield' ? 'Fitted model yield' : 'Fit residual'} of ${row === undefined ? 'a quote' : `row ${row + 1}`}`;
-  const note = 'none: a fit is not exact, every quote moves every parameter; and no value under other interpolation methods: a parametric form interpolates nothing';
+  const note = 'none: a fit is not exact; no value under other interpolation methods: a parametric form interpolates nothing';
   return cellOf(result, title, r.value, { ok: true, value: [] }, note, []);
 }

@@ -1,4 +1,4 @@
-import { explainQuoteCheck, quoteOnCurve, quoteYieldLabel, valueUnderEachMethod, type QuoteCheckFigure, type Result } from '../../core/index.ts';
+import { coreError, explainQuoteCheck, fail, quoteOnCurve, quoteYieldLabel, valueUnderEachMethod, type QuoteCheckFigure, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { buildUnder, cellOf, type CellExplanation } from './explainCell.ts';
 
@@ -10,7 +10,7 @@ export interface QuoteCheckCell {
   };
 }
 
-const fail = <T,>(message: string): Result<T> => ({ ok: false, errors: [{ path: '', quote: null, code: 'schema', message }] });
+const no = <T,>(message: string): Result<T> => fail(coreError('schema', '', message));
 
 /**
  * The explanation of a quote check figure: the quote's instrument re-priced on the build's curve
@@ -21,14 +21,14 @@ const fail = <T,>(message: string): Result<T> => ({ ok: false, errors: [{ path: 
  */
 export function explainQuoteCell(result: WorkbenchBuild, cell: QuoteCheckCell['quoteCheck']): Result<CellExplanation> {
   const curve = result.build.curve;
-  if (!curve) return fail(result.fatal ?? 'no curve');
+  if (!curve) return no(result.fatal ?? 'no curve');
   const ins = result.build.instruments.find((i) => i.index === cell.index);
   const row = result.build.repricing.find((r) => r.index === cell.index);
-  if (!ins || !row) return fail('this quote is not in the curve now');
+  if (!ins || !row) return no('this quote is not in the curve now');
   const r = explainQuoteCheck(curve, ins, curve.settlement, cell.figure);
   if (!r.ok) return r;
   const shown = cell.figure === 'model' ? row.model : row.unit === 'price' ? row.repricingError : row.repricingError * 1e4;
-  if (!Object.is(r.value.value, shown)) return fail(`the ${ins.kind} ${ins.maturity} reads more than this curve: not explained yet`);
+  if (!Object.is(r.value.value, shown)) return no('not explained yet: it reads more than this curve');
   const sheetRow = result.conversion.rowOfQuote[ins.index];
   const rowText = sheetRow === undefined ? 'this quote' : `row ${sheetRow + 1}`;
   const influences = { ok: true as const, value: [{ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: quoteYieldLabel(ins), bpPerBp: 1 }] };
@@ -39,7 +39,7 @@ export function explainQuoteCell(result: WorkbenchBuild, cell: QuoteCheckCell['q
     (on) => {
       const model = quoteOnCurve(ins, on.lnDiscountAt);
       const v = cell.figure === 'model' ? model : ins.unit === 'price' ? model - ins.market : (model - ins.market) * 1e4;
-      return Number.isFinite(v) ? { ok: true, value: v } : fail('no value');
+      return Number.isFinite(v) ? { ok: true, value: v } : no('no value');
     },
   );
   return cellOf(result, `${cell.figure === 'model' ? `Model ${ins.field}` : 'Repricing error'} of ${rowText}: ${ins.kind} ${ins.maturity}`, r.value, influences, note, methods);
