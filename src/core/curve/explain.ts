@@ -32,7 +32,12 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
   /** The spread between two curves' zero rates or forwards (curve/explainSpread.ts). */
   | 'curve-spread'
   /** A forward's sensitivity to one quote, bp per bp (analytics/explainRisk.ts). */
-  | 'forward-sensitivity';
+  | 'forward-sensitivity'
+  /** A quote's model value re-priced off the curve, and its difference from the market (curve/explainQuote.ts). */
+  | 'quote-model'
+  | 'quote-error'
+  /** A quote's model yield or residual on a smooth fit (fit/explainFit.ts). */
+  | 'fit-figure';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
@@ -126,8 +131,10 @@ export interface ExplainedConventions {
   readonly curveDayCount: string;
   readonly interpolation: InterpolationId;
   readonly extrapolation: Extrapolation;
-  readonly businessDay: 'unadjusted';
-  readonly calendar: 'none';
+  /** 'unadjusted' for a query date; a quote's own rule (the quote check). */
+  readonly businessDay: string;
+  /** 'none' for a query date; a quote's own calendar (the quote check). */
+  readonly calendar: string;
 }
 
 /** Everything behind one number. */

@@ -107,7 +107,16 @@ export interface FitResult {
   readonly richCheap: readonly RichCheapEntry[];
 }
 
-interface Observation {
+/**
+ * Handed to fitCurve to receive what its residuals are computed from (explanations,
+ * fit/explainFit.ts): the fitted ln DF the residuals read (the form plus the turns' jump), the
+ * turns, and each quote's instrument, own yield and market yield.
+ */
+export interface FitSink {
+  trace?: { readonly ln: (t: number) => number; readonly turns: readonly TurnSpan[]; readonly observations: readonly Observation[] };
+}
+
+export interface Observation {
   readonly ins: Instrument;
   readonly qy: QuoteYield;
   readonly weight: number;
@@ -178,7 +187,7 @@ const logGrid = (lo: number, hi: number, count: number): number[] =>
  * Returns an error value when fewer quotes are included than the model has parameters; a fit
  * that does not converge comes back with `converged: false` and a report saying what to try.
  */
-export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> {
+export function fitCurve(ws: Workspace, options: FitOptions, sink?: FitSink): Result<FitResult> {
   const model = options.model;
   const errors = options.errors ?? 'yield';
   const ratio = options.tauRatio ?? TAU_RATIO_MIN;
@@ -245,6 +254,7 @@ export function fitCurve(ws: Workspace, options: FitOptions): Result<FitResult> 
   const params = paramsFromVector(model, best.x);
   const curve = parametricCurve(ws, params, obs, turns);
   const lnFit = (t: number): number => parametricLnDiscount(params, t) + turnLn(turns, t);
+  if (sink) sink.trace = { ln: lnFit, turns, observations: obs };
   const residuals: FitResidual[] = obs.map((o) => {
     const modelYield = o.qy.toYield(o.ins.modelQuote(lnFit));
     const modelPv = presentValue(o.ins, lnFit);

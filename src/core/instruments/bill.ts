@@ -2,7 +2,7 @@ import { civilFromIso, daysBetween, isLeapYear, parseIsoDate, serialFromIso, typ
 import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import type { Tenor } from '../time/tenor.ts';
 import type { BillQuote } from '../document/types.ts';
-import type { Instrument } from './instrument.ts';
+import type { Instrument, QuoteTrace } from './instrument.ts';
 import { SingleFlowInstrument, SpotSingleFlow } from './singleFlow.ts';
 
 const ONE_YEAR: Tenor = Object.freeze({ n: 1, unit: 'Y' });
@@ -82,7 +82,8 @@ class BillInstrument extends SingleFlowInstrument<BillQuote> {
   }
 
   /** The discount yield (1 - DF) 360 / days, or the price 100 DF per 100 face. */
-  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    trace?.('lnP', ln[offset]!);
     return this.unit === 'rate' ? (-Math.expm1(ln[offset]!) * 360) / this.days : 100 * df[offset]!;
   }
 

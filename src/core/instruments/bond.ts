@@ -2,7 +2,7 @@ import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { isoFromCivil, civilFromIso, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { BondQuote } from '../document/types.ts';
-import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING, type Instrument, type QuoteTrace } from './instrument.ts';
 
 /**
  * A fixed-coupon bond's cash flows after settlement, per 100 face.
@@ -151,10 +151,11 @@ class BondInstrument extends CompiledInstrument<BondQuote> {
   }
 
   /** The clean price (dirty sum CF DF minus accrued, per 100 face), or the ICMA yield of the dirty price. */
-  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
     const { amounts } = this;
     let dirty = 0;
     for (let j = 0; j < amounts.length; j++) dirty += amounts[j]! * df[offset + j]!;
+    trace?.('dirty', dirty);
     return this.unit === 'rate' ? (bondYieldFromDirty(this.schedule, dirty) ?? Number.NaN) : dirty - this.accrued;
   }
 
@@ -200,11 +201,13 @@ class SpotBondInstrument extends BondInstrument {
   }
 
   /** The clean price at S, sum CF DF / DF(S) - accrued, or the ICMA yield at S of that dirty price. */
-  override quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  override quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
     const { amounts } = this;
     let pv = 0;
     for (let j = 1; j < amounts.length; j++) pv += amounts[j]! * df[offset + j]!;
     const dirty = pv / df[offset]!;
+    trace?.('pv', pv);
+    trace?.('dirty', dirty);
     return this.unit === 'rate' ? (bondYieldFromDirty(this.schedule, dirty) ?? Number.NaN) : dirty - this.accrued;
   }
 

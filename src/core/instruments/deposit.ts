@@ -1,7 +1,7 @@
 import { yearFraction } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { DepositQuote, Quote } from '../document/types.ts';
-import { DISCOUNTING, type CurveRoles, type Instrument } from './instrument.ts';
+import { DISCOUNTING, type CurveRoles, type Instrument, type QuoteTrace } from './instrument.ts';
 import { SingleFlowInstrument } from './singleFlow.ts';
 import { GrowthRatio } from './growthRatio.ts';
 
@@ -37,8 +37,10 @@ class DepositInstrument extends SingleFlowInstrument<DepositQuote> {
   }
 
   /** The simple rate on the deposit's day count, expm1(-ln DF) / tau (full precision for short tenors). */
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return Math.expm1(-ln[offset]!) / this.tau;
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    const g = Math.expm1(-ln[offset]!);
+    trace?.('g', g);
+    return g / this.tau;
   }
 
   requote(value: number): Instrument {
@@ -64,8 +66,10 @@ export class ForwardDeposit<Q extends Quote = DepositQuote> extends GrowthRatio<
   }
 
   /** The simple forward rate, expm1(ln DF(S) - ln DF(E)) / tau. */
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return Math.expm1(ln[offset]! - ln[offset + 1]!) / this.tau;
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    const g = Math.expm1(ln[offset]! - ln[offset + 1]!);
+    trace?.('g', g);
+    return g / this.tau;
   }
 
   requote(value: number): Instrument {

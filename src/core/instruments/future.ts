@@ -3,7 +3,7 @@ import { businessCalendar } from '../time/calendars.ts';
 import { civilFromIso, civilFromSerial, isoFromSerial, serialFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import { averagedFixings } from '../time/futurePeriods.ts';
 import type { FutureQuote } from '../document/types.ts';
-import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument, type QuoteTrace } from './instrument.ts';
 import { GrowthRatio } from './growthRatio.ts';
 
 /** The overnight rate's day basis of SOFR futures: ACT/360 (CME SOFR futures specifications). */
@@ -94,8 +94,11 @@ class CompoundedFuture extends GrowthRatio<FutureQuote> {
   }
 
   /** 100 (1 - R - CA) with R = expm1(ln known + ln DF(c) - ln DF(E)) / tau (c = S before the period). */
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return futurePriceOf(Math.expm1(this.lnKnown + ln[offset]! - ln[offset + 1]!) / this.tau, this.quote.convexity);
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    const g = Math.expm1(this.lnKnown + ln[offset]! - ln[offset + 1]!);
+    trace?.('g', g);
+    trace?.('R', g / this.tau);
+    return futurePriceOf(g / this.tau, this.quote.convexity);
   }
 
   requote(value: number): Instrument {
@@ -140,9 +143,13 @@ class HolidayStartFuture extends CompiledInstrument<FutureQuote> {
   }
 
   /** 100 (1 - R - CA), R = expm1(ln(1 + w expm1(ln DF(b0) - ln DF(b1))) + ln DF(b1) - ln DF(E)) / tau. */
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
     const lnStart = Math.log1p(this.w * Math.expm1(ln[offset]! - ln[offset + 1]!)) + ln[offset + 1]!;
-    return futurePriceOf(Math.expm1(lnStart - ln[offset + 2]!) / this.tau, this.quote.convexity);
+    const g = Math.expm1(lnStart - ln[offset + 2]!);
+    trace?.('lnStart', lnStart);
+    trace?.('g', g);
+    trace?.('R', g / this.tau);
+    return futurePriceOf(g / this.tau, this.quote.convexity);
   }
 
   requote(value: number): Instrument {
@@ -219,9 +226,15 @@ class AveragedFuture extends CompiledInstrument<FutureQuote> {
   }
 
   /** The model price 100 (1 - R_model - CA), R_model = (1 / N) sum_i w_i r_i. */
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
     let sum = this.knownSum;
-    for (let i = 0; i < this.weights.length; i++) sum += this.weights[i]! * this.forward(ln, offset, i);
+    for (let i = 0; i < this.weights.length; i++) {
+      const r = this.forward(ln, offset, i);
+      trace?.('r', r);
+      sum += this.weights[i]! * r;
+    }
+    trace?.('sum', sum);
+    trace?.('R', sum / this.days);
     return futurePriceOf(sum / this.days, this.quote.convexity);
   }
 

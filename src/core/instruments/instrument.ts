@@ -72,7 +72,7 @@ export interface Instrument {
    * ln DF at `times[j]` in `ln[offset + j]` and DF = exp of it in `df[offset + j]`. The one
    * formula of each kind; `modelQuote` reads the curve into these arrays and calls it.
    */
-  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number;
   /** The same instrument with another market quote value (schedules are kept). */
   requote(value: number): Instrument;
   /**
@@ -95,6 +95,13 @@ export interface Instrument {
    */
   residualFromFlows?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
 }
+
+/**
+ * Receives a model quote's own intermediate values by name, in the order `quoteFromFlows` computes
+ * them (the quote check's explanations, curve/explainQuote.ts, turn them into steps). Absent, an
+ * instrument records nothing; a kind that hands nothing is explained by its reads alone.
+ */
+export type QuoteTrace = (name: string, value: number) => void;
 
 /** ln DF and DF of a curve (ln DF on its axis) at an instrument's flow times; plain arrays of doubles, cheaper to allocate than small typed arrays. */
 function curveAtFlows(instrument: Instrument, lnDiscountAt: (t: number) => number): { ln: number[]; df: number[] } {
@@ -132,9 +139,9 @@ export function residualOnCurve(instrument: Instrument, lnDiscountAt: (t: number
  * The model quote of an instrument on a curve given by ln DF on its axis: the curve read at the
  * instrument's flow times, then `quoteFromFlows`. Every kind's `modelQuote` is this.
  */
-export function quoteOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number): number {
+export function quoteOnCurve(instrument: Instrument, lnDiscountAt: (t: number) => number, trace?: QuoteTrace): number {
   const { ln, df } = curveAtFlows(instrument, lnDiscountAt);
-  return instrument.quoteFromFlows(ln, df, 0);
+  return instrument.quoteFromFlows(ln, df, 0, trace);
 }
 
 /** Present value of an instrument's flows on a curve. */
@@ -202,6 +209,6 @@ export abstract class CompiledInstrument<Q extends Quote> implements Instrument 
     return quoteOnCurve(this, lnDiscountAt);
   }
 
-  abstract quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
+  abstract quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number;
   abstract requote(value: number): Instrument;
 }

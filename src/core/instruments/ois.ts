@@ -4,7 +4,7 @@ import { civilFromIso, isoFromCivil, serialFromCivil, type CivilDate } from '../
 import { parseTenor } from '../time/tenor.ts';
 import { swapDates, type SwapDates } from '../time/swapSchedule.ts';
 import type { Result } from '../result.ts';
-import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument, type QuoteTrace } from './instrument.ts';
 import { fixedLegFlows, parRateFromFlows } from './swap.ts';
 
 /**
@@ -87,8 +87,8 @@ class OisSwapForm extends CompiledInstrument<DatedSwapQuote> {
   }
 
   /** K = (1 - DF(E_n)) / sum tau_i DF(E_i): the swap's own arithmetic (parRateFromFlows). */
-  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
-    return parRateFromFlows(this.taus, ln, df, offset);
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    return parRateFromFlows(this.taus, ln, df, offset, trace);
   }
 
   requote(value: number): Instrument {
@@ -149,11 +149,14 @@ class LaggedOis extends CompiledInstrument<DatedSwapQuote> {
   }
 
   /** K = floating leg / sum tau_i DF(P_i). */
-  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
     const { taus, pIdx } = this;
     let annuity = 0;
     for (let i = 0; i < taus.length; i++) annuity += taus[i]! * df[offset + pIdx[i]!]!;
-    return this.targetFromFlows(ln, df, offset) / annuity;
+    const float = this.targetFromFlows(ln, df, offset);
+    trace?.('A', annuity);
+    trace?.('float', float);
+    return float / annuity;
   }
 
   requote(value: number): Instrument {

@@ -1,5 +1,5 @@
 import type { BillQuote, DepositQuote, ZeroQuote } from '../document/types.ts';
-import { CompiledInstrument, DISCOUNTING, type QuoteUnit } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING, type QuoteTrace, type QuoteUnit } from './instrument.ts';
 
 /**
  * What the single-flow instruments (deposit, bill, zero) share: one cash flow at the pillar, whose
@@ -53,8 +53,10 @@ export abstract class SpotSingleFlow<Q extends BillQuote | ZeroQuote> extends Co
     return ln[offset + 1]! - ln[offset]! - this.lnRatio;
   }
 
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.quoteOfRatio(ln[offset + 1]! - ln[offset]!);
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    const lnRatio = ln[offset + 1]! - ln[offset]!;
+    trace?.('lnP', lnRatio);
+    return this.quoteOfRatio(lnRatio);
   }
 
 }

@@ -2,7 +2,7 @@ import { yearFractionCivil, type DayCount } from '../time/dayCount.ts';
 import { compareCivil, isoFromCivil, civilFromIso, isMonthEnd, sameCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
 import type { SwapQuote } from '../document/types.ts';
-import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument, type QuoteTrace } from './instrument.ts';
 
 /** One accrual period of a fixed leg. */
 export interface FixedPeriod {
@@ -154,11 +154,14 @@ export function fixedLegFlows(rate: number, taus: readonly number[]): number[] {
  * The single-curve par rate (1 - DF(T_n)) / sum tau_i DF(T_i) from ln DF and DF at the fixed-leg
  * dates (from `offset`), with 1 - DF(T_n) as -expm1(ln DF(T_n)).
  */
-export function parRateFromFlows(taus: readonly number[], ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+export function parRateFromFlows(taus: readonly number[], ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
   const n = taus.length;
   let annuity = 0;
   for (let j = 0; j < n; j++) annuity += taus[j]! * df[offset + j]!;
-  return -Math.expm1(ln[offset + n - 1]!) / annuity;
+  const num = -Math.expm1(ln[offset + n - 1]!);
+  trace?.('A', annuity);
+  trace?.('num', num);
+  return num / annuity;
 }
 
 /**
@@ -179,8 +182,8 @@ class SwapInstrument extends CompiledInstrument<SwapQuote> {
     this.taus = taus;
   }
 
-  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
-    return parRateFromFlows(this.taus, ln, df, offset);
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    return parRateFromFlows(this.taus, ln, df, offset, trace);
   }
 
   requote(value: number): Instrument {

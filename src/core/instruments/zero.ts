@@ -2,7 +2,7 @@ import { lnDiscountFromRate, rateFromLnDiscount } from '../rates/compounding.ts'
 import { yearFraction } from '../time/dayCount.ts';
 import { civilFromIso, type CivilDate, type IsoDate } from '../time/date.ts';
 import type { ZeroQuote } from '../document/types.ts';
-import type { Instrument } from './instrument.ts';
+import type { Instrument, QuoteTrace } from './instrument.ts';
 import { SingleFlowInstrument, SpotSingleFlow } from './singleFlow.ts';
 
 /**
@@ -52,7 +52,8 @@ class ZeroInstrument extends SingleFlowInstrument<ZeroQuote> {
   }
 
   /** The zero rate in the quote's compounding and day count, or the price 100 DF per 100 face. */
-  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  quoteFromFlows(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    trace?.('lnP', ln[offset]!);
     return this.unit === 'rate' ? rateFromLnDiscount(ln[offset]!, this.quote.compounding, this.tau) : 100 * df[offset]!;
   }
 

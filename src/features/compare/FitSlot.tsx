@@ -12,6 +12,7 @@ export function FitSlot({ result }: { result: WorkbenchBuild }) {
   const model = useAppStore((s) => comparisonChoice(s.workspace).fitModel);
   const errors = useAppStore((s) => comparisonChoice(s.workspace).fitErrors);
   const { exclude, weights, set } = useFitInput();
+  const display = useAppStore((s) => s.workspace.display);
   return (
     <FitPanel
       workspace={result.build.workspace}
@@ -27,6 +28,7 @@ export function FitSlot({ result }: { result: WorkbenchBuild }) {
       onExcludeChange={(x) => set({ exclude: x })}
       weights={weights}
       onWeightsChange={(w) => set({ weights: w })}
+      explainFrom={{ result, display }}
     />
   );
 }

@@ -23,6 +23,12 @@ import { BASE_STYLES } from '../../charts/palette.ts';
 import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
 import type { Curve } from '../../core/index.ts';
 import { RichCheapTable } from './RichCheapTable.tsx';
+import type { DisplaySettings } from '../../core/index.ts';
+import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
+import type { FitCell } from './explainFitCell.ts';
+
+const sameFitCell = (a: FitCell, b: FitCell): boolean => a.fit.index === b.fit.index && a.fit.figure === b.fit.figure;
 
 export interface FitPanelProps {
   /** The validated workspace whose enabled quotes are fitted (null: nothing to fit yet). */
@@ -47,6 +53,8 @@ export interface FitPanelProps {
   /** The shown build's turns (spreads as built; `FitOptions.turns`) and whether it has meeting steps: the fit carries the turns and says what it leaves out. */
   readonly turns?: FitOptions['turns'];
   readonly steps?: boolean;
+  /** The build and display the explanation panel reads (the model yields and residuals open their explanation when given). */
+  readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
 }
 
 /** Controlled when `set` is given, else local state seeded from the prop. */
@@ -69,7 +77,20 @@ export function FitPanel(props: FitPanelProps) {
   const [weightText, setWeightText] = useState<Record<number, string>>({});
   const ws = props.workspace;
   const turns = props.turns;
-  const result = useMemo(() => (ws && model !== 'none' ? fitCurve(ws, { model, errors, exclude, weights, ...(turns ? { turns } : {}) }) : null), [ws, model, errors, exclude, weights, turns]);
+  const options = useMemo(() => (model === 'none' ? null : { model, errors, exclude, weights, ...(turns ? { turns } : {}) }), [model, errors, exclude, weights, turns]);
+  const result = useMemo(() => (ws && options ? fitCurve(ws, options) : null), [ws, options]);
+  const explain = useExplainOpener<FitCell>(sameFitCell);
+  // The open figure follows the panel's options, closed when its quote leaves the residuals.
+  const open = explain.open && options && result?.ok && result.value.residuals.some((r) => r.index === explain.open!.fit.index) ? { fit: { ...explain.open.fit, options } } : null;
+  const figure = (index: number, which: FitCell['fit']['figure'], text: string) => {
+    if (!props.explainFrom || !options) return text;
+    const cell: FitCell = { fit: { options, index, figure: which } };
+    return (
+      <button type="button" className="cell-explain" data-field={which === 'residual' ? 'residual-bp' : undefined} aria-label={`${text}: explain the ${which === 'yield' ? 'fitted model yield' : 'fit residual'} of row ${rowNumber(props.rowOfQuote, index)}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   const zeroTag = ws ? rateTag('continuous', ws.curve.dayCount) : 'cont';
   const repricingByIndex = new Map((props.repricing ?? []).map((r) => [r.index, r]));
 
@@ -187,8 +208,8 @@ export function FitPanel(props: FitPanelProps) {
                     <td>{r.maturity}</td>
                     <td>{r.yieldLabel}</td>
                     <td className="n">{formatPercent(r.marketYield)}</td>
-                    <td className="n">{formatPercent(r.modelYield)}</td>
-                    <td className="n" data-field="residual-bp">{bpFigure(r.residualBp)}</td>
+                    <td className="n">{figure(r.index, 'yield', formatPercent(r.modelYield))}</td>
+                    <td className="n" data-field="residual-bp">{figure(r.index, 'residual', bpFigure(r.residualBp))}</td>
                     <td className="n" data-field="residual-price">{formatPrice(r.residualPrice)}</td>
                     <RepricingCell rep={rep} />
                   </tr>
@@ -197,6 +218,7 @@ export function FitPanel(props: FitPanelProps) {
             </tbody>
           </table>
           </div>
+          {props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={open} onClose={explain.close} />}
           {Object.keys(weightText).map((k) => weightError(Number(k))).filter((m): m is string => m !== null).map((m) => (
             <p key={m} role="alert" className="error">{m}</p>
           ))}

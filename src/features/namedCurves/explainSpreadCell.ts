@@ -7,7 +7,8 @@ import {
   isPlainObject,
   marketDate,
   parseTenor,
-  topQuoteInfluences,
+  topQuoteInfluencesAcrossCurves,
+  type CurveWithQuotes,
   type QuoteInfluence,
   valueUnderEachMethod,
   type Curve,
@@ -75,20 +76,24 @@ export function explainSpreadCell(result: WorkbenchBuild, display: DisplaySettin
   const r = explainCurveSpread(a.curve, b.curve, names, measure, date, c, dc, tenor, { date: cell.tenor, start: cell.tenor, end: `${display.forwardTenor} after the start` });
   if (!r.ok) return r;
   const explanation = r.value.explanation;
-  // The quotes behind the spread: each rate against its own curve's quotes (topQuoteInfluences),
-  // the second's subtracted. A projection curve's rates also move with its discounting curve's
-  // quotes; forwardInfluencesAcrossCurves would add those (the curve command lists them), at about
-  // 0.9 KB gzip of code the workbench does not carry yet.
-  const quotes: (QuoteInfluence & { curve: string })[] = [];
-  let influences: Influences = { ok: true, value: quotes };
+  // The quotes behind the spread: each rate against every quote of every curve it reads
+  // (topQuoteInfluencesAcrossCurves: a projection curve's rates also move with its discounting
+  // curve's quotes), the second's subtracted; a quote both rates read counts once, net.
+  const set: CurveWithQuotes[] = [{ name: DEFAULT_NAME, curve: result.build.curve!, instruments: result.build.instruments }];
+  for (const n of named.curves) if (n.build.curve && n.build.errors.length === 0) set.push({ name: n.name, curve: n.build.curve, instruments: n.build.instruments });
+  const net = new Map<string, QuoteInfluence & { curve: string }>();
+  let influences: Influences = { ok: true, value: [] };
   for (const [name, part, sign] of [[names.of, a, 1], [names.over, b, -1]] as const) {
-    const inf = topQuoteInfluences(part.curve!, part.instruments, measure === 'zero' ? part.curve!.settlement : date, measure === 'zero' ? date : end, c, dc);
+    const inf = topQuoteInfluencesAcrossCurves(set, name, measure === 'zero' ? part.curve!.settlement : date, measure === 'zero' ? date : end, c, dc, Infinity);
     if (!inf.ok) influences = inf;
-    else for (const q of inf.value) quotes.push({ ...q, bpPerBp: sign * q.bpPerBp, curve: name });
+    else for (const q of inf.value) {
+      const key = `${q.curve} ${q.index}`;
+      net.set(key, { ...q, bpPerBp: (net.get(key)?.bpPerBp ?? 0) + sign * q.bpPerBp });
+    }
   }
-  // Against itself the spread does not move.
-  quotes.sort((x, y) => Math.abs(y.bpPerBp) - Math.abs(x.bpPerBp)).splice(cell.of === cell.over ? 0 : 5);
-  const note = `spread = ${names.of} - ${names.over}: each rate against its own curve's quotes, a ${names.over} quote with the sign turned (a projection curve's moves through its discounting curve are not counted)`;
+  const quotes = [...net.values()].filter((q) => q.bpPerBp !== 0).sort((x, y) => Math.abs(y.bpPerBp) - Math.abs(x.bpPerBp)).slice(0, 5);
+  if (influences.ok) influences = { ok: true, value: quotes };
+  const note = `spread = ${names.of} - ${names.over}: each rate against the quotes of every curve it reads, the ${names.over} rate's sign turned`;
   // Every curve built under each method: the default curve as the workbench builds it, the named curves after it;
   // the method's first curve is read with its second beside it.
   const pairs = new Map<Curve, Curve>();

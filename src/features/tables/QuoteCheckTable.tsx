@@ -3,6 +3,10 @@ import type { Curve, Quote, Repricing } from '../../core/index.ts';
 import { PRICE_ACCEPTANCE, quoteConvention, quoteConventionTag, quoteSchedule, RATE_ACCEPTANCE, type QuoteSchedule, formatNumber, formatQuotePrice, formatQuoteRate, nearZero } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
+import { OpenExplanation, useExplainOpener } from './explainOpener.tsx';
+import type { QuoteCheckCell } from './explainQuoteCell.ts';
+
+const sameQuoteCell = (a: QuoteCheckCell, b: QuoteCheckCell): boolean => a.quoteCheck.index === b.quoteCheck.index && a.quoteCheck.figure === b.quoteCheck.figure;
 
 const showQuote = (r: Repricing, v: number): string => (r.unit === 'price' ? formatQuotePrice(v) : formatQuoteRate(v));
 /**
@@ -20,7 +24,20 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
   const rows = useAppStore((s) => s.workspace.quotes);
   const selectedRowId = useAppStore((s) => s.selectedRowId);
   const selectRow = useAppStore((s) => s.selectRow);
+  const display = useAppStore((s) => s.workspace.display);
+  const explain = useExplainOpener<QuoteCheckCell>(sameQuoteCell);
   const { build, conversion } = result;
+  // The open figure follows the table: closed when its quote leaves the curve.
+  const open = explain.open && build.repricing.some((r) => r.index === explain.open!.quoteCheck.index) ? explain.open : null;
+  /** A figure that opens its explanation (Enter or a click); `label` names it for a screen reader. */
+  const figure = (rep: Repricing, which: QuoteCheckCell['quoteCheck']['figure'], text: string, label: string) => {
+    const cell: QuoteCheckCell = { quoteCheck: { index: rep.index, figure: which } };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain ${label}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   const byRow = new Map<number, Repricing>();
   for (const r of build.repricing) {
     const row = conversion.rowOfQuote[r.index];
@@ -33,7 +50,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
     <div className="quote-check">
       <div className="scroll-y" tabIndex={0} role="region" aria-label="Quote check (scrolls)">
         <table className="data" aria-label="Quote check">
-          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield, future or FRA row to see its schedule.</caption>
+          <caption>Each quote repriced on the built curve; choose a bond, swap, par yield, future or FRA row to see its schedule; a figure, how it is made.</caption>
           <thead>
             <tr>
               <th scope="col">Row</th>
@@ -69,8 +86,8 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
                         {rep.field} <span className="tag">{quoteConventionTag(quoteConvention(q))}</span>
                       </td>
                       <td className="n">{showQuote(rep, rep.market)}</td>
-                      <td className="n">{showQuote(rep, rep.model)}</td>
-                      <td className="n" title={showError(rep).title}>{showError(rep).text}</td>
+                      <td className="n">{figure(rep, 'model', showQuote(rep, rep.model), `the model ${rep.field} of row ${i + 1}`)}</td>
+                      <td className="n" title={showError(rep).title}>{figure(rep, 'error', showError(rep).text, `the repricing error of row ${i + 1}`)}</td>
                     </>
                   ) : (
                     <td colSpan={6} className="muted">
@@ -83,6 +100,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
           </tbody>
         </table>
       </div>
+      <OpenExplanation result={result} display={display} cell={open} onClose={explain.close} />
       {selectedIndex >= 0 && <ScheduleView rowNumber={selectedIndex + 1} quote={quoteByIndex.get(conversion.rowOfQuote.indexOf(selectedIndex))} curve={build.curve} settlement={build.workspace?.settlement ?? ''} />}
     </div>
   );

@@ -1,0 +1,74 @@
+// The smooth fit's residual table explained: each quote's model yield and residual on a
+// Nelson-Siegel or Svensson fit end in the table's figures (fitCurve's residuals) bit for bit; the
+// form's zero rate at every flow time is recomputed here from the shown parameters and t by the
+// published forms, y(t) = b0 + b1 (1 - e^-x)/x + b2 ((1 - e^-x)/x - e^-x) (+ b3 of the same in
+// t/tau2), x = t/tau1 (C. R. Nelson and A. F. Siegel, Journal of Business 60(4), 1987; L. E. O.
+// Svensson, NBER WP 4871, 1994), ln DF = -y t, and the quote's model value from those reads by its
+// kind's formula (test/helpers/quoteCheckRecompute.ts), all to 1e-15 relative. Market invented.
+import { buildCurve, explainFitFigure, fitCurve, type FitSink, type FitErrors, type FitModel } from '../../../src/core/index.ts';
+import { workspaceDoc } from '../../helpers/markets.ts';
+import { recompute, rel } from '../../helpers/quoteCheckRecompute.ts';
+
+const VALUATION = '2026-12-02';
+const MARKET = [
+  { kind: 'deposit', tenor: '1M', rate: 0.0383 },
+  { kind: 'deposit', tenor: '3M', rate: 0.0379 },
+  { kind: 'bill', maturity: '2027-06-03', discountYield: 0.0368 },
+  { kind: 'zero', tenor: '1Y', rate: 0.0352, compounding: 'semiannual', dayCount: 'ACT/365F' },
+  { kind: 'ois', tenor: '2Y', rate: 0.0345 },
+  { kind: 'swap', tenor: '3Y', rate: 0.0349 },
+  { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0361 },
+  { kind: 'bond', maturity: '2033-05-15', coupon: 0.04, frequency: 2, cleanPrice: 101.2 },
+  { kind: 'swap', tenor: '10Y', rate: 0.0381 },
+];
+const ws = buildCurve(workspaceDoc(MARKET, { settlement: VALUATION })).workspace!;
+
+/** The form's zero rate by the published formula, (1 - e^-x) as -expm1(-x) for precision at small x. */
+function formZero(e: { steps: readonly { name: string; value: number }[] }, t: number): number {
+  const v = (n: string): number | undefined => e.steps.find((s) => s.name === n)?.value;
+  const L1 = (x: number): number => -Math.expm1(-x) / x;
+  const L2 = (x: number): number => L1(x) - Math.exp(-x);
+  const x = t / v('tau1')!;
+  let y = v('b0')! + v('b1')! * L1(x) + v('b2')! * L2(x);
+  if (v('tau2') !== undefined) y += v('b3')! * L2(t / v('tau2')!);
+  return y;
+}
+
+describe('explainFitFigure', () => {
+  for (const model of ['nelson-siegel', 'svensson'] as FitModel[]) {
+    for (const errors of ['yield', 'price'] as FitErrors[]) {
+      it(`${model}, ${errors} errors: ends in the residual table's model yield and residual bit for bit; steps recomputed to 1e-15`, () => {
+        const sink: FitSink = {};
+        const fit = fitCurve(ws, { model, errors }, sink);
+        if (!fit.ok) throw new Error(fit.errors[0]!.message);
+        // Traced equals untraced: the same fit without a sink, bit for bit.
+        const plain = fitCurve(ws, { model, errors });
+        if (!plain.ok) throw new Error('no fit');
+        expect(plain.value.residuals).toEqual(fit.value.residuals);
+        for (const row of fit.value.residuals) {
+          const where = `${row.kind} ${row.maturity}`;
+          const ins = sink.trace!.observations.find((o) => o.ins.index === row.index)!.ins;
+          for (const figure of ['yield', 'residual'] as const) {
+            const r = explainFitFigure(fit.value, sink.trace!, row.index, figure);
+            if (!r.ok) throw new Error(`${where}: ${r.errors[0]!.message}`);
+            const e = r.value;
+            expect(Object.is(e.value, figure === 'yield' ? row.modelYield : row.residualBp), where).toBe(true);
+            expect(Object.is(e.steps.at(-1)!.value, e.value), where).toBe(true);
+            for (const read of e.reads) {
+              const y = formZero(e, read.t);
+              expect(rel(y, e.steps.find((s) => s.name === `y(${read.name.slice(3, -1)})`)!.value), where).toBeLessThanOrEqual(1e-15);
+              expect(rel(-y * read.t, read.lnDiscount), where).toBeLessThanOrEqual(1e-15);
+            }
+            const modelValue = e.steps.find((s) => s.name === 'model')!.value;
+            expect(rel(recompute(ins, e), modelValue), where).toBeLessThanOrEqual(1e-15);
+            if (figure === 'residual') {
+              const my = e.steps.find((s) => s.name === 'model yield')?.value ?? modelValue;
+              const mk = e.steps.find((s) => s.name === 'market yield')!.value;
+              expect(Math.abs((my - mk) * 1e4 - e.value)).toBeLessThanOrEqual(1e-15 * Math.abs(e.value) + 1e-12);
+            }
+          }
+        }
+      });
+    }
+  }
+});

@@ -1,0 +1,54 @@
+// @vitest-environment jsdom
+// A fitted model yield and a fit residual open the explanation panel (issue 19): chosen by
+// keyboard, the panel's value and last step are the residual table's figure to all digits (fitCurve's
+// residuals, the table's own source; test/core/fit/explainFit.test.ts recomputes the form and the
+// quote from the shown inputs), the parameters are listed as fitted, the panel says why it lists no
+// quotes and no other methods, and Escape gives the focus back. The demo workspace (invented).
+import { render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { fitCurve, fullText } from '../../src/core/index.ts';
+import { FitPanel } from '../../src/features/fit/FitPanel.tsx';
+import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { useAppStore } from '../../src/state/store.ts';
+
+beforeAll(() => import('../../src/features/tables/lazyTables.ts'));
+
+vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
+
+const initial = useAppStore.getInitialState();
+beforeEach(() => useAppStore.setState(initial, true));
+
+describe('explanations in the smooth fit', () => {
+  it('a model yield and a residual open their explanations, ending in the shown figures to all digits', async () => {
+    const user = userEvent.setup({ delay: null });
+    const display = useAppStore.getState().workspace.display;
+    const result = deriveBuild(useAppStore.getState().workspace);
+    const ws = result.build.workspace!;
+    render(<FitPanel workspace={ws} model="svensson" onModelChange={() => {}} rowOfQuote={result.conversion.rowOfQuote} explainFrom={{ result, display }} />);
+    const fit = fitCurve(ws, { model: 'svensson', errors: 'yield', exclude: [], weights: {} });
+    if (!fit.ok) throw new Error(fit.errors[0]!.message);
+    const r = fit.value.residuals.find((x) => x.kind === 'bond')!;
+    const row = result.conversion.rowOfQuote[r.index]! + 1;
+    const table = screen.getByRole('table', { name: 'Fit residuals' });
+    const button = within(table).getByRole('button', { name: new RegExp(`explain the fit residual of row ${row}$`) });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: `Fit residual of row ${row}` });
+    expect(panel).toHaveFocus();
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(r.residualBp));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`residual = (model yield - market yield) x 10,000 = ${fullText(r.residualBp)} (bp)`);
+    expect(steps[0]).toBe(`b0 = fitted = ${fullText(fit.value.params.b0)} (decimal per year (continuous))`);
+    expect(steps.some((s) => s!.startsWith('tau2 = fitted'))).toBe(true);
+    expect(within(panel).getByRole('region', { name: 'Quotes it depends on most' }).textContent).toMatch(/a fit is not exact.*no value under other interpolation methods/);
+    await user.keyboard('{Escape}');
+    expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
+    expect(button).toHaveFocus();
+
+    const yieldButton = within(table).getByRole('button', { name: new RegExp(`explain the fitted model yield of row ${row}$`) });
+    yieldButton.focus();
+    await user.keyboard('{Enter}');
+    const yieldPanel = await screen.findByRole('complementary', { name: `Fitted model yield of row ${row}` });
+    expect(yieldPanel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(r.modelYield));
+  });
+});
