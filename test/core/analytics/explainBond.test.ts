@@ -1,13 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import {
-  addDays,
   analyzeBond,
   BOND_FIGURES,
   bondFigureValue,
   bondLnWeights,
   buildCurve,
   curveFromPillars,
-  DAY_COUNTS,
   DEFAULT_KEY_TENORS,
   explainBondFigure,
   INTERPOLATIONS,
@@ -19,14 +17,12 @@ import {
   type BondInput,
   type BondSide,
   type BondSink,
-  type Curve,
   type Explanation,
-  type InterpolationId,
-  type Pillar,
 } from '../../../src/core/index.ts';
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
 import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts';
 import { rng } from '../../helpers/seededRandom.ts';
+import { randomBond, randomCurve, valueOf } from '../../helpers/randomBonds.ts';
 
 // Explanations of the bond figures (issue 19). Three claims:
 // 1. analyzeBond with a sink returns what it returns without one, bit for bit, and each figure's
@@ -43,38 +39,7 @@ import { rng } from '../../helpers/seededRandom.ts';
 //    continuously compounded zero rates 5.0%, 5.8%, 6.4%, 6.8% at 0.5, 1, 1.5, 2 years is worth
 //    98.39, and its (continuously compounded) yield is 6.76%.
 
-const SETTLEMENT = '2026-07-15';
-
-function randomCurve(r: () => number, method: InterpolationId): Curve {
-  const n = 3 + Math.floor(r() * 8);
-  const pillars: Pillar[] = [];
-  let day = 0;
-  for (let i = 0; i < n; i++) {
-    day += 60 + Math.floor(r() * 1500);
-    const z = -0.005 + r() * 0.06;
-    pillars.push({ date: addDays(SETTLEMENT, day), t: day / 365, discount: Math.exp((-z * day) / 365), quote: i });
-  }
-  return curveFromPillars(SETTLEMENT, 'ACT/365F', method, 'flat-forward', pillars);
-}
-
-/** A bond maturing by a year past the curve's last node (flat-forward extrapolation beyond it). */
-function randomBond(r: () => number, curve: Curve): BondInput {
-  const span = Math.round((Date.parse(curve.pillars.at(-1)!.date) - Date.parse(SETTLEMENT)) / 86400000) + 365;
-  const frequency = [1, 2, 4, 12][Math.floor(r() * 4)]!;
-  const base = {
-    maturity: addDays(SETTLEMENT, 20 + Math.floor(r() * span)),
-    coupon: Math.round(r() * 1000) / 10000,
-    frequency,
-    dayCount: DAY_COUNTS[Math.floor(r() * DAY_COUNTS.length)]!,
-  };
-  const q = r();
-  return q < 0.33 ? base : q < 0.66 ? { ...base, cleanPrice: 80 + r() * 40 } : { ...base, yield: r() * 0.08 };
-}
-
-const value = <T>(x: { ok: true; value: T } | { ok: false; errors: readonly { message: string }[] }): T => {
-  if (!x.ok) throw new Error(x.errors[0]!.message);
-  return x.value;
-};
+const value = valueOf;
 
 /** Every figure the table shows, with its side. */
 const figuresOf = (market: boolean) =>

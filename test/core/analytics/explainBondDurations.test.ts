@@ -1,11 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import {
-  addDays,
   analyzeBond,
   bondLnWeights,
   buildCurve,
   curveFromPillars,
-  DAY_COUNTS,
   DEFAULT_KEY_TENORS,
   explainBondFigure,
   INTERPOLATIONS,
@@ -15,13 +13,12 @@ import {
   type BondSink,
   type Curve,
   type Explanation,
-  type InterpolationId,
-  type Pillar,
   type ShiftFigure,
 } from '../../../src/core/index.ts';
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
 import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts';
 import { rng } from '../../helpers/seededRandom.ts';
+import { randomBond as randomBondOf, randomCurve, valueOf } from '../../helpers/randomBonds.ts';
 
 // Explanations of the bond's effective and key-rate durations (issue 19). Claims:
 // 1. analyzeBond with a sink returns the same durations bit for bit, and each explanation ends in
@@ -40,34 +37,8 @@ import { rng } from '../../helpers/seededRandom.ts';
 //    effective duration;
 // 4. the quotes behind a duration against bump-and-rebuild.
 
-const SETTLEMENT = '2026-07-15';
-
-function randomCurve(r: () => number, method: InterpolationId): Curve {
-  const n = 3 + Math.floor(r() * 8);
-  const pillars: Pillar[] = [];
-  let day = 0;
-  for (let i = 0; i < n; i++) {
-    day += 60 + Math.floor(r() * 1500);
-    const z = -0.005 + r() * 0.06;
-    pillars.push({ date: addDays(SETTLEMENT, day), t: day / 365, discount: Math.exp((-z * day) / 365), quote: i });
-  }
-  return curveFromPillars(SETTLEMENT, 'ACT/365F', method, 'flat-forward', pillars);
-}
-
-function randomBond(r: () => number, curve: Curve): BondInput {
-  const span = Math.round((Date.parse(curve.pillars.at(-1)!.date) - Date.parse(SETTLEMENT)) / 86400000) + 365;
-  return {
-    maturity: addDays(SETTLEMENT, 20 + Math.floor(r() * span)),
-    coupon: Math.round(r() * 1000) / 10000,
-    frequency: [1, 2, 4, 12][Math.floor(r() * 4)]!,
-    dayCount: DAY_COUNTS[Math.floor(r() * DAY_COUNTS.length)]!,
-  };
-}
-
-const value = <T>(x: { ok: true; value: T } | { ok: false; errors: readonly { message: string }[] }): T => {
-  if (!x.ok) throw new Error(x.errors[0]!.message);
-  return x.value;
-};
+const value = valueOf;
+const randomBond = (r: () => number, curve: Curve): BondInput => randomBondOf(r, curve, false);
 
 const shown = (a: BondAnalytics, figure: ShiftFigure, key: number): number => (figure === 'effectiveDuration' ? a.effectiveDuration : a.keyRateDurations[key]!.duration);
 
