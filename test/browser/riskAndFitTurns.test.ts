@@ -9,32 +9,14 @@ import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import { engineDocumentLink, launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
 import type { StaticServer } from './static-server.ts';
+import { INVENTED_2022_SOLVED_TURN } from '../helpers/markets.ts';
 
 let browser: TestBrowser | undefined;
 let server: StaticServer | undefined;
 let link = '';
 
-const OIS = { calendar: 'us-gov-securities', spotLag: 0, paymentLag: 0 };
-const ENGINE = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-03-01',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
-    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
-    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
-    { kind: 'ois', maturity: '2023-01-17', rate: 0.01851, ...OIS },
-    { kind: 'ois', tenor: '1Y', rate: 0.021, ...OIS },
-    { kind: 'ois', tenor: '2Y', rate: 0.028, ...OIS },
-    { kind: 'ois', tenor: '3Y', rate: 0.029, ...OIS },
-    { kind: 'ois', tenor: '5Y', rate: 0.03, ...OIS },
-  ],
-  turns: [
-    { name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', solveFrom: 3 },
-    { name: 'year end 2023', from: '2023-12-29', to: '2023-12-29', spreadBp: 5 },
-  ],
-};
+// The market of test/helpers/markets.ts with a second, typed turn a year later.
+const ENGINE = { ...INVENTED_2022_SOLVED_TURN, turns: [...INVENTED_2022_SOLVED_TURN.turns, { name: 'year end 2023', from: '2023-12-29', to: '2023-12-29', spreadBp: 5 }] };
 
 beforeAll(async () => {
   server = await serveDist();

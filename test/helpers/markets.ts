@@ -118,3 +118,27 @@ export const INVENTED_2022_SOFR_STEPS = {
     { kind: 'ois', tenor: '5Y', rate: 0.033 },
   ],
 };
+
+/**
+ * An invented 2022 overnight market with a year-end turn solved from the OIS that spans it (the
+ * fourth quote, to 17 Jan 2023): deposits to December, OIS to five years on the US government
+ * securities calendar, for tests that risk and fit views read the curve with its turns.
+ */
+const US_OIS = { calendar: 'us-gov-securities', spotLag: 0, paymentLag: 0 } as const;
+export const INVENTED_2022_SOLVED_TURN = {
+  format: 'tenorscope-workspace',
+  version: 2,
+  valuationDate: '2022-03-01',
+  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  quotes: [
+    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
+    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
+    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
+    { kind: 'ois', maturity: '2023-01-17', rate: 0.01851, ...US_OIS },
+    { kind: 'ois', tenor: '1Y', rate: 0.021, ...US_OIS },
+    { kind: 'ois', tenor: '2Y', rate: 0.028, ...US_OIS },
+    { kind: 'ois', tenor: '3Y', rate: 0.029, ...US_OIS },
+    { kind: 'ois', tenor: '5Y', rate: 0.03, ...US_OIS },
+  ],
+  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', solveFrom: 3 }],
+};

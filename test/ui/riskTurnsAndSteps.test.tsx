@@ -12,26 +12,10 @@ import { App } from '../../src/app/App.tsx';
 import { installFeaturePanels } from '../../src/app/installFeaturePanels.tsx';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { INVENTED_2022_SOLVED_TURN } from '../helpers/markets.ts';
 import { analyzeBond, buildCurve, nearZero, OVERNIGHT_KIT, quoteDv01s, sensitivityMapFor, workbenchFromEngine } from '../../src/core/index.ts';
 
-const OIS = { calendar: 'us-gov-securities', spotLag: 0, paymentLag: 0 };
-const ENGINE = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-03-01',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
-  quotes: [
-    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
-    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
-    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
-    { kind: 'ois', maturity: '2023-01-17', rate: 0.01851, ...OIS },
-    { kind: 'ois', tenor: '1Y', rate: 0.021, ...OIS },
-    { kind: 'ois', tenor: '2Y', rate: 0.028, ...OIS },
-    { kind: 'ois', tenor: '3Y', rate: 0.029, ...OIS },
-    { kind: 'ois', tenor: '5Y', rate: 0.03, ...OIS },
-  ],
-  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', solveFrom: 3 }],
-};
+const ENGINE = INVENTED_2022_SOLVED_TURN;
 const { turns: _turns, ...PLAIN } = ENGINE;
 
 beforeAll(async () => {
