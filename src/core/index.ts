@@ -17,6 +17,7 @@ export * from './curve/query.ts';
 export * from './curve/explain.ts';
 export * from './curve/explainText.ts';
 export * from './curve/explainChange.ts';
+export * from './curve/explainTurn.ts';
 export * from './curve/explainQuote.ts';
 export * from './curve/forwardBetween.ts';
 export * from './curve/sampling.ts';

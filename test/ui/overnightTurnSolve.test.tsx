@@ -8,11 +8,12 @@
 // turn over 3 days (weekends calendar), the hand calculation of test/core/bootstrap/turnSolve.test.ts
 // (section h of the project's market-conventions notes: J = exp(-s d / 360)). Invented rates.
 import { act, fireEvent, render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { OvernightTab } from '../../src/features/overnight/OvernightTab.tsx';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
-import { buildCurve, formatBp, OVERNIGHT_KIT, parseDocumentText, readWorkbenchDocument, serialiseDocument, toEngineDocument, turnSpreads, workbenchFromEngine, type WorkbenchDocument } from '../../src/core/index.ts';
+import { buildCurve, formatBp, fullText, OVERNIGHT_KIT, parseDocumentText, readWorkbenchDocument, serialiseDocument, toEngineDocument, turnSpreads, workbenchFromEngine, type WorkbenchDocument } from '../../src/core/index.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
 
 const s = () => useAppStore.getState();
@@ -37,7 +38,11 @@ function Live() {
   return <OvernightTab result={result} />;
 }
 
-beforeAll(() => loadOvernightKit());
+// The explanation panel's code is loaded first, so a loaded machine's transform does not count against the wait for it.
+beforeAll(async () => {
+  await loadOvernightKit();
+  await import('../../src/features/tables/lazyTables.ts');
+});
 
 beforeEach(() => {
   useAppStore.setState(useAppStore.getInitialState(), true);
@@ -124,5 +129,24 @@ describe('OvernightTab: a turn solved from a sheet row', () => {
     expect(past.ok && past.value.turns).toStrictEqual([{ ...turn, solveFromRow: '' }]);
     const pastBuild = buildCurve(toEngineDocument(past.ok ? past.value : s().workspace).doc, { overnight: OVERNIGHT_KIT });
     expect(pastBuild.errors[0]!.path).toBe('turns[0].solveFrom');
+  });
+
+  it("the solved spread opens its explanation by keyboard, ending in the table's figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    render(<Live />);
+    fireEvent.change(picker(), { target: { value: 'r1' } });
+    const solvedBuild = buildCurve({ ...ENGINE, turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', solveFrom: 1, calendar: 'weekends' }] }, { overnight: OVERNIGHT_KIT });
+    const figure = turnSpreads(solvedBuild)[0]!.spreadBp;
+    const button = screen.getByRole('button', { name: /explain the spread of the turn year end 2022$/ });
+    button.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: /Spread of the turn year end 2022, solved from row 2/ });
+    expect(panel).toHaveFocus();
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`spread = s x 10,000 bp = ${fullText(figure)} (bp, simple ACT/360, added to each day\u2019s overnight rate)`);
+    expect(steps.some((x) => x!.startsWith('g0 = model - market'))).toBe(true);
+    await user.keyboard('{Escape}');
+    expect(button).toHaveFocus();
   });
 });

@@ -26,7 +26,7 @@ import { PRICE_ACCEPTANCE, RATE_ACCEPTANCE, TURN_SOLVE_ROUNDS } from '../numeric
 import { coreError, type CoreError, type ErrorCode } from '../result.ts';
 import { repricingRows, type BootstrapOutcome, type BootstrapSettings } from './bootstrap.ts';
 import { solveNode } from './solve.ts';
-import { withSpread, type TurnSpan } from './turns.ts';
+import { withSpread, type TurnSolveRecord, type TurnSpan } from './turns.ts';
 
 /** The bootstrap of a market with the turns given as they stand (bootstrap.ts). */
 export type TurnedBootstrap = (settings: BootstrapSettings, market: readonly Instrument[]) => BootstrapOutcome;
@@ -61,7 +61,9 @@ export function solveTurnSpreads(given: BootstrapSettings, market: readonly Inst
   if (errors.length > 0) return failed(errors);
   let outcome = bootstrap(given, rest);
   const gap = (i: number): number => (outcome.curve ? solved[i]![1].modelQuote(outcome.curve.lnDiscountAt) - solved[i]![1].market : Number.NaN);
-  // Each turn solved with the others held, in rounds until every spanning quote reprices.
+  // Each turn solved with the others held, in rounds until every spanning quote reprices; the
+  // spreads each tried in its last round, for its explanation (turns[k].solve on the built curve).
+  const tried = new Map<number, { spread: number; gap: number }[]>();
   for (let round = 0; round < TURN_SOLVE_ROUNDS && outcome.curve && solved.some(([, ins], i) => !(Math.abs(gap(i)) <= bound(ins))); round++) {
     for (let i = 0; i < solved.length; i++) {
       const [k, ins] = solved[i]!;
@@ -70,6 +72,8 @@ export function solveTurnSpreads(given: BootstrapSettings, market: readonly Inst
       let lo = span.spread;
       let hi = lo;
       const at = (s: number): readonly TurnSpan[] => spans.map((x, j) => (j === k ? withSpread(span, s) : x));
+      const trials = [{ spread: span.spread, gap: gap(i) }];
+      tried.set(k, trials);
       const x = solveNode(
         (s) => {
           lo = Math.min(lo, s);
@@ -77,10 +81,12 @@ export function solveTurnSpreads(given: BootstrapSettings, market: readonly Inst
           // Beyond the range a user may set, or no curve: no value, which ends the search.
           if (Math.abs(s) > max) return Number.NaN;
           outcome = bootstrap({ ...given, turns: at(s) }, rest);
-          return gap(i);
+          const g = gap(i);
+          trials.push({ spread: s, gap: g });
+          return g;
         },
         span.spread,
-        gap(i),
+        trials[0]!.gap,
         true,
       );
       if (!x.ok) {
@@ -93,14 +99,17 @@ export function solveTurnSpreads(given: BootstrapSettings, market: readonly Inst
   }
   if (!outcome.curve) return outcome;
   const rows = outcome.repricing.slice();
+  const records = new Map<number, TurnSolveRecord>();
   for (let i = 0; i < solved.length; i++) {
-    const ins = solved[i]![1];
+    const [k, ins] = solved[i]!;
     const model = ins.modelQuote(outcome.curve.lnDiscountAt);
     const g = model - ins.market;
-    if (!(Math.abs(g) <= bound(ins))) return failed([turnError('not-converged', spans[solved[i]![0]]!, ins, `it reprices off by ${g}`)]);
+    if (!(Math.abs(g) <= bound(ins))) return failed([turnError('not-converged', spans[k]!, ins, `it reprices off by ${g}`)]);
     rows.push(...repricingRows([ins], [model]));
+    records.set(spans[k]!.index, { quote: ins.index, market: ins.market, unit: ins.unit, trials: tried.get(k) ?? [], gap: g });
   }
-  return { ...outcome, repricing: rows };
+  const overnight = outcome.overnight && { ...outcome.overnight, turns: outcome.overnight.turns.map((t) => (records.has(t.index) ? { ...t, solve: records.get(t.index)! } : t)) };
+  return { ...outcome, repricing: rows, ...(overnight ? { overnight } : {}) };
 }
 
 function failed(errors: CoreError[]): BootstrapOutcome {

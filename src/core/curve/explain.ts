@@ -29,6 +29,8 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
   | 'bond-figure'
   /** A meeting's implied step on the overnight curve (curve/explainMeetingStep.ts). */
   | 'meeting-step'
+  /** A turn's spread solved from the quote that spans it (curve/explainTurn.ts). */
+  | 'turn-spread'
   /** The spread between two curves' zero rates or forwards (curve/explainSpread.ts). */
   | 'curve-spread'
   /** A forward's sensitivity to one quote, bp per bp (analytics/explainRisk.ts). */

@@ -15,7 +15,6 @@ import {
   formatBp,
   turnSpreads,
   type CoreError,
-  type CurveBuild,
   type QuoteRow,
   type WorkbenchTurn,
 } from '../../core/index.ts';
@@ -24,7 +23,7 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { ListStatus, notTaken, problemText } from '../../components/pastedList.tsx';
 import { OvernightChart } from './OvernightChart.tsx';
-import type { StepCell } from '../tables/explainCell.ts';
+import type { StepCell, TurnCell } from '../tables/explainCell.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 
 const OVERNIGHT_TAG = rateTag(OVERNIGHT_CONVENTION.compounding, OVERNIGHT_CONVENTION.dayCount);
@@ -53,7 +52,7 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
         The curve&rsquo;s one-day forward rates ({OVERNIGHT_TAG}), with the policy effective dates it can step on and the turns that lift single days. An analysis aid, not investment advice: check the dates and spreads against official sources.
       </p>
       <MeetingDates />
-      <Turns build={build} />
+      <Turns result={result} />
       {fatal !== null && (
         <div role="alert" className="error">
           <p>No curve: {fatal}</p>
@@ -182,7 +181,10 @@ function checkTurns(turns: readonly WorkbenchTurn[], rows: readonly QuoteRow[]):
 const rowWords = (r: QuoteRow, i: number): string => `row ${i + 1} (${`${r.kind} ${r.maturity}`.trim()})`;
 
 /** The turns: a table with each one's days and spread (given, or solved from a sheet row), a remove button, and lines to add. */
-function Turns({ build }: { build: CurveBuild }) {
+function Turns({ result }: { result: WorkbenchBuild }) {
+  const build = result.build;
+  const display = useAppStore((s) => s.workspace.display);
+  const explain = useExplainOpener<TurnCell>((a, b) => a.turn === b.turn);
   const turns = useAppStore((s) => s.workspace.turns) ?? NO_TURNS;
   const rows = useAppStore((s) => s.workspace.quotes);
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
@@ -265,7 +267,13 @@ function Turns({ build }: { build: CurveBuild }) {
                       )}
                     </td>
                     <td className="num" data-turn-spread={t.name}>
-                      {t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(spreads.find((x) => x.index === i))}
+                      {t.solveFromRow === undefined || !spreads.some((x) => x.index === i) ? (
+                        t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(undefined)
+                      ) : (
+                        <button type="button" className="cell-explain" aria-label={`${solvedText(spreads.find((x) => x.index === i))}: explain the spread of the turn ${t.name}`} aria-expanded={explain.isOpen({ turn: i })} onClick={(e) => explain.toggle(e, { turn: i })}>
+                          {solvedText(spreads.find((x) => x.index === i))}
+                        </button>
+                      )}
                     </td>
                     <td>
                       <button type="button" aria-label={`Remove the turn ${t.name}`} onClick={() => useAppStore.getState().setTurns(turns.filter((x) => x !== t))}>
@@ -279,6 +287,7 @@ function Turns({ build }: { build: CurveBuild }) {
             </table>
           </div>
         )}
+        {explain.open !== null && spreads.some((x) => x.index === explain.open!.turn) ? <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} /> : null}
         <details open={turns.length === 0}>
           <summary>Add turns</summary>
           <label>

@@ -38,6 +38,7 @@ import { applyToShown } from '../scenarios/applyShown.ts';
 import { explainBondCell, type BondCell } from '../risk/explainBondCell.ts';
 import { explainDifferenceCell, explainReferenceCell, type DifferenceCell, type ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
 import { explainSpreadCell, type SpreadCell } from '../namedCurves/explainSpreadCell.ts';
+import { explainTurnCell, type TurnCell } from '../overnight/explainTurnCell.ts';
 import { explainSensitivityCell, type SensitivityCell } from '../risk/explainSensitivityCell.ts';
 import { explainQuoteCell, type QuoteCheckCell } from './explainQuoteCell.ts';
 import { explainFitCell, type FitCell } from '../fit/explainFitCell.ts';
@@ -45,6 +46,7 @@ import { explainFitCell, type FitCell } from '../fit/explainFitCell.ts';
 export type { BondCell } from '../risk/explainBondCell.ts';
 export type { DifferenceCell, ReferenceCell } from '../snapshots/explainDifferenceCell.ts';
 export type { SpreadCell } from '../namedCurves/explainSpreadCell.ts';
+export type { TurnCell } from '../overnight/explainTurnCell.ts';
 export type { SensitivityCell } from '../risk/explainSensitivityCell.ts';
 export type { QuoteCheckCell } from './explainQuoteCell.ts';
 export type { FitCell } from '../fit/explainFitCell.ts';
@@ -96,7 +98,7 @@ export interface StepCell {
 }
 
 /** Any number the explanation panel explains. */
-export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell | ReferenceCell | SpreadCell | SensitivityCell | QuoteCheckCell | FitCell;
+export type ExplainCell = KeyCell | DatedCell | ChangeCell | RollCell | BondCell | StepCell | DifferenceCell | ReferenceCell | SpreadCell | SensitivityCell | QuoteCheckCell | FitCell | TurnCell;
 
 /** A quote behind the number, located on the sheet. */
 export interface CellQuote {
@@ -141,6 +143,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('reference' in cell) return explainReferenceCell(result, cell.reference);
   if ('spread' in cell) return explainSpreadCell(result, display, cell.spread);
   if ('sensitivity' in cell) return explainSensitivityCell(result, cell.sensitivity);
+  if ('turn' in cell) return explainTurnCell(result, cell.turn);
   if ('quoteCheck' in cell) return explainQuoteCell(result, cell.quoteCheck);
   if ('fit' in cell) return explainFitCell(result, cell.fit);
   const curve = result.build.curve;
