@@ -107,6 +107,30 @@ export function topParQuoteInfluences(
  * carry their own scale (the caller's). `curve` must be the bootstrap of `instruments`.
  */
 export function topInfluencesOfLn(curve: Curve, instruments: readonly Instrument[], times: readonly number[], weights: readonly number[], count = 5): Result<QuoteInfluence[]> {
+  return topInfluencesOfNodes(curve, instruments, times, count, (g, extraPartials, n) =>
+    weights.forEach((w, k) => {
+      for (let j = 0; j < n; j++) g[j] = g[j]! + w * extraPartials[k * n + j]!;
+    }),
+  );
+}
+
+/**
+ * The quotes a turn's solved spread depends on most: the spread is one of the curve's unknowns
+ * (nodePartials: one column per solved spread after the pillars), so d spread / d quote is that
+ * unknown's row of the inverse node Jacobian, in bp of spread per bp of the quote's own yield.
+ */
+export function topInfluencesOfSolvedTurn(curve: Curve, instruments: readonly Instrument[], turnIndex: number, count = 5): Result<QuoteInfluence[]> {
+  const solved = curve.turned?.spans.filter((x) => typeof x.solveFrom === 'number') ?? [];
+  const k = solved.findIndex((x) => x.index === turnIndex);
+  if (k < 0) return fail(coreError('schema', `turns[${turnIndex}]`, 'this turn has no spread solved from a quote on the curve'));
+  const column = nodeCount(curve) - solved.length + k;
+  return topInfluencesOfNodes(curve, instruments, [], count, (g) => {
+    g[column] = 1;
+  });
+}
+
+/** The quotes that move a number most, given its slopes g_j to the curve's unknowns (filled by `slopes`, which may read the partials of ln DF at `times`). */
+function topInfluencesOfNodes(curve: Curve, instruments: readonly Instrument[], times: readonly number[], count: number, slopes: (g: Float64Array, extraPartials: Float64Array, n: number) => void): Result<QuoteInfluence[]> {
   const n = instruments.length;
   if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
   const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, times);
@@ -114,9 +138,7 @@ export function topInfluencesOfLn(curve: Curve, instruments: readonly Instrument
   if (!lu) return fail(coreError('no-solution', 'quotes', 'the quotes do not determine the curve nodes one to one (a singular Jacobian); check for quotes that repeat the same information'));
   const inv = luInverse(lu);
   const g = new Float64Array(n);
-  weights.forEach((w, k) => {
-    for (let j = 0; j < n; j++) g[j] = g[j]! + w * extraPartials[k * n + j]!;
-  });
+  slopes(g, extraPartials, n);
   const all = instruments.map((ins, k) => {
     let v = 0;
     for (let j = 0; j < n; j++) v += g[j]! * inv[j * n + k]!;

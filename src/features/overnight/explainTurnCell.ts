@@ -1,4 +1,4 @@
-import { coreError, explainSolvedTurn, valueUnderEachMethod, type Result } from '../../core/index.ts';
+import { coreError, explainSolvedTurn, topInfluencesOfSolvedTurn, valueUnderEachMethod, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { buildUnder, cellOf, type CellExplanation } from '../tables/explainCell.ts';
 
@@ -9,9 +9,9 @@ export interface TurnCell {
 
 /**
  * The explanation of a solved turn's spread (explainSolvedTurn, the solver's own record), the
- * spread solved again under each method (the workspace built under it, as the workbench builds);
- * no bp-per-bp quotes: the spread is the root of its spanning quote's equation on a curve the
- * other quotes build, and its sensitivities to them are not computed (the panel says so).
+ * quotes it depends on most (topInfluencesOfSolvedTurn: the spread's row of the inverse node
+ * Jacobian) and the spread solved again under each method (the workspace built under it, as the
+ * workbench builds).
  */
 export function explainTurnCell(result: WorkbenchBuild, index: number): Result<CellExplanation> {
   const r = explainSolvedTurn(result.build, index);
@@ -24,7 +24,7 @@ export function explainTurnCell(result: WorkbenchBuild, index: number): Result<C
   const methods = valueUnderEachMethod(curve.interpolation, (method) => buildUnder(result, method), (on) => spreadOn(on.turned?.spans));
   const quote = result.build.overnight?.turns.find((t) => t.index === index)?.solve?.quote ?? 0;
   const row = result.conversion.rowOfQuote[quote];
-  const none = { ok: false as const, errors: [coreError('schema', '', `none computed: the spread is the root of ${row === undefined ? 'its quote' : `row ${row + 1}`}'s equation on the curve the other quotes build, so it moves with that quote and with theirs`)] };
+  const influences = topInfluencesOfSolvedTurn(curve, result.build.instruments, index);
   const name = result.build.overnight?.turns.find((t) => t.index === index)?.name ?? `turn ${index + 1}`;
-  return cellOf(result, `Spread of the turn ${name}, solved from ${row === undefined ? 'its quote' : `row ${row + 1}`}`, r.value, none, null, methods);
+  return cellOf(result, `Spread of the turn ${name}, solved from ${row === undefined ? 'its quote' : `row ${row + 1}`}`, r.value, influences, 'bp of the spread per bp of each quote: the spread is one of the curve\u2019s unknowns, solved with its nodes', methods);
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildCurve, explainSolvedTurn, INTERPOLATIONS, OVERNIGHT_KIT, turnSpreads, type CurveBuild } from '../../../src/core/index.ts';
+import { buildCurve, explainSolvedTurn, INTERPOLATIONS, OVERNIGHT_KIT, topInfluencesOfSolvedTurn, turnSpreads, type CurveBuild } from '../../../src/core/index.ts';
 import { INVENTED_2022_SOLVED_TURN } from '../../helpers/markets.ts';
 
 // The explanation of a turn's spread solved from the quote that spans it (curve/explainTurn.ts).
@@ -10,7 +10,8 @@ import { INVENTED_2022_SOLVED_TURN } from '../../helpers/markets.ts';
 //    spanning quote, the turn typed at that spread (spreadBp = s x 10,000), built, and the
 //    spanning quote priced on that curve by its own instrument (the turn model of
 //    MARKET-CONVENTIONS.md section h: estimate the spread from an instrument spanning the turn);
-// 3. at the spread taken the quote reprices within the engine's 1e-14 in rate.
+// 3. at the spread taken the quote reprices within the engine's 1e-14 in rate;
+// 4. the quotes it depends on most (the implicit-function rule) against bump-and-rebuild of the document.
 // The market is invented (test/helpers/markets.ts).
 
 const build = (d: unknown): CurveBuild => buildCurve(d, { overnight: OVERNIGHT_KIT });
@@ -54,5 +55,23 @@ describe('explainSolvedTurn', () => {
     const r = explainSolvedTurn(b, 0);
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors[0]!.message).toBe('this turn has no spread solved from a quote on the curve now');
+  });
+
+  it.each(['log-linear-discount', 'monotone-convex'] as const)('its quotes, in bp of spread per bp of quote, match bump-and-rebuild of the document (%s)', (method) => {
+    const b = build(doc(method));
+    const top = topInfluencesOfSolvedTurn(b.curve!, b.instruments, 0);
+    if (!top.ok) throw new Error(top.errors[0]!.message);
+    expect(top.value.length).toBe(5);
+    // The spanning quote moves it most: its period holds the turn's days.
+    expect(top.value[0]!.index).toBe(3);
+    const h = 1e-6;
+    for (const q of top.value) {
+      const moved = (d: number) => {
+        const quotes = INVENTED_2022_SOLVED_TURN.quotes.map((x, i) => (i === q.index ? { ...x, rate: x.rate + d } : x));
+        return build({ ...doc(method), quotes }).overnight!.turns[0]!.spread;
+      };
+      const bumped = (moved(h) - moved(-h)) / (2 * h);
+      expect(Math.abs(bumped - q.bpPerBp), `${method}: quotes[${q.index}]`).toBeLessThanOrEqual(1e-5 * Math.max(1, Math.abs(q.bpPerBp)));
+    }
   });
 });
