@@ -3,9 +3,12 @@
 // that row and the solved spread (25.00 bp, the spread the invented quotes were made with: a flat 4%
 // forward plus 25 bp over the turn's 3 days, the hand calculation of
 // test/core/bootstrap/turnSolve.test.ts), with no page error. Screenshot:
-// test/artifacts/screenshots/overnight-turn-solve.png.
+// test/artifacts/screenshots/overnight-turn-solve.png. The solved spread then opens its explanation
+// beside the table (value to all digits, the spanning deposit first among its quotes), with no
+// serious or critical axe finding in the section; screenshot overnight-turn-explanation.png.
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
+import { seriousAxeFindings } from './axe.ts';
 import { engineDocumentLink, launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
 import type { StaticServer } from './static-server.ts';
 
@@ -54,6 +57,15 @@ describe('a turn solved from a quote in Chromium', () => {
     expect(await picker.inputValue()).toBe('r1');
     await mkdir(SCREENSHOT_DIR, { recursive: true });
     await page.locator('.overnight').screenshot({ path: path.join(SCREENSHOT_DIR, 'overnight-turn-solve.png') });
+    await cell.getByRole('button').click();
+    const panel = page.getByRole('complementary', { name: /Spread of the turn year end 2022, solved from row 2/ });
+    await panel.waitFor({ timeout: 20_000 });
+    const value = Number(await panel.locator('[data-field="value"]').textContent());
+    expect(Math.abs(value - 25)).toBeLessThan(1e-9); // the 25 bp the quotes were made with (hand calculation above)
+    expect(await panel.getByRole('button', { name: /^Row \d+:/ }).first().textContent()).toMatch(/^Row 2:/);
+    expect(await seriousAxeFindings(page, ['.overnight'])).toEqual([]);
+    await panel.scrollIntoViewIfNeeded();
+    await page.locator('.overnight').screenshot({ path: path.join(SCREENSHOT_DIR, 'overnight-turn-explanation.png') });
     expect(errors).toEqual([]);
     await context.close();
   });

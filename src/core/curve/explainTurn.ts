@@ -28,7 +28,7 @@ export function explainSolvedTurn(build: Pick<CurveBuild, 'curve' | 'overnight' 
   const value = span.spread * 1e4;
   const unit = 'bp, simple ACT/360, added to each day’s overnight rate';
   steps.push({ name: 'spread', formula: 'spread = s x 10,000 bp', inputs: ['s'], value, unit });
-  const rule = 'none (the turn’s days as given; its periods start on their business days)';
+  const rule = 'none: the calendar days the turn’s overnight periods cover (each period starts on a business day and runs to the next)';
   return ok({
     quantity: 'turn-spread',
     formula: `spread s with g(s) = 0: g(s) = model value of quotes[${ins.index}] (${ins.kind} ${ins.maturity}) on the curve bootstrapped from the other quotes with the turn at s, minus its market value; the turn adds s to the overnight rate (simple, ACT/360) of each of its ${span.days} days, so ln DF falls by s x days / 360 across it`,
@@ -36,8 +36,8 @@ export function explainSolvedTurn(build: Pick<CurveBuild, 'curve' | 'overnight' 
     unit,
     conventions: explainedConventions(build.curve, 'simple', 'ACT/360'),
     dates: [
-      { name: 'first day', given: span.start, unadjusted: span.start, adjusted: span.start, rule },
-      { name: 'last day', given: addDays(span.end, -1), unadjusted: addDays(span.end, -1), adjusted: addDays(span.end, -1), rule },
+      { name: 'first day carrying the spread', given: span.start, unadjusted: span.start, adjusted: span.start, rule },
+      { name: 'last day carrying the spread', given: addDays(span.end, -1), unadjusted: addDays(span.end, -1), adjusted: addDays(span.end, -1), rule },
     ],
     yearFractions: [],
     reads: [],
