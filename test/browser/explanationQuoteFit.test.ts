@@ -3,7 +3,7 @@
 // bond's fit residual from the smooth fit; each panel ends in the table's figure (to its shown
 // digits here; to all digits in test/ui/explanationQuoteCheck.test.tsx and explanationFit.test.tsx).
 // axe-core finds no serious or critical violation in either section with its panel open.
-// Screenshot of the quote check's panel at 1280 px wide.
+// A bond's market minus model price from the rich/cheap list likewise. Screenshots at 1280 px wide.
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { seriousAxeFindings } from './axe.ts';
@@ -69,6 +69,22 @@ describe('the explanations of the quote check and the smooth fit', () => {
     expect(await panel.textContent()).toContain('a fit is not exact');
     await panel.scrollIntoViewIfNeeded();
     await screenshot(page, 'explanation-fit-1280');
+    expect(await seriousAxeFindings(page, ['.fit-panel'])).toEqual([]);
+    expect(diagnostics(page).pageErrors).toEqual([]);
+  });
+  it("a bond's market minus model price opens below the rich/cheap list and ends in its figure; axe finds nothing serious", async () => {
+    const fit = page.getByRole('region', { name: 'Smooth fit' });
+    const table = fit.getByRole('table', { name: 'Rich and cheap bonds' });
+    const button = table.getByRole('button', { name: /explain the market minus model price of row \d+$/ }).first();
+    const shown = (await button.textContent())!.trim();
+    await button.click();
+    const panel = page.getByRole('complementary', { name: /Market minus model price of row \d+/ });
+    await panel.waitFor({ timeout: 20_000 });
+    const value = (await panel.locator('[data-field="value"]').textContent())!;
+    expectShown(shown, value);
+    expect(await panel.textContent()).toContain('richness = -(model price');
+    await panel.scrollIntoViewIfNeeded();
+    await screenshot(page, 'explanation-rich-cheap-1280');
     expect(await seriousAxeFindings(page, ['.fit-panel'])).toEqual([]);
     expect(diagnostics(page).pageErrors).toEqual([]);
   });

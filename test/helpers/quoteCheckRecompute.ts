@@ -95,6 +95,34 @@ export function recompute(ins: Instrument, e: Explanation): number {
       const m = (ins.quote as { compounding: string }).compounding === 'semiannual' ? 2 : NaN;
       return m * Math.expm1(-lnP / (m * tau)); // P = (1 + z/m)^(-m tau)
     }
+    case 'par-yield': {
+      const f = (ins.quote as { frequency: number }).frequency;
+      if (e.steps.some((s) => s.name === 'sum')) {
+        // Par bond above one year (Federal Reserve GSW 2006 par yield, with the accrued fraction a for a
+        // maturity off the cycle): c = (1 - DF(T_N)) / ((1/f) sum_k DF(T_k) - a).
+        let annuity = 0;
+        for (const r of e.reads) annuity += r.discount;
+        expect(rel(annuity, step('sum').value)).toBeLessThanOrEqual(1e-15);
+        return (1 - e.reads.at(-1)!.discount) / (annuity / f - step('a').value);
+      }
+      const lnP = read('DF(M)').ln;
+      expect(Object.is(lnP, step('lnP').value)).toBe(true);
+      if (e.steps.some((s) => s.name === 'days')) {
+        // US Treasury bill bond-equivalent yield (SIA, Fixed Income Securities Formulas; Treasury): a = d / T;
+        // d <= T/2: y = (1/P - 1) / a; beyond: (a/2 - 1/4) y^2 + a y - (1/P - 1) = 0, taken by its positive root
+        // written as 2g / (a + sqrt(a^2 + (2a - 1) g)) (the quadratic's root times its conjugate over itself).
+        const a = step('days').value / step('T').value;
+        const g = Math.expm1(-lnP);
+        if (step('days').value <= step('T').value / 2) return g / a;
+        const y = (2 * g) / (a + Math.sqrt(a * a + (2 * a - 1) * g));
+        // Treasury's quadratic as published, y = (-2a + 2 sqrt(a^2 - (2a - 1)(1 - 1/P))) / (2a - 1), loses digits to cancellation: 1e-12.
+        const P = Math.exp(lnP);
+        expect(rel((-2 * a + 2 * Math.sqrt(a * a - (2 * a - 1) * (1 - 1 / P))) / (2 * a - 1), y)).toBeLessThanOrEqual(1e-12);
+        return y;
+      }
+      // A zero's bond-equivalent yield over n coupon periods: DF = (1 + y/f)^(-n), y = f (DF^(-1/n) - 1), in ln space.
+      return f * Math.expm1(-lnP / step('n').value);
+    }
     default:
       throw new Error(`no recomputation for ${ins.kind}`);
   }

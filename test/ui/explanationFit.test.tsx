@@ -51,4 +51,40 @@ describe('explanations in the smooth fit', () => {
     const yieldPanel = await screen.findByRole('complementary', { name: `Fitted model yield of row ${row}` });
     expect(yieldPanel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(r.modelYield));
   });
+  it("the rich/cheap list: the yield column opens the residual's explanation, the price column its own, each the shown figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    const display = useAppStore.getState().workspace.display;
+    const result = deriveBuild(useAppStore.getState().workspace);
+    const ws = result.build.workspace!;
+    render(<FitPanel workspace={ws} model="nelson-siegel" onModelChange={() => {}} rowOfQuote={result.conversion.rowOfQuote} explainFrom={{ result, display }} />);
+    const fit = fitCurve(ws, { model: 'nelson-siegel', errors: 'yield', exclude: [], weights: {} });
+    if (!fit.ok) throw new Error(fit.errors[0]!.message);
+    const entry = fit.value.richCheap[0]!;
+    // The list's yield figure is the residual table's residual (fitCurve: richCheap's residualBp is the residual's), bit for bit.
+    expect(Object.is(entry.residualBp, fit.value.residuals.find((x) => x.index === entry.index)!.residualBp)).toBe(true);
+    const row = result.conversion.rowOfQuote[entry.index]! + 1;
+    const table = screen.getByRole('table', { name: 'Rich and cheap bonds' });
+    const bp = within(table).getByRole('button', { name: new RegExp(`explain the fit residual of row ${row}$`) });
+    bp.focus();
+    await user.keyboard('{Enter}');
+    const panel = await screen.findByRole('complementary', { name: `Fit residual of row ${row}` });
+    expect(panel).toHaveFocus();
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(entry.residualBp));
+    expect(bp.textContent).toBe(within(screen.getByRole('table', { name: 'Fit residuals' })).getByRole('button', { name: new RegExp(`explain the fit residual of row ${row}$`) }).textContent);
+    await user.keyboard('{Escape}');
+    expect(bp).toHaveFocus();
+
+    const price = within(table).getByRole('button', { name: new RegExp(`explain the market minus model price of row ${row}$`) });
+    price.focus();
+    await user.keyboard('{Enter}');
+    const pricePanel = await screen.findByRole('complementary', { name: `Market minus model price of row ${row}` });
+    expect(pricePanel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(entry.richnessPrice));
+    const steps = within(within(pricePanel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toMatch(new RegExp(`^richness = -\\(model price - (dirty|market price)\\) = ${fullText(entry.richnessPrice).replace('.', '\\.')} \\(per 100 face\\)$`));
+    expect(steps.some((s) => s!.startsWith('model price = CF'))).toBe(true);
+    // The panel opens after the rich/cheap list, not after the residual table.
+    expect(table.compareDocumentPosition(pricePanel) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    await user.keyboard('{Escape}');
+    expect(price).toHaveFocus();
+  });
 });

@@ -9,6 +9,7 @@ import { FUTURE_BASIS } from '../instruments/future.ts';
 import { quoteConvention } from '../kinds/registry.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { serialFromIso, type IsoDate } from '../time/date.ts';
+import { parYieldSchedule } from '../instruments/parYield.ts';
 import type { BillQuote, DatedSwapQuote, DepositQuote, FraQuote, Quote, SwapQuote, ZeroQuote } from '../document/types.ts';
 import type { DayCount } from '../time/dayCount.ts';
 import { COMPOUNDINGS, type Compounding } from '../rates/compounding.ts';
@@ -54,6 +55,7 @@ const LABELS: { readonly [K in Quote['kind']]?: (ins: Instrument) => string[] } 
     const rec = ins as unknown as { lnKnown?: number; w?: number };
     return n === 2 ? [rec.lnKnown === 0 ? 'S' : 'c', 'E'] : n === 3 && rec.w !== undefined ? ['b0', 'b1', 'E'] : numbered('b', n);
   },
+  'par-yield': (ins) => ('periods' in ins ? ['M'] : numbered('T', ins.times.length)),
   bond: (ins) => (ins.times.length > 1 && ins.amounts[0] === 0 ? ['settle', ...numbered('T', ins.times.length - 1)] : numbered('T', ins.times.length)),
 };
 const flowLabels = (ins: Instrument): string[] => (LABELS[ins.quote.kind] ?? ((i: Instrument) => numbered('T', i.times.length)))(ins);
@@ -192,6 +194,38 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
         formula = `ICMA yield at dirty = sum CF_i DF(T_i)${spot ? ' / DF(settle)' : ''}`;
         step('model', `y: sum CF_i (1 + y/${q.frequency})^-(periods to T_i) = dirty`, ['dirty'], model, unit);
       }
+      return formula;
+    },
+    'par-yield': (q) => {
+      // Federal Reserve GSW 2006 par yield; at one year or less a zero's bond-equivalent yield; the US Treasury bill basis (SIA).
+      const f = q.frequency;
+      if (!('periods' in rec)) {
+        const n = ins.times.length;
+        const prev = parYieldSchedule(q, settlement).previousIso;
+        formula = `par yield = (1 - DF(T${n})) / ((1/${f}) sum DF(T_k) - a), a = accrued fraction of a year (coupon = par yield, clean price 100)`;
+        step('a', `year fraction ${prev} to ${settlement} (${q.dayCount})`, [], rec.accrualFraction as number);
+        step('sum', sum(labels.map((l) => `DF(${l})`)), labels.map((l) => `DF(${l})`), got('sum'));
+        step('den', `sum / ${f} - a`, ['sum', 'a'], got('den'));
+        step('num', `1 - DF(T${n})`, [`DF(T${n})`], got('num'));
+        step('model', 'num / den', ['num', 'den'], model, unit);
+        return formula;
+      }
+      const lnP = got('lnP');
+      step('lnP', 'ln DF(M)', [ln(0)], lnP, 'ln');
+      const bill = rec.bill as { days: number; basis: number } | null;
+      if (!bill) {
+        formula = `par yield = ${f} ((DF(M))^(-1/n) - 1), n coupon periods to maturity (a zero's bond-equivalent yield)`;
+        step('n', `coupon periods ${settlement} to ${q.maturity} (${q.dayCount})`, [], rec.periods as number, 'periods');
+        step('model', `${f} x expm1(-lnP / n)`, ['lnP', 'n'], model, unit);
+        return formula;
+      }
+      const short = bill.days <= bill.basis / 2;
+      formula = `bill bond-equivalent yield: ${short ? 'y = (1/DF(M) - 1) / a' : 'y from (1 + y/2)(1 + y (a - 1/2)) = 1/DF(M)'}, a = days / T`;
+      step('days', `actual days ${settlement} to ${q.maturity}`, [], bill.days, 'days');
+      step('T', 'days in the year after settlement (366 with 29 February)', [], bill.basis, 'days');
+      step('a', 'days / T', ['days', 'T'], bill.days / bill.basis);
+      step('g', 'expm1(-lnP)', ['lnP'], got('g'));
+      step('model', short ? 'g / a' : '2 g / (a + sqrt(a^2 + (2a - 1) g))', ['g', 'a'], model, unit);
       return formula;
     },
     future: (q) => {

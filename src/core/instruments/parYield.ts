@@ -2,7 +2,7 @@ import type { ParYieldQuote } from '../document/types.ts';
 import { civilFromIso, isoFromCivil, serialFromCivil, type CivilDate, type IsoDate } from '../time/date.ts';
 import { bondDirtyFromYield, bondScheduleCivil, type YieldSchedule } from './bond.ts';
 import { billYearBasis } from './bill.ts';
-import { CompiledInstrument, DISCOUNTING, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING, type Instrument, type QuoteTrace } from './instrument.ts';
 
 /**
  * A government par yield's theoretical security. US Treasury: par yields "on a bond-equivalent
@@ -73,9 +73,10 @@ export function billLn(y: number, days: number, basis: number): number {
 }
 
 /** The bond-equivalent yield of a bill from ln DF: simple up to half a year (T/2 days), Treasury's quadratic beyond (bill.ts billInvestmentYield from a price). */
-export function billYield(ln: number, days: number, basis: number): number {
+export function billYield(ln: number, days: number, basis: number, trace?: QuoteTrace): number {
   const a = days / basis;
   const growth = Math.expm1(-ln); // 1/DF - 1
+  trace?.('g', growth);
   if (days <= basis / 2) return growth / a;
   // (2a - 1)/4 y^2 + a y - growth = 0; the root written to avoid cancellation: y = 2 growth / (a + sqrt(a^2 + (2a - 1) growth)).
   return (2 * growth) / (a + Math.sqrt(a * a + (2 * a - 1) * growth));
@@ -142,8 +143,9 @@ class ParZeroInstrument extends CompiledInstrument<ParYieldQuote> {
     this.bill = bill;
   }
 
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.bill ? billYield(ln[offset]!, this.bill.days, this.bill.basis) : parZeroYield(ln[offset]!, this.quote.frequency, this.periods);
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    trace?.('lnP', ln[offset]!);
+    return this.bill ? billYield(ln[offset]!, this.bill.days, this.bill.basis, trace) : parZeroYield(ln[offset]!, this.quote.frequency, this.periods);
   }
 
   requote(value: number): Instrument {
@@ -166,11 +168,16 @@ class ParBondInstrument extends CompiledInstrument<ParYieldQuote> {
   }
 
   /** The par yield on the curve: c = (1 - DF(T_N)) / ((1/f) sum_k DF(T_k) - a). */
-  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number {
+  quoteFromFlows(_ln: ArrayLike<number>, df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
     const n = this.times.length;
     let annuity = 0;
     for (let j = 0; j < n; j++) annuity += df[offset + j]!;
-    return (1 - df[offset + n - 1]!) / (annuity / this.quote.frequency - this.accrualFraction);
+    const num = 1 - df[offset + n - 1]!;
+    const den = annuity / this.quote.frequency - this.accrualFraction;
+    trace?.('sum', annuity);
+    trace?.('den', den);
+    trace?.('num', num);
+    return num / den;
   }
 
   requote(value: number): Instrument {

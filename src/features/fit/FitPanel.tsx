@@ -28,7 +28,9 @@ import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 import type { FitCell } from './explainFitCell.ts';
 
-const sameFitCell = (a: FitCell, b: FitCell): boolean => a.fit.index === b.fit.index && a.fit.figure === b.fit.figure;
+const sameFitCell = (a: FitCell, b: FitCell): boolean => a.fit.index === b.fit.index && a.fit.figure === b.fit.figure && a.fit.table === b.fit.table;
+
+const FIGURE_WORDS: Record<FitCell['fit']['figure'], string> = { yield: 'fitted model yield', residual: 'fit residual', richness: 'market minus model price' };
 
 export interface FitPanelProps {
   /** The validated workspace whose enabled quotes are fitted (null: nothing to fit yet). */
@@ -82,11 +84,11 @@ export function FitPanel(props: FitPanelProps) {
   const explain = useExplainOpener<FitCell>(sameFitCell);
   // The open figure follows the panel's options, closed when its quote leaves the residuals.
   const open = explain.open && options && result?.ok && result.value.residuals.some((r) => r.index === explain.open!.fit.index) ? { fit: { ...explain.open.fit, options } } : null;
-  const figure = (index: number, which: FitCell['fit']['figure'], text: string) => {
+  const figure = (index: number, which: FitCell['fit']['figure'], text: string, table?: 'rich-cheap') => {
     if (!props.explainFrom || !options) return text;
-    const cell: FitCell = { fit: { options, index, figure: which } };
+    const cell: FitCell = { fit: { options, index, figure: which, ...(table ? { table } : {}) } };
     return (
-      <button type="button" className="cell-explain" data-field={which === 'residual' ? 'residual-bp' : undefined} aria-label={`${text}: explain the ${which === 'yield' ? 'fitted model yield' : 'fit residual'} of row ${rowNumber(props.rowOfQuote, index)}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+      <button type="button" className="cell-explain" data-field={which === 'residual' ? 'residual-bp' : undefined} aria-label={`${text}: explain the ${FIGURE_WORDS[which]} of row ${rowNumber(props.rowOfQuote, index)}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
         {text}
       </button>
     );
@@ -218,11 +220,12 @@ export function FitPanel(props: FitPanelProps) {
             </tbody>
           </table>
           </div>
-          {props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={open} onClose={explain.close} />}
+          {props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={open && !open.fit.table ? open : null} onClose={explain.close} />}
           {Object.keys(weightText).map((k) => weightError(Number(k))).filter((m): m is string => m !== null).map((m) => (
             <p key={m} role="alert" className="error">{m}</p>
           ))}
-          <RichCheapTable rowOfQuote={props.rowOfQuote} entries={result.value.richCheap} yieldTag="ICMA yield at each bond's coupon frequency" />
+          <RichCheapTable rowOfQuote={props.rowOfQuote} entries={result.value.richCheap} yieldTag="ICMA yield at each bond's coupon frequency" figure={(index, which, text) => figure(index, which, text, 'rich-cheap')} />
+          {props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={open?.fit.table ? open : null} onClose={explain.close} />}
         </>
       )}
     </section>

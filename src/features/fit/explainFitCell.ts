@@ -2,14 +2,18 @@ import { explainFitFigure, fitCurve, type FitFigure, type FitOptions, type FitSi
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { cellOf, type CellExplanation } from '../tables/explainCell.ts';
 
-/** A figure of the smooth fit's residual table: quote `index`'s model yield or residual, under the panel's fit options. */
+/** A figure of the smooth fit's residual table or rich/cheap list: quote `index`'s model yield, residual or richness, under the panel's fit options. */
 export interface FitCell {
   readonly fit: {
     readonly options: FitOptions;
     readonly index: number;
     readonly figure: FitFigure;
+    /** The table it was opened from (the panel opens beside it): the residuals' or the rich/cheap list's. */
+    readonly table?: 'rich-cheap';
   };
 }
+
+const TITLE: Record<FitFigure, string> = { yield: 'Fitted model yield', residual: 'Fit residual', richness: 'Market minus model price' };
 
 /**
  * The explanation of a fit figure: the fit made again as the panel makes it (same workspace and
@@ -25,7 +29,7 @@ export function explainFitCell(result: WorkbenchBuild, cell: FitCell['fit']): Re
   const r = explainFitFigure(fit.value, sink.trace!, cell.index, cell.figure);
   if (!r.ok) return r;
   const row = result.conversion.rowOfQuote[cell.index];
-  const title = `${cell.figure === 'yield' ? 'Fitted model yield' : 'Fit residual'} of ${row === undefined ? 'a quote' : `row ${row + 1}`}`;
+  const title = `${TITLE[cell.figure]} of ${row === undefined ? 'a quote' : `row ${row + 1}`}`;
   const note = 'none: a fit is not exact; no value under other interpolation methods: a parametric form interpolates nothing';
   return cellOf(result, title, r.value, { ok: true, value: [] }, note, []);
 }

@@ -5,7 +5,7 @@
 // t/tau2), x = t/tau1 (C. R. Nelson and A. F. Siegel, Journal of Business 60(4), 1987; L. E. O.
 // Svensson, NBER WP 4871, 1994), ln DF = -y t, and the quote's model value from those reads by its
 // kind's formula (test/helpers/quoteCheckRecompute.ts), all to 1e-15 relative. Market invented.
-import { buildCurve, explainFitFigure, fitCurve, type FitSink, type FitErrors, type FitModel } from '../../../src/core/index.ts';
+import { bondDirtyFromYield, buildCurve, explainFitFigure, fitCurve, type FitSink, type FitErrors, type FitModel } from '../../../src/core/index.ts';
 import { workspaceDoc } from '../../helpers/markets.ts';
 import { recompute, rel } from '../../helpers/quoteCheckRecompute.ts';
 
@@ -20,6 +20,7 @@ const MARKET = [
   { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0361 },
   { kind: 'bond', maturity: '2033-05-15', coupon: 0.04, frequency: 2, cleanPrice: 101.2 },
   { kind: 'swap', tenor: '10Y', rate: 0.0381 },
+  { kind: 'bond', maturity: '2035-02-15', coupon: 0.0375, frequency: 2, cleanPrice: 99.4, calendar: 'us-gov-securities', spotLag: 1 },
 ];
 const ws = buildCurve(workspaceDoc(MARKET, { settlement: VALUATION })).workspace!;
 
@@ -70,5 +71,54 @@ describe('explainFitFigure', () => {
         }
       });
     }
+  }
+
+  // The rich/cheap list's market minus model price: the dirty price at the quote (ICMA price at a quoted yield,
+  // sum CF_k (1 + y/f)^-(w + k), k from 0; clean + accrued for a price, ICMA Rule 251), paid at settlement (x DF(S)
+  // for a bond settled at spot), minus sum CF_i DF(T_i) on the fitted form; positive: rich.
+  for (const model of ['nelson-siegel', 'svensson'] as FitModel[]) {
+    it(`${model}: each bond's richness ends in the rich/cheap figure bit for bit; every step recomputed from the shown inputs to 1e-15`, () => {
+      const sink: FitSink = {};
+      const fit = fitCurve(ws, { model, errors: 'price' }, sink);
+      if (!fit.ok) throw new Error(fit.errors[0]!.message);
+      expect(fit.value.richCheap.length).toBe(3);
+      const kinds = new Set<string>();
+      for (const entry of fit.value.richCheap) {
+        const where = `bond ${entry.maturity}`;
+        const ins = sink.trace!.observations.find((o) => o.ins.index === entry.index)!.ins;
+        const r = explainFitFigure(fit.value, sink.trace!, entry.index, 'richness');
+        if (!r.ok) throw new Error(`${where}: ${r.errors[0]!.message}`);
+        const e = r.value;
+        expect(Object.is(e.value, entry.richnessPrice), where).toBe(true);
+        expect(Object.is(e.steps.at(-1)!.value, entry.richnessPrice), where).toBe(true);
+        const v = (n: string): number => e.steps.find((s) => s.name === n)!.value;
+        const has = (n: string): boolean => e.steps.some((s) => s.name === n);
+        for (const read of e.reads) expect(rel(-formZero(e, read.t) * read.t, read.lnDiscount), where).toBeLessThanOrEqual(1e-15);
+        let pv = 0;
+        e.reads.forEach((read, j) => (pv += v(`CF${j}`) * read.discount));
+        expect(rel(pv, v('model price')), where).toBeLessThanOrEqual(1e-15);
+        let dirty: number;
+        if (has('market yield')) {
+          kinds.add('yield');
+          const s = (ins as unknown as { schedule: Parameters<typeof bondDirtyFromYield>[0] }).schedule;
+          const y = v('market yield');
+          dirty = 0;
+          s.amounts.forEach((cf, k) => (dirty += cf * Math.pow(1 + y / s.frequency, -(v('w') + k))));
+        } else {
+          kinds.add('price');
+          dirty = v('clean') + v('accrued');
+        }
+        expect(rel(dirty, v('dirty')), where).toBeLessThanOrEqual(1e-15);
+        let market = v('dirty');
+        if (has('market price')) {
+          kinds.add('spot');
+          market = v('dirty') * e.reads[0]!.discount;
+          expect(rel(market, v('market price')), where).toBeLessThanOrEqual(1e-15);
+          market = v('market price');
+        }
+        expect(Object.is(market - v('model price'), e.value), where).toBe(true);
+      }
+      expect(kinds).toEqual(new Set(['yield', 'price', 'spot']));
+    });
   }
 });
