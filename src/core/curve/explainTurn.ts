@@ -1,6 +1,6 @@
 import type { CurveBuild } from '../bootstrap/build.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
-import { addDays } from '../time/date.ts';
+import { dayBefore } from '../time/overnightDays.ts';
 import { explainedConventions, type ExplainedStep, type Explanation } from './explain.ts';
 
 /**
@@ -37,7 +37,7 @@ export function explainSolvedTurn(build: Pick<CurveBuild, 'curve' | 'overnight' 
     conventions: explainedConventions(build.curve, 'simple', 'ACT/360'),
     dates: [
       { name: 'first day carrying the spread', given: span.start, unadjusted: span.start, adjusted: span.start, rule },
-      { name: 'last day carrying the spread', given: addDays(span.end, -1), unadjusted: addDays(span.end, -1), adjusted: addDays(span.end, -1), rule },
+      { name: 'last day carrying the spread', given: dayBefore(span.end), unadjusted: dayBefore(span.end), adjusted: dayBefore(span.end), rule },
     ],
     yearFractions: [],
     reads: [],
