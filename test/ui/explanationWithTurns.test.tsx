@@ -7,8 +7,8 @@
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
-import { workbenchFromEngine } from '../../src/core/index.ts';
 import { INVENTED_2022_OVERNIGHT } from '../helpers/markets.ts';
+import { workbenchOf } from '../helpers/engineWorkspace.ts';
 
 const ENGINE = { ...INVENTED_2022_OVERNIGHT, turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10 }] };
 
@@ -16,12 +16,10 @@ beforeAll(() => loadOvernightKit());
 
 describe('explanations of a curve with turns', () => {
   it('give the number under every method, the current one equal to the explained value', () => {
-    let n = 0;
-    const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-    if (!doc.ok) throw new Error(doc.errors[0]!.message);
-    const result = deriveBuild(doc.value);
+    const doc = workbenchOf(ENGINE);
+    const result = deriveBuild(doc);
     expect(result.build.curve).not.toBeNull();
-    const model = explainKeyCell(result, doc.value.display, { tenor: '1Y', field: 'forward' });
+    const model = explainKeyCell(result, doc.display, { tenor: '1Y', field: 'forward' });
     if (!model.ok) throw new Error(model.errors[0]!.message);
     expect(model.value.methods.length).toBe(5);
     for (const m of model.value.methods) {
@@ -32,13 +30,11 @@ describe('explanations of a curve with turns', () => {
   });
 
   it('give a bond figure under every method too (the bond panel rebuilds the curve as the workbench does)', () => {
-    let n = 0;
-    const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-    if (!doc.ok) throw new Error(doc.errors[0]!.message);
-    const result = deriveBuild(doc.value);
+    const doc = workbenchOf(ENGINE);
+    const result = deriveBuild(doc);
     // An invented two-year bond inside the curve's three years.
     const input = { maturity: '2024-03-01', coupon: 0.03, frequency: 2, dayCount: 'ACT/ACT-ICMA' as const };
-    const model = explainKeyCell(result, doc.value.display, { bond: { input, figure: 'dirty', side: 'model' } });
+    const model = explainKeyCell(result, doc.display, { bond: { input, figure: 'dirty', side: 'model' } });
     if (!model.ok) throw new Error(model.errors[0]!.message);
     expect(model.value.methods.length).toBe(5);
     for (const m of model.value.methods) expect(m.error).toBeNull();

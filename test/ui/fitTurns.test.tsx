@@ -5,13 +5,14 @@
 // with the build's turns, which test/core/fit/fitTurns.test.ts holds to a Nelson-Siegel form made
 // by hand (Nelson & Siegel 1987) times the turn's jump; the figures without the turn must differ.
 // Invented rates.
-import { act, render, screen, within } from '@testing-library/react';
+import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { installFeaturePanels } from '../../src/app/installFeaturePanels.tsx';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
-import { bpFigure, buildCurve, fitCurve, OVERNIGHT_KIT, workbenchFromEngine } from '../../src/core/index.ts';
+import { bpFigure, buildCurve, fitCurve, OVERNIGHT_KIT } from '../../src/core/index.ts';
+import { openEngineDocument } from '../helpers/engineWorkspace.ts';
 
 const VALUATION = '2027-06-15';
 const rate = (m: string, z: number) => {
@@ -45,10 +46,7 @@ beforeAll(async () => {
 beforeEach(() => {
   useAppStore.setState(useAppStore.getInitialState(), true);
   localStorage.clear();
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(doc.value, 'test market'));
+  openEngineDocument(ENGINE);
 });
 
 describe('Smooth fit with a turn and meeting steps', { timeout: 30_000 }, () => {

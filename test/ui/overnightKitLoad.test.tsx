@@ -3,11 +3,11 @@
 // curve until it arrives (saying so), then the base build is derived again and the curve is there;
 // a workspace without them never asks for it. (A file of its own: the kit, once loaded, stays loaded.)
 // The effective dates are SOFR's (MARKET-CONVENTIONS.md section h); the quotes are invented.
-import { act, render, screen } from '@testing-library/react';
+import { render, screen } from '@testing-library/react';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { loadedOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
-import { workbenchFromEngine } from '../../src/core/index.ts';
+import { openEngineDocument } from '../helpers/engineWorkspace.ts';
 
 const ENGINE = {
   format: 'tenorscope-workspace',
@@ -32,10 +32,7 @@ it('a workspace with meeting steps on builds once the kit has arrived; before, i
   render(<Probe />);
   expect(screen.getByTestId('state').textContent).toMatch(/^curve /); // the demo: no turns, no steps, no kit needed
   expect(loadedOvernightKit()).toBeNull();
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(doc.value, 'steps'));
+  openEngineDocument(ENGINE, 'steps');
   expect(screen.getByTestId('state').textContent).toContain('none: the turns and meeting steps are still loading');
   await screen.findByText('curve log-linear-discount 2022-03-17 2022-11-03 2024-03-01', undefined, { timeout: 10_000 });
   expect(loadedOvernightKit()).not.toBeNull();

@@ -10,8 +10,9 @@ import { OvernightTab } from '../../src/features/overnight/OvernightTab.tsx';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
-import { formatBpChange, meetingStepTable, workbenchFromEngine } from '../../src/core/index.ts';
+import { formatBpChange, meetingStepTable } from '../../src/core/index.ts';
 import { INVENTED_2022_OVERNIGHT } from '../helpers/markets.ts';
+import { openEngineDocument } from '../helpers/engineWorkspace.ts';
 
 const s = () => useAppStore.getState();
 const ENGINE = INVENTED_2022_OVERNIGHT;
@@ -26,10 +27,7 @@ beforeAll(() => loadOvernightKit());
 
 beforeEach(() => {
   useAppStore.setState(useAppStore.getInitialState(), true);
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  act(() => s().replaceWorkspace(doc.value, 'test market'));
+  openEngineDocument(ENGINE);
 });
 
 describe('OvernightTab', () => {

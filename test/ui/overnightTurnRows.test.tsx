@@ -12,7 +12,8 @@ import { ShareBar } from '../../src/share/ShareBar.tsx';
 import { deriveBuild, useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
-import { serialiseDocument, workbenchFromEngine } from '../../src/core/index.ts';
+import { serialiseDocument } from '../../src/core/index.ts';
+import { openEngineDocument } from '../helpers/engineWorkspace.ts';
 
 const s = () => useAppStore.getState();
 const dep = (lnGrowth: number, days: number) => (Math.expm1(lnGrowth) * 360) / days;
@@ -41,10 +42,7 @@ function Live() {
 beforeAll(() => loadOvernightKit());
 beforeEach(() => {
   useAppStore.setState(useAppStore.getInitialState(), true);
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  act(() => s().replaceWorkspace(doc.value, 'test market'));
+  openEngineDocument(ENGINE);
 });
 
 const picker = (name: string) => screen.getByRole('combobox', { name: `Spread of the turn ${name} set by` });

@@ -15,6 +15,7 @@ import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { buildCurve, formatBp, fullText, OVERNIGHT_KIT, parseDocumentText, readWorkbenchDocument, serialiseDocument, toEngineDocument, turnSpreads, workbenchFromEngine, type WorkbenchDocument } from '../../src/core/index.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
+import { openEngineDocument } from '../helpers/engineWorkspace.ts';
 
 const s = () => useAppStore.getState();
 const dep = (lnGrowth: number, days: number) => (Math.expm1(lnGrowth) * 360) / days;
@@ -46,10 +47,7 @@ beforeAll(async () => {
 
 beforeEach(() => {
   useAppStore.setState(useAppStore.getInitialState(), true);
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  act(() => s().replaceWorkspace(doc.value, 'test market'));
+  openEngineDocument(ENGINE);
 });
 
 const picker = () => screen.getByRole('combobox', { name: 'Spread of the turn year end 2022 set by' });

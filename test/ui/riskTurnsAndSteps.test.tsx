@@ -6,14 +6,15 @@
 // test/core/analytics/turnStepRisk.test.ts holds to bump-and-rebuild of the document; the plain
 // figures they must differ from are the same functions without the turns. Invented rates (the
 // ladder of test/core/bootstrap/turnsAndSteps.test.ts).
-import { act, render, screen, within } from '@testing-library/react';
+import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { installFeaturePanels } from '../../src/app/installFeaturePanels.tsx';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { useAppStore } from '../../src/state/store.ts';
 import { INVENTED_2022_SOLVED_TURN } from '../helpers/markets.ts';
-import { analyzeBond, buildCurve, nearZero, OVERNIGHT_KIT, quoteDv01s, sensitivityMapFor, workbenchFromEngine } from '../../src/core/index.ts';
+import { analyzeBond, buildCurve, nearZero, OVERNIGHT_KIT, quoteDv01s, sensitivityMapFor } from '../../src/core/index.ts';
+import { openEngineDocument } from '../helpers/engineWorkspace.ts';
 
 const ENGINE = INVENTED_2022_SOLVED_TURN;
 const { turns: _turns, ...PLAIN } = ENGINE;
@@ -25,10 +26,7 @@ beforeAll(async () => {
 beforeEach(() => {
   useAppStore.setState(useAppStore.getInitialState(), true);
   localStorage.clear();
-  let n = 0;
-  const doc = workbenchFromEngine(ENGINE, () => `r${n++}`);
-  if (!doc.ok) throw new Error(doc.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(doc.value, 'test market'));
+  openEngineDocument(ENGINE);
 });
 
 describe('Bond and sensitivities with a solved turn', { timeout: 30_000 }, () => {
