@@ -17,3 +17,17 @@ export function openEngineDocument(engine: unknown, label = 'test market'): void
   const doc = workbenchOf(engine);
   act(() => useAppStore.getState().replaceWorkspace(doc, label));
 }
+
+/**
+ * Registers the hooks of a whole-app component test on an engine document: the turns' code and the
+ * feature panels loaded once, then before each test a fresh store and browser storage with the
+ * document opened.
+ */
+export function withEngineWorkspace(engine: unknown, load: () => Promise<unknown>): void {
+  beforeAll(load);
+  beforeEach(() => {
+    useAppStore.setState(useAppStore.getInitialState(), true);
+    localStorage.clear();
+    openEngineDocument(engine);
+  });
+}

@@ -126,14 +126,13 @@ export const INVENTED_2022_SOFR_STEPS = {
  */
 const US_OIS = { calendar: 'us-gov-securities', spotLag: 0, paymentLag: 0 } as const;
 export const INVENTED_2022_SOLVED_TURN = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-03-01',
-  curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' },
+  format: INVENTED_2022_OVERNIGHT.format,
+  version: INVENTED_2022_OVERNIGHT.version,
+  valuationDate: INVENTED_2022_OVERNIGHT.valuationDate,
+  curve: INVENTED_2022_OVERNIGHT.curve,
   quotes: [
-    { kind: 'deposit', maturity: '2022-03-10', rate: 0.0008 },
-    { kind: 'deposit', maturity: '2022-06-01', rate: 0.004 },
-    { kind: 'deposit', maturity: '2022-12-01', rate: 0.015 },
+    // The deposits to December of INVENTED_2022_OVERNIGHT.
+    ...INVENTED_2022_OVERNIGHT.quotes.slice(0, 3),
     { kind: 'ois', maturity: '2023-01-17', rate: 0.01851, ...US_OIS },
     { kind: 'ois', tenor: '1Y', rate: 0.021, ...US_OIS },
     { kind: 'ois', tenor: '2Y', rate: 0.028, ...US_OIS },

@@ -1,5 +1,5 @@
 // Seeded random curves and bonds (invented) for the bond explanations' property tests.
-import { addDays, curveFromPillars, DAY_COUNTS, type BondInput, type Curve, type InterpolationId, type Pillar } from '../../src/core/index.ts';
+import { addDays, analyzeBond, curveFromPillars, DAY_COUNTS, DEFAULT_KEY_TENORS, type BondInput, type BondSink, type Curve, type InterpolationId, type Pillar } from '../../src/core/index.ts';
 
 export const RANDOM_BOND_SETTLEMENT = '2026-07-15';
 
@@ -39,3 +39,13 @@ export const valueOf = <T>(x: { ok: true; value: T } | { ok: false; errors: read
   if (!x.ok) throw new Error(x.errors[0]!.message);
   return x.value;
 };
+
+/** A random curve and bond analysed twice, without and with a sink (analyzeBond's trace), for traced-equals-untraced checks. */
+export function tracedRandomBond(r: () => number, method: InterpolationId, market = true) {
+  const curve = randomCurve(r, method);
+  const input = randomBond(r, curve, market);
+  const plain = analyzeBond(curve, input);
+  const sink: BondSink = {};
+  const traced = analyzeBond(curve, input, DEFAULT_KEY_TENORS, 'bond', sink);
+  return { curve, input, plain, traced, sink };
+}

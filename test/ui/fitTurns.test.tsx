@@ -10,9 +10,8 @@ import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { installFeaturePanels } from '../../src/app/installFeaturePanels.tsx';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
-import { useAppStore } from '../../src/state/store.ts';
 import { bpFigure, buildCurve, fitCurve, OVERNIGHT_KIT } from '../../src/core/index.ts';
-import { openEngineDocument } from '../helpers/engineWorkspace.ts';
+import { withEngineWorkspace } from '../helpers/engineWorkspace.ts';
 
 const VALUATION = '2027-06-15';
 const rate = (m: string, z: number) => {
@@ -39,14 +38,9 @@ const ENGINE = {
   meetingSteps: { on: true, effectiveDates: ['2027-07-29', '2027-09-16'] },
 };
 
-beforeAll(async () => {
+withEngineWorkspace(ENGINE, async () => {
   await loadOvernightKit();
   await installFeaturePanels();
-});
-beforeEach(() => {
-  useAppStore.setState(useAppStore.getInitialState(), true);
-  localStorage.clear();
-  openEngineDocument(ENGINE);
 });
 
 describe('Smooth fit with a turn and meeting steps', { timeout: 30_000 }, () => {

@@ -11,22 +11,16 @@ import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { installFeaturePanels } from '../../src/app/installFeaturePanels.tsx';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
-import { useAppStore } from '../../src/state/store.ts';
 import { INVENTED_2022_SOLVED_TURN } from '../helpers/markets.ts';
 import { analyzeBond, buildCurve, nearZero, OVERNIGHT_KIT, quoteDv01s, sensitivityMapFor } from '../../src/core/index.ts';
-import { openEngineDocument } from '../helpers/engineWorkspace.ts';
+import { withEngineWorkspace } from '../helpers/engineWorkspace.ts';
 
 const ENGINE = INVENTED_2022_SOLVED_TURN;
 const { turns: _turns, ...PLAIN } = ENGINE;
 
-beforeAll(async () => {
+withEngineWorkspace(ENGINE, async () => {
   await loadOvernightKit();
   await installFeaturePanels();
-});
-beforeEach(() => {
-  useAppStore.setState(useAppStore.getInitialState(), true);
-  localStorage.clear();
-  openEngineDocument(ENGINE);
 });
 
 describe('Bond and sensitivities with a solved turn', { timeout: 30_000 }, () => {

@@ -19,7 +19,7 @@ import {
   type Result,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, type CellExplanation } from '../tables/explainCell.ts';
+import { buildUnder, cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
 
 /**
  * A figure of the Bond on the curve table: the bond as the form reads it, the figure and its column;
@@ -46,7 +46,7 @@ const shownValue = (a: BondAnalytics, figure: BondFigure | ShiftFigure, side: Bo
  */
 export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']): Result<CellExplanation> {
   const curve = result.build.curve;
-  if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  if (!curve) return noCurve(result);
   const { input, figure, side, key = 0 } = cell;
   const sink: BondSink = {};
   const analysed = analyzeBond(curve, input, DEFAULT_KEY_TENORS, 'bond', sink);

@@ -13,7 +13,7 @@ import {
   type StrategyInputs,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, type CellExplanation } from '../tables/explainCell.ts';
+import { buildUnder, cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A figure of the roll panel (a money value, a return, a break-even, a leg's forward) under the strategy and scenario views it was shown with. */
 export interface RollCell {
@@ -27,7 +27,7 @@ export interface RollCell {
 /** One figure of the roll panel explained: its steps from the core (explainRollFigure), the quotes behind it, and the figure under each method. */
 export function explainRollCell(result: WorkbenchBuild, c: RollCell['roll']): Result<CellExplanation> {
   const curve = result.build.curve;
-  if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  if (!curve) return noCurve(result);
   const r = explainRollFigure(curve, c.strategy, c.scenarios, c.figure);
   if (!r.ok) return r;
   const { explanation, title, driver } = r.value;

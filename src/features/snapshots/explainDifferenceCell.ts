@@ -14,7 +14,7 @@ import {
   type Snapshot,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, type CellExplanation } from '../tables/explainCell.ts';
+import { buildUnder, cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A difference in the Snapshots table: the current zero rate at `tenor` minus the snapshot's, lined up `by`, in the table's convention. */
 export interface DifferenceCell {
@@ -43,7 +43,7 @@ export interface ReferenceCell {
  */
 export function explainDifferenceCell(result: WorkbenchBuild, cell: DifferenceCell['difference']): Result<CellExplanation> {
   const current = result.build.curve;
-  if (!current) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  if (!current) return noCurve(result);
   const { snapshot, tenor, by, compounding: c, dayCount: dc } = cell;
   const snapshotUnder = (method?: InterpolationId) => buildCurve(snapshotDocument(snapshot), method ? { interpolation: method } : {});
   const other = snapshotUnder().curve;
@@ -75,7 +75,7 @@ export function explainDifferenceCell(result: WorkbenchBuild, cell: DifferenceCe
  */
 export function explainReferenceCell(result: WorkbenchBuild, cell: ReferenceCell['reference']): Result<CellExplanation> {
   const curve = result.build.curve;
-  if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  if (!curve) return noCurve(result);
   const { curve: ref, date } = cell;
   const r = explainReferenceDifference(curve, ref, date);
   if (!r.ok) return r;

@@ -1,5 +1,7 @@
 import {
   applyScenario,
+  coreError,
+  fail,
   buildCurve,
   effectDates,
   explainScenarioChange,
@@ -126,6 +128,9 @@ export interface CellExplanation {
 
 const FIELD_WORDS: Readonly<Record<KeyField, string>> = { discount: 'discount factor', zero: 'zero rate', par: 'par yield', forward: 'forward rate' };
 
+/** Why a cell cannot be explained when the build has no curve: the build's own reason. */
+export const noCurve = (result: WorkbenchBuild): Result<never> => fail(coreError('schema', '', result.fatal ?? 'no curve'));
+
 /** The sheet row of a quote index of the build (the engine document's order), as people count it. */
 const rowWords = (row: number | null): string => (row === null ? 'a quote' : `row ${row + 1}`);
 
@@ -147,7 +152,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('quoteCheck' in cell) return explainQuoteCell(result, cell.quoteCheck);
   if ('fit' in cell) return explainFitCell(result, cell.fit);
   const curve = result.build.curve;
-  if (!curve) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  if (!curve) return noCurve(result);
   let date: string;
   let end: string;
   if ('tenor' in cell) {
@@ -241,7 +246,7 @@ export function buildUnder(result: WorkbenchBuild, method: InterpolationId, opti
 function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Result<CellExplanation> {
   const base = result.build.curve;
   const ws = result.build.workspace;
-  if (!base || !ws) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no curve' }] };
+  if (!base || !ws) return noCurve(result);
   const change = (on: Curve, workspace: typeof ws, method: InterpolationId) => {
     // The shown curve's change as its table moved it (applyToShown: a named curve with the curves it reads); other methods as applyScenario.
     const moved = on === base && result.onCurves ? applyToShown(c.scenario, result, c.buildOptions) : applyScenario(c.scenario, workspace, on, { ...c.buildOptions, interpolation: method });

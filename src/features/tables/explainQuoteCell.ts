@@ -1,6 +1,6 @@
 import { coreError, explainQuoteCheck, fail, quoteOnCurve, quoteYieldLabel, valueUnderEachMethod, type QuoteCheckFigure, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, type CellExplanation } from './explainCell.ts';
+import { buildUnder, cellOf, noCurve, type CellExplanation } from './explainCell.ts';
 
 /** A figure of the quote check: the model value of the quote with engine index `index`, or its difference from the market. */
 export interface QuoteCheckCell {
@@ -21,7 +21,7 @@ const no = <T,>(message: string): Result<T> => fail(coreError('schema', '', mess
  */
 export function explainQuoteCell(result: WorkbenchBuild, cell: QuoteCheckCell['quoteCheck']): Result<CellExplanation> {
   const curve = result.build.curve;
-  if (!curve) return no(result.fatal ?? 'no curve');
+  if (!curve) return noCurve(result);
   const ins = result.build.instruments.find((i) => i.index === cell.index);
   const row = result.build.repricing.find((r) => r.index === cell.index);
   if (!ins || !row) return no('this quote is not in the curve now');

@@ -22,7 +22,7 @@ import {
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
 import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts';
 import { rng } from '../../helpers/seededRandom.ts';
-import { randomBond, randomCurve, valueOf } from '../../helpers/randomBonds.ts';
+import { randomBond, randomCurve, tracedRandomBond, valueOf } from '../../helpers/randomBonds.ts';
 
 // Explanations of the bond figures (issue 19). Three claims:
 // 1. analyzeBond with a sink returns what it returns without one, bit for bit, and each figure's
@@ -104,11 +104,7 @@ describe('bond explanations: traced equals untraced, and the explanation ends in
   const r = rng(20261203);
   const cases = Array.from({ length: 60 }, (_, i) => ({ i, method: INTERPOLATIONS[i % INTERPOLATIONS.length]! }));
   it.each(cases)('random curve and bond $i under $method', ({ method }) => {
-    const curve = randomCurve(r, method);
-    const input = randomBond(r, curve);
-    const plain = analyzeBond(curve, input);
-    const sink: BondSink = {};
-    const traced = analyzeBond(curve, input, DEFAULT_KEY_TENORS, 'bond', sink);
+    const { curve, input, plain, traced, sink } = tracedRandomBond(r, method);
     expect(traced).toEqual(plain); // numbers compared with Object.is: bit for bit
     if (!plain.ok) return;
     const a = plain.value;

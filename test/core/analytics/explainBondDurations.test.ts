@@ -11,14 +11,13 @@ import {
   type BondAnalytics,
   type BondInput,
   type BondSink,
-  type Curve,
   type Explanation,
   type ShiftFigure,
 } from '../../../src/core/index.ts';
 import { expectClose, expectRelClose } from '../../helpers/asserts.ts';
 import { INVENTED_2027_EVERY_KIND, workspaceDoc } from '../../helpers/markets.ts';
 import { rng } from '../../helpers/seededRandom.ts';
-import { randomBond as randomBondOf, randomCurve, valueOf } from '../../helpers/randomBonds.ts';
+import { tracedRandomBond, valueOf } from '../../helpers/randomBonds.ts';
 
 // Explanations of the bond's effective and key-rate durations (issue 19). Claims:
 // 1. analyzeBond with a sink returns the same durations bit for bit, and each explanation ends in
@@ -38,7 +37,6 @@ import { randomBond as randomBondOf, randomCurve, valueOf } from '../../helpers/
 // 4. the quotes behind a duration against bump-and-rebuild.
 
 const value = valueOf;
-const randomBond = (r: () => number, curve: Curve): BondInput => randomBondOf(r, curve, false);
 
 const shown = (a: BondAnalytics, figure: ShiftFigure, key: number): number => (figure === 'effectiveDuration' ? a.effectiveDuration : a.keyRateDurations[key]!.duration);
 
@@ -94,11 +92,7 @@ describe('the durations explained: traced equals untraced, and the steps recompu
   const r = rng(20261204);
   const cases = Array.from({ length: 40 }, (_, i) => ({ i, method: INTERPOLATIONS[i % INTERPOLATIONS.length]! }));
   it.each(cases)('random curve and bond $i under $method', ({ method }) => {
-    const curve = randomCurve(r, method);
-    const input = randomBond(r, curve);
-    const plain = analyzeBond(curve, input);
-    const sink: BondSink = {};
-    const traced = analyzeBond(curve, input, DEFAULT_KEY_TENORS, 'bond', sink);
+    const { curve, input, plain, traced, sink } = tracedRandomBond(r, method, false);
     expect(traced).toEqual(plain); // numbers compared with Object.is: bit for bit
     if (!plain.ok) return;
     const a = plain.value;
