@@ -1,6 +1,6 @@
-import { coreError, explainSolvedTurn, topInfluencesOfSolvedTurn, valueUnderEachMethod, type Result } from '../../core/index.ts';
+import { coreError, explainSolvedTurn, topInfluencesOfSolvedTurn, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, type CellExplanation } from '../tables/explainCell.ts';
+import { cellOf, underEachMethod, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A turn's spread solved from a quote, in the Overnight curve section's turns table: its index in the document's turns. */
 export interface TurnCell {
@@ -21,7 +21,7 @@ export function explainTurnCell(result: WorkbenchBuild, index: number): Result<C
     const s = spans?.find((x) => x.index === index);
     return s ? { ok: true, value: s.spread * 1e4 } : { ok: false, errors: [coreError('schema', `turns[${index}]`, 'no turn on this curve')] };
   };
-  const methods = valueUnderEachMethod(curve.interpolation, (method) => buildUnder(result, method), (on) => spreadOn(on.turned?.spans));
+  const methods = underEachMethod(result, (on) => spreadOn(on.turned?.spans));
   const quote = result.build.overnight?.turns.find((t) => t.index === index)?.solve?.quote ?? 0;
   const row = result.conversion.rowOfQuote[quote];
   const influences = topInfluencesOfSolvedTurn(curve, result.build.instruments, index);

@@ -7,19 +7,17 @@ import {
   explainBondFigure,
   formatPercent,
   topInfluencesOfLn,
-  valueUnderEachMethod,
   type BondAnalytics,
   type BondFigure,
   type ShiftFigure,
   type BondInput,
   type BondSide,
   type BondSink,
-  type InterpolationId,
   type MethodValue,
   type Result,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
+import { cellOf, noCurve, underEachMethod, type CellExplanation } from '../tables/explainCell.ts';
 
 /**
  * A figure of the Bond on the curve table: the bond as the form reads it, the figure and its column;
@@ -57,10 +55,7 @@ export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']):
   const weights = bondLnWeights(sink.trace!, figure, side, key);
   // Under each method only what reads the curve: the rest is the same number under any method.
   const methods: MethodValue[] = weights
-    ? valueUnderEachMethod(
-        curve.interpolation,
-        (method: InterpolationId) => buildUnder(result, method),
-        (on) => {
+    ? underEachMethod(result, (on) => {
           const a = analyzeBond(on, input);
           return a.ok ? { ok: true, value: shownValue(a.value, figure, side, key)! } : a;
         },

@@ -3,8 +3,6 @@ import {
   rollFigure,
   topParQuoteInfluences,
   topQuoteInfluences,
-  valueUnderEachMethod,
-  type InterpolationId,
   type MethodValue,
   type NamedCurve,
   type QuoteInfluence,
@@ -13,7 +11,7 @@ import {
   type StrategyInputs,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
+import { cellOf, noCurve, underEachMethod, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A figure of the roll panel (a money value, a return, a break-even, a leg's forward) under the strategy and scenario views it was shown with. */
 export interface RollCell {
@@ -39,10 +37,7 @@ export function explainRollCell(result: WorkbenchBuild, c: RollCell['roll']): Re
   const view = 'view' in c.figure ? c.figure.view : c.strategy.view;
   const methods: MethodValue[] = view.startsWith('scenario')
     ? []
-    : valueUnderEachMethod(
-        curve.interpolation,
-        (method: InterpolationId) => buildUnder(result, method),
-        (on) => {
+    : underEachMethod(result, (on) => {
           const v = rollFigure(on, c.strategy, [], c.figure);
           return v.ok ? { ok: true, value: v.value.value } : v;
         },

@@ -4,7 +4,6 @@ import {
   explainReferenceDifference,
   snapshotDocument,
   topQuoteInfluences,
-  valueUnderEachMethod,
   type CompareBy,
   type Compounding,
   type CurveDayCount,
@@ -14,7 +13,7 @@ import {
   type Snapshot,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
+import { cellOf, noCurve, underEachMethod, type CellExplanation } from '../tables/explainCell.ts';
 
 /** A difference in the Snapshots table: the current zero rate at `tenor` minus the snapshot's, lined up `by`, in the table's convention. */
 export interface DifferenceCell {
@@ -54,10 +53,7 @@ export function explainDifferenceCell(result: WorkbenchBuild, cell: DifferenceCe
   const date = explanation.dates.find((d) => d.name === 'current date')!.adjusted;
   const influences = topQuoteInfluences(current, result.build.instruments, current.settlement, date, c, dc);
   const quotesNote = `of the current ${tenor} zero rate: the snapshot's quotes are frozen with it, not on the sheet`;
-  const methods = valueUnderEachMethod(
-    current.interpolation,
-    (method) => buildUnder(result, method),
-    (on) => {
+  const methods = underEachMethod(result, (on) => {
       const then = snapshotUnder(on.interpolation).curve;
       if (!then) return { ok: false, errors: [{ path: 'snapshots', quote: null, code: 'schema', message: `the snapshot does not build under ${on.interpolation}` }] };
       const v = explainCurveDifference(on, then, tenor, by, c, dc);
@@ -80,10 +76,7 @@ export function explainReferenceCell(result: WorkbenchBuild, cell: ReferenceCell
   const r = explainReferenceDifference(curve, ref, date);
   if (!r.ok) return r;
   const influences = topQuoteInfluences(curve, result.build.instruments, curve.settlement, date, ref.compounding, ref.dayCount);
-  const methods = valueUnderEachMethod(
-    curve.interpolation,
-    (method) => buildUnder(result, method),
-    (on) => {
+  const methods = underEachMethod(result, (on) => {
       const v = explainReferenceDifference(on, ref, date);
       return v.ok ? { ok: true, value: v.value.value } : v;
     },

@@ -196,7 +196,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   } else if (cell.field === 'zero') influences = topQuoteInfluences(curve, instruments, curve.settlement, date, c, dc);
   else influences = topQuoteInfluences(curve, instruments, date, end, c, dc);
   // The workspace's document built under each method, as the workbench builds it (skipping wrong rows).
-  const methods = valueUnderEachMethod(curve.interpolation, (method: InterpolationId) => buildUnder(result, method), read);
+  const methods = underEachMethod(result, read);
   const title =
     !('tenor' in cell) ? (cell.title ?? (cell.field === 'zero' ? `Zero rate on ${date}` : `${display.forwardTenor} forward rate starting ${date} (${date} to ${end})`))
     : cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
@@ -227,6 +227,14 @@ export function cellOf(result: WorkbenchBuild, title: string, explanation: Expla
     ...(methods.length > 0 ? { methods } : {}),
   };
   return { ok: true, value: { title, explanation, sections: explanationSections(explanation, extras), quotes, quotesNote, methods, text: explanationText(explanation, extras) } };
+}
+
+/**
+ * A cell's number read again on the workspace built under each method (buildUnder with `options`,
+ * the workbench's by default), the build's own method marked current.
+ */
+export function underEachMethod(result: WorkbenchBuild, read: (curve: Curve) => Result<number>, options?: BuildOptions): MethodValue[] {
+  return valueUnderEachMethod(result.build.curve!.interpolation, (method) => buildUnder(result, method, options), read);
 }
 
 /**
@@ -266,13 +274,13 @@ function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Res
       : topQuoteInfluences(base, result.build.instruments, dates.date, dates.end ?? dates.date, conv.forwardCompounding, conv.forwardDayCount);
   const quotesNote = `of the base ${what}: the change is the scenario's shift, and the scenario rate moves with these quotes as the base rate does`;
   // The document is the same under every method (only the interpolation differs), so is its workspace.
-  const methods = valueUnderEachMethod(
-    base.interpolation,
-    (method) => buildUnder(result, method, c.buildOptions),
+  const methods = underEachMethod(
+    result,
     (on): Result<number> => {
       const v = change(on, ws, on.interpolation);
       return v.ok ? { ok: true, value: v.value.explanation.value } : v;
     },
+    c.buildOptions,
   );
   return cellOf(result, title, explanation, influences, quotesNote, methods);
 }

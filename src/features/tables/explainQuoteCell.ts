@@ -1,6 +1,6 @@
-import { coreError, explainQuoteCheck, fail, quoteOnCurve, quoteYieldLabel, valueUnderEachMethod, type QuoteCheckFigure, type Result } from '../../core/index.ts';
+import { coreError, explainQuoteCheck, fail, quoteOnCurve, quoteYieldLabel, type QuoteCheckFigure, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, noCurve, type CellExplanation } from './explainCell.ts';
+import { cellOf, noCurve, underEachMethod, type CellExplanation } from './explainCell.ts';
 
 /** A figure of the quote check: the model value of the quote with engine index `index`, or its difference from the market. */
 export interface QuoteCheckCell {
@@ -33,10 +33,7 @@ export function explainQuoteCell(result: WorkbenchBuild, cell: QuoteCheckCell['q
   const rowText = sheetRow === undefined ? 'this quote' : `row ${sheetRow + 1}`;
   const influences = { ok: true as const, value: [{ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: quoteYieldLabel(ins), bpPerBp: 1 }] };
   const note = `the curve is solved to reprice ${rowText}, so its model value moves one for one with its quote alone`;
-  const methods = valueUnderEachMethod(
-    curve.interpolation,
-    (method) => buildUnder(result, method),
-    (on) => {
+  const methods = underEachMethod(result, (on) => {
       const model = quoteOnCurve(ins, on.lnDiscountAt);
       const v = cell.figure === 'model' ? model : ins.unit === 'price' ? model - ins.market : (model - ins.market) * 1e4;
       return Number.isFinite(v) ? { ok: true, value: v } : no('no value');
