@@ -22,9 +22,10 @@ export function explainTurnCell(result: WorkbenchBuild, index: number): Result<C
     return s ? { ok: true, value: s.spread * 1e4 } : { ok: false, errors: [coreError('schema', `turns[${index}]`, 'no turn on this curve')] };
   };
   const methods = underEachMethod(result, (on) => spreadOn(on.turned?.spans));
-  const quote = result.build.overnight?.turns.find((t) => t.index === index)?.solve?.quote ?? 0;
-  const row = result.conversion.rowOfQuote[quote];
+  // explainSolvedTurn has found the turn and its record.
+  const span = result.build.overnight!.turns.find((t) => t.index === index)!;
+  const row = result.conversion.rowOfQuote[span.solve!.quote];
   const influences = topInfluencesOfSolvedTurn(curve, result.build.instruments, index);
-  const name = result.build.overnight?.turns.find((t) => t.index === index)?.name ?? `turn ${index + 1}`;
+  const name = span.name;
   return cellOf(result, `Spread of the turn ${name}, solved from ${row === undefined ? 'its quote' : `row ${row + 1}`}`, r.value, influences, 'bp of the spread per bp of each quote: the spread is one of the curve\u2019s unknowns, solved with its nodes', methods);
 }
