@@ -147,4 +147,19 @@ describe('OvernightTab: a turn solved from a sheet row', () => {
     await user.keyboard('{Escape}');
     expect(button).toHaveFocus();
   });
+  it('a read-only workspace: the solved spread still opens its explanation; choosing the row, removing and adding turns are locked', async () => {
+    const user = userEvent.setup({ delay: null });
+    render(<Live />);
+    fireEvent.change(picker(), { target: { value: 'r1' } });
+    act(() => s().openReadOnly(s().workspace, [], 'link'));
+    expect(picker()).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Remove the turn year end 2022' })).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Add these turns' })).toBeDisabled();
+    const button = screen.getByRole('button', { name: /explain the spread of the turn year end 2022$/ });
+    expect(button).not.toBeDisabled();
+    await user.click(button);
+    await screen.findByRole('complementary', { name: /Spread of the turn year end 2022, solved from row 2/ });
+    act(() => s().closeReadOnly());
+    expect(picker()).not.toBeDisabled();
+  });
 });

@@ -185,6 +185,8 @@ function Turns({ result }: { result: WorkbenchBuild }) {
   const build = result.build;
   const display = useAppStore((s) => s.workspace.display);
   const explain = useExplainOpener<TurnCell>((a, b) => a.turn === b.turn);
+  // The table stays outside the edit lock, so a read-only workspace can still open a solved spread's explanation; its editing controls are locked here.
+  const locked = useAppStore((s) => s.readOnly !== null);
   const turns = useAppStore((s) => s.workspace.turns) ?? NO_TURNS;
   const rows = useAppStore((s) => s.workspace.quotes);
   const dateOrder = useAppStore((s) => s.workspace.display.dateOrder);
@@ -220,74 +222,74 @@ function Turns({ result }: { result: WorkbenchBuild }) {
     <section aria-label="Turns">
       <h3>Turns</h3>
       <p className="muted small">A turn adds a spread to the overnight rate of the periods starting on the business days from its first to its last day (a Friday&rsquo;s period runs over the weekend to the next business day); every forward period holding one of those days rises, none else. Business days are the turn&rsquo;s calendar&rsquo;s: the first dated row&rsquo;s, else weekends only. Or solve it from a quote spanning the turn.</p>
-      <EditLock>
-        {turns.length > 0 && (
-          <div className="table-scroll">
-            <table className="data" aria-label="Turns">
-              <thead>
-                <tr>
-                  <th scope="col">Name</th>
-                  <th scope="col">First day</th>
-                  <th scope="col">Last day</th>
-                  <th scope="col">Spread set by</th>
-                  <th scope="col">Spread (bp, {OVERNIGHT_TAG}, on the overnight rate)</th>
-                  <th scope="col">
-                    <span className="sr-only">Remove</span>
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {turns.map((t, i) => {
-                  // One row sets one turn: the picker offers the rows no other turn is solved from; a
-                  // document that names one row twice (a file) shows it here, naming the other turn.
-                  const other = (id: string): WorkbenchTurn | undefined => turns.find((x, k) => k !== i && x.solveFromRow === id);
-                  const clash = t.solveFromRow === undefined ? undefined : other(t.solveFromRow);
-                  const at = rows.findIndex((r) => r.id === t.solveFromRow);
-                  return (
-                  <tr key={t.name}>
-                    <td>{t.name}</td>
-                    <td>{t.from}</td>
-                    <td>{t.to}</td>
-                    <td>
-                      <select aria-label={`Spread of the turn ${t.name} set by`} value={t.solveFromRow ?? 'given'} onChange={(e) => setSource(i, e.target.value)}>
-                        <option value="given">you</option>
-                        {t.solveFromRow !== undefined && !rows.some((r) => r.id === t.solveFromRow) && <option value={t.solveFromRow}>a removed row</option>}
-                        {rows.map((r, k) =>
-                          r.id === t.solveFromRow || !other(r.id) ? (
-                            <option key={r.id} value={r.id}>
-                              {rowWords(r, k)}
-                            </option>
-                          ) : null,
-                        )}
-                      </select>
-                      {clash && (
-                        <p className="field-error" role="alert">
-                          {`${at < 0 ? 'A removed row' : `Row ${at + 1}`} also sets the turn ${clash.name}: one row sets one turn.`}
-                        </p>
+      {turns.length > 0 && (
+        <div className="table-scroll">
+          <table className="data" aria-label="Turns">
+            <thead>
+              <tr>
+                <th scope="col">Name</th>
+                <th scope="col">First day</th>
+                <th scope="col">Last day</th>
+                <th scope="col">Spread set by</th>
+                <th scope="col">Spread (bp, {OVERNIGHT_TAG}, on the overnight rate)</th>
+                <th scope="col">
+                  <span className="sr-only">Remove</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {turns.map((t, i) => {
+                // One row sets one turn: the picker offers the rows no other turn is solved from; a
+                // document that names one row twice (a file) shows it here, naming the other turn.
+                const other = (id: string): WorkbenchTurn | undefined => turns.find((x, k) => k !== i && x.solveFromRow === id);
+                const clash = t.solveFromRow === undefined ? undefined : other(t.solveFromRow);
+                const at = rows.findIndex((r) => r.id === t.solveFromRow);
+                return (
+                <tr key={t.name}>
+                  <td>{t.name}</td>
+                  <td>{t.from}</td>
+                  <td>{t.to}</td>
+                  <td>
+                    <select aria-label={`Spread of the turn ${t.name} set by`} disabled={locked} value={t.solveFromRow ?? 'given'} onChange={(e) => setSource(i, e.target.value)}>
+                      <option value="given">you</option>
+                      {t.solveFromRow !== undefined && !rows.some((r) => r.id === t.solveFromRow) && <option value={t.solveFromRow}>a removed row</option>}
+                      {rows.map((r, k) =>
+                        r.id === t.solveFromRow || !other(r.id) ? (
+                          <option key={r.id} value={r.id}>
+                            {rowWords(r, k)}
+                          </option>
+                        ) : null,
                       )}
-                    </td>
-                    <td className="num" data-turn-spread={t.name}>
-                      {t.solveFromRow === undefined || !spreads.some((x) => x.index === i) ? (
-                        t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(undefined)
-                      ) : (
-                        <button type="button" className="cell-explain" aria-label={`${solvedText(spreads.find((x) => x.index === i))}: explain the spread of the turn ${t.name}`} aria-expanded={explain.isOpen({ turn: i })} onClick={(e) => explain.toggle(e, { turn: i })}>
-                          {solvedText(spreads.find((x) => x.index === i))}
-                        </button>
-                      )}
-                    </td>
-                    <td>
-                      <button type="button" aria-label={`Remove the turn ${t.name}`} onClick={() => useAppStore.getState().setTurns(turns.filter((x) => x !== t))}>
-                        Remove
+                    </select>
+                    {clash && (
+                      <p className="field-error" role="alert">
+                        {`${at < 0 ? 'A removed row' : `Row ${at + 1}`} also sets the turn ${clash.name}: one row sets one turn.`}
+                      </p>
+                    )}
+                  </td>
+                  <td className="num" data-turn-spread={t.name}>
+                    {t.solveFromRow === undefined || !spreads.some((x) => x.index === i) ? (
+                      t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(undefined)
+                    ) : (
+                      <button type="button" className="cell-explain" aria-label={`${solvedText(spreads.find((x) => x.index === i))}: explain the spread of the turn ${t.name}`} aria-expanded={explain.isOpen({ turn: i })} onClick={(e) => explain.toggle(e, { turn: i })}>
+                        {solvedText(spreads.find((x) => x.index === i))}
                       </button>
-                    </td>
-                  </tr>
-                  );
-                })}
-              </tbody>
-            </table>
-          </div>
-        )}
-        {explain.open !== null && spreads.some((x) => x.index === explain.open!.turn) ? <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} /> : null}
+                    )}
+                  </td>
+                  <td>
+                    <button type="button" aria-label={`Remove the turn ${t.name}`} disabled={locked} onClick={() => useAppStore.getState().setTurns(turns.filter((x) => x !== t))}>
+                      Remove
+                    </button>
+                  </td>
+                </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      )}
+      {explain.open !== null && spreads.some((x) => x.index === explain.open!.turn) ? <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} /> : null}
+      <EditLock>
         <details open={turns.length === 0}>
           <summary>Add turns</summary>
           <label>
