@@ -66,4 +66,34 @@ describe('explanations in the heat map', () => {
     expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
     expect(button).toHaveFocus();
   });
+  it("a forward's rate opens its explanation: forwardOn on the map's curve, the map's figure to all digits, its row's largest sensitivities as quotes", async () => {
+    const user = userEvent.setup({ delay: null });
+    const result = deriveBuild(useAppStore.getState().workspace);
+    const ws = result.build.workspace!;
+    render(<SensitivityHeatMap workspace={ws} rowOfQuote={result.conversion.rowOfQuote} result={result} />);
+    const map = sensitivityMapFor(ws, { interpolation: ws.curve.interpolation, tenor: { n: 3, unit: 'M' }, step: { n: 1, unit: 'Y' }, compounding: 'simple' });
+    if (!map.ok) throw new Error(map.errors[0]!.message);
+    const { rows, columns, values } = map.value.map;
+    const i = 3;
+    const row = rows[i]!;
+    await user.click(within(screen.getByRole('table', { name: 'Forward sensitivities' })).getByRole('button', { name: new RegExp(`explain the forward ${row.start} to ${row.end}$`) }));
+    const panel = await screen.findByRole('complementary', { name: new RegExp(`Forward ${row.start} to ${row.end} of the sensitivity map`) });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(row.rate));
+    // Recomputed from the explanation's own inputs: the simple forward (DF(start)/DF(end) - 1) / tau (its definition, common practice), from the ln DFs the panel lists (expm1 keeps the digits a ratio near 1 loses).
+    const e = explainKeyCell(result, useAppStore.getState().workspace.display, { sensitivity: { workspace: ws, interpolation: ws.curve.interpolation, tenor: '3M', step: '1Y', start: row.start, quote: -1 } });
+    if (!e.ok) throw new Error(e.errors[0]!.message);
+    const x = e.value.explanation;
+    const ln = (name: string) => x.reads.find((r) => r.name === name)!.lnDiscount;
+    const tau = x.yearFractions.at(-1)!.value;
+    expect(tau).toBe(row.tau);
+    expect(Math.abs(Math.expm1(ln('DF(start)') - ln('DF(end)')) / tau - row.rate) / row.rate).toBeLessThan(1e-15);
+    // The quotes: the row's five largest sensitivities, largest first.
+    const largest = columns.map((c, k) => ({ c, v: values[i * columns.length + k]! })).sort((a, b) => Math.abs(b.v) - Math.abs(a.v)).slice(0, 5);
+    expect(e.value.quotes.map((q) => q.bpPerBp)).toEqual(largest.map((l) => l.v));
+    for (const m of e.value.methods) {
+      const again = sensitivityMapFor(ws, { interpolation: m.method, tenor: { n: 3, unit: 'M' }, step: { n: 1, unit: 'Y' }, compounding: 'simple' });
+      if (!again.ok) throw new Error(m.method);
+      expect(m.value, m.method).toBe(again.value.map.rows.find((r) => r.start === row.start)!.rate);
+    }
+  });
 });
