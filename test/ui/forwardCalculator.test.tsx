@@ -3,11 +3,12 @@
 // view (saved, undone, shared), and every figure shown is the core's (forwardBetween,
 // forwardParRateOn) on the workspace's curve. The core's figures are tested against a published
 // table in test/core/curve/forwardBetween.test.ts; here the panel must show them.
-import { render, screen, within } from '@testing-library/react';
+import { act, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
 import { forwardBetween, fullText } from '../../src/core/index.ts';
-import { formatPercent } from '../../src/core/index.ts';
+import { formatNumber, formatPercent } from '../../src/core/index.ts';
+import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
@@ -96,5 +97,28 @@ describe('Forward grid axes', { timeout: 30_000 }, () => {
     expect(steps.at(-1)!.textContent).toContain(`= ${fullText(f.value.rate)}`);
     expect(panel.textContent).toContain(`DF = ${fullText(f.value.dfStart)}`);
     expect(panel.textContent).toContain(`DF = ${fullText(f.value.dfEnd)}`);
+  });
+  it("a discount factor opens its explanation, ending in the calculator's figure to all digits; in a read-only workspace the figures still open while the inputs are locked", async () => {
+    const user = userEvent.setup({ delay: null });
+    render(<App />);
+    await user.click(screen.getByRole('tab', { name: 'Forward calculator' }));
+    const table = await screen.findByRole('table', { name: 'Forward calculator' });
+    const doc = useAppStore.getState().workspace;
+    const curve = deriveBuild(doc).build.curve!;
+    const f = forwardBetween(curve, '5Y', '5Y', doc.display.compounding, doc.display.dayCount);
+    if (!f.ok) throw new Error('forward');
+    act(() => useAppStore.getState().openReadOnly(useAppStore.getState().workspace, [], 'link'));
+    expect(within(table).getByRole('textbox', { name: 'Start of forward 3' })).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Add a forward' })).toBeDisabled();
+    const button = within(table).getByRole('button', { name: `${formatNumber(f.value.dfEnd, 8)}: explain the discount factor at the end of forward 3 (${f.value.end})` });
+    expect(button).not.toBeDisabled();
+    await user.click(button);
+    const panel = await screen.findByRole('complementary', { name: new RegExp(`Discount factor at the end of forward 3 \\(${f.value.end}\\)`) });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(f.value.dfEnd));
+    // Recomputed from the panel's own input: DF = exp(ln DF), the value today of 1 paid on the date (its definition).
+    const e = explainKeyCell(deriveBuild(doc), doc.display, { field: 'discount', start: f.value.end });
+    if (!e.ok) throw new Error(e.errors[0]!.message);
+    expect(Math.exp(e.value.explanation.reads[0]!.lnDiscount)).toBe(f.value.dfEnd);
+    expect(e.value.explanation.value).toBe(f.value.dfEnd);
   });
 });

@@ -2,7 +2,6 @@ import { useId, useMemo } from 'react';
 import { forwardBetween, type Curve, formatNumber, formatPercent, rateTag } from '../../core/index.ts';
 import { useAppStore } from '../../state/store.ts';
 import { setViewValues, viewList } from '../../state/viewValues.ts';
-import { EditLock } from '../../components/EditLock.tsx';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import type { DatedCell } from './explainCell.ts';
 import { OpenExplanation, useExplainOpener } from './explainOpener.tsx';
@@ -32,7 +31,20 @@ export function ForwardCalculator({ curve, result }: { curve: Curve; result?: Wo
   );
   const tag = rateTag(display.compounding, display.dayCount);
   const id = useId();
-  const explain = useExplainOpener<DatedCell>((a, b) => a.start === b.start && a.end === b.end);
+  // Not under an edit lock: a read-only workspace still opens the figures' explanations; the inputs and buttons are locked here.
+  const locked = useAppStore((st) => st.readOnly !== null);
+  const explain = useExplainOpener<DatedCell>((a, b) => a.field === b.field && a.start === b.start && a.end === b.end);
+  // A discount factor of row i opens its explanation (discountOn, as forwardBetween reads it).
+  const df = (i: number, date: string, which: string, value: number) => {
+    const text = formatNumber(value, 8);
+    if (!result) return text;
+    const cell: DatedCell = { field: 'discount', start: date, title: `Discount factor at the ${which} of forward ${i + 1} (${date})` };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the discount factor at the ${which} of forward ${i + 1} (${date})`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   const write = (nextStarts: readonly string[], nextEnds: readonly string[], label: string, mergeKey?: string) =>
     setViewValues({ forwardCalcStarts: [...nextStarts.slice(0, n)], forwardCalcEnds: [...nextEnds.slice(0, n)] }, label, mergeKey);
   const edit = (i: number, which: 'start' | 'end', text: string) => {
@@ -50,7 +62,6 @@ export function ForwardCalculator({ curve, result }: { curve: Curve; result?: Wo
     setViewValues({ forwardCalcStarts: starts.slice(0, n).filter((_, j) => j !== i), forwardCalcEnds: ends.slice(0, n).filter((_, j) => j !== i) }, 'remove a forward');
   const endEdit = () => useAppStore.getState().endEdit();
   return (
-    <EditLock>
     <div className="forward-calc">
       <p className="muted small" id={`${id}-help`}>
         Start: empty for the settlement date {curve.settlement}, a tenor from settlement (1Y) or a date (YYYY-MM-DD). End: a tenor from the start (6M) or a date. Tenors are added unadjusted; a month end past the month's last day is clipped.
@@ -80,18 +91,18 @@ export function ForwardCalculator({ curve, result }: { curve: Curve; result?: Wo
             {rows.map((r, i) => (
               <tr key={i}>
                 <td>
-                  <input aria-label={`Start of forward ${i + 1}`} aria-describedby={`${id}-help`} value={starts[i]} size={8} spellCheck={false} onChange={(e) => edit(i, 'start', e.target.value)} onBlur={endEdit} />
+                  <input aria-label={`Start of forward ${i + 1}`} aria-describedby={`${id}-help`} value={starts[i]} disabled={locked} size={8} spellCheck={false} onChange={(e) => edit(i, 'start', e.target.value)} onBlur={endEdit} />
                   {r.ok ? <span className="resolved-date">{r.value.start}</span> : null}
                 </td>
                 <td>
-                  <input aria-label={`End of forward ${i + 1}`} aria-describedby={`${id}-help`} value={ends[i]} size={8} spellCheck={false} onChange={(e) => edit(i, 'end', e.target.value)} onBlur={endEdit} />
+                  <input aria-label={`End of forward ${i + 1}`} aria-describedby={`${id}-help`} value={ends[i]} disabled={locked} size={8} spellCheck={false} onChange={(e) => edit(i, 'end', e.target.value)} onBlur={endEdit} />
                   {r.ok ? <span className="resolved-date">{r.value.end}</span> : null}
                 </td>
                 {r.ok ? (
                   <>
                     <td className="n">{formatNumber(r.value.tau, 6)}</td>
-                    <td className="n">{formatNumber(r.value.dfStart, 8)}</td>
-                    <td className="n">{formatNumber(r.value.dfEnd, 8)}</td>
+                    <td className="n">{df(i, r.value.start, 'start', r.value.dfStart)}</td>
+                    <td className="n">{df(i, r.value.end, 'end', r.value.dfEnd)}</td>
                     <td className="n" data-forward={i + 1}>
                       {result ? (
                         <button
@@ -115,7 +126,7 @@ export function ForwardCalculator({ curve, result }: { curve: Curve; result?: Wo
                   </td>
                 )}
                 <td>
-                  <button type="button" className="icon" onClick={() => remove(i)} aria-label={`Remove forward ${i + 1}`} title="Remove this row" disabled={n <= 1}>
+                  <button type="button" className="icon" onClick={() => remove(i)} aria-label={`Remove forward ${i + 1}`} title="Remove this row" disabled={locked || n <= 1}>
                     ×
                   </button>
                 </td>
@@ -126,11 +137,10 @@ export function ForwardCalculator({ curve, result }: { curve: Curve; result?: Wo
       </div>
       {result ? <OpenExplanation result={result} display={display} cell={explain.open} onClose={explain.close} /> : null}
       </div>
-      <button type="button" onClick={add} disabled={n >= FORWARD_CALC_ROWS}>
+      <button type="button" onClick={add} disabled={locked || n >= FORWARD_CALC_ROWS}>
         Add a forward
       </button>
       {n >= FORWARD_CALC_ROWS ? <span className="muted small"> At most {FORWARD_CALC_ROWS} rows.</span> : null}
     </div>
-    </EditLock>
   );
 }

@@ -63,13 +63,13 @@ export interface KeyCell {
 }
 
 /**
- * A number given by its dates (the forward strip and grid, the charts' readout): a zero rate on
- * `start`, a forward from `start` to `end` in the display convention, or a forward par rate from
+ * A number given by its dates (the forward strip and grid, the calculator, the charts' readout): a
+ * discount factor or zero rate on `start`, a forward from `start` to `end` in the display convention, or a forward par rate from
  * `start` to `end` on the swap fixed leg `leg`.
  */
 export interface DatedCell {
-  readonly field: 'zero' | 'forward' | 'forwardPar';
-  /** ISO date: the zero rate's date, or the forward's start. */
+  readonly field: 'discount' | 'zero' | 'forward' | 'forwardPar';
+  /** ISO date: the discount factor's or zero rate's date, or the forward's start. */
   readonly start: string;
   /** ISO date: the forward's end (unused for a zero rate); a forward without one runs the display's forward tenor. */
   readonly end?: string;
