@@ -15,6 +15,7 @@ import { CurveTableExport } from '../../src/features/tables/CurveTableExport.tsx
 import { ForwardCalculator } from '../../src/features/tables/ForwardCalculator.tsx';
 import { ForwardGridTable } from '../../src/features/tables/ForwardGridTable.tsx';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
+import { takeSnapshot } from '../../src/core/index.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
 const initial = useAppStore.getInitialState();
@@ -33,7 +34,7 @@ function Panels(): ReactNode {
       <div data-testid="scenarios"><ScenariosTab result={result} /></div>
       <div data-testid="snapshots"><SnapshotsTab result={result} /></div>
       <div data-testid="compare"><ComparisonControls drawn={0} /></div>
-      <div data-testid="calculator"><ForwardCalculator curve={curve} /></div>
+      <div data-testid="calculator"><ForwardCalculator curve={curve} result={result} /></div>
       <div data-testid="grid"><ForwardGridTable curve={curve} workspace={result.build.workspace} /></div>
       <div data-testid="table"><CurveTableExport curve={curve} /></div>
       <div data-testid="print"><PrintTab result={result} /></div>
@@ -75,5 +76,20 @@ describe('controls of a read-only workspace', () => {
     for (const b of printed) expect(b).not.toBeDisabled();
     act(() => useAppStore.getState().closeReadOnly());
     for (const p of panels) expect(editingControls(p).some((el) => !el.matches(':disabled')), p).toBe(true);
+  }, 30_000); // a limit for a hung render on a loaded machine, not a speed check
+  it('with a scenario and a snapshot: their editing controls are locked while read-only, and every figure that explains itself stays usable', () => {
+    const ws = useAppStore.getState().workspace;
+    act(() => useAppStore.getState().setReserved('scenarios', [{ id: 'a', name: 'Up 5', space: 'quotes', shape: { kind: 'parallel', bp: 5 } }]));
+    act(() => useAppStore.getState().setReserved('snapshots', [takeSnapshot(deriveBuild(ws).conversion.doc as unknown as Record<string, unknown>, 'Close', '2026-11-01T12:00:00Z')]));
+    render(<Panels />);
+    const explainersIn = (p: string) => [...screen.getByTestId(p).querySelectorAll<HTMLButtonElement>('button.cell-explain')];
+    for (const p of ['scenarios', 'snapshots', 'calculator']) expect(explainersIn(p).length, p).toBeGreaterThan(0);
+    act(() => useAppStore.getState().openReadOnly(useAppStore.getState().workspace, [], 'link'));
+    for (const p of ['scenarios', 'snapshots', 'calculator']) {
+      expect(editingControls(p).filter((el) => !el.matches(':disabled')).map((el) => `${p}: ${el.outerHTML.slice(0, 80)}`)).toEqual([]);
+      expect(explainersIn(p).filter((el) => el.matches(':disabled')).map((el) => el.getAttribute('aria-label'))).toEqual([]);
+    }
+    expect(screen.getByRole('button', { name: 'Remove scenario Up 5' })).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Remove snapshot Close' })).toBeDisabled();
   }, 30_000); // a limit for a hung render on a loaded machine, not a speed check
 });

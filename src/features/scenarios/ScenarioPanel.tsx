@@ -1,3 +1,4 @@
+import { EditLock } from '../../components/EditLock.tsx';
 import { useMemo } from 'react';
 import { applyScenario, COMPARISON_TENORS, scenarioEffects, shapeSamples, type EffectConventions, type Scenario } from '../../core/index.ts';
 import { validateScenarios } from '../../core/index.ts';
@@ -59,11 +60,14 @@ export function ScenarioPanel({ value, onChange, workspace, base, buildOptions =
           Some saved scenarios could not be read and are not shown: {errors.slice(0, 3).map((e) => e.message).join('; ')}
         </div>
       )}
+      <EditLock>
       <ScenarioForm usedIds={scenarios.map((s) => s.id)} onAdd={(s) => onChange([...scenarios, s])} disabled={scenarios.length >= 50} />
+      </EditLock>
       {scenarios.length === 0 ? (
         <p className="muted">No scenarios yet. Add one above: a parallel shift, a steepener or flattener, a butterfly or key-rate bumps.</p>
       ) : (
         <>
+          <EditLock>
           <ul className="scenario-list">
             {applied.map(({ s, result, error }) => (
               <li key={s.id}>
@@ -77,6 +81,7 @@ export function ScenarioPanel({ value, onChange, workspace, base, buildOptions =
               </li>
             ))}
           </ul>
+          </EditLock>
           <ScenarioTable
             tenors={tenors}
             conventions={effectConventionsText(conventions)}

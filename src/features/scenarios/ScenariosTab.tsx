@@ -3,7 +3,6 @@ import { useMemo } from 'react';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { ScenarioPanel } from './ScenarioPanel.tsx';
-import { EditLock } from '../../components/EditLock.tsx';
 import { useOnCurve } from '../../hooks/useNamedCurves.ts';
 import { applyToShown } from './applyShown.ts';
 import type { Scenario } from '../../core/index.ts';
@@ -22,8 +21,9 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
   const apply = useMemo(() => (result.onCurves ? (s: Scenario, i: number) => applyToShown(s, result, workbenchBuildOptions(), `scenarios[${i}]`) : undefined), [result]);
   // The curves built on the one shown, which a quote-space scenario on it rebuilds too.
   const moves = result.onCurves?.built.filter((c) => c.discountCurve === result.curveName).map((c) => `"${c.name}"`) ?? [];
+  // The panel locks its own editing controls, so a read-only workspace still opens its changes' explanations.
   return (
-    <EditLock>
+    <>
     {on && (
       <p className="muted small">
         Scenarios{on}, the curve shown{moves.length > 0 ? `; moving its quotes rebuilds ${moves.join(', ')} on it too` : ''}.
@@ -39,6 +39,6 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
       explainFrom={{ result, display }}
       {...(apply ? { apply } : {})}
     />
-    </EditLock>
+    </>
   );
 }

@@ -5,6 +5,7 @@ import { formatBpChange, formatPercent, rateTag, type Compounding, type Curve, t
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import type { DifferenceCell } from './explainDifferenceCell.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
+import { EditLock } from '../../components/EditLock.tsx';
 import '../scenarios/scenarios.css';
 
 export interface SnapshotPanelProps {
@@ -70,6 +71,7 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
           Some saved snapshots could not be read: {errors.slice(0, 3).map((e) => e.message).join('; ')}
         </div>
       )}
+      <EditLock>
       <div className="settings">
         <label>
           Snapshot name
@@ -80,10 +82,12 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
         </button>
         <span className="muted small">Keeps the quotes, settings and settlement; the curve is rebuilt from them, never stored.</span>
       </div>
+      </EditLock>
       {snapshots.length === 0 ? (
         <p className="muted">No snapshots yet.</p>
       ) : (
         <>
+          <EditLock>
           <ul className="snapshot-list">
             {snapshots.map((s, i) => {
               const r = rebuilt[i]!;
@@ -120,6 +124,7 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
               <input type="radio" name="snapshot-by" checked={by === 'date'} onChange={() => setBy('date')} /> calendar date
             </label>
           </fieldset>
+          </EditLock>
           {rows.length > 0 && (
             <table className="data" aria-label="Current curve against the snapshot">
               <caption className="small muted">

@@ -3,7 +3,6 @@ import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice, setCompareBy } from '../compare/comparisonChoice.ts';
 import { ReferenceCurvePanel } from './ReferenceCurvePanel.tsx';
 import { SnapshotPanel } from './SnapshotPanel.tsx';
-import { EditLock } from '../../components/EditLock.tsx';
 
 /** Local time as ISO 8601 with its UTC offset, for a snapshot's label. */
 function nowWithOffset(): string {
@@ -21,7 +20,7 @@ export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
   const by = useAppStore((s) => comparisonChoice(s.workspace).by);
   return (
     <>
-      <EditLock>
+      {/* The panel locks its own editing controls, so a read-only workspace still opens its differences' explanations. */}
       <SnapshotPanel
         value={value}
         onChange={(next) => useAppStore.getState().setReserved('snapshots', next)}
@@ -34,7 +33,6 @@ export function SnapshotsTab({ result }: { result: WorkbenchBuild }) {
         onByChange={setCompareBy}
         explainFrom={{ result, display }}
       />
-      </EditLock>
       <h3>Reference curve</h3>
       <ReferenceCurvePanel curve={result.build.curve} explainFrom={{ result, display }} />
     </>
