@@ -50,6 +50,7 @@ export * from './analytics/zSpread.ts';
 export * from './analytics/bondInput.ts';
 export * from './analytics/bondAnalytics.ts';
 export * from './analytics/quoteDv01.ts';
+export * from './analytics/explainDv01.ts';
 export * from './analytics/forwardSensitivity.ts';
 export * from './analytics/sensitivityMap.ts';
 export * from './analytics/explainRisk.ts';

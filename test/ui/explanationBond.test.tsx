@@ -8,9 +8,9 @@
 import axe from 'axe-core';
 import { render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { analyzeBond, fullText } from '../../src/core/index.ts';
+import { analyzeBond, fullText, quoteDv01s } from '../../src/core/index.ts';
 import { BondAnalyticsPanel } from '../../src/features/risk/BondAnalyticsPanel.tsx';
-import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
+import { buildUnder, explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
@@ -96,5 +96,29 @@ describe('explanations in the Bond on the curve table', () => {
     await screen.findByRole('complementary', { name: /yield to maturity on the curve/ });
     const result = await axe.run(document.body, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] }, rules: { 'color-contrast': { enabled: false } } });
     expect(result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id} (${v.impact}): ${v.nodes[0]?.html.slice(0, 120)}`)).toEqual([]);
+  });
+  it('a row of the DV01 to each quote opens below that table, ending in quoteDv01s\' figure to all digits, each method rebuilding the workspace', async () => {
+    const user = userEvent.setup({ delay: null });
+    const { result, doc, a } = renderPanel();
+    const dv = quoteDv01s(result.build.settings!, result.build.instruments, a.flows);
+    if (!dv.ok) throw new Error(dv.errors[0]!.message);
+    const q = dv.value.reduce((m, x) => (Math.abs(x.dv01) > Math.abs(m.dv01) ? x : m));
+    const row = result.conversion.rowOfQuote[q.index]! + 1;
+    const button = within(screen.getByRole('table', { name: 'DV01 to each quote' })).getByRole('button', { name: new RegExp(`explain the DV01 to row ${row}$`) });
+    await user.click(button);
+    const panel = await screen.findByRole('complementary', { name: new RegExp(`DV01 to row ${row} \\(`) });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(q.dv01));
+    const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(steps.at(-1)).toBe(`DV01 = (P- - P+) / 2 = ${fullText(q.dv01)} (per 100 face per bp)`);
+    // Under each method: the workspace rebuilt with it, the table's function on that build.
+    const e = explainKeyCell(result, doc.display, { bond: { input: { maturity: '2034-05-15', coupon: 0.04, frequency: 2, dayCount: 'ACT/ACT-ICMA', cleanPrice: 99.5 }, figure: 'quoteDv01', side: 'model', key: q.index } });
+    if (!e.ok) throw new Error(e.errors[0]!.message);
+    for (const m of e.value.methods) {
+      const b = buildUnder(result, m.method);
+      const again = quoteDv01s(b.settings!, b.instruments, a.flows);
+      if (!again.ok) throw new Error(m.method);
+      expect(m.value, m.method).toBe(again.value.find((x) => x.index === q.index)!.dv01);
+    }
+    expect(new Set(e.value.methods.map((m) => m.value)).size).toBeGreaterThan(1);
   });
 });

@@ -2,7 +2,7 @@ import { bootstrapInstruments, type BootstrapSettings } from '../bootstrap/boots
 import type { Instrument } from '../instruments/instrument.ts';
 import { ok, type Result } from '../result.ts';
 import type { Flow } from './keyRates.ts';
-import { quoteYieldOf, requoteAtYield } from './quoteYield.ts';
+import { quoteYieldOf, requoteAtYield, type QuoteYield } from './quoteYield.ts';
 import { ONE_BP } from './forwardSensitivity.ts';
 
 export interface QuoteDv01 {
@@ -16,6 +16,12 @@ export interface QuoteDv01 {
   readonly dv01: number;
 }
 
+/** What one quote's DV01 records for its explanation: the quote's own yield, and each side's moved quote, ln DF at each flow and price. */
+export interface QuoteDv01Record {
+  yield: number;
+  readonly sides: { readonly dy: number; readonly market: number; readonly ln: number[]; readonly price: number }[];
+}
+
 /**
  * DV01 of a set of flows to each input quote: each quote moved by +-1 bp through its own yield
  * (quoteYield.ts), the curve rebuilt with the same settings, the dirty price recomputed; central
@@ -25,20 +31,36 @@ export function quoteDv01s(settings: BootstrapSettings, instruments: readonly In
   const yields = instruments.map((ins) => quoteYieldOf(ins, settings.settlement));
   const out: QuoteDv01[] = [];
   for (let k = 0; k < instruments.length; k++) {
-    const price = (dy: number): Result<number> => {
-      const moved = instruments.map((ins, i) => (i === k ? requoteAtYield(ins, yields[i]!, yields[i]!.toYield(ins.market) + dy) : ins));
-      const built = bootstrapInstruments(settings, moved);
-      if (!built.curve) return { ok: false, errors: built.errors };
-      let p = 0;
-      for (const f of flows) p += f.amount * Math.exp(built.curve.lnDiscountAt(f.t));
-      return ok(p);
-    };
-    const up = price(ONE_BP);
-    if (!up.ok) return up;
-    const down = price(-ONE_BP);
-    if (!down.ok) return down;
+    const d = quoteDv01Of(settings, instruments, yields, flows, k);
+    if (!d.ok) return d;
     const ins = instruments[k]!;
-    out.push({ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: yields[k]!.label, dv01: (down.value - up.value) / 2 + 0 });
+    out.push({ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: yields[k]!.label, dv01: d.value });
   }
   return ok(out);
+}
+
+/** One quote's DV01 (position k of `instruments`), as quoteDv01s computes it; `rec` records its steps. */
+export function quoteDv01Of(settings: BootstrapSettings, instruments: readonly Instrument[], yields: readonly QuoteYield[], flows: readonly Flow[], k: number, rec?: QuoteDv01Record): Result<number> {
+  const price = (dy: number): Result<number> => {
+    const moved = instruments.map((ins, i) => (i === k ? requoteAtYield(ins, yields[i]!, yields[i]!.toYield(ins.market) + dy) : ins));
+    const built = bootstrapInstruments(settings, moved);
+    if (!built.curve) return { ok: false, errors: built.errors };
+    let p = 0;
+    const ln: number[] = [];
+    for (const f of flows) {
+      const l = built.curve.lnDiscountAt(f.t);
+      if (rec) ln.push(l);
+      p += f.amount * Math.exp(l);
+    }
+    if (rec) {
+      rec.yield = yields[k]!.toYield(instruments[k]!.market);
+      rec.sides.push({ dy, market: moved[k]!.market, ln, price: p });
+    }
+    return ok(p);
+  };
+  const up = price(ONE_BP);
+  if (!up.ok) return up;
+  const down = price(-ONE_BP);
+  if (!down.ok) return down;
+  return ok((down.value - up.value) / 2 + 0);
 }

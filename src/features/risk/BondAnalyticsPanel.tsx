@@ -110,6 +110,16 @@ export function BondAnalyticsPanel({ curve, build: built = null, initial, onForm
       </button>
     );
   };
+  /** A row of the DV01 to each quote table (quote `index` of the document), as a button that explains it. */
+  const dv01To = (index: number, text: string): ReactNode => {
+    if (!build || !bondInput) return text;
+    const cell: BondCell = { bond: { input: bondInput, figure: 'quoteDv01', side: 'model', key: index } };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the DV01 to row ${rowNumber(rowOfQuote, index)}`} aria-expanded={openCell !== null && explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   /** A figure on the curve and at the market, each a button (bondFigureValue: the number the table shows). */
   const pair = (figure: BondFigure, format: (x: number) => string): { model: ReactNode; market: ReactNode | null } => {
     const a = result && result.ok ? result.value : null;
@@ -172,7 +182,7 @@ export function BondAnalyticsPanel({ curve, build: built = null, initial, onForm
               {result.value.market && <Row label="Z-spread" model={bpFigure(0)} market={fig('zSpread', 'market', bpFigure(result.value.market.zSpread * 1e4))} unit={`bp, ${zTag}`} />}
             </tbody>
           </table>
-          {build && <OpenExplanation result={build} display={display} cell={openCell?.bond.figure === 'keyRateDuration' ? null : openCell} onClose={explain.close} />}
+          {build && <OpenExplanation result={build} display={display} cell={openCell?.bond.figure === 'keyRateDuration' || openCell?.bond.figure === 'quoteDv01' ? null : openCell} onClose={explain.close} />}
           </div>
           <table className="data" aria-label="Key-rate durations">
             <caption>
@@ -191,11 +201,12 @@ export function BondAnalyticsPanel({ curve, build: built = null, initial, onForm
               <thead><tr><th scope="col">Row</th><th scope="col">Maturity</th><th scope="col">Moved through</th><th scope="col">DV01 (per 100 face per bp)</th></tr></thead>
               <tbody>
                 {perQuote.value.map((q) => (
-                  <tr key={q.index} data-quote={q.index}><th scope="row">Row {rowNumber(rowOfQuote, q.index)} {q.kind}</th><td>{q.maturity}</td><td>{q.yieldLabel}</td><td className="n" title={nearZero(q.dv01, 5, 'per 100 face per bp').title}>{nearZero(q.dv01, 5, 'per 100 face per bp').text}</td></tr>
+                  <tr key={q.index} data-quote={q.index}><th scope="row">Row {rowNumber(rowOfQuote, q.index)} {q.kind}</th><td>{q.maturity}</td><td>{q.yieldLabel}</td><td className="n" data-field="quote-dv01" title={nearZero(q.dv01, 5, 'per 100 face per bp').title}>{dv01To(q.index, nearZero(q.dv01, 5, 'per 100 face per bp').text)}</td></tr>
                 ))}
               </tbody>
             </table>
           )}
+          {build && openCell?.bond.figure === 'quoteDv01' && <OpenExplanation result={build} display={display} cell={openCell} onClose={explain.close} />}
         </>
       )}
     </section>

@@ -5,7 +5,10 @@ import {
   bondLnWeights,
   DEFAULT_KEY_TENORS,
   explainBondFigure,
+  explainQuoteDv01,
   formatPercent,
+  quoteDv01Of,
+  quoteYieldOf,
   topInfluencesOfLn,
   type BondAnalytics,
   type BondFigure,
@@ -15,9 +18,10 @@ import {
   type BondSink,
   type MethodValue,
   type Result,
+  valueUnderEachMethod,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { cellOf, noCurve, underEachMethod, type CellExplanation } from '../tables/explainCell.ts';
+import { buildUnder, cellOf, noCurve, underEachMethod, type CellExplanation } from '../tables/explainCell.ts';
 
 /**
  * A figure of the Bond on the curve table: the bond as the form reads it, the figure and its column;
@@ -26,8 +30,9 @@ import { cellOf, noCurve, underEachMethod, type CellExplanation } from '../table
 export interface BondCell {
   readonly bond: {
     readonly input: BondInput;
-    readonly figure: BondFigure | ShiftFigure;
+    readonly figure: BondFigure | ShiftFigure | 'quoteDv01';
     readonly side: BondSide;
+    /** The key rate's number, or for 'quoteDv01' the quote's index in the document. */
     readonly key?: number;
   };
 }
@@ -46,6 +51,7 @@ export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']):
   const curve = result.build.curve;
   if (!curve) return noCurve(result);
   const { input, figure, side, key = 0 } = cell;
+  if (figure === 'quoteDv01') return explainQuoteDv01Cell(result, input, key);
   const sink: BondSink = {};
   const analysed = analyzeBond(curve, input, DEFAULT_KEY_TENORS, 'bond', sink);
   if (!analysed.ok) return analysed;
@@ -65,4 +71,39 @@ export function explainBondCell(result: WorkbenchBuild, cell: BondCell['bond']):
   const words = figure === 'effectiveDuration' ? 'effective duration' : figure === 'keyRateDuration' ? `${DEFAULT_KEY_TENORS[key]} key-rate duration` : BOND_FIGURE_WORDS[figure];
   const title = `Bond ${terms}: ${words} ${side === 'model' || figure === 'accrued' ? 'on the curve' : `at the market ${input.cleanPrice !== undefined ? 'price' : 'yield'}`}`;
   return cellOf(result, title, explanation, weights ? topInfluencesOfLn(curve, result.build.instruments, weights.times, weights.weights) : { ok: true, value: [] }, weights?.note ?? 'none: this figure does not read the curve', methods);
+}
+
+/**
+ * The explanation of a row of the DV01 to each quote table: explainQuoteDv01 (quoteDv01Of, the
+ * table's own function, with a record) on the build's settings and instruments and the bond's flows
+ * on its curve; the figure under each method with the workspace rebuilt under it. No list of quotes:
+ * the figure is itself the price's sensitivity to the one quote, named in the title.
+ */
+function explainQuoteDv01Cell(result: WorkbenchBuild, input: BondInput, index: number): Result<CellExplanation> {
+  const { curve, settings, instruments } = result.build;
+  if (!curve || !settings) return noCurve(result);
+  const a = analyzeBond(curve, input);
+  if (!a.ok) return a;
+  const flows = a.value.flows;
+  const k = instruments.findIndex((i) => i.index === index);
+  const e = explainQuoteDv01(curve, settings, instruments, flows, k);
+  if (!e.ok) return e;
+  const builds = new Map<unknown, typeof result.build>();
+  const methods = valueUnderEachMethod(
+    curve.interpolation,
+    (m) => {
+      const b = buildUnder(result, m);
+      builds.set(b.curve, b);
+      return b;
+    },
+    (on) => {
+      const b = builds.get(on)!;
+      const j = b.instruments.findIndex((i) => i.index === index);
+      return quoteDv01Of(b.settings!, b.instruments, b.instruments.map((i) => quoteYieldOf(i, b.settings!.settlement)), flows, j);
+    },
+  );
+  const ins = instruments[k]!;
+  const row = result.conversion.rowOfQuote[index];
+  const at = row === undefined ? 'a quote' : `row ${row + 1}`;
+  return cellOf(result, `Bond ${formatPercent(input.coupon)} ${input.frequency}x a year to ${input.maturity}: DV01 to ${at} (${ins.kind} ${ins.maturity})`, e.value, { ok: true, value: [] }, `none listed: the figure is the price's sensitivity to ${at} alone`, methods);
 }
