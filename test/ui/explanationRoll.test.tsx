@@ -169,6 +169,10 @@ describe('explanations in the roll panel', () => {
     const c = await open(new RegExp(`explain the break-even rise of ${point.tenor}$`), new RegExp(`Break-even rise of the ${point.tenor} yield`), 'table');
     expect(c.value).toBe(fullText(point.riseBp!));
     expect(c.steps.at(-1)).toMatch(/^d\* = d x 10000 = .* \(bp of the yield, /);
+    // Its yield today: the par coupon's steps, then the yield at 100, the figure to all digits.
+    const y = await open(new RegExp(`explain the yield today of ${point.tenor}$`), new RegExp(`Yield today of the ${point.tenor} bond`), 'table');
+    expect(y.value).toBe(fullText(point.yield));
+    expect(y.steps.at(-1)).toMatch(new RegExp(`^y0 = the yield at which .* = ${fullText(point.yield).replace('.', '\\.')} \\(decimal per year, `));
     // The riding split's carry, in money with its currency.
     const carry = await open(/explain the riding split's carry$/, /Riding the .* bond: carry under/, 'table.roll-split');
     expect(carry.value).toBe(view.riding.carry.toFixed());

@@ -1,6 +1,8 @@
 import type { Curve } from '../curve/curve.ts';
-import { explainedConventions, explainedYearFraction, rateUnit, type ExplainedConventions, type Explanation } from '../curve/explain.ts';
-import { forwardOn } from '../curve/query.ts';
+import { explained, explainedConventions, explainedYearFraction, rateUnit, type ExplainedConventions, type Explanation } from '../curve/explain.ts';
+import { forwardOn, forwardParRateOn } from '../curve/query.ts';
+import { yieldTag } from '../format/conventionTag.ts';
+import { bondPricerOn, bondYieldFromPriceOn, couponBond } from './strategyBonds.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import type { IsoDate } from '../time/date.ts';
@@ -33,6 +35,8 @@ export type RollFigure =
   | { readonly kind: 'leg-value' | 'leg-rate'; readonly leg: number }
   /** The break-even curve's rise (bp) of the par bond yield at `tenor`. */
   | { readonly kind: 'curve-rise'; readonly tenor: string }
+  /** That par bond's yield today (the break-even curve's Yield today). */
+  | { readonly kind: 'curve-yield'; readonly tenor: string }
   /** A part of riding's gain under the chosen view (the riding split): carry, roll-down, curve change or their total, money. */
   | { readonly kind: 'riding-split'; readonly part: RidingPart }
   /** A term strategy against rolling under a view: money at the horizon (`vs-roll`) or annualised return in bp a year (`vs-roll-bp`). */
@@ -87,6 +91,10 @@ function figureOn(set: RollSetup, curve: Curve, strategy: StrategyInputs, figure
   if (figure.kind === 'curve-rise') {
     const x = breakEvenPoint(ctx, figure.tenor, trace)?.riseBp;
     return x == null ? noFigure('no crossing in the bracket') : ok({ value: x });
+  }
+  if (figure.kind === 'curve-yield') {
+    const p = breakEvenPoint(ctx, figure.tenor);
+    return p ? ok({ value: p.yield }) : noFigure(`no ${figure.tenor} point on the break-even curve`);
   }
   if (figure.kind === 'riding-split') {
     const r = ridingSplit(ctx, ctx.view(specs[chosen]!, trace), amount, trace);
@@ -154,6 +162,21 @@ export function explainRollFigure(curve: Curve, strategy: StrategyInputs, scenar
   const parOn = (end: IsoDate, frequency: number): RollFigureDriver => ({ kind: 'par', end, frequency, note: "of the bond's coupon, today's par yield" });
   const par = (id: 'bond' | 'riding'): RollFigureDriver => parOn(id === 'bond' ? H : M, ctx[id].frequency);
   const zeroNote = 'of the zero rate to the horizon (ann, ACT/365F)';
+  if (figure.kind === 'curve-yield') {
+    // The par bond breakEvenPoint prices (parBondOn: the forward par rate from settlement as its coupon), then its yield at 100.
+    const f = strategy.ridingFrequency;
+    const T = marketDate(S, parseTenor(figure.tenor)!);
+    const c = explained((sink) => forwardParRateOn(curve, S, T, f, 'ACT/ACT-ICMA', false, 'maturity', sink));
+    if (!c.ok) return c;
+    const e = c.value.explanation;
+    const bond = couponBond(S, T, c.value.value.rate, f);
+    const y = r.value.value;
+    const again = bondYieldFromPriceOn(bond, S, 100);
+    if (!again.ok || !Object.is(again.value, y)) return noFigure('not the figure shown');
+    const unit = `decimal per year, ${yieldTag(f)}`;
+    const step = { name: 'y0', formula: `y0 = the yield at which sum_k CF_k (1 + y0/${f})^-(w + k) = 100 on ${S}, CF the flows of coupon ${e.steps.at(-1)!.name} (ICMA; Brent's method to 1e-15; the price at y0 is ${bondPricerOn(bond, S)(y)})`, inputs: [e.steps.at(-1)!.name], value: y, unit };
+    return ok({ ...r.value, explanation: { ...e, quantity: 'par-yield', formula: `y0: the ICMA yield at price 100 of the ${figure.tenor} bond whose coupon is today's par rate; ${e.formula}`, value: y, unit, steps: [...e.steps, step] }, title: `Yield today of the ${figure.tenor} bond`, driver: parOn(T, f), why: null, userView: false });
+  }
   if (figure.kind === 'leg-forward') {
     const leg = ctx.legs[figure.leg - 1]!;
     return ok({ ...r.value, explanation: trace.sink.explanation!, title: `Today's forward of roll leg ${leg.index} (${leg.start} to ${leg.end})`, driver: rate(leg.start, leg.end, 'simple', dc, null), why: null, userView: false });

@@ -67,7 +67,7 @@ export interface RollExplain {
   panel(group: RollFigureGroup): ReactNode;
 }
 
-const groupOf = (f: RollFigure): RollFigureGroup => (f.kind === 'curve-rise' ? 'curve' : f.kind === 'riding-split' ? 'split' : 'against' in f ? 'breakevens' : 'leg' in f ? 'legs' : 'results');
+const groupOf = (f: RollFigure): RollFigureGroup => (f.kind === 'curve-rise' || f.kind === 'curve-yield' ? 'curve' : f.kind === 'riding-split' ? 'split' : 'against' in f ? 'breakevens' : 'leg' in f ? 'legs' : 'results');
 const sameFigure = (a: RollCell, b: RollCell): boolean => JSON.stringify(a.roll.figure) === JSON.stringify(b.roll.figure);
 
 const BASE_LABEL: Record<(typeof BASE_VIEWS)[number], string> = {

@@ -253,7 +253,7 @@ export function BreakEvenTables({ analysis, explain }: { analysis: RollAnalysis;
                 <th scope="row">
                   {p.tenor} <span className="muted small">{p.maturity}</span>
                 </th>
-                <td className="num">{formatPercent(p.yield)}</td>
+                <td className="num">{explain ? explain.figure({ kind: 'curve-yield', tenor: p.tenor }, formatPercent(p.yield), `yield today of ${p.tenor}`) : formatPercent(p.yield)}</td>
                 <td className="num">{p.riseBp === null ? 'none' : fig({ kind: 'curve-rise', tenor: p.tenor }, p.riseBp, `break-even rise of ${p.tenor}`)}</td>
               </tr>
             ))}

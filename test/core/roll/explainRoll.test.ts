@@ -273,6 +273,41 @@ describe('explainRollFigure', () => {
     expect(checked).toBeGreaterThan(40);
   }, 120_000);
 
+  // The break-even curve's Yield today: the yield at 100 of a bond whose coupon is today's par rate,
+  // issued on the settlement date. A bond priced at par on a coupon date yields its coupon (ICMA
+  // price-yield formula with w = 1 and equal periods; Fabozzi, "Bond Markets, Analysis and
+  // Strategies", chapter on yield measures; cited from memory), so y0 = c to the solver's tolerance.
+  it("explains each break-even curve's yield today: the par coupon's steps, then the yield at 100, the table's figure bit for bit", () => {
+    let points = 0;
+    for (const { curve, strategy } of CASES) {
+      const a = analyseRollVsTerm(curve, strategy);
+      if (!a.ok) throw new Error('analysis');
+      for (const p of a.value.breakEvens.curve) {
+        const t = explainRollFigure(curve, strategy, [], { kind: 'curve-yield', tenor: p.tenor });
+        const u = rollFigure(curve, strategy, [], { kind: 'curve-yield', tenor: p.tenor });
+        if (!t.ok || !u.ok) throw new Error(`yield today ${p.tenor}`);
+        expect(Object.is(t.value.value, p.yield)).toBe(true);
+        expect(Object.is(u.value.value, p.yield)).toBe(true);
+        expect(Object.is(t.value.explanation.value, p.yield)).toBe(true);
+        const steps = t.value.explanation.steps;
+        expect(Object.is(steps.at(-1)!.value, p.yield)).toBe(true);
+        const c = steps.at(-2)!.value; // the par coupon, the forward par rate's last step
+        expect(Math.abs(p.yield - c)).toBeLessThan(1e-12);
+        // The price at y0 by the ICMA formula, recomputed here: n equal periods, w = 1 at issue.
+        const f = strategy.ridingFrequency;
+        const [, count, unit] = /^(\d+)([MY])$/.exec(p.tenor)!;
+        const n = (Number(count) * (unit === 'Y' ? 12 : 1) * f) / 12;
+        if (!Number.isInteger(n)) continue; // a stub period: the formula below assumes equal ones
+        let price = 0;
+        for (let k = 1; k <= n; k++) price += ((100 * c) / f + (k === n ? 100 : 0)) * Math.pow(1 + p.yield / f, -k);
+        expect(Math.abs(price - 100)).toBeLessThan(1e-9);
+        expect(t.value.driver).toEqual({ kind: 'par', end: p.maturity, frequency: f, note: "of the bond's coupon, today's par yield" });
+        points++;
+      }
+    }
+    expect(points).toBeGreaterThan(50);
+  }, 120_000);
+
   it('gives each break-even curve rise and riding rise equal to the untraced analysis, bit for bit', () => {
     let points = 0;
     let rises = 0;
