@@ -62,4 +62,21 @@ describe('explanations in the meeting-step table', () => {
     expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
     expect(button).toHaveFocus();
   });
+  it('the level before and the level after open their own one-day forward, ending in the shown level to all digits', async () => {
+    const user = userEvent.setup({ delay: null });
+    render(<Live />);
+    const row = meetingStepTable(deriveBuild(useAppStore.getState().workspace).build).find((r) => r.date === '2022-12-15')!;
+    const table = screen.getByRole('table', { name: 'Implied step at each meeting' });
+    for (const level of ['before', 'after'] as const) {
+      const button = within(table).getByRole('button', { name: new RegExp(`explain the level ${level} the step on 2022-12-15$`) });
+      await user.click(button);
+      const panel = await screen.findByRole('complementary', { name: new RegExp(`Overnight level ${level} the step on 2022-12-15`) });
+      expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(row[level]));
+      const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+      expect(steps.at(-1)).toMatch(new RegExp(`^rate = growth / tau = ${fullText(row[level]).replace('.', '\\.')} `));
+      expect(within(within(panel).getByRole('region', { name: 'Quotes it depends on most' })).getAllByRole('button', { name: /^Row \d+:/ }).length).toBe(5);
+      await user.click(button); // a second press closes it
+      expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
+    }
+  });
 });

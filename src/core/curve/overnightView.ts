@@ -153,6 +153,8 @@ export interface MeetingStepExplanation {
   readonly after: Explanation;
   /** The quotes the step depends on most (bp of the step per bp of the quote's own yield), or why none. */
   readonly quotes: Result<QuoteInfluence[]>;
+  /** The same for the level before (0) or after (1) alone: bp of the level per bp of the quote. */
+  readonly levelQuotes: (k: 0 | 1) => Result<QuoteInfluence[]>;
 }
 
 export function explainMeetingStep(build: Pick<CurveBuild, 'curve' | 'overnight' | 'instruments'>, date: IsoDate): Result<MeetingStepExplanation> {
@@ -183,5 +185,7 @@ export function explainMeetingStep(build: Pick<CurveBuild, 'curve' | 'overnight'
     [a, 'after'],
     row.stepBp,
   );
-  return ok({ explanation, before: b, after: a, quotes: topInfluencesOfLn(curve, build.instruments, times, weights) });
+  // The step's weights carry the level before with a minus sign; a level alone has its own.
+  const levelQuotes = (k: 0 | 1) => topInfluencesOfLn(curve, build.instruments, times.slice(2 * k, 2 * k + 2), weights.slice(2 * k, 2 * k + 2).map((w) => (k ? w : -w)));
+  return ok({ explanation, before: b, after: a, quotes: topInfluencesOfLn(curve, build.instruments, times, weights), levelQuotes });
 }

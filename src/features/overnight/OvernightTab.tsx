@@ -45,7 +45,7 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
   const view = useMemo(() => overnightForwardView(build), [build]);
   const rows = useMemo(() => meetingStepTable(build), [build]);
   const display = useAppStore((s) => s.workspace.display);
-  const explain = useExplainOpener<StepCell>((a, b) => a.step === b.step);
+  const explain = useExplainOpener<StepCell>((a, b) => a.step === b.step && a.level === b.level);
   return (
     <div className="overnight stack">
       <p className="muted small">
@@ -83,8 +83,13 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
                 {rows.map((r) => (
                   <tr key={r.date}>
                     <td>{r.date}</td>
-                    <td className="num">{formatPercent(r.before)}</td>
-                    <td className="num">{formatPercent(r.after)}</td>
+                    {(['before', 'after'] as const).map((level) => (
+                      <td key={level} className="num">
+                        <button type="button" className="cell-explain" aria-label={`${formatPercent(r[level])}: explain the level ${level} the step on ${r.date}`} aria-expanded={explain.isOpen({ step: r.date, level })} onClick={(e) => explain.toggle(e, { step: r.date, level })}>
+                          {formatPercent(r[level])}
+                        </button>
+                      </td>
+                    ))}
                     <td className="num">
                       <button type="button" className="cell-explain" aria-label={`${formatBpChange(r.stepBp)}: explain the step on ${r.date}`} aria-expanded={explain.isOpen({ step: r.date })} onClick={(e) => explain.toggle(e, { step: r.date })}>
                         {formatBpChange(r.stepBp)}

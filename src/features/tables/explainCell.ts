@@ -94,9 +94,10 @@ export interface ChangeCell {
   };
 }
 
-/** A meeting's implied step in the Overnight curve section: its effective date. */
+/** A meeting's implied step in the Overnight curve section: its effective date; with `level`, the level before or after it. */
 export interface StepCell {
   readonly step: string;
+  readonly level?: 'before' | 'after';
 }
 
 /** Any number the explanation panel explains. */
@@ -143,7 +144,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('change' in cell) return explainChangeCell(result, cell.change);
   if ('roll' in cell) return explainRollCell(result, cell.roll);
   if ('bond' in cell) return explainBondCell(result, cell.bond);
-  if ('step' in cell) return explainStepCell(result, cell.step);
+  if ('step' in cell) return explainStepCell(result, cell.step, cell.level);
   if ('difference' in cell) return explainDifferenceCell(result, cell.difference);
   if ('reference' in cell) return explainReferenceCell(result, cell.reference);
   if ('spread' in cell) return explainSpreadCell(result, display, cell.spread);
@@ -290,7 +291,9 @@ function explainChangeCell(result: WorkbenchBuild, c: ChangeCell['change']): Res
  * traced) with the quotes the step depends on most; no values under other methods, since a stepped
  * curve is log-linear in DF whatever the method (the explanation's formula says so).
  */
-function explainStepCell(result: WorkbenchBuild, date: string): Result<CellExplanation> {
+function explainStepCell(result: WorkbenchBuild, date: string, level?: 'before' | 'after'): Result<CellExplanation> {
   const r = explainMeetingStep(result.build, date);
-  return r.ok ? cellOf(result, `Implied step on ${date}`, r.value.explanation, r.value.quotes, null, []) : r;
+  if (!r.ok) return r;
+  const v = r.value;
+  return level ? cellOf(result, `Overnight level ${level} the step on ${date}`, v[level], v.levelQuotes(level === 'before' ? 0 : 1), null, []) : cellOf(result, `Implied step on ${date}`, v.explanation, v.quotes, null, []);
 }

@@ -102,6 +102,25 @@ describe('explainMeetingStep', () => {
   it('with a turn (turns left out: the read as a difference of ln DF)', () => checkAll(built(doc('ACT/365F', { turns: [YEAR_END] })), false, 'turn'));
   it('ACT/ACT-ISDA (no day basis: the read as a difference of ln DF)', () => checkAll(built(doc('ACT/ACT-ISDA')), false, 'ACT/ACT-ISDA'));
 
+  it('names the quotes each level (before, after) moves with, as a rebuild with each quote bumped moves that level', () => {
+    const b = built(doc('ACT/365F'));
+    const date = '2022-11-03';
+    const r = explainMeetingStep(b, date);
+    if (!r.ok) throw new Error('step');
+    const row = meetingStepTable(b).find((x) => x.date === date)!;
+    for (const [k, level] of [[0, 'before'], [1, 'after']] as const) {
+      const q = r.value.levelQuotes(k);
+      if (!q.ok) throw new Error(level);
+      expect(q.value.length).toBe(5);
+      for (const x of q.value) {
+        const bumped = QUOTES.map((y, i) => (i === x.index ? { ...y, rate: (y.rate as number) + 1e-6 } : y));
+        const moved = meetingStepTable(built(doc('ACT/365F', {}, bumped))).find((y) => y.date === date)![level];
+        // bp of the level per bp of the quote: a 0.01 bp bump moves the level by bpPerBp x 0.01 bp.
+        expectClose(((moved - row[level]) * 1e4) / 0.01, x.bpPerBp, 1e-4 * Math.max(1, Math.abs(x.bpPerBp)), `${level}: bump-and-rebuild of quote ${x.index}`);
+      }
+    }
+  });
+
   it('names the quotes the step moves with, as a rebuild with each quote bumped 1 bp moves it', () => {
     const b = built(doc('ACT/365F'));
     const date = '2022-11-03';
