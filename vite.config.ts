@@ -156,17 +156,19 @@ const d3ShapeCurves = (): Plugin => ({
 /**
  * decimal.js attaches every method to its prototype at module level, so the bundler keeps all of
  * them: trigonometry, hyperbolic functions, logarithms, roots, base conversions... The app's exact
- * money and the quote check's rounding use a handful (construction, plus, minus, times, div, pow,
+ * money and the quote check's rounding use a handful (construction, plus, minus, times, div,
  * comparisons, rounding, toFixed, toNumber). This transform replaces the bodies of the methods
  * listed below with one that throws, and leaves out the static shorthands (Decimal.sin(x)...), which
  * the app never calls, so the bundler drops them and the helpers only they call, random and its crypto
- * among them, and shortens pi (1,025 digits, read only by the trigonometry) to '3', with which any
- * use left would throw (about 5.5 KB of the gzip budget); the library's arithmetic is untouched. The guard reads names
+ * among them, and shortens pi and ln 10 (1,025 digits each, read only by the trigonometry, and by the
+ * logarithms and powers: toPower is left out too, so a power of ten is written 1e<k>) to '3' and '2',
+ * with which any use left would throw (about 7.5 KB of the gzip budget, 2 KB of it ln 10 and the
+ * power's code); the library's arithmetic is untouched. The guard reads names
  * alone, so it cannot check toPrecision and toExponential, which numbers have too.
  */
-const DECIMAL_LEFT_OUT = ['clampedTo', 'cosine', 'cubeRoot', 'dividedToIntegerBy', 'hyperbolicCosine', 'hyperbolicSine', 'hyperbolicTangent', 'inverseCosine', 'inverseHyperbolicCosine', 'inverseHyperbolicSine', 'inverseHyperbolicTangent', 'inverseSine', 'inverseTangent', 'logarithm', 'modulo', 'naturalExponential', 'naturalLogarithm', 'sine', 'squareRoot', 'tangent', 'toBinary', 'toExponential', 'toFraction', 'toHexadecimal', 'toNearest', 'toOctal', 'toPrecision', 'toSignificantDigits', 'precision', 'round', 'truncated', 'max', 'min'];
+const DECIMAL_LEFT_OUT = ['clampedTo', 'cosine', 'cubeRoot', 'dividedToIntegerBy', 'hyperbolicCosine', 'hyperbolicSine', 'hyperbolicTangent', 'inverseCosine', 'inverseHyperbolicCosine', 'inverseHyperbolicSine', 'inverseHyperbolicTangent', 'inverseSine', 'inverseTangent', 'logarithm', 'modulo', 'naturalExponential', 'naturalLogarithm', 'sine', 'squareRoot', 'tangent', 'toBinary', 'toExponential', 'toFraction', 'toHexadecimal', 'toNearest', 'toOctal', 'toPower', 'toPrecision', 'toSignificantDigits', 'precision', 'round', 'truncated', 'max', 'min'];
 /** The left-out methods and their aliases, less those a number also has (toPrecision, toExponential), which the guard cannot tell apart by name. */
-const DECIMAL_GUARDED = new Set([...DECIMAL_LEFT_OUT, 'clamp', 'cos', 'cbrt', 'divToInt', 'cosh', 'sinh', 'tanh', 'acos', 'acosh', 'asinh', 'atanh', 'asin', 'atan', 'log', 'mod', 'exp', 'ln', 'sin', 'sqrt', 'tan', 'toHex', 'toSD', 'sd', 'trunc'].filter((n) => n !== 'toPrecision' && n !== 'toExponential'));
+const DECIMAL_GUARDED = new Set([...DECIMAL_LEFT_OUT, 'clamp', 'cos', 'cbrt', 'divToInt', 'cosh', 'sinh', 'tanh', 'pow', 'acos', 'acosh', 'asinh', 'atanh', 'asin', 'atan', 'log', 'mod', 'exp', 'ln', 'sin', 'sqrt', 'tan', 'toHex', 'toSD', 'sd', 'trunc'].filter((n) => n !== 'toPrecision' && n !== 'toExponential'));
 const decimalMethods = (): Plugin => ({
   name: 'tenorscope-decimal-methods',
   enforce: 'pre',
@@ -188,7 +190,10 @@ const decimalMethods = (): Plugin => ({
       // the point, so any use of it left would throw decimal.js's precision-limit error, never round.
       const pi = /^ {2}PI = '3\.1415926535\d{1000,}',?$/m;
       if (!pi.test(out)) this.error("decimal.js: its PI constant was not found where this transform expects it; check it against this version");
-      return `function leftOut() { throw Error('[DecimalError] this method of decimal.js is not in the app (DECIMAL_LEFT_OUT, vite.config.ts)'); }\n${out.replace(statics, '').replace(pi, "  PI = '3',")}`;
+      // ln 10 to 1,025 digits likewise: read only by the logarithms and powers left out above.
+      const ln10 = /^ {2}LN10 = '2\.3025850929\d{1000,}',?$/m;
+      if (!ln10.test(out)) this.error("decimal.js: its LN10 constant was not found where this transform expects it; check it against this version");
+      return `function leftOut() { throw Error('[DecimalError] this method of decimal.js is not in the app (DECIMAL_LEFT_OUT, vite.config.ts)'); }\n${out.replace(statics, '').replace(pi, "  PI = '3',").replace(ln10, "  LN10 = '2',")}`;
     }
     if (!/[\\/]src[\\/].*\.tsx?$/.test(id)) return null;
     for (const m of code.matchAll(/\b(\w*Decimal)\.(\w+)\(/g)) {

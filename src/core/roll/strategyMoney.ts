@@ -41,7 +41,7 @@ export function parseMoney(text: string): MoneyParse {
     const hint = body.includes(',') ? '; a comma groups thousands in threes (10,000,000); use a point for decimals' : /[_ ]/.test(t) ? '; group thousands with commas, or leave them out' : '';
     return { ok: false, message: `must be a positive amount such as ${EXAMPLES}, not "${text.slice(0, 40)}"${hint}` };
   }
-  const value = new MoneyDecimal(body).times(new MoneyDecimal(10).pow(suffix ? SUFFIX[suffix[2]!]! : 0));
+  const value = new MoneyDecimal(body).times(new MoneyDecimal(`1e${suffix ? SUFFIX[suffix[2]!]! : 0}`));
   if (value.decimalPlaces() > 6) return { ok: false, message: `has more than 6 decimals once the suffix is applied: "${t}"` };
   if (value.lte(0)) return { ok: false, message: `must be above 0, not "${t}"` };
   if (value.gt(MONEY_MAX)) return { ok: false, message: `must be at most 1000000000000000 (10^15), not "${t}"` };
