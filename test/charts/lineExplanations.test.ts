@@ -11,6 +11,10 @@
 // test/core/curve/explain.test.ts and test/core/curve/query.test.ts).
 import {
   CurveBuilder,
+  daysBetween,
+  referenceForwardSamples,
+  referenceZeroSamples,
+  type ReferenceCurve,
   INTERPOLATIONS,
   forwardSamples,
   periodsPerYear,
@@ -165,5 +169,38 @@ describe.each([
     expect(r.value.quotes).toEqual([]);
     expect(r.value.quotesNote).toMatch(/frozen/);
     expect(r.value.methods.find((x) => x.current)!.value).toBe(z[50]!.y);
+  });
+
+  // An invented reference file, quarterly dates, so 3M forwards follow from it exactly.
+  const dates = ['2027-06-10', '2027-09-10', '2027-12-10', '2028-03-10', '2028-06-12', '2028-09-11', '2028-12-11', '2029-03-12'];
+  it.each(['zero', 'discount'] as const)('the reference line from a file of %s rates/factors, as the file gives it', (kind) => {
+    const z = (i: number): number => 0.029 + 0.0007 * i;
+    const ref: ReferenceCurve = { kind, compounding: 'annual', dayCount: 'ACT/360', points: dates.map((date, i) => ({ date, value: kind === 'zero' ? z(i) : Math.exp(-z(i) * (i + 1) * 0.25) })) };
+    const { compounding: c, dayCount: dc } = m.display;
+    expect(dc).toBe('ACT/365F');
+    // ln D at a file date, from the file's value: ln D, or an annual ACT/360 zero rate, P = (1 + z)^(-days/360).
+    const lnD = (d: string): number => {
+      if (d === m.curve.settlement) return 0;
+      const v = ref.points.find((p) => p.date === d)!.value;
+      return kind === 'discount' ? Math.log(v) : -(daysBetween(m.curve.settlement, d) / 360) * Math.log1p(v);
+    };
+    const zero = points(referenceZeroSamples(ref, m.curve, c, dc));
+    const fwd = referenceForwardSamples(ref, m.curve, { n: 3, unit: 'M' }, c, dc);
+    expect(fwd.exact).toBe(true);
+    for (const [pts, field] of [[zero, 'zero'], [points(fwd.samples), 'forward']] as const) {
+      expect(pts.length).toBeGreaterThan(3);
+      for (const p of pts) {
+        const r = explainKeyCell(m.result, m.display, datedAt(field, { refCurve: ref })(p));
+        if (!r.ok) throw new Error(`${p.date}: ${r.errors[0]!.message}`);
+        const e = r.value.explanation;
+        expect(Object.is(e.value, p.y), p.date).toBe(true);
+        expect(r.value.title).toMatch(field === 'zero' ? /^Reference zero rate on / : /^Reference 3M forward rate starting /);
+        expect(r.value.quotes).toEqual([]);
+        expect(r.value.methods).toEqual([]);
+        const y = e.yearFractions[0]!;
+        expect(y.value).toBe(daysBetween(y.from, y.to) / 365);
+        expectRelClose(rateOf(lnD(y.to) - lnD(y.from), c, daysBetween(y.from, y.to) / 365), p.y, 1e-15, `${RECOMPUTED} (the reference ${field} on ${p.date})`);
+      }
+    }
   });
 });

@@ -302,7 +302,7 @@ export function rateSteps(lnP: number, c: Compounding, tau: number, rate: number
 }
 
 /** The rate definition in words for a formula line. */
-function rateDefinition(c: Compounding): string {
+export function rateDefinition(c: Compounding): string {
   if (c === 'continuous') return 'P = exp(-rate x tau)';
   if (c === 'simple') return 'P = 1 / (1 + rate x tau)';
   const m = periodsPerYear(c);

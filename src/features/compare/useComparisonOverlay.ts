@@ -136,10 +136,10 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
         const common = { tag, ...REFERENCE_STYLE };
         const read = `Reference: its dates from settlement ${curve.settlement}, by date, joined by straight lines`;
         how.zero.push(f.exact ? read : `${read}; zero chart only: no two of its dates are ${display.forwardTenor} apart, so no ${fwd} follows from it exactly`);
-        zero.push({ id: 'reference-zero', label: f.exact ? 'Reference (zero)' : 'Reference (zero; zero chart only)', points: points(z), ...common });
+        zero.push({ id: 'reference-zero', label: f.exact ? 'Reference (zero)' : 'Reference (zero; zero chart only)', points: points(z), ...common, explain: datedAt('zero', { refCurve: parsedReference }) });
         if (f.exact) {
           how.forward.push(`${read}; only ${fwd}s from one of its dates to another`);
-          forward.push({ id: 'reference-forward', label: `Reference (${fwd})`, points: points(f.samples), ...common });
+          forward.push({ id: 'reference-forward', label: `Reference (${fwd})`, points: points(f.samples), ...common, explain: datedAt('forward', { refCurve: parsedReference }) });
         }
       }
     }

@@ -16,6 +16,7 @@ import {
   instantaneousForwardOn,
   INTERPOLATORS,
   snapshotDocument,
+  explainReferencePoint,
   marketDate,
   parseTenor,
   parYieldOn,
@@ -37,6 +38,7 @@ import {
   type MethodValue,
   type Result,
   type Snapshot,
+  type ReferenceCurve,
   type CurveBuild,
 } from '../../core/index.ts';
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
@@ -81,6 +83,8 @@ export interface DatedCell {
   readonly method?: InterpolationId;
   readonly scenario?: Scenario;
   readonly snapshot?: Snapshot;
+  /** The reference curve's line: its point as the file gives it (explainReferencePoint); no quotes or methods. */
+  readonly refCurve?: ReferenceCurve;
   /** ISO date: the zero rate's date, or the forward's start. */
   readonly start: string;
   /** ISO date: the forward's end (unused for a zero rate); a forward without one runs the display's forward tenor. */
@@ -166,7 +170,13 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const curve = result.build.curve;
   if (!curve) return noCurve(result);
   // The line's curve: built under a method (the build's own by default), a snapshot's, or moved by a scenario.
-  const { method, scenario, snapshot } = 'tenor' in cell ? ({} as Partial<DatedCell>) : cell;
+  const { method, scenario, snapshot, refCurve: reference } = 'tenor' in cell ? ({} as Partial<DatedCell>) : cell;
+  if (reference) {
+    const { start, field } = cell as DatedCell;
+    const fwd = field === 'forward';
+    const r = explainReferencePoint(reference, curve, start, display.compounding, display.dayCount, fwd ? parseTenor(display.forwardTenor)! : undefined);
+    return r.ok ? cellOf(result, `Reference ${fwd ? `${display.forwardTenor} forward rate starting` : 'zero rate on'} ${start}`, r.value, { ok: true, value: [] }, 'none: the reference is as its file gives it, not on the sheet, and no method reads it', []) : r;
+  }
   const doc = snapshot && snapshotDocument(snapshot);
   const opts = workbenchBuildOptions();
   const buildOf = (m?: InterpolationId): CurveBuild => (doc ? buildCurve(doc, m ? { interpolation: m } : {}) : m ? buildUnder(result, m, opts) : result.build);
