@@ -325,8 +325,8 @@ export { conventionsOf as explainedConventions };
 /** The instantaneous forward's slope by how DF(date) is read (by the method between two nodes). */
 const INST_SLOPE: Readonly<Record<string, string>> = {
   'log-linear-discount': 'f = -(ln DF(t2) - ln DF(t1)) / (t2 - t1), flat between the two nodes',
-  'linear-zero': 'f = z + t (z2 - z1) / (t2 - t1), z = -ln DF(date) / t, z_k = -ln DF(t_k) / t_k (0 slope before the first node)',
-  extrapolated: 'f = f1, the last node\'s forward carried on',
+  'linear-zero': 'f = z + t (z2 - z1) / (t2 - t1), z = -ln DF(date) / t, z_k = -ln DF(t_k) / t_k',
+  extrapolated: 'f = f1, the last node\'s',
 };
 
 /** The recorder of the queries in query.ts: builds each explanation from the query's own values. */
@@ -403,7 +403,7 @@ export const QUERY_RECORDER: QueryRecorder = {
     const how = read.how === 'interpolated' ? curve.interpolation : read.how;
     sink.explanation = {
       quantity: 'instantaneous-forward',
-      formula: `f = -d ln DF(t) / dt, the slope of the curve's ln DF at t, years on ${curve.dayCount} from settlement (continuous)`,
+      formula: `f = -d ln DF(t) / dt, t years on ${curve.dayCount} from settlement`,
       value: forward,
       unit,
       conventions: conventionsOf(curve, 'continuous', curve.dayCount),

@@ -166,7 +166,7 @@ export function explainReferencePoint(ref: ReferenceCurve, curve: Curve, date: s
   const lnP = ln.get(e)! - (b === S ? 0 : ln.get(b)!);
   return ok({
     quantity: tenor ? 'forward-rate' : 'zero-rate',
-    formula: `${rateDefinition(c)}, P = D(end) / D(start), D the reference file's discount factors (D = 1 at settlement ${S}), tau on ${dc} from start to end`,
+    formula: `${rateDefinition(c)}, P = D(end) / D(start), D the file's discount factors (1 at ${S}), tau on ${dc}`,
     value: s.y[i]!,
     unit,
     conventions: explainedConventions(curve, c, dc),

@@ -175,7 +175,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
     const { start, field } = cell as DatedCell;
     const fwd = field === 'forward';
     const r = explainReferencePoint(reference, curve, start, display.compounding, display.dayCount, fwd ? parseTenor(display.forwardTenor)! : undefined);
-    return r.ok ? cellOf(result, `Reference ${fwd ? `${display.forwardTenor} forward rate starting` : 'zero rate on'} ${start}`, r.value, { ok: true, value: [] }, 'none: the reference is as its file gives it, not on the sheet, and no method reads it', []) : r;
+    return r.ok ? cellOf(result, `Reference ${fwd ? `${display.forwardTenor} forward rate starting` : 'zero rate on'} ${start}`, r.value, { ok: true, value: [] }, 'none: the file gives it, no quote or method', []) : r;
   }
   const doc = snapshot && snapshotDocument(snapshot);
   const opts = workbenchBuildOptions();
@@ -226,12 +226,12 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   const instruments = own.instruments;
   // The quotes of the line's own build: a scenario's read on the base curve (the note says so); a snapshot has none on the sheet.
   const q = scenario ? curve : on;
-  let quotesNote: string | null = scenario ? `of the base curve's rate: the scenario curve is made from these quotes and the scenario's shift, and moves with them as the base does` : null;
+  let quotesNote: string | null = scenario ? "of the base curve's rate: the scenario curve moves with these quotes as the base does" : null;
   let influences: Influences;
-  if (doc) ((influences = { ok: true, value: [] }), (quotesNote = `none: the snapshot's quotes are frozen with it, not on the sheet`));
+  if (doc) ((influences = { ok: true, value: [] }), (quotesNote = "none: the snapshot's quotes are frozen, not on the sheet"));
   else if (cell.field === 'inst') {
     influences = topQuoteInfluences(q, instruments, date, addDays(date, 1), 'continuous', q.dayCount);
-    quotesNote = `of the 1-day forward from ${date} (continuous, ${q.dayCount}), whose limit it is`;
+    quotesNote = `of the 1-day forward from ${date}, its limit`;
   } else if (cell.field === 'par') influences = topParQuoteInfluences(q, instruments, q.settlement, date, parFrequency, 'ACT/ACT-ICMA');
   else if (cell.field === 'forwardPar') influences = topParQuoteInfluences(q, instruments, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false);
   else if (cell.field === 'discount') {
