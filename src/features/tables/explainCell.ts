@@ -12,7 +12,6 @@ import {
   explanationText,
   forwardOn,
   forwardParRateOn,
-  addDays,
   instantaneousForwardOn,
   INTERPOLATORS,
   snapshotDocument,
@@ -230,7 +229,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   let influences: Influences;
   if (doc) ((influences = { ok: true, value: [] }), (quotesNote = "none: the snapshot's quotes are frozen, not on the sheet"));
   else if (cell.field === 'inst') {
-    influences = topQuoteInfluences(q, instruments, date, addDays(date, 1), 'continuous', q.dayCount);
+    influences = topQuoteInfluences(q, instruments, date, marketDate(date, { n: 1, unit: 'D' }), 'continuous', q.dayCount);
     quotesNote = `of the 1-day forward from ${date}, its limit`;
   } else if (cell.field === 'par') influences = topParQuoteInfluences(q, instruments, q.settlement, date, parFrequency, 'ACT/ACT-ICMA');
   else if (cell.field === 'forwardPar') influences = topParQuoteInfluences(q, instruments, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false);
