@@ -18,6 +18,8 @@ export interface ChartLine {
   readonly dash?: string;
   readonly width?: number;
   readonly points: readonly SamplePoint[];
+  /** What explains the line's point (handed to the chart's `explain.open`); kept across renders, as the chart is memoised. */
+  readonly explain?: (p: SamplePoint) => unknown;
 }
 
 export interface ChartMarker {
@@ -38,8 +40,11 @@ export interface RateChartProps {
   readonly axis: MaturityAxis;
   readonly xLabel: string;
   readonly yLabel: string;
-  /** With it, a button beside the readout opens the explanation of the first line's point last read ("zero rate", "3M forward rate"). */
-  readonly explain?: { readonly words: string; readonly open: (point: SamplePoint, button: HTMLElement) => void };
+  /**
+   * With it, a row under the readout has a button per line with an `explain`, which opens the
+   * explanation of that line's point at the maturity last read; `words` names the first line's number ("zero rate").
+   */
+  readonly explain?: { readonly words: string; readonly open: (cell: unknown, button: HTMLElement) => void };
   /** The lines' y values are basis points (a spread), not decimal rates: the axis and the readout say bp. */
   readonly bp?: boolean;
 }
@@ -192,7 +197,7 @@ export const RateChart = memo(function RateChart(props: RateChartProps) {
         <span className="sr-only">{description} </span>
         <Readout lines={lines} bp={bp} />
       </figcaption>
-      {props.explain && <ExplainPoint points={lines[0]?.points ?? []} {...props.explain} />}
+      {props.explain && <ExplainPoint lines={lines} {...props.explain} />}
     </figure>
   );
 });
@@ -261,17 +266,35 @@ function Readout({ lines, bp }: { lines: readonly ChartLine[]; bp?: boolean | un
 }
 
 /**
- * "Explain" beside the readout: the first line's point last read (by pointer or keyboard; kept when
- * the pointer leaves the chart or the focus moves to the button) opens its explanation.
+ * "Explain at 2.00y (date):" under the readout, then a button per explainable line (its label; its
+ * accessible name the line and its own point), at the maturity last read by pointer or keyboard
+ * (kept when the pointer leaves the chart or the focus moves to a button).
  */
-function ExplainPoint({ points, words, open }: { points: readonly SamplePoint[]; words: string; open: (p: SamplePoint, button: HTMLElement) => void }) {
+function ExplainPoint({ lines, words, open }: { lines: readonly ChartLine[]; words: string; open: (cell: unknown, button: HTMLElement) => void }) {
   const hx = useHoverX();
   const [last, setLast] = useState<number | null>(null);
   if (hx !== null && hx !== last) setLast(hx);
-  const p = last === null ? undefined : points[nearestIndex(points, last)];
+  const at = (p: SamplePoint): string => `${formatNumber(p.x, 2)}y (${p.date})`;
+  const pointOf = (l: ChartLine): SamplePoint | undefined => {
+    const p = last === null ? undefined : l.points[nearestIndex(l.points, last)];
+    return p && Math.abs(p.x - last!) <= 0.6 ? p : undefined;
+  };
+  const p0 = pointOf(lines[0]!);
+  if (!p0) return <button type="button" className="linklike small chart-explain" disabled>{`Explain a ${words}: read a point first`}</button>;
   return (
-    <button type="button" className="linklike small chart-explain" disabled={!p} onClick={(e) => p && open(p, e.currentTarget)}>
-      {p ? `Explain the ${words} at ${formatNumber(p.x, 2)}y (${p.date})` : `Explain a ${words}: read a point first`}
-    </button>
+    <p className="small chart-explain">
+      Explain at {at(p0)}:
+      {lines.map((l, i) => {
+        const p = l.explain && pointOf(l);
+        return (
+          p && (
+            <button key={l.id} type="button" className="linklike" aria-label={i ? `Explain ${l.label} at ${at(p)}` : `Explain the ${words} at ${at(p)}`} onClick={(e) => open(l.explain!(p), e.currentTarget)}>
+              {l.label}
+              <span className="sr-only"> at {at(p)}</span>
+            </button>
+          )
+        );
+      })}
+    </p>
   );
 }

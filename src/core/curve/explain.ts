@@ -39,7 +39,9 @@ export type ExplainedQuantity = 'discount-factor' | 'zero-rate' | 'forward-rate'
   | 'quote-model'
   | 'quote-error'
   /** A quote's model yield or residual on a smooth fit (fit/explainFit.ts). */
-  | 'fit-figure';
+  | 'fit-figure'
+  /** The instantaneous forward f(t) = -d ln DF / dt (instantaneousForwardOn). */
+  | 'instantaneous-forward';
 
 /** A date the number is read at. Query dates are calendar dates: no business-day rule moves them. */
 export interface ExplainedDate {
@@ -181,6 +183,7 @@ export interface QueryRecorder {
   zero(curve: Curve, sink: ExplanationSink, date: IsoDate, c: Compounding, dc: DayCount, t: number, ln: number, tau: number, zero: number): void;
   zeroAtSettlement(curve: Curve, sink: ExplanationSink, c: Compounding, dc: DayCount, f0: number, ratio: number, zero: number): void;
   forward(curve: Curve, sink: ExplanationSink, start: IsoDate, end: IsoDate, c: Compounding, dc: DayCount, a: LnRead, b: LnRead, tau: number, lnP: number, rate: number): void;
+  inst(curve: Curve, sink: ExplanationSink, date: IsoDate, t: number, ln: number, forward: number): void;
   par(
     curve: Curve,
     sink: ExplanationSink,
@@ -299,7 +302,7 @@ export function rateSteps(lnP: number, c: Compounding, tau: number, rate: number
 }
 
 /** The rate definition in words for a formula line. */
-function rateDefinition(c: Compounding): string {
+export function rateDefinition(c: Compounding): string {
   if (c === 'continuous') return 'P = exp(-rate x tau)';
   if (c === 'simple') return 'P = 1 / (1 + rate x tau)';
   const m = periodsPerYear(c);
@@ -318,6 +321,13 @@ const conventionsOf = (curve: Curve, c: Compounding | null, dc: DayCount | null,
 });
 /** A number's conventions on a curve (queries, bond figures): dates unadjusted, no calendar. */
 export { conventionsOf as explainedConventions };
+
+/** The instantaneous forward's slope by how DF(date) is read (by the method between two nodes). */
+const INST_SLOPE: Readonly<Record<string, string>> = {
+  'log-linear-discount': 'f = -(ln DF(t2) - ln DF(t1)) / (t2 - t1), flat between the two nodes',
+  'linear-zero': 'f = z + t (z2 - z1) / (t2 - t1), z = -ln DF(date) / t, z_k = -ln DF(t_k) / t_k',
+  extrapolated: 'f = f1, the last node\'s',
+};
 
 /** The recorder of the queries in query.ts: builds each explanation from the query's own values. */
 export const QUERY_RECORDER: QueryRecorder = {
@@ -385,6 +395,22 @@ export const QUERY_RECORDER: QueryRecorder = {
       ],
       reads: [explainRead(curve, 'DF(start)', start, a.t, a.ln), explainRead(curve, 'DF(end)', end, b.t, b.ln)],
       steps: [{ name: 'lnP', formula: 'lnP = ln DF(end) - ln DF(start)', inputs: ['DF(end)', 'DF(start)'], value: lnP, unit: LN_UNIT }, ...rateSteps(lnP, c, tau, rate, unit)],
+    };
+  },
+  inst(curve, sink, date, t, ln, forward) {
+    const unit = rateUnit('continuous', curve.dayCount);
+    const read = explainRead(curve, 'DF(date)', date, t, ln);
+    const how = read.how === 'interpolated' ? curve.interpolation : read.how;
+    sink.explanation = {
+      quantity: 'instantaneous-forward',
+      formula: `f = -d ln DF(t) / dt, t years on ${curve.dayCount} from settlement`,
+      value: forward,
+      unit,
+      conventions: conventionsOf(curve, 'continuous', curve.dayCount),
+      dates: [queryDate(sink, 'date', date)],
+      yearFractions: [explainedYearFraction('t', curve.dayCount, curve.settlement, date, t)],
+      reads: [read],
+      steps: [{ name: 'f', formula: INST_SLOPE[how] ?? `f = -d ln DF / dt of the ${INTERPOLATORS[curve.interpolation].label} curve at t`, inputs: ['DF(date)', 't'], value: forward, unit }],
     };
   },
   par(curve, sink, start, end, frequency, dc, s, e, periods, annuity, numerator, rate) {

@@ -3,7 +3,12 @@ import { diffBp, effectDates, effectRate, type EffectConventions, type EffectFie
 import { compareRow, type CompareBy } from '../scenarios/scenarioSnapshots.ts';
 import type { Compounding } from '../rates/compounding.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
-import { explainedYearFraction, explanationSink, LN_UNIT, rateSteps, rateUnit, type ExplainedQuantity, type Explanation } from './explain.ts';
+import { explainedConventions, explainedYearFraction, explanationSink, LN_UNIT, rateDefinition, rateSteps, rateUnit, type ExplainedQuantity, type ExplainedStep, type Explanation } from './explain.ts';
+import { rateTag } from '../format/conventionTag.ts';
+import { referenceForwardSamples, referenceLnDiscounts, referenceZeroSamples } from './comparisonLines.ts';
+import { marketDate } from '../time/dateConventions.ts';
+import { queryYearFraction } from '../time/dayCount.ts';
+import type { Tenor } from '../time/tenor.ts';
 import { referenceRow, type ReferenceCurve, type ReferenceTrace } from '../scenarios/scenarioReference.ts';
 import type { Curve } from './curve.ts';
 
@@ -135,4 +140,39 @@ export function explainReferenceDifference(curve: Curve, ref: ReferenceCurve, da
       : [{ name: 'lnP', formula: `lnP = ln D, D = ${point.value} (the reference file's discount factor on this date)`, inputs: [], value: trace.lnDiscount!, unit: LN_UNIT }, ...rateSteps(trace.lnDiscount!, ref.compounding, trace.tau!, row.referenceZero, unit)],
   };
   return ok(joinedDifference('zero-difference', `difference = (our zero rate - reference zero rate) x 10,000, both ${unit}; ours: ${ours.formula}`, 'difference', [reference, 'reference', 'reference curve'], [ours, 'ours', 'our curve'], row.differenceBp));
+}
+
+/**
+ * A point of the charts' reference line: its zero rate on `date` (referenceZeroSamples) or, with
+ * `tenor`, its forward from `date` (referenceForwardSamples), in c and dc from our settlement; the
+ * value is the sampler's own point, the steps its arithmetic from the file's values (ln D, or ln DF
+ * of the file's zero rate in its own convention, then the rate from ln P over tau).
+ */
+export function explainReferencePoint(ref: ReferenceCurve, curve: Curve, date: string, c: Compounding, dc: CurveDayCount, tenor?: Tenor): Result<Explanation> {
+  const s = tenor ? referenceForwardSamples(ref, curve, tenor, c, dc).samples : referenceZeroSamples(ref, curve, c, dc);
+  const i = s.dates.indexOf(date);
+  if (i < 0) return fail(coreError('schema', 'date', `the reference line has no point on ${date}`));
+  const S = curve.settlement;
+  const ln = referenceLnDiscounts(ref, S);
+  const [b, e] = tenor ? [date, marketDate(date, tenor)] : [S, date];
+  const unit = rateUnit(c, dc);
+  const tau = queryYearFraction(dc, b, e);
+  const steps: ExplainedStep[] = [];
+  for (const [n, d] of [['start', b], ['end', e]] as const) {
+    if (d === S) continue;
+    const v = ref.points.find((p) => p.date === d)!.value;
+    steps.push({ name: `ln D(${n})`, formula: ref.kind === 'discount' ? `ln D(${n}) = ln ${v}, the file's discount factor on ${d}` : `ln D(${n}) = ln P of the file's zero rate ${v} on ${d} (${rateTag(ref.compounding, ref.dayCount)}, ${rateDefinition(ref.compounding)}, tau = ${queryYearFraction(ref.dayCount, S, d)} from ${S})`, inputs: [], value: ln.get(d)!, unit: LN_UNIT });
+  }
+  const lnP = ln.get(e)! - (b === S ? 0 : ln.get(b)!);
+  return ok({
+    quantity: tenor ? 'forward-rate' : 'zero-rate',
+    formula: `${rateDefinition(c)}, P = D(end) / D(start), D the file's discount factors (1 at ${S}), tau on ${dc}`,
+    value: s.y[i]!,
+    unit,
+    conventions: explainedConventions(curve, c, dc),
+    dates: [],
+    yearFractions: [explainedYearFraction('tau', dc, b, e, tau)],
+    reads: [],
+    steps: [...steps, { name: 'lnP', formula: 'lnP = ln D(end) - ln D(start)', inputs: [], value: lnP, unit: LN_UNIT }, ...rateSteps(lnP, c, tau, s.y[i]!, unit)],
+  });
 }

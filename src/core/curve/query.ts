@@ -115,11 +115,14 @@ export function forwardOn(curve: Curve, start: IsoDate, end: IsoDate, c: Compoun
   return ok({ start, end, tau, rate, extrapolated: a.value.extrapolated || b.value.extrapolated });
 }
 
-/** Instantaneous forward f(t) = -d lnDF/dt at a date, continuously compounded per year on the curve's clock. */
-export function instantaneousForwardOn(curve: Curve, date: IsoDate, path = 'date'): Result<{ t: number; forward: number; extrapolated: boolean }> {
+/** Instantaneous forward f(t) = -d lnDF/dt at a date, continuously compounded per year on the curve's clock. With a sink, its explanation. */
+export function instantaneousForwardOn(curve: Curve, date: IsoDate, path = 'date', sink?: ExplanationSink): Result<{ t: number; forward: number; extrapolated: boolean }> {
   const r = lnDiscountOn(curve, date, path);
   if (!r.ok) return r;
-  return ok({ t: r.value.t, forward: curve.forwardAt(r.value.t), extrapolated: r.value.extrapolated });
+  const { t, ln, extrapolated } = r.value;
+  const forward = curve.forwardAt(t);
+  if (sink) sink.recorder.inst(curve, sink, date, t, ln, forward);
+  return ok({ t, forward, extrapolated });
 }
 
 /**

@@ -21,6 +21,7 @@ import { useLazyReference } from './useLazyReference.ts';
 import { chartEndDate, points as samplePoints, sampleGridFor, type SamplePoint } from '../../hooks/useCurveSeries.ts';
 import { useAppStore } from '../../state/store.ts';
 import { comparisonChoice } from './comparisonChoice.ts';
+import { datedAt } from '../curves/datedAt.ts';
 import { useFitInput } from './fitInput.ts';
 import { useLazyFit } from './useLazyFit.ts';
 import { useReferenceInput } from './referenceInput.ts';
@@ -120,8 +121,9 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
         how.forward.push(line);
       }
       const common = { tag, ...SNAPSHOT_STYLES[i]! };
-      zero.push({ id: `snapshot-${i}-zero`, label: `Snapshot ${snapshot.name} (zero)`, points: points(z), ...common });
-      forward.push({ id: `snapshot-${i}-forward`, label: `Snapshot ${snapshot.name} (${fwd})`, points: points(f), ...common });
+      // Each point explained on the snapshot rebuilt from its inputs, as here (explainCell), at its own date.
+      zero.push({ id: `snapshot-${i}-zero`, label: `Snapshot ${snapshot.name} (zero)`, points: points(z), ...common, explain: datedAt('zero', { snapshot }) });
+      forward.push({ id: `snapshot-${i}-forward`, label: `Snapshot ${snapshot.name} (${fwd})`, points: points(f), ...common, explain: datedAt('forward', { snapshot }) });
     });
     if (rebuilt.missing.length > 0) notes.push(`not drawn, not among this workspace's snapshots (removed, or opened from a link, which leaves snapshots out): ${rebuilt.missing.join(', ')}`);
     if (rebuilt.notDrawn > 0) notes.push(`${rebuilt.notDrawn} more snapshot${rebuilt.notDrawn === 1 ? '' : 's'} chosen, not drawn (the charts show the first ${SNAPSHOT_OVERLAY_MAX})`);
@@ -134,10 +136,10 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
         const common = { tag, ...REFERENCE_STYLE };
         const read = `Reference: its dates from settlement ${curve.settlement}, by date, joined by straight lines`;
         how.zero.push(f.exact ? read : `${read}; zero chart only: no two of its dates are ${display.forwardTenor} apart, so no ${fwd} follows from it exactly`);
-        zero.push({ id: 'reference-zero', label: f.exact ? 'Reference (zero)' : 'Reference (zero; zero chart only)', points: points(z), ...common });
+        zero.push({ id: 'reference-zero', label: f.exact ? 'Reference (zero)' : 'Reference (zero; zero chart only)', points: points(z), ...common, explain: datedAt('zero', { refCurve: parsedReference }) });
         if (f.exact) {
           how.forward.push(`${read}; only ${fwd}s from one of its dates to another`);
-          forward.push({ id: 'reference-forward', label: `Reference (${fwd})`, points: points(f.samples), ...common });
+          forward.push({ id: 'reference-forward', label: `Reference (${fwd})`, points: points(f.samples), ...common, explain: datedAt('forward', { refCurve: parsedReference }) });
         }
       }
     }

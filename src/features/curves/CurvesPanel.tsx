@@ -1,5 +1,5 @@
 import { useMemo, useRef, useState } from 'react';
-import { INTERPOLATORS, couponTag, rateTag } from '../../core/index.ts';
+import { INTERPOLATORS, couponTag, rateTag, type InterpolationId } from '../../core/index.ts';
 import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
 import { BASE_STYLES, METHOD_STYLES, SCENARIO_OVERLAY_MAX } from '../../charts/palette.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
@@ -10,8 +10,16 @@ import { ComparisonControls } from '../compare/ComparisonControls.tsx';
 import { useComparisonOverlay } from '../compare/useComparisonOverlay.ts';
 import { useAppStore } from '../../state/store.ts';
 import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
-import type { DatedCell } from '../tables/explainCell.ts';
+import type { DatedCell, ExplainCell } from '../tables/explainCell.ts';
 import { OpenExplanation } from '../tables/explainOpener.tsx';
+import { datedAt } from './datedAt.ts';
+
+const ZERO = datedAt('zero');
+const FORWARD = datedAt('forward');
+const PAR = datedAt('par');
+const INST = datedAt('inst');
+/** The method overlay's forwards, one factory per method (kept, so the memoised charts keep them). */
+const BY_METHOD: Partial<Record<InterpolationId, (p: SamplePoint) => DatedCell>> = {};
 
 /** The zero and forward charts side by side on a shared maturity axis. */
 export function CurvesPanel({ result, deferredResult = result }: { result: WorkbenchBuild; deferredResult?: WorkbenchBuild }) {
@@ -23,19 +31,19 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
   const scenarioLines = useScenarioOverlay(deferredResult);
   // Snapshots, the reference curve and the smooth fit chosen in the view (compare feature), from the deferred build.
   const comparisons = useComparisonOverlay(deferredResult);
-  // The point of a chart whose zero rate or forward is explained, and the button that opened it.
-  const [explained, setExplained] = useState<DatedCell | null>(null);
+  // The point of a chart line whose number is explained (its line's `explain`), and the button that opened it.
+  const [explained, setExplained] = useState<ExplainCell | null>(null);
   const opener = useRef<HTMLElement | null>(null);
-  const explainAs = (field: DatedCell['field'], words: string) => ({
+  const explainAs = (words: string) => ({
     words,
-    open: (p: SamplePoint, button: HTMLElement) => {
+    open: (cell: unknown, button: HTMLElement) => {
       opener.current = button;
-      setExplained({ field, start: p.date });
+      setExplained(cell as ExplainCell);
     },
   });
   // Kept across renders, so the memoised charts do not draw again for them.
-  const explainZero = useMemo(() => explainAs('zero', 'zero rate'), []);
-  const explainForward = useMemo(() => explainAs('forward', `${display.forwardTenor} forward`), [display.forwardTenor]);
+  const explainZero = useMemo(() => explainAs('zero rate'), []);
+  const explainForward = useMemo(() => explainAs(`${display.forwardTenor} forward`), [display.forwardTenor]);
   if (!curve || !series) {
     return (
       <section className="panel charts-panel" aria-label="Charts">
@@ -47,18 +55,18 @@ export function CurvesPanel({ result, deferredResult = result }: { result: Workb
   }
   const tag = rateTag(display.compounding, display.dayCount);
   const xLabel = `Maturity (years from settlement, ${curve.dayCount}${display.axis === 'sqrt' ? ', square-root spaced' : ''})`;
-  const zeroLines: ChartLine[] = [{ id: 'zero', label: 'Zero', tag, ...BASE_STYLES.zero, points: series.zero }];
-  if (display.showPar) zeroLines.push({ id: 'par', label: 'Par yield', tag: couponTag(display.parFrequency, 'ACT/ACT-ICMA'), ...BASE_STYLES.par, points: series.par });
+  const zeroLines: ChartLine[] = [{ id: 'zero', label: 'Zero', tag, ...BASE_STYLES.zero, points: series.zero, explain: ZERO }];
+  if (display.showPar) zeroLines.push({ id: 'par', label: 'Par yield', tag: couponTag(display.parFrequency, 'ACT/ACT-ICMA'), ...BASE_STYLES.par, points: series.par, explain: PAR });
   const fwdLabel = `${display.forwardTenor} forward`;
   const fwdLines: ChartLine[] = [];
   if (display.showMethodOverlay) {
     for (const m of overlay) {
       if (m.method === curve.interpolation) continue;
-      fwdLines.push({ id: `m-${m.method}`, label: INTERPOLATORS[m.method].label, tag, ...METHOD_STYLES[m.method]!, points: m.points });
+      fwdLines.push({ id: `m-${m.method}`, label: INTERPOLATORS[m.method].label, tag, ...METHOD_STYLES[m.method]!, points: m.points, explain: (BY_METHOD[m.method] ??= datedAt('forward', { method: m.method })) });
     }
   }
-  fwdLines.unshift({ id: 'forward', label: display.showMethodOverlay ? `${fwdLabel} (${INTERPOLATORS[curve.interpolation].label})` : fwdLabel, tag, ...BASE_STYLES.forward, points: series.forward });
-  if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `${rateTag('continuous', curve.dayCount)} from settlement`, ...BASE_STYLES.instantaneous, points: series.instantaneous });
+  fwdLines.unshift({ id: 'forward', label: display.showMethodOverlay ? `${fwdLabel} (${INTERPOLATORS[curve.interpolation].label})` : fwdLabel, tag, ...BASE_STYLES.forward, points: series.forward, explain: FORWARD });
+  if (display.showInstantaneous) fwdLines.push({ id: 'inst', label: 'Instantaneous', tag: `${rateTag('continuous', curve.dayCount)} from settlement`, ...BASE_STYLES.instantaneous, points: series.instantaneous, explain: INST });
   zeroLines.push(...scenarioLines.zero);
   fwdLines.push(...scenarioLines.forward);
   zeroLines.push(...comparisons.zero);

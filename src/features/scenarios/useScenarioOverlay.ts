@@ -9,6 +9,7 @@ import { curveSeries } from '../../hooks/useCurveSeries.ts';
 import { useAppStore } from '../../state/store.ts';
 
 import { SCENARIO_OVERLAY_MAX, SCENARIO_STYLES } from '../../charts/palette.ts';
+import { datedAt } from '../curves/datedAt.ts';
 
 /**
  * Lines of the first SCENARIO_OVERLAY_MAX scenarios for the zero and forward charts (each scenario's curve from the
@@ -36,8 +37,9 @@ export function useScenarioOverlay(result: WorkbenchBuild): { zero: ChartLine[];
         }
         const series = curveSeries(r.value.curve, display, []);
         const common = { tag, ...SCENARIO_STYLES[i]! };
-        zero.push({ id: `scenario-${s.id}-zero`, label: `${s.name} (zero)`, points: series.zero, ...common });
-        forward.push({ id: `scenario-${s.id}-forward`, label: `${s.name} (${display.forwardTenor} forward)`, points: series.forward, ...common });
+        // Each point explained on the scenario curve made again as here (explainCell: applyToShown).
+        zero.push({ id: `scenario-${s.id}-zero`, label: `${s.name} (zero)`, points: series.zero, ...common, explain: datedAt('zero', { scenario: s }) });
+        forward.push({ id: `scenario-${s.id}-forward`, label: `${s.name} (${display.forwardTenor} forward)`, points: series.forward, ...common, explain: datedAt('forward', { scenario: s }) });
       });
     return { zero, forward, notDrawn: Math.max(0, scenarios.length - SCENARIO_OVERLAY_MAX), failed };
   }, [value, display, curve, ws, result]);

@@ -12,6 +12,10 @@ import {
   explanationText,
   forwardOn,
   forwardParRateOn,
+  instantaneousForwardOn,
+  INTERPOLATORS,
+  snapshotDocument,
+  explainReferencePoint,
   marketDate,
   parseTenor,
   parYieldOn,
@@ -32,6 +36,9 @@ import {
   type FixedLegConvention,
   type MethodValue,
   type Result,
+  type Snapshot,
+  type ReferenceCurve,
+  type CurveBuild,
 } from '../../core/index.ts';
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
@@ -64,11 +71,20 @@ export interface KeyCell {
 
 /**
  * A number given by its dates (the forward strip and grid, the calculator, the charts' readout): a
- * discount factor or zero rate on `start`, a forward from `start` to `end` in the display convention, or a forward par rate from
- * `start` to `end` on the swap fixed leg `leg`.
+ * discount factor or zero rate on `start`, a forward from `start` to `end` in the display
+ * convention, a forward par rate from `start` to `end` on the swap fixed leg `leg`, the par yield to
+ * `start` (display frequency, ACT/ACT-ICMA) or the instantaneous forward at `start`. Read on the
+ * build's curve, or on a chart line's own curve: the workspace built under `method`, the shown curve
+ * moved by `scenario` (as the charts' overlay moves it, applyToShown), or `snapshot` rebuilt from
+ * its inputs.
  */
 export interface DatedCell {
-  readonly field: 'discount' | 'zero' | 'forward' | 'forwardPar';
+  readonly field: 'discount' | 'zero' | 'forward' | 'forwardPar' | 'par' | 'inst';
+  readonly method?: InterpolationId;
+  readonly scenario?: Scenario;
+  readonly snapshot?: Snapshot;
+  /** The reference curve's line: its point as the file gives it (explainReferencePoint); no quotes or methods. */
+  readonly refCurve?: ReferenceCurve;
   /** ISO date: the discount factor's or zero rate's date, or the forward's start. */
   readonly start: string;
   /** ISO date: the forward's end (unused for a zero rate); a forward without one runs the display's forward tenor. */
@@ -154,6 +170,27 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
   if ('fit' in cell) return explainFitCell(result, cell.fit);
   const curve = result.build.curve;
   if (!curve) return noCurve(result);
+  // The line's curve: built under a method (the build's own by default), a snapshot's, or moved by a scenario.
+  const { method, scenario, snapshot, refCurve: reference } = 'tenor' in cell ? ({} as Partial<DatedCell>) : cell;
+  if (reference) {
+    const { start, field } = cell as DatedCell;
+    const fwd = field === 'forward';
+    const r = explainReferencePoint(reference, curve, start, display.compounding, display.dayCount, fwd ? parseTenor(display.forwardTenor)! : undefined);
+    return r.ok ? cellOf(result, `Reference ${fwd ? `${display.forwardTenor} forward rate starting` : 'zero rate on'} ${start}`, r.value, { ok: true, value: [] }, 'none: the file gives it, no quote or method', []) : r;
+  }
+  const doc = snapshot && snapshotDocument(snapshot);
+  const opts = workbenchBuildOptions();
+  const buildOf = (m?: InterpolationId): CurveBuild => (doc ? buildCurve(doc, m ? { interpolation: m } : {}) : m ? buildUnder(result, m, opts) : result.build);
+  const lineOf = (b: CurveBuild, shown: boolean): Result<Curve> => {
+    if (!b.curve) return b.errors.length ? fail(...b.errors) : noCurve(result);
+    if (!scenario) return { ok: true, value: b.curve };
+    const moved = shown ? applyToShown(scenario, result, opts) : applyScenario(scenario, b.workspace!, b.curve, { ...opts, interpolation: b.curve.interpolation });
+    return moved.ok ? { ok: true, value: moved.value.curve } : moved;
+  };
+  const own = buildOf(method);
+  const line = lineOf(own, !method && !doc);
+  if (!line.ok) return line;
+  const on = line.value;
   let date: string;
   let end: string;
   if ('tenor' in cell) {
@@ -173,33 +210,43 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
       cell.field === 'discount' ? discountOn(on, date, 'date', sink)
       : cell.field === 'zero' ? zeroOn(on, date, c, dc, 'date', sink)
       : cell.field === 'par' ? parYieldOn(on, date, parFrequency, 'maturity', sink)
+      : cell.field === 'inst' ? instantaneousForwardOn(on, date, 'date', sink)
       : cell.field === 'forwardPar' ? forwardParRateOn(on, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false, 'forward', sink)
       : forwardOn(on, date, end, c, dc, 'forward', sink);
     if (!r.ok) return r;
-    const v = r.value as { discount?: number; zero?: number; rate?: number };
-    return { ok: true, value: (cell.field === 'discount' ? v.discount : cell.field === 'zero' ? v.zero : v.rate)! };
+    const v = r.value as { discount?: number; zero?: number; rate?: number; forward?: number };
+    return { ok: true, value: (cell.field === 'discount' ? v.discount : cell.field === 'zero' ? v.zero : v.forward ?? v.rate)! };
   };
   const given =
-    !('tenor' in cell) ? { date: cell.start, start: cell.start, end }
+    !('tenor' in cell) ? (cell.field === 'par' ? undefined : { date: cell.start, start: cell.start, end })
     : cell.field === 'par' ? { start: 'valuation date', end: cell.tenor }
     : { date: cell.tenor, start: cell.tenor, end: `${display.forwardTenor} after the start` };
-  const traced = explained((sink) => read(curve, sink), given);
+  const traced = explained((sink) => read(on, sink), given);
   if (!traced.ok) return traced;
   const explanation = traced.value.explanation;
-  const instruments = result.build.instruments;
-  let quotesNote: string | null = null;
+  const instruments = own.instruments;
+  // The quotes of the line's own build: a scenario's read on the base curve (the note says so); a snapshot has none on the sheet.
+  const q = scenario ? curve : on;
+  let quotesNote: string | null = scenario ? "of the base curve's rate: the scenario curve moves with these quotes as the base does" : null;
   let influences: Influences;
-  if (cell.field === 'par') influences = topParQuoteInfluences(curve, instruments, curve.settlement, date, parFrequency, 'ACT/ACT-ICMA');
-  else if (cell.field === 'forwardPar') influences = topParQuoteInfluences(curve, instruments, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false);
+  if (doc) ((influences = { ok: true, value: [] }), (quotesNote = "none: the snapshot's quotes are frozen, not on the sheet"));
+  else if (cell.field === 'inst') {
+    influences = topQuoteInfluences(q, instruments, date, marketDate(date, { n: 1, unit: 'D' }), 'continuous', q.dayCount);
+    quotesNote = `of the 1-day forward from ${date}, its limit`;
+  } else if (cell.field === 'par') influences = topParQuoteInfluences(q, instruments, q.settlement, date, parFrequency, 'ACT/ACT-ICMA');
+  else if (cell.field === 'forwardPar') influences = topParQuoteInfluences(q, instruments, date, end, leg?.frequency ?? 1, leg?.dayCount ?? '30/360', leg?.eom ?? false);
   else if (cell.field === 'discount') {
-    influences = topQuoteInfluences(curve, instruments, curve.settlement, date, 'continuous', curve.dayCount);
+    influences = topQuoteInfluences(q, instruments, q.settlement, date, 'continuous', q.dayCount);
     quotesNote = `of its continuously compounded zero rate on ${curve.dayCount} (DF = exp(-z t))`;
-  } else if (cell.field === 'zero') influences = topQuoteInfluences(curve, instruments, curve.settlement, date, c, dc);
-  else influences = topQuoteInfluences(curve, instruments, date, end, c, dc);
-  // The workspace's document built under each method, as the workbench builds it (skipping wrong rows).
-  const methods = underEachMethod(result, read);
+  } else if (cell.field === 'zero') influences = topQuoteInfluences(q, instruments, q.settlement, date, c, dc);
+  else influences = topQuoteInfluences(q, instruments, date, end, c, dc);
+  // The line's document built under each method, as the workbench builds it (skipping wrong rows), the scenario applied on each.
+  const methods = valueUnderEachMethod(on.interpolation, (m) => (scenario ? ((b) => (b.ok ? { curve: b.value, errors: [] } : { curve: null, errors: b.errors }))(lineOf(buildOf(m), false)) : buildOf(m)), read);
+  const of = method ? ` (${INTERPOLATORS[method].label})` : scenario ? ` under ${scenario.name}` : snapshot ? ` on snapshot ${snapshot.name}` : '';
   const title =
-    !('tenor' in cell) ? (cell.title ?? (cell.field === 'zero' ? `Zero rate on ${date}` : `${display.forwardTenor} forward rate starting ${date} (${date} to ${end})`))
+    !('tenor' in cell)
+      ? (cell.title ??
+        (cell.field === 'zero' ? `Zero rate on ${date}` : cell.field === 'par' ? `Par yield to ${date}` : cell.field === 'inst' ? `Instantaneous forward on ${date}` : `${display.forwardTenor} forward rate starting ${date} (${date} to ${end})`) + of)
     : cell.field === 'forward' ? `${display.forwardTenor} forward rate starting ${cell.tenor} (${date} to ${end})` : `${cell.tenor} ${FIELD_WORDS[cell.field]} (${date})`;
   return cellOf(result, title, explanation, influences, quotesNote, methods);
 }
