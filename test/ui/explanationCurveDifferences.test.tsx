@@ -99,3 +99,36 @@ describe('explanations in the Snapshots table', () => {
     useReferenceInput.getState().set({ text: '' });
   });
 });
+
+describe('the rates beside the differences', () => {
+  it("the Snapshots table's current and snapshot zero rates, and the reference table's own, open their explanations, each the figure shown to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    const display = useAppStore.getState().workspace.display;
+    const result = deriveBuild(useAppStore.getState().workspace);
+    const current = result.build.curve!;
+    const doc = result.conversion.doc as Record<string, unknown> & { quotes: Record<string, unknown>[] };
+    const earlier = { ...doc, valuationDate: '2026-11-24', settlement: undefined, quotes: doc.quotes.map((q) => (typeof q.rate === 'number' ? { ...q, rate: q.rate - 0.001 } : q)) };
+    const snapshot: Snapshot = takeSnapshot(earlier, 'Last week', '2026-11-24T17:00:00+00:00');
+    const { unmount } = render(<SnapshotPanel value={[snapshot]} onChange={() => {}} currentDocument={doc} current={current} now={() => ''} compounding={display.compounding} dayCount={display.dayCount} tenors={['2Y', '10Y']} explainFrom={{ result, display }} />);
+    const row = compareCurves(current, buildCurve(snapshotDocument(snapshot)).curve!, ['10Y'], 'time', display.compounding, display.dayCount)[0]!;
+    const table = screen.getByRole('table', { name: 'Current curve against the snapshot' });
+    for (const [name, title, figure] of [[`current zero rate on ${row.date}`, `Zero rate on ${row.date}`, row.zero!], [`Last week zero rate on ${row.otherDate}`, `Zero rate on ${row.otherDate} on snapshot Last week`, row.otherZero!]] as const) {
+      const button = within(table).getByRole('button', { name: new RegExp(`explain the ${name}$`) });
+      await user.click(button);
+      const panel = await screen.findByRole('complementary', { name: new RegExp(title) });
+      expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure));
+      await user.click(button);
+    }
+    unmount();
+    // Our zero rate in the reference's convention (annual, ACT/360 here, not the display's).
+    const csv = 'date,discount\n2027-12-01,0.9655\n2031-12-01,0.8412';
+    useReferenceInput.getState().set({ text: csv, compounding: 'annual', dayCount: 'ACT/360' });
+    render(<ReferenceCurvePanel curve={current} explainFrom={{ result, display }} />);
+    const ref = parseReferenceCsv(csv, 'annual', 'ACT/360').reference!;
+    const ours = referenceDifferences(current, ref)[1]!.zero!;
+    await user.click(within(screen.getByRole('table', { name: 'Difference from the reference curve' })).getByRole('button', { name: /explain our zero rate on 2031-12-01$/ }));
+    const panel = await screen.findByRole('complementary', { name: /Zero rate on 2031-12-01/ });
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(ours));
+    expect(panel.textContent).toContain('ACT/360');
+  });
+});

@@ -5,9 +5,13 @@ import { useAppStore } from '../../state/store.ts';
 import { COMPOUNDINGS, CURVE_DAY_COUNTS, type Compounding, type Curve, type CurveDayCount, type DisplaySettings } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import type { ReferenceCell } from './explainDifferenceCell.ts';
+import type { DatedCell } from '../tables/explainCell.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 
-const sameDate = (a: ReferenceCell, b: ReferenceCell): boolean => a.reference.date === b.reference.date;
+/** A difference, or our zero rate in the reference's convention (a DatedCell). */
+type RefCell = ReferenceCell | DatedCell;
+const dateOf = (c: RefCell): string => ('reference' in c ? c.reference.date : c.start);
+const sameDate = (a: RefCell, b: RefCell): boolean => 'reference' in a === 'reference' in b && dateOf(a) === dateOf(b);
 
 /**
  * Reference curve: paste or open a CSV of discount factors or zero rates by date from another
@@ -26,10 +30,23 @@ export function ReferenceCurvePanel({ curve, explainFrom }: { curve: Curve | nul
   const unit = unitChoice ?? sheetUnit;
   const parsed = useMemo(() => (text.trim() === '' ? null : parseReferenceCsv(text, compounding, dayCount, unit)), [text, compounding, dayCount, unit]);
   const rows = parsed?.reference && curve ? referenceDifferences(curve, parsed.reference) : [];
-  const opener = useExplainOpener<ReferenceCell>(sameDate);
+  const opener = useExplainOpener<RefCell>(sameDate);
   const reference = parsed?.reference ?? null;
   // The open difference follows the reference as edited since: it names its row by date.
-  const open: ReferenceCell | null = opener.open && reference && rows.some((r) => r.date === opener.open!.reference.date && r.differenceBp !== null) ? { reference: { curve: reference, date: opener.open.reference.date } } : null;
+  const o = opener.open;
+  const open: RefCell | null =
+    o && reference && rows.some((r) => r.date === dateOf(o) && r.differenceBp !== null) ? ('reference' in o ? { reference: { curve: reference, date: o.reference.date } } : { ...o, compounding: reference.compounding, dayCount: reference.dayCount }) : null;
+  /** Our zero rate on `date` in the reference's convention, opening its explanation. */
+  const oursCell = (date: string, zero: number | null) => {
+    const text = formatPercent(zero);
+    if (!explainFrom || !reference || zero === null) return text;
+    const cell: DatedCell = { field: 'zero', start: date, compounding: reference.compounding, dayCount: reference.dayCount };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain our zero rate on ${date}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   const differenceCell = (date: string, bp: number | null) => {
     const text = formatBpChange(bp);
     if (!explainFrom || !reference || bp === null) return text;
@@ -129,7 +146,7 @@ export function ReferenceCurvePanel({ curve, explainFrom }: { curve: Curve | nul
               <tr key={r.date}>
                 <th scope="row">{r.date}</th>
                 <td className="num">{formatPercent(r.referenceZero)}</td>
-                <td className="num">{formatPercent(r.zero)}</td>
+                <td className="num">{oursCell(r.date, r.zero)}</td>
                 <td className="num">{r.note ?? differenceCell(r.date, r.differenceBp)}</td>
               </tr>
             ))}

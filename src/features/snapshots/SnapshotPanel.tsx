@@ -4,6 +4,7 @@ import { validateSnapshots } from '../../core/index.ts';
 import { formatBpChange, formatPercent, rateTag, type Compounding, type Curve, type CurveDayCount, type DisplaySettings } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import type { DifferenceCell } from './explainDifferenceCell.ts';
+import type { DatedCell } from '../tables/explainCell.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 import { EditLock } from '../../components/EditLock.tsx';
 import '../scenarios/scenarios.css';
@@ -27,7 +28,10 @@ export interface SnapshotPanelProps {
   readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
 }
 
-const sameDifference = (a: DifferenceCell, b: DifferenceCell): boolean => a.difference.snapshot === b.difference.snapshot && a.difference.tenor === b.difference.tenor;
+/** A difference, or a zero rate of either curve (a DatedCell; `snapshot` for the snapshot's). */
+type SnapshotCell = DifferenceCell | DatedCell;
+const sameCell = (a: SnapshotCell, b: SnapshotCell): boolean =>
+  'difference' in a ? 'difference' in b && a.difference.snapshot === b.difference.snapshot && a.difference.tenor === b.difference.tenor : !('difference' in b) && a.start === b.start && a.snapshot === b.snapshot;
 
 /** Snapshots: freeze the inputs under a name, rebuild them, and difference the current curve against one. */
 export function SnapshotPanel({ value, onChange, currentDocument, current, now, compounding, dayCount, tenors = COMPARISON_TENORS, by: byProp, onByChange, explainFrom }: SnapshotPanelProps) {
@@ -42,13 +46,25 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
   const other = pick >= 0 ? rebuilt[pick]?.build.curve ?? null : null;
   const rows = current && other ? compareCurves(current, other, tenors, by, compounding, dayCount) : [];
   const tag = rateTag(compounding, dayCount);
-  const opener = useExplainOpener<DifferenceCell>(sameDifference);
+  const opener = useExplainOpener<SnapshotCell>(sameCell);
   const chosenSnapshot = pick >= 0 ? snapshots[pick] : undefined;
   // The open difference follows the table: the snapshot chosen now, the line-up and the convention shown.
-  const open: DifferenceCell | null =
-    opener.open && chosenSnapshot && rows.some((r) => r.tenor === opener.open!.difference.tenor && r.differenceBp !== null)
-      ? { difference: { ...opener.open.difference, snapshot: chosenSnapshot, by, compounding, dayCount } }
-      : null;
+  const o = opener.open;
+  const open: SnapshotCell | null =
+    o === null || !chosenSnapshot ? null
+    : 'difference' in o ? (rows.some((r) => r.tenor === o.difference.tenor && r.differenceBp !== null) ? { difference: { ...o.difference, snapshot: chosenSnapshot, by, compounding, dayCount } } : null)
+    : rows.some((r) => (o.snapshot ? r.otherDate : r.date) === o.start) ? { ...o, ...(o.snapshot ? { snapshot: chosenSnapshot } : {}) } : null;
+  /** A zero rate of the current curve, or with `snapshot` of the snapshot's, opening its explanation (in the display's convention, as the table shows it). */
+  const zeroCell = (date: string, zero: number | null, snapshot?: Snapshot) => {
+    const text = formatPercent(zero);
+    if (!explainFrom || !chosenSnapshot || zero === null) return text;
+    const cell: DatedCell = { field: 'zero', start: date, ...(snapshot ? { snapshot } : {}) };
+    return (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${snapshot ? `${snapshot.name}` : 'current'} zero rate on ${date}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
+        {text}
+      </button>
+    );
+  };
   const differenceCell = (tenor: string, bp: number | null) => {
     const text = formatBpChange(bp);
     if (!explainFrom || !chosenSnapshot || bp === null) return text;
@@ -145,9 +161,9 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
                   <tr key={r.tenor}>
                     <th scope="row">{r.tenor}</th>
                     <td>{r.date}</td>
-                    <td className="num">{formatPercent(r.zero)}</td>
+                    <td className="num">{zeroCell(r.date, r.zero)}</td>
                     <td>{r.otherDate}</td>
-                    <td className="num">{formatPercent(r.otherZero)}</td>
+                    <td className="num">{zeroCell(r.otherDate, r.otherZero, chosenSnapshot)}</td>
                     <td className="num">{differenceCell(r.tenor, r.differenceBp)}</td>
                   </tr>
                 ))}

@@ -24,7 +24,9 @@ import {
   valueUnderEachMethod,
   zeroOn,
   type BuildOptions,
+  type Compounding,
   type Curve,
+  type CurveDayCount,
   type EffectConventions,
   type EffectField,
   type Scenario,
@@ -85,6 +87,9 @@ export interface DatedCell {
   readonly snapshot?: Snapshot;
   /** The reference curve's line: its point as the file gives it (explainReferencePoint); no quotes or methods. */
   readonly refCurve?: ReferenceCurve;
+  /** A zero rate or forward in these conventions instead of the display's (the reference table's, in the reference's). */
+  readonly compounding?: Compounding;
+  readonly dayCount?: CurveDayCount;
   /** ISO date: the discount factor's or zero rate's date, or the forward's start. */
   readonly start: string;
   /** ISO date: the forward's end (unused for a zero rate); a forward without one runs the display's forward tenor. */
@@ -202,7 +207,7 @@ export function explainKeyCell(result: WorkbenchBuild, display: DisplaySettings,
     date = cell.start;
     end = cell.end ?? (cell.field === 'forward' ? marketDate(date, parseTenor(display.forwardTenor) ?? { n: 3, unit: 'M' }) : date);
   }
-  const { compounding: c, dayCount: dc, parFrequency } = display;
+  const { compounding: c, dayCount: dc, parFrequency } = { ...display, ...('tenor' in cell ? {} : cell) };
   const leg = 'tenor' in cell ? undefined : cell.leg;
   // One query for the number on any curve, traced when given a sink (the panel's number is the table's).
   const read = (on: Curve, sink?: ExplanationSink): Result<number> => {
