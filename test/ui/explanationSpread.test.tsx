@@ -111,3 +111,33 @@ describe('explanations in the spread table', () => {
     expect(button).toHaveFocus();
   });
 });
+
+describe('the rates beside the spread', () => {
+  it("each curve's zero rate opens its own explanation, the figure shown to all digits, under each method that curve's rate", async () => {
+    const user = userEvent.setup({ delay: null });
+    const ws = open();
+    const result = deriveBuild(ws);
+    const named = buildWorkbenchCurves(ws, result.build.curve);
+    render(<SpreadView result={result} named={named} />);
+    const d = ws.display;
+    const a = named.curves.find((c) => c.name === 'euribor6m')!.build.curve!;
+    const date = marketDate(a.settlement, parseTenor('5Y')!);
+    const point = curveSpreadAt(a, result.build.curve!, 'zero', [date], d.compounding, d.dayCount, parseTenor(d.forwardTenor)!)[0]!;
+    const table = screen.getByRole('table', { name: 'Spread of euribor6m over default, zero rates' });
+    for (const [name, figure] of [['euribor6m', point.a], ['default', point.b]] as const) {
+      const button = within(table).getByRole('button', { name: new RegExp(`explain the ${name} zero rate at 5Y$`) });
+      await user.click(button);
+      const panel = await screen.findByRole('complementary', { name: new RegExp(`^${name} zero rate at 5Y`) });
+      expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(figure));
+      const steps = within(within(panel).getByRole('region', { name: 'Steps' })).getAllByRole('listitem').map((li) => li.textContent);
+      expect(steps.at(-1)).toContain(`= ${fullText(figure)}`);
+      await user.click(button);
+    }
+    // Under each method: the rate of euribor6m with every curve built under it (the spread's own builder).
+    const model = explainKeyCell(result, d, { spread: { of: 'euribor6m', over: '', measure: 'zero', tenor: '5Y', named, inputs: ws, side: 'of' } });
+    if (!model.ok) throw new Error(model.errors[0]!.message);
+    const current = model.value.methods.find((m) => m.current)!;
+    expect(current.value).toBe(point.a);
+    expect(new Set(model.value.methods.map((m) => m.value)).size).toBeGreaterThan(1);
+  });
+});

@@ -38,6 +38,8 @@ export interface SpreadCell {
     readonly tenor: string;
     readonly named: WorkbenchCurves;
     readonly inputs: WorkbenchCurveInputs;
+    /** One curve's rate beside the spread (the table's `of` or `over` column) instead of the spread. */
+    readonly side?: 'of' | 'over';
   };
 }
 
@@ -75,7 +77,8 @@ export function explainSpreadCell(result: WorkbenchBuild, display: DisplaySettin
   const dc = display.dayCount;
   const r = explainCurveSpread(a.curve, b.curve, names, measure, date, c, dc, tenor, { date: cell.tenor, start: cell.tenor, end: `${display.forwardTenor} after the start` });
   if (!r.ok) return r;
-  const explanation = r.value.explanation;
+  const side = cell.side;
+  const explanation = side ? r.value[side] : r.value.explanation;
   // The quotes behind the spread: each rate against every quote of every curve it reads
   // (topQuoteInfluencesAcrossCurves: a projection curve's rates also move with its discounting
   // curve's quotes), the second's subtracted; a quote both rates read counts once, net.
@@ -83,17 +86,17 @@ export function explainSpreadCell(result: WorkbenchBuild, display: DisplaySettin
   for (const n of named.curves) if (n.build.curve && n.build.errors.length === 0) set.push({ name: n.name, curve: n.build.curve, instruments: n.build.instruments });
   const net = new Map<string, QuoteInfluence & { curve: string }>();
   let influences: Influences = { ok: true, value: [] };
-  for (const [name, part, sign] of [[names.of, a, 1], [names.over, b, -1]] as const) {
+  for (const [name, part, sign] of ([[names.of, a, 1], [names.over, b, -1]] as const).filter((_, k) => !side || k === (side === 'of' ? 0 : 1))) {
     const inf = topQuoteInfluencesAcrossCurves(set, name, measure === 'zero' ? part.curve!.settlement : date, measure === 'zero' ? date : end, c, dc, Infinity);
     if (!inf.ok) influences = inf;
     else for (const q of inf.value) {
       const key = `${q.curve} ${q.index}`;
-      net.set(key, { ...q, bpPerBp: (net.get(key)?.bpPerBp ?? 0) + sign * q.bpPerBp });
+      net.set(key, { ...q, bpPerBp: (net.get(key)?.bpPerBp ?? 0) + (side ? 1 : sign) * q.bpPerBp });
     }
   }
   const quotes = [...net.values()].filter((q) => q.bpPerBp !== 0).sort((x, y) => Math.abs(y.bpPerBp) - Math.abs(x.bpPerBp)).slice(0, 5);
   if (influences.ok) influences = { ok: true, value: quotes };
-  const note = `spread = ${names.of} - ${names.over}: each rate against the quotes of every curve it reads, the ${names.over} rate's sign turned`;
+  const note = side ? `of the ${names[side]} rate, against the quotes of every curve it reads` : `spread = ${names.of} - ${names.over}: each rate against the quotes of every curve it reads, the ${names.over} rate's sign turned`;
   // Every curve built under each method: the default curve as the workbench builds it, the named curves after it;
   // the method's first curve is read with its second beside it.
   const pairs = new Map<Curve, Curve>();
@@ -109,9 +112,10 @@ export function explainSpreadCell(result: WorkbenchBuild, display: DisplaySettin
     },
     (on) => {
       const s = curveSpreadAt(on, pairs.get(on)!, measure, [date], c, dc, tenor)[0];
-      return s ? { ok: true, value: s.bp } : fail(coreError('beyond-curve', 'date', `no spread on ${date}`));
+      return s ? { ok: true, value: side ? s[side === 'of' ? 'a' : 'b'] : s.bp } : fail(coreError('beyond-curve', 'date', `no spread on ${date}`));
     },
   );
-  const title = `Spread of ${names.of} over ${names.over}, ${measure === 'zero' ? 'zero rate' : `${display.forwardTenor} forward`} at ${cell.tenor} (${date})`;
+  const what = `${measure === 'zero' ? 'zero rate' : `${display.forwardTenor} forward`} at ${cell.tenor} (${date})`;
+  const title = side ? `${names[side]} ${what}` : `Spread of ${names.of} over ${names.over}, ${what}`;
   return cellOf(result, title, explanation, influences, note, methods, DEFAULT_NAME);
 }
