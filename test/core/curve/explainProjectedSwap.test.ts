@@ -143,6 +143,31 @@ describe('explainQuoteCheck on a named curve: term-index and basis swaps', () =>
     expect(e.value.yearFractions.map((y) => [y.from, y.to, y.value])).toEqual([['2027-03-10', '2028-03-10', 1], ['2028-03-10', '2029-03-10', 1]]);
   });
 
+  it("the quotes note's claim by bump-and-rebuild: the swap's own quote moves its model rate one for one, a discounting or other-leg quote by 0", () => {
+    // The quote check's explanation lists the quote itself at 1 bp per bp and says the curves it reads move it by 0 (its curve is solved again on them).
+    const bumped = (curve: string, index: number) => {
+      const d = doc('monotone-convex');
+      const up = (qs: readonly Record<string, unknown>[]) => qs.map((q, i) => (i === index ? { ...q, rate: (q.rate as number) + 1e-4 } : q));
+      const moved = curve === 'default' ? { ...d, quotes: up(d.quotes) } : { ...d, curves: d.curves.map((c) => (c.name === curve ? { ...c, quotes: up(c.quotes) } : c)) };
+      const main = buildCurve(moved, { readCurves: readNamedCurves });
+      return buildNamedCurves(main.workspace!, main.curve);
+    };
+    const modelOf = (named: ReturnType<typeof buildNamedCurves>, curve: string, index: number) => named.find((n) => n.name === curve)!.build.repricing.find((r) => r.index === index)!.model;
+    const base = built('monotone-convex').named;
+    // euribor6m's 5Y swap (index 4) and euribor3m's 2Y basis swap (index 2, against euribor6m).
+    for (const [curve, index, others] of [['euribor6m', 4, [['default', 3]]], ['euribor3m', 2, [['default', 3], ['euribor6m', 4]]]] as const) {
+      const own = (modelOf(bumped(curve, index), curve, index) - modelOf(base, curve, index)) / 1e-4;
+      expect(Math.abs(own - 1)).toBeLessThanOrEqual(1e-8);
+      for (const [c, i] of others) {
+        const moved = bumped(c, i);
+        expect(Math.abs((modelOf(moved, curve, index) - modelOf(base, curve, index)) / 1e-4)).toBeLessThanOrEqual(1e-8);
+        // Not vacuous: the bump moves the curve itself.
+        const at = (named: typeof base) => named.find((n) => n.name === curve)!.build.curve!.lnDiscountAt(4.5);
+        expect(Math.abs(at(moved) - at(base))).toBeGreaterThan(1e-7);
+      }
+    }
+  });
+
   it('the traced compile and pricing equal the untraced bit for bit over 400 seeded random swaps', () => {
     const { curves } = built('cubic-zero');
     const random = rng(20261203);
