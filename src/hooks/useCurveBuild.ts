@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { buildCurve, CurveBuilder, type BuildOptions, type CurveBuild, type NamedCurveBuild, type OvernightKit, type Result, type Scenario, type ScenarioCurve } from '../core/index.ts';
+import { buildCurve, CurveBuilder, type BuildOptions, type CurveBuild, type NamedCurveBuild, type OvernightKit, type Result, type Scenario, type ScenarioCurve, type WorkbenchCurveInputs } from '../core/index.ts';
 import { loadedOvernightKit, needsOvernightKit, useOvernightKit, workbenchBuildOptions } from './overnightKit.ts';
 import {
   isQuoteUnitMode,
@@ -40,6 +40,8 @@ export interface WorkbenchBuild {
   readonly fatal: string | null;
   /** The named curve built (shownBuild), absent for the default curve, the sheet's. */
   readonly curveName?: string;
+  /** With a named curve shown: the default curve's build and the named curves' inputs, so an explanation can build every curve again (under another method). */
+  readonly whole?: { readonly base: WorkbenchBuild; readonly inputs: WorkbenchCurveInputs };
   /**
    * With a named curve shown (useNamedCurves): a scenario applied to it on the whole document
    * (applyScenarioOnCurve on the default curve's workspace with the named curves as read, the

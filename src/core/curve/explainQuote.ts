@@ -3,7 +3,7 @@ import { explainedConventions, explainedYearFraction, explainRead, rateSteps, ty
 import { quoteConventionTag } from '../format/conventionTag.ts';
 import { quoteSchedule } from '../input/quoteSchedule.ts';
 import { convexityFillText } from '../input/quoteSchedule.ts';
-import { quoteOnCurve, type Instrument } from '../instruments/instrument.ts';
+import { quoteOnCurve, type Instrument, type ReadSink } from '../instruments/instrument.ts';
 import { modelConvexityBp } from '../instruments/convexity.ts';
 import { FUTURE_BASIS } from '../instruments/future.ts';
 import { quoteConvention } from '../kinds/registry.ts';
@@ -70,7 +70,7 @@ const sum = (terms: readonly string[]): string => (terms.length <= 4 ? terms.joi
  * default; a fit's residuals read its form, fit/explainFit.ts). An error value for a kind whose
  * arithmetic is not traced (the panel then says so) or a curve that gives no number.
  */
-export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: IsoDate, figure: QuoteCheckFigure = 'model', lnAt: (t: number) => number = curve.lnDiscountAt): Result<Explanation> {
+export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: IsoDate, figure: QuoteCheckFigure = 'model', lnAt: (t: number) => number = curve.lnDiscountAt, own = 'this curve'): Result<Explanation> {
   const q = ins.quote;
   const lns: number[] = [];
   const trace: { name: string; value: number }[] = [];
@@ -88,11 +88,16 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
   const labels = flowLabels(ins);
   const cands = candidateDates(q, settlement, curve);
   const dateAt = (t: number): IsoDate | undefined => cands.find((d) => curve.time(d) === t);
+  // An instrument holding values of curves built before it (readsCurves): its compile again with a sink, each value it read there.
+  const across = ins.readsCurves;
+  const far: Parameters<ReadSink>[] = [];
+  ins.retrace?.((...r) => far.push(r));
+  const P = (c: string, d: string): string => `P_${c}(${d})`;
   const dates: ExplainedDate[] = [];
   const reads: ExplainedRead[] = ins.times.map((t, j) => {
-    const d = dateAt(t) ?? settlement;
+    const d = far.filter((r) => r[0] === 'T')[j]?.[3] ?? dateAt(t) ?? settlement;
     dates.push({ name: labels[j]!, given: d, unadjusted: d, adjusted: d, rule: 'as scheduled' });
-    return explainRead(curve, `DF(${labels[j]})`, d, t, lns[j]!);
+    return explainRead(curve, across ? P(own, labels[j]!) : `DF(${labels[j]})`, d, t, lns[j]!);
   });
   const conv = quoteConvention(q);
   const tag = quoteConventionTag(conv);
@@ -104,6 +109,8 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
     steps.push({ name, formula: `${name} = ${formula}`, inputs: inputs.map((i) => i.replace(/^ln DF\(/, 'DF(')), value, unit: u });
   };
   const got = (name: string, k = 0): number => trace.filter((x) => x.name === name)[k]!.value;
+  /** A traced sum of products, each term's factors its inputs. */
+  const sumStep = (name: string, terms: string[][], u?: string): void => step(name, sum(terms.map((t) => t.join(' x '))), terms.flat(), got(name), u);
   const ln = (j: number): string => `ln DF(${labels[j]})`;
   const field = ins.field;
   let formula: string;
@@ -152,7 +159,7 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
     if (!lagged) {
       const n = taus.length;
       formula = `${field} = (1 - DF(T${n})) / A, A = sum tau_i DF(T_i) (one curve: the floating leg is worth 1 - DF(T${n}))`;
-      step('A', sum(taus.map((_, i) => `tau${i + 1} x DF(T${i + 1})`)), taus.flatMap((_, i) => [`tau${i + 1}`, `DF(T${i + 1})`]), got('A'));
+      sumStep('A', taus.map((_, i) => [`tau${i + 1}`, `DF(T${i + 1})`]));
       step('num', `-expm1(ln DF(T${n}))`, [`ln DF(T${n})`], got('num'));
       step('model', 'num / A', ['num', 'A'], model, unit);
     } else {
@@ -160,11 +167,36 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
       const nm = (j: number): string => (j < 0 ? 'DF(settlement)' : `DF(${labels[j]})`);
       formula = `${field} = float / A, float = sum (DF(S_i) / DF(E_i) - 1) DF(P_i) (overnight compounded over each period, start S_i, end E_i, paid P_i), A = sum tau_i DF(P_i)`;
       const terms = taus.map((_, i) => `(${nm(sIdx[i]!)} / ${nm(eIdx[i]!)} - 1) x ${nm(pIdx[i]!)}`);
-      step('A', sum(taus.map((_, i) => `tau${i + 1} x ${nm(pIdx[i]!)}`)), taus.flatMap((_, i) => [`tau${i + 1}`, nm(pIdx[i]!)]), got('A'));
+      sumStep('A', taus.map((_, i) => [`tau${i + 1}`, nm(pIdx[i]!)]));
       step('float', sum(terms), taus.flatMap((_, i) => [nm(sIdx[i]!), nm(eIdx[i]!), nm(pIdx[i]!)]), got('float'));
       step('model', 'float / A', ['float', 'A'], model, unit);
     }
     return formula;
+  }
+  function projected(q: SwapQuote, { discount, other }: NonNullable<Instrument['readsCurves']>): string {
+    // Each value read off the curves built before it, named by role and position on its curve (U_i fixed or spread dates, T_j floating, V_k the other leg's), each with its date.
+    const seen: Record<string, number> = {};
+    let prev = settlement;
+    for (const [role, c, on, d, t, y, tau] of far) {
+      const k = (seen[role + c] = (seen[role + c] ?? 0) + 1);
+      if (tau !== undefined) yfs.push(explainedYearFraction(`tau${k}`, q.dayCount, prev, (prev = d), tau));
+      const r = explainRead(on, P(c, role + k), d, t, y);
+      reads.push({ ...r, nodes: r.nodes.map((x) => ({ ...x, curve: c })) });
+    }
+    const pd = (x: string): string => P(discount, x);
+    // A leg: sum_k w_k x P_discount(role k), its value the instrument's own (traced).
+    const leg = (name: string, role: string, w: (k: number) => string): void => sumStep(name, Array.from({ length: seen[role + discount]! }, (_, i) => [w(i + 1), pd(role + (i + 1))]));
+    const pp = (j: number): string => P(own, `T${j}`);
+    labels.forEach((_, i) => step(`g${i + 1}`, `expm1(ln ${pp(i)} - ln ${pp(i + 1)})`, [pp(i), pp(i + 1)], got('g', i)));
+    leg('float', 'T', (k) => `g${k}`);
+    leg('A', 'U', (k) => `tau${k}`);
+    const v = other === null ? 'float / A' : '(C - float) / A';
+    if (other !== null) {
+      const po = (k: number): string => P(other, `V${k}`);
+      leg('C', 'V', (k) => `(${k > 1 ? po(k - 1) : 1} / ${po(k)} - 1)`);
+    }
+    step('model', v, other === null ? ['float', 'A'] : ['C', 'float', 'A'], model, unit);
+    return `${field} = ${v}, float = sum g_j ${pd('T_j')}, g_j = tau_j F_j the ${own} forward of period j, A = sum tau_i ${pd('U_i')}`;
   }
   // Each kind's steps, by kind (a map, as the schedules are: nothing here switches on a kind's name); each returns the definition.
   const KIND_STEPS: { readonly [K in Quote['kind']]?: (q: Extract<Quote, { kind: K }>) => string } = {
@@ -172,19 +204,15 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
     fra: (q) => moneyMarket(q, q.end),
     zero: (q) => singleFlow(q, false),
     bill: (q) => singleFlow(q, true),
-    swap: (q) => parSwap(q),
+    swap: (q) => (across ? projected(q, across) : parSwap(q)),
     ois: (q) => parSwap(q),
     bond: (q) => {
       const spot = labels[0] === 'settle';
       const idx = ins.amounts.length;
       const flows = Array.from({ length: idx }, (_, j) => j).filter((j) => !spot || j > 0);
       for (const j of flows) step(`CF${j + (spot ? 0 : 1)}`, `flow at ${labels[j]}`, [], ins.amounts[j]!, PRICE_UNIT);
-      const cf = flows.map((j) => `CF${j + (spot ? 0 : 1)} x DF(${labels[j]})`);
-      const pairs = flows.flatMap((j) => [`CF${j + (spot ? 0 : 1)}`, `DF(${labels[j]})`]);
-      if (spot) {
-        step('pv', sum(cf), pairs, got('pv'), PRICE_UNIT);
-        step('dirty', 'pv / DF(settle)', ['pv', 'DF(settle)'], got('dirty'), PRICE_UNIT);
-      } else step('dirty', sum(cf), pairs, got('dirty'), PRICE_UNIT);
+      sumStep(spot ? 'pv' : 'dirty', flows.map((j) => [`CF${j + (spot ? 0 : 1)}`, `DF(${labels[j]})`]), PRICE_UNIT);
+      if (spot) step('dirty', 'pv / DF(settle)', ['pv', 'DF(settle)'], got('dirty'), PRICE_UNIT);
       const accrued = rec.accrued as number;
       step('accrued', `100 c x accrual fraction (${q.dayCount})`, [], accrued, PRICE_UNIT);
       if (ins.unit === 'price') {
@@ -204,7 +232,7 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
         const prev = parYieldSchedule(q, settlement).previousIso;
         formula = `par yield = (1 - DF(T${n})) / ((1/${f}) sum DF(T_k) - a), a = accrued fraction of a year (coupon = par yield, clean price 100)`;
         step('a', `year fraction ${prev} to ${settlement} (${q.dayCount})`, [], rec.accrualFraction as number);
-        step('sum', sum(labels.map((l) => `DF(${l})`)), labels.map((l) => `DF(${l})`), got('sum'));
+        sumStep('sum', labels.map((l) => [`DF(${l})`]));
         step('den', `sum / ${f} - a`, ['sum', 'a'], got('den'));
         step('num', `1 - DF(T${n})`, [`DF(T${n})`], got('num'));
         step('model', 'num / den', ['num', 'den'], model, unit);
@@ -265,7 +293,7 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
           step(`w${i + 1}`, 'days at its rate', [], w, 'days');
           step(`r${i + 1}`, `expm1(${ln(i)} - ${ln(i + 1)}) x ${FUTURE_BASIS} / n${i + 1}`, [ln(i), ln(i + 1), `n${i + 1}`], got('r', i), ACT360);
         });
-        step('sum', `${knownSum !== 0 ? 'known + ' : ''}${sum(weights.map((_, i) => `w${i + 1} x r${i + 1}`))}`, [...(knownSum !== 0 ? ['known'] : []), ...weights.flatMap((_, i) => [`w${i + 1}`, `r${i + 1}`])], got('sum'), 'days');
+        sumStep('sum', [...(knownSum !== 0 ? [['known']] : []), ...weights.map((_, i) => [`w${i + 1}`, `r${i + 1}`])], 'days');
         step('R', `sum / ${days}`, ['sum'], got('R'), ACT360);
       }
       step('model', '100 (1 - R - CA / 10,000)', ['R', 'CA'], model, unit);

@@ -1,3 +1,4 @@
+import type { Curve } from '../curve/curve.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { Quote, QuoteKind } from '../document/types.ts';
 
@@ -94,7 +95,24 @@ export interface Instrument {
    * where the difference of two discount factors near 1 loses the digits a 1e-14 repricing needs).
    */
   residualFromFlows?(ln: ArrayLike<number>, df: ArrayLike<number>, offset: number): number;
+  /**
+   * Optional: the curves built before it whose values it holds as constants, by name (a term-index
+   * or basis swap on a projection curve, instruments/projectedSwap.ts: its discounting curve and a
+   * basis swap's other leg's curve). Absent for an instrument that reads only the curve it is solved
+   * on. Explanations branch on it (curve/explainQuote.ts).
+   */
+  readonly readsCurves?: { readonly discount: CurveId; readonly other: CurveId | null };
+  /** With `readsCurves`: the instrument compiled again, each value it reads off those curves handed to `sink`. */
+  retrace?(sink: ReadSink): void;
 }
+
+/**
+ * Receives each discount factor an instrument's compile reads off a curve built before it: the
+ * date's role (`U` a fixed or spread leg date, `T` a floating date, `V` a basis swap's other-leg
+ * date), the curve's name and the curve, the date, t on that curve's clock, ln DF there, and a
+ * fixed or spread date's year fraction `tau` (from the previous date).
+ */
+export type ReadSink = (name: string, curveName: CurveId, curve: Curve, date: IsoDate, t: number, ln: number, tau?: number) => void;
 
 /**
  * Receives a model quote's own intermediate values by name, in the order `quoteFromFlows` computes

@@ -2,11 +2,20 @@ import type { Curve } from '../curve/curve.ts';
 import type { SwapQuote } from '../document/types.ts';
 import { isoFromCivil, type CivilDate } from '../time/date.ts';
 import { backwardScheduleCivil } from '../time/schedule.ts';
-import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument } from './instrument.ts';
+import { CompiledInstrument, DISCOUNTING_AND_PROJECTING, type Instrument, type QuoteTrace, type ReadSink } from './instrument.ts';
 import { fixedLegCivil } from './swap.ts';
 
-/** Discount factor of a built curve at a date (on that curve's own clock). */
-const discountOn = (curve: Curve, d: CivilDate): number => Math.exp(curve.lnDiscountAt(curve.time(isoFromCivil(d))));
+/** Discount factor of a built curve at a date (on that curve's own clock), handed to `sink` as date `name` on the curve `on` (with a fixed or spread date's `tau`). */
+const discountOn = (curve: Curve, d: CivilDate, sink?: ReadSink, name?: string, on?: string, tau?: number): number => {
+  const iso = isoFromCivil(d);
+  const t = curve.time(iso);
+  const ln = curve.lnDiscountAt(t);
+  sink?.(name!, on!, curve, iso, t, ln, tau);
+  return Math.exp(ln);
+};
+
+/** What `compile` was given after the quote, kept so the swap can be compiled again with a sink (`retrace`). */
+type CompileArgs = [CivilDate, CivilDate, (d: CivilDate) => number, Curve, string, number, BasisLeg | undefined];
 
 /**
  * Where a projected swap's constants were read on the curves built before it, kept for the
@@ -79,8 +88,19 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     readonly side: 1 | -1,
     /** Where the constants were read on the curves built before (for `upstreamSlopes`). */
     readonly reads: UpstreamReads,
+    private readonly args: CompileArgs,
   ) {
     super(q, t, times, 'rate', 'rate', rate, new Array<number>(times.length).fill(0), 1, null, DISCOUNTING_AND_PROJECTING);
+  }
+
+  /** The curves built before it whose values it holds (its discounting curve, a basis swap's other leg's curve), by name. */
+  get readsCurves(): { readonly discount: string; readonly other: string | null } {
+    return { discount: this.discountedOn, other: this.reads.other?.name ?? null };
+  }
+
+  /** Compiles this swap again with `sink`, which receives each value `compile` reads off the curves built before it. */
+  retrace(sink: ReadSink): void {
+    ProjectedSwap.compile(this.quote, ...this.args, sink);
   }
 
   /**
@@ -88,7 +108,7 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
    * `indexPerYear` a year. `time` is the projection curve's clock. Null when a payment date lies
    * beyond the discounting curve and that curve does not extrapolate (the date is returned).
    */
-  static compile(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, time: (d: CivilDate) => number, discount: Curve, discountedOn: string, indexPerYear: number, basis?: BasisLeg): ProjectedSwap | { beyond: string; curve: string } {
+  static compile(q: SwapQuote, settlement: CivilDate, maturity: CivilDate, time: (d: CivilDate) => number, discount: Curve, discountedOn: string, indexPerYear: number, basis?: BasisLeg, sink?: ReadSink): ProjectedSwap | { beyond: string; curve: string } {
     const end = isoFromCivil(maturity);
     for (const [c, name] of [[discount, discountedOn], ...(basis ? [[basis.curve, basis.name] as const] : [])] as const) {
       if (c.extrapolation === 'none' && c.time(end) > c.lastT) return { beyond: end, curve: name };
@@ -100,7 +120,7 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     let annuity = 0;
     const annuityReads = { t: fixed.dates.map(onDiscount), tauDf: [] as number[] };
     for (let i = 0; i < fixed.dates.length; i++) {
-      const tauDf = fixed.taus[i]! * discountOn(discount, fixed.dates[i]!);
+      const tauDf = fixed.taus[i]! * discountOn(discount, fixed.dates[i]!, sink, 'U', discountedOn, fixed.taus[i]);
       annuityReads.tauDf.push(tauDf);
       annuity += tauDf;
     }
@@ -110,9 +130,11 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
       let prev = 0;
       const o = { name: basis.name, t: [] as number[], tDiscount: [] as number[], growth: [] as number[], df: [] as number[] };
       for (const d of backwardScheduleCivil(settlement, maturity, basis.perYear, q.eom).dates) {
-        const t = basis.curve.time(isoFromCivil(d));
+        const iso = isoFromCivil(d);
+        const t = basis.curve.time(iso);
         const ln = basis.curve.lnDiscountAt(t);
-        const df = discountOn(discount, d);
+        sink?.('V', basis.name, basis.curve, iso, t, ln);
+        const df = discountOn(discount, d, sink, 'V', discountedOn);
         otherLeg += Math.expm1(prev - ln) * df;
         o.t.push(t), o.tDiscount.push(onDiscount(d)), o.growth.push(Math.exp(prev - ln)), o.df.push(df);
         prev = ln;
@@ -120,21 +142,24 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
       other = o;
     }
     const times = floating.map(time);
-    const weights = floating.map((d) => discountOn(discount, d));
+    const weights = floating.map((d) => discountOn(discount, d, sink, 'T', discountedOn));
     const reads: UpstreamReads = { annuity: annuityReads, floating: floating.map(onDiscount), other };
-    return new ProjectedSwap(q, times[times.length - 1]!, times, weights, annuity, q.rate, discountedOn, otherLeg, basis ? -1 : 1, reads);
+    return new ProjectedSwap(q, times[times.length - 1]!, times, weights, annuity, q.rate, discountedOn, otherLeg, basis ? -1 : 1, reads, [settlement, maturity, time, discount, discountedOn, indexPerYear, basis]);
   }
 
-  /** The floating leg sum_j (P_p(T_{j-1}) / P_p(T_j) - 1) w_j, each growth as expm1 of the ln DF difference (P_p(T_0) = 1 at the valuation date). */
-  floatingLeg(ln: ArrayLike<number>, offset: number): number {
+  /** The floating leg sum_j (P_p(T_{j-1}) / P_p(T_j) - 1) w_j, each growth as expm1 of the ln DF difference (P_p(T_0) = 1 at the valuation date); each growth `g` and the leg `float` to `trace`. */
+  floatingLeg(ln: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
     const { weights } = this;
     let float = 0;
     let prev = 0;
     for (let j = 0; j < weights.length; j++) {
       const cur = ln[offset + j]!;
-      float += Math.expm1(prev - cur) * weights[j]!;
+      const g = Math.expm1(prev - cur);
+      trace?.('g', g);
+      float += g * weights[j]!;
       prev = cur;
     }
+    trace?.('float', float);
     return float;
   }
 
@@ -162,13 +187,16 @@ export class ProjectedSwap extends CompiledInstrument<SwapQuote> {
     }
   }
 
-  /** S = floating leg / A, or K = (C - floating leg) / A_s. */
-  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number): number {
-    return this.side === 1 ? this.floatingLeg(ln, offset) / this.annuity : (this.otherLeg - this.floatingLeg(ln, offset)) / this.annuity;
+  /** S = floating leg / A, or K = (C - floating leg) / A_s; the growths, the leg, A and C to `trace`. */
+  quoteFromFlows(ln: ArrayLike<number>, _df: ArrayLike<number>, offset: number, trace?: QuoteTrace): number {
+    const float = this.floatingLeg(ln, offset, trace);
+    trace?.('A', this.annuity);
+    trace?.('C', this.otherLeg);
+    return this.side === 1 ? float / this.annuity : (this.otherLeg - float) / this.annuity;
   }
 
   requote(value: number): Instrument {
-    return new ProjectedSwap(this.quote, this.t, this.times, this.weights, this.annuity, value, this.discountedOn, this.otherLeg, this.side, this.reads);
+    return new ProjectedSwap(this.quote, this.t, this.times, this.weights, this.annuity, value, this.discountedOn, this.otherLeg, this.side, this.reads, this.args);
   }
 
   /**

@@ -46,7 +46,7 @@ export interface SpreadCell {
 const label = (name: string): string => (name === '' ? DEFAULT_NAME : name);
 
 /** The document's named curves with every one set to interpolate by `method`. */
-function inputsUnder(inputs: WorkbenchCurveInputs, method: InterpolationId): WorkbenchCurveInputs {
+export function inputsUnder(inputs: WorkbenchCurveInputs, method: InterpolationId): WorkbenchCurveInputs {
   const curves = inputs.curves?.map((c) => (isPlainObject(c) ? { ...c, curve: { ...(isPlainObject(c.curve) ? c.curve : {}), interpolation: method } } : c));
   return { ...inputs, curves };
 }

@@ -35,6 +35,7 @@ export function shownBuild(result: WorkbenchBuild, named: WorkbenchCurves, doc: 
     invalidCount: n.build.leftOut.length,
     disabledCount: 0,
     curveName: n.name,
+    whole: { base: result, inputs: doc },
     fatal: n.build.curve ? null : n.build.errors[0]?.message ?? `the curve "${n.name}" did not build`,
   };
 }
