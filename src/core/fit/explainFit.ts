@@ -102,11 +102,11 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
       steps: qs,
     });
   }
-  // The form's steps of each read: y(t) and ln DF = -y t + ln J; past T flat-forward from T, as the fitted curve.
-  const form = (reads: readonly ExplainedRead[]): boolean => {
+  // The form's steps of each read: y(t) and ln DF = -y t + ln J (fitCurve's lnFit, which its residuals read); on the fitted curve (`flat`) flat-forward past T.
+  const form = (reads: readonly ExplainedRead[], flat?: boolean): boolean => {
     for (const r of reads) {
       const t = r.t;
-      const past = t > T;
+      const past = flat && t > T;
       const u = past ? T : t;
       const j = turnLn(trace.turns, u);
       const lnU = u <= 0 ? 0 : -parametricZero(p, u) * u + j;
@@ -126,7 +126,7 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
     const z = explained((sink) => zeroOn(fit.curve, at.date, at.compounding, at.dayCount, 'date', sink));
     if (!z.ok) return z;
     const e = z.value.explanation;
-    if (!form(e.reads)) return notShown();
+    if (!form(e.reads, true)) return notShown();
     steps.push(...e.steps);
     return ok({ ...e, quantity: 'fit-figure', formula: `${formForm} The zero rate: ${e.formula}`, reads: relabel(e.reads), steps });
   }
