@@ -46,9 +46,9 @@ const notShown = () => fail(coreError('schema', 'index', 'not the figure shown')
  * sample) with the form's steps before its read. A parameter or the RMS: each included quote's
  * weight and fitted-measure residual (fittedResidual), the objective S = sum (sqrt(w) r)^2 as the
  * least squares sums it; a parameter is then the minimiser, with checks of what it means, and the
- * RMS sqrt(S / sum w) x 10,000. Each ends in the figure shown bit for bit. `name` names a quote.
+ * RMS sqrt(S / sum w) x 10,000. Each ends in the figure shown bit for bit. `name` names a quote (default its index).
  */
-export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['trace']>, index: number, figure: FitFigure, at?: FitZeroAt, name: (index: number) => string = (i) => `quotes[${i}]`): Result<Explanation> {
+export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['trace']>, index: number, figure: FitFigure, at?: FitZeroAt, name: (index: number) => string = String): Result<Explanation> {
   const p = fit.params;
   const sv = p.tau2 !== null;
   const pu = 'decimal per year (continuous)';
@@ -115,7 +115,7 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
       const at = past ? 'T' : r.name.slice(3, -1);
       if (!steps.some((s) => s.name === `y(${at})`)) {
         steps.push(yAt(at, u, past ? [] : [r.name]), st(`ln DF(${at})`, `-y(${at}) x t${j === 0 ? '' : ` + ln J(t), the turns' jump ${j}`}`, [`y(${at})`], lnU, LN));
-        if (past) steps.push(st('f(T)', `the fit's forward at T = ${T}, the longest fitted maturity`, params, f, pu));
+        if (past) steps.push(st('f(T)', `the form's forward at T = ${T}`, params, f, pu));
       }
       if (past) steps.push(st(`ln ${r.name}`, 'ln DF(T) - f(T) (t - T)', ['ln DF(T)', 'f(T)', r.name], r.lnDiscount, LN));
     }

@@ -44,6 +44,6 @@ export function explainFitCell(result: WorkbenchBuild, cell: FitCell['fit']): Re
   if (!r.ok) return r;
   const title = `${TITLE[f] ?? `Fitted ${f}`}${cell.index >= 0 ? ` of ${rowOf(cell.index)}` : at ? ` on ${at.date}` : ''}`;
   // A fitted figure has no bp-per-bp sensitivity short of fitting again per quote; its steps give each quote's weight and residual.
-  const note = `none${cell.index < 0 && !at ? ' by bp per bp: it moves with every quote through the whole fit (the steps give each weight and residual)' : ': a fit is not exact'}; no value under other interpolation methods: a parametric form interpolates nothing`;
+  const note = `none${cell.index < 0 && !at ? ' by bp per bp: it moves with every quote through the whole fit' : ': a fit is not exact'}; no value under other interpolation methods: a parametric form interpolates nothing`;
   return cellOf(result, title, r.value, { ok: true, value: [] }, note, []);
 }

@@ -128,7 +128,7 @@ describe('explainFitFigure: residual per 100 face, parameters, RMS and the fit l
         // (market - model price) / (dollar duration), the duration -dP/dy at the market yield.
         const o = trace.observations.find((x) => x.ins.index === row.index)!;
         const res = errors === 'yield' ? row.modelYield - row.marketYield : -(row.residualPrice / o.per100) / o.dollarDuration;
-        const k = `quotes[${row.index}]`;
+        const k = `${row.index}`;
         expect(rel(val(e, `r(${k})`), res), k).toBeLessThanOrEqual(1e-15);
         expect(val(e, `w(${k})`)).toBe(row.weight);
         S += row.weight * res * res;
@@ -139,7 +139,7 @@ describe('explainFitFigure: residual per 100 face, parameters, RMS and the fit l
       expect(rel(Math.sqrt(S / W) * 1e4, fit.rmsBp)).toBeLessThanOrEqual(1e-15);
       // Against the shown steps alone, summed as written: sum (sqrt(w) r)^2.
       let shown = 0;
-      for (const row of included) shown += (Math.sqrt(val(e, `w(quotes[${row.index}])`)) * val(e, `r(quotes[${row.index}])`)) ** 2;
+      for (const row of included) shown += (Math.sqrt(val(e, `w(${row.index})`)) * val(e, `r(${row.index})`)) ** 2;
       expect(Object.is(Math.sqrt(shown / val(e, 'W')) * 1e4, e.value)).toBe(true);
     });
 
