@@ -11,7 +11,7 @@
 // quote is left out and two weighted, so the fit's line runs past its last fitted maturity (flat
 // forward there, as every curve; the left-out quote's residual reads the form itself, as fitCurve's
 // residuals do) and the weights enter the objective.
-import { buildCurve, explainFitFigure, fitCurve, HUMP_PEAK, sampleGrid, zeroSamples, type Explanation, type FitErrors, type FitModel, type FitSink } from '../../../src/core/index.ts';
+import { buildCurve, explainFitFigure, fitCurve, HUMP_PEAK, OVERNIGHT_KIT, sampleGrid, zeroOn, zeroSamples, type Explanation, type FitErrors, type FitModel, type FitSink } from '../../../src/core/index.ts';
 import { workspaceDoc } from '../../helpers/markets.ts';
 import { rel } from '../../helpers/quoteCheckRecompute.ts';
 
@@ -203,4 +203,39 @@ describe('explainFitFigure: residual per 100 face, parameters, RMS and the fit l
       expect(past).toBeGreaterThan(0);
     });
   }
+});
+
+// With a year-end turn (the market of fitTurns.test.ts: deposits made from a Nelson-Siegel form
+// times a 25 bp turn over 2027-12-31 to 2028-01-03, ACT/360 money market; invented), the fit line's
+// zero carries the turn's jump: ln DF = -y(t) t - s d(t) / 360, d(t) the turn's days before the
+// date (DF = DF_smooth exp(-s d / 360), Ametrano and Bianchetti 2013, section 4.8, as the project's
+// conventions notes state it), the jump written out here by hand.
+describe("explainFitFigure: the fit line's zero across a turn", () => {
+  it('is zeroOn on the fitted curve bit for bit, its ln DF the form plus the hand-made jump to 1e-15', () => {
+    const VAL = '2027-06-15';
+    const DAY = 86_400_000;
+    const days = (a: string, b: string) => (Date.parse(b) - Date.parse(a)) / DAY;
+    const maturities = ['2027-07-15', '2027-09-15', '2027-12-15', '2028-01-18', '2028-03-15', '2028-06-15', '2029-06-15', '2030-06-15', '2032-06-15', '2035-06-15'];
+    const quotes = maturities.map((m, i) => ({ kind: 'deposit', maturity: m, rate: 0.035 + 0.001 * Math.sqrt(i) }));
+    const doc = { format: 'tenorscope-workspace', version: 2, valuationDate: VAL, curve: { dayCount: 'ACT/365F', interpolation: 'monotone-convex' }, quotes, turns: [{ name: 'year end 2027', from: '2027-12-31', to: '2027-12-31', calendar: 'weekends', spreadBp: 25 }] };
+    const b = buildCurve(doc, { overnight: OVERNIGHT_KIT });
+    expect(b.errors).toEqual([]);
+    const sink: FitSink = {};
+    const made = fitCurve(b.workspace!, { model: 'nelson-siegel', turns: b.overnight!.turns }, sink);
+    if (!made.ok) throw new Error(made.errors[0]!.message);
+    const c = made.value.curve;
+    for (const date of ['2027-12-31', '2028-01-01', '2028-01-03', '2028-02-01', '2031-06-15']) {
+      const r = explainFitFigure(made.value, sink.trace!, -1, 'zero', { date, compounding: 'continuous', dayCount: 'ACT/365F' });
+      if (!r.ok) throw new Error(`${date}: ${r.errors[0]!.message}`);
+      const e = r.value;
+      const z = zeroOn(c, date, 'continuous', 'ACT/365F');
+      if (!z.ok) throw new Error('zero');
+      expect(Object.is(e.value, z.value.zero), date).toBe(true);
+      const t = e.reads[0]!.t;
+      const turnDays = Math.min(3, Math.max(0, days('2027-12-31', date)));
+      const ln = -form(e).zero(t) * t - (25e-4 * turnDays) / 360;
+      expect(rel(ln, e.reads[0]!.lnDiscount), date).toBeLessThanOrEqual(1e-15);
+      expect(rel(-ln / t, e.value), date).toBeLessThanOrEqual(1e-15);
+    }
+  });
 });
