@@ -1,91 +1,182 @@
 import { explainQuoteCheck } from '../curve/explainQuote.ts';
-import type { ExplainedStep, Explanation } from '../curve/explain.ts';
-import { turnLn } from '../bootstrap/turns.ts';
+import { explained, explainedConventions, type ExplainedRead, type ExplainedStep, type Explanation } from '../curve/explain.ts';
+import { zeroOn } from '../curve/query.ts';
+import { turnForward, turnLn } from '../bootstrap/turns.ts';
 import { presentValue, targetOnCurve } from '../instruments/instrument.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
-import type { FitResult, FitSink } from './fitCurve.ts';
-import { curvatureLoading, FIT_MODEL_LABEL, parametricZero, slopeLoading } from './parametricForm.ts';
+import type { Compounding } from '../rates/compounding.ts';
+import type { IsoDate } from '../time/date.ts';
+import type { CurveDayCount } from '../time/dayCount.ts';
+import { fittedResidual, type FitResult, type FitSink } from './fitCurve.ts';
+import { BETA_BOUND, curvatureLoading, FIT_MODEL_LABEL, parametricForward, parametricZero, slopeLoading, TAU_MAX, TAU_MIN } from './parametricForm.ts';
 
+/** A fitted parameter of the form. */
+export type FitParam = 'b0' | 'b1' | 'b2' | 'b3' | 'tau1' | 'tau2';
 
 /**
- * A figure of the fit's residual table: a quote's model yield on the fitted curve, or its residual
- * in bp (also the rich/cheap list's yield column); or the rich/cheap list's market minus model price.
+ * A figure of the fit: a quote's model yield, its residual in bp (also the rich/cheap list's yield
+ * column) or per 100 face (`price`), the rich/cheap list's market minus model price; a parameter or
+ * the weighted RMS error; the fitted zero rate at a date (`zero`, the charts' fit line).
  */
-export type FitFigure = 'yield' | 'residual' | 'richness';
+export type FitFigure = 'yield' | 'residual' | 'richness' | 'price' | 'zero' | 'rms' | FitParam;
+
+/** Where a zero of the fit line is read: its date and the chart's compounding and day count. */
+export interface FitZeroAt {
+  readonly date: IsoDate;
+  readonly compounding: Compounding;
+  readonly dayCount: CurveDayCount;
+}
 
 const PER100 = 'per 100 face';
+/** x at which L2(x) = L1(x) - e^-x peaks: the root of e^-x (1 + x + x^2) = 1. */
+export const HUMP_PEAK = 1.7932821329007618;
+const notShown = () => fail(coreError('schema', 'index', 'not the figure shown'));
 
 /**
- * Explains a quote's model yield on the fitted curve (the residual table's 'Model yield') or its
+ * Explains a figure of the fit. A quote's model yield (the residual table's 'Model yield') or its
  * residual (model minus market yield, bp): the fitted parameters (inputs: they come from the
  * weighted least squares, not from a formula), at each flow time the form's zero rate
  * y(t) = b0 + b1 L1(t/tau1) + b2 L2(t/tau1) (+ b3 L2(t/tau2)), L1(x) = (1 - e^-x)/x,
  * L2(x) = L1(x) - e^-x (Nelson and Siegel 1987; Svensson 1994) and ln DF = -y t (plus the turns'
- * ln J), then the quote priced on those values by its own quoteFromFlows (explainQuoteCheck with
- * the fit's ln DF, the very function fitCurve's residuals read, from its `FitSink`), its own yield,
- * and the residual, each the table's figure bit for bit.
+ * ln J; past the last fitted maturity T flat-forward at the form's f(T), as the fitted curve is),
+ * then the quote priced on those values by its own quoteFromFlows (explainQuoteCheck with the fit's
+ * ln DF, the very function fitCurve's residuals read, from its `FitSink`), its own yield, and the
+ * residual. Its residual per 100 face and richness: presentValue and targetOnCurve on that ln DF,
+ * as fitCurve calls them. A zero of the fit line: zeroOn on the fitted curve (what the charts
+ * sample) with the form's steps before its read. A parameter or the RMS: each included quote's
+ * weight and fitted-measure residual (fittedResidual), the objective S = sum (sqrt(w) r)^2 as the
+ * least squares sums it; a parameter is then the minimiser, with checks of what it means, and the
+ * RMS sqrt(S / sum w) x 10,000. Each ends in the figure shown bit for bit. `name` names a quote (default its index).
  */
-export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['trace']>, index: number, figure: FitFigure): Result<Explanation> {
+export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['trace']>, index: number, figure: FitFigure, at?: FitZeroAt, name: (index: number) => string = String): Result<Explanation> {
+  const p = fit.params;
+  const sv = p.tau2 !== null;
+  const pu = 'decimal per year (continuous)';
+  const LN = 'natural log of a discount factor';
+  const params = ['b0', 'b1', 'b2', ...(sv ? ['b3', 'tau1', 'tau2'] : ['tau1'])];
+  const steps: ExplainedStep[] = params.map((b) => st(b, 'fitted', [], p[b as 'b0']!, b[0] === 't' ? 'years' : pu));
+  const label = FIT_MODEL_LABEL[fit.model];
+  const formForm = `${label} fit: y(t) = b0 + b1 L1(t/tau1) + b2 L2(t/tau1)${sv ? ' + b3 L2(t/tau2)' : ''}, L1(x) = (1 - e^-x)/x, L2(x) = L1(x) - e^-x, ln DF(t) = -y(t) t; parameters from weighted least squares of the ${fit.errors} errors (Levenberg-Marquardt).`;
+  const yAt = (at: string, t: number, inputs: string[]): ExplainedStep => {
+    const l = (x: number): string => `L1 = ${slopeLoading(x)}, L2 = ${curvatureLoading(x)}`;
+    return st(`y(${at})`, `b0 + b1 L1(x) + b2 L2(x)${sv ? ' + b3 L2(x2)' : ''}, x = t/tau1 (${l(t / p.tau1)})${sv ? `, x2 = t/tau2 (${l(t / p.tau2!)})` : ''}`, [...params, ...inputs], parametricZero(p, t), pu);
+  };
+  const T = fit.curve.lastT;
+  if (figure === 'rms' || params.includes(figure)) {
+    // The objective as fitCurve hands it to levenbergMarquardt: sqrt(w) x the fitted-measure residual, squared and summed in order.
+    const qs: ExplainedStep[] = [];
+    let S = 0;
+    let W = 0;
+    for (const o of trace.observations) {
+      if (!o.included) continue;
+      const k = name(o.ins.index);
+      const r = fittedResidual(o, fit.errors, trace.ln);
+      const e = Math.sqrt(o.weight) * r;
+      S += e * e;
+      W += o.weight;
+      qs.push(st(`w(${k})`, 'weight', [], o.weight, 'unitless'), st(`r(${k})`, fit.errors === 'yield' ? 'model - market yield' : '(target - model price) / dollar duration', [], r, 'decimal'));
+    }
+    const all = qs.map((q) => q.name);
+    qs.push(st('S', 'sum (sqrt(w) r)^2, minimised', all, S, 'decimal^2'));
+    const own = steps.find((s) => s.name === figure);
+    let value = Math.sqrt(S / W) * 1e4;
+    if (own) {
+      value = own.value;
+      const argmin = (s: ExplainedStep): ExplainedStep => ({ ...s, formula: `${s.name} = argmin S (${fit.iterations} iterations, ${fit.stopReason}${fit.converged ? '' : ', not converged'})` });
+      qs.push(...steps.filter((s) => s !== own).map(argmin), yAt('T', T, []), st('y(0+)', 'b0 + b1', ['b0', 'b1'], p.b0 + p.b1, pu), argmin(own));
+    } else {
+      if (!Object.is(value, fit.rmsBp)) return notShown();
+      qs.push(st('W', 'sum w', all.filter((n) => n[0] === 'w'), W, 'unitless'), st('RMS', 'sqrt(S / W) x 10,000', ['S', 'W'], value, 'bp'));
+    }
+    const tau = /2/.test(figure) ? 'tau2' : 'tau1';
+    const means = figure === 'b0' ? 'y(t) -> b0 as t -> infinity' : figure === 'b1' ? 'y(0+) = b0 + b1' : `L2(t/${tau}) peaks at t = ${HUMP_PEAK} ${tau} = ${HUMP_PEAK * p[tau]!} years`;
+    return ok({
+      quantity: 'fit-figure',
+      conventions: explainedConventions(fit.curve, null, null),
+      dates: [],
+      yearFractions: [],
+      reads: [],
+      formula: `${formForm} ${own ? `${figure}: ${means}; T = ${T}, the longest fitted maturity; bounds |b| <= ${BETA_BOUND}, ${TAU_MIN} <= tau <= ${TAU_MAX}${fit.atBounds.length ? `; on a bound: ${fit.atBounds.join(', ')}` : ''}` : 'RMS = sqrt(S / W) x 10,000'}`,
+      value,
+      unit: own ? own.unit : 'bp',
+      steps: qs,
+    });
+  }
+  // The form's steps of each read: y(t) and ln DF = -y t + ln J (fitCurve's lnFit, which its residuals read); on the fitted curve (`flat`) flat-forward past T.
+  const form = (reads: readonly ExplainedRead[], flat?: boolean): boolean => {
+    for (const r of reads) {
+      const t = r.t;
+      const past = flat && t > T;
+      const u = past ? T : t;
+      const j = turnLn(trace.turns, u);
+      const lnU = u <= 0 ? 0 : -parametricZero(p, u) * u + j;
+      const f = parametricForward(p, T) + turnForward(trace.turns, T);
+      if (!Object.is(past ? lnU - f * (t - T) : lnU, r.lnDiscount)) return false;
+      const at = past ? 'T' : r.name.slice(3, -1);
+      if (!steps.some((s) => s.name === `y(${at})`)) {
+        steps.push(yAt(at, u, past ? [] : [r.name]), st(`ln DF(${at})`, `-y(${at}) x t${j === 0 ? '' : ` + ln J(t), the turns' jump ${j}`}`, [`y(${at})`], lnU, LN));
+        if (past) steps.push(st('f(T)', `the form's forward at T = ${T}`, params, f, pu));
+      }
+      if (past) steps.push(st(`ln ${r.name}`, 'ln DF(T) - f(T) (t - T)', ['ln DF(T)', 'f(T)', r.name], r.lnDiscount, LN));
+    }
+    return true;
+  };
+  const relabel = (reads: readonly ExplainedRead[]) => reads.map((r) => ({ ...r, formula: `${label} form` }));
+  if (figure === 'zero' && at) {
+    const z = explained((sink) => zeroOn(fit.curve, at.date, at.compounding, at.dayCount, 'date', sink));
+    if (!z.ok) return z;
+    const e = z.value.explanation;
+    if (!form(e.reads, true)) return notShown();
+    steps.push(...e.steps);
+    return ok({ ...e, quantity: 'fit-figure', formula: `${formForm} The zero rate: ${e.formula}`, reads: relabel(e.reads), steps });
+  }
   const o = trace.observations.find((x) => x.ins.index === index);
   const row = fit.residuals.find((r) => r.index === index);
   if (!o || !row) return fail(coreError('schema', 'index', 'this quote is not in the fit'));
   const q = explainQuoteCheck(fit.curve, o.ins, fit.curve.settlement, 'model', trace.ln);
   if (!q.ok) return q;
   const e = q.value;
-  const p = fit.params;
-  const sv = p.tau2 !== null;
-  const pu = 'decimal per year (continuous)';
-  const steps: ExplainedStep[] = ['b0', 'b1', 'b2', ...(sv ? ['b3'] : [])].map((b) => ({ name: b, formula: `${b} = fitted`, inputs: [], value: p[b as 'b0'], unit: pu }));
-  steps.push({ name: 'tau1', formula: 'tau1 = fitted', inputs: [], value: p.tau1, unit: 'years' });
-  if (sv) steps.push({ name: 'tau2', formula: 'tau2 = fitted', inputs: [], value: p.tau2!, unit: 'years' });
-  const params = steps.map((s) => s.name);
-  for (const r of e.reads) {
-    const t = r.t;
-    const y = parametricZero(p, t);
-    const j = turnLn(trace.turns, t);
-    if (!Object.is(t <= 0 ? 0 : -y * t + j, r.lnDiscount)) return fail(coreError('schema', 'index', 'not on the form'));
-    const l = (x: number): string => `L1 = ${slopeLoading(x)}, L2 = ${curvatureLoading(x)}`;
-    const at = r.name.slice(3, -1);
-    steps.push({ name: `y(${at})`, formula: `y(${at}) = b0 + b1 L1(x) + b2 L2(x)${sv ? ' + b3 L2(x2)' : ''}, x = t/tau1 (${l(t / p.tau1)})${sv ? `, x2 = t/tau2 (${l(t / p.tau2!)})` : ''}`, inputs: [...params, r.name], value: y, unit: pu });
-    steps.push({ name: `ln ${r.name}`, formula: `ln ${r.name} = -y(${at}) x t${j === 0 ? '' : ` + ln J(t), the turns' jump ${j}`}`, inputs: [`y(${at})`, r.name], value: r.lnDiscount, unit: 'natural log of a discount factor' });
-  }
+  if (!form(e.reads)) return notShown();
   const model = e.value;
-  const label = FIT_MODEL_LABEL[fit.model];
-  const formForm = `${label} fit: y(t) = b0 + b1 L1(t/tau1) + b2 L2(t/tau1)${sv ? ' + b3 L2(t/tau2)' : ''}, L1(x) = (1 - e^-x)/x, L2(x) = L1(x) - e^-x, ln DF(t) = -y(t) t; parameters from weighted least squares of the ${fit.errors} errors (Levenberg-Marquardt).`;
-  const reads = e.reads.map((r) => ({ ...r, formula: `${label} form` }));
-  if (figure === 'richness') {
-    // fitCurve's residual price, the rich/cheap list's figure negated: presentValue and targetOnCurve on the same ln DF.
-    const entry = fit.richCheap.find((x) => x.index === index);
-    if (!entry) return fail(coreError('schema', 'index', 'this quote is not on the rich/cheap list'));
+  const reads = relabel(e.reads);
+  if (figure === 'richness' || figure === 'price') {
+    // fitCurve's residual price (model minus target, per 100) and its negation, the rich/cheap list's figure: presentValue and targetOnCurve on the same ln DF.
     const ins = o.ins;
     const pv = presentValue(ins, trace.ln);
     const target = targetOnCurve(ins, trace.ln);
-    const value = -((pv - target) * o.per100);
-    if (!Object.is(value, entry.richnessPrice)) return fail(coreError('schema', 'index', 'not the figure shown'));
+    const d = (pv - target) * o.per100;
+    const value = figure === 'price' ? d : -d;
+    if (!Object.is(value, figure === 'price' ? row.residualPrice : fit.richCheap.find((x) => x.index === index)?.richnessPrice)) return notShown();
+    const u = o.per100 === 1 ? PER100 : 'per 1 notional';
     const names = e.reads.map((r) => r.name);
     const amounts = Array.from(ins.amounts);
-    amounts.forEach((a, j) => steps.push({ name: `CF${j}`, formula: `CF${j} = flow at ${names[j]!.slice(3, -1)}`, inputs: [], value: a, unit: PER100 }));
+    amounts.forEach((a, j) => steps.push(st(`CF${j}`, `flow at ${names[j]!.slice(3, -1)}`, [], a, u)));
     const terms = amounts.map((_, j) => `CF${j} x ${names[j]}`);
-    steps.push({ name: 'model price', formula: `model price = ${terms.length <= 4 ? terms.join(' + ') : `${terms[0]} + ... + ${terms.at(-1)}`}`, inputs: amounts.flatMap((_, j) => [`CF${j}`, names[j]!]), value: pv, unit: PER100 });
-    const rec = ins as unknown as { schedule: { w: number; frequency: number }; accrued: number };
+    steps.push(st('model price', terms.length <= 4 ? terms.join(' + ') : `${terms[0]} + ... + ${terms.at(-1)}`, amounts.flatMap((_, j) => [`CF${j}`, names[j]!]), pv, u));
+    const rec = ins as unknown as { schedule?: { w: number; frequency: number }; accrued: number };
     const spot = ins.targetFromFlows !== undefined;
     const dirty = ins.target;
-    if (ins.unit === 'rate') {
-      steps.push({ name: 'market yield', formula: 'market yield = as quoted', inputs: [], value: ins.market, unit: `decimal per year: ${row.yieldLabel}` });
-      steps.push({ name: 'w', formula: 'w = fraction of the current coupon period to run', inputs: [], value: rec.schedule.w, unit: 'periods' });
-      steps.push({ name: 'dirty', formula: `dirty = sum_k CF_k (1 + y/${rec.schedule.frequency})^-(w + k), y the market yield (ICMA)`, inputs: ['market yield', 'w'], value: dirty, unit: PER100 });
-    } else {
-      steps.push({ name: 'clean', formula: 'clean = as quoted', inputs: [], value: ins.market, unit: PER100 });
-      steps.push({ name: 'accrued', formula: 'accrued = accrued interest', inputs: [], value: rec.accrued, unit: PER100 });
-      steps.push({ name: 'dirty', formula: 'dirty = clean + accrued', inputs: ['clean', 'accrued'], value: dirty, unit: PER100 });
+    let mk = 'target';
+    if (!rec.schedule) steps.push(st(mk, `the price its flows must meet${spot ? ', on the fitted curve' : ''}`, [], target, u));
+    else {
+      steps.push(
+        ...(ins.unit === 'rate'
+          ? [
+              st('market yield', 'as quoted', [], ins.market, `decimal per year: ${row.yieldLabel}`),
+              st('w', 'fraction of the current coupon period to run', [], rec.schedule.w, 'periods'),
+              st('dirty', `sum_k CF_k (1 + y/${rec.schedule.frequency})^-(w + k), y the market yield (ICMA)`, ['market yield', 'w'], dirty, PER100),
+            ]
+          : [st('clean', 'as quoted', [], ins.market, PER100), st('accrued', 'accrued interest', [], rec.accrued, PER100), st('dirty', 'clean + accrued', ['clean', 'accrued'], dirty, PER100)]),
+      );
+      if (spot) steps.push(st('market price', `dirty x ${names[0]} (paid at settlement)`, ['dirty', names[0]!], target, PER100));
+      mk = spot ? 'market price' : 'dirty';
     }
-    if (spot) steps.push({ name: 'market price', formula: `market price = dirty x ${names[0]} (paid at settlement)`, inputs: ['dirty', names[0]!], value: target, unit: PER100 });
-    const mk = spot ? 'market price' : 'dirty';
-    steps.push({ name: 'richness', formula: `richness = -(model price - ${mk})`, inputs: ['model price', mk], value, unit: PER100 });
+    const x = o.per100 === 1 ? '' : ` x ${o.per100}`;
+    steps.push(figure === 'price' ? st('residual', `(model price - ${mk})${x}`, ['model price', mk], value, PER100) : st('richness', `-(model price - ${mk})`, ['model price', mk], value, PER100));
     return ok({
       ...e,
       quantity: 'fit-figure',
-      formula: `${formForm} The bond: market minus model price = dirty price at the quote${spot ? ' x DF(settle)' : ''} - sum CF_i DF(T_i) (positive: rich)`,
+      formula: `${formForm} ${figure === 'price' ? `Model minus market price = (sum CF_i DF(T_i) - ${mk})${x}` : `The bond: market minus model price = dirty price at the quote${spot ? ' x DF(settle)' : ''} - sum CF_i DF(T_i) (positive: rich)`}`,
       value,
       unit: PER100,
       reads,
@@ -96,12 +187,11 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
   const yu = `decimal per year: ${row.yieldLabel}`;
   const my = o.qy.toYield(model);
   const own = my !== model || o.ins.unit === 'price';
-  if (own) steps.push({ name: 'model yield', formula: 'model yield = own yield at the model value', inputs: ['model'], value: my, unit: yu });
+  if (own) steps.push(st('model yield', 'own yield at the model value', ['model'], my, yu));
   let value = my;
   if (figure === 'residual') {
-    steps.push({ name: 'market yield', formula: 'market yield = own yield at the market value', inputs: [], value: o.marketYield, unit: yu });
     value = (my - o.marketYield) * 1e4;
-    steps.push({ name: 'residual', formula: 'residual = (model yield - market yield) x 10,000', inputs: [own ? 'model yield' : 'model', 'market yield'], value, unit: 'bp' });
+    steps.push(st('market yield', 'own yield at the market value', [], o.marketYield, yu), st('residual', '(model yield - market yield) x 10,000', [own ? 'model yield' : 'model', 'market yield'], value, 'bp'));
   }
   return ok({
     ...e,
@@ -113,3 +203,6 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
     steps,
   });
 }
+
+/** A step `name = rhs`. */
+const st = (name: string, rhs: string, inputs: string[], value: number, unit: string): ExplainedStep => ({ name, formula: `${name} = ${rhs}`, inputs, value, unit });

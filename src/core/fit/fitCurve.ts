@@ -166,7 +166,7 @@ function parametricCurve(ws: Workspace, p: ParametricParams, obs: readonly Obser
 }
 
 /** The fitted-measure residual of one observation (decimal yield), NaN when the model has none. */
-function fittedResidual(o: Observation, errors: FitErrors, ln: (t: number) => number): number {
+export function fittedResidual(o: Observation, errors: FitErrors, ln: (t: number) => number): number {
   if (errors === 'yield') return o.qy.toYield(o.ins.modelQuote(ln)) - o.marketYield;
   if (o.ins.targetFromFlows !== undefined) return -residualOnCurve(o.ins, ln) / o.dollarDuration; // a target on the curve (an OIS's floating leg)
   return (o.ins.target - presentValue(o.ins, ln)) / o.dollarDuration;
@@ -292,10 +292,11 @@ export function fitCurve(ws: Workspace, options: FitOptions, sink?: FitSink): Re
     atBounds.push(`tau2 = ${ratio} x tau1 (the ratio bound)`);
   }
   const worst = residuals.filter((r) => r.included).reduce((a, b) => (Math.abs(b.residualBp) > Math.abs(a.residualBp) ? b : a));
+  const rmsWords = `weighted RMS error ${formatBp(rmsBp)}`;
+  const worstWords = `largest residual quotes[${worst.index}] ${formatBp(worst.residualBp)}`;
   const report = best.converged
-    ? `${label} fit converged after ${best.iterations} iterations; weighted RMS error ${formatBp(rmsBp)}; largest residual quotes[${worst.index}] ${formatBp(worst.residualBp)}` +
-      (atBounds.length > 0 ? `; on a bound: ${atBounds.join(', ')}` : '')
-    : `${label} fit did not converge (${best.reason} after ${best.iterations} iterations); weighted RMS error ${formatBp(rmsBp)}, largest residual quotes[${worst.index}] ${formatBp(worst.residualBp)}; ` +
+    ? `${label} fit converged after ${best.iterations} iterations; ${rmsWords}; ${worstWords}` + (atBounds.length > 0 ? `; on a bound: ${atBounds.join(', ')}` : '')
+    : `${label} fit did not converge (${best.reason} after ${best.iterations} iterations); ${rmsWords}, ${worstWords}; ` +
       `try ${model === 'svensson' ? 'Nelson-Siegel, ' : ''}excluding quotes[${worst.index}] or lowering its weight, or check that quote`;
   const richCheap: RichCheapEntry[] = residuals
     .filter((r) => kindModule(r.kind).fit.richCheap)

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useMemo, useState, type MouseEvent } from 'react';
 import {
   FIT_MODEL_LABEL,
   fitCurve,
@@ -18,19 +18,18 @@ import {
 } from '../../core/index.ts';
 import { rowNumber } from '../../components/format.ts';
 import { NO_VALUE, PRICE_ACCEPTANCE, rateTag, RATE_ACCEPTANCE, sampleGrid, zeroSamples } from '../../core/index.ts';
-import { RateChart, type ChartLine } from '../../charts/RateChart.tsx';
+import { RateChart, type ChartLine, type RateChartProps } from '../../charts/RateChart.tsx';
 import { BASE_STYLES } from '../../charts/palette.ts';
-import type { SamplePoint } from '../../hooks/useCurveSeries.ts';
+import { points, type SamplePoint } from '../../hooks/useCurveSeries.ts';
 import type { Curve } from '../../core/index.ts';
 import { RichCheapTable } from './RichCheapTable.tsx';
 import type { DisplaySettings } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
-import type { FitCell } from './explainFitCell.ts';
+import { TITLE, type FitCell } from './explainFitCell.ts';
 
-const sameFitCell = (a: FitCell, b: FitCell): boolean => a.fit.index === b.fit.index && a.fit.figure === b.fit.figure && a.fit.table === b.fit.table;
+const sameFitCell = (a: FitCell, b: FitCell): boolean => a.fit.index === b.fit.index && a.fit.figure === b.fit.figure && a.fit.table === b.fit.table && a.fit.date === b.fit.date;
 
-const FIGURE_WORDS: Record<FitCell['fit']['figure'], string> = { yield: 'fitted model yield', residual: 'fit residual', richness: 'market minus model price' };
 
 export interface FitPanelProps {
   /** The validated workspace whose enabled quotes are fitted (null: nothing to fit yet). */
@@ -83,16 +82,25 @@ export function FitPanel(props: FitPanelProps) {
   const result = useMemo(() => (ws && options ? fitCurve(ws, options) : null), [ws, options]);
   const explain = useExplainOpener<FitCell>(sameFitCell);
   // The open figure follows the panel's options, closed when its quote leaves the residuals.
-  const open = explain.open && options && result?.ok && result.value.residuals.some((r) => r.index === explain.open!.fit.index) ? { fit: { ...explain.open.fit, options } } : null;
-  const figure = (index: number, which: FitCell['fit']['figure'], text: string, table?: 'rich-cheap') => {
+  const open = explain.open && options && result?.ok && (explain.open.fit.index < 0 || result.value.residuals.some((r) => r.index === explain.open!.fit.index)) ? { fit: { ...explain.open.fit, options } } : null;
+  const figure = (index: number, which: FitCell['fit']['figure'], text: string, table?: FitCell['fit']['table']) => {
     if (!props.explainFrom || !options) return text;
     const cell: FitCell = { fit: { options, index, figure: which, ...(table ? { table } : {}) } };
     return (
-      <button type="button" className="cell-explain" data-field={which === 'residual' ? 'residual-bp' : undefined} aria-label={`${text}: explain the ${FIGURE_WORDS[which]} of row ${rowNumber(props.rowOfQuote, index)}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
+      <button type="button" className="cell-explain" data-field={which === 'residual' ? 'residual-bp' : undefined} aria-label={`${text}: explain the ${index < 0 ? TITLE[which] ?? `fitted ${which}` : `${TITLE[which]!.toLowerCase()} of row ${rowNumber(props.rowOfQuote, index)}`}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
         {text}
       </button>
     );
   };
+  // The explanation beside the table it was opened from.
+  const panel = (table?: FitCell['fit']['table']) => props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={open?.fit.table === table ? open : null} onClose={explain.close} />;
+  const par = (which: FitCell['fit']['figure'], text: string) => figure(-1, which, text, 'fit');
+  // The fit chart's readout opens the fitted zero rate at its point (continuous on the curve's day count, as drawn).
+  const zeroExplain = useMemo(
+    () => (props.explainFrom && options ? { words: 'fitted zero rate', open: (cell: unknown, b: HTMLElement) => explain.toggle({ currentTarget: b } as unknown as MouseEvent<HTMLElement>, cell as FitCell), cell: (p: SamplePoint): FitCell => ({ fit: { options, index: -1, figure: 'zero', date: p.date, table: 'fit' } }) } : undefined),
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [options, !props.explainFrom],
+  );
   const zeroTag = ws ? rateTag('continuous', ws.curve.dayCount) : 'cont';
   const repricingByIndex = new Map((props.repricing ?? []).map((r) => [r.index, r]));
 
@@ -151,23 +159,20 @@ export function FitPanel(props: FitPanelProps) {
           <p role="status" className={result.value.converged ? undefined : 'warning'}>
             {rowWords(result.value.report, props.rowOfQuote)}
           </p>
-          <FitChart fit={result.value.curve} bootstrap={props.bootstrap ?? null} label={FIT_MODEL_LABEL[result.value.model]} />
+          <FitChart fit={result.value.curve} bootstrap={props.bootstrap ?? null} label={FIT_MODEL_LABEL[result.value.model]} {...(zeroExplain ? { explain: zeroExplain } : {})} />
           <table className="data" aria-label="Fitted parameters">
             <caption>{FIT_MODEL_LABEL[result.value.model]} parameters</caption>
             <tbody>
-              <tr><th scope="row">b0, level <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b0)}</td></tr>
-              <tr><th scope="row">b1, slope <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b1)}</td></tr>
-              <tr><th scope="row">b2, curvature <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b2)}</td></tr>
-              {result.value.params.tau2 !== null && (
-                <tr><th scope="row">b3, second hump <span className="tag">{zeroTag}</span></th><td className="n">{formatPercent(result.value.params.b3)}</td></tr>
-              )}
-              <tr><th scope="row">τ1 (years)</th><td className="n">{formatNumber(result.value.params.tau1, 4)}</td></tr>
-              {result.value.params.tau2 !== null && (
-                <tr><th scope="row">τ2 (years)</th><td className="n">{formatNumber(result.value.params.tau2, 4)}</td></tr>
-              )}
-              <tr><th scope="row">Weighted RMS error (bp)</th><td className="n">{bpFigure(result.value.rmsBp)}</td></tr>
+              {(['b0, level', 'b1, slope', 'b2, curvature', ...(result.value.params.tau2 !== null ? ['b3, second hump'] : [])]).map((h) => (
+                <tr key={h}><th scope="row">{h} <span className="tag">{zeroTag}</span></th><td className="n">{par(h.slice(0, 2) as 'b0', formatPercent(result.value.params[h.slice(0, 2) as 'b0']))}</td></tr>
+              ))}
+              {[result.value.params.tau1, result.value.params.tau2].map((v, i) => v !== null && (
+                <tr key={i}><th scope="row">τ{i + 1} (years)</th><td className="n">{par(i ? 'tau2' : 'tau1', formatNumber(v, 4))}</td></tr>
+              ))}
+              <tr><th scope="row">Weighted RMS error (bp)</th><td className="n">{par('rms', bpFigure(result.value.rmsBp))}</td></tr>
             </tbody>
           </table>
+          {panel('fit')}
           <div className="table-scroll" tabIndex={0} role="region" aria-label="Fit residuals (scrolls sideways)">
           <table className="data" aria-label="Fit residuals">
             <caption>Each quote against the fit (residual = model minus market); the exact bootstrap's repricing error beside it</caption>
@@ -212,7 +217,7 @@ export function FitPanel(props: FitPanelProps) {
                     <td className="n">{formatPercent(r.marketYield)}</td>
                     <td className="n">{figure(r.index, 'yield', formatPercent(r.modelYield))}</td>
                     <td className="n" data-field="residual-bp">{figure(r.index, 'residual', bpFigure(r.residualBp))}</td>
-                    <td className="n" data-field="residual-price">{formatPrice(r.residualPrice)}</td>
+                    <td className="n" data-field="residual-price">{figure(r.index, 'price', formatPrice(r.residualPrice))}</td>
                     <RepricingCell rep={rep} />
                   </tr>
                 );
@@ -220,34 +225,31 @@ export function FitPanel(props: FitPanelProps) {
             </tbody>
           </table>
           </div>
-          {props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={open && !open.fit.table ? open : null} onClose={explain.close} />}
+          {panel(undefined)}
           {Object.keys(weightText).map((k) => weightError(Number(k))).filter((m): m is string => m !== null).map((m) => (
             <p key={m} role="alert" className="error">{m}</p>
           ))}
           <RichCheapTable rowOfQuote={props.rowOfQuote} entries={result.value.richCheap} yieldTag="ICMA yield at each bond's coupon frequency" figure={(index, which, text) => figure(index, which, text, 'rich-cheap')} />
-          {props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={open?.fit.table ? open : null} onClose={explain.close} />}
+          {panel('rich-cheap')}
         </>
       )}
     </section>
   );
 }
 
-const points = (curve: Curve, grid: ReturnType<typeof sampleGrid>): SamplePoint[] => {
-  const s = zeroSamples(curve, grid, 'continuous');
-  return Array.from(s.x, (x, i) => ({ date: s.dates[i]!, x, y: s.y[i]!, extrapolated: s.extrapolated[i]! }));
-};
+const zeroPoints = (curve: Curve, grid: ReturnType<typeof sampleGrid>): SamplePoint[] => points(zeroSamples(curve, grid, 'continuous'));
 
 /** The fitted zero curve and, when given, the bootstrap's, continuously compounded on the curve's day count. */
-function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | null; label: string }) {
+function FitChart({ fit, bootstrap, label, explain }: { fit: Curve; bootstrap: Curve | null; label: string; explain?: NonNullable<RateChartProps['explain']> & { readonly cell: (p: SamplePoint) => unknown } }) {
   const chart = useMemo(() => {
     const last = [fit.pillars[fit.pillars.length - 1], bootstrap?.pillars[bootstrap.pillars.length - 1]].filter((p) => p !== undefined).sort((a, b) => b!.t - a!.t)[0];
     if (!last) return null;
     const grid = sampleGrid(fit.settlement, last.date, 160, fit.dayCount, fit.dayCount, { n: 3, unit: 'M' });
     const tag = rateTag('continuous', fit.dayCount);
-    const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, ...BASE_STYLES.forward, points: points(fit, grid) }];
-    if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, ...BASE_STYLES.zero, dash: '6 3', points: points(bootstrap, grid) });
+    const lines: ChartLine[] = [{ id: 'fit', label: `${label} fit`, tag, ...BASE_STYLES.forward, points: zeroPoints(fit, grid), ...(explain ? { explain: explain.cell } : {}) }];
+    if (bootstrap) lines.push({ id: 'bootstrap', label: 'Exact bootstrap', tag, ...BASE_STYLES.zero, dash: '6 3', points: zeroPoints(bootstrap, grid) });
     return { lines, xMax: last.t, lastT: Math.max(fit.lastT, bootstrap?.lastT ?? 0), tag };
-  }, [fit, bootstrap, label]);
+  }, [fit, bootstrap, label, explain]);
   if (!chart) return null;
   return (
     <div className="chart-box">
@@ -263,6 +265,7 @@ function FitChart({ fit, bootstrap, label }: { fit: Curve; bootstrap: Curve | nu
         axis="linear"
         xLabel={`Maturity (years from settlement, ${fit.dayCount})`}
         yLabel={`Zero rate (%, ${chart.tag})`}
+        {...(explain ? { explain } : {})}
       />
     </div>
   );

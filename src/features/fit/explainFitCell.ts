@@ -1,35 +1,49 @@
-import { explainFitFigure, fitCurve, type FitFigure, type FitOptions, type FitSink, type Result } from '../../core/index.ts';
+import { explainFitFigure, fitCurve, type Compounding, type CurveDayCount, type FitFigure, type FitOptions, type FitSink, type FitZeroAt, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { cellOf, type CellExplanation } from '../tables/explainCell.ts';
+import { cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
 
-/** A figure of the smooth fit's residual table or rich/cheap list: quote `index`'s model yield, residual or richness, under the panel's fit options. */
+/**
+ * A figure of the smooth fit under the panel's fit options: quote `index`'s model yield, residual
+ * (bp or per 100 face) or richness; a parameter or the weighted RMS error (`index` -1); or the fit
+ * line's zero rate on `date` (`index` -1), in `compounding` on `dayCount` (default: continuous on
+ * the curve's day count, as the fit's own chart draws it).
+ */
 export interface FitCell {
   readonly fit: {
     readonly options: FitOptions;
     readonly index: number;
     readonly figure: FitFigure;
-    /** The table it was opened from (the panel opens beside it): the residuals' or the rich/cheap list's. */
-    readonly table?: 'rich-cheap';
+    /** The table it was opened from (the panel opens beside it): the rich/cheap list's, or the parameters' and chart's ('fit'); else the residuals'. */
+    readonly table?: 'rich-cheap' | 'fit';
+    readonly date?: string;
+    readonly compounding?: Compounding;
+    readonly dayCount?: CurveDayCount;
   };
 }
 
-const TITLE: Record<FitFigure, string> = { yield: 'Fitted model yield', residual: 'Fit residual', richness: 'Market minus model price' };
+/** Each figure's name (the panel's title; lower case in the table buttons' names); a parameter's is `Fitted <name>`. */
+export const TITLE: Partial<Record<FitFigure, string>> = { yield: 'Fitted model yield', residual: 'Fit residual', richness: 'Market minus model price', price: 'Fit residual per 100 face', zero: 'Fitted zero rate', rms: 'Weighted RMS error' };
 
 /**
  * The explanation of a fit figure: the fit made again as the panel makes it (same workspace and
- * options; deterministic) with a sink, then explainFitFigure. No quote sensitivities and no values
- * under other methods, and the panel says why.
+ * options; deterministic) with a sink, then explainFitFigure. No quote sensitivities (a parameter
+ * moves with every quote through the whole fit; for a parameter or the RMS the note names the
+ * quotes with the largest shares of the objective) and no values under other methods.
  */
 export function explainFitCell(result: WorkbenchBuild, cell: FitCell['fit']): Result<CellExplanation> {
   const ws = result.build.workspace;
-  if (!ws) return { ok: false, errors: [{ path: '', quote: null, code: 'schema', message: result.fatal ?? 'no workspace' }] };
+  if (!ws) return noCurve(result);
   const sink: FitSink = {};
   const fit = fitCurve(ws, cell.options, sink);
   if (!fit.ok) return fit;
-  const r = explainFitFigure(fit.value, sink.trace!, cell.index, cell.figure);
+  const rows = result.conversion.rowOfQuote;
+  const rowOf = (i: number): string => `row ${(rows[i] ?? i) + 1}`;
+  const f = cell.figure;
+  const at = cell.date === undefined ? undefined : ({ compounding: 'continuous', dayCount: fit.value.curve.dayCount, ...cell } as FitZeroAt);
+  const r = explainFitFigure(fit.value, sink.trace!, cell.index, f, at, rowOf);
   if (!r.ok) return r;
-  const row = result.conversion.rowOfQuote[cell.index];
-  const title = `${TITLE[cell.figure]} of ${row === undefined ? 'a quote' : `row ${row + 1}`}`;
-  const note = 'none: a fit is not exact; no value under other interpolation methods: a parametric form interpolates nothing';
+  const title = `${TITLE[f] ?? `Fitted ${f}`}${cell.index >= 0 ? ` of ${rowOf(cell.index)}` : at ? ` on ${at.date}` : ''}`;
+  // A fitted figure has no bp-per-bp sensitivity short of fitting again per quote; its steps give each quote's weight and residual.
+  const note = `none${cell.index < 0 && !at ? ' by bp per bp: it moves with every quote through the whole fit' : ': a fit is not exact'}; no value under other interpolation methods: a parametric form interpolates nothing`;
   return cellOf(result, title, r.value, { ok: true, value: [] }, note, []);
 }
