@@ -27,6 +27,7 @@ import { setFitErrors, setFitModel } from '../../src/features/compare/comparison
 import { useComparisonOverlay, type ComparisonOverlay } from '../../src/features/compare/useComparisonOverlay.ts';
 import { useCurveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { explainKeyCell, type ExplainCell } from '../../src/features/tables/explainCell.ts';
 import { SnapshotsTab } from '../../src/features/snapshots/SnapshotsTab.tsx';
 import { expectClose } from '../helpers/asserts.ts';
 
@@ -112,6 +113,22 @@ describe('useComparisonOverlay', () => {
     }
     // The instantaneous forward at the short end tends to b0 + b1 (Nelson-Siegel 1987).
     expectClose(parametricForward(p, 0), p.b0 + p.b1, 1e-15, 'Nelson and Siegel (1987): f(0) = b0 + b1');
+  });
+
+  it("the fit line's points explain themselves: the fitted zero rate on the date, in the display's conventions, the drawn point bit for bit", async () => {
+    // Annual ACT/360 (not the curve's day count nor continuous), so the cell must carry the display's conventions.
+    act(() => useAppStore.getState().setDisplay({ compounding: 'annual', dayCount: 'ACT/360' }));
+    render(<Probe />);
+    act(() => setDrawFit(true));
+    await waitFor(() => expect(last!.zero.some((l) => l.id === 'fit-zero')).toBe(true));
+    const zero = last!.zero.find((l) => l.id === 'fit-zero')!;
+    const display = useAppStore.getState().workspace.display;
+    const picked = [zero.points[7]!, zero.points[60]!, zero.points.find((q) => q.extrapolated) ?? zero.points.at(-1)!];
+    for (const pt of picked) {
+      const e = explainKeyCell(lastBuild!, display, zero.explain!(pt) as ExplainCell);
+      if (!e.ok) throw new Error(e.errors[0]!.message);
+      expect(Object.is(e.value.explanation.value, pt.y), pt.date).toBe(true);
+    }
   });
 
   it('draws the fit the smooth fit section sets: Svensson, price errors, a quote left out', async () => {

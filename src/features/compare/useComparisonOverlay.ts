@@ -156,10 +156,11 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
         const line = `${label} fit: ${choice.fitErrors} errors${left > 0 ? `, ${left} quote${left === 1 ? '' : 's'} left out` : ', every quote'}${weighted ? ', weighted' : ''}, as set in the Smooth fit section`;
         how.zero.push(line);
         how.forward.push(line);
-        zero.push({ id: 'fit-zero', label: `${label} fit (zero)`, points: points(s.zero), ...common });
+        // Its point explains itself: the fitted zero rate on the date, as sampled (display compounding and day count).
+        zero.push({ id: 'fit-zero', label: `${label} fit (zero)`, points: points(s.zero), ...common, explain: (p: SamplePoint) => ({ fit: { options: fitOptions!, index: -1, figure: 'zero', date: p.date, compounding: display.compounding, dayCount: display.dayCount } }) });
         forward.push({ id: 'fit-forward', label: `${label} fit (${fwd})`, points: points(s.forward), ...common });
       }
     }
     return { zero, forward, notes, how };
-  }, [curve, display, rebuilt, choice.by, choice.reference, choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, parsedReference, fit]);
+  }, [curve, display, rebuilt, choice.by, choice.reference, choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, parsedReference, fit, fitOptions]);
 }
