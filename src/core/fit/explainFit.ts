@@ -103,8 +103,11 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
     });
   }
   // The form's steps of each read: y(t) and ln DF = -y t + ln J (fitCurve's lnFit, which its residuals read); on the fitted curve (`flat`) flat-forward past T.
+  // A read of another curve (a named curve's swap: its discounting, its other leg) is held as built, not the form.
+  const other = (r: ExplainedRead): boolean => /^P_/.test(r.name) && !r.name.startsWith('P_this curve(');
   const form = (reads: readonly ExplainedRead[], flat?: boolean): boolean => {
     for (const r of reads) {
+      if (other(r)) continue;
       const t = r.t;
       const past = flat && t > T;
       const u = past ? T : t;
@@ -112,7 +115,7 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
       const lnU = u <= 0 ? 0 : -parametricZero(p, u) * u + j;
       const f = parametricForward(p, T) + turnForward(trace.turns, T);
       if (!Object.is(past ? lnU - f * (t - T) : lnU, r.lnDiscount)) return false;
-      const at = past ? 'T' : r.name.slice(3, -1);
+      const at = past ? 'T' : r.name.slice(r.name.indexOf('(') + 1, -1);
       if (!steps.some((s) => s.name === `y(${at})`)) {
         steps.push(yAt(at, u, past ? [] : [r.name]), st(`ln DF(${at})`, `-y(${at}) x t${j === 0 ? '' : ` + ln J(t), the turns' jump ${j}`}`, [`y(${at})`], lnU, LN));
         if (past) steps.push(st('f(T)', `the form's forward at T = ${T}`, params, f, pu));
@@ -121,7 +124,7 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
     }
     return true;
   };
-  const relabel = (reads: readonly ExplainedRead[]) => reads.map((r) => ({ ...r, formula: `${label} form` }));
+  const relabel = (reads: readonly ExplainedRead[]) => reads.map((r) => (other(r) ? r : { ...r, formula: `${label} form` }));
   if (figure === 'zero' && at) {
     const z = explained((sink) => zeroOn(fit.curve, at.date, at.compounding, at.dayCount, 'date', sink));
     if (!z.ok) return z;

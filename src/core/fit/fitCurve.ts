@@ -48,6 +48,13 @@ export interface FitOptions {
    * carried: the form stays smooth through the meeting dates.
    */
   readonly turns?: readonly TurnSpan[];
+  /**
+   * The curve's build's instruments: a quote whose instrument reads curves built before it (a named
+   * curve's term-index or basis swap, `readsCurves`) is fitted as that instrument, its discounting
+   * and other leg held as built, so the form is the projection curve; without them it would be
+   * read as a one-curve swap.
+   */
+  readonly instruments?: readonly Instrument[];
 }
 
 /** A quote against the fitted curve. Yields in decimals of the quote's own yield; prices per 100 face. */
@@ -133,7 +140,7 @@ function observe(ws: Workspace, options: FitOptions): Observation[] {
   return ws.quotes
     .filter((q) => q.enabled)
     .map((q) => {
-      const ins = compileQuote(q, ws.settlement, ws.curve.dayCount);
+      const ins = options.instruments?.find((i) => i.index === q.index && i.readsCurves) ?? compileQuote(q, ws.settlement, ws.curve.dayCount);
       const qy = quoteYieldOf(ins, ws.settlement);
       const w = options.weights?.[q.index] ?? 1;
       const weight = Number.isFinite(w) && w > 0 ? w : 0;

@@ -18,6 +18,7 @@ export function FitSlot({ result }: { result: WorkbenchBuild }) {
       workspace={result.build.workspace}
       repricing={result.build.repricing}
       turns={result.build.overnight?.turns}
+      instruments={result.build.instruments}
       steps={(result.build.overnight?.meetings.length ?? 0) > 0}
       rowOfQuote={result.conversion.rowOfQuote}
       model={model}

@@ -81,9 +81,10 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
   const { exclude, weights } = useFitInput();
   // With the shown curve's turns, as the section fits them (FitSlot).
   const turns = result.build.overnight?.turns;
+  const held = result.build.instruments;
   const fitOptions = useMemo(
-    () => (choice.fit && choice.fitModel !== 'none' ? { model: choice.fitModel, errors: choice.fitErrors, exclude, weights, ...(turns ? { turns } : {}) } : null),
-    [choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, turns],
+    () => (choice.fit && choice.fitModel !== 'none' ? { model: choice.fitModel, errors: choice.fitErrors, exclude, weights, ...(turns ? { turns } : {}), instruments: held } : null),
+    [choice.fit, choice.fitModel, choice.fitErrors, exclude, weights, turns, held],
   );
   const fit = useLazyFit(ws, fitOptions);
 

@@ -53,6 +53,8 @@ export interface FitPanelProps {
   readonly onErrorsChange?: (errors: FitErrors) => void;
   /** The shown build's turns (spreads as built; `FitOptions.turns`) and whether it has meeting steps: the fit carries the turns and says what it leaves out. */
   readonly turns?: FitOptions['turns'];
+  /** The build's instruments (`FitOptions.instruments`): a named curve's swaps fitted as they price, on the curves they read. */
+  readonly instruments?: FitOptions['instruments'];
   readonly steps?: boolean;
   /** The build and display the explanation panel reads (the model yields and residuals open their explanation when given). */
   readonly explainFrom?: { readonly result: WorkbenchBuild; readonly display: DisplaySettings };
@@ -78,7 +80,8 @@ export function FitPanel(props: FitPanelProps) {
   const [weightText, setWeightText] = useState<Record<number, string>>({});
   const ws = props.workspace;
   const turns = props.turns;
-  const options = useMemo(() => (model === 'none' ? null : { model, errors, exclude, weights, ...(turns ? { turns } : {}) }), [model, errors, exclude, weights, turns]);
+  const held = props.instruments;
+  const options = useMemo(() => (model === 'none' ? null : { model, errors, exclude, weights, ...(turns ? { turns } : {}), ...(held ? { instruments: held } : {}) }), [model, errors, exclude, weights, turns, held]);
   const result = useMemo(() => (ws && options ? fitCurve(ws, options) : null), [ws, options]);
   const explain = useExplainOpener<FitCell>(sameFitCell);
   // The open figure follows the panel's options, closed when its quote leaves the residuals.
