@@ -50,7 +50,7 @@ describe("the smooth fit's parameters and chart explained", () => {
     await chart.focus();
     await page.keyboard.press('Home');
     for (let i = 0; i < 30; i++) await page.keyboard.press('ArrowRight');
-    const button = fit.getByRole('button', { name: /^Explain the fitted zero rate at [\d.]+y \(\d{4}-\d{2}-\d{2}\)$/ });
+    const button = fit.getByRole('button', { name: /^Explain the (Nelson-Siegel|Svensson) fit zero rate at [\d.]+y \(\d{4}-\d{2}-\d{2}\)$/ });
     const date = /\((\d{4}-\d{2}-\d{2})\)/.exec((await button.textContent())!)![1]!;
     await button.click();
     const panel = page.getByRole('complementary', { name: `Fitted zero rate on ${date}` });

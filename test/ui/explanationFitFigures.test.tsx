@@ -79,7 +79,7 @@ describe('the smooth fit: residual per 100 face, parameters, RMS and the chart',
     await user.keyboard('{Home}');
     for (let i = 0; i < 30; i++) await user.keyboard('{ArrowRight}');
     await user.tab();
-    const button = screen.getByRole('button', { name: /^Explain the fitted zero rate at [\d.]+y \(\d{4}-\d{2}-\d{2}\)$/ });
+    const button = screen.getByRole('button', { name: /^Explain the (Nelson-Siegel|Svensson) fit zero rate at [\d.]+y \(\d{4}-\d{2}-\d{2}\)$/ });
     expect(button).toHaveFocus();
     const date = /\((\d{4}-\d{2}-\d{2})\)/.exec(button.textContent!)![1]!;
     const panel = await open(user, button, `Fitted zero rate on ${date}`);
