@@ -23,7 +23,7 @@ function setUp() {
   const display = useAppStore.getState().workspace.display;
   const result = deriveBuild(useAppStore.getState().workspace);
   const ws = result.build.workspace!;
-  render(<FitPanel workspace={ws} model="svensson" onModelChange={() => {}} bootstrap={result.build.curve} rowOfQuote={result.conversion.rowOfQuote} explainFrom={{ result, display }} />);
+  render(<FitPanel workspace={ws} model="svensson" onModelChange={() => {}} bootstrap={result.build.curve} repricing={result.build.repricing} rowOfQuote={result.conversion.rowOfQuote} explainFrom={{ result, display }} />);
   const fit = fitCurve(ws, { model: 'svensson', errors: 'yield', exclude: [], weights: {} });
   if (!fit.ok) throw new Error(fit.errors[0]!.message);
   return { result, fit: fit.value };
@@ -89,6 +89,18 @@ describe('the smooth fit: residual per 100 face, parameters, RMS and the chart',
     const s = zeroSamples(c, sampleGrid(c.settlement, last.date, 160, c.dayCount, c.dayCount, { n: 3, unit: 'M' }), 'continuous');
     const y = s.y[s.dates.indexOf(date)]!;
     expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(y));
+    await user.keyboard('{Escape}');
+    expect(button).toHaveFocus();
+  });
+  it("the exact bootstrap's repricing error beside a residual opens the quote check's explanation of it, the same figure to all digits", async () => {
+    const user = userEvent.setup({ delay: null });
+    const { result } = setUp();
+    const rep = result.build.repricing.find((x) => x.unit === 'rate')!;
+    const row = result.conversion.rowOfQuote[rep.index]! + 1;
+    const button = within(screen.getByRole('table', { name: 'Fit residuals' })).getByRole('button', { name: new RegExp(`explain the repricing error of row ${row}$`) });
+    const panel = await open(user, button, new RegExp(`Repricing error of row ${row}`));
+    // The quote check's figure: model minus market, in bp for a rate quote (explainQuoteCell).
+    expect(panel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(rep.repricingError * 1e4));
     await user.keyboard('{Escape}');
     expect(button).toHaveFocus();
   });

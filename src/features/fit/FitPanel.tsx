@@ -1,4 +1,4 @@
-import { useMemo, useState, type MouseEvent } from 'react';
+import { useMemo, useState, type MouseEvent, type ReactNode } from 'react';
 import {
   FIT_MODEL_LABEL,
   fitCurve,
@@ -27,6 +27,7 @@ import type { DisplaySettings } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
 import { TITLE, type FitCell } from './explainFitCell.ts';
+import type { QuoteCheckCell } from '../tables/explainQuoteCell.ts';
 
 const sameFitCell = (a: FitCell, b: FitCell): boolean => a.fit.index === b.fit.index && a.fit.figure === b.fit.figure && a.fit.table === b.fit.table && a.fit.date === b.fit.date;
 
@@ -84,6 +85,8 @@ export function FitPanel(props: FitPanelProps) {
   const options = useMemo(() => (model === 'none' ? null : { model, errors, exclude, weights, ...(turns ? { turns } : {}), ...(held ? { instruments: held } : {}) }), [model, errors, exclude, weights, turns, held]);
   const result = useMemo(() => (ws && options ? fitCurve(ws, options) : null), [ws, options]);
   const explain = useExplainOpener<FitCell>(sameFitCell);
+  // The exact bootstrap's repricing error beside a residual: the quote check's own figure and explanation.
+  const check = useExplainOpener<QuoteCheckCell>((a, b) => a.quoteCheck.index === b.quoteCheck.index);
   // The open figure follows the panel's options, closed when its quote leaves the residuals.
   const open = explain.open && options && result?.ok && (explain.open.fit.index < 0 || result.value.residuals.some((r) => r.index === explain.open!.fit.index)) ? { fit: { ...explain.open.fit, options } } : null;
   const figure = (index: number, which: FitCell['fit']['figure'], text: string, table?: FitCell['fit']['table']) => {
@@ -221,7 +224,7 @@ export function FitPanel(props: FitPanelProps) {
                     <td className="n">{figure(r.index, 'yield', formatPercent(r.modelYield))}</td>
                     <td className="n" data-field="residual-bp">{figure(r.index, 'residual', bpFigure(r.residualBp))}</td>
                     <td className="n" data-field="residual-price">{figure(r.index, 'price', formatPrice(r.residualPrice))}</td>
-                    <RepricingCell rep={rep} />
+                    <RepricingCell rep={rep} wrap={props.explainFrom && ((text) => <button type="button" className="cell-explain" aria-label={`${text}: explain the repricing error of row ${rowNumber(props.rowOfQuote, r.index)}`} aria-expanded={check.isOpen({ quoteCheck: { index: r.index, figure: 'error' } })} onClick={(e) => check.toggle(e, { quoteCheck: { index: r.index, figure: 'error' } })}>{text}</button>)} />
                   </tr>
                 );
               })}
@@ -229,6 +232,7 @@ export function FitPanel(props: FitPanelProps) {
           </table>
           </div>
           {panel(undefined)}
+          {props.explainFrom && <OpenExplanation result={props.explainFrom.result} display={props.explainFrom.display} cell={check.open} onClose={check.close} />}
           {Object.keys(weightText).map((k) => weightError(Number(k))).filter((m): m is string => m !== null).map((m) => (
             <p key={m} role="alert" className="error">{m}</p>
           ))}
@@ -279,12 +283,12 @@ function FitChart({ fit, bootstrap, label, explain }: { fit: Curve; bootstrap: C
  * price quote; inside the bootstrap's acceptance it is an exact reprice, shown as zero with the
  * computed value and the tolerance in the tooltip.
  */
-function RepricingCell({ rep }: { rep: Repricing | undefined }) {
+function RepricingCell({ rep, wrap = (t) => t }: { rep: Repricing | undefined; wrap?: ((text: string) => ReactNode) | undefined }) {
   if (!rep) return <td className="n">{NO_VALUE}</td>;
   const e = rep.unit === 'price' ? nearZero(rep.repricingError, 6, 'per 100 face', PRICE_ACCEPTANCE) : nearZero(rep.repricingError * 1e4, 4, 'bp', RATE_ACCEPTANCE * 1e4);
   return (
     <td className="n" title={e.title}>
-      {e.text} {rep.unit === 'price' ? 'per 100' : 'bp'}
+      {wrap(`${e.text} ${rep.unit === 'price' ? 'per 100' : 'bp'}`)}
     </td>
   );
 }
