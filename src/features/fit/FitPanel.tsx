@@ -224,7 +224,7 @@ export function FitPanel(props: FitPanelProps) {
                     <td className="n">{figure(r.index, 'yield', formatPercent(r.modelYield))}</td>
                     <td className="n" data-field="residual-bp">{figure(r.index, 'residual', bpFigure(r.residualBp))}</td>
                     <td className="n" data-field="residual-price">{figure(r.index, 'price', formatPrice(r.residualPrice))}</td>
-                    <RepricingCell rep={rep} wrap={props.explainFrom && ((text) => <button type="button" className="cell-explain" aria-label={`${text}: explain the repricing error of row ${rowNumber(props.rowOfQuote, r.index)}`} aria-expanded={check.isOpen({ quoteCheck: { index: r.index, figure: 'error' } })} onClick={(e) => check.toggle(e, { quoteCheck: { index: r.index, figure: 'error' } })}>{text}</button>)} />
+                    <RepricingCell rep={rep} wrap={props.explainFrom && ((text) => check.button({ quoteCheck: { index: r.index, figure: 'error' } }, text, `the repricing error of row ${rowNumber(props.rowOfQuote, r.index)}`))} />
                   </tr>
                 );
               })}

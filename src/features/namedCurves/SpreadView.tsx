@@ -69,11 +69,7 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
   const explain = useExplainOpener<SpreadCell>((x, y) => x.spread.of === y.spread.of && x.spread.over === y.spread.over && x.spread.measure === y.spread.measure && x.spread.tenor === y.spread.tenor && x.spread.side === y.spread.side);
   const cellAt = (t: string, side?: 'of' | 'over'): SpreadCell => ({ spread: { of: choice.of, over: choice.over, measure: choice.measure, tenor: t, named, inputs: useAppStore.getState().workspace, ...(side ? { side } : {}) } });
   /** One curve's rate beside the spread, opening its own explanation. */
-  const rate = (t: string, side: 'of' | 'over', x: number) => (
-    <button type="button" className="cell-explain" aria-label={`${formatPercent(x)}: explain the ${label(choice[side])} ${what} at ${t}`} aria-expanded={openCell !== null && explain.isOpen(cellAt(t, side))} onClick={(e) => explain.toggle(e, cellAt(t, side))}>
-      {formatPercent(x)}
-    </button>
-  );
+  const rate = (t: string, side: 'of' | 'over', x: number) => explain.button(cellAt(t, side), formatPercent(x), `the ${label(choice[side])} ${what} at ${t}`, openCell !== null);
   const open = explain.open;
   const openCell = useMemo(
     () => (open && open.spread.of === choice.of && open.spread.over === choice.over && open.spread.measure === choice.measure ? { spread: { ...open.spread, named, inputs: useAppStore.getState().workspace } } : null),
@@ -135,9 +131,7 @@ export function SpreadView({ result, named }: { result: WorkbenchBuild; named: W
                       <td>{rate(r.tenor, 'of', r.point!.a)}</td>
                       <td>{rate(r.tenor, 'over', r.point!.b)}</td>
                       <td>
-                        <button type="button" className="cell-explain" aria-label={`${bpFigure(r.point!.bp)} bp: explain the spread at ${r.tenor}`} aria-expanded={openCell !== null && explain.isOpen(cellAt(r.tenor))} onClick={(e) => explain.toggle(e, cellAt(r.tenor))}>
-                          {bpFigure(r.point!.bp)}
-                        </button>
+                        {explain.button(cellAt(r.tenor), bpFigure(r.point!.bp), `the spread at ${r.tenor}`, openCell !== null)}
                       </td>
                     </tr>
                   ))}

@@ -85,15 +85,11 @@ export function OvernightTab({ result }: { result: WorkbenchBuild }) {
                     <td>{r.date}</td>
                     {(['before', 'after'] as const).map((level) => (
                       <td key={level} className="num">
-                        <button type="button" className="cell-explain" aria-label={`${formatPercent(r[level])}: explain the level ${level} the step on ${r.date}`} aria-expanded={explain.isOpen({ step: r.date, level })} onClick={(e) => explain.toggle(e, { step: r.date, level })}>
-                          {formatPercent(r[level])}
-                        </button>
+                        {explain.button({ step: r.date, level }, formatPercent(r[level]), `the level ${level} the step on ${r.date}`)}
                       </td>
                     ))}
                     <td className="num">
-                      <button type="button" className="cell-explain" aria-label={`${formatBpChange(r.stepBp)}: explain the step on ${r.date}`} aria-expanded={explain.isOpen({ step: r.date })} onClick={(e) => explain.toggle(e, { step: r.date })}>
-                        {formatBpChange(r.stepBp)}
-                      </button>
+                      {explain.button({ step: r.date }, formatBpChange(r.stepBp), `the step on ${r.date}`)}
                     </td>
                   </tr>
                 ))}
@@ -276,9 +272,7 @@ function Turns({ result }: { result: WorkbenchBuild }) {
                     {t.solveFromRow === undefined || !spreads.some((x) => x.index === i) ? (
                       t.solveFromRow === undefined ? formatBpSetting(t.spreadBp) : solvedText(undefined)
                     ) : (
-                      <button type="button" className="cell-explain" aria-label={`${solvedText(spreads.find((x) => x.index === i))}: explain the spread of the turn ${t.name}`} aria-expanded={explain.isOpen({ turn: i })} onClick={(e) => explain.toggle(e, { turn: i })}>
-                        {solvedText(spreads.find((x) => x.index === i))}
-                      </button>
+                      explain.button({ turn: i }, solvedText(spreads.find((x) => x.index === i)), `the spread of the turn ${t.name}`)
                     )}
                   </td>
                   <td>

@@ -127,11 +127,7 @@ export function PrintTab({ result, rollResult = null }: { result: WorkbenchBuild
       cell = s ? { change: { scenario: s, tenor: what.tenor, field: what.field as 'zero', conventions, buildOptions: workbenchBuildOptions() } } : { tenor: what.tenor, field: what.field };
       words = `${what.field === 'forward' ? `${conv.forwardTenor} forward` : FIGURE_WORDS[what.field]} ${s ? `change at ${what.tenor} under ${s.name}` : `at ${what.tenor}`}`;
     }
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${words}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return explain.button(cell, text, `the ${words}`);
   };
 
   return (

@@ -104,21 +104,13 @@ export function BondAnalyticsPanel({ curve, build: built = null, initial, onForm
     if (!build || !bondInput || text === NO_VALUE) return text;
     const cell: BondCell = { bond: { input: bondInput, figure, side, ...(key === undefined ? {} : { key }) } };
     const words = figure === 'effectiveDuration' ? 'effective duration' : figure === 'keyRateDuration' ? `${DEFAULT_KEY_TENORS[key!]} key-rate duration` : BOND_FIGURE_WORDS[figure];
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${side === 'market' && figure !== 'accrued' ? 'market ' : ''}${words}`} aria-expanded={openCell !== null && explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return explain.button(cell, text, `the ${side === 'market' && figure !== 'accrued' ? 'market ' : ''}${words}`, openCell !== null);
   };
   /** A row of the DV01 to each quote table (quote `index` of the document), as a button that explains it. */
   const dv01To = (index: number, text: string): ReactNode => {
     if (!build || !bondInput) return text;
     const cell: BondCell = { bond: { input: bondInput, figure: 'quoteDv01', side: 'model', key: index } };
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the DV01 to row ${rowNumber(rowOfQuote, index)}`} aria-expanded={openCell !== null && explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return explain.button(cell, text, `the DV01 to row ${rowNumber(rowOfQuote, index)}`, openCell !== null);
   };
   /** A figure on the curve and at the market, each a button (bondFigureValue: the number the table shows). */
   const pair = (figure: BondFigure, format: (x: number) => string): { model: ReactNode; market: ReactNode | null } => {

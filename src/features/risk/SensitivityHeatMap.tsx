@@ -138,7 +138,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
               {out.value.map.rows.map((r, i) => (
                 <tr key={r.start} data-start={r.start}>
                   <th scope="row">{r.start} → {r.end}</th>
-                  <td className="n" data-field="rate">{result && cellAt(r.start, -1) ? <button type="button" className="cell-explain" aria-label={`${formatPercent(r.rate)}: explain the forward ${r.start} to ${r.end}`} aria-expanded={openCell !== null && explain.isOpen(cellAt(r.start, -1)!)} onClick={(e) => explain.toggle(e, cellAt(r.start, -1)!)}>{formatPercent(r.rate)}</button> : formatPercent(r.rate)}</td>
+                  <td className="n" data-field="rate">{result && cellAt(r.start, -1) ? explain.button(cellAt(r.start, -1)!, formatPercent(r.rate), `the forward ${r.start} to ${r.end}`, openCell !== null) : formatPercent(r.rate)}</td>
                   {out.value.map.columns.map((c, k) => {
                     const v = out.value.map.values[i * out.value.map.columns.length + k]!;
                     const shown = nearZero(v, 2, 'bp per bp');
@@ -152,9 +152,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
                         aria-label={`${r.start} forward to row ${rowNumber(rowOfQuote, c.index)}: ${nearZero(v, 3, 'bp per bp').text} bp per bp`}
                       >
                         {result && cellAt(r.start, c.index) ? (
-                          <button type="button" className="cell-explain" aria-label={`${shown.text}: explain the ${r.start} forward's sensitivity to row ${rowNumber(rowOfQuote, c.index)}`} aria-expanded={openCell !== null && explain.isOpen(cellAt(r.start, c.index)!)} onClick={(e) => explain.toggle(e, cellAt(r.start, c.index)!)}>
-                            {shown.text}
-                          </button>
+                          explain.button(cellAt(r.start, c.index)!, shown.text, `the ${r.start} forward's sensitivity to row ${rowNumber(rowOfQuote, c.index)}`, openCell !== null)
                         ) : (
                           shown.text
                         )}

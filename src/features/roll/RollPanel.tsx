@@ -97,11 +97,7 @@ export function RollPanel({ curve, strategy, onStrategyChange, scenarioViews = N
     ? {
         figure: (figure, text, words) => {
           const cell: RollCell = { roll: { figure, strategy, scenarios: scenarioViews } };
-          return (
-            <button type="button" className="cell-explain" aria-label={`${text}: explain the ${words}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
-              {text}
-            </button>
-          );
+          return opener.button(cell, text, `the ${words}`);
         },
         panel: (group) => (openCell && groupOf(openCell.roll.figure) === group ? <OpenExplanation result={explainFrom.result} display={explainFrom.display} cell={openCell} onClose={opener.close} /> : null),
       }

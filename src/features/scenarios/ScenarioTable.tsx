@@ -39,11 +39,7 @@ export function ScenarioTable({ tenors, columns, conventions, explain }: Scenari
     if (!explain || c.error || !c.scenario || bp === null || bp === undefined) return text;
     const cell: ChangeCell = { change: { scenario: c.scenario, tenor: t, field, conventions: explain.conventions, buildOptions: explain.buildOptions } };
     const what = field === 'zero' ? 'zero rate' : `${explain.conventions.forwardTenor} forward`;
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the change of the ${t} ${what} under ${c.name}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return opener.button(cell, text, `the change of the ${t} ${what} under ${c.name}`);
   };
   return (
     <>

@@ -41,21 +41,13 @@ export function ReferenceCurvePanel({ curve, explainFrom }: { curve: Curve | nul
     const text = formatPercent(zero);
     if (!explainFrom || !reference || zero === null) return text;
     const cell: DatedCell = { field: 'zero', start: date, compounding: reference.compounding, dayCount: reference.dayCount };
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain our zero rate on ${date}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return opener.button(cell, text, `our zero rate on ${date}`);
   };
   const differenceCell = (date: string, bp: number | null) => {
     const text = formatBpChange(bp);
     if (!explainFrom || !reference || bp === null) return text;
     const cell: ReferenceCell = { reference: { curve: reference, date } };
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the difference from the reference on ${date}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return opener.button(cell, text, `the difference from the reference on ${date}`);
   };
   return (
     <section className="reference-panel" aria-label="Reference curve">

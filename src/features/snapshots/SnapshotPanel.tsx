@@ -59,21 +59,13 @@ export function SnapshotPanel({ value, onChange, currentDocument, current, now, 
     const text = formatPercent(zero);
     if (!explainFrom || !chosenSnapshot || zero === null) return text;
     const cell: DatedCell = { field: 'zero', start: date, ...(snapshot ? { snapshot } : {}) };
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the ${snapshot ? `${snapshot.name}` : 'current'} zero rate on ${date}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return opener.button(cell, text, `the ${snapshot ? `${snapshot.name}` : 'current'} zero rate on ${date}`);
   };
   const differenceCell = (tenor: string, bp: number | null) => {
     const text = formatBpChange(bp);
     if (!explainFrom || !chosenSnapshot || bp === null) return text;
     const cell: DifferenceCell = { difference: { snapshot: chosenSnapshot, tenor, by, compounding, dayCount } };
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the difference of the ${tenor} zero rate from ${chosenSnapshot.name}`} aria-expanded={opener.isOpen(cell)} onClick={(e) => opener.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return opener.button(cell, text, `the difference of the ${tenor} zero rate from ${chosenSnapshot.name}`);
   };
   const take = (): void => {
     if (!currentDocument) return;

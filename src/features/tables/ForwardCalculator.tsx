@@ -39,11 +39,7 @@ export function ForwardCalculator({ curve, result }: { curve: Curve; result?: Wo
     const text = formatNumber(value, 8);
     if (!result) return text;
     const cell: DatedCell = { field: 'discount', start: date, title: `Discount factor at the ${which} of forward ${i + 1} (${date})` };
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain the discount factor at the ${which} of forward ${i + 1} (${date})`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return explain.button(cell, text, `the discount factor at the ${which} of forward ${i + 1} (${date})`);
   };
   const write = (nextStarts: readonly string[], nextEnds: readonly string[], label: string, mergeKey?: string) =>
     setViewValues({ forwardCalcStarts: [...nextStarts.slice(0, n)], forwardCalcEnds: [...nextEnds.slice(0, n)] }, label, mergeKey);
@@ -105,15 +101,7 @@ export function ForwardCalculator({ curve, result }: { curve: Curve; result?: Wo
                     <td className="n">{df(i, r.value.end, 'end', r.value.dfEnd)}</td>
                     <td className="n" data-forward={i + 1}>
                       {result ? (
-                        <button
-                          type="button"
-                          className="cell-explain"
-                          aria-label={`${formatPercent(r.value.rate)}: explain forward ${i + 1} (${r.value.start} to ${r.value.end})`}
-                          aria-expanded={explain.isOpen({ field: 'forward', start: r.value.start, end: r.value.end })}
-                          onClick={(e) => explain.toggle(e, { field: 'forward', start: r.value.start, end: r.value.end, title: `Forward rate ${i + 1} of the calculator (${r.value.start} to ${r.value.end})` })}
-                        >
-                          {formatPercent(r.value.rate)}
-                        </button>
+                        explain.button({ field: 'forward', start: r.value.start, end: r.value.end, title: `Forward rate ${i + 1} of the calculator (${r.value.start} to ${r.value.end})` }, formatPercent(r.value.rate), `forward ${i + 1} (${r.value.start} to ${r.value.end})`)
                       ) : (
                         formatPercent(r.value.rate)
                       )}

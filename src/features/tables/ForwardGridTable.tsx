@@ -114,9 +114,7 @@ export function ForwardGridTable({ curve, workspace, result }: { curve: Curve; w
               {row.map((c, j) => (
                 <td key={TENORS[j]} className="n" title={c.note ?? `${STARTS[i]!.toLowerCase()}${TENORS[j]!.toLowerCase()}`} data-cell={`${STARTS[i]}x${TENORS[j]}`}>
                   {result && c.rate !== null ? (
-                    <button type="button" className="cell-explain" aria-label={`${formatPercent(c.rate)}: explain the ${c.cell.title}`} aria-expanded={explain.isOpen(c.cell)} onClick={(e) => explain.toggle(e, c.cell)}>
-                      {formatPercent(c.rate)}
-                    </button>
+                    explain.button(c.cell, formatPercent(c.rate), `the ${c.cell.title}`)
                   ) : (
                     formatPercent(c.rate)
                   )}

@@ -40,15 +40,7 @@ export function ForwardStripTable({ curve, result }: { curve: Curve; result?: Wo
               <td className="n">{formatNumber(f.tau, 6)}</td>
               <td className="n" data-field="forward">
                 {result ? (
-                  <button
-                    type="button"
-                    className="cell-explain"
-                    aria-label={`${formatPercent(f.rate)}: explain the forward rate of period ${i + 1} (${f.start} to ${f.end})`}
-                    aria-expanded={explain.isOpen({ field: 'forward', start: f.start, end: f.end, title: '' })}
-                    onClick={(e) => explain.toggle(e, { field: 'forward', start: f.start, end: f.end, title: `${display.forwardTenor} forward rate, period ${i + 1} of the strip (${f.start} to ${f.end})` })}
-                  >
-                    {formatPercent(f.rate)}
-                  </button>
+                  explain.button({ field: 'forward', start: f.start, end: f.end, title: `${display.forwardTenor} forward rate, period ${i + 1} of the strip (${f.start} to ${f.end})` }, formatPercent(f.rate), `the forward rate of period ${i + 1} (${f.start} to ${f.end})`)
                 ) : (
                   formatPercent(f.rate)
                 )}

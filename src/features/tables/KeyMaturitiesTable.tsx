@@ -21,17 +21,7 @@ export function KeyMaturitiesTable({ curve, result }: { curve: Curve; result?: W
   const figure = (tenor: string, field: KeyField, words: string, text: string, present: boolean) => {
     if (!result || !present) return text;
     const cell = { tenor, field };
-    return (
-      <button
-        type="button"
-        className="cell-explain"
-        aria-label={`${text}: explain the ${words}`}
-        aria-expanded={explain.isOpen(cell)}
-        onClick={(e) => explain.toggle(e, cell)}
-      >
-        {text}
-      </button>
-    );
+    return explain.button(cell, text, `the ${words}`);
   };
   const table = (
     <table className="data" aria-label="Key maturities">

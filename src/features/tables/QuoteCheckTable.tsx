@@ -32,11 +32,7 @@ export function QuoteCheckTable({ result }: { result: WorkbenchBuild }) {
   /** A figure that opens its explanation (Enter or a click); `label` names it for a screen reader. */
   const figure = (rep: Repricing, which: QuoteCheckCell['quoteCheck']['figure'], text: string, label: string) => {
     const cell: QuoteCheckCell = { quoteCheck: { index: rep.index, figure: which } };
-    return (
-      <button type="button" className="cell-explain" aria-label={`${text}: explain ${label}`} aria-expanded={explain.isOpen(cell)} onClick={(e) => explain.toggle(e, cell)}>
-        {text}
-      </button>
-    );
+    return explain.button(cell, text, label);
   };
   const byRow = new Map<number, Repricing>();
   for (const r of build.repricing) {

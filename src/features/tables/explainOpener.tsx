@@ -14,17 +14,28 @@ const ExplanationPanel = lazy(() => import('./lazyTables.ts').then((m) => ({ def
 export function useExplainOpener<C extends ExplainCell>(same: (a: C, b: C) => boolean) {
   const [open, setOpen] = useState<C | null>(null);
   const opener = useRef<HTMLElement | null>(null);
+  const isOpen = (cell: C): boolean => open !== null && same(open, cell);
+  const toggle = (e: MouseEvent<HTMLElement>, cell: C): void => {
+    opener.current = e.currentTarget;
+    setOpen(isOpen(cell) ? null : cell);
+  };
   return {
     open,
-    isOpen: (cell: C): boolean => open !== null && same(open, cell),
-    toggle: (e: MouseEvent<HTMLElement>, cell: C): void => {
-      opener.current = e.currentTarget;
-      setOpen(open !== null && same(open, cell) ? null : cell);
-    },
+    isOpen,
+    toggle,
     close: (): void => {
       setOpen(null);
       opener.current?.focus();
     },
+    /**
+     * The figure `text` as a button opening (a second press closing) the explanation of `cell`, named
+     * "text: explain <what>"; `shown` false when the open one is not on show (its table moved on).
+     */
+    button: (cell: C, text: string, what: string, shown = true) => (
+      <button type="button" className="cell-explain" aria-label={`${text}: explain ${what}`} aria-expanded={shown && isOpen(cell)} onClick={(e) => toggle(e, cell)}>
+        {text}
+      </button>
+    ),
   };
 }
 
