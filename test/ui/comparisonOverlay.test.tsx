@@ -115,7 +115,7 @@ describe('useComparisonOverlay', () => {
     expectClose(parametricForward(p, 0), p.b0 + p.b1, 1e-15, 'Nelson and Siegel (1987): f(0) = b0 + b1');
   });
 
-  it("the fit line's points explain themselves: the fitted zero rate on the date, in the display's conventions, the drawn point bit for bit", async () => {
+  it("the fit lines' points explain themselves: the fitted zero rate on the date, and the forward from it, in the display's conventions, the drawn point bit for bit", async () => {
     // Annual ACT/360 (not the curve's day count nor continuous), so the cell must carry the display's conventions.
     act(() => useAppStore.getState().setDisplay({ compounding: 'annual', dayCount: 'ACT/360' }));
     render(<Probe />);
@@ -128,6 +128,14 @@ describe('useComparisonOverlay', () => {
       const e = explainKeyCell(lastBuild!, display, zero.explain!(pt) as ExplainCell);
       if (!e.ok) throw new Error(e.errors[0]!.message);
       expect(Object.is(e.value.explanation.value, pt.y), pt.date).toBe(true);
+    }
+    // So do the fit's forwards: the forward on the fitted curve from the date to one forward tenor later.
+    const fwd = last!.forward.find((l) => l.id === 'fit-forward')!;
+    for (const pt of [fwd.points[5]!, fwd.points[80]!, fwd.points.at(-1)!]) {
+      const e = explainKeyCell(lastBuild!, display, fwd.explain!(pt) as ExplainCell);
+      if (!e.ok) throw new Error(e.errors[0]!.message);
+      expect(Object.is(e.value.explanation.value, pt.y), pt.date).toBe(true);
+      expect(e.value.title).toMatch(/^Fitted forward rate \d{4}-\d{2}-\d{2} to \d{4}-\d{2}-\d{2}$/);
     }
   });
 

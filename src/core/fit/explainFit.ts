@@ -1,6 +1,6 @@
 import { explainQuoteCheck } from '../curve/explainQuote.ts';
 import { explained, explainedConventions, type ExplainedRead, type ExplainedStep, type Explanation } from '../curve/explain.ts';
-import { zeroOn } from '../curve/query.ts';
+import { forwardOn, zeroOn } from '../curve/query.ts';
 import { turnForward, turnLn } from '../bootstrap/turns.ts';
 import { presentValue, targetOnCurve } from '../instruments/instrument.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
@@ -25,6 +25,8 @@ export interface FitZeroAt {
   readonly date: IsoDate;
   readonly compounding: Compounding;
   readonly dayCount: CurveDayCount;
+  /** With it, the forward from `date` to `end` on the fitted curve (forwardOn) instead of the zero rate. */
+  readonly end?: IsoDate;
 }
 
 const PER100 = 'per 100 face';
@@ -126,12 +128,12 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
   };
   const relabel = (reads: readonly ExplainedRead[]) => reads.map((r) => (other(r) ? r : { ...r, formula: `${label} form` }));
   if (figure === 'zero' && at) {
-    const z = explained((sink) => zeroOn(fit.curve, at.date, at.compounding, at.dayCount, 'date', sink));
+    const z = explained<unknown>((sink) => (at.end ? forwardOn(fit.curve, at.date, at.end, at.compounding, at.dayCount, 'forward', sink) : zeroOn(fit.curve, at.date, at.compounding, at.dayCount, 'date', sink)));
     if (!z.ok) return z;
     const e = z.value.explanation;
     if (!form(e.reads, true)) return notShown();
     steps.push(...e.steps);
-    return ok({ ...e, quantity: 'fit-figure', formula: `${formForm} The zero rate: ${e.formula}`, reads: relabel(e.reads), steps });
+    return ok({ ...e, quantity: 'fit-figure', formula: `${formForm} The ${at.end ? 'forward' : 'zero'} rate: ${e.formula}`, reads: relabel(e.reads), steps });
   }
   const o = trace.observations.find((x) => x.ins.index === index);
   const row = fit.residuals.find((r) => r.index === index);

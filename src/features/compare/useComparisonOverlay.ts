@@ -3,6 +3,7 @@ import {
   FIT_MODEL_LABEL,
   rateTag,
   forwardSamples,
+  marketDate,
   parseTenor,
   rebuildSnapshot,
   referenceForwardSamples,
@@ -159,7 +160,7 @@ export function useComparisonOverlay(result: WorkbenchBuild): ComparisonOverlay 
         how.forward.push(line);
         // Its point explains itself: the fitted zero rate on the date, as sampled (display compounding and day count).
         zero.push({ id: 'fit-zero', label: `${label} fit (zero)`, points: points(s.zero), ...common, explain: (p: SamplePoint) => ({ fit: { options: fitOptions!, index: -1, figure: 'zero', date: p.date, compounding: display.compounding, dayCount: display.dayCount } }) });
-        forward.push({ id: 'fit-forward', label: `${label} fit (${fwd})`, points: points(s.forward), ...common });
+        forward.push({ id: 'fit-forward', label: `${label} fit (${fwd})`, points: points(s.forward), ...common, explain: (p: SamplePoint) => ({ fit: { options: fitOptions!, index: -1, figure: 'zero', date: p.date, end: marketDate(p.date, parseTenor(display.forwardTenor)!), compounding: display.compounding, dayCount: display.dayCount } }) });
       }
     }
     return { zero, forward, notes, how };

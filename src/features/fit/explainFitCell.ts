@@ -16,6 +16,8 @@ export interface FitCell {
     /** The table it was opened from (the panel opens beside it): the rich/cheap list's, or the parameters' and chart's ('fit'); else the residuals'. */
     readonly table?: 'rich-cheap' | 'fit';
     readonly date?: string;
+    /** With `date`: the fit line's forward from `date` to `end` instead of its zero rate. */
+    readonly end?: string;
     readonly compounding?: Compounding;
     readonly dayCount?: CurveDayCount;
   };
@@ -42,7 +44,7 @@ export function explainFitCell(result: WorkbenchBuild, cell: FitCell['fit']): Re
   const at = cell.date === undefined ? undefined : ({ compounding: 'continuous', dayCount: fit.value.curve.dayCount, ...cell } as FitZeroAt);
   const r = explainFitFigure(fit.value, sink.trace!, cell.index, f, at, rowOf);
   if (!r.ok) return r;
-  const title = `${TITLE[f] ?? `Fitted ${f}`}${cell.index >= 0 ? ` of ${rowOf(cell.index)}` : at ? ` on ${at.date}` : ''}`;
+  const title = at?.end ? `Fitted forward rate ${at.date} to ${at.end}` : `${TITLE[f] ?? `Fitted ${f}`}${cell.index >= 0 ? ` of ${rowOf(cell.index)}` : at ? ` on ${at.date}` : ''}`;
   // A fitted figure has no bp-per-bp sensitivity short of fitting again per quote; its steps give each quote's weight and residual.
   const note = `none${cell.index < 0 && !at ? ' by bp per bp: it moves with every quote through the whole fit' : ': a fit is not exact'}; no value under other interpolation methods: a parametric form interpolates nothing`;
   return cellOf(result, title, r.value, { ok: true, value: [] }, note, []);

@@ -11,7 +11,7 @@
 // quote is left out and two weighted, so the fit's line runs past its last fitted maturity (flat
 // forward there, as every curve; the left-out quote's residual reads the form itself, as fitCurve's
 // residuals do) and the weights enter the objective.
-import { buildCurve, explainFitFigure, fitCurve, HUMP_PEAK, OVERNIGHT_KIT, sampleGrid, zeroOn, zeroSamples, type Explanation, type FitErrors, type FitModel, type FitSink } from '../../../src/core/index.ts';
+import { buildCurve, explainFitFigure, fitCurve, forwardSamples, HUMP_PEAK, marketDate, OVERNIGHT_KIT, sampleGrid, zeroOn, zeroSamples, type Explanation, type FitErrors, type FitModel, type FitSink } from '../../../src/core/index.ts';
 import { workspaceDoc } from '../../helpers/markets.ts';
 import { rel } from '../../helpers/quoteCheckRecompute.ts';
 
@@ -201,6 +201,23 @@ describe('explainFitFigure: residual per 100 face, parameters, RMS and the fit l
         });
       }
       expect(past).toBeGreaterThan(0);
+    });
+
+    it(`${model}, ${errors} errors: the fit line's forward (date to end) is the charts' forwardSamples bit for bit; recomputed from its two ln DF to 1e-15`, () => {
+      const end = buildCurve(workspaceDoc(MARKET, { settlement: VALUATION })).curve!.pillars.at(-1)!.date;
+      const grid = sampleGrid(fit.curve.settlement, end, 40, fit.curve.dayCount, 'ACT/360', { n: 3, unit: 'M' });
+      const s = forwardSamples(fit.curve, grid, 'simple');
+      expect(s.dates.length).toBeGreaterThan(20);
+      s.dates.forEach((date, i) => {
+        const r = explainFitFigure(fit, trace, -1, 'zero', { date, end: marketDate(date, { n: 3, unit: 'M' }), compounding: 'simple', dayCount: 'ACT/360' });
+        if (!r.ok) throw new Error(`${date}: ${r.errors[0]!.message}`);
+        const e = r.value;
+        expect(Object.is(e.value, s.y[i]), date).toBe(true);
+        // A simple forward: (DF(start) / DF(end) - 1) / tau (its definition, common practice), from the ln DF shown.
+        const ln = (name: string) => e.reads.find((x) => x.name === name)?.lnDiscount ?? 0;
+        const tau = e.yearFractions.find((y) => y.name === 'tau')!.value;
+        expect(rel(Math.expm1(ln('DF(start)') - ln('DF(end)')) / tau, e.value), date).toBeLessThanOrEqual(1e-15);
+      });
     });
   }
 });
