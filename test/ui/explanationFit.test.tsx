@@ -40,7 +40,10 @@ describe('explanations in the smooth fit', () => {
     expect(steps.at(-1)).toBe(`residual = (model yield - market yield) x 10,000 = ${fullText(r.residualBp)} (bp)`);
     expect(steps[0]).toBe(`b0 = fitted = ${fullText(fit.value.params.b0)} (decimal per year (continuous))`);
     expect(steps.some((s) => s!.startsWith('tau2 = fitted'))).toBe(true);
-    expect(within(panel).getByRole('region', { name: 'Quotes it depends on most' }).textContent).toMatch(/a fit is not exact.*no value under other interpolation methods/);
+    // The quotes it moves with through the fit (fitQuotes, held to bump and refit in test/core/fit/fitQuotes.test.ts), each a link to its row.
+    const quotes = within(panel).getByRole('region', { name: 'Quotes it depends on most' });
+    expect(quotes.textContent).toMatch(/through the fit.*no value under other interpolation methods/);
+    expect(within(quotes).getAllByRole('button', { name: /^Row \d+:/ }).length).toBe(5);
     await user.keyboard('{Escape}');
     expect(screen.queryByRole('complementary')).not.toBeInTheDocument();
     expect(button).toHaveFocus();

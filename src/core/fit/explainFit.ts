@@ -8,7 +8,9 @@ import type { Compounding } from '../rates/compounding.ts';
 import type { IsoDate } from '../time/date.ts';
 import type { CurveDayCount } from '../time/dayCount.ts';
 import { fittedResidual, type FitResult, type FitSink } from './fitCurve.ts';
-import { BETA_BOUND, curvatureLoading, FIT_MODEL_LABEL, parametricForward, parametricZero, slopeLoading, TAU_MAX, TAU_MIN } from './parametricForm.ts';
+import { BETA_BOUND, curvatureLoading, FIT_MODEL_LABEL, parametricForward, parametricLnDiscount, parametricZero, slopeLoading, TAU_MAX, TAU_MIN } from './parametricForm.ts';
+import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
+import type { QuoteInfluence } from '../analytics/explainRisk.ts';
 
 /** A fitted parameter of the form. */
 export type FitParam = 'b0' | 'b1' | 'b2' | 'b3' | 'tau1' | 'tau2';
@@ -211,3 +213,42 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
 
 /** A step `name = rhs`. */
 const st = (name: string, rhs: string, inputs: string[], value: number, unit: string): ExplainedStep => ({ name, formula: `${name} = ${rhs}`, inputs, value, unit });
+
+/**
+ * The quotes a fitted figure depends on most, bp per bp of each quote's own yield: a b parameter
+ * (`of` its name), or a quote's model yield (`of` its index; with `residual`, its residual). The fit
+ * solves grad S = sum_i w_i r_i grad r_i = 0 (r_i = model minus market, d r_i / d q_k = -1 when i = k),
+ * so by the implicit function theorem d theta / d q_k = H^-1 grad r_k w_k, H = sum_i w_i (grad r_i
+ * grad r_i^T + r_i hess r_i) over the fitted quotes, the derivatives in the free parameters by
+ * central differences (a tau on its bound is held, as the fit holds it); a model yield moves by
+ * grad r_i . d theta / d q_k, its residual by that less 1 for its own quote. The `count` largest.
+ */
+export function fitQuotes(fit: FitResult, trace: NonNullable<FitSink['trace']>, of: string | number, residual = false, count = 5): Result<QuoteInfluence[]> {
+  const p = fit.params as unknown as Record<string, number>;
+  const names = ['b0', 'b1', 'b2', ...(fit.params.tau2 !== null ? ['b3', 'tau1', 'tau2'] : ['tau1'])].filter((k) => k[0] === 'b' || (p[k]! > TAU_MIN && p[k]! < TAU_MAX));
+  const all = trace.observations;
+  const n = names.length;
+  const step = (k: string): number => 1e-5 * Math.max(0.01, Math.abs(p[k]!));
+  const res = (q: Record<string, number>): number[] => all.map((o) => fittedResidual(o, fit.errors, (t) => parametricLnDiscount(q as never, t) + turnLn(trace.turns, t)));
+  const moved = (q: Record<string, number>, k: string, h: number) => ({ ...q, [k]: q[k]! + h });
+  // grad r_i at q: row i, one column per free parameter.
+  const grad = (q: Record<string, number>): number[][] => {
+    const cols = names.map((k) => {
+      const [up, down] = [res(moved(q, k, step(k))), res(moved(q, k, -step(k)))];
+      return up.map((u, i) => (u - down[i]!) / (2 * step(k)));
+    });
+    return all.map((_, i) => cols.map((c) => c[i]!));
+  };
+  const J = grad(p);
+  const r0 = res(p);
+  const d2 = names.map((k) => [grad(moved(p, k, step(k))), grad(moved(p, k, -step(k)))]);
+  const a = new Float64Array(n * n);
+  all.forEach((o, i) => o.included && names.forEach((_, u) => names.forEach((k, v) => (a[u * n + v] = a[u * n + v]! + o.weight * (J[i]![u]! * J[i]![v]! + r0[i]! * (d2[v]![0]![i]![u]! - d2[v]![1]![i]![u]!) / (2 * step(k)))))));
+  const f = luFactor(a, n);
+  const c = typeof of === 'string' ? names.map((k) => +(k === of)) : J[all.findIndex((o) => o.ins.index === of)];
+  if (!f || !c) return fail(coreError('no-solution', 'curve.fit', 'the fit cannot tell its quotes apart here'));
+  const inv = luInverse(f);
+  const y = names.map((_, u) => names.reduce((s, __, l) => s + inv[l * n + u]! * c[l]!, 0));
+  const list = all.map((o, i) => ({ index: o.ins.index, kind: o.ins.kind, maturity: o.ins.maturity, yieldLabel: o.qy.label, bpPerBp: (o.included ? y.reduce((s, v, l) => s + v * J[i]![l]!, 0) * o.weight : 0) - +(residual && o.ins.index === of) }));
+  return ok(list.filter((x) => x.bpPerBp !== 0).sort((x, z) => Math.abs(z.bpPerBp) - Math.abs(x.bpPerBp)).slice(0, count));
+}

@@ -1,4 +1,4 @@
-import { explainFitFigure, fitCurve, type Compounding, type CurveDayCount, type FitFigure, type FitOptions, type FitSink, type FitZeroAt, type Result } from '../../core/index.ts';
+import { explainFitFigure, fitCurve, fitQuotes, type Compounding, type CurveDayCount, type FitFigure, type FitOptions, type FitSink, type FitZeroAt, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { cellOf, noCurve, type CellExplanation } from '../tables/explainCell.ts';
 
@@ -45,7 +45,9 @@ export function explainFitCell(result: WorkbenchBuild, cell: FitCell['fit']): Re
   const r = explainFitFigure(fit.value, sink.trace!, cell.index, f, at, rowOf);
   if (!r.ok) return r;
   const title = at?.end ? `Fitted forward rate ${at.date} to ${at.end}` : `${TITLE[f] ?? `Fitted ${f}`}${cell.index >= 0 ? ` of ${rowOf(cell.index)}` : at ? ` on ${at.date}` : ''}`;
-  // A fitted figure has no bp-per-bp sensitivity short of fitting again per quote; its steps give each quote's weight and residual.
-  const note = `none${cell.index < 0 && !at ? ' by bp per bp: it moves with every quote through the whole fit' : ': a fit is not exact'}; no value under other interpolation methods: a parametric form interpolates nothing`;
-  return cellOf(result, title, r.value, { ok: true, value: [] }, note, []);
+  // A b parameter, a model yield or a residual: its quotes through the fit's normal equations (fitQuotes); the other figures list none.
+  const by = f[0] === 'b' ? f : cell.index >= 0 && (f === 'yield' || f === 'residual') ? cell.index : null;
+  const quotes = by === null ? { ok: true as const, value: [] } : fitQuotes(fit.value, sink.trace!, by, f === 'residual');
+  const note = `${by === null ? 'none: see the steps' : 'through the fit (its normal equations at the fitted parameters)'}; no value under other interpolation methods: a parametric form interpolates nothing`;
+  return cellOf(result, title, r.value, quotes, note, []);
 }
