@@ -65,6 +65,23 @@ export const INVENTED_2027 = {
   swap30Y: { kind: 'swap', tenor: '30Y', rate: 0.0366 },
 } as const satisfies Record<string, Quote>;
 
+/**
+ * An invented market valued 2026-12-02 for the smooth fit's tests: deposits, a bill, a zero, an OIS,
+ * swaps and bonds by yield and by price (one settled at spot on a calendar).
+ */
+export const INVENTED_2026_FIT: readonly Quote[] = [
+  { kind: 'deposit', tenor: '1M', rate: 0.0383 },
+  { kind: 'deposit', tenor: '3M', rate: 0.0379 },
+  { kind: 'bill', maturity: '2027-06-03', discountYield: 0.0368 },
+  { kind: 'zero', tenor: '1Y', rate: 0.0352, compounding: 'semiannual', dayCount: 'ACT/365F' },
+  { kind: 'ois', tenor: '2Y', rate: 0.0345 },
+  { kind: 'swap', tenor: '3Y', rate: 0.0349 },
+  { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0361 },
+  { kind: 'bond', maturity: '2033-05-15', coupon: 0.04, frequency: 2, cleanPrice: 101.2 },
+  { kind: 'swap', tenor: '10Y', rate: 0.0381 },
+  { kind: 'bond', maturity: '2035-02-15', coupon: 0.0375, frequency: 2, cleanPrice: 99.4, calendar: 'us-gov-securities', spotLag: 1 },
+];
+
 /** The invented 2027 market with every quote kind, price and rate quotes (nine quotes). */
 export const INVENTED_2027_EVERY_KIND: readonly Quote[] = [
   INVENTED_2027.depo1M,

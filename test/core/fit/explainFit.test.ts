@@ -6,22 +6,11 @@
 // Svensson, NBER WP 4871, 1994), ln DF = -y t, and the quote's model value from those reads by its
 // kind's formula (test/helpers/quoteCheckRecompute.ts), all to 1e-15 relative. Market invented.
 import { bondDirtyFromYield, buildCurve, explainFitFigure, fitCurve, type FitSink, type FitErrors, type FitModel } from '../../../src/core/index.ts';
-import { workspaceDoc } from '../../helpers/markets.ts';
+import { INVENTED_2026_FIT, workspaceDoc } from '../../helpers/markets.ts';
 import { recompute, rel } from '../../helpers/quoteCheckRecompute.ts';
 
 const VALUATION = '2026-12-02';
-const MARKET = [
-  { kind: 'deposit', tenor: '1M', rate: 0.0383 },
-  { kind: 'deposit', tenor: '3M', rate: 0.0379 },
-  { kind: 'bill', maturity: '2027-06-03', discountYield: 0.0368 },
-  { kind: 'zero', tenor: '1Y', rate: 0.0352, compounding: 'semiannual', dayCount: 'ACT/365F' },
-  { kind: 'ois', tenor: '2Y', rate: 0.0345 },
-  { kind: 'swap', tenor: '3Y', rate: 0.0349 },
-  { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0361 },
-  { kind: 'bond', maturity: '2033-05-15', coupon: 0.04, frequency: 2, cleanPrice: 101.2 },
-  { kind: 'swap', tenor: '10Y', rate: 0.0381 },
-  { kind: 'bond', maturity: '2035-02-15', coupon: 0.0375, frequency: 2, cleanPrice: 99.4, calendar: 'us-gov-securities', spotLag: 1 },
-];
+const MARKET = INVENTED_2026_FIT;
 const ws = buildCurve(workspaceDoc(MARKET, { settlement: VALUATION })).workspace!;
 
 /** The form's zero rate by the published formula, (1 - e^-x) as -expm1(-x) for precision at small x. */

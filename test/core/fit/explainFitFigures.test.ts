@@ -12,21 +12,11 @@
 // forward there, as every curve; the left-out quote's residual reads the form itself, as fitCurve's
 // residuals do) and the weights enter the objective.
 import { buildCurve, explainFitFigure, fitCurve, forwardSamples, HUMP_PEAK, marketDate, OVERNIGHT_KIT, sampleGrid, zeroOn, zeroSamples, type Explanation, type FitErrors, type FitModel, type FitSink } from '../../../src/core/index.ts';
-import { workspaceDoc } from '../../helpers/markets.ts';
+import { INVENTED_2026_FIT, workspaceDoc } from '../../helpers/markets.ts';
 import { rel } from '../../helpers/quoteCheckRecompute.ts';
 
 const VALUATION = '2026-12-02';
-const MARKET = [
-  { kind: 'deposit', tenor: '1M', rate: 0.0383 },
-  { kind: 'deposit', tenor: '3M', rate: 0.0379 },
-  { kind: 'bill', maturity: '2027-06-03', discountYield: 0.0368 },
-  { kind: 'zero', tenor: '1Y', rate: 0.0352, compounding: 'semiannual', dayCount: 'ACT/365F' },
-  { kind: 'ois', tenor: '2Y', rate: 0.0345 },
-  { kind: 'swap', tenor: '3Y', rate: 0.0349 },
-  { kind: 'bond', maturity: '2031-09-20', coupon: 0.0325, frequency: 2, yield: 0.0361 },
-  { kind: 'bond', maturity: '2033-05-15', coupon: 0.04, frequency: 2, cleanPrice: 101.2 },
-  { kind: 'swap', tenor: '10Y', rate: 0.0381 },
-  { kind: 'bond', maturity: '2035-02-15', coupon: 0.0375, frequency: 2, cleanPrice: 99.4, calendar: 'us-gov-securities', spotLag: 1 },
+const MARKET = [...INVENTED_2026_FIT,
   { kind: 'swap', tenor: '15Y', rate: 0.0392 },
 ];
 // Extrapolated flat-forward, so the charts draw the fit past its last fitted maturity.
