@@ -66,7 +66,9 @@ describe('the explanations of the quote check and the smooth fit', () => {
     await panel.waitFor({ timeout: 20_000 });
     const value = (await panel.locator('[data-field="value"]').textContent())!;
     expectShown(shown, value);
-    expect(await panel.textContent()).toContain('a fit is not exact');
+    // The quotes it moves with through the fit, each a link to its sheet row (fitQuotes).
+    expect(await panel.textContent()).toContain('through the fit');
+    expect(await panel.getByRole('button', { name: /^Row \d+:/ }).count()).toBe(5);
     await panel.scrollIntoViewIfNeeded();
     await screenshot(page, 'explanation-fit-1280');
     expect(await seriousAxeFindings(page, ['.fit-panel'])).toEqual([]);

@@ -45,10 +45,15 @@ export function useExplainOpener<C extends ExplainCell>(same: (a: C, b: C) => bo
  */
 export function OpenExplanation({ result, display, cell, onClose }: { result: WorkbenchBuild; display: DisplaySettings; cell: ExplainCell | null; onClose: () => void }) {
   const settled = useSettledValue(result);
+  // A number opened reads the build its table shows now (the settled one may lag an edit just made); after that the panel follows the settled build.
+  const openedWith = useRef(result);
+  const wasOpen = useRef(false);
+  if (cell && !wasOpen.current) openedWith.current = result;
+  wasOpen.current = cell !== null;
   if (!cell) return null;
   return (
     <Suspense fallback={<p className="muted small" role="status">Loading the explanation…</p>}>
-      <ExplanationPanel result={settled} display={display} cell={cell} onClose={onClose} />
+      <ExplanationPanel result={openedWith.current === result ? result : settled} display={display} cell={cell} onClose={onClose} />
     </Suspense>
   );
 }
