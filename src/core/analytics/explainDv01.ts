@@ -20,11 +20,11 @@ const PER100 = 'per 100 face';
 export function explainQuoteDv01(curve: Curve, settings: BootstrapSettings, instruments: readonly Instrument[], flows: readonly Flow[], k: number): Result<Explanation> {
   const ins = instruments[k];
   if (!ins) return fail(coreError('schema', 'quote', 'this quote is not in the curve now'));
-  const yields = instruments.map((i) => quoteYieldOf(i, settings.settlement));
+  const qy = quoteYieldOf(ins, settings.settlement);
   const rec: QuoteDv01Record = { yield: NaN, sides: [] };
-  const d = quoteDv01Of(settings, instruments, yields, flows, k, rec);
+  const d = quoteDv01Of(settings, instruments, flows, k, qy, rec);
   if (!d.ok) return d;
-  const label = yields[k]!.label;
+  const label = qy.label;
   const steps: ExplainedStep[] = [{ name: 'y0', formula: `y0 = the quote's own yield, ${label}, at its market value ${ins.market}`, inputs: [], value: rec.yield, unit: 'decimal per year' }];
   flows.forEach((f, i) => steps.push({ name: `CF${i + 1}`, formula: `CF${i + 1} = the bond's flow at t${i + 1} = ${f.t} years (${curve.dayCount})`, inputs: [], value: f.amount, unit: PER100 }));
   for (const side of rec.sides) {

@@ -28,21 +28,23 @@ export interface QuoteDv01Record {
  * difference, per 100 face per bp. Positive when a rise in the quote lowers the price.
  */
 export function quoteDv01s(settings: BootstrapSettings, instruments: readonly Instrument[], flows: readonly Flow[]): Result<QuoteDv01[]> {
-  const yields = instruments.map((ins) => quoteYieldOf(ins, settings.settlement));
   const out: QuoteDv01[] = [];
   for (let k = 0; k < instruments.length; k++) {
-    const d = quoteDv01Of(settings, instruments, yields, flows, k);
-    if (!d.ok) return d;
     const ins = instruments[k]!;
-    out.push({ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: yields[k]!.label, dv01: d.value });
+    const qy = quoteYieldOf(ins, settings.settlement);
+    const d = quoteDv01Of(settings, instruments, flows, k, qy);
+    if (!d.ok) return d;
+    out.push({ index: ins.index, kind: ins.kind, maturity: ins.maturity, yieldLabel: qy.label, dv01: d.value });
   }
   return ok(out);
 }
 
-/** One quote's DV01 (position k of `instruments`), as quoteDv01s computes it; `rec` records its steps. */
-export function quoteDv01Of(settings: BootstrapSettings, instruments: readonly Instrument[], yields: readonly QuoteYield[], flows: readonly Flow[], k: number, rec?: QuoteDv01Record): Result<number> {
+/** One quote's DV01 (position k of `instruments`, moved through its own yield `qy`), as quoteDv01s computes it; `rec` records its steps. */
+export function quoteDv01Of(settings: BootstrapSettings, instruments: readonly Instrument[], flows: readonly Flow[], k: number, qy: QuoteYield = quoteYieldOf(instruments[k]!, settings.settlement), rec?: QuoteDv01Record): Result<number> {
+  const y0 = qy.toYield(instruments[k]!.market);
+  if (rec) rec.yield = y0;
   const price = (dy: number): Result<number> => {
-    const moved = instruments.map((ins, i) => (i === k ? requoteAtYield(ins, yields[i]!, yields[i]!.toYield(ins.market) + dy) : ins));
+    const moved = instruments.map((ins, i) => (i === k ? requoteAtYield(ins, qy, y0 + dy) : ins));
     const built = bootstrapInstruments(settings, moved);
     if (!built.curve) return { ok: false, errors: built.errors };
     let p = 0;
@@ -52,10 +54,7 @@ export function quoteDv01Of(settings: BootstrapSettings, instruments: readonly I
       if (rec) ln.push(l);
       p += f.amount * Math.exp(l);
     }
-    if (rec) {
-      rec.yield = yields[k]!.toYield(instruments[k]!.market);
-      rec.sides.push({ dy, market: moved[k]!.market, ln, price: p });
-    }
+    if (rec) rec.sides.push({ dy, market: moved[k]!.market, ln, price: p });
     return ok(p);
   };
   const up = price(ONE_BP);

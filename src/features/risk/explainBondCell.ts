@@ -8,7 +8,6 @@ import {
   explainQuoteDv01,
   formatPercent,
   quoteDv01Of,
-  quoteYieldOf,
   topInfluencesOfLn,
   type BondAnalytics,
   type BondFigure,
@@ -99,7 +98,7 @@ function explainQuoteDv01Cell(result: WorkbenchBuild, input: BondInput, index: n
     (on) => {
       const b = builds.get(on)!;
       const j = b.instruments.findIndex((i) => i.index === index);
-      return quoteDv01Of(b.settings!, b.instruments, b.instruments.map((i) => quoteYieldOf(i, b.settings!.settlement)), flows, j);
+      return quoteDv01Of(b.settings!, b.instruments, flows, j);
     },
   );
   const ins = instruments[k]!;
