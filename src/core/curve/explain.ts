@@ -105,6 +105,8 @@ export interface ExplainedRead {
    * discount, a node, settlement, extrapolation); false when the method reads every node (a spline).
    */
   readonly local: boolean;
+  /** The curve it is read off when that is not the curve explained (a named curve's swap: its discounting curve, its other leg's). */
+  readonly curve?: string;
   /** The continuously compounded instantaneous forward carried on past the last node (extrapolated only). */
   readonly forward?: number;
   /** How the value follows from the nodes, in plain notation. */

@@ -181,7 +181,7 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
       const k = (seen[role + c] = (seen[role + c] ?? 0) + 1);
       if (tau !== undefined) yfs.push(explainedYearFraction(`tau${k}`, q.dayCount, prev, (prev = d), tau));
       const r = explainRead(on, P(c, role + k), d, t, y);
-      reads.push({ ...r, nodes: r.nodes.map((x) => ({ ...x, curve: c })) });
+      reads.push({ ...r, curve: c, nodes: r.nodes.map((x) => ({ ...x, curve: c })) });
     }
     const pd = (x: string): string => P(discount, x);
     // A leg: sum_k w_k x P_discount(role k), its value the instrument's own (traced).

@@ -108,7 +108,7 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
   }
   // The form's steps of each read: y(t) and ln DF = -y t + ln J (fitCurve's lnFit, which its residuals read); on the fitted curve (`flat`) flat-forward past T.
   // A read of another curve (a named curve's swap: its discounting, its other leg) is held as built, not the form.
-  const other = (r: ExplainedRead): boolean => /^P_/.test(r.name) && !r.name.startsWith('P_this curve(');
+  const other = (r: ExplainedRead): boolean => r.curve !== undefined;
   const form = (reads: readonly ExplainedRead[], flat?: boolean): boolean => {
     for (const r of reads) {
       if (other(r)) continue;
