@@ -138,6 +138,12 @@ describe('adding, changing and removing curves', () => {
     expect(named()!.map((c) => c.name)).toEqual(['govt']);
     act(() => useAppStore.getState().undo());
     expect(named()).toEqual(withIndex);
+    // The prompt keeps the curve it was opened for: another curve picked meanwhile is not the one removed.
+    await u.click(screen.getByRole('button', { name: 'Remove euribor6m' }));
+    await u.selectOptions(picker, 'govt');
+    const again = screen.getByText(/"euribor3m" needs the curve "euribor6m"/);
+    await u.click(within(again.closest('div')!).getByRole('button', { name: 'Remove euribor6m and "euribor3m"' }));
+    expect(named()!.map((c) => c.name)).toEqual(['govt']);
   });
 });
 

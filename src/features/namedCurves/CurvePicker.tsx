@@ -26,10 +26,11 @@ export function CurvePicker({ named, adding = false, onAdding }: { named: Workbe
   const raw = useAppStore((s) => s.workspace.curves);
   const readOnly = useAppStore((s) => s.readOnly !== null);
   const [form, setForm] = useState<'' | 'add' | 'change'>(adding ? 'add' : '');
-  const [needers, setNeeders] = useState<readonly string[]>([]);
+  // The curve whose removal waits on its dependents, named when Remove was pressed (the picker may move on meanwhile).
+  const [removing, setRemoving] = useState<{ readonly name: string; readonly dependents: readonly string[] } | null>(null);
   const close = () => {
     setForm('');
-    setNeeders([]);
+    setRemoving(null);
     onAdding?.(false);
   };
   // Every curve the document names, built or not (a curve refused by the reader can still be changed or removed).
@@ -64,7 +65,10 @@ export function CurvePicker({ named, adding = false, onAdding }: { named: Workbe
             <button type="button" disabled={readOnly} onClick={() => setForm('change')}>
               Change {choice.shown}
             </button>
-            <button type="button" disabled={readOnly} onClick={() => setNeeders(removeShown(choice.shown, false))}>
+            <button type="button" disabled={readOnly} onClick={() => {
+              const dependents = removeShown(choice.shown, false);
+              setRemoving(dependents.length > 0 ? { name: choice.shown, dependents } : null);
+            }}>
               Remove {choice.shown}
             </button>
           </>
@@ -72,7 +76,7 @@ export function CurvePicker({ named, adding = false, onAdding }: { named: Workbe
       </div>
       {form === 'add' && <CurveForm key="add" editing={null} names={allNames} onDone={close} />}
       {form === 'change' && choice.shown !== '' && <CurveForm key={choice.shown} editing={choice.shown} names={allNames} onDone={close} />}
-      {needers.length > 0 && <RemoveCurve name={choice.shown} dependents={needers} onDone={close} />}
+      {removing && <RemoveCurve name={removing.name} dependents={removing.dependents} onDone={close} />}
       <p className="muted small">
         This workspace holds {count} named {count === 1 ? 'curve' : 'curves'} besides the default one. The sheet's quotes build the curve "{DEFAULT_NAME}" and are discounted on it; the charts and tables show the curve chosen
         here.
