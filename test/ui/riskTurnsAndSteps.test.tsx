@@ -12,7 +12,7 @@ import { App } from '../../src/app/App.tsx';
 import { installFeaturePanels } from '../../src/app/installFeaturePanels.tsx';
 import { loadOvernightKit } from '../../src/hooks/overnightKit.ts';
 import { INVENTED_2022_SOLVED_TURN } from '../helpers/markets.ts';
-import { analyzeBond, buildCurve, nearZero, OVERNIGHT_KIT, quoteDv01s, sensitivityMapFor } from '../../src/core/index.ts';
+import { analyzeBond, buildCurve, fullText, nearZero, OVERNIGHT_KIT, quoteDv01s, sensitivityMapFor } from '../../src/core/index.ts';
 import { withEngineWorkspace } from '../helpers/engineWorkspace.ts';
 
 const ENGINE = INVENTED_2022_SOLVED_TURN;
@@ -48,6 +48,14 @@ describe('Bond and sensitivities with a solved turn', { timeout: 30_000 }, () =>
     const label = (v: number) => `2022-12-01 forward to row 4: ${nearZero(v, 3, 'bp per bp').text} bp per bp`;
     expect(label(value(withTurn))).not.toBe(label(value(without)));
     expect(within(heat).getByLabelText(/^2022-12-01 forward to row 4:/)).toHaveAttribute('aria-label', label(value(withTurn)));
+    // Its explanations read the same map, turn included: the cell and the forward's own rate, each its figure to all digits.
+    await user.click(within(heat).getByRole('button', { name: /explain the 2022-12-01 forward's sensitivity to row 4$/ }));
+    const cellPanel = await screen.findByRole('complementary', { name: /Sensitivity of the forward 2022-12-01/ });
+    expect(cellPanel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(value(withTurn)));
+    const row1 = withTurn.value.map.rows.find((r) => r.start === '2022-12-01')!;
+    await user.click(within(heat).getByRole('button', { name: new RegExp(`explain the forward 2022-12-01 to ${row1.end}$`) }));
+    const ratePanel = await screen.findByRole('complementary', { name: /Forward 2022-12-01 to .* of the sensitivity map/ });
+    expect(ratePanel.querySelector('[data-field="value"]')!.textContent).toBe(fullText(row1.rate));
 
     // The DV01 to each quote of the bond in the form (10Y, 4 % by default: beyond the curve, so a 2-year bond).
     await user.clear(screen.getByRole('textbox', { name: 'Maturity (date or tenor)' }));

@@ -9,7 +9,7 @@ import { queryYearFraction, type CurveDayCount, type DayCount } from '../time/da
 import { forwardSensitivities, quoteNodeJacobian, type ForwardRow, type SensitivityTrace } from './forwardSensitivity.ts';
 import { explainedConventions, explainedYearFraction, explainRead, LN_UNIT, rateUnit, type ExplainedStep, type Explanation } from '../curve/explain.ts';
 import { periodsPerYear } from '../rates/compounding.ts';
-import { nodeCount } from './nodePartials.ts';
+import { nodeCount, solvedSpans } from './nodePartials.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 
@@ -120,7 +120,7 @@ export function topInfluencesOfLn(curve: Curve, instruments: readonly Instrument
  * unknown's row of the inverse node Jacobian, in bp of spread per bp of the quote's own yield.
  */
 export function topInfluencesOfSolvedTurn(curve: Curve, instruments: readonly Instrument[], turnIndex: number, count = 5): Result<QuoteInfluence[]> {
-  const solved = curve.turned?.spans.filter((x) => typeof x.solveFrom === 'number') ?? [];
+  const solved = solvedSpans(curve);
   const k = solved.findIndex((x) => x.index === turnIndex);
   if (k < 0) return fail(coreError('schema', `turns[${turnIndex}]`, 'this turn has no spread solved from a quote on the curve'));
   const column = nodeCount(curve) - solved.length + k;
@@ -203,10 +203,13 @@ export function explainForwardSensitivity(curve: Curve, instruments: readonly In
     { name: 'dF/dL', formula: `dF/dL = ${m === Infinity ? '-1 / tau' : m === 0 ? '-exp(-L) / tau' : `-exp(-L / (${m} tau)) / tau`}`, inputs: ['L', 'tau'], value: r.dFdL, unit: `${rUnit} per unit of ln DF` },
   ];
   const terms: string[] = [];
+  // The curve's unknowns: ln DF at each pillar, then each turn spread solved from a quote.
+  const solved = solvedSpans(curve);
+  const n = curve.pillars.length;
   r.g.forEach((g, j) => {
     if (g === 0) return;
     const k = j + 1;
-    const x = `x${k} (ln DF at node ${k}, ${curve.pillars[j]!.date})`;
+    const x = `x${k} (${j < n ? `ln DF at node ${k}, ${curve.pillars[j]!.date}` : `the spread of the turn ${solved[j - n]!.name}, solved from its quote`})`;
     steps.push(
       { name: `dE${k}`, formula: `dE${k} = d ln DF(end) / d ${x}, by ${curve.interpolation}`, inputs: [], value: r.end[j]!, unit: 'unitless' },
       { name: `dS${k}`, formula: `dS${k} = d ln DF(start) / d x${k}`, inputs: [], value: r.start[j]!, unit: 'unitless' },

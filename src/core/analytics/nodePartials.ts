@@ -93,7 +93,8 @@ export function nodePartials(curve: Curve, times: ArrayLike<number>, spotBridge?
 }
 
 /** The turns of a curve whose spread was solved from a quote (each one more unknown after the pillars). */
-const solvedSpans = (curve: Curve) => curve.turned?.spans.filter((s) => typeof s.solveFrom === 'number') ?? [];
+/** The curve's turns whose spread was solved from a quote: its unknowns after the pillars, in this order. */
+export const solvedSpans = (curve: Curve) => curve.turned?.spans.filter((s) => typeof s.solveFrom === 'number') ?? [];
 
 /** The unknowns of a curve's build: its pillars and its solved turn spreads, one per quote it was built from. */
 export const nodeCount = (curve: Curve): number => curve.pillars.length + solvedSpans(curve).length;

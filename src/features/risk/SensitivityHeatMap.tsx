@@ -1,10 +1,10 @@
 import { useMemo, useState } from 'react';
-import { INTERPOLATIONS, INTERPOLATORS, parseTenor, sensitivityMapFor, type InterpolationId, type Workspace, formatPercent, nearZero, rateTag } from '../../core/index.ts';
+import { INTERPOLATIONS, INTERPOLATORS, parseTenor, type InterpolationId, type Workspace, formatPercent, nearZero, rateTag } from '../../core/index.ts';
 import { rowNumber } from '../../components/format.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
 import { useAppStore } from '../../state/store.ts';
 import { OpenExplanation, useExplainOpener } from '../tables/explainOpener.tsx';
-import type { SensitivityCell } from './explainSensitivityCell.ts';
+import { heatMapFor, type SensitivityCell } from './explainSensitivityCell.ts';
 import { loadedOvernightKit } from '../../hooks/overnightKit.ts';
 
 export interface SensitivityHeatMapProps {
@@ -68,7 +68,7 @@ export function SensitivityHeatMap({ workspace, interpolation, tenor = '3M', ste
     const s = parseTenor(fwdStep);
     if (!t || !s) return null;
     // Built as the workbench builds it: the turns (solved spreads too) and meeting steps with their code.
-    return sensitivityMapFor(workspace, { interpolation: method, tenor: t, step: s, compounding: 'simple', ...(kit ? { overnight: kit } : {}) });
+    return heatMapFor(workspace, method, t, s);
   }, [workspace, method, fwdTenor, fwdStep, kit]);
   const scale = useMemo(() => {
     if (!out || !out.ok) return 1;

@@ -1,5 +1,6 @@
-import { coreError, explained, explainForwardSensitivity, fail, forwardOn, parseTenor, sensitivityMapFor, valueUnderEachMethod, type Curve, type InterpolationId, type Result, type SensitivityMapBuild, type Workspace } from '../../core/index.ts';
+import { coreError, explained, explainForwardSensitivity, fail, forwardOn, parseTenor, sensitivityMapFor, valueUnderEachMethod, type Curve, type InterpolationId, type Result, type SensitivityMapBuild, type Tenor, type Workspace } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
+import { loadedOvernightKit } from '../../hooks/overnightKit.ts';
 import { cellOf, type CellExplanation } from '../tables/explainCell.ts';
 
 /**
@@ -19,6 +20,12 @@ export interface SensitivityCell {
   };
 }
 
+/** The heat map as its table builds it: simple forwards, with the turns and meeting steps' code when loaded (as the workbench builds the curve). */
+export const heatMapFor = (workspace: Workspace, interpolation: InterpolationId, tenor: Tenor, step: Tenor) => {
+  const kit = loadedOvernightKit();
+  return sensitivityMapFor(workspace, { interpolation, tenor, step, compounding: 'simple', ...(kit ? { overnight: kit } : {}) });
+};
+
 /**
  * The explanation of one heat-map cell: the map made again as the heat map makes it
  * (sensitivityMapFor), its row and column found, and explainForwardSensitivity (forwardSensitivities
@@ -29,7 +36,7 @@ export interface SensitivityCell {
  */
 export function explainSensitivityCell(result: WorkbenchBuild, cell: SensitivityCell['sensitivity']): Result<CellExplanation> {
   const { workspace, tenor, step, start, quote } = cell;
-  const mapOf = (interpolation: InterpolationId) => sensitivityMapFor(workspace, { interpolation, tenor: parseTenor(tenor) ?? { n: 3, unit: 'M' }, step: parseTenor(step) ?? { n: 1, unit: 'Y' }, compounding: 'simple' });
+  const mapOf = (interpolation: InterpolationId) => heatMapFor(workspace, interpolation, parseTenor(tenor) ?? { n: 3, unit: 'M' }, parseTenor(step) ?? { n: 1, unit: 'Y' });
   const own = quote < 0;
   const figureOf = (m: SensitivityMapBuild): Result<{ i: number; k: number }> => {
     const i = m.map.rows.findIndex((r) => r.start === start);
