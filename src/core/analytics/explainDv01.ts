@@ -25,11 +25,11 @@ export function explainQuoteDv01(curve: Curve, settings: BootstrapSettings, inst
   const d = quoteDv01Of(settings, instruments, flows, k, qy, rec);
   if (!d.ok) return d;
   const label = qy.label;
-  const steps: ExplainedStep[] = [{ name: 'y0', formula: `y0 = the quote's own yield, ${label}, at its market value ${ins.market}`, inputs: [], value: rec.yield, unit: 'decimal per year' }];
+  const steps: ExplainedStep[] = [{ name: 'y0', formula: `y0 = the quote's own yield, ${label}, at its market value ${ins.market}`, inputs: [], value: rec.yield, unit: `decimal per year, ${label}` }];
   flows.forEach((f, i) => steps.push({ name: `CF${i + 1}`, formula: `CF${i + 1} = the bond's flow at t${i + 1} = ${f.t} years (${curve.dayCount})`, inputs: [], value: f.amount, unit: PER100 }));
   for (const side of rec.sides) {
     const s = side.dy > 0 ? '+' : '-';
-    steps.push({ name: `q${s}`, formula: `q${s} = the quote at y0 ${s} 1 bp, in its own unit (${ins.unit})`, inputs: ['y0'], value: side.market, unit: ins.unit === 'price' ? 'price' : 'decimal per year' });
+    steps.push({ name: `q${s}`, formula: `q${s} = the quote at y0 ${s} 1 bp, in its own unit (${ins.unit})`, inputs: ['y0'], value: side.market, unit: ins.unit === 'price' ? 'per 100 (price)' : `decimal per year, ${label}` });
     side.ln.forEach((l, i) => steps.push({ name: `ln DF${s}(t${i + 1})`, formula: `ln DF${s}(t${i + 1}) on the curve rebuilt with q${s} (${curve.interpolation}, every other quote as it is)`, inputs: [`q${s}`], value: l, unit: LN_UNIT }));
     const terms = flows.map((_, i) => `CF${i + 1} exp(ln DF${s}(t${i + 1}))`);
     steps.push({ name: `P${s}`, formula: `P${s} = ${terms.length <= 3 ? terms.join(' + ') : `${terms[0]} + ... + ${terms.at(-1)}`}`, inputs: flows.flatMap((_, i) => [`CF${i + 1}`, `ln DF${s}(t${i + 1})`]), value: side.price, unit: PER100 });

@@ -2,6 +2,8 @@ import type { CurveBuild } from '../bootstrap/build.ts';
 import { coreError, fail, ok, type Result } from '../result.ts';
 import { dayBefore } from '../time/overnightDays.ts';
 import { explainedConventions, type ExplainedStep, type Explanation } from './explain.ts';
+import { quoteConventionTag } from '../format/conventionTag.ts';
+import { quoteConvention } from '../kinds/registry.ts';
 
 /**
  * The explanation of a turn's spread solved from a quote (the Overnight curve section's turns table,
@@ -16,7 +18,7 @@ export function explainSolvedTurn(build: Pick<CurveBuild, 'curve' | 'overnight' 
   const rec = span?.solve;
   const ins = rec && build.instruments.find((x) => x.index === rec.quote);
   if (!build.curve || !span || !rec || !ins) return fail(coreError('schema', `turns[${index}]`, 'this turn has no spread solved from a quote on the curve now'));
-  const gu = rec.unit === 'price' ? 'per 100 (price)' : 'decimal per year, the quote’s own convention';
+  const gu = rec.unit === 'price' ? 'per 100 (price)' : `decimal per year, ${quoteConventionTag(quoteConvention(ins.quote))}`;
   const su = 'decimal (bp / 10,000), simple ACT/360 on the overnight rate';
   const steps: ExplainedStep[] = [{ name: 'market', formula: `market = quotes[${ins.index}] (${ins.kind} ${ins.maturity}) as quoted`, inputs: [], value: rec.market, unit: gu }];
   rec.trials.forEach(({ spread, gap }, k) => {
