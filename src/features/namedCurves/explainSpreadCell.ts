@@ -1,10 +1,8 @@
 import {
-  buildWorkbenchCurves,
   coreError,
   fail,
   curveSpreadAt,
   explainCurveSpread,
-  isPlainObject,
   marketDate,
   parseTenor,
   topQuoteInfluencesAcrossCurves,
@@ -14,14 +12,13 @@ import {
   type Curve,
   type DisplaySettings,
   type Instrument,
-  type InterpolationId,
   type Result,
   type SpreadMeasure,
   type WorkbenchCurveInputs,
   type WorkbenchCurves,
 } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { buildUnder, cellOf, type CellExplanation, type Influences } from '../tables/explainCell.ts';
+import { cellOf, curvesUnder, type CellExplanation, type Influences } from '../tables/explainCell.ts';
 import { DEFAULT_NAME } from './curveChoice.ts';
 
 /**
@@ -44,12 +41,6 @@ export interface SpreadCell {
 }
 
 const label = (name: string): string => (name === '' ? DEFAULT_NAME : name);
-
-/** The document's named curves with every one set to interpolate by `method`. */
-export function inputsUnder(inputs: WorkbenchCurveInputs, method: InterpolationId): WorkbenchCurveInputs {
-  const curves = inputs.curves?.map((c) => (isPlainObject(c) ? { ...c, curve: { ...(isPlainObject(c.curve) ? c.curve : {}), interpolation: method } } : c));
-  return { ...inputs, curves };
-}
 
 /**
  * The explanation of one spread figure: explainCurveSpread (the table's curveSpreadAt on that date,
@@ -103,8 +94,7 @@ export function explainSpreadCell(result: WorkbenchBuild, display: DisplaySettin
   const methods = valueUnderEachMethod(
     a.curve.interpolation,
     (method) => {
-      const base = buildUnder(result, method);
-      const all = buildWorkbenchCurves(inputsUnder(inputs, method), base.curve);
+      const { base, named: all } = curvesUnder(result, inputs, method);
       const pick = (name: string) => (name === '' ? base.curve : all.curves.find((x) => x.name === name)?.build.curve ?? null);
       const [ca, cb] = [pick(cell.of), pick(cell.over)];
       if (ca && cb) pairs.set(ca, cb);

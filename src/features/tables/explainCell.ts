@@ -14,6 +14,8 @@ import {
   forwardParRateOn,
   instantaneousForwardOn,
   INTERPOLATORS,
+  buildWorkbenchCurves,
+  isPlainObject,
   snapshotDocument,
   explainReferencePoint,
   marketDate,
@@ -41,6 +43,7 @@ import {
   type Snapshot,
   type ReferenceCurve,
   type CurveBuild,
+  type WorkbenchCurveInputs,
 } from '../../core/index.ts';
 import { workbenchBuildOptions } from '../../hooks/overnightKit.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
@@ -288,6 +291,13 @@ export function cellOf(result: WorkbenchBuild, title: string, explanation: Expla
  */
 export function underEachMethod(result: WorkbenchBuild, read: (curve: Curve) => Result<number>, options?: BuildOptions): MethodValue[] {
   return valueUnderEachMethod(result.build.curve!.interpolation, (method) => buildUnder(result, method, options), read);
+}
+
+/** The default curve and every named curve of `inputs` built under `method`, as the workbench builds them (the named curves each set to that method). */
+export function curvesUnder(result: WorkbenchBuild, inputs: WorkbenchCurveInputs, method: InterpolationId) {
+  const base = buildUnder(result, method);
+  const curves = inputs.curves?.map((c) => (isPlainObject(c) ? { ...c, curve: { ...(isPlainObject(c.curve) ? c.curve : {}), interpolation: method } } : c));
+  return { base, named: buildWorkbenchCurves({ ...inputs, curves }, base.curve) };
 }
 
 /**

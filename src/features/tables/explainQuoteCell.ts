@@ -1,7 +1,6 @@
-import { buildWorkbenchCurves, coreError, explainQuoteCheck, fail, quoteOnCurve, quoteYieldLabel, valueUnderEachMethod, type Curve, type Instrument, type QuoteCheckFigure, type Result } from '../../core/index.ts';
+import { coreError, explainQuoteCheck, fail, quoteOnCurve, quoteYieldLabel, valueUnderEachMethod, type Curve, type Instrument, type QuoteCheckFigure, type Result } from '../../core/index.ts';
 import type { WorkbenchBuild } from '../../hooks/useCurveBuild.ts';
-import { inputsUnder } from '../namedCurves/explainSpreadCell.ts';
-import { buildUnder, cellOf, noCurve, underEachMethod, type CellExplanation } from './explainCell.ts';
+import { cellOf, curvesUnder, noCurve, underEachMethod, type CellExplanation } from './explainCell.ts';
 
 /** A figure of the quote check: the model value of the quote with engine index `index`, or its difference from the market. */
 export interface QuoteCheckCell {
@@ -51,7 +50,7 @@ export function explainQuoteCell(result: WorkbenchBuild, cell: QuoteCheckCell['q
   const methods =
     across && whole
       ? valueUnderEachMethod(curve.interpolation, (m) => {
-          const b = buildWorkbenchCurves(inputsUnder(whole.inputs, m), buildUnder(whole.base, m).curve).curves.find((c) => c.name === own)?.build;
+          const b = curvesUnder(whole.base, whole.inputs, m).named.curves.find((c) => c.name === own)?.build;
           const i = b?.instruments.find((x) => x.index === ins.index);
           if (b?.curve && i) of.set(b.curve, i);
           return { curve: (i && b?.curve) ?? null, errors: [] };
