@@ -279,7 +279,7 @@ function ExplainPoint({ lines, words, open }: { lines: readonly ChartLine[]; wor
     const p = last === null ? undefined : l.points[nearestIndex(l.points, last)];
     return p && Math.abs(p.x - last!) <= 0.6 ? p : undefined;
   };
-  const p0 = pointOf(lines[0]!);
+  const p0 = lines[0] && pointOf(lines[0]);
   if (!p0) return <button type="button" className="linklike small chart-explain" disabled>{`Explain a ${words}: read a point first`}</button>;
   return (
     <p className="small chart-explain">

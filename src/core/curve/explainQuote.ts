@@ -1,8 +1,7 @@
 import type { Curve } from './curve.ts';
 import { explainedConventions, explainedYearFraction, explainRead, rateSteps, type ExplainedDate, type ExplainedRead, type ExplainedStep, type ExplainedYearFraction, type Explanation } from './explain.ts';
 import { quoteConventionTag } from '../format/conventionTag.ts';
-import { quoteSchedule } from '../input/quoteSchedule.ts';
-import { convexityFillText } from '../input/quoteSchedule.ts';
+import { convexityFillText, quoteSchedule } from '../input/quoteSchedule.ts';
 import { quoteOnCurve, type Instrument, type ReadSink } from '../instruments/instrument.ts';
 import { modelConvexityBp } from '../instruments/convexity.ts';
 import { FUTURE_BASIS } from '../instruments/future.ts';
@@ -94,8 +93,9 @@ export function explainQuoteCheck(curve: Curve, ins: Instrument, settlement: Iso
   ins.retrace?.((...r) => far.push(r));
   const P = (c: string, d: string): string => `P_${c}(${d})`;
   const dates: ExplainedDate[] = [];
+  const floating = far.filter((r) => r[0] === 'T');
   const reads: ExplainedRead[] = ins.times.map((t, j) => {
-    const d = far.filter((r) => r[0] === 'T')[j]?.[3] ?? dateAt(t) ?? settlement;
+    const d = floating[j]?.[3] ?? dateAt(t) ?? settlement;
     dates.push({ name: labels[j]!, given: d, unadjusted: d, adjusted: d, rule: 'as scheduled' });
     return explainRead(curve, across ? P(own, labels[j]!) : `DF(${labels[j]})`, d, t, lns[j]!);
   });

@@ -109,6 +109,8 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
   // The form's steps of each read: y(t) and ln DF = -y t + ln J (fitCurve's lnFit, which its residuals read); on the fitted curve (`flat`) flat-forward past T.
   // A read of another curve (a named curve's swap: its discounting, its other leg) is held as built, not the form.
   const other = (r: ExplainedRead): boolean => r.curve !== undefined;
+  // The form's forward at T, which the fitted curve carries on past T.
+  const f = parametricForward(p, T) + turnForward(trace.turns, T);
   const form = (reads: readonly ExplainedRead[], flat?: boolean): boolean => {
     for (const r of reads) {
       if (other(r)) continue;
@@ -117,7 +119,6 @@ export function explainFitFigure(fit: FitResult, trace: NonNullable<FitSink['tra
       const u = past ? T : t;
       const j = turnLn(trace.turns, u);
       const lnU = u <= 0 ? 0 : -parametricZero(p, u) * u + j;
-      const f = parametricForward(p, T) + turnForward(trace.turns, T);
       if (!Object.is(past ? lnU - f * (t - T) : lnU, r.lnDiscount)) return false;
       const at = past ? 'T' : r.name.slice(r.name.indexOf('(') + 1, -1);
       if (!steps.some((s) => s.name === `y(${at})`)) {

@@ -137,10 +137,12 @@ export interface Observation {
 
 function observe(ws: Workspace, options: FitOptions): Observation[] {
   const exclude = new Set(options.exclude ?? []);
+  // The build's instruments that read other curves, by quote index (FitOptions.instruments).
+  const held = new Map((options.instruments ?? []).filter((i) => i.readsCurves).map((i) => [i.index, i]));
   return ws.quotes
     .filter((q) => q.enabled)
     .map((q) => {
-      const ins = options.instruments?.find((i) => i.index === q.index && i.readsCurves) ?? compileQuote(q, ws.settlement, ws.curve.dayCount);
+      const ins = held.get(q.index) ?? compileQuote(q, ws.settlement, ws.curve.dayCount);
       const qy = quoteYieldOf(ins, ws.settlement);
       const w = options.weights?.[q.index] ?? 1;
       const weight = Number.isFinite(w) && w > 0 ? w : 0;
