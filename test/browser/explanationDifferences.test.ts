@@ -65,6 +65,7 @@ describe('the explanations of the Snapshots section', () => {
 
   it("at 760 px a reference curve's difference opens under its table", async () => {
     await page.setViewportSize({ width: 760, height: 900 });
+    // Discount factors from another source: invented values.
     await page.getByLabel(/Reference CSV/).fill('date,discount\n2028-01-18,0.9641\n2032-01-15,0.8405');
     const button = page.getByRole('table', { name: 'Difference from the reference curve' }).getByRole('button', { name: /explain the difference from the reference on 2032-01-15/ });
     const shown = (await button.textContent())!.trim();

@@ -53,6 +53,7 @@ describe('explanations in the heat map', () => {
     // Under each method: the map built with it.
     const model = explainKeyCell(result, useAppStore.getState().workspace.display, { sensitivity: { workspace: ws, interpolation: ws.curve.interpolation, tenor: '3M', step: '1Y', start: rows[i]!.start, quote: columns[k]!.index } });
     if (!model.ok) throw new Error(model.errors[0]!.message);
+    expect(model.value.methods.length).toBe(5); // every method, so the loop below checks each
     for (const m of model.value.methods) {
       const again = sensitivityMapFor(ws, { interpolation: m.method, tenor: { n: 3, unit: 'M' }, step: { n: 1, unit: 'Y' }, compounding: 'simple' });
       if (!again.ok) throw new Error(m.method);
@@ -90,6 +91,7 @@ describe('explanations in the heat map', () => {
     // The quotes: the row's five largest sensitivities, largest first.
     const largest = columns.map((c, k) => ({ c, v: values[i * columns.length + k]! })).sort((a, b) => Math.abs(b.v) - Math.abs(a.v)).slice(0, 5);
     expect(e.value.quotes.map((q) => q.bpPerBp)).toEqual(largest.map((l) => l.v));
+    expect(e.value.methods.length).toBe(5); // every method, so the loop below checks each
     for (const m of e.value.methods) {
       const again = sensitivityMapFor(ws, { interpolation: m.method, tenor: { n: 3, unit: 'M' }, step: { n: 1, unit: 'Y' }, compounding: 'simple' });
       if (!again.ok) throw new Error(m.method);
