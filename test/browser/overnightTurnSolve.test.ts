@@ -11,24 +11,13 @@ import path from 'node:path';
 import { seriousAxeFindings } from './axe.ts';
 import { engineDocumentLink, launchBrowser, SCREENSHOT_DIR, serveDist, type TestBrowser } from './harness.ts';
 import type { StaticServer } from './static-server.ts';
+import { INVENTED_2022_YEAR_END_DEPOSITS } from '../helpers/markets.ts';
 
 let browser: TestBrowser | undefined;
 let server: StaticServer | undefined;
 let link = '';
 
-const dep = (lnGrowth: number, days: number) => (Math.expm1(lnGrowth) * 360) / days;
-const ENGINE = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-12-15',
-  curve: { dayCount: 'ACT/365F', interpolation: 'log-linear-discount' },
-  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', calendar: 'weekends', solveFrom: 1 }],
-  quotes: [
-    { kind: 'deposit', maturity: '2022-12-22', rate: dep((0.04 * 7) / 365, 7) },
-    { kind: 'deposit', maturity: '2023-01-17', rate: dep((0.04 * 33) / 365 + (0.0025 * 3) / 360, 33) },
-    { kind: 'deposit', maturity: '2023-03-15', rate: dep((0.04 * 90) / 365 + (0.0025 * 3) / 360, 90) },
-  ],
-};
+const ENGINE = { ...INVENTED_2022_YEAR_END_DEPOSITS, turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', calendar: 'weekends', solveFrom: 1 }] };
 
 beforeAll(async () => {
   server = await serveDist();

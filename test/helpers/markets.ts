@@ -137,6 +137,25 @@ export const INVENTED_2022_SOFR_STEPS = {
 };
 
 /**
+ * Three deposits (ACT/360 money market) made from a flat 4% continuously compounded forward on
+ * ACT/365F and a 25 bp turn on 2022-12-30 over its 3 days (weekends calendar: Friday to Monday),
+ * valued 2022-12-15: the hand calculation of test/core/bootstrap/turnSolve.test.ts (J = exp(-s d / 360),
+ * section h of the project's market-conventions notes). Invented rates; no turn of its own (each test adds it).
+ */
+export const depositFromLnGrowth = (lnGrowth: number, days: number): number => (Math.expm1(lnGrowth) * 360) / days;
+export const INVENTED_2022_YEAR_END_DEPOSITS = {
+  format: 'tenorscope-workspace',
+  version: 2,
+  valuationDate: '2022-12-15',
+  curve: { dayCount: 'ACT/365F', interpolation: 'log-linear-discount' },
+  quotes: [
+    { kind: 'deposit', maturity: '2022-12-22', rate: depositFromLnGrowth((0.04 * 7) / 365, 7) },
+    { kind: 'deposit', maturity: '2023-01-17', rate: depositFromLnGrowth((0.04 * 33) / 365 + (0.0025 * 3) / 360, 33) },
+    { kind: 'deposit', maturity: '2023-03-15', rate: depositFromLnGrowth((0.04 * 90) / 365 + (0.0025 * 3) / 360, 90) },
+  ],
+};
+
+/**
  * An invented 2022 overnight market with a year-end turn solved from the OIS that spans it (the
  * fourth quote, to 17 Jan 2023): deposits to December, OIS to five years on the US government
  * securities calendar, for tests that risk and fit views read the curve with its turns.

@@ -16,23 +16,10 @@ import { useAppStore } from '../../src/state/store.ts';
 import { buildCurve, formatBp, fullText, OVERNIGHT_KIT, parseDocumentText, readWorkbenchDocument, serialiseDocument, toEngineDocument, turnSpreads, workbenchFromEngine, type WorkbenchDocument } from '../../src/core/index.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLink } from '../../src/share/linkCodec.ts';
 import { openEngineDocument } from '../helpers/engineWorkspace.ts';
+import { INVENTED_2022_YEAR_END_DEPOSITS } from '../helpers/markets.ts';
 
 const s = () => useAppStore.getState();
-const dep = (lnGrowth: number, days: number) => (Math.expm1(lnGrowth) * 360) / days;
-const F = 0.04;
-const S = 25 / 1e4;
-const ENGINE = {
-  format: 'tenorscope-workspace',
-  version: 2,
-  valuationDate: '2022-12-15',
-  curve: { dayCount: 'ACT/365F', interpolation: 'log-linear-discount' },
-  quotes: [
-    { kind: 'deposit', maturity: '2022-12-22', rate: dep((F * 7) / 365, 7) },
-    { kind: 'deposit', maturity: '2023-01-17', rate: dep((F * 33) / 365 + (S * 3) / 360, 33) },
-    { kind: 'deposit', maturity: '2023-03-15', rate: dep((F * 90) / 365 + (S * 3) / 360, 90) },
-  ],
-  turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10, calendar: 'weekends' }],
-};
+const ENGINE = { ...INVENTED_2022_YEAR_END_DEPOSITS, turns: [{ name: 'year end 2022', from: '2022-12-30', to: '2022-12-30', spreadBp: 10, calendar: 'weekends' }] };
 
 function Live() {
   const result = useCurveBuild();
