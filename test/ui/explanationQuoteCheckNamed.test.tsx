@@ -7,21 +7,19 @@
 // explainQuoteCheck held to the two-curve par rate by hand in
 // test/core/curve/explainProjectedSwap.test.ts, and each method's value against the document built
 // under that method by the core (buildCurve + buildNamedCurves), as the command line builds it.
-import { readFileSync } from 'node:fs';
-import { act, render, screen, within } from '@testing-library/react';
+import { render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { buildCurve, buildNamedCurves, fullText, INTERPOLATIONS, readNamedCurves } from '../../src/core/index.ts';
 import { QuoteCheckTable } from '../../src/features/tables/QuoteCheckTable.tsx';
 import { useCurveBuild, type WorkbenchBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useNamedCurves } from '../../src/hooks/useNamedCurves.ts';
-import { workbenchFromEngine } from '../../src/share/documentReader.ts';
+import { openWorkspaceFile, TWO_CURVES } from '../helpers/engineWorkspace.ts';
 import { useAppStore } from '../../src/state/store.ts';
 
 beforeAll(() => import('../../src/features/tables/lazyTables.ts'));
 
 vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
 
-const FIXTURE = JSON.parse(readFileSync('test/fixtures/namedCurves/two-curves.json', 'utf8')) as Record<string, unknown>;
 const initial = useAppStore.getInitialState();
 beforeEach(() => useAppStore.setState(initial, true));
 
@@ -34,9 +32,7 @@ function Workbench() {
 
 describe('the quote check of a named projection curve', () => {
   it("a term-index swap's model rate opens its explanation: the table's figure, steps on both curves, each method's value as the core builds it", async () => {
-    const wb = workbenchFromEngine({ ...FIXTURE, view: { shownCurve: 'euribor6m' } }, (() => { let n = 0; return () => `t${n++}`; })());
-    if (!wb.ok) throw new Error(wb.errors[0]!.message);
-    act(() => useAppStore.getState().replaceWorkspace(wb.value, 'open a file'));
+    openWorkspaceFile({ ...TWO_CURVES, view: { shownCurve: 'euribor6m' } });
     const user = userEvent.setup({ delay: null });
     render(<Workbench />);
     const table = await screen.findByRole('table', { name: 'Quote check' });
@@ -57,7 +53,7 @@ describe('the quote check of a named projection curve', () => {
     // Each method: the whole document built under it by the core, the 2Y swap's model rate on euribor6m.
     const methods = within(panel).getByRole('region', { name: /^Under each interpolation method/ }).textContent!;
     for (const method of INTERPOLATIONS) {
-      const doc = { ...FIXTURE, curve: { ...(FIXTURE.curve as object), interpolation: method }, curves: (FIXTURE.curves as Record<string, unknown>[]).map((c) => ({ ...c, curve: { ...(c.curve as object | undefined), interpolation: method } })) };
+      const doc = { ...TWO_CURVES, curve: { ...TWO_CURVES.curve, interpolation: method }, curves: TWO_CURVES.curves.map((c) => ({ ...c, curve: { ...(c.curve as object | undefined), interpolation: method } })) };
       const main = buildCurve(doc, { readCurves: readNamedCurves, skipInvalid: true });
       const six = buildNamedCurves(main.workspace!, main.curve).find((n) => n.name === 'euribor6m')!.build;
       const model = six.repricing.find((r) => r.index === rep.index)!.model;

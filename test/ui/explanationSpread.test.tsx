@@ -7,29 +7,22 @@
 // listed (a default-curve quote as a link to its sheet row) and agree with bump-and-rebuild, the spread under each method is the
 // spread of the curves built under it, and Escape gives the focus back. The fixture is the command
 // line's invented two-curve document (test/fixtures/namedCurves/SOURCE.md).
-import { readFileSync } from 'node:fs';
 import { act, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { buildWorkbenchCurves, curveSpreadAt, fullText, marketDate, parseTenor, readNamedCurves, buildCurve, type WorkbenchDocument } from '../../src/core/index.ts';
+import { buildWorkbenchCurves, curveSpreadAt, fullText, marketDate, parseTenor, readNamedCurves, buildCurve } from '../../src/core/index.ts';
 import { SpreadView } from '../../src/features/namedCurves/SpreadView.tsx';
 import { explainKeyCell } from '../../src/features/tables/explainCell.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
-import { workbenchFromEngine } from '../../src/share/documentReader.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { openWorkspaceFile, TWO_CURVES } from '../helpers/engineWorkspace.ts';
 
 beforeAll(() => import('../../src/features/tables/lazyTables.ts'));
 
 vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
 
-const FIXTURE = JSON.parse(readFileSync('test/fixtures/namedCurves/two-curves.json', 'utf8')) as Record<string, unknown> & { curve: Record<string, unknown>; curves: Record<string, unknown>[] };
+const FIXTURE = TWO_CURVES;
 const initial = useAppStore.getInitialState();
-let n = 0;
-const open = (): WorkbenchDocument => {
-  const wb = workbenchFromEngine(FIXTURE, () => `t${n++}`);
-  if (!wb.ok) throw new Error(wb.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(wb.value, 'open a file'));
-  return useAppStore.getState().workspace;
-};
+const open = openWorkspaceFile;
 beforeEach(() => useAppStore.setState(initial, true));
 
 describe('explanations in the spread table', () => {

@@ -29,19 +29,14 @@ import { decodeWorkspaceLink, encodeWorkspaceLinkChecked } from '../../src/share
 import { parseDocumentText, workbenchFromEngine } from '../../src/share/documentReader.ts';
 import { checkRestoredWorkspace } from '../../src/state/restoreCheck.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { openWorkspaceFile, TWO_CURVES } from '../helpers/engineWorkspace.ts';
 
 vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
 
 const TEXT = readFileSync('test/fixtures/namedCurves/two-curves.json', 'utf8');
-const FIXTURE = JSON.parse(TEXT) as Record<string, unknown> & { curves: Record<string, unknown>[] };
+const FIXTURE = TWO_CURVES;
 const initial = useAppStore.getInitialState();
-let n = 0;
-const open = (raw: unknown = FIXTURE): WorkbenchDocument => {
-  const wb = workbenchFromEngine(raw, () => `t${n++}`);
-  if (!wb.ok) throw new Error(wb.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(wb.value, 'open a file'));
-  return useAppStore.getState().workspace;
-};
+const open = openWorkspaceFile;
 
 beforeEach(() => {
   useAppStore.setState(initial, true);

@@ -5,7 +5,6 @@
 // saved file, the link and the browser's saved entry. The rules are the document's (README
 // "Several curves"); the fixture is the command line's invented test document
 // (test/fixtures/namedCurves/SOURCE.md).
-import { readFileSync } from 'node:fs';
 import { act, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { App } from '../../src/app/App.tsx';
@@ -13,21 +12,16 @@ import { runCurveCommand } from '../../src/cli/curveCommand.ts';
 import { buildWorkbenchCurves, parseRow, readWorkbenchDocument, serialiseDocument, zeroOn, type WorkbenchDocument } from '../../src/core/index.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { decodeWorkspaceLink, encodeWorkspaceLinkChecked } from '../../src/share/linkCodec.ts';
-import { parseDocumentText, workbenchFromEngine } from '../../src/share/documentReader.ts';
+import { parseDocumentText } from '../../src/share/documentReader.ts';
 import { checkRestoredWorkspace } from '../../src/state/restoreCheck.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { openWorkspaceFile, TWO_CURVES } from '../helpers/engineWorkspace.ts';
 
 vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
 
-const FIXTURE = JSON.parse(readFileSync('test/fixtures/namedCurves/two-curves.json', 'utf8')) as Record<string, unknown> & { curves: Record<string, unknown>[] };
+const FIXTURE = TWO_CURVES;
 const initial = useAppStore.getInitialState();
-let n = 0;
-const open = (): WorkbenchDocument => {
-  const wb = workbenchFromEngine(FIXTURE, () => `t${n++}`);
-  if (!wb.ok) throw new Error(wb.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(wb.value, 'open a file'));
-  return useAppStore.getState().workspace;
-};
+const open = openWorkspaceFile;
 const ws = () => useAppStore.getState().workspace;
 const named = () => ws().curves as Record<string, unknown>[] | undefined;
 /** Everything in the workspace but its named curves and view (what a curve edit must leave alone). */

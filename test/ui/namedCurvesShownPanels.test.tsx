@@ -8,7 +8,6 @@
 // and to documents moved by hand in test/core/roll/rollOnCurve.test.ts and
 // test/core/scenarios/namedCurveScenario.test.ts (the UI computes nothing financial). The fixture
 // is the command line's invented two-curve document (test/fixtures/namedCurves/SOURCE.md).
-import { readFileSync } from 'node:fs';
 import { act, render, screen, within } from '@testing-library/react';
 import { App } from '../../src/app/App.tsx';
 import { EXTENSIONS } from '../../src/app/extensions.tsx';
@@ -26,7 +25,6 @@ import {
   scenarioEffects,
   type Curve,
   type Scenario,
-  type WorkbenchDocument,
 } from '../../src/core/index.ts';
 import { PrintTab } from '../../src/features/print/PrintTab.tsx';
 import { RollResultLine, RollSlot } from '../../src/features/roll/RollSlot.tsx';
@@ -35,20 +33,14 @@ import { ScenariosTab } from '../../src/features/scenarios/ScenariosTab.tsx';
 import { workbenchBuildOptions } from '../../src/hooks/overnightKit.ts';
 import { deriveBuild, useCurveBuild, type WorkbenchBuild } from '../../src/hooks/useCurveBuild.ts';
 import { useNamedCurves } from '../../src/hooks/useNamedCurves.ts';
-import { workbenchFromEngine } from '../../src/share/documentReader.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { openWorkspaceFile, TWO_CURVES } from '../helpers/engineWorkspace.ts';
 
 vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
 
-const FIXTURE = JSON.parse(readFileSync('test/fixtures/namedCurves/two-curves.json', 'utf8')) as Record<string, unknown>;
+const FIXTURE = TWO_CURVES;
 const initial = useAppStore.getInitialState();
-let n = 0;
-const open = (raw: unknown = FIXTURE): WorkbenchDocument => {
-  const wb = workbenchFromEngine(raw, () => `t${n++}`);
-  if (!wb.ok) throw new Error(wb.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(wb.value, 'open a file'));
-  return useAppStore.getState().workspace;
-};
+const open = openWorkspaceFile;
 
 beforeEach(() => {
   useAppStore.setState(initial, true);
@@ -155,7 +147,7 @@ describe('roll versus term, scenarios and print on the curve shown', () => {
 
   it('with a named discounting curve shown: its scenarios are applyScenarioOnCurve on it, and the section names the curves a move of its quotes rebuilds', async () => {
     // The fixture's curves moved onto a named discounting curve of their own (invented): euribor6m discounted on "ois2".
-    const F = FIXTURE as { quotes: unknown[]; curves: Record<string, unknown>[] };
+    const F = FIXTURE as unknown as { quotes: unknown[]; curves: Record<string, unknown>[] };
     const curves = [{ name: 'ois2', role: 'discounting', quotes: F.quotes }, { ...F.curves[0]!, discountCurve: 'ois2' }];
     open({ ...FIXTURE, curves, view: { shownCurve: 'ois2' } } as unknown);
     act(() => useAppStore.getState().setReserved('scenarios', [UP]));

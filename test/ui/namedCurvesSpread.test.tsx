@@ -6,30 +6,23 @@
 // versus term say which curve they read, and a workspace of one curve says nothing new. The
 // fixture is the command line's invented test document (test/fixtures/namedCurves/SOURCE.md); the
 // reference values are the core's (the UI computes nothing financial).
-import { readFileSync } from 'node:fs';
 import { act, fireEvent, render, screen, within } from '@testing-library/react';
 import { App } from '../../src/app/App.tsx';
-import { buildWorkbenchCurves, curveSpreadAt, formatBp, parseTenor, type WorkbenchDocument } from '../../src/core/index.ts';
+import { buildWorkbenchCurves, curveSpreadAt, formatBp, parseTenor } from '../../src/core/index.ts';
 import { RollSlot } from '../../src/features/roll/RollSlot.tsx';
 import { ScenariosTab } from '../../src/features/scenarios/ScenariosTab.tsx';
 import { shownBuild } from '../../src/features/namedCurves/namedCurvesKit.ts';
 import { hoverStore } from '../../src/charts/hover.ts';
 import { deriveBuild } from '../../src/hooks/useCurveBuild.ts';
 import { sampleGridFor } from '../../src/hooks/useCurveSeries.ts';
-import { workbenchFromEngine } from '../../src/share/documentReader.ts';
 import { useAppStore } from '../../src/state/store.ts';
+import { openWorkspaceFile, TWO_CURVES } from '../helpers/engineWorkspace.ts';
 
 vi.setConfig({ testTimeout: 60_000 }); // a limit for a hung run, not a speed check
 
-const FIXTURE = JSON.parse(readFileSync('test/fixtures/namedCurves/two-curves.json', 'utf8')) as Record<string, unknown>;
+const FIXTURE = TWO_CURVES;
 const initial = useAppStore.getInitialState();
-let n = 0;
-const open = (raw: unknown = FIXTURE): WorkbenchDocument => {
-  const wb = workbenchFromEngine(raw, () => `t${n++}`);
-  if (!wb.ok) throw new Error(wb.errors[0]!.message);
-  act(() => useAppStore.getState().replaceWorkspace(wb.value, 'open a file'));
-  return useAppStore.getState().workspace;
-};
+const open = openWorkspaceFile;
 
 beforeEach(() => {
   useAppStore.setState(initial, true);
