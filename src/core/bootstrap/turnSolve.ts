@@ -106,9 +106,12 @@ export function solveTurnSpreads(given: BootstrapSettings, market: readonly Inst
     const g = model - ins.market;
     if (!(Math.abs(g) <= bound(ins))) return failed([turnError('not-converged', spans[k]!, ins, `it reprices off by ${g}`)]);
     rows.push(...repricingRows([ins], [model]));
-    records.set(spans[k]!.index, { quote: ins.index, market: ins.market, unit: ins.unit, trials: tried.get(k) ?? [], gap: g });
+    records.set(spans[k]!.index, { quote: ins.index, trials: tried.get(k) ?? [], gap: g });
   }
-  const overnight = outcome.overnight && { ...outcome.overnight, turns: outcome.overnight.turns.map((t) => (records.has(t.index) ? { ...t, solve: records.get(t.index)! } : t)) };
+  const overnight = outcome.overnight && { ...outcome.overnight, turns: outcome.overnight.turns.map((t) => {
+    const solve = records.get(t.index);
+    return solve ? { ...t, solve } : t;
+  }) };
   return { ...outcome, repricing: rows, ...(overnight ? { overnight } : {}) };
 }
 

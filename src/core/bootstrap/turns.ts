@@ -17,7 +17,7 @@
  * (`turnedCurve` in bootstrap.ts). Days between two times are read on the curve's own clock: within a turn
  * d_j(t) = D_j (t - a_j) / (b_j - a_j), exact for the ACT day counts (linear in days).
  */
-import type { Instrument, QuoteUnit } from '../instruments/instrument.ts';
+import type { Instrument } from '../instruments/instrument.ts';
 import type { Quote, Turn } from '../document/types.ts';
 import { coreError, type CoreError } from '../result.ts';
 import { kindModule } from '../kinds/registry.ts';
@@ -54,7 +54,7 @@ export interface TurnSpan {
 }
 
 /**
- * How turnSolve.ts found a turn's spread: the spanning quote's market value, each spread tried
+ * How turnSolve.ts found a turn's spread: the spanning quote (its index; its market value is the instrument's), each spread tried
  * (decimal, simple ACT/360) with g = the quote's model value minus its market value on the curve
  * bootstrapped from the other quotes with the turn at that spread (in the quote's unit: a rate as
  * a decimal, a price per 100), in the order tried in the last round that solved it; and g on the
@@ -62,8 +62,6 @@ export interface TurnSpan {
  */
 export interface TurnSolveRecord {
   readonly quote: number;
-  readonly market: number;
-  readonly unit: QuoteUnit;
   readonly trials: readonly { readonly spread: number; readonly gap: number }[];
   readonly gap: number;
 }

@@ -18,9 +18,9 @@ export function explainSolvedTurn(build: Pick<CurveBuild, 'curve' | 'overnight' 
   const rec = span?.solve;
   const ins = rec && build.instruments.find((x) => x.index === rec.quote);
   if (!build.curve || !span || !rec || !ins) return fail(coreError('schema', `turns[${index}]`, 'this turn has no spread solved from a quote on the curve now'));
-  const gu = rec.unit === 'price' ? 'per 100 (price)' : `decimal per year, ${quoteConventionTag(quoteConvention(ins.quote))}`;
+  const gu = ins.unit === 'price' ? 'per 100 (price)' : `decimal per year, ${quoteConventionTag(quoteConvention(ins.quote))}`;
   const su = 'decimal (bp / 10,000), simple ACT/360 on the overnight rate';
-  const steps: ExplainedStep[] = [{ name: 'market', formula: `market = quotes[${ins.index}] (${ins.kind} ${ins.maturity}) as quoted`, inputs: [], value: rec.market, unit: gu }];
+  const steps: ExplainedStep[] = [{ name: 'market', formula: `market = quotes[${ins.index}] (${ins.kind} ${ins.maturity}) as quoted`, inputs: [], value: ins.market, unit: gu }];
   rec.trials.forEach(({ spread, gap }, k) => {
     steps.push({ name: `s${k}`, formula: k === 0 ? `s0 = the spread the search starts from` : `s${k} = the solver's next spread (secant step inside the bracket, bootstrap/solve.ts)`, inputs: [], value: spread, unit: su });
     steps.push({ name: `g${k}`, formula: `g${k} = model - market, the quote priced on the curve bootstrapped from the other quotes with the turn at s${k}`, inputs: [`s${k}`, 'market'], value: gap, unit: gu });
