@@ -69,7 +69,7 @@ export function WorkbenchPrintSummary({ result, rollResult = null, figure }: { r
     return {
       keyRows: printKeyRows(curve, conv),
       conventions: conv,
-      scenarios: printScenarios(scenarios, ws, curve, conv, result.onCurves ? apply : workbenchBuildOptions()),
+      scenarios: printScenarios(scenarios, ws, curve, conv, apply),
       scenarioConventions: scenarioConventionsText(conv),
       zeroChart: <PrintChart title="Zero rates" tag={tag} series={series('zero')} xMax={xMax} lastT={lastT} />,
       forwardChart: <PrintChart title={`${display.forwardTenor} forwards`} tag={tag} series={series('forward')} xMax={xMax} lastT={lastT} />,

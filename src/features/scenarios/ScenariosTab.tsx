@@ -18,7 +18,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
   );
   // With named curves, which curve the scenarios move: the curve shown (the default one, or the picker's choice).
   const on = useOnCurve(result.curveName);
-  const apply = useMemo(() => (result.onCurves ? (s: Scenario, i: number) => applyToShown(s, result, workbenchBuildOptions(), `scenarios[${i}]`) : undefined), [result]);
+  const apply = useMemo(() => (s: Scenario, i: number) => applyToShown(s, result, workbenchBuildOptions(), `scenarios[${i}]`), [result]);
   // The curves built on the one shown, which a quote-space scenario on it rebuilds too.
   const moves = result.onCurves?.built.filter((c) => c.discountCurve === result.curveName).map((c) => `"${c.name}"`) ?? [];
   // The panel locks its own editing controls, so a read-only workspace still opens its changes' explanations.
@@ -37,7 +37,7 @@ export function ScenariosTab({ result }: { result: WorkbenchBuild }) {
       buildOptions={workbenchBuildOptions()}
       conventions={conventions}
       explainFrom={{ result, display }}
-      {...(apply ? { apply } : {})}
+      apply={apply}
     />
     </>
   );
