@@ -1,4 +1,4 @@
-import { useMemo, useState, type MouseEvent, type ReactNode } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import {
   FIT_MODEL_LABEL,
   fitCurve,
@@ -103,7 +103,7 @@ export function FitPanel(props: FitPanelProps) {
   const par = (which: FitCell['fit']['figure'], text: string) => figure(-1, which, text, 'fit');
   // The fit chart's readout opens the fitted zero rate at its point (continuous on the curve's day count, as drawn).
   const zeroExplain = useMemo(
-    () => (props.explainFrom && options ? { words: `${FIT_MODEL_LABEL[options.model]} fit zero rate`, open: (cell: unknown, b: HTMLElement) => explain.toggle({ currentTarget: b } as unknown as MouseEvent<HTMLElement>, cell as FitCell), cell: (p: SamplePoint): FitCell => ({ fit: { options, index: -1, figure: 'zero', date: p.date, table: 'fit' } }) } : undefined),
+    () => (props.explainFrom && options ? { words: `${FIT_MODEL_LABEL[options.model]} fit zero rate`, open: (cell: unknown, b: HTMLElement) => explain.toggleAt(b, cell as FitCell), cell: (p: SamplePoint): FitCell => ({ fit: { options, index: -1, figure: 'zero', date: p.date, table: 'fit' } }) } : undefined),
     // eslint-disable-next-line react-hooks/exhaustive-deps
     [options, !props.explainFrom],
   );

@@ -15,14 +15,17 @@ export function useExplainOpener<C extends ExplainCell>(same: (a: C, b: C) => bo
   const [open, setOpen] = useState<C | null>(null);
   const opener = useRef<HTMLElement | null>(null);
   const isOpen = (cell: C): boolean => open !== null && same(open, cell);
-  const toggle = (e: MouseEvent<HTMLElement>, cell: C): void => {
-    opener.current = e.currentTarget;
+  /** Opens `cell` from `button` (which gets the focus back), or closes it when it is the one open. */
+  const toggleAt = (button: HTMLElement, cell: C): void => {
+    opener.current = button;
     setOpen(isOpen(cell) ? null : cell);
   };
+  const toggle = (e: MouseEvent<HTMLElement>, cell: C): void => toggleAt(e.currentTarget, cell);
   return {
     open,
     isOpen,
     toggle,
+    toggleAt,
     close: (): void => {
       setOpen(null);
       opener.current?.focus();
