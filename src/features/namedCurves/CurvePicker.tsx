@@ -149,6 +149,8 @@ function NamedQuotes({ curve, raw, named, names }: { curve: NamedCurveBuild; raw
               const ins = curve.build.instruments.find((x) => x.index === k);
               const r = curve.build.repricing.find((x) => x.index === k);
               const error = errorOf(k);
+              // Whether the sheet's row can hold it whole (else only its value is typed), read once per row.
+              const sheetRow = namedQuoteRow(rawQuote) !== null;
               const kind = isPlainObject(rawQuote) && typeof rawQuote.kind === 'string' ? rawQuote.kind.slice(0, 20) : '?';
               const on = ins ? discountedOnOf(ins) : null;
               return (
@@ -173,7 +175,7 @@ function NamedQuotes({ curve, raw, named, names }: { curve: NamedCurveBuild; raw
                     </>
                   )}
                   <td>
-                    <button type="button" disabled={readOnly || namedQuoteRow(rawQuote) === null} title={namedQuoteRow(rawQuote) === null ? 'It has fields the sheet has no cell for: type its value only' : undefined} onClick={() => setEditing(k)} aria-label={`Edit ${curve.name} quote ${k + 1}`}>
+                    <button type="button" disabled={readOnly || !sheetRow} title={sheetRow ? undefined : 'It has fields the sheet has no cell for: type its value only'} onClick={() => setEditing(k)} aria-label={`Edit ${curve.name} quote ${k + 1}`}>
                       Edit
                     </button>{' '}
                     <button
