@@ -9,7 +9,7 @@ import { queryYearFraction, type CurveDayCount, type DayCount } from '../time/da
 import { forwardSensitivities, quoteNodeJacobian, type ForwardRow, type SensitivityTrace } from './forwardSensitivity.ts';
 import { explainedConventions, explainedYearFraction, explainRead, LN_UNIT, rateUnit, type ExplainedStep, type Explanation } from '../curve/explain.ts';
 import { periodsPerYear } from '../rates/compounding.ts';
-import { nodeCount, solvedSpans } from './nodePartials.ts';
+import { nodeCount, solvedSpans, wrongQuoteCount } from './nodePartials.ts';
 import { fixedLegPeriods } from '../instruments/swap.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
 
@@ -75,7 +75,8 @@ export function topParQuoteInfluences(
   count = 5,
 ): Result<QuoteInfluence[]> {
   const n = instruments.length;
-  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
+  const wrong = wrongQuoteCount(curve, n);
+  if (wrong) return wrong;
   if (compareIso(end, start) <= 0) return fail(coreError('empty-period', 'end', `${start} to ${end} is an empty period; the end must come after the start`));
   const df = (t: number): number => Math.exp(curve.lnDiscountAt(t));
   const periods = fixedLegPeriods(start, end, frequency, dc, eom);
@@ -132,7 +133,8 @@ export function topInfluencesOfSolvedTurn(curve: Curve, instruments: readonly In
 /** The quotes that move a number most, given its slopes g_j to the curve's unknowns (filled by `slopes`, which may read the partials of ln DF at `times`). */
 function topInfluencesOfNodes(curve: Curve, instruments: readonly Instrument[], times: readonly number[], count: number, slopes: (g: Float64Array, extraPartials: Float64Array, n: number) => void): Result<QuoteInfluence[]> {
   const n = instruments.length;
-  if (n !== nodeCount(curve)) return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
+  const wrong = wrongQuoteCount(curve, n);
+  if (wrong) return wrong;
   const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, times);
   const lu = luFactor(jacobian, n);
   if (!lu) return fail(coreError('no-solution', 'quotes', 'the quotes do not determine the curve nodes one to one (a singular Jacobian); check for quotes that repeat the same information'));

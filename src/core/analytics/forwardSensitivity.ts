@@ -8,7 +8,7 @@ import { queryYearFraction, type CurveDayCount } from '../time/dayCount.ts';
 import { marketDate, UNADJUSTED } from '../time/dateConventions.ts';
 import { formatTenor, type Tenor } from '../time/tenor.ts';
 import { luFactor, luInverse } from '../numeric/luDecomposition.ts';
-import { nodeCount, nodePartials } from './nodePartials.ts';
+import { nodePartials, wrongQuoteCount } from './nodePartials.ts';
 import { spotGapOf } from '../bootstrap/spotBridge.ts';
 import { quoteYieldOf, requoteAtYield, type QuoteYield } from './quoteYield.ts';
 
@@ -201,9 +201,8 @@ export function forwardSensitivities(
   trace?: SensitivityTrace,
 ): Result<ForwardSensitivityMap> {
   const n = instruments.length;
-  if (n !== nodeCount(curve)) {
-    return fail(coreError('schema', 'quotes', `the curve was built from ${nodeCount(curve)} quotes but ${n} were given; pass the quotes it was built from`));
-  }
+  const wrong = wrongQuoteCount(curve, n);
+  if (wrong) return wrong;
   const extra = rows.flatMap((r) => [r.tStart, r.tEnd]);
   const { jacobian, yields, extraPartials } = quoteNodeJacobian(curve, instruments, extra);
   const lu = luFactor(jacobian, n);

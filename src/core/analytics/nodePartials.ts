@@ -1,5 +1,6 @@
 import { curveFromNodes, type Curve } from '../curve/curve.ts';
 import { INTERPOLATORS } from '../interpolation/registry.ts';
+import { coreError, fail, type Result } from '../result.ts';
 
 /**
  * Step in ln DF for the node partials of the monotone-convex interpolations (not linear in the
@@ -98,3 +99,9 @@ export const solvedSpans = (curve: Curve) => curve.turned?.spans.filter((s) => t
 
 /** The unknowns of a curve's build: its pillars and its solved turn spreads, one per quote it was built from. */
 export const nodeCount = (curve: Curve): number => curve.pillars.length + solvedSpans(curve).length;
+
+/** Refuses quotes that are not the ones `curve` was built from (one per unknown), naming both counts; null when they match. */
+export function wrongQuoteCount(curve: Curve, n: number): Result<never> | null {
+  const m = nodeCount(curve);
+  return n === m ? null : fail(coreError('schema', 'quotes', `the curve was built from ${m} quotes but ${n} were given; pass the quotes it was built from`));
+}
